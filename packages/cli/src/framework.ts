@@ -1,0 +1,162 @@
+/**
+ * The small command framework shared by every `tauline` command: flag parsing with
+ * typed validation, one-line errors, and human tables vs `--json` output.
+ */
+import { parseArgs, type ParseArgsConfig } from 'node:util';
+import { TaulineError, InvalidArgumentError, formatReceived } from '@tauline/sdk/errors';
+
+/** Exit status: 0 success, 1 a finding (e.g. a review fail), 2 unusable input. */
+export const EXIT_OK = 0;
+export const EXIT_FINDING = 1;
+export const EXIT_USAGE = 2;
+
+/** Where a command writes; tests pass buffers, the binary passes process streams. */
+export interface Io {
+  out: (text: string) => void;
+  err: (text: string) => void;
+  /** True when stderr is an interactive terminal (progress bars only then). */
+  isTty: boolean;
+}
+
+export interface FlagSpec {
+  type: 'string' | 'boolean';
+  /** One-line help, with units. */
+  description: string;
+  /** Placeholder shown in help, e.g. `<m>`. */
+  value?: string;
+  multiple?: boolean;
+  short?: string;
+}
+
+export interface Command {
+  name: string;
+  /** One line for the command list. */
+  summary: string;
+  /** Usage line after `tauline <name>`, e.g. `--semi-major-axis <m> [--json]`. */
+  usage: string;
+  /** Longer help text (formulas, sources, examples). */
+  details?: string;
+  flags: Record<string, FlagSpec>;
+  /** Whether positional arguments (files) are accepted. */
+  allowPositionals?: boolean;
+  run(args: ParsedArgs, io: Io): Promise<number> | number;
+}
+
+export interface ParsedArgs {
+  values: Record<string, string | boolean | string[] | undefined>;
+  positionals: string[];
+}
+
+/** A usage error: printed as one line, exit status 2. */
+export class UsageError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'UsageError';
+  }
+}
+
+export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
+  const options: NonNullable<ParseArgsConfig['options']> = { help: { type: 'boolean', short: 'h' } };
+  for (const [name, spec] of Object.entries(command.flags)) {
+    options[name] = { type: spec.type, multiple: spec.multiple ?? false, ...(spec.short ? { short: spec.short } : {}) };
+  }
+  try {
+    const parsed = parseArgs({ args: argv, options, allowPositionals: command.allowPositionals ?? false, strict: true });
+    return { values: parsed.values as ParsedArgs['values'], positionals: parsed.positionals };
+  } catch (e) {
+    const message = e instanceof Error ? e.message.replace(/\. To specify a positional.*$/s, '') : String(e);
+    throw new UsageError(`${message} (see \`tauline ${command.name} --help\`)`);
+  }
+}
+
+/** Reads a required string flag. */
+export function requireFlag(args: ParsedArgs, flag: string): string {
+  const v = args.values[flag];
+  if (v === undefined || v === '' || typeof v === 'boolean') throw new UsageError(`--${flag} is required`);
+  return Array.isArray(v) ? v[v.length - 1]! : v;
+}
+
+/** Reads an optional string flag. */
+export function optionalFlag(args: ParsedArgs, flag: string): string | undefined {
+  const v = args.values[flag];
+  if (v === undefined || typeof v === 'boolean') return undefined;
+  return Array.isArray(v) ? v[v.length - 1] : v;
+}
+
+/**
+ * Parses a number flag strictly: the whole text must be a finite decimal number
+ * (no trailing units, no empty string). Range checks belong to the SDK.
+ */
+export function numberFlag(args: ParsedArgs, flag: string, required: true): number;
+export function numberFlag(args: ParsedArgs, flag: string, required?: false): number | undefined;
+export function numberFlag(args: ParsedArgs, flag: string, required = false): number | undefined {
+  const text = required ? requireFlag(args, flag) : optionalFlag(args, flag);
+  if (text === undefined) return undefined;
+  return parseNumber(`--${flag}`, text);
+}
+
+/** Strict decimal parse; throws an InvalidArgumentError naming the field. */
+export function parseNumber(field: string, text: string): number {
+  const trimmed = text.trim();
+  if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(trimmed)) {
+    throw new InvalidArgumentError(field, text, 'a decimal number in SI units (e.g. 26561750 or 2.656175e7)');
+  }
+  const v = Number(trimmed);
+  if (!Number.isFinite(v)) throw new InvalidArgumentError(field, text, 'a finite number');
+  return v;
+}
+
+/** Renders rows as an aligned text table. Numbers are right-aligned. */
+export function table(headers: string[], rows: (string | number)[][]): string {
+  const cells = rows.map((r) => r.map((c) => String(c)));
+  const widths = headers.map((h, i) => Math.max(h.length, ...cells.map((r) => (r[i] ?? '').length)));
+  const numeric = headers.map((_, i) => rows.every((r) => typeof r[i] === 'number' || /^[-+]?[\d.]/.test(String(r[i] ?? ''))));
+  const fmt = (r: string[]) => r.map((c, i) => (numeric[i] ? c.padStart(widths[i]!) : c.padEnd(widths[i]!))).join('  ').trimEnd();
+  return [fmt(headers), widths.map((w) => '─'.repeat(w)).join('  '), ...cells.map(fmt)].join('\n') + '\n';
+}
+
+/** Two-column key/value table for a single result. */
+export function keyValueTable(rows: [string, string][]): string {
+  const w = Math.max(...rows.map(([k]) => k.length));
+  return rows.map(([k, v]) => `${k.padEnd(w)}  ${v}`).join('\n') + '\n';
+}
+
+/** Formats a number with `digits` significant digits, keeping exponent form for tiny values. */
+export function sig(value: number, digits = 10): string {
+  if (!Number.isFinite(value)) return String(value);
+  if (value === 0) return '0';
+  const abs = Math.abs(value);
+  return abs >= 1e-3 && abs < 1e7 ? String(Number(value.toPrecision(digits))) : value.toExponential(digits - 1);
+}
+
+/** JSON with a trailing newline; bigint values become decimal strings. */
+export function toJson(value: unknown): string {
+  return JSON.stringify(value, (_k, v) => (typeof v === 'bigint' ? v.toString() : v), 2) + '\n';
+}
+
+/** The line printed for flight-configuration outputs. */
+export const FLIGHT_CAUTION =
+  'Caution: verify these values against the mission\'s own interface specification and have them confirmed by its responsible engineering authority before they enter a flight configuration.';
+
+/** Turns any thrown value into one line for stderr and an exit status. */
+export function describeFailure(error: unknown): { line: string; status: number } {
+  if (error instanceof UsageError) return { line: error.message, status: EXIT_USAGE };
+  if (error instanceof InvalidArgumentError) return { line: `invalid input: ${error.message}`, status: EXIT_USAGE };
+  if (error instanceof TaulineError) return { line: `${error.code}: ${error.message}`, status: EXIT_USAGE };
+  if (error instanceof Error && 'code' in error && (error as NodeJS.ErrnoException).code === 'ENOENT') {
+    return { line: `cannot read ${formatReceived((error as NodeJS.ErrnoException).path)}: no such file`, status: EXIT_USAGE };
+  }
+  const message = error instanceof Error ? error.message : String(error);
+  return { line: `internal error: ${message} (please report this with the command line that caused it)`, status: 3 };
+}
+
+export function commandHelp(command: Command): string {
+  const lines = [`tauline ${command.name} ${command.usage}`, '', command.summary, ''];
+  const names = Object.keys(command.flags);
+  const labels = names.map((n) => `--${n}${command.flags[n]!.value ? ` ${command.flags[n]!.value}` : ''}`);
+  const w = Math.max(...labels.map((l) => l.length), 10);
+  names.forEach((n, i) => lines.push(`  ${labels[i]!.padEnd(w)}  ${command.flags[n]!.description}`));
+  lines.push(`  ${'--help'.padEnd(w)}  Show this help.`);
+  if (command.details) lines.push('', command.details.trim());
+  return lines.join('\n') + '\n';
+}

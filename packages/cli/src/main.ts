@@ -1,0 +1,58 @@
+/**
+ * Entry point of the `tauline` command. `main(argv, io)` returns the exit status instead
+ * of exiting, so tests can drive it in-process as well as through the binary.
+ */
+import { COMMANDS } from './commands/index.js';
+import { commandHelp, describeFailure, parseCommandArgs, type Io } from './framework.js';
+
+const VERSION = '0.1.0';
+
+function overview(): string {
+  const w = Math.max(...COMMANDS.map((c) => c.name.length));
+  return [
+    `tauline ${VERSION}: satellite clock relativity, stability and steering`,
+    '',
+    'Usage: tauline <command> [flags]     (tauline <command> --help for details)',
+    '',
+    'Commands:',
+    ...COMMANDS.map((c) => `  ${c.name.padEnd(w)}  ${c.summary}`),
+    '',
+    'All quantities are SI (metres, seconds, hertz, radians) unless a flag name says otherwise.',
+    '',
+  ].join('\n');
+}
+
+const processIo: Io = {
+  out: (t) => process.stdout.write(t),
+  err: (t) => process.stderr.write(t),
+  isTty: Boolean(process.stderr.isTTY),
+};
+
+export async function main(argv: string[], io: Io = processIo): Promise<number> {
+  const [name, ...rest] = argv;
+  if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
+    io.out(overview());
+    return name === undefined ? 2 : 0;
+  }
+  if (name === '--version') {
+    io.out(`${VERSION}\n`);
+    return 0;
+  }
+  const command = COMMANDS.find((c) => c.name === name);
+  if (!command) {
+    io.err(`tauline: unknown command ${JSON.stringify(name)}; known commands: ${COMMANDS.map((c) => c.name).join(', ')}\n`);
+    return 2;
+  }
+  try {
+    const args = parseCommandArgs(command, rest);
+    if (args.values['help']) {
+      io.out(commandHelp(command));
+      return 0;
+    }
+    return await command.run(args, io);
+  } catch (error) {
+    const { line, status } = describeFailure(error);
+    io.err(`tauline ${command.name}: ${line}\n`);
+    return status;
+  }
+}

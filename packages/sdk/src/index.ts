@@ -1,0 +1,14 @@
+/**
+ * @tauline/sdk — satellite clock relativity, stability analysis and steering.
+ * Pure TypeScript, SI units at every boundary, no DOM, no runtime dependencies.
+ * Each concept is also its own subpath (`@tauline/sdk/relativity`, ...), see package.json.
+ *
+ * @module
+ */
+export * from './units.js';
+export * from './errors.js';
+export * from './constants.js';
+export * from './time/index.js';
+export * from './orbit/index.js';
+export * from './relativity/index.js';
+export * from './oscillator/index.js';

@@ -1,0 +1,2 @@
+// Filled in by the orbit module work; see DEVELOPERS.md.
+export {};

@@ -1,0 +1,2 @@
+// Filled in by the oscillator module work; see DEVELOPERS.md.
+export {};

@@ -1,0 +1,2 @@
+// Filled in by the relativity module work; see DEVELOPERS.md.
+export {};

@@ -1,0 +1,2 @@
+// Filled in by the time module work; see DEVELOPERS.md.
+export {};

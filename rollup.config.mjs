@@ -1,0 +1,44 @@
+// Builds every package to ESM + .d.ts. Configs run in order: the SDK's dist/ exists
+// before the CLI and the elements are type-checked against it.
+import typescript from '@rollup/plugin-typescript';
+import { nodeResolve } from '@rollup/plugin-node-resolve';
+import { readFileSync } from 'node:fs';
+
+/** Entry points come from the package's `exports` map, so a new subpath needs no change here. */
+function entriesFromExports(name) {
+  const manifest = JSON.parse(readFileSync(`packages/${name}/package.json`, 'utf8'));
+  const entries = {};
+  for (const [subpath, target] of Object.entries(manifest.exports ?? {})) {
+    if (typeof target !== 'object') continue;
+    const js = target.import.replace(/^\.\/dist\//, '').replace(/\.js$/, '');
+    entries[js] = `packages/${name}/src/${js}.ts`;
+    void subpath;
+  }
+  return entries;
+}
+
+const EXTERNAL = ['lit', '@lit/reactive-element', 'lit-html', 'lit-element', '@tauline/sdk', /^node:/];
+
+function pkg(name, input) {
+  return {
+    input,
+    output: {
+      dir: `packages/${name}/dist`, format: 'es', sourcemap: true,
+      preserveModules: true, preserveModulesRoot: `packages/${name}/src`,
+    },
+    external: (id) => EXTERNAL.some((e) => (e instanceof RegExp ? e.test(id) : id === e || id.startsWith(`${e}/`))),
+    plugins: [
+      nodeResolve({ preferBuiltins: true }),
+      typescript({
+        tsconfig: `packages/${name}/tsconfig.json`,
+        declarationDir: `packages/${name}/dist`, outDir: `packages/${name}/dist`,
+      }),
+    ],
+  };
+}
+
+export default [
+  pkg('sdk', entriesFromExports('sdk')),
+  pkg('cli', { main: 'packages/cli/src/main.ts' }),
+  pkg('elements', entriesFromExports('elements')),
+];
