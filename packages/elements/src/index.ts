@@ -1,1 +1,18 @@
-export {};
+/**
+ * @tauline/elements — embeddable web components for clock steering schedules, rate budgets,
+ * stability plots and launch-review findings. Importing this entry registers every element;
+ * import `@tauline/elements/<name>` (classes only, no side effects) or
+ * `@tauline/elements/<name>.define` (one element) to decide yourself.
+ *
+ * @module
+ */
+export { TaulineSteeringSchedule } from './steering-schedule/steering-schedule.define.js';
+export { TaulineRateBudget } from './rate-budget/rate-budget.define.js';
+export { TaulineStabilityPlot } from './stability-plot/stability-plot.define.js';
+export { TaulineReviewFindings } from './review-findings/review-findings.define.js';
+export type { RateBudgetData } from './rate-budget/rate-budget.js';
+export type { StabilityColumns } from './stability-plot/stability-data.js';
+export type { SteeringCommandView, PlanView } from './steering-schedule/plan-data.js';
+export type { ReviewReportView, ReviewFindingView, ReviewDiagnosisView, ReviewVerdict } from './review-findings/review-findings.js';
+export type { CommandSelectDetail, ViewChangeDetail, SpacecraftSelectDetail, TaulineEventMap } from './events.js';
+export { setWarningHandler, type WarningHandler } from './internal/warn.js';

@@ -1,0 +1,190 @@
+/**
+ * Canvas 2D helpers shared by the plots: device-pixel sizing, colour resolution from CSS
+ * custom properties, gap-aware polylines and bands, marker shapes and axes.
+ *
+ * @module
+ */
+import type { BandPolygon, Polyline } from './decimate.js';
+import type { Scale } from './scale.js';
+
+/** The plot area inside a canvas, in CSS pixels. */
+export interface Frame {
+  left: number;
+  top: number;
+  width: number;
+  height: number;
+}
+
+/**
+ * Sizes `canvas` to `cssWidth × cssHeight` CSS pixels at the device pixel ratio and returns
+ * its context with the transform set so drawing uses CSS pixels; null without a 2D context.
+ */
+export function sizeCanvas(canvas: HTMLCanvasElement, cssWidth: number, cssHeight: number): CanvasRenderingContext2D | null {
+  const ratio = Math.max(1, globalThis.devicePixelRatio || 1);
+  const w = Math.max(1, Math.round(cssWidth * ratio));
+  const h = Math.max(1, Math.round(cssHeight * ratio));
+  if (canvas.width !== w) canvas.width = w;
+  if (canvas.height !== h) canvas.height = h;
+  canvas.style.width = `${cssWidth}px`;
+  canvas.style.height = `${cssHeight}px`;
+  const ctx = canvas.getContext('2d');
+  if (!ctx) return null;
+  ctx.setTransform(ratio, 0, 0, ratio, 0, 0);
+  ctx.clearRect(0, 0, cssWidth, cssHeight);
+  return ctx;
+}
+
+/**
+ * Resolves CSS colour expressions (`var(--line-color)`, `light-dark(...)`) to concrete
+ * colours the canvas understands, through a hidden probe element inside the shadow root.
+ * Canvas cannot read `var()`, so the plots call this once per theme change.
+ */
+export function resolveColors<K extends string>(probe: HTMLElement, expressions: Record<K, string>): Record<K, string> {
+  const out = {} as Record<K, string>;
+  for (const key of Object.keys(expressions) as K[]) {
+    probe.style.color = '';
+    probe.style.color = expressions[key];
+    out[key] = getComputedStyle(probe).color || '#888';
+  }
+  probe.style.color = '';
+  return out;
+}
+
+/** Resolves the host's font for canvas text: `<size>px <family>`. */
+export function resolveFont(probe: HTMLElement, sizePx?: number): string {
+  const cs = getComputedStyle(probe);
+  const size = sizePx ?? (Number.parseFloat(cs.fontSize) || 12);
+  return `${size}px ${cs.fontFamily || 'sans-serif'}`;
+}
+
+/** Strokes a polyline in data units through the two scales; NaN vertices break the line. */
+export function strokePolyline(ctx: CanvasRenderingContext2D, line: Polyline, sx: Scale, sy: Scale): void {
+  const path = new Path2D();
+  let pen = false;
+  for (let i = 0; i < line.length; i++) {
+    const y = line.y[i]!;
+    if (Number.isNaN(y)) { pen = false; continue; }
+    const px = sx.map(line.x[i]!), py = sy.map(y);
+    if (pen) path.lineTo(px, py);
+    else { path.moveTo(px, py); pen = true; }
+  }
+  ctx.stroke(path);
+}
+
+/** Fills a band between its low and high edges; NaN vertices split the band. */
+export function fillBand(ctx: CanvasRenderingContext2D, band: BandPolygon, sx: Scale, sy: Scale): void {
+  const path = new Path2D();
+  let start = 0;
+  const close = (from: number, to: number): void => {
+    if (to - from < 1) return;
+    path.moveTo(sx.map(band.x[from]!), sy.map(band.high[from]!));
+    for (let i = from + 1; i < to; i++) path.lineTo(sx.map(band.x[i]!), sy.map(band.high[i]!));
+    for (let i = to - 1; i >= from; i--) path.lineTo(sx.map(band.x[i]!), sy.map(band.low[i]!));
+    path.closePath();
+  };
+  for (let i = 0; i < band.length; i++) {
+    if (Number.isNaN(band.low[i]!)) { close(start, i); start = i + 1; }
+  }
+  close(start, band.length);
+  ctx.fill(path);
+}
+
+/** Marker shapes: they differ by outline, not only by colour. */
+export type MarkerShape = 'triangle-up' | 'triangle-down' | 'diamond' | 'circle' | 'square' | 'cross';
+
+/** Adds a marker outline of the given shape centred at (x, y) with half-size r to `path`. */
+export function markerPath(shape: MarkerShape, x: number, y: number, r: number): Path2D {
+  const p = new Path2D();
+  switch (shape) {
+    case 'triangle-up':
+      p.moveTo(x, y - r); p.lineTo(x + r, y + r * 0.8); p.lineTo(x - r, y + r * 0.8); p.closePath(); break;
+    case 'triangle-down':
+      p.moveTo(x, y + r); p.lineTo(x + r, y - r * 0.8); p.lineTo(x - r, y - r * 0.8); p.closePath(); break;
+    case 'diamond':
+      p.moveTo(x, y - r); p.lineTo(x + r, y); p.lineTo(x, y + r); p.lineTo(x - r, y); p.closePath(); break;
+    case 'square':
+      p.rect(x - r * 0.8, y - r * 0.8, r * 1.6, r * 1.6); break;
+    case 'cross':
+      p.moveTo(x - r, y - r); p.lineTo(x + r, y + r); p.moveTo(x + r, y - r); p.lineTo(x - r, y + r); break;
+    default:
+      p.arc(x, y, r * 0.85, 0, Math.PI * 2);
+  }
+  return p;
+}
+
+/** Colours and font for axes. */
+export interface AxisStyle {
+  text: string;
+  muted: string;
+  grid: string;
+  font: string;
+}
+
+/** A tick: position in data units and its label (optional second line). */
+export interface Tick {
+  value: number;
+  label: string;
+  sub?: string | null;
+}
+
+/** Draws grid lines, the frame and tick labels for both axes, plus optional axis titles. */
+export function drawAxes(
+  ctx: CanvasRenderingContext2D, frame: Frame, sx: Scale, sy: Scale,
+  xTicks: readonly Tick[], yTicks: readonly Tick[], style: AxisStyle,
+  titles: { x?: string; y?: string } = {},
+): void {
+  const { left, top, width, height } = frame;
+  const right = left + width, bottom = top + height;
+  ctx.save();
+  ctx.lineWidth = 1;
+  ctx.strokeStyle = style.grid;
+  ctx.beginPath();
+  for (const t of xTicks) {
+    const x = Math.round(sx.map(t.value)) + 0.5;
+    if (x < left - 0.5 || x > right + 0.5) continue;
+    ctx.moveTo(x, top); ctx.lineTo(x, bottom);
+  }
+  for (const t of yTicks) {
+    const y = Math.round(sy.map(t.value)) + 0.5;
+    if (y < top - 0.5 || y > bottom + 0.5) continue;
+    ctx.moveTo(left, y); ctx.lineTo(right, y);
+  }
+  ctx.stroke();
+  ctx.strokeStyle = style.muted;
+  ctx.strokeRect(left + 0.5, top + 0.5, width - 1, height - 1);
+  ctx.fillStyle = style.muted;
+  ctx.font = style.font;
+  ctx.textAlign = 'center';
+  ctx.textBaseline = 'top';
+  let lastRight = -Infinity;
+  for (const t of xTicks) {
+    const x = sx.map(t.value);
+    if (x < left - 1 || x > right + 1) continue;
+    const w = Math.max(ctx.measureText(t.label).width, t.sub ? ctx.measureText(t.sub).width : 0);
+    if (x - w / 2 < lastRight + 6) continue; // skip labels that would overlap
+    ctx.fillText(t.label, x, bottom + 5);
+    if (t.sub) ctx.fillText(t.sub, x, bottom + 19);
+    lastRight = x + w / 2;
+  }
+  ctx.textAlign = 'right';
+  ctx.textBaseline = 'middle';
+  for (const t of yTicks) {
+    const y = sy.map(t.value);
+    if (y < top - 1 || y > bottom + 1) continue;
+    ctx.fillText(t.label, left - 6, y);
+  }
+  ctx.fillStyle = style.text;
+  if (titles.x) {
+    ctx.textAlign = 'right';
+    ctx.textBaseline = 'bottom';
+    ctx.fillText(titles.x, right, top + height + 48);
+  }
+  if (titles.y) {
+    ctx.translate(12, top + height / 2);
+    ctx.rotate(-Math.PI / 2);
+    ctx.textAlign = 'center';
+    ctx.textBaseline = 'middle';
+    ctx.fillText(titles.y, 0, 0);
+  }
+  ctx.restore();
+}

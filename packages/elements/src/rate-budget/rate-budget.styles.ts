@@ -1,0 +1,24 @@
+import { css } from 'lit';
+
+/** Styles of `<tauline-rate-budget>`. */
+export const rateBudgetStyles = css`
+  :host {
+    --gain-color: var(--tauline-color-gain, light-dark(#a4452c, #f0a58c));
+    --loss-color: var(--tauline-color-loss, light-dark(#2d6a8f, #8cc4e6));
+    --total-color: var(--tauline-color-total, light-dark(#3b3f4a, #d8d6cf));
+  }
+  .summary { margin: 0; color: var(--muted); }
+  .summary strong { color: var(--text); font-weight: 600; }
+  td.bar-cell { width: 38%; min-width: 120px; padding-left: 0; padding-right: 0; }
+  .bar-track { position: relative; height: 14px; }
+  .bar-track::before {
+    content: ''; position: absolute; left: 50%; top: -3px; bottom: -3px; border-left: 1px solid var(--border);
+  }
+  .bar { position: absolute; top: 2px; height: 10px; border-radius: 2px; }
+  .bar.gain { background: var(--gain-color); }
+  .bar.loss { background: repeating-linear-gradient(135deg, var(--loss-color) 0 3px, transparent 3px 5px); border: 1px solid var(--loss-color); }
+  .bar.total { background: var(--total-color); height: 6px; top: 4px; }
+  tr.total td { font-weight: 600; border-top: 1px solid var(--border); }
+  .na { color: var(--muted); }
+  .note { margin: 0; color: var(--muted); font-size: 0.92em; }
+`;

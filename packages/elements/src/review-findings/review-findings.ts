@@ -1,0 +1,193 @@
+import { LitElement, html, nothing, type PropertyValues, type TemplateResult } from 'lit';
+import { property } from 'lit/decorators.js';
+import { baseStyles } from '../internal/styles.js';
+import { reviewFindingsStyles } from './review-findings.styles.js';
+import { formatFraction, formatHertz, formatNumber } from '../internal/format.js';
+import { warnOnce } from '../internal/warn.js';
+import { emit } from '../events.js';
+
+/** Verdict of one spacecraft. */
+export type ReviewVerdict = 'pass' | 'marginal' | 'fail';
+
+/** One diagnosis entry of a finding (as the SDK's launch review writes it). */
+export interface ReviewDiagnosisView {
+  readonly code: string;
+  readonly message: string;
+  /** Fractional offset the recognised mistake would have produced, or null. */
+  readonly wouldHaveProduced?: number | null;
+  /** True when the configured value matches this mistake. */
+  readonly matches?: boolean;
+}
+
+/** One spacecraft finding (a subset of the SDK's `SpacecraftFinding`; extra fields are ignored). */
+export interface ReviewFindingView {
+  readonly id: string;
+  readonly verdict: ReviewVerdict;
+  /** Fractional offset that should be configured. */
+  readonly expectedFractionalOffset?: number;
+  /** Configured fractional offset. */
+  readonly configuredFractionalOffset?: number;
+  /** configured − expected, fractional. */
+  readonly differenceFractional?: number;
+  /** configured − expected, Hz at the nominal frequency. */
+  readonly differenceHz?: number;
+  /** configured − expected as time error, ns/day. */
+  readonly differenceNanosecondsPerDay?: number;
+  readonly summary?: string;
+  readonly diagnosis?: readonly ReviewDiagnosisView[];
+}
+
+/** The launch-review output: `{ spacecraft: [...] }`, optionally with `title` and `caution`. */
+export interface ReviewReportView {
+  readonly title?: string;
+  readonly caution?: string;
+  readonly spacecraft: readonly ReviewFindingView[];
+}
+
+const VERDICT_TEXT: Record<ReviewVerdict, string> = { pass: 'Pass', marginal: 'Marginal', fail: 'Fail' };
+const VERDICT_ORDER: Record<ReviewVerdict, number> = { fail: 0, marginal: 1, pass: 2 };
+
+/**
+ * Findings of a launch review of configured clock offsets: a verdict per spacecraft (icon shape
+ * and text, not colour alone), the difference from the expected offset, and the diagnosis of
+ * recognised mistakes. Failing spacecraft come first.
+ *
+ * Data are immutable: assign a new `review` object to re-render.
+ *
+ * @summary Launch-review verdicts and diagnoses, one expandable entry per spacecraft.
+ *
+ * @fires tauline-spacecraft-select - The user opened a spacecraft's entry. Detail: `{ id, verdict }`.
+ *
+ * @csspart base - The outer wrapper.
+ * @csspart finding - Each spacecraft entry (a `<details>` element).
+ * @csspart table - The numbers table inside an entry.
+ *
+ * @cssproperty --pass-color - Colour of a pass verdict (token `--tauline-color-pass`).
+ * @cssproperty --marginal-color - Colour of a marginal verdict (token `--tauline-color-marginal`).
+ * @cssproperty --fail-color - Colour of a fail verdict (token `--tauline-color-fail`).
+ */
+export class TaulineReviewFindings extends LitElement {
+  static override styles = [baseStyles, reviewFindingsStyles];
+
+  /** The review report: `{ spacecraft: [{ id, verdict, expectedFractionalOffset, differenceFractional, diagnosis, ... }] }`. */
+  @property({ attribute: false }) review?: ReviewReportView | null;
+
+  /** Heading shown above the list (the report's own `title` wins when present). */
+  @property() label = 'Launch review findings';
+
+  /** Leave passing spacecraft out of the list (they stay counted). */
+  @property({ type: Boolean, reflect: true, attribute: 'hide-passing' }) hidePassing = false;
+
+  /** Colour scheme: `light`, `dark`, or unset to inherit the page's `color-scheme`. */
+  @property({ reflect: true }) theme?: 'light' | 'dark';
+
+  private _findings: ReviewFindingView[] = [];
+  private _problem: string | null = null;
+
+  protected override willUpdate(changed: PropertyValues<this>): void {
+    if (!changed.has('review')) return;
+    this._problem = null;
+    this._findings = [];
+    const r = this.review as unknown;
+    if (r === undefined || r === null) return;
+    if (typeof r !== 'object' || !Array.isArray((r as { spacecraft?: unknown }).spacecraft)) {
+      this._problem = 'review must be an object with a spacecraft array';
+      warnOnce(this, 'invalid-review', this._problem);
+      return;
+    }
+    const dropped: string[] = [];
+    ((r as { spacecraft: unknown[] }).spacecraft).forEach((s, k) => {
+      const f = s as Partial<ReviewFindingView> | null;
+      if (!f || typeof f !== 'object' || typeof f.id !== 'string' || !(f.verdict === 'pass' || f.verdict === 'marginal' || f.verdict === 'fail')) {
+        dropped.push(`spacecraft[${k}] needs an id and a verdict of pass, marginal or fail`);
+        return;
+      }
+      this._findings.push(f as ReviewFindingView);
+    });
+    this._findings.sort((a, b) => VERDICT_ORDER[a.verdict] - VERDICT_ORDER[b.verdict]);
+    if (dropped.length > 0) warnOnce(this, 'review-entries-dropped', dropped.join('; '));
+    if (dropped.length > 0 && this._findings.length === 0) this._problem = dropped[0]!;
+  }
+
+  private _icon(verdict: ReviewVerdict): TemplateResult {
+    // Three shapes: a check in a circle, an exclamation in a triangle, a cross in a square.
+    if (verdict === 'pass') {
+      return html`<svg width="14" height="14" viewBox="0 0 14 14" aria-hidden="true"><circle cx="7" cy="7" r="6" fill="none" stroke="currentColor" stroke-width="1.6"></circle><path d="M4 7.2l2 2 4-4.4" fill="none" stroke="currentColor" stroke-width="1.8"></path></svg>`;
+    }
+    if (verdict === 'marginal') {
+      return html`<svg width="14" height="14" viewBox="0 0 14 14" aria-hidden="true"><path d="M7 1L13.5 13H0.5z" fill="none" stroke="currentColor" stroke-width="1.5"></path><path d="M7 5.2v3.8M7 10.4v1.2" stroke="currentColor" stroke-width="1.7"></path></svg>`;
+    }
+    return html`<svg width="14" height="14" viewBox="0 0 14 14" aria-hidden="true"><rect x="1" y="1" width="12" height="12" fill="none" stroke="currentColor" stroke-width="1.6"></rect><path d="M4.3 4.3l5.4 5.4M9.7 4.3l-5.4 5.4" stroke="currentColor" stroke-width="1.8"></path></svg>`;
+  }
+
+  private _verdict(v: ReviewVerdict): TemplateResult {
+    return html`<span class="verdict ${v}">${this._icon(v)}${VERDICT_TEXT[v]}</span>`;
+  }
+
+  protected override render(): TemplateResult {
+    const r = this.review;
+    const title = (r && typeof r === 'object' && typeof r.title === 'string' && r.title) || this.label;
+    return html`<div part="base">
+      <h3 class="title">${title}</h3>
+      ${this._problem
+        ? html`<div class="state error" role="alert">Cannot show the review: ${this._problem}</div>`
+        : !r
+          ? html`<div class="state">No review yet.</div>`
+          : this._renderReport(r)}
+    </div>`;
+  }
+
+  private _renderReport(r: ReviewReportView): TemplateResult {
+    const counts = { pass: 0, marginal: 0, fail: 0 };
+    for (const f of this._findings) counts[f.verdict] += 1;
+    const shown = this.hidePassing ? this._findings.filter((f) => f.verdict !== 'pass') : this._findings;
+    return html`
+      <ul class="counts" aria-label="Verdict counts">
+        ${(['fail', 'marginal', 'pass'] as const).map((v) => html`<li>${this._verdict(v)} ${counts[v]}</li>`)}
+      </ul>
+      ${r.caution ? html`<p class="caution" role="note">${r.caution}</p>` : nothing}
+      <div class="list">
+        ${shown.length === 0 ? html`<div class="state">${this._findings.length === 0 ? 'The review lists no spacecraft.' : 'Every spacecraft passed.'}</div>` : nothing}
+        ${shown.map((f) => this._renderFinding(f))}
+      </div>`;
+  }
+
+  private _renderFinding(f: ReviewFindingView): TemplateResult {
+    const num = (v: unknown): number => (typeof v === 'number' ? v : Number.NaN);
+    const diff = num(f.differenceFractional);
+    return html`<details part="finding" data-verdict=${f.verdict} data-id=${f.id}>
+      <summary @click=${() => this._onSummaryClick(f)}>
+        ${this._verdict(f.verdict)}
+        <span class="sc-id">${f.id}</span>
+        <span class="diff">Δ ${formatFraction(diff, 3)}</span>
+      </summary>
+      <div class="body">
+        ${f.summary ? html`<p>${f.summary}</p>` : nothing}
+        <table part="table">
+          <caption>Offsets for ${f.id} (fractional; negative: set low)</caption>
+          <tbody>
+            <tr><th scope="row">Expected</th><td>${formatFraction(num(f.expectedFractionalOffset))}</td></tr>
+            <tr><th scope="row">Configured</th><td>${formatFraction(num(f.configuredFractionalOffset))}</td></tr>
+            <tr><th scope="row">Difference</th><td>${formatFraction(diff)}</td></tr>
+            ${Number.isFinite(num(f.differenceHz)) ? html`<tr><th scope="row">Difference at nominal frequency</th><td>${formatHertz(num(f.differenceHz))}</td></tr>` : nothing}
+            ${Number.isFinite(num(f.differenceNanosecondsPerDay)) ? html`<tr><th scope="row">Time error it builds</th><td>${formatNumber(num(f.differenceNanosecondsPerDay), 4)} ns/day</td></tr>` : nothing}
+          </tbody>
+        </table>
+        ${Array.isArray(f.diagnosis) && f.diagnosis.length > 0
+          ? html`<div><strong>Diagnosis</strong><ul class="diagnosis">
+              ${f.diagnosis.map((d) => html`<li>
+                ${d.matches ? html`<span class="match">Matches:</span> ` : nothing}${d.message}
+                <code>${d.code}</code>${typeof d.wouldHaveProduced === 'number' ? html` — would have produced ${formatFraction(d.wouldHaveProduced, 5)}` : nothing}
+              </li>`)}
+            </ul></div>`
+          : nothing}
+      </div>
+    </details>`;
+  }
+
+  private _onSummaryClick(f: ReviewFindingView): void {
+    const details = this.renderRoot.querySelector<HTMLDetailsElement>(`details[data-id="${CSS.escape(f.id)}"]`);
+    // The click toggles after this handler: an entry that is closed now is being opened.
+    if (details && !details.open) emit(this, 'tauline-spacecraft-select', { id: f.id, verdict: f.verdict });
+  }
+}
