@@ -12,3 +12,4 @@ export * from './time/index.js';
 export * from './orbit/index.js';
 export * from './relativity/index.js';
 export * from './oscillator/index.js';
+export * from './stability/index.js';

@@ -1,0 +1,282 @@
+/**
+ * Reader for plain-text / CSV phase records: one phase value (seconds) per line, or two columns
+ * `time phase` (both seconds), separated by whitespace, commas or semicolons; `#` starts a comment.
+ * Missing epochs are detected from the time column and returned as NaN samples with a gap list,
+ * never dropped or interpolated.
+ *
+ * @module
+ */
+import { ParseError } from '../errors.js';
+import type { Seconds } from '../units.js';
+import { linesOf, readLines, type TextLine, type TextSource } from './line-reader.js';
+
+/** A run of missing samples in a regularised series. */
+export interface SampleGap {
+  /** Index in the regularised series of the first missing sample. */
+  readonly index: number;
+  /** Number of consecutive missing samples. */
+  readonly missing: number;
+  /** Source line of the sample that follows the gap (or of the NaN marker). */
+  readonly line: number;
+  /** Time of the first missing sample, in seconds (same origin as `times`); undefined for one-column input. */
+  readonly time: Seconds | undefined;
+}
+
+/** A phase series read from text. */
+export interface PhaseTextSeries {
+  readonly sourceName: string;
+  /** 1 (phase only) or 2 (time, phase). */
+  readonly columns: 1 | 2;
+  /** Column names from a header line, when the first data line was a header (e.g. `time,phase`). */
+  readonly header: readonly string[] | undefined;
+  /** Phase in seconds at uniform spacing; NaN marks a missing sample (explicit `NaN` or a missing epoch). */
+  readonly phase: Float64Array;
+  /** Epoch of every sample (seconds, the file's own origin) for two-column input, gaps included. */
+  readonly times: Float64Array | undefined;
+  /** Sample spacing τ0 in seconds: from the time column (smallest step) or as given; undefined if unknown. */
+  readonly tau0: Seconds | undefined;
+  /** Every run of missing samples. */
+  readonly gaps: readonly SampleGap[];
+  /** Total number of missing samples. */
+  readonly missing: number;
+}
+
+/** Options of {@link parsePhaseText}. */
+export interface PhaseTextOptions {
+  /** Name used in error messages (file name). Default `phase`. */
+  readonly sourceName?: string;
+  /**
+   * Sample spacing τ0 in seconds. One-column input: stored as given. Two-column input: every time
+   * step must be a whole multiple of it; default the smallest step in the file.
+   */
+  readonly tau0?: Seconds;
+}
+
+const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+
+/** Growable Float64Array (no per-value boxing for 10^7-line files). */
+class Growable {
+  private _data = new Float64Array(1024);
+  length = 0;
+  push(v: number): void {
+    if (this.length === this._data.length) {
+      const next = new Float64Array(this._data.length * 2);
+      next.set(this._data);
+      this._data = next;
+    }
+    this._data[this.length++] = v;
+  }
+  get(i: number): number {
+    return this._data[i]!;
+  }
+  toArray(): Float64Array {
+    return this._data.slice(0, this.length);
+  }
+}
+
+/** Growable Int32Array of source line numbers. */
+class GrowableInt {
+  private _data = new Int32Array(1024);
+  length = 0;
+  push(v: number): void {
+    if (this.length === this._data.length) {
+      const next = new Int32Array(this._data.length * 2);
+      next.set(this._data);
+      this._data = next;
+    }
+    this._data[this.length++] = v;
+  }
+  get(i: number): number {
+    return this._data[i]!;
+  }
+}
+
+interface Token {
+  text: string;
+  column: number;
+}
+
+function tokenize(text: string): Token[] {
+  const out: Token[] = [];
+  const re = /[^\s,;]+/g;
+  for (let m = re.exec(text); m !== null; m = re.exec(text)) out.push({ text: m[0], column: m.index + 1 });
+  return out;
+}
+
+/** Parses a number token; `NaN` (any case) is the explicit missing marker when `allowMissing`. */
+function parseValue(sourceName: string, line: number, token: Token, what: string, allowMissing: boolean): number {
+  if (allowMissing && token.text.toLowerCase() === 'nan') return Number.NaN;
+  if (!NUMBER.test(token.text)) {
+    throw new ParseError(sourceName, line, token.column, `${what} as a decimal number${allowMissing ? ' (or NaN for a missing sample)' : ''}`, token.text);
+  }
+  const v = Number(token.text);
+  if (!Number.isFinite(v)) throw new ParseError(sourceName, line, token.column, `a finite ${what}`, token.text);
+  return v;
+}
+
+/** Accumulates lines; shared by the sync and async readers. */
+class PhaseTextBuilder {
+  private readonly _name: string;
+  private readonly _options: PhaseTextOptions;
+  private _columns: 1 | 2 | undefined;
+  private _header: string[] | undefined;
+  private _seenData = false;
+  private readonly _times = new Growable();
+  private readonly _values = new Growable();
+  private readonly _lines = new GrowableInt();
+  constructor(options: PhaseTextOptions) {
+    this._options = options;
+    this._name = options.sourceName ?? 'phase';
+  }
+
+  add(line: TextLine): void {
+    const hash = line.text.indexOf('#');
+    const body = hash >= 0 ? line.text.slice(0, hash) : line.text;
+    const tokens = tokenize(body);
+    if (tokens.length === 0) return;
+    if (!this._seenData && this._header === undefined && tokens.every((t) => !NUMBER.test(t.text) && t.text.toLowerCase() !== 'nan')) {
+      if (tokens.length > 2) throw new ParseError(this._name, line.lineNumber, tokens[2]!.column, 'at most two columns (time, phase)', tokens[2]!.text);
+      this._header = tokens.map((t) => t.text);
+      this._columns = tokens.length as 1 | 2;
+      return;
+    }
+    if (this._columns === undefined) {
+      if (tokens.length > 2) throw new ParseError(this._name, line.lineNumber, tokens[2]!.column, 'one column (phase) or two columns (time, phase)', tokens[2]!.text);
+      this._columns = tokens.length as 1 | 2;
+    }
+    if (tokens.length !== this._columns) {
+      const t = tokens[Math.min(tokens.length, this._columns)] ?? tokens[tokens.length - 1]!;
+      throw new ParseError(this._name, line.lineNumber, tokens.length > this._columns ? t.column : undefined,
+        `${this._columns} column${this._columns === 2 ? 's (time, phase)' : ' (phase)'} as on the first data line`, line.text);
+    }
+    this._seenData = true;
+    if (this._columns === 2) {
+      const time = parseValue(this._name, line.lineNumber, tokens[0]!, 'time in seconds', false);
+      if (this._times.length > 0 && !(time > this._times.get(this._times.length - 1))) {
+        throw new ParseError(this._name, line.lineNumber, tokens[0]!.column,
+          `a time later than the previous line's ${this._times.get(this._times.length - 1)} s (times must increase)`, tokens[0]!.text);
+      }
+      this._times.push(time);
+      this._values.push(parseValue(this._name, line.lineNumber, tokens[1]!, 'phase in seconds', true));
+    } else {
+      this._values.push(parseValue(this._name, line.lineNumber, tokens[0]!, 'phase in seconds', true));
+    }
+    this._lines.push(line.lineNumber);
+  }
+
+  finish(lastLine: number): PhaseTextSeries {
+    if (this._values.length === 0) throw new ParseError(this._name, Math.max(1, lastLine), undefined, 'at least one phase value', '');
+    const columns = this._columns ?? 1;
+    if (columns === 1) {
+      const phase = this._values.toArray();
+      const gaps: SampleGap[] = [];
+      for (let i = 0; i < phase.length; i++) {
+        if (phase[i] !== phase[i]) {
+          const start = i;
+          while (i + 1 < phase.length && phase[i + 1] !== phase[i + 1]) i++;
+          gaps.push({ index: start, missing: i - start + 1, line: this._lines.get(start), time: undefined });
+        }
+      }
+      return { sourceName: this._name, columns, header: this._header, phase, times: undefined, tau0: this._options.tau0, gaps,
+        missing: gaps.reduce((s, g) => s + g.missing, 0) };
+    }
+    const reg = regularizeSeries(this._name, this._times.toArray(), this._values.toArray(), (i) => this._lines.get(i), this._options.tau0);
+    return { sourceName: this._name, columns, header: this._header, ...reg };
+  }
+}
+
+/**
+ * Places irregularly listed samples on a uniform grid t₀ + k·τ0, inserting NaN for each missing
+ * epoch and listing the gaps. τ0 is the given value or the smallest step. Steps must be whole
+ * multiples of τ0 (relative tolerance 1e-6); samples that are NaN themselves count as gaps too.
+ *
+ * @internal shared with the RINEX clock reader
+ * @throws {ParseError} at the line of the first sample whose step is not a whole multiple of τ0.
+ */
+export function regularizeSeries(sourceName: string, times: Float64Array, values: Float64Array, lineOf: (i: number) => number,
+  tau0Given: Seconds | undefined): { phase: Float64Array; times: Float64Array; tau0: Seconds | undefined; gaps: SampleGap[]; missing: number } {
+  let tau0 = tau0Given;
+  if (tau0 !== undefined && !(tau0 > 0 && Number.isFinite(tau0))) {
+    throw new ParseError(sourceName, lineOf(0), undefined, `a sample spacing tau0 > 0 s (given ${tau0})`);
+  }
+  if (tau0 === undefined && times.length >= 2) {
+    tau0 = Infinity;
+    for (let i = 1; i < times.length; i++) tau0 = Math.min(tau0, times[i]! - times[i - 1]!);
+  }
+  if (tau0 === undefined) {
+    return { phase: values.slice(), times: times.slice(), tau0: undefined, gaps: values[0] !== values[0] ? [{ index: 0, missing: 1, line: lineOf(0), time: times[0] }] : [], missing: values[0] !== values[0] ? 1 : 0 };
+  }
+  const t0 = times[0]!;
+  let total = 1;
+  const steps = new Int32Array(times.length);
+  for (let i = 1; i < times.length; i++) {
+    const ratio = (times[i]! - times[i - 1]!) / tau0;
+    const k = Math.round(ratio);
+    if (k < 1 || Math.abs(ratio - k) > 1e-6 * Math.max(1, k)) {
+      throw new ParseError(sourceName, lineOf(i), 1,
+        `a time step that is a whole multiple of tau0 = ${tau0} s (step ${times[i]! - times[i - 1]!} s from the previous sample is ${ratio} tau0)`,
+        String(times[i]));
+    }
+    steps[i] = k;
+    total += k;
+  }
+  const phase = new Float64Array(total).fill(Number.NaN);
+  const grid = new Float64Array(total);
+  const gaps: SampleGap[] = [];
+  let missing = 0;
+  let idx = 0;
+  for (let i = 0; i < times.length; i++) {
+    if (i > 0) {
+      const k = steps[i]!;
+      if (k > 1) gaps.push({ index: idx + 1, missing: k - 1, line: lineOf(i), time: t0 + (idx + 1) * tau0 });
+      idx += k;
+    }
+    phase[idx] = values[i]!;
+  }
+  for (let k = 0; k < total; k++) grid[k] = t0 + k * tau0;
+  // Explicit NaN values at listed epochs are gaps as well.
+  for (let i = 0, k = 0; i < times.length; i++) {
+    if (i > 0) k += steps[i]!;
+    if (values[i] !== values[i]) gaps.push({ index: k, missing: 1, line: lineOf(i), time: grid[k] });
+  }
+  gaps.sort((a, b) => a.index - b.index);
+  for (const g of gaps) missing += g.missing;
+  return { phase, times: grid, tau0, gaps, missing };
+}
+
+/**
+ * Reads a phase record from text (synchronously).
+ *
+ * Format: one phase value x (seconds) per line, or two columns `time phase` (seconds, seconds);
+ * separators are whitespace, `,` or `;`; `#` starts a comment (whole line or trailing); blank
+ * lines are ignored; one optional header line of column names (e.g. `time,phase`) before the
+ * data. `NaN` marks a missing phase value. With two columns, τ0 is the smallest time step (or
+ * `options.tau0`); every step must be a whole multiple of τ0 and skipped epochs become NaN
+ * samples listed in `gaps`.
+ *
+ * @param source   The text (string or iterable of chunks).
+ * @param options  Source name for messages, τ0.
+ * @returns The series with gaps reported.
+ * @throws {ParseError} (file, line, column) for a non-numeric or infinite value, a changing column
+ *   count, non-increasing times, a step that is not a multiple of τ0, or no data.
+ */
+export function parsePhaseText(source: string | Iterable<string>, options: PhaseTextOptions = {}): PhaseTextSeries {
+  const builder = new PhaseTextBuilder(options);
+  let last = 0;
+  for (const line of linesOf(source)) {
+    builder.add(line);
+    last = line.lineNumber;
+  }
+  return builder.finish(last);
+}
+
+/** Like {@link parsePhaseText} for any text source, including an async iterable of chunks (a file stream). */
+export async function readPhaseText(source: TextSource, options: PhaseTextOptions = {}): Promise<PhaseTextSeries> {
+  const builder = new PhaseTextBuilder(options);
+  let last = 0;
+  for await (const line of readLines(source)) {
+    builder.add(line);
+    last = line.lineNumber;
+  }
+  return builder.finish(last);
+}
