@@ -9,3 +9,16 @@ export {
   parseRinexClock, readRinexClock, rinexClockSeries,
   type RinexClockFile, type RinexClockHeader, type RinexClockRecord, type RinexClockSeries,
 } from './rinex-clock.js';
+export {
+  type TextLine, type TextSource, type EpochFields, LineSplitter, linesOf, readLines, parseFortranReal,
+  scaleSecondsFromFields, fieldsFromScaleSeconds, formatEpochFields,
+} from './line-reader.js';
+export {
+  type RinexSystemCode, type RinexNavRecordType, type RinexLeapSeconds, type RinexNavHeader, type RinexNavEphemeris,
+  type SkippedNavRecord, type RinexNavEvent, type RinexNavReadOptions, type RinexNavFile, RinexNavParser, readRinexNav,
+  parseRinexNav,
+} from './rinex-nav.js';
+export {
+  type Sp3TimeSystem, type Sp3Header, type Sp3SatelliteRecord, type Sp3Epoch, type Sp3Event, type Sp3ReadOptions,
+  type Sp3File, Sp3Parser, readSp3, parseSp3,
+} from './sp3.js';

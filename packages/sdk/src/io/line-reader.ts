@@ -1,0 +1,184 @@
+/**
+ * Streaming line splitter shared by the text-format readers. Input is a whole string, an
+ * iterable of string chunks, or an async iterable of string chunks (e.g. a decoded file
+ * stream opened by the caller); output is one line at a time with its 1-based number, so
+ * memory stays bounded by the longest line, not by the file.
+ *
+ * Line ends: LF and CR LF are recognised (a chunk boundary may split CR from LF); a final
+ * line without a line end is still delivered. Line numbers count every line, blank ones too.
+ *
+ * @module
+ */
+
+/** One line of text without its line terminator. */
+export interface TextLine {
+  /** The line's characters, without CR/LF. */
+  readonly text: string;
+  /** 1-based line number in the source. */
+  readonly lineNumber: number;
+}
+
+/** Text input accepted by the readers: a whole string, or string chunks (sync or async). */
+export type TextSource = string | Iterable<string> | AsyncIterable<string>;
+
+function isAsyncIterable(value: unknown): value is AsyncIterable<string> {
+  return typeof value === 'object' && value !== null && Symbol.asyncIterator in value;
+}
+
+/**
+ * Splits chunked text into lines without holding more than one partial line in memory.
+ * Use `push(chunk)` for each chunk and `finish()` at the end; both return the lines completed.
+ */
+export class LineSplitter {
+  private _pending = '';
+  private _lineNumber = 0;
+
+  /** Feeds one chunk; returns the lines it completed. */
+  push(chunk: string): TextLine[] {
+    const lines: TextLine[] = [];
+    let text = this._pending + chunk;
+    let start = 0;
+    for (;;) {
+      const nl = text.indexOf('\n', start);
+      if (nl < 0) break;
+      const end = nl > start && text.charCodeAt(nl - 1) === 13 ? nl - 1 : nl;
+      lines.push({ text: text.slice(start, end), lineNumber: ++this._lineNumber });
+      start = nl + 1;
+    }
+    text = text.slice(start);
+    this._pending = text;
+    return lines;
+  }
+
+  /** Ends the input; returns the last line when the text did not end with a line end. */
+  finish(): TextLine[] {
+    if (this._pending === '') return [];
+    let text = this._pending;
+    if (text.endsWith('\r')) text = text.slice(0, -1);
+    this._pending = '';
+    return [{ text, lineNumber: ++this._lineNumber }];
+  }
+
+  /** Number of lines delivered so far. */
+  get lineCount(): number {
+    return this._lineNumber;
+  }
+}
+
+/**
+ * Iterates the lines of a text source, synchronously. Accepts a string or a sync iterable of chunks.
+ */
+export function* linesOf(source: string | Iterable<string>): Generator<TextLine> {
+  const splitter = new LineSplitter();
+  if (typeof source === 'string') {
+    yield* splitter.push(source);
+  } else {
+    for (const chunk of source) yield* splitter.push(String(chunk));
+  }
+  yield* splitter.finish();
+}
+
+/**
+ * Iterates the lines of any text source (string, iterable or async iterable of chunks).
+ */
+export async function* readLines(source: TextSource): AsyncGenerator<TextLine> {
+  if (!isAsyncIterable(source)) {
+    yield* linesOf(source);
+    return;
+  }
+  const splitter = new LineSplitter();
+  for await (const chunk of source) yield* splitter.push(String(chunk));
+  yield* splitter.finish();
+}
+
+/** Calendar date and time of day as written in a file, in that file's own time scale. */
+export interface EpochFields {
+  readonly year: number;
+  readonly month: number;
+  readonly day: number;
+  readonly hour: number;
+  readonly minute: number;
+  /** Seconds of the minute, may be fractional. */
+  readonly second: number;
+}
+
+/** Days from 1970-01-01 to a proleptic Gregorian date (H. Hinnant, "chrono-compatible low-level date algorithms", days_from_civil) [M]. */
+export function daysFromCivil(year: number, month: number, day: number): number {
+  const y = month <= 2 ? year - 1 : year;
+  const era = Math.floor(y / 400);
+  const yoe = y - era * 400;
+  const doy = Math.floor((153 * (month + (month > 2 ? -3 : 9)) + 2) / 5) + day - 1;
+  const doe = yoe * 365 + Math.floor(yoe / 4) - Math.floor(yoe / 100) + doy;
+  return era * 146097 + doe - 719468;
+}
+
+/** The inverse of {@link daysFromCivil} (same source, civil_from_days) [M]. */
+export function civilFromDays(days: number): { year: number; month: number; day: number } {
+  const z = days + 719468;
+  const era = Math.floor(z / 146097);
+  const doe = z - era * 146097;
+  const yoe = Math.floor((doe - Math.floor(doe / 1460) + Math.floor(doe / 36524) - Math.floor(doe / 146096)) / 365);
+  const doy = doe - (365 * yoe + Math.floor(yoe / 4) - Math.floor(yoe / 100));
+  const mp = Math.floor((5 * doy + 2) / 153);
+  const day = doy - Math.floor((153 * mp + 2) / 5) + 1;
+  const month = mp < 10 ? mp + 3 : mp - 9;
+  return { year: yoe + era * 400 + (month <= 2 ? 1 : 0), month, day };
+}
+
+/** Day number of 1980-01-06 (start of GPS week 0) from 1970-01-01. */
+const GPS_EPOCH_DAYS = 3657;
+
+/**
+ * Seconds from 1980-01-06T00:00:00 to `fields`, both read in the same uniform time scale
+ * (GPST, GST, BDT, TAI): pure calendar arithmetic, 86 400 s per day, no leap seconds.
+ * Resolution is the float64 spacing at ~1.5e9 s, about 2.4e-7 s.
+ */
+export function scaleSecondsFromFields(fields: EpochFields): number {
+  const days = daysFromCivil(fields.year, fields.month, fields.day) - GPS_EPOCH_DAYS;
+  return days * 86400 + fields.hour * 3600 + fields.minute * 60 + fields.second;
+}
+
+/** Inverse of {@link scaleSecondsFromFields}. */
+export function fieldsFromScaleSeconds(seconds: number): EpochFields {
+  const days = Math.floor(seconds / 86400);
+  let rest = seconds - days * 86400;
+  const { year, month, day } = civilFromDays(days + GPS_EPOCH_DAYS);
+  const hour = Math.floor(rest / 3600);
+  rest -= hour * 3600;
+  const minute = Math.floor(rest / 60);
+  return { year, month, day, hour, minute, second: rest - minute * 60 };
+}
+
+/** ISO 8601 text of calendar fields without a zone designator, e.g. `2024-01-07T00:15:00` (fraction only when present, to 1 ns). */
+export function formatEpochFields(fields: EpochFields): string {
+  const p = (n: number, w = 2) => String(n).padStart(w, '0');
+  const whole = Math.floor(fields.second);
+  let frac = '';
+  const f = fields.second - whole;
+  if (f > 5e-10) frac = `.${Math.round(f * 1e9).toString().padStart(9, '0')}`.replace(/0+$/, '');
+  return `${p(fields.year, 4)}-${p(fields.month)}-${p(fields.day)}T${p(fields.hour)}:${p(fields.minute)}:${p(whole)}${frac}`;
+}
+
+/** Whether the calendar fields name a real date and time (second in [0, 61) to admit a leap second). */
+export function validEpochFields(f: EpochFields): boolean {
+  if (![f.year, f.month, f.day, f.hour, f.minute].every(Number.isInteger) || !Number.isFinite(f.second)) return false;
+  if (f.month < 1 || f.month > 12 || f.day < 1 || f.hour < 0 || f.hour > 23 || f.minute < 0 || f.minute > 59) return false;
+  if (f.second < 0 || f.second >= 61) return false;
+  const daysInMonth = daysFromCivil(f.month === 12 ? f.year + 1 : f.year, f.month === 12 ? 1 : f.month + 1, 1)
+    - daysFromCivil(f.year, f.month, 1);
+  return f.day <= daysInMonth;
+}
+
+const FORTRAN_NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([EeDd][+-]?\d+)?$/;
+
+/**
+ * Parses a Fortran-style real (`-.123456789012D-04`, `1.5E+03`, `42`) or returns
+ * `undefined` for a blank field, `NaN` for text that is not a number.
+ */
+export function parseFortranReal(field: string): number | undefined {
+  const t = field.trim();
+  if (t === '') return undefined;
+  if (!FORTRAN_NUMBER.test(t)) return Number.NaN;
+  const v = Number(t.replace(/[Dd]/, 'E'));
+  return Number.isFinite(v) ? v : Number.NaN;
+}

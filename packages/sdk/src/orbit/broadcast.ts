@@ -1,0 +1,345 @@
+/**
+ * The interface-specification user algorithms for broadcast Keplerian ephemerides (GPS
+ * LNAV, Galileo I/NAV and F/NAV, BeiDou D1/D2): satellite position and velocity in the
+ * Earth-fixed frame, the relativistic periodic correction Δt_r = F·e·√A·sin E_k and the
+ * full satellite clock correction Δt_sv = a_f0 + a_f1(t − t_oc) + a_f2(t − t_oc)² + Δt_r.
+ *
+ * Times are "scale seconds": seconds since 1980-01-06T00:00:00 counted in the record's own
+ * system time scale (GPST for GPS, GST for Galileo, BDT for BeiDou), i.e. week·604800 +
+ * seconds of week for the GPS week count. Readers (e.g. `readRinexNav`) fill `tocSeconds`
+ * and `toeSeconds` in this count, with the week number already resolved.
+ *
+ * @module
+ */
+import type { Metres, Radians, RadiansPerSecond, Seconds, Vector3 } from '../units.js';
+import type { ConstantSet } from '../constants.js';
+import { BEIDOU_ICD, GALILEO_ICD, GPS_ICD } from '../constants.js';
+import { InvalidArgumentError } from '../errors.js';
+import { requireFinite } from '../internal/validate.js';
+import { solveKepler } from './kepler.js';
+import type { StateVector } from './elements.js';
+
+/** Seconds in one week. */
+const SECONDS_PER_WEEK: Seconds = 604_800;
+
+/** Navigation systems whose Keplerian broadcast ephemerides are modelled here. */
+export type KeplerianSystem = 'G' | 'E' | 'C';
+
+/** Broadcast message kinds modelled here: GPS LNAV, Galileo I/NAV and F/NAV, BeiDou D1 (MEO/IGSO) and D2 (GEO). */
+export type KeplerianNavMessage = 'LNAV' | 'INAV' | 'FNAV' | 'D1' | 'D2';
+
+/**
+ * One broadcast ephemeris and clock record, fields in SI units (radians, not semicircles).
+ * Field names follow the interface specifications.
+ */
+export interface KeplerianBroadcastEphemeris {
+  /** Satellite identifier `<system><2-digit PRN>`, e.g. `G05`. */
+  readonly satellite: string;
+  readonly system: KeplerianSystem;
+  readonly message: KeplerianNavMessage;
+  /** Clock reference time t_oc, in scale seconds (see the module doc). */
+  readonly tocSeconds: Seconds;
+  /** Ephemeris reference time t_oe, in scale seconds, week resolved. */
+  readonly toeSeconds: Seconds;
+  /** a_f0 (BeiDou a0), in seconds. */
+  readonly af0: Seconds;
+  /** a_f1, in s/s. */
+  readonly af1: number;
+  /** a_f2, in s/s². */
+  readonly af2: number;
+  /** Issue of data (GPS IODE, Galileo IODnav, BeiDou AODE). */
+  readonly issueOfData: number;
+  /** √A, in √m. */
+  readonly sqrtA: number;
+  /** e, dimensionless. */
+  readonly eccentricity: number;
+  /** M0, in radians. */
+  readonly m0: Radians;
+  /** Δn, in rad/s. */
+  readonly deltaN: RadiansPerSecond;
+  /** Ω0, in radians. */
+  readonly omega0: Radians;
+  /** i0, in radians. */
+  readonly i0: Radians;
+  /** ω (argument of perigee), in radians. */
+  readonly argumentOfPerigee: Radians;
+  /** Ω̇, in rad/s. */
+  readonly omegaDot: RadiansPerSecond;
+  /** IDOT, in rad/s. */
+  readonly idot: RadiansPerSecond;
+  /** Harmonic corrections: C_uc, C_us, C_ic, C_is in radians; C_rc, C_rs in metres. */
+  readonly cuc: Radians;
+  readonly cus: Radians;
+  readonly cic: Radians;
+  readonly cis: Radians;
+  readonly crc: Metres;
+  readonly crs: Metres;
+  /** Health word as broadcast; 0 = healthy for all three systems. */
+  readonly health: number;
+  /** Curve-fit interval, in seconds (GPS from the record; otherwise the default of {@link defaultFitIntervalSeconds}). */
+  readonly fitIntervalSeconds: Seconds;
+  /** Transmission time of message, in scale seconds, when known. */
+  readonly transmissionSeconds?: Seconds;
+}
+
+/** Result of evaluating one record at one time. */
+export interface BroadcastEvaluation {
+  /** Earth-fixed position and velocity (WGS 84 / GTRF / CGCS2000 frame of the system), m and m/s. */
+  readonly state: StateVector;
+  /** t_k = t − t_oe, in seconds. */
+  readonly timeFromEphemeris: Seconds;
+  /** E_k, in radians. */
+  readonly eccentricAnomaly: Radians;
+  /** Δt_r = F·e·√A·sin E_k, in seconds. */
+  readonly relativisticSeconds: Seconds;
+  /** a_f0 + a_f1(t − t_oc) + a_f2(t − t_oc)², in seconds. */
+  readonly polynomialSeconds: Seconds;
+  /** Δt_sv = polynomial + Δt_r, in seconds (group delays not applied). */
+  readonly clockCorrectionSeconds: Seconds;
+}
+
+/** The constant set each system's user algorithm uses (GM, Ω̇_E, F, π). */
+export function systemConstants(system: KeplerianSystem): ConstantSet {
+  switch (system) {
+    case 'G': return GPS_ICD;
+    case 'E': return GALILEO_ICD;
+    case 'C': return BEIDOU_ICD;
+    default: throw new InvalidArgumentError('system', system, "one of 'G' (GPS), 'E' (Galileo), 'C' (BeiDou)");
+  }
+}
+
+/**
+ * Default curve-fit interval when a record carries none: 4 hours, i.e. valid for |t − t_oe| ≤ 2 h.
+ * GPS: IS-GPS-200 §20.3.4.4, fit-interval flag 0 → 4 hours [M]. Galileo and BeiDou records carry
+ * no fit interval; 4 hours is common practice, no source.
+ */
+export function defaultFitIntervalSeconds(): Seconds {
+  return 4 * 3600;
+}
+
+/**
+ * Week-crossover correction of a time difference computed from seconds of week:
+ * adds or subtracts 604 800 s so that the result lies in [−302 400, 302 400].
+ *
+ * @param dt  A difference of two seconds-of-week values, in seconds.
+ * @returns The difference referred to the nearest week, in seconds.
+ * @throws {InvalidArgumentError} if `dt` is not finite.
+ * @see IS-GPS-200 §20.3.3.3.3.1 and Table 20-IV note on t_k ("if t_k > 302 400 subtract 604 800 …") [M].
+ */
+export function weekCrossover(dt: Seconds): Seconds {
+  requireFinite('dt', dt, 'a finite time difference in seconds');
+  let d = dt;
+  while (d > SECONDS_PER_WEEK / 2) d -= SECONDS_PER_WEEK;
+  while (d < -SECONDS_PER_WEEK / 2) d += SECONDS_PER_WEEK;
+  return d;
+}
+
+/**
+ * Whether a BeiDou satellite is geostationary (its D2 ephemeris needs the GEO rotation):
+ * C01–C05 and C59–C63.
+ * BDS-SIS-ICD (B1I) §5.2.4.12, GEO list: common practice for PRN assignment, no source [M].
+ */
+export function isBeidouGeostationary(satellite: string): boolean {
+  const m = /^C(\d\d)$/.exec(satellite);
+  if (!m) return false;
+  const prn = Number(m[1]);
+  return (prn >= 1 && prn <= 5) || (prn >= 59 && prn <= 63);
+}
+
+function validateRecord(eph: KeplerianBroadcastEphemeris): void {
+  if (eph === null || typeof eph !== 'object') throw new InvalidArgumentError('ephemeris', eph, 'a broadcast ephemeris record');
+  systemConstants(eph.system);
+  for (const key of ['tocSeconds', 'toeSeconds', 'af0', 'af1', 'af2', 'm0', 'deltaN', 'omega0', 'i0', 'argumentOfPerigee',
+    'omegaDot', 'idot', 'cuc', 'cus', 'cic', 'cis', 'crc', 'crs'] as const) {
+    requireFinite(`ephemeris.${key}`, eph[key]);
+  }
+  const sqrtA = requireFinite('ephemeris.sqrtA', eph.sqrtA, 'a finite √A in √m');
+  // √A between ~2500 √m (a = 6.3e6 m) and 1e5 √m: anything else is not an Earth orbit.
+  if (!(sqrtA > 2500 && sqrtA < 1e5)) {
+    throw new InvalidArgumentError('ephemeris.sqrtA', sqrtA, 'in (2500, 100000) √m (square root of the semi-major axis in metres)',
+      sqrtA > 0 && sqrtA <= 2500 && sqrtA * Math.sqrt(1000) > 2500 ? 'did you give √A with A in kilometres?' : undefined);
+  }
+  const e = requireFinite('ephemeris.eccentricity', eph.eccentricity, 'in [0, 1)');
+  if (e < 0 || e >= 1) throw new InvalidArgumentError('ephemeris.eccentricity', e, 'in [0, 1) for an elliptical orbit');
+}
+
+/**
+ * Evaluates a broadcast record at time t: the interface-specification user algorithm for the
+ * Earth-fixed position and velocity, the relativistic correction and the clock correction.
+ *
+ * Position (IS-GPS-200 Table 20-IV [M]; same algorithm in the Galileo OS SIS ICD §5.1.1 [M] and
+ * BDS-SIS-ICD §5.2.4.12 [M]):
+ *   A = (√A)², n = √(μ/A³) + Δn, t_k = t − t_oe, M_k = M0 + n t_k, M_k = E_k − e sin E_k,
+ *   ν_k = atan2(√(1−e²) sin E_k, cos E_k − e), Φ_k = ν_k + ω,
+ *   u_k = Φ_k + C_us sin 2Φ_k + C_uc cos 2Φ_k, r_k = A(1 − e cos E_k) + C_rs sin 2Φ_k + C_rc cos 2Φ_k,
+ *   i_k = i0 + IDOT t_k + C_is sin 2Φ_k + C_ic cos 2Φ_k,
+ *   Ω_k = Ω0 + (Ω̇ − Ω̇_E) t_k − Ω̇_E t_oe   (t_oe in seconds of week),
+ *   x = x' cos Ω_k − y' cos i_k sin Ω_k, y = x' sin Ω_k + y' cos i_k cos Ω_k, z = y' sin i_k.
+ * BeiDou GEO (C01–C05, C59–C63): Ω_k = Ω0 + Ω̇ t_k − Ω̇_E t_oe, then
+ *   r = R_Z(Ω̇_E t_k) R_X(−5°) r_GK (BDS-SIS-ICD §5.2.4.12 [M]).
+ * Velocity: the time derivative of the same expressions (chain rule; written out below and
+ * checked against finite differences in the tests).
+ * Clock (IS-GPS-200 §20.3.3.3.3.1 [M]): Δt_sv = a_f0 + a_f1(t − t_oc) + a_f2(t − t_oc)² + Δt_r,
+ *   Δt_r = F e √A sin E_k, F = −2√μ/c² of the system's constant set.
+ *
+ * @param ephemeris  The record (SI units; times in scale seconds of its own system).
+ * @param t          Evaluation time, in scale seconds of the record's system time scale.
+ * @returns State (m, m/s, Earth-fixed), t_k (s), E_k (rad), Δt_r (s), polynomial (s), Δt_sv (s).
+ * @throws {InvalidArgumentError} if `t` is not finite or the record has a non-finite field,
+ *   √A outside (2500, 1e5) √m or e outside [0, 1).
+ * @see IS-GPS-200 Table 20-IV and §20.3.3.3.3.1 [M]; Galileo OS SIS ICD §5.1.1, §5.1.4 [M];
+ *   BDS-SIS-ICD B1I §5.2.4.10, §5.2.4.12 [M]. Constants: physics reference sheet §3, §6.
+ */
+export function evaluateBroadcastEphemeris(ephemeris: KeplerianBroadcastEphemeris, t: Seconds): BroadcastEvaluation {
+  validateRecord(ephemeris);
+  requireFinite('t', t, 'a finite time in scale seconds');
+  const eph = ephemeris;
+  const k = systemConstants(eph.system);
+  const mu = k.gm;
+  const omegaE = k.earthRotationRate;
+
+  const A = eph.sqrtA * eph.sqrtA;
+  const n0 = Math.sqrt(mu / (A * A * A));
+  const n = n0 + eph.deltaN;
+  const tk = t - eph.toeSeconds;
+  const toeOfWeek = eph.toeSeconds - Math.floor(eph.toeSeconds / SECONDS_PER_WEEK) * SECONDS_PER_WEEK;
+  const e = eph.eccentricity;
+  const Mk = eph.m0 + n * tk;
+  const Ek = solveKepler(Mk, e);
+  const sinE = Math.sin(Ek);
+  const cosE = Math.cos(Ek);
+  const oneMinusECosE = 1 - e * cosE;
+  const sqrt1me2 = Math.sqrt((1 - e) * (1 + e));
+  const nu = Math.atan2(sqrt1me2 * sinE, cosE - e);
+  const phi = nu + eph.argumentOfPerigee;
+  const sin2p = Math.sin(2 * phi);
+  const cos2p = Math.cos(2 * phi);
+  const du = eph.cus * sin2p + eph.cuc * cos2p;
+  const dr = eph.crs * sin2p + eph.crc * cos2p;
+  const di = eph.cis * sin2p + eph.cic * cos2p;
+  const u = phi + du;
+  const r = A * oneMinusECosE + dr;
+  const inc = eph.i0 + di + eph.idot * tk;
+
+  // Rates (d/dt of the lines above).
+  const EkDot = n / oneMinusECosE;
+  const nuDot = (EkDot * sqrt1me2) / oneMinusECosE;
+  const uDot = nuDot * (1 + 2 * (eph.cus * cos2p - eph.cuc * sin2p));
+  const rDot = A * e * sinE * EkDot + 2 * nuDot * (eph.crs * cos2p - eph.crc * sin2p);
+  const iDot = eph.idot + 2 * nuDot * (eph.cis * cos2p - eph.cic * sin2p);
+
+  const cosU = Math.cos(u);
+  const sinU = Math.sin(u);
+  const xp = r * cosU;
+  const yp = r * sinU;
+  const xpDot = rDot * cosU - r * uDot * sinU;
+  const ypDot = rDot * sinU + r * uDot * cosU;
+
+  const geo = eph.system === 'C' && isBeidouGeostationary(eph.satellite);
+  // Node longitude: Earth-fixed for the standard algorithm, inertial-like for BeiDou GEO.
+  const omegaRate = geo ? eph.omegaDot : eph.omegaDot - omegaE;
+  const Om = eph.omega0 + omegaRate * tk - omegaE * toeOfWeek;
+  const cosO = Math.cos(Om);
+  const sinO = Math.sin(Om);
+  const cosI = Math.cos(inc);
+  const sinI = Math.sin(inc);
+
+  let x = xp * cosO - yp * cosI * sinO;
+  let y = xp * sinO + yp * cosI * cosO;
+  let z = yp * sinI;
+  let vx = xpDot * cosO - ypDot * cosI * sinO + yp * sinI * iDot * sinO - omegaRate * y;
+  let vy = xpDot * sinO + ypDot * cosI * cosO - yp * sinI * iDot * cosO + omegaRate * x;
+  let vz = ypDot * sinI + yp * cosI * iDot;
+
+  if (geo) {
+    // r = R_Z(Ω̇_E t_k) R_X(−5°) r_GK; R_X(φ) = [[1,0,0],[0,cos φ,sin φ],[0,−sin φ,cos φ]],
+    // R_Z(φ) = [[cos φ, sin φ, 0],[−sin φ, cos φ, 0],[0,0,1]] (BDS-SIS-ICD §5.2.4.12 [M]).
+    const tilt = (-5 * k.pi) / 180;
+    const cx = Math.cos(tilt);
+    const sx = Math.sin(tilt);
+    const y1 = cx * y + sx * z;
+    const z1 = -sx * y + cx * z;
+    const vy1 = cx * vy + sx * vz;
+    const vz1 = -sx * vy + cx * vz;
+    const ang = omegaE * tk;
+    const cz = Math.cos(ang);
+    const sz = Math.sin(ang);
+    const x2 = cz * x + sz * y1;
+    const y2 = -sz * x + cz * y1;
+    // d/dt[R_Z(ω t) p] = R_Z(ω t) ṗ + ω·(R_Z'(ω t)) p, with R_Z' p = (−sin·px + cos·py, −cos·px − sin·py, 0).
+    const vx2 = cz * vx + sz * vy1 + omegaE * (-sz * x + cz * y1);
+    const vy2 = -sz * vx + cz * vy1 + omegaE * (-cz * x - sz * y1);
+    x = x2; y = y2; z = z1;
+    vx = vx2; vy = vy2; vz = vz1;
+  }
+
+  // IS-GPS-200 §20.3.3.3.3.1 [M]: Δt_r = F e √A sin E_k.
+  const relativisticSeconds = k.relativisticF * e * eph.sqrtA * sinE;
+  const dtc = t - eph.tocSeconds;
+  // IS-GPS-200 §20.3.3.3.3.1 [M]: a_f0 + a_f1 (t − t_oc) + a_f2 (t − t_oc)².
+  const polynomialSeconds = eph.af0 + eph.af1 * dtc + eph.af2 * dtc * dtc;
+  const position: Vector3 = [x, y, z];
+  const velocity: Vector3 = [vx, vy, vz];
+  return {
+    state: { position, velocity },
+    timeFromEphemeris: tk,
+    eccentricAnomaly: Ek,
+    relativisticSeconds,
+    polynomialSeconds,
+    clockCorrectionSeconds: polynomialSeconds + relativisticSeconds,
+  };
+}
+
+/** Options of {@link selectEphemeris}. */
+export interface EphemerisSelectionOptions {
+  /** Accept records whose health word is non-zero (default false). */
+  readonly includeUnhealthy?: boolean;
+  /** Galileo message to prefer when both I/NAV and F/NAV records exist (default `INAV`). */
+  readonly galileoMessage?: 'INAV' | 'FNAV';
+}
+
+/**
+ * Chooses the record for a satellite at time t by the usual rule (common practice, no source):
+ * among healthy records (unless `includeUnhealthy`) of the preferred message kind whose
+ * curve-fit interval covers t (|t − t_oe| ≤ fit/2), the one with the nearest t_oe; ties go to
+ * the record with t_oe ≤ t (already broadcast in real time), then to the latest transmission time,
+ * then to the highest issue of data. Galileo falls back to the other message kind only when the
+ * preferred one has no valid record.
+ *
+ * @param records  Records of one satellite (any order).
+ * @param t        Time, in scale seconds of the satellite's system.
+ * @returns The chosen record, or `undefined` when none is valid at t.
+ * @throws {InvalidArgumentError} if `t` is not finite.
+ */
+export function selectEphemeris(records: readonly KeplerianBroadcastEphemeris[], t: Seconds,
+  options: EphemerisSelectionOptions = {}): KeplerianBroadcastEphemeris | undefined {
+  requireFinite('t', t, 'a finite time in scale seconds');
+  const preferred = options.galileoMessage ?? 'INAV';
+  const pick = (filter: (r: KeplerianBroadcastEphemeris) => boolean) => {
+    let best: KeplerianBroadcastEphemeris | undefined;
+    let bestKey: number[] = [];
+    for (const r of records) {
+      if (!filter(r)) continue;
+      if (!options.includeUnhealthy && r.health !== 0) continue;
+      const d = Math.abs(t - r.toeSeconds);
+      if (d > r.fitIntervalSeconds / 2) continue;
+      const key = [d, r.toeSeconds <= t ? 0 : 1, -(r.transmissionSeconds ?? -Infinity), -r.issueOfData];
+      if (!best || compareKeys(key, bestKey) < 0) {
+        best = r;
+        bestKey = key;
+      }
+    }
+    return best;
+  };
+  const first = pick((r) => r.system !== 'E' || r.message === preferred);
+  if (first) return first;
+  return pick((r) => r.system === 'E' && r.message !== preferred);
+}
+
+function compareKeys(a: number[], b: number[]): number {
+  for (let i = 0; i < a.length; i++) {
+    const d = a[i]! - b[i]!;
+    if (d !== 0 && !Number.isNaN(d)) return d;
+  }
+  return 0;
+}
