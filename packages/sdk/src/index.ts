@@ -12,4 +12,6 @@ export * from './time/index.js';
 export * from './orbit/index.js';
 export * from './relativity/index.js';
 export * from './oscillator/index.js';
+export * from './review/index.js';
 export * from './stability/index.js';
+export * from './steering/index.js';

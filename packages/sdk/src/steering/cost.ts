@@ -1,0 +1,76 @@
+/**
+ * The expected steering cost that both planners are compared on:
+ *
+ *   J = (1/(b² H)) ∫₀^H E[x(t)²] dt + Σ_freq w_f (u/u_max)² + Σ_phase w_p (p/b)² + w_c · (number of commands)
+ *
+ * with E[x²] = m(t)² + σ(t)² (mean and open-loop variance of the steered offset), b the
+ * tolerance, H the horizon, u_max the largest frequency step. This is the finite-horizon
+ * quadratic cost of linear-quadratic-Gaussian steering (Koppang & Leland, IEEE Trans. UFFC
+ * 46(3) 517–522, 1999, physics-refs §12 [V2 abstract]) plus a per-command charge of our own.
+ * The integral is evaluated exactly: the noise-free phase is piecewise quadratic between jumps.
+ *
+ * @module
+ */
+import { phaseSquareIntegral } from './clock-math.js';
+import { stateJumps, type InternalCommand } from './predict.js';
+import type { NormalizedScenario } from './scenario.js';
+
+/** J split into its parts (all dimensionless). */
+export interface CostBreakdown {
+  /** (1/(b²H)) ∫ m² dt. */
+  meanSquare: number;
+  /** (1/(b²H)) ∫ σ² dt (the same for every schedule: commands do not change σ). */
+  variance: number;
+  /** Σ of the step and per-command charges. */
+  control: number;
+  total: number;
+}
+
+/** ∫₀^Δ (φ(s)·v)² ds for state v, φ(s) = [1, s, s²/2]. */
+function quadIntegral(v: readonly number[], delta: number): number {
+  const m = phaseSquareIntegral(delta);
+  let s = 0;
+  for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) s += v[i]! * m[i]![j]! * v[j]!;
+  return s;
+}
+
+/** Expected cost J of a schedule (see the module comment). */
+export function expectedCost(norm: NormalizedScenario, commands: readonly InternalCommand[]): CostBreakdown {
+  const jumps = stateJumps(norm, commands);
+  const h = norm.horizon;
+  const scale = 1 / (norm.bound * norm.bound * h);
+  let state = [...norm.state0];
+  let t = 0;
+  let meanSquare = 0;
+  const advance = (to: number): void => {
+    const delta = to - t;
+    if (delta > 0) {
+      meanSquare += quadIntegral(state, delta);
+      state = [state[0]! + state[1]! * delta + (state[2]! * delta * delta) / 2, state[1]! + state[2]! * delta, state[2]!];
+      t = to;
+    }
+  };
+  for (const j of jumps) {
+    if (j.t >= h) break;
+    advance(j.t);
+    state[0] += j.dx;
+    state[1] += j.dy;
+  }
+  advance(h);
+  const m = phaseSquareIntegral(h);
+  let initial = 0;
+  for (let i = 0; i < 3; i++) for (let k = 0; k < 3; k++) initial += norm.covariance0[i]![k]! * m[i]![k]!;
+  const { q1, q2, q3 } = norm.noise;
+  // ∫₀^H (q1 t + q2 t³/3 + q3 t⁵/20) dt, from the Q11 entry of Zucca & Tavella (2005).
+  const noise = (q1 * h * h) / 2 + (q2 * h ** 4) / 12 + (q3 * h ** 6) / 120;
+  let control = 0;
+  for (const c of commands) {
+    control += norm.weights.command;
+    control += c.kind === 'frequency'
+      ? norm.weights.frequencyStep * (c.amount / norm.actuator.maxStep) ** 2
+      : norm.weights.phaseStep * (c.amount / norm.bound) ** 2;
+  }
+  const meanPart = meanSquare * scale;
+  const variance = (initial + noise) * scale;
+  return { meanSquare: meanPart, variance, control, total: meanPart + variance + control };
+}

@@ -1,0 +1,79 @@
+/**
+ * Evaluating a given schedule: its expected cost and its predicted offset. Both accept the
+ * public plan commands (ISO 8601 times), so an edited schedule can be re-checked.
+ *
+ * @module
+ */
+import { InvalidArgumentError } from '../errors.js';
+import { requireFinite, requireInteger } from '../internal/validate.js';
+import { expectedCost, type CostBreakdown } from './cost.js';
+import { parseIsoUtcMs } from './iso-time.js';
+import type { SteeringCommand, SteeringPlan } from './plan.js';
+import { checkTolerance, gridTimes, meanPhaseAt, phaseSigmaAt, stateJumps, type InternalCommand } from './predict.js';
+import { validateScenario, type NormalizedScenario } from './scenario.js';
+
+/** Converts public commands to scenario time, checking each field. */
+export function commandsToInternal(norm: NormalizedScenario, commands: readonly SteeringCommand[], field = 'commands'): InternalCommand[] {
+  if (!Array.isArray(commands)) throw new InvalidArgumentError(field, commands, 'an array of steering commands');
+  return commands.map((c, i) => {
+    const f = `${field}[${i}]`;
+    if (typeof c !== 'object' || c === null) throw new InvalidArgumentError(f, c, 'a steering command object');
+    const uplinkAt = (parseIsoUtcMs(`${f}.uplinkAt`, c.uplinkAt) - norm.epochMs) / 1000;
+    const executeAt = (parseIsoUtcMs(`${f}.executeAt`, c.executeAt) - norm.epochMs) / 1000;
+    const steps = requireInteger(`${f}.actuatorSteps`, c.actuatorSteps);
+    if (c.kind === 'frequency') {
+      const amount = requireFinite(`${f}.fractionalFrequencyStep`, c.fractionalFrequencyStep);
+      return { uplinkAt, executeAt, kind: 'frequency' as const, steps, amount, reason: String(c.reason ?? '') };
+    }
+    if (c.kind === 'phase') {
+      const amount = requireFinite(`${f}.phaseStepSeconds`, c.phaseStepSeconds);
+      return { uplinkAt, executeAt, kind: 'phase' as const, steps, amount, reason: String(c.reason ?? '') };
+    }
+    throw new InvalidArgumentError(`${f}.kind`, (c as { kind?: unknown }).kind, '"frequency" or "phase"');
+  });
+}
+
+/**
+ * Expected steering cost J of a plan's schedule for a scenario:
+ * J = (1/(b²H)) ∫ (m² + σ²) dt + Σ w_f (u/u_max)² + Σ w_p (p/b)² + w_c·N (see cost.ts), the
+ * finite-horizon quadratic cost of LQG steering (Koppang & Leland 1999 [V2]) with a
+ * per-command charge of our own. Dimensionless; lower is better.
+ *
+ * @param scenario  The scenario (validated here).
+ * @param plan      A plan, or just its `commands`.
+ * @throws {InvalidArgumentError} for an invalid scenario or command field.
+ */
+export function steeringCost(scenario: unknown, plan: Pick<SteeringPlan, 'commands'>): CostBreakdown {
+  const norm = validateScenario(scenario);
+  return expectedCost(norm, commandsToInternal(norm, plan.commands, 'plan.commands'));
+}
+
+/** Predicted offset of a schedule (see `predictSteering`). */
+export interface SteeringPrediction {
+  t: number[];
+  steered: { phaseSeconds: number[]; sigmaSeconds: number[] };
+  unsteered: { phaseSeconds: number[]; sigmaSeconds: number[] };
+  /** Whether |mean| + z·σ ≤ tolerance at every checked epoch. */
+  withinTolerance: boolean;
+}
+
+/**
+ * Predicts the mean and open-loop 1σ of the offset on the scenario grid for a given schedule:
+ * m(t) from the noise-free 3-state model with the commands and manoeuvre rate changes applied,
+ * σ(t)² = φ(t)P0φ(t)ᵀ + q1 t + q2 t³/3 + q3 t⁵/20 (Zucca & Tavella 2005; physics-refs §11).
+ *
+ * @throws {InvalidArgumentError} for an invalid scenario or command field.
+ */
+export function predictSteering(scenario: unknown, commands: readonly SteeringCommand[]): SteeringPrediction {
+  const norm = validateScenario(scenario);
+  const internal = commandsToInternal(norm, commands);
+  const times = gridTimes(norm);
+  const sigma = Array.from(phaseSigmaAt(norm, times));
+  const jumps = stateJumps(norm, internal);
+  return {
+    t: times,
+    steered: { phaseSeconds: Array.from(meanPhaseAt(norm, jumps, times)), sigmaSeconds: sigma },
+    unsteered: { phaseSeconds: Array.from(meanPhaseAt(norm, stateJumps(norm, []), times)), sigmaSeconds: [...sigma] },
+    withinTolerance: checkTolerance(norm, jumps).ok,
+  };
+}

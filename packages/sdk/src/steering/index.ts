@@ -1,0 +1,20 @@
+/**
+ * Clock steering: scenario format, planners (deadband, quantised LQ), prediction and Monte
+ * Carlo evaluation.
+ *
+ * @module
+ */
+export {
+  validateScenario, noiseToDiffusion,
+  type SteeringScenario, type ContactWindow, type ClockSpec, type NoiseSpec, type StabilitySpec, type StabilityPoint,
+  type ToleranceSpec, type ActuatorSpec, type PhaseStepSpec, type ManeuverSpec, type StrategySpec,
+  type DeadbandStrategySpec, type OptimalStrategySpec, type CostWeights, type NormalizedScenario,
+} from './scenario.js';
+export {
+  planSteering, STEERING_CAUTION,
+  type SteeringPlan, type SteeringCommand, type SteeringMetrics, type PredictedSeries, type PlanOptions, type SteeringMethod,
+} from './plan.js';
+export { steeringCost, predictSteering, type SteeringPrediction } from './evaluate.js';
+export { type CostBreakdown } from './cost.js';
+export { type DiffusionCoefficients } from './clock-math.js';
+export { simulatePlan, type SimulationOptions, type SimulationSummary } from './monte-carlo.js';

@@ -1,0 +1,218 @@
+/**
+ * `planSteering`: scenario in, steering schedule out.
+ *
+ * @module
+ */
+import type { Dimensionless, Seconds } from '../units.js';
+import {
+  describeDuration, executionIntervals, feedForwardManeuvers, isoAt, ns,
+} from './constraints.js';
+import { expectedCost } from './cost.js';
+import { planDeadband, type PlannerResult } from './deadband.js';
+import { planOptimal } from './optimal.js';
+import {
+  checkTolerance, gridTimes, meanPhaseAt, phaseSigmaAt, probabilityWithin, stateJumps, type InternalCommand,
+} from './predict.js';
+import { validateScenario, type NormalizedScenario } from './scenario.js';
+import { InvalidArgumentError } from '../errors.js';
+
+/** The caution every steering plan carries. */
+export const STEERING_CAUTION =
+  'Caution: this schedule is a planning aid. Verify every command against the mission\'s own interface specification ' +
+  '(actuator units, sign convention, time-tag format) and have it confirmed by its responsible engineering authority ' +
+  'before uplink. The predicted σ is an open-loop prediction from the epoch estimate; it is not a guarantee.';
+
+/** The planning methods. `none` leaves the clock unsteered (a baseline). */
+export type SteeringMethod = 'deadband' | 'optimal' | 'none';
+
+/** One command of a plan. Times are ISO 8601 UTC. */
+export interface SteeringCommand {
+  /** When the command is sent (inside a contact window). */
+  uplinkAt: string;
+  /** When the satellite executes it (≥ uplinkAt, ≤ uplinkAt + maxTimeTagSeconds). */
+  executeAt: string;
+  kind: 'frequency' | 'phase';
+  /** Fractional frequency step (dimensionless), for `frequency` commands. */
+  fractionalFrequencyStep?: Dimensionless;
+  /** Phase step, in seconds, for `phase` commands. */
+  phaseStepSeconds?: Seconds;
+  /** The step as an integer number of actuator resolution steps. */
+  actuatorSteps: number;
+  /** Why the command is there, in plain language. */
+  reason: string;
+}
+
+/** Predicted mean and 1σ of the clock offset on the grid. */
+export interface PredictedSeries {
+  /** Mean offset (onboard clock − system time), in seconds. */
+  phaseSeconds: number[];
+  /** 1σ of the offset, in seconds (open-loop from the epoch). */
+  sigmaSeconds: number[];
+}
+
+/** A steering plan: plain JSON-serialisable data. */
+export interface SteeringPlan {
+  /** True when |mean| + z·σ ≤ tolerance at every checked epoch of the horizon. */
+  feasible: boolean;
+  /** Why the plan is infeasible (present only when `feasible` is false). */
+  reason?: string;
+  commands: SteeringCommand[];
+  predicted: {
+    /** Seconds since the scenario epoch. */
+    t: number[];
+    steered: PredictedSeries;
+    unsteered: PredictedSeries;
+  };
+  metrics: SteeringMetrics;
+  /** The caution to verify the schedule before it enters a flight configuration. */
+  caution: string;
+}
+
+export interface SteeringMetrics {
+  /** Largest |mean steered offset| on the grid, in seconds. */
+  worstPredictedOffsetSeconds: Seconds;
+  /** Largest |mean| + z·σ on the grid and at phase steps, in seconds (≤ tolerance when feasible). */
+  worstOffsetBoundSeconds: Seconds;
+  /**
+   * Smallest per-epoch probability that |offset| ≤ tolerance, Φ((b−m)/σ) − Φ((−b−m)/σ), over the
+   * grid. Per epoch, not for the whole horizon at once (see `simulatePlan` for that).
+   */
+  probabilityInTolerance: number;
+  /** Number of commands. */
+  commandCount: number;
+  /** Σ |fractional frequency steps| (dimensionless). */
+  totalFrequencySteering: Dimensionless;
+  /** Σ |phase steps|, in seconds. */
+  totalPhaseSteeringSeconds: Seconds;
+  /** Expected steering cost J (dimensionless; see `steeringCost`). */
+  expectedCost: number;
+}
+
+export interface PlanOptions {
+  /** Overrides the scenario's `strategy.method`. */
+  strategy?: SteeringMethod;
+}
+
+/** Runs the chosen planner; returns internal commands and actuator limits hit. */
+export function runPlanner(norm: NormalizedScenario, method: SteeringMethod): PlannerResult & { notes: string[] } {
+  if (method === 'none') return { commands: [], limits: [], notes: [] };
+  const ff = feedForwardManeuvers(norm);
+  const result = method === 'deadband' ? planDeadband(norm, ff.commands) : planOptimal(norm, ff.commands);
+  return { commands: result.commands, limits: [...ff.limits, ...result.limits], notes: ff.notes };
+}
+
+function diagnose(norm: NormalizedScenario, method: SteeringMethod, commands: readonly InternalCommand[],
+  limits: readonly string[], violation: { t: number; mean: number; sigma: number }): string {
+  const bound = norm.bound;
+  const pct = `${Number((norm.probability * 100).toPrecision(6))} %`;
+  // 1. Uncertainty alone: no schedule can help once z·σ ≥ b.
+  for (const t of gridTimes(norm)) {
+    const sigma = phaseSigmaAt(norm, [t])[0]!;
+    if (norm.z * sigma >= bound) {
+      return `σ alone exceeds the tolerance after ${describeDuration(t)} (at ${isoAt(norm, t)}): ` +
+        `z·σ = ${norm.z.toFixed(3)} × ${ns(sigma)} ≥ ±${ns(bound)} at ${pct}, whatever the commands. ` +
+        'The prediction from the epoch estimate cannot promise the tolerance that far ahead: re-plan from a fresh clock ' +
+        'estimate before then, shorten horizonSeconds, or relax the tolerance.';
+    }
+  }
+  const where = `|mean| + z·σ = ${ns(Math.abs(violation.mean))} + ${norm.z.toFixed(3)} × ${ns(violation.sigma)} exceeds ±${ns(bound)} ` +
+    `at ${isoAt(norm, violation.t)} (${describeDuration(violation.t)} after the epoch)`;
+  if (violation.t === 0) return `the clock is already outside the tolerance at the epoch: ${where}.`;
+  const intervals = executionIntervals(norm);
+  if (!intervals.some((iv) => iv.from <= violation.t)) {
+    return `no contact lets a command execute before the offset leaves the tolerance: ${where}.`;
+  }
+  if (limits.length > 0) return `the tolerance cannot be held with this actuator: ${limits[0]}; ${where}.`;
+  if (method === 'none') return `unsteered, ${where}.`;
+  const lastCommand = [...commands].reverse().find((c) => c.executeAt <= violation.t);
+  const gap = lastCommand ? ` (last command executes at ${isoAt(norm, lastCommand.executeAt)})` : '';
+  return `the tolerance cannot be held with these contacts and this actuator by the ${method} planner: ${where}${gap}` +
+    (method === 'deadband' ? '; try the optimal planner.' : '.');
+}
+
+function toPublic(norm: NormalizedScenario, c: InternalCommand): SteeringCommand {
+  return {
+    uplinkAt: isoAt(norm, c.uplinkAt),
+    executeAt: isoAt(norm, c.executeAt),
+    kind: c.kind,
+    ...(c.kind === 'frequency' ? { fractionalFrequencyStep: c.amount } : { phaseStepSeconds: c.amount }),
+    actuatorSteps: c.steps,
+    reason: c.reason,
+  };
+}
+
+/** Builds the public plan from validated input and internal commands. */
+export function buildPlan(norm: NormalizedScenario, method: SteeringMethod, result: PlannerResult & { notes: string[] }): SteeringPlan {
+  const commands = result.commands;
+  const jumps = stateJumps(norm, commands);
+  const check = checkTolerance(norm, jumps);
+  const times = gridTimes(norm);
+  const sigma = Array.from(phaseSigmaAt(norm, times));
+  const steered = Array.from(meanPhaseAt(norm, jumps, times));
+  const unsteered = Array.from(meanPhaseAt(norm, stateJumps(norm, []), times));
+  let worst = 0;
+  let minP = 1;
+  steered.forEach((m, i) => {
+    worst = Math.max(worst, Math.abs(m));
+    minP = Math.min(minP, probabilityWithin(m, sigma[i]!, norm.bound));
+  });
+  const plan: SteeringPlan = {
+    feasible: check.ok,
+    commands: commands.map((c) => toPublic(norm, c)),
+    predicted: {
+      t: times,
+      steered: { phaseSeconds: steered, sigmaSeconds: sigma },
+      unsteered: { phaseSeconds: unsteered, sigmaSeconds: [...sigma] },
+    },
+    metrics: {
+      worstPredictedOffsetSeconds: worst,
+      worstOffsetBoundSeconds: check.worstBound,
+      probabilityInTolerance: Math.min(minP, check.minProbability),
+      commandCount: commands.length,
+      totalFrequencySteering: commands.filter((c) => c.kind === 'frequency').reduce((s, c) => s + Math.abs(c.amount), 0),
+      totalPhaseSteeringSeconds: commands.filter((c) => c.kind === 'phase').reduce((s, c) => s + Math.abs(c.amount), 0),
+      expectedCost: expectedCost(norm, commands).total,
+    },
+    caution: STEERING_CAUTION,
+  };
+  if (!check.ok) {
+    plan.reason = diagnose(norm, method, commands, result.limits, check.firstViolation!) +
+      (result.notes.length ? ` Note: ${result.notes.join('; ')}.` : '');
+  }
+  return plan;
+}
+
+/**
+ * Plans when and by how much to steer an onboard clock so that its offset from system time
+ * stays inside the tolerance at the stated probability, using only the scenario's contacts
+ * and actuator, and compensating the relativistic rate change of planned manoeuvres.
+ *
+ * Feasibility rule (per epoch): |m(t)| + z·σ(t) ≤ b with z = Φ⁻¹((1 + p)/2), m the predicted
+ * mean steered offset and σ its open-loop standard deviation from the epoch covariance and the
+ * 3-state process noise (Zucca & Tavella 2005), checked on the grid and just before each phase
+ * step. The rule is conservative per epoch; it does not bound the probability of staying inside
+ * over the whole horizon at once (estimate that with `simulatePlan`).
+ *
+ * Strategies: `deadband` (see planDeadband), `optimal` (quantised LQ rollout, see planOptimal;
+ * Koppang & Leland 1999 as the published background), `none` (unsteered baseline).
+ *
+ * @param scenario  A scenario object (see `SteeringScenario` and schema/scenario.schema.json).
+ * @param options   `strategy` overrides the scenario's method.
+ * @returns A JSON-serialisable plan; `feasible: false` with a `reason` rather than a violating plan.
+ * @throws {InvalidArgumentError} naming the field path for any invalid scenario field.
+ * @see P. Koppang & R. Leland, IEEE Trans. UFFC 46(3) 517–522 (1999) [V2]; Metrologia 56 025007 (2019) [V2].
+ */
+export function planSteering(scenario: unknown, options: PlanOptions = {}): SteeringPlan {
+  const norm = validateScenario(scenario);
+  const method = resolveMethod(norm, options.strategy);
+  return buildPlan(norm, method, runPlanner(norm, method));
+}
+
+/** The method to use: the option if given, else the scenario's. */
+export function resolveMethod(norm: NormalizedScenario, override: unknown): SteeringMethod {
+  if (override === undefined) return norm.strategy.method;
+  if (override !== 'deadband' && override !== 'optimal' && override !== 'none') {
+    throw new InvalidArgumentError('options.strategy', override, '"deadband", "optimal" or "none"');
+  }
+  return override;
+}

@@ -1,0 +1,144 @@
+/**
+ * Prediction of the steered and unsteered clock offset: mean by exact propagation of the
+ * 3-state model with manoeuvre rate changes and commands applied, and the open-loop phase
+ * uncertainty σ(t) from the epoch covariance plus process noise.
+ *
+ * Commands are deterministic (they are fixed amounts once uplinked), so they move the mean and
+ * leave σ unchanged: σ is the uncertainty of a prediction made at the epoch with no newer clock
+ * estimate. Re-planning at a later contact with a fresh estimate would shrink it.
+ *
+ * @module
+ */
+import { normalCdf } from '../internal/special-functions.js';
+import type { Seconds } from '../units.js';
+import { phaseVariance } from './clock-math.js';
+import type { NormalizedScenario } from './scenario.js';
+
+/** A command in scenario time (seconds since the epoch). */
+export interface InternalCommand {
+  uplinkAt: Seconds;
+  executeAt: Seconds;
+  kind: 'frequency' | 'phase';
+  /** Integer number of actuator resolution steps. */
+  steps: number;
+  /** steps × resolution: fractional frequency, or seconds for a phase step. */
+  amount: number;
+  reason: string;
+}
+
+/** A jump of the clock state at time t: dy in frequency (fractional), dx in phase (s). */
+export interface StateJump {
+  t: Seconds;
+  dy: number;
+  dx: number;
+}
+
+/** Jumps caused by the scenario's manoeuvres and (optionally) commands, sorted by time. */
+export function stateJumps(norm: NormalizedScenario, commands: readonly InternalCommand[], withManeuvers = true): StateJump[] {
+  const jumps: StateJump[] = [];
+  if (withManeuvers) for (const m of norm.maneuvers) jumps.push({ t: m.t, dy: m.rateChange, dx: 0 });
+  for (const c of commands) {
+    jumps.push(c.kind === 'frequency' ? { t: c.executeAt, dy: c.amount, dx: 0 } : { t: c.executeAt, dy: 0, dx: c.amount });
+  }
+  return jumps.sort((a, b) => a.t - b.t);
+}
+
+/**
+ * Mean state [x (s), y, d (1/s)] at time t: the noise-free 3-state propagation
+ * x(t) = x0 + y0 t + d0 t²/2 + Σ dy_j (t − t_j) + Σ dx_j over jumps before t (physics-refs §11).
+ * `side` 'before' excludes jumps exactly at t, 'after' includes them.
+ */
+export function meanState(norm: NormalizedScenario, jumps: readonly StateJump[], t: Seconds,
+  side: 'before' | 'after' = 'after'): [number, number, number] {
+  const [x0, y0, d0] = norm.state0;
+  let x = x0 + y0 * t + (d0 * t * t) / 2;
+  let y = y0 + d0 * t;
+  for (const j of jumps) {
+    if (j.t > t || (side === 'before' && j.t === t)) break;
+    x += j.dy * (t - j.t) + j.dx;
+    y += j.dy;
+  }
+  return [x, y, d0];
+}
+
+/** Mean phase at sorted times (after any jump at that exact time), in O(times + jumps). */
+export function meanPhaseAt(norm: NormalizedScenario, jumps: readonly StateJump[], times: ArrayLike<number>): Float64Array {
+  const [x0, y0, d0] = norm.state0;
+  const out = new Float64Array(times.length);
+  let k = 0;
+  let sumDy = 0;
+  let sumOffset = 0; // Σ (dx_j − dy_j t_j)
+  for (let i = 0; i < times.length; i++) {
+    const t = times[i]!;
+    while (k < jumps.length && jumps[k]!.t <= t) {
+      sumDy += jumps[k]!.dy;
+      sumOffset += jumps[k]!.dx - jumps[k]!.dy * jumps[k]!.t;
+      k++;
+    }
+    out[i] = x0 + y0 * t + (d0 * t * t) / 2 + sumDy * t + sumOffset;
+  }
+  return out;
+}
+
+/** Open-loop phase standard deviation σ(t) at each time, in seconds (see {@link phaseVariance}). */
+export function phaseSigmaAt(norm: NormalizedScenario, times: ArrayLike<number>): Float64Array {
+  const out = new Float64Array(times.length);
+  for (let i = 0; i < times.length; i++) out[i] = Math.sqrt(phaseVariance(times[i]!, norm.covariance0, norm.noise));
+  return out;
+}
+
+/** The regular prediction grid 0, grid, 2·grid, ... and the horizon end. */
+export function gridTimes(norm: NormalizedScenario): number[] {
+  const n = Math.floor(norm.horizon / norm.grid + 1e-9);
+  const times: number[] = [];
+  for (let i = 0; i <= n; i++) times.push(i * norm.grid);
+  if (norm.horizon - times[times.length - 1]! > 1e-6) times.push(norm.horizon);
+  return times;
+}
+
+/**
+ * Two-sided probability that a normal offset N(m, σ²) lies in [−b, b]:
+ * P = Φ((b − m)/σ) − Φ((−b − m)/σ) (standard normal algebra, common practice, no source).
+ */
+export function probabilityWithin(mean: number, sigma: number, bound: number): number {
+  if (!(sigma > 0)) return Math.abs(mean) <= bound ? 1 : 0;
+  return Math.max(0, normalCdf((bound - mean) / sigma) - normalCdf((-bound - mean) / sigma));
+}
+
+/** Outcome of checking a schedule against the tolerance, per epoch. */
+export interface ToleranceCheck {
+  /** True when |m(t)| + z σ(t) ≤ b at every checked epoch. */
+  ok: boolean;
+  /** First checked epoch where |m| + zσ > b, with its values. */
+  firstViolation?: { t: Seconds; mean: Seconds; sigma: Seconds };
+  /** Largest |m(t)|, in seconds. */
+  worstAbsMean: Seconds;
+  /** Largest |m(t)| + z σ(t), in seconds. */
+  worstBound: Seconds;
+  /** Smallest per-epoch probability of |offset| ≤ b. */
+  minProbability: number;
+}
+
+/**
+ * Checks |m(t)| + z·σ(t) ≤ b, z = Φ⁻¹((1 + p)/2), on the grid and on both sides of every jump.
+ * This margin rule is conservative: for m ≠ 0 the exact per-epoch probability is higher than p.
+ */
+export function checkTolerance(norm: NormalizedScenario, jumps: readonly StateJump[]): ToleranceCheck {
+  const checks: { t: number; side: 'before' | 'after' }[] = gridTimes(norm).map((t) => ({ t, side: 'after' as const }));
+  for (const j of jumps) if (j.dx !== 0) checks.push({ t: j.t, side: 'before' });
+  checks.sort((a, b) => a.t - b.t);
+  const result: ToleranceCheck = { ok: true, worstAbsMean: 0, worstBound: 0, minProbability: 1 };
+  for (const c of checks) {
+    const mean = meanState(norm, jumps, c.t, c.side)[0];
+    const sigma = Math.sqrt(phaseVariance(c.t, norm.covariance0, norm.noise));
+    const boundUsed = Math.abs(mean) + norm.z * sigma;
+    result.worstAbsMean = Math.max(result.worstAbsMean, Math.abs(mean));
+    result.worstBound = Math.max(result.worstBound, boundUsed);
+    result.minProbability = Math.min(result.minProbability, probabilityWithin(mean, sigma, norm.bound));
+    if (boundUsed > norm.bound * (1 + 1e-12) && result.ok) {
+      result.ok = false;
+      result.firstViolation = { t: c.t, mean, sigma };
+    }
+  }
+  return result;
+}

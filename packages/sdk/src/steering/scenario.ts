@@ -1,0 +1,444 @@
+/**
+ * The steering scenario format (our own; JSON Schema in `schema/scenario.schema.json`) and its
+ * validation. `validateScenario` checks every field once, at the boundary, and throws an
+ * {@link InvalidArgumentError} whose `argument` is the field path (e.g. `contacts[2].end`).
+ * It returns a normalised form with all times in seconds since the scenario epoch.
+ *
+ * @module
+ */
+import { InvalidArgumentError } from '../errors.js';
+import { requireFinite, requireNonNegative, requireOrbitRadius, requirePositive } from '../internal/validate.js';
+import { normalQuantile } from '../internal/special-functions.js';
+import type { Dimensionless, Metres, PerSecond, Seconds } from '../units.js';
+import type { DiffusionCoefficients, Matrix3 } from './clock-math.js';
+import { parseIsoUtcMs } from './iso-time.js';
+import { rateChangeForSemiMajorAxisChange } from '../relativity/rate.js';
+
+/** One uplink opportunity (ISO 8601 UTC). */
+export interface ContactWindow {
+  start: string;
+  end: string;
+}
+
+/** Deviation of one noise type at one averaging time. */
+export interface StabilityPoint {
+  /** Averaging time τ, in seconds. */
+  tau: Seconds;
+  /** Deviation at τ (dimensionless): Allan deviation for the frequency noises, Hadamard for drift noise. */
+  deviation: Dimensionless;
+}
+
+/**
+ * A stability specification per noise type, converted to diffusion coefficients with the
+ * 3-state model relations of Zucca & Tavella (2005): AVAR_WFM = q1/τ, AVAR_RWFM = q2·τ/3,
+ * HVAR_RWD = 11·q3·τ³/120. Each point is the deviation that noise type alone contributes.
+ */
+export interface StabilitySpec {
+  whiteFrequency?: StabilityPoint;
+  randomWalkFrequency?: StabilityPoint;
+  randomWalkDrift?: StabilityPoint;
+}
+
+/** Clock noise: diffusion coefficients directly, or a stability spec that the SDK converts. */
+export type NoiseSpec = DiffusionCoefficients | { stability: StabilitySpec };
+
+/** The clock's estimated state at the epoch (offset from system time) and its noise. */
+export interface ClockSpec {
+  /** Onboard clock minus system time at the epoch, in seconds. */
+  phaseSeconds: Seconds;
+  /** Fractional frequency offset at the epoch (dimensionless). */
+  fractionalFrequency: Dimensionless;
+  /** Frequency drift, in 1/s (fractional frequency change per second). */
+  driftPerSecond: PerSecond;
+  /** Covariance of [phase (s), frequency (1), drift (1/s)] at the epoch; zero when omitted. */
+  covariance?: number[][];
+  noise: NoiseSpec;
+}
+
+export interface ToleranceSpec {
+  /** Symmetric bound on the steered offset, in seconds: |offset| ≤ phaseSeconds. */
+  phaseSeconds: Seconds;
+  /** Confidence the plan must meet at every epoch of the horizon, in (0, 1). */
+  probability: number;
+}
+
+export interface PhaseStepSpec {
+  allowed: boolean;
+  /** Phase-step resolution, in seconds (required when allowed). */
+  resolution?: Seconds;
+  /** Largest single phase step, in seconds (no limit when omitted). */
+  maxStep?: Seconds;
+}
+
+export interface ActuatorSpec {
+  /** Frequency-step resolution (fractional, > 0). Steps are integer multiples of it. */
+  frequencyResolution: Dimensionless;
+  /** Largest single frequency step (fractional). */
+  maxFrequencyStep: Dimensionless;
+  /** Allowed range of the cumulative frequency steering (fractional), min ≤ 0 ≤ max. */
+  cumulativeFrequencyRange: { min: Dimensionless; max: Dimensionless };
+  /** Steering already applied at the epoch (fractional); 0 when omitted. Must lie in the range. */
+  initialFrequencySteering?: Dimensionless;
+  /** Phase steps; not allowed when omitted. */
+  phaseSteps?: PhaseStepSpec;
+  /** Minimum time between the execution of two commands, in seconds. */
+  minCommandSpacingSeconds: Seconds;
+  /** Longest delay between uplink and execution of a time-tagged command, in seconds (0: immediate only). */
+  maxTimeTagSeconds: Seconds;
+}
+
+/** A planned orbit change. Semi-major axes in metres. */
+export interface ManeuverSpec {
+  at: string;
+  semiMajorAxisBefore: Metres;
+  semiMajorAxisAfter: Metres;
+}
+
+export interface DeadbandStrategySpec {
+  method: 'deadband';
+  /** Act when the predicted offset would use more than this fraction of the usable band; default 0.5. */
+  thresholdFraction?: number;
+  /** Time over which a frequency correction removes the phase offset, in seconds; default 86 400. */
+  correctionTimeSeconds?: Seconds;
+}
+
+export interface OptimalStrategySpec {
+  method: 'optimal';
+  /** Spacing of candidate execution epochs, in seconds; default max(grid, minCommandSpacing). */
+  decisionIntervalSeconds?: Seconds;
+}
+
+export type StrategySpec = DeadbandStrategySpec | OptimalStrategySpec | { method: 'none' };
+
+/** Weights of the expected steering cost (see `steeringCost`). */
+export interface CostWeights {
+  /** Weight of (step / maxFrequencyStep)² per frequency command; default 0.01. */
+  frequencyStep?: number;
+  /** Weight of (step / tolerance)² per phase command; default 0.01. */
+  phaseStep?: number;
+  /** Cost of each command; default 0.002. */
+  command?: number;
+}
+
+/** A steering scenario as written in a scenario file. */
+export interface SteeringScenario {
+  name?: string;
+  description?: string;
+  /** Epoch of the clock state and start of the horizon (ISO 8601 UTC). */
+  epoch: string;
+  horizonSeconds: Seconds;
+  /** Spacing of the prediction grid, in seconds; default 900. */
+  gridSeconds?: Seconds;
+  clock: ClockSpec;
+  tolerance: ToleranceSpec;
+  contacts: ContactWindow[];
+  actuator: ActuatorSpec;
+  maneuvers?: ManeuverSpec[];
+  strategy: StrategySpec;
+  costWeights?: CostWeights;
+}
+
+/** The scenario after validation: times in seconds since the epoch, noise as q1..q3. */
+export interface NormalizedScenario {
+  source: SteeringScenario;
+  epochMs: number;
+  horizon: Seconds;
+  grid: Seconds;
+  state0: [number, number, number];
+  covariance0: Matrix3;
+  noise: DiffusionCoefficients;
+  bound: Seconds;
+  probability: number;
+  /** Two-sided normal quantile z = Φ⁻¹((1 + p)/2). */
+  z: number;
+  windows: { start: Seconds; end: Seconds }[];
+  actuator: {
+    resolution: number;
+    maxStep: number;
+    rangeMin: number;
+    rangeMax: number;
+    initial: number;
+    phaseAllowed: boolean;
+    phaseResolution: number;
+    phaseMaxStep: number;
+    spacing: Seconds;
+    latency: Seconds;
+  };
+  maneuvers: { t: Seconds; index: number; aBefore: Metres; aAfter: Metres; rateChange: Dimensionless }[];
+  strategy: StrategySpec;
+  weights: Required<CostWeights>;
+}
+
+/** Largest horizon accepted (one year): longer open-loop predictions are meaningless. */
+const MAX_HORIZON = 366 * 86_400;
+/** Most grid points accepted, to keep planning fast. */
+const MAX_GRID_POINTS = 200_000;
+
+function requireObject(field: string, value: unknown): Record<string, unknown> {
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
+    throw new InvalidArgumentError(field, value, 'an object');
+  }
+  return value as Record<string, unknown>;
+}
+
+function requireArray(field: string, value: unknown): unknown[] {
+  if (!Array.isArray(value)) throw new InvalidArgumentError(field, value, 'an array');
+  return value;
+}
+
+function rejectUnknownKeys(field: string, obj: Record<string, unknown>, allowed: readonly string[]): void {
+  for (const key of Object.keys(obj)) {
+    if (!allowed.includes(key)) {
+      throw new InvalidArgumentError(`${field ? `${field}.` : ''}${key}`, obj[key],
+        `absent: it is not a field of this object (known fields: ${allowed.join(', ')})`);
+    }
+  }
+}
+
+/** Converts a noise spec to q1, q2, q3 (Zucca & Tavella 2005 relations, physics-refs §11). */
+export function noiseToDiffusion(noise: NoiseSpec, field = 'clock.noise'): DiffusionCoefficients {
+  const obj = requireObject(field, noise);
+  if ('stability' in obj) {
+    rejectUnknownKeys(field, obj, ['stability']);
+    const spec = requireObject(`${field}.stability`, obj['stability']);
+    rejectUnknownKeys(`${field}.stability`, spec, ['whiteFrequency', 'randomWalkFrequency', 'randomWalkDrift']);
+    const point = (name: string): { tau: number; deviation: number } | undefined => {
+      if (spec[name] === undefined) return undefined;
+      const p = requireObject(`${field}.stability.${name}`, spec[name]);
+      rejectUnknownKeys(`${field}.stability.${name}`, p, ['tau', 'deviation']);
+      return {
+        tau: requirePositive(`${field}.stability.${name}.tau`, p['tau'], 's'),
+        deviation: requireNonNegative(`${field}.stability.${name}.deviation`, p['deviation']),
+      };
+    };
+    const wf = point('whiteFrequency');
+    const rwf = point('randomWalkFrequency');
+    const rwd = point('randomWalkDrift');
+    if (!wf && !rwf && !rwd) {
+      throw new InvalidArgumentError(`${field}.stability`, spec, 'at least one of whiteFrequency, randomWalkFrequency, randomWalkDrift');
+    }
+    return {
+      // AVAR_WFM(τ) = q1/τ  ⇒ q1 = σ²τ (Zucca & Tavella 2005; physics-refs §11)
+      q1: wf ? wf.deviation ** 2 * wf.tau : 0,
+      // AVAR_RWFM(τ) = q2 τ/3  ⇒ q2 = 3σ²/τ
+      q2: rwf ? (3 * rwf.deviation ** 2) / rwf.tau : 0,
+      // HVAR_RWD(τ) = 11 q3 τ³/120  ⇒ q3 = 120σ²/(11τ³)
+      q3: rwd ? (120 * rwd.deviation ** 2) / (11 * rwd.tau ** 3) : 0,
+    };
+  }
+  rejectUnknownKeys(field, obj, ['q1', 'q2', 'q3']);
+  return {
+    q1: requireNonNegative(`${field}.q1`, obj['q1'], 's'),
+    q2: requireNonNegative(`${field}.q2`, obj['q2'], '1/s'),
+    q3: requireNonNegative(`${field}.q3`, obj['q3'], '1/s³'),
+  };
+}
+
+function validateCovariance(field: string, value: unknown): Matrix3 {
+  const rows = requireArray(field, value);
+  if (rows.length !== 3) throw new InvalidArgumentError(field, value, 'a 3×3 array of finite numbers');
+  const m: number[][] = rows.map((row, i) => {
+    const r = requireArray(`${field}[${i}]`, row);
+    if (r.length !== 3) throw new InvalidArgumentError(`${field}[${i}]`, row, 'an array of three finite numbers');
+    return r.map((v, j) => requireFinite(`${field}[${i}][${j}]`, v));
+  });
+  for (let i = 0; i < 3; i++) {
+    if (m[i]![i]! < 0) throw new InvalidArgumentError(`${field}[${i}][${i}]`, m[i]![i], 'a variance ≥ 0');
+    for (let j = 0; j < i; j++) {
+      const a = m[i]![j]!;
+      const b = m[j]![i]!;
+      if (Math.abs(a - b) > 1e-9 * Math.max(Math.abs(a), Math.abs(b))) {
+        throw new InvalidArgumentError(`${field}[${i}][${j}]`, a, `equal to ${field}[${j}][${i}] = ${b} (a covariance is symmetric)`);
+      }
+      // Cauchy–Schwarz: |c_ij| ≤ √(c_ii c_jj) for a positive semi-definite matrix.
+      if (a * a > m[i]![i]! * m[j]![j]! * (1 + 1e-9)) {
+        throw new InvalidArgumentError(`${field}[${i}][${j}]`, a,
+          `at most √(${field}[${i}][${i}]·${field}[${j}][${j}]) = ${Math.sqrt(m[i]![i]! * m[j]![j]!)} in magnitude (a covariance is positive semi-definite)`);
+      }
+    }
+  }
+  return m as Matrix3;
+}
+
+function validateStrategy(value: unknown): StrategySpec {
+  const s = requireObject('strategy', value);
+  const method = s['method'];
+  if (method === 'deadband') {
+    rejectUnknownKeys('strategy', s, ['method', 'thresholdFraction', 'correctionTimeSeconds']);
+    const out: DeadbandStrategySpec = { method };
+    if (s['thresholdFraction'] !== undefined) {
+      const f = requireFinite('strategy.thresholdFraction', s['thresholdFraction'], 'in (0, 1]');
+      if (!(f > 0 && f <= 1)) throw new InvalidArgumentError('strategy.thresholdFraction', f, 'in (0, 1]');
+      out.thresholdFraction = f;
+    }
+    if (s['correctionTimeSeconds'] !== undefined) {
+      out.correctionTimeSeconds = requirePositive('strategy.correctionTimeSeconds', s['correctionTimeSeconds'], 's');
+    }
+    return out;
+  }
+  if (method === 'optimal') {
+    rejectUnknownKeys('strategy', s, ['method', 'decisionIntervalSeconds']);
+    const out: OptimalStrategySpec = { method };
+    if (s['decisionIntervalSeconds'] !== undefined) {
+      out.decisionIntervalSeconds = requirePositive('strategy.decisionIntervalSeconds', s['decisionIntervalSeconds'], 's');
+    }
+    return out;
+  }
+  if (method === 'none') {
+    rejectUnknownKeys('strategy', s, ['method']);
+    return { method };
+  }
+  throw new InvalidArgumentError('strategy.method', method, '"deadband", "optimal" or "none"');
+}
+
+/**
+ * Validates a steering scenario and returns its normalised form.
+ *
+ * Checks: ISO 8601 UTC stamps; horizon in (0, 1 year]; grid in (0, horizon]; clock state finite,
+ * covariance symmetric positive semi-definite (Cauchy–Schwarz per pair); noise non-negative;
+ * tolerance > 0 and probability in (0, 1); contact windows sorted, non-overlapping, with
+ * start < end, all inside [epoch, epoch + horizon]; actuator resolution > 0, max step ≥
+ * resolution, range min ≤ initial ≤ max with min ≤ 0 ≤ max; phase-step resolution > 0 when
+ * allowed; spacing and time-tag ≥ 0; manoeuvres inside the horizon with semi-major axes above
+ * the Earth's radius (the relativistic rate change, (3GM/(2c²))(1/aBefore − 1/aAfter), comes from
+ * `rateChangeForSemiMajorAxisChange` of the relativity module, IERS 2010 constants).
+ *
+ * @param input  The parsed scenario file (unknown JSON).
+ * @returns The scenario with times in seconds since the epoch.
+ * @throws {InvalidArgumentError} naming the field path, the value and the expected range.
+ */
+export function validateScenario(input: unknown): NormalizedScenario {
+  const root = requireObject('scenario', input);
+  rejectUnknownKeys('', root, ['$schema', 'name', 'description', 'epoch', 'horizonSeconds', 'gridSeconds', 'clock',
+    'tolerance', 'contacts', 'actuator', 'maneuvers', 'strategy', 'costWeights']);
+  for (const key of ['name', 'description'] as const) {
+    if (root[key] !== undefined && typeof root[key] !== 'string') throw new InvalidArgumentError(key, root[key], 'a string');
+  }
+  const epochMs = parseIsoUtcMs('epoch', root['epoch']);
+  const horizon = requirePositive('horizonSeconds', root['horizonSeconds'], 's');
+  if (horizon > MAX_HORIZON) throw new InvalidArgumentError('horizonSeconds', horizon, `at most ${MAX_HORIZON} s (366 days)`);
+  const grid = root['gridSeconds'] === undefined ? Math.min(900, horizon) : requirePositive('gridSeconds', root['gridSeconds'], 's');
+  if (grid > horizon) throw new InvalidArgumentError('gridSeconds', grid, `at most horizonSeconds (${horizon} s)`);
+  if (horizon / grid > MAX_GRID_POINTS) {
+    throw new InvalidArgumentError('gridSeconds', grid, `at least horizonSeconds/${MAX_GRID_POINTS} = ${horizon / MAX_GRID_POINTS} s`);
+  }
+  const toSeconds = (field: string, text: unknown): number => (parseIsoUtcMs(field, text) - epochMs) / 1000;
+
+  const clock = requireObject('clock', root['clock']);
+  rejectUnknownKeys('clock', clock, ['phaseSeconds', 'fractionalFrequency', 'driftPerSecond', 'covariance', 'noise']);
+  const state0: [number, number, number] = [
+    requireFinite('clock.phaseSeconds', clock['phaseSeconds'], 'a finite number of seconds'),
+    requireFinite('clock.fractionalFrequency', clock['fractionalFrequency'], 'a finite fractional frequency'),
+    requireFinite('clock.driftPerSecond', clock['driftPerSecond'], 'a finite drift in 1/s'),
+  ];
+  if (Math.abs(state0[1]) >= 1e-3) {
+    throw new InvalidArgumentError('clock.fractionalFrequency', state0[1], 'a fractional frequency |y| < 1e-3',
+      'fractional frequency is dimensionless (Δf/f), not hertz');
+  }
+  const covariance0 = clock['covariance'] === undefined ? ([[0, 0, 0], [0, 0, 0], [0, 0, 0]] as Matrix3)
+    : validateCovariance('clock.covariance', clock['covariance']);
+  const noise = noiseToDiffusion(clock['noise'] as NoiseSpec, 'clock.noise');
+
+  const tol = requireObject('tolerance', root['tolerance']);
+  rejectUnknownKeys('tolerance', tol, ['phaseSeconds', 'probability']);
+  const bound = requirePositive('tolerance.phaseSeconds', tol['phaseSeconds'], 's');
+  const probability = requireFinite('tolerance.probability', tol['probability'], 'in (0, 1)');
+  if (!(probability > 0 && probability < 1)) {
+    throw new InvalidArgumentError('tolerance.probability', probability, 'in (0, 1)',
+      probability >= 1 && probability <= 100 ? 'give a fraction, e.g. 0.95, not a percentage' : undefined);
+  }
+  const z = normalQuantile((1 + probability) / 2);
+
+  const contacts = requireArray('contacts', root['contacts']);
+  const windows: { start: number; end: number }[] = [];
+  contacts.forEach((c, i) => {
+    const w = requireObject(`contacts[${i}]`, c);
+    rejectUnknownKeys(`contacts[${i}]`, w, ['start', 'end']);
+    const start = toSeconds(`contacts[${i}].start`, w['start']);
+    const end = toSeconds(`contacts[${i}].end`, w['end']);
+    if (start < 0) throw new InvalidArgumentError(`contacts[${i}].start`, w['start'], `at or after the epoch ${String(root['epoch'])} (inside the horizon)`);
+    if (!(end > start)) throw new InvalidArgumentError(`contacts[${i}].end`, w['end'], `after contacts[${i}].start (${String(w['start'])})`);
+    if (end > horizon) {
+      throw new InvalidArgumentError(`contacts[${i}].end`, w['end'], `at or before the end of the horizon (epoch + ${horizon} s)`);
+    }
+    const prev = windows[i - 1];
+    if (prev && start < prev.end) {
+      const previous = contacts[i - 1] as ContactWindow;
+      throw new InvalidArgumentError(`contacts[${i}].start`, w['start'],
+        start < prev.start ? `after contacts[${i - 1}].start (${previous.start}): windows must be sorted by time`
+          : `at or after contacts[${i - 1}].end (${previous.end}): windows must not overlap`);
+    }
+    windows.push({ start, end });
+  });
+
+  const act = requireObject('actuator', root['actuator']);
+  rejectUnknownKeys('actuator', act, ['frequencyResolution', 'maxFrequencyStep', 'cumulativeFrequencyRange',
+    'initialFrequencySteering', 'phaseSteps', 'minCommandSpacingSeconds', 'maxTimeTagSeconds']);
+  const resolution = requirePositive('actuator.frequencyResolution', act['frequencyResolution'], '(fractional)');
+  const maxStep = requirePositive('actuator.maxFrequencyStep', act['maxFrequencyStep'], '(fractional)');
+  if (maxStep < resolution) {
+    throw new InvalidArgumentError('actuator.maxFrequencyStep', maxStep, `at least actuator.frequencyResolution (${resolution})`);
+  }
+  const range = requireObject('actuator.cumulativeFrequencyRange', act['cumulativeFrequencyRange']);
+  rejectUnknownKeys('actuator.cumulativeFrequencyRange', range, ['min', 'max']);
+  const rangeMin = requireFinite('actuator.cumulativeFrequencyRange.min', range['min'], 'a fractional frequency ≤ 0');
+  const rangeMax = requireFinite('actuator.cumulativeFrequencyRange.max', range['max'], 'a fractional frequency ≥ 0');
+  if (rangeMin > 0) throw new InvalidArgumentError('actuator.cumulativeFrequencyRange.min', rangeMin, 'a fractional frequency ≤ 0');
+  if (rangeMax < 0) throw new InvalidArgumentError('actuator.cumulativeFrequencyRange.max', rangeMax, 'a fractional frequency ≥ 0');
+  const initial = act['initialFrequencySteering'] === undefined ? 0
+    : requireFinite('actuator.initialFrequencySteering', act['initialFrequencySteering']);
+  if (initial < rangeMin || initial > rangeMax) {
+    throw new InvalidArgumentError('actuator.initialFrequencySteering', initial, `inside actuator.cumulativeFrequencyRange [${rangeMin}, ${rangeMax}]`);
+  }
+  let phaseAllowed = false;
+  let phaseResolution = 0;
+  let phaseMaxStep = Infinity;
+  if (act['phaseSteps'] !== undefined) {
+    const ps = requireObject('actuator.phaseSteps', act['phaseSteps']);
+    rejectUnknownKeys('actuator.phaseSteps', ps, ['allowed', 'resolution', 'maxStep']);
+    if (typeof ps['allowed'] !== 'boolean') throw new InvalidArgumentError('actuator.phaseSteps.allowed', ps['allowed'], 'true or false');
+    phaseAllowed = ps['allowed'];
+    if (phaseAllowed || ps['resolution'] !== undefined) {
+      phaseResolution = requirePositive('actuator.phaseSteps.resolution', ps['resolution'], 's');
+    }
+    if (ps['maxStep'] !== undefined) {
+      phaseMaxStep = requirePositive('actuator.phaseSteps.maxStep', ps['maxStep'], 's');
+      if (phaseMaxStep < phaseResolution) {
+        throw new InvalidArgumentError('actuator.phaseSteps.maxStep', phaseMaxStep, `at least actuator.phaseSteps.resolution (${phaseResolution} s)`);
+      }
+    }
+  }
+  const spacing = requireNonNegative('actuator.minCommandSpacingSeconds', act['minCommandSpacingSeconds'], 's');
+  const latency = requireNonNegative('actuator.maxTimeTagSeconds', act['maxTimeTagSeconds'], 's');
+
+  const maneuvers: NormalizedScenario['maneuvers'] = [];
+  if (root['maneuvers'] !== undefined) {
+    requireArray('maneuvers', root['maneuvers']).forEach((m, i) => {
+      const o = requireObject(`maneuvers[${i}]`, m);
+      rejectUnknownKeys(`maneuvers[${i}]`, o, ['at', 'semiMajorAxisBefore', 'semiMajorAxisAfter']);
+      const t = toSeconds(`maneuvers[${i}].at`, o['at']);
+      if (t < 0 || t > horizon) throw new InvalidArgumentError(`maneuvers[${i}].at`, o['at'], `inside the horizon [epoch, epoch + ${horizon} s]`);
+      const aBefore = requireOrbitRadius(`maneuvers[${i}].semiMajorAxisBefore`, o['semiMajorAxisBefore']);
+      const aAfter = requireOrbitRadius(`maneuvers[${i}].semiMajorAxisAfter`, o['semiMajorAxisAfter']);
+      maneuvers.push({ t, index: i, aBefore, aAfter, rateChange: rateChangeForSemiMajorAxisChange(aBefore, aAfter) });
+    });
+    maneuvers.sort((a, b) => a.t - b.t || a.index - b.index);
+  }
+
+  const strategy = validateStrategy(root['strategy']);
+  const weights: Required<CostWeights> = { frequencyStep: 0.01, phaseStep: 0.01, command: 0.002 };
+  if (root['costWeights'] !== undefined) {
+    const cw = requireObject('costWeights', root['costWeights']);
+    rejectUnknownKeys('costWeights', cw, ['frequencyStep', 'phaseStep', 'command']);
+    for (const k of ['frequencyStep', 'phaseStep', 'command'] as const) {
+      if (cw[k] !== undefined) weights[k] = requireNonNegative(`costWeights.${k}`, cw[k]);
+    }
+  }
+
+  return {
+    source: input as SteeringScenario, epochMs, horizon, grid, state0, covariance0, noise, bound, probability, z,
+    windows,
+    actuator: { resolution, maxStep, rangeMin, rangeMax, initial, phaseAllowed, phaseResolution, phaseMaxStep, spacing, latency },
+    maneuvers, strategy, weights,
+  };
+}
