@@ -1,2 +1,5 @@
-// Filled in by the oscillator module work; see DEVELOPERS.md.
-export {};
+/** Oscillator frequency offsets and DDS tuning words. */
+export { type OffsetFrequency, offsetFrequency, requireFractionalOffset } from './offset.js';
+export {
+  type TuningWord, DDS_MIN_BITS, DDS_MAX_BITS, nearestTuningWord, tuningWordFrequency, fractionalResolution,
+} from './dds.js';

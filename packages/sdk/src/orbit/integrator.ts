@@ -1,0 +1,364 @@
+/**
+ * An adaptive explicit Runge–Kutta integrator for first-order ODE systems y' = f(t, y) on
+ * `Float64Array` states: the Dormand–Prince 8(5,3) pair ("DOP853") with its 7th-order dense
+ * output, written for this SDK.
+ *
+ * Method and coefficients: J. R. Dormand & P. J. Prince, "High order embedded Runge–Kutta
+ * formulae", J. Comput. Appl. Math. 7 (1981) 67–75; E. Hairer, S. P. Nørsett & G. Wanner,
+ * "Solving Ordinary Differential Equations I", 2nd ed., Springer (1993), §II.5 (the 8(5,3)
+ * pair and its error estimator), §II.6 (dense output), §II.4 (step-size control) [M for the
+ * section numbers]. The coefficient values are the published ones of that method.
+ *
+ * @module
+ */
+import { ConvergenceError, InvalidArgumentError } from '../errors.js';
+import { requireFinite, requirePositive } from '../internal/validate.js';
+
+/** Right-hand side of y' = f(t, y): writes dy/dt into `dydt` (same length as `y`); must not keep `y`. */
+export type OdeRightHandSide = (t: number, y: Float64Array, dydt: Float64Array) => void;
+
+/** Options of {@link integrateDop853}. */
+export interface Dop853Options {
+  /** Relative tolerance per component (default 1e-12). */
+  relativeTolerance?: number;
+  /** Absolute tolerance, one number for all components or one per component (default 1e-12), in the state's units. */
+  absoluteTolerance?: number | ArrayLike<number>;
+  /** First trial step, in the unit of t; chosen automatically (Hairer's starting-step algorithm) when omitted. */
+  initialStep?: number;
+  /** Largest step allowed, in the unit of t (default: the whole span). */
+  maxStep?: number;
+  /** Limit on accepted + rejected steps before a {@link ConvergenceError} (default 1 000 000). */
+  maxSteps?: number;
+  /**
+   * Times at which to return the state (strictly increasing, within [t0, tEnd]), evaluated by the
+   * dense output; the result's `samples` holds them row by row.
+   */
+  sampleTimes?: ArrayLike<number>;
+  /** Keep every step's dense-output polynomial so `result.evaluate(t)` works anywhere (default false). */
+  keepDenseOutput?: boolean;
+  /** Called after each accepted step with its end time and state; may throw to stop the integration. */
+  onStep?: (t: number, y: Float64Array) => void;
+}
+
+/** Outcome of {@link integrateDop853}. */
+export interface Dop853Result {
+  /** State at tEnd. */
+  readonly finalState: Float64Array;
+  /** `sampleTimes.length × n` states at the requested sample times, row-major (empty when none asked). */
+  readonly samples: Float64Array;
+  readonly acceptedSteps: number;
+  readonly rejectedSteps: number;
+  readonly functionEvaluations: number;
+  /**
+   * Dense-output state at any t in [t0, tEnd] (only with `keepDenseOutput`), 7th-order interpolant.
+   * @throws {InvalidArgumentError} if t is outside the integrated span or dense output was not kept.
+   */
+  evaluate(t: number, out?: Float64Array): Float64Array;
+}
+
+// Dormand & Prince (1981) 8(5,3) coefficients, as published (Hairer, Nørsett & Wanner 1993, §II.5; the
+// three extra stages 14–16 and the matrix D are the dense-output extension of §II.6).
+const C: readonly number[] = [0.0, 0.05260015195876773, 0.0789002279381516, 0.1183503419072274, 0.2816496580927726, 0.3333333333333333, 0.25, 0.3076923076923077, 0.6512820512820513, 0.6, 0.8571428571428571, 1.0, 1.0, 0.1, 0.2, 0.7777777777777778];
+const A: readonly (readonly number[])[] = [
+  [],
+  [0.05260015195876773],
+  [0.0197250569845379, 0.0591751709536137],
+  [0.02958758547680685, 0.0, 0.08876275643042054],
+  [0.2413651341592667, 0.0, -0.8845494793282861, 0.924834003261792],
+  [0.037037037037037035, 0.0, 0.0, 0.17082860872947386, 0.12546768756682242],
+  [0.037109375, 0.0, 0.0, 0.17025221101954405, 0.06021653898045596, -0.017578125],
+  [0.03709200011850479, 0.0, 0.0, 0.17038392571223998, 0.10726203044637328, -0.015319437748624402, 0.008273789163814023],
+  [0.6241109587160757, 0.0, 0.0, -3.3608926294469414, -0.868219346841726, 27.59209969944671, 20.154067550477894, -43.48988418106996],
+  [0.47766253643826434, 0.0, 0.0, -2.4881146199716677, -0.590290826836843, 21.230051448181193, 15.279233632882423, -33.28821096898486, -0.020331201708508627],
+  [-0.9371424300859873, 0.0, 0.0, 5.186372428844064, 1.0914373489967295, -8.149787010746927, -18.52006565999696, 22.739487099350505, 2.4936055526796523, -3.0467644718982196],
+  [2.273310147516538, 0.0, 0.0, -10.53449546673725, -2.0008720582248625, -17.9589318631188, 27.94888452941996, -2.8589982771350235, -8.87285693353063, 12.360567175794303, 0.6433927460157636],
+  [0.054293734116568765, 0.0, 0.0, 0.0, 0.0, 4.450312892752409, 1.8915178993145003, -5.801203960010585, 0.3111643669578199, -0.1521609496625161, 0.20136540080403034, 0.04471061572777259],
+  [0.056167502283047954, 0.0, 0.0, 0.0, 0.0, 0.0, 0.25350021021662483, -0.2462390374708025, -0.12419142326381637, 0.15329179827876568, 0.00820105229563469, 0.007567897660545699, -0.008298],
+  [0.03183464816350214, 0.0, 0.0, 0.0, 0.0, 0.028300909672366776, 0.053541988307438566, -0.05492374857139099, 0.0, 0.0, -0.00010834732869724932, 0.0003825710908356584, -0.00034046500868740456, 0.1413124436746325],
+  [-0.42889630158379194, 0.0, 0.0, 0.0, 0.0, -4.697621415361164, 7.683421196062599, 4.06898981839711, 0.3567271874552811, 0.0, 0.0, 0.0, -0.0013990241651590145, 2.9475147891527724, -9.15095847217987],
+];
+const B: readonly number[] = [0.054293734116568765, 0.0, 0.0, 0.0, 0.0, 4.450312892752409, 1.8915178993145003, -5.801203960010585, 0.3111643669578199, -0.1521609496625161, 0.20136540080403034, 0.04471061572777259];
+const E3: readonly number[] = [-0.18980075407240762, 0.0, 0.0, 0.0, 0.0, 4.450312892752409, 1.8915178993145003, -5.801203960010585, -0.4226823213237919, -0.1521609496625161, 0.20136540080403034, 0.02265179219836082, 0.0];
+const E5: readonly number[] = [0.01312004499419488, 0.0, 0.0, 0.0, 0.0, -1.2251564463762044, -0.4957589496572502, 1.6643771824549864, -0.35032884874997366, 0.3341791187130175, 0.08192320648511571, -0.022355307863886294, 0.0];
+const D: readonly (readonly number[])[] = [
+  [-8.428938276109013, 0.0, 0.0, 0.0, 0.0, 0.5667149535193777, -3.0689499459498917, 2.38466765651207, 2.117034582445028, -0.871391583777973, 2.2404374302607883, 0.6315787787694688, -0.08899033645133331, 18.148505520854727, -9.194632392478356, -4.436036387594894],
+  [10.427508642579134, 0.0, 0.0, 0.0, 0.0, 242.28349177525817, 165.20045171727028, -374.5467547226902, -22.113666853125306, 7.733432668472264, -30.674084731089398, -9.332130526430229, 15.697238121770845, -31.139403219565178, -9.35292435884448, 35.81684148639408],
+  [19.985053242002433, 0.0, 0.0, 0.0, 0.0, -387.0373087493518, -189.17813819516758, 527.8081592054236, -11.57390253995963, 6.8812326946963, -1.0006050966910838, 0.7777137798053443, -2.778205752353508, -60.19669523126412, 84.32040550667716, 11.99229113618279],
+  [-25.69393346270375, 0.0, 0.0, 0.0, 0.0, -154.18974869023643, -231.5293791760455, 357.6391179106141, 93.40532418362432, -37.45832313645163, 104.0996495089623, 29.8402934266605, -43.53345659001114, 96.32455395918828, -39.17726167561544, -149.72683625798564],
+];
+
+/** Number of stages of the 8th-order step (the 13th is f at the new point, reused by the next step). */
+const N_STAGES = 12;
+/** Order used in the step-size exponent: the error estimate behaves like h⁸ (Hairer et al. 1993, §II.4). */
+const ERROR_EXPONENT = 1 / 8;
+const SAFETY = 0.9;
+const MIN_FACTOR = 0.2;
+const MAX_FACTOR = 10;
+
+interface Segment { t0: number; h: number; y0: Float64Array; F: Float64Array }
+
+/**
+ * Integrates y' = f(t, y) from t0 to tEnd (tEnd > t0) with the Dormand–Prince 8(5,3) pair and
+ * adaptive step size; the state can be sampled at given times through the 7th-order dense output.
+ *
+ * Error control (Hairer et al. 1993, §II.10, DOP853): per component the scale is
+ * atol_i + rtol·max(|y_i|, |y_new,i|); the step is accepted when the combined 5th/3rd-order
+ * estimate err = |h|·‖e5‖²/√(n·(‖e5‖² + 0.01‖e3‖²)) ≤ 1, and the next step is h·clamp(0.9·err^(−1/8), 0.2, 10).
+ *
+ * Accuracy: the global error is typically a small multiple of the tolerances; verify by halving
+ * them (the SDK's own tests do this for orbit + clock integrations).
+ *
+ * @param f     Right-hand side, writing dy/dt into its third argument.
+ * @param t0    Start time (any unit, typically seconds).
+ * @param y0    Initial state (not modified).
+ * @param tEnd  End time, greater than t0.
+ * @param options Tolerances, sampling and step limits.
+ * @returns Final state, samples, step statistics and (optionally) a dense-output evaluator.
+ * @throws {InvalidArgumentError} for a non-finite y0, tEnd ≤ t0, bad tolerances or sample times.
+ * @throws {ConvergenceError} if the step size collapses, the state becomes non-finite, or maxSteps is exceeded.
+ * @see E. Hairer, S. P. Nørsett, G. Wanner, Solving Ordinary Differential Equations I, 2nd ed. (1993), §II.5, §II.6, §II.10.
+ */
+export function integrateDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<number>, tEnd: number,
+  options: Dop853Options = {}): Dop853Result {
+  requireFinite('t0', t0);
+  requireFinite('tEnd', tEnd);
+  if (!(tEnd > t0)) throw new InvalidArgumentError('tEnd', tEnd, `greater than t0 = ${t0}`);
+  const n = y0.length;
+  if (n === 0) throw new InvalidArgumentError('y0', y0, 'a state with at least one component');
+  const y = new Float64Array(n);
+  for (let i = 0; i < n; i++) y[i] = requireFinite(`y0[${i}]`, y0[i]);
+  const rtol = requirePositive('relativeTolerance', options.relativeTolerance ?? 1e-12);
+  if (rtol < 1e-15) throw new InvalidArgumentError('relativeTolerance', rtol, '≥ 1e-15 (below that, rounding error dominates)');
+  const atol = new Float64Array(n);
+  const atolIn = options.absoluteTolerance ?? 1e-12;
+  if (typeof atolIn === 'number') {
+    requirePositive('absoluteTolerance', atolIn);
+    atol.fill(atolIn);
+  } else {
+    if (atolIn.length !== n) throw new InvalidArgumentError('absoluteTolerance', atolIn, `one value per state component (${n})`);
+    for (let i = 0; i < n; i++) atol[i] = requirePositive(`absoluteTolerance[${i}]`, atolIn[i]);
+  }
+  const span = tEnd - t0;
+  const maxStep = options.maxStep === undefined ? span : requirePositive('maxStep', options.maxStep);
+  const maxSteps = options.maxSteps ?? 1_000_000;
+  if (!Number.isInteger(maxSteps) || maxSteps < 1) throw new InvalidArgumentError('maxSteps', maxSteps, 'a positive integer');
+  const sampleTimes = options.sampleTimes ?? [];
+  for (let k = 0; k < sampleTimes.length; k++) {
+    const s = requireFinite(`sampleTimes[${k}]`, sampleTimes[k]);
+    if (s < t0 || s > tEnd) throw new InvalidArgumentError(`sampleTimes[${k}]`, s, `within [${t0}, ${tEnd}]`);
+    if (k > 0 && !(s > (sampleTimes[k - 1] as number))) {
+      throw new InvalidArgumentError(`sampleTimes[${k}]`, s, `greater than sampleTimes[${k - 1}] (strictly increasing)`);
+    }
+  }
+  const samples = new Float64Array(sampleTimes.length * n);
+  const keep = options.keepDenseOutput ?? false;
+  const segments: Segment[] = [];
+
+  // Stage storage: K[0..15]; K[12] holds f(t + h, y_new).
+  const K: Float64Array[] = Array.from({ length: 16 }, () => new Float64Array(n));
+  const yStage = new Float64Array(n);
+  const yNew = new Float64Array(n);
+  const fNew = new Float64Array(n);
+  let nfev = 0;
+  const call = (t: number, state: Float64Array, out: Float64Array): void => {
+    f(t, state, out);
+    nfev++;
+  };
+
+  let t = t0;
+  call(t, y, K[0]!);
+  checkFinite(K[0]!, t, 'dy/dt at the initial state');
+  let h = options.initialStep !== undefined ? requirePositive('initialStep', options.initialStep)
+    : startingStep(call, t, y, K[0]!, atol, rtol, span, n);
+  h = Math.min(h, maxStep, span);
+  let accepted = 0;
+  let rejected = 0;
+  let nextSample = 0;
+  // Samples at exactly t0.
+  while (nextSample < sampleTimes.length && (sampleTimes[nextSample] as number) === t0) {
+    samples.set(y, nextSample * n);
+    nextSample++;
+  }
+  let rejectedLast = false;
+  const F = new Float64Array(7 * n);
+
+  while (t < tEnd) {
+    if (accepted + rejected >= maxSteps) throw new ConvergenceError(`DOP853 integration to t = ${tEnd}`, accepted + rejected, tEnd - t);
+    const minStep = 10 * Math.abs(Math.max(Math.abs(t), Math.abs(tEnd))) * Number.EPSILON;
+    if (h < minStep) throw new ConvergenceError(`DOP853 step size at t = ${t} (step ${h} below the rounding limit)`, accepted + rejected, h);
+    let last = false;
+    if (t + h >= tEnd || tEnd - (t + h) < minStep) {
+      h = tEnd - t;
+      last = true;
+    }
+    // Stages 2..12.
+    for (let s = 1; s < N_STAGES; s++) {
+      const a = A[s]!;
+      for (let i = 0; i < n; i++) {
+        let acc = 0;
+        for (let j = 0; j < s; j++) acc += a[j]! * K[j]![i]!;
+        yStage[i] = y[i]! + h * acc;
+      }
+      call(t + C[s]! * h, yStage, K[s]!);
+    }
+    for (let i = 0; i < n; i++) {
+      let acc = 0;
+      for (let j = 0; j < N_STAGES; j++) acc += B[j]! * K[j]![i]!;
+      yNew[i] = y[i]! + h * acc;
+    }
+    const tNew = last ? tEnd : t + h;
+    call(tNew, yNew, fNew);
+    K[12]!.set(fNew);
+    // Error estimate (Hairer et al. 1993, §II.10, DOP853 "err5/err3" norm).
+    let e5sq = 0;
+    let e3sq = 0;
+    let finite = true;
+    for (let i = 0; i < n; i++) {
+      if (!Number.isFinite(yNew[i]!) || !Number.isFinite(fNew[i]!)) finite = false;
+      const sc = atol[i]! + rtol * Math.max(Math.abs(y[i]!), Math.abs(yNew[i]!));
+      let e5 = 0;
+      let e3 = 0;
+      for (let j = 0; j <= N_STAGES; j++) {
+        e5 += E5[j]! * K[j]![i]!;
+        e3 += E3[j]! * K[j]![i]!;
+      }
+      e5 /= sc;
+      e3 /= sc;
+      e5sq += e5 * e5;
+      e3sq += e3 * e3;
+    }
+    let err = 0;
+    if (e5sq > 0 || e3sq > 0) err = (h * e5sq) / Math.sqrt(n * (e5sq + 0.01 * e3sq));
+    if (!finite || !Number.isFinite(err)) {
+      // A non-finite trial point: retry with a much smaller step before giving up.
+      rejected++;
+      rejectedLast = true;
+      h *= MIN_FACTOR;
+      if (h < minStep) throw new ConvergenceError(`DOP853 integration at t = ${t}: the state became non-finite`, accepted + rejected, Number.NaN);
+      continue;
+    }
+    if (err > 1) {
+      rejected++;
+      rejectedLast = true;
+      h *= Math.max(MIN_FACTOR, SAFETY * err ** -ERROR_EXPONENT);
+      continue;
+    }
+    // Accepted. Dense output when needed (Hairer et al. 1993, §II.6): three extra stages.
+    const needDense = keep || (nextSample < sampleTimes.length && (sampleTimes[nextSample] as number) <= tNew);
+    if (needDense) {
+      for (let s = 13; s < 16; s++) {
+        const a = A[s]!;
+        for (let i = 0; i < n; i++) {
+          let acc = 0;
+          for (let j = 0; j < s; j++) acc += a[j]! * K[j]![i]!;
+          yStage[i] = y[i]! + h * acc;
+        }
+        call(t + C[s]! * h, yStage, K[s]!);
+      }
+      for (let i = 0; i < n; i++) {
+        const dy = yNew[i]! - y[i]!;
+        F[i] = dy;
+        F[n + i] = h * K[0]![i]! - dy;
+        F[2 * n + i] = 2 * dy - h * (fNew[i]! + K[0]![i]!);
+        for (let r = 0; r < 4; r++) {
+          const d = D[r]!;
+          let acc = 0;
+          for (let j = 0; j < 16; j++) acc += d[j]! * K[j]![i]!;
+          F[(3 + r) * n + i] = h * acc;
+        }
+      }
+      while (nextSample < sampleTimes.length && (sampleTimes[nextSample] as number) <= tNew) {
+        const x = ((sampleTimes[nextSample] as number) - t) / h;
+        denseEvaluate(y, F, x, n, samples, nextSample * n);
+        nextSample++;
+      }
+      if (keep) segments.push({ t0: t, h, y0: Float64Array.from(y), F: Float64Array.from(F) });
+    }
+    t = tNew;
+    y.set(yNew);
+    K[0]!.set(fNew);
+    accepted++;
+    options.onStep?.(t, y);
+    const factor = Math.min(MAX_FACTOR, Math.max(MIN_FACTOR, SAFETY * (err === 0 ? Infinity : err ** -ERROR_EXPONENT)));
+    h = Math.min(maxStep, h * (rejectedLast ? Math.min(1, factor) : factor));
+    rejectedLast = false;
+  }
+  // Samples exactly at tEnd that rounding may have left.
+  while (nextSample < sampleTimes.length) {
+    samples.set(y, nextSample * n);
+    nextSample++;
+  }
+
+  const finalState = Float64Array.from(y);
+  return {
+    finalState,
+    samples,
+    acceptedSteps: accepted,
+    rejectedSteps: rejected,
+    functionEvaluations: nfev,
+    evaluate(time: number, out: Float64Array = new Float64Array(n)): Float64Array {
+      if (!keep) throw new InvalidArgumentError('keepDenseOutput', false, 'true to evaluate the solution between steps');
+      requireFinite('t', time);
+      if (time < t0 || time > tEnd) throw new InvalidArgumentError('t', time, `within the integrated span [${t0}, ${tEnd}]`);
+      let lo = 0;
+      let hi = segments.length - 1;
+      while (lo < hi) {
+        const mid = (lo + hi + 1) >> 1;
+        if (segments[mid]!.t0 <= time) lo = mid;
+        else hi = mid - 1;
+      }
+      const seg = segments[lo]!;
+      denseEvaluate(seg.y0, seg.F, (time - seg.t0) / seg.h, n, out, 0);
+      return out;
+    },
+  };
+}
+
+/** DOP853 continuous extension: y(t0 + x·h) = y0 + x(F0 + (1−x)(F1 + x(F2 + (1−x)(F3 + x(F4 + (1−x)(F5 + x·F6)))))) (Hairer et al. 1993, §II.6). */
+function denseEvaluate(y0: Float64Array, F: Float64Array, x: number, n: number, out: Float64Array, offset: number): void {
+  const x1 = 1 - x;
+  for (let i = 0; i < n; i++) {
+    let acc = F[6 * n + i]!;
+    acc = F[5 * n + i]! + x * acc;
+    acc = F[4 * n + i]! + x1 * acc;
+    acc = F[3 * n + i]! + x * acc;
+    acc = F[2 * n + i]! + x1 * acc;
+    acc = F[n + i]! + x * acc;
+    acc = F[i]! + x1 * acc;
+    out[offset + i] = y0[i]! + x * acc;
+  }
+}
+
+/** Starting step size (Hairer, Nørsett & Wanner 1993, §II.4, "Starting step size" algorithm). */
+function startingStep(call: (t: number, y: Float64Array, out: Float64Array) => void, t: number, y: Float64Array,
+  f0: Float64Array, atol: Float64Array, rtol: number, span: number, n: number): number {
+  let d0 = 0;
+  let d1 = 0;
+  for (let i = 0; i < n; i++) {
+    const sc = atol[i]! + rtol * Math.abs(y[i]!);
+    d0 += (y[i]! / sc) ** 2;
+    d1 += (f0[i]! / sc) ** 2;
+  }
+  d0 = Math.sqrt(d0 / n);
+  d1 = Math.sqrt(d1 / n);
+  let h0 = d0 < 1e-5 || d1 < 1e-5 ? 1e-6 : 0.01 * (d0 / d1);
+  h0 = Math.min(h0, span);
+  const y1 = new Float64Array(n);
+  const f1 = new Float64Array(n);
+  for (let i = 0; i < n; i++) y1[i] = y[i]! + h0 * f0[i]!;
+  call(t + h0, y1, f1);
+  let d2 = 0;
+  for (let i = 0; i < n; i++) {
+    const sc = atol[i]! + rtol * Math.abs(y[i]!);
+    d2 += ((f1[i]! - f0[i]!) / sc) ** 2;
+  }
+  d2 = Math.sqrt(d2 / n) / h0;
+  const h1 = Math.max(d1, d2) <= 1e-15 ? Math.max(1e-6, h0 * 1e-3) : (0.01 / Math.max(d1, d2)) ** ERROR_EXPONENT;
+  return Math.min(100 * h0, h1);
+}
+
+function checkFinite(v: Float64Array, t: number, what: string): void {
+  for (let i = 0; i < v.length; i++) {
+    if (!Number.isFinite(v[i]!)) throw new InvalidArgumentError(`${what}[${i}]`, v[i], `finite at t = ${t} (the right-hand side returned a non-finite value)`);
+  }
+}
