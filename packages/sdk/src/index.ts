@@ -15,3 +15,4 @@ export * from './oscillator/index.js';
 export * from './review/index.js';
 export * from './stability/index.js';
 export * from './steering/index.js';
+export * from './signal/index.js';

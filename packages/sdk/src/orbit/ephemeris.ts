@@ -9,15 +9,15 @@
  * centre terms; the lunar series keeps the largest terms of Brown's theory (14 in longitude,
  * 8 in latitude, 9 in distance). Montenbruck & Gill quote an accuracy of about 0.1–1 % for
  * both bodies [M]; our own check against two worked examples of J. Meeus, "Astronomical
- * Algorithms" (2nd ed., 1998), Examples 25.a and 47.a [M], gives < 0.01° for the Sun and
- * < 0.1° / < 100 km for the Moon (see the SDK tests). For the tidal clock potential at GNSS
+ * Algorithms" (2nd ed., 1998), Examples 25.a and 47.a [M], gives < 0.03° for the Sun and
+ * < 0.01° / < 100 km for the Moon (see the SDK tests). For the tidal clock potential at GNSS
  * altitudes (≈ 1e-15 of frequency) that accuracy gives errors below 1e-17.
  *
  * Time argument: TT, in seconds since J2000.0 (2000-01-01 12:00:00 TT, JD 2451545.0).
  *
  * @module
  */
-import type { Metres, Seconds, Vector3 } from '../units.js';
+import type { Seconds, Vector3 } from '../units.js';
 import { requireFinite } from '../internal/validate.js';
 import { InvalidArgumentError } from '../errors.js';
 
@@ -108,7 +108,7 @@ export function moonPositionAtCenturies(T: number, ofDate: boolean): Vector3 {
  * @param ttSecondsSinceJ2000 Epoch, TT seconds since J2000.0.
  * @param frame Output frame (default `mean-of-date`).
  * @returns Position in metres.
- * Validity: a few centuries around 2000; accuracy ≈ 0.01° in direction and ≈ 1e-4 in distance (our check, [C]).
+ * Validity: a few centuries around 2000; accuracy ≈ 0.03° in direction and ≈ 1e-5 in distance (our check against Meeus Example 25.a [M]).
  * @throws {InvalidArgumentError} for a non-finite epoch or an unknown frame.
  * @see O. Montenbruck & E. Gill, Satellite Orbits (2000), §3.3.2, eqs. (3.43)–(3.44) [M].
  */
@@ -139,8 +139,3 @@ export function moonPositionLowPrecision(ttSecondsSinceJ2000: Seconds, frame: Ep
 
 /** Name of the ephemeris model, for reports. */
 export const LOW_PRECISION_EPHEMERIS_NAME = 'Montenbruck & Gill (2000) §3.3.2 low-precision Sun/Moon series';
-
-/** Convenience: distance of a Vector3 from the origin, in metres. */
-export function norm3(v: Vector3): Metres {
-  return Math.hypot(v[0], v[1], v[2]);
-}

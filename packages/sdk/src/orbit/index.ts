@@ -13,3 +13,11 @@ export {
   type EphemerisSelectionOptions, systemConstants, defaultFitIntervalSeconds, weekCrossover,
   isBeidouGeostationary, evaluateBroadcastEphemeris, selectEphemeris,
 } from './broadcast.js';
+export { type OdeRightHandSide, type Dop853Options, type Dop853Result, integrateDop853 } from './integrator.js';
+export {
+  type GravityModel, type GravityField, type GravityFieldOptions, GRAVITY_MODELS, GM_MOON, GM_SUN, createGravityField,
+  pointMassPotential, j2Potential, thirdBodyTidalPotential, thirdBodyAcceleration,
+} from './forces.js';
+export {
+  type EphemerisFrame, LOW_PRECISION_EPHEMERIS_NAME, sunPositionLowPrecision, moonPositionLowPrecision,
+} from './ephemeris.js';

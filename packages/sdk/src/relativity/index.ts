@@ -12,3 +12,19 @@ export {
   DEFAULT_LAGRANGE_POINTS, lagrangeDerivativeAtNode, lagrangeInterpolate, PreciseCorrectionStream,
   preciseRelativisticCorrections,
 } from './precise.js';
+export {
+  type ProperTimeOptions, type ProperTimeResult, MAX_PROPER_TIME_SAMPLES, integrateProperTime, properTimeSampleState,
+} from './proper-time.js';
+export {
+  type J2PeriodicAmplitudes, type SemiMajorAxisKind, type J2RateBreakdown, j2ResidualPeriodicTerm, j2TotalPeriodicTerm,
+  j2PeriodicAmplitudes, osculatingMinusMeanSemiMajorAxis, j2SecularClockRate, j2SecularClockRateFromState,
+} from './j2.js';
+export {
+  type ReferenceEllipsoid, type GroundClockRate, type LunarClockLocation, type LunarClockRate, GRS80_ELLIPSOID,
+  WGS84_ELLIPSOID, MOON_SEMI_MAJOR_AXIS, MOON_MEAN_RADIUS, MOON_SIDEREAL_ROTATION_PERIOD, normalGravityPotential,
+  normalGravity, groundClockRate, tcgRateVsTT, lunarClockRate,
+} from './reference-clocks.js';
+export {
+  type J2TermKind, periodicCorrectionFromElementsBatch, periodicCorrectionFromStatesBatch, j2PeriodicTermBatch,
+  j2PeriodicTermFromStatesBatch,
+} from './batch.js';
