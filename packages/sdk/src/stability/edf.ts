@@ -65,8 +65,11 @@ export function overlappingAllanEdf(noise: NoiseType, phasePoints: number, m: nu
  * constant factor, such that Cov(Σ a_k x_k, Σ b_l x_l) = Σ a_k b_l G(k − l) whenever the filters
  * remove polynomials of the needed degree. WPM: Kronecker δ; FPM: −ln|t| with G(0) = 1.7218
  * (matched to the band-limited FPM Allan variance [1.038 + 3 ln(2π f_h τ)] with f_h = 1/(2τ0),
- * IEEE Std 1139 / NIST SP 1065 Table 7 [M]); WFM: −|t|; FFM: t² ln|t|; RWFM: |t|³ (intrinsic
- * random functions, common practice, no single source).
+ * IEEE Std 1139 / NIST SP 1065 Table 7 [M]); WFM: −|t| (x a discrete random walk); FFM: t² ln|t|
+ * (sampled continuous model); RWFM: |t|³ − |t| (x the running sum of a discrete random walk y, so
+ * that at m = 1 the overlapping Allan terms are independent, as in the Howe–Allan–Barnes edf).
+ * Generalised covariances of intrinsic random functions: common practice, no single source; each
+ * was checked by the vanishing lag-1 and lag-2 correlations it implies [C].
  */
 function autocovariance(noise: NoiseType, t: number): number {
   const a = Math.abs(t);
@@ -75,7 +78,7 @@ function autocovariance(noise: NoiseType, t: number): number {
     case 'FPM': return a === 0 ? FPM_G0 : -Math.log(a);
     case 'WFM': return -a;
     case 'FFM': return a === 0 ? 0 : a * a * Math.log(a);
-    case 'RWFM': return a * a * a;
+    case 'RWFM': return a * a * a - a;
   }
 }
 
@@ -118,8 +121,10 @@ function lagCovariance(noise: NoiseType, offsets: Float64Array, w: Float64Array,
  * Gaussian power-law phase noise: edf = n² ρ(0)² / Σ_{j,k} ρ(j − k)² (the quadratic-form route of
  * Greenhall & Riley 2003). Lags up to 4096 are summed exactly, further ones in blocks of d/256
  * lags evaluated at the block centre (relative error < 1e-3).
+ *
+ * @internal exported for tests
  */
-function quadraticFormEdf(noise: NoiseType, positions: readonly number[], weights: readonly number[], step: number, n: number): number {
+export function quadraticFormEdf(noise: NoiseType, positions: readonly number[], weights: readonly number[], step: number, n: number): number {
   const { offsets, w, span } = filterAutocorrelation(positions, weights);
   const rho0 = lagCovariance(noise, offsets, w, span, 0);
   let denom = n * rho0 * rho0;

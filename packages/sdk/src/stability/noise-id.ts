@@ -93,6 +93,6 @@ export function identifyNoiseAt(series: PhaseSeries, seg: Int32Array | null, m: 
     d++;
   }
   const alphaEstimate = 2 - 2 * (delta + d);
-  const alpha = Math.max(-2, Math.min(2, Math.round(alphaEstimate)));
+  const alpha = Math.max(-2, Math.min(2, Math.round(alphaEstimate))) + 0; // + 0 turns −0 into 0
   return { tau: m * series.tau0, m, alphaEstimate, alpha, noise: noiseForAlpha(alpha), r1, differences: d, points };
 }
