@@ -55,7 +55,7 @@ export interface CalendarDateTimeInput {
 export interface SplitDays {
   /** Integer part (the day number), e.g. the MJD of the date. */
   readonly day: number;
-  /** Fraction of the day, in [0, 1). */
+  /** Fraction of the day, in [0, 1); resolution 2⁻⁵³ day ≈ 1e-11 s. */
   readonly fraction: number;
   /**
    * `day + fraction` as one double, for convenience: resolution ≈ 1e-11 day (≈ 0.6 µs) for an
@@ -315,6 +315,10 @@ export function createTimeScales(table: LeapSecondTable): TimeScales {
       }
     }
     const label: Label = { day: mjd, secondOfDay: utcMinuteOfDay * 60 + secondWhole, fraction: raw.secondFraction };
+    if (scale === 'UTC' && label.secondOfDay >= 86_399 && mjd >= firstMjd && mjd < validUntilMjd && label.secondOfDay >= utcDayLength(mjd)) {
+      throw new InvalidArgumentError(`${prefix}.second`, secondWhole, 'a second that exists on this UTC day',
+        `the table "${leapSeconds.source}" removes the last second of ${isoDateOfMjd(mjd)} (a negative leap second)`);
+    }
     return instantOfLabel(scale, label, prefix, received);
   };
 
