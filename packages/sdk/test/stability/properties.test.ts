@@ -60,7 +60,7 @@ describe('stability invariants (fast-check, seed 20261202)', () => {
 });
 
 describe('white phase noise (seeded simulation)', () => {
-  it('analyzeStability(white PM) gives OADEV ∝ τ⁻¹: the theoretical √3·σ_x/τ lies inside every octave's 95 % interval', () => {
+  it('analyzeStability(white PM) gives OADEV ∝ τ⁻¹: the theoretical √3·σ_x/τ lies inside the 95 % interval at every octave', () => {
     // WPM: σ_y²(τ) = 3σ_x²/τ² for overlapping Allan (x white with variance σ_x²): σ_y(τ) = √3·σ_x/τ (common practice, SP 1065 Table 7 [M]).
     let s = 12345;
     const u = () => ((s = (Math.imul(1664525, s) + 1013904223) >>> 0) + 0.5) / 4294967296;
