@@ -36,7 +36,8 @@ export interface CalendarDateTime {
   readonly minute: number;
   /**
    * Seconds of the minute including the fraction, in [0, 60) s; in [60, 61) s only for UTC
-   * during a leap second (23:59:60). Resolution of this double: 7e-15 s.
+   * during a leap second (23:59:60). Resolution of this double: 7e-15 s; a reading is never
+   * rounded up into the next whole second (59.999999999999999 reads as the double below 60).
    */
   readonly second: Seconds;
 }
@@ -495,7 +496,10 @@ function fieldsOfLabel(label: Label): CalendarDateTime {
     minute = Math.floor((label.secondOfDay - hour * 3600) / 60);
     second = label.secondOfDay - hour * 3600 - minute * 60;
   }
-  return Object.freeze({ year, month, day, hour, minute, second: second + label.fraction });
+  // The double sum can round 59 + 0.999999999999999 up to 60; keep it below the next whole second.
+  let secondWithFraction = second + label.fraction;
+  if (secondWithFraction >= second + 1) secondWithFraction = (second + 1) * (1 - Number.EPSILON / 2);
+  return Object.freeze({ year, month, day, hour, minute, second: secondWithFraction });
 }
 
 function splitDays(day: number, fraction: number): SplitDays {

@@ -157,6 +157,14 @@ describe('createTimeScales(table): ISO 8601 text', () => {
     expect(ts.formatIso(t, { fractionDigits: 12 })).toBe('2020-01-01T00:00:00.123456789500Z');
   });
 
+  it('ts.toCalendar(t, scale) never rounds a fraction just below 1 s up into second 60', () => {
+    const t = Instant.fromTaiParts(59, 1 - 2 ** -53);
+    const fields = ts.toCalendar(t, 'TAI');
+    expect(fields.second).toBeLessThan(60);
+    expect(fields.minute).toBe(0);
+    expect(ts.fromCalendar(fields, 'TAI').equals(t, 1e-14)).toBe(true);
+  });
+
   it('ts.toCalendar(t, TAI) and ts.fromCalendar(fields, TAI) work for dates far outside the leap-second table', () => {
     const t = ts.fromCalendar({ year: 1900, month: 3, day: 1, hour: 6, minute: 7, second: 8.5 }, 'TAI');
     expect(ts.toCalendar(t, 'TAI')).toEqual({ year: 1900, month: 3, day: 1, hour: 6, minute: 7, second: 8.5 });
