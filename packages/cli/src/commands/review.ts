@@ -1,0 +1,110 @@
+/**
+ * `tauline review <file>`: checks the oscillator offsets configured for each spacecraft
+ * against their planned orbits, before launch.
+ */
+import { readFile, writeFile } from 'node:fs/promises';
+import { reviewOffsets, reviewToHtml, reviewToMarkdown, type ReviewReport } from '@tauline/sdk/review';
+import { ParseError } from '@tauline/sdk/errors';
+import {
+  EXIT_FINDING, EXIT_OK, UsageError, numberFlag, optionalFlag, table, toJson, type Command,
+} from '../framework.js';
+
+const FORMATS = ['table', 'json', 'md', 'html'] as const;
+type Format = (typeof FORMATS)[number];
+
+/** Reads and JSON-parses a file, turning a syntax error into a ParseError with line and column. */
+export async function readJsonFile(path: string): Promise<unknown> {
+  const text = await readFile(path, 'utf8');
+  try {
+    return JSON.parse(text);
+  } catch (error) {
+    const message = error instanceof Error ? error.message : String(error);
+    const position = /position (\d+)/.exec(message);
+    let line = 1, column: number | undefined;
+    if (position) {
+      const offset = Number(position[1]);
+      const before = text.slice(0, offset);
+      line = before.split('\n').length;
+      column = offset - before.lastIndexOf('\n');
+    }
+    throw new ParseError(path, line, column, 'valid JSON', message.replace(/^.*?: /, ''));
+  }
+}
+
+function e(x: number, digits = 4): string {
+  return x.toExponential(digits - 1);
+}
+
+function tableReport(report: ReviewReport): string {
+  const out: string[] = [report.title, ''];
+  out.push(table(['spacecraft', 'verdict', 'expected offset', 'configured', 'difference', 'ns/day', 'tolerance'],
+    report.spacecraft.map((s) => [s.id, s.verdict.toUpperCase(), e(s.expectedFractionalOffset, 7), e(s.configuredFractionalOffset, 7),
+      e(s.differenceFractional, 3), s.differenceNanosecondsPerDay.toFixed(3), e(s.toleranceFractional, 2)])));
+  for (const s of report.spacecraft) {
+    if (s.diagnosis.length === 0 && !s.dispersion) continue;
+    out.push('', `${s.id} (${s.verdict.toUpperCase()}): ${s.summary}`);
+    for (const d of s.diagnosis) out.push(`  ${d.matches ? '•' : '·'} [${d.code}] ${d.message}`);
+    if (s.dispersion) {
+      const d = s.dispersion;
+      out.push(`  dispersion σa = ${d.semiMajorAxisSigma} m: residual rate ${e(d.residualAtMinus3Sigma, 3)} (−3σ) .. ${e(d.residualAtPlus3Sigma, 3)} (+3σ)` +
+        (d.daysToPhaseToleranceWorst === null ? '' : `; unsteered out of ±${d.phaseToleranceSeconds} s after ${d.daysToPhaseToleranceWorst.toFixed(2)} days`) +
+        (d.actuatorCovers === null ? '' : d.actuatorCovers ? '; steering range covers it' : '; steering range does NOT cover it'));
+    }
+  }
+  out.push('', `${report.counts.pass} pass, ${report.counts.marginal} marginal, ${report.counts.fail} fail`, '', report.caution, '');
+  return out.join('\n');
+}
+
+export const reviewCommand: Command = {
+  name: 'review',
+  summary: 'Check configured oscillator offsets against planned orbits (launch review).',
+  usage: '<review.json> [--format table|json|md|html] [--output <file>] [--runs <n>] [--seed <n>]',
+  allowPositionals: true,
+  flags: {
+    format: { type: 'string', value: '<fmt>', description: 'table (default), json, md or html (html is one self-contained page).' },
+    json: { type: 'boolean', description: 'Same as --format json.' },
+    output: { type: 'string', value: '<file>', description: 'Write the report to this file instead of standard output.' },
+    runs: { type: 'string', value: '<n>', description: 'Monte Carlo draws over the injection dispersion (default 20000).' },
+    seed: { type: 'string', value: '<n>', description: 'Seed of the Monte Carlo (default 1), for reproducible reports.' },
+  },
+  details: `
+Expected factory offset: 1/(1 + r) − 1 with r = L_G − 3GM/(2ac²) against TT (or −3GM/(2ac²) against TCG),
+IERS Conventions (2010) eq. 10.9 averaged over a Kepler orbit; N. Ashby, Living Rev. Relativity 6 (2003) §5.
+Recognised mistakes: sign-flipped, kilometres-for-metres, metres-for-kilometres, wrong-gm-set, tcg-reference,
+other-orbit, copied-from-spacecraft, gravitational-term-only, velocity-term-only, quantisation, actuator-range.
+The input format is described by packages/sdk/schema/review.schema.json.
+Exit status: 0 all pass, 1 some fail or marginal, 2 the input could not be read.`,
+  async run(args, io) {
+    if (args.positionals.length !== 1) throw new UsageError('give exactly one review file (see `tauline review --help`)');
+    const path = args.positionals[0]!;
+    const formatText = args.values['json'] ? 'json' : (optionalFlag(args, 'format') ?? 'table');
+    if (!(FORMATS as readonly string[]).includes(formatText)) throw new UsageError(`--format must be one of ${FORMATS.join(', ')}; received ${JSON.stringify(formatText)}`);
+    const format = formatText as Format;
+    const runs = numberFlag(args, 'runs');
+    if (runs !== undefined && (!Number.isInteger(runs) || runs < 100 || runs > 10_000_000)) throw new UsageError(`--runs must be an integer in [100, 10000000]; received ${runs}`);
+    const seed = numberFlag(args, 'seed');
+    if (seed !== undefined && !Number.isSafeInteger(seed)) throw new UsageError(`--seed must be an integer; received ${seed}`);
+    const document = await readJsonFile(path);
+    let report: ReviewReport;
+    try {
+      report = reviewOffsets(document, { ...(runs !== undefined ? { monteCarloRuns: runs } : {}), ...(seed !== undefined ? { seed } : {}) });
+    } catch (error) {
+      if (error instanceof Error) error.message = `${path}: ${error.message}`;
+      throw error;
+    }
+    const actuatorRanges: Record<string, number> = {};
+    const doc = document as { actuator?: { rangeFractional?: number }; spacecraft: { id: string; actuator?: { rangeFractional?: number } }[] };
+    for (const sc of doc.spacecraft) {
+      const range = sc.actuator?.rangeFractional ?? doc.actuator?.rangeFractional;
+      if (typeof range === 'number') actuatorRanges[sc.id] = range;
+    }
+    const text = format === 'json' ? toJson(report) : format === 'md' ? reviewToMarkdown(report)
+      : format === 'html' ? reviewToHtml(report, actuatorRanges) : tableReport(report);
+    const output = optionalFlag(args, 'output');
+    if (output !== undefined) {
+      await writeFile(output, text, 'utf8');
+      io.err(`wrote ${output} (${report.counts.pass} pass, ${report.counts.marginal} marginal, ${report.counts.fail} fail)\n`);
+    } else io.out(text);
+    return report.counts.fail + report.counts.marginal > 0 ? EXIT_FINDING : EXIT_OK;
+  },
+};

@@ -1,0 +1,311 @@
+/**
+ * Launch-review checks: compares the oscillator offset configured for each spacecraft with
+ * the one its planned orbit needs, recognises the classic mistakes, and analyses what the
+ * orbit-injection dispersion leaves for steering to absorb.
+ *
+ * @module
+ */
+import { CONSTANT_SETS, DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, constantSet,
+  type ConstantSet } from '../constants.js';
+import { meanClockRate, semiMajorAxisForMeanRate, type ReferenceClock } from '../relativity/rate.js';
+import { createRandom } from '../internal/random.js';
+import type {
+  ConfiguredOffset, Diagnosis, DispersionAnalysis, ReviewReport, ReviewSpacecraft, SpacecraftFinding, Verdict,
+} from './types.js';
+import { parseReviewInput } from './parse.js';
+
+/** The caution every review output carries. */
+export const REVIEW_CAUTION =
+  'These findings support a review; they do not replace it. Confirm every value against the mission\'s own interface ' +
+  'specification and have it approved by the responsible engineering authority before it enters a flight configuration.';
+
+/** Options of {@link reviewOffsets}. */
+export interface ReviewOptions {
+  /** Fraction of the tolerance above which a passing difference is only "marginal" (default 0.5). */
+  readonly marginalFraction?: number;
+  /** Runs of the dispersion Monte Carlo (default 20 000). */
+  readonly monteCarloRuns?: number;
+  /** Seed of the dispersion Monte Carlo (default 1), so reports are reproducible. */
+  readonly seed?: number;
+  /** Default tolerance when neither the file nor the spacecraft gives one (default 1e-12). */
+  readonly defaultToleranceFractional?: number;
+}
+
+/**
+ * Nominal semi-major axes of well-known orbit classes, used only to name the orbit an
+ * offset was probably copied from (physics-refs §2 table; orbit radii are nominal [M]).
+ */
+const KNOWN_ORBITS: readonly { label: string; semiMajorAxis: number }[] = [
+  { label: 'a GPS-type MEO (26 561.75 km)', semiMajorAxis: 26_561_750 },
+  { label: 'a GLONASS-type MEO (25 510 km)', semiMajorAxis: 25_510_000 },
+  { label: 'a Galileo-type MEO (29 599.8 km)', semiMajorAxis: 29_599_800 },
+  { label: 'a BeiDou-type MEO (27 906.1 km)', semiMajorAxis: 27_906_100 },
+  { label: 'a geosynchronous orbit (42 164.2 km)', semiMajorAxis: 42_164_200 },
+];
+
+/** The GPS conventional hardware offset −4.4647e-10 (IS-GPS-200E §3.3.1.1 [V2]; IERS Conventions 2010 §10.2 [V1]). */
+const GPS_CONVENTIONAL_OFFSET = -4.4647e-10;
+
+/** GM of the Earth plus the Moon, m³/s² (IERS 2010 GM_E [V2] + GM_Moon 4.9028e12 [M]); a geocentric/barycentric mix-up. */
+const GM_EARTH_PLUS_MOON = 3.986004418e14 + 4.9028e12;
+
+/** Factory offset 1/(1+r) − 1 for a fractional rate r: the oscillator is set so that in orbit it keeps the reference rate. */
+function offsetForRate(rate: number): number {
+  return -rate / (1 + rate);
+}
+
+/** Mean fractional rate of a Kepler-orbit clock vs TT or TCG for an arbitrary GM (IERS Conventions 2010 eq. 10.9 averaged; Ashby 2003 §5). */
+function rateFor(a: number, gm: number, lG: number, reference: ReferenceClock): number {
+  return (reference === 'tt' ? lG : 0) - (3 * gm) / (2 * a * SPEED_OF_LIGHT_SQUARED);
+}
+
+/** Splits a finite double into an exact BigInt mantissa and a power-of-two exponent: x = m·2^e. */
+function dyadic(x: number): { m: bigint; e: number } {
+  if (x === 0) return { m: 0n, e: 0 };
+  let e = 0;
+  let v = x;
+  while (!Number.isInteger(v)) { v *= 2; e--; }
+  return { m: BigInt(v), e };
+}
+
+/**
+ * Reads the configured offset as a fraction, with the quantisation step of its form (null when exact).
+ * For a tuning word, f_out = word·f_clk/2^N (DDS relation; common practice, no source); the difference
+ * word·f_clk − f_nominal·2^N is formed exactly in BigInt so that 64-bit words lose nothing.
+ */
+export function configuredFraction(configured: ConfiguredOffset, nominalHz: number): { fraction: number; step: number | null } {
+  if ('fractionalOffset' in configured) return { fraction: configured.fractionalOffset, step: null };
+  if ('offsetHz' in configured) return { fraction: configured.offsetHz / nominalHz, step: null };
+  if ('offsetFrequencyHz' in configured) return { fraction: (configured.offsetFrequencyHz - nominalHz) / nominalHz, step: null };
+  const { word, clockHz, bits } = configured.tuningWord;
+  const c = dyadic(clockHz);
+  const n = dyadic(nominalHz);
+  // word·m_c·2^e_c − m_n·2^(e_n + N), brought to the smaller exponent.
+  const e = Math.min(c.e, n.e + bits);
+  const diff = BigInt(word) * c.m * (1n << BigInt(c.e - e)) - n.m * (1n << BigInt(n.e + bits - e));
+  const diffHz = Number(diff) * 2 ** e / 2 ** bits;
+  return { fraction: diffHz / nominalHz, step: clockHz / 2 ** bits / nominalHz };
+}
+
+/** Size of the mean-rate ambiguity from osculating vs mean a under J2: (3GM/(2a²c²))·(3/2)J2 a_e²/a·sin²i (Brouwer short-period a [M]; physics-refs §5 [C]). */
+export function j2SemiMajorAxisAmbiguity(a: number, inclination: number, constants: ConstantSet): { metres: number; fractionalRate: number } {
+  const metres = 1.5 * constants.j2 * constants.equatorialRadius ** 2 / a * Math.sin(inclination) ** 2;
+  return { metres, fractionalRate: (3 * constants.gm) / (2 * a * a * SPEED_OF_LIGHT_SQUARED) * metres };
+}
+
+function fmt(x: number, digits = 6): string {
+  return Number.isFinite(x) ? x.toExponential(digits - 1) : String(x);
+}
+
+interface Hypothesis { code: Diagnosis['code']; value: number; explain: string }
+
+function hypotheses(sc: ReviewSpacecraft, set: ConstantSet, reference: ReferenceClock, others: readonly { id: string; offset: number }[]): Hypothesis[] {
+  const a = sc.orbit.semiMajorAxis;
+  const expected = offsetForRate(rateFor(a, set.gm, set.lG, reference));
+  const gravitational = (reference === 'tt' ? set.lG : 0) - set.gm / (a * SPEED_OF_LIGHT_SQUARED);
+  const velocity = -set.gm / (2 * a * SPEED_OF_LIGHT_SQUARED);
+  const list: Hypothesis[] = [
+    { code: 'sign-flipped', value: -expected, explain: 'the offset was entered with the wrong sign (the clock must be set LOW on the ground because in orbit it runs fast)' },
+    { code: 'kilometres-for-metres', value: offsetForRate(rateFor(a / 1000, set.gm, set.lG, reference)), explain: `the semi-major axis was used in kilometres (${a / 1000}) where the formula expects metres` },
+    { code: 'metres-for-kilometres', value: offsetForRate(rateFor(a * 1000, set.gm, set.lG, reference)), explain: `the semi-major axis in metres was multiplied by 1000 as if it were kilometres (${a * 1000} m)` },
+    { code: 'tcg-reference', value: offsetForRate(rateFor(a, set.gm, set.lG, reference === 'tt' ? 'tcg' : 'tt')), explain: reference === 'tt'
+      ? 'the rate was referred to TCG (no geoid term L_G) instead of TT / the geoid'
+      : 'the rate was referred to TT instead of the requested TCG' },
+    { code: 'gravitational-term-only', value: offsetForRate(gravitational), explain: 'only the gravitational blueshift was compensated; the second-order Doppler (velocity) term is missing' },
+    { code: 'velocity-term-only', value: offsetForRate(velocity), explain: 'only the second-order Doppler (velocity) term was compensated; the gravitational term is missing' },
+    { code: 'wrong-gm-set', value: offsetForRate(rateFor(a, set.gm / 1e9, set.lG, reference)), explain: 'GM was taken in km³/s² (≈ 398 600) where m³/s² is expected' },
+    { code: 'wrong-gm-set', value: offsetForRate(rateFor(a, GM_EARTH_PLUS_MOON, set.lG, reference)), explain: 'GM of the Earth plus the Moon was used instead of the geocentric GM' },
+  ];
+  for (const other of Object.values(CONSTANT_SETS)) {
+    if (other.gm === set.gm) continue;
+    list.push({ code: 'wrong-gm-set', value: offsetForRate(rateFor(a, other.gm, set.lG, reference)), explain: `the GM of the ${other.name} set (${other.gm}) was used instead of ${set.name} (${set.gm})` });
+  }
+  list.push({ code: 'other-orbit', value: GPS_CONVENTIONAL_OFFSET, explain: 'the GPS conventional offset −4.4647e-10 (IS-GPS-200, for a ≈ 26 561 400 m) was used for a different orbit' });
+  for (const orbit of KNOWN_ORBITS) {
+    if (Math.abs(orbit.semiMajorAxis - a) < 50_000) continue;
+    list.push({ code: 'other-orbit', value: offsetForRate(rateFor(orbit.semiMajorAxis, set.gm, set.lG, reference)), explain: `the offset of ${orbit.label} was used` });
+  }
+  for (const other of others) {
+    list.push({ code: 'copied-from-spacecraft', value: other.offset, explain: `the offset expected for spacecraft ${other.id} was copied` });
+  }
+  return list;
+}
+
+/**
+ * Reviews every spacecraft of a review document.
+ *
+ * For each: expected factory offset 1/(1+r) − 1 with r = L_G − 3GM/(2ac²) vs TT (or −3GM/(2ac²) vs TCG)
+ * (IERS Conventions 2010 eq. 10.9 averaged over a Kepler orbit; Ashby 2003 §5), the configured-minus-expected
+ * difference, a verdict, diagnoses of recognised mistakes (each with the value it would have produced), and a
+ * dispersion analysis (rate sensitivity 3GM/(2a²c²) per metre, Ashby 2001 PTTI [V2]).
+ *
+ * Verdict: `fail` when |difference| > tolerance, when the best achievable tuning word cannot meet the tolerance,
+ * or when the actuator range cannot absorb the worst ±3σ residual; `marginal` when the difference uses more than
+ * `marginalFraction` of the tolerance, or when the tolerance is tighter than the osculating/mean-a ambiguity
+ * under J2; otherwise `pass`.
+ *
+ * @param document A parsed review file (validated here) or an already validated {@link ReviewInput}.
+ * @throws {InvalidArgumentError} naming the field path for invalid input.
+ */
+export function reviewOffsets(document: unknown, options: ReviewOptions = {}): ReviewReport {
+  const input = parseReviewInput(document);
+  const marginalFraction = options.marginalFraction ?? 0.5;
+  const runs = options.monteCarloRuns ?? 20_000;
+  const seed = options.seed ?? 1;
+  const defaultTolerance = options.defaultToleranceFractional ?? 1e-12;
+
+  const resolved = input.spacecraft.map((sc) => {
+    const set = constantSet(sc.constants ?? input.constants ?? DEFAULT_CONSTANT_SET.name);
+    const reference: ReferenceClock = sc.reference ?? input.reference ?? 'tt';
+    const rate = meanClockRate(sc.orbit.semiMajorAxis, { constants: set, reference });
+    return { sc, set, reference, rate };
+  });
+
+  const findings = resolved.map(({ sc, set, reference, rate }, index): SpacecraftFinding => {
+    const nominal = sc.nominalFrequencyHz;
+    const tolerance = sc.tolerance?.fractional ?? input.tolerance?.fractional ?? defaultTolerance;
+    const expected = rate.factoryOffset;
+    const { fraction: configured, step } = configuredFraction(sc.configured, nominal);
+    const difference = configured - expected;
+    const diagnosis: Diagnosis[] = [];
+    let verdict: Verdict = Math.abs(difference) > tolerance ? 'fail' : Math.abs(difference) > marginalFraction * tolerance ? 'marginal' : 'pass';
+    const matchWindow = Math.max(tolerance, step ?? 0);
+
+    if (verdict !== 'pass') {
+      const others = resolved.filter((_, j) => j !== index && Math.abs(resolved[j]!.sc.orbit.semiMajorAxis - sc.orbit.semiMajorAxis) > 1)
+        .map((o) => ({ id: o.sc.id, offset: o.rate.factoryOffset }));
+      const matched = hypotheses(sc, set, reference, others)
+        .filter((h) => Math.abs(configured - h.value) <= matchWindow && Math.abs(h.value - expected) > matchWindow)
+        .sort((x, y) => Math.abs(configured - x.value) - Math.abs(configured - y.value));
+      for (const h of matched) {
+        diagnosis.push({
+          code: h.code, matches: true, wouldHaveProduced: h.value,
+          message: `Configured ${fmt(configured)} matches the value ${fmt(h.value)} produced when ${h.explain} (expected ${fmt(expected)}).`,
+        });
+      }
+      if (matched.length === 0 && verdict === 'fail') {
+        let implied = Number.NaN;
+        try {
+          implied = semiMajorAxisForMeanRate(1 / (1 + configured) - 1, { constants: set, reference });
+        } catch { /* no orbit above the Earth needs this offset */ }
+        const plausible = Number.isFinite(implied) && implied < 1e9;
+        diagnosis.push({
+          code: 'other-orbit', matches: false, wouldHaveProduced: plausible ? configured : null,
+          message: plausible
+            ? `No common mistake explains the difference. The configured offset is the one a clock at a = ${implied.toFixed(0)} m would need (planned a = ${sc.orbit.semiMajorAxis} m); check where the value came from.`
+            : `No common mistake explains the difference, and no circular orbit needs this offset; check where the value came from.`,
+        });
+      }
+    }
+
+    // Quantisation of the tuning-word form: can the hardware represent the expected value within tolerance?
+    if ('tuningWord' in sc.configured && step !== null) {
+      const { clockHz, bits } = sc.configured.tuningWord;
+      const exactWord = ((nominal * (1 + expected)) / clockHz) * 2 ** bits;
+      const bestError = Math.abs(Math.round(exactWord) - exactWord) * step;
+      const configuredWordError = Math.abs(difference);
+      if (bestError > tolerance) {
+        verdict = 'fail';
+        diagnosis.push({ code: 'quantisation', matches: true, wouldHaveProduced: expected + (Math.round(exactWord) - exactWord) * step,
+          message: `A ${bits}-bit word at ${clockHz} Hz has steps of ${fmt(step)} (fractional); even the nearest word misses the expected offset by ${fmt(bestError)}, more than the tolerance ${fmt(tolerance)}.` });
+      } else if (configuredWordError > tolerance) {
+        diagnosis.push({ code: 'quantisation', matches: false, wouldHaveProduced: expected + (Math.round(exactWord) - exactWord) * step,
+          message: `The nearest ${bits}-bit word is ${BigInt(Math.round(exactWord)).toString()} (error ${fmt(bestError)}); the configured word is ${Math.round((configured - expected) / step)} steps away from it.` });
+      }
+    }
+
+    // J2: the mean rate depends on which semi-major axis (osculating or mean) was used.
+    const inclination = sc.orbit.inclination ?? 0;
+    const ambiguity = j2SemiMajorAxisAmbiguity(sc.orbit.semiMajorAxis, inclination, set);
+    if (ambiguity.fractionalRate > 0.5 * tolerance && verdict === 'pass') verdict = 'marginal';
+    if (ambiguity.fractionalRate > 0.5 * tolerance) {
+      diagnosis.push({ code: 'set-indistinguishable', matches: false, wouldHaveProduced: null,
+        message: `Under J2 the osculating and mean semi-major axes differ by up to ${ambiguity.metres.toFixed(0)} m here, a rate ambiguity of ${fmt(ambiguity.fractionalRate, 3)}, which is not small against the tolerance ${fmt(tolerance, 3)}: state which a the orbit value is.` });
+    }
+
+    const actuator = sc.actuator ?? input.actuator;
+    const phaseTolerance = sc.phaseToleranceSeconds ?? input.phaseToleranceSeconds ?? null;
+    const dispersion = sc.dispersion
+      ? analyseDispersion(sc, set, reference, configured, actuator?.rangeFractional ?? null, phaseTolerance, runs, seed + index)
+      : null;
+    if (dispersion && actuator && dispersion.actuatorCovers === false) {
+      verdict = 'fail';
+      diagnosis.push({ code: 'actuator-range', matches: true, wouldHaveProduced: null,
+        message: `The worst ±3σ residual rate ${fmt(dispersion.worstResidual, 3)} exceeds the steering range ±${fmt(actuator.rangeFractional, 3)}.` });
+    } else if (!dispersion && actuator && Math.abs(difference) > actuator.rangeFractional) {
+      verdict = 'fail';
+      diagnosis.push({ code: 'actuator-range', matches: true, wouldHaveProduced: null,
+        message: `The offset error ${fmt(difference, 3)} exceeds the steering range ±${fmt(actuator.rangeFractional, 3)}.` });
+    }
+
+    const summary = verdict === 'pass'
+      ? `configured offset within ${fmt(Math.abs(difference), 2)} of the expected ${fmt(expected)} (tolerance ${fmt(tolerance, 2)})`
+      : verdict === 'marginal'
+        ? `within tolerance but with little margin: difference ${fmt(difference, 3)} against tolerance ${fmt(tolerance, 2)}`
+        : `configured ${fmt(configured)} differs from the expected ${fmt(expected)} by ${fmt(difference, 3)}`;
+
+    return {
+      id: sc.id, verdict, constants: set.name, reference, nominalFrequencyHz: nominal, semiMajorAxis: sc.orbit.semiMajorAxis,
+      expectedFractionalOffset: expected,
+      expectedFrequencyHz: nominal + nominal * expected,
+      configuredFractionalOffset: configured,
+      configuredFrequencyHz: nominal + nominal * configured,
+      differenceFractional: difference,
+      differenceHz: nominal * difference,
+      differenceNanosecondsPerDay: difference * SECONDS_PER_DAY * 1e9,
+      toleranceFractional: tolerance,
+      budget: { gravitational: rate.gravitational, velocity: rate.velocity, fractionalRate: rate.fractionalRate, j2Ambiguity: ambiguity.fractionalRate },
+      quantisationStepFractional: step,
+      diagnosis,
+      dispersion,
+      summary,
+    };
+  });
+
+  const counts = { pass: 0, marginal: 0, fail: 0 };
+  for (const f of findings) counts[f.verdict]++;
+  return {
+    title: input.title ?? 'Launch review of configured clock offsets',
+    generatedBy: 'tauline review',
+    caution: REVIEW_CAUTION,
+    spacecraft: findings,
+    counts,
+  };
+}
+
+const PERCENTILES = [0.135, 2.275, 15.866, 50, 84.134, 97.725, 99.865];
+
+function analyseDispersion(sc: ReviewSpacecraft, set: ConstantSet, reference: ReferenceClock, configured: number,
+  actuatorRange: number | null, phaseTolerance: number | null, runs: number, seed: number): DispersionAnalysis {
+  const a0 = sc.orbit.semiMajorAxis;
+  const sigma = sc.dispersion!.semiMajorAxisSigma;
+  // In orbit the configured oscillator runs at (1 + c)(1 + r(a)) − 1 against the reference (product of the two rates).
+  const residual = (a: number) => (1 + configured) * (1 + rateFor(a, set.gm, set.lG, reference)) - 1;
+  // Unsteered phase walk-off |x(t)| = |r|·t reaches the tolerance after tol/|r| (physics-refs §12 [C]).
+  const days = (r: number) => (phaseTolerance === null ? null : r === 0 ? Number.POSITIVE_INFINITY : phaseTolerance / Math.abs(r) / SECONDS_PER_DAY);
+  const minus = residual(a0 - 3 * sigma);
+  const nominal = residual(a0);
+  const plus = residual(a0 + 3 * sigma);
+  const worst = Math.max(Math.abs(minus), Math.abs(plus), Math.abs(nominal));
+  const random = createRandom(seed);
+  const draws = new Float64Array(runs);
+  for (let i = 0; i < runs; i++) draws[i] = a0 + sigma * random.normal();
+  draws.sort();
+  const percentiles = PERCENTILES.map((p) => {
+    const a = draws[Math.min(runs - 1, Math.max(0, Math.round((p / 100) * (runs - 1))))]!;
+    const r = residual(a);
+    return { percentile: p, semiMajorAxis: a, residualFractionalRate: r, daysToPhaseTolerance: days(r) };
+  });
+  return {
+    semiMajorAxisSigma: sigma,
+    rateSensitivityPerMetre: (3 * set.gm) / (2 * a0 * a0 * SPEED_OF_LIGHT_SQUARED),
+    residualAtMinus3Sigma: minus,
+    residualNominal: nominal,
+    residualAtPlus3Sigma: plus,
+    worstResidual: worst,
+    phaseToleranceSeconds: phaseTolerance,
+    daysToPhaseToleranceWorst: days(worst),
+    actuatorCovers: actuatorRange === null ? null : worst <= actuatorRange,
+    monteCarlo: { runs, seed, percentiles },
+  };
+}

@@ -1,0 +1,8 @@
+export { reviewOffsets, configuredFraction, j2SemiMajorAxisAmbiguity, REVIEW_CAUTION } from './check.js';
+export type { ReviewOptions } from './check.js';
+export { parseReviewInput } from './parse.js';
+export { reviewToMarkdown, reviewToHtml } from './render.js';
+export type {
+  ConfiguredOffset, Diagnosis, DiagnosisCode, DispersionAnalysis, DispersionPercentile, ReviewInput, ReviewLimits, ReviewOrbit,
+  ReviewReport, ReviewSpacecraft, SpacecraftFinding, Verdict,
+} from './types.js';
