@@ -102,7 +102,14 @@ export function gridTimes(norm: NormalizedScenario): number[] {
  */
 export function probabilityWithin(mean: number, sigma: number, bound: number): number {
   if (!(sigma > 0)) return Math.abs(mean) <= bound ? 1 : 0;
-  return Math.max(0, normalCdf((bound - mean) / sigma) - normalCdf((-bound - mean) / sigma));
+  return Math.max(0, tailSafeCdf((bound - mean) / sigma) - tailSafeCdf((-bound - mean) / sigma));
+}
+
+/** Φ(z), short-cut beyond |z| = 40 where Φ is 0 or 1 to double precision (and z² may overflow). */
+function tailSafeCdf(z: number): number {
+  if (z > 40) return 1;
+  if (z < -40) return 0;
+  return normalCdf(z);
 }
 
 /** Outcome of checking a schedule against the tolerance, per epoch. */
