@@ -5,15 +5,18 @@
  *
  * @module
  */
-import { LitElement, html, type PropertyValues, type TemplateResult } from 'lit';
-import { property } from 'lit/decorators.js';
+import { LitElement, html, type PropertyValues, type TemplateResult, type PropertyDeclarations } from 'lit';
 import { ResizeController } from './resize.js';
 import { resolveColors, resolveFont } from './canvas.js';
 
 /** Base class for the canvas plots (not registered as an element). */
 export abstract class PlotElement extends LitElement {
+  static override properties: PropertyDeclarations = {
+    theme: { reflect: true },
+  };
+
   /** Colour scheme: `light`, `dark`, or unset to inherit the page's `color-scheme`. */
-  @property({ reflect: true }) theme?: 'light' | 'dark';
+  theme?: 'light' | 'dark';
 
   protected readonly _size = new ResizeController(this, () => this.renderRoot.querySelector?.('.plot-box'));
   private _colorCache: Record<string, string> | null = null;

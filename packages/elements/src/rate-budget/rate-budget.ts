@@ -1,5 +1,4 @@
-import { LitElement, html, nothing, type PropertyValues, type TemplateResult } from 'lit';
-import { property } from 'lit/decorators.js';
+import { LitElement, html, nothing, type PropertyValues, type TemplateResult, type PropertyDeclarations } from 'lit';
 import { baseStyles } from '../internal/styles.js';
 import { rateBudgetStyles } from './rate-budget.styles.js';
 import { formatFraction, formatHertz, formatNumber } from '../internal/format.js';
@@ -60,20 +59,28 @@ interface BudgetRow {
 export class TaulineRateBudget extends LitElement {
   static override styles = [baseStyles, rateBudgetStyles];
 
+  static override properties: PropertyDeclarations = {
+    budget: { attribute: false },
+    j2Rate: { attribute: false },
+    nominalFrequency: { type: Number, attribute: 'nominal-frequency' },
+    label: {},
+    theme: { reflect: true },
+  };
+
   /** The breakdown to show: the result of the SDK's `meanClockRate(a, options)`. */
-  @property({ attribute: false }) budget?: RateBudgetData | null;
+  budget?: RateBudgetData | null;
 
   /** J2 (Earth oblateness) part of the mean rate, dimensionless; omitted from the total when unset. */
-  @property({ attribute: false }) j2Rate?: number | null;
+  j2Rate?: number | null;
 
   /** Nominal oscillator frequency in hertz, for the "Hz at nominal" column. */
-  @property({ type: Number, attribute: 'nominal-frequency' }) nominalFrequency = 10.23e6;
+  nominalFrequency = 10.23e6;
 
   /** Heading shown above the table. */
-  @property() label = 'Clock rate budget';
+  label = 'Clock rate budget';
 
   /** Colour scheme: `light`, `dark`, or unset to inherit the page's `color-scheme`. */
-  @property({ reflect: true }) theme?: 'light' | 'dark';
+  theme?: 'light' | 'dark';
 
   private _problem: string | null = null;
 

@@ -1,5 +1,4 @@
-import { LitElement, html, nothing, type PropertyValues, type TemplateResult } from 'lit';
-import { property } from 'lit/decorators.js';
+import { LitElement, html, nothing, type PropertyValues, type TemplateResult, type PropertyDeclarations } from 'lit';
 import { baseStyles } from '../internal/styles.js';
 import { reviewFindingsStyles } from './review-findings.styles.js';
 import { formatFraction, formatHertz, formatNumber } from '../internal/format.js';
@@ -69,17 +68,24 @@ const VERDICT_ORDER: Record<ReviewVerdict, number> = { fail: 0, marginal: 1, pas
 export class TaulineReviewFindings extends LitElement {
   static override styles = [baseStyles, reviewFindingsStyles];
 
+  static override properties: PropertyDeclarations = {
+    review: { attribute: false },
+    label: {},
+    hidePassing: { type: Boolean, reflect: true, attribute: 'hide-passing' },
+    theme: { reflect: true },
+  };
+
   /** The review report: `{ spacecraft: [{ id, verdict, expectedFractionalOffset, differenceFractional, diagnosis, ... }] }`. */
-  @property({ attribute: false }) review?: ReviewReportView | null;
+  review?: ReviewReportView | null;
 
   /** Heading shown above the list (the report's own `title` wins when present). */
-  @property() label = 'Launch review findings';
+  label = 'Launch review findings';
 
   /** Leave passing spacecraft out of the list (they stay counted). */
-  @property({ type: Boolean, reflect: true, attribute: 'hide-passing' }) hidePassing = false;
+  hidePassing = false;
 
   /** Colour scheme: `light`, `dark`, or unset to inherit the page's `color-scheme`. */
-  @property({ reflect: true }) theme?: 'light' | 'dark';
+  theme?: 'light' | 'dark';
 
   private _findings: ReviewFindingView[] = [];
   private _problem: string | null = null;

@@ -1,5 +1,4 @@
-import { html, nothing, type PropertyValues, type TemplateResult } from 'lit';
-import { property, state } from 'lit/decorators.js';
+import { html, nothing, type PropertyValues, type TemplateResult, type PropertyDeclarations } from 'lit';
 import { PlotElement } from '../internal/plot-element.js';
 import { baseStyles, plotStyles } from '../internal/styles.js';
 import { stabilityPlotStyles } from './stability-plot.styles.js';
@@ -51,22 +50,30 @@ function statLabel(name: string): string {
 export class TaulineStabilityPlot extends PlotElement {
   static override styles = [baseStyles, plotStyles, stabilityPlotStyles];
 
+  static override properties: PropertyDeclarations = {
+    series: { attribute: false },
+    label: {},
+    noTable: { type: Boolean, reflect: true, attribute: 'no-table' },
+    noIntervals: { type: Boolean, reflect: true, attribute: 'no-intervals' },
+    _hover: { state: true },
+  };
+
   /**
    * One entry per statistic in columnar form `{ statistic, tau, deviation, low?, high?, n?, noise? }`
    * (typed arrays welcome), or the SDK's rows (`StabilityRow[]`, one per τ with `statistics`).
    */
-  @property({ attribute: false }) series?: readonly StabilityColumns[] | readonly unknown[] | null;
+  series?: readonly StabilityColumns[] | readonly unknown[] | null;
 
   /** Heading shown above the plot. */
-  @property() label = 'Frequency stability';
+  label = 'Frequency stability';
 
   /** Hide the data table visually (it stays available to assistive technology). */
-  @property({ type: Boolean, reflect: true, attribute: 'no-table' }) noTable = false;
+  noTable = false;
 
   /** Hide the confidence-interval error bars. */
-  @property({ type: Boolean, reflect: true, attribute: 'no-intervals' }) noIntervals = false;
+  noIntervals = false;
 
-  @state() private _hover: { s: number; i: number } | null = null;
+  private _hover: { s: number; i: number } | null = null;
 
   private _data: StabilitySet = { series: [], problems: [] };
   private _scales: { sx: Scale; sy: Scale; frame: Frame } | null = null;

@@ -1,5 +1,4 @@
-import { html, nothing, svg, type PropertyValues, type SVGTemplateResult, type TemplateResult } from 'lit';
-import { property, state } from 'lit/decorators.js';
+import { html, nothing, svg, type PropertyValues, type SVGTemplateResult, type TemplateResult, type PropertyDeclarations } from 'lit';
 import { PlotElement } from '../internal/plot-element.js';
 import { baseStyles, plotStyles } from '../internal/styles.js';
 import { steeringScheduleStyles } from './steering-schedule.styles.js';
@@ -79,32 +78,45 @@ type Hover = { kind: 'sample'; i: number; px: number } | { kind: 'command'; c: n
 export class TaulineSteeringSchedule extends PlotElement {
   static override styles = [baseStyles, plotStyles, steeringScheduleStyles];
 
+  static override properties: PropertyDeclarations = {
+    plan: { attribute: false },
+    scenario: { attribute: false },
+    label: {},
+    yUnit: { attribute: 'y-unit' },
+    sigmaMultiple: { type: Number, attribute: 'sigma-multiple' },
+    fitAll: { type: Boolean, attribute: 'fit-all' },
+    noTable: { type: Boolean, reflect: true, attribute: 'no-table' },
+    selectedIndex: { type: Number, attribute: 'selected-index' },
+    _hover: { state: true },
+    _announcement: { state: true },
+  };
+
   /** The planner output: `{ feasible, reason?, commands, predicted: { t, steered, unsteered }, metrics }`. */
-  @property({ attribute: false }) plan?: unknown;
+  plan?: unknown;
 
   /** The scenario the plan was made for: epoch, `tolerance.phaseSeconds`, `contacts`, `maneuvers`. */
-  @property({ attribute: false }) scenario?: unknown;
+  scenario?: unknown;
 
   /** Heading shown above the plot. */
-  @property() label = 'Steering schedule';
+  label = 'Steering schedule';
 
   /** Unit of the offset axis: `auto` (default), `s`, `ms`, `us`, `ns` or `ps`. */
-  @property({ attribute: 'y-unit' }) yUnit = 'auto';
+  yUnit = 'auto';
 
   /** Half-width of the uncertainty band in standard deviations (default 2). */
-  @property({ type: Number, attribute: 'sigma-multiple' }) sigmaMultiple = 2;
+  sigmaMultiple = 2;
 
   /** Fit the offset axis to everything, including the unsteered prediction (default: fit the steered one and the tolerance). */
-  @property({ type: Boolean, attribute: 'fit-all' }) fitAll = false;
+  fitAll = false;
 
   /** Hide the command table visually (it stays available to assistive technology). */
-  @property({ type: Boolean, reflect: true, attribute: 'no-table' }) noTable = false;
+  noTable = false;
 
   /** Index in `plan.commands` of the selected command, or −1. Setting it fires no event. */
-  @property({ type: Number, attribute: 'selected-index' }) selectedIndex = -1;
+  selectedIndex = -1;
 
-  @state() private _hover: Hover | null = null;
-  @state() private _announcement = '';
+  private _hover: Hover | null = null;
+  private _announcement = '';
 
   private _result: ReturnType<typeof readPlan> | null = null;
   private _bandLow: Float64Array | null = null;
@@ -597,7 +609,8 @@ export class TaulineSteeringSchedule extends PlotElement {
     if (!this._scales || !this._view || event.button > 0) return;
     const p = this._localX(event);
     this._pointers.set(event.pointerId, p);
-    (event.currentTarget as HTMLElement).setPointerCapture?.(event.pointerId);
+    // Capture keeps a drag going outside the box; synthetic pointers (tests) have none to capture.
+    try { (event.currentTarget as HTMLElement).setPointerCapture(event.pointerId); } catch { /* not an active pointer */ }
     if (this._pointers.size === 1) this._gesture = { x0: this._view[0], x1: this._view[1], px: p.x, moved: false };
     else if (this._pointers.size === 2) {
       const [a, b] = [...this._pointers.values()];

@@ -1,0 +1,76 @@
+import { fixture, html, expect, oneEvent } from '@open-wc/testing';
+import '../src/review-findings/review-findings.define.js';
+import type { TaulineReviewFindings } from '../src/review-findings/review-findings.js';
+import { captureWarnings } from './fixtures.js';
+
+// Invented review (no real spacecraft). The sign-flip hypothesis value is −1 × the expected offset.
+const REVIEW = {
+  title: 'Launch review: Lyra batch 2',
+  caution: 'Verify against the mission interface specification and its responsible engineering authority.',
+  spacecraft: [
+    { id: 'LYRA-04', verdict: 'pass', expectedFractionalOffset: -4.58e-10, configuredFractionalOffset: -4.58e-10, differenceFractional: 0, diagnosis: [] },
+    { id: 'LYRA-05', verdict: 'fail', expectedFractionalOffset: -4.58e-10, configuredFractionalOffset: 4.58e-10, differenceFractional: 9.16e-10,
+      differenceHz: 9.37e-3, differenceNanosecondsPerDay: 79142,
+      diagnosis: [{ code: 'sign-flipped', message: 'The configured offset has the wrong sign.', wouldHaveProduced: 4.58e-10, matches: true }] },
+    { id: 'LYRA-06', verdict: 'marginal', expectedFractionalOffset: -4.58e-10, configuredFractionalOffset: -4.5803e-10, differenceFractional: -3e-14, diagnosis: [] },
+  ],
+};
+
+describe('tauline-review-findings', () => {
+  it('<tauline-review-findings> is accessible (axe-core) with data', async () => {
+    const el = await fixture<TaulineReviewFindings>(html`<tauline-review-findings .review=${REVIEW}></tauline-review-findings>`);
+    await expect(el).to.be.accessible();
+  });
+
+  it('lists failing spacecraft first, each verdict with its own icon shape and text', async () => {
+    const el = await fixture<TaulineReviewFindings>(html`<tauline-review-findings .review=${REVIEW}></tauline-review-findings>`);
+    const ids = [...el.shadowRoot!.querySelectorAll('.sc-id')].map((x) => x.textContent);
+    expect(ids).to.deep.equal(['LYRA-05', 'LYRA-06', 'LYRA-04']);
+    const shapes = [...el.shadowRoot!.querySelectorAll('details .verdict svg')].map((s) => s.firstElementChild!.localName);
+    expect(shapes).to.deep.equal(['rect', 'path', 'circle']);
+    expect(el.shadowRoot!.querySelector('.title')!.textContent).to.equal('Launch review: Lyra batch 2');
+  });
+
+  it('hide-passing leaves passing spacecraft out of the list', async () => {
+    const el = await fixture<TaulineReviewFindings>(html`<tauline-review-findings hide-passing .review=${REVIEW}></tauline-review-findings>`);
+    expect(el.shadowRoot!.querySelectorAll('details').length).to.equal(2);
+  });
+
+  it('opening an entry fires tauline-spacecraft-select (bubbling, composed); setting data fires nothing', async () => {
+    let fired = 0;
+    const host = await fixture<HTMLDivElement>(html`<div @tauline-spacecraft-select=${() => fired++}><tauline-review-findings .review=${REVIEW}></tauline-review-findings></div>`);
+    const el = host.querySelector('tauline-review-findings')!;
+    el.review = { ...REVIEW };
+    await el.updateComplete;
+    expect(fired).to.equal(0);
+    const summary = el.shadowRoot!.querySelector<HTMLElement>('summary')!;
+    setTimeout(() => summary.click());
+    const ev = await oneEvent(host, 'tauline-spacecraft-select');
+    expect(ev.detail).to.deep.equal({ id: 'LYRA-05', verdict: 'fail' });
+    expect(ev.composed).to.equal(true);
+  });
+
+  it('shows the diagnosis with the value the mistake would have produced', async () => {
+    const el = await fixture<TaulineReviewFindings>(html`<tauline-review-findings .review=${REVIEW}></tauline-review-findings>`);
+    const li = el.shadowRoot!.querySelector('.diagnosis li')!;
+    expect(li.textContent).to.contain('sign-flipped');
+    expect(li.textContent).to.contain('4.5800e−10');
+  });
+
+  it('bad data shows an error state and warns once', async () => {
+    const w = await captureWarnings();
+    try {
+      const el = await fixture<TaulineReviewFindings>(html`<tauline-review-findings .review=${{ spacecraft: 3 }}></tauline-review-findings>`);
+      expect(el.shadowRoot!.querySelector('.state.error')).to.exist;
+      el.review = { spacecraft: 4 } as never;
+      await el.updateComplete;
+      expect(w.list.length).to.equal(1);
+    } finally { w.restore(); }
+  });
+
+  it('theme="dark" switches to the dark palette', async () => {
+    const el = await fixture<TaulineReviewFindings>(html`<tauline-review-findings theme="dark" .review=${REVIEW}></tauline-review-findings>`);
+    const light = await fixture<TaulineReviewFindings>(html`<tauline-review-findings theme="light" .review=${REVIEW}></tauline-review-findings>`);
+    expect(getComputedStyle(el).backgroundColor).to.not.equal(getComputedStyle(light).backgroundColor);
+  });
+});
