@@ -1,0 +1,168 @@
+/**
+ * `tauline stability`: Allan-family frequency-stability statistics of a phase or frequency record
+ * with chi-square confidence intervals and per-τ noise identification (NIST SP 1065).
+ */
+import { createReadStream } from 'node:fs';
+import { readPhaseText, readRinexClock, rinexClockSeries, type SampleGap } from '@tauline/sdk/io';
+import {
+  analyzeStability, DEFAULT_STATISTICS, STATISTIC_NAMES, type NoiseType, type StabilityData, type StatisticName,
+} from '@tauline/sdk/stability';
+import { EXIT_OK, optionalFlag, parseNumber, sig, table, toJson, UsageError, type Command, type ParsedArgs } from '../framework.js';
+
+const NOISES: readonly NoiseType[] = ['WPM', 'FPM', 'WFM', 'FFM', 'RWFM'];
+
+function listFlag(args: ParsedArgs, flag: string): string[] | undefined {
+  const text = optionalFlag(args, flag);
+  if (text === undefined) return undefined;
+  const items = text.split(',').map((s) => s.trim()).filter((s) => s !== '');
+  if (items.length === 0) throw new UsageError(`--${flag} needs a comma-separated list`);
+  return items;
+}
+
+interface LoadedInput {
+  data: StabilityData;
+  source: string;
+  kind: 'phase' | 'frequency';
+  gaps: readonly SampleGap[];
+  clock?: string;
+  timeSystem?: string;
+}
+
+async function loadInput(args: ParsedArgs, tau0Flag: number | undefined): Promise<LoadedInput> {
+  const phaseFile = optionalFlag(args, 'phase');
+  const frequencyFile = optionalFlag(args, 'frequency');
+  const rinexFile = optionalFlag(args, 'rinex-clock');
+  const given = [phaseFile, frequencyFile, rinexFile].filter((f) => f !== undefined);
+  if (given.length !== 1) throw new UsageError('give exactly one input: --phase <file>, --frequency <file> or --rinex-clock <file> --clock <name>');
+  if (rinexFile !== undefined) {
+    const clock = optionalFlag(args, 'clock');
+    if (clock === undefined) throw new UsageError('--rinex-clock needs --clock <name> (satellite such as G05, or station name)');
+    const file = await readRinexClock(createReadStream(rinexFile, { encoding: 'utf8' }), rinexFile);
+    const series = rinexClockSeries(file, clock, tau0Flag === undefined ? {} : { tau0: tau0Flag });
+    if (series.tau0 === undefined) throw new UsageError(`clock ${clock} has a single epoch; give --tau0 <s> or a longer file`);
+    return { data: { phase: series.phase, tau0: series.tau0 }, source: rinexFile, kind: 'phase', gaps: series.gaps, clock, ...(series.timeSystem ? { timeSystem: series.timeSystem } : {}) };
+  }
+  const file = (phaseFile ?? frequencyFile)!;
+  const kind = phaseFile !== undefined ? 'phase' : 'frequency';
+  const series = await readPhaseText(createReadStream(file, { encoding: 'utf8' }), { sourceName: file, ...(tau0Flag === undefined ? {} : { tau0: tau0Flag }) });
+  const tau0 = series.tau0;
+  if (tau0 === undefined) throw new UsageError(`${file} has one column; give the sample spacing with --tau0 <s>`);
+  const data: StabilityData = kind === 'phase' ? { phase: series.phase, tau0 } : { frequency: series.phase, tau0 };
+  return { data, source: file, kind, gaps: series.gaps };
+}
+
+function formatDeviation(stat: StatisticName, v: number): string {
+  return stat === 'tdev' ? `${sig(v, 4)} s` : v.toExponential(3);
+}
+
+export const stabilityCommand: Command = {
+  name: 'stability',
+  summary: 'Allan, modified Allan, time, Hadamard and total deviations with confidence intervals and noise type per τ.',
+  usage: '(--phase <file> | --frequency <file> | --rinex-clock <file> --clock <name>) [--tau0 <s>] [--statistics oadev,mdev,...] [--taus <s,...>] [--noise <type>] [--confidence <p>] [--json]',
+  flags: {
+    phase: { type: 'string', value: '<file>', description: 'Phase (time error) record: one value in seconds per line, or two columns time (s), phase (s); # comments.' },
+    frequency: { type: 'string', value: '<file>', description: 'Fractional-frequency record (dimensionless), same layout as --phase.' },
+    'rinex-clock': { type: 'string', value: '<file>', description: 'RINEX clock file (2.00–3.04); the clock bias of --clock is used as phase.' },
+    clock: { type: 'string', value: '<name>', description: 'Satellite (e.g. G05) or station name in the RINEX clock file.' },
+    tau0: { type: 'string', value: '<s>', description: 'Sample spacing τ0 in seconds (required for one-column files; otherwise the smallest time step).' },
+    statistics: { type: 'string', value: '<list>', description: `Comma list of ${STATISTIC_NAMES.join(', ')} (default ${DEFAULT_STATISTICS.join(',')}).` },
+    taus: { type: 'string', value: '<s,...>', description: 'Averaging times in seconds, each a whole multiple of τ0 (default octaves τ0·2^k).' },
+    noise: { type: 'string', value: '<type>', description: 'State the noise type for the intervals (WPM, FPM, WFM, FFM, RWFM) instead of identifying it per τ.' },
+    confidence: { type: 'string', value: '<p>', description: 'Two-sided confidence level of the intervals, in (0, 1) (default 0.6827 = ±1σ).' },
+    json: { type: 'boolean', description: 'Print one JSON object instead of a table.' },
+  },
+  details: `
+Statistics (NIST SP 1065, W. J. Riley 2008, §5.2), τ = m·τ0, x phase in s:
+  adev/oadev  σ² = Σ(x[i+2m] − 2x[i+m] + x[i])² / (2τ²n)   (non-overlapping / overlapping)
+  mdev        σ² = Σ_j[Σ_{i=j}^{j+m−1}(x[i+2m] − 2x[i+m] + x[i])]² / (2m²τ²n)
+  tdev        σ_x = τ/√3 · mdev  (seconds)
+  hdev/ohdev  σ² = Σ(x[i+3m] − 3x[i+2m] + 3x[i+m] − x[i])² / (6τ²n)
+  totdev      reflected-extension total deviation (§5.2.11)
+Gaps: a missing epoch (time column) or NaN value is a missing sample; statistics use complete terms
+only and report the reduced n; totdev refuses records with gaps. Nothing is interpolated.
+Intervals: chi-square with equivalent degrees of freedom (SP 1065 §5.3): oadev Howe–Allan–Barnes
+formulas; adev, mdev, tdev, hdev, ohdev exact Gaussian edf for the noise type; totdev b·T/τ − c.
+Noise type per τ: lag-1 autocorrelation method (Riley & Greenhall, EFTF 2004), unless --noise is given.
+JSON: { input: { kind, file, samples, phasePoints, missing, gaps[], tau0 }, confidence, statistics,
+rows: [ { tau, m, noise, alpha, noiseSource, <stat>, <stat>Low, <stat>High, <stat>N, <stat>Edf,
+<stat>EdfModel } ], droppedTaus }. A statistic without terms at a τ is null in that row.
+Deviations are dimensionless fractional frequency; tdev and tau are in seconds.
+Exit status: 0 success, 2 unusable input.`,
+  async run(args, io) {
+    const tau0Text = optionalFlag(args, 'tau0');
+    const tau0 = tau0Text === undefined ? undefined : parseNumber('--tau0', tau0Text);
+    const statistics = (listFlag(args, 'statistics') ?? [...DEFAULT_STATISTICS]).map((s) => s.toLowerCase());
+    for (const s of statistics) {
+      if (!STATISTIC_NAMES.includes(s as StatisticName)) throw new UsageError(`--statistics: unknown statistic ${JSON.stringify(s)}; choose from ${STATISTIC_NAMES.join(', ')}`);
+    }
+    const taus = listFlag(args, 'taus')?.map((t) => parseNumber('--taus', t));
+    const noiseText = optionalFlag(args, 'noise');
+    const noise = noiseText?.toUpperCase() as NoiseType | undefined;
+    if (noise !== undefined && !NOISES.includes(noise)) throw new UsageError(`--noise must be one of ${NOISES.join(', ')}; received ${JSON.stringify(noiseText)}`);
+    const confidenceText = optionalFlag(args, 'confidence');
+    const confidence = confidenceText === undefined ? undefined : parseNumber('--confidence', confidenceText);
+
+    const input = await loadInput(args, tau0);
+    const analysis = analyzeStability(input.data, {
+      statistics: statistics as StatisticName[],
+      ...(taus ? { taus } : {}),
+      ...(noise ? { noise } : {}),
+      ...(confidence !== undefined ? { confidence } : {}),
+    });
+    const stats = analysis.statistics;
+
+    if (args.values['json']) {
+      const rows = analysis.rows.map((r) => {
+        const row: Record<string, unknown> = { tau: r.tau, m: r.m, noise: r.noise, alpha: r.alpha, noiseSource: r.noiseSource };
+        for (const s of stats) {
+          const e = r.statistics[s];
+          row[s] = e?.deviation ?? null;
+          row[`${s}Low`] = e?.low ?? null;
+          row[`${s}High`] = e?.high ?? null;
+          row[`${s}N`] = e?.n ?? null;
+          row[`${s}Edf`] = e?.edf ?? null;
+          row[`${s}EdfModel`] = e?.edfModel ?? null;
+        }
+        return row;
+      });
+      io.out(toJson({
+        input: {
+          kind: input.kind, file: input.source, ...(input.clock ? { clock: input.clock } : {}), ...(input.timeSystem ? { timeSystem: input.timeSystem } : {}),
+          samples: analysis.input.samples, phasePoints: analysis.input.phasePoints, missing: analysis.input.missing,
+          gaps: input.gaps, tau0: analysis.input.tau0,
+        },
+        confidence: analysis.confidence,
+        statistics: stats,
+        rows,
+        droppedTaus: analysis.droppedTaus,
+      }));
+      return EXIT_OK;
+    }
+
+    const missing = analysis.input.missing;
+    io.out(`${input.kind} record ${input.source}${input.clock ? ` (clock ${input.clock}${input.timeSystem ? `, ${input.timeSystem} time` : ''})` : ''}: ` +
+      `${analysis.input.samples} samples, τ0 = ${sig(analysis.input.tau0)} s, ${missing} missing in ${input.gaps.length} gap(s)\n`);
+    for (const g of input.gaps.slice(0, 10)) {
+      io.out(`  gap: ${g.missing} missing sample(s) from index ${g.index}${g.time !== undefined ? ` (t = ${sig(g.time)} s)` : ''}, line ${g.line}\n`);
+    }
+    if (input.gaps.length > 10) io.out(`  ... ${input.gaps.length - 10} more gaps (see --json)\n`);
+    const headers = ['τ (s)', 'noise'];
+    for (const s of stats) headers.push(s, `${s} interval`, 'n');
+    const rows = analysis.rows.map((r) => {
+      const cells: string[] = [sig(r.tau, 6), `${r.noise}${r.noiseSource === 'lag1-acf' ? '' : r.noiseSource === 'stated' ? ' (stated)' : '*'}`];
+      for (const s of stats) {
+        const e = r.statistics[s];
+        if (!e) cells.push('—', '—', '—');
+        else cells.push(formatDeviation(s, e.deviation), `[${formatDeviation(s, e.low)}, ${formatDeviation(s, e.high)}]`, String(e.n));
+      }
+      return cells;
+    });
+    io.out('\n' + table(headers, rows));
+    io.out(`\nDeviations are fractional frequency (dimensionless); tdev in seconds. Intervals: ${sig(analysis.confidence * 100, 4)} % chi-square (NIST SP 1065 §5.3).\n`);
+    if (analysis.rows.some((r) => r.noiseSource === 'carried-from-shorter-tau' || r.noiseSource === 'default-wfm')) {
+      io.out('* noise type not identifiable at this τ (fewer than 32 points): carried from a shorter τ, or white FM when none could be identified.\n');
+    }
+    if (analysis.droppedTaus.length > 0) io.out(`Dropped τ (no complete term): ${analysis.droppedTaus.map((t) => sig(t)).join(', ')} s\n`);
+    return EXIT_OK;
+  },
+};

@@ -1,0 +1,111 @@
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import { main } from '../src/main.js';
+
+const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
+const FIX = join(ROOT, 'test/fixtures');
+
+async function run(argv: string[]): Promise<{ status: number; out: string; err: string }> {
+  let out = '';
+  let err = '';
+  const status = await main(argv, { out: (t) => { out += t; }, err: (t) => { err += t; }, isTty: false });
+  return { status, out, err };
+}
+
+const tmp = mkdtempSync(join(tmpdir(), 'tauline-stability-'));
+/** NBS14 frequency data (NIST SP 1065 §12) [V2]. */
+const nbs14Frequency = join(tmp, 'nbs14-frequency.txt');
+writeFileSync(nbs14Frequency, '# NBS14 frequency, tau0 = 1 s\n892\n809\n823\n798\n671\n644\n883\n903\n677\n');
+
+describe('tauline stability', () => {
+  it('tauline stability --phase nbs14 --tau0 1 --json gives the NIST SP 1065 NBS14 values (OADEV 91.22945 / 85.95287, MDEV 74.78849, TDEV 86.35831, OHDEV 85.61487) [V2]', async () => {
+    const r = await run(['stability', '--phase', join(FIX, 'stability/nbs14-phase.txt'), '--tau0', '1', '--json']);
+    expect(r.status).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j.statistics).toEqual(['oadev', 'mdev', 'tdev', 'ohdev']);
+    const [r1, r2] = j.rows;
+    expect(r1.tau).toBe(1);
+    expect(r1.oadev).toBeCloseTo(91.22945, 3);
+    expect(r2.oadev).toBeCloseTo(85.95287, 3);
+    expect(r2.mdev).toBeCloseTo(74.78849, 3);
+    expect(r2.tdev).toBeCloseTo(86.35831, 3);
+    expect(r2.ohdev).toBeCloseTo(85.61487, 3);
+    expect(r2.oadevN).toBe(6);
+    expect(r2.oadevLow).toBeLessThan(r2.oadev);
+    expect(r2.oadevHigh).toBeGreaterThan(r2.oadev);
+    expect(r1.noiseSource).toBe('default-wfm');
+    expect(j.input).toMatchObject({ kind: 'phase', samples: 10, missing: 0, tau0: 1, gaps: [] });
+  });
+  it('tauline stability --frequency nbs14 --statistics adev,hdev,totdev --taus 1,2 gives ADEV 115.8082, HDEV 116.7980, TOTDEV 93.90379 at τ = 2 [V2]', async () => {
+    const r = await run(['stability', '--frequency', nbs14Frequency, '--tau0', '1', '--statistics', 'adev,hdev,totdev', '--taus', '1,2', '--json']);
+    expect(r.status).toBe(0);
+    const row = JSON.parse(r.out).rows[1];
+    expect(row.adev).toBeCloseTo(115.8082, 3);
+    expect(row.hdev).toBeCloseTo(116.798, 3);
+    expect(row.totdev).toBeCloseTo(93.90379, 4);
+    expect(row.totdevN).toBe(8);
+  });
+  it('tauline stability --phase <two-column file> reports the gap in its table and JSON and uses the file spacing', async () => {
+    const file = join(FIX, 'stability/phase-two-column.txt');
+    const t = await run(['stability', '--phase', file]);
+    expect(t.status).toBe(0);
+    expect(t.out).toMatch(/12 samples, τ0 = 30 s, 2 missing in 1 gap/);
+    expect(t.out).toMatch(/gap: 2 missing sample\(s\) from index 5 \(t = 150 s\), line 8/);
+    expect(t.out).toMatch(/oadev interval/);
+    const j = JSON.parse((await run(['stability', '--phase', file, '--json', '--noise', 'wpm'])).out);
+    expect(j.input.gaps).toEqual([{ index: 5, missing: 2, line: 8, time: 150 }]);
+    expect(j.rows[0].noiseSource).toBe('stated');
+    expect(j.rows[0].oadevN).toBe(6);
+  });
+  it('tauline stability --rinex-clock <file> --clock G05 analyses the clock bias as phase; the missing epoch leaves no complete OADEV term, so both τ are dropped', async () => {
+    const r = await run(['stability', '--rinex-clock', join(FIX, 'rinex-clock/fictional-304.clk'), '--clock', 'G05', '--statistics', 'oadev', '--json']);
+    expect(r.status).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j.input).toMatchObject({ clock: 'G05', timeSystem: 'GPS', tau0: 30, missing: 1 });
+    expect(j.rows).toEqual([]);
+    expect(j.droppedTaus).toEqual([30, 60]);
+  });
+  it('tauline stability rejects a τ that is not a multiple of τ0, an unknown statistic or noise, two inputs, no τ0 and a missing clock (exit 2)', async () => {
+    const phase = join(FIX, 'stability/nbs14-phase.txt');
+    const cases: [string[], RegExp][] = [
+      [['--phase', phase, '--tau0', '1', '--taus', '1.5'], /whole multiple/],
+      [['--phase', phase, '--tau0', '1', '--statistics', 'xdev'], /unknown statistic/],
+      [['--phase', phase, '--tau0', '1', '--noise', 'pink'], /--noise must be/],
+      [['--phase', phase, '--frequency', phase, '--tau0', '1'], /exactly one input/],
+      [['--phase', phase], /--tau0/],
+      [['--rinex-clock', join(FIX, 'rinex-clock/fictional-304.clk')], /--clock/],
+      [['--phase', phase, '--tau0', 'ten'], /--tau0/],
+      [['--phase', phase, '--tau0', '1', '--statistics', ' , '], /comma-separated/],
+      [['--phase', phase, '--tau0', '1', '--confidence', '2'], /confidence/],
+    ];
+    for (const [argv, pattern] of cases) {
+      const r = await run(['stability', ...argv]);
+      expect(r.status).toBe(2);
+      expect(r.err).toMatch(pattern);
+    }
+  });
+  it('tauline stability reports a malformed file with its name and line, and a missing file (exit 2)', async () => {
+    const bad = join(tmp, 'bad.txt');
+    writeFileSync(bad, '1\n2\nthree\n');
+    const r = await run(['stability', '--phase', bad, '--tau0', '1']);
+    expect(r.status).toBe(2);
+    expect(r.err).toContain(`${bad}:3:1`);
+    const trunc = await run(['stability', '--rinex-clock', join(FIX, 'rinex-clock/truncated-304.clk'), '--clock', 'G05']);
+    expect(trunc.status).toBe(2);
+    expect(trunc.err).toMatch(/truncated-304\.clk:\d+/);
+    const missing = await run(['stability', '--phase', join(tmp, 'nope.txt'), '--tau0', '1']);
+    expect(missing.status).toBe(2);
+    expect(missing.err).toMatch(/no such file/);
+  });
+  it('the built binary `tauline stability --phase nbs14 --tau0 1 --json` prints the same rows (needs npm run build)', () => {
+    const bin = join(ROOT, 'packages/cli/bin/tauline.js');
+    if (!existsSync(join(ROOT, 'packages/cli/dist/main.js'))) throw new Error('run `npm run build` first: packages/cli/dist/main.js is missing');
+    const r = spawnSync(process.execPath, [bin, 'stability', '--phase', join(FIX, 'stability/nbs14-phase.txt'), '--tau0', '1', '--json'], { encoding: 'utf8' });
+    expect(r.status).toBe(0);
+    expect(JSON.parse(r.stdout).rows[1].oadev).toBeCloseTo(85.95287, 3);
+  });
+});
