@@ -248,6 +248,7 @@ export function createTimeScales(table: LeapSecondTable): TimeScales {
     return i;
   };
 
+  /** UTC = TAI − (TAI − UTC), the table value in force (IERS Bulletin C; ITU-R TF.460 [M]); 23:59:60 labels an inserted second. */
   const utcLabel = (instant: Instant): Label => {
     const i = entryIndexAtInstant(instant);
     const naive = instant.taiSeconds - entries[i]!.taiMinusUtc;
@@ -271,6 +272,7 @@ export function createTimeScales(table: LeapSecondTable): TimeScales {
     }
     if (scale !== 'UTC') return instantFromUniformOrTcgLabel(scale, label.day, label.secondOfDay, label.fraction);
     requireUtcDay(argument, received, label.day);
+    // TAI = UTC + (TAI − UTC) of the UTC day; second 86400 of a leap day lands 1 s before the next midnight's TAI.
     const offset = entries[entryIndexOnDay(label.day)]!.taiMinusUtc;
     return Instant.fromNormalized((label.day - INSTANT_EPOCH_MJD) * 86_400 + label.secondOfDay + offset, label.fraction);
   };
@@ -386,6 +388,7 @@ export function createTimeScales(table: LeapSecondTable): TimeScales {
     requireInstant('instant', instant);
     requireScale('scale', scale);
     const label = labelOf(instant, scale);
+    // MJD = day + (seconds of day)/(length of day) (MJD = JD − 2400000.5, definition [M]).
     const fraction = (label.secondOfDay + label.fraction) / dayLengthOn(scale, label.day);
     return splitDays(label.day, fraction);
   };
@@ -414,6 +417,7 @@ export function createTimeScales(table: LeapSecondTable): TimeScales {
 
   const toJd = (instant: Instant, scale: TimeScale): SplitDays => {
     const mjd = toMjd(instant, scale);
+    // JD = MJD + 2400000.5 (definition of the MJD [M]).
     return splitDays(mjd.day + 2_400_000, mjd.fraction + 0.5);
   };
 
