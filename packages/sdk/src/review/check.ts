@@ -8,6 +8,7 @@
 import { CONSTANT_SETS, DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, constantSet,
   type ConstantSet } from '../constants.js';
 import { meanClockRate, semiMajorAxisForMeanRate, type ReferenceClock } from '../relativity/rate.js';
+import { j2SecularClockRate, osculatingMinusMeanSemiMajorAxis } from '../relativity/j2.js';
 import { createRandom } from '../internal/random.js';
 import type {
   ConfiguredOffset, Diagnosis, DispersionAnalysis, ReviewReport, ReviewSpacecraft, SpacecraftFinding, Verdict,
@@ -87,9 +88,13 @@ export function configuredFraction(configured: ConfiguredOffset, nominalHz: numb
   return { fraction: diffHz / nominalHz, step: clockHz / 2 ** bits / nominalHz };
 }
 
-/** Size of the mean-rate ambiguity from osculating vs mean a under J2: (3GM/(2a²c²))·(3/2)J2 a_e²/a·sin²i (Brouwer short-period a [M]; physics-refs §5 [C]). */
-export function j2SemiMajorAxisAmbiguity(a: number, inclination: number, constants: ConstantSet): { metres: number; fractionalRate: number } {
-  const metres = 1.5 * constants.j2 * constants.equatorialRadius ** 2 / a * Math.sin(inclination) ** 2;
+/**
+ * Size of the mean-rate ambiguity from osculating vs mean a under J2: the short-period amplitude
+ * (3/2)J2 a_e²/a·sin²i of a_osc − ā (Brouwer 1959 [M], via {@link osculatingMinusMeanSemiMajorAxis})
+ * times the rate sensitivity 3GM/(2a²c²) (physics-refs §2, §5 [C]).
+ */
+function j2Ambiguity(a: number, inclination: number, constants: ConstantSet): { metres: number; fractionalRate: number } {
+  const metres = Math.abs(osculatingMinusMeanSemiMajorAxis(a, inclination, 0, constants));
   return { metres, fractionalRate: (3 * constants.gm) / (2 * a * a * SPEED_OF_LIGHT_SQUARED) * metres };
 }
 
@@ -158,13 +163,18 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
     const set = constantSet(sc.constants ?? input.constants ?? DEFAULT_CONSTANT_SET.name);
     const reference: ReferenceClock = sc.reference ?? input.reference ?? 'tt';
     const rate = meanClockRate(sc.orbit.semiMajorAxis, { constants: set, reference });
-    return { sc, set, reference, rate };
+    const kind = sc.orbit.semiMajorAxisKind;
+    const j2 = j2SecularClockRate({
+      semiMajorAxis: sc.orbit.semiMajorAxis, eccentricity: sc.orbit.eccentricity ?? 0, inclination: sc.orbit.inclination ?? 0,
+      semiMajorAxisKind: kind ?? 'mean', ...(kind === 'osculating' ? { argumentOfLatitude: sc.orbit.argumentOfLatitude! } : {}),
+    }, set).j2Correction;
+    const totalRate = rate.fractionalRate + (kind ? j2 : 0);
+    return { sc, set, reference, rate, j2, totalRate, expected: offsetForRate(totalRate) };
   });
 
-  const findings = resolved.map(({ sc, set, reference, rate }, index): SpacecraftFinding => {
+  const findings = resolved.map(({ sc, set, reference, rate, j2, totalRate, expected }, index): SpacecraftFinding => {
     const nominal = sc.nominalFrequencyHz;
     const tolerance = sc.tolerance?.fractional ?? input.tolerance?.fractional ?? defaultTolerance;
-    const expected = rate.factoryOffset;
     const { fraction: configured, step } = configuredFraction(sc.configured, nominal);
     const difference = configured - expected;
     const diagnosis: Diagnosis[] = [];
@@ -173,7 +183,7 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
 
     if (verdict !== 'pass') {
       const others = resolved.filter((_, j) => j !== index && Math.abs(resolved[j]!.sc.orbit.semiMajorAxis - sc.orbit.semiMajorAxis) > 1)
-        .map((o) => ({ id: o.sc.id, offset: o.rate.factoryOffset }));
+        .map((o) => ({ id: o.sc.id, offset: o.expected }));
       const matched = hypotheses(sc, set, reference, others)
         .filter((h) => Math.abs(configured - h.value) <= matchWindow && Math.abs(h.value - expected) > matchWindow)
         .sort((x, y) => Math.abs(configured - x.value) - Math.abs(configured - y.value));
@@ -216,11 +226,12 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
 
     // J2: the mean rate depends on which semi-major axis (osculating or mean) was used.
     const inclination = sc.orbit.inclination ?? 0;
-    const ambiguity = j2SemiMajorAxisAmbiguity(sc.orbit.semiMajorAxis, inclination, set);
-    if (ambiguity.fractionalRate > 0.5 * tolerance && verdict === 'pass') verdict = 'marginal';
-    if (ambiguity.fractionalRate > 0.5 * tolerance) {
-      diagnosis.push({ code: 'set-indistinguishable', matches: false, wouldHaveProduced: null,
-        message: `Under J2 the osculating and mean semi-major axes differ by up to ${ambiguity.metres.toFixed(0)} m here, a rate ambiguity of ${fmt(ambiguity.fractionalRate, 3)}, which is not small against the tolerance ${fmt(tolerance, 3)}: state which a the orbit value is.` });
+    const ambiguity = j2Ambiguity(sc.orbit.semiMajorAxis, inclination, set);
+    const ambiguous = !sc.orbit.semiMajorAxisKind && ambiguity.fractionalRate > 0.5 * tolerance;
+    if (ambiguous && verdict === 'pass') verdict = 'marginal';
+    if (ambiguous) {
+      diagnosis.push({ code: 'semi-major-axis-kind', matches: false, wouldHaveProduced: null,
+        message: `Under J2 the osculating and mean semi-major axes differ by up to ${ambiguity.metres.toFixed(0)} m here, a rate ambiguity of ${fmt(ambiguity.fractionalRate, 3)}, which is not small against the tolerance ${fmt(tolerance, 3)}: state which a the orbit value is (orbit.semiMajorAxisKind).` });
     }
 
     const actuator = sc.actuator ?? input.actuator;
@@ -254,7 +265,7 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
       differenceHz: nominal * difference,
       differenceNanosecondsPerDay: difference * SECONDS_PER_DAY * 1e9,
       toleranceFractional: tolerance,
-      budget: { gravitational: rate.gravitational, velocity: rate.velocity, fractionalRate: rate.fractionalRate, j2Ambiguity: ambiguity.fractionalRate },
+      budget: { gravitational: rate.gravitational, velocity: rate.velocity, j2, j2Included: Boolean(sc.orbit.semiMajorAxisKind), fractionalRate: totalRate, j2Ambiguity: ambiguity.fractionalRate },
       quantisationStepFractional: step,
       diagnosis,
       dispersion,

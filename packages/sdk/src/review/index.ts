@@ -1,4 +1,4 @@
-export { reviewOffsets, configuredFraction, j2SemiMajorAxisAmbiguity, REVIEW_CAUTION } from './check.js';
+export { reviewOffsets, configuredFraction, REVIEW_CAUTION } from './check.js';
 export type { ReviewOptions } from './check.js';
 export { parseReviewInput } from './parse.js';
 export { reviewToMarkdown, reviewToHtml } from './render.js';

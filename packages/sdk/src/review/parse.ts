@@ -113,6 +113,15 @@ function parseConfigured(path: string, v: unknown, nominal: number): ConfiguredO
   return { tuningWord: { word: big.toString(), clockHz, bits } };
 }
 
+function parseSemiMajorAxisKind(path: string, o: Record<string, unknown>): { semiMajorAxisKind?: 'mean' | 'osculating'; argumentOfLatitude?: number } {
+  const kind = o['semiMajorAxisKind'];
+  if (kind === undefined) return {};
+  if (kind !== 'mean' && kind !== 'osculating') throw new InvalidArgumentError(`${path}.semiMajorAxisKind`, kind, '"mean" or "osculating"');
+  if (kind === 'mean') return { semiMajorAxisKind: kind };
+  return { semiMajorAxisKind: kind, argumentOfLatitude: requireFinite(`${path}.argumentOfLatitude`, o['argumentOfLatitude'],
+    'the argument of latitude (radians) where the osculating semi-major axis was taken') };
+}
+
 /**
  * Validates an already-parsed review document and returns it typed. Unknown extra fields
  * are kept (they document the spacecraft); known fields are checked for type and range.
@@ -143,6 +152,7 @@ export function parseReviewInput(document: unknown): ReviewInput {
       eccentricity: orbitObj['eccentricity'] === undefined ? 0 : requireEccentricity(`${p}.orbit.eccentricity`, orbitObj['eccentricity']),
       inclination: orbitObj['inclination'] === undefined ? 0
         : requireInRange(`${p}.orbit.inclination`, orbitObj['inclination'], 0, Math.PI, { unit: 'rad (a value above π is probably degrees)' }),
+      ...parseSemiMajorAxisKind(`${p}.orbit`, orbitObj),
     };
     let dispersion: { semiMajorAxisSigma: number } | undefined;
     if (o['dispersion'] !== undefined) {

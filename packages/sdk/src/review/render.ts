@@ -36,7 +36,7 @@ export function reviewToMarkdown(report: ReviewReport): string {
     lines.push('', `## ${s.id}: ${VERDICT_MARK[s.verdict]}`, '', s.summary, '',
       `- Constants: ${s.constants}; reference: ${s.reference.toUpperCase()}; a = ${s.semiMajorAxis} m; nominal ${s.nominalFrequencyHz} Hz`,
       `- Expected output frequency: ${s.expectedFrequencyHz.toFixed(7)} Hz; configured: ${s.configuredFrequencyHz.toFixed(7)} Hz; difference ${e(s.differenceHz, 4)} Hz`,
-      `- Rate budget: gravitational ${f(usPerDay(s.budget.gravitational), 4)} µs/day, velocity ${f(usPerDay(s.budget.velocity), 4)} µs/day, net ${f(usPerDay(s.budget.fractionalRate), 4)} µs/day; J2 osculating/mean-a ambiguity ${e(s.budget.j2Ambiguity, 2)}`);
+      `- Rate budget: gravitational ${f(usPerDay(s.budget.gravitational), 4)} µs/day, velocity ${f(usPerDay(s.budget.velocity), 4)} µs/day, J2 ${f(usPerDay(s.budget.j2) * 1e3, 4)} ns/day (${s.budget.j2Included ? 'included' : 'not included: the kind of a is not stated'}), net ${f(usPerDay(s.budget.fractionalRate), 4)} µs/day; J2 osculating/mean-a ambiguity ${e(s.budget.j2Ambiguity, 2)}`);
     if (s.quantisationStepFractional !== null) lines.push(`- Tuning-word step: ${e(s.quantisationStepFractional, 3)} (fractional)`);
     if (s.diagnosis.length > 0) {
       lines.push('', '| finding | would have produced | explanation |', '|---|---:|---|');
@@ -64,6 +64,7 @@ function budgetSvg(s: SpacecraftFinding): string {
   const items = [
     { label: 'gravitational', value: usPerDay(s.budget.gravitational) },
     { label: 'velocity', value: usPerDay(s.budget.velocity) },
+    { label: s.budget.j2Included ? 'J2' : 'J2 (not incl.)', value: usPerDay(s.budget.j2) },
     { label: 'net rate', value: usPerDay(s.budget.fractionalRate) },
   ];
   const max = Math.max(...items.map((i) => Math.abs(i.value)), 1e-9);
@@ -72,14 +73,14 @@ function budgetSvg(s: SpacecraftFinding): string {
     const len = (Math.abs(item.value) / max) * half;
     const x = item.value >= 0 ? mid : mid - len;
     const y = 10 + i * rowH;
-    const pattern = i === 2 ? 'url(#hatch)' : 'currentColor';
+    const pattern = i === items.length - 1 ? 'url(#hatch)' : 'currentColor';
     return `<text x="${left - 8}" y="${y + 14}" text-anchor="end">${item.label}</text>` +
       `<rect x="${x.toFixed(1)}" y="${y + 3}" width="${len.toFixed(1)}" height="16" fill="${pattern}" stroke="currentColor"/>` +
       `<text x="${(item.value >= 0 ? mid + len + 6 : mid - len - 6).toFixed(1)}" y="${y + 15}" text-anchor="${item.value >= 0 ? 'start' : 'end'}">${item.value.toFixed(3)} µs/day</text>`;
   }).join('');
-  return `<svg class="plot" viewBox="0 0 ${width} ${10 + 3 * rowH + 10}" role="img" aria-label="Rate budget of ${esc(s.id)}: ${items.map((i) => `${i.label} ${i.value.toFixed(3)} microseconds per day`).join(', ')}">` +
+  return `<svg class="plot" viewBox="0 0 ${width} ${10 + items.length * rowH + 10}" role="img" aria-label="Rate budget of ${esc(s.id)}: ${items.map((i) => `${i.label} ${i.value.toFixed(3)} microseconds per day`).join(', ')}">` +
     '<defs><pattern id="hatch" width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)"><line x1="0" y1="0" x2="0" y2="6" stroke="currentColor" stroke-width="2"/></pattern></defs>' +
-    `<line x1="${mid}" y1="4" x2="${mid}" y2="${10 + 3 * rowH}" stroke="currentColor" stroke-dasharray="2 2"/>${rows}</svg>`;
+    `<line x1="${mid}" y1="4" x2="${mid}" y2="${10 + items.length * rowH}" stroke="currentColor" stroke-dasharray="2 2"/>${rows}</svg>`;
 }
 
 /** Residual rate across the dispersion (percentile curve) with the actuator range when known. */

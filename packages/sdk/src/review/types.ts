@@ -26,6 +26,14 @@ export interface ReviewOrbit {
   readonly eccentricity?: Dimensionless;
   /** Inclination, in radians (default 0). */
   readonly inclination?: Radians;
+  /**
+   * Which semi-major axis `semiMajorAxis` is under J2: `mean` (orbit average) or `osculating` (then
+   * `argumentOfLatitude` says where it was taken). When stated, the expected offset includes the J2
+   * secular term; when not, the point-mass value is used and the report states the ambiguity.
+   */
+  readonly semiMajorAxisKind?: 'mean' | 'osculating';
+  /** Argument of latitude where an osculating a was taken, in radians. */
+  readonly argumentOfLatitude?: Radians;
 }
 
 /** Limits that apply to a spacecraft (top-level values are defaults for every spacecraft). */
@@ -78,8 +86,7 @@ export type DiagnosisCode =
   | 'velocity-term-only'
   | 'quantisation'
   | 'actuator-range'
-  | 'not-tt-but-ground'
-  | 'set-indistinguishable';
+  | 'semi-major-axis-kind';
 
 export interface Diagnosis {
   readonly code: DiagnosisCode;
@@ -143,10 +150,15 @@ export interface SpacecraftFinding {
   /** configured − expected, as accumulated time error, ns/day. */
   readonly differenceNanosecondsPerDay: number;
   readonly toleranceFractional: Dimensionless;
-  /** Parts of the expected rate (fractional): gravitational, velocity, and the J2 caveat size. */
+  /** Parts of the expected rate (fractional): gravitational, velocity, J2, and the J2 caveat size. */
   readonly budget: {
     readonly gravitational: Dimensionless;
     readonly velocity: Dimensionless;
+    /** Secular J2 change of the rate for the stated kind of a (for a mean a when the kind is not stated). */
+    readonly j2: Dimensionless;
+    /** Whether `j2` is included in `fractionalRate` and in the expected offset (only when the kind of a is stated). */
+    readonly j2Included: boolean;
+    /** Total rate the expected offset compensates. */
     readonly fractionalRate: Dimensionless;
     /** Size of the osculating-vs-mean semi-major-axis ambiguity under J2 (fractional), for the caveat. */
     readonly j2Ambiguity: Dimensionless;

@@ -173,6 +173,23 @@ describe('dispersion analysis', () => {
   });
 });
 
+describe('J2 in the expected offset', () => {
+  it('includes the J2 secular term only when the kind of a is stated, and agrees with j2SecularClockRate', async () => {
+    const { j2SecularClockRate } = await import('../../src/relativity/j2.js');
+    const orbit = { semiMajorAxis: 26_561_750, inclination: 0.3 };
+    const plain = reviewOffsets(withSpacecraft({ orbit })).spacecraft[0]!;
+    const mean = reviewOffsets(withSpacecraft({ orbit: { ...orbit, semiMajorAxisKind: 'mean' } })).spacecraft[0]!;
+    const j2 = j2SecularClockRate({ ...orbit, eccentricity: 0, semiMajorAxisKind: 'mean' }).j2Correction;
+    expect(plain.budget.j2Included).toBe(false);
+    expect(mean.budget.j2Included).toBe(true);
+    expect(mean.budget.j2).toBe(j2);
+    // offset = −r/(1+r), so a rate change δ moves it by −δ/(1+r)²: equal to −δ within 2r·δ ≈ 3e-23.
+    expect(mean.expectedFractionalOffset - plain.expectedFractionalOffset).toBeCloseTo(-j2, 21);
+    expect(() => parseReviewInput(withSpacecraft({ orbit: { ...orbit, semiMajorAxisKind: 'osculating' } }))).toThrow(/argumentOfLatitude/);
+    expect(() => parseReviewInput(withSpacecraft({ orbit: { ...orbit, semiMajorAxisKind: 'average' } }))).toThrow(/semiMajorAxisKind/);
+  });
+});
+
 describe('reviewToMarkdown / reviewToHtml', () => {
   const report = reviewOffsets(load('kestrel-block-b-mistakes.review.json'));
   it('markdown carries the caution, a summary table and each diagnosis code', () => {
