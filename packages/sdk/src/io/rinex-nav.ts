@@ -123,6 +123,12 @@ const SYSTEM_NAMES: Record<string, string> = {
 };
 /** Weeks between 1980-01-06 (GPS week 0) and 2006-01-01 (BDT week 0) [M, BDS-SIS-ICD §3.3]. */
 const BDT_WEEK_OFFSET = 1356;
+/**
+ * Minimum line counts of records that are skipped but whose length is known, so that a file cut
+ * inside one is still reported: GLONASS and SBAS epoch + 3 orbit lines, QZSS and NavIC epoch + 7
+ * (RINEX 3.05 Tables A10, A12, A16, A18 [M]).
+ */
+const MINIMUM_SKIPPED_LINES: Readonly<Record<string, number>> = { R: 4, S: 4, J: 8, I: 8 };
 /** Lines of a modelled Keplerian record: epoch line + 7 broadcast-orbit lines (RINEX 3.05 Tables A4, A8, A14 [M]). */
 const KEPLER_RECORD_LINES = 8;
 
@@ -326,6 +332,15 @@ export class RinexNavParser {
     const recordType: RinexNavRecordType = v4 ? v4.type : 'EPH';
     const message = v4?.message;
     const modelled = recordType === 'EPH' && modelledMessage(system, message) !== undefined;
+    if (recordType === 'EPH') {
+      rec.lines.forEach((l, k) => this._checkFieldAlignment(l, k === 0));
+      const minimum = MINIMUM_SKIPPED_LINES[system];
+      if (!modelled && minimum !== undefined && rec.lines.length < minimum) {
+        const at = next ?? { text: '', lineNumber: this._lastLine + 1 };
+        throw this._error(at, 1, `at least ${minimum} lines for the ${SYSTEM_NAMES[system]} record of ${satellite} starting at line ${rec.start.lineNumber} ` +
+          `(found ${rec.lines.length}: truncated record)`, at.text);
+      }
+    }
     if (!modelled) {
       return [{
         kind: 'skipped',
@@ -350,6 +365,20 @@ export class RinexNavParser {
       throw this._error(first, 1, `satellite ${v4.satellite} as named in the record header on line ${v4.line.lineNumber}`, first.text.slice(0, 3));
     }
     return [{ kind: 'ephemeris', ephemeris: this._parseKepler(rec.lines, system as KeplerianSystem, message) }];
+  }
+
+  /**
+   * Fields are right-aligned in D19.12 columns, so a line (trailing blanks removed) must end on a
+   * field boundary: column 23 + 19k for the epoch line, 4 + 19k for orbit lines. A line that ends
+   * inside a field was cut (a truncated file), and its last number would be misread.
+   */
+  private _checkFieldAlignment(line: TextLine, epochLine: boolean): void {
+    const start = epochLine ? 23 : 4;
+    const length = line.text.trimEnd().length;
+    if (length > start && (length - start) % 19 !== 0) {
+      const end = start + 19 * Math.ceil((length - start) / 19);
+      throw this._error(line, length + 1, `a complete D19.12 field ending at column ${end} (the line ends inside a field: truncated?)`, line.text.slice(end - 19));
+    }
   }
 
   private _number(line: TextLine, start: number, name: string, required: true): number;
