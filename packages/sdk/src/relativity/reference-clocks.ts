@@ -202,7 +202,8 @@ export function groundClockRate(station: { latitude: Radians; longitude: Radians
   const rateVsTT = (W0 - W) / SPEED_OF_LIGHT_SQUARED;
   return {
     rateVsTT,
-    rateVsTCG: (1 + rateVsTT) * (1 - constants.lG) - 1,
+    // (1 + rateVsTT)(1 − L_G) − 1, expanded so that no 1 − L_G rounding (≈ 5e-17) enters.
+    rateVsTCG: rateVsTT - constants.lG - rateVsTT * constants.lG,
     nanosecondsPerDayVsTT: rateVsTT * SECONDS_PER_DAY * 1e9,
     normalPotential: U,
     gravityPotential: W,
