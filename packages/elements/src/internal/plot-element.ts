@@ -18,6 +18,7 @@ export abstract class PlotElement extends LitElement {
   /** Colour scheme: `light`, `dark`, or unset to inherit the page's `color-scheme`. */
   theme?: 'light' | 'dark';
 
+  /** @internal */
   protected readonly _size = new ResizeController(this, () => this.renderRoot.querySelector?.('.plot-box'));
   private _colorCache: Record<string, string> | null = null;
   private _schemeKey = '';
@@ -49,15 +50,17 @@ export abstract class PlotElement extends LitElement {
     if (changed.has('theme')) this._colorCache = null;
   }
 
-  /** The plot box element, once rendered. */
+  /** The plot box element, once rendered. @internal */
   protected get _box(): HTMLElement | null {
     return this.renderRoot.querySelector<HTMLElement>('.plot-box');
   }
 
+  /** @internal */
   protected get _dataCanvas(): HTMLCanvasElement | null {
     return this.renderRoot.querySelector<HTMLCanvasElement>('canvas.data');
   }
 
+  /** @internal */
   protected get _overlayCanvas(): HTMLCanvasElement | null {
     return this.renderRoot.querySelector<HTMLCanvasElement>('canvas.overlay');
   }

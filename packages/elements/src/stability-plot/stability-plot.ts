@@ -55,7 +55,7 @@ export class TaulineStabilityPlot extends PlotElement {
     label: {},
     noTable: { type: Boolean, reflect: true, attribute: 'no-table' },
     noIntervals: { type: Boolean, reflect: true, attribute: 'no-intervals' },
-    _hover: { state: true },
+    _hover: { state: true, attribute: false },
   };
 
   /**

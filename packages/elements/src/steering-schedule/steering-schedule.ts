@@ -87,8 +87,8 @@ export class TaulineSteeringSchedule extends PlotElement {
     fitAll: { type: Boolean, attribute: 'fit-all' },
     noTable: { type: Boolean, reflect: true, attribute: 'no-table' },
     selectedIndex: { type: Number, attribute: 'selected-index' },
-    _hover: { state: true },
-    _announcement: { state: true },
+    _hover: { state: true, attribute: false },
+    _announcement: { state: true, attribute: false },
   };
 
   /** The planner output: `{ feasible, reason?, commands, predicted: { t, steered, unsteered }, metrics }`. */
