@@ -1,5 +1,7 @@
 /** The command registry. Add a command: write `commands/<name>.ts` exporting a `Command`, then list it here. */
 import type { Command } from '../framework.js';
+import { planCommand } from './plan.js';
+import { simulateCommand } from './simulate.js';
 import { stabilityCommand } from './stability.js';
 import { reviewCommand } from './review.js';
 import { rateCommand } from './rate.js';
@@ -7,6 +9,8 @@ import { periodicCommand } from './periodic.js';
 import { propertimeCommand } from './propertime.js';
 
 export const COMMANDS: Command[] = [
+  planCommand,
+  simulateCommand,
   rateCommand,
   periodicCommand,
   propertimeCommand,

@@ -1,0 +1,115 @@
+/**
+ * `tauline rate`: mean relativistic rate of a clock on a Kepler orbit, its split into
+ * gravitational and velocity parts, and the factory frequency offset that compensates it.
+ */
+import { constantSet, type ConstantSet } from '@tauline/sdk/constants';
+import { InvalidArgumentError } from '@tauline/sdk/errors';
+import { meanClockRate, REFERENCE_CLOCKS, type ReferenceClock } from '@tauline/sdk/relativity';
+import { offsetFrequency } from '@tauline/sdk/oscillator';
+import {
+  EXIT_OK, FLIGHT_CAUTION, keyValueTable, numberFlag, optionalFlag, sig, toJson, type Command, type ParsedArgs,
+} from '../framework.js';
+
+/**
+ * Runs `body`, renaming the argument of an SDK InvalidArgumentError to the command-line flag
+ * it came from (e.g. `semiMajorAxis` → `--semi-major-axis`), so the one-line error names what
+ * the user typed.
+ */
+export function withFlagNames<T>(flags: Record<string, string>, body: () => T): T {
+  try {
+    return body();
+  } catch (error) {
+    if (error instanceof InvalidArgumentError && flags[error.argument] !== undefined) {
+      throw new InvalidArgumentError(flags[error.argument]!, error.received, error.expected, error.hint);
+    }
+    throw error;
+  }
+}
+
+/** Reads `--constants` (default iers-2010), naming the flag when the set is unknown. */
+export function constantsFlag(args: ParsedArgs): ConstantSet {
+  const name = optionalFlag(args, 'constants') ?? 'iers-2010';
+  return withFlagNames({ constants: '--constants' }, () => constantSet(name));
+}
+
+/** Reads `--reference` (default tt). */
+function referenceFlag(args: ParsedArgs): ReferenceClock {
+  const text = optionalFlag(args, 'reference') ?? 'tt';
+  const lower = text.toLowerCase();
+  if (lower === 'tt' || lower === 'tcg') return lower;
+  throw new InvalidArgumentError('--reference', text, `one of ${REFERENCE_CLOCKS.join(', ')}`);
+}
+
+function signed(value: number, digits = 10): string {
+  const text = sig(value, digits);
+  return value > 0 ? `+${text}` : text;
+}
+
+export const rateCommand: Command = {
+  name: 'rate',
+  summary: 'Mean relativistic rate of an orbiting clock and the factory offset that compensates it.',
+  usage: '--semi-major-axis <m> [--constants <name>] [--reference tt|tcg] [--nominal-frequency <Hz>] [--json]',
+  flags: {
+    'semi-major-axis': { type: 'string', value: '<m>', description: 'Orbit semi-major axis a, in metres (e.g. 26561750 for GPS).' },
+    constants: { type: 'string', value: '<name>', description: 'Constant set: iers-2010 (default), gps-icd, galileo-icd, beidou-icd.' },
+    reference: { type: 'string', value: 'tt|tcg', description: 'Reference time scale: tt (clocks on the geoid, default) or tcg.' },
+    'nominal-frequency': { type: 'string', value: '<Hz>', description: 'Nominal oscillator frequency f0, in Hz; adds the frequency to set on the ground.' },
+    json: { type: 'boolean', description: 'Print one JSON object instead of a table.' },
+  },
+  details: `
+Rate = dτ/dt − 1 of the satellite clock against the reference; positive means it runs fast.
+  vs TT:  rate = L_G − 3GM/(2ac²)  = [L_G − GM/(ac²)] (gravitational) + [−GM/(2ac²)] (velocity)
+  vs TCG: rate = −3GM/(2ac²)       = [−GM/(ac²)] + [−GM/(2ac²)]
+  factory offset = 1/(1 + rate) − 1;   f_ground = f0·(1 + factory offset)
+Source: IERS Conventions (2010) §10.2 eqs. 10.7 and 10.9, averaged over a Kepler orbit (energy v²/2 − GM/r = −GM/(2a));
+N. Ashby, Living Rev. Relativity 6 (2003) §5. Point-mass Earth: J2 adds ~1e-14, and individual satellites differ
+from the conventional value by up to 1e-13 (IERS 2010 §10.2). GPS check: a = 26561750 m → +4.4647e-10, 38.575 µs/day.
+JSON fields: semiMajorAxis (m), constants, reference, fractionalRate, gravitational, velocity, microsecondsPerDay,
+factoryOffset, and with --nominal-frequency: nominalFrequencyHz, offsetFrequencyHz, offsetHz; caution.
+Exit status: 0 success, 2 invalid input.`,
+  run(args, io) {
+    const semiMajorAxis = numberFlag(args, 'semi-major-axis', true);
+    const constants = constantsFlag(args);
+    const reference = referenceFlag(args);
+    const nominal = numberFlag(args, 'nominal-frequency');
+    const rate = withFlagNames({ semiMajorAxis: '--semi-major-axis' },
+      () => meanClockRate(semiMajorAxis, { constants, reference }));
+    const shifted = nominal === undefined ? undefined
+      : withFlagNames({ nominalFrequency: '--nominal-frequency' }, () => offsetFrequency(nominal, rate.factoryOffset));
+    if (args.values['json']) {
+      io.out(toJson({
+        semiMajorAxis: rate.semiMajorAxis,
+        constants: rate.constants,
+        reference: rate.reference,
+        fractionalRate: rate.fractionalRate,
+        gravitational: rate.gravitational,
+        velocity: rate.velocity,
+        microsecondsPerDay: rate.microsecondsPerDay,
+        factoryOffset: rate.factoryOffset,
+        ...(shifted && nominal !== undefined
+          ? { nominalFrequencyHz: nominal, offsetFrequencyHz: shifted.offsetFrequencyHz, offsetHz: shifted.offsetHz } : {}),
+        caution: FLIGHT_CAUTION,
+      }));
+      return EXIT_OK;
+    }
+    const ref = reference.toUpperCase();
+    const rows: [string, string][] = [
+      ['semi-major axis', `${rate.semiMajorAxis} m`],
+      ['constants', `${constants.name} (${constants.description})`],
+      ['reference', ref],
+      ['fractional rate', `${signed(rate.fractionalRate)} (satellite clock runs ${rate.fractionalRate >= 0 ? 'fast' : 'slow'} vs ${ref})`],
+      ['  gravitational', signed(rate.gravitational)],
+      ['  velocity', signed(rate.velocity)],
+      ['time gained per day', `${signed(rate.microsecondsPerDay)} µs/day`],
+      ['factory offset', `${signed(rate.factoryOffset)} (set the oscillator ${rate.factoryOffset < 0 ? 'low' : 'high'} on the ground)`],
+    ];
+    if (shifted && nominal !== undefined) {
+      rows.push(['nominal frequency', `${nominal} Hz`]);
+      rows.push(['frequency to set', `${shifted.offsetFrequencyHz.toPrecision(17).replace(/0+$/, '')} Hz`]);
+      rows.push(['offset', `${signed(shifted.offsetHz)} Hz`]);
+    }
+    io.out(keyValueTable(rows));
+    io.out(`\n${FLIGHT_CAUTION}\n`);
+    return EXIT_OK;
+  },
+};
