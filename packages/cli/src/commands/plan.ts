@@ -1,0 +1,171 @@
+/**
+ * `tauline plan <scenario.json>`: when and by how much to steer an onboard clock so that its
+ * offset stays inside the tolerance, from a steering scenario file.
+ */
+import { readFile } from 'node:fs/promises';
+import { planSteering, type SteeringMethod, type SteeringPlan, type SteeringScenario } from '@tauline/sdk/steering';
+import { InvalidArgumentError, ParseError } from '@tauline/sdk/errors';
+import { EXIT_FINDING, EXIT_OK, UsageError, keyValueTable, optionalFlag, table, toJson, type Command } from '../framework.js';
+
+const METHODS: readonly SteeringMethod[] = ['deadband', 'optimal', 'none'];
+
+/**
+ * Offset of the first JSON syntax error in `text` (RFC 8259 grammar), for engines whose
+ * JSON.parse message carries no position. Undefined when none is found.
+ */
+export function jsonErrorOffset(text: string): number | undefined {
+  let i = 0;
+  const ws = (): void => { while (i < text.length && ' \t\n\r'.includes(text[i]!)) i++; };
+  const fail = (): never => { throw i; };
+  const literal = (word: string): void => { if (text.startsWith(word, i)) i += word.length; else fail(); };
+  const str = (): void => {
+    i++;
+    while (i < text.length && text[i] !== '"') {
+      if (text[i] === '\\') i++;
+      else if (text.charCodeAt(i) < 0x20) fail();
+      i++;
+    }
+    if (i >= text.length) fail();
+    i++;
+  };
+  const num = (): void => {
+    const m = /^-?(0|[1-9]\d*)(\.\d+)?([eE][+-]?\d+)?/.exec(text.slice(i, i + 400));
+    if (!m) fail();
+    i += m![0].length;
+  };
+  const value = (): void => {
+    ws();
+    const c = text[i];
+    if (c === '{') {
+      i++; ws();
+      if (text[i] === '}') { i++; return; }
+      for (;;) {
+        ws(); if (text[i] !== '"') fail(); str(); ws();
+        if (text[i] !== ':') fail(); i++; value(); ws();
+        if (text[i] === ',') { i++; continue; }
+        if (text[i] === '}') { i++; return; }
+        fail();
+      }
+    } else if (c === '[') {
+      i++; ws();
+      if (text[i] === ']') { i++; return; }
+      for (;;) {
+        value(); ws();
+        if (text[i] === ',') { i++; continue; }
+        if (text[i] === ']') { i++; return; }
+        fail();
+      }
+    } else if (c === '"') str();
+    else if (c === 't') literal('true');
+    else if (c === 'f') literal('false');
+    else if (c === 'n') literal('null');
+    else num();
+  };
+  try {
+    value(); ws();
+    return i < text.length ? i : undefined;
+  } catch (at) {
+    return typeof at === 'number' ? at : undefined;
+  }
+}
+
+/** Reads a scenario file; a JSON syntax error becomes a ParseError with line and column. */
+export async function readScenarioFile(path: string): Promise<unknown> {
+  const text = await readFile(path, 'utf8');
+  try {
+    return JSON.parse(text) as unknown;
+  } catch (error) {
+    const message = error instanceof Error ? error.message : String(error);
+    const position = /position (\d+)/.exec(message);
+    const offset = position ? Number(position[1]) : jsonErrorOffset(text);
+    let line = 1;
+    let column: number | undefined;
+    if (offset !== undefined) {
+      const before = text.slice(0, offset);
+      line = before.split('\n').length;
+      column = offset - before.lastIndexOf('\n');
+    }
+    throw new ParseError(path, line, column, 'valid JSON (a steering scenario)', message.replace(/^.*?: /, ''));
+  }
+}
+
+/** Reads the --strategy flag; undefined keeps the scenario's own. */
+export function strategyFlag(value: string | undefined, allowAll: boolean): SteeringMethod | 'all' | undefined {
+  if (value === undefined) return undefined;
+  if ((METHODS as readonly string[]).includes(value) || (allowAll && value === 'all')) return value as SteeringMethod | 'all';
+  throw new InvalidArgumentError('--strategy', value, `one of ${[...METHODS, ...(allowAll ? ['all'] : [])].join(', ')}`);
+}
+
+/** Nanoseconds with sign and 3 decimals (display only). */
+export function nsText(seconds: number): string {
+  return `${(seconds * 1e9).toFixed(3)} ns`;
+}
+
+function stepText(c: SteeringPlan['commands'][number]): string {
+  return c.kind === 'frequency' ? `${c.fractionalFrequencyStep! >= 0 ? '+' : ''}${c.fractionalFrequencyStep!.toExponential(3)}`
+    : `${c.phaseStepSeconds! >= 0 ? '+' : ''}${nsText(c.phaseStepSeconds!)}`;
+}
+
+/** The human-readable schedule. */
+export function planToText(scenario: SteeringScenario, method: string, plan: SteeringPlan): string {
+  const out: string[] = [];
+  const tol = scenario.tolerance;
+  out.push(`${scenario.name ?? 'Steering plan'}: ${method} planner, ${scenario.epoch} + ${(scenario.horizonSeconds / 86_400).toFixed(2)} days`);
+  out.push(`Tolerance ±${nsText(tol.phaseSeconds)} at ${tol.probability * 100} % per epoch`);
+  out.push(plan.feasible ? 'Feasible: yes' : `Feasible: NO. ${plan.reason ?? ''}`, '');
+  if (plan.commands.length === 0) out.push('No commands.');
+  else {
+    out.push(table(['#', 'uplink (UTC)', 'execute (UTC)', 'kind', 'step (fractional or ns)', 'actuator steps', 'reason'],
+      plan.commands.map((c, i) => [i + 1, c.uplinkAt, c.executeAt, c.kind, stepText(c), c.actuatorSteps, c.reason])).trimEnd());
+  }
+  const m = plan.metrics;
+  out.push('', keyValueTable([
+    ['worst predicted |mean offset|', nsText(m.worstPredictedOffsetSeconds)],
+    ['worst |mean| + z·σ', `${nsText(m.worstOffsetBoundSeconds)} (tolerance ±${nsText(tol.phaseSeconds)})`],
+    ['probability in tolerance', `${m.probabilityInTolerance.toFixed(4)} (smallest per-epoch value)`],
+    ['commands', String(m.commandCount)],
+    ['total frequency steering', `${m.totalFrequencySteering.toExponential(3)} (fractional)`],
+    ['total phase steering', nsText(m.totalPhaseSteeringSeconds)],
+    ['expected cost J', m.expectedCost.toFixed(5)],
+  ]).trimEnd());
+  const t = plan.predicted.t;
+  const every = Math.max(1, Math.round(21_600 / (t[1]! - t[0]!)));
+  const rows: (string | number)[][] = [];
+  for (let i = 0; i < t.length; i += every) {
+    rows.push([(t[i]! / 86_400).toFixed(2), (plan.predicted.steered.phaseSeconds[i]! * 1e9).toFixed(3),
+      (plan.predicted.steered.sigmaSeconds[i]! * 1e9).toFixed(3), (plan.predicted.unsteered.phaseSeconds[i]! * 1e9).toFixed(3)]);
+  }
+  out.push('', 'Prediction (every 6 h):', table(['t (days)', 'steered mean (ns)', '1σ (ns)', 'unsteered mean (ns)'], rows).trimEnd());
+  out.push('', plan.caution, '');
+  return out.join('\n');
+}
+
+export const planCommand: Command = {
+  name: 'plan',
+  summary: 'Plan clock-steering commands that keep an onboard clock inside its tolerance.',
+  usage: '<scenario.json> [--strategy deadband|optimal|none] [--json]',
+  allowPositionals: true,
+  flags: {
+    strategy: { type: 'string', value: '<name>', description: 'Override the scenario\'s strategy: deadband, optimal (quantised LQ) or none.' },
+    json: { type: 'boolean', description: 'Print the plan as JSON (feasible, reason, commands, predicted, metrics, caution).' },
+  },
+  details: `
+Scenario format: packages/sdk/schema/scenario.schema.json (JSON Schema); times ISO 8601 UTC, quantities SI.
+Feasible means |mean| + z·σ ≤ tolerance at every grid epoch, z = Φ⁻¹((1 + p)/2), σ the open-loop
+prediction from the epoch covariance and the 3-state clock noise (Zucca & Tavella 2005).
+Optimal planner: finite-horizon linear-quadratic steering with quantised, rate-limited steps (after
+Koppang & Leland, IEEE Trans. UFFC 46(3) 1999); deadband: act when the predicted offset would use more
+than a fraction of the usable band before the next contact.
+Exit status: 0 feasible plan, 1 infeasible (the reason is printed), 2 unusable input.`,
+  async run(args, io) {
+    if (args.positionals.length !== 1) throw new UsageError('give exactly one scenario file (see `tauline plan --help`)');
+    const path = args.positionals[0]!;
+    const strategy = strategyFlag(optionalFlag(args, 'strategy'), false) as SteeringMethod | undefined;
+    const scenario = await readScenarioFile(path);
+    const plan = planSteering(scenario, strategy ? { strategy } : {});
+    const s = scenario as SteeringScenario;
+    if (args.values['json']) io.out(toJson(plan));
+    else io.out(planToText(s, strategy ?? s.strategy.method, plan));
+    return plan.feasible ? EXIT_OK : EXIT_FINDING;
+  },
+};

@@ -1,0 +1,104 @@
+import { execFileSync, spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import { main } from '../src/main.js';
+import type { Io } from '../src/framework.js';
+
+const ORIN = fileURLToPath(new URL('../../sdk/examples/steering/orin-3-meo.json', import.meta.url));
+const HALCYR = fileURLToPath(new URL('../../sdk/examples/steering/halcyr-g1-geo.json', import.meta.url));
+const BIN = fileURLToPath(new URL('../bin/tauline.js', import.meta.url));
+const BUILT = existsSync(fileURLToPath(new URL('../dist/main.js', import.meta.url)));
+
+async function run(...argv: string[]): Promise<{ status: number; out: string; err: string }> {
+  let out = '';
+  let err = '';
+  const io: Io = { out: (t) => { out += t; }, err: (t) => { err += t; }, isTty: false };
+  const status = await main(['plan', ...argv], io);
+  return { status, out, err };
+}
+
+function tempFile(name: string, text: string): string {
+  const dir = mkdtempSync(join(tmpdir(), 'tauline-plan-'));
+  const path = join(dir, name);
+  writeFileSync(path, text);
+  return path;
+}
+
+describe('tauline plan', () => {
+  it('tauline plan orin-3-meo.json --json prints the plan fields and exits 0 when feasible', async () => {
+    const r = await run(ORIN, '--json');
+    expect(r.err).toBe('');
+    expect(r.status).toBe(0);
+    const plan = JSON.parse(r.out) as Record<string, any>;
+    expect(Object.keys(plan).sort()).toEqual(['caution', 'commands', 'feasible', 'metrics', 'predicted']);
+    expect(plan.feasible).toBe(true);
+    expect(Object.keys(plan.predicted).sort()).toEqual(['steered', 't', 'unsteered']);
+    for (const c of plan.commands) {
+      expect(Object.keys(c)).toEqual(expect.arrayContaining(['uplinkAt', 'executeAt', 'kind', 'actuatorSteps', 'reason']));
+    }
+  });
+
+  it('tauline plan orin-3-meo.json prints a schedule table with units and the caution', async () => {
+    const r = await run(ORIN);
+    expect(r.status).toBe(0);
+    expect(r.out).toMatch(/uplink \(UTC\)\s+execute \(UTC\)/);
+    expect(r.out).toMatch(/Tolerance ±30\.000 ns at 95 % per epoch/);
+    expect(r.out).toMatch(/steered mean \(ns\)/);
+    expect(r.out).toMatch(/responsible engineering authority/);
+  });
+
+  it('tauline plan <scenario> exits 1 and prints the reason when the plan is infeasible', async () => {
+    const s = JSON.parse(readFileSync(HALCYR, 'utf8')) as Record<string, any>;
+    s.tolerance.phaseSeconds = 1e-8;
+    const r = await run(tempFile('tight.json', JSON.stringify(s)));
+    expect(r.status).toBe(1);
+    expect(r.out).toMatch(/Feasible: NO\. σ alone exceeds the tolerance after/);
+  });
+
+  it('tauline plan --strategy deadband overrides the scenario strategy; an unknown strategy is a usage error', async () => {
+    const r = await run(HALCYR, '--strategy', 'deadband');
+    expect(r.out).toMatch(/deadband planner/);
+    const bad = await run(HALCYR, '--strategy', 'fast');
+    expect(bad.status).toBe(2);
+    expect(bad.err).toMatch(/--strategy must be one of deadband, optimal, none/);
+  });
+
+  it('tauline plan reports bad input as one line naming the field (negative tolerance)', async () => {
+    const s = JSON.parse(readFileSync(ORIN, 'utf8')) as Record<string, any>;
+    s.tolerance.phaseSeconds = -1e-8;
+    const r = await run(tempFile('neg.json', JSON.stringify(s)));
+    expect(r.status).toBe(2);
+    expect(r.out).toBe('');
+    expect(r.err.trimEnd().split('\n')).toHaveLength(1);
+    expect(r.err).toMatch(/tolerance\.phaseSeconds must be/);
+  });
+
+  it('tauline plan reports a JSON syntax error with file, line and column', async () => {
+    const path = tempFile('broken.json', '{\n  "epoch": "2031-01-01T00:00:00Z",\n  "horizonSeconds": ,\n}');
+    const r = await run(path);
+    expect(r.status).toBe(2);
+    expect(r.err).toMatch(/broken\.json:3:\d+: expected valid JSON/);
+  });
+
+  it('tauline plan without a file, or with a missing file, is a usage error', async () => {
+    expect((await run()).status).toBe(2);
+    const r = await run('/nonexistent/scenario.json');
+    expect(r.status).toBe(2);
+    expect(r.err).toMatch(/no such file/);
+  });
+
+  it.runIf(BUILT)('the built binary `tauline plan <orin-3-meo> --json` prints the same plan as the in-process call', async () => {
+    const out = execFileSync(process.execPath, [BIN, 'plan', ORIN, '--json'], { encoding: 'utf8' });
+    expect(JSON.parse(out)).toEqual(JSON.parse((await run(ORIN, '--json')).out));
+  });
+
+  it.runIf(BUILT)('the built binary `tauline plan` exits 1 on an infeasible plan', () => {
+    const s = JSON.parse(readFileSync(HALCYR, 'utf8')) as Record<string, any>;
+    s.tolerance.phaseSeconds = 1e-8;
+    const r = spawnSync(process.execPath, [BIN, 'plan', tempFile('tight.json', JSON.stringify(s))], { encoding: 'utf8' });
+    expect(r.status).toBe(1);
+  });
+});
