@@ -11,7 +11,7 @@ import { choleskyPsd3, processNoise, type Matrix3 } from './clock-math.js';
 import { commandsToInternal } from './evaluate.js';
 import type { SteeringPlan } from './plan.js';
 import { gridTimes, stateJumps } from './predict.js';
-import { seededNormalSource } from './rng.js';
+import { createRandom } from '../internal/random.js';
 import { validateScenario } from './scenario.js';
 
 export interface SimulationOptions {
@@ -78,7 +78,7 @@ export function simulatePlan(scenario: unknown, plan: Pick<SteeringPlan, 'comman
     return l;
   };
   const l0 = choleskyPsd3(norm.covariance0);
-  const rng = seededNormalSource(seed);
+  const rng = createRandom(seed);
   const inside = new Float64Array(grid.length);
   const perRunWorst = new Float64Array(runs);
   let insideTotal = 0;
