@@ -8,7 +8,9 @@ import { InvalidArgumentError } from '../errors.js';
 import { requireInRange } from '../internal/validate.js';
 import type { Seconds } from '../units.js';
 import { chiSquareInterval, equivalentDegreesOfFreedom } from './edf.js';
-import { hasMissing, ModifiedWorkspace, modifiedSum, secondDifferenceSum, segmentIndex, thirdDifferenceSum, totalSum } from './kernels.js';
+import {
+  hasMissing, ModifiedWorkspace, modifiedSum, secondDifferenceSum, segmentIndex, thirdDifferenceSum, totalSum, type TermSum,
+} from './kernels.js';
 import { identifyNoiseAt } from './noise-id.js';
 import { factorsForTaus, octaveFactors, toPhaseSeries } from './series.js';
 import {
@@ -47,9 +49,14 @@ class Prepared {
     this.seg = segmentIndex(series.phase.length, series.segmentStarts);
     this.gaps = this.seg !== null || hasMissing(series.phase);
   }
-  get workspace(): ModifiedWorkspace {
-    this._ws ??= new ModifiedWorkspace(this.series.phase.length, this.gaps);
-    return this._ws;
+  private _lastModified: { m: number; r: TermSum } | undefined;
+  /** Modified-Allan sum at m, cached for the last m so that mdev and tdev share one pass. */
+  modified(m: number): TermSum {
+    if (this._lastModified?.m !== m) {
+      this._ws ??= new ModifiedWorkspace(this.series.phase.length, this.gaps);
+      this._lastModified = { m, r: modifiedSum(this.series.phase, this.seg, m, this._ws) };
+    }
+    return this._lastModified.r;
   }
 }
 
@@ -73,7 +80,7 @@ function computeAt(p: Prepared, statistic: StatisticName, m: number): DeviationP
     case 'mdev':
     case 'tdev': {
       // NIST SP 1065 §5.2.5: Mod σ² = Σ_j [Σ_i Δ²x]² / (2 m² τ² n); §5.2.6: σ_x = (τ/√3)·Mod σ_y.
-      const r = modifiedSum(x, p.seg, m, p.workspace);
+      const r = p.modified(m);
       n = r.n;
       variance = r.sum / (2 * m * m * tau * tau * n);
       if (statistic === 'tdev') variance *= (tau * tau) / 3;

@@ -88,7 +88,7 @@ export class ModifiedWorkspace {
 
 /**
  * Σ_j [Σ_{i=j}^{j+m−1} (x_{i+2m} − 2x_{i+m} + x_i)]² over j = 0 … N − 3m (modified Allan,
- * NIST SP 1065 §5.2.5) in O(N): the inner sums are differences of a Neumaier-compensated prefix
+ * NIST SP 1065 §5.2.5) in O(N): the inner sums are differences of a Kahan-compensated prefix
  * sum of the second differences d_i (prefix sums of d rather than of x, so that a large
  * frequency offset or drift does not cancel catastrophically). A term is complete when all
  * d_i in its window are (prefix count of incomplete d_i).
@@ -110,9 +110,11 @@ export function modifiedSum(x: Float64Array, seg: Int32Array | null, m: number, 
       v = 0;
       b++;
     }
-    // Neumaier compensated summation (Neumaier 1974, ZAMM 54:39–51).
-    const t = s + v;
-    c += Math.abs(s) >= Math.abs(v) ? (s - t) + v : (v - t) + s;
+    // Kahan compensated summation (Kahan 1965, CACM 8(1):40): branch-free; the d_i are small
+    // against the running sum, the case Kahan's scheme handles.
+    const yk = v - c;
+    const t = s + yk;
+    c = (t - s) - yk;
     s = t;
     hi[i + 1] = s;
     lo[i + 1] = c;
@@ -122,7 +124,7 @@ export function modifiedSum(x: Float64Array, seg: Int32Array | null, m: number, 
   let n = 0;
   for (let j = 0; j < terms; j++) {
     if (bad !== null && bad[j + m] !== bad[j]) continue;
-    const w = (hi[j + m]! - hi[j]!) + (lo[j + m]! - lo[j]!);
+    const w = (hi[j + m]! - hi[j]!) - (lo[j + m]! - lo[j]!);
     sum += w * w;
     n++;
   }

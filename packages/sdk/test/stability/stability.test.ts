@@ -154,6 +154,17 @@ describe('gaps', () => {
   });
 });
 
+describe('numerical robustness', () => {
+  it('deviations(mdev, phase with a large frequency offset and drift) matches the O(N·m) definition to 1e-9 (prefix sums of second differences)', () => {
+    const rnd = gaussian(3);
+    const x = Array.from({ length: 20000 }, (_, i) => 1e-3 * i + 1e-9 * i * i + 1e-12 * rnd());
+    for (const p of deviations('mdev', { phase: x, tau0: 1 }, { taus: [1, 16, 256, 2048] })) {
+      const ref = bruteForce('mdev', x, p.m, 1);
+      expect(Math.abs(p.deviation - ref.dev) / ref.dev).toBeLessThan(1e-9);
+    }
+  });
+});
+
 describe('equivalent degrees of freedom and intervals', () => {
   it('overlappingAllanEdf(WFM, 1001, 10) = 146.177 and (WFM, 1001, 1) = 665.780 (Howe–Allan–Barnes [M], values [C])', () => {
     expect(overlappingAllanEdf('WFM', 1001, 10)).toBeCloseTo(146.177, 3);
