@@ -1,0 +1,76 @@
+import { execFileSync } from 'node:child_process';
+import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import { main } from '../src/main.js';
+import type { Io } from '../src/framework.js';
+import { L_G, IERS_2010, SPEED_OF_LIGHT_SQUARED } from '@tauline/sdk/constants';
+
+async function run(...argv: string[]): Promise<{ status: number; out: string; err: string }> {
+  let out = '', err = '';
+  const io: Io = { out: (t) => { out += t; }, err: (t) => { err += t; }, isTty: false };
+  const status = await main(['propertime', ...argv], io);
+  return { status, out, err };
+}
+
+/** A circular GPS-like orbit, a = 26 561 750 m, i = 55°, at the ascending node. */
+const V = Math.sqrt(IERS_2010.gm / 26_561_750);
+const GPS_STATE = `26561750,0,0,0,${V * Math.cos((55 * Math.PI) / 180)},${V * Math.sin((55 * Math.PI) / 180)}`;
+
+describe('tauline propertime', () => {
+  it('--json prints samples [{ t, tauMinusTT }] with τ − TT = 0 at t = 0 and the point-mass rate L_G − 3GM/(2ac²) (IERS 2010 eq. 10.9 [V1])', async () => {
+    const r = await run('--state', GPS_STATE, '--duration', '7200', '--step', '1800', '--model', 'point-mass', '--json');
+    expect(r.status).toBe(0);
+    expect(r.err).toBe('');
+    const doc = JSON.parse(r.out);
+    expect(doc.samples).toHaveLength(5);
+    expect(doc.samples[0]).toEqual({ t: 0, tauMinusTT: 0 });
+    expect(doc.samples[4].t).toBe(7200);
+    const rate = L_G - (1.5 * IERS_2010.gm) / (26_561_750 * SPEED_OF_LIGHT_SQUARED);
+    // circular orbit: no periodic term, so τ − TT = rate·t to integration error
+    expect(Math.abs(doc.samples[4].tauMinusTT - rate * 7200)).toBeLessThan(1e-15);
+    expect(doc.model).toBe('point-mass');
+    expect(doc.constants).toBe('iers-2010');
+    expect(typeof doc.acceptedSteps).toBe('number');
+  });
+
+  it('prints a table by default and names the ephemeris for --model full', async () => {
+    const r = await run('--state', GPS_STATE, '--duration', '3600', '--step', '1200', '--model', 'full', '--epoch-tt-j2000', '8e8');
+    expect(r.status).toBe(0);
+    expect(r.out).toMatch(/model full/);
+    expect(r.out).toMatch(/Montenbruck & Gill/);
+    expect(r.out).toMatch(/τ − TT \(ns\)/);
+    expect(r.out).toMatch(/mean rate over the span/);
+  });
+
+  it('accepts a state starting with a minus sign as --state=-…', async () => {
+    const r = await run(`--state=-${GPS_STATE}`.replace('=-26561750,0,0,0,', '=-26561750,0,0,0,-'), '--duration', '600', '--step', '600', '--json');
+    expect(r.status).toBe(0);
+    expect(JSON.parse(r.out).samples).toHaveLength(2);
+  });
+
+  it('rejects a state in kilometres, a short state, bad numbers, a step larger than the duration and an unknown model (exit 2, one line)', async () => {
+    const km = await run('--state', '26561.75,0,0,0,2.2,3.2', '--duration', '600', '--step', '60');
+    expect(km.status).toBe(2);
+    expect(km.err).toMatch(/did you mean 26561\.75 km/);
+    expect(km.err.trim().split('\n')).toHaveLength(1);
+    expect((await run('--state', '26561750,0,0', '--duration', '600', '--step', '60')).err).toMatch(/only three values: the velocity is missing/);
+    expect((await run('--state', '26561750,0,0,0,abc,0' /* vy */, '--duration', '600', '--step', '60')).err).toMatch(/--state vy/);
+    expect((await run('--state', GPS_STATE, '--duration', '600', '--step', '900')).err).toMatch(/--step must be at most the duration/);
+    expect((await run('--state', GPS_STATE, '--duration', '0', '--step', '1')).err).toMatch(/--duration must be a finite number greater than 0/);
+    expect((await run('--state', GPS_STATE, '--duration', '600', '--step', '60', '--model', 'egm')).err).toMatch(/--model must be one of point-mass, j2, full/);
+    expect((await run('--state', GPS_STATE, '--duration', '600', '--step', '60', '--tolerance', '1')).err).toMatch(/--tolerance/);
+    expect((await run('--duration', '600', '--step', '60')).err).toMatch(/--state is required/);
+    const nan = await run('--state', '26561750,0,0,0,NaN,0', '--duration', '600', '--step', '60');
+    expect(nan.status).toBe(2);
+  });
+
+  it('the built binary runs `tauline propertime --json` (needs `npm run build`)', () => {
+    const bin = fileURLToPath(new URL('../bin/tauline.js', import.meta.url));
+    const dist = fileURLToPath(new URL('../dist/commands/propertime.js', import.meta.url));
+    if (!existsSync(dist)) return; // not built in this checkout; the in-process tests above cover the command
+    const out = execFileSync(process.execPath, [bin, 'propertime', '--state', GPS_STATE, '--duration', '1200', '--step', '600', '--json'], { encoding: 'utf8' });
+    const doc = JSON.parse(out);
+    expect(doc.samples.map((s: { t: number }) => s.t)).toEqual([0, 600, 1200]);
+  });
+});
