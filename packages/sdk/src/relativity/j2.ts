@@ -33,7 +33,7 @@ function checkInclination(inclination: unknown): number {
  * @param inclination         i, radians, in [0, π].
  * @param argumentOfLatitude  u = ω + ν, radians.
  * @param constants           GM, J2, a_e (default IERS 2010).
- * @returns Δτ_J2,res in seconds (add to τ to… see sign convention: τ − t contains this term).
+ * @returns Δτ_J2,res in seconds: the periodic part that τ − t still contains after −2 r·v/c² is removed.
  * Accuracy: first order in J2, e ≈ 0 (terms in e·J2 omitted, < 1 % of the amplitude for e < 0.01);
  * reproduces a numerical integration to 5 digits for GPS (reference sheet §5 [C]; SDK tests).
  * @throws {InvalidArgumentError} for a non-plausible a, i outside [0, π] or a non-finite u.
