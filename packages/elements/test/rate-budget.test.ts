@@ -17,29 +17,32 @@ describe('tauline-rate-budget', () => {
     const el = await fixture<TaulineRateBudget>(html`<tauline-rate-budget .budget=${meanClockRate(26_561_750)}></tauline-rate-budget>`);
     const num = (text: string): number => Number(text.replace('−', '-'));
     // Published to 4 decimals: agree within half a unit of the last digit.
-    expect(num(cells(el, 'gravitational')[1]!)).to.be.closeTo(45.7884, 5e-5);
-    expect(num(cells(el, 'velocity')[1]!)).to.be.closeTo(-7.2131, 5e-5);
-    expect(num(cells(el, 'total')[1]!)).to.be.closeTo(38.5753, 5e-5);
+    expect(num(cells(el, 'gravitational')[0]!)).to.be.closeTo(45.7884, 5e-5);
+    expect(num(cells(el, 'velocity')[0]!)).to.be.closeTo(-7.2131, 5e-5);
+    expect(num(cells(el, 'total')[0]!)).to.be.closeTo(38.5753, 5e-5);
   });
 
   it('the factory offset at a = 26 561 400 m reads −4.4647e−10 and −4.567 mHz at 10.23 MHz (IS-GPS-200E §3.3.1.1 via physics-refs §3 [V2])', async () => {
     const el = await fixture<TaulineRateBudget>(html`<tauline-rate-budget .budget=${meanClockRate(26_561_400.1)}></tauline-rate-budget>`);
     const total = cells(el, 'total');
-    expect(total[3]).to.equal('−4.4647e−10');
-    expect(total[4]).to.equal('−4.567 mHz');
+    expect(total[2]).to.equal('−4.4647e−10');
+    expect(total[3]).to.equal('−4.567 mHz');
   });
 
   it('nominal-frequency attribute changes the hertz column (10.23 MHz × 2 doubles the shift)', async () => {
     const el = await fixture<TaulineRateBudget>(html`<tauline-rate-budget nominal-frequency="20460000" .budget=${meanClockRate(26_561_400.1)}></tauline-rate-budget>`);
     expect(el.nominalFrequency).to.equal(20.46e6);
-    expect(cells(el, 'total')[4]).to.equal('−9.135 mHz');
+    expect(cells(el, 'total')[3]).to.equal('−9.135 mHz');
   });
 
   it('j2Rate adds a J2 row and enters the net rate', async () => {
     const b = meanClockRate(26_561_750);
     const el = await fixture<TaulineRateBudget>(html`<tauline-rate-budget .budget=${b} .j2Rate=${-3.76e-13}></tauline-rate-budget>`);
-    expect(cells(el, 'j2')[0]).to.equal('−3.7600e−13');
-    expect(cells(el, 'total')[0]).to.equal((b.fractionalRate - 3.76e-13).toExponential(4).replace('e-', 'e−'));
+    // Each part's share of the factory offset is −part/(1 + net rate): the J2 share is +3.7600e−13.
+    expect(cells(el, 'j2')[2]).to.equal('3.7600e−13');
+    const net = b.fractionalRate - 3.76e-13;
+    expect(cells(el, 'total')[2]).to.equal((-net / (1 + net)).toExponential(4).replace('-', '−').replace('e-', 'e−'));
+    expect(cells(el, 'total')[0]).to.equal((net * 86400e6).toFixed(4));
   });
 
   it('without data it shows an empty state', async () => {

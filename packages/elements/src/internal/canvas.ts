@@ -176,8 +176,8 @@ export function drawAxes(
   ctx.fillStyle = style.text;
   if (titles.x) {
     ctx.textAlign = 'right';
-    ctx.textBaseline = 'bottom';
-    ctx.fillText(titles.x, right, top + height + 48);
+    ctx.textBaseline = 'top';
+    ctx.fillText(titles.x, right, top + height + 33);
   }
   if (titles.y) {
     ctx.translate(12, top + height / 2);

@@ -9,7 +9,12 @@ export const rateBudgetStyles = css`
   }
   .summary { margin: 0; color: var(--muted); }
   .summary strong { color: var(--text); font-weight: 600; }
-  td.bar-cell { width: 38%; min-width: 120px; padding-left: 0; padding-right: 0; }
+  :host { container-type: inline-size; }
+  .table-scroll { overflow-x: auto; }
+  @container (max-width: 420px) { .bar-cell, .bar-col { display: none; } }
+  th { white-space: normal; }
+  th, td { padding: 3px 6px; }
+  td.bar-cell { width: 30%; min-width: 70px; padding-left: 0; padding-right: 0; }
   .bar-track { position: relative; height: 14px; }
   .bar-track::before {
     content: ''; position: absolute; left: 50%; top: -3px; bottom: -3px; border-left: 1px solid var(--border);

@@ -30,6 +30,12 @@ export interface RateBudgetData {
 
 const SECONDS_PER_DAY = 86_400;
 
+/** µs/day with 4 decimals, or 3 significant figures when smaller than 0.001 µs/day. */
+function formatMicroseconds(value: number): string {
+  if (Math.abs(value) >= 1e-3 || value === 0) return value.toFixed(4).replace(/^-/, '−');
+  return formatNumber(value, 3);
+}
+
 interface BudgetRow {
   key: 'gravitational' | 'velocity' | 'j2' | 'total';
   label: string;
@@ -148,22 +154,21 @@ export class TaulineRateBudget extends LitElement {
         <strong>${formatFraction(factory)}</strong>
         (<strong>${formatHertz(factory * f0)}</strong> at ${formatHertz(f0, 6)}).
       </p>
-      <table part="table">
-        <caption>Mean rate vs ${ref}${b.constants ? `, constants ${b.constants}` : ''}. Positive rate: the clock runs fast.</caption>
+      <div class="table-scroll"><table part="table">
+        <caption>Mean rate vs ${ref}${b.constants ? `, constants ${b.constants}` : ''}: positive rate, the clock runs fast; the factory offset, set on the ground, cancels it.</caption>
         <thead>
           <tr>
             <th scope="col">Part</th>
-            <th scope="col">Rate (fraction)</th>
-            <th scope="col">Rate (µs/day)</th>
-            <th scope="col"><span class="sr-only">Relative size and sign</span></th>
+            <th scope="col">Clock rate (µs/day)</th>
+            <th scope="col" class="bar-col"><span class="sr-only">Relative size and sign</span></th>
             <th scope="col">Factory offset (fraction)</th>
-            <th scope="col">At ${formatHertz(f0, 6)}</th>
+            <th scope="col">Offset at ${formatHertz(f0, 6)}</th>
           </tr>
         </thead>
         <tbody>
           ${rows.map((row) => this._renderRow(row, maxAbs, toOffset, f0))}
         </tbody>
-      </table>
+      </table></div>
       ${this.j2Rate === undefined || this.j2Rate === null
         ? html`<p class="note">J2 part not supplied: the net rate is the point-mass value.</p>`
         : nothing}`;
@@ -173,7 +178,7 @@ export class TaulineRateBudget extends LitElement {
     if (row.rate === null) {
       return html`<tr part="row" class=${row.key}>
         <th scope="row">${row.label}</th>
-        <td class="na">not computed</td><td class="na">—</td><td class="bar-cell"></td><td class="na">—</td><td class="na">—</td>
+        <td class="na">not computed</td><td class="bar-cell"></td><td class="na">—</td><td class="na">—</td>
       </tr>`;
     }
     const rate = row.rate;
@@ -183,8 +188,7 @@ export class TaulineRateBudget extends LitElement {
     const kind = row.key === 'total' ? 'total' : rate >= 0 ? 'gain' : 'loss';
     return html`<tr part="row" class=${row.key}>
       <th scope="row">${row.label}</th>
-      <td>${formatFraction(rate)}</td>
-      <td>${formatNumber(rate * SECONDS_PER_DAY * 1e6, 6)}</td>
+      <td>${formatMicroseconds(rate * SECONDS_PER_DAY * 1e6)}</td>
       <td class="bar-cell" aria-hidden="true"><div class="bar-track"><div class="bar ${kind}" style="left:${left}%;width:${Math.max(width, 0.3)}%"></div></div></td>
       <td>${formatFraction(offset)}</td>
       <td>${formatHertz(offset * f0)}</td>

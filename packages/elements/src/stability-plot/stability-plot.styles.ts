@@ -12,6 +12,8 @@ export const stabilityPlotStyles = css`
     --plot-height: 300px;
   }
   .table-wrap { max-height: 260px; overflow: auto; }
+  th { white-space: normal; }
+  th, td { padding: 3px 6px; }
   :host([no-table]) .table-wrap {
     position: absolute; width: 1px; height: 1px; overflow: hidden; clip: rect(0 0 0 0); white-space: nowrap;
   }

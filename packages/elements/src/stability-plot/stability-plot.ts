@@ -24,6 +24,11 @@ function statLabel(name: string): string {
   return LABELS[name] ?? name;
 }
 
+/** Short name for table rows: `OADEV`, `TDEV`, or the name as given. */
+function statCode(name: string): string {
+  return LABELS[name] ? name.toUpperCase() : name;
+}
+
 /**
  * A log–log plot of frequency-stability statistics versus averaging time τ, with confidence
  * intervals as error bars, one marker shape per statistic, a hover read-out, and a table that
@@ -171,7 +176,7 @@ export class TaulineStabilityPlot extends PlotElement {
       </tr></thead>
       <tbody>
         ${this._data.series.map((s) => Array.from(s.tau, (t, i) => html`<tr part="row">
-          <th scope="row">${statLabel(s.statistic)}</th>
+          <th scope="row">${statCode(s.statistic)}</th>
           <td>${formatNumber(t, 6)}</td>
           <td>${formatFraction(s.deviation[i]!, 5)}</td>
           <td>${s.low ? formatFraction(s.low[i]!, 4) : '—'}</td>
@@ -195,7 +200,7 @@ export class TaulineStabilityPlot extends PlotElement {
     const ctx = sizeCanvas(canvas, w, h);
     if (!ctx) return;
     const colors = this._resolveColors(COLOR_EXPR);
-    const frame: Frame = { left: 62, top: 8, width: Math.max(10, w - 74), height: Math.max(10, h - 52) };
+    const frame: Frame = { left: 62, top: 8, width: Math.max(10, w - 74), height: Math.max(10, h - 60) };
     let t0 = Infinity, t1 = -Infinity, d0 = Infinity, d1 = -Infinity;
     for (const s of this._data.series) {
       for (let i = 0; i < s.tau.length; i++) {

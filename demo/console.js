@@ -1,0 +1,134 @@
+// Demo console: the host page's own script. It computes everything through @tauline/sdk in
+// the browser and hands the results to the @tauline/elements components as properties.
+import '@tauline/elements';
+import {
+  meanClockRate, j2SecularClockRate, rateChangeForSemiMajorAxisChange, planSteering, analyzeStability, reviewOffsets,
+} from '@tauline/sdk';
+import { SATELLITES, scenarioFor, reviewDocument, clockRecord } from './constellation.js';
+
+const $ = (id) => document.getElementById(id);
+const schedule = document.querySelector('tauline-steering-schedule');
+const budget = document.querySelector('tauline-rate-budget');
+const stability = document.querySelector('tauline-stability-plot');
+const review = document.querySelector('tauline-review-findings');
+const status = $('status');
+
+/** Residual rate the factory offset leaves for the design orbit (clock-specific, invented). */
+const BASE_RESIDUAL = [1.2e-13, -0.8e-13, 0.5e-13, -0.3e-13];
+
+for (const [i, s] of SATELLITES.entries()) $('sat').add(new Option(`${s.id} · ${s.clock}`, String(i)));
+
+function setSatellite(index) {
+  const sat = SATELLITES[index];
+  $('sat').value = String(index);
+  const km = sat.designSemiMajorAxis / 1000;
+  $('sma-range').min = String(km - 60);
+  $('sma-range').max = String(km + 60);
+  for (const el of [$('sma'), $('sma-range')]) el.value = String(km);
+  recomputeStability(index);
+  recompute();
+}
+
+function readInputs() {
+  const index = Number($('sat').value);
+  const aKm = Number($('sma').value);
+  const tolNs = Number($('tol').value);
+  const dA = Number($('dA').value);
+  const method = document.querySelector('input[name="method"]:checked').value;
+  return { index, a: aKm * 1000, tol: tolNs * 1e-9, dA, method };
+}
+
+let pending = 0;
+function recompute() {
+  cancelAnimationFrame(pending);
+  pending = requestAnimationFrame(() => {
+    const { index, a, tol, dA, method } = readInputs();
+    const sat = SATELLITES[index];
+    status.classList.remove('error');
+    try {
+      const t0 = performance.now();
+      // The factory offset was set for the design orbit: a different achieved orbit leaves a rate to steer out.
+      const residual = BASE_RESIDUAL[index] + rateChangeForSemiMajorAxisChange(sat.designSemiMajorAxis, a);
+      const scenario = scenarioFor(index, { residualFractionalFrequency: residual, tolerancePhaseSeconds: tol, method, maneuverDeltaA: dA });
+      const plan = planSteering(scenario);
+      const rate = meanClockRate(a);
+      const j2 = j2SecularClockRate({ semiMajorAxis: a, eccentricity: 0, inclination: sat.inclination, semiMajorAxisKind: 'mean' });
+      const ms = performance.now() - t0;
+      schedule.plan = plan;
+      schedule.scenario = scenario;
+      schedule.label = `Steering schedule · ${sat.id}`;
+      budget.budget = rate;
+      budget.j2Rate = j2.j2Correction;
+      budget.label = `Rate budget · ${sat.id} at ${(a / 1000).toFixed(1)} km`;
+      status.textContent = `${sat.id}: residual rate ${residual.toExponential(2)}, ${plan.commands.length} commands, ` +
+        `${plan.feasible ? 'feasible' : 'NOT feasible'}. Recomputed in ${ms.toFixed(0)} ms.`;
+    } catch (error) {
+      status.classList.add('error');
+      status.textContent = `Cannot recompute: ${error instanceof Error ? error.message : String(error)}`;
+    }
+  });
+}
+
+function recomputeStability(index) {
+  try {
+    const y = clockRecord(index);
+    const analysis = analyzeStability({ frequency: y, tau0: 1 }, { statistics: ['oadev', 'mdev', 'ohdev'] });
+    stability.series = analysis.rows;
+    stability.label = `Clock stability · ${SATELLITES[index].id} (simulated ${y.length.toLocaleString('en')} s record)`;
+  } catch (error) {
+    stability.series = null;
+    status.textContent = `Stability analysis failed: ${error instanceof Error ? error.message : String(error)}`;
+  }
+}
+
+function loadReview() {
+  const expected = SATELLITES.map((s) => meanClockRate(s.designSemiMajorAxis).factoryOffset);
+  try {
+    review.review = reviewOffsets(reviewDocument(expected));
+  } catch (error) {
+    review.review = null;
+    status.textContent = `Review failed: ${error instanceof Error ? error.message : String(error)}`;
+  }
+}
+
+// Inputs: number field and slider stay in step; every change recomputes.
+$('sma').addEventListener('input', () => { $('sma-range').value = $('sma').value; if ($('sma').checkValidity()) recompute(); });
+$('sma-range').addEventListener('input', () => { $('sma').value = $('sma-range').value; recompute(); });
+for (const id of ['tol', 'dA']) $(id).addEventListener('input', () => { if ($(id).checkValidity()) recompute(); });
+for (const r of document.querySelectorAll('input[name="method"]')) r.addEventListener('change', recompute);
+$('sat').addEventListener('change', () => setSatellite(Number($('sat').value)));
+$('whatif').addEventListener('submit', (e) => e.preventDefault());
+
+// Events from inside the elements' shadow roots reach the page (bubbles + composed).
+const log = (text) => {
+  const li = document.createElement('li');
+  li.textContent = `${new Date().toISOString().slice(11, 19)} ${text}`;
+  $('events').prepend(li);
+  while ($('events').children.length > 30) $('events').lastElementChild.remove();
+};
+document.addEventListener('tauline-command-select', (e) => {
+  const c = e.detail.command;
+  log(`command ${e.detail.index + 1}: ${c.kind} step ${c.fractionalFrequencyStep ?? c.phaseStepSeconds} at ${c.executeAt}`);
+});
+let viewTimer = 0;
+document.addEventListener('tauline-view-change', (e) => {
+  clearTimeout(viewTimer);
+  viewTimer = setTimeout(() => log(`view ${(e.detail.startSeconds / 3600).toFixed(1)} h – ${(e.detail.endSeconds / 3600).toFixed(1)} h`), 250);
+});
+document.addEventListener('tauline-spacecraft-select', (e) => {
+  log(`review: opened ${e.detail.id} (${e.detail.verdict})`);
+  const i = SATELLITES.findIndex((s) => s.id === e.detail.id);
+  if (i >= 0 && i !== Number($('sat').value)) setSatellite(i);
+});
+
+// Theme: the page flips its own color-scheme; the canvas plots re-read their colours.
+$('theme-toggle').addEventListener('click', () => {
+  const light = document.documentElement.classList.toggle('light');
+  $('theme-toggle').textContent = light ? 'Day room' : 'Dark room';
+  $('theme-toggle').setAttribute('aria-pressed', String(!light));
+  for (const el of [schedule, stability]) el.refreshTheme();
+});
+if (new URLSearchParams(location.search).get('theme') === 'light') $('theme-toggle').click();
+
+loadReview();
+setSatellite(0);

@@ -1,0 +1,65 @@
+// End-to-end: the built demo operations console (demo/index.html over the real packages' dist/)
+// shows a steering schedule with commands; the run saves a screenshot to .ci-out/demo-console.png.
+import { expect } from '@open-wc/testing';
+import { executeServerCommand } from '@web/test-runner-commands';
+
+async function loadDemo(search = ''): Promise<Document> {
+  const frame = document.createElement('iframe');
+  frame.style.cssText = 'width:1440px;height:1000px;border:0';
+  frame.src = `/demo/index.html${search}`;
+  document.body.append(frame);
+  await new Promise((ok) => frame.addEventListener('load', ok, { once: true }));
+  return frame.contentDocument!;
+}
+
+async function until<T>(what: string, probe: () => T | null | undefined | false, timeoutMs = 30000): Promise<T> {
+  const start = performance.now();
+  for (;;) {
+    const v = probe();
+    if (v) return v;
+    if (performance.now() - start > timeoutMs) throw new Error(`timed out waiting for ${what}`);
+    await new Promise((r) => setTimeout(r, 50));
+  }
+}
+
+describe('demo operations console (demo/index.html)', () => {
+  after(() => document.querySelectorAll('iframe').forEach((f) => f.remove()));
+
+  it('demo/index.html shows a steering schedule with commands, a rate budget, a stability plot and review findings', async () => {
+    const doc = await loadDemo();
+    const schedule = doc.querySelector('tauline-steering-schedule')!;
+    const rows = await until('command rows', () => {
+      const r = schedule.shadowRoot?.querySelectorAll('tbody tr[part~="row"]');
+      return r && r.length > 0 ? r : null;
+    });
+    expect(rows.length).to.be.greaterThan(0);
+    const label = schedule.shadowRoot!.querySelector('canvas.data')!.getAttribute('aria-label')!;
+    expect(label).to.match(/\d+ commands? \(/);
+    const budgetRows = doc.querySelector('tauline-rate-budget')!.shadowRoot!.querySelectorAll('tbody tr');
+    expect(budgetRows.length).to.equal(4);
+    const stabilityRows = await until('stability rows', () => doc.querySelector('tauline-stability-plot')!.shadowRoot!.querySelectorAll('tbody tr').length);
+    expect(stabilityRows).to.be.greaterThan(3);
+    expect(doc.querySelector('tauline-review-findings')!.shadowRoot!.querySelectorAll('details').length).to.equal(4);
+    expect(doc.getElementById('status')!.textContent).to.contain('Recomputed in');
+  });
+
+  it('the what-if panel recomputes the budget and the schedule in the page when the semi-major axis changes', async () => {
+    const doc = await loadDemo();
+    const budget = doc.querySelector('tauline-rate-budget')!;
+    const before = await until('budget', () => budget.shadowRoot?.querySelector('tr.total td')?.textContent);
+    const sma = doc.getElementById('sma') as HTMLInputElement;
+    sma.value = String(Number(sma.value) + 40);
+    sma.dispatchEvent(new Event('input', { bubbles: true }));
+    const after = await until('a new budget', () => {
+      const text = budget.shadowRoot!.querySelector('tr.total td')!.textContent;
+      return text !== before ? text : null;
+    });
+    expect(after).to.not.equal(before);
+    expect(budget.label).to.contain(`${sma.value}`.slice(0, 5));
+  });
+
+  it('saves a screenshot of the console to .ci-out/demo-console.png', async () => {
+    const saved = await executeServerCommand<string, { path: string; out: string }>('tauline-demo-screenshot', { path: '/demo/index.html', out: '.ci-out/demo-console.png' });
+    expect(saved).to.contain('demo-console.png');
+  });
+});
