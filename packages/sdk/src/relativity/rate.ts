@@ -9,7 +9,7 @@
 import type { Dimensionless, Metres } from '../units.js';
 import { DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
-import { requireOrbitRadius } from '../internal/validate.js';
+import { requireFinite, requireOrbitRadius } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 
 /** The coordinate time a rate refers to: TT (clocks on the geoid) or TCG (geocentric coordinate time). */
@@ -72,6 +72,24 @@ function resolveOptions(options: RateOptions | undefined): { constants: Constant
   return { constants, reference };
 }
 
+/** Lowest geocentric distance accepted for a clock position, in metres: below the polar radius (6 356 752 m) with margin. */
+const MIN_CLOCK_RADIUS = 6_300_000;
+
+/**
+ * Validates the geocentric distance of a clock, which may be on the ground (unlike an orbit's
+ * semi-major axis): 6.3e6 m ≤ r ≤ 1e10 m, with the kilometre hint for values that fit in km.
+ */
+function requireClockRadius(argument: string, value: number): number {
+  const expected = `a geocentric distance in metres, from ${MIN_CLOCK_RADIUS} m (below the Earth's polar radius) to 1e10 m`;
+  const r = requireFinite(argument, value, expected);
+  if (r < MIN_CLOCK_RADIUS || r > 1e10) {
+    const hint = r > 0 && r < MIN_CLOCK_RADIUS && r * 1000 >= MIN_CLOCK_RADIUS && r * 1000 <= 1e10
+      ? `${r} m is inside the Earth; were the coordinates given in km (${r} km = ${r * 1000} m)?` : undefined;
+    throw new InvalidArgumentError(argument, value, expected, hint);
+  }
+  return r;
+}
+
 /** −x/(1 + x) = 1/(1 + x) − 1 without the cancellation of the direct form. */
 function reciprocalOffset(x: number): number {
   return -x / (1 + x);
@@ -118,7 +136,7 @@ export function meanClockRate(semiMajorAxis: Metres, options?: RateOptions): Rat
 }
 
 /**
- * Instantaneous rate of a clock at a given inertial state (point-mass Earth):
+ * Instantaneous rate of a clock at a given inertial state (point-mass Earth), in orbit or on the ground:
  *   vs TT:  dτ/dTT − 1  = L_G − (v²/2 + GM/r)/c²   (IERS 2010 eq. 10.9)
  *   vs TCG: dτ/dTCG − 1 = −(v²/2 + GM/r)/c²        (IERS 2010 eq. 10.7)
  *
@@ -127,12 +145,13 @@ export function meanClockRate(semiMajorAxis: Metres, options?: RateOptions): Rat
  * @param state    Geocentric inertial position (m) and velocity (m/s).
  * @param options  `constants` (default IERS 2010), `reference` (`'tt'` default, or `'tcg'`).
  * @returns dτ/dt − 1, dimensionless (positive = clock runs fast).
- * @throws {InvalidArgumentError} for non-finite components, a position inside the Earth or an unknown reference.
+ * @throws {InvalidArgumentError} for non-finite components, |position| below 6.3e6 m (inside the Earth) or
+ *   above 1e10 m, or an unknown reference.
  * @see IERS Conventions (2010) §10.2 eqs. 10.7 and 10.9 [V1].
  */
 export function instantaneousClockRate(state: StateVector, options?: RateOptions): Dimensionless {
   const { position: p, velocity: v } = requireStateVector(state);
-  const r = requireOrbitRadius('|state.position|', Math.hypot(p[0], p[1], p[2]));
+  const r = requireClockRadius('|state.position|', Math.hypot(p[0], p[1], p[2]));
   const { constants, reference } = resolveOptions(options);
   const v2 = v[0] * v[0] + v[1] * v[1] + v[2] * v[2];
   return (reference === 'tt' ? constants.lG : 0) - (v2 / 2 + constants.gm / r) / SPEED_OF_LIGHT_SQUARED;

@@ -79,7 +79,11 @@ describe('instantaneousClockRate', () => {
   });
 
   it('instantaneousClockRate(state) rejects malformed vectors, a position inside the Earth and an unknown reference', () => {
-    expect(() => instantaneousClockRate({ position: [1, 2, 3], velocity: [0, 0, 0] })).toThrow(/\|state\.position\| must be .*inside the Earth/);
+    expect(() => instantaneousClockRate({ position: [1, 2, 3], velocity: [0, 0, 0] })).toThrow(/\|state\.position\| must be a geocentric distance in metres, from 6300000 m/);
+    expect(() => instantaneousClockRate({ position: [6378.137, 0, 0], velocity: [0, 0, 0] })).toThrow(/inside the Earth; were the coordinates given in km \(6378\.137 km = 6378137 m\)\?/);
+    expect(() => instantaneousClockRate({ position: [2e10, 0, 0], velocity: [0, 0, 0] })).toThrow(/\|state\.position\|.*received 20000000000/);
+    // A clock on the ground at the pole (r = 6 356 752 m) is accepted.
+    expect(instantaneousClockRate({ position: [0, 0, 6_356_752], velocity: [0, 0, 0] })).toBeCloseTo(L_G - IERS_2010.gm / 6_356_752 / C2, 24);
     expect(() => instantaneousClockRate({ position: [Number.NaN, 0, 0], velocity: [0, 0, 0] })).toThrow(/state\.position\[0\]/);
     expect(() => instantaneousClockRate({ position: [7e6, 0, 0] } as unknown as StateVector)).toThrow(/state\.velocity must be an array/);
     expect(() => instantaneousClockRate({ position: [7e6, 0, 0], velocity: [0, 7e3, 0] }, { reference: 'x' as 'tt' })).toThrow(/options\.reference/);
