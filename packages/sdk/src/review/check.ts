@@ -131,7 +131,7 @@ function hypotheses(sc: ReviewSpacecraft, set: ConstantSet, reference: Reference
     list.push({ code: 'other-orbit', value: offsetForRate(rateFor(orbit.semiMajorAxis, set.gm, set.lG, reference)), explain: `the offset of ${orbit.label} was used` });
   }
   for (const other of others) {
-    list.push({ code: 'copied-from-spacecraft', value: other.offset, explain: `the offset expected for spacecraft ${other.id} was copied` });
+    list.push({ code: 'copied-from-spacecraft', value: other.offset, explain: `the offset expected for spacecraft ${other.id} (a different orbit) was copied` });
   }
   return list;
 }
@@ -180,32 +180,27 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
     const diagnosis: Diagnosis[] = [];
     let verdict: Verdict = Math.abs(difference) > tolerance ? 'fail' : Math.abs(difference) > marginalFraction * tolerance ? 'marginal' : 'pass';
     const matchWindow = Math.max(tolerance, step ?? 0);
+    let explained = false;
 
     if (verdict !== 'pass') {
-      const others = resolved.filter((_, j) => j !== index && Math.abs(resolved[j]!.sc.orbit.semiMajorAxis - sc.orbit.semiMajorAxis) > 1)
-        .map((o) => ({ id: o.sc.id, offset: o.expected }));
+      const others: { id: string; offset: number }[] = [];
+      for (const o of resolved) {
+        if (o.sc.id === sc.id || Math.abs(o.sc.orbit.semiMajorAxis - sc.orbit.semiMajorAxis) <= 1) continue;
+        const same = others.find((x) => Math.abs(x.offset - o.expected) <= 1e-18);
+        if (same) same.id += `, ${o.sc.id}`;
+        else others.push({ id: o.sc.id, offset: o.expected });
+      }
       const matched = hypotheses(sc, set, reference, others)
         .filter((h) => Math.abs(configured - h.value) <= matchWindow && Math.abs(h.value - expected) > matchWindow)
-        .sort((x, y) => Math.abs(configured - x.value) - Math.abs(configured - y.value));
+        .sort((x, y) => Math.abs(configured - x.value) - Math.abs(configured - y.value))
+        .filter((h, k, all) => all.findIndex((g) => g.code === h.code) === k);
       for (const h of matched) {
         diagnosis.push({
           code: h.code, matches: true, wouldHaveProduced: h.value,
           message: `Configured ${fmt(configured)} matches the value ${fmt(h.value)} produced when ${h.explain} (expected ${fmt(expected)}).`,
         });
       }
-      if (matched.length === 0 && verdict === 'fail') {
-        let implied = Number.NaN;
-        try {
-          implied = semiMajorAxisForMeanRate(1 / (1 + configured) - 1, { constants: set, reference });
-        } catch { /* no orbit above the Earth needs this offset */ }
-        const plausible = Number.isFinite(implied) && implied < 1e9;
-        diagnosis.push({
-          code: 'other-orbit', matches: false, wouldHaveProduced: plausible ? configured : null,
-          message: plausible
-            ? `No common mistake explains the difference. The configured offset is the one a clock at a = ${implied.toFixed(0)} m would need (planned a = ${sc.orbit.semiMajorAxis} m); check where the value came from.`
-            : `No common mistake explains the difference, and no circular orbit needs this offset; check where the value came from.`,
-        });
-      }
+      explained = matched.length > 0;
     }
 
     // Quantisation of the tuning-word form: can the hardware represent the expected value within tolerance?
@@ -216,12 +211,27 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
       const configuredWordError = Math.abs(difference);
       if (bestError > tolerance) {
         verdict = 'fail';
+        explained = true;
         diagnosis.push({ code: 'quantisation', matches: true, wouldHaveProduced: expected + (Math.round(exactWord) - exactWord) * step,
           message: `A ${bits}-bit word at ${clockHz} Hz has steps of ${fmt(step)} (fractional); even the nearest word misses the expected offset by ${fmt(bestError)}, more than the tolerance ${fmt(tolerance)}.` });
       } else if (configuredWordError > tolerance) {
         diagnosis.push({ code: 'quantisation', matches: false, wouldHaveProduced: expected + (Math.round(exactWord) - exactWord) * step,
           message: `The nearest ${bits}-bit word is ${BigInt(Math.round(exactWord)).toString()} (error ${fmt(bestError)}); the configured word is ${Math.round((configured - expected) / step)} steps away from it.` });
       }
+    }
+
+    if (!explained && verdict === 'fail') {
+      let implied = Number.NaN;
+      try {
+        implied = semiMajorAxisForMeanRate(1 / (1 + configured) - 1, { constants: set, reference });
+      } catch { /* no orbit above the Earth needs this offset */ }
+      const plausible = Number.isFinite(implied) && implied < 1e9;
+      diagnosis.push({
+        code: 'other-orbit', matches: false, wouldHaveProduced: plausible ? configured : null,
+        message: plausible
+          ? `No common mistake explains the difference. The configured offset is the one a clock at a = ${implied.toFixed(0)} m would need (planned a = ${sc.orbit.semiMajorAxis} m); check where the value came from.`
+          : `No common mistake explains the difference, and no circular orbit needs this offset; check where the value came from.`,
+      });
     }
 
     // J2: the mean rate depends on which semi-major axis (osculating or mean) was used.
@@ -243,10 +253,12 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
       verdict = 'fail';
       diagnosis.push({ code: 'actuator-range', matches: true, wouldHaveProduced: null,
         message: `The worst ±3σ residual rate ${fmt(dispersion.worstResidual, 3)} exceeds the steering range ±${fmt(actuator.rangeFractional, 3)}.` });
-    } else if (!dispersion && actuator && Math.abs(difference) > actuator.rangeFractional) {
-      verdict = 'fail';
-      diagnosis.push({ code: 'actuator-range', matches: true, wouldHaveProduced: null,
-        message: `The offset error ${fmt(difference, 3)} exceeds the steering range ±${fmt(actuator.rangeFractional, 3)}.` });
+    } else if (!dispersion && actuator && verdict === 'fail') {
+      const absorbable = Math.abs(difference) <= actuator.rangeFractional;
+      diagnosis.push({ code: 'actuator-range', matches: false, wouldHaveProduced: null,
+        message: absorbable
+          ? `In orbit, steering could absorb this error (${fmt(difference, 3)} of the ±${fmt(actuator.rangeFractional, 3)} range), at the cost of that much range for the mission's life.`
+          : `In orbit, steering could not absorb this error: ${fmt(difference, 3)} exceeds the steering range ±${fmt(actuator.rangeFractional, 3)}.` });
     }
 
     const summary = verdict === 'pass'

@@ -36,6 +36,12 @@ describe('reviewOffsets(document) on the bundled examples', () => {
     expect(codes('KESTREL-16')[0]).toBe('gravitational-term-only');
     expect(codes('KESTREL-17')).toContain('wrong-gm-set');
     expect(codes('KESTREL-18')).toContain('actuator-range');
+    // Each code is listed once, the unexplained note does not appear when quantisation explains a value,
+    // and spacecraft sharing an orbit are named together.
+    for (const s of report.spacecraft) expect(new Set(codes(s.id)).size).toBe(codes(s.id).length);
+    expect(byId['KESTREL-15']!.diagnosis.map((d) => d.code)).not.toContain('other-orbit');
+    expect(byId['KESTREL-G1']!.diagnosis.find((d) => d.code === 'copied-from-spacecraft')!.message).toMatch(/KESTREL-11, KESTREL-12/);
+    expect(byId['KESTREL-14']!.diagnosis.find((d) => d.code === 'actuator-range')!.message).toMatch(/could absorb/);
     expect(byId['KESTREL-19']!.verdict).toBe('marginal');
     for (const id of ['KESTREL-11', 'KESTREL-12', 'KESTREL-13', 'KESTREL-14', 'KESTREL-15', 'KESTREL-G1', 'KESTREL-16', 'KESTREL-17', 'KESTREL-18']) {
       expect(byId[id]!.verdict, id).toBe('fail');
