@@ -105,7 +105,7 @@ Exit status: 0 success, 2 invalid input.`,
     ];
     if (shifted && nominal !== undefined) {
       rows.push(['nominal frequency', `${nominal} Hz`]);
-      rows.push(['frequency to set', `${shifted.offsetFrequencyHz.toPrecision(17).replace(/0+$/, '')} Hz`]);
+      rows.push(['frequency to set', `${Number(shifted.offsetFrequencyHz.toPrecision(16))} Hz`]);
       rows.push(['offset', `${signed(shifted.offsetHz)} Hz`]);
     }
     io.out(keyValueTable(rows));
