@@ -90,7 +90,12 @@ function log1pMinusX(t: number): number {
  */
 function gammaPrefix(a: number, x: number): number {
   if (x === 0) return 0;
-  if (a < 10) return Math.exp(a * Math.log(x) - x - logGammaUnchecked(a));
+  if (a < 10) {
+    // x^a and e^{−x} separately while they stay in range: exp of one large sum would lose ~x·1e-16.
+    const xa = Math.pow(x, a);
+    if (x < 700 && xa > 1e-300 && xa < 1e300) return (xa * Math.exp(-x)) / Math.exp(logGammaUnchecked(a));
+    return Math.exp(a * Math.log(x) - x - logGammaUnchecked(a));
+  }
   const t = (x - a) / a;
   return Math.sqrt(a / (2 * Math.PI)) * Math.exp(a * log1pMinusX(t) - stirlingCorrection(a));
 }
