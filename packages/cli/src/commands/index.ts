@@ -7,6 +7,8 @@ import { reviewCommand } from './review.js';
 import { rateCommand } from './rate.js';
 import { periodicCommand } from './periodic.js';
 import { propertimeCommand } from './propertime.js';
+import { broadcastCommand } from './broadcast.js';
+import { preciseCommand } from './precise.js';
 
 export const COMMANDS: Command[] = [
   planCommand,
@@ -14,6 +16,8 @@ export const COMMANDS: Command[] = [
   rateCommand,
   periodicCommand,
   propertimeCommand,
+  broadcastCommand,
+  preciseCommand,
   reviewCommand,
   stabilityCommand,
 ];

@@ -1,0 +1,303 @@
+/**
+ * `tauline broadcast`: reads RINEX navigation files and prints, per satellite and epoch, the
+ * relativistic correction Δt_r = F e √A sin E_k and the full broadcast clock correction.
+ */
+import { createReadStream, statSync } from 'node:fs';
+import { InvalidArgumentError } from '@tauline/sdk/errors';
+import {
+  evaluateBroadcastEphemeris, selectEphemeris, type KeplerianBroadcastEphemeris, type KeplerianSystem,
+} from '@tauline/sdk/orbit';
+import {
+  readRinexNav, fieldsFromScaleSeconds, formatEpochFields, scaleSecondsFromFields, type RinexNavEphemeris,
+} from '@tauline/sdk/io';
+import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant, type TimeScale, type TimeScales } from '@tauline/sdk/time';
+import {
+  EXIT_OK, FLIGHT_CAUTION, UsageError, numberFlag, optionalFlag, requireFlag, table, toJson, type Command, type Io,
+  type ParsedArgs,
+} from '../framework.js';
+
+/** Input size above which a progress bar is drawn on a terminal, in bytes. */
+export const PROGRESS_BYTES = 4 * 1024 * 1024;
+
+/** Samples per run above which the request is refused (keeps memory bounded). */
+const MAX_SAMPLES = 5_000_000;
+
+/** A one-line progress bar on stderr over the bytes read, redrawn in place; only for terminals. */
+export function progress(io: Io, label: string, totalBytes: number): { add: (n: number) => void; finish: () => void } {
+  const active = io.isTty && totalBytes > PROGRESS_BYTES;
+  let done = 0;
+  let last = -1;
+  return {
+    add(n) {
+      if (!active) return;
+      done += n;
+      const pct = Math.min(100, Math.floor((100 * done) / totalBytes));
+      if (pct === last) return;
+      last = pct;
+      const filled = Math.round(pct / 4);
+      io.err(`\r${label} [${'#'.repeat(filled)}${'.'.repeat(25 - filled)}] ${String(pct).padStart(3)} %`);
+    },
+    finish() {
+      if (active) io.err(`\r${' '.repeat(label.length + 35)}\r`);
+    },
+  };
+}
+
+/** Streams a file as UTF-8 chunks, reporting each chunk's size to `onChunk`. */
+export async function* fileChunks(path: string, onChunk: (bytes: number) => void): AsyncGenerator<string> {
+  for await (const chunk of createReadStream(path, { encoding: 'utf8', highWaterMark: 256 * 1024 })) {
+    onChunk(Buffer.byteLength(chunk as string));
+    yield chunk as string;
+  }
+}
+
+/** Total size of the files, in bytes. */
+export function totalSize(paths: readonly string[]): number {
+  return paths.reduce((sum, p) => sum + statSync(p).size, 0);
+}
+
+/** Name of each system's own time scale as printed. */
+export const SYSTEM_SCALE_LABEL: Record<KeplerianSystem, string> = { G: 'GPST', E: 'GST', C: 'BDT' };
+/** The SDK time-scale id of each system's scale. */
+export const SYSTEM_SCALE: Record<KeplerianSystem, TimeScale> = { G: 'GPS', E: 'GST', C: 'BDT' };
+
+/** Parses `--satellite G01,E11,...` into a set, or undefined for all. */
+export function satelliteFlag(args: ParsedArgs): Set<string> | undefined {
+  const text = optionalFlag(args, 'satellite');
+  if (text === undefined) return undefined;
+  const ids = text.split(',').map((s) => s.trim().toUpperCase()).filter((s) => s !== '');
+  for (const id of ids) {
+    if (!/^[GRECJIS]\d\d$/.test(id)) {
+      throw new InvalidArgumentError('--satellite', id, 'satellite identifiers: system letter and two digits, comma-separated (e.g. G05,E11,C08)');
+    }
+  }
+  if (ids.length === 0) throw new InvalidArgumentError('--satellite', text, 'at least one satellite identifier (e.g. G05)');
+  return new Set(ids);
+}
+
+/** Reads `--json` / `--csv` (mutually exclusive). */
+export function outputFormat(args: ParsedArgs): 'json' | 'csv' | 'table' {
+  if (args.values['json'] && args.values['csv']) throw new UsageError('--json and --csv cannot be combined');
+  return args.values['json'] ? 'json' : args.values['csv'] ? 'csv' : 'table';
+}
+
+/** Result of {@link loadNavigation}. */
+export interface LoadedNavigation {
+  /** Kept records by satellite. */
+  readonly records: Map<string, RinexNavEphemeris[]>;
+  /** Skipped records, counted by reason. */
+  readonly skipped: Map<string, number>;
+  /** Records of modelled systems not kept because their fit interval lies outside the window. */
+  readonly outsideWindow: number;
+  readonly leapSeconds: number | undefined;
+}
+
+/**
+ * Streams navigation files and keeps only the records a window needs: satellites in `filter`
+ * (all when undefined) whose fit interval overlaps [from, to] of their own system's scale.
+ * Memory is bounded by the window, not by the files.
+ */
+export async function loadNavigation(paths: readonly string[], io: Io, window: (system: KeplerianSystem) => { from: number; to: number },
+  filter: ReadonlySet<string> | undefined): Promise<LoadedNavigation> {
+  const records = new Map<string, RinexNavEphemeris[]>();
+  const skipped = new Map<string, number>();
+  let outsideWindow = 0;
+  let leapSeconds: number | undefined;
+  const bar = progress(io, 'reading navigation data', totalSize(paths));
+  try {
+    for (const path of paths) {
+      for await (const ev of readRinexNav(fileChunks(path, bar.add), { sourceName: path })) {
+        if (ev.kind === 'header') {
+          leapSeconds ??= ev.header.leapSeconds?.current;
+        } else if (ev.kind === 'skipped') {
+          if (filter && ev.record.satellite && !filter.has(ev.record.satellite)) continue;
+          skipped.set(ev.record.reason, (skipped.get(ev.record.reason) ?? 0) + 1);
+        } else {
+          const eph = ev.ephemeris;
+          if (filter && !filter.has(eph.satellite)) continue;
+          const w = window(eph.system);
+          if (eph.toeSeconds + eph.fitIntervalSeconds / 2 < w.from || eph.toeSeconds - eph.fitIntervalSeconds / 2 > w.to) {
+            outsideWindow++;
+            continue;
+          }
+          let list = records.get(eph.satellite);
+          if (!list) records.set(eph.satellite, (list = []));
+          list.push(eph);
+        }
+      }
+    }
+  } finally {
+    bar.finish();
+  }
+  return { records, skipped, outsideWindow, leapSeconds };
+}
+
+/** Parses ISO 8601 text for `--from`/`--to`: on UTC (designator required) or as a reading of each system's scale (none allowed). */
+function parseTimeFlag(ts: TimeScales, flag: string, text: string, utc: boolean): Instant | number {
+  try {
+    if (utc) return ts.parseIso(text, 'UTC');
+    // A reading of a GNSS scale: validate with the GPS scale (same calendar rules), keep the calendar count.
+    const instant = ts.parseIso(text, 'GPS');
+    return scaleSecondsFromFields(ts.toCalendar(instant, 'GPS'));
+  } catch (error) {
+    if (error instanceof InvalidArgumentError) {
+      throw new InvalidArgumentError(`--${flag}`, text, utc
+        ? 'an ISO 8601 UTC date-time with a zone designator, e.g. 2024-01-07T00:00:00Z'
+        : 'an ISO 8601 date-time read in each system\'s own time scale, without zone designator, e.g. 2024-01-07T00:00:00 (use --time-scale utc for UTC)',
+      error.message);
+    }
+    throw error;
+  }
+}
+
+interface SampleOut {
+  t: string;
+  relativisticSeconds: number | null;
+  clockCorrectionSeconds: number | null;
+  toe?: string;
+  issueOfData?: number;
+  message?: string;
+  reason?: string;
+}
+
+export const broadcastCommand: Command = {
+  name: 'broadcast',
+  summary: 'Relativistic correction F·e·√A·sin E_k and full clock correction from RINEX navigation files (GPS, Galileo, BeiDou).',
+  usage: '<rinex-nav-file>... --from <ISO 8601> --to <ISO 8601> --step <s> [--satellite G01,...] [--time-scale system|utc] [--galileo inav|fnav] [--include-unhealthy] [--json|--csv]',
+  allowPositionals: true,
+  flags: {
+    from: { type: 'string', value: '<ISO 8601>', description: 'First sample time, e.g. 2024-01-07T00:00:00 (each system\'s own scale unless --time-scale utc).' },
+    to: { type: 'string', value: '<ISO 8601>', description: 'Last sample time (inclusive when on the step grid).' },
+    step: { type: 'string', value: '<s>', description: 'Sample spacing, in seconds (> 0).' },
+    satellite: { type: 'string', value: '<ids>', description: 'Comma-separated satellites, e.g. G05,E11,C08 (default: every modelled satellite in the files).' },
+    'time-scale': { type: 'string', value: '<scale>', description: 'system (default: GPST for GPS, GST for Galileo, BDT for BeiDou) or utc (times with Z; converted with the bundled leap-second table).' },
+    galileo: { type: 'string', value: '<msg>', description: 'Galileo message to prefer: inav (default) or fnav.' },
+    'include-unhealthy': { type: 'boolean', description: 'Also use records whose health word is non-zero.' },
+    json: { type: 'boolean', description: 'Print one JSON object.' },
+    csv: { type: 'boolean', description: 'Print CSV rows (id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message).' },
+  },
+  details: `
+Reads RINEX 3.0x / 4.0x navigation files (streamed; several files, e.g. a month of daily files, may be given).
+Modelled: GPS LNAV, Galileo I/NAV and F/NAV, BeiDou D1/D2; other records are counted as skipped with a reason.
+For each satellite and sample time t the record is chosen by the usual rule (common practice, no source): healthy
+records whose fit interval covers t (GPS: from the record, 0 → 4 h; Galileo, BeiDou: 4 h), nearest t_oe, ties to
+t_oe ≤ t, then the latest transmission, then the highest issue of data. Then (IS-GPS-200 §20.3.3.3.3.1 and
+Table 20-IV [M]; Galileo OS SIS ICD; BDS-SIS-ICD, each with its own GM, Ω_E and F):
+  Δt_r = F e √A sin E_k,   Δt_sv = a_f0 + a_f1 (t − t_oc) + a_f2 (t − t_oc)² + Δt_r   (group delays not applied).
+Times are read in each system's own scale (GPST, GST, BDT) unless --time-scale utc. A sample with no valid record
+has null values and a reason. JSON: { satellites: [{ id, timeScale, samples: [{ t, relativisticSeconds,
+clockCorrectionSeconds, toe, issueOfData, message }] }], skipped, notes, caution }.
+Exit status: 0 success (also when some samples have no record), 2 invalid input or a malformed file.`,
+  async run(args, io) {
+    const files = args.positionals;
+    if (files.length === 0) throw new UsageError('a RINEX navigation file is required (tauline broadcast <rinex-nav-file> ...)');
+    const format = outputFormat(args);
+    const step = numberFlag(args, 'step', true);
+    if (!(step > 0)) throw new InvalidArgumentError('--step', step, 'a positive number of seconds');
+    const scaleText = (optionalFlag(args, 'time-scale') ?? 'system').toLowerCase();
+    if (scaleText !== 'system' && scaleText !== 'utc') throw new InvalidArgumentError('--time-scale', scaleText, "'system' or 'utc'");
+    const utc = scaleText === 'utc';
+    const galileoText = (optionalFlag(args, 'galileo') ?? 'inav').toLowerCase();
+    if (galileoText !== 'inav' && galileoText !== 'fnav') throw new InvalidArgumentError('--galileo', galileoText, "'inav' or 'fnav'");
+    const galileoMessage = galileoText === 'inav' ? 'INAV' : 'FNAV';
+    const includeUnhealthy = Boolean(args.values['include-unhealthy']);
+    const filter = satelliteFlag(args);
+    const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
+    const fromValue = parseTimeFlag(ts, 'from', requireFlag(args, 'from'), utc);
+    const toValue = parseTimeFlag(ts, 'to', requireFlag(args, 'to'), utc);
+
+    // Sample times: per system scale seconds, and the printed label.
+    const span = typeof fromValue === 'number' ? (toValue as number) - fromValue : (toValue as Instant).secondsSince(fromValue);
+    if (!(span >= 0)) throw new InvalidArgumentError('--to', requireFlag(args, 'to'), 'a time not before --from');
+    const count = Math.floor(span / step + 1e-9) + 1;
+    const fractional = !Number.isInteger(step);
+    const toScaleSeconds = (k: number, system: KeplerianSystem): number => {
+      if (typeof fromValue === 'number') return fromValue + k * step;
+      return scaleSecondsFromFields(ts.toCalendar(fromValue.plus(k * step), SYSTEM_SCALE[system]));
+    };
+    const label = (k: number, system: KeplerianSystem): string => {
+      if (typeof fromValue === 'number') return formatEpochFields(fieldsFromScaleSeconds(fromValue + k * step));
+      return ts.formatIso(fromValue.plus(k * step), { fractionDigits: fractional ? 6 : 0 });
+    };
+    const windowOf = (system: KeplerianSystem) => ({ from: toScaleSeconds(0, system), to: toScaleSeconds(count - 1, system) });
+
+    const nav = await loadNavigation(files, io, windowOf, filter);
+    const satellites = [...new Set([...(filter ?? []), ...nav.records.keys()])].sort();
+    if (satellites.length * count > MAX_SAMPLES) {
+      throw new InvalidArgumentError('--step', step, `a step giving at most ${MAX_SAMPLES} samples in all (${satellites.length} satellites × ${count} epochs requested)`);
+    }
+    const notes = new Set<string>();
+    const out: { id: string; timeScale: string; samples: SampleOut[]; missing: number }[] = [];
+    for (const id of satellites) {
+      const system = id.charAt(0) as KeplerianSystem;
+      const records = nav.records.get(id) ?? [];
+      if (!['G', 'E', 'C'].includes(system)) {
+        notes.add(`${id}: system not modelled (GPS, Galileo and BeiDou only)`);
+      }
+      const samples: SampleOut[] = [];
+      let missing = 0;
+      for (let k = 0; k < count; k++) {
+        const t = toScaleSeconds(k, system);
+        const eph: KeplerianBroadcastEphemeris | undefined = ['G', 'E', 'C'].includes(system)
+          ? selectEphemeris(records, t, { includeUnhealthy, galileoMessage }) : undefined;
+        if (!eph) {
+          missing++;
+          samples.push({
+            t: label(k, system), relativisticSeconds: null, clockCorrectionSeconds: null,
+            reason: records.length === 0 ? 'no record of this satellite in the files' : 'no healthy record whose fit interval covers this time',
+          });
+          continue;
+        }
+        const rec = eph as RinexNavEphemeris;
+        for (const n of rec.notes ?? []) notes.add(`${rec.sourceName}:${rec.line}: ${id}: ${n}`);
+        const ev = evaluateBroadcastEphemeris(eph, t);
+        samples.push({
+          t: label(k, system), relativisticSeconds: ev.relativisticSeconds, clockCorrectionSeconds: ev.clockCorrectionSeconds,
+          toe: formatEpochFields(fieldsFromScaleSeconds(eph.toeSeconds)), issueOfData: eph.issueOfData, message: eph.message,
+        });
+      }
+      out.push({ id, timeScale: utc ? 'UTC' : SYSTEM_SCALE_LABEL[system] ?? 'unknown', samples, missing });
+    }
+    const skipped = [...nav.skipped].map(([reason, n]) => ({ reason, count: n }));
+
+    if (format === 'json') {
+      io.out(toJson({
+        timeScale: utc ? 'UTC' : 'system',
+        step,
+        selection: 'nearest t_oe among healthy records whose fit interval covers t (ties: t_oe ≤ t, latest transmission, highest issue of data)',
+        galileoMessage,
+        satellites: out.map(({ id, timeScale, samples }) => ({ id, timeScale, samples })),
+        samplesWithoutRecord: out.reduce((s, x) => s + x.missing, 0),
+        recordsOutsideWindow: nav.outsideWindow,
+        skipped,
+        notes: [...notes],
+        caution: FLIGHT_CAUTION,
+      }));
+      return EXIT_OK;
+    }
+    if (format === 'csv') {
+      io.out('id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message\n');
+      for (const s of out) {
+        for (const x of s.samples) {
+          io.out(`${s.id},${x.t},${x.relativisticSeconds ?? ''},${x.clockCorrectionSeconds ?? ''},${x.toe ?? ''},${x.issueOfData ?? ''},${x.message ?? ''}\n`);
+        }
+      }
+      return EXIT_OK;
+    }
+    io.out(`Broadcast relativistic and clock corrections (${utc ? 'times in UTC' : 'times in each system\'s own scale: GPST, GST, BDT'})\n\n`);
+    const rows: (string | number)[][] = [];
+    for (const s of out) {
+      for (const x of s.samples) {
+        rows.push([s.id, x.t, x.relativisticSeconds === null ? '—' : (x.relativisticSeconds * 1e9).toFixed(4),
+          x.clockCorrectionSeconds === null ? '—' : x.clockCorrectionSeconds.toExponential(12), x.toe ?? (x.reason ?? ''), x.message ?? '']);
+      }
+    }
+    io.out(table(['sat', 't', 'Δt_r (ns)', 'Δt_sv (s)', 't_oe', 'message'], rows));
+    const missing = out.reduce((a, x) => a + x.missing, 0);
+    if (missing > 0) io.out(`\n${missing} sample(s) without a valid record (shown as —).\n`);
+    if (skipped.length > 0) io.out(`\nSkipped records:\n${skipped.map((s) => `  ${s.count} × ${s.reason}`).join('\n')}\n`);
+    if (notes.size > 0) io.out(`\nNotes:\n${[...notes].map((n) => `  ${n}`).join('\n')}\n`);
+    io.out(`\n${FLIGHT_CAUTION}\n`);
+    return EXIT_OK;
+  },
+};

@@ -1,0 +1,179 @@
+/**
+ * `tauline precise`: reads an SP3 precise orbit file and prints −2 r·v/c² per satellite and epoch,
+ * optionally beside the broadcast value from navigation files (cross-check).
+ */
+import { InvalidArgumentError } from '@tauline/sdk/errors';
+import { evaluateBroadcastEphemeris, selectEphemeris, type KeplerianSystem } from '@tauline/sdk/orbit';
+import {
+  readSp3, fieldsFromScaleSeconds, formatEpochFields, scaleSecondsFromFields, type EpochFields, type Sp3Header,
+} from '@tauline/sdk/io';
+import { DEFAULT_LAGRANGE_POINTS, PreciseCorrectionStream, type PreciseCorrectionResult } from '@tauline/sdk/relativity';
+import { BUNDLED_LEAP_SECONDS, createTimeScales, type TimeScale, type TimeScales } from '@tauline/sdk/time';
+import {
+  EXIT_OK, UsageError, numberFlag, table, toJson, type Command,
+} from '../framework.js';
+import {
+  SYSTEM_SCALE, fileChunks, loadNavigation, outputFormat, progress, satelliteFlag, totalSize,
+} from './broadcast.js';
+
+/** SP3 time systems readable on the SDK's scales; GLONASS time is UTC(SU) + 3 h (GLONASS ICD [M]). */
+const SP3_SCALE: Record<string, { scale: TimeScale; offsetSeconds: number } | undefined> = {
+  GPS: { scale: 'GPS', offsetSeconds: 0 }, GAL: { scale: 'GST', offsetSeconds: 0 }, BDT: { scale: 'BDT', offsetSeconds: 0 },
+  TAI: { scale: 'TAI', offsetSeconds: 0 }, UTC: { scale: 'UTC', offsetSeconds: 0 }, QZS: { scale: 'GPS', offsetSeconds: 0 },
+  GLO: { scale: 'UTC', offsetSeconds: 3 * 3600 },
+};
+
+/** Reads an SP3 epoch (in the file's time system) on a navigation system's own scale, as scale seconds. */
+function toSystemScaleSeconds(ts: TimeScales, header: Sp3Header, fields: EpochFields, system: KeplerianSystem): number {
+  const from = SP3_SCALE[header.timeSystem];
+  if (!from) throw new InvalidArgumentError('SP3 time system', header.timeSystem, 'GPS, GAL, BDT, TAI, UTC, QZS or GLO for the --nav cross-check');
+  const shifted = scaleSecondsFromFields(fields) - from.offsetSeconds;
+  if (from.scale === SYSTEM_SCALE[system]) return shifted;
+  const instant = ts.fromCalendar(fieldsFromScaleSeconds(shifted), from.scale);
+  return scaleSecondsFromFields(ts.toCalendar(instant, SYSTEM_SCALE[system]));
+}
+
+interface PreciseOut {
+  t: string;
+  relativisticSeconds: number;
+  velocitySource: 'file' | 'lagrange';
+  broadcastRelativisticSeconds?: number | null;
+  differenceSeconds?: number | null;
+}
+
+export const preciseCommand: Command = {
+  name: 'precise',
+  summary: 'Relativistic correction −2 r·v/c² from an SP3 precise orbit file, optionally compared with broadcast values.',
+  usage: '<sp3-file> [--satellite G01,...] [--lagrange-points <n>] [--nav <rinex-nav-file>]... [--json|--csv]',
+  allowPositionals: true,
+  flags: {
+    satellite: { type: 'string', value: '<ids>', description: 'Comma-separated satellites, e.g. G05,E11 (default: all in the file).' },
+    'lagrange-points': { type: 'string', value: '<n>', description: `Lagrange nodes for velocities when the file has none, 2..16 (default ${DEFAULT_LAGRANGE_POINTS}: degree ${DEFAULT_LAGRANGE_POINTS - 1}).` },
+    nav: { type: 'string', multiple: true, value: '<file>', description: 'RINEX navigation file(s) for the cross-check: adds the broadcast Δt_r and the difference.' },
+    json: { type: 'boolean', description: 'Print one JSON object.' },
+    csv: { type: 'boolean', description: 'Print CSV rows (id,t,relativisticSeconds,velocitySource[,broadcastRelativisticSeconds,differenceSeconds]), streamed.' },
+  },
+  details: `
+Reads an SP3-c or SP3-d file (streamed) and computes at each epoch Δt_r = −2 r·v/c² (IERS Conventions 2010 §10.2
+eq. 10.11 [V1]) in the file's Earth-fixed frame: (ω × r)·r = 0, so r·v is the same as in the inertial frame.
+v: the file's velocity records when present; otherwise the derivative of the Lagrange polynomial through the
+${DEFAULT_LAGRANGE_POINTS} nearest valid positions (centred; one-sided at the file ends). Bad/absent positions
+(0.000000) are reported as gaps, never used as zero. With --nav, the broadcast Δt_r = F e √A sin E_k of the
+record valid at the same instant (converted to the system's own scale) and the difference precise − broadcast are
+added; the difference includes the share of the broadcast harmonic corrections in r·v (≈ 0.01 ns) and orbit errors.
+JSON: { timeSystem, coordinateFrame, agency, lagrangePoints, satellites: [{ id, samples: [{ t, relativisticSeconds,
+velocitySource, broadcastRelativisticSeconds?, differenceSeconds? }], gaps: [{ t, reason }] }] }.
+Exit status: 0 success, 2 invalid input or a malformed file.`,
+  async run(args, io) {
+    if (args.positionals.length !== 1) throw new UsageError('exactly one SP3 file is required (tauline precise <sp3-file>)');
+    const path = args.positionals[0]!;
+    const format = outputFormat(args);
+    const filter = satelliteFlag(args);
+    const points = numberFlag(args, 'lagrange-points') ?? DEFAULT_LAGRANGE_POINTS;
+    if (!Number.isInteger(points) || points < 2 || points > 16) throw new InvalidArgumentError('--lagrange-points', points, 'an integer in [2, 16]');
+    const navValue = args.values['nav'];
+    const navFiles = Array.isArray(navValue) ? navValue : typeof navValue === 'string' ? [navValue] : [];
+    const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
+
+    const bar = progress(io, 'reading precise orbits', totalSize([path]));
+    const events = readSp3(fileChunks(path, bar.add), { sourceName: path });
+    const first = await events.next();
+    if (first.done || first.value.kind !== 'header') throw new UsageError(`${path}: no SP3 header`);
+    const header = first.value.header;
+
+    let nav: Awaited<ReturnType<typeof loadNavigation>> | undefined;
+    if (navFiles.length > 0) {
+      // Window: the SP3 span, read on each system's scale (± 1 h margin for scale offsets).
+      const start = header.firstEpoch;
+      const spanSeconds = header.epochInterval * (header.epochCount - 1);
+      nav = await loadNavigation(navFiles, io, (system) => {
+        const s = toSystemScaleSeconds(ts, header, start, system);
+        return { from: s - 3600, to: s + spanSeconds + 3600 };
+      }, filter ?? new Set(header.satellites));
+    }
+
+    const stream = new PreciseCorrectionStream({
+      epochInterval: header.epochInterval, lagrangePoints: points, ...(filter ? { satellites: filter } : {}),
+    });
+    const bySat = new Map<string, { samples: PreciseOut[]; gaps: { t: string; reason: string }[] }>();
+    const entry = (id: string) => {
+      let e = bySat.get(id);
+      if (!e) bySat.set(id, (e = { samples: [], gaps: [] }));
+      return e;
+    };
+    if (format === 'csv') {
+      io.out(`id,t,relativisticSeconds,velocitySource${nav ? ',broadcastRelativisticSeconds,differenceSeconds' : ''}\n`);
+    }
+    const handle = (results: PreciseCorrectionResult[]) => {
+      for (const r of results) {
+        if (r.kind === 'gap') {
+          const g = { t: formatEpochFields(r.gap.time), reason: r.gap.reason };
+          if (format === 'csv') io.out(`${r.gap.satellite},${g.t},,gap: ${g.reason.replace(/,/g, ';')}${nav ? ',,' : ''}\n`);
+          else entry(r.gap.satellite).gaps.push(g);
+          continue;
+        }
+        const s = r.sample;
+        const o: PreciseOut = { t: formatEpochFields(s.time), relativisticSeconds: s.relativisticSeconds, velocitySource: s.velocitySource };
+        if (nav) {
+          const system = s.satellite.charAt(0) as KeplerianSystem;
+          const records = nav.records.get(s.satellite) ?? [];
+          let broadcast: number | null = null;
+          if (system === 'G' || system === 'E' || system === 'C') {
+            const t = toSystemScaleSeconds(ts, header, s.time, system);
+            const eph = selectEphemeris(records, t);
+            if (eph) broadcast = evaluateBroadcastEphemeris(eph, t).relativisticSeconds;
+          }
+          o.broadcastRelativisticSeconds = broadcast;
+          o.differenceSeconds = broadcast === null ? null : s.relativisticSeconds - broadcast;
+        }
+        if (format === 'csv') {
+          io.out(`${s.satellite},${o.t},${o.relativisticSeconds},${o.velocitySource}` +
+            (nav ? `,${o.broadcastRelativisticSeconds ?? ''},${o.differenceSeconds ?? ''}` : '') + '\n');
+        } else {
+          entry(s.satellite).samples.push(o);
+        }
+      }
+    };
+    try {
+      for (;;) {
+        const next = await events.next();
+        if (next.done) break;
+        if (next.value.kind === 'epoch') handle(stream.push(next.value.epoch));
+      }
+      handle(stream.finish());
+    } finally {
+      bar.finish();
+    }
+    if (format === 'csv') return EXIT_OK;
+
+    const order = header.satellites.filter((s) => bySat.has(s));
+    if (format === 'json') {
+      io.out(toJson({
+        timeSystem: header.timeSystem,
+        coordinateFrame: header.coordinateFrame,
+        agency: header.agency,
+        sp3Version: header.version,
+        epochInterval: header.epochInterval,
+        lagrangePoints: points,
+        satellites: order.map((id) => ({ id, samples: bySat.get(id)!.samples, gaps: bySat.get(id)!.gaps })),
+        ...(nav ? { navigationSkipped: [...nav.skipped].map(([reason, count]) => ({ reason, count })) } : {}),
+      }));
+      return EXIT_OK;
+    }
+    io.out(`Precise-orbit relativistic correction −2 r·v/c² (SP3-${header.version}, ${header.timeSystem} time, frame ${header.coordinateFrame}, ${header.agency})\n\n`);
+    const rows: (string | number)[][] = [];
+    for (const id of order) {
+      for (const o of bySat.get(id)!.samples) {
+        const row: (string | number)[] = [id, o.t, (o.relativisticSeconds * 1e9).toFixed(4), o.velocitySource];
+        if (nav) row.push(o.broadcastRelativisticSeconds == null ? '—' : (o.broadcastRelativisticSeconds * 1e9).toFixed(4),
+          o.differenceSeconds == null ? '—' : (o.differenceSeconds * 1e9).toFixed(4));
+        rows.push(row);
+      }
+    }
+    io.out(table(['sat', 't', 'Δt_r (ns)', 'v from', ...(nav ? ['broadcast (ns)', 'difference (ns)'] : [])], rows));
+    const gaps = order.flatMap((id) => bySat.get(id)!.gaps.map((g) => `  ${id} ${g.t}: ${g.reason}`));
+    if (gaps.length > 0) io.out(`\nEpochs without a correction:\n${gaps.join('\n')}\n`);
+    return EXIT_OK;
+  },
+};
+

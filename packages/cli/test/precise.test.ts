@@ -1,0 +1,91 @@
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import { main } from '../src/main.js';
+
+const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
+const PV = join(ROOT, 'test/fixtures/sp3/orbit-c-pv.sp3');
+const P = join(ROOT, 'test/fixtures/sp3/orbit-d-p.sp3');
+const NAV3 = join(ROOT, 'test/fixtures/rinex-nav/mixed-v305.rnx');
+
+async function run(argv: string[], isTty = false): Promise<{ status: number; out: string; err: string }> {
+  let out = '';
+  let err = '';
+  const status = await main(argv, { out: (t) => { out += t; }, err: (t) => { err += t; }, isTty });
+  return { status, out, err };
+}
+
+describe('tauline precise', () => {
+  it('tauline precise <SP3-c with velocities> --json gives −2 r·v/c² at every file epoch from the file velocities, and the bad-value epoch as a gap', async () => {
+    const r = await run(['precise', PV, '--json']);
+    expect(r.status).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j).toMatchObject({ timeSystem: 'GPS', coordinateFrame: 'IGS20', agency: 'TLN', sp3Version: 'c', epochInterval: 900, lagrangePoints: 9 });
+    expect(j.satellites.map((s: { id: string }) => s.id)).toEqual(['G05', 'E11', 'C08']);
+    const g05 = j.satellites[0];
+    expect(g05.samples.map((s: { t: string }) => s.t)).toEqual(['2024-01-07T00:00:00', '2024-01-07T00:15:00', '2024-01-07T00:30:00', '2024-01-07T00:45:00']);
+    expect(g05.samples.every((s: { velocitySource: string }) => s.velocitySource === 'file')).toBe(true);
+    expect(j.satellites[1].gaps).toEqual([{ t: '2024-01-07T00:30:00', reason: 'position missing (bad/absent marker 0.000000)' }]);
+    expect(j.satellites[1].samples).toHaveLength(3);
+  });
+
+  it('tauline precise <SP3-c> --nav <RINEX 3.05> reports the broadcast Δt_r and a difference below 0.05 ns for the same orbits (cross-check)', async () => {
+    const j = JSON.parse((await run(['precise', PV, '--nav', NAV3, '--json'])).out);
+    let n = 0;
+    for (const sat of j.satellites) {
+      for (const s of sat.samples) {
+        expect(s.broadcastRelativisticSeconds).not.toBeNull();
+        expect(Math.abs(s.differenceSeconds)).toBeLessThan(0.05e-9);
+        expect(s.differenceSeconds).toBeCloseTo(s.relativisticSeconds - s.broadcastRelativisticSeconds, 20);
+        n++;
+      }
+    }
+    expect(n).toBe(11);
+    expect(j.navigationSkipped).toEqual([]);
+  });
+
+  it('tauline precise <SP3-d positions only> uses 9-point Lagrange velocities; --lagrange-points and --satellite narrow the run', async () => {
+    const j = JSON.parse((await run(['precise', P, '--satellite', 'G30', '--json'])).out);
+    expect(j.satellites).toHaveLength(1);
+    expect(j.satellites[0].samples).toHaveLength(13);
+    expect(j.satellites[0].samples[0].velocitySource).toBe('lagrange');
+    const five = JSON.parse((await run(['precise', P, '--satellite', 'G30', '--lagrange-points', '5', '--json'])).out);
+    expect(five.lagrangePoints).toBe(5);
+    const d = Math.abs(five.satellites[0].samples[6].relativisticSeconds - j.satellites[0].samples[6].relativisticSeconds);
+    expect(d).toBeGreaterThan(0);
+    expect(d).toBeLessThan(3e-11);
+  });
+
+  it('tauline precise prints a table with gaps listed, and CSV rows streamed with gaps marked', async () => {
+    const text = (await run(['precise', P])).out;
+    expect(text).toMatch(/SP3-d, GPS time, frame IGS20, TLN/);
+    expect(text).toMatch(/G31\s+2024-01-07T01:30:00: position missing/);
+    const csv = (await run(['precise', PV, '--csv', '--nav', NAV3])).out.trim().split('\n');
+    expect(csv[0]).toBe('id,t,relativisticSeconds,velocitySource,broadcastRelativisticSeconds,differenceSeconds');
+    expect(csv).toHaveLength(1 + 12);
+    expect(csv.find((l) => l.startsWith('E11,2024-01-07T00:30:00'))).toBe('E11,2024-01-07T00:30:00,,gap: position missing (bad/absent marker 0.000000),,');
+  });
+
+  it('tauline precise rejects bad arguments and reports a truncated file with its line', async () => {
+    expect((await run(['precise'])).err).toMatch(/exactly one SP3 file/);
+    expect((await run(['precise', PV, '--lagrange-points', '1'])).err).toMatch(/--lagrange-points must be an integer in \[2, 16\]/);
+    expect((await run(['precise', PV, '--satellite', 'X1'])).err).toMatch(/--satellite/);
+    const t = await run(['precise', join(ROOT, 'test/fixtures/sp3/truncated.sp3')]);
+    expect(t.status).toBe(2);
+    expect(t.err).toMatch(/truncated\.sp3:58:19: expected y \(km\)/);
+    const tmp = mkdtempSync(join(tmpdir(), 'tauline-precise-'));
+    const noEof = join(tmp, 'no-eof.sp3');
+    writeFileSync(noEof, readFileSync(P, 'utf8').replace('EOF\n', ''));
+    expect((await run(['precise', noEof, '--json'])).err).toMatch(/no-eof\.sp3:60:1: expected the closing 'EOF' line/);
+  });
+
+  it('node packages/cli/bin/tauline.js precise ... --json runs the built binary (after npm run build)', () => {
+    if (!existsSync(join(ROOT, 'packages/cli/dist/main.js'))) throw new Error('run `npm run build` first');
+    const p = spawnSync(process.execPath, [join(ROOT, 'packages/cli/bin/tauline.js'), 'precise', PV, '--satellite', 'G05', '--json'], { encoding: 'utf8' });
+    expect(p.status).toBe(0);
+    expect(JSON.parse(p.stdout).satellites[0].samples).toHaveLength(4);
+  });
+});
