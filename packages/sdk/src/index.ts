@@ -16,3 +16,4 @@ export * from './review/index.js';
 export * from './stability/index.js';
 export * from './steering/index.js';
 export * from './signal/index.js';
+export * from './io/index.js';
