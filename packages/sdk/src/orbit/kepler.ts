@@ -37,11 +37,12 @@ function ulp(x: number): number {
 }
 
 /**
- * Tolerance actually guaranteed for mean anomaly `M`: 1e-15 rad for |M| ≤ π; beyond one
- * half-revolution the doubles themselves are spaced wider, so the bound grows to 4 ulp(M).
+ * Residual bound guaranteed by {@link solveKepler} for mean anomaly `M`, in radians: 1e-15 for
+ * |M| ≤ π; beyond one half-revolution the doubles near M are spaced wider, so the bound is
+ * max(1e-15, 4·ulp(M)) (e.g. 3.6e-15 for M ≈ 2π, 5.7e-14 for M ≈ 100 rad).
  */
 export function keplerTolerance(meanAnomaly: Radians): Radians {
-  return Math.max(KEPLER_RESIDUAL_TOLERANCE, 4 * ulp(meanAnomaly));
+  return Math.abs(meanAnomaly) <= Math.PI ? KEPLER_RESIDUAL_TOLERANCE : Math.max(KEPLER_RESIDUAL_TOLERANCE, 4 * ulp(meanAnomaly));
 }
 
 /**

@@ -147,6 +147,7 @@ describe('stateToElements', () => {
     expect(() => stateToElements({ position: ok.position, velocity: [100, 0, 0] }, GM)).toThrow(/rectilinear motion has no orbit plane/);
     expect(() => stateToElements({ position: ok.position, velocity: [0, 6000, 0] }, GM)).toThrow(/below escape speed .*parabolic or hyperbolic/);
     expect(() => stateToElements(ok, -GM)).toThrow(/gm must be/);
+    // Bound (v² < 2GM/r) but so nearly rectilinear that h² underflows and e rounds to 1.
+    expect(() => stateToElements({ position: ok.position, velocity: [1000, 1e-200, 0] }, GM)).toThrow(/state must be a state on an elliptical orbit \(e < 1\).*computed e = 1/);
   });
-
 });

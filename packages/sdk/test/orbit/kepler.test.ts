@@ -1,10 +1,10 @@
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import fc from 'fast-check';
 import {
   eccentricToMeanAnomaly, eccentricToTrueAnomaly, keplerTolerance, meanMotion, orbitalPeriod, solveKepler,
   trueToEccentricAnomaly,
 } from '../../src/orbit/index.js';
-import { InvalidArgumentError } from '../../src/errors.js';
+import { ConvergenceError, InvalidArgumentError } from '../../src/errors.js';
 
 const SEED = 20261202;
 const residual = (E: number, e: number, M: number): number => E - e * Math.sin(E) - M;
@@ -72,6 +72,17 @@ describe('solveKepler', () => {
     expect(() => solveKepler(Number.NaN, 0.1)).toThrow(/meanAnomaly must be a finite angle in radians; received NaN/);
     expect(() => solveKepler(Number.POSITIVE_INFINITY, 0.1)).toThrow(/meanAnomaly/);
     expect(() => solveKepler('1' as unknown as number, 0.1)).toThrow(/meanAnomaly/);
+  });
+});
+
+describe('solveKepler convergence guard', () => {
+  afterEach(() => { vi.restoreAllMocks(); });
+
+  it('solveKepler(M, e) throws ConvergenceError naming M, e and the residual when the bound cannot be met (sin made to return NaN)', () => {
+    // The guard is unreachable with a correct Math.sin; a broken one is the only way to exercise it.
+    vi.spyOn(Math, 'sin').mockReturnValue(Number.NaN);
+    expect(() => solveKepler(1, 0.5)).toThrow(ConvergenceError);
+    expect(() => solveKepler(1, 0.5)).toThrow(/solveKepler\(M = 1, e = 0\.5\) did not converge after \d+ iterations \(residual NaN\)/);
   });
 });
 
