@@ -128,10 +128,10 @@ export function defaultFitIntervalSeconds(): Seconds {
  */
 export function weekCrossover(dt: Seconds): Seconds {
   requireFinite('dt', dt, 'a finite time difference in seconds');
-  let d = dt;
-  while (d > SECONDS_PER_WEEK / 2) d -= SECONDS_PER_WEEK;
-  while (d < -SECONDS_PER_WEEK / 2) d += SECONDS_PER_WEEK;
-  return d;
+  // One subtraction of the nearest whole number of weeks (a loop would never end for huge |dt|).
+  const d = dt - Math.round(dt / SECONDS_PER_WEEK) * SECONDS_PER_WEEK;
+  // Math.round sends an exact half week up; keep +302 400 as the ICD's closed bound does.
+  return d === -SECONDS_PER_WEEK / 2 && dt > 0 ? SECONDS_PER_WEEK / 2 : d;
 }
 
 /**

@@ -309,3 +309,27 @@ describe('parseRinexNav: fuzzing (fast-check, mutated and truncated files)', () 
     }), { seed: 20261202, numRuns: 300 });
   });
 });
+
+describe('readRinexNav: bounded memory on long inputs', () => {
+  it('readRinexNav(chunks) yields each record after pulling only the chunks that hold it (a month of files is never held whole)', async () => {
+    const header = V3.slice(0, V3.indexOf('G05 '));
+    const record = V3.slice(V3.indexOf('G05 '), V3.indexOf('G05 2024 01 07 02'));
+    let pulled = 0;
+    function* monthOfRecords(): Generator<string> {
+      pulled++;
+      yield header;
+      for (let k = 0; k < 100_000; k++) {
+        pulled++;
+        yield record;
+      }
+    }
+    let n = 0;
+    for await (const ev of readRinexNav(monthOfRecords())) {
+      if (ev.kind !== 'ephemeris') continue;
+      n++;
+      expect(pulled).toBeLessThanOrEqual(n + 1);
+      if (n === 200) break;
+    }
+    expect(n).toBe(200);
+  });
+});

@@ -153,3 +153,40 @@ describe('parseSp3: fuzzing (fast-check, mutated and truncated files)', () => {
     }), { seed: 20261202, numRuns: 300 });
   });
 });
+
+describe('readSp3: bounded memory on a day of multi-system 30-s data', () => {
+  /** A lazily generated SP3-d file: 2880 epochs × 120 satellites (a full multi-GNSS day at 30 s), one chunk per epoch. */
+  function* dayFile(pulled: { chunks: number }): Generator<string> {
+    const sats = Array.from({ length: 120 }, (_, k) => `${'GREC'.charAt(k % 4)}${String(1 + Math.floor(k / 4)).padStart(2, '0')}`);
+    const plus = [];
+    for (let k = 0; k < sats.length; k += 17) plus.push(`${k === 0 ? `+  ${String(sats.length).padStart(3)}   ` : '+        '}${sats.slice(k, k + 17).join('').padEnd(51, ' ')}`);
+    pulled.chunks++;
+    yield ['#dP2024  1  7  0  0  0.00000000    2880 ORBIT IGS20 FIT  TLN', '## 2296      0.00000000    30.00000000 60316 0.0000000000000',
+      ...plus, '%c M  cc GPS ccc cccc cccc cccc cccc ccccc ccccc ccccc ccccc', '/* generated', ''].join('\n');
+    for (let e = 0; e < 2880; e++) {
+      const h = Math.floor(e / 120);
+      const m = Math.floor((e % 120) / 2);
+      const s = (e % 2) * 30;
+      const lines = [`*  2024  1  7 ${String(h).padStart(2)} ${String(m).padStart(2)} ${String(s).padStart(2)}.00000000`];
+      for (const sat of sats) lines.push(`P${sat}  15000.000000  15000.000000  15000.000000    100.000000`);
+      pulled.chunks++;
+      yield lines.join('\n') + '\n';
+    }
+    pulled.chunks++;
+    yield 'EOF\n';
+  }
+
+  it('readSp3(chunks) yields the first epochs after pulling only the chunks that hold them (the file is never held whole)', async () => {
+    const pulled = { chunks: 0 };
+    let epochs = 0;
+    for await (const ev of readSp3(dayFile(pulled))) {
+      if (ev.kind !== 'epoch') continue;
+      epochs++;
+      expect(ev.epoch.records).toHaveLength(120);
+      // Epoch k is complete once the chunk of epoch k + 1 has been read: header + (k + 2) chunks.
+      expect(pulled.chunks).toBeLessThanOrEqual(epochs + 2);
+      if (epochs === 50) break;
+    }
+    expect(epochs).toBe(50);
+  });
+});

@@ -157,6 +157,8 @@ describe('weekCrossover, isBeidouGeostationary', () => {
     expect(weekCrossover(302400)).toBe(302400);
     expect(weekCrossover(-302401)).toBe(302399);
     expect(weekCrossover(0)).toBe(0);
+    expect(weekCrossover(-302400)).toBe(-302400);
+    expect(Math.abs(weekCrossover(1e300))).toBeLessThanOrEqual(302400);
     expect(() => weekCrossover(Number.POSITIVE_INFINITY)).toThrow(InvalidArgumentError);
   });
   it('isBeidouGeostationary(id) is true for C01–C05 and C59–C63 only', () => {
