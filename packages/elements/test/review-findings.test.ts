@@ -1,10 +1,10 @@
 import { fixture, html, expect, oneEvent } from '@open-wc/testing';
 import '../src/review-findings/review-findings.define.js';
-import type { TaulineReviewFindings } from '../src/review-findings/review-findings.js';
+import type { TaulineReviewFindings, ReviewReportView } from '../src/review-findings/review-findings.js';
 import { captureWarnings } from './fixtures.js';
 
 // Invented review (no real spacecraft). The sign-flip hypothesis value is −1 × the expected offset.
-const REVIEW = {
+const REVIEW: ReviewReportView = {
   title: 'Launch review: Lyra batch 2',
   caution: 'Verify against the mission interface specification and its responsible engineering authority.',
   spacecraft: [

@@ -248,6 +248,14 @@ describe('tauline-steering-schedule', () => {
     } finally { w.restore(); }
   });
 
+  it('the plan\'s caution is shown next to the table (flight-configuration outputs carry it)', async () => {
+    const el = await fixture<TaulineSteeringSchedule>(html`<tauline-steering-schedule></tauline-steering-schedule>`);
+    el.plan = { ...makePlan(), caution: 'Verify against the mission interface specification.' };
+    el.scenario = makeScenario();
+    await el.updateComplete;
+    expect(shadow(el).querySelector('.caution')!.textContent).to.contain('Verify against');
+  });
+
   it('an infeasible plan shows its reason and a not-feasible badge (text and symbol)', async () => {
     const el = await fixture<TaulineSteeringSchedule>(html`<tauline-steering-schedule></tauline-steering-schedule>`);
     el.plan = { ...makePlan(), feasible: false, reason: 'The actuator range cannot hold the tolerance after the manoeuvre.' };

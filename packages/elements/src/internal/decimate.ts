@@ -78,6 +78,24 @@ export function shouldDecimate(pointCount: number, columns: number): boolean {
   return pointCount >= 4 * Math.max(1, columns);
 }
 
+/**
+ * End (exclusive) of the pixel column `col` that starts at index i: the first index in (i, end]
+ * whose column floor((x − x0)·scale) differs. Binary search, then exact correction with the
+ * same floor rule so points on a boundary land in the same column as a per-point scan puts them.
+ */
+function columnEnd(x: NumericColumn, i: number, end: number, x0: number, scale: number, col: number): number {
+  let lo = i + 1, hi = end;
+  const boundary = x0 + (col + 1) / scale;
+  while (lo < hi) {
+    const mid = (lo + hi) >>> 1;
+    if (x[mid]! < boundary) lo = mid + 1; else hi = mid;
+  }
+  let j = lo;
+  while (j < end && Math.floor((x[j]! - x0) * scale) === col) j++;
+  while (j > i + 1 && Math.floor((x[j - 1]! - x0) * scale) !== col) j--;
+  return j;
+}
+
 class Growable {
   x: Float64Array;
   a: Float64Array;
@@ -129,38 +147,45 @@ export function decimateLine(
   }
   const out = new Growable(4 * cols + 16);
   const scale = cols / (x1 - x0);
-  let column = Number.NaN;
-  let first = -1, last = -1, lo = -1, hi = -1;
-  const flush = (): void => {
-    if (first < 0) return;
-    // Emit the (up to) four indices in ascending order, without repeats.
-    let a = first, b = lo, c = hi, d = last;
+  const emit = (a: number, b: number, c: number, d: number): void => {
+    // The (up to) four indices first ≤ {min, max} ≤ last, in ascending order, without repeats.
     if (b > c) { const t = b; b = c; c = t; }
     out.push(x[a]!, y[a]!, 0);
     if (b !== a) out.push(x[b]!, y[b]!, 0);
     if (c !== b && c !== a) out.push(x[c]!, y[c]!, 0);
     if (d !== c && d !== b && d !== a) out.push(x[d]!, y[d]!, 0);
-    first = -1;
   };
-  for (let i = start; i < end; i++) {
-    const v = y[i]!;
-    if (!Number.isFinite(v)) {
-      flush();
-      out.push(x[i]!, Number.NaN, 0);
-      continue;
-    }
+  let i = start;
+  while (i < end) {
     const col = Math.floor((x[i]! - x0) * scale);
-    if (col !== column || first < 0) {
-      flush();
-      column = col;
-      first = last = lo = hi = i;
-      continue;
+    const j = columnEnd(x, i, end, x0, scale, col);
+    // Tight scan of the column's y values; comparisons skip NaN, which is detected separately.
+    let lo = i, hi = i, yl = y[i]!, yh = yl, finite = yl - yl === 0;
+    for (let k = i + 1; k < j; k++) {
+      const v = y[k]!;
+      if (v < yl) { yl = v; lo = k; } else if (v > yh) { yh = v; hi = k; } else if (v !== v) finite = false;
     }
-    last = i;
-    if (v < y[lo]!) lo = i;
-    else if (v > y[hi]!) hi = i;
+    if (finite && yl - yl === 0 && yh - yh === 0) emit(i, lo, hi, j - 1);
+    else splitAtGaps(i, j);
+    i = j;
   }
-  flush();
+  /** Slow path for a column holding non-finite values: runs between gaps, NaN vertex per gap. */
+  function splitAtGaps(from: number, to: number): void {
+    let first = -1, lo = -1, hi = -1, last = -1;
+    for (let k = from; k < to; k++) {
+      const v = y[k]!;
+      if (!Number.isFinite(v)) {
+        if (first >= 0) emit(first, lo, hi, last);
+        first = -1;
+        out.push(x[k]!, Number.NaN, 0);
+        continue;
+      }
+      if (first < 0) { first = lo = hi = last = k; continue; }
+      last = k;
+      if (v < y[lo]!) lo = k; else if (v > y[hi]!) hi = k;
+    }
+    if (first >= 0) emit(first, lo, hi, last);
+  }
   return { x: out.x, y: out.a, length: out.length };
 }
 
@@ -189,38 +214,40 @@ export function decimateBand(
   }
   const out = new Growable(2 * cols + 16);
   const scale = cols / (x1 - x0);
-  let column = Number.NaN;
-  let n = 0, sumX = 0, minLow = 0, maxHigh = 0, firstX = 0, lastX = 0;
-  const flush = (): void => {
-    if (n === 0) return;
+  const emit = (from: number, to: number, l: number, h: number): void => {
     // Two vertices per column (its first and last x) keep the envelope's width honest.
-    if (n === 1) out.push(sumX, minLow, maxHigh);
-    else {
-      out.push(firstX, minLow, maxHigh);
-      out.push(lastX, minLow, maxHigh);
-    }
-    n = 0;
+    out.push(x[from]!, l, h);
+    if (to - 1 > from) out.push(x[to - 1]!, l, h);
   };
-  for (let i = start; i < end; i++) {
-    const l = low[i]!, h = high[i]!;
-    const xi = x[i]!;
-    if (!Number.isFinite(l) || !Number.isFinite(h)) {
-      flush();
-      out.push(xi, Number.NaN, Number.NaN);
-      continue;
+  let i = start;
+  while (i < end) {
+    const col = Math.floor((x[i]! - x0) * scale);
+    const j = columnEnd(x, i, end, x0, scale, col);
+    let l = low[i]!, h = high[i]!, finite = l - l === 0 && h - h === 0;
+    for (let k = i + 1; k < j; k++) {
+      const a = low[k]!, b = high[k]!;
+      if (a < l) l = a; else if (a !== a) finite = false;
+      if (b > h) h = b; else if (b !== b) finite = false;
     }
-    const col = Math.floor((xi - x0) * scale);
-    if (col !== column || n === 0) {
-      flush();
-      column = col;
-      n = 1; sumX = xi; firstX = xi; lastX = xi; minLow = l; maxHigh = h;
-      continue;
+    if (finite && l - l === 0 && h - h === 0) emit(i, j, l, h);
+    else {
+      // Slow path: runs between non-finite samples, a NaN vertex per gap.
+      let from = -1;
+      for (let k = i; k < j; k++) {
+        const a = low[k]!, b = high[k]!;
+        if (!Number.isFinite(a) || !Number.isFinite(b)) {
+          if (from >= 0) emit(from, k, l, h);
+          from = -1;
+          out.push(x[k]!, Number.NaN, Number.NaN);
+          continue;
+        }
+        if (from < 0) { from = k; l = a; h = b; continue; }
+        if (a < l) l = a;
+        if (b > h) h = b;
+      }
+      if (from >= 0) emit(from, j, l, h);
     }
-    n += 1;
-    lastX = xi;
-    if (l < minLow) minLow = l;
-    if (h > maxHigh) maxHigh = h;
+    i = j;
   }
-  flush();
   return { x: out.x, low: out.a, high: out.b, length: out.length };
 }

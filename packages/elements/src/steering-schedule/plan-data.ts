@@ -40,6 +40,8 @@ export interface PlanView {
   contacts: Array<{ start: number; end: number }>;
   maneuvers: Array<{ at: number; semiMajorAxisBefore: number; semiMajorAxisAfter: number }>;
   metrics: Readonly<Record<string, unknown>> | null;
+  /** The plan's caution text (verify before flight use), shown with the table. */
+  caution: string | null;
   /** Non-fatal problems (dropped entries), for a one-time warning. */
   problems: string[];
 }
@@ -155,6 +157,7 @@ export function readPlan(plan: unknown, scenario: unknown): PlanReadResult {
       tolerance: Number.isFinite(tol) && tol > 0 ? tol : null,
       contacts, maneuvers,
       metrics: isObj(plan['metrics']) ? plan['metrics'] : null,
+      caution: typeof plan['caution'] === 'string' ? plan['caution'] : null,
       problems,
     },
   };

@@ -41,5 +41,6 @@ export const steeringScheduleStyles = css`
   }
   td.reason { text-align: left; white-space: normal; min-width: 14em; color: var(--muted); }
   .kind { display: inline-flex; align-items: center; gap: 5px; }
+  .caution { margin: 0; padding: 4px 10px; border-left: 3px solid var(--tolerance-color); color: var(--muted); font-size: 0.92em; }
   .row-button { border: none; padding: 0 2px; text-decoration: underline dotted; }
 `;

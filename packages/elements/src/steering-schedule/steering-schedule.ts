@@ -122,6 +122,8 @@ export class TaulineSteeringSchedule extends PlotElement {
   private _bandLow: Float64Array | null = null;
   private _bandHigh: Float64Array | null = null;
   private _dataVersion = 0;
+  private _worst = 0;
+  private _worstKey = -1;
   private _view: [number, number] | null = null;
   private _scales: Scales | null = null;
   private _lastDataKey = '';
@@ -200,8 +202,13 @@ export class TaulineSteeringSchedule extends PlotElement {
   get plotLabel(): string {
     const d = this._data;
     if (!d || d.t.length === 0) return 'Steering schedule plot: no data';
-    let worst = 0;
-    for (let i = 0; i < d.steered.length; i++) worst = Math.max(worst, Math.abs(d.steered[i]!) || 0);
+    if (this._worstKey !== this._dataVersion) {
+      let worst = 0;
+      for (let i = 0; i < d.steered.length; i++) { const a = Math.abs(d.steered[i]!); if (a > worst) worst = a; }
+      this._worst = worst;
+      this._worstKey = this._dataVersion;
+    }
+    const worst = this._worst;
     const freq = d.commands.filter((c) => c.kind === 'frequency').length;
     const phase = d.commands.length - freq;
     const span = `${formatUtc(d.epochMs + d.t[0]! * 1000)} to ${formatUtc(d.epochMs + d.t[d.t.length - 1]! * 1000)}`;
@@ -247,7 +254,8 @@ export class TaulineSteeringSchedule extends PlotElement {
         <button type="button" @click=${this._onResetClick}>Show all</button>
       </div>
       <div class="sr-only" aria-live="polite">${this._announcement}</div>
-      <div class="table-wrap">${this._renderTable(d)}</div>`;
+      <div class="table-wrap">${this._renderTable(d)}</div>
+      ${d.caution ? html`<p class="caution" role="note">${d.caution}</p>` : nothing}`;
   }
 
   private _renderMetrics(d: PlanView): TemplateResult | typeof nothing {

@@ -1,0 +1,54 @@
+// Browser benchmark of @tauline/elements (run by `npm run bench`, or alone with
+// `node bench/elements.bench.mjs`): loads demo/stress.html in headless Chromium (playwright-core,
+// /usr/bin/chromium or CHROME_PATH, the flags of web-test-runner.config.mjs), renders a
+// 10^6-point steering prediction, pans it with the keyboard, and compares with drawing the same
+// points undecimated on a canvas of the same size in the same run. Reports only; asserts nothing.
+// Targets (issue): first render < 100 ms, re-render after a pan < 16 ms.
+import { startDevServer } from '@web/dev-server';
+import { chromium } from 'playwright-core';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir, cpus } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import devServerConfig from '../web-dev-server.config.mjs';
+import { CHROMIUM_ARGS } from '../web-test-runner.config.mjs';
+
+const fmt = (ms) => `${ms.toFixed(1).padStart(7)} ms`;
+
+export default async function benchElements() {
+  const server = await startDevServer({
+    config: { ...devServerConfig, port: 0, hostname: '127.0.0.1' },
+    readCliArgs: false, readFileConfig: false, autoExitProcess: false, logStartMessage: false,
+  });
+  const { port } = server.server.address();
+  const profile = mkdtempSync(join(tmpdir(), 'chromium-bench-'));
+  const ctx = await chromium.launchPersistentContext(profile, {
+    executablePath: process.env.CHROME_PATH || '/usr/bin/chromium', headless: true, viewport: { width: 1100, height: 700 }, args: CHROMIUM_ARGS,
+  });
+  try {
+    const page = ctx.pages()[0] ?? (await ctx.newPage());
+    page.on('pageerror', (e) => { console.error('[pageerror]', e.message); process.exitCode = 1; });
+    await page.goto(`http://127.0.0.1:${port}/demo/stress.html?bench`);
+    await page.waitForFunction(() => typeof window.runBench === 'function');
+    await page.evaluate(() => window.runBench()); // warm-up (JIT, fonts)
+    const r = await page.evaluate(() => window.runBench());
+    const version = ctx.browser()?.version() ?? 'chromium';
+    console.log(`headless Chromium ${version}, ${cpus().length} × ${cpus()[0]?.model ?? 'cpu'}, ${new Date().toISOString()}`);
+    console.log(`<tauline-steering-schedule>, ${r.points.toLocaleString('en')} points, plot ${r.width} CSS px at devicePixelRatio ${r.devicePixelRatio}`);
+    const ratio = (ms) => `${(ms / r.undecimatedDrawMedianMs).toFixed(3)}× baseline`;
+    console.log(`  baseline: undecimated line of all points  ${fmt(r.undecimatedDrawMedianMs)}`);
+    console.log(`  first render (3 series + bands, 10^6)    ${fmt(r.firstRenderMs)}  ${ratio(r.firstRenderMs)}  target < 100 ms: ${r.firstRenderMs < 100 ? 'met' : 'MISSED'}`);
+    console.log(`  pan at 1/2 span (5e5 visible), median    ${fmt(r.panHalfSpanMedianMs)}  ${ratio(r.panHalfSpanMedianMs)}  target < 16 ms: ${r.panHalfSpanMedianMs < 16 ? 'met' : 'MISSED'} (max ${r.panHalfSpanMaxMs.toFixed(1)} ms)`);
+    console.log(`  pan at 1/20 span (5e4 visible), median   ${fmt(r.panTwentiethSpanMedianMs)}  ${ratio(r.panTwentiethSpanMedianMs)}`);
+    return r;
+  } finally {
+    await ctx.close();
+    await server.stop();
+    rmSync(profile, { recursive: true, force: true });
+  }
+}
+
+if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
+  process.chdir(fileURLToPath(new URL('..', import.meta.url)));
+  await benchElements();
+}
