@@ -60,11 +60,23 @@ export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
   for (const [name, spec] of Object.entries(command.flags)) {
     options[name] = { type: spec.type, multiple: spec.multiple ?? false, ...(spec.short ? { short: spec.short } : {}) };
   }
+  // node's parser reads "-1" after a flag as an option; a string flag followed by a negative
+  // number (or a comma list starting with one, e.g. --state -1.2e7,...) takes it as its value.
+  const args: string[] = [];
+  for (let i = 0; i < argv.length; i++) {
+    const token = argv[i]!;
+    const next = argv[i + 1];
+    const name = token.startsWith('--') ? token.slice(2) : undefined;
+    if (name !== undefined && !name.includes('=') && command.flags[name]?.type === 'string' && next !== undefined && /^-(\d|\.\d)/.test(next)) {
+      args.push(`${token}=${next}`);
+      i++;
+    } else args.push(token);
+  }
   try {
-    const parsed = parseArgs({ args: argv, options, allowPositionals: command.allowPositionals ?? false, strict: true });
+    const parsed = parseArgs({ args, options, allowPositionals: command.allowPositionals ?? false, strict: true });
     return { values: parsed.values as ParsedArgs['values'], positionals: parsed.positionals };
   } catch (e) {
-    const message = e instanceof Error ? e.message.replace(/\. To specify a positional.*$/s, '') : String(e);
+    const message = e instanceof Error ? e.message.replace(/\. To specify a positional.*$/s, '').replace(/\s*\n\s*/g, ' ') : String(e);
     throw new UsageError(`${message} (see \`tauline ${command.name} --help\`)`);
   }
 }
