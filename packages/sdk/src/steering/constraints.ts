@@ -7,7 +7,7 @@
  * @internal
  */
 import type { Seconds } from '../units.js';
-import { formatIsoUtc } from './iso-time.js';
+import { formatUtcStamp } from './utc-stamps.js';
 import type { InternalCommand } from './predict.js';
 import type { NormalizedScenario } from './scenario.js';
 
@@ -102,9 +102,9 @@ export function quantisePhase(norm: NormalizedScenario, wanted: number, rounding
   return { steps, amount: steps * phaseResolution, ...(limitedBy ? { limitedBy } : {}) };
 }
 
-/** Formats seconds since the epoch as ISO 8601 UTC. */
+/** Formats `t` seconds (elapsed, SI) after the epoch as ISO 8601 UTC, to the millisecond (leap seconds counted). */
 export function isoAt(norm: NormalizedScenario, t: Seconds): string {
-  return formatIsoUtc(norm.epochMs + t * 1000);
+  return formatUtcStamp(norm.timeScales, norm.epoch.plus(t));
 }
 
 /** Human-readable duration, e.g. "3.2 days" or "5.0 h". */

@@ -13,7 +13,7 @@
  */
 import { phaseVariance } from './clock-math.js';
 import {
-  cumulativeFrequency, describeDuration, frac, ns, quantiseFrequency, quantisePhase, spacingOk, uplinkFor,
+  cumulativeFrequency, describeDuration, frac, isoAt, ns, quantiseFrequency, quantisePhase, spacingOk, uplinkFor,
 } from './constraints.js';
 import { meanState, stateJumps, type InternalCommand } from './predict.js';
 import type { NormalizedScenario } from './scenario.js';
@@ -62,7 +62,7 @@ export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalC
       if (norm.actuator.phaseAllowed && Math.abs(x) > theta * usableNow) {
         const q = quantisePhase(norm, -x);
         if (q.steps !== 0) {
-          if (q.limitedBy) limits.push(`the phase step needed at ${t} s (${ns(-x)}) exceeds phaseSteps.maxStep`);
+          if (q.limitedBy) limits.push(`the phase step needed at ${isoAt(norm, t)} (${ns(-x)}) exceeds actuator.phaseSteps.maxStep (${ns(norm.actuator.phaseMaxStep)})`);
           commands.push({
             uplinkAt: t, executeAt: t, kind: 'phase', steps: q.steps, amount: q.amount,
             reason: `deadband: predicted offset ${ns(x)} uses more than ${Math.round(theta * 100)} % of the usable band ±${ns(usableNow)}; phase step removes it`,

@@ -7,10 +7,10 @@
 import { InvalidArgumentError } from '../errors.js';
 import { requireFinite, requireInteger } from '../internal/validate.js';
 import { expectedCost, type CostBreakdown } from './cost.js';
-import { parseIsoUtcMs } from './iso-time.js';
 import type { SteeringCommand, SteeringPlan } from './plan.js';
 import { checkTolerance, gridTimes, meanPhaseAt, phaseSigmaAt, stateJumps, type InternalCommand } from './predict.js';
 import { validateScenario, type NormalizedScenario } from './scenario.js';
+import { parseUtcStamp, type TimeScaleOptions } from './utc-stamps.js';
 
 /** Converts public commands to scenario time, checking each field. */
 export function commandsToInternal(norm: NormalizedScenario, commands: readonly SteeringCommand[], field = 'commands'): InternalCommand[] {
@@ -18,8 +18,8 @@ export function commandsToInternal(norm: NormalizedScenario, commands: readonly 
   return commands.map((c, i) => {
     const f = `${field}[${i}]`;
     if (typeof c !== 'object' || c === null) throw new InvalidArgumentError(f, c, 'a steering command object');
-    const uplinkAt = (parseIsoUtcMs(`${f}.uplinkAt`, c.uplinkAt) - norm.epochMs) / 1000;
-    const executeAt = (parseIsoUtcMs(`${f}.executeAt`, c.executeAt) - norm.epochMs) / 1000;
+    const uplinkAt = parseUtcStamp(norm.timeScales, `${f}.uplinkAt`, c.uplinkAt).secondsSince(norm.epoch);
+    const executeAt = parseUtcStamp(norm.timeScales, `${f}.executeAt`, c.executeAt).secondsSince(norm.epoch);
     const steps = requireInteger(`${f}.actuatorSteps`, c.actuatorSteps);
     if (c.kind === 'frequency') {
       const amount = requireFinite(`${f}.fractionalFrequencyStep`, c.fractionalFrequencyStep);
@@ -41,10 +41,12 @@ export function commandsToInternal(norm: NormalizedScenario, commands: readonly 
  *
  * @param scenario  The scenario (validated here).
  * @param plan      A plan, or just its `commands`.
+ * @param options   `timeScales`: the leap-second table for the UTC stamps (default: bundled, valid until 2027-06-28).
  * @throws {InvalidArgumentError} for an invalid scenario or command field.
+ * @throws {OutOfDomainError} for stamps outside the leap-second table (see `validateScenario`).
  */
-export function steeringCost(scenario: unknown, plan: Pick<SteeringPlan, 'commands'>): CostBreakdown {
-  const norm = validateScenario(scenario);
+export function steeringCost(scenario: unknown, plan: Pick<SteeringPlan, 'commands'>, options: TimeScaleOptions = {}): CostBreakdown {
+  const norm = validateScenario(scenario, options);
   return expectedCost(norm, commandsToInternal(norm, plan.commands, 'plan.commands'));
 }
 
@@ -62,10 +64,14 @@ export interface SteeringPrediction {
  * m(t) from the noise-free 3-state model with the commands and manoeuvre rate changes applied,
  * σ(t)² = φ(t)P0φ(t)ᵀ + q1 t + q2 t³/3 + q3 t⁵/20 (Zucca & Tavella 2005; physics-refs §11).
  *
+ * @param scenario  The scenario (validated here).
+ * @param commands  The schedule (ISO 8601 UTC stamps, as in a plan).
+ * @param options   `timeScales`: the leap-second table for the UTC stamps (default: bundled, valid until 2027-06-28).
  * @throws {InvalidArgumentError} for an invalid scenario or command field.
+ * @throws {OutOfDomainError} for stamps outside the leap-second table (see `validateScenario`).
  */
-export function predictSteering(scenario: unknown, commands: readonly SteeringCommand[]): SteeringPrediction {
-  const norm = validateScenario(scenario);
+export function predictSteering(scenario: unknown, commands: readonly SteeringCommand[], options: TimeScaleOptions = {}): SteeringPrediction {
+  const norm = validateScenario(scenario, options);
   const internal = commandsToInternal(norm, commands);
   const times = gridTimes(norm);
   const sigma = Array.from(phaseSigmaAt(norm, times));

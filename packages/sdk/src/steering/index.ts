@@ -18,3 +18,4 @@ export { steeringCost, predictSteering, type SteeringPrediction } from './evalua
 export { type CostBreakdown } from './cost.js';
 export { type DiffusionCoefficients } from './clock-math.js';
 export { simulatePlan, type SimulationOptions, type SimulationSummary } from './monte-carlo.js';
+export { type TimeScaleOptions } from './utc-stamps.js';

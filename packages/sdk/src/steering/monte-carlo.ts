@@ -13,8 +13,9 @@ import type { SteeringPlan } from './plan.js';
 import { gridTimes, stateJumps } from './predict.js';
 import { createRandom } from '../internal/random.js';
 import { validateScenario } from './scenario.js';
+import { resolveTimeScales, type TimeScaleOptions } from './utc-stamps.js';
 
-export interface SimulationOptions {
+export interface SimulationOptions extends TimeScaleOptions {
   /** Number of simulated clocks (1 … 1 000 000). */
   runs: number;
   /** Seed of the random generator (unsigned 32-bit integer); default 1. Same seed, same result. */
@@ -50,12 +51,14 @@ export interface SimulationSummary {
  *
  * @param scenario  The scenario the plan was made for.
  * @param plan      The plan (its `commands` are used).
- * @param options   `runs`, `seed`, `onProgress`.
- * @throws {InvalidArgumentError} for invalid scenario, command, runs or seed.
+ * @param options   `runs`, `seed`, `onProgress`, and `timeScales` (the leap-second table for the UTC
+ *   stamps; default the bundled table, valid until 2027-06-28).
+ * @throws {InvalidArgumentError} for invalid scenario, command, runs, seed or timeScales.
+ * @throws {OutOfDomainError} for stamps outside the leap-second table (see `validateScenario`).
  */
 export function simulatePlan(scenario: unknown, plan: Pick<SteeringPlan, 'commands'>, options: SimulationOptions): SimulationSummary {
-  const norm = validateScenario(scenario);
   if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an object with runs');
+  const norm = validateScenario(scenario, { timeScales: resolveTimeScales(options) });
   const runs = requireInteger('options.runs', options.runs, 1, 1_000_000);
   const seed = options.seed === undefined ? 1 : requireInteger('options.seed', options.seed, 0, 4_294_967_295);
   const commands = commandsToInternal(norm, plan.commands, 'plan.commands');

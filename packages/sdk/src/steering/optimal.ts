@@ -34,7 +34,7 @@ import {
 } from './constraints.js';
 import { expectedCost } from './cost.js';
 import { planDeadband, type PlannerResult } from './deadband.js';
-import { checkTolerance, gridTimes, phaseSigmaAt, stateJumps, type InternalCommand } from './predict.js';
+import { checkTolerance, gridTimes, phaseSigmaAt, stateJumps, type ActuatorLimit, type InternalCommand } from './predict.js';
 import type { NormalizedScenario } from './scenario.js';
 
 interface Boundary {
@@ -90,6 +90,36 @@ function quadForm(s: readonly number[], m: Matrix3): number {
   let q = 0;
   for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) q += s[i]! * m[i]![j]! * s[j]!;
   return q;
+}
+
+/** How each actuator limit is named in reasons: the scenario field that sets it. */
+const LIMIT_NAMES: Readonly<Record<ActuatorLimit, string>> = {
+  maxFrequencyStep: 'actuator.maxFrequencyStep',
+  cumulativeFrequencyRange: 'actuator.cumulativeFrequencyRange',
+  maxPhaseStep: 'actuator.phaseSteps.maxStep',
+};
+
+/** The limit that cut a quantised step of the given kind, if any. */
+function actuatorLimitOf(kind: 'frequency' | 'phase', step: QuantisedStep): ActuatorLimit | undefined {
+  if (step.limitedBy === undefined) return undefined;
+  if (kind === 'phase') return 'maxPhaseStep';
+  return step.limitedBy === 'maxStep' ? 'maxFrequencyStep' : 'cumulativeFrequencyRange';
+}
+
+/**
+ * One sentence per actuator limit that cut a command of `commands` short (from the commands'
+ * `limitedBy` flags, in the order maxFrequencyStep, cumulative range, phase step), for the
+ * infeasibility diagnosis.
+ */
+export function actuatorLimitMessages(norm: NormalizedScenario, commands: readonly InternalCommand[]): string[] {
+  const hit = new Set(commands.map((c) => c.limitedBy).filter((l): l is ActuatorLimit => l !== undefined));
+  const messages: string[] = [];
+  if (hit.has('maxFrequencyStep')) messages.push(`the needed step exceeds maxFrequencyStep (${frac(norm.actuator.maxStep)})`);
+  if (hit.has('cumulativeFrequencyRange')) {
+    messages.push(`the cumulative range [${frac(norm.actuator.rangeMin)}, ${frac(norm.actuator.rangeMax)}] is exhausted`);
+  }
+  if (hit.has('maxPhaseStep')) messages.push(`the needed phase step exceeds actuator.phaseSteps.maxStep (${ns(norm.actuator.phaseMaxStep)})`);
+  return messages;
 }
 
 /** One backward + forward pass with the phase weight multiplied by `scale`. */
@@ -161,10 +191,12 @@ function lqPass(norm: NormalizedScenario, fixed: readonly InternalCommand[], bou
       if (best.kind !== 'none') {
         const uplink = uplinkFor(norm, b.t)!;
         const before = `predicted offset ${ns(state[0]!)} and frequency ${frac(state[1]!)} before the step`;
+        const limitedBy = actuatorLimitOf(best.kind, best.step);
         commands.push({
           uplinkAt: uplink, executeAt: b.t, kind: best.kind, steps: best.step.steps, amount: best.step.amount,
           reason: `optimal (quantised LQ): ${before}; this ${best.kind} step minimises the expected offset cost to the end of the horizon` +
-            (best.step.limitedBy ? ` (limited by ${best.step.limitedBy === 'maxStep' ? 'the maximum step' : 'the cumulative range'})` : ''),
+            (limitedBy ? ` (limited by ${LIMIT_NAMES[limitedBy]})` : ''),
+          ...(limitedBy ? { limitedBy } : {}),
         });
         if (best.kind === 'frequency') state[1] += best.step.amount;
         else state[0] += best.step.amount;
@@ -205,15 +237,6 @@ export function planOptimal(norm: NormalizedScenario, fixed: readonly InternalCo
       limits: deadband.limits,
     };
   }
-  const limits: string[] = [];
-  for (const c of commands) {
-    if (c.reason.includes('limited by the maximum step')) {
-      limits.push(`the needed step exceeds maxFrequencyStep (${frac(norm.actuator.maxStep)})`);
-      break;
-    }
-  }
-  if (commands.some((c) => c.reason.includes('limited by the cumulative range'))) {
-    limits.push(`the cumulative range [${frac(norm.actuator.rangeMin)}, ${frac(norm.actuator.rangeMax)}] is exhausted`);
-  }
-  return { commands, limits };
+  // Only the LQ commands carry `limitedBy`; the feed-forward ones report their limits separately.
+  return { commands, limits: actuatorLimitMessages(norm, commands) };
 }

@@ -15,6 +15,7 @@ import {
 } from './predict.js';
 import { validateScenario, type NormalizedScenario } from './scenario.js';
 import { InvalidArgumentError } from '../errors.js';
+import type { TimeScaleOptions } from './utc-stamps.js';
 
 /** The caution every steering plan carries. */
 export const STEERING_CAUTION =
@@ -25,7 +26,7 @@ export const STEERING_CAUTION =
 /** The planning methods. `none` leaves the clock unsteered (a baseline). */
 export type SteeringMethod = 'deadband' | 'optimal' | 'none';
 
-/** One command of a plan. Times are ISO 8601 UTC. */
+/** One command of a plan. Times are ISO 8601 UTC (`...Z`, to the millisecond; `:60` inside a leap second). */
 export interface SteeringCommand {
   /** When the command is sent (inside a contact window). */
   uplinkAt: string;
@@ -88,7 +89,7 @@ export interface SteeringMetrics {
   expectedCost: number;
 }
 
-export interface PlanOptions {
+export interface PlanOptions extends TimeScaleOptions {
   /** Overrides the scenario's `strategy.method`. */
   strategy?: SteeringMethod;
 }
@@ -196,14 +197,20 @@ export function buildPlan(norm: NormalizedScenario, method: SteeringMethod, resu
  * Strategies: `deadband` (see planDeadband), `optimal` (quantised LQ rollout, see planOptimal;
  * Koppang & Leland 1999 as the published background), `none` (unsteered baseline).
  *
+ * Times: UTC stamps are read and printed with `options.timeScales` (default: the bundled
+ * leap-second table, valid until 2027-06-28); intervals are elapsed SI seconds, so a leap second
+ * inside the horizon is counted.
+ *
  * @param scenario  A scenario object (see `SteeringScenario` and schema/scenario.schema.json).
- * @param options   `strategy` overrides the scenario's method.
+ * @param options   `strategy` overrides the scenario's method; `timeScales` gives the leap-second table.
  * @returns A JSON-serialisable plan; `feasible: false` with a `reason` rather than a violating plan.
  * @throws {InvalidArgumentError} naming the field path for any invalid scenario field.
+ * @throws {OutOfDomainError} for a stamp or horizon beyond the leap-second table; the message says how to pass a current table.
  * @see P. Koppang & R. Leland, IEEE Trans. UFFC 46(3) 517–522 (1999) [V2]; Metrologia 56 025007 (2019) [V2].
  */
 export function planSteering(scenario: unknown, options: PlanOptions = {}): SteeringPlan {
-  const norm = validateScenario(scenario);
+  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an object { strategy?, timeScales? }');
+  const norm = validateScenario(scenario, options);
   const method = resolveMethod(norm, options.strategy);
   return buildPlan(norm, method, runPlanner(norm, method));
 }

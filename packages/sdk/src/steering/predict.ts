@@ -14,6 +14,9 @@ import type { Seconds } from '../units.js';
 import { phaseVariance } from './clock-math.js';
 import type { NormalizedScenario } from './scenario.js';
 
+/** The actuator limit that cut a command short of the wanted step. */
+export type ActuatorLimit = 'maxFrequencyStep' | 'cumulativeFrequencyRange' | 'maxPhaseStep';
+
 /** A command in scenario time (seconds since the epoch). */
 export interface InternalCommand {
   uplinkAt: Seconds;
@@ -24,6 +27,8 @@ export interface InternalCommand {
   /** steps × resolution: fractional frequency, or seconds for a phase step. */
   amount: number;
   reason: string;
+  /** Set when an actuator limit cut the step short of what the planner wanted. */
+  limitedBy?: ActuatorLimit;
 }
 
 /** A jump of the clock state at time t: dy in frequency (fractional), dx in phase (s). */

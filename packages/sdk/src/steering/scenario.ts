@@ -10,11 +10,13 @@ import { InvalidArgumentError } from '../errors.js';
 import { requireFinite, requireNonNegative, requireOrbitRadius, requirePositive } from '../internal/validate.js';
 import { normalQuantile } from '../internal/special-functions.js';
 import type { Dimensionless, Metres, PerSecond, Seconds } from '../units.js';
+import type { Instant } from '../time/instant.js';
+import type { TimeScales } from '../time/scales.js';
 import type { DiffusionCoefficients, Matrix3 } from './clock-math.js';
-import { parseIsoUtcMs } from './iso-time.js';
+import { parseUtcStamp, requireInsideTable, resolveTimeScales, type TimeScaleOptions } from './utc-stamps.js';
 import { rateChangeForSemiMajorAxisChange } from '../relativity/rate.js';
 
-/** One uplink opportunity (ISO 8601 UTC). */
+/** One uplink opportunity (ISO 8601 UTC stamps with a zone designator; `23:59:60Z` where a leap second exists). */
 export interface ContactWindow {
   start: string;
   end: string;
@@ -141,7 +143,10 @@ export interface SteeringScenario {
 /** The scenario after validation: times in seconds since the epoch, noise as q1..q3. */
 export interface NormalizedScenario {
   source: SteeringScenario;
-  epochMs: number;
+  /** The scenario epoch. */
+  epoch: Instant;
+  /** The time scales (leap-second table) the UTC stamps were read with; plan stamps are printed with them. */
+  timeScales: TimeScales;
   horizon: Seconds;
   grid: Seconds;
   state0: [number, number, number];
@@ -294,7 +299,11 @@ function validateStrategy(value: unknown): StrategySpec {
 /**
  * Validates a steering scenario and returns its normalised form.
  *
- * Checks: ISO 8601 UTC stamps; horizon in (0, 1 year]; grid in (0, horizon]; clock state finite,
+ * Times: every stamp is read with `options.timeScales` (default: the bundled leap-second table,
+ * valid until 2027-06-28) and turned into SI seconds since the epoch, t = stamp − epoch as
+ * elapsed time (TAI), so a leap second inside the horizon counts as one second.
+ *
+ * Checks: ISO 8601 UTC stamps with a zone; the whole horizon inside the leap-second table; horizon in (0, 1 year]; grid in (0, horizon]; clock state finite,
  * covariance symmetric positive semi-definite (Cauchy–Schwarz per pair); noise non-negative;
  * tolerance > 0 and probability in (0, 1); contact windows sorted, non-overlapping, with
  * start < end, all inside [epoch, epoch + horizon]; actuator resolution > 0, max step ≥
@@ -303,26 +312,31 @@ function validateStrategy(value: unknown): StrategySpec {
  * the Earth's radius (the relativistic rate change, (3GM/(2c²))(1/aBefore − 1/aAfter), comes from
  * `rateChangeForSemiMajorAxisChange` of the relativity module, IERS 2010 constants).
  *
- * @param input  The parsed scenario file (unknown JSON).
+ * @param input    The parsed scenario file (unknown JSON).
+ * @param options  `timeScales`: the time scales (leap-second table) for the UTC stamps.
  * @returns The scenario with times in seconds since the epoch.
  * @throws {InvalidArgumentError} naming the field path, the value and the expected range.
+ * @throws {OutOfDomainError} for a stamp, or a horizon end, outside the leap-second table; the message says how to pass a current table.
  */
-export function validateScenario(input: unknown): NormalizedScenario {
+export function validateScenario(input: unknown, options: TimeScaleOptions = {}): NormalizedScenario {
+  const timeScales = resolveTimeScales(options);
   const root = requireObject('scenario', input);
   rejectUnknownKeys('', root, ['$schema', 'name', 'description', 'epoch', 'horizonSeconds', 'gridSeconds', 'clock',
     'tolerance', 'contacts', 'actuator', 'maneuvers', 'strategy', 'costWeights']);
   for (const key of ['name', 'description'] as const) {
     if (root[key] !== undefined && typeof root[key] !== 'string') throw new InvalidArgumentError(key, root[key], 'a string');
   }
-  const epochMs = parseIsoUtcMs('epoch', root['epoch']);
+  const epoch = parseUtcStamp(timeScales, 'epoch', root['epoch']);
   const horizon = requirePositive('horizonSeconds', root['horizonSeconds'], 's');
   if (horizon > MAX_HORIZON) throw new InvalidArgumentError('horizonSeconds', horizon, `at most ${MAX_HORIZON} s (366 days)`);
+  // Plan stamps anywhere in the horizon are printed in UTC, so the whole horizon must lie inside the table.
+  requireInsideTable(timeScales, 'horizonSeconds', horizon, epoch.plus(horizon));
   const grid = root['gridSeconds'] === undefined ? Math.min(900, horizon) : requirePositive('gridSeconds', root['gridSeconds'], 's');
   if (grid > horizon) throw new InvalidArgumentError('gridSeconds', grid, `at most horizonSeconds (${horizon} s)`);
   if (horizon / grid > MAX_GRID_POINTS) {
     throw new InvalidArgumentError('gridSeconds', grid, `at least horizonSeconds/${MAX_GRID_POINTS} = ${horizon / MAX_GRID_POINTS} s`);
   }
-  const toSeconds = (field: string, text: unknown): number => (parseIsoUtcMs(field, text) - epochMs) / 1000;
+  const toSeconds = (field: string, text: unknown): number => parseUtcStamp(timeScales, field, text).secondsSince(epoch);
 
   const clock = requireObject('clock', root['clock']);
   rejectUnknownKeys('clock', clock, ['phaseSeconds', 'fractionalFrequency', 'driftPerSecond', 'covariance', 'noise']);
@@ -436,7 +450,7 @@ export function validateScenario(input: unknown): NormalizedScenario {
   }
 
   return {
-    source: input as SteeringScenario, epochMs, horizon, grid, state0, covariance0, noise, bound, probability, z,
+    source: input as SteeringScenario, epoch, timeScales, horizon, grid, state0, covariance0, noise, bound, probability, z,
     windows,
     actuator: { resolution, maxStep, rangeMin, rangeMax, initial, phaseAllowed, phaseResolution, phaseMaxStep, spacing, latency },
     maneuvers, strategy, weights,

@@ -10,11 +10,11 @@ export function example(name: 'orin-3-meo' | 'halcyr-g1-geo'): SteeringScenario 
 export function baseScenario(overrides: Partial<SteeringScenario> = {}): SteeringScenario {
   const contacts = [];
   for (let h = 1; h < 48; h += 6) {
-    contacts.push({ start: `2031-01-0${1 + Math.floor(h / 24)}T${String(h % 24).padStart(2, '0')}:00:00Z`,
-      end: `2031-01-0${1 + Math.floor(h / 24)}T${String(h % 24).padStart(2, '0')}:30:00Z` });
+    contacts.push({ start: `2027-01-0${1 + Math.floor(h / 24)}T${String(h % 24).padStart(2, '0')}:00:00Z`,
+      end: `2027-01-0${1 + Math.floor(h / 24)}T${String(h % 24).padStart(2, '0')}:30:00Z` });
   }
   return {
-    epoch: '2031-01-01T00:00:00Z',
+    epoch: '2027-01-01T00:00:00Z',
     horizonSeconds: 2 * 86_400,
     gridSeconds: 900,
     clock: { phaseSeconds: 2e-9, fractionalFrequency: 1e-13, driftPerSecond: 0, noise: { q1: 1e-24, q2: 1e-34, q3: 0 } },

@@ -86,7 +86,7 @@ describe('planSteering', () => {
 
   it('planSteering(scenario) says infeasible when no contact comes before the offset leaves the tolerance', () => {
     const s = baseScenario({ clock: { phaseSeconds: 0, fractionalFrequency: 1e-12, driftPerSecond: 0, noise: { q1: 0, q2: 0, q3: 0 } } });
-    s.contacts = [{ start: '2031-01-02T12:00:00Z', end: '2031-01-02T13:00:00Z' }];
+    s.contacts = [{ start: '2027-01-02T12:00:00Z', end: '2027-01-02T13:00:00Z' }];
     const plan = planSteering(s);
     expect(plan.feasible).toBe(false);
     expect(plan.reason).toMatch(/no contact lets a command execute before/);
@@ -135,7 +135,7 @@ describe('steeringCost and predictSteering', () => {
 
   it('steeringCost(scenario, plan) rejects a command with a non-integer actuatorSteps or a bad kind', () => {
     const s = baseScenario();
-    const c = { uplinkAt: '2031-01-01T01:00:00Z', executeAt: '2031-01-01T01:00:00Z', kind: 'frequency' as const, fractionalFrequencyStep: 1e-15, actuatorSteps: 1.5, reason: '' };
+    const c = { uplinkAt: '2027-01-01T01:00:00Z', executeAt: '2027-01-01T01:00:00Z', kind: 'frequency' as const, fractionalFrequencyStep: 1e-15, actuatorSteps: 1.5, reason: '' };
     expect(() => steeringCost(s, { commands: [c] })).toThrow(/plan.commands\[0\].actuatorSteps/);
     expect(() => steeringCost(s, { commands: [{ ...c, actuatorSteps: 1, kind: 'warp' as never }] })).toThrow(/plan.commands\[0\].kind/);
     expect(() => predictSteering(s, [{ ...c, actuatorSteps: 1, executeAt: 'soon' }])).toThrow(/commands\[0\].executeAt/);

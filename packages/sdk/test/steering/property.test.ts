@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { planSteering, validateScenario, type SteeringScenario } from '../../src/steering/index.js';
 import { probabilityWithin } from '../../src/steering/predict.js';
 
-const EPOCH_MS = Date.parse('2031-06-01T00:00:00Z');
+const EPOCH_MS = Date.parse('2027-03-01T00:00:00Z');
 const iso = (s: number): string => new Date(EPOCH_MS + s * 1000).toISOString().replace('.000Z', 'Z');
 
 /** Random but valid scenarios: 1–4 days, random contact pattern, actuator and clock. */

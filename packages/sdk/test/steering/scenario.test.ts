@@ -26,12 +26,12 @@ describe('validateScenario', () => {
 
   const cases: [string, (s: Record<string, any>) => void, string][] = [
     ['unsorted windows', (s) => { [s.contacts[1], s.contacts[2]] = [s.contacts[2], s.contacts[1]]; }, 'contacts[2].start'],
-    ['overlapping windows', (s) => { s.contacts[1].start = '2031-01-01T01:15:00Z'; }, 'contacts[1].start'],
-    ['a window ending before it starts', (s) => { s.contacts[0].end = '2031-01-01T00:30:00Z'; }, 'contacts[0].end'],
-    ['a contact after the horizon', (s) => { s.contacts.push({ start: '2031-01-05T00:00:00Z', end: '2031-01-05T01:00:00Z' }); }, 'contacts[8].end'],
-    ['a contact before the epoch', (s) => { s.contacts[0].start = '2030-12-31T23:00:00Z'; }, 'contacts[0].start'],
-    ['a timestamp without zone', (s) => { s.contacts[3].end = '2031-01-01T19:30:00'; }, 'contacts[3].end'],
-    ['an impossible date', (s) => { s.epoch = '2031-02-30T00:00:00Z'; }, 'epoch'],
+    ['overlapping windows', (s) => { s.contacts[1].start = '2027-01-01T01:15:00Z'; }, 'contacts[1].start'],
+    ['a window ending before it starts', (s) => { s.contacts[0].end = '2027-01-01T00:30:00Z'; }, 'contacts[0].end'],
+    ['a contact after the horizon', (s) => { s.contacts.push({ start: '2027-01-05T00:00:00Z', end: '2027-01-05T01:00:00Z' }); }, 'contacts[8].end'],
+    ['a contact before the epoch', (s) => { s.contacts[0].start = '2026-12-31T23:00:00Z'; }, 'contacts[0].start'],
+    ['a timestamp without zone', (s) => { s.contacts[3].end = '2027-01-01T19:30:00'; }, 'contacts[3].end'],
+    ['an impossible date', (s) => { s.epoch = '2027-02-30T00:00:00Z'; }, 'epoch'],
     ['negative tolerance', (s) => { s.tolerance.phaseSeconds = -1e-8; }, 'tolerance.phaseSeconds'],
     ['probability given in percent', (s) => { s.tolerance.probability = 95; }, 'tolerance.probability'],
     ['resolution 0', (s) => { s.actuator.frequencyResolution = 0; }, 'actuator.frequencyResolution'],
@@ -45,9 +45,9 @@ describe('validateScenario', () => {
     ['phase max step below resolution', (s) => { s.actuator.phaseSteps = { allowed: true, resolution: 1e-9, maxStep: 1e-10 }; }, 'actuator.phaseSteps.maxStep'],
     ['negative spacing', (s) => { s.actuator.minCommandSpacingSeconds = -1; }, 'actuator.minCommandSpacingSeconds'],
     ['negative latency', (s) => { s.actuator.maxTimeTagSeconds = -1; }, 'actuator.maxTimeTagSeconds'],
-    ['a manoeuvre into the Earth', (s) => { s.maneuvers = [{ at: '2031-01-01T10:00:00Z', semiMajorAxisBefore: 26_561_750, semiMajorAxisAfter: 6_000_000 }]; }, 'maneuvers[0].semiMajorAxisAfter'],
-    ['a manoeuvre in kilometres', (s) => { s.maneuvers = [{ at: '2031-01-01T10:00:00Z', semiMajorAxisBefore: 26_561.75, semiMajorAxisAfter: 26_561_750 }]; }, 'maneuvers[0].semiMajorAxisBefore'],
-    ['a manoeuvre outside the horizon', (s) => { s.maneuvers = [{ at: '2031-02-01T10:00:00Z', semiMajorAxisBefore: 26_561_750, semiMajorAxisAfter: 26_562_750 }]; }, 'maneuvers[0].at'],
+    ['a manoeuvre into the Earth', (s) => { s.maneuvers = [{ at: '2027-01-01T10:00:00Z', semiMajorAxisBefore: 26_561_750, semiMajorAxisAfter: 6_000_000 }]; }, 'maneuvers[0].semiMajorAxisAfter'],
+    ['a manoeuvre in kilometres', (s) => { s.maneuvers = [{ at: '2027-01-01T10:00:00Z', semiMajorAxisBefore: 26_561.75, semiMajorAxisAfter: 26_561_750 }]; }, 'maneuvers[0].semiMajorAxisBefore'],
+    ['a manoeuvre outside the horizon', (s) => { s.maneuvers = [{ at: '2027-02-01T10:00:00Z', semiMajorAxisBefore: 26_561_750, semiMajorAxisAfter: 26_562_750 }]; }, 'maneuvers[0].at'],
     ['horizon 0', (s) => { s.horizonSeconds = 0; }, 'horizonSeconds'],
     ['horizon over a year', (s) => { s.horizonSeconds = 400 * 86_400; }, 'horizonSeconds'],
     ['grid longer than the horizon', (s) => { s.gridSeconds = 3 * 86_400; }, 'gridSeconds'],
@@ -79,13 +79,13 @@ describe('validateScenario', () => {
   }
 
   it('validateScenario(scenario) names the Earth and suggests kilometres in the hint', () => {
-    const e = errorFor((s) => { s.maneuvers = [{ at: '2031-01-01T10:00:00Z', semiMajorAxisBefore: 26_561.75, semiMajorAxisAfter: 26_561_750 }]; });
+    const e = errorFor((s) => { s.maneuvers = [{ at: '2027-01-01T10:00:00Z', semiMajorAxisBefore: 26_561.75, semiMajorAxisAfter: 26_561_750 }]; });
     expect(e.message).toMatch(/inside the Earth.*did you mean/);
   });
 
   it('validateScenario(scenario) computes the manoeuvre rate change 3GM/(2c²)(1/a0 − 1/a1) ≈ 9.4292e-18 per metre at a = 26 561 750 m (Ashby, PTTI 33, 2001 [V2]; physics-refs §2 [C])', () => {
     const n = validateScenario(baseScenario({
-      maneuvers: [{ at: '2031-01-01T10:00:00Z', semiMajorAxisBefore: 26_561_750, semiMajorAxisAfter: 26_562_750 }],
+      maneuvers: [{ at: '2027-01-01T10:00:00Z', semiMajorAxisBefore: 26_561_750, semiMajorAxisAfter: 26_562_750 }],
     }));
     expect(n.maneuvers[0]!.rateChange / 1000).toBeCloseTo(9.4292e-18, 21);
   });
