@@ -17,3 +17,4 @@ export * from './stability/index.js';
 export * from './steering/index.js';
 export * from './signal/index.js';
 export * from './io/index.js';
+export * from './clock-model/index.js';

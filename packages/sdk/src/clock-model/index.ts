@@ -1,0 +1,15 @@
+/**
+ * Clock models: the stochastic [phase, frequency, drift] model (transition, process noise,
+ * q ↔ h ↔ Allan/Hadamard relations, fit of q to measured stability), a weighted polynomial
+ * (af0/af1/af2) fit, a 2-/3-state clock Kalman filter with outlier and jump detection, and a
+ * seeded clock simulator.
+ *
+ * @module
+ */
+export type { Matrix } from './linalg.js';
+export {
+  clockTransitionMatrix, clockProcessNoise, qFromH, hFromQ, allanVarianceFromQ, hadamardVarianceFromQ,
+  diffusionFromStabilitySpec, fitDiffusion,
+  type ClockStates, type ClockDiffusion, type PowerLawCoefficients, type StabilitySpecPoint, type MeasuredStabilityPoint,
+  type DiffusionFitOptions, type DiffusionFit,
+} from './noise.js';

@@ -1,0 +1,452 @@
+/**
+ * Stochastic clock model: transition matrix, process-noise covariance from the diffusion
+ * coefficients q1, q2, q3, their relation to the power-law coefficients h_α and to the Allan
+ * and Hadamard variances, and a fit of the q's to measured stability.
+ *
+ * State vector [x, y, d]: phase (time error) x in s, fractional frequency y (dimensionless),
+ * frequency drift d in 1/s. The 2-state model keeps [x, y].
+ *
+ * @module
+ */
+import { InvalidArgumentError } from '../errors.js';
+import type { Dimensionless, Seconds } from '../units.js';
+import { requireNonNegative, requirePositive } from '../internal/validate.js';
+import { cholesky, type Matrix } from './linalg.js';
+
+/** Number of clock states: 2 = [phase, frequency], 3 = [phase, frequency, drift]. */
+export type ClockStates = 2 | 3;
+
+/**
+ * Diffusion coefficients of the clock model (Zucca & Tavella 2005).
+ * `q1` white frequency noise (WFM, the phase random walk), in s;
+ * `q2` random-walk frequency noise (RWFM), in 1/s;
+ * `q3` random-walk drift noise (RWFM of the drift), in 1/s³; absent means 0.
+ */
+export interface ClockDiffusion {
+  readonly q1: number;
+  readonly q2: number;
+  readonly q3?: number;
+}
+
+/**
+ * Power-law coefficients of the one-sided fractional-frequency PSD S_y(f) = Σ h_α f^α
+ * (IEEE Std 1139 convention): `h0` (WFM) in s, `hMinus2` (RWFM) in 1/s, `hMinus4` in 1/s³.
+ */
+export interface PowerLawCoefficients {
+  readonly h0: number;
+  readonly hMinus2: number;
+  readonly hMinus4?: number;
+}
+
+/** Validates and completes a diffusion record (q3 defaults to 0). */
+export function requireDiffusion(argument: string, q: unknown): Required<ClockDiffusion> {
+  if (typeof q !== 'object' || q === null) {
+    throw new InvalidArgumentError(argument, q, 'an object { q1 (s), q2 (1/s), q3? (1/s³) } of non-negative diffusion coefficients');
+  }
+  const r = q as Record<string, unknown>;
+  return {
+    q1: requireNonNegative(`${argument}.q1`, r['q1'], 's'),
+    q2: requireNonNegative(`${argument}.q2`, r['q2'], '1/s'),
+    q3: r['q3'] === undefined ? 0 : requireNonNegative(`${argument}.q3`, r['q3'], '1/s³'),
+  };
+}
+
+function requireStates(states: unknown): ClockStates {
+  if (states !== 2 && states !== 3) throw new InvalidArgumentError('states', states, '2 (phase, frequency) or 3 (phase, frequency, drift)');
+  return states;
+}
+
+/**
+ * State-transition matrix Φ(τ) of the clock model over an interval τ.
+ *
+ * 3-state: Φ = [[1, τ, τ²/2], [0, 1, τ], [0, 0, 1]]; 2-state: [[1, τ], [0, 1]].
+ *
+ * @param tau     Interval, in seconds (≥ 0; negative τ would propagate backwards and is rejected).
+ * @param states  2 or 3.
+ * @returns Φ(τ) as rows; units: x row [1, s, s²], y row [–, 1, s], d row [–, –, 1].
+ * @throws {InvalidArgumentError} if τ is negative or not finite, or states is not 2 or 3.
+ * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005), state equation of the clock model.
+ */
+export function clockTransitionMatrix(tau: Seconds, states: ClockStates): Matrix {
+  requireNonNegative('tau', tau, 's');
+  requireStates(states);
+  if (states === 2) return [[1, tau], [0, 1]];
+  return [[1, tau, (tau * tau) / 2], [0, 1, tau], [0, 0, 1]];
+}
+
+/**
+ * Process-noise covariance Q(τ) of the clock model: the covariance that the three independent
+ * Wiener processes with diffusion q1, q2, q3 add to [x, y, d] over τ.
+ *
+ *   Q11 = q1τ + q2τ³/3 + q3τ⁵/20   Q12 = q2τ²/2 + q3τ⁴/8   Q13 = q3τ³/6
+ *   Q22 = q2τ + q3τ³/3             Q23 = q3τ²/2            Q33 = q3τ
+ *
+ * The 2-state model is the upper-left 2×2 block with q3 = 0.
+ *
+ * @param tau     Interval, in seconds, ≥ 0.
+ * @param q       Diffusion coefficients q1 (s), q2 (1/s), q3 (1/s³).
+ * @param states  2 or 3. With 2 states a non-zero q3 is an error (it would be dropped).
+ * @returns Q(τ) (x in s, y dimensionless, d in 1/s; entries in the products of those units).
+ * @throws {InvalidArgumentError} for negative/non-finite τ or q, states not 2/3, or q3 > 0 with 2 states.
+ * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation]; physics-refs §11.
+ */
+export function clockProcessNoise(tau: Seconds, q: ClockDiffusion, states: ClockStates): Matrix {
+  requireNonNegative('tau', tau, 's');
+  requireStates(states);
+  const { q1, q2, q3 } = requireDiffusion('q', q);
+  if (states === 2 && q3 !== 0) {
+    throw new InvalidArgumentError('q.q3', q3, '0 for the 2-state model', 'use states = 3 to model random-walk drift noise');
+  }
+  const t2 = tau * tau;
+  const t3 = t2 * tau;
+  const t4 = t3 * tau;
+  const t5 = t4 * tau;
+  const q11 = q1 * tau + (q2 * t3) / 3 + (q3 * t5) / 20;
+  const q12 = (q2 * t2) / 2 + (q3 * t4) / 8;
+  const q22 = q2 * tau + (q3 * t3) / 3;
+  if (states === 2) return [[q11, q12], [q12, q22]];
+  const q13 = (q3 * t3) / 6;
+  const q23 = (q3 * t2) / 2;
+  return [[q11, q12, q13], [q12, q22, q23], [q13, q23, q3 * tau]];
+}
+
+/**
+ * Diffusion coefficients from power-law PSD coefficients (one-sided S_y(f) = Σ h_α f^α).
+ *
+ *   q1 = h0/2,  q2 = 2π² h₋₂,  q3 = 8π⁴ h₋₄
+ *
+ * (A Wiener process with diffusion q has two-sided PSD q/(2πf)², i.e. one-sided 2q/(2πf)²;
+ * WFM: S_y = h0 = 2q1; RWFM: S_y = 2q2/(2πf)²; drift walk: S_y = 2q3/(2πf)⁴.)
+ *
+ * @param h  h0 (s), hMinus2 (1/s), hMinus4 (1/s³, optional, default 0); each ≥ 0.
+ * @returns { q1 (s), q2 (1/s), q3 (1/s³) }.
+ * @throws {InvalidArgumentError} if a coefficient is negative or not finite.
+ * @see physics-refs §11 (mapping derived from the PSD definitions [C]); IEEE Std 1139 one-sided PSD convention.
+ */
+export function qFromH(h: PowerLawCoefficients): Required<ClockDiffusion> {
+  if (typeof h !== 'object' || h === null) throw new InvalidArgumentError('h', h, 'an object { h0, hMinus2, hMinus4? }');
+  const h0 = requireNonNegative('h.h0', h.h0, 's');
+  const hm2 = requireNonNegative('h.hMinus2', h.hMinus2, '1/s');
+  const hm4 = h.hMinus4 === undefined ? 0 : requireNonNegative('h.hMinus4', h.hMinus4, '1/s³');
+  const pi2 = Math.PI * Math.PI;
+  return { q1: h0 / 2, q2: 2 * pi2 * hm2, q3: 8 * pi2 * pi2 * hm4 };
+}
+
+/**
+ * Power-law PSD coefficients from diffusion coefficients, the inverse of {@link qFromH}:
+ * h0 = 2q1, h₋₂ = q2/(2π²), h₋₄ = q3/(8π⁴).
+ *
+ * @param q  Diffusion coefficients q1 (s), q2 (1/s), q3 (1/s³, optional).
+ * @returns { h0 (s), hMinus2 (1/s), hMinus4 (1/s³) }.
+ * @throws {InvalidArgumentError} if a coefficient is negative or not finite.
+ * @see physics-refs §11.
+ */
+export function hFromQ(q: ClockDiffusion): Required<PowerLawCoefficients> {
+  const { q1, q2, q3 } = requireDiffusion('q', q);
+  const pi2 = Math.PI * Math.PI;
+  return { h0: 2 * q1, hMinus2: q2 / (2 * pi2), hMinus4: q3 / (8 * pi2 * pi2) };
+}
+
+/**
+ * Allan variance of the 2-state clock model: σ_y²(τ) = q1/τ + q2τ/3.
+ *
+ * Valid only without drift noise: with q3 > 0 the second difference contains τ²·d(t), a random
+ * walk, so the Allan variance is not stationary (physics-refs §11 CAUTION); use
+ * {@link hadamardVarianceFromQ} then.
+ *
+ * @param tau  Averaging time, in seconds, > 0.
+ * @param q    Diffusion coefficients; q3 must be absent or 0.
+ * @returns σ_y²(τ), dimensionless.
+ * @throws {InvalidArgumentError} if τ ≤ 0, a q is negative, or q3 > 0.
+ * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation]; verified by simulation (physics-refs §11 [C]).
+ */
+export function allanVarianceFromQ(tau: Seconds, q: ClockDiffusion): Dimensionless {
+  requirePositive('tau', tau, 's');
+  const { q1, q2, q3 } = requireDiffusion('q', q);
+  if (q3 !== 0) {
+    throw new InvalidArgumentError('q.q3', q3, '0 for the Allan variance',
+      'with random-walk drift noise the Allan variance is not stationary; use hadamardVarianceFromQ');
+  }
+  return q1 / tau + (q2 * tau) / 3;
+}
+
+/**
+ * Hadamard variance of the 3-state clock model: Hσ_y²(τ) = q1/τ + q2τ/6 + 11q3τ³/120.
+ * A deterministic linear drift does not contribute (the third difference removes it).
+ *
+ * @param tau  Averaging time, in seconds, > 0.
+ * @param q    Diffusion coefficients q1 (s), q2 (1/s), q3 (1/s³).
+ * @returns Hσ_y²(τ), dimensionless.
+ * @throws {InvalidArgumentError} if τ ≤ 0 or a q is negative.
+ * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation]; verified by simulation (physics-refs §11 [C]).
+ */
+export function hadamardVarianceFromQ(tau: Seconds, q: ClockDiffusion): Dimensionless {
+  requirePositive('tau', tau, 's');
+  const { q1, q2, q3 } = requireDiffusion('q', q);
+  return q1 / tau + (q2 * tau) / 6 + (11 * q3 * tau ** 3) / 120;
+}
+
+/** One point of a power-law stability specification: a deviation at an averaging time. */
+export interface StabilitySpecPoint {
+  /** Averaging time, in seconds. */
+  readonly tau: Seconds;
+  /** The deviation (ADEV for WFM/RWFM, HDEV for drift walk), dimensionless. */
+  readonly deviation: Dimensionless;
+}
+
+/**
+ * Diffusion coefficients from a stability specification given as one point per noise type,
+ * each read as if that noise type alone were present:
+ *
+ *   WFM:  σ_y²(τ) = q1/τ  ⇒  q1 = σ²τ
+ *   RWFM: σ_y²(τ) = q2τ/3  ⇒  q2 = 3σ²/τ
+ *   random-walk drift: Hσ_y²(τ) = 11q3τ³/120  ⇒  q3 = 120 Hσ²/(11τ³)
+ *
+ * Check values (physics-refs §11 [C]): σ_y = 1e-12 at 1 s (WFM) gives q1 = 1e-24 s; σ_y(1 d) = 1e-14
+ * (RWFM) gives q2 = 3.472e-33 1/s.
+ *
+ * @param spec  Any of `whiteFrequency` (ADEV point), `randomWalkFrequency` (ADEV point),
+ *              `randomWalkDrift` (HDEV point); at least one.
+ * @returns { q1 (s), q2 (1/s), q3 (1/s³) }, absent noise types give 0.
+ * @throws {InvalidArgumentError} if no point is given, or a τ ≤ 0 or deviation < 0.
+ * @see Zucca & Tavella (2005) variance relations (physics-refs §11).
+ */
+export function diffusionFromStabilitySpec(spec: {
+  readonly whiteFrequency?: StabilitySpecPoint;
+  readonly randomWalkFrequency?: StabilitySpecPoint;
+  readonly randomWalkDrift?: StabilitySpecPoint;
+}): Required<ClockDiffusion> {
+  if (typeof spec !== 'object' || spec === null) {
+    throw new InvalidArgumentError('spec', spec, 'an object with whiteFrequency, randomWalkFrequency and/or randomWalkDrift points');
+  }
+  const read = (name: 'whiteFrequency' | 'randomWalkFrequency' | 'randomWalkDrift'): StabilitySpecPoint | undefined => {
+    const p = spec[name];
+    if (p === undefined) return undefined;
+    if (typeof p !== 'object' || p === null) throw new InvalidArgumentError(`spec.${name}`, p, 'an object { tau (s), deviation }');
+    return {
+      tau: requirePositive(`spec.${name}.tau`, p.tau, 's'),
+      deviation: requireNonNegative(`spec.${name}.deviation`, p.deviation),
+    };
+  };
+  const wf = read('whiteFrequency');
+  const rwf = read('randomWalkFrequency');
+  const rwd = read('randomWalkDrift');
+  if (!wf && !rwf && !rwd) {
+    throw new InvalidArgumentError('spec', spec, 'at least one of whiteFrequency, randomWalkFrequency, randomWalkDrift');
+  }
+  return {
+    q1: wf ? wf.deviation ** 2 * wf.tau : 0,
+    q2: rwf ? (3 * rwf.deviation ** 2) / rwf.tau : 0,
+    q3: rwd ? (120 * rwd.deviation ** 2) / (11 * rwd.tau ** 3) : 0,
+  };
+}
+
+/** A measured stability point for {@link fitDiffusion}. */
+export interface MeasuredStabilityPoint {
+  /** Averaging time, in seconds. */
+  readonly tau: Seconds;
+  /** Measured deviation (ADEV/OADEV for `allan`, HDEV/OHDEV for `hadamard`), dimensionless. */
+  readonly deviation: Dimensionless;
+  /** Which variance the deviation belongs to. */
+  readonly kind: 'allan' | 'hadamard';
+  /**
+   * Equivalent degrees of freedom of the estimate. When every point has one, the weights are
+   * absolute (var(σ̂²) = 2σ⁴/edf) and the covariance is not rescaled.
+   */
+  readonly edf?: number;
+}
+
+/** Options of {@link fitDiffusion}. */
+export interface DiffusionFitOptions {
+  /**
+   * 2: fit q1, q2 (q3 = 0); 3: fit q1, q2, q3 (Hadamard points only, since the Allan variance is
+   * not stationary with drift noise). Default: 3 when every point is `hadamard`, else 2.
+   */
+  readonly states?: ClockStates;
+}
+
+/** Result of {@link fitDiffusion}. */
+export interface DiffusionFit {
+  /** Fitted coefficients, each ≥ 0: q1 (s), q2 (1/s), q3 (1/s³; 0 for a 2-state fit). */
+  readonly q: Required<ClockDiffusion>;
+  /** States of the model fitted. */
+  readonly states: ClockStates;
+  /** Covariance of [q1, q2(, q3)] (rows/columns of coefficients held at 0 by the constraint are zero). */
+  readonly covariance: Matrix;
+  /** True when the covariance was scaled by the reduced chi-square (some point had no edf). */
+  readonly covarianceScaled: boolean;
+  /** Coefficients the non-negativity constraint held at zero. */
+  readonly atZero: readonly ('q1' | 'q2' | 'q3')[];
+  /** Model variance at each point (dimensionless). */
+  readonly modelVariance: readonly number[];
+  /** Normalised residual per point: (measured variance − model)/σ(variance estimate). */
+  readonly normalizedResiduals: readonly number[];
+  /** Σ normalised residual²; with absolute weights it is χ²-distributed with `dof` degrees of freedom. */
+  readonly chiSquare: number;
+  /** Points minus free coefficients. */
+  readonly dof: number;
+}
+
+/** Coefficient vector of q in the variance model at τ (Zucca & Tavella 2005; physics-refs §11). */
+function designRow(tau: number, kind: 'allan' | 'hadamard', states: ClockStates): number[] {
+  if (kind === 'allan') return states === 2 ? [1 / tau, tau / 3] : [1 / tau, tau / 3, 0];
+  return states === 2 ? [1 / tau, tau / 6] : [1 / tau, tau / 6, (11 * tau ** 3) / 120];
+}
+
+/** Weighted least squares on the subset `free` of columns; returns coefficients and (AᵀWA)⁻¹ on the subset. */
+function solveSubset(rows: readonly number[][], targets: readonly number[], weights: readonly number[], free: readonly number[])
+  : { beta: number[]; cov: Matrix } | undefined {
+  const p = free.length;
+  // Column scaling keeps the normal matrix well conditioned (the columns differ by up to τ⁴).
+  const scale = free.map((c) => Math.sqrt(rows.reduce((s, r, i) => s + (weights[i] as number) * (r[c] as number) ** 2, 0)) || 1);
+  const n = new Array(p).fill(0).map(() => new Array<number>(p).fill(0));
+  const b = new Array<number>(p).fill(0);
+  rows.forEach((r, i) => {
+    const w = weights[i] as number;
+    for (let a = 0; a < p; a++) {
+      const ra = (r[free[a] as number] as number) / (scale[a] as number);
+      b[a] = (b[a] as number) + w * ra * (targets[i] as number);
+      for (let c = 0; c < p; c++) (n[a] as number[])[c] = ((n[a] as number[])[c] as number) + w * ra * ((r[free[c] as number] as number) / (scale[c] as number));
+    }
+  });
+  const l = cholesky(n);
+  if (!l) return undefined;
+  // Solve L Lᵀ z = b, then inverse by unit vectors.
+  const solve = (rhs: number[]): number[] => {
+    const z = rhs.slice();
+    for (let i = 0; i < p; i++) {
+      for (let k = 0; k < i; k++) z[i] = (z[i] as number) - ((l[i] as number[])[k] as number) * (z[k] as number);
+      z[i] = (z[i] as number) / ((l[i] as number[])[i] as number);
+    }
+    for (let i = p - 1; i >= 0; i--) {
+      for (let k = i + 1; k < p; k++) z[i] = (z[i] as number) - ((l[k] as number[])[i] as number) * (z[k] as number);
+      z[i] = (z[i] as number) / ((l[i] as number[])[i] as number);
+    }
+    return z;
+  };
+  const z = solve(b);
+  const beta = z.map((v, a) => v / (scale[a] as number));
+  const cov: Matrix = [];
+  for (let a = 0; a < p; a++) {
+    const e = new Array<number>(p).fill(0);
+    e[a] = 1;
+    const col = solve(e);
+    for (let c = 0; c < p; c++) {
+      if (!cov[c]) cov[c] = new Array<number>(p).fill(0);
+      (cov[c] as number[])[a] = (col[c] as number) / ((scale[a] as number) * (scale[c] as number));
+    }
+  }
+  return { beta, cov };
+}
+
+/**
+ * Fits diffusion coefficients to measured Allan and/or Hadamard deviations by weighted least
+ * squares on the variances, with q ≥ 0.
+ *
+ *   model: σ²(τ) = q1/τ + q2τ/3 (Allan) or q1/τ + q2τ/6 + 11q3τ³/120 (Hadamard)
+ *   weight: 1/var(σ̂²), var(σ̂²) = 2·(model σ²)²/edf (χ² statistics of the estimate, NIST SP 1065 §5.3 [M]);
+ *           iterated 5 times with the current model (iteratively reweighted least squares), starting
+ *           from the measured variances. Without edf, edf = 1 is used for every point (relative weights)
+ *           and the covariance is scaled by χ²/dof.
+ *   constraint: every subset of coefficients is solved and the best feasible (all ≥ 0) one kept
+ *               (exact non-negative least squares for ≤ 3 unknowns).
+ *
+ * Our own arrangement of standard weighted least squares; the variance relations are from
+ * Zucca & Tavella (2005).
+ *
+ * @param points   Measured points; τ > 0, deviation > 0, optional edf > 0. At least as many as coefficients.
+ * @param options  `states` (2 or 3), see {@link DiffusionFitOptions}.
+ * @returns {@link DiffusionFit}.
+ * @throws {InvalidArgumentError} for an empty/short list, a bad point, Allan points in a 3-state fit,
+ *         or states not 2/3.
+ * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation]; physics-refs §11.
+ */
+export function fitDiffusion(points: readonly MeasuredStabilityPoint[], options: DiffusionFitOptions = {}): DiffusionFit {
+  if (!Array.isArray(points) || points.length === 0) {
+    throw new InvalidArgumentError('points', points, 'a non-empty array of { tau, deviation, kind, edf? }');
+  }
+  const allHadamard = points.every((p) => typeof p === 'object' && p !== null && p.kind === 'hadamard');
+  const states = options.states === undefined ? (allHadamard ? 3 : 2) : requireStates(options.states);
+  const taus: number[] = [];
+  const measured: number[] = [];
+  const edfs: number[] = [];
+  let allEdf = true;
+  points.forEach((p, i) => {
+    if (typeof p !== 'object' || p === null) throw new InvalidArgumentError(`points[${i}]`, p, 'an object { tau, deviation, kind, edf? }');
+    taus.push(requirePositive(`points[${i}].tau`, p.tau, 's'));
+    const dev = requirePositive(`points[${i}].deviation`, p.deviation);
+    measured.push(dev * dev);
+    if (p.kind !== 'allan' && p.kind !== 'hadamard') throw new InvalidArgumentError(`points[${i}].kind`, p.kind, "'allan' or 'hadamard'");
+    if (p.kind === 'allan' && states === 3) {
+      throw new InvalidArgumentError(`points[${i}].kind`, p.kind, "'hadamard' in a 3-state fit",
+        'with random-walk drift noise the Allan variance is not stationary; fit q3 from Hadamard deviations');
+    }
+    if (p.edf === undefined) {
+      allEdf = false;
+      edfs.push(1);
+    } else {
+      edfs.push(requirePositive(`points[${i}].edf`, p.edf));
+    }
+  });
+  const nq = states;
+  if (points.length < nq) {
+    throw new InvalidArgumentError('points', points.length, `at least ${nq} points for a ${states}-state fit`);
+  }
+  const rows = points.map((p, i) => designRow(taus[i] as number, p.kind, states));
+
+  const subsets: number[][] = [];
+  for (let mask = 1; mask < 1 << nq; mask++) {
+    const s: number[] = [];
+    for (let c = 0; c < nq; c++) if (mask & (1 << c)) s.push(c);
+    subsets.push(s);
+  }
+  let variances = measured.slice();
+  let best: { beta: number[]; cov: Matrix; free: number[]; ssr: number } | undefined;
+  for (let iter = 0; iter < 6; iter++) {
+    const weights = variances.map((v, i) => (edfs[i] as number) / (2 * v * v));
+    best = undefined;
+    for (const free of subsets) {
+      const sol = solveSubset(rows, measured, weights, free);
+      if (!sol || sol.beta.some((v) => v < 0)) continue;
+      const full = new Array<number>(nq).fill(0);
+      free.forEach((c, a) => { full[c] = sol.beta[a] as number; });
+      let ssr = 0;
+      rows.forEach((r, i) => {
+        const m = r.reduce((s, v, c) => s + v * (full[c] as number), 0);
+        ssr += (weights[i] as number) * ((measured[i] as number) - m) ** 2;
+      });
+      if (!best || ssr < best.ssr) best = { beta: full, cov: sol.cov, free, ssr };
+    }
+    if (!best) break;
+    const model = rows.map((r) => r.reduce((s, v, c) => s + v * ((best as { beta: number[] }).beta[c] as number), 0));
+    // Keep the measured variance where the model gives 0 (no weight information otherwise).
+    variances = model.map((m, i) => (m > 0 ? m : (measured[i] as number)));
+  }
+  if (!best) {
+    // Not reachable for positive τ and deviations (a single-coefficient subset is always solvable and ≥ 0).
+    throw new InvalidArgumentError('points', points, 'points from which the coefficients can be determined');
+  }
+  const found = best;
+  const weights = variances.map((v, i) => (edfs[i] as number) / (2 * v * v));
+  const modelVariance = rows.map((r) => r.reduce((s, v, c) => s + v * (found.beta[c] as number), 0));
+  const normalizedResiduals = modelVariance.map((m, i) => ((measured[i] as number) - m) * Math.sqrt(weights[i] as number));
+  const chiSquare = normalizedResiduals.reduce((s, r) => s + r * r, 0);
+  const dof = points.length - found.free.length;
+  const scaleCov = !allEdf && dof > 0 ? chiSquare / dof : 1;
+  const covariance: Matrix = Array.from({ length: nq }, () => new Array<number>(nq).fill(0));
+  found.free.forEach((c, a) => found.free.forEach((d, b) => {
+    (covariance[c] as number[])[d] = ((found.cov[a] as number[])[b] as number) * scaleCov;
+  }));
+  const names = ['q1', 'q2', 'q3'] as const;
+  return {
+    q: { q1: found.beta[0] as number, q2: found.beta[1] as number, q3: states === 3 ? (found.beta[2] as number) : 0 },
+    states,
+    covariance,
+    covarianceScaled: !allEdf && dof > 0,
+    atZero: names.slice(0, nq).filter((_, c) => !found.free.includes(c)),
+    modelVariance,
+    normalizedResiduals,
+    chiSquare,
+    dof,
+  };
+}
