@@ -5,7 +5,10 @@
 import { readFile } from 'node:fs/promises';
 import { planSteering, type SteeringMethod, type SteeringPlan, type SteeringScenario } from '@tauline/sdk/steering';
 import { InvalidArgumentError, ParseError } from '@tauline/sdk/errors';
-import { EXIT_FINDING, EXIT_OK, UsageError, keyValueTable, optionalFlag, table, toJson, type Command } from '../framework.js';
+import { createTimeScales, parseLeapSecondsList, type TimeScales } from '@tauline/sdk/time';
+import {
+  EXIT_FINDING, EXIT_OK, UsageError, keyValueTable, optionalFlag, table, toJson, type Command, type ParsedArgs,
+} from '../framework.js';
 
 const METHODS: readonly SteeringMethod[] = ['deadband', 'optimal', 'none'];
 
@@ -89,6 +92,33 @@ export async function readScenarioFile(path: string): Promise<unknown> {
   }
 }
 
+/**
+ * Reads `--leap-seconds <file>`: an IERS/NIST `leap-seconds.list` turned into the time scales
+ * the scenario's UTC stamps are read with. Undefined (flag absent) keeps the SDK's bundled
+ * table (valid until 2027-06-28).
+ * @throws {ParseError} with file and line for a malformed list (from `parseLeapSecondsList`).
+ * @throws {InvalidArgumentError} naming --leap-seconds when the list's entries break the table rules.
+ */
+export async function leapSecondsFlag(args: ParsedArgs): Promise<TimeScales | undefined> {
+  const path = optionalFlag(args, 'leap-seconds');
+  if (path === undefined) return undefined;
+  const text = await readFile(path, 'utf8');
+  try {
+    return createTimeScales(parseLeapSecondsList(text, path));
+  } catch (error) {
+    if (error instanceof InvalidArgumentError) {
+      throw new InvalidArgumentError('--leap-seconds', path, 'an IERS/NIST leap-seconds.list with a valid table', error.message);
+    }
+    throw error;
+  }
+}
+
+/** Help text on leap seconds, shared by `plan` and `simulate`. */
+export const LEAP_SECONDS_HELP = `
+Times: UTC stamps are read with a leap-second table and intervals are elapsed SI seconds, so a
+leap second inside the horizon is counted. The bundled table is valid until 2027-06-28; for later
+dates pass a current IERS/NIST leap-seconds.list with --leap-seconds <file>.`;
+
 /** Reads the --strategy flag; undefined keeps the scenario's own. */
 export function strategyFlag(value: string | undefined, allowAll: boolean): SteeringMethod | 'all' | undefined {
   if (value === undefined) return undefined;
@@ -143,10 +173,11 @@ export function planToText(scenario: SteeringScenario, method: string, plan: Ste
 export const planCommand: Command = {
   name: 'plan',
   summary: 'Plan clock-steering commands that keep an onboard clock inside its tolerance.',
-  usage: '<scenario.json> [--strategy deadband|optimal|none] [--json]',
+  usage: '<scenario.json> [--strategy deadband|optimal|none] [--leap-seconds <file>] [--json]',
   allowPositionals: true,
   flags: {
     strategy: { type: 'string', value: '<name>', description: 'Override the scenario\'s strategy: deadband, optimal (quantised LQ) or none.' },
+    'leap-seconds': { type: 'string', value: '<file>', description: 'IERS/NIST leap-seconds.list to read UTC stamps with (default: the bundled table, valid until 2027-06-28).' },
     json: { type: 'boolean', description: 'Print the plan as JSON (feasible, reason, commands, predicted, metrics, caution).' },
   },
   details: `
@@ -156,13 +187,15 @@ prediction from the epoch covariance and the 3-state clock noise (Zucca & Tavell
 Optimal planner: finite-horizon linear-quadratic steering with quantised, rate-limited steps (after
 Koppang & Leland, IEEE Trans. UFFC 46(3) 1999); deadband: act when the predicted offset would use more
 than a fraction of the usable band before the next contact.
+${LEAP_SECONDS_HELP}
 Exit status: 0 feasible plan, 1 infeasible (the reason is printed), 2 unusable input.`,
   async run(args, io) {
     if (args.positionals.length !== 1) throw new UsageError('give exactly one scenario file (see `tauline plan --help`)');
     const path = args.positionals[0]!;
     const strategy = strategyFlag(optionalFlag(args, 'strategy'), false) as SteeringMethod | undefined;
+    const timeScales = await leapSecondsFlag(args);
     const scenario = await readScenarioFile(path);
-    const plan = planSteering(scenario, strategy ? { strategy } : {});
+    const plan = planSteering(scenario, { ...(strategy ? { strategy } : {}), ...(timeScales ? { timeScales } : {}) });
     const s = scenario as SteeringScenario;
     if (args.values['json']) io.out(toJson(plan));
     else io.out(planToText(s, strategy ?? s.strategy.method, plan));

@@ -5,7 +5,7 @@
 import { planSteering, simulatePlan, type SteeringMethod, type SteeringScenario } from '@tauline/sdk/steering';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import { EXIT_OK, UsageError, numberFlag, optionalFlag, table, toJson, type Command, type Io } from '../framework.js';
-import { nsText, readScenarioFile, strategyFlag } from './plan.js';
+import { LEAP_SECONDS_HELP, leapSecondsFlag, nsText, readScenarioFile, strategyFlag } from './plan.js';
 
 /** Simulated (run × grid-epoch) steps above which a progress bar is shown on a terminal. */
 export const PROGRESS_THRESHOLD = 200_000;
@@ -30,12 +30,13 @@ function progressBar(io: Io, label: string): { update: (done: number, total: num
 export const simulateCommand: Command = {
   name: 'simulate',
   summary: 'Monte Carlo of steering plans against simulated clock noise, per strategy.',
-  usage: '<scenario.json> --runs <n> [--seed <n>] [--strategy deadband|optimal|none|all] [--json]',
+  usage: '<scenario.json> --runs <n> [--seed <n>] [--strategy deadband|optimal|none|all] [--leap-seconds <file>] [--json]',
   allowPositionals: true,
   flags: {
     runs: { type: 'string', value: '<n>', description: 'Number of simulated clocks per strategy (1 … 1000000).' },
     seed: { type: 'string', value: '<n>', description: 'Seed of the random generator (default 1); same seed, same numbers.' },
     strategy: { type: 'string', value: '<name>', description: 'deadband, optimal, none, or all (default all).' },
+    'leap-seconds': { type: 'string', value: '<file>', description: 'IERS/NIST leap-seconds.list to read UTC stamps with (default: the bundled table, valid until 2027-06-28).' },
     json: { type: 'boolean', description: 'Print the results as JSON.' },
   },
   details: `
@@ -43,21 +44,23 @@ Each run draws the epoch state from the scenario's mean and covariance and adds 
 3-state process noise between events (Zucca & Tavella, IEEE Trans. UFFC 52(2), 2005); the plan's
 commands and the manoeuvre rate changes are applied at their epochs. Offsets are checked on the grid.
 time in tolerance: fraction of (run, epoch) pairs inside; whole horizon: fraction of runs never outside;
-min epoch: the smallest per-epoch fraction (compare with the plan's probability).`,
+min epoch: the smallest per-epoch fraction (compare with the plan's probability).
+${LEAP_SECONDS_HELP}`,
   async run(args, io) {
     if (args.positionals.length !== 1) throw new UsageError('give exactly one scenario file (see `tauline simulate --help`)');
     const runs = numberFlag(args, 'runs', true);
     if (!Number.isInteger(runs) || runs < 1 || runs > 1_000_000) throw new InvalidArgumentError('--runs', runs, 'an integer in [1, 1000000]');
     const seed = numberFlag(args, 'seed') ?? 1;
     const choice = strategyFlag(optionalFlag(args, 'strategy'), true) ?? 'all';
+    const timeScales = await leapSecondsFlag(args);
     const scenario = await readScenarioFile(args.positionals[0]!);
     const methods: SteeringMethod[] = choice === 'all' ? ['none', 'deadband', 'optimal'] : [choice];
     const results = [];
     for (const method of methods) {
-      const plan = planSteering(scenario, { strategy: method });
+      const plan = planSteering(scenario, { strategy: method, ...(timeScales ? { timeScales } : {}) });
       const long = io.isTty && runs * plan.predicted.t.length > PROGRESS_THRESHOLD;
       const bar = long ? progressBar(io, `simulating ${method}`) : undefined;
-      const summary = simulatePlan(scenario, plan, { runs, seed, ...(bar ? { onProgress: bar.update } : {}) });
+      const summary = simulatePlan(scenario, plan, { runs, seed, ...(bar ? { onProgress: bar.update } : {}), ...(timeScales ? { timeScales } : {}) });
       bar?.finish();
       results.push({ strategy: method, feasible: plan.feasible, expectedCost: plan.metrics.expectedCost, ...summary });
     }

@@ -330,7 +330,7 @@ export function validateScenario(input: unknown, options: TimeScaleOptions = {})
   const horizon = requirePositive('horizonSeconds', root['horizonSeconds'], 's');
   if (horizon > MAX_HORIZON) throw new InvalidArgumentError('horizonSeconds', horizon, `at most ${MAX_HORIZON} s (366 days)`);
   // Plan stamps anywhere in the horizon are printed in UTC, so the whole horizon must lie inside the table.
-  requireInsideTable(timeScales, 'horizonSeconds', horizon, epoch.plus(horizon));
+  requireInsideTable(timeScales, 'horizonSeconds', horizon, epoch.plus(horizon), `the end of the horizon (epoch + ${horizon} s)`);
   const grid = root['gridSeconds'] === undefined ? Math.min(900, horizon) : requirePositive('gridSeconds', root['gridSeconds'], 's');
   if (grid > horizon) throw new InvalidArgumentError('gridSeconds', grid, `at most horizonSeconds (${horizon} s)`);
   if (horizon / grid > MAX_GRID_POINTS) {

@@ -51,10 +51,9 @@ export function resolveTimeScales(options: unknown, field = 'options'): TimeScal
 
 /** How a user passes a newer leap-second table, for error messages. */
 export function currentTableHint(ts: TimeScales): string {
-  return `the leap-second table "${ts.leapSeconds.source}" is only known complete until ${isoDateOfMjd(ts.leapSeconds.validUntilMjd)}, ` +
-    'so later UTC stamps cannot be turned into elapsed seconds (a leap second may be inserted); pass a current table built from the ' +
-    'IERS/NIST leap-seconds.list: options { timeScales: createTimeScales(parseLeapSecondsList(text)) } of planSteering, ' +
-    'validateScenario, simulatePlan, steeringCost or predictSteering (CLI: tauline plan|simulate --leap-seconds <file>)';
+  return `the leap-second table "${ts.leapSeconds.source}" is only known complete until ${isoDateOfMjd(ts.leapSeconds.validUntilMjd)} ` +
+    '(a leap second may follow); pass a current table built from the IERS/NIST leap-seconds.list: ' +
+    '{ timeScales: createTimeScales(parseLeapSecondsList(text)) } in the options (CLI: --leap-seconds <file>)';
 }
 
 /** Accepts the reduced form `hh:mm` (no seconds) that ISO 8601 and the scenario schema allow, as `hh:mm:00`. */
@@ -90,12 +89,13 @@ export function parseUtcStamp(ts: TimeScales, field: string, text: unknown): Ins
 
 /**
  * Throws unless `instant` lies before the end of the table's validity (so it can be printed in UTC).
+ * @param what Says what `instant` is, for the message (e.g. "the end of the horizon").
  * @throws {OutOfDomainError} naming `field`, with how to pass a current table.
  */
-export function requireInsideTable(ts: TimeScales, field: string, received: unknown, instant: Instant): void {
+export function requireInsideTable(ts: TimeScales, field: string, received: unknown, instant: Instant, what: string): void {
   if (instant.compare(ts.utcValidUntil) >= 0) {
     throw new OutOfDomainError(field, received, ts.formatIso(ts.utcValidFrom, { fractionDigits: 0 }),
-      `${isoDateOfMjd(ts.leapSeconds.validUntilMjd)}T00:00:00Z (exclusive)`, currentTableHint(ts));
+      `${isoDateOfMjd(ts.leapSeconds.validUntilMjd)}T00:00:00Z (exclusive)`, `${what} falls after it; ${currentTableHint(ts)}`);
   }
 }
 
