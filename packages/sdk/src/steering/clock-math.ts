@@ -1,10 +1,12 @@
 /**
- * Small closed forms the steering planner needs on every grid point: the first row of the
- * 3-state transition matrix, the phase variance of the 3-state model, and the integral of
- * the squared phase used by the quadratic cost.
+ * Small closed forms the steering planner needs on every grid point: the phase variance of the
+ * 3-state model and the integral of the squared phase used by the quadratic cost. The transition
+ * matrix and the process-noise covariance come from the clock-model module (`clockTransitionMatrix`,
+ * `clockProcessNoise`), typed here as 3×3 tuples.
  *
  * @internal
  */
+import { clockProcessNoise, clockTransitionMatrix } from '../clock-model/noise.js';
 
 /** 3×3 matrix as nested arrays (row-major). */
 export type Matrix3 = [[number, number, number], [number, number, number], [number, number, number]];
@@ -53,9 +55,9 @@ export function phaseSquareIntegral(delta: number): Matrix3 {
   ];
 }
 
-/** Φ(Δ) = [[1, Δ, Δ²/2], [0, 1, Δ], [0, 0, 1]] (physics-refs §11). */
+/** Φ(Δ) = [[1, Δ, Δ²/2], [0, 1, Δ], [0, 0, 1]] (Zucca & Tavella 2005; physics-refs §11), from `clockTransitionMatrix`; Δ ≥ 0. */
 export function transition(delta: number): Matrix3 {
-  return [[1, delta, (delta * delta) / 2], [0, 1, delta], [0, 0, 1]];
+  return clockTransitionMatrix(delta, 3) as Matrix3;
 }
 
 export function zeros3(): Matrix3 {
@@ -120,18 +122,8 @@ export function choleskyPsd3(a: Matrix3): Matrix3 {
 /**
  * Process-noise covariance Q(τ) of the 3-state model (Zucca & Tavella 2005, physics-refs §11):
  * Q11 = q1τ + q2τ³/3 + q3τ⁵/20, Q12 = q2τ²/2 + q3τ⁴/8, Q13 = q3τ³/6, Q22 = q2τ + q3τ³/3,
- * Q23 = q3τ²/2, Q33 = q3τ.
+ * Q23 = q3τ²/2, Q33 = q3τ; from `clockProcessNoise`; τ ≥ 0.
  */
 export function processNoise(tau: number, q: DiffusionCoefficients): Matrix3 {
-  const t2 = tau * tau;
-  const t3 = t2 * tau;
-  const t4 = t3 * tau;
-  const t5 = t4 * tau;
-  const q11 = q.q1 * tau + (q.q2 * t3) / 3 + (q.q3 * t5) / 20;
-  const q12 = (q.q2 * t2) / 2 + (q.q3 * t4) / 8;
-  const q13 = (q.q3 * t3) / 6;
-  const q22 = q.q2 * tau + (q.q3 * t3) / 3;
-  const q23 = (q.q3 * t2) / 2;
-  const q33 = q.q3 * tau;
-  return [[q11, q12, q13], [q12, q22, q23], [q13, q23, q33]];
+  return clockProcessNoise(tau, q, 3) as Matrix3;
 }
