@@ -11,7 +11,7 @@ export const SATELLITES = [
   { id: 'CORVANE-B2', designSemiMajorAxis: 27_905_000, inclination: 0.96, clock: 'passive maser', stationA: 'Vell Ridge', stationB: 'Isk Harbour' },
 ];
 
-const EPOCH = '2032-09-14T00:00:00Z';
+const EPOCH = '2027-03-08T00:00:00Z'; // inside the SDK's bundled leap-second table span
 const EPOCH_MS = Date.parse(EPOCH);
 const iso = (s) => new Date(EPOCH_MS + s * 1000).toISOString().replace('.000Z', 'Z');
 

@@ -9,15 +9,20 @@ async function loadDemo(search = ''): Promise<Document> {
   frame.src = `/demo/index.html${search}`;
   document.body.append(frame);
   await new Promise((ok) => frame.addEventListener('load', ok, { once: true }));
-  return frame.contentDocument!;
+  const doc = frame.contentDocument!;
+  statusOf = () => doc.getElementById('status')?.textContent ?? '(no status)';
+  return doc;
 }
 
-async function until<T>(what: string, probe: () => T | null | undefined | false, timeoutMs = 30000): Promise<T> {
+let statusOf: () => string = () => '';
+
+async function until<T>(what: string, probe: () => T | null | undefined | false, timeoutMs = 15000): Promise<T> {
   const start = performance.now();
   for (;;) {
     const v = probe();
     if (v) return v;
-    if (performance.now() - start > timeoutMs) throw new Error(`timed out waiting for ${what}`);
+    // The console's status line says why a recompute failed (e.g. an SDK error message).
+    if (performance.now() - start > timeoutMs) throw new Error(`timed out waiting for ${what}; console status: ${statusOf()}`);
     await new Promise((r) => setTimeout(r, 50));
   }
 }

@@ -168,7 +168,7 @@ export class TaulineSteeringSchedule extends PlotElement {
       const full: [number, number] | null = d && d.t.length > 0 ? [d.t[0]!, d.t[d.t.length - 1]!] : null;
       // Keep the user's zoom across data updates when it still lies inside the new data.
       if (!full) this._view = null;
-      else if (!this._view || this._view[0] < full[0] || this._view[1] > full[1] || changed.get('scenario') !== undefined) this._view = full;
+      else if (!this._view || this._view[0] < full[0] || this._view[1] > full[1]) this._view = full;
     }
     if (changed.has('plan') || changed.has('scenario') || changed.has('sigmaMultiple')) this._computeBand();
     if (changed.has('sigmaMultiple') && !(Number.isFinite(this.sigmaMultiple) && this.sigmaMultiple >= 0)) {
