@@ -13,3 +13,10 @@ export {
   type ClockStates, type ClockDiffusion, type PowerLawCoefficients, type StabilitySpecPoint, type MeasuredStabilityPoint,
   type DiffusionFitOptions, type DiffusionFit,
 } from './noise.js';
+export { fitClockPolynomial, type ClockPolynomialOptions, type ClockPolynomial } from './polynomial.js';
+export {
+  ClockKalmanFilter, runClockFilter, forecastClock, applyClockStep,
+  type ClockEstimate, type ClockForecast, type ClockStep, type DetectedJump, type JumpDetectionOptions, type ClockKalmanOptions,
+  type ClockUpdate, type ClockFilterSeries, type ClockFilterRunOptions, type ClockFilterRun,
+} from './kalman.js';
+export { simulateClock, type ClockJump, type ClockSimulationOptions, type ClockSimulation } from './simulate.js';

@@ -1,0 +1,214 @@
+/**
+ * Weighted least-squares polynomial clock model x(t) = a0 + a1(t − t0) + a2(t − t0)², the
+ * af0/af1/af2 form of the navigation-message clock correction.
+ *
+ * @module
+ */
+import { InvalidArgumentError } from '../errors.js';
+import type { Seconds } from '../units.js';
+import { requireFinite, requirePositive } from '../internal/validate.js';
+import type { Matrix } from './linalg.js';
+
+/** Options of {@link fitClockPolynomial}. */
+export interface ClockPolynomialOptions {
+  /** 1 (offset + frequency) or 2 (offset + frequency + drift). Default 2. */
+  readonly degree?: 1 | 2;
+  /** Reference epoch t0 of the coefficients (t_oc), in seconds. Default: the first epoch. */
+  readonly referenceTime?: Seconds;
+  /**
+   * Per-sample phase variances, in s² (one value for all, or one per sample). When absent, unit
+   * weights are used and the covariance is always scaled by the reduced chi-square (the residual
+   * variance then estimates the unknown measurement variance).
+   */
+  readonly variance?: number | ArrayLike<number>;
+  /**
+   * With variances given: `false` (default) reports the formal covariance (AᵀWA)⁻¹, right when the
+   * variances are trusted; `true` multiplies it by χ²/(N − p) (reduced chi-square), the usual choice
+   * when the variances are only relative.
+   */
+  readonly scaleByReducedChiSquare?: boolean;
+}
+
+/** A fitted polynomial clock model. */
+export interface ClockPolynomial {
+  /** Degree of the fit. */
+  readonly degree: 1 | 2;
+  /** Reference epoch t0, in seconds. */
+  readonly referenceTime: Seconds;
+  /** [a0 (s), a1 (dimensionless, s/s), a2 (1/s, s/s²)]; a2 = 0 for degree 1. a2 = D/2 for a drift D. */
+  readonly coefficients: readonly [number, number, number];
+  /** Covariance of [a0, a1(, a2)] ((degree + 1) square). */
+  readonly covariance: Matrix;
+  /** True when the covariance was multiplied by the reduced chi-square. */
+  readonly covarianceScaled: boolean;
+  /** Residuals z_i − x(t_i), in seconds. */
+  readonly residuals: Float64Array;
+  /** Σ w_i r_i² (w_i = 1/σ_i², or 1 without variances). */
+  readonly chiSquare: number;
+  /** Degrees of freedom N − (degree + 1). */
+  readonly dof: number;
+  /** χ²/dof (NaN when dof = 0). */
+  readonly reducedChiSquare: number;
+  /** Model phase at t, in seconds. */
+  predict(t: Seconds): Seconds;
+  /** Standard deviation of the model phase at t from the coefficient covariance (model only, no new noise), in seconds. */
+  predictStd(t: Seconds): Seconds;
+}
+
+/**
+ * Fits x(t) = a0 + a1(t − t0) + a2(t − t0)² to phase samples by weighted least squares.
+ *
+ * Numerics: the fit is done in a centred and scaled time u = (t − c)/s (c = mean epoch, s = half
+ * span), on the √w-scaled design matrix, by Householder QR (Golub & Van Loan, Matrix Computations
+ * 4th ed., §5.2 and §5.3), never by forming the normal equations; the coefficients and their
+ * covariance are then mapped exactly to the t0 basis. Prediction variances are computed in u.
+ *
+ * @param t        Epochs, in seconds (any order, finite; at least degree + 1 distinct values).
+ * @param phase    Phase (time error) samples, in seconds, same length as t.
+ * @param options  Degree, t0, variances and covariance scaling; see {@link ClockPolynomialOptions}.
+ * @returns {@link ClockPolynomial} with coefficients, covariance, residuals, χ² and predictors.
+ * @throws {InvalidArgumentError} for mismatched lengths, too few samples or distinct epochs, a non-finite
+ *         sample, a variance ≤ 0, or degree not 1/2.
+ * @see IS-GPS-200, §20.3.3.3.3.1 (SV clock correction polynomial af0, af1, af2) [M].
+ */
+export function fitClockPolynomial(t: ArrayLike<number>, phase: ArrayLike<number>, options: ClockPolynomialOptions = {}): ClockPolynomial {
+  if (!t || typeof t.length !== 'number') throw new InvalidArgumentError('t', t, 'an array of epochs in seconds');
+  if (!phase || typeof phase.length !== 'number' || phase.length !== t.length) {
+    throw new InvalidArgumentError('phase', phase, `an array of phases in seconds with the same length as t (${t.length})`);
+  }
+  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an options object');
+  const degree = options.degree === undefined ? 2 : options.degree;
+  if (degree !== 1 && degree !== 2) throw new InvalidArgumentError('options.degree', degree, '1 or 2');
+  const p = degree + 1;
+  const n = t.length;
+  if (n < p) throw new InvalidArgumentError('t', n, `at least ${p} samples for a degree-${degree} fit`);
+  const tt = new Float64Array(n);
+  const zz = new Float64Array(n);
+  const w = new Float64Array(n);
+  const v = options.variance;
+  if (v !== undefined && typeof v !== 'number' && (typeof v.length !== 'number' || v.length !== n)) {
+    throw new InvalidArgumentError('options.variance', v, `a variance in s² or an array of ${n} variances`);
+  }
+  for (let i = 0; i < n; i++) {
+    tt[i] = requireFinite(`t[${i}]`, t[i], 'a finite epoch in seconds');
+    zz[i] = requireFinite(`phase[${i}]`, phase[i], 'a finite phase in seconds');
+    w[i] = v === undefined ? 1 : 1 / (typeof v === 'number' ? requirePositive('options.variance', v, 's²') : requirePositive(`options.variance[${i}]`, v[i], 's²'));
+  }
+  const t0 = options.referenceTime === undefined ? (tt[0] as number) : requireFinite('options.referenceTime', options.referenceTime, 'a finite epoch in seconds');
+  let tMin = Infinity;
+  let tMax = -Infinity;
+  let tSum = 0;
+  for (let i = 0; i < n; i++) {
+    tMin = Math.min(tMin, tt[i] as number);
+    tMax = Math.max(tMax, tt[i] as number);
+    tSum += tt[i] as number;
+  }
+  const distinct = new Set(Array.from(tt)).size;
+  if (distinct < p) throw new InvalidArgumentError('t', `${distinct} distinct epochs`, `at least ${p} distinct epochs for a degree-${degree} fit`);
+  const c = tSum / n;
+  const s = (tMax - tMin) / 2;
+
+  // √w-scaled design in u = (t − c)/s, columns [1, u, u²].
+  const a: number[][] = [];
+  const b: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const sw = Math.sqrt(w[i] as number);
+    const u = ((tt[i] as number) - c) / s;
+    a.push(degree === 2 ? [sw, sw * u, sw * u * u] : [sw, sw * u]);
+    b.push(sw * (zz[i] as number));
+  }
+  const { beta, rInv } = householderLeastSquares(a, b, p);
+  // Cov_u = R⁻¹ R⁻ᵀ
+  const covU: Matrix = Array.from({ length: p }, (_, i) => Array.from({ length: p }, (_, j) => {
+    let sum = 0;
+    for (let k = 0; k < p; k++) sum += ((rInv[i] as number[])[k] as number) * ((rInv[j] as number[])[k] as number);
+    return sum;
+  }));
+  const evalU = (u: number): number => (beta[0] as number) + (beta[1] as number) * u + (degree === 2 ? (beta[2] as number) * u * u : 0);
+  const residuals = new Float64Array(n);
+  let chiSquare = 0;
+  for (let i = 0; i < n; i++) {
+    const r = (zz[i] as number) - evalU(((tt[i] as number) - c) / s);
+    residuals[i] = r;
+    chiSquare += (w[i] as number) * r * r;
+  }
+  const dof = n - p;
+  const reducedChiSquare = dof > 0 ? chiSquare / dof : Number.NaN;
+  const scaled = (v === undefined || options.scaleByReducedChiSquare === true) && dof > 0;
+  const factor = scaled ? reducedChiSquare : 1;
+  // Map u-basis coefficients to the t0 basis: u = (t − t0)/s + δ, δ = (t0 − c)/s.
+  // x = b0 + b1 u + b2 u² ⇒ a0 = b0 + b1 δ + b2 δ², a1 = (b1 + 2 b2 δ)/s, a2 = b2/s².
+  const delta = (t0 - c) / s;
+  const tm: Matrix = degree === 2
+    ? [[1, delta, delta * delta], [0, 1 / s, (2 * delta) / s], [0, 0, 1 / (s * s)]]
+    : [[1, delta], [0, 1 / s]];
+  const coef = tm.map((row) => row.reduce((acc, m, j) => acc + m * (beta[j] as number), 0));
+  const covariance: Matrix = tm.map((ri) => tm.map((rj) => {
+    let sum = 0;
+    for (let k = 0; k < p; k++) for (let l = 0; l < p; l++) sum += (ri[k] as number) * ((covU[k] as number[])[l] as number) * (rj[l] as number);
+    return sum * factor;
+  }));
+  const predict = (time: Seconds): Seconds => evalU((requireFinite('t', time, 'a finite epoch in seconds') - c) / s);
+  const predictStd = (time: Seconds): Seconds => {
+    const u = (requireFinite('t', time, 'a finite epoch in seconds') - c) / s;
+    const g = degree === 2 ? [1, u, u * u] : [1, u];
+    let sum = 0;
+    for (let i = 0; i < p; i++) for (let j = 0; j < p; j++) sum += (g[i] as number) * ((covU[i] as number[])[j] as number) * (g[j] as number);
+    return Math.sqrt(Math.max(sum * factor, 0));
+  };
+  return {
+    degree, referenceTime: t0,
+    coefficients: [coef[0] as number, coef[1] as number, degree === 2 ? (coef[2] as number) : 0],
+    covariance, covarianceScaled: scaled, residuals, chiSquare, dof, reducedChiSquare, predict, predictStd,
+  };
+}
+
+/**
+ * Least squares min ‖A β − b‖ by Householder QR (Golub & Van Loan §5.1.2, §5.3.3); returns β and R⁻¹.
+ * A is n × p with full column rank (guaranteed by the distinct-epoch check for p ≤ 3).
+ */
+function householderLeastSquares(aIn: readonly number[][], bIn: readonly number[], p: number): { beta: number[]; rInv: Matrix } {
+  const n = aIn.length;
+  const a = aIn.map((r) => r.slice());
+  const b = bIn.slice();
+  for (let k = 0; k < p; k++) {
+    let norm = 0;
+    for (let i = k; i < n; i++) norm += ((a[i] as number[])[k] as number) ** 2;
+    norm = Math.sqrt(norm);
+    const akk = (a[k] as number[])[k] as number;
+    const alpha = akk > 0 ? -norm : norm;
+    const v = new Array<number>(n).fill(0);
+    for (let i = k; i < n; i++) v[i] = (a[i] as number[])[k] as number;
+    v[k] = (v[k] as number) - alpha;
+    let vv = 0;
+    for (let i = k; i < n; i++) vv += (v[i] as number) ** 2;
+    if (vv === 0) continue;
+    for (let j = k; j < p; j++) {
+      let dot = 0;
+      for (let i = k; i < n; i++) dot += (v[i] as number) * ((a[i] as number[])[j] as number);
+      const f = (2 * dot) / vv;
+      for (let i = k; i < n; i++) (a[i] as number[])[j] = ((a[i] as number[])[j] as number) - f * (v[i] as number);
+    }
+    let dot = 0;
+    for (let i = k; i < n; i++) dot += (v[i] as number) * (b[i] as number);
+    const f = (2 * dot) / vv;
+    for (let i = k; i < n; i++) b[i] = (b[i] as number) - f * (v[i] as number);
+  }
+  // Back substitution R β = Qᵀb (first p rows), and R⁻¹ (upper triangular).
+  const beta = new Array<number>(p).fill(0);
+  for (let i = p - 1; i >= 0; i--) {
+    let sum = b[i] as number;
+    for (let j = i + 1; j < p; j++) sum -= ((a[i] as number[])[j] as number) * (beta[j] as number);
+    beta[i] = sum / ((a[i] as number[])[i] as number);
+  }
+  const rInv: Matrix = Array.from({ length: p }, () => new Array<number>(p).fill(0));
+  for (let j = 0; j < p; j++) {
+    (rInv[j] as number[])[j] = 1 / ((a[j] as number[])[j] as number);
+    for (let i = j - 1; i >= 0; i--) {
+      let sum = 0;
+      for (let k = i + 1; k <= j; k++) sum += ((a[i] as number[])[k] as number) * ((rInv[k] as number[])[j] as number);
+      (rInv[i] as number[])[j] = -sum / ((a[i] as number[])[i] as number);
+    }
+  }
+  return { beta, rInv };
+}
