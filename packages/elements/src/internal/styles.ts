@@ -69,8 +69,9 @@ export const plotStyles = css`
     position: absolute; pointer-events: none; z-index: 2; min-width: 10em; max-width: 22em;
     padding: 6px 8px; border: 1px solid var(--border); border-radius: var(--radius);
     background: var(--surface); color: var(--text); box-shadow: 0 2px 8px light-dark(#0002, #0008);
-    font-variant-numeric: tabular-nums; white-space: nowrap;
+    font-variant-numeric: tabular-nums; white-space: nowrap; width: max-content;
   }
+  [part~='tooltip'] .note { white-space: normal; margin-top: 4px; color: var(--muted); }
   [part~='tooltip'] dl { display: grid; grid-template-columns: auto auto; gap: 1px 10px; margin: 0; }
   [part~='tooltip'] dt { color: var(--muted); }
   [part~='tooltip'] dd { margin: 0; text-align: right; }

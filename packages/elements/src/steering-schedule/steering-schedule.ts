@@ -347,7 +347,7 @@ export class TaulineSteeringSchedule extends PlotElement {
           <dt>Executes</dt><dd>${formatUtc(d.epochMs + c.executeAt * 1000, true)}</dd>
           ${Number.isFinite(c.uplinkAt) ? html`<dt>Uplink</dt><dd>${formatUtc(d.epochMs + c.uplinkAt * 1000, true)}</dd>` : nothing}
         </dl>
-        ${c.reason ? html`<div>${c.reason}</div>` : nothing}
+        ${c.reason ? html`<div class="note">${c.reason}</div>` : nothing}
       </div>`;
     }
     const i = h.i;
