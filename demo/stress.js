@@ -1,4 +1,4 @@
-// 10^6-point stress page and browser benchmark (bench/elements.bench.mjs drives runBench()).
+// 10^6-point stress page and browser benchmark (test/bench/elements.bench.mjs drives runBench()).
 import '@tauline/elements';
 
 const N = 1_000_000;

@@ -3,7 +3,7 @@
 //   - MDEV: the O(N·m) double loop of the NIST SP 1065 §5.2.5 definition vs our O(N) prefix sums;
 //   - OADEV/OHDEV: a vectorised (array-at-a-time, allocate-per-τ) evaluation vs our fused loops.
 // Imports the built SDK (packages/sdk/dist). Prints times and ratios; asserts nothing.
-import { analyzeStability, deviations } from '../packages/sdk/dist/stability/index.js';
+import { analyzeStability, deviations } from '../../packages/sdk/dist/stability/index.js';
 
 /** Seeded random-walk phase (white FM), 32-bit LCG + Box–Muller: reproducible input. */
 function phaseRecord(n) {

@@ -1,5 +1,5 @@
 // Browser benchmark of @tauline/elements (run by `npm run bench`, or alone with
-// `node bench/elements.bench.mjs`): loads demo/stress.html in headless Chromium (playwright-core,
+// `node test/bench/elements.bench.mjs`): loads demo/stress.html in headless Chromium (playwright-core,
 // /usr/bin/chromium or CHROME_PATH, the flags of web-test-runner.config.mjs), renders a
 // 10^6-point steering prediction, pans it with the keyboard, and compares with drawing the same
 // points undecimated on a canvas of the same size in the same run. Reports only; asserts nothing.
@@ -10,8 +10,8 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir, cpus } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
-import devServerConfig from '../web-dev-server.config.mjs';
-import { CHROMIUM_ARGS } from '../web-test-runner.config.mjs';
+import devServerConfig from '../../web-dev-server.config.mjs';
+import { CHROMIUM_ARGS } from '../../web-test-runner.config.mjs';
 
 const fmt = (ms) => `${ms.toFixed(1).padStart(7)} ms`;
 
@@ -49,6 +49,6 @@ export default async function benchElements() {
 }
 
 if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
-  process.chdir(fileURLToPath(new URL('..', import.meta.url)));
+  process.chdir(fileURLToPath(new URL('../..', import.meta.url)));
   await benchElements();
 }

@@ -2,9 +2,9 @@
 // strategy, against the unsteered prediction as a baseline measured in the same run; and the
 // Monte Carlo at 1000 runs. Imports the built SDK (packages/sdk/dist). Prints times; asserts nothing.
 import { readFileSync } from 'node:fs';
-import { planSteering, simulatePlan } from '../packages/sdk/dist/steering/index.js';
+import { planSteering, simulatePlan } from '../../packages/sdk/dist/steering/index.js';
 
-const scenario = JSON.parse(readFileSync(new URL('../packages/sdk/examples/steering/orin-3-meo.json', import.meta.url), 'utf8'));
+const scenario = JSON.parse(readFileSync(new URL('../../packages/sdk/examples/steering/orin-3-meo.json', import.meta.url), 'utf8'));
 
 function time(label, fn, repeat) {
   fn();
