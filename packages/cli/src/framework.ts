@@ -45,6 +45,8 @@ export interface Command {
 export interface ParsedArgs {
   values: Record<string, string | boolean | string[] | undefined>;
   positionals: string[];
+  /** The command the arguments were parsed for (lets messages quote the flag's help). */
+  command?: Command;
 }
 
 /** A usage error: printed as one line, exit status 2. */
@@ -72,19 +74,34 @@ export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
       i++;
     } else args.push(token);
   }
+  let parsed: ReturnType<typeof parseArgs<{ args: string[]; options: typeof options; allowPositionals: boolean; strict: true; tokens: true }>>;
   try {
-    const parsed = parseArgs({ args, options, allowPositionals: command.allowPositionals ?? false, strict: true });
-    return { values: parsed.values as ParsedArgs['values'], positionals: parsed.positionals };
+    parsed = parseArgs({ args, options, allowPositionals: command.allowPositionals ?? false, strict: true, tokens: true });
   } catch (e) {
     const message = e instanceof Error ? e.message.replace(/\. To specify a positional.*$/s, '').replace(/\s*\n\s*/g, ' ') : String(e);
     throw new UsageError(`${message} (see \`tauline ${command.name} --help\`)`);
   }
+  // A flag given twice would silently keep the last value: refuse it unless the flag takes several.
+  const seen = new Map<string, string | undefined>();
+  for (const token of parsed.tokens) {
+    if (token.kind !== 'option' || options[token.name]?.multiple) continue;
+    if (seen.has(token.name)) {
+      const values = [seen.get(token.name), token.value].filter((v) => v !== undefined).map((v) => JSON.stringify(v));
+      throw new UsageError(`--${token.name} is given more than once${values.length ? ` (${values.join(' and ')})` : ''}; give it once (see \`tauline ${command.name} --help\`)`);
+    }
+    seen.set(token.name, token.value);
+  }
+  return { values: parsed.values as ParsedArgs['values'], positionals: parsed.positionals, command };
 }
 
-/** Reads a required string flag. */
+/** Reads a required string flag; a missing or empty one is a usage error quoting the flag's help. */
 export function requireFlag(args: ParsedArgs, flag: string): string {
   const v = args.values[flag];
-  if (v === undefined || v === '' || typeof v === 'boolean') throw new UsageError(`--${flag} is required`);
+  if (v === undefined || v === '' || typeof v === 'boolean') {
+    const spec = args.command?.flags[flag];
+    const what = spec ? `: ${spec.value ? `${spec.value}, ` : ''}${spec.description.replace(/\.$/, '')}` : '';
+    throw new UsageError(`--${flag} is required${v === '' ? ' (it was given empty)' : ''}${what}`);
+  }
   return Array.isArray(v) ? v[v.length - 1]! : v;
 }
 
@@ -116,6 +133,55 @@ export function parseNumber(field: string, text: string): number {
   const v = Number(trimmed);
   if (!Number.isFinite(v)) throw new InvalidArgumentError(field, text, 'a finite number');
   return v;
+}
+
+/**
+ * Reads an integer flag in [min, max]; `what` describes it (e.g. "simulated clocks per strategy").
+ * @throws {InvalidArgumentError} naming the flag, the value and the range.
+ */
+export function integerFlag(args: ParsedArgs, flag: string, min: number, max: number, what: string): number | undefined {
+  const v = numberFlag(args, flag);
+  if (v === undefined) return undefined;
+  if (!Number.isInteger(v) || v < min || v > max) throw new InvalidArgumentError(`--${flag}`, v, `an integer in [${min}, ${max}] (${what})`);
+  return v;
+}
+
+/** Largest seed accepted by the SDK's random generators (unsigned 32-bit). */
+export const MAX_SEED = 4_294_967_295;
+
+/**
+ * Reads `--seed`: an integer in [0, 2³² − 1], the same range for every command (the SDK's
+ * generators reduce a seed to 32 bits, so a wider value would silently alias another seed).
+ */
+export function seedFlag(args: ParsedArgs): number | undefined {
+  return integerFlag(args, 'seed', 0, MAX_SEED, 'seed of the random generator; same seed, same numbers');
+}
+
+/** The two formats of commands printing one result: an aligned table (default) or JSON. */
+export const TABLE_OR_JSON = ['table', 'json'] as const;
+/** Formats of commands printing a long list of rows. */
+export const TABLE_JSON_CSV = ['table', 'json', 'csv'] as const;
+
+/** The `--format` flag spec, for commands offering more than one output format. */
+export function formatFlagSpec(formats: readonly string[], defaultFormat = 'table'): FlagSpec {
+  return { type: 'string', value: formats.join('|'), description: `Output format: ${formats.join(', ')} (default ${defaultFormat}).` };
+}
+
+/**
+ * Reads the output format from `--format <name>` and its shorthands (`--json`, `--csv`, …: any
+ * boolean flag named like an accepted format). Conflicting choices are a usage error.
+ */
+export function formatFlag<F extends string>(args: ParsedArgs, formats: readonly F[], defaultFormat: F): F {
+  const chosen = new Map<string, string>(); // format → how it was asked for
+  const text = optionalFlag(args, 'format');
+  if (text !== undefined) {
+    const lower = text.toLowerCase();
+    if (!(formats as readonly string[]).includes(lower)) throw new InvalidArgumentError('--format', text, `one of ${formats.join(', ')}`);
+    chosen.set(lower, `--format ${lower}`);
+  }
+  for (const f of formats) if (args.values[f] === true && !chosen.has(f)) chosen.set(f, `--${f}`);
+  if (chosen.size > 1) throw new UsageError(`${[...chosen.values()].join(' and ')} cannot be combined: choose one output format`);
+  return (chosen.keys().next().value as F | undefined) ?? defaultFormat;
 }
 
 /** Renders rows as an aligned text table. Numbers are right-aligned. */
@@ -150,13 +216,25 @@ export function toJson(value: unknown): string {
 export const FLIGHT_CAUTION =
   'Caution: verify these values against the mission\'s own interface specification and have them confirmed by its responsible engineering authority before they enter a flight configuration.';
 
+/** File-system errors that mean the user named an unusable file, with the reason printed. */
+const FILE_ERRORS: Record<string, string> = {
+  ENOENT: 'no such file',
+  EISDIR: 'it is a directory, not a file',
+  ENOTDIR: 'a part of the path is not a directory',
+  EACCES: 'permission denied',
+  EPERM: 'operation not permitted',
+  ELOOP: 'too many symbolic links',
+  ENAMETOOLONG: 'the name is too long',
+};
+
 /** Turns any thrown value into one line for stderr and an exit status. */
 export function describeFailure(error: unknown): { line: string; status: number } {
   if (error instanceof UsageError) return { line: error.message, status: EXIT_USAGE };
   if (error instanceof InvalidArgumentError) return { line: `invalid input: ${error.message}`, status: EXIT_USAGE };
   if (error instanceof TaulineError) return { line: `${error.code}: ${error.message}`, status: EXIT_USAGE };
-  if (error instanceof Error && 'code' in error && (error as NodeJS.ErrnoException).code === 'ENOENT') {
-    return { line: `cannot read ${formatReceived((error as NodeJS.ErrnoException).path)}: no such file`, status: EXIT_USAGE };
+  if (error instanceof Error && 'code' in error && typeof (error as NodeJS.ErrnoException).code === 'string') {
+    const reason = FILE_ERRORS[(error as NodeJS.ErrnoException).code!];
+    if (reason) return { line: `cannot read ${formatReceived((error as NodeJS.ErrnoException).path)}: ${reason}`, status: EXIT_USAGE };
   }
   const message = error instanceof Error ? error.message : String(error);
   return { line: `internal error: ${message} (please report this with the command line that caused it)`, status: 3 };

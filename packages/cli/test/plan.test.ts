@@ -35,7 +35,7 @@ describe('tauline plan', () => {
     expect(r.err).toBe('');
     expect(r.status).toBe(0);
     const plan = JSON.parse(r.out) as Record<string, any>;
-    expect(Object.keys(plan).sort()).toEqual(['caution', 'commands', 'feasible', 'metrics', 'predicted']);
+    expect(Object.keys(plan).sort()).toEqual(['caution', 'commands', 'feasible', 'metrics', 'predicted', 'units']);
     expect(plan.feasible).toBe(true);
     expect(Object.keys(plan.predicted).sort()).toEqual(['steered', 't', 'unsteered']);
     for (const c of plan.commands) {

@@ -61,13 +61,13 @@ describe('tauline stability', () => {
     expect(j.rows[0].noiseSource).toBe('stated');
     expect(j.rows[0].oadevN).toBe(6);
   });
-  it('tauline stability --rinex-clock <file> --clock G05 analyses the clock bias as phase; the missing epoch leaves no complete OADEV term, so both τ are dropped', async () => {
+  it('tauline stability --rinex-clock <file> --clock G05: the missing epoch leaves no complete OADEV term, so every τ is dropped and the request is refused (exit 2, one line naming the gap and the dropped τ)', async () => {
     const r = await run(['stability', '--rinex-clock', join(FIX, 'rinex-clock/fictional-304.clk'), '--clock', 'G05', '--statistics', 'oadev', '--json']);
-    expect(r.status).toBe(0);
-    const j = JSON.parse(r.out);
-    expect(j.input).toMatchObject({ clock: 'G05', timeSystem: 'GPS', tau0: 30, missing: 1 });
-    expect(j.rows).toEqual([]);
-    expect(j.droppedTaus).toEqual([30, 60]);
+    expect(r.status).toBe(2);
+    expect(r.out).toBe('');
+    expect(r.err.trimEnd().split('\n')).toHaveLength(1);
+    expect(r.err).toMatch(/--rinex-clock must be a request in which at least one τ has a complete \(gap-free\) term/);
+    expect(r.err).toMatch(/1 missing in 1 gap\(s\).*dropped τ: 30, 60 s/);
   });
   it('tauline stability rejects a τ that is not a multiple of τ0, an unknown statistic or noise, two inputs, no τ0 and a missing clock (exit 2)', async () => {
     const phase = join(FIX, 'stability/nbs14-phase.txt');

@@ -12,9 +12,10 @@ import {
 } from '@tauline/sdk/io';
 import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant, type TimeScale, type TimeScales } from '@tauline/sdk/time';
 import {
-  EXIT_OK, FLIGHT_CAUTION, UsageError, numberFlag, optionalFlag, requireFlag, table, toJson, type Command, type Io,
-  type ParsedArgs,
+  EXIT_FINDING, EXIT_OK, FLIGHT_CAUTION, TABLE_JSON_CSV, UsageError, formatFlag, formatFlagSpec, numberFlag, optionalFlag, requireFlag, table, toJson,
+  type Command, type Io, type ParsedArgs,
 } from '../framework.js';
+import { requireRegularFile } from '../files.js';
 
 /** Input size above which a progress bar is drawn on a terminal, in bytes. */
 export const PROGRESS_BYTES = 4 * 1024 * 1024;
@@ -75,10 +76,9 @@ export function satelliteFlag(args: ParsedArgs): Set<string> | undefined {
   return new Set(ids);
 }
 
-/** Reads `--json` / `--csv` (mutually exclusive). */
+/** Reads `--format table|json|csv` or its shorthands `--json` / `--csv` (mutually exclusive). */
 export function outputFormat(args: ParsedArgs): 'json' | 'csv' | 'table' {
-  if (args.values['json'] && args.values['csv']) throw new UsageError('--json and --csv cannot be combined');
-  return args.values['json'] ? 'json' : args.values['csv'] ? 'csv' : 'table';
+  return formatFlag(args, TABLE_JSON_CSV, 'table');
 }
 
 /** Result of {@link loadNavigation}. */
@@ -103,6 +103,7 @@ export async function loadNavigation(paths: readonly string[], io: Io, window: (
   const skipped = new Map<string, number>();
   let outsideWindow = 0;
   let leapSeconds: number | undefined;
+  for (const path of paths) await requireRegularFile(path, 'a RINEX navigation file');
   const bar = progress(io, 'reading navigation data', totalSize(paths));
   try {
     for (const path of paths) {
@@ -163,7 +164,7 @@ interface SampleOut {
 export const broadcastCommand: Command = {
   name: 'broadcast',
   summary: 'Relativistic correction F·e·√A·sin E_k and full clock correction from RINEX navigation files (GPS, Galileo, BeiDou).',
-  usage: '<rinex-nav-file>... --from <ISO 8601> --to <ISO 8601> --step <s> [--satellite G01,...] [--time-scale system|utc] [--galileo inav|fnav] [--include-unhealthy] [--json|--csv]',
+  usage: '<rinex-nav-file>... --from <ISO 8601> --to <ISO 8601> --step <s> [--satellite G01,...] [--time-scale system|utc] [--galileo inav|fnav] [--include-unhealthy] [--json | --csv | --format table|json|csv]',
   allowPositionals: true,
   flags: {
     from: { type: 'string', value: '<ISO 8601>', description: 'First sample time, e.g. 2024-01-07T00:00:00 (each system\'s own scale unless --time-scale utc).' },
@@ -173,8 +174,9 @@ export const broadcastCommand: Command = {
     'time-scale': { type: 'string', value: '<scale>', description: 'system (default: GPST for GPS, GST for Galileo, BDT for BeiDou) or utc (times with Z; converted with the bundled leap-second table).' },
     galileo: { type: 'string', value: '<msg>', description: 'Galileo message to prefer: inav (default) or fnav.' },
     'include-unhealthy': { type: 'boolean', description: 'Also use records whose health word is non-zero.' },
-    json: { type: 'boolean', description: 'Print one JSON object.' },
-    csv: { type: 'boolean', description: 'Print CSV rows (id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message).' },
+    json: { type: 'boolean', description: 'Print one JSON object (same as --format json).' },
+    csv: { type: 'boolean', description: 'Print CSV rows (id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message); the caution goes to stderr.' },
+    format: formatFlagSpec(TABLE_JSON_CSV),
   },
   details: `
 Reads RINEX 3.0x / 4.0x navigation files (streamed; several files, e.g. a month of daily files, may be given).
@@ -186,8 +188,9 @@ Table 20-IV [M]; Galileo OS SIS ICD; BDS-SIS-ICD, each with its own GM, Ω_E and
   Δt_r = F e √A sin E_k,   Δt_sv = a_f0 + a_f1 (t − t_oc) + a_f2 (t − t_oc)² + Δt_r   (group delays not applied).
 Times are read in each system's own scale (GPST, GST, BDT) unless --time-scale utc. A sample with no valid record
 has null values and a reason. JSON: { satellites: [{ id, timeScale, samples: [{ t, relativisticSeconds,
-clockCorrectionSeconds, toe, issueOfData, message }] }], skipped, notes, caution }.
-Exit status: 0 success (also when some samples have no record), 2 invalid input or a malformed file.`,
+clockCorrectionSeconds, toe, issueOfData, message }] }], skipped, notes, units, caution }. Seconds are SI seconds.
+Exit status: 0 success (also when some samples have no record), 1 no sample at all has a valid record (the output
+is still printed, every value null), 2 invalid input or a malformed file.`,
   async run(args, io) {
     const files = args.positionals;
     if (files.length === 0) throw new UsageError('a RINEX navigation file is required (tauline broadcast <rinex-nav-file> ...)');
@@ -259,6 +262,12 @@ Exit status: 0 success (also when some samples have no record), 2 invalid input 
       out.push({ id, timeScale: utc ? 'UTC' : SYSTEM_SCALE_LABEL[system] ?? 'unknown', samples, missing });
     }
     const skipped = [...nav.skipped].map(([reason, n]) => ({ reason, count: n }));
+    const withRecord = out.reduce((sum, x) => sum + x.samples.length - x.missing, 0);
+    // Nothing usable at all (no satellite has a record covering any sample) is a finding, not a success.
+    const status = withRecord === 0 ? EXIT_FINDING : EXIT_OK;
+    if (status === EXIT_FINDING) {
+      io.err(`tauline broadcast: no sample has a valid record: no ${filter ? `record of ${[...filter].join(', ')}` : 'GPS, Galileo or BeiDou record'} covers the requested window in these files\n`);
+    }
 
     if (format === 'json') {
       io.out(toJson({
@@ -271,9 +280,10 @@ Exit status: 0 success (also when some samples have no record), 2 invalid input 
         recordsOutsideWindow: nav.outsideWindow,
         skipped,
         notes: [...notes],
+        units: { step: 's', t: 'ISO 8601 in timeScale', relativisticSeconds: 's', clockCorrectionSeconds: 's', toe: 'ISO 8601 in the system scale' },
         caution: FLIGHT_CAUTION,
       }));
-      return EXIT_OK;
+      return status;
     }
     if (format === 'csv') {
       io.out('id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message\n');
@@ -282,7 +292,8 @@ Exit status: 0 success (also when some samples have no record), 2 invalid input 
           io.out(`${s.id},${x.t},${x.relativisticSeconds ?? ''},${x.clockCorrectionSeconds ?? ''},${x.toe ?? ''},${x.issueOfData ?? ''},${x.message ?? ''}\n`);
         }
       }
-      return EXIT_OK;
+      io.err(`${FLIGHT_CAUTION}\n`);
+      return status;
     }
     io.out(`Broadcast relativistic and clock corrections (${utc ? 'times in UTC' : 'times in each system\'s own scale: GPST, GST, BDT'})\n\n`);
     const rows: (string | number)[][] = [];
@@ -298,6 +309,6 @@ Exit status: 0 success (also when some samples have no record), 2 invalid input 
     if (skipped.length > 0) io.out(`\nSkipped records:\n${skipped.map((s) => `  ${s.count} × ${s.reason}`).join('\n')}\n`);
     if (notes.size > 0) io.out(`\nNotes:\n${[...notes].map((n) => `  ${n}`).join('\n')}\n`);
     io.out(`\n${FLIGHT_CAUTION}\n`);
-    return EXIT_OK;
+    return status;
   },
 };

@@ -3,8 +3,17 @@
  * eccentric orbit at a given mean anomaly.
  */
 import { periodicCorrectionAtMeanAnomaly } from '@tauline/sdk/relativity';
-import { EXIT_OK, keyValueTable, numberFlag, sig, toJson, type Command } from '../framework.js';
+import { InvalidArgumentError } from '@tauline/sdk/errors';
+import {
+  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlagSpec, keyValueTable, numberFlag, sig, toJson, type Command,
+} from '../framework.js';
 import { constantsFlag, withFlagNames } from './rate.js';
+
+/**
+ * Largest |M| accepted, in radians. Beyond it a float64 keeps the angle modulo 2π to worse than
+ * ~1e-7 rad (ulp(1e9) = 1.2e-7), and at 1e16 not at all; reduce M modulo 2π first.
+ */
+export const MAX_MEAN_ANOMALY = 1e9;
 
 const FLAG_NAMES: Record<string, string> = {
   semiMajorAxis: '--semi-major-axis',
@@ -15,13 +24,14 @@ const FLAG_NAMES: Record<string, string> = {
 export const periodicCommand: Command = {
   name: 'periodic',
   summary: 'Periodic relativistic clock correction of an eccentric orbit (Δt_r = F·e·√a·sin E).',
-  usage: '--semi-major-axis <m> --eccentricity <e> --mean-anomaly <rad> [--constants <name>] [--json]',
+  usage: '--semi-major-axis <m> --eccentricity <e> --mean-anomaly <rad> [--constants <name>] [--json | --format table|json]',
   flags: {
     'semi-major-axis': { type: 'string', value: '<m>', description: 'Orbit semi-major axis a, in metres (e.g. 26561750).' },
     eccentricity: { type: 'string', value: '<e>', description: 'Eccentricity e, dimensionless, 0 ≤ e < 1.' },
-    'mean-anomaly': { type: 'string', value: '<rad>', description: 'Mean anomaly M at the epoch, in radians.' },
+    'mean-anomaly': { type: 'string', value: '<rad>', description: 'Mean anomaly M at the epoch, in radians, |M| ≤ 1e9.' },
     constants: { type: 'string', value: '<name>', description: 'Constant set giving F = −2√GM/c²: iers-2010 (default), gps-icd, galileo-icd, beidou-icd.' },
-    json: { type: 'boolean', description: 'Print one JSON object instead of a table.' },
+    json: { type: 'boolean', description: 'Print one JSON object instead of a table (same as --format json).' },
+    format: formatFlagSpec(TABLE_OR_JSON),
   },
   details: `
 Solves Kepler's equation M = E − e·sin E, then
@@ -31,16 +41,21 @@ Amplitude 2√(GM a)·e/c² ("about 2.29 µs × e" at GPS altitude).
 Sources: IS-GPS-200 §20.3.3.3.3.1; IERS Conventions (2010) §10.2 eqs. 10.10–10.11.
 Use --constants gps-icd for IS-GPS-200 conformance (F = −4.442807633e-10 s/√m).
 JSON fields: semiMajorAxis (m), eccentricity, meanAnomaly (rad), eccentricAnomaly (rad), constants,
-relativisticF (s/√m), correctionSeconds, amplitudeSeconds.
+relativisticF (s/√m), correctionSeconds, amplitudeSeconds, units (unit of each field).
 Exit status: 0 success, 2 invalid input.`,
   run(args, io) {
+    const format = formatFlag(args, TABLE_OR_JSON, 'table');
     const semiMajorAxis = numberFlag(args, 'semi-major-axis', true);
     const eccentricity = numberFlag(args, 'eccentricity', true);
     const meanAnomaly = numberFlag(args, 'mean-anomaly', true);
+    if (Math.abs(meanAnomaly) > MAX_MEAN_ANOMALY) {
+      throw new InvalidArgumentError('--mean-anomaly', meanAnomaly, 'in [−1e9, 1e9] rad',
+        'beyond that a double no longer holds the angle modulo 2π; reduce it modulo 2π first');
+    }
     const constants = constantsFlag(args);
     const result = withFlagNames(FLAG_NAMES,
       () => periodicCorrectionAtMeanAnomaly(semiMajorAxis, eccentricity, meanAnomaly, constants));
-    if (args.values['json']) {
+    if (format === 'json') {
       io.out(toJson({
         semiMajorAxis, eccentricity, meanAnomaly,
         eccentricAnomaly: result.eccentricAnomaly,
@@ -48,6 +63,10 @@ Exit status: 0 success, 2 invalid input.`,
         relativisticF: constants.relativisticF,
         correctionSeconds: result.correctionSeconds,
         amplitudeSeconds: result.amplitudeSeconds,
+        units: {
+          semiMajorAxis: 'm', eccentricity: 'dimensionless', meanAnomaly: 'rad', eccentricAnomaly: 'rad', relativisticF: 's/√m',
+          correctionSeconds: 's', amplitudeSeconds: 's',
+        },
       }));
       return EXIT_OK;
     }

@@ -2,94 +2,20 @@
  * `tauline plan <scenario.json>`: when and by how much to steer an onboard clock so that its
  * offset stays inside the tolerance, from a steering scenario file.
  */
-import { readFile } from 'node:fs/promises';
 import { planSteering, type SteeringMethod, type SteeringPlan, type SteeringScenario } from '@tauline/sdk/steering';
-import { InvalidArgumentError, ParseError } from '@tauline/sdk/errors';
+import { InvalidArgumentError } from '@tauline/sdk/errors';
 import { createTimeScales, parseLeapSecondsList, type TimeScales } from '@tauline/sdk/time';
 import {
-  EXIT_FINDING, EXIT_OK, UsageError, keyValueTable, optionalFlag, table, toJson, type Command, type ParsedArgs,
+  EXIT_FINDING, EXIT_OK, TABLE_OR_JSON, UsageError, formatFlag, formatFlagSpec, keyValueTable, optionalFlag, table, toJson,
+  type Command, type ParsedArgs,
 } from '../framework.js';
+import { readJsonFile, readTextFile } from '../files.js';
 
 const METHODS: readonly SteeringMethod[] = ['deadband', 'optimal', 'none'];
 
-/**
- * Offset of the first JSON syntax error in `text` (RFC 8259 grammar), for engines whose
- * JSON.parse message carries no position. Undefined when none is found.
- */
-export function jsonErrorOffset(text: string): number | undefined {
-  let i = 0;
-  const ws = (): void => { while (i < text.length && ' \t\n\r'.includes(text[i]!)) i++; };
-  const fail = (): never => { throw i; };
-  const literal = (word: string): void => { if (text.startsWith(word, i)) i += word.length; else fail(); };
-  const str = (): void => {
-    i++;
-    while (i < text.length && text[i] !== '"') {
-      if (text[i] === '\\') i++;
-      else if (text.charCodeAt(i) < 0x20) fail();
-      i++;
-    }
-    if (i >= text.length) fail();
-    i++;
-  };
-  const num = (): void => {
-    const m = /^-?(0|[1-9]\d*)(\.\d+)?([eE][+-]?\d+)?/.exec(text.slice(i, i + 400));
-    if (!m) fail();
-    i += m![0].length;
-  };
-  const value = (): void => {
-    ws();
-    const c = text[i];
-    if (c === '{') {
-      i++; ws();
-      if (text[i] === '}') { i++; return; }
-      for (;;) {
-        ws(); if (text[i] !== '"') fail(); str(); ws();
-        if (text[i] !== ':') fail(); i++; value(); ws();
-        if (text[i] === ',') { i++; continue; }
-        if (text[i] === '}') { i++; return; }
-        fail();
-      }
-    } else if (c === '[') {
-      i++; ws();
-      if (text[i] === ']') { i++; return; }
-      for (;;) {
-        value(); ws();
-        if (text[i] === ',') { i++; continue; }
-        if (text[i] === ']') { i++; return; }
-        fail();
-      }
-    } else if (c === '"') str();
-    else if (c === 't') literal('true');
-    else if (c === 'f') literal('false');
-    else if (c === 'n') literal('null');
-    else num();
-  };
-  try {
-    value(); ws();
-    return i < text.length ? i : undefined;
-  } catch (at) {
-    return typeof at === 'number' ? at : undefined;
-  }
-}
-
-/** Reads a scenario file; a JSON syntax error becomes a ParseError with line and column. */
+/** Reads a scenario file; an empty file or a JSON syntax error becomes a ParseError with line and column. */
 export async function readScenarioFile(path: string): Promise<unknown> {
-  const text = await readFile(path, 'utf8');
-  try {
-    return JSON.parse(text) as unknown;
-  } catch (error) {
-    const message = error instanceof Error ? error.message : String(error);
-    const position = /position (\d+)/.exec(message);
-    const offset = position ? Number(position[1]) : jsonErrorOffset(text);
-    let line = 1;
-    let column: number | undefined;
-    if (offset !== undefined) {
-      const before = text.slice(0, offset);
-      line = before.split('\n').length;
-      column = offset - before.lastIndexOf('\n');
-    }
-    throw new ParseError(path, line, column, 'valid JSON (a steering scenario)', message.replace(/^.*?: /, ''));
-  }
+  return readJsonFile(path, 'a steering scenario');
 }
 
 /**
@@ -102,7 +28,7 @@ export async function readScenarioFile(path: string): Promise<unknown> {
 export async function leapSecondsFlag(args: ParsedArgs): Promise<TimeScales | undefined> {
   const path = optionalFlag(args, 'leap-seconds');
   if (path === undefined) return undefined;
-  const text = await readFile(path, 'utf8');
+  const text = await readTextFile(path, 'an IERS/NIST leap-seconds.list');
   try {
     return createTimeScales(parseLeapSecondsList(text, path));
   } catch (error) {
@@ -125,6 +51,14 @@ export function strategyFlag(value: string | undefined, allowAll: boolean): Stee
   if ((METHODS as readonly string[]).includes(value) || (allowAll && value === 'all')) return value as SteeringMethod | 'all';
   throw new InvalidArgumentError('--strategy', value, `one of ${[...METHODS, ...(allowAll ? ['all'] : [])].join(', ')}`);
 }
+
+/** Units of the plan's JSON fields (`units` in `tauline plan --json`). */
+export const PLAN_UNITS = {
+  uplinkAt: 'ISO 8601 UTC', executeAt: 'ISO 8601 UTC', fractionalFrequencyStep: 'dimensionless (Δf/f)', phaseStepSeconds: 's',
+  actuatorSteps: 'actuator resolution steps', 't': 's since the scenario epoch (elapsed SI seconds)', phaseSeconds: 's', sigmaSeconds: 's',
+  worstPredictedOffsetSeconds: 's', worstOffsetBoundSeconds: 's', probabilityInTolerance: 'dimensionless (probability)',
+  totalFrequencySteering: 'dimensionless', totalPhaseSteeringSeconds: 's', expectedCost: 'dimensionless',
+} as const;
 
 /** Nanoseconds with sign and 3 decimals (display only). */
 export function nsText(seconds: number): string {
@@ -173,12 +107,13 @@ export function planToText(scenario: SteeringScenario, method: string, plan: Ste
 export const planCommand: Command = {
   name: 'plan',
   summary: 'Plan clock-steering commands that keep an onboard clock inside its tolerance.',
-  usage: '<scenario.json> [--strategy deadband|optimal|none] [--leap-seconds <file>] [--json]',
+  usage: '<scenario.json> [--strategy deadband|optimal|none] [--leap-seconds <file>] [--json | --format table|json]',
   allowPositionals: true,
   flags: {
     strategy: { type: 'string', value: '<name>', description: 'Override the scenario\'s strategy: deadband, optimal (quantised LQ) or none.' },
     'leap-seconds': { type: 'string', value: '<file>', description: 'IERS/NIST leap-seconds.list to read UTC stamps with (default: the bundled table, valid until 2027-06-28).' },
-    json: { type: 'boolean', description: 'Print the plan as JSON (feasible, reason, commands, predicted, metrics, caution).' },
+    json: { type: 'boolean', description: 'Print the plan as JSON (feasible, reason, commands, predicted, metrics, units, caution); same as --format json.' },
+    format: formatFlagSpec(TABLE_OR_JSON),
   },
   details: `
 Scenario format: packages/sdk/schema/scenario.schema.json (JSON Schema); times ISO 8601 UTC, quantities SI.
@@ -192,12 +127,13 @@ Exit status: 0 feasible plan, 1 infeasible (the reason is printed), 2 unusable i
   async run(args, io) {
     if (args.positionals.length !== 1) throw new UsageError('give exactly one scenario file (see `tauline plan --help`)');
     const path = args.positionals[0]!;
+    const format = formatFlag(args, TABLE_OR_JSON, 'table');
     const strategy = strategyFlag(optionalFlag(args, 'strategy'), false) as SteeringMethod | undefined;
     const timeScales = await leapSecondsFlag(args);
     const scenario = await readScenarioFile(path);
     const plan = planSteering(scenario, { ...(strategy ? { strategy } : {}), ...(timeScales ? { timeScales } : {}) });
     const s = scenario as SteeringScenario;
-    if (args.values['json']) io.out(toJson(plan));
+    if (format === 'json') io.out(toJson({ ...plan, units: PLAN_UNITS }));
     else io.out(planToText(s, strategy ?? s.strategy.method, plan));
     return plan.feasible ? EXIT_OK : EXIT_FINDING;
   },

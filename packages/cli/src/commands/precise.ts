@@ -10,8 +10,9 @@ import {
 import { DEFAULT_LAGRANGE_POINTS, PreciseCorrectionStream, type PreciseCorrectionResult } from '@tauline/sdk/relativity';
 import { BUNDLED_LEAP_SECONDS, createTimeScales, type TimeScale, type TimeScales } from '@tauline/sdk/time';
 import {
-  EXIT_OK, UsageError, numberFlag, table, toJson, type Command,
+  EXIT_OK, TABLE_JSON_CSV, UsageError, formatFlagSpec, numberFlag, table, toJson, type Command,
 } from '../framework.js';
+import { requireRegularFile } from '../files.js';
 import {
   SYSTEM_SCALE, fileChunks, loadNavigation, outputFormat, progress, satelliteFlag, totalSize,
 } from './broadcast.js';
@@ -44,14 +45,15 @@ interface PreciseOut {
 export const preciseCommand: Command = {
   name: 'precise',
   summary: 'Relativistic correction −2 r·v/c² from an SP3 precise orbit file, optionally compared with broadcast values.',
-  usage: '<sp3-file> [--satellite G01,...] [--lagrange-points <n>] [--nav <rinex-nav-file>]... [--json|--csv]',
+  usage: '<sp3-file> [--satellite G01,...] [--lagrange-points <n>] [--nav <rinex-nav-file>]... [--json | --csv | --format table|json|csv]',
   allowPositionals: true,
   flags: {
     satellite: { type: 'string', value: '<ids>', description: 'Comma-separated satellites, e.g. G05,E11 (default: all in the file).' },
     'lagrange-points': { type: 'string', value: '<n>', description: `Lagrange nodes for velocities when the file has none, 2..16 (default ${DEFAULT_LAGRANGE_POINTS}: degree ${DEFAULT_LAGRANGE_POINTS - 1}).` },
     nav: { type: 'string', multiple: true, value: '<file>', description: 'RINEX navigation file(s) for the cross-check: adds the broadcast Δt_r and the difference.' },
-    json: { type: 'boolean', description: 'Print one JSON object.' },
+    json: { type: 'boolean', description: 'Print one JSON object (same as --format json).' },
     csv: { type: 'boolean', description: 'Print CSV rows (id,t,relativisticSeconds,velocitySource[,broadcastRelativisticSeconds,differenceSeconds]), streamed.' },
+    format: formatFlagSpec(TABLE_JSON_CSV),
   },
   details: `
 Reads an SP3-c or SP3-d file (streamed) and computes at each epoch Δt_r = −2 r·v/c² (IERS Conventions 2010 §10.2
@@ -62,7 +64,8 @@ ${DEFAULT_LAGRANGE_POINTS} nearest valid positions (centred; one-sided at the fi
 record valid at the same instant (converted to the system's own scale) and the difference precise − broadcast are
 added; the difference includes the share of the broadcast harmonic corrections in r·v (≈ 0.01 ns) and orbit errors.
 JSON: { timeSystem, coordinateFrame, agency, lagrangePoints, satellites: [{ id, samples: [{ t, relativisticSeconds,
-velocitySource, broadcastRelativisticSeconds?, differenceSeconds? }], gaps: [{ t, reason }] }] }.
+velocitySource, broadcastRelativisticSeconds?, differenceSeconds? }], gaps: [{ t, reason }] }], units }; t is in the
+file's time system, the corrections in SI seconds. A --satellite not listed in the file's header is refused.
 Exit status: 0 success, 2 invalid input or a malformed file.`,
   async run(args, io) {
     if (args.positionals.length !== 1) throw new UsageError('exactly one SP3 file is required (tauline precise <sp3-file>)');
@@ -74,12 +77,17 @@ Exit status: 0 success, 2 invalid input or a malformed file.`,
     const navValue = args.values['nav'];
     const navFiles = Array.isArray(navValue) ? navValue : typeof navValue === 'string' ? [navValue] : [];
     const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
+    await requireRegularFile(path, 'an SP3 file');
 
     const bar = progress(io, 'reading precise orbits', totalSize([path]));
     const events = readSp3(fileChunks(path, bar.add), { sourceName: path });
     const first = await events.next();
     if (first.done || first.value.kind !== 'header') throw new UsageError(`${path}: no SP3 header`);
     const header = first.value.header;
+    const unknown = filter ? [...filter].filter((id) => !header.satellites.includes(id)) : [];
+    if (unknown.length > 0) {
+      throw new InvalidArgumentError('--satellite', unknown.join(','), `satellites listed in the header of ${path}: ${header.satellites.join(', ')}`);
+    }
 
     let nav: Awaited<ReturnType<typeof loadNavigation>> | undefined;
     if (navFiles.length > 0) {
@@ -157,6 +165,10 @@ Exit status: 0 success, 2 invalid input or a malformed file.`,
         lagrangePoints: points,
         satellites: order.map((id) => ({ id, samples: bySat.get(id)!.samples, gaps: bySat.get(id)!.gaps })),
         ...(nav ? { navigationSkipped: [...nav.skipped].map(([reason, count]) => ({ reason, count })) } : {}),
+        units: {
+          epochInterval: 's', t: `ISO 8601 in the file's time system (${header.timeSystem})`, relativisticSeconds: 's',
+          ...(nav ? { broadcastRelativisticSeconds: 's', differenceSeconds: 's' } : {}),
+        },
       }));
       return EXIT_OK;
     }

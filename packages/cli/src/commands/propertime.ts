@@ -5,7 +5,11 @@
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import { GRAVITY_MODELS, type GravityModel } from '@tauline/sdk/orbit';
 import { integrateProperTime } from '@tauline/sdk/relativity';
-import { EXIT_OK, numberFlag, parseNumber, requireFlag, sig, table, toJson, optionalFlag, type Command } from '../framework.js';
+import type { ConstantSet } from '@tauline/sdk/constants';
+import {
+  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlagSpec, numberFlag, parseNumber, requireFlag, sig, table, toJson, optionalFlag,
+  type Command,
+} from '../framework.js';
 import { constantsFlag, withFlagNames } from './rate.js';
 
 /** Parses `x,y,z,vx,vy,vz` (metres, m/s). */
@@ -20,6 +24,25 @@ export function parseStateFlag(text: string): { position: [number, number, numbe
   return { position: [v[0]!, v[1]!, v[2]!], velocity: [v[3]!, v[4]!, v[5]!] };
 }
 
+/**
+ * Refuses an unbound state: specific orbital energy v²/2 − GM/r ≥ 0 (parabolic or hyperbolic
+ * escape, e.g. a velocity in the wrong unit). Orbital energy ε = v²/2 − GM/r = −GM/(2a), bound
+ * iff ε < 0 (N. Ashby, Living Rev. Relativity 6 (2003) §5, eq. 33). Point-mass energy; J2 changes
+ * it by ~1e-3 relative, far less than any escape margin that matters here.
+ */
+export function requireBoundState(state: { position: readonly number[]; velocity: readonly number[] }, constants: ConstantSet): void {
+  const [x, y, z] = state.position as [number, number, number];
+  const [vx, vy, vz] = state.velocity as [number, number, number];
+  const r = Math.hypot(x, y, z);
+  const v = Math.hypot(vx, vy, vz);
+  if (!(r > 0)) return; // the SDK names the position error
+  const escape = Math.sqrt((2 * constants.gm) / r);
+  if (v >= escape) {
+    throw new InvalidArgumentError('--state (|velocity|)', v, `below the escape speed √(2GM/r) = ${escape.toFixed(1)} m/s at r = ${r} m (a bound orbit)`,
+      v > 1e5 ? 'a speed this large looks like mm/s or cm/s; give m/s' : 'the state is parabolic or hyperbolic; check the velocity unit (m/s) and value');
+  }
+}
+
 function modelFlag(text: string | undefined): GravityModel {
   const m = (text ?? 'j2').toLowerCase();
   if ((GRAVITY_MODELS as readonly string[]).includes(m)) return m as GravityModel;
@@ -29,7 +52,7 @@ function modelFlag(text: string | undefined): GravityModel {
 export const propertimeCommand: Command = {
   name: 'propertime',
   summary: 'Integrate an orbit and its clock\'s proper time τ − TT (point mass, J2, or J2 + Sun/Moon).',
-  usage: '--state x,y,z,vx,vy,vz --duration <s> --step <s> [--model point-mass|j2|full] [--epoch-tt-j2000 <s>] [--constants <name>] [--tolerance <rtol>] [--json]',
+  usage: '--state x,y,z,vx,vy,vz --duration <s> --step <s> [--model point-mass|j2|full] [--epoch-tt-j2000 <s>] [--constants <name>] [--tolerance <rtol>] [--json | --format table|json]',
   flags: {
     state: { type: 'string', value: 'x,y,z,vx,vy,vz', description: 'Initial geocentric inertial state at t = 0, metres and m/s (z along the rotation axis). Use --state=-1.2e7,... when it starts with a minus sign.' },
     duration: { type: 'string', value: '<s>', description: 'Span to integrate, in seconds (> 0).' },
@@ -38,7 +61,8 @@ export const propertimeCommand: Command = {
     'epoch-tt-j2000': { type: 'string', value: '<s>', description: 'For --model full: TT epoch of t = 0 in seconds since J2000.0 (default 0).' },
     constants: { type: 'string', value: '<name>', description: 'Constant set: iers-2010 (default), gps-icd, galileo-icd, beidou-icd.' },
     tolerance: { type: 'string', value: '<rtol>', description: 'Integrator relative tolerance, in [1e-15, 1e-6] (default 1e-12).' },
-    json: { type: 'boolean', description: 'Print one JSON object instead of a table.' },
+    json: { type: 'boolean', description: 'Print one JSON object instead of a table (same as --format json).' },
+    format: formatFlagSpec(TABLE_OR_JSON),
   },
   details: `
 Integrates r̈ = ∇U and d(τ − TT)/dTT = L_G − (U + v²/2)/c² (IERS Conventions 2010 §10.2 eq. 10.9 form) with an
@@ -48,9 +72,11 @@ potential with Sun/Moon from the low-precision series of Montenbruck & Gill, Sat
 Accuracy: integration error < 1 ps/day at the default tolerance (LEO to GEO, e up to 0.16); model limits: see
 packages/sdk/packages/sdk/docs/relativity-models.md. τ − TT = 0 at t = 0; the samples are t = 0, step, 2·step, … and the duration.
 JSON fields: samples [{ t (s), tauMinusTT (s) }], model, constants, epochTtSecondsSinceJ2000, ephemeris,
-relativeTolerance, acceptedSteps, rejectedSteps, meanRate (τ − TT at the end divided by the duration).
+relativeTolerance, acceptedSteps, rejectedSteps, meanRate (τ − TT at the end divided by the duration), units.
+An unbound state (v ≥ √(2GM/r), e.g. a velocity in the wrong unit) is refused.
 Exit status: 0 success, 2 invalid input.`,
   run(args, io) {
+    const format = formatFlag(args, TABLE_OR_JSON, 'table');
     const state = parseStateFlag(requireFlag(args, 'state'));
     const duration = numberFlag(args, 'duration', true);
     const step = numberFlag(args, 'step', true);
@@ -58,6 +84,7 @@ Exit status: 0 success, 2 invalid input.`,
     const epoch = numberFlag(args, 'epoch-tt-j2000') ?? 0;
     const tolerance = numberFlag(args, 'tolerance');
     const constants = constantsFlag(args);
+    requireBoundState(state, constants);
     const result = withFlagNames({
       '|state.position|': '--state (|position|)', 'state.position[0]': '--state x', 'state.position[1]': '--state y',
       'state.position[2]': '--state z', 'state.velocity[0]': '--state vx', 'state.velocity[1]': '--state vy',
@@ -68,7 +95,7 @@ Exit status: 0 success, 2 invalid input.`,
     }));
     const n = result.t.length;
     const meanRate = result.tauMinusTT[n - 1]! / duration;
-    if (args.values['json']) {
+    if (format === 'json') {
       const samples = Array.from(result.t, (t: number, k: number) => ({ t, tauMinusTT: result.tauMinusTT[k]! }));
       io.out(toJson({
         samples,
@@ -80,6 +107,7 @@ Exit status: 0 success, 2 invalid input.`,
         acceptedSteps: result.acceptedSteps,
         rejectedSteps: result.rejectedSteps,
         meanRate,
+        units: { t: 's (since the start)', tauMinusTT: 's', epochTtSecondsSinceJ2000: 's (TT)', relativeTolerance: 'dimensionless', meanRate: 'dimensionless' },
       }));
       return EXIT_OK;
     }

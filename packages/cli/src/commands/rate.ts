@@ -7,7 +7,8 @@ import { InvalidArgumentError } from '@tauline/sdk/errors';
 import { meanClockRate, REFERENCE_CLOCKS, type ReferenceClock } from '@tauline/sdk/relativity';
 import { offsetFrequency } from '@tauline/sdk/oscillator';
 import {
-  EXIT_OK, FLIGHT_CAUTION, keyValueTable, numberFlag, optionalFlag, sig, toJson, type Command, type ParsedArgs,
+  EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, formatFlag, formatFlagSpec, keyValueTable, numberFlag, optionalFlag, sig, toJson,
+  type Command, type ParsedArgs,
 } from '../framework.js';
 
 /**
@@ -48,13 +49,14 @@ function signed(value: number, digits = 10): string {
 export const rateCommand: Command = {
   name: 'rate',
   summary: 'Mean relativistic rate of an orbiting clock and the factory offset that compensates it.',
-  usage: '--semi-major-axis <m> [--constants <name>] [--reference tt|tcg] [--nominal-frequency <Hz>] [--json]',
+  usage: '--semi-major-axis <m> [--constants <name>] [--reference tt|tcg] [--nominal-frequency <Hz>] [--json | --format table|json]',
   flags: {
     'semi-major-axis': { type: 'string', value: '<m>', description: 'Orbit semi-major axis a, in metres (e.g. 26561750 for GPS).' },
     constants: { type: 'string', value: '<name>', description: 'Constant set: iers-2010 (default), gps-icd, galileo-icd, beidou-icd.' },
     reference: { type: 'string', value: 'tt|tcg', description: 'Reference time scale: tt (clocks on the geoid, default) or tcg.' },
     'nominal-frequency': { type: 'string', value: '<Hz>', description: 'Nominal oscillator frequency f0, in Hz; adds the frequency to set on the ground.' },
-    json: { type: 'boolean', description: 'Print one JSON object instead of a table.' },
+    json: { type: 'boolean', description: 'Print one JSON object instead of a table (same as --format json).' },
+    format: formatFlagSpec(TABLE_OR_JSON),
   },
   details: `
 Rate = dτ/dt − 1 of the satellite clock against the reference; positive means it runs fast.
@@ -65,9 +67,11 @@ Source: IERS Conventions (2010) §10.2 eqs. 10.7 and 10.9, averaged over a Keple
 N. Ashby, Living Rev. Relativity 6 (2003) §5. Point-mass Earth: J2 adds ~1e-14, and individual satellites differ
 from the conventional value by up to 1e-13 (IERS 2010 §10.2). GPS check: a = 26561750 m → +4.4647e-10, 38.575 µs/day.
 JSON fields: semiMajorAxis (m), constants, reference, fractionalRate, gravitational, velocity, microsecondsPerDay,
-factoryOffset, and with --nominal-frequency: nominalFrequencyHz, offsetFrequencyHz, offsetHz; caution.
+factoryOffset, and with --nominal-frequency: nominalFrequencyHz, offsetFrequencyHz, offsetHz; units (unit of each
+field); caution.
 Exit status: 0 success, 2 invalid input.`,
   run(args, io) {
+    const format = formatFlag(args, TABLE_OR_JSON, 'table');
     const semiMajorAxis = numberFlag(args, 'semi-major-axis', true);
     const constants = constantsFlag(args);
     const reference = referenceFlag(args);
@@ -76,7 +80,7 @@ Exit status: 0 success, 2 invalid input.`,
       () => meanClockRate(semiMajorAxis, { constants, reference }));
     const shifted = nominal === undefined ? undefined
       : withFlagNames({ nominalFrequency: '--nominal-frequency' }, () => offsetFrequency(nominal, rate.factoryOffset));
-    if (args.values['json']) {
+    if (format === 'json') {
       io.out(toJson({
         semiMajorAxis: rate.semiMajorAxis,
         constants: rate.constants,
@@ -88,6 +92,11 @@ Exit status: 0 success, 2 invalid input.`,
         factoryOffset: rate.factoryOffset,
         ...(shifted && nominal !== undefined
           ? { nominalFrequencyHz: nominal, offsetFrequencyHz: shifted.offsetFrequencyHz, offsetHz: shifted.offsetHz } : {}),
+        units: {
+          semiMajorAxis: 'm', fractionalRate: 'dimensionless (dτ/dt − 1)', gravitational: 'dimensionless', velocity: 'dimensionless',
+          microsecondsPerDay: 'µs per day', factoryOffset: 'dimensionless (Δf/f)',
+          ...(shifted ? { nominalFrequencyHz: 'Hz', offsetFrequencyHz: 'Hz', offsetHz: 'Hz' } : {}),
+        },
         caution: FLIGHT_CAUTION,
       }));
       return EXIT_OK;

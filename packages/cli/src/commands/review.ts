@@ -2,34 +2,14 @@
  * `tauline review <file>`: checks the oscillator offsets configured for each spacecraft
  * against their planned orbits, before launch.
  */
-import { readFile, writeFile } from 'node:fs/promises';
+import { writeFile } from 'node:fs/promises';
 import { reviewOffsets, reviewToHtml, reviewToMarkdown, type ReviewReport } from '@tauline/sdk/review';
-import { ParseError } from '@tauline/sdk/errors';
 import {
-  EXIT_FINDING, EXIT_OK, UsageError, numberFlag, optionalFlag, table, toJson, type Command,
+  EXIT_FINDING, EXIT_OK, UsageError, formatFlag, formatFlagSpec, integerFlag, optionalFlag, seedFlag, table, toJson, type Command,
 } from '../framework.js';
+import { readJsonFile } from '../files.js';
 
 const FORMATS = ['table', 'json', 'md', 'html'] as const;
-type Format = (typeof FORMATS)[number];
-
-/** Reads and JSON-parses a file, turning a syntax error into a ParseError with line and column. */
-export async function readJsonFile(path: string): Promise<unknown> {
-  const text = await readFile(path, 'utf8');
-  try {
-    return JSON.parse(text);
-  } catch (error) {
-    const message = error instanceof Error ? error.message : String(error);
-    const position = /position (\d+)/.exec(message);
-    let line = 1, column: number | undefined;
-    if (position) {
-      const offset = Number(position[1]);
-      const before = text.slice(0, offset);
-      line = before.split('\n').length;
-      column = offset - before.lastIndexOf('\n');
-    }
-    throw new ParseError(path, line, column, 'valid JSON', message.replace(/^.*?: /, ''));
-  }
-}
 
 function e(x: number, digits = 4): string {
   return x.toExponential(digits - 1);
@@ -58,14 +38,14 @@ function tableReport(report: ReviewReport): string {
 export const reviewCommand: Command = {
   name: 'review',
   summary: 'Check configured oscillator offsets against planned orbits (launch review).',
-  usage: '<review.json> [--format table|json|md|html] [--output <file>] [--runs <n>] [--seed <n>]',
+  usage: '<review.json> [--format table|json|md|html | --json] [--output <file>] [--runs <n>] [--seed <n>]',
   allowPositionals: true,
   flags: {
-    format: { type: 'string', value: '<fmt>', description: 'table (default), json, md or html (html is one self-contained page).' },
+    format: { ...formatFlagSpec(FORMATS), description: 'Output format: table (default), json, md or html (html is one self-contained page).' },
     json: { type: 'boolean', description: 'Same as --format json.' },
     output: { type: 'string', value: '<file>', description: 'Write the report to this file instead of standard output.' },
-    runs: { type: 'string', value: '<n>', description: 'Monte Carlo draws over the injection dispersion (default 20000).' },
-    seed: { type: 'string', value: '<n>', description: 'Seed of the Monte Carlo (default 1), for reproducible reports.' },
+    runs: { type: 'string', value: '<n>', description: 'Monte Carlo draws over the injection dispersion, 100 … 10000000 (default 20000).' },
+    seed: { type: 'string', value: '<n>', description: 'Seed of the Monte Carlo, 0 … 4294967295 (default 1), for reproducible reports.' },
   },
   details: `
 Expected factory offset: 1/(1 + r) − 1 with r = L_G − 3GM/(2ac²) against TT (or −3GM/(2ac²) against TCG),
@@ -77,14 +57,10 @@ Exit status: 0 all pass, 1 some fail or marginal, 2 the input could not be read.
   async run(args, io) {
     if (args.positionals.length !== 1) throw new UsageError('give exactly one review file (see `tauline review --help`)');
     const path = args.positionals[0]!;
-    const formatText = args.values['json'] ? 'json' : (optionalFlag(args, 'format') ?? 'table');
-    if (!(FORMATS as readonly string[]).includes(formatText)) throw new UsageError(`--format must be one of ${FORMATS.join(', ')}; received ${JSON.stringify(formatText)}`);
-    const format = formatText as Format;
-    const runs = numberFlag(args, 'runs');
-    if (runs !== undefined && (!Number.isInteger(runs) || runs < 100 || runs > 10_000_000)) throw new UsageError(`--runs must be an integer in [100, 10000000]; received ${runs}`);
-    const seed = numberFlag(args, 'seed');
-    if (seed !== undefined && !Number.isSafeInteger(seed)) throw new UsageError(`--seed must be an integer; received ${seed}`);
-    const document = await readJsonFile(path);
+    const format = formatFlag(args, FORMATS, 'table');
+    const runs = integerFlag(args, 'runs', 100, 10_000_000, 'Monte Carlo draws');
+    const seed = seedFlag(args);
+    const document = await readJsonFile(path, 'a review file');
     let report: ReviewReport;
     try {
       report = reviewOffsets(document, { ...(runs !== undefined ? { monteCarloRuns: runs } : {}), ...(seed !== undefined ? { seed } : {}) });

@@ -3,12 +3,17 @@
  * simulated clock noise and reports time in tolerance, worst excursion and command count.
  */
 import { planSteering, simulatePlan, type SteeringMethod, type SteeringScenario } from '@tauline/sdk/steering';
-import { InvalidArgumentError } from '@tauline/sdk/errors';
-import { EXIT_OK, UsageError, numberFlag, optionalFlag, table, toJson, type Command, type Io } from '../framework.js';
+import {
+  EXIT_OK, TABLE_OR_JSON, UsageError, formatFlag, formatFlagSpec, integerFlag, optionalFlag, requireFlag, seedFlag, table, toJson,
+  type Command, type Io,
+} from '../framework.js';
 import { LEAP_SECONDS_HELP, leapSecondsFlag, nsText, readScenarioFile, strategyFlag } from './plan.js';
 
 /** Simulated (run × grid-epoch) steps above which a progress bar is shown on a terminal. */
 export const PROGRESS_THRESHOLD = 200_000;
+
+/** The caution printed under the table and carried in the JSON. */
+export const SIMULATION_CAUTION = 'Caution: plans are open-loop from the epoch estimate; verify any schedule against the mission\'s own interface specification and have it confirmed by its responsible engineering authority before uplink.';
 
 /** A one-line progress bar on stderr, redrawn in place; only for terminals. */
 function progressBar(io: Io, label: string): { update: (done: number, total: number) => void; finish: () => void } {
@@ -30,14 +35,15 @@ function progressBar(io: Io, label: string): { update: (done: number, total: num
 export const simulateCommand: Command = {
   name: 'simulate',
   summary: 'Monte Carlo of steering plans against simulated clock noise, per strategy.',
-  usage: '<scenario.json> --runs <n> [--seed <n>] [--strategy deadband|optimal|none|all] [--leap-seconds <file>] [--json]',
+  usage: '<scenario.json> --runs <n> [--seed <n>] [--strategy deadband|optimal|none|all] [--leap-seconds <file>] [--json | --format table|json]',
   allowPositionals: true,
   flags: {
     runs: { type: 'string', value: '<n>', description: 'Number of simulated clocks per strategy (1 … 1000000).' },
-    seed: { type: 'string', value: '<n>', description: 'Seed of the random generator (default 1); same seed, same numbers.' },
+    seed: { type: 'string', value: '<n>', description: 'Seed of the random generator, 0 … 4294967295 (default 1); same seed, same numbers.' },
     strategy: { type: 'string', value: '<name>', description: 'deadband, optimal, none, or all (default all).' },
     'leap-seconds': { type: 'string', value: '<file>', description: 'IERS/NIST leap-seconds.list to read UTC stamps with (default: the bundled table, valid until 2027-06-28).' },
-    json: { type: 'boolean', description: 'Print the results as JSON.' },
+    json: { type: 'boolean', description: 'Print the results as JSON (same as --format json).' },
+    format: formatFlagSpec(TABLE_OR_JSON),
   },
   details: `
 Each run draws the epoch state from the scenario's mean and covariance and adds the exact discrete
@@ -45,12 +51,16 @@ Each run draws the epoch state from the scenario's mean and covariance and adds 
 commands and the manoeuvre rate changes are applied at their epochs. Offsets are checked on the grid.
 time in tolerance: fraction of (run, epoch) pairs inside; whole horizon: fraction of runs never outside;
 min epoch: the smallest per-epoch fraction (compare with the plan's probability).
-${LEAP_SECONDS_HELP}`,
+JSON: { scenario, results: [{ strategy, feasible, expectedCost, runs, seed, commandCount, timeInTolerance,
+wholeHorizonProbability, minEpochProbability, worstExcursionSeconds (s), worstExcursionP95Seconds (s) }], units, caution }.
+${LEAP_SECONDS_HELP}
+Exit status: 0 success, 2 unusable input.`,
   async run(args, io) {
     if (args.positionals.length !== 1) throw new UsageError('give exactly one scenario file (see `tauline simulate --help`)');
-    const runs = numberFlag(args, 'runs', true);
-    if (!Number.isInteger(runs) || runs < 1 || runs > 1_000_000) throw new InvalidArgumentError('--runs', runs, 'an integer in [1, 1000000]');
-    const seed = numberFlag(args, 'seed') ?? 1;
+    const format = formatFlag(args, TABLE_OR_JSON, 'table');
+    requireFlag(args, 'runs');
+    const runs = integerFlag(args, 'runs', 1, 1_000_000, 'simulated clocks per strategy')!;
+    const seed = seedFlag(args) ?? 1;
     const choice = strategyFlag(optionalFlag(args, 'strategy'), true) ?? 'all';
     const timeScales = await leapSecondsFlag(args);
     const scenario = await readScenarioFile(args.positionals[0]!);
@@ -64,8 +74,16 @@ ${LEAP_SECONDS_HELP}`,
       bar?.finish();
       results.push({ strategy: method, feasible: plan.feasible, expectedCost: plan.metrics.expectedCost, ...summary });
     }
-    if (args.values['json']) {
-      io.out(toJson({ scenario: (scenario as SteeringScenario).name ?? null, results }));
+    if (format === 'json') {
+      io.out(toJson({
+        scenario: (scenario as SteeringScenario).name ?? null,
+        results,
+        units: {
+          expectedCost: 'dimensionless', timeInTolerance: 'dimensionless (fraction)', wholeHorizonProbability: 'dimensionless (fraction)',
+          minEpochProbability: 'dimensionless (fraction)', worstExcursionSeconds: 's', worstExcursionP95Seconds: 's',
+        },
+        caution: SIMULATION_CAUTION,
+      }));
       return EXIT_OK;
     }
     const s = scenario as SteeringScenario;
@@ -73,7 +91,7 @@ ${LEAP_SECONDS_HELP}`,
     io.out(table(['strategy', 'plan feasible', 'commands', 'time in tolerance', 'whole horizon', 'min epoch', 'worst excursion', '95 % worst', 'expected cost J'],
       results.map((r) => [r.strategy, r.feasible ? 'yes' : 'no', r.commandCount, r.timeInTolerance.toFixed(4), r.wholeHorizonProbability.toFixed(4),
         r.minEpochProbability.toFixed(4), nsText(r.worstExcursionSeconds), nsText(r.worstExcursionP95Seconds), r.expectedCost.toFixed(5)])));
-    io.out('\nPlans are open-loop from the epoch estimate; verify any schedule against the mission\'s interface specification and its responsible engineering authority before uplink.\n');
+    io.out(`\n${SIMULATION_CAUTION}\n`);
     return EXIT_OK;
   },
 };

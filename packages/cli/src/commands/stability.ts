@@ -7,7 +7,34 @@ import { readPhaseText, readRinexClock, rinexClockSeries, type SampleGap } from 
 import {
   analyzeStability, DEFAULT_STATISTICS, STATISTIC_NAMES, type NoiseType, type StabilityData, type StatisticName,
 } from '@tauline/sdk/stability';
-import { EXIT_OK, optionalFlag, parseNumber, sig, table, toJson, UsageError, type Command, type ParsedArgs } from '../framework.js';
+import { InvalidArgumentError } from '@tauline/sdk/errors';
+import {
+  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlagSpec, optionalFlag, parseNumber, sig, table, toJson, UsageError, type Command,
+  type ParsedArgs,
+} from '../framework.js';
+import { requireRegularFile } from '../files.js';
+
+/** Fewest phase points any statistic here can use (one second difference needs 3; the edf models need 4). */
+export const MIN_PHASE_POINTS = 4;
+
+/**
+ * Runs the analysis, renaming the SDK's argument paths to the flags they came from
+ * (`data.tau0` → `--tau0`, `taus[2]` → `--taus`, `options.confidence` → `--confidence`).
+ */
+function withStabilityFlagNames<T>(body: () => T): T {
+  try {
+    return body();
+  } catch (error) {
+    if (error instanceof InvalidArgumentError) {
+      const arg = error.argument;
+      const flag = /^(data\.)?tau0$/.test(arg) ? '--tau0' : /^(options\.)?taus(\[\d+\])?$/.test(arg) ? '--taus'
+        : /^(options\.)?confidence$/.test(arg) ? '--confidence' : /^(options\.)?noise$/.test(arg) ? '--noise'
+          : /^(options\.)?statistics$/.test(arg) ? '--statistics' : undefined;
+      if (flag) throw new InvalidArgumentError(flag, error.received, error.expected, error.hint);
+    }
+    throw error;
+  }
+}
 
 const NOISES: readonly NoiseType[] = ['WPM', 'FPM', 'WFM', 'FFM', 'RWFM'];
 
@@ -37,6 +64,7 @@ async function loadInput(args: ParsedArgs, tau0Flag: number | undefined): Promis
   if (rinexFile !== undefined) {
     const clock = optionalFlag(args, 'clock');
     if (clock === undefined) throw new UsageError('--rinex-clock needs --clock <name> (satellite such as G05, or station name)');
+    await requireRegularFile(rinexFile, 'a RINEX clock file');
     const file = await readRinexClock(createReadStream(rinexFile, { encoding: 'utf8' }), rinexFile);
     const series = rinexClockSeries(file, clock, tau0Flag === undefined ? {} : { tau0: tau0Flag });
     if (series.tau0 === undefined) throw new UsageError(`clock ${clock} has a single epoch; give --tau0 <s> or a longer file`);
@@ -44,6 +72,7 @@ async function loadInput(args: ParsedArgs, tau0Flag: number | undefined): Promis
   }
   const file = (phaseFile ?? frequencyFile)!;
   const kind = phaseFile !== undefined ? 'phase' : 'frequency';
+  await requireRegularFile(file, `a ${kind} record (text, one or two columns)`);
   const series = await readPhaseText(createReadStream(file, { encoding: 'utf8' }), { sourceName: file, ...(tau0Flag === undefined ? {} : { tau0: tau0Flag }) });
   const tau0 = series.tau0;
   if (tau0 === undefined) throw new UsageError(`${file} has one column; give the sample spacing with --tau0 <s>`);
@@ -58,7 +87,7 @@ function formatDeviation(stat: StatisticName, v: number): string {
 export const stabilityCommand: Command = {
   name: 'stability',
   summary: 'Allan, modified Allan, time, Hadamard and total deviations with confidence intervals and noise type per τ.',
-  usage: '(--phase <file> | --frequency <file> | --rinex-clock <file> --clock <name>) [--tau0 <s>] [--statistics oadev,mdev,...] [--taus <s,...>] [--noise <type>] [--confidence <p>] [--json]',
+  usage: '(--phase <file> | --frequency <file> | --rinex-clock <file> --clock <name>) [--tau0 <s>] [--statistics oadev,mdev,...] [--taus <s,...>] [--noise <type>] [--confidence <p>] [--json | --format table|json]',
   flags: {
     phase: { type: 'string', value: '<file>', description: 'Phase (time error) record: one value in seconds per line, or two columns time (s), phase (s); # comments.' },
     frequency: { type: 'string', value: '<file>', description: 'Fractional-frequency record (dimensionless), same layout as --phase.' },
@@ -69,7 +98,8 @@ export const stabilityCommand: Command = {
     taus: { type: 'string', value: '<s,...>', description: 'Averaging times in seconds, each a whole multiple of τ0 (default octaves τ0·2^k).' },
     noise: { type: 'string', value: '<type>', description: 'State the noise type for the intervals (WPM, FPM, WFM, FFM, RWFM) instead of identifying it per τ.' },
     confidence: { type: 'string', value: '<p>', description: 'Two-sided confidence level of the intervals, in (0, 1) (default 0.6827 = ±1σ).' },
-    json: { type: 'boolean', description: 'Print one JSON object instead of a table.' },
+    json: { type: 'boolean', description: 'Print one JSON object instead of a table (same as --format json).' },
+    format: formatFlagSpec(TABLE_OR_JSON),
   },
   details: `
 Statistics (NIST SP 1065, W. J. Riley 2008, §5.2), τ = m·τ0, x phase in s:
@@ -85,10 +115,13 @@ formulas; adev, mdev, tdev, hdev, ohdev exact Gaussian edf for the noise type; t
 Noise type per τ: lag-1 autocorrelation method (Riley & Greenhall, EFTF 2004), unless --noise is given.
 JSON: { input: { kind, file, samples, phasePoints, missing, gaps[], tau0 }, confidence, statistics,
 rows: [ { tau, m, noise, alpha, noiseSource, <stat>, <stat>Low, <stat>High, <stat>N, <stat>Edf,
-<stat>EdfModel } ], droppedTaus }. A statistic without terms at a τ is null in that row.
+<stat>EdfModel } ], droppedTaus, units }. A statistic without terms at a τ is null in that row.
 Deviations are dimensionless fractional frequency; tdev and tau are in seconds.
+A record needs at least ${MIN_PHASE_POINTS} phase points (${MIN_PHASE_POINTS - 1} frequency values); a request in which no τ has a complete
+term (e.g. --taus longer than half the record) is refused.
 Exit status: 0 success, 2 unusable input.`,
   async run(args, io) {
+    const format = formatFlag(args, TABLE_OR_JSON, 'table');
     const tau0Text = optionalFlag(args, 'tau0');
     const tau0 = tau0Text === undefined ? undefined : parseNumber('--tau0', tau0Text);
     const statistics = (listFlag(args, 'statistics') ?? [...DEFAULT_STATISTICS]).map((s) => s.toLowerCase());
@@ -101,17 +134,35 @@ Exit status: 0 success, 2 unusable input.`,
     if (noise !== undefined && !NOISES.includes(noise)) throw new UsageError(`--noise must be one of ${NOISES.join(', ')}; received ${JSON.stringify(noiseText)}`);
     const confidenceText = optionalFlag(args, 'confidence');
     const confidence = confidenceText === undefined ? undefined : parseNumber('--confidence', confidenceText);
+    if (confidence !== undefined && !(confidence > 0 && confidence < 1)) {
+      throw new InvalidArgumentError('--confidence', confidence, 'in (0, 1), e.g. 0.6827 or 0.95', confidence >= 1 && confidence < 100 ? 'a fraction, not a percentage' : undefined);
+    }
 
     const input = await loadInput(args, tau0);
-    const analysis = analyzeStability(input.data, {
+    const values = 'phase' in input.data ? input.data.phase : input.data.frequency;
+    const phasePoints = values.length + (input.kind === 'frequency' ? 1 : 0);
+    if (phasePoints < MIN_PHASE_POINTS) {
+      const flag = input.clock !== undefined ? '--rinex-clock' : `--${input.kind}`;
+      throw new InvalidArgumentError(flag, input.source,
+        `a record of at least ${MIN_PHASE_POINTS} phase points (${MIN_PHASE_POINTS - 1} frequency values)`, `it has ${values.length} sample(s)`);
+    }
+    const analysis = withStabilityFlagNames(() => analyzeStability(input.data, {
       statistics: statistics as StatisticName[],
       ...(taus ? { taus } : {}),
       ...(noise ? { noise } : {}),
       ...(confidence !== undefined ? { confidence } : {}),
-    });
+    }));
     const stats = analysis.statistics;
+    if (analysis.rows.length === 0) {
+      const n = analysis.input.phasePoints;
+      const longest = Math.floor((n - 1) / 2) * analysis.input.tau0;
+      throw new InvalidArgumentError(taus ? '--taus' : input.clock !== undefined ? '--rinex-clock' : `--${input.kind}`,
+        taus ? taus.join(',') : input.source, 'a request in which at least one τ has a complete (gap-free) term',
+        `the record has ${n} phase points, ${analysis.input.missing} missing in ${input.gaps.length} gap(s); ` +
+        `without gaps oadev reaches τ = ⌊(N − 1)/2⌋·τ0 = ${sig(longest)} s; dropped τ: ${analysis.droppedTaus.map((t) => sig(t)).join(', ')} s`);
+    }
 
-    if (args.values['json']) {
+    if (format === 'json') {
       const rows = analysis.rows.map((r) => {
         const row: Record<string, unknown> = { tau: r.tau, m: r.m, noise: r.noise, alpha: r.alpha, noiseSource: r.noiseSource };
         for (const s of stats) {
@@ -135,6 +186,10 @@ Exit status: 0 success, 2 unusable input.`,
         statistics: stats,
         rows,
         droppedTaus: analysis.droppedTaus,
+        units: {
+          tau: 's', tau0: 's', droppedTaus: 's', tdev: 's', tdevLow: 's', tdevHigh: 's', confidence: 'dimensionless (probability)',
+          deviations: 'dimensionless (fractional frequency) for every statistic except tdev',
+        },
       }));
       return EXIT_OK;
     }
