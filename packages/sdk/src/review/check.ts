@@ -261,11 +261,17 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
           : `In orbit, steering could not absorb this error: ${fmt(difference, 3)} exceeds the steering range ±${fmt(actuator.rangeFractional, 3)}.` });
     }
 
+    const withinTolerance = Math.abs(difference) <= tolerance;
+    const failedBy = diagnosis.filter((d) => d.matches && (d.code === 'actuator-range' || d.code === 'quantisation')).map((d) => d.code);
     const summary = verdict === 'pass'
       ? `configured offset within ${fmt(Math.abs(difference), 2)} of the expected ${fmt(expected)} (tolerance ${fmt(tolerance, 2)})`
       : verdict === 'marginal'
-        ? `within tolerance but with little margin: difference ${fmt(difference, 3)} against tolerance ${fmt(tolerance, 2)}`
-        : `configured ${fmt(configured)} differs from the expected ${fmt(expected)} by ${fmt(difference, 3)}`;
+        ? (withinTolerance && Math.abs(difference) <= marginalFraction * tolerance
+          ? `within tolerance (difference ${fmt(difference, 3)}), but the kind of semi-major axis is not stated and J2 makes that matter at this tolerance`
+          : `within tolerance but with little margin: difference ${fmt(difference, 3)} against tolerance ${fmt(tolerance, 2)}`)
+        : withinTolerance
+          ? `the offset is within tolerance (difference ${fmt(difference, 3)}), but the configuration fails on ${failedBy.join(' and ')}`
+          : `configured ${fmt(configured)} differs from the expected ${fmt(expected)} by ${fmt(difference, 3)}`;
 
     return {
       id: sc.id, verdict, constants: set.name, reference, nominalFrequencyHz: nominal, semiMajorAxis: sc.orbit.semiMajorAxis,

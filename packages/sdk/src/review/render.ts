@@ -117,7 +117,7 @@ export function reviewToHtml(report: ReviewReport, actuatorRanges: Readonly<Reco
     `<td>${e(s.expectedFractionalOffset, 6)}</td><td>${e(s.configuredFractionalOffset, 6)}</td><td>${e(s.differenceFractional, 3)}</td><td>${f(s.differenceNanosecondsPerDay, 3)}</td><td>${e(s.toleranceFractional, 2)}</td></tr>`).join('');
   const sections = report.spacecraft.map((s) => {
     const diag = s.diagnosis.length === 0 ? '<p>No findings.</p>' : `<table><caption>Findings</caption><thead><tr><th scope="col">code</th><th scope="col">would have produced</th><th scope="col">explanation</th></tr></thead><tbody>${
-      s.diagnosis.map((d) => `<tr><td><code>${d.code}</code>${d.matches ? '' : ' <small>(note)</small>'}</td><td>${e(d.wouldHaveProduced, 6)}</td><td>${esc(d.message)}</td></tr>`).join('')}</tbody></table>`;
+      s.diagnosis.map((d) => `<tr><td><code>${d.code}</code>${d.matches ? '' : ' <small>(note)</small>'}</td><td>${e(d.wouldHaveProduced, 6)}</td><td class="text">${esc(d.message)}</td></tr>`).join('')}</tbody></table>`;
     const disp = s.dispersion ? `<h3>Injection dispersion (σa = ${s.dispersion.semiMajorAxisSigma} m)</h3>${dispersionSvg(s, actuatorRanges[s.id] ?? null)}
 <table><caption>Monte Carlo over the dispersion: ${s.dispersion.monteCarlo.runs} draws, seed ${s.dispersion.monteCarlo.seed}</caption><thead><tr><th scope="col">percentile</th><th scope="col">a (m)</th><th scope="col">residual rate</th><th scope="col">days to phase tolerance</th></tr></thead><tbody>${
       s.dispersion.monteCarlo.percentiles.map((p) => `<tr><td>${p.percentile}</td><td>${p.semiMajorAxis.toFixed(1)}</td><td>${e(p.residualFractionalRate, 4)}</td><td>${f(p.daysToPhaseTolerance, 2)}</td></tr>`).join('')}</tbody></table>` : '';
@@ -134,7 +134,7 @@ body{font:14px/1.45 system-ui,sans-serif;margin:2rem auto;max-width:60rem;color:
 h1{font-size:1.5rem;margin-bottom:.25rem}h2{border-top:2px solid #1d232b;padding-top:.75rem;margin-top:2rem}
 .caution{border:2px solid #8a5a00;background:#fff8e6;padding:.5rem .75rem;font-weight:600}
 table{border-collapse:collapse;margin:.75rem 0;width:100%}th,td{border:1px solid #b9c0c8;padding:.25rem .5rem;text-align:right}
-th[scope=row],td:first-child,caption{text-align:left}caption{font-weight:600;padding:.25rem 0}
+th[scope=row],td:first-child,caption{text-align:left}td.text{text-align:left}caption{font-weight:600;padding:.25rem 0}
 .verdict{font-weight:700;padding:0 .4rem;border:2px solid currentColor;border-radius:3px}
 .verdict.pass{color:#17663a}.verdict.pass::before{content:"✔ "}.verdict.marginal{color:#8a5a00}.verdict.marginal::before{content:"▲ "}
 .verdict.fail{color:#a3162b}.verdict.fail::before{content:"✖ "}

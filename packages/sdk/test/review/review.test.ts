@@ -43,6 +43,7 @@ describe('reviewOffsets(document) on the bundled examples', () => {
     expect(byId['KESTREL-G1']!.diagnosis.find((d) => d.code === 'copied-from-spacecraft')!.message).toMatch(/KESTREL-11, KESTREL-12/);
     expect(byId['KESTREL-14']!.diagnosis.find((d) => d.code === 'actuator-range')!.message).toMatch(/could absorb/);
     expect(byId['KESTREL-19']!.verdict).toBe('marginal');
+    expect(byId['KESTREL-18']!.summary).toMatch(/within tolerance .* fails on actuator-range/);
     for (const id of ['KESTREL-11', 'KESTREL-12', 'KESTREL-13', 'KESTREL-14', 'KESTREL-15', 'KESTREL-G1', 'KESTREL-16', 'KESTREL-17', 'KESTREL-18']) {
       expect(byId[id]!.verdict, id).toBe('fail');
     }
