@@ -2,7 +2,7 @@ import { fixture, html, expect, oneEvent } from '@open-wc/testing';
 import { sendKeys } from '@web/test-runner-commands';
 import '../src/steering-schedule/steering-schedule.define.js';
 import type { TaulineSteeringSchedule } from '../src/steering-schedule/steering-schedule.js';
-import { readPlan } from '../src/steering-schedule/plan-data.js';
+import { chartTimeToUtcMs, elapsedSecondsBetween, readPlan, utcStampMs } from '../src/steering-schedule/plan-data.js';
 import { captureWarnings, makePlan, makeScenario } from './fixtures.js';
 
 type Internals = {
@@ -263,5 +263,75 @@ describe('tauline-steering-schedule', () => {
     await el.updateComplete;
     expect(shadow(el).querySelector('.badge')!.textContent).to.contain('✕ not feasible');
     expect(shadow(el).querySelector('[role="note"]')!.textContent).to.contain('actuator range');
+  });
+});
+
+// Leap second at the end of 2016-12-31 (TAI − UTC 36 s → 37 s from 2017-01-01; IERS Bulletin C 52 [M],
+// the same step as in the SDK's bundled table). A plan spanning it: elapsed SI seconds count it.
+describe('tauline-steering-schedule across a leap second', () => {
+  const epoch = '2016-12-31T12:00:00Z';
+  function leapPlan() {
+    const n = 97;
+    const t = Float64Array.from({ length: n }, (_, i) => i * 900); // 24 h on a 15 min grid, elapsed SI seconds
+    const phase = Float64Array.from(t, (s) => 1e-9 + 1e-14 * s);
+    return {
+      feasible: true,
+      commands: [
+        { uplinkAt: '2016-12-31T20:00:00Z', executeAt: '2017-01-01T06:00:00Z', kind: 'frequency', fractionalFrequencyStep: -1e-13, actuatorSteps: -10, reason: 'after the leap second' },
+        { uplinkAt: '2016-12-31T20:00:00Z', executeAt: '2016-12-31T23:59:60Z', kind: 'phase', phaseStepSeconds: 1e-9, actuatorSteps: 10, reason: 'inside the leap second' },
+        { uplinkAt: '2016-12-31T20:00:00Z', executeAt: '2016-12-31T23:59:59Z', kind: 'phase', phaseStepSeconds: 1e-9, actuatorSteps: 10, reason: 'before it' },
+      ],
+      predicted: { t, steered: { phaseSeconds: phase, sigmaSeconds: phase }, unsteered: { phaseSeconds: phase, sigmaSeconds: phase } },
+      metrics: { commandCount: 3 },
+    };
+  }
+  const scenario = {
+    epoch, horizonSeconds: 86_401, tolerance: { phaseSeconds: 5e-9, probability: 0.95 },
+    contacts: [{ start: '2016-12-31T23:59:30Z', end: '2017-01-01T00:00:30Z' }],
+    maneuvers: [],
+  };
+
+  it('utcStampMs(text) reads 23:59:60 as the 86 400th second of its day, where Date.parse gives NaN', () => {
+    expect(Number.isNaN(Date.parse('2016-12-31T23:59:60Z'))).to.equal(true);
+    expect(utcStampMs('2016-12-31T23:59:60Z')).to.equal(Date.UTC(2017, 0, 1));
+    expect(utcStampMs('2016-12-31T23:59:60.5Z')).to.equal(Date.UTC(2017, 0, 1) + 500);
+    expect(utcStampMs('2017-01-01T01:00:00+01:00')).to.equal(Date.UTC(2017, 0, 1));
+    for (const bad of ['2016-12-31T23:58:60Z', '2016-13-01T00:00:00Z', '2017-02-29T00:00:00Z', '2016-12-31T23:59:59', 'noon']) {
+      expect(Number.isNaN(utcStampMs(bad)), bad).to.equal(true);
+    }
+  });
+
+  it('elapsedSecondsBetween(epoch, stamp) counts the leap second (43 200 s to 23:59:60, 43 201 s to midnight), and falls back to the leap-free count outside the bundled table', () => {
+    expect(elapsedSecondsBetween(epoch, '2016-12-31T23:59:59Z')).to.equal(43_199);
+    expect(elapsedSecondsBetween(epoch, '2016-12-31T23:59:60Z')).to.equal(43_200);
+    expect(elapsedSecondsBetween(epoch, '2017-01-01T00:00:00Z')).to.equal(43_201);
+    expect(elapsedSecondsBetween(epoch, '2017-01-01T06:00:00Z')).to.equal(64_801);
+    // 2031 lies after the bundled table's expiry: leap-free count, no NaN.
+    expect(elapsedSecondsBetween('2031-04-02T00:00:00Z', '2031-04-02T01:00:00Z')).to.equal(3600);
+    expect(Number.isNaN(elapsedSecondsBetween(epoch, 'noon'))).to.equal(true);
+  });
+
+  it('readPlan(plan, scenario) places commands at elapsed SI seconds across the leap second, none dropped', () => {
+    const r = readPlan(leapPlan(), scenario);
+    expect(r.ok).to.equal(true);
+    if (!r.ok) return;
+    expect(r.view.problems).to.deep.equal([]);
+    expect(r.view.commands.map((c) => c.executeAt)).to.deep.equal([43_199, 43_200, 64_801]);
+    expect(r.view.contacts).to.deep.equal([{ start: 43_170, end: 43_231 }]);
+    expect(r.view.leapSeconds).to.deep.equal([{ end: 43_201, step: 1 }]);
+    // Labels: 06:00:00 UTC after the leap second, not 06:00:01.
+    expect(chartTimeToUtcMs(r.view, 64_801)).to.equal(Date.UTC(2017, 0, 1, 6));
+    expect(chartTimeToUtcMs(r.view, 43_199)).to.equal(Date.UTC(2016, 11, 31, 23, 59, 59));
+  });
+
+  it('<tauline-steering-schedule> shows the command after the leap second at 06:00:00 UTC in its table', async () => {
+    const el = await fixture<TaulineSteeringSchedule>(html`<tauline-steering-schedule style="width: 760px"></tauline-steering-schedule>`);
+    el.plan = leapPlan();
+    el.scenario = scenario;
+    await el.updateComplete;
+    const rows = [...shadow(el).querySelectorAll('tbody tr')];
+    expect(rows.length).to.equal(3);
+    const cells = [...rows[2]!.querySelectorAll('td')].map((td) => td.textContent!.trim());
+    expect(cells[0]).to.equal('2017-01-01 06:00:00 UTC');
   });
 });

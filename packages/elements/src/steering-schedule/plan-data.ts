@@ -5,6 +5,7 @@
  *
  * @module
  */
+import { BUNDLED_LEAP_SECONDS, createTimeScales, type TimeScales } from '@tauline/sdk/time';
 
 /** A steering command as the element uses it (times in seconds since the scenario epoch). */
 export interface SteeringCommandView {
@@ -26,7 +27,13 @@ export interface SteeringCommandView {
 
 /** Everything the chart draws, in seconds since `epochMs`. */
 export interface PlanView {
+  /** The scenario epoch as milliseconds of the leap-free UTC count (`Date` milliseconds), for labels. */
   epochMs: number;
+  /**
+   * Chart times (elapsed SI seconds since the epoch) at which a leap second inside the plotted
+   * span ends, with its sign (+1 inserted, −1 removed); used by {@link chartTimeToUtcMs}.
+   */
+  leapSeconds: Array<{ end: number; step: number }>;
   feasible: boolean;
   reason: string | null;
   t: Float64Array;
@@ -70,11 +77,80 @@ function readSeries(v: unknown): { phase: Float64Array | null; sigma: Float64Arr
   return { phase, sigma };
 }
 
-function parseTime(v: unknown, epochMs: number): number {
+let timeScales: TimeScales | undefined;
+/** The SDK time scales with the bundled leap-second table, built on first use. */
+function scales(): TimeScales {
+  return (timeScales ??= createTimeScales(BUNDLED_LEAP_SECONDS));
+}
+
+const STAMP = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2}):(\d{2})(\.\d+)?(Z|[+-]\d{2}:\d{2})$/;
+
+/**
+ * Milliseconds of the leap-free UTC count (the `Date` count) of an ISO 8601 stamp with a zone,
+ * read field by field: `23:59:60` is the 86 400th second of its day (the same count as the next
+ * midnight), which `Date.parse` refuses. NaN for text that is not such a stamp or has a field
+ * out of range. Common practice, no source (ISO 8601 allows second 60 only in a leap second).
+ */
+export function utcStampMs(text: string): number {
+  const m = STAMP.exec(text);
+  if (!m) return Number.NaN;
+  const [y, mo, d, h, mi, s] = [m[1], m[2], m[3], m[4], m[5], m[6]].map(Number) as [number, number, number, number, number, number];
+  if (mo < 1 || mo > 12 || d < 1 || d > new Date(Date.UTC(y, mo, 0)).getUTCDate() || h > 23 || mi > 59 || s > 60) return Number.NaN;
+  if (s === 60 && (h !== 23 || mi !== 59) && m[8] === 'Z') return Number.NaN;
+  const zone = m[8] === 'Z' ? 0 : (m[8]!.startsWith('-') ? -1 : 1) * (Number(m[8]!.slice(1, 3)) * 60 + Number(m[8]!.slice(4, 6)));
+  const fraction = m[7] ? Number(m[7]) : 0;
+  return Date.UTC(y, mo - 1, d, h, mi, 0) + s * 1000 + fraction * 1000 - zone * 60_000;
+}
+
+/**
+ * Elapsed SI seconds from the UTC stamp `epochText` to `text`, leap seconds between them counted
+ * (as the planner counts them): through the SDK time module and its bundled leap-second table
+ * (`createTimeScales(BUNDLED_LEAP_SECONDS).parseIso`). Outside that table's span, or for text it
+ * refuses, falls back to the leap-free count of {@link utcStampMs} (then a leap second after the
+ * table's end is not counted: at most 1 s per unknown leap second). NaN for an unreadable stamp.
+ */
+export function elapsedSecondsBetween(epochText: string, text: string): number {
+  try {
+    const ts = scales();
+    return ts.parseIso(text, 'UTC').secondsSince(ts.parseIso(epochText, 'UTC'));
+  } catch {
+    const a = utcStampMs(epochText);
+    const b = utcStampMs(text);
+    return Number.isFinite(a) && Number.isFinite(b) ? (b - a) / 1000 : Number.NaN;
+  }
+}
+
+/**
+ * Leap seconds of the bundled table whose end (00:00:00 UTC of the entry's day) lies in
+ * (0, horizon] chart seconds after the epoch; `step` is the change of TAI − UTC (+1 inserted).
+ */
+function leapSecondsInSpan(epochText: string, horizon: number): Array<{ end: number; step: number }> {
+  const out: Array<{ end: number; step: number }> = [];
+  const entries = BUNDLED_LEAP_SECONDS.entries;
+  for (let k = 1; k < entries.length; k++) {
+    const e = entries[k]!;
+    const ms = (e.mjd - 40_587) * 86_400_000; // MJD 40587 = 1970-01-01
+    const end = elapsedSecondsBetween(epochText, new Date(ms).toISOString().replace('.000Z', 'Z'));
+    if (end > 0 && end <= horizon) out.push({ end, step: e.taiMinusUtc - entries[k - 1]!.taiMinusUtc });
+  }
+  return out;
+}
+
+/**
+ * Converts a chart time (elapsed SI seconds since the epoch) to `Date` milliseconds for labels:
+ * the epoch plus the elapsed time minus the leap seconds already inserted. Inside an inserted
+ * leap second the label reads 23:59:59.x (a `Date` cannot show 23:59:60).
+ */
+export function chartTimeToUtcMs(view: Pick<PlanView, 'epochMs' | 'leapSeconds'>, t: number): number {
+  let shift = 0;
+  for (const leap of view.leapSeconds) if (t >= leap.end - Math.max(0, leap.step)) shift += leap.step;
+  return view.epochMs + (t - shift) * 1000;
+}
+
+function parseTime(v: unknown, epochText: string): number {
   if (typeof v === 'number') return v; // already seconds since epoch
   if (typeof v !== 'string') return Number.NaN;
-  const ms = Date.parse(v);
-  return Number.isFinite(ms) ? (ms - epochMs) / 1000 : Number.NaN;
+  return elapsedSecondsBetween(epochText, v);
 }
 
 /**
@@ -87,8 +163,10 @@ export function readPlan(plan: unknown, scenario: unknown): PlanReadResult {
   if (!isObj(plan)) return { ok: false, error: `plan must be the object returned by planSteering(); received ${plan === null ? 'null' : typeof plan}` };
   const scen = isObj(scenario) ? scenario : isObj(plan['scenario']) ? (plan['scenario'] as Obj) : null;
   const epochText = scen?.['epoch'] ?? plan['epoch'];
-  const epochMs = typeof epochText === 'string' ? Date.parse(epochText) : typeof epochText === 'number' ? epochText : Number.NaN;
+  const epochMs = typeof epochText === 'string' ? utcStampMs(epochText) : typeof epochText === 'number' ? epochText : Number.NaN;
   if (!Number.isFinite(epochMs)) return { ok: false, error: `scenario.epoch must be an ISO 8601 UTC time; received ${JSON.stringify(epochText ?? null)}` };
+  // Stamps are read against the epoch's own text (leap seconds counted); a numeric epoch (ms) is rendered as a stamp.
+  const epochStamp = typeof epochText === 'string' ? epochText : new Date(epochMs).toISOString();
   const problems: string[] = [];
 
   const predicted = isObj(plan['predicted']) ? plan['predicted'] : null;
@@ -114,13 +192,13 @@ export function readPlan(plan: unknown, scenario: unknown): PlanReadResult {
   if (rawCommands !== undefined && !Array.isArray(rawCommands)) problems.push('plan.commands is not an array: no commands shown');
   (Array.isArray(rawCommands) ? rawCommands : []).forEach((c: unknown, index) => {
     if (!isObj(c)) { problems.push(`plan.commands[${index}] is not an object`); return; }
-    const executeAt = parseTime(c['executeAt'], epochMs);
+    const executeAt = parseTime(c['executeAt'], epochStamp);
     if (!Number.isFinite(executeAt)) { problems.push(`plan.commands[${index}].executeAt is not a valid time (${String(c['executeAt'])})`); return; }
     const kind = c['kind'] === 'phase' ? 'phase' : 'frequency';
     const step = Number(kind === 'phase' ? c['phaseStepSeconds'] : c['fractionalFrequencyStep']);
     commands.push({
       index, kind, executeAt, step,
-      uplinkAt: parseTime(c['uplinkAt'], epochMs),
+      uplinkAt: parseTime(c['uplinkAt'], epochStamp),
       actuatorSteps: typeof c['actuatorSteps'] === 'number' ? c['actuatorSteps'] : Number.NaN,
       reason: typeof c['reason'] === 'string' ? c['reason'] : '',
       source: c,
@@ -132,15 +210,15 @@ export function readPlan(plan: unknown, scenario: unknown): PlanReadResult {
   const contacts: PlanView['contacts'] = [];
   const rawContacts = scen?.['contacts'];
   (Array.isArray(rawContacts) ? rawContacts : []).forEach((w: unknown, k) => {
-    const start = isObj(w) ? parseTime(w['start'], epochMs) : Number.NaN;
-    const end = isObj(w) ? parseTime(w['end'], epochMs) : Number.NaN;
+    const start = isObj(w) ? parseTime(w['start'], epochStamp) : Number.NaN;
+    const end = isObj(w) ? parseTime(w['end'], epochStamp) : Number.NaN;
     if (Number.isFinite(start) && Number.isFinite(end) && end > start) contacts.push({ start, end });
     else problems.push(`scenario.contacts[${k}] needs start < end as ISO times`);
   });
   const maneuvers: PlanView['maneuvers'] = [];
   const rawManeuvers = scen?.['maneuvers'];
   (Array.isArray(rawManeuvers) ? rawManeuvers : []).forEach((m: unknown, k) => {
-    const at = isObj(m) ? parseTime(m['at'], epochMs) : Number.NaN;
+    const at = isObj(m) ? parseTime(m['at'], epochStamp) : Number.NaN;
     if (!Number.isFinite(at)) { problems.push(`scenario.maneuvers[${k}].at is not a valid time`); return; }
     const mo = m as Obj;
     maneuvers.push({ at, semiMajorAxisBefore: Number(mo['semiMajorAxisBefore']), semiMajorAxisAfter: Number(mo['semiMajorAxisAfter']) });
@@ -150,6 +228,7 @@ export function readPlan(plan: unknown, scenario: unknown): PlanReadResult {
     ok: true,
     view: {
       epochMs,
+      leapSeconds: n > 0 ? leapSecondsInSpan(epochStamp, t[n - 1]!) : [],
       feasible: plan['feasible'] !== false,
       reason: typeof plan['reason'] === 'string' ? plan['reason'] : null,
       t, steered: st.phase, steeredSigma: st.sigma, unsteered: un.phase, unsteeredSigma: un.sigma,

@@ -2,7 +2,7 @@ import { html, nothing, svg, type PropertyValues, type SVGTemplateResult, type T
 import { PlotElement } from '../internal/plot-element.js';
 import { baseStyles, plotStyles } from '../internal/styles.js';
 import { steeringScheduleStyles } from './steering-schedule.styles.js';
-import { interpolate, readPlan, type PlanView, type SteeringCommandView } from './plan-data.js';
+import { chartTimeToUtcMs, interpolate, readPlan, type PlanView, type SteeringCommandView } from './plan-data.js';
 import { closestIndex, decimateBand, decimateLine, visibleRange } from '../internal/decimate.js';
 import { drawAxes, fillBand, markerPath, sizeCanvas, strokePolyline, type Frame, type MarkerShape, type Tick } from '../internal/canvas.js';
 import { linearScale, linearTicks, padDomain, timeTicks, type Scale } from '../internal/scale.js';
@@ -211,7 +211,7 @@ export class TaulineSteeringSchedule extends PlotElement {
     const worst = this._worst;
     const freq = d.commands.filter((c) => c.kind === 'frequency').length;
     const phase = d.commands.length - freq;
-    const span = `${formatUtc(d.epochMs + d.t[0]! * 1000)} to ${formatUtc(d.epochMs + d.t[d.t.length - 1]! * 1000)}`;
+    const span = `${formatUtc(chartTimeToUtcMs(d, d.t[0]!))} to ${formatUtc(chartTimeToUtcMs(d, d.t[d.t.length - 1]!))}`;
     const tol = d.tolerance !== null ? ` against a tolerance of ±${formatOffsetAuto(d.tolerance, 3)}` : '';
     return `Predicted clock offset from ${span}; ${d.commands.length} command${d.commands.length === 1 ? '' : 's'} ` +
       `(${freq} frequency, ${phase} phase); largest steered |offset| ${formatOffsetAuto(worst, 3)}${tol}; ` +
@@ -302,7 +302,7 @@ export class TaulineSteeringSchedule extends PlotElement {
   }
 
   private _renderTable(d: PlanView): TemplateResult {
-    const ms = (s: number): number => d.epochMs + s * 1000;
+    const ms = (s: number): number => chartTimeToUtcMs(d, s);
     return html`<table part="table">
       <caption>${d.commands.length} command${d.commands.length === 1 ? '' : 's'}, times in UTC</caption>
       <thead><tr>
@@ -344,8 +344,8 @@ export class TaulineSteeringSchedule extends PlotElement {
           <dt>Kind</dt><dd>${c.kind}</dd>
           <dt>Step</dt><dd>${c.kind === 'phase' ? formatOffsetAuto(c.step, 4) : formatFraction(c.step, 4)}</dd>
           ${Number.isFinite(c.actuatorSteps) ? html`<dt>Actuator steps</dt><dd>${c.actuatorSteps}</dd>` : nothing}
-          <dt>Executes</dt><dd>${formatUtc(d.epochMs + c.executeAt * 1000, true)}</dd>
-          ${Number.isFinite(c.uplinkAt) ? html`<dt>Uplink</dt><dd>${formatUtc(d.epochMs + c.uplinkAt * 1000, true)}</dd>` : nothing}
+          <dt>Executes</dt><dd>${formatUtc(chartTimeToUtcMs(d, c.executeAt), true)}</dd>
+          ${Number.isFinite(c.uplinkAt) ? html`<dt>Uplink</dt><dd>${formatUtc(chartTimeToUtcMs(d, c.uplinkAt), true)}</dd>` : nothing}
         </dl>
         ${c.reason ? html`<div class="note">${c.reason}</div>` : nothing}
       </div>`;
@@ -353,7 +353,7 @@ export class TaulineSteeringSchedule extends PlotElement {
     const i = h.i;
     const k = this._k;
     return html`<div part="tooltip" style=${style}>
-      <strong>${formatUtc(d.epochMs + d.t[i]! * 1000, true)}</strong>
+      <strong>${formatUtc(chartTimeToUtcMs(d, d.t[i]!), true)}</strong>
       <dl>
         <dt>Steered</dt><dd>${formatOffset(d.steered[i]!, u)}</dd>
         ${d.steeredSigma ? html`<dt>±${formatNumber(k, 3)}σ</dt><dd>${formatOffset(d.steeredSigma[i]! * k, u)}</dd>` : nothing}
@@ -579,7 +579,7 @@ export class TaulineSteeringSchedule extends PlotElement {
     const c = d?.commands[position];
     if (!d || !c) return;
     this.selectedIndex = c.index;
-    this._announcement = `Command ${position + 1} of ${d.commands.length}: ${describeStep(c)}, executes ${formatUtc(d.epochMs + c.executeAt * 1000, true)}. ${c.reason}`;
+    this._announcement = `Command ${position + 1} of ${d.commands.length}: ${describeStep(c)}, executes ${formatUtc(chartTimeToUtcMs(d, c.executeAt), true)}. ${c.reason}`;
     if (source !== 'plot' && this._view && (c.executeAt < this._view[0] || c.executeAt > this._view[1])) {
       const span = this._view[1] - this._view[0];
       this._setView(c.executeAt - span / 2, c.executeAt + span / 2, true);
