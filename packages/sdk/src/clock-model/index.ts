@@ -2,7 +2,7 @@
  * Clock models: the stochastic [phase, frequency, drift] model (transition, process noise,
  * q ↔ h ↔ Allan/Hadamard relations, fit of q to measured stability), a weighted polynomial
  * (af0/af1/af2) fit, a 2-/3-state clock Kalman filter with outlier and jump detection, and a
- * seeded clock simulator.
+ * seeded clock simulator, and the fit of q to the rows of a stability analysis.
  *
  * @module
  */
@@ -20,3 +20,8 @@ export {
   type ClockUpdate, type ClockFilterSeries, type ClockFilterRunOptions, type ClockFilterRun,
 } from './kalman.js';
 export { simulateClock, type ClockJump, type ClockSimulationOptions, type ClockSimulation } from './simulate.js';
+export {
+  diffusionFromStabilityRows, measurementNoiseFromPhase,
+  type DiffusionStatistic, type StabilityRowsFitOptions, type StabilityRowFitPoint, type ExcludedStabilityRow, type StabilityRowsFit,
+  type DiffusionInterval, type MeasurementNoiseEstimate,
+} from './from-stability.js';

@@ -1,0 +1,450 @@
+/**
+ * Bridge from a measured stability analysis to the clock model: the diffusion coefficients
+ * q1, q2, q3 fitted to the Allan or Hadamard rows of {@link analyzeStability} (with their
+ * equivalent degrees of freedom), and an estimate of the white phase (measurement) noise of a
+ * phase record, which those rows must be corrected for.
+ *
+ * @module
+ */
+import { ConvergenceError, InvalidArgumentError } from '../errors.js';
+import { chiSquareQuantile, chiSquareSurvival, chiSquareUpperQuantile } from '../internal/special-functions.js';
+import { requireInRange, requireInteger, requireNonNegative, requirePositive } from '../internal/validate.js';
+import type { StabilityRow } from '../stability/types.js';
+import type { Seconds } from '../units.js';
+import { inverseSpd, type Matrix } from './linalg.js';
+import {
+  fitDiffusion, hFromQ, type ClockDiffusion, type ClockStates, type DiffusionFit, type PowerLawCoefficients,
+} from './noise.js';
+
+/** Overlapping statistics whose expectation the clock model gives: Allan (`oadev`) and Hadamard (`ohdev`). */
+export type DiffusionStatistic = 'oadev' | 'ohdev';
+
+const STATISTICS: readonly DiffusionStatistic[] = ['oadev', 'ohdev'];
+
+/** Difference filters of the overlapping statistics, taps at x_i, x_{i+m}, x_{i+2m}(, x_{i+3m}) (NIST SP 1065 §5.2.4, §5.2.8). */
+const FILTERS: Readonly<Record<DiffusionStatistic, readonly number[]>> = { oadev: [1, -2, 1], ohdev: [-1, 3, -3, 1] };
+
+/** Normalisation of the squared term: σ² = mean(term²)/(c·τ²), c = 2 (Allan), 6 (Hadamard) (NIST SP 1065 §5.2). */
+const NORMS: Readonly<Record<DiffusionStatistic, number>> = { oadev: 2, ohdev: 6 };
+
+/** Options of {@link diffusionFromStabilityRows}. */
+export interface StabilityRowsFitOptions {
+  /** 2: fit q1, q2 (q3 = 0); 3: fit q1, q2, q3. Default 2. */
+  readonly states?: ClockStates;
+  /**
+   * Statistic read from each row. Default `oadev` for 2 states, `ohdev` for 3 states. A 3-state fit
+   * needs `ohdev` (the Allan variance is not stationary with drift noise).
+   */
+  readonly statistic?: DiffusionStatistic;
+  /**
+   * Variance of white phase (measurement) noise in the record, in s² (default 0). Its exact
+   * contribution to each row (3σ²/τ² Allan, 10σ²/(3τ²) Hadamard) is removed before the fit and
+   * included in the covariance of the estimates.
+   */
+  readonly measurementVariance?: number;
+  /** Shortest averaging time used, in seconds (default: every row). */
+  readonly minTau?: Seconds;
+  /** Longest averaging time used, in seconds (default: every row). */
+  readonly maxTau?: Seconds;
+  /** Two-sided confidence level of the q intervals, in (0, 1) (default 0.6827, ±1σ). */
+  readonly confidence?: number;
+}
+
+/** A χ² confidence interval of one diffusion coefficient. */
+export interface DiffusionInterval {
+  /**
+   * Lower and upper bound, in the coefficient's unit (s, 1/s or 1/s³). NaN when the coefficient is held
+   * at 0; `high` is Infinity when ν is so small (≪ 1) that the coefficient is not resolved.
+   */
+  readonly low: number;
+  readonly high: number;
+  /** Satterthwaite equivalent degrees of freedom 2q̂²/var(q̂) (NaN when held at 0). */
+  readonly edf: number;
+}
+
+/** One row as the fit saw it. */
+export interface StabilityRowFitPoint {
+  /** Averaging time, in seconds. */
+  readonly tau: Seconds;
+  /** Averaging factor τ/τ0. */
+  readonly m: number;
+  /** Number of terms of the estimate. */
+  readonly n: number;
+  /** Measured deviation of the chosen statistic (dimensionless). */
+  readonly deviation: number;
+  /** Its equivalent degrees of freedom as given by the stability analysis (used for the weights). */
+  readonly edf: number;
+  /** Noise type the stability analysis used for that edf. */
+  readonly noise: StabilityRow['noise'];
+  /** Deviation after removing the measurement-noise variance (equal to `deviation` without it). */
+  readonly clockDeviation: number;
+  /** Deviation of the fitted clock model plus the measurement-noise term at τ. */
+  readonly modelDeviation: number;
+  /** Standard deviation of the measured variance under the fitted model (exact Gaussian second moments), dimensionless. */
+  readonly varianceStd: number;
+  /** (measured − model variance)/varianceStd; ≈ N(0, 1) when the model fits (neighbouring rows are correlated). */
+  readonly normalizedResidual: number;
+}
+
+/** A row left out of the fit, with the reason. */
+export interface ExcludedStabilityRow {
+  readonly tau: Seconds;
+  readonly reason: 'no-estimate' | 'outside-tau-range' | 'measurement-noise-dominates';
+}
+
+/** Result of {@link diffusionFromStabilityRows}. */
+export interface StabilityRowsFit {
+  /** Fitted coefficients, each ≥ 0: q1 (s), q2 (1/s), q3 (1/s³; 0 for a 2-state fit). */
+  readonly q: Required<ClockDiffusion>;
+  /** States of the model fitted. */
+  readonly states: ClockStates;
+  /** Statistic used. */
+  readonly statistic: DiffusionStatistic;
+  /**
+   * Covariance of [q1, q2(, q3)] of the estimator, with the correlation between rows taken into
+   * account (rows and columns of coefficients held at 0 are zero). See {@link diffusionFromStabilityRows}.
+   */
+  readonly covariance: Matrix;
+  /** 1σ of q1 (s), q2 (1/s), q3 (1/s³) from `covariance` (0 for a coefficient held at 0 or not fitted). */
+  readonly qStd: Required<ClockDiffusion>;
+  /** Coefficients the non-negativity constraint held at zero. */
+  readonly atZero: readonly ('q1' | 'q2' | 'q3')[];
+  /** Confidence level of `intervals`. */
+  readonly confidence: number;
+  /**
+   * χ² intervals of q1, q2, q3 (q3 only for 3 states): q̂ is a linear combination of variance
+   * estimates, so q̂·ν/q ~ χ²(ν) approximately with ν = 2q̂²/var(q̂) (Satterthwaite); the interval is
+   * [νq̂/χ²_{1−α/2}(ν), νq̂/χ²_{α/2}(ν)], as for a deviation in NIST SP 1065 §5.3. Skewed like the
+   * estimate itself, it keeps its coverage where a ±σ interval does not (few-edf coefficients).
+   */
+  readonly intervals: { readonly q1: DiffusionInterval; readonly q2: DiffusionInterval; readonly q3?: DiffusionInterval };
+  /** Equivalent power-law coefficients h0 (s), h₋₂ (1/s), h₋₄ (1/s³) (h0 = 2q1, h₋₂ = q2/(2π²), h₋₄ = q3/(8π⁴)). */
+  readonly h: Required<PowerLawCoefficients>;
+  /** 1σ of the h coefficients (the same linear map applied to qStd). */
+  readonly hStd: Required<PowerLawCoefficients>;
+  /** Generalised χ² = rᵀV⁻¹r of the variance residuals r with their full covariance V (NaN if V is singular). */
+  readonly chiSquare: number;
+  /** Rows used minus free coefficients. */
+  readonly dof: number;
+  /** Probability of a χ² at least this large if the model is right (NaN when dof = 0). */
+  readonly chiSquareProbability: number;
+  /** Rows used, in order of τ, with the fit's residuals. */
+  readonly points: readonly StabilityRowFitPoint[];
+  /** Rows not used, with the reason. */
+  readonly excluded: readonly ExcludedStabilityRow[];
+  /** Measurement-noise variance removed, in s². */
+  readonly measurementVariance: number;
+  /** The underlying {@link fitDiffusion} result (edf weights; its covariance treats the rows as independent). */
+  readonly weightedFit: DiffusionFit;
+}
+
+/** Probability inside ±1σ of a normal distribution, erf(1/√2). */
+const ONE_SIGMA = 0.6826894921370859;
+
+/**
+ * Expected variance that white phase noise of variance σ² (independent samples) adds to one row:
+ * Allan 3σ²/τ² (E[(x_{i+2m} − 2x_{i+m} + x_i)²] = 6σ²), Hadamard 10σ²/(3τ²) (E[(Δ³x)²] = 20σ²).
+ * Agrees with the WPM row of physics-refs §10, 3 f_h h₂/(4π²τ²), for f_h = 1/(2τ0) and h₂ = 8π²σ²τ0 [C].
+ */
+function whitePhaseContribution(statistic: DiffusionStatistic, tau: number, variance: number): number {
+  return ((statistic === 'oadev' ? 3 : 10 / 3) * variance) / (tau * tau);
+}
+
+/** Clock-only variance model row: coefficients of q (Zucca & Tavella 2005; physics-refs §11). */
+function designRow(statistic: DiffusionStatistic, tau: number, states: ClockStates): number[] {
+  const row = statistic === 'oadev' ? [1 / tau, tau / 3, 0] : [1 / tau, tau / 6, (11 * tau ** 3) / 120];
+  return row.slice(0, states);
+}
+
+/**
+ * Table of the generalised autocovariance of the sampled model phase, G(t) for t = 0 … size − 1 samples:
+ *   G(t) = −q1τ0|t|/2 + q2(τ0|t|)³/12 − q3(τ0|t|)⁵/240 + σ_v²·[t = 0]
+ * (x = W1 + ∫W2 + ∫∫W3 with independent Wiener processes of diffusion q1, q2, q3, Zucca & Tavella 2005,
+ * plus white measurement noise). Checked [C]: the Allan filter gives E[(Δ²x)²] = 2τ²(q1/τ + q2τ/3) and
+ * the Hadamard filter 6τ²(q1/τ + q2τ/6 + 11q3τ³/120), the forms of physics-refs §11.
+ */
+function generalizedCovarianceTable(size: number, tau0: number, q: Required<ClockDiffusion>, rv: number): Float64Array {
+  const g = new Float64Array(size);
+  for (let t = 0; t < size; t++) {
+    const s = t * tau0;
+    g[t] = (-q.q1 * s) / 2 + (q.q2 * s ** 3) / 12 - (q.q3 * s ** 5) / 240;
+  }
+  g[0] = (g[0] as number) + rv;
+  return g;
+}
+
+/**
+ * Cov(σ̂²_a, σ̂²_b) of two overlapping estimates from the same record, Gaussian model:
+ * σ̂² = Σ_i D(i)²/(c τ² n) with D(i) = Σ_k f_k x_{i+km}; Cov(D_a(i)², D_b(j)²) = 2 C(j − i)² (Isserlis),
+ * C(L) = Σ_k Σ_l f_k f_l G(L + l m_b − k m_a), which vanishes outside −K m_b < L < K m_a because each
+ * filter annihilates the polynomials G is built from. Terms are taken as contiguous (i = 0 … n − 1).
+ */
+function estimateCovariance(
+  f: readonly number[], norm: number, a: { m: number; n: number; tau: number }, b: { m: number; n: number; tau: number }, g: Float64Array,
+): number {
+  const K = f.length - 1;
+  let sum = 0;
+  for (let lag = -K * b.m + 1; lag < K * a.m; lag++) {
+    const count = Math.min(a.n - 1, b.n - 1 - lag) - Math.max(0, -lag) + 1;
+    if (count <= 0) continue;
+    let c = 0;
+    for (let k = 0; k <= K; k++) {
+      for (let l = 0; l <= K; l++) c += (f[k] as number) * (f[l] as number) * (g[Math.abs(lag + l * b.m - k * a.m)] as number);
+    }
+    sum += count * c * c;
+  }
+  return (2 * sum) / (norm * a.tau * a.tau * a.n * norm * b.tau * b.tau * b.n);
+}
+
+/** Inverse of a small symmetric positive-definite matrix after scaling to unit diagonal; undefined when singular. */
+function scaledInverse(a: Matrix): Matrix | undefined {
+  const d = a.map((row, i) => Math.sqrt(row[i] as number));
+  if (d.some((v) => !(v > 0))) return undefined;
+  const inv = inverseSpd(a.map((row, i) => row.map((v, j) => v / ((d[i] as number) * (d[j] as number)))));
+  return inv?.map((row, i) => row.map((v, j) => v / ((d[i] as number) * (d[j] as number))));
+}
+
+/**
+ * Fits the diffusion coefficients of the clock model to the rows of a stability analysis.
+ *
+ * Estimate: each row's overlapping deviation s (with its edf) becomes one point of {@link fitDiffusion}
+ * (weighted least squares on variances, weights edf/(2σ⁴), q ≥ 0) for the model
+ *
+ *   oadev: σ²(τ) = q1/τ + q2τ/3 + 3σ_v²/τ²
+ *   ohdev: σ²(τ) = q1/τ + q2τ/6 + 11q3τ³/120 + 10σ_v²/(3τ²)
+ *
+ * with σ_v² the given measurement-noise variance, subtracted from s² first (the point's edf becomes
+ * edf·(s² − cσ_v²/τ²)²/s⁴, since the subtraction leaves the variance of the estimate unchanged).
+ *
+ * Uncertainty: overlapping estimates at neighbouring τ share data, so the edf-weighted covariance of
+ * fitDiffusion (rows independent) is too small (about 1.8× in σ for white FM at octave spacing, by
+ * simulation). Here the covariance V of the row variances is computed exactly for Gaussian noise under
+ * the fitted model (Isserlis' theorem on the quadratic forms, see `estimateCovariance`), and the
+ * covariance of the estimator is the sandwich (AᵀWA)⁻¹AᵀW V WA(AᵀWA)⁻¹ over the free coefficients; the
+ * generalised χ² = rᵀV⁻¹r tests the fit. The plug-in V uses the fitted q, so for coefficients fixed by
+ * a few low-edf rows (e.g. q2, q3 from the longest τ) the Gaussian ±1σ interval is approximate; the
+ * coverage measured by simulation is in test/clock-model/from-stability.test.ts.
+ *
+ * Rows without the statistic, outside [minTau, maxTau], or where the measurement-noise term reaches the
+ * measured variance are left out and listed in `excluded`. With gaps, terms are taken as contiguous
+ * (the covariance is then approximate).
+ *
+ * @param rows     Rows of {@link analyzeStability} (its `statistics` must include the chosen statistic), τ in s.
+ * @param options  States, statistic, measurement variance (s²), τ range (s); see {@link StabilityRowsFitOptions}.
+ * @returns {@link StabilityRowsFit}: q1 (s), q2 (1/s), q3 (1/s³) with covariance and 1σ, the equivalent h
+ *          coefficients, χ² with its probability, per-row residuals and excluded rows.
+ * @throws {InvalidArgumentError} for rows that are not an array or a malformed row, states not 2/3, an unknown
+ *         statistic, `oadev` in a 3-state fit, a negative measurement variance, a bad τ range, or fewer usable
+ *         rows than coefficients.
+ * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation] (variance relations, physics-refs §11);
+ *      W. J. Riley, NIST SP 1065 (2008) §5.2, §5.3 (statistics, edf); L. Isserlis, Biometrika 12, 134–139 (1918) [M]
+ *      (fourth moments of Gaussian variables).
+ */
+export function diffusionFromStabilityRows(rows: readonly StabilityRow[], options: StabilityRowsFitOptions = {}): StabilityRowsFit {
+  if (!Array.isArray(rows)) throw new InvalidArgumentError('rows', rows, 'the rows array of analyzeStability(...)');
+  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an options object { states?, statistic?, measurementVariance?, minTau?, maxTau? }');
+  const states = options.states === undefined ? 2 : options.states;
+  if (states !== 2 && states !== 3) throw new InvalidArgumentError('options.states', states, '2 (phase, frequency) or 3 (phase, frequency, drift)');
+  const statistic = options.statistic === undefined ? (states === 3 ? 'ohdev' : 'oadev') : options.statistic;
+  if (!STATISTICS.includes(statistic)) throw new InvalidArgumentError('options.statistic', statistic, `one of ${STATISTICS.join(', ')}`);
+  if (states === 3 && statistic === 'oadev') {
+    throw new InvalidArgumentError('options.statistic', statistic, "'ohdev' for a 3-state fit",
+      'with random-walk drift noise the Allan variance is not stationary; fit q3 from Hadamard deviations');
+  }
+  const rv = options.measurementVariance === undefined ? 0 : requireNonNegative('options.measurementVariance', options.measurementVariance, 's²');
+  const minTau = options.minTau === undefined ? 0 : requirePositive('options.minTau', options.minTau, 's');
+  const maxTau = options.maxTau === undefined ? Infinity : requirePositive('options.maxTau', options.maxTau, 's');
+  if (maxTau < minTau) throw new InvalidArgumentError('options.maxTau', maxTau, `≥ options.minTau = ${minTau} s`);
+  const confidence = options.confidence === undefined ? ONE_SIGMA : requireInRange('options.confidence', options.confidence, 1e-6, 1 - 1e-9);
+
+  const used: { tau: number; m: number; n: number; row: StabilityRow; deviation: number; edf: number; clockVariance: number; wpm: number }[] = [];
+  const excluded: ExcludedStabilityRow[] = [];
+  let tau0: number | undefined;
+  rows.forEach((row, i) => {
+    if (typeof row !== 'object' || row === null) throw new InvalidArgumentError(`rows[${i}]`, row, 'a row of analyzeStability(...)');
+    const tau = requirePositive(`rows[${i}].tau`, row.tau, 's');
+    const est = row.statistics?.[statistic];
+    if (!est || !(est.deviation > 0)) {
+      excluded.push({ tau, reason: 'no-estimate' });
+      return;
+    }
+    if (tau < minTau || tau > maxTau) {
+      excluded.push({ tau, reason: 'outside-tau-range' });
+      return;
+    }
+    const m = requireInteger(`rows[${i}].m`, row.m, 1);
+    const n = requireInteger(`rows[${i}].statistics.${statistic}.n`, est.n, 1);
+    const rowTau0 = tau / m;
+    if (tau0 === undefined) tau0 = rowTau0;
+    else if (Math.abs(rowTau0 - tau0) > 1e-9 * tau0) throw new InvalidArgumentError(`rows[${i}].tau`, tau, `m·τ0 with the τ0 = ${tau0} s of the other rows (rows of one analysis)`);
+    const measured = est.deviation * est.deviation;
+    const wpm = whitePhaseContribution(statistic, tau, rv);
+    const clockVariance = measured - wpm;
+    // A row whose measured variance is all (or less than) measurement noise carries no clock information.
+    if (!(clockVariance > 0)) {
+      excluded.push({ tau, reason: 'measurement-noise-dominates' });
+      return;
+    }
+    const edf = requirePositive(`rows[${i}].statistics.${statistic}.edf`, est.edf);
+    used.push({ tau, m, n, row, deviation: est.deviation, edf, clockVariance, wpm });
+  });
+  if (used.length < states) {
+    throw new InvalidArgumentError('rows', `${used.length} usable ${statistic} rows`, `at least ${states} for a ${states}-state fit`,
+      excluded.length > 0 ? `left out: ${excluded.map((e) => `τ = ${e.tau} s (${e.reason})`).join(', ')}` : undefined);
+  }
+  const kind = statistic === 'oadev' ? 'allan' : 'hadamard';
+  const weightedFit = fitDiffusion(
+    used.map((u) => ({ tau: u.tau, deviation: Math.sqrt(u.clockVariance), kind, edf: u.edf * (u.clockVariance / (u.deviation * u.deviation)) ** 2 })),
+    { states },
+  );
+  const q = weightedFit.q;
+
+  // Exact covariance V of the row variances under the fitted model.
+  const f = FILTERS[statistic];
+  const K = f.length - 1;
+  const maxM = Math.max(...used.map((u) => u.m));
+  const g = generalizedCovarianceTable(2 * K * maxM + 1, tau0 as number, q, rv);
+  const nUsed = used.length;
+  const v: Matrix = Array.from({ length: nUsed }, () => new Array<number>(nUsed).fill(0));
+  for (let i = 0; i < nUsed; i++) {
+    for (let j = i; j < nUsed; j++) {
+      const c = estimateCovariance(f, NORMS[statistic], used[i] as typeof used[number], used[j] as typeof used[number], g);
+      (v[i] as number[])[j] = c;
+      (v[j] as number[])[i] = c;
+    }
+  }
+
+  // Sandwich covariance of the weighted estimator over the free coefficients.
+  const names = ['q1', 'q2', 'q3'] as const;
+  const free = [0, 1, 2].slice(0, states).filter((c) => !weightedFit.atZero.includes(names[c] as 'q1'));
+  const a = used.map((u) => designRow(statistic, u.tau, states));
+  const w = weightedFit.modelVariance.map((mv, i) => {
+    const u = used[i] as typeof used[number];
+    const edf = u.edf * (u.clockVariance / (u.deviation * u.deviation)) ** 2;
+    const ref = mv > 0 ? mv : u.clockVariance;
+    return edf / (2 * ref * ref);
+  });
+  const covariance: Matrix = Array.from({ length: states }, () => new Array<number>(states).fill(0));
+  const normal: Matrix = free.map((c) => free.map((d) => a.reduce((s, r, i) => s + (w[i] as number) * (r[c] as number) * (r[d] as number), 0)));
+  const normalInv = scaledInverse(normal);
+  if (normalInv) {
+    // L = (AᵀWA)⁻¹AᵀW (p × n); Cov = L V Lᵀ.
+    const l = free.map((_, p) => a.map((r, i) => free.reduce((s, d, k) => s + ((normalInv[p] as number[])[k] as number) * (r[d] as number), 0) * (w[i] as number)));
+    free.forEach((c, p) => free.forEach((d, k) => {
+      let s = 0;
+      for (let i = 0; i < nUsed; i++) for (let j = 0; j < nUsed; j++) s += ((l[p] as number[])[i] as number) * ((v[i] as number[])[j] as number) * ((l[k] as number[])[j] as number);
+      (covariance[c] as number[])[d] = s;
+    }));
+  }
+  const sd = (i: number): number => (i < states ? Math.sqrt(Math.max((covariance[i] as number[])[i] as number, 0)) : 0);
+  const qStd = { q1: sd(0), q2: sd(1), q3: sd(2) };
+
+  const residuals = used.map((u, i) => u.clockVariance - (weightedFit.modelVariance[i] as number));
+  const vInv = scaledInverse(v);
+  let chiSquare = Number.NaN;
+  if (vInv) {
+    chiSquare = 0;
+    for (let i = 0; i < nUsed; i++) for (let j = 0; j < nUsed; j++) chiSquare += (residuals[i] as number) * ((vInv[i] as number[])[j] as number) * (residuals[j] as number);
+  }
+  const dof = nUsed - free.length;
+  const pi2 = Math.PI * Math.PI;
+  const alpha = 1 - confidence;
+  const interval = (c: number): DiffusionInterval => {
+    const value = q[names[c] as 'q1'];
+    const variance = (covariance[c] as number[])[c] as number;
+    if (!free.includes(c) || !(value > 0) || !(variance > 0)) return { low: Number.NaN, high: Number.NaN, edf: Number.NaN };
+    // Satterthwaite (1946): ν = 2E²/Var for a linear combination of χ² variables.
+    const edf = (2 * value * value) / variance;
+    let lowerQuantile = 0;
+    try {
+      lowerQuantile = chiSquareQuantile(alpha / 2, edf);
+    } catch (e) {
+      // For ν ≪ 1 the lower χ² quantile underflows: the coefficient is not resolved and the bound is unlimited.
+      if (!(e instanceof ConvergenceError)) throw e;
+    }
+    return { low: (edf * value) / chiSquareUpperQuantile(alpha / 2, edf), high: lowerQuantile > 0 ? (edf * value) / lowerQuantile : Infinity, edf };
+  };
+  const intervals = states === 3 ? { q1: interval(0), q2: interval(1), q3: interval(2) } : { q1: interval(0), q2: interval(1) };
+  const points = used.map((u, i): StabilityRowFitPoint => {
+    const varianceStd = Math.sqrt((v[i] as number[])[i] as number);
+    return {
+      tau: u.tau, m: u.m, n: u.n, deviation: u.deviation, edf: u.edf, noise: u.row.noise,
+      clockDeviation: Math.sqrt(u.clockVariance),
+      modelDeviation: Math.sqrt(Math.max((weightedFit.modelVariance[i] as number) + u.wpm, 0)),
+      varianceStd,
+      normalizedResidual: (residuals[i] as number) / varianceStd,
+    };
+  });
+  return {
+    q, states, statistic, covariance, qStd, atZero: weightedFit.atZero, confidence, intervals,
+    h: hFromQ(q),
+    hStd: { h0: 2 * qStd.q1, hMinus2: qStd.q2 / (2 * pi2), hMinus4: qStd.q3 / (8 * pi2 * pi2) },
+    chiSquare, dof,
+    chiSquareProbability: dof > 0 && Number.isFinite(chiSquare) ? chiSquareSurvival(chiSquare, dof) : Number.NaN,
+    points, excluded, measurementVariance: rv, weightedFit,
+  };
+}
+
+/** Result of {@link measurementNoiseFromPhase}. */
+export interface MeasurementNoiseEstimate {
+  /** Estimated white-phase-noise variance σ_v², in s² (may be ≤ 0 when unresolved; see `resolved`). */
+  readonly variance: number;
+  /** Standard error of `variance`, in s² (Bartlett's formula). */
+  readonly standardError: number;
+  /** True when variance > 2·standardError (significantly above zero). */
+  readonly resolved: boolean;
+  /** Number of lag-2 products used. */
+  readonly terms: number;
+}
+
+/**
+ * Estimates the variance of white phase (measurement) noise in a phase record from the lag-2
+ * autocovariance of its second differences s_k = x_{k+1} − 2x_k + x_{k−1}.
+ *
+ * For x = clock phase (2-state model: white FM q1, random-walk FM q2) plus independent noise v of
+ * variance σ_v², s_k and s_{k+2} share only the sample x_{k+1} (coefficient 1·1), while the clock
+ * part of s_k depends on the noise inside [t_{k−1}, t_{k+1}] only; so Cov(s_k, s_{k+2}) = σ_v²
+ * exactly [C]. Random-walk drift noise (q3) adds q3τ0⁵/120-order terms, negligible for clocks
+ * whose drift noise is invisible at τ0. Estimator: ĉ₂ = mean of (s_k − s̄)(s_{k+2} − s̄) over complete
+ * pairs (NaN samples break terms; nothing is interpolated). Standard error by Bartlett's formula
+ * with the sample autocovariances up to lag 4: var(ĉ₂) ≈ (1/n) Σ_{j=−4}^{4} (ĉ_j² + ĉ_{j+2} ĉ_{j−2})
+ * (ĉ_h = 0 beyond lag 4).
+ *
+ * @param phase  Phase samples in seconds, uniformly spaced; NaN = missing.
+ * @returns {@link MeasurementNoiseEstimate} (s², s²).
+ * @throws {InvalidArgumentError} if phase is not an array, has ±Infinity, or has fewer than 8 complete second-difference pairs.
+ * @see M. S. Bartlett (1946) via P. J. Brockwell & R. A. Davis, Time Series: Theory and Methods, 2nd ed. (1991), §7.2,
+ *      Theorem 7.2.1 [M] (variance of sample autocovariances).
+ */
+export function measurementNoiseFromPhase(phase: ArrayLike<number>): MeasurementNoiseEstimate {
+  if (!phase || typeof phase.length !== 'number') throw new InvalidArgumentError('phase', phase, 'an array of phases in seconds');
+  const n = phase.length;
+  const s = new Float64Array(Math.max(n - 2, 0));
+  for (let i = 0; i < n; i++) {
+    const v = phase[i] as number;
+    if (typeof v !== 'number' || v === Infinity || v === -Infinity) throw new InvalidArgumentError(`phase[${i}]`, v, 'a finite phase in seconds, or NaN for a missing sample');
+  }
+  for (let k = 1; k < n - 1; k++) s[k - 1] = (phase[k + 1] as number) - 2 * (phase[k] as number) + (phase[k - 1] as number);
+  let sum = 0;
+  let count = 0;
+  for (const v of s) if (v === v) { sum += v; count++; }
+  const mean = count > 0 ? sum / count : 0;
+  const acov = (lag: number): { value: number; terms: number } => {
+    let acc = 0;
+    let terms = 0;
+    for (let k = 0; k + lag < s.length; k++) {
+      const a = s[k] as number;
+      const b = s[k + lag] as number;
+      if (a === a && b === b) { acc += (a - mean) * (b - mean); terms++; }
+    }
+    return { value: terms > 0 ? acc / terms : Number.NaN, terms };
+  };
+  const lags = [0, 1, 2, 3, 4].map(acov);
+  const c2 = lags[2] as { value: number; terms: number };
+  if (c2.terms < 8) throw new InvalidArgumentError('phase', `${c2.terms} complete lag-2 pairs of second differences`, 'at least 8 (about 12 consecutive samples)');
+  const g = (h: number): number => (Math.abs(h) <= 4 ? (lags[Math.abs(h)] as { value: number }).value : 0);
+  let bartlett = 0;
+  for (let j = -4; j <= 4; j++) bartlett += g(j) ** 2 + g(j + 2) * g(j - 2);
+  const standardError = Math.sqrt(Math.max(bartlett, 0) / c2.terms);
+  return { variance: c2.value, standardError, resolved: c2.value > 2 * standardError, terms: c2.terms };
+}
