@@ -15,6 +15,7 @@ import type { TimeScales } from '../time/scales.js';
 import type { DiffusionCoefficients, Matrix3 } from './clock-math.js';
 import { parseUtcStamp, requireInsideTable, resolveTimeScales, type TimeScaleOptions } from './utc-stamps.js';
 import { rateChangeForSemiMajorAxisChange } from '../relativity/rate.js';
+import { diffusionFromStabilitySpec } from '../clock-model/noise.js';
 
 /** One uplink opportunity (ISO 8601 UTC stamps with a zone designator; `23:59:60Z` where a leap second exists). */
 export interface ContactWindow {
@@ -200,36 +201,29 @@ function rejectUnknownKeys(field: string, obj: Record<string, unknown>, allowed:
   }
 }
 
-/** Converts a noise spec to q1, q2, q3 (Zucca & Tavella 2005 relations, physics-refs §11). */
+/**
+ * Converts a noise spec to q1, q2, q3 (Zucca & Tavella 2005 relations, physics-refs §11). A stability
+ * spec is checked for unknown fields here and converted by the clock-model's
+ * `diffusionFromStabilitySpec`; its errors are re-thrown with the scenario path (`spec.x` → `<field>.stability.x`).
+ */
 export function noiseToDiffusion(noise: NoiseSpec, field = 'clock.noise'): DiffusionCoefficients {
   const obj = requireObject(field, noise);
   if ('stability' in obj) {
     rejectUnknownKeys(field, obj, ['stability']);
     const spec = requireObject(`${field}.stability`, obj['stability']);
     rejectUnknownKeys(`${field}.stability`, spec, ['whiteFrequency', 'randomWalkFrequency', 'randomWalkDrift']);
-    const point = (name: string): { tau: number; deviation: number } | undefined => {
-      if (spec[name] === undefined) return undefined;
+    for (const name of ['whiteFrequency', 'randomWalkFrequency', 'randomWalkDrift']) {
+      if (spec[name] === undefined) continue;
       const p = requireObject(`${field}.stability.${name}`, spec[name]);
       rejectUnknownKeys(`${field}.stability.${name}`, p, ['tau', 'deviation']);
-      return {
-        tau: requirePositive(`${field}.stability.${name}.tau`, p['tau'], 's'),
-        deviation: requireNonNegative(`${field}.stability.${name}.deviation`, p['deviation']),
-      };
-    };
-    const wf = point('whiteFrequency');
-    const rwf = point('randomWalkFrequency');
-    const rwd = point('randomWalkDrift');
-    if (!wf && !rwf && !rwd) {
-      throw new InvalidArgumentError(`${field}.stability`, spec, 'at least one of whiteFrequency, randomWalkFrequency, randomWalkDrift');
     }
-    return {
-      // AVAR_WFM(τ) = q1/τ  ⇒ q1 = σ²τ (Zucca & Tavella 2005; physics-refs §11)
-      q1: wf ? wf.deviation ** 2 * wf.tau : 0,
-      // AVAR_RWFM(τ) = q2 τ/3  ⇒ q2 = 3σ²/τ
-      q2: rwf ? (3 * rwf.deviation ** 2) / rwf.tau : 0,
-      // HVAR_RWD(τ) = 11 q3 τ³/120  ⇒ q3 = 120σ²/(11τ³)
-      q3: rwd ? (120 * rwd.deviation ** 2) / (11 * rwd.tau ** 3) : 0,
-    };
+    try {
+      return diffusionFromStabilitySpec(spec as StabilitySpec);
+    } catch (e) {
+      if (!(e instanceof InvalidArgumentError)) throw e;
+      const argument = e.argument === 'spec' ? `${field}.stability` : e.argument.replace(/^spec\./, `${field}.stability.`);
+      throw new InvalidArgumentError(argument, e.received, e.expected, e.hint);
+    }
   }
   rejectUnknownKeys(field, obj, ['q1', 'q2', 'q3']);
   return {
