@@ -229,3 +229,17 @@ describe('JSON outputs: units named, cautions carried', () => {
     }
   });
 });
+
+describe('tauline broadcast time flags', () => {
+  it('a date-only or zoned --from is one line that quotes the value once and says how to fix it', async () => {
+    const base = ['broadcast', NAV, '--to', '2024-01-07T02:00:00', '--step', '3600'];
+    const r = await run(...base, '--from', '2024-01-07');
+    expect(r.status).toBe(2);
+    expect(r.err.trimEnd().split('\n')).toHaveLength(1);
+    expect(r.err.match(/received/g)).toHaveLength(1);
+    expect(r.err).toMatch(/--from must be an ISO 8601 date-time .*; received "2024-01-07"\. .*add a time/);
+    const z = await run(...base, '--from', '2024-01-07T00:00:00Z');
+    expect(z.err.match(/received/g)).toHaveLength(1);
+    expect(z.err).toMatch(/use --time-scale utc for UTC/);
+  });
+});

@@ -145,7 +145,8 @@ function parseTimeFlag(ts: TimeScales, flag: string, text: string, utc: boolean)
       throw new InvalidArgumentError(`--${flag}`, text, utc
         ? 'an ISO 8601 UTC date-time with a zone designator, e.g. 2024-01-07T00:00:00Z'
         : 'an ISO 8601 date-time read in each system\'s own time scale, without zone designator, e.g. 2024-01-07T00:00:00 (use --time-scale utc for UTC)',
-      error.message);
+      // The SDK's reason without its own "received …" (the value is already quoted once).
+      `${error.argument.replace(/^text\.?/, '') || 'text'}: ${error.expected}${error.hint ? `; ${error.hint}` : ''}`);
     }
     throw error;
   }
