@@ -25,3 +25,4 @@ export {
   type DiffusionStatistic, type StabilityRowsFitOptions, type StabilityRowFitPoint, type ExcludedStabilityRow, type StabilityRowsFit,
   type DiffusionInterval, type MeasurementNoiseEstimate,
 } from './from-stability.js';
+export { polynomialNoiseCovariance, type PolynomialNoiseOptions, type PolynomialNoiseCovariance } from './polynomial-noise.js';

@@ -1,0 +1,179 @@
+/**
+ * Uncertainty of a least-squares clock polynomial (af0/af1/af2) when the residuals are the clock's
+ * own correlated noise (q1, q2, q3) plus white measurement noise, and of its predictions.
+ *
+ * @module
+ */
+import { InvalidArgumentError } from '../errors.js';
+import type { Seconds } from '../units.js';
+import { requireFinite, requireNonNegative } from '../internal/validate.js';
+import { inverseSpd, type Matrix } from './linalg.js';
+import { clockProcessNoise, requireDiffusion, type ClockDiffusion, type ClockStates } from './noise.js';
+
+/** Options of {@link polynomialNoiseCovariance}. */
+export interface PolynomialNoiseOptions {
+  /** Degree of the (unweighted) fit, 1 or 2. */
+  readonly degree: 1 | 2;
+  /** Reference epoch t0 of the coefficients, in seconds. */
+  readonly referenceTime: Seconds;
+  /** Diffusion coefficients of the clock noise: q1 (s), q2 (1/s), q3 (1/s³). */
+  readonly q: ClockDiffusion;
+  /** Variance of white measurement noise, in s² (default 0). */
+  readonly measurementVariance?: number;
+  /** Epochs (s), each ≥ the last sample epoch, at which the prediction error is wanted. */
+  readonly predict?: readonly Seconds[];
+}
+
+/** Result of {@link polynomialNoiseCovariance}. */
+export interface PolynomialNoiseCovariance {
+  /** Covariance of [a0 (s), a1, a2 (1/s)] at the reference epoch ((degree + 1) square). */
+  readonly covariance: Matrix;
+  /** √diag(covariance): 1σ of a0 (s), a1 (dimensionless), a2 (1/s). */
+  readonly std: readonly number[];
+  /** 1σ of the prediction error polynomial(T) − x(T) at each `predict` epoch, in seconds. */
+  readonly predictStd: readonly number[];
+}
+
+/**
+ * Covariance of the unweighted least-squares polynomial coefficients when the phase is
+ * z_k = P(t_k) + x_k + v_k: P the deterministic polynomial (the clock's state at the first epoch
+ * propagated without noise), x the clock noise started at zero at the first epoch
+ * (x_k = Σ_{i ≤ k} [Φ(t_k − t_i) w_i]₀, w_i ~ N(0, Q(t_i − t_{i−1})), Zucca & Tavella 2005) and v white
+ * measurement noise of variance R. For a linear functional ℓ of the data,
+ *
+ *   Var(ℓᵀz) = Σ_i g_iᵀ Q(t_i − t_{i−1}) g_i + R Σ_k ℓ_k²,   g_i = Σ_{k ≥ i} ℓ_k [1, t_k − t_i, (t_k − t_i)²/2],
+ *
+ * evaluated exactly in O(N) by a backward recursion of g (origin shifted step by step, no large-t
+ * cancellation). Coefficients are ℓ = rows of (AᵀA)⁻¹Aᵀ; a prediction at T ≥ t_N has error
+ * a(T)ᵀβ̂ − x(T), i.e. g_i − [1, T − t_i, (T − t_i)²/2] per step, plus Q₁₁(T − t_N) for the noise after
+ * the last sample. The white-noise formula (AᵀA)⁻¹σ² ignores the correlation of x and understates
+ * these uncertainties for a clock with random-walk noise.
+ *
+ * @param t        Epochs of the samples used in the fit, in seconds, strictly increasing (at least degree + 1).
+ * @param options  Degree, reference epoch (s), q, measurement variance (s²), prediction epochs (s).
+ * @returns {@link PolynomialNoiseCovariance}.
+ * @throws {InvalidArgumentError} for too few or non-increasing epochs, degree not 1/2, a bad q or variance,
+ *         or a prediction epoch before the last sample.
+ * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation] (Φ, Q; physics-refs §11); covariance of a
+ *      linear estimator ℓᵀz is ℓᵀΣℓ (standard linear algebra).
+ */
+export function polynomialNoiseCovariance(t: ArrayLike<number>, options: PolynomialNoiseOptions): PolynomialNoiseCovariance {
+  if (!t || typeof t.length !== 'number') throw new InvalidArgumentError('t', t, 'an array of epochs in seconds');
+  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an options object { degree, referenceTime, q, ... }');
+  const degree = options.degree;
+  if (degree !== 1 && degree !== 2) throw new InvalidArgumentError('options.degree', degree, '1 or 2');
+  const p = degree + 1;
+  const n = t.length;
+  if (n < p) throw new InvalidArgumentError('t', n, `at least ${p} epochs for a degree-${degree} fit`);
+  const tt = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    tt[k] = requireFinite(`t[${k}]`, t[k], 'a finite epoch in seconds');
+    if (k > 0 && !((tt[k] as number) > (tt[k - 1] as number))) throw new InvalidArgumentError(`t[${k}]`, tt[k], `greater than t[${k - 1}] = ${tt[k - 1]} (strictly increasing epochs)`);
+  }
+  const t0 = requireFinite('options.referenceTime', options.referenceTime, 'a finite epoch in seconds');
+  const q = requireDiffusion('options.q', options.q);
+  const states: ClockStates = q.q3 > 0 ? 3 : 2;
+  const r = options.measurementVariance === undefined ? 0 : requireNonNegative('options.measurementVariance', options.measurementVariance, 's²');
+  const predict = (options.predict ?? []).map((v, i) => {
+    const T = requireFinite(`options.predict[${i}]`, v, 'a finite epoch in seconds');
+    if (T < (tt[n - 1] as number)) throw new InvalidArgumentError(`options.predict[${i}]`, T, `≥ the last sample epoch ${tt[n - 1]} s (predictions after the record)`);
+    return T;
+  });
+
+  // Centred, scaled basis u = (t − c)/s, as in fitClockPolynomial.
+  let sum = 0;
+  for (const v of tt) sum += v;
+  const c = sum / n;
+  const s = ((tt[n - 1] as number) - (tt[0] as number)) / 2 || 1;
+  const basis = (time: number): number[] => {
+    const u = (time - c) / s;
+    return degree === 2 ? [1, u, u * u] : [1, u];
+  };
+  const normal: Matrix = Array.from({ length: p }, () => new Array<number>(p).fill(0));
+  for (let k = 0; k < n; k++) {
+    const a = basis(tt[k] as number);
+    for (let i = 0; i < p; i++) for (let j = 0; j < p; j++) (normal[i] as number[])[j] = ((normal[i] as number[])[j] as number) + (a[i] as number) * (a[j] as number);
+  }
+  const ninv = inverseSpd(normal);
+  if (!ninv) throw new InvalidArgumentError('t', `${n} epochs`, `at least ${p} distinct epochs for a degree-${degree} fit`);
+  // Functionals: p coefficient rows (u basis) and one per prediction epoch.
+  const rows: Float64Array[] = [];
+  for (let i = 0; i < p; i++) rows.push(new Float64Array(n));
+  for (let k = 0; k < n; k++) {
+    const a = basis(tt[k] as number);
+    for (let i = 0; i < p; i++) {
+      let v = 0;
+      for (let j = 0; j < p; j++) v += ((ninv[i] as number[])[j] as number) * (a[j] as number);
+      (rows[i] as Float64Array)[k] = v;
+    }
+  }
+  const predictRows = predict.map((T) => {
+    const b = basis(T);
+    const row = new Float64Array(n);
+    for (let k = 0; k < n; k++) {
+      let v = 0;
+      for (let i = 0; i < p; i++) v += (b[i] as number) * ((rows[i] as Float64Array)[k] as number);
+      row[k] = v;
+    }
+    return row;
+  });
+  const all = [...rows, ...predictRows];
+  const m = all.length;
+  // Backward recursion of g_i (three components) for every functional; accumulate Σ g_aᵀ Q g_b.
+  const g = all.map(() => [0, 0, 0]);
+  const cov: Matrix = Array.from({ length: m }, () => new Array<number>(m).fill(0));
+  const targets = predict.map(() => [0, 0, 0]); // [1, T − t_i, (T − t_i)²/2] at the current i
+  for (let k = n - 1; k >= 1; k--) {
+    // Move the origin of g from t_{k+1} to t_k and add sample k.
+    const delta = k < n - 1 ? (tt[k + 1] as number) - (tt[k] as number) : 0;
+    all.forEach((row, a) => {
+      const ga = g[a] as number[];
+      const g0 = ga[0] as number;
+      const g1 = ga[1] as number;
+      ga[2] = (ga[2] as number) + delta * g1 + (delta * delta * g0) / 2;
+      ga[1] = g1 + delta * g0;
+      ga[0] = g0 + (row[k] as number);
+    });
+    predict.forEach((T, j) => {
+      const d = T - (tt[k] as number);
+      targets[j] = [1, d, (d * d) / 2];
+    });
+    const qk = clockProcessNoise((tt[k] as number) - (tt[k - 1] as number), q, states);
+    const eff = all.map((_, a) => {
+      const ga = (g[a] as number[]).slice(0, states);
+      if (a < p) return ga;
+      const tg = targets[a - p] as number[];
+      return ga.map((v, i) => v - (tg[i] as number));
+    });
+    for (let a = 0; a < m; a++) {
+      for (let b = a; b < m; b++) {
+        let v = 0;
+        for (let i = 0; i < states; i++) for (let j = 0; j < states; j++) v += ((eff[a] as number[])[i] as number) * ((qk[i] as number[])[j] as number) * ((eff[b] as number[])[j] as number);
+        (cov[a] as number[])[b] = ((cov[a] as number[])[b] as number) + v;
+      }
+    }
+  }
+  for (let a = 0; a < m; a++) {
+    for (let b = a; b < m; b++) {
+      let v = 0;
+      for (let k = 0; k < n; k++) v += ((all[a] as Float64Array)[k] as number) * ((all[b] as Float64Array)[k] as number);
+      (cov[a] as number[])[b] = ((cov[a] as number[])[b] as number) + r * v;
+      (cov[b] as number[])[a] = (cov[a] as number[])[b] as number;
+    }
+  }
+  // Map the u-basis coefficient covariance to the t0 basis (as fitClockPolynomial does).
+  const delta0 = (t0 - c) / s;
+  const tm: Matrix = degree === 2
+    ? [[1, delta0, delta0 * delta0], [0, 1 / s, (2 * delta0) / s], [0, 0, 1 / (s * s)]]
+    : [[1, delta0], [0, 1 / s]];
+  const covariance: Matrix = tm.map((ri) => tm.map((rj) => {
+    let v = 0;
+    for (let k = 0; k < p; k++) for (let l = 0; l < p; l++) v += (ri[k] as number) * ((cov[k] as number[])[l] as number) * (rj[l] as number);
+    return v;
+  }));
+  const predictStd = predict.map((T, j) => {
+    const after = ((clockProcessNoise(T - (tt[n - 1] as number), q, states)[0] as number[])[0] as number);
+    return Math.sqrt(Math.max(((cov[p + j] as number[])[p + j] as number) + after, 0));
+  });
+  return { covariance, std: covariance.map((row, i) => Math.sqrt(Math.max(row[i] as number, 0))), predictStd };
+}
