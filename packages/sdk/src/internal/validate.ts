@@ -31,12 +31,12 @@ export function requireNonNegative(argument: string, value: unknown, unit = ''):
   return v;
 }
 
-/** Throws unless `min ≤ value ≤ max` (or `min ≤ value < max` when `maxExclusive`). */
+/** Throws unless `min ≤ value ≤ max`; `minExclusive` / `maxExclusive` make either end open. */
 export function requireInRange(argument: string, value: unknown, min: number, max: number,
-  { maxExclusive = false, unit = '' } = {}): number {
-  const expected = `in [${min}, ${max}${maxExclusive ? ')' : ']'}${unit ? ` ${unit}` : ''}`;
+  { minExclusive = false, maxExclusive = false, unit = '' } = {}): number {
+  const expected = `in ${minExclusive ? '(' : '['}${min}, ${max}${maxExclusive ? ')' : ']'}${unit ? ` ${unit}` : ''}`;
   const v = requireFinite(argument, value, expected);
-  if (v < min || (maxExclusive ? v >= max : v > max)) throw new InvalidArgumentError(argument, value, expected);
+  if ((minExclusive ? v <= min : v < min) || (maxExclusive ? v >= max : v > max)) throw new InvalidArgumentError(argument, value, expected);
   return v;
 }
 

@@ -221,7 +221,7 @@ export function analyzeStability(data: StabilityData, options: StabilityOptions 
   statistics.forEach((s, i) => requireStatistic(`options.statistics[${i}]`, s));
   const stats = STATISTIC_NAMES.filter((s) => statistics.includes(s));
   const confidence = options.confidence ?? ONE_SIGMA_CONFIDENCE;
-  requireInRange('options.confidence', confidence, 0, 1, { maxExclusive: true });
+  requireInRange('options.confidence', confidence, 0, 1, { minExclusive: true, maxExclusive: true });
   if (confidence === 0) throw new InvalidArgumentError('options.confidence', confidence, 'in (0, 1), e.g. 0.6827 or 0.95');
   if (options.noise !== undefined && !(options.noise in NOISE_ALPHA)) {
     throw new InvalidArgumentError('options.noise', options.noise, 'one of WPM, FPM, WFM, FFM, RWFM');

@@ -224,7 +224,7 @@ export function equivalentDegreesOfFreedom(statistic: StatisticName, noise: Nois
 export function chiSquareInterval(deviation: number, edf: number, confidence: number): { low: number; high: number } {
   requireInRange('deviation', deviation, 0, Number.MAX_VALUE);
   requirePositive('edf', edf);
-  requireInRange('confidence', confidence, 0, 1, { maxExclusive: true });
+  requireInRange('confidence', confidence, 0, 1, { minExclusive: true, maxExclusive: true });
   if (confidence === 0) throw new InvalidArgumentError('confidence', confidence, 'in (0, 1), e.g. 0.6827 or 0.95');
   const p = (1 - confidence) / 2;
   const chiHigh = chiSquareQuantile(1 - p, edf);
