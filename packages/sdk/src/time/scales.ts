@@ -528,7 +528,7 @@ function scanIso(text: unknown): { fields: RawFields; offsetMinutes: number | un
   const literal = (char: string, after: string): void => {
     if (text[pos] !== char) {
       const found = pos < text.length ? `'${text[pos]}'` : 'the end of the text';
-      const hint = after === 'day' && pos >= text.length ? 'date-only text is ambiguous: add a time, e.g. T00:00:00Z'
+      const hint = after === 'day' && pos >= text.length ? 'date-only text is ambiguous: add a time of day, e.g. T00:00:00 (then Z for UTC; no designator for GPS, GST, BDT, TAI, TT or TCG readings)'
         : after === 'day' && (text[pos] === ' ' || text[pos] === 't') ? "ISO 8601 separates date and time with an upper-case 'T'" : undefined;
       throw new InvalidArgumentError('text', text, `'${char}' after the ${after} (found ${found} ${where()}); the form is ${ISO_FORM}`, hint);
     }
