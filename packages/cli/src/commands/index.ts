@@ -3,6 +3,7 @@ import type { Command } from '../framework.js';
 import { planCommand } from './plan.js';
 import { simulateCommand } from './simulate.js';
 import { stabilityCommand } from './stability.js';
+import { clockCommand } from './clock.js';
 import { reviewCommand } from './review.js';
 import { rateCommand } from './rate.js';
 import { periodicCommand } from './periodic.js';
@@ -20,4 +21,5 @@ export const COMMANDS: Command[] = [
   preciseCommand,
   reviewCommand,
   stabilityCommand,
+  clockCommand,
 ];

@@ -42,6 +42,11 @@ export interface StabilityRowsFitOptions {
    * included in the covariance of the estimates.
    */
   readonly measurementVariance?: number;
+  /**
+   * Standard deviation of `measurementVariance` when it is itself an estimate, in s² (default 0). Its
+   * effect on q (∂q/∂σ_v² through the subtracted terms) is added to the covariance.
+   */
+  readonly measurementVarianceStd?: number;
   /** Shortest averaging time used, in seconds (default: every row). */
   readonly minTau?: Seconds;
   /** Longest averaging time used, in seconds (default: every row). */
@@ -225,6 +230,9 @@ function scaledInverse(a: Matrix): Matrix | undefined {
  * a few low-edf rows (e.g. q2, q3 from the longest τ) the Gaussian ±1σ interval is approximate; the
  * coverage measured by simulation is in test/clock-model/from-stability.test.ts.
  *
+ * When σ_v² is an estimate with standard deviation `measurementVarianceStd`, (∂q/∂σ_v²)² times its
+ * variance is added (its correlation with the rows is neglected).
+ *
  * Rows without the statistic, outside [minTau, maxTau], or where the measurement-noise term reaches the
  * measured variance are left out and listed in `excluded`. With gaps, terms are taken as contiguous
  * (the covariance is then approximate).
@@ -252,6 +260,7 @@ export function diffusionFromStabilityRows(rows: readonly StabilityRow[], option
       'with random-walk drift noise the Allan variance is not stationary; fit q3 from Hadamard deviations');
   }
   const rv = options.measurementVariance === undefined ? 0 : requireNonNegative('options.measurementVariance', options.measurementVariance, 's²');
+  const rvStd = options.measurementVarianceStd === undefined ? 0 : requireNonNegative('options.measurementVarianceStd', options.measurementVarianceStd, 's²');
   const minTau = options.minTau === undefined ? 0 : requirePositive('options.minTau', options.minTau, 's');
   const maxTau = options.maxTau === undefined ? Infinity : requirePositive('options.maxTau', options.maxTau, 's');
   if (maxTau < minTau) throw new InvalidArgumentError('options.maxTau', maxTau, `≥ options.minTau = ${minTau} s`);
@@ -335,6 +344,13 @@ export function diffusionFromStabilityRows(rows: readonly StabilityRow[], option
       for (let i = 0; i < nUsed; i++) for (let j = 0; j < nUsed; j++) s += ((l[p] as number[])[i] as number) * ((v[i] as number[])[j] as number) * ((l[k] as number[])[j] as number);
       (covariance[c] as number[])[d] = s;
     }));
+    if (rvStd > 0) {
+      // q̂ = L(s² − σ_v²·u), u_i = c/τ_i²: ∂q̂/∂σ_v² = −L u.
+      const jac = free.map((_, p) => -used.reduce((acc, u, i) => acc + ((l[p] as number[])[i] as number) * whitePhaseContribution(statistic, u.tau, 1), 0));
+      free.forEach((c, p) => free.forEach((d, k) => {
+        (covariance[c] as number[])[d] = ((covariance[c] as number[])[d] as number) + (jac[p] as number) * (jac[k] as number) * rvStd * rvStd;
+      }));
+    }
   }
   const sd = (i: number): number => (i < states ? Math.sqrt(Math.max((covariance[i] as number[])[i] as number, 0)) : 0);
   const qStd = { q1: sd(0), q2: sd(1), q3: sd(2) };

@@ -1,0 +1,239 @@
+/**
+ * `tauline clock`: characterise a clock from its phase record — polynomial model (af0/af1/af2) with
+ * uncertainties under the clock's own noise, diffusion coefficients q1/q2/q3 fitted to the stability of
+ * the residuals, and a Kalman pass with outliers, phase/frequency jumps and NIS consistency.
+ */
+import { createReadStream } from 'node:fs';
+import {
+  diffusionFromStabilityRows, fitClockPolynomial, measurementNoiseFromPhase, polynomialNoiseCovariance, runClockFilter,
+  type ClockFilterRun, type ClockStates, type DetectedJump, type StabilityRowsFit,
+} from '@tauline/sdk/clock-model';
+import { readPhaseText, readRinexClock, rinexClockSeries, type SampleGap } from '@tauline/sdk/io';
+import { analyzeStability } from '@tauline/sdk/stability';
+import {
+  EXIT_OK, FLIGHT_CAUTION, keyValueTable, optionalFlag, parseNumber, sig, table, toJson, UsageError, type Command, type ParsedArgs,
+} from '../framework.js';
+
+interface Record_ { phase: Float64Array; t: Float64Array; tau0: number; source: string; gaps: readonly SampleGap[]; clock?: string; timeSystem?: string }
+
+async function loadRecord(args: ParsedArgs, tau0Flag: number | undefined): Promise<Record_> {
+  const phaseFile = optionalFlag(args, 'phase');
+  const rinexFile = optionalFlag(args, 'rinex-clock');
+  if ((phaseFile === undefined) === (rinexFile === undefined)) throw new UsageError('give exactly one input: --phase <file> or --rinex-clock <file> --clock <name>');
+  if (rinexFile !== undefined) {
+    const clock = optionalFlag(args, 'clock');
+    if (clock === undefined) throw new UsageError('--rinex-clock needs --clock <name> (satellite such as G05, or station name)');
+    const file = await readRinexClock(createReadStream(rinexFile, { encoding: 'utf8' }), rinexFile);
+    const s = rinexClockSeries(file, clock, tau0Flag === undefined ? {} : { tau0: tau0Flag });
+    if (s.tau0 === undefined) throw new UsageError(`clock ${clock} has a single epoch; give a longer file`);
+    return { phase: s.phase, t: s.times, tau0: s.tau0, source: rinexFile, gaps: s.gaps, clock, ...(s.timeSystem ? { timeSystem: s.timeSystem } : {}) };
+  }
+  const file = phaseFile as string;
+  const s = await readPhaseText(createReadStream(file, { encoding: 'utf8' }), { sourceName: file, ...(tau0Flag === undefined ? {} : { tau0: tau0Flag }) });
+  if (s.tau0 === undefined) throw new UsageError(`${file} has one column; give the sample spacing with --tau0 <s>`);
+  const tau0 = s.tau0;
+  const t = s.times ?? Float64Array.from(s.phase, (_, k) => k * tau0);
+  return { phase: s.phase, t, tau0, source: file, gaps: s.gaps };
+}
+
+function choice<T extends number>(args: ParsedArgs, flag: string, allowed: readonly T[], fallback: T): T {
+  const text = optionalFlag(args, flag);
+  if (text === undefined) return fallback;
+  const v = parseNumber(`--${flag}`, text);
+  if (!allowed.includes(v as T)) throw new UsageError(`--${flag} must be ${allowed.join(' or ')}; received ${JSON.stringify(text)}`);
+  return v as T;
+}
+
+/** One characterisation pass on a (corrected) phase series. */
+function characterise(phase: Float64Array, t: Float64Array, tau0: number, opts: {
+  degree: 1 | 2; referenceTime: number; states: ClockStates; rFit: number; rFitStd: number; rFilter: number; predict: number[];
+}) {
+  const valid: number[] = [];
+  for (let k = 0; k < phase.length; k++) if (phase[k] === phase[k]) valid.push(k);
+  const tv = Float64Array.from(valid, (k) => t[k] as number);
+  const zv = Float64Array.from(valid, (k) => phase[k] as number);
+  const poly = fitClockPolynomial(tv, zv, { degree: opts.degree, referenceTime: opts.referenceTime });
+  const residual = new Float64Array(phase.length).fill(Number.NaN);
+  valid.forEach((k, i) => { residual[k] = poly.residuals[i] as number; });
+  const statistic = opts.states === 3 ? 'ohdev' : 'oadev';
+  const analysis = analyzeStability({ phase: residual, tau0 }, { statistics: [statistic] });
+  const noise: StabilityRowsFit = diffusionFromStabilityRows(analysis.rows, { states: opts.states, measurementVariance: opts.rFit, measurementVarianceStd: opts.rFitStd });
+  const polyNoise = polynomialNoiseCovariance(tv, { degree: opts.degree, referenceTime: opts.referenceTime, q: noise.q, measurementVariance: opts.rFit, predict: opts.predict });
+  const filter: ClockFilterRun = runClockFilter({ phase, t, variance: opts.rFilter }, { q: noise.q, states: opts.states });
+  return { poly, noise, polyNoise, filter, used: valid.length };
+}
+
+function correct(phase: Float64Array, t: Float64Array, jumps: readonly DetectedJump[], rejected: readonly number[]): Float64Array {
+  const out = Float64Array.from(phase);
+  for (const j of jumps) {
+    for (let k = j.updateIndex; k < out.length; k++) {
+      // Phase step: x shifts by ν̂ from the jump epoch on; frequency step: x bends by ν̂·(t − θ).
+      out[k] = (out[k] as number) - (j.kind === 'phase' ? j.size : j.size * ((t[k] as number) - j.epoch));
+    }
+  }
+  for (const k of rejected) out[k] = Number.NaN;
+  return out;
+}
+
+const fmt = (v: number, d = 4): string => sig(v, d);
+const pm = (v: number, s: number, unit: string): string => `${fmt(v, 6)} ± ${fmt(s, 2)}${unit ? ` ${unit}` : ''}`;
+
+export const clockCommand: Command = {
+  name: 'clock',
+  summary: 'Characterise a clock from its phase record: af0/af1/af2 with uncertainty, noise q1/q2/q3 from the stability of the residuals, Kalman outliers and jumps.',
+  usage: '(--phase <file> | --rinex-clock <file> --clock <name>) [--tau0 <s>] [--degree 1|2] [--reference-time <s>] [--predict <s,...>] [--states 2|3] [--measurement-sigma <s>] [--scenario-noise] [--json]',
+  flags: {
+    phase: { type: 'string', value: '<file>', description: 'Phase (time error) record: one value in seconds per line, or two columns time (s), phase (s); # comments.' },
+    'rinex-clock': { type: 'string', value: '<file>', description: 'RINEX clock file (2.00–3.04); the clock bias of --clock is used as phase.' },
+    clock: { type: 'string', value: '<name>', description: 'Satellite (e.g. G05) or station name in the RINEX clock file.' },
+    tau0: { type: 'string', value: '<s>', description: 'Sample spacing τ0 in seconds (required for one-column files).' },
+    degree: { type: 'string', value: '1|2', description: 'Polynomial degree: 1 = af0, af1; 2 = af0, af1, af2 (default 2).' },
+    'reference-time': { type: 'string', value: '<s>', description: 'Reference epoch t_oc of af0/af1/af2, in the record\'s seconds (default: first epoch).' },
+    predict: { type: 'string', value: '<s,...>', description: 'Epochs (record seconds, ≥ the last sample) at which to predict the phase with its 1σ.' },
+    states: { type: 'string', value: '2|3', description: 'Noise model: 2 = q1, q2 from OADEV; 3 = q1, q2, q3 from OHDEV (default 2).' },
+    'measurement-sigma': { type: 'string', value: '<s>', description: 'White measurement noise 1σ of the phase, in seconds (default: estimated from the record).' },
+    'scenario-noise': { type: 'boolean', description: 'Also print { "q1", "q2", "q3" } for a steering scenario\'s clock.noise.' },
+    json: { type: 'boolean', description: 'Print one JSON object instead of tables.' },
+  },
+  details: `
+Procedure (each step an SDK call, nothing interpolated):
+ 1. Measurement noise σ_v: --measurement-sigma, or the lag-2 autocovariance of the second differences
+    (measurementNoiseFromPhase). When it is not significantly above zero, the noise fit assumes none and the
+    filter uses its 2σ upper bound.
+ 2. Pass 1: least-squares polynomial (fitClockPolynomial) → OADEV/OHDEV of the residuals (NIST SP 1065)
+    → q1, q2(, q3) (diffusionFromStabilityRows, Zucca & Tavella 2005 variance forms) → Kalman pass
+    (runClockFilter: NIS gate for outliers, GLR phase/frequency jump detection, Willsky & Jones 1976).
+ 3. If jumps or outliers were found: phases corrected by the estimated jumps, outliers removed, and pass 2
+    repeats step 2 on the corrected record (up to 3 passes). Reported model = last pass.
+Uncertainties: af0/af1/af2 and predictions under the fitted clock noise plus measurement noise
+(polynomialNoiseCovariance; the white-noise formula would understate them); q's with χ² intervals (±1σ
+level) from a covariance that accounts for the correlation of overlapping estimates.
+h-coefficients (IEEE Std 1139, one-sided): h0 = 2q1, h₋₂ = q2/(2π²), h₋₄ = q3/(8π⁴).
+Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0 success, 2 unusable input.`,
+  async run(args, io) {
+    const num = (flag: string): number | undefined => {
+      const text = optionalFlag(args, flag);
+      return text === undefined ? undefined : parseNumber(`--${flag}`, text);
+    };
+    const tau0Flag = num('tau0');
+    const degree = choice(args, 'degree', [1, 2] as const, 2);
+    const states = choice(args, 'states', [2, 3] as const, 2);
+    const sigmaFlag = num('measurement-sigma');
+    if (sigmaFlag !== undefined && !(sigmaFlag > 0)) throw new UsageError(`--measurement-sigma must be > 0 s; received ${sigmaFlag}`);
+    const predictText = optionalFlag(args, 'predict');
+    const predict = predictText === undefined ? [] : predictText.split(',').map((v) => parseNumber('--predict', v));
+    const rec = await loadRecord(args, tau0Flag);
+    const firstValid = rec.phase.findIndex((v) => v === v);
+    const referenceTime = num('reference-time') ?? (rec.t[firstValid] as number);
+    const lastT = rec.t[rec.t.length - 1] as number;
+    for (const p of predict) if (p < lastT) throw new UsageError(`--predict: ${p} s is before the last sample epoch ${lastT} s; predictions are for epochs after the record`);
+
+    const noiseEstimate = sigmaFlag === undefined ? measurementNoiseFromPhase(rec.phase) : undefined;
+    const rFit = sigmaFlag !== undefined ? sigmaFlag ** 2 : noiseEstimate!.resolved ? noiseEstimate!.variance : 0;
+    const rFilter = sigmaFlag !== undefined ? sigmaFlag ** 2
+      : noiseEstimate!.resolved ? noiseEstimate!.variance : Math.max(noiseEstimate!.variance, 0) + 2 * noiseEstimate!.standardError;
+    const measurementSource = sigmaFlag !== undefined ? 'given' : noiseEstimate!.resolved ? 'estimated' : 'unresolved (filter uses the 2σ upper bound; noise fit assumes 0)';
+
+    const rFitStd = sigmaFlag === undefined && noiseEstimate!.resolved ? noiseEstimate!.standardError : 0;
+    const opts = { degree, referenceTime, states, rFit, rFitStd, rFilter, predict };
+    let phase = rec.phase;
+    const events: { pass: number; jumps: DetectedJump[]; rejected: { index: number; t: number; innovation: number; nis: number }[] }[] = [];
+    let result = characterise(phase, rec.t, rec.tau0, opts);
+    for (let pass = 1; pass <= 3; pass++) {
+      const f = result.filter;
+      // Samples rejected between a jump's epoch and its declaration belong to the jump (the correction fixes them).
+      const absorbed = (k: number): boolean => f.jumps.some((j) => k >= j.updateIndex && k <= j.declaredAtUpdate);
+      const outliers = f.rejected.filter((k) => !absorbed(k));
+      const rejected = outliers.map((k) => ({ index: k, t: rec.t[k] as number, innovation: f.innovation[k] as number, nis: f.nis[k] as number }));
+      events.push({ pass, jumps: [...f.jumps], rejected });
+      if (f.jumps.length === 0 && outliers.length === 0) break;
+      if (pass === 3) break;
+      phase = correct(phase, rec.t, f.jumps, outliers);
+      result = characterise(phase, rec.t, rec.tau0, opts);
+    }
+    const { poly, noise, polyNoise, filter } = result;
+    const names = degree === 2 ? ['af0', 'af1', 'af2'] : ['af0', 'af1'];
+    const units = ['s', '', '1/s'];
+    const coefficients = names.map((name, i) => ({ name, value: poly.coefficients[i] as number, std: polyNoise.std[i] as number, whiteNoiseStd: Math.sqrt((poly.covariance[i] as number[])[i] as number), unit: units[i] === '' ? 'dimensionless' : units[i] }));
+    const residualRms = Math.sqrt(poly.chiSquare / poly.residuals.length);
+    const reducedChiSquare = rFit > 0 ? poly.chiSquare / rFit / poly.dof : Number.NaN;
+    const predictions = predict.map((T, j) => ({ t: T, phase: poly.predict(T), std: polyNoise.predictStd[j] as number }));
+    const qNames = (states === 3 ? ['q1', 'q2', 'q3'] : ['q1', 'q2']) as ('q1' | 'q2' | 'q3')[];
+    const qUnits = { q1: 's', q2: '1/s', q3: '1/s³' };
+    const allJumps = events.flatMap((e) => e.jumps.map((j) => ({ pass: e.pass, ...j, index: j.updateIndex })));
+    const allRejected = events.flatMap((e) => e.rejected.map((r) => ({ pass: e.pass, ...r })));
+    const scenarioNoise = { q1: noise.q.q1, q2: noise.q.q2, q3: noise.q.q3 };
+
+    if (args.values['json']) {
+      io.out(toJson({
+        input: { file: rec.source, ...(rec.clock ? { clock: rec.clock } : {}), ...(rec.timeSystem ? { timeSystem: rec.timeSystem } : {}), samples: rec.phase.length, tau0: rec.tau0, gaps: rec.gaps, firstEpoch: rec.t[0], lastEpoch: lastT },
+        measurementNoise: { sigma: Math.sqrt(rFilter), source: measurementSource, ...(noiseEstimate ? { estimateVariance: noiseEstimate.variance, estimateStandardError: noiseEstimate.standardError } : {}), varianceInNoiseFit: rFit },
+        polynomial: {
+          degree, referenceTime, coefficients, residualRms, reducedChiSquare, dof: poly.dof, samplesUsed: result.used, predictions,
+          uncertaintyNote: 'std: under the fitted clock noise (q) plus measurement noise; whiteNoiseStd: residual-scaled white-noise formula, for comparison',
+          caution: FLIGHT_CAUTION,
+        },
+        noise: {
+          states, statistic: noise.statistic, q: noise.q, qStd: noise.qStd, intervals: noise.intervals, confidence: noise.confidence, atZero: noise.atZero,
+          h: noise.h, hStd: noise.hStd, chiSquare: noise.chiSquare, dof: noise.dof, chiSquareProbability: noise.chiSquareProbability,
+          points: noise.points, excluded: noise.excluded,
+        },
+        filter: {
+          states: filter.states, passes: events.length, jumps: allJumps, rejected: allRejected, nis: filter.nisSummary,
+        },
+        ...(args.values['scenario-noise'] ? { scenarioNoise } : {}),
+      }));
+      return EXIT_OK;
+    }
+
+    io.out(`clock record ${rec.source}${rec.clock ? ` (clock ${rec.clock}${rec.timeSystem ? `, ${rec.timeSystem} time` : ''})` : ''}: ${rec.phase.length} samples, τ0 = ${sig(rec.tau0)} s, ` +
+      `epochs ${sig(rec.t[0] as number, 12)} … ${sig(lastT, 12)} s, ${rec.gaps.reduce((a, g) => a + g.missing, 0)} missing\n`);
+    io.out(`measurement noise σ_v = ${fmt(Math.sqrt(rFilter), 3)} s (${measurementSource}${noiseEstimate ? `; lag-2 estimate ${fmt(noiseEstimate.variance, 3)} ± ${fmt(noiseEstimate.standardError, 2)} s²` : ''})\n\n`);
+
+    io.out(`Polynomial model x(t) = af0 + af1·(t − t_oc)${degree === 2 ? ' + af2·(t − t_oc)²' : ''}, t_oc = ${sig(referenceTime, 12)} s, degree ${degree}, ${result.used} samples\n`);
+    io.out(table(['coefficient', 'value', '1σ (clock noise)', '1σ (white-noise formula)', 'unit'],
+      coefficients.map((c) => [c.name, fmt(c.value, 10), fmt(c.std, 3), fmt(c.whiteNoiseStd, 3), c.unit])));
+    io.out(keyValueTable([
+      ['residual RMS', `${fmt(residualRms, 4)} s`],
+      ['reduced χ² (vs σ_v²)', Number.isFinite(reducedChiSquare) ? `${fmt(reducedChiSquare, 4)} (residuals are clock noise, not white: >> 1 is expected)` : 'n/a (no measurement noise resolved)'],
+    ]));
+    for (const p of predictions) io.out(`prediction at t = ${sig(p.t, 12)} s: x = ${pm(p.phase, p.std, 's')} (1σ, model + clock noise after the record)\n`);
+    io.out(`${FLIGHT_CAUTION}\n\n`);
+
+    io.out(`Noise model (${states}-state, from ${noise.statistic.toUpperCase()} of the residuals; ${sig(noise.confidence * 100, 4)} % χ² intervals)\n`);
+    io.out(table(['coefficient', 'value', '1σ', 'interval', 'unit', 'h-coefficient'],
+      qNames.map((n) => {
+        const iv = noise.intervals[n];
+        const hName = n === 'q1' ? 'h0' : n === 'q2' ? 'hMinus2' : 'hMinus4';
+        const hLabel = n === 'q1' ? 'h0' : n === 'q2' ? 'h₋₂' : 'h₋₄';
+        const interval = noise.atZero.includes(n) ? 'held at 0 (not resolved)' : iv ? `[${fmt(iv.low, 3)}, ${fmt(iv.high, 3)}]` : '—';
+        return [n, fmt(noise.q[n], 4), fmt(noise.qStd[n], 2), interval, qUnits[n], `${hLabel} = ${fmt(noise.h[hName], 4)} ± ${fmt(noise.hStd[hName], 2)} ${qUnits[n]}`];
+      })));
+    io.out(`fit: χ² = ${fmt(noise.chiSquare, 4)} on ${noise.dof} dof (p = ${fmt(noise.chiSquareProbability, 3)})${noise.excluded.length ? `; left out: ${noise.excluded.map((e) => `τ = ${sig(e.tau)} s (${e.reason})`).join(', ')}` : ''}\n`);
+    io.out(table(['τ (s)', noise.statistic, 'model', 'edf', 'residual (σ)'],
+      noise.points.map((p) => [sig(p.tau, 6), p.deviation.toExponential(3), p.modelDeviation.toExponential(3), fmt(p.edf, 3), p.normalizedResidual.toFixed(2)])));
+    io.out('\n');
+
+    io.out(`Kalman pass (${filter.states}-state, R = σ_v², q from the noise model; ${events.length} pass(es))\n`);
+    if (allJumps.length === 0) io.out('jumps: none detected\n');
+    else {
+      io.out(table(['pass', 'kind', 'epoch (s)', 'sample', 'size', '1σ', 'unit'],
+        allJumps.map((j) => [String(j.pass), j.kind, sig(j.epoch, 12), String(j.index), fmt(j.size, 4), fmt(j.sizeStd, 2), j.kind === 'phase' ? 's' : 'dimensionless'])));
+    }
+    if (allRejected.length === 0) io.out('outliers: none rejected\n');
+    else {
+      io.out(table(['pass', 'epoch (s)', 'sample', 'innovation (s)', 'NIS'],
+        allRejected.map((r) => [String(r.pass), sig(r.t, 12), String(r.index), fmt(r.innovation, 4), fmt(r.nis, 4)])));
+    }
+    const nis = filter.nisSummary;
+    const inside = nis.mean >= nis.low && nis.mean <= nis.high;
+    io.out(`mean NIS ${fmt(nis.mean, 4)} over ${nis.count} updates; ${sig(nis.confidence * 100, 3)} % χ² bounds [${fmt(nis.low, 4)}, ${fmt(nis.high, 4)}]: ${inside ? 'consistent' : 'NOT consistent (noise model or σ_v off)'}\n`);
+    if (allJumps.length > 0 || allRejected.length > 0) {
+      io.out(`The model and noise above come from the record${allJumps.length ? ' corrected for these jumps' : ''}${allJumps.length && allRejected.length ? ' and' : ''}${allRejected.length ? ' without the rejected samples' : ''}.\n`);
+    }
+    if (args.values['scenario-noise']) {
+      io.out(`\nSteering scenario clock.noise (q1 in s, q2 in 1/s, q3 in 1/s³):\n${JSON.stringify(scenarioNoise)}\n`);
+    }
+    return EXIT_OK;
+  },
+};
