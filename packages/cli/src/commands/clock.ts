@@ -206,7 +206,8 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
         const iv = noise.intervals[n];
         const hName = n === 'q1' ? 'h0' : n === 'q2' ? 'hMinus2' : 'hMinus4';
         const hLabel = n === 'q1' ? 'h0' : n === 'q2' ? 'h₋₂' : 'h₋₄';
-        const interval = noise.atZero.includes(n) ? 'held at 0 (not resolved)' : iv ? `[${fmt(iv.low, 3)}, ${fmt(iv.high, 3)}]` : '—';
+        const interval = noise.atZero.includes(n) ? 'held at 0 (not resolved)'
+          : iv ? `[${fmt(iv.low, 3)}, ${fmt(iv.high, 3)}]${iv.edf < 1 ? ' (not resolved)' : ''}` : '—';
         return [n, fmt(noise.q[n], 4), fmt(noise.qStd[n], 2), interval, qUnits[n], `${hLabel} = ${fmt(noise.h[hName], 4)} ± ${fmt(noise.hStd[hName], 2)} ${qUnits[n]}`];
       })));
     io.out(`fit: χ² = ${fmt(noise.chiSquare, 4)} on ${noise.dof} dof (p = ${fmt(noise.chiSquareProbability, 3)})${noise.excluded.length ? `; left out: ${noise.excluded.map((e) => `τ = ${sig(e.tau)} s (${e.reason})`).join(', ')}` : ''}\n`);

@@ -59,7 +59,7 @@ export interface StabilityRowsFitOptions {
 export interface DiffusionInterval {
   /**
    * Lower and upper bound, in the coefficient's unit (s, 1/s or 1/s³). NaN when the coefficient is held
-   * at 0; `high` is Infinity when ν is so small (≪ 1) that the coefficient is not resolved.
+   * at 0. When ν < 1 (not resolved) `low` is 0; `high` is Infinity when ν is so small that the χ² quantile underflows.
    */
   readonly low: number;
   readonly high: number;
@@ -378,7 +378,10 @@ export function diffusionFromStabilityRows(rows: readonly StabilityRow[], option
       // For ν ≪ 1 the lower χ² quantile underflows: the coefficient is not resolved and the bound is unlimited.
       if (!(e instanceof ConvergenceError)) throw e;
     }
-    return { low: (edf * value) / chiSquareUpperQuantile(alpha / 2, edf), high: lowerQuantile > 0 ? (edf * value) / lowerQuantile : Infinity, edf };
+    const high = lowerQuantile > 0 ? (edf * value) / lowerQuantile : Infinity;
+    // ν < 1: the coefficient is within its own uncertainty of zero and the χ² lower bound can even exceed q̂;
+    // the interval then starts at 0 (not resolved).
+    return { low: edf < 1 ? 0 : (edf * value) / chiSquareUpperQuantile(alpha / 2, edf), high, edf };
   };
   const intervals = states === 3 ? { q1: interval(0), q2: interval(1), q3: interval(2) } : { q1: interval(0), q2: interval(1) };
   const points = used.map((u, i): StabilityRowFitPoint => {
