@@ -15,6 +15,7 @@ import type { TimeScales } from '../time/scales.js';
 import type { DiffusionCoefficients, Matrix3 } from './clock-math.js';
 import { parseUtcStamp, requireInsideTable, resolveTimeScales, type TimeScaleOptions } from './utc-stamps.js';
 import { rateChangeForSemiMajorAxisChange } from '../relativity/rate.js';
+import { CONSTANT_SETS, DEFAULT_CONSTANT_SET } from '../constants.js';
 import { diffusionFromStabilitySpec } from '../clock-model/noise.js';
 
 /** One uplink opportunity (ISO 8601 UTC stamps with a zone designator; `23:59:60Z` where a leap second exists). */
@@ -139,6 +140,8 @@ export interface SteeringScenario {
   maneuvers?: ManeuverSpec[];
   strategy: StrategySpec;
   costWeights?: CostWeights;
+  /** Constant-set name for the manoeuvre rate changes (default `iers-2010`; see `constantSet`). */
+  constants?: string;
 }
 
 /** The scenario after validation: times in seconds since the epoch, noise as q1..q3. */
@@ -304,7 +307,7 @@ function validateStrategy(value: unknown): StrategySpec {
  * resolution, range min ≤ initial ≤ max with min ≤ 0 ≤ max; phase-step resolution > 0 when
  * allowed; spacing and time-tag ≥ 0; manoeuvres inside the horizon with semi-major axes above
  * the Earth's radius (the relativistic rate change, (3GM/(2c²))(1/aBefore − 1/aAfter), comes from
- * `rateChangeForSemiMajorAxisChange` of the relativity module, IERS 2010 constants).
+ * `rateChangeForSemiMajorAxisChange` of the relativity module, with the scenario's `constants` set, default IERS 2010).
  *
  * @param input    The parsed scenario file (unknown JSON).
  * @param options  `timeScales`: the time scales (leap-second table) for the UTC stamps.
@@ -316,7 +319,15 @@ export function validateScenario(input: unknown, options: TimeScaleOptions = {})
   const timeScales = resolveTimeScales(options);
   const root = requireObject('scenario', input);
   rejectUnknownKeys('', root, ['$schema', 'name', 'description', 'epoch', 'horizonSeconds', 'gridSeconds', 'clock',
-    'tolerance', 'contacts', 'actuator', 'maneuvers', 'strategy', 'costWeights']);
+    'tolerance', 'contacts', 'actuator', 'maneuvers', 'strategy', 'costWeights', 'constants']);
+  let constants = DEFAULT_CONSTANT_SET;
+  if (root['constants'] !== undefined) {
+    const name = root['constants'];
+    if (typeof name !== 'string' || !CONSTANT_SETS[name.toLowerCase()]) {
+      throw new InvalidArgumentError('constants', name, `one of ${Object.keys(CONSTANT_SETS).join(', ')}`);
+    }
+    constants = CONSTANT_SETS[name.toLowerCase()]!;
+  }
   for (const key of ['name', 'description'] as const) {
     if (root[key] !== undefined && typeof root[key] !== 'string') throw new InvalidArgumentError(key, root[key], 'a string');
   }
@@ -428,7 +439,7 @@ export function validateScenario(input: unknown, options: TimeScaleOptions = {})
       if (t < 0 || t > horizon) throw new InvalidArgumentError(`maneuvers[${i}].at`, o['at'], `inside the horizon [epoch, epoch + ${horizon} s]`);
       const aBefore = requireOrbitRadius(`maneuvers[${i}].semiMajorAxisBefore`, o['semiMajorAxisBefore']);
       const aAfter = requireOrbitRadius(`maneuvers[${i}].semiMajorAxisAfter`, o['semiMajorAxisAfter']);
-      maneuvers.push({ t, index: i, aBefore, aAfter, rateChange: rateChangeForSemiMajorAxisChange(aBefore, aAfter) });
+      maneuvers.push({ t, index: i, aBefore, aAfter, rateChange: rateChangeForSemiMajorAxisChange(aBefore, aAfter, { constants }) });
     });
     maneuvers.sort((a, b) => a.t - b.t || a.index - b.index);
   }

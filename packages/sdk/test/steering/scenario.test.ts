@@ -89,6 +89,14 @@ describe('validateScenario', () => {
     }));
     expect(n.maneuvers[0]!.rateChange / 1000).toBeCloseTo(9.4292e-18, 21);
   });
+
+  it('validateScenario(scenario) uses the scenario constant set for manoeuvres: the GPS interface-spec GM changes the rate by the GM ratio (IS-GPS-200 μ [M] vs IERS 2010 [V2])', () => {
+    const maneuvers = [{ at: '2027-01-01T10:00:00Z', semiMajorAxisBefore: 26_561_750, semiMajorAxisAfter: 26_562_750 }];
+    const iers = validateScenario(baseScenario({ maneuvers })).maneuvers[0]!.rateChange;
+    const gps = validateScenario(baseScenario({ maneuvers, constants: 'gps-icd' })).maneuvers[0]!.rateChange;
+    expect(gps / iers).toBeCloseTo(3.986005e14 / 3.986004418e14, 12);
+    expect(() => validateScenario(baseScenario({ maneuvers, constants: 'wgs72' }))).toThrow(/constants must be one of iers-2010/);
+  });
 });
 
 describe('noiseToDiffusion', () => {
