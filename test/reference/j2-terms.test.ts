@@ -23,7 +23,7 @@ const A = 26_561_750;
 const INC = 55 * DEG;
 
 /** Least squares by normal equations with partial pivoting (small, well-conditioned bases only). */
-function fit(rows: number[][], y: number[]): number[] {
+function leastSquaresFit(rows: number[][], y: number[]): number[] {
   const m = rows[0]!.length;
   const M = Array.from({ length: m }, () => new Array<number>(m + 1).fill(0));
   rows.forEach((row, k) => {
@@ -62,7 +62,7 @@ describe('numerical J2 orbit (a = 26 561 750 m, i = 55°, osculating circular at
     withConvention.push(run.tauMinusTT[k]! + (2 * rv) / SPEED_OF_LIGHT_SQUARED);
     raw.push(run.tauMinusTT[k]!);
   }
-  const residualFit = fit(basis4, withConvention);
+  const residualFit = leastSquaresFit(basis4, withConvention);
   const amplitudes = j2PeriodicAmplitudes(A, INC, C);
 
   it('Kouba residual: the fitted sin 2u coefficient of (τ − TT) + 2r·v/c² is −7.1934e-11 s and matches j2ResidualPeriodicTerm to 4 digits', () => {
@@ -71,10 +71,10 @@ describe('numerical J2 orbit (a = 26 561 750 m, i = 55°, osculating circular at
   });
 
   it('total J2 term: with the free-eccentricity 1/rev terms in the fit, the sin 2u coefficient matches j2TotalPeriodicTerm (−2.398e-11 s) to 3 digits', () => {
-    const total = fit(basis6, raw);
+    const total = leastSquaresFit(basis6, raw);
     expect(total[4]! / -amplitudes.totalAmplitude).toBeCloseTo(1, 3);
     // Without the 1/rev terms the fit gives the sheet's −2.62e-11 s (free eccentricity leaks into sin 2u).
-    expect(fit(basis4, raw)[2]! * 1e11).toBeCloseTo(-2.62, 2);
+    expect(leastSquaresFit(basis4, raw)[2]! * 1e11).toBeCloseTo(-2.62, 2);
   });
 
   it('rate trap: the fitted rate is −1.55e-14 (−1.34 ns/day) below L_G − 3GM/(2ac²) with the osculating a (reference sheet §5 [C])', () => {
