@@ -28,7 +28,7 @@ export const L_B: Dimensionless = 1.550519768e-8;
 /** TT − TAI, in seconds, exact by definition (IERS Conventions 2010 §10.1) [V1]. */
 export const TT_MINUS_TAI: Seconds = 32.184;
 
-/** Seconds in one day of 86 400 SI seconds. */
+/** Seconds in one day of 86 400 SI seconds (the day of the Julian calendar and of MJD/JD counts; definition, common practice). */
 export const SECONDS_PER_DAY: Seconds = 86_400;
 
 /** Geoid potential W₀, in m²/s² (IERS Conventions 2010 Table 1.1 [V2]; GB/T 39787-2021 Table 2 [V1]). */
@@ -94,7 +94,7 @@ export const IERS_2010: ConstantSet = freeze({
   pi: Math.PI,
   sources: {
     gm: 'IERS Conventions 2010 Table 1.1 [V2]; GB/T 39787-2021 §4.2.2 [V1]',
-    earthRotationRate: 'IERS Conventions 2010 Table 1.1 nominal ω [V2]',
+    earthRotationRate: 'IERS Conventions 2010 Table 1.1 nominal ω [M]; same value GB/T 39787-2021 §4.2.2 [V1]',
     equatorialRadius: 'IERS Conventions 2010 Table 1.1 [V2]',
     j2: 'IERS Conventions 2010 Table 1.1 [V2]',
     flattening: 'IERS Conventions 2010 Table 1.1, 1/f = 298.25642 [M]',

@@ -21,10 +21,10 @@ export type DiffusionStatistic = 'oadev' | 'ohdev';
 
 const STATISTICS: readonly DiffusionStatistic[] = ['oadev', 'ohdev'];
 
-/** Difference filters of the overlapping statistics, taps at x_i, x_{i+m}, x_{i+2m}(, x_{i+3m}) (NIST SP 1065 §5.2.4, §5.2.8). */
+/** Difference filters of the overlapping statistics, taps at x_i, x_{i+m}, x_{i+2m}(, x_{i+3m}) (NIST SP 1065 §5.2.4, §5.2.8 [M section]). */
 const FILTERS: Readonly<Record<DiffusionStatistic, readonly number[]>> = { oadev: [1, -2, 1], ohdev: [-1, 3, -3, 1] };
 
-/** Normalisation of the squared term: σ² = mean(term²)/(c·τ²), c = 2 (Allan), 6 (Hadamard) (NIST SP 1065 §5.2). */
+/** Normalisation of the squared term: σ² = mean(term²)/(c·τ²), c = 2 (Allan), 6 (Hadamard) (NIST SP 1065 §5.2 [M section; reproduced against its test data, C]). */
 const NORMS: Readonly<Record<DiffusionStatistic, number>> = { oadev: 2, ohdev: 6 };
 
 /** Options of {@link diffusionFromStabilityRows}. */
@@ -143,19 +143,19 @@ export interface StabilityRowsFit {
   readonly weightedFit: DiffusionFit;
 }
 
-/** Probability inside ±1σ of a normal distribution, erf(1/√2). */
+/** Probability inside ±1σ of a normal distribution, erf(1/√2) (computed [C]). */
 const ONE_SIGMA = 0.6826894921370859;
 
 /**
  * Expected variance that white phase noise of variance σ² (independent samples) adds to one row:
  * Allan 3σ²/τ² (E[(x_{i+2m} − 2x_{i+m} + x_i)²] = 6σ²), Hadamard 10σ²/(3τ²) (E[(Δ³x)²] = 20σ²).
- * Agrees with the WPM row of physics-refs §10, 3 f_h h₂/(4π²τ²), for f_h = 1/(2τ0) and h₂ = 8π²σ²τ0 [C].
+ * Agrees with the WPM Allan form 3 f_h h₂/(4π²τ²) (IEEE Std 1139 / NIST SP 1065 [M]) for f_h = 1/(2τ0) and h₂ = 8π²σ²τ0 [C].
  */
 function whitePhaseContribution(statistic: DiffusionStatistic, tau: number, variance: number): number {
   return ((statistic === 'oadev' ? 3 : 10 / 3) * variance) / (tau * tau);
 }
 
-/** Clock-only variance model row: coefficients of q (Zucca & Tavella 2005; physics-refs §11). */
+/** Clock-only variance model row: coefficients of q (Zucca & Tavella 2005 [M citation]; verified by simulation [C]). */
 function designRow(statistic: DiffusionStatistic, tau: number, states: ClockStates): number[] {
   const row = statistic === 'oadev' ? [1 / tau, tau / 3, 0] : [1 / tau, tau / 6, (11 * tau ** 3) / 120];
   return row.slice(0, states);
@@ -166,7 +166,7 @@ function designRow(statistic: DiffusionStatistic, tau: number, states: ClockStat
  *   G(t) = −q1τ0|t|/2 + q2(τ0|t|)³/12 − q3(τ0|t|)⁵/240 + σ_v²·[t = 0]
  * (x = W1 + ∫W2 + ∫∫W3 with independent Wiener processes of diffusion q1, q2, q3, Zucca & Tavella 2005,
  * plus white measurement noise). Checked [C]: the Allan filter gives E[(Δ²x)²] = 2τ²(q1/τ + q2τ/3) and
- * the Hadamard filter 6τ²(q1/τ + q2τ/6 + 11q3τ³/120), the forms of physics-refs §11.
+ * the Hadamard filter 6τ²(q1/τ + q2τ/6 + 11q3τ³/120), the Zucca & Tavella forms [M citation].
  */
 function generalizedCovarianceTable(size: number, tau0: number, q: Required<ClockDiffusion>, rv: number): Float64Array {
   const g = new Float64Array(size);
@@ -244,8 +244,8 @@ function scaledInverse(a: Matrix): Matrix | undefined {
  * @throws {InvalidArgumentError} for rows that are not an array or a malformed row, states not 2/3, an unknown
  *         statistic, `oadev` in a 3-state fit, a negative measurement variance, a bad τ range, or fewer usable
  *         rows than coefficients.
- * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation] (variance relations, physics-refs §11);
- *      W. J. Riley, NIST SP 1065 (2008) §5.2, §5.3 (statistics, edf); L. Isserlis, Biometrika 12, 134–139 (1918) [M]
+ * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation] (variance relations, verified by simulation [C]);
+ *      W. J. Riley, NIST SP 1065 (2008) §5.2, §5.3 (statistics, edf) [M section]; L. Isserlis, Biometrika 12, 134–139 (1918) [M]
  *      (fourth moments of Gaussian variables).
  */
 export function diffusionFromStabilityRows(rows: readonly StabilityRow[], options: StabilityRowsFitOptions = {}): StabilityRowsFit {
@@ -369,7 +369,7 @@ export function diffusionFromStabilityRows(rows: readonly StabilityRow[], option
     const value = q[names[c] as 'q1'];
     const variance = (covariance[c] as number[])[c] as number;
     if (!free.includes(c) || !(value > 0) || !(variance > 0)) return { low: Number.NaN, high: Number.NaN, edf: Number.NaN };
-    // Satterthwaite (1946): ν = 2E²/Var for a linear combination of χ² variables.
+    // Satterthwaite (1946), Biometrics Bull. 2(6):110–114 [M]: ν = 2E²/Var for a linear combination of χ² variables.
     const edf = (2 * value * value) / variance;
     let lowerQuantile = 0;
     try {

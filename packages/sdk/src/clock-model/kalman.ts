@@ -101,7 +101,7 @@ function checkQForStates(q: Required<ClockDiffusion>, states: ClockStates, argum
  * @param horizons  Horizons τ ≥ 0 from `estimate.t`, in seconds (one forecast each, in the given order).
  * @returns One {@link ClockForecast} per horizon: time, mean, covariance, phase and frequency σ.
  * @throws {InvalidArgumentError} for a malformed estimate, negative q, q3 > 0 with 2 states, or a negative/NaN horizon.
- * @see R. E. Kalman, J. Basic Eng. 82(1), 35–45 (1960) (time update); Zucca & Tavella (2005) for Φ and Q.
+ * @see R. E. Kalman, J. Basic Eng. 82(1), 35–45 (1960) (time update) [M]; Zucca & Tavella (2005) for Φ and Q [M citation].
  */
 export function forecastClock(estimate: ClockEstimate, q: ClockDiffusion, horizons: readonly Seconds[]): ClockForecast[] {
   const e = requireEstimate('estimate', estimate);
@@ -231,15 +231,15 @@ interface JumpHypothesis {
 /**
  * Kalman filter for a clock with phase measurements.
  *
- * Time update: s⁻ = Φ(τ)s, P⁻ = ΦPΦᵀ + Q(τ) (Q from q1, q2, q3; Zucca & Tavella 2005).
+ * Time update: s⁻ = Φ(τ)s, P⁻ = ΦPΦᵀ + Q(τ) (Q from q1, q2, q3; Zucca & Tavella 2005 [M citation]; Kalman 1960 [M]).
  * Measurement update (H = [1, 0(, 0)], scalar z with variance R): ν = z − x̂⁻, S = P⁻₁₁ + R,
  * K = P⁻Hᵀ/S, s = s⁻ + Kν, P = (I − KH)P⁻(I − KH)ᵀ + KRKᵀ (Joseph form, for numerical safety;
- * Bucy & Joseph 1968). NIS = ν²/S.
+ * Bucy & Joseph 1968 [M]). NIS = ν²/S (Bar-Shalom, Li & Kirubarajan 2001 §5.4 [M]).
  *
  * Outliers: a measurement with NIS above the χ²(1) gate is rejected (no state change) and reported.
  * Jumps: the generalised likelihood ratio of Willsky & Jones, "A generalized likelihood ratio
  * approach to the detection and estimation of jumps in linear systems", IEEE Trans. Autom. Control
- * 21(1), 108–112 (1976): for each candidate epoch θ in a window and each kind (phase: unit step of x;
+ * 21(1), 108–112 (1976) [M]: for each candidate epoch θ in a window and each kind (phase: unit step of x;
  * frequency: unit step of y) the innovation signature G_k = H b_k is tracked, b propagating as
  * b ← Φ b and b ← (I − K H) b with the gains actually applied (0 when rejected). With
  * d = Σ G γ/S and C = Σ G²/S, ν̂ = d/C and l = d²/C. A jump is declared when, for the best

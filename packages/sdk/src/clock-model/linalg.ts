@@ -87,7 +87,7 @@ export function add(a: readonly (readonly number[])[], b: readonly (readonly num
 
 /**
  * Cholesky factor L (lower triangular, A = L·Lᵀ) of a symmetric matrix, or `undefined` when a pivot
- * is not positive (Golub & Van Loan, Matrix Computations 4th ed., Alg. 4.2.1). Zero pivots are
+ * is not positive (Golub & Van Loan, Matrix Computations 4th ed., Alg. 4.2.1 [M]). Zero pivots are
  * accepted (positive semi-definite) when `allowSemidefinite`: the column is then set to zero.
  */
 export function cholesky(a: readonly (readonly number[])[], allowSemidefinite = false): Matrix | undefined {

@@ -54,7 +54,7 @@ export interface PolynomialNoiseCovariance {
  * @returns {@link PolynomialNoiseCovariance}.
  * @throws {InvalidArgumentError} for too few or non-increasing epochs, degree not 1/2, a bad q or variance,
  *         or a prediction epoch before the last sample.
- * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation] (Φ, Q; physics-refs §11); covariance of a
+ * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation] (Φ, Q; verified by simulation [C]); covariance of a
  *      linear estimator ℓᵀz is ℓᵀΣℓ (standard linear algebra).
  */
 export function polynomialNoiseCovariance(t: ArrayLike<number>, options: PolynomialNoiseOptions): PolynomialNoiseCovariance {

@@ -60,7 +60,7 @@ export interface ClockPolynomial {
  *
  * Numerics: the fit is done in a centred and scaled time u = (t − c)/s (c = mean epoch, s = half
  * span), on the √w-scaled design matrix, by Householder QR (Golub & Van Loan, Matrix Computations
- * 4th ed., §5.2 and §5.3), never by forming the normal equations; the coefficients and their
+ * 4th ed., §5.2 and §5.3 [M]), never by forming the normal equations; the coefficients and their
  * covariance are then mapped exactly to the t0 basis. Prediction variances are computed in u.
  *
  * @param t        Epochs, in seconds (any order, finite; at least degree + 1 distinct values).
@@ -164,7 +164,7 @@ export function fitClockPolynomial(t: ArrayLike<number>, phase: ArrayLike<number
 }
 
 /**
- * Least squares min ‖A β − b‖ by Householder QR (Golub & Van Loan §5.1.2, §5.3.3); returns β and R⁻¹.
+ * Least squares min ‖A β − b‖ by Householder QR (Golub & Van Loan §5.1.2, §5.3.3 [M]); returns β and R⁻¹.
  * A is n × p with full column rank (guaranteed by the distinct-epoch check for p ≤ 3).
  */
 function householderLeastSquares(aIn: readonly number[][], bIn: readonly number[], p: number): { beta: number[]; rInv: Matrix } {

@@ -65,7 +65,7 @@ export interface ClockSimulation {
  * @returns {@link ClockSimulation}: measured and true phase, true frequency and drift.
  * @throws {InvalidArgumentError} for samples < 2, τ0 ≤ 0, negative q or noise, a non-integer seed,
  *         a jump index outside [1, samples − 1] or a jump of unknown kind.
- * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) (model); physics-refs §11 (Q(τ)).
+ * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation] (model, Q(τ)); exact discretisation checked by simulation [C].
  */
 export function simulateClock(options: ClockSimulationOptions): ClockSimulation {
   if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'a simulation options object');

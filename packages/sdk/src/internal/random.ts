@@ -17,7 +17,8 @@ export interface Random {
  * xoshiro128** 1.1 (D. Blackman & S. Vigna, "Scrambled linear pseudorandom number generators",
  * ACM TOMS 47(4), 2021), state seeded through a splitmix32-style mixer; uniforms use 32 bits,
  * (k + 0.5)/2^32 so that 0 and 1 never occur; normals by Marsaglia's polar method (G. Marsaglia &
- * T. A. Bray, SIAM Review 6(3):260–264, 1964).
+ * T. A. Bray, SIAM Review 6(3):260–264, 1964). Citations from memory [M]; the generator is
+ * checked by its own statistical tests [C].
  *
  * @param seed  Any finite number; its low 32 bits (after truncation) select the stream.
  */

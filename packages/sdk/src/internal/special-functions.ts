@@ -7,6 +7,10 @@
  * relative; P, Q ~1e-13 relative (in the tail that is computed directly); chi-square
  * quantiles ~1e-12 relative for df in [0.5, 1e6] and p in [1e-12, 1 − 1e-12].
  *
+ * Provenance: the formula and section/equation numbers cited below (Abramowitz & Stegun, Numerical
+ * Recipes, Lanczos, Wichura AS 241) are from memory [M]; every routine is checked against
+ * independently computed 50-digit values [C] in the tests.
+ *
  * @internal
  */
 import { ConvergenceError, InvalidArgumentError } from '../errors.js';

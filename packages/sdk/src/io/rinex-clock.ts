@@ -234,7 +234,7 @@ class RinexClockBuilder {
  * @throws {ParseError} (file, line, column) on a missing or wrong version line, missing
  *   `END OF HEADER`, an unknown record type, a bad epoch, a value count outside 1–6, a
  *   malformed number, or a record truncated by the end of the file.
- * @see J. Ray, W. Gurtner, M. J. Coleman, "RINEX Extensions to Handle Clock Information", version 3.04 (IGS, 2017).
+ * @see J. Ray, W. Gurtner, M. J. Coleman, "RINEX Extensions to Handle Clock Information", version 3.04 (IGS, 2017) [M].
  */
 export function parseRinexClock(source: string | Iterable<string>, sourceName = 'rinex-clock'): RinexClockFile {
   const b = new RinexClockBuilder(sourceName);

@@ -19,7 +19,7 @@ import { requireFinite } from '../internal/validate.js';
 import { solveKepler } from './kepler.js';
 import type { StateVector } from './elements.js';
 
-/** Seconds in one week. */
+/** Seconds in one week, 7 × 86 400 (definition). */
 const SECONDS_PER_WEEK: Seconds = 604_800;
 
 /** Navigation systems whose Keplerian broadcast ephemerides are modelled here. */
@@ -137,7 +137,7 @@ export function weekCrossover(dt: Seconds): Seconds {
 /**
  * Whether a BeiDou satellite is geostationary (its D2 ephemeris needs the GEO rotation):
  * C01–C05 and C59–C63.
- * BDS-SIS-ICD (B1I) §5.2.4.12, GEO list: common practice for PRN assignment, no source [M].
+ * PRN ranges from memory [M]; no published assignment list was checked (the GEO algorithm itself: BDS-SIS-ICD B1I §5.2.4.12 [M]).
  */
 export function isBeidouGeostationary(satellite: string): boolean {
   const m = /^C(\d\d)$/.exec(satellite);
@@ -154,7 +154,7 @@ function validateRecord(eph: KeplerianBroadcastEphemeris): void {
     requireFinite(`ephemeris.${key}`, eph[key]);
   }
   const sqrtA = requireFinite('ephemeris.sqrtA', eph.sqrtA, 'a finite √A in √m');
-  // √A between ~2500 √m (a = 6.3e6 m) and 1e5 √m: anything else is not an Earth orbit.
+  // √A between ~2500 √m (a = 6.3e6 m) and 1e5 √m: anything else is not an Earth orbit (plausibility bound, our own choice).
   if (!(sqrtA > 2500 && sqrtA < 1e5)) {
     throw new InvalidArgumentError('ephemeris.sqrtA', sqrtA, 'in (2500, 100000) √m (square root of the semi-major axis in metres)',
       sqrtA > 0 && sqrtA <= 2500 && sqrtA * Math.sqrt(1000) > 2500 ? 'did you give √A with A in kilometres?' : undefined);
@@ -188,7 +188,7 @@ function validateRecord(eph: KeplerianBroadcastEphemeris): void {
  * @throws {InvalidArgumentError} if `t` is not finite or the record has a non-finite field,
  *   √A outside (2500, 1e5) √m or e outside [0, 1).
  * @see IS-GPS-200 Table 20-IV and §20.3.3.3.3.1 [M]; Galileo OS SIS ICD §5.1.1, §5.1.4 [M];
- *   BDS-SIS-ICD B1I §5.2.4.10, §5.2.4.12 [M]. Constants: physics reference sheet §3, §6.
+ *   BDS-SIS-ICD B1I §5.2.4.10, §5.2.4.12 [M]. Constants: the system's ConstantSet, each field with its source and tag.
  */
 export function evaluateBroadcastEphemeris(ephemeris: KeplerianBroadcastEphemeris, t: Seconds): BroadcastEvaluation {
   validateRecord(ephemeris);

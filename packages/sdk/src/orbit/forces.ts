@@ -62,7 +62,7 @@ export interface GravityField {
  * @param options Constants and, for `full`, the epoch of t = 0.
  * @returns A field whose `accelerate` and `potential` are the gradient pair (∇U = acceleration).
  * Validity: `j2` ignores higher harmonics (J3 ≈ −2.5e-6, tesserals): clock-potential error at GNSS
- * altitude ≲ 1e-17 of frequency, at LEO ≲ 1e-15 (common practice, no source). `full` inherits the
+ * altitude ≲ 1e-17 of frequency, at LEO ≲ 1e-15 (our own order-of-magnitude estimate GM·J3·a_e³/(r⁴c²) [C]). `full` inherits the
  * ephemeris accuracy of Montenbruck & Gill §3.3.2 (tidal potential error < 1e-17 of frequency at GNSS altitude [C]).
  * @throws {InvalidArgumentError} for an unknown model or non-finite/negative options.
  * @see IERS Conventions (2010), IERS TN 36, §10.2 eqs. 10.6–10.9 [V1].

@@ -91,6 +91,7 @@ const D: readonly (readonly number[])[] = [
 const N_STAGES = 12;
 /** Order used in the step-size exponent: the error estimate behaves like h⁸ (Hairer et al. 1993, §II.4). */
 const ERROR_EXPONENT = 1 / 8;
+/** Step-size controller: safety factor 0.9 and step ratio limited to [0.2, 10]; common practice, no source (Hairer et al. discuss such limits in §II.4 [M]). */
 const SAFETY = 0.9;
 const MIN_FACTOR = 0.2;
 const MAX_FACTOR = 10;
@@ -103,7 +104,8 @@ interface Segment { t0: number; h: number; y0: Float64Array; F: Float64Array }
  *
  * Error control (Hairer et al. 1993, §II.10, DOP853): per component the scale is
  * atol_i + rtol·max(|y_i|, |y_new,i|); the step is accepted when the combined 5th/3rd-order
- * estimate err = |h|·‖e5‖²/√(n·(‖e5‖² + 0.01‖e3‖²)) ≤ 1, and the next step is h·clamp(0.9·err^(−1/8), 0.2, 10).
+ * estimate err = |h|·‖e5‖²/√(n·(‖e5‖² + 0.01‖e3‖²)) ≤ 1, and the next step is h·clamp(0.9·err^(−1/8), 0.2, 10)
+ * (the clamp limits are common practice, no source).
  *
  * Accuracy: the global error is typically a small multiple of the tolerances; verify by halving
  * them (the SDK's own tests do this for orbit + clock integrations).
@@ -116,7 +118,7 @@ interface Segment { t0: number; h: number; y0: Float64Array; F: Float64Array }
  * @returns Final state, samples, step statistics and (optionally) a dense-output evaluator.
  * @throws {InvalidArgumentError} for a non-finite y0, tEnd ≤ t0, bad tolerances or sample times.
  * @throws {ConvergenceError} if the step size collapses, the state becomes non-finite, or maxSteps is exceeded.
- * @see E. Hairer, S. P. Nørsett, G. Wanner, Solving Ordinary Differential Equations I, 2nd ed. (1993), §II.5, §II.6, §II.10.
+ * @see E. Hairer, S. P. Nørsett, G. Wanner, Solving Ordinary Differential Equations I, 2nd ed. (1993), §II.5, §II.6, §II.10 [M].
  */
 export function integrateDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<number>, tEnd: number,
   options: Dop853Options = {}): Dop853Result {

@@ -198,7 +198,7 @@ export function trueToEccentricAnomaly(trueAnomaly: Radians, eccentricity: Dimen
  * @param eccentricity      e, dimensionless, 0 ≤ e < 1.
  * @returns M, in radians (same revolution as E).
  * @throws {InvalidArgumentError} if E is not finite or e is outside [0, 1).
- * @see Kepler's equation; IS-GPS-200 Table 20-IV [M].
+ * @see Kepler's equation (common practice, no source); IS-GPS-200 Table 20-IV [M].
  */
 export function eccentricToMeanAnomaly(eccentricAnomaly: Radians, eccentricity: Dimensionless): Radians {
   const E = requireFinite('eccentricAnomaly', eccentricAnomaly, 'a finite angle in radians');
@@ -213,7 +213,7 @@ export function eccentricToMeanAnomaly(eccentricAnomaly: Radians, eccentricity: 
  * @param gm             GM of the central body, in m³/s² (> 0).
  * @returns n, in rad/s.
  * @throws {InvalidArgumentError} if a or GM is not a finite positive number.
- * @see Kepler's third law; IS-GPS-200 Table 20-IV "n0 = √(μ/A³)" [M].
+ * @see Kepler's third law (common practice, no source); IS-GPS-200 Table 20-IV "n0 = √(μ/A³)" [M].
  */
 export function meanMotion(semiMajorAxis: Metres, gm: CubicMetresPerSecondSquared): RadiansPerSecond {
   const a = requirePositive('semiMajorAxis', semiMajorAxis, 'm');
@@ -228,7 +228,7 @@ export function meanMotion(semiMajorAxis: Metres, gm: CubicMetresPerSecondSquare
  * @param gm             GM of the central body, in m³/s² (> 0).
  * @returns P, in seconds.
  * @throws {InvalidArgumentError} if a or GM is not a finite positive number.
- * @see Kepler's third law.
+ * @see Kepler's third law (common practice, no source).
  */
 export function orbitalPeriod(semiMajorAxis: Metres, gm: CubicMetresPerSecondSquared): Seconds {
   return TWO_PI / meanMotion(semiMajorAxis, gm);

@@ -77,7 +77,7 @@ export type J2TermKind = 'residual' | 'total';
  * @param constants default IERS 2010. @param out Optional output.
  * @returns Seconds per epoch.
  * @throws {InvalidArgumentError} for bad a or i, an unknown kind, non-finite u_j or a bad `out`.
- * @see J. Kouba, GPS Solutions 8 (2004) [V2]; reference sheet §5 [C].
+ * @see J. Kouba, GPS Solutions 8 (2004) [V2 abstract; formula M, verified numerically C]; total term our own derivation [C].
  */
 export function j2PeriodicTermBatch(semiMajorAxis: Metres, inclination: Radians, argumentsOfLatitude: Float64Array,
   kind: J2TermKind = 'residual', constants: ConstantSet = DEFAULT_CONSTANT_SET, out?: Float64Array): Float64Array {
@@ -99,7 +99,7 @@ export function j2PeriodicTermBatch(semiMajorAxis: Metres, inclination: Radians,
  * @param constants default IERS 2010. @param out Optional output of length N.
  * @returns Seconds per epoch.
  * @throws {InvalidArgumentError} for a bad length, non-finite values, a position inside the Earth, an unbound state, or a bad `out`.
- * @see Kouba (2004) [V2]; reference sheet §5 [C].
+ * @see Kouba (2004) [V2 abstract; formula M, verified numerically C]; vis-viva a = 1/(2/r − v²/GM) (common practice, no source).
  */
 export function j2PeriodicTermFromStatesBatch(states: Float64Array, kind: J2TermKind = 'residual',
   constants: ConstantSet = DEFAULT_CONSTANT_SET, out?: Float64Array): Float64Array {

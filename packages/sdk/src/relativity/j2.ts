@@ -1,15 +1,15 @@
 /**
  * Clock terms caused by the Earth's oblateness (J2), for near-circular orbits, to first order in J2.
  *
- * Starting point (derived in the reference sheet; consistent with IERS Conventions 2010 §10.2 and
- * Kouba 2004): with U = GM/r + U_J2 and the energy ε = v²/2 − U conserved in the axisymmetric field,
+ * Starting point (our own derivation [C] from IERS Conventions 2010 §10.2 eq. 10.9 [V1]; consistent with
+ * Kouba 2004 [V2 abstract]): with U = GM/r + U_J2 and the energy ε = v²/2 − U conserved in the axisymmetric field,
  *   τ − t = L_G·t + (3ε/c²)·t − 2 r·v/c² − (4/c²)·∫ U_J2 dt.
  * The conventional correction −2 r·v/c² (IERS eq. 10.11) removes the second term; the last term
  * leaves a 6-hour residual (Kouba 2004) and a constant rate.
  *
  * Which semi-major axis: the point-mass rate L_G − 3GM/(2ac²) is only right for the right a. Under J2
  * the osculating a (from vis-viva at one epoch) oscillates by (3/2)·J2·(a_e²/a)·sin²i·cos 2u (≈ ±1.7 km at
- * GPS altitude), i.e. ±1.6e-14 of rate (±1.3 ns/day). {@link j2SecularClockRate} therefore asks which a
+ * GPS altitude), i.e. ±1.6e-14 of rate (±1.3 ns/day) [C]. {@link j2SecularClockRate} therefore asks which a
  * it is given.
  *
  * @module
@@ -35,7 +35,7 @@ function checkInclination(inclination: unknown): number {
  * @param constants           GM, J2, a_e (default IERS 2010).
  * @returns Δτ_J2,res in seconds: the periodic part that τ − t still contains after −2 r·v/c² is removed.
  * Accuracy: first order in J2, e ≈ 0 (terms in e·J2 omitted, < 1 % of the amplitude for e < 0.01);
- * reproduces a numerical integration to 5 digits for GPS (reference sheet §5 [C]; SDK tests).
+ * reproduces a numerical integration to 5 digits for GPS (our own independent integration [C]; SDK reference tests).
  * @throws {InvalidArgumentError} for a non-plausible a, i outside [0, π] or a non-finite u.
  * @see J. Kouba, GPS Solutions 8(3):170–180 (2004) [V2 abstract; formula M, verified numerically C];
  *   IERS Conventions (2010) §10.2 ("6-h term due to J2") [V1].
@@ -61,9 +61,10 @@ export function j2ResidualPeriodicTerm(semiMajorAxis: Metres, inclination: Radia
  * @returns Seconds.
  * Accuracy: first order in J2, e ≈ 0, and only for an orbit without free (initial-condition)
  * eccentricity; an orbit started from an osculating circular state shows a sin 2u term up to ≈ 10 %
- * different (reference sheet §5 [C]).
+ * different (our own numerical integration [C]).
  * @throws {InvalidArgumentError} as {@link j2ResidualPeriodicTerm}.
- * @see N. Ashby, PTTI 33 (2001) 509–524, abstract: amplitude 0.695e-14 in frequency [V2]; derivation [C].
+ * @see N. Ashby, PTTI 33 (2001) 509–524, abstract: amplitude 0.695e-14 in frequency [V2]; our own derivation [C]
+ *   (δr from D. Brouwer, Astron. J. 64 (1959) 378, short-period terms [M]).
  */
 export function j2TotalPeriodicTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLatitude: Radians,
   constants: ConstantSet = DEFAULT_CONSTANT_SET): Seconds {
@@ -90,7 +91,7 @@ export interface J2PeriodicAmplitudes {
  * @param semiMajorAxis a, metres. @param inclination i, radians. @param constants default IERS 2010.
  * @returns See {@link J2PeriodicAmplitudes}.
  * @throws {InvalidArgumentError} for a non-plausible a or i outside [0, π].
- * @see Kouba (2004) [V2]; Ashby, PTTI 33 (2001), abstract [V2]; reference sheet §5 table [C].
+ * @see Kouba (2004) [V2]; Ashby, PTTI 33 (2001), abstract [V2]; amplitudes recomputed independently [C].
  */
 export function j2PeriodicAmplitudes(semiMajorAxis: Metres, inclination: Radians,
   constants: ConstantSet = DEFAULT_CONSTANT_SET): J2PeriodicAmplitudes {
@@ -102,7 +103,7 @@ export function j2PeriodicAmplitudes(semiMajorAxis: Metres, inclination: Radians
   return { residualAmplitude: 1.5 * k * s2, totalAmplitude: 0.5 * k * s2, totalFrequencyAmplitude: k * n * s2, period: Math.PI / n };
 }
 
-/** J2·(a_e²/c²)·√(GM/a³), seconds. */
+/** J2·(a_e²/c²)·√(GM/a³), seconds: the common scale of the Kouba residual and total term (our own derivation [C]). */
 function j2Scale(a: number, c: ConstantSet): number {
   return (c.j2 * c.equatorialRadius ** 2 * Math.sqrt(c.gm / a ** 3)) / SPEED_OF_LIGHT_SQUARED;
 }
@@ -118,7 +119,7 @@ function j2Scale(a: number, c: ConstantSet): number {
  * Accuracy: first order in J2 and e; consistent with energy conservation (the cos 2u parts of
  * −GM/(2a_osc) and −U_J2 cancel) [C].
  * @throws {InvalidArgumentError} for a non-plausible a, i outside [0, π] or a non-finite u.
- * @see D. Brouwer, Astron. J. 64 (1959) 378 (short-period terms, e → 0) [M]; reference sheet §5 [C].
+ * @see D. Brouwer, Astron. J. 64 (1959) 378 (short-period terms, e → 0) [M]; checked by energy conservation [C].
  */
 export function osculatingMinusMeanSemiMajorAxis(meanSemiMajorAxis: Metres, inclination: Radians,
   argumentOfLatitude: Radians, constants: ConstantSet = DEFAULT_CONSTANT_SET): Metres {
@@ -164,7 +165,7 @@ function meanJ2Potential(a: number, e: number, i: number, c: ConstantSet): numbe
  * - `osculating` (a from vis-viva at an epoch where the argument of latitude is u, near-circular):
  *   ε = −GM/(2a) − U_J2(a, u), U_J2(a, u) = −(GM J2 a_e²/(2a³))(3 sin²i sin²u − 1), so
  *   rate = L_G − 3GM/(2ac²) − 3U_J2(a, u)/c² − 4⟨U_J2⟩/c²  (for GPS at the node: −1.55e-14 vs the point-mass formula,
- *   the 1.3 ns/day of reference sheet §5). Prefer {@link j2SecularClockRateFromState} when you have the state.
+ *   ≈ 1.3 ns/day, our own numerical integration [C]). Prefer {@link j2SecularClockRateFromState} when you have the state.
  *
  * @param orbit `{ semiMajorAxis (m), eccentricity, inclination (rad), semiMajorAxisKind, argumentOfLatitude (rad, required for osculating) }`.
  * @param constants default IERS 2010.
@@ -172,7 +173,7 @@ function meanJ2Potential(a: number, e: number, i: number, c: ConstantSet): numbe
  * Accuracy: first order in J2 (≈ 1e-19 of rate neglected at GNSS altitude [C]); `osculating` assumes e ≈ 0.
  * Verified against the numerical integrator to < 1e-17 (SDK tests).
  * @throws {InvalidArgumentError} for a non-plausible a, e outside [0, 1), i outside [0, π], an unknown kind, or a missing u.
- * @see IERS Conventions (2010) §10.2 [V1]; Kouba (2004) abstract ("up to 0.2 ns/day") [V2]; reference sheet §5 [C].
+ * @see IERS Conventions (2010) §10.2 [V1]; Kouba (2004) abstract ("up to 0.2 ns/day") [V2]; our own derivation [C].
  */
 export function j2SecularClockRate(orbit: { semiMajorAxis: Metres; eccentricity: Dimensionless; inclination: Radians;
   semiMajorAxisKind: SemiMajorAxisKind; argumentOfLatitude?: Radians }, constants: ConstantSet = DEFAULT_CONSTANT_SET): J2RateBreakdown {
@@ -220,7 +221,7 @@ export function j2SecularClockRate(orbit: { semiMajorAxis: Metres; eccentricity:
  * Accuracy: first order in J2 in ⟨U_J2⟩ only (the energy term is exact); agrees with the numerical
  * integrator's fitted rate to < 1e-17 (SDK tests).
  * @throws {InvalidArgumentError} for a non-finite state, a position inside the Earth or an unbound orbit.
- * @see IERS Conventions (2010) §10.2 eq. 10.9 [V1]; reference sheet §5 derivation [C].
+ * @see IERS Conventions (2010) §10.2 eq. 10.9 [V1]; our own derivation [C] (see the module comment).
  */
 export function j2SecularClockRateFromState(state: StateVector, constants: ConstantSet = DEFAULT_CONSTANT_SET): J2RateBreakdown {
   const { position: p, velocity: v } = requireStateVector(state);
@@ -266,7 +267,7 @@ export function inclinationAndArgumentOfLatitude(x: number, y: number, z: number
   const ny = hx;
   const nn = Math.hypot(nx, ny);
   if (nn === 0 || nn / hn < 1e-14) return [i, Math.atan2(y, x)];
-  // u from the node direction N̂ and ĥ × N̂ (both in the orbit plane).
+  // u from the node direction N̂ = ẑ × ĥ and ĥ × N̂ (both in the orbit plane); standard geometry, common practice, no source.
   const cosU = (x * nx + y * ny) / nn;
   const px = (hy * 0 - hz * ny) / (hn * nn);
   const py = (hz * nx - hx * 0) / (hn * nn);

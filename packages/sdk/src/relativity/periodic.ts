@@ -28,7 +28,7 @@ function requireConstants(constants: unknown): ConstantSet {
  *   Δt_r = F·e·√a·sin E,   F = −2√GM/c²   (= −(2/c²)·√(GM a)·e·sin E)
  *
  * Use the osculating (or broadcast) a and e and the eccentric anomaly E at the epoch.
- * For GPS (e ≤ 0.02) the magnitude is at most ≈ 46 ns.
+ * For GPS (e ≤ 0.02) the magnitude is at most ≈ 46 ns (IERS 2010 §10.2 text [V1]).
  *
  * @param semiMajorAxis     a, in metres.
  * @param eccentricity      e, dimensionless, 0 ≤ e < 1.
@@ -67,7 +67,7 @@ export function periodicCorrectionFromState(state: StateVector): Seconds {
 
 /**
  * Amplitude of the periodic correction: 2·√(GM a)·e/c² (= |F|·e·√a), positive.
- * IERS 2010: "about 2.29 µs × e" at GPS altitude.
+ * IERS 2010: "about 2.29 µs × e" at GPS altitude [V1].
  *
  * @param semiMajorAxis  a, in metres.
  * @param eccentricity   e, dimensionless, 0 ≤ e < 1.

@@ -5,7 +5,7 @@
  *
  * r·v is taken in the file's Earth-fixed frame: with v_inertial = v_fixed + ω × r and
  * (ω × r)·r = 0, r·v is the same in the rotating and the inertial frame (IERS Conventions 2010
- * §10.2 eq. 10.11 and text [V1]; physics reference sheet §13 item 3).
+ * §10.2 eq. 10.11 and text [V1]; the identity (ω × r)·r = 0 is elementary vector algebra).
  *
  * @module
  */

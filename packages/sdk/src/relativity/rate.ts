@@ -105,9 +105,9 @@ function reciprocalOffset(x: number): number {
  * factoryOffset = 1/(1 + fractionalRate) − 1.
  *
  * Accuracy: point-mass Earth, no tidal terms. The eccentricity does not change the mean rate;
- * its periodic term is in `periodicCorrection*`. J2 changes the rate by ~1e-14 (Ashby 2003 §5),
- * and individual satellites differ from the conventional value by up to 1e-13 (IERS 2010 §10.2).
- * For GPS (a = 26 561 750 m, IERS constants): +4.464733e-10, 38.5753 µs/day.
+ * its periodic term is in `periodicCorrection*`. J2 changes the rate by ~1e-14 (Ashby 2003 §5 [V1 text]),
+ * and individual satellites differ from the conventional value by up to 1e-13 (IERS 2010 §10.2 [V1]).
+ * For GPS (a = 26 561 750 m, IERS constants): +4.464733e-10, 38.5753 µs/day (our own computation [C]).
  *
  * @param semiMajorAxis  a, in metres (above the Earth's radius; "26561.75" gets a kilometre hint).
  * @param options        `constants` (default IERS 2010), `reference` (`'tt'` default, or `'tcg'`).
@@ -161,7 +161,7 @@ export function instantaneousClockRate(state: StateVector, options?: RateOptions
  * Change of the mean clock rate when the semi-major axis changes from aBefore to aAfter:
  *   Δ = (3GM/(2c²))·(1/aBefore − 1/aAfter) = (3GM/(2c²))·(aAfter − aBefore)/(aBefore·aAfter)
  * (the same for TT and TCG, L_G cancels). Positive when the orbit is raised: the clock then runs faster.
- * Near GPS altitude dΔ/da ≈ 3GM/(2a²c²) = 9.429e-18 per metre (Ashby 2001).
+ * Near GPS altitude dΔ/da ≈ 3GM/(2a²c²) = 9.429e-18 per metre (Ashby 2001 abstract [V2]; recomputed [C]).
  *
  * @param aBefore  Semi-major axis before the manoeuvre, in metres.
  * @param aAfter   Semi-major axis after the manoeuvre, in metres.
@@ -181,7 +181,7 @@ export function rateChangeForSemiMajorAxisChange(aBefore: Metres, aAfter: Metres
 /**
  * Semi-major axis whose mean rate vs TT equals `fractionalRate` (inverse of {@link meanClockRate}):
  *   a = 3GM / (2c²(L_G − fractionalRate)).
- * E.g. the conventional 4.4647e-10 of IS-GPS-200 corresponds to a = 26 561 400.1 m (IERS constants).
+ * E.g. the conventional 4.4647e-10 of IS-GPS-200 [V2] corresponds to a = 26 561 400.1 m (IERS constants; our computation [C]).
  *
  * @param fractionalRate  Mean rate vs TT, dimensionless, below L_G.
  * @param options         `constants` (default IERS 2010); `reference` `'tcg'` uses L_G = 0.

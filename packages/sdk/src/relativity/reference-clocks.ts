@@ -225,7 +225,7 @@ export function tcgRateVsTT(constants: ConstantSet = DEFAULT_CONSTANT_SET): Dime
   return constants.lG / (1 - constants.lG);
 }
 
-/** Mean semi-major axis of the lunar orbit, 384 748 km (Kepler mean; value as in the reference sheet §9) [M]. */
+/** Mean semi-major axis of the lunar orbit, 384 748 km (Kepler mean) [M]. */
 export const MOON_SEMI_MAJOR_AXIS: Metres = 384_748_000;
 /** Mean radius of the Moon, 1737.4 km (IAU WGCCRE) [M]. */
 export const MOON_MEAN_RADIUS: Metres = 1_737_400;
@@ -269,12 +269,12 @@ export interface LunarClockRate {
  * @param options `constants` (GM_E, L_G; default IERS 2010), `moonGm`, `moonSemiMajorAxis`, `moonRadius`.
  * @returns {@link LunarClockRate}.
  * Accuracy: ≈ 0.01 µs/day on the secular rate (solar tidal terms ≈ 0.006 µs/day and the Sun's perturbation
- * of the lunar orbit omitted; reference sheet §9 [C]); periodic terms (≈ 0.47 µs amplitude, Turyshev et
+ * of the lunar orbit omitted; our own estimate GM_S a²/AU³ [C]); periodic terms (≈ 0.47 µs amplitude, Turyshev et
  * al. 2024 [V2]) are not included.
  * @throws {InvalidArgumentError} for an unknown location, an orbit radius below the lunar radius or above
  *   60 000 km, or a latitude outside [−π/2, π/2].
  * @see N. Ashby & B. Patla, arXiv:2402.11150 (2024): 56.02 µs/day at the lunar equator [V2];
- *   IERS Conventions (2010) §10.1–10.2 [V1]; reference sheet §9 breakdown [C].
+ *   IERS Conventions (2010) §10.1–10.2 [V1]; term-by-term breakdown our own computation [C].
  */
 export function lunarClockRate(clock: { location: LunarClockLocation; orbitRadius?: Metres; latitude?: Radians },
   options: { constants?: ConstantSet; moonGm?: CubicMetresPerSecondSquared; moonSemiMajorAxis?: Metres; moonRadius?: Metres } = {}): LunarClockRate {

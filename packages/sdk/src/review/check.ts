@@ -34,7 +34,7 @@ export interface ReviewOptions {
 
 /**
  * Nominal semi-major axes of well-known orbit classes, used only to name the orbit an
- * offset was probably copied from (physics-refs §2 table; orbit radii are nominal [M]).
+ * offset was probably copied from (orbit radii are nominal values from memory [M]).
  */
 const KNOWN_ORBITS: readonly { label: string; semiMajorAxis: number }[] = [
   { label: 'a GPS-type MEO (26 561.75 km)', semiMajorAxis: 26_561_750 },
@@ -91,7 +91,7 @@ export function configuredFraction(configured: ConfiguredOffset, nominalHz: numb
 /**
  * Size of the mean-rate ambiguity from osculating vs mean a under J2: the short-period amplitude
  * (3/2)J2 a_e²/a·sin²i of a_osc − ā (Brouwer 1959 [M], via {@link osculatingMinusMeanSemiMajorAxis})
- * times the rate sensitivity 3GM/(2a²c²) (physics-refs §2, §5 [C]).
+ * times the rate sensitivity 3GM/(2a²c²) (derivative of IERS 2010 eq. 10.9 averaged, our own derivation [C]).
  */
 function j2Ambiguity(a: number, inclination: number, constants: ConstantSet): { metres: number; fractionalRate: number } {
   const metres = Math.abs(osculatingMinusMeanSemiMajorAxis(a, inclination, 0, constants));
@@ -302,6 +302,7 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
   };
 }
 
+/** Percentiles at ±1σ, ±2σ, ±3σ of a normal distribution, 100·Φ(k) (computed [C]). */
 const PERCENTILES = [0.135, 2.275, 15.866, 50, 84.134, 97.725, 99.865];
 
 function analyseDispersion(sc: ReviewSpacecraft, set: ConstantSet, reference: ReferenceClock, configured: number,
@@ -310,7 +311,7 @@ function analyseDispersion(sc: ReviewSpacecraft, set: ConstantSet, reference: Re
   const sigma = sc.dispersion!.semiMajorAxisSigma;
   // In orbit the configured oscillator runs at (1 + c)(1 + r(a)) − 1 against the reference (product of the two rates).
   const residual = (a: number) => (1 + configured) * (1 + rateFor(a, set.gm, set.lG, reference)) - 1;
-  // Unsteered phase walk-off |x(t)| = |r|·t reaches the tolerance after tol/|r| (physics-refs §12 [C]).
+  // Unsteered phase walk-off |x(t)| = |r|·t reaches the tolerance after tol/|r| (elementary, common practice, no source).
   const days = (r: number) => (phaseTolerance === null ? null : r === 0 ? Number.POSITIVE_INFINITY : phaseTolerance / Math.abs(r) / SECONDS_PER_DAY);
   const minus = residual(a0 - 3 * sigma);
   const nominal = residual(a0);

@@ -2,7 +2,7 @@
  * Sagnac correction of a one-way signal between a satellite and a receiver, computed in an
  * Earth-fixed frame: the receiver moves with the Earth during the flight, so the flight time
  * computed from Earth-fixed positions at a single epoch must be corrected by
- *   Δt_Sagnac = (Ω_E/c²)·(x_s·y_r − y_s·x_r) = 2·Ω_E·A_z/c²,
+ *   Δt_Sagnac = (Ω_E/c²)·(x_s·y_r − y_s·x_r) = 2·Ω_E·A_z/c²   (standard form [M]; Ashby 2003 §2 text [V2]),
  * A_z = equatorial projection of the area swept by the geocentre–satellite–receiver triangle.
  *
  * @module
@@ -27,7 +27,7 @@ function rotationRate(value: unknown): number {
  * @param earthRotationRate Ω_E, rad/s (default IERS 2010 7.292115e-5; GPS uses 7.2921151467e-5).
  * @returns Δt, seconds (negative when the receiver moves toward the satellite during the flight).
  * Accuracy: first order in Ω_E·τ; the neglected terms are ≈ (Ω_E τ)²·r/c ≈ 1e-12 s for GNSS.
- * Check: receiver (6 378 137, 0, 0) m, satellite (15 600, 21 500, 0) km → −111.2614 ns (reference sheet §7 [C]).
+ * Check: receiver (6 378 137, 0, 0) m, satellite (15 600, 21 500, 0) km → −111.2614 ns (independent computation [C]).
  * @throws {InvalidArgumentError} for non-finite vectors or an implausible rotation rate.
  * @see N. Ashby, Living Rev. Relativity 6 (2003) §2 [V2 text]; N. Ashby, "The Sagnac effect in the GPS" (2004) [V2].
  */
@@ -45,7 +45,7 @@ export function sagnacCorrection(satellitePositionEcef: Vector3, receiverPositio
  *
  * @param projectedArea A_z, m² (positive for an eastward, counter-clockwise path seen from the north).
  * @param earthRotationRate Ω_E, rad/s (default IERS 2010).
- * @returns Seconds (equatorial circumnavigation, A = πR²: 207.39 ns, reference sheet §7 [C]; Ashby: "207.4 ns" [V2]).
+ * @returns Seconds (equatorial circumnavigation, A = πR²: 207.39 ns, independent computation [C]; Ashby: "207.4 ns" [V2]).
  * @throws {InvalidArgumentError} for a non-finite area or an implausible rotation rate.
  * @see N. Ashby, Living Rev. Relativity 6 (2003) §2 [V2 text].
  */
@@ -59,9 +59,9 @@ export function sagnacDelayForArea(projectedArea: number, earthRotationRate: Rad
  * r_s seen at the horizon: Ω_E·R·r_s·sin θ/c² with cos θ = R/r_s.
  * @param receiverRadius R, metres. @param satelliteRadius r_s, metres (> R).
  * @param earthRotationRate Ω_E, rad/s.
- * @returns Seconds (GPS: 133.43 ns, reference sheet §7 [C]).
+ * @returns Seconds (GPS: 133.43 ns, independent computation [C]).
  * @throws {InvalidArgumentError} for non-positive radii or r_s ≤ R.
- * @see reference sheet §7 [C]; Ashby (2003) §2 ("up to ≈ 133 ns") [M].
+ * @see Geometry of the horizon, our own derivation [C]; Ashby (2003) §2 ("up to ≈ 133 ns") [M].
  */
 export function maximumSagnacCorrection(receiverRadius: Metres, satelliteRadius: Metres,
   earthRotationRate: RadiansPerSecond = DEFAULT_CONSTANT_SET.earthRotationRate): Seconds {

@@ -18,7 +18,7 @@ import { requirePositive, requireVector3 } from '../internal/validate.js';
  * @param r2 Receiver distance from the geocentre, metres.
  * @param range ρ = |x₂ − x₁|, metres (0 < ρ < r₁ + r₂).
  * @param gm GM of the body, m³/s² (default IERS 2010 Earth).
- * @returns Δt, seconds (GPS zenith 42.242 ps, horizon 62.316 ps; reference sheet §7 [C]).
+ * @returns Δt, seconds (GPS zenith 42.242 ps, horizon 62.316 ps; independent computation [C]).
  * Accuracy: post-Newtonian, first order in GM/c² (the next order is < 1e-16 s near the Earth).
  * @throws {InvalidArgumentError} for non-positive inputs or a range not below r₁ + r₂ (the triangle inequality).
  * @see IERS Conventions (2010) §11.2, eq. 11.17 [V1].

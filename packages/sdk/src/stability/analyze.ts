@@ -143,7 +143,7 @@ export interface DeviationOptions {
  * @param options    Optional τ list.
  * @returns One point per usable τ: `{ tau, m, deviation, n }` (deviation dimensionless; seconds for tdev).
  * @throws {InvalidArgumentError} for a bad statistic name, bad data, a τ that is not m·τ0, or totdev with gaps.
- * @see W. J. Riley, Handbook of Frequency Stability Analysis, NIST SP 1065 (2008), §5.2.
+ * @see W. J. Riley, Handbook of Frequency Stability Analysis, NIST SP 1065 (2008), §5.2 [M section; formulas reproduced against the SP 1065 test data, C].
  */
 export function deviations(statistic: StatisticName, data: StabilityData, options: DeviationOptions = {}): DeviationPoint[] {
   requireStatistic('statistic', statistic);
@@ -186,7 +186,7 @@ export interface StabilityOptions extends DeviationOptions {
   readonly noise?: NoiseType;
 }
 
-/** Probability inside ±1σ of a normal distribution, erf(1/√2) ≈ 0.6827: the default confidence level. */
+/** Probability inside ±1σ of a normal distribution, erf(1/√2) ≈ 0.6827 (computed [C]): the default confidence level. */
 export const ONE_SIGMA_CONFIDENCE = 0.6826894921370859;
 
 /** Default statistics of {@link analyzeStability} and the CLI. */
@@ -211,7 +211,7 @@ export const DEFAULT_STATISTICS: readonly StatisticName[] = ['oadev', 'mdev', 't
  * @returns The analysis (τ in seconds; deviations dimensionless, tdev in seconds).
  * @throws {InvalidArgumentError} for bad data, an unknown statistic or noise type, a τ that is not
  *   m·τ0, confidence outside (0, 1), or totdev requested on data with gaps.
- * @see W. J. Riley, NIST SP 1065 (2008), §5.2 (statistics) and §5.3 (confidence intervals).
+ * @see W. J. Riley, NIST SP 1065 (2008), §5.2 (statistics) and §5.3 (confidence intervals) [M section].
  */
 export function analyzeStability(data: StabilityData, options: StabilityOptions = {}): StabilityAnalysis {
   const statistics = options.statistics ?? DEFAULT_STATISTICS;

@@ -37,7 +37,8 @@ function copySamples(argument: string, values: unknown, unit: string): Float64Ar
  * @param tau0       Sample spacing τ0, in seconds.
  * @returns Phase series of length N + 1, in seconds.
  * @throws {InvalidArgumentError} if tau0 is not > 0 or a value is ±Infinity or not a number.
- * @see W. J. Riley, Handbook of Frequency Stability Analysis, NIST SP 1065 (2008), §4.
+ * @see W. J. Riley, Handbook of Frequency Stability Analysis, NIST SP 1065 (2008), §4 [M section; checked by the
+ *   phase-and-frequency reference tests, C].
  */
 export function phaseFromFrequency(frequency: ArrayLike<number>, tau0: Seconds): PhaseSeries {
   requirePositive('tau0', tau0, 's');

@@ -6,7 +6,7 @@
 import type { Dimensionless, Seconds } from '../units.js';
 
 /**
- * The statistics this module computes (NIST SP 1065, Riley 2008, §5.2):
+ * The statistics this module computes (NIST SP 1065, Riley 2008, §5.2 [M section; formulas reproduced against the SP 1065 test data, C]):
  * `adev` non-overlapping Allan, `oadev` overlapping Allan, `mdev` modified Allan, `tdev` time
  * deviation, `hdev` non-overlapping Hadamard, `ohdev` overlapping Hadamard, `totdev` total deviation.
  */

@@ -138,7 +138,7 @@ const NTP_EPOCH_MJD = 15_020;
  * @throws {ParseError} (with line and column) for a malformed line, a missing `#@` expiry line,
  *   or an NTP time that is not a whole day.
  * @throws {InvalidArgumentError} if the parsed entries fail {@link defineLeapSecondTable}'s checks.
- * @see IERS Bulletin C; the format is described in the comment header of the list itself.
+ * @see IERS Bulletin C [V2, via public copies of the list]; the format is described in the comment header of the list itself [V2].
  */
 export function parseLeapSecondsList(text: string, sourceName = 'leap-seconds.list'): LeapSecondTable {
   if (typeof text !== 'string') throw new InvalidArgumentError('text', text, 'the text of a leap-seconds.list file');

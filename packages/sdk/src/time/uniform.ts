@@ -97,7 +97,7 @@ export function uniformMinusTai(scale: UniformScale): Seconds {
 /**
  * TCG − TT at an instant, in seconds: (L_G/(1 − L_G))·(JD_TT − T₀)·86400, where
  * (JD_TT − T₀)·86400 equals the TAI seconds elapsed since 1977-01-01T00:00:00 TAI because
- * TT − TAI is constant (IERS Conventions 2010 §10.1, eq. 10.1 in its inverse form [V1]).
+ * TT − TAI is constant (IERS Conventions 2010 §10.1 text [V1]; the equation number 10.1 is from memory [M]).
  * @internal
  */
 export function tcgMinusTtAt(instant: Instant): Seconds {
@@ -125,7 +125,7 @@ export function labelOnUniformOrTcg(instant: Instant, scale: Exclude<TimeScale, 
 
 /**
  * Instant of a label on a uniform scale or TCG. TCG → TT uses the exact inverse
- * TT = TCG − L_G·(JD_TCG − T₀)·86400 (IERS Conventions 2010 §10.1, eq. 10.2 [V1]).
+ * TT = TCG − L_G·(JD_TCG − T₀)·86400 (IERS Conventions 2010 §10.1 text [V1]; the equation number 10.2 is from memory [M]).
  * @internal
  */
 export function instantFromUniformOrTcgLabel(scale: Exclude<TimeScale, 'UTC'>, day: number, secondOfDay: number,
