@@ -1,7 +1,11 @@
 /**
  * Reference checks of the constant (factory) rate of GPS clocks against N. Ashby (Living Rev.
  * Relativity 6 (2003) 1, §5; PTTI 33 (2001) 509–524) and J. Kouba (GPS Solutions 8 (2004) 170–180),
- * with the values computed in /work/shared/physics-refs.md §2 [C], and the per-system table of §2.
+ * with the values computed independently in double precision in the project's physics reference sheet
+ * (physics-refs.md) §2 [C], and the per-system table of §2.
+ *
+ * Tolerances: half a unit in the last printed digit of each value checked (e.g. 0.00005 µs/day for
+ * 45.7884), i.e. the SDK must reproduce every printed digit.
  */
 import { describe, expect, it } from 'vitest';
 import { instantaneousClockRate, meanClockRate, rateChangeForSemiMajorAxisChange } from '../../packages/sdk/src/relativity/index.js';
@@ -11,7 +15,7 @@ import { IERS_2010 } from '../../packages/sdk/src/constants.js';
 
 const DAY = 86_400;
 const MICROSECONDS_PER_DAY = 1e-6 / DAY; // fractional rate of 1 µs/day
-const GPS_A = 26_561_750;
+const GPS_A = 26_561_750; // nominal GPS semi-major axis, from memory [M] (the reference sheet's input)
 
 describe('Ashby 2003 (Living Reviews §5) split of the GPS clock rate, vs the geoid (W₀ = L_G·c²): physics-refs §2 [C]', () => {
   const r = meanClockRate(GPS_A);
@@ -32,7 +36,8 @@ describe('Ashby 2003 (Living Reviews §5) split of the GPS clock rate, vs the ge
 });
 
 describe('Ashby 2003 split vs an equatorial ground clock on a point-mass Earth (the popular 45.7 / −7.1 / 38.6 µs/day [M]): physics-refs §2 [C]', () => {
-  // Ground clock: r = 6 378 137 m on the equator, moving at Ω_E·R = 465.10 m/s (Ω_E = 7.2921151467e-5 rad/s).
+  // Ground clock: r = 6 378 137 m (WGS 84 a [V2]) on the equator, moving at Ω_E·R = 465.10 m/s
+  // (Ω_E = 7.2921151467e-5 rad/s, Ashby 2003 §2 [V1]); GM is the IERS 2010 value [V2].
   const R = 6_378_137;
   const omegaR = 7.2921151467e-5 * R;
   const ground = instantaneousClockRate({ position: [R, 0, 0], velocity: [0, omegaR, 0] }, { reference: 'tcg' });
@@ -49,7 +54,7 @@ describe('Ashby 2003 split vs an equatorial ground clock on a point-mass Earth (
     expect(Math.abs((sat.velocity - groundVelocity) / MICROSECONDS_PER_DAY - -7.1091)).toBeLessThanOrEqual(0.00005);
     expect(Math.abs((sat.fractionalRate - ground) / MICROSECONDS_PER_DAY - 38.5427)).toBeLessThanOrEqual(0.00005);
   });
-  it('the two conventions differ by ≈ 0.03 µs/day, the J2/rotation part of W₀ (physics-refs §13 pitfall 4)', () => {
+  it('the two conventions differ by ≈ 0.03 µs/day, the J2/rotation part of W₀ (physics-refs §13 pitfall 4; 0.0326 µs/day [C])', () => {
     const difference = meanClockRate(GPS_A).microsecondsPerDay - (sat.fractionalRate - ground) / MICROSECONDS_PER_DAY;
     expect(Math.abs(difference - 0.0326)).toBeLessThanOrEqual(0.0005);
   });

@@ -1,8 +1,9 @@
 /**
  * Reference checks of the broadcast (interface-spec) clock and orbit algorithm and of the
  * precise-orbit correction, against published formulas with independently computed values
- * (/work/shared/physics-refs.md §3, §4) and against an independent implementation
- * (test/fixtures/sp3/generate.py).
+ * (project physics reference sheet, physics-refs.md §3, §4 [C]) and against an independent implementation
+ * (test/fixtures/sp3/generate.py [C]). The algorithm text itself is IS-GPS-200 from memory [M], its first
+ * sentences confirmed by a verbatim quotation [V2].
  */
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
@@ -32,13 +33,13 @@ describe('IS-GPS-200 §20.3.3.3.3.1 user algorithm: physics-refs.md §3 check va
   it('evaluateBroadcastEphemeris(√A = 5153.79589081, e = 0.0123456789, E_k = 1 rad, GPS μ) gives Δt_r = −2.378695477618e-08 s', () => {
     const ev = evaluateBroadcastEphemeris(eph, eph.toeSeconds);
     expect(Math.abs(ev.eccentricAnomaly - 1)).toBeLessThan(2e-15);
-    expect(Math.abs(ev.relativisticSeconds - -2.378695477618e-8)).toBeLessThan(1e-20);
+    expect(Math.abs(ev.relativisticSeconds - -2.378695477618e-8)).toBeLessThan(1e-20); // one unit in the 13th printed digit
   });
 
   it('evaluateBroadcastEphemeris(a_f0 = 1e-4, a_f1 = 1e-11, a_f2 = 1e-18, t − t_oc = 3600 s) gives Δt_sv = 1.000122260052238e-04 s', () => {
     const withClock = { ...eph, af0: 1e-4, af1: 1e-11, af2: 1e-18, tocSeconds: eph.toeSeconds - 3600 };
     const ev = evaluateBroadcastEphemeris(withClock, withClock.toeSeconds);
-    expect(Math.abs(ev.clockCorrectionSeconds - 1.000122260052238e-4)).toBeLessThan(1e-19);
+    expect(Math.abs(ev.clockCorrectionSeconds - 1.000122260052238e-4)).toBeLessThan(1e-19); // one unit in the 16th printed digit
     expect(ev.polynomialSeconds).toBeCloseTo(1e-4 + 1e-11 * 3600 + 1e-18 * 3600 ** 2, 19);
   });
 
@@ -47,6 +48,7 @@ describe('IS-GPS-200 §20.3.3.3.3.1 user algorithm: physics-refs.md §3 check va
     const [x, y, z] = ev.state.position;
     const [vx, vy, vz] = ev.state.velocity;
     const fromState = (-2 * (x * vx + y * vy + z * vz)) / 299_792_458 ** 2;
+    // 1e-17 s: a loose bound; the element and state forms are algebraically identical on a Kepler orbit (IERS eq. 10.11 [V1]).
     expect(Math.abs(fromState - -2.378695477618e-8)).toBeLessThan(1e-17);
   });
 });
@@ -56,7 +58,7 @@ describe('IERS Conventions (2010) §10.2 eq. 10.10: amplitude 2√(GM a)·e/c²,
     const e = 0.02;
     const eph = gpsRecord({ system: 'E', satellite: 'E01', message: 'INAV', sqrtA: Math.sqrt(26_561_750), eccentricity: e, m0: Math.PI / 2 - e });
     const ev = evaluateBroadcastEphemeris(eph, eph.toeSeconds);
-    expect(Math.abs(-ev.relativisticSeconds / NANOSECOND - 45.7948)).toBeLessThan(5e-5);
+    expect(Math.abs(-ev.relativisticSeconds / NANOSECOND - 45.7948)).toBeLessThan(5e-5); // half a unit in the last printed digit
   });
   it('evaluateBroadcastEphemeris(Galileo record, e = 0.01) peaks at 22.8974 ns ("≈23 ns for e = 0.01")', () => {
     const eph = gpsRecord({ system: 'E', satellite: 'E01', message: 'INAV', sqrtA: Math.sqrt(26_561_750), eccentricity: 0.01, m0: Math.PI / 2 - 0.01 });
@@ -86,6 +88,8 @@ describe('Independent implementation: test/fixtures/sp3/generate.py evaluates th
       }
     }
     expect(compared).toBe(11);
+    // 1 mm: the SP3 print resolution of positions (km, 6 decimals); 1e-5 m/s: the generator's velocities are
+    // 4th-order central differences with h = 1 s (test/fixtures/sp3/SOURCE.md), not exact derivatives.
     expect(worstPosition).toBeLessThan(1e-3);
     expect(worstVelocity).toBeLessThan(1e-5);
   });

@@ -3,7 +3,8 @@
  * left in eccentric orbits in 2014 and used for the gravitational-redshift tests of Delva et al.,
  * PRL 121, 231101 (2018) and Herrmann et al., PRL 121, 231102 (2018) [V2 abstracts], and the
  * QZS-1 quasi-zenith orbit (JAXA press release 2010-09-27 [V1]). Orbit values derived from
- * published heights in /work/shared/physics-refs.md §6 [C].
+ * published heights by our own computation (project physics reference sheet, physics-refs.md §6) [C].
+ * Tolerances: half a unit in the last printed digit of each value.
  */
 import { describe, expect, it } from 'vitest';
 import { periodicAmplitude, periodicCorrectionFromElements, periodicCorrectionFromState, meanClockRate } from '../../packages/sdk/src/relativity/index.js';

@@ -1,7 +1,8 @@
 /**
  * Reference checks of the GPS interface-specification relativity items: the factory frequency
  * offset (IS-GPS-200E §3.3.1.1), the constant F and the periodic correction Δt_r
- * (IS-GPS-200 §20.3.3.3.3.1). Values and provenance from /work/shared/physics-refs.md §3, §13.
+ * (IS-GPS-200 §20.3.3.3.3.1). Values and provenance tags from the project's physics reference sheet
+ * (physics-refs.md) §3, §13. Tolerances: half a unit in the last printed digit unless stated.
  */
 import { describe, expect, it } from 'vitest';
 import { offsetFrequency } from '../../packages/sdk/src/oscillator/index.js';
@@ -37,7 +38,7 @@ describe('IS-GPS-200E §3.3.1.1 factory offset (verbatim quotation, time-nuts li
 });
 
 describe('IS-GPS-200 §20.3.3.3.3.1 relativistic constant F = −2√μ/c² [M]; recomputed [C]', () => {
-  it('GPS_ICD.relativisticF is −4.442807633e-10 s/√m (ICD print [M]) and IERS/Galileo GM gives −4.442807309e-10 (physics-refs §13 pitfall 1)', () => {
+  it('GPS_ICD.relativisticF is −4.442807633e-10 s/√m (ICD print [M]) and IERS/Galileo GM gives −4.442807309e-10 (Galileo/BeiDou ICD value [M]; recomputed [C]; physics-refs §13 pitfall 1)', () => {
     expect(Math.abs(GPS_ICD.relativisticF - -4.442807633e-10)).toBeLessThanOrEqual(0.5e-19);
     expect(Math.abs(IERS_2010.relativisticF - -4.442807309e-10)).toBeLessThanOrEqual(0.5e-19);
   });

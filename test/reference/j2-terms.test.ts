@@ -5,6 +5,8 @@
  * §10.2 ("6-h term due to J2", "about 0.1 ns") [V1]; and the independent double-precision computations of
  * the reference sheet §5 [C] (table of amplitudes; numerical J2 orbit fit: sin 2u coefficient −7.1934e-11 s;
  * −1.55e-14 rate offset of the osculating-a formula).
+ * Tolerances: ratios toBeCloseTo(1, d) allow 0.5·10^−d relative, matched to the digits printed for each value
+ * (the table gives 3 significant digits, the fit coefficient 5); the 1e-17 rate bounds are ≈ 0.1 % of the J2 effect.
  */
 import { describe, expect, it } from 'vitest';
 import { integrateProperTime } from '../../packages/sdk/src/relativity/proper-time.js';

@@ -4,7 +4,9 @@
  * an extra 56.02 microseconds per day"); S. Turyshev et al., arXiv:2406.16147 (2024), abstract [V2]
  * (TL − TT 56.0256 µs/day); a 2024 mailing-list summary of Kopeikin & Kaplan [V2] (−56.0005 µs/day at the mean
  * surface, −58.7 µs/day at the selenocentre); and the independent term-by-term computation of the reference
- * sheet §9 [C] (a = 384 748 km, GM_Moon = 4.9028e12, R_Moon = 1737.4 km).
+ * sheet (physics-refs.md) §9 [C] (inputs from memory [M]: a = 384 748 km, GM_Moon = 4.9028e12 m³/s² (the SDK uses
+ * the DE value 4.902800066e12 [M], 1.3e-8 relative apart), R_Moon = 1737.4 km).
+ * Tolerances: toBeCloseTo(x, 4) is |Δ| < 5e-5 µs/day, half a unit in the last printed digit.
  */
 import { describe, expect, it } from 'vitest';
 import { lunarClockRate } from '../../packages/sdk/src/relativity/reference-clocks.js';

@@ -3,7 +3,7 @@
  * W. J. Riley, Handbook of Frequency Stability Analysis, NIST SP 1065 (2008), §12 pp. 107–108, and
  * W. J. Riley, "The Calculation of Time Domain Frequency Stability" (Tables II/III). The published
  * values were read in a transcription [V2] and reproduced independently in double precision [C]
- * (see /work/shared physics reference sheet §10). Every statistic is fed as phase AND as frequency.
+ * (project physics reference sheet, physics-refs.md §10). Every statistic is fed as phase AND as frequency.
  */
 import { describe, expect, it } from 'vitest';
 import { analyzeStability, deviations, type StatisticName } from '../../packages/sdk/src/stability/index.js';
@@ -72,8 +72,8 @@ describe('NBS14 10-point set (NIST SP 1065 §12, p. 107) [V2]', () => {
         for (let k = 0; k < 2; k++) {
           const rel = relErr(points[k]!.deviation, values[k]!);
           worst.rel = Math.max(worst.rel, rel);
-          // Published to 7 significant digits; the printed phase has 5 decimals (≤ 5e-6 absolute).
-          // The printed phase has 5 decimals, worth ≤ 1e-7 relative here.
+          // Published to 7 significant digits. The printed phase has 5 decimals (≤ 5e-6 absolute per sample,
+          // ≤ 2e-5 per second difference against terms of ~1e2): allow 1e-7 relative more for the phase input.
           const tol = label === 'frequency' ? REFERENCE_TOLERANCE : REFERENCE_TOLERANCE + 1e-7;
           expect(rel).toBeLessThanOrEqual(tol);
         }

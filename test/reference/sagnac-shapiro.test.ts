@@ -3,7 +3,8 @@
  * in double precision [C], N. Ashby's published figures (Living Rev. Relativity 6 (2003) §2, quoted [V2]:
  * "the last clock … would lag the first clock by 207.4 ns"; NIST Technical Note 1385, excerpt [V2]:
  * transit times "vary roughly from 67 to 86 ms for a receiver on earth's surface"), and IERS Conventions
- * (2010) §11.2 eq. 11.17 [V1] for the Shapiro delay.
+ * (2010) §11.2 eq. 11.17 [V1] for the Shapiro delay. The Sagnac formula itself is standard, from memory [M].
+ * Tolerances: toBeCloseTo(x, d) is half a unit in the last printed digit of each value.
  */
 import { describe, expect, it } from 'vitest';
 import {

@@ -48,7 +48,7 @@ function bruteForce(stat: StatisticName, x: number[], m: number, tau0: number): 
 }
 
 describe('phase ↔ frequency conversion', () => {
-  it('phaseFromFrequency(y, τ0) integrates x_{i+1} = x_i + y_i τ0 from x_0 = 0 (NIST SP 1065 §4)', () => {
+  it('phaseFromFrequency(y, τ0) integrates x_{i+1} = x_i + y_i τ0 from x_0 = 0 (NIST SP 1065 §4 [M])', () => {
     const s = phaseFromFrequency([1e-9, 2e-9, -1e-9], 10);
     [0, 1e-8, 3e-8, 2e-8].forEach((v, i) => expect(s.phase[i]).toBeCloseTo(v, 22));
     expect(s.segmentStarts).toEqual([]);
