@@ -71,7 +71,7 @@ function computeAt(p: Prepared, statistic: StatisticName, m: number): DeviationP
   switch (statistic) {
     case 'adev':
     case 'oadev': {
-      // NIST SP 1065 §5.2.2 (non-overlapping) / §5.2.4 (overlapping): σ² = Σ(Δ²x)²/(2τ²n).
+      // NIST SP 1065 §5.2.2 (non-overlapping) / §5.2.4 (overlapping): σ² = Σ(Δ²x)²/(2τ²n) [M section; reproduced against SP 1065 test data, C].
       const r = secondDifferenceSum(x, p.seg, m, statistic === 'adev' ? m : 1);
       n = r.n;
       variance = r.sum / (2 * tau * tau * n);
@@ -79,7 +79,7 @@ function computeAt(p: Prepared, statistic: StatisticName, m: number): DeviationP
     }
     case 'mdev':
     case 'tdev': {
-      // NIST SP 1065 §5.2.5: Mod σ² = Σ_j [Σ_i Δ²x]² / (2 m² τ² n); §5.2.6: σ_x = (τ/√3)·Mod σ_y.
+      // NIST SP 1065 §5.2.5: Mod σ² = Σ_j [Σ_i Δ²x]² / (2 m² τ² n); §5.2.6: σ_x = (τ/√3)·Mod σ_y [M section; reproduced against SP 1065 test data, C].
       const r = p.modified(m);
       n = r.n;
       variance = r.sum / (2 * m * m * tau * tau * n);
@@ -88,7 +88,7 @@ function computeAt(p: Prepared, statistic: StatisticName, m: number): DeviationP
     }
     case 'hdev':
     case 'ohdev': {
-      // NIST SP 1065 §5.2.7 / §5.2.8: Hσ² = Σ(Δ³x)²/(6τ²n).
+      // NIST SP 1065 §5.2.7 / §5.2.8: Hσ² = Σ(Δ³x)²/(6τ²n) [M section; reproduced against SP 1065 test data, C].
       const r = thirdDifferenceSum(x, p.seg, m, statistic === 'hdev' ? m : 1);
       n = r.n;
       variance = r.sum / (6 * tau * tau * n);
@@ -99,7 +99,7 @@ function computeAt(p: Prepared, statistic: StatisticName, m: number): DeviationP
         throw new InvalidArgumentError('data', 'a series with missing samples', 'gap-free for totdev (its reflected extension is built from the whole record)',
           'use oadev/mdev/ohdev, which use complete terms only, or analyse the gap-free stretches separately');
       }
-      // NIST SP 1065 §5.2.11: Tot σ² = Σ (x*_{i−m} − 2x*_i + x*_{i+m})² / (2τ²(N−2)).
+      // NIST SP 1065 §5.2.11: Tot σ² = Σ (x*_{i−m} − 2x*_i + x*_{i+m})² / (2τ²(N−2)) [M section; reproduced against SP 1065 test data, C].
       const r = totalSum(x, m);
       n = r.n;
       variance = r.sum / (2 * tau * tau * n);
@@ -125,7 +125,7 @@ export interface DeviationOptions {
 /**
  * One stability statistic at several averaging times, without confidence intervals.
  *
- * Statistics (x phase in s, τ = m·τ0, sums over complete terms, n = number of terms; NIST SP 1065 §5.2):
+ * Statistics (x phase in s, τ = m·τ0, sums over complete terms, n = number of terms; NIST SP 1065 §5.2 [M section; reproduced against SP 1065 test data, C]):
  * - adev:  σ² = Σ (x_{k+2m} − 2x_{k+m} + x_k)² / (2τ²n), k = 0, m, 2m, … (non-overlapping)
  * - oadev: same sum over every k (overlapping)
  * - mdev:  σ² = Σ_j [Σ_{i=j}^{j+m−1} (x_{i+2m} − 2x_{i+m} + x_i)]² / (2m²τ²n)

@@ -1,6 +1,6 @@
 /**
  * Equivalent degrees of freedom (edf) and chi-square confidence intervals for the stability
- * statistics (NIST SP 1065 §5.3).
+ * statistics (NIST SP 1065 §5.3 [M section]).
  *
  * @module
  */

@@ -38,7 +38,8 @@ export function hasMissing(x: Float64Array): boolean {
 
 /**
  * Second differences x_{i+2m} − 2x_{i+m} + x_i for i = 0, step, 2·step, … (step = 1: overlapping
- * Allan, NIST SP 1065 §5.2.4; step = m: non-overlapping Allan, §5.2.2).
+ * Allan, NIST SP 1065 §5.2.4; step = m: non-overlapping Allan, §5.2.2; section numbers [M], sums reproduced against
+ * the SP 1065 test data [C]).
  */
 export function secondDifferenceSum(x: Float64Array, seg: Int32Array | null, m: number, step: number): TermSum {
   const last = x.length - 1 - 2 * m;
@@ -110,7 +111,7 @@ export function modifiedSum(x: Float64Array, seg: Int32Array | null, m: number, 
       v = 0;
       b++;
     }
-    // Kahan compensated summation (Kahan 1965, CACM 8(1):40): branch-free; the d_i are small
+    // Kahan compensated summation (Kahan 1965, CACM 8(1):40 [M]): branch-free; the d_i are small
     // against the running sum, the case Kahan's scheme handles.
     const yk = v - c;
     const t = s + yk;
