@@ -15,13 +15,16 @@ import { phaseVariance } from './clock-math.js';
 import {
   cumulativeFrequency, describeDuration, frac, isoAt, ns, quantiseFrequency, quantisePhase, spacingOk, uplinkFor,
 } from './constraints.js';
-import { meanState, stateJumps, type InternalCommand } from './predict.js';
+import { meanState, stateJumps, type InternalCommand, type StateJump } from './predict.js';
 import type { NormalizedScenario } from './scenario.js';
 
 /** Default fraction of the usable band at which the deadband acts. */
 export const DEFAULT_DEADBAND_THRESHOLD = 0.5;
 /** Default time over which a phase offset is steered out, in seconds (one day). */
 export const DEFAULT_CORRECTION_TIME = 86_400;
+
+/** Start of the reason of every deadband command (the optimal planner replaces it when it keeps the deadband schedule). */
+export const DEADBAND_REASON_PREFIX = 'deadband: ';
 
 /** Result of a planner: the commands (fixed ones included) and the actuator limits it hit. */
 export interface PlannerResult {
@@ -38,23 +41,22 @@ export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalC
   const limits: string[] = [];
   const sigmaAt = (t: number): number => Math.sqrt(phaseVariance(t, norm.covariance0, norm.noise));
   const usable = (t: number): number => norm.bound - norm.z * sigmaAt(t);
+  /** Whether the predicted offset would use more than θ of the usable band between `t` and the next contact (the next chance to act), on the prediction grid. */
+  const exceedsBefore = (t: number, nextStart: number, jumps: readonly StateJump[]): boolean => {
+    for (let s = t; s <= Math.max(nextStart, t) + 1e-9; s += norm.grid) {
+      const at = Math.min(s, norm.horizon);
+      if (Math.abs(meanState(norm, jumps, at)[0]) > theta * Math.max(0, usable(at))) return true;
+      if (s >= norm.horizon) return false;
+    }
+    return false;
+  };
 
   norm.windows.forEach((w, wi) => {
     const nextStart = wi + 1 < norm.windows.length ? norm.windows[wi + 1]!.start : norm.horizon;
     for (let t = w.start; t <= w.end + 1e-9; t += norm.grid) {
       if (!spacingOk(norm, commands, t)) continue;
       const jumps = stateJumps(norm, commands);
-      // Look ahead to the next contact (the next chance to act) on the prediction grid.
-      let exceeds = false;
-      for (let s = t; s <= Math.max(nextStart, t) + 1e-9; s += norm.grid) {
-        const m = meanState(norm, jumps, Math.min(s, norm.horizon))[0];
-        if (Math.abs(m) > theta * Math.max(0, usable(Math.min(s, norm.horizon)))) {
-          exceeds = true;
-          break;
-        }
-        if (s >= norm.horizon) break;
-      }
-      if (!exceeds) continue;
+      if (!exceedsBefore(t, nextStart, jumps)) continue;
       const [x, y, d] = meanState(norm, jumps, t);
       const gap = Math.max(nextStart - t, norm.grid);
       const usableNow = Math.max(0, usable(t));
@@ -64,8 +66,8 @@ export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalC
         if (q.steps !== 0) {
           if (q.limitedBy) limits.push(`the phase step needed at ${isoAt(norm, t)} (${ns(-x)}) exceeds actuator.phaseSteps.maxStep (${ns(norm.actuator.phaseMaxStep)})`);
           commands.push({
-            uplinkAt: t, executeAt: t, kind: 'phase', steps: q.steps, amount: q.amount,
-            reason: `deadband: predicted offset ${ns(x)} uses more than ${Math.round(theta * 100)} % of the usable band ±${ns(usableNow)}; phase step removes it`,
+            uplinkAt: t, executeAt: t, kind: 'phase', steps: q.steps, amount: q.amount, planner: 'deadband',
+            reason: `${DEADBAND_REASON_PREFIX}predicted offset ${ns(x)} uses more than ${Math.round(theta * 100)} % of the usable band ±${ns(usableNow)}; phase step removes it`,
           });
           phaseDone = true;
         }
@@ -84,11 +86,11 @@ export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalC
       }
       if (q.steps === 0) continue;
       commands.push({
-        uplinkAt: uplink, executeAt: execAt, kind: 'frequency', steps: q.steps, amount: q.amount,
-        reason: phaseDone
-          ? `deadband: cancels the predicted frequency offset ${frac(yAtExec)} after the phase step`
-          : `deadband: predicted offset would use more than ${Math.round(theta * 100)} % of the usable band before the next contact; ` +
-            `cancels frequency ${frac(yAtExec)} and steers out ${ns(xAtExec)} over ${describeDuration(correctionTime)}`,
+        uplinkAt: uplink, executeAt: execAt, kind: 'frequency', steps: q.steps, amount: q.amount, planner: 'deadband',
+        reason: DEADBAND_REASON_PREFIX + (phaseDone
+          ? `cancels the predicted frequency offset ${frac(yAtExec)} after the phase step`
+          : `predicted offset would use more than ${Math.round(theta * 100)} % of the usable band before the next contact; ` +
+            `cancels frequency ${frac(yAtExec)} and steers out ${ns(xAtExec)} over ${describeDuration(correctionTime)}`),
       });
     }
   });

@@ -28,12 +28,14 @@
  *
  * @module
  */
-import { add3, mulVec3, phaseSquareIntegral, transition, transpose3, mul3, zeros3, type Matrix3 } from './clock-math.js';
+import {
+  add3, mul3, mulVec3, phaseSquareIntegral, propagateMean, quadForm3, transition, transpose3, zeros3, type Matrix3,
+} from './clock-math.js';
 import {
   cumulativeFrequency, executionIntervals, frac, ns, quantiseFrequency, quantisePhase, uplinkFor, type QuantisedStep,
 } from './constraints.js';
 import { expectedCost } from './cost.js';
-import { planDeadband, type PlannerResult } from './deadband.js';
+import { DEADBAND_REASON_PREFIX, planDeadband, type PlannerResult } from './deadband.js';
 import { checkTolerance, gridTimes, phaseSigmaAt, stateJumps, type ActuatorLimit, type InternalCommand } from './predict.js';
 import type { NormalizedScenario } from './scenario.js';
 
@@ -84,12 +86,6 @@ function boundaries(norm: NormalizedScenario, fixed: readonly InternalCommand[],
   }
   for (const t of epochs) if (t < norm.horizon) at(t).controllable = true;
   return [...map.values()].sort((a, b) => a.t - b.t);
-}
-
-function quadForm(s: readonly number[], m: Matrix3): number {
-  let q = 0;
-  for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) q += s[i]! * m[i]![j]! * s[j]!;
-  return q;
 }
 
 /** How each actuator limit is named in reasons: the scenario field that sets it. */
@@ -168,7 +164,7 @@ function lqPass(norm: NormalizedScenario, fixed: readonly InternalCommand[], bou
       const g = stageG[i]!;
       const q = (dx: number, dy: number, charge: number): number => {
         const z = [state[0]! + dx, state[1]! + dy, state[2]!];
-        return quadForm(z, s) + 2 * (g[0]! * z[0]! + g[1]! * z[1]! + g[2]! * z[2]!) + charge;
+        return quadForm3(z, s) + 2 * (g[0]! * z[0]! + g[1]! * z[1]! + g[2]! * z[2]!) + charge;
       };
       let best = { cost: q(0, 0, 0), kind: 'none' as 'none' | 'frequency' | 'phase', step: { steps: 0, amount: 0 } as QuantisedStep };
       const cumulative = cumulativeFrequency(norm, commands);
@@ -193,7 +189,7 @@ function lqPass(norm: NormalizedScenario, fixed: readonly InternalCommand[], bou
         const before = `predicted offset ${ns(state[0]!)} and frequency ${frac(state[1]!)} before the step`;
         const limitedBy = actuatorLimitOf(best.kind, best.step);
         commands.push({
-          uplinkAt: uplink, executeAt: b.t, kind: best.kind, steps: best.step.steps, amount: best.step.amount,
+          uplinkAt: uplink, executeAt: b.t, kind: best.kind, steps: best.step.steps, amount: best.step.amount, planner: 'optimal',
           reason: `optimal (quantised LQ): ${before}; this ${best.kind} step minimises the expected offset cost to the end of the horizon` +
             (limitedBy ? ` (limited by ${LIMIT_NAMES[limitedBy]})` : ''),
           ...(limitedBy ? { limitedBy } : {}),
@@ -203,7 +199,7 @@ function lqPass(norm: NormalizedScenario, fixed: readonly InternalCommand[], bou
       }
     }
     const delta = bounds[i + 1]!.t - b.t;
-    state = [state[0]! + state[1]! * delta + (state[2]! * delta * delta) / 2, state[1]! + state[2]! * delta, state[2]!];
+    state = propagateMean(state, delta);
   }
   commands.sort((a, b) => a.executeAt - b.executeAt);
   return commands;
@@ -216,7 +212,10 @@ export function planOptimal(norm: NormalizedScenario, fixed: readonly InternalCo
   const epochs = decisionEpochs(norm, fixed, cadence);
   const bounds = boundaries(norm, fixed, epochs);
   // Raising the phase weight cannot help when z·σ alone exceeds the tolerance somewhere.
-  const sigmaBound = Math.max(...Array.from(phaseSigmaAt(norm, gridTimes(norm)))) * norm.z;
+  // (A loop, not Math.max(...σ): a spread of more than ~125 000 grid points overflows the call stack.)
+  let sigmaMax = 0;
+  for (const sigma of phaseSigmaAt(norm, gridTimes(norm))) sigmaMax = Math.max(sigmaMax, sigma);
+  const sigmaBound = sigmaMax * norm.z;
   const attempts = sigmaBound >= norm.bound ? 1 : 5;
   let commands: InternalCommand[] = [];
   let ok = false;
@@ -230,10 +229,11 @@ export function planOptimal(norm: NormalizedScenario, fixed: readonly InternalCo
   const deadband = planDeadband(norm, fixed);
   const deadbandOk = checkTolerance(norm, stateJumps(norm, deadband.commands)).ok;
   if ((deadbandOk && !ok) || (deadbandOk === ok && expectedCost(norm, deadband.commands).total < expectedCost(norm, commands).total)) {
+    const why = deadbandOk && !ok ? 'it holds the tolerance and the LQ schedule does not' : 'lower expected cost than the LQ schedule';
     return {
-      commands: deadband.commands.map((c) => (c.reason.startsWith('deadband') ? {
-        ...c, reason: `optimal (deadband schedule kept: ${deadbandOk && !ok ? 'it holds the tolerance and the LQ schedule does not' : 'lower expected cost than the LQ schedule'}): ${c.reason.slice('deadband: '.length)}`,
-      } : c)),
+      // Feed-forward commands keep their reason; the deadband planner's own say why the optimal planner kept them.
+      commands: deadband.commands.map((c) => (c.planner === 'deadband'
+        ? { ...c, reason: `optimal (deadband schedule kept: ${why}): ${c.reason.slice(DEADBAND_REASON_PREFIX.length)}` } : c)),
       limits: deadband.limits,
     };
   }

@@ -27,6 +27,8 @@ export interface InternalCommand {
   /** steps × resolution: fractional frequency, or seconds for a phase step. */
   amount: number;
   reason: string;
+  /** The feedback planner that made the command; absent for feed-forward and given commands. */
+  planner?: 'deadband' | 'optimal';
   /** Set when an actuator limit cut the step short of what the planner wanted. */
   limitedBy?: ActuatorLimit;
 }
