@@ -26,16 +26,33 @@ export interface DiffusionCoefficients {
  * var x(t) = φ(t) P0 φ(t)ᵀ + q1 t + q2 t³/3 + q3 t⁵/20, φ(t) = [1, t, t²/2].
  * Zucca & Tavella, IEEE Trans. UFFC 52(2) 289–296 (2005), Q11 of the process-noise matrix
  * (physics-refs §11) [M citation; relations verified by simulation, C].
+ *
+ * Kept as this scalar closed form rather than [Φ P0 Φᵀ + clockProcessNoise(t, q, 3)]₁₁: the planner
+ * calls it at every grid point and check (clockProcessNoise validates its inputs and builds a 3×3
+ * matrix per call), and clockProcessNoise forms q3·t⁵ with another association of the products,
+ * so with q3 > 0 the result could differ in the last bit and plans would no longer be reproduced
+ * bit for bit. clock-math.test.ts holds the two equal to 1e-14 relative.
  */
 export function phaseVariance(t: number, p0: Matrix3, q: DiffusionCoefficients): number {
-  const f0 = 1;
-  const f1 = t;
-  const f2 = (t * t) / 2;
-  const phi = [f0, f1, f2];
-  let initial = 0;
-  for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) initial += phi[i]! * p0[i]![j]! * phi[j]!;
+  const initial = quadForm3([1, t, (t * t) / 2], p0);
   const t3 = t * t * t;
   return Math.max(0, initial) + q.q1 * t + (q.q2 * t3) / 3 + (q.q3 * t3 * t * t) / 20;
+}
+
+/** vᵀ M v for a 3-vector and a 3×3 matrix, summed row by row (i, then j). */
+export function quadForm3(v: readonly number[], m: Matrix3): number {
+  let s = 0;
+  for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) s += v[i]! * m[i]![j]! * v[j]!;
+  return s;
+}
+
+/**
+ * The noise-free state [x, y, d] after Δ seconds, Φ(Δ)·s = [x + yΔ + dΔ²/2, y + dΔ, d]
+ * (physics-refs §11), written out: `mulVec3(transition(Δ), s)` would round dΔ²/2 in another
+ * order and change plans in the last bit.
+ */
+export function propagateMean(s: readonly number[], delta: number): [number, number, number] {
+  return [s[0]! + s[1]! * delta + (s[2]! * delta * delta) / 2, s[1]! + s[2]! * delta, s[2]!];
 }
 
 /**

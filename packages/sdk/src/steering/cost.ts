@@ -11,7 +11,7 @@
  *
  * @module
  */
-import { phaseSquareIntegral } from './clock-math.js';
+import { phaseSquareIntegral, propagateMean, quadForm3 } from './clock-math.js';
 import { stateJumps, type InternalCommand } from './predict.js';
 import type { NormalizedScenario } from './scenario.js';
 
@@ -26,14 +26,6 @@ export interface CostBreakdown {
   total: number;
 }
 
-/** ∫₀^Δ (φ(s)·v)² ds for state v, φ(s) = [1, s, s²/2]. */
-function quadIntegral(v: readonly number[], delta: number): number {
-  const m = phaseSquareIntegral(delta);
-  let s = 0;
-  for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) s += v[i]! * m[i]![j]! * v[j]!;
-  return s;
-}
-
 /** Expected cost J of a schedule (see the module comment). */
 export function expectedCost(norm: NormalizedScenario, commands: readonly InternalCommand[]): CostBreakdown {
   const jumps = stateJumps(norm, commands);
@@ -45,8 +37,9 @@ export function expectedCost(norm: NormalizedScenario, commands: readonly Intern
   const advance = (to: number): void => {
     const delta = to - t;
     if (delta > 0) {
-      meanSquare += quadIntegral(state, delta);
-      state = [state[0]! + state[1]! * delta + (state[2]! * delta * delta) / 2, state[1]! + state[2]! * delta, state[2]!];
+      // ∫₀^Δ (φ(s)·state)² ds, φ(s) = [1, s, s²/2].
+      meanSquare += quadForm3(state, phaseSquareIntegral(delta));
+      state = propagateMean(state, delta);
       t = to;
     }
   };

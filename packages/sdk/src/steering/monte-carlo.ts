@@ -67,9 +67,11 @@ export function simulatePlan(scenario: unknown, plan: Pick<SteeringPlan, 'comman
   const gridSet = new Set(grid);
   const timeline = [...new Set([...grid, ...jumps.map((j) => j.t).filter((t) => t >= 0 && t <= norm.horizon)])].sort((a, b) => a - b);
   const steps = timeline.map((t, i) => {
-    const jumpDx = jumps.filter((j) => j.t === t).reduce((s, j) => s + j.dx, 0);
-    const jumpDy = jumps.filter((j) => j.t === t).reduce((s, j) => s + j.dy, 0);
-    return { t, delta: i === 0 ? 0 : t - timeline[i - 1]!, jumpDx, jumpDy, onGrid: gridSet.has(t) };
+    const here = jumps.filter((j) => j.t === t);
+    return {
+      delta: i === 0 ? 0 : t - timeline[i - 1]!, onGrid: gridSet.has(t),
+      jumpDx: here.reduce((s, j) => s + j.dx, 0), jumpDy: here.reduce((s, j) => s + j.dy, 0),
+    };
   });
   const cholCache = new Map<number, Matrix3>();
   const cholFor = (delta: number): Matrix3 => {

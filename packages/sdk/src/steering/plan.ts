@@ -107,8 +107,11 @@ function diagnose(norm: NormalizedScenario, method: SteeringMethod, commands: re
   const bound = norm.bound;
   const pct = `${Number((norm.probability * 100).toPrecision(6))} %`;
   // 1. Uncertainty alone: no schedule can help once z·σ ≥ b.
-  for (const t of gridTimes(norm)) {
-    const sigma = phaseSigmaAt(norm, [t])[0]!;
+  const times = gridTimes(norm);
+  const sigmas = phaseSigmaAt(norm, times);
+  for (let i = 0; i < times.length; i++) {
+    const t = times[i]!;
+    const sigma = sigmas[i]!;
     if (norm.z * sigma >= bound) {
       return `σ alone exceeds the tolerance after ${describeDuration(t)} (at ${isoAt(norm, t)}): ` +
         `z·σ = ${norm.z.toFixed(3)} × ${ns(sigma)} ≥ ±${ns(bound)} at ${pct}, whatever the commands. ` +

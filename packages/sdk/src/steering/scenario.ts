@@ -12,7 +12,7 @@ import { normalQuantile } from '../internal/special-functions.js';
 import type { Dimensionless, Metres, PerSecond, Seconds } from '../units.js';
 import type { Instant } from '../time/instant.js';
 import type { TimeScales } from '../time/scales.js';
-import type { DiffusionCoefficients, Matrix3 } from './clock-math.js';
+import { zeros3, type DiffusionCoefficients, type Matrix3 } from './clock-math.js';
 import { parseUtcStamp, requireInsideTable, resolveTimeScales, type TimeScaleOptions } from './utc-stamps.js';
 import { rateChangeForSemiMajorAxisChange } from '../relativity/rate.js';
 import { CONSTANT_SETS, DEFAULT_CONSTANT_SET } from '../constants.js';
@@ -354,8 +354,7 @@ export function validateScenario(input: unknown, options: TimeScaleOptions = {})
     throw new InvalidArgumentError('clock.fractionalFrequency', state0[1], 'a fractional frequency |y| < 1e-3',
       'fractional frequency is dimensionless (Δf/f), not hertz');
   }
-  const covariance0 = clock['covariance'] === undefined ? ([[0, 0, 0], [0, 0, 0], [0, 0, 0]] as Matrix3)
-    : validateCovariance('clock.covariance', clock['covariance']);
+  const covariance0 = clock['covariance'] === undefined ? zeros3() : validateCovariance('clock.covariance', clock['covariance']);
   const noise = noiseToDiffusion(clock['noise'] as NoiseSpec, 'clock.noise');
 
   const tol = requireObject('tolerance', root['tolerance']);
