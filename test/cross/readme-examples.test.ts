@@ -348,6 +348,13 @@ describe('README TypeScript examples run against the SDK sources and give the st
     expect(runnable.length).toBeGreaterThanOrEqual(8);
   });
 
+  it('packages/sdk/README.md lists every "exports" subpath of packages/sdk/package.json', () => {
+    const manifest = JSON.parse(readFileSync(join(ROOT, 'packages/sdk/package.json'), 'utf8')) as { exports: Record<string, unknown> };
+    const readme = readFileSync(join(ROOT, 'packages/sdk/README.md'), 'utf8');
+    const missing = Object.keys(manifest.exports).map((k) => `\`@tauline/sdk${k.slice(1)}\``).filter((name) => !readme.includes(`| ${name} |`));
+    expect(missing).toEqual([]);
+  });
+
   tsBlocks.forEach((block, index) => {
     const imports = importsOf(block.body);
     const foreign = imports.filter((s) => !runnableImport(s));
