@@ -22,10 +22,11 @@ import { execFile } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
-import { beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 const ROOT = fileURLToPath(new URL('../../', import.meta.url));
-const TMP = join(ROOT, 'test/cross/.tmp');
+/** Per-process folder, so that parallel runs never delete each other's files. */
+const TMP = join(ROOT, 'test/cross/.tmp', String(process.pid));
 const BIN = join(ROOT, 'packages/cli/bin/tauline.js');
 
 /** The documents whose examples are checked. */
@@ -201,8 +202,8 @@ function instrument(block: Block): { code: string; expectations: Expectation[] }
     if (declaration) return `${indent}${statement}; __dt.value(${id}, ${declaration[2]});`;
     return `${indent}__dt.value(${id}, (${statement}));`;
   });
-  const header = 'const __dt = (globalThis as unknown as { __taulineDoctest: import("../readme-examples.test.js").DoctestHostType }).__taulineDoctest; ' +
-    'const console = __dt.console;';
+  const header = 'const __dt = (globalThis as unknown as { __taulineDoctest: { console: Console; before(id: number): void; ' +
+    'after(id: number): void; value(id: number, v: unknown): void } }).__taulineDoctest; const console = __dt.console;';
   return { code: `${header}\n${out.join('\n')}\n`, expectations };
 }
 
@@ -223,8 +224,6 @@ function checkValue(expected: string, value: unknown): string | undefined {
   }
   return `unsupported annotation "→ ${expected}": start it with a number, a quoted string, true, false, null or undefined`;
 }
-
-export type DoctestHostType = DoctestHost;
 
 async function runBlock(block: Block, index: number): Promise<string[]> {
   const { code, expectations } = instrument(block);
@@ -340,6 +339,9 @@ describe('README TypeScript examples run against the SDK sources and give the st
   beforeAll(() => {
     rmSync(TMP, { recursive: true, force: true });
     mkdirSync(TMP, { recursive: true });
+  });
+  afterAll(() => {
+    rmSync(TMP, { recursive: true, force: true });
   });
 
   it('the documents hold the expected runnable examples (SDK README: one per main job)', () => {
