@@ -10,7 +10,7 @@ export {
   type RinexClockFile, type RinexClockHeader, type RinexClockRecord, type RinexClockSeries,
 } from './rinex-clock.js';
 export {
-  type TextLine, type TextSource, type EpochFields, LineSplitter, linesOf, readLines, parseFortranReal,
+  type TextLine, type TextSource, type EpochFields, LineSplitter, linesOf, readLines, readLineBatches, parseFortranReal,
   scaleSecondsFromFields, fieldsFromScaleSeconds, formatEpochFields,
 } from './line-reader.js';
 export {

@@ -66,29 +66,61 @@ export class LineSplitter {
 }
 
 /**
+ * Characters of a whole-string source handed to the splitter at a time, so that only one piece's
+ * lines exist as objects at once (splitting a 40 MB string in one go would create every line first).
+ */
+const STRING_PIECE = 65_536;
+
+/** The chunks of a sync source: a whole string cut into {@link STRING_PIECE} pieces, or the iterable's chunks. */
+function* piecesOf(source: string | Iterable<string>): Generator<string> {
+  if (typeof source === 'string') {
+    for (let i = 0; i < source.length; i += STRING_PIECE) yield source.slice(i, i + STRING_PIECE);
+  } else {
+    for (const chunk of source) yield String(chunk);
+  }
+}
+
+/**
  * Iterates the lines of a text source, synchronously. Accepts a string or a sync iterable of chunks.
  */
 export function* linesOf(source: string | Iterable<string>): Generator<TextLine> {
   const splitter = new LineSplitter();
-  if (typeof source === 'string') {
-    yield* splitter.push(source);
-  } else {
-    for (const chunk of source) yield* splitter.push(String(chunk));
-  }
+  for (const piece of piecesOf(source)) yield* splitter.push(piece);
   yield* splitter.finish();
 }
 
 /**
- * Iterates the lines of any text source (string, iterable or async iterable of chunks).
+ * Iterates the lines of any text source as batches: the lines completed by each chunk (empty batches
+ * are not yielded). Readers loop over a batch synchronously, so a streamed file costs one asynchronous
+ * step per chunk rather than one per line (about twice the throughput of {@link readLines} on a day
+ * of 30-s SP3, `npm run bench -- io`). A whole string is cut into 64 Ki-character pieces.
+ *
+ * @param source  A string, or a sync or async iterable of string chunks.
+ * @returns An async generator of non-empty arrays of lines, numbered from 1 across the whole source.
+ */
+export async function* readLineBatches(source: TextSource): AsyncGenerator<readonly TextLine[]> {
+  const splitter = new LineSplitter();
+  if (isAsyncIterable(source)) {
+    for await (const chunk of source) {
+      const lines = splitter.push(String(chunk));
+      if (lines.length > 0) yield lines;
+    }
+  } else {
+    for (const piece of piecesOf(source)) {
+      const lines = splitter.push(piece);
+      if (lines.length > 0) yield lines;
+    }
+  }
+  const last = splitter.finish();
+  if (last.length > 0) yield last;
+}
+
+/**
+ * Iterates the lines of any text source (string, iterable or async iterable of chunks). One
+ * asynchronous step per line: readers of large files use {@link readLineBatches}.
  */
 export async function* readLines(source: TextSource): AsyncGenerator<TextLine> {
-  if (!isAsyncIterable(source)) {
-    yield* linesOf(source);
-    return;
-  }
-  const splitter = new LineSplitter();
-  for await (const chunk of source) yield* splitter.push(String(chunk));
-  yield* splitter.finish();
+  for await (const lines of readLineBatches(source)) yield* lines;
 }
 
 /** Calendar date and time of day as written in a file, in that file's own time scale. */

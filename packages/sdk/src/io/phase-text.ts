@@ -8,7 +8,7 @@
  */
 import { ParseError } from '../errors.js';
 import type { Seconds } from '../units.js';
-import { linesOf, readLines, type TextLine, type TextSource } from './line-reader.js';
+import { linesOf, readLineBatches, type TextLine, type TextSource } from './line-reader.js';
 
 /** A run of missing samples in a regularised series. */
 export interface SampleGap {
@@ -274,9 +274,11 @@ export function parsePhaseText(source: string | Iterable<string>, options: Phase
 export async function readPhaseText(source: TextSource, options: PhaseTextOptions = {}): Promise<PhaseTextSeries> {
   const builder = new PhaseTextBuilder(options);
   let last = 0;
-  for await (const line of readLines(source)) {
-    builder.add(line);
-    last = line.lineNumber;
+  for await (const lines of readLineBatches(source)) {
+    for (const line of lines) {
+      builder.add(line);
+      last = line.lineNumber;
+    }
   }
   return builder.finish(last);
 }

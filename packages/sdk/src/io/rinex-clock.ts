@@ -17,7 +17,7 @@
 import { ParseError } from '../errors.js';
 import type { Seconds } from '../units.js';
 import {
-  linesOf, parseFortranReal, readLines, scaleSecondsFromFields, validEpochFields, type EpochFields, type TextLine, type TextSource,
+  linesOf, parseFortranReal, readLineBatches, scaleSecondsFromFields, validEpochFields, type EpochFields, type TextLine, type TextSource,
 } from './line-reader.js';
 import { regularizeSeries, type SampleGap } from './phase-text.js';
 
@@ -250,9 +250,11 @@ export function parseRinexClock(source: string | Iterable<string>, sourceName = 
 export async function readRinexClock(source: TextSource, sourceName = 'rinex-clock'): Promise<RinexClockFile> {
   const b = new RinexClockBuilder(sourceName);
   let last = 0;
-  for await (const line of readLines(source)) {
-    b.add(line);
-    last = line.lineNumber;
+  for await (const lines of readLineBatches(source)) {
+    for (const line of lines) {
+      b.add(line);
+      last = line.lineNumber;
+    }
   }
   return b.finish(last);
 }

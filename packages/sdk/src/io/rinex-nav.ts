@@ -19,7 +19,7 @@ import type { Seconds } from '../units.js';
 import type { KeplerianBroadcastEphemeris, KeplerianNavMessage, KeplerianSystem } from '../orbit/broadcast.js';
 import { defaultFitIntervalSeconds, isBeidouGeostationary } from '../orbit/broadcast.js';
 import {
-  type EpochFields, type TextLine, type TextSource, linesOf, parseFortranReal, readLines, scaleSecondsFromFields,
+  type EpochFields, type TextLine, type TextSource, linesOf, parseFortranReal, readLineBatches, scaleSecondsFromFields,
   validEpochFields,
 } from './line-reader.js';
 
@@ -587,8 +587,11 @@ function skipReason(type: RinexNavRecordType, system: string, message: string | 
  */
 export async function* readRinexNav(source: TextSource, options: RinexNavReadOptions = {}): AsyncGenerator<RinexNavEvent> {
   const parser = new RinexNavParser(options);
-  for await (const line of readLines(source)) yield* parser.push(line);
-  yield* parser.finish();
+  // One asynchronous step per chunk, not per line (an event is yielded only when a line completes one).
+  for await (const lines of readLineBatches(source)) {
+    for (const line of lines) for (const event of parser.push(line)) yield event;
+  }
+  for (const event of parser.finish()) yield event;
 }
 
 /**

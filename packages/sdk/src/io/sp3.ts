@@ -17,7 +17,7 @@
 import { ParseError } from '../errors.js';
 import type { Seconds, Vector3 } from '../units.js';
 import {
-  type EpochFields, type TextLine, type TextSource, linesOf, readLines, scaleSecondsFromFields, validEpochFields,
+  type EpochFields, type TextLine, type TextSource, linesOf, readLineBatches, scaleSecondsFromFields, validEpochFields,
 } from './line-reader.js';
 
 /** SP3 time-system identifiers (SP3-c/d `%c` line, columns 10-12 [M]). */
@@ -418,8 +418,11 @@ export class Sp3Parser {
  */
 export async function* readSp3(source: TextSource, options: Sp3ReadOptions = {}): AsyncGenerator<Sp3Event> {
   const parser = new Sp3Parser(options);
-  for await (const line of readLines(source)) yield* parser.push(line);
-  yield* parser.finish();
+  // One asynchronous step per chunk, not per line (an event is yielded only when a line completes one).
+  for await (const lines of readLineBatches(source)) {
+    for (const line of lines) for (const event of parser.push(line)) yield event;
+  }
+  for (const event of parser.finish()) yield event;
 }
 
 /**
