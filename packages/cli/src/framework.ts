@@ -94,6 +94,32 @@ export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
   return { values: parsed.values as ParsedArgs['values'], positionals: parsed.positionals, command };
 }
 
+/**
+ * The one positional argument of a command that reads one file; none or several is a usage error.
+ * @param what  What the file is, for the message (e.g. "scenario file").
+ */
+export function onePositional(args: ParsedArgs, what: string): string {
+  if (args.positionals.length !== 1) throw new UsageError(`give exactly one ${what} (see \`tauline ${args.command?.name ?? '<command>'} --help\`)`);
+  return args.positionals[0]!;
+}
+
+/**
+ * Runs `body`, renaming the argument of an SDK InvalidArgumentError to the command-line flag it came
+ * from (e.g. `semiMajorAxis` → `--semi-major-axis`), so the one-line error names what the user typed.
+ * @param flags  Argument → flag, or a function giving the flag of an argument (undefined: keep it).
+ */
+export function withFlagNames<T>(flags: Readonly<Record<string, string>> | ((argument: string) => string | undefined), body: () => T): T {
+  try {
+    return body();
+  } catch (error) {
+    if (error instanceof InvalidArgumentError) {
+      const flag = typeof flags === 'function' ? flags(error.argument) : Object.hasOwn(flags, error.argument) ? flags[error.argument] : undefined;
+      if (flag !== undefined) throw new InvalidArgumentError(flag, error.received, error.expected, error.hint);
+    }
+    throw error;
+  }
+}
+
 /** Reads a required string flag; a missing or empty one is a usage error quoting the flag's help. */
 export function requireFlag(args: ParsedArgs, flag: string): string {
   const v = args.values[flag];
@@ -157,6 +183,11 @@ export function seedFlag(args: ParsedArgs): number | undefined {
   return integerFlag(args, 'seed', 0, MAX_SEED, 'seed of the random generator; same seed, same numbers');
 }
 
+/** The `--seed` flag spec; `of` names the generator, `purpose` ends the sentence (e.g. "; same seed, same numbers"). */
+export function seedFlagSpec(of: string, purpose: string): FlagSpec {
+  return { type: 'string', value: '<n>', description: `Seed of ${of}, 0 … ${MAX_SEED} (default 1)${purpose}.` };
+}
+
 /** The two formats of commands printing one result: an aligned table (default) or JSON. */
 export const TABLE_OR_JSON = ['table', 'json'] as const;
 /** Formats of commands printing a long list of rows. */
@@ -165,6 +196,20 @@ export const TABLE_JSON_CSV = ['table', 'json', 'csv'] as const;
 /** The `--format` flag spec, for commands offering more than one output format. */
 export function formatFlagSpec(formats: readonly string[], defaultFormat = 'table'): FlagSpec {
   return { type: 'string', value: formats.join('|'), description: `Output format: ${formats.join(', ')} (default ${defaultFormat}).` };
+}
+
+/** Help of `--json` on commands whose default output is one table. */
+export const JSON_INSTEAD_OF_TABLE = 'Print one JSON object instead of a table (same as --format json).';
+
+/**
+ * The output-format flags of a command: the boolean shorthands (`json`, `csv`, …, each named like one
+ * of `formats`, with its help) and then `--format`. Read them with {@link formatFlag}.
+ */
+export function formatFlags(formats: readonly string[], shorthands: Readonly<Record<string, string>> = { json: JSON_INSTEAD_OF_TABLE }): Record<string, FlagSpec> {
+  const flags: Record<string, FlagSpec> = {};
+  for (const [name, description] of Object.entries(shorthands)) flags[name] = { type: 'boolean', description };
+  flags['format'] = formatFlagSpec(formats);
+  return flags;
 }
 
 /**
@@ -187,7 +232,9 @@ export function formatFlag<F extends string>(args: ParsedArgs, formats: readonly
 /** Renders rows as an aligned text table. Numbers are right-aligned. */
 export function table(headers: string[], rows: (string | number)[][]): string {
   const cells = rows.map((r) => r.map((c) => String(c)));
-  const widths = headers.map((h, i) => Math.max(h.length, ...cells.map((r) => (r[i] ?? '').length)));
+  // Widths by a loop: spreading a long column into Math.max overflows the call stack (~125 000 rows).
+  const widths = headers.map((h) => h.length);
+  for (const r of cells) r.forEach((c, i) => { if (i < widths.length && c.length > widths[i]!) widths[i] = c.length; });
   const numeric = headers.map((_, i) => rows.every((r) => typeof r[i] === 'number' || /^[-+]?[\d.]/.test(String(r[i] ?? ''))));
   const fmt = (r: string[]) => r.map((c, i) => (numeric[i] ? c.padStart(widths[i]!) : c.padEnd(widths[i]!))).join('  ').trimEnd();
   return [fmt(headers), widths.map((w) => '─'.repeat(w)).join('  '), ...cells.map(fmt)].join('\n') + '\n';
@@ -210,6 +257,23 @@ export function sig(value: number, digits = 10): string {
 /** JSON with a trailing newline; bigint values become decimal strings. */
 export function toJson(value: unknown): string {
   return JSON.stringify(value, (_k, v) => (typeof v === 'bigint' ? v.toString() : v), 2) + '\n';
+}
+
+/** A one-line progress bar on stderr, redrawn in place when the whole percentage changes; only for terminals. */
+export function progressBar(io: Io, label: string): { update: (done: number, total: number) => void; finish: () => void } {
+  let last = -1;
+  return {
+    update(done, total) {
+      const pct = Math.min(100, Math.floor((100 * done) / total));
+      if (pct === last) return;
+      last = pct;
+      const filled = Math.round(pct / 4);
+      io.err(`\r${label} [${'#'.repeat(filled)}${'.'.repeat(25 - filled)}] ${String(pct).padStart(3)} %`);
+    },
+    finish() {
+      io.err(`\r${' '.repeat(label.length + 35)}\r`);
+    },
+  };
 }
 
 /** The line printed for flight-configuration outputs. */

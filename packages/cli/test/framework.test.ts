@@ -1,7 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { main } from '../src/main.js';
 import type { Io } from '../src/framework.js';
-import { parseNumber, table } from '../src/framework.js';
+import { InvalidArgumentError } from '@tauline/sdk/errors';
+import {
+  JSON_INSTEAD_OF_TABLE, formatFlags, onePositional, parseNumber, progressBar, seedFlagSpec, table, withFlagNames, type ParsedArgs,
+} from '../src/framework.js';
 
 async function run(...argv: string[]): Promise<{ status: number; out: string; err: string }> {
   let out = '', err = '';
@@ -49,5 +52,56 @@ describe('the tauline command framework', () => {
 
   it('table(headers, rows) right-aligns numeric columns', () => {
     expect(table(['name', 'value'], [['a', 1], ['bb', 22]])).toBe('name  value\n────  ─────\na         1\nbb       22\n');
+  });
+
+  it('table(headers, rows) sizes a column of 200 000 rows without overflowing the call stack', () => {
+    const rows = Array.from({ length: 200_000 }, (_, i) => [`r${i}`, i]);
+    const lines = table(['name', 'value'], rows).split('\n');
+    expect(lines).toHaveLength(200_003);
+    expect(lines[0]).toBe('name      value');
+    expect(lines[200_001]).toBe('r199999  199999');
+  });
+
+  it('formatFlags(formats, shorthands) lists the shorthands, then --format naming every format', () => {
+    const flags = formatFlags(['table', 'json', 'csv'], { json: 'JSON.', csv: 'CSV.' });
+    expect(Object.keys(flags)).toEqual(['json', 'csv', 'format']);
+    expect(flags['csv']).toEqual({ type: 'boolean', description: 'CSV.' });
+    expect(flags['format']).toEqual({ type: 'string', value: 'table|json|csv', description: 'Output format: table, json, csv (default table).' });
+    expect(formatFlags(['table', 'json'])['json']!.description).toBe(JSON_INSTEAD_OF_TABLE);
+  });
+
+  it('seedFlagSpec(of, purpose) states the 32-bit seed range', () => {
+    expect(seedFlagSpec('the random generator', '; same seed, same numbers').description)
+      .toBe('Seed of the random generator, 0 … 4294967295 (default 1); same seed, same numbers.');
+  });
+
+  it('onePositional(args, what) returns the one file and refuses none or two', () => {
+    const args = (positionals: string[]): ParsedArgs =>
+      ({ values: {}, positionals, command: { name: 'plan', summary: '', usage: '', flags: {}, run: () => 0 } });
+    expect(onePositional(args(['a.json']), 'scenario file')).toBe('a.json');
+    expect(() => onePositional(args([]), 'scenario file')).toThrow('give exactly one scenario file (see `tauline plan --help`)');
+    expect(() => onePositional(args(['a', 'b']), 'scenario file')).toThrow(/give exactly one scenario file/);
+  });
+
+  it('withFlagNames(names, body) renames an InvalidArgumentError by a map or a function and passes other errors through', () => {
+    const fail = (argument: string) => (): never => { throw new InvalidArgumentError(argument, 5, 'at most 4', 'a hint'); };
+    expect(() => withFlagNames({ semiMajorAxis: '--semi-major-axis' }, fail('semiMajorAxis'))).toThrow(/^--semi-major-axis must be at most 4; received 5/);
+    expect(() => withFlagNames({ semiMajorAxis: '--semi-major-axis' }, fail('toString'))).toThrow(/^toString must be/);
+    expect(() => withFlagNames((a) => (a === 'data.tau0' ? '--tau0' : undefined), fail('data.tau0'))).toThrow(/^--tau0 must be/);
+    expect(() => withFlagNames(() => undefined, fail('x'))).toThrow(/^x must be/);
+    expect(() => withFlagNames({}, () => { throw new RangeError('other'); })).toThrow(RangeError);
+    expect(withFlagNames({}, () => 7)).toBe(7);
+  });
+
+  it('progressBar(io, label) redraws only when the whole percentage changes and clears its line on finish', () => {
+    const lines: string[] = [];
+    const bar = progressBar({ out: () => {}, err: (t) => { lines.push(t); }, isTty: true }, 'x');
+    bar.update(1, 200);
+    bar.update(2, 200);
+    bar.update(200, 200);
+    bar.finish();
+    expect(lines).toEqual([
+      '\rx [.........................]   0 %', '\rx [.........................]   1 %', '\rx [#########################] 100 %', `\r${' '.repeat(36)}\r`,
+    ]);
   });
 });
