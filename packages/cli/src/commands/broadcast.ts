@@ -12,8 +12,8 @@ import {
 } from '@tauline/sdk/io';
 import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant, type TimeScale, type TimeScales } from '@tauline/sdk/time';
 import {
-  EXIT_FINDING, EXIT_OK, FLIGHT_CAUTION, TABLE_JSON_CSV, UsageError, formatFlag, formatFlagSpec, numberFlag, optionalFlag, requireFlag, table, toJson,
-  type Command, type Io, type ParsedArgs,
+  EXIT_FINDING, EXIT_OK, FLIGHT_CAUTION, TABLE_JSON_CSV, UsageError, formatFlag, formatFlags, numberFlag, optionalFlag, progressBar, requireFlag,
+  table, toJson, type Command, type Io, type ParsedArgs,
 } from '../framework.js';
 import { requireRegularFile } from '../files.js';
 
@@ -23,23 +23,18 @@ export const PROGRESS_BYTES = 4 * 1024 * 1024;
 /** Samples per run above which the request is refused (keeps memory bounded). */
 const MAX_SAMPLES = 5_000_000;
 
-/** A one-line progress bar on stderr over the bytes read, redrawn in place; only for terminals. */
+/** A progress bar over the bytes read, drawn only on a terminal and for inputs above {@link PROGRESS_BYTES}. */
 export function progress(io: Io, label: string, totalBytes: number): { add: (n: number) => void; finish: () => void } {
-  const active = io.isTty && totalBytes > PROGRESS_BYTES;
+  const bar = io.isTty && totalBytes > PROGRESS_BYTES ? progressBar(io, label) : undefined;
   let done = 0;
-  let last = -1;
   return {
     add(n) {
-      if (!active) return;
+      if (!bar) return;
       done += n;
-      const pct = Math.min(100, Math.floor((100 * done) / totalBytes));
-      if (pct === last) return;
-      last = pct;
-      const filled = Math.round(pct / 4);
-      io.err(`\r${label} [${'#'.repeat(filled)}${'.'.repeat(25 - filled)}] ${String(pct).padStart(3)} %`);
+      bar.update(done, totalBytes);
     },
     finish() {
-      if (active) io.err(`\r${' '.repeat(label.length + 35)}\r`);
+      bar?.finish();
     },
   };
 }
@@ -175,9 +170,10 @@ export const broadcastCommand: Command = {
     'time-scale': { type: 'string', value: '<scale>', description: 'system (default: GPST for GPS, GST for Galileo, BDT for BeiDou) or utc (times with Z; converted with the bundled leap-second table).' },
     galileo: { type: 'string', value: '<msg>', description: 'Galileo message to prefer: inav (default) or fnav.' },
     'include-unhealthy': { type: 'boolean', description: 'Also use records whose health word is non-zero.' },
-    json: { type: 'boolean', description: 'Print one JSON object (same as --format json).' },
-    csv: { type: 'boolean', description: 'Print CSV rows (id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message); the caution goes to stderr.' },
-    format: formatFlagSpec(TABLE_JSON_CSV),
+    ...formatFlags(TABLE_JSON_CSV, {
+      json: 'Print one JSON object (same as --format json).',
+      csv: 'Print CSV rows (id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message); the caution goes to stderr.',
+    }),
   },
   details: `
 Reads RINEX 3.0x / 4.0x navigation files (streamed; several files, e.g. a month of daily files, may be given).

@@ -5,9 +5,9 @@
 import { periodicCorrectionAtMeanAnomaly } from '@tauline/sdk/relativity';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import {
-  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlagSpec, keyValueTable, numberFlag, sig, toJson, type Command,
+  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, numberFlag, sig, toJson, withFlagNames, type Command,
 } from '../framework.js';
-import { constantsFlag, withFlagNames } from './rate.js';
+import { constantsFlag } from './rate.js';
 
 /**
  * Largest |M| accepted, in radians. Beyond it a float64 keeps the angle modulo 2π to worse than
@@ -30,8 +30,7 @@ export const periodicCommand: Command = {
     eccentricity: { type: 'string', value: '<e>', description: 'Eccentricity e, dimensionless, 0 ≤ e < 1.' },
     'mean-anomaly': { type: 'string', value: '<rad>', description: 'Mean anomaly M at the epoch, in radians, |M| ≤ 1e9.' },
     constants: { type: 'string', value: '<name>', description: 'Constant set giving F = −2√GM/c²: iers-2010 (default), gps-icd, galileo-icd, beidou-icd.' },
-    json: { type: 'boolean', description: 'Print one JSON object instead of a table (same as --format json).' },
-    format: formatFlagSpec(TABLE_OR_JSON),
+    ...formatFlags(TABLE_OR_JSON),
   },
   details: `
 Solves Kepler's equation M = E − e·sin E, then

@@ -6,8 +6,8 @@ import { planSteering, type SteeringMethod, type SteeringPlan, type SteeringScen
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import { createTimeScales, parseLeapSecondsList, type TimeScales } from '@tauline/sdk/time';
 import {
-  EXIT_FINDING, EXIT_OK, TABLE_OR_JSON, UsageError, formatFlag, formatFlagSpec, keyValueTable, optionalFlag, table, toJson,
-  type Command, type ParsedArgs,
+  EXIT_FINDING, EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, onePositional, optionalFlag, table, toJson,
+  type Command, type FlagSpec, type ParsedArgs,
 } from '../framework.js';
 import { readJsonFile, readTextFile } from '../files.js';
 
@@ -38,6 +38,11 @@ export async function leapSecondsFlag(args: ParsedArgs): Promise<TimeScales | un
     throw error;
   }
 }
+
+/** The `--leap-seconds` flag spec, shared by `plan` and `simulate`. */
+export const LEAP_SECONDS_FLAG: FlagSpec = {
+  type: 'string', value: '<file>', description: 'IERS/NIST leap-seconds.list to read UTC stamps with (default: the bundled table, valid until 2027-06-28).',
+};
 
 /** Help text on leap seconds, shared by `plan` and `simulate`. */
 export const LEAP_SECONDS_HELP = `
@@ -111,9 +116,8 @@ export const planCommand: Command = {
   allowPositionals: true,
   flags: {
     strategy: { type: 'string', value: '<name>', description: 'Override the scenario\'s strategy: deadband, optimal (quantised LQ) or none.' },
-    'leap-seconds': { type: 'string', value: '<file>', description: 'IERS/NIST leap-seconds.list to read UTC stamps with (default: the bundled table, valid until 2027-06-28).' },
-    json: { type: 'boolean', description: 'Print the plan as JSON (feasible, reason, commands, predicted, metrics, units, caution); same as --format json.' },
-    format: formatFlagSpec(TABLE_OR_JSON),
+    'leap-seconds': LEAP_SECONDS_FLAG,
+    ...formatFlags(TABLE_OR_JSON, { json: 'Print the plan as JSON (feasible, reason, commands, predicted, metrics, units, caution); same as --format json.' }),
   },
   details: `
 Scenario format: packages/sdk/schema/scenario.schema.json (JSON Schema); times ISO 8601 UTC, quantities SI.
@@ -125,8 +129,7 @@ than a fraction of the usable band before the next contact.
 ${LEAP_SECONDS_HELP}
 Exit status: 0 feasible plan, 1 infeasible (the reason is printed), 2 unusable input.`,
   async run(args, io) {
-    if (args.positionals.length !== 1) throw new UsageError('give exactly one scenario file (see `tauline plan --help`)');
-    const path = args.positionals[0]!;
+    const path = onePositional(args, 'scenario file');
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
     const strategy = strategyFlag(optionalFlag(args, 'strategy'), false) as SteeringMethod | undefined;
     const timeScales = await leapSecondsFlag(args);

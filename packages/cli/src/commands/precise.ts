@@ -10,7 +10,7 @@ import {
 import { DEFAULT_LAGRANGE_POINTS, PreciseCorrectionStream, type PreciseCorrectionResult } from '@tauline/sdk/relativity';
 import { BUNDLED_LEAP_SECONDS, createTimeScales, type TimeScale, type TimeScales } from '@tauline/sdk/time';
 import {
-  EXIT_OK, TABLE_JSON_CSV, UsageError, formatFlagSpec, numberFlag, table, toJson, type Command,
+  EXIT_OK, TABLE_JSON_CSV, UsageError, formatFlags, numberFlag, table, toJson, type Command,
 } from '../framework.js';
 import { requireRegularFile } from '../files.js';
 import {
@@ -51,9 +51,10 @@ export const preciseCommand: Command = {
     satellite: { type: 'string', value: '<ids>', description: 'Comma-separated satellites, e.g. G05,E11 (default: all in the file).' },
     'lagrange-points': { type: 'string', value: '<n>', description: `Lagrange nodes for velocities when the file has none, 2..16 (default ${DEFAULT_LAGRANGE_POINTS}: degree ${DEFAULT_LAGRANGE_POINTS - 1}).` },
     nav: { type: 'string', multiple: true, value: '<file>', description: 'RINEX navigation file(s) for the cross-check: adds the broadcast Δt_r and the difference.' },
-    json: { type: 'boolean', description: 'Print one JSON object (same as --format json).' },
-    csv: { type: 'boolean', description: 'Print CSV rows (id,t,relativisticSeconds,velocitySource[,broadcastRelativisticSeconds,differenceSeconds]), streamed.' },
-    format: formatFlagSpec(TABLE_JSON_CSV),
+    ...formatFlags(TABLE_JSON_CSV, {
+      json: 'Print one JSON object (same as --format json).',
+      csv: 'Print CSV rows (id,t,relativisticSeconds,velocitySource[,broadcastRelativisticSeconds,differenceSeconds]), streamed.',
+    }),
   },
   details: `
 Reads an SP3-c or SP3-d file (streamed) and computes at each epoch Δt_r = −2 r·v/c² (IERS Conventions 2010 §10.2

@@ -7,10 +7,10 @@ import { GRAVITY_MODELS, type GravityModel } from '@tauline/sdk/orbit';
 import { integrateProperTime } from '@tauline/sdk/relativity';
 import type { ConstantSet } from '@tauline/sdk/constants';
 import {
-  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlagSpec, numberFlag, parseNumber, requireFlag, sig, table, toJson, optionalFlag,
+  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, numberFlag, parseNumber, requireFlag, sig, table, toJson, optionalFlag, withFlagNames,
   type Command,
 } from '../framework.js';
-import { constantsFlag, withFlagNames } from './rate.js';
+import { CONSTANTS_FLAG, constantsFlag } from './rate.js';
 
 /** Parses `x,y,z,vx,vy,vz` (metres, m/s). */
 export function parseStateFlag(text: string): { position: [number, number, number]; velocity: [number, number, number] } {
@@ -59,10 +59,9 @@ export const propertimeCommand: Command = {
     step: { type: 'string', value: '<s>', description: 'Output sample spacing, in seconds (0 < step ≤ duration).' },
     model: { type: 'string', value: '<name>', description: 'Force and clock-potential model: point-mass, j2 (default), full (J2 + lunar and solar tides).' },
     'epoch-tt-j2000': { type: 'string', value: '<s>', description: 'For --model full: TT epoch of t = 0 in seconds since J2000.0 (default 0).' },
-    constants: { type: 'string', value: '<name>', description: 'Constant set: iers-2010 (default), gps-icd, galileo-icd, beidou-icd.' },
+    constants: CONSTANTS_FLAG,
     tolerance: { type: 'string', value: '<rtol>', description: 'Integrator relative tolerance, in [1e-15, 1e-6] (default 1e-12).' },
-    json: { type: 'boolean', description: 'Print one JSON object instead of a table (same as --format json).' },
-    format: formatFlagSpec(TABLE_OR_JSON),
+    ...formatFlags(TABLE_OR_JSON),
   },
   details: `
 Integrates r̈ = ∇U and d(τ − TT)/dTT = L_G − (U + v²/2)/c² (IERS Conventions 2010 §10.2 eq. 10.9 form) with an

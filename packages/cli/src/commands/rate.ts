@@ -7,25 +7,14 @@ import { InvalidArgumentError } from '@tauline/sdk/errors';
 import { meanClockRate, REFERENCE_CLOCKS, type ReferenceClock } from '@tauline/sdk/relativity';
 import { offsetFrequency } from '@tauline/sdk/oscillator';
 import {
-  EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, formatFlag, formatFlagSpec, keyValueTable, numberFlag, optionalFlag, sig, toJson,
-  type Command, type ParsedArgs,
+  EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, numberFlag, optionalFlag, sig, toJson, withFlagNames,
+  type Command, type FlagSpec, type ParsedArgs,
 } from '../framework.js';
 
-/**
- * Runs `body`, renaming the argument of an SDK InvalidArgumentError to the command-line flag
- * it came from (e.g. `semiMajorAxis` → `--semi-major-axis`), so the one-line error names what
- * the user typed.
- */
-export function withFlagNames<T>(flags: Record<string, string>, body: () => T): T {
-  try {
-    return body();
-  } catch (error) {
-    if (error instanceof InvalidArgumentError && flags[error.argument] !== undefined) {
-      throw new InvalidArgumentError(flags[error.argument]!, error.received, error.expected, error.hint);
-    }
-    throw error;
-  }
-}
+/** The `--constants` flag spec (the set of GM, L_G, J2, … the command computes with). */
+export const CONSTANTS_FLAG: FlagSpec = {
+  type: 'string', value: '<name>', description: 'Constant set: iers-2010 (default), gps-icd, galileo-icd, beidou-icd.',
+};
 
 /** Reads `--constants` (default iers-2010), naming the flag when the set is unknown. */
 export function constantsFlag(args: ParsedArgs): ConstantSet {
@@ -52,11 +41,10 @@ export const rateCommand: Command = {
   usage: '--semi-major-axis <m> [--constants <name>] [--reference tt|tcg] [--nominal-frequency <Hz>] [--json | --format table|json]',
   flags: {
     'semi-major-axis': { type: 'string', value: '<m>', description: 'Orbit semi-major axis a, in metres (e.g. 26561750 for GPS).' },
-    constants: { type: 'string', value: '<name>', description: 'Constant set: iers-2010 (default), gps-icd, galileo-icd, beidou-icd.' },
+    constants: CONSTANTS_FLAG,
     reference: { type: 'string', value: 'tt|tcg', description: 'Reference time scale: tt (clocks on the geoid, default) or tcg.' },
     'nominal-frequency': { type: 'string', value: '<Hz>', description: 'Nominal oscillator frequency f0, in Hz; adds the frequency to set on the ground.' },
-    json: { type: 'boolean', description: 'Print one JSON object instead of a table (same as --format json).' },
-    format: formatFlagSpec(TABLE_OR_JSON),
+    ...formatFlags(TABLE_OR_JSON),
   },
   details: `
 Rate = dτ/dt − 1 of the satellite clock against the reference; positive means it runs fast.

@@ -5,7 +5,8 @@
 import { writeFile } from 'node:fs/promises';
 import { reviewOffsets, reviewToHtml, reviewToMarkdown, type ReviewReport } from '@tauline/sdk/review';
 import {
-  EXIT_FINDING, EXIT_OK, UsageError, formatFlag, formatFlagSpec, integerFlag, optionalFlag, seedFlag, table, toJson, type Command,
+  EXIT_FINDING, EXIT_OK, formatFlag, formatFlagSpec, integerFlag, onePositional, optionalFlag, seedFlag, seedFlagSpec, table, toJson,
+  type Command,
 } from '../framework.js';
 import { readJsonFile } from '../files.js';
 
@@ -45,7 +46,7 @@ export const reviewCommand: Command = {
     json: { type: 'boolean', description: 'Same as --format json.' },
     output: { type: 'string', value: '<file>', description: 'Write the report to this file instead of standard output.' },
     runs: { type: 'string', value: '<n>', description: 'Monte Carlo draws over the injection dispersion, 100 … 10000000 (default 20000).' },
-    seed: { type: 'string', value: '<n>', description: 'Seed of the Monte Carlo, 0 … 4294967295 (default 1), for reproducible reports.' },
+    seed: seedFlagSpec('the Monte Carlo', ', for reproducible reports'),
   },
   details: `
 Expected factory offset: 1/(1 + r) − 1 with r = L_G − 3GM/(2ac²) against TT (or −3GM/(2ac²) against TCG),
@@ -55,8 +56,7 @@ other-orbit, copied-from-spacecraft, gravitational-term-only, velocity-term-only
 The input format is described by packages/sdk/schema/review.schema.json.
 Exit status: 0 all pass, 1 some fail or marginal, 2 the input could not be read.`,
   async run(args, io) {
-    if (args.positionals.length !== 1) throw new UsageError('give exactly one review file (see `tauline review --help`)');
-    const path = args.positionals[0]!;
+    const path = onePositional(args, 'review file');
     const format = formatFlag(args, FORMATS, 'table');
     const runs = integerFlag(args, 'runs', 100, 10_000_000, 'Monte Carlo draws');
     const seed = seedFlag(args);

@@ -4,33 +4,16 @@
  */
 import { planSteering, simulatePlan, type SteeringMethod, type SteeringScenario } from '@tauline/sdk/steering';
 import {
-  EXIT_OK, TABLE_OR_JSON, UsageError, formatFlag, formatFlagSpec, integerFlag, optionalFlag, requireFlag, seedFlag, table, toJson,
-  type Command, type Io,
+  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, integerFlag, onePositional, optionalFlag, progressBar, requireFlag, seedFlag, seedFlagSpec,
+  table, toJson, type Command,
 } from '../framework.js';
-import { LEAP_SECONDS_HELP, leapSecondsFlag, nsText, readScenarioFile, strategyFlag } from './plan.js';
+import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag, nsText, readScenarioFile, strategyFlag } from './plan.js';
 
 /** Simulated (run × grid-epoch) steps above which a progress bar is shown on a terminal. */
 export const PROGRESS_THRESHOLD = 200_000;
 
 /** The caution printed under the table and carried in the JSON. */
 export const SIMULATION_CAUTION = 'Caution: plans are open-loop from the epoch estimate; verify any schedule against the mission\'s own interface specification and have it confirmed by its responsible engineering authority before uplink.';
-
-/** A one-line progress bar on stderr, redrawn in place; only for terminals. */
-function progressBar(io: Io, label: string): { update: (done: number, total: number) => void; finish: () => void } {
-  let last = -1;
-  return {
-    update(done, total) {
-      const pct = Math.floor((100 * done) / total);
-      if (pct === last) return;
-      last = pct;
-      const filled = Math.round(pct / 4);
-      io.err(`\r${label} [${'#'.repeat(filled)}${'.'.repeat(25 - filled)}] ${String(pct).padStart(3)} %`);
-    },
-    finish() {
-      io.err(`\r${' '.repeat(label.length + 35)}\r`);
-    },
-  };
-}
 
 export const simulateCommand: Command = {
   name: 'simulate',
@@ -39,11 +22,10 @@ export const simulateCommand: Command = {
   allowPositionals: true,
   flags: {
     runs: { type: 'string', value: '<n>', description: 'Number of simulated clocks per strategy (1 … 1000000).' },
-    seed: { type: 'string', value: '<n>', description: 'Seed of the random generator, 0 … 4294967295 (default 1); same seed, same numbers.' },
+    seed: seedFlagSpec('the random generator', '; same seed, same numbers'),
     strategy: { type: 'string', value: '<name>', description: 'deadband, optimal, none, or all (default all).' },
-    'leap-seconds': { type: 'string', value: '<file>', description: 'IERS/NIST leap-seconds.list to read UTC stamps with (default: the bundled table, valid until 2027-06-28).' },
-    json: { type: 'boolean', description: 'Print the results as JSON (same as --format json).' },
-    format: formatFlagSpec(TABLE_OR_JSON),
+    'leap-seconds': LEAP_SECONDS_FLAG,
+    ...formatFlags(TABLE_OR_JSON, { json: 'Print the results as JSON (same as --format json).' }),
   },
   details: `
 Each run draws the epoch state from the scenario's mean and covariance and adds the exact discrete
@@ -56,14 +38,14 @@ wholeHorizonProbability, minEpochProbability, worstExcursionSeconds (s), worstEx
 ${LEAP_SECONDS_HELP}
 Exit status: 0 success, 2 unusable input.`,
   async run(args, io) {
-    if (args.positionals.length !== 1) throw new UsageError('give exactly one scenario file (see `tauline simulate --help`)');
+    const path = onePositional(args, 'scenario file');
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
     requireFlag(args, 'runs');
     const runs = integerFlag(args, 'runs', 1, 1_000_000, 'simulated clocks per strategy')!;
     const seed = seedFlag(args) ?? 1;
     const choice = strategyFlag(optionalFlag(args, 'strategy'), true) ?? 'all';
     const timeScales = await leapSecondsFlag(args);
-    const scenario = await readScenarioFile(args.positionals[0]!);
+    const scenario = await readScenarioFile(path);
     const methods: SteeringMethod[] = choice === 'all' ? ['none', 'deadband', 'optimal'] : [choice];
     const results = [];
     for (const method of methods) {
