@@ -177,6 +177,22 @@ describe('commands: nonsense that used to pass', () => {
     await expectOneLine(['stability', '--phase', NBS14, '--tau0', '-1'], /^tauline stability: invalid input: --tau0 must be/);
   });
 
+  it('tauline clock: a directory (phase or RINEX clock) and a record too short for the noise estimate exit 2 naming the file or flag', async () => {
+    const short = join(tmp, 'clock-short.txt');
+    writeFileSync(short, '1e-9\n2e-9\n3e-9\n');
+    await expectOneLine(['clock', '--phase', dir, '--tau0', '1'], /"[^"]*a-directory" is a directory; expected a phase record/);
+    await expectOneLine(['clock', '--rinex-clock', dir, '--clock', 'G05'], /"[^"]*a-directory" is a directory; expected a RINEX clock file/);
+    await expectOneLine(['clock', '--phase', short, '--tau0', '1'], /^tauline clock: invalid input: --phase must be at least 8 \(about 12 consecutive samples\)/);
+  });
+
+  it('tauline stability and clock: a RINEX clock with a single epoch asks for a longer file (--tau0 cannot help)', async () => {
+    const one = join(tmp, 'one-epoch.clk');
+    writeFileSync(one, readFileSync(join(ROOT, 'test/fixtures/rinex-clock/fictional-304.clk'), 'utf8').split('\n').slice(0, 7).join('\n') + '\n');
+    for (const cmd of ['stability', 'clock']) {
+      await expectOneLine([cmd, '--rinex-clock', one, '--clock', 'G05'], new RegExp(`^tauline ${cmd}: clock G05 has a single epoch; give a longer file\n$`));
+    }
+  });
+
   it('tauline broadcast exits 1 when no sample has a record (still printing the table), and puts the caution on stderr with --csv', async () => {
     const none = await run('broadcast', NAV, ...WINDOW, '--satellite', 'G99', '--json');
     expect(none.status).toBe(1);

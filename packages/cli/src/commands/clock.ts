@@ -3,38 +3,16 @@
  * uncertainties under the clock's own noise, diffusion coefficients q1/q2/q3 fitted to the stability of
  * the residuals, and a Kalman pass with outliers, phase/frequency jumps and NIS consistency.
  */
-import { createReadStream } from 'node:fs';
 import {
   diffusionFromStabilityRows, fitClockPolynomial, measurementNoiseFromPhase, polynomialNoiseCovariance, runClockFilter,
   type ClockFilterRun, type ClockStates, type DetectedJump, type StabilityRowsFit,
 } from '@tauline/sdk/clock-model';
-import { readPhaseText, readRinexClock, rinexClockSeries, type SampleGap } from '@tauline/sdk/io';
 import { analyzeStability } from '@tauline/sdk/stability';
 import {
-  EXIT_OK, FLIGHT_CAUTION, keyValueTable, optionalFlag, parseNumber, sig, table, toJson, UsageError, type Command, type ParsedArgs,
+  EXIT_OK, FLIGHT_CAUTION, keyValueTable, numberFlag, optionalFlag, parseNumber, sig, table, toJson, UsageError, withFlagNames,
+  type Command, type ParsedArgs,
 } from '../framework.js';
-
-interface Record_ { phase: Float64Array; t: Float64Array; tau0: number; source: string; gaps: readonly SampleGap[]; clock?: string; timeSystem?: string }
-
-async function loadRecord(args: ParsedArgs, tau0Flag: number | undefined): Promise<Record_> {
-  const phaseFile = optionalFlag(args, 'phase');
-  const rinexFile = optionalFlag(args, 'rinex-clock');
-  if ((phaseFile === undefined) === (rinexFile === undefined)) throw new UsageError('give exactly one input: --phase <file> or --rinex-clock <file> --clock <name>');
-  if (rinexFile !== undefined) {
-    const clock = optionalFlag(args, 'clock');
-    if (clock === undefined) throw new UsageError('--rinex-clock needs --clock <name> (satellite such as G05, or station name)');
-    const file = await readRinexClock(createReadStream(rinexFile, { encoding: 'utf8' }), rinexFile);
-    const s = rinexClockSeries(file, clock, tau0Flag === undefined ? {} : { tau0: tau0Flag });
-    if (s.tau0 === undefined) throw new UsageError(`clock ${clock} has a single epoch; give a longer file`);
-    return { phase: s.phase, t: s.times, tau0: s.tau0, source: rinexFile, gaps: s.gaps, clock, ...(s.timeSystem ? { timeSystem: s.timeSystem } : {}) };
-  }
-  const file = phaseFile as string;
-  const s = await readPhaseText(createReadStream(file, { encoding: 'utf8' }), { sourceName: file, ...(tau0Flag === undefined ? {} : { tau0: tau0Flag }) });
-  if (s.tau0 === undefined) throw new UsageError(`${file} has one column; give the sample spacing with --tau0 <s>`);
-  const tau0 = s.tau0;
-  const t = s.times ?? Float64Array.from(s.phase, (_, k) => k * tau0);
-  return { phase: s.phase, t, tau0, source: file, gaps: s.gaps };
-}
+import { readClockRecord, recordFlags } from '../records.js';
 
 function choice<T extends number>(args: ParsedArgs, flag: string, allowed: readonly T[], fallback: T): T {
   const text = optionalFlag(args, flag);
@@ -83,9 +61,7 @@ export const clockCommand: Command = {
   summary: 'Characterise a clock from its phase record: af0/af1/af2 with uncertainty, noise q1/q2/q3 from the stability of the residuals, Kalman outliers and jumps.',
   usage: '(--phase <file> | --rinex-clock <file> --clock <name>) [--tau0 <s>] [--degree 1|2] [--reference-time <s>] [--predict <s,...>] [--states 2|3] [--measurement-sigma <s>] [--scenario-noise] [--json]',
   flags: {
-    phase: { type: 'string', value: '<file>', description: 'Phase (time error) record: one value in seconds per line, or two columns time (s), phase (s); # comments.' },
-    'rinex-clock': { type: 'string', value: '<file>', description: 'RINEX clock file (2.00–3.04); the clock bias of --clock is used as phase.' },
-    clock: { type: 'string', value: '<name>', description: 'Satellite (e.g. G05) or station name in the RINEX clock file.' },
+    ...recordFlags(['phase']),
     tau0: { type: 'string', value: '<s>', description: 'Sample spacing τ0 in seconds (required for one-column files).' },
     degree: { type: 'string', value: '1|2', description: 'Polynomial degree: 1 = af0, af1; 2 = af0, af1, af2 (default 2).' },
     'reference-time': { type: 'string', value: '<s>', description: 'Reference epoch t_oc of af0/af1/af2, in the record\'s seconds (default: first epoch).' },
@@ -111,24 +87,22 @@ level) from a covariance that accounts for the correlation of overlapping estima
 h-coefficients (IEEE Std 1139, one-sided): h0 = 2q1, h₋₂ = q2/(2π²), h₋₄ = q3/(8π⁴).
 Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0 success, 2 unusable input.`,
   async run(args, io) {
-    const num = (flag: string): number | undefined => {
-      const text = optionalFlag(args, flag);
-      return text === undefined ? undefined : parseNumber(`--${flag}`, text);
-    };
-    const tau0Flag = num('tau0');
+    const tau0Flag = numberFlag(args, 'tau0');
     const degree = choice(args, 'degree', [1, 2] as const, 2);
     const states = choice(args, 'states', [2, 3] as const, 2);
-    const sigmaFlag = num('measurement-sigma');
+    const sigmaFlag = numberFlag(args, 'measurement-sigma');
     if (sigmaFlag !== undefined && !(sigmaFlag > 0)) throw new UsageError(`--measurement-sigma must be > 0 s; received ${sigmaFlag}`);
     const predictText = optionalFlag(args, 'predict');
     const predict = predictText === undefined ? [] : predictText.split(',').map((v) => parseNumber('--predict', v));
-    const rec = await loadRecord(args, tau0Flag);
-    const firstValid = rec.phase.findIndex((v) => v === v);
-    const referenceTime = num('reference-time') ?? (rec.t[firstValid] as number);
-    const lastT = rec.t[rec.t.length - 1] as number;
+    const rec = await readClockRecord(args, ['phase'], tau0Flag);
+    const t = rec.times ?? Float64Array.from(rec.values, (_, k) => k * rec.tau0); // a one-column record's epochs are k·τ0
+    const firstValid = rec.values.findIndex((v) => v === v);
+    const referenceTime = numberFlag(args, 'reference-time') ?? (t[firstValid] as number);
+    const lastT = t[t.length - 1] as number;
     for (const p of predict) if (p < lastT) throw new UsageError(`--predict: ${p} s is before the last sample epoch ${lastT} s; predictions are for epochs after the record`);
 
-    const noiseEstimate = sigmaFlag === undefined ? measurementNoiseFromPhase(rec.phase) : undefined;
+    // A record too short for the estimate is the file's fault: name the flag that gave it.
+    const noiseEstimate = sigmaFlag === undefined ? withFlagNames({ phase: rec.flag }, () => measurementNoiseFromPhase(rec.values)) : undefined;
     const rFit = sigmaFlag !== undefined ? sigmaFlag ** 2 : noiseEstimate!.resolved ? noiseEstimate!.variance : 0;
     const rFilter = sigmaFlag !== undefined ? sigmaFlag ** 2
       : noiseEstimate!.resolved ? noiseEstimate!.variance : Math.max(noiseEstimate!.variance, 0) + 2 * noiseEstimate!.standardError;
@@ -136,20 +110,20 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
 
     const rFitStd = sigmaFlag === undefined && noiseEstimate!.resolved ? noiseEstimate!.standardError : 0;
     const opts = { degree, referenceTime, states, rFit, rFitStd, rFilter, predict };
-    let phase = rec.phase;
+    let phase = rec.values;
     const events: { pass: number; jumps: DetectedJump[]; rejected: { index: number; t: number; innovation: number; nis: number }[] }[] = [];
-    let result = characterise(phase, rec.t, rec.tau0, opts);
+    let result = characterise(phase, t, rec.tau0, opts);
     for (let pass = 1; pass <= 3; pass++) {
       const f = result.filter;
       // Samples rejected between a jump's epoch and its declaration belong to the jump (the correction fixes them).
       const absorbed = (k: number): boolean => f.jumps.some((j) => k >= j.updateIndex && k <= j.declaredAtUpdate);
       const outliers = f.rejected.filter((k) => !absorbed(k));
-      const rejected = outliers.map((k) => ({ index: k, t: rec.t[k] as number, innovation: f.innovation[k] as number, nis: f.nis[k] as number }));
+      const rejected = outliers.map((k) => ({ index: k, t: t[k] as number, innovation: f.innovation[k] as number, nis: f.nis[k] as number }));
       events.push({ pass, jumps: [...f.jumps], rejected });
       if (f.jumps.length === 0 && outliers.length === 0) break;
       if (pass === 3) break;
-      phase = correct(phase, rec.t, f.jumps, outliers);
-      result = characterise(phase, rec.t, rec.tau0, opts);
+      phase = correct(phase, t, f.jumps, outliers);
+      result = characterise(phase, t, rec.tau0, opts);
     }
     const { poly, noise, polyNoise, filter } = result;
     const names = degree === 2 ? ['af0', 'af1', 'af2'] : ['af0', 'af1'];
@@ -166,7 +140,7 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
 
     if (args.values['json']) {
       io.out(toJson({
-        input: { file: rec.source, ...(rec.clock ? { clock: rec.clock } : {}), ...(rec.timeSystem ? { timeSystem: rec.timeSystem } : {}), samples: rec.phase.length, tau0: rec.tau0, gaps: rec.gaps, firstEpoch: rec.t[0], lastEpoch: lastT },
+        input: { file: rec.source, ...(rec.clock ? { clock: rec.clock } : {}), ...(rec.timeSystem ? { timeSystem: rec.timeSystem } : {}), samples: rec.values.length, tau0: rec.tau0, gaps: rec.gaps, firstEpoch: t[0], lastEpoch: lastT },
         measurementNoise: { sigma: Math.sqrt(rFilter), source: measurementSource, ...(noiseEstimate ? { estimateVariance: noiseEstimate.variance, estimateStandardError: noiseEstimate.standardError } : {}), varianceInNoiseFit: rFit },
         polynomial: {
           degree, referenceTime, coefficients, residualRms, reducedChiSquare, dof: poly.dof, samplesUsed: result.used, predictions,
@@ -186,8 +160,8 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
       return EXIT_OK;
     }
 
-    io.out(`clock record ${rec.source}${rec.clock ? ` (clock ${rec.clock}${rec.timeSystem ? `, ${rec.timeSystem} time` : ''})` : ''}: ${rec.phase.length} samples, τ0 = ${sig(rec.tau0)} s, ` +
-      `epochs ${sig(rec.t[0] as number, 12)} … ${sig(lastT, 12)} s, ${rec.gaps.reduce((a, g) => a + g.missing, 0)} missing\n`);
+    io.out(`clock record ${rec.source}${rec.clock ? ` (clock ${rec.clock}${rec.timeSystem ? `, ${rec.timeSystem} time` : ''})` : ''}: ${rec.values.length} samples, τ0 = ${sig(rec.tau0)} s, ` +
+      `epochs ${sig(t[0] as number, 12)} … ${sig(lastT, 12)} s, ${rec.gaps.reduce((a, g) => a + g.missing, 0)} missing\n`);
     io.out(`measurement noise σ_v = ${fmt(Math.sqrt(rFilter), 3)} s (${measurementSource}${noiseEstimate ? `; lag-2 estimate ${fmt(noiseEstimate.variance, 3)} ± ${fmt(noiseEstimate.standardError, 2)} s²` : ''})\n\n`);
 
     io.out(`Polynomial model x(t) = af0 + af1·(t − t_oc)${degree === 2 ? ' + af2·(t − t_oc)²' : ''}, t_oc = ${sig(referenceTime, 12)} s, degree ${degree}, ${result.used} samples\n`);

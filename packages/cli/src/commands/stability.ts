@@ -2,38 +2,28 @@
  * `tauline stability`: Allan-family frequency-stability statistics of a phase or frequency record
  * with chi-square confidence intervals and per-τ noise identification (NIST SP 1065).
  */
-import { createReadStream } from 'node:fs';
-import { readPhaseText, readRinexClock, rinexClockSeries, type SampleGap } from '@tauline/sdk/io';
 import {
   analyzeStability, DEFAULT_STATISTICS, STATISTIC_NAMES, type NoiseType, type StabilityData, type StatisticName,
 } from '@tauline/sdk/stability';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import {
-  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlagSpec, optionalFlag, parseNumber, sig, table, toJson, UsageError, type Command,
-  type ParsedArgs,
+  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, numberFlag, optionalFlag, parseNumber, sig, table, toJson, UsageError, withFlagNames,
+  type Command, type ParsedArgs,
 } from '../framework.js';
-import { requireRegularFile } from '../files.js';
+import { readClockRecord, recordFlags } from '../records.js';
 
 /** Fewest phase points any statistic here can use (one second difference needs 3; the edf models need 4). */
 export const MIN_PHASE_POINTS = 4;
 
 /**
- * Runs the analysis, renaming the SDK's argument paths to the flags they came from
- * (`data.tau0` → `--tau0`, `taus[2]` → `--taus`, `options.confidence` → `--confidence`).
+ * The flag an argument path of `analyzeStability` came from (`data.tau0` → `--tau0`, `taus[2]` →
+ * `--taus`, `options.confidence` → `--confidence`, …), for {@link withFlagNames}.
  */
-function withStabilityFlagNames<T>(body: () => T): T {
-  try {
-    return body();
-  } catch (error) {
-    if (error instanceof InvalidArgumentError) {
-      const arg = error.argument;
-      const flag = /^(data\.)?tau0$/.test(arg) ? '--tau0' : /^(options\.)?taus(\[\d+\])?$/.test(arg) ? '--taus'
-        : /^(options\.)?confidence$/.test(arg) ? '--confidence' : /^(options\.)?noise$/.test(arg) ? '--noise'
-          : /^(options\.)?statistics$/.test(arg) ? '--statistics' : undefined;
-      if (flag) throw new InvalidArgumentError(flag, error.received, error.expected, error.hint);
-    }
-    throw error;
-  }
+function stabilityFlagOf(argument: string): string | undefined {
+  if (/^(data\.)?tau0$/.test(argument)) return '--tau0';
+  if (/^(options\.)?taus(\[\d+\])?$/.test(argument)) return '--taus';
+  const option = /^(?:options\.)?(confidence|noise|statistics)$/.exec(argument);
+  return option ? `--${option[1]}` : undefined;
 }
 
 const NOISES: readonly NoiseType[] = ['WPM', 'FPM', 'WFM', 'FFM', 'RWFM'];
@@ -46,40 +36,6 @@ function listFlag(args: ParsedArgs, flag: string): string[] | undefined {
   return items;
 }
 
-interface LoadedInput {
-  data: StabilityData;
-  source: string;
-  kind: 'phase' | 'frequency';
-  gaps: readonly SampleGap[];
-  clock?: string;
-  timeSystem?: string;
-}
-
-async function loadInput(args: ParsedArgs, tau0Flag: number | undefined): Promise<LoadedInput> {
-  const phaseFile = optionalFlag(args, 'phase');
-  const frequencyFile = optionalFlag(args, 'frequency');
-  const rinexFile = optionalFlag(args, 'rinex-clock');
-  const given = [phaseFile, frequencyFile, rinexFile].filter((f) => f !== undefined);
-  if (given.length !== 1) throw new UsageError('give exactly one input: --phase <file>, --frequency <file> or --rinex-clock <file> --clock <name>');
-  if (rinexFile !== undefined) {
-    const clock = optionalFlag(args, 'clock');
-    if (clock === undefined) throw new UsageError('--rinex-clock needs --clock <name> (satellite such as G05, or station name)');
-    await requireRegularFile(rinexFile, 'a RINEX clock file');
-    const file = await readRinexClock(createReadStream(rinexFile, { encoding: 'utf8' }), rinexFile);
-    const series = rinexClockSeries(file, clock, tau0Flag === undefined ? {} : { tau0: tau0Flag });
-    if (series.tau0 === undefined) throw new UsageError(`clock ${clock} has a single epoch; give --tau0 <s> or a longer file`);
-    return { data: { phase: series.phase, tau0: series.tau0 }, source: rinexFile, kind: 'phase', gaps: series.gaps, clock, ...(series.timeSystem ? { timeSystem: series.timeSystem } : {}) };
-  }
-  const file = (phaseFile ?? frequencyFile)!;
-  const kind = phaseFile !== undefined ? 'phase' : 'frequency';
-  await requireRegularFile(file, `a ${kind} record (text, one or two columns)`);
-  const series = await readPhaseText(createReadStream(file, { encoding: 'utf8' }), { sourceName: file, ...(tau0Flag === undefined ? {} : { tau0: tau0Flag }) });
-  const tau0 = series.tau0;
-  if (tau0 === undefined) throw new UsageError(`${file} has one column; give the sample spacing with --tau0 <s>`);
-  const data: StabilityData = kind === 'phase' ? { phase: series.phase, tau0 } : { frequency: series.phase, tau0 };
-  return { data, source: file, kind, gaps: series.gaps };
-}
-
 function formatDeviation(stat: StatisticName, v: number): string {
   return stat === 'tdev' ? `${sig(v, 4)} s` : v.toExponential(3);
 }
@@ -89,17 +45,13 @@ export const stabilityCommand: Command = {
   summary: 'Allan, modified Allan, time, Hadamard and total deviations with confidence intervals and noise type per τ.',
   usage: '(--phase <file> | --frequency <file> | --rinex-clock <file> --clock <name>) [--tau0 <s>] [--statistics oadev,mdev,...] [--taus <s,...>] [--noise <type>] [--confidence <p>] [--json | --format table|json]',
   flags: {
-    phase: { type: 'string', value: '<file>', description: 'Phase (time error) record: one value in seconds per line, or two columns time (s), phase (s); # comments.' },
-    frequency: { type: 'string', value: '<file>', description: 'Fractional-frequency record (dimensionless), same layout as --phase.' },
-    'rinex-clock': { type: 'string', value: '<file>', description: 'RINEX clock file (2.00–3.04); the clock bias of --clock is used as phase.' },
-    clock: { type: 'string', value: '<name>', description: 'Satellite (e.g. G05) or station name in the RINEX clock file.' },
+    ...recordFlags(['phase', 'frequency']),
     tau0: { type: 'string', value: '<s>', description: 'Sample spacing τ0 in seconds (required for one-column files; otherwise the smallest time step).' },
     statistics: { type: 'string', value: '<list>', description: `Comma list of ${STATISTIC_NAMES.join(', ')} (default ${DEFAULT_STATISTICS.join(',')}).` },
     taus: { type: 'string', value: '<s,...>', description: 'Averaging times in seconds, each a whole multiple of τ0 (default octaves τ0·2^k).' },
     noise: { type: 'string', value: '<type>', description: 'State the noise type for the intervals (WPM, FPM, WFM, FFM, RWFM) instead of identifying it per τ.' },
     confidence: { type: 'string', value: '<p>', description: 'Two-sided confidence level of the intervals, in (0, 1) (default 0.6827 = ±1σ).' },
-    json: { type: 'boolean', description: 'Print one JSON object instead of a table (same as --format json).' },
-    format: formatFlagSpec(TABLE_OR_JSON),
+    ...formatFlags(TABLE_OR_JSON),
   },
   details: `
 Statistics (NIST SP 1065, W. J. Riley 2008, §5.2), τ = m·τ0, x phase in s:
@@ -122,8 +74,7 @@ term (e.g. --taus longer than half the record) is refused.
 Exit status: 0 success, 2 unusable input.`,
   async run(args, io) {
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
-    const tau0Text = optionalFlag(args, 'tau0');
-    const tau0 = tau0Text === undefined ? undefined : parseNumber('--tau0', tau0Text);
+    const tau0 = numberFlag(args, 'tau0');
     const statistics = (listFlag(args, 'statistics') ?? [...DEFAULT_STATISTICS]).map((s) => s.toLowerCase());
     for (const s of statistics) {
       if (!STATISTIC_NAMES.includes(s as StatisticName)) throw new UsageError(`--statistics: unknown statistic ${JSON.stringify(s)}; choose from ${STATISTIC_NAMES.join(', ')}`);
@@ -132,21 +83,19 @@ Exit status: 0 success, 2 unusable input.`,
     const noiseText = optionalFlag(args, 'noise');
     const noise = noiseText?.toUpperCase() as NoiseType | undefined;
     if (noise !== undefined && !NOISES.includes(noise)) throw new UsageError(`--noise must be one of ${NOISES.join(', ')}; received ${JSON.stringify(noiseText)}`);
-    const confidenceText = optionalFlag(args, 'confidence');
-    const confidence = confidenceText === undefined ? undefined : parseNumber('--confidence', confidenceText);
+    const confidence = numberFlag(args, 'confidence');
     if (confidence !== undefined && !(confidence > 0 && confidence < 1)) {
       throw new InvalidArgumentError('--confidence', confidence, 'in (0, 1), e.g. 0.6827 or 0.95', confidence >= 1 && confidence < 100 ? 'a fraction, not a percentage' : undefined);
     }
 
-    const input = await loadInput(args, tau0);
-    const values = 'phase' in input.data ? input.data.phase : input.data.frequency;
-    const phasePoints = values.length + (input.kind === 'frequency' ? 1 : 0);
+    const input = await readClockRecord(args, ['phase', 'frequency'], tau0);
+    const phasePoints = input.values.length + (input.kind === 'frequency' ? 1 : 0);
     if (phasePoints < MIN_PHASE_POINTS) {
-      const flag = input.clock !== undefined ? '--rinex-clock' : `--${input.kind}`;
-      throw new InvalidArgumentError(flag, input.source,
-        `a record of at least ${MIN_PHASE_POINTS} phase points (${MIN_PHASE_POINTS - 1} frequency values)`, `it has ${values.length} sample(s)`);
+      throw new InvalidArgumentError(input.flag, input.source,
+        `a record of at least ${MIN_PHASE_POINTS} phase points (${MIN_PHASE_POINTS - 1} frequency values)`, `it has ${input.values.length} sample(s)`);
     }
-    const analysis = withStabilityFlagNames(() => analyzeStability(input.data, {
+    const data: StabilityData = input.kind === 'phase' ? { phase: input.values, tau0: input.tau0 } : { frequency: input.values, tau0: input.tau0 };
+    const analysis = withFlagNames(stabilityFlagOf, () => analyzeStability(data, {
       statistics: statistics as StatisticName[],
       ...(taus ? { taus } : {}),
       ...(noise ? { noise } : {}),
@@ -156,7 +105,7 @@ Exit status: 0 success, 2 unusable input.`,
     if (analysis.rows.length === 0) {
       const n = analysis.input.phasePoints;
       const longest = Math.floor((n - 1) / 2) * analysis.input.tau0;
-      throw new InvalidArgumentError(taus ? '--taus' : input.clock !== undefined ? '--rinex-clock' : `--${input.kind}`,
+      throw new InvalidArgumentError(taus ? '--taus' : input.flag,
         taus ? taus.join(',') : input.source, 'a request in which at least one τ has a complete (gap-free) term',
         `the record has ${n} phase points, ${analysis.input.missing} missing in ${input.gaps.length} gap(s); ` +
         `without gaps oadev reaches τ = ⌊(N − 1)/2⌋·τ0 = ${sig(longest)} s; dropped τ: ${analysis.droppedTaus.map((t) => sig(t)).join(', ')} s`);

@@ -1,0 +1,86 @@
+/**
+ * The clock record read by `tauline stability` and `tauline clock`: a phase (or fractional-frequency)
+ * text file, or one clock of a RINEX clock file, named by `--phase`, `--frequency` or
+ * `--rinex-clock <file> --clock <name>`. One place for the flags, their help and their errors.
+ */
+import { createReadStream } from 'node:fs';
+import { readPhaseText, readRinexClock, rinexClockSeries, type SampleGap } from '@tauline/sdk/io';
+import { UsageError, optionalFlag, type FlagSpec, type ParsedArgs } from './framework.js';
+import { requireRegularFile } from './files.js';
+
+/** What a text record holds: phase (time error, s) or fractional frequency (dimensionless). */
+export type RecordKind = 'phase' | 'frequency';
+
+const TEXT_FLAGS: Record<RecordKind, FlagSpec> = {
+  phase: { type: 'string', value: '<file>', description: 'Phase (time error) record: one value in seconds per line, or two columns time (s), phase (s); # comments.' },
+  frequency: { type: 'string', value: '<file>', description: 'Fractional-frequency record (dimensionless), same layout as --phase.' },
+};
+
+/**
+ * The input flags of a command reading a clock record: one per text kind in `kinds` (in that
+ * order), then `--rinex-clock` and `--clock`.
+ */
+export function recordFlags(kinds: readonly RecordKind[]): Record<string, FlagSpec> {
+  const flags: Record<string, FlagSpec> = {};
+  for (const kind of kinds) flags[kind] = TEXT_FLAGS[kind];
+  flags['rinex-clock'] = { type: 'string', value: '<file>', description: 'RINEX clock file (2.00–3.04); the clock bias of --clock is used as phase.' };
+  flags['clock'] = { type: 'string', value: '<name>', description: 'Satellite (e.g. G05) or station name in the RINEX clock file.' };
+  return flags;
+}
+
+/** A clock record as read from its file. */
+export interface ClockRecord {
+  /** What `values` are; a RINEX clock bias is phase. */
+  kind: RecordKind;
+  /** The samples (phase in s, or fractional frequency), uniformly spaced by `tau0`; NaN where one is missing. */
+  values: Float64Array;
+  /** Epoch of each sample, in the file's seconds; undefined for a one-column text file. */
+  times: Float64Array | undefined;
+  /** Sample spacing, in seconds. */
+  tau0: number;
+  /** The file as the user named it. */
+  source: string;
+  /** The flag that named the file (`--phase`, `--frequency` or `--rinex-clock`), for messages. */
+  flag: string;
+  gaps: readonly SampleGap[];
+  /** The clock's name in a RINEX clock file. */
+  clock?: string;
+  /** The RINEX file's time system, when it states one. */
+  timeSystem?: string;
+}
+
+/**
+ * Reads the record named by exactly one of the input flags of {@link recordFlags}.
+ * @param kinds  The text kinds the command accepts.
+ * @param tau0   `--tau0`, in seconds: imposes the sample spacing (required for one-column files).
+ * @throws {UsageError} for no input or several, `--rinex-clock` without `--clock`, a directory, a
+ *   one-column file without `--tau0`, or a RINEX clock with a single epoch.
+ * @throws {ParseError} from the SDK readers, with file and line.
+ */
+export async function readClockRecord(args: ParsedArgs, kinds: readonly RecordKind[], tau0: number | undefined): Promise<ClockRecord> {
+  const texts = kinds.map((kind) => ({ kind, file: optionalFlag(args, kind) }));
+  const rinexFile = optionalFlag(args, 'rinex-clock');
+  const inputs = [...kinds.map((kind) => `--${kind} <file>`), '--rinex-clock <file> --clock <name>'];
+  if ([...texts.map((t) => t.file), rinexFile].filter((f) => f !== undefined).length !== 1) {
+    throw new UsageError(`give exactly one input: ${inputs.slice(0, -1).join(', ')} or ${inputs[inputs.length - 1]}`);
+  }
+  const tau0Option = tau0 === undefined ? {} : { tau0 };
+  if (rinexFile !== undefined) {
+    const clock = optionalFlag(args, 'clock');
+    if (clock === undefined) throw new UsageError('--rinex-clock needs --clock <name> (satellite such as G05, or station name)');
+    await requireRegularFile(rinexFile, 'a RINEX clock file');
+    const file = await readRinexClock(createReadStream(rinexFile, { encoding: 'utf8' }), rinexFile);
+    const s = rinexClockSeries(file, clock, tau0Option);
+    // With one epoch and --tau0 the record is still a single sample: a longer file is the only fix.
+    if (s.tau0 === undefined) throw new UsageError(`clock ${clock} has a single epoch; give a longer file`);
+    return {
+      kind: 'phase', values: s.phase, times: s.times, tau0: s.tau0, source: rinexFile, flag: '--rinex-clock', gaps: s.gaps, clock,
+      ...(s.timeSystem ? { timeSystem: s.timeSystem } : {}),
+    };
+  }
+  const { kind, file } = texts.find((t) => t.file !== undefined)! as { kind: RecordKind; file: string };
+  await requireRegularFile(file, `a ${kind} record (text, one or two columns)`);
+  const s = await readPhaseText(createReadStream(file, { encoding: 'utf8' }), { sourceName: file, ...tau0Option });
+  if (s.tau0 === undefined) throw new UsageError(`${file} has one column; give the sample spacing with --tau0 <s>`);
+  return { kind, values: s.phase, times: s.times, tau0: s.tau0, source: file, flag: `--${kind}`, gaps: s.gaps };
+}
