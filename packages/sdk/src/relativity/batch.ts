@@ -11,6 +11,10 @@ import { InvalidArgumentError } from '../errors.js';
 import { requireEccentricity, requireInRange, requireOrbitRadius } from '../internal/validate.js';
 import { inclinationAndArgumentOfLatitude } from './j2.js';
 
+/** Smallest accepted orbit radius, in metres: the WGS 84 equatorial radius (a position inside the Earth is refused). */
+const MIN_RADIUS = 6_378_137;
+const MIN_RADIUS_SQUARED = MIN_RADIUS * MIN_RADIUS;
+
 function requireArray(argument: string, value: unknown, multiple = 1): Float64Array {
   if (!(value instanceof Float64Array)) throw new InvalidArgumentError(argument, value, 'a Float64Array');
   if (value.length % multiple !== 0) throw new InvalidArgumentError(`${argument}.length`, value.length, `a multiple of ${multiple}`);
@@ -60,9 +64,10 @@ export function periodicCorrectionFromStatesBatch(states: Float64Array, out?: Fl
   const res = output(out, n);
   for (let k = 0; k < n; k++) {
     const o = 6 * k;
-    const r = Math.hypot(s[o]!, s[o + 1]!, s[o + 2]!);
-    if (!(r > 6_378_137)) requireOrbitRadius(`|states[${k}].position|`, r);
-    res[k] = (-2 * (s[o]! * s[o + 3]! + s[o + 1]! * s[o + 4]! + s[o + 2]! * s[o + 5]!)) / SPEED_OF_LIGHT_SQUARED;
+    const x = s[o]!, y = s[o + 1]!, z = s[o + 2]!;
+    // Squared radius against R² (Math.hypot costs ~35 ns a call); the exact |r| only for the error message.
+    if (!(x * x + y * y + z * z > MIN_RADIUS_SQUARED)) requireOrbitRadius(`|states[${k}].position|`, Math.hypot(x, y, z));
+    res[k] = (-2 * (x * s[o + 3]! + y * s[o + 4]! + z * s[o + 5]!)) / SPEED_OF_LIGHT_SQUARED;
   }
   return res;
 }
@@ -112,8 +117,10 @@ export function j2PeriodicTermFromStatesBatch(states: Float64Array, kind: J2Term
   for (let k = 0; k < n; k++) {
     const o = 6 * k;
     const x = s[o]!, y = s[o + 1]!, z = s[o + 2]!, vx = s[o + 3]!, vy = s[o + 4]!, vz = s[o + 5]!;
-    const r = Math.hypot(x, y, z);
-    if (!(r > 6_378_137)) requireOrbitRadius(`|states[${k}].position|`, r);
+    const r2 = x * x + y * y + z * z;
+    // √(x² + y² + z²) unless the squares overflow (then Math.hypot, which is ~35 ns a call).
+    const r = r2 < Infinity ? Math.sqrt(r2) : Math.hypot(x, y, z);
+    if (!(r > MIN_RADIUS)) requireOrbitRadius(`|states[${k}].position|`, r);
     const inv = 2 / r - (vx * vx + vy * vy + vz * vz) / gm;
     if (!(inv > 0)) throw new InvalidArgumentError(`states[${k}].velocity`, [vx, vy, vz], 'below escape speed (a bound orbit)');
     const a = 1 / inv;
