@@ -4,18 +4,11 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { main } from '../src/main.js';
+import { runCli as run } from './run.js';
 
 const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
 const NAV3 = join(ROOT, 'test/fixtures/rinex-nav/mixed-v305.rnx');
 const NAV4 = join(ROOT, 'test/fixtures/rinex-nav/mixed-v401.rnx');
-
-async function run(argv: string[], isTty = false): Promise<{ status: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const status = await main(argv, { out: (t) => { out += t; }, err: (t) => { err += t; }, isTty });
-  return { status, out, err };
-}
 
 describe('tauline broadcast', () => {
   it('tauline broadcast <v3.05> --json gives one sample per step from --from to --to inclusive, with the chosen record', async () => {

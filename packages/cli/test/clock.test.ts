@@ -4,18 +4,11 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { main } from '../src/main.js';
+import { runCli as run } from './run.js';
 
 const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
 const EXAMPLE = join(ROOT, 'packages/sdk/examples/clock/vestra-4-rafs.txt');
 const BIN = join(ROOT, 'packages/cli/bin/tauline.js');
-
-async function run(argv: string[]): Promise<{ status: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const status = await main(argv, { out: (t) => { out += t; }, err: (t) => { err += t; }, isTty: false });
-  return { status, out, err };
-}
 
 /** True values of the generated example (packages/sdk/examples/clock/SOURCE.md). */
 const TRUTH = { af0: 1.5e-7, af1: 3.2e-11, af2: 5e-19, q1: 1e-23, q2: 1e-31, jumpEpoch: 750000, jumpSize: 2e-9 };

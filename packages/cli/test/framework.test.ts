@@ -1,16 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { main } from '../src/main.js';
-import type { Io } from '../src/framework.js';
+import { runCli, type CliRun } from './run.js';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import {
   JSON_INSTEAD_OF_TABLE, formatFlags, onePositional, parseNumber, progressBar, seedFlagSpec, table, withFlagNames, type ParsedArgs,
 } from '../src/framework.js';
 
-async function run(...argv: string[]): Promise<{ status: number; out: string; err: string }> {
-  let out = '', err = '';
-  const io: Io = { out: (t) => { out += t; }, err: (t) => { err += t; }, isTty: false };
-  return { status: await main(argv, io), out, err };
-}
+const run = (...argv: string[]): Promise<CliRun> => runCli(argv);
 
 describe('the tauline command framework', () => {
   it('main([]) prints the command list and exits 2; --help exits 0; --version prints it', async () => {

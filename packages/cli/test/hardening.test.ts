@@ -9,8 +9,8 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { ParseError } from '@tauline/sdk/errors';
-import { main } from '../src/main.js';
-import { describeFailure, type Io } from '../src/framework.js';
+import { runCli, type CliRun } from './run.js';
+import { describeFailure } from '../src/framework.js';
 import { jsonErrorOffset, lineColumn, readJsonFile } from '../src/files.js';
 
 const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
@@ -21,11 +21,7 @@ const NAV = join(ROOT, 'test/fixtures/rinex-nav/mixed-v305.rnx');
 const SP3 = join(ROOT, 'test/fixtures/sp3/orbit-d-p.sp3');
 const WINDOW = ['--from', '2024-01-07T00:00:00', '--to', '2024-01-07T02:00:00', '--step', '3600'];
 
-async function run(...argv: string[]): Promise<{ status: number; out: string; err: string }> {
-  let out = '', err = '';
-  const io: Io = { out: (t) => { out += t; }, err: (t) => { err += t; }, isTty: false };
-  return { status: await main(argv, io), out, err };
-}
+const run = (...argv: string[]): Promise<CliRun> => runCli(argv);
 
 /** Asserts exit 2, nothing on stdout, exactly one stderr line without a stack trace, matching `pattern`. */
 async function expectOneLine(argv: string[], pattern: RegExp): Promise<void> {

@@ -4,8 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { main } from '../src/main.js';
-import type { Io } from '../src/framework.js';
+import { runCli, type CliRun } from './run.js';
 
 const ORIN = fileURLToPath(new URL('../../sdk/examples/steering/orin-3-meo.json', import.meta.url));
 const HALCYR = fileURLToPath(new URL('../../sdk/examples/steering/halcyr-g1-geo.json', import.meta.url));
@@ -14,13 +13,7 @@ const BIN = fileURLToPath(new URL('../bin/tauline.js', import.meta.url));
 const LEAP_LIST = fileURLToPath(new URL('../../../test/fixtures/time/leap-seconds-test.list', import.meta.url));
 const BUILT = existsSync(fileURLToPath(new URL('../dist/main.js', import.meta.url)));
 
-async function run(...argv: string[]): Promise<{ status: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: Io = { out: (t) => { out += t; }, err: (t) => { err += t; }, isTty: false };
-  const status = await main(['plan', ...argv], io);
-  return { status, out, err };
-}
+const run = (...argv: string[]): Promise<CliRun> => runCli(['plan', ...argv]);
 
 function tempFile(name: string, text: string): string {
   const dir = mkdtempSync(join(tmpdir(), 'tauline-plan-'));

@@ -4,19 +4,12 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { main } from '../src/main.js';
+import { runCli as run } from './run.js';
 
 const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
 const PV = join(ROOT, 'test/fixtures/sp3/orbit-c-pv.sp3');
 const P = join(ROOT, 'test/fixtures/sp3/orbit-d-p.sp3');
 const NAV3 = join(ROOT, 'test/fixtures/rinex-nav/mixed-v305.rnx');
-
-async function run(argv: string[], isTty = false): Promise<{ status: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const status = await main(argv, { out: (t) => { out += t; }, err: (t) => { err += t; }, isTty });
-  return { status, out, err };
-}
 
 describe('tauline precise', () => {
   it('tauline precise <SP3-c with velocities> --json gives −2 r·v/c² at every file epoch from the file velocities, and the bad-value epoch as a gap', async () => {

@@ -2,16 +2,10 @@ import { execFileSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { main } from '../src/main.js';
-import type { Io } from '../src/framework.js';
+import { runCli, type CliRun } from './run.js';
 import { L_G, IERS_2010, SPEED_OF_LIGHT_SQUARED } from '@tauline/sdk/constants';
 
-async function run(...argv: string[]): Promise<{ status: number; out: string; err: string }> {
-  let out = '', err = '';
-  const io: Io = { out: (t) => { out += t; }, err: (t) => { err += t; }, isTty: false };
-  const status = await main(['propertime', ...argv], io);
-  return { status, out, err };
-}
+const run = (...argv: string[]): Promise<CliRun> => runCli(['propertime', ...argv]);
 
 /** A circular GPS-like orbit, a = 26 561 750 m, i = 55°, at the ascending node. */
 const V = Math.sqrt(IERS_2010.gm / 26_561_750);

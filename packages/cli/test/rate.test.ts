@@ -1,13 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { main } from '../src/main.js';
-import type { Io } from '../src/framework.js';
+import { runCli, type CliRun } from './run.js';
 
-async function run(...argv: string[]): Promise<{ status: number; out: string; err: string }> {
-  let out = '', err = '';
-  const io: Io = { out: (t) => { out += t; }, err: (t) => { err += t; }, isTty: false };
-  const status = await main(['rate', ...argv], io);
-  return { status, out, err };
-}
+const run = (...argv: string[]): Promise<CliRun> => runCli(['rate', ...argv]);
 
 async function json(...argv: string[]): Promise<Record<string, unknown>> {
   const r = await run(...argv, '--json');

@@ -3,19 +3,13 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { main } from '../src/main.js';
-import type { Io } from '../src/framework.js';
+import { runCli, type CliRun } from './run.js';
 
 const examples = fileURLToPath(new URL('../../sdk/examples/review/', import.meta.url));
 const good = join(examples, 'kestrel-block-a.review.json');
 const bad = join(examples, 'kestrel-block-b-mistakes.review.json');
 
-async function run(...argv: string[]): Promise<{ status: number; out: string; err: string }> {
-  let out = '', err = '';
-  const io: Io = { out: (t) => { out += t; }, err: (t) => { err += t; }, isTty: false };
-  const status = await main(['review', ...argv], io);
-  return { status, out, err };
-}
+const run = (...argv: string[]): Promise<CliRun> => runCli(['review', ...argv]);
 
 describe('tauline review', () => {
   it('exits 0 and prints a table with the caution when every spacecraft passes', async () => {

@@ -3,8 +3,7 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { main } from '../src/main.js';
-import type { Io } from '../src/framework.js';
+import { runCli, type CliRun } from './run.js';
 
 const ORIN = fileURLToPath(new URL('../../sdk/examples/steering/orin-3-meo.json', import.meta.url));
 /** Test leap-second table in the leap-seconds.list format, invented expiry 2036-06-28 (test/fixtures/time/SOURCE.md). */
@@ -17,13 +16,7 @@ function orinIn2031(): string {
   return path;
 }
 
-async function run(isTty: boolean, ...argv: string[]): Promise<{ status: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: Io = { out: (t) => { out += t; }, err: (t) => { err += t; }, isTty };
-  const status = await main(['simulate', ...argv], io);
-  return { status, out, err };
-}
+const run = (isTty: boolean, ...argv: string[]): Promise<CliRun> => runCli(['simulate', ...argv], isTty);
 
 describe('tauline simulate', () => {
   it('tauline simulate <orin-3-meo> --runs 40 --json reports each strategy, deterministically for a seed', async () => {

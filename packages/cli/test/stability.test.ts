@@ -4,17 +4,10 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { main } from '../src/main.js';
+import { runCli as run } from './run.js';
 
 const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
 const FIX = join(ROOT, 'test/fixtures');
-
-async function run(argv: string[]): Promise<{ status: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const status = await main(argv, { out: (t) => { out += t; }, err: (t) => { err += t; }, isTty: false });
-  return { status, out, err };
-}
 
 const tmp = mkdtempSync(join(tmpdir(), 'tauline-stability-'));
 /** NBS14 frequency data (NIST SP 1065 §12) [V2]. */
