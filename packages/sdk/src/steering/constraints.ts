@@ -59,21 +59,30 @@ export interface QuantisedStep {
   limitedBy?: 'maxStep' | 'range';
 }
 
+/** How a wanted step is rounded to whole actuator steps. */
+export type Rounding = 'nearest' | 'floor' | 'ceil';
+
+/** `ratio` rounded to a whole number of steps, cut to ±maxSteps (limitedBy 'maxStep' when cut). */
+function wholeSteps(ratio: number, rounding: Rounding, maxSteps: number): { steps: number; limitedBy?: 'maxStep' } {
+  const steps = rounding === 'floor' ? Math.floor(ratio) : rounding === 'ceil' ? Math.ceil(ratio) : Math.round(ratio);
+  return Math.abs(steps) > maxSteps ? { steps: Math.sign(steps) * maxSteps, limitedBy: 'maxStep' } : { steps };
+}
+
+/** The scenario's name for a frequency limit, with its value: "maxFrequencyStep (1.00e-12)" or "the cumulative range [min, max]". */
+export function frequencyLimitText(norm: NormalizedScenario, limit: 'maxStep' | 'range'): string {
+  return limit === 'maxStep' ? `maxFrequencyStep (${frac(norm.actuator.maxStep)})`
+    : `the cumulative range [${frac(norm.actuator.rangeMin)}, ${frac(norm.actuator.rangeMax)}]`;
+}
+
 /**
  * Rounds a wanted frequency step to the nearest integer number of resolution steps, then
  * limits it to ±maxFrequencyStep and to the cumulative range (never rounding outwards).
  */
-export function quantiseFrequency(norm: NormalizedScenario, wanted: number, cumulative: number,
-  rounding: 'nearest' | 'floor' | 'ceil' = 'nearest'): QuantisedStep {
+export function quantiseFrequency(norm: NormalizedScenario, wanted: number, cumulative: number, rounding: Rounding = 'nearest'): QuantisedStep {
   const { resolution, maxStep, rangeMin, rangeMax } = norm.actuator;
-  const ratio = wanted / resolution;
-  let steps = rounding === 'floor' ? Math.floor(ratio) : rounding === 'ceil' ? Math.ceil(ratio) : Math.round(ratio);
-  let limitedBy: QuantisedStep['limitedBy'];
-  const maxSteps = Math.floor(maxStep / resolution + 1e-9);
-  if (Math.abs(steps) > maxSteps) {
-    steps = Math.sign(steps) * maxSteps;
-    limitedBy = 'maxStep';
-  }
+  const whole = wholeSteps(wanted / resolution, rounding, Math.floor(maxStep / resolution + 1e-9));
+  let steps = whole.steps;
+  let limitedBy: QuantisedStep['limitedBy'] = whole.limitedBy;
   const upper = Math.floor((rangeMax - cumulative) / resolution + 1e-9);
   const lower = Math.ceil((rangeMin - cumulative) / resolution - 1e-9);
   if (steps > upper) {
@@ -88,17 +97,11 @@ export function quantiseFrequency(norm: NormalizedScenario, wanted: number, cumu
 }
 
 /** Rounds a wanted phase step to whole phase-resolution steps within ±maxStep. */
-export function quantisePhase(norm: NormalizedScenario, wanted: number, rounding: 'nearest' | 'floor' | 'ceil' = 'nearest'): QuantisedStep {
+export function quantisePhase(norm: NormalizedScenario, wanted: number, rounding: Rounding = 'nearest'): QuantisedStep {
   const { phaseResolution, phaseMaxStep } = norm.actuator;
-  const ratio = wanted / phaseResolution;
-  let steps = rounding === 'floor' ? Math.floor(ratio) : rounding === 'ceil' ? Math.ceil(ratio) : Math.round(ratio);
-  let limitedBy: QuantisedStep['limitedBy'];
   const maxSteps = Number.isFinite(phaseMaxStep) ? Math.floor(phaseMaxStep / phaseResolution + 1e-9) : Infinity;
-  if (Math.abs(steps) > maxSteps) {
-    steps = Math.sign(steps) * maxSteps;
-    limitedBy = 'maxStep';
-  }
-  steps = steps === 0 ? 0 : steps;
+  const { steps: whole, limitedBy } = wholeSteps(wanted / phaseResolution, rounding, maxSteps);
+  const steps = whole === 0 ? 0 : whole; // no −0
   return { steps, amount: steps * phaseResolution, ...(limitedBy ? { limitedBy } : {}) };
 }
 
@@ -148,10 +151,7 @@ export function feedForwardManeuvers(norm: NormalizedScenario): { commands: Inte
       notes.push(`${label}: the rate change is smaller than half the frequency resolution; left to the feedback planner`);
       continue;
     }
-    if (q.limitedBy) {
-      limits.push(`the step needed to cancel ${label} is ${frac(-m.rateChange)}, beyond ${q.limitedBy === 'maxStep'
-        ? `maxFrequencyStep (${frac(norm.actuator.maxStep)})` : `the cumulative range [${frac(norm.actuator.rangeMin)}, ${frac(norm.actuator.rangeMax)}]`}`);
-    }
+    if (q.limitedBy) limits.push(`the step needed to cancel ${label} is ${frac(-m.rateChange)}, beyond ${frequencyLimitText(norm, q.limitedBy)}`);
     commands.push({
       uplinkAt: uplink, executeAt: m.t, kind: 'frequency', steps: q.steps, amount: q.amount,
       reason: `cancels the relativistic rate change of ${label}${q.limitedBy ? ' (partly: limited by the actuator)' : ''}; ` +

@@ -13,7 +13,7 @@
  */
 import { phaseVariance } from './clock-math.js';
 import {
-  cumulativeFrequency, describeDuration, frac, isoAt, ns, quantiseFrequency, quantisePhase, spacingOk, uplinkFor,
+  cumulativeFrequency, describeDuration, frac, frequencyLimitText, isoAt, ns, quantiseFrequency, quantisePhase, spacingOk, uplinkFor,
 } from './constraints.js';
 import { meanState, stateJumps, type InternalCommand, type StateJump } from './predict.js';
 import type { NormalizedScenario } from './scenario.js';
@@ -80,9 +80,7 @@ export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalC
       const wanted = -(yAtExec + (d * gap) / 2) - (phaseDone ? 0 : xAtExec / correctionTime);
       const q = quantiseFrequency(norm, wanted, cumulativeFrequency(norm, commands));
       if (q.limitedBy) {
-        limits.push(q.limitedBy === 'maxStep'
-          ? `the needed step (${frac(wanted)}) exceeds maxFrequencyStep (${frac(norm.actuator.maxStep)})`
-          : `the needed step (${frac(wanted)}) would leave the cumulative range [${frac(norm.actuator.rangeMin)}, ${frac(norm.actuator.rangeMax)}]`);
+        limits.push(`the needed step (${frac(wanted)}) ${q.limitedBy === 'maxStep' ? 'exceeds' : 'would leave'} ${frequencyLimitText(norm, q.limitedBy)}`);
       }
       if (q.steps === 0) continue;
       commands.push({

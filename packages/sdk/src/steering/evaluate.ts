@@ -21,15 +21,10 @@ export function commandsToInternal(norm: NormalizedScenario, commands: readonly 
     const uplinkAt = parseUtcStamp(norm.timeScales, `${f}.uplinkAt`, c.uplinkAt).secondsSince(norm.epoch);
     const executeAt = parseUtcStamp(norm.timeScales, `${f}.executeAt`, c.executeAt).secondsSince(norm.epoch);
     const steps = requireInteger(`${f}.actuatorSteps`, c.actuatorSteps);
-    if (c.kind === 'frequency') {
-      const amount = requireFinite(`${f}.fractionalFrequencyStep`, c.fractionalFrequencyStep);
-      return { uplinkAt, executeAt, kind: 'frequency' as const, steps, amount, reason: String(c.reason ?? '') };
-    }
-    if (c.kind === 'phase') {
-      const amount = requireFinite(`${f}.phaseStepSeconds`, c.phaseStepSeconds);
-      return { uplinkAt, executeAt, kind: 'phase' as const, steps, amount, reason: String(c.reason ?? '') };
-    }
-    throw new InvalidArgumentError(`${f}.kind`, (c as { kind?: unknown }).kind, '"frequency" or "phase"');
+    const amountField = c.kind === 'frequency' ? 'fractionalFrequencyStep' : c.kind === 'phase' ? 'phaseStepSeconds' : undefined;
+    if (amountField === undefined) throw new InvalidArgumentError(`${f}.kind`, (c as { kind?: unknown }).kind, '"frequency" or "phase"');
+    const amount = requireFinite(`${f}.${amountField}`, c[amountField]);
+    return { uplinkAt, executeAt, kind: c.kind, steps, amount, reason: String(c.reason ?? '') };
   });
 }
 

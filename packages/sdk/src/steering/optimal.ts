@@ -32,7 +32,7 @@ import {
   add3, mul3, mulVec3, phaseSquareIntegral, propagateMean, quadForm3, transition, transpose3, zeros3, type Matrix3,
 } from './clock-math.js';
 import {
-  cumulativeFrequency, executionIntervals, frac, ns, quantiseFrequency, quantisePhase, uplinkFor, type QuantisedStep,
+  cumulativeFrequency, executionIntervals, frac, frequencyLimitText, ns, quantiseFrequency, quantisePhase, uplinkFor, type QuantisedStep,
 } from './constraints.js';
 import { expectedCost } from './cost.js';
 import { DEADBAND_REASON_PREFIX, planDeadband, type PlannerResult } from './deadband.js';
@@ -110,10 +110,8 @@ function actuatorLimitOf(kind: 'frequency' | 'phase', step: QuantisedStep): Actu
 export function actuatorLimitMessages(norm: NormalizedScenario, commands: readonly InternalCommand[]): string[] {
   const hit = new Set(commands.map((c) => c.limitedBy).filter((l): l is ActuatorLimit => l !== undefined));
   const messages: string[] = [];
-  if (hit.has('maxFrequencyStep')) messages.push(`the needed step exceeds maxFrequencyStep (${frac(norm.actuator.maxStep)})`);
-  if (hit.has('cumulativeFrequencyRange')) {
-    messages.push(`the cumulative range [${frac(norm.actuator.rangeMin)}, ${frac(norm.actuator.rangeMax)}] is exhausted`);
-  }
+  if (hit.has('maxFrequencyStep')) messages.push(`the needed step exceeds ${frequencyLimitText(norm, 'maxStep')}`);
+  if (hit.has('cumulativeFrequencyRange')) messages.push(`${frequencyLimitText(norm, 'range')} is exhausted`);
   if (hit.has('maxPhaseStep')) messages.push(`the needed phase step exceeds actuator.phaseSteps.maxStep (${ns(norm.actuator.phaseMaxStep)})`);
   return messages;
 }

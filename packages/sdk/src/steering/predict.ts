@@ -40,10 +40,9 @@ export interface StateJump {
   dx: number;
 }
 
-/** Jumps caused by the scenario's manoeuvres and (optionally) commands, sorted by time. */
-export function stateJumps(norm: NormalizedScenario, commands: readonly InternalCommand[], withManeuvers = true): StateJump[] {
-  const jumps: StateJump[] = [];
-  if (withManeuvers) for (const m of norm.maneuvers) jumps.push({ t: m.t, dy: m.rateChange, dx: 0 });
+/** Jumps caused by the scenario's manoeuvres and the commands, sorted by time. */
+export function stateJumps(norm: NormalizedScenario, commands: readonly InternalCommand[]): StateJump[] {
+  const jumps: StateJump[] = norm.maneuvers.map((m) => ({ t: m.t, dy: m.rateChange, dx: 0 }));
   for (const c of commands) {
     jumps.push(c.kind === 'frequency' ? { t: c.executeAt, dy: c.amount, dx: 0 } : { t: c.executeAt, dy: 0, dx: c.amount });
   }
