@@ -120,6 +120,7 @@ describe('framework: flags', () => {
       ['review', REVIEW, '--runs', '200'],
       ['broadcast', NAV, ...WINDOW, '--satellite', 'G05'],
       ['precise', SP3],
+      ['clock', '--phase', join(ROOT, 'packages/sdk/examples/clock/vestra-4-rafs.txt')],
     ];
     for (const argv of cases) {
       const a = await run(...argv, '--json');

@@ -5,12 +5,12 @@
  */
 import {
   diffusionFromStabilityRows, fitClockPolynomial, measurementNoiseFromPhase, polynomialNoiseCovariance, runClockFilter,
-  type ClockFilterRun, type ClockStates, type DetectedJump, type StabilityRowsFit,
+  type ClockFilterRun, type ClockStates, type DetectedJump, type MeasurementNoiseEstimate, type StabilityRowsFit,
 } from '@tauline/sdk/clock-model';
 import { analyzeStability } from '@tauline/sdk/stability';
 import {
-  EXIT_OK, FLIGHT_CAUTION, keyValueTable, numberFlag, optionalFlag, parseNumber, sig, table, toJson, UsageError, withFlagNames,
-  type Command, type ParsedArgs,
+  EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, numberFlag, optionalFlag, parseNumber, sig, table, toJson,
+  UsageError, withFlagNames, type Command, type ParsedArgs,
 } from '../framework.js';
 import { readClockRecord, recordFlags } from '../records.js';
 
@@ -21,6 +21,27 @@ function choice<T extends number>(args: ParsedArgs, flag: string, allowed: reado
   if (!allowed.includes(v as T)) throw new UsageError(`--${flag} must be ${allowed.join(' or ')}; received ${JSON.stringify(text)}`);
   return v as T;
 }
+
+/**
+ * The measurement-noise variances, in s²: `rFit` (with its standard error `rFitStd`) for the noise fit,
+ * `rFilter` for the Kalman filter, and where they come from. Given σ: σ² for both. Estimated and
+ * resolved: the estimate for both. Unresolved: the fit assumes 0, the filter takes the 2σ upper bound.
+ */
+function measurementVariances(sigma: number | undefined, estimate: MeasurementNoiseEstimate | undefined):
+  { rFit: number; rFitStd: number; rFilter: number; source: string } {
+  if (sigma !== undefined) return { rFit: sigma ** 2, rFitStd: 0, rFilter: sigma ** 2, source: 'given' };
+  const e = estimate!;
+  if (e.resolved) return { rFit: e.variance, rFitStd: e.standardError, rFilter: e.variance, source: 'estimated' };
+  return {
+    rFit: 0, rFitStd: 0, rFilter: Math.max(e.variance, 0) + 2 * e.standardError,
+    source: 'unresolved (filter uses the 2σ upper bound; noise fit assumes 0)',
+  };
+}
+
+/** The h-coefficient of each diffusion coefficient (IEEE Std 1139): its field in `h`/`hStd` and its printed name. */
+const H_OF_Q = {
+  q1: { field: 'h0', label: 'h0' }, q2: { field: 'hMinus2', label: 'h₋₂' }, q3: { field: 'hMinus4', label: 'h₋₄' },
+} as const;
 
 /** One characterisation pass on a (corrected) phase series. */
 function characterise(phase: Float64Array, t: Float64Array, tau0: number, opts: {
@@ -59,7 +80,7 @@ const pm = (v: number, s: number, unit: string): string => `${fmt(v, 6)} ± ${fm
 export const clockCommand: Command = {
   name: 'clock',
   summary: 'Characterise a clock from its phase record: af0/af1/af2 with uncertainty, noise q1/q2/q3 from the stability of the residuals, Kalman outliers and jumps.',
-  usage: '(--phase <file> | --rinex-clock <file> --clock <name>) [--tau0 <s>] [--degree 1|2] [--reference-time <s>] [--predict <s,...>] [--states 2|3] [--measurement-sigma <s>] [--scenario-noise] [--json]',
+  usage: '(--phase <file> | --rinex-clock <file> --clock <name>) [--tau0 <s>] [--degree 1|2] [--reference-time <s>] [--predict <s,...>] [--states 2|3] [--measurement-sigma <s>] [--scenario-noise] [--json | --format table|json]',
   flags: {
     ...recordFlags(['phase']),
     tau0: { type: 'string', value: '<s>', description: 'Sample spacing τ0 in seconds (required for one-column files).' },
@@ -69,7 +90,7 @@ export const clockCommand: Command = {
     states: { type: 'string', value: '2|3', description: 'Noise model: 2 = q1, q2 from OADEV; 3 = q1, q2, q3 from OHDEV (default 2).' },
     'measurement-sigma': { type: 'string', value: '<s>', description: 'White measurement noise 1σ of the phase, in seconds (default: estimated from the record).' },
     'scenario-noise': { type: 'boolean', description: 'Also print { "q1", "q2", "q3" } for a steering scenario\'s clock.noise.' },
-    json: { type: 'boolean', description: 'Print one JSON object instead of tables.' },
+    ...formatFlags(TABLE_OR_JSON, { json: 'Print one JSON object instead of tables (same as --format json).' }),
   },
   details: `
 Procedure (each step an SDK call, nothing interpolated):
@@ -87,6 +108,7 @@ level) from a covariance that accounts for the correlation of overlapping estima
 h-coefficients (IEEE Std 1139, one-sided): h0 = 2q1, h₋₂ = q2/(2π²), h₋₄ = q3/(8π⁴).
 Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0 success, 2 unusable input.`,
   async run(args, io) {
+    const format = formatFlag(args, TABLE_OR_JSON, 'table');
     const tau0Flag = numberFlag(args, 'tau0');
     const degree = choice(args, 'degree', [1, 2] as const, 2);
     const states = choice(args, 'states', [2, 3] as const, 2);
@@ -103,12 +125,7 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
 
     // A record too short for the estimate is the file's fault: name the flag that gave it.
     const noiseEstimate = sigmaFlag === undefined ? withFlagNames({ phase: rec.flag }, () => measurementNoiseFromPhase(rec.values)) : undefined;
-    const rFit = sigmaFlag !== undefined ? sigmaFlag ** 2 : noiseEstimate!.resolved ? noiseEstimate!.variance : 0;
-    const rFilter = sigmaFlag !== undefined ? sigmaFlag ** 2
-      : noiseEstimate!.resolved ? noiseEstimate!.variance : Math.max(noiseEstimate!.variance, 0) + 2 * noiseEstimate!.standardError;
-    const measurementSource = sigmaFlag !== undefined ? 'given' : noiseEstimate!.resolved ? 'estimated' : 'unresolved (filter uses the 2σ upper bound; noise fit assumes 0)';
-
-    const rFitStd = sigmaFlag === undefined && noiseEstimate!.resolved ? noiseEstimate!.standardError : 0;
+    const { rFit, rFitStd, rFilter, source: measurementSource } = measurementVariances(sigmaFlag, noiseEstimate);
     const opts = { degree, referenceTime, states, rFit, rFitStd, rFilter, predict };
     let phase = rec.values;
     const events: { pass: number; jumps: DetectedJump[]; rejected: { index: number; t: number; innovation: number; nis: number }[] }[] = [];
@@ -127,8 +144,8 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
     }
     const { poly, noise, polyNoise, filter } = result;
     const names = degree === 2 ? ['af0', 'af1', 'af2'] : ['af0', 'af1'];
-    const units = ['s', '', '1/s'];
-    const coefficients = names.map((name, i) => ({ name, value: poly.coefficients[i] as number, std: polyNoise.std[i] as number, whiteNoiseStd: Math.sqrt((poly.covariance[i] as number[])[i] as number), unit: units[i] === '' ? 'dimensionless' : units[i] }));
+    const units = ['s', 'dimensionless', '1/s'];
+    const coefficients = names.map((name, i) => ({ name, value: poly.coefficients[i] as number, std: polyNoise.std[i] as number, whiteNoiseStd: Math.sqrt((poly.covariance[i] as number[])[i] as number), unit: units[i] }));
     const residualRms = Math.sqrt(poly.chiSquare / poly.residuals.length);
     const reducedChiSquare = rFit > 0 ? poly.chiSquare / rFit / poly.dof : Number.NaN;
     const predictions = predict.map((T, j) => ({ t: T, phase: poly.predict(T), std: polyNoise.predictStd[j] as number }));
@@ -138,7 +155,7 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
     const allRejected = events.flatMap((e) => e.rejected.map((r) => ({ pass: e.pass, ...r })));
     const scenarioNoise = { q1: noise.q.q1, q2: noise.q.q2, q3: noise.q.q3 };
 
-    if (args.values['json']) {
+    if (format === 'json') {
       io.out(toJson({
         input: { file: rec.source, ...(rec.clock ? { clock: rec.clock } : {}), ...(rec.timeSystem ? { timeSystem: rec.timeSystem } : {}), samples: rec.values.length, tau0: rec.tau0, gaps: rec.gaps, firstEpoch: t[0], lastEpoch: lastT },
         measurementNoise: { sigma: Math.sqrt(rFilter), source: measurementSource, ...(noiseEstimate ? { estimateVariance: noiseEstimate.variance, estimateStandardError: noiseEstimate.standardError } : {}), varianceInNoiseFit: rFit },
@@ -178,11 +195,10 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
     io.out(table(['coefficient', 'value', '1σ', 'interval', 'unit', 'h-coefficient'],
       qNames.map((n) => {
         const iv = noise.intervals[n];
-        const hName = n === 'q1' ? 'h0' : n === 'q2' ? 'hMinus2' : 'hMinus4';
-        const hLabel = n === 'q1' ? 'h0' : n === 'q2' ? 'h₋₂' : 'h₋₄';
+        const h = H_OF_Q[n];
         const interval = noise.atZero.includes(n) ? 'held at 0 (not resolved)'
           : iv ? `[${fmt(iv.low, 3)}, ${fmt(iv.high, 3)}]${iv.edf < 1 ? ' (not resolved)' : ''}` : '—';
-        return [n, fmt(noise.q[n], 4), fmt(noise.qStd[n], 2), interval, qUnits[n], `${hLabel} = ${fmt(noise.h[hName], 4)} ± ${fmt(noise.hStd[hName], 2)} ${qUnits[n]}`];
+        return [n, fmt(noise.q[n], 4), fmt(noise.qStd[n], 2), interval, qUnits[n], `${h.label} = ${fmt(noise.h[h.field], 4)} ± ${fmt(noise.hStd[h.field], 2)} ${qUnits[n]}`];
       })));
     io.out(`fit: χ² = ${fmt(noise.chiSquare, 4)} on ${noise.dof} dof (p = ${fmt(noise.chiSquareProbability, 3)})${noise.excluded.length ? `; left out: ${noise.excluded.map((e) => `τ = ${sig(e.tau)} s (${e.reason})`).join(', ')}` : ''}\n`);
     io.out(table(['τ (s)', noise.statistic, 'model', 'edf', 'residual (σ)'],
