@@ -30,32 +30,37 @@ function isAsyncIterable(value: unknown): value is AsyncIterable<string> {
  * Use `push(chunk)` for each chunk and `finish()` at the end; both return the lines completed.
  */
 export class LineSplitter {
-  private _pending = '';
+  /** Pieces of the line not yet ended, kept apart so that a long line fed in many chunks is joined once (linear time). */
+  private _pending: string[] = [];
   private _lineNumber = 0;
 
   /** Feeds one chunk; returns the lines it completed. */
   push(chunk: string): TextLine[] {
     const lines: TextLine[] = [];
-    let text = this._pending + chunk;
     let start = 0;
     for (;;) {
-      const nl = text.indexOf('\n', start);
+      const nl = chunk.indexOf('\n', start);
       if (nl < 0) break;
-      const end = nl > start && text.charCodeAt(nl - 1) === 13 ? nl - 1 : nl;
-      lines.push({ text: text.slice(start, end), lineNumber: ++this._lineNumber });
+      let text = chunk.slice(start, nl);
+      if (start === 0 && this._pending.length > 0) {
+        text = this._pending.join('') + text;
+        this._pending = [];
+      }
+      // CR LF: the CR may have arrived at the end of the previous chunk.
+      if (text.charCodeAt(text.length - 1) === 13) text = text.slice(0, -1);
+      lines.push({ text, lineNumber: ++this._lineNumber });
       start = nl + 1;
     }
-    text = text.slice(start);
-    this._pending = text;
+    if (start < chunk.length) this._pending.push(start === 0 ? chunk : chunk.slice(start));
     return lines;
   }
 
   /** Ends the input; returns the last line when the text did not end with a line end. */
   finish(): TextLine[] {
-    if (this._pending === '') return [];
-    let text = this._pending;
+    let text = this._pending.join('');
+    this._pending = [];
+    if (text === '') return [];
     if (text.endsWith('\r')) text = text.slice(0, -1);
-    this._pending = '';
     return [{ text, lineNumber: ++this._lineNumber }];
   }
 

@@ -1,7 +1,7 @@
 // Line splitting of the text readers. Line ends LF and CR LF: common practice, no source.
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { linesOf, readLineBatches, readLines, type TextLine } from '../../src/io/line-reader.js';
+import { LineSplitter, linesOf, readLineBatches, readLines, type TextLine } from '../../src/io/line-reader.js';
 
 async function* asyncChunks(chunks: readonly string[]): AsyncGenerator<string> {
   for (const c of chunks) yield c;
@@ -65,5 +65,38 @@ describe('linesOf: a long string is split in pieces without changing the lines',
         expect([...linesOf(text)]).toEqual(splitReference(text));
       },
     ), { seed: 20261202, numRuns: 40 });
+  });
+});
+
+describe('LineSplitter: any chunking gives the same lines', () => {
+  it('LineSplitter.push(chunks) delivers a line fed in 1 000 chunks as one line, its CR LF split across two chunks', () => {
+    const sp = new LineSplitter();
+    const got: TextLine[] = [];
+    for (let k = 0; k < 1000; k++) got.push(...sp.push('ab'));
+    got.push(...sp.push('\r'), ...sp.push('\nnext'), ...sp.finish());
+    expect(got).toEqual([{ text: 'ab'.repeat(1000), lineNumber: 1 }, { text: 'next', lineNumber: 2 }]);
+    expect(sp.lineCount).toBe(2);
+  });
+
+  it('LineSplitter.push(chunks) equals a plain split of the joined text for random texts cut at random places', () => {
+    fc.assert(fc.property(
+      fc.array(fc.constantFrom('a', 'b', '\r', '\n', '\r\n', 'xyz'), { maxLength: 60 }),
+      fc.array(fc.integer({ min: 0, max: 200 }), { maxLength: 12 }),
+      (parts, cuts) => {
+        const text = parts.join('');
+        const at = [...new Set(cuts.map((c) => Math.min(c, text.length)))].sort((x, y) => x - y);
+        const sp = new LineSplitter();
+        const got: TextLine[] = [];
+        let from = 0;
+        for (const c of [...at, text.length]) {
+          got.push(...sp.push(text.slice(from, c)));
+          from = c;
+        }
+        got.push(...sp.finish());
+        // A CR not followed by LF stays in the line text except at the very end of the input (dropped by finish).
+        const expected = splitReference(text);
+        expect(got).toEqual(expected);
+      },
+    ), { seed: 20261202, numRuns: 300 });
   });
 });
