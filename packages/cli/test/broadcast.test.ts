@@ -75,6 +75,17 @@ describe('tauline broadcast', () => {
     expect(utc.satellites[0].samples[0].relativisticSeconds).toBe(bdt.satellites[0].samples[0].relativisticSeconds);
   });
 
+  it('tauline broadcast --time-scale utc with an unmodelled satellite (R01) gives it null samples and a note, and still evaluates the others', async () => {
+    const r = await run(['broadcast', NAV3, '--from', '2024-01-07T00:00:00Z', '--to', '2024-01-07T00:10:00Z', '--step', '600', '--satellite', 'R01,G05', '--time-scale', 'utc', '--json']);
+    expect(r.status).toBe(0);
+    const json = JSON.parse(r.out);
+    expect(json.satellites.map((s: { id: string }) => s.id)).toEqual(['G05', 'R01']);
+    expect(json.satellites[1].samples.map((x: { relativisticSeconds: number | null }) => x.relativisticSeconds)).toEqual([null, null]);
+    expect(json.satellites[0].samples.every((x: { relativisticSeconds: number | null }) => typeof x.relativisticSeconds === 'number')).toBe(true);
+    expect(json.samplesWithoutRecord).toBe(2);
+    expect(json.notes).toContain('R01: system not modelled (GPS, Galileo and BeiDou only)');
+  });
+
   it('tauline broadcast <v4.01> --galileo fnav uses the F/NAV record; the table and CSV outputs carry the same rows', async () => {
     const args = ['broadcast', NAV4, '--from', '2024-01-07T00:00:00', '--to', '2024-01-07T00:10:00', '--step', '600', '--satellite', 'E11', '--galileo', 'fnav'];
     const j = JSON.parse((await run([...args, '--json'])).out);

@@ -57,6 +57,11 @@ export const SYSTEM_SCALE_LABEL: Record<KeplerianSystem, string> = { G: 'GPST', 
 /** The SDK time-scale id of each system's scale. */
 export const SYSTEM_SCALE: Record<KeplerianSystem, TimeScale> = { G: 'GPS', E: 'GST', C: 'BDT' };
 
+/** Whether the SDK models a system's broadcast orbit and clock (GPS, Galileo, BeiDou), by its RINEX letter. */
+export function isModelledSystem(system: string): system is KeplerianSystem {
+  return system === 'G' || system === 'E' || system === 'C';
+}
+
 /** Parses `--satellite G01,E11,...` into a set, or undefined for all. */
 export function satelliteFlag(args: ParsedArgs): Set<string> | undefined {
   const text = optionalFlag(args, 'satellite');
@@ -215,7 +220,7 @@ is still printed, every value null), 2 invalid input or a malformed file.`,
       if (typeof fromValue === 'number') return fromValue + k * step;
       return scaleSecondsFromFields(ts.toCalendar(fromValue.plus(k * step), SYSTEM_SCALE[system]));
     };
-    const label = (k: number, system: KeplerianSystem): string => {
+    const label = (k: number): string => {
       if (typeof fromValue === 'number') return formatEpochFields(fieldsFromScaleSeconds(fromValue + k * step));
       return ts.formatIso(fromValue.plus(k * step), { fractionDigits: fractional ? 6 : 0 });
     };
@@ -227,23 +232,22 @@ is still printed, every value null), 2 invalid input or a malformed file.`,
       throw new InvalidArgumentError('--step', step, `a step giving at most ${MAX_SAMPLES} samples in all (${satellites.length} satellites × ${count} epochs requested)`);
     }
     const notes = new Set<string>();
-    const out: { id: string; timeScale: string; samples: SampleOut[]; missing: number }[] = [];
+    const out: { id: string; timeScale: string; samples: SampleOut[] }[] = [];
+    let samplesWithoutRecord = 0;
     for (const id of satellites) {
-      const system = id.charAt(0) as KeplerianSystem;
+      const system = id.charAt(0);
+      const modelled = isModelledSystem(system);
+      if (!modelled) notes.add(`${id}: system not modelled (GPS, Galileo and BeiDou only)`);
       const records = nav.records.get(id) ?? [];
-      if (!['G', 'E', 'C'].includes(system)) {
-        notes.add(`${id}: system not modelled (GPS, Galileo and BeiDou only)`);
-      }
       const samples: SampleOut[] = [];
-      let missing = 0;
       for (let k = 0; k < count; k++) {
-        const t = toScaleSeconds(k, system);
-        const eph: KeplerianBroadcastEphemeris | undefined = ['G', 'E', 'C'].includes(system)
-          ? selectEphemeris(records, t, { includeUnhealthy, galileoMessage }) : undefined;
+        // An unmodelled system has no scale of its own to read the sample time on (and no record to use).
+        const t = modelled ? toScaleSeconds(k, system) : Number.NaN;
+        const eph: KeplerianBroadcastEphemeris | undefined = modelled ? selectEphemeris(records, t, { includeUnhealthy, galileoMessage }) : undefined;
         if (!eph) {
-          missing++;
+          samplesWithoutRecord++;
           samples.push({
-            t: label(k, system), relativisticSeconds: null, clockCorrectionSeconds: null,
+            t: label(k), relativisticSeconds: null, clockCorrectionSeconds: null,
             reason: records.length === 0 ? 'no record of this satellite in the files' : 'no healthy record whose fit interval covers this time',
           });
           continue;
@@ -252,16 +256,15 @@ is still printed, every value null), 2 invalid input or a malformed file.`,
         for (const n of rec.notes ?? []) notes.add(`${rec.sourceName}:${rec.line}: ${id}: ${n}`);
         const ev = evaluateBroadcastEphemeris(eph, t);
         samples.push({
-          t: label(k, system), relativisticSeconds: ev.relativisticSeconds, clockCorrectionSeconds: ev.clockCorrectionSeconds,
+          t: label(k), relativisticSeconds: ev.relativisticSeconds, clockCorrectionSeconds: ev.clockCorrectionSeconds,
           toe: formatEpochFields(fieldsFromScaleSeconds(eph.toeSeconds)), issueOfData: eph.issueOfData, message: eph.message,
         });
       }
-      out.push({ id, timeScale: utc ? 'UTC' : SYSTEM_SCALE_LABEL[system] ?? 'unknown', samples, missing });
+      out.push({ id, timeScale: utc ? 'UTC' : modelled ? SYSTEM_SCALE_LABEL[system] : 'unknown', samples });
     }
     const skipped = [...nav.skipped].map(([reason, n]) => ({ reason, count: n }));
-    const withRecord = out.reduce((sum, x) => sum + x.samples.length - x.missing, 0);
     // Nothing usable at all (no satellite has a record covering any sample) is a finding, not a success.
-    const status = withRecord === 0 ? EXIT_FINDING : EXIT_OK;
+    const status = samplesWithoutRecord === satellites.length * count ? EXIT_FINDING : EXIT_OK;
     if (status === EXIT_FINDING) {
       io.err(`tauline broadcast: no sample has a valid record: no ${filter ? `record of ${[...filter].join(', ')}` : 'GPS, Galileo or BeiDou record'} covers the requested window in these files\n`);
     }
@@ -272,8 +275,8 @@ is still printed, every value null), 2 invalid input or a malformed file.`,
         step,
         selection: 'nearest t_oe among healthy records whose fit interval covers t (ties: t_oe ≤ t, latest transmission, highest issue of data)',
         galileoMessage,
-        satellites: out.map(({ id, timeScale, samples }) => ({ id, timeScale, samples })),
-        samplesWithoutRecord: out.reduce((s, x) => s + x.missing, 0),
+        satellites: out,
+        samplesWithoutRecord,
         recordsOutsideWindow: nav.outsideWindow,
         skipped,
         notes: [...notes],
@@ -301,8 +304,7 @@ is still printed, every value null), 2 invalid input or a malformed file.`,
       }
     }
     io.out(table(['sat', 't', 'Δt_r (ns)', 'Δt_sv (s)', 't_oe', 'message'], rows));
-    const missing = out.reduce((a, x) => a + x.missing, 0);
-    if (missing > 0) io.out(`\n${missing} sample(s) without a valid record (shown as —).\n`);
+    if (samplesWithoutRecord > 0) io.out(`\n${samplesWithoutRecord} sample(s) without a valid record (shown as —).\n`);
     if (skipped.length > 0) io.out(`\nSkipped records:\n${skipped.map((s) => `  ${s.count} × ${s.reason}`).join('\n')}\n`);
     if (notes.size > 0) io.out(`\nNotes:\n${[...notes].map((n) => `  ${n}`).join('\n')}\n`);
     io.out(`\n${FLIGHT_CAUTION}\n`);

@@ -14,7 +14,7 @@ import {
 } from '../framework.js';
 import { requireRegularFile } from '../files.js';
 import {
-  SYSTEM_SCALE, fileChunks, loadNavigation, outputFormat, progress, satelliteFlag, totalSize,
+  SYSTEM_SCALE, fileChunks, isModelledSystem, loadNavigation, outputFormat, progress, satelliteFlag, totalSize,
 } from './broadcast.js';
 
 /** SP3 time systems readable on the SDK's scales; GLONASS time is UTC(SU) + 3 h (GLONASS ICD [M]). */
@@ -124,10 +124,10 @@ Exit status: 0 success, 2 invalid input or a malformed file.`,
         const s = r.sample;
         const o: PreciseOut = { t: formatEpochFields(s.time), relativisticSeconds: s.relativisticSeconds, velocitySource: s.velocitySource };
         if (nav) {
-          const system = s.satellite.charAt(0) as KeplerianSystem;
+          const system = s.satellite.charAt(0);
           const records = nav.records.get(s.satellite) ?? [];
           let broadcast: number | null = null;
-          if (system === 'G' || system === 'E' || system === 'C') {
+          if (isModelledSystem(system)) {
             const t = toSystemScaleSeconds(ts, header, s.time, system);
             const eph = selectEphemeris(records, t);
             if (eph) broadcast = evaluateBroadcastEphemeris(eph, t).relativisticSeconds;
