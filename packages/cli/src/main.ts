@@ -28,7 +28,23 @@ const processIo: Io = {
   isTty: Boolean(process.stderr.isTTY),
 };
 
+let closedPipeHandled = false;
+
+/**
+ * `tauline … | head` closes stdout before the command has written everything: end quietly, as
+ * Unix filters do, instead of dying on the unhandled EPIPE with a stack trace.
+ */
+function endQuietlyOnClosedStdout(): void {
+  if (closedPipeHandled) return;
+  closedPipeHandled = true;
+  process.stdout.on('error', (error: NodeJS.ErrnoException) => {
+    if (error.code === 'EPIPE') process.exit(0);
+    throw error;
+  });
+}
+
 export async function main(argv: string[], io: Io = processIo): Promise<number> {
+  if (io === processIo) endQuietlyOnClosedStdout();
   const [name, ...rest] = argv;
   if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
     io.out(overview());

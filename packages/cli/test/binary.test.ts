@@ -2,7 +2,7 @@
  * `tauline rate` and `tauline periodic` through the built binary (`npm run build` first):
  * the exit codes, stdout/stderr split and JSON numbers that other tools rely on.
  */
-import { spawnSync } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
@@ -62,5 +62,18 @@ describe('tauline binary: rate and periodic', () => {
       expect(r.stderr).toMatch(/^tauline (rate|periodic): invalid input: --(eccentricity|constants|reference) must be /);
       expect(r.stderr).not.toMatch(/\s+at /);
     }
+  });
+
+  it('node bin/tauline.js broadcast ... | head: a reader closing stdout early ends the command quietly (status 0, no EPIPE stack trace)', async () => {
+    if (!existsSync(BUILT_RATE)) throw new Error('the CLI is not built: run `npm run build` first');
+    const nav = fileURLToPath(new URL('../../../test/fixtures/rinex-nav/mixed-v305.rnx', import.meta.url));
+    // 43 201 table rows: far more than the pipe holds, so the command is still writing when the reader goes.
+    const child = spawn(process.execPath, [BIN, 'broadcast', nav, '--from', '2024-01-07T00:00:00', '--to', '2024-01-07T12:00:00', '--step', '1', '--satellite', 'G05']);
+    let stderr = '';
+    child.stderr.on('data', (chunk: Buffer) => { stderr += chunk.toString(); });
+    child.stdout.once('data', () => child.stdout.destroy());
+    const status = await new Promise<number | null>((resolve) => child.on('close', (code) => resolve(code)));
+    expect(stderr).toBe('');
+    expect(status).toBe(0);
   });
 });
