@@ -22,13 +22,26 @@ function keplerResidual(E: number, e: number, M: number): number {
 /** The next double above (`direction` = +1) or below (−1) `x`. */
 function adjacentDouble(x: number, direction: 1 | -1): number {
   if (x === 0) return direction * Number.MIN_VALUE;
-  const buffer = new DataView(new ArrayBuffer(8));
-  buffer.setFloat64(0, x);
-  const bits = buffer.getBigUint64(0);
-  const awayFromZero = (x > 0) === (direction > 0);
-  buffer.setBigUint64(0, awayFromZero ? bits + 1n : bits - 1n);
-  return buffer.getFloat64(0);
+  // One shared view of the IEEE 754 bits: the next double away from (or toward) zero is the
+  // 64-bit pattern plus (or minus) one, done on the two 32-bit halves with a carry.
+  BITS_F64[0] = x;
+  if ((x > 0) === (direction > 0)) {
+    if (BITS_U32[LOW_WORD] === 0xffffffff) {
+      BITS_U32[LOW_WORD] = 0;
+      BITS_U32[HIGH_WORD]! += 1;
+    } else BITS_U32[LOW_WORD]! += 1;
+  } else if (BITS_U32[LOW_WORD] === 0) {
+    BITS_U32[LOW_WORD] = 0xffffffff;
+    BITS_U32[HIGH_WORD]! -= 1;
+  } else BITS_U32[LOW_WORD]! -= 1;
+  return BITS_F64[0]!;
 }
+
+const BITS_F64 = new Float64Array(1);
+const BITS_U32 = new Uint32Array(BITS_F64.buffer);
+/** Index of the low 32-bit word of a double on this platform (0 on little-endian engines). */
+const LOW_WORD = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1 ? 0 : 1;
+const HIGH_WORD = 1 - LOW_WORD;
 
 /** Spacing of doubles at `x` (unit in the last place). */
 function ulp(x: number): number {

@@ -135,3 +135,14 @@ describe('meanMotion and orbitalPeriod', () => {
     expect(() => orbitalPeriod(-7e6, 3.986e14)).toThrow(InvalidArgumentError);
   });
 });
+
+describe('keplerTolerance(M)', () => {
+  it('keplerTolerance(M) is 1e-15 within a half revolution and 4 ulp(M) beyond (ulp(100) = 2^-46, IEEE 754 binary64)', () => {
+    expect(keplerTolerance(3)).toBe(1e-15);
+    expect(keplerTolerance(100)).toBe(4 * 2 ** -46);
+    expect(keplerTolerance(-100)).toBe(4 * 2 ** -46);
+    // 2^k exactly: the next double up is 2^k(1 + 2^-52), so ulp = 2^(k-52).
+    expect(keplerTolerance(2 ** 10)).toBe(4 * 2 ** -42);
+    expect(keplerTolerance(1e6)).toBe(4 * 2 ** (19 - 52));
+  });
+});
