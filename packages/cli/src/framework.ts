@@ -172,6 +172,17 @@ export function integerFlag(args: ParsedArgs, flag: string, min: number, max: nu
   return v;
 }
 
+/**
+ * Reads a flag naming one of `choices` (case-insensitive; `fallback` when absent).
+ * @throws {InvalidArgumentError} naming the flag, the text given and the choices.
+ */
+export function choiceFlag<C extends string>(args: ParsedArgs, flag: string, choices: readonly C[], fallback: C): C {
+  const text = optionalFlag(args, flag);
+  const lower = (text ?? fallback).toLowerCase();
+  if ((choices as readonly string[]).includes(lower)) return lower as C;
+  throw new InvalidArgumentError(`--${flag}`, text, `one of ${choices.join(', ')}`);
+}
+
 /** Largest seed accepted by the SDK's random generators (unsigned 32-bit). */
 export const MAX_SEED = 4_294_967_295;
 

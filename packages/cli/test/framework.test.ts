@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { runCli, type CliRun } from './run.js';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import {
-  JSON_INSTEAD_OF_TABLE, formatFlags, onePositional, parseNumber, progressBar, seedFlagSpec, table, withFlagNames, type ParsedArgs,
+  JSON_INSTEAD_OF_TABLE, choiceFlag, formatFlags, onePositional, parseNumber, progressBar, seedFlagSpec, table, withFlagNames, type ParsedArgs,
 } from '../src/framework.js';
 
 const run = (...argv: string[]): Promise<CliRun> => runCli(argv);
@@ -76,6 +76,13 @@ describe('the tauline command framework', () => {
     expect(onePositional(args(['a.json']), 'scenario file')).toBe('a.json');
     expect(() => onePositional(args([]), 'scenario file')).toThrow('give exactly one scenario file (see `tauline plan --help`)');
     expect(() => onePositional(args(['a', 'b']), 'scenario file')).toThrow(/give exactly one scenario file/);
+  });
+
+  it('choiceFlag(args, flag, choices, fallback) reads a choice case-insensitively, falls back when absent, and names flag, text and choices otherwise', () => {
+    const args = (values: ParsedArgs['values']): ParsedArgs => ({ values, positionals: [] });
+    expect(choiceFlag(args({ reference: 'TCG' }), 'reference', ['tt', 'tcg'], 'tt')).toBe('tcg');
+    expect(choiceFlag(args({}), 'reference', ['tt', 'tcg'], 'tt')).toBe('tt');
+    expect(() => choiceFlag(args({ reference: 'TAI' }), 'reference', ['tt', 'tcg'], 'tt')).toThrow(/^--reference must be one of tt, tcg; received "TAI"/);
   });
 
   it('withFlagNames(names, body) renames an InvalidArgumentError by a map or a function and passes other errors through', () => {

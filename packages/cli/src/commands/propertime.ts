@@ -7,7 +7,7 @@ import { GRAVITY_MODELS, type GravityModel } from '@tauline/sdk/orbit';
 import { integrateProperTime } from '@tauline/sdk/relativity';
 import type { ConstantSet } from '@tauline/sdk/constants';
 import {
-  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, numberFlag, parseNumber, requireFlag, sig, table, toJson, optionalFlag, withFlagNames,
+  EXIT_OK, TABLE_OR_JSON, choiceFlag, formatFlag, formatFlags, numberFlag, parseNumber, requireFlag, sig, table, toJson, withFlagNames,
   type Command,
 } from '../framework.js';
 import { CONSTANTS_FLAG, constantsFlag } from './rate.js';
@@ -43,12 +43,6 @@ export function requireBoundState(state: { position: readonly number[]; velocity
   }
 }
 
-function modelFlag(text: string | undefined): GravityModel {
-  const m = (text ?? 'j2').toLowerCase();
-  if ((GRAVITY_MODELS as readonly string[]).includes(m)) return m as GravityModel;
-  throw new InvalidArgumentError('--model', text, `one of ${GRAVITY_MODELS.join(', ')}`);
-}
-
 export const propertimeCommand: Command = {
   name: 'propertime',
   summary: 'Integrate an orbit and its clock\'s proper time τ − TT (point mass, J2, or J2 + Sun/Moon).',
@@ -79,7 +73,7 @@ Exit status: 0 success, 2 invalid input.`,
     const state = parseStateFlag(requireFlag(args, 'state'));
     const duration = numberFlag(args, 'duration', true);
     const step = numberFlag(args, 'step', true);
-    const model = modelFlag(optionalFlag(args, 'model'));
+    const model = choiceFlag<GravityModel>(args, 'model', GRAVITY_MODELS, 'j2');
     const epoch = numberFlag(args, 'epoch-tt-j2000') ?? 0;
     const tolerance = numberFlag(args, 'tolerance');
     const constants = constantsFlag(args);

@@ -3,11 +3,10 @@
  * gravitational and velocity parts, and the factory frequency offset that compensates it.
  */
 import { constantSet, type ConstantSet } from '@tauline/sdk/constants';
-import { InvalidArgumentError } from '@tauline/sdk/errors';
 import { meanClockRate, REFERENCE_CLOCKS, type ReferenceClock } from '@tauline/sdk/relativity';
 import { offsetFrequency } from '@tauline/sdk/oscillator';
 import {
-  EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, numberFlag, optionalFlag, sig, toJson, withFlagNames,
+  EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, choiceFlag, formatFlag, formatFlags, keyValueTable, numberFlag, optionalFlag, sig, toJson, withFlagNames,
   type Command, type FlagSpec, type ParsedArgs,
 } from '../framework.js';
 
@@ -20,14 +19,6 @@ export const CONSTANTS_FLAG: FlagSpec = {
 export function constantsFlag(args: ParsedArgs): ConstantSet {
   const name = optionalFlag(args, 'constants') ?? 'iers-2010';
   return withFlagNames({ constants: '--constants' }, () => constantSet(name));
-}
-
-/** Reads `--reference` (default tt). */
-function referenceFlag(args: ParsedArgs): ReferenceClock {
-  const text = optionalFlag(args, 'reference') ?? 'tt';
-  const lower = text.toLowerCase();
-  if (lower === 'tt' || lower === 'tcg') return lower;
-  throw new InvalidArgumentError('--reference', text, `one of ${REFERENCE_CLOCKS.join(', ')}`);
 }
 
 function signed(value: number, digits = 10): string {
@@ -62,7 +53,7 @@ Exit status: 0 success, 2 invalid input.`,
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
     const semiMajorAxis = numberFlag(args, 'semi-major-axis', true);
     const constants = constantsFlag(args);
-    const reference = referenceFlag(args);
+    const reference = choiceFlag<ReferenceClock>(args, 'reference', REFERENCE_CLOCKS, 'tt');
     const nominal = numberFlag(args, 'nominal-frequency');
     const rate = withFlagNames({ semiMajorAxis: '--semi-major-axis' },
       () => meanClockRate(semiMajorAxis, { constants, reference }));
