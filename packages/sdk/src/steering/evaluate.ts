@@ -8,7 +8,7 @@ import { InvalidArgumentError } from '../errors.js';
 import { requireFinite, requireInteger } from '../internal/validate.js';
 import { expectedCost, type CostBreakdown } from './cost.js';
 import type { SteeringCommand, SteeringPlan } from './plan.js';
-import { checkTolerance, gridTimes, meanPhaseAt, phaseSigmaAt, stateJumps, type InternalCommand } from './predict.js';
+import { checkTolerance, predictedSeries, stateJumps, type InternalCommand } from './predict.js';
 import { validateScenario, type NormalizedScenario } from './scenario.js';
 import { parseUtcStamp, type TimeScaleOptions } from './utc-stamps.js';
 
@@ -67,14 +67,6 @@ export interface SteeringPrediction {
  */
 export function predictSteering(scenario: unknown, commands: readonly SteeringCommand[], options: TimeScaleOptions = {}): SteeringPrediction {
   const norm = validateScenario(scenario, options);
-  const internal = commandsToInternal(norm, commands);
-  const times = gridTimes(norm);
-  const sigma = Array.from(phaseSigmaAt(norm, times));
-  const jumps = stateJumps(norm, internal);
-  return {
-    t: times,
-    steered: { phaseSeconds: Array.from(meanPhaseAt(norm, jumps, times)), sigmaSeconds: sigma },
-    unsteered: { phaseSeconds: Array.from(meanPhaseAt(norm, stateJumps(norm, []), times)), sigmaSeconds: [...sigma] },
-    withinTolerance: checkTolerance(norm, jumps).ok,
-  };
+  const jumps = stateJumps(norm, commandsToInternal(norm, commands));
+  return { ...predictedSeries(norm, jumps), withinTolerance: checkTolerance(norm, jumps).ok };
 }

@@ -11,7 +11,7 @@ import { expectedCost } from './cost.js';
 import { planDeadband, type PlannerResult } from './deadband.js';
 import { planOptimal } from './optimal.js';
 import {
-  checkTolerance, gridTimes, meanPhaseAt, phaseSigmaAt, probabilityWithin, stateJumps, type InternalCommand,
+  checkTolerance, gridTimes, phaseSigmaAt, predictedSeries, probabilityWithin, stateJumps, type InternalCommand,
 } from './predict.js';
 import { validateScenario, type NormalizedScenario } from './scenario.js';
 import { InvalidArgumentError } from '../errors.js';
@@ -150,24 +150,18 @@ export function buildPlan(norm: NormalizedScenario, method: SteeringMethod, resu
   const commands = result.commands;
   const jumps = stateJumps(norm, commands);
   const check = checkTolerance(norm, jumps);
-  const times = gridTimes(norm);
-  const sigma = Array.from(phaseSigmaAt(norm, times));
-  const steered = Array.from(meanPhaseAt(norm, jumps, times));
-  const unsteered = Array.from(meanPhaseAt(norm, stateJumps(norm, []), times));
+  const predicted = predictedSeries(norm, jumps);
+  const sigma = predicted.steered.sigmaSeconds;
   let worst = 0;
   let minP = 1;
-  steered.forEach((m, i) => {
+  predicted.steered.phaseSeconds.forEach((m, i) => {
     worst = Math.max(worst, Math.abs(m));
     minP = Math.min(minP, probabilityWithin(m, sigma[i]!, norm.bound));
   });
   const plan: SteeringPlan = {
     feasible: check.ok,
     commands: commands.map((c) => toPublic(norm, c)),
-    predicted: {
-      t: times,
-      steered: { phaseSeconds: steered, sigmaSeconds: sigma },
-      unsteered: { phaseSeconds: unsteered, sigmaSeconds: [...sigma] },
-    },
+    predicted,
     metrics: {
       worstPredictedOffsetSeconds: worst,
       worstOffsetBoundSeconds: check.worstBound,

@@ -12,6 +12,7 @@
 import { normalCdf } from '../internal/special-functions.js';
 import type { Seconds } from '../units.js';
 import { phaseVariance } from './clock-math.js';
+import type { PredictedSeries } from './plan.js';
 import type { NormalizedScenario } from './scenario.js';
 
 /** The actuator limit that cut a command short of the wanted step. */
@@ -91,6 +92,21 @@ export function phaseSigmaAt(norm: NormalizedScenario, times: ArrayLike<number>)
   const out = new Float64Array(times.length);
   for (let i = 0; i < times.length; i++) out[i] = Math.sqrt(phaseVariance(times[i]!, norm.covariance0, norm.noise));
   return out;
+}
+
+/**
+ * The predicted offset on the grid, as plans and `predictSteering` report it: the mean with `jumps`
+ * applied (steered) and with the manoeuvres only (unsteered), each beside the open-loop σ (the same
+ * for both: commands do not change σ).
+ */
+export function predictedSeries(norm: NormalizedScenario, jumps: readonly StateJump[]): { t: number[]; steered: PredictedSeries; unsteered: PredictedSeries } {
+  const t = gridTimes(norm);
+  const sigma = Array.from(phaseSigmaAt(norm, t));
+  return {
+    t,
+    steered: { phaseSeconds: Array.from(meanPhaseAt(norm, jumps, t)), sigmaSeconds: sigma },
+    unsteered: { phaseSeconds: Array.from(meanPhaseAt(norm, stateJumps(norm, []), t)), sigmaSeconds: [...sigma] },
+  };
 }
 
 /** The regular prediction grid 0, grid, 2·grid, ... and the horizon end. */
