@@ -63,7 +63,7 @@ adaptive Dormand–Prince 8(5,3) integrator and its 7th-order dense output (Hair
 1993). Models: point-mass U = GM/r; j2 adds −(GM J2 a_e²/(2r³))(3z²/r² − 1); full adds the lunar and solar tidal
 potential with Sun/Moon from the low-precision series of Montenbruck & Gill, Satellite Orbits (2000) §3.3.2.
 Accuracy: integration error < 1 ps/day at the default tolerance (LEO to GEO, e up to 0.16); model limits: see
-packages/sdk/packages/sdk/docs/relativity-models.md. τ − TT = 0 at t = 0; the samples are t = 0, step, 2·step, … and the duration.
+packages/sdk/docs/relativity-models.md. τ − TT = 0 at t = 0; the samples are t = 0, step, 2·step, … and the duration.
 JSON fields: samples [{ t (s), tauMinusTT (s) }], model, constants, epochTtSecondsSinceJ2000, ephemeris,
 relativeTolerance, acceptedSteps, rejectedSteps, meanRate (τ − TT at the end divided by the duration), units.
 An unbound state (v ≥ √(2GM/r), e.g. a velocity in the wrong unit) is refused.
