@@ -97,3 +97,15 @@ describe('tauline clock', () => {
     expect(JSON.parse(b.stdout).filter.jumps).toEqual(JSON.parse(inProcess.out).filter.jumps);
   });
 });
+
+describe('tauline clock on a record too short to characterise', () => {
+  it('exits 2 naming the flag, the file, the sample count and the minimum', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'tauline-clock-'));
+    const file = join(dir, 'short.txt');
+    writeFileSync(file, Array.from({ length: 9 }, (_, k) => `${k * 1e-9}`).join('\n') + '\n');
+    const r = await run(['clock', '--phase', file, '--tau0', '1']);
+    expect(r.status).toBe(2);
+    expect(r.err.trim().split('\n')).toHaveLength(1);
+    expect(r.err).toMatch(/--phase .*short\.txt has 9 phase samples; the clock model needs at least 12/);
+  });
+});

@@ -77,6 +77,9 @@ function correct(phase: Float64Array, t: Float64Array, jumps: readonly DetectedJ
 const fmt = (v: number, d = 4): string => sig(v, d);
 const pm = (v: number, s: number, unit: string): string => `${fmt(v, 6)} ± ${fmt(s, 2)}${unit ? ` ${unit}` : ''}`;
 
+/** Fewest phase samples `tauline clock` accepts (the lag-2 measurement-noise estimate needs 8 pairs). */
+export const MIN_CLOCK_SAMPLES = 12;
+
 export const clockCommand: Command = {
   name: 'clock',
   summary: 'Characterise a clock from its phase record: af0/af1/af2 with uncertainty, noise q1/q2/q3 from the stability of the residuals, Kalman outliers and jumps.',
@@ -117,6 +120,11 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
     const predictText = optionalFlag(args, 'predict');
     const predict = predictText === undefined ? [] : predictText.split(',').map((v) => parseNumber('--predict', v));
     const rec = await readClockRecord(args, ['phase'], tau0Flag);
+    const present = rec.values.reduce((n, v) => n + (v === v ? 1 : 0), 0);
+    if (present < MIN_CLOCK_SAMPLES) {
+      throw new UsageError(`${rec.flag} ${rec.source} has ${present} phase samples; the clock model needs at least ${MIN_CLOCK_SAMPLES} ` +
+        '(the measurement-noise estimate uses lag-2 second differences and the noise fit at least two averaging times): give a longer record');
+    }
     const t = rec.times ?? Float64Array.from(rec.values, (_, k) => k * rec.tau0); // a one-column record's epochs are k·τ0
     const firstValid = rec.values.findIndex((v) => v === v);
     const referenceTime = numberFlag(args, 'reference-time') ?? (t[firstValid] as number);
