@@ -4,6 +4,7 @@
  */
 import { parseArgs, type ParseArgsConfig } from 'node:util';
 import { TaulineError, InvalidArgumentError, formatReceived } from '@tauline/sdk/errors';
+import { MAX_SEED } from '@tauline/sdk/steering';
 
 /** Exit status: 0 success, 1 a finding (e.g. a review fail), 2 unusable input. */
 export const EXIT_OK = 0;
@@ -184,7 +185,7 @@ export function choiceFlag<C extends string>(args: ParsedArgs, flag: string, cho
 }
 
 /** Largest seed accepted by the SDK's random generators (unsigned 32-bit). */
-export const MAX_SEED = 4_294_967_295;
+export { MAX_SEED };
 
 /**
  * Reads `--seed`: an integer in [0, 2³² − 1], the same range for every command (the SDK's

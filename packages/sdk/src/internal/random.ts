@@ -5,6 +5,9 @@
  * @internal
  */
 
+/** Largest seed: seeds are unsigned 32-bit integers (larger values would alias smaller ones). */
+export const MAX_SEED = 4_294_967_295;
+
 /** A seeded source of uniform and standard-normal draws. */
 export interface Random {
   /** Uniform draw in the open interval (0, 1). */

@@ -9,7 +9,8 @@ import { CONSTANT_SETS, DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQ
   type ConstantSet } from '../constants.js';
 import { meanClockRate, semiMajorAxisForMeanRate, type ReferenceClock } from '../relativity/rate.js';
 import { j2SecularClockRate, osculatingMinusMeanSemiMajorAxis } from '../relativity/j2.js';
-import { createRandom } from '../internal/random.js';
+import { createRandom, MAX_SEED } from '../internal/random.js';
+import { requireInteger } from '../internal/validate.js';
 import type {
   ConfiguredOffset, Diagnosis, DispersionAnalysis, ReviewReport, ReviewSpacecraft, SpacecraftFinding, Verdict,
 } from './types.js';
@@ -26,7 +27,7 @@ export interface ReviewOptions {
   readonly marginalFraction?: number;
   /** Runs of the dispersion Monte Carlo (default 20 000). */
   readonly monteCarloRuns?: number;
-  /** Seed of the dispersion Monte Carlo (default 1), so reports are reproducible. */
+  /** Seed of the dispersion Monte Carlo, an integer in [0, 2^32 − 1] (default 1), so reports are reproducible. */
   readonly seed?: number;
   /** Default tolerance when neither the file nor the spacecraft gives one (default 1e-12). */
   readonly defaultToleranceFractional?: number;
@@ -156,7 +157,7 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
   const input = parseReviewInput(document);
   const marginalFraction = options.marginalFraction ?? 0.5;
   const runs = options.monteCarloRuns ?? 20_000;
-  const seed = options.seed ?? 1;
+  const seed = options.seed === undefined ? 1 : requireInteger('options.seed', options.seed, 0, MAX_SEED);
   const defaultTolerance = options.defaultToleranceFractional ?? 1e-12;
 
   const resolved = input.spacecraft.map((sc) => {
@@ -247,7 +248,7 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
     const actuator = sc.actuator ?? input.actuator;
     const phaseTolerance = sc.phaseToleranceSeconds ?? input.phaseToleranceSeconds ?? null;
     const dispersion = sc.dispersion
-      ? analyseDispersion(sc, set, reference, configured, actuator?.rangeFractional ?? null, phaseTolerance, runs, seed + index)
+      ? analyseDispersion(sc, set, reference, configured, actuator?.rangeFractional ?? null, phaseTolerance, runs, (seed + index) % (MAX_SEED + 1))
       : null;
     if (dispersion && actuator && dispersion.actuatorCovers === false) {
       verdict = 'fail';

@@ -19,3 +19,4 @@ export { type CostBreakdown } from './cost.js';
 export { type DiffusionCoefficients } from './clock-math.js';
 export { simulatePlan, type SimulationOptions, type SimulationSummary } from './monte-carlo.js';
 export { type TimeScaleOptions } from './utc-stamps.js';
+export { MAX_SEED } from '../internal/random.js';

@@ -7,6 +7,7 @@
  */
 import { InvalidArgumentError } from '../errors.js';
 import { requireInteger } from '../internal/validate.js';
+import { MAX_SEED } from '../internal/random.js';
 import { choleskyPsd3, processNoise, type Matrix3 } from './clock-math.js';
 import { commandsToInternal } from './evaluate.js';
 import type { SteeringPlan } from './plan.js';
@@ -60,7 +61,7 @@ export function simulatePlan(scenario: unknown, plan: Pick<SteeringPlan, 'comman
   if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an object with runs');
   const norm = validateScenario(scenario, { timeScales: resolveTimeScales(options) });
   const runs = requireInteger('options.runs', options.runs, 1, 1_000_000);
-  const seed = options.seed === undefined ? 1 : requireInteger('options.seed', options.seed, 0, 4_294_967_295);
+  const seed = options.seed === undefined ? 1 : requireInteger('options.seed', options.seed, 0, MAX_SEED);
   const commands = commandsToInternal(norm, plan.commands, 'plan.commands');
   const jumps = stateJumps(norm, commands);
   const grid = gridTimes(norm);

@@ -55,6 +55,14 @@ describe('reviewOffsets(document) on the bundled examples', () => {
     }
   });
 
+  it('rejects a seed that is not an unsigned 32-bit integer', () => {
+    const doc = load('kestrel-block-a.review.json');
+    expect(() => reviewOffsets(doc, { seed: -1 })).toThrow(/options\.seed/);
+    expect(() => reviewOffsets(doc, { seed: 2 ** 32 })).toThrow(/options\.seed/);
+    expect(() => reviewOffsets(doc, { seed: 1.5 })).toThrow(/options\.seed/);
+    expect(reviewOffsets(doc, { seed: 2 ** 32 - 1 }).counts.pass).toBe(3);
+  });
+
   it('is deterministic for a given seed', () => {
     const doc = load('kestrel-block-b-mistakes.review.json');
     expect(JSON.stringify(reviewOffsets(doc, { seed: 7 }))).toBe(JSON.stringify(reviewOffsets(doc, { seed: 7 })));
