@@ -8,6 +8,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { evaluateBroadcastEphemeris, type KeplerianBroadcastEphemeris } from '../../packages/sdk/src/orbit/broadcast.js';
+import { signalClockCorrection } from '../../packages/sdk/src/orbit/signal-clock.js';
 import { parseRinexNav } from '../../packages/sdk/src/io/rinex-nav.js';
 import { parseSp3 } from '../../packages/sdk/src/io/sp3.js';
 import { PreciseCorrectionStream, type PreciseCorrectionResult } from '../../packages/sdk/src/relativity/precise.js';
@@ -41,6 +42,16 @@ describe('IS-GPS-200 §20.3.3.3.3.1 user algorithm: physics-refs.md §3 check va
     const ev = evaluateBroadcastEphemeris(withClock, withClock.toeSeconds);
     expect(Math.abs(ev.clockCorrectionSeconds - 1.000122260052238e-4)).toBeLessThan(1e-19); // one unit in the 16th printed digit
     expect(ev.polynomialSeconds).toBeCloseTo(1e-4 + 1e-11 * 3600 + 1e-18 * 3600 ** 2, 19);
+  });
+
+  it('signalClockCorrection(T_GD = −1.0e-8 s, L1CA and L1P) gives (Δt_sv)_L1 = Δt_sv − T_GD = 1.000222260052238e-04 s (IS-GPS-200 §20.3.3.3.3.2 [M]; physics-refs §3 [C])', () => {
+    const withClock = { ...eph, af0: 1e-4, af1: 1e-11, af2: 1e-18, tocSeconds: eph.toeSeconds - 3600, groupDelays: { TGD: -1.0e-8 } };
+    const ev = evaluateBroadcastEphemeris(withClock, withClock.toeSeconds);
+    for (const signal of ['L1CA', 'L1P'] as const) {
+      const l1 = signalClockCorrection(withClock, ev.clockCorrectionSeconds, signal);
+      expect(Math.abs(l1.clockCorrectionSeconds - 1.000222260052238e-4)).toBeLessThan(1e-19); // one unit in the 16th printed digit
+      expect(l1.groupDelaySeconds).toBe(-1.0e-8);
+    }
   });
 
   it('evaluateBroadcastEphemeris(...) state vector gives −2 r·v/c² = −2.378695477618e-08 s as well (the ICD "equivalent expression", physics-refs §3 [C])', () => {

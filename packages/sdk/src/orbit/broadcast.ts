@@ -80,6 +80,11 @@ export interface KeplerianBroadcastEphemeris {
   readonly fitIntervalSeconds: Seconds;
   /** Transmission time of message, in scale seconds, when known. */
   readonly transmissionSeconds?: Seconds;
+  /**
+   * Broadcast group delays, in seconds, when known (used by `signalClockCorrection`): GPS `TGD`;
+   * Galileo `BGD_E5a_E1`, `BGD_E5b_E1`; BeiDou `TGD1`, `TGD2` (the names `readRinexNav` uses).
+   */
+  readonly groupDelays?: Readonly<Record<string, number>>;
 }
 
 /** Result of evaluating one record at one time. */
@@ -94,7 +99,7 @@ export interface BroadcastEvaluation {
   readonly relativisticSeconds: Seconds;
   /** a_f0 + a_f1(t − t_oc) + a_f2(t − t_oc)², in seconds. */
   readonly polynomialSeconds: Seconds;
-  /** Δt_sv = polynomial + Δt_r, in seconds (group delays not applied). */
+  /** Δt_sv = polynomial + Δt_r, in seconds (group delays not applied: see `signalClockCorrection`). */
   readonly clockCorrectionSeconds: Seconds;
 }
 

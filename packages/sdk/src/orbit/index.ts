@@ -13,6 +13,10 @@ export {
   type EphemerisSelectionOptions, systemConstants, defaultFitIntervalSeconds, weekCrossover,
   isBeidouGeostationary, evaluateBroadcastEphemeris, selectEphemeris,
 } from './broadcast.js';
+export {
+  type BroadcastSignal, type GroupDelayField, type SignalClockCorrection, BROADCAST_SIGNALS, GPS_GAMMA_L1_L2,
+  GALILEO_GAMMA_E1_E5A, GALILEO_GAMMA_E1_E5B, isBroadcastSignal, signalClockCorrection, signalsOf,
+} from './signal-clock.js';
 export { type OdeRightHandSide, type Dop853Options, type Dop853Result, integrateDop853 } from './integrator.js';
 export {
   type GravityModel, type GravityField, type GravityFieldOptions, GRAVITY_MODELS, GM_MOON, GM_SUN, createGravityField,
