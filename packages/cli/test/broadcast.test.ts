@@ -144,3 +144,108 @@ describe('tauline broadcast', () => {
     expect(p.stdout.split('\n')[1]).toMatch(/^C03,2024-01-07T00:00:00,-?\d/);
   });
 });
+
+describe('tauline broadcast --signal (single-frequency clock correction: IS-GPS-200 §20.3.3.3.3.2, Galileo OS SIS ICD §5.1.5, BDS-SIS-ICD [M])', () => {
+  const at00 = ['broadcast', NAV3, '--from', '2024-01-07T00:00:00', '--to', '2024-01-07T00:00:00', '--step', '60'];
+  type Sample = { clockCorrectionSeconds: number; clockCorrectionSignalSeconds: number | null; groupDelaySeconds: number | null; groupDelayField: string | null };
+  const samplesOf = async (args: string[]) => {
+    const r = await run([...args, '--json']);
+    expect(r.status).toBe(0);
+    const j = JSON.parse(r.out);
+    return { j, by: (id: string) => j.satellites.find((s: { id: string }) => s.id === id).samples[0] as Sample };
+  };
+
+  it('tauline broadcast without --signal keeps the documented sample fields and CSV columns (iono-free Δt_sv alone)', async () => {
+    const { j } = await samplesOf([...at00, '--satellite', 'G05']);
+    expect(Object.keys(j.satellites[0].samples[0])).toEqual(['t', 'relativisticSeconds', 'clockCorrectionSeconds', 'toe', 'issueOfData', 'message']);
+    expect(j.signal).toBeUndefined();
+    expect((await run([...at00, '--satellite', 'G05', '--csv'])).out.split('\n')[0]).toBe('id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message');
+  });
+
+  it('tauline broadcast --signal L1CA | l1p | L2P gives Δt_sv − T_GD and Δt_sv − (77/60)²·T_GD with T_GD = −1e-8 s from the G05 record', async () => {
+    for (const [signal, factor] of [['L1CA', 1], ['l1p', 1], ['L2P', 5929 / 3600]] as const) {
+      const { j, by } = await samplesOf([...at00, '--satellite', 'G05', '--signal', signal]);
+      const s = by('G05');
+      expect(s.groupDelaySeconds).toBe(-1e-8);
+      expect(s.groupDelayField).toBe('TGD');
+      expect(Math.abs(s.clockCorrectionSignalSeconds! - (s.clockCorrectionSeconds + factor * 1e-8))).toBeLessThan(1e-19);
+      expect(j.signal).toBe(signal.toUpperCase());
+      expect(j.signalSource).toMatch(/IS-GPS-200 §20\.3\.3\.3\.3\.2 \[M\]/);
+      expect(j.units.clockCorrectionSignalSeconds).toBe('s');
+    }
+  });
+
+  it('tauline broadcast --signal E1 uses BGD(E1,E5b) = 1.4 ns from I/NAV and BGD(E1,E5a) = 1.2 ns with --galileo fnav; E5a and E5b scale by (154/115)² and (154/118)²', async () => {
+    const inav = (await samplesOf([...at00, '--satellite', 'E11', '--signal', 'E1'])).by('E11');
+    expect(inav).toMatchObject({ groupDelaySeconds: 1.4e-9, groupDelayField: 'BGD_E5b_E1' });
+    expect(Math.abs(inav.clockCorrectionSignalSeconds! - (inav.clockCorrectionSeconds - 1.4e-9))).toBeLessThan(1e-19);
+    const fnav = (await samplesOf([...at00, '--satellite', 'E11', '--signal', 'E1', '--galileo', 'fnav'])).by('E11');
+    expect(fnav).toMatchObject({ groupDelaySeconds: 1.2e-9, groupDelayField: 'BGD_E5a_E1' });
+    const e5a = (await samplesOf([...at00, '--satellite', 'E11', '--signal', 'e5a'])).by('E11');
+    expect(Math.abs(e5a.clockCorrectionSignalSeconds! - (e5a.clockCorrectionSeconds - (1575.42 / 1176.45) ** 2 * 1.2e-9))).toBeLessThan(1e-19);
+    const e5b = (await samplesOf([...at00, '--satellite', 'E11', '--signal', 'E5b'])).by('E11');
+    expect(Math.abs(e5b.clockCorrectionSignalSeconds! - (e5b.clockCorrectionSeconds - (1575.42 / 1207.14) ** 2 * 1.4e-9))).toBeLessThan(1e-19);
+  });
+
+  it('tauline broadcast --signal B1I | B2I subtracts TGD1 = 2.4 ns | TGD2 = −1.3 ns; iono-free gives Δt_sv with a B3I note for BeiDou', async () => {
+    const b1 = (await samplesOf([...at00, '--satellite', 'C08', '--signal', 'B1I'])).by('C08');
+    expect(b1.groupDelayField).toBe('TGD1');
+    expect(Math.abs(b1.clockCorrectionSignalSeconds! - (b1.clockCorrectionSeconds - 2.4e-9))).toBeLessThan(1e-19);
+    const b2 = (await samplesOf([...at00, '--satellite', 'C08', '--signal', 'B2I'])).by('C08');
+    expect(Math.abs(b2.clockCorrectionSignalSeconds! - (b2.clockCorrectionSeconds + 1.3e-9))).toBeLessThan(1e-19);
+    const free = await samplesOf([...at00, '--satellite', 'C08,G05', '--signal', 'iono-free']);
+    for (const id of ['C08', 'G05']) {
+      expect(free.by(id).clockCorrectionSignalSeconds).toBe(free.by(id).clockCorrectionSeconds);
+      expect(free.by(id).groupDelaySeconds).toBeNull();
+    }
+    expect(free.j.notes.join('\n')).toMatch(/C08: BeiDou D1\/D2 clock parameters refer to B3I/);
+  });
+
+  it('tauline broadcast --signal L1CA gives null with a note for Galileo and BeiDou satellites, and null for samples without a record', async () => {
+    const r = await samplesOf([...at00, '--satellite', 'E11,G05,G13', '--signal', 'L1CA']);
+    expect(r.by('E11').clockCorrectionSignalSeconds).toBeNull();
+    expect(r.by('G13')).toMatchObject({ clockCorrectionSignalSeconds: null, groupDelaySeconds: null, groupDelayField: null });
+    expect(r.j.notes).toContain('Galileo satellites: L1CA is not one of their signals (E1, E5a, E5b, iono-free): clockCorrectionSignalSeconds is null');
+  });
+
+  it('tauline broadcast --signal adds CSV columns and table columns with the same values as JSON', async () => {
+    const args = [...at00, '--satellite', 'G05', '--signal', 'L2P'];
+    const s = (await samplesOf(args)).by('G05');
+    const csv = (await run([...args, '--csv'])).out.trim().split('\n');
+    expect(csv[0]).toBe('id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message,clockCorrectionSignalSeconds,groupDelaySeconds,groupDelayField');
+    expect(csv[1]!.endsWith(`,LNAV,${s.clockCorrectionSignalSeconds},-1e-8,TGD`)).toBe(true);
+    const text = (await run(args)).out;
+    expect(text).toMatch(/Δt_sv L2P \(s\)\s+group delay \(ns\)/);
+    expect(text).toContain(s.clockCorrectionSignalSeconds!.toExponential(12));
+    expect(text).toContain('-10.0000 TGD');
+  });
+
+  it('tauline broadcast --signal rejects an unknown signal, E5b from an F/NAV record and a record without T_GD (naming file, line and field)', async () => {
+    const bad = await run([...at00, '--signal', 'L5']);
+    expect(bad.status).toBe(2);
+    expect(bad.err).toMatch(/--signal must be one of L1CA, L1P, L2P, E1, E5a, E5b, B1I, B2I, B3I, iono-free; received "L5"/);
+    const fnav = await run([...at00, '--satellite', 'E11', '--galileo', 'fnav', '--signal', 'E5b']);
+    expect(fnav.status).toBe(2);
+    expect(fnav.err).toMatch(/mixed-v305\.rnx:\d+: E11 groupDelays\.BGD_E5b_E1 must be a BGD\(E1,E5b\) from an I\/NAV record/);
+    const tmp = mkdtempSync(join(tmpdir(), 'tauline-broadcast-'));
+    const noTgd = join(tmp, 'no-tgd.rnx');
+    const lines = readFileSync(NAV3, 'utf8').split('\n');
+    // Line 14 is the first G05 record's sixth orbit line: SV accuracy, health, T_GD, IODC; blank T_GD.
+    lines[13] = lines[13]!.replace('-.100000000000D-07', ' '.repeat(18));
+    writeFileSync(noTgd, lines.join('\n'));
+    const missing = await run(['broadcast', noTgd, '--from', '2024-01-07T00:00:00', '--to', '2024-01-07T00:00:00', '--step', '60', '--satellite', 'G05', '--signal', 'L1CA']);
+    expect(missing.status).toBe(2);
+    expect(missing.err).toContain(`${noTgd}:8: G05 groupDelays.TGD must be the broadcast TGD in seconds (needed for L1CA); received nothing (the field is missing). --signal L1CA`);
+    // The same file without --signal still works: the group delay is needed only for a signal.
+    expect((await run(['broadcast', noTgd, '--from', '2024-01-07T00:00:00', '--to', '2024-01-07T00:00:00', '--step', '60', '--satellite', 'G05'])).status).toBe(0);
+  });
+
+  it('tauline broadcast --help documents --signal, the formulas and the added fields', async () => {
+    const help = (await run(['broadcast', '--help'])).out;
+    expect(help).toMatch(/--signal <name>/);
+    expect(help).toMatch(/L2P: Δt_sv − γ T_GD, γ = \(77\/60\)²/);
+    expect(help).toMatch(/clockCorrectionSignalSeconds/);
+    expect(help).toMatch(/iono-free: Δt_sv with no group delay/);
+  });
+});
+

@@ -5,7 +5,8 @@
 import { createReadStream, statSync } from 'node:fs';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import {
-  evaluateBroadcastEphemeris, selectEphemeris, type KeplerianBroadcastEphemeris, type KeplerianSystem,
+  BROADCAST_SIGNALS, evaluateBroadcastEphemeris, selectEphemeris, signalClockCorrection, signalClockSource, signalsOf, type BroadcastSignal,
+  type KeplerianBroadcastEphemeris, type KeplerianSystem,
 } from '@tauline/sdk/orbit';
 import {
   readRinexNav, fieldsFromScaleSeconds, formatEpochFields, scaleSecondsFromFields, type RinexNavEphemeris,
@@ -152,10 +153,24 @@ function parseTimeFlag(ts: TimeScales, flag: string, text: string, utc: boolean)
   }
 }
 
+/** Reads `--signal <name>` (case-insensitive), or undefined when not given (the iono-free Δt_sv alone, as before). */
+export function signalFlag(args: ParsedArgs): BroadcastSignal | undefined {
+  const text = optionalFlag(args, 'signal');
+  if (text === undefined) return undefined;
+  const found = BROADCAST_SIGNALS.find((s) => s.toLowerCase() === text.trim().toLowerCase());
+  if (!found) throw new InvalidArgumentError('--signal', text, `one of ${BROADCAST_SIGNALS.join(', ')}`);
+  return found;
+}
+
+const SYSTEM_NAME: Record<KeplerianSystem, string> = { G: 'GPS', E: 'Galileo', C: 'BeiDou' };
+
 interface SampleOut {
   t: string;
   relativisticSeconds: number | null;
   clockCorrectionSeconds: number | null;
+  clockCorrectionSignalSeconds?: number | null;
+  groupDelaySeconds?: number | null;
+  groupDelayField?: string | null;
   toe?: string;
   issueOfData?: number;
   message?: string;
@@ -165,7 +180,7 @@ interface SampleOut {
 export const broadcastCommand: Command = {
   name: 'broadcast',
   summary: 'Relativistic correction F·e·√A·sin E_k and full clock correction from RINEX navigation files (GPS, Galileo, BeiDou).',
-  usage: '<rinex-nav-file>... --from <ISO 8601> --to <ISO 8601> --step <s> [--satellite G01,...] [--time-scale system|utc] [--galileo inav|fnav] [--include-unhealthy] [--json | --csv | --format table|json|csv]',
+  usage: '<rinex-nav-file>... --from <ISO 8601> --to <ISO 8601> --step <s> [--satellite G01,...] [--signal <name>] [--time-scale system|utc] [--galileo inav|fnav] [--include-unhealthy] [--json | --csv | --format table|json|csv]',
   allowPositionals: true,
   flags: {
     from: { type: 'string', value: '<ISO 8601>', description: 'First sample time, e.g. 2024-01-07T00:00:00 (each system\'s own scale unless --time-scale utc).' },
@@ -174,10 +189,11 @@ export const broadcastCommand: Command = {
     satellite: { type: 'string', value: '<ids>', description: 'Comma-separated satellites, e.g. G05,E11,C08 (default: every modelled satellite in the files).' },
     'time-scale': { type: 'string', value: '<scale>', description: 'system (default: GPST for GPS, GST for Galileo, BDT for BeiDou) or utc (times with Z; converted with the bundled leap-second table).' },
     galileo: { type: 'string', value: '<msg>', description: 'Galileo message to prefer: inav (default) or fnav.' },
+    signal: { type: 'string', value: '<name>', description: `Also give the single-frequency clock correction of one signal: ${BROADCAST_SIGNALS.join(', ')} (case-insensitive; default: iono-free, Δt_sv alone, no extra fields).` },
     'include-unhealthy': { type: 'boolean', description: 'Also use records whose health word is non-zero.' },
     ...formatFlags(TABLE_JSON_CSV, {
       json: 'Print one JSON object (same as --format json).',
-      csv: 'Print CSV rows (id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message); the caution goes to stderr.',
+      csv: 'Print CSV rows (id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message; with --signal also clockCorrectionSignalSeconds,groupDelaySeconds,groupDelayField); the caution goes to stderr.',
     }),
   },
   details: `
@@ -191,6 +207,16 @@ Table 20-IV [M]; Galileo OS SIS ICD; BDS-SIS-ICD, each with its own GM, Ω_E and
 Times are read in each system's own scale (GPST, GST, BDT) unless --time-scale utc. A sample with no valid record
 has null values and a reason. JSON: { satellites: [{ id, timeScale, samples: [{ t, relativisticSeconds,
 clockCorrectionSeconds, toe, issueOfData, message }] }], skipped, notes, units, caution }. Seconds are SI seconds.
+--signal <name> adds, per sample, clockCorrectionSignalSeconds, groupDelaySeconds (as broadcast) and groupDelayField
+(JSON: also signal and signalSource at the top; CSV: three columns at the end; table: two columns):
+  GPS (IS-GPS-200 §20.3.3.3.3.2 [M]):  L1CA, L1P: Δt_sv − T_GD;  L2P: Δt_sv − γ T_GD, γ = (77/60)².
+  Galileo (OS SIS ICD §5.1.5 [M]):     E1: Δt − BGD(E1,E5b) from I/NAV records, Δt − BGD(E1,E5a) from F/NAV records;
+                                       E5a: Δt − (f_E1/f_E5a)² BGD(E1,E5a);  E5b: Δt − (f_E1/f_E5b)² BGD(E1,E5b) (I/NAV only).
+  BeiDou (BDS-SIS-ICD [M]):            B1I: Δt − TGD1;  B2I: Δt − TGD2;  B3I: Δt (the clock's reference signal).
+  iono-free: Δt_sv with no group delay, the dual-frequency user's value (GPS L1/L2 P(Y), Galileo I/NAV E1/E5b,
+  F/NAV E1/E5a). BeiDou's Δt_sv refers to B3I, so for BeiDou this is the B3I value, not an ionosphere-free one.
+A signal of another system than the satellite's gives null with a note; a record without the group delay needed
+is an error naming the file, line and field.
 Exit status: 0 success (also when some samples have no record), 1 no sample at all has a valid record (the output
 is still printed, every value null), 2 invalid input or a malformed file.`,
   async run(args, io) {
@@ -207,6 +233,7 @@ is still printed, every value null), 2 invalid input or a malformed file.`,
     const galileoMessage = galileoText === 'inav' ? 'INAV' : 'FNAV';
     const includeUnhealthy = Boolean(args.values['include-unhealthy']);
     const filter = satelliteFlag(args);
+    const signal = signalFlag(args);
     const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
     const fromValue = parseTimeFlag(ts, 'from', requireFlag(args, 'from'), utc);
     const toValue = parseTimeFlag(ts, 'to', requireFlag(args, 'to'), utc);
@@ -257,8 +284,15 @@ is still printed, every value null), 2 invalid input or a malformed file.`,
         const ev = evaluateBroadcastEphemeris(eph, t);
         samples.push({
           t: label(k), relativisticSeconds: ev.relativisticSeconds, clockCorrectionSeconds: ev.clockCorrectionSeconds,
+          ...(signal ? signalFields(rec, ev.clockCorrectionSeconds, signal, notes) : {}),
           toe: formatEpochFields(fieldsFromScaleSeconds(eph.toeSeconds)), issueOfData: eph.issueOfData, message: eph.message,
         });
+      }
+      if (signal) {
+        // Samples without a record carry the signal fields too (null), so every sample has the same keys.
+        for (const x of samples) {
+          if (x.clockCorrectionSignalSeconds === undefined) Object.assign(x, { clockCorrectionSignalSeconds: null, groupDelaySeconds: null, groupDelayField: null });
+        }
       }
       out.push({ id, timeScale: utc ? 'UTC' : modelled ? SYSTEM_SCALE_LABEL[system] : 'unknown', samples });
     }
@@ -275,21 +309,26 @@ is still printed, every value null), 2 invalid input or a malformed file.`,
         step,
         selection: 'nearest t_oe among healthy records whose fit interval covers t (ties: t_oe ≤ t, latest transmission, highest issue of data)',
         galileoMessage,
+        ...(signal ? { signal, signalSource: signalClockSource(signal) } : {}),
         satellites: out,
         samplesWithoutRecord,
         recordsOutsideWindow: nav.outsideWindow,
         skipped,
         notes: [...notes],
-        units: { step: 's', t: 'ISO 8601 in timeScale', relativisticSeconds: 's', clockCorrectionSeconds: 's', toe: 'ISO 8601 in the system scale' },
+        units: {
+          step: 's', t: 'ISO 8601 in timeScale', relativisticSeconds: 's', clockCorrectionSeconds: 's', toe: 'ISO 8601 in the system scale',
+          ...(signal ? { clockCorrectionSignalSeconds: 's', groupDelaySeconds: 's' } : {}),
+        },
         caution: FLIGHT_CAUTION,
       }));
       return status;
     }
     if (format === 'csv') {
-      io.out('id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message\n');
+      io.out(`id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message${signal ? ',clockCorrectionSignalSeconds,groupDelaySeconds,groupDelayField' : ''}\n`);
       for (const s of out) {
         for (const x of s.samples) {
-          io.out(`${s.id},${x.t},${x.relativisticSeconds ?? ''},${x.clockCorrectionSeconds ?? ''},${x.toe ?? ''},${x.issueOfData ?? ''},${x.message ?? ''}\n`);
+          io.out(`${s.id},${x.t},${x.relativisticSeconds ?? ''},${x.clockCorrectionSeconds ?? ''},${x.toe ?? ''},${x.issueOfData ?? ''},${x.message ?? ''}` +
+            (signal ? `,${x.clockCorrectionSignalSeconds ?? ''},${x.groupDelaySeconds ?? ''},${x.groupDelayField ?? ''}` : '') + '\n');
         }
       }
       io.err(`${FLIGHT_CAUTION}\n`);
@@ -299,11 +338,17 @@ is still printed, every value null), 2 invalid input or a malformed file.`,
     const rows: (string | number)[][] = [];
     for (const s of out) {
       for (const x of s.samples) {
-        rows.push([s.id, x.t, x.relativisticSeconds === null ? '—' : (x.relativisticSeconds * 1e9).toFixed(4),
-          x.clockCorrectionSeconds === null ? '—' : x.clockCorrectionSeconds.toExponential(12), x.toe ?? (x.reason ?? ''), x.message ?? '']);
+        const row: (string | number)[] = [s.id, x.t, x.relativisticSeconds === null ? '—' : (x.relativisticSeconds * 1e9).toFixed(4),
+          x.clockCorrectionSeconds === null ? '—' : x.clockCorrectionSeconds.toExponential(12)];
+        if (signal) {
+          row.push(x.clockCorrectionSignalSeconds == null ? '—' : x.clockCorrectionSignalSeconds.toExponential(12),
+            x.groupDelaySeconds == null ? '—' : `${(x.groupDelaySeconds * 1e9).toFixed(4)} ${x.groupDelayField}`);
+        }
+        row.push(x.toe ?? (x.reason ?? ''), x.message ?? '');
+        rows.push(row);
       }
     }
-    io.out(table(['sat', 't', 'Δt_r (ns)', 'Δt_sv (s)', 't_oe', 'message'], rows));
+    io.out(table(['sat', 't', 'Δt_r (ns)', 'Δt_sv (s)', ...(signal ? [`Δt_sv ${signal} (s)`, 'group delay (ns)'] : []), 't_oe', 'message'], rows));
     if (samplesWithoutRecord > 0) io.out(`\n${samplesWithoutRecord} sample(s) without a valid record (shown as —).\n`);
     if (skipped.length > 0) io.out(`\nSkipped records:\n${skipped.map((s) => `  ${s.count} × ${s.reason}`).join('\n')}\n`);
     if (notes.size > 0) io.out(`\nNotes:\n${[...notes].map((n) => `  ${n}`).join('\n')}\n`);
@@ -311,3 +356,26 @@ is still printed, every value null), 2 invalid input or a malformed file.`,
     return status;
   },
 };
+
+/**
+ * The --signal fields of one sample: the SDK's single-frequency correction, or null with a note when the
+ * signal belongs to another system. A record without the group delay needed is an error naming file and line.
+ */
+function signalFields(rec: RinexNavEphemeris, clockCorrectionSeconds: number, signal: BroadcastSignal, notes: Set<string>):
+  Pick<SampleOut, 'clockCorrectionSignalSeconds' | 'groupDelaySeconds' | 'groupDelayField'> {
+  if (!signalsOf(rec.system).includes(signal)) {
+    notes.add(`${SYSTEM_NAME[rec.system]} satellites: ${signal} is not one of their signals (${signalsOf(rec.system).join(', ')}): clockCorrectionSignalSeconds is null`);
+    return { clockCorrectionSignalSeconds: null, groupDelaySeconds: null, groupDelayField: null };
+  }
+  try {
+    const r = signalClockCorrection(rec, clockCorrectionSeconds, signal);
+    if (r.note) notes.add(`${rec.satellite}: ${r.note}`);
+    return { clockCorrectionSignalSeconds: r.clockCorrectionSeconds, groupDelaySeconds: r.groupDelaySeconds, groupDelayField: r.groupDelayField };
+  } catch (error) {
+    if (error instanceof InvalidArgumentError) {
+      throw new InvalidArgumentError(`${rec.sourceName}:${rec.line}: ${rec.satellite} ${error.argument.replace(/^ephemeris\./, '')}`,
+        error.received, error.expected, `--signal ${signal}${error.hint ? `; ${error.hint}` : ''}`);
+    }
+    throw error;
+  }
+}

@@ -15,7 +15,7 @@ export {
 } from './broadcast.js';
 export {
   type BroadcastSignal, type GroupDelayField, type SignalClockCorrection, BROADCAST_SIGNALS, GPS_GAMMA_L1_L2,
-  GALILEO_GAMMA_E1_E5A, GALILEO_GAMMA_E1_E5B, isBroadcastSignal, signalClockCorrection, signalsOf,
+  GALILEO_GAMMA_E1_E5A, GALILEO_GAMMA_E1_E5B, isBroadcastSignal, signalClockCorrection, signalClockSource, signalsOf,
 } from './signal-clock.js';
 export { type OdeRightHandSide, type Dop853Options, type Dop853Result, integrateDop853 } from './integrator.js';
 export {

@@ -189,6 +189,16 @@ export function signalClockCorrection(ephemeris: KeplerianBroadcastEphemeris, cl
   };
 }
 
+/**
+ * The formula of a signal's clock correction and its published source, with the provenance tag
+ * (the same text as {@link SignalClockCorrection.source}).
+ * @throws {InvalidArgumentError} for an unknown signal.
+ */
+export function signalClockSource(signal: BroadcastSignal): string {
+  if (!isBroadcastSignal(signal)) throw new InvalidArgumentError('signal', signal, `one of ${BROADCAST_SIGNALS.join(', ')}`);
+  return RULES[signal].source;
+}
+
 /** The signals accepted for a system's records, `iono-free` included. */
 export function signalsOf(system: KeplerianSystem): BroadcastSignal[] {
   return BROADCAST_SIGNALS.filter((s) => RULES[s].system === system || RULES[s].system === 'any');

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import {
   BROADCAST_SIGNALS, GALILEO_GAMMA_E1_E5A, GALILEO_GAMMA_E1_E5B, GPS_GAMMA_L1_L2, isBroadcastSignal, signalClockCorrection,
-  signalsOf, type BroadcastSignal,
+  signalClockSource, signalsOf, type BroadcastSignal,
 } from '../../src/orbit/signal-clock.js';
 import { evaluateBroadcastEphemeris, type KeplerianBroadcastEphemeris } from '../../src/orbit/broadcast.js';
 import { parseRinexNav } from '../../src/io/rinex-nav.js';
@@ -90,6 +90,12 @@ describe('signalClockCorrection on the fixture records (test/fixtures/rinex-nav/
     for (const s of BROADCAST_SIGNALS) expect(isBroadcastSignal(s)).toBe(true);
     expect(isBroadcastSignal('l1ca')).toBe(false);
     expect(isBroadcastSignal(3)).toBe(false);
+  });
+
+  it('signalClockSource(signal) names the formula with its source and tag, as signalClockCorrection(...).source does', () => {
+    expect(signalClockSource('L2P')).toMatch(/IS-GPS-200 §20\.3\.3\.3\.3\.2 \[M\].*γ = \(77\/60\)²/);
+    expect(signalClockSource('E1')).toBe(signalClockCorrection(record('E11', 'INAV'), 1e-4, 'E1').source);
+    expect(() => signalClockSource('X' as BroadcastSignal)).toThrow(/signal must be one of/);
   });
 });
 
