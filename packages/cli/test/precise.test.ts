@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
+import { main } from '../src/main.js';
 import { runCli as run } from './run.js';
 
 const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
@@ -60,6 +61,24 @@ describe('tauline precise', () => {
     expect(csv[0]).toBe('id,t,relativisticSeconds,velocitySource,broadcastRelativisticSeconds,differenceSeconds');
     expect(csv).toHaveLength(1 + 12);
     expect(csv.find((l) => l.startsWith('E11,2024-01-07T00:30:00'))).toBe('E11,2024-01-07T00:30:00,,gap: position missing (bad/absent marker 0.000000),,');
+  });
+
+  it('tauline precise --csv writes the same bytes as before rows were collected per epoch (golden files, test/fixtures/precise-csv/SOURCE.md), with one write per epoch at most', async () => {
+    const golden = (name: string) => readFileSync(join(ROOT, 'test/fixtures/precise-csv', name), 'utf8');
+    const cases: [string, string[], number][] = [
+      ['orbit-d-p.csv', [P, '--csv'], 13],
+      ['orbit-c-pv-nav.csv', [PV, '--csv', '--nav', NAV3], 4],
+      ['orbit-d-p-5-nav.csv', [P, '--csv', '--lagrange-points', '5', '--nav', NAV3], 13],
+    ];
+    for (const [name, args, epochs] of cases) {
+      const writes: string[] = [];
+      const status = await main(['precise', ...args], { out: (t) => { writes.push(t); }, err: () => {}, isTty: false });
+      expect(status).toBe(0);
+      expect(writes.join('')).toBe(golden(name));
+      // The header, then at most one write per epoch and one for the end of the file.
+      expect(writes.length).toBeLessThanOrEqual(1 + epochs + 1);
+      expect(writes.every((w) => w.endsWith('\n'))).toBe(true);
+    }
   });
 
   it('tauline precise rejects bad arguments and reports a truncated file with its line', async () => {

@@ -113,11 +113,14 @@ Exit status: 0 success, 2 invalid input or a malformed file.`,
     if (format === 'csv') {
       io.out(`id,t,relativisticSeconds,velocitySource${nav ? ',broadcastRelativisticSeconds,differenceSeconds' : ''}\n`);
     }
+    // CSV rows of one call (one epoch's results) are collected and written at once: one write per row cost
+    // about a quarter of the run time on long files.
     const handle = (results: PreciseCorrectionResult[]) => {
+      let csv = '';
       for (const r of results) {
         if (r.kind === 'gap') {
           const g = { t: formatEpochFields(r.gap.time), reason: r.gap.reason };
-          if (format === 'csv') io.out(`${r.gap.satellite},${g.t},,gap: ${g.reason.replace(/,/g, ';')}${nav ? ',,' : ''}\n`);
+          if (format === 'csv') csv += `${r.gap.satellite},${g.t},,gap: ${g.reason.replace(/,/g, ';')}${nav ? ',,' : ''}\n`;
           else entry(r.gap.satellite).gaps.push(g);
           continue;
         }
@@ -136,12 +139,13 @@ Exit status: 0 success, 2 invalid input or a malformed file.`,
           o.differenceSeconds = broadcast === null ? null : s.relativisticSeconds - broadcast;
         }
         if (format === 'csv') {
-          io.out(`${s.satellite},${o.t},${o.relativisticSeconds},${o.velocitySource}` +
-            (nav ? `,${o.broadcastRelativisticSeconds ?? ''},${o.differenceSeconds ?? ''}` : '') + '\n');
+          csv += `${s.satellite},${o.t},${o.relativisticSeconds},${o.velocitySource}` +
+            (nav ? `,${o.broadcastRelativisticSeconds ?? ''},${o.differenceSeconds ?? ''}` : '') + '\n';
         } else {
           entry(s.satellite).samples.push(o);
         }
       }
+      if (csv !== '') io.out(csv);
     };
     try {
       for (;;) {

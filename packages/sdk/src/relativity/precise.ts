@@ -41,17 +41,41 @@ export function lagrangeDerivativeAtNode(times: ArrayLike<number>, values: Array
     throw new InvalidArgumentError('times', n, `at least 2 nodes and as many values (${values.length})`);
   }
   requireInteger('index', index, 0, n - 1);
+  return applyDerivativeRow(derivativeRow(times, index), values, index);
+}
+
+/**
+ * Row `index` of the differentiation matrix of the Lagrange polynomial through `times`: D_ij for
+ * j ≠ i (the entry at `index` holds D_ii = −Σ_{j≠i} D_ij). Depends on the abscissae only, so one
+ * row serves every coordinate. Berrut & Trefethen (2004) §9 [M]. Callers have validated n and index.
+ */
+function derivativeRow(times: ArrayLike<number>, index: number): Float64Array {
+  const n = times.length;
   const lambda = barycentricWeights(times);
   const xi = times[index]!;
-  let d = 0;
+  const row = new Float64Array(n);
   let diag = 0;
   for (let j = 0; j < n; j++) {
     if (j === index) continue;
     const dij = lambda[j]! / lambda[index]! / (xi - times[j]!);
-    d += dij * values[j]!;
+    row[j] = dij;
     diag -= dij;
   }
-  return d + diag * values[index]!;
+  row[index] = diag;
+  return row;
+}
+
+/**
+ * P'(x_i) = Σ_{j≠i} D_ij y_j + D_ii y_i, summed in the same order as the one-coordinate form always
+ * used (j ascending, the diagonal term last), so the result is the same double.
+ */
+function applyDerivativeRow(row: Float64Array, values: ArrayLike<number>, index: number): number {
+  let d = 0;
+  for (let j = 0; j < row.length; j++) {
+    if (j === index) continue;
+    d += row[j]! * values[j]!;
+  }
+  return d + row[index]! * values[index]!;
 }
 
 /**
@@ -268,7 +292,9 @@ export class PreciseCorrectionStream {
       } else {
         const times = window.map((n) => n.t - target.t);
         const i = times.indexOf(0);
-        const v: Vector3 = [0, 1, 2].map((c) => lagrangeDerivativeAtNode(times, window.map((n) => n.p[c]!), i)) as unknown as Vector3;
+        // One differentiation row (barycentric weights included) for x, y and z: it depends on the times only.
+        const row = derivativeRow(times, i);
+        const v: Vector3 = [0, 1, 2].map((c) => applyDerivativeRow(row, window.map((n) => n.p[c]!), i)) as unknown as Vector3;
         out.push(this._sample(sat, target, v, 'lagrange'));
       }
       queue.shift();

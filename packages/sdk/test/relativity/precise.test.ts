@@ -8,6 +8,7 @@ import {
 import { parseSp3, readSp3, type Sp3Epoch } from '../../src/io/sp3.js';
 import { solveKepler } from '../../src/orbit/kepler.js';
 import { GPS_ICD, SPEED_OF_LIGHT } from '../../src/constants.js';
+import { periodicCorrectionFromState } from '../../src/relativity/periodic.js';
 import { InvalidArgumentError } from '../../src/errors.js';
 
 const P_TEXT = readFileSync(new URL('../../../../test/fixtures/sp3/orbit-d-p.sp3', import.meta.url), 'utf8');
@@ -84,6 +85,25 @@ describe('PreciseCorrectionStream: SP3 positions only (Lagrange velocities) agai
     expect(centred).toBeLessThan(5e-15);
     expect(ends).toBeLessThan(5e-13);
   });
+  it('PreciseCorrectionStream(...) gives, to ≤ 1e-18 s (in fact the same double), what lagrangeDerivativeAtNode per coordinate gives on the same 9-node window (one weight row shared by x, y, z)', () => {
+    // Independent route: the public one-coordinate derivative, called separately for x, y and z as the stream once did.
+    let compared = 0;
+    for (const r of results) {
+      if (r.kind !== 'sample' || r.sample.satellite !== 'G30') continue;
+      const k = Math.round((r.sample.scaleSeconds - t0) / 900);
+      if (k < 4 || k > 8) continue; // centred windows: nodes k − 4 .. k + 4, all valid for G30
+      const window = file.epochs.slice(k - 4, k + 5);
+      const times = window.map((e) => e.scaleSeconds - r.sample.scaleSeconds);
+      const pos = window.map((e) => e.records.find((x) => x.satellite === 'G30')!.position!);
+      const velocity = [0, 1, 2].map((c) => lagrangeDerivativeAtNode(times, pos.map((p) => p[c]!), 4)) as [number, number, number];
+      const expected = periodicCorrectionFromState({ position: pos[4]!, velocity });
+      expect(Math.abs(r.sample.relativisticSeconds - expected)).toBeLessThanOrEqual(1e-18);
+      expect(r.sample.relativisticSeconds).toBe(expected);
+      compared++;
+    }
+    expect(compared).toBe(5);
+  });
+
   it('PreciseCorrectionStream(...) reports the bad-value position of G31 at 01:30 as a gap, and still serves its neighbours', () => {
     const gaps = results.filter((r) => r.kind === 'gap').map((r) => r.gap);
     expect(gaps).toHaveLength(1);
