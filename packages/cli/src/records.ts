@@ -53,7 +53,8 @@ export interface ClockRecord {
  * Reads the record named by exactly one of the input flags of {@link recordFlags}.
  * @param kinds  The text kinds the command accepts.
  * @param tau0   `--tau0`, in seconds: imposes the sample spacing (required for one-column files).
- * @throws {UsageError} for no input or several, `--rinex-clock` without `--clock`, a directory, a
+ * @throws {UsageError} for no input or several, `--rinex-clock` without `--clock` (or `--clock` without
+ *   `--rinex-clock`), a directory, a
  *   one-column file without `--tau0`, or a RINEX clock with a single epoch.
  * @throws {ParseError} from the SDK readers, with file and line.
  */
@@ -63,6 +64,9 @@ export async function readClockRecord(args: ParsedArgs, kinds: readonly RecordKi
   const inputs = [...kinds.map((kind) => `--${kind} <file>`), '--rinex-clock <file> --clock <name>'];
   if ([...texts.map((t) => t.file), rinexFile].filter((f) => f !== undefined).length !== 1) {
     throw new UsageError(`give exactly one input: ${inputs.slice(0, -1).join(', ')} or ${inputs[inputs.length - 1]}`);
+  }
+  if (rinexFile === undefined && optionalFlag(args, 'clock') !== undefined) {
+    throw new UsageError('--clock names a clock of a RINEX clock file: give it with --rinex-clock <file>, or leave it out');
   }
   const tau0Option = tau0 === undefined ? {} : { tau0 };
   if (rinexFile !== undefined) {

@@ -1,8 +1,9 @@
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { simulateClock } from '@tauline/sdk/clock-model';
 import { describe, expect, it } from 'vitest';
 import { runCli as run } from './run.js';
 
@@ -107,5 +108,84 @@ describe('tauline clock on a record too short to characterise', () => {
     expect(r.status).toBe(2);
     expect(r.err.trim().split('\n')).toHaveLength(1);
     expect(r.err).toMatch(/--phase .*short\.txt has 9 phase samples; the clock model needs at least 12/);
+  });
+});
+
+describe('tauline clock --rinex-clock <file> --clock <name>', () => {
+  const LONG = join(ROOT, 'test/fixtures/rinex-clock/long-304.clk');
+  /** True values of long-304.clk (test/fixtures/rinex-clock/SOURCE.md and generate-long.mjs). */
+  const LONG_TRUTH = { af0: 2.345e-5, af1: -3.7e-12, q1: 1e-23, q2: 1e-31, measurementNoise: 30e-12, seed: 20261202, epochs: 400, tau0: 300, missingIndex: 150 };
+  /** GPS seconds since 1980-01-06T00:00:00 by calendar arithmetic (GPS time has no leap seconds; IS-GPS-200 §3.3.4 [M]). */
+  const gpsSeconds = (iso: string): number => (Date.parse(`${iso}Z`) - Date.parse('1980-01-06T00:00:00Z')) / 1000;
+
+  it('long-304.clk holds the G37 biases of simulateClock with the stated seed and true values, to the 12 digits written, without sample 150 (generator check, SOURCE.md)', () => {
+    const sim = simulateClock({
+      samples: LONG_TRUTH.epochs, tau0: LONG_TRUTH.tau0, q: { q1: LONG_TRUTH.q1, q2: LONG_TRUTH.q2 }, seed: LONG_TRUTH.seed,
+      measurementNoise: LONG_TRUTH.measurementNoise, initial: { phase: LONG_TRUTH.af0, frequency: LONG_TRUTH.af1 },
+    });
+    const rows = readFileSync(LONG, 'utf8').split('\n').filter((l) => l.startsWith('AS G37 '));
+    expect(rows).toHaveLength(LONG_TRUTH.epochs - 1);
+    const start = gpsSeconds('2026-02-02T00:00:00');
+    for (const row of rows) {
+      const f = row.trim().split(/\s+/);
+      const t = gpsSeconds(`${f[2]}-${f[3]}-${f[4]}T${f[5]}:${f[6]}:00`) + Number(f[7]);
+      const k = (t - start) / LONG_TRUTH.tau0;
+      expect(k).not.toBe(LONG_TRUTH.missingIndex);
+      expect(Math.abs(Number(f[9]) - (sim.phase[k] as number))).toBeLessThanOrEqual(5e-12 * Math.abs(sim.phase[k] as number));
+    }
+  });
+
+  it('tauline clock --rinex-clock long-304.clk --clock G37 --tau0 300 --json recovers the true af1 within 3× its stated 1σ, names the clock and reports the missing epoch (true values: SOURCE.md)', async () => {
+    const r = await run(['clock', '--rinex-clock', LONG, '--clock', 'G37', '--tau0', '300', '--json']);
+    expect(r.status).toBe(0);
+    expect(r.err).toBe('');
+    const j = JSON.parse(r.out);
+    expect(j.input).toMatchObject({ file: LONG, clock: 'G37', timeSystem: 'GPS', samples: 400, tau0: 300, firstEpoch: gpsSeconds('2026-02-02T00:00:00'), lastEpoch: gpsSeconds('2026-02-03T09:15:00') });
+    expect(j.input.gaps).toEqual([{ index: 150, missing: 1, line: 162, time: gpsSeconds('2026-02-02T12:30:00') }]);
+    expect(j.polynomial.samplesUsed).toBe(399);
+    expect(j.polynomial.referenceTime).toBe(gpsSeconds('2026-02-02T00:00:00'));
+    const af1 = j.polynomial.coefficients[1];
+    expect(af1.name).toBe('af1');
+    expect(Math.abs(af1.value - LONG_TRUTH.af1)).toBeLessThan(3 * af1.std);
+    const af0 = j.polynomial.coefficients[0];
+    expect(Math.abs(af0.value - LONG_TRUTH.af0)).toBeLessThan(3 * af0.std);
+    // The missing epoch is a skipped update, not an outlier or a jump.
+    expect(j.filter.jumps).toEqual([]);
+    expect(j.filter.rejected).toEqual([]);
+  });
+
+  it('tauline clock --rinex-clock long-304.clk --clock G37 (table) names the clock and prints the gap with its index, epoch and line', async () => {
+    const r = await run(['clock', '--rinex-clock', LONG, '--clock', 'G37']);
+    expect(r.status).toBe(0);
+    expect(r.out).toMatch(/^clock record .*long-304\.clk \(clock G37, GPS time\): 400 samples, τ0 = 300 s, .* 1 missing in 1 gap\(s\)$/m);
+    const gap = /^ {2}gap: 1 missing sample\(s\) from index 150 \(t = (\S+) s\), line 162$/m.exec(r.out);
+    expect(gap).not.toBeNull();
+    expect(Number(gap![1])).toBe(gpsSeconds('2026-02-02T12:30:00'));
+  });
+
+  it('tauline clock --rinex-clock with an unknown --clock exits 2 with one line listing the clocks in the file', async () => {
+    const r = await run(['clock', '--rinex-clock', LONG, '--clock', 'G99']);
+    expect(r.status).toBe(2);
+    expect(r.out).toBe('');
+    expect(r.err.trim().split('\n')).toHaveLength(1);
+    expect(r.err).toMatch(/long-304\.clk.*"G99".*clocks present: ORVA00XYZ, G37/);
+  });
+
+  it('tauline clock --rinex-clock without --clock exits 2 with one line asking for --clock', async () => {
+    const r = await run(['clock', '--rinex-clock', LONG, '--tau0', '300']);
+    expect(r.status).toBe(2);
+    expect(r.out).toBe('');
+    expect(r.err.trim().split('\n')).toHaveLength(1);
+    expect(r.err).toMatch(/--rinex-clock needs --clock <name>/);
+  });
+
+  it('tauline clock and tauline stability refuse --clock without --rinex-clock (exit 2, one line) instead of ignoring it', async () => {
+    for (const command of ['clock', 'stability']) {
+      const r = await run([command, '--phase', EXAMPLE, '--clock', 'G37']);
+      expect(r.status).toBe(2);
+      expect(r.out).toBe('');
+      expect(r.err.trim().split('\n')).toHaveLength(1);
+      expect(r.err).toMatch(/--clock names a clock of a RINEX clock file: give it with --rinex-clock <file>/);
+    }
   });
 });

@@ -186,7 +186,11 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
     }
 
     io.out(`clock record ${rec.source}${rec.clock ? ` (clock ${rec.clock}${rec.timeSystem ? `, ${rec.timeSystem} time` : ''})` : ''}: ${rec.values.length} samples, τ0 = ${sig(rec.tau0)} s, ` +
-      `epochs ${sig(t[0] as number, 12)} … ${sig(lastT, 12)} s, ${rec.gaps.reduce((a, g) => a + g.missing, 0)} missing\n`);
+      `epochs ${sig(t[0] as number, 12)} … ${sig(lastT, 12)} s, ${rec.gaps.reduce((a, g) => a + g.missing, 0)} missing in ${rec.gaps.length} gap(s)\n`);
+    for (const g of rec.gaps.slice(0, 10)) {
+      io.out(`  gap: ${g.missing} missing sample(s) from index ${g.index}${g.time !== undefined ? ` (t = ${sig(g.time, 12)} s)` : ''}, line ${g.line}\n`);
+    }
+    if (rec.gaps.length > 10) io.out(`  ... ${rec.gaps.length - 10} more gaps (see --json)\n`);
     io.out(`measurement noise σ_v = ${fmt(Math.sqrt(rFilter), 3)} s (${measurementSource}${noiseEstimate ? `; lag-2 estimate ${fmt(noiseEstimate.variance, 3)} ± ${fmt(noiseEstimate.standardError, 2)} s²` : ''})\n\n`);
 
     io.out(`Polynomial model x(t) = af0 + af1·(t − t_oc)${degree === 2 ? ' + af2·(t − t_oc)²' : ''}, t_oc = ${sig(referenceTime, 12)} s, degree ${degree}, ${result.used} samples\n`);
