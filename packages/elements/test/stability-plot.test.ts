@@ -15,6 +15,37 @@ const OADEV = {
   n: Float64Array.of(998, 980, 800),
 };
 const MDEV = { statistic: 'mdev', tau: Float64Array.of(1, 10, 100), deviation: Float64Array.of(2.922319e-1, 6.172376e-2, 2.170921e-2) };
+// TDEV of the same set, physics-refs §10 [V2]: a time deviation in seconds (τ0 = 1 s), not a fraction.
+const TDEV = { statistic: 'tdev', tau: Float64Array.of(1, 10, 100), deviation: Float64Array.of(1.687202e-1, 3.563623e-1, 1.253382) };
+
+interface Internals {
+  _scales: { sx: { domain: readonly [number, number] }; syFrequency: { domain: readonly [number, number] } | null;
+    syTime: { domain: readonly [number, number] } | null; frame: { left: number; top: number; width: number; height: number } } | null;
+  _pointPosition(k: number, i: number): { x: number; y: number } | null;
+}
+const internals = (el: TaulineStabilityPlot): Internals => el as unknown as Internals;
+
+/** Moves the pointer onto point i of series k (through the plot's own scales) and waits for the read-out. */
+async function hoverPoint(el: TaulineStabilityPlot, k: number, i: number): Promise<Element> {
+  const box = el.shadowRoot!.querySelector<HTMLElement>('.plot-box')!;
+  const r = el.shadowRoot!.querySelector('canvas.data')!.getBoundingClientRect();
+  const pos = internals(el)._pointPosition(k, i)!;
+  box.dispatchEvent(new PointerEvent('pointermove', { clientX: r.left + pos.x, clientY: r.top + pos.y, bubbles: true }));
+  await el.updateComplete;
+  return el.shadowRoot!.querySelector('[part="tooltip"]')!;
+}
+
+/** Counts non-transparent canvas pixels right of the plot frame (where a right-hand axis draws), between its top and bottom. */
+function inkRightOfFrame(el: TaulineStabilityPlot): number {
+  const canvas = el.shadowRoot!.querySelector<HTMLCanvasElement>('canvas.data')!;
+  const f = internals(el)._scales!.frame;
+  const ratio = canvas.width / canvas.getBoundingClientRect().width;
+  const x0 = Math.ceil((f.left + f.width + 3) * ratio);
+  const img = canvas.getContext('2d')!.getImageData(x0, Math.floor(f.top * ratio), canvas.width - x0, Math.floor(f.height * ratio));
+  let ink = 0;
+  for (let j = 3; j < img.data.length; j += 4) if (img.data[j]! > 0) ink += 1;
+  return ink;
+}
 
 describe('tauline-stability-plot', () => {
   it('<tauline-stability-plot> is accessible (axe-core) with data', async () => {
@@ -28,6 +59,7 @@ describe('tauline-stability-plot', () => {
     expect(rows.length).to.equal(6);
     expect(rows[1]!.querySelectorAll('td')[1]!.textContent).to.equal('9.1600e−2');
     expect(rows[1]!.querySelectorAll('td')[2]!.textContent).to.equal('8.668e−2');
+    expect(rows[1]!.querySelectorAll('td')[4]!.textContent).to.equal('dimensionless');
     expect(el.shadowRoot!.querySelectorAll('[part="legend"] li').length).to.equal(2);
   });
 
@@ -37,6 +69,7 @@ describe('tauline-stability-plot', () => {
     expect(label).to.contain('Overlapping ADEV');
     expect(label).to.contain('1 s to 1.67 min');
     expect(label).to.contain('3.24e−2 to 2.92e−1');
+    expect(label).to.contain('dimensionless');
   });
 
   it('accepts the SDK row form (one StabilityRow per τ)', async () => {
@@ -52,16 +85,10 @@ describe('tauline-stability-plot', () => {
 
   it('hover over a point shows a read-out with τ and the deviation', async () => {
     const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[OADEV]}></tauline-stability-plot>`);
-    const box = el.shadowRoot!.querySelector<HTMLElement>('.plot-box')!;
-    const canvas = el.shadowRoot!.querySelector('canvas.data')!;
-    // Find the marker of τ = 10 through the plot's own scales: the middle of the log axis.
-    const r = canvas.getBoundingClientRect();
-    const scales = (el as unknown as { _scales: { sx: { map(v: number): number }; sy: { map(v: number): number } } })._scales;
-    box.dispatchEvent(new PointerEvent('pointermove', { clientX: r.left + scales.sx.map(10), clientY: r.top + scales.sy.map(9.159953e-2), bubbles: true }));
-    await el.updateComplete;
-    const tip = el.shadowRoot!.querySelector('[part="tooltip"]')!;
+    const tip = await hoverPoint(el, 0, 1);
     expect(tip.textContent).to.contain('10 s');
     expect(tip.textContent).to.contain('9.160e−2');
+    expect(tip.textContent).to.contain('(dimensionless)');
   });
 
   it('non-positive points are dropped with one warning; all-bad data shows an error state', async () => {
@@ -81,5 +108,105 @@ describe('tauline-stability-plot', () => {
     const wrap = el.shadowRoot!.querySelector<HTMLElement>('.table-wrap')!;
     expect(wrap.getBoundingClientRect().height).to.be.at.most(1);
     expect(el.shadowRoot!.querySelector('table')).to.exist;
+  });
+
+  describe('units: TDEV (seconds) apart from the dimensionless σ_y statistics (common practice, no source: one axis per unit)', () => {
+    it('<tauline-stability-plot> with OADEV, MDEV and TDEV is accessible (axe-core)', async () => {
+      const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot .series=${[OADEV, MDEV, TDEV]}></tauline-stability-plot>`);
+      await expect(el).to.be.accessible();
+    });
+
+    it('with only TDEV the single left axis is the time axis: no σ_y scale, no right-hand axis, table unit s', async () => {
+      const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[TDEV]}></tauline-stability-plot>`);
+      const sc = internals(el)._scales!;
+      expect(sc.syFrequency).to.equal(null);
+      expect(sc.syTime!.domain[0]).to.be.below(1.687202e-1);
+      expect(sc.syTime!.domain[1]).to.be.above(1.253382);
+      expect(inkRightOfFrame(el)).to.equal(0);
+      const label = el.shadowRoot!.querySelector('canvas.data')!.getAttribute('aria-label')!;
+      expect(label).to.contain('TDEV (time deviation in seconds) from 1.69e−1 s to 1.25e0 s');
+      expect(label).not.to.contain('dimensionless');
+      expect(el.shadowRoot!.querySelector('[part="legend"] li')!.textContent!.trim()).to.equal('TDEV (s)');
+      const cells = el.shadowRoot!.querySelectorAll('tbody tr')[2]!.querySelectorAll('td');
+      expect(cells[1]!.textContent).to.equal('1.2534e0');
+      expect(cells[4]!.textContent).to.equal('s');
+    });
+
+    it('with only dimensionless statistics there is no time scale and nothing right of the frame', async () => {
+      const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[OADEV, MDEV]}></tauline-stability-plot>`);
+      const sc = internals(el)._scales!;
+      expect(sc.syTime).to.equal(null);
+      expect(sc.syFrequency).not.to.equal(null);
+      expect(inkRightOfFrame(el)).to.equal(0);
+      expect(el.shadowRoot!.querySelector('canvas.data')!.getAttribute('aria-label')).not.to.contain('seconds');
+    });
+
+    it('with both, TDEV gets its own scale on a right-hand axis and the σ_y scale does not stretch to seconds', async () => {
+      const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[OADEV, MDEV, TDEV]}></tauline-stability-plot>`);
+      const sc = internals(el)._scales!;
+      // σ_y spans 2.17e−2 … 3.01e−1 (with the interval): the 1.25 s TDEV value must not widen it.
+      expect(sc.syFrequency!.domain[1]).to.be.below(0.5);
+      expect(sc.syTime!.domain[1]).to.be.above(1.253382);
+      expect(inkRightOfFrame(el)).to.be.above(50);
+      const top = sc.frame.top, bottom = sc.frame.top + sc.frame.height;
+      for (let i = 0; i < 3; i++) {
+        const p = internals(el)._pointPosition(2, i)!;
+        expect(p.y).to.be.within(top, bottom);
+      }
+      const legend = Array.from(el.shadowRoot!.querySelectorAll('[part="legend"] li'), (li) => li.textContent!.trim());
+      expect(legend).to.deep.equal(['Overlapping ADEV', 'MDEV', 'TDEV (s, right axis)']);
+      const units = Array.from(el.shadowRoot!.querySelectorAll('tbody tr'), (tr) => tr.querySelectorAll('td')[4]!.textContent);
+      expect(units).to.deep.equal(['dimensionless', 'dimensionless', 'dimensionless', 'dimensionless', 'dimensionless', 'dimensionless', 's', 's', 's']);
+    });
+
+    it('the accessible name names both quantities with their units when both are drawn', async () => {
+      const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot .series=${[OADEV, TDEV]}></tauline-stability-plot>`);
+      const label = el.plotLabel;
+      expect(el.shadowRoot!.querySelector('canvas.data')!.getAttribute('aria-label')).to.equal(label);
+      expect(label).to.contain('Overlapping ADEV (fractional frequency, dimensionless) from 3.24e−2 to 2.92e−1');
+      expect(label).to.contain('TDEV (time deviation in seconds, right axis) from 1.69e−1 s to 1.25e0 s');
+      expect(label).to.contain('τ from 1 s to 1.67 min');
+    });
+
+    it('hover over a TDEV point reads out the time deviation in seconds; an OADEV point stays dimensionless', async () => {
+      const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[OADEV, TDEV]}></tauline-stability-plot>`);
+      const tip = await hoverPoint(el, 1, 2);
+      expect(tip.textContent).to.contain('TDEV (s, right axis)');
+      expect(tip.textContent).to.contain('Time deviation');
+      expect(tip.textContent).to.contain('1.253e0 s');
+      expect(tip.textContent).not.to.contain('dimensionless');
+      const tip2 = await hoverPoint(el, 0, 0);
+      expect(tip2.textContent).to.contain('2.922e−1 (dimensionless)');
+      expect(tip2.textContent).not.to.contain('e−1 s');
+    });
+
+    it('keyboard: ←/→ step through points and ↓ switches to TDEV, announcing the value with its unit', async () => {
+      const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[OADEV, TDEV]}></tauline-stability-plot>`);
+      const box = el.shadowRoot!.querySelector<HTMLElement>('.plot-box')!;
+      const live = el.shadowRoot!.querySelector('[aria-live="polite"]')!;
+      const key = async (k: string): Promise<void> => { box.dispatchEvent(new KeyboardEvent('keydown', { key: k, bubbles: true })); await el.updateComplete; };
+      await key('ArrowRight');
+      expect(live.textContent).to.equal('Overlapping ADEV at τ = 1 s: 2.922e−1 (dimensionless)');
+      await key('ArrowRight');
+      await key('ArrowDown');
+      expect(live.textContent).to.equal('TDEV at τ = 10 s: 3.564e−1 s');
+      expect(el.shadowRoot!.querySelector('[part="tooltip"]')!.textContent).to.contain('3.564e−1 s');
+      await key('Escape');
+      expect(el.shadowRoot!.querySelector('[part="tooltip"]')).to.equal(null);
+    });
+
+    it('bad TDEV points are dropped with one warning and never throw; the σ_y statistics still draw on one axis', async () => {
+      const w = await captureWarnings();
+      try {
+        const bad = { statistic: 'tdev', tau: [1, 10], deviation: [Number.NaN, -1e-9] };
+        const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[OADEV, bad]}></tauline-stability-plot>`);
+        const sc = internals(el)._scales!;
+        expect(sc.syTime).to.equal(null);
+        expect(sc.syFrequency).not.to.equal(null);
+        expect(el.plotLabel).not.to.contain('TDEV');
+        expect(w.list.length).to.equal(1);
+        expect(w.list[0]!.message).to.contain('(tdev): 2 point(s)');
+      } finally { w.restore(); }
+    });
   });
 });
