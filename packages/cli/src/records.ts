@@ -59,6 +59,21 @@ export interface ClockRecord {
  * @throws {ParseError} from the SDK readers, with file and line.
  */
 export async function readClockRecord(args: ParsedArgs, kinds: readonly RecordKind[], tau0: number | undefined): Promise<ClockRecord> {
+  const record = await readRecord(args, kinds, tau0);
+  if (tau0 !== undefined && record.times !== undefined) {
+    // An imposed τ0 finer than the record's spacing leaves most grid epochs empty; say so instead of
+    // letting a statistic fail later on "too few terms".
+    let missing = 0;
+    for (const v of record.values) if (v !== v) missing++;
+    if (missing > record.values.length / 2) {
+      throw new UsageError(`--tau0 ${tau0} s leaves ${missing} of ${record.values.length} epochs of ${record.source} empty: ` +
+        'is it smaller than the record\'s sample spacing? Leave --tau0 out to use the spacing of the file');
+    }
+  }
+  return record;
+}
+
+async function readRecord(args: ParsedArgs, kinds: readonly RecordKind[], tau0: number | undefined): Promise<ClockRecord> {
   const texts = kinds.map((kind) => ({ kind, file: optionalFlag(args, kind) }));
   const rinexFile = optionalFlag(args, 'rinex-clock');
   const inputs = [...kinds.map((kind) => `--${kind} <file>`), '--rinex-clock <file> --clock <name>'];

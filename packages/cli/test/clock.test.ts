@@ -189,3 +189,15 @@ describe('tauline clock --rinex-clock <file> --clock <name>', () => {
     }
   });
 });
+
+describe('an imposed --tau0 finer than the record spacing', () => {
+  it('exits 2 with one line pointing at --tau0, for clock and stability alike', async () => {
+    const file = join(ROOT, 'test/fixtures/rinex-clock/long-304.clk');
+    for (const command of ['clock', 'stability']) {
+      const r = await run([command, '--rinex-clock', file, '--clock', 'G37', '--tau0', '150']);
+      expect(r.status, command).toBe(2);
+      expect(r.err.trim().split('\n'), command).toHaveLength(1);
+      expect(r.err, command).toMatch(/--tau0 150 s leaves 400 of 799 epochs .* empty: is it smaller than the record's sample spacing/);
+    }
+  });
+});
