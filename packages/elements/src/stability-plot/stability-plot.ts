@@ -28,7 +28,7 @@ function isTimeStatistic(statistic: string): boolean {
 }
 
 /** Axis titles; the time axis title is the one a T&F engineer expects beside seconds. */
-const FREQUENCY_AXIS_TITLE = 'Deviation σ_y (dimensionless)';
+const FREQUENCY_AXIS_TITLE = 'Deviation (dimensionless)';
 const TIME_AXIS_TITLE = 'Time deviation (s)';
 const COLOR_EXPR = {
   text: 'var(--text)', muted: 'var(--muted)', grid: 'var(--grid)', surface: 'var(--surface)', accent: 'var(--accent)',
@@ -103,7 +103,7 @@ function drawRightAxis(ctx: CanvasRenderingContext2D, frame: Frame, sy: Scale, t
     ctx.fillText(t.label, right + 6, y);
   }
   ctx.fillStyle = style.text;
-  ctx.translate(canvasWidth - 12, top + frame.height / 2);
+  ctx.translate(canvasWidth - 9, top + frame.height / 2);
   ctx.rotate(Math.PI / 2);
   ctx.textAlign = 'center';
   ctx.textBaseline = 'middle';
@@ -134,10 +134,11 @@ interface StabilityScales {
  * does no statistics itself.
  *
  * Units are kept apart: the fractional-frequency statistics (ADEV, OADEV, MDEV, HDEV, OHDEV,
- * TOTDEV, and any unknown name) are dimensionless and use the left axis "Deviation σ_y
+ * TOTDEV, and any unknown name) are dimensionless and use the left axis "Deviation
  * (dimensionless)"; TDEV (and TTOTDEV) are time deviations in seconds and get their own scale on
  * a right-hand axis "Time deviation (s)", drawn dashed and marked "(s, right axis)" in the legend.
- * With only time deviations the single (left) axis is the time axis. The table has a unit column.
+ * With only time deviations the single (left) axis is the time axis. The table has a Unit column (`s`, or the SI
+ * symbol `1` for dimensionless).
  *
  * Data are immutable: assign a new `series` array to re-render.
  *
@@ -319,7 +320,7 @@ export class TaulineStabilityPlot extends PlotElement {
 
   private _renderTable(): TemplateResult {
     return html`<table part="table">
-      <caption>Deviation by averaging time τ${this.noIntervals ? '' : ', with confidence interval where given'}; σ_y statistics are dimensionless, TDEV is in seconds</caption>
+      <caption>Deviation by averaging time τ${this.noIntervals ? '' : ', with confidence interval where given'}; unit s = seconds (time deviation), 1 = dimensionless (fractional frequency)</caption>
       <thead><tr>
         <th scope="col">Statistic</th><th scope="col">τ (s)</th><th scope="col">Deviation</th>
         <th scope="col">Interval low</th><th scope="col">Interval high</th><th scope="col">Unit</th><th scope="col">n</th><th scope="col">Noise</th>
@@ -331,7 +332,7 @@ export class TaulineStabilityPlot extends PlotElement {
           <td>${formatFraction(s.deviation[i]!, 5)}</td>
           <td>${s.low ? formatFraction(s.low[i]!, 4) : '—'}</td>
           <td>${s.high ? formatFraction(s.high[i]!, 4) : '—'}</td>
-          <td>${isTimeStatistic(s.statistic) ? 's' : 'dimensionless'}</td>
+          <td>${isTimeStatistic(s.statistic) ? 's' : '1'}</td>
           <td>${s.n ? formatNumber(s.n[i]!, 8) : '—'}</td>
           <td>${s.noise?.[i] || '—'}</td>
         </tr>`))}
@@ -357,7 +358,7 @@ export class TaulineStabilityPlot extends PlotElement {
     const timeExtent = deviationExtent(series.filter((s) => isTimeStatistic(s.statistic)), withIntervals);
     if (!freqExtent && !timeExtent) { this._scales = null; return; }
     const dual = freqExtent !== null && timeExtent !== null;
-    const frame: Frame = { left: 62, top: 8, width: Math.max(10, w - (dual ? 124 : 74)), height: Math.max(10, h - 60) };
+    const frame: Frame = { left: 62, top: 8, width: Math.max(10, w - (dual ? 132 : 74)), height: Math.max(10, h - 60) };
     let t0 = Infinity, t1 = -Infinity;
     for (const s of series) { t0 = Math.min(t0, s.tau[0]!); t1 = Math.max(t1, s.tau[s.tau.length - 1]!); }
     if (!(t1 > t0)) { t0 /= 3; t1 *= 3; }
