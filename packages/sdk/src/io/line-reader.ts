@@ -11,6 +11,7 @@
  */
 
 /** One line of text without its line terminator. */
+import { civilFromDays, daysFromCivil, daysInMonth } from '../time/calendar.js';
 export interface TextLine {
   /** The line's characters, without CR/LF. */
   readonly text: string;
@@ -139,29 +140,6 @@ export interface EpochFields {
   readonly second: number;
 }
 
-/** Days from 1970-01-01 to a proleptic Gregorian date (H. Hinnant, "chrono-compatible low-level date algorithms", days_from_civil) [M]. */
-export function daysFromCivil(year: number, month: number, day: number): number {
-  const y = month <= 2 ? year - 1 : year;
-  const era = Math.floor(y / 400);
-  const yoe = y - era * 400;
-  const doy = Math.floor((153 * (month + (month > 2 ? -3 : 9)) + 2) / 5) + day - 1;
-  const doe = yoe * 365 + Math.floor(yoe / 4) - Math.floor(yoe / 100) + doy;
-  return era * 146097 + doe - 719468;
-}
-
-/** The inverse of {@link daysFromCivil} (same source, civil_from_days) [M]. */
-export function civilFromDays(days: number): { year: number; month: number; day: number } {
-  const z = days + 719468;
-  const era = Math.floor(z / 146097);
-  const doe = z - era * 146097;
-  const yoe = Math.floor((doe - Math.floor(doe / 1460) + Math.floor(doe / 36524) - Math.floor(doe / 146096)) / 365);
-  const doy = doe - (365 * yoe + Math.floor(yoe / 4) - Math.floor(yoe / 100));
-  const mp = Math.floor((5 * doy + 2) / 153);
-  const day = doy - Math.floor((153 * mp + 2) / 5) + 1;
-  const month = mp < 10 ? mp + 3 : mp - 9;
-  return { year: yoe + era * 400 + (month <= 2 ? 1 : 0), month, day };
-}
-
 /** Day number of 1980-01-06 (start of GPS week 0) from 1970-01-01. */
 const GPS_EPOCH_DAYS = 3657;
 
@@ -201,9 +179,7 @@ export function validEpochFields(f: EpochFields): boolean {
   if (![f.year, f.month, f.day, f.hour, f.minute].every(Number.isInteger) || !Number.isFinite(f.second)) return false;
   if (f.month < 1 || f.month > 12 || f.day < 1 || f.hour < 0 || f.hour > 23 || f.minute < 0 || f.minute > 59) return false;
   if (f.second < 0 || f.second >= 61) return false;
-  const daysInMonth = daysFromCivil(f.month === 12 ? f.year + 1 : f.year, f.month === 12 ? 1 : f.month + 1, 1)
-    - daysFromCivil(f.year, f.month, 1);
-  return f.day <= daysInMonth;
+  return f.day <= daysInMonth(f.year, f.month);
 }
 
 const FORTRAN_NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([EeDd][+-]?\d+)?$/;

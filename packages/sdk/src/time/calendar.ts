@@ -86,7 +86,7 @@ export const MIN_MJD = -678_575;
 /** MJD of 9999-12-31 [C]. */
 export const MAX_MJD = 2_973_483;
 
-/** Days since 1970-01-01 of a valid date (no validation). */
+/** Days since 1970-01-01 of a valid proleptic Gregorian date, no validation (H. Hinnant, "chrono-compatible low-level date algorithms", days_from_civil [M]). */
 export function daysFromCivil(year: number, month: number, day: number): number {
   const y = month <= 2 ? year - 1 : year;
   const era = Math.floor(y / 400);
@@ -96,7 +96,7 @@ export function daysFromCivil(year: number, month: number, day: number): number 
   return era * 146_097 + dayOfEra - 719_468;
 }
 
-/** Calendar date of a day count since 1970-01-01 (no validation). */
+/** Calendar date of a day count since 1970-01-01, no validation (H. Hinnant, civil_from_days [M]). */
 export function civilFromDays(days: number): CalendarDate {
   const z = days + 719_468;
   const era = Math.floor(z / 146_097);
