@@ -183,6 +183,16 @@ export function integrateDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<n
   }
   let rejectedLast = false;
   const F = new Float64Array(7 * n);
+  /** Runge–Kutta stage s: K_s = f(t + c_s h, y + h Σ_{j<s} a_sj K_j) (Hairer, Nørsett & Wanner 1993, §II.1 [M]). */
+  const evaluateStage = (s: number, tStep: number, hStep: number): void => {
+    const a = A[s]!;
+    for (let i = 0; i < n; i++) {
+      let acc = 0;
+      for (let j = 0; j < s; j++) acc += a[j]! * K[j]![i]!;
+      yStage[i] = y[i]! + hStep * acc;
+    }
+    call(tStep + C[s]! * hStep, yStage, K[s]!);
+  };
 
   while (t < tEnd) {
     if (accepted + rejected >= maxSteps) throw new ConvergenceError(`DOP853 integration to t = ${tEnd}`, accepted + rejected, tEnd - t);
@@ -194,15 +204,7 @@ export function integrateDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<n
       last = true;
     }
     // Stages 2..12.
-    for (let s = 1; s < N_STAGES; s++) {
-      const a = A[s]!;
-      for (let i = 0; i < n; i++) {
-        let acc = 0;
-        for (let j = 0; j < s; j++) acc += a[j]! * K[j]![i]!;
-        yStage[i] = y[i]! + h * acc;
-      }
-      call(t + C[s]! * h, yStage, K[s]!);
-    }
+    for (let s = 1; s < N_STAGES; s++) evaluateStage(s, t, h);
     for (let i = 0; i < n; i++) {
       let acc = 0;
       for (let j = 0; j < N_STAGES; j++) acc += B[j]! * K[j]![i]!;
@@ -248,15 +250,7 @@ export function integrateDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<n
     // Accepted. Dense output when needed (Hairer et al. 1993, §II.6): three extra stages.
     const needDense = keep || (nextSample < sampleTimes.length && (sampleTimes[nextSample] as number) <= tNew);
     if (needDense) {
-      for (let s = 13; s < 16; s++) {
-        const a = A[s]!;
-        for (let i = 0; i < n; i++) {
-          let acc = 0;
-          for (let j = 0; j < s; j++) acc += a[j]! * K[j]![i]!;
-          yStage[i] = y[i]! + h * acc;
-        }
-        call(t + C[s]! * h, yStage, K[s]!);
-      }
+      for (let s = 13; s < 16; s++) evaluateStage(s, t, h);
       for (let i = 0; i < n; i++) {
         const dy = yNew[i]! - y[i]!;
         F[i] = dy;
