@@ -2,19 +2,11 @@ import fc from 'fast-check';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { ParseError } from '../../src/errors.js';
+import { parseError } from './parse-errors.js';
 import { parsePhaseText, readPhaseText } from '../../src/io/index.js';
 
 const fixture = (name: string) => readFileSync(new URL(`../../../../test/fixtures/stability/${name}`, import.meta.url), 'utf8');
 
-function parseError(fn: () => unknown): ParseError {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof ParseError) return e;
-    throw e;
-  }
-  throw new Error('expected a ParseError');
-}
 
 describe('parsePhaseText (plain text / CSV phase records; common practice, no source)', () => {
   it('parsePhaseText(one column with comments and blank lines) returns every value in order', () => {

@@ -2,19 +2,11 @@ import fc from 'fast-check';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { ParseError } from '../../src/errors.js';
+import { parseError } from './parse-errors.js';
 import { parseRinexClock, readRinexClock, rinexClockSeries } from '../../src/io/index.js';
 
 const fixture = (name: string) => readFileSync(new URL(`../../../../test/fixtures/rinex-clock/${name}`, import.meta.url), 'utf8');
 
-function parseError(fn: () => unknown): ParseError {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof ParseError) return e;
-    throw e;
-  }
-  throw new Error('expected a ParseError');
-}
 
 const HEADER = [
   '     3.04           C                   G                   RINEX VERSION / TYPE',

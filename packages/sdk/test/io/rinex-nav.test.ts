@@ -4,6 +4,7 @@ import fc from 'fast-check';
 import { parseRinexNav, readRinexNav, type RinexNavEvent } from '../../src/io/rinex-nav.js';
 import { LineSplitter, linesOf, parseFortranReal, scaleSecondsFromFields, fieldsFromScaleSeconds, formatEpochFields } from '../../src/io/line-reader.js';
 import { ParseError } from '../../src/errors.js';
+import { expectParseError } from './parse-errors.js';
 
 const FIXTURES = new URL('../../../../test/fixtures/rinex-nav/', import.meta.url);
 const read = (name: string) => readFileSync(new URL(name, FIXTURES), 'utf8');
@@ -12,20 +13,6 @@ const V4 = read('mixed-v401.rnx');
 /** Week 2296 starts 2024-01-07T00:00:00 GPST (1980-01-06 + 2296 weeks; computed, common practice). */
 const WEEK_2296 = 2296 * 604800;
 
-function expectParseError(fn: () => unknown, line: number, column: number | undefined, pattern: RegExp): ParseError {
-  let caught: unknown;
-  try {
-    fn();
-  } catch (e) {
-    caught = e;
-  }
-  expect(caught).toBeInstanceOf(ParseError);
-  const err = caught as ParseError;
-  expect(err.line).toBe(line);
-  if (column !== undefined) expect(err.column).toBe(column);
-  expect(err.message).toMatch(pattern);
-  return err;
-}
 
 describe('line reader helpers', () => {
   it('LineSplitter.push(chunk) joins a CR LF split across chunks and keeps blank lines numbered', () => {

@@ -3,25 +3,13 @@ import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { parseSp3, readSp3, type Sp3Event } from '../../src/io/sp3.js';
 import { ParseError } from '../../src/errors.js';
+import { expectParseError } from './parse-errors.js';
 
 const FIXTURES = new URL('../../../../test/fixtures/sp3/', import.meta.url);
 const read = (name: string) => readFileSync(new URL(name, FIXTURES), 'utf8');
 const PV = read('orbit-c-pv.sp3');
 const P = read('orbit-d-p.sp3');
 
-function expectParseError(fn: () => unknown, line: number, column: number | undefined, pattern: RegExp): void {
-  let caught: unknown;
-  try {
-    fn();
-  } catch (e) {
-    caught = e;
-  }
-  expect(caught).toBeInstanceOf(ParseError);
-  const err = caught as ParseError;
-  expect(err.line).toBe(line);
-  if (column !== undefined) expect(err.column).toBe(column);
-  expect(err.message).toMatch(pattern);
-}
 
 describe('parseSp3: SP3-c with velocities (SP3-c, Hilla 2002 [M])', () => {
   const file = parseSp3(PV, { sourceName: 'orbit-c-pv.sp3' });
