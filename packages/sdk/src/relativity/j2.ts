@@ -24,6 +24,14 @@ function checkInclination(inclination: unknown): number {
   return requireInRange('inclination', inclination, 0, Math.PI, { unit: 'rad (did you give degrees?)' });
 }
 
+/** J2·(a_e²/c²)·√(GM/a³)·sin²i·sin 2u, the shape shared by both periodic J2 terms below, with their input checks. */
+function j2SinTwoUTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLatitude: Radians, constants: ConstantSet): Seconds {
+  const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
+  const i = checkInclination(inclination);
+  const u = requireFinite('argumentOfLatitude', argumentOfLatitude, 'a finite angle in radians');
+  return j2Scale(a, constants) * Math.sin(i) ** 2 * Math.sin(2 * u);
+}
+
 /**
  * Kouba's J2 periodic residual: what remains of the J2 clock effect after the conventional
  * correction −2 r·v/c² is applied,
@@ -42,10 +50,7 @@ function checkInclination(inclination: unknown): number {
  */
 export function j2ResidualPeriodicTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLatitude: Radians,
   constants: ConstantSet = DEFAULT_CONSTANT_SET): Seconds {
-  const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
-  const i = checkInclination(inclination);
-  const u = requireFinite('argumentOfLatitude', argumentOfLatitude, 'a finite angle in radians');
-  return -1.5 * j2Scale(a, constants) * Math.sin(i) ** 2 * Math.sin(2 * u);
+  return -1.5 * j2SinTwoUTerm(semiMajorAxis, inclination, argumentOfLatitude, constants);
 }
 
 /**
@@ -68,10 +73,7 @@ export function j2ResidualPeriodicTerm(semiMajorAxis: Metres, inclination: Radia
  */
 export function j2TotalPeriodicTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLatitude: Radians,
   constants: ConstantSet = DEFAULT_CONSTANT_SET): Seconds {
-  const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
-  const i = checkInclination(inclination);
-  const u = requireFinite('argumentOfLatitude', argumentOfLatitude, 'a finite angle in radians');
-  return -0.5 * j2Scale(a, constants) * Math.sin(i) ** 2 * Math.sin(2 * u);
+  return -0.5 * j2SinTwoUTerm(semiMajorAxis, inclination, argumentOfLatitude, constants);
 }
 
 /** Amplitudes and period of the J2 periodic clock terms. */
