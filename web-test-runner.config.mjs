@@ -10,6 +10,9 @@ export default {
   files: ['packages/elements/test/**/*.test.ts', 'test/browser/**/*.test.ts'],
   nodeResolve: true,
   rootDir: '.',
+  // Loopback only. @web/dev-server-core 0.x listens on every interface when told "localhost" or
+  // "127.0.0.1"; any other loopback address (all of 127.0.0.0/8 is loopback on Linux) is bound as given.
+  hostname: '127.0.0.2',
   concurrency: 1,
   browserStartTimeout: 60000,
   testsFinishTimeout: 300000,

@@ -4,23 +4,19 @@
 // 10^6-point steering prediction, pans it with the keyboard, and compares with drawing the same
 // points undecimated on a canvas of the same size in the same run. Reports only; asserts nothing.
 // Targets (issue): first render < 100 ms, re-render after a pan < 16 ms.
-import { startDevServer } from '@web/dev-server';
+import { startDemoServer } from '../../demo/server.mjs';
 import { chromium } from 'playwright-core';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir, cpus } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
-import devServerConfig from '../../web-dev-server.config.mjs';
 import { CHROMIUM_ARGS } from '../../web-test-runner.config.mjs';
 
 const fmt = (ms) => `${ms.toFixed(1).padStart(7)} ms`;
 
 export default async function benchElements() {
-  const server = await startDevServer({
-    config: { ...devServerConfig, port: 0, hostname: '127.0.0.1' },
-    readCliArgs: false, readFileConfig: false, autoExitProcess: false, logStartMessage: false,
-  });
-  const { port } = server.server.address();
+  const server = await startDemoServer({ port: 0 });
+  const { port } = server;
   const profile = mkdtempSync(join(tmpdir(), 'chromium-bench-'));
   const ctx = await chromium.launchPersistentContext(profile, {
     executablePath: process.env.CHROME_PATH || '/usr/bin/chromium', headless: true, viewport: { width: 1100, height: 700 }, args: CHROMIUM_ARGS,
@@ -43,7 +39,7 @@ export default async function benchElements() {
     return r;
   } finally {
     await ctx.close();
-    await server.stop();
+    await server.close();
     rmSync(profile, { recursive: true, force: true });
   }
 }
