@@ -5,7 +5,8 @@
  *
  * Sources: RINEX 2.11 (W. Gurtner, L. Estey, IGS/RTCM, 10 Dec 2007, rev. 26 June 2012) Tables A3, A10,
  * A15 and §4, §5.1, §6.5, read in a full-text transcription of the IGS document `rinex211.txt` [V1];
- * RINEX 2.10 assumed identical for these records [M]; RINEX 3.05 / 4.01 header records [M].
+ * RINEX 2.10 shares them: 2.11 §10 says its modifications make "no changes in the actual formats" [V1]
+ * (the 2.10 text itself not opened); RINEX 3.05 / 4.01 header records [M].
  *
  * @module
  */

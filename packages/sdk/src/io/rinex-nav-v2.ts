@@ -11,7 +11,9 @@
  *   epoch line, then 3 lines `3X,4D19.12`.
  * - Two-digit years: 80–99 → 1980–1999, 00–79 → 2000–2079 (§6.5, Tables A6, A11).
  * RINEX 2.11 defines no Galileo or mixed navigation file (§4 reserves type `L` for a future Galileo
- * file); the header reader refuses them. RINEX 2.10 is assumed to share these layouts [M].
+ * file); the header reader refuses them. RINEX 2.10 shares these layouts: 2.11 §10 says its modifications
+ * make "no changes in the actual formats" [V1] (the 2.10 text itself not opened). Files before 2.10 (no fit
+ * interval, §0.4) and the 2.12 draft are not read.
  *
  * @module
  */
