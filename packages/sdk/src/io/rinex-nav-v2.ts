@@ -18,6 +18,7 @@
  * @module
  */
 import { ParseError } from '../errors.js';
+import { requireInteger } from '../internal/validate.js';
 import { type EpochFields, type TextLine, validEpochFields } from './line-reader.js';
 import { KEPLER_RECORD_LINES, RINEX2_LAYOUT, checkFieldAlignment, decodeKeplerRecord } from './rinex-nav-kepler.js';
 import { SYSTEM_NAMES, skipReason } from './rinex-nav-skip.js';
@@ -28,9 +29,16 @@ const RECORD_LINES: Readonly<Record<string, number>> = { N: KEPLER_RECORD_LINES,
 /** System letter of each file type's satellites (§5.1, §9.1 [V1]). */
 const SYSTEM_OF: Readonly<Record<string, string>> = { N: 'G', G: 'R', H: 'S' };
 
-/** A two-digit RINEX 2 year as a full year: 80–99 → 1980–1999, 00–79 → 2000–2079 (RINEX 2.11 §6.5 [V1]). */
+/**
+ * A two-digit RINEX 2 year as a full year: 80–99 → 1980–1999, 00–79 → 2000–2079.
+ * @param yy  The two-digit year, an integer 0–99.
+ * @returns The full year.
+ * @throws {InvalidArgumentError} if `yy` is not an integer in [0, 99].
+ * @see RINEX 2.11 §6.5 and Tables A6, A11 [V1].
+ */
 export function fullYearFromTwoDigits(yy: number): number {
-  return yy >= 80 ? 1900 + yy : 2000 + yy;
+  const y = requireInteger('yy', yy, 0, 99);
+  return y >= 80 ? 1900 + y : 2000 + y;
 }
 
 /** Reads the body of a version-2 navigation file, one line at a time. */

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { fullYearFromTwoDigits, parseRinexNav, readRinexNav, type RinexNavEvent } from '../../src/io/rinex-nav.js';
-import { TaulineError } from '../../src/errors.js';
+import { InvalidArgumentError, TaulineError } from '../../src/errors.js';
 import { expectParseError } from './parse-errors.js';
 
 const FIXTURES = new URL('../../../../test/fixtures/rinex-nav/', import.meta.url);
@@ -21,6 +21,10 @@ const withLine = (text: string, n: number, line: string) => lines(text).map((l, 
 describe('fullYearFromTwoDigits: RINEX 2.11 §6.5 [V1] (80–99 → 1980–1999, 00–79 → 2000–2079)', () => {
   it('fullYearFromTwoDigits(yy) maps 80, 99, 00 and 79 to 1980, 1999, 2000 and 2079', () => {
     expect([80, 99, 0, 79, 24].map(fullYearFromTwoDigits)).toEqual([1980, 1999, 2000, 2079, 2024]);
+  });
+  it('fullYearFromTwoDigits(yy) rejects a value that is not an integer 0–99 with InvalidArgumentError', () => {
+    for (const bad of [100, -1, 2.5, Number.NaN]) expect(() => fullYearFromTwoDigits(bad)).toThrow(InvalidArgumentError);
+    expect(() => fullYearFromTwoDigits('7' as unknown as number)).toThrow(/yy/);
   });
 });
 
