@@ -14,9 +14,10 @@ export {
   scaleSecondsFromFields, fieldsFromScaleSeconds, formatEpochFields,
 } from './line-reader.js';
 export {
-  type RinexSystemCode, type RinexNavRecordType, type RinexLeapSeconds, type RinexNavHeader, type RinexNavEphemeris,
+  type RinexSystemCode, type RinexNavRecordType, type RinexLeapSeconds, type RinexIonosphereParameters,
+  type RinexTimeSystemCorrection, type RinexNavHeader, type RinexNavEphemeris,
   type SkippedNavRecord, type RinexNavEvent, type RinexNavReadOptions, type RinexNavFile, RinexNavParser, readRinexNav,
-  parseRinexNav,
+  parseRinexNav, fullYearFromTwoDigits,
 } from './rinex-nav.js';
 export {
   type Sp3TimeSystem, type Sp3Header, type Sp3SatelliteRecord, type Sp3Epoch, type Sp3Event, type Sp3ReadOptions,
