@@ -28,3 +28,6 @@ export {
   type J2TermKind, periodicCorrectionFromElementsBatch, periodicCorrectionFromStatesBatch, j2PeriodicTermBatch,
   j2PeriodicTermFromStatesBatch,
 } from './batch.js';
+export {
+  type GridOrbit, type UniformTimeGrid, MAX_GRID_EPOCHS, periodicCorrectionOnTimeGrid,
+} from './time-grid.js';

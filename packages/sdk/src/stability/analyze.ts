@@ -12,7 +12,7 @@ import {
   hasMissing, ModifiedWorkspace, modifiedSum, secondDifferenceSum, segmentIndex, thirdDifferenceSum, totalSum, type TermSum,
 } from './kernels.js';
 import { identifyNoiseAt } from './noise-id.js';
-import { factorsForTaus, octaveFactors, toPhaseSeries } from './series.js';
+import { factorsForTaus, octaveFactors, phaseSeriesForReading } from './series.js';
 import {
   NOISE_ALPHA, STATISTIC_NAMES, type DeviationPoint, type NoiseEstimate, type NoiseSource, type NoiseType, type PhaseSeries,
   type StabilityAnalysis, type StabilityData, type StabilityRow, type StatisticEstimate, type StatisticName,
@@ -147,7 +147,7 @@ export interface DeviationOptions {
  */
 export function deviations(statistic: StatisticName, data: StabilityData, options: DeviationOptions = {}): DeviationPoint[] {
   requireStatistic('statistic', statistic);
-  const p = new Prepared(toPhaseSeries(data));
+  const p = new Prepared(phaseSeriesForReading(data));
   const out: DeviationPoint[] = [];
   for (const m of resolveFactors(p.series, [statistic], options.taus)) {
     const point = computeAt(p, statistic, m);
@@ -167,7 +167,7 @@ export function deviations(statistic: StatisticName, data: StabilityData, option
  * @see W. J. Riley & C. A. Greenhall, "Power law noise identification using the lag 1 autocorrelation", 18th EFTF (2004) [M].
  */
 export function identifyNoise(data: StabilityData, options: DeviationOptions = {}): NoiseEstimate[] {
-  const p = new Prepared(toPhaseSeries(data));
+  const p = new Prepared(phaseSeriesForReading(data));
   const out: NoiseEstimate[] = [];
   for (const m of resolveFactors(p.series, ['oadev'], options.taus)) {
     const e = identifyNoiseAt(p.series, p.seg, m);
@@ -227,7 +227,7 @@ export function analyzeStability(data: StabilityData, options: StabilityOptions 
     throw new InvalidArgumentError('options.noise', options.noise, 'one of WPM, FPM, WFM, FFM, RWFM');
   }
   const isFrequency = 'frequency' in data && (data as { frequency?: unknown }).frequency !== undefined;
-  const series = toPhaseSeries(data);
+  const series = phaseSeriesForReading(data);
   const p = new Prepared(series);
   if (stats.includes('totdev') && p.gaps) computeAt(p, 'totdev', 1); // throws the documented error up front
   const N = series.phase.length;
