@@ -60,7 +60,7 @@ describe('createRandom(seed, method)', () => {
     expect(Math.abs(s4 / n - 3)).toBeLessThan(5 * Math.sqrt(96 / n));
   });
 
-  it.each(methods)('createRandom(seed, %s) normals pass a Kolmogorov–Smirnov test against the normal CDF at the 0.1 %% level (n = 200 000; critical value √(−ln(α/2)/2)/√n = 1.9495/√n, the Smirnov asymptotic distribution [C])', (method) => {
+  it.each(methods)('createRandom(seed, %s) normals pass a Kolmogorov–Smirnov test against the normal CDF at the 0.1 percent level (n = 200 000; critical value √(−ln(α/2)/2)/√n = 1.9495/√n, the Smirnov asymptotic distribution [C])', (method) => {
     const r = createRandom(4242, method);
     const n = 200_000;
     const z = new Float64Array(n);
