@@ -31,6 +31,8 @@ describe('tauline clock', () => {
     expect(jump).toMatchObject({ kind: 'phase', epoch: TRUTH.jumpEpoch, index: 2500, pass: 1 });
     expect(Math.abs(jump.size - TRUTH.jumpSize)).toBeLessThan(2 * jump.sizeStd);
     expect(j.filter.rejected).toEqual([]);
+    expect(j.filter.detection).toMatchObject({ falseAlarmProbabilityPerSample: 1e-6, testsPerSample: 36, outlierProbability: 1e-4 });
+    expect(j.filter.detection.jumpThreshold).toBeCloseTo(30.856864804329376, 6); // scipy.stats.chi2.isf(1e-6/36, 1) [C]
     // q intervals at the reported 68.27 % level (χ², diffusionFromStabilityRows).
     for (const n of ['q1', 'q2'] as const) {
       const iv = j.noise.intervals[n];
@@ -53,6 +55,10 @@ describe('tauline clock', () => {
     expect(r.out).not.toMatch(/^af2/m);
     expect(r.out).toMatch(/Caution: verify these values/);
     expect(r.out).toMatch(/phase +750000 +2500/);
+    // What a declared jump means: the per-sample false-alarm probability and the GLR threshold
+    // (scipy.stats.chi2.isf(1e-6/36, 1) = 30.857; isf(1e-4, 1) = 15.137 [C]).
+    expect(r.out).toMatch(/jump detection: GLR statistic l > 30\.86 \(χ²\(1\) at 1\.00e-6\/36\); on a jump-free record a false jump is declared with probability ≤ 1\.00e-6 per sample/);
+    expect(r.out).toMatch(/outliers: impulse statistic l > 15\.14, i\.e\. a good sample is rejected with probability 1\.00e-4/);
     expect(r.out).toMatch(/measurement noise σ_v = 3\.00e-11 s \(given\)/);
     const snippet = r.out.trim().split('\n').pop()!;
     expect(Object.keys(JSON.parse(snippet))).toEqual(['q1', 'q2', 'q3']);
@@ -152,6 +158,8 @@ describe('tauline clock --rinex-clock <file> --clock <name>', () => {
     // The missing epoch is a skipped update, not an outlier or a jump.
     expect(j.filter.jumps).toEqual([]);
     expect(j.filter.rejected).toEqual([]);
+    expect(j.filter.detection).toMatchObject({ falseAlarmProbabilityPerSample: 1e-6, testsPerSample: 36, outlierProbability: 1e-4 });
+    expect(j.filter.detection.jumpThreshold).toBeCloseTo(30.856864804329376, 6); // scipy.stats.chi2.isf(1e-6/36, 1) [C]
   });
 
   it('tauline clock --rinex-clock long-304.clk --clock G37 (table) names the clock and prints the gap with its index, epoch and line', async () => {

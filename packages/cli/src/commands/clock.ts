@@ -47,19 +47,35 @@ const H_OF_Q = {
 function characterise(phase: Float64Array, t: Float64Array, tau0: number, opts: {
   degree: 1 | 2; referenceTime: number; states: ClockStates; rFit: number; rFitStd: number; rFilter: number; predict: number[];
 }) {
-  const valid: number[] = [];
-  for (let k = 0; k < phase.length; k++) if (phase[k] === phase[k]) valid.push(k);
-  const tv = Float64Array.from(valid, (k) => t[k] as number);
-  const zv = Float64Array.from(valid, (k) => phase[k] as number);
+  let used = 0;
+  for (let k = 0; k < phase.length; k++) if (phase[k] === phase[k]) used += 1;
+  const tv = new Float64Array(used);
+  const zv = new Float64Array(used);
+  for (let k = 0, i = 0; k < phase.length; k++) {
+    if (phase[k] !== phase[k]) continue;
+    tv[i] = t[k] as number;
+    zv[i++] = phase[k] as number;
+  }
   const poly = fitClockPolynomial(tv, zv, { degree: opts.degree, referenceTime: opts.referenceTime });
   const residual = new Float64Array(phase.length).fill(Number.NaN);
-  valid.forEach((k, i) => { residual[k] = poly.residuals[i] as number; });
+  for (let k = 0, i = 0; k < phase.length; k++) if (phase[k] === phase[k]) residual[k] = poly.residuals[i++] as number;
   const statistic = opts.states === 3 ? 'ohdev' : 'oadev';
   const analysis = analyzeStability({ phase: residual, tau0 }, { statistics: [statistic] });
   const noise: StabilityRowsFit = diffusionFromStabilityRows(analysis.rows, { states: opts.states, measurementVariance: opts.rFit, measurementVarianceStd: opts.rFitStd });
   const polyNoise = polynomialNoiseCovariance(tv, { degree: opts.degree, referenceTime: opts.referenceTime, q: noise.q, measurementVariance: opts.rFit, predict: opts.predict });
-  const filter: ClockFilterRun = runClockFilter({ phase, t, variance: opts.rFilter }, { q: noise.q, states: opts.states });
-  return { poly, noise, polyNoise, filter, used: valid.length };
+  const run: ClockFilterRun = runClockFilter({ phase, t, variance: opts.rFilter }, { q: noise.q, states: opts.states });
+  // Keep only what is reported, so that a pass's per-epoch arrays are freed before the next pass.
+  const filter = {
+    states: run.states, jumps: run.jumps, nisSummary: run.nisSummary, detection: run.detection!,
+    rejected: run.rejected.map((k) => ({ index: k, t: t[k] as number, innovation: run.innovation[k] as number, nis: run.nis[k] as number })),
+  };
+  return { poly, noise, polyNoise, filter, used };
+}
+
+function uniformEpochs(n: number, tau0: number): Float64Array {
+  const t = new Float64Array(n);
+  for (let k = 0; k < n; k++) t[k] = k * tau0;
+  return t;
 }
 
 function correct(phase: Float64Array, t: Float64Array, jumps: readonly DetectedJump[], rejected: readonly number[]): Float64Array {
@@ -102,8 +118,10 @@ Procedure (each step an SDK call, nothing interpolated):
     filter uses its 2σ upper bound.
  2. Pass 1: least-squares polynomial (fitClockPolynomial) → OADEV/OHDEV of the residuals (NIST SP 1065)
     → q1, q2(, q3) (diffusionFromStabilityRows, Zucca & Tavella 2005 variance forms) → Kalman pass
-    (runClockFilter: NIS gate for outliers, GLR phase/frequency jump detection, Willsky & Jones 1976).
- 3. If jumps or outliers were found: phases corrected by the estimated jumps, outliers removed, and pass 2
+    (runClockFilter: GLR outlier and phase/frequency jump detection on the innovations of all samples,
+    Willsky & Jones 1976; a false jump is declared with probability ≤ 1e-6 per sample, a good sample is
+    rejected as an outlier with probability 1e-4; both thresholds are printed).
+ 3. If jumps or outliers were declared: phases corrected by the declared jumps, outliers removed, and pass 2
     repeats step 2 on the corrected record (up to 3 passes). Reported model = last pass.
 Uncertainties: af0/af1/af2 and predictions under the fitted clock noise plus measurement noise
 (polynomialNoiseCovariance; the white-noise formula would understate them); q's with χ² intervals (±1σ
@@ -120,12 +138,13 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
     const predictText = optionalFlag(args, 'predict');
     const predict = predictText === undefined ? [] : predictText.split(',').map((v) => parseNumber('--predict', v));
     const rec = await readClockRecord(args, ['phase'], tau0Flag);
-    const present = rec.values.reduce((n, v) => n + (v === v ? 1 : 0), 0);
+    let present = 0;
+    for (const v of rec.values) if (v === v) present += 1;
     if (present < MIN_CLOCK_SAMPLES) {
       throw new UsageError(`${rec.flag} ${rec.source} has ${present} phase samples; the clock model needs at least ${MIN_CLOCK_SAMPLES} ` +
         '(the measurement-noise estimate uses lag-2 second differences and the noise fit at least two averaging times): give a longer record');
     }
-    const t = rec.times ?? Float64Array.from(rec.values, (_, k) => k * rec.tau0); // a one-column record's epochs are k·τ0
+    const t = rec.times ?? uniformEpochs(rec.values.length, rec.tau0); // a one-column record's epochs are k·τ0
     const firstValid = rec.values.findIndex((v) => v === v);
     const referenceTime = numberFlag(args, 'reference-time') ?? (t[firstValid] as number);
     const lastT = t[t.length - 1] as number;
@@ -140,11 +159,9 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
     let result = characterise(phase, t, rec.tau0, opts);
     for (let pass = 1; pass <= 3; pass++) {
       const f = result.filter;
-      // Samples rejected between a jump's epoch and its declaration belong to the jump (the correction fixes them).
-      const absorbed = (k: number): boolean => f.jumps.some((j) => k >= j.updateIndex && k <= j.declaredAtUpdate);
-      const outliers = f.rejected.filter((k) => !absorbed(k));
-      const rejected = outliers.map((k) => ({ index: k, t: t[k] as number, innovation: f.innovation[k] as number, nis: f.nis[k] as number }));
-      events.push({ pass, jumps: [...f.jumps], rejected });
+      // Only declared events are corrected: jumps at the stated false-alarm rate, declared outliers.
+      const outliers = f.rejected.map((r) => r.index);
+      events.push({ pass, jumps: [...f.jumps], rejected: f.rejected });
       if (f.jumps.length === 0 && outliers.length === 0) break;
       if (pass === 3) break;
       phase = correct(phase, t, f.jumps, outliers);
@@ -162,6 +179,7 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
     const allJumps = events.flatMap((e) => e.jumps.map((j) => ({ pass: e.pass, ...j, index: j.updateIndex })));
     const allRejected = events.flatMap((e) => e.rejected.map((r) => ({ pass: e.pass, ...r })));
     const scenarioNoise = { q1: noise.q.q1, q2: noise.q.q2, q3: noise.q.q3 };
+    const detection = filter.detection!;
 
     if (format === 'json') {
       io.out(toJson({
@@ -179,6 +197,11 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
         },
         filter: {
           states: filter.states, passes: events.length, jumps: allJumps, rejected: allRejected, nis: filter.nisSummary,
+          detection: {
+            falseAlarmProbabilityPerSample: detection.falseAlarmProbability, jumpThreshold: detection.jumpThreshold,
+            testsPerSample: detection.testsPerUpdate, window: detection.window, minEpochs: detection.minEpochs,
+            outlierProbability: detection.outlierProbability, outlierThreshold: detection.outlierThreshold, holdGate: detection.holdGate,
+          },
         },
         ...(args.values['scenario-noise'] ? { scenarioNoise } : {}),
       }));
@@ -218,6 +241,10 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
     io.out('\n');
 
     io.out(`Kalman pass (${filter.states}-state, R = σ_v², q from the noise model; ${events.length} pass(es))\n`);
+    io.out(`jump detection: GLR statistic l > ${fmt(detection.jumpThreshold, 4)} (χ²(1) at ${sig(detection.falseAlarmProbability, 3)}/${detection.testsPerUpdate}); ` +
+      `on a jump-free record a false jump is declared with probability ≤ ${sig(detection.falseAlarmProbability, 3)} per sample ` +
+      `(≤ ${sig(detection.falseAlarmProbability * rec.values.length, 3)} expected in this record)\n`);
+    io.out(`outliers: impulse statistic l > ${fmt(detection.outlierThreshold, 4)}, i.e. a good sample is rejected with probability ${sig(detection.outlierProbability, 3)}\n`);
     if (allJumps.length === 0) io.out('jumps: none detected\n');
     else {
       io.out(table(['pass', 'kind', 'epoch (s)', 'sample', 'size', '1σ', 'unit'],
