@@ -19,6 +19,6 @@ export {
   parseRinexNav,
 } from './rinex-nav.js';
 export {
-  type Sp3TimeSystem, type Sp3Header, type Sp3SatelliteRecord, type Sp3Epoch, type Sp3Event, type Sp3ReadOptions,
+  type Sp3TimeSystem, type Sp3Version, type Sp3Header, type Sp3SatelliteRecord, type Sp3Epoch, type Sp3Event, type Sp3ReadOptions,
   type Sp3File, Sp3Parser, readSp3, parseSp3,
 } from './sp3.js';
