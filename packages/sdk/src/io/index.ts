@@ -6,9 +6,12 @@
  */
 export { parsePhaseText, readPhaseText, type PhaseTextSeries, type PhaseTextOptions, type SampleGap } from './phase-text.js';
 export {
-  parseRinexClock, readRinexClock, rinexClockSeries,
-  type RinexClockFile, type RinexClockHeader, type RinexClockRecord, type RinexClockSeries,
+  RinexClockParser, parseRinexClock, readRinexClock,
+  type RinexClockFile, type RinexClockHeader, type RinexClockRecord, type RinexClockEvent, type RinexClockReadOptions,
 } from './rinex-clock.js';
+export {
+  RinexClockSeriesCollector, rinexClockSeries, readRinexClockSeries, type RinexClockSeries, type RinexClockSeriesOptions,
+} from './rinex-clock-series.js';
 export {
   type TextLine, type TextSource, type EpochFields, LineSplitter, linesOf, readLines, readLineBatches, parseFortranReal,
   scaleSecondsFromFields, fieldsFromScaleSeconds, formatEpochFields,
