@@ -101,6 +101,29 @@ const VALUE_ENDS = {
 } as const;
 const VALUE_NAMES = ['clock bias (s)', 'bias sigma (s)', 'clock rate', 'rate sigma', 'clock acceleration (1/s)', 'acceleration sigma (1/s)'];
 
+/** F10.6 seconds field (blank-padded). */
+const SECOND = /^ *\d+(\.\d*)?$/;
+
+/** Value of an unsigned I-format field in columns a+1..b (leading blanks allowed), or NaN. */
+function unsignedField(t: string, a: number, b: number): number {
+  if (t.length < b) return Number.NaN;
+  let i = a;
+  while (i < b && t.charCodeAt(i) === 32) i++;
+  if (i === b) return Number.NaN;
+  let v = 0;
+  for (; i < b; i++) {
+    const c = t.charCodeAt(i) - 48;
+    if (c < 0 || c > 9) return Number.NaN;
+    v = v * 10 + c;
+  }
+  return v;
+}
+
+/** A date every month has (day 1-28) and an ordinary time of day: valid without the calendar (the others go to validEpochFields). */
+function plainEpoch(f: EpochFields): boolean {
+  return f.month >= 1 && f.month <= 12 && f.day >= 1 && f.day <= 28 && f.hour <= 23 && f.minute <= 59 && f.second < 60;
+}
+
 interface Pending {
   type: string;
   name: string;
@@ -199,11 +222,11 @@ export class RinexClockParser {
     }];
   }
 
-  /** Integer field of columns a+1..b (blank-padded). */
+  /** Integer field of columns a+1..b (blank-padded, I format). */
   private _int(line: TextLine, a: number, b: number, what: string): number {
-    const s = line.text.slice(a, b);
-    if (!/^ *\d+$/.test(s)) throw this._error(line.lineNumber, a + 1, `${what} (an integer in columns ${a + 1}-${b})`, s);
-    return Number(s);
+    const v = unsignedField(line.text, a, b);
+    if (v !== v) throw this._error(line.lineNumber, a + 1, `${what} (an integer in columns ${a + 1}-${b})`, line.text.slice(a, b));
+    return v;
   }
 
   private _record(line: TextLine): RinexClockEvent[] {
@@ -226,7 +249,7 @@ export class RinexClockParser {
       minute: this._int(line, s + 13, s + 16, 'epoch minute'),
       second: this._second(line, s + 16, s + 26),
     };
-    if (!validEpochFields(epoch)) {
+    if (!plainEpoch(epoch) && !validEpochFields(epoch)) {
       throw this._error(line.lineNumber, s + 1, `a valid epoch "yyyy mm dd hh mm ss.ssssss" in columns ${s + 1}-${s + 26}`, t.slice(s, s + 26));
     }
     const count = this._int(line, s + 26, s + 29, 'number of data values');
@@ -239,7 +262,7 @@ export class RinexClockParser {
 
   private _second(line: TextLine, a: number, b: number): number {
     const s = line.text.slice(a, b);
-    if (!/^ *\d+(\.\d*)?$/.test(s)) throw this._error(line.lineNumber, a + 1, `epoch second (F10.6 in columns ${a + 1}-${b})`, s);
+    if (!SECOND.test(s)) throw this._error(line.lineNumber, a + 1, `epoch second (F10.6 in columns ${a + 1}-${b})`, s);
     return Number(s);
   }
 
@@ -256,29 +279,36 @@ export class RinexClockParser {
    */
   private _values(line: TextLine, from: number, ends: readonly number[], first: number, count: number, recordLine?: number): number[] {
     const t = line.text;
-    const where = recordLine === undefined ? '' : ` (continuation of the record on line ${recordLine})`;
-    const tokens: { text: string; start: number; end: number }[] = [];
-    const re = /\S+/g;
-    re.lastIndex = from;
-    for (let m = re.exec(t); m !== null; m = re.exec(t)) tokens.push({ text: m[0], start: m.index + 1, end: m.index + m[0].length });
+    const n = t.length;
     const out: number[] = [];
+    const what = (k: number) => `${VALUE_NAMES[first + k]} (value ${first + k + 1} of ${count}, E19.12 in columns ${ends[k]! - 18}-${ends[k]})` +
+      (recordLine === undefined ? '' : ` (continuation of the record on line ${recordLine})`);
+    let pos = from;
     for (let k = 0; k < ends.length; k++) {
       const end = ends[k]!;
-      const what = `${VALUE_NAMES[first + k]} (value ${first + k + 1} of ${count}, E19.12 in columns ${end - 18}-${end})${where}`;
-      const tok = tokens[k];
-      if (!tok) throw this._error(line.lineNumber, t.trimEnd().length + 1, `${what}: the line ends before it (record cut)`, t.slice(Math.max(0, end - 19)));
-      if (!E_FORMAT.test(tok.text) || tok.text.length > 19) {
-        throw this._error(line.lineNumber, tok.start, `${what}: a complete number in exponent form such as -0.123456789012E-03`, tok.text);
+      while (pos < n && t.charCodeAt(pos) === 32) pos++;
+      if (pos >= n) throw this._error(line.lineNumber, t.trimEnd().length + 1, `${what(k)}: the line ends before it (record cut)`, t.slice(Math.max(0, end - 19)));
+      let stop = pos;
+      while (stop < n && t.charCodeAt(stop) !== 32) stop++;
+      const tok = t.slice(pos, stop);
+      if (tok.length > 19 || !E_FORMAT.test(tok)) {
+        throw this._error(line.lineNumber, pos + 1, `${what(k)}: a complete number in exponent form such as -0.123456789012E-03`, tok);
       }
-      if (tok.end !== end && tok.end !== end - 1) {
-        throw this._error(line.lineNumber, tok.start, `${what}: a field ending in column ${end}; it ends in column ${tok.end}`, tok.text);
+      if (stop !== end && stop !== end - 1) {
+        throw this._error(line.lineNumber, pos + 1, `${what(k)}: a field ending in column ${end}; it ends in column ${stop}`, tok);
       }
-      const v = Number(tok.text.replace(/[Dd]/, 'E'));
-      if (!Number.isFinite(v)) throw this._error(line.lineNumber, tok.start, `${what}: a finite number`, tok.text);
+      const v = Number(tok.includes('D') || tok.includes('d') ? tok.replace(/[Dd]/, 'E') : tok);
+      if (!Number.isFinite(v)) throw this._error(line.lineNumber, pos + 1, `${what(k)}: a finite number`, tok);
       out.push(v);
+      pos = stop;
     }
-    const extra = tokens[ends.length];
-    if (extra) throw this._error(line.lineNumber, extra.start, `no more than ${ends.length} value(s) on this line (the record declares ${count})${where}`, extra.text);
+    while (pos < n && t.charCodeAt(pos) === 32) pos++;
+    if (pos < n) {
+      let stop = pos;
+      while (stop < n && t.charCodeAt(stop) !== 32) stop++;
+      const where = recordLine === undefined ? '' : ` (continuation of the record on line ${recordLine})`;
+      throw this._error(line.lineNumber, pos + 1, `no more than ${ends.length} value(s) on this line (the record declares ${count})${where}`, t.slice(pos, stop));
+    }
     return out;
   }
 
