@@ -5,9 +5,9 @@
  */
 import type { Seconds, Vector3 } from '../units.js';
 import type { EpochFields } from './line-reader.js';
+
 /** SP3 time-system identifiers (SP3-c/d `%c` line, columns 10-12 [M]). */
 export type Sp3TimeSystem = 'GPS' | 'GLO' | 'GAL' | 'TAI' | 'UTC' | 'BDT' | 'QZS' | 'IRN';
-
 
 /** SP3 format version letters read. */
 export type Sp3Version = 'a' | 'b' | 'c' | 'd';
