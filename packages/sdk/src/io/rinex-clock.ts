@@ -214,7 +214,11 @@ export class RinexClockParser {
       return [];
     }
     const endAt = labelAt('END OF HEADER');
-    if (endAt < 0) return [];
+    if (endAt < 0) {
+      // Every header line carries its label (COMMENT, PGM / RUN BY / DATE, ...); a line without one is not a header line.
+      if (text.slice(60).trim() === '') throw this._error(line.lineNumber, 61, 'a header label from column 61 (66 in version 3.04), or "END OF HEADER"', text);
+      return [];
+    }
     this._headerDone = true;
     return [{
       kind: 'header',

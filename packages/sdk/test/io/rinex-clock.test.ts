@@ -154,6 +154,7 @@ describe('parseRinexClock: refusals with file:line:column (fixed columns of the 
     expectParseError(() => parseRinexClock('     4.00           C                   G                   RINEX VERSION / TYPE\n', src), 1, 6, /version from 2\.00 to 3\.05/);
     expectParseError(() => parseRinexClock(H304.split('\n')[0]! + '\n', src), 2, undefined, /END OF HEADER/);
     expectParseError(() => parseRinexClock(`${H304.split('\n')[0]}\n${''.padEnd(65)}TIME SYSTEM ID\n`, src), 2, 4, /time system identifier/);
+    expectParseError(() => parseRinexClock(`${H304.split('\n')[0]}\nAS G05 stray line\n`, src), 2, 61, /a header label from column 61/);
   });
 });
 
