@@ -4,7 +4,7 @@
  * `--rinex-clock <file> --clock <name>`. One place for the flags, their help and their errors.
  */
 import { createReadStream } from 'node:fs';
-import { readPhaseText, readRinexClock, rinexClockSeries, type SampleGap } from '@tauline/sdk/io';
+import { readPhaseText, readRinexClockSeries, type SampleGap } from '@tauline/sdk/io';
 import { UsageError, optionalFlag, type FlagSpec, type ParsedArgs } from './framework.js';
 import { requireRegularFile } from './files.js';
 
@@ -23,7 +23,7 @@ const TEXT_FLAGS: Record<RecordKind, FlagSpec> = {
 export function recordFlags(kinds: readonly RecordKind[]): Record<string, FlagSpec> {
   const flags: Record<string, FlagSpec> = {};
   for (const kind of kinds) flags[kind] = TEXT_FLAGS[kind];
-  flags['rinex-clock'] = { type: 'string', value: '<file>', description: 'RINEX clock file (2.00–3.04); the clock bias of --clock is used as phase.' };
+  flags['rinex-clock'] = { type: 'string', value: '<file>', description: 'RINEX clock file (versions 2.00–3.05, streamed); the clock bias of --clock is used as phase.' };
   flags['clock'] = { type: 'string', value: '<name>', description: 'Satellite (e.g. G05) or station name in the RINEX clock file.' };
   return flags;
 }
@@ -88,8 +88,8 @@ async function readRecord(args: ParsedArgs, kinds: readonly RecordKind[], tau0: 
     const clock = optionalFlag(args, 'clock');
     if (clock === undefined) throw new UsageError('--rinex-clock needs --clock <name> (satellite such as G05, or station name)');
     await requireRegularFile(rinexFile, 'a RINEX clock file');
-    const file = await readRinexClock(createReadStream(rinexFile, { encoding: 'utf8' }), rinexFile);
-    const s = rinexClockSeries(file, clock, tau0Option);
+    // Streamed: only the chosen clock's records are kept, so memory follows its series, not the file.
+    const s = await readRinexClockSeries(createReadStream(rinexFile, { encoding: 'utf8' }), clock, { sourceName: rinexFile, ...tau0Option });
     // With one epoch and --tau0 the record is still a single sample: a longer file is the only fix.
     if (s.tau0 === undefined) throw new UsageError(`clock ${clock} has a single epoch; give a longer file`);
     return {

@@ -179,6 +179,37 @@ describe('tauline clock --rinex-clock <file> --clock <name>', () => {
     expect(r.err).toMatch(/long-304\.clk.*"G99".*clocks present: ORVA00XYZ, G37/);
   });
 
+  it('tauline clock and tauline stability read RINEX clock 2.00, 3.02 and 3.05 files (A4 and A9 layouts)', async () => {
+    const FIX = join(ROOT, 'test/fixtures/rinex-clock');
+    const v302 = JSON.parse((await run(['clock', '--rinex-clock', join(FIX, 'fictional-302.clk'), '--clock', 'E14', '--json'])).out);
+    expect(v302.input).toMatchObject({ clock: 'E14', tau0: 60, samples: 16, timeSystem: 'GPS' });
+    const v305 = await run(['stability', '--rinex-clock', join(FIX, 'fictional-305.clk'), '--clock', 'E27', '--statistics', 'oadev', '--json']);
+    expect(v305.status).toBe(0);
+    expect(JSON.parse(v305.out).input).toMatchObject({ clock: 'E27', tau0: 30, samples: 8, timeSystem: 'GAL' });
+    const v200 = await run(['clock', '--rinex-clock', join(FIX, 'fictional-200.clk'), '--clock', 'G12']);
+    expect(v200.status).toBe(0);
+    expect(v200.out).toMatch(/clock G12/);
+  });
+
+  it('tauline clock --rinex-clock refuses a year-9999 record before allocating (exit 2, one line naming file, line, gap and limit) and a record cut inside a value', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'tauline-clk-'));
+    const lines = readFileSync(LONG, 'utf8').split('\n');
+    const far = join(dir, 'far.clk');
+    const last = lines.map((l, i) => (l.startsWith('AS G37') ? i : -1)).filter((i) => i >= 0);
+    const [prev, final] = last.slice(-2) as [number, number];
+    writeFileSync(far, lines.map((l, i) => (i === final ? l.replace(/2026 02 0\d/, '9999 12 31') : l)).join('\n'));
+    const r = await run(['clock', '--rinex-clock', far, '--clock', 'G37']);
+    expect(r.status).toBe(2);
+    expect(r.err.trim().split('\n')).toHaveLength(1);
+    expect(r.err).toContain(`far.clk:${final + 1}:1: expected a clock series of at most 50000000 samples (MAX_SERIES_SAMPLES): the gap of `);
+    expect(r.err).toContain(` s from the record on line ${prev + 1}`);
+    const cut = join(dir, 'cut.clk');
+    writeFileSync(cut, [...lines.slice(0, 10), lines[10]!.slice(0, 51), ...lines.slice(11)].join('\n'));
+    const c = await run(['clock', '--rinex-clock', cut, '--clock', 'G37']);
+    expect(c.status).toBe(2);
+    expect(c.err).toMatch(/cut\.clk:11:47: expected clock bias \(s\) \(value 1 of 2, E19\.12 in columns 46-64\): a complete number in exponent form/);
+  });
+
   it('tauline clock --rinex-clock without --clock exits 2 with one line asking for --clock', async () => {
     const r = await run(['clock', '--rinex-clock', LONG, '--tau0', '300']);
     expect(r.status).toBe(2);

@@ -57,14 +57,16 @@ export const preciseCommand: Command = {
     }),
   },
   details: `
-Reads an SP3-c or SP3-d file (streamed) and computes at each epoch Δt_r = −2 r·v/c² (IERS Conventions 2010 §10.2
+Reads an SP3-a, SP3-b, SP3-c or SP3-d file (streamed; SP3-a/b state no time system: GPS time is assumed and
+said so) and computes at each epoch Δt_r = −2 r·v/c² (IERS Conventions 2010 §10.2
 eq. 10.11 [V1]) in the file's Earth-fixed frame: (ω × r)·r = 0, so r·v is the same as in the inertial frame.
 v: the file's velocity records when present; otherwise the derivative of the Lagrange polynomial through the
 ${DEFAULT_LAGRANGE_POINTS} nearest valid positions (centred; one-sided at the file ends). Bad/absent positions
-(0.000000) are reported as gaps, never used as zero. With --nav, the broadcast Δt_r = F e √A sin E_k of the
+(0.000000) and satellites of the header without a position record at an epoch are reported as gaps, never used
+as zero or skipped. With --nav, the broadcast Δt_r = F e √A sin E_k of the
 record valid at the same instant (converted to the system's own scale) and the difference precise − broadcast are
 added; the difference includes the share of the broadcast harmonic corrections in r·v (≈ 0.01 ns) and orbit errors.
-JSON: { timeSystem, coordinateFrame, agency, lagrangePoints, satellites: [{ id, samples: [{ t, relativisticSeconds,
+JSON: { timeSystem, timeSystemAssumed, coordinateFrame, agency, lagrangePoints, satellites: [{ id, samples: [{ t, relativisticSeconds,
 velocitySource, broadcastRelativisticSeconds?, differenceSeconds? }], gaps: [{ t, reason }] }], units }; t is in the
 file's time system, the corrections in SI seconds. A --satellite not listed in the file's header is refused.
 Exit status: 0 success, 2 invalid input or a malformed file.`,
@@ -163,6 +165,7 @@ Exit status: 0 success, 2 invalid input or a malformed file.`,
     if (format === 'json') {
       io.out(toJson({
         timeSystem: header.timeSystem,
+        timeSystemAssumed: header.timeSystemAssumed,
         coordinateFrame: header.coordinateFrame,
         agency: header.agency,
         sp3Version: header.version,
@@ -177,7 +180,8 @@ Exit status: 0 success, 2 invalid input or a malformed file.`,
       }));
       return EXIT_OK;
     }
-    io.out(`Precise-orbit relativistic correction −2 r·v/c² (SP3-${header.version}, ${header.timeSystem} time, frame ${header.coordinateFrame}, ${header.agency})\n\n`);
+    const timeNote = header.timeSystemAssumed ? `${header.timeSystem} time assumed: SP3-${header.version} states none` : `${header.timeSystem} time`;
+    io.out(`Precise-orbit relativistic correction −2 r·v/c² (SP3-${header.version}, ${timeNote}, frame ${header.coordinateFrame}, ${header.agency})\n\n`);
     const rows: (string | number)[][] = [];
     for (const id of order) {
       for (const o of bySat.get(id)!.samples) {
