@@ -5,6 +5,7 @@
 import { parseArgs, type ParseArgsConfig } from 'node:util';
 import { TaulineError, InvalidArgumentError, formatReceived } from '@tauline/sdk/errors';
 import { MAX_SEED } from '@tauline/sdk/steering';
+import { fitTable, wrapText } from './layout.js';
 
 /** Exit status: 0 success, 1 a finding (e.g. a review fail), 2 unusable input. */
 export const EXIT_OK = 0;
@@ -59,7 +60,8 @@ export class UsageError extends Error {
 }
 
 export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
-  const options: NonNullable<ParseArgsConfig['options']> = { help: { type: 'boolean', short: 'h' } };
+  // --help and --wide (tables and text in their long form, not fitted to 100 columns) are flags of every command.
+  const options: NonNullable<ParseArgsConfig['options']> = { help: { type: 'boolean', short: 'h' }, wide: { type: 'boolean' } };
   for (const [name, spec] of Object.entries(command.flags)) {
     options[name] = { type: spec.type, multiple: spec.multiple ?? false, ...(spec.short ? { short: spec.short } : {}) };
   }
@@ -241,21 +243,16 @@ export function formatFlag<F extends string>(args: ParsedArgs, formats: readonly
   return (chosen.keys().next().value as F | undefined) ?? defaultFormat;
 }
 
-/** Renders rows as an aligned text table. Numbers are right-aligned. */
+/** Renders rows as an aligned text table, unlimited in width. Numbers are right-aligned (also in a column holding "—"). */
 export function table(headers: string[], rows: (string | number)[][]): string {
-  const cells = rows.map((r) => r.map((c) => String(c)));
-  // Widths by a loop: spreading a long column into Math.max overflows the call stack (~125 000 rows).
-  const widths = headers.map((h) => h.length);
-  for (const r of cells) r.forEach((c, i) => { if (i < widths.length && c.length > widths[i]!) widths[i] = c.length; });
-  const numeric = headers.map((_, i) => rows.every((r) => typeof r[i] === 'number' || /^[-+]?[\d.]/.test(String(r[i] ?? ''))));
-  const fmt = (r: string[]) => r.map((c, i) => (numeric[i] ? c.padStart(widths[i]!) : c.padEnd(widths[i]!))).join('  ').trimEnd();
-  return [fmt(headers), widths.map((w) => '─'.repeat(w)).join('  '), ...cells.map(fmt)].join('\n') + '\n';
+  return fitTable(headers, rows, { width: undefined });
 }
 
 /** Two-column key/value table for a single result. */
-export function keyValueTable(rows: [string, string][]): string {
+export function keyValueTable(rows: [string, string][], width?: number): string {
   const w = Math.max(...rows.map(([k]) => k.length));
-  return rows.map(([k, v]) => `${k.padEnd(w)}  ${v}`).join('\n') + '\n';
+  // With a width, a long value wraps under itself (hanging indent past the key column).
+  return rows.map(([k, v]) => wrapText(`${k.padEnd(w)}  ${v}`, width, ' '.repeat(w + 2)).join('\n')).join('\n') + '\n';
 }
 
 /** Formats a number with `digits` significant digits, keeping exponent form for tiny values. */
@@ -322,6 +319,7 @@ export function commandHelp(command: Command): string {
   const labels = names.map((n) => `--${n}${command.flags[n]!.value ? ` ${command.flags[n]!.value}` : ''}`);
   const w = Math.max(...labels.map((l) => l.length), 10);
   names.forEach((n, i) => lines.push(`  ${labels[i]!.padEnd(w)}  ${command.flags[n]!.description}`));
+  lines.push(`  ${'--wide'.padEnd(w)}  Tables and text in their long form, not fitted to 100 columns.`);
   lines.push(`  ${'--help'.padEnd(w)}  Show this help.`);
   if (command.details) lines.push('', command.details.trim());
   return lines.join('\n') + '\n';

@@ -7,6 +7,7 @@ import { InvalidArgumentError } from '@tauline/sdk/errors';
 import {
   EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, numberFlag, sig, toJson, withFlagNames, type Command,
 } from '../framework.js';
+import { outputWidth } from '../layout.js';
 import { constantsFlag } from './rate.js';
 
 /**
@@ -77,7 +78,7 @@ Exit status: 0 success, 2 invalid input.`,
       ['constants', `${constants.name} (F = ${constants.relativisticF.toExponential(9)} s/√m)`],
       ['correction Δt_r', `${sig(result.correctionSeconds, 13)} s (${sig(result.correctionSeconds * 1e9, 10)} ns; add to Δt_sv)`],
       ['amplitude', `${sig(result.amplitudeSeconds, 13)} s (${sig(result.amplitudeSeconds * 1e9, 10)} ns)`],
-    ]));
+    ], outputWidth(args)));
     return EXIT_OK;
   },
 };

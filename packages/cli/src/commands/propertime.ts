@@ -7,9 +7,10 @@ import { GRAVITY_MODELS, type GravityModel } from '@tauline/sdk/orbit';
 import { integrateProperTime } from '@tauline/sdk/relativity';
 import type { ConstantSet } from '@tauline/sdk/constants';
 import {
-  EXIT_OK, TABLE_OR_JSON, choiceFlag, formatFlag, formatFlags, numberFlag, parseNumber, requireFlag, sig, table, toJson, withFlagNames,
+  EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, choiceFlag, formatFlag, formatFlags, numberFlag, parseNumber, requireFlag, sig, toJson, withFlagNames,
   type Command,
 } from '../framework.js';
+import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { CONSTANTS_FLAG, constantsFlag } from './rate.js';
 
 /** Parses `x,y,z,vx,vy,vz` (metres, m/s). */
@@ -65,7 +66,8 @@ potential with Sun/Moon from the low-precision series of Montenbruck & Gill, Sat
 Accuracy: integration error < 1 ps/day at the default tolerance (LEO to GEO, e up to 0.16); model limits: see
 packages/sdk/docs/relativity-models.md. τ − TT = 0 at t = 0; the samples are t = 0, step, 2·step, … and the duration.
 JSON fields: samples [{ t (s), tauMinusTT (s) }], model, constants, epochTtSecondsSinceJ2000, ephemeris,
-relativeTolerance, acceptedSteps, rejectedSteps, meanRate (τ − TT at the end divided by the duration), units.
+relativeTolerance, acceptedSteps, rejectedSteps, meanRate (τ − TT at the end divided by the duration), caution
+(the mean rate is what a factory offset is computed from), units.
 An unbound state (v ≥ √(2GM/r), e.g. a velocity in the wrong unit) is refused.
 Exit status: 0 success, 2 invalid input.`,
   run(args, io) {
@@ -100,16 +102,19 @@ Exit status: 0 success, 2 invalid input.`,
         acceptedSteps: result.acceptedSteps,
         rejectedSteps: result.rejectedSteps,
         meanRate,
+        // The mean rate is the value a factory offset is computed from: it carries the flight caution.
+        caution: FLIGHT_CAUTION,
         units: { t: 's (since the start)', tauMinusTT: 's', epochTtSecondsSinceJ2000: 's (TT)', relativeTolerance: 'dimensionless', meanRate: 'dimensionless' },
       }));
       return EXIT_OK;
     }
+    const width = outputWidth(args);
     io.out(`Proper time τ − TT, model ${result.model}, constants ${result.constants}` +
       (result.model === 'full' ? `, epoch TT J2000 + ${result.epochTtSecondsSinceJ2000} s (${result.ephemeris})` : '') + '\n\n');
-    io.out(table(['t (s)', 'τ − TT (s)', 'τ − TT (ns)'],
-      Array.from(result.t, (t: number, k: number): (string | number)[] => [sig(t, 12), result.tauMinusTT[k]!.toExponential(12), (result.tauMinusTT[k]! * 1e9).toFixed(6)])));
-    io.out(`\nmean rate over the span: ${meanRate.toExponential(9)} (${sig(meanRate * 86400e6, 8)} µs/day); ` +
-      `${result.acceptedSteps} steps (${result.rejectedSteps} rejected), rtol ${result.relativeTolerance}\n`);
+    io.out(fitTable(['t (s)', 'τ − TT (s)', 'τ − TT (ns)'],
+      Array.from(result.t, (t: number, k: number): (string | number)[] => [sig(t, 12), result.tauMinusTT[k]!.toExponential(12), (result.tauMinusTT[k]! * 1e9).toFixed(6)]), { width }));
+    io.out(wrapLines(`\nmean rate over the span: ${meanRate.toExponential(9)} (${sig(meanRate * 86400e6, 8)} µs/day); ` +
+      `${result.acceptedSteps} steps (${result.rejectedSteps} rejected), rtol ${result.relativeTolerance}\n\n${FLIGHT_CAUTION}\n`, width));
     return EXIT_OK;
   },
 };

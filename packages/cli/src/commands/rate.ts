@@ -9,6 +9,7 @@ import {
   EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, choiceFlag, formatFlag, formatFlags, keyValueTable, numberFlag, optionalFlag, sig, toJson, withFlagNames,
   type Command, type FlagSpec, type ParsedArgs,
 } from '../framework.js';
+import { outputWidth, wrapLines } from '../layout.js';
 
 /** The `--constants` flag spec (the set of GM, L_G, J2, … the command computes with). */
 export const CONSTANTS_FLAG: FlagSpec = {
@@ -96,8 +97,9 @@ Exit status: 0 success, 2 invalid input.`,
       rows.push(['frequency to set', `${Number(shifted.offsetFrequencyHz.toPrecision(16))} Hz`]);
       rows.push(['offset', `${signed(shifted.offsetHz)} Hz`]);
     }
-    io.out(keyValueTable(rows));
-    io.out(`\n${FLIGHT_CAUTION}\n`);
+    const width = outputWidth(args);
+    io.out(keyValueTable(rows, width));
+    io.out(wrapLines(`\n${FLIGHT_CAUTION}\n`, width));
     return EXIT_OK;
   },
 };
