@@ -5,7 +5,8 @@
 import { parseArgs, type ParseArgsConfig } from 'node:util';
 import { TaulineError, InvalidArgumentError, formatReceived } from '@tauline/sdk/errors';
 import { MAX_SEED } from '@tauline/sdk/steering';
-import { fitTable, wrapText } from './layout.js';
+import { TABLE_WIDTH, fitTable, wrapText } from './layout.js';
+import { didYouMean } from './suggest.js';
 
 /** Exit status: 0 success, 1 a finding (e.g. a review fail), 2 unusable input. */
 export const EXIT_OK = 0;
@@ -82,7 +83,9 @@ export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
     parsed = parseArgs({ args, options, allowPositionals: command.allowPositionals ?? false, strict: true, tokens: true });
   } catch (e) {
     const message = e instanceof Error ? e.message.replace(/\. To specify a positional.*$/s, '').replace(/\s*\n\s*/g, ' ') : String(e);
-    throw new UsageError(`${message} (see \`tauline ${command.name} --help\`)`);
+    const unknown = /^Unknown option '--?([^'=]+)/.exec(message);
+    const hint = unknown ? didYouMean(unknown[1]!, [...Object.keys(command.flags), 'help', 'wide'], '--') : '';
+    throw new UsageError(`${message}${hint} (see \`tauline ${command.name} --help\`)`);
   }
   // A flag given twice would silently keep the last value: refuse it unless the flag takes several.
   const seen = new Map<string, string | undefined>();
@@ -314,11 +317,15 @@ export function describeFailure(error: unknown): { line: string; status: number 
 }
 
 export function commandHelp(command: Command): string {
-  const lines = [`tauline ${command.name} ${command.usage}`, '', command.summary, ''];
+  // The usage line wraps between its [optional parts], never inside one (no-break spaces while wrapping).
+  const usage = command.usage.replace(/\[[^\]]*\]/g, (part) => part.replace(/ /g, '\u00a0'));
+  const usageLines = wrapText(`tauline ${command.name} ${usage}`, TABLE_WIDTH, ' '.repeat(command.name.length + 9)).map((l) => l.replace(/\u00a0/g, ' '));
+  const lines = [...usageLines, '', command.summary, ''];
   const names = Object.keys(command.flags);
   const labels = names.map((n) => `--${n}${command.flags[n]!.value ? ` ${command.flags[n]!.value}` : ''}`);
   const w = Math.max(...labels.map((l) => l.length), 10);
-  names.forEach((n, i) => lines.push(`  ${labels[i]!.padEnd(w)}  ${command.flags[n]!.description}`));
+  // Flag help wraps at 100 columns under its description column (the details below are laid out by hand).
+  names.forEach((n, i) => lines.push(...wrapText(`  ${labels[i]!.padEnd(w)}  ${command.flags[n]!.description}`, TABLE_WIDTH, ' '.repeat(w + 4))));
   lines.push(`  ${'--wide'.padEnd(w)}  Tables and text in their long form, not fitted to 100 columns.`);
   lines.push(`  ${'--help'.padEnd(w)}  Show this help.`);
   if (command.details) lines.push('', command.details.trim());
