@@ -14,6 +14,7 @@ import {
 } from '../framework.js';
 import { readClockRecord, recordFlags } from '../records.js';
 import { epochFormat } from '../epochs.js';
+import { phaseSigmaHint, warn } from '../plausibility.js';
 import { fitTable, outputWidth, wrappedOut } from '../layout.js';
 
 function choice<T extends number>(args: ParsedArgs, flag: string, allowed: readonly T[], fallback: T): T {
@@ -111,7 +112,8 @@ Uncertainties: af0/af1/af2 and predictions under the fitted clock noise plus mea
 (polynomialNoiseCovariance; the white-noise formula would understate them); q's with χ² intervals (±1σ
 level) from a covariance that accounts for the correlation of overlapping estimates.
 h-coefficients (IEEE Std 1139, one-sided): h0 = 2q1, h₋₂ = q2/(2π²), h₋₄ = q3/(8π⁴).
-Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0 success, 2 unusable input.`,
+Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. A --measurement-sigma of 1 µs or more (ns given as s?)
+is used as given, with a warning on stderr. Exit status: 0 success, 2 unusable input.`,
   async run(args, io) {
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
     const tau0Flag = numberFlag(args, 'tau0');
@@ -119,6 +121,8 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
     const states = choice(args, 'states', [2, 3] as const, 2);
     const sigmaFlag = numberFlag(args, 'measurement-sigma');
     if (sigmaFlag !== undefined && !(sigmaFlag > 0)) throw new UsageError(`--measurement-sigma must be > 0 s; received ${sigmaFlag}`);
+    const sigmaHint = sigmaFlag === undefined ? undefined : phaseSigmaHint('--measurement-sigma', sigmaFlag);
+    if (sigmaHint) warn(io, 'clock', sigmaHint);
     const predictText = optionalFlag(args, 'predict');
     const predict = predictText === undefined ? [] : predictText.split(',').map((v) => parseNumber('--predict', v));
     const rec = await readClockRecord(args, ['phase'], tau0Flag);

@@ -9,6 +9,7 @@ import {
 } from '../framework.js';
 import { outputWidth } from '../layout.js';
 import { constantsFlag } from './rate.js';
+import { angleHint, warn } from '../plausibility.js';
 
 /**
  * Largest |M| accepted, in radians. Beyond it a float64 keeps the angle modulo 2π to worse than
@@ -42,6 +43,7 @@ Sources: IS-GPS-200 §20.3.3.3.3.1; IERS Conventions (2010) §10.2 eqs. 10.10–
 Use --constants gps-icd for IS-GPS-200 conformance (F = −4.442807633e-10 s/√m).
 JSON fields: semiMajorAxis (m), eccentricity, meanAnomaly (rad), eccentricAnomaly (rad), constants,
 relativisticF (s/√m), correctionSeconds, amplitudeSeconds, units (unit of each field).
+A mean anomaly above one turn but at most 360 (degrees?) is used as given, with a warning on stderr.
 Exit status: 0 success, 2 invalid input.`,
   run(args, io) {
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
@@ -55,6 +57,8 @@ Exit status: 0 success, 2 invalid input.`,
     const constants = constantsFlag(args);
     const result = withFlagNames(FLAG_NAMES,
       () => periodicCorrectionAtMeanAnomaly(semiMajorAxis, eccentricity, meanAnomaly, constants));
+    const hint = angleHint('--mean-anomaly', meanAnomaly);
+    if (hint) warn(io, 'periodic', hint);
     if (format === 'json') {
       io.out(toJson({
         semiMajorAxis, eccentricity, meanAnomaly,

@@ -12,6 +12,7 @@ import {
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { CONSTANTS_FLAG, constantsFlag } from './rate.js';
+import { speedHint, warn } from '../plausibility.js';
 
 /** Parses `x,y,z,vx,vy,vz` (metres, m/s). */
 export function parseStateFlag(text: string): { position: [number, number, number]; velocity: [number, number, number] } {
@@ -68,7 +69,8 @@ packages/sdk/docs/relativity-models.md. τ − TT = 0 at t = 0; the samples are 
 JSON fields: samples [{ t (s), tauMinusTT (s) }], model, constants, epochTtSecondsSinceJ2000, ephemeris,
 relativeTolerance, acceptedSteps, rejectedSteps, meanRate (τ − TT at the end divided by the duration), caution
 (the mean rate is what a factory offset is computed from), units.
-An unbound state (v ≥ √(2GM/r), e.g. a velocity in the wrong unit) is refused.
+An unbound state (v ≥ √(2GM/r), e.g. a velocity in the wrong unit) is refused; a speed under 1 % of the
+circular speed (km/s given as m/s?) is used as given, with a warning on stderr.
 Exit status: 0 success, 2 invalid input.`,
   run(args, io) {
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
@@ -80,6 +82,8 @@ Exit status: 0 success, 2 invalid input.`,
     const tolerance = numberFlag(args, 'tolerance');
     const constants = constantsFlag(args);
     requireBoundState(state, constants);
+    const hint = speedHint('--state (|velocity|)', Math.hypot(...state.velocity), Math.hypot(...state.position), constants.gm);
+    if (hint) warn(io, 'propertime', hint);
     const result = withFlagNames({
       '|state.position|': '--state (|position|)', 'state.position[0]': '--state x', 'state.position[1]': '--state y',
       'state.position[2]': '--state z', 'state.velocity[0]': '--state vx', 'state.velocity[1]': '--state vy',
