@@ -271,22 +271,8 @@ export function toJson(value: unknown): string {
   return JSON.stringify(value, (_k, v) => (typeof v === 'bigint' ? v.toString() : v), 2) + '\n';
 }
 
-/** A one-line progress bar on stderr, redrawn in place when the whole percentage changes; only for terminals. */
-export function progressBar(io: Io, label: string): { update: (done: number, total: number) => void; finish: () => void } {
-  let last = -1;
-  return {
-    update(done, total) {
-      const pct = Math.min(100, Math.floor((100 * done) / total));
-      if (pct === last) return;
-      last = pct;
-      const filled = Math.round(pct / 4);
-      io.err(`\r${label} [${'#'.repeat(filled)}${'.'.repeat(25 - filled)}] ${String(pct).padStart(3)} %`);
-    },
-    finish() {
-      io.err(`\r${' '.repeat(label.length + 35)}\r`);
-    },
-  };
-}
+/** The progress bar lives in its own module; re-exported here for the commands that import it from the framework. */
+export { progressBar } from './progress.js';
 
 /** The line printed for flight-configuration outputs. */
 export const FLIGHT_CAUTION =

@@ -9,7 +9,7 @@ import {
   EXIT_FINDING, EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, onePositional, optionalFlag, table, toJson,
   type Command, type FlagSpec, type ParsedArgs,
 } from '../framework.js';
-import { TABLE_WIDTH, fitTable, outputWidth, wrapLines } from '../layout.js';
+import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { readJsonFile, readTextFile } from '../files.js';
 
 const METHODS: readonly SteeringMethod[] = ['deadband', 'optimal', 'none'];
@@ -80,7 +80,7 @@ function stepText(c: SteeringPlan['commands'][number]): string {
  * The human-readable schedule, fitted to `width` display columns (undefined: the long form of `--wide`):
  * the command reasons then go under their rows.
  */
-export function planToText(scenario: SteeringScenario, method: string, plan: SteeringPlan, width: number | undefined = TABLE_WIDTH): string {
+export function planToText(scenario: SteeringScenario, method: string, plan: SteeringPlan, width: number | undefined): string {
   const out: string[] = [];
   const tol = scenario.tolerance;
   out.push(`${scenario.name ?? 'Steering plan'}: ${method} planner, ${scenario.epoch} + ${(scenario.horizonSeconds / 86_400).toFixed(2)} days`);

@@ -13,6 +13,10 @@ import {
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { CONSTANTS_FLAG, constantsFlag } from './rate.js';
 import { speedHint, warn } from '../plausibility.js';
+import { startProgress, withProgress } from '../progress.js';
+
+/** Orbits integrated above which a terminal shows progress (about a second of integration, j2 model). */
+export const PROPERTIME_PROGRESS_ORBITS = 100;
 
 /** Parses `x,y,z,vx,vy,vz` (metres, m/s). */
 export function parseStateFlag(text: string): { position: [number, number, number]; velocity: [number, number, number] } {
@@ -82,16 +86,22 @@ Exit status: 0 success, 2 invalid input.`,
     const tolerance = numberFlag(args, 'tolerance');
     const constants = constantsFlag(args);
     requireBoundState(state, constants);
-    const hint = speedHint('--state (|velocity|)', Math.hypot(...state.velocity), Math.hypot(...state.position), constants.gm);
-    if (hint) warn(io, 'propertime', hint);
-    const result = withFlagNames({
+    // Orbits in the span, from the initial radius: period T = 2π√(r³/GM) (Kepler's third law, circular orbit).
+    const r0 = Math.hypot(...state.position);
+    const orbits = duration / (2 * Math.PI * Math.sqrt(r0 ** 3 / constants.gm));
+    const bar = startProgress(io, 'integrating', orbits > PROPERTIME_PROGRESS_ORBITS);
+    const result = withProgress(bar, () => withFlagNames({
       '|state.position|': '--state (|position|)', 'state.position[0]': '--state x', 'state.position[1]': '--state y',
       'state.position[2]': '--state z', 'state.velocity[0]': '--state vx', 'state.velocity[1]': '--state vy',
       'state.velocity[2]': '--state vz', duration: '--duration', step: '--step', relativeTolerance: '--tolerance',
       epochTtSecondsSinceJ2000: '--epoch-tt-j2000',
     }, () => integrateProperTime(state, duration, step, {
       model, constants, epochTtSecondsSinceJ2000: epoch, ...(tolerance === undefined ? {} : { relativeTolerance: tolerance }),
-    }));
+      onProgress: bar.update,
+    })));
+    // Warned only once the state is accepted: a refused state gets its one error line alone.
+    const hint = speedHint('--state (|velocity|)', Math.hypot(...state.velocity), Math.hypot(...state.position), constants.gm);
+    if (hint) warn(io, 'propertime', hint);
     const n = result.t.length;
     const meanRate = result.tauMinusTT[n - 1]! / duration;
     if (format === 'json') {
@@ -113,8 +123,8 @@ Exit status: 0 success, 2 invalid input.`,
       return EXIT_OK;
     }
     const width = outputWidth(args);
-    io.out(`Proper time τ − TT, model ${result.model}, constants ${result.constants}` +
-      (result.model === 'full' ? `, epoch TT J2000 + ${result.epochTtSecondsSinceJ2000} s (${result.ephemeris})` : '') + '\n\n');
+    io.out(wrapLines(`Proper time τ − TT, model ${result.model}, constants ${result.constants}` +
+      (result.model === 'full' ? `, epoch TT J2000 + ${result.epochTtSecondsSinceJ2000} s (${result.ephemeris})` : '') + '\n\n', width));
     io.out(fitTable(['t (s)', 'τ − TT (s)', 'τ − TT (ns)'],
       Array.from(result.t, (t: number, k: number): (string | number)[] => [sig(t, 12), result.tauMinusTT[k]!.toExponential(12), (result.tauMinusTT[k]! * 1e9).toFixed(6)]), { width }));
     io.out(wrapLines(`\nmean rate over the span: ${meanRate.toExponential(9)} (${sig(meanRate * 86400e6, 8)} µs/day); ` +

@@ -9,6 +9,10 @@ import {
   type Command,
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
+import { startProgress } from '../progress.js';
+
+/** Monte Carlo draws (runs × spacecraft with a dispersion) above which a terminal shows progress. */
+export const REVIEW_PROGRESS_DRAWS = 1_000_000;
 import { readJsonFile } from '../files.js';
 
 const FORMATS = ['table', 'json', 'md', 'html'] as const;
@@ -67,11 +71,18 @@ Exit status: 0 all pass, 1 some fail or marginal, 2 the input could not be read.
     const seed = seedFlag(args);
     const document = await readJsonFile(path, 'a review file');
     let report: ReviewReport;
+    const dispersed = Array.isArray((document as { spacecraft?: unknown }).spacecraft)
+      ? ((document as { spacecraft: unknown[] }).spacecraft).filter((sc) => typeof sc === 'object' && sc !== null && 'dispersion' in sc).length : 0;
+    const bar = startProgress(io, 'Monte Carlo over the injection dispersion', (runs ?? 20_000) * dispersed > REVIEW_PROGRESS_DRAWS);
     try {
-      report = reviewOffsets(document, { ...(runs !== undefined ? { monteCarloRuns: runs } : {}), ...(seed !== undefined ? { seed } : {}) });
+      report = reviewOffsets(document, {
+        ...(runs !== undefined ? { monteCarloRuns: runs } : {}), ...(seed !== undefined ? { seed } : {}), onProgress: bar.update,
+      });
     } catch (error) {
       if (error instanceof Error) error.message = `${path}: ${error.message}`;
       throw error;
+    } finally {
+      bar.finish();
     }
     const actuatorRanges: Record<string, number> = {};
     const doc = document as { actuator?: { rangeFractional?: number }; spacecraft: { id: string; actuator?: { rangeFractional?: number } }[] };
