@@ -50,12 +50,6 @@ export function displayWidth(text: string): number {
   return width;
 }
 
-/** `text` padded with spaces on the right (`'end'`) or left (`'start'`) to `width` display columns. */
-export function pad(text: string, width: number, side: 'start' | 'end' = 'end'): string {
-  const fill = ' '.repeat(Math.max(0, width - displayWidth(text)));
-  return side === 'end' ? text + fill : fill + text;
-}
-
 /**
  * Word-wraps one paragraph to `width` display columns (unlimited when undefined). Continuation lines
  * start with `indent`; a word longer than a line stays whole on its own line (never cut).
@@ -124,44 +118,24 @@ export interface TableOptions {
   notes?: readonly (string | undefined)[];
 }
 
-interface Laid {
-  lines: string[];
+/** A planned layout: the columns kept (indices) and each one's header lines. */
+interface Plan {
+  keep: number[];
+  headers: string[][];
   /** Display width of the widest possible row. */
   width: number;
-  /** Display width of the first column. */
-  first: number;
-}
-
-function layColumns(headers: readonly string[][], cells: readonly string[][], numeric: readonly boolean[]): Laid {
-  const widths = headers.map((h) => Math.max(...h.map(displayWidth)));
-  // Widths by a loop: spreading a long column into Math.max overflows the call stack (~125 000 rows).
-  for (const r of cells) r.forEach((c, i) => { const w = displayWidth(c); if (i < widths.length && w > widths[i]!) widths[i] = w; });
-  const fmt = (r: readonly string[]) => r.map((c, i) => pad(c, widths[i]!, numeric[i] ? 'start' : 'end')).join('  ').trimEnd();
-  const headerLines = Math.max(...headers.map((h) => h.length));
-  const lines: string[] = [];
-  // Multi-line headers sit at the bottom of their block, next to the rule.
-  for (let k = 0; k < headerLines; k++) lines.push(fmt(headers.map((h) => h[k - (headerLines - h.length)] ?? '')));
-  lines.push(widths.map((w) => '─'.repeat(w)).join('  '));
-  for (const r of cells) lines.push(fmt(r));
-  return { lines, width: widths.reduce((a, w) => a + w, 0) + 2 * Math.max(0, widths.length - 1), first: widths[0] ?? 0 };
-}
-
-/** A header split into lines no wider than its widest cell (or its longest word). */
-function wrapHeader(header: string, cells: readonly string[][], column: number): string[] {
-  let widest = 0;
-  for (const r of cells) widest = Math.max(widest, displayWidth(r[column] ?? ''));
-  const longestWord = Math.max(...header.split(' ').map(displayWidth));
-  return wrapText(header, Math.max(widest, longestWord));
 }
 
 /**
  * Renders rows as an aligned text table that fits `options.width`: numbers right-aligned (a column of
  * numbers and "—" counts as numeric), headers wrapped onto several lines when that makes it fit, then the
- * `below` columns moved under their rows. Rows are joined with their notes and ended by a newline.
+ * `below` columns moved under their rows (or, with `panels`, the table split). Ends with a newline.
+ * Cell widths are measured once; layouts are planned on column widths and only the chosen one is drawn.
  */
 export function fitTable(headers: readonly string[], rows: readonly (readonly (string | number)[])[], options: TableOptions = {}): string {
   const width = 'width' in options ? options.width : TABLE_WIDTH;
   const cells = rows.map((r) => r.map((c) => String(c)));
+  const cellWidths = cells.map((r) => r.map(displayWidth));
   const numeric = headers.map((_, i) => {
     let any = false;
     for (const r of cells) {
@@ -172,53 +146,69 @@ export function fitTable(headers: readonly string[], rows: readonly (readonly (s
     }
     return any || cells.length === 0;
   });
-  // Text under a row starts under its second column (at most 8 columns in).
-  const withNotes = ({ lines, first }: Laid, moved: readonly number[]): string => {
-    const out = lines.slice(0, lines.length - cells.length);
-    const indent = ' '.repeat(Math.min(8, first + 2));
-    cells.forEach((r, k) => {
-      out.push(lines[lines.length - cells.length + k]!);
-      const extra: string[] = [];
-      const movedText = moved.filter((i) => !NO_VALUE.has(r[i] ?? '')).map((i) => (options.unlabelled?.includes(i) ? r[i]! : `${headers[i]} ${r[i]}`)).join(', ');
-      if (movedText !== '') extra.push(movedText);
-      const note = options.notes?.[k];
-      if (note) extra.push(note);
-      for (const text of extra) out.push(...wrapText(indent + text, width, indent + '  '));
-    });
-    return out.join('\n') + '\n';
-  };
-  // The columns in `keep`, their headers wrapped one at a time (the one overhanging its column most
-  // first) until the table fits.
-  const attempt = (keep: readonly number[]): Laid => {
-    const keptCells = cells.map((r) => keep.map((i) => r[i] ?? ''));
-    const keptNumeric = keep.map((i) => numeric[i]!);
-    const wrapped = keep.map((i) => [headers[i]!]);
-    let laid = layColumns(wrapped, keptCells, keptNumeric);
-    if (width === undefined) return laid;
-    const overhang = keep.map((i, j) => ({ j, short: wrapHeader(headers[i]!, keptCells, j) }))
+  // Widest cell of each column, by a loop: spreading a long column into Math.max overflows the call stack (~125 000 rows).
+  const dataWidth = headers.map(() => 0);
+  for (const r of cellWidths) r.forEach((w, i) => { if (i < dataWidth.length && w > dataWidth[i]!) dataWidth[i] = w; });
+  const columnWidth = (i: number, lines: readonly string[]) => Math.max(dataWidth[i]!, ...lines.map(displayWidth));
+  const planWidth = (keep: readonly number[], lines: readonly string[][]) =>
+    keep.reduce((sum, i, j) => sum + columnWidth(i, lines[j]!), 0) + 2 * Math.max(0, keep.length - 1);
+
+  // The columns in `keep`, their headers wrapped one at a time (the one overhanging its column most first) until the table fits.
+  const plan = (keep: number[]): Plan => {
+    const lines = keep.map((i) => [headers[i]!]);
+    let w = planWidth(keep, lines);
+    if (width === undefined) return { keep, headers: lines, width: w };
+    const overhang = keep.map((i, j) => ({ j, short: wrapText(headers[i]!, Math.max(dataWidth[i]!, ...headers[i]!.split(' ').map(displayWidth))) }))
       .map((o) => ({ ...o, saved: displayWidth(headers[keep[o.j]!]!) - Math.max(...o.short.map(displayWidth)) }))
       .filter((o) => o.saved > 0).sort((x, y) => y.saved - x.saved);
     for (const { j, short } of overhang) {
-      if (laid.width <= width) break;
-      wrapped[j] = short;
-      laid = layColumns(wrapped, keptCells, keptNumeric);
+      if (w <= width) break;
+      lines[j] = short;
+      w = planWidth(keep, lines);
     }
-    return laid;
+    return { keep, headers: lines, width: w };
   };
+
+  const draw = (p: Plan, moved: readonly number[]): string => {
+    const widths = p.keep.map((i, j) => columnWidth(i, p.headers[j]!));
+    const fmt = (texts: readonly string[], known?: readonly number[]) => texts.map((c, j) => {
+      const fill = ' '.repeat(Math.max(0, widths[j]! - (known?.[j] ?? displayWidth(c))));
+      return numeric[p.keep[j]!] ? fill + c : c + fill;
+    }).join('  ').trimEnd();
+    const out: string[] = [];
+    // Multi-line headers sit at the bottom of their block, next to the rule.
+    const depth = Math.max(...p.headers.map((h) => h.length));
+    for (let k = 0; k < depth; k++) out.push(fmt(p.headers.map((h) => h[k - (depth - h.length)] ?? '')));
+    out.push(widths.map((w) => '─'.repeat(w)).join('  '));
+    // Text under a row starts under its second column (at most 8 columns in).
+    const indent = ' '.repeat(Math.min(8, (widths[0] ?? 0) + 2));
+    cells.forEach((r, k) => {
+      out.push(fmt(p.keep.map((i) => r[i] ?? ''), p.keep.map((i) => cellWidths[k]![i] ?? 0)));
+      const under: string[] = [];
+      const movedText = moved.filter((i) => !NO_VALUE.has(r[i] ?? '')).map((i) => (options.unlabelled?.includes(i) ? r[i]! : `${headers[i]} ${r[i]}`)).join(', ');
+      if (movedText !== '') under.push(movedText);
+      const note = options.notes?.[k];
+      if (note) under.push(note);
+      for (const text of under) out.push(...wrapText(indent + text, width, indent + '  '));
+    });
+    return out.join('\n') + '\n';
+  };
+
+  const all = headers.map((_, i) => i);
   const moved: number[] = [];
-  let laid = attempt(headers.map((_, i) => i));
+  let chosen = plan(all);
   for (const column of options.below ?? []) {
-    if (width === undefined || laid.width <= width) break;
+    if (width === undefined || chosen.width <= width) break;
     moved.push(column);
-    laid = attempt(headers.map((_, i) => i).filter((i) => !moved.includes(i)));
+    chosen = plan(all.filter((i) => !moved.includes(i)));
   }
-  if (width !== undefined && laid.width > width && options.panels && moved.length === 0) {
+  if (width !== undefined && chosen.width > width && options.panels && moved.length === 0) {
     const { keys, groups } = options.panels;
-    const lead = headers.map((_, i) => i).slice(0, keys);
+    const lead = all.slice(0, keys);
     const panels: number[][] = [];
     let current: number[] = [];
     for (const group of groups) {
-      if (current.length > 0 && attempt([...lead, ...current, ...group]).width > width) {
+      if (current.length > 0 && plan([...lead, ...current, ...group]).width > width) {
         panels.push(current);
         current = [];
       }
@@ -226,9 +216,9 @@ export function fitTable(headers: readonly string[], rows: readonly (readonly (s
     }
     if (current.length > 0) panels.push(current);
     // Notes and moved columns are not combined with panels: a table uses one or the other.
-    return panels.map((p) => attempt([...lead, ...p]).lines.join('\n') + '\n').join('\n');
+    return panels.map((p) => draw(plan([...lead, ...p]), [])).join('\n');
   }
-  return withNotes(laid, moved);
+  return draw(chosen, moved);
 }
 
 /** The display width the table output of a command fits: {@link TABLE_WIDTH}, or none with `--wide`. */
