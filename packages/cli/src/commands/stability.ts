@@ -146,6 +146,7 @@ Exit status: 0 success, 2 unusable input.`,
         units: {
           tau: 's', tau0: 's', droppedTaus: 's', tdev: 's', tdevLow: 's', tdevHigh: 's', confidence: 'dimensionless (probability)',
           deviations: 'dimensionless (fractional frequency) for every statistic except tdev',
+          ...(epoch.scale === undefined ? {} : { gapTime: `s since 1980-01-06T00:00:00 ${epoch.scale}`, gapTimeIso: `ISO 8601 in ${epoch.scale}` }),
         },
       }));
       return EXIT_OK;
