@@ -6,6 +6,7 @@ import { COMMANDS } from './commands/index.js';
 import { commandHelp, describeFailure, parseCommandArgs, type Io } from './framework.js';
 import { didYouMean } from './suggest.js';
 import { TABLE_WIDTH, wrapText } from './layout.js';
+import { clearProgress } from './progress.js';
 
 const VERSION = '0.1.0';
 
@@ -88,6 +89,7 @@ export async function main(argv: string[], io: Io = processIo): Promise<number> 
     return await command.run(args, io);
   } catch (error) {
     const { line, status } = describeFailure(error);
+    clearProgress(io); // a progress bar left mid-line by the failure
     io.err(`tauline ${command.name}: ${line}\n`);
     return status;
   }

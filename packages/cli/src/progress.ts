@@ -11,21 +11,33 @@ export interface Progress {
   finish(): void;
 }
 
+/** Bars drawn and not yet finished, per output (so that an error can clear them first: {@link clearProgress}). */
+const drawn = new WeakMap<Io, Set<Progress>>();
+
 /** A one-line progress bar on stderr, redrawn in place when the whole percentage changes. Draws whatever `io` is: see {@link startProgress}. */
 export function progressBar(io: Io, label: string): Progress {
   let last = -1;
-  return {
+  const bar: Progress = {
     update(done, total) {
       const pct = Math.min(100, Math.floor((100 * done) / total));
       if (pct === last) return;
       last = pct;
       const filled = Math.round(pct / 4);
       io.err(`\r${label} [${'#'.repeat(filled)}${'.'.repeat(25 - filled)}] ${String(pct).padStart(3)} %`);
+      if (!drawn.has(io)) drawn.set(io, new Set());
+      drawn.get(io)!.add(bar);
     },
     finish() {
       io.err(`\r${' '.repeat(label.length + 35)}\r`);
+      drawn.get(io)?.delete(bar);
     },
   };
+  return bar;
+}
+
+/** Clears every bar still drawn on `io` (a command that failed mid-run), so that the error line starts clean. */
+export function clearProgress(io: Io): void {
+  for (const bar of [...(drawn.get(io) ?? [])]) bar.finish();
 }
 
 const SILENT: Progress = { update() {}, finish() {} };

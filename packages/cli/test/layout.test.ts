@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { TABLE_WIDTH, displayWidth, fitTable, wrapLines, wrapText } from '../src/layout.js';
 import { closestNames, didYouMean, editDistance } from '../src/suggest.js';
-import { progressBar, startProgress, withProgress } from '../src/progress.js';
+import { clearProgress, progressBar, startProgress, withProgress } from '../src/progress.js';
 import type { Io } from '../src/framework.js';
 
 describe('terminal layout', () => {
@@ -88,6 +88,15 @@ describe('progress on a terminal', () => {
       p.finish();
       expect(io.written.length > 0, `isTty ${isTty}, long ${long}`).toBe(drawn);
     }
+  });
+
+  it('clearProgress(io) clears the bars still drawn on that output, once', () => {
+    const io = fakeIo(true);
+    const bar = progressBar(io, 'x');
+    bar.update(1, 2);
+    clearProgress(io);
+    clearProgress(io);
+    expect(io.written).toEqual(['\rx [#############............]  50 %', `\r${' '.repeat(36)}\r`]);
   });
 
   it('withProgress(progress, body) clears the bar when the body throws', () => {

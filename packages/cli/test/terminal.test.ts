@@ -221,6 +221,17 @@ describe('progress only on a terminal', () => {
     expect(JSON.parse(pipe.out).samples).toHaveLength(7);
   });
 
+  it('a run that fails after drawing its bar clears the bar before the one error line', async () => {
+    // A GPS radius with a speed of 3.87 m/s (km/s given as m/s) falls into the Earth within the first orbit.
+    const r = await runCli(['propertime', '--state=26561750,0,0,0,3.8738299,0', '--duration', '5184000', '--step', '864000'], true);
+    expect(r.status).toBe(2);
+    const error = r.err.slice(r.err.lastIndexOf('\r') + 1);
+    expect(r.err).toMatch(/^\rintegrating \[/);
+    expect(r.err.slice(0, r.err.lastIndexOf('\r') + 1)).toMatch(/\r +\r$/);
+    expect(error).toMatch(/^tauline propertime: .*enters the Earth/);
+    expect(error.trimEnd().split('\n')).toHaveLength(1);
+  });
+
   it('tauline review draws the Monte Carlo progress on a terminal only (3 dispersed spacecraft × 400 000 draws)', async () => {
     const argv = ['review', REVIEW_A, '--runs', '400000', '--json'];
     const tty = await runCli(argv, true);

@@ -10,13 +10,14 @@ import {
 import { analyzeStability } from '@tauline/sdk/stability';
 import {
   EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, numberFlag, optionalFlag, parseNumber, sig, toJson,
-  UsageError, withFlagNames, type Command, type Io, type ParsedArgs,
+  UsageError, withFlagNames, type Command, type ParsedArgs,
 } from '../framework.js';
 import { readClockRecord, recordFlags } from '../records.js';
 import { epochFormat } from '../epochs.js';
 import { phaseSigmaHint, warn } from '../plausibility.js';
-import { startProgress, type Progress } from '../progress.js';
+import { startProgress } from '../progress.js';
 import { statSync } from 'node:fs';
+import { fitTable, outputWidth, wrappedOut } from '../layout.js';
 
 /** Input size above which a terminal shows the progress of reading and characterising, in bytes. */
 export const CLOCK_PROGRESS_BYTES = 4 * 1024 * 1024;
@@ -30,7 +31,6 @@ function inputBytes(args: ParsedArgs): number {
     return 0; // the reader reports an unusable file
   }
 }
-import { fitTable, outputWidth, wrappedOut } from '../layout.js';
 
 function choice<T extends number>(args: ParsedArgs, flag: string, allowed: readonly T[], fallback: T): T {
   const text = optionalFlag(args, flag);
@@ -130,165 +130,157 @@ h-coefficients (IEEE Std 1139, one-sided): h0 = 2q1, h₋₂ = q2/(2π²), h₋�
 Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. A --measurement-sigma of 1 µs or more (ns given as s?)
 is used as given, with a warning on stderr. Exit status: 0 success, 2 unusable input.`,
   async run(args, io) {
-    // Progress on a terminal for a big file, in four stages: reading, then up to three characterisation passes.
+    const format = formatFlag(args, TABLE_OR_JSON, 'table');
+    const tau0Flag = numberFlag(args, 'tau0');
+    const degree = choice(args, 'degree', [1, 2] as const, 2);
+    const states = choice(args, 'states', [2, 3] as const, 2);
+    const sigmaFlag = numberFlag(args, 'measurement-sigma');
+    if (sigmaFlag !== undefined && !(sigmaFlag > 0)) throw new UsageError(`--measurement-sigma must be > 0 s; received ${sigmaFlag}`);
+    const sigmaHint = sigmaFlag === undefined ? undefined : phaseSigmaHint('--measurement-sigma', sigmaFlag);
+    if (sigmaHint) warn(io, 'clock', sigmaHint);
+    const predictText = optionalFlag(args, 'predict');
+    const predict = predictText === undefined ? [] : predictText.split(',').map((v) => parseNumber('--predict', v));
+    // Progress on a terminal for a big file, in four stages: reading, then up to three characterisation passes
+    // (a bar left by an error is cleared by main before the error line).
     const bar = startProgress(io, 'characterising the clock', inputBytes(args) > CLOCK_PROGRESS_BYTES);
     bar.update(0, 4);
-    try {
-      return await runClock(args, io, bar);
-    } catch (error) {
-      bar.finish(); // clear the bar's line before the error is printed
-      throw error;
+    const rec = await readClockRecord(args, ['phase'], tau0Flag);
+    bar.update(1, 4);
+    const present = rec.values.reduce((n, v) => n + (v === v ? 1 : 0), 0);
+    if (present < MIN_CLOCK_SAMPLES) {
+      throw new UsageError(`${rec.flag} ${rec.source} has ${present} phase samples; the clock model needs at least ${MIN_CLOCK_SAMPLES} ` +
+        '(the measurement-noise estimate uses lag-2 second differences and the noise fit at least two averaging times): give a longer record');
     }
+    const t = rec.times ?? Float64Array.from(rec.values, (_, k) => k * rec.tau0); // a one-column record's epochs are k·τ0
+    const firstValid = rec.values.findIndex((v) => v === v);
+    const referenceTime = numberFlag(args, 'reference-time') ?? (t[firstValid] as number);
+    const lastT = t[t.length - 1] as number;
+    for (const p of predict) if (p < lastT) throw new UsageError(`--predict: ${p} s is before the last sample epoch ${lastT} s; predictions are for epochs after the record`);
+
+    // A record too short for the estimate is the file's fault: name the flag that gave it.
+    const noiseEstimate = sigmaFlag === undefined ? withFlagNames({ phase: rec.flag }, () => measurementNoiseFromPhase(rec.values)) : undefined;
+    const { rFit, rFitStd, rFilter, source: measurementSource } = measurementVariances(sigmaFlag, noiseEstimate);
+    const opts = { degree, referenceTime, states, rFit, rFitStd, rFilter, predict };
+    let phase = rec.values;
+    const events: { pass: number; jumps: DetectedJump[]; rejected: { index: number; t: number; innovation: number; nis: number }[] }[] = [];
+    let result = characterise(phase, t, rec.tau0, opts);
+    for (let pass = 1; pass <= 3; pass++) {
+      bar.update(1 + pass, 4);
+      const f = result.filter;
+      // Samples rejected between a jump's epoch and its declaration belong to the jump (the correction fixes them).
+      const absorbed = (k: number): boolean => f.jumps.some((j) => k >= j.updateIndex && k <= j.declaredAtUpdate);
+      const outliers = f.rejected.filter((k) => !absorbed(k));
+      const rejected = outliers.map((k) => ({ index: k, t: t[k] as number, innovation: f.innovation[k] as number, nis: f.nis[k] as number }));
+      events.push({ pass, jumps: [...f.jumps], rejected });
+      if (f.jumps.length === 0 && outliers.length === 0) break;
+      if (pass === 3) break;
+      phase = correct(phase, t, f.jumps, outliers);
+      result = characterise(phase, t, rec.tau0, opts);
+    }
+    bar.finish();
+    const { poly, noise, polyNoise, filter } = result;
+    const names = degree === 2 ? ['af0', 'af1', 'af2'] : ['af0', 'af1'];
+    const units = ['s', 'dimensionless', '1/s'];
+    const coefficients = names.map((name, i) => ({ name, value: poly.coefficients[i] as number, std: polyNoise.std[i] as number, whiteNoiseStd: Math.sqrt((poly.covariance[i] as number[])[i] as number), unit: units[i] }));
+    const residualRms = Math.sqrt(poly.chiSquare / poly.residuals.length);
+    const reducedChiSquare = rFit > 0 ? poly.chiSquare / rFit / poly.dof : Number.NaN;
+    const predictions = predict.map((T, j) => ({ t: T, phase: poly.predict(T), std: polyNoise.predictStd[j] as number }));
+    const qNames = (states === 3 ? ['q1', 'q2', 'q3'] : ['q1', 'q2']) as ('q1' | 'q2' | 'q3')[];
+    const qUnits = { q1: 's', q2: '1/s', q3: '1/s³' };
+    const allJumps = events.flatMap((e) => e.jumps.map((j) => ({ pass: e.pass, ...j, index: j.updateIndex })));
+    const allRejected = events.flatMap((e) => e.rejected.map((r) => ({ pass: e.pass, ...r })));
+    const scenarioNoise = { q1: noise.q.q1, q2: noise.q.q2, q3: noise.q.q3 };
+
+    const epoch = epochFormat(rec);
+    // JSON keeps epochs in seconds and, for a RINEX clock file, adds ISO 8601 in its time system (…Iso fields).
+    const isoOf = (name: string, value: number): Record<string, string> => {
+      const iso = epoch.iso(value);
+      return iso === undefined ? {} : { [`${name}Iso`]: iso };
+    };
+    if (format === 'json') {
+      io.out(toJson({
+        input: {
+          file: rec.source, ...(rec.clock ? { clock: rec.clock } : {}), ...(rec.timeSystem ? { timeSystem: rec.timeSystem } : {}), samples: rec.values.length, tau0: rec.tau0,
+          gaps: rec.gaps.map((g) => ({ ...g, ...(g.time === undefined ? {} : isoOf('time', g.time)) })),
+          firstEpoch: t[0], lastEpoch: lastT, ...isoOf('firstEpoch', t[0] as number), ...isoOf('lastEpoch', lastT),
+          ...(epoch.scale === undefined ? {} : { epochUnits: `seconds since 1980-01-06T00:00:00 ${epoch.scale}; …Iso fields: ISO 8601 in ${epoch.scale}` }),
+        },
+        measurementNoise: { sigma: Math.sqrt(rFilter), source: measurementSource, ...(noiseEstimate ? { estimateVariance: noiseEstimate.variance, estimateStandardError: noiseEstimate.standardError } : {}), varianceInNoiseFit: rFit },
+        polynomial: {
+          degree, referenceTime, ...isoOf('referenceTime', referenceTime), coefficients, residualRms, reducedChiSquare, dof: poly.dof, samplesUsed: result.used,
+          predictions: predictions.map((p) => ({ ...p, ...isoOf('t', p.t) })),
+          uncertaintyNote: 'std: under the fitted clock noise (q) plus measurement noise; whiteNoiseStd: residual-scaled white-noise formula, for comparison',
+          caution: FLIGHT_CAUTION,
+        },
+        noise: {
+          states, statistic: noise.statistic, q: noise.q, qStd: noise.qStd, intervals: noise.intervals, confidence: noise.confidence, atZero: noise.atZero,
+          h: noise.h, hStd: noise.hStd, chiSquare: noise.chiSquare, dof: noise.dof, chiSquareProbability: noise.chiSquareProbability,
+          points: noise.points, excluded: noise.excluded,
+        },
+        filter: {
+          states: filter.states, passes: events.length, jumps: allJumps.map((j) => ({ ...j, ...isoOf('epoch', j.epoch) })),
+          rejected: allRejected.map((r) => ({ ...r, ...isoOf('t', r.t) })), nis: filter.nisSummary,
+        },
+        ...(args.values['scenario-noise'] ? { scenarioNoise } : {}),
+      }));
+      return EXIT_OK;
+    }
+
+    const width = outputWidth(args);
+    const out = wrappedOut(io.out, width);
+    const table = (headers: string[], rows: (string | number)[][]): string => fitTable(headers, rows, { width });
+    out(`clock record ${rec.source}${rec.clock ? ` (clock ${rec.clock}${rec.timeSystem ? `, ${rec.timeSystem} time` : ''})` : ''}: ${rec.values.length} samples, τ0 = ${sig(rec.tau0)} s, ` +
+      `epochs ${epoch.text(t[0] as number)} … ${epoch.text(lastT)}, ${rec.gaps.reduce((a, g) => a + g.missing, 0)} missing in ${rec.gaps.length} gap(s)\n`);
+    for (const g of rec.gaps.slice(0, 10)) {
+      out(`  gap: ${g.missing} missing sample(s) from index ${g.index}${g.time !== undefined ? ` (t = ${epoch.text(g.time)})` : ''}, line ${g.line}\n`);
+    }
+    if (rec.gaps.length > 10) out(`  ... ${rec.gaps.length - 10} more gaps (see --json)\n`);
+    out(`measurement noise σ_v = ${fmt(Math.sqrt(rFilter), 3)} s (${measurementSource}${noiseEstimate ? `; lag-2 estimate ${fmt(noiseEstimate.variance, 3)} ± ${fmt(noiseEstimate.standardError, 2)} s²` : ''})\n\n`);
+
+    out(`Polynomial model x(t) = af0 + af1·(t − t_oc)${degree === 2 ? ' + af2·(t − t_oc)²' : ''}, t_oc = ${epoch.text(referenceTime)}, degree ${degree}, ${result.used} samples\n`);
+    out(table(['coefficient', 'value', '1σ (clock noise)', '1σ (white-noise formula)', 'unit'],
+      coefficients.map((c) => [c.name, fmt(c.value, 10), fmt(c.std, 3), fmt(c.whiteNoiseStd, 3), c.unit])));
+    out(keyValueTable([
+      ['residual RMS', `${fmt(residualRms, 4)} s`],
+      ['reduced χ² (vs σ_v²)', Number.isFinite(reducedChiSquare) ? `${fmt(reducedChiSquare, 4)} (residuals are clock noise, not white: >> 1 is expected)` : 'n/a (no measurement noise resolved)'],
+    ], width));
+    for (const p of predictions) out(`prediction at t = ${epoch.text(p.t)}: x = ${pm(p.phase, p.std, 's')} (1σ, model + clock noise after the record)\n`);
+    out(`${FLIGHT_CAUTION}\n\n`);
+
+    out(`Noise model (${states}-state, from ${noise.statistic.toUpperCase()} of the residuals; ${sig(noise.confidence * 100, 4)} % χ² intervals)\n`);
+    out(table(['coefficient', 'value', '1σ', 'interval', 'unit', 'h-coefficient'],
+      qNames.map((n) => {
+        const iv = noise.intervals[n];
+        const h = H_OF_Q[n];
+        const interval = noise.atZero.includes(n) ? 'held at 0 (not resolved)'
+          : iv ? `[${fmt(iv.low, 3)}, ${fmt(iv.high, 3)}]${iv.edf < 1 ? ' (not resolved)' : ''}` : '—';
+        return [n, fmt(noise.q[n], 4), fmt(noise.qStd[n], 2), interval, qUnits[n], `${h.label} = ${fmt(noise.h[h.field], 4)} ± ${fmt(noise.hStd[h.field], 2)} ${qUnits[n]}`];
+      })));
+    out(`fit: χ² = ${fmt(noise.chiSquare, 4)} on ${noise.dof} dof (p = ${fmt(noise.chiSquareProbability, 3)})${noise.excluded.length ? `; left out: ${noise.excluded.map((e) => `τ = ${sig(e.tau)} s (${e.reason})`).join(', ')}` : ''}\n`);
+    out(table(['τ (s)', noise.statistic, 'model', 'edf', 'residual (σ)'],
+      noise.points.map((p) => [sig(p.tau, 6), p.deviation.toExponential(3), p.modelDeviation.toExponential(3), fmt(p.edf, 3), p.normalizedResidual.toFixed(2)])));
+    out('\n');
+
+    out(`Kalman pass (${filter.states}-state, R = σ_v², q from the noise model; ${events.length} pass(es))\n`);
+    if (allJumps.length === 0) out('jumps: none detected\n');
+    else {
+      out(fitTable(['pass', 'kind', epoch.column, 'sample', 'size', '1σ', 'unit'],
+        allJumps.map((j) => [String(j.pass), j.kind, epoch.cell(j.epoch), String(j.index), fmt(j.size, 4), fmt(j.sizeStd, 2), j.kind === 'phase' ? 's' : 'dimensionless'])));
+    }
+    if (allRejected.length === 0) out('outliers: none rejected\n');
+    else {
+      out(fitTable(['pass', epoch.column, 'sample', 'innovation (s)', 'NIS'],
+        allRejected.map((r) => [String(r.pass), epoch.cell(r.t), String(r.index), fmt(r.innovation, 4), fmt(r.nis, 4)])));
+    }
+    const nis = filter.nisSummary;
+    const inside = nis.mean >= nis.low && nis.mean <= nis.high;
+    out(`mean NIS ${fmt(nis.mean, 4)} over ${nis.count} updates; ${sig(nis.confidence * 100, 3)} % χ² bounds [${fmt(nis.low, 4)}, ${fmt(nis.high, 4)}]: ${inside ? 'consistent' : 'NOT consistent (noise model or σ_v off)'}\n`);
+    if (allJumps.length > 0 || allRejected.length > 0) {
+      out(`The model and noise above come from the record${allJumps.length ? ' corrected for these jumps' : ''}${allJumps.length && allRejected.length ? ' and' : ''}${allRejected.length ? ' without the rejected samples' : ''}.\n`);
+    }
+    if (args.values['scenario-noise']) {
+      out(`\nSteering scenario clock.noise (q1 in s, q2 in 1/s, q3 in 1/s³):\n${JSON.stringify(scenarioNoise)}\n`);
+    }
+    return EXIT_OK;
   },
 };
-
-/** The clock command after its progress indicator is set up; finishes `bar` before it prints. */
-async function runClock(args: ParsedArgs, io: Io, bar: Progress): Promise<number> {
-  const format = formatFlag(args, TABLE_OR_JSON, 'table');
-  const tau0Flag = numberFlag(args, 'tau0');
-  const degree = choice(args, 'degree', [1, 2] as const, 2);
-  const states = choice(args, 'states', [2, 3] as const, 2);
-  const sigmaFlag = numberFlag(args, 'measurement-sigma');
-  if (sigmaFlag !== undefined && !(sigmaFlag > 0)) throw new UsageError(`--measurement-sigma must be > 0 s; received ${sigmaFlag}`);
-  const sigmaHint = sigmaFlag === undefined ? undefined : phaseSigmaHint('--measurement-sigma', sigmaFlag);
-  if (sigmaHint) warn(io, 'clock', sigmaHint);
-  const predictText = optionalFlag(args, 'predict');
-  const predict = predictText === undefined ? [] : predictText.split(',').map((v) => parseNumber('--predict', v));
-  const rec = await readClockRecord(args, ['phase'], tau0Flag).finally(() => bar.update(1, 4));
-  const present = rec.values.reduce((n, v) => n + (v === v ? 1 : 0), 0);
-  if (present < MIN_CLOCK_SAMPLES) {
-    throw new UsageError(`${rec.flag} ${rec.source} has ${present} phase samples; the clock model needs at least ${MIN_CLOCK_SAMPLES} ` +
-      '(the measurement-noise estimate uses lag-2 second differences and the noise fit at least two averaging times): give a longer record');
-  }
-  const t = rec.times ?? Float64Array.from(rec.values, (_, k) => k * rec.tau0); // a one-column record's epochs are k·τ0
-  const firstValid = rec.values.findIndex((v) => v === v);
-  const referenceTime = numberFlag(args, 'reference-time') ?? (t[firstValid] as number);
-  const lastT = t[t.length - 1] as number;
-  for (const p of predict) if (p < lastT) throw new UsageError(`--predict: ${p} s is before the last sample epoch ${lastT} s; predictions are for epochs after the record`);
-
-  // A record too short for the estimate is the file's fault: name the flag that gave it.
-  const noiseEstimate = sigmaFlag === undefined ? withFlagNames({ phase: rec.flag }, () => measurementNoiseFromPhase(rec.values)) : undefined;
-  const { rFit, rFitStd, rFilter, source: measurementSource } = measurementVariances(sigmaFlag, noiseEstimate);
-  const opts = { degree, referenceTime, states, rFit, rFitStd, rFilter, predict };
-  let phase = rec.values;
-  const events: { pass: number; jumps: DetectedJump[]; rejected: { index: number; t: number; innovation: number; nis: number }[] }[] = [];
-  let result = characterise(phase, t, rec.tau0, opts);
-  for (let pass = 1; pass <= 3; pass++) {
-    bar.update(1 + pass, 4);
-    const f = result.filter;
-    // Samples rejected between a jump's epoch and its declaration belong to the jump (the correction fixes them).
-    const absorbed = (k: number): boolean => f.jumps.some((j) => k >= j.updateIndex && k <= j.declaredAtUpdate);
-    const outliers = f.rejected.filter((k) => !absorbed(k));
-    const rejected = outliers.map((k) => ({ index: k, t: t[k] as number, innovation: f.innovation[k] as number, nis: f.nis[k] as number }));
-    events.push({ pass, jumps: [...f.jumps], rejected });
-    if (f.jumps.length === 0 && outliers.length === 0) break;
-    if (pass === 3) break;
-    phase = correct(phase, t, f.jumps, outliers);
-    result = characterise(phase, t, rec.tau0, opts);
-  }
-  bar.finish();
-  const { poly, noise, polyNoise, filter } = result;
-  const names = degree === 2 ? ['af0', 'af1', 'af2'] : ['af0', 'af1'];
-  const units = ['s', 'dimensionless', '1/s'];
-  const coefficients = names.map((name, i) => ({ name, value: poly.coefficients[i] as number, std: polyNoise.std[i] as number, whiteNoiseStd: Math.sqrt((poly.covariance[i] as number[])[i] as number), unit: units[i] }));
-  const residualRms = Math.sqrt(poly.chiSquare / poly.residuals.length);
-  const reducedChiSquare = rFit > 0 ? poly.chiSquare / rFit / poly.dof : Number.NaN;
-  const predictions = predict.map((T, j) => ({ t: T, phase: poly.predict(T), std: polyNoise.predictStd[j] as number }));
-  const qNames = (states === 3 ? ['q1', 'q2', 'q3'] : ['q1', 'q2']) as ('q1' | 'q2' | 'q3')[];
-  const qUnits = { q1: 's', q2: '1/s', q3: '1/s³' };
-  const allJumps = events.flatMap((e) => e.jumps.map((j) => ({ pass: e.pass, ...j, index: j.updateIndex })));
-  const allRejected = events.flatMap((e) => e.rejected.map((r) => ({ pass: e.pass, ...r })));
-  const scenarioNoise = { q1: noise.q.q1, q2: noise.q.q2, q3: noise.q.q3 };
-
-  const epoch = epochFormat(rec);
-  // JSON keeps epochs in seconds and, for a RINEX clock file, adds ISO 8601 in its time system (…Iso fields).
-  const isoOf = (name: string, value: number): Record<string, string> => {
-    const iso = epoch.iso(value);
-    return iso === undefined ? {} : { [`${name}Iso`]: iso };
-  };
-  if (format === 'json') {
-    io.out(toJson({
-      input: {
-        file: rec.source, ...(rec.clock ? { clock: rec.clock } : {}), ...(rec.timeSystem ? { timeSystem: rec.timeSystem } : {}), samples: rec.values.length, tau0: rec.tau0,
-        gaps: rec.gaps.map((g) => ({ ...g, ...(g.time === undefined ? {} : isoOf('time', g.time)) })),
-        firstEpoch: t[0], lastEpoch: lastT, ...isoOf('firstEpoch', t[0] as number), ...isoOf('lastEpoch', lastT),
-        ...(epoch.scale === undefined ? {} : { epochUnits: `seconds since 1980-01-06T00:00:00 ${epoch.scale}; …Iso fields: ISO 8601 in ${epoch.scale}` }),
-      },
-      measurementNoise: { sigma: Math.sqrt(rFilter), source: measurementSource, ...(noiseEstimate ? { estimateVariance: noiseEstimate.variance, estimateStandardError: noiseEstimate.standardError } : {}), varianceInNoiseFit: rFit },
-      polynomial: {
-        degree, referenceTime, ...isoOf('referenceTime', referenceTime), coefficients, residualRms, reducedChiSquare, dof: poly.dof, samplesUsed: result.used,
-        predictions: predictions.map((p) => ({ ...p, ...isoOf('t', p.t) })),
-        uncertaintyNote: 'std: under the fitted clock noise (q) plus measurement noise; whiteNoiseStd: residual-scaled white-noise formula, for comparison',
-        caution: FLIGHT_CAUTION,
-      },
-      noise: {
-        states, statistic: noise.statistic, q: noise.q, qStd: noise.qStd, intervals: noise.intervals, confidence: noise.confidence, atZero: noise.atZero,
-        h: noise.h, hStd: noise.hStd, chiSquare: noise.chiSquare, dof: noise.dof, chiSquareProbability: noise.chiSquareProbability,
-        points: noise.points, excluded: noise.excluded,
-      },
-      filter: {
-        states: filter.states, passes: events.length, jumps: allJumps.map((j) => ({ ...j, ...isoOf('epoch', j.epoch) })),
-        rejected: allRejected.map((r) => ({ ...r, ...isoOf('t', r.t) })), nis: filter.nisSummary,
-      },
-      ...(args.values['scenario-noise'] ? { scenarioNoise } : {}),
-    }));
-    return EXIT_OK;
-  }
-
-  const width = outputWidth(args);
-  const out = wrappedOut(io.out, width);
-  const table = (headers: string[], rows: (string | number)[][]): string => fitTable(headers, rows, { width });
-  out(`clock record ${rec.source}${rec.clock ? ` (clock ${rec.clock}${rec.timeSystem ? `, ${rec.timeSystem} time` : ''})` : ''}: ${rec.values.length} samples, τ0 = ${sig(rec.tau0)} s, ` +
-    `epochs ${epoch.text(t[0] as number)} … ${epoch.text(lastT)}, ${rec.gaps.reduce((a, g) => a + g.missing, 0)} missing in ${rec.gaps.length} gap(s)\n`);
-  for (const g of rec.gaps.slice(0, 10)) {
-    out(`  gap: ${g.missing} missing sample(s) from index ${g.index}${g.time !== undefined ? ` (t = ${epoch.text(g.time)})` : ''}, line ${g.line}\n`);
-  }
-  if (rec.gaps.length > 10) out(`  ... ${rec.gaps.length - 10} more gaps (see --json)\n`);
-  out(`measurement noise σ_v = ${fmt(Math.sqrt(rFilter), 3)} s (${measurementSource}${noiseEstimate ? `; lag-2 estimate ${fmt(noiseEstimate.variance, 3)} ± ${fmt(noiseEstimate.standardError, 2)} s²` : ''})\n\n`);
-
-  out(`Polynomial model x(t) = af0 + af1·(t − t_oc)${degree === 2 ? ' + af2·(t − t_oc)²' : ''}, t_oc = ${epoch.text(referenceTime)}, degree ${degree}, ${result.used} samples\n`);
-  out(table(['coefficient', 'value', '1σ (clock noise)', '1σ (white-noise formula)', 'unit'],
-    coefficients.map((c) => [c.name, fmt(c.value, 10), fmt(c.std, 3), fmt(c.whiteNoiseStd, 3), c.unit])));
-  out(keyValueTable([
-    ['residual RMS', `${fmt(residualRms, 4)} s`],
-    ['reduced χ² (vs σ_v²)', Number.isFinite(reducedChiSquare) ? `${fmt(reducedChiSquare, 4)} (residuals are clock noise, not white: >> 1 is expected)` : 'n/a (no measurement noise resolved)'],
-  ], width));
-  for (const p of predictions) out(`prediction at t = ${epoch.text(p.t)}: x = ${pm(p.phase, p.std, 's')} (1σ, model + clock noise after the record)\n`);
-  out(`${FLIGHT_CAUTION}\n\n`);
-
-  out(`Noise model (${states}-state, from ${noise.statistic.toUpperCase()} of the residuals; ${sig(noise.confidence * 100, 4)} % χ² intervals)\n`);
-  out(table(['coefficient', 'value', '1σ', 'interval', 'unit', 'h-coefficient'],
-    qNames.map((n) => {
-      const iv = noise.intervals[n];
-      const h = H_OF_Q[n];
-      const interval = noise.atZero.includes(n) ? 'held at 0 (not resolved)'
-        : iv ? `[${fmt(iv.low, 3)}, ${fmt(iv.high, 3)}]${iv.edf < 1 ? ' (not resolved)' : ''}` : '—';
-      return [n, fmt(noise.q[n], 4), fmt(noise.qStd[n], 2), interval, qUnits[n], `${h.label} = ${fmt(noise.h[h.field], 4)} ± ${fmt(noise.hStd[h.field], 2)} ${qUnits[n]}`];
-    })));
-  out(`fit: χ² = ${fmt(noise.chiSquare, 4)} on ${noise.dof} dof (p = ${fmt(noise.chiSquareProbability, 3)})${noise.excluded.length ? `; left out: ${noise.excluded.map((e) => `τ = ${sig(e.tau)} s (${e.reason})`).join(', ')}` : ''}\n`);
-  out(table(['τ (s)', noise.statistic, 'model', 'edf', 'residual (σ)'],
-    noise.points.map((p) => [sig(p.tau, 6), p.deviation.toExponential(3), p.modelDeviation.toExponential(3), fmt(p.edf, 3), p.normalizedResidual.toFixed(2)])));
-  out('\n');
-
-  out(`Kalman pass (${filter.states}-state, R = σ_v², q from the noise model; ${events.length} pass(es))\n`);
-  if (allJumps.length === 0) out('jumps: none detected\n');
-  else {
-    out(fitTable(['pass', 'kind', epoch.column, 'sample', 'size', '1σ', 'unit'],
-      allJumps.map((j) => [String(j.pass), j.kind, epoch.cell(j.epoch), String(j.index), fmt(j.size, 4), fmt(j.sizeStd, 2), j.kind === 'phase' ? 's' : 'dimensionless'])));
-  }
-  if (allRejected.length === 0) out('outliers: none rejected\n');
-  else {
-    out(fitTable(['pass', epoch.column, 'sample', 'innovation (s)', 'NIS'],
-      allRejected.map((r) => [String(r.pass), epoch.cell(r.t), String(r.index), fmt(r.innovation, 4), fmt(r.nis, 4)])));
-  }
-  const nis = filter.nisSummary;
-  const inside = nis.mean >= nis.low && nis.mean <= nis.high;
-  out(`mean NIS ${fmt(nis.mean, 4)} over ${nis.count} updates; ${sig(nis.confidence * 100, 3)} % χ² bounds [${fmt(nis.low, 4)}, ${fmt(nis.high, 4)}]: ${inside ? 'consistent' : 'NOT consistent (noise model or σ_v off)'}\n`);
-  if (allJumps.length > 0 || allRejected.length > 0) {
-    out(`The model and noise above come from the record${allJumps.length ? ' corrected for these jumps' : ''}${allJumps.length && allRejected.length ? ' and' : ''}${allRejected.length ? ' without the rejected samples' : ''}.\n`);
-  }
-  if (args.values['scenario-noise']) {
-    out(`\nSteering scenario clock.noise (q1 in s, q2 in 1/s, q3 in 1/s³):\n${JSON.stringify(scenarioNoise)}\n`);
-  }
-  return EXIT_OK;
-}
