@@ -4,6 +4,8 @@
  * <command>`, "did you mean", plausibility warnings, review and plan wording, the precise cross-check
  * note, the propertime caution, and progress only on a terminal. Run in-process.
  */
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
@@ -230,6 +232,21 @@ describe('progress only on a terminal', () => {
     expect(r.err.slice(0, r.err.lastIndexOf('\r') + 1)).toMatch(/\r +\r$/);
     expect(error).toMatch(/^tauline propertime: .*enters the Earth/);
     expect(error.trimEnd().split('\n')).toHaveLength(1);
+  });
+
+  it('tauline clock on a file above 4 MiB reports its stages on a terminal only', async () => {
+    // The VESTRA-4 record behind 4.2 MB of comment lines: a big file that is quick to characterise.
+    const dir = mkdtempSync(join(tmpdir(), 'tauline-terminal-'));
+    const big = join(dir, 'big.txt');
+    writeFileSync(big, `${'# padding line to make the file large, ignored by the reader\n'.repeat(70_000)}${readFileSync(join(ROOT, 'packages/sdk/examples/clock/vestra-4-rafs.txt'), 'utf8')}`);
+    const tty = await runCli(['clock', '--phase', big, '--tau0', '300', '--json'], true);
+    expect(tty.status, tty.err).toBe(0);
+    expect(tty.err).toMatch(/^\rcharacterising the clock \[\.+\]   0 %/);
+    expect(tty.err).toMatch(/ 25 %/);
+    expect(tty.err.endsWith('\r')).toBe(true);
+    const pipe = await runCli(['clock', '--phase', big, '--tau0', '300', '--json'], false);
+    expect(pipe.err).toBe('');
+    expect(JSON.parse(pipe.out)).toEqual(JSON.parse(tty.out));
   });
 
   it('tauline review draws the Monte Carlo progress on a terminal only (3 dispersed spacecraft × 400 000 draws)', async () => {
