@@ -5,6 +5,8 @@
 import { parseArgs, type ParseArgsConfig } from 'node:util';
 import { TaulineError, InvalidArgumentError, formatReceived } from '@tauline/sdk/errors';
 import { MAX_SEED } from '@tauline/sdk/steering';
+import { TABLE_WIDTH, fitTable, wrapText } from './layout.js';
+import { didYouMean } from './suggest.js';
 
 /** Exit status: 0 success, 1 a finding (e.g. a review fail), 2 unusable input. */
 export const EXIT_OK = 0;
@@ -59,7 +61,8 @@ export class UsageError extends Error {
 }
 
 export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
-  const options: NonNullable<ParseArgsConfig['options']> = { help: { type: 'boolean', short: 'h' } };
+  // --help and --wide (tables and text in their long form, not fitted to 100 columns) are flags of every command.
+  const options: NonNullable<ParseArgsConfig['options']> = { help: { type: 'boolean', short: 'h' }, wide: { type: 'boolean' } };
   for (const [name, spec] of Object.entries(command.flags)) {
     options[name] = { type: spec.type, multiple: spec.multiple ?? false, ...(spec.short ? { short: spec.short } : {}) };
   }
@@ -80,7 +83,9 @@ export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
     parsed = parseArgs({ args, options, allowPositionals: command.allowPositionals ?? false, strict: true, tokens: true });
   } catch (e) {
     const message = e instanceof Error ? e.message.replace(/\. To specify a positional.*$/s, '').replace(/\s*\n\s*/g, ' ') : String(e);
-    throw new UsageError(`${message} (see \`tauline ${command.name} --help\`)`);
+    const unknown = /^Unknown option '--?([^'=]+)/.exec(message);
+    const hint = unknown ? didYouMean(unknown[1]!, [...Object.keys(command.flags), 'help', 'wide'], '--') : '';
+    throw new UsageError(`${message}${hint} (see \`tauline ${command.name} --help\`)`);
   }
   // A flag given twice would silently keep the last value: refuse it unless the flag takes several.
   const seen = new Map<string, string | undefined>();
@@ -241,21 +246,16 @@ export function formatFlag<F extends string>(args: ParsedArgs, formats: readonly
   return (chosen.keys().next().value as F | undefined) ?? defaultFormat;
 }
 
-/** Renders rows as an aligned text table. Numbers are right-aligned. */
+/** Renders rows as an aligned text table, unlimited in width. Numbers are right-aligned (also in a column holding "—"). */
 export function table(headers: string[], rows: (string | number)[][]): string {
-  const cells = rows.map((r) => r.map((c) => String(c)));
-  // Widths by a loop: spreading a long column into Math.max overflows the call stack (~125 000 rows).
-  const widths = headers.map((h) => h.length);
-  for (const r of cells) r.forEach((c, i) => { if (i < widths.length && c.length > widths[i]!) widths[i] = c.length; });
-  const numeric = headers.map((_, i) => rows.every((r) => typeof r[i] === 'number' || /^[-+]?[\d.]/.test(String(r[i] ?? ''))));
-  const fmt = (r: string[]) => r.map((c, i) => (numeric[i] ? c.padStart(widths[i]!) : c.padEnd(widths[i]!))).join('  ').trimEnd();
-  return [fmt(headers), widths.map((w) => '─'.repeat(w)).join('  '), ...cells.map(fmt)].join('\n') + '\n';
+  return fitTable(headers, rows, { width: undefined });
 }
 
 /** Two-column key/value table for a single result. */
-export function keyValueTable(rows: [string, string][]): string {
+export function keyValueTable(rows: [string, string][], width?: number): string {
   const w = Math.max(...rows.map(([k]) => k.length));
-  return rows.map(([k, v]) => `${k.padEnd(w)}  ${v}`).join('\n') + '\n';
+  // With a width, a long value wraps under itself (hanging indent past the key column).
+  return rows.map(([k, v]) => wrapText(`${k.padEnd(w)}  ${v}`, width, ' '.repeat(w + 2)).join('\n')).join('\n') + '\n';
 }
 
 /** Formats a number with `digits` significant digits, keeping exponent form for tiny values. */
@@ -271,22 +271,8 @@ export function toJson(value: unknown): string {
   return JSON.stringify(value, (_k, v) => (typeof v === 'bigint' ? v.toString() : v), 2) + '\n';
 }
 
-/** A one-line progress bar on stderr, redrawn in place when the whole percentage changes; only for terminals. */
-export function progressBar(io: Io, label: string): { update: (done: number, total: number) => void; finish: () => void } {
-  let last = -1;
-  return {
-    update(done, total) {
-      const pct = Math.min(100, Math.floor((100 * done) / total));
-      if (pct === last) return;
-      last = pct;
-      const filled = Math.round(pct / 4);
-      io.err(`\r${label} [${'#'.repeat(filled)}${'.'.repeat(25 - filled)}] ${String(pct).padStart(3)} %`);
-    },
-    finish() {
-      io.err(`\r${' '.repeat(label.length + 35)}\r`);
-    },
-  };
-}
+/** The progress bar lives in its own module; re-exported here for the commands that import it from the framework. */
+export { progressBar } from './progress.js';
 
 /** The line printed for flight-configuration outputs. */
 export const FLIGHT_CAUTION =
@@ -317,11 +303,16 @@ export function describeFailure(error: unknown): { line: string; status: number 
 }
 
 export function commandHelp(command: Command): string {
-  const lines = [`tauline ${command.name} ${command.usage}`, '', command.summary, ''];
+  // The usage line wraps between its [optional parts], never inside one (no-break spaces while wrapping).
+  const usage = command.usage.replace(/\[[^\]]*\]/g, (part) => part.replace(/ /g, '\u00a0'));
+  const usageLines = wrapText(`tauline ${command.name} ${usage}`, TABLE_WIDTH, ' '.repeat(command.name.length + 9)).map((l) => l.replace(/\u00a0/g, ' '));
+  const lines = [...usageLines, '', command.summary, ''];
   const names = Object.keys(command.flags);
   const labels = names.map((n) => `--${n}${command.flags[n]!.value ? ` ${command.flags[n]!.value}` : ''}`);
   const w = Math.max(...labels.map((l) => l.length), 10);
-  names.forEach((n, i) => lines.push(`  ${labels[i]!.padEnd(w)}  ${command.flags[n]!.description}`));
+  // Flag help wraps at 100 columns under its description column (the details below are laid out by hand).
+  names.forEach((n, i) => lines.push(...wrapText(`  ${labels[i]!.padEnd(w)}  ${command.flags[n]!.description}`, TABLE_WIDTH, ' '.repeat(w + 4))));
+  lines.push(`  ${'--wide'.padEnd(w)}  Tables and text in their long form, not fitted to 100 columns.`);
   lines.push(`  ${'--help'.padEnd(w)}  Show this help.`);
   if (command.details) lines.push('', command.details.trim());
   return lines.join('\n') + '\n';

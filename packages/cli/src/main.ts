@@ -4,6 +4,9 @@
  */
 import { COMMANDS } from './commands/index.js';
 import { commandHelp, describeFailure, parseCommandArgs, type Io } from './framework.js';
+import { didYouMean } from './suggest.js';
+import { TABLE_WIDTH, wrapText } from './layout.js';
+import { clearProgress } from './progress.js';
 
 const VERSION = '0.1.0';
 
@@ -12,10 +15,10 @@ function overview(): string {
   return [
     `tauline ${VERSION}: satellite clock relativity, stability and steering`,
     '',
-    'Usage: tauline <command> [flags]     (tauline <command> --help for details)',
+    'Usage: tauline <command> [flags]     (details: tauline help <command>, or tauline <command> --help)',
     '',
     'Commands:',
-    ...COMMANDS.map((c) => `  ${c.name.padEnd(w)}  ${c.summary}`),
+    ...COMMANDS.flatMap((c) => wrapText(`  ${c.name.padEnd(w)}  ${c.summary}`, TABLE_WIDTH, ' '.repeat(w + 4))),
     '',
     'All quantities are SI (metres, seconds, hertz, radians) unless a flag name says otherwise.',
     '',
@@ -43,9 +46,30 @@ function endQuietlyOnClosedStdout(): void {
   });
 }
 
+/** Says a command name is unknown, with the closest names when there are any; exit status 2. */
+function unknownCommand(name: string, io: Io): number {
+  const names = COMMANDS.map((c) => c.name);
+  io.err(`tauline: unknown command ${JSON.stringify(name)}${didYouMean(name, names)} (known commands: ${names.join(', ')})\n`);
+  return 2;
+}
+
+/** `tauline help <command>`: that command's help (exit 0), or the unknown-command line (exit 2). */
+function helpOf(rest: readonly string[], io: Io): number {
+  const [name, ...extra] = rest;
+  const command = COMMANDS.find((c) => c.name === name);
+  if (!command) return unknownCommand(name!, io);
+  if (extra.length > 0) {
+    io.err(`tauline help: give one command name (received ${rest.map((r) => JSON.stringify(r)).join(' ')}); see \`tauline help ${command.name}\`\n`);
+    return 2;
+  }
+  io.out(commandHelp(command));
+  return 0;
+}
+
 export async function main(argv: string[], io: Io = processIo): Promise<number> {
   if (io === processIo) endQuietlyOnClosedStdout();
   const [name, ...rest] = argv;
+  if (name === 'help' && rest.length > 0) return helpOf(rest, io); // `tauline help <command>` = `tauline <command> --help`
   if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
     io.out(overview());
     return name === undefined ? 2 : 0;
@@ -55,10 +79,7 @@ export async function main(argv: string[], io: Io = processIo): Promise<number> 
     return 0;
   }
   const command = COMMANDS.find((c) => c.name === name);
-  if (!command) {
-    io.err(`tauline: unknown command ${JSON.stringify(name)}; known commands: ${COMMANDS.map((c) => c.name).join(', ')}\n`);
-    return 2;
-  }
+  if (!command) return unknownCommand(name, io);
   try {
     const args = parseCommandArgs(command, rest);
     if (args.values['help']) {
@@ -68,6 +89,7 @@ export async function main(argv: string[], io: Io = processIo): Promise<number> 
     return await command.run(args, io);
   } catch (error) {
     const { line, status } = describeFailure(error);
+    clearProgress(io); // a progress bar left mid-line by the failure
     io.err(`tauline ${command.name}: ${line}\n`);
     return status;
   }

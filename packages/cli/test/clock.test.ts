@@ -147,7 +147,9 @@ describe('tauline clock --rinex-clock <file> --clock <name>', () => {
     expect(r.err).toBe('');
     const j = JSON.parse(r.out);
     expect(j.input).toMatchObject({ file: LONG, clock: 'G37', timeSystem: 'GPS', samples: 400, tau0: 300, firstEpoch: gpsSeconds('2026-02-02T00:00:00'), lastEpoch: gpsSeconds('2026-02-03T09:15:00') });
-    expect(j.input.gaps).toEqual([{ index: 150, missing: 1, line: 162, time: gpsSeconds('2026-02-02T12:30:00') }]);
+    expect(j.input.gaps).toEqual([{ index: 150, missing: 1, line: 162, time: gpsSeconds('2026-02-02T12:30:00'), timeIso: '2026-02-02T12:30:00' }]);
+    expect(j.input).toMatchObject({ firstEpochIso: '2026-02-02T00:00:00', lastEpochIso: '2026-02-03T09:15:00' });
+    expect(j.polynomial.referenceTimeIso).toBe('2026-02-02T00:00:00');
     expect(j.polynomial.samplesUsed).toBe(399);
     expect(j.polynomial.referenceTime).toBe(gpsSeconds('2026-02-02T00:00:00'));
     const af1 = j.polynomial.coefficients[1];
@@ -162,13 +164,15 @@ describe('tauline clock --rinex-clock <file> --clock <name>', () => {
     expect(j.filter.detection.jumpThreshold).toBeCloseTo(30.856864804329376, 6); // scipy.stats.chi2.isf(1e-6/36, 1) [C]
   });
 
-  it('tauline clock --rinex-clock long-304.clk --clock G37 (table) names the clock and prints the gap with its index, epoch and line', async () => {
+  it('tauline clock --rinex-clock long-304.clk --clock G37 (table) names the clock and prints the gap with its index, calendar epoch in GPS time and line', async () => {
     const r = await run(['clock', '--rinex-clock', LONG, '--clock', 'G37']);
     expect(r.status).toBe(0);
-    expect(r.out).toMatch(/^clock record .*long-304\.clk \(clock G37, GPS time\): 400 samples, τ0 = 300 s, .* 1 missing in 1 gap\(s\)$/m);
-    const gap = /^ {2}gap: 1 missing sample\(s\) from index 150 \(t = (\S+) s\), line 162$/m.exec(r.out);
-    expect(gap).not.toBeNull();
-    expect(Number(gap![1])).toBe(gpsSeconds('2026-02-02T12:30:00'));
+    // The record's epochs as written in the file (SOURCE.md): 2026-02-02 00:00 to 2026-02-03 09:15 GPS time, 300 s apart.
+    expect(r.out.replace(/\n(?! )/g, ' ')).toMatch(
+      /^clock record .*long-304\.clk \(clock G37, GPS time\): 400 samples, τ0 = 300 s, epochs 2026-02-02T00:00:00 GPS … 2026-02-03T09:15:00 GPS, 1 missing in 1 gap\(s\)/m);
+    expect(r.out).toMatch(/^ {2}gap: 1 missing sample\(s\) from index 150 \(t = 2026-02-02T12:30:00 GPS\), line 162$/m);
+    expect(r.out).toMatch(/t_oc = 2026-02-02T00:00:00 GPS/);
+    expect(r.out).not.toMatch(/\d\.\d+e\+9/);
   });
 
   it('tauline clock --rinex-clock with an unknown --clock exits 2 with one line listing the clocks in the file', async () => {

@@ -32,7 +32,7 @@ describe('tauline propertime', () => {
     const r = await run('--state', GPS_STATE, '--duration', '3600', '--step', '1200', '--model', 'full', '--epoch-tt-j2000', '8e8');
     expect(r.status).toBe(0);
     expect(r.out).toMatch(/model full/);
-    expect(r.out).toMatch(/Montenbruck & Gill/);
+    expect(r.out.replace(/\s+/g, ' ')).toMatch(/Montenbruck & Gill/); // the title may wrap at 100 columns
     expect(r.out).toMatch(/τ − TT \(ns\)/);
     expect(r.out).toMatch(/mean rate over the span/);
   });

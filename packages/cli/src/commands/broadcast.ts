@@ -14,8 +14,9 @@ import {
 import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant, type TimeScale, type TimeScales } from '@tauline/sdk/time';
 import {
   EXIT_FINDING, EXIT_OK, FLIGHT_CAUTION, TABLE_JSON_CSV, UsageError, formatFlag, formatFlags, numberFlag, optionalFlag, progressBar, requireFlag,
-  table, toJson, type Command, type Io, type ParsedArgs,
+  toJson, type Command, type Io, type ParsedArgs,
 } from '../framework.js';
+import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { requireRegularFile } from '../files.js';
 import { NAV_FILE_UNITS, type NavFileSummary, navHeaderLines, noRecordReason, summariseNavHeader } from '../nav-summary.js';
 
@@ -356,26 +357,33 @@ is still printed, every value null), 2 invalid input or a malformed file.`,
       io.err(`${FLIGHT_CAUTION}\n`);
       return status;
     }
-    io.out(`Broadcast relativistic and clock corrections (${utc ? 'times in UTC' : 'times in each system\'s own scale: GPST, GST, BDT'})\n\n`);
+    const width = outputWidth(args);
+    io.out(wrapLines(`Broadcast relativistic and clock corrections (${utc ? 'times in UTC' : 'times in each system\'s own scale: GPST, GST, BDT'})\n\n`, width));
     const rows: (string | number)[][] = [];
+    // Fitted to the width, a sample without a record shows "—" for t_oe and its reason on a line of its own.
+    const rowNotes: (string | undefined)[] = [];
     for (const s of out) {
       for (const x of s.samples) {
+        rowNotes.push(width === undefined ? undefined : x.reason);
         const row: (string | number)[] = [s.id, x.t, x.relativisticSeconds === null ? '—' : (x.relativisticSeconds * 1e9).toFixed(4),
           x.clockCorrectionSeconds === null ? '—' : x.clockCorrectionSeconds.toExponential(12)];
         if (signal) {
           row.push(x.clockCorrectionSignalSeconds == null ? '—' : x.clockCorrectionSignalSeconds.toExponential(12),
             x.groupDelaySeconds == null ? '—' : `${(x.groupDelaySeconds * 1e9).toFixed(4)} ${x.groupDelayField}`);
         }
-        row.push(x.toe ?? (x.short ?? ''), x.message ?? '');
+        row.push(x.toe ?? (width === undefined ? (x.reason ?? '') : '—'), x.message ?? '');
         rows.push(row);
       }
     }
-    io.out(table(['sat', 't', 'Δt_r (ns)', 'Δt_sv (s)', ...(signal ? [`Δt_sv ${signal} (s)`, 'group delay (ns)'] : []), 't_oe', 'message'], rows));
-    if (samplesWithoutRecord > 0) io.out(`\n${samplesWithoutRecord} sample(s) without a valid record (shown as —).\n`);
-    io.out(`\nNavigation files (header parameters as broadcast):\n${navHeaderLines(nav.files).join('\n')}\n`);
-    if (skipped.length > 0) io.out(`\nSkipped records:\n${skipped.map((s) => `  ${s.count} × ${s.reason}`).join('\n')}\n`);
-    if (notes.size > 0) io.out(`\nNotes:\n${[...notes].map((n) => `  ${n}`).join('\n')}\n`);
-    io.out(`\n${FLIGHT_CAUTION}\n`);
+    const headers = ['sat', 't', 'Δt_r (ns)', 'Δt_sv (s)', ...(signal ? [`Δt_sv ${signal} (s)`, 'group delay (ns)'] : []), 't_oe', 'message'];
+    io.out(fitTable(headers, rows, { width, notes: rowNotes, below: [headers.length - 2, headers.length - 1] }));
+    const text: string[] = [];
+    if (samplesWithoutRecord > 0) text.push(`\n${samplesWithoutRecord} sample(s) without a valid record (shown as —).\n`);
+    text.push(`\nNavigation files (header parameters as broadcast):\n${navHeaderLines(nav.files).join('\n')}\n`);
+    if (skipped.length > 0) text.push(`\nSkipped records:\n${skipped.map((s) => `  ${s.count} × ${s.reason}`).join('\n')}\n`);
+    if (notes.size > 0) text.push(`\nNotes:\n${[...notes].map((n) => `  ${n}`).join('\n')}\n`);
+    text.push(`\n${FLIGHT_CAUTION}\n`);
+    io.out(wrapLines(text.join(''), width));
     return status;
   },
 };

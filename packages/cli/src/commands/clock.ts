@@ -9,10 +9,28 @@ import {
 } from '@tauline/sdk/clock-model';
 import { analyzeStability } from '@tauline/sdk/stability';
 import {
-  EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, numberFlag, optionalFlag, parseNumber, sig, table, toJson,
+  EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, numberFlag, optionalFlag, parseNumber, sig, toJson,
   UsageError, withFlagNames, type Command, type ParsedArgs,
 } from '../framework.js';
 import { readClockRecord, recordFlags } from '../records.js';
+import { epochFormat } from '../epochs.js';
+import { phaseSigmaHint, warn } from '../plausibility.js';
+import { startProgress } from '../progress.js';
+import { statSync } from 'node:fs';
+import { fitTable, outputWidth, wrappedOut } from '../layout.js';
+
+/** Input size above which a terminal shows the progress of reading and characterising, in bytes. */
+export const CLOCK_PROGRESS_BYTES = 4 * 1024 * 1024;
+
+/** Size of the record file named by the input flags, in bytes (0 when it cannot be known, e.g. a pipe). */
+function inputBytes(args: ParsedArgs): number {
+  const path = optionalFlag(args, 'rinex-clock') ?? optionalFlag(args, 'phase');
+  try {
+    return path === undefined ? 0 : statSync(path).size;
+  } catch {
+    return 0; // the reader reports an unusable file
+  }
+}
 
 function choice<T extends number>(args: ParsedArgs, flag: string, allowed: readonly T[], fallback: T): T {
   const text = optionalFlag(args, flag);
@@ -127,7 +145,8 @@ Uncertainties: af0/af1/af2 and predictions under the fitted clock noise plus mea
 (polynomialNoiseCovariance; the white-noise formula would understate them); q's with χ² intervals (±1σ
 level) from a covariance that accounts for the correlation of overlapping estimates.
 h-coefficients (IEEE Std 1139, one-sided): h0 = 2q1, h₋₂ = q2/(2π²), h₋₄ = q3/(8π⁴).
-Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0 success, 2 unusable input.`,
+Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. A --measurement-sigma of 1 µs or more (ns given as s?)
+is used as given, with a warning on stderr. Exit status: 0 success, 2 unusable input.`,
   async run(args, io) {
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
     const tau0Flag = numberFlag(args, 'tau0');
@@ -135,9 +154,16 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
     const states = choice(args, 'states', [2, 3] as const, 2);
     const sigmaFlag = numberFlag(args, 'measurement-sigma');
     if (sigmaFlag !== undefined && !(sigmaFlag > 0)) throw new UsageError(`--measurement-sigma must be > 0 s; received ${sigmaFlag}`);
+    const sigmaHint = sigmaFlag === undefined ? undefined : phaseSigmaHint('--measurement-sigma', sigmaFlag);
+    if (sigmaHint) warn(io, 'clock', sigmaHint);
     const predictText = optionalFlag(args, 'predict');
     const predict = predictText === undefined ? [] : predictText.split(',').map((v) => parseNumber('--predict', v));
+    // Progress on a terminal for a big file, in four stages: reading, then up to three characterisation passes
+    // (a bar left by an error is cleared by main before the error line).
+    const bar = startProgress(io, 'characterising the clock', inputBytes(args) > CLOCK_PROGRESS_BYTES);
+    bar.update(0, 4);
     const rec = await readClockRecord(args, ['phase'], tau0Flag);
+    bar.update(1, 4);
     let present = 0;
     for (const v of rec.values) if (v === v) present += 1;
     if (present < MIN_CLOCK_SAMPLES) {
@@ -158,6 +184,7 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
     const events: { pass: number; jumps: DetectedJump[]; rejected: { index: number; t: number; innovation: number; nis: number }[] }[] = [];
     let result = characterise(phase, t, rec.tau0, opts);
     for (let pass = 1; pass <= 3; pass++) {
+      bar.update(1 + pass, 4);
       const f = result.filter;
       // Only declared events are corrected: jumps at the stated false-alarm rate, declared outliers.
       const outliers = f.rejected.map((r) => r.index);
@@ -167,6 +194,7 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
       phase = correct(phase, t, f.jumps, outliers);
       result = characterise(phase, t, rec.tau0, opts);
     }
+    bar.finish();
     const { poly, noise, polyNoise, filter } = result;
     const names = degree === 2 ? ['af0', 'af1', 'af2'] : ['af0', 'af1'];
     const units = ['s', 'dimensionless', '1/s'];
@@ -181,12 +209,24 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
     const scenarioNoise = { q1: noise.q.q1, q2: noise.q.q2, q3: noise.q.q3 };
     const detection = filter.detection!;
 
+    const epoch = epochFormat(rec);
+    // JSON keeps epochs in seconds and, for a RINEX clock file, adds ISO 8601 in its time system (…Iso fields).
+    const isoOf = (name: string, value: number): Record<string, string> => {
+      const iso = epoch.iso(value);
+      return iso === undefined ? {} : { [`${name}Iso`]: iso };
+    };
     if (format === 'json') {
       io.out(toJson({
-        input: { file: rec.source, ...(rec.clock ? { clock: rec.clock } : {}), ...(rec.timeSystem ? { timeSystem: rec.timeSystem } : {}), samples: rec.values.length, tau0: rec.tau0, gaps: rec.gaps, firstEpoch: t[0], lastEpoch: lastT },
+        input: {
+          file: rec.source, ...(rec.clock ? { clock: rec.clock } : {}), ...(rec.timeSystem ? { timeSystem: rec.timeSystem } : {}), samples: rec.values.length, tau0: rec.tau0,
+          gaps: rec.gaps.map((g) => ({ ...g, ...(g.time === undefined ? {} : isoOf('time', g.time)) })),
+          firstEpoch: t[0], lastEpoch: lastT, ...isoOf('firstEpoch', t[0] as number), ...isoOf('lastEpoch', lastT),
+          ...(epoch.scale === undefined ? {} : { epochUnits: `seconds since 1980-01-06T00:00:00 ${epoch.scale}; …Iso fields: ISO 8601 in ${epoch.scale}` }),
+        },
         measurementNoise: { sigma: Math.sqrt(rFilter), source: measurementSource, ...(noiseEstimate ? { estimateVariance: noiseEstimate.variance, estimateStandardError: noiseEstimate.standardError } : {}), varianceInNoiseFit: rFit },
         polynomial: {
-          degree, referenceTime, coefficients, residualRms, reducedChiSquare, dof: poly.dof, samplesUsed: result.used, predictions,
+          degree, referenceTime, ...isoOf('referenceTime', referenceTime), coefficients, residualRms, reducedChiSquare, dof: poly.dof, samplesUsed: result.used,
+          predictions: predictions.map((p) => ({ ...p, ...isoOf('t', p.t) })),
           uncertaintyNote: 'std: under the fitted clock noise (q) plus measurement noise; whiteNoiseStd: residual-scaled white-noise formula, for comparison',
           caution: FLIGHT_CAUTION,
         },
@@ -196,7 +236,8 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
           points: noise.points, excluded: noise.excluded,
         },
         filter: {
-          states: filter.states, passes: events.length, jumps: allJumps, rejected: allRejected, nis: filter.nisSummary,
+          states: filter.states, passes: events.length, jumps: allJumps.map((j) => ({ ...j, ...isoOf('epoch', j.epoch) })),
+          rejected: allRejected.map((r) => ({ ...r, ...isoOf('t', r.t) })), nis: filter.nisSummary,
           detection: {
             falseAlarmProbabilityPerSample: detection.falseAlarmProbability, jumpThreshold: detection.jumpThreshold,
             testsPerSample: detection.testsPerUpdate, window: detection.window, minEpochs: detection.minEpochs,
@@ -208,26 +249,29 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
       return EXIT_OK;
     }
 
-    io.out(`clock record ${rec.source}${rec.clock ? ` (clock ${rec.clock}${rec.timeSystem ? `, ${rec.timeSystem} time` : ''})` : ''}: ${rec.values.length} samples, τ0 = ${sig(rec.tau0)} s, ` +
-      `epochs ${sig(t[0] as number, 12)} … ${sig(lastT, 12)} s, ${rec.gaps.reduce((a, g) => a + g.missing, 0)} missing in ${rec.gaps.length} gap(s)\n`);
+    const width = outputWidth(args);
+    const out = wrappedOut(io.out, width);
+    const table = (headers: string[], rows: (string | number)[][]): string => fitTable(headers, rows, { width });
+    out(`clock record ${rec.source}${rec.clock ? ` (clock ${rec.clock}${rec.timeSystem ? `, ${rec.timeSystem} time` : ''})` : ''}: ${rec.values.length} samples, τ0 = ${sig(rec.tau0)} s, ` +
+      `epochs ${epoch.text(t[0] as number)} … ${epoch.text(lastT)}, ${rec.gaps.reduce((a, g) => a + g.missing, 0)} missing in ${rec.gaps.length} gap(s)\n`);
     for (const g of rec.gaps.slice(0, 10)) {
-      io.out(`  gap: ${g.missing} missing sample(s) from index ${g.index}${g.time !== undefined ? ` (t = ${sig(g.time, 12)} s)` : ''}, line ${g.line}\n`);
+      out(`  gap: ${g.missing} missing sample(s) from index ${g.index}${g.time !== undefined ? ` (t = ${epoch.text(g.time)})` : ''}, line ${g.line}\n`);
     }
-    if (rec.gaps.length > 10) io.out(`  ... ${rec.gaps.length - 10} more gaps (see --json)\n`);
-    io.out(`measurement noise σ_v = ${fmt(Math.sqrt(rFilter), 3)} s (${measurementSource}${noiseEstimate ? `; lag-2 estimate ${fmt(noiseEstimate.variance, 3)} ± ${fmt(noiseEstimate.standardError, 2)} s²` : ''})\n\n`);
+    if (rec.gaps.length > 10) out(`  ... ${rec.gaps.length - 10} more gaps (see --json)\n`);
+    out(`measurement noise σ_v = ${fmt(Math.sqrt(rFilter), 3)} s (${measurementSource}${noiseEstimate ? `; lag-2 estimate ${fmt(noiseEstimate.variance, 3)} ± ${fmt(noiseEstimate.standardError, 2)} s²` : ''})\n\n`);
 
-    io.out(`Polynomial model x(t) = af0 + af1·(t − t_oc)${degree === 2 ? ' + af2·(t − t_oc)²' : ''}, t_oc = ${sig(referenceTime, 12)} s, degree ${degree}, ${result.used} samples\n`);
-    io.out(table(['coefficient', 'value', '1σ (clock noise)', '1σ (white-noise formula)', 'unit'],
+    out(`Polynomial model x(t) = af0 + af1·(t − t_oc)${degree === 2 ? ' + af2·(t − t_oc)²' : ''}, t_oc = ${epoch.text(referenceTime)}, degree ${degree}, ${result.used} samples\n`);
+    out(table(['coefficient', 'value', '1σ (clock noise)', '1σ (white-noise formula)', 'unit'],
       coefficients.map((c) => [c.name, fmt(c.value, 10), fmt(c.std, 3), fmt(c.whiteNoiseStd, 3), c.unit])));
-    io.out(keyValueTable([
+    out(keyValueTable([
       ['residual RMS', `${fmt(residualRms, 4)} s`],
       ['reduced χ² (vs σ_v²)', Number.isFinite(reducedChiSquare) ? `${fmt(reducedChiSquare, 4)} (residuals are clock noise, not white: >> 1 is expected)` : 'n/a (no measurement noise resolved)'],
-    ]));
-    for (const p of predictions) io.out(`prediction at t = ${sig(p.t, 12)} s: x = ${pm(p.phase, p.std, 's')} (1σ, model + clock noise after the record)\n`);
-    io.out(`${FLIGHT_CAUTION}\n\n`);
+    ], width));
+    for (const p of predictions) out(`prediction at t = ${epoch.text(p.t)}: x = ${pm(p.phase, p.std, 's')} (1σ, model + clock noise after the record)\n`);
+    out(`${FLIGHT_CAUTION}\n\n`);
 
-    io.out(`Noise model (${states}-state, from ${noise.statistic.toUpperCase()} of the residuals; ${sig(noise.confidence * 100, 4)} % χ² intervals)\n`);
-    io.out(table(['coefficient', 'value', '1σ', 'interval', 'unit', 'h-coefficient'],
+    out(`Noise model (${states}-state, from ${noise.statistic.toUpperCase()} of the residuals; ${sig(noise.confidence * 100, 4)} % χ² intervals)\n`);
+    out(table(['coefficient', 'value', '1σ', 'interval', 'unit', 'h-coefficient'],
       qNames.map((n) => {
         const iv = noise.intervals[n];
         const h = H_OF_Q[n];
@@ -235,34 +279,34 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
           : iv ? `[${fmt(iv.low, 3)}, ${fmt(iv.high, 3)}]${iv.edf < 1 ? ' (not resolved)' : ''}` : '—';
         return [n, fmt(noise.q[n], 4), fmt(noise.qStd[n], 2), interval, qUnits[n], `${h.label} = ${fmt(noise.h[h.field], 4)} ± ${fmt(noise.hStd[h.field], 2)} ${qUnits[n]}`];
       })));
-    io.out(`fit: χ² = ${fmt(noise.chiSquare, 4)} on ${noise.dof} dof (p = ${fmt(noise.chiSquareProbability, 3)})${noise.excluded.length ? `; left out: ${noise.excluded.map((e) => `τ = ${sig(e.tau)} s (${e.reason})`).join(', ')}` : ''}\n`);
-    io.out(table(['τ (s)', noise.statistic, 'model', 'edf', 'residual (σ)'],
+    out(`fit: χ² = ${fmt(noise.chiSquare, 4)} on ${noise.dof} dof (p = ${fmt(noise.chiSquareProbability, 3)})${noise.excluded.length ? `; left out: ${noise.excluded.map((e) => `τ = ${sig(e.tau)} s (${e.reason})`).join(', ')}` : ''}\n`);
+    out(table(['τ (s)', noise.statistic, 'model', 'edf', 'residual (σ)'],
       noise.points.map((p) => [sig(p.tau, 6), p.deviation.toExponential(3), p.modelDeviation.toExponential(3), fmt(p.edf, 3), p.normalizedResidual.toFixed(2)])));
-    io.out('\n');
+    out('\n');
 
-    io.out(`Kalman pass (${filter.states}-state, R = σ_v², q from the noise model; ${events.length} pass(es))\n`);
-    io.out(`jump detection: GLR statistic l > ${fmt(detection.jumpThreshold, 4)} (χ²(1) at ${sig(detection.falseAlarmProbability, 3)}/${detection.testsPerUpdate}); ` +
+    out(`Kalman pass (${filter.states}-state, R = σ_v², q from the noise model; ${events.length} pass(es))\n`);
+    out(`jump detection: GLR statistic l > ${fmt(detection.jumpThreshold, 4)} (χ²(1) at ${sig(detection.falseAlarmProbability, 3)}/${detection.testsPerUpdate}); ` +
       `on a jump-free record a false jump is declared with probability ≤ ${sig(detection.falseAlarmProbability, 3)} per sample ` +
       `(≤ ${sig(detection.falseAlarmProbability * rec.values.length, 3)} expected in this record)\n`);
-    io.out(`outliers: impulse statistic l > ${fmt(detection.outlierThreshold, 4)}, i.e. a good sample is rejected with probability ${sig(detection.outlierProbability, 3)}\n`);
-    if (allJumps.length === 0) io.out('jumps: none detected\n');
+    out(`outliers: impulse statistic l > ${fmt(detection.outlierThreshold, 4)}, i.e. a good sample is rejected with probability ${sig(detection.outlierProbability, 3)}\n`);
+    if (allJumps.length === 0) out('jumps: none detected\n');
     else {
-      io.out(table(['pass', 'kind', 'epoch (s)', 'sample', 'size', '1σ', 'unit'],
-        allJumps.map((j) => [String(j.pass), j.kind, sig(j.epoch, 12), String(j.index), fmt(j.size, 4), fmt(j.sizeStd, 2), j.kind === 'phase' ? 's' : 'dimensionless'])));
+      out(fitTable(['pass', 'kind', epoch.column, 'sample', 'size', '1σ', 'unit'],
+        allJumps.map((j) => [String(j.pass), j.kind, epoch.cell(j.epoch), String(j.index), fmt(j.size, 4), fmt(j.sizeStd, 2), j.kind === 'phase' ? 's' : 'dimensionless'])));
     }
-    if (allRejected.length === 0) io.out('outliers: none rejected\n');
+    if (allRejected.length === 0) out('outliers: none rejected\n');
     else {
-      io.out(table(['pass', 'epoch (s)', 'sample', 'innovation (s)', 'NIS'],
-        allRejected.map((r) => [String(r.pass), sig(r.t, 12), String(r.index), fmt(r.innovation, 4), fmt(r.nis, 4)])));
+      out(fitTable(['pass', epoch.column, 'sample', 'innovation (s)', 'NIS'],
+        allRejected.map((r) => [String(r.pass), epoch.cell(r.t), String(r.index), fmt(r.innovation, 4), fmt(r.nis, 4)])));
     }
     const nis = filter.nisSummary;
     const inside = nis.mean >= nis.low && nis.mean <= nis.high;
-    io.out(`mean NIS ${fmt(nis.mean, 4)} over ${nis.count} updates; ${sig(nis.confidence * 100, 3)} % χ² bounds [${fmt(nis.low, 4)}, ${fmt(nis.high, 4)}]: ${inside ? 'consistent' : 'NOT consistent (noise model or σ_v off)'}\n`);
+    out(`mean NIS ${fmt(nis.mean, 4)} over ${nis.count} updates; ${sig(nis.confidence * 100, 3)} % χ² bounds [${fmt(nis.low, 4)}, ${fmt(nis.high, 4)}]: ${inside ? 'consistent' : 'NOT consistent (noise model or σ_v off)'}\n`);
     if (allJumps.length > 0 || allRejected.length > 0) {
-      io.out(`The model and noise above come from the record${allJumps.length ? ' corrected for these jumps' : ''}${allJumps.length && allRejected.length ? ' and' : ''}${allRejected.length ? ' without the rejected samples' : ''}.\n`);
+      out(`The model and noise above come from the record${allJumps.length ? ' corrected for these jumps' : ''}${allJumps.length && allRejected.length ? ' and' : ''}${allRejected.length ? ' without the rejected samples' : ''}.\n`);
     }
     if (args.values['scenario-noise']) {
-      io.out(`\nSteering scenario clock.noise (q1 in s, q2 in 1/s, q3 in 1/s³):\n${JSON.stringify(scenarioNoise)}\n`);
+      out(`\nSteering scenario clock.noise (q1 in s, q2 in 1/s, q3 in 1/s³):\n${JSON.stringify(scenarioNoise)}\n`);
     }
     return EXIT_OK;
   },

@@ -9,6 +9,7 @@ import {
   EXIT_FINDING, EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, onePositional, optionalFlag, table, toJson,
   type Command, type FlagSpec, type ParsedArgs,
 } from '../framework.js';
+import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { readJsonFile, readTextFile } from '../files.js';
 
 const METHODS: readonly SteeringMethod[] = ['deadband', 'optimal', 'none'];
@@ -75,17 +76,22 @@ function stepText(c: SteeringPlan['commands'][number]): string {
     : `${c.phaseStepSeconds! >= 0 ? '+' : ''}${nsText(c.phaseStepSeconds!)}`;
 }
 
-/** The human-readable schedule. */
-export function planToText(scenario: SteeringScenario, method: string, plan: SteeringPlan): string {
+/**
+ * The human-readable schedule, fitted to `width` display columns (undefined: the long form of `--wide`):
+ * the command reasons then go under their rows.
+ */
+export function planToText(scenario: SteeringScenario, method: string, plan: SteeringPlan, width: number | undefined): string {
   const out: string[] = [];
   const tol = scenario.tolerance;
   out.push(`${scenario.name ?? 'Steering plan'}: ${method} planner, ${scenario.epoch} + ${(scenario.horizonSeconds / 86_400).toFixed(2)} days`);
   out.push(`Tolerance ±${nsText(tol.phaseSeconds)} at ${tol.probability * 100} % per epoch`);
-  out.push(plan.feasible ? 'Feasible: yes' : `Feasible: NO. ${plan.reason ?? ''}`, '');
+  // The SDK's reason is a clause; as the sentence after "NO." it starts with a capital.
+  const reason = (plan.reason ?? '').replace(/^[a-z]/, (c) => c.toUpperCase()); // a leading symbol (σ) stays as it is
+  out.push(plan.feasible ? 'Feasible: yes' : `Feasible: NO. ${reason}`, '');
   if (plan.commands.length === 0) out.push('No commands.');
   else {
-    out.push(table(['#', 'uplink (UTC)', 'execute (UTC)', 'kind', 'step (fractional or ns)', 'actuator steps', 'reason'],
-      plan.commands.map((c, i) => [i + 1, c.uplinkAt, c.executeAt, c.kind, stepText(c), c.actuatorSteps, c.reason])).trimEnd());
+    out.push(fitTable(['#', 'uplink (UTC)', 'execute (UTC)', 'kind', 'step (fractional or ns)', 'actuator steps', 'reason'],
+      plan.commands.map((c, i) => [i + 1, c.uplinkAt, c.executeAt, c.kind, stepText(c), c.actuatorSteps, c.reason]), { width, below: [6], unlabelled: [6] }).trimEnd());
   }
   const m = plan.metrics;
   out.push('', keyValueTable([
@@ -106,7 +112,7 @@ export function planToText(scenario: SteeringScenario, method: string, plan: Ste
   }
   out.push('', 'Prediction (every 6 h):', table(['t (days)', 'steered mean (ns)', '1σ (ns)', 'unsteered mean (ns)'], rows).trimEnd());
   out.push('', plan.caution, '');
-  return out.join('\n');
+  return wrapLines(out.join('\n'), width);
 }
 
 export const planCommand: Command = {
@@ -137,7 +143,7 @@ Exit status: 0 feasible plan, 1 infeasible (the reason is printed), 2 unusable i
     const plan = planSteering(scenario, { ...(strategy ? { strategy } : {}), ...(timeScales ? { timeScales } : {}) });
     const s = scenario as SteeringScenario;
     if (format === 'json') io.out(toJson({ ...plan, units: PLAN_UNITS }));
-    else io.out(planToText(s, strategy ?? s.strategy.method, plan));
+    else io.out(planToText(s, strategy ?? s.strategy.method, plan, outputWidth(args)));
     return plan.feasible ? EXIT_OK : EXIT_FINDING;
   },
 };

@@ -10,8 +10,9 @@ import {
 import { DEFAULT_LAGRANGE_POINTS, PreciseCorrectionStream, type PreciseCorrectionResult } from '@tauline/sdk/relativity';
 import { BUNDLED_LEAP_SECONDS, createTimeScales, type TimeScale, type TimeScales } from '@tauline/sdk/time';
 import {
-  EXIT_OK, TABLE_JSON_CSV, UsageError, formatFlags, numberFlag, table, toJson, type Command,
+  EXIT_OK, TABLE_JSON_CSV, UsageError, formatFlags, numberFlag, toJson, type Command,
 } from '../framework.js';
+import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { requireRegularFile } from '../files.js';
 import {
   SYSTEM_SCALE, fileChunks, isModelledSystem, loadNavigation, outputFormat, progress, satelliteFlag, totalSize,
@@ -42,6 +43,23 @@ interface PreciseOut {
   differenceSeconds?: number | null;
 }
 
+/**
+ * Satellites for which the cross-check gave no broadcast value at any epoch, with the reason: a system the
+ * SDK does not model, or no record of the satellite in the navigation files over the SP3 span.
+ */
+function withoutBroadcast(order: readonly string[], bySat: ReadonlyMap<string, { samples: PreciseOut[] }>,
+  records: ReadonlyMap<string, readonly unknown[]>): Map<string, string> {
+  const out = new Map<string, string>();
+  for (const id of order) {
+    const samples = bySat.get(id)!.samples;
+    if (samples.length === 0 || samples.some((o) => o.broadcastRelativisticSeconds != null)) continue;
+    out.set(id, !isModelledSystem(id.charAt(0)) ? 'system not modelled (GPS, Galileo and BeiDou only)'
+      : (records.get(id)?.length ?? 0) === 0 ? 'the navigation file(s) have no record of this satellite over the SP3 span'
+        : 'no healthy record whose fit interval covers these epochs');
+  }
+  return out;
+}
+
 export const preciseCommand: Command = {
   name: 'precise',
   summary: 'Relativistic correction −2 r·v/c² from an SP3 precise orbit file, optionally compared with broadcast values.',
@@ -67,8 +85,8 @@ as zero or skipped. With --nav, the broadcast Δt_r = F e √A sin E_k of the
 record valid at the same instant (converted to the system's own scale) and the difference precise − broadcast are
 added; the difference includes the share of the broadcast harmonic corrections in r·v (≈ 0.01 ns) and orbit errors.
 JSON: { timeSystem, timeSystemAssumed, coordinateFrame, agency, lagrangePoints, satellites: [{ id, samples: [{ t, relativisticSeconds,
-velocitySource, broadcastRelativisticSeconds?, differenceSeconds? }], gaps: [{ t, reason }] }], units }; t is in the
-file's time system, the corrections in SI seconds. A --satellite not listed in the file's header is refused.
+velocitySource, broadcastRelativisticSeconds?, differenceSeconds? }], gaps: [{ t, reason }], broadcastNote? }], units }; t is in the
+file's time system, the corrections in SI seconds. broadcastNote says why a satellite has no broadcast value at all. A --satellite not listed in the file's header is refused.
 Exit status: 0 success, 2 invalid input or a malformed file.`,
   async run(args, io) {
     if (args.positionals.length !== 1) throw new UsageError('exactly one SP3 file is required (tauline precise <sp3-file>)');
@@ -162,6 +180,7 @@ Exit status: 0 success, 2 invalid input or a malformed file.`,
     if (format === 'csv') return EXIT_OK;
 
     const order = header.satellites.filter((s) => bySat.has(s));
+    const noBroadcast = nav ? withoutBroadcast(order, bySat, nav.records) : new Map<string, string>();
     if (format === 'json') {
       io.out(toJson({
         timeSystem: header.timeSystem,
@@ -171,7 +190,9 @@ Exit status: 0 success, 2 invalid input or a malformed file.`,
         sp3Version: header.version,
         epochInterval: header.epochInterval,
         lagrangePoints: points,
-        satellites: order.map((id) => ({ id, samples: bySat.get(id)!.samples, gaps: bySat.get(id)!.gaps })),
+        satellites: order.map((id) => ({
+          id, samples: bySat.get(id)!.samples, gaps: bySat.get(id)!.gaps, ...(noBroadcast.has(id) ? { broadcastNote: noBroadcast.get(id) } : {}),
+        })),
         ...(nav ? { navigationSkipped: [...nav.skipped].map(([reason, count]) => ({ reason, count })) } : {}),
         units: {
           epochInterval: 's', t: `ISO 8601 in the file's time system (${header.timeSystem})`, relativisticSeconds: 's',
@@ -180,20 +201,30 @@ Exit status: 0 success, 2 invalid input or a malformed file.`,
       }));
       return EXIT_OK;
     }
+    const width = outputWidth(args);
     const timeNote = header.timeSystemAssumed ? `${header.timeSystem} time assumed: SP3-${header.version} states none` : `${header.timeSystem} time`;
-    io.out(`Precise-orbit relativistic correction −2 r·v/c² (SP3-${header.version}, ${timeNote}, frame ${header.coordinateFrame}, ${header.agency})\n\n`);
+    io.out(wrapLines(`Precise-orbit relativistic correction −2 r·v/c² (SP3-${header.version}, ${timeNote}, frame ${header.coordinateFrame}, ${header.agency})\n\n`, width));
+    // A satellite the navigation files say nothing about gets empty broadcast cells and one sentence
+    // below the table instead of a column of "—"; no such column at all when no satellite has a record.
+    const broadcastColumns = nav !== undefined && order.some((id) => !noBroadcast.has(id));
     const rows: (string | number)[][] = [];
     for (const id of order) {
       for (const o of bySat.get(id)!.samples) {
         const row: (string | number)[] = [id, o.t, (o.relativisticSeconds * 1e9).toFixed(4), o.velocitySource];
-        if (nav) row.push(o.broadcastRelativisticSeconds == null ? '—' : (o.broadcastRelativisticSeconds * 1e9).toFixed(4),
-          o.differenceSeconds == null ? '—' : (o.differenceSeconds * 1e9).toFixed(4));
+        if (broadcastColumns) {
+          const none = noBroadcast.has(id) ? '' : '—';
+          row.push(o.broadcastRelativisticSeconds == null ? none : (o.broadcastRelativisticSeconds * 1e9).toFixed(4),
+            o.differenceSeconds == null ? none : (o.differenceSeconds * 1e9).toFixed(4));
+        }
         rows.push(row);
       }
     }
-    io.out(table(['sat', 't', 'Δt_r (ns)', 'v from', ...(nav ? ['broadcast (ns)', 'difference (ns)'] : [])], rows));
+    io.out(fitTable(['sat', 't', 'Δt_r (ns)', 'v from', ...(broadcastColumns ? ['broadcast (ns)', 'difference (ns)'] : [])], rows, { width }));
+    const text: string[] = [];
+    if (noBroadcast.size > 0) text.push(`\nNo broadcast cross-check:\n${[...noBroadcast].map(([id, why]) => `  ${id}: ${why}`).join('\n')}\n`);
     const gaps = order.flatMap((id) => bySat.get(id)!.gaps.map((g) => `  ${id} ${g.t}: ${g.reason}`));
-    if (gaps.length > 0) io.out(`\nEpochs without a correction:\n${gaps.join('\n')}\n`);
+    if (gaps.length > 0) text.push(`\nEpochs without a correction:\n${gaps.join('\n')}\n`);
+    io.out(wrapLines(text.join(''), width));
     return EXIT_OK;
   },
 };

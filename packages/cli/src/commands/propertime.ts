@@ -7,10 +7,16 @@ import { GRAVITY_MODELS, type GravityModel } from '@tauline/sdk/orbit';
 import { integrateProperTime } from '@tauline/sdk/relativity';
 import type { ConstantSet } from '@tauline/sdk/constants';
 import {
-  EXIT_OK, TABLE_OR_JSON, choiceFlag, formatFlag, formatFlags, numberFlag, parseNumber, requireFlag, sig, table, toJson, withFlagNames,
+  EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, choiceFlag, formatFlag, formatFlags, numberFlag, parseNumber, requireFlag, sig, toJson, withFlagNames,
   type Command,
 } from '../framework.js';
+import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { CONSTANTS_FLAG, constantsFlag } from './rate.js';
+import { speedHint, warn } from '../plausibility.js';
+import { startProgress, withProgress } from '../progress.js';
+
+/** Orbits integrated above which a terminal shows progress (about a second of integration, j2 model). */
+export const PROPERTIME_PROGRESS_ORBITS = 100;
 
 /** Parses `x,y,z,vx,vy,vz` (metres, m/s). */
 export function parseStateFlag(text: string): { position: [number, number, number]; velocity: [number, number, number] } {
@@ -65,8 +71,10 @@ potential with Sun/Moon from the low-precision series of Montenbruck & Gill, Sat
 Accuracy: integration error < 1 ps/day at the default tolerance (LEO to GEO, e up to 0.16); model limits: see
 packages/sdk/docs/relativity-models.md. τ − TT = 0 at t = 0; the samples are t = 0, step, 2·step, … and the duration.
 JSON fields: samples [{ t (s), tauMinusTT (s) }], model, constants, epochTtSecondsSinceJ2000, ephemeris,
-relativeTolerance, acceptedSteps, rejectedSteps, meanRate (τ − TT at the end divided by the duration), units.
-An unbound state (v ≥ √(2GM/r), e.g. a velocity in the wrong unit) is refused.
+relativeTolerance, acceptedSteps, rejectedSteps, meanRate (τ − TT at the end divided by the duration), caution
+(the mean rate is what a factory offset is computed from), units.
+An unbound state (v ≥ √(2GM/r), e.g. a velocity in the wrong unit) is refused; a speed under 1 % of the
+circular speed (km/s given as m/s?) is used as given, with a warning on stderr.
 Exit status: 0 success, 2 invalid input.`,
   run(args, io) {
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
@@ -78,14 +86,22 @@ Exit status: 0 success, 2 invalid input.`,
     const tolerance = numberFlag(args, 'tolerance');
     const constants = constantsFlag(args);
     requireBoundState(state, constants);
-    const result = withFlagNames({
+    // Orbits in the span, from the initial radius: period T = 2π√(r³/GM) (Kepler's third law, circular orbit).
+    const r0 = Math.hypot(...state.position);
+    const orbits = duration / (2 * Math.PI * Math.sqrt(r0 ** 3 / constants.gm));
+    const bar = startProgress(io, 'integrating', orbits > PROPERTIME_PROGRESS_ORBITS);
+    const result = withProgress(bar, () => withFlagNames({
       '|state.position|': '--state (|position|)', 'state.position[0]': '--state x', 'state.position[1]': '--state y',
       'state.position[2]': '--state z', 'state.velocity[0]': '--state vx', 'state.velocity[1]': '--state vy',
       'state.velocity[2]': '--state vz', duration: '--duration', step: '--step', relativeTolerance: '--tolerance',
       epochTtSecondsSinceJ2000: '--epoch-tt-j2000',
     }, () => integrateProperTime(state, duration, step, {
       model, constants, epochTtSecondsSinceJ2000: epoch, ...(tolerance === undefined ? {} : { relativeTolerance: tolerance }),
-    }));
+      onProgress: bar.update,
+    })));
+    // Warned only once the state is accepted: a refused state gets its one error line alone.
+    const hint = speedHint('--state (|velocity|)', Math.hypot(...state.velocity), Math.hypot(...state.position), constants.gm);
+    if (hint) warn(io, 'propertime', hint);
     const n = result.t.length;
     const meanRate = result.tauMinusTT[n - 1]! / duration;
     if (format === 'json') {
@@ -100,16 +116,19 @@ Exit status: 0 success, 2 invalid input.`,
         acceptedSteps: result.acceptedSteps,
         rejectedSteps: result.rejectedSteps,
         meanRate,
+        // The mean rate is the value a factory offset is computed from: it carries the flight caution.
+        caution: FLIGHT_CAUTION,
         units: { t: 's (since the start)', tauMinusTT: 's', epochTtSecondsSinceJ2000: 's (TT)', relativeTolerance: 'dimensionless', meanRate: 'dimensionless' },
       }));
       return EXIT_OK;
     }
-    io.out(`Proper time τ − TT, model ${result.model}, constants ${result.constants}` +
-      (result.model === 'full' ? `, epoch TT J2000 + ${result.epochTtSecondsSinceJ2000} s (${result.ephemeris})` : '') + '\n\n');
-    io.out(table(['t (s)', 'τ − TT (s)', 'τ − TT (ns)'],
-      Array.from(result.t, (t: number, k: number): (string | number)[] => [sig(t, 12), result.tauMinusTT[k]!.toExponential(12), (result.tauMinusTT[k]! * 1e9).toFixed(6)])));
-    io.out(`\nmean rate over the span: ${meanRate.toExponential(9)} (${sig(meanRate * 86400e6, 8)} µs/day); ` +
-      `${result.acceptedSteps} steps (${result.rejectedSteps} rejected), rtol ${result.relativeTolerance}\n`);
+    const width = outputWidth(args);
+    io.out(wrapLines(`Proper time τ − TT, model ${result.model}, constants ${result.constants}` +
+      (result.model === 'full' ? `, epoch TT J2000 + ${result.epochTtSecondsSinceJ2000} s (${result.ephemeris})` : '') + '\n\n', width));
+    io.out(fitTable(['t (s)', 'τ − TT (s)', 'τ − TT (ns)'],
+      Array.from(result.t, (t: number, k: number): (string | number)[] => [sig(t, 12), result.tauMinusTT[k]!.toExponential(12), (result.tauMinusTT[k]! * 1e9).toFixed(6)]), { width }));
+    io.out(wrapLines(`\nmean rate over the span: ${meanRate.toExponential(9)} (${sig(meanRate * 86400e6, 8)} µs/day); ` +
+      `${result.acceptedSteps} steps (${result.rejectedSteps} rejected), rtol ${result.relativeTolerance}\n\n${FLIGHT_CAUTION}\n`, width));
     return EXIT_OK;
   },
 };

@@ -3,11 +3,16 @@
  * against their planned orbits, before launch.
  */
 import { writeFile } from 'node:fs/promises';
-import { reviewOffsets, reviewToHtml, reviewToMarkdown, type ReviewReport } from '@tauline/sdk/review';
+import { reviewOffsets, reviewToHtml, reviewToMarkdown, verdictExplanation, type ReviewReport } from '@tauline/sdk/review';
 import {
-  EXIT_FINDING, EXIT_OK, formatFlag, formatFlagSpec, integerFlag, onePositional, optionalFlag, seedFlag, seedFlagSpec, table, toJson,
+  EXIT_FINDING, EXIT_OK, formatFlag, formatFlagSpec, integerFlag, onePositional, optionalFlag, seedFlag, seedFlagSpec, toJson,
   type Command,
 } from '../framework.js';
+import { fitTable, outputWidth, wrapLines } from '../layout.js';
+import { startProgress } from '../progress.js';
+
+/** Monte Carlo draws (runs × spacecraft with a dispersion) above which a terminal shows progress. */
+export const REVIEW_PROGRESS_DRAWS = 1_000_000;
 import { readJsonFile } from '../files.js';
 
 const FORMATS = ['table', 'json', 'md', 'html'] as const;
@@ -16,14 +21,18 @@ function e(x: number, digits = 4): string {
   return x.toExponential(digits - 1);
 }
 
-function tableReport(report: ReviewReport): string {
+/** The review as text fitted to `width` display columns (undefined: unlimited, `--wide`). */
+function tableReport(report: ReviewReport, width: number | undefined): string {
   const out: string[] = [report.title, ''];
-  out.push(table(['spacecraft', 'verdict', 'expected offset', 'configured', 'difference', 'ns/day', 'tolerance'],
+  out.push(fitTable(['spacecraft', 'verdict', 'expected offset', 'configured', 'difference', 'ns/day', 'tolerance'],
     report.spacecraft.map((s) => [s.id, s.verdict.toUpperCase(), e(s.expectedFractionalOffset, 7), e(s.configuredFractionalOffset, 7),
-      e(s.differenceFractional, 3), s.differenceNanosecondsPerDay.toFixed(3), e(s.toleranceFractional, 2)])));
+      e(s.differenceFractional, 3), s.differenceNanosecondsPerDay.toFixed(3), e(s.toleranceFractional, 2)]), { width }).trimEnd());
   for (const s of report.spacecraft) {
-    if (s.diagnosis.length === 0 && !s.dispersion) continue;
+    // A spacecraft that is not a plain pass is always explained, even when no known mistake matches.
+    if (s.diagnosis.length === 0 && !s.dispersion && s.verdict === 'pass') continue;
     out.push('', `${s.id} (${s.verdict.toUpperCase()}): ${s.summary}`);
+    const why = verdictExplanation(s);
+    if (why) out.push(`  · ${why}`);
     for (const d of s.diagnosis) out.push(`  ${d.matches ? '•' : '·'} [${d.code}] ${d.message}`);
     if (s.dispersion) {
       const d = s.dispersion;
@@ -33,7 +42,7 @@ function tableReport(report: ReviewReport): string {
     }
   }
   out.push('', `${report.counts.pass} pass, ${report.counts.marginal} marginal, ${report.counts.fail} fail`, '', report.caution, '');
-  return out.join('\n');
+  return wrapLines(out.join('\n'), width);
 }
 
 export const reviewCommand: Command = {
@@ -62,11 +71,18 @@ Exit status: 0 all pass, 1 some fail or marginal, 2 the input could not be read.
     const seed = seedFlag(args);
     const document = await readJsonFile(path, 'a review file');
     let report: ReviewReport;
+    const dispersed = Array.isArray((document as { spacecraft?: unknown }).spacecraft)
+      ? ((document as { spacecraft: unknown[] }).spacecraft).filter((sc) => typeof sc === 'object' && sc !== null && 'dispersion' in sc).length : 0;
+    const bar = startProgress(io, 'Monte Carlo over the injection dispersion', (runs ?? 20_000) * dispersed > REVIEW_PROGRESS_DRAWS);
     try {
-      report = reviewOffsets(document, { ...(runs !== undefined ? { monteCarloRuns: runs } : {}), ...(seed !== undefined ? { seed } : {}) });
+      report = reviewOffsets(document, {
+        ...(runs !== undefined ? { monteCarloRuns: runs } : {}), ...(seed !== undefined ? { seed } : {}), onProgress: bar.update,
+      });
     } catch (error) {
       if (error instanceof Error) error.message = `${path}: ${error.message}`;
       throw error;
+    } finally {
+      bar.finish();
     }
     const actuatorRanges: Record<string, number> = {};
     const doc = document as { actuator?: { rangeFractional?: number }; spacecraft: { id: string; actuator?: { rangeFractional?: number } }[] };
@@ -75,7 +91,7 @@ Exit status: 0 all pass, 1 some fail or marginal, 2 the input could not be read.
       if (typeof range === 'number') actuatorRanges[sc.id] = range;
     }
     const text = format === 'json' ? toJson(report) : format === 'md' ? reviewToMarkdown(report)
-      : format === 'html' ? reviewToHtml(report, actuatorRanges) : tableReport(report);
+      : format === 'html' ? reviewToHtml(report, actuatorRanges) : tableReport(report, outputWidth(args));
     const output = optionalFlag(args, 'output');
     if (output !== undefined) {
       await writeFile(output, text, 'utf8');

@@ -5,8 +5,9 @@
 import { planSteering, simulatePlan, type SteeringMethod, type SteeringScenario } from '@tauline/sdk/steering';
 import {
   EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, integerFlag, onePositional, optionalFlag, progressBar, requireFlag, seedFlag, seedFlagSpec,
-  table, toJson, type Command,
+  toJson, type Command,
 } from '../framework.js';
+import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag, nsText, readScenarioFile, strategyFlag } from './plan.js';
 
 /** Simulated (run × grid-epoch) steps above which a progress bar is shown on a terminal. */
@@ -69,11 +70,12 @@ Exit status: 0 success, 2 unusable input.`,
       return EXIT_OK;
     }
     const s = scenario as SteeringScenario;
-    io.out(`${s.name ?? 'Steering scenario'}: ${runs} simulated clocks per strategy, seed ${seed}; tolerance ±${nsText(s.tolerance.phaseSeconds)}\n\n`);
-    io.out(table(['strategy', 'plan feasible', 'commands', 'time in tolerance', 'whole horizon', 'min epoch', 'worst excursion', '95 % worst', 'expected cost J'],
+    const width = outputWidth(args);
+    io.out(wrapLines(`${s.name ?? 'Steering scenario'}: ${runs} simulated clocks per strategy, seed ${seed}; tolerance ±${nsText(s.tolerance.phaseSeconds)}\n\n`, width));
+    io.out(fitTable(['strategy', 'plan feasible', 'commands', 'time in tolerance', 'whole horizon', 'min epoch', 'worst excursion', '95 % worst', 'expected cost J'],
       results.map((r) => [r.strategy, r.feasible ? 'yes' : 'no', r.commandCount, r.timeInTolerance.toFixed(4), r.wholeHorizonProbability.toFixed(4),
-        r.minEpochProbability.toFixed(4), nsText(r.worstExcursionSeconds), nsText(r.worstExcursionP95Seconds), r.expectedCost.toFixed(5)])));
-    io.out(`\n${SIMULATION_CAUTION}\n`);
+        r.minEpochProbability.toFixed(4), nsText(r.worstExcursionSeconds), nsText(r.worstExcursionP95Seconds), r.expectedCost.toFixed(5)]), { width }));
+    io.out(wrapLines(`\n${SIMULATION_CAUTION}\n`, width));
     return EXIT_OK;
   },
 };

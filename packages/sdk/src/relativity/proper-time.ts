@@ -35,6 +35,8 @@ export interface ProperTimeOptions {
    * rtol × 1 m, rtol × 1e-3 m/s and rtol × 1e-4 s for position, velocity and τ − TT.
    */
   relativeTolerance?: number;
+  /** Called after each accepted integrator step with the time reached and the duration, both in seconds (e.g. for a progress bar). */
+  onProgress?: (reachedSeconds: Seconds, durationSeconds: Seconds) => void;
 }
 
 /** Result of {@link integrateProperTime}. */
@@ -135,6 +137,7 @@ export function integrateProperTime(state: StateVector, duration: Seconds, step:
         throw new OutOfDomainError('trajectory radius', r, `${rMin} m (the Earth's equatorial radius)`, '∞',
           `the orbit enters the Earth by t = ${t} s after the start; check the state (units m and m/s)`);
       }
+      options.onProgress?.(t, duration);
     },
   });
   const states = new Float64Array(count * 6);

@@ -29,6 +29,11 @@ export interface ReviewOptions {
   readonly monteCarloRuns?: number;
   /** Seed of the dispersion Monte Carlo, an integer in [0, 2^32 − 1] (default 1), so reports are reproducible. */
   readonly seed?: number;
+  /**
+   * Called during the dispersion Monte Carlo with the draws done and the draws in all (over every
+   * spacecraft with a dispersion), e.g. for a progress bar; at most about 200 calls per run.
+   */
+  readonly onProgress?: (done: number, total: number) => void;
   /** Default tolerance when neither the file nor the spacecraft gives one (default 1e-12). */
   readonly defaultToleranceFractional?: number;
 }
@@ -173,6 +178,13 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
     return { sc, set, reference, rate, j2, totalRate, expected: offsetForRate(totalRate) };
   });
 
+  // Monte Carlo progress over all spacecraft with a dispersion: draws done before the current one, plus its own.
+  const totalDraws = runs * resolved.filter((r) => r.sc.dispersion).length;
+  let drawsBefore = 0;
+  const progress = options.onProgress === undefined ? undefined : (done: number): void => {
+    options.onProgress!(drawsBefore + done, totalDraws);
+    if (done === runs) drawsBefore += runs;
+  };
   const findings = resolved.map(({ sc, set, reference, rate, j2, totalRate, expected }, index): SpacecraftFinding => {
     const nominal = sc.nominalFrequencyHz;
     const tolerance = sc.tolerance?.fractional ?? input.tolerance?.fractional ?? defaultTolerance;
@@ -248,7 +260,7 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
     const actuator = sc.actuator ?? input.actuator;
     const phaseTolerance = sc.phaseToleranceSeconds ?? input.phaseToleranceSeconds ?? null;
     const dispersion = sc.dispersion
-      ? analyseDispersion(sc, set, reference, configured, actuator?.rangeFractional ?? null, phaseTolerance, runs, (seed + index) % (MAX_SEED + 1))
+      ? analyseDispersion(sc, set, reference, configured, actuator?.rangeFractional ?? null, phaseTolerance, runs, (seed + index) % (MAX_SEED + 1), progress)
       : null;
     if (dispersion && actuator && dispersion.actuatorCovers === false) {
       verdict = 'fail';
@@ -307,7 +319,8 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
 const PERCENTILES = [0.135, 2.275, 15.866, 50, 84.134, 97.725, 99.865];
 
 function analyseDispersion(sc: ReviewSpacecraft, set: ConstantSet, reference: ReferenceClock, configured: number,
-  actuatorRange: number | null, phaseTolerance: number | null, runs: number, seed: number): DispersionAnalysis {
+  actuatorRange: number | null, phaseTolerance: number | null, runs: number, seed: number,
+  onProgress?: (done: number) => void): DispersionAnalysis {
   const a0 = sc.orbit.semiMajorAxis;
   const sigma = sc.dispersion!.semiMajorAxisSigma;
   // In orbit the configured oscillator runs at (1 + c)(1 + r(a)) − 1 against the reference (product of the two rates).
@@ -320,7 +333,11 @@ function analyseDispersion(sc: ReviewSpacecraft, set: ConstantSet, reference: Re
   const worst = Math.max(Math.abs(minus), Math.abs(plus), Math.abs(nominal));
   const random = createRandom(seed);
   const draws = new Float64Array(runs);
-  for (let i = 0; i < runs; i++) draws[i] = a0 + sigma * random.normal();
+  const every = Math.max(1, Math.ceil(runs / 200));
+  for (let i = 0; i < runs; i++) {
+    draws[i] = a0 + sigma * random.normal();
+    if (onProgress && ((i + 1) % every === 0 || i + 1 === runs)) onProgress(i + 1);
+  }
   draws.sort();
   const percentiles = PERCENTILES.map((p) => {
     const a = draws[Math.min(runs - 1, Math.max(0, Math.round((p / 100) * (runs - 1))))]!;

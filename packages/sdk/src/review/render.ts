@@ -23,6 +23,24 @@ function f(x: number | null, digits = 3): string {
 
 const usPerDay = (fraction: number) => fraction * SECONDS_PER_DAY * 1e6;
 
+/**
+ * Why a spacecraft that is not a plain pass got its verdict when no recognised mistake explains it
+ * (its `diagnosis` is empty); undefined for a pass or when findings explain it. Shared by the text,
+ * Markdown and HTML reports, so a MARGINAL or FAIL verdict never stands without a reason.
+ */
+export function verdictExplanation(s: SpacecraftFinding): string | undefined {
+  if (s.verdict === 'pass' || s.diagnosis.length > 0) return undefined;
+  const used = (100 * Math.abs(s.differenceFractional)) / s.toleranceFractional;
+  if (s.verdict === 'marginal') {
+    return `No recognised mistake matches. MARGINAL: the difference ${e(s.differenceFractional, 3)} is inside the tolerance ` +
+      `±${e(s.toleranceFractional, 2)} but uses ${used.toFixed(0)} % of it, more than the review's margin allows; ` +
+      'recompute the expected offset for this orbit and check how the configured value was derived.';
+  }
+  return `No recognised mistake matches. FAIL: the difference ${e(s.differenceFractional, 3)} is ${(used / 100).toFixed(1)} times ` +
+    `the tolerance ±${e(s.toleranceFractional, 2)}; recompute the expected offset from the orbit and the constants, ` +
+    'and check how the configured value was derived.';
+}
+
 /** Markdown rendering: one summary table, then a section per spacecraft. */
 export function reviewToMarkdown(report: ReviewReport): string {
   const lines: string[] = [`# ${report.title}`, '', `> ${report.caution}`, '',
@@ -38,6 +56,8 @@ export function reviewToMarkdown(report: ReviewReport): string {
       `- Expected output frequency: ${s.expectedFrequencyHz.toFixed(7)} Hz; configured: ${s.configuredFrequencyHz.toFixed(7)} Hz; difference ${e(s.differenceHz, 4)} Hz`,
       `- Rate budget: gravitational ${f(usPerDay(s.budget.gravitational), 4)} µs/day, velocity ${f(usPerDay(s.budget.velocity), 4)} µs/day, J2 ${f(usPerDay(s.budget.j2) * 1e3, 4)} ns/day (${s.budget.j2Included ? 'included' : 'not included: the kind of a is not stated'}), net ${f(usPerDay(s.budget.fractionalRate), 4)} µs/day; J2 osculating/mean-a ambiguity ${e(s.budget.j2Ambiguity, 2)}`);
     if (s.quantisationStepFractional !== null) lines.push(`- Tuning-word step: ${e(s.quantisationStepFractional, 3)} (fractional)`);
+    const why = verdictExplanation(s);
+    if (why) lines.push('', why);
     if (s.diagnosis.length > 0) {
       lines.push('', '| finding | would have produced | explanation |', '|---|---:|---|');
       for (const d of s.diagnosis) lines.push(`| ${d.code}${d.matches ? '' : ' (note)'} | ${e(d.wouldHaveProduced, 6)} | ${d.message.replace(/\|/g, '\\|')} |`);
@@ -116,7 +136,8 @@ export function reviewToHtml(report: ReviewReport, actuatorRanges: Readonly<Reco
   const rows = report.spacecraft.map((s) => `<tr class="${s.verdict}"><th scope="row">${esc(s.id)}</th><td><span class="verdict ${s.verdict}">${VERDICT_MARK[s.verdict]}</span></td>` +
     `<td>${e(s.expectedFractionalOffset, 6)}</td><td>${e(s.configuredFractionalOffset, 6)}</td><td>${e(s.differenceFractional, 3)}</td><td>${f(s.differenceNanosecondsPerDay, 3)}</td><td>${e(s.toleranceFractional, 2)}</td></tr>`).join('');
   const sections = report.spacecraft.map((s) => {
-    const diag = s.diagnosis.length === 0 ? '<p>No findings.</p>' : `<table><caption>Findings</caption><thead><tr><th scope="col">code</th><th scope="col">would have produced</th><th scope="col">explanation</th></tr></thead><tbody>${
+    const why = verdictExplanation(s);
+    const diag = s.diagnosis.length === 0 ? `<p class="explanation">${why === undefined ? 'No findings.' : esc(why)}</p>` : `<table><caption>Findings</caption><thead><tr><th scope="col">code</th><th scope="col">would have produced</th><th scope="col">explanation</th></tr></thead><tbody>${
       s.diagnosis.map((d) => `<tr><td><code>${d.code}</code>${d.matches ? '' : ' <small>(note)</small>'}</td><td>${e(d.wouldHaveProduced, 6)}</td><td class="text">${esc(d.message)}</td></tr>`).join('')}</tbody></table>`;
     const disp = s.dispersion ? `<h3>Injection dispersion (σa = ${s.dispersion.semiMajorAxisSigma} m)</h3>${dispersionSvg(s, actuatorRanges[s.id] ?? null)}
 <table><caption>Monte Carlo over the dispersion: ${s.dispersion.monteCarlo.runs} draws, seed ${s.dispersion.monteCarlo.seed}</caption><thead><tr><th scope="col">percentile</th><th scope="col">a (m)</th><th scope="col">residual rate</th><th scope="col">days to phase tolerance</th></tr></thead><tbody>${

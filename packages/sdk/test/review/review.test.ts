@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import Ajv2020 from 'ajv/dist/2020.js';
-import { configuredFraction, parseReviewInput, reviewOffsets, reviewToHtml, reviewToMarkdown, REVIEW_CAUTION } from '../../src/review/index.js';
+import { configuredFraction, parseReviewInput, reviewOffsets, reviewToHtml, reviewToMarkdown, verdictExplanation, REVIEW_CAUTION } from '../../src/review/index.js';
 import { InvalidArgumentError } from '../../src/errors.js';
 
 const examples = new URL('../../examples/review/', import.meta.url);
@@ -220,5 +220,30 @@ describe('reviewToMarkdown / reviewToHtml', () => {
     expect(html).toContain('role="img"');
     expect(html).toContain('steering limit');
     expect(html).toContain(REVIEW_CAUTION.replace(/'/g, '&#39;'));
+  });
+  it('verdictExplanation(finding) explains a MARGINAL verdict that no recognised mistake explains, in the Markdown and HTML too', () => {
+    const marginal = report.spacecraft.find((f) => f.verdict === 'marginal' && f.diagnosis.length === 0)!;
+    const why = verdictExplanation(marginal)!;
+    // 3.5e-13 against ±5e-13 is 70 % of the tolerance (the Block B file configures KESTREL-19 that far off).
+    expect(why).toMatch(/^No recognised mistake matches\. MARGINAL: the difference 3\.50e-13 is inside the tolerance ±5\.0e-13 but uses 70 % of it/);
+    expect(reviewToMarkdown(report)).toContain(why);
+    const html = reviewToHtml(report);
+    expect(html).toContain(`<p class="explanation">${why.replace(/'/g, '&#39;')}</p>`);
+    expect(verdictExplanation(report.spacecraft.find((f) => f.diagnosis.length > 0)!)).toBeUndefined();
+    expect(verdictExplanation(reviewOffsets(load('kestrel-block-a.review.json')).spacecraft[0]!)).toBeUndefined();
+  });
+});
+
+describe('reviewOffsets(document, { onProgress })', () => {
+  it('reports the Monte Carlo draws over every dispersed spacecraft, increasing to the total, without changing the report', () => {
+    const calls: [number, number][] = [];
+    const doc = load('kestrel-block-a.review.json');
+    const withProgress = reviewOffsets(doc, { monteCarloRuns: 1000, onProgress: (done, total) => { calls.push([done, total]); } });
+    const dispersed = withProgress.spacecraft.filter((f) => f.dispersion).length;
+    expect(calls.length).toBeGreaterThan(0);
+    expect(calls.every(([, total]) => total === 1000 * dispersed)).toBe(true);
+    expect(calls.every(([done], k) => k === 0 || done > calls[k - 1]![0])).toBe(true);
+    expect(calls.at(-1)![0]).toBe(1000 * dispersed);
+    expect(withProgress).toEqual(reviewOffsets(doc, { monteCarloRuns: 1000 }));
   });
 });
