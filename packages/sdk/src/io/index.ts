@@ -4,13 +4,14 @@
  *
  * @module
  */
+export { MAX_LINE_CHARACTERS, MAX_SERIES_SAMPLES } from './limits.js';
 export { parsePhaseText, readPhaseText, type PhaseTextSeries, type PhaseTextOptions, type SampleGap } from './phase-text.js';
 export {
   parseRinexClock, readRinexClock, rinexClockSeries,
   type RinexClockFile, type RinexClockHeader, type RinexClockRecord, type RinexClockSeries,
 } from './rinex-clock.js';
 export {
-  type TextLine, type TextSource, type EpochFields, LineSplitter, linesOf, readLines, readLineBatches, parseFortranReal,
+  type TextLine, type TextSource, type EpochFields, type LineSplitterOptions, LineSplitter, linesOf, readLines, readLineBatches, parseFortranReal,
   scaleSecondsFromFields, fieldsFromScaleSeconds, formatEpochFields,
 } from './line-reader.js';
 export {

@@ -239,7 +239,7 @@ class RinexClockBuilder {
 export function parseRinexClock(source: string | Iterable<string>, sourceName = 'rinex-clock'): RinexClockFile {
   const b = new RinexClockBuilder(sourceName);
   let last = 0;
-  for (const line of linesOf(source)) {
+  for (const line of linesOf(source, { sourceName })) {
     b.add(line);
     last = line.lineNumber;
   }
@@ -250,7 +250,7 @@ export function parseRinexClock(source: string | Iterable<string>, sourceName = 
 export async function readRinexClock(source: TextSource, sourceName = 'rinex-clock'): Promise<RinexClockFile> {
   const b = new RinexClockBuilder(sourceName);
   let last = 0;
-  for await (const lines of readLineBatches(source)) {
+  for await (const lines of readLineBatches(source, { sourceName })) {
     for (const line of lines) {
       b.add(line);
       last = line.lineNumber;
