@@ -2,6 +2,7 @@
  * The small command framework shared by every `tauline` command: flag parsing with
  * typed validation, one-line errors, and human tables vs `--json` output.
  */
+import { writeFile } from 'node:fs/promises';
 import { parseArgs, type ParseArgsConfig } from 'node:util';
 import { TaulineError, InvalidArgumentError, formatReceived } from '@tauline/sdk/errors';
 import { MAX_SEED } from '@tauline/sdk/steering';
@@ -17,6 +18,8 @@ export interface Io {
   err: (text: string) => void;
   /** True when stderr is an interactive terminal (progress bars only then). */
   isTty: boolean;
+  /** What a file named `-` reads: the binary passes process.stdin; without it, `-` reads nothing (an empty input). */
+  stdin?: () => AsyncIterable<Uint8Array | string>;
 }
 
 export interface FlagSpec {
@@ -55,6 +58,21 @@ export class UsageError extends Error {
   constructor(message: string) {
     super(message);
     this.name = 'UsageError';
+  }
+}
+
+/**
+ * A file the command was asked to write could not be written (`--output`): printed as
+ * `cannot write <path>: <reason>`, exit status 2.
+ */
+export class OutputError extends Error {
+  readonly path: string;
+  readonly reason: string;
+  constructor(path: string, reason: string) {
+    super(`cannot write ${formatReceived(path)}: ${reason}`);
+    this.name = 'OutputError';
+    this.path = path;
+    this.reason = reason;
   }
 }
 
@@ -241,9 +259,29 @@ export function formatFlag<F extends string>(args: ParsedArgs, formats: readonly
   return (chosen.keys().next().value as F | undefined) ?? defaultFormat;
 }
 
-/** Renders rows as an aligned text table. Numbers are right-aligned. */
+/**
+ * Control characters (C0, DEL, C1), line and paragraph separators and the bidirectional overrides: text
+ * from input files (satellite ids, clock names, review ids) carrying them could move the cursor, recolour
+ * or rewrite a terminal, or reorder what is shown (common practice, no source).
+ */
+const UNSAFE_CHARACTERS = /[\u0000-\u001f\u007f-\u009f\u2028\u2029\u202a-\u202e\u2066-\u2069]/g;
+
+/**
+ * Escapes the characters of {@link UNSAFE_CHARACTERS} as visible text (`\x1B`, `\u202E`), so a value
+ * from a file is shown as it is and cannot act on the terminal.
+ * @param keep  Characters left as they are (e.g. `\n` for a whole multi-line output).
+ */
+export function escapeControlCharacters(text: string, keep = ''): string {
+  return text.replace(UNSAFE_CHARACTERS, (c) => {
+    if (keep.includes(c)) return c;
+    const n = c.charCodeAt(0);
+    return n < 0x100 ? `\\x${n.toString(16).toUpperCase().padStart(2, '0')}` : `\\u${n.toString(16).toUpperCase()}`;
+  });
+}
+
+/** Renders rows as an aligned text table. Numbers are right-aligned; control characters in cells are escaped. */
 export function table(headers: string[], rows: (string | number)[][]): string {
-  const cells = rows.map((r) => r.map((c) => String(c)));
+  const cells = rows.map((r) => r.map((c) => escapeControlCharacters(String(c))));
   // Widths by a loop: spreading a long column into Math.max overflows the call stack (~125 000 rows).
   const widths = headers.map((h) => h.length);
   for (const r of cells) r.forEach((c, i) => { if (i < widths.length && c.length > widths[i]!) widths[i] = c.length; });
@@ -252,10 +290,10 @@ export function table(headers: string[], rows: (string | number)[][]): string {
   return [fmt(headers), widths.map((w) => '─'.repeat(w)).join('  '), ...cells.map(fmt)].join('\n') + '\n';
 }
 
-/** Two-column key/value table for a single result. */
+/** Two-column key/value table for a single result; control characters in values are escaped. */
 export function keyValueTable(rows: [string, string][]): string {
   const w = Math.max(...rows.map(([k]) => k.length));
-  return rows.map(([k, v]) => `${k.padEnd(w)}  ${v}`).join('\n') + '\n';
+  return rows.map(([k, v]) => `${k.padEnd(w)}  ${escapeControlCharacters(v)}`).join('\n') + '\n';
 }
 
 /** Formats a number with `digits` significant digits, keeping exponent form for tiny values. */
@@ -301,11 +339,42 @@ const FILE_ERRORS: Record<string, string> = {
   EPERM: 'operation not permitted',
   ELOOP: 'too many symbolic links',
   ENAMETOOLONG: 'the name is too long',
+  EROFS: 'read-only file system',
+  ENOSPC: 'no space left on the device',
+  EDQUOT: 'disk quota exceeded',
+  EFBIG: 'the file is too large',
+  EIO: 'input/output error',
+  ENXIO: 'no such device or address',
+  ENODEV: 'no such device',
+  EBUSY: 'the file is busy',
+  ETXTBSY: 'the file is busy',
+  EMFILE: 'too many open files',
+  ENFILE: 'too many open files',
 };
+
+/** The one-line reason of a file-system error (`code`), or undefined when it is not one. */
+export function fileErrorReason(error: unknown): string | undefined {
+  if (!(error instanceof Error) || !('code' in error) || typeof (error as NodeJS.ErrnoException).code !== 'string') return undefined;
+  return FILE_ERRORS[(error as NodeJS.ErrnoException).code!];
+}
+
+/**
+ * Writes `text` to the file named by `--output`, turning a file-system failure into an
+ * {@link OutputError} ("cannot write …", exit 2) rather than a read error or an internal error.
+ */
+export async function writeOutputFile(path: string, text: string): Promise<void> {
+  try {
+    await writeFile(path, text, 'utf8');
+  } catch (error) {
+    const reason = fileErrorReason(error) ?? (error instanceof Error && 'code' in error ? String((error as NodeJS.ErrnoException).code) : undefined);
+    if (reason !== undefined) throw new OutputError(path, reason);
+    throw error;
+  }
+}
 
 /** Turns any thrown value into one line for stderr and an exit status. */
 export function describeFailure(error: unknown): { line: string; status: number } {
-  if (error instanceof UsageError) return { line: error.message, status: EXIT_USAGE };
+  if (error instanceof UsageError || error instanceof OutputError) return { line: error.message, status: EXIT_USAGE };
   if (error instanceof InvalidArgumentError) return { line: `invalid input: ${error.message}`, status: EXIT_USAGE };
   if (error instanceof TaulineError) return { line: `${error.code}: ${error.message}`, status: EXIT_USAGE };
   if (error instanceof Error && 'code' in error && typeof (error as NodeJS.ErrnoException).code === 'string') {

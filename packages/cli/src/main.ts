@@ -3,7 +3,8 @@
  * of exiting, so tests can drive it in-process as well as through the binary.
  */
 import { COMMANDS } from './commands/index.js';
-import { commandHelp, describeFailure, parseCommandArgs, type Io } from './framework.js';
+import { commandHelp, describeFailure, escapeControlCharacters, parseCommandArgs, type Io } from './framework.js';
+import { setStandardInput } from './files.js';
 
 const VERSION = '0.1.0';
 
@@ -26,7 +27,11 @@ const processIo: Io = {
   out: (t) => process.stdout.write(t),
   err: (t) => process.stderr.write(t),
   isTty: Boolean(process.stderr.isTTY),
+  stdin: () => process.stdin,
 };
+
+/** Standard input of a run whose Io gives none: empty. */
+async function* noInput(): AsyncGenerator<string> {}
 
 let closedPipeHandled = false;
 
@@ -59,16 +64,25 @@ export async function main(argv: string[], io: Io = processIo): Promise<number> 
     io.err(`tauline: unknown command ${JSON.stringify(name)}; known commands: ${COMMANDS.map((c) => c.name).join(', ')}\n`);
     return 2;
   }
+  const previousInput = setStandardInput(io.stdin ?? noInput);
+  // Whatever a command prints may quote its input files: control characters reach the terminal escaped.
+  const safeIo: Io = {
+    ...io,
+    out: (text) => io.out(escapeControlCharacters(text, '\n')),
+    err: (text) => io.err(escapeControlCharacters(text, '\n\r')),
+  };
   try {
     const args = parseCommandArgs(command, rest);
     if (args.values['help']) {
       io.out(commandHelp(command));
       return 0;
     }
-    return await command.run(args, io);
+    return await command.run(args, safeIo);
   } catch (error) {
     const { line, status } = describeFailure(error);
-    io.err(`tauline ${command.name}: ${line}\n`);
+    io.err(`tauline ${command.name}: ${escapeControlCharacters(line)}\n`);
     return status;
+  } finally {
+    setStandardInput(previousInput);
   }
 }

@@ -2,7 +2,7 @@
  * `tauline broadcast`: reads RINEX navigation files and prints, per satellite and epoch, the
  * relativistic correction Δt_r = F e √A sin E_k and the full broadcast clock correction.
  */
-import { createReadStream, statSync } from 'node:fs';
+import { statSync } from 'node:fs';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import {
   BROADCAST_SIGNALS, evaluateBroadcastEphemeris, selectEphemeris, signalClockCorrection, signalClockSource, signalsOf, type BroadcastSignal,
@@ -16,7 +16,7 @@ import {
   EXIT_FINDING, EXIT_OK, FLIGHT_CAUTION, TABLE_JSON_CSV, UsageError, formatFlag, formatFlags, numberFlag, optionalFlag, progressBar, requireFlag,
   table, toJson, type Command, type Io, type ParsedArgs,
 } from '../framework.js';
-import { requireRegularFile } from '../files.js';
+import { STANDARD_INPUT, requireRegularFile, sourceLabel, textChunks } from '../files.js';
 
 /** Input size above which a progress bar is drawn on a terminal, in bytes. */
 export const PROGRESS_BYTES = 4 * 1024 * 1024;
@@ -40,17 +40,18 @@ export function progress(io: Io, label: string, totalBytes: number): { add: (n: 
   };
 }
 
-/** Streams a file as UTF-8 chunks, reporting each chunk's size to `onChunk`. */
-export async function* fileChunks(path: string, onChunk: (bytes: number) => void): AsyncGenerator<string> {
-  for await (const chunk of createReadStream(path, { encoding: 'utf8', highWaterMark: 256 * 1024 })) {
-    onChunk(Buffer.byteLength(chunk as string));
-    yield chunk as string;
-  }
+/**
+ * Streams a file (or standard input for `-`) as UTF-8 chunks, reporting each chunk's size to `onChunk`;
+ * a pipe, device, directory or binary content is refused (see `textChunks`). No size limit: the readers
+ * stream, so memory is bounded by a chunk and the longest line.
+ */
+export function fileChunks(path: string, what: string, onChunk: (bytes: number) => void): AsyncGenerator<string> {
+  return textChunks(path, what, { onChunk });
 }
 
-/** Total size of the files, in bytes. */
+/** Total size of the files, in bytes (standard input counts as 0: its size is unknown). */
 export function totalSize(paths: readonly string[]): number {
-  return paths.reduce((sum, p) => sum + statSync(p).size, 0);
+  return paths.reduce((sum, p) => sum + (p === STANDARD_INPUT ? 0 : statSync(p).size), 0);
 }
 
 /** Name of each system's own time scale as printed. */
@@ -108,7 +109,7 @@ export async function loadNavigation(paths: readonly string[], io: Io, window: (
   const bar = progress(io, 'reading navigation data', totalSize(paths));
   try {
     for (const path of paths) {
-      for await (const ev of readRinexNav(fileChunks(path, bar.add), { sourceName: path })) {
+      for await (const ev of readRinexNav(fileChunks(path, 'a RINEX navigation file', bar.add), { sourceName: sourceLabel(path) })) {
         if (ev.kind === 'header') {
           leapSeconds ??= ev.header.leapSeconds?.current;
         } else if (ev.kind === 'skipped') {

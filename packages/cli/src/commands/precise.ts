@@ -12,7 +12,7 @@ import { BUNDLED_LEAP_SECONDS, createTimeScales, type TimeScale, type TimeScales
 import {
   EXIT_OK, TABLE_JSON_CSV, UsageError, formatFlags, numberFlag, table, toJson, type Command,
 } from '../framework.js';
-import { requireRegularFile } from '../files.js';
+import { requireRegularFile, sourceLabel } from '../files.js';
 import {
   SYSTEM_SCALE, fileChunks, isModelledSystem, loadNavigation, outputFormat, progress, satelliteFlag, totalSize,
 } from './broadcast.js';
@@ -81,7 +81,7 @@ Exit status: 0 success, 2 invalid input or a malformed file.`,
     await requireRegularFile(path, 'an SP3 file');
 
     const bar = progress(io, 'reading precise orbits', totalSize([path]));
-    const events = readSp3(fileChunks(path, bar.add), { sourceName: path });
+    const events = readSp3(fileChunks(path, 'an SP3 file', bar.add), { sourceName: sourceLabel(path) });
     const first = await events.next();
     if (first.done || first.value.kind !== 'header') throw new UsageError(`${path}: no SP3 header`);
     const header = first.value.header;

@@ -2,10 +2,9 @@
  * `tauline review <file>`: checks the oscillator offsets configured for each spacecraft
  * against their planned orbits, before launch.
  */
-import { writeFile } from 'node:fs/promises';
 import { reviewOffsets, reviewToHtml, reviewToMarkdown, type ReviewReport } from '@tauline/sdk/review';
 import {
-  EXIT_FINDING, EXIT_OK, formatFlag, formatFlagSpec, integerFlag, onePositional, optionalFlag, seedFlag, seedFlagSpec, table, toJson,
+  EXIT_FINDING, EXIT_OK, formatFlag, formatFlagSpec, integerFlag, onePositional, optionalFlag, seedFlag, seedFlagSpec, table, toJson, writeOutputFile,
   type Command,
 } from '../framework.js';
 import { readJsonFile } from '../files.js';
@@ -78,7 +77,7 @@ Exit status: 0 all pass, 1 some fail or marginal, 2 the input could not be read.
       : format === 'html' ? reviewToHtml(report, actuatorRanges) : tableReport(report);
     const output = optionalFlag(args, 'output');
     if (output !== undefined) {
-      await writeFile(output, text, 'utf8');
+      await writeOutputFile(output, text);
       io.err(`wrote ${output} (${report.counts.pass} pass, ${report.counts.marginal} marginal, ${report.counts.fail} fail)\n`);
     } else io.out(text);
     return report.counts.fail + report.counts.marginal > 0 ? EXIT_FINDING : EXIT_OK;
