@@ -5,6 +5,7 @@
 import { reviewOffsets, reviewToHtml, reviewToMarkdown, type ReviewReport } from '@tauline/sdk/review';
 import {
   EXIT_FINDING, EXIT_OK, formatFlag, formatFlagSpec, integerFlag, onePositional, optionalFlag, seedFlag, seedFlagSpec, table, toJson, writeOutputFile,
+  escapeControlCharacters,
   type Command,
 } from '../framework.js';
 import { readJsonFile } from '../files.js';
@@ -16,14 +17,16 @@ function e(x: number, digits = 4): string {
 }
 
 function tableReport(report: ReviewReport): string {
-  const out: string[] = [report.title, ''];
+  // Titles, ids and messages come from the review file: one line each, control characters shown escaped.
+  const text = (t: string) => escapeControlCharacters(t);
+  const out: string[] = [text(report.title), ''];
   out.push(table(['spacecraft', 'verdict', 'expected offset', 'configured', 'difference', 'ns/day', 'tolerance'],
     report.spacecraft.map((s) => [s.id, s.verdict.toUpperCase(), e(s.expectedFractionalOffset, 7), e(s.configuredFractionalOffset, 7),
       e(s.differenceFractional, 3), s.differenceNanosecondsPerDay.toFixed(3), e(s.toleranceFractional, 2)])));
   for (const s of report.spacecraft) {
     if (s.diagnosis.length === 0 && !s.dispersion) continue;
-    out.push('', `${s.id} (${s.verdict.toUpperCase()}): ${s.summary}`);
-    for (const d of s.diagnosis) out.push(`  ${d.matches ? '•' : '·'} [${d.code}] ${d.message}`);
+    out.push('', `${text(s.id)} (${s.verdict.toUpperCase()}): ${text(s.summary)}`);
+    for (const d of s.diagnosis) out.push(`  ${d.matches ? '•' : '·'} [${d.code}] ${text(d.message)}`);
     if (s.dispersion) {
       const d = s.dispersion;
       out.push(`  dispersion σa = ${d.semiMajorAxisSigma} m: residual rate ${e(d.residualAtMinus3Sigma, 3)} (−3σ) .. ${e(d.residualAtPlus3Sigma, 3)} (+3σ)` +
