@@ -392,6 +392,8 @@ export function commandHelp(command: Command): string {
   const w = Math.max(...labels.map((l) => l.length), 10);
   names.forEach((n, i) => lines.push(`  ${labels[i]!.padEnd(w)}  ${command.flags[n]!.description}`));
   lines.push(`  ${'--help'.padEnd(w)}  Show this help.`);
+  const readsFiles = command.allowPositionals === true || names.some((n) => command.flags[n]!.value === '<file>' && n !== 'output');
+  if (readsFiles) lines.push('', 'Input files: - reads standard input; a directory, pipe, device or binary file is refused (exit 2).');
   if (command.details) lines.push('', command.details.trim());
   return lines.join('\n') + '\n';
 }

@@ -19,6 +19,7 @@ function overview(): string {
     ...COMMANDS.map((c) => `  ${c.name.padEnd(w)}  ${c.summary}`),
     '',
     'All quantities are SI (metres, seconds, hertz, radians) unless a flag name says otherwise.',
+    'Wherever a file is read, - reads standard input.',
     '',
   ].join('\n');
 }

@@ -187,6 +187,10 @@ describe('- reads standard input wherever a file is read', () => {
   it('the help of each flag or argument that reads a record says - reads standard input', async () => {
     expect((await runCli(['stability', '--help'])).out).toMatch(/--phase <file>.*- reads standard input/);
     expect((await runCli(['clock', '--help'])).out).toMatch(/--rinex-clock <file>.*- reads standard input/);
+    for (const name of ['review', 'plan', 'simulate', 'broadcast', 'precise', 'stability', 'clock']) {
+      expect((await runCli([name, '--help'])).out, name).toContain('Input files: - reads standard input');
+    }
+    expect((await runCli(['rate', '--help'])).out).not.toContain('Input files');
   });
 });
 
