@@ -104,6 +104,13 @@ export const MAX_DOCUMENT_BYTES = 64 * 1024 * 1024;
  */
 export const MAX_RECORD_BYTES = 128 * 1024 * 1024;
 
+/**
+ * Largest RINEX navigation file, in bytes. The reader streams, but the records inside the requested window
+ * are kept (about 2 kB of memory each); a month of daily merged multi-system files is about 300 MB.
+ * Design choice, no source.
+ */
+export const MAX_NAVIGATION_BYTES = 512 * 1024 * 1024;
+
 /** Bytes read from a file at a time. */
 const CHUNK_BYTES = 256 * 1024;
 

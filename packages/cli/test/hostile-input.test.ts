@@ -13,7 +13,7 @@ import { describe, expect, it } from 'vitest';
 import { MAX_LINE_CHARACTERS } from '@tauline/sdk/io';
 import { runCli, type CliRun } from './run.js';
 import { OutputError, describeFailure, escapeControlCharacters } from '../src/framework.js';
-import { MAX_DOCUMENT_BYTES, MAX_RECORD_BYTES } from '../src/files.js';
+import { MAX_DOCUMENT_BYTES, MAX_NAVIGATION_BYTES, MAX_RECORD_BYTES } from '../src/files.js';
 
 const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
 const ORIN = join(ROOT, 'packages/sdk/examples/steering/orin-3-meo.json');
@@ -83,19 +83,22 @@ describe('devices, pipes, directories and huge files are refused up front (exit 
     }
   }, 20_000);
 
-  it('every file-reading command refuses a 5 GiB sparse file: by its size where the whole file is held, at its first NUL byte where it is streamed', async () => {
+  it('every file-reading command refuses a 5 GiB sparse file by its size, and precise --csv (no size limit: it streams) at its first NUL byte', async () => {
     const big = join(tmp, 'sparse.bin');
     writeFileSync(big, '');
     truncateSync(big, 5 * 2 ** 30); // sparse: no disk blocks, reads as NUL bytes
     for (const argv of READERS) {
       const a = withFile(argv, big);
-      expectRefusal(await runCli(a), a, /is 5368709120 bytes, more than the (64|128) MiB limit for |is not a text file \(a NUL byte at byte 1\)/);
+      expectRefusal(await runCli(a), a, /is 5368709120 bytes, more than the (64|128|512) MiB limit for /);
     }
     const holdsWhole = await runCli(['review', big]);
     expect(holdsWhole.err).toContain(`more than the ${MAX_DOCUMENT_BYTES / 2 ** 20} MiB limit for a review file (JSON)`);
     const records = await runCli(['stability', '--phase', big, '--tau0', '1']);
     expect(records.err).toContain(`more than the ${MAX_RECORD_BYTES / 2 ** 20} MiB limit for a phase record`);
-    const streamed = await runCli(['precise', big]);
+    const nav = await runCli(['broadcast', big, ...WINDOW]);
+    expect(nav.err).toContain(`more than the ${MAX_NAVIGATION_BYTES / 2 ** 20} MiB limit for a RINEX navigation file`);
+    expect((await runCli(['precise', big])).err).toContain('more than the 128 MiB limit for an SP3 file read for table output (--csv streams any size)');
+    const streamed = await runCli(['precise', big, '--csv']);
     expect(streamed.err).toMatch(/is not a text file \(a NUL byte at byte 1\); expected an SP3 file/);
   }, 20_000);
 
@@ -178,6 +181,11 @@ describe('- reads standard input wherever a file is read', () => {
       expect(fromStdin.out.length, argv[0]).toBeGreaterThan(100);
     }
   }, 20_000);
+
+  it('- given twice (broadcast files, precise SP3 and --nav) is refused: standard input can be read once', async () => {
+    expectRefusal(await runCli(['broadcast', '-', '-', ...WINDOW], false, ''), ['broadcast - -'], /standard input\) can be read once only/);
+    expectRefusal(await runCli(['precise', '-', '--nav', '-'], false, ''), ['precise - --nav -'], /standard input\) can be read once only/);
+  });
 
   it('a parse error in standard input names "stdin" with the line', async () => {
     const r = await runCli(['stability', '--phase', '-', '--tau0', '1'], false, '1e-9\n2e-9\nabc\n');

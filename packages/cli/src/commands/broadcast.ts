@@ -16,7 +16,7 @@ import {
   EXIT_FINDING, EXIT_OK, FLIGHT_CAUTION, TABLE_JSON_CSV, UsageError, formatFlag, formatFlags, numberFlag, optionalFlag, progressBar, requireFlag,
   table, toJson, type Command, type Io, type ParsedArgs,
 } from '../framework.js';
-import { STANDARD_INPUT, requireRegularFile, sourceLabel, textChunks } from '../files.js';
+import { MAX_NAVIGATION_BYTES, STANDARD_INPUT, requireRegularFile, sourceLabel, textChunks } from '../files.js';
 
 /** Input size above which a progress bar is drawn on a terminal, in bytes. */
 export const PROGRESS_BYTES = 4 * 1024 * 1024;
@@ -42,11 +42,10 @@ export function progress(io: Io, label: string, totalBytes: number): { add: (n: 
 
 /**
  * Streams a file (or standard input for `-`) as UTF-8 chunks, reporting each chunk's size to `onChunk`;
- * a pipe, device, directory or binary content is refused (see `textChunks`). No size limit: the readers
- * stream, so memory is bounded by a chunk and the longest line.
+ * a pipe, device, directory, binary content or more than `maxBytes` is refused (see `textChunks`).
  */
-export function fileChunks(path: string, what: string, onChunk: (bytes: number) => void): AsyncGenerator<string> {
-  return textChunks(path, what, { onChunk });
+export function fileChunks(path: string, what: string, onChunk: (bytes: number) => void, maxBytes?: number): AsyncGenerator<string> {
+  return textChunks(path, what, { onChunk, ...(maxBytes !== undefined ? { maxBytes } : {}) });
 }
 
 /** Total size of the files, in bytes (standard input counts as 0: its size is unknown). */
@@ -105,11 +104,12 @@ export async function loadNavigation(paths: readonly string[], io: Io, window: (
   const skipped = new Map<string, number>();
   let outsideWindow = 0;
   let leapSeconds: number | undefined;
-  for (const path of paths) await requireRegularFile(path, 'a RINEX navigation file');
+  for (const path of paths) await requireRegularFile(path, 'a RINEX navigation file', MAX_NAVIGATION_BYTES);
+  if (paths.filter((p) => p === STANDARD_INPUT).length > 1) throw new UsageError('- (standard input) can be read once only; give it once');
   const bar = progress(io, 'reading navigation data', totalSize(paths));
   try {
     for (const path of paths) {
-      for await (const ev of readRinexNav(fileChunks(path, 'a RINEX navigation file', bar.add), { sourceName: sourceLabel(path) })) {
+      for await (const ev of readRinexNav(fileChunks(path, 'a RINEX navigation file', bar.add, MAX_NAVIGATION_BYTES), { sourceName: sourceLabel(path) })) {
         if (ev.kind === 'header') {
           leapSeconds ??= ev.header.leapSeconds?.current;
         } else if (ev.kind === 'skipped') {
