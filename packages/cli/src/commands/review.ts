@@ -8,7 +8,7 @@ import {
   escapeControlCharacters,
   type Command,
 } from '../framework.js';
-import { readJsonFile } from '../files.js';
+import { readJsonFile, sourceLabel } from '../files.js';
 
 const FORMATS = ['table', 'json', 'md', 'html'] as const;
 
@@ -67,7 +67,7 @@ Exit status: 0 all pass, 1 some fail or marginal, 2 the input could not be read.
     try {
       report = reviewOffsets(document, { ...(runs !== undefined ? { monteCarloRuns: runs } : {}), ...(seed !== undefined ? { seed } : {}) });
     } catch (error) {
-      if (error instanceof Error) error.message = `${path}: ${error.message}`;
+      if (error instanceof Error) error.message = `${sourceLabel(path)}: ${error.message}`;
       throw error;
     }
     const actuatorRanges: Record<string, number> = {};

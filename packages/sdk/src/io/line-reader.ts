@@ -12,7 +12,7 @@
  *
  * @module
  */
-import { ParseError } from '../errors.js';
+import { InvalidArgumentError, ParseError } from '../errors.js';
 import { civilFromDays, daysFromCivil, daysInMonth } from '../time/calendar.js';
 import { MAX_LINE_CHARACTERS } from './limits.js';
 
@@ -31,7 +31,7 @@ export type TextSource = string | Iterable<string> | AsyncIterable<string>;
 export interface LineSplitterOptions {
   /** Name used in error messages (file name). Default `text`. */
   readonly sourceName?: string;
-  /** Longest line accepted, in characters; default and upper bound {@link MAX_LINE_CHARACTERS}. */
+  /** Longest line accepted, in characters: an integer in [1, {@link MAX_LINE_CHARACTERS}] (the default). */
   readonly maxLineCharacters?: number;
 }
 
@@ -62,7 +62,10 @@ export class LineSplitter {
   constructor(options: LineSplitterOptions = {}) {
     this._sourceName = options.sourceName ?? 'text';
     const max = options.maxLineCharacters ?? MAX_LINE_CHARACTERS;
-    this._max = Number.isInteger(max) && max >= 1 ? Math.min(max, MAX_LINE_CHARACTERS) : MAX_LINE_CHARACTERS;
+    if (!Number.isInteger(max) || max < 1 || max > MAX_LINE_CHARACTERS) {
+      throw new InvalidArgumentError('maxLineCharacters', max, `an integer number of characters in [1, ${MAX_LINE_CHARACTERS}] (MAX_LINE_CHARACTERS)`);
+    }
+    this._max = max;
   }
 
   /** Refuses the line being read: it has passed the limit. */

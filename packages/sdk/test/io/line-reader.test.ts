@@ -148,6 +148,13 @@ describe('LineSplitter: lone CR line ends, byte-order mark, over-long lines', ()
     expect(err.message).toMatch(/^endless\.txt:2:101: expected a line of at most 100 characters/);
   });
 
+  it('new LineSplitter({ maxLineCharacters }) refuses a limit that is not an integer in [1, MAX_LINE_CHARACTERS] instead of clamping it', () => {
+    for (const bad of [0, 1.5, MAX_LINE_CHARACTERS + 1, Number.NaN]) {
+      expect(() => new LineSplitter({ maxLineCharacters: bad })).toThrow(/^maxLineCharacters must be an integer number of characters in \[1, 1048576\]/);
+    }
+    expect(() => new LineSplitter({ maxLineCharacters: MAX_LINE_CHARACTERS })).not.toThrow();
+  });
+
   it('linesOf(text) refuses a complete line over the default MAX_LINE_CHARACTERS (1 MiB) and accepts one of exactly that length', () => {
     const exact = 'y'.repeat(MAX_LINE_CHARACTERS);
     expect([...linesOf(`${exact}\nz`)].map((l) => l.text.length)).toEqual([MAX_LINE_CHARACTERS, 1]);
