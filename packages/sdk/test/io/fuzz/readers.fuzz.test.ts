@@ -10,6 +10,7 @@ import { TaulineError } from '../../../src/errors.js';
 import {
   MAX_LINE_CHARACTERS, MAX_SERIES_SAMPLES, parsePhaseText, parseRinexClock, parseRinexNav, parseSp3, rinexClockSeries,
 } from '../../../src/io/index.js';
+import { parseLeapSecondsList } from '../../../src/time/index.js';
 import { fixturesMatching, fuzzReader, probe, specialInputs, type FuzzFailure, type ReaderUnderFuzz } from './harness.js';
 
 /** Mutants per reader (issue 11: at least 10^4). */
@@ -75,6 +76,12 @@ const sp3: ReaderUnderFuzz<ReturnType<typeof parseSp3>> = {
   parse: (text) => parseSp3(text, { sourceName: 'fuzz' }),
 };
 
+const leapSeconds: ReaderUnderFuzz<ReturnType<typeof parseLeapSecondsList>> = {
+  name: 'parseLeapSecondsList',
+  fixtures: /\.list$/,
+  parse: (text) => parseLeapSecondsList(text, 'fuzz'),
+};
+
 /** One line per failure, enough to replay it (seed, run, fixture, mutators) and see the input. */
 function describeFailures(failures: readonly FuzzFailure[]): string {
   return failures.slice(0, 8).map((f) => `${f.reader} run ${f.run} (${f.fixture}; ${f.mutators.join(', ')}): ${f.problem}\n  input: ${JSON.stringify(f.inputHead)}`).join('\n');
@@ -93,7 +100,7 @@ const KNOWN: Record<string, (f: FuzzFailure) => boolean> = {
 };
 
 describe('readers under seeded fuzzing (10^4 mutants of the real fixtures each; seed 20261203)', () => {
-  for (const reader of [phaseText, rinexClock, rinexNav, sp3] as ReaderUnderFuzz<unknown>[]) {
+  for (const reader of [phaseText, rinexClock, rinexNav, sp3, leapSeconds] as ReaderUnderFuzz<unknown>[]) {
     it(`${reader.name}(mutated fixtures) throws only Tauline errors, never hangs over 2 s and accepts only finite values`, () => {
       const report = fuzzReader(reader, SEED, RUNS, KNOWN[reader.name]);
       expect(report.runs).toBe(RUNS);
@@ -121,6 +128,7 @@ describe('readers under seeded fuzzing (10^4 mutants of the real fixtures each; 
   it('every reader reads CR-only line ends like LF (the fixtures give the same result either way)', () => {
     const cases: [RegExp, (t: string) => unknown][] = [
       [/\.txt$/, (t) => parsePhaseText(t)], [/\.clk$/i, (t) => parseRinexClock(t)], [/\.rnx$/i, (t) => parseRinexNav(t)], [/\.sp3$/i, (t) => parseSp3(t)],
+      [/\.list$/, (t) => parseLeapSecondsList(t)],
     ];
     for (const [pattern, read] of cases) {
       for (const f of fixturesMatching(pattern)) {
