@@ -145,4 +145,11 @@ describe('readers under seeded fuzzing (10^4 mutants of the real fixtures each; 
     const file = parseRinexClock(text, 'year9999.clk');
     expect(() => rinexClockSeries(file, 'G05')).toThrow(/^year9999\.clk:14:1: expected a uniform series of at most 50000000 samples \(MAX_SERIES_SAMPLES\): the gap of \d+ s after line 13/);
   });
+
+  it('parseRinexClock(a lone CR after END OF HEADER) keeps the next record as a record (the line reader ends the line at the CR)', () => {
+    const text = fixturesMatching(/^fictional-304\.clk$/)[0]!.text;
+    const crAfterHeader = text.replace(/END OF HEADER\r?\n/, 'END OF HEADER\r');
+    expect(crAfterHeader).not.toBe(text);
+    expect(parseRinexClock(crAfterHeader).records).toEqual(parseRinexClock(text).records);
+  });
 });
