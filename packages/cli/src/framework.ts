@@ -378,8 +378,10 @@ export function describeFailure(error: unknown): { line: string; status: number 
   if (error instanceof InvalidArgumentError) return { line: `invalid input: ${error.message}`, status: EXIT_USAGE };
   if (error instanceof TaulineError) return { line: `${error.code}: ${error.message}`, status: EXIT_USAGE };
   if (error instanceof Error && 'code' in error && typeof (error as NodeJS.ErrnoException).code === 'string') {
-    const reason = FILE_ERRORS[(error as NodeJS.ErrnoException).code!];
-    if (reason) return { line: `cannot read ${formatReceived((error as NodeJS.ErrnoException).path)}: ${reason}`, status: EXIT_USAGE };
+    const e = error as NodeJS.ErrnoException;
+    const reason = FILE_ERRORS[e.code!];
+    if (reason && e.syscall === 'write') return { line: `cannot write ${e.path === undefined ? 'standard output' : formatReceived(e.path)}: ${reason}`, status: EXIT_USAGE };
+    if (reason) return { line: `cannot read ${e.path === undefined ? 'the input' : formatReceived(e.path)}: ${reason}`, status: EXIT_USAGE };
   }
   const message = error instanceof Error ? error.message : String(error);
   return { line: `internal error: ${message} (please report this with the command line that caused it)`, status: 3 };

@@ -3,7 +3,7 @@
  * of exiting, so tests can drive it in-process as well as through the binary.
  */
 import { COMMANDS } from './commands/index.js';
-import { commandHelp, describeFailure, escapeControlCharacters, parseCommandArgs, type Io } from './framework.js';
+import { commandHelp, describeFailure, escapeControlCharacters, fileErrorReason, parseCommandArgs, type Io } from './framework.js';
 import { setStandardInput } from './files.js';
 
 const VERSION = '0.1.0';
@@ -45,7 +45,9 @@ function endQuietlyOnClosedStdout(): void {
   closedPipeHandled = true;
   process.stdout.on('error', (error: NodeJS.ErrnoException) => {
     if (error.code === 'EPIPE') process.exit(0);
-    throw error;
+    // Standard output cannot be written (a full disk, `> /dev/full`): one line and exit 2, not a stack trace.
+    process.stderr.write(`tauline: cannot write standard output: ${fileErrorReason(error) ?? error.code ?? error.message}\n`);
+    process.exit(2);
   });
 }
 

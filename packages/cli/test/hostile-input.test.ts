@@ -210,9 +210,23 @@ describe('--output failures and exit status 3', () => {
     expectRefusal(await runCli(['review', REVIEW, '--runs', '200', '--output', tmp]), ['review --output dir'], /cannot write "[^"]+": it is a directory, not a file/);
   });
 
-  it('describeFailure(OutputError) is exit 2, never the internal-error status 3', () => {
+  it('describeFailure(OutputError or a failed write) is exit 2 saying "cannot write", never the internal-error status 3', () => {
     expect(describeFailure(new OutputError('/x', 'read-only file system'))).toEqual({ line: 'cannot write "/x": read-only file system', status: 2 });
+    const full = Object.assign(new Error('ENOSPC: no space left on device, write'), { code: 'ENOSPC', syscall: 'write' });
+    expect(describeFailure(full)).toEqual({ line: 'cannot write standard output: no space left on the device', status: 2 });
   });
+
+  it('the built binary with standard output on a full device (/dev/full) prints one line and exits 2, no stack trace', () => {
+    if (!existsSync(join(ROOT, 'packages/cli/dist/main.js'))) throw new Error('build first: npm run build');
+    const full = openSync('/dev/full', 'w');
+    try {
+      const r = spawnSync(process.execPath, [BIN, 'rate', '--semi-major-axis', '26561750'], { stdio: ['ignore', full, 'pipe'], encoding: 'utf8', timeout: 15_000 });
+      expect(r.status).toBe(2);
+      expect(r.stderr).toBe('tauline: cannot write standard output: no space left on the device\n');
+    } finally {
+      closeSync(full);
+    }
+  }, 20_000);
 });
 
 describe('control characters in ids are escaped in terminal and Markdown output', () => {
