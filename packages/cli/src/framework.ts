@@ -2,10 +2,14 @@
  * The small command framework shared by every `tauline` command: flag parsing with
  * typed validation, one-line errors, and human tables vs `--json` output.
  */
+import { writeFile } from 'node:fs/promises';
 import { parseArgs, type ParseArgsConfig } from 'node:util';
 import { TaulineError, InvalidArgumentError, formatReceived } from '@tauline/sdk/errors';
 import { MAX_SEED } from '@tauline/sdk/steering';
 import { TABLE_WIDTH, fitTable, wrapText } from './layout.js';
+import { escapeControlCharacters } from './text-safety.js';
+
+export { escapeControlCharacters };
 import { didYouMean } from './suggest.js';
 
 /** Exit status: 0 success, 1 a finding (e.g. a review fail), 2 unusable input. */
@@ -19,6 +23,8 @@ export interface Io {
   err: (text: string) => void;
   /** True when stderr is an interactive terminal (progress bars only then). */
   isTty: boolean;
+  /** What a file named `-` reads: the binary passes process.stdin; without it, `-` reads nothing (an empty input). */
+  stdin?: () => AsyncIterable<Uint8Array | string>;
 }
 
 export interface FlagSpec {
@@ -57,6 +63,21 @@ export class UsageError extends Error {
   constructor(message: string) {
     super(message);
     this.name = 'UsageError';
+  }
+}
+
+/**
+ * A file the command was asked to write could not be written (`--output`): printed as
+ * `cannot write <path>: <reason>`, exit status 2.
+ */
+export class OutputError extends Error {
+  readonly path: string;
+  readonly reason: string;
+  constructor(path: string, reason: string) {
+    super(`cannot write ${formatReceived(path)}: ${reason}`);
+    this.name = 'OutputError';
+    this.path = path;
+    this.reason = reason;
   }
 }
 
@@ -255,7 +276,7 @@ export function table(headers: string[], rows: (string | number)[][]): string {
 export function keyValueTable(rows: [string, string][], width?: number): string {
   const w = Math.max(...rows.map(([k]) => k.length));
   // With a width, a long value wraps under itself (hanging indent past the key column).
-  return rows.map(([k, v]) => wrapText(`${k.padEnd(w)}  ${v}`, width, ' '.repeat(w + 2)).join('\n')).join('\n') + '\n';
+  return rows.map(([k, v]) => wrapText(`${k.padEnd(w)}  ${escapeControlCharacters(v)}`, width, ' '.repeat(w + 2)).join('\n')).join('\n') + '\n';
 }
 
 /** Formats a number with `digits` significant digits, keeping exponent form for tiny values. */
@@ -287,16 +308,49 @@ const FILE_ERRORS: Record<string, string> = {
   EPERM: 'operation not permitted',
   ELOOP: 'too many symbolic links',
   ENAMETOOLONG: 'the name is too long',
+  EROFS: 'read-only file system',
+  ENOSPC: 'no space left on the device',
+  EDQUOT: 'disk quota exceeded',
+  EFBIG: 'the file is too large',
+  EIO: 'input/output error',
+  ENXIO: 'no such device or address',
+  ENODEV: 'no such device',
+  EBUSY: 'the file is busy',
+  ETXTBSY: 'the file is busy',
+  EMFILE: 'too many open files',
+  ENFILE: 'too many open files',
 };
+
+/** The one-line reason of a file-system error (`code`), or undefined when it is not one. */
+export function fileErrorReason(error: unknown): string | undefined {
+  if (!(error instanceof Error) || !('code' in error) || typeof (error as NodeJS.ErrnoException).code !== 'string') return undefined;
+  return FILE_ERRORS[(error as NodeJS.ErrnoException).code!];
+}
+
+/**
+ * Writes `text` to the file named by `--output`, turning a file-system failure into an
+ * {@link OutputError} ("cannot write …", exit 2) rather than a read error or an internal error.
+ */
+export async function writeOutputFile(path: string, text: string): Promise<void> {
+  try {
+    await writeFile(path, text, 'utf8');
+  } catch (error) {
+    const reason = fileErrorReason(error) ?? (error instanceof Error && 'code' in error ? String((error as NodeJS.ErrnoException).code) : undefined);
+    if (reason !== undefined) throw new OutputError(path, reason);
+    throw error;
+  }
+}
 
 /** Turns any thrown value into one line for stderr and an exit status. */
 export function describeFailure(error: unknown): { line: string; status: number } {
-  if (error instanceof UsageError) return { line: error.message, status: EXIT_USAGE };
+  if (error instanceof UsageError || error instanceof OutputError) return { line: error.message, status: EXIT_USAGE };
   if (error instanceof InvalidArgumentError) return { line: `invalid input: ${error.message}`, status: EXIT_USAGE };
   if (error instanceof TaulineError) return { line: `${error.code}: ${error.message}`, status: EXIT_USAGE };
   if (error instanceof Error && 'code' in error && typeof (error as NodeJS.ErrnoException).code === 'string') {
-    const reason = FILE_ERRORS[(error as NodeJS.ErrnoException).code!];
-    if (reason) return { line: `cannot read ${formatReceived((error as NodeJS.ErrnoException).path)}: ${reason}`, status: EXIT_USAGE };
+    const e = error as NodeJS.ErrnoException;
+    const reason = FILE_ERRORS[e.code!];
+    if (reason && e.syscall === 'write') return { line: `cannot write ${e.path === undefined ? 'standard output' : formatReceived(e.path)}: ${reason}`, status: EXIT_USAGE };
+    if (reason) return { line: `cannot read ${e.path === undefined ? 'the input' : formatReceived(e.path)}: ${reason}`, status: EXIT_USAGE };
   }
   const message = error instanceof Error ? error.message : String(error);
   return { line: `internal error: ${message} (please report this with the command line that caused it)`, status: 3 };
@@ -314,6 +368,8 @@ export function commandHelp(command: Command): string {
   names.forEach((n, i) => lines.push(...wrapText(`  ${labels[i]!.padEnd(w)}  ${command.flags[n]!.description}`, TABLE_WIDTH, ' '.repeat(w + 4))));
   lines.push(`  ${'--wide'.padEnd(w)}  Tables and text in their long form, not fitted to 100 columns.`);
   lines.push(`  ${'--help'.padEnd(w)}  Show this help.`);
+  const readsFiles = command.allowPositionals === true || names.some((n) => command.flags[n]!.value === '<file>' && n !== 'output');
+  if (readsFiles) lines.push('', 'Input files: - reads standard input; a directory, pipe, device or binary file is refused (exit 2).');
   if (command.details) lines.push('', command.details.trim());
   return lines.join('\n') + '\n';
 }

@@ -4,6 +4,7 @@
  * headers and moving long columns under their row. `--wide` (every command) keeps the long form.
  */
 import type { ParsedArgs } from './framework.js';
+import { escapeControlCharacters } from './text-safety.js';
 
 /** Columns every default table and paragraph fits in. */
 export const TABLE_WIDTH = 100;
@@ -134,7 +135,8 @@ interface Plan {
  */
 export function fitTable(headers: readonly string[], rows: readonly (readonly (string | number)[])[], options: TableOptions = {}): string {
   const width = 'width' in options ? options.width : TABLE_WIDTH;
-  const cells = rows.map((r) => r.map((c) => String(c)));
+  // Control characters from input files are escaped before measuring, so the columns stay aligned.
+  const cells = rows.map((r) => r.map((c) => escapeControlCharacters(String(c))));
   const cellWidths = cells.map((r) => r.map(displayWidth));
   const numeric = headers.map((_, i) => {
     let any = false;

@@ -3,7 +3,8 @@
  * of exiting, so tests can drive it in-process as well as through the binary.
  */
 import { COMMANDS } from './commands/index.js';
-import { commandHelp, describeFailure, parseCommandArgs, type Io } from './framework.js';
+import { commandHelp, describeFailure, escapeControlCharacters, fileErrorReason, parseCommandArgs, type Io } from './framework.js';
+import { setStandardInput } from './files.js';
 import { didYouMean } from './suggest.js';
 import { TABLE_WIDTH, wrapText } from './layout.js';
 import { clearProgress } from './progress.js';
@@ -21,6 +22,7 @@ function overview(): string {
     ...COMMANDS.flatMap((c) => wrapText(`  ${c.name.padEnd(w)}  ${c.summary}`, TABLE_WIDTH, ' '.repeat(w + 4))),
     '',
     'All quantities are SI (metres, seconds, hertz, radians) unless a flag name says otherwise.',
+    'Wherever a file is read, - reads standard input.',
     '',
   ].join('\n');
 }
@@ -29,7 +31,11 @@ const processIo: Io = {
   out: (t) => process.stdout.write(t),
   err: (t) => process.stderr.write(t),
   isTty: Boolean(process.stderr.isTTY),
+  stdin: () => process.stdin,
 };
+
+/** Standard input of a run whose Io gives none: empty. */
+async function* noInput(): AsyncGenerator<string> {}
 
 let closedPipeHandled = false;
 
@@ -42,7 +48,9 @@ function endQuietlyOnClosedStdout(): void {
   closedPipeHandled = true;
   process.stdout.on('error', (error: NodeJS.ErrnoException) => {
     if (error.code === 'EPIPE') process.exit(0);
-    throw error;
+    // Standard output cannot be written (a full disk, `> /dev/full`): one line and exit 2, not a stack trace.
+    process.stderr.write(`tauline: cannot write standard output: ${fileErrorReason(error) ?? error.code ?? error.message}\n`);
+    process.exit(2);
   });
 }
 
@@ -80,17 +88,27 @@ export async function main(argv: string[], io: Io = processIo): Promise<number> 
   }
   const command = COMMANDS.find((c) => c.name === name);
   if (!command) return unknownCommand(name, io);
+  const previousInput = setStandardInput(io.stdin ?? noInput);
+  // Whatever a command prints may quote its input files: control characters reach the terminal escaped
+  // (a progress bar's carriage return is kept on stderr).
+  const safeIo: Io = {
+    ...io,
+    out: (text) => io.out(escapeControlCharacters(text, '\n')),
+    err: (text) => io.err(escapeControlCharacters(text, '\n\r')),
+  };
   try {
     const args = parseCommandArgs(command, rest);
     if (args.values['help']) {
       io.out(commandHelp(command));
       return 0;
     }
-    return await command.run(args, io);
+    return await command.run(args, safeIo);
   } catch (error) {
     const { line, status } = describeFailure(error);
     clearProgress(io); // a progress bar left mid-line by the failure
-    io.err(`tauline ${command.name}: ${line}\n`);
+    io.err(`tauline ${command.name}: ${escapeControlCharacters(line)}\n`);
     return status;
+  } finally {
+    setStandardInput(previousInput);
   }
 }

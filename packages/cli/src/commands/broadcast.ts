@@ -2,7 +2,7 @@
  * `tauline broadcast`: reads RINEX navigation files and prints, per satellite and epoch, the
  * relativistic correction Δt_r = F e √A sin E_k and the full broadcast clock correction.
  */
-import { createReadStream, statSync } from 'node:fs';
+import { statSync } from 'node:fs';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import {
   BROADCAST_SIGNALS, evaluateBroadcastEphemeris, selectEphemeris, signalClockCorrection, signalClockSource, signalsOf, type BroadcastSignal,
@@ -17,7 +17,7 @@ import {
   toJson, type Command, type Io, type ParsedArgs,
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
-import { requireRegularFile } from '../files.js';
+import { MAX_NAVIGATION_BYTES, STANDARD_INPUT, requireRegularFile, sourceLabel, textChunks } from '../files.js';
 import { NAV_FILE_UNITS, type NavFileSummary, navHeaderLines, noRecordReason, summariseNavHeader } from '../nav-summary.js';
 
 /** Input size above which a progress bar is drawn on a terminal, in bytes. */
@@ -42,17 +42,17 @@ export function progress(io: Io, label: string, totalBytes: number): { add: (n: 
   };
 }
 
-/** Streams a file as UTF-8 chunks, reporting each chunk's size to `onChunk`. */
-export async function* fileChunks(path: string, onChunk: (bytes: number) => void): AsyncGenerator<string> {
-  for await (const chunk of createReadStream(path, { encoding: 'utf8', highWaterMark: 256 * 1024 })) {
-    onChunk(Buffer.byteLength(chunk as string));
-    yield chunk as string;
-  }
+/**
+ * Streams a file (or standard input for `-`) as UTF-8 chunks, reporting each chunk's size to `onChunk`;
+ * a pipe, device, directory, binary content or more than `maxBytes` is refused (see `textChunks`).
+ */
+export function fileChunks(path: string, what: string, onChunk: (bytes: number) => void, maxBytes?: number): AsyncGenerator<string> {
+  return textChunks(path, what, { onChunk, ...(maxBytes !== undefined ? { maxBytes } : {}) });
 }
 
-/** Total size of the files, in bytes. */
+/** Total size of the files, in bytes (standard input counts as 0: its size is unknown). */
 export function totalSize(paths: readonly string[]): number {
-  return paths.reduce((sum, p) => sum + statSync(p).size, 0);
+  return paths.reduce((sum, p) => sum + (p === STANDARD_INPUT ? 0 : statSync(p).size), 0);
 }
 
 /** Name of each system's own time scale as printed. */
@@ -112,11 +112,12 @@ export async function loadNavigation(paths: readonly string[], io: Io, window: (
   const outsideWindowBySatellite = new Map<string, number>();
   let leapSeconds: number | undefined;
   const files: NavFileSummary[] = [];
-  for (const path of paths) await requireRegularFile(path, 'a RINEX navigation file');
+  for (const path of paths) await requireRegularFile(path, 'a RINEX navigation file', MAX_NAVIGATION_BYTES);
+  if (paths.filter((p) => p === STANDARD_INPUT).length > 1) throw new UsageError('- (standard input) can be read once only; give it once');
   const bar = progress(io, 'reading navigation data', totalSize(paths));
   try {
     for (const path of paths) {
-      for await (const ev of readRinexNav(fileChunks(path, bar.add), { sourceName: path })) {
+      for await (const ev of readRinexNav(fileChunks(path, 'a RINEX navigation file', bar.add, MAX_NAVIGATION_BYTES), { sourceName: sourceLabel(path) })) {
         if (ev.kind === 'header') {
           leapSeconds ??= ev.header.leapSeconds?.current;
           files.push(summariseNavHeader(path, ev.header));

@@ -10,7 +10,7 @@ import {
   type Command, type FlagSpec, type ParsedArgs,
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
-import { readJsonFile, readTextFile } from '../files.js';
+import { readJsonFile, readTextFile, sourceLabel } from '../files.js';
 
 const METHODS: readonly SteeringMethod[] = ['deadband', 'optimal', 'none'];
 
@@ -31,7 +31,7 @@ export async function leapSecondsFlag(args: ParsedArgs): Promise<TimeScales | un
   if (path === undefined) return undefined;
   const text = await readTextFile(path, 'an IERS/NIST leap-seconds.list');
   try {
-    return createTimeScales(parseLeapSecondsList(text, path));
+    return createTimeScales(parseLeapSecondsList(text, sourceLabel(path)));
   } catch (error) {
     if (error instanceof InvalidArgumentError) {
       throw new InvalidArgumentError('--leap-seconds', path, 'an IERS/NIST leap-seconds.list with a valid table', error.message);

@@ -13,7 +13,7 @@ import {
   EXIT_OK, TABLE_JSON_CSV, UsageError, formatFlags, numberFlag, toJson, type Command,
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
-import { requireRegularFile } from '../files.js';
+import { MAX_RECORD_BYTES, STANDARD_INPUT, requireRegularFile, sourceLabel } from '../files.js';
 import {
   SYSTEM_SCALE, fileChunks, isModelledSystem, loadNavigation, outputFormat, progress, satelliteFlag, totalSize,
 } from './broadcast.js';
@@ -98,10 +98,14 @@ Exit status: 0 success, 2 invalid input or a malformed file.`,
     const navValue = args.values['nav'];
     const navFiles = Array.isArray(navValue) ? navValue : typeof navValue === 'string' ? [navValue] : [];
     const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
-    await requireRegularFile(path, 'an SP3 file');
+    // Table and JSON output hold every sample until the end (about 2.5× the file in memory): larger files need --csv, which streams.
+    const what = format === 'csv' ? 'an SP3 file' : `an SP3 file read for ${format} output (--csv streams any size)`;
+    const maxBytes = format === 'csv' ? undefined : MAX_RECORD_BYTES;
+    await requireRegularFile(path, what, maxBytes);
+    if (path === STANDARD_INPUT && navFiles.includes(STANDARD_INPUT)) throw new UsageError('- (standard input) can be read once only: give it for the SP3 file or for --nav');
 
     const bar = progress(io, 'reading precise orbits', totalSize([path]));
-    const events = readSp3(fileChunks(path, bar.add), { sourceName: path });
+    const events = readSp3(fileChunks(path, what, bar.add, maxBytes), { sourceName: sourceLabel(path) });
     const first = await events.next();
     if (first.done || first.value.kind !== 'header') throw new UsageError(`${path}: no SP3 header`);
     const header = first.value.header;

@@ -4,6 +4,7 @@
  *
  * @module
  */
+export { MAX_LINE_CHARACTERS, MAX_SERIES_SAMPLES } from './limits.js';
 export { parsePhaseText, readPhaseText, type PhaseTextSeries, type PhaseTextOptions, type SampleGap } from './phase-text.js';
 export {
   RinexClockParser, parseRinexClock, readRinexClock,
@@ -13,7 +14,7 @@ export {
   RinexClockSeriesCollector, rinexClockSeries, readRinexClockSeries, type RinexClockSeries, type RinexClockSeriesOptions,
 } from './rinex-clock-series.js';
 export {
-  type TextLine, type TextSource, type EpochFields, LineSplitter, linesOf, readLines, readLineBatches, parseFortranReal,
+  type TextLine, type TextSource, type EpochFields, type LineSplitterOptions, LineSplitter, linesOf, readLines, readLineBatches, parseFortranReal,
   scaleSecondsFromFields, fieldsFromScaleSeconds, formatEpochFields,
 } from './line-reader.js';
 export {

@@ -352,8 +352,9 @@ function readOptions(options: RinexClockReadOptions | string | undefined): Rinex
  *   columns]; 3.04 with M. J. Coleman (2017) [M, example file V2].
  */
 export async function* readRinexClock(source: TextSource, options?: RinexClockReadOptions | string): AsyncGenerator<RinexClockEvent> {
-  const parser = new RinexClockParser(readOptions(options));
-  for await (const lines of readLineBatches(source)) {
+  const opts = readOptions(options);
+  const parser = new RinexClockParser(opts);
+  for await (const lines of readLineBatches(source, { sourceName: opts.sourceName ?? 'rinex-clock' })) {
     for (const line of lines) for (const event of parser.push(line)) yield event;
   }
   for (const event of parser.finish()) yield event;
@@ -379,7 +380,7 @@ export function parseRinexClock(source: string | Iterable<string>, options?: Rin
       else other[ev.recordType] = (other[ev.recordType] ?? 0) + 1;
     }
   };
-  for (const line of linesOf(source)) take(parser.push(line));
+  for (const line of linesOf(source, { sourceName: opts.sourceName ?? 'rinex-clock' })) take(parser.push(line));
   take(parser.finish());
   return { sourceName: opts.sourceName ?? 'rinex-clock', header: header!, records, otherRecords: other };
 }

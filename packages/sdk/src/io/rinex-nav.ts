@@ -241,7 +241,7 @@ function modelledMessage(system: string, message: string | undefined): Keplerian
 export async function* readRinexNav(source: TextSource, options: RinexNavReadOptions = {}): AsyncGenerator<RinexNavEvent> {
   const parser = new RinexNavParser(options);
   // One asynchronous step per chunk, not per line (an event is yielded only when a line completes one).
-  for await (const lines of readLineBatches(source)) {
+  for await (const lines of readLineBatches(source, { sourceName: options.sourceName ?? 'rinex-nav' })) {
     for (const line of lines) for (const event of parser.push(line)) yield event;
   }
   for (const event of parser.finish()) yield event;
@@ -268,7 +268,7 @@ export function parseRinexNav(source: string | Iterable<string>, options: RinexN
       else skipped.push(ev.record);
     }
   };
-  for (const line of linesOf(source)) take(parser.push(line));
+  for (const line of linesOf(source, { sourceName: options.sourceName ?? 'rinex-nav' })) take(parser.push(line));
   take(parser.finish());
   return { header: header!, ephemerides, skipped };
 }

@@ -423,7 +423,7 @@ export class Sp3Parser {
 export async function* readSp3(source: TextSource, options: Sp3ReadOptions = {}): AsyncGenerator<Sp3Event> {
   const parser = new Sp3Parser(options);
   // One asynchronous step per chunk, not per line (an event is yielded only when a line completes one).
-  for await (const lines of readLineBatches(source)) {
+  for await (const lines of readLineBatches(source, { sourceName: options.sourceName ?? 'sp3' })) {
     for (const line of lines) for (const event of parser.push(line)) yield event;
   }
   for (const event of parser.finish()) yield event;
@@ -444,7 +444,7 @@ export function parseSp3(source: string | Iterable<string>, options: Sp3ReadOpti
       else epochs.push(ev.epoch);
     }
   };
-  for (const line of linesOf(source)) take(parser.push(line));
+  for (const line of linesOf(source, { sourceName: options.sourceName ?? 'sp3' })) take(parser.push(line));
   take(parser.finish());
   return { header: header!, epochs };
 }

@@ -41,18 +41,33 @@ export function verdictExplanation(s: SpacecraftFinding): string | undefined {
     'and check how the configured value was derived.';
 }
 
+/** Control characters (C0, DEL, C1), line/paragraph separators and bidirectional overrides. */
+const UNSAFE_CHARACTERS = /[\u0000-\u001f\u007f-\u009f\u2028\u2029\u202a-\u202e\u2066-\u2069]/g;
+
+/**
+ * Text from the review file (title, ids, messages quoting them) as one line of Markdown: control
+ * characters and line breaks shown escaped (`\x1B`, `\x0A`) so they can neither act on a terminal nor
+ * break the document's structure, and `|` escaped so a table cell stays one cell.
+ */
+function md(text: string): string {
+  return String(text).replace(UNSAFE_CHARACTERS, (c) => {
+    const n = c.charCodeAt(0);
+    return n < 0x100 ? `\\x${n.toString(16).toUpperCase().padStart(2, '0')}` : `\\u${n.toString(16).toUpperCase()}`;
+  }).replace(/\|/g, '\\|');
+}
+
 /** Markdown rendering: one summary table, then a section per spacecraft. */
 export function reviewToMarkdown(report: ReviewReport): string {
-  const lines: string[] = [`# ${report.title}`, '', `> ${report.caution}`, '',
+  const lines: string[] = [`# ${md(report.title)}`, '', `> ${report.caution}`, '',
     `Result: ${report.counts.pass} pass, ${report.counts.marginal} marginal, ${report.counts.fail} fail.`, '',
     '| spacecraft | verdict | expected offset | configured offset | difference | difference (ns/day) | tolerance |',
     '|---|---|---:|---:|---:|---:|---:|'];
   for (const s of report.spacecraft) {
-    lines.push(`| ${s.id} | ${VERDICT_MARK[s.verdict]} | ${e(s.expectedFractionalOffset, 6)} | ${e(s.configuredFractionalOffset, 6)} | ${e(s.differenceFractional, 3)} | ${f(s.differenceNanosecondsPerDay, 3)} | ${e(s.toleranceFractional, 2)} |`);
+    lines.push(`| ${md(s.id)} | ${VERDICT_MARK[s.verdict]} | ${e(s.expectedFractionalOffset, 6)} | ${e(s.configuredFractionalOffset, 6)} | ${e(s.differenceFractional, 3)} | ${f(s.differenceNanosecondsPerDay, 3)} | ${e(s.toleranceFractional, 2)} |`);
   }
   for (const s of report.spacecraft) {
-    lines.push('', `## ${s.id}: ${VERDICT_MARK[s.verdict]}`, '', s.summary, '',
-      `- Constants: ${s.constants}; reference: ${s.reference.toUpperCase()}; a = ${s.semiMajorAxis} m; nominal ${s.nominalFrequencyHz} Hz`,
+    lines.push('', `## ${md(s.id)}: ${VERDICT_MARK[s.verdict]}`, '', md(s.summary), '',
+      `- Constants: ${md(s.constants)}; reference: ${s.reference.toUpperCase()}; a = ${s.semiMajorAxis} m; nominal ${s.nominalFrequencyHz} Hz`,
       `- Expected output frequency: ${s.expectedFrequencyHz.toFixed(7)} Hz; configured: ${s.configuredFrequencyHz.toFixed(7)} Hz; difference ${e(s.differenceHz, 4)} Hz`,
       `- Rate budget: gravitational ${f(usPerDay(s.budget.gravitational), 4)} µs/day, velocity ${f(usPerDay(s.budget.velocity), 4)} µs/day, J2 ${f(usPerDay(s.budget.j2) * 1e3, 4)} ns/day (${s.budget.j2Included ? 'included' : 'not included: the kind of a is not stated'}), net ${f(usPerDay(s.budget.fractionalRate), 4)} µs/day; J2 osculating/mean-a ambiguity ${e(s.budget.j2Ambiguity, 2)}`);
     if (s.quantisationStepFractional !== null) lines.push(`- Tuning-word step: ${e(s.quantisationStepFractional, 3)} (fractional)`);
@@ -60,7 +75,7 @@ export function reviewToMarkdown(report: ReviewReport): string {
     if (why) lines.push('', why);
     if (s.diagnosis.length > 0) {
       lines.push('', '| finding | would have produced | explanation |', '|---|---:|---|');
-      for (const d of s.diagnosis) lines.push(`| ${d.code}${d.matches ? '' : ' (note)'} | ${e(d.wouldHaveProduced, 6)} | ${d.message.replace(/\|/g, '\\|')} |`);
+      for (const d of s.diagnosis) lines.push(`| ${d.code}${d.matches ? '' : ' (note)'} | ${e(d.wouldHaveProduced, 6)} | ${md(d.message)} |`);
     }
     if (s.dispersion) {
       const d = s.dispersion;
