@@ -12,7 +12,7 @@ export {
 } from './scenario.js';
 export {
   planSteering, STEERING_CAUTION,
-  type SteeringPlan, type SteeringCommand, type SteeringMetrics, type PredictedSeries, type PlanOptions, type SteeringMethod,
+  type SteeringPlan, type InfeasibilityCode, type SteeringCommand, type SteeringMetrics, type PredictedSeries, type PlanOptions, type SteeringMethod,
 } from './plan.js';
 export { steeringCost, predictSteering, type SteeringPrediction } from './evaluate.js';
 export { type CostBreakdown } from './cost.js';

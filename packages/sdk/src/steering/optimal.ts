@@ -244,9 +244,11 @@ export function planOptimal(norm: NormalizedScenario, fixed: readonly InternalCo
   for (const sigma of phaseSigmaAt(norm, gridTimes(norm))) sigmaMax = Math.max(sigmaMax, sigma);
   const sigmaBound = sigmaMax * norm.z;
   const attempts = sigmaBound >= norm.bound ? 1 : 5;
-  // The phase weight is a tuning knob: plans for weights 1, 10, … 10⁴ are compared and the one kept
-  // is the first that holds the tolerance or, when none does, the one with the lowest expected cost
-  // J (at the scenario's own weights), so an unavoidable violation never buys an over-aggressive gain.
+  // The phase weight is a tuning knob (the one-step look-ahead over whole steps with a per-command
+  // charge does not minimise J exactly): plans for weights 1, 10, … 10⁴ are compared and the one
+  // kept is the feasible one with the lowest expected cost J at the scenario's own weights or,
+  // when none is feasible, the one with the lowest J, so an unavoidable violation never buys an
+  // over-aggressive gain.
   const start: ForwardStart = { t: 0, state: norm.state0, cumulative: cumulativeFrequency(norm, fixed) };
   let commands: InternalCommand[] = [];
   let ok = false;
@@ -254,17 +256,14 @@ export function planOptimal(norm: NormalizedScenario, fixed: readonly InternalCo
   let bestCost = Infinity;
   for (let attempt = 0, trial = 1; attempt < attempts; attempt++, trial *= 10) {
     const planned = [...fixed, ...forwardOptimal(optimalModel(norm, fixed, trial), start)].sort((a, b) => a.executeAt - b.executeAt);
-    if (checkTolerance(norm, stateJumps(norm, planned)).ok) {
-      commands = planned;
-      scale = trial;
-      ok = true;
-      break;
-    }
+    const feasible = checkTolerance(norm, stateJumps(norm, planned)).ok;
+    if (ok && !feasible) continue;
     const cost = expectedCost(norm, planned).total;
-    if (cost < bestCost) {
+    if ((feasible && !ok) || cost < bestCost) {
       bestCost = cost;
       commands = planned;
       scale = trial;
+      ok = feasible;
     }
   }
   // Root-level safeguard: keep the deadband schedule when it is feasible and the LQ one is not,
