@@ -22,7 +22,7 @@
  *
  * @internal
  */
-import { phaseVariance, propagateMean } from './clock-math.js';
+import { phaseVariance } from './clock-math.js';
 import { quantiseFrequency } from './constraints.js';
 import { stateJumps, type InternalCommand } from './predict.js';
 import type { NormalizedScenario } from './scenario.js';
@@ -90,26 +90,48 @@ export function brakingSteps(model: BrakingModel, i: number, state: readonly num
  * Runs to the horizon when the actuator cannot bring the frequency to rest.
  */
 export function brakingRest(model: BrakingModel, i: number, state: readonly number[], cumulative: number): { x: number; t: number } {
-  const { bounds, norm } = model;
-  let s: [number, number, number] = [state[0]!, state[1]!, state[2]!];
+  const { bounds, norm, nextGap } = model;
+  const { resolution, maxStep, rangeMin, rangeMax } = norm.actuator;
+  const nMax = Math.floor(maxStep / resolution + 1e-9);
+  // Scalars, not propagateMean/quantiseFrequency: this loop runs for every candidate step (hot path);
+  // the same arithmetic: x += yΔ + dΔ²/2, y += dΔ, then the braking step rounded as quantiseFrequency does.
+  let x = state[0]!;
+  let y = state[1]!;
+  const d = state[2]!;
   let cum = cumulative;
+  let tPrev = bounds[i]!.t;
   for (let j = i + 1; j < bounds.length; j++) {
     const b = bounds[j]!;
-    s = propagateMean(s, b.t - bounds[j - 1]!.t);
-    s[0] += b.dx;
-    s[1] += b.dy;
+    const dt = b.t - tPrev;
+    tPrev = b.t;
+    x = x + y * dt + (d * dt * dt) / 2 + b.dx;
+    y = y + d * dt + b.dy;
     if (!b.controllable) continue;
-    const q = quantiseFrequency(norm, -(s[1] + (s[2] * model.nextGap[j]!) / 2), cum);
-    if (q.steps === 0) {
-      if (q.limitedBy === 'range') continue; // range exhausted: the clock cannot be braked here
-      return { x: s[0], t: b.t };
+    let steps = Math.round(-(y + (d * nextGap[j]!) / 2) / resolution);
+    if (steps > nMax) steps = nMax;
+    else if (steps < -nMax) steps = -nMax;
+    const upper = Math.floor((rangeMax - cum) / resolution + 1e-9);
+    const lower = Math.ceil((rangeMin - cum) / resolution - 1e-9);
+    let byRange = false;
+    if (steps > upper) {
+      steps = Math.max(0, upper);
+      byRange = true;
+    } else if (steps < lower) {
+      steps = Math.min(0, lower);
+      byRange = true;
     }
-    s[1] += q.amount;
-    cum += q.amount;
+    if (steps === 0) {
+      if (byRange) continue; // range exhausted: the clock cannot be braked here
+      return { x, t: b.t };
+    }
+    y += steps * resolution;
+    cum += steps * resolution;
   }
-  const last = bounds[bounds.length - 1];
-  if (last && last.t < norm.horizon) s = propagateMean(s, norm.horizon - last.t);
-  return { x: s[0], t: norm.horizon };
+  if (tPrev < norm.horizon) {
+    const dt = norm.horizon - tPrev;
+    x = x + y * dt + (d * dt * dt) / 2;
+  }
+  return { x, t: norm.horizon };
 }
 
 /** Usable half-width of the band at t: b − z·σ(t), at least 0 (seconds). */
