@@ -181,7 +181,10 @@ export function flyClosedLoop(frame: ClosedLoopFrame, rp: Replanner, truth: Trut
     }
     const est = estimateAt(filter, base, kb, planned, kp, now, norm);
     const fixedAfter = rp.feedForward.filter((c) => c.executeAt >= now);
-    const fresh = replanFrom(rp, now, until, est, cumulative, fixedAfter, false);
+    let lastExecuted = -Infinity;
+    for (const c of rp.feedForward) if (c.executeAt < now) lastExecuted = Math.max(lastExecuted, c.executeAt);
+    if (made.length > 0) lastExecuted = Math.max(lastExecuted, made[made.length - 1]!.executeAt);
+    const fresh = replanFrom(rp, now, until, est, cumulative, fixedAfter, false, lastExecuted);
     for (const c of fresh) {
       made.push(c);
       planned.push(toJump(c));

@@ -50,9 +50,10 @@ function deadbandOpportunities(norm: NormalizedScenario): number[] {
  * Runs the deadband planner on top of the `fixed` (feed-forward) commands. Every frequency step
  * is limited to the admissible steps of braking.ts on the deadband's own opportunities, so a
  * saturated correction brakes in time instead of overshooting the opposite bound.
- * `until` (seconds) stops it from placing commands at or after that time (re-planning).
+ * `until` (seconds) stops it from placing commands at or after that time, and `notBefore` from
+ * placing any before it (re-planning: the spacing from commands already executed).
  */
-export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalCommand[], until = Infinity): PlannerResult {
+export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalCommand[], until = Infinity, notBefore = -Infinity): PlannerResult {
   const spec = norm.strategy.method === 'deadband' ? norm.strategy : { method: 'deadband' as const };
   const theta = spec.thresholdFraction ?? DEFAULT_DEADBAND_THRESHOLD;
   const correctionTime = spec.correctionTimeSeconds ?? DEFAULT_CORRECTION_TIME;
@@ -77,7 +78,7 @@ export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalC
     if (w.start >= until) return;
     const nextStart = wi + 1 < norm.windows.length ? norm.windows[wi + 1]!.start : norm.horizon;
     for (let t = w.start; t <= w.end + 1e-9 && t < until; t += norm.grid) {
-      if (!spacingOk(norm, commands, t)) continue;
+      if (t < notBefore - 1e-6 || !spacingOk(norm, commands, t)) continue;
       const jumps = stateJumps(norm, commands);
       if (!exceedsBefore(t, nextStart, jumps)) continue;
       const [x, y, d] = meanState(norm, jumps, t);
@@ -97,7 +98,7 @@ export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalC
       }
       const execAt = phaseDone ? t + norm.actuator.spacing : t;
       const uplink = phaseDone ? uplinkFor(norm, execAt) : t;
-      if (uplink === undefined || execAt > norm.horizon || !spacingOk(norm, commands, execAt)) continue;
+      if (uplink === undefined || execAt > norm.horizon || execAt < notBefore - 1e-6 || !spacingOk(norm, commands, execAt)) continue;
       const xAtExec = phaseDone ? meanState(norm, stateJumps(norm, commands), execAt)[0] : x;
       const yAtExec = y + d * (execAt - t);
       const wanted = -(yAtExec + (d * gap) / 2) - (phaseDone ? 0 : xAtExec / correctionTime);

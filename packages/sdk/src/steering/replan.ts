@@ -100,15 +100,17 @@ export function makeReplanner(norm: NormalizedScenario, method: SteeringMethod):
 /**
  * New commands executing in [now, until) from the estimate at `now` (before any jump at `now`).
  * `cumulative`: initial steering plus every frequency command executed or fixed (feed-forward
- * included); `fixedAfter`: fixed commands executing at or after `now`.
+ * included); `fixedAfter`: fixed commands executing at or after `now`; `lastExecuted`: the
+ * execution time of the latest command before now (for the minimum spacing).
  */
 export function replanFrom(rp: Replanner, now: Seconds, until: Seconds, est: StateEstimate, cumulative: number,
-  fixedAfter: readonly InternalCommand[], explain: boolean): InternalCommand[] {
+  fixedAfter: readonly InternalCommand[], explain: boolean, lastExecuted = -Infinity): InternalCommand[] {
   if (rp.method === 'none') return [];
   if (rp.model) return forwardOptimal(rp.model, { t: now, state: est.state, cumulative }, until, explain);
   const fixedSum = fixedAfter.reduce((s, c) => s + (c.kind === 'frequency' ? c.amount : 0), 0);
   const shifted = shiftScenario(rp.norm, now, est, cumulative - fixedSum);
-  const planned = planDeadband(shifted, fixedAfter.map((c) => shift(c, -now)), until - now).commands;
+  const notBefore = lastExecuted + rp.norm.actuator.spacing - now;
+  const planned = planDeadband(shifted, fixedAfter.map((c) => shift(c, -now)), until - now, notBefore).commands;
   return planned.filter((c) => c.planner === 'deadband').map((c) => shift(c, now));
 }
 
@@ -204,7 +206,8 @@ export function replanSteering(scenario: unknown, plan: Pick<SteeringPlan, 'comm
   const cumulative = cumulativeFrequency(norm, [...executed.map(({ c }) => c), ...fixedAfter]);
   const model = rp.model && fixedAfter.length !== rp.feedForward.filter((f) => f.executeAt >= now).length
     ? optimalModel(norm, fixedAfter, rp.model.scale) : rp.model;
-  const made = replanFrom({ ...rp, ...(model ? { model } : {}) }, now, Infinity, est, cumulative, fixedAfter, true);
+  const lastExecuted = executed.reduce((t, { c }) => Math.max(t, c.executeAt), -Infinity);
+  const made = replanFrom({ ...rp, ...(model ? { model } : {}) }, now, Infinity, est, cumulative, fixedAfter, true, lastExecuted);
   const shifted = shiftScenario(norm, now, est, norm.actuator.initial + executed.reduce((s, { c }) => s + (c.kind === 'frequency' ? c.amount : 0), 0));
   const commands = [...fixedAfter, ...made].sort((a, b) => a.executeAt - b.executeAt).map((c) => shift(c, -now));
   const revised = buildPlan(shifted, method, { commands, limits: [], notes: [] });
