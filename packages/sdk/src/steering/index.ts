@@ -19,7 +19,7 @@ export { type CostBreakdown } from './cost.js';
 export { type DiffusionCoefficients } from './clock-math.js';
 export { simulatePlan, type SimulationOptions, type SimulationSummary } from './monte-carlo.js';
 export {
-  replanSteering, type ClockOffsetEstimate, type PlanRevision, type RevisedSteeringPlan,
+  replanSteering, createReplanner, type SteeringReplanner, type ClockOffsetEstimate, type PlanRevision, type RevisedSteeringPlan,
 } from './replan.js';
 export {
   simulateClosedLoop, type ClosedLoopOptions, type ClosedLoopSummary, type ClosedLoopStrategySummary,

@@ -161,11 +161,22 @@ const PROBABILITY_SLACK = 1e-12;
 export function checkTolerance(norm: NormalizedScenario, jumps: readonly StateJump[]): ToleranceCheck {
   const checks: { t: number; side: 'before' | 'after' }[] = gridTimes(norm).map((t) => ({ t, side: 'after' as const }));
   for (const j of jumps) if (j.dx !== 0) checks.push({ t: j.t, side: 'before' });
-  checks.sort((a, b) => a.t - b.t);
+  checks.sort((a, b) => a.t - b.t || (a.side === b.side ? 0 : a.side === 'before' ? -1 : 1));
   const result: ToleranceCheck = { ok: true, worstAbsMean: 0, worstBound: 0, minProbability: 1 };
   let lastFailure = -1;
+  // Mean phase by running sums over the sorted jumps (as meanPhaseAt), with the 'before' side
+  // leaving out the jumps exactly at t.
+  const [x0, y0, d0] = norm.state0;
+  let k = 0;
+  let sumDy = 0;
+  let sumOffset = 0; // Σ (dx_j − dy_j t_j)
   checks.forEach((c, i) => {
-    const mean = meanState(norm, jumps, c.t, c.side)[0];
+    while (k < jumps.length && (jumps[k]!.t < c.t || (c.side === 'after' && jumps[k]!.t === c.t))) {
+      sumDy += jumps[k]!.dy;
+      sumOffset += jumps[k]!.dx - jumps[k]!.dy * jumps[k]!.t;
+      k++;
+    }
+    const mean = x0 + y0 * c.t + (d0 * c.t * c.t) / 2 + sumDy * c.t + sumOffset;
     const sigma = Math.sqrt(phaseVariance(c.t, norm.covariance0, norm.noise));
     const probability = probabilityWithin(mean, sigma, norm.bound);
     result.worstAbsMean = Math.max(result.worstAbsMean, Math.abs(mean));

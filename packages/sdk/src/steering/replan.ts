@@ -158,6 +158,32 @@ export function filterTo(norm: NormalizedScenario, estimates: readonly ClockOffs
   return propagateEstimate(est, now - f.t, norm);
 }
 
+/** A scenario prepared for repeated re-planning (see {@link createReplanner}). */
+export interface SteeringReplanner {
+  /** The method it re-plans with. */
+  readonly method: SteeringMethod;
+  /** Revises `plan` at `nowSeconds` from `estimates`; see {@link replanSteering}. */
+  replan(plan: Pick<SteeringPlan, 'commands'>, estimates: readonly ClockOffsetEstimate[], nowSeconds: number): RevisedSteeringPlan;
+}
+
+/**
+ * Prepares a scenario for re-planning: validates it once, derives the feed-forward manoeuvre
+ * commands and, for the optimal planner, picks the phase weight on the open-loop plan and runs
+ * the backward (Riccati) pass once. Each `replan` then costs a filter pass over the estimates and
+ * a forward pass from now (see `npm run bench -- steering`).
+ *
+ * @param scenario  The scenario (validated here).
+ * @param options   `strategy` and `timeScales` as for planSteering.
+ * @throws {InvalidArgumentError} naming the field for a bad scenario or option.
+ */
+export function createReplanner(scenario: unknown, options: PlanOptions = {}): SteeringReplanner {
+  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an object { strategy?, timeScales? }');
+  const norm = validateScenario(scenario, options);
+  const method = resolveMethod(norm, options.strategy);
+  const rp = makeReplanner(norm, method);
+  return { method, replan: (plan, estimates, nowSeconds) => revise(norm, rp, plan, estimates, nowSeconds) };
+}
+
 /**
  * Revises a plan at `nowSeconds` from the clock estimates received so far.
  *
@@ -172,7 +198,8 @@ export function filterTo(norm: NormalizedScenario, estimates: readonly ClockOffs
  *    horizon on the same time base, with the kept commands fixed.
  *
  * The revised plan's `predicted` series starts at now, with σ from the filter's covariance,
- * and its verdict covers [now, end of horizon].
+ * and its verdict covers [now, end of horizon]. For repeated re-plans of one scenario, use
+ * {@link createReplanner} (this call prepares the scenario every time).
  *
  * @param scenario     The scenario (validated here).
  * @param plan         The current plan (its `commands`).
@@ -183,11 +210,15 @@ export function filterTo(norm: NormalizedScenario, estimates: readonly ClockOffs
  */
 export function replanSteering(scenario: unknown, plan: Pick<SteeringPlan, 'commands'>, estimates: readonly ClockOffsetEstimate[],
   nowSeconds: number, options: PlanOptions = {}): RevisedSteeringPlan {
-  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an object { strategy?, timeScales? }');
-  const norm = validateScenario(scenario, options);
-  const method = resolveMethod(norm, options.strategy);
+  return createReplanner(scenario, options).replan(plan, estimates, nowSeconds);
+}
+
+function revise(norm: NormalizedScenario, rp: Replanner, plan: Pick<SteeringPlan, 'commands'>, estimates: readonly ClockOffsetEstimate[],
+  nowSeconds: number): RevisedSteeringPlan {
+  const method = rp.method;
   const now = requireNonNegative('nowSeconds', nowSeconds, 's');
   if (now >= norm.horizon) throw new InvalidArgumentError('nowSeconds', now, `before the end of the horizon (${norm.horizon} s)`);
+  if (typeof plan !== 'object' || plan === null) throw new InvalidArgumentError('plan', plan, 'a plan { commands }');
   const given = commandsToInternal(norm, plan.commands, 'plan.commands');
   const received = requireEstimates(estimates, now);
   const kept = given.map((c, i) => ({ c, i })).filter(({ c }) => c.uplinkAt < now);
@@ -198,7 +229,6 @@ export function replanSteering(scenario: unknown, plan: Pick<SteeringPlan, 'comm
     ...executed.map(({ c }) => (c.kind === 'frequency' ? { t: c.executeAt, dy: c.amount, dx: 0 } : { t: c.executeAt, dy: 0, dx: c.amount })),
   ].sort((a, b) => a.t - b.t);
   const est = filterTo(norm, received, jumps, now);
-  const rp = makeReplanner(norm, method);
   // Feed-forward commands not yet uplinked are planned again (unless a kept command already executes there).
   const sameAs = (a: InternalCommand, b: InternalCommand): boolean => a.kind === b.kind && a.steps === b.steps && Math.abs(a.executeAt - b.executeAt) < 1e-3;
   const fixedAfter = [...pending, ...rp.feedForward.filter((f) => f.executeAt >= now && f.uplinkAt >= now && !pending.some((p) => sameAs(p, f)))]
