@@ -12,6 +12,9 @@ import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag, nsText, readScen
 /** Simulated (run × grid-epoch) steps above which a progress bar is shown on a terminal. */
 export const PROGRESS_THRESHOLD = 200_000;
 
+/** The caution printed under the closed-loop table. */
+export const CLOSED_LOOP_CAUTION = 'Caution: a simulation of operations under the scenario\'s clock and estimate noise models, not a guarantee; verify any schedule against the mission\'s own interface specification and have it confirmed by its responsible engineering authority before uplink.';
+
 /** The caution printed under the table and carried in the JSON. */
 export const SIMULATION_CAUTION = 'Caution: plans are open-loop from the epoch estimate; verify any schedule against the mission\'s own interface specification and have it confirmed by its responsible engineering authority before uplink.';
 
@@ -118,5 +121,5 @@ export function closedLoopText(s: SteeringScenario, r: ClosedLoopSummary): strin
     nsText(x.maxAbsOffsetSeconds.p50), nsText(x.maxAbsOffsetSeconds.p95), nsText(x.maxAbsOffsetSeconds.max),
     x.commandsPerDay.mean.toFixed(2), x.totalFrequencySteering.mean.toExponential(3)]);
   return `${head}\n\n${table(['strategy', 'time in tolerance mean', 'p05', 'min', 'max |offset| p50', 'p95', 'max', 'commands/day', 'Σ|freq steps| mean'], rows)}` +
-    `\nTime in tolerance: per run, the fraction of grid epochs with |offset| ≤ tolerance. Percentiles are over runs (nearest rank).\n${SIMULATION_CAUTION}\n`;
+    `\nTime in tolerance: per run, the fraction of grid epochs with |offset| ≤ tolerance. Percentiles are over runs (nearest rank).\n${CLOSED_LOOP_CAUTION}\n`;
 }
