@@ -54,8 +54,8 @@ interface Scale { map(v: number): number }
 
 /**
  * Draws the layer inside `frame` (the caller has clipped to it) for the visible span [x0, x1]:
- * superseded commands as hollow markers at 40 % opacity on the steered line, estimates as dots
- * with a vertical bar from phase − σ to phase + σ.
+ * superseded commands as hollow dashed markers at 40 % opacity on the steered line, estimates as
+ * dots with a vertical bar from phase − σ to phase + σ, at 60 % opacity in the text colour.
  */
 export function drawRevisions(ctx: CanvasRenderingContext2D, frame: { top: number; height: number }, sx: Scale, sy: Scale,
   span: [number, number], line: { t: Float64Array; y: Float64Array }, rev: RevisionView,
@@ -80,7 +80,7 @@ export function drawRevisions(ctx: CanvasRenderingContext2D, frame: { top: numbe
     marks.superseded.push({ x, y });
   }
   ctx.setLineDash([]);
-  ctx.globalAlpha = 0.9;
+  ctx.globalAlpha = 0.6;
   ctx.strokeStyle = colors.estimate;
   ctx.fillStyle = colors.estimate;
   ctx.lineWidth = 1;

@@ -521,7 +521,7 @@ export class TaulineSteeringSchedule extends PlotElement {
       ctx.stroke(p);
     }
     this._revisionMarks = this._revisions
-      ? drawRevisions(ctx, frame, sx, sy, [x0, x1], { t: d.t, y: d.steered }, this._revisions, { command: colors.frequency, estimate: colors.steered })
+      ? drawRevisions(ctx, frame, sx, sy, [x0, x1], { t: d.t, y: d.steered }, this._revisions, { command: colors.frequency, estimate: colors.text })
       : { superseded: [], estimates: [] };
     ctx.restore();
     // Manoeuvre labels above the frame.
