@@ -10,6 +10,7 @@ import {
   formatFraction, formatNumber, formatOffset, formatOffsetAuto, formatTimeTick, formatUtc, parseTimeUnit, pickTimeUnit, type TimeUnit,
 } from '../internal/format.js';
 import { warnOnce } from '../internal/warn.js';
+import { drawRevisions, readRevisions, type RevisionMarks, type RevisionView } from './revisions-layer.js';
 import { emit } from '../events.js';
 
 export type { PlanView, SteeringCommandView };
@@ -46,7 +47,9 @@ type Hover = { kind: 'sample'; i: number; px: number } | { kind: 'command'; c: n
  *
  * Takes the planner's output (`planSteering()` of `@tauline/sdk`) as `plan` and its input as
  * `scenario`. Data are immutable: assign new objects to re-render. Series are drawn through
- * per-pixel min/max decimation, so 10^6-point predictions stay fast.
+ * per-pixel min/max decimation, so 10^6-point predictions stay fast. A revised plan's history can
+ * be shown with `superseded` (commands the re-plan replaced, faded hollow markers) and `estimates`
+ * (the clock-offset estimates it used, points with ±1σ bars).
  *
  * Keyboard (plot focused): ← / → previous / next command; Shift+← / Shift+→ or PageUp / PageDown pan;
  * + / − zoom; Home shows everything; Escape hides the read-out.
@@ -81,6 +84,8 @@ export class TaulineSteeringSchedule extends PlotElement {
   static override properties: PropertyDeclarations = {
     plan: { attribute: false },
     scenario: { attribute: false },
+    superseded: { attribute: false },
+    estimates: { attribute: false },
     label: {},
     yUnit: { attribute: 'y-unit' },
     sigmaMultiple: { type: Number, attribute: 'sigma-multiple' },
@@ -96,6 +101,12 @@ export class TaulineSteeringSchedule extends PlotElement {
 
   /** The scenario the plan was made for: epoch, `tolerance.phaseSeconds`, `contacts`, `maneuvers`. */
   scenario?: unknown;
+
+  /** Commands a re-plan superseded (SteeringCommand objects, e.g. the SDK's `revision.superseded`), drawn faded on the steered line. */
+  superseded?: unknown;
+
+  /** Clock-offset estimates `{ tSeconds, phaseSeconds, sigmaSeconds }` (as given to a re-plan), drawn as points with ±1σ bars. */
+  estimates?: unknown;
 
   /** Heading shown above the plot. */
   label = 'Steering schedule';
@@ -119,6 +130,8 @@ export class TaulineSteeringSchedule extends PlotElement {
   private _announcement = '';
 
   private _result: ReturnType<typeof readPlan> | null = null;
+  private _revisions: RevisionView | null = null;
+  private _revisionMarks: RevisionMarks = { superseded: [], estimates: [] };
   private _bandLow: Float64Array | null = null;
   private _bandHigh: Float64Array | null = null;
   private _dataVersion = 0;
@@ -171,6 +184,7 @@ export class TaulineSteeringSchedule extends PlotElement {
       else if (!this._view || this._view[0] < full[0] || this._view[1] > full[1]) this._view = full;
     }
     if (changed.has('plan') || changed.has('scenario') || changed.has('sigmaMultiple')) this._computeBand();
+    if (changed.has('superseded') || changed.has('estimates') || changed.has('scenario')) this._readRevisions();
     if (changed.has('sigmaMultiple') && !(Number.isFinite(this.sigmaMultiple) && this.sigmaMultiple >= 0)) {
       warnOnce(this, 'invalid-sigma-multiple', `sigma-multiple must be a non-negative number; received ${String(this.sigmaMultiple)}; using 2`);
     }
@@ -369,6 +383,17 @@ export class TaulineSteeringSchedule extends PlotElement {
     if (changed.has('selectedIndex')) this._scrollRowIntoView();
   }
 
+  /** Reads `superseded` and `estimates` against the scenario epoch (revision layer, revisions-layer.ts). */
+  private _readRevisions(): void {
+    const epoch = (this.scenario as { epoch?: unknown } | null | undefined)?.epoch;
+    const any = (this.superseded !== undefined && this.superseded !== null) || (this.estimates !== undefined && this.estimates !== null);
+    this._revisions = any && typeof epoch === 'string' ? readRevisions(this.superseded, this.estimates, epoch) : null;
+    if (this._revisions && this._revisions.dropped > 0) {
+      warnOnce(this, 'revision-entries-dropped', `${this._revisions.dropped} superseded command(s) or estimate(s) could not be read and are not drawn`);
+    }
+    this._dataVersion += 1;
+  }
+
   private _drawData(): void {
     const d = this._data;
     const canvas = this._dataCanvas;
@@ -495,6 +520,9 @@ export class TaulineSteeringSchedule extends PlotElement {
       ctx.fill(p);
       ctx.stroke(p);
     }
+    this._revisionMarks = this._revisions
+      ? drawRevisions(ctx, frame, sx, sy, [x0, x1], { t: d.t, y: d.steered }, this._revisions, { command: colors.frequency, estimate: colors.text })
+      : { superseded: [], estimates: [] };
     ctx.restore();
     // Manoeuvre labels above the frame.
     ctx.save();
