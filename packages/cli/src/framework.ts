@@ -5,6 +5,7 @@
 import { parseArgs, type ParseArgsConfig } from 'node:util';
 import { TaulineError, InvalidArgumentError, formatReceived } from '@tauline/sdk/errors';
 import { MAX_SEED } from '@tauline/sdk/steering';
+import { FLIGHT_CONFIGURATION_CAUTION } from '@tauline/sdk/relativity';
 
 /** Exit status: 0 success, 1 a finding (e.g. a review fail), 2 unusable input. */
 export const EXIT_OK = 0;
@@ -288,9 +289,8 @@ export function progressBar(io: Io, label: string): { update: (done: number, tot
   };
 }
 
-/** The line printed for flight-configuration outputs. */
-export const FLIGHT_CAUTION =
-  'Caution: verify these values against the mission\'s own interface specification and have them confirmed by its responsible engineering authority before they enter a flight configuration.';
+/** The line printed for flight-configuration outputs: the SDK's flight-configuration caution, so the CLI and the SDK say the same words. */
+export const FLIGHT_CAUTION = FLIGHT_CONFIGURATION_CAUTION;
 
 /** File-system errors that mean the user named an unusable file, with the reason printed. */
 const FILE_ERRORS: Record<string, string> = {
