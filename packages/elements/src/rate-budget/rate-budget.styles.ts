@@ -26,4 +26,7 @@ export const rateBudgetStyles = css`
   tr.total td { font-weight: 600; border-top: 1px solid var(--border); }
   .na { color: var(--muted); }
   .note { margin: 0; color: var(--muted); font-size: 0.92em; }
+  .bar-col { text-align: center; }
+  .axis-note { font-weight: 400; white-space: nowrap; }
+  .caution { margin: 0; padding: 4px 10px; border-left: 3px solid var(--tauline-color-tolerance, light-dark(#b7791f, #e0b062)); color: var(--muted); font-size: 0.92em; }
 `;

@@ -3,6 +3,7 @@ import { baseStyles } from '../internal/styles.js';
 import { rateBudgetStyles } from './rate-budget.styles.js';
 import { formatFraction, formatHertz, formatNumber } from '../internal/format.js';
 import { warnOnce } from '../internal/warn.js';
+import { FLIGHT_CONFIGURATION_CAUTION } from '@tauline/sdk/relativity';
 
 /**
  * The mean rate breakdown the element shows: the fields of the SDK's `meanClockRate(a)` result
@@ -46,6 +47,8 @@ interface BudgetRow {
  * A rate budget: the orbiting clock's mean rate broken into its gravitational, velocity and J2
  * parts, each as a fraction, as microseconds per day, and as the factory offset it calls for
  * (fraction and hertz at the nominal frequency). Signed bars show each part's size and sign.
+ * The factory offsets and hertz values feed a flight configuration, so the table always carries
+ * the SDK's `FLIGHT_CONFIGURATION_CAUTION`.
  *
  * Data are immutable: set a new `budget` object to re-render (changes are detected by identity).
  *
@@ -54,6 +57,7 @@ interface BudgetRow {
  * @csspart base - The outer wrapper.
  * @csspart table - The budget table (the accessible form of the bars).
  * @csspart row - Each body row of the table.
+ * @csspart caution - The flight-configuration caution under the table.
  *
  * @cssproperty --gain-color - Bar colour of a part that makes the clock run fast (default token `--tauline-color-gain`).
  * @cssproperty --loss-color - Bar colour of a part that makes the clock run slow (default token `--tauline-color-loss`).
@@ -160,7 +164,7 @@ export class TaulineRateBudget extends LitElement {
           <tr>
             <th scope="col">Part</th>
             <th scope="col">Clock rate (µs/day)</th>
-            <th scope="col" class="bar-col"><span class="sr-only">Relative size and sign</span></th>
+            <th scope="col" class="bar-col">Size and sign <span class="axis-note">(− slow | + fast)</span></th>
             <th scope="col">Factory offset (fraction)</th>
             <th scope="col">Offset at ${formatHertz(f0, 6)}</th>
           </tr>
@@ -171,7 +175,8 @@ export class TaulineRateBudget extends LitElement {
       </table></div>
       ${this.j2Rate === undefined || this.j2Rate === null
         ? html`<p class="note">J2 part not supplied: the net rate is the point-mass value.</p>`
-        : nothing}`;
+        : nothing}
+      <p class="caution" part="caution" role="note">${FLIGHT_CONFIGURATION_CAUTION}</p>`;
   }
 
   private _renderRow(row: BudgetRow, maxAbs: number, toOffset: (r: number) => number, f0: number): TemplateResult {

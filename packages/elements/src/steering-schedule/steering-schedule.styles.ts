@@ -12,7 +12,7 @@ export const steeringScheduleStyles = css`
     --frequency-command-color: var(--tauline-color-command-frequency, light-dark(#2f4f9e, #9db5f0));
     --phase-command-color: var(--tauline-color-command-phase, light-dark(#a4452c, #f0a58c));
     --plot-height: 340px;
-    --table-max-height: 240px;
+    --table-max-height: 440px;
   }
   .head { display: flex; flex-wrap: wrap; align-items: baseline; gap: 6px 14px; }
   .badge {
@@ -40,6 +40,7 @@ export const steeringScheduleStyles = css`
     background: color-mix(in srgb, var(--accent) 16%, transparent);
   }
   td.reason { text-align: left; white-space: normal; min-width: 14em; color: var(--muted); }
+  .invalid-data { min-height: 0; justify-content: flex-start; text-align: left; color: var(--text); }
   .kind { display: inline-flex; align-items: center; gap: 5px; }
   .caution { margin: 0; padding: 4px 10px; border-left: 3px solid var(--tolerance-color); color: var(--muted); font-size: 0.92em; }
   .row-button { border: none; padding: 0 2px; text-decoration: underline dotted; }
