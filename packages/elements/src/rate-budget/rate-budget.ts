@@ -158,8 +158,9 @@ export class TaulineRateBudget extends LitElement {
         <strong>${formatFraction(factory)}</strong>
         (<strong>${formatHertz(factory * f0)}</strong> at ${formatHertz(f0, 6)}).
       </p>
-      <div class="table-scroll"><table part="table">
-        <caption>Mean rate vs ${ref}${b.constants ? `, constants ${b.constants}` : ''}: positive rate, the clock runs fast; the factory offset, set on the ground, cancels it.</caption>
+      <p class="table-note" id="budget-note">Mean rate vs ${ref}${b.constants ? `, constants ${b.constants}` : ''}: positive rate, the clock runs fast; the factory offset, set on the ground, cancels it.</p>
+      <div class="table-scroll"><table part="table" aria-describedby="budget-note">
+        <caption class="sr-only">Clock rate budget by part</caption>
         <thead>
           <tr>
             <th scope="col">Part</th>
@@ -183,7 +184,7 @@ export class TaulineRateBudget extends LitElement {
     if (row.rate === null) {
       return html`<tr part="row" class=${row.key}>
         <th scope="row">${row.label}</th>
-        <td class="na">not computed</td><td class="bar-cell"></td><td class="na">—</td><td class="na">—</td>
+        <td class="na" data-label="Clock rate (µs/day)">not computed</td><td class="bar-cell"></td><td class="na" data-label="Factory offset (fraction)">—</td><td class="na" data-label="Offset (Hz)">—</td>
       </tr>`;
     }
     const rate = row.rate;
@@ -193,10 +194,10 @@ export class TaulineRateBudget extends LitElement {
     const kind = row.key === 'total' ? 'total' : rate >= 0 ? 'gain' : 'loss';
     return html`<tr part="row" class=${row.key}>
       <th scope="row">${row.label}</th>
-      <td>${formatMicroseconds(rate * SECONDS_PER_DAY * 1e6)}</td>
+      <td data-label="Clock rate (µs/day)">${formatMicroseconds(rate * SECONDS_PER_DAY * 1e6)}</td>
       <td class="bar-cell" aria-hidden="true"><div class="bar-track"><div class="bar ${kind}" style="left:${left}%;width:${Math.max(width, 0.3)}%"></div></div></td>
-      <td>${formatFraction(offset)}</td>
-      <td>${formatHertz(offset * f0)}</td>
+      <td data-label="Factory offset (fraction)">${formatFraction(offset)}</td>
+      <td data-label=${`Offset at ${formatHertz(f0, 6)}`}>${formatHertz(offset * f0)}</td>
     </tr>`;
   }
 }

@@ -21,5 +21,5 @@ export const stabilityPlotStyles = css`
   [part~='legend'] li { display: block; }
   .series-toggle { display: inline-flex; align-items: center; gap: 6px; border-color: transparent; color: var(--text); padding: 1px 6px; }
   .series-toggle[aria-pressed='false'] { color: var(--muted); text-decoration: line-through; opacity: 0.75; }
-  .note { margin: 0; color: var(--muted); font-size: 0.92em; }
+  .note, .table-units { margin: 0; color: var(--muted); font-size: 0.92em; }
 `;

@@ -6,7 +6,7 @@ import { DEFAULT_MIN_TERMS, normaliseStability, type StabilityColumns, type Stab
 import {
   SHAPES, decadeTicks, deviationExtent, drawRightAxis, drawSeries, type PlotShape,
 } from './stability-draw.js';
-import { renderStabilityTable, rowStarts, rowWindow } from './stability-table.js';
+import { renderStabilityTable, renderTableUnits, rowStarts, rowWindow } from './stability-table.js';
 import { drawAxes, sizeCanvas, type AxisStyle, type Frame } from '../internal/canvas.js';
 import { logScale, logTicks, type Scale } from '../internal/scale.js';
 import { formatDuration, formatFraction, formatNumber, formatOffsetAuto } from '../internal/format.js';
@@ -231,6 +231,7 @@ export class TaulineStabilityPlot extends PlotElement {
               ${this._renderTooltip()}
             </div>
             <div class="sr-only" aria-live="polite">${this._announcement}</div>
+            ${this.noTable ? nothing : renderTableUnits(this.noIntervals)}
             ${this.noTable ? nothing : html`<div class="table-wrap" tabindex="0" role="region" aria-label="Stability data table"
               @scroll=${this._onTableScroll}>${this._renderTable()}</div>`}`}
       ${this._renderFewTermsNote()}

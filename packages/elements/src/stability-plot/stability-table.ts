@@ -42,6 +42,14 @@ function spacer(height: number): TemplateResult | typeof nothing {
   return height > 0 ? html`<tr class="spacer" aria-hidden="true"><td colspan="8" style="height:${height}px"></td></tr>` : nothing;
 }
 
+/**
+ * What the table's columns mean; shown above its scroll box (so a narrow screen never cuts it) and
+ * tied to the table with `aria-describedby`.
+ */
+export function renderTableUnits(noIntervals: boolean): TemplateResult {
+  return html`<p class="table-units" id="table-units">${noIntervals ? '' : 'Confidence interval where given. '}Unit s = seconds (time deviation), 1 = dimensionless (fractional frequency).</p>`;
+}
+
 /** The table with only the window's rows; `aria-rowcount`/`aria-rowindex` give the full extent. */
 export function renderStabilityTable(v: TableView): TemplateResult {
   const total = v.starts[v.starts.length - 1]!;
@@ -62,8 +70,8 @@ export function renderStabilityTable(v: TableView): TemplateResult {
       <td>${s.noise?.[i] || '—'}</td>
     </tr>`);
   }
-  return html`<table part="table" aria-rowcount=${total + 1}>
-    <caption>Deviation by averaging time τ${v.noIntervals ? '' : ', with confidence interval where given'}; unit s = seconds (time deviation), 1 = dimensionless (fractional frequency)</caption>
+  return html`<table part="table" aria-rowcount=${total + 1} aria-describedby="table-units">
+    <caption>Deviation by averaging time τ</caption>
     <thead><tr aria-rowindex="1">
       <th scope="col">Statistic</th><th scope="col">τ (s)</th><th scope="col">Deviation</th>
       <th scope="col">Interval low</th><th scope="col">Interval high</th><th scope="col">Unit</th><th scope="col">n</th><th scope="col">Noise</th>

@@ -334,8 +334,8 @@ export class TaulineSteeringSchedule extends PlotElement {
               <td>${formatUtc(ms(c.executeAt), true)}</td>
               <td><span class="kind">${this._kindGlyph(c)}${c.kind}</span></td>
               <td>${c.kind === 'phase' ? `${c.step >= 0 ? '+' : ''}${formatOffsetAuto(c.step, 4)}` : `${c.step >= 0 ? '+' : ''}${formatFraction(c.step, 4)}`}</td>
-              <td>${Number.isFinite(c.actuatorSteps) ? c.actuatorSteps : '—'}</td>
-              <td class="reason">${c.reason}</td>
+              <td>${Number.isFinite(c.actuatorSteps) ? formatNumber(c.actuatorSteps, 16) : '—'}</td>
+              <td class="reason" title=${c.reason}><span>${c.reason}</span></td>
             </tr>`;
           })}
       </tbody>
@@ -355,7 +355,7 @@ export class TaulineSteeringSchedule extends PlotElement {
         <dl>
           <dt>Kind</dt><dd>${c.kind}</dd>
           <dt>Step</dt><dd>${c.kind === 'phase' ? formatOffsetAuto(c.step, 4) : formatFraction(c.step, 4)}</dd>
-          ${Number.isFinite(c.actuatorSteps) ? html`<dt>Actuator steps</dt><dd>${c.actuatorSteps}</dd>` : nothing}
+          ${Number.isFinite(c.actuatorSteps) ? html`<dt>Actuator steps</dt><dd>${formatNumber(c.actuatorSteps, 16)}</dd>` : nothing}
           ${Number.isFinite(c.uplinkAt) ? html`<dt>Uplink</dt><dd>${formatUtc(chartTimeToUtcMs(d, c.uplinkAt), true)}</dd>` : nothing}
           <dt>Executes</dt><dd>${formatUtc(chartTimeToUtcMs(d, c.executeAt), true)}</dd>
         </dl>
