@@ -106,6 +106,23 @@ describe('demo operations console (demo/index.html)', () => {
     expect(doc.getElementById('status')!.textContent).to.contain('Recomputed in');
   });
 
+  it('every number shown in the elements and the status line uses one minus sign, U+2212 (no hyphen-minus before a digit)', async () => {
+    const doc = await loadDemo();
+    await until('command rows', () => doc.querySelector('tauline-steering-schedule')!.shadowRoot?.querySelectorAll('tbody tr[part~="row"]').length);
+    await until('stability rows', () => doc.querySelector('tauline-stability-plot')!.shadowRoot?.querySelectorAll('tbody tr').length);
+    const texts: string[] = [doc.getElementById('status')!.textContent ?? ''];
+    for (const el of doc.querySelectorAll('tauline-steering-schedule, tauline-rate-budget, tauline-stability-plot, tauline-review-findings')) {
+      const root = el.shadowRoot!;
+      // Open every review entry so its numbers are rendered text too.
+      for (const d of root.querySelectorAll('details')) d.open = true;
+      texts.push(root.textContent ?? '');
+      for (const labelled of root.querySelectorAll('[aria-label]')) texts.push(labelled.getAttribute('aria-label')!);
+    }
+    // A hyphen-minus as a sign: at the start, or after a space, bracket, =, ±, Δ or an exponent's e.
+    const offenders = texts.flatMap((t) => t.match(/(^|[\s(=±Δ:]|\de)-\d[^\s]*/g) ?? []);
+    expect(offenders).to.deep.equal([]);
+  });
+
   it('at 390×844 every view fits the width (scrollWidth ≤ innerWidth) and is saved to .ci-out/demo-390-<view>.png', async () => {
     const views = await executeServerCommand<Array<{ view: string; scrollWidth: number; innerWidth: number; wide: string[]; file: string }>, Record<string, unknown>>(
       'tauline-demo-views', { path: '/demo/index.html', width: 390, height: 844 });

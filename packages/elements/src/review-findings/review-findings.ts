@@ -1,7 +1,7 @@
 import { LitElement, html, nothing, type PropertyValues, type TemplateResult, type PropertyDeclarations } from 'lit';
 import { baseStyles } from '../internal/styles.js';
 import { reviewFindingsStyles } from './review-findings.styles.js';
-import { formatFraction, formatHertz, formatNumber } from '../internal/format.js';
+import { formatFraction, formatHertz, formatNumber, typographicMinus } from '../internal/format.js';
 import { warnOnce } from '../internal/warn.js';
 import { emit } from '../events.js';
 
@@ -194,7 +194,7 @@ export class TaulineReviewFindings extends LitElement {
         <span class="diff">Δ ${formatFraction(diff, 3)}</span>
       </summary>
       <div class="body">
-        ${f.summary ? html`<p>${f.summary}</p>` : nothing}
+        ${f.summary ? html`<p>${typographicMinus(f.summary)}</p>` : nothing}
         <table part="table">
           <caption>Offsets for ${f.id} (fractional; negative: set low)</caption>
           <tbody>
@@ -208,7 +208,7 @@ export class TaulineReviewFindings extends LitElement {
         ${Array.isArray(f.diagnosis) && f.diagnosis.length > 0
           ? html`<div><strong>Diagnosis</strong><ul class="diagnosis">
               ${f.diagnosis.filter(isDiagnosis).map((d) => html`<li>
-                ${d.matches ? html`<span class="match">Matches:</span> ` : nothing}${d.message}
+                ${d.matches ? html`<span class="match">Matches:</span> ` : nothing}${typographicMinus(d.message)}
                 <code>${d.code}</code>${typeof d.wouldHaveProduced === 'number' ? html` — would have produced ${formatFraction(d.wouldHaveProduced, 5)}` : nothing}
               </li>`)}
             </ul></div>`

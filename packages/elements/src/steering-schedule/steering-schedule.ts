@@ -7,7 +7,7 @@ import { closestIndex, decimateBand, decimateLine, visibleRange } from '../inter
 import { drawAxes, fillBand, markerPath, sizeCanvas, strokePolyline, type Frame, type MarkerShape, type Tick } from '../internal/canvas.js';
 import { linearScale, linearTicks, padDomain, timeTicks, type Scale } from '../internal/scale.js';
 import {
-  formatFraction, formatNumber, formatOffset, formatOffsetAuto, formatTimeTick, formatUtc, parseTimeUnit, pickTimeUnit, type TimeUnit,
+  formatFraction, formatNumber, formatOffset, formatOffsetAuto, formatTimeTick, formatUtc, parseTimeUnit, pickTimeUnit, typographicMinus, type TimeUnit,
 } from '../internal/format.js';
 import { warnOnce } from '../internal/warn.js';
 import { emit } from '../events.js';
@@ -249,7 +249,7 @@ export class TaulineSteeringSchedule extends PlotElement {
 
   private _renderChart(d: PlanView): TemplateResult {
     return html`
-      ${!d.feasible && d.reason ? html`<p class="summary" role="note">${d.reason}</p>` : nothing}
+      ${!d.feasible && d.reason ? html`<p class="summary" role="note">${typographicMinus(d.reason)}</p>` : nothing}
       ${this._renderMetrics(d)}
       ${this._renderLegend(d)}
       <div class="plot-box" part="plot" tabindex="0" role="group"
@@ -335,7 +335,7 @@ export class TaulineSteeringSchedule extends PlotElement {
               <td><span class="kind">${this._kindGlyph(c)}${c.kind}</span></td>
               <td>${c.kind === 'phase' ? `${c.step >= 0 ? '+' : ''}${formatOffsetAuto(c.step, 4)}` : `${c.step >= 0 ? '+' : ''}${formatFraction(c.step, 4)}`}</td>
               <td>${Number.isFinite(c.actuatorSteps) ? formatNumber(c.actuatorSteps, 16) : '—'}</td>
-              <td class="reason" title=${c.reason}><span>${c.reason}</span></td>
+              <td class="reason" title=${typographicMinus(c.reason)}><span>${typographicMinus(c.reason)}</span></td>
             </tr>`;
           })}
       </tbody>
@@ -359,7 +359,7 @@ export class TaulineSteeringSchedule extends PlotElement {
           ${Number.isFinite(c.uplinkAt) ? html`<dt>Uplink</dt><dd>${formatUtc(chartTimeToUtcMs(d, c.uplinkAt), true)}</dd>` : nothing}
           <dt>Executes</dt><dd>${formatUtc(chartTimeToUtcMs(d, c.executeAt), true)}</dd>
         </dl>
-        ${c.reason ? html`<div class="note">${c.reason}</div>` : nothing}
+        ${c.reason ? html`<div class="note">${typographicMinus(c.reason)}</div>` : nothing}
       </div>`;
     }
     const i = h.i;
@@ -591,7 +591,7 @@ export class TaulineSteeringSchedule extends PlotElement {
     const c = d?.commands[position];
     if (!d || !c) return;
     this.selectedIndex = c.index;
-    this._announcement = `Command ${position + 1} of ${d.commands.length}: ${describeStep(c)}, executes ${formatUtc(chartTimeToUtcMs(d, c.executeAt), true)}. ${c.reason}`;
+    this._announcement = `Command ${position + 1} of ${d.commands.length}: ${describeStep(c)}, executes ${formatUtc(chartTimeToUtcMs(d, c.executeAt), true)}. ${typographicMinus(c.reason)}`;
     if (source !== 'plot' && this._view && (c.executeAt < this._view[0] || c.executeAt > this._view[1])) {
       const span = this._view[1] - this._view[0];
       this._setView(c.executeAt - span / 2, c.executeAt + span / 2, true);
