@@ -415,7 +415,8 @@ export class TaulineSteeringSchedule extends PlotElement {
     const unit = parseTimeUnit(this.yUnit) ?? pickTimeUnit(Math.max(Math.abs(y0), Math.abs(y1)));
     this._scales = { sx, sy, frame, unit };
 
-    const tt = timeTicks(x0, x1, Math.max(2, Math.floor(frame.width / 90)), d.epochMs);
+    // About one label per 70 px, at least four intervals, so a phone-width plot still shows a few dates.
+    const tt = timeTicks(x0, x1, Math.max(4, Math.floor(frame.width / 70)), d.epochMs);
     const xTicks: Tick[] = tt.values.map((v) => {
       const f = formatTimeTick(d.epochMs + v * 1000, tt.step);
       return { value: v, label: f.main, sub: f.sub };
