@@ -10,6 +10,8 @@ function entriesFromExports(name) {
   const entries = {};
   for (const [subpath, target] of Object.entries(manifest.exports ?? {})) {
     if (typeof target !== 'object') continue;
+    // The one-file bundles (./bundle) are built from dist/ by scripts/build-bundles.mjs, not here.
+    if (target.import.startsWith('./dist/bundle/')) continue;
     const js = target.import.replace(/^\.\/dist\//, '').replace(/\.js$/, '');
     entries[js] = `packages/${name}/src/${js}.ts`;
     void subpath;

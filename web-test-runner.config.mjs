@@ -1,6 +1,7 @@
 import { chromeLauncher } from '@web/test-runner-chrome';
 import { esbuildPlugin } from '@web/dev-server-esbuild';
 import { demoScreenshotPlugin } from './test/browser/screenshot-plugin.mjs';
+import { staticPagePlugin } from './test/browser/static-page-plugin.mjs';
 
 // Flags for a closed network and a root sandbox (see DEVELOPERS.md).
 export const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage', '--disable-quic', '--no-first-run',
@@ -17,7 +18,7 @@ export default {
   browserStartTimeout: 60000,
   testsFinishTimeout: 300000,
   // esbuild reads this tsconfig raw ("extends" is ignored): the decorator options sit in it.
-  plugins: [esbuildPlugin({ ts: true, target: 'es2022', tsconfig: 'packages/elements/tsconfig.json' }), demoScreenshotPlugin()],
+  plugins: [esbuildPlugin({ ts: true, target: 'es2022', tsconfig: 'packages/elements/tsconfig.json' }), demoScreenshotPlugin(), staticPagePlugin()],
   browsers: [chromeLauncher({ launchOptions: {
     executablePath: process.env.CHROME_PATH || '/usr/bin/chromium', headless: true, args: CHROMIUM_ARGS } })],
   filterBrowserLogs: ({ args }) => !String(args[0]).includes('Lit is in dev mode'),

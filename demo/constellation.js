@@ -7,8 +7,8 @@ export const CONSTELLATION = 'Corvane';
 export const SATELLITES = [
   { id: 'CORVANE-A1', designSemiMajorAxis: 27_870_000, inclination: 0.977, clock: 'rubidium', stationA: 'Isk Harbour', stationB: 'Vell Ridge' },
   { id: 'CORVANE-A2', designSemiMajorAxis: 27_870_000, inclination: 0.977, clock: 'rubidium', stationA: 'Vell Ridge', stationB: 'Isk Harbour' },
-  { id: 'CORVANE-B1', designSemiMajorAxis: 27_905_000, inclination: 0.96, clock: 'passive maser', stationA: 'Isk Harbour', stationB: 'Vell Ridge' },
-  { id: 'CORVANE-B2', designSemiMajorAxis: 27_905_000, inclination: 0.96, clock: 'passive maser', stationA: 'Vell Ridge', stationB: 'Isk Harbour' },
+  { id: 'CORVANE-B1', designSemiMajorAxis: 27_655_000, inclination: 0.96, clock: 'passive maser', stationA: 'Isk Harbour', stationB: 'Vell Ridge' },
+  { id: 'CORVANE-B2', designSemiMajorAxis: 27_655_000, inclination: 0.96, clock: 'passive maser', stationA: 'Vell Ridge', stationB: 'Isk Harbour' },
 ];
 
 const EPOCH = '2027-03-08T00:00:00Z'; // inside the SDK's bundled leap-second table span

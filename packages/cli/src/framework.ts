@@ -6,6 +6,7 @@ import { writeFile } from 'node:fs/promises';
 import { parseArgs, type ParseArgsConfig } from 'node:util';
 import { TaulineError, InvalidArgumentError, formatReceived } from '@tauline/sdk/errors';
 import { MAX_SEED } from '@tauline/sdk/steering';
+import { FLIGHT_CONFIGURATION_CAUTION } from '@tauline/sdk/relativity';
 import { TABLE_WIDTH, fitTable, wrapText } from './layout.js';
 import { escapeControlCharacters } from './text-safety.js';
 
@@ -295,9 +296,8 @@ export function toJson(value: unknown): string {
 /** The progress bar lives in its own module; re-exported here for the commands that import it from the framework. */
 export { progressBar } from './progress.js';
 
-/** The line printed for flight-configuration outputs. */
-export const FLIGHT_CAUTION =
-  'Caution: verify these values against the mission\'s own interface specification and have them confirmed by its responsible engineering authority before they enter a flight configuration.';
+/** The line printed for flight-configuration outputs: the SDK's flight-configuration caution, so the CLI and the SDK say the same words. */
+export const FLIGHT_CAUTION = FLIGHT_CONFIGURATION_CAUTION;
 
 /** File-system errors that mean the user named an unusable file, with the reason printed. */
 const FILE_ERRORS: Record<string, string> = {

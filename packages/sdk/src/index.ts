@@ -7,6 +7,7 @@
  */
 export * from './units.js';
 export * from './errors.js';
+export { FLIGHT_CONFIGURATION_CAUTION } from './caution.js';
 export * from './constants.js';
 export * from './time/index.js';
 export * from './orbit/index.js';

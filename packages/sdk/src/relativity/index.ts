@@ -1,4 +1,5 @@
 /** Relativistic clock terms: constant (factory) rate, instantaneous rate, periodic eccentricity term. */
+export { FLIGHT_CONFIGURATION_CAUTION } from '../caution.js';
 export {
   type ReferenceClock, type RateOptions, type RateBreakdown, REFERENCE_CLOCKS, requireReferenceClock,
   meanClockRate, instantaneousClockRate, rateChangeForSemiMajorAxisChange, semiMajorAxisForMeanRate,

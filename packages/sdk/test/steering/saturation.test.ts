@@ -9,7 +9,7 @@ const iso = (s: number): string => new Date(EPOCH_MS + s * 1000).toISOString().r
 const secondsOf = (stamp: string, epochMs: number): number => (Date.parse(stamp) - epochMs) / 1000;
 
 describe('saturated steering (a residual rate of 1.8e-11 against steps of 5e-13)', () => {
-  // ORIN-3 with the orbit achieved at 26 000 km instead of 27 977 km: the factory offset leaves a rate of
+  // ORIN-3 with the orbit achieved at 26 000 km instead of 27 412 km: the factory offset leaves a rate of
   // 2e-13 + Δ(3GM/(2ac²)) ≈ −1.81e-11 (physics-refs §2). Before the constrained planner, the optimal plan
   // clipped an LQ gain: 163 commands nearly all at ±maxFrequencyStep and the offset swinging ±1.44 µs.
   const s = example('orin-3-meo');
