@@ -18,7 +18,7 @@ export {
 } from './proper-time.js';
 export {
   type J2PeriodicAmplitudes, type SemiMajorAxisKind, type J2RateBreakdown, j2ResidualPeriodicTerm, j2TotalPeriodicTerm,
-  j2PeriodicAmplitudes, osculatingMinusMeanSemiMajorAxis, j2SecularClockRate, j2SecularClockRateFromState,
+  j2PeriodicAmplitudes, osculatingMinusMeanSemiMajorAxis, j2SecularClockRate, j2SecularClockRateFromState, J2_ANALYTIC_MIN_PERIGEE_RADIUS, J2_AVERAGING_ORBITS,
 } from './j2.js';
 export {
   type ReferenceEllipsoid, type GroundClockRate, type LunarClockLocation, type LunarClockRate, GRS80_ELLIPSOID,

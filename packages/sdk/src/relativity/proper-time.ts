@@ -17,7 +17,8 @@ import { requireFinite, requireOrbitRadius, requirePositive } from '../internal/
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 import { integrateDop853 } from '../orbit/integrator.js';
 import { createGravityField, GRAVITY_MODELS, type GravityModel } from '../orbit/forces.js';
-import { LOW_PRECISION_EPHEMERIS_NAME } from '../orbit/ephemeris.js';
+import { LOW_PRECISION_EPHEMERIS_NAME, moonPositionAt } from '../orbit/ephemeris.js';
+import { MOON_MEAN_RADIUS } from './reference-clocks.js';
 
 /** Largest number of output samples one call may return. */
 export const MAX_PROPER_TIME_SAMPLES = 10_000_000;
@@ -79,7 +80,7 @@ export interface ProperTimeResult {
  * @returns Samples of τ − TT and the state.
  * @throws {InvalidArgumentError} for a non-finite state, a position inside the Earth (with a km hint),
  *   duration ≤ 0, step ≤ 0 or larger than the duration, too many samples, or an unknown model.
- * @throws {OutOfDomainError} if the trajectory enters the Earth during the integration.
+ * @throws {OutOfDomainError} if the trajectory enters the Earth (or, for `full`, the Moon) during the integration.
  * @throws {ConvergenceError} if the integrator cannot meet the tolerance.
  * @see IERS Conventions (2010), IERS TN 36, §10.2 eqs. 10.6–10.9 [V1]; Hairer, Nørsett & Wanner (1993) §II.5–II.6 [M].
  */
@@ -138,6 +139,15 @@ export function integrateProperTime(state: StateVector, duration: Seconds, step:
           `the orbit enters the Earth by t = ${t} s after the start; check the state (units m and m/s)`);
       }
       options.onProgress?.(t, duration);
+      if (model === 'full') {
+        // A lunar orbiter that decays: the Moon's mean radius (IAU WGCCRE [M]) bounds its trajectory.
+        const m = moonPositionAt(epoch, t, true);
+        const rho = Math.hypot(y[0]! - m[0], y[1]! - m[1], y[2]! - m[2]);
+        if (rho <= MOON_MEAN_RADIUS) {
+          throw new OutOfDomainError('distance from the Moon\'s centre', rho, `${MOON_MEAN_RADIUS} m (the Moon's mean radius)`, '∞',
+            `the orbit hits the Moon by t = ${t} s after the start; check the state and the epoch`);
+        }
+      }
     },
   });
   const states = new Float64Array(count * 6);

@@ -170,10 +170,11 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
     const reference: ReferenceClock = sc.reference ?? input.reference ?? 'tt';
     const rate = meanClockRate(sc.orbit.semiMajorAxis, { constants: set, reference });
     const kind = sc.orbit.semiMajorAxisKind;
-    const j2 = j2SecularClockRate({
+    // Only when the kind of a is stated (the J2 term is not applied otherwise); j2SecularClockRate refuses perigees below 25 000 km.
+    const j2 = kind ? j2SecularClockRate({
       semiMajorAxis: sc.orbit.semiMajorAxis, eccentricity: sc.orbit.eccentricity ?? 0, inclination: sc.orbit.inclination ?? 0,
-      semiMajorAxisKind: kind ?? 'mean', ...(kind === 'osculating' ? { argumentOfLatitude: sc.orbit.argumentOfLatitude! } : {}),
-    }, set).j2Correction;
+      semiMajorAxisKind: kind, ...(kind === 'osculating' ? { argumentOfLatitude: sc.orbit.argumentOfLatitude! } : {}),
+    }, set).j2Correction : 0;
     const totalRate = rate.fractionalRate + (kind ? j2 : 0);
     return { sc, set, reference, rate, j2, totalRate, expected: offsetForRate(totalRate) };
   });
