@@ -139,6 +139,24 @@ describe('demo operations console (demo/index.html)', () => {
     for (const v of views) expect(v.scrollWidth, `${v.view}: ${v.wide.join('; ')}`).to.be.at.most(v.innerWidth);
   });
 
+  it('the closed-loop what-if flies 30 days and shows time in tolerance for the planner beside no steering (steering keeps the clock in tolerance longer)', async function (this: Mocha.Context) {
+    this.timeout(90000); // 2 strategies × 40 clocks × 30 days, synchronous in the page
+    const doc = await loadDemo();
+    await until('command rows', () => doc.querySelector('tauline-steering-schedule')!.shadowRoot?.querySelectorAll('tbody tr[part~="row"]').length);
+    (doc.getElementById('loop-run') as HTMLButtonElement).click();
+    const rows = await until('closed-loop rows', () => {
+      const r = doc.querySelectorAll('#loop-table tbody tr');
+      return r.length === 2 ? r : null;
+    }, 60000);
+    const share = (row: Element) => Number(/([\d.]+) %/.exec(row.children[1]!.textContent ?? '')![1]);
+    expect(rows[0]!.children[0]!.textContent).to.equal('quantised LQ');
+    expect(rows[1]!.children[0]!.textContent).to.equal('no steering');
+    expect(share(rows[0]!)).to.be.within(0, 100);
+    expect(share(rows[0]!)).to.be.greaterThan(share(rows[1]!));
+    expect(doc.getElementById('loop-table')!.hidden).to.equal(false);
+    expect(doc.getElementById('loop-status')!.textContent).to.match(/flown in \d+ ms/);
+  });
+
   it('saves a screenshot of the console to .ci-out/demo-console.png', async () => {
     const saved = await executeServerCommand<string, { path: string; out: string }>('tauline-demo-screenshot', { path: '/demo/index.html', out: '.ci-out/demo-console.png' });
     expect(saved).to.contain('demo-console.png');
