@@ -66,7 +66,7 @@ Gaps: a missing epoch (time column) or NaN value is a missing sample; statistics
 only and report the reduced n; totdev refuses records with gaps. Nothing is interpolated.
 Intervals: chi-square with equivalent degrees of freedom (SP 1065 §5.3): oadev Howe–Allan–Barnes
 formulas; adev, mdev, tdev, hdev, ohdev exact Gaussian edf for the noise type; totdev b·T/τ − c.
-Noise type per τ: lag-1 autocorrelation method (Riley & Greenhall, EFTF 2004), unless --noise is given.
+Noise type per τ: B1 ratio, R(n) and lag-1 autocorrelation (NIST SP 1065 §5.6), unless --noise is given.
 JSON: { input: { kind, file, samples, phasePoints, missing, gaps[], tau0 }, confidence, statistics,
 rows: [ { tau, m, noise, alpha, noiseSource, <stat>, <stat>Low, <stat>High, <stat>N, <stat>Edf,
 <stat>EdfModel } ], droppedTaus, units }. A statistic without terms at a τ is null in that row.
@@ -166,7 +166,7 @@ Exit status: 0 success, 2 unusable input.`,
     const headers = ['τ (s)', 'noise'];
     for (const s of stats) headers.push(s, `${s} interval`, 'n');
     const rows = analysis.rows.map((r) => {
-      const cells: string[] = [sig(r.tau, 6), `${r.noise}${r.noiseSource === 'lag1-acf' ? '' : r.noiseSource === 'stated' ? ' (stated)' : '*'}`];
+      const cells: string[] = [sig(r.tau, 6), `${r.noise}${r.noiseSource === 'identified' ? '' : r.noiseSource === 'stated' ? ' (stated)' : '*'}`];
       for (const s of stats) {
         const e = r.statistics[s];
         if (!e) cells.push('—', '—', '—');

@@ -10,6 +10,7 @@ import { CONSTANT_SETS, DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQ
 import { meanClockRate, semiMajorAxisForMeanRate, type ReferenceClock } from '../relativity/rate.js';
 import { j2SecularClockRate, osculatingMinusMeanSemiMajorAxis } from '../relativity/j2.js';
 import { createRandom, MAX_SEED } from '../internal/random.js';
+import { normalCdf } from '../internal/special-functions.js';
 import { requireInteger } from '../internal/validate.js';
 import type {
   ConfiguredOffset, Diagnosis, DispersionAnalysis, ReviewReport, ReviewSpacecraft, SpacecraftFinding, Verdict,
@@ -316,8 +317,13 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
   };
 }
 
-/** Percentiles at ±1σ, ±2σ, ±3σ of a normal distribution, 100·Φ(k) (computed [C]). */
-const PERCENTILES = [0.135, 2.275, 15.866, 50, 84.134, 97.725, 99.865];
+/** The dispersion percentiles sit at a0 + kσ for these k (±1σ, ±2σ, ±3σ and the median). */
+const SIGMA_MULTIPLES = [-3, -2, -1, 0, 1, 2, 3];
+
+/** Percentile 100·Φ(k) of a standard normal, rounded to 3 decimals as reported (Φ by the SDK's normalCdf [C]). */
+function percentileAt(k: number): number {
+  return Math.round(100_000 * normalCdf(k)) / 1000;
+}
 
 function analyseDispersion(sc: ReviewSpacecraft, set: ConstantSet, reference: ReferenceClock, configured: number,
   actuatorRange: number | null, phaseTolerance: number | null, runs: number, seed: number,
@@ -332,6 +338,16 @@ function analyseDispersion(sc: ReviewSpacecraft, set: ConstantSet, reference: Re
   const nominal = residual(a0);
   const plus = residual(a0 + 3 * sigma);
   const worst = Math.max(Math.abs(minus), Math.abs(plus), Math.abs(nominal));
+  // Closed form: a ~ N(a0, σ²) and residual(a) is strictly increasing in a (dr/da = 3GM/(2a²c²)·(1 + c) > 0),
+  // so the p-quantile of the residual is residual(a0 + z_p σ) (quantile of a monotone function = function of
+  // the quantile; elementary probability, common practice, no source).
+  const percentiles = SIGMA_MULTIPLES.map((k) => {
+    const a = a0 + k * sigma;
+    const r = residual(a);
+    return { percentile: percentileAt(k), semiMajorAxis: a, residualFractionalRate: r, daysToPhaseTolerance: days(r) };
+  });
+  // Sampling cross-check of the same percentiles (one Gaussian input: it adds no information to the closed
+  // form; kept so that reports keep their seeded sample and runs/seed options, and tested to agree).
   const random = createRandom(seed);
   const draws = new Float64Array(runs);
   const every = Math.max(1, Math.ceil(runs / 200));
@@ -340,10 +356,10 @@ function analyseDispersion(sc: ReviewSpacecraft, set: ConstantSet, reference: Re
     if (onProgress && ((i + 1) % every === 0 || i + 1 === runs)) onProgress(i + 1);
   }
   draws.sort();
-  const percentiles = PERCENTILES.map((p) => {
-    const a = draws[Math.min(runs - 1, Math.max(0, Math.round((p / 100) * (runs - 1))))]!;
+  const sampled = percentiles.map(({ percentile }) => {
+    const a = draws[Math.min(runs - 1, Math.max(0, Math.round((percentile / 100) * (runs - 1))))]!;
     const r = residual(a);
-    return { percentile: p, semiMajorAxis: a, residualFractionalRate: r, daysToPhaseTolerance: days(r) };
+    return { percentile, semiMajorAxis: a, residualFractionalRate: r, daysToPhaseTolerance: days(r) };
   });
   return {
     semiMajorAxisSigma: sigma,
@@ -355,6 +371,7 @@ function analyseDispersion(sc: ReviewSpacecraft, set: ConstantSet, reference: Re
     phaseToleranceSeconds: phaseTolerance,
     daysToPhaseToleranceWorst: days(worst),
     actuatorCovers: actuatorRange === null ? null : worst <= actuatorRange,
-    monteCarlo: { runs, seed, percentiles },
+    percentiles,
+    monteCarlo: { runs, seed, percentiles: sampled },
   };
 }

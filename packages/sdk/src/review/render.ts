@@ -82,9 +82,9 @@ export function reviewToMarkdown(report: ReviewReport): string {
       lines.push('', `Injection dispersion σa = ${d.semiMajorAxisSigma} m (rate sensitivity ${e(d.rateSensitivityPerMetre, 4)} per metre): residual rate ${e(d.residualAtMinus3Sigma, 3)} at −3σ, ${e(d.residualNominal, 3)} nominal, ${e(d.residualAtPlus3Sigma, 3)} at +3σ.` +
         (d.phaseToleranceSeconds === null ? ' No phase tolerance given, so no walk-off time.' : ` Unsteered, the clock leaves ±${d.phaseToleranceSeconds} s after ${f(d.daysToPhaseToleranceWorst, 2)} days at the worst 3σ residual.`) +
         (d.actuatorCovers === null ? '' : d.actuatorCovers ? ' The steering range covers it.' : ' The steering range does NOT cover it.'),
-        '', `Monte Carlo over the dispersion (${d.monteCarlo.runs} draws, seed ${d.monteCarlo.seed}):`, '',
+        '', `Residual across the dispersion (closed form: percentile of a at a0 + kσ; a seeded ${d.monteCarlo.runs}-draw Monte Carlo, seed ${d.monteCarlo.seed}, agrees within sampling error):`, '',
         '| percentile | a (m) | residual rate | days to phase tolerance |', '|---:|---:|---:|---:|');
-      for (const p of d.monteCarlo.percentiles) lines.push(`| ${p.percentile} | ${p.semiMajorAxis.toFixed(1)} | ${e(p.residualFractionalRate, 4)} | ${f(p.daysToPhaseTolerance, 2)} |`);
+      for (const p of d.percentiles) lines.push(`| ${p.percentile} | ${p.semiMajorAxis.toFixed(1)} | ${e(p.residualFractionalRate, 4)} | ${f(p.daysToPhaseTolerance, 2)} |`);
     }
   }
   return lines.join('\n') + '\n';
@@ -122,7 +122,7 @@ function budgetSvg(s: SpacecraftFinding): string {
 function dispersionSvg(s: SpacecraftFinding, actuatorRange: number | null): string {
   const d = s.dispersion;
   if (!d) return '';
-  const pts = d.monteCarlo.percentiles;
+  const pts = d.percentiles;
   const values = pts.map((p) => p.residualFractionalRate);
   const lo = Math.min(...values, actuatorRange !== null ? -actuatorRange : Infinity, 0);
   const hi = Math.max(...values, actuatorRange !== null ? actuatorRange : -Infinity, 0);
@@ -155,8 +155,8 @@ export function reviewToHtml(report: ReviewReport, actuatorRanges: Readonly<Reco
     const diag = s.diagnosis.length === 0 ? `<p class="explanation">${why === undefined ? 'No findings.' : esc(why)}</p>` : `<table><caption>Findings</caption><thead><tr><th scope="col">code</th><th scope="col">would have produced</th><th scope="col">explanation</th></tr></thead><tbody>${
       s.diagnosis.map((d) => `<tr><td><code>${d.code}</code>${d.matches ? '' : ' <small>(note)</small>'}</td><td>${e(d.wouldHaveProduced, 6)}</td><td class="text">${esc(d.message)}</td></tr>`).join('')}</tbody></table>`;
     const disp = s.dispersion ? `<h3>Injection dispersion (σa = ${s.dispersion.semiMajorAxisSigma} m)</h3>${dispersionSvg(s, actuatorRanges[s.id] ?? null)}
-<table><caption>Monte Carlo over the dispersion: ${s.dispersion.monteCarlo.runs} draws, seed ${s.dispersion.monteCarlo.seed}</caption><thead><tr><th scope="col">percentile</th><th scope="col">a (m)</th><th scope="col">residual rate</th><th scope="col">days to phase tolerance</th></tr></thead><tbody>${
-      s.dispersion.monteCarlo.percentiles.map((p) => `<tr><td>${p.percentile}</td><td>${p.semiMajorAxis.toFixed(1)}</td><td>${e(p.residualFractionalRate, 4)}</td><td>${f(p.daysToPhaseTolerance, 2)}</td></tr>`).join('')}</tbody></table>` : '';
+<table><caption>Residual across the dispersion (closed form at a0 + kσ; Monte Carlo cross-check: ${s.dispersion.monteCarlo.runs} draws, seed ${s.dispersion.monteCarlo.seed})</caption><thead><tr><th scope="col">percentile</th><th scope="col">a (m)</th><th scope="col">residual rate</th><th scope="col">days to phase tolerance</th></tr></thead><tbody>${
+      s.dispersion.percentiles.map((p) => `<tr><td>${p.percentile}</td><td>${p.semiMajorAxis.toFixed(1)}</td><td>${e(p.residualFractionalRate, 4)}</td><td>${f(p.daysToPhaseTolerance, 2)}</td></tr>`).join('')}</tbody></table>` : '';
     return `<section><h2>${esc(s.id)} <span class="verdict ${s.verdict}">${VERDICT_MARK[s.verdict]}</span></h2><p>${esc(s.summary)}</p>
 <dl><dt>Constants / reference</dt><dd>${esc(s.constants)} / ${s.reference.toUpperCase()}</dd><dt>Semi-major axis</dt><dd>${s.semiMajorAxis} m</dd>
 <dt>Expected output frequency</dt><dd>${s.expectedFrequencyHz.toFixed(7)} Hz</dd><dt>Configured output frequency</dt><dd>${s.configuredFrequencyHz.toFixed(7)} Hz</dd>

@@ -157,14 +157,14 @@ export function deviations(statistic: StatisticName, data: StabilityData, option
 }
 
 /**
- * Lag-1 autocorrelation noise identification at several averaging times (see
- * {@link identifyNoiseAt} for the method). τ with too few points are omitted.
+ * Power-law noise identification at several averaging times by B1, R(n) and the lag-1
+ * autocorrelation (see {@link identifyNoiseAt} for the combination). τ with too few points are omitted.
  *
  * @param data     `{ phase, tau0 }` or `{ frequency, tau0 }`, NaN = missing.
  * @param options  Optional τ list (default octaves up to (N − 1)/2).
  * @returns One estimate per τ where the method applies.
  * @throws {InvalidArgumentError} for bad data or a τ that is not m·τ0.
- * @see W. J. Riley & C. A. Greenhall, "Power law noise identification using the lag 1 autocorrelation", 18th EFTF (2004) [M].
+ * @see W. J. Riley, NIST SP 1065 (2008) §5.6 [M section]; W. J. Riley & C. A. Greenhall, "Power law noise identification using the lag 1 autocorrelation", 18th EFTF (2004) [M].
  */
 export function identifyNoise(data: StabilityData, options: DeviationOptions = {}): NoiseEstimate[] {
   const p = new Prepared(phaseSeriesForReading(data));
@@ -182,7 +182,7 @@ export interface StabilityOptions extends DeviationOptions {
   readonly statistics?: readonly StatisticName[];
   /** Two-sided confidence level of the intervals, in (0, 1). Default {@link ONE_SIGMA_CONFIDENCE} (±1σ). */
   readonly confidence?: number;
-  /** Stated noise type for every τ; when absent it is identified per τ by the lag-1 method. */
+  /** Stated noise type for every τ; when absent it is identified per τ (B1, R(n), lag-1; see {@link identifyNoiseAt}). */
   readonly noise?: NoiseType;
 }
 
@@ -196,8 +196,8 @@ export const DEFAULT_STATISTICS: readonly StatisticName[] = ['oadev', 'mdev', 't
  * Stability analysis: the requested statistics at every τ, each with its number of terms,
  * equivalent degrees of freedom and chi-square confidence interval, and the noise type used.
  *
- * Noise per τ: the stated `noise` if given (source `stated`); else the lag-1 autocorrelation
- * identification at that τ (`lag1-acf`); where too few points remain for it, the type identified
+ * Noise per τ: the stated `noise` if given (source `stated`); else the identification at that τ
+ * by B1, R(n) and the lag-1 autocorrelation ({@link identifyNoiseAt}, NIST SP 1065 §5.6; `identified`); where too few points remain for it, the type identified
  * at the nearest shorter τ (`carried-from-shorter-tau`); when no τ could be identified at all
  * (series shorter than 32 points), white FM (`default-wfm`). The edf model of each statistic is
  * described at {@link equivalentDegreesOfFreedom}; intervals by {@link chiSquareInterval}.
@@ -259,7 +259,7 @@ export function analyzeStability(data: StabilityData, options: StabilityOptions 
       if (noiseEstimate) {
         lastIdentified = noiseEstimate;
         noise = noiseEstimate.noise;
-        noiseSource = 'lag1-acf';
+        noiseSource = 'identified';
       } else if (lastIdentified) {
         noise = lastIdentified.noise;
         noiseSource = 'carried-from-shorter-tau';
