@@ -215,7 +215,8 @@ function toFleetPlan(fleet: NormalizedFleet, a: Allocation): FleetPlan {
     const out: FleetSatellitePlan = { id: s.id, feasible: plan.feasible, commands, predicted: plan.predicted, metrics: plan.metrics };
     if (!plan.feasible) {
       const why = a.blocked[i];
-      out.reason = why && why.code !== plan.reasonCode ? `${why.text}. ${plan.reason ?? ''}`.trim() : plan.reason ?? why?.text ?? 'infeasible';
+      const detail = plan.reason ? `${plan.reason.charAt(0).toUpperCase()}${plan.reason.slice(1)}` : '';
+      out.reason = why && why.code !== plan.reasonCode ? `${why.text}. ${detail}`.trim() : plan.reason ?? why?.text ?? 'infeasible';
       out.reasonCode = why?.code ?? plan.reasonCode ?? 'planner';
     }
     return out;
