@@ -16,6 +16,7 @@ export * from './oscillator/index.js';
 export * from './review/index.js';
 export * from './stability/index.js';
 export * from './steering/index.js';
+export * from './fleet/index.js';
 export * from './signal/index.js';
 export * from './io/index.js';
 export * from './clock-model/index.js';
