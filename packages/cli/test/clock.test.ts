@@ -57,7 +57,7 @@ describe('tauline clock', () => {
     expect(r.out).toMatch(/phase +750000 +2500/);
     // What a declared jump means: the per-sample false-alarm probability and the GLR threshold
     // (scipy.stats.chi2.isf(1e-6/36, 1) = 30.857; isf(1e-4, 1) = 15.137 [C]).
-    expect(r.out).toMatch(/jump detection: GLR statistic l > 30\.86 \(χ²\(1\) at 1\.00e-6\/36\); on a jump-free record a false jump is declared with probability ≤ 1\.00e-6 per sample/);
+    expect(r.out.replace(/\s+/g, ' ')).toMatch(/jump detection: GLR statistic l > 30\.86 \(χ²\(1\) at 1\.00e-6\/36\); on a jump-free record a false jump is declared with probability ≤ 1\.00e-6 per sample/);
     expect(r.out).toMatch(/outliers: impulse statistic l > 15\.14, i\.e\. a good sample is rejected with probability 1\.00e-4/);
     expect(r.out).toMatch(/measurement noise σ_v = 3\.00e-11 s \(given\)/);
     const snippet = r.out.trim().split('\n').pop()!;

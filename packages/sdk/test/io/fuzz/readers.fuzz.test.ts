@@ -92,11 +92,7 @@ function describeFailures(failures: readonly FuzzFailure[]): string {
  * failure count here so that the suite stays green, and asserted to still be the only ones. Empty when none.
  */
 const KNOWN: Record<string, (f: FuzzFailure) => boolean> = {
-  // KNOWN FINDING, SP3 reader (owned by the SP3 work of issue 11, not fixed here): a coordinate or velocity that
-  // overflows to ±Infinity (e.g. `1e400`, or a flipped exponent digit) is accepted instead of refused with
-  // file:line. Only this exact finding is tolerated; any other failure of parseSp3 still fails the suite.
-  // Remove this entry once the SP3 reader refuses non-finite values.
-  parseSp3: (f) => /^accepted with a non-finite value: epochs\[\d+\]\.records\[\d+\]\.(position|velocity)\[\d\] = -?Infinity$/.test(f.problem),
+  // None: the SP3 reader now refuses a non-finite coordinate or velocity (e.g. `1e400`) with file:line:column.
 };
 
 describe('readers under seeded fuzzing (10^4 mutants of the real fixtures each; seed 20261203)', () => {
@@ -143,7 +139,7 @@ describe('readers under seeded fuzzing (10^4 mutants of the real fixtures each; 
     const text = fixturesMatching(/^fictional-304\.clk$/)[0]!.text.trimEnd()
       + '\nAS G05       9999 01 04 00 02  0.000000  2   -0.123456788930E-03  0.100000000000E-10\n';
     const file = parseRinexClock(text, 'year9999.clk');
-    expect(() => rinexClockSeries(file, 'G05')).toThrow(/^year9999\.clk:14:1: expected a uniform series of at most 50000000 samples \(MAX_SERIES_SAMPLES\): the gap of \d+ s after line 13/);
+    expect(() => rinexClockSeries(file, 'G05')).toThrow(/^year9999\.clk:14:1: expected a clock series of at most 50000000 samples \(MAX_SERIES_SAMPLES\): the gap of \d+ s from the record on line 13/);
   });
 
   it('parseRinexClock(a lone CR after END OF HEADER) keeps the next record as a record (the line reader ends the line at the CR)', () => {
