@@ -145,17 +145,28 @@ function flyClosedLoop() {
       const scenario = scenarioFor(index, { residualFractionalFrequency: residual, tolerancePhaseSeconds: tol, method, maneuverDeltaA: dA, days: 30 });
       const summary = simulateClosedLoop(scenario, { runs: LOOP_RUNS, seed: 20270308, strategies: [method, 'none'] });
       const pct = (v) => `${(100 * v).toFixed(1)} %`;
-      const rows = summary.strategies.map((r) => {
+      // One column per strategy, one row per quantity: it reads in the narrow side panel.
+      const cell = (tag, text, scope) => {
+        const c = document.createElement(tag);
+        c.textContent = text;
+        if (scope) c.scope = scope;
+        return c;
+      };
+      const head = document.createElement('tr');
+      head.append(cell('td', ''), ...summary.strategies.map((r) =>
+        cell('th', r.method === 'none' ? 'no steering' : r.method === 'optimal' ? 'constrained LQ' : 'deadband', 'col')));
+      const quantities = [
+        ['In tolerance, mean', (r) => pct(r.timeInTolerance.mean)],
+        ['In tolerance, worst 5 %', (r) => pct(r.timeInTolerance.p05)],
+        ['Worst |offset|, 95 %', (r) => `${minus((r.maxAbsOffsetSeconds.p95 * 1e9).toFixed(1))} ns`],
+        ['Commands per day', (r) => r.commandsPerDay.mean.toFixed(2)],
+      ];
+      const rows = quantities.map(([label, value]) => {
         const tr = document.createElement('tr');
-        const name = r.method === 'none' ? 'no steering' : r.method === 'optimal' ? 'quantised LQ' : 'deadband';
-        for (const text of [name, `${pct(r.timeInTolerance.mean)} / ${pct(r.timeInTolerance.p05)}`,
-          `${minus((r.maxAbsOffsetSeconds.p95 * 1e9).toFixed(1))} ns`, r.commandsPerDay.mean.toFixed(2)]) {
-          const td = document.createElement('td');
-          td.textContent = text;
-          tr.append(td);
-        }
+        tr.append(cell('th', label, 'row'), ...summary.strategies.map((r) => cell('td', value(r))));
         return tr;
       });
+      $('loop-table').tHead.replaceChildren(head);
       $('loop-table').tBodies[0].replaceChildren(...rows);
       $('loop-runs').textContent = String(summary.runs);
       $('loop-table').hidden = false;

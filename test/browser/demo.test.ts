@@ -146,13 +146,15 @@ describe('demo operations console (demo/index.html)', () => {
     (doc.getElementById('loop-run') as HTMLButtonElement).click();
     const rows = await until('closed-loop rows', () => {
       const r = doc.querySelectorAll('#loop-table tbody tr');
-      return r.length === 2 ? r : null;
+      return r.length === 4 ? r : null;
     }, 60000);
-    const share = (row: Element) => Number(/([\d.]+) %/.exec(row.children[1]!.textContent ?? '')![1]);
-    expect(rows[0]!.children[0]!.textContent).to.equal('quantised LQ');
-    expect(rows[1]!.children[0]!.textContent).to.equal('no steering');
-    expect(share(rows[0]!)).to.be.within(0, 100);
-    expect(share(rows[0]!)).to.be.greaterThan(share(rows[1]!));
+    const strategies = [...doc.querySelectorAll('#loop-table thead th')].map((th) => th.textContent);
+    expect(strategies).to.deep.equal(['constrained LQ', 'no steering']);
+    // First row: mean time in tolerance per strategy.
+    expect(rows[0]!.querySelector('th')!.textContent).to.equal('In tolerance, mean');
+    const share = (i: number) => Number(/([\d.]+) %/.exec(rows[0]!.querySelectorAll('td')[i]!.textContent ?? '')![1]);
+    expect(share(0)).to.be.within(0, 100);
+    expect(share(0)).to.be.greaterThan(share(1));
     expect(doc.getElementById('loop-table')!.hidden).to.equal(false);
     expect(doc.getElementById('loop-status')!.textContent).to.match(/flown in \d+ ms/);
   });

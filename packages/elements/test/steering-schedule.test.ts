@@ -303,6 +303,23 @@ describe('tauline-steering-schedule', () => {
   });
 });
 
+describe('tauline-steering-schedule metrics', () => {
+  it('<tauline-steering-schedule> shows settledAfterSeconds as a duration after the epoch (hours or days), and offsets as offsets', async () => {
+    const el = await fixture<TaulineSteeringSchedule>(html`<tauline-steering-schedule style="width: 760px"></tauline-steering-schedule>`);
+    el.scenario = makeScenario();
+    const shown = async (metrics: Record<string, number>) => {
+      el.plan = { ...makePlan(), metrics };
+      await el.updateComplete;
+      const pairs = [...shadow(el).querySelectorAll('[part~="metrics"] div')].map((d) => [d.querySelector('dt')!.textContent, d.querySelector('dd')!.textContent]);
+      return Object.fromEntries(pairs) as Record<string, string>;
+    };
+    expect((await shown({ settledAfterSeconds: 97_200 }))['settled after']).to.match(/^27(\.0+)? h$/);
+    expect((await shown({ settledAfterSeconds: 3.5 * 86400 }))['settled after']).to.match(/^3\.50? d$/);
+    expect((await shown({ settledAfterSeconds: 0 }))['settled after']).to.match(/^0(\.0+)? h$/);
+    expect((await shown({ worstOffsetSeconds: 4.52e-9 }))['worst offset']).to.match(/ns$/);
+  });
+});
+
 // Leap second at the end of 2016-12-31 (TAI − UTC 36 s → 37 s from 2017-01-01; IERS Bulletin C 52 [M],
 // the same step as in the SDK's bundled table). A plan spanning it: elapsed SI seconds count it.
 describe('tauline-steering-schedule across a leap second', () => {

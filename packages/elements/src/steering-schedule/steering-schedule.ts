@@ -292,6 +292,8 @@ export class TaulineSteeringSchedule extends PlotElement {
     const nice = (k: string): string => k.replace(/([a-z])([A-Z])/g, '$1 $2').replace(/Seconds$| Seconds$/, '').toLowerCase();
     const value = (k: string, v: unknown): string => {
       if (typeof v !== 'number') return String(v);
+      // A time after the epoch (e.g. settledAfterSeconds) is a duration, not a clock offset.
+      if (/afterseconds$/i.test(k)) return v < 2 * 86400 ? `${formatNumber(v / 3600, 3)} h` : `${formatNumber(v / 86400, 3)} d`;
       if (/seconds$/i.test(k)) return formatOffsetAuto(v, 3);
       if (/probability/i.test(k)) return `${formatNumber(v * 100, 4)} %`;
       if (/fractional|frequency/i.test(k)) return formatFraction(v, 3);
