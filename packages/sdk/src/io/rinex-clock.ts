@@ -14,7 +14,7 @@
  *
  * @module
  */
-import { ParseError } from '../errors.js';
+import { InvalidArgumentError, ParseError } from '../errors.js';
 import type { Seconds } from '../units.js';
 import {
   linesOf, parseFortranReal, readLineBatches, scaleSecondsFromFields, validEpochFields, type EpochFields, type TextLine, type TextSource,
@@ -274,6 +274,21 @@ export interface RinexClockSeries {
   readonly timeSystem: string | undefined;
 }
 
+/** Throws unless `file` has the shape {@link parseRinexClock} returns (a hand-made or damaged file is refused, naming the field). */
+function requireClockFile(file: unknown): void {
+  const f = file as Partial<RinexClockFile> | null;
+  if (typeof f !== 'object' || f === null || typeof f.sourceName !== 'string' || typeof f.header !== 'object' || f.header === null
+    || !Array.isArray(f.records)) {
+    throw new InvalidArgumentError('file', file, 'a parsed RINEX clock file (the result of parseRinexClock)');
+  }
+  f.records.forEach((r: Partial<RinexClockRecord> | null, i) => {
+    if (typeof r !== 'object' || r === null || typeof r.name !== 'string' || !Number.isFinite(r.bias) || !Number.isInteger(r.line)
+      || typeof r.epoch !== 'object' || r.epoch === null || !validEpochFields(r.epoch)) {
+      throw new InvalidArgumentError(`file.records[${i}]`, r, 'a record { name, type, epoch, bias (s), line } as parseRinexClock returns');
+    }
+  });
+}
+
 /**
  * Extracts one clock's bias as a uniformly sampled phase series for the stability statistics.
  * Missing epochs become NaN samples listed in `gaps` (never interpolated).
@@ -285,6 +300,9 @@ export interface RinexClockSeries {
  *   a whole multiple of τ0 (line of the offending record).
  */
 export function rinexClockSeries(file: RinexClockFile, name: string, options: { type?: 'AS' | 'AR'; tau0?: Seconds } = {}): RinexClockSeries {
+  requireClockFile(file);
+  if (typeof name !== 'string') throw new InvalidArgumentError('name', name, 'a satellite or receiver name, e.g. "G05"');
+  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an object { type?, tau0? } (or omitted)');
   const recs = file.records.filter((r) => r.name === name && (options.type === undefined || r.type === options.type));
   if (recs.length === 0) {
     const names = [...new Set(file.records.map((r) => r.name))].slice(0, 20).join(', ');

@@ -6,7 +6,7 @@
  */
 import type { Dimensionless, Hertz } from '../units.js';
 import { InvalidArgumentError } from '../errors.js';
-import { requireInteger, requirePositive } from '../internal/validate.js';
+import { requireFrequency, requireInteger, requirePositive } from '../internal/validate.js';
 import { SECONDS_PER_DAY } from '../constants.js';
 
 /** Smallest and largest supported accumulator widths, in bits. */
@@ -78,7 +78,7 @@ function requireWord(word: unknown, bits: number): bigint {
  * @see Phase-accumulator synthesis, J. Tierney, C. Rader & B. Gold, IEEE Trans. Audio Electroacoust. 19 (1971) 48–57 [M].
  */
 export function tuningWordFrequency(word: bigint, clockFrequency: Hertz, bits: number): Hertz {
-  const f = requirePositive('clockFrequency', clockFrequency, 'Hz');
+  const f = requireFrequency('clockFrequency', clockFrequency);
   const n = requireBits(bits);
   const w = requireWord(word, n);
   const clock = decompose(f);
@@ -96,9 +96,9 @@ export function tuningWordFrequency(word: bigint, clockFrequency: Hertz, bits: n
  * @see Phase-accumulator synthesis, f_out = W·f_clk/2^N (Tierney, Rader & Gold 1971) [M].
  */
 export function fractionalResolution(clockFrequency: Hertz, bits: number, relativeTo: Hertz): Dimensionless {
-  const f = requirePositive('clockFrequency', clockFrequency, 'Hz');
+  const f = requireFrequency('clockFrequency', clockFrequency);
   const n = requireBits(bits);
-  const ref = requirePositive('relativeTo', relativeTo, 'Hz');
+  const ref = requireFrequency('relativeTo', relativeTo);
   return scaleByPowerOfTwo(f, -n) / ref;
 }
 
@@ -123,7 +123,7 @@ export function nearestTuningWord(request: { targetFrequency: Hertz; clockFreque
   if (typeof request !== 'object' || request === null) {
     throw new InvalidArgumentError('request', request, 'an object { targetFrequency, clockFrequency, bits }');
   }
-  const clockHz = requirePositive('clockFrequency', request.clockFrequency, 'Hz');
+  const clockHz = requireFrequency('clockFrequency', request.clockFrequency);
   const n = requireBits(request.bits);
   const targetHz = requirePositive('targetFrequency', request.targetFrequency, 'Hz');
   if (targetHz > clockHz / 2) {

@@ -5,7 +5,7 @@
  */
 import type { Dimensionless, Hertz } from '../units.js';
 import { InvalidArgumentError } from '../errors.js';
-import { requireFinite, requirePositive } from '../internal/validate.js';
+import { requireFinite, requireFrequency } from '../internal/validate.js';
 
 /** Result of {@link offsetFrequency}. */
 export interface OffsetFrequency {
@@ -39,7 +39,7 @@ export function requireFractionalOffset(argument: string, value: unknown): Dimen
  * @see IS-GPS-200E §3.3.1.1 [V2]; definition of fractional frequency, e.g. IEEE Std 1139 [M].
  */
 export function offsetFrequency(nominalFrequency: Hertz, fractionalOffset: Dimensionless): OffsetFrequency {
-  const f0 = requirePositive('nominalFrequency', nominalFrequency, 'Hz');
+  const f0 = requireFrequency('nominalFrequency', nominalFrequency);
   const y = requireFractionalOffset('fractionalOffset', fractionalOffset);
   const offsetHz = f0 * y;
   return { offsetFrequencyHz: f0 + offsetHz, offsetHz };

@@ -17,7 +17,7 @@
 import type { Dimensionless, Metres, Radians, Seconds } from '../units.js';
 import { DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
-import { requireEccentricity, requireFinite, requireInRange, requireOrbitRadius } from '../internal/validate.js';
+import { requireConstantSet, requireEccentricity, requireFinite, requireInRange, requireObject, requireOrbitRadius } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 
 function checkInclination(inclination: unknown): number {
@@ -50,6 +50,7 @@ function j2SinTwoUTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLa
  */
 export function j2ResidualPeriodicTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLatitude: Radians,
   constants: ConstantSet = DEFAULT_CONSTANT_SET): Seconds {
+  requireConstantSet('constants', constants);
   return -1.5 * j2SinTwoUTerm(semiMajorAxis, inclination, argumentOfLatitude, constants);
 }
 
@@ -73,6 +74,7 @@ export function j2ResidualPeriodicTerm(semiMajorAxis: Metres, inclination: Radia
  */
 export function j2TotalPeriodicTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLatitude: Radians,
   constants: ConstantSet = DEFAULT_CONSTANT_SET): Seconds {
+  requireConstantSet('constants', constants);
   return -0.5 * j2SinTwoUTerm(semiMajorAxis, inclination, argumentOfLatitude, constants);
 }
 
@@ -97,6 +99,7 @@ export interface J2PeriodicAmplitudes {
  */
 export function j2PeriodicAmplitudes(semiMajorAxis: Metres, inclination: Radians,
   constants: ConstantSet = DEFAULT_CONSTANT_SET): J2PeriodicAmplitudes {
+  requireConstantSet('constants', constants);
   const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
   const i = checkInclination(inclination);
   const s2 = Math.sin(i) ** 2;
@@ -125,6 +128,7 @@ function j2Scale(a: number, c: ConstantSet): number {
  */
 export function osculatingMinusMeanSemiMajorAxis(meanSemiMajorAxis: Metres, inclination: Radians,
   argumentOfLatitude: Radians, constants: ConstantSet = DEFAULT_CONSTANT_SET): Metres {
+  requireConstantSet('constants', constants);
   const a = requireOrbitRadius('meanSemiMajorAxis', meanSemiMajorAxis);
   const i = checkInclination(inclination);
   const u = requireFinite('argumentOfLatitude', argumentOfLatitude, 'a finite angle in radians');
@@ -179,6 +183,8 @@ function meanJ2Potential(a: number, e: number, i: number, c: ConstantSet): numbe
  */
 export function j2SecularClockRate(orbit: { semiMajorAxis: Metres; eccentricity: Dimensionless; inclination: Radians;
   semiMajorAxisKind: SemiMajorAxisKind; argumentOfLatitude?: Radians }, constants: ConstantSet = DEFAULT_CONSTANT_SET): J2RateBreakdown {
+  requireObject('orbit', orbit, 'an object { semiMajorAxis, eccentricity, inclination, semiMajorAxisKind }');
+  requireConstantSet('constants', constants);
   if (typeof orbit !== 'object' || orbit === null) throw new InvalidArgumentError('orbit', orbit, 'an object { semiMajorAxis, eccentricity, inclination, semiMajorAxisKind }');
   const a = requireOrbitRadius('orbit.semiMajorAxis', orbit.semiMajorAxis);
   const e = requireEccentricity('orbit.eccentricity', orbit.eccentricity);
@@ -226,6 +232,7 @@ export function j2SecularClockRate(orbit: { semiMajorAxis: Metres; eccentricity:
  * @see IERS Conventions (2010) §10.2 eq. 10.9 [V1]; our own derivation [C] (see the module comment).
  */
 export function j2SecularClockRateFromState(state: StateVector, constants: ConstantSet = DEFAULT_CONSTANT_SET): J2RateBreakdown {
+  requireConstantSet('constants', constants);
   const { position: p, velocity: v } = requireStateVector(state);
   const r = requireOrbitRadius('|state.position|', Math.hypot(p[0], p[1], p[2]));
   const gm = constants.gm;

@@ -6,6 +6,8 @@
  */
 import { SECONDS_PER_DAY } from '../constants.js';
 import type { ReviewReport, SpacecraftFinding, Verdict } from './types.js';
+import { requireReviewReport } from './report-shape.js';
+import { InvalidArgumentError } from '../errors.js';
 
 const VERDICT_MARK: Record<Verdict, string> = { pass: 'PASS', marginal: 'MARGINAL', fail: 'FAIL' };
 
@@ -25,6 +27,7 @@ const usPerDay = (fraction: number) => fraction * SECONDS_PER_DAY * 1e6;
 
 /** Markdown rendering: one summary table, then a section per spacecraft. */
 export function reviewToMarkdown(report: ReviewReport): string {
+  requireReviewReport('report', report);
   const lines: string[] = [`# ${report.title}`, '', `> ${report.caution}`, '',
     `Result: ${report.counts.pass} pass, ${report.counts.marginal} marginal, ${report.counts.fail} fail.`, '',
     '| spacecraft | verdict | expected offset | configured offset | difference | difference (ns/day) | tolerance |',
@@ -113,6 +116,15 @@ function dispersionSvg(s: SpacecraftFinding, actuatorRange: number | null): stri
  * no external resources). `actuatorRanges` maps spacecraft id to its steering range, for the plot.
  */
 export function reviewToHtml(report: ReviewReport, actuatorRanges: Readonly<Record<string, number>> = {}): string {
+  requireReviewReport('report', report);
+  if (typeof actuatorRanges !== 'object' || actuatorRanges === null || Array.isArray(actuatorRanges)) {
+    throw new InvalidArgumentError('actuatorRanges', actuatorRanges, 'an object mapping spacecraft id to its steering range (fractional)');
+  }
+  for (const [id, range] of Object.entries(actuatorRanges)) {
+    if (typeof range !== 'number' || !(range > 0) || !Number.isFinite(range)) {
+      throw new InvalidArgumentError(`actuatorRanges.${id}`, range, 'a finite fractional steering range > 0');
+    }
+  }
   const rows = report.spacecraft.map((s) => `<tr class="${s.verdict}"><th scope="row">${esc(s.id)}</th><td><span class="verdict ${s.verdict}">${VERDICT_MARK[s.verdict]}</span></td>` +
     `<td>${e(s.expectedFractionalOffset, 6)}</td><td>${e(s.configuredFractionalOffset, 6)}</td><td>${e(s.differenceFractional, 3)}</td><td>${f(s.differenceNanosecondsPerDay, 3)}</td><td>${e(s.toleranceFractional, 2)}</td></tr>`).join('');
   const sections = report.spacecraft.map((s) => {
