@@ -10,7 +10,9 @@
 import { InvalidArgumentError } from '../errors.js';
 import type { Dimensionless, Seconds } from '../units.js';
 import { chiSquareQuantile, chiSquareUpperQuantile } from '../internal/special-functions.js';
-import { requireFinite, requireInRange, requireInteger, requireNonNegative, requirePositive } from '../internal/validate.js';
+import {
+  requireFinite, requireInRange, requireInteger, requireMeasurementVariance, requireNonNegative, requirePhaseSample, requirePositive,
+} from '../internal/validate.js';
 import { add, cholesky, congruence, copyMatrix, multiplyVector, type Matrix } from './linalg.js';
 import { clockProcessNoise, clockTransitionMatrix, requireDiffusion, type ClockDiffusion, type ClockStates } from './noise.js';
 
@@ -537,28 +539,25 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
       throw new InvalidArgumentError('series.t', series.t, `an array of ${n} epochs in seconds (one per phase sample)`);
     }
     for (let i = 0; i < n; i++) {
-      t[i] = requireFinite(`series.t[${i}]`, series.t[i], 'a finite epoch in seconds');
+      t[i] = requirePhaseSample(`series.t[${i}]`, series.t[i], false);
       if (i > 0 && !((t[i] as number) > (t[i - 1] as number))) {
         throw new InvalidArgumentError(`series.t[${i}]`, t[i], `greater than series.t[${i - 1}] = ${t[i - 1]} (strictly increasing epochs)`);
       }
     }
   } else {
-    const tau0 = requirePositive('series.tau0', series.tau0, 's');
+    const tau0 = requireInRange('series.tau0', series.tau0, 1e-9, 1e9, { unit: 's (sample spacing)' });
     for (let i = 0; i < n; i++) t[i] = i * tau0;
   }
   const v = series.variance;
   const varianceAt = (i: number): number => {
-    if (typeof v === 'number') return requirePositive('series.variance', v, 's²');
-    return requirePositive(`series.variance[${i}]`, v[i], 's²');
+    if (typeof v === 'number') return requireMeasurementVariance('series.variance', v);
+    return requireMeasurementVariance(`series.variance[${i}]`, v[i]);
   };
   if (typeof v !== 'number' && (!v || typeof v.length !== 'number' || v.length !== n)) {
     throw new InvalidArgumentError('series.variance', v, `a variance in s² or an array of ${n} variances`);
   }
   for (let i = 0; i < n; i++) {
-    const zi = z[i];
-    if (typeof zi !== 'number' || (!Number.isFinite(zi) && !Number.isNaN(zi))) {
-      throw new InvalidArgumentError(`series.phase[${i}]`, zi, 'a finite phase in seconds, or NaN for a missing sample');
-    }
+    requirePhaseSample(`series.phase[${i}]`, z[i], true);
   }
   const first = Array.prototype.findIndex.call(z, (x: number) => !Number.isNaN(x));
   if (first < 0) throw new InvalidArgumentError('series.phase', 'all NaN', 'at least one valid phase sample');

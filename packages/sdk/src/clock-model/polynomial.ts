@@ -6,7 +6,7 @@
  */
 import { InvalidArgumentError } from '../errors.js';
 import type { Seconds } from '../units.js';
-import { requireFinite, requirePositive } from '../internal/validate.js';
+import { requireFinite, requireMeasurementVariance, requirePhaseSample } from '../internal/validate.js';
 import type { Matrix } from './linalg.js';
 
 /** Options of {@link fitClockPolynomial}. */
@@ -90,9 +90,9 @@ export function fitClockPolynomial(t: ArrayLike<number>, phase: ArrayLike<number
     throw new InvalidArgumentError('options.variance', v, `a variance in s² or an array of ${n} variances`);
   }
   for (let i = 0; i < n; i++) {
-    tt[i] = requireFinite(`t[${i}]`, t[i], 'a finite epoch in seconds');
-    zz[i] = requireFinite(`phase[${i}]`, phase[i], 'a finite phase in seconds');
-    w[i] = v === undefined ? 1 : 1 / (typeof v === 'number' ? requirePositive('options.variance', v, 's²') : requirePositive(`options.variance[${i}]`, v[i], 's²'));
+    tt[i] = requirePhaseSample(`t[${i}]`, t[i], false);
+    zz[i] = requirePhaseSample(`phase[${i}]`, phase[i], false);
+    w[i] = v === undefined ? 1 : 1 / (typeof v === 'number' ? requireMeasurementVariance('options.variance', v) : requireMeasurementVariance(`options.variance[${i}]`, v[i]));
   }
   const t0 = options.referenceTime === undefined ? (tt[0] as number) : requireFinite('options.referenceTime', options.referenceTime, 'a finite epoch in seconds');
   let tMin = Infinity;

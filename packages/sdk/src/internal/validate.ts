@@ -148,3 +148,28 @@ export const FREQUENCY_RANGE_HZ = { min: 1, max: 1e12 } as const;
 export function requireFrequency(argument: string, value: unknown): number {
   return requireInRange(argument, value, FREQUENCY_RANGE_HZ.min, FREQUENCY_RANGE_HZ.max, { unit: 'Hz' });
 }
+
+/** Throws unless `value` is a file name or label for reader messages (a string). */
+export function requireSourceName(argument: string, value: unknown): string {
+  if (typeof value !== 'string') throw new InvalidArgumentError(argument, value, 'a file name or label (a string)');
+  return value;
+}
+
+/**
+ * Largest |phase| (time error) accepted in clock data, in seconds (31 700 years; our own bound that
+ * keeps sums of squares finite), and the accepted range of a measurement variance, in s².
+ */
+export const MAX_ABS_PHASE_SECONDS = 1e12;
+export const MEASUREMENT_VARIANCE_RANGE = { min: 1e-40, max: 1e24 } as const;
+
+/** Throws unless `value` is a phase sample in seconds, |value| ≤ MAX_ABS_PHASE_SECONDS (NaN allowed as "missing" when `missingAllowed`). */
+export function requirePhaseSample(argument: string, value: unknown, missingAllowed: boolean): number {
+  if (missingAllowed && typeof value === 'number' && Number.isNaN(value)) return value;
+  return requireInRange(argument, value, -MAX_ABS_PHASE_SECONDS, MAX_ABS_PHASE_SECONDS,
+    { unit: `s${missingAllowed ? ', or NaN for a missing sample' : ''}` });
+}
+
+/** Throws unless `value` is a measurement variance in s² within MEASUREMENT_VARIANCE_RANGE. */
+export function requireMeasurementVariance(argument: string, value: unknown): number {
+  return requireInRange(argument, value, MEASUREMENT_VARIANCE_RANGE.min, MEASUREMENT_VARIANCE_RANGE.max, { unit: 's²' });
+}

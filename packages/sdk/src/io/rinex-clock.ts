@@ -20,6 +20,7 @@ import {
   linesOf, parseFortranReal, readLineBatches, scaleSecondsFromFields, validEpochFields, type EpochFields, type TextLine, type TextSource,
 } from './line-reader.js';
 import { regularizeSeries, type SampleGap } from './phase-text.js';
+import { requireSourceName } from '../internal/validate.js';
 
 /** Header fields the reader interprets. */
 export interface RinexClockHeader {
@@ -92,7 +93,7 @@ class RinexClockBuilder {
   private _pending: { type: string; name: string; epoch: EpochFields; count: number; values: number[]; line: number } | undefined;
 
   constructor(sourceName: string) {
-    this._name = sourceName;
+    this._name = requireSourceName('sourceName', sourceName);
   }
 
   add(line: TextLine): void {

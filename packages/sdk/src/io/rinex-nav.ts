@@ -18,6 +18,7 @@ import { ParseError } from '../errors.js';
 import type { Seconds } from '../units.js';
 import type { KeplerianBroadcastEphemeris, KeplerianNavMessage, KeplerianSystem } from '../orbit/broadcast.js';
 import { defaultFitIntervalSeconds, isBeidouGeostationary } from '../orbit/broadcast.js';
+import { requireOptions, requireSourceName } from '../internal/validate.js';
 import {
   type EpochFields, type TextLine, type TextSource, linesOf, parseFortranReal, readLineBatches, scaleSecondsFromFields,
   validEpochFields,
@@ -157,7 +158,8 @@ export class RinexNavParser {
   private _lastLine = 0;
 
   constructor(options: RinexNavReadOptions = {}) {
-    this._source = options.sourceName ?? 'rinex-nav';
+    requireOptions('options', options);
+    this._source = options.sourceName === undefined ? 'rinex-nav' : requireSourceName('options.sourceName', options.sourceName);
   }
 
   /** Feeds one line; returns the events it completed. @throws {ParseError} */

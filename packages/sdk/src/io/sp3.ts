@@ -16,6 +16,7 @@
  */
 import { ParseError } from '../errors.js';
 import type { Seconds, Vector3 } from '../units.js';
+import { requireOptions, requireSourceName } from '../internal/validate.js';
 import {
   type EpochFields, type TextLine, type TextSource, linesOf, readLineBatches, scaleSecondsFromFields, validEpochFields,
 } from './line-reader.js';
@@ -145,7 +146,8 @@ export class Sp3Parser {
   private _lastScaleSeconds = -Infinity;
 
   constructor(options: Sp3ReadOptions = {}) {
-    this._source = options.sourceName ?? 'sp3';
+    requireOptions('options', options);
+    this._source = options.sourceName === undefined ? 'sp3' : requireSourceName('options.sourceName', options.sourceName);
   }
 
   private _error(line: TextLine, column: number | undefined, expected: string, found?: string): ParseError {

@@ -11,7 +11,7 @@
  */
 import type { Seconds, Vector3 } from '../units.js';
 import { InvalidArgumentError } from '../errors.js';
-import { requireInteger } from '../internal/validate.js';
+import { requireInRange, requireInteger } from '../internal/validate.js';
 import type { EpochFields } from '../io/line-reader.js';
 import type { Sp3Epoch } from '../io/sp3.js';
 import { periodicCorrectionFromState } from './periodic.js';
@@ -36,12 +36,41 @@ const EARTH_RADIUS = 6_378_137;
  * @see J.-P. Berrut & L. N. Trefethen, "Barycentric Lagrange Interpolation", SIAM Review 46(3) (2004) 501–517, §9 [M].
  */
 export function lagrangeDerivativeAtNode(times: ArrayLike<number>, values: ArrayLike<number>, index: number): number {
-  const n = times.length;
-  if (n < 2 || values.length !== n) {
-    throw new InvalidArgumentError('times', n, `at least 2 nodes and as many values (${values.length})`);
-  }
+  const n = requireNodes(times, values, 2);
   requireInteger('index', index, 0, n - 1);
-  return applyDerivativeRow(derivativeRow(times, index), values, index);
+  return requireFiniteResult(applyDerivativeRow(derivativeRow(times, index), values, index), times);
+}
+
+/** Most nodes accepted by the public Lagrange helpers (higher degrees are ill-conditioned; common practice, no source). */
+const MAX_LAGRANGE_NODES = 32;
+/** Largest |abscissa| (s) and |ordinate| accepted by the public Lagrange helpers (our own bounds). */
+const MAX_ABS_NODE = 1e12;
+const MAX_ABS_ORDINATE = 1e15;
+
+/** Validates the node arrays of the public Lagrange helpers; returns the node count. */
+function requireNodes(times: unknown, values: unknown, min: number): number {
+  const isArray = (v: unknown) => Array.isArray(v) || v instanceof Float64Array;
+  if (!isArray(times)) throw new InvalidArgumentError('times', times, 'an array of node abscissae in seconds');
+  if (!isArray(values)) throw new InvalidArgumentError('values', values, 'an array of ordinates, one per node');
+  const t = times as ArrayLike<unknown>;
+  const v = values as ArrayLike<unknown>;
+  const n = t.length;
+  if (n < min || n > MAX_LAGRANGE_NODES || v.length !== n) {
+    throw new InvalidArgumentError('times', n, `${min} to ${MAX_LAGRANGE_NODES} nodes and as many values (${v.length})`);
+  }
+  for (let j = 0; j < n; j++) {
+    requireInRange(`times[${j}]`, t[j], -MAX_ABS_NODE, MAX_ABS_NODE, { unit: 's' });
+    requireInRange(`values[${j}]`, v[j], -MAX_ABS_ORDINATE, MAX_ABS_ORDINATE);
+  }
+  return n;
+}
+
+/** Refuses a non-finite interpolation result, which only nodes packed far closer than their span produce. */
+function requireFiniteResult(result: number, times: ArrayLike<number>): number {
+  if (!Number.isFinite(result)) {
+    throw new InvalidArgumentError('times', Array.from(times), 'nodes whose spacing is not negligible against their span (the barycentric weights overflow)');
+  }
+  return result;
 }
 
 /**
@@ -91,9 +120,8 @@ function applyDerivativeRow(row: Float64Array, values: ArrayLike<number>, index:
  * @see Berrut & Trefethen (2004) eq. 4.2 [M].
  */
 export function lagrangeInterpolate(times: ArrayLike<number>, values: ArrayLike<number>, t: number): number {
-  const n = times.length;
-  if (n < 1 || values.length !== n) throw new InvalidArgumentError('times', n, `at least 1 node and as many values (${values.length})`);
-  if (!Number.isFinite(t)) throw new InvalidArgumentError('t', t, 'a finite abscissa in seconds');
+  const n = requireNodes(times, values, 1);
+  requireInRange('t', t, -MAX_ABS_NODE, MAX_ABS_NODE, { unit: 's' });
   const lambda = barycentricWeights(times);
   let num = 0;
   let den = 0;
@@ -104,7 +132,7 @@ export function lagrangeInterpolate(times: ArrayLike<number>, values: ArrayLike<
     num += w * values[j]!;
     den += w;
   }
-  return num / den;
+  return requireFiniteResult(num / den, times);
 }
 
 function barycentricWeights(times: ArrayLike<number>): number[] {
