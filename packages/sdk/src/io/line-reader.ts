@@ -39,6 +39,7 @@ export class LineSplitter {
 
   /** Feeds one chunk; returns the lines it completed. */
   push(chunk: string): TextLine[] {
+    if (typeof chunk !== 'string') throw new InvalidArgumentError('chunk', chunk, 'a string of text');
     const lines: TextLine[] = [];
     let start = 0;
     for (;;) {
@@ -91,6 +92,15 @@ function* piecesOf(source: string | Iterable<string>): Generator<string> {
   }
 }
 
+/** Throws unless `line` is a {@link TextLine} (the parsers' push methods take lines from this module's splitter). */
+export function requireTextLine(line: unknown): TextLine {
+  const l = line as Partial<TextLine> | null;
+  if (typeof l !== 'object' || l === null || typeof l.text !== 'string' || !Number.isSafeInteger(l.lineNumber) || (l.lineNumber as number) < 1) {
+    throw new InvalidArgumentError('line', line, 'a line { text, lineNumber ≥ 1 } as linesOf/readLines yield');
+  }
+  return l as TextLine;
+}
+
 /** A chunk as text; a value that cannot be turned into text is refused (typed), never a TypeError. */
 function chunkText(chunk: unknown): string {
   if (typeof chunk === 'string') return chunk;
@@ -133,7 +143,7 @@ export async function* readLineBatches(source: TextSource): AsyncGenerator<reado
   const splitter = new LineSplitter();
   if (isAsyncIterable(source)) {
     for await (const chunk of source) {
-      const lines = splitter.push(String(chunk));
+      const lines = splitter.push(chunkText(chunk));
       if (lines.length > 0) yield lines;
     }
   } else {

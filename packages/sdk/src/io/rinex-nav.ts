@@ -20,7 +20,7 @@ import type { KeplerianBroadcastEphemeris, KeplerianNavMessage, KeplerianSystem 
 import { defaultFitIntervalSeconds, isBeidouGeostationary } from '../orbit/broadcast.js';
 import { requireOptions, requireSourceName } from '../internal/validate.js';
 import {
-  type EpochFields, type TextLine, type TextSource, linesOf, parseFortranReal, readLineBatches, scaleSecondsFromFields,
+  type EpochFields, type TextLine, type TextSource, linesOf, parseFortranReal, requireTextLine, readLineBatches, scaleSecondsFromFields,
   validEpochFields,
 } from './line-reader.js';
 
@@ -164,6 +164,7 @@ export class RinexNavParser {
 
   /** Feeds one line; returns the events it completed. @throws {ParseError} */
   push(line: TextLine): RinexNavEvent[] {
+    requireTextLine(line);
     this._lastLine = line.lineNumber;
     if (this._state === 'first') {
       this._readVersionLine(line);

@@ -18,7 +18,7 @@ import { ParseError } from '../errors.js';
 import type { Seconds, Vector3 } from '../units.js';
 import { requireOptions, requireSourceName } from '../internal/validate.js';
 import {
-  type EpochFields, type TextLine, type TextSource, linesOf, readLineBatches, scaleSecondsFromFields, validEpochFields,
+  type EpochFields, type TextLine, type TextSource, linesOf, readLineBatches, requireTextLine, scaleSecondsFromFields, validEpochFields,
 } from './line-reader.js';
 
 /** SP3 time-system identifiers (SP3-c/d `%c` line, columns 10-12 [M]). */
@@ -156,6 +156,7 @@ export class Sp3Parser {
 
   /** Feeds one line; returns the events it completed. @throws {ParseError} */
   push(line: TextLine): Sp3Event[] {
+    requireTextLine(line);
     this._lastLine = line.lineNumber;
     const t = line.text;
     switch (this._stage) {

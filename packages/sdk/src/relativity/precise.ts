@@ -11,7 +11,8 @@
  */
 import type { Seconds, Vector3 } from '../units.js';
 import { InvalidArgumentError } from '../errors.js';
-import { requireInRange, requireInteger } from '../internal/validate.js';
+import { requireInRange, requireInteger, requireVector3 } from '../internal/validate.js';
+import { validEpochFields } from '../io/line-reader.js';
 import type { EpochFields } from '../io/line-reader.js';
 import type { Sp3Epoch } from '../io/sp3.js';
 import { periodicCorrectionFromState } from './periodic.js';
@@ -203,6 +204,23 @@ export interface PreciseCorrectionOptions {
 interface Node { readonly t: number; readonly p: Vector3 }
 interface Target { readonly time: EpochFields; readonly t: number; readonly p: Vector3 | undefined; readonly v: Vector3 | undefined; readonly missing?: string }
 
+/** Throws unless `epoch` has the shape the SP3 reader produces (time fields, scale seconds, records with finite vectors). */
+function requireSp3Epoch(epoch: unknown): void {
+  const e = epoch as Partial<Sp3Epoch> | null;
+  if (typeof e !== 'object' || e === null || typeof e.time !== 'object' || e.time === null || !validEpochFields(e.time)
+    || !Number.isFinite(e.scaleSeconds) || !Array.isArray(e.records)) {
+    throw new InvalidArgumentError('epoch', epoch, 'an SP3 epoch { time, scaleSeconds, records } as readSp3 yields');
+  }
+  e.records.forEach((r: unknown, i) => {
+    const rec = r as Partial<Sp3Epoch['records'][number]> | null;
+    if (typeof rec !== 'object' || rec === null || typeof rec.satellite !== 'string') {
+      throw new InvalidArgumentError(`epoch.records[${i}]`, r, 'a satellite record { satellite, position?, velocity? }');
+    }
+    if (rec.position !== undefined) requireVector3(`epoch.records[${i}].position`, rec.position, 'm');
+    if (rec.velocity !== undefined) requireVector3(`epoch.records[${i}].velocity`, rec.velocity, 'm/s');
+  });
+}
+
 /**
  * Computes −2 r·v/c² epoch by epoch from a stream of SP3 epochs, with bounded memory (per
  * satellite, the Lagrange window and the epochs still waiting for later positions).
@@ -241,6 +259,7 @@ export class PreciseCorrectionStream {
 
   /** Feeds one epoch (epochs in increasing time). Returns the results completed. */
   push(epoch: Sp3Epoch): PreciseCorrectionResult[] {
+    requireSp3Epoch(epoch);
     const out: PreciseCorrectionResult[] = [];
     const present = new Set<string>();
     for (const rec of epoch.records) {
@@ -378,6 +397,11 @@ function nearest(nodes: readonly Node[], t: number, count: number): Node[] {
 export async function* preciseRelativisticCorrections(epochs: Iterable<Sp3Epoch> | AsyncIterable<Sp3Epoch>,
   options: PreciseCorrectionOptions): AsyncGenerator<PreciseCorrectionResult> {
   const stream = new PreciseCorrectionStream(options);
+  const iterable = epochs as Partial<AsyncIterable<Sp3Epoch> & Iterable<Sp3Epoch>> | null;
+  if (typeof iterable !== 'object' || iterable === null
+    || (typeof iterable[Symbol.asyncIterator] !== 'function' && typeof iterable[Symbol.iterator] !== 'function')) {
+    throw new InvalidArgumentError('epochs', epochs, 'an iterable or async iterable of SP3 epochs (e.g. from readSp3)');
+  }
   for await (const epoch of epochs) yield* stream.push(epoch);
   yield* stream.finish();
 }

@@ -7,7 +7,8 @@
  */
 import { readFileSync } from 'node:fs';
 import {
-  BUNDLED_LEAP_SECONDS, GPS_ICD, IERS_2010, Instant, analyzeStability, integrateProperTime, parseRinexClock, parseRinexNav, parseSp3,
+  BUNDLED_LEAP_SECONDS, ClockKalmanFilter, GPS_ICD, IERS_2010, Instant, LineSplitter, PreciseCorrectionStream, RinexNavParser,
+  Sp3Parser, analyzeStability, createTimeScales, integrateProperTime, parseRinexClock, parseRinexNav, parseSp3,
   planSteering, reviewOffsets, simulateClock, type KeplerianBroadcastEphemeris,
 } from '../../src/index.js';
 
@@ -183,4 +184,31 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
   diffusionFromStabilityRows: () => [built().rows, { states: 2 }],
   measurementNoiseFromPhase: () => [PHASE],
   polynomialNoiseCovariance: () => [TIMES.slice(0, 16), { degree: 1, referenceTime: 0, q: Q2, measurementVariance: 4e-20 }],
+};
+
+/**
+ * A fresh valid instance of each exported class (and of the object createTimeScales returns), whose
+ * methods the property test calls with hostile arguments. Classes without an entry still get their
+ * constructor and static methods tested.
+ */
+export const INSTANCES: Readonly<Record<string, () => object>> = {
+  Instant: () => Instant.fromTaiSeconds(8e8),
+  LineSplitter: () => new LineSplitter(),
+  RinexNavParser: () => new RinexNavParser({ sourceName: 'n.rnx' }),
+  Sp3Parser: () => new Sp3Parser({ sourceName: 'o.sp3' }),
+  PreciseCorrectionStream: () => new PreciseCorrectionStream({ epochInterval: 900 }),
+  ClockKalmanFilter: () => new ClockKalmanFilter({ q: Q2, initial: ESTIMATE }),
+  'createTimeScales()': () => createTimeScales(BUNDLED_LEAP_SECONDS),
+};
+
+/** Valid arguments of the generator and async exports (text sources as strings, arrays or async chunk streams). */
+export const VALID_STREAM_CALLS: Readonly<Record<string, () => unknown[]>> = {
+  linesOf: () => ['a\nb\n'],
+  readLines: () => ['a\nb\n'],
+  readLineBatches: () => [['a\n', 'b\n']],
+  readPhaseText: () => ['0 0\n1 1e-9\n2 2e-9\n', { sourceName: 'p.txt' }],
+  readRinexClock: () => [CLK_TEXT, 'c.clk'],
+  readRinexNav: () => [NAV_TEXT],
+  readSp3: () => [SP3_TEXT],
+  preciseRelativisticCorrections: () => [parseSp3(SP3_TEXT).epochs, { epochInterval: 900 }],
 };
