@@ -6,7 +6,7 @@
  */
 import { InvalidArgumentError } from '../errors.js';
 import type { Seconds } from '../units.js';
-import { requireFinite, requireMeasurementVariance, requirePhaseSample } from '../internal/validate.js';
+import { requireFinite, requireMeasurementVariance, requireOptions, requirePhaseSample } from '../internal/validate.js';
 import type { Matrix } from './linalg.js';
 
 /** Options of {@link fitClockPolynomial}. */
@@ -76,7 +76,7 @@ export function fitClockPolynomial(t: ArrayLike<number>, phase: ArrayLike<number
   if (!phase || typeof phase.length !== 'number' || phase.length !== t.length) {
     throw new InvalidArgumentError('phase', phase, `an array of phases in seconds with the same length as t (${t.length})`);
   }
-  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an options object');
+  requireOptions('options', options);
   const degree = options.degree === undefined ? 2 : options.degree;
   if (degree !== 1 && degree !== 2) throw new InvalidArgumentError('options.degree', degree, '1 or 2');
   const p = degree + 1;

@@ -13,7 +13,9 @@
 import type { Seconds, Vector3 } from '../units.js';
 import { DEFAULT_CONSTANT_SET, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
 import { InvalidArgumentError, OutOfDomainError } from '../errors.js';
-import { requireConstantSet, requireFinite, requireObject, requireOptions, requireOrbitRadius, requirePositive, requireVector3 } from '../internal/validate.js';
+import {
+  requireConstantSet, requireFinite, requireInRange, requireObject, requireOptions, requireOrbitRadius, requirePositive, requireVector3,
+} from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 import { integrateDop853 } from '../orbit/integrator.js';
 import { createGravityField, GRAVITY_MODELS, type GravityModel } from '../orbit/forces.js';
@@ -57,6 +59,9 @@ export interface ProperTimeResult {
   readonly rejectedSteps: number;
 }
 
+/** Longest integration accepted, in seconds (about 317 years; our own bound, far beyond any clock analysis). */
+const MAX_PROPER_TIME_DURATION = 1e10;
+
 /**
  * Integrates an orbit together with its clock's proper time τ − TT.
  *
@@ -90,7 +95,7 @@ export function integrateProperTime(state: StateVector, duration: Seconds, step:
   requireOrbitRadius('|state.position|', r0);
   const rMin = constants.equatorialRadius;
   if (r0 <= rMin) throw new InvalidArgumentError('|state.position|', r0, `above the Earth's equatorial radius (${rMin} m)`);
-  requirePositive('duration', duration, 's');
+  requireInRange('duration', duration, 0, MAX_PROPER_TIME_DURATION, { minExclusive: true, unit: 's' });
   requirePositive('step', step, 's');
   if (step > duration) throw new InvalidArgumentError('step', step, `at most the duration (${duration} s)`, 'the step is the spacing of the output samples');
   const model = options.model ?? 'j2';

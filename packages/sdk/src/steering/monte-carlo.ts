@@ -5,7 +5,6 @@
  *
  * @module
  */
-import { InvalidArgumentError } from '../errors.js';
 import { requireInteger, requireObject } from '../internal/validate.js';
 import { MAX_SEED } from '../internal/random.js';
 import { choleskyPsd3, processNoise, type Matrix3 } from './clock-math.js';
@@ -58,7 +57,7 @@ export interface SimulationSummary {
  * @throws {OutOfDomainError} for stamps outside the leap-second table (see `validateScenario`).
  */
 export function simulatePlan(scenario: unknown, plan: Pick<SteeringPlan, 'commands'>, options: SimulationOptions): SimulationSummary {
-  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an object with runs');
+  requireObject('options', options, 'an object with runs');
   const norm = validateScenario(scenario, { timeScales: resolveTimeScales(options) });
   const runs = requireInteger('options.runs', options.runs, 1, 1_000_000);
   const seed = options.seed === undefined ? 1 : requireInteger('options.seed', options.seed, 0, MAX_SEED);
