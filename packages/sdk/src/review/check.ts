@@ -25,7 +25,7 @@ export const REVIEW_CAUTION =
 export interface ReviewOptions {
   /** Fraction of the tolerance above which a passing difference is only "marginal", in (0, 1] (default 0.5). */
   readonly marginalFraction?: number;
-  /** Runs of the dispersion Monte Carlo, an integer in [1, 1 000 000] (default 20 000; the bound keeps one spacecraft's draws at 8 MB). */
+  /** Runs of the dispersion Monte Carlo, an integer in [1, 10 000 000] (default 20 000; the bound keeps one spacecraft's draws at 80 MB). */
   readonly monteCarloRuns?: number;
   /** Seed of the dispersion Monte Carlo, an integer in [0, 2^32 − 1] (default 1), so reports are reproducible. */
   readonly seed?: number;
@@ -33,8 +33,8 @@ export interface ReviewOptions {
   readonly defaultToleranceFractional?: number;
 }
 
-/** Most dispersion Monte Carlo runs a review accepts (8 MB of draws per spacecraft). */
-const MAX_REVIEW_MONTE_CARLO_RUNS = 1_000_000;
+/** Most dispersion Monte Carlo runs a review accepts (80 MB of draws per spacecraft; the CLI's --runs has the same bound). */
+const MAX_REVIEW_MONTE_CARLO_RUNS = 10_000_000;
 
 /**
  * Nominal semi-major axes of well-known orbit classes, used only to name the orbit an
