@@ -167,7 +167,7 @@ function tidal(gmB: number, b: Vector3, x: number, y: number, z: number): number
  * Point-mass potential U = GM/r, in m²/s².
  * @param position Geocentric position, metres.
  * @param gm Gravitational parameter, m³/s².
- * @throws {InvalidArgumentError} for a non-finite position, r = 0, or a non-positive GM.
+ * @throws {InvalidArgumentError} for a non-finite position, |r| outside [1, 1e13] m, or GM outside (0, 1e21] m³/s².
  * @see IERS Conventions (2010) §10.2 (U_E, positive convention) [V1].
  */
 export function pointMassPotential(position: Vector3, gm: CubicMetresPerSecondSquared = DEFAULT_CONSTANT_SET.gm): SquareMetresPerSecondSquared {
@@ -181,7 +181,7 @@ export function pointMassPotential(position: Vector3, gm: CubicMetresPerSecondSq
  * The J2 part of the Earth's potential, U_J2 = −(GM J2 a_e²/(2 r³))(3 sin²φ − 1), sin φ = z/r, in m²/s².
  * @param position Geocentric position in a frame with z along the rotation axis, metres.
  * @param constants GM, J2 and a_e (default IERS 2010).
- * @throws {InvalidArgumentError} for a non-finite position or r = 0.
+ * @throws {InvalidArgumentError} for a non-finite position, |r| outside [1, 1e13] m or a malformed constant set.
  * @see W. A. Heiskanen & H. Moritz, Physical Geodesy (1967), §2-9 zonal harmonics [M]; sign convention of IERS 2010 §10.2 [V1].
  */
 export function j2Potential(position: Vector3, constants: ConstantSet = DEFAULT_CONSTANT_SET): SquareMetresPerSecondSquared {
@@ -196,7 +196,7 @@ export function j2Potential(position: Vector3, constants: ConstantSet = DEFAULT_
  * @param position Geocentric position of the clock, metres.
  * @param bodyPosition Geocentric position of the body, metres.
  * @param gmBody Gravitational parameter of the body, m³/s².
- * @throws {InvalidArgumentError} for non-finite vectors or a non-positive GM.
+ * @throws {InvalidArgumentError} for non-finite vectors, distances outside [1, 1e13] m, the body within 1 m of the position, or GM outside (0, 1e21] m³/s².
  * @see IERS Conventions (2010) §10.2 eq. 10.6 (tidal terms V(X_A) − V(X_E) − x^i ∂_i V(X_E)) [V1].
  */
 export function thirdBodyTidalPotential(position: Vector3, bodyPosition: Vector3, gmBody: CubicMetresPerSecondSquared): SquareMetresPerSecondSquared {
@@ -214,7 +214,7 @@ export function thirdBodyTidalPotential(position: Vector3, bodyPosition: Vector3
  * @param position Geocentric position of the satellite, metres.
  * @param bodyPosition Geocentric position of the body, metres.
  * @param gmBody Gravitational parameter of the body, m³/s².
- * @throws {InvalidArgumentError} for non-finite vectors or a non-positive GM.
+ * @throws {InvalidArgumentError} for non-finite vectors, distances outside [1, 1e13] m, the body within 1 m of the position, or GM outside (0, 1e21] m³/s².
  * @see O. Montenbruck & E. Gill, Satellite Orbits (2000), eq. (3.37) [M].
  */
 export function thirdBodyAcceleration(position: Vector3, bodyPosition: Vector3, gmBody: CubicMetresPerSecondSquared): Vector3 {

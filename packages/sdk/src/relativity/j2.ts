@@ -17,7 +17,7 @@
 import type { Dimensionless, Metres, Radians, Seconds } from '../units.js';
 import { DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
-import { requireConstantSet, requireEccentricity, requireFinite, requireInRange, requireObject, requireOrbitRadius } from '../internal/validate.js';
+import { requireConstantSet, requireEccentricity, requireFinite, requireInRange, requireOrbitRadius } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 
 function checkInclination(inclination: unknown): number {
@@ -183,7 +183,6 @@ function meanJ2Potential(a: number, e: number, i: number, c: ConstantSet): numbe
  */
 export function j2SecularClockRate(orbit: { semiMajorAxis: Metres; eccentricity: Dimensionless; inclination: Radians;
   semiMajorAxisKind: SemiMajorAxisKind; argumentOfLatitude?: Radians }, constants: ConstantSet = DEFAULT_CONSTANT_SET): J2RateBreakdown {
-  requireObject('orbit', orbit, 'an object { semiMajorAxis, eccentricity, inclination, semiMajorAxisKind }');
   requireConstantSet('constants', constants);
   if (typeof orbit !== 'object' || orbit === null) throw new InvalidArgumentError('orbit', orbit, 'an object { semiMajorAxis, eccentricity, inclination, semiMajorAxisKind }');
   const a = requireOrbitRadius('orbit.semiMajorAxis', orbit.semiMajorAxis);
