@@ -2,7 +2,7 @@
 // before the CLI and the elements are type-checked against it.
 import typescript from '@rollup/plugin-typescript';
 import { nodeResolve } from '@rollup/plugin-node-resolve';
-import { readFileSync } from 'node:fs';
+import { readFileSync, rmSync } from 'node:fs';
 
 /** Entry points come from the package's `exports` map, so a new subpath needs no change here. */
 function entriesFromExports(name) {
@@ -10,6 +10,8 @@ function entriesFromExports(name) {
   const entries = {};
   for (const [subpath, target] of Object.entries(manifest.exports ?? {})) {
     if (typeof target !== 'object') continue;
+    // The one-file bundles (./bundle) are built from dist/ by scripts/build-bundles.mjs, not here.
+    if (target.import.startsWith('./dist/bundle/')) continue;
     const js = target.import.replace(/^\.\/dist\//, '').replace(/\.js$/, '');
     entries[js] = `packages/${name}/src/${js}.ts`;
     void subpath;
@@ -37,8 +39,21 @@ function pkg(name, input) {
   };
 }
 
+/**
+ * The demo console's scripts bundled with the built packages and Lit's production build into
+ * demo/dist/, so the demo server (demo/server.mjs) serves a handful of fixed files and no module
+ * resolution. Runs last: it imports the packages' dist/.
+ */
+rmSync('demo/dist', { recursive: true, force: true }); // no stale chunk is ever served
+const demo = {
+  input: { console: 'demo/console.js', stress: 'demo/stress.js' },
+  output: { dir: 'demo/dist', format: 'es', sourcemap: true, entryFileNames: '[name].js', chunkFileNames: 'shared-[hash].js' },
+  plugins: [nodeResolve({ browser: true, exportConditions: ['production'] })],
+};
+
 export default [
   pkg('sdk', entriesFromExports('sdk')),
   pkg('cli', { main: 'packages/cli/src/main.ts' }),
   pkg('elements', entriesFromExports('elements')),
+  demo,
 ];

@@ -3,6 +3,7 @@
 import '@tauline/elements';
 import {
   meanClockRate, j2SecularClockRate, rateChangeForSemiMajorAxisChange, planSteering, analyzeStability, reviewOffsets,
+  simulateClosedLoop,
 } from '@tauline/sdk';
 import { SATELLITES, scenarioFor, reviewDocument, clockRecord } from './constellation.js';
 
@@ -29,6 +30,58 @@ function setSatellite(index) {
   recompute();
 }
 
+/** Display text of a number with the typographic minus (U+2212), as the elements print them. */
+const minus = (text) => String(text).replace(/-/g, '\u2212');
+const grouped = (v) => minus(v.toLocaleString('en', { maximumFractionDigits: 3 }).replace(/,/g, '\u202f'));
+
+/**
+ * The what-if fields: unit, accepted range and how to explain a bad value. `check` returns null for a
+ * valid number or the message shown next to the field.
+ */
+const FIELDS = {
+  sma: { name: 'the semi-major axis', unit: 'km', min: 20_000, max: 45_000,
+    // A value that reads as a valid orbit once divided by 1000 was typed in metres.
+    hint: (v) => (v / 1000 >= 20_000 && v / 1000 <= 45_000 ? `${grouped(v)} looks like metres: this field takes kilometres (${grouped(v / 1000)} km).` : null) },
+  tol: { name: 'the phase tolerance', unit: 'ns', min: 2, max: 500, hint: () => null },
+  dA: { name: 'the manoeuvre Δa', unit: 'm', min: -50_000, max: 50_000, hint: () => null },
+};
+
+/** The error message for field `id` holding `input`, or null when its value can be used. */
+function fieldError(id, input) {
+  const f = FIELDS[id];
+  const range = `${grouped(f.min)} to ${grouped(f.max)} ${f.unit}`;
+  if (input.validity.badInput) return `Not a number: enter ${f.name} in ${f.unit} (${range}).`;
+  if (input.value.trim() === '') return `Empty: enter ${f.name} in ${f.unit} (${range}).`;
+  const v = Number(input.value);
+  if (v >= f.min && v <= f.max) return null;
+  return f.hint(v) ?? `${grouped(v)} ${f.unit} is ${v < f.min ? 'below the minimum' : 'above the maximum'}: ${f.name} must be ${range}.`;
+}
+
+/** Shows or clears the field's error next to it (aria-invalid, aria-describedby); true when valid. */
+function showFieldError(id) {
+  const input = $(id), out = $(`${id}-error`);
+  const message = fieldError(id, input);
+  out.textContent = message ?? '';
+  out.hidden = message === null;
+  if (message) { input.setAttribute('aria-invalid', 'true'); input.setAttribute('aria-describedby', `${id}-error`); }
+  else { input.removeAttribute('aria-invalid'); input.removeAttribute('aria-describedby'); }
+  return message === null;
+}
+
+/** Validates every what-if field; when one is invalid, marks the shown results stale and says so. */
+function inputsValid() {
+  const bad = Object.keys(FIELDS).filter((id) => !showFieldError(id));
+  const stale = bad.length > 0;
+  for (const panel of [$('schedule'), $('budget')]) panel.toggleAttribute('data-stale', stale);
+  if (stale) {
+    status.classList.add('error');
+    status.textContent = `Not recomputed: fix ${bad.map((id) => FIELDS[id].name).join(' and ')}. The schedule and budget shown are stale (last valid input: ${lastValid}).`;
+  }
+  return !stale;
+}
+
+let lastValid = '';
+
 function readInputs() {
   const index = Number($('sat').value);
   const aKm = Number($('sma').value);
@@ -41,6 +94,7 @@ function readInputs() {
 let pending = 0;
 function recompute() {
   cancelAnimationFrame(pending);
+  if (!inputsValid()) return;
   pending = requestAnimationFrame(() => {
     const { index, a, tol, dA, method } = readInputs();
     const sat = SATELLITES[index];
@@ -60,13 +114,59 @@ function recompute() {
       budget.budget = rate;
       budget.j2Rate = j2.j2Correction;
       budget.label = `Rate budget · ${sat.id} at ${(a / 1000).toFixed(1)} km`;
-      status.textContent = `${sat.id}: residual rate ${residual.toExponential(2)}, ${plan.commands.length} commands, ` +
+      lastValid = `${sat.id}, a = ${grouped(a / 1000)} km, tolerance ${grouped(tol * 1e9)} ns, Δa ${grouped(dA)} m`;
+      status.textContent = `${sat.id}: residual rate ${minus(residual.toExponential(2))}, ${plan.commands.length} commands, ` +
         `${plan.feasible ? 'feasible' : 'NOT feasible'}. Recomputed in ${ms.toFixed(0)} ms.`;
     } catch (error) {
       status.classList.add('error');
       status.textContent = `Cannot recompute: ${error instanceof Error ? error.message : String(error)}`;
     }
   });
+}
+
+/** Simulated clocks per strategy in the closed-loop what-if: enough for a 5 % percentile, quick in a page. */
+const LOOP_RUNS = 40;
+
+/** Closed-loop what-if: the chosen planner and no steering fly the same simulated clocks for 30 days. */
+function flyClosedLoop() {
+  if (!inputsValid()) {
+    $('loop-status').textContent = 'Fix the what-if fields first.';
+    return;
+  }
+  const { index, a, tol, dA, method } = readInputs();
+  const sat = SATELLITES[index];
+  $('loop-run').disabled = true;
+  $('loop-status').textContent = `Flying ${sat.id} for 30 days (${LOOP_RUNS} simulated clocks)…`;
+  // Let the status paint before the synchronous simulation.
+  setTimeout(() => {
+    try {
+      const t0 = performance.now();
+      const residual = BASE_RESIDUAL[index] + rateChangeForSemiMajorAxisChange(sat.designSemiMajorAxis, a);
+      const scenario = scenarioFor(index, { residualFractionalFrequency: residual, tolerancePhaseSeconds: tol, method, maneuverDeltaA: dA, days: 30 });
+      const summary = simulateClosedLoop(scenario, { runs: LOOP_RUNS, seed: 20270308, strategies: [method, 'none'] });
+      const pct = (v) => `${(100 * v).toFixed(1)} %`;
+      const rows = summary.strategies.map((r) => {
+        const tr = document.createElement('tr');
+        const name = r.method === 'none' ? 'no steering' : r.method === 'optimal' ? 'quantised LQ' : 'deadband';
+        for (const text of [name, `${pct(r.timeInTolerance.mean)} / ${pct(r.timeInTolerance.p05)}`,
+          `${minus((r.maxAbsOffsetSeconds.p95 * 1e9).toFixed(1))} ns`, r.commandsPerDay.mean.toFixed(2)]) {
+          const td = document.createElement('td');
+          td.textContent = text;
+          tr.append(td);
+        }
+        return tr;
+      });
+      $('loop-table').tBodies[0].replaceChildren(...rows);
+      $('loop-runs').textContent = String(summary.runs);
+      $('loop-table').hidden = false;
+      $('loop-status').textContent = `${sat.id}, tolerance ±${grouped(tol * 1e9)} ns: flown in ${(performance.now() - t0).toFixed(0)} ms. ` +
+        'Time in tolerance: share of 15-min epochs with |offset| within the tolerance, per simulated clock.';
+    } catch (error) {
+      $('loop-status').textContent = `Cannot fly: ${error instanceof Error ? error.message : String(error)}`;
+    } finally {
+      $('loop-run').disabled = false;
+    }
+  }, 30);
 }
 
 function recomputeStability(index) {
@@ -91,13 +191,14 @@ function loadReview() {
   }
 }
 
-// Inputs: number field and slider stay in step; every change recomputes.
-$('sma').addEventListener('input', () => { $('sma-range').value = $('sma').value; if ($('sma').checkValidity()) recompute(); });
+// Inputs: number field and slider stay in step; every change recomputes, or shows why it cannot.
+$('sma').addEventListener('input', () => { if (fieldError('sma', $('sma')) === null) $('sma-range').value = $('sma').value; recompute(); });
 $('sma-range').addEventListener('input', () => { $('sma').value = $('sma-range').value; recompute(); });
-for (const id of ['tol', 'dA']) $(id).addEventListener('input', () => { if ($(id).checkValidity()) recompute(); });
+for (const id of ['tol', 'dA']) $(id).addEventListener('input', recompute);
 for (const r of document.querySelectorAll('input[name="method"]')) r.addEventListener('change', recompute);
 $('sat').addEventListener('change', () => setSatellite(Number($('sat').value)));
 $('whatif').addEventListener('submit', (e) => e.preventDefault());
+$('loop-run').addEventListener('click', flyClosedLoop);
 
 // Events from inside the elements' shadow roots reach the page (bubbles + composed).
 const log = (text) => {
@@ -108,12 +209,12 @@ const log = (text) => {
 };
 document.addEventListener('tauline-command-select', (e) => {
   const c = e.detail.command;
-  log(`command ${e.detail.index + 1}: ${c.kind} step ${c.fractionalFrequencyStep ?? c.phaseStepSeconds} at ${c.executeAt}`);
+  log(`command ${e.detail.index + 1}: ${c.kind} step ${minus(c.fractionalFrequencyStep ?? c.phaseStepSeconds)} at ${c.executeAt}`);
 });
 let viewTimer = 0;
 document.addEventListener('tauline-view-change', (e) => {
   clearTimeout(viewTimer);
-  viewTimer = setTimeout(() => log(`view ${(e.detail.startSeconds / 3600).toFixed(1)} h – ${(e.detail.endSeconds / 3600).toFixed(1)} h`), 250);
+  viewTimer = setTimeout(() => log(`view ${minus((e.detail.startSeconds / 3600).toFixed(1))} h – ${minus((e.detail.endSeconds / 3600).toFixed(1))} h`), 250);
 });
 document.addEventListener('tauline-spacecraft-select', (e) => {
   log(`review: opened ${e.detail.id} (${e.detail.verdict})`);

@@ -7,8 +7,8 @@ export const CONSTELLATION = 'Corvane';
 export const SATELLITES = [
   { id: 'CORVANE-A1', designSemiMajorAxis: 27_870_000, inclination: 0.977, clock: 'rubidium', stationA: 'Isk Harbour', stationB: 'Vell Ridge' },
   { id: 'CORVANE-A2', designSemiMajorAxis: 27_870_000, inclination: 0.977, clock: 'rubidium', stationA: 'Vell Ridge', stationB: 'Isk Harbour' },
-  { id: 'CORVANE-B1', designSemiMajorAxis: 27_905_000, inclination: 0.96, clock: 'passive maser', stationA: 'Isk Harbour', stationB: 'Vell Ridge' },
-  { id: 'CORVANE-B2', designSemiMajorAxis: 27_905_000, inclination: 0.96, clock: 'passive maser', stationA: 'Vell Ridge', stationB: 'Isk Harbour' },
+  { id: 'CORVANE-B1', designSemiMajorAxis: 27_655_000, inclination: 0.96, clock: 'passive maser', stationA: 'Isk Harbour', stationB: 'Vell Ridge' },
+  { id: 'CORVANE-B2', designSemiMajorAxis: 27_655_000, inclination: 0.96, clock: 'passive maser', stationA: 'Vell Ridge', stationB: 'Isk Harbour' },
 ];
 
 const EPOCH = '2027-03-08T00:00:00Z'; // inside the SDK's bundled leap-second table span
@@ -30,12 +30,11 @@ function contacts(index, days) {
  * A steering scenario for one satellite. `residualFractionalFrequency` is the clock's rate
  * left over after the factory offset (what the what-if panel changes through the orbit).
  */
-export function scenarioFor(index, { residualFractionalFrequency, tolerancePhaseSeconds, method, maneuverDeltaA = 12_000 }) {
+export function scenarioFor(index, { residualFractionalFrequency, tolerancePhaseSeconds, method, maneuverDeltaA = 12_000, days = 7 }) {
   const sat = SATELLITES[index];
   const rubidium = sat.clock === 'rubidium';
-  const days = 7;
   return {
-    name: `${sat.id} clock, one week`,
+    name: `${sat.id} clock, ${days === 7 ? 'one week' : `${days} days`}`,
     description: `Invented ${CONSTELLATION} satellite ${sat.id} (${sat.clock}), uplinks from ${sat.stationA} and ${sat.stationB}.`,
     epoch: EPOCH,
     horizonSeconds: days * 86400,
@@ -61,6 +60,9 @@ export function scenarioFor(index, { residualFractionalFrequency, tolerancePhase
     },
     maneuvers: [{ at: iso(3 * 86400 + 14.5 * 3600), semiMajorAxisBefore: sat.designSemiMajorAxis, semiMajorAxisAfter: sat.designSemiMajorAxis + maneuverDeltaA }],
     strategy: { method },
+    // Ground estimates of the clock offset every 15 min (0.3 ns, 1 h late), re-planned at each contact:
+    // what the closed-loop what-if flies (invented operations figures).
+    operations: { estimateIntervalSeconds: 900, estimateNoiseSeconds: 3e-10, estimateLatencySeconds: 3600, replan: 'each-contact' },
   };
 }
 

@@ -1,24 +1,20 @@
 #!/usr/bin/env node
-// `npm run screenshot [-- <path> <out.png> <width>x<height>]`: serves the repository with
-// @web/dev-server on a free port, opens the page in headless Chromium (playwright-core,
+// `npm run screenshot [-- <path> <out.png> <width>x<height>]`: serves the demo with its own
+// static server (demo/server.mjs) on a free loopback port, opens the page in headless Chromium (playwright-core,
 // /usr/bin/chromium or CHROME_PATH), waits for the steering schedule to show commands, and
 // writes a full-page PNG (default .ci-out/demo-console.png). Run `npm run build` first.
-import { startDevServer } from '@web/dev-server';
+import { startDemoServer } from './server.mjs';
 import { chromium } from 'playwright-core';
 import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
-import devServerConfig from '../web-dev-server.config.mjs';
 import { CHROMIUM_ARGS } from '../web-test-runner.config.mjs';
 
 const [path = '/demo/index.html', out = '.ci-out/demo-console.png', size = '1440x1100'] = process.argv.slice(2);
 const [width, height] = size.split('x').map(Number);
 mkdirSync(dirname(out), { recursive: true });
-const server = await startDevServer({
-  config: { ...devServerConfig, port: 0, hostname: '127.0.0.1' },
-  readCliArgs: false, readFileConfig: false, autoExitProcess: false, logStartMessage: false,
-});
-const { port } = server.server.address();
+const server = await startDemoServer({ port: 0 });
+const { port } = server;
 const profile = mkdtempSync(join(tmpdir(), 'chromium-profile-'));
 const ctx = await chromium.launchPersistentContext(profile, {
   executablePath: process.env.CHROME_PATH || '/usr/bin/chromium', headless: true, viewport: { width, height }, args: CHROMIUM_ARGS,
@@ -35,6 +31,6 @@ try {
   console.log('wrote', out);
 } finally {
   await ctx.close();
-  await server.stop();
+  await server.close();
   rmSync(profile, { recursive: true, force: true });
 }

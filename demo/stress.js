@@ -94,6 +94,62 @@ export async function runBench() {
 }
 window.runBench = runBench;
 
+const stability = document.querySelector('tauline-stability-plot');
+
+/** Synthetic stability series: n τ log-spaced over six decades, a white-FM slope, intervals and n. */
+export function makeStabilitySeries(n) {
+  const tau = new Float64Array(n), deviation = new Float64Array(n), low = new Float64Array(n), high = new Float64Array(n), terms = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    tau[i] = 10 ** ((6 * i) / (n - 1));
+    deviation[i] = (3e-12 / Math.sqrt(tau[i])) * (1 + 0.05 * Math.sin(i * 0.7));
+    low[i] = deviation[i] * 0.9; high[i] = deviation[i] * 1.12; terms[i] = n - i + 1;
+  }
+  return [{ statistic: 'oadev', tau, deviation, low, high, n: terms }];
+}
+
+/** Waits until the stability plot has drawn for its current data (the ResizeObserver may report first). */
+async function stabilityDrawn() {
+  for (;;) {
+    await stability.updateComplete;
+    if (stability._scales && stability._drawKey.startsWith(`${stability._version}|`)) break;
+    await new Promise((r) => requestAnimationFrame(r));
+  }
+  stability.shadowRoot.querySelector('canvas.data').getContext('2d').getImageData(0, 0, 1, 1);
+}
+
+/**
+ * Stability-plot benchmark, in ms: first render of n points into an empty element (to the drawn
+ * frame, so it includes the frame where the ResizeObserver reports the size), a data update on a
+ * plotted element, and hover (pointer moves over the plot until the read-out and overlay are drawn).
+ */
+export async function runStabilityBench(n) {
+  stability.series = null;
+  await stability.updateComplete;
+  const series = makeStabilitySeries(n);
+  const t0 = performance.now();
+  stability.series = series;
+  await stabilityDrawn();
+  const firstRender = performance.now() - t0;
+  const next = makeStabilitySeries(n);
+  const t1 = performance.now();
+  stability.series = next;
+  await stabilityDrawn();
+  const update = performance.now() - t1;
+  const overlay = stability.shadowRoot.querySelector('canvas.overlay');
+  const w = overlay.clientWidth, h = overlay.clientHeight;
+  const hovers = [];
+  for (let k = 0; k < 30; k++) {
+    const x = 80 + ((w - 160) * k) / 29, y = h * 0.2 + (h * 0.5 * k) / 29;
+    const s = performance.now();
+    overlay.dispatchEvent(new PointerEvent('pointermove', { clientX: overlay.getBoundingClientRect().left + x, clientY: overlay.getBoundingClientRect().top + y, bubbles: true }));
+    await stability.updateComplete;
+    hovers.push(performance.now() - s);
+  }
+  return { points: n, firstRenderMs: firstRender, updateMs: update, hoverMedianMs: median(hovers), hoverMaxMs: Math.max(...hovers),
+    tableRowsInDom: stability.shadowRoot.querySelectorAll('tbody tr[part~="row"]').length };
+}
+window.runStabilityBench = runStabilityBench;
+
 if (!new URLSearchParams(location.search).has('bench')) {
   const out = document.getElementById('timing');
   const data = makeLargePlan();

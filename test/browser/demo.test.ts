@@ -63,6 +63,100 @@ describe('demo operations console (demo/index.html)', () => {
     expect(budget.label).to.contain(`${sma.value}`.slice(0, 5));
   });
 
+  it('the what-if panel shows a metres-for-km semi-major axis, a tolerance below the minimum and an empty field as errors next to them, marks the results stale, and recomputes once valid', async () => {
+    const doc = await loadDemo();
+    const budget = doc.querySelector('tauline-rate-budget')!;
+    const before = await until('budget', () => budget.shadowRoot?.querySelector('tr.total td')?.textContent);
+    const type = (id: string, value: string): void => {
+      const input = doc.getElementById(id) as HTMLInputElement;
+      input.value = value;
+      input.dispatchEvent(new Event('input', { bubbles: true }));
+    };
+    const errorOf = (id: string): string => {
+      const input = doc.getElementById(id)!;
+      expect(input.getAttribute('aria-invalid'), id).to.equal('true');
+      const described = doc.getElementById(input.getAttribute('aria-describedby')!)!;
+      expect(described.hidden, id).to.equal(false);
+      return described.textContent!;
+    };
+    type('sma', '27870000');
+    expect(errorOf('sma')).to.contain('looks like metres: this field takes kilometres (27\u202f870 km)');
+    expect(doc.getElementById('schedule')!.hasAttribute('data-stale')).to.equal(true);
+    expect(doc.getElementById('budget')!.hasAttribute('data-stale')).to.equal(true);
+    expect(doc.getElementById('status')!.textContent).to.contain('stale');
+    type('tol', '1');
+    expect(errorOf('tol')).to.contain('1 ns is below the minimum');
+    type('dA', '');
+    expect(errorOf('dA')).to.contain('Empty');
+    await new Promise((r) => setTimeout(r, 200));
+    expect(budget.shadowRoot!.querySelector('tr.total td')!.textContent).to.equal(before); // nothing recomputed from bad input
+    type('sma', '27910');
+    type('tol', '25');
+    type('dA', '12000');
+    for (const id of ['sma', 'tol', 'dA']) {
+      expect(doc.getElementById(id)!.hasAttribute('aria-invalid'), id).to.equal(false);
+      expect(doc.getElementById(`${id}-error`)!.hidden, id).to.equal(true);
+    }
+    expect(doc.getElementById('schedule')!.hasAttribute('data-stale')).to.equal(false);
+    const after = await until('a recomputed budget', () => {
+      const text = budget.shadowRoot!.querySelector('tr.total td')!.textContent;
+      return text !== before ? text : null;
+    });
+    expect(after).to.not.equal(before);
+    expect(doc.getElementById('status')!.textContent).to.contain('Recomputed in');
+  });
+
+  it('every number shown in the elements and the status line uses one minus sign, U+2212 (no hyphen-minus before a digit)', async () => {
+    const doc = await loadDemo();
+    await until('command rows', () => doc.querySelector('tauline-steering-schedule')!.shadowRoot?.querySelectorAll('tbody tr[part~="row"]').length);
+    await until('stability rows', () => doc.querySelector('tauline-stability-plot')!.shadowRoot?.querySelectorAll('tbody tr').length);
+    const texts: string[] = [doc.getElementById('status')!.textContent ?? ''];
+    for (const el of doc.querySelectorAll('tauline-steering-schedule, tauline-rate-budget, tauline-stability-plot, tauline-review-findings')) {
+      const root = el.shadowRoot!;
+      // Open every review entry so its numbers are rendered text too.
+      for (const d of root.querySelectorAll('details')) d.open = true;
+      texts.push(root.textContent ?? '');
+      for (const labelled of root.querySelectorAll('[aria-label]')) texts.push(labelled.getAttribute('aria-label')!);
+    }
+    // A hyphen-minus as a sign: at the start, or after a space, bracket, =, ±, Δ or an exponent's e.
+    const offenders = texts.flatMap((t) => t.match(/(^|[\s(=±Δ:]|\de)-\d[^\s]*/g) ?? []);
+    expect(offenders).to.deep.equal([]);
+  });
+
+  it('at 390×844 every view fits the width (scrollWidth ≤ innerWidth) and is saved to .ci-out/demo-390-<view>.png', async () => {
+    const views = await executeServerCommand<Array<{ view: string; scrollWidth: number; innerWidth: number; wide: string[]; file: string }>, Record<string, unknown>>(
+      'tauline-demo-views', { path: '/demo/index.html', width: 390, height: 844 });
+    expect(views.map((v) => v.view)).to.deep.equal(['top', 'schedule', 'budget', 'stability', 'review']);
+    for (const v of views) {
+      expect(v.scrollWidth, `${v.view}: ${v.wide.join('; ')}`).to.be.at.most(v.innerWidth);
+      expect(v.file).to.contain(`demo-390-${v.view}.png`);
+    }
+  });
+
+  it('at 360×740 (the narrowest supported width) the page still fits', async () => {
+    const views = await executeServerCommand<Array<{ view: string; scrollWidth: number; innerWidth: number; wide: string[] }>, Record<string, unknown>>(
+      'tauline-demo-views', { path: '/demo/index.html', width: 360, height: 740, views: ['top', 'budget'] });
+    for (const v of views) expect(v.scrollWidth, `${v.view}: ${v.wide.join('; ')}`).to.be.at.most(v.innerWidth);
+  });
+
+  it('the closed-loop what-if flies 30 days and shows time in tolerance for the planner beside no steering (steering keeps the clock in tolerance longer)', async function (this: Mocha.Context) {
+    this.timeout(90000); // 2 strategies × 40 clocks × 30 days, synchronous in the page
+    const doc = await loadDemo();
+    await until('command rows', () => doc.querySelector('tauline-steering-schedule')!.shadowRoot?.querySelectorAll('tbody tr[part~="row"]').length);
+    (doc.getElementById('loop-run') as HTMLButtonElement).click();
+    const rows = await until('closed-loop rows', () => {
+      const r = doc.querySelectorAll('#loop-table tbody tr');
+      return r.length === 2 ? r : null;
+    }, 60000);
+    const share = (row: Element) => Number(/([\d.]+) %/.exec(row.children[1]!.textContent ?? '')![1]);
+    expect(rows[0]!.children[0]!.textContent).to.equal('quantised LQ');
+    expect(rows[1]!.children[0]!.textContent).to.equal('no steering');
+    expect(share(rows[0]!)).to.be.within(0, 100);
+    expect(share(rows[0]!)).to.be.greaterThan(share(rows[1]!));
+    expect(doc.getElementById('loop-table')!.hidden).to.equal(false);
+    expect(doc.getElementById('loop-status')!.textContent).to.match(/flown in \d+ ms/);
+  });
+
   it('saves a screenshot of the console to .ci-out/demo-console.png', async () => {
     const saved = await executeServerCommand<string, { path: string; out: string }>('tauline-demo-screenshot', { path: '/demo/index.html', out: '.ci-out/demo-console.png' });
     expect(saved).to.contain('demo-console.png');

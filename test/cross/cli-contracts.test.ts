@@ -115,7 +115,7 @@ describe('tauline CLI contracts through the built binary', () => {
       expect(Math.abs(c.fractionalFrequencyStep - c.actuatorSteps * resolution)).toBeLessThan(1e-27);
       expect(c.executeAt >= c.uplinkAt).toBe(true);
     }
-    const rateChange = ((3 * GM_IERS) / (2 * C2)) * (1 / 27_977_000 - 1 / 27_992_000);
+    const rateChange = ((3 * GM_IERS) / (2 * C2)) * (1 / 27_412_000 - 1 / 27_427_000);
     const cancel = (r.json.commands as Record<string, any>[]).find((c) => c.executeAt === '2027-02-11T14:30:00Z')!;
     expect(Math.abs(cancel.fractionalFrequencyStep + rateChange)).toBeLessThanOrEqual(resolution / 2);
     expect(r.json.predicted.t.length).toBe(r.json.predicted.steered.phaseSeconds.length);

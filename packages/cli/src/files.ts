@@ -1,8 +1,10 @@
 /**
  * Reading input files for `tauline` commands: one place that turns the ways a file can be unusable
- * (missing, a directory, unreadable, empty, malformed JSON) into one clear line with exit status 2.
+ * (missing, a directory, a pipe or device, binary, too large, unreadable, empty, malformed JSON) into
+ * one clear line with exit status 2. `-` names standard input wherever a file is read.
  */
-import { readFile, stat } from 'node:fs/promises';
+import { createReadStream } from 'node:fs';
+import { stat } from 'node:fs/promises';
 import { ParseError } from '@tauline/sdk/errors';
 import { UsageError } from './framework.js';
 
@@ -86,26 +88,125 @@ export function lineColumn(text: string, offset: number): { line: number; column
   return { line: before.split('\n').length, column: offset - lastNewline };
 }
 
+/** The file name that means standard input wherever a command reads a file. */
+export const STANDARD_INPUT = '-';
+
 /**
- * Reads a file as UTF-8 text, refusing (as a one-line usage error) a path that is a directory
- * or not a regular file. A missing file keeps its ENOENT error (reported as "no such file").
- * @param path  The file path as the user typed it.
- * @param what  What the file should be, for the message (e.g. "a steering scenario (JSON)").
+ * Largest document read whole into memory (a JSON scenario or review file, a leap-seconds list), in bytes.
+ * A design choice (common practice, no source): the largest real document is a few hundred kB.
  */
-export async function readTextFile(path: string, what: string): Promise<string> {
-  await requireRegularFile(path, what);
-  return readFile(path, 'utf8');
+export const MAX_DOCUMENT_BYTES = 64 * 1024 * 1024;
+
+/**
+ * Largest clock-record file (phase or frequency text, RINEX clock), in bytes: every record is held in
+ * memory (a RINEX clock record costs about 4× its text), so the limit keeps a run within a few hundred MB.
+ * A day of 30-s RINEX clock data for a whole constellation is well below it. Design choice, no source.
+ */
+export const MAX_RECORD_BYTES = 128 * 1024 * 1024;
+
+/**
+ * Largest RINEX navigation file, in bytes. The reader streams, but the records inside the requested window
+ * are kept (about 2 kB of memory each); a month of daily merged multi-system files is about 300 MB.
+ * Design choice, no source.
+ */
+export const MAX_NAVIGATION_BYTES = 512 * 1024 * 1024;
+
+/** Bytes read from a file at a time. */
+const CHUNK_BYTES = 256 * 1024;
+
+let standardInput: () => AsyncIterable<Uint8Array | string> = () => process.stdin;
+
+/**
+ * Sets what `-` reads (the binary: process.stdin; tests: an in-memory stream). Returns the previous source.
+ * @internal used by `main`
+ */
+export function setStandardInput(source: () => AsyncIterable<Uint8Array | string>): () => AsyncIterable<Uint8Array | string> {
+  const previous = standardInput;
+  standardInput = source;
+  return previous;
+}
+
+/** How a path is named in messages: `standard input` for `-`, otherwise the path quoted. */
+export function displayName(path: string): string {
+  return path === STANDARD_INPUT ? 'standard input' : JSON.stringify(path);
+}
+
+/** The size of `n` bytes in MiB, for messages. */
+function mib(n: number): string {
+  return `${Math.round(n / 1048576)} MiB`;
 }
 
 /**
- * Checks, before a file is streamed, that `path` names a regular file (or a named pipe such as
- * `/dev/stdin`, which streams well): a directory is a one-line usage error naming what was expected.
- * A missing file keeps its ENOENT error.
+ * Checks that `path` names a regular file (or is `-`, standard input) before it is read. A directory,
+ * a named pipe (FIFO: reading one may wait forever for a writer), a device (`/dev/zero`,
+ * `/dev/urandom`: endless) or a socket is a one-line usage error naming what was expected.
+ * A missing file keeps its ENOENT error (reported as "no such file").
+ * @param maxBytes  When given, a larger regular file is refused up front, naming the limit.
  */
-export async function requireRegularFile(path: string, what: string): Promise<void> {
+export async function requireRegularFile(path: string, what: string, maxBytes?: number): Promise<void> {
+  if (path === STANDARD_INPUT) return;
   const info = await stat(path);
-  if (info.isDirectory()) throw new UsageError(`${JSON.stringify(path)} is a directory; expected ${what}`);
-  if (!info.isFile() && !info.isFIFO() && !info.isCharacterDevice()) throw new UsageError(`${JSON.stringify(path)} is not a regular file; expected ${what}`);
+  const name = displayName(path);
+  if (info.isDirectory()) throw new UsageError(`${name} is a directory; expected ${what}`);
+  if (info.isFIFO()) throw new UsageError(`${name} is a named pipe (FIFO), not a regular file; expected ${what} (give - to read standard input)`);
+  if (info.isCharacterDevice() || info.isBlockDevice()) throw new UsageError(`${name} is a device, not a regular file; expected ${what}`);
+  if (!info.isFile()) throw new UsageError(`${name} is not a regular file; expected ${what}`);
+  if (maxBytes !== undefined && info.size > maxBytes) {
+    throw new UsageError(`${name} is ${info.size} bytes, more than the ${mib(maxBytes)} limit for ${what}`);
+  }
+}
+
+/** Options of {@link textChunks}. */
+export interface TextChunkOptions {
+  /** Refuse input longer than this many bytes (checked up front for a regular file, while reading otherwise). */
+  readonly maxBytes?: number;
+  /** Called with each chunk's size in bytes (progress bars). */
+  readonly onChunk?: (bytes: number) => void;
+}
+
+/**
+ * Streams a file (or standard input for `-`) as UTF-8 text chunks, after {@link requireRegularFile}.
+ * Binary input is refused at its first NUL byte (a sparse or binary file, `/dev/zero` piped in), and
+ * input beyond `maxBytes` as soon as it is passed, so memory stays bounded by one chunk.
+ * Invalid UTF-8 becomes U+FFFD, which the readers then refuse with a line and column.
+ * @param what  What the file should be, for messages (e.g. "an SP3 file").
+ * @throws {UsageError} for a directory, pipe, device, NUL byte or an input over `maxBytes`.
+ */
+export async function* textChunks(path: string, what: string, options: TextChunkOptions = {}): AsyncGenerator<string> {
+  const { maxBytes, onChunk } = options;
+  await requireRegularFile(path, what, maxBytes);
+  const source = path === STANDARD_INPUT ? standardInput() : createReadStream(path, { highWaterMark: CHUNK_BYTES });
+  const decoder = new TextDecoder('utf-8', { ignoreBOM: true });
+  let total = 0;
+  for await (const chunk of source) {
+    const bytes = typeof chunk === 'string' ? Buffer.from(chunk, 'utf8') : chunk;
+    const nul = bytes.indexOf(0);
+    if (nul >= 0) {
+      throw new UsageError(`${displayName(path)} is not a text file (a NUL byte at byte ${total + nul + 1}); expected ${what}`);
+    }
+    total += bytes.length;
+    if (maxBytes !== undefined && total > maxBytes) {
+      throw new UsageError(`${displayName(path)} is longer than the ${mib(maxBytes)} limit for ${what}`);
+    }
+    onChunk?.(bytes.length);
+    const text = decoder.decode(bytes, { stream: true });
+    if (text !== '') yield text;
+  }
+  const rest = decoder.decode();
+  if (rest !== '') yield rest;
+}
+
+/**
+ * Reads a whole file (or standard input for `-`) as UTF-8 text, refusing a directory, pipe, device,
+ * binary content or more than {@link MAX_DOCUMENT_BYTES} (see {@link textChunks}).
+ * A missing file keeps its ENOENT error (reported as "no such file").
+ * @param path  The file path as the user typed it, or `-`.
+ * @param what  What the file should be, for the message (e.g. "a steering scenario (JSON)").
+ */
+export async function readTextFile(path: string, what: string): Promise<string> {
+  const parts: string[] = [];
+  for await (const chunk of textChunks(path, what, { maxBytes: MAX_DOCUMENT_BYTES })) parts.push(chunk);
+  return parts.join('');
 }
 
 /**
@@ -119,7 +220,7 @@ export async function requireRegularFile(path: string, what: string): Promise<vo
 export async function readJsonFile(path: string, what = 'a JSON document'): Promise<unknown> {
   const text = await readTextFile(path, `${what} (JSON)`);
   const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
-  if (body.trim() === '') throw new ParseError(path, 1, 1, `${what} (JSON)`, 'an empty file');
+  if (body.trim() === '') throw new ParseError(sourceLabel(path), 1, 1, `${what} (JSON)`, 'an empty file');
   try {
     return JSON.parse(body) as unknown;
   } catch (error) {
@@ -127,6 +228,11 @@ export async function readJsonFile(path: string, what = 'a JSON document'): Prom
       ?? (/position (\d+)/.exec(error instanceof Error ? error.message : '') ? Number(/position (\d+)/.exec((error as Error).message)![1]) : 0);
     const { line, column } = lineColumn(body, offset);
     const found = offset >= body.length ? 'the end of the file (truncated?)' : body.slice(offset, offset + 24).split(/\r?\n/)[0]!;
-    throw new ParseError(path, line, column, `valid JSON (${what})`, found);
+    throw new ParseError(sourceLabel(path), line, column, `valid JSON (${what})`, found);
   }
+}
+
+/** The source name given to the readers: the path, or `stdin` for `-`. */
+export function sourceLabel(path: string): string {
+  return path === STANDARD_INPUT ? 'stdin' : path;
 }

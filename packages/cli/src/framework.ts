@@ -2,9 +2,16 @@
  * The small command framework shared by every `tauline` command: flag parsing with
  * typed validation, one-line errors, and human tables vs `--json` output.
  */
+import { writeFile } from 'node:fs/promises';
 import { parseArgs, type ParseArgsConfig } from 'node:util';
 import { TaulineError, InvalidArgumentError, formatReceived } from '@tauline/sdk/errors';
 import { MAX_SEED } from '@tauline/sdk/steering';
+import { FLIGHT_CONFIGURATION_CAUTION } from '@tauline/sdk/relativity';
+import { TABLE_WIDTH, fitTable, wrapText } from './layout.js';
+import { escapeControlCharacters } from './text-safety.js';
+
+export { escapeControlCharacters };
+import { didYouMean } from './suggest.js';
 
 /** Exit status: 0 success, 1 a finding (e.g. a review fail), 2 unusable input. */
 export const EXIT_OK = 0;
@@ -17,6 +24,8 @@ export interface Io {
   err: (text: string) => void;
   /** True when stderr is an interactive terminal (progress bars only then). */
   isTty: boolean;
+  /** What a file named `-` reads: the binary passes process.stdin; without it, `-` reads nothing (an empty input). */
+  stdin?: () => AsyncIterable<Uint8Array | string>;
 }
 
 export interface FlagSpec {
@@ -58,8 +67,24 @@ export class UsageError extends Error {
   }
 }
 
+/**
+ * A file the command was asked to write could not be written (`--output`): printed as
+ * `cannot write <path>: <reason>`, exit status 2.
+ */
+export class OutputError extends Error {
+  readonly path: string;
+  readonly reason: string;
+  constructor(path: string, reason: string) {
+    super(`cannot write ${formatReceived(path)}: ${reason}`);
+    this.name = 'OutputError';
+    this.path = path;
+    this.reason = reason;
+  }
+}
+
 export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
-  const options: NonNullable<ParseArgsConfig['options']> = { help: { type: 'boolean', short: 'h' } };
+  // --help and --wide (tables and text in their long form, not fitted to 100 columns) are flags of every command.
+  const options: NonNullable<ParseArgsConfig['options']> = { help: { type: 'boolean', short: 'h' }, wide: { type: 'boolean' } };
   for (const [name, spec] of Object.entries(command.flags)) {
     options[name] = { type: spec.type, multiple: spec.multiple ?? false, ...(spec.short ? { short: spec.short } : {}) };
   }
@@ -80,7 +105,9 @@ export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
     parsed = parseArgs({ args, options, allowPositionals: command.allowPositionals ?? false, strict: true, tokens: true });
   } catch (e) {
     const message = e instanceof Error ? e.message.replace(/\. To specify a positional.*$/s, '').replace(/\s*\n\s*/g, ' ') : String(e);
-    throw new UsageError(`${message} (see \`tauline ${command.name} --help\`)`);
+    const unknown = /^Unknown option '--?([^'=]+)/.exec(message);
+    const hint = unknown ? didYouMean(unknown[1]!, [...Object.keys(command.flags), 'help', 'wide'], '--') : '';
+    throw new UsageError(`${message}${hint} (see \`tauline ${command.name} --help\`)`);
   }
   // A flag given twice would silently keep the last value: refuse it unless the flag takes several.
   const seen = new Map<string, string | undefined>();
@@ -241,21 +268,16 @@ export function formatFlag<F extends string>(args: ParsedArgs, formats: readonly
   return (chosen.keys().next().value as F | undefined) ?? defaultFormat;
 }
 
-/** Renders rows as an aligned text table. Numbers are right-aligned. */
+/** Renders rows as an aligned text table, unlimited in width. Numbers are right-aligned (also in a column holding "—"). */
 export function table(headers: string[], rows: (string | number)[][]): string {
-  const cells = rows.map((r) => r.map((c) => String(c)));
-  // Widths by a loop: spreading a long column into Math.max overflows the call stack (~125 000 rows).
-  const widths = headers.map((h) => h.length);
-  for (const r of cells) r.forEach((c, i) => { if (i < widths.length && c.length > widths[i]!) widths[i] = c.length; });
-  const numeric = headers.map((_, i) => rows.every((r) => typeof r[i] === 'number' || /^[-+]?[\d.]/.test(String(r[i] ?? ''))));
-  const fmt = (r: string[]) => r.map((c, i) => (numeric[i] ? c.padStart(widths[i]!) : c.padEnd(widths[i]!))).join('  ').trimEnd();
-  return [fmt(headers), widths.map((w) => '─'.repeat(w)).join('  '), ...cells.map(fmt)].join('\n') + '\n';
+  return fitTable(headers, rows, { width: undefined });
 }
 
 /** Two-column key/value table for a single result. */
-export function keyValueTable(rows: [string, string][]): string {
+export function keyValueTable(rows: [string, string][], width?: number): string {
   const w = Math.max(...rows.map(([k]) => k.length));
-  return rows.map(([k, v]) => `${k.padEnd(w)}  ${v}`).join('\n') + '\n';
+  // With a width, a long value wraps under itself (hanging indent past the key column).
+  return rows.map(([k, v]) => wrapText(`${k.padEnd(w)}  ${escapeControlCharacters(v)}`, width, ' '.repeat(w + 2)).join('\n')).join('\n') + '\n';
 }
 
 /** Formats a number with `digits` significant digits, keeping exponent form for tiny values. */
@@ -271,26 +293,11 @@ export function toJson(value: unknown): string {
   return JSON.stringify(value, (_k, v) => (typeof v === 'bigint' ? v.toString() : v), 2) + '\n';
 }
 
-/** A one-line progress bar on stderr, redrawn in place when the whole percentage changes; only for terminals. */
-export function progressBar(io: Io, label: string): { update: (done: number, total: number) => void; finish: () => void } {
-  let last = -1;
-  return {
-    update(done, total) {
-      const pct = Math.min(100, Math.floor((100 * done) / total));
-      if (pct === last) return;
-      last = pct;
-      const filled = Math.round(pct / 4);
-      io.err(`\r${label} [${'#'.repeat(filled)}${'.'.repeat(25 - filled)}] ${String(pct).padStart(3)} %`);
-    },
-    finish() {
-      io.err(`\r${' '.repeat(label.length + 35)}\r`);
-    },
-  };
-}
+/** The progress bar lives in its own module; re-exported here for the commands that import it from the framework. */
+export { progressBar } from './progress.js';
 
-/** The line printed for flight-configuration outputs. */
-export const FLIGHT_CAUTION =
-  'Caution: verify these values against the mission\'s own interface specification and have them confirmed by its responsible engineering authority before they enter a flight configuration.';
+/** The line printed for flight-configuration outputs: the SDK's flight-configuration caution, so the CLI and the SDK say the same words. */
+export const FLIGHT_CAUTION = FLIGHT_CONFIGURATION_CAUTION;
 
 /** File-system errors that mean the user named an unusable file, with the reason printed. */
 const FILE_ERRORS: Record<string, string> = {
@@ -301,28 +308,68 @@ const FILE_ERRORS: Record<string, string> = {
   EPERM: 'operation not permitted',
   ELOOP: 'too many symbolic links',
   ENAMETOOLONG: 'the name is too long',
+  EROFS: 'read-only file system',
+  ENOSPC: 'no space left on the device',
+  EDQUOT: 'disk quota exceeded',
+  EFBIG: 'the file is too large',
+  EIO: 'input/output error',
+  ENXIO: 'no such device or address',
+  ENODEV: 'no such device',
+  EBUSY: 'the file is busy',
+  ETXTBSY: 'the file is busy',
+  EMFILE: 'too many open files',
+  ENFILE: 'too many open files',
 };
+
+/** The one-line reason of a file-system error (`code`), or undefined when it is not one. */
+export function fileErrorReason(error: unknown): string | undefined {
+  if (!(error instanceof Error) || !('code' in error) || typeof (error as NodeJS.ErrnoException).code !== 'string') return undefined;
+  return FILE_ERRORS[(error as NodeJS.ErrnoException).code!];
+}
+
+/**
+ * Writes `text` to the file named by `--output`, turning a file-system failure into an
+ * {@link OutputError} ("cannot write …", exit 2) rather than a read error or an internal error.
+ */
+export async function writeOutputFile(path: string, text: string): Promise<void> {
+  try {
+    await writeFile(path, text, 'utf8');
+  } catch (error) {
+    const reason = fileErrorReason(error) ?? (error instanceof Error && 'code' in error ? String((error as NodeJS.ErrnoException).code) : undefined);
+    if (reason !== undefined) throw new OutputError(path, reason);
+    throw error;
+  }
+}
 
 /** Turns any thrown value into one line for stderr and an exit status. */
 export function describeFailure(error: unknown): { line: string; status: number } {
-  if (error instanceof UsageError) return { line: error.message, status: EXIT_USAGE };
+  if (error instanceof UsageError || error instanceof OutputError) return { line: error.message, status: EXIT_USAGE };
   if (error instanceof InvalidArgumentError) return { line: `invalid input: ${error.message}`, status: EXIT_USAGE };
   if (error instanceof TaulineError) return { line: `${error.code}: ${error.message}`, status: EXIT_USAGE };
   if (error instanceof Error && 'code' in error && typeof (error as NodeJS.ErrnoException).code === 'string') {
-    const reason = FILE_ERRORS[(error as NodeJS.ErrnoException).code!];
-    if (reason) return { line: `cannot read ${formatReceived((error as NodeJS.ErrnoException).path)}: ${reason}`, status: EXIT_USAGE };
+    const e = error as NodeJS.ErrnoException;
+    const reason = FILE_ERRORS[e.code!];
+    if (reason && e.syscall === 'write') return { line: `cannot write ${e.path === undefined ? 'standard output' : formatReceived(e.path)}: ${reason}`, status: EXIT_USAGE };
+    if (reason) return { line: `cannot read ${e.path === undefined ? 'the input' : formatReceived(e.path)}: ${reason}`, status: EXIT_USAGE };
   }
   const message = error instanceof Error ? error.message : String(error);
   return { line: `internal error: ${message} (please report this with the command line that caused it)`, status: 3 };
 }
 
 export function commandHelp(command: Command): string {
-  const lines = [`tauline ${command.name} ${command.usage}`, '', command.summary, ''];
+  // The usage line wraps between its [optional parts], never inside one (no-break spaces while wrapping).
+  const usage = command.usage.replace(/\[[^\]]*\]/g, (part) => part.replace(/ /g, '\u00a0'));
+  const usageLines = wrapText(`tauline ${command.name} ${usage}`, TABLE_WIDTH, ' '.repeat(command.name.length + 9)).map((l) => l.replace(/\u00a0/g, ' '));
+  const lines = [...usageLines, '', command.summary, ''];
   const names = Object.keys(command.flags);
   const labels = names.map((n) => `--${n}${command.flags[n]!.value ? ` ${command.flags[n]!.value}` : ''}`);
   const w = Math.max(...labels.map((l) => l.length), 10);
-  names.forEach((n, i) => lines.push(`  ${labels[i]!.padEnd(w)}  ${command.flags[n]!.description}`));
+  // Flag help wraps at 100 columns under its description column (the details below are laid out by hand).
+  names.forEach((n, i) => lines.push(...wrapText(`  ${labels[i]!.padEnd(w)}  ${command.flags[n]!.description}`, TABLE_WIDTH, ' '.repeat(w + 4))));
+  lines.push(`  ${'--wide'.padEnd(w)}  Tables and text in their long form, not fitted to 100 columns.`);
   lines.push(`  ${'--help'.padEnd(w)}  Show this help.`);
+  const readsFiles = command.allowPositionals === true || names.some((n) => command.flags[n]!.value === '<file>' && n !== 'output');
+  if (readsFiles) lines.push('', 'Input files: - reads standard input; a directory, pipe, device or binary file is refused (exit 2).');
   if (command.details) lines.push('', command.details.trim());
   return lines.join('\n') + '\n';
 }

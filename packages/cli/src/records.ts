@@ -3,17 +3,16 @@
  * text file, or one clock of a RINEX clock file, named by `--phase`, `--frequency` or
  * `--rinex-clock <file> --clock <name>`. One place for the flags, their help and their errors.
  */
-import { createReadStream } from 'node:fs';
-import { readPhaseText, readRinexClock, rinexClockSeries, type SampleGap } from '@tauline/sdk/io';
+import { readPhaseText, readRinexClockSeries, type SampleGap } from '@tauline/sdk/io';
 import { UsageError, optionalFlag, type FlagSpec, type ParsedArgs } from './framework.js';
-import { requireRegularFile } from './files.js';
+import { MAX_RECORD_BYTES, sourceLabel, textChunks } from './files.js';
 
 /** What a text record holds: phase (time error, s) or fractional frequency (dimensionless). */
 export type RecordKind = 'phase' | 'frequency';
 
 const TEXT_FLAGS: Record<RecordKind, FlagSpec> = {
-  phase: { type: 'string', value: '<file>', description: 'Phase (time error) record: one value in seconds per line, or two columns time (s), phase (s); # comments.' },
-  frequency: { type: 'string', value: '<file>', description: 'Fractional-frequency record (dimensionless), same layout as --phase.' },
+  phase: { type: 'string', value: '<file>', description: 'Phase (time error) record: one value in seconds per line, or two columns time (s), phase (s); # comments; - reads standard input.' },
+  frequency: { type: 'string', value: '<file>', description: 'Fractional-frequency record (dimensionless), same layout as --phase; - reads standard input.' },
 };
 
 /**
@@ -23,7 +22,7 @@ const TEXT_FLAGS: Record<RecordKind, FlagSpec> = {
 export function recordFlags(kinds: readonly RecordKind[]): Record<string, FlagSpec> {
   const flags: Record<string, FlagSpec> = {};
   for (const kind of kinds) flags[kind] = TEXT_FLAGS[kind];
-  flags['rinex-clock'] = { type: 'string', value: '<file>', description: 'RINEX clock file (2.00–3.04); the clock bias of --clock is used as phase.' };
+  flags['rinex-clock'] = { type: 'string', value: '<file>', description: 'RINEX clock file (versions 2.00–3.05, streamed); the clock bias of --clock is used as phase; - reads standard input.' };
   flags['clock'] = { type: 'string', value: '<name>', description: 'Satellite (e.g. G05) or station name in the RINEX clock file.' };
   return flags;
 }
@@ -87,9 +86,9 @@ async function readRecord(args: ParsedArgs, kinds: readonly RecordKind[], tau0: 
   if (rinexFile !== undefined) {
     const clock = optionalFlag(args, 'clock');
     if (clock === undefined) throw new UsageError('--rinex-clock needs --clock <name> (satellite such as G05, or station name)');
-    await requireRegularFile(rinexFile, 'a RINEX clock file');
-    const file = await readRinexClock(createReadStream(rinexFile, { encoding: 'utf8' }), rinexFile);
-    const s = rinexClockSeries(file, clock, tau0Option);
+    // Streamed: only the chosen clock's records are kept, so memory follows its series, not the file.
+    const s = await readRinexClockSeries(textChunks(rinexFile, 'a RINEX clock file', { maxBytes: MAX_RECORD_BYTES }), clock,
+      { sourceName: sourceLabel(rinexFile), ...tau0Option });
     // With one epoch and --tau0 the record is still a single sample: a longer file is the only fix.
     if (s.tau0 === undefined) throw new UsageError(`clock ${clock} has a single epoch; give a longer file`);
     return {
@@ -98,8 +97,8 @@ async function readRecord(args: ParsedArgs, kinds: readonly RecordKind[], tau0: 
     };
   }
   const { kind, file } = texts.find((t) => t.file !== undefined)! as { kind: RecordKind; file: string };
-  await requireRegularFile(file, `a ${kind} record (text, one or two columns)`);
-  const s = await readPhaseText(createReadStream(file, { encoding: 'utf8' }), { sourceName: file, ...tau0Option });
+  const chunks = textChunks(file, `a ${kind} record (text, one or two columns)`, { maxBytes: MAX_RECORD_BYTES });
+  const s = await readPhaseText(chunks, { sourceName: sourceLabel(file), ...tau0Option });
   if (s.tau0 === undefined) throw new UsageError(`${file} has one column; give the sample spacing with --tau0 <s>`);
   return { kind, values: s.phase, times: s.times, tau0: s.tau0, source: file, flag: `--${kind}`, gaps: s.gaps };
 }

@@ -31,6 +31,8 @@ describe('tauline clock', () => {
     expect(jump).toMatchObject({ kind: 'phase', epoch: TRUTH.jumpEpoch, index: 2500, pass: 1 });
     expect(Math.abs(jump.size - TRUTH.jumpSize)).toBeLessThan(2 * jump.sizeStd);
     expect(j.filter.rejected).toEqual([]);
+    expect(j.filter.detection).toMatchObject({ falseAlarmProbabilityPerSample: 1e-6, testsPerSample: 36, outlierProbability: 1e-4 });
+    expect(j.filter.detection.jumpThreshold).toBeCloseTo(30.856864804329376, 6); // scipy.stats.chi2.isf(1e-6/36, 1) [C]
     // q intervals at the reported 68.27 % level (χ², diffusionFromStabilityRows).
     for (const n of ['q1', 'q2'] as const) {
       const iv = j.noise.intervals[n];
@@ -53,6 +55,10 @@ describe('tauline clock', () => {
     expect(r.out).not.toMatch(/^af2/m);
     expect(r.out).toMatch(/Caution: verify these values/);
     expect(r.out).toMatch(/phase +750000 +2500/);
+    // What a declared jump means: the per-sample false-alarm probability and the GLR threshold
+    // (scipy.stats.chi2.isf(1e-6/36, 1) = 30.857; isf(1e-4, 1) = 15.137 [C]).
+    expect(r.out).toMatch(/jump detection: GLR statistic l > 30\.86 \(χ²\(1\) at 1\.00e-6\/36\); on a jump-free record a false jump is declared with probability ≤ 1\.00e-6 per sample/);
+    expect(r.out).toMatch(/outliers: impulse statistic l > 15\.14, i\.e\. a good sample is rejected with probability 1\.00e-4/);
     expect(r.out).toMatch(/measurement noise σ_v = 3\.00e-11 s \(given\)/);
     const snippet = r.out.trim().split('\n').pop()!;
     expect(Object.keys(JSON.parse(snippet))).toEqual(['q1', 'q2', 'q3']);
@@ -141,7 +147,9 @@ describe('tauline clock --rinex-clock <file> --clock <name>', () => {
     expect(r.err).toBe('');
     const j = JSON.parse(r.out);
     expect(j.input).toMatchObject({ file: LONG, clock: 'G37', timeSystem: 'GPS', samples: 400, tau0: 300, firstEpoch: gpsSeconds('2026-02-02T00:00:00'), lastEpoch: gpsSeconds('2026-02-03T09:15:00') });
-    expect(j.input.gaps).toEqual([{ index: 150, missing: 1, line: 162, time: gpsSeconds('2026-02-02T12:30:00') }]);
+    expect(j.input.gaps).toEqual([{ index: 150, missing: 1, line: 162, time: gpsSeconds('2026-02-02T12:30:00'), timeIso: '2026-02-02T12:30:00' }]);
+    expect(j.input).toMatchObject({ firstEpochIso: '2026-02-02T00:00:00', lastEpochIso: '2026-02-03T09:15:00' });
+    expect(j.polynomial.referenceTimeIso).toBe('2026-02-02T00:00:00');
     expect(j.polynomial.samplesUsed).toBe(399);
     expect(j.polynomial.referenceTime).toBe(gpsSeconds('2026-02-02T00:00:00'));
     const af1 = j.polynomial.coefficients[1];
@@ -152,15 +160,19 @@ describe('tauline clock --rinex-clock <file> --clock <name>', () => {
     // The missing epoch is a skipped update, not an outlier or a jump.
     expect(j.filter.jumps).toEqual([]);
     expect(j.filter.rejected).toEqual([]);
+    expect(j.filter.detection).toMatchObject({ falseAlarmProbabilityPerSample: 1e-6, testsPerSample: 36, outlierProbability: 1e-4 });
+    expect(j.filter.detection.jumpThreshold).toBeCloseTo(30.856864804329376, 6); // scipy.stats.chi2.isf(1e-6/36, 1) [C]
   });
 
-  it('tauline clock --rinex-clock long-304.clk --clock G37 (table) names the clock and prints the gap with its index, epoch and line', async () => {
+  it('tauline clock --rinex-clock long-304.clk --clock G37 (table) names the clock and prints the gap with its index, calendar epoch in GPS time and line', async () => {
     const r = await run(['clock', '--rinex-clock', LONG, '--clock', 'G37']);
     expect(r.status).toBe(0);
-    expect(r.out).toMatch(/^clock record .*long-304\.clk \(clock G37, GPS time\): 400 samples, τ0 = 300 s, .* 1 missing in 1 gap\(s\)$/m);
-    const gap = /^ {2}gap: 1 missing sample\(s\) from index 150 \(t = (\S+) s\), line 162$/m.exec(r.out);
-    expect(gap).not.toBeNull();
-    expect(Number(gap![1])).toBe(gpsSeconds('2026-02-02T12:30:00'));
+    // The record's epochs as written in the file (SOURCE.md): 2026-02-02 00:00 to 2026-02-03 09:15 GPS time, 300 s apart.
+    expect(r.out.replace(/\n(?! )/g, ' ')).toMatch(
+      /^clock record .*long-304\.clk \(clock G37, GPS time\): 400 samples, τ0 = 300 s, epochs 2026-02-02T00:00:00 GPS … 2026-02-03T09:15:00 GPS, 1 missing in 1 gap\(s\)/m);
+    expect(r.out).toMatch(/^ {2}gap: 1 missing sample\(s\) from index 150 \(t = 2026-02-02T12:30:00 GPS\), line 162$/m);
+    expect(r.out).toMatch(/t_oc = 2026-02-02T00:00:00 GPS/);
+    expect(r.out).not.toMatch(/\d\.\d+e\+9/);
   });
 
   it('tauline clock --rinex-clock with an unknown --clock exits 2 with one line listing the clocks in the file', async () => {
@@ -169,6 +181,37 @@ describe('tauline clock --rinex-clock <file> --clock <name>', () => {
     expect(r.out).toBe('');
     expect(r.err.trim().split('\n')).toHaveLength(1);
     expect(r.err).toMatch(/long-304\.clk.*"G99".*clocks present: ORVA00XYZ, G37/);
+  });
+
+  it('tauline clock and tauline stability read RINEX clock 2.00, 3.02 and 3.05 files (A4 and A9 layouts)', async () => {
+    const FIX = join(ROOT, 'test/fixtures/rinex-clock');
+    const v302 = JSON.parse((await run(['clock', '--rinex-clock', join(FIX, 'fictional-302.clk'), '--clock', 'E14', '--json'])).out);
+    expect(v302.input).toMatchObject({ clock: 'E14', tau0: 60, samples: 16, timeSystem: 'GPS' });
+    const v305 = await run(['stability', '--rinex-clock', join(FIX, 'fictional-305.clk'), '--clock', 'E27', '--statistics', 'oadev', '--json']);
+    expect(v305.status).toBe(0);
+    expect(JSON.parse(v305.out).input).toMatchObject({ clock: 'E27', tau0: 30, samples: 8, timeSystem: 'GAL' });
+    const v200 = await run(['clock', '--rinex-clock', join(FIX, 'fictional-200.clk'), '--clock', 'G12']);
+    expect(v200.status).toBe(0);
+    expect(v200.out).toMatch(/clock G12/);
+  });
+
+  it('tauline clock --rinex-clock refuses a year-9999 record before allocating (exit 2, one line naming file, line, gap and limit) and a record cut inside a value', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'tauline-clk-'));
+    const lines = readFileSync(LONG, 'utf8').split('\n');
+    const far = join(dir, 'far.clk');
+    const last = lines.map((l, i) => (l.startsWith('AS G37') ? i : -1)).filter((i) => i >= 0);
+    const [prev, final] = last.slice(-2) as [number, number];
+    writeFileSync(far, lines.map((l, i) => (i === final ? l.replace(/2026 02 0\d/, '9999 12 31') : l)).join('\n'));
+    const r = await run(['clock', '--rinex-clock', far, '--clock', 'G37']);
+    expect(r.status).toBe(2);
+    expect(r.err.trim().split('\n')).toHaveLength(1);
+    expect(r.err).toContain(`far.clk:${final + 1}:1: expected a clock series of at most 50000000 samples (MAX_SERIES_SAMPLES): the gap of `);
+    expect(r.err).toContain(` s from the record on line ${prev + 1}`);
+    const cut = join(dir, 'cut.clk');
+    writeFileSync(cut, [...lines.slice(0, 10), lines[10]!.slice(0, 51), ...lines.slice(11)].join('\n'));
+    const c = await run(['clock', '--rinex-clock', cut, '--clock', 'G37']);
+    expect(c.status).toBe(2);
+    expect(c.err).toMatch(/cut\.clk:11:47: expected clock bias \(s\) \(value 1 of 2, E19\.12 in columns 46-64\): a complete number in exponent form/);
   });
 
   it('tauline clock --rinex-clock without --clock exits 2 with one line asking for --clock', async () => {

@@ -19,7 +19,7 @@ describe('the tauline command framework', () => {
   it('an unknown command exits 2 naming the known ones', async () => {
     const r = await run('ratez');
     expect(r.status).toBe(2);
-    expect(r.err).toMatch(/unknown command "ratez"; known commands: .*rate/);
+    expect(r.err).toMatch(/unknown command "ratez"; did you mean rate\? \(known commands: .*rate/);
   });
 
   it('a negative number after a string flag is its value, not an option', async () => {

@@ -50,7 +50,7 @@ describe('tauline plan', () => {
     s.tolerance.phaseSeconds = 1e-8;
     const r = await run(tempFile('tight.json', JSON.stringify(s)));
     expect(r.status).toBe(1);
-    expect(r.out).toMatch(/Feasible: NO\. σ alone exceeds the tolerance after/);
+    expect(r.out).toMatch(/Feasible: NO \(smallest per-epoch probability in tolerance [\d.]+ < 0\.99\)\. σ alone exceeds the tolerance after/);
   });
 
   it('tauline plan --strategy deadband overrides the scenario strategy; an unknown strategy is a usage error', async () => {

@@ -94,6 +94,38 @@ describe('tauline precise', () => {
     expect((await run(['precise', noEof, '--json'])).err).toMatch(/no-eof\.sp3:60:1: expected the closing 'EOF' line/);
   });
 
+  it('tauline precise <SP3-a> --json reads the file, says GPS time is assumed, lists G21 without a record at 00:30 as a gap, and equals its SP3-c twin', async () => {
+    const A = join(ROOT, 'test/fixtures/sp3/orbit-a-pv.sp3');
+    const r = await run(['precise', A, '--json']);
+    expect(r.status).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j).toMatchObject({ sp3Version: 'a', timeSystem: 'GPS', timeSystemAssumed: true });
+    expect(j.satellites[1]).toMatchObject({ id: 'G21', gaps: [{ t: '2003-08-17T00:30:00', reason: 'no record at this epoch' }] });
+    const c = JSON.parse((await run(['precise', join(ROOT, 'test/fixtures/sp3/orbit-a-as-c.sp3'), '--json'])).out);
+    expect(j.satellites).toEqual(c.satellites);
+    expect(c.timeSystemAssumed).toBe(false);
+    const table = (await run(['precise', A])).out;
+    expect(table).toMatch(/SP3-a, GPS time assumed: SP3-a states none/);
+    expect(table).toMatch(/G21 2003-08-17T00:30:00: no record at this epoch/);
+  });
+
+  it('tauline precise <SP3-b positions only> equals its SP3-c twin; a non-finite coordinate is refused with file:line:column and exit 2', async () => {
+    const B = join(ROOT, 'test/fixtures/sp3/orbit-b-p.sp3');
+    const j = JSON.parse((await run(['precise', B, '--json'])).out);
+    const c = JSON.parse((await run(['precise', join(ROOT, 'test/fixtures/sp3/orbit-b-as-c.sp3'), '--json'])).out);
+    expect(j.sp3Version).toBe('b');
+    expect(j.satellites.map((s: { id: string }) => s.id)).toEqual(['G07', 'R04']);
+    expect(j.satellites).toEqual(c.satellites);
+    const tmp = mkdtempSync(join(tmpdir(), 'tauline-precise-'));
+    const bad = join(tmp, 'bad.sp3');
+    const lines = readFileSync(B, 'utf8').split('\n');
+    lines[23] = lines[23]!.slice(0, 4) + '-1e400'.padStart(14) + lines[23]!.slice(18);
+    writeFileSync(bad, lines.join('\n'));
+    const r = await run(['precise', bad]);
+    expect(r.status).toBe(2);
+    expect(r.err).toMatch(/bad\.sp3:24:5: expected x \(km\) \(a finite number/);
+  });
+
   it('node packages/cli/bin/tauline.js precise ... --json runs the built binary (after npm run build)', () => {
     if (!existsSync(join(ROOT, 'packages/cli/dist/main.js'))) throw new Error('run `npm run build` first');
     const p = spawnSync(process.execPath, [join(ROOT, 'packages/cli/bin/tauline.js'), 'precise', PV, '--satellite', 'G05', '--json'], { encoding: 'utf8' });

@@ -4,6 +4,7 @@ import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { runCli, type CliRun } from './run.js';
 import { L_G, IERS_2010, SPEED_OF_LIGHT_SQUARED } from '@tauline/sdk/constants';
+import { moonPositionLowPrecision } from '@tauline/sdk/orbit';
 
 const run = (...argv: string[]): Promise<CliRun> => runCli(['propertime', ...argv]);
 
@@ -32,7 +33,7 @@ describe('tauline propertime', () => {
     const r = await run('--state', GPS_STATE, '--duration', '3600', '--step', '1200', '--model', 'full', '--epoch-tt-j2000', '8e8');
     expect(r.status).toBe(0);
     expect(r.out).toMatch(/model full/);
-    expect(r.out).toMatch(/Montenbruck & Gill/);
+    expect(r.out.replace(/\s+/g, ' ')).toMatch(/Montenbruck & Gill/); // the title may wrap at 100 columns
     expect(r.out).toMatch(/τ − TT \(ns\)/);
     expect(r.out).toMatch(/mean rate over the span/);
   });
@@ -66,5 +67,50 @@ describe('tauline propertime', () => {
     const out = execFileSync(process.execPath, [bin, 'propertime', '--state', GPS_STATE, '--duration', '1200', '--step', '600', '--json'], { encoding: 'utf8' });
     const doc = JSON.parse(out);
     expect(doc.samples.map((s: { t: number }) => s.t)).toEqual([0, 600, 1200]);
+  });
+
+  describe('lunar orbiters', () => {
+    // A polar lunar orbiter 100 km above the mean radius (1737.4 km, IAU WGCCRE [M]) at 2023-01-01 12:00 TT, given
+    // geocentrically (mean equator and equinox of date) from the SDK's own low-precision Moon; lunar GM 4.902800066e12
+    // m³/s² (JPL DE-series value [M]). Lunar escape speed there √(2GM_M/ρ) = 2310.1 m/s [C].
+    const epoch = 725_803_200;
+    const lunarState = (speed: number): string => {
+      const m = moonPositionLowPrecision(epoch);
+      const mp = moonPositionLowPrecision(epoch + 1);
+      const mm = moonPositionLowPrecision(epoch - 1);
+      const v = [0, 1, 2].map((k) => (mp[k]! - mm[k]!) / 2);
+      return [m[0], m[1], m[2] + 1_837_400, v[0]! + speed, v[1]!, v[2]!].join(',');
+    };
+
+    it('tauline propertime --model full integrates a Moon-bound polar orbiter at 1900 m/s relative to the Moon at tolerance 1e-14', async () => {
+      const r = await run(`--state=${lunarState(1900)}`, '--duration', '86400', '--step', '43200', '--model', 'full',
+        '--epoch-tt-j2000', String(epoch), '--tolerance', '1e-14', '--json');
+      expect(r.err).toBe('');
+      expect(r.status).toBe(0);
+      const doc = JSON.parse(r.out);
+      // a lunar clock runs ≈ 56 µs/day fast against TT (lunarClockRate; Ashby & Patla 2024: 56.02 µs/day at the surface [V2])
+      expect(doc.meanRate * 86400e6).toBeGreaterThan(55);
+      expect(doc.meanRate * 86400e6).toBeLessThan(58);
+      expect(doc.acceptedSteps).toBeLessThan(2000);
+    });
+
+    it('tauline propertime refuses the same state under the Earth-only j2 model with a hint to use --model full (exit 2)', async () => {
+      const r = await run(`--state=${lunarState(1900)}`, '--duration', '86400', '--step', '43200');
+      expect(r.status).toBe(2);
+      expect(r.err).toMatch(/escape speed √\(2GM\/r\).*for a lunar orbiter use --model full/);
+    });
+
+    it('tauline propertime --model full refuses a state inside the Moon\'s Hill sphere above the lunar escape speed 2310.1 m/s (exit 2)', async () => {
+      const r = await run(`--state=${lunarState(2400)}`, '--duration', '86400', '--step', '43200', '--model', 'full', '--epoch-tt-j2000', String(epoch));
+      expect(r.status).toBe(2);
+      expect(r.err).toMatch(/lunar escape speed √\(2GM_M\/ρ\) = 2310\.1 m\/s/);
+      expect(r.err.trim().split('\n')).toHaveLength(1);
+    });
+
+    it('tauline propertime --model full stops with exit 2 when the lunar orbit hits the Moon', async () => {
+      const r = await run(`--state=${lunarState(500)}`, '--duration', '86400', '--step', '43200', '--model', 'full', '--epoch-tt-j2000', String(epoch));
+      expect(r.status).toBe(2);
+      expect(r.err).toMatch(/hits the Moon/);
+    });
   });
 });

@@ -11,10 +11,12 @@ export interface CliRun {
 /**
  * Runs `tauline ...argv` in-process and returns its exit status and what it wrote.
  * @param isTty  Whether commands see stderr as a terminal (progress bars are drawn only then).
+ * @param stdin  What a file named `-` reads: a text, or a generator of chunks (e.g. an endless one); default nothing.
  */
-export async function runCli(argv: readonly string[], isTty = false): Promise<CliRun> {
+export async function runCli(argv: readonly string[], isTty = false, stdin?: string | (() => AsyncIterable<Uint8Array | string>)): Promise<CliRun> {
   let out = '';
   let err = '';
-  const status = await main([...argv], { out: (t) => { out += t; }, err: (t) => { err += t; }, isTty });
+  const input = typeof stdin === 'string' ? async function* text() { yield Buffer.from(stdin, 'utf8'); } : stdin;
+  const status = await main([...argv], { out: (t) => { out += t; }, err: (t) => { err += t; }, isTty, ...(input ? { stdin: input } : {}) });
   return { status, out, err };
 }

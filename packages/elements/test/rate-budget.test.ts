@@ -1,5 +1,5 @@
 import { fixture, html, expect } from '@open-wc/testing';
-import { meanClockRate } from '@tauline/sdk/relativity';
+import { FLIGHT_CONFIGURATION_CAUTION, meanClockRate } from '@tauline/sdk/relativity';
 import '../src/rate-budget/rate-budget.define.js';
 import type { TaulineRateBudget } from '../src/rate-budget/rate-budget.js';
 import { captureWarnings } from './fixtures.js';
@@ -27,6 +27,15 @@ describe('tauline-rate-budget', () => {
     const total = cells(el, 'total');
     expect(total[2]).to.equal('−4.4647e−10');
     expect(total[3]).to.equal('−4.567 mHz');
+  });
+
+  it('the factory offsets and hertz values carry the SDK\'s FLIGHT_CONFIGURATION_CAUTION, and the bar column has a visible header', async () => {
+    const el = await fixture<TaulineRateBudget>(html`<tauline-rate-budget .budget=${meanClockRate(26_561_750)}></tauline-rate-budget>`);
+    const caution = el.shadowRoot!.querySelector('[part~="caution"]')!;
+    expect(caution.getAttribute('role')).to.equal('note');
+    expect(caution.textContent!.trim()).to.equal(FLIGHT_CONFIGURATION_CAUTION);
+    const bar = el.shadowRoot!.querySelector('th.bar-col')! as HTMLElement;
+    expect(bar.innerText.trim()).to.match(/^Size and sign/);
   });
 
   it('nominal-frequency attribute changes the hertz column (10.23 MHz × 2 doubles the shift)', async () => {

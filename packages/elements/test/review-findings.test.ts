@@ -57,6 +57,19 @@ describe('tauline-review-findings', () => {
     expect(li.textContent).to.contain('4.5800e−10');
   });
 
+  it('a null diagnosis entry shows a visible notice naming it, keeps the readable entries and warns once', async () => {
+    const w = await captureWarnings();
+    try {
+      const bad = { ...REVIEW, spacecraft: REVIEW.spacecraft.map((f) => (f.id === 'LYRA-05' ? { ...f, diagnosis: [null, ...f.diagnosis!] } : f)) };
+      const el = await fixture<TaulineReviewFindings>(html`<tauline-review-findings .review=${bad}></tauline-review-findings>`);
+      const notice = el.shadowRoot!.querySelector('.notice[role="alert"]')!;
+      expect(notice.textContent).to.contain('spacecraft[1] (LYRA-05).diagnosis[0] is null');
+      expect(el.shadowRoot!.querySelectorAll('details').length).to.equal(3);
+      expect(el.shadowRoot!.querySelector('.diagnosis li')!.textContent).to.contain('sign-flipped');
+      expect(w.list.map((x) => x.code)).to.deep.equal(['invalid-diagnosis']);
+    } finally { w.restore(); }
+  });
+
   it('bad data shows an error state and warns once', async () => {
     const w = await captureWarnings();
     try {

@@ -1,7 +1,9 @@
-import { fixture, html, expect } from '@open-wc/testing';
+import { fixture as openFixture, html, expect, nextFrame } from '@open-wc/testing';
+import type { TemplateResult } from 'lit';
 import '../src/stability-plot/stability-plot.define.js';
 import type { TaulineStabilityPlot } from '../src/stability-plot/stability-plot.js';
 import { normaliseStability } from '../src/stability-plot/stability-data.js';
+import { decimateLogTau } from '../src/stability-plot/stability-draw.js';
 import { captureWarnings } from './fixtures.js';
 
 // 1000-point set of W. J. Riley, NIST SP 1065 pp. 107–108, as tabulated in physics-refs §10 [V2; reproduced C]:
@@ -25,9 +27,22 @@ interface Internals {
 }
 const internals = (el: TaulineStabilityPlot): Internals => el as unknown as Internals;
 
+/**
+ * Renders like open-wc's fixture, then lets the ResizeObserver report the plot's size (the plot
+ * reads no layout during an update, so it draws after the observer's first callback) and waits for
+ * that update.
+ */
+async function fixture<T extends HTMLElement>(template: TemplateResult): Promise<T> {
+  const el = await openFixture<T>(template);
+  await nextFrame();
+  await nextFrame();
+  await (el as unknown as { updateComplete: Promise<unknown> }).updateComplete;
+  return el;
+}
+
 /** Moves the pointer onto point i of series k (through the plot's own scales) and waits for the read-out. */
 async function hoverPoint(el: TaulineStabilityPlot, k: number, i: number): Promise<Element> {
-  const box = el.shadowRoot!.querySelector<HTMLElement>('.plot-box')!;
+  const box = el.shadowRoot!.querySelector<HTMLElement>('canvas.overlay')!;
   const r = el.shadowRoot!.querySelector('canvas.data')!.getBoundingClientRect();
   const pos = internals(el)._pointPosition(k, i)!;
   box.dispatchEvent(new PointerEvent('pointermove', { clientX: r.left + pos.x, clientY: r.top + pos.y, bubbles: true }));
@@ -103,11 +118,101 @@ describe('tauline-stability-plot', () => {
     } finally { w.restore(); }
   });
 
-  it('no-table hides the table visually but keeps it for assistive technology', async () => {
+  it('no-table leaves the table out (nothing hidden is built); the plot keeps its accessible name', async () => {
     const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot no-table .series=${[OADEV]}></tauline-stability-plot>`);
+    expect(el.shadowRoot!.querySelector('table')).to.equal(null);
+    expect(el.shadowRoot!.querySelector('canvas.data')!.getAttribute('aria-label')).to.contain('Overlapping ADEV');
+  });
+
+  it('decimateLogTau(τ, dev, lx0, lx1, cols) keeps every log-τ column\'s first, lowest, highest and last deviation (brute-force scan in the test; common practice, no source)', () => {
+    // Seeded (Park–Miller) τ over six decades, jittered deviations: 200 000 points into 300 columns.
+    let seed = 12345;
+    const rnd = (): number => (seed = (seed * 16807) % 2147483647) / 2147483647;
+    const n = 200_000, cols = 300;
+    const tau = Float64Array.from({ length: n }, (_, i) => 10 ** ((6 * (i + 0.5 * rnd())) / n));
+    const dev = Float64Array.from(tau, (t) => (1e-11 / Math.sqrt(t)) * (1 + 0.3 * (rnd() - 0.5)));
+    const lx0 = Math.log10(tau[0]!), lx1 = Math.log10(tau[n - 1]!) + 1e-9;
+    const line = decimateLogTau(tau, dev, lx0, lx1, cols);
+    expect(line.length).to.be.at.most(4 * cols);
+    const kept = new Set(Array.from(line.y.subarray(0, line.length)));
+    const byCol = new Map<number, number[]>();
+    tau.forEach((t, i) => {
+      const c = Math.floor((Math.log10(t) - lx0) * (cols / (lx1 - lx0)));
+      const col = byCol.get(c) ?? [];
+      col.push(dev[i]!);
+      byCol.set(c, col);
+    });
+    let missing = 0;
+    for (const values of byCol.values()) {
+      for (const v of [values[0]!, Math.min(...values), Math.max(...values), values[values.length - 1]!]) if (!kept.has(v)) missing += 1;
+    }
+    expect(missing).to.equal(0);
+    for (let i = 1; i < line.length; i++) expect(line.x[i]!).to.be.at.least(line.x[i - 1]!);
+  });
+
+  it('the table is windowed: 10^5 points put at most 30 rows in the DOM, aria-rowcount gives the full count, scrolling moves the window', async () => {
+    const n = 100_000;
+    const big = { statistic: 'oadev', tau: Float64Array.from({ length: n }, (_, i) => i + 1), deviation: Float64Array.from({ length: n }, (_, i) => 1e-11 / Math.sqrt(i + 1)) };
+    const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:700px" .series=${[big]}></tauline-stability-plot>`);
+    const rows = () => el.shadowRoot!.querySelectorAll('tbody tr[part~="row"]');
+    expect(rows().length).to.be.at.most(30);
+    expect(el.shadowRoot!.querySelector('table')!.getAttribute('aria-rowcount')).to.equal(String(n + 1));
     const wrap = el.shadowRoot!.querySelector<HTMLElement>('.table-wrap')!;
-    expect(wrap.getBoundingClientRect().height).to.be.at.most(1);
-    expect(el.shadowRoot!.querySelector('table')).to.exist;
+    wrap.scrollTop = 24 * 50_000;
+    wrap.dispatchEvent(new Event('scroll'));
+    await el.updateComplete;
+    const first = Number(rows()[0]!.getAttribute('aria-rowindex'));
+    expect(first).to.be.within(49_980, 50_002);
+    expect(rows().length).to.be.at.most(30);
+  });
+
+  it('an update reads no layout: setting 10^4 points and hovering call getBoundingClientRect on nothing', async () => {
+    const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:700px" .series=${[OADEV]}></tauline-stability-plot>`);
+    const original = Element.prototype.getBoundingClientRect;
+    let reads = 0;
+    Element.prototype.getBoundingClientRect = function (this: Element) { reads += 1; return original.call(this); };
+    try {
+      const n = 10_000;
+      el.series = [{ statistic: 'oadev', tau: Float64Array.from({ length: n }, (_, i) => i + 1), deviation: Float64Array.from({ length: n }, (_, i) => 1e-11 / Math.sqrt(i + 1)) }];
+      await el.updateComplete;
+      await nextFrame();
+      await el.updateComplete;
+      const overlay = el.shadowRoot!.querySelector('canvas.overlay')!;
+      overlay.dispatchEvent(new PointerEvent('pointermove', { clientX: 200, clientY: 100, bubbles: true }));
+      await el.updateComplete;
+    } finally { Element.prototype.getBoundingClientRect = original; }
+    expect(reads).to.equal(0);
+    expect(internals(el)._scales).to.not.equal(null);
+  });
+
+  it('a τ with fewer than min-terms terms (default 2, NIST SP 1065 §5.3 [M]) is left off and named in a note; min-terms="1" shows it', async () => {
+    const withLast = { ...OADEV, tau: Float64Array.of(1, 10, 100, 500), deviation: Float64Array.of(2.922319e-1, 9.159953e-2, 3.241343e-2, 2e-2),
+      low: Float64Array.of(2.845420e-1, 8.668102e-2, 2.5e-2, 1e-3), high: Float64Array.of(3.005809e-1, 9.746298e-2, 4.2e-2, 9), n: Float64Array.of(998, 980, 800, 1) };
+    const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[withLast]}></tauline-stability-plot>`);
+    expect(el.shadowRoot!.querySelectorAll('tbody tr[part~="row"]').length).to.equal(3);
+    expect(el.shadowRoot!.querySelector('[part~="note"]')!.textContent).to.contain('OADEV at τ = 8.33 min');
+    expect(internals(el)._scales!.sx.domain[1]).to.be.below(500);
+    el.minTerms = 1;
+    await el.updateComplete;
+    expect(el.shadowRoot!.querySelectorAll('tbody tr[part~="row"]').length).to.equal(4);
+    expect(el.shadowRoot!.querySelector('[part~="note"]')).to.equal(null);
+  });
+
+  it('legend buttons (aria-pressed) hide and show a statistic: it leaves the plot, its accessible name and the table', async () => {
+    const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[OADEV, MDEV]}></tauline-stability-plot>`);
+    const buttons = el.shadowRoot!.querySelectorAll<HTMLButtonElement>('[part~="legend"] button');
+    expect(buttons.length).to.equal(2);
+    expect(buttons[0]!.getAttribute('aria-pressed')).to.equal('true');
+    buttons[0]!.click();
+    await el.updateComplete;
+    expect(buttons[0]!.getAttribute('aria-pressed')).to.equal('false');
+    expect(el.plotLabel).not.to.contain('Overlapping ADEV');
+    expect(el.plotLabel).to.contain('MDEV');
+    expect(el.shadowRoot!.querySelectorAll('tbody tr[part~="row"]').length).to.equal(3);
+    buttons[0]!.click();
+    await el.updateComplete;
+    expect(el.plotLabel).to.contain('Overlapping ADEV');
+    await expect(el).to.be.accessible();
   });
 
   describe('units: TDEV (seconds) apart from the dimensionless σ_y statistics (common practice, no source: one axis per unit)', () => {

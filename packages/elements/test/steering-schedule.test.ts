@@ -44,7 +44,11 @@ describe('tauline-steering-schedule', () => {
     const rows = shadow(el).querySelectorAll('tbody tr');
     expect(rows.length).to.equal(3);
     const first = [...rows[0]!.querySelectorAll('td')].map((td) => td.textContent!.trim());
-    expect(first[0]).to.equal('2031-04-02 08:20:00 UTC');
+    // Uplink before Executes, in the order the CLI prints them.
+    const head = [...shadow(el).querySelectorAll('thead th')].map((th) => th.textContent!.trim());
+    expect(head.slice(1, 3)).to.deep.equal(['Uplink', 'Executes']);
+    expect(first[0]).to.equal('2031-04-02 05:33:20 UTC');
+    expect(first[1]).to.equal('2031-04-02 08:20:00 UTC');
     expect(first[2]).to.equal('frequency');
     expect(first[3]).to.equal('−6.000e−14');
     const third = [...rows[2]!.querySelectorAll('td')].map((td) => td.textContent!.trim());
@@ -256,6 +260,39 @@ describe('tauline-steering-schedule', () => {
     expect(shadow(el).querySelector('.caution')!.textContent).to.contain('Verify against');
   });
 
+  it('a plan with NaN or Infinity in its series shows an alert and an invalid-data badge, never "feasible", and warns once', async () => {
+    const w = await captureWarnings();
+    try {
+      const el = await fixture<TaulineSteeringSchedule>(html`<tauline-steering-schedule style="width: 760px"></tauline-steering-schedule>`);
+      const plan = makePlan();
+      plan.predicted.steered.phaseSeconds[10] = Number.NaN;
+      plan.predicted.unsteered.sigmaSeconds = Float64Array.from(plan.predicted.unsteered.sigmaSeconds, (v, i) => (i === 3 ? Infinity : v));
+      el.plan = plan;
+      el.scenario = makeScenario();
+      await el.updateComplete;
+      const alert = shadow(el).querySelector('[role="alert"]')!;
+      expect(alert.textContent).to.contain('plan.predicted.steered.phaseSeconds holds 1 non-finite value (first at index 10: NaN)');
+      expect(alert.textContent).to.contain('plan.predicted.unsteered.sigmaSeconds holds 1 non-finite value (first at index 3: Infinity)');
+      const badge = shadow(el).querySelector('.badge')!.textContent!;
+      expect(badge).to.contain('invalid data');
+      expect(badge).to.not.contain('feasible');
+      expect(w.list.map((x) => x.code)).to.deep.equal(['invalid-plan-values']);
+    } finally { w.restore(); }
+  });
+
+  it('a scenario with a NaN tolerance shows an alert naming scenario.tolerance.phaseSeconds instead of a "feasible" badge', async () => {
+    const w = await captureWarnings();
+    try {
+      const el = await fixture<TaulineSteeringSchedule>(html`<tauline-steering-schedule style="width: 760px"></tauline-steering-schedule>`);
+      el.plan = makePlan();
+      el.scenario = { ...makeScenario(), tolerance: { phaseSeconds: Number.NaN, probability: 0.95 } };
+      await el.updateComplete;
+      expect(shadow(el).querySelector('[role="alert"]')!.textContent).to.contain('scenario.tolerance.phaseSeconds must be a positive number of seconds; received NaN');
+      expect(shadow(el).querySelector('.badge')!.textContent).to.not.contain('feasible');
+      expect(w.list.length).to.equal(1);
+    } finally { w.restore(); }
+  });
+
   it('an infeasible plan shows its reason and a not-feasible badge (text and symbol)', async () => {
     const el = await fixture<TaulineSteeringSchedule>(html`<tauline-steering-schedule></tauline-steering-schedule>`);
     el.plan = { ...makePlan(), feasible: false, reason: 'The actuator range cannot hold the tolerance after the manoeuvre.' };
@@ -332,6 +369,6 @@ describe('tauline-steering-schedule across a leap second', () => {
     const rows = [...shadow(el).querySelectorAll('tbody tr')];
     expect(rows.length).to.equal(3);
     const cells = [...rows[2]!.querySelectorAll('td')].map((td) => td.textContent!.trim());
-    expect(cells[0]).to.equal('2017-01-01 06:00:00 UTC');
+    expect(cells[1]).to.equal('2017-01-01 06:00:00 UTC');
   });
 });

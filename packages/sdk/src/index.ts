@@ -7,6 +7,7 @@
  */
 export * from './units.js';
 export * from './errors.js';
+export { FLIGHT_CONFIGURATION_CAUTION } from './caution.js';
 export * from './constants.js';
 export * from './time/index.js';
 export * from './orbit/index.js';
@@ -15,6 +16,7 @@ export * from './oscillator/index.js';
 export * from './review/index.js';
 export * from './stability/index.js';
 export * from './steering/index.js';
+export * from './fleet/index.js';
 export * from './signal/index.js';
 export * from './io/index.js';
 export * from './clock-model/index.js';

@@ -2,7 +2,7 @@
  * `tauline broadcast`: reads RINEX navigation files and prints, per satellite and epoch, the
  * relativistic correction Δt_r = F e √A sin E_k and the full broadcast clock correction.
  */
-import { createReadStream, statSync } from 'node:fs';
+import { statSync } from 'node:fs';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import {
   BROADCAST_SIGNALS, evaluateBroadcastEphemeris, selectEphemeris, signalClockCorrection, signalClockSource, signalsOf, type BroadcastSignal,
@@ -14,9 +14,11 @@ import {
 import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant, type TimeScale, type TimeScales } from '@tauline/sdk/time';
 import {
   EXIT_FINDING, EXIT_OK, FLIGHT_CAUTION, TABLE_JSON_CSV, UsageError, formatFlag, formatFlags, numberFlag, optionalFlag, progressBar, requireFlag,
-  table, toJson, type Command, type Io, type ParsedArgs,
+  toJson, type Command, type Io, type ParsedArgs,
 } from '../framework.js';
-import { requireRegularFile } from '../files.js';
+import { fitTable, outputWidth, wrapLines } from '../layout.js';
+import { MAX_NAVIGATION_BYTES, STANDARD_INPUT, requireRegularFile, sourceLabel, textChunks } from '../files.js';
+import { NAV_FILE_UNITS, type NavFileSummary, navHeaderLines, noRecordReason, summariseNavHeader } from '../nav-summary.js';
 
 /** Input size above which a progress bar is drawn on a terminal, in bytes. */
 export const PROGRESS_BYTES = 4 * 1024 * 1024;
@@ -40,17 +42,17 @@ export function progress(io: Io, label: string, totalBytes: number): { add: (n: 
   };
 }
 
-/** Streams a file as UTF-8 chunks, reporting each chunk's size to `onChunk`. */
-export async function* fileChunks(path: string, onChunk: (bytes: number) => void): AsyncGenerator<string> {
-  for await (const chunk of createReadStream(path, { encoding: 'utf8', highWaterMark: 256 * 1024 })) {
-    onChunk(Buffer.byteLength(chunk as string));
-    yield chunk as string;
-  }
+/**
+ * Streams a file (or standard input for `-`) as UTF-8 chunks, reporting each chunk's size to `onChunk`;
+ * a pipe, device, directory, binary content or more than `maxBytes` is refused (see `textChunks`).
+ */
+export function fileChunks(path: string, what: string, onChunk: (bytes: number) => void, maxBytes?: number): AsyncGenerator<string> {
+  return textChunks(path, what, { onChunk, ...(maxBytes !== undefined ? { maxBytes } : {}) });
 }
 
-/** Total size of the files, in bytes. */
+/** Total size of the files, in bytes (standard input counts as 0: its size is unknown). */
 export function totalSize(paths: readonly string[]): number {
-  return paths.reduce((sum, p) => sum + statSync(p).size, 0);
+  return paths.reduce((sum, p) => sum + (p === STANDARD_INPUT ? 0 : statSync(p).size), 0);
 }
 
 /** Name of each system's own time scale as printed. */
@@ -90,7 +92,11 @@ export interface LoadedNavigation {
   readonly skipped: Map<string, number>;
   /** Records of modelled systems not kept because their fit interval lies outside the window. */
   readonly outsideWindow: number;
+  /** The same, by satellite. */
+  readonly outsideWindowBySatellite: ReadonlyMap<string, number>;
   readonly leapSeconds: number | undefined;
+  /** Header parameters of each file, in the order read. */
+  readonly files: readonly NavFileSummary[];
 }
 
 /**
@@ -103,14 +109,18 @@ export async function loadNavigation(paths: readonly string[], io: Io, window: (
   const records = new Map<string, RinexNavEphemeris[]>();
   const skipped = new Map<string, number>();
   let outsideWindow = 0;
+  const outsideWindowBySatellite = new Map<string, number>();
   let leapSeconds: number | undefined;
-  for (const path of paths) await requireRegularFile(path, 'a RINEX navigation file');
+  const files: NavFileSummary[] = [];
+  for (const path of paths) await requireRegularFile(path, 'a RINEX navigation file', MAX_NAVIGATION_BYTES);
+  if (paths.filter((p) => p === STANDARD_INPUT).length > 1) throw new UsageError('- (standard input) can be read once only; give it once');
   const bar = progress(io, 'reading navigation data', totalSize(paths));
   try {
     for (const path of paths) {
-      for await (const ev of readRinexNav(fileChunks(path, bar.add), { sourceName: path })) {
+      for await (const ev of readRinexNav(fileChunks(path, 'a RINEX navigation file', bar.add, MAX_NAVIGATION_BYTES), { sourceName: sourceLabel(path) })) {
         if (ev.kind === 'header') {
           leapSeconds ??= ev.header.leapSeconds?.current;
+          files.push(summariseNavHeader(path, ev.header));
         } else if (ev.kind === 'skipped') {
           if (filter && ev.record.satellite && !filter.has(ev.record.satellite)) continue;
           skipped.set(ev.record.reason, (skipped.get(ev.record.reason) ?? 0) + 1);
@@ -120,6 +130,7 @@ export async function loadNavigation(paths: readonly string[], io: Io, window: (
           const w = window(eph.system);
           if (eph.toeSeconds + eph.fitIntervalSeconds / 2 < w.from || eph.toeSeconds - eph.fitIntervalSeconds / 2 > w.to) {
             outsideWindow++;
+            outsideWindowBySatellite.set(eph.satellite, (outsideWindowBySatellite.get(eph.satellite) ?? 0) + 1);
             continue;
           }
           let list = records.get(eph.satellite);
@@ -131,7 +142,7 @@ export async function loadNavigation(paths: readonly string[], io: Io, window: (
   } finally {
     bar.finish();
   }
-  return { records, skipped, outsideWindow, leapSeconds };
+  return { records, skipped, outsideWindow, outsideWindowBySatellite, leapSeconds, files };
 }
 
 /** Parses ISO 8601 text for `--from`/`--to`: on UTC (designator required) or as a reading of each system's scale (none allowed). */
@@ -175,11 +186,13 @@ interface SampleOut {
   issueOfData?: number;
   message?: string;
   reason?: string;
+  /** Short form of `reason` for the table (not in JSON or CSV). */
+  short?: string;
 }
 
 export const broadcastCommand: Command = {
   name: 'broadcast',
-  summary: 'Relativistic correction F·e·√A·sin E_k and full clock correction from RINEX navigation files (GPS, Galileo, BeiDou).',
+  summary: 'Relativistic correction F·e·√A·sin E_k and full clock correction from RINEX 2.10/2.11, 3.0x and 4.0x navigation files (GPS, Galileo, BeiDou).',
   usage: '<rinex-nav-file>... --from <ISO 8601> --to <ISO 8601> --step <s> [--satellite G01,...] [--signal <name>] [--time-scale system|utc] [--galileo inav|fnav] [--include-unhealthy] [--json | --csv | --format table|json|csv]',
   allowPositionals: true,
   flags: {
@@ -197,16 +210,24 @@ export const broadcastCommand: Command = {
     }),
   },
   details: `
-Reads RINEX 3.0x / 4.0x navigation files (streamed; several files, e.g. a month of daily files, may be given).
-Modelled: GPS LNAV, Galileo I/NAV and F/NAV, BeiDou D1/D2; other records are counted as skipped with a reason.
+Reads RINEX 2.10 / 2.11, 3.0x and 4.0x navigation files (streamed; several files, e.g. a month of daily files, may
+be given). Modelled: GPS LNAV (RINEX 2 'N' files, two-digit years read 80-99 → 19xx, 00-79 → 20xx), Galileo I/NAV
+and F/NAV, BeiDou D1/D2; other records (RINEX 2 GLONASS 'G' and GEO 'H' files included) are counted as skipped with
+a reason. RINEX 2 Galileo ('L') and mixed navigation files are not defined by RINEX 2.11 and are refused (exit 2).
+Each file's header parameters are shown: leap seconds, broadcast ionosphere (RINEX 2 ION ALPHA / ION BETA as GPSA /
+GPSB, RINEX 3 IONOSPHERIC CORR) and time-system corrections (RINEX 2 DELTA-UTC: A0,A1,T,W as GPUT, RINEX 3 TIME
+SYSTEM CORR), as broadcast.
 For each satellite and sample time t the record is chosen by the usual rule (common practice, no source): healthy
 records whose fit interval covers t (GPS: from the record, 0 → 4 h; Galileo, BeiDou: 4 h), nearest t_oe, ties to
 t_oe ≤ t, then the latest transmission, then the highest issue of data. Then (IS-GPS-200 §20.3.3.3.3.1 and
 Table 20-IV [M]; Galileo OS SIS ICD; BDS-SIS-ICD, each with its own GM, Ω_E and F):
   Δt_r = F e √A sin E_k,   Δt_sv = a_f0 + a_f1 (t − t_oc) + a_f2 (t − t_oc)² + Δt_r   (group delays not applied).
 Times are read in each system's own scale (GPST, GST, BDT) unless --time-scale utc. A sample with no valid record
-has null values and a reason. JSON: { satellites: [{ id, timeScale, samples: [{ t, relativisticSeconds,
-clockCorrectionSeconds, toe, issueOfData, message }] }], skipped, notes, units, caution }. Seconds are SI seconds.
+has null values and a reason (past the end or before the start of the nearest record's fit interval: never
+extrapolated). JSON: { files: [{ file, version, fileType, satelliteSystem, leapSeconds, ionosphere: [{ type,
+parametersBroadcastUnits }], timeSystemCorrections: [{ type, a0, a1, referenceSecondsOfWeek, referenceWeek }] }],
+satellites: [{ id, timeScale, samples: [{ t, relativisticSeconds, clockCorrectionSeconds, toe, issueOfData, message }] }],
+skipped, notes, units, caution }. Seconds are SI seconds.
 --signal <name> adds, per sample, clockCorrectionSignalSeconds, groupDelaySeconds (as broadcast) and groupDelayField
 (JSON: also signal and signalSource at the top; CSV: three columns at the end; table: two columns):
   GPS (IS-GPS-200 §20.3.3.3.3.2 [M]):  L1CA, L1P: Δt_sv − T_GD;  L2P: Δt_sv − γ T_GD, γ = (77/60)².
@@ -275,7 +296,8 @@ is still printed, every value null), 2 invalid input or a malformed file.`,
           samplesWithoutRecord++;
           samples.push({
             t: label(k), relativisticSeconds: null, clockCorrectionSeconds: null,
-            reason: records.length === 0 ? 'no record of this satellite in the files' : 'no healthy record whose fit interval covers this time',
+            ...(modelled ? noRecordReason(records, t, includeUnhealthy, SYSTEM_SCALE_LABEL[system], nav.outsideWindowBySatellite.get(id) ?? 0)
+              : { reason: 'no record of this satellite in the files', short: 'no record in the files' }),
           });
           continue;
         }
@@ -309,8 +331,9 @@ is still printed, every value null), 2 invalid input or a malformed file.`,
         step,
         selection: 'nearest t_oe among healthy records whose fit interval covers t (ties: t_oe ≤ t, latest transmission, highest issue of data)',
         galileoMessage,
+        files: nav.files,
         ...(signal ? { signal, signalSource: signalClockSource(signal) } : {}),
-        satellites: out,
+        satellites: out.map((s) => ({ ...s, samples: s.samples.map(({ short: _short, ...x }) => x) })),
         samplesWithoutRecord,
         recordsOutsideWindow: nav.outsideWindow,
         skipped,
@@ -318,6 +341,7 @@ is still printed, every value null), 2 invalid input or a malformed file.`,
         units: {
           step: 's', t: 'ISO 8601 in timeScale', relativisticSeconds: 's', clockCorrectionSeconds: 's', toe: 'ISO 8601 in the system scale',
           ...(signal ? { clockCorrectionSignalSeconds: 's', groupDelaySeconds: 's' } : {}),
+          files: NAV_FILE_UNITS,
         },
         caution: FLIGHT_CAUTION,
       }));
@@ -334,25 +358,33 @@ is still printed, every value null), 2 invalid input or a malformed file.`,
       io.err(`${FLIGHT_CAUTION}\n`);
       return status;
     }
-    io.out(`Broadcast relativistic and clock corrections (${utc ? 'times in UTC' : 'times in each system\'s own scale: GPST, GST, BDT'})\n\n`);
+    const width = outputWidth(args);
+    io.out(wrapLines(`Broadcast relativistic and clock corrections (${utc ? 'times in UTC' : 'times in each system\'s own scale: GPST, GST, BDT'})\n\n`, width));
     const rows: (string | number)[][] = [];
+    // Fitted to the width, a sample without a record shows "—" for t_oe and its reason on a line of its own.
+    const rowNotes: (string | undefined)[] = [];
     for (const s of out) {
       for (const x of s.samples) {
+        rowNotes.push(width === undefined ? undefined : x.reason);
         const row: (string | number)[] = [s.id, x.t, x.relativisticSeconds === null ? '—' : (x.relativisticSeconds * 1e9).toFixed(4),
           x.clockCorrectionSeconds === null ? '—' : x.clockCorrectionSeconds.toExponential(12)];
         if (signal) {
           row.push(x.clockCorrectionSignalSeconds == null ? '—' : x.clockCorrectionSignalSeconds.toExponential(12),
             x.groupDelaySeconds == null ? '—' : `${(x.groupDelaySeconds * 1e9).toFixed(4)} ${x.groupDelayField}`);
         }
-        row.push(x.toe ?? (x.reason ?? ''), x.message ?? '');
+        row.push(x.toe ?? (width === undefined ? (x.reason ?? '') : '—'), x.message ?? '');
         rows.push(row);
       }
     }
-    io.out(table(['sat', 't', 'Δt_r (ns)', 'Δt_sv (s)', ...(signal ? [`Δt_sv ${signal} (s)`, 'group delay (ns)'] : []), 't_oe', 'message'], rows));
-    if (samplesWithoutRecord > 0) io.out(`\n${samplesWithoutRecord} sample(s) without a valid record (shown as —).\n`);
-    if (skipped.length > 0) io.out(`\nSkipped records:\n${skipped.map((s) => `  ${s.count} × ${s.reason}`).join('\n')}\n`);
-    if (notes.size > 0) io.out(`\nNotes:\n${[...notes].map((n) => `  ${n}`).join('\n')}\n`);
-    io.out(`\n${FLIGHT_CAUTION}\n`);
+    const headers = ['sat', 't', 'Δt_r (ns)', 'Δt_sv (s)', ...(signal ? [`Δt_sv ${signal} (s)`, 'group delay (ns)'] : []), 't_oe', 'message'];
+    io.out(fitTable(headers, rows, { width, notes: rowNotes, below: [headers.length - 2, headers.length - 1] }));
+    const text: string[] = [];
+    if (samplesWithoutRecord > 0) text.push(`\n${samplesWithoutRecord} sample(s) without a valid record (shown as —).\n`);
+    text.push(`\nNavigation files (header parameters as broadcast):\n${navHeaderLines(nav.files).join('\n')}\n`);
+    if (skipped.length > 0) text.push(`\nSkipped records:\n${skipped.map((s) => `  ${s.count} × ${s.reason}`).join('\n')}\n`);
+    if (notes.size > 0) text.push(`\nNotes:\n${[...notes].map((n) => `  ${n}`).join('\n')}\n`);
+    text.push(`\n${FLIGHT_CAUTION}\n`);
+    io.out(wrapLines(text.join(''), width));
     return status;
   },
 };

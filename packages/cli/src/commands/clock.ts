@@ -9,10 +9,28 @@ import {
 } from '@tauline/sdk/clock-model';
 import { analyzeStability } from '@tauline/sdk/stability';
 import {
-  EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, numberFlag, optionalFlag, parseNumber, sig, table, toJson,
+  EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, numberFlag, optionalFlag, parseNumber, sig, toJson,
   UsageError, withFlagNames, type Command, type ParsedArgs,
 } from '../framework.js';
 import { readClockRecord, recordFlags } from '../records.js';
+import { epochFormat } from '../epochs.js';
+import { phaseSigmaHint, warn } from '../plausibility.js';
+import { startProgress } from '../progress.js';
+import { statSync } from 'node:fs';
+import { fitTable, outputWidth, wrappedOut } from '../layout.js';
+
+/** Input size above which a terminal shows the progress of reading and characterising, in bytes. */
+export const CLOCK_PROGRESS_BYTES = 4 * 1024 * 1024;
+
+/** Size of the record file named by the input flags, in bytes (0 when it cannot be known, e.g. a pipe). */
+function inputBytes(args: ParsedArgs): number {
+  const path = optionalFlag(args, 'rinex-clock') ?? optionalFlag(args, 'phase');
+  try {
+    return path === undefined ? 0 : statSync(path).size;
+  } catch {
+    return 0; // the reader reports an unusable file
+  }
+}
 
 function choice<T extends number>(args: ParsedArgs, flag: string, allowed: readonly T[], fallback: T): T {
   const text = optionalFlag(args, flag);
@@ -47,19 +65,35 @@ const H_OF_Q = {
 function characterise(phase: Float64Array, t: Float64Array, tau0: number, opts: {
   degree: 1 | 2; referenceTime: number; states: ClockStates; rFit: number; rFitStd: number; rFilter: number; predict: number[];
 }) {
-  const valid: number[] = [];
-  for (let k = 0; k < phase.length; k++) if (phase[k] === phase[k]) valid.push(k);
-  const tv = Float64Array.from(valid, (k) => t[k] as number);
-  const zv = Float64Array.from(valid, (k) => phase[k] as number);
+  let used = 0;
+  for (let k = 0; k < phase.length; k++) if (phase[k] === phase[k]) used += 1;
+  const tv = new Float64Array(used);
+  const zv = new Float64Array(used);
+  for (let k = 0, i = 0; k < phase.length; k++) {
+    if (phase[k] !== phase[k]) continue;
+    tv[i] = t[k] as number;
+    zv[i++] = phase[k] as number;
+  }
   const poly = fitClockPolynomial(tv, zv, { degree: opts.degree, referenceTime: opts.referenceTime });
   const residual = new Float64Array(phase.length).fill(Number.NaN);
-  valid.forEach((k, i) => { residual[k] = poly.residuals[i] as number; });
+  for (let k = 0, i = 0; k < phase.length; k++) if (phase[k] === phase[k]) residual[k] = poly.residuals[i++] as number;
   const statistic = opts.states === 3 ? 'ohdev' : 'oadev';
   const analysis = analyzeStability({ phase: residual, tau0 }, { statistics: [statistic] });
   const noise: StabilityRowsFit = diffusionFromStabilityRows(analysis.rows, { states: opts.states, measurementVariance: opts.rFit, measurementVarianceStd: opts.rFitStd });
   const polyNoise = polynomialNoiseCovariance(tv, { degree: opts.degree, referenceTime: opts.referenceTime, q: noise.q, measurementVariance: opts.rFit, predict: opts.predict });
-  const filter: ClockFilterRun = runClockFilter({ phase, t, variance: opts.rFilter }, { q: noise.q, states: opts.states });
-  return { poly, noise, polyNoise, filter, used: valid.length };
+  const run: ClockFilterRun = runClockFilter({ phase, t, variance: opts.rFilter }, { q: noise.q, states: opts.states });
+  // Keep only what is reported, so that a pass's per-epoch arrays are freed before the next pass.
+  const filter = {
+    states: run.states, jumps: run.jumps, nisSummary: run.nisSummary, detection: run.detection!,
+    rejected: run.rejected.map((k) => ({ index: k, t: t[k] as number, innovation: run.innovation[k] as number, nis: run.nis[k] as number })),
+  };
+  return { poly, noise, polyNoise, filter, used };
+}
+
+function uniformEpochs(n: number, tau0: number): Float64Array {
+  const t = new Float64Array(n);
+  for (let k = 0; k < n; k++) t[k] = k * tau0;
+  return t;
 }
 
 function correct(phase: Float64Array, t: Float64Array, jumps: readonly DetectedJump[], rejected: readonly number[]): Float64Array {
@@ -102,14 +136,17 @@ Procedure (each step an SDK call, nothing interpolated):
     filter uses its 2σ upper bound.
  2. Pass 1: least-squares polynomial (fitClockPolynomial) → OADEV/OHDEV of the residuals (NIST SP 1065)
     → q1, q2(, q3) (diffusionFromStabilityRows, Zucca & Tavella 2005 variance forms) → Kalman pass
-    (runClockFilter: NIS gate for outliers, GLR phase/frequency jump detection, Willsky & Jones 1976).
- 3. If jumps or outliers were found: phases corrected by the estimated jumps, outliers removed, and pass 2
+    (runClockFilter: GLR outlier and phase/frequency jump detection on the innovations of all samples,
+    Willsky & Jones 1976; a false jump is declared with probability ≤ 1e-6 per sample, a good sample is
+    rejected as an outlier with probability 1e-4; both thresholds are printed).
+ 3. If jumps or outliers were declared: phases corrected by the declared jumps, outliers removed, and pass 2
     repeats step 2 on the corrected record (up to 3 passes). Reported model = last pass.
 Uncertainties: af0/af1/af2 and predictions under the fitted clock noise plus measurement noise
 (polynomialNoiseCovariance; the white-noise formula would understate them); q's with χ² intervals (±1σ
 level) from a covariance that accounts for the correlation of overlapping estimates.
 h-coefficients (IEEE Std 1139, one-sided): h0 = 2q1, h₋₂ = q2/(2π²), h₋₄ = q3/(8π⁴).
-Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0 success, 2 unusable input.`,
+Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. A --measurement-sigma of 1 µs or more (ns given as s?)
+is used as given, with a warning on stderr. Exit status: 0 success, 2 unusable input.`,
   async run(args, io) {
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
     const tau0Flag = numberFlag(args, 'tau0');
@@ -117,15 +154,23 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
     const states = choice(args, 'states', [2, 3] as const, 2);
     const sigmaFlag = numberFlag(args, 'measurement-sigma');
     if (sigmaFlag !== undefined && !(sigmaFlag > 0)) throw new UsageError(`--measurement-sigma must be > 0 s; received ${sigmaFlag}`);
+    const sigmaHint = sigmaFlag === undefined ? undefined : phaseSigmaHint('--measurement-sigma', sigmaFlag);
+    if (sigmaHint) warn(io, 'clock', sigmaHint);
     const predictText = optionalFlag(args, 'predict');
     const predict = predictText === undefined ? [] : predictText.split(',').map((v) => parseNumber('--predict', v));
+    // Progress on a terminal for a big file, in four stages: reading, then up to three characterisation passes
+    // (a bar left by an error is cleared by main before the error line).
+    const bar = startProgress(io, 'characterising the clock', inputBytes(args) > CLOCK_PROGRESS_BYTES);
+    bar.update(0, 4);
     const rec = await readClockRecord(args, ['phase'], tau0Flag);
-    const present = rec.values.reduce((n, v) => n + (v === v ? 1 : 0), 0);
+    bar.update(1, 4);
+    let present = 0;
+    for (const v of rec.values) if (v === v) present += 1;
     if (present < MIN_CLOCK_SAMPLES) {
       throw new UsageError(`${rec.flag} ${rec.source} has ${present} phase samples; the clock model needs at least ${MIN_CLOCK_SAMPLES} ` +
         '(the measurement-noise estimate uses lag-2 second differences and the noise fit at least two averaging times): give a longer record');
     }
-    const t = rec.times ?? Float64Array.from(rec.values, (_, k) => k * rec.tau0); // a one-column record's epochs are k·τ0
+    const t = rec.times ?? uniformEpochs(rec.values.length, rec.tau0); // a one-column record's epochs are k·τ0
     const firstValid = rec.values.findIndex((v) => v === v);
     const referenceTime = numberFlag(args, 'reference-time') ?? (t[firstValid] as number);
     const lastT = t[t.length - 1] as number;
@@ -139,17 +184,17 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
     const events: { pass: number; jumps: DetectedJump[]; rejected: { index: number; t: number; innovation: number; nis: number }[] }[] = [];
     let result = characterise(phase, t, rec.tau0, opts);
     for (let pass = 1; pass <= 3; pass++) {
+      bar.update(1 + pass, 4);
       const f = result.filter;
-      // Samples rejected between a jump's epoch and its declaration belong to the jump (the correction fixes them).
-      const absorbed = (k: number): boolean => f.jumps.some((j) => k >= j.updateIndex && k <= j.declaredAtUpdate);
-      const outliers = f.rejected.filter((k) => !absorbed(k));
-      const rejected = outliers.map((k) => ({ index: k, t: t[k] as number, innovation: f.innovation[k] as number, nis: f.nis[k] as number }));
-      events.push({ pass, jumps: [...f.jumps], rejected });
+      // Only declared events are corrected: jumps at the stated false-alarm rate, declared outliers.
+      const outliers = f.rejected.map((r) => r.index);
+      events.push({ pass, jumps: [...f.jumps], rejected: f.rejected });
       if (f.jumps.length === 0 && outliers.length === 0) break;
       if (pass === 3) break;
       phase = correct(phase, t, f.jumps, outliers);
       result = characterise(phase, t, rec.tau0, opts);
     }
+    bar.finish();
     const { poly, noise, polyNoise, filter } = result;
     const names = degree === 2 ? ['af0', 'af1', 'af2'] : ['af0', 'af1'];
     const units = ['s', 'dimensionless', '1/s'];
@@ -162,13 +207,26 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
     const allJumps = events.flatMap((e) => e.jumps.map((j) => ({ pass: e.pass, ...j, index: j.updateIndex })));
     const allRejected = events.flatMap((e) => e.rejected.map((r) => ({ pass: e.pass, ...r })));
     const scenarioNoise = { q1: noise.q.q1, q2: noise.q.q2, q3: noise.q.q3 };
+    const detection = filter.detection!;
 
+    const epoch = epochFormat(rec);
+    // JSON keeps epochs in seconds and, for a RINEX clock file, adds ISO 8601 in its time system (…Iso fields).
+    const isoOf = (name: string, value: number): Record<string, string> => {
+      const iso = epoch.iso(value);
+      return iso === undefined ? {} : { [`${name}Iso`]: iso };
+    };
     if (format === 'json') {
       io.out(toJson({
-        input: { file: rec.source, ...(rec.clock ? { clock: rec.clock } : {}), ...(rec.timeSystem ? { timeSystem: rec.timeSystem } : {}), samples: rec.values.length, tau0: rec.tau0, gaps: rec.gaps, firstEpoch: t[0], lastEpoch: lastT },
+        input: {
+          file: rec.source, ...(rec.clock ? { clock: rec.clock } : {}), ...(rec.timeSystem ? { timeSystem: rec.timeSystem } : {}), samples: rec.values.length, tau0: rec.tau0,
+          gaps: rec.gaps.map((g) => ({ ...g, ...(g.time === undefined ? {} : isoOf('time', g.time)) })),
+          firstEpoch: t[0], lastEpoch: lastT, ...isoOf('firstEpoch', t[0] as number), ...isoOf('lastEpoch', lastT),
+          ...(epoch.scale === undefined ? {} : { epochUnits: `seconds since 1980-01-06T00:00:00 ${epoch.scale}; …Iso fields: ISO 8601 in ${epoch.scale}` }),
+        },
         measurementNoise: { sigma: Math.sqrt(rFilter), source: measurementSource, ...(noiseEstimate ? { estimateVariance: noiseEstimate.variance, estimateStandardError: noiseEstimate.standardError } : {}), varianceInNoiseFit: rFit },
         polynomial: {
-          degree, referenceTime, coefficients, residualRms, reducedChiSquare, dof: poly.dof, samplesUsed: result.used, predictions,
+          degree, referenceTime, ...isoOf('referenceTime', referenceTime), coefficients, residualRms, reducedChiSquare, dof: poly.dof, samplesUsed: result.used,
+          predictions: predictions.map((p) => ({ ...p, ...isoOf('t', p.t) })),
           uncertaintyNote: 'std: under the fitted clock noise (q) plus measurement noise; whiteNoiseStd: residual-scaled white-noise formula, for comparison',
           caution: FLIGHT_CAUTION,
         },
@@ -178,33 +236,42 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
           points: noise.points, excluded: noise.excluded,
         },
         filter: {
-          states: filter.states, passes: events.length, jumps: allJumps, rejected: allRejected, nis: filter.nisSummary,
+          states: filter.states, passes: events.length, jumps: allJumps.map((j) => ({ ...j, ...isoOf('epoch', j.epoch) })),
+          rejected: allRejected.map((r) => ({ ...r, ...isoOf('t', r.t) })), nis: filter.nisSummary,
+          detection: {
+            falseAlarmProbabilityPerSample: detection.falseAlarmProbability, jumpThreshold: detection.jumpThreshold,
+            testsPerSample: detection.testsPerUpdate, window: detection.window, minEpochs: detection.minEpochs,
+            outlierProbability: detection.outlierProbability, outlierThreshold: detection.outlierThreshold, holdGate: detection.holdGate,
+          },
         },
         ...(args.values['scenario-noise'] ? { scenarioNoise } : {}),
       }));
       return EXIT_OK;
     }
 
-    io.out(`clock record ${rec.source}${rec.clock ? ` (clock ${rec.clock}${rec.timeSystem ? `, ${rec.timeSystem} time` : ''})` : ''}: ${rec.values.length} samples, τ0 = ${sig(rec.tau0)} s, ` +
-      `epochs ${sig(t[0] as number, 12)} … ${sig(lastT, 12)} s, ${rec.gaps.reduce((a, g) => a + g.missing, 0)} missing in ${rec.gaps.length} gap(s)\n`);
+    const width = outputWidth(args);
+    const out = wrappedOut(io.out, width);
+    const table = (headers: string[], rows: (string | number)[][]): string => fitTable(headers, rows, { width });
+    out(`clock record ${rec.source}${rec.clock ? ` (clock ${rec.clock}${rec.timeSystem ? `, ${rec.timeSystem} time` : ''})` : ''}: ${rec.values.length} samples, τ0 = ${sig(rec.tau0)} s, ` +
+      `epochs ${epoch.text(t[0] as number)} … ${epoch.text(lastT)}, ${rec.gaps.reduce((a, g) => a + g.missing, 0)} missing in ${rec.gaps.length} gap(s)\n`);
     for (const g of rec.gaps.slice(0, 10)) {
-      io.out(`  gap: ${g.missing} missing sample(s) from index ${g.index}${g.time !== undefined ? ` (t = ${sig(g.time, 12)} s)` : ''}, line ${g.line}\n`);
+      out(`  gap: ${g.missing} missing sample(s) from index ${g.index}${g.time !== undefined ? ` (t = ${epoch.text(g.time)})` : ''}, line ${g.line}\n`);
     }
-    if (rec.gaps.length > 10) io.out(`  ... ${rec.gaps.length - 10} more gaps (see --json)\n`);
-    io.out(`measurement noise σ_v = ${fmt(Math.sqrt(rFilter), 3)} s (${measurementSource}${noiseEstimate ? `; lag-2 estimate ${fmt(noiseEstimate.variance, 3)} ± ${fmt(noiseEstimate.standardError, 2)} s²` : ''})\n\n`);
+    if (rec.gaps.length > 10) out(`  ... ${rec.gaps.length - 10} more gaps (see --json)\n`);
+    out(`measurement noise σ_v = ${fmt(Math.sqrt(rFilter), 3)} s (${measurementSource}${noiseEstimate ? `; lag-2 estimate ${fmt(noiseEstimate.variance, 3)} ± ${fmt(noiseEstimate.standardError, 2)} s²` : ''})\n\n`);
 
-    io.out(`Polynomial model x(t) = af0 + af1·(t − t_oc)${degree === 2 ? ' + af2·(t − t_oc)²' : ''}, t_oc = ${sig(referenceTime, 12)} s, degree ${degree}, ${result.used} samples\n`);
-    io.out(table(['coefficient', 'value', '1σ (clock noise)', '1σ (white-noise formula)', 'unit'],
+    out(`Polynomial model x(t) = af0 + af1·(t − t_oc)${degree === 2 ? ' + af2·(t − t_oc)²' : ''}, t_oc = ${epoch.text(referenceTime)}, degree ${degree}, ${result.used} samples\n`);
+    out(table(['coefficient', 'value', '1σ (clock noise)', '1σ (white-noise formula)', 'unit'],
       coefficients.map((c) => [c.name, fmt(c.value, 10), fmt(c.std, 3), fmt(c.whiteNoiseStd, 3), c.unit])));
-    io.out(keyValueTable([
+    out(keyValueTable([
       ['residual RMS', `${fmt(residualRms, 4)} s`],
       ['reduced χ² (vs σ_v²)', Number.isFinite(reducedChiSquare) ? `${fmt(reducedChiSquare, 4)} (residuals are clock noise, not white: >> 1 is expected)` : 'n/a (no measurement noise resolved)'],
-    ]));
-    for (const p of predictions) io.out(`prediction at t = ${sig(p.t, 12)} s: x = ${pm(p.phase, p.std, 's')} (1σ, model + clock noise after the record)\n`);
-    io.out(`${FLIGHT_CAUTION}\n\n`);
+    ], width));
+    for (const p of predictions) out(`prediction at t = ${epoch.text(p.t)}: x = ${pm(p.phase, p.std, 's')} (1σ, model + clock noise after the record)\n`);
+    out(`${FLIGHT_CAUTION}\n\n`);
 
-    io.out(`Noise model (${states}-state, from ${noise.statistic.toUpperCase()} of the residuals; ${sig(noise.confidence * 100, 4)} % χ² intervals)\n`);
-    io.out(table(['coefficient', 'value', '1σ', 'interval', 'unit', 'h-coefficient'],
+    out(`Noise model (${states}-state, from ${noise.statistic.toUpperCase()} of the residuals; ${sig(noise.confidence * 100, 4)} % χ² intervals)\n`);
+    out(table(['coefficient', 'value', '1σ', 'interval', 'unit', 'h-coefficient'],
       qNames.map((n) => {
         const iv = noise.intervals[n];
         const h = H_OF_Q[n];
@@ -212,30 +279,34 @@ Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. Exit status: 0
           : iv ? `[${fmt(iv.low, 3)}, ${fmt(iv.high, 3)}]${iv.edf < 1 ? ' (not resolved)' : ''}` : '—';
         return [n, fmt(noise.q[n], 4), fmt(noise.qStd[n], 2), interval, qUnits[n], `${h.label} = ${fmt(noise.h[h.field], 4)} ± ${fmt(noise.hStd[h.field], 2)} ${qUnits[n]}`];
       })));
-    io.out(`fit: χ² = ${fmt(noise.chiSquare, 4)} on ${noise.dof} dof (p = ${fmt(noise.chiSquareProbability, 3)})${noise.excluded.length ? `; left out: ${noise.excluded.map((e) => `τ = ${sig(e.tau)} s (${e.reason})`).join(', ')}` : ''}\n`);
-    io.out(table(['τ (s)', noise.statistic, 'model', 'edf', 'residual (σ)'],
+    out(`fit: χ² = ${fmt(noise.chiSquare, 4)} on ${noise.dof} dof (p = ${fmt(noise.chiSquareProbability, 3)})${noise.excluded.length ? `; left out: ${noise.excluded.map((e) => `τ = ${sig(e.tau)} s (${e.reason})`).join(', ')}` : ''}\n`);
+    out(table(['τ (s)', noise.statistic, 'model', 'edf', 'residual (σ)'],
       noise.points.map((p) => [sig(p.tau, 6), p.deviation.toExponential(3), p.modelDeviation.toExponential(3), fmt(p.edf, 3), p.normalizedResidual.toFixed(2)])));
-    io.out('\n');
+    out('\n');
 
-    io.out(`Kalman pass (${filter.states}-state, R = σ_v², q from the noise model; ${events.length} pass(es))\n`);
-    if (allJumps.length === 0) io.out('jumps: none detected\n');
+    out(`Kalman pass (${filter.states}-state, R = σ_v², q from the noise model; ${events.length} pass(es))\n`);
+    out(`jump detection: GLR statistic l > ${fmt(detection.jumpThreshold, 4)} (χ²(1) at ${sig(detection.falseAlarmProbability, 3)}/${detection.testsPerUpdate}); ` +
+      `on a jump-free record a false jump is declared with probability ≤ ${sig(detection.falseAlarmProbability, 3)} per sample ` +
+      `(≤ ${sig(detection.falseAlarmProbability * rec.values.length, 3)} expected in this record)\n`);
+    out(`outliers: impulse statistic l > ${fmt(detection.outlierThreshold, 4)}, i.e. a good sample is rejected with probability ${sig(detection.outlierProbability, 3)}\n`);
+    if (allJumps.length === 0) out('jumps: none detected\n');
     else {
-      io.out(table(['pass', 'kind', 'epoch (s)', 'sample', 'size', '1σ', 'unit'],
-        allJumps.map((j) => [String(j.pass), j.kind, sig(j.epoch, 12), String(j.index), fmt(j.size, 4), fmt(j.sizeStd, 2), j.kind === 'phase' ? 's' : 'dimensionless'])));
+      out(fitTable(['pass', 'kind', epoch.column, 'sample', 'size', '1σ', 'unit'],
+        allJumps.map((j) => [String(j.pass), j.kind, epoch.cell(j.epoch), String(j.index), fmt(j.size, 4), fmt(j.sizeStd, 2), j.kind === 'phase' ? 's' : 'dimensionless'])));
     }
-    if (allRejected.length === 0) io.out('outliers: none rejected\n');
+    if (allRejected.length === 0) out('outliers: none rejected\n');
     else {
-      io.out(table(['pass', 'epoch (s)', 'sample', 'innovation (s)', 'NIS'],
-        allRejected.map((r) => [String(r.pass), sig(r.t, 12), String(r.index), fmt(r.innovation, 4), fmt(r.nis, 4)])));
+      out(fitTable(['pass', epoch.column, 'sample', 'innovation (s)', 'NIS'],
+        allRejected.map((r) => [String(r.pass), epoch.cell(r.t), String(r.index), fmt(r.innovation, 4), fmt(r.nis, 4)])));
     }
     const nis = filter.nisSummary;
     const inside = nis.mean >= nis.low && nis.mean <= nis.high;
-    io.out(`mean NIS ${fmt(nis.mean, 4)} over ${nis.count} updates; ${sig(nis.confidence * 100, 3)} % χ² bounds [${fmt(nis.low, 4)}, ${fmt(nis.high, 4)}]: ${inside ? 'consistent' : 'NOT consistent (noise model or σ_v off)'}\n`);
+    out(`mean NIS ${fmt(nis.mean, 4)} over ${nis.count} updates; ${sig(nis.confidence * 100, 3)} % χ² bounds [${fmt(nis.low, 4)}, ${fmt(nis.high, 4)}]: ${inside ? 'consistent' : 'NOT consistent (noise model or σ_v off)'}\n`);
     if (allJumps.length > 0 || allRejected.length > 0) {
-      io.out(`The model and noise above come from the record${allJumps.length ? ' corrected for these jumps' : ''}${allJumps.length && allRejected.length ? ' and' : ''}${allRejected.length ? ' without the rejected samples' : ''}.\n`);
+      out(`The model and noise above come from the record${allJumps.length ? ' corrected for these jumps' : ''}${allJumps.length && allRejected.length ? ' and' : ''}${allRejected.length ? ' without the rejected samples' : ''}.\n`);
     }
     if (args.values['scenario-noise']) {
-      io.out(`\nSteering scenario clock.noise (q1 in s, q2 in 1/s, q3 in 1/s³):\n${JSON.stringify(scenarioNoise)}\n`);
+      out(`\nSteering scenario clock.noise (q1 in s, q2 in 1/s, q3 in 1/s³):\n${JSON.stringify(scenarioNoise)}\n`);
     }
     return EXIT_OK;
   },

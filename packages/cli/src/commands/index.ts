@@ -1,6 +1,7 @@
 /** The command registry. Add a command: write `commands/<name>.ts` exporting a `Command`, then list it here. */
 import type { Command } from '../framework.js';
 import { planCommand } from './plan.js';
+import { fleetCommand } from './fleet.js';
 import { simulateCommand } from './simulate.js';
 import { stabilityCommand } from './stability.js';
 import { clockCommand } from './clock.js';
@@ -13,6 +14,7 @@ import { preciseCommand } from './precise.js';
 
 export const COMMANDS: Command[] = [
   planCommand,
+  fleetCommand,
   simulateCommand,
   rateCommand,
   periodicCommand,

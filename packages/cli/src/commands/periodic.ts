@@ -7,7 +7,9 @@ import { InvalidArgumentError } from '@tauline/sdk/errors';
 import {
   EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, numberFlag, sig, toJson, withFlagNames, type Command,
 } from '../framework.js';
+import { outputWidth } from '../layout.js';
 import { constantsFlag } from './rate.js';
+import { angleHint, warn } from '../plausibility.js';
 
 /**
  * Largest |M| accepted, in radians. Beyond it a float64 keeps the angle modulo 2π to worse than
@@ -41,6 +43,7 @@ Sources: IS-GPS-200 §20.3.3.3.3.1; IERS Conventions (2010) §10.2 eqs. 10.10–
 Use --constants gps-icd for IS-GPS-200 conformance (F = −4.442807633e-10 s/√m).
 JSON fields: semiMajorAxis (m), eccentricity, meanAnomaly (rad), eccentricAnomaly (rad), constants,
 relativisticF (s/√m), correctionSeconds, amplitudeSeconds, units (unit of each field).
+A mean anomaly above one turn but at most 360 (degrees?) is used as given, with a warning on stderr.
 Exit status: 0 success, 2 invalid input.`,
   run(args, io) {
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
@@ -54,6 +57,8 @@ Exit status: 0 success, 2 invalid input.`,
     const constants = constantsFlag(args);
     const result = withFlagNames(FLAG_NAMES,
       () => periodicCorrectionAtMeanAnomaly(semiMajorAxis, eccentricity, meanAnomaly, constants));
+    const hint = angleHint('--mean-anomaly', meanAnomaly);
+    if (hint) warn(io, 'periodic', hint);
     if (format === 'json') {
       io.out(toJson({
         semiMajorAxis, eccentricity, meanAnomaly,
@@ -77,7 +82,7 @@ Exit status: 0 success, 2 invalid input.`,
       ['constants', `${constants.name} (F = ${constants.relativisticF.toExponential(9)} s/√m)`],
       ['correction Δt_r', `${sig(result.correctionSeconds, 13)} s (${sig(result.correctionSeconds * 1e9, 10)} ns; add to Δt_sv)`],
       ['amplitude', `${sig(result.amplitudeSeconds, 13)} s (${sig(result.amplitudeSeconds * 1e9, 10)} ns)`],
-    ]));
+    ], outputWidth(args)));
     return EXIT_OK;
   },
 };

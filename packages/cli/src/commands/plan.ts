@@ -9,7 +9,8 @@ import {
   EXIT_FINDING, EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, onePositional, optionalFlag, table, toJson,
   type Command, type FlagSpec, type ParsedArgs,
 } from '../framework.js';
-import { readJsonFile, readTextFile } from '../files.js';
+import { fitTable, outputWidth, wrapLines } from '../layout.js';
+import { readJsonFile, readTextFile, sourceLabel } from '../files.js';
 
 const METHODS: readonly SteeringMethod[] = ['deadband', 'optimal', 'none'];
 
@@ -30,7 +31,7 @@ export async function leapSecondsFlag(args: ParsedArgs): Promise<TimeScales | un
   if (path === undefined) return undefined;
   const text = await readTextFile(path, 'an IERS/NIST leap-seconds.list');
   try {
-    return createTimeScales(parseLeapSecondsList(text, path));
+    return createTimeScales(parseLeapSecondsList(text, sourceLabel(path)));
   } catch (error) {
     if (error instanceof InvalidArgumentError) {
       throw new InvalidArgumentError('--leap-seconds', path, 'an IERS/NIST leap-seconds.list with a valid table', error.message);
@@ -63,6 +64,7 @@ export const PLAN_UNITS = {
   actuatorSteps: 'actuator resolution steps', 't': 's since the scenario epoch (elapsed SI seconds)', phaseSeconds: 's', sigmaSeconds: 's',
   worstPredictedOffsetSeconds: 's', worstOffsetBoundSeconds: 's', probabilityInTolerance: 'dimensionless (probability)',
   totalFrequencySteering: 'dimensionless', totalPhaseSteeringSeconds: 's', expectedCost: 'dimensionless',
+  settledAfterSeconds: 's since the scenario epoch (null: never)',
 } as const;
 
 /** Nanoseconds with sign and 3 decimals (display only). */
@@ -75,23 +77,30 @@ function stepText(c: SteeringPlan['commands'][number]): string {
     : `${c.phaseStepSeconds! >= 0 ? '+' : ''}${nsText(c.phaseStepSeconds!)}`;
 }
 
-/** The human-readable schedule. */
-export function planToText(scenario: SteeringScenario, method: string, plan: SteeringPlan): string {
+/**
+ * The human-readable schedule, fitted to `width` display columns (undefined: the long form of `--wide`):
+ * the command reasons then go under their rows.
+ */
+export function planToText(scenario: SteeringScenario, method: string, plan: SteeringPlan, width: number | undefined): string {
   const out: string[] = [];
   const tol = scenario.tolerance;
   out.push(`${scenario.name ?? 'Steering plan'}: ${method} planner, ${scenario.epoch} + ${(scenario.horizonSeconds / 86_400).toFixed(2)} days`);
   out.push(`Tolerance ±${nsText(tol.phaseSeconds)} at ${tol.probability * 100} % per epoch`);
-  out.push(plan.feasible ? 'Feasible: yes' : `Feasible: NO. ${plan.reason ?? ''}`, '');
+  const m = plan.metrics;
+  const verdict = `smallest per-epoch probability in tolerance ${m.probabilityInTolerance.toFixed(4)} ${plan.feasible ? '≥' : '<'} ${tol.probability}`;
+  // The SDK's reason is a clause; as the sentence after the verdict it starts with a capital.
+  const reason = (plan.reason ?? '').replace(/^[a-z]/, (c) => c.toUpperCase()); // a leading symbol (σ) stays as it is
+  out.push(plan.feasible ? `Feasible: yes (${verdict})` : `Feasible: NO (${verdict}). ${reason}`, '');
   if (plan.commands.length === 0) out.push('No commands.');
   else {
-    out.push(table(['#', 'uplink (UTC)', 'execute (UTC)', 'kind', 'step (fractional or ns)', 'actuator steps', 'reason'],
-      plan.commands.map((c, i) => [i + 1, c.uplinkAt, c.executeAt, c.kind, stepText(c), c.actuatorSteps, c.reason])).trimEnd());
+    out.push(fitTable(['#', 'uplink (UTC)', 'execute (UTC)', 'kind', 'step (fractional or ns)', 'actuator steps', 'reason'],
+      plan.commands.map((c, i) => [i + 1, c.uplinkAt, c.executeAt, c.kind, stepText(c), c.actuatorSteps, c.reason]), { width, below: [6], unlabelled: [6] }).trimEnd());
   }
-  const m = plan.metrics;
   out.push('', keyValueTable([
     ['worst predicted |mean offset|', nsText(m.worstPredictedOffsetSeconds)],
-    ['worst |mean| + z·σ', `${nsText(m.worstOffsetBoundSeconds)} (tolerance ±${nsText(tol.phaseSeconds)})`],
-    ['probability in tolerance', `${m.probabilityInTolerance.toFixed(4)} (smallest per-epoch value)`],
+    ['worst |mean| + z·σ', `${nsText(m.worstOffsetBoundSeconds)} (tolerance ±${nsText(tol.phaseSeconds)}; a sufficient margin, stricter than the criterion)`],
+    ['probability in tolerance', `${m.probabilityInTolerance.toFixed(4)} (smallest per-epoch value; the feasibility criterion is ≥ ${tol.probability})`],
+    ['holds the tolerance from', m.settledAfterSeconds === null ? 'never (the last epoch fails)' : `${(m.settledAfterSeconds / 86_400).toFixed(2)} days after the epoch`],
     ['commands', String(m.commandCount)],
     ['total frequency steering', `${m.totalFrequencySteering.toExponential(3)} (fractional)`],
     ['total phase steering', nsText(m.totalPhaseSteeringSeconds)],
@@ -106,7 +115,7 @@ export function planToText(scenario: SteeringScenario, method: string, plan: Ste
   }
   out.push('', 'Prediction (every 6 h):', table(['t (days)', 'steered mean (ns)', '1σ (ns)', 'unsteered mean (ns)'], rows).trimEnd());
   out.push('', plan.caution, '');
-  return out.join('\n');
+  return wrapLines(out.join('\n'), width);
 }
 
 export const planCommand: Command = {
@@ -115,17 +124,24 @@ export const planCommand: Command = {
   usage: '<scenario.json> [--strategy deadband|optimal|none] [--leap-seconds <file>] [--json | --format table|json]',
   allowPositionals: true,
   flags: {
-    strategy: { type: 'string', value: '<name>', description: 'Override the scenario\'s strategy: deadband, optimal (quantised LQ) or none.' },
+    strategy: { type: 'string', value: '<name>', description: 'Override the scenario\'s strategy: deadband, optimal (constrained LQ) or none.' },
     'leap-seconds': LEAP_SECONDS_FLAG,
     ...formatFlags(TABLE_OR_JSON, { json: 'Print the plan as JSON (feasible, reason, commands, predicted, metrics, units, caution); same as --format json.' }),
   },
   details: `
 Scenario format: packages/sdk/schema/scenario.schema.json (JSON Schema); times ISO 8601 UTC, quantities SI.
-Feasible means |mean| + z·σ ≤ tolerance at every grid epoch, z = Φ⁻¹((1 + p)/2), σ the open-loop
-prediction from the epoch covariance and the 3-state clock noise (Zucca & Tavella 2005).
-Optimal planner: finite-horizon linear-quadratic steering with quantised, rate-limited steps (after
-Koppang & Leland, IEEE Trans. UFFC 46(3) 1999); deadband: act when the predicted offset would use more
-than a fraction of the usable band before the next contact.
+Feasible means the probability that |offset| ≤ tolerance is at least tolerance.probability at every
+grid epoch (the "probability in tolerance" printed is the smallest of these per-epoch values), with the
+offset normal, its mean predicted from the commands and σ the open-loop prediction from the epoch
+covariance and the 3-state clock noise (Zucca & Tavella 2005). "worst |mean| + z·σ" ≤ tolerance,
+z = Φ⁻¹((1 + p)/2), is a stricter margin, shown for reference. JSON: reasonCode names the kind of
+failure (uncertainty, outside-at-epoch, no-contact-in-time, actuator-limit, unsteered, planner).
+Optimal planner: finite-horizon linear-quadratic steering (after Koppang & Leland, IEEE Trans. UFFC
+46(3) 1999) whose every step is chosen among the whole actuator steps, inside the step and range
+limits, from which a braking manoeuvre still stops the clock without overshooting the opposite
+tolerance bound; so a large frequency error is slewed out at the step limit and braked, not rung.
+Deadband: act when the predicted offset would use more than a fraction of the usable band before the
+next contact (steps limited the same way).
 ${LEAP_SECONDS_HELP}
 Exit status: 0 feasible plan, 1 infeasible (the reason is printed), 2 unusable input.`,
   async run(args, io) {
@@ -137,7 +153,7 @@ Exit status: 0 feasible plan, 1 infeasible (the reason is printed), 2 unusable i
     const plan = planSteering(scenario, { ...(strategy ? { strategy } : {}), ...(timeScales ? { timeScales } : {}) });
     const s = scenario as SteeringScenario;
     if (format === 'json') io.out(toJson({ ...plan, units: PLAN_UNITS }));
-    else io.out(planToText(s, strategy ?? s.strategy.method, plan));
+    else io.out(planToText(s, strategy ?? s.strategy.method, plan, outputWidth(args)));
     return plan.feasible ? EXIT_OK : EXIT_FINDING;
   },
 };

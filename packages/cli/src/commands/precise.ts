@@ -10,9 +10,10 @@ import {
 import { DEFAULT_LAGRANGE_POINTS, PreciseCorrectionStream, type PreciseCorrectionResult } from '@tauline/sdk/relativity';
 import { BUNDLED_LEAP_SECONDS, createTimeScales, type TimeScale, type TimeScales } from '@tauline/sdk/time';
 import {
-  EXIT_OK, TABLE_JSON_CSV, UsageError, formatFlags, numberFlag, table, toJson, type Command,
+  EXIT_OK, TABLE_JSON_CSV, UsageError, formatFlags, numberFlag, toJson, type Command,
 } from '../framework.js';
-import { requireRegularFile } from '../files.js';
+import { fitTable, outputWidth, wrapLines } from '../layout.js';
+import { MAX_RECORD_BYTES, STANDARD_INPUT, requireRegularFile, sourceLabel } from '../files.js';
 import {
   SYSTEM_SCALE, fileChunks, isModelledSystem, loadNavigation, outputFormat, progress, satelliteFlag, totalSize,
 } from './broadcast.js';
@@ -42,6 +43,23 @@ interface PreciseOut {
   differenceSeconds?: number | null;
 }
 
+/**
+ * Satellites for which the cross-check gave no broadcast value at any epoch, with the reason: a system the
+ * SDK does not model, or no record of the satellite in the navigation files over the SP3 span.
+ */
+function withoutBroadcast(order: readonly string[], bySat: ReadonlyMap<string, { samples: PreciseOut[] }>,
+  records: ReadonlyMap<string, readonly unknown[]>): Map<string, string> {
+  const out = new Map<string, string>();
+  for (const id of order) {
+    const samples = bySat.get(id)!.samples;
+    if (samples.length === 0 || samples.some((o) => o.broadcastRelativisticSeconds != null)) continue;
+    out.set(id, !isModelledSystem(id.charAt(0)) ? 'system not modelled (GPS, Galileo and BeiDou only)'
+      : (records.get(id)?.length ?? 0) === 0 ? 'the navigation file(s) have no record of this satellite over the SP3 span'
+        : 'no healthy record whose fit interval covers these epochs');
+  }
+  return out;
+}
+
 export const preciseCommand: Command = {
   name: 'precise',
   summary: 'Relativistic correction −2 r·v/c² from an SP3 precise orbit file, optionally compared with broadcast values.',
@@ -57,16 +75,18 @@ export const preciseCommand: Command = {
     }),
   },
   details: `
-Reads an SP3-c or SP3-d file (streamed) and computes at each epoch Δt_r = −2 r·v/c² (IERS Conventions 2010 §10.2
+Reads an SP3-a, SP3-b, SP3-c or SP3-d file (streamed; SP3-a/b state no time system: GPS time is assumed and
+said so) and computes at each epoch Δt_r = −2 r·v/c² (IERS Conventions 2010 §10.2
 eq. 10.11 [V1]) in the file's Earth-fixed frame: (ω × r)·r = 0, so r·v is the same as in the inertial frame.
 v: the file's velocity records when present; otherwise the derivative of the Lagrange polynomial through the
 ${DEFAULT_LAGRANGE_POINTS} nearest valid positions (centred; one-sided at the file ends). Bad/absent positions
-(0.000000) are reported as gaps, never used as zero. With --nav, the broadcast Δt_r = F e √A sin E_k of the
+(0.000000) and satellites of the header without a position record at an epoch are reported as gaps, never used
+as zero or skipped. With --nav, the broadcast Δt_r = F e √A sin E_k of the
 record valid at the same instant (converted to the system's own scale) and the difference precise − broadcast are
 added; the difference includes the share of the broadcast harmonic corrections in r·v (≈ 0.01 ns) and orbit errors.
-JSON: { timeSystem, coordinateFrame, agency, lagrangePoints, satellites: [{ id, samples: [{ t, relativisticSeconds,
-velocitySource, broadcastRelativisticSeconds?, differenceSeconds? }], gaps: [{ t, reason }] }], units }; t is in the
-file's time system, the corrections in SI seconds. A --satellite not listed in the file's header is refused.
+JSON: { timeSystem, timeSystemAssumed, coordinateFrame, agency, lagrangePoints, satellites: [{ id, samples: [{ t, relativisticSeconds,
+velocitySource, broadcastRelativisticSeconds?, differenceSeconds? }], gaps: [{ t, reason }], broadcastNote? }], units }; t is in the
+file's time system, the corrections in SI seconds. broadcastNote says why a satellite has no broadcast value at all. A --satellite not listed in the file's header is refused.
 Exit status: 0 success, 2 invalid input or a malformed file.`,
   async run(args, io) {
     if (args.positionals.length !== 1) throw new UsageError('exactly one SP3 file is required (tauline precise <sp3-file>)');
@@ -78,10 +98,14 @@ Exit status: 0 success, 2 invalid input or a malformed file.`,
     const navValue = args.values['nav'];
     const navFiles = Array.isArray(navValue) ? navValue : typeof navValue === 'string' ? [navValue] : [];
     const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
-    await requireRegularFile(path, 'an SP3 file');
+    // Table and JSON output hold every sample until the end (about 2.5× the file in memory): larger files need --csv, which streams.
+    const what = format === 'csv' ? 'an SP3 file' : `an SP3 file read for ${format} output (--csv streams any size)`;
+    const maxBytes = format === 'csv' ? undefined : MAX_RECORD_BYTES;
+    await requireRegularFile(path, what, maxBytes);
+    if (path === STANDARD_INPUT && navFiles.includes(STANDARD_INPUT)) throw new UsageError('- (standard input) can be read once only: give it for the SP3 file or for --nav');
 
     const bar = progress(io, 'reading precise orbits', totalSize([path]));
-    const events = readSp3(fileChunks(path, bar.add), { sourceName: path });
+    const events = readSp3(fileChunks(path, what, bar.add, maxBytes), { sourceName: sourceLabel(path) });
     const first = await events.next();
     if (first.done || first.value.kind !== 'header') throw new UsageError(`${path}: no SP3 header`);
     const header = first.value.header;
@@ -160,15 +184,19 @@ Exit status: 0 success, 2 invalid input or a malformed file.`,
     if (format === 'csv') return EXIT_OK;
 
     const order = header.satellites.filter((s) => bySat.has(s));
+    const noBroadcast = nav ? withoutBroadcast(order, bySat, nav.records) : new Map<string, string>();
     if (format === 'json') {
       io.out(toJson({
         timeSystem: header.timeSystem,
+        timeSystemAssumed: header.timeSystemAssumed,
         coordinateFrame: header.coordinateFrame,
         agency: header.agency,
         sp3Version: header.version,
         epochInterval: header.epochInterval,
         lagrangePoints: points,
-        satellites: order.map((id) => ({ id, samples: bySat.get(id)!.samples, gaps: bySat.get(id)!.gaps })),
+        satellites: order.map((id) => ({
+          id, samples: bySat.get(id)!.samples, gaps: bySat.get(id)!.gaps, ...(noBroadcast.has(id) ? { broadcastNote: noBroadcast.get(id) } : {}),
+        })),
         ...(nav ? { navigationSkipped: [...nav.skipped].map(([reason, count]) => ({ reason, count })) } : {}),
         units: {
           epochInterval: 's', t: `ISO 8601 in the file's time system (${header.timeSystem})`, relativisticSeconds: 's',
@@ -177,19 +205,30 @@ Exit status: 0 success, 2 invalid input or a malformed file.`,
       }));
       return EXIT_OK;
     }
-    io.out(`Precise-orbit relativistic correction −2 r·v/c² (SP3-${header.version}, ${header.timeSystem} time, frame ${header.coordinateFrame}, ${header.agency})\n\n`);
+    const width = outputWidth(args);
+    const timeNote = header.timeSystemAssumed ? `${header.timeSystem} time assumed: SP3-${header.version} states none` : `${header.timeSystem} time`;
+    io.out(wrapLines(`Precise-orbit relativistic correction −2 r·v/c² (SP3-${header.version}, ${timeNote}, frame ${header.coordinateFrame}, ${header.agency})\n\n`, width));
+    // A satellite the navigation files say nothing about gets empty broadcast cells and one sentence
+    // below the table instead of a column of "—"; no such column at all when no satellite has a record.
+    const broadcastColumns = nav !== undefined && order.some((id) => !noBroadcast.has(id));
     const rows: (string | number)[][] = [];
     for (const id of order) {
       for (const o of bySat.get(id)!.samples) {
         const row: (string | number)[] = [id, o.t, (o.relativisticSeconds * 1e9).toFixed(4), o.velocitySource];
-        if (nav) row.push(o.broadcastRelativisticSeconds == null ? '—' : (o.broadcastRelativisticSeconds * 1e9).toFixed(4),
-          o.differenceSeconds == null ? '—' : (o.differenceSeconds * 1e9).toFixed(4));
+        if (broadcastColumns) {
+          const none = noBroadcast.has(id) ? '' : '—';
+          row.push(o.broadcastRelativisticSeconds == null ? none : (o.broadcastRelativisticSeconds * 1e9).toFixed(4),
+            o.differenceSeconds == null ? none : (o.differenceSeconds * 1e9).toFixed(4));
+        }
         rows.push(row);
       }
     }
-    io.out(table(['sat', 't', 'Δt_r (ns)', 'v from', ...(nav ? ['broadcast (ns)', 'difference (ns)'] : [])], rows));
+    io.out(fitTable(['sat', 't', 'Δt_r (ns)', 'v from', ...(broadcastColumns ? ['broadcast (ns)', 'difference (ns)'] : [])], rows, { width }));
+    const text: string[] = [];
+    if (noBroadcast.size > 0) text.push(`\nNo broadcast cross-check:\n${[...noBroadcast].map(([id, why]) => `  ${id}: ${why}`).join('\n')}\n`);
     const gaps = order.flatMap((id) => bySat.get(id)!.gaps.map((g) => `  ${id} ${g.t}: ${g.reason}`));
-    if (gaps.length > 0) io.out(`\nEpochs without a correction:\n${gaps.join('\n')}\n`);
+    if (gaps.length > 0) text.push(`\nEpochs without a correction:\n${gaps.join('\n')}\n`);
+    io.out(wrapLines(text.join(''), width));
     return EXIT_OK;
   },
 };

@@ -3,14 +3,20 @@
  * τ − TT at regular samples.
  */
 import { InvalidArgumentError } from '@tauline/sdk/errors';
-import { GRAVITY_MODELS, type GravityModel } from '@tauline/sdk/orbit';
+import { GM_MOON, GRAVITY_MODELS, moonPositionLowPrecision, type GravityModel } from '@tauline/sdk/orbit';
 import { integrateProperTime } from '@tauline/sdk/relativity';
 import type { ConstantSet } from '@tauline/sdk/constants';
 import {
-  EXIT_OK, TABLE_OR_JSON, choiceFlag, formatFlag, formatFlags, numberFlag, parseNumber, requireFlag, sig, table, toJson, withFlagNames,
+  EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, choiceFlag, formatFlag, formatFlags, numberFlag, parseNumber, requireFlag, sig, toJson, withFlagNames,
   type Command,
 } from '../framework.js';
+import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { CONSTANTS_FLAG, constantsFlag } from './rate.js';
+import { speedHint, warn } from '../plausibility.js';
+import { startProgress, withProgress } from '../progress.js';
+
+/** Orbits integrated above which a terminal shows progress (about a second of integration, j2 model). */
+export const PROPERTIME_PROGRESS_ORBITS = 100;
 
 /** Parses `x,y,z,vx,vy,vz` (metres, m/s). */
 export function parseStateFlag(text: string): { position: [number, number, number]; velocity: [number, number, number] } {
@@ -25,21 +31,54 @@ export function parseStateFlag(text: string): { position: [number, number, numbe
 }
 
 /**
- * Refuses an unbound state: specific orbital energy v²/2 − GM/r ≥ 0 (parabolic or hyperbolic
- * escape, e.g. a velocity in the wrong unit). Orbital energy ε = v²/2 − GM/r = −GM/(2a), bound
- * iff ε < 0 (N. Ashby, Living Rev. Relativity 6 (2003) §5, eq. 33). Point-mass energy; J2 changes
- * it by ~1e-3 relative, far less than any escape margin that matters here.
+ * Moon-centred position and velocity of a geocentric state at a TT epoch (mean equator and equinox of date,
+ * as the `full` model), with the Moon's velocity from a ±1 s central difference of the low-precision series
+ * (Montenbruck & Gill 2000 §3.3.2 [M]; the difference error, ≈ 1e-6 m/s, is far below any escape margin).
  */
-export function requireBoundState(state: { position: readonly number[]; velocity: readonly number[] }, constants: ConstantSet): void {
+function relativeToMoon(state: { position: readonly number[]; velocity: readonly number[] }, epoch: number): { rho: number; w: number; moonDistance: number } {
+  const m = moonPositionLowPrecision(epoch);
+  const mPlus = moonPositionLowPrecision(epoch + 1);
+  const mMinus = moonPositionLowPrecision(epoch - 1);
+  const d = [0, 1, 2].map((k) => state.position[k]! - m[k]!);
+  const w = [0, 1, 2].map((k) => state.velocity[k]! - (mPlus[k]! - mMinus[k]!) / 2);
+  return { rho: Math.hypot(d[0]!, d[1]!, d[2]!), w: Math.hypot(w[0]!, w[1]!, w[2]!), moonDistance: Math.hypot(m[0], m[1], m[2]) };
+}
+
+/**
+ * Refuses an unbound state. Which body the state is bound to:
+ * - `point-mass` and `j2` (Earth only): specific orbital energy v²/2 − GM/r < 0, i.e. v below the escape speed
+ *   √(2GM/r) (N. Ashby, Living Rev. Relativity 6 (2003) §5, eq. 33). J2 changes the energy by ~1e-3 relative,
+ *   far less than any escape margin that matters here.
+ * - `full` (Earth, Moon and Sun): inside the Moon's Hill sphere r_H = d·(GM_M/(3GM_E))^(1/3) (≈ 61 500 km; the
+ *   region where the Moon's attraction dominates the Earth's tidal pull, G. W. Hill 1878 [M]) the state must be
+ *   bound to the Moon (two-body energy w²/2 − GM_M/ρ < 0 relative to the Moon); outside it, bound to the Earth
+ *   as above. Moon-bound states are lunar orbiters; states bound to neither are refused.
+ */
+export function requireBoundState(state: { position: readonly number[]; velocity: readonly number[] }, constants: ConstantSet,
+  model: GravityModel = 'j2', epochTtSecondsSinceJ2000 = 0): void {
   const [x, y, z] = state.position as [number, number, number];
   const [vx, vy, vz] = state.velocity as [number, number, number];
   const r = Math.hypot(x, y, z);
   const v = Math.hypot(vx, vy, vz);
-  if (!(r > 0)) return; // the SDK names the position error
+  if (!(r > 0) || !Number.isFinite(v)) return; // the SDK names the position or velocity error
+  if (model === 'full' && Number.isFinite(epochTtSecondsSinceJ2000)) {
+    const { rho, w, moonDistance } = relativeToMoon(state, epochTtSecondsSinceJ2000);
+    const hill = moonDistance * Math.cbrt(GM_MOON / (3 * constants.gm));
+    if (rho < hill) {
+      const lunarEscape = Math.sqrt((2 * GM_MOON) / rho);
+      if (w >= lunarEscape) {
+        throw new InvalidArgumentError('--state (|velocity relative to the Moon|)', w,
+          `below the lunar escape speed √(2GM_M/ρ) = ${lunarEscape.toFixed(1)} m/s at ρ = ${rho.toFixed(0)} m from the Moon's centre (a Moon-bound orbit inside its Hill sphere, ${hill.toFixed(0)} m)`,
+          'the state is inside the Moon\'s Hill sphere but not bound to the Moon; check the velocity (m/s, geocentric) and --epoch-tt-j2000');
+      }
+      return;
+    }
+  }
   const escape = Math.sqrt((2 * constants.gm) / r);
   if (v >= escape) {
     throw new InvalidArgumentError('--state (|velocity|)', v, `below the escape speed √(2GM/r) = ${escape.toFixed(1)} m/s at r = ${r} m (a bound orbit)`,
-      v > 1e5 ? 'a speed this large looks like mm/s or cm/s; give m/s' : 'the state is parabolic or hyperbolic; check the velocity unit (m/s) and value');
+      v > 1e5 ? 'a speed this large looks like mm/s or cm/s; give m/s'
+        : `the state is parabolic or hyperbolic; check the velocity unit (m/s) and value${model === 'full' ? '' : ' (for a lunar orbiter use --model full)'}`);
   }
 }
 
@@ -65,8 +104,12 @@ potential with Sun/Moon from the low-precision series of Montenbruck & Gill, Sat
 Accuracy: integration error < 1 ps/day at the default tolerance (LEO to GEO, e up to 0.16); model limits: see
 packages/sdk/docs/relativity-models.md. τ − TT = 0 at t = 0; the samples are t = 0, step, 2·step, … and the duration.
 JSON fields: samples [{ t (s), tauMinusTT (s) }], model, constants, epochTtSecondsSinceJ2000, ephemeris,
-relativeTolerance, acceptedSteps, rejectedSteps, meanRate (τ − TT at the end divided by the duration), units.
-An unbound state (v ≥ √(2GM/r), e.g. a velocity in the wrong unit) is refused.
+relativeTolerance, acceptedSteps, rejectedSteps, meanRate (τ − TT at the end divided by the duration), caution
+(the mean rate is what a factory offset is computed from), units.
+An unbound state (v ≥ √(2GM/r), e.g. a velocity in the wrong unit) is refused; a speed under 1 % of the
+circular speed (km/s given as m/s?) is used as given, with a warning on stderr. With --model full, a state inside
+the Moon's Hill sphere (≈ 61 500 km from its centre) is judged against the Moon instead (lunar orbiters: give the
+geocentric state at --epoch-tt-j2000, mean equator and equinox of date); the run stops if the orbit hits the Moon.
 Exit status: 0 success, 2 invalid input.`,
   run(args, io) {
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
@@ -77,15 +120,23 @@ Exit status: 0 success, 2 invalid input.`,
     const epoch = numberFlag(args, 'epoch-tt-j2000') ?? 0;
     const tolerance = numberFlag(args, 'tolerance');
     const constants = constantsFlag(args);
-    requireBoundState(state, constants);
-    const result = withFlagNames({
+    requireBoundState(state, constants, model, epoch);
+    // Orbits in the span, from the initial radius: period T = 2π√(r³/GM) (Kepler's third law, circular orbit).
+    const r0 = Math.hypot(...state.position);
+    const orbits = duration / (2 * Math.PI * Math.sqrt(r0 ** 3 / constants.gm));
+    const bar = startProgress(io, 'integrating', orbits > PROPERTIME_PROGRESS_ORBITS);
+    const result = withProgress(bar, () => withFlagNames({
       '|state.position|': '--state (|position|)', 'state.position[0]': '--state x', 'state.position[1]': '--state y',
       'state.position[2]': '--state z', 'state.velocity[0]': '--state vx', 'state.velocity[1]': '--state vy',
       'state.velocity[2]': '--state vz', duration: '--duration', step: '--step', relativeTolerance: '--tolerance',
       epochTtSecondsSinceJ2000: '--epoch-tt-j2000',
     }, () => integrateProperTime(state, duration, step, {
       model, constants, epochTtSecondsSinceJ2000: epoch, ...(tolerance === undefined ? {} : { relativeTolerance: tolerance }),
-    }));
+      onProgress: bar.update,
+    })));
+    // Warned only once the state is accepted: a refused state gets its one error line alone.
+    const hint = speedHint('--state (|velocity|)', Math.hypot(...state.velocity), Math.hypot(...state.position), constants.gm);
+    if (hint) warn(io, 'propertime', hint);
     const n = result.t.length;
     const meanRate = result.tauMinusTT[n - 1]! / duration;
     if (format === 'json') {
@@ -100,16 +151,19 @@ Exit status: 0 success, 2 invalid input.`,
         acceptedSteps: result.acceptedSteps,
         rejectedSteps: result.rejectedSteps,
         meanRate,
+        // The mean rate is the value a factory offset is computed from: it carries the flight caution.
+        caution: FLIGHT_CAUTION,
         units: { t: 's (since the start)', tauMinusTT: 's', epochTtSecondsSinceJ2000: 's (TT)', relativeTolerance: 'dimensionless', meanRate: 'dimensionless' },
       }));
       return EXIT_OK;
     }
-    io.out(`Proper time τ − TT, model ${result.model}, constants ${result.constants}` +
-      (result.model === 'full' ? `, epoch TT J2000 + ${result.epochTtSecondsSinceJ2000} s (${result.ephemeris})` : '') + '\n\n');
-    io.out(table(['t (s)', 'τ − TT (s)', 'τ − TT (ns)'],
-      Array.from(result.t, (t: number, k: number): (string | number)[] => [sig(t, 12), result.tauMinusTT[k]!.toExponential(12), (result.tauMinusTT[k]! * 1e9).toFixed(6)])));
-    io.out(`\nmean rate over the span: ${meanRate.toExponential(9)} (${sig(meanRate * 86400e6, 8)} µs/day); ` +
-      `${result.acceptedSteps} steps (${result.rejectedSteps} rejected), rtol ${result.relativeTolerance}\n`);
+    const width = outputWidth(args);
+    io.out(wrapLines(`Proper time τ − TT, model ${result.model}, constants ${result.constants}` +
+      (result.model === 'full' ? `, epoch TT J2000 + ${result.epochTtSecondsSinceJ2000} s (${result.ephemeris})` : '') + '\n\n', width));
+    io.out(fitTable(['t (s)', 'τ − TT (s)', 'τ − TT (ns)'],
+      Array.from(result.t, (t: number, k: number): (string | number)[] => [sig(t, 12), result.tauMinusTT[k]!.toExponential(12), (result.tauMinusTT[k]! * 1e9).toFixed(6)]), { width }));
+    io.out(wrapLines(`\nmean rate over the span: ${meanRate.toExponential(9)} (${sig(meanRate * 86400e6, 8)} µs/day); ` +
+      `${result.acceptedSteps} steps (${result.rejectedSteps} rejected), rtol ${result.relativeTolerance}\n\n${FLIGHT_CAUTION}\n`, width));
     return EXIT_OK;
   },
 };

@@ -9,6 +9,8 @@ import {
   EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, choiceFlag, formatFlag, formatFlags, keyValueTable, numberFlag, optionalFlag, sig, toJson, withFlagNames,
   type Command, type FlagSpec, type ParsedArgs,
 } from '../framework.js';
+import { frequencyHint, warn } from '../plausibility.js';
+import { outputWidth, wrapLines } from '../layout.js';
 
 /** The `--constants` flag spec (the set of GM, L_G, J2, … the command computes with). */
 export const CONSTANTS_FLAG: FlagSpec = {
@@ -48,6 +50,8 @@ from the conventional value by up to 1e-13 (IERS 2010 §10.2). GPS check: a = 26
 JSON fields: semiMajorAxis (m), constants, reference, fractionalRate, gravitational, velocity, microsecondsPerDay,
 factoryOffset, and with --nominal-frequency: nominalFrequencyHz, offsetFrequencyHz, offsetHz; units (unit of each
 field); caution.
+A kilometre semi-major axis is refused with a hint; a nominal frequency below 1 kHz (MHz given as Hz?) is used
+as given, with a warning on stderr.
 Exit status: 0 success, 2 invalid input.`,
   run(args, io) {
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
@@ -59,6 +63,8 @@ Exit status: 0 success, 2 invalid input.`,
       () => meanClockRate(semiMajorAxis, { constants, reference }));
     const shifted = nominal === undefined ? undefined
       : withFlagNames({ nominalFrequency: '--nominal-frequency' }, () => offsetFrequency(nominal, rate.factoryOffset));
+    const hint = nominal === undefined ? undefined : frequencyHint('--nominal-frequency', nominal);
+    if (hint) warn(io, 'rate', hint);
     if (format === 'json') {
       io.out(toJson({
         semiMajorAxis: rate.semiMajorAxis,
@@ -96,8 +102,9 @@ Exit status: 0 success, 2 invalid input.`,
       rows.push(['frequency to set', `${Number(shifted.offsetFrequencyHz.toPrecision(16))} Hz`]);
       rows.push(['offset', `${signed(shifted.offsetHz)} Hz`]);
     }
-    io.out(keyValueTable(rows));
-    io.out(`\n${FLIGHT_CAUTION}\n`);
+    const width = outputWidth(args);
+    io.out(keyValueTable(rows, width));
+    io.out(wrapLines(`\n${FLIGHT_CAUTION}\n`, width));
     return EXIT_OK;
   },
 };

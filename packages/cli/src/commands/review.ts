@@ -2,13 +2,18 @@
  * `tauline review <file>`: checks the oscillator offsets configured for each spacecraft
  * against their planned orbits, before launch.
  */
-import { writeFile } from 'node:fs/promises';
-import { reviewOffsets, reviewToHtml, reviewToMarkdown, type ReviewReport } from '@tauline/sdk/review';
+import { reviewOffsets, reviewToHtml, reviewToMarkdown, verdictExplanation, type ReviewReport } from '@tauline/sdk/review';
 import {
-  EXIT_FINDING, EXIT_OK, formatFlag, formatFlagSpec, integerFlag, onePositional, optionalFlag, seedFlag, seedFlagSpec, table, toJson,
+  EXIT_FINDING, EXIT_OK, formatFlag, formatFlagSpec, integerFlag, onePositional, optionalFlag, seedFlag, seedFlagSpec, toJson, writeOutputFile,
+  escapeControlCharacters,
   type Command,
 } from '../framework.js';
-import { readJsonFile } from '../files.js';
+import { fitTable, outputWidth, wrapLines } from '../layout.js';
+import { startProgress } from '../progress.js';
+import { readJsonFile, sourceLabel } from '../files.js';
+
+/** Monte Carlo draws (runs × spacecraft with a dispersion) above which a terminal shows progress. */
+export const REVIEW_PROGRESS_DRAWS = 1_000_000;
 
 const FORMATS = ['table', 'json', 'md', 'html'] as const;
 
@@ -16,15 +21,21 @@ function e(x: number, digits = 4): string {
   return x.toExponential(digits - 1);
 }
 
-function tableReport(report: ReviewReport): string {
-  const out: string[] = [report.title, ''];
-  out.push(table(['spacecraft', 'verdict', 'expected offset', 'configured', 'difference', 'ns/day', 'tolerance'],
+/** The review as text fitted to `width` display columns (undefined: unlimited, `--wide`). */
+function tableReport(report: ReviewReport, width: number | undefined): string {
+  // Titles, ids and messages come from the review file: one line each, control characters shown escaped.
+  const text = (t: string) => escapeControlCharacters(t);
+  const out: string[] = [text(report.title), ''];
+  out.push(fitTable(['spacecraft', 'verdict', 'expected offset', 'configured', 'difference', 'ns/day', 'tolerance'],
     report.spacecraft.map((s) => [s.id, s.verdict.toUpperCase(), e(s.expectedFractionalOffset, 7), e(s.configuredFractionalOffset, 7),
-      e(s.differenceFractional, 3), s.differenceNanosecondsPerDay.toFixed(3), e(s.toleranceFractional, 2)])));
+      e(s.differenceFractional, 3), s.differenceNanosecondsPerDay.toFixed(3), e(s.toleranceFractional, 2)]), { width }).trimEnd());
   for (const s of report.spacecraft) {
-    if (s.diagnosis.length === 0 && !s.dispersion) continue;
-    out.push('', `${s.id} (${s.verdict.toUpperCase()}): ${s.summary}`);
-    for (const d of s.diagnosis) out.push(`  ${d.matches ? '•' : '·'} [${d.code}] ${d.message}`);
+    // A spacecraft that is not a plain pass is always explained, even when no known mistake matches.
+    if (s.diagnosis.length === 0 && !s.dispersion && s.verdict === 'pass') continue;
+    out.push('', `${text(s.id)} (${s.verdict.toUpperCase()}): ${text(s.summary)}`);
+    const why = verdictExplanation(s);
+    if (why) out.push(`  · ${text(why)}`);
+    for (const d of s.diagnosis) out.push(`  ${d.matches ? '•' : '·'} [${d.code}] ${text(d.message)}`);
     if (s.dispersion) {
       const d = s.dispersion;
       out.push(`  dispersion σa = ${d.semiMajorAxisSigma} m: residual rate ${e(d.residualAtMinus3Sigma, 3)} (−3σ) .. ${e(d.residualAtPlus3Sigma, 3)} (+3σ)` +
@@ -33,7 +44,7 @@ function tableReport(report: ReviewReport): string {
     }
   }
   out.push('', `${report.counts.pass} pass, ${report.counts.marginal} marginal, ${report.counts.fail} fail`, '', report.caution, '');
-  return out.join('\n');
+  return wrapLines(out.join('\n'), width);
 }
 
 export const reviewCommand: Command = {
@@ -62,11 +73,18 @@ Exit status: 0 all pass, 1 some fail or marginal, 2 the input could not be read.
     const seed = seedFlag(args);
     const document = await readJsonFile(path, 'a review file');
     let report: ReviewReport;
+    const dispersed = Array.isArray((document as { spacecraft?: unknown }).spacecraft)
+      ? ((document as { spacecraft: unknown[] }).spacecraft).filter((sc) => typeof sc === 'object' && sc !== null && 'dispersion' in sc).length : 0;
+    const bar = startProgress(io, 'Monte Carlo over the injection dispersion', (runs ?? 20_000) * dispersed > REVIEW_PROGRESS_DRAWS);
     try {
-      report = reviewOffsets(document, { ...(runs !== undefined ? { monteCarloRuns: runs } : {}), ...(seed !== undefined ? { seed } : {}) });
+      report = reviewOffsets(document, {
+        ...(runs !== undefined ? { monteCarloRuns: runs } : {}), ...(seed !== undefined ? { seed } : {}), onProgress: bar.update,
+      });
     } catch (error) {
-      if (error instanceof Error) error.message = `${path}: ${error.message}`;
+      if (error instanceof Error) error.message = `${sourceLabel(path)}: ${error.message}`;
       throw error;
+    } finally {
+      bar.finish();
     }
     const actuatorRanges: Record<string, number> = {};
     const doc = document as { actuator?: { rangeFractional?: number }; spacecraft: { id: string; actuator?: { rangeFractional?: number } }[] };
@@ -75,10 +93,10 @@ Exit status: 0 all pass, 1 some fail or marginal, 2 the input could not be read.
       if (typeof range === 'number') actuatorRanges[sc.id] = range;
     }
     const text = format === 'json' ? toJson(report) : format === 'md' ? reviewToMarkdown(report)
-      : format === 'html' ? reviewToHtml(report, actuatorRanges) : tableReport(report);
+      : format === 'html' ? reviewToHtml(report, actuatorRanges) : tableReport(report, outputWidth(args));
     const output = optionalFlag(args, 'output');
     if (output !== undefined) {
-      await writeFile(output, text, 'utf8');
+      await writeOutputFile(output, text);
       io.err(`wrote ${output} (${report.counts.pass} pass, ${report.counts.marginal} marginal, ${report.counts.fail} fail)\n`);
     } else io.out(text);
     return report.counts.fail + report.counts.marginal > 0 ? EXIT_FINDING : EXIT_OK;

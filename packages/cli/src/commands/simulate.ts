@@ -2,15 +2,19 @@
  * `tauline simulate <scenario.json> --runs N`: flies each strategy's plan against seeded
  * simulated clock noise and reports time in tolerance, worst excursion and command count.
  */
-import { planSteering, simulatePlan, type SteeringMethod, type SteeringScenario } from '@tauline/sdk/steering';
+import { planSteering, simulateClosedLoop, simulatePlan, type ClosedLoopSummary, type SteeringMethod, type SteeringScenario } from '@tauline/sdk/steering';
 import {
   EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, integerFlag, onePositional, optionalFlag, progressBar, requireFlag, seedFlag, seedFlagSpec,
-  table, toJson, type Command,
+  toJson, type Command, type Io, type ParsedArgs,
 } from '../framework.js';
+import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag, nsText, readScenarioFile, strategyFlag } from './plan.js';
 
 /** Simulated (run × grid-epoch) steps above which a progress bar is shown on a terminal. */
 export const PROGRESS_THRESHOLD = 200_000;
+
+/** The caution printed under the closed-loop table. */
+export const CLOSED_LOOP_CAUTION = 'Caution: a simulation of operations under the scenario\'s clock and estimate noise models, not a guarantee; verify any schedule against the mission\'s own interface specification and have it confirmed by its responsible engineering authority before uplink.';
 
 /** The caution printed under the table and carried in the JSON. */
 export const SIMULATION_CAUTION = 'Caution: plans are open-loop from the epoch estimate; verify any schedule against the mission\'s own interface specification and have it confirmed by its responsible engineering authority before uplink.';
@@ -18,10 +22,11 @@ export const SIMULATION_CAUTION = 'Caution: plans are open-loop from the epoch e
 export const simulateCommand: Command = {
   name: 'simulate',
   summary: 'Monte Carlo of steering plans against simulated clock noise, per strategy.',
-  usage: '<scenario.json> --runs <n> [--seed <n>] [--strategy deadband|optimal|none|all] [--leap-seconds <file>] [--json | --format table|json]',
+  usage: '<scenario.json> (--runs <n> | --closed-loop [--runs <n>]) [--seed <n>] [--strategy deadband|optimal|none|all] [--leap-seconds <file>] [--json | --format table|json]',
   allowPositionals: true,
   flags: {
-    runs: { type: 'string', value: '<n>', description: 'Number of simulated clocks per strategy (1 … 1000000).' },
+    runs: { type: 'string', value: '<n>', description: 'Number of simulated clocks per strategy (1 … 1000000; with --closed-loop 1 … 100000, default 100).' },
+    'closed-loop': { type: 'boolean', description: 'Fly the scenario\'s operations block: estimates with noise and latency, re-plan at every contact (needs "operations" in the scenario).' },
     seed: seedFlagSpec('the random generator', '; same seed, same numbers'),
     strategy: { type: 'string', value: '<name>', description: 'deadband, optimal, none, or all (default all).' },
     'leap-seconds': LEAP_SECONDS_FLAG,
@@ -35,11 +40,22 @@ time in tolerance: fraction of (run, epoch) pairs inside; whole horizon: fractio
 min epoch: the smallest per-epoch fraction (compare with the plan's probability).
 JSON: { scenario, results: [{ strategy, feasible, expectedCost, runs, seed, commandCount, timeInTolerance,
 wholeHorizonProbability, minEpochProbability, worstExcursionSeconds (s), worstExcursionP95Seconds (s) }], units, caution }.
+
+--closed-loop: every run flies one truth clock (the scenario's noise model) under each strategy; ground
+estimates of the offset arrive every operations.estimateIntervalSeconds with 1σ estimateNoiseSeconds,
+estimateLatencySeconds after their epoch; at the start of every contact a Kalman filter takes the
+estimates received so far and the strategy re-plans from its estimate; the commands uplinked in that
+contact are executed. Per run: time in tolerance (fraction of grid epochs with |offset| ≤ tolerance),
+largest |offset|, commands per day, Σ|frequency steps|. JSON (exactly): { closedLoop: true, runs, seed,
+strategies: [{ method, timeInTolerance: { mean, p05, min }, maxAbsOffsetSeconds (s): { p50, p95, max },
+commandsPerDay: { mean }, totalFrequencySteering: { mean } }] }, methods optimal, deadband, none by
+default; percentiles are nearest-rank over runs. Same seed, byte-identical output.
 ${LEAP_SECONDS_HELP}
 Exit status: 0 success, 2 unusable input.`,
   async run(args, io) {
     const path = onePositional(args, 'scenario file');
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
+    if (args.values['closed-loop'] === true) return runClosedLoop(args, io, path, format);
     requireFlag(args, 'runs');
     const runs = integerFlag(args, 'runs', 1, 1_000_000, 'simulated clocks per strategy')!;
     const seed = seedFlag(args) ?? 1;
@@ -69,11 +85,45 @@ Exit status: 0 success, 2 unusable input.`,
       return EXIT_OK;
     }
     const s = scenario as SteeringScenario;
-    io.out(`${s.name ?? 'Steering scenario'}: ${runs} simulated clocks per strategy, seed ${seed}; tolerance ±${nsText(s.tolerance.phaseSeconds)}\n\n`);
-    io.out(table(['strategy', 'plan feasible', 'commands', 'time in tolerance', 'whole horizon', 'min epoch', 'worst excursion', '95 % worst', 'expected cost J'],
+    const width = outputWidth(args);
+    io.out(wrapLines(`${s.name ?? 'Steering scenario'}: ${runs} simulated clocks per strategy, seed ${seed}; tolerance ±${nsText(s.tolerance.phaseSeconds)}\n\n`, width));
+    io.out(fitTable(['strategy', 'plan feasible', 'commands', 'time in tolerance', 'whole horizon', 'min epoch', 'worst excursion', '95 % worst', 'expected cost J'],
       results.map((r) => [r.strategy, r.feasible ? 'yes' : 'no', r.commandCount, r.timeInTolerance.toFixed(4), r.wholeHorizonProbability.toFixed(4),
-        r.minEpochProbability.toFixed(4), nsText(r.worstExcursionSeconds), nsText(r.worstExcursionP95Seconds), r.expectedCost.toFixed(5)])));
-    io.out(`\n${SIMULATION_CAUTION}\n`);
+        r.minEpochProbability.toFixed(4), nsText(r.worstExcursionSeconds), nsText(r.worstExcursionP95Seconds), r.expectedCost.toFixed(5)]), { width }));
+    io.out(wrapLines(`\n${SIMULATION_CAUTION}\n`, width));
     return EXIT_OK;
   },
 };
+
+/** `--closed-loop`: the closed-loop Monte Carlo of every chosen strategy on the same clocks. */
+async function runClosedLoop(args: ParsedArgs, io: Io, path: string, format: 'table' | 'json'): Promise<number> {
+  const runs = integerFlag(args, 'runs', 1, 100_000, 'simulated clocks') ?? 100;
+  const seed = seedFlag(args) ?? 1;
+  const choice = strategyFlag(optionalFlag(args, 'strategy'), true) ?? 'all';
+  const timeScales = await leapSecondsFlag(args);
+  const scenario = await readScenarioFile(path);
+  const strategies: SteeringMethod[] = choice === 'all' ? ['optimal', 'deadband', 'none'] : [choice];
+  const bar = io.isTty ? progressBar(io, 'closed loop') : undefined;
+  const summary = simulateClosedLoop(scenario, { runs, seed, strategies, ...(bar ? { onProgress: bar.update } : {}), ...(timeScales ? { timeScales } : {}) });
+  bar?.finish();
+  if (format === 'json') {
+    io.out(toJson(summary));
+    return EXIT_OK;
+  }
+  io.out(closedLoopText(scenario as SteeringScenario, summary, outputWidth(args)));
+  return EXIT_OK;
+}
+
+/** The human table of a closed-loop summary, fitted to `width` display columns (undefined: unlimited, `--wide`). */
+export function closedLoopText(s: SteeringScenario, r: ClosedLoopSummary, width?: number): string {
+  const ops = s.operations!;
+  const head = `${s.name ?? 'Steering scenario'}: closed loop, ${r.runs} simulated clocks, seed ${r.seed}; tolerance ±${nsText(s.tolerance.phaseSeconds)}; ` +
+    `estimates every ${ops.estimateIntervalSeconds} s, 1σ ${nsText(ops.estimateNoiseSeconds)}, latency ${ops.estimateLatencySeconds ?? 0} s; re-plan at each contact`;
+  const rows = r.strategies.map((x) => [x.method, x.timeInTolerance.mean.toFixed(4), x.timeInTolerance.p05.toFixed(4), x.timeInTolerance.min.toFixed(4),
+    nsText(x.maxAbsOffsetSeconds.p50), nsText(x.maxAbsOffsetSeconds.p95), nsText(x.maxAbsOffsetSeconds.max),
+    x.commandsPerDay.mean.toFixed(2), x.totalFrequencySteering.mean.toExponential(3)]);
+  const body = fitTable(['strategy', 'time in tolerance mean', 'p05', 'min', 'max |offset| p50', 'p95', 'max', 'commands/day', 'Σ|freq steps| mean'],
+    rows, { width });
+  return wrapLines(`${head}\n\n`, width) + body +
+    wrapLines(`\nTime in tolerance: per run, the fraction of grid epochs with |offset| ≤ tolerance. Percentiles are over runs (nearest rank).\n${CLOSED_LOOP_CAUTION}\n`, width);
+}

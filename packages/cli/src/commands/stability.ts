@@ -7,10 +7,12 @@ import {
 } from '@tauline/sdk/stability';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import {
-  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, numberFlag, optionalFlag, parseNumber, sig, table, toJson, UsageError, withFlagNames,
+  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, numberFlag, optionalFlag, parseNumber, sig, toJson, UsageError, withFlagNames,
   type Command, type ParsedArgs,
 } from '../framework.js';
 import { readClockRecord, recordFlags } from '../records.js';
+import { epochFormat } from '../epochs.js';
+import { fitTable, outputWidth, wrappedOut } from '../layout.js';
 
 /** Fewest phase points any statistic here can use (one second difference needs 3; the edf models need 4). */
 export const MIN_PHASE_POINTS = 4;
@@ -64,7 +66,7 @@ Gaps: a missing epoch (time column) or NaN value is a missing sample; statistics
 only and report the reduced n; totdev refuses records with gaps. Nothing is interpolated.
 Intervals: chi-square with equivalent degrees of freedom (SP 1065 §5.3): oadev Howe–Allan–Barnes
 formulas; adev, mdev, tdev, hdev, ohdev exact Gaussian edf for the noise type; totdev b·T/τ − c.
-Noise type per τ: lag-1 autocorrelation method (Riley & Greenhall, EFTF 2004), unless --noise is given.
+Noise type per τ: B1 ratio, R(n) and lag-1 autocorrelation (NIST SP 1065 §5.6), unless --noise is given.
 JSON: { input: { kind, file, samples, phasePoints, missing, gaps[], tau0 }, confidence, statistics,
 rows: [ { tau, m, noise, alpha, noiseSource, <stat>, <stat>Low, <stat>High, <stat>N, <stat>Edf,
 <stat>EdfModel } ], droppedTaus, units }. A statistic without terms at a τ is null in that row.
@@ -111,6 +113,7 @@ Exit status: 0 success, 2 unusable input.`,
         `without gaps oadev reaches τ = ⌊(N − 1)/2⌋·τ0 = ${sig(longest)} s; dropped τ: ${analysis.droppedTaus.map((t) => sig(t)).join(', ')} s`);
     }
 
+    const epoch = epochFormat(input);
     if (format === 'json') {
       const rows = analysis.rows.map((r) => {
         const row: Record<string, unknown> = { tau: r.tau, m: r.m, noise: r.noise, alpha: r.alpha, noiseSource: r.noiseSource };
@@ -129,7 +132,12 @@ Exit status: 0 success, 2 unusable input.`,
         input: {
           kind: input.kind, file: input.source, ...(input.clock ? { clock: input.clock } : {}), ...(input.timeSystem ? { timeSystem: input.timeSystem } : {}),
           samples: analysis.input.samples, phasePoints: analysis.input.phasePoints, missing: analysis.input.missing,
-          gaps: input.gaps, tau0: analysis.input.tau0,
+          // A RINEX clock file's gap epochs also as ISO 8601 in its time system (timeIso).
+          gaps: input.gaps.map((g) => {
+            const iso = g.time === undefined ? undefined : epoch.iso(g.time);
+            return iso === undefined ? g : { ...g, timeIso: iso };
+          }),
+          tau0: analysis.input.tau0,
         },
         confidence: analysis.confidence,
         statistics: stats,
@@ -138,22 +146,27 @@ Exit status: 0 success, 2 unusable input.`,
         units: {
           tau: 's', tau0: 's', droppedTaus: 's', tdev: 's', tdevLow: 's', tdevHigh: 's', confidence: 'dimensionless (probability)',
           deviations: 'dimensionless (fractional frequency) for every statistic except tdev',
+          ...(epoch.scale === undefined ? {} : { gapTime: `s since 1980-01-06T00:00:00 ${epoch.scale}`, gapTimeIso: `ISO 8601 in ${epoch.scale}` }),
         },
       }));
       return EXIT_OK;
     }
 
     const missing = analysis.input.missing;
-    io.out(`${input.kind} record ${input.source}${input.clock ? ` (clock ${input.clock}${input.timeSystem ? `, ${input.timeSystem} time` : ''})` : ''}: ` +
-      `${analysis.input.samples} samples, τ0 = ${sig(analysis.input.tau0)} s, ${missing} missing in ${input.gaps.length} gap(s)\n`);
+    const width = outputWidth(args);
+    const out = wrappedOut(io.out, width);
+    out(`${input.kind} record ${input.source}${input.clock ? ` (clock ${input.clock}${input.timeSystem ? `, ${input.timeSystem} time` : ''})` : ''}: ` +
+      `${analysis.input.samples} samples, τ0 = ${sig(analysis.input.tau0)} s, ` +
+      (input.flag === '--rinex-clock' && input.times && input.times.length > 0 ? `epochs ${epoch.text(input.times[0]!)} … ${epoch.text(input.times[input.times.length - 1]!)}, ` : '') +
+      `${missing} missing in ${input.gaps.length} gap(s)\n`);
     for (const g of input.gaps.slice(0, 10)) {
-      io.out(`  gap: ${g.missing} missing sample(s) from index ${g.index}${g.time !== undefined ? ` (t = ${sig(g.time)} s)` : ''}, line ${g.line}\n`);
+      out(`  gap: ${g.missing} missing sample(s) from index ${g.index}${g.time !== undefined ? ` (t = ${epoch.text(g.time)})` : ''}, line ${g.line}\n`);
     }
-    if (input.gaps.length > 10) io.out(`  ... ${input.gaps.length - 10} more gaps (see --json)\n`);
+    if (input.gaps.length > 10) out(`  ... ${input.gaps.length - 10} more gaps (see --json)\n`);
     const headers = ['τ (s)', 'noise'];
     for (const s of stats) headers.push(s, `${s} interval`, 'n');
     const rows = analysis.rows.map((r) => {
-      const cells: string[] = [sig(r.tau, 6), `${r.noise}${r.noiseSource === 'lag1-acf' ? '' : r.noiseSource === 'stated' ? ' (stated)' : '*'}`];
+      const cells: string[] = [sig(r.tau, 6), `${r.noise}${r.noiseSource === 'identified' ? '' : r.noiseSource === 'stated' ? ' (stated)' : '*'}`];
       for (const s of stats) {
         const e = r.statistics[s];
         if (!e) cells.push('—', '—', '—');
@@ -161,12 +174,14 @@ Exit status: 0 success, 2 unusable input.`,
       }
       return cells;
     });
-    io.out('\n' + table(headers, rows));
-    io.out(`\nDeviations are fractional frequency (dimensionless); tdev in seconds. Intervals: ${sig(analysis.confidence * 100, 4)} % chi-square (NIST SP 1065 §5.3).\n`);
+    // Too many statistics for the width: panels of whole statistics (value, interval, n), each with τ and noise.
+    const groups = stats.map((_, k) => [2 + 3 * k, 3 + 3 * k, 4 + 3 * k]);
+    out('\n' + fitTable(headers, rows, { width, panels: { keys: 2, groups } }));
+    out(`\nDeviations are fractional frequency (dimensionless); tdev in seconds. Intervals: ${sig(analysis.confidence * 100, 4)} % chi-square (NIST SP 1065 §5.3).\n`);
     if (analysis.rows.some((r) => r.noiseSource === 'carried-from-shorter-tau' || r.noiseSource === 'default-wfm')) {
-      io.out('* noise type not identifiable at this τ (fewer than 32 points): carried from a shorter τ, or white FM when none could be identified.\n');
+      out('* noise type not identifiable at this τ (fewer than 32 points): carried from a shorter τ, or white FM when none could be identified.\n');
     }
-    if (analysis.droppedTaus.length > 0) io.out(`Dropped τ (no complete term): ${analysis.droppedTaus.map((t) => sig(t)).join(', ')} s\n`);
+    if (analysis.droppedTaus.length > 0) out(`Dropped τ (no complete term): ${analysis.droppedTaus.map((t) => sig(t)).join(', ')} s\n`);
     return EXIT_OK;
   },
 };

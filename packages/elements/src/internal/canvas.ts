@@ -157,10 +157,13 @@ export function drawAxes(
   ctx.textAlign = 'center';
   ctx.textBaseline = 'top';
   let lastRight = -Infinity;
+  // Canvas width in CSS px: a label near either edge is shifted inwards so it is never clipped.
+  const canvasWidth = ctx.canvas.width / (ctx.getTransform().a || 1);
   for (const t of xTicks) {
-    const x = sx.map(t.value);
-    if (x < left - 1 || x > right + 1) continue;
+    const tick = sx.map(t.value);
+    if (tick < left - 1 || tick > right + 1) continue;
     const w = Math.max(ctx.measureText(t.label).width, t.sub ? ctx.measureText(t.sub).width : 0);
+    const x = Math.max(w / 2 + 1, Math.min(canvasWidth - w / 2 - 1, tick));
     if (x - w / 2 < lastRight + 6) continue; // skip labels that would overlap
     ctx.fillText(t.label, x, bottom + 5);
     if (t.sub) ctx.fillText(t.sub, x, bottom + 19);

@@ -31,6 +31,15 @@ function minus(text: string): string {
   return text.replace(/^-/, '−').replace(/e-/, 'e−').replace(/e\+/, 'e');
 }
 
+/**
+ * Prose from the SDK (command reasons, review summaries and diagnoses) with every number's sign
+ * and exponent sign shown as the typographic minus U+2212, as the elements print numbers; hyphens
+ * between words or in dates (2027-03-08) are left alone.
+ */
+export function typographicMinus(text: string): string {
+  return text.replace(/(^|[\s(=±Δ:[,;/])-(?=\.?\d)/g, '$1−').replace(/(\d[eE])-(?=\d)/g, '$1−');
+}
+
 /** A number with `digits` significant figures, plain notation for 1e-3 ≤ |v| < 1e6, else scientific. */
 export function formatNumber(value: number, digits = 4): string {
   if (!Number.isFinite(value)) return '—';

@@ -18,8 +18,17 @@ export abstract class PlotElement extends LitElement {
   /** Colour scheme: `light`, `dark`, or unset to inherit the page's `color-scheme`. */
   theme?: 'light' | 'dark';
 
+  /**
+   * Whether the first size is measured synchronously when the plot box first renders (one layout
+   * read in the update cycle, so the first update draws). Plots with a large DOM set this false:
+   * they then draw when the ResizeObserver first reports, still before the first paint.
+   * @internal
+   */
+  protected static readonly measureOnFirstUpdate: boolean = true;
+
   /** @internal */
-  protected readonly _size = new ResizeController(this, () => this.renderRoot.querySelector?.('.plot-box'));
+  protected readonly _size = new ResizeController(this, () => this.renderRoot.querySelector?.('.plot-box'),
+    () => (this.constructor as typeof PlotElement).measureOnFirstUpdate);
   private _colorCache: Record<string, string> | null = null;
   private _schemeKey = '';
   private _media: MediaQueryList | undefined;

@@ -8,7 +8,8 @@ import type { ReactiveController, ReactiveControllerHost } from 'lit';
 
 /**
  * Observes `target()` (an element in the host's shadow root) and keeps `width`/`height` in CSS px.
- * Later size changes request a host update; the first measurement is taken synchronously.
+ * Size changes request a host update; the first measurement is taken synchronously unless the
+ * host opts out (then the observer's first callback, delivered after layout and before paint, sets it).
  */
 export class ResizeController implements ReactiveController {
   width = 0;
@@ -18,9 +19,17 @@ export class ResizeController implements ReactiveController {
   private _observer: ResizeObserver | undefined;
   private _observed: Element | undefined;
 
-  constructor(host: ReactiveControllerHost & HTMLElement, target: () => Element | null | undefined) {
+  private readonly _measureSynchronously: () => boolean;
+
+  /**
+   * @param measureSynchronously  When it returns true, the first size is read with
+   *   `getBoundingClientRect()` as soon as the target exists (a layout read inside the update
+   *   cycle); otherwise only the ResizeObserver's callbacks set the size.
+   */
+  constructor(host: ReactiveControllerHost & HTMLElement, target: () => Element | null | undefined, measureSynchronously: () => boolean = () => true) {
     this._host = host;
     this._target = target;
+    this._measureSynchronously = measureSynchronously;
     host.addController(this);
   }
 
@@ -54,6 +63,7 @@ export class ResizeController implements ReactiveController {
     if (this._observed) this._observer.unobserve(this._observed);
     this._observer.observe(el);
     this._observed = el;
+    if (!this._measureSynchronously()) return;
     // Measure synchronously once (hostUpdated runs before the host's updated(), where it
     // draws), so the first draw has a size without a second update cycle.
     const rect = el.getBoundingClientRect();

@@ -3,6 +3,7 @@ import { baseStyles } from '../internal/styles.js';
 import { rateBudgetStyles } from './rate-budget.styles.js';
 import { formatFraction, formatHertz, formatNumber } from '../internal/format.js';
 import { warnOnce } from '../internal/warn.js';
+import { FLIGHT_CONFIGURATION_CAUTION } from '@tauline/sdk/relativity';
 
 /**
  * The mean rate breakdown the element shows: the fields of the SDK's `meanClockRate(a)` result
@@ -46,6 +47,8 @@ interface BudgetRow {
  * A rate budget: the orbiting clock's mean rate broken into its gravitational, velocity and J2
  * parts, each as a fraction, as microseconds per day, and as the factory offset it calls for
  * (fraction and hertz at the nominal frequency). Signed bars show each part's size and sign.
+ * The factory offsets and hertz values feed a flight configuration, so the table always carries
+ * the SDK's `FLIGHT_CONFIGURATION_CAUTION`.
  *
  * Data are immutable: set a new `budget` object to re-render (changes are detected by identity).
  *
@@ -54,6 +57,7 @@ interface BudgetRow {
  * @csspart base - The outer wrapper.
  * @csspart table - The budget table (the accessible form of the bars).
  * @csspart row - Each body row of the table.
+ * @csspart caution - The flight-configuration caution under the table.
  *
  * @cssproperty --gain-color - Bar colour of a part that makes the clock run fast (default token `--tauline-color-gain`).
  * @cssproperty --loss-color - Bar colour of a part that makes the clock run slow (default token `--tauline-color-loss`).
@@ -154,13 +158,14 @@ export class TaulineRateBudget extends LitElement {
         <strong>${formatFraction(factory)}</strong>
         (<strong>${formatHertz(factory * f0)}</strong> at ${formatHertz(f0, 6)}).
       </p>
-      <div class="table-scroll"><table part="table">
-        <caption>Mean rate vs ${ref}${b.constants ? `, constants ${b.constants}` : ''}: positive rate, the clock runs fast; the factory offset, set on the ground, cancels it.</caption>
+      <p class="table-note" id="budget-note">Mean rate vs ${ref}${b.constants ? `, constants ${b.constants}` : ''}: positive rate, the clock runs fast; the factory offset, set on the ground, cancels it.</p>
+      <div class="table-scroll"><table part="table" aria-describedby="budget-note">
+        <caption class="sr-only">Clock rate budget by part</caption>
         <thead>
           <tr>
             <th scope="col">Part</th>
             <th scope="col">Clock rate (µs/day)</th>
-            <th scope="col" class="bar-col"><span class="sr-only">Relative size and sign</span></th>
+            <th scope="col" class="bar-col">Size and sign <span class="axis-note">(− slow | + fast)</span></th>
             <th scope="col">Factory offset (fraction)</th>
             <th scope="col">Offset at ${formatHertz(f0, 6)}</th>
           </tr>
@@ -171,14 +176,15 @@ export class TaulineRateBudget extends LitElement {
       </table></div>
       ${this.j2Rate === undefined || this.j2Rate === null
         ? html`<p class="note">J2 part not supplied: the net rate is the point-mass value.</p>`
-        : nothing}`;
+        : nothing}
+      <p class="caution" part="caution" role="note">${FLIGHT_CONFIGURATION_CAUTION}</p>`;
   }
 
   private _renderRow(row: BudgetRow, maxAbs: number, toOffset: (r: number) => number, f0: number): TemplateResult {
     if (row.rate === null) {
       return html`<tr part="row" class=${row.key}>
         <th scope="row">${row.label}</th>
-        <td class="na">not computed</td><td class="bar-cell"></td><td class="na">—</td><td class="na">—</td>
+        <td class="na" data-label="Clock rate (µs/day)">not computed</td><td class="bar-cell"></td><td class="na" data-label="Factory offset (fraction)">—</td><td class="na" data-label="Offset (Hz)">—</td>
       </tr>`;
     }
     const rate = row.rate;
@@ -188,10 +194,10 @@ export class TaulineRateBudget extends LitElement {
     const kind = row.key === 'total' ? 'total' : rate >= 0 ? 'gain' : 'loss';
     return html`<tr part="row" class=${row.key}>
       <th scope="row">${row.label}</th>
-      <td>${formatMicroseconds(rate * SECONDS_PER_DAY * 1e6)}</td>
+      <td data-label="Clock rate (µs/day)">${formatMicroseconds(rate * SECONDS_PER_DAY * 1e6)}</td>
       <td class="bar-cell" aria-hidden="true"><div class="bar-track"><div class="bar ${kind}" style="left:${left}%;width:${Math.max(width, 0.3)}%"></div></div></td>
-      <td>${formatFraction(offset)}</td>
-      <td>${formatHertz(offset * f0)}</td>
+      <td data-label="Factory offset (fraction)">${formatFraction(offset)}</td>
+      <td data-label=${`Offset at ${formatHertz(f0, 6)}`}>${formatHertz(offset * f0)}</td>
     </tr>`;
   }
 }

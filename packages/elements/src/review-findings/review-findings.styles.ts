@@ -34,4 +34,5 @@ export const reviewFindingsStyles = css`
   .diagnosis code { font-size: 0.92em; color: var(--muted); }
   .match { font-weight: 600; color: var(--fail-color); }
   .list { display: flex; flex-direction: column; gap: 6px; }
+  .notice { padding: 6px 10px; border: 1px solid var(--fail-color); border-radius: var(--radius); }
 `;

@@ -1,7 +1,7 @@
 import { LitElement, html, nothing, type PropertyValues, type TemplateResult, type PropertyDeclarations } from 'lit';
 import { baseStyles } from '../internal/styles.js';
 import { reviewFindingsStyles } from './review-findings.styles.js';
-import { formatFraction, formatHertz, formatNumber } from '../internal/format.js';
+import { formatFraction, formatHertz, formatNumber, typographicMinus } from '../internal/format.js';
 import { warnOnce } from '../internal/warn.js';
 import { emit } from '../events.js';
 
@@ -41,6 +41,23 @@ export interface ReviewReportView {
   readonly title?: string;
   readonly caution?: string;
   readonly spacecraft: readonly ReviewFindingView[];
+}
+
+/** True for a diagnosis entry the element can show: an object with a text message. */
+function isDiagnosis(d: unknown): d is ReviewDiagnosisView {
+  return d !== null && typeof d === 'object' && typeof (d as { message?: unknown }).message === 'string';
+}
+
+/** What cannot be shown of a finding's diagnosis: a non-array, or entries that are not `{ code, message }` objects. */
+function diagnosisProblems(f: Partial<ReviewFindingView>, k: number): string[] {
+  const list = (f as { diagnosis?: unknown }).diagnosis;
+  if (list === undefined || list === null) return [];
+  if (!Array.isArray(list)) return [`spacecraft[${k}] (${f.id}).diagnosis is not a list`];
+  const out: string[] = [];
+  list.forEach((d: unknown, j) => {
+    if (!isDiagnosis(d)) out.push(`spacecraft[${k}] (${f.id}).diagnosis[${j}] is ${d === null ? 'null' : 'not an entry with a message'}`);
+  });
+  return out;
 }
 
 const VERDICT_TEXT: Record<ReviewVerdict, string> = { pass: 'Pass', marginal: 'Marginal', fail: 'Fail' };
@@ -89,11 +106,14 @@ export class TaulineReviewFindings extends LitElement {
 
   private _findings: ReviewFindingView[] = [];
   private _problem: string | null = null;
+  /** Entries that could not be shown (dropped spacecraft, unreadable diagnosis entries): listed visibly. */
+  private _notices: string[] = [];
 
   protected override willUpdate(changed: PropertyValues<this>): void {
     if (!changed.has('review')) return;
     this._problem = null;
     this._findings = [];
+    this._notices = [];
     const r = this.review as unknown;
     if (r === undefined || r === null) return;
     if (typeof r !== 'object' || !Array.isArray((r as { spacecraft?: unknown }).spacecraft)) {
@@ -109,9 +129,12 @@ export class TaulineReviewFindings extends LitElement {
         return;
       }
       this._findings.push(f as ReviewFindingView);
+      this._notices.push(...diagnosisProblems(f, k));
     });
     this._findings.sort((a, b) => VERDICT_ORDER[a.verdict] - VERDICT_ORDER[b.verdict]);
     if (dropped.length > 0) warnOnce(this, 'review-entries-dropped', dropped.join('; '));
+    this._notices.unshift(...dropped);
+    if (this._notices.length > dropped.length) warnOnce(this, 'invalid-diagnosis', this._notices.slice(dropped.length).join('; '));
     if (dropped.length > 0 && this._findings.length === 0) this._problem = dropped[0]!;
   }
 
@@ -152,6 +175,9 @@ export class TaulineReviewFindings extends LitElement {
         ${(['fail', 'marginal', 'pass'] as const).map((v) => html`<li>${this._verdict(v)} ${counts[v]}</li>`)}
       </ul>
       ${r.caution ? html`<p class="caution" role="note">${r.caution}</p>` : nothing}
+      ${this._notices.length > 0
+        ? html`<div class="notice" role="alert">Part of this review could not be shown: ${this._notices.join('; ')}.</div>`
+        : nothing}
       <div class="list">
         ${shown.length === 0 ? html`<div class="state">${this._findings.length === 0 ? 'The review lists no spacecraft.' : 'Every spacecraft passed.'}</div>` : nothing}
         ${shown.map((f) => this._renderFinding(f))}
@@ -168,7 +194,7 @@ export class TaulineReviewFindings extends LitElement {
         <span class="diff">Δ ${formatFraction(diff, 3)}</span>
       </summary>
       <div class="body">
-        ${f.summary ? html`<p>${f.summary}</p>` : nothing}
+        ${f.summary ? html`<p>${typographicMinus(f.summary)}</p>` : nothing}
         <table part="table">
           <caption>Offsets for ${f.id} (fractional; negative: set low)</caption>
           <tbody>
@@ -181,8 +207,8 @@ export class TaulineReviewFindings extends LitElement {
         </table>
         ${Array.isArray(f.diagnosis) && f.diagnosis.length > 0
           ? html`<div><strong>Diagnosis</strong><ul class="diagnosis">
-              ${f.diagnosis.map((d) => html`<li>
-                ${d.matches ? html`<span class="match">Matches:</span> ` : nothing}${d.message}
+              ${f.diagnosis.filter(isDiagnosis).map((d) => html`<li>
+                ${d.matches ? html`<span class="match">Matches:</span> ` : nothing}${typographicMinus(d.message)}
                 <code>${d.code}</code>${typeof d.wouldHaveProduced === 'number' ? html` — would have produced ${formatFraction(d.wouldHaveProduced, 5)}` : nothing}
               </li>`)}
             </ul></div>`

@@ -11,10 +11,15 @@ export const stabilityPlotStyles = css`
     --series-6: var(--tauline-color-series-6, light-dark(#2b7a7e, #86d0d3));
     --plot-height: 300px;
   }
-  .table-wrap { max-height: 260px; overflow: auto; }
-  th { white-space: normal; }
-  th, td { padding: 3px 6px; }
-  :host([no-table]) .table-wrap {
-    position: absolute; width: 1px; height: 1px; overflow: hidden; clip: rect(0 0 0 0); white-space: nowrap;
-  }
+  /* Header (two lines) + 11 rows of 24 px: the table is windowed, so rows have a fixed height. */
+  .table-wrap { max-height: 320px; overflow: auto; overscroll-behavior: contain; }
+  thead th { position: sticky; top: 0; background: var(--surface); z-index: 1; white-space: normal; }
+  th, td { padding: 0 6px; }
+  tbody tr { height: 24px; }
+  tbody th, tbody td { white-space: nowrap; }
+  tr.spacer td { padding: 0; border: 0; }
+  [part~='legend'] li { display: block; }
+  .series-toggle { display: inline-flex; align-items: center; gap: 6px; border-color: transparent; color: var(--text); padding: 1px 6px; }
+  .series-toggle[aria-pressed='false'] { color: var(--muted); text-decoration: line-through; opacity: 0.75; }
+  .note, .table-units { margin: 0; color: var(--muted); font-size: 0.92em; }
 `;

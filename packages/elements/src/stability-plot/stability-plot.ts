@@ -2,23 +2,23 @@ import { html, nothing, type PropertyValues, type TemplateResult, type PropertyD
 import { PlotElement } from '../internal/plot-element.js';
 import { baseStyles, plotStyles } from '../internal/styles.js';
 import { stabilityPlotStyles } from './stability-plot.styles.js';
-import { normaliseStability, type StabilityColumns, type StabilitySet } from './stability-data.js';
-import { drawAxes, markerPath, sizeCanvas, type AxisStyle, type Frame, type MarkerShape, type Tick } from '../internal/canvas.js';
+import { DEFAULT_MIN_TERMS, normaliseStability, type StabilityColumns, type StabilitySet } from './stability-data.js';
+import {
+  SHAPES, decadeTicks, deviationExtent, drawRightAxis, drawSeries, type PlotShape,
+} from './stability-draw.js';
+import { renderStabilityTable, renderTableUnits, rowStarts, rowWindow } from './stability-table.js';
+import { drawAxes, sizeCanvas, type AxisStyle, type Frame } from '../internal/canvas.js';
 import { logScale, logTicks, type Scale } from '../internal/scale.js';
 import { formatDuration, formatFraction, formatNumber, formatOffsetAuto } from '../internal/format.js';
+import { lowerBound } from '../internal/decimate.js';
 import { warnOnce } from '../internal/warn.js';
 
 export type { StabilityColumns };
 
-/** Marker shapes by series index; `plus` is drawn here (the shared helper has six shapes). */
-type PlotShape = MarkerShape | 'plus';
-const SHAPES: readonly PlotShape[] = ['circle', 'square', 'diamond', 'triangle-up', 'triangle-down', 'cross', 'plus'];
-
 /**
  * Statistics whose deviation is a time deviation σ_x in seconds (W. J. Riley, NIST SP 1065
  * (2008), TDEV σ_x(τ) = (τ/√3)·MDEV(τ), physics-refs §10 [M for the section]; TTOTDEV is its total
- * variant). Every other statistic is a dimensionless
- * fractional-frequency deviation σ_y.
+ * variant). Every other statistic is a dimensionless fractional-frequency deviation σ_y.
  */
 const TIME_STATISTICS: ReadonlySet<string> = new Set(['tdev', 'ttotdev']);
 
@@ -48,75 +48,6 @@ function statCode(name: string): string {
   return LABELS[name] ? name.toUpperCase() : name;
 }
 
-/** A marker path: the shared shapes plus a `plus` sign (upright cross, distinct from the diagonal `cross`). */
-function plotMarkerPath(shape: PlotShape, x: number, y: number, r: number): Path2D {
-  if (shape !== 'plus') return markerPath(shape, x, y, r);
-  const p = new Path2D();
-  p.moveTo(x - r, y); p.lineTo(x + r, y); p.moveTo(x, y - r); p.lineTo(x, y + r);
-  return p;
-}
-
-/** Open shapes are stroked only (a fill would hide nothing and thicken them). */
-function isOpenShape(shape: PlotShape): boolean {
-  return shape === 'cross' || shape === 'plus';
-}
-
-/** Range of deviations (and interval bounds when shown) over a group of series; null if empty. */
-function deviationExtent(series: StabilitySet['series'], withIntervals: boolean): [number, number] | null {
-  let d0 = Infinity, d1 = -Infinity;
-  for (const s of series) {
-    for (let i = 0; i < s.tau.length; i++) {
-      const d = s.deviation[i]!;
-      const lo = withIntervals && s.low && s.low[i]! > 0 && Number.isFinite(s.low[i]!) ? s.low[i]! : d;
-      const hi = withIntervals && s.high && s.high[i]! > 0 && Number.isFinite(s.high[i]!) ? s.high[i]! : d;
-      d0 = Math.min(d0, lo, d); d1 = Math.max(d1, hi, d);
-    }
-  }
-  if (!(d0 > 0) || !Number.isFinite(d1)) return null;
-  if (!(d1 > d0)) { d0 /= 3; d1 *= 3; }
-  return [d0, d1];
-}
-
-/**
- * Draws a logarithmic y axis on the right edge of `frame`: tick marks outside the frame, labels
- * and a title rotated to read top-down. Its own scale, no grid (the left axis owns the grid).
- */
-function drawRightAxis(ctx: CanvasRenderingContext2D, frame: Frame, sy: Scale, ticks: readonly Tick[], style: AxisStyle, title: string, canvasWidth: number): void {
-  const right = frame.left + frame.width, top = frame.top, bottom = frame.top + frame.height;
-  ctx.save();
-  ctx.strokeStyle = style.muted;
-  ctx.lineWidth = 1;
-  ctx.beginPath();
-  for (const t of ticks) {
-    const y = Math.round(sy.map(t.value)) + 0.5;
-    if (y < top - 0.5 || y > bottom + 0.5) continue;
-    ctx.moveTo(right, y); ctx.lineTo(right + 4, y);
-  }
-  ctx.stroke();
-  ctx.fillStyle = style.muted;
-  ctx.font = style.font;
-  ctx.textAlign = 'left';
-  ctx.textBaseline = 'middle';
-  for (const t of ticks) {
-    const y = sy.map(t.value);
-    if (y < top - 1 || y > bottom + 1) continue;
-    ctx.fillText(t.label, right + 6, y);
-  }
-  ctx.fillStyle = style.text;
-  ctx.translate(canvasWidth - 9, top + frame.height / 2);
-  ctx.rotate(Math.PI / 2);
-  ctx.textAlign = 'center';
-  ctx.textBaseline = 'middle';
-  ctx.fillText(title, 0, 0);
-  ctx.restore();
-}
-
-/** Decade ticks of a log scale labelled in scientific notation (two end ticks if no decade fits). */
-function decadeTicks(sy: Scale, extent: readonly [number, number]): Tick[] {
-  const yt = logTicks(sy.domain[0], sy.domain[1]);
-  return (yt.length >= 2 ? yt : [extent[0], extent[1]]).map((v) => ({ value: v, label: formatFraction(v, yt.length >= 2 ? 1 : 3) }));
-}
-
 /** The plot's scales: τ, one y scale per quantity (null when absent), and where the time axis sits. */
 interface StabilityScales {
   sx: Scale;
@@ -126,6 +57,9 @@ interface StabilityScales {
   syTime: Scale | null;
   frame: Frame;
 }
+
+/** Hover search looks at most this many points per series near the pointer (dense series are sampled). */
+const HOVER_CHECKS = 600;
 
 /**
  * A log–log plot of frequency-stability statistics versus averaging time τ, with confidence
@@ -140,7 +74,13 @@ interface StabilityScales {
  * With only time deviations the single (left) axis is the time axis. The table has a Unit column (`s`, or the SI
  * symbol `1` for dimensionless).
  *
- * Data are immutable: assign a new `series` array to re-render.
+ * Data are immutable: assign a new `series` array to re-render. Large series stay fast: curves
+ * are decimated per pixel column, markers are drawn only while they can be told apart, the table
+ * renders only the rows in view, and no layout is read during an update.
+ *
+ * τ whose estimate rests on fewer than `min-terms` terms (default 2: a single term cannot carry a
+ * confidence interval; NIST SP 1065 §5.3 [M]) are left off the plot and the table and listed in a
+ * note under the plot. The legend's buttons hide and show each statistic.
  *
  * Keyboard: focus the plot, ←/→ step through the points of a statistic, ↑/↓ switch statistic,
  * Escape clears; the read-out is announced politely.
@@ -149,10 +89,11 @@ interface StabilityScales {
  *
  * @csspart base - The outer wrapper.
  * @csspart plot - The focusable box holding the canvases.
- * @csspart legend - The list of statistics with their marker shapes (and unit/axis for TDEV).
+ * @csspart legend - The list of statistics with their marker shapes (and unit/axis for TDEV); each a toggle button.
  * @csspart tooltip - The hover or keyboard read-out (deviation with its unit).
  * @csspart table - The data table (accessible equivalent of the plot), with a unit column.
- * @csspart row - Each body row of the table.
+ * @csspart row - Each body row of the table (only the rows in view are rendered).
+ * @csspart note - The note listing τ left off for too few terms.
  *
  * @cssproperty --series-1 - Colour of the first statistic (token `--tauline-color-series-1`; up to `--series-6`).
  * @cssproperty --plot-height - Height of the plot box (default 300px).
@@ -163,13 +104,19 @@ interface StabilityScales {
 export class TaulineStabilityPlot extends PlotElement {
   static override styles = [baseStyles, plotStyles, stabilityPlotStyles];
 
+  /** Size comes from the ResizeObserver's callback only: no layout is read during an update. */
+  protected static override readonly measureOnFirstUpdate: boolean = false;
+
   static override properties: PropertyDeclarations = {
     series: { attribute: false },
     label: {},
     noTable: { type: Boolean, reflect: true, attribute: 'no-table' },
     noIntervals: { type: Boolean, reflect: true, attribute: 'no-intervals' },
+    minTerms: { type: Number, attribute: 'min-terms' },
     _hover: { state: true, attribute: false },
     _announcement: { state: true, attribute: false },
+    _hidden: { state: true, attribute: false },
+    _tableWindow: { state: true, attribute: false },
   };
 
   /**
@@ -182,31 +129,57 @@ export class TaulineStabilityPlot extends PlotElement {
   /** Heading shown above the plot. */
   label = 'Frequency stability';
 
-  /** Hide the data table visually (it stays available to assistive technology). */
+  /** Leave the data table out (the plot keeps its accessible name and keyboard read-out). */
   noTable = false;
 
   /** Hide the confidence-interval error bars. */
   noIntervals = false;
 
+  /** Smallest number of terms `n` for a τ to be shown (default 2; 1 shows every τ). Points without `n` are always shown. */
+  minTerms = DEFAULT_MIN_TERMS;
+
   private _hover: { s: number; i: number } | null = null;
   private _announcement = '';
+  /** Statistics the user hid with the legend buttons (by name, so they stay hidden across data updates). */
+  private _hidden: ReadonlySet<string> = new Set();
+  private _tableWindow: [number, number] = [0, 0];
 
-  private _data: StabilitySet = { series: [], problems: [] };
+  private _data: StabilitySet = { series: [], problems: [], fewTerms: [] };
+  private _version = 0;
   private _scales: StabilityScales | null = null;
+  private _drawKey = '';
+  private _labelKey = '';
+  private _label = '';
 
   protected override willUpdate(changed: PropertyValues<this>): void {
     super.willUpdate(changed);
-    if (changed.has('series')) {
-      this._data = normaliseStability(this.series);
+    if (changed.has('series') || changed.has('minTerms')) {
+      const minTerms = Number.isFinite(this.minTerms) && this.minTerms >= 1 ? this.minTerms : DEFAULT_MIN_TERMS;
+      if (minTerms !== this.minTerms) warnOnce(this, 'invalid-min-terms', `min-terms must be a number ≥ 1; received ${String(this.minTerms)}; using ${DEFAULT_MIN_TERMS}`);
+      this._data = normaliseStability(this.series, minTerms);
+      this._version += 1;
       this._hover = null;
       this._announcement = '';
+      this._tableWindow = rowWindow(0, this._tableRows());
       if (this._data.problems.length > 0) warnOnce(this, 'invalid-series', this._data.problems.join('; '));
     }
+    if ((changed as PropertyValues).has('_hidden')) this._tableWindow = rowWindow(0, this._tableRows());
+  }
+
+  /** Series drawn: non-empty and not hidden by the user, with their index in `_data.series` (colour, shape). */
+  private get _shown(): Array<{ k: number; s: StabilitySet['series'][number] }> {
+    return this._data.series.map((s, k) => ({ k, s })).filter((x) => x.s.tau.length > 0 && !this._hidden.has(x.s.statistic));
+  }
+
+  private _tableRows(): number {
+    let n = 0;
+    for (const { s } of this._shown) n += s.tau.length;
+    return n;
   }
 
   /** True when both dimensionless and time-deviation statistics are drawn (time axis on the right). */
   private get _dualAxis(): boolean {
-    const drawn = this._data.series.filter((s) => s.tau.length > 0);
+    const drawn = this._shown.map((x) => x.s);
     return drawn.some((s) => isTimeStatistic(s.statistic)) && drawn.some((s) => !isTimeStatistic(s.statistic));
   }
 
@@ -216,15 +189,21 @@ export class TaulineStabilityPlot extends PlotElement {
     return `${statLabel(statistic)} (s${this._dualAxis ? ', right axis' : ''})`;
   }
 
-  /** Accessible name of the plot, computed from the data: each quantity with its unit and range. */
+  /** Accessible name of the plot, computed from the data (cached per data version and hidden set). */
   get plotLabel(): string {
-    const s = this._data.series.filter((x) => x.tau.length > 0);
+    const key = `${this._version}|${[...this._hidden].join(',')}`;
+    if (key !== this._labelKey) { this._label = this._computeLabel(); this._labelKey = key; }
+    return this._label;
+  }
+
+  private _computeLabel(): string {
+    const s = this._shown.map((x) => x.s);
     if (s.length === 0) return 'Stability plot: no data';
     let t0 = Infinity, t1 = -Infinity;
     for (const x of s) { t0 = Math.min(t0, x.tau[0]!); t1 = Math.max(t1, x.tau[x.tau.length - 1]!); }
     const part = (group: typeof s, what: string, unit: string): string => {
       let d0 = Infinity, d1 = -Infinity;
-      for (const x of group) for (const d of x.deviation) { d0 = Math.min(d0, d); d1 = Math.max(d1, d); }
+      for (const x of group) for (const d of x.deviation) { if (d < d0) d0 = d; if (d > d1) d1 = d; }
       return `${group.map((x) => statLabel(x.statistic)).join(', ')} (${what}) from ${formatFraction(d0, 3)}${unit} to ${formatFraction(d1, 3)}${unit}`;
     };
     const freq = s.filter((x) => !isTimeStatistic(x.statistic)), time = s.filter((x) => isTimeStatistic(x.statistic));
@@ -242,7 +221,7 @@ export class TaulineStabilityPlot extends PlotElement {
       ${hardError
         ? html`<div class="state error" role="alert">Cannot plot the stability data: ${this._data.problems[0]}</div>`
         : !drawable
-          ? html`<div class="state">No stability data yet.</div>`
+          ? html`<div class="state">${this._data.fewTerms.length > 0 ? 'Every τ has too few terms to show.' : 'No stability data yet.'}</div>`
           : html`${this._renderLegend()}
             <div class="plot-box" part="plot" tabindex="0" role="group" aria-roledescription="interactive plot"
               aria-label="Stability plot: ←/→ step through points, ↑/↓ switch statistic"
@@ -252,20 +231,49 @@ export class TaulineStabilityPlot extends PlotElement {
               ${this._renderTooltip()}
             </div>
             <div class="sr-only" aria-live="polite">${this._announcement}</div>
-            <div class="table-wrap" tabindex="0" role="region" aria-label="Stability data table">${this._renderTable()}</div>`}
+            ${this.noTable ? nothing : renderTableUnits(this.noIntervals)}
+            ${this.noTable ? nothing : html`<div class="table-wrap" tabindex="0" role="region" aria-label="Stability data table"
+              @scroll=${this._onTableScroll}>${this._renderTable()}</div>`}`}
+      ${this._renderFewTermsNote()}
       <span class="probe" aria-hidden="true"></span>
     </div>`;
   }
 
+  private _renderTable(): TemplateResult {
+    const shown = this._shown.map((x) => x.s);
+    return renderStabilityTable({
+      series: shown, starts: rowStarts(shown), window: this._tableWindow, noIntervals: this.noIntervals,
+      code: statCode, isTime: isTimeStatistic,
+    });
+  }
+
+  private _renderFewTermsNote(): TemplateResult | typeof nothing {
+    const few = this._data.fewTerms;
+    if (few.length === 0) return nothing;
+    const list = few.map((f) => `${statCode(f.statistic)} at τ = ${f.taus.map((t) => formatDuration(t)).join(', ')}${f.count > f.taus.length ? ', …' : ''}`);
+    return html`<p class="note" part="note">Not shown: ${list.join('; ')} (fewer than ${this.minTerms >= 1 ? this.minTerms : DEFAULT_MIN_TERMS} terms; too few for a confidence interval, NIST SP 1065 §5.3). Set <code>min-terms="1"</code> to show them.</p>`;
+  }
+
   private _renderLegend(): TemplateResult {
-    return html`<ul part="legend" aria-label="Statistics">
-      ${this._data.series.map((s, k) => html`<li>
-        <span class="swatch" aria-hidden="true"><svg width="18" height="10" viewBox="-9 -5 18 10">
-          <line x1="-9" x2="9" y1="0" y2="0" stroke="var(--series-${(k % 6) + 1})" stroke-width="1.5"
-            stroke-dasharray=${isTimeStatistic(s.statistic) ? '3 2' : 'none'}></line>
-          ${this._svgMarker(SHAPES[k % SHAPES.length]!, `var(--series-${(k % 6) + 1})`)}
-        </svg></span>${this._nameWithUnit(s.statistic)}</li>`)}
+    return html`<ul part="legend" aria-label="Statistics (buttons show or hide each)">
+      ${this._data.series.map((s, k) => {
+        const on = !this._hidden.has(s.statistic);
+        return html`<li><button type="button" class="series-toggle" aria-pressed=${on ? 'true' : 'false'}
+          title=${on ? 'Hide this statistic' : 'Show this statistic'} @click=${() => this._toggle(s.statistic)}>
+          <span class="swatch" aria-hidden="true"><svg width="18" height="10" viewBox="-9 -5 18 10">
+            <line x1="-9" x2="9" y1="0" y2="0" stroke="var(--series-${(k % 6) + 1})" stroke-width="1.5"
+              stroke-dasharray=${isTimeStatistic(s.statistic) ? '3 2' : 'none'}></line>
+            ${this._svgMarker(SHAPES[k % SHAPES.length]!, `var(--series-${(k % 6) + 1})`)}
+          </svg></span>${this._nameWithUnit(s.statistic)}</button></li>`;
+      })}
     </ul>`;
+  }
+
+  private _toggle(statistic: string): void {
+    const next = new Set(this._hidden);
+    if (next.has(statistic)) next.delete(statistic); else next.add(statistic);
+    this._hidden = next;
+    this._hover = null;
   }
 
   private _svgMarker(shape: PlotShape, color: string): TemplateResult {
@@ -278,13 +286,13 @@ export class TaulineStabilityPlot extends PlotElement {
     ]);
     return shape === 'circle'
       ? html`<svg><circle r=${r * 0.85} fill="var(--surface)" stroke=${color} stroke-width="1.5"></circle></svg>`
-      : html`<svg><path d=${d.get(shape)!} fill=${isOpenShape(shape) ? 'none' : 'var(--surface)'} stroke=${color} stroke-width="1.5"></path></svg>`;
+      : html`<svg><path d=${d.get(shape)!} fill="var(--surface)" stroke=${color} stroke-width="1.5"></path></svg>`;
   }
 
   /** Pixel position of point i of series k on the plot's scales (its own y axis); null before drawing. */
   private _pointPosition(k: number, i: number): { x: number; y: number } | null {
     const sc = this._scales, s = this._data.series[k];
-    if (!sc || !s) return null;
+    if (!sc || !s || this._hidden.has(s.statistic)) return null;
     const sy = isTimeStatistic(s.statistic) ? sc.syTime : sc.syFrequency;
     if (!sy) return null;
     return { x: sc.sx.map(s.tau[i]!), y: sy.map(s.deviation[i]!) };
@@ -318,28 +326,6 @@ export class TaulineStabilityPlot extends PlotElement {
     </div>`;
   }
 
-  private _renderTable(): TemplateResult {
-    return html`<table part="table">
-      <caption>Deviation by averaging time τ${this.noIntervals ? '' : ', with confidence interval where given'}; unit s = seconds (time deviation), 1 = dimensionless (fractional frequency)</caption>
-      <thead><tr>
-        <th scope="col">Statistic</th><th scope="col">τ (s)</th><th scope="col">Deviation</th>
-        <th scope="col">Interval low</th><th scope="col">Interval high</th><th scope="col">Unit</th><th scope="col">n</th><th scope="col">Noise</th>
-      </tr></thead>
-      <tbody>
-        ${this._data.series.map((s) => Array.from(s.tau, (t, i) => html`<tr part="row">
-          <th scope="row">${statCode(s.statistic)}</th>
-          <td>${formatNumber(t, 6)}</td>
-          <td>${formatFraction(s.deviation[i]!, 5)}</td>
-          <td>${s.low ? formatFraction(s.low[i]!, 4) : '—'}</td>
-          <td>${s.high ? formatFraction(s.high[i]!, 4) : '—'}</td>
-          <td>${isTimeStatistic(s.statistic) ? 's' : '1'}</td>
-          <td>${s.n ? formatNumber(s.n[i]!, 8) : '—'}</td>
-          <td>${s.noise?.[i] || '—'}</td>
-        </tr>`))}
-      </tbody>
-    </table>`;
-  }
-
   protected override updated(): void {
     this._draw();
     this._drawOverlay();
@@ -348,17 +334,22 @@ export class TaulineStabilityPlot extends PlotElement {
   private _draw(): void {
     const canvas = this._dataCanvas;
     const w = this._size.width, h = this._size.height;
-    if (!canvas || w < 40 || h < 40) { this._scales = null; return; }
+    if (!canvas || w < 40 || h < 40) { this._scales = null; this._drawKey = ''; return; }
+    const colors = this._resolveColors(COLOR_EXPR);
+    const key = `${this._version}|${w}|${h}|${colors.text}|${colors.s1}|${this.noIntervals}|${[...this._hidden].join(',')}|${globalThis.devicePixelRatio}`;
+    if (key === this._drawKey && this._scales) return;
+    this._drawKey = key;
     const ctx = sizeCanvas(canvas, w, h);
     if (!ctx) return;
-    const colors = this._resolveColors(COLOR_EXPR);
-    const series = this._data.series.filter((s) => s.tau.length > 0);
+    const shown = this._shown;
+    const series = shown.map((x) => x.s);
     const withIntervals = !this.noIntervals;
     const freqExtent = deviationExtent(series.filter((s) => !isTimeStatistic(s.statistic)), withIntervals);
     const timeExtent = deviationExtent(series.filter((s) => isTimeStatistic(s.statistic)), withIntervals);
     if (!freqExtent && !timeExtent) { this._scales = null; return; }
     const dual = freqExtent !== null && timeExtent !== null;
-    const frame: Frame = { left: 62, top: 8, width: Math.max(10, w - (dual ? 132 : 74)), height: Math.max(10, h - 60) };
+    // Left margin: rotated title (≈ 16 px) + gap + tick labels such as "1e−13" (≈ 40 px) + tick gap.
+    const frame: Frame = { left: 70, top: 8, width: Math.max(10, w - (dual ? 140 : 82)), height: Math.max(10, h - 60) };
     let t0 = Infinity, t1 = -Infinity;
     for (const s of series) { t0 = Math.min(t0, s.tau[0]!); t1 = Math.max(t1, s.tau[s.tau.length - 1]!); }
     if (!(t1 > t0)) { t0 /= 3; t1 *= 3; }
@@ -384,44 +375,14 @@ export class TaulineStabilityPlot extends PlotElement {
     ctx.rect(frame.left, frame.top, frame.width, frame.height);
     ctx.clip();
     const palette = [colors.s1, colors.s2, colors.s3, colors.s4, colors.s5, colors.s6];
-    this._data.series.forEach((s, k) => {
+    for (const { k, s } of shown) {
       const sy = isTimeStatistic(s.statistic) ? syTime : syFrequency;
-      if (!sy || s.tau.length === 0) return;
-      const color = palette[k % palette.length]!;
-      ctx.strokeStyle = color;
-      ctx.lineWidth = 1.5;
-      // Time deviations are dashed so the eye does not compare them with σ_y on the other axis.
-      ctx.setLineDash(isTimeStatistic(s.statistic) ? [5, 3] : []);
-      ctx.beginPath();
-      for (let i = 0; i < s.tau.length; i++) {
-        const x = sx.map(s.tau[i]!), y = sy.map(s.deviation[i]!);
-        if (i === 0) ctx.moveTo(x, y); else ctx.lineTo(x, y);
-      }
-      ctx.stroke();
-      ctx.setLineDash([]);
-      if (!this.noIntervals && s.low && s.high) {
-        ctx.lineWidth = 1;
-        ctx.beginPath();
-        for (let i = 0; i < s.tau.length; i++) {
-          const lo = s.low[i]!, hi = s.high[i]!;
-          if (!(lo > 0) || !Number.isFinite(hi) || !(hi >= lo)) continue;
-          const x = sx.map(s.tau[i]!);
-          const y0 = sy.map(lo), y1 = sy.map(hi);
-          ctx.moveTo(x, y0); ctx.lineTo(x, y1);
-          ctx.moveTo(x - 3, y0); ctx.lineTo(x + 3, y0);
-          ctx.moveTo(x - 3, y1); ctx.lineTo(x + 3, y1);
-        }
-        ctx.stroke();
-      }
-      ctx.fillStyle = colors.surface;
-      ctx.lineWidth = 1.5;
-      const shape = SHAPES[k % SHAPES.length]!;
-      for (let i = 0; i < s.tau.length; i++) {
-        const p = plotMarkerPath(shape, sx.map(s.tau[i]!), sy.map(s.deviation[i]!), 4);
-        if (!isOpenShape(shape)) ctx.fill(p);
-        ctx.stroke(p);
-      }
-    });
+      if (!sy) continue;
+      drawSeries(ctx, s, sx, sy, frame, {
+        color: palette[k % palette.length]!, shape: SHAPES[k % SHAPES.length]!, dashed: isTimeStatistic(s.statistic),
+        surface: colors.surface, intervals: withIntervals,
+      });
+    }
     ctx.restore();
   }
 
@@ -441,24 +402,33 @@ export class TaulineStabilityPlot extends PlotElement {
     ctx.stroke();
   }
 
-  private readonly _onPointerMove = (event: PointerEvent): void => {
-    const box = this._box;
-    if (!this._scales || !box) return;
-    const rect = box.getBoundingClientRect();
-    const px = event.clientX - rect.left, py = event.clientY - rect.top;
+  /** The nearest drawn point within 24 px of (px, py), looking only near the pointer's τ. */
+  private _nearest(px: number, py: number): { s: number; i: number } | null {
+    const sc = this._scales;
+    if (!sc) return null;
     let best: { s: number; i: number } | null = null;
     let bestD = 24 * 24;
-    this._data.series.forEach((s, k) => {
-      for (let i = 0; i < s.tau.length; i++) {
-        const pos = this._pointPosition(k, i);
-        if (!pos) break;
-        const dx = pos.x - px, dy = pos.y - py;
+    const t0 = sc.sx.invert(px - 24), t1 = sc.sx.invert(px + 24);
+    for (const { k, s } of this._shown) {
+      const sy = isTimeStatistic(s.statistic) ? sc.syTime : sc.syFrequency;
+      if (!sy) continue;
+      const a = lowerBound(s.tau, t0), b = lowerBound(s.tau, t1);
+      const stride = Math.max(1, Math.ceil((b - a) / HOVER_CHECKS));
+      for (let i = a; i < b; i += stride) {
+        const dx = sc.sx.map(s.tau[i]!) - px, dy = sy.map(s.deviation[i]!) - py;
         const d = dx * dx + dy * dy;
         if (d < bestD) { bestD = d; best = { s: k, i }; }
       }
-    });
+    }
+    return best;
+  }
+
+  private readonly _onPointerMove = (event: PointerEvent): void => {
+    // offsetX/Y are relative to the canvas under the pointer (both canvases fill the box): no layout read.
+    const target = event.target as Element | null;
+    if (!this._scales || !(target instanceof HTMLCanvasElement)) return;
+    const next = this._nearest(event.offsetX, event.offsetY);
     const cur = this._hover;
-    const next = best as { s: number; i: number } | null;
     if (cur?.s !== next?.s || cur?.i !== next?.i) this._hover = next;
   };
 
@@ -466,9 +436,14 @@ export class TaulineStabilityPlot extends PlotElement {
     this._hover = null;
   };
 
+  private readonly _onTableScroll = (event: Event): void => {
+    const next = rowWindow((event.currentTarget as HTMLElement).scrollTop, this._tableRows());
+    if (next[0] !== this._tableWindow[0] || next[1] !== this._tableWindow[1]) this._tableWindow = next;
+  };
+
   /** ←/→ step through a statistic's points, ↑/↓ switch statistic (same τ index where it exists), Escape clears. */
   private readonly _onKeyDown = (event: KeyboardEvent): void => {
-    const drawn = this._data.series.map((s, k) => ({ k, n: s.tau.length })).filter((x) => x.n > 0);
+    const drawn = this._shown.map(({ k, s }) => ({ k, n: s.tau.length }));
     if (drawn.length === 0) return;
     const cur = this._hover;
     let next: { s: number; i: number } | null = cur;

@@ -51,6 +51,11 @@ export interface PlanView {
   caution: string | null;
   /** Non-fatal problems (dropped entries), for a one-time warning. */
   problems: string[];
+  /**
+   * Data problems that make the drawn plan untrustworthy (non-finite predicted values, a tolerance
+   * that is not a positive number): shown as a visible alert in place of the feasibility badge.
+   */
+  invalid: string[];
 }
 
 /** The outcome: a view, or a fatal problem to show as the error state. */
@@ -206,7 +211,17 @@ export function readPlan(plan: unknown, scenario: unknown): PlanReadResult {
   });
   commands.sort((a, b) => a.executeAt - b.executeAt);
 
-  const tol = scen && isObj(scen['tolerance']) ? Number((scen['tolerance'] as Obj)['phaseSeconds']) : Number.NaN;
+  const invalid: string[] = [];
+  for (const [name, arr] of [['steered.phaseSeconds', st.phase], ['steered.sigmaSeconds', st.sigma],
+    ['unsteered.phaseSeconds', un.phase], ['unsteered.sigmaSeconds', un.sigma]] as const) {
+    const bad = arr ? countNonFinite(arr) : null;
+    if (bad) invalid.push(`plan.predicted.${name} holds ${bad.count} non-finite value${bad.count === 1 ? '' : 's'} (first at index ${bad.first}: ${bad.value})`);
+  }
+  const rawTol = scen && isObj(scen['tolerance']) ? (scen['tolerance'] as Obj)['phaseSeconds'] : undefined;
+  const tol = rawTol === undefined ? Number.NaN : Number(rawTol);
+  if (rawTol !== undefined && !(Number.isFinite(tol) && tol > 0)) {
+    invalid.push(`scenario.tolerance.phaseSeconds must be a positive number of seconds; received ${String(rawTol)}`);
+  }
   const contacts: PlanView['contacts'] = [];
   const rawContacts = scen?.['contacts'];
   (Array.isArray(rawContacts) ? rawContacts : []).forEach((w: unknown, k) => {
@@ -238,8 +253,19 @@ export function readPlan(plan: unknown, scenario: unknown): PlanReadResult {
       metrics: isObj(plan['metrics']) ? plan['metrics'] : null,
       caution: typeof plan['caution'] === 'string' ? plan['caution'] : null,
       problems,
+      invalid,
     },
   };
+}
+
+/** Count and first position of the non-finite values of a column; null when all are finite. */
+function countNonFinite(arr: Float64Array): { count: number; first: number; value: number } | null {
+  let count = 0, first = -1;
+  for (let i = 0; i < arr.length; i++) {
+    const v = arr[i]!;
+    if (v - v !== 0) { if (count === 0) first = i; count += 1; }
+  }
+  return count === 0 ? null : { count, first, value: arr[first]! };
 }
 
 /** Linear interpolation of y at x (x ascending); NaN outside the data. */

@@ -12,7 +12,7 @@ export const steeringScheduleStyles = css`
     --frequency-command-color: var(--tauline-color-command-frequency, light-dark(#2f4f9e, #9db5f0));
     --phase-command-color: var(--tauline-color-command-phase, light-dark(#a4452c, #f0a58c));
     --plot-height: 340px;
-    --table-max-height: 240px;
+    --table-max-height: 440px;
   }
   .head { display: flex; flex-wrap: wrap; align-items: baseline; gap: 6px 14px; }
   .badge {
@@ -39,7 +39,10 @@ export const steeringScheduleStyles = css`
   tbody tr[aria-current='true'] td, tbody tr[aria-current='true'] th {
     background: color-mix(in srgb, var(--accent) 16%, transparent);
   }
+  /* Two lines of reason per row so the scroll box shows about ten commands; the full text is the cell's title and the read-out's. */
   td.reason { text-align: left; white-space: normal; min-width: 14em; color: var(--muted); }
+  td.reason span { display: -webkit-box; -webkit-box-orient: vertical; -webkit-line-clamp: 2; line-clamp: 2; overflow: hidden; }
+  .invalid-data { min-height: 0; justify-content: flex-start; text-align: left; color: var(--text); }
   .kind { display: inline-flex; align-items: center; gap: 5px; }
   .caution { margin: 0; padding: 4px 10px; border-left: 3px solid var(--tolerance-color); color: var(--muted); font-size: 0.92em; }
   .row-button { border: none; padding: 0 2px; text-decoration: underline dotted; }

@@ -7,9 +7,10 @@ import { closestIndex, decimateBand, decimateLine, visibleRange } from '../inter
 import { drawAxes, fillBand, markerPath, sizeCanvas, strokePolyline, type Frame, type MarkerShape, type Tick } from '../internal/canvas.js';
 import { linearScale, linearTicks, padDomain, timeTicks, type Scale } from '../internal/scale.js';
 import {
-  formatFraction, formatNumber, formatOffset, formatOffsetAuto, formatTimeTick, formatUtc, parseTimeUnit, pickTimeUnit, type TimeUnit,
+  formatFraction, formatNumber, formatOffset, formatOffsetAuto, formatTimeTick, formatUtc, parseTimeUnit, pickTimeUnit, typographicMinus, type TimeUnit,
 } from '../internal/format.js';
 import { warnOnce } from '../internal/warn.js';
+import { drawRevisions, readRevisions, type RevisionMarks, type RevisionView } from './revisions-layer.js';
 import { emit } from '../events.js';
 
 export type { PlanView, SteeringCommandView };
@@ -46,7 +47,9 @@ type Hover = { kind: 'sample'; i: number; px: number } | { kind: 'command'; c: n
  *
  * Takes the planner's output (`planSteering()` of `@tauline/sdk`) as `plan` and its input as
  * `scenario`. Data are immutable: assign new objects to re-render. Series are drawn through
- * per-pixel min/max decimation, so 10^6-point predictions stay fast.
+ * per-pixel min/max decimation, so 10^6-point predictions stay fast. A revised plan's history can
+ * be shown with `superseded` (commands the re-plan replaced, faded hollow markers) and `estimates`
+ * (the clock-offset estimates it used, points with ±1σ bars).
  *
  * Keyboard (plot focused): ← / → previous / next command; Shift+← / Shift+→ or PageUp / PageDown pan;
  * + / − zoom; Home shows everything; Escape hides the read-out.
@@ -73,7 +76,7 @@ type Hover = { kind: 'sample'; i: number; px: number } | { kind: 'command'; c: n
  * @cssproperty --frequency-command-color - Frequency-step markers (token `--tauline-color-command-frequency`).
  * @cssproperty --phase-command-color - Phase-step markers (token `--tauline-color-command-phase`).
  * @cssproperty --plot-height - Height of the plot box (default 340px).
- * @cssproperty --table-max-height - Height after which the command table scrolls (default 240px).
+ * @cssproperty --table-max-height - Height after which the command table scrolls (default 440px).
  */
 export class TaulineSteeringSchedule extends PlotElement {
   static override styles = [baseStyles, plotStyles, steeringScheduleStyles];
@@ -81,6 +84,8 @@ export class TaulineSteeringSchedule extends PlotElement {
   static override properties: PropertyDeclarations = {
     plan: { attribute: false },
     scenario: { attribute: false },
+    superseded: { attribute: false },
+    estimates: { attribute: false },
     label: {},
     yUnit: { attribute: 'y-unit' },
     sigmaMultiple: { type: Number, attribute: 'sigma-multiple' },
@@ -96,6 +101,12 @@ export class TaulineSteeringSchedule extends PlotElement {
 
   /** The scenario the plan was made for: epoch, `tolerance.phaseSeconds`, `contacts`, `maneuvers`. */
   scenario?: unknown;
+
+  /** Commands a re-plan superseded (SteeringCommand objects, e.g. the SDK's `revision.superseded`), drawn faded on the steered line. */
+  superseded?: unknown;
+
+  /** Clock-offset estimates `{ tSeconds, phaseSeconds, sigmaSeconds }` (as given to a re-plan), drawn as points with ±1σ bars. */
+  estimates?: unknown;
 
   /** Heading shown above the plot. */
   label = 'Steering schedule';
@@ -119,6 +130,8 @@ export class TaulineSteeringSchedule extends PlotElement {
   private _announcement = '';
 
   private _result: ReturnType<typeof readPlan> | null = null;
+  private _revisions: RevisionView | null = null;
+  private _revisionMarks: RevisionMarks = { superseded: [], estimates: [] };
   private _bandLow: Float64Array | null = null;
   private _bandHigh: Float64Array | null = null;
   private _dataVersion = 0;
@@ -160,7 +173,10 @@ export class TaulineSteeringSchedule extends PlotElement {
       else {
         this._result = readPlan(this.plan, this.scenario);
         if (!this._result.ok) warnOnce(this, 'invalid-plan', this._result.error);
-        else if (this._result.view.problems.length > 0) warnOnce(this, 'plan-entries-dropped', this._result.view.problems.join('; '));
+        else {
+          if (this._result.view.problems.length > 0) warnOnce(this, 'plan-entries-dropped', this._result.view.problems.join('; '));
+          if (this._result.view.invalid.length > 0) warnOnce(this, 'invalid-plan-values', this._result.view.invalid.join('; '));
+        }
       }
       this._dataVersion += 1;
       this._hover = null;
@@ -171,6 +187,7 @@ export class TaulineSteeringSchedule extends PlotElement {
       else if (!this._view || this._view[0] < full[0] || this._view[1] > full[1]) this._view = full;
     }
     if (changed.has('plan') || changed.has('scenario') || changed.has('sigmaMultiple')) this._computeBand();
+    if (changed.has('superseded') || changed.has('estimates') || changed.has('scenario')) this._readRevisions();
     if (changed.has('sigmaMultiple') && !(Number.isFinite(this.sigmaMultiple) && this.sigmaMultiple >= 0)) {
       warnOnce(this, 'invalid-sigma-multiple', `sigma-multiple must be a non-negative number; received ${String(this.sigmaMultiple)}; using 2`);
     }
@@ -228,16 +245,25 @@ export class TaulineSteeringSchedule extends PlotElement {
     return html`<div part="base">
       <div class="head">
         <h3 class="title">${this.label}</h3>
-        ${r?.ok ? html`<span class="badge ${r.view.feasible ? 'ok' : 'bad'}">${r.view.feasible ? '✓ feasible' : '✕ not feasible'}</span>` : nothing}
+        ${r?.ok ? this._renderBadge(r.view) : nothing}
       </div>
+      ${r?.ok && r.view.invalid.length > 0
+        ? html`<div class="state error invalid-data" role="alert">The plan's data are not valid, so its feasibility cannot be trusted: ${r.view.invalid.join('; ')}.</div>`
+        : nothing}
       ${body}
       <span class="probe" aria-hidden="true"></span>
     </div>`;
   }
 
+  /** Feasibility badge; a plan with invalid values never shows "feasible". */
+  private _renderBadge(d: PlanView): TemplateResult {
+    if (d.invalid.length > 0) return html`<span class="badge bad">⚠ invalid data</span>`;
+    return html`<span class="badge ${d.feasible ? 'ok' : 'bad'}">${d.feasible ? '✓ feasible' : '✕ not feasible'}</span>`;
+  }
+
   private _renderChart(d: PlanView): TemplateResult {
     return html`
-      ${!d.feasible && d.reason ? html`<p class="summary" role="note">${d.reason}</p>` : nothing}
+      ${!d.feasible && d.reason ? html`<p class="summary" role="note">${typographicMinus(d.reason)}</p>` : nothing}
       ${this._renderMetrics(d)}
       ${this._renderLegend(d)}
       <div class="plot-box" part="plot" tabindex="0" role="group"
@@ -306,7 +332,7 @@ export class TaulineSteeringSchedule extends PlotElement {
     return html`<table part="table">
       <caption>${d.commands.length} command${d.commands.length === 1 ? '' : 's'}, times in UTC</caption>
       <thead><tr>
-        <th scope="col">#</th><th scope="col">Executes</th><th scope="col">Uplink</th><th scope="col">Kind</th>
+        <th scope="col">#</th><th scope="col">Uplink</th><th scope="col">Executes</th><th scope="col">Kind</th>
         <th scope="col">Step</th><th scope="col">Actuator steps</th><th scope="col">Reason</th>
       </tr></thead>
       <tbody>
@@ -318,12 +344,12 @@ export class TaulineSteeringSchedule extends PlotElement {
               @click=${() => this._selectByUser(k, 'table')}>
               <th scope="row"><button type="button" class="row-button" aria-label=${`Select command ${k + 1}`}
                 @click=${(e: Event) => { e.stopPropagation(); this._selectByUser(k, 'table'); }}>${k + 1}</button></th>
-              <td>${formatUtc(ms(c.executeAt), true)}</td>
               <td>${Number.isFinite(c.uplinkAt) ? formatUtc(ms(c.uplinkAt), true) : '—'}</td>
+              <td>${formatUtc(ms(c.executeAt), true)}</td>
               <td><span class="kind">${this._kindGlyph(c)}${c.kind}</span></td>
               <td>${c.kind === 'phase' ? `${c.step >= 0 ? '+' : ''}${formatOffsetAuto(c.step, 4)}` : `${c.step >= 0 ? '+' : ''}${formatFraction(c.step, 4)}`}</td>
-              <td>${Number.isFinite(c.actuatorSteps) ? c.actuatorSteps : '—'}</td>
-              <td class="reason">${c.reason}</td>
+              <td>${Number.isFinite(c.actuatorSteps) ? formatNumber(c.actuatorSteps, 16) : '—'}</td>
+              <td class="reason" title=${typographicMinus(c.reason)}><span>${typographicMinus(c.reason)}</span></td>
             </tr>`;
           })}
       </tbody>
@@ -343,11 +369,11 @@ export class TaulineSteeringSchedule extends PlotElement {
         <dl>
           <dt>Kind</dt><dd>${c.kind}</dd>
           <dt>Step</dt><dd>${c.kind === 'phase' ? formatOffsetAuto(c.step, 4) : formatFraction(c.step, 4)}</dd>
-          ${Number.isFinite(c.actuatorSteps) ? html`<dt>Actuator steps</dt><dd>${c.actuatorSteps}</dd>` : nothing}
-          <dt>Executes</dt><dd>${formatUtc(chartTimeToUtcMs(d, c.executeAt), true)}</dd>
+          ${Number.isFinite(c.actuatorSteps) ? html`<dt>Actuator steps</dt><dd>${formatNumber(c.actuatorSteps, 16)}</dd>` : nothing}
           ${Number.isFinite(c.uplinkAt) ? html`<dt>Uplink</dt><dd>${formatUtc(chartTimeToUtcMs(d, c.uplinkAt), true)}</dd>` : nothing}
+          <dt>Executes</dt><dd>${formatUtc(chartTimeToUtcMs(d, c.executeAt), true)}</dd>
         </dl>
-        ${c.reason ? html`<div class="note">${c.reason}</div>` : nothing}
+        ${c.reason ? html`<div class="note">${typographicMinus(c.reason)}</div>` : nothing}
       </div>`;
     }
     const i = h.i;
@@ -367,6 +393,17 @@ export class TaulineSteeringSchedule extends PlotElement {
     this._drawData();
     this._drawOverlay();
     if (changed.has('selectedIndex')) this._scrollRowIntoView();
+  }
+
+  /** Reads `superseded` and `estimates` against the scenario epoch (revision layer, revisions-layer.ts). */
+  private _readRevisions(): void {
+    const epoch = (this.scenario as { epoch?: unknown } | null | undefined)?.epoch;
+    const any = (this.superseded !== undefined && this.superseded !== null) || (this.estimates !== undefined && this.estimates !== null);
+    this._revisions = any && typeof epoch === 'string' ? readRevisions(this.superseded, this.estimates, epoch) : null;
+    if (this._revisions && this._revisions.dropped > 0) {
+      warnOnce(this, 'revision-entries-dropped', `${this._revisions.dropped} superseded command(s) or estimate(s) could not be read and are not drawn`);
+    }
+    this._dataVersion += 1;
   }
 
   private _drawData(): void {
@@ -403,7 +440,8 @@ export class TaulineSteeringSchedule extends PlotElement {
     const unit = parseTimeUnit(this.yUnit) ?? pickTimeUnit(Math.max(Math.abs(y0), Math.abs(y1)));
     this._scales = { sx, sy, frame, unit };
 
-    const tt = timeTicks(x0, x1, Math.max(2, Math.floor(frame.width / 90)), d.epochMs);
+    // About one label per 70 px, at least four intervals, so a phone-width plot still shows a few dates.
+    const tt = timeTicks(x0, x1, Math.max(4, Math.floor(frame.width / 70)), d.epochMs);
     const xTicks: Tick[] = tt.values.map((v) => {
       const f = formatTimeTick(d.epochMs + v * 1000, tt.step);
       return { value: v, label: f.main, sub: f.sub };
@@ -495,6 +533,9 @@ export class TaulineSteeringSchedule extends PlotElement {
       ctx.fill(p);
       ctx.stroke(p);
     }
+    this._revisionMarks = this._revisions
+      ? drawRevisions(ctx, frame, sx, sy, [x0, x1], { t: d.t, y: d.steered }, this._revisions, { command: colors.frequency, estimate: colors.text })
+      : { superseded: [], estimates: [] };
     ctx.restore();
     // Manoeuvre labels above the frame.
     ctx.save();
@@ -579,7 +620,7 @@ export class TaulineSteeringSchedule extends PlotElement {
     const c = d?.commands[position];
     if (!d || !c) return;
     this.selectedIndex = c.index;
-    this._announcement = `Command ${position + 1} of ${d.commands.length}: ${describeStep(c)}, executes ${formatUtc(chartTimeToUtcMs(d, c.executeAt), true)}. ${c.reason}`;
+    this._announcement = `Command ${position + 1} of ${d.commands.length}: ${describeStep(c)}, executes ${formatUtc(chartTimeToUtcMs(d, c.executeAt), true)}. ${typographicMinus(c.reason)}`;
     if (source !== 'plot' && this._view && (c.executeAt < this._view[0] || c.executeAt > this._view[1])) {
       const span = this._view[1] - this._view[0];
       this._setView(c.executeAt - span / 2, c.executeAt + span / 2, true);

@@ -15,10 +15,12 @@ export {
 } from './noise.js';
 export { fitClockPolynomial, type ClockPolynomialOptions, type ClockPolynomial } from './polynomial.js';
 export {
-  ClockKalmanFilter, runClockFilter, forecastClock, applyClockStep,
-  type ClockEstimate, type ClockForecast, type ClockStep, type DetectedJump, type JumpDetectionOptions, type ClockKalmanOptions,
-  type ClockUpdate, type ClockFilterSeries, type ClockFilterRunOptions, type ClockFilterRun,
-} from './kalman.js';
+  forecastClock, applyClockStep,
+  type ClockEstimate, type ClockForecast, type ClockStep, type DetectedJump, type DetectedOutlier, type JumpDetectionOptions,
+  type ClockKalmanOptions, type ClockUpdate,
+} from './kalman-types.js';
+export { ClockKalmanFilter, type ClockDetectionSettings } from './kalman.js';
+export { runClockFilter, type ClockFilterSeries, type ClockFilterRunOptions, type ClockFilterRun } from './kalman-run.js';
 export { simulateClock, type ClockJump, type ClockSimulationOptions, type ClockSimulation } from './simulate.js';
 export {
   diffusionFromStabilityRows, measurementNoiseFromPhase,

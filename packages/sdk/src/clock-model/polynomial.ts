@@ -6,7 +6,9 @@
  */
 import { InvalidArgumentError } from '../errors.js';
 import type { Seconds } from '../units.js';
-import { requireFinite, requireMeasurementVariance, requireOptions, requirePhaseSample } from '../internal/validate.js';
+import {
+  MAX_ABS_PHASE_SECONDS, MEASUREMENT_VARIANCE_RANGE, requireFinite, requireMeasurementVariance, requireOptions, requirePhaseSample,
+} from '../internal/validate.js';
 import type { Matrix } from './linalg.js';
 
 /** Options of {@link fitClockPolynomial}. */
@@ -89,10 +91,20 @@ export function fitClockPolynomial(t: ArrayLike<number>, phase: ArrayLike<number
   if (v !== undefined && typeof v !== 'number' && (typeof v.length !== 'number' || v.length !== n)) {
     throw new InvalidArgumentError('options.variance', v, `a variance in s² or an array of ${n} variances`);
   }
+  const vAll = typeof v === 'number' ? requireMeasurementVariance('options.variance', v) : undefined;
   for (let i = 0; i < n; i++) {
-    tt[i] = requirePhaseSample(`t[${i}]`, t[i], false);
-    zz[i] = requirePhaseSample(`phase[${i}]`, phase[i], false);
-    w[i] = v === undefined ? 1 : 1 / (typeof v === 'number' ? requireMeasurementVariance('options.variance', v) : requireMeasurementVariance(`options.variance[${i}]`, v[i]));
+    // The helpers (which build their messages) run only for a bad value.
+    const ti = t[i];
+    const zi = phase[i];
+    tt[i] = typeof ti === 'number' && Math.abs(ti) <= MAX_ABS_PHASE_SECONDS ? ti : requirePhaseSample(`t[${i}]`, ti, false);
+    zz[i] = typeof zi === 'number' && Math.abs(zi) <= MAX_ABS_PHASE_SECONDS ? zi : requirePhaseSample(`phase[${i}]`, zi, false);
+    if (v === undefined) w[i] = 1;
+    else if (vAll !== undefined) w[i] = 1 / vAll;
+    else {
+      const vi = (v as ArrayLike<number>)[i];
+      w[i] = 1 / (typeof vi === 'number' && vi >= MEASUREMENT_VARIANCE_RANGE.min && vi <= MEASUREMENT_VARIANCE_RANGE.max
+        ? vi : requireMeasurementVariance(`options.variance[${i}]`, vi));
+    }
   }
   const t0 = options.referenceTime === undefined ? (tt[0] as number) : requireFinite('options.referenceTime', options.referenceTime, 'a finite epoch in seconds');
   let tMin = Infinity;
@@ -103,19 +115,21 @@ export function fitClockPolynomial(t: ArrayLike<number>, phase: ArrayLike<number
     tMax = Math.max(tMax, tt[i] as number);
     tSum += tt[i] as number;
   }
-  const distinct = new Set(Array.from(tt)).size;
+  const distinct = countDistinctUpTo(tt, p);
   if (distinct < p) throw new InvalidArgumentError('t', `${distinct} distinct epochs`, `at least ${p} distinct epochs for a degree-${degree} fit`);
   const c = tSum / n;
   const s = (tMax - tMin) / 2;
 
-  // √w-scaled design in u = (t − c)/s, columns [1, u, u²].
-  const a: number[][] = [];
-  const b: number[] = [];
+  // √w-scaled design in u = (t − c)/s, columns [1, u, u²], stored by column.
+  const a = Array.from({ length: p }, () => new Float64Array(n));
+  const b = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const sw = Math.sqrt(w[i] as number);
     const u = ((tt[i] as number) - c) / s;
-    a.push(degree === 2 ? [sw, sw * u, sw * u * u] : [sw, sw * u]);
-    b.push(sw * (zz[i] as number));
+    (a[0] as Float64Array)[i] = sw;
+    (a[1] as Float64Array)[i] = sw * u;
+    if (degree === 2) (a[2] as Float64Array)[i] = sw * u * u;
+    b[i] = sw * (zz[i] as number);
   }
   const { beta, rInv } = householderLeastSquares(a, b, p);
   // Cov_u = R⁻¹ R⁻ᵀ
@@ -163,51 +177,61 @@ export function fitClockPolynomial(t: ArrayLike<number>, phase: ArrayLike<number
   };
 }
 
+/** Number of distinct values in `x`, counted up to `limit` (enough to check a rank condition). */
+function countDistinctUpTo(x: Float64Array, limit: number): number {
+  const seen: number[] = [];
+  for (let i = 0; i < x.length && seen.length < limit; i++) if (!seen.includes(x[i] as number)) seen.push(x[i] as number);
+  return seen.length;
+}
+
 /**
  * Least squares min ‖A β − b‖ by Householder QR (Golub & Van Loan §5.1.2, §5.3.3 [M]); returns β and R⁻¹.
- * A is n × p with full column rank (guaranteed by the distinct-epoch check for p ≤ 3).
+ * A is n × p with full column rank (guaranteed by the distinct-epoch check for p ≤ 3), given by columns
+ * (overwritten, as is b).
  */
-function householderLeastSquares(aIn: readonly number[][], bIn: readonly number[], p: number): { beta: number[]; rInv: Matrix } {
-  const n = aIn.length;
-  const a = aIn.map((r) => r.slice());
-  const b = bIn.slice();
+function householderLeastSquares(a: Float64Array[], b: Float64Array, p: number): { beta: number[]; rInv: Matrix } {
+  const n = b.length;
+  const v = new Float64Array(n);
   for (let k = 0; k < p; k++) {
+    const ak = a[k] as Float64Array;
     let norm = 0;
-    for (let i = k; i < n; i++) norm += ((a[i] as number[])[k] as number) ** 2;
+    for (let i = k; i < n; i++) norm += (ak[i] as number) ** 2;
     norm = Math.sqrt(norm);
-    const akk = (a[k] as number[])[k] as number;
+    const akk = ak[k] as number;
     const alpha = akk > 0 ? -norm : norm;
-    const v = new Array<number>(n).fill(0);
-    for (let i = k; i < n; i++) v[i] = (a[i] as number[])[k] as number;
+    v.fill(0);
+    for (let i = k; i < n; i++) v[i] = ak[i] as number;
     v[k] = (v[k] as number) - alpha;
     let vv = 0;
     for (let i = k; i < n; i++) vv += (v[i] as number) ** 2;
     if (vv === 0) continue;
     for (let j = k; j < p; j++) {
+      const aj = a[j] as Float64Array;
       let dot = 0;
-      for (let i = k; i < n; i++) dot += (v[i] as number) * ((a[i] as number[])[j] as number);
+      for (let i = k; i < n; i++) dot += (v[i] as number) * (aj[i] as number);
       const f = (2 * dot) / vv;
-      for (let i = k; i < n; i++) (a[i] as number[])[j] = ((a[i] as number[])[j] as number) - f * (v[i] as number);
+      for (let i = k; i < n; i++) aj[i] = (aj[i] as number) - f * (v[i] as number);
     }
     let dot = 0;
     for (let i = k; i < n; i++) dot += (v[i] as number) * (b[i] as number);
     const f = (2 * dot) / vv;
     for (let i = k; i < n; i++) b[i] = (b[i] as number) - f * (v[i] as number);
   }
-  // Back substitution R β = Qᵀb (first p rows), and R⁻¹ (upper triangular).
+  // Back substitution R β = Qᵀb (first p rows), and R⁻¹ (upper triangular); R[i][j] = a[j][i].
+  const r = (i: number, j: number): number => (a[j] as Float64Array)[i] as number;
   const beta = new Array<number>(p).fill(0);
   for (let i = p - 1; i >= 0; i--) {
     let sum = b[i] as number;
-    for (let j = i + 1; j < p; j++) sum -= ((a[i] as number[])[j] as number) * (beta[j] as number);
-    beta[i] = sum / ((a[i] as number[])[i] as number);
+    for (let j = i + 1; j < p; j++) sum -= r(i, j) * (beta[j] as number);
+    beta[i] = sum / r(i, i);
   }
   const rInv: Matrix = Array.from({ length: p }, () => new Array<number>(p).fill(0));
   for (let j = 0; j < p; j++) {
-    (rInv[j] as number[])[j] = 1 / ((a[j] as number[])[j] as number);
+    (rInv[j] as number[])[j] = 1 / r(j, j);
     for (let i = j - 1; i >= 0; i--) {
       let sum = 0;
-      for (let k = i + 1; k <= j; k++) sum += ((a[i] as number[])[k] as number) * ((rInv[k] as number[])[j] as number);
-      (rInv[i] as number[])[j] = -sum / ((a[i] as number[])[i] as number);
+      for (let k = i + 1; k <= j; k++) sum += r(i, k) * ((rInv[k] as number[])[j] as number);
+      (rInv[i] as number[])[j] = -sum / r(i, i);
     }
   }
   return { beta, rInv };

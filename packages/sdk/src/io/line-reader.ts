@@ -4,16 +4,20 @@
  * stream opened by the caller); output is one line at a time with its 1-based number, so
  * memory stays bounded by the longest line, not by the file.
  *
- * Line ends: LF and CR LF are recognised (a chunk boundary may split CR from LF); a final
- * line without a line end is still delivered. Line numbers count every line, blank ones too.
+ * Line ends: LF, CR LF and a lone CR (old Mac style) each end one line; a CR LF split across two
+ * chunks is still one line end. A final line without a line end is still delivered. Line numbers
+ * count every line, blank ones too. A byte-order mark (U+FEFF) at the very start is dropped.
+ * A line longer than {@link MAX_LINE_CHARACTERS} is refused with a ParseError as soon as the limit
+ * is passed, so an endless line (`/dev/zero`, a file without line ends) costs at most the limit in memory.
  *
  * @module
  */
+import { InvalidArgumentError, ParseError } from '../errors.js';
+import { civilFromDays, daysFromCivil, daysInMonth, MAX_CALENDAR_YEAR } from '../time/calendar.js';
+import { requireInRange, requireOptions, requireSourceName } from '../internal/validate.js';
+import { MAX_LINE_CHARACTERS } from './limits.js';
 
 /** One line of text without its line terminator. */
-import { civilFromDays, daysFromCivil, daysInMonth, MAX_CALENDAR_YEAR } from '../time/calendar.js';
-import { InvalidArgumentError } from '../errors.js';
-import { requireInRange } from '../internal/validate.js';
 export interface TextLine {
   /** The line's characters, without CR/LF. */
   readonly text: string;
@@ -24,9 +28,20 @@ export interface TextLine {
 /** Text input accepted by the readers: a whole string, or string chunks (sync or async). */
 export type TextSource = string | Iterable<string> | AsyncIterable<string>;
 
+/** Options of {@link LineSplitter} and the line iterators. */
+export interface LineSplitterOptions {
+  /** Name used in error messages (file name). Default `text`. */
+  readonly sourceName?: string;
+  /** Longest line accepted, in characters: an integer in [1, {@link MAX_LINE_CHARACTERS}] (the default). */
+  readonly maxLineCharacters?: number;
+}
+
 function isAsyncIterable(value: unknown): value is AsyncIterable<string> {
   return typeof value === 'object' && value !== null && Symbol.asyncIterator in value;
 }
+
+const CR = 13;
+const LF = 10;
 
 /**
  * Splits chunked text into lines without holding more than one partial line in memory.
@@ -35,36 +50,83 @@ function isAsyncIterable(value: unknown): value is AsyncIterable<string> {
 export class LineSplitter {
   /** Pieces of the line not yet ended, kept apart so that a long line fed in many chunks is joined once (linear time). */
   private _pending: string[] = [];
+  /** Characters held in `_pending`. */
+  private _pendingLength = 0;
   private _lineNumber = 0;
+  /** The previous chunk ended with a CR: an LF at the start of the next one belongs to it. */
+  private _afterCr = false;
+  /** Nothing has been read yet (a leading byte-order mark is dropped). */
+  private _atStart = true;
+  private readonly _sourceName: string;
+  private readonly _max: number;
+
+  constructor(options: LineSplitterOptions = {}) {
+    requireOptions('options', options);
+    this._sourceName = options.sourceName === undefined ? 'text' : requireSourceName('options.sourceName', options.sourceName);
+    const max = options.maxLineCharacters ?? MAX_LINE_CHARACTERS;
+    if (!Number.isInteger(max) || max < 1 || max > MAX_LINE_CHARACTERS) {
+      throw new InvalidArgumentError('maxLineCharacters', max, `an integer number of characters in [1, ${MAX_LINE_CHARACTERS}] (MAX_LINE_CHARACTERS)`);
+    }
+    this._max = max;
+  }
+
+  /** Refuses the line being read: it has passed the limit. */
+  private _tooLong(sample: string): never {
+    throw new ParseError(this._sourceName, this._lineNumber + 1, this._max + 1,
+      `a line of at most ${this._max} characters (the readers' line limit, MAX_LINE_CHARACTERS; is this a text file of the expected format?)`,
+      sample.slice(0, 40));
+  }
 
   /** Feeds one chunk; returns the lines it completed. */
   push(chunk: string): TextLine[] {
     if (typeof chunk !== 'string') throw new InvalidArgumentError('chunk', chunk, 'a string of text');
     const lines: TextLine[] = [];
     let start = 0;
-    for (;;) {
-      const nl = chunk.indexOf('\n', start);
-      if (nl < 0) break;
-      let text = chunk.slice(start, nl);
-      if (start === 0 && this._pending.length > 0) {
+    if (this._atStart && chunk.length > 0) {
+      this._atStart = false;
+      if (chunk.charCodeAt(0) === 0xfeff) start = 1;
+    }
+    if (this._afterCr && start < chunk.length) {
+      this._afterCr = false;
+      if (chunk.charCodeAt(start) === LF) start++;
+    }
+    let nl = chunk.indexOf('\n', start);
+    let cr = chunk.indexOf('\r', start);
+    while (nl >= 0 || cr >= 0) {
+      const end = nl < 0 ? cr : cr < 0 ? nl : Math.min(nl, cr);
+      let text = chunk.slice(start, end);
+      if (this._pending.length > 0) {
+        if (this._pendingLength + text.length > this._max) this._tooLong(this._pending[0]!);
         text = this._pending.join('') + text;
         this._pending = [];
-      }
-      // CR LF: the CR may have arrived at the end of the previous chunk.
-      if (text.charCodeAt(text.length - 1) === 13) text = text.slice(0, -1);
+        this._pendingLength = 0;
+      } else if (text.length > this._max) this._tooLong(text);
       lines.push({ text, lineNumber: ++this._lineNumber });
-      start = nl + 1;
+      start = end + 1;
+      if (end === cr) {
+        // CR LF is one line end; a CR at the end of the chunk may have its LF in the next chunk.
+        if (start < chunk.length) {
+          if (chunk.charCodeAt(start) === LF) start++;
+        } else this._afterCr = true;
+      }
+      if (nl >= 0 && nl < start) nl = chunk.indexOf('\n', start);
+      if (cr >= 0 && cr < start) cr = chunk.indexOf('\r', start);
     }
-    if (start < chunk.length) this._pending.push(start === 0 ? chunk : chunk.slice(start));
+    if (start < chunk.length) {
+      const rest = start === 0 ? chunk : chunk.slice(start);
+      if (this._pendingLength + rest.length > this._max) this._tooLong(this._pending[0] ?? rest);
+      this._pending.push(rest);
+      this._pendingLength += rest.length;
+    }
     return lines;
   }
 
   /** Ends the input; returns the last line when the text did not end with a line end. */
   finish(): TextLine[] {
-    let text = this._pending.join('');
+    const text = this._pending.join('');
     this._pending = [];
+    this._pendingLength = 0;
     if (text === '') return [];
-    if (text.endsWith('\r')) text = text.slice(0, -1);
     return [{ text, lineNumber: ++this._lineNumber }];
   }
 
@@ -123,9 +185,11 @@ function requireEpochFields(argument: string, fields: unknown): EpochFields {
 
 /**
  * Iterates the lines of a text source, synchronously. Accepts a string or a sync iterable of chunks.
+ * @param options  `sourceName` for the over-long-line error, and the line limit.
+ * @throws {ParseError} for a line longer than the limit ({@link MAX_LINE_CHARACTERS} by default).
  */
-export function* linesOf(source: string | Iterable<string>): Generator<TextLine> {
-  const splitter = new LineSplitter();
+export function* linesOf(source: string | Iterable<string>, options: LineSplitterOptions = {}): Generator<TextLine> {
+  const splitter = new LineSplitter(options);
   for (const piece of piecesOf(source)) yield* splitter.push(piece);
   yield* splitter.finish();
 }
@@ -137,10 +201,12 @@ export function* linesOf(source: string | Iterable<string>): Generator<TextLine>
  * of 30-s SP3, `npm run bench -- io`). A whole string is cut into 64 Ki-character pieces.
  *
  * @param source  A string, or a sync or async iterable of string chunks.
+ * @param options  `sourceName` for the over-long-line error, and the line limit.
  * @returns An async generator of non-empty arrays of lines, numbered from 1 across the whole source.
+ * @throws {ParseError} for a line longer than the limit ({@link MAX_LINE_CHARACTERS} by default).
  */
-export async function* readLineBatches(source: TextSource): AsyncGenerator<readonly TextLine[]> {
-  const splitter = new LineSplitter();
+export async function* readLineBatches(source: TextSource, options: LineSplitterOptions = {}): AsyncGenerator<readonly TextLine[]> {
+  const splitter = new LineSplitter(options);
   if (isAsyncIterable(source)) {
     for await (const chunk of source) {
       const lines = splitter.push(chunkText(chunk));
@@ -160,8 +226,8 @@ export async function* readLineBatches(source: TextSource): AsyncGenerator<reado
  * Iterates the lines of any text source (string, iterable or async iterable of chunks). One
  * asynchronous step per line: readers of large files use {@link readLineBatches}.
  */
-export async function* readLines(source: TextSource): AsyncGenerator<TextLine> {
-  for await (const lines of readLineBatches(source)) yield* lines;
+export async function* readLines(source: TextSource, options: LineSplitterOptions = {}): AsyncGenerator<TextLine> {
+  for await (const lines of readLineBatches(source, options)) yield* lines;
 }
 
 /** Calendar date and time of day as written in a file, in that file's own time scale. */

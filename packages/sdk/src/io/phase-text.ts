@@ -10,6 +10,7 @@ import { ParseError } from '../errors.js';
 import type { Seconds } from '../units.js';
 import { linesOf, readLineBatches, type TextLine, type TextSource } from './line-reader.js';
 import { requireOptions, requireSourceName } from '../internal/validate.js';
+import { MAX_SERIES_SAMPLES } from './limits.js';
 
 /** A run of missing samples in a regularised series. */
 export interface SampleGap {
@@ -151,6 +152,9 @@ class PhaseTextBuilder {
         `${this._columns} column${this._columns === 2 ? 's (time, phase)' : ' (phase)'} as on the first data line`, line.text);
     }
     this._seenData = true;
+    if (this._values.length >= MAX_SERIES_SAMPLES) {
+      throw new ParseError(this._name, line.lineNumber, 1, `at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES, the longest series read)`, line.text);
+    }
     if (this._columns === 2) {
       const time = parseValue(this._name, line.lineNumber, tokens[0]!, 'time in seconds', false);
       if (this._times.length > 0 && !(time > this._times.get(this._times.length - 1))) {
@@ -190,9 +194,11 @@ class PhaseTextBuilder {
  * Places irregularly listed samples on a uniform grid t₀ + k·τ0, inserting NaN for each missing
  * epoch and listing the gaps. τ0 is the given value or the smallest step. Steps must be whole
  * multiples of τ0 (relative tolerance 1e-6); samples that are NaN themselves count as gaps too.
+ * The grid's length is checked against {@link MAX_SERIES_SAMPLES} before it is allocated.
  *
  * @internal shared with the RINEX clock reader
- * @throws {ParseError} at the line of the first sample whose step is not a whole multiple of τ0.
+ * @throws {ParseError} at the line of the first sample whose step is not a whole multiple of τ0, or
+ *   whose gap makes the series longer than {@link MAX_SERIES_SAMPLES} (naming the gap and the limit).
  */
 export function regularizeSeries(sourceName: string, times: Float64Array, values: Float64Array, lineOf: (i: number) => number,
   tau0Given: Seconds | undefined): { phase: Float64Array; times: Float64Array; tau0: Seconds | undefined; gaps: SampleGap[]; missing: number } {
@@ -217,6 +223,12 @@ export function regularizeSeries(sourceName: string, times: Float64Array, values
       throw new ParseError(sourceName, lineOf(i), 1,
         `a time step that is a whole multiple of tau0 = ${tau0} s (step ${times[i]! - times[i - 1]!} s from the previous sample is ${ratio} tau0)`,
         String(times[i]));
+    }
+    if (total + k > MAX_SERIES_SAMPLES) {
+      // Refused before anything of that length is allocated (a gap of 10^12 samples would ask for terabytes).
+      throw new ParseError(sourceName, lineOf(i), 1,
+        `a uniform series of at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES): the gap of ${times[i]! - times[i - 1]!} s ` +
+        `after line ${lineOf(i - 1)} is ${k} steps of tau0 = ${tau0} s, making ${total + k} samples`, String(times[i]));
     }
     steps[i] = k;
     total += k;
@@ -264,7 +276,7 @@ export function regularizeSeries(sourceName: string, times: Float64Array, values
 export function parsePhaseText(source: string | Iterable<string>, options: PhaseTextOptions = {}): PhaseTextSeries {
   const builder = new PhaseTextBuilder(options);
   let last = 0;
-  for (const line of linesOf(source)) {
+  for (const line of linesOf(source, { sourceName: options.sourceName ?? 'phase' })) {
     builder.add(line);
     last = line.lineNumber;
   }
@@ -275,7 +287,7 @@ export function parsePhaseText(source: string | Iterable<string>, options: Phase
 export async function readPhaseText(source: TextSource, options: PhaseTextOptions = {}): Promise<PhaseTextSeries> {
   const builder = new PhaseTextBuilder(options);
   let last = 0;
-  for await (const lines of readLineBatches(source)) {
+  for await (const lines of readLineBatches(source, { sourceName: options.sourceName ?? 'phase' })) {
     for (const line of lines) {
       builder.add(line);
       last = line.lineNumber;

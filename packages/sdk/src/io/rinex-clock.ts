@@ -1,31 +1,46 @@
 /**
- * Reader for the clock-data records of the RINEX clock format ("RINEX Extensions to Handle Clock
- * Information", J. Ray, W. Gurtner, M. J. Coleman; versions 2.00 … 3.04, IGS). Header: version,
- * file type `C`, satellite system, `TIME SYSTEM ID`, `END OF HEADER`. Data: `AS` (satellite) and
- * `AR` (receiver) records with their values; other record types (`CR`, `DR`, `MS`) are counted,
- * not returned.
+ * Streaming reader for the RINEX clock format, versions 2.00 to 3.05 ("RINEX Extensions to Handle Clock
+ * Information", J. Ray and W. Gurtner, version 2.00 (1999) and 3.02 (2010), IGS; version 3.04 with
+ * M. J. Coleman (2017)). The 3.02 document's change list was read [V1]; column layouts are from memory
+ * [M], checked against the 3.04 example file distributed with the format and real IGS 2.00/3.04 files
+ * (stored copies) [V2]. No clock document numbered 3.05 was found; a file saying 3.05 is read with the
+ * 3.04 layout (stated in the header as `layout: 'A9'`).
  *
- * Data records are read field by field separated by blanks rather than by fixed columns, so the
- * 4-character names of versions 2.00–3.02 and the 9-character names of 3.04 are both accepted.
- * Record layout (all versions): type A2, name, epoch year month day hour minute second, number of
- * values (1–6), then the values: clock bias (s), bias sigma (s), rate (s/s), rate sigma (s/s),
- * acceleration (1/s), acceleration sigma (1/s). Up to two values on the record line, the rest on
- * one continuation line of up to four values. Fortran `D` exponents are accepted.
+ * Layout of a data record (record line, then one continuation line when it declares more than two
+ * values), fixed columns:
+ *
+ * | field | 2.00–3.02 (`A4` names) | 3.04–3.05 (`A9` names) |
+ * |---|---|---|
+ * | type `AS`/`AR`/`CR`/`DR`/`MS` | 1-2 | 1-2 |
+ * | name (satellite `G05`, station) | 4-7 | 4-12 |
+ * | epoch `I4,4I3,F10.6` | 9-34 | 14-39 |
+ * | number of values `I3` (1-6) | 35-37 | 40-42 |
+ * | values `E19.12` on the record line (bias, bias sigma) | end in 59, 79 | end in 64, 85 |
+ * | values on the continuation line (rate, its sigma, acceleration, its sigma) | end in 19, 39, 59, 79 | end in 22, 43, 64, 85 |
+ *
+ * Each value must be a complete exponent-form number (`-0.123456789012E-03`, `D` allowed) ending in its
+ * field's last column (one column earlier is accepted: real 3.04 files end the second value in 84). A
+ * record cut inside a value therefore never reads as a different number: any cut loses the exponent or
+ * the field's end. Header labels start in column 61 (66 in 3.04 files; either is accepted).
+ *
+ * Streaming: {@link readRinexClock} yields the header, then one event per record, so memory is bounded by
+ * one record whatever the file length; callers keep what they need (see `readRinexClockSeries`).
  *
  * @module
  */
-import { InvalidArgumentError, ParseError } from '../errors.js';
+import { ParseError } from '../errors.js';
 import type { Seconds } from '../units.js';
 import {
-  linesOf, parseFortranReal, readLineBatches, scaleSecondsFromFields, validEpochFields, type EpochFields, type TextLine, type TextSource,
+  linesOf, readLineBatches, requireTextLine, validEpochFields, type EpochFields, type TextLine, type TextSource,
 } from './line-reader.js';
-import { regularizeSeries, type SampleGap } from './phase-text.js';
-import { requireSourceName } from '../internal/validate.js';
+import { requireOptions, requireSourceName } from '../internal/validate.js';
 
 /** Header fields the reader interprets. */
 export interface RinexClockHeader {
   /** Format version, e.g. 3.04. */
   readonly version: number;
+  /** Name field width of the data records: `A4` (2.00–3.02) or `A9` (3.04 and later). */
+  readonly layout: 'A4' | 'A9';
   /** Satellite-system letter (G, R, E, C, J, I, S, M) or undefined when blank. */
   readonly satelliteSystem: string | undefined;
   /** `TIME SYSTEM ID` (e.g. GPS, GAL, UTC) when present; the epochs are in this scale. */
@@ -37,7 +52,7 @@ export interface RinexClockHeader {
 /** One `AS` or `AR` clock-data record. */
 export interface RinexClockRecord {
   readonly type: 'AS' | 'AR';
-  /** Satellite (e.g. `G05`) or receiver/station name as written. */
+  /** Satellite (e.g. `G05`) or receiver/station name as written (trailing blanks removed). */
   readonly name: string;
   /** Epoch as written, in the file's time system. */
   readonly epoch: EpochFields;
@@ -57,7 +72,20 @@ export interface RinexClockRecord {
   readonly line: number;
 }
 
-/** A parsed RINEX clock file. */
+/** One item of a RINEX clock file, in file order. */
+export type RinexClockEvent =
+  | { readonly kind: 'header'; readonly header: RinexClockHeader }
+  | { readonly kind: 'record'; readonly record: RinexClockRecord }
+  /** A `CR`, `DR` or `MS` record: read and checked like the others, not modelled. */
+  | { readonly kind: 'other'; readonly recordType: 'CR' | 'DR' | 'MS'; readonly name: string; readonly line: number };
+
+/** Options of the RINEX clock readers. */
+export interface RinexClockReadOptions {
+  /** Name used in error messages (default `rinex-clock`). */
+  readonly sourceName?: string;
+}
+
+/** A parsed RINEX clock file (whole file in memory; see {@link readRinexClock} for streaming). */
 export interface RinexClockFile {
   readonly sourceName: string;
   readonly header: RinexClockHeader;
@@ -66,262 +94,298 @@ export interface RinexClockFile {
   readonly otherRecords: Readonly<Record<string, number>>;
 }
 
-interface Token {
-  text: string;
-  column: number;
+const RECORD_TYPES: readonly string[] = ['AS', 'AR', 'CR', 'DR', 'MS'];
+/** Exponent-form real as written by E19.12 / D19.12 (a two- or three-digit exponent is part of the field). */
+const E_FORMAT = /^[+-]?(\d+\.\d*|\.\d+)[EeDd][+-]\d{2,3}$/;
+/** Last column (1-based) of each value field: record line (2 values), continuation line (4 values). */
+const VALUE_ENDS = {
+  A4: { record: [59, 79], continuation: [19, 39, 59, 79] },
+  A9: { record: [64, 85], continuation: [22, 43, 64, 85] },
+} as const;
+const VALUE_NAMES = ['clock bias (s)', 'bias sigma (s)', 'clock rate', 'rate sigma', 'clock acceleration (1/s)', 'acceleration sigma (1/s)'];
+
+/** F10.6 seconds field (blank-padded). */
+const SECOND = /^ *\d+(\.\d*)?$/;
+
+/** Value of an unsigned I-format field in columns a+1..b (leading blanks allowed), or NaN. */
+function unsignedField(t: string, a: number, b: number): number {
+  if (t.length < b) return Number.NaN;
+  let i = a;
+  while (i < b && t.charCodeAt(i) === 32) i++;
+  if (i === b) return Number.NaN;
+  let v = 0;
+  for (; i < b; i++) {
+    const c = t.charCodeAt(i) - 48;
+    if (c < 0 || c > 9) return Number.NaN;
+    v = v * 10 + c;
+  }
+  return v;
 }
 
-function tokenize(text: string): Token[] {
-  const out: Token[] = [];
-  const re = /\S+/g;
-  for (let m = re.exec(text); m !== null; m = re.exec(text)) out.push({ text: m[0], column: m.index + 1 });
-  return out;
+/** A date every month has (day 1-28) and an ordinary time of day: valid without the calendar (the others go to validEpochFields). */
+function plainEpoch(f: EpochFields): boolean {
+  return f.month >= 1 && f.month <= 12 && f.day >= 1 && f.day <= 28 && f.hour <= 23 && f.minute <= 59 && f.second < 60;
 }
 
-const RECORD_TYPES = new Set(['AS', 'AR', 'CR', 'DR', 'MS']);
+interface Pending {
+  type: string;
+  name: string;
+  epoch: EpochFields;
+  count: number;
+  values: number[];
+  line: number;
+}
 
-/** Line-by-line state machine shared by the sync and async readers. */
-class RinexClockBuilder {
-  private readonly _name: string;
+/**
+ * Incremental RINEX clock parser: feed lines with {@link RinexClockParser.push}, end with
+ * {@link RinexClockParser.finish}. Most callers use {@link readRinexClock} or {@link parseRinexClock}.
+ */
+export class RinexClockParser {
+  private readonly _source: string;
   private _headerDone = false;
   private _version: number | undefined;
+  private _layout: 'A4' | 'A9' = 'A4';
   private _system: string | undefined;
   private _timeSystem: string | undefined;
-  private _headerLines = 0;
-  private readonly _records: RinexClockRecord[] = [];
-  private readonly _other: Record<string, number> = {};
-  private _pending: { type: string; name: string; epoch: EpochFields; count: number; values: number[]; line: number } | undefined;
+  private _lastLine = 0;
+  private _pending: Pending | undefined;
 
-  constructor(sourceName: string) {
-    this._name = requireSourceName('sourceName', sourceName);
+  constructor(options: RinexClockReadOptions = {}) {
+    requireOptions('options', options);
+    this._source = options.sourceName === undefined ? 'rinex-clock' : requireSourceName('options.sourceName', options.sourceName);
   }
 
-  add(line: TextLine): void {
-    if (!this._headerDone) {
-      this._header(line);
-      return;
+  private _error(line: number, column: number | undefined, expected: string, found?: string): ParseError {
+    return new ParseError(this._source, line, column, expected, found);
+  }
+
+  /** Feeds one line; returns the events it completed. @throws {ParseError} */
+  push(line: TextLine): RinexClockEvent[] {
+    requireTextLine(line);
+    this._lastLine = line.lineNumber;
+    const cr = line.text.indexOf('\r');
+    if (cr >= 0) {
+      // A lone CR would hide the next record inside this line (e.g. after END OF HEADER): never read past it.
+      throw this._error(line.lineNumber, cr + 1, 'a line end of LF or CR LF (a lone CR inside a line would merge two lines)', JSON.stringify(line.text.slice(Math.max(0, cr - 10), cr + 10)));
     }
+    if (!this._headerDone) return this._header(line);
+    if (this._pending) return this._continuation(line);
+    if (line.text.trim() === '') return [];
+    return this._record(line);
+  }
+
+  /** Ends the input. @throws {ParseError} when the header is incomplete or the last record is cut. */
+  finish(): RinexClockEvent[] {
+    const next = this._lastLine + 1;
+    if (this._version === undefined) throw this._error(Math.max(1, this._lastLine), undefined, '"RINEX VERSION / TYPE" header line', '');
+    if (!this._headerDone) throw this._error(next, undefined, '"END OF HEADER" before the end of the file');
     if (this._pending) {
-      this._continuation(line);
-      return;
+      throw this._error(next, undefined,
+        `the continuation line of the record on line ${this._pending.line} (it declares ${this._pending.count} values; the file ends after ${this._pending.values.length})`);
     }
-    if (line.text.trim() === '') return;
-    this._record(line);
+    return [];
   }
 
-  private _header(line: TextLine): void {
-    this._headerLines = line.lineNumber;
+  private _header(line: TextLine): RinexClockEvent[] {
     const text = line.text;
-    const labelAt = (label: string) => {
-      const i = text.indexOf(label);
-      return i >= 60 ? i : -1;
+    // Labels start in column 61 (2.00–3.02) or 66 (3.04): found by text there, never elsewhere in the line.
+    const labelAt = (label: string): number => {
+      for (const i of [60, 65]) if (text.startsWith(label, i)) return i;
+      return -1;
     };
     if (this._version === undefined) {
       const at = labelAt('RINEX VERSION / TYPE');
-      if (at < 0) throw new ParseError(this._name, line.lineNumber, 61, '"RINEX VERSION / TYPE" header line (label from column 61)', text);
-      const tokens = tokenize(text.slice(0, at));
-      const version = tokens[0] ? Number(tokens[0].text) : Number.NaN;
-      if (!Number.isFinite(version) || version < 2 || version >= 4) {
-        throw new ParseError(this._name, line.lineNumber, tokens[0]?.column ?? 1, 'a RINEX clock format version 2.xx or 3.xx', tokens[0]?.text ?? '');
+      if (at < 0) throw this._error(line.lineNumber, 61, '"RINEX VERSION / TYPE" header line (label in column 61, or 66 in version 3.04)', text);
+      const m = /^\s*(\S+)(\s+)(\S?)/.exec(text.slice(0, at));
+      const version = m ? Number(m[1]) : Number.NaN;
+      const versionColumn = m ? m[0].indexOf(m[1]!) + 1 : 1;
+      if (!(version >= 2 && version < 2.995) && !(version >= 3 && version <= 3.05 + 1e-9)) {
+        throw this._error(line.lineNumber, versionColumn, 'a RINEX clock format version from 2.00 to 3.05', m?.[1] ?? '');
       }
-      if (!tokens[1] || tokens[1].text[0] !== 'C') {
-        throw new ParseError(this._name, line.lineNumber, tokens[1]?.column ?? 21, 'file type "C" (clock data)', tokens[1]?.text ?? '');
-      }
+      const typeColumn = m && m[3] ? versionColumn + m[1]!.length + m[2]!.length : 21;
+      if (!m || m[3] !== 'C') throw this._error(line.lineNumber, typeColumn, 'file type "C" (clock data)', m?.[3] ?? '');
       this._version = version;
-      // Satellite system from column 41 (3.xx); blank in 2.xx.
-      const sys = text.slice(40, Math.min(41, at)).trim();
+      this._layout = version >= 3.04 - 1e-9 ? 'A9' : 'A4';
+      // Satellite system: column 41 (up to 3.02) or 43 (3.04, whose fields are wider); blank in 2.00.
+      const sys = text.charAt(at === 65 ? 42 : 40).trim();
       this._system = /^[GRECJISM]$/.test(sys) ? sys : undefined;
-      return;
+      return [];
     }
-    if (labelAt('TIME SYSTEM ID') >= 0) {
-      const t = text.slice(0, labelAt('TIME SYSTEM ID')).trim();
-      if (t === '') throw new ParseError(this._name, line.lineNumber, 4, 'a time system identifier (e.g. GPS) in columns 4-6', text);
+    const tsAt = labelAt('TIME SYSTEM ID');
+    if (tsAt >= 0) {
+      const t = text.slice(0, tsAt).trim();
+      if (!/^[A-Z]{3}$/.test(t)) throw this._error(line.lineNumber, 4, 'a time system identifier (e.g. GPS) in columns 4-6', text.slice(0, tsAt));
       this._timeSystem = t;
-      return;
+      return [];
     }
-    if (labelAt('END OF HEADER') >= 0) this._headerDone = true;
+    const endAt = labelAt('END OF HEADER');
+    if (endAt < 0) {
+      // Every header line carries its label (COMMENT, PGM / RUN BY / DATE, ...); a line without one is not a header line.
+      if (text.slice(60).trim() === '') throw this._error(line.lineNumber, 61, 'a header label from column 61 (66 in version 3.04), or "END OF HEADER"', text);
+      return [];
+    }
+    this._headerDone = true;
+    return [{
+      kind: 'header',
+      header: { version: this._version, layout: this._layout, satelliteSystem: this._system, timeSystem: this._timeSystem, lines: line.lineNumber },
+    }];
   }
 
-  private _record(line: TextLine): void {
-    const tokens = tokenize(line.text);
-    const type = tokens[0]!;
-    if (!RECORD_TYPES.has(type.text)) {
-      throw new ParseError(this._name, line.lineNumber, type.column, 'a clock data record type AS, AR, CR, DR or MS', type.text);
-    }
-    if (tokens.length < 9) {
-      throw new ParseError(this._name, line.lineNumber, undefined,
-        'type, name, epoch (year month day hour minute second) and number of values', line.text);
-    }
-    const ints = tokens.slice(2, 7).map((t) => (/^\d+$/.test(t.text) ? Number(t.text) : Number.NaN));
-    const second = /^\d+(\.\d*)?$/.test(tokens[7]!.text) ? Number(tokens[7]!.text) : Number.NaN;
-    const epoch: EpochFields = { year: ints[0]!, month: ints[1]!, day: ints[2]!, hour: ints[3]!, minute: ints[4]!, second };
-    if (!validEpochFields(epoch)) {
-      throw new ParseError(this._name, line.lineNumber, tokens[2]!.column, 'a valid epoch "yyyy mm dd hh mm ss.ssssss"', tokens.slice(2, 8).map((t) => t.text).join(' '));
-    }
-    const countToken = tokens[8]!;
-    const count = /^\d+$/.test(countToken.text) ? Number(countToken.text) : Number.NaN;
-    if (!(count >= 1 && count <= 6)) {
-      throw new ParseError(this._name, line.lineNumber, countToken.column, 'a number of data values from 1 to 6', countToken.text);
-    }
-    const valueTokens = tokens.slice(9);
-    if (valueTokens.length > Math.min(2, count)) {
-      const t = valueTokens[Math.min(2, count)]!;
-      throw new ParseError(this._name, line.lineNumber, t.column, `at most ${Math.min(2, count)} value(s) on the record line`, t.text);
-    }
-    if (valueTokens.length < Math.min(2, count)) {
-      throw new ParseError(this._name, line.lineNumber, line.text.length + 1, `${Math.min(2, count)} value(s) on the record line (the record declares ${count})`, line.text);
-    }
-    const values = valueTokens.map((t) => this._value(line.lineNumber, t));
-    this._pending = { type: type.text, name: tokens[1]!.text, epoch, count, values, line: line.lineNumber };
-    if (values.length === count) this._complete();
-  }
-
-  private _continuation(line: TextLine): void {
-    const p = this._pending!;
-    const tokens = tokenize(line.text);
-    const need = p.count - p.values.length;
-    if (tokens.length !== need) {
-      throw new ParseError(this._name, line.lineNumber, tokens[need]?.column,
-        `a continuation line with the remaining ${need} value(s) of the record on line ${p.line}`, line.text);
-    }
-    for (const t of tokens) p.values.push(this._value(line.lineNumber, t));
-    this._complete();
-  }
-
-  private _value(lineNumber: number, token: Token): number {
-    const v = parseFortranReal(token.text);
-    if (v === undefined || Number.isNaN(v)) {
-      throw new ParseError(this._name, lineNumber, token.column, 'a number such as -0.123456789012E-04 (D exponent allowed)', token.text);
-    }
+  /** Integer field of columns a+1..b (blank-padded, I format). */
+  private _int(line: TextLine, a: number, b: number, what: string): number {
+    const v = unsignedField(line.text, a, b);
+    if (v !== v) throw this._error(line.lineNumber, a + 1, `${what} (an integer in columns ${a + 1}-${b})`, line.text.slice(a, b));
     return v;
   }
 
-  private _complete(): void {
+  private _record(line: TextLine): RinexClockEvent[] {
+    const t = line.text;
+    const type = t.slice(0, 2);
+    if (!RECORD_TYPES.includes(type) || (t.length > 2 && t.charAt(2) !== ' ')) {
+      throw this._error(line.lineNumber, 1, 'a clock data record type AS, AR, CR, DR or MS in columns 1-2 followed by a blank', t.slice(0, 3));
+    }
+    const width = this._layout === 'A9' ? 9 : 4;
+    const name = t.slice(3, 3 + width).trimEnd();
+    if (name.trim() === '' || name.startsWith(' ') || t.charAt(3 + width) !== ' ') {
+      throw this._error(line.lineNumber, 4, `a receiver or satellite name in columns 4-${3 + width} (A${width}, RINEX clock ${this._version!.toFixed(2)}) followed by a blank`, t.slice(3, 4 + width));
+    }
+    const s = 4 + width; // 0-based start of the epoch (column 9 or 14)
+    const epoch: EpochFields = {
+      year: this._int(line, s, s + 4, 'epoch year'),
+      month: this._int(line, s + 4, s + 7, 'epoch month'),
+      day: this._int(line, s + 7, s + 10, 'epoch day'),
+      hour: this._int(line, s + 10, s + 13, 'epoch hour'),
+      minute: this._int(line, s + 13, s + 16, 'epoch minute'),
+      second: this._second(line, s + 16, s + 26),
+    };
+    if (!plainEpoch(epoch) && !validEpochFields(epoch)) {
+      throw this._error(line.lineNumber, s + 1, `a valid epoch "yyyy mm dd hh mm ss.ssssss" in columns ${s + 1}-${s + 26}`, t.slice(s, s + 26));
+    }
+    const count = this._int(line, s + 26, s + 29, 'number of data values');
+    if (count < 1 || count > 6) throw this._error(line.lineNumber, s + 27, `a number of data values from 1 to 6 in columns ${s + 27}-${s + 29}`, String(count));
+    const onLine = Math.min(2, count);
+    const values = this._values(line, s + 29, VALUE_ENDS[this._layout].record.slice(0, onLine), 0, count);
+    this._pending = { type, name, epoch, count, values, line: line.lineNumber };
+    return count === onLine ? this._complete() : [];
+  }
+
+  private _second(line: TextLine, a: number, b: number): number {
+    const s = line.text.slice(a, b);
+    if (!SECOND.test(s)) throw this._error(line.lineNumber, a + 1, `epoch second (F10.6 in columns ${a + 1}-${b})`, s);
+    return Number(s);
+  }
+
+  private _continuation(line: TextLine): RinexClockEvent[] {
+    const p = this._pending!;
+    const need = p.count - p.values.length;
+    p.values.push(...this._values(line, 0, VALUE_ENDS[this._layout].continuation.slice(0, need), p.values.length, p.count, p.line));
+    return this._complete();
+  }
+
+  /**
+   * Reads the value fields of one line, starting after 0-based column `from`: one exponent-form number per
+   * field, ending in the field's last column (or the one before), nothing else on the line.
+   */
+  private _values(line: TextLine, from: number, ends: readonly number[], first: number, count: number, recordLine?: number): number[] {
+    const t = line.text;
+    const n = t.length;
+    const out: number[] = [];
+    const what = (k: number) => `${VALUE_NAMES[first + k]} (value ${first + k + 1} of ${count}, E19.12 in columns ${ends[k]! - 18}-${ends[k]})` +
+      (recordLine === undefined ? '' : ` (continuation of the record on line ${recordLine})`);
+    let pos = from;
+    for (let k = 0; k < ends.length; k++) {
+      const end = ends[k]!;
+      while (pos < n && t.charCodeAt(pos) === 32) pos++;
+      if (pos >= n) throw this._error(line.lineNumber, t.trimEnd().length + 1, `${what(k)}: the line ends before it (record cut)`, t.slice(Math.max(0, end - 19)));
+      let stop = pos;
+      while (stop < n && t.charCodeAt(stop) !== 32) stop++;
+      const tok = t.slice(pos, stop);
+      if (tok.length > 19 || !E_FORMAT.test(tok)) {
+        throw this._error(line.lineNumber, pos + 1, `${what(k)}: a complete number in exponent form such as -0.123456789012E-03`, tok);
+      }
+      if (stop !== end && stop !== end - 1) {
+        throw this._error(line.lineNumber, pos + 1, `${what(k)}: a field ending in column ${end}; it ends in column ${stop}`, tok);
+      }
+      const v = Number(tok.includes('D') || tok.includes('d') ? tok.replace(/[Dd]/, 'E') : tok);
+      if (!Number.isFinite(v)) throw this._error(line.lineNumber, pos + 1, `${what(k)}: a finite number`, tok);
+      out.push(v);
+      pos = stop;
+    }
+    while (pos < n && t.charCodeAt(pos) === 32) pos++;
+    if (pos < n) {
+      let stop = pos;
+      while (stop < n && t.charCodeAt(stop) !== 32) stop++;
+      const where = recordLine === undefined ? '' : ` (continuation of the record on line ${recordLine})`;
+      throw this._error(line.lineNumber, pos + 1, `no more than ${ends.length} value(s) on this line (the record declares ${count})${where}`, t.slice(pos, stop));
+    }
+    return out;
+  }
+
+  private _complete(): RinexClockEvent[] {
     const p = this._pending!;
     this._pending = undefined;
     if (p.type === 'AS' || p.type === 'AR') {
       const v = p.values;
-      this._records.push({
-        type: p.type, name: p.name, epoch: p.epoch, bias: v[0]!, biasSigma: v[1], rate: v[2], rateSigma: v[3],
-        acceleration: v[4], accelerationSigma: v[5], line: p.line,
-      });
-    } else {
-      this._other[p.type] = (this._other[p.type] ?? 0) + 1;
+      return [{
+        kind: 'record',
+        record: {
+          type: p.type, name: p.name, epoch: p.epoch, bias: v[0]!, biasSigma: v[1], rate: v[2], rateSigma: v[3],
+          acceleration: v[4], accelerationSigma: v[5], line: p.line,
+        },
+      }];
     }
+    return [{ kind: 'other', recordType: p.type as 'CR' | 'DR' | 'MS', name: p.name, line: p.line }];
   }
+}
 
-  finish(lastLine: number): RinexClockFile {
-    if (this._version === undefined) throw new ParseError(this._name, Math.max(1, lastLine), undefined, '"RINEX VERSION / TYPE" header line', '');
-    if (!this._headerDone) throw new ParseError(this._name, lastLine + 1, undefined, '"END OF HEADER" before the end of the file');
-    if (this._pending) {
-      throw new ParseError(this._name, lastLine + 1, undefined,
-        `the continuation line of the record on line ${this._pending.line} (it declares ${this._pending.count} values; the file ends after ${this._pending.values.length})`);
-    }
-    return {
-      sourceName: this._name,
-      header: { version: this._version, satelliteSystem: this._system, timeSystem: this._timeSystem, lines: this._headerLines },
-      records: this._records,
-      otherRecords: { ...this._other },
-    };
-  }
+/** Options as an object, or the source name alone (the form of earlier releases). */
+function readOptions(options: RinexClockReadOptions | string | undefined): RinexClockReadOptions {
+  return typeof options === 'string' ? { sourceName: options } : requireOptions('options', options);
 }
 
 /**
- * Parses a RINEX clock file (versions 2.00–3.04) into its header and `AS`/`AR` records.
+ * Reads a RINEX clock file (versions 2.00–3.05) as a stream: the header first, then one event per data
+ * record (`record` for AS/AR, `other` for CR/DR/MS).
  *
- * @param source      The text (string or iterable of chunks).
- * @param sourceName  File name for error messages. Default `rinex-clock`.
- * @returns Header, records in file order, and counts of the other record types.
- * @throws {ParseError} (file, line, column) on a missing or wrong version line, missing
- *   `END OF HEADER`, an unknown record type, a bad epoch, a value count outside 1–6, a
- *   malformed number, or a record truncated by the end of the file.
- * @see J. Ray, W. Gurtner, M. J. Coleman, "RINEX Extensions to Handle Clock Information", version 3.04 (IGS, 2017) [M].
+ * @param source   File text or its chunks (sync or async iterable of strings).
+ * @param options  `sourceName` for error messages (a string is taken as the source name).
+ * @returns An async generator of {@link RinexClockEvent}.
+ * @throws {ParseError} (file, line, column) on a missing or wrong version line, a missing `END OF HEADER`, a lone
+ *   CR inside a line, an unknown record type, a field outside its columns, a bad epoch, a value count outside 1–6,
+ *   a value cut short or not in exponent form, or a record truncated by the end of the file.
+ * @see J. Ray, W. Gurtner, RINEX Extensions to Handle Clock Information, 2.00 (1999), 3.02 (2010) [V1 change list, M
+ *   columns]; 3.04 with M. J. Coleman (2017) [M, example file V2].
  */
-export function parseRinexClock(source: string | Iterable<string>, sourceName = 'rinex-clock'): RinexClockFile {
-  const b = new RinexClockBuilder(sourceName);
-  let last = 0;
-  for (const line of linesOf(source)) {
-    b.add(line);
-    last = line.lineNumber;
+export async function* readRinexClock(source: TextSource, options?: RinexClockReadOptions | string): AsyncGenerator<RinexClockEvent> {
+  const opts = readOptions(options);
+  const parser = new RinexClockParser(opts);
+  for await (const lines of readLineBatches(source, { sourceName: opts.sourceName ?? 'rinex-clock' })) {
+    for (const line of lines) for (const event of parser.push(line)) yield event;
   }
-  return b.finish(last);
-}
-
-/** Like {@link parseRinexClock} for any text source, including an async iterable of chunks. */
-export async function readRinexClock(source: TextSource, sourceName = 'rinex-clock'): Promise<RinexClockFile> {
-  const b = new RinexClockBuilder(sourceName);
-  let last = 0;
-  for await (const lines of readLineBatches(source)) {
-    for (const line of lines) {
-      b.add(line);
-      last = line.lineNumber;
-    }
-  }
-  return b.finish(last);
-}
-
-/** The bias series of one clock, on a uniform grid. */
-export interface RinexClockSeries {
-  readonly name: string;
-  readonly type: 'AS' | 'AR';
-  /** Phase (clock bias) in seconds; NaN for every missing epoch. */
-  readonly phase: Float64Array;
-  /** Epoch of each sample in seconds since 1980-01-06T00:00:00 of the file's time system (no leap seconds). */
-  readonly times: Float64Array;
-  /** Sample spacing, seconds (smallest step, or as given). */
-  readonly tau0: Seconds | undefined;
-  readonly gaps: readonly SampleGap[];
-  readonly missing: number;
-  readonly timeSystem: string | undefined;
-}
-
-/** Throws unless `file` has the shape {@link parseRinexClock} returns (a hand-made or damaged file is refused, naming the field). */
-function requireClockFile(file: unknown): void {
-  const f = file as Partial<RinexClockFile> | null;
-  if (typeof f !== 'object' || f === null || typeof f.sourceName !== 'string' || typeof f.header !== 'object' || f.header === null
-    || !Array.isArray(f.records)) {
-    throw new InvalidArgumentError('file', file, 'a parsed RINEX clock file (the result of parseRinexClock)');
-  }
-  f.records.forEach((r: Partial<RinexClockRecord> | null, i) => {
-    if (typeof r !== 'object' || r === null || typeof r.name !== 'string' || !Number.isFinite(r.bias) || !Number.isInteger(r.line)
-      || typeof r.epoch !== 'object' || r.epoch === null || !validEpochFields(r.epoch)) {
-      throw new InvalidArgumentError(`file.records[${i}]`, r, 'a record { name, type, epoch, bias (s), line } as parseRinexClock returns');
-    }
-  });
+  for (const event of parser.finish()) yield event;
 }
 
 /**
- * Extracts one clock's bias as a uniformly sampled phase series for the stability statistics.
- * Missing epochs become NaN samples listed in `gaps` (never interpolated).
- *
- * @param file   A parsed file.
- * @param name   Satellite or receiver name, e.g. `G05`.
- * @param options `type` to choose AS or AR when a name has both; `tau0` (s) to impose the spacing.
- * @throws {ParseError} if the clock has no records, epochs repeat or go backwards, or a step is not
- *   a whole multiple of τ0 (line of the offending record).
+ * Reads a whole RINEX clock file held in memory (see {@link readRinexClock} for streaming).
+ * @param options  `sourceName` for error messages (a string is taken as the source name). Default `rinex-clock`.
+ * @returns Header, AS/AR records in file order, and counts of the other record types.
+ * @throws {ParseError} as {@link readRinexClock}.
+ * @see RINEX clock 2.00–3.04 (Ray, Gurtner, Coleman) [M].
  */
-export function rinexClockSeries(file: RinexClockFile, name: string, options: { type?: 'AS' | 'AR'; tau0?: Seconds } = {}): RinexClockSeries {
-  requireClockFile(file);
-  if (typeof name !== 'string') throw new InvalidArgumentError('name', name, 'a satellite or receiver name, e.g. "G05"');
-  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an object { type?, tau0? } (or omitted)');
-  const recs = file.records.filter((r) => r.name === name && (options.type === undefined || r.type === options.type));
-  if (recs.length === 0) {
-    const names = [...new Set(file.records.map((r) => r.name))].slice(0, 20).join(', ');
-    throw new ParseError(file.sourceName, file.header.lines, undefined, `records for clock ${JSON.stringify(name)} (clocks present: ${names || 'none'})`);
-  }
-  const types = new Set(recs.map((r) => r.type));
-  if (types.size > 1) {
-    throw new ParseError(file.sourceName, recs[0]!.line, 1, `one record type for ${name}: it has both AS and AR records; choose one with options.type`);
-  }
-  const times = new Float64Array(recs.length);
-  const values = new Float64Array(recs.length);
-  recs.forEach((r, i) => {
-    times[i] = scaleSecondsFromFields(r.epoch);
-    values[i] = r.bias;
-    if (i > 0 && !(times[i]! > times[i - 1]!)) {
-      throw new ParseError(file.sourceName, r.line, 4, `an epoch later than the previous ${name} record (line ${recs[i - 1]!.line})`);
+export function parseRinexClock(source: string | Iterable<string>, options?: RinexClockReadOptions | string): RinexClockFile {
+  const opts = readOptions(options);
+  const parser = new RinexClockParser(opts);
+  let header: RinexClockHeader | undefined;
+  const records: RinexClockRecord[] = [];
+  const other: Record<string, number> = {};
+  const take = (events: RinexClockEvent[]) => {
+    for (const ev of events) {
+      if (ev.kind === 'header') header = ev.header;
+      else if (ev.kind === 'record') records.push(ev.record);
+      else other[ev.recordType] = (other[ev.recordType] ?? 0) + 1;
     }
-  });
-  const reg = regularizeSeries(file.sourceName, times, values, (i) => recs[i]!.line, options.tau0);
-  return { name, type: recs[0]!.type, ...reg, timeSystem: file.header.timeSystem };
+  };
+  for (const line of linesOf(source, { sourceName: opts.sourceName ?? 'rinex-clock' })) take(parser.push(line));
+  take(parser.finish());
+  return { sourceName: opts.sourceName ?? 'rinex-clock', header: header!, records, otherRecords: other };
 }

@@ -1,7 +1,18 @@
 /**
- * Reader for SP3-c and SP3-d precise orbit files (the NGS/IGS "Extended Standard Product 3"
- * orbit format: S. Hilla, "The Extended Standard Product 3 Orbit Format (SP3-c)", 2002; and
- * "SP3-d", 2016 [M]).
+ * Reader for SP3 precise orbit files, versions a, b, c and d (the NGS/IGS "Standard Product 3" orbit
+ * format). Sources: B. W. Remondi, "Extending the National Geodetic Survey standard GPS orbit
+ * formats", NOAA TR NOS 133 NGS 46 (1989), as adopted in 1991 (SP3-a: 22 header lines, GPS only,
+ * satellite identifiers I3, records 60 columns wide; layout of lines 1-3 and the 22-line header read
+ * in the UNSW copy of the SP3-a description [V2]); W. Gurtner and M. Rothacher, IGEX mail 0042 (1998)
+ * (SP3-b: identifiers A1,I2 for GPS and GLONASS, otherwise as SP3-a) [V2, summarised in the SP3-c
+ * introduction]; S. Hilla, "The Extended Standard Product 3 Orbit Format (SP3-c)", NGS (2002, rev.
+ * 2010): time system in columns 10-12 of the first `%c` line, `%f` bases, columns 61-80 of the
+ * records (introduction read [V1], column details [M]); S. Hilla, "SP3-d" (2016): up to 999
+ * satellites, unlimited comment lines of up to 80 characters (introduction read [V1]).
+ *
+ * SP3-a and SP3-b files carry no time system: their epochs are GPS time (the formats predate the
+ * `%c` time-system field, whose columns they fill with `ccc`) [M]; the header says so with
+ * `timeSystemAssumed: true`.
  *
  * Positions come out in metres, velocities in m/s, clocks in seconds and clock rates in s/s.
  * Bad or absent values (position 0.000000 in all three components, velocity likewise, clock
@@ -15,102 +26,34 @@
  * @module
  */
 import { ParseError } from '../errors.js';
-import type { Seconds, Vector3 } from '../units.js';
+import type { Vector3 } from '../units.js';
 import { requireOptions, requireSourceName } from '../internal/validate.js';
+import type {
+  Sp3Epoch, Sp3Event, Sp3File, Sp3Header, Sp3ReadOptions, Sp3TimeSystem, Sp3Version,
+} from './sp3-types.js';
 import {
   type EpochFields, type TextLine, type TextSource, linesOf, readLineBatches, requireTextLine, scaleSecondsFromFields, validEpochFields,
 } from './line-reader.js';
 
+export type {
+  Sp3TimeSystem, Sp3Version, Sp3Header, Sp3SatelliteRecord, Sp3Epoch, Sp3Event, Sp3ReadOptions, Sp3File,
+} from './sp3-types.js';
+
 /** SP3 time-system identifiers (SP3-c/d `%c` line, columns 10-12 [M]). */
-export type Sp3TimeSystem = 'GPS' | 'GLO' | 'GAL' | 'TAI' | 'UTC' | 'BDT' | 'QZS' | 'IRN';
-
 const TIME_SYSTEMS: readonly string[] = ['GPS', 'GLO', 'GAL', 'TAI', 'UTC', 'BDT', 'QZS', 'IRN'];
-
-/** The header of an SP3 file. */
-export interface Sp3Header {
-  readonly sourceName: string;
-  /** Format version letter. */
-  readonly version: 'c' | 'd';
-  /** Whether the file declares velocity records (`V` in column 3 of line 1). */
-  readonly hasVelocities: boolean;
-  /** First epoch, in the file's time system. */
-  readonly firstEpoch: EpochFields;
-  /** Number of epochs declared on line 1. */
-  readonly epochCount: number;
-  readonly dataUsed: string;
-  /** Coordinate frame, e.g. `IGS20`, `ITRF2014`. */
-  readonly coordinateFrame: string;
-  /** Orbit type, e.g. `FIT`, `HLM`, `BCT`. */
-  readonly orbitType: string;
-  readonly agency: string;
-  readonly gpsWeek: number;
-  readonly secondsOfWeek: Seconds;
-  /** Epoch interval, in seconds. */
-  readonly epochInterval: Seconds;
-  readonly modifiedJulianDay: number;
-  readonly fractionalDay: number;
-  /** Satellite identifiers in header order, e.g. `G01`. */
-  readonly satellites: readonly string[];
-  /** Orbit accuracy exponents by satellite (accuracy = 2^exp mm; 0 = unknown). */
-  readonly accuracyExponents: Readonly<Record<string, number>>;
-  /** File type from the first `%c` line (`G`, `M`, `R`, `E`, `C`, `J`, `L`). */
-  readonly fileType: string;
-  readonly timeSystem: Sp3TimeSystem;
-  /** Floating-point bases for position/velocity and clock/rate standard deviations (`%f` line), when given. */
-  readonly positionBase?: number;
-  readonly clockBase?: number;
-  readonly comments: readonly string[];
-  readonly lineCount: number;
-}
-
-/** One satellite's data at one epoch. */
-export interface Sp3SatelliteRecord {
-  readonly satellite: string;
-  /** Position, in metres, Earth-fixed frame of the file; `undefined` when bad/absent. */
-  readonly position: Vector3 | undefined;
-  /** Clock offset, in seconds; `undefined` when bad/absent. */
-  readonly clock: Seconds | undefined;
-  /** Velocity, in m/s; `undefined` when absent from the file or bad. */
-  readonly velocity: Vector3 | undefined;
-  /** Clock rate, in s/s; `undefined` when absent or bad. */
-  readonly clockRate: number | undefined;
-  readonly clockEvent: boolean;
-  readonly clockPredicted: boolean;
-  readonly maneuver: boolean;
-  readonly orbitPredicted: boolean;
-  /** Line of the position record. */
-  readonly line: number;
-}
-
-/** One epoch block. */
-export interface Sp3Epoch {
-  /** Epoch, in the file's time system. */
-  readonly time: EpochFields;
-  /** Seconds since 1980-01-06T00:00:00 of the file's time scale (calendar count, no leap seconds). */
-  readonly scaleSeconds: Seconds;
-  readonly line: number;
-  readonly records: readonly Sp3SatelliteRecord[];
-}
-
-/** One item of an SP3 file, in file order. */
-export type Sp3Event =
-  | { readonly kind: 'header'; readonly header: Sp3Header }
-  | { readonly kind: 'epoch'; readonly epoch: Sp3Epoch };
-
-/** Options of the SP3 readers. */
-export interface Sp3ReadOptions {
-  /** Name used in error messages (default `sp3`). */
-  readonly sourceName?: string;
-}
-
-/** A whole SP3 file read into memory by {@link parseSp3}. */
-export interface Sp3File {
-  readonly header: Sp3Header;
-  readonly epochs: readonly Sp3Epoch[];
-}
 
 /** SP3 bad-clock marker 999999.999999 (µs, or 10⁻⁴ µs/s for rates) [M]: anything at or above 999999 is "bad". */
 const BAD_CLOCK = 999999;
+
+/**
+ * Largest magnitude an F14.6 data field can hold (14 characters with the sign and six decimals leave
+ * at most 7 integer digits): a larger value (only writable in exponent form, e.g. `1e400` or `1e300`)
+ * is not an SP3 value and is refused (common practice, no source).
+ */
+const F14_6_LIMIT = 1e8;
+
+/** Header layout of SP3-a/b (Remondi 1989/1991 [V2]): 2 lines, then 5 `+ `, 5 `++`, 2 `%c`, 2 `%f`, 2 `%i`, 4 `/*` = 22 lines. */
+const FIXED_HEADER: Readonly<Record<string, number>> = { '+ ': 5, '++': 5, '%c': 2, '%f': 2, '%i': 2, '/*': 4 };
 
 interface MutableRecord {
   satellite: string;
@@ -134,12 +77,14 @@ export class Sp3Parser {
   private _stage: 'line1' | 'line2' | 'header' | 'body' | 'eof' = 'line1';
   private _lastLine = 0;
   private _h: {
-    version?: 'c' | 'd'; hasVelocities?: boolean; firstEpoch?: EpochFields; epochCount?: number; dataUsed?: string;
+    version?: Sp3Version; hasVelocities?: boolean; firstEpoch?: EpochFields; epochCount?: number; dataUsed?: string;
     coordinateFrame?: string; orbitType?: string; agency?: string; gpsWeek?: number; secondsOfWeek?: number;
     epochInterval?: number; modifiedJulianDay?: number; fractionalDay?: number; satelliteCount?: number;
     satellites: string[]; accuracy: number[]; fileType?: string; timeSystem?: Sp3TimeSystem; positionBase?: number;
-    clockBase?: number; comments: string[]; percentC: number;
-  } = { satellites: [], accuracy: [], comments: [], percentC: 0 };
+    clockBase?: number; comments: string[]; percentC: number; timeSystemAssumed: boolean;
+    /** Header lines seen per tag (`+ `, `++`, `%c`, `%f`, `%i`, `/*`), to check the fixed SP3-a/b layout. */
+    tagCounts: Record<string, number>;
+  } = { satellites: [], accuracy: [], comments: [], percentC: 0, timeSystemAssumed: false, tagCounts: {} };
   private _satelliteSet = new Set<string>();
   private _epoch: { time: EpochFields; scaleSeconds: number; line: number; records: MutableRecord[]; seen: Set<string> } | undefined;
   private _epochsSeen = 0;
@@ -182,7 +127,7 @@ export class Sp3Parser {
   /** Ends the input. @throws {ParseError} when the file is truncated (no `EOF`, missing epochs). */
   finish(): Sp3Event[] {
     const at: TextLine = { text: '', lineNumber: this._lastLine + 1 };
-    if (this._stage === 'line1') throw this._error(at, 1, "an SP3 first line starting with '#c' or '#d'", '');
+    if (this._stage === 'line1') throw this._error(at, 1, "an SP3 first line starting with '#a', '#b', '#c' or '#d'", '');
     if (this._stage !== 'eof') {
       throw this._error(at, 1, "the closing 'EOF' line (the file ends early: truncated)", '');
     }
@@ -195,14 +140,23 @@ export class Sp3Parser {
     return Number(s);
   }
 
-  private _real(line: TextLine, a: number, b: number, what: string, optional = false): number | undefined {
+  /**
+   * The real number in columns a+1..b. Non-finite values (`1e400`) are refused; with `limit`, so is any
+   * magnitude of `limit` or more (a data field holds at most what its F14.6 width can write).
+   */
+  private _real(line: TextLine, a: number, b: number, what: string, optional = false, limit = Infinity): number | undefined {
     const s = line.text.slice(a, b);
     const trimmed = s.trim();
     if (trimmed === '' && optional) return undefined;
     if (!/^[+-]?(\d+\.?\d*|\.\d+)([Ee][+-]?\d+)?$/.test(trimmed)) {
       throw this._error(line, a + 1, `${what} (a number in columns ${a + 1}-${b})`, s);
     }
-    return Number(trimmed);
+    const v = Number(trimmed);
+    if (!Number.isFinite(v) || Math.abs(v) >= limit) {
+      const range = Number.isFinite(limit) ? `a finite number of magnitude below ${limit}` : 'a finite number';
+      throw this._error(line, a + 1, `${what} (${range} in columns ${a + 1}-${b})`, s);
+    }
+    return v;
   }
 
   private _epochFields(line: TextLine, what: string): EpochFields {
@@ -220,9 +174,9 @@ export class Sp3Parser {
 
   private _line1(line: TextLine): void {
     const t = line.text;
-    if (t.charAt(0) !== '#' || t.charAt(1) === '#') throw this._error(line, 1, "an SP3 first line starting with '#c' or '#d'", t.slice(0, 2));
+    if (t.charAt(0) !== '#' || t.charAt(1) === '#') throw this._error(line, 1, "an SP3 first line starting with '#a', '#b', '#c' or '#d'", t.slice(0, 2));
     const v = t.charAt(1);
-    if (v !== 'c' && v !== 'd') throw this._error(line, 2, "SP3 version 'c' or 'd' in column 2 (versions a and b are not read)", v);
+    if (v !== 'a' && v !== 'b' && v !== 'c' && v !== 'd') throw this._error(line, 2, "SP3 version 'a', 'b', 'c' or 'd' in column 2", v);
     const pv = t.charAt(2);
     if (pv !== 'P' && pv !== 'V') throw this._error(line, 3, "position/velocity flag 'P' or 'V' in column 3", pv);
     this._h.version = v;
@@ -251,20 +205,22 @@ export class Sp3Parser {
   private _headerLine(line: TextLine): void {
     const t = line.text;
     const tag = t.slice(0, 2);
+    if (tag in FIXED_HEADER) this._h.tagCounts[tag] = (this._h.tagCounts[tag] ?? 0) + 1;
     if (tag === '+ ') {
       if (this._h.satelliteCount === undefined) {
         const n = this._int(line, 2, 6, 'number of satellites');
-        if (n < 1 || n > 999) throw this._error(line, 4, 'a number of satellites in 1..999', String(n));
+        const max = this._h.version === 'd' ? 999 : 85;
+        if (n < 1 || n > max) throw this._error(line, 4, `a number of satellites in 1..${max} (SP3-${this._h.version})`, String(n));
         this._h.satelliteCount = n;
       }
       for (let k = 0; k < 17; k++) {
         const id = t.slice(9 + 3 * k, 12 + 3 * k);
         if (id.trim() === '' || /^ *0+$/.test(id) || /^[A-Z] *0+$/.test(id)) continue;
-        if (!/^[A-Z][ \d]\d$/.test(id)) throw this._error(line, 10 + 3 * k, 'a satellite identifier such as G01', id);
+        const sat = this._satelliteId(line, id, 10 + 3 * k);
         if (this._h.satellites.length >= this._h.satelliteCount) {
           throw this._error(line, 10 + 3 * k, `no more than the ${this._h.satelliteCount} satellites declared`, id);
         }
-        const sat = `${id.charAt(0)}${id.slice(1).trim().padStart(2, '0')}`;
+        if (this._satelliteSet.has(sat)) throw this._error(line, 10 + 3 * k, 'each satellite listed once', sat);
         this._h.satellites.push(sat);
         this._satelliteSet.add(sat);
       }
@@ -280,12 +236,7 @@ export class Sp3Parser {
       return;
     }
     if (tag === '%c') {
-      if (this._h.percentC === 0) {
-        this._h.fileType = t.slice(3, 5).trim();
-        const ts = t.slice(9, 12);
-        if (!TIME_SYSTEMS.includes(ts)) throw this._error(line, 10, `a time system (${TIME_SYSTEMS.join(', ')}) in columns 10-12`, ts);
-        this._h.timeSystem = ts as Sp3TimeSystem;
-      }
+      if (this._h.percentC === 0) this._timeSystemLine(line);
       this._h.percentC++;
       return;
     }
@@ -306,6 +257,44 @@ export class Sp3Parser {
     throw this._error(line, 1, "a header line starting with '+ ', '++', '%c', '%f', '%i', '/*' or the first epoch line '*  '", t.slice(0, 3));
   }
 
+  /**
+   * First `%c` line: file type (columns 4-5) and time system (columns 10-12). SP3-a/b leave both as
+   * the placeholders `cc`/`ccc` (GPS time assumed); a real code is read in any version.
+   */
+  private _timeSystemLine(line: TextLine): void {
+    const t = line.text;
+    const legacy = this._h.version === 'a' || this._h.version === 'b';
+    const type = t.slice(3, 5).trim();
+    this._h.fileType = legacy && (type === 'cc' || type === '') ? (this._h.version === 'a' ? 'G' : '') : type;
+    const ts = t.slice(9, 12);
+    if (legacy && (ts === 'ccc' || ts.trim() === '')) {
+      this._h.timeSystem = 'GPS';
+      this._h.timeSystemAssumed = true;
+      return;
+    }
+    if (!TIME_SYSTEMS.includes(ts)) {
+      const also = legacy ? " (or the SP3-a/b placeholder 'ccc': GPS time)" : '';
+      throw this._error(line, 10, `a time system (${TIME_SYSTEMS.join(', ')}) in columns 10-12${also}`, ts);
+    }
+    this._h.timeSystem = ts as Sp3TimeSystem;
+  }
+
+  /**
+   * A satellite identifier as written in the header or a record: SP3-a `I3` PRN (GPS), SP3-b `A1,I2`
+   * with a blank system letter meaning GPS, SP3-c/d `A1,I2`. Returned as letter + two digits (`G05`).
+   */
+  private _satelliteId(line: TextLine, id: string, column: number): string {
+    const v = this._h.version;
+    if (v === 'a') {
+      if (!/^ *\d{1,2}$/.test(id)) throw this._error(line, column, 'an SP3-a satellite number (I3, a GPS PRN 1-99)', id);
+      return `G${id.trim().padStart(2, '0')}`;
+    }
+    const pattern = v === 'b' ? /^[A-Z ][ \d]\d$/ : /^[A-Z][ \d]\d$/;
+    if (!pattern.test(id)) throw this._error(line, column, `a satellite identifier such as G01${v === 'b' ? " (blank letter: GPS)" : ''}`, id);
+    const letter = id.charAt(0) === ' ' ? 'G' : id.charAt(0);
+    return `${letter}${id.slice(1).trim().padStart(2, '0')}`;
+  }
+
   private _finishHeader(line: TextLine): Sp3Header {
     const h = this._h;
     if (h.satelliteCount === undefined) throw this._error(line, 1, "the satellite list ('+ ' lines) before the first epoch", line.text);
@@ -313,6 +302,15 @@ export class Sp3Parser {
       throw this._error(line, 1, `${h.satelliteCount} satellite identifiers in the '+ ' lines (found ${h.satellites.length})`, line.text);
     }
     if (h.timeSystem === undefined) throw this._error(line, 1, "a '%c' line giving the time system before the first epoch", line.text);
+    if (h.version === 'a' || h.version === 'b') {
+      // SP3-a/b headers have a fixed layout of 22 lines (Remondi 1989/1991 [V2]).
+      for (const [tag, n] of Object.entries(FIXED_HEADER)) {
+        const found = h.tagCounts[tag] ?? 0;
+        if (found !== n) {
+          throw this._error(line, 1, `the fixed SP3-${h.version} header of 22 lines: ${n} '${tag}' lines (found ${found}) before the first epoch`, line.text.slice(0, 3));
+        }
+      }
+    }
     const accuracyExponents: Record<string, number> = {};
     h.satellites.forEach((s, i) => { if (h.accuracy[i] !== undefined) accuracyExponents[s] = h.accuracy[i]!; });
     return {
@@ -320,7 +318,7 @@ export class Sp3Parser {
       epochCount: h.epochCount!, dataUsed: h.dataUsed!, coordinateFrame: h.coordinateFrame!, orbitType: h.orbitType!,
       agency: h.agency!, gpsWeek: h.gpsWeek!, secondsOfWeek: h.secondsOfWeek!, epochInterval: h.epochInterval!,
       modifiedJulianDay: h.modifiedJulianDay!, fractionalDay: h.fractionalDay!, satellites: h.satellites,
-      accuracyExponents, fileType: h.fileType ?? '', timeSystem: h.timeSystem,
+      accuracyExponents, fileType: h.fileType ?? '', timeSystem: h.timeSystem, timeSystemAssumed: h.timeSystemAssumed,
       ...(h.positionBase !== undefined ? { positionBase: h.positionBase } : {}),
       ...(h.clockBase !== undefined ? { clockBase: h.clockBase } : {}),
       comments: h.comments, lineCount: line.lineNumber - 1,
@@ -344,7 +342,8 @@ export class Sp3Parser {
     const e = this._epoch;
     this._epoch = undefined;
     if (!e) return [];
-    return [{ kind: 'epoch', epoch: { time: e.time, scaleSeconds: e.scaleSeconds, line: e.line, records: e.records } }];
+    const missingSatellites = e.seen.size === this._h.satellites.length ? [] : this._h.satellites.filter((s) => !e.seen.has(s));
+    return [{ kind: 'epoch', epoch: { time: e.time, scaleSeconds: e.scaleSeconds, line: e.line, records: e.records, missingSatellites } }];
   }
 
   private _body(line: TextLine): Sp3Event[] {
@@ -363,14 +362,19 @@ export class Sp3Parser {
       return events;
     }
     const epoch = this._epoch!;
+    const legacy = this._h.version === 'a' || this._h.version === 'b';
+    if (legacy && (t.startsWith('P') || t.startsWith('V')) && t.length > 60 && t.slice(60).trim() !== '') {
+      const at = 61 + (t.slice(60).length - t.slice(60).trimStart().length);
+      throw this._error(line, at, `nothing after column 60 (SP3-${this._h.version} records are 60 columns wide)`, t.slice(60).trim());
+    }
     if (t.startsWith('P')) {
       const satellite = this._satellite(line);
       if (epoch.seen.has(satellite)) throw this._error(line, 2, `one position record for ${satellite} per epoch`, satellite);
       epoch.seen.add(satellite);
-      const x = this._real(line, 4, 18, 'x (km)')!;
-      const y = this._real(line, 18, 32, 'y (km)')!;
-      const z = this._real(line, 32, 46, 'z (km)')!;
-      const clk = this._real(line, 46, 60, 'clock (µs)', true);
+      const x = this._real(line, 4, 18, 'x (km)', false, F14_6_LIMIT)!;
+      const y = this._real(line, 18, 32, 'y (km)', false, F14_6_LIMIT)!;
+      const z = this._real(line, 32, 46, 'z (km)', false, F14_6_LIMIT)!;
+      const clk = this._real(line, 46, 60, 'clock (µs)', true, F14_6_LIMIT);
       const position: Vector3 | undefined = x === 0 && y === 0 && z === 0 ? undefined : [x * 1000, y * 1000, z * 1000];
       epoch.records.push({
         satellite, position, clock: clk === undefined || Math.abs(clk) >= BAD_CLOCK ? undefined : clk * 1e-6,
@@ -387,42 +391,42 @@ export class Sp3Parser {
         throw this._error(line, 2, `a velocity record right after the position record of the same satellite (${rec?.satellite ?? 'none'})`, satellite);
       }
       if (rec.velocity !== undefined || rec.clockRate !== undefined) throw this._error(line, 1, `one velocity record for ${satellite} per epoch`, satellite);
-      const vx = this._real(line, 4, 18, 'x velocity (dm/s)')!;
-      const vy = this._real(line, 18, 32, 'y velocity (dm/s)')!;
-      const vz = this._real(line, 32, 46, 'z velocity (dm/s)')!;
-      const rate = this._real(line, 46, 60, 'clock rate (10⁻⁴ µs/s)', true);
+      const vx = this._real(line, 4, 18, 'x velocity (dm/s)', false, F14_6_LIMIT)!;
+      const vy = this._real(line, 18, 32, 'y velocity (dm/s)', false, F14_6_LIMIT)!;
+      const vz = this._real(line, 32, 46, 'z velocity (dm/s)', false, F14_6_LIMIT)!;
+      const rate = this._real(line, 46, 60, 'clock rate (10⁻⁴ µs/s)', true, F14_6_LIMIT);
       // dm/s → m/s; 10⁻⁴ µs/s → s/s (SP3-c §"Velocity record" [M]).
       rec.velocity = vx === 0 && vy === 0 && vz === 0 ? undefined : [vx * 0.1, vy * 0.1, vz * 0.1];
       rec.clockRate = rate === undefined || Math.abs(rate) >= BAD_CLOCK ? undefined : rate * 1e-10;
       return [];
     }
-    if (t.startsWith('EP') || t.startsWith('EV')) return [];
+    if (!legacy && (t.startsWith('EP') || t.startsWith('EV'))) return [];
     if (t.trim() === '') return [];
-    throw this._error(line, 1, "a record starting with 'P', 'V', 'EP', 'EV', '*' or the line 'EOF'", t.slice(0, 3));
+    const kinds = legacy ? "'P', 'V'" : "'P', 'V', 'EP', 'EV'";
+    throw this._error(line, 1, `a record starting with ${kinds}, '*' or the line 'EOF' (SP3-${this._h.version})`, t.slice(0, 3));
   }
 
   private _satellite(line: TextLine): string {
-    const id = line.text.slice(1, 4);
-    if (!/^[A-Z][ \d]\d$/.test(id)) throw this._error(line, 2, 'a satellite identifier such as G01 in columns 2-4', id);
-    const sat = `${id.charAt(0)}${id.slice(1).trim().padStart(2, '0')}`;
+    const sat = this._satelliteId(line, line.text.slice(1, 4), 2);
     if (!this._satelliteSet.has(sat)) throw this._error(line, 2, 'a satellite listed in the header', sat);
     return sat;
   }
 }
 
 /**
- * Reads an SP3-c / SP3-d file as a stream: the header first, then one event per epoch.
+ * Reads an SP3-a, -b, -c or -d file as a stream: the header first, then one event per epoch.
  *
  * @param source   File text or its chunks (sync or async iterable of strings).
  * @param options  `sourceName` for error messages.
  * @returns An async generator of {@link Sp3Event}.
  * @throws {ParseError} on malformed or truncated input (file, line, column, expected).
- * @see S. Hilla, The Extended Standard Product 3 Orbit Format (SP3-c), NGS, 2002; SP3-d, IGS, 2016 [M].
+ * @see Remondi (1989/1991) SP3-a [V2]; Gurtner & Rothacher (1998) SP3-b [V2]; S. Hilla, The Extended Standard Product 3
+ *   Orbit Format (SP3-c), NGS, 2002/2010 [V1 introduction, M columns]; SP3-d, 2016 [V1 introduction].
  */
 export async function* readSp3(source: TextSource, options: Sp3ReadOptions = {}): AsyncGenerator<Sp3Event> {
   const parser = new Sp3Parser(options);
   // One asynchronous step per chunk, not per line (an event is yielded only when a line completes one).
-  for await (const lines of readLineBatches(source)) {
+  for await (const lines of readLineBatches(source, { sourceName: options.sourceName ?? 'sp3' })) {
     for (const line of lines) for (const event of parser.push(line)) yield event;
   }
   for (const event of parser.finish()) yield event;
@@ -431,7 +435,7 @@ export async function* readSp3(source: TextSource, options: Sp3ReadOptions = {})
 /**
  * Reads a whole SP3 file held in memory (see {@link readSp3} for streaming).
  * @throws {ParseError} on malformed or truncated input.
- * @see SP3-c (2002), SP3-d (2016) [M].
+ * @see SP3-a (1989/1991) [V2], SP3-b (1998) [V2], SP3-c (2002/2010), SP3-d (2016) [V1 introductions, M columns].
  */
 export function parseSp3(source: string | Iterable<string>, options: Sp3ReadOptions = {}): Sp3File {
   const parser = new Sp3Parser(options);
@@ -443,7 +447,7 @@ export function parseSp3(source: string | Iterable<string>, options: Sp3ReadOpti
       else epochs.push(ev.epoch);
     }
   };
-  for (const line of linesOf(source)) take(parser.push(line));
+  for (const line of linesOf(source, { sourceName: options.sourceName ?? 'sp3' })) take(parser.push(line));
   take(parser.finish());
   return { header: header!, epochs };
 }

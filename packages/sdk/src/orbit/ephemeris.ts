@@ -39,8 +39,48 @@ const OBLIQUITY_RATE = -46.815 * ARCSEC;
 /** General precession in longitude, 1.3972° per Julian century (the term Montenbruck & Gill 2000 eq. 3.47 subtracts) [M]. */
 const PRECESSION_IN_LONGITUDE = 1.3972 * DEG;
 
-function centuries(ttSecondsSinceJ2000: Seconds): number {
-  return requireFinite('ttSecondsSinceJ2000', ttSecondsSinceJ2000, 'a finite TT epoch in seconds since J2000.0') / SECONDS_PER_JULIAN_CENTURY;
+function checkEpoch(ttSecondsSinceJ2000: Seconds): Seconds {
+  return requireFinite('ttSecondsSinceJ2000', ttSecondsSinceJ2000, 'a finite TT epoch in seconds since J2000.0');
+}
+
+/** Veltkamp's splitting constant 2^27 + 1 (T. J. Dekker, Numer. Math. 18 (1971) 224–242) [M]. */
+const SPLITTER = 134217729;
+
+/**
+ * a·b as an unevaluated sum hi + lo with hi = fl(a·b) and lo the exact rounding error
+ * (Dekker's product, T. J. Dekker, Numer. Math. 18 (1971) 224–242, "mul12") [M]; exact for |a·b| < 2^996.
+ */
+function twoProduct(a: number, b: number): [number, number] {
+  const hi = a * b;
+  let t = SPLITTER * a;
+  const ah = t - (t - a);
+  const al = a - ah;
+  t = SPLITTER * b;
+  const bh = t - (t - b);
+  const bl = b - bh;
+  const lo = al * bl - (((hi - ah * bh) - al * bh) - ah * bl);
+  return [hi, lo];
+}
+
+/**
+ * A mean argument c0 + c1·T of the series, in radians, with argument reduction: T = (epoch + offset)/century,
+ * the large product c1/century·epoch is formed exactly (hi + lo) and hi is reduced modulo 360° (an exact
+ * operation) before the small terms are added. The result is a smooth function of `offset` at any epoch:
+ * without this, angles of ≈ 10⁵° at 2023 carry rounding noise of ≈ 1e-11° (≈ 1e-4 m of lunar position), which
+ * an orbit integrator at tight tolerance sees as a rough force. Technique: common practice for long time
+ * arguments (split time as in two-part Julian dates, IAU SOFA conventions [M]), no single source.
+ * @param c0Deg degrees at J2000. @param c1DegPerCentury degrees per Julian century of TT.
+ */
+function meanArgument(c0Deg: number, c1DegPerCentury: number, epoch: Seconds, offset: Seconds): number {
+  const ratePerSecond = c1DegPerCentury / SECONDS_PER_JULIAN_CENTURY;
+  const [hi, lo] = twoProduct(ratePerSecond, epoch);
+  const reduced = hi - 360 * Math.floor(hi / 360);
+  return (c0Deg + reduced + lo + ratePerSecond * offset) * DEG;
+}
+
+/** Julian centuries of TT since J2000 for epoch + offset (only for slowly varying terms: precession, obliquity). */
+function centuriesOf(epoch: Seconds, offset: Seconds): number {
+  return epoch / SECONDS_PER_JULIAN_CENTURY + offset / SECONDS_PER_JULIAN_CENTURY;
 }
 
 function checkFrame(frame: unknown): EphemerisFrame {
@@ -59,10 +99,14 @@ function eclipticToEquatorial(lon: number, lat: number, r: number, eps: number):
   return [x, ce * y - se * z, se * y + ce * z];
 }
 
-/** Internal, unvalidated: Sun position (m) for T in Julian centuries of TT since J2000. */
-export function sunPositionAtCenturies(T: number, ofDate: boolean): Vector3 {
+/**
+ * Internal, unvalidated: Sun position (m) at TT = J2000 + epoch + offset seconds. Split time: pass a fixed
+ * `epoch` and a varying `offset` (e.g. seconds since the start of an integration) for a result that is smooth in `offset`.
+ */
+export function sunPositionAt(epoch: Seconds, offset: Seconds, ofDate: boolean): Vector3 {
+  const T = centuriesOf(epoch, offset);
   // Montenbruck & Gill (2000) eqs. (3.43)–(3.44): mean anomaly, ecliptic longitude (J2000 equinox), distance.
-  const M = (357.5256 + 35999.049 * T) * DEG;
+  const M = meanArgument(357.5256, 35999.049, epoch, offset);
   const lon = 282.94 * DEG + M + (6892 * Math.sin(M) + 72 * Math.sin(2 * M)) * ARCSEC;
   const r = (149.619 - 2.499 * Math.cos(M) - 0.021 * Math.cos(2 * M)) * 1e9;
   return ofDate
@@ -70,14 +114,15 @@ export function sunPositionAtCenturies(T: number, ofDate: boolean): Vector3 {
     : eclipticToEquatorial(lon, 0, r, OBLIQUITY_J2000);
 }
 
-/** Internal, unvalidated: Moon position (m) for T in Julian centuries of TT since J2000. */
-export function moonPositionAtCenturies(T: number, ofDate: boolean): Vector3 {
-  // Montenbruck & Gill (2000) eq. (3.47): mean elements (L0 referred to the J2000 equinox).
-  const L0 = (218.31617 + 481267.88088 * T - 1.3972 * T) * DEG;
-  const l = (134.96292 + 477198.86753 * T) * DEG;
-  const lp = (357.52543 + 35999.04944 * T) * DEG;
-  const F = (93.27283 + 483202.01873 * T) * DEG;
-  const D = (297.85027 + 445267.11135 * T) * DEG;
+/** Internal, unvalidated: Moon position (m) at TT = J2000 + epoch + offset seconds (split time as {@link sunPositionAt}). */
+export function moonPositionAt(epoch: Seconds, offset: Seconds, ofDate: boolean): Vector3 {
+  const T = centuriesOf(epoch, offset);
+  // Montenbruck & Gill (2000) eq. (3.47): mean elements (L0 referred to the J2000 equinox), each reduced mod 360°.
+  const L0 = meanArgument(218.31617, 481267.88088 - 1.3972, epoch, offset);
+  const l = meanArgument(134.96292, 477198.86753, epoch, offset);
+  const lp = meanArgument(357.52543, 35999.04944, epoch, offset);
+  const F = meanArgument(93.27283, 483202.01873, epoch, offset);
+  const D = meanArgument(297.85027, 445267.11135, epoch, offset);
   // Eq. (3.48): longitude perturbations, in arcseconds.
   const dL = 22640 * Math.sin(l) + 769 * Math.sin(2 * l) - 4586 * Math.sin(l - 2 * D) + 2370 * Math.sin(2 * D)
     - 668 * Math.sin(lp) - 412 * Math.sin(2 * F) - 212 * Math.sin(2 * l - 2 * D) - 206 * Math.sin(l + lp - 2 * D)
@@ -113,8 +158,7 @@ export function moonPositionAtCenturies(T: number, ofDate: boolean): Vector3 {
  * @see O. Montenbruck & E. Gill, Satellite Orbits (2000), §3.3.2, eqs. (3.43)–(3.44) [M].
  */
 export function sunPositionLowPrecision(ttSecondsSinceJ2000: Seconds, frame: EphemerisFrame = 'mean-of-date'): Vector3 {
-  const T = centuries(ttSecondsSinceJ2000);
-  return sunPositionAtCenturies(T, checkFrame(frame) === 'mean-of-date');
+  return sunPositionAt(checkEpoch(ttSecondsSinceJ2000), 0, checkFrame(frame) === 'mean-of-date');
 }
 
 /**
@@ -133,8 +177,7 @@ export function sunPositionLowPrecision(ttSecondsSinceJ2000: Seconds, frame: Eph
  * @see O. Montenbruck & E. Gill, Satellite Orbits (2000), §3.3.2, eqs. (3.47)–(3.49) [M].
  */
 export function moonPositionLowPrecision(ttSecondsSinceJ2000: Seconds, frame: EphemerisFrame = 'mean-of-date'): Vector3 {
-  const T = centuries(ttSecondsSinceJ2000);
-  return moonPositionAtCenturies(T, checkFrame(frame) === 'mean-of-date');
+  return moonPositionAt(checkEpoch(ttSecondsSinceJ2000), 0, checkFrame(frame) === 'mean-of-date');
 }
 
 /** Name of the ephemeris model, for reports. */

@@ -21,7 +21,7 @@ import type { CubicMetresPerSecondSquared, Metres, Seconds, SquareMetresPerSecon
 import { DEFAULT_CONSTANT_SET, type ConstantSet } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
 import { requireConstantSet, requireFinite, requireInRange, requireOptions, requirePositive, requireVector3 } from '../internal/validate.js';
-import { moonPositionAtCenturies, sunPositionAtCenturies } from './ephemeris.js';
+import { moonPositionAt, sunPositionAt } from './ephemeris.js';
 
 /** Gravitational parameter of the Moon, 4.902800066e12 m³/s² (JPL DE-series value) [M]. */
 export const GM_MOON: CubicMetresPerSecondSquared = 4.902800066e12;
@@ -84,9 +84,9 @@ export function createGravityField(model: GravityModel, options: GravityFieldOpt
   let sun: Vector3 = [0, 0, 0];
   const bodies = (t: number): void => {
     if (t === cacheT) return;
-    const T = (epoch + t) / (36525 * 86400);
-    moon = moonPositionAtCenturies(T, true);
-    sun = sunPositionAtCenturies(T, true);
+    // Split time: the epoch stays separate from t so that the positions are smooth in t at any epoch.
+    moon = moonPositionAt(epoch, t, true);
+    sun = sunPositionAt(epoch, t, true);
     cacheT = t;
   };
 

@@ -115,7 +115,8 @@ function polish(E: number, e: number, M: number): number {
  * Method: the mean anomaly is reduced to m ∈ [−π, π] (E is odd in M and E − M is
  * 2π-periodic), the half-revolution [0, π] is solved by Newton's method inside a bisection
  * bracket that always contains the root, one Newton step is taken against the unreduced M,
- * and the nearest doubles are searched for the smallest residual.
+ * and, only when the residual is still above the bound, the nearest doubles are searched for the
+ * smallest residual.
  *
  * Accuracy: |E − e·sin E − M| ≤ 1e-15 rad (as evaluated in double precision) for every
  * 0 ≤ e < 1 and |M| ≤ π, including e → 1 with M near 0 and M near ±π. For |M| > π the bound is
@@ -149,9 +150,15 @@ export function solveKepler(meanAnomaly: Radians, eccentricity: Dimensionless): 
     // The reduced problem is exact only up to the rounding of 2π·k; one Newton step against M fixes it.
     E -= keplerResidual(E, e, M) / (1 - e * Math.cos(E));
   }
-  E = polish(E, e, M);
-  const residual = keplerResidual(E, e, M);
-  if (!(Math.abs(residual) <= keplerTolerance(M))) {
+  // The search among neighbouring doubles costs eight more sines; it is needed only when Newton's
+  // last step, limited by rounding, left the residual above the bound.
+  const tolerance = keplerTolerance(M);
+  let residual = keplerResidual(E, e, M);
+  if (!(Math.abs(residual) <= tolerance)) {
+    E = polish(E, e, M);
+    residual = keplerResidual(E, e, M);
+  }
+  if (!(Math.abs(residual) <= tolerance)) {
     throw new ConvergenceError(`solveKepler(M = ${M}, e = ${e})`, half.iterations, residual);
   }
   return E;

@@ -8,6 +8,7 @@ import type { Dimensionless, Hertz } from '../units.js';
 import { InvalidArgumentError } from '../errors.js';
 import { requireFrequency, requireInteger, requirePositive } from '../internal/validate.js';
 import { SECONDS_PER_DAY } from '../constants.js';
+import { FLIGHT_CONFIGURATION_CAUTION } from '../caution.js';
 
 /** Smallest and largest supported accumulator widths, in bits. */
 export const DDS_MIN_BITS = 8;
@@ -25,6 +26,8 @@ export interface TuningWord {
   quantisationErrorNanosecondsPerDay: number;
   /** f_clk/2^N, in hertz: the frequency step of one least-significant bit. */
   resolutionHz: Hertz;
+  /** The tuning word feeds a flight configuration: {@link FLIGHT_CONFIGURATION_CAUTION}. */
+  caution: string;
 }
 
 /** Exact binary decomposition of a positive finite double: x = mantissa·2^exponent. */
@@ -154,5 +157,6 @@ export function nearestTuningWord(request: { targetFrequency: Hertz; clockFreque
     quantisationErrorFractional,
     quantisationErrorNanosecondsPerDay: quantisationErrorFractional * SECONDS_PER_DAY * 1e9,
     resolutionHz,
+    caution: FLIGHT_CONFIGURATION_CAUTION,
   };
 }

@@ -5,6 +5,7 @@
  */
 import type { Dimensionless, Hertz } from '../units.js';
 import { InvalidArgumentError } from '../errors.js';
+import { FLIGHT_CONFIGURATION_CAUTION } from '../caution.js';
 import { requireFinite, requireFrequency } from '../internal/validate.js';
 
 /** Result of {@link offsetFrequency}. */
@@ -13,6 +14,8 @@ export interface OffsetFrequency {
   offsetFrequencyHz: Hertz;
   /** f0·y, in hertz: the offset itself, computed directly (no cancellation). */
   offsetHz: Hertz;
+  /** The frequency feeds a flight configuration: {@link FLIGHT_CONFIGURATION_CAUTION}. */
+  caution: string;
 }
 
 /**
@@ -42,5 +45,5 @@ export function offsetFrequency(nominalFrequency: Hertz, fractionalOffset: Dimen
   const f0 = requireFrequency('nominalFrequency', nominalFrequency);
   const y = requireFractionalOffset('fractionalOffset', fractionalOffset);
   const offsetHz = f0 * y;
-  return { offsetFrequencyHz: f0 + offsetHz, offsetHz };
+  return { offsetFrequencyHz: f0 + offsetHz, offsetHz, caution: FLIGHT_CONFIGURATION_CAUTION };
 }

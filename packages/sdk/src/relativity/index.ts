@@ -1,4 +1,5 @@
 /** Relativistic clock terms: constant (factory) rate, instantaneous rate, periodic eccentricity term. */
+export { FLIGHT_CONFIGURATION_CAUTION } from '../caution.js';
 export {
   type ReferenceClock, type RateOptions, type RateBreakdown, REFERENCE_CLOCKS, requireReferenceClock,
   meanClockRate, instantaneousClockRate, rateChangeForSemiMajorAxisChange, semiMajorAxisForMeanRate,
@@ -17,7 +18,7 @@ export {
 } from './proper-time.js';
 export {
   type J2PeriodicAmplitudes, type SemiMajorAxisKind, type J2RateBreakdown, j2ResidualPeriodicTerm, j2TotalPeriodicTerm,
-  j2PeriodicAmplitudes, osculatingMinusMeanSemiMajorAxis, j2SecularClockRate, j2SecularClockRateFromState,
+  j2PeriodicAmplitudes, osculatingMinusMeanSemiMajorAxis, j2SecularClockRate, j2SecularClockRateFromState, J2_ANALYTIC_MIN_PERIGEE_RADIUS, J2_AVERAGING_ORBITS,
 } from './j2.js';
 export {
   type ReferenceEllipsoid, type GroundClockRate, type LunarClockLocation, type LunarClockRate, GRS80_ELLIPSOID,
@@ -28,3 +29,6 @@ export {
   type J2TermKind, periodicCorrectionFromElementsBatch, periodicCorrectionFromStatesBatch, j2PeriodicTermBatch,
   j2PeriodicTermFromStatesBatch,
 } from './batch.js';
+export {
+  type GridOrbit, type UniformTimeGrid, MAX_GRID_EPOCHS, periodicCorrectionOnTimeGrid,
+} from './time-grid.js';

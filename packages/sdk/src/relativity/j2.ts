@@ -16,7 +16,8 @@
  */
 import type { Dimensionless, Metres, Radians, Seconds } from '../units.js';
 import { DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
-import { InvalidArgumentError } from '../errors.js';
+import { InvalidArgumentError, OutOfDomainError } from '../errors.js';
+import { integrateDop853 } from '../orbit/integrator.js';
 import { requireConstantSet, requireEccentricity, requireFinite, requireInRange, requireOrbitRadius } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 
@@ -163,6 +164,13 @@ function meanJ2Potential(a: number, e: number, i: number, c: ConstantSet): numbe
 }
 
 /**
+ * Smallest perigee radius a(1 − e) for which {@link j2SecularClockRate} is documented, 25 000 km: above it the
+ * first-order formula agrees with the integrated proper time to < 1e-17 (test/reference/j2-secular-rate); below it
+ * the error reaches 1.0e-17 at 20 100 km (98.2°), 7.6e-16 (LEO, 51.6°), 2.5e-15 (sun-synchronous) and 2.2e-15 (Molniya) [C].
+ */
+export const J2_ANALYTIC_MIN_PERIGEE_RADIUS: Metres = 25_000_000;
+
+/**
  * Secular clock rate vs TT under J2 from a stated kind of semi-major axis.
  *
  * Formula [C] (first order in J2): rate = L_G + 3ε/c² − 4⟨U_J2⟩/c², with ε the conserved energy.
@@ -176,9 +184,13 @@ function meanJ2Potential(a: number, e: number, i: number, c: ConstantSet): numbe
  * @param orbit `{ semiMajorAxis (m), eccentricity, inclination (rad), semiMajorAxisKind, argumentOfLatitude (rad, required for osculating) }`.
  * @param constants default IERS 2010.
  * @returns {@link J2RateBreakdown}.
- * Accuracy: first order in J2 (≈ 1e-19 of rate neglected at GNSS altitude [C]); `osculating` assumes e ≈ 0.
- * Verified against the numerical integrator to < 1e-17 (SDK tests).
+ * Domain: perigee radius a(1 − e) ≥ {@link J2_ANALYTIC_MIN_PERIGEE_RADIUS} (25 000 km: GNSS MEO, IGSO, GEO).
+ * Accuracy there: first order in J2; `mean` (with time-averaged osculating a, e, i) agrees with the long-run slope of the
+ * integrated proper time to < 1e-17 (measured ≈ 1e-18 for GNSS MEO and GEO, test/reference/j2-secular-rate);
+ * `osculating` assumes e ≈ 0. Below 25 000 km (LEO, HEO perigees) the first-order averaging errs by up to a few
+ * 1e-15 and the function refuses: use {@link j2SecularClockRateFromState}.
  * @throws {InvalidArgumentError} for a non-plausible a, e outside [0, 1), i outside [0, π], an unknown kind, or a missing u.
+ * @throws {OutOfDomainError} for a perigee radius below 25 000 km.
  * @see IERS Conventions (2010) §10.2 [V1]; Kouba (2004) abstract ("up to 0.2 ns/day") [V2]; our own derivation [C].
  */
 export function j2SecularClockRate(orbit: { semiMajorAxis: Metres; eccentricity: Dimensionless; inclination: Radians;
@@ -192,6 +204,12 @@ export function j2SecularClockRate(orbit: { semiMajorAxis: Metres; eccentricity:
   if (kind !== 'mean' && kind !== 'osculating') {
     throw new InvalidArgumentError('orbit.semiMajorAxisKind', kind, '"mean" or "osculating"',
       'the rate differs by up to ≈ 1.6e-14 (1.3 ns/day at GPS altitude) between the two');
+  }
+  const perigee = a * (1 - e);
+  if (perigee < J2_ANALYTIC_MIN_PERIGEE_RADIUS) {
+    throw new OutOfDomainError('orbit.semiMajorAxis × (1 − orbit.eccentricity)', perigee, `${J2_ANALYTIC_MIN_PERIGEE_RADIUS} m`, '∞',
+      'the first-order averaged formula errs by up to a few 1e-15 of rate at LEO and for HEO perigees; ' +
+      'use j2SecularClockRateFromState with the orbit\'s state vector there');
   }
   const c2 = SPEED_OF_LIGHT_SQUARED;
   const meanU = meanJ2Potential(a, e, i, constants);
@@ -217,23 +235,89 @@ export function j2SecularClockRate(orbit: { semiMajorAxis: Metres; eccentricity:
   };
 }
 
+/** Number of Kepler periods of the averaging window of {@link j2SecularClockRateFromState}. */
+export const J2_AVERAGING_ORBITS = 8;
+
+/**
+ * Time average ⟨U_J2⟩ (m²/s²) along the J2 orbit from a state, by numerical propagation (our own method [C]):
+ *   ⟨U_J2⟩ ≈ ∫ w(t)·U_J2(r(t)) dt / ∫ w(t) dt,  w(t) = sin⁴(πt/W),  W = 8 Kepler periods,
+ * with U_J2 = −(GM J2 a_e²/(2r³))(3z²/r² − 1) (IERS Conventions 2010 §10.2 form [V1]) and the orbit from
+ * {@link integrateDop853} under point mass + J2. The sin⁴ (Hann²) window's leakage falls as f⁻⁵
+ * (F. J. Harris, Proc. IEEE 66 (1978) 51–83, cosᵅ windows [M]), so the 1/rev and 2/rev terms of U_J2 leave
+ * < 1e-18 of rate; ∫w dt = 3W/8.
+ */
+function windowedMeanJ2Potential(p: readonly number[], v: readonly number[], period: number, constants: ConstantSet): number {
+  const gm = constants.gm;
+  const k = gm * constants.j2 * constants.equatorialRadius ** 2;
+  const rMin = constants.equatorialRadius;
+  const window = J2_AVERAGING_ORBITS * period;
+  const w = Math.PI / window;
+  const uJ2 = (x: number, y: number, z: number): number => {
+    const r2 = x * x + y * y + z * z;
+    return (-k / (2 * r2 * Math.sqrt(r2))) * ((3 * z * z) / r2 - 1);
+  };
+  const rhs = (t: number, y: Float64Array, dy: Float64Array): void => {
+    const x = y[0]!;
+    const yy = y[1]!;
+    const z = y[2]!;
+    const r2 = x * x + yy * yy + z * z;
+    const r = Math.sqrt(r2);
+    const r3 = r2 * r;
+    // ∇(GM/r + U_J2), as createGravityField('j2') (Montenbruck & Gill 2000 §3.2, zonal n = 2 [M]).
+    const s = (-1.5 * k) / (r3 * r2);
+    const q = (5 * z * z) / r2;
+    dy[0] = y[3]!;
+    dy[1] = y[4]!;
+    dy[2] = y[5]!;
+    dy[3] = (-gm * x) / r3 + s * x * (1 - q);
+    dy[4] = (-gm * yy) / r3 + s * yy * (1 - q);
+    dy[5] = (-gm * z) / r3 + s * z * (3 - q);
+    dy[6] = Math.sin(w * t) ** 4 * uJ2(x, yy, z);
+  };
+  const scale = Math.abs(k) / rMin ** 3;
+  const rtol = 1e-12;
+  const result = integrateDop853(rhs, 0, [p[0]!, p[1]!, p[2]!, v[0]!, v[1]!, v[2]!, 0], window, {
+    relativeTolerance: rtol,
+    absoluteTolerance: [rtol, rtol, rtol, rtol * 1e-3, rtol * 1e-3, rtol * 1e-3, rtol * scale * period],
+    sampleTimes: [window],
+    onStep(t, y) {
+      const r = Math.hypot(y[0]!, y[1]!, y[2]!);
+      if (r <= rMin) {
+        throw new OutOfDomainError('trajectory radius', r, `${rMin} m (the Earth's equatorial radius)`, '∞',
+          `the orbit from this state enters the Earth by t = ${t} s; check the state (units m and m/s)`);
+      }
+    },
+  });
+  return result.samples[6]! / ((3 * window) / 8);
+}
+
 /**
  * Secular clock rate vs TT under J2 from an osculating state (exact energy, no choice of a to get wrong):
  *   rate = L_G + 3ε/c² − 4⟨U_J2⟩/c²,  ε = v²/2 − GM/r − U_J2(r)  (conserved),
- * with ⟨U_J2⟩ evaluated for the osculating a, e, i of the state.
+ * where ⟨U_J2⟩ is the long-run time average of U_J2 along the actual J2 orbit. The formula is exact in the
+ * axisymmetric field: with U = GM/r + U_J2, the virial identity ⟨d(r·v)/dt⟩ = 0 gives ⟨v²⟩ = ⟨GM/r⟩ + 3⟨U_J2⟩
+ * (U_J2 is homogeneous of degree −3), so ⟨U + v²/2⟩ = −3ε + 4⟨U_J2⟩ [C]. ⟨U_J2⟩ is computed by propagating the
+ * orbit over {@link J2_AVERAGING_ORBITS} Kepler periods with a smooth window (not from osculating elements,
+ * whose first-order averaging formula is off by ≈ 1e-15 of rate at LEO).
  *
  * @param state Geocentric inertial position (m) and velocity (m/s), z along the rotation axis.
  * @param constants default IERS 2010.
- * @returns {@link J2RateBreakdown} with `semiMajorAxisKind: 'osculating'` and a = −GM/(2(v²/2 − GM/r)).
- * Accuracy: first order in J2 in ⟨U_J2⟩ only (the energy term is exact); agrees with the numerical
- * integrator's fitted rate to < 1e-17 (SDK tests).
+ * @returns {@link J2RateBreakdown} with `semiMajorAxisKind: 'osculating'` and a = −GM/(2(v²/2 − GM/r));
+ *   `meanJ2Potential` is the propagated ⟨U_J2⟩.
+ * Accuracy: agrees with the long-run slope of {@link integrateProperTime} (model `j2`, whole-orbit sampling over
+ * 20–40 orbits) to < 2e-17 for LEO (7000 km, 51.6°), sun-synchronous (7078 km, 98.2°), GNSS MEO, GEO and Molniya
+ * (e = 0.74, 63.4°) orbits (test/reference/j2-terms). Long-period terms (ω precession of an eccentric orbit) are
+ * averaged only over the 8-orbit window: the rate is the mean over the next 8 orbits.
+ * Cost: one propagation of 8 orbits (≈ 1–2 thousand integrator steps).
  * @throws {InvalidArgumentError} for a non-finite state, a position inside the Earth or an unbound orbit.
- * @see IERS Conventions (2010) §10.2 eq. 10.9 [V1]; our own derivation [C] (see the module comment).
+ * @throws {OutOfDomainError} if the orbit from the state enters the Earth within the averaging window.
+ * @see IERS Conventions (2010) §10.2 eq. 10.9 [V1]; our own derivation and method [C] (see the module comment).
  */
 export function j2SecularClockRateFromState(state: StateVector, constants: ConstantSet = DEFAULT_CONSTANT_SET): J2RateBreakdown {
   requireConstantSet('constants', constants);
   const { position: p, velocity: v } = requireStateVector(state);
   const r = requireOrbitRadius('|state.position|', Math.hypot(p[0], p[1], p[2]));
+  if (r <= constants.equatorialRadius) throw new InvalidArgumentError('|state.position|', r, `above the Earth's equatorial radius (${constants.equatorialRadius} m)`);
   const gm = constants.gm;
   const c2 = SPEED_OF_LIGHT_SQUARED;
   const v2 = v[0] ** 2 + v[1] ** 2 + v[2] ** 2;
@@ -242,11 +326,8 @@ export function j2SecularClockRateFromState(state: StateVector, constants: Const
   const a = -gm / (2 * keplerEnergy);
   const uJ2 = (-(gm * constants.j2 * constants.equatorialRadius ** 2) / (2 * r ** 3)) * ((3 * p[2] ** 2) / r ** 2 - 1);
   const energy = keplerEnergy - uJ2;
-  const h = [p[1] * v[2] - p[2] * v[1], p[2] * v[0] - p[0] * v[2], p[0] * v[1] - p[1] * v[0]] as const;
-  const hn = Math.hypot(h[0], h[1], h[2]);
-  const inc = Math.acos(Math.max(-1, Math.min(1, h[2] / hn)));
-  const e = Math.min(Math.sqrt(Math.max(0, 1 - (hn * hn) / (gm * a))), 0.999999);
-  const meanU = meanJ2Potential(a, e, inc, constants);
+  const period = 2 * Math.PI * Math.sqrt(a ** 3 / gm);
+  const meanU = windowedMeanJ2Potential(p, v, period, constants);
   const rate = constants.lG + (3 * energy) / c2 - (4 * meanU) / c2;
   const pointMassRate = constants.lG - (1.5 * gm) / (a * c2);
   return {

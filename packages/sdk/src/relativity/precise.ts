@@ -22,6 +22,8 @@ export const DEFAULT_LAGRANGE_POINTS = 9;
 
 /** Radius below which a "position" cannot be a satellite's, in metres (WGS 84 equatorial radius). */
 const EARTH_RADIUS = 6_378_137;
+/** Largest geocentric distance the relativity functions accept (internal/validate.ts `requireOrbitRadius`), in metres. */
+const MAX_ORBIT_RADIUS = 1e10;
 
 /**
  * Derivative, at node `index`, of the Lagrange polynomial through (times[j], values[j]).
@@ -271,14 +273,21 @@ export class PreciseCorrectionStream {
       else if (Math.hypot(p[0], p[1], p[2]) <= EARTH_RADIUS) {
         missing = 'position inside the Earth (not a satellite position)';
         p = undefined;
+      } else if (Math.hypot(p[0], p[1], p[2]) > MAX_ORBIT_RADIUS) {
+        missing = `position farther than ${MAX_ORBIT_RADIUS} m from the geocentre (outside the range of the clock-rate model)`;
+        p = undefined;
       }
       if (p) this._nodesOf(rec.satellite).push({ t: epoch.scaleSeconds, p });
       const v = this._alwaysInterpolate ? undefined : rec.velocity;
       this._queueOf(rec.satellite).push({ time: epoch.time, t: epoch.scaleSeconds, p, v, ...(missing ? { missing } : {}) });
     }
-    // Satellites that were seen before but have no record at this epoch.
-    for (const sat of this._queues.keys()) {
-      if (!present.has(sat)) this._queueOf(sat).push({ time: epoch.time, t: epoch.scaleSeconds, p: undefined, v: undefined, missing: 'no record at this epoch' });
+    // Satellites listed in the file's header without a record at this epoch (the reader's list), and any
+    // satellite seen before that has none: each is a gap at this epoch, never skipped.
+    const absent = new Set<string>();
+    for (const sat of epoch.missingSatellites ?? []) if (!present.has(sat) && (!this._filter || this._filter.has(sat))) absent.add(sat);
+    for (const sat of this._queues.keys()) if (!present.has(sat)) absent.add(sat);
+    for (const sat of absent) {
+      this._queueOf(sat).push({ time: epoch.time, t: epoch.scaleSeconds, p: undefined, v: undefined, missing: 'no record at this epoch' });
     }
     for (const sat of this._queues.keys()) this._drain(sat, epoch.scaleSeconds, false, out);
     return out;

@@ -19,7 +19,8 @@ import {
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 import { integrateDop853 } from '../orbit/integrator.js';
 import { createGravityField, GRAVITY_MODELS, type GravityModel } from '../orbit/forces.js';
-import { LOW_PRECISION_EPHEMERIS_NAME } from '../orbit/ephemeris.js';
+import { LOW_PRECISION_EPHEMERIS_NAME, moonPositionAt } from '../orbit/ephemeris.js';
+import { MOON_MEAN_RADIUS } from './reference-clocks.js';
 
 /** Largest number of output samples one call may return. */
 export const MAX_PROPER_TIME_SAMPLES = 10_000_000;
@@ -37,6 +38,8 @@ export interface ProperTimeOptions {
    * rtol × 1 m, rtol × 1e-3 m/s and rtol × 1e-4 s for position, velocity and τ − TT.
    */
   relativeTolerance?: number;
+  /** Called after each accepted integrator step with the time reached and the duration, both in seconds (e.g. for a progress bar). */
+  onProgress?: (reachedSeconds: Seconds, durationSeconds: Seconds) => void;
 }
 
 /** Result of {@link integrateProperTime}. */
@@ -82,7 +85,7 @@ const MAX_PROPER_TIME_DURATION = 1e10;
  * @returns Samples of τ − TT and the state.
  * @throws {InvalidArgumentError} for a non-finite state, a position inside the Earth (with a km hint),
  *   duration ≤ 0, step ≤ 0 or larger than the duration, too many samples, or an unknown model.
- * @throws {OutOfDomainError} if the trajectory enters the Earth during the integration.
+ * @throws {OutOfDomainError} if the trajectory enters the Earth (or, for `full`, the Moon) during the integration.
  * @throws {ConvergenceError} if the integrator cannot meet the tolerance.
  * @see IERS Conventions (2010), IERS TN 36, §10.2 eqs. 10.6–10.9 [V1]; Hairer, Nørsett & Wanner (1993) §II.5–II.6 [M].
  */
@@ -140,6 +143,16 @@ export function integrateProperTime(state: StateVector, duration: Seconds, step:
       if (r <= rMin) {
         throw new OutOfDomainError('trajectory radius', r, `${rMin} m (the Earth's equatorial radius)`, '∞',
           `the orbit enters the Earth by t = ${t} s after the start; check the state (units m and m/s)`);
+      }
+      options.onProgress?.(t, duration);
+      if (model === 'full') {
+        // A lunar orbiter that decays: the Moon's mean radius (IAU WGCCRE [M]) bounds its trajectory.
+        const m = moonPositionAt(epoch, t, true);
+        const rho = Math.hypot(y[0]! - m[0], y[1]! - m[1], y[2]! - m[2]);
+        if (rho <= MOON_MEAN_RADIUS) {
+          throw new OutOfDomainError('distance from the Moon\'s centre', rho, `${MOON_MEAN_RADIUS} m (the Moon's mean radius)`, '∞',
+            `the orbit hits the Moon by t = ${t} s after the start; check the state and the epoch`);
+        }
       }
     },
   });

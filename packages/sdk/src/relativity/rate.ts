@@ -9,6 +9,7 @@
 import type { Dimensionless, Metres } from '../units.js';
 import { DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
+import { FLIGHT_CONFIGURATION_CAUTION } from '../caution.js';
 import { requireConstantSet, requireFinite, requireOptions, requireOrbitRadius } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 
@@ -50,6 +51,8 @@ export interface RateBreakdown {
   constants: string;
   /** Semi-major axis the rate was computed for, in metres. */
   semiMajorAxis: Metres;
+  /** The factory offset feeds a flight configuration: {@link FLIGHT_CONFIGURATION_CAUTION}. */
+  caution: string;
 }
 
 /**
@@ -130,6 +133,7 @@ export function meanClockRate(semiMajorAxis: Metres, options?: RateOptions): Rat
     reference,
     constants: constants.name,
     semiMajorAxis: a,
+    caution: FLIGHT_CONFIGURATION_CAUTION,
   };
 }
 

@@ -9,7 +9,9 @@ import { CONSTANT_SETS, DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQ
   type ConstantSet } from '../constants.js';
 import { meanClockRate, semiMajorAxisForMeanRate, type ReferenceClock } from '../relativity/rate.js';
 import { j2SecularClockRate, osculatingMinusMeanSemiMajorAxis } from '../relativity/j2.js';
+import { InvalidArgumentError } from '../errors.js';
 import { createRandom, MAX_SEED } from '../internal/random.js';
+import { normalCdf } from '../internal/special-functions.js';
 import { requireInRange, requireInteger, requireOptions } from '../internal/validate.js';
 import type {
   ConfiguredOffset, Diagnosis, DispersionAnalysis, ReviewReport, ReviewSpacecraft, SpacecraftFinding, Verdict,
@@ -29,6 +31,11 @@ export interface ReviewOptions {
   readonly monteCarloRuns?: number;
   /** Seed of the dispersion Monte Carlo, an integer in [0, 2^32 − 1] (default 1), so reports are reproducible. */
   readonly seed?: number;
+  /**
+   * Called during the dispersion Monte Carlo with the draws done and the draws in all (over every
+   * spacecraft with a dispersion), e.g. for a progress bar; at most about 200 calls per run.
+   */
+  readonly onProgress?: (done: number, total: number) => void;
   /** Default tolerance when neither the file nor the spacecraft gives one, in (0, 1e-6) (default 1e-12). */
   readonly defaultToleranceFractional?: number;
 }
@@ -167,20 +174,31 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
   const seed = options.seed === undefined ? 1 : requireInteger('options.seed', options.seed, 0, MAX_SEED);
   const defaultTolerance = requireInRange('options.defaultToleranceFractional', options.defaultToleranceFractional ?? 1e-12, 0, 1e-6,
     { minExclusive: true, maxExclusive: true, unit: '(fractional frequency)' });
+  if (options.onProgress !== undefined && typeof options.onProgress !== 'function') {
+    throw new InvalidArgumentError('options.onProgress', options.onProgress, 'a function (done, total) => void (or omitted)');
+  }
 
   const resolved = input.spacecraft.map((sc) => {
     const set = constantSet(sc.constants ?? input.constants ?? DEFAULT_CONSTANT_SET.name);
     const reference: ReferenceClock = sc.reference ?? input.reference ?? 'tt';
     const rate = meanClockRate(sc.orbit.semiMajorAxis, { constants: set, reference });
     const kind = sc.orbit.semiMajorAxisKind;
-    const j2 = j2SecularClockRate({
+    // Only when the kind of a is stated (the J2 term is not applied otherwise); j2SecularClockRate refuses perigees below 25 000 km.
+    const j2 = kind ? j2SecularClockRate({
       semiMajorAxis: sc.orbit.semiMajorAxis, eccentricity: sc.orbit.eccentricity ?? 0, inclination: sc.orbit.inclination ?? 0,
-      semiMajorAxisKind: kind ?? 'mean', ...(kind === 'osculating' ? { argumentOfLatitude: sc.orbit.argumentOfLatitude! } : {}),
-    }, set).j2Correction;
+      semiMajorAxisKind: kind, ...(kind === 'osculating' ? { argumentOfLatitude: sc.orbit.argumentOfLatitude! } : {}),
+    }, set).j2Correction : 0;
     const totalRate = rate.fractionalRate + (kind ? j2 : 0);
     return { sc, set, reference, rate, j2, totalRate, expected: offsetForRate(totalRate) };
   });
 
+  // Monte Carlo progress over all spacecraft with a dispersion: draws done before the current one, plus its own.
+  const totalDraws = runs * resolved.filter((r) => r.sc.dispersion).length;
+  let drawsBefore = 0;
+  const progress = options.onProgress === undefined ? undefined : (done: number): void => {
+    options.onProgress!(drawsBefore + done, totalDraws);
+    if (done === runs) drawsBefore += runs;
+  };
   const findings = resolved.map(({ sc, set, reference, rate, j2, totalRate, expected }, index): SpacecraftFinding => {
     const nominal = sc.nominalFrequencyHz;
     const tolerance = sc.tolerance?.fractional ?? input.tolerance?.fractional ?? defaultTolerance;
@@ -256,7 +274,7 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
     const actuator = sc.actuator ?? input.actuator;
     const phaseTolerance = sc.phaseToleranceSeconds ?? input.phaseToleranceSeconds ?? null;
     const dispersion = sc.dispersion
-      ? analyseDispersion(sc, set, reference, configured, actuator?.rangeFractional ?? null, phaseTolerance, runs, (seed + index) % (MAX_SEED + 1))
+      ? analyseDispersion(sc, set, reference, configured, actuator?.rangeFractional ?? null, phaseTolerance, runs, (seed + index) % (MAX_SEED + 1), progress)
       : null;
     if (dispersion && actuator && dispersion.actuatorCovers === false) {
       verdict = 'fail';
@@ -311,11 +329,17 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
   };
 }
 
-/** Percentiles at ±1σ, ±2σ, ±3σ of a normal distribution, 100·Φ(k) (computed [C]). */
-const PERCENTILES = [0.135, 2.275, 15.866, 50, 84.134, 97.725, 99.865];
+/** The dispersion percentiles sit at a0 + kσ for these k (±1σ, ±2σ, ±3σ and the median). */
+const SIGMA_MULTIPLES = [-3, -2, -1, 0, 1, 2, 3];
+
+/** Percentile 100·Φ(k) of a standard normal, rounded to 3 decimals as reported (Φ by the SDK's normalCdf [C]). */
+function percentileAt(k: number): number {
+  return Math.round(100_000 * normalCdf(k)) / 1000;
+}
 
 function analyseDispersion(sc: ReviewSpacecraft, set: ConstantSet, reference: ReferenceClock, configured: number,
-  actuatorRange: number | null, phaseTolerance: number | null, runs: number, seed: number): DispersionAnalysis {
+  actuatorRange: number | null, phaseTolerance: number | null, runs: number, seed: number,
+  onProgress?: (done: number) => void): DispersionAnalysis {
   const a0 = sc.orbit.semiMajorAxis;
   const sigma = sc.dispersion!.semiMajorAxisSigma;
   // In orbit the configured oscillator runs at (1 + c)(1 + r(a)) − 1 against the reference (product of the two rates).
@@ -326,14 +350,28 @@ function analyseDispersion(sc: ReviewSpacecraft, set: ConstantSet, reference: Re
   const nominal = residual(a0);
   const plus = residual(a0 + 3 * sigma);
   const worst = Math.max(Math.abs(minus), Math.abs(plus), Math.abs(nominal));
+  // Closed form: a ~ N(a0, σ²) and residual(a) is strictly increasing in a (dr/da = 3GM/(2a²c²)·(1 + c) > 0),
+  // so the p-quantile of the residual is residual(a0 + z_p σ) (quantile of a monotone function = function of
+  // the quantile; elementary probability, common practice, no source).
+  const percentiles = SIGMA_MULTIPLES.map((k) => {
+    const a = a0 + k * sigma;
+    const r = residual(a);
+    return { percentile: percentileAt(k), semiMajorAxis: a, residualFractionalRate: r, daysToPhaseTolerance: days(r) };
+  });
+  // Sampling cross-check of the same percentiles (one Gaussian input: it adds no information to the closed
+  // form; kept so that reports keep their seeded sample and runs/seed options, and tested to agree).
   const random = createRandom(seed);
   const draws = new Float64Array(runs);
-  for (let i = 0; i < runs; i++) draws[i] = a0 + sigma * random.normal();
+  const every = Math.max(1, Math.ceil(runs / 200));
+  for (let i = 0; i < runs; i++) {
+    draws[i] = a0 + sigma * random.normal();
+    if (onProgress && ((i + 1) % every === 0 || i + 1 === runs)) onProgress(i + 1);
+  }
   draws.sort();
-  const percentiles = PERCENTILES.map((p) => {
-    const a = draws[Math.min(runs - 1, Math.max(0, Math.round((p / 100) * (runs - 1))))]!;
+  const sampled = percentiles.map(({ percentile }) => {
+    const a = draws[Math.min(runs - 1, Math.max(0, Math.round((percentile / 100) * (runs - 1))))]!;
     const r = residual(a);
-    return { percentile: p, semiMajorAxis: a, residualFractionalRate: r, daysToPhaseTolerance: days(r) };
+    return { percentile, semiMajorAxis: a, residualFractionalRate: r, daysToPhaseTolerance: days(r) };
   });
   return {
     semiMajorAxisSigma: sigma,
@@ -345,6 +383,7 @@ function analyseDispersion(sc: ReviewSpacecraft, set: ConstantSet, reference: Re
     phaseToleranceSeconds: phaseTolerance,
     daysToPhaseToleranceWorst: days(worst),
     actuatorCovers: actuatorRange === null ? null : worst <= actuatorRange,
-    monteCarlo: { runs, seed, percentiles },
+    percentiles,
+    monteCarlo: { runs, seed, percentiles: sampled },
   };
 }

@@ -6,7 +6,7 @@
  */
 import { SECONDS_PER_DAY } from '../constants.js';
 import type { ReviewReport, SpacecraftFinding, Verdict } from './types.js';
-import { requireReviewReport } from './report-shape.js';
+import { requireReviewReport, requireSpacecraftFinding } from './report-shape.js';
 import { InvalidArgumentError } from '../errors.js';
 
 const VERDICT_MARK: Record<Verdict, string> = { pass: 'PASS', marginal: 'MARGINAL', fail: 'FAIL' };
@@ -25,34 +25,74 @@ function f(x: number | null, digits = 3): string {
 
 const usPerDay = (fraction: number) => fraction * SECONDS_PER_DAY * 1e6;
 
+/**
+ * Why a spacecraft that is not a plain pass got its verdict when no recognised mistake explains it
+ * (its `diagnosis` is empty); undefined for a pass or when findings explain it. Shared by the text,
+ * Markdown and HTML reports, so a MARGINAL or FAIL verdict never stands without a reason.
+ */
+export function verdictExplanation(s: SpacecraftFinding): string | undefined {
+  return explanation(requireSpacecraftFinding('finding', s));
+}
+
+/** {@link verdictExplanation} of a finding already checked (the renderers check the whole report once). */
+function explanation(s: SpacecraftFinding): string | undefined {
+  if (s.verdict === 'pass' || s.diagnosis.length > 0) return undefined;
+  const used = (100 * Math.abs(s.differenceFractional)) / s.toleranceFractional;
+  if (s.verdict === 'marginal') {
+    return `No recognised mistake matches. MARGINAL: the difference ${e(s.differenceFractional, 3)} is inside the tolerance ` +
+      `±${e(s.toleranceFractional, 2)} but uses ${used.toFixed(0)} % of it, more than the review's margin allows; ` +
+      'recompute the expected offset for this orbit and check how the configured value was derived.';
+  }
+  return `No recognised mistake matches. FAIL: the difference ${e(s.differenceFractional, 3)} is ${(used / 100).toFixed(1)} times ` +
+    `the tolerance ±${e(s.toleranceFractional, 2)}; recompute the expected offset from the orbit and the constants, ` +
+    'and check how the configured value was derived.';
+}
+
+/** Control characters (C0, DEL, C1), line/paragraph separators and bidirectional overrides. */
+const UNSAFE_CHARACTERS = /[\u0000-\u001f\u007f-\u009f\u2028\u2029\u202a-\u202e\u2066-\u2069]/g;
+
+/**
+ * Text from the review file (title, ids, messages quoting them) as one line of Markdown: control
+ * characters and line breaks shown escaped (`\x1B`, `\x0A`) so they can neither act on a terminal nor
+ * break the document's structure, and `|` escaped so a table cell stays one cell.
+ */
+function md(text: string): string {
+  return String(text).replace(UNSAFE_CHARACTERS, (c) => {
+    const n = c.charCodeAt(0);
+    return n < 0x100 ? `\\x${n.toString(16).toUpperCase().padStart(2, '0')}` : `\\u${n.toString(16).toUpperCase()}`;
+  }).replace(/\|/g, '\\|');
+}
+
 /** Markdown rendering: one summary table, then a section per spacecraft. */
 export function reviewToMarkdown(report: ReviewReport): string {
   requireReviewReport('report', report);
-  const lines: string[] = [`# ${report.title}`, '', `> ${report.caution}`, '',
+  const lines: string[] = [`# ${md(report.title)}`, '', `> ${report.caution}`, '',
     `Result: ${report.counts.pass} pass, ${report.counts.marginal} marginal, ${report.counts.fail} fail.`, '',
     '| spacecraft | verdict | expected offset | configured offset | difference | difference (ns/day) | tolerance |',
     '|---|---|---:|---:|---:|---:|---:|'];
   for (const s of report.spacecraft) {
-    lines.push(`| ${s.id} | ${VERDICT_MARK[s.verdict]} | ${e(s.expectedFractionalOffset, 6)} | ${e(s.configuredFractionalOffset, 6)} | ${e(s.differenceFractional, 3)} | ${f(s.differenceNanosecondsPerDay, 3)} | ${e(s.toleranceFractional, 2)} |`);
+    lines.push(`| ${md(s.id)} | ${VERDICT_MARK[s.verdict]} | ${e(s.expectedFractionalOffset, 6)} | ${e(s.configuredFractionalOffset, 6)} | ${e(s.differenceFractional, 3)} | ${f(s.differenceNanosecondsPerDay, 3)} | ${e(s.toleranceFractional, 2)} |`);
   }
   for (const s of report.spacecraft) {
-    lines.push('', `## ${s.id}: ${VERDICT_MARK[s.verdict]}`, '', s.summary, '',
-      `- Constants: ${s.constants}; reference: ${s.reference.toUpperCase()}; a = ${s.semiMajorAxis} m; nominal ${s.nominalFrequencyHz} Hz`,
+    lines.push('', `## ${md(s.id)}: ${VERDICT_MARK[s.verdict]}`, '', md(s.summary), '',
+      `- Constants: ${md(s.constants)}; reference: ${s.reference.toUpperCase()}; a = ${s.semiMajorAxis} m; nominal ${s.nominalFrequencyHz} Hz`,
       `- Expected output frequency: ${s.expectedFrequencyHz.toFixed(7)} Hz; configured: ${s.configuredFrequencyHz.toFixed(7)} Hz; difference ${e(s.differenceHz, 4)} Hz`,
       `- Rate budget: gravitational ${f(usPerDay(s.budget.gravitational), 4)} µs/day, velocity ${f(usPerDay(s.budget.velocity), 4)} µs/day, J2 ${f(usPerDay(s.budget.j2) * 1e3, 4)} ns/day (${s.budget.j2Included ? 'included' : 'not included: the kind of a is not stated'}), net ${f(usPerDay(s.budget.fractionalRate), 4)} µs/day; J2 osculating/mean-a ambiguity ${e(s.budget.j2Ambiguity, 2)}`);
     if (s.quantisationStepFractional !== null) lines.push(`- Tuning-word step: ${e(s.quantisationStepFractional, 3)} (fractional)`);
+    const why = explanation(s);
+    if (why) lines.push('', why);
     if (s.diagnosis.length > 0) {
       lines.push('', '| finding | would have produced | explanation |', '|---|---:|---|');
-      for (const d of s.diagnosis) lines.push(`| ${d.code}${d.matches ? '' : ' (note)'} | ${e(d.wouldHaveProduced, 6)} | ${d.message.replace(/\|/g, '\\|')} |`);
+      for (const d of s.diagnosis) lines.push(`| ${d.code}${d.matches ? '' : ' (note)'} | ${e(d.wouldHaveProduced, 6)} | ${md(d.message)} |`);
     }
     if (s.dispersion) {
       const d = s.dispersion;
       lines.push('', `Injection dispersion σa = ${d.semiMajorAxisSigma} m (rate sensitivity ${e(d.rateSensitivityPerMetre, 4)} per metre): residual rate ${e(d.residualAtMinus3Sigma, 3)} at −3σ, ${e(d.residualNominal, 3)} nominal, ${e(d.residualAtPlus3Sigma, 3)} at +3σ.` +
         (d.phaseToleranceSeconds === null ? ' No phase tolerance given, so no walk-off time.' : ` Unsteered, the clock leaves ±${d.phaseToleranceSeconds} s after ${f(d.daysToPhaseToleranceWorst, 2)} days at the worst 3σ residual.`) +
         (d.actuatorCovers === null ? '' : d.actuatorCovers ? ' The steering range covers it.' : ' The steering range does NOT cover it.'),
-        '', `Monte Carlo over the dispersion (${d.monteCarlo.runs} draws, seed ${d.monteCarlo.seed}):`, '',
+        '', `Residual across the dispersion (closed form: percentile of a at a0 + kσ; a seeded ${d.monteCarlo.runs}-draw Monte Carlo, seed ${d.monteCarlo.seed}, agrees within sampling error):`, '',
         '| percentile | a (m) | residual rate | days to phase tolerance |', '|---:|---:|---:|---:|');
-      for (const p of d.monteCarlo.percentiles) lines.push(`| ${p.percentile} | ${p.semiMajorAxis.toFixed(1)} | ${e(p.residualFractionalRate, 4)} | ${f(p.daysToPhaseTolerance, 2)} |`);
+      for (const p of d.percentiles) lines.push(`| ${p.percentile} | ${p.semiMajorAxis.toFixed(1)} | ${e(p.residualFractionalRate, 4)} | ${f(p.daysToPhaseTolerance, 2)} |`);
     }
   }
   return lines.join('\n') + '\n';
@@ -90,7 +130,7 @@ function budgetSvg(s: SpacecraftFinding): string {
 function dispersionSvg(s: SpacecraftFinding, actuatorRange: number | null): string {
   const d = s.dispersion;
   if (!d) return '';
-  const pts = d.monteCarlo.percentiles;
+  const pts = d.percentiles;
   const values = pts.map((p) => p.residualFractionalRate);
   const lo = Math.min(...values, actuatorRange !== null ? -actuatorRange : Infinity, 0);
   const hi = Math.max(...values, actuatorRange !== null ? actuatorRange : -Infinity, 0);
@@ -128,11 +168,12 @@ export function reviewToHtml(report: ReviewReport, actuatorRanges: Readonly<Reco
   const rows = report.spacecraft.map((s) => `<tr class="${s.verdict}"><th scope="row">${esc(s.id)}</th><td><span class="verdict ${s.verdict}">${VERDICT_MARK[s.verdict]}</span></td>` +
     `<td>${e(s.expectedFractionalOffset, 6)}</td><td>${e(s.configuredFractionalOffset, 6)}</td><td>${e(s.differenceFractional, 3)}</td><td>${f(s.differenceNanosecondsPerDay, 3)}</td><td>${e(s.toleranceFractional, 2)}</td></tr>`).join('');
   const sections = report.spacecraft.map((s) => {
-    const diag = s.diagnosis.length === 0 ? '<p>No findings.</p>' : `<table><caption>Findings</caption><thead><tr><th scope="col">code</th><th scope="col">would have produced</th><th scope="col">explanation</th></tr></thead><tbody>${
+    const why = explanation(s);
+    const diag = s.diagnosis.length === 0 ? `<p class="explanation">${why === undefined ? 'No findings.' : esc(why)}</p>` : `<table><caption>Findings</caption><thead><tr><th scope="col">code</th><th scope="col">would have produced</th><th scope="col">explanation</th></tr></thead><tbody>${
       s.diagnosis.map((d) => `<tr><td><code>${d.code}</code>${d.matches ? '' : ' <small>(note)</small>'}</td><td>${e(d.wouldHaveProduced, 6)}</td><td class="text">${esc(d.message)}</td></tr>`).join('')}</tbody></table>`;
     const disp = s.dispersion ? `<h3>Injection dispersion (σa = ${s.dispersion.semiMajorAxisSigma} m)</h3>${dispersionSvg(s, actuatorRanges[s.id] ?? null)}
-<table><caption>Monte Carlo over the dispersion: ${s.dispersion.monteCarlo.runs} draws, seed ${s.dispersion.monteCarlo.seed}</caption><thead><tr><th scope="col">percentile</th><th scope="col">a (m)</th><th scope="col">residual rate</th><th scope="col">days to phase tolerance</th></tr></thead><tbody>${
-      s.dispersion.monteCarlo.percentiles.map((p) => `<tr><td>${p.percentile}</td><td>${p.semiMajorAxis.toFixed(1)}</td><td>${e(p.residualFractionalRate, 4)}</td><td>${f(p.daysToPhaseTolerance, 2)}</td></tr>`).join('')}</tbody></table>` : '';
+<table><caption>Residual across the dispersion (closed form at a0 + kσ; Monte Carlo cross-check: ${s.dispersion.monteCarlo.runs} draws, seed ${s.dispersion.monteCarlo.seed})</caption><thead><tr><th scope="col">percentile</th><th scope="col">a (m)</th><th scope="col">residual rate</th><th scope="col">days to phase tolerance</th></tr></thead><tbody>${
+      s.dispersion.percentiles.map((p) => `<tr><td>${p.percentile}</td><td>${p.semiMajorAxis.toFixed(1)}</td><td>${e(p.residualFractionalRate, 4)}</td><td>${f(p.daysToPhaseTolerance, 2)}</td></tr>`).join('')}</tbody></table>` : '';
     return `<section><h2>${esc(s.id)} <span class="verdict ${s.verdict}">${VERDICT_MARK[s.verdict]}</span></h2><p>${esc(s.summary)}</p>
 <dl><dt>Constants / reference</dt><dd>${esc(s.constants)} / ${s.reference.toUpperCase()}</dd><dt>Semi-major axis</dt><dd>${s.semiMajorAxis} m</dd>
 <dt>Expected output frequency</dt><dd>${s.expectedFrequencyHz.toFixed(7)} Hz</dd><dt>Configured output frequency</dt><dd>${s.configuredFrequencyHz.toFixed(7)} Hz</dd>

@@ -6,7 +6,7 @@
  * @internal
  */
 import { InvalidArgumentError } from '../errors.js';
-import type { ReviewReport } from './types.js';
+import type { ReviewReport, SpacecraftFinding } from './types.js';
 
 type Shape = 'string' | 'number' | 'number|null' | 'boolean' | 'boolean|null' | readonly string[] | { readonly [k: string]: Shape }
   | { readonly arrayOf: Shape } | { readonly nullable: Shape };
@@ -15,7 +15,7 @@ const PERCENTILE: Shape = { percentile: 'number', semiMajorAxis: 'number', resid
 const DISPERSION: Shape = {
   semiMajorAxisSigma: 'number', rateSensitivityPerMetre: 'number', residualAtMinus3Sigma: 'number', residualNominal: 'number',
   residualAtPlus3Sigma: 'number', worstResidual: 'number', phaseToleranceSeconds: 'number|null', daysToPhaseToleranceWorst: 'number|null',
-  actuatorCovers: 'boolean|null', monteCarlo: { runs: 'number', seed: 'number', percentiles: { arrayOf: PERCENTILE } },
+  actuatorCovers: 'boolean|null', percentiles: { arrayOf: PERCENTILE }, monteCarlo: { runs: 'number', seed: 'number', percentiles: { arrayOf: PERCENTILE } },
 };
 const FINDING: Shape = {
   id: 'string', verdict: ['pass', 'marginal', 'fail'], constants: 'string', reference: ['tt', 'tcg'], nominalFrequencyHz: 'number',
@@ -55,4 +55,10 @@ function check(path: string, value: unknown, shape: Shape): void {
 export function requireReviewReport(argument: string, report: unknown): ReviewReport {
   check(argument, report, REPORT);
   return report as ReviewReport;
+}
+
+/** Throws an {@link InvalidArgumentError} naming the first field of `finding` that does not have the type of a spacecraft finding. */
+export function requireSpacecraftFinding(argument: string, finding: unknown): SpacecraftFinding {
+  check(argument, finding, FINDING);
+  return finding as SpacecraftFinding;
 }

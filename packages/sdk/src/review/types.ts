@@ -98,10 +98,11 @@ export interface Diagnosis {
   readonly matches: boolean;
 }
 
-/** Percentile row of the dispersion Monte Carlo. */
+/** Percentile row of the dispersion (closed form, or the Monte Carlo cross-check). */
 export interface DispersionPercentile {
+  /** Percentile in percent, 100·Φ(k) for a0 + kσ (3 decimals). */
   readonly percentile: number;
-  /** Semi-major axis drawn, in metres. */
+  /** Semi-major axis at that percentile (closed form a0 + kσ; Monte Carlo: the order statistic drawn), in metres. */
   readonly semiMajorAxis: Metres;
   /** Residual fractional rate of the configured clock in that orbit (positive = runs fast). */
   readonly residualFractionalRate: Dimensionless;
@@ -125,6 +126,12 @@ export interface DispersionAnalysis {
   readonly daysToPhaseToleranceWorst: number | null;
   /** Whether the actuator range covers the worst residual (null when no actuator range given). */
   readonly actuatorCovers: boolean | null;
+  /**
+   * Percentiles at a0 + kσ, k = −3 … 3, in closed form: the residual is monotone in a, so its quantile is the
+   * residual at the quantile of a.
+   */
+  readonly percentiles: readonly DispersionPercentile[];
+  /** Seeded Monte Carlo of the same percentiles: a sampling cross-check of `percentiles` (agrees within sampling error). */
   readonly monteCarlo: { readonly runs: number; readonly seed: number; readonly percentiles: readonly DispersionPercentile[] };
 }
 

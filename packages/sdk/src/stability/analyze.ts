@@ -12,7 +12,7 @@ import {
   hasMissing, ModifiedWorkspace, modifiedSum, secondDifferenceSum, segmentIndex, thirdDifferenceSum, totalSum, type TermSum,
 } from './kernels.js';
 import { identifyNoiseAt } from './noise-id.js';
-import { factorsForTaus, octaveFactors, toPhaseSeries } from './series.js';
+import { factorsForTaus, octaveFactors, phaseSeriesForReading } from './series.js';
 import {
   NOISE_ALPHA, STATISTIC_NAMES, type DeviationPoint, type NoiseEstimate, type NoiseSource, type NoiseType, type PhaseSeries,
   type StabilityAnalysis, type StabilityData, type StabilityRow, type StatisticEstimate, type StatisticName,
@@ -149,7 +149,7 @@ export interface DeviationOptions {
 export function deviations(statistic: StatisticName, data: StabilityData, options: DeviationOptions = {}): DeviationPoint[] {
   requireStatistic('statistic', statistic);
   requireOptions('options', options);
-  const p = new Prepared(toPhaseSeries(data));
+  const p = new Prepared(phaseSeriesForReading(data));
   const out: DeviationPoint[] = [];
   for (const m of resolveFactors(p.series, [statistic], options.taus)) {
     const point = computeAt(p, statistic, m);
@@ -159,18 +159,18 @@ export function deviations(statistic: StatisticName, data: StabilityData, option
 }
 
 /**
- * Lag-1 autocorrelation noise identification at several averaging times (see
- * {@link identifyNoiseAt} for the method). τ with too few points are omitted.
+ * Power-law noise identification at several averaging times by B1, R(n) and the lag-1
+ * autocorrelation (see {@link identifyNoiseAt} for the combination). τ with too few points are omitted.
  *
  * @param data     `{ phase, tau0 }` or `{ frequency, tau0 }`, NaN = missing.
  * @param options  Optional τ list (default octaves up to (N − 1)/2).
  * @returns One estimate per τ where the method applies.
  * @throws {InvalidArgumentError} for bad data or a τ that is not m·τ0.
- * @see W. J. Riley & C. A. Greenhall, "Power law noise identification using the lag 1 autocorrelation", 18th EFTF (2004) [M].
+ * @see W. J. Riley, NIST SP 1065 (2008) §5.6 [M section]; W. J. Riley & C. A. Greenhall, "Power law noise identification using the lag 1 autocorrelation", 18th EFTF (2004) [M].
  */
 export function identifyNoise(data: StabilityData, options: DeviationOptions = {}): NoiseEstimate[] {
   requireOptions('options', options);
-  const p = new Prepared(toPhaseSeries(data));
+  const p = new Prepared(phaseSeriesForReading(data));
   const out: NoiseEstimate[] = [];
   for (const m of resolveFactors(p.series, ['oadev'], options.taus)) {
     const e = identifyNoiseAt(p.series, p.seg, m);
@@ -185,7 +185,7 @@ export interface StabilityOptions extends DeviationOptions {
   readonly statistics?: readonly StatisticName[];
   /** Two-sided confidence level of the intervals, in (0, 1). Default {@link ONE_SIGMA_CONFIDENCE} (±1σ). */
   readonly confidence?: number;
-  /** Stated noise type for every τ; when absent it is identified per τ by the lag-1 method. */
+  /** Stated noise type for every τ; when absent it is identified per τ (B1, R(n), lag-1; see {@link identifyNoiseAt}). */
   readonly noise?: NoiseType;
 }
 
@@ -199,8 +199,8 @@ export const DEFAULT_STATISTICS: readonly StatisticName[] = ['oadev', 'mdev', 't
  * Stability analysis: the requested statistics at every τ, each with its number of terms,
  * equivalent degrees of freedom and chi-square confidence interval, and the noise type used.
  *
- * Noise per τ: the stated `noise` if given (source `stated`); else the lag-1 autocorrelation
- * identification at that τ (`lag1-acf`); where too few points remain for it, the type identified
+ * Noise per τ: the stated `noise` if given (source `stated`); else the identification at that τ
+ * by B1, R(n) and the lag-1 autocorrelation ({@link identifyNoiseAt}, NIST SP 1065 §5.6; `identified`); where too few points remain for it, the type identified
  * at the nearest shorter τ (`carried-from-shorter-tau`); when no τ could be identified at all
  * (series shorter than 32 points), white FM (`default-wfm`). The edf model of each statistic is
  * described at {@link equivalentDegreesOfFreedom}; intervals by {@link chiSquareInterval}.
@@ -218,7 +218,7 @@ export const DEFAULT_STATISTICS: readonly StatisticName[] = ['oadev', 'mdev', 't
  */
 export function analyzeStability(data: StabilityData, options: StabilityOptions = {}): StabilityAnalysis {
   requireOptions('options', options);
-  const series = toPhaseSeries(data);
+  const series = phaseSeriesForReading(data);
   const statistics = options.statistics ?? DEFAULT_STATISTICS;
   if (!Array.isArray(statistics) || statistics.length === 0) {
     throw new InvalidArgumentError('options.statistics', statistics, `a non-empty list of ${STATISTIC_NAMES.join(', ')}`);
@@ -263,7 +263,7 @@ export function analyzeStability(data: StabilityData, options: StabilityOptions 
       if (noiseEstimate) {
         lastIdentified = noiseEstimate;
         noise = noiseEstimate.noise;
-        noiseSource = 'lag1-acf';
+        noiseSource = 'identified';
       } else if (lastIdentified) {
         noise = lastIdentified.noise;
         noiseSource = 'carried-from-shorter-tau';

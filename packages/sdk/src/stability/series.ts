@@ -24,9 +24,21 @@ export function requireTau0(argument: string, tau0: unknown): number {
 }
 
 /** Copies `values` into a Float64Array, rejecting non-numbers, ±Infinity and |value| > `limit` (NaN = missing is kept). */
-function copySamples(argument: string, values: unknown, unit: string, limit: number): Float64Array {
+function copySamples(argument: string, values: unknown, unit: string, limit: number, copy = true): Float64Array {
   if (!(Array.isArray(values) || ArrayBuffer.isView(values))) {
     throw new InvalidArgumentError(argument, values, `an array of numbers (${unit}), NaN for a missing sample`);
+  }
+  if (values instanceof Float64Array) {
+    // Typed input (the common case for long records): a monomorphic scan for |v| > limit (±Infinity
+    // included; NaN compares false and stays a missing sample), then a bulk copy unless the caller reads
+    // it within this call only.
+    for (let i = 0; i < values.length; i++) {
+      const v = values[i]!;
+      if (v > limit || v < -limit) {
+        throw new InvalidArgumentError(`${argument}[${i}]`, v, `a finite number in ${unit} with |value| ≤ ${limit}, or NaN for a missing sample`);
+      }
+    }
+    return copy ? values.slice() : values;
   }
   const src = values as ArrayLike<unknown>;
   const out = new Float64Array(src.length);
@@ -113,6 +125,21 @@ function isPhaseSeries(value: unknown): value is PhaseSeries {
  *   or a sample is ±Infinity or not a number.
  */
 export function toPhaseSeries(data: StabilityData): PhaseSeries {
+  return phaseSeriesOf(data, true);
+}
+
+/**
+ * As {@link toPhaseSeries}, but a Float64Array of phase is validated and used in place rather than
+ * copied: for the statistics, which only read it during one synchronous call (a copy of 10^7 samples costs
+ * more than the statistic itself).
+ *
+ * @internal
+ */
+export function phaseSeriesForReading(data: StabilityData): PhaseSeries {
+  return phaseSeriesOf(data, false);
+}
+
+function phaseSeriesOf(data: StabilityData, copy: boolean): PhaseSeries {
   if (typeof data !== 'object' || data === null) {
     throw new InvalidArgumentError('data', data, 'an object { phase, tau0 } or { frequency, tau0 }');
   }
@@ -122,7 +149,7 @@ export function toPhaseSeries(data: StabilityData): PhaseSeries {
     throw new InvalidArgumentError('data', Object.keys(data), 'exactly one of `phase` (seconds) or `frequency` (dimensionless), plus `tau0`');
   }
   const tau0 = requireTau0('data.tau0', data.tau0);
-  if (hasPhase) return { phase: copySamples('data.phase', (data as { phase: unknown }).phase, 'seconds', MAX_ABS_PHASE), tau0, segmentStarts: [] };
+  if (hasPhase) return { phase: copySamples('data.phase', (data as { phase: unknown }).phase, 'seconds', MAX_ABS_PHASE, copy), tau0, segmentStarts: [] };
   return phaseFromFrequency((data as { frequency: ArrayLike<number> }).frequency, tau0);
 }
 

@@ -77,22 +77,31 @@ export type EdfModel =
   | 'terms';
 
 /** Where a row's noise type came from. */
-export type NoiseSource = 'stated' | 'lag1-acf' | 'carried-from-shorter-tau' | 'default-wfm';
+export type NoiseSource = 'stated' | 'identified' | 'carried-from-shorter-tau' | 'default-wfm';
 
-/** Result of the lag-1 autocorrelation noise identification at one averaging factor. */
+/** Result of the noise identification (B1, R(n), lag-1 autocorrelation; NIST SP 1065 §5.6) at one averaging factor. */
 export interface NoiseEstimate {
   readonly tau: Seconds;
   readonly m: number;
-  /** Estimated α (real, before rounding) of S_y(f) ∝ f^α. */
+  /** Lag-1 autocorrelation estimate of α (real, before rounding) of S_y(f) ∝ f^α. */
   readonly alphaEstimate: number;
-  /** α rounded to the nearest of 2, 1, 0, −1, −2. */
+  /** α of the identified noise type (2, 1, 0, −1 or −2), from the combined methods. */
   readonly alpha: number;
+  /** The identified noise type. */
   readonly noise: NoiseType;
-  /** Lag-1 autocorrelation of the (differenced) series that ended the procedure. */
+  /** Noise type the lag-1 estimate alone rounds to (reported for comparison; it decides only WPM/FPM at m = 1). */
+  readonly lag1Noise: NoiseType;
+  /** Measured B1 ratio (N-sample over Allan variance of the frequency averages at τ). */
+  readonly b1Ratio: number;
+  /** Number of frequency averages N the B1 ratio used. */
+  readonly b1Averages: number;
+  /** Measured R(m) = Mod σ²/σ², when it was used to separate WPM from FPM (m ≥ 2, μ = −2). */
+  readonly modifiedRatio: number | undefined;
+  /** Lag-1 autocorrelation of the (differenced) series that ended the lag-1 procedure. */
   readonly r1: number;
-  /** Number of differencing operations applied. */
+  /** Number of differencing operations the lag-1 procedure applied. */
   readonly differences: number;
-  /** Number of points the estimate used. */
+  /** Number of points the lag-1 estimate used. */
   readonly points: number;
 }
 
@@ -114,7 +123,7 @@ export interface StabilityRow {
   readonly noise: NoiseType;
   readonly alpha: number;
   readonly noiseSource: NoiseSource;
-  /** Identification detail when the lag-1 method ran at this τ. */
+  /** Identification detail when the identification ran at this τ. */
   readonly noiseEstimate: NoiseEstimate | undefined;
   readonly statistics: Partial<Record<StatisticName, StatisticEstimate>>;
 }

@@ -16,6 +16,7 @@ import {
   cumulativeFrequency, describeDuration, frac, frequencyLimitText, isoAt, ns, quantiseFrequency, quantisePhase, spacingOk, uplinkFor,
 } from './constraints.js';
 import { meanState, stateJumps, type InternalCommand, type StateJump } from './predict.js';
+import { admissibleSteps, boundaries, brakingModel } from './braking.js';
 import type { NormalizedScenario } from './scenario.js';
 
 /** Default fraction of the usable band at which the deadband acts. */
@@ -30,10 +31,29 @@ export const DEADBAND_REASON_PREFIX = 'deadband: ';
 export interface PlannerResult {
   commands: InternalCommand[];
   limits: string[];
+  /** Optimal planner only: the phase-weight scale it settled on and whether it kept the deadband schedule (re-planning reuses both). */
+  optimal?: { scale: number; deadbandKept: boolean };
 }
 
-/** Runs the deadband planner on top of the `fixed` (feed-forward) commands. */
-export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalCommand[]): PlannerResult {
+/** The deadband planner's own opportunities: grid times inside the windows, at least the minimum spacing apart. */
+function deadbandOpportunities(norm: NormalizedScenario): number[] {
+  const epochs: number[] = [];
+  for (const w of norm.windows) {
+    for (let t = w.start; t <= w.end + 1e-9 && t <= norm.horizon; t += norm.grid) {
+      if (epochs.length === 0 || t - epochs[epochs.length - 1]! >= norm.actuator.spacing - 1e-6) epochs.push(t);
+    }
+  }
+  return epochs;
+}
+
+/**
+ * Runs the deadband planner on top of the `fixed` (feed-forward) commands. Every frequency step
+ * is limited to the admissible steps of braking.ts on the deadband's own opportunities, so a
+ * saturated correction brakes in time instead of overshooting the opposite bound.
+ * `until` (seconds) stops it from placing commands at or after that time, and `notBefore` from
+ * placing any before it (re-planning: the spacing from commands already executed).
+ */
+export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalCommand[], until = Infinity, notBefore = -Infinity): PlannerResult {
   const spec = norm.strategy.method === 'deadband' ? norm.strategy : { method: 'deadband' as const };
   const theta = spec.thresholdFraction ?? DEFAULT_DEADBAND_THRESHOLD;
   const correctionTime = spec.correctionTimeSeconds ?? DEFAULT_CORRECTION_TIME;
@@ -51,10 +71,14 @@ export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalC
     return false;
   };
 
+  const opportunities = deadbandOpportunities(norm);
+  const braking = brakingModel(norm, boundaries(norm, fixed, opportunities));
+  const boundaryIndex = new Map(braking.bounds.map((b, i) => [b.t, i] as const));
   norm.windows.forEach((w, wi) => {
+    if (w.start >= until) return;
     const nextStart = wi + 1 < norm.windows.length ? norm.windows[wi + 1]!.start : norm.horizon;
-    for (let t = w.start; t <= w.end + 1e-9; t += norm.grid) {
-      if (!spacingOk(norm, commands, t)) continue;
+    for (let t = w.start; t <= w.end + 1e-9 && t < until; t += norm.grid) {
+      if (t < notBefore - 1e-6 || !spacingOk(norm, commands, t)) continue;
       const jumps = stateJumps(norm, commands);
       if (!exceedsBefore(t, nextStart, jumps)) continue;
       const [x, y, d] = meanState(norm, jumps, t);
@@ -74,13 +98,23 @@ export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalC
       }
       const execAt = phaseDone ? t + norm.actuator.spacing : t;
       const uplink = phaseDone ? uplinkFor(norm, execAt) : t;
-      if (uplink === undefined || execAt > norm.horizon || !spacingOk(norm, commands, execAt)) continue;
+      if (uplink === undefined || execAt > norm.horizon || execAt < notBefore - 1e-6 || !spacingOk(norm, commands, execAt)) continue;
       const xAtExec = phaseDone ? meanState(norm, stateJumps(norm, commands), execAt)[0] : x;
       const yAtExec = y + d * (execAt - t);
       const wanted = -(yAtExec + (d * gap) / 2) - (phaseDone ? 0 : xAtExec / correctionTime);
-      const q = quantiseFrequency(norm, wanted, cumulativeFrequency(norm, commands));
+      const cumulative = cumulativeFrequency(norm, commands);
+      let q = quantiseFrequency(norm, wanted, cumulative);
       if (q.limitedBy) {
         limits.push(`the needed step (${frac(wanted)}) ${q.limitedBy === 'maxStep' ? 'exceeds' : 'would leave'} ${frequencyLimitText(norm, q.limitedBy)}`);
+      }
+      const at = boundaryIndex.get(execAt);
+      let braked = false;
+      if (at !== undefined && braking.bounds[at]!.controllable) {
+        const adm = admissibleSteps(braking, at, [xAtExec, yAtExec, d], cumulative, q.steps);
+        if (adm.steps !== q.steps) {
+          braked = true;
+          q = { steps: adm.steps, amount: adm.steps * norm.actuator.resolution };
+        }
       }
       if (q.steps === 0) continue;
       commands.push({
@@ -88,7 +122,8 @@ export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalC
         reason: DEADBAND_REASON_PREFIX + (phaseDone
           ? `cancels the predicted frequency offset ${frac(yAtExec)} after the phase step`
           : `predicted offset would use more than ${Math.round(theta * 100)} % of the usable band before the next contact; ` +
-            `cancels frequency ${frac(yAtExec)} and steers out ${ns(xAtExec)} over ${describeDuration(correctionTime)}`),
+            `cancels frequency ${frac(yAtExec)} and steers out ${ns(xAtExec)} over ${describeDuration(correctionTime)}`) +
+          (braked ? '; step reduced so that the clock can still be braked without overshooting the opposite tolerance bound' : ''),
       });
     }
   });

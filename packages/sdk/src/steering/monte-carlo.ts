@@ -84,7 +84,7 @@ export function simulatePlan(scenario: unknown, plan: Pick<SteeringPlan, 'comman
     return l;
   };
   const l0 = choleskyPsd3(norm.covariance0);
-  const rng = createRandom(seed);
+  const rng = createRandom(seed, 'ziggurat');
   const inside = new Float64Array(grid.length);
   const perRunWorst = new Float64Array(runs);
   let insideTotal = 0;

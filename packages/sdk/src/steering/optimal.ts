@@ -37,14 +37,8 @@ import {
 import { expectedCost } from './cost.js';
 import { DEADBAND_REASON_PREFIX, planDeadband, type PlannerResult } from './deadband.js';
 import { checkTolerance, gridTimes, phaseSigmaAt, stateJumps, type ActuatorLimit, type InternalCommand } from './predict.js';
+import { boundaries, brakingModel, restViolation, admissibleSteps, type Boundary, type BrakingModel } from './braking.js';
 import type { NormalizedScenario } from './scenario.js';
-
-interface Boundary {
-  t: number;
-  dx: number;
-  dy: number;
-  controllable: boolean;
-}
 
 /** Candidate execution epochs: uplink-reachable, ≥ spacing apart and away from fixed commands. */
 export function decisionEpochs(norm: NormalizedScenario, fixed: readonly InternalCommand[], cadence: number): number[] {
@@ -64,28 +58,6 @@ export function decisionEpochs(norm: NormalizedScenario, fixed: readonly Interna
     }
   }
   return epochs;
-}
-
-function boundaries(norm: NormalizedScenario, fixed: readonly InternalCommand[], epochs: readonly number[]): Boundary[] {
-  const map = new Map<number, Boundary>();
-  const at = (t: number): Boundary => {
-    let b = map.get(t);
-    if (!b) {
-      b = { t, dx: 0, dy: 0, controllable: false };
-      map.set(t, b);
-    }
-    return b;
-  };
-  at(0);
-  at(norm.horizon);
-  for (const j of stateJumps(norm, fixed)) {
-    if (j.t >= norm.horizon) continue;
-    const b = at(j.t);
-    b.dx += j.dx;
-    b.dy += j.dy;
-  }
-  for (const t of epochs) if (t < norm.horizon) at(t).controllable = true;
-  return [...map.values()].sort((a, b) => a.t - b.t);
 }
 
 /** How each actuator limit is named in reasons: the scenario field that sets it. */
@@ -116,8 +88,24 @@ export function actuatorLimitMessages(norm: NormalizedScenario, commands: readon
   return messages;
 }
 
-/** One backward + forward pass with the phase weight multiplied by `scale`. */
-function lqPass(norm: NormalizedScenario, fixed: readonly InternalCommand[], bounds: readonly Boundary[], scale: number): InternalCommand[] {
+/** The backward (Riccati) pass of one phase-weight scale: the LQ value function at every boundary. */
+export interface OptimalModel {
+  norm: NormalizedScenario;
+  bounds: Boundary[];
+  stageS: Matrix3[];
+  stageG: number[][];
+  rF: number;
+  rP: number;
+  braking: BrakingModel;
+  /** The phase-weight multiplier the model was built with. */
+  scale: number;
+}
+
+/** Builds the boundaries and runs the backward pass with the phase weight multiplied by `scale`. */
+export function optimalModel(norm: NormalizedScenario, fixed: readonly InternalCommand[], scale: number): OptimalModel {
+  const cadence = norm.strategy.method === 'optimal' && norm.strategy.decisionIntervalSeconds !== undefined
+    ? norm.strategy.decisionIntervalSeconds : Math.max(norm.grid, norm.actuator.spacing);
+  const bounds = boundaries(norm, fixed, decisionEpochs(norm, fixed, cadence));
   const k = bounds.length - 1;
   const w = scale / (norm.bound * norm.bound * norm.horizon);
   const rF = norm.weights.frequencyStep / (norm.actuator.maxStep * norm.actuator.maxStep);
@@ -150,77 +138,133 @@ function lqPass(norm: NormalizedScenario, fixed: readonly InternalCommand[], bou
     vNext = [v[0]! + pj[0], v[1]! + pj[1], v[2]! + pj[2]];
     pNext = p;
   }
+  return { norm, bounds, stageS, stageG, rF, rP, braking: brakingModel(norm, bounds), scale };
+}
 
-  const commands: InternalCommand[] = [...fixed];
-  let state = [...norm.state0];
-  for (let i = 0; i < k; i++) {
+/** Where a forward pass starts: the first boundary at or after `t`, the mean state at `t` (before jumps at `t`), and the cumulative steering. */
+export interface ForwardStart {
+  t: number;
+  state: readonly number[];
+  /** Cumulative frequency steering of every command already decided (fixed ones included). */
+  cumulative: number;
+}
+
+interface Candidate {
+  cost: number;
+  kind: 'none' | 'frequency' | 'phase';
+  step: QuantisedStep;
+  violation: number;
+}
+
+/**
+ * The forward pass: at each controllable boundary from `start.t` until `until` (exclusive), the
+ * command minimising the LQ cost-to-go over the admissible steps (see braking.ts), after
+ * rounding to whole actuator steps; later steps are chosen from the rounded state, so they
+ * re-optimise what rounding left. Returns only the new commands. `explain` false skips the
+ * reason texts (Monte Carlo).
+ */
+export function forwardOptimal(model: OptimalModel, start: ForwardStart, until = Infinity, explain = true): InternalCommand[] {
+  const { norm, bounds, stageS, stageG, rF, rP } = model;
+  const made: InternalCommand[] = [];
+  let i = 0;
+  while (i < bounds.length - 1 && bounds[i]!.t < start.t) i++;
+  let state: [number, number, number] = propagateMean(start.state, bounds[i]!.t - start.t);
+  let cumulative = start.cumulative;
+  for (; i < bounds.length - 1; i++) {
     const b = bounds[i]!;
+    if (b.t >= until) break;
     state[0] += b.dx;
     state[1] += b.dy;
     if (b.controllable) {
-      const s = stageS[i]!;
-      const g = stageG[i]!;
-      const q = (dx: number, dy: number, charge: number): number => {
-        const z = [state[0]! + dx, state[1]! + dy, state[2]!];
-        return quadForm3(z, s) + 2 * (g[0]! * z[0]! + g[1]! * z[1]! + g[2]! * z[2]!) + charge;
-      };
-      let best = { cost: q(0, 0, 0), kind: 'none' as 'none' | 'frequency' | 'phase', step: { steps: 0, amount: 0 } as QuantisedStep };
-      const cumulative = cumulativeFrequency(norm, commands);
-      const uStar = -(s[1][0] * state[0]! + s[1][1] * state[1]! + s[1][2] * state[2]! + g[1]!) / (s[1][1] + rF);
-      for (const rounding of ['floor', 'ceil'] as const) {
-        const qs = quantiseFrequency(norm, uStar, cumulative, rounding);
-        if (qs.steps === 0) continue;
-        const c = q(0, qs.amount, rF * qs.amount * qs.amount + norm.weights.command);
-        if (c < best.cost) best = { cost: c, kind: 'frequency', step: qs };
-      }
-      if (norm.actuator.phaseAllowed) {
-        const pStar = -(s[0][0] * state[0]! + s[0][1] * state[1]! + s[0][2] * state[2]! + g[0]!) / (s[0][0] + rP);
-        for (const rounding of ['floor', 'ceil'] as const) {
-          const qs = quantisePhase(norm, pStar, rounding);
-          if (qs.steps === 0) continue;
-          const c = q(qs.amount, 0, rP * qs.amount * qs.amount + norm.weights.command);
-          if (c < best.cost) best = { cost: c, kind: 'phase', step: qs };
-        }
-      }
+      const best = chooseCommand(model, i, state, cumulative, stageS[i]!, stageG[i]!, rF, rP);
       if (best.kind !== 'none') {
         const uplink = uplinkFor(norm, b.t)!;
-        const before = `predicted offset ${ns(state[0]!)} and frequency ${frac(state[1]!)} before the step`;
         const limitedBy = actuatorLimitOf(best.kind, best.step);
-        commands.push({
+        const reason = explain ? `optimal (constrained LQ): predicted offset ${ns(state[0])} and frequency ${frac(state[1])} before the step; ` +
+          `this ${best.kind} step minimises the expected offset cost to the end of the horizon among the steps that let the clock be braked ` +
+          'without overshooting the opposite tolerance bound' + (limitedBy ? ` (limited by ${LIMIT_NAMES[limitedBy]})` : '') +
+          (best.violation > 0 ? `; no step avoids an overshoot of ${ns(best.violation)}: this one brakes hardest` : '') : '';
+        made.push({
           uplinkAt: uplink, executeAt: b.t, kind: best.kind, steps: best.step.steps, amount: best.step.amount, planner: 'optimal',
-          reason: `optimal (quantised LQ): ${before}; this ${best.kind} step minimises the expected offset cost to the end of the horizon` +
-            (limitedBy ? ` (limited by ${LIMIT_NAMES[limitedBy]})` : ''),
-          ...(limitedBy ? { limitedBy } : {}),
+          reason, ...(limitedBy ? { limitedBy } : {}),
         });
-        if (best.kind === 'frequency') state[1] += best.step.amount;
-        else state[0] += best.step.amount;
+        if (best.kind === 'frequency') {
+          state[1] += best.step.amount;
+          cumulative += best.step.amount;
+        } else state[0] += best.step.amount;
       }
     }
-    const delta = bounds[i + 1]!.t - b.t;
-    state = propagateMean(state, delta);
+    state = propagateMean(state, bounds[i + 1]!.t - b.t);
   }
-  commands.sort((a, b) => a.executeAt - b.executeAt);
-  return commands;
+  return made;
+}
+
+/** The cheapest admissible command at controllable boundary i (see forwardOptimal). */
+function chooseCommand(model: OptimalModel, i: number, state: readonly number[], cumulative: number,
+  s: Matrix3, g: number[], rF: number, rP: number): Candidate {
+  const { norm, braking } = model;
+  const q = (dx: number, dy: number, charge: number): number => {
+    const z = [state[0]! + dx, state[1]! + dy, state[2]!];
+    return quadForm3(z, s) + 2 * (g[0]! * z[0]! + g[1]! * z[1]! + g[2]! * z[2]!) + charge;
+  };
+  const violation = (dx: number, du: number): number =>
+    restViolation(braking, i, state[0]!, [state[0]! + dx, state[1]! + du, state[2]!], cumulative + du);
+  const candidates: Candidate[] = [{ cost: q(0, 0, 0), kind: 'none', step: { steps: 0, amount: 0 }, violation: violation(0, 0) }];
+  const res = norm.actuator.resolution;
+  const uStar = -(s[1][0] * state[0]! + s[1][1] * state[1]! + s[1][2] * state[2]! + g[1]!) / (s[1][1] + rF);
+  const tried = new Set<number>();
+  for (const rounding of ['floor', 'ceil'] as const) {
+    const wanted = quantiseFrequency(norm, uStar, cumulative, rounding);
+    const adm = admissibleSteps(braking, i, state, cumulative, wanted.steps);
+    if (adm.steps === 0 || tried.has(adm.steps)) continue;
+    tried.add(adm.steps);
+    const amount = adm.steps * res;
+    const step: QuantisedStep = adm.steps === wanted.steps ? wanted : { steps: adm.steps, amount };
+    candidates.push({ cost: q(0, amount, rF * amount * amount + norm.weights.command), kind: 'frequency', step, violation: adm.violation });
+  }
+  if (norm.actuator.phaseAllowed) {
+    const pStar = -(s[0][0] * state[0]! + s[0][1] * state[1]! + s[0][2] * state[2]! + g[0]!) / (s[0][0] + rP);
+    for (const rounding of ['floor', 'ceil'] as const) {
+      const qs = quantisePhase(norm, pStar, rounding);
+      if (qs.steps === 0) continue;
+      candidates.push({ cost: q(qs.amount, 0, rP * qs.amount * qs.amount + norm.weights.command), kind: 'phase', step: qs, violation: violation(qs.amount, 0) });
+    }
+  }
+  // Admissible candidates first (smallest violation), then the lowest cost.
+  let best = candidates[0]!;
+  for (const c of candidates) if (c.violation < best.violation || (c.violation === best.violation && c.cost < best.cost)) best = c;
+  return best;
 }
 
 /** Runs the optimal planner on top of the `fixed` (feed-forward) commands. */
 export function planOptimal(norm: NormalizedScenario, fixed: readonly InternalCommand[]): PlannerResult {
-  const cadence = norm.strategy.method === 'optimal' && norm.strategy.decisionIntervalSeconds !== undefined
-    ? norm.strategy.decisionIntervalSeconds : Math.max(norm.grid, norm.actuator.spacing);
-  const epochs = decisionEpochs(norm, fixed, cadence);
-  const bounds = boundaries(norm, fixed, epochs);
   // Raising the phase weight cannot help when z·σ alone exceeds the tolerance somewhere.
   // (A loop, not Math.max(...σ): a spread of more than ~125 000 grid points overflows the call stack.)
   let sigmaMax = 0;
   for (const sigma of phaseSigmaAt(norm, gridTimes(norm))) sigmaMax = Math.max(sigmaMax, sigma);
   const sigmaBound = sigmaMax * norm.z;
   const attempts = sigmaBound >= norm.bound ? 1 : 5;
+  // The phase weight is a tuning knob (the one-step look-ahead over whole steps with a per-command
+  // charge does not minimise J exactly): plans for weights 1, 10, … 10⁴ are compared and the one
+  // kept is the feasible one with the lowest expected cost J at the scenario's own weights or,
+  // when none is feasible, the one with the lowest J, so an unavoidable violation never buys an
+  // over-aggressive gain.
+  const start: ForwardStart = { t: 0, state: norm.state0, cumulative: cumulativeFrequency(norm, fixed) };
   let commands: InternalCommand[] = [];
   let ok = false;
-  for (let attempt = 0, scale = 1; attempt < attempts; attempt++, scale *= 10) {
-    commands = lqPass(norm, fixed, bounds, scale);
-    ok = checkTolerance(norm, stateJumps(norm, commands)).ok;
-    if (ok) break;
+  let scale = 1;
+  let bestCost = Infinity;
+  for (let attempt = 0, trial = 1; attempt < attempts; attempt++, trial *= 10) {
+    const planned = [...fixed, ...forwardOptimal(optimalModel(norm, fixed, trial), start)].sort((a, b) => a.executeAt - b.executeAt);
+    const feasible = checkTolerance(norm, stateJumps(norm, planned)).ok;
+    if (ok && !feasible) continue;
+    const cost = expectedCost(norm, planned).total;
+    if ((feasible && !ok) || cost < bestCost) {
+      bestCost = cost;
+      commands = planned;
+      scale = trial;
+      ok = feasible;
+    }
   }
   // Root-level safeguard: keep the deadband schedule when it is feasible and the LQ one is not,
   // or when both have the same feasibility and the deadband schedule has the lower expected cost.
@@ -233,8 +277,9 @@ export function planOptimal(norm: NormalizedScenario, fixed: readonly InternalCo
       commands: deadband.commands.map((c) => (c.planner === 'deadband'
         ? { ...c, reason: `optimal (deadband schedule kept: ${why}): ${c.reason.slice(DEADBAND_REASON_PREFIX.length)}` } : c)),
       limits: deadband.limits,
+      optimal: { scale, deadbandKept: true },
     };
   }
   // Only the LQ commands carry `limitedBy`; the feed-forward ones report their limits separately.
-  return { commands, limits: actuatorLimitMessages(norm, commands) };
+  return { commands, limits: actuatorLimitMessages(norm, commands), optimal: { scale, deadbandKept: false } };
 }

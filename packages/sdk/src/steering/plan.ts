@@ -11,7 +11,7 @@ import { expectedCost } from './cost.js';
 import { planDeadband, type PlannerResult } from './deadband.js';
 import { planOptimal } from './optimal.js';
 import {
-  checkTolerance, gridTimes, phaseSigmaAt, predictedSeries, probabilityWithin, stateJumps, type InternalCommand,
+  checkTolerance, gridTimes, phaseSigmaAt, predictedSeries, stateJumps, type InternalCommand,
 } from './predict.js';
 import { validateScenario, type NormalizedScenario } from './scenario.js';
 import { InvalidArgumentError } from '../errors.js';
@@ -51,12 +51,28 @@ export interface PredictedSeries {
   sigmaSeconds: number[];
 }
 
+/**
+ * Why a plan is infeasible, as a code:
+ * - `uncertainty`: z·σ alone reaches the tolerance (no schedule can help; re-plan from a fresh estimate);
+ * - `outside-at-epoch`: the clock is already outside the tolerance at the epoch;
+ * - `no-contact-in-time`: no command can execute before the offset leaves the tolerance;
+ * - `actuator-limit`: a step, range or phase-step limit cut a command the planner needed;
+ * - `unsteered`: the `none` method leaves the clock outside;
+ * - `planner`: the contacts and actuator could not hold it with this planner (try the other one).
+ */
+export type InfeasibilityCode = 'uncertainty' | 'outside-at-epoch' | 'no-contact-in-time' | 'actuator-limit' | 'unsteered' | 'planner';
+
 /** A steering plan: plain JSON-serialisable data. */
 export interface SteeringPlan {
-  /** True when |mean| + z·σ ≤ tolerance at every checked epoch of the horizon. */
+  /**
+   * True when the per-epoch probability P(|offset| ≤ tolerance) ≥ tolerance.probability at every
+   * checked epoch of the horizon (the grid and just before each phase step).
+   */
   feasible: boolean;
   /** Why the plan is infeasible (present only when `feasible` is false). */
   reason?: string;
+  /** The kind of `reason` (present only when `feasible` is false). */
+  reasonCode?: InfeasibilityCode;
   commands: SteeringCommand[];
   predicted: {
     /** Seconds since the scenario epoch. */
@@ -72,13 +88,23 @@ export interface SteeringPlan {
 export interface SteeringMetrics {
   /** Largest |mean steered offset| on the grid, in seconds. */
   worstPredictedOffsetSeconds: Seconds;
-  /** Largest |mean| + z·σ on the grid and at phase steps, in seconds (≤ tolerance when feasible). */
+  /**
+   * Largest |mean| + z·σ on the grid and at phase steps, in seconds. ≤ tolerance is a sufficient
+   * margin for the criterion (stricter than it when the mean is not zero), not the criterion.
+   */
   worstOffsetBoundSeconds: Seconds;
   /**
    * Smallest per-epoch probability that |offset| ≤ tolerance, Φ((b−m)/σ) − Φ((−b−m)/σ), over the
-   * grid. Per epoch, not for the whole horizon at once (see `simulatePlan` for that).
+   * grid and just before phase steps: the number `feasible` compares with tolerance.probability.
+   * Per epoch, not for the whole horizon at once (see `simulatePlan` for that).
    */
   probabilityInTolerance: number;
+  /**
+   * Seconds after the epoch from which every checked epoch to the end of the horizon meets the
+   * criterion (0 when the whole plan does); null when the last epoch fails. Tells a plan that
+   * is infeasible only while it steers a large initial error out from one that never settles.
+   */
+  settledAfterSeconds: Seconds | null;
   /** Number of commands. */
   commandCount: number;
   /** Σ |fractional frequency steps| (dimensionless). */
@@ -103,7 +129,7 @@ export function runPlanner(norm: NormalizedScenario, method: SteeringMethod): Pl
 }
 
 function diagnose(norm: NormalizedScenario, method: SteeringMethod, commands: readonly InternalCommand[],
-  limits: readonly string[], violation: { t: number; mean: number; sigma: number }): string {
+  limits: readonly string[], violation: { t: number; mean: number; sigma: number; probability: number }): { code: InfeasibilityCode; text: string } {
   const bound = norm.bound;
   const pct = `${Number((norm.probability * 100).toPrecision(6))} %`;
   // 1. Uncertainty alone: no schedule can help once z·σ ≥ b.
@@ -113,25 +139,25 @@ function diagnose(norm: NormalizedScenario, method: SteeringMethod, commands: re
     const t = times[i]!;
     const sigma = sigmas[i]!;
     if (norm.z * sigma >= bound) {
-      return `σ alone exceeds the tolerance after ${describeDuration(t)} (at ${isoAt(norm, t)}): ` +
+      return { code: 'uncertainty', text: `σ alone exceeds the tolerance after ${describeDuration(t)} (at ${isoAt(norm, t)}): ` +
         `z·σ = ${norm.z.toFixed(3)} × ${ns(sigma)} ≥ ±${ns(bound)} at ${pct}, whatever the commands. ` +
         'The prediction from the epoch estimate cannot promise the tolerance that far ahead: re-plan from a fresh clock ' +
-        'estimate before then, shorten horizonSeconds, or relax the tolerance.';
+        'estimate before then, shorten horizonSeconds, or relax the tolerance.' };
     }
   }
-  const where = `|mean| + z·σ = ${ns(Math.abs(violation.mean))} + ${norm.z.toFixed(3)} × ${ns(violation.sigma)} exceeds ±${ns(bound)} ` +
-    `at ${isoAt(norm, violation.t)} (${describeDuration(violation.t)} after the epoch)`;
-  if (violation.t === 0) return `the clock is already outside the tolerance at the epoch: ${where}.`;
+  const where = `the probability of |offset| ≤ ±${ns(bound)} is ${violation.probability.toFixed(4)} < ${norm.probability} ` +
+    `(mean ${ns(violation.mean)}, σ ${ns(violation.sigma)}) at ${isoAt(norm, violation.t)} (${describeDuration(violation.t)} after the epoch)`;
+  if (violation.t === 0) return { code: 'outside-at-epoch', text: `the clock is already outside the tolerance at the epoch: ${where}.` };
   const intervals = executionIntervals(norm);
   if (!intervals.some((iv) => iv.from <= violation.t)) {
-    return `no contact lets a command execute before the offset leaves the tolerance: ${where}.`;
+    return { code: 'no-contact-in-time', text: `no contact lets a command execute before the offset leaves the tolerance: ${where}.` };
   }
-  if (limits.length > 0) return `the tolerance cannot be held with this actuator: ${limits[0]}; ${where}.`;
-  if (method === 'none') return `unsteered, ${where}.`;
+  if (limits.length > 0) return { code: 'actuator-limit', text: `the tolerance cannot be held with this actuator: ${limits[0]}; ${where}.` };
+  if (method === 'none') return { code: 'unsteered', text: `unsteered, ${where}.` };
   const lastCommand = [...commands].reverse().find((c) => c.executeAt <= violation.t);
   const gap = lastCommand ? ` (last command executes at ${isoAt(norm, lastCommand.executeAt)})` : '';
-  return `the tolerance cannot be held with these contacts and this actuator by the ${method} planner: ${where}${gap}` +
-    (method === 'deadband' ? '; try the optimal planner.' : '.');
+  return { code: 'planner', text: `the tolerance cannot be held with these contacts and this actuator by the ${method} planner: ${where}${gap}` +
+    (method === 'deadband' ? '; try the optimal planner.' : '.') };
 }
 
 function toPublic(norm: NormalizedScenario, c: InternalCommand): SteeringCommand {
@@ -151,12 +177,10 @@ export function buildPlan(norm: NormalizedScenario, method: SteeringMethod, resu
   const jumps = stateJumps(norm, commands);
   const check = checkTolerance(norm, jumps);
   const predicted = predictedSeries(norm, jumps);
-  const sigma = predicted.steered.sigmaSeconds;
   let worst = 0;
-  let minP = 1;
-  predicted.steered.phaseSeconds.forEach((m, i) => {
+  // check.minProbability covers every grid epoch (and the epochs just before phase steps).
+  predicted.steered.phaseSeconds.forEach((m) => {
     worst = Math.max(worst, Math.abs(m));
-    minP = Math.min(minP, probabilityWithin(m, sigma[i]!, norm.bound));
   });
   const plan: SteeringPlan = {
     feasible: check.ok,
@@ -165,17 +189,21 @@ export function buildPlan(norm: NormalizedScenario, method: SteeringMethod, resu
     metrics: {
       worstPredictedOffsetSeconds: worst,
       worstOffsetBoundSeconds: check.worstBound,
-      probabilityInTolerance: Math.min(minP, check.minProbability),
+      probabilityInTolerance: check.minProbability,
       commandCount: commands.length,
       totalFrequencySteering: commands.filter((c) => c.kind === 'frequency').reduce((s, c) => s + Math.abs(c.amount), 0),
       totalPhaseSteeringSeconds: commands.filter((c) => c.kind === 'phase').reduce((s, c) => s + Math.abs(c.amount), 0),
       expectedCost: expectedCost(norm, commands).total,
+      settledAfterSeconds: check.settledFrom ?? null,
     },
     caution: STEERING_CAUTION,
   };
   if (!check.ok) {
-    plan.reason = diagnose(norm, method, commands, result.limits, check.firstViolation!) +
-      (result.notes.length ? ` Note: ${result.notes.join('; ')}.` : '');
+    const why = diagnose(norm, method, commands, result.limits, check.firstViolation!);
+    const settled = check.settledFrom !== undefined && method !== 'none'
+      ? ` The plan holds the tolerance from ${isoAt(norm, check.settledFrom)} (${describeDuration(check.settledFrom)} after the epoch) to the end of the horizon.` : '';
+    plan.reason = why.text + settled + (result.notes.length ? ` Note: ${result.notes.join('; ')}.` : '');
+    plan.reasonCode = why.code;
   }
   return plan;
 }
@@ -185,14 +213,18 @@ export function buildPlan(norm: NormalizedScenario, method: SteeringMethod, resu
  * stays inside the tolerance at the stated probability, using only the scenario's contacts
  * and actuator, and compensating the relativistic rate change of planned manoeuvres.
  *
- * Feasibility rule (per epoch): |m(t)| + z·σ(t) ≤ b with z = Φ⁻¹((1 + p)/2), m the predicted
- * mean steered offset and σ its open-loop standard deviation from the epoch covariance and the
- * 3-state process noise (Zucca & Tavella 2005), checked on the grid and just before each phase
- * step. The rule is conservative per epoch; it does not bound the probability of staying inside
- * over the whole horizon at once (estimate that with `simulatePlan`).
+ * Feasibility rule (per epoch): P(|offset(t)| ≤ b) = Φ((b − m)/σ) − Φ((−b − m)/σ) ≥ p, m the
+ * predicted mean steered offset and σ its open-loop standard deviation from the epoch covariance
+ * and the 3-state process noise (Zucca & Tavella 2005), checked on the grid and just before each
+ * phase step; `metrics.probabilityInTolerance` is the smallest such P. It is a per-epoch rule; it
+ * does not bound the probability of staying inside over the whole horizon at once (estimate
+ * that with `simulatePlan` or `simulateClosedLoop`).
  *
- * Strategies: `deadband` (see planDeadband), `optimal` (quantised LQ rollout, see planOptimal;
- * Koppang & Leland 1999 as the published background), `none` (unsteered baseline).
+ * Strategies: `deadband` (see planDeadband), `optimal` (LQ cost-to-go minimised over the
+ * admissible quantised steps, see planOptimal; Koppang & Leland 1999 as the published
+ * background), `none` (unsteered baseline). Both planners choose every frequency step among the
+ * steps from which an exact braking manoeuvre still stops the clock without overshooting the
+ * opposite tolerance bound, so a saturated actuator slews and brakes instead of ringing.
  *
  * Times: UTC stamps are read and printed with `options.timeScales` (default: the bundled
  * leap-second table, valid until 2027-06-28); intervals are elapsed SI seconds, so a leap second

@@ -136,38 +136,60 @@ function tailSafeCdf(z: number): number {
 
 /** Outcome of checking a schedule against the tolerance, per epoch. */
 export interface ToleranceCheck {
-  /** True when |m(t)| + z σ(t) ≤ b at every checked epoch. */
+  /** True when the per-epoch probability P(|offset| ≤ b) ≥ p at every checked epoch. */
   ok: boolean;
-  /** First checked epoch where |m| + zσ > b, with its values. */
-  firstViolation?: { t: Seconds; mean: Seconds; sigma: Seconds };
+  /** First checked epoch where that probability is below p, with its values. */
+  firstViolation?: { t: Seconds; mean: Seconds; sigma: Seconds; probability: number };
   /** Largest |m(t)|, in seconds. */
   worstAbsMean: Seconds;
-  /** Largest |m(t)| + z σ(t), in seconds. */
+  /** Largest |m(t)| + z σ(t), in seconds (≤ b is sufficient for the criterion, not necessary). */
   worstBound: Seconds;
   /** Smallest per-epoch probability of |offset| ≤ b. */
   minProbability: number;
+  /** Earliest checked epoch from which every later checked epoch meets the criterion (undefined: the last one fails). */
+  settledFrom?: Seconds;
 }
 
+/** Slack on the probability comparison, so that a plan exactly at p is not refused for a rounding error. */
+const PROBABILITY_SLACK = 1e-12;
+
 /**
- * Checks |m(t)| + z·σ(t) ≤ b, z = Φ⁻¹((1 + p)/2), on the grid and on both sides of every jump.
- * This margin rule is conservative: for m ≠ 0 the exact per-epoch probability is higher than p.
+ * Checks the per-epoch probability P = Φ((b − m)/σ) − Φ((−b − m)/σ) ≥ p on the grid and just
+ * before every phase step. The margin |m(t)| + z·σ(t) ≤ b, z = Φ⁻¹((1 + p)/2), is reported as
+ * `worstBound`: it implies the criterion but is stricter for m ≠ 0, so it is not the verdict.
  */
 export function checkTolerance(norm: NormalizedScenario, jumps: readonly StateJump[]): ToleranceCheck {
   const checks: { t: number; side: 'before' | 'after' }[] = gridTimes(norm).map((t) => ({ t, side: 'after' as const }));
   for (const j of jumps) if (j.dx !== 0) checks.push({ t: j.t, side: 'before' });
-  checks.sort((a, b) => a.t - b.t);
+  checks.sort((a, b) => a.t - b.t || (a.side === b.side ? 0 : a.side === 'before' ? -1 : 1));
   const result: ToleranceCheck = { ok: true, worstAbsMean: 0, worstBound: 0, minProbability: 1 };
-  for (const c of checks) {
-    const mean = meanState(norm, jumps, c.t, c.side)[0];
-    const sigma = Math.sqrt(phaseVariance(c.t, norm.covariance0, norm.noise));
-    const boundUsed = Math.abs(mean) + norm.z * sigma;
-    result.worstAbsMean = Math.max(result.worstAbsMean, Math.abs(mean));
-    result.worstBound = Math.max(result.worstBound, boundUsed);
-    result.minProbability = Math.min(result.minProbability, probabilityWithin(mean, sigma, norm.bound));
-    if (boundUsed > norm.bound * (1 + 1e-12) && result.ok) {
-      result.ok = false;
-      result.firstViolation = { t: c.t, mean, sigma };
+  let lastFailure = -1;
+  // Mean phase by running sums over the sorted jumps (as meanPhaseAt), with the 'before' side
+  // leaving out the jumps exactly at t.
+  const [x0, y0, d0] = norm.state0;
+  let k = 0;
+  let sumDy = 0;
+  let sumOffset = 0; // Σ (dx_j − dy_j t_j)
+  checks.forEach((c, i) => {
+    while (k < jumps.length && (jumps[k]!.t < c.t || (c.side === 'after' && jumps[k]!.t === c.t))) {
+      sumDy += jumps[k]!.dy;
+      sumOffset += jumps[k]!.dx - jumps[k]!.dy * jumps[k]!.t;
+      k++;
     }
-  }
+    const mean = x0 + y0 * c.t + (d0 * c.t * c.t) / 2 + sumDy * c.t + sumOffset;
+    const sigma = Math.sqrt(phaseVariance(c.t, norm.covariance0, norm.noise));
+    const probability = probabilityWithin(mean, sigma, norm.bound);
+    result.worstAbsMean = Math.max(result.worstAbsMean, Math.abs(mean));
+    result.worstBound = Math.max(result.worstBound, Math.abs(mean) + norm.z * sigma);
+    result.minProbability = Math.min(result.minProbability, probability);
+    if (probability < norm.probability - PROBABILITY_SLACK) {
+      lastFailure = i;
+      if (result.ok) {
+        result.ok = false;
+        result.firstViolation = { t: c.t, mean, sigma, probability };
+      }
+    }
+  });
+  if (lastFailure < checks.length - 1) result.settledFrom = checks[lastFailure + 1]!.t;
   return result;
 }

@@ -124,6 +124,22 @@ export interface CostWeights {
   command?: number;
 }
 
+/**
+ * Closed-loop operations: ground estimates of the clock offset arrive every
+ * `estimateIntervalSeconds`, each with white noise of 1σ `estimateNoiseSeconds`, available
+ * `estimateLatencySeconds` after their epoch; the plan is revised at the start of every contact.
+ */
+export interface OperationsSpec {
+  /** Spacing of the estimates, in seconds (> 0, ≤ horizonSeconds). */
+  estimateIntervalSeconds: Seconds;
+  /** 1σ of each estimate's white noise, in seconds (≥ 0). */
+  estimateNoiseSeconds: Seconds;
+  /** Delay from an estimate's epoch to its availability, in seconds (≥ 0; default 0). */
+  estimateLatencySeconds?: Seconds;
+  /** Re-planning policy: `each-contact` (the default and only one). */
+  replan?: 'each-contact';
+}
+
 /** A steering scenario as written in a scenario file. */
 export interface SteeringScenario {
   name?: string;
@@ -142,6 +158,8 @@ export interface SteeringScenario {
   costWeights?: CostWeights;
   /** Constant-set name for the manoeuvre rate changes (default `iers-2010`; see `constantSet`). */
   constants?: string;
+  /** Closed-loop operations (optional; needed by `simulateClosedLoop`). */
+  operations?: OperationsSpec;
 }
 
 /** The scenario after validation: times in seconds since the epoch, noise as q1..q3. */
@@ -176,6 +194,8 @@ export interface NormalizedScenario {
   maneuvers: { t: Seconds; index: number; aBefore: Metres; aAfter: Metres; rateChange: Dimensionless }[];
   strategy: StrategySpec;
   weights: Required<CostWeights>;
+  /** The operations block, when given: interval, noise and latency in seconds. */
+  operations?: { interval: Seconds; noise: Seconds; latency: Seconds; replan: 'each-contact' };
 }
 
 /** Largest horizon accepted (one year): longer open-loop predictions are meaningless. */
@@ -263,6 +283,17 @@ function validateCovariance(field: string, value: unknown): Matrix3 {
   return m as Matrix3;
 }
 
+function validateOperations(value: unknown, horizon: number): NonNullable<NormalizedScenario['operations']> {
+  const o = requireObject('operations', value);
+  rejectUnknownKeys('operations', o, ['estimateIntervalSeconds', 'estimateNoiseSeconds', 'estimateLatencySeconds', 'replan']);
+  const interval = requirePositive('operations.estimateIntervalSeconds', o['estimateIntervalSeconds'], 's');
+  if (interval > horizon) throw new InvalidArgumentError('operations.estimateIntervalSeconds', interval, `at most horizonSeconds (${horizon} s)`);
+  const noise = requireNonNegative('operations.estimateNoiseSeconds', o['estimateNoiseSeconds'], 's');
+  const latency = o['estimateLatencySeconds'] === undefined ? 0 : requireNonNegative('operations.estimateLatencySeconds', o['estimateLatencySeconds'], 's');
+  if (o['replan'] !== undefined && o['replan'] !== 'each-contact') throw new InvalidArgumentError('operations.replan', o['replan'], '"each-contact"');
+  return { interval, noise, latency, replan: 'each-contact' };
+}
+
 function validateStrategy(value: unknown): StrategySpec {
   const s = requireObject('strategy', value);
   const method = s['method'];
@@ -320,7 +351,7 @@ export function validateScenario(input: unknown, options: TimeScaleOptions = {})
   const timeScales = resolveTimeScales(options);
   const root = requireObject('scenario', input);
   rejectUnknownKeys('', root, ['$schema', 'name', 'description', 'epoch', 'horizonSeconds', 'gridSeconds', 'clock',
-    'tolerance', 'contacts', 'actuator', 'maneuvers', 'strategy', 'costWeights', 'constants']);
+    'tolerance', 'contacts', 'actuator', 'maneuvers', 'strategy', 'costWeights', 'constants', 'operations']);
   let constants = DEFAULT_CONSTANT_SET;
   if (root['constants'] !== undefined) {
     const name = root['constants'];
@@ -454,7 +485,10 @@ export function validateScenario(input: unknown, options: TimeScaleOptions = {})
     }
   }
 
+  const operations = root['operations'] === undefined ? undefined : validateOperations(root['operations'], horizon);
+
   return {
+    ...(operations ? { operations } : {}),
     source: input as SteeringScenario, epoch, timeScales, horizon, grid, state0, covariance0, noise, bound, probability, z,
     windows,
     actuator: { resolution, maxStep, rangeMin, rangeMax, initial, phaseAllowed, phaseResolution, phaseMaxStep, spacing, latency },

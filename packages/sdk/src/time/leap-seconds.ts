@@ -145,7 +145,8 @@ export function parseLeapSecondsList(text: string, sourceName = 'leap-seconds.li
   if (typeof sourceName !== 'string') throw new InvalidArgumentError('sourceName', sourceName, 'a file name or label');
   const entries: LeapSecondEntry[] = [];
   let expiryMjd: number | undefined;
-  const lines = text.split(/\r?\n/);
+  // Line ends LF, CR LF or a lone CR, as in the io readers; a leading byte-order mark is dropped.
+  const lines = (text.charCodeAt(0) === 0xfeff ? text.slice(1) : text).split(/\r\n|\r|\n/);
   const ntpDay = (value: string, line: number, column: number): number => {
     const seconds = Number(value);
     if (!Number.isSafeInteger(seconds) || seconds % 86_400 !== 0) {

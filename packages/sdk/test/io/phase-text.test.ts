@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { ParseError } from '../../src/errors.js';
 import { parseError } from './parse-errors.js';
-import { parsePhaseText, readPhaseText } from '../../src/io/index.js';
+import { MAX_LINE_CHARACTERS, MAX_SERIES_SAMPLES, parsePhaseText, readPhaseText } from '../../src/io/index.js';
 
 const fixture = (name: string) => readFileSync(new URL(`../../../../test/fixtures/stability/${name}`, import.meta.url), 'utf8');
 
@@ -74,5 +74,39 @@ describe('parsePhaseText (plain text / CSV phase records; common practice, no so
         expect(e).toBeInstanceOf(ParseError);
       }
     }), { seed: 20261202, numRuns: 300 });
+  });
+});
+
+describe('parsePhaseText: bounded memory on hostile input (limits are design choices, common practice, no source)', () => {
+  it('parsePhaseText("0 0\\n1 0\\n1e12 0") refuses the 10^12-sample gap before allocating, naming file, line, the gap and MAX_SERIES_SAMPLES', () => {
+    const err = parseError(() => parsePhaseText('0 0\n1 0\n1e12 0\n', { sourceName: 'gap.txt' }));
+    expect(err.sourceName).toBe('gap.txt');
+    expect(err.line).toBe(3);
+    expect(err.message).toContain(`at most ${MAX_SERIES_SAMPLES} samples`);
+    expect(err.message).toContain('gap of 999999999999 s after line 2');
+    expect(err.message).toContain('1000000000001 samples');
+  });
+
+  it('parsePhaseText refuses a gap making MAX_SERIES_SAMPLES + 1 samples and accepts the same span at a coarser tau0', () => {
+    // The accepted side is kept small (101 samples): a test never allocates the full 5·10^7-sample series.
+    const span = MAX_SERIES_SAMPLES; // first sample + span steps of 1 s = MAX_SERIES_SAMPLES + 1 samples
+    expect(() => parsePhaseText(`0 0\n${span} 0\n`, { tau0: 1 })).toThrow(/making 50000001 samples/);
+    expect(parsePhaseText(`0 0\n${span} 0\n`, { tau0: span / 100 }).phase.length).toBe(101);
+  });
+
+  it('parsePhaseText with an imposed tau0 far below the spacing refuses the implied series instead of allocating it', () => {
+    expect(() => parsePhaseText('0 0\n86400 1e-9\n', { sourceName: 'day.txt', tau0: 1e-9 })).toThrow(/^day\.txt:2:1: expected a uniform series of at most/);
+  });
+
+  it('parsePhaseText reads CR-only line ends as line ends (never two rows merged into one) and ignores a leading byte-order mark', () => {
+    const s = parsePhaseText('\ufefftime,phase\r0,1e-9\r1,2e-9\r2,3e-9\r');
+    expect(s.columns).toBe(2);
+    expect(Array.from(s.phase)).toEqual([1e-9, 2e-9, 3e-9]);
+  });
+
+  it('parsePhaseText refuses an over-long line naming the source, line and MAX_LINE_CHARACTERS', () => {
+    const err = parseError(() => parsePhaseText(`1e-9\n${'1'.repeat(MAX_LINE_CHARACTERS + 5)}\n`, { sourceName: 'long.txt' }));
+    expect(err.line).toBe(2);
+    expect(err.message).toMatch(/^long\.txt:2:1048577: expected a line of at most 1048576 characters/);
   });
 });

@@ -48,7 +48,13 @@ describe('parseRinexNav: RINEX 3.05 mixed file (RINEX 3.05, IGS/RTCM-SC104 [M])'
     expect(file.header.programName).toBe('tauline-fixture');
     expect(file.header.leapSeconds).toEqual({ current: 18, future: 18, futureWeek: 2185, futureDay: 7 });
     expect(file.header.comments).toEqual(['Invented values for reader tests; not a real constellation']);
-    expect(file.header.otherLines.map((l) => l.label)).toEqual(['IONOSPHERIC CORR', 'TIME SYSTEM CORR']);
+    expect(file.header.otherLines).toEqual([]);
+    // IONOSPHERIC CORR (A4,1X,4D12.4) and TIME SYSTEM CORR (A4,1X,D17.10,D16.9,I7,I5), RINEX 3.05 [M]; values as written in the fixture.
+    expect(file.header.ionosphere).toEqual([{ type: 'GPSA', parametersBroadcastUnits: [1.1176e-8, 7.4506e-9, -5.9605e-8, -5.9605e-8], line: 4 }]);
+    expect(file.header.timeSystemCorrections).toEqual([
+      { type: 'GPUT', a0: 9.3132257462e-10, a1: 1.33226763e-15, referenceSecondsOfWeek: 405504, referenceWeek: 2296, line: 5 },
+    ]);
+    expect(file.header.fileType).toBe('N');
     expect(file.header.lineCount).toBe(7);
   });
 
@@ -184,7 +190,10 @@ describe('parseRinexNav: malformed input throws ParseError with file, line and c
     expectParseError(() => parseRinexNav(lines.slice(0, 4).join('\n') + '\n'), 5, 1, /END OF HEADER.*truncated/);
   });
   it('parseRinexNav(text) rejects version 2, a non-navigation file type and a first line without its label', () => {
-    expectParseError(() => parseRinexNav(withLine(1, lines[0]!.replace('3.05', '2.11'))), 1, 1, /version 3\.0x or 4\.0x/);
+    expectParseError(() => parseRinexNav(withLine(1, lines[0]!.replace('3.05', '2.11'))), 1, 41, /RINEX 2\.11 defines no mixed or Galileo navigation file/);
+    expectParseError(() => parseRinexNav(withLine(1, lines[0]!.replace('3.05', '2.12'))), 1, 1, /2\.12 was a draft/);
+    expectParseError(() => parseRinexNav(withLine(1, lines[0]!.replace('3.05', '2.01'))), 1, 1, /before 2\.10 are not read/);
+    expectParseError(() => parseRinexNav(withLine(1, lines[0]!.replace('3.05', '5.00'))), 1, 1, /version 2\.10, 2\.11, 3\.0x or 4\.0x/);
     expectParseError(() => parseRinexNav(withLine(1, lines[0]!.replace('N: GNSS', 'O: GNSS'))), 1, 21, /file type 'N'/);
     expectParseError(() => parseRinexNav(withLine(1, lines[0]!.slice(0, 60))), 1, 61, /RINEX VERSION \/ TYPE/);
     expectParseError(() => parseRinexNav(withLine(1, lines[0]!.replace('M: MIXED', 'X: MIXED'))), 1, 41, /satellite system/);

@@ -79,15 +79,15 @@ describe('parseSp3: malformed and truncated input throws ParseError with file, l
   it('parseSp3(truncated file) reports the cut line, and a file without EOF is truncated', () => {
     expectParseError(() => parseSp3(read('truncated.sp3'), { sourceName: 'truncated.sp3' }), 58, 19, /^truncated\.sp3:58:19: expected y \(km\)/);
     expectParseError(() => parseSp3(P.replace('EOF\n', '')), lines.length - 1, 1, /closing 'EOF' line.*truncated/);
-    expectParseError(() => parseSp3(''), 1, 1, /#c' or '#d/);
+    expectParseError(() => parseSp3(''), 1, 1, /'#c' or '#d'/);
   });
   it('parseSp3(text) reports fewer epochs than declared and more epochs than declared', () => {
     const cut = P.replace(/\*  2024  1  7  3  0[^]*EOF/, 'EOF');
     expectParseError(() => parseSp3(cut), 57, 1, /13 epochs as declared on line 1 \(found 12/);
     expectParseError(() => parseSp3(withLine(1, lines[0]!.replace('      13', '      12'))), 57, 1, /no more than the 12 epochs/);
   });
-  it('parseSp3(text) rejects versions a/b, a bad P/V flag, a bad line 2 and a bad epoch count', () => {
-    expectParseError(() => parseSp3(withLine(1, '#a' + lines[0]!.slice(2))), 1, 2, /version 'c' or 'd'/);
+  it('parseSp3(text) rejects an unknown version, a bad P/V flag, a bad line 2 and a bad epoch count', () => {
+    expectParseError(() => parseSp3(withLine(1, '#x' + lines[0]!.slice(2))), 1, 2, /version 'a', 'b', 'c' or 'd'/);
     expectParseError(() => parseSp3(withLine(1, '#dX' + lines[0]!.slice(3))), 1, 3, /flag 'P' or 'V'/);
     expectParseError(() => parseSp3(withLine(1, '##' + lines[0]!.slice(2))), 1, 1, /first line/);
     expectParseError(() => parseSp3(withLine(1, lines[0]!.replace('      13', '       0'))), 1, 33, /positive number of epochs/);

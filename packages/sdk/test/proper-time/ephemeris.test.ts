@@ -51,3 +51,28 @@ describe('low-precision Sun/Moon (Montenbruck & Gill 2000 §3.3.2 [M]) against w
     expect(() => sunPositionLowPrecision(0, 'icrf' as never)).toThrow(/"mean-of-date" or "eme2000"/);
   });
 });
+
+describe('low-precision Moon at recent epochs: argument reduction keeps the series smooth', () => {
+  /** Largest |Δ⁴x| over one day of 60 s samples from `start` (TT seconds since J2000; exact multiples of 0.5 s, so the sum start + k·60 is exact). */
+  function worstFourthDifference(start: number): number {
+    const h = 60;
+    const p = Array.from({ length: 1445 }, (_, k) => moonPositionLowPrecision(start + k * h));
+    let worst = 0;
+    for (let k = 0; k + 4 < p.length; k++) {
+      for (let c = 0; c < 3; c++) {
+        const d4 = p[k]![c]! - 4 * p[k + 1]![c]! + 6 * p[k + 2]![c]! - 4 * p[k + 3]![c]! + p[k + 4]![c]!;
+        worst = Math.max(worst, Math.abs(d4));
+      }
+    }
+    return worst;
+  }
+
+  // Criterion (ours): the fourth differences of a smooth 60 s series of the lunar position are ≈ (ωh)⁴·r ≈ 3e-7 m plus
+  // the float64 rounding of a 4e8 m coordinate (ulp 6e-8 m, amplified ≤ 16×); we require < 2e-5 m, i.e. rounding noise
+  // below 5e-14 of the Earth–Moon distance. Before the reduction, angles of ≈ 10⁵° at 2023 left ≈ 3e-4 m of noise.
+  for (const [label, start] of [['2000-01-01', 1234.5], ['2023-01-01', 725_803_200.5], ['2040-07-01', 1_277_856_000.5]] as const) {
+    it(`moonPositionLowPrecision near ${label} has fourth differences (h = 60 s, one day) below 2e-5 m (smooth to 5e-14 relative)`, () => {
+      expect(worstFourthDifference(start)).toBeLessThan(2e-5);
+    });
+  }
+});

@@ -130,3 +130,15 @@ describe('integrateProperTime: bad input', () => {
     expect(() => integrateProperTime(falling, 7200, 60, { model: 'point-mass' })).toThrow(/enters the Earth/);
   });
 });
+
+describe('integrateProperTime(state, duration, step, { onProgress })', () => {
+  it('reports increasing times up to the duration and leaves the result unchanged', () => {
+    const state = orbit(26_561_750, 0.01, 55);
+    const reached: number[] = [];
+    const r = integrateProperTime(state, 86_400, 21_600, { model: 'point-mass', onProgress: (t, d) => { expect(d).toBe(86_400); reached.push(t); } });
+    expect(reached.length).toBe(r.acceptedSteps);
+    expect(reached.every((t, k) => k === 0 || t > reached[k - 1]!)).toBe(true);
+    expect(reached.at(-1)).toBe(86_400);
+    expect(Array.from(r.tauMinusTT)).toEqual(Array.from(integrateProperTime(state, 86_400, 21_600, { model: 'point-mass' }).tauMinusTT));
+  });
+});

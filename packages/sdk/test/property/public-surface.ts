@@ -24,13 +24,15 @@ function kindOf(value: unknown): ExportKind {
   }
 }
 
-/** Source file of each subpath in the package's `exports` map (`./dist/x/index.js` → `src/x/index.ts`). */
+/** Source file of each subpath in the package's `exports` map (`./dist/x/index.js` → `src/x/index.ts`; the one-file bundle is skipped). */
 export function subpathSources(): { subpath: string; file: string }[] {
   const pkg = JSON.parse(readFileSync(`${SDK_ROOT}package.json`, 'utf8')) as { exports: Record<string, unknown> };
   const out: { subpath: string; file: string }[] = [];
   for (const [subpath, target] of Object.entries(pkg.exports)) {
     if (typeof target !== 'object' || target === null) continue; // ./package.json
     const js = (target as { import: string }).import;
+    // `./bundle` is the root entry built into one file (scripts/build-bundles.mjs): the same exports as `.`.
+    if (js.startsWith('./dist/bundle/')) continue;
     out.push({ subpath, file: `${SDK_ROOT}${js.replace(/^\.\/dist\//, 'src/').replace(/\.js$/, '.ts')}` });
   }
   return out;

@@ -8,7 +8,8 @@
 import { readFileSync } from 'node:fs';
 import {
   BUNDLED_LEAP_SECONDS, ClockKalmanFilter, GPS_ICD, IERS_2010, Instant, LineSplitter, PreciseCorrectionStream, RinexNavParser,
-  Sp3Parser, analyzeStability, createTimeScales, integrateProperTime, parseRinexClock, parseRinexNav, parseSp3,
+  RinexClockParser, RinexClockSeriesCollector, Sp3Parser, analyzeStability, createTimeScales, integrateProperTime, parseRinexClock,
+  parseRinexNav, parseSp3,
   planSteering, reviewOffsets, simulateClock, type KeplerianBroadcastEphemeris,
 } from '../../src/index.js';
 
@@ -198,6 +199,8 @@ export const INSTANCES: Readonly<Record<string, () => object>> = {
   Sp3Parser: () => new Sp3Parser({ sourceName: 'o.sp3' }),
   PreciseCorrectionStream: () => new PreciseCorrectionStream({ epochInterval: 900 }),
   ClockKalmanFilter: () => new ClockKalmanFilter({ q: Q2, initial: ESTIMATE }),
+  RinexClockParser: () => new RinexClockParser({ sourceName: 'c.clk' }),
+  RinexClockSeriesCollector: () => new RinexClockSeriesCollector('c.clk', 'G05'),
   'createTimeScales()': () => createTimeScales(BUNDLED_LEAP_SECONDS),
 };
 
@@ -208,6 +211,7 @@ export const VALID_STREAM_CALLS: Readonly<Record<string, () => unknown[]>> = {
   readLineBatches: () => [['a\n', 'b\n']],
   readPhaseText: () => ['0 0\n1 1e-9\n2 2e-9\n', { sourceName: 'p.txt' }],
   readRinexClock: () => [CLK_TEXT, 'c.clk'],
+  readRinexClockSeries: () => [CLK_TEXT, (parseRinexClock(CLK_TEXT).records[0] as { name: string }).name, { sourceName: 'c.clk' }],
   readRinexNav: () => [NAV_TEXT],
   readSp3: () => [SP3_TEXT],
   preciseRelativisticCorrections: () => [parseSp3(SP3_TEXT).epochs, { epochInterval: 900 }],

@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import Ajv2020 from 'ajv/dist/2020.js';
-import { configuredFraction, parseReviewInput, reviewOffsets, reviewToHtml, reviewToMarkdown, REVIEW_CAUTION } from '../../src/review/index.js';
+import { configuredFraction, parseReviewInput, reviewOffsets, reviewToHtml, reviewToMarkdown, verdictExplanation, REVIEW_CAUTION } from '../../src/review/index.js';
 import { InvalidArgumentError } from '../../src/errors.js';
 
 const examples = new URL('../../examples/review/', import.meta.url);
@@ -178,6 +178,32 @@ describe('dispersion analysis', () => {
     expect(Math.abs(upper.semiMajorAxis - (26_561_400.1 + 2000))).toBeLessThan(0.05 * 2000);
     expect(d.actuatorCovers).toBeNull();
   });
+  it('reviewOffsets(doc).dispersion.percentiles are residual(a0 + kσ) at 100·Φ(k), and the seeded Monte Carlo agrees within its sampling error', () => {
+    const a0 = 26_561_400.1;
+    const sigma = 2000;
+    const doc = { ...withSpacecraft({ dispersion: { semiMajorAxisSigma: sigma }, orbit: { semiMajorAxis: a0 } }), phaseToleranceSeconds: 1e-6 };
+    const runs = 40_000;
+    const d = reviewOffsets(doc, { monteCarloRuns: runs }).spacecraft[0]!.dispersion!;
+    // 100·Φ(k) for k = −3 … 3 (standard normal table values, common practice, no source).
+    expect(d.percentiles.map((p) => p.percentile)).toEqual([0.135, 2.275, 15.866, 50, 84.134, 97.725, 99.865]);
+    d.percentiles.forEach((p, i) => {
+      const k = i - 3;
+      expect(p.semiMajorAxis).toBe(a0 + k * sigma);
+      // Closed form endpoints equal the ±3σ and nominal residuals computed separately.
+      if (k === -3) expect(p.residualFractionalRate).toBe(d.residualAtMinus3Sigma);
+      if (k === 0) expect(p.residualFractionalRate).toBe(d.residualNominal);
+      if (k === 3) expect(p.residualFractionalRate).toBe(d.residualAtPlus3Sigma);
+      // Sampling error of a quantile: σ·√(p(1−p)/n)/φ(k) (asymptotic order-statistic variance, common practice);
+      // 4 standard errors allowed. Residual is linear in a to < 1e-9 relative over ±3σ, so the same bound in rate.
+      const q = p.percentile / 100;
+      const phi = Math.exp(-k * k / 2) / Math.sqrt(2 * Math.PI);
+      const se = (sigma * Math.sqrt((q * (1 - q)) / runs)) / phi;
+      const mc = d.monteCarlo.percentiles[i]!;
+      expect(mc.percentile).toBe(p.percentile);
+      expect(Math.abs(mc.semiMajorAxis - p.semiMajorAxis), `k = ${k}`).toBeLessThan(4 * se);
+      expect(Math.abs(mc.residualFractionalRate - p.residualFractionalRate)).toBeLessThan(4 * se * d.rateSensitivityPerMetre * 1.001);
+    });
+  });
   it('flags a tolerance tighter than the J2 osculating/mean-a ambiguity as marginal', () => {
     const doc = { ...withSpacecraft({ orbit: { semiMajorAxis: 26_561_400.1, inclination: 0.96 } }), tolerance: { fractional: 1e-14 } };
     const s = reviewOffsets(doc).spacecraft[0]!;
@@ -220,5 +246,30 @@ describe('reviewToMarkdown / reviewToHtml', () => {
     expect(html).toContain('role="img"');
     expect(html).toContain('steering limit');
     expect(html).toContain(REVIEW_CAUTION.replace(/'/g, '&#39;'));
+  });
+  it('verdictExplanation(finding) explains a MARGINAL verdict that no recognised mistake explains, in the Markdown and HTML too', () => {
+    const marginal = report.spacecraft.find((f) => f.verdict === 'marginal' && f.diagnosis.length === 0)!;
+    const why = verdictExplanation(marginal)!;
+    // 3.5e-13 against ±5e-13 is 70 % of the tolerance (the Block B file configures KESTREL-19 that far off).
+    expect(why).toMatch(/^No recognised mistake matches\. MARGINAL: the difference 3\.50e-13 is inside the tolerance ±5\.0e-13 but uses 70 % of it/);
+    expect(reviewToMarkdown(report)).toContain(why);
+    const html = reviewToHtml(report);
+    expect(html).toContain(`<p class="explanation">${why.replace(/'/g, '&#39;')}</p>`);
+    expect(verdictExplanation(report.spacecraft.find((f) => f.diagnosis.length > 0)!)).toBeUndefined();
+    expect(verdictExplanation(reviewOffsets(load('kestrel-block-a.review.json')).spacecraft[0]!)).toBeUndefined();
+  });
+});
+
+describe('reviewOffsets(document, { onProgress })', () => {
+  it('reports the Monte Carlo draws over every dispersed spacecraft, increasing to the total, without changing the report', () => {
+    const calls: [number, number][] = [];
+    const doc = load('kestrel-block-a.review.json');
+    const withProgress = reviewOffsets(doc, { monteCarloRuns: 1000, onProgress: (done, total) => { calls.push([done, total]); } });
+    const dispersed = withProgress.spacecraft.filter((f) => f.dispersion).length;
+    expect(calls.length).toBeGreaterThan(0);
+    expect(calls.every(([, total]) => total === 1000 * dispersed)).toBe(true);
+    expect(calls.every(([done], k) => k === 0 || done > calls[k - 1]![0])).toBe(true);
+    expect(calls.at(-1)![0]).toBe(1000 * dispersed);
+    expect(withProgress).toEqual(reviewOffsets(doc, { monteCarloRuns: 1000 }));
   });
 });

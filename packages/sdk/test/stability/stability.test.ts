@@ -243,9 +243,9 @@ describe('noise identification (lag-1 autocorrelation, Riley & Greenhall 2004 [M
   it('identifyNoise(data) omits τ with fewer than 32 decimated points', () => {
     expect(identifyNoise({ phase: white.slice(0, 100), tau0: 1 }).map((e) => e.m)).toEqual([1, 2]);
   });
-  it('analyzeStability(data) labels the noise source per τ: lag1-acf, carried-from-shorter-tau, stated, default-wfm', () => {
+  it('analyzeStability(data) labels the noise source per τ: identified, carried-from-shorter-tau, stated, default-wfm', () => {
     const a = analyzeStability({ phase: walk.slice(0, 200), tau0: 1 });
-    expect(a.rows[0]!.noiseSource).toBe('lag1-acf');
+    expect(a.rows[0]!.noiseSource).toBe('identified');
     expect(a.rows.at(-1)!.noiseSource).toBe('carried-from-shorter-tau');
     expect(analyzeStability({ phase: walk.slice(0, 20), tau0: 1 }).rows[0]!.noiseSource).toBe('default-wfm');
     expect(analyzeStability({ phase: walk.slice(0, 20), tau0: 1 }, { noise: 'RWFM' }).rows[0]!.noiseSource).toBe('stated');

@@ -122,3 +122,31 @@ describe('noiseToDiffusion', () => {
 });
 
 export type { SteeringScenario };
+
+describe('validateScenario operations block', () => {
+  const ops = { estimateIntervalSeconds: 900, estimateNoiseSeconds: 3e-10, estimateLatencySeconds: 3600, replan: 'each-contact' };
+
+  it('validateScenario(scenario with operations) keeps interval, noise and latency in seconds, latency 0 and replan each-contact by default', () => {
+    expect(validateScenario(baseScenario({ operations: ops as never })).operations).toEqual({ interval: 900, noise: 3e-10, latency: 3600, replan: 'each-contact' });
+    expect(validateScenario(baseScenario({ operations: { estimateIntervalSeconds: 600, estimateNoiseSeconds: 0 } })).operations)
+      .toEqual({ interval: 600, noise: 0, latency: 0, replan: 'each-contact' });
+    expect(validateScenario(baseScenario()).operations).toBeUndefined();
+  });
+
+  const bad: [string, Record<string, unknown>, string][] = [
+    ['interval 0', { ...ops, estimateIntervalSeconds: 0 }, 'operations.estimateIntervalSeconds'],
+    ['interval beyond the horizon', { ...ops, estimateIntervalSeconds: 3 * 86_400 }, 'operations.estimateIntervalSeconds'],
+    ['negative noise', { ...ops, estimateNoiseSeconds: -1e-10 }, 'operations.estimateNoiseSeconds'],
+    ['missing noise', { estimateIntervalSeconds: 900 }, 'operations.estimateNoiseSeconds'],
+    ['negative latency', { ...ops, estimateLatencySeconds: -1 }, 'operations.estimateLatencySeconds'],
+    ['an unknown policy', { ...ops, replan: 'daily' }, 'operations.replan'],
+    ['a misspelt field', { ...ops, estimateLatency: 5 }, 'operations.estimateLatency'],
+  ];
+  for (const [what, value, field] of bad) {
+    it(`validateScenario rejects operations with ${what}, naming ${field} in one line`, () => {
+      const e = errorFor((s) => { s.operations = value; });
+      expect(e.argument).toBe(field);
+      expect(e.message.split('\n')).toHaveLength(1);
+    });
+  }
+});

@@ -27,6 +27,9 @@ describe('schema/scenario.schema.json (JSON Schema draft-07, checked with ajv)',
       (s) => { s.tolerance.phase = 1; },
       (s) => { s.maneuvers = [{ at: '2027-01-01T10:00:00Z', semiMajorAxisBefore: 6e6, semiMajorAxisAfter: 2.7e7 }]; },
       (s) => { s.actuator.phaseSteps = { allowed: true }; },
+      (s) => { s.operations = { estimateIntervalSeconds: 0, estimateNoiseSeconds: 1e-10 }; },
+      (s) => { s.operations = { estimateIntervalSeconds: 900, estimateNoiseSeconds: 1e-10, replan: 'daily' }; },
+      (s) => { s.operations = { estimateIntervalSeconds: 900 }; },
     ];
     for (const edit of bad) {
       const s = structuredClone(baseScenario()) as Record<string, any>;

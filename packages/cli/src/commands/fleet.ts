@@ -1,0 +1,100 @@
+/**
+ * `tauline fleet <fleet.json>`: one steering plan for several satellite clocks that share a few
+ * ground stations.
+ */
+import { planFleet, type FleetDocument, type FleetPlan } from '@tauline/sdk/fleet';
+import {
+  EXIT_FINDING, EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, onePositional, table, toJson, type Command,
+} from '../framework.js';
+import { readJsonFile } from '../files.js';
+import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, PLAN_UNITS, leapSecondsFlag, nsText } from './plan.js';
+
+/** Units of the fleet plan's JSON fields (`units` in `tauline fleet --json`). */
+export const FLEET_UNITS = { ...PLAN_UNITS, start: 'ISO 8601 UTC', end: 'ISO 8601 UTC' } as const;
+
+/** Characters of a station lane in the text timeline. */
+const LANE_WIDTH = 84;
+
+/** Marker of satellite i in the timeline: A–Z, then a–z, then digits. */
+function marker(i: number): string {
+  const all = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789';
+  return all[i % all.length]!;
+}
+
+/** One lane per station: each character covers horizon/LANE_WIDTH; a satellite's marker where it holds the station, `*` for two in one cell. */
+function timeline(doc: FleetDocument, plan: FleetPlan): string[] {
+  const epochMs = Date.parse(doc.epoch);
+  const cell = doc.horizonSeconds / LANE_WIDTH;
+  const index = new Map(doc.satellites.map((s, i) => [s.id, i]));
+  const days = doc.horizonSeconds / 86_400;
+  const ruler = Array.from({ length: LANE_WIDTH }, (_, k) => (Math.floor((k * cell) / 86_400) !== Math.floor(((k - 1) * cell) / 86_400) || k === 0 ? '|' : ' ')).join('');
+  const width = Math.max(...doc.stations.map((s) => s.id.length));
+  const out = [`Station timeline (one character ≈ ${(cell / 3600).toFixed(2)} h, '|' marks each day from the epoch, ${days.toFixed(2)} days):`,
+    `${' '.repeat(width)}  ${ruler}`.trimEnd()];
+  for (const station of doc.stations) {
+    const lane = Array.from({ length: LANE_WIDTH }, () => '·');
+    for (const s of plan.stationSchedule.filter((x) => x.station === station.id)) {
+      const from = Math.floor((Date.parse(s.start) - epochMs) / 1000 / cell);
+      const to = Math.min(LANE_WIDTH - 1, Math.floor((Date.parse(s.end) - epochMs - 1) / 1000 / cell));
+      for (let k = Math.max(0, from); k <= Math.max(from, to); k++) lane[k] = lane[k] === '·' ? marker(index.get(s.satellite)!) : '*';
+    }
+    out.push(`${station.id.padEnd(width)}  ${lane.join('')}`);
+  }
+  out.push(`Legend: ${doc.satellites.map((s, i) => `${marker(i)} ${s.id}`).join(', ')}; · free; * several supports in one character.`);
+  return out;
+}
+
+/** The human-readable fleet plan. */
+export function fleetToText(doc: FleetDocument, plan: FleetPlan): string {
+  const out: string[] = [];
+  out.push(`${doc.name ?? 'Fleet plan'}: ${doc.strategy.method} planner, ${doc.satellites.length} satellites, ${doc.stations.length} stations, ` +
+    `${doc.epoch} + ${(doc.horizonSeconds / 86_400).toFixed(2)} days`);
+  out.push(plan.feasible ? 'Feasible: yes (every satellite holds its tolerance at its probability per epoch)' : `Feasible: NO. ${plan.reason ?? ''}`, '');
+  const rows = plan.satellites.map((s, i) => {
+    const sat = doc.satellites[i]!;
+    const stations = [...new Set(plan.stationSchedule.filter((x) => x.satellite === s.id).map((x) => x.station))];
+    return [s.id, s.feasible ? 'yes' : 'NO', nsText(s.metrics.worstOffsetBoundSeconds), `±${nsText(sat.tolerance.phaseSeconds)} at ${sat.tolerance.probability * 100} %`,
+      s.metrics.probabilityInTolerance.toFixed(4), s.commands.length, stations.join(', ') || '-'];
+  });
+  out.push(table(['satellite', 'feasible', 'worst |mean| + z·σ', 'tolerance', 'probability in tolerance', 'uplinks', 'stations used'], rows).trimEnd());
+  out.push('(worst |mean| + z·σ is a sufficient margin, stricter than the per-epoch probability criterion that decides feasibility.)');
+  for (const s of plan.satellites.filter((x) => !x.feasible)) out.push(`  ${s.id} (${s.reasonCode}): ${s.reason}`);
+  out.push('', ...timeline(doc, plan), '');
+  if (plan.stationSchedule.length === 0) out.push('No supports needed.');
+  else out.push(table(['station', 'satellite', 'support start (UTC)', 'support end (UTC)'], plan.stationSchedule.map((x) => [x.station, x.satellite, x.start, x.end])).trimEnd());
+  out.push('', 'Commands: tauline fleet <file> --json lists every command with its uplink station.', '', plan.caution, '');
+  return out.join('\n');
+}
+
+export const fleetCommand: Command = {
+  name: 'fleet',
+  summary: 'Plan the steering of several satellite clocks that share ground stations.',
+  usage: '<fleet.json> [--leap-seconds <file>] [--json | --format table|json]',
+  allowPositionals: true,
+  flags: {
+    'leap-seconds': LEAP_SECONDS_FLAG,
+    ...formatFlags(TABLE_OR_JSON, { json: 'Print the fleet plan as JSON (feasible, reason, satellites with commands and station, stationSchedule, units, caution); same as --format json.' }),
+  },
+  details: `
+Fleet format: packages/sdk/schema/fleet.schema.json (JSON Schema); times ISO 8601 UTC, quantities SI.
+Each satellite carries what a steering scenario carries except epoch, horizon, contacts and strategy,
+plus its passes over the stations. A station supports one satellite at a time for supportSeconds,
+with at least setupSeconds between two supports. Supports go first to the satellite whose predicted
+offset leaves its band soonest; each satellite is then planned by the single-satellite planner with
+its supports as its only contacts (see tauline plan --help for the feasibility rule). An infeasible
+satellite's reasonCode is too-few-passes, station-overbooked, or one of the plan command's codes.
+The table shows one line per satellite (worst |mean| + z·σ, uplinks, stations used) and a text
+timeline per station.
+${LEAP_SECONDS_HELP}
+Exit status: 0 every satellite feasible, 1 some satellite infeasible (the reasons are printed), 2 unusable input.`,
+  async run(args, io) {
+    const path = onePositional(args, 'fleet file');
+    const format = formatFlag(args, TABLE_OR_JSON, 'table');
+    const timeScales = await leapSecondsFlag(args);
+    const doc = await readJsonFile(path, 'a fleet document');
+    const plan = planFleet(doc, timeScales ? { timeScales } : {});
+    if (format === 'json') io.out(toJson({ ...plan, units: FLEET_UNITS }));
+    else io.out(fleetToText(doc as FleetDocument, plan));
+    return plan.feasible ? EXIT_OK : EXIT_FINDING;
+  },
+};

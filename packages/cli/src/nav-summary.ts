@@ -1,0 +1,87 @@
+/**
+ * Text the navigation commands print about what they read: the header parameters of each file
+ * (version, leap seconds, broadcast ionosphere and time-system corrections), and why a sample has
+ * no usable record (never extrapolated past a fit interval).
+ */
+import type { RinexNavEphemeris, RinexNavHeader } from '@tauline/sdk/io';
+import { fieldsFromScaleSeconds, formatEpochFields } from '@tauline/sdk/io';
+
+/** The header parameters of one navigation file, as printed (JSON `files[]`). */
+export interface NavFileSummary {
+  readonly file: string;
+  readonly version: number;
+  /** RINEX 2 file type (N, G, H); N for versions 3 and 4. */
+  readonly fileType: string;
+  readonly satelliteSystem: string;
+  /** GPS − UTC leap seconds from the header, in seconds, or null when absent. */
+  readonly leapSeconds: number | null;
+  readonly ionosphere: readonly { readonly type: string; readonly parametersBroadcastUnits: readonly (number | null)[] }[];
+  readonly timeSystemCorrections: readonly {
+    readonly type: string; readonly a0: number; readonly a1: number; readonly referenceSecondsOfWeek: number; readonly referenceWeek: number;
+  }[];
+}
+
+/** The summary of a header (line numbers dropped: they describe the file, not the parameters). */
+export function summariseNavHeader(file: string, h: RinexNavHeader): NavFileSummary {
+  return {
+    file, version: h.version, fileType: h.fileType, satelliteSystem: h.satelliteSystem, leapSeconds: h.leapSeconds?.current ?? null,
+    ionosphere: h.ionosphere.map((p) => ({ type: p.type, parametersBroadcastUnits: p.parametersBroadcastUnits })),
+    timeSystemCorrections: h.timeSystemCorrections.map((c) => ({
+      type: c.type, a0: c.a0, a1: c.a1, referenceSecondsOfWeek: c.referenceSecondsOfWeek, referenceWeek: c.referenceWeek,
+    })),
+  };
+}
+
+/** Units of the `files[]` fields, for the JSON `units` object. */
+export const NAV_FILE_UNITS = {
+  leapSeconds: 's',
+  parametersBroadcastUnits: 'as broadcast: Klobuchar α_n and β_n in s/semicircle^n (GPSA, GPSB, QZSA, BDSA, ...), Galileo a_i in sfu, sfu/degree, sfu/degree²',
+  a0: 's', a1: 's/s', referenceSecondsOfWeek: 's',
+} as const;
+
+/** Human lines describing the header parameters, one block per file. */
+export function navHeaderLines(files: readonly NavFileSummary[]): string[] {
+  const out: string[] = [];
+  for (const f of files) {
+    const parts = [`RINEX ${f.version.toFixed(2)} ${f.fileType}`, `leap seconds ${f.leapSeconds ?? 'not given'}`];
+    for (const p of f.ionosphere) parts.push(`ionosphere ${p.type} ${p.parametersBroadcastUnits.map((v) => (v === null ? 'blank' : v.toExponential(4))).join(' ')}`);
+    for (const c of f.timeSystemCorrections) {
+      parts.push(`${c.type} a0 ${c.a0.toExponential(10)} s, a1 ${c.a1.toExponential(9)} s/s, t_ref ${c.referenceSecondsOfWeek} s of week ${c.referenceWeek}`);
+    }
+    out.push(`  ${f.file}: ${parts.join('; ')}`);
+  }
+  return out;
+}
+
+/**
+ * Why no record serves time t (scale seconds of the satellite's system): none in the files, only
+ * unhealthy ones, or t before the start / after the end of the nearest record's fit interval.
+ * `outsideWindow` counts the satellite's records dropped because their fit interval misses the whole window.
+ * `reason` is the full sentence (JSON), `short` fits a table column.
+ */
+export function noRecordReason(records: readonly RinexNavEphemeris[], t: number, includeUnhealthy: boolean, scaleLabel: string,
+  outsideWindow = 0): { reason: string; short: string } {
+  if (records.length === 0 && outsideWindow > 0) {
+    return {
+      reason: `no record of this satellite near the requested window (${outsideWindow} record(s) in the files have fit intervals entirely outside it)`,
+      short: 'no record near the window',
+    };
+  }
+  if (records.length === 0) return { reason: 'no record of this satellite in the files', short: 'no record in the files' };
+  const usable = includeUnhealthy ? records : records.filter((r) => r.health === 0);
+  if (usable.length === 0) {
+    return { reason: 'no healthy record (every record of this satellite has a non-zero health word; --include-unhealthy uses them)', short: 'no healthy record' };
+  }
+  let nearest = usable[0]!;
+  for (const r of usable) if (Math.abs(t - r.toeSeconds) < Math.abs(t - nearest.toeSeconds)) nearest = r;
+  const at = (s: number) => `${formatEpochFields(fieldsFromScaleSeconds(s))} ${scaleLabel}`;
+  const half = nearest.fitIntervalSeconds / 2;
+  const what = `the fit interval of the nearest healthy record (t_oe ${at(nearest.toeSeconds)}, fit ${nearest.fitIntervalSeconds / 3600} h`;
+  if (t > nearest.toeSeconds + half) {
+    return { reason: `after the end of ${what}, valid to ${at(nearest.toeSeconds + half)}): not extrapolated`, short: `fit interval ended ${at(nearest.toeSeconds + half)}` };
+  }
+  if (t < nearest.toeSeconds - half) {
+    return { reason: `before the start of ${what}, valid from ${at(nearest.toeSeconds - half)}): not extrapolated`, short: `fit interval starts ${at(nearest.toeSeconds - half)}` };
+  }
+  return { reason: 'no healthy record whose fit interval covers this time', short: 'no healthy record covers t' };
+}

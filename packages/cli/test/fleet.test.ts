@@ -1,0 +1,87 @@
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import { runCli, type CliRun } from './run.js';
+
+const VESPER = fileURLToPath(new URL('../../sdk/examples/fleet/vesper-constellation.json', import.meta.url));
+const run = (...argv: string[]): Promise<CliRun> => runCli(['fleet', ...argv]);
+
+function tempFile(name: string, value: unknown): string {
+  const path = join(mkdtempSync(join(tmpdir(), 'tauline-fleet-')), name);
+  writeFileSync(path, typeof value === 'string' ? value : JSON.stringify(value));
+  return path;
+}
+
+/** The example with every satellite given only VESPER-1's first pass (one station, one ten-minute window each). */
+function overbooked(): Record<string, any> {
+  const doc = JSON.parse(readFileSync(VESPER, 'utf8')) as Record<string, any>;
+  const pass = doc.satellites[0].passes[1];
+  for (const s of doc.satellites) s.passes = [pass];
+  return doc;
+}
+
+describe('tauline fleet', () => {
+  it('tauline fleet vesper-constellation.json --json prints the issue\'s shape (feasible, satellites with commands and station, stationSchedule), units and the caution, and exits 0', async () => {
+    const r = await run(VESPER, '--json');
+    expect(r.err).toBe('');
+    expect(r.status).toBe(0);
+    const plan = JSON.parse(r.out) as Record<string, any>;
+    expect(Object.keys(plan).sort()).toEqual(['caution', 'feasible', 'satellites', 'stationSchedule', 'units']);
+    expect(plan.feasible).toBe(true);
+    expect(plan.caution).toMatch(/responsible engineering authority/);
+    for (const s of plan.satellites) {
+      expect(Object.keys(s).sort()).toEqual(['commands', 'feasible', 'id', 'metrics', 'predicted']);
+      for (const c of s.commands) {
+        expect(Object.keys(c).sort()).toEqual(['actuatorSteps', 'executeAt', 'fractionalFrequencyStep', 'kind', 'reason', 'station', 'uplinkAt']);
+        expect(plan.stationSchedule.some((x: Record<string, string>) => x.satellite === s.id && x.station === c.station && x.start <= c.uplinkAt && c.uplinkAt <= x.end)).toBe(true);
+      }
+    }
+    for (const x of plan.stationSchedule) expect(Object.keys(x).sort()).toEqual(['end', 'satellite', 'start', 'station']);
+  });
+
+  it('tauline fleet vesper-constellation.json prints one line per satellite, the station timelines, the supports and the caution', async () => {
+    const r = await run(VESPER);
+    expect(r.status).toBe(0);
+    expect(r.out).toMatch(/satellite\s+feasible\s+worst \|mean\| \+ z·σ\s+tolerance\s+probability in tolerance\s+uplinks\s+stations used/);
+    for (const id of ['VESPER-1', 'VESPER-2', 'VESPER-3', 'VESPER-4']) expect(r.out).toMatch(new RegExp(`^${id}\\s+yes\\s+[\\d.]+ ns`, 'm'));
+    expect(r.out).toMatch(/^HARROWMERE {6}[·A-D*]{84}$/m);
+    expect(r.out).toMatch(/^CALLOWAY-RIDGE {2}[·A-D*]{84}$/m);
+    expect(r.out).toContain('Legend: A VESPER-1, B VESPER-2, C VESPER-3, D VESPER-4');
+    expect(r.out).toMatch(/Caution: this schedule is a planning aid/);
+  });
+
+  it('tauline fleet <file> exits 1 and names the satellites that cannot be held, and why, when one pass is shared by four satellites', async () => {
+    const r = await run(tempFile('overbooked.json', overbooked()));
+    expect(r.status).toBe(1);
+    expect(r.out).toMatch(/Feasible: NO\. \d of 4 satellites cannot be held: /);
+    expect(r.out).toMatch(/\(station-overbooked\): no free support before .*: station CALLOWAY-RIDGE overbooked 2027-02-01T18:30:00Z–2027-02-01T19:20:00Z \(held by VESPER-/);
+    const json = JSON.parse((await run(tempFile('overbooked.json', overbooked()), '--json')).out) as Record<string, any>;
+    expect(json.feasible).toBe(false);
+    expect(json.stationSchedule.length).toBeGreaterThanOrEqual(1);
+  });
+
+  it('tauline fleet <file> exits 2 with a one-line error naming the field for a bad document, a missing file and a missing argument', async () => {
+    const doc = JSON.parse(readFileSync(VESPER, 'utf8')) as Record<string, any>;
+    doc.satellites[2].passes[3].station = 'NOWHERE';
+    const bad = await run(tempFile('bad.json', doc));
+    expect(bad.status).toBe(2);
+    expect(bad.out).toBe('');
+    expect(bad.err).toBe('tauline fleet: invalid input: satellites[2].passes[3].station must be one of the station ids HARROWMERE, CALLOWAY-RIDGE; received "NOWHERE"\n');
+    const missing = await run(join(tmpdir(), 'no-such-fleet.json'));
+    expect(missing.status).toBe(2);
+    expect(missing.err.trim().split('\n')).toHaveLength(1);
+    const syntax = await run(tempFile('broken.json', '{ "epoch": '));
+    expect(syntax.status).toBe(2);
+    expect(syntax.err.trim().split('\n')).toHaveLength(1);
+    expect((await run()).status).toBe(2);
+  });
+
+  it('tauline fleet --help describes the format, the method and the exit statuses', async () => {
+    const r = await run('--help');
+    expect(r.status).toBe(0);
+    expect(r.out).toContain('packages/sdk/schema/fleet.schema.json');
+    expect(r.out).toContain('Exit status: 0 every satellite feasible, 1 some satellite infeasible');
+  });
+});

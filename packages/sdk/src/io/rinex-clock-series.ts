@@ -1,0 +1,210 @@
+/**
+ * One clock's bias series from a RINEX clock file, on a uniform grid, for the stability statistics.
+ * {@link readRinexClockSeries} streams the file and keeps only the chosen clock's records, so memory grows
+ * with that clock's series, not with the file; {@link rinexClockSeries} does the same from a parsed file.
+ *
+ * @module
+ */
+import { InvalidArgumentError, ParseError } from '../errors.js';
+import { requireOptions, requireSourceName } from '../internal/validate.js';
+import type { Seconds } from '../units.js';
+import { MAX_SERIES_SAMPLES } from './limits.js';
+import { scaleSecondsFromFields, validEpochFields, type TextSource } from './line-reader.js';
+import { regularizeSeries, type SampleGap } from './phase-text.js';
+import {
+  readRinexClock, type RinexClockFile, type RinexClockHeader, type RinexClockReadOptions, type RinexClockRecord,
+} from './rinex-clock.js';
+
+/** The bias series of one clock, on a uniform grid. */
+export interface RinexClockSeries {
+  readonly name: string;
+  readonly type: 'AS' | 'AR';
+  /** Phase (clock bias) in seconds; NaN for every missing epoch. */
+  readonly phase: Float64Array;
+  /** Epoch of each sample in seconds since 1980-01-06T00:00:00 of the file's time system (no leap seconds). */
+  readonly times: Float64Array;
+  /** Sample spacing, seconds (smallest step, or as given). */
+  readonly tau0: Seconds | undefined;
+  readonly gaps: readonly SampleGap[];
+  readonly missing: number;
+  readonly timeSystem: string | undefined;
+}
+
+/** Options of the series functions. */
+export interface RinexClockSeriesOptions {
+  /** `AS` or `AR`, to choose when a name has both. */
+  readonly type?: 'AS' | 'AR';
+  /** Sample spacing to impose, in seconds (default: the smallest step between the clock's epochs). */
+  readonly tau0?: Seconds;
+}
+
+/** How many distinct clock names an error message lists. */
+const NAMES_LISTED = 20;
+
+/** A Float64Array that doubles when full (one per kept column). */
+class GrowableColumn {
+  private _data = new Float64Array(1024);
+  length = 0;
+
+  push(v: number): void {
+    if (this.length === this._data.length) {
+      const next = new Float64Array(this._data.length * 2);
+      next.set(this._data);
+      this._data = next;
+    }
+    this._data[this.length++] = v;
+  }
+
+  get(i: number): number {
+    return this._data[i]!;
+  }
+
+  toArray(): Float64Array {
+    return this._data.slice(0, this.length);
+  }
+}
+
+/**
+ * Collects the records of one clock (name, and type when given) out of a stream of records, then builds
+ * its uniform series. Records of other clocks are only counted by name (at most 20 names kept).
+ */
+export class RinexClockSeriesCollector {
+  private readonly _source: string;
+  private readonly _name: string;
+  private readonly _options: RinexClockSeriesOptions;
+  private readonly _times = new GrowableColumn();
+  private readonly _values = new GrowableColumn();
+  private readonly _lines = new GrowableColumn();
+  private _type: 'AS' | 'AR' | undefined;
+  private readonly _names = new Set<string>();
+
+  constructor(sourceName: string, name: string, options: RinexClockSeriesOptions = {}) {
+    this._source = requireSourceName('sourceName', sourceName);
+    if (typeof name !== 'string') throw new InvalidArgumentError('name', name, 'a satellite or receiver name, e.g. "G05"');
+    this._name = name;
+    this._options = requireOptions('options', options);
+  }
+
+  /** Takes one record; keeps it when it belongs to the chosen clock. @throws {ParseError} on a repeated or earlier epoch. */
+  add(r: RinexClockRecord): void {
+    requireClockRecord('record', r);
+    if (r.name !== this._name || (this._options.type !== undefined && r.type !== this._options.type)) {
+      if (this._names.size < NAMES_LISTED) this._names.add(r.name);
+      return;
+    }
+    if (this._type === undefined) this._type = r.type;
+    else if (this._type !== r.type) {
+      throw new ParseError(this._source, r.line, 1, `one record type for ${this._name}: it has both AS and AR records; choose one with options.type`);
+    }
+    const t = scaleSecondsFromFields(r.epoch);
+    const n = this._times.length;
+    if (n > 0 && !(t > this._times.get(n - 1))) {
+      throw new ParseError(this._source, r.line, 4, `an epoch later than the previous ${this._name} record (line ${this._lines.get(n - 1)})`);
+    }
+    this._times.push(t);
+    this._values.push(r.bias);
+    this._lines.push(r.line);
+  }
+
+  /**
+   * Builds the series. Refuses, before allocating it, a series longer than {@link MAX_SERIES_SAMPLES}
+   * (a far epoch such as year 9999 would otherwise ask for billions of samples).
+   * @throws {ParseError} no record for the clock, a step not a whole multiple of τ0, or a series over the limit.
+   */
+  finish(header: RinexClockHeader): RinexClockSeries {
+    const h = header as Partial<RinexClockHeader> | null;
+    if (typeof h !== 'object' || h === null || !Number.isSafeInteger(h.lines) || (h.lines as number) < 1
+      || (h.timeSystem !== undefined && typeof h.timeSystem !== 'string')) {
+      throw new InvalidArgumentError('header', header, 'the header of the file the records came from ({ lines ≥ 1, timeSystem }, as the reader yields it)');
+    }
+    const n = this._times.length;
+    if (n === 0) {
+      const names = [...this._names].join(', ');
+      throw new ParseError(this._source, header.lines, undefined, `records for clock ${JSON.stringify(this._name)} (clocks present: ${names || 'none'})`);
+    }
+    const times = this._times.toArray();
+    const lineOf = (i: number) => this._lines.get(i);
+    checkSeriesLength(this._source, times, lineOf, this._options.tau0);
+    const reg = regularizeSeries(this._source, times, this._values.toArray(), lineOf, this._options.tau0);
+    return { name: this._name, type: this._type!, ...reg, timeSystem: header.timeSystem };
+  }
+}
+
+/**
+ * Refuses a series whose uniform grid (first to last epoch at τ0, gaps included) would exceed
+ * {@link MAX_SERIES_SAMPLES}, at the line of the record that crosses the limit, naming the gap and the limit.
+ */
+function checkSeriesLength(source: string, times: Float64Array, lineOf: (i: number) => number, tau0Given: number | undefined): void {
+  let tau0 = tau0Given;
+  if (tau0 === undefined || !(tau0 > 0 && Number.isFinite(tau0))) {
+    if (tau0Given !== undefined) return; // regularizeSeries reports the bad τ0
+    tau0 = Infinity;
+    for (let i = 1; i < times.length; i++) tau0 = Math.min(tau0, times[i]! - times[i - 1]!);
+    if (!Number.isFinite(tau0)) return; // one epoch
+  }
+  let total = 1;
+  for (let i = 1; i < times.length; i++) {
+    const gap = times[i]! - times[i - 1]!;
+    total += Math.round(gap / tau0);
+    if (total > MAX_SERIES_SAMPLES) {
+      throw new ParseError(source, lineOf(i), 1,
+        `a clock series of at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES): the gap of ${gap} s from the record on line ${lineOf(i - 1)} ` +
+        `makes it at least ${total} samples at tau0 = ${tau0} s`);
+    }
+  }
+}
+
+/** Throws unless `r` is a record as {@link parseRinexClock} returns (a hand-made or damaged record is refused, naming the field). */
+function requireClockRecord(argument: string, r: unknown): void {
+  const rec = r as Partial<RinexClockRecord> | null;
+  if (typeof rec !== 'object' || rec === null || typeof rec.name !== 'string' || !Number.isFinite(rec.bias) || !Number.isInteger(rec.line)
+    || typeof rec.epoch !== 'object' || rec.epoch === null || !validEpochFields(rec.epoch)) {
+    throw new InvalidArgumentError(argument, r, 'a record { name, type, epoch, bias (s), line } as parseRinexClock returns');
+  }
+}
+
+/** Throws unless `file` has the shape {@link parseRinexClock} returns (records are checked as they are collected). */
+function requireClockFile(file: unknown): void {
+  const f = file as Partial<RinexClockFile> | null;
+  if (typeof f !== 'object' || f === null || typeof f.sourceName !== 'string' || typeof f.header !== 'object' || f.header === null
+    || !Array.isArray(f.records)) {
+    throw new InvalidArgumentError('file', file, 'a parsed RINEX clock file (the result of parseRinexClock)');
+  }
+}
+
+/**
+ * Extracts one clock's bias as a uniformly sampled phase series from a parsed file. Missing epochs become
+ * NaN samples listed in `gaps` (never interpolated).
+ *
+ * @param file     A parsed file ({@link parseRinexClock}).
+ * @param name     Satellite or receiver name, e.g. `G05`.
+ * @param options  `type` to choose AS or AR when a name has both; `tau0` (s) to impose the spacing.
+ * @throws {ParseError} if the clock has no records, epochs repeat or go backwards, a step is not a whole
+ *   multiple of τ0, or the series would exceed MAX_SERIES_SAMPLES (line of the offending record).
+ */
+export function rinexClockSeries(file: RinexClockFile, name: string, options: RinexClockSeriesOptions = {}): RinexClockSeries {
+  requireClockFile(file);
+  const c = new RinexClockSeriesCollector(file.sourceName, name, options);
+  for (const r of file.records) c.add(r);
+  return c.finish(file.header);
+}
+
+/**
+ * Streams a RINEX clock file and returns one clock's series, keeping only that clock's records in memory.
+ *
+ * @param source   File text or its chunks (sync or async iterable of strings).
+ * @param name     Satellite or receiver name, e.g. `G05`.
+ * @param options  `sourceName` for messages, `type` (AS/AR) and `tau0` (s) as in {@link rinexClockSeries}.
+ * @throws {ParseError} from the reader (file, line, column) or as {@link rinexClockSeries}.
+ */
+export async function readRinexClockSeries(source: TextSource, name: string,
+  options: RinexClockReadOptions & RinexClockSeriesOptions = {}): Promise<RinexClockSeries> {
+  requireOptions('options', options);
+  const c = new RinexClockSeriesCollector(options.sourceName ?? 'rinex-clock', name, options);
+  let header: RinexClockHeader | undefined;
+  for await (const ev of readRinexClock(source, options)) {
+    if (ev.kind === 'header') header = ev.header;
+    else if (ev.kind === 'record') c.add(ev.record);
+  }
+  return c.finish(header!);
+}
