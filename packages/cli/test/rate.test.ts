@@ -103,7 +103,7 @@ describe('tauline rate', () => {
   });
 
   it('tauline rate rejects a bad --nominal-frequency and unknown flags', async () => {
-    await expectUsageError(['--semi-major-axis', '26561750', '--nominal-frequency=-5'], /--nominal-frequency must be a finite number greater than 0 Hz; received -5/);
+    await expectUsageError(['--semi-major-axis', '26561750', '--nominal-frequency=-5'], /--nominal-frequency must be in \[1, 1000000000000\] Hz; received -5/);
     await expectUsageError(['--semi-major-axis', '26561750', '--nominal-frequency', '10MHz'], /--nominal-frequency must be a decimal number/);
     await expectUsageError(['--semi-major-axis', '26561750', '--frequency', '5'], /--frequency/);
   });

@@ -11,7 +11,7 @@ import type {
   SquareMetresPerSecondSquared,
 } from './units.js';
 import { InvalidArgumentError } from './errors.js';
-import { requireFinite, requireInRange, requirePositive } from './internal/validate.js';
+import { CONSTANT_SET_RANGES, requireConstantSet, requireInRange, requirePositive } from './internal/validate.js';
 
 /** Speed of light in vacuum, exact by the SI definition of the metre (BIPM; IERS Conventions 2010 Table 1.1) [V1]. */
 export const SPEED_OF_LIGHT: MetresPerSecond = 299_792_458;
@@ -73,6 +73,7 @@ export interface ConstantSet {
 
 /** F = −2√GM / c², in s/√m (IS-GPS-200 §20.3.3.3.3.1 [M]; IERS Conventions 2010 eq. 10.10 [V1]). */
 export function relativisticConstantF(gm: CubicMetresPerSecondSquared): number {
+  requirePositive('gm', gm, 'm³/s²');
   return (-2 * Math.sqrt(gm)) / SPEED_OF_LIGHT_SQUARED;
 }
 
@@ -187,7 +188,7 @@ export const DEFAULT_CONSTANT_SET = IERS_2010;
  * @throws {InvalidArgumentError} naming the known sets when `name` is unknown.
  */
 export function constantSet(name: string): ConstantSet {
-  const found = CONSTANT_SETS[String(name).toLowerCase()];
+  const found = typeof name === 'string' && Object.hasOwn(CONSTANT_SETS, name.toLowerCase()) ? CONSTANT_SETS[name.toLowerCase()] : undefined;
   if (!found) throw new InvalidArgumentError('constants', name, `one of ${Object.keys(CONSTANT_SETS).join(', ')}`);
   return found;
 }
@@ -212,18 +213,26 @@ export interface ConstantSetOverrides {
  * @throws {InvalidArgumentError} for a value outside the plausible range of its field.
  */
 export function defineConstantSet(overrides: ConstantSetOverrides, base: ConstantSet = IERS_2010): ConstantSet {
-  if (typeof overrides?.name !== 'string' || overrides.name.trim() === '') {
+  if (typeof overrides !== 'object' || overrides === null) {
+    throw new InvalidArgumentError('overrides', overrides, 'an object { name, gm?, earthRotationRate?, ... }');
+  }
+  if (typeof overrides.name !== 'string' || overrides.name.trim() === '') {
     throw new InvalidArgumentError('name', overrides?.name, 'a non-empty string');
   }
+  requireConstantSet('base', base);
   const gm = overrides.gm ?? base.gm;
-  requireInRange('gm', gm, 3.9e14, 4.1e14, { unit: 'm³/s² (Earth GM; a value near 398600 is km³/s²)' });
-  requireInRange('earthRotationRate', overrides.earthRotationRate ?? base.earthRotationRate, 7.0e-5, 7.5e-5, { unit: 'rad/s' });
-  requireInRange('equatorialRadius', overrides.equatorialRadius ?? base.equatorialRadius, 6.3e6, 6.4e6, { unit: 'm' });
-  requireInRange('j2', overrides.j2 ?? base.j2, 0, 2e-3);
-  requireInRange('flattening', overrides.flattening ?? base.flattening, 0, 0.01);
-  requirePositive('lG', overrides.lG ?? base.lG);
-  requireInRange('lG', overrides.lG ?? base.lG, 6.9e-10, 7.0e-10);
-  requireFinite('pi', overrides.pi ?? base.pi);
+  for (const [field, range] of Object.entries(CONSTANT_SET_RANGES)) {
+    requireInRange(field, overrides[field as keyof typeof CONSTANT_SET_RANGES] ?? base[field as keyof typeof CONSTANT_SET_RANGES], range.min, range.max, { unit: range.unit });
+  }
+  if (overrides.description !== undefined && typeof overrides.description !== 'string') {
+    throw new InvalidArgumentError('description', overrides.description, 'a string');
+  }
+  if (overrides.sources !== undefined && (typeof overrides.sources !== 'object' || overrides.sources === null)) {
+    throw new InvalidArgumentError('sources', overrides.sources, 'an object of source texts keyed by field name');
+  }
+  for (const [key, text] of Object.entries(overrides.sources ?? {})) {
+    if (typeof text !== 'string') throw new InvalidArgumentError(`sources.${key}`, text, 'a string naming the source of the value');
+  }
   const sources: Record<string, string> = { ...base.sources };
   for (const key of ['gm', 'earthRotationRate', 'equatorialRadius', 'j2', 'flattening', 'lG', 'pi'] as const) {
     if (overrides[key] !== undefined) sources[key] = overrides.sources?.[key] ?? 'user-supplied, no source';

@@ -29,7 +29,7 @@ export class InvalidArgumentError extends TaulineError {
   readonly hint: string | undefined;
   constructor(argument: string, received: unknown, expected: string, hint?: string) {
     super('invalid-argument',
-      `${argument} must be ${expected}; received ${formatReceived(received)}${hint ? `. ${hint}` : ''}`);
+      `${label(argument)} must be ${expected}; received ${formatReceived(received)}${hint ? `. ${hint}` : ''}`);
     this.argument = argument;
     this.received = received;
     this.expected = expected;
@@ -45,7 +45,7 @@ export class OutOfDomainError extends TaulineError {
   readonly validTo: string;
   constructor(argument: string, received: unknown, validFrom: string, validTo: string, detail = '') {
     super('out-of-domain',
-      `${argument} = ${formatReceived(received)} is outside the valid span ${validFrom} .. ${validTo}${detail ? `: ${detail}` : ''}`);
+      `${label(argument)} = ${formatReceived(received)} is outside the valid span ${validFrom} .. ${validTo}${detail ? `: ${detail}` : ''}`);
     this.argument = argument;
     this.received = received;
     this.validFrom = validFrom;
@@ -72,13 +72,18 @@ export class ParseError extends TaulineError {
   readonly expected: string;
   constructor(sourceName: string, line: number, column: number | undefined, expected: string, found?: string) {
     super('parse-error',
-      `${sourceName}:${line}${column !== undefined ? `:${column}` : ''}: expected ${expected}` +
+      `${label(sourceName)}:${line}${column !== undefined ? `:${column}` : ''}: expected ${expected}` +
         (found !== undefined ? `; found ${JSON.stringify(found.length > 60 ? `${found.slice(0, 57)}...` : found)}` : ''));
     this.sourceName = sourceName;
     this.line = line;
     this.column = column;
     this.expected = expected;
   }
+}
+
+/** A field or source name as text; a caller's non-string label is rendered, never allowed to throw. */
+function label(name: unknown): string {
+  return typeof name === 'string' ? name : formatReceived(name);
 }
 
 /** Renders a received value for an error message without losing NaN/Infinity/undefined. */
@@ -88,9 +93,14 @@ export function formatReceived(value: unknown): string {
   if (value === undefined) return 'nothing (the field is missing)';
   if (typeof value === 'bigint') return `${value}n`;
   try {
-    const json = JSON.stringify(value);
+    const json = JSON.stringify(value, (_key, v: unknown) => (typeof v === 'bigint' ? `${v}n` : v));
     return json === undefined ? String(value) : json.length > 80 ? `${json.slice(0, 77)}...` : json;
   } catch {
-    return String(value);
+    // Cyclic or hostile objects (a throwing toJSON, a null prototype): never throw while reporting an error.
+    try {
+      return String(value);
+    } catch {
+      return Object.prototype.toString.call(value);
+    }
   }
 }

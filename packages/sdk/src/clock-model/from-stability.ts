@@ -8,7 +8,7 @@
  */
 import { ConvergenceError, InvalidArgumentError } from '../errors.js';
 import { chiSquareQuantile, chiSquareSurvival, chiSquareUpperQuantile } from '../internal/special-functions.js';
-import { requireInRange, requireInteger, requireNonNegative, requirePositive } from '../internal/validate.js';
+import { requireInRange, requireInteger, requireNonNegative, requirePhaseSample, requirePositive } from '../internal/validate.js';
 import type { StabilityRow } from '../stability/types.js';
 import type { Seconds } from '../units.js';
 import { inverseSpd, type Matrix } from './linalg.js';
@@ -441,7 +441,7 @@ export function measurementNoiseFromPhase(phase: ArrayLike<number>): Measurement
   const s = new Float64Array(Math.max(n - 2, 0));
   for (let i = 0; i < n; i++) {
     const v = phase[i] as number;
-    if (typeof v !== 'number' || v === Infinity || v === -Infinity) throw new InvalidArgumentError(`phase[${i}]`, v, 'a finite phase in seconds, or NaN for a missing sample');
+    requirePhaseSample(`phase[${i}]`, v, true);
   }
   for (let k = 1; k < n - 1; k++) s[k - 1] = (phase[k + 1] as number) - 2 * (phase[k] as number) + (phase[k - 1] as number);
   let sum = 0;

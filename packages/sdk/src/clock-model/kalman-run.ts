@@ -7,7 +7,9 @@
 import { InvalidArgumentError } from '../errors.js';
 import type { Dimensionless, Seconds } from '../units.js';
 import { chiSquareQuantile, chiSquareUpperQuantile } from '../internal/special-functions.js';
-import { requireFinite, requireInRange, requirePositive } from '../internal/validate.js';
+import {
+  MAX_ABS_PHASE_SECONDS, MEASUREMENT_VARIANCE_RANGE, requireInRange, requireMeasurementVariance, requirePhaseSample, requirePositive,
+} from '../internal/validate.js';
 import { detectionFrom, toJump, toOutlier, type ClockDetectionSettings } from './kalman.js';
 import { FilterCore, type CoreEvents } from './kalman-core.js';
 import { checkQForStates, requireEstimate, type ClockEstimate, type ClockKalmanOptions, type DetectedJump, type DetectedOutlier } from './kalman-types.js';
@@ -91,13 +93,13 @@ function epochsOf(series: ClockFilterSeries, n: number): Float64Array {
     for (let i = 0; i < n; i++) {
       const ti = series.t[i];
       // The helper (which builds its message) is called only for a bad value.
-      t[i] = typeof ti === 'number' && Number.isFinite(ti) ? ti : requireFinite(`series.t[${i}]`, ti, 'a finite epoch in seconds');
+      t[i] = typeof ti === 'number' && Math.abs(ti) <= MAX_ABS_PHASE_SECONDS ? ti : requirePhaseSample(`series.t[${i}]`, ti, false);
       if (i > 0 && !((t[i] as number) > (t[i - 1] as number))) {
         throw new InvalidArgumentError(`series.t[${i}]`, t[i], `greater than series.t[${i - 1}] = ${t[i - 1]} (strictly increasing epochs)`);
       }
     }
   } else {
-    const tau0 = requirePositive('series.tau0', series.tau0, 's');
+    const tau0 = requireInRange('series.tau0', series.tau0, 1e-9, 1e9, { unit: 's (sample spacing)' });
     for (let i = 0; i < n; i++) t[i] = i * tau0;
   }
   return t;
@@ -107,13 +109,14 @@ function epochsOf(series: ClockFilterSeries, n: number): Float64Array {
 function variancesOf(series: ClockFilterSeries, n: number): Float64Array {
   const v = series.variance;
   const out = new Float64Array(n);
-  if (typeof v === 'number') return out.fill(requirePositive('series.variance', v, 's²'));
+  if (typeof v === 'number') return out.fill(requireMeasurementVariance('series.variance', v));
   if (!v || typeof v.length !== 'number' || v.length !== n) {
     throw new InvalidArgumentError('series.variance', v, `a variance in s² or an array of ${n} variances`);
   }
   for (let i = 0; i < n; i++) {
     const vi = v[i];
-    out[i] = typeof vi === 'number' && vi > 0 && vi < Infinity ? vi : requirePositive(`series.variance[${i}]`, vi, 's²');
+    out[i] = typeof vi === 'number' && vi >= MEASUREMENT_VARIANCE_RANGE.min && vi <= MEASUREMENT_VARIANCE_RANGE.max
+      ? vi : requireMeasurementVariance(`series.variance[${i}]`, vi);
   }
   return out;
 }
@@ -164,9 +167,7 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
   let first = -1;
   for (let i = 0; i < n; i++) {
     const zi = z[i];
-    if (typeof zi !== 'number' || (!Number.isFinite(zi) && !Number.isNaN(zi))) {
-      throw new InvalidArgumentError(`series.phase[${i}]`, zi, 'a finite phase in seconds, or NaN for a missing sample');
-    }
+    if (typeof zi !== 'number' || !(Math.abs(zi) <= MAX_ABS_PHASE_SECONDS || zi !== zi)) requirePhaseSample(`series.phase[${i}]`, zi, true);
     if (first < 0 && zi === zi) first = i;
   }
   if (first < 0) throw new InvalidArgumentError('series.phase', 'all NaN', 'at least one valid phase sample');

@@ -6,7 +6,7 @@
  */
 import { InvalidArgumentError } from '../errors.js';
 import type { Dimensionless, Seconds } from '../units.js';
-import { requireFinite, requireNonNegative } from '../internal/validate.js';
+import { MAX_ABS_PHASE_SECONDS, requireFinite, requireInRange, requireNonNegative } from '../internal/validate.js';
 import { add, cholesky, congruence, multiplyVector, type Matrix } from './linalg.js';
 import { clockProcessNoise, clockTransitionMatrix, requireDiffusion, type ClockDiffusion, type ClockStates } from './noise.js';
 
@@ -44,7 +44,7 @@ export interface ClockStep {
 export function requireEstimate(argument: string, e: unknown): { t: number; state: number[]; covariance: Matrix; states: ClockStates } {
   if (typeof e !== 'object' || e === null) throw new InvalidArgumentError(argument, e, 'an estimate { t (s), state [x, y(, d)], covariance }');
   const r = e as Record<string, unknown>;
-  const t = requireFinite(`${argument}.t`, r['t'], 'a finite time in seconds');
+  const t = requireInRange(`${argument}.t`, r['t'], -MAX_ABS_PHASE_SECONDS, MAX_ABS_PHASE_SECONDS, { unit: 's (an epoch)' });
   const s = r['state'];
   if (!Array.isArray(s) || (s.length !== 2 && s.length !== 3)) {
     throw new InvalidArgumentError(`${argument}.state`, s, 'an array [x (s), y] or [x (s), y, d (1/s)]');

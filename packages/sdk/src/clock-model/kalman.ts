@@ -9,7 +9,9 @@
 import { InvalidArgumentError } from '../errors.js';
 import type { Seconds } from '../units.js';
 import { chiSquareUpperQuantile } from '../internal/special-functions.js';
-import { requireFinite, requireInRange, requireInteger, requirePositive } from '../internal/validate.js';
+import {
+  MAX_ABS_PHASE_SECONDS, requireInRange, requireInteger, requireMeasurementVariance, requirePhaseSample,
+} from '../internal/validate.js';
 import { FilterCore, type CoreEvents } from './kalman-core.js';
 import { FREQUENCY, GlrDetector, type GlrDecision } from './kalman-glr.js';
 import {
@@ -152,10 +154,10 @@ export class ClockKalmanFilter {
    *
    * @param t  New epoch, in seconds, ≥ the current epoch.
    * @returns The predicted estimate.
-   * @throws {InvalidArgumentError} if t is not finite or is before the current epoch.
+   * @throws {InvalidArgumentError} if |t| > 1e12 s (MAX_ABS_PHASE_SECONDS), t is not a number, or t is before the current epoch.
    */
   predict(t: Seconds): ClockEstimate {
-    requireFinite('t', t, 'a finite time in seconds');
+    requireInRange('t', t, -MAX_ABS_PHASE_SECONDS, MAX_ABS_PHASE_SECONDS, { unit: 's (an epoch)' });
     if (t < this._core.t) throw new InvalidArgumentError('t', t, `a time ≥ the filter epoch ${this._core.t} s (the filter does not run backwards)`);
     this._core.predictTo(t);
     return this.estimate;
@@ -167,11 +169,12 @@ export class ClockKalmanFilter {
    * @param phase     Measured phase (time error), in seconds.
    * @param variance  Its variance R, in s², > 0.
    * @returns {@link ClockUpdate}: status, innovation, its variance, NIS, any jump or outlier declared, new estimate.
-   * @throws {InvalidArgumentError} if phase is not finite or variance ≤ 0.
+   * @throws {InvalidArgumentError} if |phase| > 1e12 s or is not a number, or variance is outside [1e-40, 1e24] s².
    */
   update(phase: Seconds, variance: number): ClockUpdate {
-    const z = requireFinite('phase', phase, 'a finite phase in seconds (use predict() to skip a missing sample)');
-    const r = requirePositive('variance', variance, 's²');
+    // A missing sample is skipped with predict(), never passed as NaN.
+    const z = requirePhaseSample('phase', phase, false);
+    const r = requireMeasurementVariance('variance', variance);
     const c = this._core;
     const index = c.updates;
     const events: CoreEvents = { jumps: [], outliers: [] };

@@ -10,7 +10,7 @@
  */
 import { InvalidArgumentError } from '../errors.js';
 import type { Dimensionless, Seconds } from '../units.js';
-import { requireNonNegative, requirePositive } from '../internal/validate.js';
+import { requireInRange, requireNonNegative, requirePositive } from '../internal/validate.js';
 import { cholesky, type Matrix } from './linalg.js';
 
 /** Number of clock states: 2 = [phase, frequency], 3 = [phase, frequency, drift]. */
@@ -38,17 +38,35 @@ export interface PowerLawCoefficients {
   readonly hMinus4?: number;
 }
 
+/**
+ * Largest diffusion coefficient accepted, in its own unit (s, 1/s, 1/s³). Real clocks are below
+ * 1e-10; the bound only keeps q·τ⁵ and the filter's products finite (our own bound).
+ */
+export const MAX_DIFFUSION = 1e3;
+/** Largest power-law coefficient h accepted (so that q = 8π⁴h stays within {@link MAX_DIFFUSION}; our own bound). */
+const MAX_POWER_LAW = 1;
+/** Longest model interval τ, in seconds (317 years; keeps τ⁵ finite; our own bound). */
+export const MAX_MODEL_INTERVAL: Seconds = 1e10;
+/** Shortest averaging time of the variance formulas, in seconds (1 ns; keeps q1/τ finite; our own bound). */
+const MIN_AVERAGING_TIME: Seconds = 1e-9;
+
 /** Validates and completes a diffusion record (q3 defaults to 0). */
 export function requireDiffusion(argument: string, q: unknown): Required<ClockDiffusion> {
   if (typeof q !== 'object' || q === null) {
     throw new InvalidArgumentError(argument, q, 'an object { q1 (s), q2 (1/s), q3? (1/s³) } of non-negative diffusion coefficients');
   }
   const r = q as Record<string, unknown>;
+  const coefficient = (key: string, unit: string) => requireInRange(`${argument}.${key}`, r[key], 0, MAX_DIFFUSION, { unit });
   return {
-    q1: requireNonNegative(`${argument}.q1`, r['q1'], 's'),
-    q2: requireNonNegative(`${argument}.q2`, r['q2'], '1/s'),
-    q3: r['q3'] === undefined ? 0 : requireNonNegative(`${argument}.q3`, r['q3'], '1/s³'),
+    q1: coefficient('q1', 's'),
+    q2: coefficient('q2', '1/s'),
+    q3: r['q3'] === undefined ? 0 : coefficient('q3', '1/s³'),
   };
+}
+
+/** Validates a model interval τ in seconds: [0, MAX_MODEL_INTERVAL], or [MIN_AVERAGING_TIME, MAX_MODEL_INTERVAL] for averaging times. */
+function requireInterval(argument: string, tau: unknown, averaging: boolean): number {
+  return requireInRange(argument, tau, averaging ? MIN_AVERAGING_TIME : 0, MAX_MODEL_INTERVAL, { unit: 's' });
 }
 
 function requireStates(states: unknown): ClockStates {
@@ -68,7 +86,7 @@ function requireStates(states: unknown): ClockStates {
  * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation], state equation of the clock model; Φ is the exact solution of ẋ = y, ẏ = d (common practice).
  */
 export function clockTransitionMatrix(tau: Seconds, states: ClockStates): Matrix {
-  requireNonNegative('tau', tau, 's');
+  requireInterval('tau', tau, false);
   requireStates(states);
   if (states === 2) return [[1, tau], [0, 1]];
   return [[1, tau, (tau * tau) / 2], [0, 1, tau], [0, 0, 1]];
@@ -91,7 +109,7 @@ export function clockTransitionMatrix(tau: Seconds, states: ClockStates): Matrix
  * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation]; entries re-derived as ∫Φ(s)diag(q)Φ(s)ᵀds [C] and checked by simulation [C].
  */
 export function clockProcessNoise(tau: Seconds, q: ClockDiffusion, states: ClockStates): Matrix {
-  requireNonNegative('tau', tau, 's');
+  requireInterval('tau', tau, false);
   requireStates(states);
   const { q1, q2, q3 } = requireDiffusion('q', q);
   if (states === 2 && q3 !== 0) {
@@ -125,9 +143,9 @@ export function clockProcessNoise(tau: Seconds, q: ClockDiffusion, states: Clock
  */
 export function qFromH(h: PowerLawCoefficients): Required<ClockDiffusion> {
   if (typeof h !== 'object' || h === null) throw new InvalidArgumentError('h', h, 'an object { h0, hMinus2, hMinus4? }');
-  const h0 = requireNonNegative('h.h0', h.h0, 's');
-  const hm2 = requireNonNegative('h.hMinus2', h.hMinus2, '1/s');
-  const hm4 = h.hMinus4 === undefined ? 0 : requireNonNegative('h.hMinus4', h.hMinus4, '1/s³');
+  const h0 = requireInRange('h.h0', h.h0, 0, MAX_POWER_LAW, { unit: 's' });
+  const hm2 = requireInRange('h.hMinus2', h.hMinus2, 0, MAX_POWER_LAW, { unit: '1/s' });
+  const hm4 = h.hMinus4 === undefined ? 0 : requireInRange('h.hMinus4', h.hMinus4, 0, MAX_POWER_LAW, { unit: '1/s³' });
   const pi2 = Math.PI * Math.PI;
   return { q1: h0 / 2, q2: 2 * pi2 * hm2, q3: 8 * pi2 * pi2 * hm4 };
 }
@@ -161,7 +179,7 @@ export function hFromQ(q: ClockDiffusion): Required<PowerLawCoefficients> {
  * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation]; verified by our own Monte Carlo simulation [C]; equals the IEEE Std 1139 WFM/RWFM forms h0/(2τ), (2π²/3)h₋₂τ [M].
  */
 export function allanVarianceFromQ(tau: Seconds, q: ClockDiffusion): Dimensionless {
-  requirePositive('tau', tau, 's');
+  requireInterval('tau', tau, true);
   const { q1, q2, q3 } = requireDiffusion('q', q);
   if (q3 !== 0) {
     throw new InvalidArgumentError('q.q3', q3, '0 for the Allan variance',
@@ -181,7 +199,7 @@ export function allanVarianceFromQ(tau: Seconds, q: ClockDiffusion): Dimensionle
  * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation]; verified by our own Monte Carlo simulation [C].
  */
 export function hadamardVarianceFromQ(tau: Seconds, q: ClockDiffusion): Dimensionless {
-  requirePositive('tau', tau, 's');
+  requireInterval('tau', tau, true);
   const { q1, q2, q3 } = requireDiffusion('q', q);
   return q1 / tau + (q2 * tau) / 6 + (11 * q3 * tau ** 3) / 120;
 }

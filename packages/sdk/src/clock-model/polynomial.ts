@@ -6,7 +6,9 @@
  */
 import { InvalidArgumentError } from '../errors.js';
 import type { Seconds } from '../units.js';
-import { requireFinite, requirePositive } from '../internal/validate.js';
+import {
+  MAX_ABS_PHASE_SECONDS, MEASUREMENT_VARIANCE_RANGE, requireFinite, requireMeasurementVariance, requireOptions, requirePhaseSample,
+} from '../internal/validate.js';
 import type { Matrix } from './linalg.js';
 
 /** Options of {@link fitClockPolynomial}. */
@@ -76,7 +78,7 @@ export function fitClockPolynomial(t: ArrayLike<number>, phase: ArrayLike<number
   if (!phase || typeof phase.length !== 'number' || phase.length !== t.length) {
     throw new InvalidArgumentError('phase', phase, `an array of phases in seconds with the same length as t (${t.length})`);
   }
-  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an options object');
+  requireOptions('options', options);
   const degree = options.degree === undefined ? 2 : options.degree;
   if (degree !== 1 && degree !== 2) throw new InvalidArgumentError('options.degree', degree, '1 or 2');
   const p = degree + 1;
@@ -89,18 +91,19 @@ export function fitClockPolynomial(t: ArrayLike<number>, phase: ArrayLike<number
   if (v !== undefined && typeof v !== 'number' && (typeof v.length !== 'number' || v.length !== n)) {
     throw new InvalidArgumentError('options.variance', v, `a variance in s² or an array of ${n} variances`);
   }
-  const vAll = typeof v === 'number' ? requirePositive('options.variance', v, 's²') : undefined;
+  const vAll = typeof v === 'number' ? requireMeasurementVariance('options.variance', v) : undefined;
   for (let i = 0; i < n; i++) {
     // The helpers (which build their messages) run only for a bad value.
     const ti = t[i];
     const zi = phase[i];
-    tt[i] = typeof ti === 'number' && Number.isFinite(ti) ? ti : requireFinite(`t[${i}]`, ti, 'a finite epoch in seconds');
-    zz[i] = typeof zi === 'number' && Number.isFinite(zi) ? zi : requireFinite(`phase[${i}]`, zi, 'a finite phase in seconds');
+    tt[i] = typeof ti === 'number' && Math.abs(ti) <= MAX_ABS_PHASE_SECONDS ? ti : requirePhaseSample(`t[${i}]`, ti, false);
+    zz[i] = typeof zi === 'number' && Math.abs(zi) <= MAX_ABS_PHASE_SECONDS ? zi : requirePhaseSample(`phase[${i}]`, zi, false);
     if (v === undefined) w[i] = 1;
     else if (vAll !== undefined) w[i] = 1 / vAll;
     else {
       const vi = (v as ArrayLike<number>)[i];
-      w[i] = 1 / (typeof vi === 'number' && vi > 0 && vi < Infinity ? vi : requirePositive(`options.variance[${i}]`, vi, 's²'));
+      w[i] = 1 / (typeof vi === 'number' && vi >= MEASUREMENT_VARIANCE_RANGE.min && vi <= MEASUREMENT_VARIANCE_RANGE.max
+        ? vi : requireMeasurementVariance(`options.variance[${i}]`, vi));
     }
   }
   const t0 = options.referenceTime === undefined ? (tt[0] as number) : requireFinite('options.referenceTime', options.referenceTime, 'a finite epoch in seconds');

@@ -7,7 +7,7 @@
 import { InvalidArgumentError } from '../errors.js';
 import type { Seconds } from '../units.js';
 import { createRandom } from '../internal/random.js';
-import { requireFinite, requireInteger, requireNonNegative, requirePositive } from '../internal/validate.js';
+import { requireInRange, requireInteger, requireOptions } from '../internal/validate.js';
 import { cholesky } from './linalg.js';
 import { clockProcessNoise, requireDiffusion, type ClockDiffusion } from './noise.js';
 
@@ -26,7 +26,7 @@ export interface ClockJump {
 
 /** Options of {@link simulateClock}. */
 export interface ClockSimulationOptions {
-  /** Number of phase samples, ≥ 2. */
+  /** Number of phase samples, an integer in [2, 1e7] (four Float64Arrays of this length are returned: 320 MB at the bound). */
   readonly samples: number;
   /** Sample spacing, in seconds. */
   readonly tau0: Seconds;
@@ -56,6 +56,9 @@ export interface ClockSimulation {
   readonly drift: Float64Array;
 }
 
+/** Most samples one simulation returns (memory bound, our own choice). */
+const MAX_SIMULATION_SAMPLES = 10_000_000;
+
 /**
  * Simulates the clock model [x, y, d]_{k+1} = Φ(τ0)[x, y, d]_k + w_k, w_k ~ N(0, Q(τ0)), exactly
  * (no discretisation error: w_k is drawn with the covariance of the continuous model over τ0, by its
@@ -63,27 +66,30 @@ export interface ClockSimulation {
  *
  * @param options  See {@link ClockSimulationOptions}.
  * @returns {@link ClockSimulation}: measured and true phase, true frequency and drift.
- * @throws {InvalidArgumentError} for samples < 2, τ0 ≤ 0, negative q or noise, a non-integer seed,
+ * Bounds (our own, far beyond any clock; they keep every result finite): τ0 in [1e-9, 1e9] s, initial phase
+ * within ±1e9 s, frequency within ±1, drift within ±1e-3 1/s, measurement noise ≤ 1 s, jump sizes within ±1.
+ * @throws {InvalidArgumentError} for samples outside [2, 1e7], τ0 or a noise/initial value outside its bound, negative q, a non-integer seed,
  *         a jump index outside [1, samples − 1] or a jump of unknown kind.
  * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation] (model, Q(τ)); exact discretisation checked by simulation [C].
  */
 export function simulateClock(options: ClockSimulationOptions): ClockSimulation {
   if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'a simulation options object');
-  const n = requireInteger('samples', options.samples, 2, 1e8);
-  const tau0 = requirePositive('tau0', options.tau0, 's');
+  const n = requireInteger('samples', options.samples, 2, MAX_SIMULATION_SAMPLES);
+  const tau0 = requireInRange('tau0', options.tau0, 1e-9, 1e9, { unit: 's (sample spacing)' });
   const q = requireDiffusion('q', options.q);
   const seed = requireInteger('seed', options.seed);
-  const sigmaV = options.measurementNoise === undefined ? 0 : requireNonNegative('measurementNoise', options.measurementNoise, 's');
-  const init = options.initial ?? {};
-  let x = init.phase === undefined ? 0 : requireFinite('initial.phase', init.phase, 'a finite phase in seconds');
-  let y = init.frequency === undefined ? 0 : requireFinite('initial.frequency', init.frequency, 'a finite fractional frequency');
-  let d = init.drift === undefined ? 0 : requireFinite('initial.drift', init.drift, 'a finite drift in 1/s');
+  const sigmaV = options.measurementNoise === undefined ? 0 : requireInRange('measurementNoise', options.measurementNoise, 0, 1, { unit: 's' });
+  const init = requireOptions('initial', options.initial);
+  let x = init.phase === undefined ? 0 : requireInRange('initial.phase', init.phase, -1e9, 1e9, { unit: 's' });
+  let y = init.frequency === undefined ? 0 : requireInRange('initial.frequency', init.frequency, -1, 1, { unit: '(fractional frequency)' });
+  let d = init.drift === undefined ? 0 : requireInRange('initial.drift', init.drift, -1e-3, 1e-3, { unit: '1/s' });
   const phaseJumps = new Float64Array(n);
   const frequencyJumps = new Float64Array(n);
+  if (options.jumps !== undefined && !Array.isArray(options.jumps)) throw new InvalidArgumentError('jumps', options.jumps, 'an array of { index, kind, size }');
   (options.jumps ?? []).forEach((j, i) => {
     if (typeof j !== 'object' || j === null) throw new InvalidArgumentError(`jumps[${i}]`, j, 'an object { index, kind, size }');
     const k = requireInteger(`jumps[${i}].index`, j.index, 1, n - 1);
-    const size = requireFinite(`jumps[${i}].size`, j.size, 'a finite step (s for phase, dimensionless for frequency)');
+    const size = requireInRange(`jumps[${i}].size`, j.size, -1, 1, { unit: '(s for a phase step, dimensionless for a frequency step)' });
     if (j.kind === 'phase') phaseJumps[k] = (phaseJumps[k] as number) + size;
     else if (j.kind === 'frequency') frequencyJumps[k] = (frequencyJumps[k] as number) + size;
     else throw new InvalidArgumentError(`jumps[${i}].kind`, j.kind, "'phase' or 'frequency'");

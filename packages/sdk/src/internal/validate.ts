@@ -5,6 +5,7 @@
  * @internal
  */
 import { InvalidArgumentError } from '../errors.js';
+import type { ConstantSet } from '../constants.js';
 
 /** Mean equatorial radius used only to recognise "inside the Earth" input, in metres. */
 const EARTH_RADIUS_FOR_CHECKS = 6_378_137;
@@ -89,4 +90,86 @@ export function requireVector3(argument: string, value: unknown, unit: string): 
   if (arr.length !== 3) throw new InvalidArgumentError(argument, value, expected);
   for (let i = 0; i < 3; i++) requireFinite(`${argument}[${i}]`, arr[i], `a finite number in ${unit}`);
   return [arr[0] as number, arr[1] as number, arr[2] as number];
+}
+
+/**
+ * Plausible range of each numeric field of a constant set (Earth values; units in `unit`). Shared by
+ * `defineConstantSet` and {@link requireConstantSet}, so a set that one accepts the other accepts.
+ */
+export const CONSTANT_SET_RANGES = Object.freeze({
+  gm: { min: 3.9e14, max: 4.1e14, unit: 'm³/s² (Earth GM; a value near 398600 is km³/s²)' },
+  earthRotationRate: { min: 7.0e-5, max: 7.5e-5, unit: 'rad/s' },
+  equatorialRadius: { min: 6.3e6, max: 6.4e6, unit: 'm' },
+  j2: { min: 0, max: 2e-3, unit: '(dimensionless)' },
+  flattening: { min: 0, max: 0.01, unit: '(dimensionless)' },
+  lG: { min: 6.9e-10, max: 7.0e-10, unit: '(dimensionless)' },
+  pi: { min: 3.14, max: 3.15, unit: '(the set\'s fixed value of π)' },
+});
+
+/**
+ * Throws unless `value` is a constant set: an object with a `name` and every numeric field finite and
+ * inside {@link CONSTANT_SET_RANGES} (e.g. `{}` or a set with `gm: NaN` is refused, naming the field).
+ * `relativisticF` must agree with `gm` (F = −2√GM/c², IERS Conventions 2010 eq. 10.10 [V1]) to 1e-12 relative.
+ */
+export function requireConstantSet(argument: string, value: unknown): ConstantSet {
+  const expected = 'a ConstantSet (see constantSet(name) or defineConstantSet)';
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) throw new InvalidArgumentError(argument, value, expected);
+  const set = value as Record<string, unknown>;
+  if (typeof set['name'] !== 'string') throw new InvalidArgumentError(`${argument}.name`, set['name'], `a string naming the set (${expected})`);
+  for (const [field, range] of Object.entries(CONSTANT_SET_RANGES)) {
+    requireInRange(`${argument}.${field}`, set[field], range.min, range.max, { unit: range.unit });
+  }
+  const f = (-2 * Math.sqrt(set['gm'] as number)) / (299_792_458 * 299_792_458);
+  if (typeof set['relativisticF'] !== 'number' || !(Math.abs(set['relativisticF'] - f) <= 1e-12 * Math.abs(f))) {
+    throw new InvalidArgumentError(`${argument}.relativisticF`, set['relativisticF'], `−2√GM/c² = ${f} s/√m for this set's gm (build sets with defineConstantSet)`);
+  }
+  return value as ConstantSet;
+}
+
+/**
+ * Throws unless `value` is an options/container object (not null, not an array); `undefined` (an
+ * omitted argument) gives `{}` so callers can read defaults.
+ */
+export function requireOptions<T extends object>(argument: string, value: T | undefined): T {
+  if (value === undefined) return {} as T;
+  return requireObject(argument, value, 'an object of named options (or omitted)');
+}
+
+/** Throws unless `value` is a container object (not null, not an array, not a primitive). */
+export function requireObject<T extends object>(argument: string, value: T, expected = 'an object'): T {
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) throw new InvalidArgumentError(argument, value, expected);
+  return value;
+}
+
+/** Frequencies accepted for oscillators, synthesizer clocks and their references, in Hz: 1 Hz to 1 THz (our own bounds). */
+export const FREQUENCY_RANGE_HZ = { min: 1, max: 1e12 } as const;
+
+/** Throws unless `value` is a frequency in Hz within {@link FREQUENCY_RANGE_HZ}. */
+export function requireFrequency(argument: string, value: unknown): number {
+  return requireInRange(argument, value, FREQUENCY_RANGE_HZ.min, FREQUENCY_RANGE_HZ.max, { unit: 'Hz' });
+}
+
+/** Throws unless `value` is a file name or label for reader messages (a string). */
+export function requireSourceName(argument: string, value: unknown): string {
+  if (typeof value !== 'string') throw new InvalidArgumentError(argument, value, 'a file name or label (a string)');
+  return value;
+}
+
+/**
+ * Largest |phase| (time error) accepted in clock data, in seconds (31 700 years; our own bound that
+ * keeps sums of squares finite), and the accepted range of a measurement variance, in s².
+ */
+export const MAX_ABS_PHASE_SECONDS = 1e12;
+export const MEASUREMENT_VARIANCE_RANGE = { min: 1e-40, max: 1e24 } as const;
+
+/** Throws unless `value` is a phase sample in seconds, |value| ≤ MAX_ABS_PHASE_SECONDS (NaN allowed as "missing" when `missingAllowed`). */
+export function requirePhaseSample(argument: string, value: unknown, missingAllowed: boolean): number {
+  if (missingAllowed && typeof value === 'number' && Number.isNaN(value)) return value;
+  return requireInRange(argument, value, -MAX_ABS_PHASE_SECONDS, MAX_ABS_PHASE_SECONDS,
+    { unit: `s${missingAllowed ? ', or NaN for a missing sample' : ''}` });
+}
+
+/** Throws unless `value` is a measurement variance in s² within MEASUREMENT_VARIANCE_RANGE. */
+export function requireMeasurementVariance(argument: string, value: unknown): number {
+  return requireInRange(argument, value, MEASUREMENT_VARIANCE_RANGE.min, MEASUREMENT_VARIANCE_RANGE.max, { unit: 's²' });
 }

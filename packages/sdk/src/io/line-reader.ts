@@ -13,7 +13,8 @@
  * @module
  */
 import { InvalidArgumentError, ParseError } from '../errors.js';
-import { civilFromDays, daysFromCivil, daysInMonth } from '../time/calendar.js';
+import { civilFromDays, daysFromCivil, daysInMonth, MAX_CALENDAR_YEAR } from '../time/calendar.js';
+import { requireInRange, requireOptions, requireSourceName } from '../internal/validate.js';
 import { MAX_LINE_CHARACTERS } from './limits.js';
 
 /** One line of text without its line terminator. */
@@ -60,7 +61,8 @@ export class LineSplitter {
   private readonly _max: number;
 
   constructor(options: LineSplitterOptions = {}) {
-    this._sourceName = options.sourceName ?? 'text';
+    requireOptions('options', options);
+    this._sourceName = options.sourceName === undefined ? 'text' : requireSourceName('options.sourceName', options.sourceName);
     const max = options.maxLineCharacters ?? MAX_LINE_CHARACTERS;
     if (!Number.isInteger(max) || max < 1 || max > MAX_LINE_CHARACTERS) {
       throw new InvalidArgumentError('maxLineCharacters', max, `an integer number of characters in [1, ${MAX_LINE_CHARACTERS}] (MAX_LINE_CHARACTERS)`);
@@ -77,6 +79,7 @@ export class LineSplitter {
 
   /** Feeds one chunk; returns the lines it completed. */
   push(chunk: string): TextLine[] {
+    if (typeof chunk !== 'string') throw new InvalidArgumentError('chunk', chunk, 'a string of text');
     const lines: TextLine[] = [];
     let start = 0;
     if (this._atStart && chunk.length > 0) {
@@ -144,8 +147,40 @@ function* piecesOf(source: string | Iterable<string>): Generator<string> {
   if (typeof source === 'string') {
     for (let i = 0; i < source.length; i += STRING_PIECE) yield source.slice(i, i + STRING_PIECE);
   } else {
-    for (const chunk of source) yield String(chunk);
+    if (typeof source !== 'object' || source === null || typeof (source as Partial<Iterable<string>>)[Symbol.iterator] !== 'function') {
+      throw new InvalidArgumentError('source', source, 'a string or an iterable of text chunks');
+    }
+    for (const chunk of source) yield chunkText(chunk);
   }
+}
+
+/** Throws unless `line` is a {@link TextLine} (the parsers' push methods take lines from this module's splitter). */
+export function requireTextLine(line: unknown): TextLine {
+  const l = line as Partial<TextLine> | null;
+  if (typeof l !== 'object' || l === null || typeof l.text !== 'string' || !Number.isSafeInteger(l.lineNumber) || (l.lineNumber as number) < 1) {
+    throw new InvalidArgumentError('line', line, 'a line { text, lineNumber ≥ 1 } as linesOf/readLines yield');
+  }
+  return l as TextLine;
+}
+
+/** A chunk as text; a value that cannot be turned into text is refused (typed), never a TypeError. */
+function chunkText(chunk: unknown): string {
+  if (typeof chunk === 'string') return chunk;
+  try {
+    return String(chunk);
+  } catch {
+    throw new InvalidArgumentError('source chunk', chunk, 'text');
+  }
+}
+
+/** Throws unless `fields` names a real date and time (see {@link validEpochFields}). */
+function requireEpochFields(argument: string, fields: unknown): EpochFields {
+  const f = fields as EpochFields;
+  if (typeof fields !== 'object' || fields === null || !validEpochFields(f) || Math.abs(f.year) > MAX_CALENDAR_YEAR) {
+    throw new InvalidArgumentError(argument, fields,
+      `calendar fields { year, month, day, hour, minute, second } of a real date and time (|year| ≤ ${MAX_CALENDAR_YEAR}, second in [0, 61))`);
+  }
+  return f;
 }
 
 /**
@@ -174,7 +209,7 @@ export async function* readLineBatches(source: TextSource, options: LineSplitter
   const splitter = new LineSplitter(options);
   if (isAsyncIterable(source)) {
     for await (const chunk of source) {
-      const lines = splitter.push(String(chunk));
+      const lines = splitter.push(chunkText(chunk));
       if (lines.length > 0) yield lines;
     }
   } else {
@@ -215,12 +250,14 @@ const GPS_EPOCH_DAYS = 3657;
  * Resolution is the float64 spacing at ~1.5e9 s, about 2.4e-7 s.
  */
 export function scaleSecondsFromFields(fields: EpochFields): number {
+  requireEpochFields('fields', fields);
   const days = daysFromCivil(fields.year, fields.month, fields.day) - GPS_EPOCH_DAYS;
   return days * 86400 + fields.hour * 3600 + fields.minute * 60 + fields.second;
 }
 
 /** Inverse of {@link scaleSecondsFromFields}. */
 export function fieldsFromScaleSeconds(seconds: number): EpochFields {
+  requireInRange('seconds', seconds, -1e12, 1e12, { unit: 's from 1980-01-06T00:00:00' });
   const days = Math.floor(seconds / 86400);
   let rest = seconds - days * 86400;
   const { year, month, day } = civilFromDays(days + GPS_EPOCH_DAYS);
@@ -232,6 +269,7 @@ export function fieldsFromScaleSeconds(seconds: number): EpochFields {
 
 /** ISO 8601 text of calendar fields without a zone designator, e.g. `2024-01-07T00:15:00` (fraction only when present, to 1 ns). */
 export function formatEpochFields(fields: EpochFields): string {
+  requireEpochFields('fields', fields);
   const p = (n: number, w = 2) => String(n).padStart(w, '0');
   const whole = Math.floor(fields.second);
   let frac = '';
@@ -255,6 +293,7 @@ const FORTRAN_NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([EeDd][+-]?\d+)?$/;
  * `undefined` for a blank field, `NaN` for text that is not a number.
  */
 export function parseFortranReal(field: string): number | undefined {
+  if (typeof field !== 'string') throw new InvalidArgumentError('field', field, 'the text of a fixed-width numeric field');
   const t = field.trim();
   if (t === '') return undefined;
   if (!FORTRAN_NUMBER.test(t)) return Number.NaN;

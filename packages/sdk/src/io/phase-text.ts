@@ -9,6 +9,7 @@
 import { ParseError } from '../errors.js';
 import type { Seconds } from '../units.js';
 import { linesOf, readLineBatches, type TextLine, type TextSource } from './line-reader.js';
+import { requireOptions, requireSourceName } from '../internal/validate.js';
 import { MAX_SERIES_SAMPLES } from './limits.js';
 
 /** A run of missing samples in a regularised series. */
@@ -126,8 +127,8 @@ class PhaseTextBuilder {
   private readonly _values = new Growable();
   private readonly _lines = new GrowableInt();
   constructor(options: PhaseTextOptions) {
-    this._options = options;
-    this._name = options.sourceName ?? 'phase';
+    this._options = requireOptions('options', options);
+    this._name = options.sourceName === undefined ? 'phase' : requireSourceName('options.sourceName', options.sourceName);
   }
 
   add(line: TextLine): void {

@@ -5,10 +5,11 @@
  *
  * @module
  */
-import { ParseError } from '../errors.js';
+import { InvalidArgumentError, ParseError } from '../errors.js';
+import { requireOptions, requireSourceName } from '../internal/validate.js';
 import type { Seconds } from '../units.js';
 import { MAX_SERIES_SAMPLES } from './limits.js';
-import { scaleSecondsFromFields, type TextSource } from './line-reader.js';
+import { scaleSecondsFromFields, validEpochFields, type TextSource } from './line-reader.js';
 import { regularizeSeries, type SampleGap } from './phase-text.js';
 import {
   readRinexClock, type RinexClockFile, type RinexClockHeader, type RinexClockReadOptions, type RinexClockRecord,
@@ -78,13 +79,15 @@ export class RinexClockSeriesCollector {
   private readonly _names = new Set<string>();
 
   constructor(sourceName: string, name: string, options: RinexClockSeriesOptions = {}) {
-    this._source = sourceName;
+    this._source = requireSourceName('sourceName', sourceName);
+    if (typeof name !== 'string') throw new InvalidArgumentError('name', name, 'a satellite or receiver name, e.g. "G05"');
     this._name = name;
-    this._options = options;
+    this._options = requireOptions('options', options);
   }
 
   /** Takes one record; keeps it when it belongs to the chosen clock. @throws {ParseError} on a repeated or earlier epoch. */
   add(r: RinexClockRecord): void {
+    requireClockRecord('record', r);
     if (r.name !== this._name || (this._options.type !== undefined && r.type !== this._options.type)) {
       if (this._names.size < NAMES_LISTED) this._names.add(r.name);
       return;
@@ -109,6 +112,11 @@ export class RinexClockSeriesCollector {
    * @throws {ParseError} no record for the clock, a step not a whole multiple of τ0, or a series over the limit.
    */
   finish(header: RinexClockHeader): RinexClockSeries {
+    const h = header as Partial<RinexClockHeader> | null;
+    if (typeof h !== 'object' || h === null || !Number.isSafeInteger(h.lines) || (h.lines as number) < 1
+      || (h.timeSystem !== undefined && typeof h.timeSystem !== 'string')) {
+      throw new InvalidArgumentError('header', header, 'the header of the file the records came from ({ lines ≥ 1, timeSystem }, as the reader yields it)');
+    }
     const n = this._times.length;
     if (n === 0) {
       const names = [...this._names].join(', ');
@@ -146,6 +154,24 @@ function checkSeriesLength(source: string, times: Float64Array, lineOf: (i: numb
   }
 }
 
+/** Throws unless `r` is a record as {@link parseRinexClock} returns (a hand-made or damaged record is refused, naming the field). */
+function requireClockRecord(argument: string, r: unknown): void {
+  const rec = r as Partial<RinexClockRecord> | null;
+  if (typeof rec !== 'object' || rec === null || typeof rec.name !== 'string' || !Number.isFinite(rec.bias) || !Number.isInteger(rec.line)
+    || typeof rec.epoch !== 'object' || rec.epoch === null || !validEpochFields(rec.epoch)) {
+    throw new InvalidArgumentError(argument, r, 'a record { name, type, epoch, bias (s), line } as parseRinexClock returns');
+  }
+}
+
+/** Throws unless `file` has the shape {@link parseRinexClock} returns (records are checked as they are collected). */
+function requireClockFile(file: unknown): void {
+  const f = file as Partial<RinexClockFile> | null;
+  if (typeof f !== 'object' || f === null || typeof f.sourceName !== 'string' || typeof f.header !== 'object' || f.header === null
+    || !Array.isArray(f.records)) {
+    throw new InvalidArgumentError('file', file, 'a parsed RINEX clock file (the result of parseRinexClock)');
+  }
+}
+
 /**
  * Extracts one clock's bias as a uniformly sampled phase series from a parsed file. Missing epochs become
  * NaN samples listed in `gaps` (never interpolated).
@@ -157,6 +183,7 @@ function checkSeriesLength(source: string, times: Float64Array, lineOf: (i: numb
  *   multiple of τ0, or the series would exceed MAX_SERIES_SAMPLES (line of the offending record).
  */
 export function rinexClockSeries(file: RinexClockFile, name: string, options: RinexClockSeriesOptions = {}): RinexClockSeries {
+  requireClockFile(file);
   const c = new RinexClockSeriesCollector(file.sourceName, name, options);
   for (const r of file.records) c.add(r);
   return c.finish(file.header);
@@ -172,6 +199,7 @@ export function rinexClockSeries(file: RinexClockFile, name: string, options: Ri
  */
 export async function readRinexClockSeries(source: TextSource, name: string,
   options: RinexClockReadOptions & RinexClockSeriesOptions = {}): Promise<RinexClockSeries> {
+  requireOptions('options', options);
   const c = new RinexClockSeriesCollector(options.sourceName ?? 'rinex-clock', name, options);
   let header: RinexClockHeader | undefined;
   for await (const ev of readRinexClock(source, options)) {

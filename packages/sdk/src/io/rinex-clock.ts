@@ -30,7 +30,10 @@
  */
 import { ParseError } from '../errors.js';
 import type { Seconds } from '../units.js';
-import { linesOf, readLineBatches, validEpochFields, type EpochFields, type TextLine, type TextSource } from './line-reader.js';
+import {
+  linesOf, readLineBatches, requireTextLine, validEpochFields, type EpochFields, type TextLine, type TextSource,
+} from './line-reader.js';
+import { requireOptions, requireSourceName } from '../internal/validate.js';
 
 /** Header fields the reader interprets. */
 export interface RinexClockHeader {
@@ -148,7 +151,8 @@ export class RinexClockParser {
   private _pending: Pending | undefined;
 
   constructor(options: RinexClockReadOptions = {}) {
-    this._source = options.sourceName ?? 'rinex-clock';
+    requireOptions('options', options);
+    this._source = options.sourceName === undefined ? 'rinex-clock' : requireSourceName('options.sourceName', options.sourceName);
   }
 
   private _error(line: number, column: number | undefined, expected: string, found?: string): ParseError {
@@ -157,6 +161,7 @@ export class RinexClockParser {
 
   /** Feeds one line; returns the events it completed. @throws {ParseError} */
   push(line: TextLine): RinexClockEvent[] {
+    requireTextLine(line);
     this._lastLine = line.lineNumber;
     const cr = line.text.indexOf('\r');
     if (cr >= 0) {
@@ -335,7 +340,7 @@ export class RinexClockParser {
 
 /** Options as an object, or the source name alone (the form of earlier releases). */
 function readOptions(options: RinexClockReadOptions | string | undefined): RinexClockReadOptions {
-  return typeof options === 'string' ? { sourceName: options } : options ?? {};
+  return typeof options === 'string' ? { sourceName: options } : requireOptions('options', options);
 }
 
 /**

@@ -20,7 +20,10 @@
  */
 import { ParseError } from '../errors.js';
 import type { KeplerianSystem } from '../orbit/broadcast.js';
-import { type TextLine, type TextSource, linesOf, readLineBatches, validEpochFields, type EpochFields } from './line-reader.js';
+import { requireOptions, requireSourceName } from '../internal/validate.js';
+import {
+  type TextLine, type TextSource, linesOf, readLineBatches, requireTextLine, validEpochFields, type EpochFields,
+} from './line-reader.js';
 import { NavHeaderReader, type NavVersionLine, readNavVersionLine } from './rinex-nav-header.js';
 import { KEPLER_RECORD_LINES, RINEX3_LAYOUT, checkFieldAlignment, decodeKeplerRecord } from './rinex-nav-kepler.js';
 import { MINIMUM_SKIPPED_LINES_V3, SYSTEM_NAMES, skipReason, v4RecordLines } from './rinex-nav-skip.js';
@@ -59,11 +62,13 @@ export class RinexNavParser {
   private _lastLine = 0;
 
   constructor(options: RinexNavReadOptions = {}) {
-    this._source = options.sourceName ?? 'rinex-nav';
+    requireOptions('options', options);
+    this._source = options.sourceName === undefined ? 'rinex-nav' : requireSourceName('options.sourceName', options.sourceName);
   }
 
   /** Feeds one line; returns the events it completed. @throws {ParseError} */
   push(line: TextLine): RinexNavEvent[] {
+    requireTextLine(line);
     this._lastLine = line.lineNumber;
     if (this._state === 'first') {
       this._first = readNavVersionLine(this._source, line);

@@ -27,11 +27,12 @@
  */
 import { ParseError } from '../errors.js';
 import type { Vector3 } from '../units.js';
+import { requireOptions, requireSourceName } from '../internal/validate.js';
 import type {
   Sp3Epoch, Sp3Event, Sp3File, Sp3Header, Sp3ReadOptions, Sp3TimeSystem, Sp3Version,
 } from './sp3-types.js';
 import {
-  type EpochFields, type TextLine, type TextSource, linesOf, readLineBatches, scaleSecondsFromFields, validEpochFields,
+  type EpochFields, type TextLine, type TextSource, linesOf, readLineBatches, requireTextLine, scaleSecondsFromFields, validEpochFields,
 } from './line-reader.js';
 
 export type {
@@ -90,7 +91,8 @@ export class Sp3Parser {
   private _lastScaleSeconds = -Infinity;
 
   constructor(options: Sp3ReadOptions = {}) {
-    this._source = options.sourceName ?? 'sp3';
+    requireOptions('options', options);
+    this._source = options.sourceName === undefined ? 'sp3' : requireSourceName('options.sourceName', options.sourceName);
   }
 
   private _error(line: TextLine, column: number | undefined, expected: string, found?: string): ParseError {
@@ -99,6 +101,7 @@ export class Sp3Parser {
 
   /** Feeds one line; returns the events it completed. @throws {ParseError} */
   push(line: TextLine): Sp3Event[] {
+    requireTextLine(line);
     this._lastLine = line.lineNumber;
     const t = line.text;
     switch (this._stage) {

@@ -15,7 +15,7 @@ import type { Metres, Radians, RadiansPerSecond, Seconds, Vector3 } from '../uni
 import type { ConstantSet } from '../constants.js';
 import { BEIDOU_ICD, GALILEO_ICD, GPS_ICD } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
-import { requireFinite } from '../internal/validate.js';
+import { requireFinite, requireOptions, requirePositive } from '../internal/validate.js';
 import { solveKepler } from './kepler.js';
 import type { StateVector } from './elements.js';
 
@@ -145,27 +145,28 @@ export function weekCrossover(dt: Seconds): Seconds {
  * PRN ranges from memory [M]; no published assignment list was checked (the GEO algorithm itself: BDS-SIS-ICD B1I §5.2.4.12 [M]).
  */
 export function isBeidouGeostationary(satellite: string): boolean {
+  if (typeof satellite !== 'string') throw new InvalidArgumentError('satellite', satellite, 'a satellite identifier such as "C03"');
   const m = /^C(\d\d)$/.exec(satellite);
   if (!m) return false;
   const prn = Number(m[1]);
   return (prn >= 1 && prn <= 5) || (prn >= 59 && prn <= 63);
 }
 
-function validateRecord(eph: KeplerianBroadcastEphemeris): void {
-  if (eph === null || typeof eph !== 'object') throw new InvalidArgumentError('ephemeris', eph, 'a broadcast ephemeris record');
+function validateRecord(eph: KeplerianBroadcastEphemeris, name = 'ephemeris'): void {
+  if (eph === null || typeof eph !== 'object') throw new InvalidArgumentError(name, eph, 'a broadcast ephemeris record');
   systemConstants(eph.system);
   for (const key of ['tocSeconds', 'toeSeconds', 'af0', 'af1', 'af2', 'm0', 'deltaN', 'omega0', 'i0', 'argumentOfPerigee',
     'omegaDot', 'idot', 'cuc', 'cus', 'cic', 'cis', 'crc', 'crs'] as const) {
-    requireFinite(`ephemeris.${key}`, eph[key]);
+    requireFinite(`${name}.${key}`, eph[key]);
   }
-  const sqrtA = requireFinite('ephemeris.sqrtA', eph.sqrtA, 'a finite √A in √m');
+  const sqrtA = requireFinite(`${name}.sqrtA`, eph.sqrtA, 'a finite √A in √m');
   // √A between ~2500 √m (a = 6.3e6 m) and 1e5 √m: anything else is not an Earth orbit (plausibility bound, our own choice).
   if (!(sqrtA > 2500 && sqrtA < 1e5)) {
-    throw new InvalidArgumentError('ephemeris.sqrtA', sqrtA, 'in (2500, 100000) √m (square root of the semi-major axis in metres)',
+    throw new InvalidArgumentError(`${name}.sqrtA`, sqrtA, 'in (2500, 100000) √m (square root of the semi-major axis in metres)',
       sqrtA > 0 && sqrtA <= 2500 && sqrtA * Math.sqrt(1000) > 2500 ? 'did you give √A with A in kilometres?' : undefined);
   }
-  const e = requireFinite('ephemeris.eccentricity', eph.eccentricity, 'in [0, 1)');
-  if (e < 0 || e >= 1) throw new InvalidArgumentError('ephemeris.eccentricity', e, 'in [0, 1) for an elliptical orbit');
+  const e = requireFinite(`${name}.eccentricity`, eph.eccentricity, 'in [0, 1)');
+  if (e < 0 || e >= 1) throw new InvalidArgumentError(`${name}.eccentricity`, e, 'in [0, 1) for an elliptical orbit');
 }
 
 /**
@@ -319,6 +320,14 @@ export interface EphemerisSelectionOptions {
 export function selectEphemeris(records: readonly KeplerianBroadcastEphemeris[], t: Seconds,
   options: EphemerisSelectionOptions = {}): KeplerianBroadcastEphemeris | undefined {
   requireFinite('t', t, 'a finite time in scale seconds');
+  if (!Array.isArray(records)) throw new InvalidArgumentError('records', records, 'an array of broadcast ephemeris records');
+  records.forEach((r, i) => {
+    validateRecord(r, `records[${i}]`);
+    requireFinite(`records[${i}].issueOfData`, r.issueOfData);
+    requireFinite(`records[${i}].health`, r.health);
+    requirePositive(`records[${i}].fitIntervalSeconds`, r.fitIntervalSeconds, 's');
+  });
+  requireOptions('options', options);
   const preferred = options.galileoMessage ?? 'INAV';
   const pick = (filter: (r: KeplerianBroadcastEphemeris) => boolean) => {
     let best: KeplerianBroadcastEphemeris | undefined;

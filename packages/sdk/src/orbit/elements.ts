@@ -6,8 +6,9 @@
 import type { CubicMetresPerSecondSquared, Dimensionless, Metres, Radians, Vector3 } from '../units.js';
 import { InvalidArgumentError } from '../errors.js';
 import {
-  requireEccentricity, requireFinite, requireInRange, requirePositive, requireVector3,
+  CONSTANT_SET_RANGES, requireEccentricity, requireFinite, requireInRange, requireOrbitRadius, requireVector3,
 } from '../internal/validate.js';
+import { SPEED_OF_LIGHT } from '../constants.js';
 import { solveKepler, trueToEccentricAnomaly } from './kepler.js';
 
 /**
@@ -57,18 +58,32 @@ function wrapTwoPi(angle: number): number {
   return w >= TWO_PI ? 0 : w;
 }
 
+/** Largest semi-major axis or distance accepted, in metres (beyond the planets; keeps products of a finite). */
+const MAX_DISTANCE = 1e13;
+
+/** Throws unless the field label a caller passes for error messages is a string. */
+function requireLabel(argument: unknown): void {
+  if (typeof argument !== 'string') throw new InvalidArgumentError('argument', argument, 'a string naming the field in error messages');
+}
+
+/** True when `gm` is the Earth's (any constant set's value): the orbit must then clear the Earth, see requireOrbitRadius. */
+function isEarthGm(gm: number): boolean {
+  return gm >= CONSTANT_SET_RANGES.gm.min && gm <= CONSTANT_SET_RANGES.gm.max;
+}
+
 /**
  * Validates a set of elements field by field (field names `elements.<field>`).
  * @throws {InvalidArgumentError} naming the first bad field.
  */
 export function requireKeplerianElements(elements: unknown, argument = 'elements'): KeplerianElements {
+  requireLabel(argument);
   if (typeof elements !== 'object' || elements === null) {
     throw new InvalidArgumentError(argument, elements,
       'an object { semiMajorAxis, eccentricity, inclination, raan, argumentOfPerigee, meanAnomaly } in metres and radians');
   }
   const el = elements as Record<string, unknown>;
   return {
-    semiMajorAxis: requirePositive(`${argument}.semiMajorAxis`, el['semiMajorAxis'], 'm'),
+    semiMajorAxis: requireInRange(`${argument}.semiMajorAxis`, el['semiMajorAxis'], 1, MAX_DISTANCE, { unit: 'm' }),
     eccentricity: requireEccentricity(`${argument}.eccentricity`, el['eccentricity']),
     inclination: requireInRange(`${argument}.inclination`, el['inclination'], 0, Math.PI, { unit: 'rad' }),
     raan: requireFinite(`${argument}.raan`, el['raan'], 'a finite angle in radians'),
@@ -82,6 +97,7 @@ export function requireKeplerianElements(elements: unknown, argument = 'elements
  * @throws {InvalidArgumentError} naming the first bad field.
  */
 export function requireStateVector(state: unknown, argument = 'state'): StateVector {
+  requireLabel(argument);
   if (typeof state !== 'object' || state === null) {
     throw new InvalidArgumentError(argument, state, 'an object { position, velocity } of 3-vectors in m and m/s');
   }
@@ -109,7 +125,9 @@ export function requireStateVector(state: unknown, argument = 'state'): StateVec
  */
 export function elementsToState(elements: KeplerianElements, gm: CubicMetresPerSecondSquared): StateVector {
   const el = requireKeplerianElements(elements);
-  const mu = requirePositive('gm', gm, 'm³/s²');
+  const mu = requireInRange('gm', gm, 0, 1e21, { minExclusive: true, unit: 'm³/s² (the Sun\'s is 1.3e20)' });
+  // With the Earth's GM, a semi-major axis inside the Earth is refused with the kilometre hint of meanClockRate.
+  if (isEarthGm(mu)) requireOrbitRadius('elements.semiMajorAxis', el.semiMajorAxis);
   const { semiMajorAxis: a, eccentricity: e, inclination: i, raan, argumentOfPerigee: w } = el;
   const E = solveKepler(el.meanAnomaly, e);
   const cosE = Math.cos(E);
@@ -157,9 +175,10 @@ export function elementsToState(elements: KeplerianElements, gm: CubicMetresPerS
  */
 export function stateToElements(state: StateVector, gm: CubicMetresPerSecondSquared): KeplerianElements {
   const { position: p, velocity: v } = requireStateVector(state);
-  const mu = requirePositive('gm', gm, 'm³/s²');
+  const mu = requireInRange('gm', gm, 0, 1e21, { minExclusive: true, unit: 'm³/s² (the Sun\'s is 1.3e20)' });
   const r = Math.hypot(p[0], p[1], p[2]);
-  if (!(r > 0)) throw new InvalidArgumentError('state.position', p, 'a non-zero position vector in metres');
+  requireInRange('|state.position|', r, 1, MAX_DISTANCE, { unit: 'm' });
+  requireInRange('|state.velocity|', Math.hypot(v[0], v[1], v[2]), 0, SPEED_OF_LIGHT, { unit: 'm/s (below the speed of light)' });
   const hx = p[1] * v[2] - p[2] * v[1];
   const hy = p[2] * v[0] - p[0] * v[2];
   const hz = p[0] * v[1] - p[1] * v[0];

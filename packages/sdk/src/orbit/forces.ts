@@ -20,7 +20,7 @@
 import type { CubicMetresPerSecondSquared, Metres, Seconds, SquareMetresPerSecondSquared, Vector3 } from '../units.js';
 import { DEFAULT_CONSTANT_SET, type ConstantSet } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
-import { requireFinite, requirePositive, requireVector3 } from '../internal/validate.js';
+import { requireConstantSet, requireFinite, requireInRange, requireOptions, requirePositive, requireVector3 } from '../internal/validate.js';
 import { moonPositionAt, sunPositionAt } from './ephemeris.js';
 
 /** Gravitational parameter of the Moon, 4.902800066e12 m³/s² (JPL DE-series value) [M]. */
@@ -69,7 +69,8 @@ export interface GravityField {
  */
 export function createGravityField(model: GravityModel, options: GravityFieldOptions = {}): GravityField {
   if (!GRAVITY_MODELS.includes(model)) throw new InvalidArgumentError('model', model, `one of ${GRAVITY_MODELS.join(', ')}`);
-  const constants = options.constants ?? DEFAULT_CONSTANT_SET;
+  requireOptions('options', options);
+  const constants = options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet('options.constants', options.constants);
   const gm = constants.gm;
   const k = model === 'point-mass' ? 0 : gm * constants.j2 * constants.equatorialRadius ** 2;
   const epoch = requireFinite('epochTtSecondsSinceJ2000', options.epochTtSecondsSinceJ2000 ?? 0);
@@ -166,12 +167,12 @@ function tidal(gmB: number, b: Vector3, x: number, y: number, z: number): number
  * Point-mass potential U = GM/r, in m²/s².
  * @param position Geocentric position, metres.
  * @param gm Gravitational parameter, m³/s².
- * @throws {InvalidArgumentError} for a non-finite position, r = 0, or a non-positive GM.
+ * @throws {InvalidArgumentError} for a non-finite position, |r| outside [1, 1e13] m, or GM outside (0, 1e21] m³/s².
  * @see IERS Conventions (2010) §10.2 (U_E, positive convention) [V1].
  */
 export function pointMassPotential(position: Vector3, gm: CubicMetresPerSecondSquared = DEFAULT_CONSTANT_SET.gm): SquareMetresPerSecondSquared {
   const [x, y, z] = requireVector3('position', position, 'metres');
-  requirePositive('gm', gm, 'm³/s²');
+  requireInRange('gm', gm, 0, 1e21, { minExclusive: true, unit: 'm³/s² (the Sun\'s is 1.3e20)' });
   const r = nonZero(x, y, z);
   return gm / r;
 }
@@ -180,11 +181,12 @@ export function pointMassPotential(position: Vector3, gm: CubicMetresPerSecondSq
  * The J2 part of the Earth's potential, U_J2 = −(GM J2 a_e²/(2 r³))(3 sin²φ − 1), sin φ = z/r, in m²/s².
  * @param position Geocentric position in a frame with z along the rotation axis, metres.
  * @param constants GM, J2 and a_e (default IERS 2010).
- * @throws {InvalidArgumentError} for a non-finite position or r = 0.
+ * @throws {InvalidArgumentError} for a non-finite position, |r| outside [1, 1e13] m or a malformed constant set.
  * @see W. A. Heiskanen & H. Moritz, Physical Geodesy (1967), §2-9 zonal harmonics [M]; sign convention of IERS 2010 §10.2 [V1].
  */
 export function j2Potential(position: Vector3, constants: ConstantSet = DEFAULT_CONSTANT_SET): SquareMetresPerSecondSquared {
   const [x, y, z] = requireVector3('position', position, 'metres');
+  requireConstantSet('constants', constants);
   const r = nonZero(x, y, z);
   return (-(constants.gm * constants.j2 * constants.equatorialRadius ** 2) / (2 * r ** 3)) * ((3 * z * z) / (r * r) - 1);
 }
@@ -194,14 +196,16 @@ export function j2Potential(position: Vector3, constants: ConstantSet = DEFAULT_
  * @param position Geocentric position of the clock, metres.
  * @param bodyPosition Geocentric position of the body, metres.
  * @param gmBody Gravitational parameter of the body, m³/s².
- * @throws {InvalidArgumentError} for non-finite vectors or a non-positive GM.
+ * @throws {InvalidArgumentError} for non-finite vectors, distances outside [1, 1e13] m, the body within 1 m of the position, or GM outside (0, 1e21] m³/s².
  * @see IERS Conventions (2010) §10.2 eq. 10.6 (tidal terms V(X_A) − V(X_E) − x^i ∂_i V(X_E)) [V1].
  */
 export function thirdBodyTidalPotential(position: Vector3, bodyPosition: Vector3, gmBody: CubicMetresPerSecondSquared): SquareMetresPerSecondSquared {
   const [x, y, z] = requireVector3('position', position, 'metres');
   const b = requireVector3('bodyPosition', bodyPosition, 'metres');
-  requirePositive('gmBody', gmBody, 'm³/s²');
-  nonZero(b[0], b[1], b[2]);
+  requireInRange('gmBody', gmBody, 0, 1e21, { minExclusive: true, unit: 'm³/s² (the Sun\'s is 1.3e20)' });
+  nonZero(x, y, z);
+  nonZero(b[0], b[1], b[2], 'bodyPosition');
+  separated(x, y, z, b);
   return tidal(gmBody, b, x, y, z);
 }
 
@@ -210,19 +214,35 @@ export function thirdBodyTidalPotential(position: Vector3, bodyPosition: Vector3
  * @param position Geocentric position of the satellite, metres.
  * @param bodyPosition Geocentric position of the body, metres.
  * @param gmBody Gravitational parameter of the body, m³/s².
- * @throws {InvalidArgumentError} for non-finite vectors or a non-positive GM.
+ * @throws {InvalidArgumentError} for non-finite vectors, distances outside [1, 1e13] m, the body within 1 m of the position, or GM outside (0, 1e21] m³/s².
  * @see O. Montenbruck & E. Gill, Satellite Orbits (2000), eq. (3.37) [M].
  */
 export function thirdBodyAcceleration(position: Vector3, bodyPosition: Vector3, gmBody: CubicMetresPerSecondSquared): Vector3 {
   const [x, y, z] = requireVector3('position', position, 'metres');
   const b = requireVector3('bodyPosition', bodyPosition, 'metres');
-  requirePositive('gmBody', gmBody, 'm³/s²');
-  nonZero(b[0], b[1], b[2]);
+  requireInRange('gmBody', gmBody, 0, 1e21, { minExclusive: true, unit: 'm³/s² (the Sun\'s is 1.3e20)' });
+  nonZero(x, y, z);
+  nonZero(b[0], b[1], b[2], 'bodyPosition');
+  separated(x, y, z, b);
   return thirdBody(gmBody, b, x, y, z);
 }
 
-function nonZero(x: number, y: number, z: number): Metres {
+/** Distances these formulas accept, in metres: from 1 m (the potential is singular at r = 0) to 1e13 m (beyond the planets). */
+const MIN_DISTANCE = 1;
+const MAX_DISTANCE = 1e13;
+
+function nonZero(x: number, y: number, z: number, argument = 'position'): Metres {
   const r = Math.hypot(x, y, z);
-  if (!(r > 0)) throw new InvalidArgumentError('position', [x, y, z], 'a non-zero vector (the potential is singular at the origin)');
+  if (!(r >= MIN_DISTANCE && r <= MAX_DISTANCE)) {
+    throw new InvalidArgumentError(argument, [x, y, z], `a vector of length in [${MIN_DISTANCE}, ${MAX_DISTANCE}] m (the potential is singular at the origin)`);
+  }
   return r;
+}
+
+/** Throws unless the clock and the third body are at least 1 m apart (the tidal terms are singular where they meet). */
+function separated(x: number, y: number, z: number, b: Vector3): void {
+  const d = Math.hypot(b[0] - x, b[1] - y, b[2] - z);
+  if (!(d >= MIN_DISTANCE)) {
+    throw new InvalidArgumentError('bodyPosition', b, `a point at least ${MIN_DISTANCE} m from position [${x}, ${y}, ${z}] m`);
+  }
 }

@@ -12,7 +12,7 @@
  * @module
  */
 import { ConvergenceError, InvalidArgumentError } from '../errors.js';
-import { requireFinite, requirePositive } from '../internal/validate.js';
+import { requireFinite, requireInteger, requireOptions, requirePositive } from '../internal/validate.js';
 
 /** Right-hand side of y' = f(t, y): writes dy/dt into `dydt` (same length as `y`); must not keep `y`. */
 export type OdeRightHandSide = (t: number, y: Float64Array, dydt: Float64Array) => void;
@@ -27,7 +27,7 @@ export interface Dop853Options {
   initialStep?: number;
   /** Largest step allowed, in the unit of t (default: the whole span). */
   maxStep?: number;
-  /** Limit on accepted + rejected steps before a {@link ConvergenceError} (default 1 000 000). */
+  /** Limit on accepted + rejected steps before a {@link ConvergenceError}, an integer in [1, 1e7] (default 1 000 000). */
   maxSteps?: number;
   /**
    * Times at which to return the state (strictly increasing, within [t0, tEnd]), evaluated by the
@@ -98,6 +98,9 @@ const MAX_FACTOR = 10;
 
 interface Segment { t0: number; h: number; y0: Float64Array; F: Float64Array }
 
+/** Largest `maxSteps` accepted (ten million steps: minutes of work, the bound on any one call). */
+const MAX_STEPS_LIMIT = 10_000_000;
+
 /**
  * Integrates y' = f(t, y) from t0 to tEnd (tEnd > t0) with the Dormand–Prince 8(5,3) pair and
  * adaptive step size; the state can be sampled at given times through the 7th-order dense output.
@@ -122,6 +125,9 @@ interface Segment { t0: number; h: number; y0: Float64Array; F: Float64Array }
  */
 export function integrateDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<number>, tEnd: number,
   options: Dop853Options = {}): Dop853Result {
+  if (typeof f !== 'function') throw new InvalidArgumentError('f', f, 'a function (t, y, dydt) writing the derivative into dydt');
+  if (!Array.isArray(y0) && !(y0 instanceof Float64Array)) throw new InvalidArgumentError('y0', y0, 'an array of finite numbers');
+  requireOptions('options', options);
   requireFinite('t0', t0);
   requireFinite('tEnd', tEnd);
   if (!(tEnd > t0)) throw new InvalidArgumentError('tEnd', tEnd, `greater than t0 = ${t0}`);
@@ -143,7 +149,7 @@ export function integrateDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<n
   const span = tEnd - t0;
   const maxStep = options.maxStep === undefined ? span : requirePositive('maxStep', options.maxStep);
   const maxSteps = options.maxSteps ?? 1_000_000;
-  if (!Number.isInteger(maxSteps) || maxSteps < 1) throw new InvalidArgumentError('maxSteps', maxSteps, 'a positive integer');
+  requireInteger('maxSteps', maxSteps, 1, MAX_STEPS_LIMIT);
   const sampleTimes = options.sampleTimes ?? [];
   for (let k = 0; k < sampleTimes.length; k++) {
     const s = requireFinite(`sampleTimes[${k}]`, sampleTimes[k]);

@@ -6,7 +6,7 @@
  */
 import type { CubicMetresPerSecondSquared, Dimensionless, Metres, Radians, RadiansPerSecond, Seconds } from '../units.js';
 import { ConvergenceError } from '../errors.js';
-import { requireEccentricity, requireFinite, requirePositive } from '../internal/validate.js';
+import { requireEccentricity, requireFinite, requireInRange, requirePositive } from '../internal/validate.js';
 
 /** Absolute tolerance on the residual E − e·sin E − M for |M| ≤ π, in radians. */
 export const KEPLER_RESIDUAL_TOLERANCE: Radians = 1e-15;
@@ -55,6 +55,7 @@ function ulp(x: number): number {
  * max(1e-15, 4·ulp(M)) (e.g. 3.6e-15 for M ≈ 2π, 5.7e-14 for M ≈ 100 rad).
  */
 export function keplerTolerance(meanAnomaly: Radians): Radians {
+  requireFinite('meanAnomaly', meanAnomaly, 'a finite angle in radians');
   return Math.abs(meanAnomaly) <= Math.PI ? KEPLER_RESIDUAL_TOLERANCE : Math.max(KEPLER_RESIDUAL_TOLERANCE, 4 * ulp(meanAnomaly));
 }
 
@@ -229,15 +230,15 @@ export function eccentricToMeanAnomaly(eccentricAnomaly: Radians, eccentricity: 
 /**
  * Mean motion of a two-body orbit: n = √(GM / a³).
  *
- * @param semiMajorAxis  a, in metres (> 0; the function is body-agnostic, so a below the Earth's radius is allowed).
- * @param gm             GM of the central body, in m³/s² (> 0).
+ * @param semiMajorAxis  a, in metres, 1 m to 1e13 m (body-agnostic, so a below the Earth's radius is allowed).
+ * @param gm             GM of the central body, in m³/s², in (0, 1e21] (the Sun's is 1.3e20).
  * @returns n, in rad/s.
  * @throws {InvalidArgumentError} if a or GM is not a finite positive number.
  * @see Kepler's third law (common practice, no source); IS-GPS-200 Table 20-IV "n0 = √(μ/A³)" [M].
  */
 export function meanMotion(semiMajorAxis: Metres, gm: CubicMetresPerSecondSquared): RadiansPerSecond {
-  const a = requirePositive('semiMajorAxis', semiMajorAxis, 'm');
-  const mu = requirePositive('gm', gm, 'm³/s²');
+  const a = requireInRange('semiMajorAxis', semiMajorAxis, 1, 1e13, { unit: 'm (1 m up to beyond the planets)' });
+  const mu = requireInRange('gm', gm, 0, 1e21, { minExclusive: true, unit: 'm³/s² (the Sun\'s is 1.3e20)' });
   return Math.sqrt(mu / a) / a;
 }
 

@@ -6,7 +6,7 @@
  */
 import type { Dimensionless, Hertz } from '../units.js';
 import { InvalidArgumentError } from '../errors.js';
-import { requireInteger, requirePositive } from '../internal/validate.js';
+import { requireFrequency, requireInteger, requirePositive } from '../internal/validate.js';
 import { SECONDS_PER_DAY } from '../constants.js';
 import { FLIGHT_CONFIGURATION_CAUTION } from '../caution.js';
 
@@ -77,11 +77,11 @@ function requireWord(word: unknown, bits: number): bigint {
  * @param clockFrequency  f_clk, in hertz (> 0).
  * @param bits            Accumulator width N, an integer in [8, 64].
  * @returns f_out, in hertz.
- * @throws {InvalidArgumentError} for a word outside [0, 2^N), f_clk ≤ 0 or N outside [8, 64].
+ * @throws {InvalidArgumentError} for a word outside [0, 2^N), f_clk outside 1 Hz..1 THz or N outside [8, 64].
  * @see Phase-accumulator synthesis, J. Tierney, C. Rader & B. Gold, IEEE Trans. Audio Electroacoust. 19 (1971) 48–57 [M].
  */
 export function tuningWordFrequency(word: bigint, clockFrequency: Hertz, bits: number): Hertz {
-  const f = requirePositive('clockFrequency', clockFrequency, 'Hz');
+  const f = requireFrequency('clockFrequency', clockFrequency);
   const n = requireBits(bits);
   const w = requireWord(word, n);
   const clock = decompose(f);
@@ -95,13 +95,13 @@ export function tuningWordFrequency(word: bigint, clockFrequency: Hertz, bits: n
  * @param bits              Accumulator width N, an integer in [8, 64].
  * @param relativeTo        Frequency to refer the step to, in hertz (> 0); usually the output frequency.
  * @returns The fractional frequency step of one least-significant bit.
- * @throws {InvalidArgumentError} for non-positive frequencies or N outside [8, 64].
+ * @throws {InvalidArgumentError} for a frequency outside 1 Hz..1 THz or N outside [8, 64].
  * @see Phase-accumulator synthesis, f_out = W·f_clk/2^N (Tierney, Rader & Gold 1971) [M].
  */
 export function fractionalResolution(clockFrequency: Hertz, bits: number, relativeTo: Hertz): Dimensionless {
-  const f = requirePositive('clockFrequency', clockFrequency, 'Hz');
+  const f = requireFrequency('clockFrequency', clockFrequency);
   const n = requireBits(bits);
-  const ref = requirePositive('relativeTo', relativeTo, 'Hz');
+  const ref = requireFrequency('relativeTo', relativeTo);
   return scaleByPowerOfTwo(f, -n) / ref;
 }
 
@@ -118,7 +118,7 @@ export function fractionalResolution(clockFrequency: Hertz, bits: number, relati
  * @param request.clockFrequency   DDS reference clock f_clk, in hertz (> 0).
  * @param request.bits             Accumulator width N, an integer in [8, 64].
  * @returns `{ word, achievedFrequencyHz, quantisationErrorFractional, quantisationErrorNanosecondsPerDay, resolutionHz }`.
- * @throws {InvalidArgumentError} for non-positive or non-finite frequencies, a target above f_clk/2,
+ * @throws {InvalidArgumentError} for f_clk outside 1 Hz..1 THz, a non-positive target, a target above f_clk/2,
  *   a target that rounds to word 0 (below half the resolution) or N outside [8, 64].
  * @see Phase-accumulator synthesis, Tierney, Rader & Gold, IEEE Trans. Audio Electroacoust. 19 (1971) 48–57 [M].
  */
@@ -126,7 +126,7 @@ export function nearestTuningWord(request: { targetFrequency: Hertz; clockFreque
   if (typeof request !== 'object' || request === null) {
     throw new InvalidArgumentError('request', request, 'an object { targetFrequency, clockFrequency, bits }');
   }
-  const clockHz = requirePositive('clockFrequency', request.clockFrequency, 'Hz');
+  const clockHz = requireFrequency('clockFrequency', request.clockFrequency);
   const n = requireBits(request.bits);
   const targetHz = requirePositive('targetFrequency', request.targetFrequency, 'Hz');
   if (targetHz > clockHz / 2) {

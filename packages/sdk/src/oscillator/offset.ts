@@ -6,7 +6,7 @@
 import type { Dimensionless, Hertz } from '../units.js';
 import { InvalidArgumentError } from '../errors.js';
 import { FLIGHT_CONFIGURATION_CAUTION } from '../caution.js';
-import { requireFinite, requirePositive } from '../internal/validate.js';
+import { requireFinite, requireFrequency } from '../internal/validate.js';
 
 /** Result of {@link offsetFrequency}. */
 export interface OffsetFrequency {
@@ -38,11 +38,11 @@ export function requireFractionalOffset(argument: string, value: unknown): Dimen
  * @param nominalFrequency  f0, in hertz (> 0).
  * @param fractionalOffset  y = Δf/f, dimensionless, in (−1, 1).
  * @returns `{ offsetFrequencyHz, offsetHz }`, in hertz.
- * @throws {InvalidArgumentError} for f0 ≤ 0 or non-finite, or y outside (−1, 1).
+ * @throws {InvalidArgumentError} for f0 outside 1 Hz..1 THz, or y outside (−1, 1).
  * @see IS-GPS-200E §3.3.1.1 [V2]; definition of fractional frequency, e.g. IEEE Std 1139 [M].
  */
 export function offsetFrequency(nominalFrequency: Hertz, fractionalOffset: Dimensionless): OffsetFrequency {
-  const f0 = requirePositive('nominalFrequency', nominalFrequency, 'Hz');
+  const f0 = requireFrequency('nominalFrequency', nominalFrequency);
   const y = requireFractionalOffset('fractionalOffset', fractionalOffset);
   const offsetHz = f0 * y;
   return { offsetFrequencyHz: f0 + offsetHz, offsetHz, caution: FLIGHT_CONFIGURATION_CAUTION };

@@ -8,7 +8,7 @@
 import type { Metres, Radians } from '../units.js';
 import { DEFAULT_CONSTANT_SET, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
-import { requireEccentricity, requireInRange, requireOrbitRadius } from '../internal/validate.js';
+import { requireConstantSet, requireEccentricity, requireInRange, requireOrbitRadius } from '../internal/validate.js';
 import { inclinationAndArgumentOfLatitude } from './j2.js';
 
 /** Smallest accepted orbit radius, in metres: the WGS 84 equatorial radius (a position inside the Earth is refused). */
@@ -44,6 +44,7 @@ export function periodicCorrectionFromElementsBatch(semiMajorAxis: Metres, eccen
   const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
   const e = requireEccentricity('eccentricity', eccentricity);
   const E = requireArray('eccentricAnomalies', eccentricAnomalies);
+  requireConstantSet('constants', constants);
   const res = output(out, E.length);
   const k = constants.relativisticF * e * Math.sqrt(a);
   for (let i = 0; i < E.length; i++) res[i] = k * Math.sin(E[i]!);
@@ -90,6 +91,7 @@ export function j2PeriodicTermBatch(semiMajorAxis: Metres, inclination: Radians,
   const i = requireInRange('inclination', inclination, 0, Math.PI, { unit: 'rad (did you give degrees?)' });
   if (kind !== 'residual' && kind !== 'total') throw new InvalidArgumentError('kind', kind, '"residual" or "total"');
   const u = requireArray('argumentsOfLatitude', argumentsOfLatitude);
+  requireConstantSet('constants', constants);
   const res = output(out, u.length);
   const amp = (kind === 'residual' ? -1.5 : -0.5) * (constants.j2 * constants.equatorialRadius ** 2 * Math.sqrt(constants.gm / a ** 3))
     / SPEED_OF_LIGHT_SQUARED * Math.sin(i) ** 2;
@@ -110,6 +112,7 @@ export function j2PeriodicTermFromStatesBatch(states: Float64Array, kind: J2Term
   constants: ConstantSet = DEFAULT_CONSTANT_SET, out?: Float64Array): Float64Array {
   if (kind !== 'residual' && kind !== 'total') throw new InvalidArgumentError('kind', kind, '"residual" or "total"');
   const s = requireArray('states', states, 6);
+  requireConstantSet('constants', constants);
   const n = s.length / 6;
   const res = output(out, n);
   const factor = (kind === 'residual' ? -1.5 : -0.5) * constants.j2 * constants.equatorialRadius ** 2 / SPEED_OF_LIGHT_SQUARED;

@@ -18,7 +18,7 @@ import type { Dimensionless, Metres, Radians, Seconds } from '../units.js';
 import { DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
 import { InvalidArgumentError, OutOfDomainError } from '../errors.js';
 import { integrateDop853 } from '../orbit/integrator.js';
-import { requireEccentricity, requireFinite, requireInRange, requireOrbitRadius } from '../internal/validate.js';
+import { requireConstantSet, requireEccentricity, requireFinite, requireInRange, requireOrbitRadius } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 
 function checkInclination(inclination: unknown): number {
@@ -51,6 +51,7 @@ function j2SinTwoUTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLa
  */
 export function j2ResidualPeriodicTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLatitude: Radians,
   constants: ConstantSet = DEFAULT_CONSTANT_SET): Seconds {
+  requireConstantSet('constants', constants);
   return -1.5 * j2SinTwoUTerm(semiMajorAxis, inclination, argumentOfLatitude, constants);
 }
 
@@ -74,6 +75,7 @@ export function j2ResidualPeriodicTerm(semiMajorAxis: Metres, inclination: Radia
  */
 export function j2TotalPeriodicTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLatitude: Radians,
   constants: ConstantSet = DEFAULT_CONSTANT_SET): Seconds {
+  requireConstantSet('constants', constants);
   return -0.5 * j2SinTwoUTerm(semiMajorAxis, inclination, argumentOfLatitude, constants);
 }
 
@@ -98,6 +100,7 @@ export interface J2PeriodicAmplitudes {
  */
 export function j2PeriodicAmplitudes(semiMajorAxis: Metres, inclination: Radians,
   constants: ConstantSet = DEFAULT_CONSTANT_SET): J2PeriodicAmplitudes {
+  requireConstantSet('constants', constants);
   const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
   const i = checkInclination(inclination);
   const s2 = Math.sin(i) ** 2;
@@ -126,6 +129,7 @@ function j2Scale(a: number, c: ConstantSet): number {
  */
 export function osculatingMinusMeanSemiMajorAxis(meanSemiMajorAxis: Metres, inclination: Radians,
   argumentOfLatitude: Radians, constants: ConstantSet = DEFAULT_CONSTANT_SET): Metres {
+  requireConstantSet('constants', constants);
   const a = requireOrbitRadius('meanSemiMajorAxis', meanSemiMajorAxis);
   const i = checkInclination(inclination);
   const u = requireFinite('argumentOfLatitude', argumentOfLatitude, 'a finite angle in radians');
@@ -191,6 +195,7 @@ export const J2_ANALYTIC_MIN_PERIGEE_RADIUS: Metres = 25_000_000;
  */
 export function j2SecularClockRate(orbit: { semiMajorAxis: Metres; eccentricity: Dimensionless; inclination: Radians;
   semiMajorAxisKind: SemiMajorAxisKind; argumentOfLatitude?: Radians }, constants: ConstantSet = DEFAULT_CONSTANT_SET): J2RateBreakdown {
+  requireConstantSet('constants', constants);
   if (typeof orbit !== 'object' || orbit === null) throw new InvalidArgumentError('orbit', orbit, 'an object { semiMajorAxis, eccentricity, inclination, semiMajorAxisKind }');
   const a = requireOrbitRadius('orbit.semiMajorAxis', orbit.semiMajorAxis);
   const e = requireEccentricity('orbit.eccentricity', orbit.eccentricity);
@@ -309,6 +314,7 @@ function windowedMeanJ2Potential(p: readonly number[], v: readonly number[], per
  * @see IERS Conventions (2010) §10.2 eq. 10.9 [V1]; our own derivation and method [C] (see the module comment).
  */
 export function j2SecularClockRateFromState(state: StateVector, constants: ConstantSet = DEFAULT_CONSTANT_SET): J2RateBreakdown {
+  requireConstantSet('constants', constants);
   const { position: p, velocity: v } = requireStateVector(state);
   const r = requireOrbitRadius('|state.position|', Math.hypot(p[0], p[1], p[2]));
   if (r <= constants.equatorialRadius) throw new InvalidArgumentError('|state.position|', r, `above the Earth's equatorial radius (${constants.equatorialRadius} m)`);

@@ -10,18 +10,9 @@
  */
 import type { Dimensionless, Metres, Radians, Seconds } from '../units.js';
 import { DEFAULT_CONSTANT_SET, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
-import { InvalidArgumentError } from '../errors.js';
-import { requireEccentricity, requireFinite, requireOrbitRadius } from '../internal/validate.js';
+import { requireConstantSet, requireEccentricity, requireFinite, requireOrbitRadius } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 import { solveKepler } from '../orbit/kepler.js';
-
-function requireConstants(constants: unknown): ConstantSet {
-  const c = constants as ConstantSet | null;
-  if (typeof c !== 'object' || c === null || !Number.isFinite(c.gm) || !Number.isFinite(c.relativisticF)) {
-    throw new InvalidArgumentError('constants', constants, 'a ConstantSet (see constantSet(name) or defineConstantSet)');
-  }
-  return c;
-}
 
 /**
  * Periodic relativistic correction from orbital elements:
@@ -44,7 +35,7 @@ export function periodicCorrectionFromElements(semiMajorAxis: Metres, eccentrici
   const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
   const e = requireEccentricity('eccentricity', eccentricity);
   const E = requireFinite('eccentricAnomaly', eccentricAnomaly, 'a finite angle in radians');
-  const set = requireConstants(constants);
+  const set = requireConstantSet('constants', constants);
   return set.relativisticF * e * Math.sqrt(a) * Math.sin(E);
 }
 
@@ -80,7 +71,7 @@ export function periodicAmplitude(semiMajorAxis: Metres, eccentricity: Dimension
   constants: ConstantSet = DEFAULT_CONSTANT_SET): Seconds {
   const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
   const e = requireEccentricity('eccentricity', eccentricity);
-  const set = requireConstants(constants);
+  const set = requireConstantSet('constants', constants);
   return -set.relativisticF * e * Math.sqrt(a);
 }
 
@@ -109,7 +100,7 @@ export function periodicCorrectionAtMeanAnomaly(semiMajorAxis: Metres, eccentric
   meanAnomaly: Radians, constants: ConstantSet = DEFAULT_CONSTANT_SET): PeriodicCorrection {
   const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
   const e = requireEccentricity('eccentricity', eccentricity);
-  const set = requireConstants(constants);
+  const set = requireConstantSet('constants', constants);
   const eccentricAnomaly = solveKepler(meanAnomaly, e);
   return {
     correctionSeconds: periodicCorrectionFromElements(a, e, eccentricAnomaly, set),

@@ -11,7 +11,8 @@
  */
 import type { Seconds, Vector3 } from '../units.js';
 import { InvalidArgumentError } from '../errors.js';
-import { requireInteger } from '../internal/validate.js';
+import { requireInRange, requireInteger, requireVector3 } from '../internal/validate.js';
+import { validEpochFields } from '../io/line-reader.js';
 import type { EpochFields } from '../io/line-reader.js';
 import type { Sp3Epoch } from '../io/sp3.js';
 import { periodicCorrectionFromState } from './periodic.js';
@@ -38,12 +39,41 @@ const MAX_ORBIT_RADIUS = 1e10;
  * @see J.-P. Berrut & L. N. Trefethen, "Barycentric Lagrange Interpolation", SIAM Review 46(3) (2004) 501–517, §9 [M].
  */
 export function lagrangeDerivativeAtNode(times: ArrayLike<number>, values: ArrayLike<number>, index: number): number {
-  const n = times.length;
-  if (n < 2 || values.length !== n) {
-    throw new InvalidArgumentError('times', n, `at least 2 nodes and as many values (${values.length})`);
-  }
+  const n = requireNodes(times, values, 2);
   requireInteger('index', index, 0, n - 1);
-  return applyDerivativeRow(derivativeRow(times, index), values, index);
+  return requireFiniteResult(applyDerivativeRow(derivativeRow(times, index), values, index), times);
+}
+
+/** Most nodes accepted by the public Lagrange helpers (higher degrees are ill-conditioned; common practice, no source). */
+const MAX_LAGRANGE_NODES = 32;
+/** Largest |abscissa| (s) and |ordinate| accepted by the public Lagrange helpers (our own bounds). */
+const MAX_ABS_NODE = 1e12;
+const MAX_ABS_ORDINATE = 1e15;
+
+/** Validates the node arrays of the public Lagrange helpers; returns the node count. */
+function requireNodes(times: unknown, values: unknown, min: number): number {
+  const isArray = (v: unknown) => Array.isArray(v) || v instanceof Float64Array;
+  if (!isArray(times)) throw new InvalidArgumentError('times', times, 'an array of node abscissae in seconds');
+  if (!isArray(values)) throw new InvalidArgumentError('values', values, 'an array of ordinates, one per node');
+  const t = times as ArrayLike<unknown>;
+  const v = values as ArrayLike<unknown>;
+  const n = t.length;
+  if (n < min || n > MAX_LAGRANGE_NODES || v.length !== n) {
+    throw new InvalidArgumentError('times', n, `${min} to ${MAX_LAGRANGE_NODES} nodes and as many values (${v.length})`);
+  }
+  for (let j = 0; j < n; j++) {
+    requireInRange(`times[${j}]`, t[j], -MAX_ABS_NODE, MAX_ABS_NODE, { unit: 's' });
+    requireInRange(`values[${j}]`, v[j], -MAX_ABS_ORDINATE, MAX_ABS_ORDINATE);
+  }
+  return n;
+}
+
+/** Refuses a non-finite interpolation result, which only nodes packed far closer than their span produce. */
+function requireFiniteResult(result: number, times: ArrayLike<number>): number {
+  if (!Number.isFinite(result)) {
+    throw new InvalidArgumentError('times', Array.from(times), 'nodes whose spacing is not negligible against their span (the barycentric weights overflow)');
+  }
+  return result;
 }
 
 /**
@@ -93,9 +123,8 @@ function applyDerivativeRow(row: Float64Array, values: ArrayLike<number>, index:
  * @see Berrut & Trefethen (2004) eq. 4.2 [M].
  */
 export function lagrangeInterpolate(times: ArrayLike<number>, values: ArrayLike<number>, t: number): number {
-  const n = times.length;
-  if (n < 1 || values.length !== n) throw new InvalidArgumentError('times', n, `at least 1 node and as many values (${values.length})`);
-  if (!Number.isFinite(t)) throw new InvalidArgumentError('t', t, 'a finite abscissa in seconds');
+  const n = requireNodes(times, values, 1);
+  requireInRange('t', t, -MAX_ABS_NODE, MAX_ABS_NODE, { unit: 's' });
   const lambda = barycentricWeights(times);
   let num = 0;
   let den = 0;
@@ -106,7 +135,7 @@ export function lagrangeInterpolate(times: ArrayLike<number>, values: ArrayLike<
     num += w * values[j]!;
     den += w;
   }
-  return num / den;
+  return requireFiniteResult(num / den, times);
 }
 
 function barycentricWeights(times: ArrayLike<number>): number[] {
@@ -177,6 +206,23 @@ export interface PreciseCorrectionOptions {
 interface Node { readonly t: number; readonly p: Vector3 }
 interface Target { readonly time: EpochFields; readonly t: number; readonly p: Vector3 | undefined; readonly v: Vector3 | undefined; readonly missing?: string }
 
+/** Throws unless `epoch` has the shape the SP3 reader produces (time fields, scale seconds, records with finite vectors). */
+function requireSp3Epoch(epoch: unknown): void {
+  const e = epoch as Partial<Sp3Epoch> | null;
+  if (typeof e !== 'object' || e === null || typeof e.time !== 'object' || e.time === null || !validEpochFields(e.time)
+    || !Number.isFinite(e.scaleSeconds) || !Array.isArray(e.records)) {
+    throw new InvalidArgumentError('epoch', epoch, 'an SP3 epoch { time, scaleSeconds, records } as readSp3 yields');
+  }
+  e.records.forEach((r: unknown, i) => {
+    const rec = r as Partial<Sp3Epoch['records'][number]> | null;
+    if (typeof rec !== 'object' || rec === null || typeof rec.satellite !== 'string') {
+      throw new InvalidArgumentError(`epoch.records[${i}]`, r, 'a satellite record { satellite, position?, velocity? }');
+    }
+    if (rec.position !== undefined) requireVector3(`epoch.records[${i}].position`, rec.position, 'm');
+    if (rec.velocity !== undefined) requireVector3(`epoch.records[${i}].velocity`, rec.velocity, 'm/s');
+  });
+}
+
 /**
  * Computes −2 r·v/c² epoch by epoch from a stream of SP3 epochs, with bounded memory (per
  * satellite, the Lagrange window and the epochs still waiting for later positions).
@@ -215,6 +261,7 @@ export class PreciseCorrectionStream {
 
   /** Feeds one epoch (epochs in increasing time). Returns the results completed. */
   push(epoch: Sp3Epoch): PreciseCorrectionResult[] {
+    requireSp3Epoch(epoch);
     const out: PreciseCorrectionResult[] = [];
     const present = new Set<string>();
     for (const rec of epoch.records) {
@@ -359,6 +406,11 @@ function nearest(nodes: readonly Node[], t: number, count: number): Node[] {
 export async function* preciseRelativisticCorrections(epochs: Iterable<Sp3Epoch> | AsyncIterable<Sp3Epoch>,
   options: PreciseCorrectionOptions): AsyncGenerator<PreciseCorrectionResult> {
   const stream = new PreciseCorrectionStream(options);
+  const iterable = epochs as Partial<AsyncIterable<Sp3Epoch> & Iterable<Sp3Epoch>> | null;
+  if (typeof iterable !== 'object' || iterable === null
+    || (typeof iterable[Symbol.asyncIterator] !== 'function' && typeof iterable[Symbol.iterator] !== 'function')) {
+    throw new InvalidArgumentError('epochs', epochs, 'an iterable or async iterable of SP3 epochs (e.g. from readSp3)');
+  }
   for await (const epoch of epochs) yield* stream.push(epoch);
   yield* stream.finish();
 }

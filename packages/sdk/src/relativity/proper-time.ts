@@ -13,7 +13,9 @@
 import type { Seconds, Vector3 } from '../units.js';
 import { DEFAULT_CONSTANT_SET, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
 import { InvalidArgumentError, OutOfDomainError } from '../errors.js';
-import { requireFinite, requireOrbitRadius, requirePositive } from '../internal/validate.js';
+import {
+  requireConstantSet, requireFinite, requireInRange, requireObject, requireOptions, requireOrbitRadius, requirePositive, requireVector3,
+} from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 import { integrateDop853 } from '../orbit/integrator.js';
 import { createGravityField, GRAVITY_MODELS, type GravityModel } from '../orbit/forces.js';
@@ -60,6 +62,9 @@ export interface ProperTimeResult {
   readonly rejectedSteps: number;
 }
 
+/** Longest integration accepted, in seconds (about 317 years; our own bound, far beyond any clock analysis). */
+const MAX_PROPER_TIME_DURATION = 1e10;
+
 /**
  * Integrates an orbit together with its clock's proper time τ − TT.
  *
@@ -87,12 +92,13 @@ export interface ProperTimeResult {
 export function integrateProperTime(state: StateVector, duration: Seconds, step: Seconds,
   options: ProperTimeOptions = {}): ProperTimeResult {
   const { position: p, velocity: v } = requireStateVector(state);
-  const constants = options.constants ?? DEFAULT_CONSTANT_SET;
+  requireOptions('options', options);
+  const constants = options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet('options.constants', options.constants);
   const r0 = Math.hypot(p[0], p[1], p[2]);
   requireOrbitRadius('|state.position|', r0);
   const rMin = constants.equatorialRadius;
   if (r0 <= rMin) throw new InvalidArgumentError('|state.position|', r0, `above the Earth's equatorial radius (${rMin} m)`);
-  requirePositive('duration', duration, 's');
+  requireInRange('duration', duration, 0, MAX_PROPER_TIME_DURATION, { minExclusive: true, unit: 's' });
   requirePositive('step', step, 's');
   if (step > duration) throw new InvalidArgumentError('step', step, `at most the duration (${duration} s)`, 'the step is the spacing of the output samples');
   const model = options.model ?? 'j2';
@@ -173,11 +179,15 @@ export function integrateProperTime(state: StateVector, duration: Seconds, step:
 
 /** Reads sample k of a result's states as a {@link StateVector}. */
 export function properTimeSampleState(result: ProperTimeResult, k: number): StateVector {
+  requireObject('result', result, 'a result of integrateProperTime');
+  if (!(result.t instanceof Float64Array) || !(result.states instanceof Float64Array) || result.states.length !== 6 * result.t.length) {
+    throw new InvalidArgumentError('result', result, 'a result of integrateProperTime (t and states Float64Arrays, 6 state values per sample)');
+  }
   if (!Number.isInteger(k) || k < 0 || k >= result.t.length) {
     throw new InvalidArgumentError('k', k, `an integer sample index in [0, ${result.t.length - 1}]`);
   }
   const s = result.states;
-  const position: Vector3 = [s[6 * k]!, s[6 * k + 1]!, s[6 * k + 2]!];
-  const velocity: Vector3 = [s[6 * k + 3]!, s[6 * k + 4]!, s[6 * k + 5]!];
+  const position: Vector3 = requireVector3(`result.states[${k}].position`, [s[6 * k]!, s[6 * k + 1]!, s[6 * k + 2]!], 'm');
+  const velocity: Vector3 = requireVector3(`result.states[${k}].velocity`, [s[6 * k + 3]!, s[6 * k + 4]!, s[6 * k + 5]!], 'm/s');
   return { position, velocity };
 }

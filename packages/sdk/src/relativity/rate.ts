@@ -10,7 +10,7 @@ import type { Dimensionless, Metres } from '../units.js';
 import { DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
 import { FLIGHT_CONFIGURATION_CAUTION } from '../caution.js';
-import { requireFinite, requireOrbitRadius } from '../internal/validate.js';
+import { requireConstantSet, requireFinite, requireOptions, requireOrbitRadius } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 
 /** The coordinate time a rate refers to: TT (clocks on the geoid) or TCG (geocentric coordinate time). */
@@ -66,12 +66,10 @@ export function requireReferenceClock(argument: string, value: unknown): Referen
       ? `use lower case: ${value.toLowerCase()}` : undefined);
 }
 
-function resolveOptions(options: RateOptions | undefined): { constants: ConstantSet; reference: ReferenceClock } {
-  const constants = options?.constants ?? DEFAULT_CONSTANT_SET;
-  if (typeof constants !== 'object' || constants === null || !Number.isFinite(constants.gm) || !Number.isFinite(constants.lG)) {
-    throw new InvalidArgumentError('options.constants', constants, 'a ConstantSet (see constantSet(name) or defineConstantSet)');
-  }
-  const reference = options?.reference === undefined ? 'tt' : requireReferenceClock('options.reference', options.reference);
+function resolveOptions(value: RateOptions | undefined): { constants: ConstantSet; reference: ReferenceClock } {
+  const options = requireOptions('options', value);
+  const constants = options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet('options.constants', options.constants);
+  const reference = options.reference === undefined ? 'tt' : requireReferenceClock('options.reference', options.reference);
   return { constants, reference };
 }
 

@@ -14,7 +14,7 @@ import type { CubicMetresPerSecondSquared, Dimensionless, Metres, Radians, Radia
   SquareMetresPerSecondSquared } from '../units.js';
 import { DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
-import { requireInRange, requirePositive } from '../internal/validate.js';
+import { requireConstantSet, requireInRange, requireOptions } from '../internal/validate.js';
 import { GM_MOON } from '../orbit/forces.js';
 
 /** A level reference ellipsoid with its normal gravity field (four defining constants). */
@@ -192,8 +192,9 @@ export function groundClockRate(station: { latitude: Radians; longitude: Radians
   requireInRange('station.longitude', station.longitude, -2 * Math.PI, 2 * Math.PI, { unit: 'rad (did you give degrees?)' });
   const h = requireInRange('station.height', station.height, -11_000, 100_000, { unit: 'm (ellipsoidal height)' });
   const N = requireInRange('station.geoidUndulation', station.geoidUndulation ?? 0, -150, 150, { unit: 'm' });
+  requireOptions('options', options);
   const ell = checkEllipsoid(options.ellipsoid ?? GRS80_ELLIPSOID);
-  const constants = options.constants ?? DEFAULT_CONSTANT_SET;
+  const constants = options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet('options.constants', options.constants);
   const U = normalPotentialUnchecked(phi, h, ell);
   const U0 = normalPotentialUnchecked(0, 0, ell);
   const gamma = normalGravity(phi, ell);
@@ -222,6 +223,7 @@ export function groundClockRate(station: { latitude: Radians; longitude: Radians
  * @see IERS Conventions (2010) §10.1, dTT/dTCG = 1 − L_G [V1].
  */
 export function tcgRateVsTT(constants: ConstantSet = DEFAULT_CONSTANT_SET): Dimensionless {
+  requireConstantSet('constants', constants);
   return constants.lG / (1 - constants.lG);
 }
 
@@ -283,8 +285,9 @@ export function lunarClockRate(clock: { location: LunarClockLocation; orbitRadiu
   if (location !== 'selenocentre' && location !== 'surface' && location !== 'orbit') {
     throw new InvalidArgumentError('clock.location', location, '"selenocentre", "surface" or "orbit"');
   }
-  const constants = options.constants ?? DEFAULT_CONSTANT_SET;
-  const gmM = requirePositive('moonGm', options.moonGm ?? GM_MOON, 'm³/s²');
+  requireOptions('options', options);
+  const constants = options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet('options.constants', options.constants);
+  const gmM = requireInRange('options.moonGm', options.moonGm ?? GM_MOON, 4e12, 6e12, { unit: 'm³/s² (the Moon\'s GM is about 4.9028e12)' });
   const a = requireInRange('moonSemiMajorAxis', options.moonSemiMajorAxis ?? MOON_SEMI_MAJOR_AXIS, 3.5e8, 4.2e8, { unit: 'm' });
   const R = requireInRange('moonRadius', options.moonRadius ?? MOON_MEAN_RADIUS, 1.7e6, 1.8e6, { unit: 'm' });
   const c2 = SPEED_OF_LIGHT_SQUARED;

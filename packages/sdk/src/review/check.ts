@@ -9,13 +9,14 @@ import { CONSTANT_SETS, DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQ
   type ConstantSet } from '../constants.js';
 import { meanClockRate, semiMajorAxisForMeanRate, type ReferenceClock } from '../relativity/rate.js';
 import { j2SecularClockRate, osculatingMinusMeanSemiMajorAxis } from '../relativity/j2.js';
+import { InvalidArgumentError } from '../errors.js';
 import { createRandom, MAX_SEED } from '../internal/random.js';
 import { normalCdf } from '../internal/special-functions.js';
-import { requireInteger } from '../internal/validate.js';
+import { requireInRange, requireInteger, requireOptions } from '../internal/validate.js';
 import type {
   ConfiguredOffset, Diagnosis, DispersionAnalysis, ReviewReport, ReviewSpacecraft, SpacecraftFinding, Verdict,
 } from './types.js';
-import { parseReviewInput } from './parse.js';
+import { parseConfigured, parseReviewInput, requireNominalFrequency } from './parse.js';
 
 /** The caution every review output carries. */
 export const REVIEW_CAUTION =
@@ -24,9 +25,9 @@ export const REVIEW_CAUTION =
 
 /** Options of {@link reviewOffsets}. */
 export interface ReviewOptions {
-  /** Fraction of the tolerance above which a passing difference is only "marginal" (default 0.5). */
+  /** Fraction of the tolerance above which a passing difference is only "marginal", in (0, 1] (default 0.5). */
   readonly marginalFraction?: number;
-  /** Runs of the dispersion Monte Carlo (default 20 000). */
+  /** Runs of the dispersion Monte Carlo, an integer in [1, 10 000 000] (default 20 000; the bound keeps one spacecraft's draws at 80 MB). */
   readonly monteCarloRuns?: number;
   /** Seed of the dispersion Monte Carlo, an integer in [0, 2^32 − 1] (default 1), so reports are reproducible. */
   readonly seed?: number;
@@ -35,9 +36,12 @@ export interface ReviewOptions {
    * spacecraft with a dispersion), e.g. for a progress bar; at most about 200 calls per run.
    */
   readonly onProgress?: (done: number, total: number) => void;
-  /** Default tolerance when neither the file nor the spacecraft gives one (default 1e-12). */
+  /** Default tolerance when neither the file nor the spacecraft gives one, in (0, 1e-6) (default 1e-12). */
   readonly defaultToleranceFractional?: number;
 }
+
+/** Most dispersion Monte Carlo runs a review accepts (80 MB of draws per spacecraft; the CLI's --runs has the same bound). */
+const MAX_REVIEW_MONTE_CARLO_RUNS = 10_000_000;
 
 /**
  * Nominal semi-major axes of well-known orbit classes, used only to name the orbit an
@@ -81,7 +85,9 @@ function dyadic(x: number): { m: bigint; e: number } {
  * For a tuning word, f_out = word·f_clk/2^N (DDS relation; common practice, no source); the difference
  * word·f_clk − f_nominal·2^N is formed exactly in BigInt so that 64-bit words lose nothing.
  */
-export function configuredFraction(configured: ConfiguredOffset, nominalHz: number): { fraction: number; step: number | null } {
+export function configuredFraction(configuredOffset: ConfiguredOffset, nominalHz: number): { fraction: number; step: number | null } {
+  requireNominalFrequency('nominalHz', nominalHz);
+  const configured = parseConfigured('configured', configuredOffset, nominalHz);
   if ('fractionalOffset' in configured) return { fraction: configured.fractionalOffset, step: null };
   if ('offsetHz' in configured) return { fraction: configured.offsetHz / nominalHz, step: null };
   if ('offsetFrequencyHz' in configured) return { fraction: (configured.offsetFrequencyHz - nominalHz) / nominalHz, step: null };
@@ -161,10 +167,16 @@ function hypotheses(sc: ReviewSpacecraft, set: ConstantSet, reference: Reference
  */
 export function reviewOffsets(document: unknown, options: ReviewOptions = {}): ReviewReport {
   const input = parseReviewInput(document);
-  const marginalFraction = options.marginalFraction ?? 0.5;
-  const runs = options.monteCarloRuns ?? 20_000;
+  requireOptions('options', options);
+  const marginalFraction = requireInRange('options.marginalFraction', options.marginalFraction ?? 0.5, 0, 1,
+    { minExclusive: true, unit: '(a fraction of the tolerance)' });
+  const runs = requireInteger('options.monteCarloRuns', options.monteCarloRuns ?? 20_000, 1, MAX_REVIEW_MONTE_CARLO_RUNS);
   const seed = options.seed === undefined ? 1 : requireInteger('options.seed', options.seed, 0, MAX_SEED);
-  const defaultTolerance = options.defaultToleranceFractional ?? 1e-12;
+  const defaultTolerance = requireInRange('options.defaultToleranceFractional', options.defaultToleranceFractional ?? 1e-12, 0, 1e-6,
+    { minExclusive: true, maxExclusive: true, unit: '(fractional frequency)' });
+  if (options.onProgress !== undefined && typeof options.onProgress !== 'function') {
+    throw new InvalidArgumentError('options.onProgress', options.onProgress, 'a function (done, total) => void (or omitted)');
+  }
 
   const resolved = input.spacecraft.map((sc) => {
     const set = constantSet(sc.constants ?? input.constants ?? DEFAULT_CONSTANT_SET.name);

@@ -7,7 +7,7 @@
 import { InvalidArgumentError } from '../errors.js';
 import { CONSTANT_SETS } from '../constants.js';
 import {
-  requireEccentricity, requireFinite, requireInRange, requireInteger, requireOrbitRadius, requirePositive,
+  requireEccentricity, requireFinite, requireFrequency, requireInRange, requireInteger, requireOrbitRadius, requirePositive,
 } from '../internal/validate.js';
 import type { ConfiguredOffset, ReviewInput, ReviewLimits, ReviewSpacecraft } from './types.js';
 
@@ -21,7 +21,7 @@ function requireObject(path: string, v: unknown): Record<string, unknown> {
 }
 
 /** Nominal-frequency sanity range: 1 kHz .. 100 GHz covers every clock and carrier in use. */
-function requireNominalFrequency(path: string, v: unknown): number {
+export function requireNominalFrequency(path: string, v: unknown): number {
   const f = requireFinite(path, v, 'a frequency in Hz between 1e3 and 1e11');
   if (f < 1e3 || f > 1e11) {
     const hint = f > 0 && f < 1e3 ? `${f} Hz is implausibly low; was it given in MHz (${f} MHz = ${f * 1e6} Hz)?` : undefined;
@@ -43,7 +43,7 @@ function parseLimits(path: string, o: Record<string, unknown>): ReviewLimits {
   }
   if (o['constants'] !== undefined) {
     const name = o['constants'];
-    if (typeof name !== 'string' || !CONSTANT_SETS[name.toLowerCase()]) {
+    if (typeof name !== 'string' || !Object.hasOwn(CONSTANT_SETS, name.toLowerCase())) {
       throw new InvalidArgumentError(`${path}constants`, name, `one of ${Object.keys(CONSTANT_SETS).join(', ')}`);
     }
     limits.constants = name.toLowerCase();
@@ -63,7 +63,8 @@ function parseLimits(path: string, o: Record<string, unknown>): ReviewLimits {
   return limits;
 }
 
-function parseConfigured(path: string, v: unknown, nominal: number): ConfiguredOffset {
+/** Validates a configured offset (exactly one form) against the nominal frequency; `path` names it in errors. */
+export function parseConfigured(path: string, v: unknown, nominal: number): ConfiguredOffset {
   const o = requireObject(path, v);
   const forms = ['offsetFrequencyHz', 'offsetHz', 'fractionalOffset', 'tuningWord'].filter((k) => o[k] !== undefined);
   if (forms.length !== 1) {
@@ -93,7 +94,7 @@ function parseConfigured(path: string, v: unknown, nominal: number): ConfiguredO
   }
   const t = requireObject(`${path}.tuningWord`, o[form]);
   const bits = requireInteger(`${path}.tuningWord.bits`, t['bits'], 8, 64);
-  const clockHz = requirePositive(`${path}.tuningWord.clockHz`, t['clockHz'], 'Hz');
+  const clockHz = requireFrequency(`${path}.tuningWord.clockHz`, t['clockHz']);
   const word = t['word'];
   let big: bigint;
   try {

@@ -6,6 +6,8 @@
  */
 import { SECONDS_PER_DAY } from '../constants.js';
 import type { ReviewReport, SpacecraftFinding, Verdict } from './types.js';
+import { requireReviewReport, requireSpacecraftFinding } from './report-shape.js';
+import { InvalidArgumentError } from '../errors.js';
 
 const VERDICT_MARK: Record<Verdict, string> = { pass: 'PASS', marginal: 'MARGINAL', fail: 'FAIL' };
 
@@ -29,6 +31,11 @@ const usPerDay = (fraction: number) => fraction * SECONDS_PER_DAY * 1e6;
  * Markdown and HTML reports, so a MARGINAL or FAIL verdict never stands without a reason.
  */
 export function verdictExplanation(s: SpacecraftFinding): string | undefined {
+  return explanation(requireSpacecraftFinding('finding', s));
+}
+
+/** {@link verdictExplanation} of a finding already checked (the renderers check the whole report once). */
+function explanation(s: SpacecraftFinding): string | undefined {
   if (s.verdict === 'pass' || s.diagnosis.length > 0) return undefined;
   const used = (100 * Math.abs(s.differenceFractional)) / s.toleranceFractional;
   if (s.verdict === 'marginal') {
@@ -58,6 +65,7 @@ function md(text: string): string {
 
 /** Markdown rendering: one summary table, then a section per spacecraft. */
 export function reviewToMarkdown(report: ReviewReport): string {
+  requireReviewReport('report', report);
   const lines: string[] = [`# ${md(report.title)}`, '', `> ${report.caution}`, '',
     `Result: ${report.counts.pass} pass, ${report.counts.marginal} marginal, ${report.counts.fail} fail.`, '',
     '| spacecraft | verdict | expected offset | configured offset | difference | difference (ns/day) | tolerance |',
@@ -71,7 +79,7 @@ export function reviewToMarkdown(report: ReviewReport): string {
       `- Expected output frequency: ${s.expectedFrequencyHz.toFixed(7)} Hz; configured: ${s.configuredFrequencyHz.toFixed(7)} Hz; difference ${e(s.differenceHz, 4)} Hz`,
       `- Rate budget: gravitational ${f(usPerDay(s.budget.gravitational), 4)} µs/day, velocity ${f(usPerDay(s.budget.velocity), 4)} µs/day, J2 ${f(usPerDay(s.budget.j2) * 1e3, 4)} ns/day (${s.budget.j2Included ? 'included' : 'not included: the kind of a is not stated'}), net ${f(usPerDay(s.budget.fractionalRate), 4)} µs/day; J2 osculating/mean-a ambiguity ${e(s.budget.j2Ambiguity, 2)}`);
     if (s.quantisationStepFractional !== null) lines.push(`- Tuning-word step: ${e(s.quantisationStepFractional, 3)} (fractional)`);
-    const why = verdictExplanation(s);
+    const why = explanation(s);
     if (why) lines.push('', why);
     if (s.diagnosis.length > 0) {
       lines.push('', '| finding | would have produced | explanation |', '|---|---:|---|');
@@ -148,10 +156,19 @@ function dispersionSvg(s: SpacecraftFinding, actuatorRange: number | null): stri
  * no external resources). `actuatorRanges` maps spacecraft id to its steering range, for the plot.
  */
 export function reviewToHtml(report: ReviewReport, actuatorRanges: Readonly<Record<string, number>> = {}): string {
+  requireReviewReport('report', report);
+  if (typeof actuatorRanges !== 'object' || actuatorRanges === null || Array.isArray(actuatorRanges)) {
+    throw new InvalidArgumentError('actuatorRanges', actuatorRanges, 'an object mapping spacecraft id to its steering range (fractional)');
+  }
+  for (const [id, range] of Object.entries(actuatorRanges)) {
+    if (typeof range !== 'number' || !(range > 0) || !Number.isFinite(range)) {
+      throw new InvalidArgumentError(`actuatorRanges.${id}`, range, 'a finite fractional steering range > 0');
+    }
+  }
   const rows = report.spacecraft.map((s) => `<tr class="${s.verdict}"><th scope="row">${esc(s.id)}</th><td><span class="verdict ${s.verdict}">${VERDICT_MARK[s.verdict]}</span></td>` +
     `<td>${e(s.expectedFractionalOffset, 6)}</td><td>${e(s.configuredFractionalOffset, 6)}</td><td>${e(s.differenceFractional, 3)}</td><td>${f(s.differenceNanosecondsPerDay, 3)}</td><td>${e(s.toleranceFractional, 2)}</td></tr>`).join('');
   const sections = report.spacecraft.map((s) => {
-    const why = verdictExplanation(s);
+    const why = explanation(s);
     const diag = s.diagnosis.length === 0 ? `<p class="explanation">${why === undefined ? 'No findings.' : esc(why)}</p>` : `<table><caption>Findings</caption><thead><tr><th scope="col">code</th><th scope="col">would have produced</th><th scope="col">explanation</th></tr></thead><tbody>${
       s.diagnosis.map((d) => `<tr><td><code>${d.code}</code>${d.matches ? '' : ' <small>(note)</small>'}</td><td>${e(d.wouldHaveProduced, 6)}</td><td class="text">${esc(d.message)}</td></tr>`).join('')}</tbody></table>`;
     const disp = s.dispersion ? `<h3>Injection dispersion (σa = ${s.dispersion.semiMajorAxisSigma} m)</h3>${dispersionSvg(s, actuatorRanges[s.id] ?? null)}

@@ -5,7 +5,7 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
-import { requireInRange } from '../internal/validate.js';
+import { requireInRange, requireInteger, requireOptions } from '../internal/validate.js';
 import type { Seconds } from '../units.js';
 import { chiSquareInterval, equivalentDegreesOfFreedom } from './edf.js';
 import {
@@ -23,7 +23,8 @@ import {
  * adev (N−1)/2, oadev (N−1)/2, mdev/tdev N/3, hdev/ohdev (N−1)/3, totdev (N−1)/2 (τ ≤ T/2).
  */
 export function maxAveragingFactor(statistic: StatisticName, phasePoints: number): number {
-  const N = phasePoints;
+  requireStatistic('statistic', statistic);
+  const N = requireInteger('phasePoints', phasePoints, 0);
   switch (statistic) {
     case 'adev': case 'oadev': case 'totdev': return Math.floor((N - 1) / 2);
     case 'mdev': case 'tdev': return Math.floor(N / 3);
@@ -113,7 +114,7 @@ function computeAt(p: Prepared, statistic: StatisticName, m: number): DeviationP
 function resolveFactors(series: PhaseSeries, statistics: readonly StatisticName[], taus: readonly Seconds[] | undefined): number[] {
   if (taus !== undefined) return factorsForTaus(taus, series.tau0);
   const maxM = Math.max(...statistics.map((s) => maxAveragingFactor(s, series.phase.length)));
-  return octaveFactors(maxM);
+  return maxM >= 1 ? octaveFactors(maxM) : [];
 }
 
 /** Options of {@link deviations}. */
@@ -147,6 +148,7 @@ export interface DeviationOptions {
  */
 export function deviations(statistic: StatisticName, data: StabilityData, options: DeviationOptions = {}): DeviationPoint[] {
   requireStatistic('statistic', statistic);
+  requireOptions('options', options);
   const p = new Prepared(phaseSeriesForReading(data));
   const out: DeviationPoint[] = [];
   for (const m of resolveFactors(p.series, [statistic], options.taus)) {
@@ -167,6 +169,7 @@ export function deviations(statistic: StatisticName, data: StabilityData, option
  * @see W. J. Riley, NIST SP 1065 (2008) §5.6 [M section]; W. J. Riley & C. A. Greenhall, "Power law noise identification using the lag 1 autocorrelation", 18th EFTF (2004) [M].
  */
 export function identifyNoise(data: StabilityData, options: DeviationOptions = {}): NoiseEstimate[] {
+  requireOptions('options', options);
   const p = new Prepared(phaseSeriesForReading(data));
   const out: NoiseEstimate[] = [];
   for (const m of resolveFactors(p.series, ['oadev'], options.taus)) {
@@ -214,6 +217,8 @@ export const DEFAULT_STATISTICS: readonly StatisticName[] = ['oadev', 'mdev', 't
  * @see W. J. Riley, NIST SP 1065 (2008), §5.2 (statistics) and §5.3 (confidence intervals) [M section].
  */
 export function analyzeStability(data: StabilityData, options: StabilityOptions = {}): StabilityAnalysis {
+  requireOptions('options', options);
+  const series = phaseSeriesForReading(data);
   const statistics = options.statistics ?? DEFAULT_STATISTICS;
   if (!Array.isArray(statistics) || statistics.length === 0) {
     throw new InvalidArgumentError('options.statistics', statistics, `a non-empty list of ${STATISTIC_NAMES.join(', ')}`);
@@ -223,11 +228,10 @@ export function analyzeStability(data: StabilityData, options: StabilityOptions 
   const confidence = options.confidence ?? ONE_SIGMA_CONFIDENCE;
   requireInRange('options.confidence', confidence, 0, 1, { minExclusive: true, maxExclusive: true });
   if (confidence === 0) throw new InvalidArgumentError('options.confidence', confidence, 'in (0, 1), e.g. 0.6827 or 0.95');
-  if (options.noise !== undefined && !(options.noise in NOISE_ALPHA)) {
+  if (options.noise !== undefined && !(typeof options.noise === 'string' && Object.hasOwn(NOISE_ALPHA, options.noise))) {
     throw new InvalidArgumentError('options.noise', options.noise, 'one of WPM, FPM, WFM, FFM, RWFM');
   }
   const isFrequency = 'frequency' in data && (data as { frequency?: unknown }).frequency !== undefined;
-  const series = phaseSeriesForReading(data);
   const p = new Prepared(series);
   if (stats.includes('totdev') && p.gaps) computeAt(p, 'totdev', 1); // throws the documented error up front
   const N = series.phase.length;

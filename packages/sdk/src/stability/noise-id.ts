@@ -6,12 +6,14 @@
 import { autocovariance, filterVariance } from './edf.js';
 import { ModifiedWorkspace, modifiedSum, secondDifferenceSum } from './kernels.js';
 import { NOISE_ALPHA, type NoiseEstimate, type NoiseType, type PhaseSeries } from './types.js';
+import { requireFinite } from '../internal/validate.js';
 
 /** Fewest decimated points for which the method is attempted (Riley & Greenhall suggest ≳ 30) [M]. */
 export const NOISE_ID_MIN_POINTS = 32;
 
 /** Noise type for a rounded α in 2 … −2. */
 export function noiseForAlpha(alpha: number): NoiseType {
+  requireFinite('alpha', alpha, 'a finite power-law exponent α (2 … −2)');
   const entry = (Object.entries(NOISE_ALPHA) as [NoiseType, number][]).find(([, a]) => a === alpha);
   return entry ? entry[0] : alpha > 2 ? 'WPM' : 'RWFM';
 }

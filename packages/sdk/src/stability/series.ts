@@ -4,23 +4,38 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
-import { requirePositive } from '../internal/validate.js';
+import { requireInRange, requireInteger } from '../internal/validate.js';
 import type { Seconds } from '../units.js';
 import type { PhaseSeries, StabilityData } from './types.js';
 
-/** Copies `values` into a Float64Array, rejecting non-numbers and ±Infinity (NaN = missing is kept). */
-function copySamples(argument: string, values: unknown, unit: string, copy = true): Float64Array {
+/**
+ * Largest accepted |sample|: 1e12 in the phase unit (seconds) and 1e6 in the frequency unit. Real clock
+ * data are far smaller; the bounds leave room for scaled test sets (NIST SP 1065's NBS14 values are ~1e3)
+ * while keeping every sum of squares finite (our own bounds).
+ */
+const MAX_ABS_PHASE = 1e12;
+const MAX_ABS_FREQUENCY = 1e6;
+/** Accepted sample spacing τ0, in seconds: 1 ns to 1e9 s (our own bounds; keeps x/τ0 and τ² finite). */
+export const TAU0_RANGE = { min: 1e-9, max: 1e9 } as const;
+
+/** Validates a sample spacing τ0 in seconds against {@link TAU0_RANGE}. */
+export function requireTau0(argument: string, tau0: unknown): number {
+  return requireInRange(argument, tau0, TAU0_RANGE.min, TAU0_RANGE.max, { unit: 's (sample spacing)' });
+}
+
+/** Copies `values` into a Float64Array, rejecting non-numbers, ±Infinity and |value| > `limit` (NaN = missing is kept). */
+function copySamples(argument: string, values: unknown, unit: string, limit: number, copy = true): Float64Array {
   if (!(Array.isArray(values) || ArrayBuffer.isView(values))) {
     throw new InvalidArgumentError(argument, values, `an array of numbers (${unit}), NaN for a missing sample`);
   }
   if (values instanceof Float64Array) {
-    // Typed input (the common case for long records): a monomorphic scan for ±Infinity (v − v is NaN
-    // only for ±Infinity and NaN), then a bulk copy unless the caller reads it within this call only.
+    // Typed input (the common case for long records): a monomorphic scan for |v| > limit (±Infinity
+    // included; NaN compares false and stays a missing sample), then a bulk copy unless the caller reads
+    // it within this call only.
     for (let i = 0; i < values.length; i++) {
       const v = values[i]!;
-      const d = v - v;
-      if (d !== d && v === v) {
-        throw new InvalidArgumentError(`${argument}[${i}]`, v, `a finite number in ${unit}, or NaN for a missing sample`);
+      if (v > limit || v < -limit) {
+        throw new InvalidArgumentError(`${argument}[${i}]`, v, `a finite number in ${unit} with |value| ≤ ${limit}, or NaN for a missing sample`);
       }
     }
     return copy ? values.slice() : values;
@@ -29,8 +44,8 @@ function copySamples(argument: string, values: unknown, unit: string, copy = tru
   const out = new Float64Array(src.length);
   for (let i = 0; i < src.length; i++) {
     const v = src[i];
-    if (typeof v !== 'number' || v === Infinity || v === -Infinity) {
-      throw new InvalidArgumentError(`${argument}[${i}]`, v, `a finite number in ${unit}, or NaN for a missing sample`);
+    if (typeof v !== 'number' || v > limit || v < -limit) {
+      throw new InvalidArgumentError(`${argument}[${i}]`, v, `a finite number in ${unit} with |value| ≤ ${limit}, or NaN for a missing sample`);
     }
     out[i] = v;
   }
@@ -53,8 +68,8 @@ function copySamples(argument: string, values: unknown, unit: string, copy = tru
  *   phase-and-frequency reference tests, C].
  */
 export function phaseFromFrequency(frequency: ArrayLike<number>, tau0: Seconds): PhaseSeries {
-  requirePositive('tau0', tau0, 's');
-  const y = copySamples('frequency', frequency, 'fractional frequency (dimensionless)');
+  requireTau0('tau0', tau0);
+  const y = copySamples('frequency', frequency, 'fractional frequency (dimensionless)', MAX_ABS_FREQUENCY);
   const x = new Float64Array(y.length + 1);
   const segmentStarts: number[] = [];
   let acc = 0;
@@ -83,12 +98,19 @@ export function phaseFromFrequency(frequency: ArrayLike<number>, tau0: Seconds):
  * @throws {InvalidArgumentError} if tau0 is not > 0 or a value is ±Infinity or not a number.
  */
 export function frequencyFromPhase(phase: ArrayLike<number> | PhaseSeries, tau0?: Seconds): Float64Array {
-  const series = isPhaseSeries(phase) ? phase : { phase: copySamples('phase', phase, 'seconds'), tau0: requirePositive('tau0', tau0, 's'), segmentStarts: [] };
+  const series = isPhaseSeries(phase)
+    ? { phase: copySamples('phase.phase', phase.phase, 'seconds', MAX_ABS_PHASE), tau0: requireTau0('phase.tau0', phase.tau0), segmentStarts: requireSegmentStarts(phase.segmentStarts) }
+    : { phase: copySamples('phase', phase, 'seconds', MAX_ABS_PHASE), tau0: requireTau0('tau0', tau0), segmentStarts: [] };
   const x = series.phase;
   const y = new Float64Array(Math.max(0, x.length - 1));
   for (let i = 0; i < y.length; i++) y[i] = (x[i + 1]! - x[i]!) / series.tau0;
   for (const k of series.segmentStarts) if (k >= 1 && k <= y.length) y[k - 1] = Number.NaN;
   return y;
+}
+
+function requireSegmentStarts(starts: unknown): number[] {
+  if (!Array.isArray(starts)) throw new InvalidArgumentError('phase.segmentStarts', starts, 'an array of sample indices');
+  return starts.map((k, i) => requireInteger(`phase.segmentStarts[${i}]`, k, 0));
 }
 
 function isPhaseSeries(value: unknown): value is PhaseSeries {
@@ -126,8 +148,8 @@ function phaseSeriesOf(data: StabilityData, copy: boolean): PhaseSeries {
   if (hasPhase === hasFrequency) {
     throw new InvalidArgumentError('data', Object.keys(data), 'exactly one of `phase` (seconds) or `frequency` (dimensionless), plus `tau0`');
   }
-  const tau0 = requirePositive('data.tau0', data.tau0, 's');
-  if ('phase' in data) return { phase: copySamples('data.phase', data.phase, 'seconds', copy), tau0, segmentStarts: [] };
+  const tau0 = requireTau0('data.tau0', data.tau0);
+  if (hasPhase) return { phase: copySamples('data.phase', (data as { phase: unknown }).phase, 'seconds', MAX_ABS_PHASE, copy), tau0, segmentStarts: [] };
   return phaseFromFrequency((data as { frequency: ArrayLike<number> }).frequency, tau0);
 }
 
@@ -137,6 +159,7 @@ function phaseSeriesOf(data: StabilityData, copy: boolean): PhaseSeries {
  * @param maxM  Largest factor wanted (≥ 1).
  */
 export function octaveFactors(maxM: number): number[] {
+  requireInteger('maxM', maxM, 1);
   const out: number[] = [];
   for (let m = 1; m <= maxM; m *= 2) out.push(m);
   return out;
@@ -151,11 +174,11 @@ export function octaveFactors(maxM: number): number[] {
  * @throws {InvalidArgumentError} if a τ is not a positive whole multiple of τ0.
  */
 export function factorsForTaus(taus: readonly Seconds[], tau0: Seconds): number[] {
-  requirePositive('tau0', tau0, 's');
+  requireTau0('tau0', tau0);
   if (!Array.isArray(taus)) throw new InvalidArgumentError('taus', taus, 'an array of averaging times in seconds');
   const set = new Set<number>();
   taus.forEach((tau, i) => {
-    const t = requirePositive(`taus[${i}]`, tau, 's');
+    const t = requireInRange(`taus[${i}]`, tau, 0, 1e15, { minExclusive: true, unit: 's' });
     const m = Math.round(t / tau0);
     if (m < 1 || Math.abs(t / tau0 - m) > 1e-9 * Math.max(1, m)) {
       throw new InvalidArgumentError(`taus[${i}]`, tau, `a whole multiple m·τ0 of the sample spacing τ0 = ${tau0} s (m = 1, 2, 3, ...)`,

@@ -5,7 +5,7 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
-import { requireFinite, requireInteger } from '../internal/validate.js';
+import { requireFinite, requireInteger, requireObject } from '../internal/validate.js';
 import { expectedCost, type CostBreakdown } from './cost.js';
 import type { SteeringCommand, SteeringPlan } from './plan.js';
 import { checkTolerance, predictedSeries, stateJumps, type InternalCommand } from './predict.js';
@@ -42,6 +42,7 @@ export function commandsToInternal(norm: NormalizedScenario, commands: readonly 
  */
 export function steeringCost(scenario: unknown, plan: Pick<SteeringPlan, 'commands'>, options: TimeScaleOptions = {}): CostBreakdown {
   const norm = validateScenario(scenario, options);
+  requireObject('plan', plan as object, 'a plan object { commands }');
   return expectedCost(norm, commandsToInternal(norm, plan.commands, 'plan.commands'));
 }
 

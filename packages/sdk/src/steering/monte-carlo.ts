@@ -5,8 +5,7 @@
  *
  * @module
  */
-import { InvalidArgumentError } from '../errors.js';
-import { requireInteger } from '../internal/validate.js';
+import { requireInteger, requireObject } from '../internal/validate.js';
 import { MAX_SEED } from '../internal/random.js';
 import { choleskyPsd3, processNoise, type Matrix3 } from './clock-math.js';
 import { commandsToInternal } from './evaluate.js';
@@ -58,10 +57,11 @@ export interface SimulationSummary {
  * @throws {OutOfDomainError} for stamps outside the leap-second table (see `validateScenario`).
  */
 export function simulatePlan(scenario: unknown, plan: Pick<SteeringPlan, 'commands'>, options: SimulationOptions): SimulationSummary {
-  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an object with runs');
+  requireObject('options', options, 'an object with runs');
   const norm = validateScenario(scenario, { timeScales: resolveTimeScales(options) });
   const runs = requireInteger('options.runs', options.runs, 1, 1_000_000);
   const seed = options.seed === undefined ? 1 : requireInteger('options.seed', options.seed, 0, MAX_SEED);
+  requireObject('plan', plan as object, 'a plan object { commands }');
   const commands = commandsToInternal(norm, plan.commands, 'plan.commands');
   const jumps = stateJumps(norm, commands);
   const grid = gridTimes(norm);

@@ -230,6 +230,7 @@ function rejectUnknownKeys(field: string, obj: Record<string, unknown>, allowed:
  * `diffusionFromStabilitySpec`; its errors are re-thrown with the scenario path (`spec.x` → `<field>.stability.x`).
  */
 export function noiseToDiffusion(noise: NoiseSpec, field = 'clock.noise'): DiffusionCoefficients {
+  if (typeof field !== 'string') throw new InvalidArgumentError('field', field, 'a string naming the noise spec in error messages');
   const obj = requireObject(field, noise);
   if ('stability' in obj) {
     rejectUnknownKeys(field, obj, ['stability']);
@@ -354,7 +355,7 @@ export function validateScenario(input: unknown, options: TimeScaleOptions = {})
   let constants = DEFAULT_CONSTANT_SET;
   if (root['constants'] !== undefined) {
     const name = root['constants'];
-    if (typeof name !== 'string' || !CONSTANT_SETS[name.toLowerCase()]) {
+    if (typeof name !== 'string' || !Object.hasOwn(CONSTANT_SETS, name.toLowerCase())) {
       throw new InvalidArgumentError('constants', name, `one of ${Object.keys(CONSTANT_SETS).join(', ')}`);
     }
     constants = CONSTANT_SETS[name.toLowerCase()]!;

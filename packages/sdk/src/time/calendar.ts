@@ -25,6 +25,7 @@ export interface CalendarDate {
 
 /** True when `year` is a leap year of the Gregorian calendar (divisible by 4, except centuries not divisible by 400). */
 export function isGregorianLeapYear(year: number): boolean {
+  requireInteger('year', year);
   return (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
 }
 

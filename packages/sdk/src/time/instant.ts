@@ -108,6 +108,7 @@ export class Instant {
 
   /** Orders two instants: −1 if `a` is earlier, 1 if later, 0 if equal (for `Array.prototype.sort`). */
   static compare(a: Instant, b: Instant): -1 | 0 | 1 {
+    if (!(a instanceof Instant)) throw new InvalidArgumentError('a', a, 'an Instant');
     return a.compare(b);
   }
 

@@ -142,6 +142,7 @@ const NTP_EPOCH_MJD = 15_020;
  */
 export function parseLeapSecondsList(text: string, sourceName = 'leap-seconds.list'): LeapSecondTable {
   if (typeof text !== 'string') throw new InvalidArgumentError('text', text, 'the text of a leap-seconds.list file');
+  if (typeof sourceName !== 'string') throw new InvalidArgumentError('sourceName', sourceName, 'a file name or label');
   const entries: LeapSecondEntry[] = [];
   let expiryMjd: number | undefined;
   // Line ends LF, CR LF or a lone CR, as in the io readers; a leading byte-order mark is dropped.

@@ -62,10 +62,10 @@ describe('potential terms', () => {
   });
 
   it('potential helpers reject the origin, non-finite vectors and non-positive GM', () => {
-    expect(() => pointMassPotential([0, 0, 0])).toThrow(/non-zero vector/);
+    expect(() => pointMassPotential([0, 0, 0])).toThrow(/position must be a vector of length in \[1, 10000000000000\] m/);
     expect(() => j2Potential([Number.NaN, 0, 0])).toThrow(InvalidArgumentError);
     expect(() => pointMassPotential([1e7, 0, 0], -1)).toThrow(/gm/);
-    expect(() => thirdBodyTidalPotential([1e7, 0, 0], [0, 0, 0], GM_MOON)).toThrow(/non-zero/);
+    expect(() => thirdBodyTidalPotential([1e7, 0, 0], [0, 0, 0], GM_MOON)).toThrow(/bodyPosition must be a vector of length in \[1, 10000000000000\] m/);
     expect(() => thirdBodyAcceleration([1e7, 0, 0], [4e8, 0, 0], 0)).toThrow(/gmBody/);
   });
 });

@@ -58,7 +58,7 @@ describe('meanClockRate', () => {
     expect(() => meanClockRate('26561750' as unknown as number)).toThrow(/semiMajorAxis/);
     expect(() => meanClockRate(26_561_750, { reference: 'tai' as 'tt' })).toThrow(/options\.reference must be one of tt, tcg; received "tai"/);
     expect(() => meanClockRate(26_561_750, { reference: 'TT' as 'tt' })).toThrow(/use lower case: tt/);
-    expect(() => meanClockRate(26_561_750, { constants: {} as typeof IERS_2010 })).toThrow(/options\.constants must be a ConstantSet/);
+    expect(() => meanClockRate(26_561_750, { constants: {} as typeof IERS_2010 })).toThrow(/options\.constants\.name must be a string naming the set \(a ConstantSet/);
   });
 });
 

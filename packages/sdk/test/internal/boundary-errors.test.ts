@@ -1,0 +1,126 @@
+/**
+ * The typed errors at the public boundary that the hostile-input review asked for by name: null or
+ * non-object options, the review's Monte Carlo settings, absurd magnitudes, the kilometre hint and
+ * malformed constant sets. Each check asserts the error class, the field it names and its range.
+ */
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import {
+  IERS_2010, InvalidArgumentError, analyzeStability, deviations, elementsToState, fitClockPolynomial, groundClockRate,
+  integrateProperTime, j2SecularClockRate, meanClockRate, meanMotion, planSteering, reviewOffsets, simulateClock, simulatePlan,
+  tcgRateVsTT, tuningWordFrequency, periodicCorrectionFromElements, createGravityField, identifyNoise,
+} from '../../src/index.js';
+
+const example = (path: string): Record<string, unknown> =>
+  JSON.parse(readFileSync(new URL(`../../examples/${path}`, import.meta.url), 'utf8')) as Record<string, unknown>;
+const REVIEW = example('review/kestrel-block-a.review.json');
+const SCENARIO = example('steering/orin-3-meo.json');
+const PHASE = { phase: Array.from({ length: 40 }, (_, i) => 1e-9 * Math.sin(i)), tau0: 1 };
+const STATE = { position: [26_560_000, 0, 0] as const, velocity: [0, 3874, 0] as const };
+const ORBIT = { semiMajorAxis: 26_560_000, eccentricity: 0.01, inclination: 0.96, semiMajorAxisKind: 'mean' as const };
+
+/** Runs `call` and returns the InvalidArgumentError it must throw. */
+function invalid(call: () => unknown): InvalidArgumentError {
+  try {
+    call();
+  } catch (error) {
+    expect(error).toBeInstanceOf(InvalidArgumentError);
+    return error as InvalidArgumentError;
+  }
+  throw new Error('expected an InvalidArgumentError, the call returned');
+}
+
+describe('null or non-object options name the argument (common practice, no source)', () => {
+  const cases: [string, (o: unknown) => unknown][] = [
+    ['analyzeStability', (o) => analyzeStability(PHASE, o as never)],
+    ['deviations', (o) => deviations('oadev', PHASE, o as never)],
+    ['identifyNoise', (o) => identifyNoise(PHASE, o as never)],
+    ['integrateProperTime', (o) => integrateProperTime(STATE, 3600, 600, o as never)],
+    ['reviewOffsets', (o) => reviewOffsets(REVIEW, o as never)],
+    ['fitClockPolynomial', (o) => fitClockPolynomial([0, 1, 2, 3], [0, 1e-9, 2e-9, 4e-9], o as never)],
+    ['simulatePlan', (o) => simulatePlan(SCENARIO, { commands: [] }, o as never)],
+    ['groundClockRate', (o) => groundClockRate({ latitude: 0.7, longitude: 0, height: 0 }, o as never)],
+    ['createGravityField', (o) => createGravityField('j2', o as never)],
+    ['meanClockRate', (o) => meanClockRate(26_560_000, o as never)],
+  ];
+  it.each(cases)('%s(..., null) and (..., 7) throw InvalidArgumentError naming options', (_name, call) => {
+    for (const bad of [null, 7, 'options', [1]]) {
+      const error = invalid(() => call(bad));
+      expect(error.argument).toBe('options');
+    }
+  });
+});
+
+describe('reviewOffsets options', () => {
+  it('reviewOffsets(review, { monteCarloRuns }) refuses 0, 2.5 and 2e7, naming the integer range [1, 10000000]', () => {
+    for (const runs of [0, 2.5, 2e7, Number.NaN]) {
+      const error = invalid(() => reviewOffsets(REVIEW, { monteCarloRuns: runs }));
+      expect(error.argument).toBe('options.monteCarloRuns');
+      expect(error.message).toContain('an integer in [1, 10000000]');
+    }
+  });
+  it('reviewOffsets(review, { marginalFraction }) refuses 0, 1.5 and NaN, naming the range (0, 1]', () => {
+    for (const fraction of [0, 1.5, Number.NaN, -0.2]) {
+      const error = invalid(() => reviewOffsets(REVIEW, { marginalFraction: fraction }));
+      expect(error.argument).toBe('options.marginalFraction');
+      expect(error.message).toContain('in (0, 1]');
+    }
+  });
+  it('reviewOffsets(review with a tuning word clocked at 1e300 Hz) names the field and the 1 Hz..1 THz range', () => {
+    const spacecraft = (REVIEW['spacecraft'] as Record<string, unknown>[]).map((sc, i) => i !== 2 ? sc
+      : { ...sc, configured: { tuningWord: { word: '28794890104583', clockHz: 1e300, bits: 48 } } });
+    const error = invalid(() => reviewOffsets({ ...REVIEW, spacecraft }));
+    expect(error.argument).toBe('spacecraft[2].configured.tuningWord.clockHz');
+    expect(error.message).toContain('[1, 1000000000000] Hz');
+  });
+});
+
+describe('absurd magnitudes give typed errors, never NaN or Infinity', () => {
+  it('simulateClock({ tau0 }) refuses 1e300 s, 0 s and 1e-12 s, naming the range [1e-9, 1e9] s', () => {
+    for (const tau0 of [1e300, 0, 1e-12, Number.POSITIVE_INFINITY]) {
+      const error = invalid(() => simulateClock({ samples: 16, tau0, q: { q1: 1e-22, q2: 1e-30 }, seed: 1 }));
+      expect(error.argument).toBe('tau0');
+      expect(error.message).toContain('in [1e-9, 1000000000] s');
+    }
+  });
+  it('tuningWordFrequency(word, 1e300 Hz, 48) refuses the clock frequency', () => {
+    expect(invalid(() => tuningWordFrequency(1n, 1e300, 48)).argument).toBe('clockFrequency');
+  });
+  it('meanMotion(1e300 m, GM), deviations on 1e300 s phase and a 1e300 s step refuse the value instead of returning Infinity', () => {
+    expect(invalid(() => meanMotion(1e300, IERS_2010.gm)).argument).toBe('semiMajorAxis');
+    expect(invalid(() => deviations('oadev', { phase: [0, 1e300, 0, 1, 2, 3], tau0: 1 })).argument).toBe('data.phase[1]');
+    expect(invalid(() => integrateProperTime(STATE, 1e300, 1e300 / 2)).argument).toBe('duration');
+  });
+  it('planSteering(null) and planSteering(scenario, null) throw InvalidArgumentError', () => {
+    invalid(() => planSteering(null));
+    invalid(() => planSteering(SCENARIO, null as never));
+  });
+});
+
+describe('kilometres given for metres', () => {
+  it('elementsToState({ semiMajorAxis: 26 560 }, GM) gives the same kilometre hint as meanClockRate(26 560)', () => {
+    const fromElements = invalid(() => elementsToState({ ...ORBIT, raan: 0, argumentOfPerigee: 0, meanAnomaly: 0, semiMajorAxis: 26_560 }, IERS_2010.gm));
+    const fromRate = invalid(() => meanClockRate(26_560));
+    expect(fromElements.argument).toBe('elements.semiMajorAxis');
+    expect(fromElements.hint).toBe('26560 m is inside the Earth; did you mean 26560 km = 26560000 m?');
+    expect(fromElements.hint).toBe(fromRate.hint);
+  });
+});
+
+describe('requireConstantSet at every function that takes constants (IERS Conventions 2010 Table 1.1 ranges [V2])', () => {
+  it('j2SecularClockRate(orbit, {}) and tcgRateVsTT({}) throw InvalidArgumentError instead of returning NaN', () => {
+    expect(invalid(() => j2SecularClockRate(ORBIT, {} as never)).argument).toBe('constants.name');
+    expect(invalid(() => tcgRateVsTT({} as never)).argument).toBe('constants.name');
+  });
+  it('a set with gm NaN, lG Infinity or a stale relativisticF is refused naming the field and its range', () => {
+    const gm = invalid(() => tcgRateVsTT({ ...IERS_2010, gm: Number.NaN }));
+    expect(gm.argument).toBe('constants.gm');
+    expect(gm.message).toContain('in [390000000000000, 410000000000000] m³/s²');
+    expect(invalid(() => periodicCorrectionFromElements(26_560_000, 0.01, 1, { ...IERS_2010, lG: Number.POSITIVE_INFINITY })).argument).toBe('constants.lG');
+    expect(invalid(() => meanClockRate(26_560_000, { constants: { ...IERS_2010, gm: 3.9861e14 } })).argument).toBe('options.constants.relativisticF');
+  });
+  it('tcgRateVsTT(IERS_2010) still returns L_G/(1 − L_G) = 6.969290134e-10 to 1e-18 (IERS Conventions 2010 §10.1 [V1])', () => {
+    expect(Math.abs(tcgRateVsTT(IERS_2010) - 6.969290134e-10 / (1 - 6.969290134e-10))).toBeLessThan(1e-25);
+    expect(Math.abs(tcgRateVsTT(IERS_2010) - 6.969290134e-10)).toBeLessThan(1e-18);
+  });
+});
