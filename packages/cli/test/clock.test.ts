@@ -205,8 +205,8 @@ describe('tauline clock --rinex-clock <file> --clock <name>', () => {
     const r = await run(['clock', '--rinex-clock', far, '--clock', 'G37']);
     expect(r.status).toBe(2);
     expect(r.err.trim().split('\n')).toHaveLength(1);
-    expect(r.err).toContain(`far.clk:${final + 1}:1: expected a clock series of at most 50000000 samples (MAX_SERIES_SAMPLES): the gap of `);
-    expect(r.err).toContain(` s from the record on line ${prev + 1}`);
+    expect(r.err).toContain(`far.clk:${final + 1}:1: expected a uniform series of at most 50000000 samples (MAX_SERIES_SAMPLES): the gap of `);
+    expect(r.err).toContain(` s after line ${prev + 1} is `);
     const cut = join(dir, 'cut.clk');
     writeFileSync(cut, [...lines.slice(0, 10), lines[10]!.slice(0, 51), ...lines.slice(11)].join('\n'));
     const c = await run(['clock', '--rinex-clock', cut, '--clock', 'G37']);

@@ -11,6 +11,7 @@ import type { Seconds } from '../units.js';
 import { linesOf, readLineBatches, type TextLine, type TextSource } from './line-reader.js';
 import { requireOptions, requireSourceName } from '../internal/validate.js';
 import { MAX_SERIES_SAMPLES } from './limits.js';
+import { GrowableColumn } from './growable.js';
 
 /** A run of missing samples in a regularised series. */
 export interface SampleGap {
@@ -56,43 +57,6 @@ export interface PhaseTextOptions {
 
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 
-/** Growable Float64Array (no per-value boxing for 10^7-line files). */
-class Growable {
-  private _data = new Float64Array(1024);
-  length = 0;
-  push(v: number): void {
-    if (this.length === this._data.length) {
-      const next = new Float64Array(this._data.length * 2);
-      next.set(this._data);
-      this._data = next;
-    }
-    this._data[this.length++] = v;
-  }
-  get(i: number): number {
-    return this._data[i]!;
-  }
-  toArray(): Float64Array {
-    return this._data.slice(0, this.length);
-  }
-}
-
-/** Growable Int32Array of source line numbers. */
-class GrowableInt {
-  private _data = new Int32Array(1024);
-  length = 0;
-  push(v: number): void {
-    if (this.length === this._data.length) {
-      const next = new Int32Array(this._data.length * 2);
-      next.set(this._data);
-      this._data = next;
-    }
-    this._data[this.length++] = v;
-  }
-  get(i: number): number {
-    return this._data[i]!;
-  }
-}
-
 interface Token {
   text: string;
   column: number;
@@ -123,9 +87,9 @@ class PhaseTextBuilder {
   private _columns: 1 | 2 | undefined;
   private _header: string[] | undefined;
   private _seenData = false;
-  private readonly _times = new Growable();
-  private readonly _values = new Growable();
-  private readonly _lines = new GrowableInt();
+  private readonly _times = new GrowableColumn();
+  private readonly _values = new GrowableColumn();
+  private readonly _lines = new GrowableColumn();
   constructor(options: PhaseTextOptions) {
     this._options = requireOptions('options', options);
     this._name = options.sourceName === undefined ? 'phase' : requireSourceName('options.sourceName', options.sourceName);

@@ -11,6 +11,7 @@ import type { Seconds } from '../units.js';
 import { MAX_SERIES_SAMPLES } from './limits.js';
 import { scaleSecondsFromFields, validEpochFields, type TextSource } from './line-reader.js';
 import { regularizeSeries, type SampleGap } from './phase-text.js';
+import { GrowableColumn } from './growable.js';
 import {
   readRinexClock, type RinexClockFile, type RinexClockHeader, type RinexClockReadOptions, type RinexClockRecord,
 } from './rinex-clock.js';
@@ -40,29 +41,6 @@ export interface RinexClockSeriesOptions {
 
 /** How many distinct clock names an error message lists. */
 const NAMES_LISTED = 20;
-
-/** A Float64Array that doubles when full (one per kept column). */
-class GrowableColumn {
-  private _data = new Float64Array(1024);
-  length = 0;
-
-  push(v: number): void {
-    if (this.length === this._data.length) {
-      const next = new Float64Array(this._data.length * 2);
-      next.set(this._data);
-      this._data = next;
-    }
-    this._data[this.length++] = v;
-  }
-
-  get(i: number): number {
-    return this._data[i]!;
-  }
-
-  toArray(): Float64Array {
-    return this._data.slice(0, this.length);
-  }
-}
 
 /**
  * Collects the records of one clock (name, and type when given) out of a stream of records, then builds
@@ -124,33 +102,8 @@ export class RinexClockSeriesCollector {
     }
     const times = this._times.toArray();
     const lineOf = (i: number) => this._lines.get(i);
-    checkSeriesLength(this._source, times, lineOf, this._options.tau0);
     const reg = regularizeSeries(this._source, times, this._values.toArray(), lineOf, this._options.tau0);
     return { name: this._name, type: this._type!, ...reg, timeSystem: header.timeSystem };
-  }
-}
-
-/**
- * Refuses a series whose uniform grid (first to last epoch at τ0, gaps included) would exceed
- * {@link MAX_SERIES_SAMPLES}, at the line of the record that crosses the limit, naming the gap and the limit.
- */
-function checkSeriesLength(source: string, times: Float64Array, lineOf: (i: number) => number, tau0Given: number | undefined): void {
-  let tau0 = tau0Given;
-  if (tau0 === undefined || !(tau0 > 0 && Number.isFinite(tau0))) {
-    if (tau0Given !== undefined) return; // regularizeSeries reports the bad τ0
-    tau0 = Infinity;
-    for (let i = 1; i < times.length; i++) tau0 = Math.min(tau0, times[i]! - times[i - 1]!);
-    if (!Number.isFinite(tau0)) return; // one epoch
-  }
-  let total = 1;
-  for (let i = 1; i < times.length; i++) {
-    const gap = times[i]! - times[i - 1]!;
-    total += Math.round(gap / tau0);
-    if (total > MAX_SERIES_SAMPLES) {
-      throw new ParseError(source, lineOf(i), 1,
-        `a clock series of at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES): the gap of ${gap} s from the record on line ${lineOf(i - 1)} ` +
-        `makes it at least ${total} samples at tau0 = ${tau0} s`);
-    }
   }
 }
 

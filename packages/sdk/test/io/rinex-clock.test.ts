@@ -186,8 +186,8 @@ describe('rinexClockSeries / readRinexClockSeries: one clock on a uniform grid, 
     expect(caught).toBeInstanceOf(ParseError);
     const e = caught as ParseError;
     expect([e.sourceName, e.line]).toEqual(['s.clk', 9]);
-    expect(e.message).toContain(`at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES): the gap of ${gap} s from the record on line 8`);
-    expect(e.message).toMatch(/at tau0 = 30 s/);
+    expect(e.message).toContain(`at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES): the gap of ${gap} s after line 8 is `);
+    expect(e.message).toMatch(/steps of tau0 = 30 s/);
     expectParseError(() => rinexClockSeries(parseRinexClock(text, src), 'G05'), 9, 1, /MAX_SERIES_SAMPLES/);
   });
   it('readRinexClockSeries keeps only the chosen clock: a stream of 50 000 records of other clocks leaves one sample (the file is never held whole)', async () => {

@@ -139,7 +139,7 @@ describe('readers under seeded fuzzing (10^4 mutants of the real fixtures each; 
     const text = fixturesMatching(/^fictional-304\.clk$/)[0]!.text.trimEnd()
       + '\nAS G05       9999 01 04 00 02  0.000000  2   -0.123456788930E-03  0.100000000000E-10\n';
     const file = parseRinexClock(text, 'year9999.clk');
-    expect(() => rinexClockSeries(file, 'G05')).toThrow(/^year9999\.clk:14:1: expected a clock series of at most 50000000 samples \(MAX_SERIES_SAMPLES\): the gap of \d+ s from the record on line 13/);
+    expect(() => rinexClockSeries(file, 'G05')).toThrow(/^year9999\.clk:14:1: expected a uniform series of at most 50000000 samples \(MAX_SERIES_SAMPLES\): the gap of \d+ s after line 13/);
   });
 
   it('parseRinexClock(a lone CR after END OF HEADER) keeps the next record as a record (the line reader ends the line at the CR)', () => {

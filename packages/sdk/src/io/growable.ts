@@ -1,0 +1,27 @@
+/**
+ * A Float64Array that doubles when full: one column of a record being read (epochs, values, line
+ * numbers), with no per-value boxing for files of 10^7 lines.
+ *
+ * @internal
+ */
+export class GrowableColumn {
+  private _data = new Float64Array(1024);
+  length = 0;
+
+  push(v: number): void {
+    if (this.length === this._data.length) {
+      const next = new Float64Array(this._data.length * 2);
+      next.set(this._data);
+      this._data = next;
+    }
+    this._data[this.length++] = v;
+  }
+
+  get(i: number): number {
+    return this._data[i]!;
+  }
+
+  toArray(): Float64Array {
+    return this._data.slice(0, this.length);
+  }
+}
