@@ -7,6 +7,7 @@ import {
   EXIT_FINDING, EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, onePositional, table, toJson, type Command,
 } from '../framework.js';
 import { readJsonFile } from '../files.js';
+import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, PLAN_UNITS, leapSecondsFlag, nsText } from './plan.js';
 
 /** Units of the fleet plan's JSON fields (`units` in `tauline fleet --json`). */
@@ -45,7 +46,8 @@ function timeline(doc: FleetDocument, plan: FleetPlan): string[] {
 }
 
 /** The human-readable fleet plan. */
-export function fleetToText(doc: FleetDocument, plan: FleetPlan): string {
+/** `width`: display columns to fit (TABLE_WIDTH by default in the CLI); undefined for the unlimited `--wide` form. */
+export function fleetToText(doc: FleetDocument, plan: FleetPlan, width: number | undefined): string {
   const out: string[] = [];
   out.push(`${doc.name ?? 'Fleet plan'}: ${doc.strategy.method} planner, ${doc.satellites.length} satellites, ${doc.stations.length} stations, ` +
     `${doc.epoch} + ${(doc.horizonSeconds / 86_400).toFixed(2)} days`);
@@ -53,17 +55,20 @@ export function fleetToText(doc: FleetDocument, plan: FleetPlan): string {
   const rows = plan.satellites.map((s, i) => {
     const sat = doc.satellites[i]!;
     const stations = [...new Set(plan.stationSchedule.filter((x) => x.satellite === s.id).map((x) => x.station))];
+    const supports = plan.stationSchedule.filter((x) => x.satellite === s.id).length;
     return [s.id, s.feasible ? 'yes' : 'NO', nsText(s.metrics.worstOffsetBoundSeconds), `±${nsText(sat.tolerance.phaseSeconds)} at ${sat.tolerance.probability * 100} %`,
-      s.metrics.probabilityInTolerance.toFixed(4), s.commands.length, stations.join(', ') || '-'];
+      s.metrics.probabilityInTolerance.toFixed(4), supports, s.commands.length, stations.join(', ') || '-'];
   });
-  out.push(table(['satellite', 'feasible', 'worst |mean| + z·σ', 'tolerance', 'probability in tolerance', 'uplinks', 'stations used'], rows).trimEnd());
+  // "supports": station passes booked for uplink; "commands": commands uplinked in them (several per support).
+  out.push(fitTable(['satellite', 'feasible', 'worst |mean| + z·σ', 'tolerance', 'probability in tolerance', 'supports', 'commands', 'stations used'],
+    rows, { width }).trimEnd());
   out.push('(worst |mean| + z·σ is a sufficient margin, stricter than the per-epoch probability criterion that decides feasibility.)');
   for (const s of plan.satellites.filter((x) => !x.feasible)) out.push(`  ${s.id} (${s.reasonCode}): ${s.reason}`);
   out.push('', ...timeline(doc, plan), '');
   if (plan.stationSchedule.length === 0) out.push('No supports needed.');
   else out.push(table(['station', 'satellite', 'support start (UTC)', 'support end (UTC)'], plan.stationSchedule.map((x) => [x.station, x.satellite, x.start, x.end])).trimEnd());
   out.push('', 'Commands: tauline fleet <file> --json lists every command with its uplink station.', '', plan.caution, '');
-  return out.join('\n');
+  return wrapLines(out.join('\n'), width);
 }
 
 export const fleetCommand: Command = {
@@ -83,7 +88,7 @@ with at least setupSeconds between two supports. Supports go first to the satell
 offset leaves its band soonest; each satellite is then planned by the single-satellite planner with
 its supports as its only contacts (see tauline plan --help for the feasibility rule). An infeasible
 satellite's reasonCode is too-few-passes, station-overbooked, or one of the plan command's codes.
-The table shows one line per satellite (worst |mean| + z·σ, uplinks, stations used) and a text
+The table shows one line per satellite (worst |mean| + z·σ, supports booked, commands uplinked, stations used) and a text
 timeline per station.
 ${LEAP_SECONDS_HELP}
 Exit status: 0 every satellite feasible, 1 some satellite infeasible (the reasons are printed), 2 unusable input.`,
@@ -94,7 +99,7 @@ Exit status: 0 every satellite feasible, 1 some satellite infeasible (the reason
     const doc = await readJsonFile(path, 'a fleet document');
     const plan = planFleet(doc, timeScales ? { timeScales } : {});
     if (format === 'json') io.out(toJson({ ...plan, units: FLEET_UNITS }));
-    else io.out(fleetToText(doc as FleetDocument, plan));
+    else io.out(fleetToText(doc as FleetDocument, plan, outputWidth(args)));
     return plan.feasible ? EXIT_OK : EXIT_FINDING;
   },
 };
