@@ -5,7 +5,7 @@
  * same, byte for byte, for any number of workers.
  */
 import { existsSync } from 'node:fs';
-import { availableParallelism } from 'node:os';
+import { availableParallelism, loadavg } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import type { MonteCarloPart, SteeringCommand } from '@tauline/sdk/steering';
@@ -32,12 +32,14 @@ export function workerScript(): URL | undefined {
 }
 
 /**
- * How many workers to use: `requested` (--workers) when given, otherwise all available cores when
- * more than one is available and the work is at least AUTO_POOL_STEPS, else 1 (in-process). Never
- * more workers than runs.
+ * How many workers to use: `requested` (--workers) when given; otherwise, when the work is at least
+ * AUTO_POOL_STEPS, one per free core, free cores being the available cores less the 1-minute load
+ * average, rounded (on a machine already busy with other work extra threads only add overhead);
+ * else 1 (in-process). Never more workers than runs.
  */
 export function workerCount(requested: number | undefined, runs: number, gridEpochs: number): number {
-  const n = requested ?? (availableParallelism() > 1 && runs * gridEpochs >= AUTO_POOL_STEPS ? availableParallelism() : 1);
+  const free = Math.max(1, Math.min(availableParallelism(), Math.round(availableParallelism() - loadavg()[0]!)));
+  const n = requested ?? (runs * gridEpochs >= AUTO_POOL_STEPS ? free : 1);
   return Math.min(n, runs);
 }
 

@@ -35,7 +35,7 @@ export const simulateCommand: Command = {
     'closed-loop': { type: 'boolean', description: 'Fly the scenario\'s operations block: estimates with noise and latency, re-plan at every contact (needs "operations" in the scenario).' },
     seed: seedFlagSpec('the random generator', '; same seed, same numbers'),
     strategy: { type: 'string', value: '<name>', description: 'deadband, optimal, none, or all (default all).' },
-    workers: { type: 'string', value: '<n>', description: `Worker threads for the open-loop runs (1 … ${MAX_WORKERS}; 1 = in-process; default: one per core when more than one core is available and runs × grid epochs ≥ ${AUTO_POOL_STEPS.toLocaleString('en-US')}, else 1). Same output for any number.` },
+    workers: { type: 'string', value: '<n>', description: `Worker threads for the open-loop runs (1 … ${MAX_WORKERS}; 1 = in-process; default: one per free core (cores less the 1-minute load average) when runs × grid epochs ≥ ${AUTO_POOL_STEPS.toLocaleString('en-US')}, else 1). Same output for any number.` },
     'leap-seconds': LEAP_SECONDS_FLAG,
     ...formatFlags(TABLE_OR_JSON, { json: 'Print the results as JSON (same as --format json).' }),
   },
