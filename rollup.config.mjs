@@ -53,7 +53,8 @@ const demo = {
 
 export default [
   pkg('sdk', entriesFromExports('sdk')),
-  pkg('cli', { main: 'packages/cli/src/main.ts' }),
+  // The simulate worker is an entry of its own: node:worker_threads starts it by file (dist/simulate-worker.js).
+  pkg('cli', { main: 'packages/cli/src/main.ts', 'simulate-worker': 'packages/cli/src/simulate-worker.ts' }),
   pkg('elements', entriesFromExports('elements')),
   demo,
 ];

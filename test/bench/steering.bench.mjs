@@ -3,7 +3,11 @@
 // Monte Carlo at 1000 runs; one re-plan (7-day horizon); and the closed-loop Monte Carlo of 1000
 // runs × 30 days with a re-plan at each of two daily contacts. Imports the built SDK
 // (packages/sdk/dist). Prints times and the targets; asserts nothing.
-import { readFileSync } from 'node:fs';
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { availableParallelism, cpus, loadavg, tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { createReplanner, planSteering, replanSteering, simulateClosedLoop, simulatePlan } from '../../packages/sdk/dist/steering/index.js';
 
 const scenario = JSON.parse(readFileSync(new URL('../../packages/sdk/examples/steering/orin-3-meo.json', import.meta.url), 'utf8'));
@@ -61,4 +65,31 @@ export default function run() {
   for (const r of [open, closed]) {
     process.stdout.write(`${r.label.padEnd(66)} ${(r.ms / 1000).toFixed(2).padStart(8)} s   ×${(r.ms / open.ms).toFixed(1)} of the open-loop Monte Carlo\n`);
   }
+  cliPool(s);
+}
+
+/**
+ * `tauline simulate --runs 10000`, 30 days on a 300 s grid (8641 epochs), all three strategies, through
+ * the built binary: --workers 1 (in-process, the baseline) against one worker per core and the automatic
+ * choice (one per free core), wall time of the whole command; the outputs must be identical.
+ */
+function cliPool(monthScenario) {
+  const s = structuredClone(monthScenario);
+  s.gridSeconds = 300;
+  const path = join(mkdtempSync(join(tmpdir(), 'tauline-bench-')), 'month-300s.json');
+  writeFileSync(path, JSON.stringify(s));
+  const bin = fileURLToPath(new URL('../../packages/cli/bin/tauline.js', import.meta.url));
+  const wall = (extra) => {
+    const t0 = performance.now();
+    const out = execFileSync(process.execPath, [bin, 'simulate', path, '--runs', '10000', '--seed', '1', '--json', ...extra], { encoding: 'utf8' });
+    return { ms: performance.now() - t0, out };
+  };
+  const one = wall(['--workers', '1']);
+  const pool = wall(['--workers', String(availableParallelism())]);
+  const auto = wall([]);
+  const same = pool.out === one.out && auto.out === one.out ? 'identical' : 'DIFFERENT';
+  process.stdout.write(`cores: availableParallelism ${availableParallelism()}, cpus ${cpus().length}; 1-minute load average ${loadavg()[0].toFixed(2)}\n`);
+  process.stdout.write(`${'tauline simulate --runs 10000, 30 d at 300 s, all strategies, --workers 1'.padEnd(78)} ${(one.ms / 1000).toFixed(2).padStart(7)} s\n`);
+  process.stdout.write(`${`  the same, --workers ${availableParallelism()} (target < 10 s)`.padEnd(78)} ${(pool.ms / 1000).toFixed(2).padStart(7)} s   ×${(one.ms / pool.ms).toFixed(2)} faster\n`);
+  process.stdout.write(`${'  the same, automatic (one worker per free core)'.padEnd(78)} ${(auto.ms / 1000).toFixed(2).padStart(7)} s   ×${(one.ms / auto.ms).toFixed(2)} faster; outputs ${same}\n`);
 }

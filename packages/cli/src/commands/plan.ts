@@ -4,7 +4,7 @@
  */
 import { planSteering, type SteeringMethod, type SteeringPlan, type SteeringScenario } from '@tauline/sdk/steering';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
-import { createTimeScales, parseLeapSecondsList, type TimeScales } from '@tauline/sdk/time';
+import { createTimeScales, parseLeapSecondsList, type LeapSecondTable, type TimeScales } from '@tauline/sdk/time';
 import {
   EXIT_FINDING, EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, onePositional, optionalFlag, table, toJson,
   type Command, type FlagSpec, type ParsedArgs,
@@ -27,11 +27,24 @@ export async function readScenarioFile(path: string): Promise<unknown> {
  * @throws {InvalidArgumentError} naming --leap-seconds when the list's entries break the table rules.
  */
 export async function leapSecondsFlag(args: ParsedArgs): Promise<TimeScales | undefined> {
+  const table = await leapSecondsTableFlag(args);
+  return table === undefined ? undefined : createTimeScales(table);
+}
+
+/**
+ * Reads `--leap-seconds <file>` as a checked leap-second table (plain data, e.g. for a worker thread):
+ * the table `leapSecondsFlag` builds its time scales from. Undefined when the flag is absent.
+ * @throws {ParseError} with file and line for a malformed list.
+ * @throws {InvalidArgumentError} naming --leap-seconds when the list's entries break the table rules.
+ */
+export async function leapSecondsTableFlag(args: ParsedArgs): Promise<LeapSecondTable | undefined> {
   const path = optionalFlag(args, 'leap-seconds');
   if (path === undefined) return undefined;
   const text = await readTextFile(path, 'an IERS/NIST leap-seconds.list');
   try {
-    return createTimeScales(parseLeapSecondsList(text, sourceLabel(path)));
+    const table = parseLeapSecondsList(text, sourceLabel(path));
+    createTimeScales(table); // checks the table rules here, where the error can name the flag
+    return table;
   } catch (error) {
     if (error instanceof InvalidArgumentError) {
       throw new InvalidArgumentError('--leap-seconds', path, 'an IERS/NIST leap-seconds.list with a valid table', error.message);

@@ -2,13 +2,19 @@
  * `tauline simulate <scenario.json> --runs N`: flies each strategy's plan against seeded
  * simulated clock noise and reports time in tolerance, worst excursion and command count.
  */
-import { planSteering, simulateClosedLoop, simulatePlan, type ClosedLoopSummary, type SteeringMethod, type SteeringScenario } from '@tauline/sdk/steering';
+import {
+  combineMonteCarloParts, planSteering, simulateClosedLoop, simulatePlan, type ClosedLoopSummary, type SimulationSummary, type SteeringMethod,
+  type SteeringPlan, type SteeringScenario,
+} from '@tauline/sdk/steering';
 import {
   EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, integerFlag, onePositional, optionalFlag, progressBar, requireFlag, seedFlag, seedFlagSpec,
   toJson, type Command, type Io, type ParsedArgs,
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
-import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag, nsText, readScenarioFile, strategyFlag } from './plan.js';
+import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag, leapSecondsTableFlag, nsText, readScenarioFile, strategyFlag } from './plan.js';
+import { createTimeScales, type LeapSecondTable } from '@tauline/sdk/time';
+import { InvalidArgumentError } from '@tauline/sdk/errors';
+import { AUTO_POOL_STEPS, MAX_WORKERS, SimulatePool, workerCount, workerScript } from '../simulate-pool.js';
 
 /** Simulated (run × grid-epoch) steps above which a progress bar is shown on a terminal. */
 export const PROGRESS_THRESHOLD = 200_000;
@@ -22,13 +28,14 @@ export const SIMULATION_CAUTION = 'Caution: plans are open-loop from the epoch e
 export const simulateCommand: Command = {
   name: 'simulate',
   summary: 'Monte Carlo of steering plans against simulated clock noise, per strategy.',
-  usage: '<scenario.json> (--runs <n> | --closed-loop [--runs <n>]) [--seed <n>] [--strategy deadband|optimal|none|all] [--leap-seconds <file>] [--json | --format table|json]',
+  usage: '<scenario.json> (--runs <n> | --closed-loop [--runs <n>]) [--seed <n>] [--strategy deadband|optimal|none|all] [--workers <n>] [--leap-seconds <file>] [--json | --format table|json]',
   allowPositionals: true,
   flags: {
     runs: { type: 'string', value: '<n>', description: 'Number of simulated clocks per strategy (1 … 1000000; with --closed-loop 1 … 100000, default 100).' },
     'closed-loop': { type: 'boolean', description: 'Fly the scenario\'s operations block: estimates with noise and latency, re-plan at every contact (needs "operations" in the scenario).' },
     seed: seedFlagSpec('the random generator', '; same seed, same numbers'),
     strategy: { type: 'string', value: '<name>', description: 'deadband, optimal, none, or all (default all).' },
+    workers: { type: 'string', value: '<n>', description: `Worker threads for the open-loop runs (1 … ${MAX_WORKERS}; 1 = in-process; default: one per free core (cores less the 1-minute load average) when runs × grid epochs ≥ ${AUTO_POOL_STEPS.toLocaleString('en-US')}, else 1). Same output for any number.` },
     'leap-seconds': LEAP_SECONDS_FLAG,
     ...formatFlags(TABLE_OR_JSON, { json: 'Print the results as JSON (same as --format json).' }),
   },
@@ -38,6 +45,8 @@ Each run draws the epoch state from the scenario's mean and covariance and adds 
 commands and the manoeuvre rate changes are applied at their epochs. Offsets are checked on the grid.
 time in tolerance: fraction of (run, epoch) pairs inside; whole horizon: fraction of runs never outside;
 min epoch: the smallest per-epoch fraction (compare with the plan's probability).
+Run r draws from its own random stream selected by (seed, r), so the runs can be split between worker
+threads (--workers) and the output is byte-identical for any number of workers.
 JSON: { scenario, results: [{ strategy, feasible, expectedCost, runs, seed, commandCount, timeInTolerance,
 wholeHorizonProbability, minEpochProbability, worstExcursionSeconds (s), worstExcursionP95Seconds (s) }], units, caution }.
 
@@ -60,17 +69,28 @@ Exit status: 0 success, 2 unusable input.`,
     const runs = integerFlag(args, 'runs', 1, 1_000_000, 'simulated clocks per strategy')!;
     const seed = seedFlag(args) ?? 1;
     const choice = strategyFlag(optionalFlag(args, 'strategy'), true) ?? 'all';
-    const timeScales = await leapSecondsFlag(args);
+    const requestedWorkers = integerFlag(args, 'workers', 1, MAX_WORKERS, 'worker threads; 1 = in-process');
+    const leapSeconds = await leapSecondsTableFlag(args);
+    const timeScales = leapSeconds ? createTimeScales(leapSeconds) : undefined;
     const scenario = await readScenarioFile(path);
     const methods: SteeringMethod[] = choice === 'all' ? ['none', 'deadband', 'optimal'] : [choice];
+    const plans = methods.map((method) => ({ method, plan: planSteering(scenario, { strategy: method, ...(timeScales ? { timeScales } : {}) }) }));
+    const script = workerScript();
+    const workers = script ? workerCount(requestedWorkers, runs, plans[0]!.plan.predicted.t.length) : 1;
+    const pool = workers > 1 ? new SimulatePool(script!, workers) : undefined;
     const results = [];
-    for (const method of methods) {
-      const plan = planSteering(scenario, { strategy: method, ...(timeScales ? { timeScales } : {}) });
-      const long = io.isTty && runs * plan.predicted.t.length > PROGRESS_THRESHOLD;
-      const bar = long ? progressBar(io, `simulating ${method}`) : undefined;
-      const summary = simulatePlan(scenario, plan, { runs, seed, ...(bar ? { onProgress: bar.update } : {}), ...(timeScales ? { timeScales } : {}) });
-      bar?.finish();
-      results.push({ strategy: method, feasible: plan.feasible, expectedCost: plan.metrics.expectedCost, ...summary });
+    try {
+      for (const { method, plan } of plans) {
+        const long = io.isTty && runs * plan.predicted.t.length > PROGRESS_THRESHOLD;
+        const bar = long ? progressBar(io, `simulating ${method}`) : undefined;
+        const summary = pool
+          ? await simulateInPool(pool, { scenario, plan, seed, runs, ...(leapSeconds ? { leapSeconds } : {}) }, bar?.update)
+          : simulatePlan(scenario, plan, { runs, seed, ...(bar ? { onProgress: bar.update } : {}), ...(timeScales ? { timeScales } : {}) });
+        bar?.finish();
+        results.push({ strategy: method, feasible: plan.feasible, expectedCost: plan.metrics.expectedCost, ...summary });
+      }
+    } finally {
+      await pool?.close();
     }
     if (format === 'json') {
       io.out(toJson({
@@ -95,8 +115,17 @@ Exit status: 0 success, 2 unusable input.`,
   },
 };
 
+/** One strategy's runs flown by the pool and combined: the same summary as `simulatePlan` in-process. */
+async function simulateInPool(pool: SimulatePool, job: { scenario: unknown; plan: SteeringPlan; seed: number; runs: number; leapSeconds?: LeapSecondTable },
+  onProgress?: (done: number, total: number) => void): Promise<SimulationSummary> {
+  const parts = await pool.run({ scenario: job.scenario, commands: job.plan.commands, seed: job.seed, runs: job.runs,
+    ...(job.leapSeconds ? { leapSeconds: job.leapSeconds } : {}) }, onProgress);
+  return combineMonteCarloParts(parts);
+}
+
 /** `--closed-loop`: the closed-loop Monte Carlo of every chosen strategy on the same clocks. */
 async function runClosedLoop(args: ParsedArgs, io: Io, path: string, format: 'table' | 'json'): Promise<number> {
+  if (args.values.workers !== undefined) throw new InvalidArgumentError('--workers', args.values.workers, 'no value: --workers applies to the open-loop runs; the closed loop runs in-process');
   const runs = integerFlag(args, 'runs', 1, 100_000, 'simulated clocks') ?? 100;
   const seed = seedFlag(args) ?? 1;
   const choice = strategyFlag(optionalFlag(args, 'strategy'), true) ?? 'all';

@@ -72,14 +72,67 @@ export function createRandom(seed: number, method: NormalMethod = 'polar'): Rand
   let x = Math.trunc(seed) >>> 0;
   const splitmix = (): number => {
     x = (x + 0x9e3779b9) >>> 0;
-    let z = x;
-    z = Math.imul(z ^ (z >>> 16), 0x85ebca6b) >>> 0;
-    z = Math.imul(z ^ (z >>> 13), 0xc2b2ae35) >>> 0;
-    return (z ^ (z >>> 16)) >>> 0;
+    return fmix32(x);
   };
+  const r = createReseedableRandom(method);
+  r.setState(splitmix(), splitmix(), splitmix(), splitmix());
+  return r;
+}
+
+/** MurmurHash3's 32-bit finalizer fmix32 (A. Appleby, MurmurHash3, public domain; from memory [M]): a bijection of the 32-bit integers with full avalanche. */
+export function fmix32(z: number): number {
+  z = Math.imul(z ^ (z >>> 16), 0x85ebca6b) >>> 0;
+  z = Math.imul(z ^ (z >>> 13), 0xc2b2ae35) >>> 0;
+  return (z ^ (z >>> 16)) >>> 0;
+}
+
+/** A random source whose xoshiro128** state can be set again, so one generator (and its closures) serves many streams. */
+export interface ReseedableRandom extends Random {
+  /** Sets the four 32-bit state words (an all-zero state becomes s0 = 1) and forgets any spare polar draw. */
+  setState(s0: number, s1: number, s2: number, s3: number): void;
+  /** Selects the stream of run `index` of `seed` (see `streamState`). */
+  setStream(seed: number, index: number): void;
+}
+
+/**
+ * The xoshiro128** state of stream `index` (0 … 2^32 − 1) of `seed` (unsigned 32-bit), written into `out`:
+ * a = fmix32(seed ⊕ 0x9e3779b9); s0 = fmix32(a + 0x6a09e667); s1 = fmix32((index ⊕ a) + 0xbb67ae85);
+ * s2 = fmix32(s1 ⊕ (a + 0x3c6ef372)); s3 = fmix32(s0 ⊕ s1 ⊕ 0xa54ff53a) (additions mod 2^32; the
+ * constants are the golden-ratio and SHA-256 initial words, chosen only as "nothing up the sleeve").
+ * Since fmix32 is a bijection, s1 differs for every index of one seed, so no two runs of a seed share a
+ * state; every word passes through fmix32, so neighbouring indices give unrelated states. A run's
+ * stream depends only on (seed, index): any range of runs can be flown apart from the others.
+ * Common practice (counter-based seeding through an avalanche mixer), no source for this exact layout.
+ */
+export function streamState(seed: number, index: number, out: Uint32Array): void {
+  const a = fmix32((seed ^ 0x9e3779b9) >>> 0);
+  const s0 = fmix32((a + 0x6a09e667) >>> 0);
+  const s1 = fmix32((((index ^ a) >>> 0) + 0xbb67ae85) >>> 0);
+  out[0] = s0;
+  out[1] = s1;
+  out[2] = fmix32((s1 ^ ((a + 0x3c6ef372) >>> 0)) >>> 0);
+  out[3] = fmix32((s0 ^ s1 ^ 0xa54ff53a) >>> 0);
+}
+
+/**
+ * A generator over stream `index` of `seed` (see `streamState`), drawing normals by `method`.
+ * @param seed    Unsigned 32-bit seed.
+ * @param index   Stream (run) index, unsigned 32-bit.
+ */
+export function createRandomStream(seed: number, index: number, method: NormalMethod = 'ziggurat'): ReseedableRandom {
+  const r = createReseedableRandom(method);
+  r.setStream(seed, index);
+  return r;
+}
+
+/**
+ * xoshiro128** 1.1 with a settable state (see `createRandom` for the generator and the normal methods).
+ * @param method  How normals are drawn.
+ */
+export function createReseedableRandom(method: NormalMethod): ReseedableRandom {
   // The state lives in four local integers (not an array): this loop is the hot path of every Monte Carlo.
-  let s0 = splitmix() | 0, s1 = splitmix() | 0, s2 = splitmix() | 0, s3 = splitmix() | 0;
-  if ((s0 | s1 | s2 | s3) === 0) s0 = 1;
+  let s0 = 1, s1 = 0, s2 = 0, s3 = 0;
+  const words = new Uint32Array(4);
   /** Next 32-bit output as a signed integer (the same bits as the unsigned output). */
   const nextInt = (): number => {
     const m = Math.imul(s1, 5);
@@ -94,10 +147,24 @@ export function createRandom(seed: number, method: NormalMethod = 'polar'): Rand
     return result;
   };
   const uniform = (): number => ((nextInt() >>> 0) + 0.5) / 4294967296;
-  if (method === 'ziggurat') return { uniform, normal: zigguratNormal(nextInt, uniform) };
   let spare: number | undefined;
+  const setState = (a: number, b: number, c: number, d: number): void => {
+    s0 = a | 0;
+    s1 = b | 0;
+    s2 = c | 0;
+    s3 = d | 0;
+    if ((s0 | s1 | s2 | s3) === 0) s0 = 1;
+    spare = undefined;
+  };
+  const setStream = (seed: number, index: number): void => {
+    streamState(seed, index, words);
+    setState(words[0]!, words[1]!, words[2]!, words[3]!);
+  };
+  if (method === 'ziggurat') return { uniform, normal: zigguratNormal(nextInt, uniform), setState, setStream };
   return {
     uniform,
+    setState,
+    setStream,
     normal(): number {
       if (spare !== undefined) {
         const v = spare;

@@ -17,7 +17,9 @@ export {
 export { steeringCost, predictSteering, type SteeringPrediction } from './evaluate.js';
 export { type CostBreakdown } from './cost.js';
 export { type DiffusionCoefficients } from './clock-math.js';
-export { simulatePlan, type SimulationOptions, type SimulationSummary } from './monte-carlo.js';
+export {
+  combineMonteCarloParts, simulatePlan, simulatePlanRuns, type MonteCarloPart, type SimulationOptions, type SimulationRangeOptions, type SimulationSummary,
+} from './monte-carlo.js';
 export {
   replanSteering, createReplanner, type SteeringReplanner, type ClockOffsetEstimate, type PlanRevision, type RevisedSteeringPlan,
 } from './replan.js';

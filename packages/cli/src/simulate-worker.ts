@@ -1,0 +1,37 @@
+/**
+ * Worker thread of `tauline simulate`: flies one contiguous range of Monte Carlo runs per task
+ * (`simulatePlanRuns`) and posts the part back, with progress messages on the way. Started by
+ * simulate-pool.ts from the built CLI (dist/simulate-worker.js).
+ */
+import { parentPort } from 'node:worker_threads';
+import { simulatePlanRuns, type SteeringCommand } from '@tauline/sdk/steering';
+import { createTimeScales, type LeapSecondTable } from '@tauline/sdk/time';
+
+/** One task: the runs firstRun … firstRun + runCount − 1 of a plan. */
+export interface SimulateTask {
+  id: number;
+  scenario: unknown;
+  commands: SteeringCommand[];
+  seed: number;
+  firstRun: number;
+  runCount: number;
+  leapSeconds?: LeapSecondTable;
+}
+
+/** Runs between two progress messages (a message per run would cost more than the run). */
+const PROGRESS_EVERY = 50;
+
+parentPort?.on('message', (task: SimulateTask) => {
+  try {
+    const part = simulatePlanRuns(task.scenario, { commands: task.commands }, {
+      seed: task.seed, firstRun: task.firstRun, runCount: task.runCount,
+      ...(task.leapSeconds ? { timeScales: createTimeScales(task.leapSeconds) } : {}),
+      onProgress: (done) => {
+        if (done % PROGRESS_EVERY === 0) parentPort!.postMessage({ id: task.id, progress: PROGRESS_EVERY });
+      },
+    });
+    parentPort!.postMessage({ id: task.id, part }, [part.insideByEpoch.buffer as ArrayBuffer, part.alwaysInsideByRun.buffer as ArrayBuffer, part.worstByRunSeconds.buffer as ArrayBuffer]);
+  } catch (error) {
+    parentPort!.postMessage({ id: task.id, error: error instanceof Error ? `${error.name}: ${error.message}` : String(error) });
+  }
+});
