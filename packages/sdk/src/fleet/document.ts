@@ -14,7 +14,7 @@ import type { Seconds } from '../units.js';
 import type { Instant } from '../time/instant.js';
 import type { TimeScales } from '../time/scales.js';
 import {
-  validateScenario, type ActuatorSpec, type ClockSpec, type CostWeights, type ManeuverSpec, type NormalizedScenario,
+  rejectUnknownKeys, validateScenario, type ActuatorSpec, type ClockSpec, type CostWeights, type ManeuverSpec, type NormalizedScenario,
   type SteeringScenario, type StrategySpec, type ToleranceSpec,
 } from '../steering/scenario.js';
 import { parseUtcStamp, resolveTimeScales, type TimeScaleOptions } from '../steering/utc-stamps.js';
@@ -109,14 +109,6 @@ function requireNonEmptyArray(field: string, value: unknown, what: string): unkn
   return value;
 }
 
-function rejectUnknownKeys(field: string, obj: Record<string, unknown>, allowed: readonly string[]): void {
-  for (const key of Object.keys(obj)) {
-    if (!allowed.includes(key)) {
-      throw new InvalidArgumentError(`${field ? `${field}.` : ''}${key}`, obj[key],
-        `absent: it is not a field of this object (known fields: ${allowed.join(', ')})`);
-    }
-  }
-}
 
 function requireId(field: string, value: unknown, seen: Set<string>, what: string): string {
   if (typeof value !== 'string' || value.length === 0) throw new InvalidArgumentError(field, value, 'a non-empty string');

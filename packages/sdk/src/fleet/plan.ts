@@ -3,9 +3,9 @@
  *
  * @module
  */
-import type { Dimensionless, Seconds } from '../units.js';
+import type { Seconds } from '../units.js';
 import { InvalidArgumentError } from '../errors.js';
-import { STEERING_CAUTION, type InfeasibilityCode, type SteeringMetrics, type SteeringPlan } from '../steering/plan.js';
+import { STEERING_CAUTION, type InfeasibilityCode, type SteeringCommand, type SteeringMetrics, type SteeringPlan } from '../steering/plan.js';
 import { ns } from '../steering/constraints.js';
 import type { TimeScaleOptions } from '../steering/utc-stamps.js';
 import { validateFleet, type NormalizedFleet } from './document.js';
@@ -14,23 +14,10 @@ import {
 } from './allocate.js';
 import { exactAllocation } from './exact.js';
 
-/** One command of a satellite, with the station that uplinks it. Times are ISO 8601 UTC. */
-export interface FleetCommand {
-  /** When the command is sent: inside a support of this satellite at `station`. */
-  uplinkAt: string;
-  /** When the satellite executes it. */
-  executeAt: string;
-  kind: 'frequency' | 'phase';
-  /** Fractional frequency step (dimensionless), for `frequency` commands. */
-  fractionalFrequencyStep?: Dimensionless;
-  /** Phase step, in seconds, for `phase` commands. */
-  phaseStepSeconds?: Seconds;
-  /** The step as an integer number of actuator resolution steps. */
-  actuatorSteps: number;
+/** One command of a satellite, with the station that uplinks it (inside a support of this satellite there). */
+export interface FleetCommand extends SteeringCommand {
   /** Id of the station that uplinks the command. */
   station: string;
-  /** Why the command is there, in plain language. */
-  reason: string;
 }
 
 /**

@@ -215,7 +215,8 @@ function requireArray(field: string, value: unknown): unknown[] {
   return value;
 }
 
-function rejectUnknownKeys(field: string, obj: Record<string, unknown>, allowed: readonly string[]): void {
+/** Refuses a field that the format does not define, naming it and the known fields. @internal */
+export function rejectUnknownKeys(field: string, obj: Record<string, unknown>, allowed: readonly string[]): void {
   for (const key of Object.keys(obj)) {
     if (!allowed.includes(key)) {
       throw new InvalidArgumentError(`${field ? `${field}.` : ''}${key}`, obj[key],
