@@ -2,6 +2,7 @@
 // < 1 s) and 30 days (target < 5 s), against a baseline measured in the same run: planning the 30
 // satellites one by one with every pass as a contact (no station sharing). Imports the built SDK
 // (packages/sdk/dist). Prints times, ratios and the targets; asserts nothing.
+import { growthExponent } from './baselines/native.mjs';
 import { planFleet } from '../../packages/sdk/dist/fleet/index.js';
 import { planSteering } from '../../packages/sdk/dist/steering/index.js';
 
@@ -83,4 +84,9 @@ export default function run() {
       `${held}/30 held, ${plan.stationSchedule.length} supports; baseline (each satellite alone, all passes) ${(base / 1000).toFixed(2)} s; ` +
       `×${(ms / base).toFixed(1)} of the baseline\n`);
   }
+  // Growth with the horizon at one tolerance band (±30 ns holds up to 7 days): 3, 5 and 7 days.
+  const days = [3, 5, 7];
+  const times = days.map((d) => { const doc = constellation(d); return time(() => planFleet(doc), 1); });
+  process.stdout.write(`growth: planFleet ${times.map((t, k) => `${days[k]} d: ${(t / 1000).toFixed(2)} s`).join(', ')}` +
+    `  → exponent ${growthExponent(days, times).toFixed(2)} (least-squares slope of log time against log horizon; 1 = linear)\n`);
 }

@@ -11,6 +11,7 @@
 //    point-mass model on the same orbit (baseline: same integrator, cheaper force).
 //    Target: one day of MEO under 1 s on this machine, and the j2 model ≤ 2× the point-mass time.
 import { cpus } from 'node:os';
+import { growthExponent } from './baselines/native.mjs';
 import {
   integrateProperTime, j2PeriodicTermBatch, j2PeriodicTermFromStatesBatch, j2ResidualPeriodicTerm, periodicCorrectionFromElements,
   periodicCorrectionFromElementsBatch, periodicCorrectionFromState, periodicCorrectionFromStatesBatch,
@@ -202,9 +203,42 @@ function properTimeSection() {
   out(`  MEO one day at 1-s output (86 401 samples): ${fmt(dense)}  → ×${(dense / meoMs).toFixed(2)} of the 60-s output (dense-output cost)`);
 }
 
+/**
+ * Growth of each case with its size: the batch APIs and solveKepler over 10^4, 10^5 and 10^6 epochs of one
+ * satellite (the day's inputs tiled), proper time over 1, 4 and 16 days; the exponent of a least-squares fit
+ * of log time against log size (1 = linear). Best of three runs per size.
+ */
+function growthSection() {
+  out('\nGrowth exponents over three sizes (1 = linear; best of 3 runs per size)');
+  const s = constellation()[SATELLITES - 1];
+  const day = inputs(s);
+  const sizes = [1e4, 1e5, 1e6];
+  const tile = (src, n, width = 1) => {
+    const a = new Float64Array(n * width);
+    for (let k = 0; k < n * width; k++) a[k] = src[k % src.length];
+    return a;
+  };
+  const best = (fn) => Math.min(timed(fn), timed(fn), timed(fn));
+  const cases = [
+    ['periodicCorrectionFromElementsBatch', (n) => { const E = tile(day.E, n); const o = new Float64Array(n); return () => periodicCorrectionFromElementsBatch(s.a, s.e, E, DEFAULT_CONSTANT_SET, o); }],
+    ['periodicCorrectionFromStatesBatch', (n) => { const st = tile(day.states, n, 6); const o = new Float64Array(n); return () => periodicCorrectionFromStatesBatch(st, o); }],
+    ['j2PeriodicTermBatch', (n) => { const u = tile(day.u, n); const o = new Float64Array(n); return () => j2PeriodicTermBatch(s.a, s.i, u, 'residual', DEFAULT_CONSTANT_SET, o); }],
+    ['solveKepler (loop)', (n) => { const M = tile(day.M, n); const o = new Float64Array(n); return () => { for (let t = 0; t < n; t++) o[t] = solveKepler(M[t], s.e); }; }],
+  ];
+  for (const [label, make] of cases) {
+    const times = sizes.map((n) => { const fn = make(n); fn(); return best(fn); });
+    out(`  ${label.padEnd(38)} ${times.map((t, k) => `${sizes[k].toExponential(0)}: ${fmt(t)}`).join(', ')}  → exponent ${growthExponent(sizes, times).toFixed(2)}`);
+  }
+  const state = { position: [29_599_800, 0, 0], velocity: [0, Math.sqrt(GM / 29_599_800) * Math.cos(0.977), Math.sqrt(GM / 29_599_800) * Math.sin(0.977)] };
+  const days = [1, 4, 16];
+  const pt = days.map((d) => best(() => integrateProperTime(state, d * 86_400, 600)));
+  out(`  ${'integrateProperTime (j2, MEO)'.padEnd(38)} ${pt.map((t, k) => `${days[k]} d: ${fmt(t)}`).join(', ')}  → exponent ${growthExponent(days, pt).toFixed(2)}`);
+}
+
 export default function run() {
   out(`${cpus().length} × ${cpus()[0]?.model ?? 'cpu'}, ${new Date().toISOString()}`);
   batchSection();
   keplerHighEccentricity();
   properTimeSection();
+  growthSection();
 }

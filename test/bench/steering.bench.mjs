@@ -9,6 +9,7 @@ import { availableParallelism, cpus, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { createReplanner, planSteering, replanSteering, simulateClosedLoop, simulatePlan } from '../../packages/sdk/dist/steering/index.js';
+import { growthExponent } from './baselines/native.mjs';
 
 const scenario = JSON.parse(readFileSync(new URL('../../packages/sdk/examples/steering/orin-3-meo.json', import.meta.url), 'utf8'));
 
@@ -23,12 +24,17 @@ function time(label, fn, repeat) {
 
 /** ORIN-3 stretched to 30 days: the same two contacts a day, no manoeuvre. */
 function month() {
+  return stretched(30);
+}
+
+/** ORIN-3 stretched to `days` days: the same two contacts a day, no manoeuvre. */
+function stretched(days) {
   const s = structuredClone(scenario);
   const epochMs = Date.parse(s.epoch);
   const iso = (t) => new Date(epochMs + t * 1000).toISOString().replace('.000Z', 'Z');
-  s.horizonSeconds = 30 * 86_400;
+  s.horizonSeconds = days * 86_400;
   s.contacts = [];
-  for (let d = 0; d < 30; d++) {
+  for (let d = 0; d < days; d++) {
     s.contacts.push({ start: iso(d * 86_400 + 18_600), end: iso(d * 86_400 + 21_300) });
     s.contacts.push({ start: iso(d * 86_400 + 63_600), end: iso(d * 86_400 + 66_000) });
   }
@@ -65,7 +71,30 @@ export default function run() {
   for (const r of [open, closed]) {
     process.stdout.write(`${r.label.padEnd(66)} ${(r.ms / 1000).toFixed(2).padStart(8)} s   ×${(r.ms / open.ms).toFixed(1)} of the open-loop Monte Carlo\n`);
   }
+  growth();
   cliPool(s);
+}
+
+/**
+ * Growth exponents (least-squares slope of log time against log size; 1 = linear): the planners over 7, 14
+ * and 28 days, the open-loop Monte Carlo over 250, 500 and 1000 runs, the closed loop over 25, 50 and 100 runs
+ * of 30 days.
+ */
+function growth() {
+  process.stdout.write('\nGrowth exponents over three sizes (1 = linear)\n');
+  const report = (label, sizes, unit, times) => process.stdout.write(`  ${label.padEnd(40)} ${times.map((t, k) => `${sizes[k]} ${unit}: ${t.toFixed(1)} ms`).join(', ')}` +
+    `  → exponent ${growthExponent(sizes, times).toFixed(2)}\n`);
+  const days = [7, 14, 28];
+  for (const strategy of ['deadband', 'optimal']) {
+    const times = days.map((d) => { const sc = stretched(d); return time('', () => planSteering(sc, { strategy }), 8).ms; });
+    report(`planSteering ${strategy}`, days, 'd', times);
+  }
+  const s = month();
+  const p = planSteering(s);
+  const runs = [250, 500, 1000];
+  report('simulatePlan, 30 days', runs, 'runs', runs.map((r) => time('', () => simulatePlan(s, p, { runs: r, seed: 1 }), 1).ms));
+  const loops = [25, 50, 100];
+  report('simulateClosedLoop optimal, 30 days', loops, 'runs', loops.map((r) => time('', () => simulateClosedLoop(s, { runs: r, seed: 1, strategies: ['optimal'] }), 1).ms));
 }
 
 /**
