@@ -22,34 +22,13 @@ import {
 import { OutOfDomainError } from '../../packages/sdk/src/errors.js';
 import { elementsToState } from '../../packages/sdk/src/orbit/elements.js';
 import { IERS_2010, SPEED_OF_LIGHT_SQUARED } from '../../packages/sdk/src/constants.js';
+import { leastSquaresFit } from './least-squares.js';
 
 const DEG = Math.PI / 180;
 const C = IERS_2010;
 /** Documented accuracy of j2SecularClockRateFromState against the integrator (J2 model). */
 const TOLERANCE = 1e-18;
 
-/** Least squares by normal equations with partial pivoting (small bases; time in units of the span keeps it well conditioned). */
-function leastSquaresFit(rows: number[][], y: number[]): number[] {
-  const m = rows[0]!.length;
-  const M = Array.from({ length: m }, () => new Array<number>(m + 1).fill(0));
-  rows.forEach((row, k) => {
-    for (let i = 0; i < m; i++) {
-      for (let j = 0; j < m; j++) M[i]![j]! += row[i]! * row[j]!;
-      M[i]![m]! += row[i]! * y[k]!;
-    }
-  });
-  for (let i = 0; i < m; i++) {
-    let p = i;
-    for (let r = i + 1; r < m; r++) if (Math.abs(M[r]![i]!) > Math.abs(M[p]![i]!)) p = r;
-    [M[i], M[p]] = [M[p]!, M[i]!];
-    for (let r = 0; r < m; r++) {
-      if (r === i) continue;
-      const f = M[r]![i]! / M[i]![i]!;
-      for (let c = i; c <= m; c++) M[r]![c]! -= f * M[i]![c]!;
-    }
-  }
-  return M.map((row, i) => row[m]! / row[i]!);
-}
 
 interface Case { name: string; a: number; e: number; incDeg: number; orbits: number }
 const CASES: Case[] = [

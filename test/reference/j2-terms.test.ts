@@ -16,6 +16,7 @@ import {
 } from '../../packages/sdk/src/relativity/j2.js';
 import { elementsToState } from '../../packages/sdk/src/orbit/elements.js';
 import { defineConstantSet, SPEED_OF_LIGHT_SQUARED } from '../../packages/sdk/src/constants.js';
+import { leastSquaresFit } from './least-squares.js';
 
 const DEG = Math.PI / 180;
 /** The reference sheet's §5 computation uses a_e = 6 378 137 m with the IERS GM and J2. */
@@ -24,28 +25,6 @@ const GM = C.gm;
 const A = 26_561_750;
 const INC = 55 * DEG;
 
-/** Least squares by normal equations with partial pivoting (small, well-conditioned bases only). */
-function leastSquaresFit(rows: number[][], y: number[]): number[] {
-  const m = rows[0]!.length;
-  const M = Array.from({ length: m }, () => new Array<number>(m + 1).fill(0));
-  rows.forEach((row, k) => {
-    for (let i = 0; i < m; i++) {
-      for (let j = 0; j < m; j++) M[i]![j]! += row[i]! * row[j]!;
-      M[i]![m]! += row[i]! * y[k]!;
-    }
-  });
-  for (let i = 0; i < m; i++) {
-    let p = i;
-    for (let r = i + 1; r < m; r++) if (Math.abs(M[r]![i]!) > Math.abs(M[p]![i]!)) p = r;
-    [M[i], M[p]] = [M[p]!, M[i]!];
-    for (let r = 0; r < m; r++) {
-      if (r === i) continue;
-      const f = M[r]![i]! / M[i]![i]!;
-      for (let c = i; c <= m; c++) M[r]![c]! -= f * M[i]![c]!;
-    }
-  }
-  return M.map((row, i) => row[m]! / row[i]!);
-}
 
 describe('numerical J2 orbit (a = 26 561 750 m, i = 55°, osculating circular at the node, 2 days) against the analytic J2 terms', () => {
   const start = elementsToState({ semiMajorAxis: A, eccentricity: 0, inclination: INC, raan: 0, argumentOfPerigee: 0, meanAnomaly: 0 }, GM);
