@@ -35,7 +35,7 @@ describe('tauline fleet', () => {
       expect(Object.keys(s).sort()).toEqual(['commands', 'feasible', 'id', 'metrics', 'predicted']);
       for (const c of s.commands) {
         expect(Object.keys(c).sort()).toEqual(['actuatorSteps', 'executeAt', 'fractionalFrequencyStep', 'kind', 'reason', 'station', 'uplinkAt']);
-        expect(plan.stationSchedule.some((x: Record<string, string>) => x.satellite === s.id && x.station === c.station && x.start <= c.uplinkAt && c.uplinkAt <= x.end)).toBe(true);
+        expect(plan.stationSchedule.some((x: { satellite: string; station: string; start: string; end: string }) => x.satellite === s.id && x.station === c.station && x.start <= c.uplinkAt && c.uplinkAt <= x.end)).toBe(true);
       }
     }
     for (const x of plan.stationSchedule) expect(Object.keys(x).sort()).toEqual(['end', 'satellite', 'start', 'station']);

@@ -198,7 +198,7 @@ is used as given, with a warning on stderr. Exit status: 0 success, 2 unusable i
     const { poly, noise, polyNoise, filter } = result;
     const names = degree === 2 ? ['af0', 'af1', 'af2'] : ['af0', 'af1'];
     const units = ['s', 'dimensionless', '1/s'];
-    const coefficients = names.map((name, i) => ({ name, value: poly.coefficients[i] as number, std: polyNoise.std[i] as number, whiteNoiseStd: Math.sqrt((poly.covariance[i] as number[])[i] as number), unit: units[i] }));
+    const coefficients = names.map((name, i) => ({ name, value: poly.coefficients[i] as number, std: polyNoise.std[i] as number, whiteNoiseStd: Math.sqrt((poly.covariance[i] as number[])[i] as number), unit: units[i] ?? '' }));
     const residualRms = Math.sqrt(poly.chiSquare / poly.residuals.length);
     const reducedChiSquare = rFit > 0 ? poly.chiSquare / rFit / poly.dof : Number.NaN;
     const predictions = predict.map((T, j) => ({ t: T, phase: poly.predict(T), std: polyNoise.predictStd[j] as number }));

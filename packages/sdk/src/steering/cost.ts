@@ -31,7 +31,7 @@ export function expectedCost(norm: NormalizedScenario, commands: readonly Intern
   const jumps = stateJumps(norm, commands);
   const h = norm.horizon;
   const scale = 1 / (norm.bound * norm.bound * h);
-  let state = [...norm.state0];
+  let state: [number, number, number] = [...norm.state0];
   let t = 0;
   let meanSquare = 0;
   const advance = (to: number): void => {

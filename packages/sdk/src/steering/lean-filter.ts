@@ -13,7 +13,7 @@ import { processNoise, transition, type DiffusionCoefficients, type Matrix3 } fr
 export class LeanClockFilter {
   t: number;
   /** Mean [x, y, d]. */
-  readonly s = new Float64Array(3);
+  readonly s: [number, number, number] = [0, 0, 0];
   /** Covariance, row-major 3×3. */
   readonly p = new Float64Array(9);
   private readonly _q: DiffusionCoefficients;

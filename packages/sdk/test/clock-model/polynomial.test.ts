@@ -37,7 +37,7 @@ describe('fitClockPolynomial', () => {
     expect(unweighted.covarianceScaled).toBe(true);
     const weighted = fitClockPolynomial(t, x, { degree: 1, variance: 1e-20, scaleByReducedChiSquare: true });
     expect(weighted.covarianceScaled).toBe(true);
-    expect(weighted.covariance[1]![1] / unweighted.covariance[1]![1]).toBeCloseTo(1, 10);
+    expect(weighted.covariance[1]![1]! / unweighted.covariance[1]![1]!).toBeCloseTo(1, 10);
     const exact = fitClockPolynomial([0, 1], [0, 1e-9], { degree: 1 });
     expect(exact.dof).toBe(0);
     expect(Number.isNaN(exact.reducedChiSquare)).toBe(true);

@@ -58,7 +58,7 @@ describe('potential terms', () => {
     const p: [number, number, number] = [2e7, 5e6, -1e7];
     const a = thirdBodyAcceleration(p, moon, GM_MOON);
     const g = gradient((x, y, z) => thirdBodyTidalPotential([x, y, z], moon, GM_MOON), p, 100);
-    for (let i = 0; i < 3; i++) expect(Math.abs(a[i] - g[i]!)).toBeLessThan(1e-8 * Math.hypot(...a));
+    for (let i = 0; i < 3; i++) expect(Math.abs(a[i]! - g[i]!)).toBeLessThan(1e-8 * Math.hypot(...a));
   });
 
   it('potential helpers reject the origin, non-finite vectors and non-positive GM', () => {

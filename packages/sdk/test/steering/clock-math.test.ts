@@ -20,7 +20,7 @@ describe('steering clock-math against clock-model', () => {
         const p0: Matrix3 = [[pxx, 0, 0], [0, pyy, 0], [0, 0, pdd]];
         const phi = clockTransitionMatrix(t, 3)[0] as number[];
         let propagated = 0;
-        for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) propagated += (phi[i] as number) * (p0[i][j] as number) * (phi[j] as number);
+        for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) propagated += (phi[i] as number) * p0[i]![j]! * (phi[j] as number);
         const expected = propagated + ((clockProcessNoise(t, { q1, q2, q3 }, 3)[0] as number[])[0] as number);
         const got = phaseVariance(t, p0, { q1, q2, q3 });
         expect(Math.abs(got - expected)).toBeLessThanOrEqual(1e-14 * Math.abs(expected) + 1e-300);
