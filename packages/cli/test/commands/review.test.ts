@@ -3,9 +3,9 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { runCli, type CliRun } from './run.js';
+import { runCli, type CliRun } from '../run.js';
 
-const examples = fileURLToPath(new URL('../../sdk/examples/review/', import.meta.url));
+const examples = fileURLToPath(new URL('../../../sdk/examples/review/', import.meta.url));
 const good = join(examples, 'kestrel-block-a.review.json');
 const bad = join(examples, 'kestrel-block-b-mistakes.review.json');
 

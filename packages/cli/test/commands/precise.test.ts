@@ -4,10 +4,10 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { main } from '../src/main.js';
-import { runCli as run } from './run.js';
+import { main } from '../../src/main.js';
+import { runCli as run } from '../run.js';
 
-const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
+const ROOT = fileURLToPath(new URL('../../../../', import.meta.url));
 const PV = join(ROOT, 'test/fixtures/sp3/orbit-c-pv.sp3');
 const P = join(ROOT, 'test/fixtures/sp3/orbit-d-p.sp3');
 const NAV3 = join(ROOT, 'test/fixtures/rinex-nav/mixed-v305.rnx');

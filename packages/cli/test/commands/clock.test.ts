@@ -5,9 +5,9 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { simulateClock } from '@tauline/sdk/clock-model';
 import { describe, expect, it } from 'vitest';
-import { runCli as run } from './run.js';
+import { runCli as run } from '../run.js';
 
-const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
+const ROOT = fileURLToPath(new URL('../../../../', import.meta.url));
 const EXAMPLE = join(ROOT, 'packages/sdk/examples/clock/vestra-4-rafs.txt');
 const BIN = join(ROOT, 'packages/cli/bin/tauline.js');
 

@@ -3,11 +3,11 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { runCli, type CliRun } from './run.js';
+import { runCli, type CliRun } from '../run.js';
 
-const ORIN = fileURLToPath(new URL('../../sdk/examples/steering/orin-3-meo.json', import.meta.url));
+const ORIN = fileURLToPath(new URL('../../../sdk/examples/steering/orin-3-meo.json', import.meta.url));
 /** Test leap-second table in the leap-seconds.list format, invented expiry 2036-06-28 (test/fixtures/time/SOURCE.md). */
-const LEAP_LIST = fileURLToPath(new URL('../../../test/fixtures/time/leap-seconds-test.list', import.meta.url));
+const LEAP_LIST = fileURLToPath(new URL('../../../../test/fixtures/time/leap-seconds-test.list', import.meta.url));
 
 /** The ORIN-3 example moved to April 2031, after the bundled leap-second table's validity. */
 function orinIn2031(): string {

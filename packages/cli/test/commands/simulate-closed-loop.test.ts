@@ -3,10 +3,10 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { runCli, type CliRun } from './run.js';
+import { runCli, type CliRun } from '../run.js';
 
-const ORIN = fileURLToPath(new URL('../../sdk/examples/steering/orin-3-meo.json', import.meta.url));
-const HALCYR = fileURLToPath(new URL('../../sdk/examples/steering/halcyr-g1-geo.json', import.meta.url));
+const ORIN = fileURLToPath(new URL('../../../sdk/examples/steering/orin-3-meo.json', import.meta.url));
+const HALCYR = fileURLToPath(new URL('../../../sdk/examples/steering/halcyr-g1-geo.json', import.meta.url));
 
 const run = (isTty: boolean, ...argv: string[]): Promise<CliRun> => runCli(['simulate', ...argv], isTty);
 

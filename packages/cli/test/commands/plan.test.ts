@@ -4,14 +4,14 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { runCli, type CliRun } from './run.js';
+import { runCli, type CliRun } from '../run.js';
 
-const ORIN = fileURLToPath(new URL('../../sdk/examples/steering/orin-3-meo.json', import.meta.url));
-const HALCYR = fileURLToPath(new URL('../../sdk/examples/steering/halcyr-g1-geo.json', import.meta.url));
-const BIN = fileURLToPath(new URL('../bin/tauline.js', import.meta.url));
+const ORIN = fileURLToPath(new URL('../../../sdk/examples/steering/orin-3-meo.json', import.meta.url));
+const HALCYR = fileURLToPath(new URL('../../../sdk/examples/steering/halcyr-g1-geo.json', import.meta.url));
+const BIN = fileURLToPath(new URL('../../bin/tauline.js', import.meta.url));
 /** Test leap-second table in the leap-seconds.list format, invented expiry 2036-06-28 (test/fixtures/time/SOURCE.md). */
-const LEAP_LIST = fileURLToPath(new URL('../../../test/fixtures/time/leap-seconds-test.list', import.meta.url));
-const BUILT = existsSync(fileURLToPath(new URL('../dist/main.js', import.meta.url)));
+const LEAP_LIST = fileURLToPath(new URL('../../../../test/fixtures/time/leap-seconds-test.list', import.meta.url));
+const BUILT = existsSync(fileURLToPath(new URL('../../dist/main.js', import.meta.url)));
 
 const run = (...argv: string[]): Promise<CliRun> => runCli(['plan', ...argv]);
 

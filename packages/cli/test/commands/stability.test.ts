@@ -4,9 +4,9 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { runCli as run } from './run.js';
+import { runCli as run } from '../run.js';
 
-const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
+const ROOT = fileURLToPath(new URL('../../../../', import.meta.url));
 const FIX = join(ROOT, 'test/fixtures');
 
 const tmp = mkdtempSync(join(tmpdir(), 'tauline-stability-'));

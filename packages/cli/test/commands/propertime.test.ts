@@ -2,7 +2,7 @@ import { execFileSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { runCli, type CliRun } from './run.js';
+import { runCli, type CliRun } from '../run.js';
 import { L_G, IERS_2010, SPEED_OF_LIGHT_SQUARED } from '@tauline/sdk/constants';
 import { moonPositionLowPrecision } from '@tauline/sdk/orbit';
 
@@ -61,8 +61,8 @@ describe('tauline propertime', () => {
   });
 
   it('the built binary runs `tauline propertime --json` (needs `npm run build`)', () => {
-    const bin = fileURLToPath(new URL('../bin/tauline.js', import.meta.url));
-    const dist = fileURLToPath(new URL('../dist/commands/propertime.js', import.meta.url));
+    const bin = fileURLToPath(new URL('../../bin/tauline.js', import.meta.url));
+    const dist = fileURLToPath(new URL('../../dist/commands/propertime.js', import.meta.url));
     if (!existsSync(dist)) return; // not built in this checkout; the in-process tests above cover the command
     const out = execFileSync(process.execPath, [bin, 'propertime', '--state', GPS_STATE, '--duration', '1200', '--step', '600', '--json'], { encoding: 'utf8' });
     const doc = JSON.parse(out);

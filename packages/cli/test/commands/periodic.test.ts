@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { runCli, type CliRun } from './run.js';
+import { runCli, type CliRun } from '../run.js';
 
 const run = (...argv: string[]): Promise<CliRun> => runCli(['periodic', ...argv]);
 

@@ -4,9 +4,9 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { runCli as run } from './run.js';
+import { runCli as run } from '../run.js';
 
-const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
+const ROOT = fileURLToPath(new URL('../../../../', import.meta.url));
 const NAV3 = join(ROOT, 'test/fixtures/rinex-nav/mixed-v305.rnx');
 const NAV4 = join(ROOT, 'test/fixtures/rinex-nav/mixed-v401.rnx');
 

@@ -3,9 +3,9 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { runCli, type CliRun } from './run.js';
+import { runCli, type CliRun } from '../run.js';
 
-const VESPER = fileURLToPath(new URL('../../sdk/examples/fleet/vesper-constellation.json', import.meta.url));
+const VESPER = fileURLToPath(new URL('../../../sdk/examples/fleet/vesper-constellation.json', import.meta.url));
 const run = (...argv: string[]): Promise<CliRun> => runCli(['fleet', ...argv]);
 
 function tempFile(name: string, value: unknown): string {

@@ -1,9 +1,9 @@
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { runCli as run } from './run.js';
+import { runCli as run } from '../run.js';
 
-const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
+const ROOT = fileURLToPath(new URL('../../../../', import.meta.url));
 const nav = (name: string) => join(ROOT, 'test/fixtures/rinex-nav', name);
 const V211 = nav('gps-v211.rnx');
 const V304 = nav('gps-v304-equivalent.rnx');
