@@ -2,148 +2,26 @@
  * `tauline broadcast`: reads RINEX navigation files and prints, per satellite and epoch, the
  * relativistic correction Δt_r = F e √A sin E_k and the full broadcast clock correction.
  */
-import { statSync } from 'node:fs';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import {
   BROADCAST_SIGNALS, evaluateBroadcastEphemeris, selectEphemeris, signalClockCorrection, signalClockSource, signalsOf, type BroadcastSignal,
   type KeplerianBroadcastEphemeris, type KeplerianSystem,
 } from '@tauline/sdk/orbit';
 import {
-  readRinexNav, fieldsFromScaleSeconds, formatEpochFields, scaleSecondsFromFields, type RinexNavEphemeris,
+  fieldsFromScaleSeconds, formatEpochFields, scaleSecondsFromFields, type RinexNavEphemeris,
 } from '@tauline/sdk/io';
-import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant, type TimeScale, type TimeScales } from '@tauline/sdk/time';
+import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant, type TimeScales } from '@tauline/sdk/time';
 import {
-  EXIT_FINDING, EXIT_OK, FLIGHT_CAUTION, TABLE_JSON_CSV, UsageError, formatFlag, formatFlags, numberFlag, optionalFlag, progressBar, requireFlag,
-  toJson, type Command, type Io, type ParsedArgs,
+  EXIT_FINDING, EXIT_OK, FLIGHT_CAUTION, TABLE_JSON_CSV, UsageError, formatFlags, numberFlag, optionalFlag, requireFlag,
+  toJson, type Command, type ParsedArgs,
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
-import { MAX_NAVIGATION_BYTES, STANDARD_INPUT, requireRegularFile, sourceLabel, textChunks } from '../files.js';
-import { NAV_FILE_UNITS, type NavFileSummary, navHeaderLines, noRecordReason, summariseNavHeader } from '../nav-summary.js';
-
-/** Input size above which a progress bar is drawn on a terminal, in bytes. */
-export const PROGRESS_BYTES = 4 * 1024 * 1024;
+import { NAV_FILE_UNITS, navHeaderLines, noRecordReason } from '../nav-summary.js';
+import { outputFormat, satelliteFlag } from '../flags.js';
+import { SYSTEM_SCALE, SYSTEM_SCALE_LABEL, isModelledSystem, loadNavigation } from '../navigation.js';
 
 /** Samples per run above which the request is refused (keeps memory bounded). */
 const MAX_SAMPLES = 5_000_000;
-
-/** A progress bar over the bytes read, drawn only on a terminal and for inputs above {@link PROGRESS_BYTES}. */
-export function progress(io: Io, label: string, totalBytes: number): { add: (n: number) => void; finish: () => void } {
-  const bar = io.isTty && totalBytes > PROGRESS_BYTES ? progressBar(io, label) : undefined;
-  let done = 0;
-  return {
-    add(n) {
-      if (!bar) return;
-      done += n;
-      bar.update(done, totalBytes);
-    },
-    finish() {
-      bar?.finish();
-    },
-  };
-}
-
-/**
- * Streams a file (or standard input for `-`) as UTF-8 chunks, reporting each chunk's size to `onChunk`;
- * a pipe, device, directory, binary content or more than `maxBytes` is refused (see `textChunks`).
- */
-export function fileChunks(path: string, what: string, onChunk: (bytes: number) => void, maxBytes?: number): AsyncGenerator<string> {
-  return textChunks(path, what, { onChunk, ...(maxBytes !== undefined ? { maxBytes } : {}) });
-}
-
-/** Total size of the files, in bytes (standard input counts as 0: its size is unknown). */
-export function totalSize(paths: readonly string[]): number {
-  return paths.reduce((sum, p) => sum + (p === STANDARD_INPUT ? 0 : statSync(p).size), 0);
-}
-
-/** Name of each system's own time scale as printed. */
-export const SYSTEM_SCALE_LABEL: Record<KeplerianSystem, string> = { G: 'GPST', E: 'GST', C: 'BDT' };
-/** The SDK time-scale id of each system's scale. */
-export const SYSTEM_SCALE: Record<KeplerianSystem, TimeScale> = { G: 'GPS', E: 'GST', C: 'BDT' };
-
-/** Whether the SDK models a system's broadcast orbit and clock (GPS, Galileo, BeiDou), by its RINEX letter. */
-export function isModelledSystem(system: string): system is KeplerianSystem {
-  return system === 'G' || system === 'E' || system === 'C';
-}
-
-/** Parses `--satellite G01,E11,...` into a set, or undefined for all. */
-export function satelliteFlag(args: ParsedArgs): Set<string> | undefined {
-  const text = optionalFlag(args, 'satellite');
-  if (text === undefined) return undefined;
-  const ids = text.split(',').map((s) => s.trim().toUpperCase()).filter((s) => s !== '');
-  for (const id of ids) {
-    if (!/^[GRECJIS]\d\d$/.test(id)) {
-      throw new InvalidArgumentError('--satellite', id, 'satellite identifiers: system letter and two digits, comma-separated (e.g. G05,E11,C08)');
-    }
-  }
-  if (ids.length === 0) throw new InvalidArgumentError('--satellite', text, 'at least one satellite identifier (e.g. G05)');
-  return new Set(ids);
-}
-
-/** Reads `--format table|json|csv` or its shorthands `--json` / `--csv` (mutually exclusive). */
-export function outputFormat(args: ParsedArgs): 'json' | 'csv' | 'table' {
-  return formatFlag(args, TABLE_JSON_CSV, 'table');
-}
-
-/** Result of {@link loadNavigation}. */
-export interface LoadedNavigation {
-  /** Kept records by satellite. */
-  readonly records: Map<string, RinexNavEphemeris[]>;
-  /** Skipped records, counted by reason. */
-  readonly skipped: Map<string, number>;
-  /** Records of modelled systems not kept because their fit interval lies outside the window. */
-  readonly outsideWindow: number;
-  /** The same, by satellite. */
-  readonly outsideWindowBySatellite: ReadonlyMap<string, number>;
-  readonly leapSeconds: number | undefined;
-  /** Header parameters of each file, in the order read. */
-  readonly files: readonly NavFileSummary[];
-}
-
-/**
- * Streams navigation files and keeps only the records a window needs: satellites in `filter`
- * (all when undefined) whose fit interval overlaps [from, to] of their own system's scale.
- * Memory is bounded by the window, not by the files.
- */
-export async function loadNavigation(paths: readonly string[], io: Io, window: (system: KeplerianSystem) => { from: number; to: number },
-  filter: ReadonlySet<string> | undefined): Promise<LoadedNavigation> {
-  const records = new Map<string, RinexNavEphemeris[]>();
-  const skipped = new Map<string, number>();
-  let outsideWindow = 0;
-  const outsideWindowBySatellite = new Map<string, number>();
-  let leapSeconds: number | undefined;
-  const files: NavFileSummary[] = [];
-  for (const path of paths) await requireRegularFile(path, 'a RINEX navigation file', MAX_NAVIGATION_BYTES);
-  if (paths.filter((p) => p === STANDARD_INPUT).length > 1) throw new UsageError('- (standard input) can be read once only; give it once');
-  const bar = progress(io, 'reading navigation data', totalSize(paths));
-  try {
-    for (const path of paths) {
-      for await (const ev of readRinexNav(fileChunks(path, 'a RINEX navigation file', bar.add, MAX_NAVIGATION_BYTES), { sourceName: sourceLabel(path) })) {
-        if (ev.kind === 'header') {
-          leapSeconds ??= ev.header.leapSeconds?.current;
-          files.push(summariseNavHeader(path, ev.header));
-        } else if (ev.kind === 'skipped') {
-          if (filter && ev.record.satellite && !filter.has(ev.record.satellite)) continue;
-          skipped.set(ev.record.reason, (skipped.get(ev.record.reason) ?? 0) + 1);
-        } else {
-          const eph = ev.ephemeris;
-          if (filter && !filter.has(eph.satellite)) continue;
-          const w = window(eph.system);
-          if (eph.toeSeconds + eph.fitIntervalSeconds / 2 < w.from || eph.toeSeconds - eph.fitIntervalSeconds / 2 > w.to) {
-            outsideWindow++;
-            outsideWindowBySatellite.set(eph.satellite, (outsideWindowBySatellite.get(eph.satellite) ?? 0) + 1);
-            continue;
-          }
-          let list = records.get(eph.satellite);
-          if (!list) records.set(eph.satellite, (list = []));
-          list.push(eph);
-        }
-      }
-    }
-  } finally {
-    bar.finish();
-  }
-  return { records, skipped, outsideWindow, outsideWindowBySatellite, leapSeconds, files };
-}
 
 /** Parses ISO 8601 text for `--from`/`--to`: on UTC (designator required) or as a reading of each system's scale (none allowed). */
 function parseTimeFlag(ts: TimeScales, flag: string, text: string, utc: boolean): Instant | number {

@@ -8,7 +8,8 @@ import {
 } from '../framework.js';
 import { readJsonFile } from '../files.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
-import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, PLAN_UNITS, leapSecondsFlag, nsText } from './plan.js';
+import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag } from '../flags.js';
+import { PLAN_UNITS, nsText } from '../steering-output.js';
 
 /** Units of the fleet plan's JSON fields (`units` in `tauline fleet --json`). */
 export const FLEET_UNITS = { ...PLAN_UNITS, start: 'ISO 8601 UTC', end: 'ISO 8601 UTC' } as const;

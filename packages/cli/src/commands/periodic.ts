@@ -8,7 +8,7 @@ import {
   EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, numberFlag, sig, toJson, withFlagNames, type Command,
 } from '../framework.js';
 import { outputWidth } from '../layout.js';
-import { constantsFlag } from './rate.js';
+import { constantsFlag } from '../flags.js';
 import { angleHint, warn } from '../plausibility.js';
 
 /**

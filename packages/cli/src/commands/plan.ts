@@ -3,87 +3,13 @@
  * offset stays inside the tolerance, from a steering scenario file.
  */
 import { planSteering, type SteeringMethod, type SteeringPlan, type SteeringScenario } from '@tauline/sdk/steering';
-import { InvalidArgumentError } from '@tauline/sdk/errors';
-import { createTimeScales, parseLeapSecondsList, type LeapSecondTable, type TimeScales } from '@tauline/sdk/time';
 import {
   EXIT_FINDING, EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, onePositional, optionalFlag, table, toJson,
-  type Command, type FlagSpec, type ParsedArgs,
+  type Command,
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
-import { readJsonFile, readTextFile, sourceLabel } from '../files.js';
-
-const METHODS: readonly SteeringMethod[] = ['deadband', 'optimal', 'none'];
-
-/** Reads a scenario file; an empty file or a JSON syntax error becomes a ParseError with line and column. */
-export async function readScenarioFile(path: string): Promise<unknown> {
-  return readJsonFile(path, 'a steering scenario');
-}
-
-/**
- * Reads `--leap-seconds <file>`: an IERS/NIST `leap-seconds.list` turned into the time scales
- * the scenario's UTC stamps are read with. Undefined (flag absent) keeps the SDK's bundled
- * table (valid until 2027-06-28).
- * @throws {ParseError} with file and line for a malformed list (from `parseLeapSecondsList`).
- * @throws {InvalidArgumentError} naming --leap-seconds when the list's entries break the table rules.
- */
-export async function leapSecondsFlag(args: ParsedArgs): Promise<TimeScales | undefined> {
-  const table = await leapSecondsTableFlag(args);
-  return table === undefined ? undefined : createTimeScales(table);
-}
-
-/**
- * Reads `--leap-seconds <file>` as a checked leap-second table (plain data, e.g. for a worker thread):
- * the table `leapSecondsFlag` builds its time scales from. Undefined when the flag is absent.
- * @throws {ParseError} with file and line for a malformed list.
- * @throws {InvalidArgumentError} naming --leap-seconds when the list's entries break the table rules.
- */
-export async function leapSecondsTableFlag(args: ParsedArgs): Promise<LeapSecondTable | undefined> {
-  const path = optionalFlag(args, 'leap-seconds');
-  if (path === undefined) return undefined;
-  const text = await readTextFile(path, 'an IERS/NIST leap-seconds.list');
-  try {
-    const table = parseLeapSecondsList(text, sourceLabel(path));
-    createTimeScales(table); // checks the table rules here, where the error can name the flag
-    return table;
-  } catch (error) {
-    if (error instanceof InvalidArgumentError) {
-      throw new InvalidArgumentError('--leap-seconds', path, 'an IERS/NIST leap-seconds.list with a valid table', error.message);
-    }
-    throw error;
-  }
-}
-
-/** The `--leap-seconds` flag spec, shared by `plan` and `simulate`. */
-export const LEAP_SECONDS_FLAG: FlagSpec = {
-  type: 'string', value: '<file>', description: 'IERS/NIST leap-seconds.list to read UTC stamps with (default: the bundled table, valid until 2027-06-28).',
-};
-
-/** Help text on leap seconds, shared by `plan` and `simulate`. */
-export const LEAP_SECONDS_HELP = `
-Times: UTC stamps are read with a leap-second table and intervals are elapsed SI seconds, so a
-leap second inside the horizon is counted. The bundled table is valid until 2027-06-28; for later
-dates pass a current IERS/NIST leap-seconds.list with --leap-seconds <file>.`;
-
-/** Reads the --strategy flag; undefined keeps the scenario's own. */
-export function strategyFlag(value: string | undefined, allowAll: boolean): SteeringMethod | 'all' | undefined {
-  if (value === undefined) return undefined;
-  if ((METHODS as readonly string[]).includes(value) || (allowAll && value === 'all')) return value as SteeringMethod | 'all';
-  throw new InvalidArgumentError('--strategy', value, `one of ${[...METHODS, ...(allowAll ? ['all'] : [])].join(', ')}`);
-}
-
-/** Units of the plan's JSON fields (`units` in `tauline plan --json`). */
-export const PLAN_UNITS = {
-  uplinkAt: 'ISO 8601 UTC', executeAt: 'ISO 8601 UTC', fractionalFrequencyStep: 'dimensionless (Δf/f)', phaseStepSeconds: 's',
-  actuatorSteps: 'actuator resolution steps', 't': 's since the scenario epoch (elapsed SI seconds)', phaseSeconds: 's', sigmaSeconds: 's',
-  worstPredictedOffsetSeconds: 's', worstOffsetBoundSeconds: 's', probabilityInTolerance: 'dimensionless (probability)',
-  totalFrequencySteering: 'dimensionless', totalPhaseSteeringSeconds: 's', expectedCost: 'dimensionless',
-  settledAfterSeconds: 's since the scenario epoch (null: never)',
-} as const;
-
-/** Nanoseconds with sign and 3 decimals (display only). */
-export function nsText(seconds: number): string {
-  return `${(seconds * 1e9).toFixed(3)} ns`;
-}
+import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag, readScenarioFile, strategyFlag } from '../flags.js';
+import { PLAN_UNITS, nsText } from '../steering-output.js';
 
 function stepText(c: SteeringPlan['commands'][number]): string {
   return c.kind === 'frequency' ? `${c.fractionalFrequencyStep! >= 0 ? '+' : ''}${c.fractionalFrequencyStep!.toExponential(3)}`

@@ -14,9 +14,8 @@ import {
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { MAX_RECORD_BYTES, STANDARD_INPUT, requireRegularFile, sourceLabel } from '../files.js';
-import {
-  SYSTEM_SCALE, fileChunks, isModelledSystem, loadNavigation, outputFormat, progress, satelliteFlag, totalSize,
-} from './broadcast.js';
+import { outputFormat, satelliteFlag } from '../flags.js';
+import { SYSTEM_SCALE, fileChunks, isModelledSystem, loadNavigation, progress, totalSize } from '../navigation.js';
 
 /** SP3 time systems readable on the SDK's scales; GLONASS time is UTC(SU) + 3 h (GLONASS ICD [M]). */
 const SP3_SCALE: Record<string, { scale: TimeScale; offsetSeconds: number } | undefined> = {

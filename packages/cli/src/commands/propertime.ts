@@ -11,7 +11,7 @@ import {
   type Command,
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
-import { CONSTANTS_FLAG, constantsFlag } from './rate.js';
+import { CONSTANTS_FLAG, constantsFlag } from '../flags.js';
 import { speedHint, warn } from '../plausibility.js';
 import { startProgress, withProgress } from '../progress.js';
 

@@ -2,26 +2,15 @@
  * `tauline rate`: mean relativistic rate of a clock on a Kepler orbit, its split into
  * gravitational and velocity parts, and the factory frequency offset that compensates it.
  */
-import { constantSet, type ConstantSet } from '@tauline/sdk/constants';
 import { meanClockRate, REFERENCE_CLOCKS, type ReferenceClock } from '@tauline/sdk/relativity';
 import { offsetFrequency } from '@tauline/sdk/oscillator';
 import {
-  EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, choiceFlag, formatFlag, formatFlags, keyValueTable, numberFlag, optionalFlag, sig, toJson, withFlagNames,
-  type Command, type FlagSpec, type ParsedArgs,
+  EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, choiceFlag, formatFlag, formatFlags, keyValueTable, numberFlag, sig, toJson, withFlagNames,
+  type Command,
 } from '../framework.js';
 import { frequencyHint, warn } from '../plausibility.js';
 import { outputWidth, wrapLines } from '../layout.js';
-
-/** The `--constants` flag spec (the set of GM, L_G, J2, … the command computes with). */
-export const CONSTANTS_FLAG: FlagSpec = {
-  type: 'string', value: '<name>', description: 'Constant set: iers-2010 (default), gps-icd, galileo-icd, beidou-icd.',
-};
-
-/** Reads `--constants` (default iers-2010), naming the flag when the set is unknown. */
-export function constantsFlag(args: ParsedArgs): ConstantSet {
-  const name = optionalFlag(args, 'constants') ?? 'iers-2010';
-  return withFlagNames({ constants: '--constants' }, () => constantSet(name));
-}
+import { CONSTANTS_FLAG, constantsFlag } from '../flags.js';
 
 function signed(value: number, digits = 10): string {
   const text = sig(value, digits);

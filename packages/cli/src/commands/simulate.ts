@@ -11,7 +11,8 @@ import {
   toJson, type Command, type Io, type ParsedArgs,
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
-import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag, leapSecondsTableFlag, nsText, readScenarioFile, strategyFlag } from './plan.js';
+import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag, leapSecondsTableFlag, readScenarioFile, strategyFlag } from '../flags.js';
+import { nsText } from '../steering-output.js';
 import { createTimeScales, type LeapSecondTable } from '@tauline/sdk/time';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import { AUTO_POOL_STEPS, MAX_WORKERS, SimulatePool, workerCount, workerScript } from '../simulate-pool.js';
