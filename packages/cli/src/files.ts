@@ -15,7 +15,7 @@ import { UsageError } from './framework.js';
  */
 export function jsonErrorOffset(text: string): number | undefined {
   let i = 0;
-  const ws = (): void => { while (i < text.length && ' \t\n\r'.includes(text[i]!)) i++; };
+  const ws = (): void => { while (i < text.length && ' \t\n\r'.includes(text.charAt(i))) i++; };
   const fail = (): never => { throw i; };
   const literal = (word: string): void => {
     for (const ch of word) {
@@ -42,8 +42,8 @@ export function jsonErrorOffset(text: string): number | undefined {
   };
   const num = (): void => {
     const m = /^-?(0|[1-9]\d*)(\.\d+)?([eE][+-]?\d+)?/.exec(text.slice(i, i + 400));
-    if (!m) fail();
-    i += m![0].length;
+    if (!m) return fail();
+    i += m[0].length;
   };
   const value = (): void => {
     ws();
@@ -224,10 +224,10 @@ export async function readJsonFile(path: string, what = 'a JSON document'): Prom
   try {
     return JSON.parse(body) as unknown;
   } catch (error) {
-    const offset = jsonErrorOffset(body)
-      ?? (/position (\d+)/.exec(error instanceof Error ? error.message : '') ? Number(/position (\d+)/.exec((error as Error).message)![1]) : 0);
+    const enginePosition = /position (\d+)/.exec(error instanceof Error ? error.message : '')?.[1];
+    const offset = jsonErrorOffset(body) ?? (enginePosition !== undefined ? Number(enginePosition) : 0);
     const { line, column } = lineColumn(body, offset);
-    const found = offset >= body.length ? 'the end of the file (truncated?)' : body.slice(offset, offset + 24).split(/\r?\n/)[0]!;
+    const found = offset >= body.length ? 'the end of the file (truncated?)' : body.slice(offset, offset + 24).split(/\r?\n/, 1)[0] ?? '';
     throw new ParseError(sourceLabel(path), line, column, `valid JSON (${what})`, found);
   }
 }

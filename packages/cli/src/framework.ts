@@ -92,7 +92,8 @@ export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
   // number (or a comma list starting with one, e.g. --state -1.2e7,...) takes it as its value.
   const args: string[] = [];
   for (let i = 0; i < argv.length; i++) {
-    const token = argv[i]!;
+    const token = argv[i];
+    if (token === undefined) break;
     const next = argv[i + 1];
     const name = token.startsWith('--') ? token.slice(2) : undefined;
     if (name !== undefined && !name.includes('=') && command.flags[name]?.type === 'string' && next !== undefined && /^-(\d|\.\d)/.test(next)) {
@@ -105,8 +106,8 @@ export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
     parsed = parseArgs({ args, options, allowPositionals: command.allowPositionals ?? false, strict: true, tokens: true });
   } catch (e) {
     const message = e instanceof Error ? e.message.replace(/\. To specify a positional.*$/s, '').replace(/\s*\n\s*/g, ' ') : String(e);
-    const unknown = /^Unknown option '--?([^'=]+)/.exec(message);
-    const hint = unknown ? didYouMean(unknown[1]!, [...Object.keys(command.flags), 'help', 'wide'], '--') : '';
+    const unknown = /^Unknown option '--?([^'=]+)/.exec(message)?.[1];
+    const hint = unknown !== undefined ? didYouMean(unknown, [...Object.keys(command.flags), 'help', 'wide'], '--') : '';
     throw new UsageError(`${message}${hint} (see \`tauline ${command.name} --help\`)`);
   }
   // A flag given twice would silently keep the last value: refuse it unless the flag takes several.
@@ -127,8 +128,9 @@ export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
  * @param what  What the file is, for the message (e.g. "scenario file").
  */
 export function onePositional(args: ParsedArgs, what: string): string {
-  if (args.positionals.length !== 1) throw new UsageError(`give exactly one ${what} (see \`tauline ${args.command?.name ?? '<command>'} --help\`)`);
-  return args.positionals[0]!;
+  const [only, ...more] = args.positionals;
+  if (only === undefined || more.length > 0) throw new UsageError(`give exactly one ${what} (see \`tauline ${args.command?.name ?? '<command>'} --help\`)`);
+  return only;
 }
 
 /**
@@ -156,7 +158,8 @@ export function requireFlag(args: ParsedArgs, flag: string): string {
     const what = spec ? `: ${spec.value ? `${spec.value}, ` : ''}${spec.description.replace(/\.$/, '')}` : '';
     throw new UsageError(`--${flag} is required${v === '' ? ' (it was given empty)' : ''}${what}`);
   }
-  return Array.isArray(v) ? v[v.length - 1]! : v;
+  // A flag given several times (only those declared `multiple`) reads as its last value; node's parser never gives [].
+  return Array.isArray(v) ? (v.at(-1) ?? '') : v;
 }
 
 /** Reads an optional string flag. */
@@ -323,8 +326,8 @@ const FILE_ERRORS: Record<string, string> = {
 
 /** The one-line reason of a file-system error (`code`), or undefined when it is not one. */
 export function fileErrorReason(error: unknown): string | undefined {
-  if (!(error instanceof Error) || !('code' in error) || typeof (error as NodeJS.ErrnoException).code !== 'string') return undefined;
-  return FILE_ERRORS[(error as NodeJS.ErrnoException).code!];
+  const code = error instanceof Error && 'code' in error ? (error as NodeJS.ErrnoException).code : undefined;
+  return typeof code === 'string' ? FILE_ERRORS[code] : undefined;
 }
 
 /**
@@ -346,9 +349,9 @@ export function describeFailure(error: unknown): { line: string; status: number 
   if (error instanceof UsageError || error instanceof OutputError) return { line: error.message, status: EXIT_USAGE };
   if (error instanceof InvalidArgumentError) return { line: `invalid input: ${error.message}`, status: EXIT_USAGE };
   if (error instanceof TaulineError) return { line: `${error.code}: ${error.message}`, status: EXIT_USAGE };
-  if (error instanceof Error && 'code' in error && typeof (error as NodeJS.ErrnoException).code === 'string') {
-    const e = error as NodeJS.ErrnoException;
-    const reason = FILE_ERRORS[e.code!];
+  const e = error instanceof Error && 'code' in error ? (error as NodeJS.ErrnoException) : undefined;
+  if (e !== undefined && typeof e.code === 'string') {
+    const reason = FILE_ERRORS[e.code];
     if (reason && e.syscall === 'write') return { line: `cannot write ${e.path === undefined ? 'standard output' : formatReceived(e.path)}: ${reason}`, status: EXIT_USAGE };
     if (reason) return { line: `cannot read ${e.path === undefined ? 'the input' : formatReceived(e.path)}: ${reason}`, status: EXIT_USAGE };
   }
@@ -361,14 +364,14 @@ export function commandHelp(command: Command): string {
   const usage = command.usage.replace(/\[[^\]]*\]/g, (part) => part.replace(/ /g, '\u00a0'));
   const usageLines = wrapText(`tauline ${command.name} ${usage}`, TABLE_WIDTH, ' '.repeat(command.name.length + 9)).map((l) => l.replace(/\u00a0/g, ' '));
   const lines = [...usageLines, '', command.summary, ''];
-  const names = Object.keys(command.flags);
-  const labels = names.map((n) => `--${n}${command.flags[n]!.value ? ` ${command.flags[n]!.value}` : ''}`);
-  const w = Math.max(...labels.map((l) => l.length), 10);
+  const flags = Object.entries(command.flags);
+  const labelled = flags.map(([n, spec]) => ({ label: `--${n}${spec.value ? ` ${spec.value}` : ''}`, spec }));
+  const w = Math.max(...labelled.map(({ label }) => label.length), 10);
   // Flag help wraps at 100 columns under its description column (the details below are laid out by hand).
-  names.forEach((n, i) => lines.push(...wrapText(`  ${labels[i]!.padEnd(w)}  ${command.flags[n]!.description}`, TABLE_WIDTH, ' '.repeat(w + 4))));
+  for (const { label, spec } of labelled) lines.push(...wrapText(`  ${label.padEnd(w)}  ${spec.description}`, TABLE_WIDTH, ' '.repeat(w + 4)));
   lines.push(`  ${'--wide'.padEnd(w)}  Tables and text in their long form, not fitted to 100 columns.`);
   lines.push(`  ${'--help'.padEnd(w)}  Show this help.`);
-  const readsFiles = command.allowPositionals === true || names.some((n) => command.flags[n]!.value === '<file>' && n !== 'output');
+  const readsFiles = command.allowPositionals === true || flags.some(([n, spec]) => spec.value === '<file>' && n !== 'output');
   if (readsFiles) lines.push('', 'Input files: - reads standard input; a directory, pipe, device or binary file is refused (exit 2).');
   if (command.details) lines.push('', command.details.trim());
   return lines.join('\n') + '\n';

@@ -44,7 +44,7 @@ export function displayWidth(text: string): number {
   if (/^[\x20-\x7e]*$/.test(text)) return text.length; // printable ASCII: one column each
   let width = 0;
   for (const ch of text) {
-    const cp = ch.codePointAt(0)!;
+    const cp = ch.codePointAt(0) ?? 0; // ch is one whole code point here
     if (cp < 0x20 || (cp >= 0x7f && cp < 0xa0) || ZERO_WIDTH.test(ch)) continue;
     width += isWide(cp) || EMOJI_PRESENTATION.test(ch) ? 2 : 1;
   }
@@ -63,7 +63,7 @@ export function wrapText(text: string, width: number | undefined, indent = ''): 
   let line = parts[0] ?? '';
   let lineHasWord = line.trim() !== '';
   for (let k = 1; k < parts.length; k += 2) {
-    const gap = parts[k]!;
+    const gap = parts[k] ?? '';
     const word = parts[k + 1] ?? '';
     if (word === '') continue;
     if (lineHasWord && displayWidth(line + gap + word) > width) {
@@ -83,7 +83,7 @@ export function wrapText(text: string, width: number | undefined, indent = ''): 
 export function wrapLines(text: string, width: number | undefined): string {
   if (width === undefined) return text;
   return text.split('\n').map((l) => {
-    const lead = /^ */.exec(l)![0];
+    const lead = /^ */.exec(l)?.[0] ?? '';
     return wrapText(l, width, lead === '' ? '' : `${lead}  `).join('\n');
   }).join('\n');
 }
@@ -119,12 +119,34 @@ export interface TableOptions {
   notes?: readonly (string | undefined)[];
 }
 
-/** A planned layout: the columns kept (indices) and each one's header lines. */
+/** One column of a table being fitted. */
+interface Column {
+  /** Its index in the caller's headers and rows. */
+  index: number;
+  header: string;
+  /** Widest cell, in display columns. */
+  dataWidth: number;
+  /** Holds numbers only (and empty marks): right-aligned. */
+  numeric: boolean;
+}
+
+/** A planned layout: the columns kept, each with its header lines. */
 interface Plan {
-  keep: number[];
-  headers: string[][];
+  columns: { column: Column; headerLines: string[] }[];
   /** Display width of the widest possible row. */
   width: number;
+}
+
+/** Whether column `i` holds numbers and empty marks ("—") only, at least one number; an empty table counts as numeric. */
+function isNumericColumn(cells: readonly (readonly string[])[], i: number): boolean {
+  let any = false;
+  for (const r of cells) {
+    const c = r[i] ?? '';
+    if (NO_VALUE.has(c)) continue;
+    if (!NUMERIC.test(c)) return false;
+    any = true;
+  }
+  return any || cells.length === 0;
 }
 
 /**
@@ -137,57 +159,56 @@ export function fitTable(headers: readonly string[], rows: readonly (readonly (s
   const width = 'width' in options ? options.width : TABLE_WIDTH;
   // Control characters from input files are escaped before measuring, so the columns stay aligned.
   const cells = rows.map((r) => r.map((c) => escapeControlCharacters(String(c))));
-  const cellWidths = cells.map((r) => r.map(displayWidth));
-  const numeric = headers.map((_, i) => {
-    let any = false;
-    for (const r of cells) {
-      const c = r[i] ?? '';
-      if (NO_VALUE.has(c)) continue;
-      if (!NUMERIC.test(c)) return false;
-      any = true;
-    }
-    return any || cells.length === 0;
-  });
+  const measured = cells.map((texts) => ({ texts, widths: texts.map(displayWidth) }));
+  const columns: Column[] = headers.map((header, index) => ({ index, header, dataWidth: 0, numeric: isNumericColumn(cells, index) }));
   // Widest cell of each column, by a loop: spreading a long column into Math.max overflows the call stack (~125 000 rows).
-  const dataWidth = headers.map(() => 0);
-  for (const r of cellWidths) r.forEach((w, i) => { if (i < dataWidth.length && w > dataWidth[i]!) dataWidth[i] = w; });
-  const columnWidth = (i: number, lines: readonly string[]) => Math.max(dataWidth[i]!, ...lines.map(displayWidth));
-  const planWidth = (keep: readonly number[], lines: readonly string[][]) =>
-    keep.reduce((sum, i, j) => sum + columnWidth(i, lines[j]!), 0) + 2 * Math.max(0, keep.length - 1);
+  for (const { widths } of measured) {
+    widths.forEach((w, i) => {
+      const column = columns[i];
+      if (column !== undefined && w > column.dataWidth) column.dataWidth = w;
+    });
+  }
+  const columnWidth = (c: Column, lines: readonly string[]) => Math.max(c.dataWidth, ...lines.map(displayWidth));
+  const planWidth = (kept: Plan['columns']) =>
+    kept.reduce((sum, k) => sum + columnWidth(k.column, k.headerLines), 0) + 2 * Math.max(0, kept.length - 1);
+  const pick = (indices: readonly number[]): Column[] => indices.flatMap((i) => columns[i] ?? []);
 
   // The columns in `keep`, their headers wrapped one at a time (the one overhanging its column most first) until the table fits.
-  const plan = (keep: number[]): Plan => {
-    const lines = keep.map((i) => [headers[i]!]);
-    let w = planWidth(keep, lines);
-    if (width === undefined) return { keep, headers: lines, width: w };
-    const overhang = keep.map((i, j) => ({ j, short: wrapText(headers[i]!, Math.max(dataWidth[i]!, ...headers[i]!.split(' ').map(displayWidth))) }))
-      .map((o) => ({ ...o, saved: displayWidth(headers[keep[o.j]!]!) - Math.max(...o.short.map(displayWidth)) }))
+  const plan = (keep: readonly Column[]): Plan => {
+    const kept = keep.map((column) => ({ column, headerLines: [column.header] }));
+    let w = planWidth(kept);
+    if (width === undefined) return { columns: kept, width: w };
+    const overhang = kept.map((k) => ({ k, short: wrapText(k.column.header, Math.max(k.column.dataWidth, ...k.column.header.split(' ').map(displayWidth))) }))
+      .map((o) => ({ ...o, saved: displayWidth(o.k.column.header) - Math.max(...o.short.map(displayWidth)) }))
       .filter((o) => o.saved > 0).sort((x, y) => y.saved - x.saved);
-    for (const { j, short } of overhang) {
+    for (const { k, short } of overhang) {
       if (w <= width) break;
-      lines[j] = short;
-      w = planWidth(keep, lines);
+      k.headerLines = short;
+      w = planWidth(kept);
     }
-    return { keep, headers: lines, width: w };
+    return { columns: kept, width: w };
   };
 
-  const draw = (p: Plan, moved: readonly number[]): string => {
-    const widths = p.keep.map((i, j) => columnWidth(i, p.headers[j]!));
-    const fmt = (texts: readonly string[], known?: readonly number[]) => texts.map((c, j) => {
-      const fill = ' '.repeat(Math.max(0, widths[j]! - (known?.[j] ?? displayWidth(c))));
-      return numeric[p.keep[j]!] ? fill + c : c + fill;
+  const draw = (p: Plan, moved: readonly Column[]): string => {
+    const laid = p.columns.map((k) => ({ ...k, width: columnWidth(k.column, k.headerLines) }));
+    /** One line: each kept column's text (`known`: its display width when measured already) padded to the column. */
+    const fmt = (cell: (l: (typeof laid)[number]) => { text: string; known?: number }) => laid.map((l) => {
+      const { text, known } = cell(l);
+      const fill = ' '.repeat(Math.max(0, l.width - (known ?? displayWidth(text))));
+      return l.column.numeric ? fill + text : text + fill;
     }).join('  ').trimEnd();
     const out: string[] = [];
     // Multi-line headers sit at the bottom of their block, next to the rule.
-    const depth = Math.max(...p.headers.map((h) => h.length));
-    for (let k = 0; k < depth; k++) out.push(fmt(p.headers.map((h) => h[k - (depth - h.length)] ?? '')));
-    out.push(widths.map((w) => '─'.repeat(w)).join('  '));
+    const depth = Math.max(...laid.map((l) => l.headerLines.length));
+    for (let k = 0; k < depth; k++) out.push(fmt((l) => ({ text: l.headerLines[k - (depth - l.headerLines.length)] ?? '' })));
+    out.push(laid.map((l) => '─'.repeat(l.width)).join('  '));
     // Text under a row starts under its second column (at most 8 columns in).
-    const indent = ' '.repeat(Math.min(8, (widths[0] ?? 0) + 2));
-    cells.forEach((r, k) => {
-      out.push(fmt(p.keep.map((i) => r[i] ?? ''), p.keep.map((i) => cellWidths[k]![i] ?? 0)));
+    const indent = ' '.repeat(Math.min(8, (laid[0]?.width ?? 0) + 2));
+    measured.forEach(({ texts: r, widths }, k) => {
+      out.push(fmt((l) => ({ text: r[l.column.index] ?? '', known: widths[l.column.index] ?? 0 })));
       const under: string[] = [];
-      const movedText = moved.filter((i) => !NO_VALUE.has(r[i] ?? '')).map((i) => (options.unlabelled?.includes(i) ? r[i]! : `${headers[i]} ${r[i]}`)).join(', ');
+      const movedText = moved.filter((c) => !NO_VALUE.has(r[c.index] ?? ''))
+        .map((c) => (options.unlabelled?.includes(c.index) ? r[c.index] ?? '' : `${c.header} ${r[c.index]}`)).join(', ');
       if (movedText !== '') under.push(movedText);
       const note = options.notes?.[k];
       if (note) under.push(note);
@@ -196,20 +217,19 @@ export function fitTable(headers: readonly string[], rows: readonly (readonly (s
     return out.join('\n') + '\n';
   };
 
-  const all = headers.map((_, i) => i);
-  const moved: number[] = [];
-  let chosen = plan(all);
-  for (const column of options.below ?? []) {
+  const moved: Column[] = [];
+  let chosen = plan(columns);
+  for (const column of pick(options.below ?? [])) {
     if (width === undefined || chosen.width <= width) break;
     moved.push(column);
-    chosen = plan(all.filter((i) => !moved.includes(i)));
+    chosen = plan(columns.filter((c) => !moved.includes(c)));
   }
   if (width !== undefined && chosen.width > width && options.panels && moved.length === 0) {
     const { keys, groups } = options.panels;
-    const lead = all.slice(0, keys);
-    const panels: number[][] = [];
-    let current: number[] = [];
-    for (const group of groups) {
+    const lead = columns.slice(0, keys);
+    const panels: Column[][] = [];
+    let current: Column[] = [];
+    for (const group of groups.map(pick)) {
       if (current.length > 0 && plan([...lead, ...current, ...group]).width > width) {
         panels.push(current);
         current = [];

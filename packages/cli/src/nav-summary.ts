@@ -72,8 +72,8 @@ export function noRecordReason(records: readonly RinexNavEphemeris[], t: number,
   if (usable.length === 0) {
     return { reason: 'no healthy record (every record of this satellite has a non-zero health word; --include-unhealthy uses them)', short: 'no healthy record' };
   }
-  let nearest = usable[0]!;
-  for (const r of usable) if (Math.abs(t - r.toeSeconds) < Math.abs(t - nearest.toeSeconds)) nearest = r;
+  // The first record closest to t (usable is not empty here).
+  const nearest = usable.reduce((best, r) => (Math.abs(t - r.toeSeconds) < Math.abs(t - best.toeSeconds) ? r : best));
   const at = (s: number) => `${formatEpochFields(fieldsFromScaleSeconds(s))} ${scaleLabel}`;
   const half = nearest.fitIntervalSeconds / 2;
   const what = `the fit interval of the nearest healthy record (t_oe ${at(nearest.toeSeconds)}, fit ${nearest.fitIntervalSeconds / 3600} h`;

@@ -38,7 +38,8 @@ export function workerScript(): URL | undefined {
  * else 1 (in-process). Never more workers than runs.
  */
 export function workerCount(requested: number | undefined, runs: number, gridEpochs: number): number {
-  const free = Math.max(1, Math.min(availableParallelism(), Math.round(availableParallelism() - loadavg()[0]!)));
+  const [oneMinuteLoad = 0] = loadavg();
+  const free = Math.max(1, Math.min(availableParallelism(), Math.round(availableParallelism() - oneMinuteLoad)));
   const n = requested ?? (runs * gridEpochs >= AUTO_POOL_STEPS ? free : 1);
   return Math.min(n, runs);
 }
@@ -91,9 +92,10 @@ export class SimulatePool {
           worker.off('message', onMessage);
           worker.off('error', onError);
           if (reply.error !== undefined) return reject(new Error(`simulation worker: ${reply.error}`));
+          if (reply.part === undefined) return reject(new Error('simulation worker: a final reply without its part'));
           done += runCount - reported;
           onProgress?.(done, job.runs);
-          resolve(reply.part!);
+          resolve(reply.part);
         };
         worker.on('message', onMessage);
         worker.once('error', onError);

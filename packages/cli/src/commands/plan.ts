@@ -11,9 +11,12 @@ import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag, readScenarioFile, strategyFlag } from '../flags.js';
 import { PLAN_UNITS, nsText } from '../steering-output.js';
 
+/** A command's step with its sign: fractional for a frequency step, ns for a phase step (the SDK sets the field of the kind). */
 function stepText(c: SteeringPlan['commands'][number]): string {
-  return c.kind === 'frequency' ? `${c.fractionalFrequencyStep! >= 0 ? '+' : ''}${c.fractionalFrequencyStep!.toExponential(3)}`
-    : `${c.phaseStepSeconds! >= 0 ? '+' : ''}${nsText(c.phaseStepSeconds!)}`;
+  const { fractionalFrequencyStep: frequency, phaseStepSeconds: phase } = c;
+  if (c.kind === 'frequency' && frequency !== undefined) return `${frequency >= 0 ? '+' : ''}${frequency.toExponential(3)}`;
+  if (c.kind === 'phase' && phase !== undefined) return `${phase >= 0 ? '+' : ''}${nsText(phase)}`;
+  return '—';
 }
 
 /**
@@ -45,12 +48,14 @@ export function planToText(scenario: SteeringScenario, method: string, plan: Ste
     ['total phase steering', nsText(m.totalPhaseSteeringSeconds)],
     ['expected cost J', m.expectedCost.toFixed(5)],
   ]).trimEnd());
-  const t = plan.predicted.t;
-  const every = Math.max(1, Math.round(21_600 / (t[1]! - t[0]!)));
+  const { t, steered, unsteered } = plan.predicted;
+  const [t0 = 0, t1 = t0] = t;
+  const every = Math.max(1, Math.round(21_600 / (t1 - t0)));
+  const ns = (seconds: number | undefined): string => (seconds === undefined ? '—' : (seconds * 1e9).toFixed(3));
   const rows: (string | number)[][] = [];
-  for (let i = 0; i < t.length; i += every) {
-    rows.push([(t[i]! / 86_400).toFixed(2), (plan.predicted.steered.phaseSeconds[i]! * 1e9).toFixed(3),
-      (plan.predicted.steered.sigmaSeconds[i]! * 1e9).toFixed(3), (plan.predicted.unsteered.phaseSeconds[i]! * 1e9).toFixed(3)]);
+  for (const [i, ti] of t.entries()) {
+    if (i % every !== 0) continue;
+    rows.push([(ti / 86_400).toFixed(2), ns(steered.phaseSeconds[i]), ns(steered.sigmaSeconds[i]), ns(unsteered.phaseSeconds[i])]);
   }
   out.push('', 'Prediction (every 6 h):', table(['t (days)', 'steered mean (ns)', '1σ (ns)', 'unsteered mean (ns)'], rows).trimEnd());
   out.push('', plan.caution, '');

@@ -77,8 +77,10 @@ Exit status: 0 success, 2 unusable input.`,
     const methods: SteeringMethod[] = choice === 'all' ? ['none', 'deadband', 'optimal'] : [choice];
     const plans = methods.map((method) => ({ method, plan: planSteering(scenario, { strategy: method, ...(timeScales ? { timeScales } : {}) }) }));
     const script = workerScript();
-    const workers = script ? workerCount(requestedWorkers, runs, plans[0]!.plan.predicted.t.length) : 1;
-    const pool = workers > 1 ? new SimulatePool(script!, workers) : undefined;
+    // Every strategy's plan is on the scenario's one grid.
+    const gridEpochs = Math.max(...plans.map(({ plan }) => plan.predicted.t.length));
+    const workers = script ? workerCount(requestedWorkers, runs, gridEpochs) : 1;
+    const pool = script && workers > 1 ? new SimulatePool(script, workers) : undefined;
     const results = [];
     try {
       for (const { method, plan } of plans) {
@@ -146,7 +148,8 @@ async function runClosedLoop(args: ParsedArgs, io: Io, path: string, format: 'ta
 
 /** The human table of a closed-loop summary, fitted to `width` display columns (undefined: unlimited, `--wide`). */
 export function closedLoopText(s: SteeringScenario, r: ClosedLoopSummary, width?: number): string {
-  const ops = s.operations!;
+  const ops = s.operations;
+  if (ops === undefined) throw new InvalidArgumentError('scenario.operations', undefined, 'the operations block a closed-loop run simulates');
   const head = `${s.name ?? 'Steering scenario'}: closed loop, ${r.runs} simulated clocks, seed ${r.seed}; tolerance ±${nsText(s.tolerance.phaseSeconds)}; ` +
     `estimates every ${ops.estimateIntervalSeconds} s, 1σ ${nsText(ops.estimateNoiseSeconds)}, latency ${ops.estimateLatencySeconds ?? 0} s; re-plan at each contact`;
   const rows = r.strategies.map((x) => [x.method, x.timeInTolerance.mean.toFixed(4), x.timeInTolerance.p05.toFixed(4), x.timeInTolerance.min.toFixed(4),

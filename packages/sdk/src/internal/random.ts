@@ -158,7 +158,8 @@ export function createReseedableRandom(method: NormalMethod): ReseedableRandom {
   };
   const setStream = (seed: number, index: number): void => {
     streamState(seed, index, words);
-    setState(words[0]!, words[1]!, words[2]!, words[3]!);
+    const [a = 0, b = 0, c = 0, d = 0] = words;
+    setState(a, b, c, d);
   };
   if (method === 'ziggurat') return { uniform, normal: zigguratNormal(nextInt, uniform), setState, setStream };
   return {

@@ -22,8 +22,10 @@ const LN_SQRT_2PI = 0.91893853320467274178; // ln √(2π)
  * approximation; C. Lanczos, SIAM J. Numer. Anal. B 1, 86–96 (1964)). ~1e-15 relative.
  */
 const LANCZOS_G = 7;
-const LANCZOS = [
-  0.99999999999980993, 676.5203681218851, -1259.1392167224028, 771.32342877765313, -176.61502916214059,
+const LANCZOS_C0 = 0.99999999999980993;
+/** c_1 … c_8 of the Lanczos sum A_g(z) = c_0 + Σ_k c_k / (z + k). */
+const LANCZOS_C = [
+  676.5203681218851, -1259.1392167224028, 771.32342877765313, -176.61502916214059,
   12.507343278686905, -0.13857109526572012, 9.9843695780195716e-6, 1.5056327351493116e-7,
 ];
 
@@ -55,8 +57,8 @@ function logGammaUnchecked(x: number): number {
     return (x - 0.5) * Math.log(x) - x + LN_SQRT_2PI + stirlingCorrection(x);
   }
   const z = x - 1;
-  let sum = LANCZOS[0] as number;
-  for (let i = 1; i < LANCZOS.length; i++) sum += (LANCZOS[i] as number) / (z + i);
+  let sum = LANCZOS_C0;
+  for (const [k, c] of LANCZOS_C.entries()) sum += c / (z + (k + 1));
   const t = z + LANCZOS_G + 0.5;
   return LN_SQRT_2PI + (z + 0.5) * Math.log(t) - t + Math.log(sum);
 }
@@ -347,9 +349,8 @@ const AS241_F = [1, 5.99832206555887937690e-1, 1.36929880922735805310e-1, 1.4875
   7.86869131145613259100e-4, 1.84631831751005468180e-5, 1.42151175831644588870e-7, 2.04426310338993978564e-15];
 
 function poly(c: readonly number[], x: number): number {
-  let s = 0;
-  for (let i = c.length - 1; i >= 0; i--) s = s * x + (c[i] as number);
-  return s;
+  // Horner's rule from the highest coefficient down.
+  return c.reduceRight((s, ci) => s * x + ci, 0);
 }
 
 function normalQuantileUnchecked(p: number): number {

@@ -139,8 +139,8 @@ export function modifiedSum(x: Float64Array, seg: Int32Array | null, m: number, 
  */
 export function totalSum(x: Float64Array, m: number): TermSum {
   const N = x.length;
-  const x0 = x[0]!;
-  const xl = x[N - 1]!;
+  const x0 = x[0] ?? Number.NaN;
+  const xl = x.at(-1) ?? Number.NaN;
   const at = (k: number): number => (k < 0 ? 2 * x0 - x[-k]! : k > N - 1 ? 2 * xl - x[2 * (N - 1) - k]! : x[k]!);
   let sum = 0;
   // Interior terms need no reflection; only the first and last m terms call `at`.

@@ -76,7 +76,7 @@ function lag1Procedure(series: PhaseSeries, seg: Int32Array | null, m: number, c
   let s: Int32Array | null = seg === null ? null : new Int32Array(count);
   for (let k = 0; k < count; k++) {
     z[k] = x[k * m]!;
-    if (s !== null) s[k] = seg![k * m]!;
+    if (s !== null && seg !== null) s[k] = seg[k * m]!;
   }
   const dmax = 2;
   let d = 0;
@@ -176,7 +176,7 @@ export function barnesB1(n: number, mu: number): number {
 }
 
 /** μ of σ²_y(τ) ∝ τ^μ for the B1 classes, in the order they are tested. */
-const B1_MU: readonly number[] = [-2, -1, 0, 1];
+const B1_MU = [-2, -1, 0, 1] as const;
 
 /**
  * Measured B1 ratio at factor m: the N-sample (classical) variance of the non-overlapping frequency
@@ -218,7 +218,7 @@ export function measuredB1(x: Float64Array, seg: Int32Array | null, m: number): 
 
 /** The μ whose B1(N, μ) lies nearest the measured ratio on a log scale (boundaries at geometric means). */
 export function muFromB1(ratio: number, averages: number): number {
-  let best = B1_MU[0]!;
+  let best: number = B1_MU[0];
   let bestDistance = Infinity;
   for (const mu of B1_MU) {
     const d = Math.abs(Math.log(ratio / barnesB1(averages, mu)));
