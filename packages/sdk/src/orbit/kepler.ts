@@ -25,16 +25,21 @@ function adjacentDouble(x: number, direction: 1 | -1): number {
   // One shared view of the IEEE 754 bits: the next double away from (or toward) zero is the
   // 64-bit pattern plus (or minus) one, done on the two 32-bit halves with a carry.
   BITS_F64[0] = x;
+  // Both halves always exist (the views are two words long); ?? 0 only satisfies the index check.
+  let low = BITS_U32[LOW_WORD] ?? 0;
+  let high = BITS_U32[HIGH_WORD] ?? 0;
   if ((x > 0) === (direction > 0)) {
-    if (BITS_U32[LOW_WORD] === 0xffffffff) {
-      BITS_U32[LOW_WORD] = 0;
-      BITS_U32[HIGH_WORD]! += 1;
-    } else BITS_U32[LOW_WORD]! += 1;
-  } else if (BITS_U32[LOW_WORD] === 0) {
-    BITS_U32[LOW_WORD] = 0xffffffff;
-    BITS_U32[HIGH_WORD]! -= 1;
-  } else BITS_U32[LOW_WORD]! -= 1;
-  return BITS_F64[0]!;
+    if (low === 0xffffffff) {
+      low = 0;
+      high += 1;
+    } else low += 1;
+  } else if (low === 0) {
+    low = 0xffffffff;
+    high -= 1;
+  } else low -= 1;
+  BITS_U32[LOW_WORD] = low;
+  BITS_U32[HIGH_WORD] = high;
+  return BITS_F64[0] ?? Number.NaN;
 }
 
 const BITS_F64 = new Float64Array(1);

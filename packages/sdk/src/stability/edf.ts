@@ -89,10 +89,11 @@ const FPM_G0 = 1.7218;
 /** Weights of the autocorrelation of a filter: offset → Σ c_k c_l over p_k − p_l = offset. */
 function filterAutocorrelation(positions: readonly number[], weights: readonly number[]): { offsets: Float64Array; w: Float64Array; span: number } {
   const map = new Map<number, number>();
-  for (let k = 0; k < positions.length; k++) {
-    for (let l = 0; l < positions.length; l++) {
-      const o = positions[k]! - positions[l]!;
-      map.set(o, (map.get(o) ?? 0) + weights[k]! * weights[l]!);
+  const taps = positions.map((position, k) => ({ position, weight: weights[k] ?? Number.NaN }));
+  for (const first of taps) {
+    for (const second of taps) {
+      const o = first.position - second.position;
+      map.set(o, (map.get(o) ?? 0) + first.weight * second.weight);
     }
   }
   const entries = [...map.entries()].filter(([, v]) => v !== 0).sort((p, q) => p[0] - q[0]);
