@@ -196,8 +196,10 @@ export function parseNumber(field: string, text: string): number {
  * Reads an integer flag in [min, max]; `what` describes it (e.g. "simulated clocks per strategy").
  * @throws {InvalidArgumentError} naming the flag, the value and the range.
  */
-export function integerFlag(args: ParsedArgs, flag: string, min: number, max: number, what: string): number | undefined {
-  const v = numberFlag(args, flag);
+export function integerFlag(args: ParsedArgs, flag: string, min: number, max: number, what: string, required: true): number;
+export function integerFlag(args: ParsedArgs, flag: string, min: number, max: number, what: string, required?: false): number | undefined;
+export function integerFlag(args: ParsedArgs, flag: string, min: number, max: number, what: string, required = false): number | undefined {
+  const v = required ? numberFlag(args, flag, true) : numberFlag(args, flag);
   if (v === undefined) return undefined;
   if (!Number.isInteger(v) || v < min || v > max) throw new InvalidArgumentError(`--${flag}`, v, `an integer in [${min}, ${max}] (${what})`);
   return v;

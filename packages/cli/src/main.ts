@@ -62,10 +62,10 @@ function unknownCommand(name: string, io: Io): number {
 }
 
 /** `tauline help <command>`: that command's help (exit 0), or the unknown-command line (exit 2). */
-function helpOf(rest: readonly string[], io: Io): number {
-  const [name, ...extra] = rest;
+function helpOf(name: string, extra: readonly string[], io: Io): number {
+  const rest = [name, ...extra];
   const command = COMMANDS.find((c) => c.name === name);
-  if (!command) return unknownCommand(name!, io);
+  if (!command) return unknownCommand(name, io);
   if (extra.length > 0) {
     io.err(`tauline help: give one command name (received ${rest.map((r) => JSON.stringify(r)).join(' ')}); see \`tauline help ${command.name}\`\n`);
     return 2;
@@ -77,7 +77,9 @@ function helpOf(rest: readonly string[], io: Io): number {
 export async function main(argv: string[], io: Io = processIo): Promise<number> {
   if (io === processIo) endQuietlyOnClosedStdout();
   const [name, ...rest] = argv;
-  if (name === 'help' && rest.length > 0) return helpOf(rest, io); // `tauline help <command>` = `tauline <command> --help`
+  const [helpName, ...helpExtra] = rest;
+  // `tauline help <command>` = `tauline <command> --help`
+  if (name === 'help' && helpName !== undefined) return helpOf(helpName, helpExtra, io);
   if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
     io.out(overview());
     return name === undefined ? 2 : 0;

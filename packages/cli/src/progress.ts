@@ -24,8 +24,9 @@ export function progressBar(io: Io, label: string): Progress {
       last = pct;
       const filled = Math.round(pct / 4);
       io.err(`\r${label} [${'#'.repeat(filled)}${'.'.repeat(25 - filled)}] ${String(pct).padStart(3)} %`);
-      if (!drawn.has(io)) drawn.set(io, new Set());
-      drawn.get(io)!.add(bar);
+      let bars = drawn.get(io);
+      if (bars === undefined) drawn.set(io, (bars = new Set()));
+      bars.add(bar);
     },
     finish() {
       io.err(`\r${' '.repeat(label.length + 35)}\r`);

@@ -76,9 +76,8 @@ async function readRecord(args: ParsedArgs, kinds: readonly RecordKind[], tau0: 
   const texts = kinds.map((kind) => ({ kind, file: optionalFlag(args, kind) }));
   const rinexFile = optionalFlag(args, 'rinex-clock');
   const inputs = [...kinds.map((kind) => `--${kind} <file>`), '--rinex-clock <file> --clock <name>'];
-  if ([...texts.map((t) => t.file), rinexFile].filter((f) => f !== undefined).length !== 1) {
-    throw new UsageError(`give exactly one input: ${inputs.slice(0, -1).join(', ')} or ${inputs[inputs.length - 1]}`);
-  }
+  const oneInput = `give exactly one input: ${inputs.slice(0, -1).join(', ')} or ${inputs.at(-1)}`;
+  if ([...texts.map((t) => t.file), rinexFile].filter((f) => f !== undefined).length !== 1) throw new UsageError(oneInput);
   if (rinexFile === undefined && optionalFlag(args, 'clock') !== undefined) {
     throw new UsageError('--clock names a clock of a RINEX clock file: give it with --rinex-clock <file>, or leave it out');
   }
@@ -96,7 +95,9 @@ async function readRecord(args: ParsedArgs, kinds: readonly RecordKind[], tau0: 
       ...(s.timeSystem ? { timeSystem: s.timeSystem } : {}),
     };
   }
-  const { kind, file } = texts.find((t) => t.file !== undefined)! as { kind: RecordKind; file: string };
+  const text = texts.find((t): t is { kind: RecordKind; file: string } => t.file !== undefined);
+  if (text === undefined) throw new UsageError(oneInput); // not reached: exactly one input was checked above
+  const { kind, file } = text;
   const chunks = textChunks(file, `a ${kind} record (text, one or two columns)`, { maxBytes: MAX_RECORD_BYTES });
   const s = await readPhaseText(chunks, { sourceName: sourceLabel(file), ...tau0Option });
   if (s.tau0 === undefined) throw new UsageError(`${file} has one column; give the sample spacing with --tau0 <s>`);

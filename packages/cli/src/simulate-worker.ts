@@ -21,17 +21,18 @@ export interface SimulateTask {
 /** Runs between two progress messages (a message per run would cost more than the run). */
 const PROGRESS_EVERY = 50;
 
-parentPort?.on('message', (task: SimulateTask) => {
+const port = parentPort; // null when this file is not run as a worker: then it does nothing
+port?.on('message', (task: SimulateTask) => {
   try {
     const part = simulatePlanRuns(task.scenario, { commands: task.commands }, {
       seed: task.seed, firstRun: task.firstRun, runCount: task.runCount,
       ...(task.leapSeconds ? { timeScales: createTimeScales(task.leapSeconds) } : {}),
       onProgress: (done) => {
-        if (done % PROGRESS_EVERY === 0) parentPort!.postMessage({ id: task.id, progress: PROGRESS_EVERY });
+        if (done % PROGRESS_EVERY === 0) port.postMessage({ id: task.id, progress: PROGRESS_EVERY });
       },
     });
-    parentPort!.postMessage({ id: task.id, part }, [part.insideByEpoch.buffer as ArrayBuffer, part.alwaysInsideByRun.buffer as ArrayBuffer, part.worstByRunSeconds.buffer as ArrayBuffer]);
+    port.postMessage({ id: task.id, part }, [part.insideByEpoch.buffer as ArrayBuffer, part.alwaysInsideByRun.buffer as ArrayBuffer, part.worstByRunSeconds.buffer as ArrayBuffer]);
   } catch (error) {
-    parentPort!.postMessage({ id: task.id, error: error instanceof Error ? `${error.name}: ${error.message}` : String(error) });
+    port.postMessage({ id: task.id, error: error instanceof Error ? `${error.name}: ${error.message}` : String(error) });
   }
 });

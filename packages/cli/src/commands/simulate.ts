@@ -7,7 +7,7 @@ import {
   type SteeringPlan, type SteeringScenario,
 } from '@tauline/sdk/steering';
 import {
-  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, integerFlag, onePositional, optionalFlag, progressBar, requireFlag, seedFlag, seedFlagSpec,
+  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, integerFlag, onePositional, optionalFlag, progressBar, seedFlag, seedFlagSpec,
   toJson, type Command, type Io, type ParsedArgs,
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
@@ -66,8 +66,7 @@ Exit status: 0 success, 2 unusable input.`,
     const path = onePositional(args, 'scenario file');
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
     if (args.values['closed-loop'] === true) return runClosedLoop(args, io, path, format);
-    requireFlag(args, 'runs');
-    const runs = integerFlag(args, 'runs', 1, 1_000_000, 'simulated clocks per strategy')!;
+    const runs = integerFlag(args, 'runs', 1, 1_000_000, 'simulated clocks per strategy', true);
     const seed = seedFlag(args) ?? 1;
     const choice = strategyFlag(optionalFlag(args, 'strategy'), true) ?? 'all';
     const requestedWorkers = integerFlag(args, 'workers', 1, MAX_WORKERS, 'worker threads; 1 = in-process');
