@@ -184,6 +184,9 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
   simulateClock: () => [{ samples: 64, tau0: 1, q: Q2, seed: 1, measurementNoise: 1e-11 }],
   diffusionFromStabilityRows: () => [built().rows, { states: 2 }],
   measurementNoiseFromPhase: () => [PHASE],
+  characterizeClock: () => [{ phase: PHASE, t: TIMES, tau0: 30 }, { degree: 1, measurementSigma: 1e-11, maxPasses: 1 }],
+  clockMeasurementNoise: () => [1e-11, undefined],
+  correctPhaseJumps: () => [PHASE, TIMES, [], [3]],
   polynomialNoiseCovariance: () => [TIMES.slice(0, 16), { degree: 1, referenceTime: 0, q: Q2, measurementVariance: 4e-20 }],
 };
 
