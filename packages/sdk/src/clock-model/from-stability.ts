@@ -174,7 +174,7 @@ function generalizedCovarianceTable(size: number, tau0: number, q: Required<Cloc
     const s = t * tau0;
     g[t] = (-q.q1 * s) / 2 + (q.q2 * s ** 3) / 12 - (q.q3 * s ** 5) / 240;
   }
-  g[0] = (g[0] as number) + rv;
+  g[0] = g[0]! + rv;
   return g;
 }
 
@@ -194,7 +194,7 @@ function estimateCovariance(
     if (count <= 0) continue;
     let c = 0;
     for (let k = 0; k <= K; k++) {
-      for (let l = 0; l <= K; l++) c += (f[k] as number) * (f[l] as number) * (g[Math.abs(lag + l * b.m - k * a.m)] as number);
+      for (let l = 0; l <= K; l++) c += f[k]! * f[l]! * g[Math.abs(lag + l * b.m - k * a.m)]!;
     }
     sum += count * c * c;
   }
@@ -203,10 +203,10 @@ function estimateCovariance(
 
 /** Inverse of a small symmetric positive-definite matrix after scaling to unit diagonal; undefined when singular. */
 function scaledInverse(a: Matrix): Matrix | undefined {
-  const d = a.map((row, i) => Math.sqrt(row[i] as number));
+  const d = a.map((row, i) => Math.sqrt(row[i]!));
   if (d.some((v) => !(v > 0))) return undefined;
-  const inv = inverseSpd(a.map((row, i) => row.map((v, j) => v / ((d[i] as number) * (d[j] as number)))));
-  return inv?.map((row, i) => row.map((v, j) => v / ((d[i] as number) * (d[j] as number))));
+  const inv = inverseSpd(a.map((row, i) => row.map((v, j) => v / (d[i]! * d[j]!))));
+  return inv?.map((row, i) => row.map((v, j) => v / (d[i]! * d[j]!)));
 }
 
 /**
@@ -495,10 +495,10 @@ export function measurementNoiseFromPhase(phase: ArrayLike<number>): Measurement
   const n = phase.length;
   const s = new Float64Array(Math.max(n - 2, 0));
   for (let i = 0; i < n; i++) {
-    const v = phase[i] as number;
+    const v = phase[i]!;
     requirePhaseSample(`phase[${i}]`, v, true);
   }
-  for (let k = 1; k < n - 1; k++) s[k - 1] = (phase[k + 1] as number) - 2 * (phase[k] as number) + (phase[k - 1] as number);
+  for (let k = 1; k < n - 1; k++) s[k - 1] = phase[k + 1]! - 2 * phase[k]! + phase[k - 1]!;
   let sum = 0;
   let count = 0;
   for (const v of s) if (v === v) { sum += v; count++; }
@@ -507,8 +507,8 @@ export function measurementNoiseFromPhase(phase: ArrayLike<number>): Measurement
     let acc = 0;
     let terms = 0;
     for (let k = 0; k + lag < s.length; k++) {
-      const a = s[k] as number;
-      const b = s[k + lag] as number;
+      const a = s[k]!;
+      const b = s[k + lag]!;
       if (a === a && b === b) { acc += (a - mean) * (b - mean); terms++; }
     }
     return { value: terms > 0 ? acc / terms : Number.NaN, terms };

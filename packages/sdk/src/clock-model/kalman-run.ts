@@ -94,7 +94,7 @@ function epochsOf(series: ClockFilterSeries, n: number): Float64Array {
       const ti = series.t[i];
       // The helper (which builds its message) is called only for a bad value.
       t[i] = typeof ti === 'number' && Math.abs(ti) <= MAX_ABS_PHASE_SECONDS ? ti : requirePhaseSample(`series.t[${i}]`, ti, false);
-      if (i > 0 && !((t[i] as number) > (t[i - 1] as number))) {
+      if (i > 0 && !(t[i]! > t[i - 1]!)) {
         throw new InvalidArgumentError(`series.t[${i}]`, t[i], `greater than series.t[${i - 1}] = ${t[i - 1]} (strictly increasing epochs)`);
       }
     }
@@ -172,7 +172,7 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
   }
   if (first < 0) throw new InvalidArgumentError('series.phase', 'all NaN', 'at least one valid phase sample');
   const q = requireDiffusion('options.q', options.q);
-  const initial = requireEstimate('options.initial', initialOf(options, q, t[first] as number, z[first] as number, variance[first] as number));
+  const initial = requireEstimate('options.initial', initialOf(options, q, t[first]!, z[first]!, variance[first]!));
   checkQForStates(q, initial.states, 'options.q');
   const confidence = options.nisConfidence === undefined ? 0.95 : requireInRange('options.nisConfidence', options.nisConfidence, 1e-6, 1 - 1e-12);
   const { settings, detector } = detectionFrom(options);
@@ -196,7 +196,7 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
   core.listener = (u, c, leftOut) => {
     const nu = c.nu;
     const s = c.s;
-    const i = sampleOf[u] as number;
+    const i = sampleOf[u]!;
     write(i);
     code[i] = leftOut ? 1 : 0;
     out.innovation[i] = nu;
@@ -204,9 +204,9 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
     out.nis[i] = (nu * nu) / s;
     // In a replay, refresh the predictions at missing samples between this update and the next one.
     for (let j = i + 1; j < current && code[j] === 2; j++) {
-      c.peek(t[j] as number, scratch);
-      out.phase[j] = scratch[0] as number; out.frequency[j] = scratch[1] as number; out.drift[j] = three ? (scratch[2] as number) : 0;
-      out.phaseStd[j] = scratch[3] as number; out.frequencyStd[j] = scratch[4] as number; out.driftStd[j] = three ? (scratch[5] as number) : 0;
+      c.peek(t[j]!, scratch);
+      out.phase[j] = scratch[0]!; out.frequency[j] = scratch[1]!; out.drift[j] = three ? scratch[2]! : 0;
+      out.phaseStd[j] = scratch[3]!; out.frequencyStd[j] = scratch[4]!; out.driftStd[j] = three ? scratch[5]! : 0;
     }
   };
   const events: CoreEvents = { jumps: [], outliers: [] };
@@ -214,9 +214,9 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
   const outliers: DetectedOutlier[] = [];
   const useDefaultInitial = options.initial === undefined;
   for (let i = 0; i < n; i++) {
-    const ti = t[i] as number;
+    const ti = t[i]!;
     if (ti < core.t) throw new InvalidArgumentError(`series.t[${i}]`, ti, `≥ the initial estimate epoch ${core.t} s`);
-    const zi = z[i] as number;
+    const zi = z[i]!;
     current = i;
     core.predictTo(ti);
     if (zi !== zi || (useDefaultInitial && i === first)) {
@@ -226,7 +226,7 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
       continue;
     }
     sampleOf[core.updates] = i;
-    core.update(zi, variance[i] as number, events);
+    core.update(zi, variance[i]!, events);
     if (events.jumps.length !== 0 || events.outliers.length !== 0) collect(events, sampleOf, i, settings.jumpThreshold, jumps, outliers);
   }
   current = n;
@@ -239,11 +239,11 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
 function collect(events: CoreEvents, sampleOf: Int32Array, at: number, threshold: number, jumps: DetectedJump[], outliers: DetectedOutlier[]): void {
   for (const j of events.jumps) {
     const r = toJump(j, at, threshold);
-    jumps.push({ ...r, updateIndex: sampleOf[r.updateIndex] as number });
+    jumps.push({ ...r, updateIndex: sampleOf[r.updateIndex]! });
   }
   for (const o of events.outliers) {
     const r = toOutlier(o, at);
-    outliers.push({ ...r, updateIndex: sampleOf[r.updateIndex] as number });
+    outliers.push({ ...r, updateIndex: sampleOf[r.updateIndex]! });
   }
   events.jumps.length = 0;
   events.outliers.length = 0;
@@ -254,13 +254,13 @@ function finish(out: Omit<ClockFilterRun, 'states' | 't' | 'status' | 'rejected'
   t: Float64Array, states: ClockStates): ClockFilterRun {
   const names = ['accepted', 'rejected', 'missing'] as const;
   const status = new Array<'accepted' | 'rejected' | 'missing'>(code.length);
-  for (let i = 0; i < code.length; i++) status[i] = names[code[i] as number] as 'accepted' | 'rejected' | 'missing';
+  for (let i = 0; i < code.length; i++) status[i] = names[code[i]!] as 'accepted' | 'rejected' | 'missing';
   const rejected: number[] = [];
   let nisSum = 0;
   let nisCount = 0;
   for (let i = 0; i < code.length; i++) {
     if (code[i] === 1) rejected.push(i);
-    const v = out.nis[i] as number;
+    const v = out.nis[i]!;
     if (v === v) {
       nisSum += v;
       nisCount += 1;
