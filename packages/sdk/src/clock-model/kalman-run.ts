@@ -14,6 +14,7 @@ import { detectionFrom, toJump, toOutlier, type ClockDetectionSettings } from '.
 import { FilterCore, type CoreEvents } from './kalman-core.js';
 import { checkQForStates, requireEstimate, type ClockEstimate, type ClockKalmanOptions, type DetectedJump, type DetectedOutlier } from './kalman-types.js';
 import { requireDiffusion, type ClockStates } from './noise.js';
+import { requireInstant, type Instant } from '../time/instant.js';
 
 /** Input series for {@link runClockFilter}. */
 export interface ClockFilterSeries {
@@ -25,6 +26,12 @@ export interface ClockFilterSeries {
   readonly t?: ArrayLike<number>;
   /** Uniform sample spacing, in seconds (used when `t` is absent). */
   readonly tau0?: Seconds;
+  /**
+   * The instant of t = 0, when the record has one: `t` (or k·tau0) are then seconds since it, and every
+   * epoch of the result (`t`, jump and outlier epochs) is `epoch.plus(seconds)`. Carried to the result only;
+   * the filter works on the seconds.
+   */
+  readonly epoch?: Instant;
 }
 
 /** Options of {@link runClockFilter}. */
@@ -47,7 +54,9 @@ export interface ClockFilterRunOptions extends Omit<ClockKalmanOptions, 'initial
 /** Per-epoch output of {@link runClockFilter}. */
 export interface ClockFilterRun {
   readonly states: ClockStates;
-  /** Epochs, in seconds. */
+  /** `series.epoch`, when given: the instant of t = 0. */
+  readonly epoch?: Instant;
+  /** Epochs, in seconds (since `epoch` when given). */
   readonly t: Float64Array;
   /** Posterior phase estimate, s. */
   readonly phase: Float64Array;
@@ -162,6 +171,7 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
   const z = series.phase;
   if (!z || typeof z.length !== 'number' || z.length === 0) throw new InvalidArgumentError('series.phase', z, 'a non-empty array of phases in seconds');
   const n = z.length;
+  if (series.epoch !== undefined) requireInstant('series.epoch', series.epoch);
   const t = epochsOf(series, n);
   const variance = variancesOf(series, n);
   let first = -1;
@@ -232,7 +242,8 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
   current = n;
   core.flush(events);
   collect(events, sampleOf, n - 1, settings.jumpThreshold, jumps, outliers);
-  return finish(out, code, jumps, outliers, settings, confidence, core, t, initial.states);
+  const run = finish(out, code, jumps, outliers, settings, confidence, core, t, initial.states);
+  return series.epoch === undefined ? run : { ...run, epoch: series.epoch };
 }
 
 /** Moves declared events into the public lists, with sample indices. */
