@@ -3,8 +3,9 @@
  * τ − TT at regular samples.
  */
 import { InvalidArgumentError } from '@tauline/sdk/errors';
-import { GM_MOON, GRAVITY_MODELS, moonPositionLowPrecision, type GravityModel } from '@tauline/sdk/orbit';
-import { integrateProperTime } from '@tauline/sdk/relativity';
+import { GRAVITY_MODELS, type GravityModel } from '@tauline/sdk/orbit';
+import { boundStateCheck, integrateProperTime } from '@tauline/sdk/relativity';
+import { instantFromTtSecondsSinceJ2000 } from '@tauline/sdk/time';
 import type { ConstantSet } from '@tauline/sdk/constants';
 import {
   EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, choiceFlag, formatFlag, formatFlags, numberFlag, parseNumber, requireFlag, sig, toJson, withFlagNames,
@@ -30,56 +31,36 @@ export function parseStateFlag(text: string): { position: [number, number, numbe
   return { position: [v[0]!, v[1]!, v[2]!], velocity: [v[3]!, v[4]!, v[5]!] };
 }
 
-/**
- * Moon-centred position and velocity of a geocentric state at a TT epoch (mean equator and equinox of date,
- * as the `full` model), with the Moon's velocity from a ±1 s central difference of the low-precision series
- * (Montenbruck & Gill 2000 §3.3.2 [M]; the difference error, ≈ 1e-6 m/s, is far below any escape margin).
- */
-function relativeToMoon(state: { position: readonly number[]; velocity: readonly number[] }, epoch: number): { rho: number; w: number; moonDistance: number } {
-  const m = moonPositionLowPrecision(epoch);
-  const mPlus = moonPositionLowPrecision(epoch + 1);
-  const mMinus = moonPositionLowPrecision(epoch - 1);
-  const d = [0, 1, 2].map((k) => state.position[k]! - m[k]!);
-  const w = [0, 1, 2].map((k) => state.velocity[k]! - (mPlus[k]! - mMinus[k]!) / 2);
-  return { rho: Math.hypot(d[0]!, d[1]!, d[2]!), w: Math.hypot(w[0]!, w[1]!, w[2]!), moonDistance: Math.hypot(m[0], m[1], m[2]) };
-}
+/** SDK argument names → the flags that gave them, for the bound check and the integration. */
+const PROPERTIME_FLAG_NAMES: Readonly<Record<string, string>> = {
+  '|state.position|': '--state (|position|)', 'state.position[0]': '--state x', 'state.position[1]': '--state y',
+  'state.position[2]': '--state z', 'state.velocity[0]': '--state vx', 'state.velocity[1]': '--state vy',
+  'state.velocity[2]': '--state vz', duration: '--duration', step: '--step', relativeTolerance: '--tolerance',
+  seconds: '--epoch-tt-j2000',
+};
 
 /**
- * Refuses an unbound state. Which body the state is bound to:
- * - `point-mass` and `j2` (Earth only): specific orbital energy v²/2 − GM/r < 0, i.e. v below the escape speed
- *   √(2GM/r) (N. Ashby, Living Rev. Relativity 6 (2003) §5, eq. 33). J2 changes the energy by ~1e-3 relative,
- *   far less than any escape margin that matters here.
- * - `full` (Earth, Moon and Sun): inside the Moon's Hill sphere r_H = d·(GM_M/(3GM_E))^(1/3) (≈ 61 500 km; the
- *   region where the Moon's attraction dominates the Earth's tidal pull, G. W. Hill 1878 [M]) the state must be
- *   bound to the Moon (two-body energy w²/2 − GM_M/ρ < 0 relative to the Moon); outside it, bound to the Earth
- *   as above. Moon-bound states are lunar orbiters; states bound to neither are refused.
+ * Refuses an unbound state with a message naming the flags; the judgement (which body, which escape speed) is
+ * the SDK's `boundStateCheck` (Earth energy, or for `full` the Moon inside its Hill sphere).
  */
 export function requireBoundState(state: { position: readonly number[]; velocity: readonly number[] }, constants: ConstantSet,
   model: GravityModel = 'j2', epochTtSecondsSinceJ2000 = 0): void {
-  const [x, y, z] = state.position as [number, number, number];
-  const [vx, vy, vz] = state.velocity as [number, number, number];
-  const r = Math.hypot(x, y, z);
-  const v = Math.hypot(vx, vy, vz);
-  if (!(r > 0) || !Number.isFinite(v)) return; // the SDK names the position or velocity error
-  if (model === 'full' && Number.isFinite(epochTtSecondsSinceJ2000)) {
-    const { rho, w, moonDistance } = relativeToMoon(state, epochTtSecondsSinceJ2000);
-    const hill = moonDistance * Math.cbrt(GM_MOON / (3 * constants.gm));
-    if (rho < hill) {
-      const lunarEscape = Math.sqrt((2 * GM_MOON) / rho);
-      if (w >= lunarEscape) {
-        throw new InvalidArgumentError('--state (|velocity relative to the Moon|)', w,
-          `below the lunar escape speed √(2GM_M/ρ) = ${lunarEscape.toFixed(1)} m/s at ρ = ${rho.toFixed(0)} m from the Moon's centre (a Moon-bound orbit inside its Hill sphere, ${hill.toFixed(0)} m)`,
-          'the state is inside the Moon\'s Hill sphere but not bound to the Moon; check the velocity (m/s, geocentric) and --epoch-tt-j2000');
-      }
-      return;
-    }
+  const [x = Number.NaN, y = Number.NaN, z = Number.NaN] = state.position;
+  const [vx = Number.NaN, vy = Number.NaN, vz = Number.NaN] = state.velocity;
+  if (!(Math.hypot(x, y, z) > 0) || !Number.isFinite(Math.hypot(vx, vy, vz))) return; // the SDK names the position or velocity error
+  const full = model === 'full' && Number.isFinite(epochTtSecondsSinceJ2000);
+  const check = boundStateCheck({ position: [x, y, z], velocity: [vx, vy, vz] }, {
+    model: full ? 'full' : 'j2', constants, ...(full ? { epoch: instantFromTtSecondsSinceJ2000(epochTtSecondsSinceJ2000) } : {}),
+  });
+  if (check.bound) return;
+  if (check.body === 'moon') {
+    throw new InvalidArgumentError('--state (|velocity relative to the Moon|)', check.speed,
+      `below the lunar escape speed √(2GM_M/ρ) = ${check.escapeSpeed.toFixed(1)} m/s at ρ = ${check.distance.toFixed(0)} m from the Moon's centre (a Moon-bound orbit inside its Hill sphere, ${(check.hillRadius ?? 0).toFixed(0)} m)`,
+      'the state is inside the Moon\'s Hill sphere but not bound to the Moon; check the velocity (m/s, geocentric) and --epoch-tt-j2000');
   }
-  const escape = Math.sqrt((2 * constants.gm) / r);
-  if (v >= escape) {
-    throw new InvalidArgumentError('--state (|velocity|)', v, `below the escape speed √(2GM/r) = ${escape.toFixed(1)} m/s at r = ${r} m (a bound orbit)`,
-      v > 1e5 ? 'a speed this large looks like mm/s or cm/s; give m/s'
-        : `the state is parabolic or hyperbolic; check the velocity unit (m/s) and value${model === 'full' ? '' : ' (for a lunar orbiter use --model full)'}`);
-  }
+  throw new InvalidArgumentError('--state (|velocity|)', check.speed, `below the escape speed √(2GM/r) = ${check.escapeSpeed.toFixed(1)} m/s at r = ${check.distance} m (a bound orbit)`,
+    check.speed > 1e5 ? 'a speed this large looks like mm/s or cm/s; give m/s'
+      : `the state is parabolic or hyperbolic; check the velocity unit (m/s) and value${model === 'full' ? '' : ' (for a lunar orbiter use --model full)'}`);
 }
 
 export const propertimeCommand: Command = {
@@ -120,18 +101,13 @@ Exit status: 0 success, 2 invalid input.`,
     const epoch = numberFlag(args, 'epoch-tt-j2000') ?? 0;
     const tolerance = numberFlag(args, 'tolerance');
     const constants = constantsFlag(args);
-    requireBoundState(state, constants, model, epoch);
+    withFlagNames(PROPERTIME_FLAG_NAMES, () => requireBoundState(state, constants, model, epoch));
     // Orbits in the span, from the initial radius: period T = 2π√(r³/GM) (Kepler's third law, circular orbit).
     const r0 = Math.hypot(...state.position);
     const orbits = duration / (2 * Math.PI * Math.sqrt(r0 ** 3 / constants.gm));
     const bar = startProgress(io, 'integrating', orbits > PROPERTIME_PROGRESS_ORBITS);
-    const result = withProgress(bar, () => withFlagNames({
-      '|state.position|': '--state (|position|)', 'state.position[0]': '--state x', 'state.position[1]': '--state y',
-      'state.position[2]': '--state z', 'state.velocity[0]': '--state vx', 'state.velocity[1]': '--state vy',
-      'state.velocity[2]': '--state vz', duration: '--duration', step: '--step', relativeTolerance: '--tolerance',
-      epochTtSecondsSinceJ2000: '--epoch-tt-j2000',
-    }, () => integrateProperTime(state, duration, step, {
-      model, constants, epochTtSecondsSinceJ2000: epoch, ...(tolerance === undefined ? {} : { relativeTolerance: tolerance }),
+    const result = withProgress(bar, () => withFlagNames(PROPERTIME_FLAG_NAMES, () => integrateProperTime(state, duration, step, {
+      model, constants, epoch: instantFromTtSecondsSinceJ2000(epoch), ...(tolerance === undefined ? {} : { relativeTolerance: tolerance }),
       onProgress: bar.update,
     })));
     // Warned only once the state is accepted: a refused state gets its one error line alone.
@@ -145,7 +121,7 @@ Exit status: 0 success, 2 invalid input.`,
         samples,
         model: result.model,
         constants: result.constants,
-        epochTtSecondsSinceJ2000: result.epochTtSecondsSinceJ2000,
+        epochTtSecondsSinceJ2000: epoch,
         ephemeris: result.ephemeris,
         relativeTolerance: result.relativeTolerance,
         acceptedSteps: result.acceptedSteps,
@@ -159,7 +135,7 @@ Exit status: 0 success, 2 invalid input.`,
     }
     const width = outputWidth(args);
     io.out(wrapLines(`Proper time τ − TT, model ${result.model}, constants ${result.constants}` +
-      (result.model === 'full' ? `, epoch TT J2000 + ${result.epochTtSecondsSinceJ2000} s (${result.ephemeris})` : '') + '\n\n', width));
+      (result.model === 'full' ? `, epoch TT J2000 + ${epoch} s (${result.ephemeris})` : '') + '\n\n', width));
     io.out(fitTable(['t (s)', 'τ − TT (s)', 'τ − TT (ns)'],
       Array.from(result.t, (t: number, k: number): (string | number)[] => [sig(t, 12), result.tauMinusTT[k]!.toExponential(12), (result.tauMinusTT[k]! * 1e9).toFixed(6)]), { width }));
     io.out(wrapLines(`\nmean rate over the span: ${meanRate.toExponential(9)} (${sig(meanRate * 86400e6, 8)} µs/day); ` +

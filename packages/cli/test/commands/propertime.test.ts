@@ -70,7 +70,7 @@ describe('tauline propertime', () => {
   });
 
   describe('lunar orbiters', () => {
-    // A polar lunar orbiter 100 km above the mean radius (1737.4 km, IAU WGCCRE [M]) at 2023-01-01 12:00 TT, given
+    // A polar lunar orbiter 100 km above the mean radius (1737.4 km, IAU WGCCRE [M]) at 2023-01-01 00:00 TT (725 803 200 s after J2000.0), given
     // geocentrically (mean equator and equinox of date) from the SDK's own low-precision Moon; lunar GM 4.902800066e12
     // m³/s² (JPL DE-series value [M]). Lunar escape speed there √(2GM_M/ρ) = 2310.1 m/s [C].
     const epoch = 725_803_200;

@@ -8,7 +8,7 @@
  */
 import { ConvergenceError, InvalidArgumentError } from '../errors.js';
 import { chiSquareQuantile, chiSquareSurvival, chiSquareUpperQuantile } from '../internal/special-functions.js';
-import { requireInRange, requireInteger, requireNonNegative, requirePhaseSample, requirePositive } from '../internal/validate.js';
+import { requireInRange, requireInteger, requireNonNegative, requirePositive } from '../internal/validate.js';
 import type { StabilityRow } from '../stability/types.js';
 import type { Seconds } from '../units.js';
 import { inverseSpd, type Matrix } from './linalg.js';
@@ -174,7 +174,7 @@ function generalizedCovarianceTable(size: number, tau0: number, q: Required<Cloc
     const s = t * tau0;
     g[t] = (-q.q1 * s) / 2 + (q.q2 * s ** 3) / 12 - (q.q3 * s ** 5) / 240;
   }
-  g[0] = (g[0] as number) + rv;
+  g[0] = g[0]! + rv;
   return g;
 }
 
@@ -194,7 +194,7 @@ function estimateCovariance(
     if (count <= 0) continue;
     let c = 0;
     for (let k = 0; k <= K; k++) {
-      for (let l = 0; l <= K; l++) c += (f[k] as number) * (f[l] as number) * (g[Math.abs(lag + l * b.m - k * a.m)] as number);
+      for (let l = 0; l <= K; l++) c += f[k]! * f[l]! * g[Math.abs(lag + l * b.m - k * a.m)]!;
     }
     sum += count * c * c;
   }
@@ -203,10 +203,10 @@ function estimateCovariance(
 
 /** Inverse of a small symmetric positive-definite matrix after scaling to unit diagonal; undefined when singular. */
 function scaledInverse(a: Matrix): Matrix | undefined {
-  const d = a.map((row, i) => Math.sqrt(row[i] as number));
+  const d = a.map((row, i) => Math.sqrt(row[i]!));
   if (d.some((v) => !(v > 0))) return undefined;
-  const inv = inverseSpd(a.map((row, i) => row.map((v, j) => v / ((d[i] as number) * (d[j] as number)))));
-  return inv?.map((row, i) => row.map((v, j) => v / ((d[i] as number) * (d[j] as number))));
+  const inv = inverseSpd(a.map((row, i) => row.map((v, j) => v / (d[i]! * d[j]!))));
+  return inv?.map((row, i) => row.map((v, j) => v / (d[i]! * d[j]!)));
 }
 
 /**
@@ -250,6 +250,67 @@ function scaledInverse(a: Matrix): Matrix | undefined {
  */
 export function diffusionFromStabilityRows(rows: readonly StabilityRow[], options: StabilityRowsFitOptions = {}): StabilityRowsFit {
   if (!Array.isArray(rows)) throw new InvalidArgumentError('rows', rows, 'the rows array of analyzeStability(...)');
+  const settings = readFitSettings(options);
+  const { states, statistic, rv, confidence } = settings;
+  const { used, excluded, tau0 } = selectRows(rows, settings);
+  const kind = statistic === 'oadev' ? 'allan' : 'hadamard';
+  const weightedFit = fitDiffusion(
+    used.map((u) => ({ tau: u.tau, deviation: Math.sqrt(u.clockVariance), kind, edf: u.edf * (u.clockVariance / (u.deviation * u.deviation)) ** 2 })),
+    { states },
+  );
+  const q = weightedFit.q;
+  const v = rowCovariance(used, statistic, tau0, q, rv);
+  const { covariance, free } = sandwichCovariance(used, weightedFit, settings, v);
+  const sd = (i: number): number => (i < states ? Math.sqrt(Math.max(covariance[i]![i]!, 0)) : 0);
+  const qStd = { q1: sd(0), q2: sd(1), q3: sd(2) };
+
+  const residuals = used.map((u, i) => u.clockVariance - weightedFit.modelVariance[i]!);
+  const vInv = scaledInverse(v);
+  let chiSquare = Number.NaN;
+  if (vInv) {
+    chiSquare = 0;
+    for (const [i, vi] of vInv.entries()) for (const [j, vij] of vi.entries()) chiSquare += residuals[i]! * vij * residuals[j]!;
+  }
+  const dof = used.length - free.length;
+  const pi2 = Math.PI * Math.PI;
+  const interval = (c: 0 | 1 | 2): DiffusionInterval =>
+    diffusionInterval(q[DIFFUSION_NAMES[c]], covariance[c]![c]!, free.includes(c), 1 - confidence);
+  const intervals = states === 3 ? { q1: interval(0), q2: interval(1), q3: interval(2) } : { q1: interval(0), q2: interval(1) };
+  const points = used.map((u, i): StabilityRowFitPoint => {
+    const varianceStd = Math.sqrt(v[i]![i]!);
+    return {
+      tau: u.tau, m: u.m, n: u.n, deviation: u.deviation, edf: u.edf, noise: u.row.noise,
+      clockDeviation: Math.sqrt(u.clockVariance),
+      modelDeviation: Math.sqrt(Math.max(weightedFit.modelVariance[i]! + u.wpm, 0)),
+      varianceStd,
+      normalizedResidual: residuals[i]! / varianceStd,
+    };
+  });
+  return {
+    q, states, statistic, covariance, qStd, atZero: weightedFit.atZero, confidence, intervals,
+    h: hFromQ(q),
+    hStd: { h0: 2 * qStd.q1, hMinus2: qStd.q2 / (2 * pi2), hMinus4: qStd.q3 / (8 * pi2 * pi2) },
+    chiSquare, dof,
+    chiSquareProbability: dof > 0 && Number.isFinite(chiSquare) ? chiSquareSurvival(chiSquare, dof) : Number.NaN,
+    points, excluded, measurementVariance: rv, weightedFit,
+  };
+}
+
+const DIFFUSION_NAMES = ['q1', 'q2', 'q3'] as const;
+
+/** The validated options of {@link diffusionFromStabilityRows}. */
+interface FitSettings {
+  readonly states: ClockStates;
+  readonly statistic: DiffusionStatistic;
+  /** Measurement-noise variance σ_v² and its standard deviation, in s². */
+  readonly rv: number;
+  readonly rvStd: number;
+  readonly minTau: number;
+  readonly maxTau: number;
+  readonly confidence: number;
+}
+
+function readFitSettings(options: StabilityRowsFitOptions): FitSettings {
   if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an options object { states?, statistic?, measurementVariance?, minTau?, maxTau? }');
   const states = options.states === undefined ? 2 : options.states;
   if (states !== 2 && states !== 3) throw new InvalidArgumentError('options.states', states, '2 (phase, frequency) or 3 (phase, frequency, drift)');
@@ -265,8 +326,25 @@ export function diffusionFromStabilityRows(rows: readonly StabilityRow[], option
   const maxTau = options.maxTau === undefined ? Infinity : requirePositive('options.maxTau', options.maxTau, 's');
   if (maxTau < minTau) throw new InvalidArgumentError('options.maxTau', maxTau, `≥ options.minTau = ${minTau} s`);
   const confidence = options.confidence === undefined ? ONE_SIGMA : requireInRange('options.confidence', options.confidence, 1e-6, 1 - 1e-9);
+  return { states, statistic, rv, rvStd, minTau, maxTau, confidence };
+}
 
-  const used: { tau: number; m: number; n: number; row: StabilityRow; deviation: number; edf: number; clockVariance: number; wpm: number }[] = [];
+/** A row that enters the fit: its τ (s), m, term count, deviation, edf, clock-only variance and white-phase part (s²). */
+interface UsedRow {
+  readonly tau: number;
+  readonly m: number;
+  readonly n: number;
+  readonly row: StabilityRow;
+  readonly deviation: number;
+  readonly edf: number;
+  readonly clockVariance: number;
+  readonly wpm: number;
+}
+
+/** The rows that enter the fit, the ones left out (with why), and the common τ0 (s). */
+function selectRows(rows: readonly StabilityRow[], settings: FitSettings): { used: UsedRow[]; excluded: ExcludedStabilityRow[]; tau0: number } {
+  const { statistic, rv, minTau, maxTau, states } = settings;
+  const used: UsedRow[] = [];
   const excluded: ExcludedStabilityRow[] = [];
   let tau0: number | undefined;
   rows.forEach((row, i) => {
@@ -297,173 +375,88 @@ export function diffusionFromStabilityRows(rows: readonly StabilityRow[], option
     const edf = requirePositive(`rows[${i}].statistics.${statistic}.edf`, est.edf);
     used.push({ tau, m, n, row, deviation: est.deviation, edf, clockVariance, wpm });
   });
-  if (used.length < states) {
+  if (used.length < states || tau0 === undefined) {
     throw new InvalidArgumentError('rows', `${used.length} usable ${statistic} rows`, `at least ${states} for a ${states}-state fit`,
       excluded.length > 0 ? `left out: ${excluded.map((e) => `τ = ${e.tau} s (${e.reason})`).join(', ')}` : undefined);
   }
-  const kind = statistic === 'oadev' ? 'allan' : 'hadamard';
-  const weightedFit = fitDiffusion(
-    used.map((u) => ({ tau: u.tau, deviation: Math.sqrt(u.clockVariance), kind, edf: u.edf * (u.clockVariance / (u.deviation * u.deviation)) ** 2 })),
-    { states },
-  );
-  const q = weightedFit.q;
+  return { used, excluded, tau0 };
+}
 
-  // Exact covariance V of the row variances under the fitted model.
+/** Exact covariance V of the row variances under the fitted model (see `estimateCovariance`). */
+function rowCovariance(used: readonly UsedRow[], statistic: DiffusionStatistic, tau0: number, q: Required<ClockDiffusion>, rv: number): Matrix {
   const f = FILTERS[statistic];
   const K = f.length - 1;
   const maxM = Math.max(...used.map((u) => u.m));
-  const g = generalizedCovarianceTable(2 * K * maxM + 1, tau0 as number, q, rv);
-  const nUsed = used.length;
-  const v: Matrix = Array.from({ length: nUsed }, () => new Array<number>(nUsed).fill(0));
-  for (let i = 0; i < nUsed; i++) {
-    for (let j = i; j < nUsed; j++) {
-      const c = estimateCovariance(f, NORMS[statistic], used[i] as typeof used[number], used[j] as typeof used[number], g);
-      (v[i] as number[])[j] = c;
-      (v[j] as number[])[i] = c;
+  const g = generalizedCovarianceTable(2 * K * maxM + 1, tau0, q, rv);
+  const v: Matrix = used.map(() => new Array<number>(used.length).fill(0));
+  for (const [i, ui] of used.entries()) {
+    for (const [j, uj] of used.entries()) {
+      if (j < i) continue;
+      const c = estimateCovariance(f, NORMS[statistic], ui, uj, g);
+      v[i]![j] = c;
+      v[j]![i] = c;
     }
   }
+  return v;
+}
 
-  // Sandwich covariance of the weighted estimator over the free coefficients.
-  const names = ['q1', 'q2', 'q3'] as const;
-  const free = [0, 1, 2].slice(0, states).filter((c) => !weightedFit.atZero.includes(names[c] as 'q1'));
+/**
+ * Sandwich covariance (AᵀWA)⁻¹AᵀW V WA(AᵀWA)⁻¹ of the weighted estimator over the free coefficients, plus
+ * (∂q̂/∂σ_v²)²·Var(σ_v²) when the measurement variance is itself an estimate.
+ */
+function sandwichCovariance(used: readonly UsedRow[], weightedFit: DiffusionFit, settings: FitSettings, v: Matrix):
+  { covariance: Matrix; free: number[] } {
+  const { states, statistic, rvStd } = settings;
+  const free = [0, 1, 2].slice(0, states).filter((c) => !weightedFit.atZero.includes(DIFFUSION_NAMES[c]!));
   const a = used.map((u) => designRow(statistic, u.tau, states));
   const w = weightedFit.modelVariance.map((mv, i) => {
-    const u = used[i] as typeof used[number];
+    const u = used[i]!;
     const edf = u.edf * (u.clockVariance / (u.deviation * u.deviation)) ** 2;
     const ref = mv > 0 ? mv : u.clockVariance;
     return edf / (2 * ref * ref);
   });
   const covariance: Matrix = Array.from({ length: states }, () => new Array<number>(states).fill(0));
-  const normal: Matrix = free.map((c) => free.map((d) => a.reduce((s, r, i) => s + (w[i] as number) * (r[c] as number) * (r[d] as number), 0)));
+  const normal: Matrix = free.map((c) => free.map((d) => a.reduce((s, r, i) => s + w[i]! * r[c]! * r[d]!, 0)));
   const normalInv = scaledInverse(normal);
-  if (normalInv) {
-    // L = (AᵀWA)⁻¹AᵀW (p × n); Cov = L V Lᵀ.
-    const l = free.map((_, p) => a.map((r, i) => free.reduce((s, d, k) => s + ((normalInv[p] as number[])[k] as number) * (r[d] as number), 0) * (w[i] as number)));
+  if (!normalInv) return { covariance, free };
+  const nUsed = used.length;
+  // L = (AᵀWA)⁻¹AᵀW (p × n); Cov = L V Lᵀ.
+  const l = free.map((_, p) => a.map((r, i) => free.reduce((s, d, k) => s + normalInv[p]![k]! * r[d]!, 0) * w[i]!));
+  free.forEach((c, p) => free.forEach((d, k) => {
+    const lp = l[p]!;
+    const lk = l[k]!;
+    let s = 0;
+    for (let i = 0; i < nUsed; i++) for (let j = 0; j < nUsed; j++) s += lp[i]! * v[i]![j]! * lk[j]!;
+    covariance[c]![d] = s;
+  }));
+  if (rvStd > 0) {
+    // q̂ = L(s² − σ_v²·u), u_i = c/τ_i²: ∂q̂/∂σ_v² = −L u.
+    const jac = l.map((lp) => -used.reduce((acc, u, i) => acc + lp[i]! * whitePhaseContribution(statistic, u.tau, 1), 0));
     free.forEach((c, p) => free.forEach((d, k) => {
-      let s = 0;
-      for (let i = 0; i < nUsed; i++) for (let j = 0; j < nUsed; j++) s += ((l[p] as number[])[i] as number) * ((v[i] as number[])[j] as number) * ((l[k] as number[])[j] as number);
-      (covariance[c] as number[])[d] = s;
+      covariance[c]![d] = covariance[c]![d]! + jac[p]! * jac[k]! * rvStd * rvStd;
     }));
-    if (rvStd > 0) {
-      // q̂ = L(s² − σ_v²·u), u_i = c/τ_i²: ∂q̂/∂σ_v² = −L u.
-      const jac = free.map((_, p) => -used.reduce((acc, u, i) => acc + ((l[p] as number[])[i] as number) * whitePhaseContribution(statistic, u.tau, 1), 0));
-      free.forEach((c, p) => free.forEach((d, k) => {
-        (covariance[c] as number[])[d] = ((covariance[c] as number[])[d] as number) + (jac[p] as number) * (jac[k] as number) * rvStd * rvStd;
-      }));
-    }
   }
-  const sd = (i: number): number => (i < states ? Math.sqrt(Math.max((covariance[i] as number[])[i] as number, 0)) : 0);
-  const qStd = { q1: sd(0), q2: sd(1), q3: sd(2) };
-
-  const residuals = used.map((u, i) => u.clockVariance - (weightedFit.modelVariance[i] as number));
-  const vInv = scaledInverse(v);
-  let chiSquare = Number.NaN;
-  if (vInv) {
-    chiSquare = 0;
-    for (let i = 0; i < nUsed; i++) for (let j = 0; j < nUsed; j++) chiSquare += (residuals[i] as number) * ((vInv[i] as number[])[j] as number) * (residuals[j] as number);
-  }
-  const dof = nUsed - free.length;
-  const pi2 = Math.PI * Math.PI;
-  const alpha = 1 - confidence;
-  const interval = (c: number): DiffusionInterval => {
-    const value = q[names[c] as 'q1'];
-    const variance = (covariance[c] as number[])[c] as number;
-    if (!free.includes(c) || !(value > 0) || !(variance > 0)) return { low: Number.NaN, high: Number.NaN, edf: Number.NaN };
-    // Satterthwaite (1946), Biometrics Bull. 2(6):110–114 [M]: ν = 2E²/Var for a linear combination of χ² variables.
-    const edf = (2 * value * value) / variance;
-    let lowerQuantile = 0;
-    try {
-      lowerQuantile = chiSquareQuantile(alpha / 2, edf);
-    } catch (e) {
-      // For ν ≪ 1 the lower χ² quantile underflows: the coefficient is not resolved and the bound is unlimited.
-      if (!(e instanceof ConvergenceError)) throw e;
-    }
-    const high = lowerQuantile > 0 ? (edf * value) / lowerQuantile : Infinity;
-    // ν < 1: the coefficient is within its own uncertainty of zero and the χ² lower bound can even exceed q̂;
-    // the interval then starts at 0 (not resolved).
-    return { low: edf < 1 ? 0 : (edf * value) / chiSquareUpperQuantile(alpha / 2, edf), high, edf };
-  };
-  const intervals = states === 3 ? { q1: interval(0), q2: interval(1), q3: interval(2) } : { q1: interval(0), q2: interval(1) };
-  const points = used.map((u, i): StabilityRowFitPoint => {
-    const varianceStd = Math.sqrt((v[i] as number[])[i] as number);
-    return {
-      tau: u.tau, m: u.m, n: u.n, deviation: u.deviation, edf: u.edf, noise: u.row.noise,
-      clockDeviation: Math.sqrt(u.clockVariance),
-      modelDeviation: Math.sqrt(Math.max((weightedFit.modelVariance[i] as number) + u.wpm, 0)),
-      varianceStd,
-      normalizedResidual: (residuals[i] as number) / varianceStd,
-    };
-  });
-  return {
-    q, states, statistic, covariance, qStd, atZero: weightedFit.atZero, confidence, intervals,
-    h: hFromQ(q),
-    hStd: { h0: 2 * qStd.q1, hMinus2: qStd.q2 / (2 * pi2), hMinus4: qStd.q3 / (8 * pi2 * pi2) },
-    chiSquare, dof,
-    chiSquareProbability: dof > 0 && Number.isFinite(chiSquare) ? chiSquareSurvival(chiSquare, dof) : Number.NaN,
-    points, excluded, measurementVariance: rv, weightedFit,
-  };
-}
-
-/** Result of {@link measurementNoiseFromPhase}. */
-export interface MeasurementNoiseEstimate {
-  /** Estimated white-phase-noise variance σ_v², in s² (may be ≤ 0 when unresolved; see `resolved`). */
-  readonly variance: number;
-  /** Standard error of `variance`, in s² (Bartlett's formula). */
-  readonly standardError: number;
-  /** True when variance > 2·standardError (significantly above zero). */
-  readonly resolved: boolean;
-  /** Number of lag-2 products used. */
-  readonly terms: number;
+  return { covariance, free };
 }
 
 /**
- * Estimates the variance of white phase (measurement) noise in a phase record from the lag-2
- * autocovariance of its second differences s_k = x_{k+1} − 2x_k + x_{k−1}.
- *
- * For x = clock phase (2-state model: white FM q1, random-walk FM q2) plus independent noise v of
- * variance σ_v², s_k and s_{k+2} share only the sample x_{k+1} (coefficient 1·1), while the clock
- * part of s_k depends on the noise inside [t_{k−1}, t_{k+1}] only; so Cov(s_k, s_{k+2}) = σ_v²
- * exactly [C]. Random-walk drift noise (q3) adds q3τ0⁵/120-order terms, negligible for clocks
- * whose drift noise is invisible at τ0. Estimator: ĉ₂ = mean of (s_k − s̄)(s_{k+2} − s̄) over complete
- * pairs (NaN samples break terms; nothing is interpolated). Standard error by Bartlett's formula
- * with the sample autocovariances up to lag 4: var(ĉ₂) ≈ (1/n) Σ_{j=−4}^{4} (ĉ_j² + ĉ_{j+2} ĉ_{j−2})
- * (ĉ_h = 0 beyond lag 4).
- *
- * @param phase  Phase samples in seconds, uniformly spaced; NaN = missing.
- * @returns {@link MeasurementNoiseEstimate} (s², s²).
- * @throws {InvalidArgumentError} if phase is not an array, has ±Infinity, or has fewer than 8 complete second-difference pairs.
- * @see M. S. Bartlett (1946) via P. J. Brockwell & R. A. Davis, Time Series: Theory and Methods, 2nd ed. (1991), §7.2,
- *      Theorem 7.2.1 [M] (variance of sample autocovariances).
+ * χ² interval of one coefficient q̂ with variance Var(q̂) at two-sided level 1 − α: Satterthwaite (1946),
+ * Biometrics Bull. 2(6):110–114 [M]: ν = 2q̂²/Var for a linear combination of χ² variables; [νq̂/χ²_{1−α/2}(ν), νq̂/χ²_{α/2}(ν)].
  */
-export function measurementNoiseFromPhase(phase: ArrayLike<number>): MeasurementNoiseEstimate {
-  if (!phase || typeof phase.length !== 'number') throw new InvalidArgumentError('phase', phase, 'an array of phases in seconds');
-  const n = phase.length;
-  const s = new Float64Array(Math.max(n - 2, 0));
-  for (let i = 0; i < n; i++) {
-    const v = phase[i] as number;
-    requirePhaseSample(`phase[${i}]`, v, true);
+function diffusionInterval(value: number, variance: number, isFree: boolean, alpha: number): DiffusionInterval {
+  if (!isFree || !(value > 0) || !(variance > 0)) return { low: Number.NaN, high: Number.NaN, edf: Number.NaN };
+  const edf = (2 * value * value) / variance;
+  let lowerQuantile = 0;
+  try {
+    lowerQuantile = chiSquareQuantile(alpha / 2, edf);
+  } catch (e) {
+    // For ν ≪ 1 the lower χ² quantile underflows: the coefficient is not resolved and the bound is unlimited.
+    if (!(e instanceof ConvergenceError)) throw e;
   }
-  for (let k = 1; k < n - 1; k++) s[k - 1] = (phase[k + 1] as number) - 2 * (phase[k] as number) + (phase[k - 1] as number);
-  let sum = 0;
-  let count = 0;
-  for (const v of s) if (v === v) { sum += v; count++; }
-  const mean = count > 0 ? sum / count : 0;
-  const acov = (lag: number): { value: number; terms: number } => {
-    let acc = 0;
-    let terms = 0;
-    for (let k = 0; k + lag < s.length; k++) {
-      const a = s[k] as number;
-      const b = s[k + lag] as number;
-      if (a === a && b === b) { acc += (a - mean) * (b - mean); terms++; }
-    }
-    return { value: terms > 0 ? acc / terms : Number.NaN, terms };
-  };
-  const lags = [0, 1, 2, 3, 4].map(acov);
-  const c2 = lags[2] as { value: number; terms: number };
-  if (c2.terms < 8) throw new InvalidArgumentError('phase', `${c2.terms} complete lag-2 pairs of second differences`, 'at least 8 (about 12 consecutive samples)');
-  const g = (h: number): number => (Math.abs(h) <= 4 ? (lags[Math.abs(h)] as { value: number }).value : 0);
-  let bartlett = 0;
-  for (let j = -4; j <= 4; j++) bartlett += g(j) ** 2 + g(j + 2) * g(j - 2);
-  const standardError = Math.sqrt(Math.max(bartlett, 0) / c2.terms);
-  return { variance: c2.value, standardError, resolved: c2.value > 2 * standardError, terms: c2.terms };
+  const high = lowerQuantile > 0 ? (edf * value) / lowerQuantile : Infinity;
+  // ν < 1: the coefficient is within its own uncertainty of zero and the χ² lower bound can even exceed q̂;
+  // the interval then starts at 0 (not resolved).
+  return { low: edf < 1 ? 0 : (edf * value) / chiSquareUpperQuantile(alpha / 2, edf), high, edf };
 }
+
+export { measurementNoiseFromPhase, type MeasurementNoiseEstimate } from './measurement-noise.js';

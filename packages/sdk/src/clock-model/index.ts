@@ -28,3 +28,8 @@ export {
   type DiffusionInterval, type MeasurementNoiseEstimate,
 } from './from-stability.js';
 export { polynomialNoiseCovariance, type PolynomialNoiseOptions, type PolynomialNoiseCovariance } from './polynomial-noise.js';
+export {
+  characterizeClock, clockMeasurementNoise, correctPhaseJumps,
+  type ClockPhaseRecord, type ClockCharacterizationOptions, type ClockCharacterization, type ClockMeasurementNoise,
+  type RejectedClockSample, type ClockPassEvents,
+} from './characterize.js';

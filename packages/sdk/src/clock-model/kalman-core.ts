@@ -83,13 +83,13 @@ export class FilterCore {
     this.q1 = q.q1; this.q2 = q.q2; this.q3 = q.q3;
     this.t = t;
     const three = state.length === 3;
-    this.x0 = state[0] as number; this.x1 = state[1] as number; this.x2 = three ? (state[2] as number) : 0;
-    const r0 = p[0] as readonly number[];
-    const r1 = p[1] as readonly number[];
-    this.p00 = r0[0] as number; this.p01 = r0[1] as number; this.p11 = r1[1] as number;
-    this.p02 = three ? (r0[2] as number) : 0;
-    this.p12 = three ? (r1[2] as number) : 0;
-    this.p22 = three ? ((p[2] as readonly number[])[2] as number) : 0;
+    this.x0 = state[0]!; this.x1 = state[1]!; this.x2 = three ? state[2]! : 0;
+    const r0 = p[0]!;
+    const r1 = p[1]!;
+    this.p00 = r0[0]!; this.p01 = r0[1]!; this.p11 = r1[1]!;
+    this.p02 = three ? r0[2]! : 0;
+    this.p12 = three ? r1[2]! : 0;
+    this.p22 = three ? (p[2]![2]!) : 0;
     this.holdGate = holdGate;
     this.detector = detector;
     this._cap = detector ? detector.window + 2 : 1;
@@ -123,8 +123,8 @@ export class FilterCore {
     this._priorFromSteady = this._steady && fromPosterior && tau === this._tau;
     if (this._priorFromSteady) {
       const f = this._prior;
-      this.p00 = f[0] as number; this.p01 = f[1] as number; this.p02 = f[2] as number;
-      this.p11 = f[3] as number; this.p12 = f[4] as number; this.p22 = f[5] as number;
+      this.p00 = f[0]!; this.p01 = f[1]!; this.p02 = f[2]!;
+      this.p11 = f[3]!; this.p12 = f[4]!; this.p22 = f[5]!;
       return;
     }
     this._steady = false;
@@ -173,9 +173,9 @@ export class FilterCore {
   private _checkSteady(tau: number): void {
     const f = this._prior;
     const same = tau === this._tau
-      && close(this.p00, f[0] as number, this.p00, this.p00) && close(this.p01, f[1] as number, this.p00, this.p11)
-      && close(this.p02, f[2] as number, this.p00, this.p22) && close(this.p11, f[3] as number, this.p11, this.p11)
-      && close(this.p12, f[4] as number, this.p11, this.p22) && close(this.p22, f[5] as number, this.p22, this.p22);
+      && close(this.p00, f[0]!, this.p00, this.p00) && close(this.p01, f[1]!, this.p00, this.p11)
+      && close(this.p02, f[2]!, this.p00, this.p22) && close(this.p11, f[3]!, this.p11, this.p11)
+      && close(this.p12, f[4]!, this.p11, this.p22) && close(this.p22, f[5]!, this.p22, this.p22);
     f[0] = this.p00; f[1] = this.p01; f[2] = this.p02; f[3] = this.p11; f[4] = this.p12; f[5] = this.p22;
     this._tau = tau;
     this._candidate = same;
@@ -198,9 +198,9 @@ export class FilterCore {
     if (!leftOut) {
       if (this._priorFromSteady && r === this._r) {
         const f = this._frozen;
-        k0 = f[0] as number; k1 = f[1] as number; k2 = f[2] as number;
-        this.p00 = f[4] as number; this.p01 = f[5] as number; this.p02 = f[6] as number;
-        this.p11 = f[7] as number; this.p12 = f[8] as number; this.p22 = f[9] as number;
+        k0 = f[0]!; k1 = f[1]!; k2 = f[2]!;
+        this.p00 = f[4]!; this.p01 = f[5]!; this.p02 = f[6]!;
+        this.p11 = f[7]!; this.p12 = f[8]!; this.p22 = f[9]!;
         this._atPost = true;
       } else {
         const { p00, p01, p02, p11, p12, p22 } = this;
@@ -336,10 +336,10 @@ export class FilterCore {
   private _replay(from: number, to: number): void {
     const src = this._slot(from - 1) * 9;
     const h = this._hpost;
-    this.t = this._ht[this._slot(from - 1)] as number;
-    this.x0 = h[src] as number; this.x1 = h[src + 1] as number; this.x2 = h[src + 2] as number;
-    this.p00 = h[src + 3] as number; this.p01 = h[src + 4] as number; this.p02 = h[src + 5] as number;
-    this.p11 = h[src + 6] as number; this.p12 = h[src + 7] as number; this.p22 = h[src + 8] as number;
+    this.t = this._ht[this._slot(from - 1)]!;
+    this.x0 = h[src]!; this.x1 = h[src + 1]!; this.x2 = h[src + 2]!;
+    this.p00 = h[src + 3]!; this.p01 = h[src + 4]!; this.p02 = h[src + 5]!;
+    this.p11 = h[src + 6]!; this.p12 = h[src + 7]!; this.p22 = h[src + 8]!;
     this._steady = false;
     this._candidate = false;
     this._atPost = false;
@@ -353,10 +353,10 @@ export class FilterCore {
     for (let u = from; u <= to; u++) {
       const i = this._slot(u);
       this._applySteps(u - 1);
-      this.predictTo(this._ht[i] as number);
+      this.predictTo(this._ht[i]!);
       for (const j of this._jumps) if (j.update === u) this._applyJump(j);
       const mode = this._hflag[i] === SKIP ? 2 : u > this._decided ? 0 : 1;
-      this._measure(this._hz[i] as number, this._hr[i] as number, mode);
+      this._measure(this._hz[i]!, this._hr[i]!, mode);
     }
   }
 

@@ -82,7 +82,7 @@ export class GlrDetector {
 
   /** Update index of the oldest candidate, or -1 when there is none. */
   oldest(): number {
-    return this._size === 0 ? -1 : (this._index[this._head] as number);
+    return this._size === 0 ? -1 : (this._index[this._head]!);
   }
 
   /** Opens a candidate at update `updateIndex` (epoch in s), dropping the oldest when the window is full. */
@@ -111,16 +111,16 @@ export class GlrDetector {
 
   /** Time update of every signature by τ = input[0]: b ← Φ(τ) b, Φ = [[1, τ, τ²/2], [0, 1, τ], [0, 0, 1]]. */
   propagate(): void {
-    const tau = this.input[0] as number;
+    const tau = this.input[0]!;
     const h = 0.5 * tau * tau;
     const r = this._rows;
     const w = this.window;
     for (let n = 0, s = this._head; n < this._size; n++) {
       const o = s * STRIDE;
       for (let k = o; k < o + 9; k += 3) {
-        const b1 = r[k + 1] as number;
-        const b2 = r[k + 2] as number;
-        r[k] = (r[k] as number) + tau * b1 + h * b2;
+        const b1 = r[k + 1]!;
+        const b2 = r[k + 2]!;
+        r[k] = r[k]! + tau * b1 + h * b2;
         r[k + 1] = b1 + tau * b2;
       }
       if (++s === w) s = 0;
@@ -134,11 +134,11 @@ export class GlrDetector {
    */
   accumulate(): void {
     const inp = this.input;
-    const nu = inp[0] as number;
-    const s = inp[1] as number;
-    const k0 = inp[2] as number;
-    const k1 = inp[3] as number;
-    const k2 = inp[4] as number;
+    const nu = inp[0]!;
+    const s = inp[1]!;
+    const k0 = inp[2]!;
+    const k1 = inp[3]!;
+    const k2 = inp[4]!;
     const r = this._rows;
     const w = nu / s;
     const is = 1 / s;
@@ -149,22 +149,22 @@ export class GlrDetector {
     const cnt = this._count;
     for (let n = 0, slot = this._head; n < this._size; n++) {
       const o = slot * STRIDE;
-      const count = (cnt[slot] as number) + 1;
+      const count = cnt[slot]! + 1;
       cnt[slot] = count;
       // Phase step (b at o … o+2) and frequency step (o+3 … o+5): G = H b.
-      const gp = r[o] as number;
-      const gf = r[o + 3] as number;
+      const gp = r[o]!;
+      const gf = r[o + 3]!;
       // The outlier moves only its own measurement: G = 1 there, and b (0 before) then carries −K.
-      const go = count === 1 ? 1 : (r[o + 6] as number);
-      const dp = (r[o + D] as number) + gp * w;
-      const df = (r[o + D + 1] as number) + gf * w;
-      const cp = (r[o + C] as number) + gp * gp * is;
-      const cf = (r[o + C + 1] as number) + gf * gf * is;
-      r[o + D] = dp; r[o + D + 1] = df; r[o + D + 2] = (r[o + D + 2] as number) + go * w;
-      r[o + C] = cp; r[o + C + 1] = cf; r[o + C + 2] = (r[o + C + 2] as number) + go * go * is;
-      r[o] = gp - k0 * gp; r[o + 1] = (r[o + 1] as number) - k1 * gp; r[o + 2] = (r[o + 2] as number) - k2 * gp;
-      r[o + 3] = gf - k0 * gf; r[o + 4] = (r[o + 4] as number) - k1 * gf; r[o + 5] = (r[o + 5] as number) - k2 * gf;
-      r[o + 6] = (r[o + 6] as number) - k0 * go; r[o + 7] = (r[o + 7] as number) - k1 * go; r[o + 8] = (r[o + 8] as number) - k2 * go;
+      const go = count === 1 ? 1 : r[o + 6]!;
+      const dp = r[o + D]! + gp * w;
+      const df = r[o + D + 1]! + gf * w;
+      const cp = r[o + C]! + gp * gp * is;
+      const cf = r[o + C + 1]! + gf * gf * is;
+      r[o + D] = dp; r[o + D + 1] = df; r[o + D + 2] = r[o + D + 2]! + go * w;
+      r[o + C] = cp; r[o + C + 1] = cf; r[o + C + 2] = r[o + C + 2]! + go * go * is;
+      r[o] = gp - k0 * gp; r[o + 1] = r[o + 1]! - k1 * gp; r[o + 2] = r[o + 2]! - k2 * gp;
+      r[o + 3] = gf - k0 * gf; r[o + 4] = r[o + 4]! - k1 * gf; r[o + 5] = r[o + 5]! - k2 * gf;
+      r[o + 6] = r[o + 6]! - k0 * go; r[o + 7] = r[o + 7]! - k1 * go; r[o + 8] = r[o + 8]! - k2 * go;
       if (count >= m && (dp * dp > thr * cp || df * df > thr * cf)) above = true;
       if (++slot === win) slot = 0;
     }
@@ -175,18 +175,18 @@ export class GlrDetector {
   private _above = false;
 
   private _statistic(o: number, kind: number): number {
-    const c = this._rows[o + C + kind] as number;
+    const c = this._rows[o + C + kind]!;
     if (!(c > 0)) return 0;
-    const d = this._rows[o + D + kind] as number;
+    const d = this._rows[o + D + kind]!;
     return (d * d) / c;
   }
 
   private _decision(slot: number, kind: number): GlrDecision {
     const o = slot * STRIDE;
-    const c = this._rows[o + C + kind] as number;
-    const d = this._rows[o + D + kind] as number;
+    const c = this._rows[o + C + kind]!;
+    const d = this._rows[o + D + kind]!;
     return {
-      kind, updateIndex: this._index[slot] as number, epoch: this._epoch[slot] as number,
+      kind, updateIndex: this._index[slot]!, epoch: this._epoch[slot]!,
       size: d / c, sizeStd: 1 / Math.sqrt(c), statistic: (d * d) / c,
     };
   }
@@ -224,7 +224,7 @@ export class GlrDetector {
     let bestL = 0;
     for (let n = 0, slot = this._head; n < this._size; n++, slot = slot + 1 === this.window ? 0 : slot + 1) {
       const o = slot * STRIDE;
-      const eligible = (this._count[slot] as number) >= this.minEpochs;
+      const eligible = (this._count[slot]!) >= this.minEpochs;
       for (let kind = 0; kind < 3; kind++) {
         if (kind === OUTLIER && !this.outliers) continue;
         const l = this._statistic(o, kind);

@@ -14,6 +14,7 @@ import { detectionFrom, toJump, toOutlier, type ClockDetectionSettings } from '.
 import { FilterCore, type CoreEvents } from './kalman-core.js';
 import { checkQForStates, requireEstimate, type ClockEstimate, type ClockKalmanOptions, type DetectedJump, type DetectedOutlier } from './kalman-types.js';
 import { requireDiffusion, type ClockStates } from './noise.js';
+import { requireInstant, type Instant } from '../time/instant.js';
 
 /** Input series for {@link runClockFilter}. */
 export interface ClockFilterSeries {
@@ -25,6 +26,12 @@ export interface ClockFilterSeries {
   readonly t?: ArrayLike<number>;
   /** Uniform sample spacing, in seconds (used when `t` is absent). */
   readonly tau0?: Seconds;
+  /**
+   * The instant of t = 0, when the record has one: `t` (or k·tau0) are then seconds since it, and every
+   * epoch of the result (`t`, jump and outlier epochs) is `epoch.plus(seconds)`. Carried to the result only;
+   * the filter works on the seconds.
+   */
+  readonly epoch?: Instant;
 }
 
 /** Options of {@link runClockFilter}. */
@@ -47,7 +54,9 @@ export interface ClockFilterRunOptions extends Omit<ClockKalmanOptions, 'initial
 /** Per-epoch output of {@link runClockFilter}. */
 export interface ClockFilterRun {
   readonly states: ClockStates;
-  /** Epochs, in seconds. */
+  /** `series.epoch`, when given: the instant of t = 0. */
+  readonly epoch?: Instant;
+  /** Epochs, in seconds (since `epoch` when given). */
   readonly t: Float64Array;
   /** Posterior phase estimate, s. */
   readonly phase: Float64Array;
@@ -94,7 +103,7 @@ function epochsOf(series: ClockFilterSeries, n: number): Float64Array {
       const ti = series.t[i];
       // The helper (which builds its message) is called only for a bad value.
       t[i] = typeof ti === 'number' && Math.abs(ti) <= MAX_ABS_PHASE_SECONDS ? ti : requirePhaseSample(`series.t[${i}]`, ti, false);
-      if (i > 0 && !((t[i] as number) > (t[i - 1] as number))) {
+      if (i > 0 && !(t[i]! > t[i - 1]!)) {
         throw new InvalidArgumentError(`series.t[${i}]`, t[i], `greater than series.t[${i - 1}] = ${t[i - 1]} (strictly increasing epochs)`);
       }
     }
@@ -162,6 +171,7 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
   const z = series.phase;
   if (!z || typeof z.length !== 'number' || z.length === 0) throw new InvalidArgumentError('series.phase', z, 'a non-empty array of phases in seconds');
   const n = z.length;
+  if (series.epoch !== undefined) requireInstant('series.epoch', series.epoch);
   const t = epochsOf(series, n);
   const variance = variancesOf(series, n);
   let first = -1;
@@ -172,7 +182,7 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
   }
   if (first < 0) throw new InvalidArgumentError('series.phase', 'all NaN', 'at least one valid phase sample');
   const q = requireDiffusion('options.q', options.q);
-  const initial = requireEstimate('options.initial', initialOf(options, q, t[first] as number, z[first] as number, variance[first] as number));
+  const initial = requireEstimate('options.initial', initialOf(options, q, t[first]!, z[first]!, variance[first]!));
   checkQForStates(q, initial.states, 'options.q');
   const confidence = options.nisConfidence === undefined ? 0.95 : requireInRange('options.nisConfidence', options.nisConfidence, 1e-6, 1 - 1e-12);
   const { settings, detector } = detectionFrom(options);
@@ -196,7 +206,7 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
   core.listener = (u, c, leftOut) => {
     const nu = c.nu;
     const s = c.s;
-    const i = sampleOf[u] as number;
+    const i = sampleOf[u]!;
     write(i);
     code[i] = leftOut ? 1 : 0;
     out.innovation[i] = nu;
@@ -204,9 +214,9 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
     out.nis[i] = (nu * nu) / s;
     // In a replay, refresh the predictions at missing samples between this update and the next one.
     for (let j = i + 1; j < current && code[j] === 2; j++) {
-      c.peek(t[j] as number, scratch);
-      out.phase[j] = scratch[0] as number; out.frequency[j] = scratch[1] as number; out.drift[j] = three ? (scratch[2] as number) : 0;
-      out.phaseStd[j] = scratch[3] as number; out.frequencyStd[j] = scratch[4] as number; out.driftStd[j] = three ? (scratch[5] as number) : 0;
+      c.peek(t[j]!, scratch);
+      out.phase[j] = scratch[0]!; out.frequency[j] = scratch[1]!; out.drift[j] = three ? scratch[2]! : 0;
+      out.phaseStd[j] = scratch[3]!; out.frequencyStd[j] = scratch[4]!; out.driftStd[j] = three ? scratch[5]! : 0;
     }
   };
   const events: CoreEvents = { jumps: [], outliers: [] };
@@ -214,9 +224,9 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
   const outliers: DetectedOutlier[] = [];
   const useDefaultInitial = options.initial === undefined;
   for (let i = 0; i < n; i++) {
-    const ti = t[i] as number;
+    const ti = t[i]!;
     if (ti < core.t) throw new InvalidArgumentError(`series.t[${i}]`, ti, `≥ the initial estimate epoch ${core.t} s`);
-    const zi = z[i] as number;
+    const zi = z[i]!;
     current = i;
     core.predictTo(ti);
     if (zi !== zi || (useDefaultInitial && i === first)) {
@@ -226,24 +236,25 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
       continue;
     }
     sampleOf[core.updates] = i;
-    core.update(zi, variance[i] as number, events);
+    core.update(zi, variance[i]!, events);
     if (events.jumps.length !== 0 || events.outliers.length !== 0) collect(events, sampleOf, i, settings.jumpThreshold, jumps, outliers);
   }
   current = n;
   core.flush(events);
   collect(events, sampleOf, n - 1, settings.jumpThreshold, jumps, outliers);
-  return finish(out, code, jumps, outliers, settings, confidence, core, t, initial.states);
+  const run = finish(out, code, jumps, outliers, settings, confidence, core, t, initial.states);
+  return series.epoch === undefined ? run : { ...run, epoch: series.epoch };
 }
 
 /** Moves declared events into the public lists, with sample indices. */
 function collect(events: CoreEvents, sampleOf: Int32Array, at: number, threshold: number, jumps: DetectedJump[], outliers: DetectedOutlier[]): void {
   for (const j of events.jumps) {
     const r = toJump(j, at, threshold);
-    jumps.push({ ...r, updateIndex: sampleOf[r.updateIndex] as number });
+    jumps.push({ ...r, updateIndex: sampleOf[r.updateIndex]! });
   }
   for (const o of events.outliers) {
     const r = toOutlier(o, at);
-    outliers.push({ ...r, updateIndex: sampleOf[r.updateIndex] as number });
+    outliers.push({ ...r, updateIndex: sampleOf[r.updateIndex]! });
   }
   events.jumps.length = 0;
   events.outliers.length = 0;
@@ -254,13 +265,13 @@ function finish(out: Omit<ClockFilterRun, 'states' | 't' | 'status' | 'rejected'
   t: Float64Array, states: ClockStates): ClockFilterRun {
   const names = ['accepted', 'rejected', 'missing'] as const;
   const status = new Array<'accepted' | 'rejected' | 'missing'>(code.length);
-  for (let i = 0; i < code.length; i++) status[i] = names[code[i] as number] as 'accepted' | 'rejected' | 'missing';
+  for (let i = 0; i < code.length; i++) status[i] = names[code[i]!] as 'accepted' | 'rejected' | 'missing';
   const rejected: number[] = [];
   let nisSum = 0;
   let nisCount = 0;
   for (let i = 0; i < code.length; i++) {
     if (code[i] === 1) rejected.push(i);
-    const v = out.nis[i] as number;
+    const v = out.nis[i]!;
     if (v === v) {
       nisSum += v;
       nisCount += 1;

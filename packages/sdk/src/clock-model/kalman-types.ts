@@ -60,9 +60,9 @@ export function requireEstimate(argument: string, e: unknown): { t: number; stat
   });
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < i; j++) {
-      const a = (covariance[i] as number[])[j] as number;
-      const b = (covariance[j] as number[])[i] as number;
-      if (Math.abs(a - b) > 1e-9 * Math.sqrt(Math.abs(((covariance[i] as number[])[i] as number) * ((covariance[j] as number[])[j] as number)))) {
+      const a = covariance[i]![j]!;
+      const b = covariance[j]![i]!;
+      if (Math.abs(a - b) > 1e-9 * Math.sqrt(Math.abs((covariance[i]![i]!) * (covariance[j]![j]!)))) {
         throw new InvalidArgumentError(`${argument}.covariance`, c, expected, `element [${i}][${j}] differs from [${j}][${i}]`);
       }
     }
@@ -73,8 +73,8 @@ export function requireEstimate(argument: string, e: unknown): { t: number; stat
 
 /** Scales a covariance to unit diagonal (zero rows stay zero) so the definiteness test is scale-free. */
 function scaledForTest(p: Matrix): Matrix {
-  const d = p.map((row, i) => Math.sqrt(Math.max(row[i] as number, 0)));
-  return p.map((row, i) => row.map((v, j) => ((d[i] as number) > 0 && (d[j] as number) > 0 ? v / ((d[i] as number) * (d[j] as number)) : v === 0 ? 0 : v)));
+  const d = p.map((row, i) => Math.sqrt(Math.max(row[i]!, 0)));
+  return p.map((row, i) => row.map((v, j) => (d[i]! > 0 && d[j]! > 0 ? v / (d[i]! * d[j]!) : v === 0 ? 0 : v)));
 }
 
 /** Mean and covariance propagated by τ: s' = Φs, P' = ΦPΦᵀ + Q(τ) (Kalman 1960 time update). */
@@ -111,8 +111,8 @@ export function forecastClock(estimate: ClockEstimate, q: ClockDiffusion, horizo
     const p = propagate(e.state, e.covariance, tau, qq, e.states);
     return {
       t: e.t + tau, horizon: tau, state: p.state, covariance: p.covariance,
-      phaseStd: Math.sqrt((p.covariance[0] as number[])[0] as number),
-      frequencyStd: Math.sqrt((p.covariance[1] as number[])[1] as number),
+      phaseStd: Math.sqrt(p.covariance[0]![0]!),
+      frequencyStd: Math.sqrt(p.covariance[1]![1]!),
     };
   });
 }
@@ -130,9 +130,9 @@ export function applyClockStep(estimate: ClockEstimate, step: ClockStep): ClockE
   const e = requireEstimate('estimate', estimate);
   const s = requireStep(step, e.states);
   const state = e.state.slice();
-  state[0] = (state[0] as number) + s[0];
-  state[1] = (state[1] as number) + s[1];
-  if (e.states === 3) state[2] = (state[2] as number) + s[2];
+  state[0] = state[0]! + s[0];
+  state[1] = state[1]! + s[1];
+  if (e.states === 3) state[2] = state[2]! + s[2];
   return { t: e.t, state, covariance: e.covariance };
 }
 

@@ -16,7 +16,7 @@ export function zeros(n: number, m = n): Matrix {
 /** n × n identity. */
 export function identity(n: number): Matrix {
   const out = zeros(n);
-  for (let i = 0; i < n; i++) (out[i] as number[])[i] = 1;
+  for (let i = 0; i < n; i++) out[i]![i] = 1;
   return out;
 }
 
@@ -29,16 +29,16 @@ export function copyMatrix(a: readonly (readonly number[])[]): Matrix {
 export function multiply(a: readonly (readonly number[])[], b: readonly (readonly number[])[]): Matrix {
   const n = a.length;
   const k = b.length;
-  const m = (b[0] as readonly number[]).length;
+  const m = b[0]!.length;
   const out = zeros(n, m);
   for (let i = 0; i < n; i++) {
-    const ai = a[i] as readonly number[];
-    const oi = out[i] as number[];
+    const ai = a[i]!;
+    const oi = out[i]!;
     for (let p = 0; p < k; p++) {
-      const aip = ai[p] as number;
+      const aip = ai[p]!;
       if (aip === 0) continue;
-      const bp = b[p] as readonly number[];
-      for (let j = 0; j < m; j++) oi[j] = (oi[j] as number) + aip * (bp[j] as number);
+      const bp = b[p]!;
+      for (let j = 0; j < m; j++) oi[j] = oi[j]! + aip * bp[j]!;
     }
   }
   return out;
@@ -47,9 +47,9 @@ export function multiply(a: readonly (readonly number[])[], b: readonly (readonl
 /** Aᵀ. */
 export function transpose(a: readonly (readonly number[])[]): Matrix {
   const n = a.length;
-  const m = (a[0] as readonly number[]).length;
+  const m = a[0]!.length;
   const out = zeros(m, n);
-  for (let i = 0; i < n; i++) for (let j = 0; j < m; j++) (out[j] as number[])[i] = (a[i] as readonly number[])[j] as number;
+  for (let i = 0; i < n; i++) for (let j = 0; j < m; j++) out[j]![i] = a[i]![j]!;
   return out;
 }
 
@@ -57,7 +57,7 @@ export function transpose(a: readonly (readonly number[])[]): Matrix {
 export function multiplyVector(a: readonly (readonly number[])[], v: readonly number[]): number[] {
   return a.map((row) => {
     let s = 0;
-    for (let j = 0; j < row.length; j++) s += (row[j] as number) * (v[j] as number);
+    for (let j = 0; j < row.length; j++) s += row[j]! * v[j]!;
     return s;
   });
 }
@@ -72,9 +72,9 @@ export function symmetrize(a: Matrix): Matrix {
   const n = a.length;
   for (let i = 0; i < n; i++) {
     for (let j = i + 1; j < n; j++) {
-      const v = 0.5 * (((a[i] as number[])[j] as number) + ((a[j] as number[])[i] as number));
-      (a[i] as number[])[j] = v;
-      (a[j] as number[])[i] = v;
+      const v = 0.5 * ((a[i]![j]!) + (a[j]![i]!));
+      a[i]![j] = v;
+      a[j]![i] = v;
     }
   }
   return a;
@@ -82,7 +82,7 @@ export function symmetrize(a: Matrix): Matrix {
 
 /** A + B. */
 export function add(a: readonly (readonly number[])[], b: readonly (readonly number[])[]): Matrix {
-  return a.map((row, i) => row.map((v, j) => v + ((b[i] as readonly number[])[j] as number)));
+  return a.map((row, i) => row.map((v, j) => v + (b[i]![j]!)));
 }
 
 /**
@@ -94,10 +94,10 @@ export function cholesky(a: readonly (readonly number[])[], allowSemidefinite = 
   const n = a.length;
   const l = zeros(n);
   for (let j = 0; j < n; j++) {
-    const lj = l[j] as number[];
-    let d = (a[j] as readonly number[])[j] as number;
-    for (let k = 0; k < j; k++) d -= (lj[k] as number) ** 2;
-    const scale = Math.abs((a[j] as readonly number[])[j] as number);
+    const lj = l[j]!;
+    let d = a[j]![j]!;
+    for (let k = 0; k < j; k++) d -= lj[k]! ** 2;
+    const scale = Math.abs(a[j]![j]!);
     if (!(d > 1e-14 * scale)) {
       if (allowSemidefinite && d >= -1e-12 * scale) {
         lj[j] = 0;
@@ -108,9 +108,9 @@ export function cholesky(a: readonly (readonly number[])[], allowSemidefinite = 
     const ljj = Math.sqrt(d);
     lj[j] = ljj;
     for (let i = j + 1; i < n; i++) {
-      const li = l[i] as number[];
-      let s = (a[i] as readonly number[])[j] as number;
-      for (let k = 0; k < j; k++) s -= (li[k] as number) * (lj[k] as number);
+      const li = l[i]!;
+      let s = a[i]![j]!;
+      for (let k = 0; k < j; k++) s -= li[k]! * lj[k]!;
       li[j] = s / ljj;
     }
   }
@@ -128,11 +128,11 @@ export function inverseSpd(a: readonly (readonly number[])[]): Matrix | undefine
   // inv(L) by forward substitution, then inv(A) = inv(L)ᵀ inv(L).
   const li = zeros(n);
   for (let j = 0; j < n; j++) {
-    (li[j] as number[])[j] = 1 / ((l[j] as number[])[j] as number);
+    li[j]![j] = 1 / (l[j]![j]!);
     for (let i = j + 1; i < n; i++) {
       let s = 0;
-      for (let k = j; k < i; k++) s -= ((l[i] as number[])[k] as number) * ((li[k] as number[])[j] as number);
-      (li[i] as number[])[j] = s / ((l[i] as number[])[i] as number);
+      for (let k = j; k < i; k++) s -= (l[i]![k]!) * (li[k]![j]!);
+      li[i]![j] = s / (l[i]![i]!);
     }
   }
   return symmetrize(multiply(transpose(li), li));

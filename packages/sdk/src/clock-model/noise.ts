@@ -316,15 +316,15 @@ function solveSubset(rows: readonly number[][], targets: readonly number[], weig
   : { beta: number[]; cov: Matrix } | undefined {
   const p = free.length;
   // Column scaling keeps the normal matrix well conditioned (the columns differ by up to τ⁴).
-  const scale = free.map((c) => Math.sqrt(rows.reduce((s, r, i) => s + (weights[i] as number) * (r[c] as number) ** 2, 0)) || 1);
+  const scale = free.map((c) => Math.sqrt(rows.reduce((s, r, i) => s + weights[i]! * r[c]! ** 2, 0)) || 1);
   const n = new Array(p).fill(0).map(() => new Array<number>(p).fill(0));
   const b = new Array<number>(p).fill(0);
   rows.forEach((r, i) => {
-    const w = weights[i] as number;
+    const w = weights[i]!;
     for (let a = 0; a < p; a++) {
-      const ra = (r[free[a] as number] as number) / (scale[a] as number);
-      b[a] = (b[a] as number) + w * ra * (targets[i] as number);
-      for (let c = 0; c < p; c++) (n[a] as number[])[c] = ((n[a] as number[])[c] as number) + w * ra * ((r[free[c] as number] as number) / (scale[c] as number));
+      const ra = r[free[a]!]! / scale[a]!;
+      b[a] = b[a]! + w * ra * targets[i]!;
+      for (let c = 0; c < p; c++) n[a]![c] = (n[a]![c]!) + w * ra * (r[free[c]!]! / scale[c]!);
     }
   });
   const l = cholesky(n);
@@ -333,17 +333,17 @@ function solveSubset(rows: readonly number[][], targets: readonly number[], weig
   const solve = (rhs: number[]): number[] => {
     const z = rhs.slice();
     for (let i = 0; i < p; i++) {
-      for (let k = 0; k < i; k++) z[i] = (z[i] as number) - ((l[i] as number[])[k] as number) * (z[k] as number);
-      z[i] = (z[i] as number) / ((l[i] as number[])[i] as number);
+      for (let k = 0; k < i; k++) z[i] = z[i]! - (l[i]![k]!) * z[k]!;
+      z[i] = z[i]! / (l[i]![i]!);
     }
     for (let i = p - 1; i >= 0; i--) {
-      for (let k = i + 1; k < p; k++) z[i] = (z[i] as number) - ((l[k] as number[])[i] as number) * (z[k] as number);
-      z[i] = (z[i] as number) / ((l[i] as number[])[i] as number);
+      for (let k = i + 1; k < p; k++) z[i] = z[i]! - (l[k]![i]!) * z[k]!;
+      z[i] = z[i]! / (l[i]![i]!);
     }
     return z;
   };
   const z = solve(b);
-  const beta = z.map((v, a) => v / (scale[a] as number));
+  const beta = z.map((v, a) => v / scale[a]!);
   const cov: Matrix = [];
   for (let a = 0; a < p; a++) {
     const e = new Array<number>(p).fill(0);
@@ -351,7 +351,7 @@ function solveSubset(rows: readonly number[][], targets: readonly number[], weig
     const col = solve(e);
     for (let c = 0; c < p; c++) {
       if (!cov[c]) cov[c] = new Array<number>(p).fill(0);
-      (cov[c] as number[])[a] = (col[c] as number) / ((scale[a] as number) * (scale[c] as number));
+      cov[c]![a] = col[c]! / (scale[a]! * scale[c]!);
     }
   }
   return { beta, cov };
@@ -410,7 +410,7 @@ export function fitDiffusion(points: readonly MeasuredStabilityPoint[], options:
   if (points.length < nq) {
     throw new InvalidArgumentError('points', points.length, `at least ${nq} points for a ${states}-state fit`);
   }
-  const rows = points.map((p, i) => designRow(taus[i] as number, p.kind, states));
+  const rows = points.map((p, i) => designRow(taus[i]!, p.kind, states));
 
   const subsets: number[][] = [];
   for (let mask = 1; mask < 1 << nq; mask++) {
@@ -421,43 +421,43 @@ export function fitDiffusion(points: readonly MeasuredStabilityPoint[], options:
   let variances = measured.slice();
   let best: { beta: number[]; cov: Matrix; free: number[]; ssr: number } | undefined;
   for (let iter = 0; iter < 6; iter++) {
-    const weights = variances.map((v, i) => (edfs[i] as number) / (2 * v * v));
+    const weights = variances.map((v, i) => edfs[i]! / (2 * v * v));
     best = undefined;
     for (const free of subsets) {
       const sol = solveSubset(rows, measured, weights, free);
       if (!sol || sol.beta.some((v) => v < 0)) continue;
       const full = new Array<number>(nq).fill(0);
-      free.forEach((c, a) => { full[c] = sol.beta[a] as number; });
+      free.forEach((c, a) => { full[c] = sol.beta[a]!; });
       let ssr = 0;
       rows.forEach((r, i) => {
-        const m = r.reduce((s, v, c) => s + v * (full[c] as number), 0);
-        ssr += (weights[i] as number) * ((measured[i] as number) - m) ** 2;
+        const m = r.reduce((s, v, c) => s + v * full[c]!, 0);
+        ssr += weights[i]! * (measured[i]! - m) ** 2;
       });
       if (!best || ssr < best.ssr) best = { beta: full, cov: sol.cov, free, ssr };
     }
     if (!best) break;
-    const model = rows.map((r) => r.reduce((s, v, c) => s + v * ((best as { beta: number[] }).beta[c] as number), 0));
+    const model = rows.map((r) => r.reduce((s, v, c) => s + v * ((best as { beta: number[] }).beta[c]!), 0));
     // Keep the measured variance where the model gives 0 (no weight information otherwise).
-    variances = model.map((m, i) => (m > 0 ? m : (measured[i] as number)));
+    variances = model.map((m, i) => (m > 0 ? m : measured[i]!));
   }
   if (!best) {
     // Not reachable for positive τ and deviations (a single-coefficient subset is always solvable and ≥ 0).
     throw new InvalidArgumentError('points', points, 'points from which the coefficients can be determined');
   }
   const found = best;
-  const weights = variances.map((v, i) => (edfs[i] as number) / (2 * v * v));
-  const modelVariance = rows.map((r) => r.reduce((s, v, c) => s + v * (found.beta[c] as number), 0));
-  const normalizedResiduals = modelVariance.map((m, i) => ((measured[i] as number) - m) * Math.sqrt(weights[i] as number));
+  const weights = variances.map((v, i) => edfs[i]! / (2 * v * v));
+  const modelVariance = rows.map((r) => r.reduce((s, v, c) => s + v * (found.beta[c]!), 0));
+  const normalizedResiduals = modelVariance.map((m, i) => (measured[i]! - m) * Math.sqrt(weights[i]!));
   const chiSquare = normalizedResiduals.reduce((s, r) => s + r * r, 0);
   const dof = points.length - found.free.length;
   const scaleCov = !allEdf && dof > 0 ? chiSquare / dof : 1;
   const covariance: Matrix = Array.from({ length: nq }, () => new Array<number>(nq).fill(0));
   found.free.forEach((c, a) => found.free.forEach((d, b) => {
-    (covariance[c] as number[])[d] = ((found.cov[a] as number[])[b] as number) * scaleCov;
+    covariance[c]![d] = (found.cov[a]![b]!) * scaleCov;
   }));
   const names = ['q1', 'q2', 'q3'] as const;
   return {
-    q: { q1: found.beta[0] as number, q2: found.beta[1] as number, q3: states === 3 ? (found.beta[2] as number) : 0 },
+    q: { q1: found.beta[0]!, q2: found.beta[1]!, q3: states === 3 ? (found.beta[2]!) : 0 },
     states,
     covariance,
     covarianceScaled: !allEdf && dof > 0,

@@ -58,6 +58,50 @@ export interface PolynomialNoiseCovariance {
  *      linear estimator ℓᵀz is ℓᵀΣℓ (standard linear algebra).
  */
 export function polynomialNoiseCovariance(t: ArrayLike<number>, options: PolynomialNoiseOptions): PolynomialNoiseCovariance {
+  const { tt, degree, t0, q, states, r, predict } = readInputs(t, options);
+  const p = degree + 1;
+  const n = tt.length;
+  // Centred, scaled basis u = (t − c)/s, as in fitClockPolynomial.
+  let sum = 0;
+  for (const v of tt) sum += v;
+  const c = sum / n;
+  const s = (tt[n - 1]! - tt[0]!) / 2 || 1;
+  const basis = (time: number): number[] => {
+    const u = (time - c) / s;
+    return degree === 2 ? [1, u, u * u] : [1, u];
+  };
+  const all = functionals(tt, basis, p, predict);
+  const cov = clockNoiseCovariance(tt, all, p, predict, q, states);
+  const m = all.length;
+  for (let a = 0; a < m; a++) {
+    const fa = all[a]!;
+    for (let b = a; b < m; b++) {
+      const fb = all[b]!;
+      let v = 0;
+      for (let k = 0; k < n; k++) v += fa[k]! * fb[k]!;
+      cov[a]![b] = cov[a]![b]! + r * v;
+      cov[b]![a] = cov[a]![b]!;
+    }
+  }
+  // Map the u-basis coefficient covariance to the t0 basis (as fitClockPolynomial does).
+  const delta0 = (t0 - c) / s;
+  const tm: Matrix = degree === 2
+    ? [[1, delta0, delta0 * delta0], [0, 1 / s, (2 * delta0) / s], [0, 0, 1 / (s * s)]]
+    : [[1, delta0], [0, 1 / s]];
+  const covariance: Matrix = tm.map((ri) => tm.map((rj) => {
+    let v = 0;
+    for (let k = 0; k < p; k++) for (let l = 0; l < p; l++) v += ri[k]! * cov[k]![l]! * rj[l]!;
+    return v;
+  }));
+  const predictStd = predict.map((T, j) => {
+    const after = clockProcessNoise(T - tt[n - 1]!, q, states)[0]![0]!;
+    return Math.sqrt(Math.max(cov[p + j]![p + j]! + after, 0));
+  });
+  return { covariance, std: covariance.map((row, i) => Math.sqrt(Math.max(row[i]!, 0))), predictStd };
+}
+
+/** Validated inputs of {@link polynomialNoiseCovariance}. */
+function readInputs(t: ArrayLike<number>, options: PolynomialNoiseOptions) {
   if (!t || typeof t.length !== 'number') throw new InvalidArgumentError('t', t, 'an array of epochs in seconds');
   if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an options object { degree, referenceTime, q, ... }');
   const degree = options.degree;
@@ -68,43 +112,42 @@ export function polynomialNoiseCovariance(t: ArrayLike<number>, options: Polynom
   const tt = new Float64Array(n);
   for (let k = 0; k < n; k++) {
     tt[k] = requireFinite(`t[${k}]`, t[k], 'a finite epoch in seconds');
-    if (k > 0 && !((tt[k] as number) > (tt[k - 1] as number))) throw new InvalidArgumentError(`t[${k}]`, tt[k], `greater than t[${k - 1}] = ${tt[k - 1]} (strictly increasing epochs)`);
+    if (k > 0 && !(tt[k]! > tt[k - 1]!)) throw new InvalidArgumentError(`t[${k}]`, tt[k], `greater than t[${k - 1}] = ${tt[k - 1]} (strictly increasing epochs)`);
   }
   const t0 = requireFinite('options.referenceTime', options.referenceTime, 'a finite epoch in seconds');
   const q = requireDiffusion('options.q', options.q);
   const states: ClockStates = q.q3 > 0 ? 3 : 2;
   const r = options.measurementVariance === undefined ? 0 : requireNonNegative('options.measurementVariance', options.measurementVariance, 's²');
+  const last = tt[n - 1]!;
   const predict = (options.predict ?? []).map((v, i) => {
     const T = requireFinite(`options.predict[${i}]`, v, 'a finite epoch in seconds');
-    if (T < (tt[n - 1] as number)) throw new InvalidArgumentError(`options.predict[${i}]`, T, `≥ the last sample epoch ${tt[n - 1]} s (predictions after the record)`);
+    if (T < last) throw new InvalidArgumentError(`options.predict[${i}]`, T, `≥ the last sample epoch ${last} s (predictions after the record)`);
     return T;
   });
+  return { tt, degree, t0, q, states, r, predict };
+}
 
-  // Centred, scaled basis u = (t − c)/s, as in fitClockPolynomial.
-  let sum = 0;
-  for (const v of tt) sum += v;
-  const c = sum / n;
-  const s = ((tt[n - 1] as number) - (tt[0] as number)) / 2 || 1;
-  const basis = (time: number): number[] => {
-    const u = (time - c) / s;
-    return degree === 2 ? [1, u, u * u] : [1, u];
-  };
+/**
+ * The linear functionals ℓ of the data: the p coefficient rows (AᵀA)⁻¹Aᵀ in the u basis, then one row
+ * basis(T)ᵀ(AᵀA)⁻¹Aᵀ per prediction epoch T.
+ */
+function functionals(tt: Float64Array, basis: (time: number) => number[], p: number, predict: readonly number[]): Float64Array[] {
+  const n = tt.length;
   const normal: Matrix = Array.from({ length: p }, () => new Array<number>(p).fill(0));
   for (let k = 0; k < n; k++) {
-    const a = basis(tt[k] as number);
-    for (let i = 0; i < p; i++) for (let j = 0; j < p; j++) (normal[i] as number[])[j] = ((normal[i] as number[])[j] as number) + (a[i] as number) * (a[j] as number);
+    const a = basis(tt[k]!);
+    for (let i = 0; i < p; i++) for (let j = 0; j < p; j++) normal[i]![j] = normal[i]![j]! + a[i]! * a[j]!;
   }
   const ninv = inverseSpd(normal);
-  if (!ninv) throw new InvalidArgumentError('t', `${n} epochs`, `at least ${p} distinct epochs for a degree-${degree} fit`);
-  // Functionals: p coefficient rows (u basis) and one per prediction epoch.
+  if (!ninv) throw new InvalidArgumentError('t', `${n} epochs`, `at least ${p} distinct epochs for a degree-${p - 1} fit`);
   const rows: Float64Array[] = [];
   for (let i = 0; i < p; i++) rows.push(new Float64Array(n));
   for (let k = 0; k < n; k++) {
-    const a = basis(tt[k] as number);
+    const a = basis(tt[k]!);
     for (let i = 0; i < p; i++) {
       let v = 0;
-      for (let j = 0; j < p; j++) v += ((ninv[i] as number[])[j] as number) * (a[j] as number);
-      (rows[i] as Float64Array)[k] = v;
+      for (let j = 0; j < p; j++) v += ninv[i]![j]! * a[j]!;
+      rows[i]![k] = v;
     }
   }
   const predictRows = predict.map((T) => {
@@ -112,68 +155,57 @@ export function polynomialNoiseCovariance(t: ArrayLike<number>, options: Polynom
     const row = new Float64Array(n);
     for (let k = 0; k < n; k++) {
       let v = 0;
-      for (let i = 0; i < p; i++) v += (b[i] as number) * ((rows[i] as Float64Array)[k] as number);
+      for (let i = 0; i < p; i++) v += b[i]! * rows[i]![k]!;
       row[k] = v;
     }
     return row;
   });
-  const all = [...rows, ...predictRows];
+  return [...rows, ...predictRows];
+}
+
+/**
+ * Σ_i g_aᵀ Q(t_i − t_{i−1}) g_b over the samples for every pair of functionals, by the backward recursion of
+ * g_i = Σ_{k ≥ i} ℓ_k [1, t_k − t_i, (t_k − t_i)²/2] (a prediction functional subtracts [1, T − t_i, (T − t_i)²/2]).
+ * Upper triangle only; the caller completes it.
+ */
+function clockNoiseCovariance(tt: Float64Array, all: readonly Float64Array[], p: number, predict: readonly number[],
+  q: Required<ClockDiffusion>, states: ClockStates): Matrix {
+  const n = tt.length;
   const m = all.length;
-  // Backward recursion of g_i (three components) for every functional; accumulate Σ g_aᵀ Q g_b.
   const g = all.map(() => [0, 0, 0]);
   const cov: Matrix = Array.from({ length: m }, () => new Array<number>(m).fill(0));
   const targets = predict.map(() => [0, 0, 0]); // [1, T − t_i, (T − t_i)²/2] at the current i
   for (let k = n - 1; k >= 1; k--) {
     // Move the origin of g from t_{k+1} to t_k and add sample k.
-    const delta = k < n - 1 ? (tt[k + 1] as number) - (tt[k] as number) : 0;
+    const delta = k < n - 1 ? tt[k + 1]! - tt[k]! : 0;
     all.forEach((row, a) => {
-      const ga = g[a] as number[];
-      const g0 = ga[0] as number;
-      const g1 = ga[1] as number;
-      ga[2] = (ga[2] as number) + delta * g1 + (delta * delta * g0) / 2;
+      const ga = g[a]!;
+      const g0 = ga[0]!;
+      const g1 = ga[1]!;
+      ga[2] = ga[2]! + delta * g1 + (delta * delta * g0) / 2;
       ga[1] = g1 + delta * g0;
-      ga[0] = g0 + (row[k] as number);
+      ga[0] = g0 + row[k]!;
     });
     predict.forEach((T, j) => {
-      const d = T - (tt[k] as number);
+      const d = T - tt[k]!;
       targets[j] = [1, d, (d * d) / 2];
     });
-    const qk = clockProcessNoise((tt[k] as number) - (tt[k - 1] as number), q, states);
-    const eff = all.map((_, a) => {
-      const ga = (g[a] as number[]).slice(0, states);
-      if (a < p) return ga;
-      const tg = targets[a - p] as number[];
-      return ga.map((v, i) => v - (tg[i] as number));
+    const qk = clockProcessNoise(tt[k]! - tt[k - 1]!, q, states);
+    const eff = g.map((ga, a) => {
+      const head = ga.slice(0, states);
+      if (a < p) return head;
+      const tg = targets[a - p]!;
+      return head.map((v, i) => v - tg[i]!);
     });
     for (let a = 0; a < m; a++) {
+      const ea = eff[a]!;
       for (let b = a; b < m; b++) {
+        const eb = eff[b]!;
         let v = 0;
-        for (let i = 0; i < states; i++) for (let j = 0; j < states; j++) v += ((eff[a] as number[])[i] as number) * ((qk[i] as number[])[j] as number) * ((eff[b] as number[])[j] as number);
-        (cov[a] as number[])[b] = ((cov[a] as number[])[b] as number) + v;
+        for (let i = 0; i < states; i++) for (let j = 0; j < states; j++) v += ea[i]! * qk[i]![j]! * eb[j]!;
+        cov[a]![b] = cov[a]![b]! + v;
       }
     }
   }
-  for (let a = 0; a < m; a++) {
-    for (let b = a; b < m; b++) {
-      let v = 0;
-      for (let k = 0; k < n; k++) v += ((all[a] as Float64Array)[k] as number) * ((all[b] as Float64Array)[k] as number);
-      (cov[a] as number[])[b] = ((cov[a] as number[])[b] as number) + r * v;
-      (cov[b] as number[])[a] = (cov[a] as number[])[b] as number;
-    }
-  }
-  // Map the u-basis coefficient covariance to the t0 basis (as fitClockPolynomial does).
-  const delta0 = (t0 - c) / s;
-  const tm: Matrix = degree === 2
-    ? [[1, delta0, delta0 * delta0], [0, 1 / s, (2 * delta0) / s], [0, 0, 1 / (s * s)]]
-    : [[1, delta0], [0, 1 / s]];
-  const covariance: Matrix = tm.map((ri) => tm.map((rj) => {
-    let v = 0;
-    for (let k = 0; k < p; k++) for (let l = 0; l < p; l++) v += (ri[k] as number) * ((cov[k] as number[])[l] as number) * (rj[l] as number);
-    return v;
-  }));
-  const predictStd = predict.map((T, j) => {
-    const after = ((clockProcessNoise(T - (tt[n - 1] as number), q, states)[0] as number[])[0] as number);
-    return Math.sqrt(Math.max(((cov[p + j] as number[])[p + j] as number) + after, 0));
-  });
-  return { covariance, std: covariance.map((row, i) => Math.sqrt(Math.max(row[i] as number, 0))), predictStd };
+  return cov;
 }

@@ -74,6 +74,83 @@ export interface ClockPolynomial {
  * @see IS-GPS-200, §20.3.3.3.3.1 (SV clock correction polynomial af0, af1, af2) [M].
  */
 export function fitClockPolynomial(t: ArrayLike<number>, phase: ArrayLike<number>, options: ClockPolynomialOptions = {}): ClockPolynomial {
+  const { degree, tt, zz, w, t0 } = readSamples(t, phase, options);
+  const p = degree + 1;
+  const n = tt.length;
+  const v = options.variance;
+  let tMin = Infinity;
+  let tMax = -Infinity;
+  let tSum = 0;
+  for (let i = 0; i < n; i++) {
+    tMin = Math.min(tMin, tt[i]!);
+    tMax = Math.max(tMax, tt[i]!);
+    tSum += tt[i]!;
+  }
+  const distinct = countDistinctUpTo(tt, p);
+  if (distinct < p) throw new InvalidArgumentError('t', `${distinct} distinct epochs`, `at least ${p} distinct epochs for a degree-${degree} fit`);
+  const c = tSum / n;
+  const s = (tMax - tMin) / 2;
+
+  // √w-scaled design in u = (t − c)/s, columns [1, u, u²], stored by column.
+  const a = Array.from({ length: p }, () => new Float64Array(n));
+  const b = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const sw = Math.sqrt(w[i]!);
+    const u = (tt[i]! - c) / s;
+    a[0]![i] = sw;
+    a[1]![i] = sw * u;
+    if (degree === 2) a[2]![i] = sw * u * u;
+    b[i] = sw * zz[i]!;
+  }
+  const { beta, rInv } = householderLeastSquares(a, b, p);
+  // Cov_u = R⁻¹ R⁻ᵀ
+  const covU: Matrix = Array.from({ length: p }, (_, i) => Array.from({ length: p }, (_, j) => {
+    let sum = 0;
+    for (let k = 0; k < p; k++) sum += (rInv[i]![k]!) * (rInv[j]![k]!);
+    return sum;
+  }));
+  const evalU = (u: number): number => beta[0]! + beta[1]! * u + (degree === 2 ? beta[2]! * u * u : 0);
+  const residuals = new Float64Array(n);
+  let chiSquare = 0;
+  for (let i = 0; i < n; i++) {
+    const r = zz[i]! - evalU((tt[i]! - c) / s);
+    residuals[i] = r;
+    chiSquare += w[i]! * r * r;
+  }
+  const dof = n - p;
+  const reducedChiSquare = dof > 0 ? chiSquare / dof : Number.NaN;
+  const scaled = (v === undefined || options.scaleByReducedChiSquare === true) && dof > 0;
+  const factor = scaled ? reducedChiSquare : 1;
+  // Map u-basis coefficients to the t0 basis: u = (t − t0)/s + δ, δ = (t0 − c)/s.
+  // x = b0 + b1 u + b2 u² ⇒ a0 = b0 + b1 δ + b2 δ², a1 = (b1 + 2 b2 δ)/s, a2 = b2/s².
+  const delta = (t0 - c) / s;
+  const tm: Matrix = degree === 2
+    ? [[1, delta, delta * delta], [0, 1 / s, (2 * delta) / s], [0, 0, 1 / (s * s)]]
+    : [[1, delta], [0, 1 / s]];
+  const coef = tm.map((row) => row.reduce((acc, m, j) => acc + m * beta[j]!, 0));
+  const covariance: Matrix = tm.map((ri) => tm.map((rj) => {
+    let sum = 0;
+    for (let k = 0; k < p; k++) for (let l = 0; l < p; l++) sum += ri[k]! * (covU[k]![l]!) * rj[l]!;
+    return sum * factor;
+  }));
+  const predict = (time: Seconds): Seconds => evalU((requireFinite('t', time, 'a finite epoch in seconds') - c) / s);
+  const predictStd = (time: Seconds): Seconds => {
+    const u = (requireFinite('t', time, 'a finite epoch in seconds') - c) / s;
+    const g = degree === 2 ? [1, u, u * u] : [1, u];
+    let sum = 0;
+    for (let i = 0; i < p; i++) for (let j = 0; j < p; j++) sum += g[i]! * (covU[i]![j]!) * g[j]!;
+    return Math.sqrt(Math.max(sum * factor, 0));
+  };
+  return {
+    degree, referenceTime: t0,
+    coefficients: [coef[0]!, coef[1]!, degree === 2 ? coef[2]! : 0],
+    covariance, covarianceScaled: scaled, residuals, chiSquare, dof, reducedChiSquare, predict, predictStd,
+  };
+}
+
+/** Validated samples of {@link fitClockPolynomial}: epochs, phases and weights 1/σ² (1 without variances), and t0. */
+function readSamples(t: ArrayLike<number>, phase: ArrayLike<number>, options: ClockPolynomialOptions):
+  { degree: 1 | 2; tt: Float64Array; zz: Float64Array; w: Float64Array; t0: number } {
   if (!t || typeof t.length !== 'number') throw new InvalidArgumentError('t', t, 'an array of epochs in seconds');
   if (!phase || typeof phase.length !== 'number' || phase.length !== t.length) {
     throw new InvalidArgumentError('phase', phase, `an array of phases in seconds with the same length as t (${t.length})`);
@@ -92,95 +169,29 @@ export function fitClockPolynomial(t: ArrayLike<number>, phase: ArrayLike<number
     throw new InvalidArgumentError('options.variance', v, `a variance in s² or an array of ${n} variances`);
   }
   const vAll = typeof v === 'number' ? requireMeasurementVariance('options.variance', v) : undefined;
+  const vEach = typeof v === 'number' ? undefined : v;
   for (let i = 0; i < n; i++) {
     // The helpers (which build their messages) run only for a bad value.
     const ti = t[i];
     const zi = phase[i];
     tt[i] = typeof ti === 'number' && Math.abs(ti) <= MAX_ABS_PHASE_SECONDS ? ti : requirePhaseSample(`t[${i}]`, ti, false);
     zz[i] = typeof zi === 'number' && Math.abs(zi) <= MAX_ABS_PHASE_SECONDS ? zi : requirePhaseSample(`phase[${i}]`, zi, false);
-    if (v === undefined) w[i] = 1;
-    else if (vAll !== undefined) w[i] = 1 / vAll;
+    if (vAll !== undefined) w[i] = 1 / vAll;
+    else if (vEach === undefined) w[i] = 1;
     else {
-      const vi = (v as ArrayLike<number>)[i];
+      const vi = vEach[i];
       w[i] = 1 / (typeof vi === 'number' && vi >= MEASUREMENT_VARIANCE_RANGE.min && vi <= MEASUREMENT_VARIANCE_RANGE.max
         ? vi : requireMeasurementVariance(`options.variance[${i}]`, vi));
     }
   }
-  const t0 = options.referenceTime === undefined ? (tt[0] as number) : requireFinite('options.referenceTime', options.referenceTime, 'a finite epoch in seconds');
-  let tMin = Infinity;
-  let tMax = -Infinity;
-  let tSum = 0;
-  for (let i = 0; i < n; i++) {
-    tMin = Math.min(tMin, tt[i] as number);
-    tMax = Math.max(tMax, tt[i] as number);
-    tSum += tt[i] as number;
-  }
-  const distinct = countDistinctUpTo(tt, p);
-  if (distinct < p) throw new InvalidArgumentError('t', `${distinct} distinct epochs`, `at least ${p} distinct epochs for a degree-${degree} fit`);
-  const c = tSum / n;
-  const s = (tMax - tMin) / 2;
-
-  // √w-scaled design in u = (t − c)/s, columns [1, u, u²], stored by column.
-  const a = Array.from({ length: p }, () => new Float64Array(n));
-  const b = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    const sw = Math.sqrt(w[i] as number);
-    const u = ((tt[i] as number) - c) / s;
-    (a[0] as Float64Array)[i] = sw;
-    (a[1] as Float64Array)[i] = sw * u;
-    if (degree === 2) (a[2] as Float64Array)[i] = sw * u * u;
-    b[i] = sw * (zz[i] as number);
-  }
-  const { beta, rInv } = householderLeastSquares(a, b, p);
-  // Cov_u = R⁻¹ R⁻ᵀ
-  const covU: Matrix = Array.from({ length: p }, (_, i) => Array.from({ length: p }, (_, j) => {
-    let sum = 0;
-    for (let k = 0; k < p; k++) sum += ((rInv[i] as number[])[k] as number) * ((rInv[j] as number[])[k] as number);
-    return sum;
-  }));
-  const evalU = (u: number): number => (beta[0] as number) + (beta[1] as number) * u + (degree === 2 ? (beta[2] as number) * u * u : 0);
-  const residuals = new Float64Array(n);
-  let chiSquare = 0;
-  for (let i = 0; i < n; i++) {
-    const r = (zz[i] as number) - evalU(((tt[i] as number) - c) / s);
-    residuals[i] = r;
-    chiSquare += (w[i] as number) * r * r;
-  }
-  const dof = n - p;
-  const reducedChiSquare = dof > 0 ? chiSquare / dof : Number.NaN;
-  const scaled = (v === undefined || options.scaleByReducedChiSquare === true) && dof > 0;
-  const factor = scaled ? reducedChiSquare : 1;
-  // Map u-basis coefficients to the t0 basis: u = (t − t0)/s + δ, δ = (t0 − c)/s.
-  // x = b0 + b1 u + b2 u² ⇒ a0 = b0 + b1 δ + b2 δ², a1 = (b1 + 2 b2 δ)/s, a2 = b2/s².
-  const delta = (t0 - c) / s;
-  const tm: Matrix = degree === 2
-    ? [[1, delta, delta * delta], [0, 1 / s, (2 * delta) / s], [0, 0, 1 / (s * s)]]
-    : [[1, delta], [0, 1 / s]];
-  const coef = tm.map((row) => row.reduce((acc, m, j) => acc + m * (beta[j] as number), 0));
-  const covariance: Matrix = tm.map((ri) => tm.map((rj) => {
-    let sum = 0;
-    for (let k = 0; k < p; k++) for (let l = 0; l < p; l++) sum += (ri[k] as number) * ((covU[k] as number[])[l] as number) * (rj[l] as number);
-    return sum * factor;
-  }));
-  const predict = (time: Seconds): Seconds => evalU((requireFinite('t', time, 'a finite epoch in seconds') - c) / s);
-  const predictStd = (time: Seconds): Seconds => {
-    const u = (requireFinite('t', time, 'a finite epoch in seconds') - c) / s;
-    const g = degree === 2 ? [1, u, u * u] : [1, u];
-    let sum = 0;
-    for (let i = 0; i < p; i++) for (let j = 0; j < p; j++) sum += (g[i] as number) * ((covU[i] as number[])[j] as number) * (g[j] as number);
-    return Math.sqrt(Math.max(sum * factor, 0));
-  };
-  return {
-    degree, referenceTime: t0,
-    coefficients: [coef[0] as number, coef[1] as number, degree === 2 ? (coef[2] as number) : 0],
-    covariance, covarianceScaled: scaled, residuals, chiSquare, dof, reducedChiSquare, predict, predictStd,
-  };
+  const t0 = options.referenceTime === undefined ? tt[0]! : requireFinite('options.referenceTime', options.referenceTime, 'a finite epoch in seconds');
+  return { degree, tt, zz, w, t0 };
 }
 
 /** Number of distinct values in `x`, counted up to `limit` (enough to check a rank condition). */
 function countDistinctUpTo(x: Float64Array, limit: number): number {
   const seen: number[] = [];
-  for (let i = 0; i < x.length && seen.length < limit; i++) if (!seen.includes(x[i] as number)) seen.push(x[i] as number);
+  for (let i = 0; i < x.length && seen.length < limit; i++) if (!seen.includes(x[i]!)) seen.push(x[i]!);
   return seen.length;
 }
 
@@ -193,45 +204,45 @@ function householderLeastSquares(a: Float64Array[], b: Float64Array, p: number):
   const n = b.length;
   const v = new Float64Array(n);
   for (let k = 0; k < p; k++) {
-    const ak = a[k] as Float64Array;
+    const ak = a[k]!;
     let norm = 0;
-    for (let i = k; i < n; i++) norm += (ak[i] as number) ** 2;
+    for (let i = k; i < n; i++) norm += ak[i]! ** 2;
     norm = Math.sqrt(norm);
-    const akk = ak[k] as number;
+    const akk = ak[k]!;
     const alpha = akk > 0 ? -norm : norm;
     v.fill(0);
-    for (let i = k; i < n; i++) v[i] = ak[i] as number;
-    v[k] = (v[k] as number) - alpha;
+    for (let i = k; i < n; i++) v[i] = ak[i]!;
+    v[k] = v[k]! - alpha;
     let vv = 0;
-    for (let i = k; i < n; i++) vv += (v[i] as number) ** 2;
+    for (let i = k; i < n; i++) vv += v[i]! ** 2;
     if (vv === 0) continue;
     for (let j = k; j < p; j++) {
-      const aj = a[j] as Float64Array;
+      const aj = a[j]!;
       let dot = 0;
-      for (let i = k; i < n; i++) dot += (v[i] as number) * (aj[i] as number);
+      for (let i = k; i < n; i++) dot += v[i]! * aj[i]!;
       const f = (2 * dot) / vv;
-      for (let i = k; i < n; i++) aj[i] = (aj[i] as number) - f * (v[i] as number);
+      for (let i = k; i < n; i++) aj[i] = aj[i]! - f * v[i]!;
     }
     let dot = 0;
-    for (let i = k; i < n; i++) dot += (v[i] as number) * (b[i] as number);
+    for (let i = k; i < n; i++) dot += v[i]! * b[i]!;
     const f = (2 * dot) / vv;
-    for (let i = k; i < n; i++) b[i] = (b[i] as number) - f * (v[i] as number);
+    for (let i = k; i < n; i++) b[i] = b[i]! - f * v[i]!;
   }
   // Back substitution R β = Qᵀb (first p rows), and R⁻¹ (upper triangular); R[i][j] = a[j][i].
-  const r = (i: number, j: number): number => (a[j] as Float64Array)[i] as number;
+  const r = (i: number, j: number): number => a[j]![i]!;
   const beta = new Array<number>(p).fill(0);
   for (let i = p - 1; i >= 0; i--) {
-    let sum = b[i] as number;
-    for (let j = i + 1; j < p; j++) sum -= r(i, j) * (beta[j] as number);
+    let sum = b[i]!;
+    for (let j = i + 1; j < p; j++) sum -= r(i, j) * beta[j]!;
     beta[i] = sum / r(i, i);
   }
   const rInv: Matrix = Array.from({ length: p }, () => new Array<number>(p).fill(0));
   for (let j = 0; j < p; j++) {
-    (rInv[j] as number[])[j] = 1 / r(j, j);
+    rInv[j]![j] = 1 / r(j, j);
     for (let i = j - 1; i >= 0; i--) {
       let sum = 0;
-      for (let k = i + 1; k <= j; k++) sum += r(i, k) * ((rInv[k] as number[])[j] as number);
-      (rInv[i] as number[])[j] = -sum / r(i, i);
+      for (let k = i + 1; k <= j; k++) sum += r(i, k) * (rInv[k]![j]!);
+      rInv[i]![j] = -sum / r(i, i);
     }
   }
   return { beta, rInv };

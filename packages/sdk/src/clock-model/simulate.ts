@@ -90,8 +90,8 @@ export function simulateClock(options: ClockSimulationOptions): ClockSimulation 
     if (typeof j !== 'object' || j === null) throw new InvalidArgumentError(`jumps[${i}]`, j, 'an object { index, kind, size }');
     const k = requireInteger(`jumps[${i}].index`, j.index, 1, n - 1);
     const size = requireInRange(`jumps[${i}].size`, j.size, -1, 1, { unit: '(s for a phase step, dimensionless for a frequency step)' });
-    if (j.kind === 'phase') phaseJumps[k] = (phaseJumps[k] as number) + size;
-    else if (j.kind === 'frequency') frequencyJumps[k] = (frequencyJumps[k] as number) + size;
+    if (j.kind === 'phase') phaseJumps[k] = phaseJumps[k]! + size;
+    else if (j.kind === 'frequency') frequencyJumps[k] = frequencyJumps[k]! + size;
     else throw new InvalidArgumentError(`jumps[${i}].kind`, j.kind, "'phase' or 'frequency'");
   });
 
@@ -109,11 +109,11 @@ export function simulateClock(options: ClockSimulationOptions): ClockSimulation 
       const e1 = rng.normal();
       const e2 = rng.normal();
       // Φ(τ0)·s + L·e (lower-triangular L)
-      const xNew = x + tau0 * y + t2 * d + (l0[0] as number) * e0;
-      const yNew = y + tau0 * d + (l1[0] as number) * e0 + (l1[1] as number) * e1;
-      const dNew = d + (l2[0] as number) * e0 + (l2[1] as number) * e1 + (l2[2] as number) * e2;
-      x = xNew + (phaseJumps[k] as number);
-      y = yNew + (frequencyJumps[k] as number);
+      const xNew = x + tau0 * y + t2 * d + l0[0]! * e0;
+      const yNew = y + tau0 * d + l1[0]! * e0 + l1[1]! * e1;
+      const dNew = d + l2[0]! * e0 + l2[1]! * e1 + l2[2]! * e2;
+      x = xNew + phaseJumps[k]!;
+      y = yNew + frequencyJumps[k]!;
       d = dNew;
     }
     truePhase[k] = x;

@@ -101,6 +101,168 @@ interface Segment { t0: number; h: number; y0: Float64Array; F: Float64Array }
 /** Largest `maxSteps` accepted (ten million steps: minutes of work, the bound on any one call). */
 const MAX_STEPS_LIMIT = 10_000_000;
 
+/** Validated inputs of {@link integrateDop853}. */
+interface Dop853Setup {
+  readonly n: number;
+  /** Copy of y0, the state integrated in place. */
+  readonly y: Float64Array;
+  readonly rtol: number;
+  readonly atol: Float64Array;
+  readonly maxStep: number;
+  readonly maxSteps: number;
+  readonly sampleTimes: Float64Array;
+  readonly keep: boolean;
+}
+
+function setupDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<number>, tEnd: number, options: Dop853Options): Dop853Setup {
+  if (typeof f !== 'function') throw new InvalidArgumentError('f', f, 'a function (t, y, dydt) writing the derivative into dydt');
+  if (!Array.isArray(y0) && !(y0 instanceof Float64Array)) throw new InvalidArgumentError('y0', y0, 'an array of finite numbers');
+  requireOptions('options', options);
+  requireFinite('t0', t0);
+  requireFinite('tEnd', tEnd);
+  if (!(tEnd > t0)) throw new InvalidArgumentError('tEnd', tEnd, `greater than t0 = ${t0}`);
+  const n = y0.length;
+  if (n === 0) throw new InvalidArgumentError('y0', y0, 'a state with at least one component');
+  const y = new Float64Array(n);
+  for (let i = 0; i < n; i++) y[i] = requireFinite(`y0[${i}]`, y0[i]);
+  const rtol = requirePositive('relativeTolerance', options.relativeTolerance ?? 1e-12);
+  if (rtol < 1e-15) throw new InvalidArgumentError('relativeTolerance', rtol, '≥ 1e-15 (below that, rounding error dominates)');
+  const atol = new Float64Array(n);
+  const atolIn = options.absoluteTolerance ?? 1e-12;
+  if (typeof atolIn === 'number') {
+    requirePositive('absoluteTolerance', atolIn);
+    atol.fill(atolIn);
+  } else {
+    if (atolIn.length !== n) throw new InvalidArgumentError('absoluteTolerance', atolIn, `one value per state component (${n})`);
+    for (let i = 0; i < n; i++) atol[i] = requirePositive(`absoluteTolerance[${i}]`, atolIn[i]);
+  }
+  const maxStep = options.maxStep === undefined ? tEnd - t0 : requirePositive('maxStep', options.maxStep);
+  const maxSteps = requireInteger('maxSteps', options.maxSteps ?? 1_000_000, 1, MAX_STEPS_LIMIT);
+  const given = options.sampleTimes ?? [];
+  const sampleTimes = new Float64Array(given.length);
+  for (let k = 0; k < given.length; k++) {
+    const s = requireFinite(`sampleTimes[${k}]`, given[k]);
+    if (s < t0 || s > tEnd) throw new InvalidArgumentError(`sampleTimes[${k}]`, s, `within [${t0}, ${tEnd}]`);
+    if (k > 0 && !(s > sampleTimes[k - 1]!)) {
+      throw new InvalidArgumentError(`sampleTimes[${k}]`, s, `greater than sampleTimes[${k - 1}] (strictly increasing)`);
+    }
+    sampleTimes[k] = s;
+  }
+  return { n, y, rtol, atol, maxStep, maxSteps, sampleTimes, keep: options.keepDenseOutput ?? false };
+}
+
+/** The stage storage and arithmetic of one DOP853 step on an n-component state. */
+class Dop853Stages {
+  /** Stages K[0..15]; K[0] is f at the step's start, K[12] f at the new point. */
+  readonly K: Float64Array[];
+  readonly yNew: Float64Array;
+  readonly fNew: Float64Array;
+  /** Dense-output coefficients F0..F6 of the last accepted step, n each. */
+  readonly F: Float64Array;
+  functionEvaluations = 0;
+  private readonly yStage: Float64Array;
+
+  constructor(private readonly f: OdeRightHandSide, private readonly n: number) {
+    this.K = Array.from({ length: 16 }, () => new Float64Array(n));
+    this.yStage = new Float64Array(n);
+    this.yNew = new Float64Array(n);
+    this.fNew = new Float64Array(n);
+    this.F = new Float64Array(7 * n);
+  }
+
+  call(t: number, state: Float64Array, out: Float64Array): void {
+    this.f(t, state, out);
+    this.functionEvaluations++;
+  }
+
+  /** Runge–Kutta stage s: K_s = f(t + c_s h, y + h Σ_{j<s} a_sj K_j) (Hairer, Nørsett & Wanner 1993, §II.1 [M]). */
+  evaluateStage(s: number, t: number, h: number, y: Float64Array): void {
+    const { K, yStage, n } = this;
+    const a = A[s]!;
+    for (let i = 0; i < n; i++) {
+      let acc = 0;
+      for (let j = 0; j < s; j++) acc += a[j]! * K[j]![i]!;
+      yStage[i] = y[i]! + h * acc;
+    }
+    this.call(t + C[s]! * h, yStage, K[s]!);
+  }
+
+  /**
+   * The 8th-order trial step from (t, y) to tNew = t + h (yNew, fNew) and its error measure
+   * err = |h|·‖e5‖²/√(n·(‖e5‖² + 0.01‖e3‖²)) (Hairer et al. 1993, §II.10, DOP853 "err5/err3" norm);
+   * NaN when the trial point is not finite.
+   */
+  trialStep(t: number, h: number, tNew: number, y: Float64Array, atol: Float64Array, rtol: number): number {
+    const { K, yNew, fNew, n } = this;
+    // Stages 2..12.
+    for (let s = 1; s < N_STAGES; s++) this.evaluateStage(s, t, h, y);
+    for (let i = 0; i < n; i++) {
+      let acc = 0;
+      for (let j = 0; j < N_STAGES; j++) acc += B[j]! * K[j]![i]!;
+      yNew[i] = y[i]! + h * acc;
+    }
+    this.call(tNew, yNew, fNew);
+    K[12]!.set(fNew);
+    let e5sq = 0;
+    let e3sq = 0;
+    let finite = true;
+    for (let i = 0; i < n; i++) {
+      if (!Number.isFinite(yNew[i]!) || !Number.isFinite(fNew[i]!)) finite = false;
+      const sc = atol[i]! + rtol * Math.max(Math.abs(y[i]!), Math.abs(yNew[i]!));
+      let e5 = 0;
+      let e3 = 0;
+      for (let j = 0; j <= N_STAGES; j++) {
+        e5 += E5[j]! * K[j]![i]!;
+        e3 += E3[j]! * K[j]![i]!;
+      }
+      e5 /= sc;
+      e3 /= sc;
+      e5sq += e5 * e5;
+      e3sq += e3 * e3;
+    }
+    let err = 0;
+    if (e5sq > 0 || e3sq > 0) err = (h * e5sq) / Math.sqrt(n * (e5sq + 0.01 * e3sq));
+    return finite && Number.isFinite(err) ? err : Number.NaN;
+  }
+
+  /** Dense output of the accepted step from (t, y) (Hairer et al. 1993, §II.6): three extra stages, then F0..F6. */
+  denseCoefficients(t: number, h: number, y: Float64Array): void {
+    const { K, yNew, fNew, F, n } = this;
+    for (let s = 13; s < 16; s++) this.evaluateStage(s, t, h, y);
+    for (let i = 0; i < n; i++) {
+      const dy = yNew[i]! - y[i]!;
+      F[i] = dy;
+      F[n + i] = h * K[0]![i]! - dy;
+      F[2 * n + i] = 2 * dy - h * (fNew[i]! + K[0]![i]!);
+      for (let r = 0; r < 4; r++) {
+        const d = D[r]!;
+        let acc = 0;
+        for (let j = 0; j < 16; j++) acc += d[j]! * K[j]![i]!;
+        F[(3 + r) * n + i] = h * acc;
+      }
+    }
+  }
+}
+
+/** The dense-output evaluator of a result: binary search of the kept segments, then the step's interpolant. */
+function denseEvaluator(segments: readonly Segment[], keep: boolean, t0: number, tEnd: number, n: number) {
+  return (time: number, out: Float64Array = new Float64Array(n)): Float64Array => {
+    if (!keep) throw new InvalidArgumentError('keepDenseOutput', false, 'true to evaluate the solution between steps');
+    requireFinite('t', time);
+    if (time < t0 || time > tEnd) throw new InvalidArgumentError('t', time, `within the integrated span [${t0}, ${tEnd}]`);
+    let lo = 0;
+    let hi = segments.length - 1;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (segments[mid]!.t0 <= time) lo = mid;
+      else hi = mid - 1;
+    }
+    const seg = segments[lo]!;
+    denseEvaluate(seg.y0, seg.F, (time - seg.t0) / seg.h, n, out, 0);
+    return out;
+  };
+}
+
 /**
  * Integrates y' = f(t, y) from t0 to tEnd (tEnd > t0) with the Dormand–Prince 8(5,3) pair and
  * adaptive step size; the state can be sampled at given times through the 7th-order dense output.
@@ -125,81 +287,28 @@ const MAX_STEPS_LIMIT = 10_000_000;
  */
 export function integrateDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<number>, tEnd: number,
   options: Dop853Options = {}): Dop853Result {
-  if (typeof f !== 'function') throw new InvalidArgumentError('f', f, 'a function (t, y, dydt) writing the derivative into dydt');
-  if (!Array.isArray(y0) && !(y0 instanceof Float64Array)) throw new InvalidArgumentError('y0', y0, 'an array of finite numbers');
-  requireOptions('options', options);
-  requireFinite('t0', t0);
-  requireFinite('tEnd', tEnd);
-  if (!(tEnd > t0)) throw new InvalidArgumentError('tEnd', tEnd, `greater than t0 = ${t0}`);
-  const n = y0.length;
-  if (n === 0) throw new InvalidArgumentError('y0', y0, 'a state with at least one component');
-  const y = new Float64Array(n);
-  for (let i = 0; i < n; i++) y[i] = requireFinite(`y0[${i}]`, y0[i]);
-  const rtol = requirePositive('relativeTolerance', options.relativeTolerance ?? 1e-12);
-  if (rtol < 1e-15) throw new InvalidArgumentError('relativeTolerance', rtol, '≥ 1e-15 (below that, rounding error dominates)');
-  const atol = new Float64Array(n);
-  const atolIn = options.absoluteTolerance ?? 1e-12;
-  if (typeof atolIn === 'number') {
-    requirePositive('absoluteTolerance', atolIn);
-    atol.fill(atolIn);
-  } else {
-    if (atolIn.length !== n) throw new InvalidArgumentError('absoluteTolerance', atolIn, `one value per state component (${n})`);
-    for (let i = 0; i < n; i++) atol[i] = requirePositive(`absoluteTolerance[${i}]`, atolIn[i]);
-  }
-  const span = tEnd - t0;
-  const maxStep = options.maxStep === undefined ? span : requirePositive('maxStep', options.maxStep);
-  const maxSteps = options.maxSteps ?? 1_000_000;
-  requireInteger('maxSteps', maxSteps, 1, MAX_STEPS_LIMIT);
-  const sampleTimes = options.sampleTimes ?? [];
-  for (let k = 0; k < sampleTimes.length; k++) {
-    const s = requireFinite(`sampleTimes[${k}]`, sampleTimes[k]);
-    if (s < t0 || s > tEnd) throw new InvalidArgumentError(`sampleTimes[${k}]`, s, `within [${t0}, ${tEnd}]`);
-    if (k > 0 && !(s > (sampleTimes[k - 1] as number))) {
-      throw new InvalidArgumentError(`sampleTimes[${k}]`, s, `greater than sampleTimes[${k - 1}] (strictly increasing)`);
-    }
-  }
+  const { n, y, rtol, atol, maxStep, maxSteps, sampleTimes, keep } = setupDop853(f, t0, y0, tEnd, options);
   const samples = new Float64Array(sampleTimes.length * n);
-  const keep = options.keepDenseOutput ?? false;
   const segments: Segment[] = [];
-
-  // Stage storage: K[0..15]; K[12] holds f(t + h, y_new).
-  const K: Float64Array[] = Array.from({ length: 16 }, () => new Float64Array(n));
-  const yStage = new Float64Array(n);
-  const yNew = new Float64Array(n);
-  const fNew = new Float64Array(n);
-  let nfev = 0;
-  const call = (t: number, state: Float64Array, out: Float64Array): void => {
-    f(t, state, out);
-    nfev++;
-  };
-
+  const stages = new Dop853Stages(f, n);
+  const { K, yNew, fNew, F } = stages;
+  const f0 = K[0]!;
   let t = t0;
-  call(t, y, K[0]!);
-  checkFinite(K[0]!, t, 'dy/dt at the initial state');
+  stages.call(t, y, f0);
+  checkFinite(f0, t, 'dy/dt at the initial state');
+  const span = tEnd - t0;
   let h = options.initialStep !== undefined ? requirePositive('initialStep', options.initialStep)
-    : startingStep(call, t, y, K[0]!, atol, rtol, span, n);
+    : startingStep((time, state, out) => stages.call(time, state, out), t, y, f0, atol, rtol, span, n);
   h = Math.min(h, maxStep, span);
   let accepted = 0;
   let rejected = 0;
   let nextSample = 0;
   // Samples at exactly t0.
-  while (nextSample < sampleTimes.length && (sampleTimes[nextSample] as number) === t0) {
+  while (nextSample < sampleTimes.length && sampleTimes[nextSample]! === t0) {
     samples.set(y, nextSample * n);
     nextSample++;
   }
   let rejectedLast = false;
-  const F = new Float64Array(7 * n);
-  /** Runge–Kutta stage s: K_s = f(t + c_s h, y + h Σ_{j<s} a_sj K_j) (Hairer, Nørsett & Wanner 1993, §II.1 [M]). */
-  const evaluateStage = (s: number, tStep: number, hStep: number): void => {
-    const a = A[s]!;
-    for (let i = 0; i < n; i++) {
-      let acc = 0;
-      for (let j = 0; j < s; j++) acc += a[j]! * K[j]![i]!;
-      yStage[i] = y[i]! + hStep * acc;
-    }
-    call(tStep + C[s]! * hStep, yStage, K[s]!);
-  };
-
   while (t < tEnd) {
     if (accepted + rejected >= maxSteps) throw new ConvergenceError(`DOP853 integration to t = ${tEnd}`, accepted + rejected, tEnd - t);
     const minStep = 10 * Math.abs(Math.max(Math.abs(t), Math.abs(tEnd))) * Number.EPSILON;
@@ -209,37 +318,9 @@ export function integrateDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<n
       h = tEnd - t;
       last = true;
     }
-    // Stages 2..12.
-    for (let s = 1; s < N_STAGES; s++) evaluateStage(s, t, h);
-    for (let i = 0; i < n; i++) {
-      let acc = 0;
-      for (let j = 0; j < N_STAGES; j++) acc += B[j]! * K[j]![i]!;
-      yNew[i] = y[i]! + h * acc;
-    }
     const tNew = last ? tEnd : t + h;
-    call(tNew, yNew, fNew);
-    K[12]!.set(fNew);
-    // Error estimate (Hairer et al. 1993, §II.10, DOP853 "err5/err3" norm).
-    let e5sq = 0;
-    let e3sq = 0;
-    let finite = true;
-    for (let i = 0; i < n; i++) {
-      if (!Number.isFinite(yNew[i]!) || !Number.isFinite(fNew[i]!)) finite = false;
-      const sc = atol[i]! + rtol * Math.max(Math.abs(y[i]!), Math.abs(yNew[i]!));
-      let e5 = 0;
-      let e3 = 0;
-      for (let j = 0; j <= N_STAGES; j++) {
-        e5 += E5[j]! * K[j]![i]!;
-        e3 += E3[j]! * K[j]![i]!;
-      }
-      e5 /= sc;
-      e3 /= sc;
-      e5sq += e5 * e5;
-      e3sq += e3 * e3;
-    }
-    let err = 0;
-    if (e5sq > 0 || e3sq > 0) err = (h * e5sq) / Math.sqrt(n * (e5sq + 0.01 * e3sq));
-    if (!finite || !Number.isFinite(err)) {
+    const err = stages.trialStep(t, h, tNew, y, atol, rtol);
+    if (Number.isNaN(err)) {
       // A non-finite trial point: retry with a much smaller step before giving up.
       rejected++;
       rejectedLast = true;
@@ -253,32 +334,18 @@ export function integrateDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<n
       h *= Math.max(MIN_FACTOR, SAFETY * err ** -ERROR_EXPONENT);
       continue;
     }
-    // Accepted. Dense output when needed (Hairer et al. 1993, §II.6): three extra stages.
-    const needDense = keep || (nextSample < sampleTimes.length && (sampleTimes[nextSample] as number) <= tNew);
-    if (needDense) {
-      for (let s = 13; s < 16; s++) evaluateStage(s, t, h);
-      for (let i = 0; i < n; i++) {
-        const dy = yNew[i]! - y[i]!;
-        F[i] = dy;
-        F[n + i] = h * K[0]![i]! - dy;
-        F[2 * n + i] = 2 * dy - h * (fNew[i]! + K[0]![i]!);
-        for (let r = 0; r < 4; r++) {
-          const d = D[r]!;
-          let acc = 0;
-          for (let j = 0; j < 16; j++) acc += d[j]! * K[j]![i]!;
-          F[(3 + r) * n + i] = h * acc;
-        }
-      }
-      while (nextSample < sampleTimes.length && (sampleTimes[nextSample] as number) <= tNew) {
-        const x = ((sampleTimes[nextSample] as number) - t) / h;
-        denseEvaluate(y, F, x, n, samples, nextSample * n);
+    // Accepted. Dense output when a sample falls in the step or the caller keeps it.
+    if (keep || (nextSample < sampleTimes.length && sampleTimes[nextSample]! <= tNew)) {
+      stages.denseCoefficients(t, h, y);
+      while (nextSample < sampleTimes.length && sampleTimes[nextSample]! <= tNew) {
+        denseEvaluate(y, F, (sampleTimes[nextSample]! - t) / h, n, samples, nextSample * n);
         nextSample++;
       }
       if (keep) segments.push({ t0: t, h, y0: Float64Array.from(y), F: Float64Array.from(F) });
     }
     t = tNew;
     y.set(yNew);
-    K[0]!.set(fNew);
+    f0.set(fNew);
     accepted++;
     options.onStep?.(t, y);
     const factor = Math.min(MAX_FACTOR, Math.max(MIN_FACTOR, SAFETY * (err === 0 ? Infinity : err ** -ERROR_EXPONENT)));
@@ -286,33 +353,14 @@ export function integrateDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<n
     rejectedLast = false;
   }
   // Samples exactly at tEnd that rounding may have left.
-  while (nextSample < sampleTimes.length) {
-    samples.set(y, nextSample * n);
-    nextSample++;
-  }
-
-  const finalState = Float64Array.from(y);
+  for (; nextSample < sampleTimes.length; nextSample++) samples.set(y, nextSample * n);
   return {
-    finalState,
+    finalState: Float64Array.from(y),
     samples,
     acceptedSteps: accepted,
     rejectedSteps: rejected,
-    functionEvaluations: nfev,
-    evaluate(time: number, out: Float64Array = new Float64Array(n)): Float64Array {
-      if (!keep) throw new InvalidArgumentError('keepDenseOutput', false, 'true to evaluate the solution between steps');
-      requireFinite('t', time);
-      if (time < t0 || time > tEnd) throw new InvalidArgumentError('t', time, `within the integrated span [${t0}, ${tEnd}]`);
-      let lo = 0;
-      let hi = segments.length - 1;
-      while (lo < hi) {
-        const mid = (lo + hi + 1) >> 1;
-        if (segments[mid]!.t0 <= time) lo = mid;
-        else hi = mid - 1;
-      }
-      const seg = segments[lo]!;
-      denseEvaluate(seg.y0, seg.F, (time - seg.t0) / seg.h, n, out, 0);
-      return out;
-    },
+    functionEvaluations: stages.functionEvaluations,
+    evaluate: denseEvaluator(segments, keep, t0, tEnd, n),
   };
 }
 

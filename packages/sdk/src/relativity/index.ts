@@ -16,6 +16,7 @@ export {
 export {
   type ProperTimeOptions, type ProperTimeResult, MAX_PROPER_TIME_SAMPLES, integrateProperTime, properTimeSampleState,
 } from './proper-time.js';
+export { boundStateCheck, type BoundStateCheck, type BoundStateOptions } from './bound-state.js';
 export {
   type J2PeriodicAmplitudes, type SemiMajorAxisKind, type J2RateBreakdown, j2ResidualPeriodicTerm, j2TotalPeriodicTerm,
   j2PeriodicAmplitudes, osculatingMinusMeanSemiMajorAxis, j2SecularClockRate, j2SecularClockRateFromState, J2_ANALYTIC_MIN_PERIGEE_RADIUS, J2_AVERAGING_ORBITS,

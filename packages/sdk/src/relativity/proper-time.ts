@@ -14,13 +14,15 @@ import type { Seconds, Vector3 } from '../units.js';
 import { DEFAULT_CONSTANT_SET, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
 import { InvalidArgumentError, OutOfDomainError } from '../errors.js';
 import {
-  requireConstantSet, requireFinite, requireInRange, requireObject, requireOptions, requireOrbitRadius, requirePositive, requireVector3,
+  requireConstantSet, requireInRange, requireObject, requireOptions, requireOrbitRadius, requirePositive, requireVector3,
 } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 import { integrateDop853 } from '../orbit/integrator.js';
 import { createGravityField, GRAVITY_MODELS, type GravityModel } from '../orbit/forces.js';
 import { LOW_PRECISION_EPHEMERIS_NAME, moonPositionAt } from '../orbit/ephemeris.js';
 import { MOON_MEAN_RADIUS } from './reference-clocks.js';
+import { requireInstant, type Instant } from '../time/instant.js';
+import { J2000_EPOCH, ttSecondsSinceJ2000 } from '../time/j2000.js';
 
 /** Largest number of output samples one call may return. */
 export const MAX_PROPER_TIME_SAMPLES = 10_000_000;
@@ -31,8 +33,12 @@ export interface ProperTimeOptions {
   model?: GravityModel;
   /** Earth constants (GM, J2, a_e, L_G); default IERS 2010. */
   constants?: ConstantSet;
-  /** TT epoch of t = 0 for the Sun/Moon positions of the `full` model, seconds since J2000.0 (default 0). */
-  epochTtSecondsSinceJ2000?: Seconds;
+  /**
+   * The instant of t = 0 (default {@link J2000_EPOCH}, 2000-01-01T12:00:00 TT): the Sun/Moon positions of the
+   * `full` model are taken at TT = epoch + t. Build it with `createTimeScales(table).parseIso(text, 'TT')` or
+   * `instantFromTtSecondsSinceJ2000(seconds)`.
+   */
+  epoch?: Instant;
   /**
    * Relative tolerance of the integrator (default 1e-12). Absolute tolerances are derived from it:
    * rtol × 1 m, rtol × 1e-3 m/s and rtol × 1e-4 s for position, velocity and τ − TT.
@@ -53,8 +59,8 @@ export interface ProperTimeResult {
   readonly model: GravityModel;
   /** Name of the constant set used. */
   readonly constants: string;
-  /** TT epoch of t = 0, seconds since J2000.0 (matters only for `full`). */
-  readonly epochTtSecondsSinceJ2000: Seconds;
+  /** The instant of t = 0 (matters only for `full`). */
+  readonly epoch: Instant;
   /** Ephemeris used for `full` (empty otherwise). */
   readonly ephemeris: string;
   readonly relativeTolerance: number;
@@ -81,7 +87,7 @@ const MAX_PROPER_TIME_DURATION = 1e10;
  * @param state    Initial position (m) and velocity (m/s), geocentric, non-rotating, z along the rotation axis.
  * @param duration Span to integrate, seconds (> 0).
  * @param step     Output sample spacing, seconds (0 < step ≤ duration).
- * @param options  Model, constants, epoch, tolerance.
+ * @param options  Model, constants, epoch (an Instant), tolerance.
  * @returns Samples of τ − TT and the state.
  * @throws {InvalidArgumentError} for a non-finite state, a position inside the Earth (with a km hint),
  *   duration ≤ 0, step ≤ 0 or larger than the duration, too many samples, or an unknown model.
@@ -103,7 +109,9 @@ export function integrateProperTime(state: StateVector, duration: Seconds, step:
   if (step > duration) throw new InvalidArgumentError('step', step, `at most the duration (${duration} s)`, 'the step is the spacing of the output samples');
   const model = options.model ?? 'j2';
   if (!GRAVITY_MODELS.includes(model)) throw new InvalidArgumentError('model', model, `one of ${GRAVITY_MODELS.join(', ')}`);
-  const epoch = requireFinite('epochTtSecondsSinceJ2000', options.epochTtSecondsSinceJ2000 ?? 0);
+  const epochInstant = options.epoch === undefined ? J2000_EPOCH : requireInstant('options.epoch', options.epoch);
+  // The force models and the ephemeris take TT seconds since J2000.0 as one float (internal time axis).
+  const epoch = ttSecondsSinceJ2000(epochInstant);
   const rtol = requirePositive('relativeTolerance', options.relativeTolerance ?? 1e-12);
   if (rtol < 1e-15 || rtol > 1e-6) throw new InvalidArgumentError('relativeTolerance', rtol, 'in [1e-15, 1e-6]');
 
@@ -169,7 +177,7 @@ export function integrateProperTime(state: StateVector, duration: Seconds, step:
     states,
     model,
     constants: constants.name,
-    epochTtSecondsSinceJ2000: epoch,
+    epoch: epochInstant,
     ephemeris: model === 'full' ? LOW_PRECISION_EPHEMERIS_NAME : '',
     relativeTolerance: rtol,
     acceptedSteps: result.acceptedSteps,

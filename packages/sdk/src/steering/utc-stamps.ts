@@ -1,5 +1,6 @@
 /**
- * UTC stamps of steering scenarios and plans, through the SDK time module: stamps are parsed
+ * UTC stamps of steering scenarios and plans, through the SDK time module (the calendar work is
+ * `time/utc-text.ts`; this file names the scenario field in errors and says how to pass a newer table): stamps are parsed
  * to {@link Instant}s with `TimeScales.parseIso`, intervals are `Instant.secondsSince` (so a
  * leap second inside the horizon counts as the SI second it is), and output instants are
  * printed with `TimeScales.formatIso`. The leap-second table is an explicit `TimeScales`
@@ -8,10 +9,10 @@
  * @internal
  */
 import { InvalidArgumentError, OutOfDomainError } from '../errors.js';
-import { BUNDLED_LEAP_SECONDS } from '../time/leap-seconds.js';
 import { isoDateOfMjd } from '../time/calendar.js';
 import type { Instant } from '../time/instant.js';
-import { createTimeScales, type TimeScales } from '../time/scales.js';
+import type { TimeScales } from '../time/scales.js';
+import { bundledTimeScales, formatUtcMilliseconds, parseUtcText } from '../time/utc-text.js';
 
 /** Options shared by every steering entry point that reads UTC stamps. */
 export interface TimeScaleOptions {
@@ -22,14 +23,6 @@ export interface TimeScaleOptions {
    * for later dates.
    */
   timeScales?: TimeScales;
-}
-
-let bundled: TimeScales | undefined;
-
-/** The time scales of the bundled leap-second table, built on first use. */
-function bundledTimeScales(): TimeScales {
-  bundled ??= createTimeScales(BUNDLED_LEAP_SECONDS);
-  return bundled;
 }
 
 /**
@@ -56,12 +49,6 @@ export function currentTableHint(ts: TimeScales): string {
     '{ timeScales: createTimeScales(parseLeapSecondsList(text)) } in the options (CLI: --leap-seconds <file>)';
 }
 
-/** Accepts the reduced form `hh:mm` (no seconds) that ISO 8601 and the scenario schema allow, as `hh:mm:00`. */
-function withSeconds(text: string): string {
-  const m = /^(\d{4}-\d{2}-\d{2}T\d{2}:\d{2})(Z|[+-]\d{2}:\d{2})$/.exec(text);
-  return m ? `${m[1]}:00${m[2]}` : text;
-}
-
 /**
  * Parses an ISO 8601 UTC stamp with a zone designator (`Z` or `±hh:mm`) into an Instant.
  * `23:59:60` is accepted where the table has a leap second.
@@ -74,7 +61,7 @@ export function parseUtcStamp(ts: TimeScales, field: string, text: unknown): Ins
   const expected = 'an ISO 8601 UTC date-time with a zone, e.g. "2027-02-08T06:00:00Z"';
   if (typeof text !== 'string') throw new InvalidArgumentError(field, text, expected);
   try {
-    return ts.parseIso(withSeconds(text), 'UTC');
+    return parseUtcText(ts, text);
   } catch (error) {
     if (error instanceof InvalidArgumentError) throw new InvalidArgumentError(field, text, expected, error.message);
     if (error instanceof OutOfDomainError) {
@@ -104,6 +91,5 @@ export function requireInsideTable(ts: TimeScales, field: string, received: unkn
  * second after rounding to the millisecond, otherwise with milliseconds (`...:00.250Z`).
  */
 export function formatUtcStamp(ts: TimeScales, instant: Instant): string {
-  const text = ts.formatIso(instant, { fractionDigits: 3 });
-  return text.endsWith('.000Z') ? `${text.slice(0, -5)}Z` : text;
+  return formatUtcMilliseconds(ts, instant);
 }

@@ -25,4 +25,5 @@ export {
 } from './weeks.js';
 export type { WeekSeconds, WeekSystem } from './weeks.js';
 export { createTimeScales } from './scales.js';
+export { instantFromTtSecondsSinceJ2000, J2000_EPOCH, ttSecondsSinceJ2000 } from './j2000.js';
 export type { CalendarDateTime, CalendarDateTimeInput, FormatIsoOptions, SplitDays, TimeScales } from './scales.js';

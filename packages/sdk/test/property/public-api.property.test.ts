@@ -55,6 +55,11 @@ const DOCUMENTED_NON_FINITE: Readonly<Record<string, RegExp>> = {
   // frequencyFromPhase: "y_i is NaN when x_i or x_{i+1} is missing"; toPhaseSeries keeps NaN = missing.
   frequencyFromPhase: /^result\[\d+\] = NaN$/,
   toPhaseSeries: /^result\.phase\[\d+\] = NaN$/,
+  // correctPhaseJumps: "rejected samples become NaN (missing)".
+  correctPhaseJumps: /^result\[\d+\] = NaN$/,
+  // ClockCharacterization.noise: a DiffusionInterval is "NaN when the coefficient is held at 0 or not resolved"; χ² and its
+  // probability NaN when the covariance is singular or dof = 0; the polynomial's reduced χ² NaN when dof = 0.
+  characterizeClock: /^result\.(noise\.intervals\.q\d\.(low|high|edf)|noise\.(chiSquare|chiSquareProbability)|polynomial\.reducedChiSquare) = NaN$|^result\.noise\.intervals\.q\d\.high = Infinity$/,
   // DispersionPercentile.daysToPhaseTolerance: "Infinity if never" (a zero residual never leaves the phase tolerance).
   reviewOffsets: /^result\.spacecraft\.\d+\.dispersion\.(monteCarlo\.)?percentiles\.\d+\.daysToPhaseTolerance = Infinity$/,
   // NormalizedScenario.actuator.phaseMaxStep: Infinity when the scenario sets no limit on a phase step.

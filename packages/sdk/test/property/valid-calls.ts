@@ -108,6 +108,9 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
   lagrangeDerivativeAtNode: () => [[0, 900, 1800, 2700], [1, 2, 4, 8], 1],
   lagrangeInterpolate: () => [[0, 900, 1800, 2700], [1, 2, 4, 8], 1000],
   integrateProperTime: () => [STATE, 3600, 600, { model: 'point-mass' }],
+  boundStateCheck: () => [STATE, { model: 'j2' }],
+  ttSecondsSinceJ2000: () => [Instant.fromTaiParts(536_500_800, 0.25)],
+  instantFromTtSecondsSinceJ2000: () => [8e8],
   properTimeSampleState: () => [built().properTime, 1],
   j2ResidualPeriodicTerm: () => [A, 0.96, 1, IERS_2010],
   j2TotalPeriodicTerm: () => [A, 0.96, 1, IERS_2010],
@@ -184,6 +187,9 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
   simulateClock: () => [{ samples: 64, tau0: 1, q: Q2, seed: 1, measurementNoise: 1e-11 }],
   diffusionFromStabilityRows: () => [built().rows, { states: 2 }],
   measurementNoiseFromPhase: () => [PHASE],
+  characterizeClock: () => [{ phase: PHASE, t: TIMES, tau0: 30 }, { degree: 1, measurementSigma: 1e-11, maxPasses: 1 }],
+  clockMeasurementNoise: () => [1e-11, undefined],
+  correctPhaseJumps: () => [PHASE, TIMES, [], [3]],
   polynomialNoiseCovariance: () => [TIMES.slice(0, 16), { degree: 1, referenceTime: 0, q: Q2, measurementVariance: 4e-20 }],
 };
 

@@ -5,6 +5,7 @@ import { integrateProperTime } from '../../src/relativity/proper-time.js';
 import { lunarClockRate, MOON_MEAN_RADIUS } from '../../src/relativity/reference-clocks.js';
 import { OutOfDomainError } from '../../src/errors.js';
 import type { StateVector } from '../../src/orbit/elements.js';
+import { instantFromTtSecondsSinceJ2000 } from '../../src/time/j2000.js';
 
 // Lunar GM 4.902800066e12 m³/s² (JPL DE-series value, also IERS Conventions 2010 Table 1.1 via GM_E/(M_M/M_E) [M]);
 // mean lunar radius 1737.4 km (IAU WGCCRE report [M]). Both from memory; the checks below do not depend on their last digits.
@@ -21,14 +22,14 @@ function lunarOrbiter(epoch: number, altitude: number, speed: number): StateVect
   };
 }
 const EPOCH_J2000 = 0;
-/** 2023-01-01 12:00 TT, seconds since J2000.0. */
+/** 2023-01-01 00:00 TT, seconds since J2000.0 (2000-01-01T12:00 TT + 8400.5 d). */
 const EPOCH_2023 = 725_803_200;
 const CIRCULAR_100_KM = Math.sqrt(GM_MOON / (MOON_MEAN_RADIUS + 100e3));
 
 describe('integrateProperTime (model full) on a 100 km lunar orbit', () => {
   it('integrateProperTime(lunar orbiter, 1 day, full) at 2023 takes within 1.5× the steps it takes at J2000 (tolerance 1e-13; was 122 240 vs 577 before the argument reduction)', () => {
     const steps = (epoch: number): number => integrateProperTime(lunarOrbiter(epoch, 100e3, CIRCULAR_100_KM), 86_400, 21_600,
-      { model: 'full', epochTtSecondsSinceJ2000: epoch, relativeTolerance: 1e-13 }).acceptedSteps;
+      { model: 'full', epoch: instantFromTtSecondsSinceJ2000(epoch), relativeTolerance: 1e-13 }).acceptedSteps;
     const atJ2000 = steps(EPOCH_J2000);
     const at2023 = steps(EPOCH_2023);
     expect(at2023).toBeLessThan(1.5 * atJ2000);
@@ -38,7 +39,7 @@ describe('integrateProperTime (model full) on a 100 km lunar orbit', () => {
   it('integrateProperTime(lunar orbiter, 1 day, full) converges at the tightest documented tolerance 1e-14 at 2023 and agrees with the 1e-13 run to 1e-15 s', () => {
     const state = lunarOrbiter(EPOCH_2023, 100e3, CIRCULAR_100_KM);
     const run = (rtol: number): number => {
-      const r = integrateProperTime(state, 86_400, 86_400, { model: 'full', epochTtSecondsSinceJ2000: EPOCH_2023, relativeTolerance: rtol });
+      const r = integrateProperTime(state, 86_400, 86_400, { model: 'full', epoch: instantFromTtSecondsSinceJ2000(EPOCH_2023), relativeTolerance: rtol });
       return r.tauMinusTT[r.t.length - 1]!;
     };
     expect(Math.abs(run(1e-14) - run(1e-13))).toBeLessThan(1e-15);
@@ -52,7 +53,7 @@ describe('integrateProperTime (model full) on a 100 km lunar orbit', () => {
     // cancel exactly over that span). Measured difference 0.021 µs/day [C] at the time of writing.
     const span = 27.5545 * 86_400;
     const r = integrateProperTime(lunarOrbiter(EPOCH_2023, 100e3, CIRCULAR_100_KM), span, span,
-      { model: 'full', epochTtSecondsSinceJ2000: EPOCH_2023 });
+      { model: 'full', epoch: instantFromTtSecondsSinceJ2000(EPOCH_2023) });
     const integrated = (r.tauMinusTT[r.t.length - 1]! / span) * 86_400e6;
     const analytic = lunarClockRate({ location: 'orbit', orbitRadius: MOON_MEAN_RADIUS + 100e3 }).microsecondsPerDayVsTT;
     expect(Math.abs(integrated - analytic)).toBeLessThan(0.03);
@@ -60,9 +61,9 @@ describe('integrateProperTime (model full) on a 100 km lunar orbit', () => {
 
   it('integrateProperTime(full) throws OutOfDomainError naming the time when a lunar orbit hits the Moon', () => {
     const state = lunarOrbiter(EPOCH_2023, 100e3, 500);
-    expect(() => integrateProperTime(state, 86_400, 3_600, { model: 'full', epochTtSecondsSinceJ2000: EPOCH_2023 }))
+    expect(() => integrateProperTime(state, 86_400, 3_600, { model: 'full', epoch: instantFromTtSecondsSinceJ2000(EPOCH_2023) }))
       .toThrow(OutOfDomainError);
-    expect(() => integrateProperTime(state, 86_400, 3_600, { model: 'full', epochTtSecondsSinceJ2000: EPOCH_2023 }))
+    expect(() => integrateProperTime(state, 86_400, 3_600, { model: 'full', epoch: instantFromTtSecondsSinceJ2000(EPOCH_2023) }))
       .toThrow(/hits the Moon by t = \d/);
   });
 });

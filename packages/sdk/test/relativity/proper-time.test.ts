@@ -4,6 +4,10 @@ import { integrateProperTime, properTimeSampleState } from '../../src/relativity
 import { elementsToState, type StateVector } from '../../src/orbit/elements.js';
 import { IERS_2010, L_G, SPEED_OF_LIGHT_SQUARED } from '../../src/constants.js';
 import { InvalidArgumentError, OutOfDomainError } from '../../src/errors.js';
+import { instantFromTtSecondsSinceJ2000, J2000_EPOCH, ttSecondsSinceJ2000 } from '../../src/time/j2000.js';
+import { createTimeScales } from '../../src/time/scales.js';
+import { BUNDLED_LEAP_SECONDS } from '../../src/time/leap-seconds.js';
+import type { Instant } from '../../src/time/instant.js';
 
 const DEG = Math.PI / 180;
 const GM = IERS_2010.gm;
@@ -82,10 +86,10 @@ describe('integrateProperTime: sampling, models and results', () => {
 
   it('integrateProperTime(full) names its ephemeris and stays within tens of ps of the J2 model at GPS altitude over 6 h', () => {
     const s = orbit(26_561_750, 0.01, 55);
-    const full = integrateProperTime(s, 21_600, 3600, { model: 'full', epochTtSecondsSinceJ2000: 8e8 });
+    const full = integrateProperTime(s, 21_600, 3600, { model: 'full', epoch: instantFromTtSecondsSinceJ2000(8e8) });
     const j2 = integrateProperTime(s, 21_600, 3600, { model: 'j2' });
     expect(full.ephemeris).toMatch(/Montenbruck & Gill/);
-    expect(full.epochTtSecondsSinceJ2000).toBe(8e8);
+    expect(ttSecondsSinceJ2000(full.epoch)).toBe(8e8);
     const diff = Math.abs(full.tauMinusTT[6]! - j2.tauMinusTT[6]!);
     expect(diff).toBeGreaterThan(0);
     expect(diff).toBeLessThan(1e-10);
@@ -118,10 +122,10 @@ describe('integrateProperTime: bad input', () => {
     expect(() => integrateProperTime(good, 100, 200)).toThrow(/step must be at most the duration \(100 s\)/);
     expect(() => integrateProperTime(good, 1e9, 1e-3)).toThrow(/at most 10000000 samples/);
   });
-  it('integrateProperTime rejects an unknown model, a bad tolerance and a non-finite epoch', () => {
+  it('integrateProperTime rejects an unknown model, a bad tolerance and an epoch that is not an Instant', () => {
     expect(() => integrateProperTime(good, 100, 10, { model: 'egm2008' as never })).toThrow(/model must be one of point-mass, j2, full/);
     expect(() => integrateProperTime(good, 100, 10, { relativeTolerance: 1e-3 })).toThrow(/relativeTolerance/);
-    expect(() => integrateProperTime(good, 100, 10, { epochTtSecondsSinceJ2000: Number.NaN })).toThrow(/epochTtSecondsSinceJ2000/);
+    expect(() => integrateProperTime(good, 100, 10, { epoch: 8e8 as unknown as Instant })).toThrow(/options\.epoch.*an Instant/);
   });
   it('integrateProperTime throws OutOfDomainError when the trajectory enters the Earth', () => {
     // Released at 7000 km with 1 km/s tangential speed: falls into the Earth within minutes.
@@ -140,5 +144,25 @@ describe('integrateProperTime(state, duration, step, { onProgress })', () => {
     expect(reached.every((t, k) => k === 0 || t > reached[k - 1]!)).toBe(true);
     expect(reached.at(-1)).toBe(86_400);
     expect(Array.from(r.tauMinusTT)).toEqual(Array.from(integrateProperTime(state, 86_400, 21_600, { model: 'point-mass' }).tauMinusTT));
+  });
+});
+
+describe('integrateProperTime at an Instant epoch', () => {
+  const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
+  const state = orbit(26_561_750, 0.01, 55);
+
+  it('integrateProperTime(full, { epoch: 2025-05-08T18:13:20 TT }) gives exactly the samples of the epoch 8e8 TT seconds after J2000.0 (the same instant, Python datetime [C])', () => {
+    const fromText = integrateProperTime(state, 21_600, 3600, { model: 'full', epoch: ts.parseIso('2025-05-08T18:13:20', 'TT') });
+    const fromSeconds = integrateProperTime(state, 21_600, 3600, { model: 'full', epoch: instantFromTtSecondsSinceJ2000(8e8) });
+    expect(Array.from(fromText.tauMinusTT)).toEqual(Array.from(fromSeconds.tauMinusTT));
+    expect(Array.from(fromText.states)).toEqual(Array.from(fromSeconds.states));
+    expect(fromText.epoch.equals(fromSeconds.epoch)).toBe(true);
+  });
+
+  it('integrateProperTime without an epoch starts at J2000_EPOCH (2000-01-01T12:00:00 TT) and returns it', () => {
+    const byDefault = integrateProperTime(state, 7200, 3600, { model: 'full' });
+    const explicit = integrateProperTime(state, 7200, 3600, { model: 'full', epoch: J2000_EPOCH });
+    expect(byDefault.epoch).toBe(J2000_EPOCH);
+    expect(Array.from(byDefault.tauMinusTT)).toEqual(Array.from(explicit.tauMinusTT));
   });
 });
