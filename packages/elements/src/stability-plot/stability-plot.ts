@@ -4,28 +4,17 @@ import { baseStyles, plotStyles } from '../internal/styles.js';
 import { stabilityPlotStyles } from './stability-plot.styles.js';
 import { DEFAULT_MIN_TERMS, normaliseStability, type StabilityColumns, type StabilitySet } from './stability-data.js';
 import {
-  SHAPES, decadeTicks, deviationExtent, drawRightAxis, drawSeries, type PlotShape,
+  SHAPES, decadeTicks, drawRightAxis, drawSeries, type PlotShape,
 } from './stability-draw.js';
 import { renderStabilityTable, renderTableUnits, rowStarts, rowWindow } from './stability-table.js';
-import { drawAxes, sizeCanvas, type AxisStyle, type Frame } from '../internal/canvas.js';
-import { logScale, logTicks, type Scale } from '../internal/scale.js';
+import { drawAxes, sizeCanvas, type AxisStyle } from '../internal/canvas.js';
+import { logTicks } from '../internal/scale.js';
+import { isTimeStatistic, scaleOf, stabilityScales, type StabilityScales } from './stability-layout.js';
 import { formatDuration, formatFraction, formatNumber, formatOffsetAuto } from '../internal/format.js';
 import { lowerBound } from '../internal/decimate.js';
 import { warnOnce } from '../internal/warn.js';
 
 export type { StabilityColumns };
-
-/**
- * Statistics whose deviation is a time deviation σ_x in seconds (W. J. Riley, NIST SP 1065
- * (2008), TDEV σ_x(τ) = (τ/√3)·MDEV(τ), physics-refs §10 [M for the section]; TTOTDEV is its total
- * variant). Every other statistic is a dimensionless fractional-frequency deviation σ_y.
- */
-const TIME_STATISTICS: ReadonlySet<string> = new Set(['tdev', 'ttotdev']);
-
-/** True when `statistic` is a time deviation in seconds rather than a dimensionless σ_y. */
-function isTimeStatistic(statistic: string): boolean {
-  return TIME_STATISTICS.has(statistic.toLowerCase());
-}
 
 /** Axis titles; the time axis title is the one a T&F engineer expects beside seconds. */
 const FREQUENCY_AXIS_TITLE = 'Deviation (dimensionless)';
@@ -46,16 +35,6 @@ function statLabel(name: string): string {
 /** Short name for table rows: `OADEV`, `TDEV`, or the name as given. */
 function statCode(name: string): string {
   return LABELS[name] ? name.toUpperCase() : name;
-}
-
-/** The plot's scales: τ, one y scale per quantity (null when absent), and where the time axis sits. */
-interface StabilityScales {
-  sx: Scale;
-  /** Dimensionless σ_y axis (left), null when only time deviations are shown. */
-  syFrequency: Scale | null;
-  /** Time-deviation axis in seconds: right when σ_y is also shown, else left; null without TDEV. */
-  syTime: Scale | null;
-  frame: Frame;
 }
 
 /** Hover search looks at most this many points per series near the pointer (dense series are sampled). */
@@ -342,44 +321,30 @@ export class TaulineStabilityPlot extends PlotElement {
     const ctx = sizeCanvas(canvas, w, h);
     if (!ctx) return;
     const shown = this._shown;
-    const series = shown.map((x) => x.s);
     const withIntervals = !this.noIntervals;
-    const freqExtent = deviationExtent(series.filter((s) => !isTimeStatistic(s.statistic)), withIntervals);
-    const timeExtent = deviationExtent(series.filter((s) => isTimeStatistic(s.statistic)), withIntervals);
-    if (!freqExtent && !timeExtent) { this._scales = null; return; }
-    const dual = freqExtent !== null && timeExtent !== null;
-    // Left margin: rotated title (≈ 16 px) + gap + tick labels such as "1e−13" (≈ 40 px) + tick gap.
-    const frame: Frame = { left: 70, top: 8, width: Math.max(10, w - (dual ? 140 : 82)), height: Math.max(10, h - 60) };
-    let t0 = Infinity, t1 = -Infinity;
-    for (const s of series) { t0 = Math.min(t0, s.tau[0]!); t1 = Math.max(t1, s.tau[s.tau.length - 1]!); }
-    if (!(t1 > t0)) { t0 /= 3; t1 *= 3; }
-    const padX = (Math.log10(t1) - Math.log10(t0)) * 0.06;
-    const sx = logScale(t0 / 10 ** padX, t1 * 10 ** padX, frame.left, frame.left + frame.width);
-    const yScale = (e: [number, number] | null): Scale | null => {
-      if (!e) return null;
-      const pad = (Math.log10(e[1]) - Math.log10(e[0])) * 0.08;
-      return logScale(e[0] / 10 ** pad, e[1] * 10 ** pad, frame.top + frame.height, frame.top);
-    };
-    const syFrequency = yScale(freqExtent), syTime = yScale(timeExtent);
-    this._scales = { sx, syFrequency, syTime, frame };
+    const scales = stabilityScales(shown.map((x) => x.s), withIntervals, w, h);
+    this._scales = scales;
+    if (!scales) return;
+    const { sx, syFrequency, syTime, frame, frequencyExtent, timeExtent, tauRange: [t0, t1] } = scales;
     const xt = logTicks(sx.domain[0], sx.domain[1]);
     const xTicks = (xt.length >= 2 ? xt : [t0, t1]).map((v) => ({ value: v, label: `${formatNumber(v, 3)} s` }));
     const style: AxisStyle = { text: colors.text, muted: colors.muted, grid: colors.grid, font: colors.font };
     // The left axis is σ_y when there is any, else the time deviation; a second quantity goes right.
-    const leftScale = (syFrequency ?? syTime)!, leftExtent = (freqExtent ?? timeExtent)!;
-    drawAxes(ctx, frame, sx, leftScale, xTicks, decadeTicks(leftScale, leftExtent), style,
-      { x: 'Averaging time τ', y: syFrequency ? FREQUENCY_AXIS_TITLE : TIME_AXIS_TITLE });
-    if (dual) drawRightAxis(ctx, frame, syTime!, decadeTicks(syTime!, timeExtent), style, TIME_AXIS_TITLE, w);
+    const left = syFrequency && frequencyExtent ? { scale: syFrequency, extent: frequencyExtent, title: FREQUENCY_AXIS_TITLE }
+      : syTime && timeExtent ? { scale: syTime, extent: timeExtent, title: TIME_AXIS_TITLE } : null;
+    if (!left) return;
+    drawAxes(ctx, frame, sx, left.scale, xTicks, decadeTicks(left.scale, left.extent), style, { x: 'Averaging time τ', y: left.title });
+    if (syFrequency && syTime && timeExtent) drawRightAxis(ctx, frame, syTime, decadeTicks(syTime, timeExtent), style, TIME_AXIS_TITLE, w);
     ctx.save();
     ctx.beginPath();
     ctx.rect(frame.left, frame.top, frame.width, frame.height);
     ctx.clip();
     const palette = [colors.s1, colors.s2, colors.s3, colors.s4, colors.s5, colors.s6];
     for (const { k, s } of shown) {
-      const sy = isTimeStatistic(s.statistic) ? syTime : syFrequency;
+      const sy = scaleOf(scales, s.statistic);
       if (!sy) continue;
       drawSeries(ctx, s, sx, sy, frame, {
-        color: palette[k % palette.length]!, shape: SHAPES[k % SHAPES.length]!, dashed: isTimeStatistic(s.statistic),
+        color: palette[k % palette.length] ?? colors.s1, shape: SHAPES[k % SHAPES.length] ?? 'circle', dashed: isTimeStatistic(s.statistic),
         surface: colors.surface, intervals: withIntervals,
       });
     }
