@@ -1,6 +1,7 @@
 // Element fixtures built by calling the SDK on its bundled examples (packages/sdk/examples/steering/*.json,
 // invented satellites; see their SOURCE.md), so the element is tested against what the SDK really produces.
 import { planSteering, replanSteering, type ClockOffsetEstimate, type RevisedSteeringPlan, type SteeringPlan, type SteeringScenario } from '@tauline/sdk/steering';
+import { parseReviewInput, reviewOffsets, type ReviewReport } from '@tauline/sdk/review';
 
 export type ExampleName = 'orin-3-meo' | 'halcyr-g1-geo';
 
@@ -79,4 +80,11 @@ export async function captureWarnings(): Promise<{ list: Array<{ code: string; m
   const list: Array<{ code: string; message: string }> = [];
   const previous = setWarningHandler((code, message) => list.push({ code, message }));
   return { list, restore: () => setWarningHandler(previous) };
+}
+
+/** `reviewOffsets(parseReviewInput(document))` on the bundled review example `name` (packages/sdk/examples/review/). */
+export async function exampleReview(name: 'kestrel-block-a' | 'kestrel-block-b-mistakes'): Promise<ReviewReport> {
+  const r = await fetch(new URL(`../../sdk/examples/review/${name}.review.json`, import.meta.url));
+  if (!r.ok) throw new Error(`cannot load the ${name} review example: HTTP ${r.status}`);
+  return reviewOffsets(parseReviewInput(await r.json()));
 }

@@ -2,7 +2,7 @@ import { html, nothing, type PropertyValues, type TemplateResult, type PropertyD
 import { PlotElement } from '../internal/plot-element.js';
 import { baseStyles, plotStyles } from '../internal/styles.js';
 import { stabilityPlotStyles } from './stability-plot.styles.js';
-import { DEFAULT_MIN_TERMS, normaliseStability, type StabilityColumns, type StabilitySet } from './stability-data.js';
+import { DEFAULT_MIN_TERMS, normaliseStability, pointOf, type StabilityColumns, type StabilitySet } from './stability-data.js';
 import {
   SHAPES, decadeTicks, drawRightAxis, drawSeries, type PlotShape,
 } from './stability-draw.js';
@@ -179,7 +179,10 @@ export class TaulineStabilityPlot extends PlotElement {
     const s = this._shown.map((x) => x.s);
     if (s.length === 0) return 'Stability plot: no data';
     let t0 = Infinity, t1 = -Infinity;
-    for (const x of s) { t0 = Math.min(t0, x.tau[0]!); t1 = Math.max(t1, x.tau[x.tau.length - 1]!); }
+    for (const x of s) {
+      const first = x.tau[0], last = x.tau[x.tau.length - 1];
+      if (first !== undefined && last !== undefined) { t0 = Math.min(t0, first); t1 = Math.max(t1, last); }
+    }
     const part = (group: typeof s, what: string, unit: string): string => {
       let d0 = Infinity, d1 = -Infinity;
       for (const x of group) for (const d of x.deviation) { if (d < d0) d0 = d; if (d > d1) d1 = d; }
@@ -242,7 +245,7 @@ export class TaulineStabilityPlot extends PlotElement {
           <span class="swatch" aria-hidden="true"><svg width="18" height="10" viewBox="-9 -5 18 10">
             <line x1="-9" x2="9" y1="0" y2="0" stroke="var(--series-${(k % 6) + 1})" stroke-width="1.5"
               stroke-dasharray=${isTimeStatistic(s.statistic) ? '3 2' : 'none'}></line>
-            ${this._svgMarker(SHAPES[k % SHAPES.length]!, `var(--series-${(k % 6) + 1})`)}
+            ${this._svgMarker(SHAPES[k % SHAPES.length] ?? 'circle', `var(--series-${(k % 6) + 1})`)}
           </svg></span>${this._nameWithUnit(s.statistic)}</button></li>`;
       })}
     </ul>`;
@@ -272,23 +275,23 @@ export class TaulineStabilityPlot extends PlotElement {
   private _pointPosition(k: number, i: number): { x: number; y: number } | null {
     const sc = this._scales, s = this._data.series[k];
     if (!sc || !s || this._hidden.has(s.statistic)) return null;
-    const sy = isTimeStatistic(s.statistic) ? sc.syTime : sc.syFrequency;
-    if (!sy) return null;
-    return { x: sc.sx.map(s.tau[i]!), y: sy.map(s.deviation[i]!) };
+    const sy = scaleOf(sc, s.statistic), p = pointOf(s, i);
+    return sy && p ? { x: sc.sx.map(p.tau), y: sy.map(p.deviation) } : null;
   }
 
   /** Plain-text read-out of a point, with the unit of its statistic (for the live region). */
   private _readout(k: number, i: number): string {
-    const s = this._data.series[k]!;
+    const s = this._data.series[k], p = s ? pointOf(s, i) : null;
+    if (!s || !p) return '';
     const unit = isTimeStatistic(s.statistic) ? ' s' : ' (dimensionless)';
-    return `${statLabel(s.statistic)} at τ = ${formatNumber(s.tau[i]!, 5)} s: ${formatFraction(s.deviation[i]!, 4)}${unit}`;
+    return `${statLabel(s.statistic)} at τ = ${formatNumber(p.tau, 5)} s: ${formatFraction(p.deviation, 4)}${unit}`;
   }
 
   private _renderTooltip(): TemplateResult | typeof nothing {
     const h = this._hover;
     const pos = h ? this._pointPosition(h.s, h.i) : null;
-    if (!h || !pos) return nothing;
-    const s = this._data.series[h.s]!;
+    const s = h ? this._data.series[h.s] : undefined, p = h && s ? pointOf(s, h.i) : null;
+    if (!pos || !s || !p) return nothing;
     const boxW = this._size.width;
     const left = pos.x > boxW / 2 ? Math.max(0, pos.x - 200) : pos.x + 14;
     const time = isTimeStatistic(s.statistic);
@@ -296,11 +299,11 @@ export class TaulineStabilityPlot extends PlotElement {
     return html`<div part="tooltip" role="status" style="left:${left}px;top:${Math.max(0, pos.y - 60)}px">
       <strong>${this._nameWithUnit(s.statistic)}</strong>
       <dl>
-        <dt>τ</dt><dd>${formatNumber(s.tau[h.i]!, 5)} s (${formatDuration(s.tau[h.i]!)})</dd>
-        <dt>${time ? 'Time deviation' : 'Deviation'}</dt><dd>${formatFraction(s.deviation[h.i]!, 4)}${unit}${time ? ` (${formatOffsetAuto(s.deviation[h.i]!, 4)})` : ' (dimensionless)'}</dd>
-        ${s.low && s.high ? html`<dt>Interval</dt><dd>${formatFraction(s.low[h.i]!, 3)} … ${formatFraction(s.high[h.i]!, 3)}${unit}</dd>` : nothing}
-        ${s.n ? html`<dt>Terms n</dt><dd>${formatNumber(s.n[h.i]!, 6)}</dd>` : nothing}
-        ${s.noise && s.noise[h.i] ? html`<dt>Noise</dt><dd>${s.noise[h.i]}</dd>` : nothing}
+        <dt>τ</dt><dd>${formatNumber(p.tau, 5)} s (${formatDuration(p.tau)})</dd>
+        <dt>${time ? 'Time deviation' : 'Deviation'}</dt><dd>${formatFraction(p.deviation, 4)}${unit}${time ? ` (${formatOffsetAuto(p.deviation, 4)})` : ' (dimensionless)'}</dd>
+        ${p.low !== null && p.high !== null ? html`<dt>Interval</dt><dd>${formatFraction(p.low, 3)} … ${formatFraction(p.high, 3)}${unit}</dd>` : nothing}
+        ${p.n !== null ? html`<dt>Terms n</dt><dd>${formatNumber(p.n, 6)}</dd>` : nothing}
+        ${p.noise ? html`<dt>Noise</dt><dd>${p.noise}</dd>` : nothing}
       </dl>
     </div>`;
   }
@@ -415,16 +418,17 @@ export class TaulineStabilityPlot extends PlotElement {
     switch (event.key) {
       case 'ArrowRight': case 'ArrowLeft': {
         const dir = event.key === 'ArrowRight' ? 1 : -1;
-        if (!cur) { const first = drawn[0]!; next = { s: first.k, i: dir > 0 ? 0 : first.n - 1 }; break; }
-        const n = this._data.series[cur.s]!.tau.length;
+        const first = drawn[0];
+        if (!cur) { if (first) next = { s: first.k, i: dir > 0 ? 0 : first.n - 1 }; break; }
+        const n = this._data.series[cur.s]?.tau.length ?? 0;
         next = { s: cur.s, i: Math.min(n - 1, Math.max(0, cur.i + dir)) };
         break;
       }
       case 'ArrowDown': case 'ArrowUp': {
         const dir = event.key === 'ArrowDown' ? 1 : -1;
         const at = cur ? drawn.findIndex((x) => x.k === cur.s) : -1;
-        const target = drawn[Math.min(drawn.length - 1, Math.max(0, at < 0 ? 0 : at + dir))]!;
-        next = { s: target.k, i: Math.min(target.n - 1, cur?.i ?? 0) };
+        const target = drawn[Math.min(drawn.length - 1, Math.max(0, at < 0 ? 0 : at + dir))];
+        if (target) next = { s: target.k, i: Math.min(target.n - 1, cur?.i ?? 0) };
         break;
       }
       case 'Escape': next = null; break;
