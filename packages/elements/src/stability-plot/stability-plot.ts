@@ -1,4 +1,5 @@
 import { html, nothing, type PropertyValues, type TemplateResult, type PropertyDeclarations } from 'lit';
+import type { StabilityRow } from '@tauline/sdk/stability';
 import { PlotElement } from '../internal/plot-element.js';
 import { baseStyles, plotStyles } from '../internal/styles.js';
 import { stabilityPlotStyles } from './stability-plot.styles.js';
@@ -103,7 +104,7 @@ export class TaulineStabilityPlot extends PlotElement {
    * (typed arrays welcome), or the SDK's rows (`StabilityRow[]`, one per τ with `statistics`).
    * `deviation`, `low` and `high` are dimensionless, except for `tdev`/`ttotdev`: seconds.
    */
-  series?: readonly StabilityColumns[] | readonly unknown[] | null;
+  series?: readonly StabilityColumns[] | readonly StabilityRow[] | null;
 
   /** Heading shown above the plot. */
   label = 'Frequency stability';
