@@ -1,7 +1,10 @@
-// Element fixtures built by calling the SDK on its bundled examples (packages/sdk/examples/steering/*.json,
-// invented satellites; see their SOURCE.md), so the element is tested against what the SDK really produces.
+// Element fixtures built by calling the SDK on its bundled examples (packages/sdk/examples/*: steering scenarios,
+// review documents, a clock phase record; invented satellites, see their SOURCE.md), so the elements are tested
+// against what the SDK really produces.
 import { planSteering, replanSteering, type ClockOffsetEstimate, type RevisedSteeringPlan, type SteeringPlan, type SteeringScenario } from '@tauline/sdk/steering';
 import { parseReviewInput, reviewOffsets, type ReviewReport } from '@tauline/sdk/review';
+import { analyzeStability, type StabilityRow } from '@tauline/sdk/stability';
+import { parsePhaseText } from '@tauline/sdk/io';
 
 export type ExampleName = 'orin-3-meo' | 'halcyr-g1-geo';
 
@@ -87,4 +90,15 @@ export async function exampleReview(name: 'kestrel-block-a' | 'kestrel-block-b-m
   const r = await fetch(new URL(`../../sdk/examples/review/${name}.review.json`, import.meta.url));
   if (!r.ok) throw new Error(`cannot load the ${name} review example: HTTP ${r.status}`);
   return reviewOffsets(parseReviewInput(await r.json()));
+}
+
+/**
+ * `analyzeStability` (OADEV and TDEV) of the bundled VESTRA-4 phase record (packages/sdk/examples/clock/, 4032 samples
+ * every 300 s, read with `parsePhaseText`): the SDK's rows, as the stability plot receives them.
+ */
+export async function vestraStabilityRows(): Promise<readonly StabilityRow[]> {
+  const r = await fetch(new URL('../../sdk/examples/clock/vestra-4-rafs.txt', import.meta.url));
+  if (!r.ok) throw new Error(`cannot load the VESTRA-4 example: HTTP ${r.status}`);
+  const series = parsePhaseText(await r.text(), { sourceName: 'vestra-4-rafs.txt' });
+  return analyzeStability({ phase: series.phase, tau0: series.tau0 ?? 300 }, { statistics: ['oadev', 'tdev'] }).rows;
 }
