@@ -58,7 +58,7 @@ export class ViewController implements ReactiveController {
     return this._gesture?.moved === true && this._pointers.size > 0;
   }
 
-  /** New data: sets the full span; keeps the current span when it still lies inside it (the user's zoom survives updates). */
+  /** New data: sets the full span; keeps the current span while it lies inside it (a zoom survives updates). */
   setDomain(full: Span | null): void {
     this._full = full;
     if (!full) this._view = null;
@@ -170,7 +170,7 @@ export class ViewController implements ReactiveController {
     return this._pointers.size > 0;
   }
 
-  /** Wheel: a mostly horizontal delta pans, a vertical one zooms around the x under the pointer (clamped to the frame). */
+  /** Wheel: a mostly horizontal delta pans, a vertical one zooms around the x under the pointer (inside the frame). */
   wheel(deltaX: number, deltaY: number, px: number, geometry: ViewGeometry): void {
     const { frame } = geometry;
     if (Math.abs(deltaX) > Math.abs(deltaY)) {

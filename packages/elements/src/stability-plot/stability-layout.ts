@@ -46,13 +46,16 @@ export function scaleOf(scales: StabilityScales, statistic: string): Scale | nul
  * Scales for the drawn (non-empty, not hidden) `series` in a box of `width` × `height` CSS px: τ
  * padded by 6 % of its decades, each deviation axis by 8 %; null when nothing can be drawn.
  */
-export function stabilityScales(series: readonly StabilitySeries[], withIntervals: boolean, width: number, height: number): StabilityScales | null {
+export function stabilityScales(series: readonly StabilitySeries[], withIntervals: boolean, width: number,
+  height: number): StabilityScales | null {
   const frequencyExtent = deviationExtent(series.filter((s) => !isTimeStatistic(s.statistic)), withIntervals);
   const timeExtent = deviationExtent(series.filter((s) => isTimeStatistic(s.statistic)), withIntervals);
   if (!frequencyExtent && !timeExtent) return null;
   const dual = frequencyExtent !== null && timeExtent !== null;
   // Left margin: rotated title (≈ 16 px) + gap + tick labels such as "1e−13" (≈ 40 px) + tick gap.
-  const frame: Frame = { left: 70, top: 8, width: Math.max(10, width - (dual ? 140 : 82)), height: Math.max(10, height - 60) };
+  const frame: Frame = {
+    left: 70, top: 8, width: Math.max(10, width - (dual ? 140 : 82)), height: Math.max(10, height - 60),
+  };
   let t0 = Infinity, t1 = -Infinity;
   for (const s of series) {
     const first = s.tau[0], last = s.tau[s.tau.length - 1];
@@ -67,5 +70,6 @@ export function stabilityScales(series: readonly StabilitySeries[], withInterval
     const pad = (Math.log10(e[1]) - Math.log10(e[0])) * 0.08;
     return logScale(e[0] / 10 ** pad, e[1] * 10 ** pad, frame.top + frame.height, frame.top);
   };
-  return { sx, syFrequency: yScale(frequencyExtent), syTime: yScale(timeExtent), frame, frequencyExtent, timeExtent, tauRange };
+  const syFrequency = yScale(frequencyExtent), syTime = yScale(timeExtent);
+  return { sx, syFrequency, syTime, frame, frequencyExtent, timeExtent, tauRange };
 }

@@ -86,7 +86,8 @@ export function elapsed(clock: PlanClock, text: string, path: string): number {
   try {
     return clock.timeScales.parseIso(text, 'UTC').secondsSince(clock.epoch);
   } catch (error) {
-    throw new StampError(`${path} ${JSON.stringify(text)} cannot be read: ${error instanceof Error ? error.message : String(error)}`);
+    const why = error instanceof Error ? error.message : String(error);
+    throw new StampError(`${path} ${JSON.stringify(text)} cannot be read: ${why}`);
   }
 }
 
@@ -94,7 +95,8 @@ export function elapsed(clock: PlanClock, text: string, path: string): number {
  * Elapsed SI seconds from the UTC stamp `epochText` to `text` on `timeScales` (default: the
  * SDK's bundled table); NaN for a stamp the SDK refuses (malformed, or outside the table).
  */
-export function elapsedSecondsBetween(epochText: string, text: string, timeScales: TimeScales = bundledTimeScales()): number {
+export function elapsedSecondsBetween(epochText: string, text: string,
+  timeScales: TimeScales = bundledTimeScales()): number {
   try {
     return timeScales.parseIso(text, 'UTC').secondsSince(timeScales.parseIso(epochText, 'UTC'));
   } catch {
@@ -145,7 +147,8 @@ function checkTime(t: Float64Array): string | null {
  * phase tolerance, the contact windows and the manoeuvres; `plan.predicted.t` is in seconds since
  * the epoch, ascending.
  */
-export function readPlan(plan: unknown, scenario: unknown, timeScales: TimeScales = bundledTimeScales()): PlanReadResult {
+export function readPlan(plan: unknown, scenario: unknown,
+  timeScales: TimeScales = bundledTimeScales()): PlanReadResult {
   const guarded = guardPlan(plan, scenario);
   if (!guarded.ok) return { ok: false, error: describeFailure(guarded.failure) };
   const { plan: p, scenario: s, columns } = guarded.value;
@@ -156,18 +159,23 @@ export function readPlan(plan: unknown, scenario: unknown, timeScales: TimeScale
     try {
       epoch = timeScales.parseIso(s.epoch, 'UTC');
     } catch (error) {
-      return { ok: false, error: `scenario.epoch must be an ISO 8601 UTC time the time scales can read; received ${JSON.stringify(s.epoch)} ` +
+      return { ok: false, error: 'scenario.epoch must be an ISO 8601 UTC time the time scales can read; ' +
+        `received ${JSON.stringify(s.epoch)} ` +
         `(${error instanceof Error ? error.message : String(error)})` };
     }
     const clock: PlanClock = { epoch, timeScales };
     const tol = s.tolerance.phaseSeconds;
     const invalid = nonFiniteColumns(columns);
-    if (!(Number.isFinite(tol) && tol > 0)) invalid.push(`scenario.tolerance.phaseSeconds must be a positive number of seconds; received ${String(tol)}`);
+    if (!(Number.isFinite(tol) && tol > 0)) {
+      invalid.push(`scenario.tolerance.phaseSeconds must be a positive number of seconds; received ${String(tol)}`);
+    }
     const contacts = s.contacts.map((w, k) => ({
-      start: elapsed(clock, w.start, `scenario.contacts[${k}].start`), end: elapsed(clock, w.end, `scenario.contacts[${k}].end`),
+      start: elapsed(clock, w.start, `scenario.contacts[${k}].start`),
+      end: elapsed(clock, w.end, `scenario.contacts[${k}].end`),
     }));
     const maneuvers = (s.maneuvers ?? []).map((m, k) => ({
-      at: elapsed(clock, m.at, `scenario.maneuvers[${k}].at`), semiMajorAxisBefore: m.semiMajorAxisBefore, semiMajorAxisAfter: m.semiMajorAxisAfter,
+      at: elapsed(clock, m.at, `scenario.maneuvers[${k}].at`),
+      semiMajorAxisBefore: m.semiMajorAxisBefore, semiMajorAxisAfter: m.semiMajorAxisAfter,
     }));
     const view: PlanView = {
       ...clock, epochMs: chartTimeToUtcMs(clock, 0),
@@ -188,7 +196,7 @@ export function readPlan(plan: unknown, scenario: unknown, timeScales: TimeScale
 }
 
 /** One line per column holding non-finite values: count and first position. */
-function nonFiniteColumns(c: { steered: Float64Array; steeredSigma: Float64Array; unsteered: Float64Array; unsteeredSigma: Float64Array }): string[] {
+function nonFiniteColumns(c: Pick<PlanView, 'steered' | 'steeredSigma' | 'unsteered' | 'unsteeredSigma'>): string[] {
   const out: string[] = [];
   for (const [name, arr] of [['steered.phaseSeconds', c.steered], ['steered.sigmaSeconds', c.steeredSigma],
     ['unsteered.phaseSeconds', c.unsteered], ['unsteered.sigmaSeconds', c.unsteeredSigma]] as const) {
@@ -197,7 +205,9 @@ function nonFiniteColumns(c: { steered: Float64Array; steeredSigma: Float64Array
       const v = arr[i]!;
       if (v - v !== 0) { if (count === 0) first = i; count += 1; }
     }
-    if (count > 0) out.push(`plan.predicted.${name} holds ${count} non-finite value${count === 1 ? '' : 's'} (first at index ${first}: ${arr[first]})`);
+    if (count === 0) continue;
+    const values = `${count} non-finite value${count === 1 ? '' : 's'}`;
+    out.push(`plan.predicted.${name} holds ${values} (first at index ${first}: ${arr[first]})`);
   }
   return out;
 }

@@ -24,7 +24,9 @@ export interface PredictedColumns {
  * `Float64Array`s (a 10^6-point prediction is then drawn without a copy).
  */
 export type SteeringPlanInput = SteeringPlan | (Omit<SteeringPlan, 'predicted'> & {
-  readonly predicted: { readonly t: NumberColumn; readonly steered: PredictedColumns; readonly unsteered: PredictedColumns };
+  readonly predicted: {
+    readonly t: NumberColumn; readonly steered: PredictedColumns; readonly unsteered: PredictedColumns;
+  };
 });
 
 /** The first field that breaks the contract. */
@@ -123,7 +125,8 @@ export interface GuardedSteering {
 }
 
 /** Checks `plan` (a `planSteering()` result) and `scenario` (its input) field by field, up to the first wrong one. */
-export function guardPlan(plan: unknown, scenario: unknown): { ok: true; value: GuardedSteering } | { ok: false; failure: ContractFailure } {
+export function guardPlan(plan: unknown, scenario: unknown):
+  { ok: true; value: GuardedSteering } | { ok: false; failure: ContractFailure } {
   try {
     const p = object(plan, 'plan', 'the SteeringPlan returned by planSteering()');
     if (typeof p['feasible'] !== 'boolean') fail('plan.feasible', p['feasible'], 'true or false');
@@ -158,7 +161,11 @@ export function guardPlan(plan: unknown, scenario: unknown): { ok: true; value: 
         number(maneuver['semiMajorAxisAfter'], `scenario.maneuvers[${k}].semiMajorAxisAfter`, 'm');
       });
     }
-    return { ok: true, value: { plan: p as unknown as SteeringPlanInput, scenario: s as unknown as SteeringScenario, columns, commands } };
+    // Every field the element reads is checked above; the casts only name the checked objects' SDK types.
+    const value: GuardedSteering = {
+      plan: p as unknown as SteeringPlanInput, scenario: s as unknown as SteeringScenario, columns, commands,
+    };
+    return { ok: true, value };
   } catch (error) {
     if (error instanceof Mismatch) return { ok: false, failure: error.failure };
     throw error;
@@ -167,7 +174,8 @@ export function guardPlan(plan: unknown, scenario: unknown): { ok: true; value: 
 
 /** Checks `superseded` (the SDK's `revision.superseded`) and `estimates` (as given to a re-plan). */
 export function guardRevisions(superseded: unknown, estimates: unknown):
-  { ok: true; superseded: readonly SteeringCommand[]; estimates: readonly ClockOffsetEstimate[] } | { ok: false; failure: ContractFailure } {
+  | { ok: true; superseded: readonly SteeringCommand[]; estimates: readonly ClockOffsetEstimate[] }
+  | { ok: false; failure: ContractFailure } {
   try {
     const commands = superseded === undefined || superseded === null ? []
       : array(superseded, 'superseded').map((c, k) => command(c, `superseded[${k}]`));

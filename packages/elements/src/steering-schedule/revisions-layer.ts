@@ -25,13 +25,18 @@ export function readRevisions(superseded: unknown, estimates: unknown, clock: Pl
   if (!guarded.ok) return { ok: false, error: describeFailure(guarded.failure) };
   try {
     const view: RevisionView = {
-      superseded: guarded.superseded.map((c, k) => ({ executeAt: elapsed(clock, c.executeAt, `superseded[${k}].executeAt`), kind: c.kind })),
+      superseded: guarded.superseded.map((c, k) => ({
+        executeAt: elapsed(clock, c.executeAt, `superseded[${k}].executeAt`), kind: c.kind,
+      })),
       estimates: [],
     };
     for (const [k, e] of guarded.estimates.entries()) {
       const bad = !Number.isFinite(e.tSeconds) ? 'tSeconds' : !Number.isFinite(e.phaseSeconds) ? 'phaseSeconds'
         : !(Number.isFinite(e.sigmaSeconds) && e.sigmaSeconds >= 0) ? 'sigmaSeconds' : null;
-      if (bad) return { ok: false, error: `estimates[${k}].${bad} must be a finite number of seconds (σ ≥ 0); received ${String(e[bad])}` };
+      if (bad) {
+        const msg = `estimates[${k}].${bad} must be a finite number of seconds (σ ≥ 0); received ${String(e[bad])}`;
+        return { ok: false, error: msg };
+      }
       view.estimates.push({ t: e.tSeconds, phase: e.phaseSeconds, sigma: e.sigmaSeconds });
     }
     return { ok: true, view };

@@ -7,11 +7,15 @@
  * @module
  */
 import { decimateBand, decimateLine, visibleRange, type BandPolygon, type Polyline } from '../internal/decimate.js';
-import { drawAxes, fillBand, markerPath, strokePolyline, type Frame, type MarkerShape, type Tick } from '../internal/canvas.js';
+import {
+  drawAxes, fillBand, markerPath, strokePolyline, type Frame, type MarkerShape, type Tick,
+} from '../internal/canvas.js';
 import { linearScale, linearTicks, padDomain, timeTicks, type Scale } from '../internal/scale.js';
 import { formatNumber, formatTimeTick, parseTimeUnit, pickTimeUnit, type TimeUnit } from '../internal/format.js';
 import { interpolate, type PlanView, type SteeringCommandView } from './plan-data.js';
 import { drawRevisions, type RevisionMarks, type RevisionView } from './revisions-layer.js';
+
+type Ctx = CanvasRenderingContext2D;
 
 /** Plot margins inside the plot box, CSS px. */
 export const MARGIN = { left: 66, right: 14, top: 24, bottom: 50 } as const;
@@ -19,7 +23,8 @@ export const MARGIN = { left: 66, right: 14, top: 24, bottom: 50 } as const;
 /** Canvas colours (resolved from the element's custom properties) and the font. */
 export interface ScheduleColors {
   text: string; muted: string; grid: string; surface: string; accent: string; steered: string; unsteered: string;
-  uncertainty: string; tolerance: string; contact: string; maneuver: string; frequency: string; phase: string; font: string;
+  uncertainty: string; tolerance: string; contact: string; maneuver: string; frequency: string; phase: string;
+  font: string;
 }
 
 /** The scales of a drawn view: time (s since the epoch) → x, offset (s) → y, the frame and the axis unit. */
@@ -47,7 +52,10 @@ export function commandShape(c: Pick<SteeringCommandView, 'kind' | 'step'>): Mar
 
 /** The plot frame inside a box of `width` × `height` CSS px. */
 export function scheduleFrame(width: number, height: number): Frame {
-  return { left: MARGIN.left, top: MARGIN.top, width: width - MARGIN.left - MARGIN.right, height: height - MARGIN.top - MARGIN.bottom };
+  return {
+    left: MARGIN.left, top: MARGIN.top,
+    width: width - MARGIN.left - MARGIN.right, height: height - MARGIN.top - MARGIN.bottom,
+  };
 }
 
 /**
@@ -87,12 +95,13 @@ export function commandMarkers(d: PlanView, scales: ScheduleScales): CommandMark
     if (c.executeAt < x0 || c.executeAt > x1) continue;
     let yv = interpolate(d.t, d.steered, c.executeAt);
     if (!Number.isFinite(yv)) yv = 0;
-    out.push({ c: k, x: sx.map(c.executeAt), y: Math.min(frame.top + frame.height - 7, Math.max(frame.top + 7, sy.map(yv))) });
+    const y = Math.min(frame.top + frame.height - 7, Math.max(frame.top + 7, sy.map(yv)));
+    out.push({ c: k, x: sx.map(c.executeAt), y });
   }
   return out;
 }
 
-function drawTimeAxes(ctx: CanvasRenderingContext2D, d: PlanView, scales: ScheduleScales, colors: ScheduleColors): void {
+function drawTimeAxes(ctx: Ctx, d: PlanView, scales: ScheduleScales, colors: ScheduleColors): void {
   const { sx, sy, frame, unit } = scales;
   const [x0, x1] = sx.domain, [y0, y1] = sy.domain;
   // About one label per 70 px, at least four intervals, so a phone-width plot still shows a few dates.
@@ -103,14 +112,16 @@ function drawTimeAxes(ctx: CanvasRenderingContext2D, d: PlanView, scales: Schedu
   });
   const yTicks: Tick[] = linearTicks(Math.min(y0, y1), Math.max(y0, y1), Math.max(2, Math.floor(frame.height / 44)))
     .map((v) => ({ value: v, label: formatNumber(v / unit.seconds, 4) }));
-  drawAxes(ctx, frame, sx, sy, xTicks, yTicks, { text: colors.text, muted: colors.muted, grid: colors.grid, font: colors.font },
+  const style = { text: colors.text, muted: colors.muted, grid: colors.grid, font: colors.font };
+  drawAxes(ctx, frame, sx, sy, xTicks, yTicks, style,
     { x: 'UTC', y: `Clock offset (${unit.unit})` });
 }
 
-function drawContacts(ctx: CanvasRenderingContext2D, d: PlanView, { sx, frame }: ScheduleScales, colors: ScheduleColors): void {
+function drawContacts(ctx: Ctx, d: PlanView, { sx, frame }: ScheduleScales, colors: ScheduleColors): void {
   const [x0, x1] = sx.domain;
   ctx.fillStyle = colors.contact;
-  for (const [alpha, top, height] of [[0.14, frame.top, frame.height], [0.55, frame.top + frame.height - 4, 4]] as const) {
+  const layers = [[0.14, frame.top, frame.height], [0.55, frame.top + frame.height - 4, 4]] as const;
+  for (const [alpha, top, height] of layers) {
     ctx.globalAlpha = alpha;
     for (const c of d.contacts) {
       if (c.end < x0 || c.start > x1) continue;
@@ -120,7 +131,7 @@ function drawContacts(ctx: CanvasRenderingContext2D, d: PlanView, { sx, frame }:
   }
 }
 
-function drawTolerance(ctx: CanvasRenderingContext2D, tolerance: number, { sy, frame }: ScheduleScales, colors: ScheduleColors): void {
+function drawTolerance(ctx: Ctx, tolerance: number, { sy, frame }: ScheduleScales, colors: ScheduleColors): void {
   const ya = sy.map(tolerance), yb = sy.map(-tolerance);
   ctx.globalAlpha = 0.1;
   ctx.fillStyle = colors.tolerance;
@@ -136,7 +147,7 @@ function drawTolerance(ctx: CanvasRenderingContext2D, tolerance: number, { sy, f
   ctx.setLineDash([]);
 }
 
-function drawLines(ctx: CanvasRenderingContext2D, layout: ScheduleLayout, colors: ScheduleColors): void {
+function drawLines(ctx: Ctx, layout: ScheduleLayout, colors: ScheduleColors): void {
   const { sx, sy } = layout.scales;
   if (layout.band) {
     ctx.globalAlpha = 0.2;
@@ -156,7 +167,7 @@ function drawLines(ctx: CanvasRenderingContext2D, layout: ScheduleLayout, colors
 }
 
 /** Manoeuvres: dashed vertical line with a flag at the top. */
-function drawManeuvers(ctx: CanvasRenderingContext2D, d: PlanView, { sx, frame }: ScheduleScales, colors: ScheduleColors): void {
+function drawManeuvers(ctx: Ctx, d: PlanView, { sx, frame }: ScheduleScales, colors: ScheduleColors): void {
   const [x0, x1] = sx.domain;
   ctx.strokeStyle = colors.maneuver;
   ctx.fillStyle = colors.maneuver;
@@ -167,12 +178,13 @@ function drawManeuvers(ctx: CanvasRenderingContext2D, d: PlanView, { sx, frame }
     ctx.setLineDash([3, 3]);
     ctx.beginPath(); ctx.moveTo(x, frame.top); ctx.lineTo(x, frame.top + frame.height); ctx.stroke();
     ctx.setLineDash([]);
-    ctx.beginPath(); ctx.moveTo(x - 5, frame.top); ctx.lineTo(x + 5, frame.top); ctx.lineTo(x, frame.top + 6); ctx.closePath(); ctx.fill();
+    ctx.beginPath(); ctx.moveTo(x - 5, frame.top); ctx.lineTo(x + 5, frame.top); ctx.lineTo(x, frame.top + 6);
+    ctx.closePath(); ctx.fill();
   }
 }
 
 /** Manoeuvre labels (Δa in metres) above the frame. */
-function drawManeuverLabels(ctx: CanvasRenderingContext2D, d: PlanView, { sx, frame }: ScheduleScales, colors: ScheduleColors): void {
+function drawManeuverLabels(ctx: Ctx, d: PlanView, { sx, frame }: ScheduleScales, colors: ScheduleColors): void {
   const [x0, x1] = sx.domain;
   ctx.save();
   ctx.font = colors.font;
@@ -188,7 +200,7 @@ function drawManeuverLabels(ctx: CanvasRenderingContext2D, d: PlanView, { sx, fr
   ctx.restore();
 }
 
-function drawMarkers(ctx: CanvasRenderingContext2D, d: PlanView, markers: readonly CommandMarker[], colors: ScheduleColors): void {
+function drawMarkers(ctx: Ctx, d: PlanView, markers: readonly CommandMarker[], colors: ScheduleColors): void {
   ctx.lineWidth = 1.5;
   ctx.strokeStyle = colors.surface;
   for (const m of markers) {
@@ -205,7 +217,7 @@ function drawMarkers(ctx: CanvasRenderingContext2D, d: PlanView, markers: readon
  * Paints the data canvas: axes, contact windows, tolerance band, uncertainty band, unsteered and
  * steered lines, manoeuvres, command markers and the revision layer; returns what was placed.
  */
-export function drawSchedule(ctx: CanvasRenderingContext2D, d: PlanView, layout: ScheduleLayout, colors: ScheduleColors,
+export function drawSchedule(ctx: Ctx, d: PlanView, layout: ScheduleLayout, colors: ScheduleColors,
   revisions: RevisionView | null): { markers: CommandMarker[]; revisionMarks: RevisionMarks } {
   const { scales } = layout;
   const { frame, sx, sy } = scales;
@@ -222,7 +234,8 @@ export function drawSchedule(ctx: CanvasRenderingContext2D, d: PlanView, layout:
   drawMarkers(ctx, d, markers, colors);
   const [x0, x1] = sx.domain;
   const revisionMarks = revisions
-    ? drawRevisions(ctx, frame, sx, sy, [x0, x1], { t: d.t, y: d.steered }, revisions, { command: colors.frequency, estimate: colors.text })
+    ? drawRevisions(ctx, frame, sx, sy, [x0, x1], { t: d.t, y: d.steered }, revisions,
+      { command: colors.frequency, estimate: colors.text })
     : { superseded: [], estimates: [] };
   ctx.restore();
   drawManeuverLabels(ctx, d, scales, colors);
@@ -233,8 +246,9 @@ export function drawSchedule(ctx: CanvasRenderingContext2D, d: PlanView, layout:
 export type ScheduleHover = { kind: 'sample'; i: number; px: number } | { kind: 'command'; c: number; px: number };
 
 /** Paints the overlay: the hovered sample's cursor and dot, rings around the selected and hovered command markers. */
-export function drawScheduleOverlay(ctx: CanvasRenderingContext2D, d: PlanView, scales: ScheduleScales, hover: ScheduleHover | null,
-  markers: readonly CommandMarker[], selected: number, colors: Pick<ScheduleColors, 'muted' | 'steered' | 'accent'>): void {
+export function drawScheduleOverlay(ctx: Ctx, d: PlanView, scales: ScheduleScales, hover: ScheduleHover | null,
+  markers: readonly CommandMarker[], selected: number,
+  colors: Pick<ScheduleColors, 'muted' | 'steered' | 'accent'>): void {
   const { frame, sx, sy } = scales;
   const t = hover?.kind === 'sample' ? d.t[hover.i] : undefined;
   const y = hover?.kind === 'sample' ? d.steered[hover.i] : undefined;
@@ -257,7 +271,8 @@ export function drawScheduleOverlay(ctx: CanvasRenderingContext2D, d: PlanView, 
 }
 
 /** The uncertainty band steered ± k·σ (k standard deviations), as two columns. */
-export function uncertaintyBand(d: Pick<PlanView, 'steered' | 'steeredSigma'>, k: number): { low: Float64Array; high: Float64Array } {
+export function uncertaintyBand(d: Pick<PlanView, 'steered' | 'steeredSigma'>, k: number):
+  { low: Float64Array; high: Float64Array } {
   const n = d.steered.length;
   const low = new Float64Array(n), high = new Float64Array(n);
   for (let i = 0; i < n; i++) {
