@@ -3,7 +3,7 @@ import '@tauline/elements';
 
 const N = 1_000_000;
 const SPAN = 7 * 86400;
-const EPOCH = '2032-09-14T00:00:00Z';
+const EPOCH = '2026-09-14T00:00:00Z'; // inside the SDK's bundled leap-second table (the element reads stamps with it)
 const EPOCH_MS = Date.parse(EPOCH);
 const iso = (s) => new Date(EPOCH_MS + s * 1000).toISOString();
 
@@ -23,8 +23,8 @@ export function makeLargePlan(n = N) {
       fractionalFrequencyStep: (k % 2 ? -1 : 1) * 3e-14, phaseStepSeconds: -1e-9, actuatorSteps: (k % 2 ? -6 : 6), reason: 'synthetic' });
   }
   return {
-    plan: { feasible: true, commands, predicted: { t, steered: { phaseSeconds: steered, sigmaSeconds: sigma }, unsteered: { phaseSeconds: unsteered, sigmaSeconds: sigma } } },
-    scenario: { epoch: EPOCH, tolerance: { phaseSeconds: 2e-8 }, contacts: [{ start: iso(40000), end: iso(43000) }, { start: iso(300000), end: iso(304000) }], maneuvers: [{ at: iso(200000), semiMajorAxisBefore: 27_870_000, semiMajorAxisAfter: 27_882_000 }] },
+    plan: { feasible: true, commands, metrics: { commandCount: commands.length }, caution: 'Caution: synthetic stress data, not a plan.', predicted: { t, steered: { phaseSeconds: steered, sigmaSeconds: sigma }, unsteered: { phaseSeconds: unsteered, sigmaSeconds: sigma } } },
+    scenario: { epoch: EPOCH, horizonSeconds: SPAN, tolerance: { phaseSeconds: 2e-8 }, contacts: [{ start: iso(40000), end: iso(43000) }, { start: iso(300000), end: iso(304000) }], maneuvers: [{ at: iso(200000), semiMajorAxisBefore: 27_870_000, semiMajorAxisAfter: 27_882_000 }] },
   };
 }
 

@@ -1,52 +1,80 @@
-// Invented test data (no real spacecraft): a three-day steering plan on a 5-minute grid.
-export const EPOCH = '2031-04-02T00:00:00Z';
-const EPOCH_MS = Date.parse(EPOCH);
-const iso = (s: number): string => new Date(EPOCH_MS + s * 1000).toISOString();
+// Element fixtures built by calling the SDK on its bundled examples (packages/sdk/examples/*: steering scenarios,
+// review documents, a clock phase record; invented satellites, see their SOURCE.md), so the elements are tested
+// against what the SDK really produces.
+import { planSteering, replanSteering, type ClockOffsetEstimate, type RevisedSteeringPlan, type SteeringPlan, type SteeringScenario } from '@tauline/sdk/steering';
+import { parseReviewInput, reviewOffsets, type ReviewReport } from '@tauline/sdk/review';
+import { analyzeStability, type StabilityRow } from '@tauline/sdk/stability';
+import { parsePhaseText } from '@tauline/sdk/io';
 
-export interface FixturePlanOptions {
-  samples?: number;
-  spanSeconds?: number;
-}
+export type ExampleName = 'orin-3-meo' | 'halcyr-g1-geo';
 
-/** A plan shaped like the planner output: two frequency steps (one up, one down) and a phase step. */
-export function makePlan(options: FixturePlanOptions = {}) {
-  const n = options.samples ?? 865;
-  const span = options.spanSeconds ?? 3 * 86400;
-  const t = new Float64Array(n);
-  const steered = new Float64Array(n);
-  const sigma = new Float64Array(n);
-  const unsteered = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    const s = (span * i) / (n - 1);
-    t[i] = s;
-    unsteered[i] = 2e-9 + 6e-14 * s;
-    steered[i] = 2e-9 * Math.cos(s / 40000) + 1e-10 * Math.sin(s / 900);
-    sigma[i] = 3e-10 + 1e-15 * s;
+const scenarios = new Map<ExampleName, Promise<SteeringScenario>>();
+
+/** The bundled example scenario `name` (a fresh copy each call). */
+export async function exampleScenario(name: ExampleName): Promise<SteeringScenario> {
+  let pending = scenarios.get(name);
+  if (!pending) {
+    pending = fetch(new URL(`../../sdk/examples/steering/${name}.json`, import.meta.url)).then(async (r) => {
+      if (!r.ok) throw new Error(`cannot load the ${name} example: HTTP ${r.status}`);
+      return (await r.json()) as SteeringScenario;
+    });
+    scenarios.set(name, pending);
   }
-  return {
-    feasible: true,
-    commands: [
-      { uplinkAt: iso(20000), executeAt: iso(30000), kind: 'frequency', fractionalFrequencyStep: -6e-14, actuatorSteps: -6, reason: 'offset would leave the band before the next contact' },
-      { uplinkAt: iso(100000), executeAt: iso(110000), kind: 'frequency', fractionalFrequencyStep: 2e-14, actuatorSteps: 2, reason: 'trim after manoeuvre' },
-      { uplinkAt: iso(180000), executeAt: iso(190000), kind: 'phase', phaseStepSeconds: -1.5e-9, actuatorSteps: -15, reason: 'recentre phase' },
-    ],
-    predicted: { t, steered: { phaseSeconds: steered, sigmaSeconds: sigma }, unsteered: { phaseSeconds: unsteered, sigmaSeconds: sigma } },
-    metrics: { worstOffsetSeconds: 4.1e-9, probabilityInTolerance: 0.9987, commandCount: 3 },
-  };
+  return structuredClone(await pending);
 }
 
-export function makeScenario() {
-  return {
-    epoch: EPOCH,
-    horizonSeconds: 3 * 86400,
-    tolerance: { phaseSeconds: 5e-9, probability: 0.95 },
-    contacts: [
-      { start: iso(18000), end: iso(22000) },
-      { start: iso(98000), end: iso(102000) },
-      { start: iso(178000), end: iso(182000) },
-    ],
-    maneuvers: [{ at: iso(90000), semiMajorAxisBefore: 27_750_000, semiMajorAxisAfter: 27_750_180 }],
-  };
+const plans = new Map<string, { plan: SteeringPlan; scenario: SteeringScenario }>();
+
+/**
+ * `planSteering(scenario)` on the bundled example `name`, after `edit` (a variant of the example, e.g.
+ * a larger initial phase offset); a fresh deep copy each call, so a test may change it.
+ */
+export async function examplePlan(name: ExampleName, edit?: { key: string; apply: (s: SteeringScenario) => void }):
+  Promise<{ plan: SteeringPlan; scenario: SteeringScenario }> {
+  const key = `${name}|${edit?.key ?? ''}`;
+  let hit = plans.get(key);
+  if (!hit) {
+    const scenario = await exampleScenario(name);
+    edit?.apply(scenario);
+    hit = { plan: planSteering(scenario), scenario };
+    plans.set(key, hit);
+  }
+  return structuredClone(hit);
+}
+
+/** ORIN-3 (optimal planner): three frequency steps, the third one cancelling the day-4 manoeuvre. */
+export function orinPlan(): Promise<{ plan: SteeringPlan; scenario: SteeringScenario }> {
+  return examplePlan('orin-3-meo');
+}
+
+/**
+ * HALCYR-G1 (deadband, phase steps allowed) started 40 ns off: the planner removes the offset with a
+ * phase step, then cancels the frequency offset, so the plan holds both command kinds.
+ */
+export function halcyrPhasePlan(): Promise<{ plan: SteeringPlan; scenario: SteeringScenario }> {
+  return examplePlan('halcyr-g1-geo', { key: 'phase-40ns', apply: (s) => { s.clock.phaseSeconds = 40e-9; } });
+}
+
+/** Two invented ground estimates of ORIN-3's offset (seconds since the epoch, seconds, seconds). */
+export const ORIN_ESTIMATES: readonly ClockOffsetEstimate[] = [
+  { tSeconds: 20_000, phaseSeconds: 4e-9, sigmaSeconds: 3e-10 },
+  { tSeconds: 60_000, phaseSeconds: 5e-9, sigmaSeconds: 3e-10 },
+];
+
+/** ORIN-3's plan revised by `replanSteering` at 61 200 s (17:00 UTC on day 1) with {@link ORIN_ESTIMATES}. */
+export async function orinRevision(): Promise<{ plan: SteeringPlan; revised: RevisedSteeringPlan; scenario: SteeringScenario }> {
+  const { plan, scenario } = await orinPlan();
+  return { plan, scenario, revised: replanSteering(scenario, plan, ORIN_ESTIMATES, 61_200) };
+}
+
+/** Elapsed seconds from `epoch` to `stamp` by `Date.parse` (independent of the elements; no leap second between them). */
+export function secondsFrom(epoch: string, stamp: string): number {
+  return (Date.parse(stamp) - Date.parse(epoch)) / 1000;
+}
+
+/** A plan stamp as the element's table prints it: `2027-02-08T05:10:00Z` → `2027-02-08 05:10:00 UTC`. */
+export function tableStamp(stamp: string): string {
+  return stamp.replace('T', ' ').replace(/(\.\d+)?Z$/, ' UTC');
 }
 
 /** Collects warnings instead of logging them (tests must not log). */
@@ -55,4 +83,22 @@ export async function captureWarnings(): Promise<{ list: Array<{ code: string; m
   const list: Array<{ code: string; message: string }> = [];
   const previous = setWarningHandler((code, message) => list.push({ code, message }));
   return { list, restore: () => setWarningHandler(previous) };
+}
+
+/** `reviewOffsets(parseReviewInput(document))` on the bundled review example `name` (packages/sdk/examples/review/). */
+export async function exampleReview(name: 'kestrel-block-a' | 'kestrel-block-b-mistakes'): Promise<ReviewReport> {
+  const r = await fetch(new URL(`../../sdk/examples/review/${name}.review.json`, import.meta.url));
+  if (!r.ok) throw new Error(`cannot load the ${name} review example: HTTP ${r.status}`);
+  return reviewOffsets(parseReviewInput(await r.json()));
+}
+
+/**
+ * `analyzeStability` (OADEV and TDEV) of the bundled VESTRA-4 phase record (packages/sdk/examples/clock/, 4032 samples
+ * every 300 s, read with `parsePhaseText`): the SDK's rows, as the stability plot receives them.
+ */
+export async function vestraStabilityRows(): Promise<readonly StabilityRow[]> {
+  const r = await fetch(new URL('../../sdk/examples/clock/vestra-4-rafs.txt', import.meta.url));
+  if (!r.ok) throw new Error(`cannot load the VESTRA-4 example: HTTP ${r.status}`);
+  const series = parsePhaseText(await r.text(), { sourceName: 'vestra-4-rafs.txt' });
+  return analyzeStability({ phase: series.phase, tau0: series.tau0 ?? 300 }, { statistics: ['oadev', 'tdev'] }).rows;
 }

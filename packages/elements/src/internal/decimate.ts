@@ -7,7 +7,7 @@
  * Columns are laid out on the x-domain [x0, x1] split into `columns` equal slices.
  * A non-finite y breaks the line: the output carries a NaN vertex there.
  *
- * Pure functions, no DOM: tested in packages/elements/test/decimate.test.ts.
+ * Pure functions, no DOM: tested in packages/elements/test/internal/decimate.test.ts.
  *
  * @module
  */

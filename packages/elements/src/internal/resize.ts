@@ -35,7 +35,8 @@ export class ResizeController implements ReactiveController {
 
   hostConnected(): void {
     this._observer = new ResizeObserver((entries) => {
-      const box = entries[entries.length - 1]!.contentRect;
+      const box = entries[entries.length - 1]?.contentRect;
+      if (!box) return;
       const w = Math.floor(box.width), h = Math.floor(box.height);
       if (w !== this.width || h !== this.height) {
         this.width = w;

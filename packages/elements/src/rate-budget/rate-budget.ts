@@ -3,31 +3,15 @@ import { baseStyles } from '../internal/styles.js';
 import { rateBudgetStyles } from './rate-budget.styles.js';
 import { formatFraction, formatHertz, formatNumber } from '../internal/format.js';
 import { warnOnce } from '../internal/warn.js';
-import { FLIGHT_CONFIGURATION_CAUTION } from '@tauline/sdk/relativity';
+import { FLIGHT_CONFIGURATION_CAUTION, type RateBreakdown } from '@tauline/sdk/relativity';
 
 /**
- * The mean rate breakdown the element shows: the fields of the SDK's `meanClockRate(a)` result
- * (`RateBreakdown` in `@tauline/sdk`). Rates are dτ/dt − 1 (positive: the orbiting clock runs
- * fast); `factoryOffset` is the fractional offset to set on the ground so it keeps the reference rate.
+ * The mean rate breakdown the element shows: the SDK's `meanClockRate(a)` result (`RateBreakdown` of
+ * `@tauline/sdk/relativity`), of which `fractionalRate`, `gravitational` and `velocity` are required.
+ * Rates are dτ/dt − 1 (positive: the orbiting clock runs fast); `factoryOffset` is the fractional
+ * offset to set on the ground so it keeps the reference rate.
  */
-export interface RateBudgetData {
-  /** Net fractional rate vs the reference, dimensionless. */
-  readonly fractionalRate: number;
-  /** Gravitational part of the rate, dimensionless. */
-  readonly gravitational: number;
-  /** Velocity (second-order Doppler) part of the rate, dimensionless. */
-  readonly velocity: number;
-  /** `fractionalRate` in microseconds per day (optional: computed when absent). */
-  readonly microsecondsPerDay?: number;
-  /** 1/(1 + fractionalRate) − 1, dimensionless (optional: computed when absent). */
-  readonly factoryOffset?: number;
-  /** Reference clock, e.g. `'tt'`. */
-  readonly reference?: string;
-  /** Name of the constant set used. */
-  readonly constants?: string;
-  /** Semi-major axis, metres. */
-  readonly semiMajorAxis?: number;
-}
+export type RateBudgetData = Pick<RateBreakdown, 'fractionalRate' | 'gravitational' | 'velocity'> & Partial<RateBreakdown>;
 
 const SECONDS_PER_DAY = 86_400;
 
@@ -142,7 +126,7 @@ export class TaulineRateBudget extends LitElement {
     const b = this.budget;
     if (!b) return html`<div class="state">No rate budget yet.</div>`;
     const rows = this._rows(b);
-    const total = rows[rows.length - 1]!.rate!;
+    const total = b.fractionalRate + (this.j2Rate ?? 0);
     // The factory offset 1/(1+r) − 1 = −r/(1+r) splits exactly into parts −p/(1+r).
     const toOffset = (rate: number): number => -rate / (1 + total);
     const factory = toOffset(total);

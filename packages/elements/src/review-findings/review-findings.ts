@@ -4,44 +4,31 @@ import { reviewFindingsStyles } from './review-findings.styles.js';
 import { formatFraction, formatHertz, formatNumber, typographicMinus } from '../internal/format.js';
 import { warnOnce } from '../internal/warn.js';
 import { emit } from '../events.js';
+import type { Diagnosis, ReviewReport, SpacecraftFinding, Verdict } from '@tauline/sdk/review';
 
-/** Verdict of one spacecraft. */
-export type ReviewVerdict = 'pass' | 'marginal' | 'fail';
+/** Verdict of one spacecraft (the SDK's `Verdict`). */
+export type ReviewVerdict = Verdict;
 
-/** One diagnosis entry of a finding (as the SDK's launch review writes it). */
-export interface ReviewDiagnosisView {
-  readonly code: string;
-  readonly message: string;
-  /** Fractional offset the recognised mistake would have produced, or null. */
-  readonly wouldHaveProduced?: number | null;
-  /** True when the configured value matches this mistake. */
-  readonly matches?: boolean;
-}
+/**
+ * One diagnosis entry of a finding: the SDK's `Diagnosis` (`code`, `message`; `wouldHaveProduced`, the
+ * fractional offset the recognised mistake would have produced, and `matches` may be left out).
+ */
+export type ReviewDiagnosisView = Pick<Diagnosis, 'code' | 'message'> & Partial<Pick<Diagnosis, 'wouldHaveProduced' | 'matches'>>;
 
-/** One spacecraft finding (a subset of the SDK's `SpacecraftFinding`; extra fields are ignored). */
-export interface ReviewFindingView {
-  readonly id: string;
-  readonly verdict: ReviewVerdict;
-  /** Fractional offset that should be configured. */
-  readonly expectedFractionalOffset?: number;
-  /** Configured fractional offset. */
-  readonly configuredFractionalOffset?: number;
-  /** configured − expected, fractional. */
-  readonly differenceFractional?: number;
-  /** configured − expected, Hz at the nominal frequency. */
-  readonly differenceHz?: number;
-  /** configured − expected as time error, ns/day. */
-  readonly differenceNanosecondsPerDay?: number;
-  readonly summary?: string;
+/**
+ * One spacecraft finding: the fields of the SDK's `SpacecraftFinding` the element shows (`id`, `verdict`;
+ * the fractional offsets, differences in Hz and ns/day, `summary` and `diagnosis` may be left out;
+ * other fields are ignored).
+ */
+export type ReviewFindingView = Pick<SpacecraftFinding, 'id' | 'verdict'> & Partial<Pick<SpacecraftFinding,
+  'expectedFractionalOffset' | 'configuredFractionalOffset' | 'differenceFractional' | 'differenceHz' | 'differenceNanosecondsPerDay' | 'summary'>> & {
   readonly diagnosis?: readonly ReviewDiagnosisView[];
-}
+};
 
-/** The launch-review output: `{ spacecraft: [...] }`, optionally with `title` and `caution`. */
-export interface ReviewReportView {
-  readonly title?: string;
-  readonly caution?: string;
+/** The launch-review output (the SDK's `ReviewReport` from `reviewOffsets()`): `spacecraft`, optionally `title` and `caution`. */
+export type ReviewReportView = Partial<Pick<ReviewReport, 'title' | 'caution'>> & {
   readonly spacecraft: readonly ReviewFindingView[];
-}
+};
 
 /** True for a diagnosis entry the element can show: an object with a text message. */
 function isDiagnosis(d: unknown): d is ReviewDiagnosisView {
@@ -135,7 +122,8 @@ export class TaulineReviewFindings extends LitElement {
     if (dropped.length > 0) warnOnce(this, 'review-entries-dropped', dropped.join('; '));
     this._notices.unshift(...dropped);
     if (this._notices.length > dropped.length) warnOnce(this, 'invalid-diagnosis', this._notices.slice(dropped.length).join('; '));
-    if (dropped.length > 0 && this._findings.length === 0) this._problem = dropped[0]!;
+    const [firstDropped] = dropped;
+    if (firstDropped !== undefined && this._findings.length === 0) this._problem = firstDropped;
   }
 
   private _icon(verdict: ReviewVerdict): TemplateResult {

@@ -166,3 +166,20 @@ export function normaliseStability(input: unknown, minTerms = DEFAULT_MIN_TERMS)
   });
   return { series, problems, fewTerms };
 }
+
+/** One point of a statistic, with its optional columns (null where not given). */
+export interface StabilityPointView {
+  tau: number;
+  deviation: number;
+  low: number | null;
+  high: number | null;
+  n: number | null;
+  noise: string | null;
+}
+
+/** Point i of `s`, or null when i is out of range. */
+export function pointOf(s: StabilitySeries, i: number): StabilityPointView | null {
+  const tau = s.tau[i], deviation = s.deviation[i];
+  if (tau === undefined || deviation === undefined) return null;
+  return { tau, deviation, low: s.low?.[i] ?? null, high: s.high?.[i] ?? null, n: s.n?.[i] ?? null, noise: s.noise?.[i] ?? null };
+}

@@ -1,31 +1,21 @@
 import { html, nothing, type PropertyValues, type TemplateResult, type PropertyDeclarations } from 'lit';
+import type { StabilityRow } from '@tauline/sdk/stability';
 import { PlotElement } from '../internal/plot-element.js';
 import { baseStyles, plotStyles } from '../internal/styles.js';
 import { stabilityPlotStyles } from './stability-plot.styles.js';
-import { DEFAULT_MIN_TERMS, normaliseStability, type StabilityColumns, type StabilitySet } from './stability-data.js';
+import { DEFAULT_MIN_TERMS, normaliseStability, pointOf, type StabilityColumns, type StabilitySet } from './stability-data.js';
 import {
-  SHAPES, decadeTicks, deviationExtent, drawRightAxis, drawSeries, type PlotShape,
+  SHAPES, decadeTicks, drawRightAxis, drawSeries, type PlotShape,
 } from './stability-draw.js';
 import { renderStabilityTable, renderTableUnits, rowStarts, rowWindow } from './stability-table.js';
-import { drawAxes, sizeCanvas, type AxisStyle, type Frame } from '../internal/canvas.js';
-import { logScale, logTicks, type Scale } from '../internal/scale.js';
+import { drawAxes, sizeCanvas, type AxisStyle } from '../internal/canvas.js';
+import { logTicks } from '../internal/scale.js';
+import { isTimeStatistic, scaleOf, stabilityScales, type StabilityScales } from './stability-layout.js';
 import { formatDuration, formatFraction, formatNumber, formatOffsetAuto } from '../internal/format.js';
 import { lowerBound } from '../internal/decimate.js';
 import { warnOnce } from '../internal/warn.js';
 
 export type { StabilityColumns };
-
-/**
- * Statistics whose deviation is a time deviation σ_x in seconds (W. J. Riley, NIST SP 1065
- * (2008), TDEV σ_x(τ) = (τ/√3)·MDEV(τ), physics-refs §10 [M for the section]; TTOTDEV is its total
- * variant). Every other statistic is a dimensionless fractional-frequency deviation σ_y.
- */
-const TIME_STATISTICS: ReadonlySet<string> = new Set(['tdev', 'ttotdev']);
-
-/** True when `statistic` is a time deviation in seconds rather than a dimensionless σ_y. */
-function isTimeStatistic(statistic: string): boolean {
-  return TIME_STATISTICS.has(statistic.toLowerCase());
-}
 
 /** Axis titles; the time axis title is the one a T&F engineer expects beside seconds. */
 const FREQUENCY_AXIS_TITLE = 'Deviation (dimensionless)';
@@ -46,16 +36,6 @@ function statLabel(name: string): string {
 /** Short name for table rows: `OADEV`, `TDEV`, or the name as given. */
 function statCode(name: string): string {
   return LABELS[name] ? name.toUpperCase() : name;
-}
-
-/** The plot's scales: τ, one y scale per quantity (null when absent), and where the time axis sits. */
-interface StabilityScales {
-  sx: Scale;
-  /** Dimensionless σ_y axis (left), null when only time deviations are shown. */
-  syFrequency: Scale | null;
-  /** Time-deviation axis in seconds: right when σ_y is also shown, else left; null without TDEV. */
-  syTime: Scale | null;
-  frame: Frame;
 }
 
 /** Hover search looks at most this many points per series near the pointer (dense series are sampled). */
@@ -124,7 +104,7 @@ export class TaulineStabilityPlot extends PlotElement {
    * (typed arrays welcome), or the SDK's rows (`StabilityRow[]`, one per τ with `statistics`).
    * `deviation`, `low` and `high` are dimensionless, except for `tdev`/`ttotdev`: seconds.
    */
-  series?: readonly StabilityColumns[] | readonly unknown[] | null;
+  series?: readonly StabilityColumns[] | readonly StabilityRow[] | null;
 
   /** Heading shown above the plot. */
   label = 'Frequency stability';
@@ -200,7 +180,10 @@ export class TaulineStabilityPlot extends PlotElement {
     const s = this._shown.map((x) => x.s);
     if (s.length === 0) return 'Stability plot: no data';
     let t0 = Infinity, t1 = -Infinity;
-    for (const x of s) { t0 = Math.min(t0, x.tau[0]!); t1 = Math.max(t1, x.tau[x.tau.length - 1]!); }
+    for (const x of s) {
+      const first = x.tau[0], last = x.tau[x.tau.length - 1];
+      if (first !== undefined && last !== undefined) { t0 = Math.min(t0, first); t1 = Math.max(t1, last); }
+    }
     const part = (group: typeof s, what: string, unit: string): string => {
       let d0 = Infinity, d1 = -Infinity;
       for (const x of group) for (const d of x.deviation) { if (d < d0) d0 = d; if (d > d1) d1 = d; }
@@ -263,7 +246,7 @@ export class TaulineStabilityPlot extends PlotElement {
           <span class="swatch" aria-hidden="true"><svg width="18" height="10" viewBox="-9 -5 18 10">
             <line x1="-9" x2="9" y1="0" y2="0" stroke="var(--series-${(k % 6) + 1})" stroke-width="1.5"
               stroke-dasharray=${isTimeStatistic(s.statistic) ? '3 2' : 'none'}></line>
-            ${this._svgMarker(SHAPES[k % SHAPES.length]!, `var(--series-${(k % 6) + 1})`)}
+            ${this._svgMarker(SHAPES[k % SHAPES.length] ?? 'circle', `var(--series-${(k % 6) + 1})`)}
           </svg></span>${this._nameWithUnit(s.statistic)}</button></li>`;
       })}
     </ul>`;
@@ -293,23 +276,23 @@ export class TaulineStabilityPlot extends PlotElement {
   private _pointPosition(k: number, i: number): { x: number; y: number } | null {
     const sc = this._scales, s = this._data.series[k];
     if (!sc || !s || this._hidden.has(s.statistic)) return null;
-    const sy = isTimeStatistic(s.statistic) ? sc.syTime : sc.syFrequency;
-    if (!sy) return null;
-    return { x: sc.sx.map(s.tau[i]!), y: sy.map(s.deviation[i]!) };
+    const sy = scaleOf(sc, s.statistic), p = pointOf(s, i);
+    return sy && p ? { x: sc.sx.map(p.tau), y: sy.map(p.deviation) } : null;
   }
 
   /** Plain-text read-out of a point, with the unit of its statistic (for the live region). */
   private _readout(k: number, i: number): string {
-    const s = this._data.series[k]!;
+    const s = this._data.series[k], p = s ? pointOf(s, i) : null;
+    if (!s || !p) return '';
     const unit = isTimeStatistic(s.statistic) ? ' s' : ' (dimensionless)';
-    return `${statLabel(s.statistic)} at τ = ${formatNumber(s.tau[i]!, 5)} s: ${formatFraction(s.deviation[i]!, 4)}${unit}`;
+    return `${statLabel(s.statistic)} at τ = ${formatNumber(p.tau, 5)} s: ${formatFraction(p.deviation, 4)}${unit}`;
   }
 
   private _renderTooltip(): TemplateResult | typeof nothing {
     const h = this._hover;
     const pos = h ? this._pointPosition(h.s, h.i) : null;
-    if (!h || !pos) return nothing;
-    const s = this._data.series[h.s]!;
+    const s = h ? this._data.series[h.s] : undefined, p = h && s ? pointOf(s, h.i) : null;
+    if (!pos || !s || !p) return nothing;
     const boxW = this._size.width;
     const left = pos.x > boxW / 2 ? Math.max(0, pos.x - 200) : pos.x + 14;
     const time = isTimeStatistic(s.statistic);
@@ -317,11 +300,11 @@ export class TaulineStabilityPlot extends PlotElement {
     return html`<div part="tooltip" role="status" style="left:${left}px;top:${Math.max(0, pos.y - 60)}px">
       <strong>${this._nameWithUnit(s.statistic)}</strong>
       <dl>
-        <dt>τ</dt><dd>${formatNumber(s.tau[h.i]!, 5)} s (${formatDuration(s.tau[h.i]!)})</dd>
-        <dt>${time ? 'Time deviation' : 'Deviation'}</dt><dd>${formatFraction(s.deviation[h.i]!, 4)}${unit}${time ? ` (${formatOffsetAuto(s.deviation[h.i]!, 4)})` : ' (dimensionless)'}</dd>
-        ${s.low && s.high ? html`<dt>Interval</dt><dd>${formatFraction(s.low[h.i]!, 3)} … ${formatFraction(s.high[h.i]!, 3)}${unit}</dd>` : nothing}
-        ${s.n ? html`<dt>Terms n</dt><dd>${formatNumber(s.n[h.i]!, 6)}</dd>` : nothing}
-        ${s.noise && s.noise[h.i] ? html`<dt>Noise</dt><dd>${s.noise[h.i]}</dd>` : nothing}
+        <dt>τ</dt><dd>${formatNumber(p.tau, 5)} s (${formatDuration(p.tau)})</dd>
+        <dt>${time ? 'Time deviation' : 'Deviation'}</dt><dd>${formatFraction(p.deviation, 4)}${unit}${time ? ` (${formatOffsetAuto(p.deviation, 4)})` : ' (dimensionless)'}</dd>
+        ${p.low !== null && p.high !== null ? html`<dt>Interval</dt><dd>${formatFraction(p.low, 3)} … ${formatFraction(p.high, 3)}${unit}</dd>` : nothing}
+        ${p.n !== null ? html`<dt>Terms n</dt><dd>${formatNumber(p.n, 6)}</dd>` : nothing}
+        ${p.noise ? html`<dt>Noise</dt><dd>${p.noise}</dd>` : nothing}
       </dl>
     </div>`;
   }
@@ -342,44 +325,30 @@ export class TaulineStabilityPlot extends PlotElement {
     const ctx = sizeCanvas(canvas, w, h);
     if (!ctx) return;
     const shown = this._shown;
-    const series = shown.map((x) => x.s);
     const withIntervals = !this.noIntervals;
-    const freqExtent = deviationExtent(series.filter((s) => !isTimeStatistic(s.statistic)), withIntervals);
-    const timeExtent = deviationExtent(series.filter((s) => isTimeStatistic(s.statistic)), withIntervals);
-    if (!freqExtent && !timeExtent) { this._scales = null; return; }
-    const dual = freqExtent !== null && timeExtent !== null;
-    // Left margin: rotated title (≈ 16 px) + gap + tick labels such as "1e−13" (≈ 40 px) + tick gap.
-    const frame: Frame = { left: 70, top: 8, width: Math.max(10, w - (dual ? 140 : 82)), height: Math.max(10, h - 60) };
-    let t0 = Infinity, t1 = -Infinity;
-    for (const s of series) { t0 = Math.min(t0, s.tau[0]!); t1 = Math.max(t1, s.tau[s.tau.length - 1]!); }
-    if (!(t1 > t0)) { t0 /= 3; t1 *= 3; }
-    const padX = (Math.log10(t1) - Math.log10(t0)) * 0.06;
-    const sx = logScale(t0 / 10 ** padX, t1 * 10 ** padX, frame.left, frame.left + frame.width);
-    const yScale = (e: [number, number] | null): Scale | null => {
-      if (!e) return null;
-      const pad = (Math.log10(e[1]) - Math.log10(e[0])) * 0.08;
-      return logScale(e[0] / 10 ** pad, e[1] * 10 ** pad, frame.top + frame.height, frame.top);
-    };
-    const syFrequency = yScale(freqExtent), syTime = yScale(timeExtent);
-    this._scales = { sx, syFrequency, syTime, frame };
+    const scales = stabilityScales(shown.map((x) => x.s), withIntervals, w, h);
+    this._scales = scales;
+    if (!scales) return;
+    const { sx, syFrequency, syTime, frame, frequencyExtent, timeExtent, tauRange: [t0, t1] } = scales;
     const xt = logTicks(sx.domain[0], sx.domain[1]);
     const xTicks = (xt.length >= 2 ? xt : [t0, t1]).map((v) => ({ value: v, label: `${formatNumber(v, 3)} s` }));
     const style: AxisStyle = { text: colors.text, muted: colors.muted, grid: colors.grid, font: colors.font };
     // The left axis is σ_y when there is any, else the time deviation; a second quantity goes right.
-    const leftScale = (syFrequency ?? syTime)!, leftExtent = (freqExtent ?? timeExtent)!;
-    drawAxes(ctx, frame, sx, leftScale, xTicks, decadeTicks(leftScale, leftExtent), style,
-      { x: 'Averaging time τ', y: syFrequency ? FREQUENCY_AXIS_TITLE : TIME_AXIS_TITLE });
-    if (dual) drawRightAxis(ctx, frame, syTime!, decadeTicks(syTime!, timeExtent), style, TIME_AXIS_TITLE, w);
+    const left = syFrequency && frequencyExtent ? { scale: syFrequency, extent: frequencyExtent, title: FREQUENCY_AXIS_TITLE }
+      : syTime && timeExtent ? { scale: syTime, extent: timeExtent, title: TIME_AXIS_TITLE } : null;
+    if (!left) return;
+    drawAxes(ctx, frame, sx, left.scale, xTicks, decadeTicks(left.scale, left.extent), style, { x: 'Averaging time τ', y: left.title });
+    if (syFrequency && syTime && timeExtent) drawRightAxis(ctx, frame, syTime, decadeTicks(syTime, timeExtent), style, TIME_AXIS_TITLE, w);
     ctx.save();
     ctx.beginPath();
     ctx.rect(frame.left, frame.top, frame.width, frame.height);
     ctx.clip();
     const palette = [colors.s1, colors.s2, colors.s3, colors.s4, colors.s5, colors.s6];
     for (const { k, s } of shown) {
-      const sy = isTimeStatistic(s.statistic) ? syTime : syFrequency;
+      const sy = scaleOf(scales, s.statistic);
       if (!sy) continue;
       drawSeries(ctx, s, sx, sy, frame, {
-        color: palette[k % palette.length]!, shape: SHAPES[k % SHAPES.length]!, dashed: isTimeStatistic(s.statistic),
+        color: palette[k % palette.length] ?? colors.s1, shape: SHAPES[k % SHAPES.length] ?? 'circle', dashed: isTimeStatistic(s.statistic),
         surface: colors.surface, intervals: withIntervals,
       });
     }
@@ -450,16 +419,17 @@ export class TaulineStabilityPlot extends PlotElement {
     switch (event.key) {
       case 'ArrowRight': case 'ArrowLeft': {
         const dir = event.key === 'ArrowRight' ? 1 : -1;
-        if (!cur) { const first = drawn[0]!; next = { s: first.k, i: dir > 0 ? 0 : first.n - 1 }; break; }
-        const n = this._data.series[cur.s]!.tau.length;
+        const first = drawn[0];
+        if (!cur) { if (first) next = { s: first.k, i: dir > 0 ? 0 : first.n - 1 }; break; }
+        const n = this._data.series[cur.s]?.tau.length ?? 0;
         next = { s: cur.s, i: Math.min(n - 1, Math.max(0, cur.i + dir)) };
         break;
       }
       case 'ArrowDown': case 'ArrowUp': {
         const dir = event.key === 'ArrowDown' ? 1 : -1;
         const at = cur ? drawn.findIndex((x) => x.k === cur.s) : -1;
-        const target = drawn[Math.min(drawn.length - 1, Math.max(0, at < 0 ? 0 : at + dir))]!;
-        next = { s: target.k, i: Math.min(target.n - 1, cur?.i ?? 0) };
+        const target = drawn[Math.min(drawn.length - 1, Math.max(0, at < 0 ? 0 : at + dir))];
+        if (target) next = { s: target.k, i: Math.min(target.n - 1, cur?.i ?? 0) };
         break;
       }
       case 'Escape': next = null; break;

@@ -7,7 +7,7 @@
  */
 import { html, nothing, type TemplateResult } from 'lit';
 import { formatFraction, formatNumber } from '../internal/format.js';
-import type { StabilitySeries } from './stability-data.js';
+import { pointOf, type StabilitySeries } from './stability-data.js';
 
 /** Height of one body row, CSS px (the styles fix it). */
 export const ROW_HEIGHT_PX = 24;
@@ -19,7 +19,8 @@ export const VISIBLE_ROWS = 11;
 /** Cumulative row offsets of the shown series: row r belongs to the series j with starts[j] ≤ r < starts[j + 1]. */
 export function rowStarts(series: readonly StabilitySeries[]): Int32Array {
   const starts = new Int32Array(series.length + 1);
-  series.forEach((s, j) => { starts[j + 1] = starts[j]! + s.tau.length; });
+  let total = 0;
+  for (const [j, s] of series.entries()) { total += s.tau.length; starts[j + 1] = total; }
   return starts;
 }
 
@@ -52,22 +53,23 @@ export function renderTableUnits(noIntervals: boolean): TemplateResult {
 
 /** The table with only the window's rows; `aria-rowcount`/`aria-rowindex` give the full extent. */
 export function renderStabilityTable(v: TableView): TemplateResult {
-  const total = v.starts[v.starts.length - 1]!;
+  const total = v.starts[v.starts.length - 1] ?? 0;
   const [first, last] = v.window;
   const rows: TemplateResult[] = [];
   let j = 0;
   for (let r = first; r < last; r++) {
-    while (r >= v.starts[j + 1]!) j++;
-    const s = v.series[j]!, i = r - v.starts[j]!;
+    while (r >= (v.starts[j + 1] ?? Infinity)) j++;
+    const s = v.series[j], p = s ? pointOf(s, r - (v.starts[j] ?? 0)) : null;
+    if (!s || !p) continue;
     rows.push(html`<tr part="row" aria-rowindex=${r + 2}>
       <th scope="row">${v.code(s.statistic)}</th>
-      <td>${formatNumber(s.tau[i]!, 6)}</td>
-      <td>${formatFraction(s.deviation[i]!, 5)}</td>
-      <td>${s.low ? formatFraction(s.low[i]!, 4) : '—'}</td>
-      <td>${s.high ? formatFraction(s.high[i]!, 4) : '—'}</td>
+      <td>${formatNumber(p.tau, 6)}</td>
+      <td>${formatFraction(p.deviation, 5)}</td>
+      <td>${p.low !== null ? formatFraction(p.low, 4) : '—'}</td>
+      <td>${p.high !== null ? formatFraction(p.high, 4) : '—'}</td>
       <td>${v.isTime(s.statistic) ? 's' : '1'}</td>
-      <td>${s.n ? formatNumber(s.n[i]!, 8) : '—'}</td>
-      <td>${s.noise?.[i] || '—'}</td>
+      <td>${p.n !== null ? formatNumber(p.n, 8) : '—'}</td>
+      <td>${p.noise || '—'}</td>
     </tr>`);
   }
   return html`<table part="table" aria-rowcount=${total + 1} aria-describedby="table-units">

@@ -5,43 +5,45 @@
  *
  * @module
  */
-import { elapsedSecondsBetween, interpolate } from './plan-data.js';
+import { StampError, elapsed, interpolate, type PlanClock } from './plan-data.js';
+import { describeFailure, guardRevisions } from './plan-guard.js';
 
 /** What the layer draws, in seconds since the scenario epoch. */
 export interface RevisionView {
   superseded: Array<{ executeAt: number; kind: 'frequency' | 'phase' }>;
   estimates: Array<{ t: number; phase: number; sigma: number }>;
-  /** Entries left out because they could not be read. */
-  dropped: number;
 }
 
-type Obj = Record<string, unknown>;
-const isObj = (v: unknown): v is Obj => v !== null && typeof v === 'object' && !Array.isArray(v);
-
 /**
- * Reads `superseded` (SteeringCommand objects, ISO 8601 `executeAt`, as in the SDK's
- * `revision.superseded`) and `estimates` (`{ tSeconds, phaseSeconds, sigmaSeconds }`, as given to
- * `replan`) against the scenario epoch `epochText`.
+ * Reads `superseded` (SteeringCommand objects with ISO 8601 `executeAt`, the SDK's
+ * `revision.superseded`) and `estimates` (`ClockOffsetEstimate`s, as given to `replanSteering`)
+ * against the scenario epoch; an error naming the first unreadable field (nothing is skipped).
  */
-export function readRevisions(superseded: unknown, estimates: unknown, epochText: string): RevisionView {
-  const view: RevisionView = { superseded: [], estimates: [], dropped: 0 };
-  if (Array.isArray(superseded)) {
-    for (const c of superseded) {
-      const t = isObj(c) && typeof c['executeAt'] === 'string' ? elapsedSecondsBetween(epochText, c['executeAt']) : Number.NaN;
-      if (Number.isFinite(t) && isObj(c)) view.superseded.push({ executeAt: t, kind: c['kind'] === 'phase' ? 'phase' : 'frequency' });
-      else view.dropped++;
+export function readRevisions(superseded: unknown, estimates: unknown, clock: PlanClock):
+  { ok: true; view: RevisionView } | { ok: false; error: string } {
+  const guarded = guardRevisions(superseded, estimates);
+  if (!guarded.ok) return { ok: false, error: describeFailure(guarded.failure) };
+  try {
+    const view: RevisionView = {
+      superseded: guarded.superseded.map((c, k) => ({
+        executeAt: elapsed(clock, c.executeAt, `superseded[${k}].executeAt`), kind: c.kind,
+      })),
+      estimates: [],
+    };
+    for (const [k, e] of guarded.estimates.entries()) {
+      const bad = !Number.isFinite(e.tSeconds) ? 'tSeconds' : !Number.isFinite(e.phaseSeconds) ? 'phaseSeconds'
+        : !(Number.isFinite(e.sigmaSeconds) && e.sigmaSeconds >= 0) ? 'sigmaSeconds' : null;
+      if (bad) {
+        const msg = `estimates[${k}].${bad} must be a finite number of seconds (σ ≥ 0); received ${String(e[bad])}`;
+        return { ok: false, error: msg };
+      }
+      view.estimates.push({ t: e.tSeconds, phase: e.phaseSeconds, sigma: e.sigmaSeconds });
     }
+    return { ok: true, view };
+  } catch (error) {
+    if (error instanceof StampError) return { ok: false, error: error.message };
+    throw error;
   }
-  if (Array.isArray(estimates)) {
-    for (const e of estimates) {
-      const t = isObj(e) ? Number(e['tSeconds']) : Number.NaN;
-      const phase = isObj(e) ? Number(e['phaseSeconds']) : Number.NaN;
-      const sigma = isObj(e) ? Number(e['sigmaSeconds']) : Number.NaN;
-      if (Number.isFinite(t) && Number.isFinite(phase) && Number.isFinite(sigma) && sigma >= 0) view.estimates.push({ t, phase, sigma });
-      else view.dropped++;
-    }
-  }
-  return view;
 }
 
 /** Pixel positions of what was drawn (kept by the element for tests and hit-testing). */

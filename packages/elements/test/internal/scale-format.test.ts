@@ -1,6 +1,6 @@
 import { expect } from '@open-wc/testing';
-import { linearScale, linearTicks, logScale, logTicks, niceStep, padDomain, timeTicks } from '../src/internal/scale.js';
-import { formatFraction, formatHertz, formatNumber, formatOffsetAuto, formatUtc, parseTimeUnit, pickTimeUnit, typographicMinus } from '../src/internal/format.js';
+import { linearScale, linearTicks, logScale, logTicks, niceStep, padDomain, timeTicks } from '../../src/internal/scale.js';
+import { formatFraction, formatHertz, formatNumber, formatOffsetAuto, formatUtc, parseTimeUnit, pickTimeUnit, typographicMinus } from '../../src/internal/format.js';
 
 // Scales and ticks: arithmetic checked by hand in each test ([C]); tick steps of 1, 2, 5 × 10^k are
 // common practice, no source.

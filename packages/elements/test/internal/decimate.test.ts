@@ -1,6 +1,6 @@
 import { expect } from '@open-wc/testing';
 import fc from 'fast-check';
-import { closestIndex, decimateBand, decimateLine, lowerBound, shouldDecimate, upperBound, visibleRange } from '../src/internal/decimate.js';
+import { closestIndex, decimateBand, decimateLine, lowerBound, shouldDecimate, upperBound, visibleRange } from '../../src/internal/decimate.js';
 
 // Min/max-per-pixel-column decimation: common practice in time-series plotting, no source.
 // The reference here is a brute-force per-column scan written independently in the test.

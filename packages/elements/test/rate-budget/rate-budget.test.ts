@@ -1,8 +1,8 @@
 import { fixture, html, expect } from '@open-wc/testing';
 import { FLIGHT_CONFIGURATION_CAUTION, meanClockRate } from '@tauline/sdk/relativity';
-import '../src/rate-budget/rate-budget.define.js';
-import type { TaulineRateBudget } from '../src/rate-budget/rate-budget.js';
-import { captureWarnings } from './fixtures.js';
+import '../../src/rate-budget/rate-budget.define.js';
+import type { TaulineRateBudget } from '../../src/rate-budget/rate-budget.js';
+import { captureWarnings } from '../fixtures.js';
 
 const cells = (el: TaulineRateBudget, rowClass: string): string[] =>
   [...el.shadowRoot!.querySelectorAll(`tr.${rowClass} td`)].map((td) => td.textContent!.trim());

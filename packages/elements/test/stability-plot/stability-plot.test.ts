@@ -1,10 +1,11 @@
 import { fixture as openFixture, html, expect, nextFrame } from '@open-wc/testing';
-import type { TemplateResult } from 'lit';
-import '../src/stability-plot/stability-plot.define.js';
-import type { TaulineStabilityPlot } from '../src/stability-plot/stability-plot.js';
-import { normaliseStability } from '../src/stability-plot/stability-data.js';
-import { decimateLogTau } from '../src/stability-plot/stability-draw.js';
-import { captureWarnings } from './fixtures.js';
+import type { LitElement, TemplateResult } from 'lit';
+import '../../src/stability-plot/stability-plot.define.js';
+import type { TaulineStabilityPlot } from '../../src/stability-plot/stability-plot.js';
+import { DEFAULT_MIN_TERMS, normaliseStability } from '../../src/stability-plot/stability-data.js';
+import { decimateLogTau } from '../../src/stability-plot/stability-draw.js';
+import { scaleOf, stabilityScales, type StabilityScales } from '../../src/stability-plot/stability-layout.js';
+import { captureWarnings } from '../fixtures.js';
 
 // 1000-point set of W. J. Riley, NIST SP 1065 pp. 107–108, as tabulated in physics-refs §10 [V2; reproduced C]:
 // OADEV at τ = 1, 10, 100 and the 68.27 % WFM intervals of the check value at τ = 1 and 10 ([C]).
@@ -20,23 +21,37 @@ const MDEV = { statistic: 'mdev', tau: Float64Array.of(1, 10, 100), deviation: F
 // TDEV of the same set, physics-refs §10 [V2]: a time deviation in seconds (τ0 = 1 s), not a fraction.
 const TDEV = { statistic: 'tdev', tau: Float64Array.of(1, 10, 100), deviation: Float64Array.of(1.687202e-1, 3.563623e-1, 1.253382) };
 
-interface Internals {
-  _scales: { sx: { domain: readonly [number, number] }; syFrequency: { domain: readonly [number, number] } | null;
-    syTime: { domain: readonly [number, number] } | null; frame: { left: number; top: number; width: number; height: number } } | null;
-  _pointPosition(k: number, i: number): { x: number; y: number } | null;
+/**
+ * The plot's scales recomputed from its public surface: its `series` and `min-terms`, the legend's pressed
+ * buttons (shown statistics), `no-intervals` and the plot box's size, through the pure layout it draws with.
+ */
+function publicScales(el: TaulineStabilityPlot): StabilityScales | null {
+  const minTerms = Number.isFinite(el.minTerms) && el.minTerms >= 1 ? el.minTerms : DEFAULT_MIN_TERMS;
+  const data = normaliseStability(el.series, minTerms).series;
+  const pressed = Array.from(el.shadowRoot!.querySelectorAll('[part~="legend"] button'), (b) => b.getAttribute('aria-pressed') === 'true');
+  const shown = data.filter((s, k) => s.tau.length > 0 && pressed[k] !== false);
+  const r = el.shadowRoot!.querySelector('[part="plot"]')!.getBoundingClientRect();
+  return stabilityScales(shown, !el.noIntervals, Math.floor(r.width), Math.floor(r.height));
 }
-const internals = (el: TaulineStabilityPlot): Internals => el as unknown as Internals;
+
+/** Plot-box position of point i of statistic k (index in `series`), through {@link publicScales}. */
+function pointPosition(el: TaulineStabilityPlot, k: number, i: number): { x: number; y: number } {
+  const sc = publicScales(el)!;
+  const s = normaliseStability(el.series, el.minTerms).series[k]!;
+  const sy = scaleOf(sc, s.statistic)!;
+  return { x: sc.sx.map(s.tau[i]!), y: sy.map(s.deviation[i]!) };
+}
 
 /**
  * Renders like open-wc's fixture, then lets the ResizeObserver report the plot's size (the plot
  * reads no layout during an update, so it draws after the observer's first callback) and waits for
  * that update.
  */
-async function fixture<T extends HTMLElement>(template: TemplateResult): Promise<T> {
+async function fixture<T extends LitElement>(template: TemplateResult): Promise<T> {
   const el = await openFixture<T>(template);
   await nextFrame();
   await nextFrame();
-  await (el as unknown as { updateComplete: Promise<unknown> }).updateComplete;
+  await el.updateComplete;
   return el;
 }
 
@@ -44,7 +59,7 @@ async function fixture<T extends HTMLElement>(template: TemplateResult): Promise
 async function hoverPoint(el: TaulineStabilityPlot, k: number, i: number): Promise<Element> {
   const box = el.shadowRoot!.querySelector<HTMLElement>('canvas.overlay')!;
   const r = el.shadowRoot!.querySelector('canvas.data')!.getBoundingClientRect();
-  const pos = internals(el)._pointPosition(k, i)!;
+  const pos = pointPosition(el, k, i);
   box.dispatchEvent(new PointerEvent('pointermove', { clientX: r.left + pos.x, clientY: r.top + pos.y, bubbles: true }));
   await el.updateComplete;
   return el.shadowRoot!.querySelector('[part="tooltip"]')!;
@@ -53,7 +68,7 @@ async function hoverPoint(el: TaulineStabilityPlot, k: number, i: number): Promi
 /** Counts non-transparent canvas pixels right of the plot frame (where a right-hand axis draws), between its top and bottom. */
 function inkRightOfFrame(el: TaulineStabilityPlot): number {
   const canvas = el.shadowRoot!.querySelector<HTMLCanvasElement>('canvas.data')!;
-  const f = internals(el)._scales!.frame;
+  const f = publicScales(el)!.frame;
   const ratio = canvas.width / canvas.getBoundingClientRect().width;
   const x0 = Math.ceil((f.left + f.width + 3) * ratio);
   const img = canvas.getContext('2d')!.getImageData(x0, Math.floor(f.top * ratio), canvas.width - x0, Math.floor(f.height * ratio));
@@ -182,7 +197,10 @@ describe('tauline-stability-plot', () => {
       await el.updateComplete;
     } finally { Element.prototype.getBoundingClientRect = original; }
     expect(reads).to.equal(0);
-    expect(internals(el)._scales).to.not.equal(null);
+    // It drew all the same: the data canvas has ink.
+    const data = el.shadowRoot!.querySelector<HTMLCanvasElement>('canvas.data')!;
+    const ink = data.getContext('2d')!.getImageData(0, 0, data.width, data.height).data.some((v, j) => j % 4 === 3 && v > 0);
+    expect(ink).to.equal(true);
   });
 
   it('a τ with fewer than min-terms terms (default 2, NIST SP 1065 §5.3 [M]) is left off and named in a note; min-terms="1" shows it', async () => {
@@ -191,7 +209,7 @@ describe('tauline-stability-plot', () => {
     const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[withLast]}></tauline-stability-plot>`);
     expect(el.shadowRoot!.querySelectorAll('tbody tr[part~="row"]').length).to.equal(3);
     expect(el.shadowRoot!.querySelector('[part~="note"]')!.textContent).to.contain('OADEV at τ = 8.33 min');
-    expect(internals(el)._scales!.sx.domain[1]).to.be.below(500);
+    expect(publicScales(el)!.sx.domain[1]).to.be.below(500);
     el.minTerms = 1;
     await el.updateComplete;
     expect(el.shadowRoot!.querySelectorAll('tbody tr[part~="row"]').length).to.equal(4);
@@ -223,7 +241,7 @@ describe('tauline-stability-plot', () => {
 
     it('with only TDEV the single left axis is the time axis: no σ_y scale, no right-hand axis, table unit s', async () => {
       const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[TDEV]}></tauline-stability-plot>`);
-      const sc = internals(el)._scales!;
+      const sc = publicScales(el)!;
       expect(sc.syFrequency).to.equal(null);
       expect(sc.syTime!.domain[0]).to.be.below(1.687202e-1);
       expect(sc.syTime!.domain[1]).to.be.above(1.253382);
@@ -239,7 +257,7 @@ describe('tauline-stability-plot', () => {
 
     it('with only dimensionless statistics there is no time scale and nothing right of the frame', async () => {
       const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[OADEV, MDEV]}></tauline-stability-plot>`);
-      const sc = internals(el)._scales!;
+      const sc = publicScales(el)!;
       expect(sc.syTime).to.equal(null);
       expect(sc.syFrequency).not.to.equal(null);
       expect(inkRightOfFrame(el)).to.equal(0);
@@ -248,14 +266,14 @@ describe('tauline-stability-plot', () => {
 
     it('with both, TDEV gets its own scale on a right-hand axis and the σ_y scale does not stretch to seconds', async () => {
       const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[OADEV, MDEV, TDEV]}></tauline-stability-plot>`);
-      const sc = internals(el)._scales!;
+      const sc = publicScales(el)!;
       // σ_y spans 2.17e−2 … 3.01e−1 (with the interval): the 1.25 s TDEV value must not widen it.
       expect(sc.syFrequency!.domain[1]).to.be.below(0.5);
       expect(sc.syTime!.domain[1]).to.be.above(1.253382);
       expect(inkRightOfFrame(el)).to.be.above(50);
       const top = sc.frame.top, bottom = sc.frame.top + sc.frame.height;
       for (let i = 0; i < 3; i++) {
-        const p = internals(el)._pointPosition(2, i)!;
+        const p = pointPosition(el, 2, i);
         expect(p.y).to.be.within(top, bottom);
       }
       const legend = Array.from(el.shadowRoot!.querySelectorAll('[part="legend"] li'), (li) => li.textContent!.trim());
@@ -305,7 +323,7 @@ describe('tauline-stability-plot', () => {
       try {
         const bad = { statistic: 'tdev', tau: [1, 10], deviation: [Number.NaN, -1e-9] };
         const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[OADEV, bad]}></tauline-stability-plot>`);
-        const sc = internals(el)._scales!;
+        const sc = publicScales(el)!;
         expect(sc.syTime).to.equal(null);
         expect(sc.syFrequency).not.to.equal(null);
         expect(el.plotLabel).not.to.contain('TDEV');

@@ -1,20 +1,17 @@
 import { fixture, html, expect, oneEvent } from '@open-wc/testing';
-import '../src/review-findings/review-findings.define.js';
-import type { TaulineReviewFindings, ReviewReportView } from '../src/review-findings/review-findings.js';
-import { captureWarnings } from './fixtures.js';
+import '../../src/review-findings/review-findings.define.js';
+import type { TaulineReviewFindings } from '../../src/review-findings/review-findings.js';
+import type { ReviewReport } from '@tauline/sdk/review';
+import { captureWarnings, exampleReview } from '../fixtures.js';
 
-// Invented review (no real spacecraft). The sign-flip hypothesis value is −1 × the expected offset.
-const REVIEW: ReviewReportView = {
-  title: 'Launch review: Lyra batch 2',
-  caution: 'Verify against the mission interface specification and its responsible engineering authority.',
-  spacecraft: [
-    { id: 'LYRA-04', verdict: 'pass', expectedFractionalOffset: -4.58e-10, configuredFractionalOffset: -4.58e-10, differenceFractional: 0, diagnosis: [] },
-    { id: 'LYRA-05', verdict: 'fail', expectedFractionalOffset: -4.58e-10, configuredFractionalOffset: 4.58e-10, differenceFractional: 9.16e-10,
-      differenceHz: 9.37e-3, differenceNanosecondsPerDay: 79142,
-      diagnosis: [{ code: 'sign-flipped', message: 'The configured offset has the wrong sign.', wouldHaveProduced: 4.58e-10, matches: true }] },
-    { id: 'LYRA-06', verdict: 'marginal', expectedFractionalOffset: -4.58e-10, configuredFractionalOffset: -4.5803e-10, differenceFractional: -3e-14, diagnosis: [] },
-  ],
-};
+// reviewOffsets() on the bundled Kestrel examples (fictional constellation, packages/sdk/examples/review/): one passing
+// spacecraft of Block A, then KESTREL-11 (offset with the sign flipped: fail) and KESTREL-19 (marginal) of Block B.
+let REVIEW: ReviewReport;
+before(async () => {
+  const [a, b] = await Promise.all([exampleReview('kestrel-block-a'), exampleReview('kestrel-block-b-mistakes')]);
+  const pick = (id: string) => b.spacecraft.find((f) => f.id === id)!;
+  REVIEW = { ...b, spacecraft: [a.spacecraft[0]!, pick('KESTREL-11'), pick('KESTREL-19')] };
+});
 
 describe('tauline-review-findings', () => {
   it('<tauline-review-findings> is accessible (axe-core) with data', async () => {
@@ -25,10 +22,10 @@ describe('tauline-review-findings', () => {
   it('lists failing spacecraft first, each verdict with its own icon shape and text', async () => {
     const el = await fixture<TaulineReviewFindings>(html`<tauline-review-findings .review=${REVIEW}></tauline-review-findings>`);
     const ids = [...el.shadowRoot!.querySelectorAll('.sc-id')].map((x) => x.textContent);
-    expect(ids).to.deep.equal(['LYRA-05', 'LYRA-06', 'LYRA-04']);
+    expect(ids).to.deep.equal(['KESTREL-11', 'KESTREL-19', 'KESTREL-01']);
     const shapes = [...el.shadowRoot!.querySelectorAll('details .verdict svg')].map((s) => s.firstElementChild!.localName);
     expect(shapes).to.deep.equal(['rect', 'path', 'circle']);
-    expect(el.shadowRoot!.querySelector('.title')!.textContent).to.equal('Launch review: Lyra batch 2');
+    expect(el.shadowRoot!.querySelector('.title')!.textContent).to.equal(REVIEW.title);
   });
 
   it('hide-passing leaves passing spacecraft out of the list', async () => {
@@ -46,24 +43,27 @@ describe('tauline-review-findings', () => {
     const summary = el.shadowRoot!.querySelector<HTMLElement>('summary')!;
     setTimeout(() => summary.click());
     const ev = await oneEvent(host, 'tauline-spacecraft-select');
-    expect(ev.detail).to.deep.equal({ id: 'LYRA-05', verdict: 'fail' });
+    expect(ev.detail).to.deep.equal({ id: 'KESTREL-11', verdict: 'fail' });
     expect(ev.composed).to.equal(true);
   });
 
   it('shows the diagnosis with the value the mistake would have produced', async () => {
     const el = await fixture<TaulineReviewFindings>(html`<tauline-review-findings .review=${REVIEW}></tauline-review-findings>`);
     const li = el.shadowRoot!.querySelector('.diagnosis li')!;
+    const sign = REVIEW.spacecraft[1]!.diagnosis.find((d) => d.code === 'sign-flipped')!;
     expect(li.textContent).to.contain('sign-flipped');
-    expect(li.textContent).to.contain('4.5800e−10');
+    // −1 × the expected offset (the SDK's wouldHaveProduced), printed to 5 significant figures.
+    expect(li.textContent).to.contain(sign.wouldHaveProduced!.toExponential(4).replace('-', '−'));
+    expect(sign.wouldHaveProduced).to.equal(-REVIEW.spacecraft[1]!.expectedFractionalOffset);
   });
 
   it('a null diagnosis entry shows a visible notice naming it, keeps the readable entries and warns once', async () => {
     const w = await captureWarnings();
     try {
-      const bad = { ...REVIEW, spacecraft: REVIEW.spacecraft.map((f) => (f.id === 'LYRA-05' ? { ...f, diagnosis: [null, ...f.diagnosis!] } : f)) };
+      const bad = { ...REVIEW, spacecraft: REVIEW.spacecraft.map((f) => (f.id === 'KESTREL-11' ? { ...f, diagnosis: [null, ...f.diagnosis] } : f)) };
       const el = await fixture<TaulineReviewFindings>(html`<tauline-review-findings .review=${bad}></tauline-review-findings>`);
       const notice = el.shadowRoot!.querySelector('.notice[role="alert"]')!;
-      expect(notice.textContent).to.contain('spacecraft[1] (LYRA-05).diagnosis[0] is null');
+      expect(notice.textContent).to.contain('spacecraft[1] (KESTREL-11).diagnosis[0] is null');
       expect(el.shadowRoot!.querySelectorAll('details').length).to.equal(3);
       expect(el.shadowRoot!.querySelector('.diagnosis li')!.textContent).to.contain('sign-flipped');
       expect(w.list.map((x) => x.code)).to.deep.equal(['invalid-diagnosis']);
