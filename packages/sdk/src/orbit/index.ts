@@ -26,7 +26,7 @@ export {
   type EphemerisFrame, LOW_PRECISION_EPHEMERIS_NAME, sunPositionLowPrecision, moonPositionLowPrecision,
 } from './ephemeris.js';
 export {
-  type GeodeticPosition, requireGeodeticPosition, geodeticToEcef, elevationFromStation,
+  type GeodeticPosition, geodeticToEcef, elevationFromStation,
 } from './geodetic.js';
 export { EARTH_ROTATION_ANGLE_RATE, earthRotationAngle } from './earth-rotation.js';
 export { type J2SecularRates, j2SecularRates, propagateJ2Secular } from './j2-secular.js';
