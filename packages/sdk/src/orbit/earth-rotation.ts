@@ -12,7 +12,7 @@
  *
  * @module
  */
-import type { Radians, RadiansPerSecond, Vector3 } from '../units.js';
+import type { Radians, RadiansPerSecond } from '../units.js';
 import { InvalidArgumentError } from '../errors.js';
 import { requireInstant, type Instant } from '../time/instant.js';
 import type { TimeScales } from '../time/scales.js';
@@ -57,15 +57,4 @@ export function earthRotationAngle(instant: Instant, timeScales: TimeScales): Ra
   let turns = (ERA_AT_J2000_TURNS + jd.fraction + ERA_EXTRA_TURNS_PER_DAY * tu) % 1;
   if (turns < 0) turns += 1;
   return turns * TWO_PI;
-}
-
-/**
- * Rotates an inertial (CIRS) position into the Earth-fixed frame by the Earth rotation angle θ:
- * r_ECEF = R3(θ)·r, i.e. x' = x cos θ + y sin θ, y' = −x sin θ + y cos θ, z' = z (polar motion neglected).
- * @see IERS Conventions (2010) ch. 5, eq. (5.1) [GCRS] = Q·R·W [ITRS] with R = R3(−ERA), W = identity [M].
- * @internal
- */
-export function rotateToEarthFixed(r: Vector3, theta: Radians): Vector3 {
-  const c = Math.cos(theta), s = Math.sin(theta);
-  return [c * r[0] + s * r[1], -s * r[0] + c * r[1], r[2]];
 }

@@ -45,15 +45,25 @@ function extremum(f: Fn, lo: Seconds, hi: Seconds, sign: 1 | -1, tol: Seconds): 
   return { t, value: f(t) };
 }
 
+/** First index k with times[k] > t (binary search; times increasing). */
+function firstAfter(times: Float64Array, t: Seconds): number {
+  let lo = 0, hi = times.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (times[mid]! > t) hi = mid;
+    else lo = mid + 1;
+  }
+  return lo;
+}
+
 /** Highest value of f inside [start, end]: best sample, refined by golden section around it. */
 function peak(f: Fn, times: Float64Array, values: Float64Array, start: Seconds, end: Seconds, tol: Seconds): { t: Seconds; value: number } {
   let best = { t: start, value: f(start) };
   const atEnd = f(end);
   if (atEnd > best.value) best = { t: end, value: atEnd };
   let k = -1;
-  for (let j = 0; j < times.length; j++) {
-    const t = times[j]!;
-    if (t > start && t < end && values[j]! > best.value) { best = { t, value: values[j]! }; k = j; }
+  for (let j = firstAfter(times, start); j < times.length && times[j]! < end; j++) {
+    if (values[j]! > best.value) { best = { t: times[j]!, value: values[j]! }; k = j; }
   }
   if (k < 0) {
     const refined = extremum(f, start, end, 1, tol);

@@ -23,7 +23,7 @@ import { BUNDLED_LEAP_SECONDS } from '../time/leap-seconds.js';
 import type { KeplerianElements } from './elements.js';
 import { solveKepler } from './kepler.js';
 import { geodeticToEcefTrusted, localUp, requireGeodeticPosition, type GeodeticPosition } from './geodetic.js';
-import { EARTH_ROTATION_ANGLE_RATE, earthRotationAngle, requireTimeScales, rotateToEarthFixed } from './earth-rotation.js';
+import { EARTH_ROTATION_ANGLE_RATE, earthRotationAngle, requireTimeScales } from './earth-rotation.js';
 import { j2SecularRatesTrusted, requireMeanElements } from './j2-secular.js';
 import { findPasses } from './pass-search.js';
 
@@ -86,8 +86,8 @@ export const MAX_PASS_PROPAGATION_SECONDS: Seconds = 366 * 86_400;
 
 let bundled: TimeScales | undefined;
 
-/** Position of the satellite in the Earth-fixed frame at t seconds after the prediction epoch. */
-type EcefAt = (t: Seconds) => Vector3;
+/** Writes the satellite's Earth-fixed position (m) at t seconds after the prediction epoch into `out[at..at+2]`. */
+type EcefAt = (t: Seconds, out: Float64Array, at: number) => void;
 
 /** Builds the Earth-fixed position function: secular J2 elements → inertial position → R3(ERA). */
 function ecefEvaluator(orbit: MeanOrbit, epoch: Instant, horizon: Seconds, ts: TimeScales, set: ConstantSet): EcefAt {
@@ -105,7 +105,7 @@ function ecefEvaluator(orbit: MeanOrbit, epoch: Instant, horizon: Seconds, ts: T
   const { semiMajorAxis: a, eccentricity: e, inclination: i } = el;
   const ci = Math.cos(i), si = Math.sin(i);
   const b = a * Math.sqrt((1 - e) * (1 + e));
-  return (t: Seconds): Vector3 => {
+  return (t: Seconds, out: Float64Array, at: number): void => {
     const dt = offset + t;
     const raan = el.raan + rates.raanRate * dt;
     const w = el.argumentOfPerigee + rates.argumentOfPerigeeRate * dt;
@@ -113,18 +113,20 @@ function ecefEvaluator(orbit: MeanOrbit, epoch: Instant, horizon: Seconds, ts: T
     // Perifocal x = a(cos E − e), y = b sin E, rotated by R3(−Ω)R1(−i)R3(−ω) (as elementsToState, Vallado Alg. 10 [M]).
     const xp = a * (Math.cos(E) - e), yp = b * Math.sin(E);
     const cO = Math.cos(raan), sO = Math.sin(raan), cw = Math.cos(w), sw = Math.sin(w);
-    const inertial: Vector3 = [
-      xp * (cO * cw - sO * sw * ci) + yp * (-cO * sw - sO * cw * ci),
-      xp * (sO * cw + cO * sw * ci) + yp * (-sO * sw + cO * cw * ci),
-      xp * sw * si + yp * cw * si,
-    ];
-    return rotateToEarthFixed(inertial, theta0 + EARTH_ROTATION_ANGLE_RATE * t);
+    const x = xp * (cO * cw - sO * sw * ci) + yp * (-cO * sw - sO * cw * ci);
+    const y = xp * (sO * cw + cO * sw * ci) + yp * (-sO * sw + cO * cw * ci);
+    // r_ECEF = R3(θ)·r: [GCRS] = Q·R·W [ITRS] with R = R3(−ERA), Q = W = identity (IERS Conventions 2010 eq. 5.1 [M]).
+    const theta = theta0 + EARTH_ROTATION_ANGLE_RATE * t;
+    const c = Math.cos(theta), s = Math.sin(theta);
+    out[at] = c * x + s * y;
+    out[at + 1] = -s * x + c * y;
+    out[at + 2] = xp * sw * si + yp * cw * si;
   };
 }
 
-/** Elevation (rad) from a site of a satellite position function. */
-function elevationOf(site: { r: Vector3; up: Vector3 }, p: Vector3): Radians {
-  const dx = p[0] - site.r[0], dy = p[1] - site.r[1], dz = p[2] - site.r[2];
+/** Elevation (rad) from a site of the satellite position p[at..at+2] (Vallado 4th ed. §4.4, up component [M]). */
+function elevationOf(site: { r: Vector3; up: Vector3 }, p: Float64Array, at: number): Radians {
+  const dx = p[at]! - site.r[0], dy = p[at + 1]! - site.r[1], dz = p[at + 2]! - site.r[2];
   return Math.asin(Math.max(-1, Math.min(1, (dx * site.up[0] + dy * site.up[1] + dz * site.up[2]) / Math.hypot(dx, dy, dz))));
 }
 
@@ -148,7 +150,9 @@ function resolveOptions(options: PassPredictionOptions | undefined): { ts: TimeS
  */
 export function satellitePositionEcef(orbit: MeanOrbit, at: Instant, options?: PassPredictionOptions): Vector3 {
   const { ts, set } = resolveOptions(options);
-  return ecefEvaluator(orbit, requireInstant('at', at), 0, ts, set)(0);
+  const out = new Float64Array(3);
+  ecefEvaluator(orbit, requireInstant('at', at), 0, ts, set)(0, out, 0);
+  return [out[0]!, out[1]!, out[2]!];
 }
 
 /** Validates the stations (fields `sites[k].position.*`, `sites[k].elevationMask`). */
@@ -199,14 +203,16 @@ export function predictPasses(orbit: MeanOrbit, sites: readonly GroundSite[], ep
   requirePositive('options.stepSeconds', step, 's');
   const count = Math.ceil(span / step);
   const times = new Float64Array(count + 1);
-  const positions: Vector3[] = [];
+  const positions = new Float64Array(3 * (count + 1));
   for (let k = 0; k <= count; k++) {
     times[k] = Math.min(k * step, span);
-    positions.push(ecef(times[k]!));
+    ecef(times[k]!, positions, 3 * k);
   }
+  const scratch = new Float64Array(3);
   const passes = checked.map((site) => {
-    const elevation = (t: Seconds): Radians => elevationOf(site, ecef(t));
-    const sampled = Float64Array.from(positions, (p) => elevationOf(site, p));
+    const elevation = (t: Seconds): Radians => { ecef(t, scratch, 0); return elevationOf(site, scratch, 0); };
+    const sampled = new Float64Array(count + 1);
+    for (let k = 0; k <= count; k++) sampled[k] = elevationOf(site, positions, 3 * k);
     return findPasses(times, sampled, elevation, site.mask, tol);
   });
   return { epoch: start, horizon: span, passes };
