@@ -47,7 +47,7 @@ function timeline(doc: FleetDocument, plan: FleetPlan): string[] {
   return out;
 }
 
-/** Pass counts per satellite and station: usable passes, with "+n short" for computed passes too short for a support. */
+/** Pass counts per satellite and station: usable passes, "+n short" for computed passes too short for a support. */
 function passCounts(doc: FleetDocument, plan: FleetPlan, width: number | undefined): string[] {
   const rows = plan.satellites.map((s, i) => {
     const sat = doc.satellites[i]!;
@@ -61,10 +61,12 @@ function passCounts(doc: FleetDocument, plan: FleetPlan, width: number | undefin
       ? `${((Math.max(...s.computedPasses.map((p) => p.maxElevationRadians)) * 180) / Math.PI).toFixed(1)}` : '-';
     return [s.id, s.computedPasses ? 'computed' : 'given', ...cells, top];
   });
-  const out = [fitTable(['satellite', 'passes', ...doc.stations.map((st) => st.id), 'highest elevation (deg)'], rows, { width }).trimEnd()];
+  const headers = ['satellite', 'passes', ...doc.stations.map((st) => st.id), 'highest elevation (deg)'];
+  const out = [fitTable(headers, rows, { width }).trimEnd()];
   if (plan.satellites.some((s) => s.computedPasses)) {
-    out.push('Computed passes: from mean elements (secular J2), Earth rotation with UT1 taken as UTC; times good to seconds ' +
-      '(short: shorter than the station\'s support, not planned with). --json lists each pass with its maximum elevation.');
+    out.push('Computed passes: from mean elements (secular J2), Earth rotation with UT1 taken as UTC; times good to ' +
+      'seconds (short: shorter than the station\'s support, not planned with). --json lists each pass with its ' +
+      'maximum elevation.');
   }
   return out;
 }
@@ -103,7 +105,10 @@ export const fleetCommand: Command = {
   allowPositionals: true,
   flags: {
     'leap-seconds': LEAP_SECONDS_FLAG,
-    ...formatFlags(TABLE_OR_JSON, { json: 'Print the fleet plan as JSON (feasible, reason, satellites with commands and station and any computedPasses, stationSchedule, units, caution); same as --format json.' }),
+    ...formatFlags(TABLE_OR_JSON, {
+      json: 'Print the fleet plan as JSON (feasible, reason, satellites with commands and station and any ' +
+        'computedPasses, stationSchedule, units, caution); same as --format json.',
+    }),
   },
   details: `
 Fleet format: packages/sdk/schema/fleet.schema.json (JSON Schema); times ISO 8601 UTC, quantities SI.

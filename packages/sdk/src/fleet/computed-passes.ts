@@ -39,7 +39,7 @@ export interface FleetOrbit {
   eccentricity: number;
   /** Mean inclination, in radians, in [0, π]. */
   inclinationRadians: Radians;
-  /** Right ascension of the ascending node, in radians, in [−2π, 2π] (inertial frame of date, see orbit/earth-rotation.ts). */
+  /** Right ascension of the ascending node, in radians, in [−2π, 2π] (inertial frame of date). */
   raanRadians: Radians;
   /** Argument of perigee, in radians, in [−2π, 2π]. */
   argumentOfPerigeeRadians: Radians;
@@ -57,7 +57,7 @@ export interface NormalizedComputedPass {
   maxElevationAt: Seconds;
   clippedAtStart: boolean;
   clippedAtEnd: boolean;
-  /** False when the pass is shorter than its station's `supportSeconds` (it cannot hold a support and is not planned with). */
+  /** False when shorter than its station's `supportSeconds`: it cannot hold a support and is not planned with. */
   usable: boolean;
 }
 
@@ -67,18 +67,25 @@ export interface StationSite { position: GeodeticPosition; elevationMask: Radian
 export const ORBIT_FIELDS = ['epoch', 'semiMajorAxisMetres', 'eccentricity', 'inclinationRadians', 'raanRadians',
   'argumentOfPerigeeRadians', 'meanAnomalyRadians'] as const;
 
+/** The hint for an angle that looks like degrees. */
+function degreesHint(v: number): string {
+  return `${v} looks like degrees; ${v}° = ${(v * Math.PI) / 180} rad`;
+}
+
 /** An angle in [−max, max] rad; a value that only makes sense in degrees gets a hint. */
 function requireAngle(field: string, value: unknown, max: number, maxText: string): number {
   const v = requireFinite(field, value, `a finite angle in radians, in [−${maxText}, ${maxText}]`);
   if (Math.abs(v) > max) {
-    const hint = Math.abs(v) <= (max * 180) / Math.PI ? `${v} looks like degrees; ${v}° = ${(v * Math.PI) / 180} rad` : undefined;
+    const hint = Math.abs(v) <= (max * 180) / Math.PI ? degreesHint(v) : undefined;
     throw new InvalidArgumentError(field, value, `in [−${maxText}, ${maxText}] rad`, hint);
   }
   return v;
 }
 
 function requireObjectField(field: string, value: unknown): Record<string, unknown> {
-  if (typeof value !== 'object' || value === null || Array.isArray(value)) throw new InvalidArgumentError(field, value, 'an object');
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
+    throw new InvalidArgumentError(field, value, 'an object');
+  }
   return value as Record<string, unknown>;
 }
 
@@ -89,20 +96,25 @@ function requireObjectField(field: string, value: unknown): Record<string, unkno
 export function validateStationSite(field: string, s: Record<string, unknown>): StationSite | undefined {
   if (s['position'] === undefined && s['elevationMaskRadians'] === undefined) return undefined;
   if (s['position'] === undefined) {
-    throw new InvalidArgumentError(`${field}.position`, undefined, 'a position { latitudeRadians, longitudeRadians, heightMetres } with elevationMaskRadians');
+    throw new InvalidArgumentError(`${field}.position`, undefined,
+      'a position { latitudeRadians, longitudeRadians, heightMetres } with elevationMaskRadians');
   }
   const p = requireObjectField(`${field}.position`, s['position']);
   rejectUnknownKeys(`${field}.position`, p, ['latitudeRadians', 'longitudeRadians', 'heightMetres']);
   const position: GeodeticPosition = {
     latitude: requireAngle(`${field}.position.latitudeRadians`, p['latitudeRadians'], Math.PI / 2, 'π/2'),
     longitude: requireAngle(`${field}.position.longitudeRadians`, p['longitudeRadians'], 2 * Math.PI, '2π'),
-    height: requireInRange(`${field}.position.heightMetres`, p['heightMetres'], -12_000, 1e7, { unit: 'm above the WGS 84 ellipsoid' }),
+    height: requireInRange(`${field}.position.heightMetres`, p['heightMetres'], -12_000, 1e7,
+      { unit: 'm above the WGS 84 ellipsoid' }),
   };
   if (s['elevationMaskRadians'] === undefined) {
-    throw new InvalidArgumentError(`${field}.elevationMaskRadians`, undefined, 'an elevation mask in radians, in [0, π/2), given with the position');
+    throw new InvalidArgumentError(`${field}.elevationMaskRadians`, undefined,
+      'an elevation mask in radians, in [0, π/2), given with the position');
   }
   const mask = requireAngle(`${field}.elevationMaskRadians`, s['elevationMaskRadians'], Math.PI / 2, 'π/2');
-  if (mask < 0 || mask === Math.PI / 2) throw new InvalidArgumentError(`${field}.elevationMaskRadians`, mask, 'in [0, π/2) rad');
+  if (mask < 0 || mask === Math.PI / 2) {
+    throw new InvalidArgumentError(`${field}.elevationMaskRadians`, mask, 'in [0, π/2) rad');
+  }
   return { position, elevationMask: mask };
 }
 
@@ -116,24 +128,28 @@ export function validateFleetOrbit(field: string, value: unknown, ts: TimeScales
   const e = requireEccentricity(`${field}.eccentricity`, o['eccentricity']);
   const perigee = a * (1 - e);
   if (!(perigee > DEFAULT_CONSTANT_SET.equatorialRadius)) {
-    throw new InvalidArgumentError(`${field}.eccentricity`, e, `a value keeping the perigee a(1 − e) above the Earth (${DEFAULT_CONSTANT_SET.equatorialRadius} m)`,
+    throw new InvalidArgumentError(`${field}.eccentricity`, e,
+      `a value keeping the perigee a(1 − e) above the Earth (${DEFAULT_CONSTANT_SET.equatorialRadius} m)`,
       `perigee ${perigee} m`);
   }
-  const inclination = requireFinite(`${field}.inclinationRadians`, o['inclinationRadians'], 'a finite angle in radians, in [0, π]');
+  const inclination = requireFinite(`${field}.inclinationRadians`, o['inclinationRadians'],
+    'a finite angle in radians, in [0, π]');
   if (inclination < 0 || inclination > Math.PI) {
     throw new InvalidArgumentError(`${field}.inclinationRadians`, inclination, 'in [0, π] rad',
-      inclination > Math.PI && inclination <= 180 ? `${inclination} looks like degrees; ${inclination}° = ${(inclination * Math.PI) / 180} rad` : undefined);
+      inclination > Math.PI && inclination <= 180 ? degreesHint(inclination) : undefined);
   }
   const offset = epoch.secondsSince(elEpoch);
   if (Math.max(Math.abs(offset), Math.abs(offset + horizon)) > MAX_PASS_PROPAGATION_SECONDS) {
-    throw new InvalidArgumentError(`${field}.epoch`, o['epoch'], 'within 366 days of the whole horizon (secular J2 propagation, no drag)');
+    throw new InvalidArgumentError(`${field}.epoch`, o['epoch'],
+      'within 366 days of the whole horizon (secular J2 propagation, no drag)');
   }
   return {
     epoch: elEpoch,
     elements: {
       semiMajorAxis: a, eccentricity: e, inclination,
       raan: requireAngle(`${field}.raanRadians`, o['raanRadians'], 2 * Math.PI, '2π'),
-      argumentOfPerigee: requireAngle(`${field}.argumentOfPerigeeRadians`, o['argumentOfPerigeeRadians'], 2 * Math.PI, '2π'),
+      argumentOfPerigee: requireAngle(`${field}.argumentOfPerigeeRadians`, o['argumentOfPerigeeRadians'], 2 * Math.PI,
+        '2π'),
       meanAnomaly: requireAngle(`${field}.meanAnomalyRadians`, o['meanAnomalyRadians'], 2 * Math.PI, '2π'),
     },
   };
@@ -143,7 +159,8 @@ export function validateFleetOrbit(field: string, value: unknown, ts: TimeScales
  * The passes of one satellite over every station, predicted over [epoch, epoch + horizon] and sorted by
  * start then station. A pass shorter than its station's support is kept with `usable: false`.
  */
-export function computeFleetPasses(orbit: { elements: KeplerianElements; epoch: Instant }, sites: readonly StationSite[],
+export function computeFleetPasses(orbit: { elements: KeplerianElements; epoch: Instant },
+  sites: readonly StationSite[],
   supports: readonly Seconds[], epoch: Instant, horizon: Seconds, timeScales: TimeScales): NormalizedComputedPass[] {
   const prediction = predictPasses(orbit, sites, epoch, horizon, { timeScales });
   const out: NormalizedComputedPass[] = [];

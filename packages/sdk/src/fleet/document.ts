@@ -19,8 +19,8 @@ import {
 } from '../steering/scenario.js';
 import { parseUtcStamp, resolveTimeScales, type TimeScaleOptions } from '../steering/utc-stamps.js';
 import {
-  computeFleetPasses, validateFleetOrbit, validateStationSite, type FleetOrbit, type FleetStationPosition, type NormalizedComputedPass,
-  type StationSite,
+  computeFleetPasses, validateFleetOrbit, validateStationSite, type FleetOrbit, type FleetStationPosition,
+  type NormalizedComputedPass, type StationSite,
 } from './computed-passes.js';
 
 /** A ground station shared by the fleet. */
@@ -131,7 +131,9 @@ function requireId(field: string, value: unknown, seen: Set<string>, what: strin
   return value;
 }
 
-const SATELLITE_FIELDS = ['id', 'name', 'clock', 'tolerance', 'actuator', 'maneuvers', 'costWeights', 'constants', 'passes', 'orbit'] as const;
+const SATELLITE_FIELDS = [
+  'id', 'name', 'clock', 'tolerance', 'actuator', 'maneuvers', 'costWeights', 'constants', 'passes', 'orbit',
+] as const;
 
 /** Validates one satellite as a scenario (errors re-thrown with the `satellites[i].` prefix). */
 function validateSatelliteScenario(root: Record<string, unknown>, sat: Record<string, unknown>, i: number,
@@ -153,9 +155,11 @@ function validateSatelliteScenario(root: Record<string, unknown>, sat: Record<st
 }
 
 /** Validates a satellite's given `passes` (field paths `satellites[i].passes[j].<key>`). */
-function validateGivenPasses(rawPasses: unknown, i: number, stations: readonly { id: string; support: Seconds }[], timeScales: TimeScales,
-  epoch: Instant, epochText: string, horizon: Seconds): NormalizedPass[] {
-  if (!Array.isArray(rawPasses)) throw new InvalidArgumentError(`satellites[${i}].passes`, rawPasses, 'an array of passes (or an orbit to compute them from)');
+function validateGivenPasses(rawPasses: unknown, i: number, stations: readonly { id: string; support: Seconds }[],
+  timeScales: TimeScales, epoch: Instant, epochText: string, horizon: Seconds): NormalizedPass[] {
+  if (!Array.isArray(rawPasses)) {
+    throw new InvalidArgumentError(`satellites[${i}].passes`, rawPasses, 'an array of passes (or an orbit to compute them from)');
+  }
   return rawPasses.map((p, j): NormalizedPass => {
     const field = `satellites[${i}].passes[${j}]`;
     const o = requireObject(field, p);
@@ -226,21 +230,25 @@ export function validateFleet(input: unknown, options: TimeScaleOptions = {}): N
     const { scenario, norm } = validateSatelliteScenario(root, sat, i, options);
     if (sat['orbit'] !== undefined) {
       if (sat['passes'] !== undefined) {
-        throw new InvalidArgumentError(`satellites[${i}].passes`, sat['passes'], 'absent when the satellite gives an orbit (passes are either given or computed, not both)');
+        throw new InvalidArgumentError(`satellites[${i}].passes`, sat['passes'],
+          'absent when the satellite gives an orbit (passes are either given or computed, not both)');
       }
       const orbit = validateFleetOrbit(`satellites[${i}].orbit`, sat['orbit'], timeScales, epoch, norm.horizon);
       const sites = stations.map((s, k): StationSite => {
         if (!s.site) {
           throw new InvalidArgumentError(`stations[${k}].position`, undefined,
-            `a position and elevationMaskRadians: satellites[${i}] (${id}) gives an orbit, so its passes over every station are computed`);
+            `a position and elevationMaskRadians: satellites[${i}] (${id}) gives an orbit, so its passes over every station ` +
+            'are computed');
         }
         return s.site;
       });
       const computed = computeFleetPasses(orbit, sites, stations.map((s) => s.support), epoch, norm.horizon, timeScales);
-      const passes = computed.filter((p) => p.usable).map((p, index): NormalizedPass => ({ station: p.station, start: p.start, end: p.end, index }));
+      const passes = computed.filter((p) => p.usable)
+        .map((p, index): NormalizedPass => ({ station: p.station, start: p.start, end: p.end, index }));
       return { id, scenario, norm, passes, computedPasses: computed };
     }
-    const passes = validateGivenPasses(sat['passes'], i, stations, timeScales, epoch, String(root['epoch']), norm.horizon);
+    const passes = validateGivenPasses(sat['passes'], i, stations, timeScales, epoch, String(root['epoch']),
+      norm.horizon);
     passes.sort((a, b) => a.start - b.start || a.station - b.station || a.index - b.index);
     return { id, scenario, norm, passes };
   });

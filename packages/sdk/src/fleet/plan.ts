@@ -224,8 +224,9 @@ function toFleetPlan(fleet: NormalizedFleet, a: Allocation): FleetPlan {
     const out: FleetSatellitePlan = { id: s.id, feasible: plan.feasible, commands, predicted: plan.predicted, metrics: plan.metrics };
     if (s.computedPasses) {
       out.computedPasses = s.computedPasses.map((p): ComputedPassReport => ({
-        station: fleet.stations[p.station]!.id, start: fleetIso(fleet, p.start), end: fleetIso(fleet, p.end), maxElevationRadians: p.maxElevation,
-        maxElevationAt: fleetIso(fleet, p.maxElevationAt), clippedAtStart: p.clippedAtStart, clippedAtEnd: p.clippedAtEnd, usable: p.usable,
+        station: fleet.stations[p.station]!.id, start: fleetIso(fleet, p.start), end: fleetIso(fleet, p.end),
+        maxElevationRadians: p.maxElevation, maxElevationAt: fleetIso(fleet, p.maxElevationAt),
+        clippedAtStart: p.clippedAtStart, clippedAtEnd: p.clippedAtEnd, usable: p.usable,
       }));
     }
     if (!plan.feasible) {

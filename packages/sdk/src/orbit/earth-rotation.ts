@@ -24,7 +24,10 @@ const ERA_EXTRA_TURNS_PER_DAY = 0.00273781191135448;
 /** ERA at J2000.0 (JD 2451545.0 UT1), in turns (IERS Conventions 2010 eq. 5.15 [M]). */
 const ERA_AT_J2000_TURNS = 0.779057273264;
 
-/** Rate of the Earth rotation angle, in rad per SI second: 2π·1.00273781191135448/86400 (IERS Conventions 2010 eq. 5.15 [M]). */
+/**
+ * Rate of the Earth rotation angle, in rad per SI second: 2π·1.00273781191135448/86400
+ * (IERS Conventions 2010 eq. 5.15 [M]).
+ */
 export const EARTH_ROTATION_ANGLE_RATE: RadiansPerSecond = (TWO_PI * 1.00273781191135448) / 86_400;
 
 /** Throws unless `value` looks like a TimeScales object (the methods this module calls). */

@@ -34,7 +34,8 @@ const HEIGHT_RANGE = { min: -12_000, max: 1e7 } as const;
  * @throws {InvalidArgumentError} naming the first bad field, with a hint when a latitude looks like degrees.
  */
 export function requireGeodeticPosition(value: unknown, argument = 'position'): GeodeticPosition {
-  const p = requireObject(argument, value as object, 'an object { latitude, longitude, height } in radians and metres') as Record<string, unknown>;
+  const expected = 'an object { latitude, longitude, height } in radians and metres';
+  const p = requireObject(argument, value as object, expected) as Record<string, unknown>;
   const lat = requireFinite(`${argument}.latitude`, p['latitude'], 'a finite angle in radians, in [−π/2, π/2]');
   if (Math.abs(lat) > Math.PI / 2) {
     throw new InvalidArgumentError(`${argument}.latitude`, lat, 'in [−π/2, π/2] rad',
@@ -45,7 +46,8 @@ export function requireGeodeticPosition(value: unknown, argument = 'position'): 
     throw new InvalidArgumentError(`${argument}.longitude`, lon, 'in [−2π, 2π] rad',
       Math.abs(lon) <= 360 ? `${lon} looks like degrees; ${lon}° = ${(lon * Math.PI) / 180} rad` : undefined);
   }
-  const height = requireInRange(`${argument}.height`, p['height'], HEIGHT_RANGE.min, HEIGHT_RANGE.max, { unit: 'm above the ellipsoid' });
+  const height = requireInRange(`${argument}.height`, p['height'], HEIGHT_RANGE.min, HEIGHT_RANGE.max,
+    { unit: 'm above the ellipsoid' });
   return { latitude: lat, longitude: lon, height };
 }
 
@@ -72,7 +74,8 @@ export function geodeticToEcefTrusted(latitude: Radians, longitude: Radians, hei
   const sinPhi = Math.sin(latitude);
   const cosPhi = Math.cos(latitude);
   const N = a / Math.sqrt(1 - e2 * sinPhi * sinPhi);
-  return [(N + height) * cosPhi * Math.cos(longitude), (N + height) * cosPhi * Math.sin(longitude), (N * (1 - e2) + height) * sinPhi];
+  const rho = (N + height) * cosPhi;
+  return [rho * Math.cos(longitude), rho * Math.sin(longitude), (N * (1 - e2) + height) * sinPhi];
 }
 
 /**
@@ -105,6 +108,8 @@ export function elevationFromStation(station: GeodeticPosition, pointEcef: Vecto
   const up = localUp(s.latitude, s.longitude);
   const dx = p[0] - r[0], dy = p[1] - r[1], dz = p[2] - r[2];
   const range = Math.hypot(dx, dy, dz);
-  if (!(range > 0)) throw new InvalidArgumentError('pointEcef', pointEcef, 'a point other than the station itself (elevation undefined)');
+  if (!(range > 0)) {
+    throw new InvalidArgumentError('pointEcef', pointEcef, 'a point other than the station (elevation undefined)');
+  }
   return Math.asin(Math.max(-1, Math.min(1, (dx * up[0] + dy * up[1] + dz * up[2]) / range)));
 }

@@ -36,7 +36,8 @@ export function requireMeanElements(value: unknown, argument: string, constants:
   const perigee: Metres = el.semiMajorAxis * (1 - el.eccentricity);
   if (!(perigee > constants.equatorialRadius)) {
     throw new InvalidArgumentError(`${argument}.eccentricity`, el.eccentricity,
-      `a value keeping the perigee a(1 − e) above the equatorial radius ${constants.equatorialRadius} m`, `perigee ${perigee} m`);
+      `a value keeping the perigee a(1 − e) above the equatorial radius ${constants.equatorialRadius} m`,
+      `perigee ${perigee} m`);
   }
   return el;
 }
@@ -70,7 +71,8 @@ export function j2SecularRatesTrusted(el: KeplerianElements, constants: Constant
  * @see D. A. Vallado, Fundamentals of Astrodynamics and Applications, 4th ed. (2013), §9.6, secular J2 rates [M];
  *   the same first-order rates in Kozai (1959) / Brouwer (1959) theory [M].
  */
-export function j2SecularRates(elements: KeplerianElements, constants: ConstantSet = DEFAULT_CONSTANT_SET): J2SecularRates {
+export function j2SecularRates(elements: KeplerianElements,
+  constants: ConstantSet = DEFAULT_CONSTANT_SET): J2SecularRates {
   const set = requireConstantSet('constants', constants);
   return j2SecularRatesTrusted(requireMeanElements(elements, 'elements', set), set);
 }
@@ -93,7 +95,8 @@ function wrap(angle: number): number {
  * @throws {InvalidArgumentError} as {@link j2SecularRates}, or for a non-finite `dt`.
  * @see Vallado, Fundamentals of Astrodynamics and Applications, 4th ed., §9.6 [M].
  */
-export function propagateJ2Secular(elements: KeplerianElements, dt: Seconds, constants: ConstantSet = DEFAULT_CONSTANT_SET): KeplerianElements {
+export function propagateJ2Secular(elements: KeplerianElements, dt: Seconds,
+  constants: ConstantSet = DEFAULT_CONSTANT_SET): KeplerianElements {
   const set = requireConstantSet('constants', constants);
   const el = requireMeanElements(elements, 'elements', set);
   const step = requireFinite('dt', dt, 'a finite time step in seconds');

@@ -57,7 +57,8 @@ function firstAfter(times: Float64Array, t: Seconds): number {
 }
 
 /** Highest value of f inside [start, end]: best sample, refined by golden section around it. */
-function peak(f: Fn, times: Float64Array, values: Float64Array, start: Seconds, end: Seconds, tol: Seconds): { t: Seconds; value: number } {
+function peak(f: Fn, times: Float64Array, values: Float64Array, start: Seconds, end: Seconds,
+  tol: Seconds): { t: Seconds; value: number } {
   let best = { t: start, value: f(start) };
   const atEnd = f(end);
   if (atEnd > best.value) best = { t: end, value: atEnd };
@@ -77,16 +78,21 @@ function peak(f: Fn, times: Float64Array, values: Float64Array, start: Seconds, 
  * The passes of a function sampled at `times` (`values[k] = f(times[k])`, times increasing from 0 to the
  * horizon): maximal intervals with f ≥ level, with starts and ends inside and within `tol` of the crossing.
  */
-export function findPasses(times: Float64Array, values: Float64Array, f: Fn, level: Radians, tol: Seconds): PredictedPass[] {
+export function findPasses(times: Float64Array, values: Float64Array, f: Fn, level: Radians,
+  tol: Seconds): PredictedPass[] {
   const out: PredictedPass[] = [];
   const n = times.length;
   const last = n - 1;
   const above = (k: number): boolean => values[k]! >= level;
-  let open: { start: Seconds; clipped: boolean } | undefined = above(0) ? { start: times[0]!, clipped: true } : undefined;
+  let open: { start: Seconds; clipped: boolean } | undefined =
+    above(0) ? { start: times[0]!, clipped: true } : undefined;
   const close = (end: Seconds, clippedAtEnd: boolean): void => {
     if (!open) return;
     const top = peak(f, times, values, open.start, end, tol);
-    out.push({ start: open.start, end, maxElevation: top.value, maxElevationAt: top.t, clippedAtStart: open.clipped, clippedAtEnd });
+    out.push({
+      start: open.start, end, maxElevation: top.value, maxElevationAt: top.t,
+      clippedAtStart: open.clipped, clippedAtEnd,
+    });
     open = undefined;
   };
   for (let k = 1; k < n; k++) {

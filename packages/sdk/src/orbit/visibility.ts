@@ -16,7 +16,9 @@
 import type { Radians, Seconds, Vector3 } from '../units.js';
 import { InvalidArgumentError } from '../errors.js';
 import { DEFAULT_CONSTANT_SET, type ConstantSet } from '../constants.js';
-import { requireConstantSet, requireInRange, requireObject, requireOptions, requirePositive } from '../internal/validate.js';
+import {
+  requireConstantSet, requireInRange, requireObject, requireOptions, requirePositive,
+} from '../internal/validate.js';
 import { requireInstant, type Instant } from '../time/instant.js';
 import { createTimeScales, type TimeScales } from '../time/scales.js';
 import { BUNDLED_LEAP_SECONDS } from '../time/leap-seconds.js';
@@ -98,7 +100,8 @@ function ecefEvaluator(orbit: MeanOrbit, epoch: Instant, horizon: Seconds, ts: T
   const far = Math.max(Math.abs(offset), Math.abs(offset + horizon));
   if (far > MAX_PASS_PROPAGATION_SECONDS) {
     throw new InvalidArgumentError('orbit.epoch', elEpoch.toString(),
-      `within ${MAX_PASS_PROPAGATION_SECONDS} s (366 days) of the whole prediction window`, `the window reaches ${far} s from it`);
+      `within ${MAX_PASS_PROPAGATION_SECONDS} s (366 days) of the whole prediction window`,
+      `the window reaches ${far} s from it`);
   }
   const rates = j2SecularRatesTrusted(el, set);
   const theta0 = earthRotationAngle(epoch, ts);
@@ -127,12 +130,15 @@ function ecefEvaluator(orbit: MeanOrbit, epoch: Instant, horizon: Seconds, ts: T
 /** Elevation (rad) from a site of the satellite position p[at..at+2] (Vallado 4th ed. §4.4, up component [M]). */
 function elevationOf(site: { r: Vector3; up: Vector3 }, p: Float64Array, at: number): Radians {
   const dx = p[at]! - site.r[0], dy = p[at + 1]! - site.r[1], dz = p[at + 2]! - site.r[2];
-  return Math.asin(Math.max(-1, Math.min(1, (dx * site.up[0] + dy * site.up[1] + dz * site.up[2]) / Math.hypot(dx, dy, dz))));
+  const sine = (dx * site.up[0] + dy * site.up[1] + dz * site.up[2]) / Math.hypot(dx, dy, dz);
+  return Math.asin(Math.max(-1, Math.min(1, sine)));
 }
 
-function resolveOptions(options: PassPredictionOptions | undefined): { ts: TimeScales; set: ConstantSet; opts: PassPredictionOptions } {
+function resolveOptions(options: PassPredictionOptions | undefined):
+  { ts: TimeScales; set: ConstantSet; opts: PassPredictionOptions } {
   const opts = requireOptions('options', options);
-  const ts = opts.timeScales === undefined ? (bundled ??= createTimeScales(BUNDLED_LEAP_SECONDS)) : requireTimeScales('options.timeScales', opts.timeScales);
+  const ts = opts.timeScales === undefined ? (bundled ??= createTimeScales(BUNDLED_LEAP_SECONDS))
+    : requireTimeScales('options.timeScales', opts.timeScales);
   const set = requireConstantSet('options.constants', opts.constants ?? DEFAULT_CONSTANT_SET);
   return { ts, set, opts };
 }
@@ -146,7 +152,8 @@ function resolveOptions(options: PassPredictionOptions | undefined): { ts: TimeS
  * @param at       The instant.
  * @param options  `timeScales`, `constants` (see {@link PassPredictionOptions}).
  * @returns [X, Y, Z] Earth-fixed, in metres.
- * @throws {InvalidArgumentError} for invalid elements, instants, options, or `at` more than 366 days from the elements' epoch.
+ * @throws {InvalidArgumentError} for invalid elements, instants, options, or `at` more than 366 days from the
+ *   elements' epoch.
  */
 export function satellitePositionEcef(orbit: MeanOrbit, at: Instant, options?: PassPredictionOptions): Vector3 {
   const { ts, set } = resolveOptions(options);
@@ -159,9 +166,11 @@ export function satellitePositionEcef(orbit: MeanOrbit, at: Instant, options?: P
 function requireSites(sites: unknown): { r: Vector3; up: Vector3; mask: Radians }[] {
   if (!Array.isArray(sites)) throw new InvalidArgumentError('sites', sites, 'an array of { position, elevationMask }');
   return sites.map((value: unknown, k) => {
-    const s = requireObject(`sites[${k}]`, value as object, 'an object { position, elevationMask }') as Record<string, unknown>;
+    const s = requireObject(`sites[${k}]`, value as object, 'an object { position, elevationMask }') as
+      Record<string, unknown>;
     const p = requireGeodeticPosition(s['position'], `sites[${k}].position`);
-    const mask = requireInRange(`sites[${k}].elevationMask`, s['elevationMask'], 0, Math.PI / 2, { maxExclusive: true, unit: 'rad' });
+    const mask = requireInRange(`sites[${k}].elevationMask`, s['elevationMask'], 0, Math.PI / 2,
+      { maxExclusive: true, unit: 'rad' });
     return { r: geodeticToEcefTrusted(p.latitude, p.longitude, p.height), up: localUp(p.latitude, p.longitude), mask };
   });
 }
@@ -183,7 +192,8 @@ function requireSites(sites: unknown): { r: Vector3; up: Vector3; mask: Radians 
  * @param horizon  Length of the window, in seconds (> 0, ≤ 366 days).
  * @param options  See {@link PassPredictionOptions}.
  * @returns The window and, per station in order, its passes sorted by start.
- * @throws {InvalidArgumentError} naming the bad field; {@link OutOfDomainError} for an epoch outside the leap-second table.
+ * @throws {InvalidArgumentError} naming the bad field.
+ * @throws {OutOfDomainError} for an epoch outside the leap-second table.
  * @see IERS Conventions (2010) eq. 5.15 (ERA) [M]; Vallado, Fundamentals of Astrodynamics and Applications,
  *   4th ed., §9.6 (secular J2) and §4.4 (topocentric elevation) [M]; NIMA TR8350.2 (WGS 84) [M].
  */
@@ -199,7 +209,8 @@ export function predictPasses(orbit: MeanOrbit, sites: readonly GroundSite[], ep
   const step = opts.stepSeconds === undefined ? Math.min(60, period / 200)
     : requireInRange('options.stepSeconds', opts.stepSeconds, 0, 3600, { minExclusive: true, unit: 's' });
   const tol = opts.toleranceSeconds === undefined ? Math.min(PASS_TIME_TOLERANCE_SECONDS, step)
-    : requireInRange('options.toleranceSeconds', opts.toleranceSeconds, 1e-6, step, { unit: `s (at most stepSeconds = ${step})` });
+    : requireInRange('options.toleranceSeconds', opts.toleranceSeconds, 1e-6, step,
+      { unit: `s (at most stepSeconds = ${step})` });
   requirePositive('options.stepSeconds', step, 's');
   const count = Math.ceil(span / step);
   const times = new Float64Array(count + 1);
