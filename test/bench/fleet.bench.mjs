@@ -66,6 +66,28 @@ function oneByOne(doc) {
   }
 }
 
+/**
+ * The same 30 invented clocks with orbits instead of passes: three invented planes of ten MEO satellites (a = 28 410 km,
+ * i = 58.5°) and three invented stations at invented coordinates, so planFleet computes the passes itself.
+ */
+function orbitConstellation(days) {
+  const doc = constellation(days);
+  const deg = Math.PI / 180;
+  const sites = [[41.83, 23.05, 620, 10], [-29.41, 141.12, 150, 5], [64.91, -18.33, 310, 10]];
+  doc.stations = doc.stations.map((st, k) => {
+    const [lat, lon, h, mask] = sites[k];
+    return { ...st, position: { latitudeRadians: lat * deg, longitudeRadians: lon * deg, heightMetres: h }, elevationMaskRadians: mask * deg };
+  });
+  doc.satellites = doc.satellites.map(({ passes: _passes, ...sat }, i) => ({
+    ...sat,
+    orbit: {
+      epoch: doc.epoch, semiMajorAxisMetres: 28_410_000, eccentricity: 0.001, inclinationRadians: 58.5 * deg,
+      raanRadians: (i % 3) * 120 * deg, argumentOfPerigeeRadians: 0, meanAnomalyRadians: (Math.floor(i / 3) * 36 + (i % 3) * 12) * deg,
+    },
+  }));
+  return doc;
+}
+
 function time(fn, repeat) {
   fn(); // warm-up, so the JIT has compiled the path
   const t0 = performance.now();
@@ -84,6 +106,18 @@ export default function run() {
       `${held}/30 held, ${plan.stationSchedule.length} supports; baseline (each satellite alone, all passes) ${(base / 1000).toFixed(2)} s; ` +
       `×${(ms / base).toFixed(1)} of the baseline\n`);
   }
+  // Computed passes: the same planner on a fleet given by orbits, against the same fleet with those passes written out.
+  const orbits = orbitConstellation(7);
+  let computed;
+  const msOrbits = time(() => { computed = planFleet(orbits); }, 1);
+  const given = { ...orbits, satellites: orbits.satellites.map(({ orbit: _orbit, ...sat }, i) => ({
+    ...sat, passes: computed.satellites[i].computedPasses.filter((p) => p.usable).map(({ station, start, end }) => ({ station, start, end })),
+  })) };
+  const msGiven = time(() => planFleet(given), 1);
+  const count = computed.satellites.reduce((n, s) => n + s.computedPasses.length, 0);
+  process.stdout.write(`30 satellites (orbits) × 3 stations (positions) × 7 days: planFleet with computed passes ${(msOrbits / 1000).toFixed(2)} s ` +
+    `(target < 1 s), ${count} passes computed, ${computed.satellites.filter((s) => s.feasible).length}/30 held; same fleet with the passes ` +
+    `given ${(msGiven / 1000).toFixed(2)} s; ×${(msOrbits / msGiven).toFixed(2)} (the pass prediction's share)\n`);
   // Growth with the horizon at one tolerance band (±30 ns holds up to 7 days): 3, 5 and 7 days.
   const days = [3, 5, 7];
   const times = days.map((d) => { const doc = constellation(d); return time(() => planFleet(doc), 1); });

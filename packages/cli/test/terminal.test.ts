@@ -66,6 +66,8 @@ const DEFAULT_RUNS: string[][] = [
   ['simulate', ORIN, '--runs', '20', '--seed', '3'],
   ['review', REVIEW_A, '--runs', '200'],
   ['review', REVIEW_B, '--runs', '200'],
+  ['fleet', at('packages/sdk/examples/fleet/vesper-constellation.json')],
+  ['fleet', at('packages/sdk/examples/fleet/ashgrove-orbits.json')],
 ];
 
 describe('default tables fit 100 columns', () => {

@@ -12,7 +12,9 @@ import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag } from '../flags.
 import { PLAN_UNITS, nsText } from '../steering-output.js';
 
 /** Units of the fleet plan's JSON fields (`units` in `tauline fleet --json`). */
-export const FLEET_UNITS = { ...PLAN_UNITS, start: 'ISO 8601 UTC', end: 'ISO 8601 UTC' } as const;
+export const FLEET_UNITS = {
+  ...PLAN_UNITS, start: 'ISO 8601 UTC', end: 'ISO 8601 UTC', maxElevationRadians: 'rad', maxElevationAt: 'ISO 8601 UTC',
+} as const;
 
 /** Characters of a station lane in the text timeline. */
 const LANE_WIDTH = 84;
@@ -46,6 +48,30 @@ function timeline(doc: FleetDocument, plan: FleetPlan): string[] {
   return out;
 }
 
+/** Pass counts per satellite and station: usable passes, "+n short" for computed passes too short for a support. */
+function passCounts(doc: FleetDocument, plan: FleetPlan, width: number | undefined): string[] {
+  const rows = plan.satellites.map((s, i) => {
+    const sat = doc.satellites[i]!;
+    const cells = doc.stations.map((st) => {
+      if (!s.computedPasses) return String((sat.passes ?? []).filter((p) => p.station === st.id).length);
+      const here = s.computedPasses.filter((p) => p.station === st.id);
+      const short = here.filter((p) => !p.usable).length;
+      return `${here.length - short}${short > 0 ? ` +${short} short` : ''}`;
+    });
+    const top = s.computedPasses && s.computedPasses.length > 0
+      ? `${((Math.max(...s.computedPasses.map((p) => p.maxElevationRadians)) * 180) / Math.PI).toFixed(1)}` : '-';
+    return [s.id, s.computedPasses ? 'computed' : 'given', ...cells, top];
+  });
+  const headers = ['satellite', 'passes', ...doc.stations.map((st) => st.id), 'highest elevation (deg)'];
+  const out = [fitTable(headers, rows, { width }).trimEnd()];
+  if (plan.satellites.some((s) => s.computedPasses)) {
+    out.push('Computed passes: from mean elements (secular J2), Earth rotation with UT1 taken as UTC; times good to ' +
+      'seconds (short: shorter than the station\'s support, not planned with). --json lists each pass with its ' +
+      'maximum elevation.');
+  }
+  return out;
+}
+
 /** The human-readable fleet plan. */
 /** `width`: display columns to fit (TABLE_WIDTH by default in the CLI); undefined for the unlimited `--wide` form. */
 export function fleetToText(doc: FleetDocument, plan: FleetPlan, width: number | undefined): string {
@@ -65,6 +91,7 @@ export function fleetToText(doc: FleetDocument, plan: FleetPlan, width: number |
     rows, { width }).trimEnd());
   out.push('(worst |mean| + z·σ is a sufficient margin, stricter than the per-epoch probability criterion that decides feasibility.)');
   for (const s of plan.satellites.filter((x) => !x.feasible)) out.push(`  ${s.id} (${s.reasonCode}): ${s.reason}`);
+  out.push('', 'Passes per station:', ...passCounts(doc, plan, width));
   out.push('', ...timeline(doc, plan), '');
   if (plan.stationSchedule.length === 0) out.push('No supports needed.');
   else out.push(table(['station', 'satellite', 'support start (UTC)', 'support end (UTC)'], plan.stationSchedule.map((x) => [x.station, x.satellite, x.start, x.end])).trimEnd());
@@ -79,12 +106,19 @@ export const fleetCommand: Command = {
   allowPositionals: true,
   flags: {
     'leap-seconds': LEAP_SECONDS_FLAG,
-    ...formatFlags(TABLE_OR_JSON, { json: 'Print the fleet plan as JSON (feasible, reason, satellites with commands and station, stationSchedule, units, caution); same as --format json.' }),
+    ...formatFlags(TABLE_OR_JSON, {
+      json: 'Print the fleet plan as JSON (feasible, reason, satellites with commands and station and any ' +
+        'computedPasses, stationSchedule, units, caution); same as --format json.',
+    }),
   },
   details: `
 Fleet format: packages/sdk/schema/fleet.schema.json (JSON Schema); times ISO 8601 UTC, quantities SI.
 Each satellite carries what a steering scenario carries except epoch, horizon, contacts and strategy,
-plus its passes over the stations. A station supports one satellite at a time for supportSeconds,
+plus its passes over the stations, given as a list or computed from its mean orbital elements (orbit:
+semiMajorAxisMetres, eccentricity, inclinationRadians, raanRadians, argumentOfPerigeeRadians,
+meanAnomalyRadians at an epoch) and each station's position (latitudeRadians, longitudeRadians,
+heightMetres on WGS 84) and elevationMaskRadians: secular J2 propagation, UT1 taken as UTC, pass
+times good to seconds. A station supports one satellite at a time for supportSeconds,
 with at least setupSeconds between two supports. Supports go first to the satellite whose predicted
 offset leaves its band soonest; each satellite is then planned by the single-satellite planner with
 its supports as its only contacts (see tauline plan --help for the feasibility rule). An infeasible

@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { runCli, type CliRun } from '../run.js';
 
 const VESPER = fileURLToPath(new URL('../../../sdk/examples/fleet/vesper-constellation.json', import.meta.url));
+const ASHGROVE = fileURLToPath(new URL('../../../sdk/examples/fleet/ashgrove-orbits.json', import.meta.url));
 const run = (...argv: string[]): Promise<CliRun> => runCli(['fleet', ...argv]);
 
 function tempFile(name: string, value: unknown): string {
@@ -85,5 +86,49 @@ describe('tauline fleet', () => {
     expect(r.status).toBe(0);
     expect(r.out).toContain('packages/sdk/schema/fleet.schema.json');
     expect(r.out).toContain('Exit status: 0 every satellite feasible, 1 some satellite infeasible');
+  });
+
+  it('tauline fleet ashgrove-orbits.json --json lists the computed passes of every satellite with their maximum elevation, and exits 0', async () => {
+    const r = await run(ASHGROVE, '--json');
+    expect(r.err).toBe('');
+    expect(r.status).toBe(0);
+    const plan = JSON.parse(r.out) as Record<string, any>;
+    expect(plan.units.maxElevationRadians).toBe('rad');
+    for (const s of plan.satellites) {
+      expect(s.computedPasses.length).toBeGreaterThan(5);
+      for (const p of s.computedPasses) {
+        expect(Object.keys(p).sort()).toEqual(['clippedAtEnd', 'clippedAtStart', 'end', 'maxElevationAt', 'maxElevationRadians', 'start', 'station', 'usable']);
+        expect(p.maxElevationRadians).toBeGreaterThan(0);
+      }
+    }
+    for (const x of plan.stationSchedule) {
+      const passes = plan.satellites.find((s: { id: string }) => s.id === x.satellite).computedPasses as { station: string; start: string; end: string }[];
+      expect(passes.some((p) => p.station === x.station && Date.parse(p.start) <= Date.parse(x.start) && Date.parse(x.end) <= Date.parse(p.end))).toBe(true);
+    }
+  });
+
+  it('tauline fleet ashgrove-orbits.json prints the pass counts per satellite and station, marked computed, within 100 columns', async () => {
+    const r = await run(ASHGROVE);
+    expect(r.status).toBe(0);
+    expect(Math.max(...r.out.split('\n').map((l) => [...l].length))).toBeLessThanOrEqual(100);
+    expect(r.out).toMatch(/satellite\s+passes\s+ALDERFELL\s+BRACKENSHAW\s+CINDERVALE\s+highest elevation \(deg\)/);
+    for (const id of ['ASHGROVE-1', 'ASHGROVE-2', 'ASHGROVE-3', 'ASHGROVE-4']) expect(r.out).toMatch(new RegExp(`^${id}\\s+computed(\\s+\\d+){3}\\s+\\d+\\.\\d$`, 'm'));
+    expect(r.out).toMatch(/Computed passes: from mean elements \(secular J2\)/);
+    // The given-pass example says so in the same table.
+    expect((await run(VESPER)).out).toMatch(/^VESPER-1\s+given\s+7\s+7\s+-$/m);
+  });
+
+  it('tauline fleet <file> exits 2 with a one-line error for a semi-major axis in kilometres and for a station without a position', async () => {
+    const doc = JSON.parse(readFileSync(ASHGROVE, 'utf8')) as Record<string, any>;
+    doc.satellites[0].orbit.semiMajorAxisMetres = 28_410;
+    const km = await run(tempFile('km.json', doc));
+    expect(km.status).toBe(2);
+    expect(km.err).toMatch(/^tauline fleet: invalid input: satellites\[0\]\.orbit\.semiMajorAxisMetres .*did you mean 28410 km = 28410000 m\?\n$/);
+    const noSite = JSON.parse(readFileSync(ASHGROVE, 'utf8')) as Record<string, any>;
+    delete noSite.stations[1].position;
+    delete noSite.stations[1].elevationMaskRadians;
+    const r = await run(tempFile('nosite.json', noSite));
+    expect(r.status).toBe(2);
+    expect(r.err).toMatch(/^tauline fleet: invalid input: stations\[1\]\.position .*satellites\[0\] \(ASHGROVE-1\) gives an orbit.*\n$/);
   });
 });

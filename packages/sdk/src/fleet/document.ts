@@ -18,6 +18,10 @@ import {
   type SteeringScenario, type StrategySpec, type ToleranceSpec,
 } from '../steering/scenario.js';
 import { parseUtcStamp, resolveTimeScales, type TimeScaleOptions } from '../steering/utc-stamps.js';
+import {
+  computeFleetPasses, validateFleetOrbit, validateStationSite, type FleetOrbit, type FleetStationPosition,
+  type NormalizedComputedPass, type StationSite,
+} from './computed-passes.js';
 
 /** A ground station shared by the fleet. */
 export interface FleetStation {
@@ -27,6 +31,10 @@ export interface FleetStation {
   setupSeconds: Seconds;
   /** Duration of one support (one satellite served), in seconds (> 0). */
   supportSeconds: Seconds;
+  /** Geodetic position on WGS 84; needed (with `elevationMaskRadians`) when some satellite gives an `orbit`. */
+  position?: FleetStationPosition;
+  /** Lowest usable elevation for computed passes, in radians, in [0, π/2); given with `position`. */
+  elevationMaskRadians?: number;
 }
 
 /** When a station sees a satellite (ISO 8601 UTC stamps with a zone). */
@@ -49,7 +57,10 @@ export interface FleetSatellite {
   costWeights?: CostWeights;
   /** Constant-set name for the manoeuvre rate changes (default `iers-2010`). */
   constants?: string;
-  passes: FleetPass[];
+  /** When each station sees the satellite; give either `passes` or `orbit`, not both. */
+  passes?: FleetPass[];
+  /** Mean orbital elements from which the passes over every station are computed (instead of `passes`). */
+  orbit?: FleetOrbit;
 }
 
 /** A fleet document as written in a fleet file. */
@@ -84,7 +95,10 @@ export interface NormalizedFleetSatellite {
   scenario: SteeringScenario;
   /** `scenario` validated. */
   norm: NormalizedScenario;
+  /** The passes planned with: as given, or the usable computed ones. */
   passes: NormalizedPass[];
+  /** Every pass computed from the satellite's `orbit` (usable or not); absent when the passes were given. */
+  computedPasses?: NormalizedComputedPass[];
 }
 
 /** The fleet after validation: times in seconds since the epoch. */
@@ -117,7 +131,9 @@ function requireId(field: string, value: unknown, seen: Set<string>, what: strin
   return value;
 }
 
-const SATELLITE_FIELDS = ['id', 'name', 'clock', 'tolerance', 'actuator', 'maneuvers', 'costWeights', 'constants', 'passes'] as const;
+const SATELLITE_FIELDS = [
+  'id', 'name', 'clock', 'tolerance', 'actuator', 'maneuvers', 'costWeights', 'constants', 'passes', 'orbit',
+] as const;
 
 /** Validates one satellite as a scenario (errors re-thrown with the `satellites[i].` prefix). */
 function validateSatelliteScenario(root: Record<string, unknown>, sat: Record<string, unknown>, i: number,
@@ -138,6 +154,32 @@ function validateSatelliteScenario(root: Record<string, unknown>, sat: Record<st
   }
 }
 
+/** Validates a satellite's given `passes` (field paths `satellites[i].passes[j].<key>`). */
+function validateGivenPasses(rawPasses: unknown, i: number, stations: readonly { id: string; support: Seconds }[],
+  timeScales: TimeScales, epoch: Instant, epochText: string, horizon: Seconds): NormalizedPass[] {
+  if (!Array.isArray(rawPasses)) {
+    throw new InvalidArgumentError(`satellites[${i}].passes`, rawPasses, 'an array of passes (or an orbit to compute them from)');
+  }
+  return rawPasses.map((p, j): NormalizedPass => {
+    const field = `satellites[${i}].passes[${j}]`;
+    const o = requireObject(field, p);
+    rejectUnknownKeys(field, o, ['station', 'start', 'end']);
+    const station = stations.findIndex((s) => s.id === o['station']);
+    if (station < 0) throw new InvalidArgumentError(`${field}.station`, o['station'], `one of the station ids ${stations.map((s) => s.id).join(', ')}`);
+    const start = parseUtcStamp(timeScales, `${field}.start`, o['start']).secondsSince(epoch);
+    const end = parseUtcStamp(timeScales, `${field}.end`, o['end']).secondsSince(epoch);
+    if (start < 0) throw new InvalidArgumentError(`${field}.start`, o['start'], `at or after the epoch ${epochText}`);
+    if (!(end > start)) throw new InvalidArgumentError(`${field}.end`, o['end'], `after ${field}.start (${String(o['start'])})`);
+    if (end > horizon) throw new InvalidArgumentError(`${field}.end`, o['end'], `at or before the end of the horizon (epoch + ${horizon} s)`);
+    const support = stations[station]!.support;
+    if (end - start < support) {
+      throw new InvalidArgumentError(`${field}.end`, o['end'],
+        `at least stations[${station}].supportSeconds (${support} s) after ${field}.start: a shorter pass cannot hold a support`);
+    }
+    return { station, start, end, index: j };
+  });
+}
+
 /**
  * Validates a fleet document and returns its normalised form.
  *
@@ -147,6 +189,13 @@ function validateSatelliteScenario(root: Record<string, unknown>, sat: Record<st
  * names a known station, has start < end, lies inside [epoch, epoch + horizon] and is at least
  * its station's `supportSeconds` long (a shorter pass could never hold a support, and is
  * reported rather than silently unused). Passes may be written in any order.
+ *
+ * Computed passes: a satellite may give `orbit` (mean elements at their epoch) instead of `passes`
+ * (giving both is refused). Its passes over every station are then predicted over the horizon with
+ * `predictPasses` (secular J2, UT1 = UTC; see orbit/visibility.ts for the accuracy), which needs
+ * every station's `position` and `elevationMaskRadians`. Computed passes are rounded inwards to the
+ * millisecond; those shorter than their station's `supportSeconds` are kept in `computedPasses`
+ * with `usable: false` and not planned with.
  *
  * @param input    The parsed fleet file (unknown JSON).
  * @param options  `timeScales`: the time scales (leap-second table) for the UTC stamps.
@@ -164,11 +213,12 @@ export function validateFleet(input: unknown, options: TimeScaleOptions = {}): N
   const stationIds = new Set<string>();
   const stations = requireNonEmptyArray('stations', root['stations'], 'stations').map((value, k) => {
     const s = requireObject(`stations[${k}]`, value);
-    rejectUnknownKeys(`stations[${k}]`, s, ['id', 'setupSeconds', 'supportSeconds']);
+    rejectUnknownKeys(`stations[${k}]`, s, ['id', 'setupSeconds', 'supportSeconds', 'position', 'elevationMaskRadians']);
     return {
       id: requireId(`stations[${k}].id`, s['id'], stationIds, 'station'),
       setup: requireNonNegative(`stations[${k}].setupSeconds`, s['setupSeconds'], 's'),
       support: requirePositive(`stations[${k}].supportSeconds`, s['supportSeconds'], 's'),
+      site: validateStationSite(`stations[${k}]`, s),
     };
   });
   const satIds = new Set<string>();
@@ -178,31 +228,33 @@ export function validateFleet(input: unknown, options: TimeScaleOptions = {}): N
     rejectUnknownKeys(`satellites[${i}]`, sat, SATELLITE_FIELDS);
     const id = requireId(`satellites[${i}].id`, sat['id'], satIds, 'satellite');
     const { scenario, norm } = validateSatelliteScenario(root, sat, i, options);
-    const rawPasses = sat['passes'];
-    if (!Array.isArray(rawPasses)) throw new InvalidArgumentError(`satellites[${i}].passes`, rawPasses, 'an array of passes');
-    const passes = rawPasses.map((p, j): NormalizedPass => {
-      const field = `satellites[${i}].passes[${j}]`;
-      const o = requireObject(field, p);
-      rejectUnknownKeys(field, o, ['station', 'start', 'end']);
-      const station = stations.findIndex((s) => s.id === o['station']);
-      if (station < 0) throw new InvalidArgumentError(`${field}.station`, o['station'], `one of the station ids ${stations.map((s) => s.id).join(', ')}`);
-      const start = parseUtcStamp(timeScales, `${field}.start`, o['start']).secondsSince(epoch);
-      const end = parseUtcStamp(timeScales, `${field}.end`, o['end']).secondsSince(epoch);
-      if (start < 0) throw new InvalidArgumentError(`${field}.start`, o['start'], `at or after the epoch ${String(root['epoch'])}`);
-      if (!(end > start)) throw new InvalidArgumentError(`${field}.end`, o['end'], `after ${field}.start (${String(o['start'])})`);
-      if (end > norm.horizon) throw new InvalidArgumentError(`${field}.end`, o['end'], `at or before the end of the horizon (epoch + ${norm.horizon} s)`);
-      const support = stations[station]!.support;
-      if (end - start < support) {
-        throw new InvalidArgumentError(`${field}.end`, o['end'],
-          `at least stations[${station}].supportSeconds (${support} s) after ${field}.start: a shorter pass cannot hold a support`);
+    if (sat['orbit'] !== undefined) {
+      if (sat['passes'] !== undefined) {
+        throw new InvalidArgumentError(`satellites[${i}].passes`, sat['passes'],
+          'absent when the satellite gives an orbit (passes are either given or computed, not both)');
       }
-      return { station, start, end, index: j };
-    });
+      const orbit = validateFleetOrbit(`satellites[${i}].orbit`, sat['orbit'], timeScales, epoch, norm.horizon);
+      const sites = stations.map((s, k): StationSite => {
+        if (!s.site) {
+          throw new InvalidArgumentError(`stations[${k}].position`, undefined,
+            `a position and elevationMaskRadians: satellites[${i}] (${id}) gives an orbit, so its passes over every station ` +
+            'are computed');
+        }
+        return s.site;
+      });
+      const computed = computeFleetPasses(orbit, sites, stations.map((s) => s.support), epoch, norm.horizon, timeScales);
+      const passes = computed.filter((p) => p.usable)
+        .map((p, index): NormalizedPass => ({ station: p.station, start: p.start, end: p.end, index }));
+      return { id, scenario, norm, passes, computedPasses: computed };
+    }
+    const passes = validateGivenPasses(sat['passes'], i, stations, timeScales, epoch, String(root['epoch']),
+      norm.horizon);
     passes.sort((a, b) => a.start - b.start || a.station - b.station || a.index - b.index);
     return { id, scenario, norm, passes };
   });
   const first = satellites[0]!.norm;
   return {
-    source: input as FleetDocument, epoch, timeScales, horizon: first.horizon, grid: first.grid, stations, satellites, strategy: first.strategy,
+    source: input as FleetDocument, epoch, timeScales, horizon: first.horizon, grid: first.grid,
+    stations: stations.map(({ id, setup, support }) => ({ id, setup, support })), satellites, strategy: first.strategy,
   };
 }

@@ -7,8 +7,9 @@ export {
   validateFleet,
   type FleetDocument, type FleetStation, type FleetPass, type FleetSatellite, type NormalizedFleet, type NormalizedFleetSatellite, type NormalizedPass,
 } from './document.js';
+export type { FleetOrbit, FleetStationPosition, NormalizedComputedPass } from './computed-passes.js';
 export {
   planFleet,
-  type FleetPlan, type FleetPlanOptions, type FleetSatellitePlan, type FleetCommand, type StationSupport, type FleetInfeasibilityCode,
+  type FleetPlan, type FleetPlanOptions, type ComputedPassReport, type FleetSatellitePlan, type FleetCommand, type StationSupport, type FleetInfeasibilityCode,
 } from './plan.js';
 export { EXACT_SEARCH_LIMIT } from './exact.js';

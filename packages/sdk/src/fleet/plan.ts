@@ -27,6 +27,23 @@ export interface FleetCommand extends SteeringCommand {
  */
 export type FleetInfeasibilityCode = InfeasibilityCode | 'too-few-passes' | 'station-overbooked';
 
+/** A pass computed from a satellite's orbit (ISO 8601 UTC stamps, rounded inwards to the millisecond). */
+export interface ComputedPassReport {
+  station: string;
+  start: string;
+  end: string;
+  /** Highest elevation above the station's horizon during the pass, in radians. */
+  maxElevationRadians: number;
+  /** When the highest elevation occurs (ISO 8601 UTC). */
+  maxElevationAt: string;
+  /** True when the pass began before the epoch (cut by the horizon start). */
+  clippedAtStart: boolean;
+  /** True when the pass goes on after the end of the horizon. */
+  clippedAtEnd: boolean;
+  /** False when the pass is shorter than the station's supportSeconds: it was not planned with. */
+  usable: boolean;
+}
+
 /** The plan of one satellite of the fleet. */
 export interface FleetSatellitePlan {
   id: string;
@@ -38,6 +55,11 @@ export interface FleetSatellitePlan {
   /** As in a steering plan: grid (seconds since the epoch), steered and unsteered mean and 1σ. */
   predicted: SteeringPlan['predicted'];
   metrics: SteeringMetrics;
+  /**
+   * Present when the passes were computed from the satellite's `orbit` (secular J2 mean elements,
+   * UT1 = UTC; pass times good to seconds, see orbit/visibility.ts): every computed pass, usable or not.
+   */
+  computedPasses?: ComputedPassReport[];
 }
 
 /** One support in the station schedule (ISO 8601 UTC). */
@@ -200,6 +222,13 @@ function toFleetPlan(fleet: NormalizedFleet, a: Allocation): FleetPlan {
       return { ...rest, station: fleet.stations[support.station]!.id, reason };
     });
     const out: FleetSatellitePlan = { id: s.id, feasible: plan.feasible, commands, predicted: plan.predicted, metrics: plan.metrics };
+    if (s.computedPasses) {
+      out.computedPasses = s.computedPasses.map((p): ComputedPassReport => ({
+        station: fleet.stations[p.station]!.id, start: fleetIso(fleet, p.start), end: fleetIso(fleet, p.end),
+        maxElevationRadians: p.maxElevation, maxElevationAt: fleetIso(fleet, p.maxElevationAt),
+        clippedAtStart: p.clippedAtStart, clippedAtEnd: p.clippedAtEnd, usable: p.usable,
+      }));
+    }
     if (!plan.feasible) {
       const why = a.blocked[i];
       const detail = plan.reason ? `${plan.reason.charAt(0).toUpperCase()}${plan.reason.slice(1)}` : '';

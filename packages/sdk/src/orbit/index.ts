@@ -25,3 +25,12 @@ export {
 export {
   type EphemerisFrame, LOW_PRECISION_EPHEMERIS_NAME, sunPositionLowPrecision, moonPositionLowPrecision,
 } from './ephemeris.js';
+export {
+  type GeodeticPosition, geodeticToEcef, elevationFromStation,
+} from './geodetic.js';
+export { EARTH_ROTATION_ANGLE_RATE, earthRotationAngle } from './earth-rotation.js';
+export { type J2SecularRates, j2SecularRates, propagateJ2Secular } from './j2-secular.js';
+export {
+  type MeanOrbit, type GroundSite, type PredictedPass, type PassPrediction, type PassPredictionOptions, PASS_TIME_TOLERANCE_SECONDS,
+  MAX_PASS_PROPAGATION_SECONDS, satellitePositionEcef, predictPasses,
+} from './visibility.js';

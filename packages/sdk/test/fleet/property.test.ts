@@ -58,7 +58,7 @@ describe('planFleet guarantees on random small fleets (fast-check, seed 20261203
         const [start, end] = [secondsOf(x.start), secondsOf(x.end)];
         expect(end - start).toBeCloseTo(support.get(x.station)!.supportSeconds, 6);
         const sat = doc.satellites.find((s) => s.id === x.satellite)!;
-        expect(sat.passes.some((p) => p.station === x.station && secondsOf(p.start) <= start + 1e-6 && end <= secondsOf(p.end) + 1e-6)).toBe(true);
+        expect((sat.passes ?? []).some((p) => p.station === x.station && secondsOf(p.start) <= start + 1e-6 && end <= secondsOf(p.end) + 1e-6)).toBe(true);
         const own = plan.stationSchedule.filter((y) => y !== x && y.satellite === x.satellite);
         expect(own.every((y) => secondsOf(y.end) <= start + 1e-6 || end <= secondsOf(y.start) + 1e-6)).toBe(true);
       }
@@ -124,8 +124,9 @@ function bruteForceFeasible(doc: FleetDocument): boolean {
   const setup = new Map(doc.stations.map((s) => [s.id, s.setupSeconds]));
   const perSat = doc.satellites.map((sat) => {
     const subsets: { station: string; start: number; end: number }[][] = [];
-    for (let mask = 0; mask < 1 << sat.passes.length; mask++) {
-      const chosen = sat.passes.filter((_, k) => mask & (1 << k)).map((p) => ({ station: p.station, start: secondsOf(p.start), end: secondsOf(p.end) }));
+    const passes = sat.passes ?? [];
+    for (let mask = 0; mask < 1 << passes.length; mask++) {
+      const chosen = passes.filter((_, k) => mask & (1 << k)).map((p) => ({ station: p.station, start: secondsOf(p.start), end: secondsOf(p.end) }));
       if (chosen.some((a, i) => chosen.some((b, j) => j > i && a.start < b.end && b.start < a.end))) continue;
       const contacts = [...chosen].sort((a, b) => a.start - b.start).map((c) => ({ start: iso(c.start), end: iso(c.end) }));
       const { id: _id, passes: _p, ...rest } = sat;

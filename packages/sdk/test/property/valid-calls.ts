@@ -30,6 +30,9 @@ const CLK_TEXT = fixture('rinex-clock/fictional-304.clk');
 const SCENARIO = example('steering/orin-3-meo.json');
 const REVIEW = example('review/kestrel-block-a.review.json');
 
+/** Epoch of the pass-prediction calls (invented). */
+const passEpoch = (): Instant => createTimeScales(BUNDLED_LEAP_SECONDS).parseIso('2027-03-01T00:00:00Z', 'UTC');
+
 let cache: { eph: KeplerianBroadcastEphemeris; rows: unknown; report: unknown; plan: unknown; clk: unknown; properTime: unknown } | undefined;
 /** Expensive valid inputs, built once. */
 function built(): NonNullable<typeof cache> {
@@ -79,6 +82,14 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
   requireStateVector: () => [STATE, 'state'],
   propagateKepler: () => [ELEMENTS, 3600, IERS_2010.gm],
   propagateKeplerState: () => [ELEMENTS, 3600, IERS_2010.gm],
+  geodeticToEcef: () => [{ latitude: 0.73, longitude: 0.4, height: 620 }],
+  elevationFromStation: () => [{ latitude: 0.73, longitude: 0.4, height: 620 }, [2e7, 1e7, 1.5e7]],
+  earthRotationAngle: () => [passEpoch(), createTimeScales(BUNDLED_LEAP_SECONDS)],
+  j2SecularRates: () => [ELEMENTS, IERS_2010],
+  propagateJ2Secular: () => [ELEMENTS, 3600, IERS_2010],
+  satellitePositionEcef: () => [{ elements: ELEMENTS, epoch: passEpoch() }, passEpoch().plus(600)],
+  predictPasses: () => [{ elements: ELEMENTS, epoch: passEpoch() }, [{ position: { latitude: 0.73, longitude: 0.4, height: 620 }, elevationMask: 0.17 }],
+    passEpoch(), 43_200, { stepSeconds: 120 }],
   systemConstants: () => ['G'],
   weekCrossover: () => [400_000],
   isBeidouGeostationary: () => ['C03'],

@@ -1,0 +1,230 @@
+/**
+ * Pass prediction: when a ground station sees a satellite above an elevation mask, from the
+ * satellite's mean elements (secular J2 propagation, j2-secular.ts), the Earth rotation angle
+ * (earth-rotation.ts) and the station's WGS 84 position (geodetic.ts).
+ *
+ * Accuracy for planning. Pass times are refined by bisection to `toleranceSeconds` (default 0.01 s)
+ * of the model. The model itself leaves out the short-period J2 terms (position errors of order
+ * J2·(R/a)²·a, ~1–2 km at MEO, ~5–10 km at LEO [C]), UT1 − UTC (≤ 0.9 s, shifts every time alike),
+ * precession–nutation of the elements' frame (see earth-rotation.ts), drag, third bodies and refraction.
+ * The test against an independent full-J2 integration (test/fixtures/passes) bounds the resulting
+ * pass-time error per pass by (position error / range) / elevation rate: a few seconds at MEO,
+ * up to tens of seconds at LEO where the elevation changes slowly near the mask.
+ *
+ * @module
+ */
+import type { Radians, Seconds, Vector3 } from '../units.js';
+import { InvalidArgumentError } from '../errors.js';
+import { DEFAULT_CONSTANT_SET, type ConstantSet } from '../constants.js';
+import {
+  requireConstantSet, requireInRange, requireObject, requireOptions, requirePositive,
+} from '../internal/validate.js';
+import { requireInstant, type Instant } from '../time/instant.js';
+import { createTimeScales, type TimeScales } from '../time/scales.js';
+import { BUNDLED_LEAP_SECONDS } from '../time/leap-seconds.js';
+import type { KeplerianElements } from './elements.js';
+import { solveKepler } from './kepler.js';
+import { geodeticToEcefTrusted, localUp, requireGeodeticPosition, type GeodeticPosition } from './geodetic.js';
+import { EARTH_ROTATION_ANGLE_RATE, earthRotationAngle, requireTimeScales } from './earth-rotation.js';
+import { j2SecularRatesTrusted, requireMeanElements } from './j2-secular.js';
+import { findPasses } from './pass-search.js';
+
+/** Mean elements at their own epoch. */
+export interface MeanOrbit {
+  /** Mean elements (a in metres, angles in radians) in the inertial frame of date (see earth-rotation.ts). */
+  elements: KeplerianElements;
+  /** Epoch of the elements. */
+  epoch: Instant;
+}
+
+/** A station that sees satellites above an elevation mask. */
+export interface GroundSite {
+  /** Geodetic position on WGS 84 (rad, m). */
+  position: GeodeticPosition;
+  /** Lowest usable elevation, in radians, in [0, π/2). */
+  elevationMask: Radians;
+}
+
+/** One predicted pass; times in seconds since the prediction's epoch. */
+export interface PredictedPass {
+  /** First time with elevation ≥ mask (within the tolerance), or 0 when clipped at the start. */
+  start: Seconds;
+  /** Last time with elevation ≥ mask (within the tolerance), or the horizon when clipped at the end. */
+  end: Seconds;
+  /** Highest elevation during the pass, in radians. */
+  maxElevation: Radians;
+  /** When the highest elevation occurs, in seconds since the epoch. */
+  maxElevationAt: Seconds;
+  /** True when the satellite was already above the mask at the epoch (the pass began earlier). */
+  clippedAtStart: boolean;
+  /** True when the satellite is still above the mask at the end of the horizon. */
+  clippedAtEnd: boolean;
+}
+
+/** Passes of one satellite over several stations: `passes[k]` are station k's, sorted by start and disjoint. */
+export interface PassPrediction {
+  epoch: Instant;
+  /** Length of the prediction window, in seconds. */
+  horizon: Seconds;
+  passes: PredictedPass[][];
+}
+
+/** Options of {@link predictPasses} and {@link satellitePositionEcef}. */
+export interface PassPredictionOptions {
+  /** Leap-second table for UTC (taken as UT1); default the bundled table. */
+  timeScales?: TimeScales;
+  /** GM, equatorial radius and J2 of the propagation; default IERS 2010. */
+  constants?: ConstantSet;
+  /** Sampling step of the elevation search, in seconds, in (0, 3600]; default min(60 s, period/200). */
+  stepSeconds?: Seconds;
+  /** Bisection tolerance on pass start and end times, in seconds, in [1e-6, stepSeconds]; default 0.01 s. */
+  toleranceSeconds?: Seconds;
+}
+
+/** Default tolerance of the pass start and end times, in seconds. */
+export const PASS_TIME_TOLERANCE_SECONDS: Seconds = 0.01;
+/** Longest propagation from the elements' epoch accepted, in seconds (366 days): secular J2 only, no drag. */
+export const MAX_PASS_PROPAGATION_SECONDS: Seconds = 366 * 86_400;
+
+let bundled: TimeScales | undefined;
+
+/** Writes the satellite's Earth-fixed position (m) at t seconds after the prediction epoch into `out[at..at+2]`. */
+type EcefAt = (t: Seconds, out: Float64Array, at: number) => void;
+
+/** Builds the Earth-fixed position function: secular J2 elements → inertial position → R3(ERA). */
+function ecefEvaluator(orbit: MeanOrbit, epoch: Instant, horizon: Seconds, ts: TimeScales, set: ConstantSet): EcefAt {
+  const o = requireObject('orbit', orbit as object, 'an object { elements, epoch }') as Record<string, unknown>;
+  const el = requireMeanElements(o['elements'], 'orbit.elements', set);
+  const elEpoch = requireInstant('orbit.epoch', o['epoch']);
+  const offset = epoch.secondsSince(elEpoch);
+  const far = Math.max(Math.abs(offset), Math.abs(offset + horizon));
+  if (far > MAX_PASS_PROPAGATION_SECONDS) {
+    throw new InvalidArgumentError('orbit.epoch', elEpoch.toString(),
+      `within ${MAX_PASS_PROPAGATION_SECONDS} s (366 days) of the whole prediction window`,
+      `the window reaches ${far} s from it`);
+  }
+  const rates = j2SecularRatesTrusted(el, set);
+  const theta0 = earthRotationAngle(epoch, ts);
+  const { semiMajorAxis: a, eccentricity: e, inclination: i } = el;
+  const ci = Math.cos(i), si = Math.sin(i);
+  const b = a * Math.sqrt((1 - e) * (1 + e));
+  return (t: Seconds, out: Float64Array, at: number): void => {
+    const dt = offset + t;
+    const raan = el.raan + rates.raanRate * dt;
+    const w = el.argumentOfPerigee + rates.argumentOfPerigeeRate * dt;
+    const E = solveKepler((el.meanAnomaly + rates.meanAnomalyRate * dt) % (2 * Math.PI), e);
+    // Perifocal x = a(cos E − e), y = b sin E, rotated by R3(−Ω)R1(−i)R3(−ω) (as elementsToState, Vallado Alg. 10 [M]).
+    const xp = a * (Math.cos(E) - e), yp = b * Math.sin(E);
+    const cO = Math.cos(raan), sO = Math.sin(raan), cw = Math.cos(w), sw = Math.sin(w);
+    const x = xp * (cO * cw - sO * sw * ci) + yp * (-cO * sw - sO * cw * ci);
+    const y = xp * (sO * cw + cO * sw * ci) + yp * (-sO * sw + cO * cw * ci);
+    // r_ECEF = R3(θ)·r: [GCRS] = Q·R·W [ITRS] with R = R3(−ERA), Q = W = identity (IERS Conventions 2010 eq. 5.1 [M]).
+    const theta = theta0 + EARTH_ROTATION_ANGLE_RATE * t;
+    const c = Math.cos(theta), s = Math.sin(theta);
+    out[at] = c * x + s * y;
+    out[at + 1] = -s * x + c * y;
+    out[at + 2] = xp * sw * si + yp * cw * si;
+  };
+}
+
+/** Elevation (rad) from a site of the satellite position p[at..at+2] (Vallado 4th ed. §4.4, up component [M]). */
+function elevationOf(site: { r: Vector3; up: Vector3 }, p: Float64Array, at: number): Radians {
+  const dx = p[at]! - site.r[0], dy = p[at + 1]! - site.r[1], dz = p[at + 2]! - site.r[2];
+  const sine = (dx * site.up[0] + dy * site.up[1] + dz * site.up[2]) / Math.hypot(dx, dy, dz);
+  return Math.asin(Math.max(-1, Math.min(1, sine)));
+}
+
+function resolveOptions(options: PassPredictionOptions | undefined):
+  { ts: TimeScales; set: ConstantSet; opts: PassPredictionOptions } {
+  const opts = requireOptions('options', options);
+  const ts = opts.timeScales === undefined ? (bundled ??= createTimeScales(BUNDLED_LEAP_SECONDS))
+    : requireTimeScales('options.timeScales', opts.timeScales);
+  const set = requireConstantSet('options.constants', opts.constants ?? DEFAULT_CONSTANT_SET);
+  return { ts, set, opts };
+}
+
+/**
+ * Earth-fixed position of a satellite at an instant from its mean elements: secular J2 propagation
+ * (Vallado §9.6 [M]), Kepler's equation, then rotation by the Earth rotation angle with UT1 = UTC
+ * (IERS Conventions 2010 eq. 5.15 [M]). Short-period J2 terms are not included (see the module note).
+ *
+ * @param orbit    Mean elements and their epoch.
+ * @param at       The instant.
+ * @param options  `timeScales`, `constants` (see {@link PassPredictionOptions}).
+ * @returns [X, Y, Z] Earth-fixed, in metres.
+ * @throws {InvalidArgumentError} for invalid elements, instants, options, or `at` more than 366 days from the
+ *   elements' epoch.
+ */
+export function satellitePositionEcef(orbit: MeanOrbit, at: Instant, options?: PassPredictionOptions): Vector3 {
+  const { ts, set } = resolveOptions(options);
+  const out = new Float64Array(3);
+  ecefEvaluator(orbit, requireInstant('at', at), 0, ts, set)(0, out, 0);
+  return [out[0]!, out[1]!, out[2]!];
+}
+
+/** Validates the stations (fields `sites[k].position.*`, `sites[k].elevationMask`). */
+function requireSites(sites: unknown): { r: Vector3; up: Vector3; mask: Radians }[] {
+  if (!Array.isArray(sites)) throw new InvalidArgumentError('sites', sites, 'an array of { position, elevationMask }');
+  return sites.map((value: unknown, k) => {
+    const s = requireObject(`sites[${k}]`, value as object, 'an object { position, elevationMask }') as
+      Record<string, unknown>;
+    const p = requireGeodeticPosition(s['position'], `sites[${k}].position`);
+    const mask = requireInRange(`sites[${k}].elevationMask`, s['elevationMask'], 0, Math.PI / 2,
+      { maxExclusive: true, unit: 'rad' });
+    return { r: geodeticToEcefTrusted(p.latitude, p.longitude, p.height), up: localUp(p.latitude, p.longitude), mask };
+  });
+}
+
+/**
+ * Predicts the passes of one satellite over several stations in [epoch, epoch + horizon].
+ *
+ * Method: the elevation el(t) = asin(ρ·û/|ρ|) of the satellite (see {@link satellitePositionEcef})
+ * above each station's geodetic horizon is sampled every `stepSeconds`; each crossing of the mask
+ * is refined by bisection on el(t) − mask to `toleranceSeconds`, so `start` and `end` lie inside
+ * the pass (el ≥ mask) and within the tolerance of the crossing. A local maximum below the mask
+ * between samples (a short pass) or a local minimum above it (two passes) is searched by golden
+ * section. A pass shorter than one step at the very start or end of the window can be missed.
+ * Passes cut by the window are returned clipped, with `clippedAtStart` / `clippedAtEnd` set.
+ *
+ * @param orbit    Mean elements and their epoch (at most 366 days from any time of the window).
+ * @param sites    Stations: WGS 84 geodetic position (rad, m) and elevation mask (rad).
+ * @param epoch    Start of the window.
+ * @param horizon  Length of the window, in seconds (> 0, ≤ 366 days).
+ * @param options  See {@link PassPredictionOptions}.
+ * @returns The window and, per station in order, its passes sorted by start.
+ * @throws {InvalidArgumentError} naming the bad field.
+ * @throws {OutOfDomainError} for an epoch outside the leap-second table.
+ * @see IERS Conventions (2010) eq. 5.15 (ERA) [M]; Vallado, Fundamentals of Astrodynamics and Applications,
+ *   4th ed., §9.6 (secular J2) and §4.4 (topocentric elevation) [M]; NIMA TR8350.2 (WGS 84) [M].
+ */
+export function predictPasses(orbit: MeanOrbit, sites: readonly GroundSite[], epoch: Instant, horizon: Seconds,
+  options?: PassPredictionOptions): PassPrediction {
+  const { ts, set, opts } = resolveOptions(options);
+  const start = requireInstant('epoch', epoch);
+  const span = requireInRange('horizon', horizon, 0, MAX_PASS_PROPAGATION_SECONDS, { minExclusive: true, unit: 's' });
+  const checked = requireSites(sites);
+  const ecef = ecefEvaluator(orbit, start, span, ts, set);
+  const a = (orbit as MeanOrbit).elements.semiMajorAxis;
+  const period = 2 * Math.PI * Math.sqrt((a * a * a) / set.gm);
+  const step = opts.stepSeconds === undefined ? Math.min(60, period / 200)
+    : requireInRange('options.stepSeconds', opts.stepSeconds, 0, 3600, { minExclusive: true, unit: 's' });
+  const tol = opts.toleranceSeconds === undefined ? Math.min(PASS_TIME_TOLERANCE_SECONDS, step)
+    : requireInRange('options.toleranceSeconds', opts.toleranceSeconds, 1e-6, step,
+      { unit: `s (at most stepSeconds = ${step})` });
+  requirePositive('options.stepSeconds', step, 's');
+  const count = Math.ceil(span / step);
+  const times = new Float64Array(count + 1);
+  const positions = new Float64Array(3 * (count + 1));
+  for (let k = 0; k <= count; k++) {
+    times[k] = Math.min(k * step, span);
+    ecef(times[k]!, positions, 3 * k);
+  }
+  const scratch = new Float64Array(3);
+  const passes = checked.map((site) => {
+    const elevation = (t: Seconds): Radians => { ecef(t, scratch, 0); return elevationOf(site, scratch, 0); };
+    const sampled = new Float64Array(count + 1);
+    for (let k = 0; k <= count; k++) sampled[k] = elevationOf(site, positions, 3 * k);
+    return findPasses(times, sampled, elevation, site.mask, tol);
+  });
+  return { epoch: start, horizon: span, passes };
+}
