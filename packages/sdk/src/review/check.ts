@@ -7,7 +7,9 @@
  */
 import { CONSTANT_SETS, DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, constantSet,
   type ConstantSet } from '../constants.js';
-import { meanClockRate, semiMajorAxisForMeanRate, type ReferenceClock } from '../relativity/rate.js';
+import {
+  meanClockRate, meanRateParts, reciprocalOffset, semiMajorAxisForMeanRate, type ReferenceClock,
+} from '../relativity/rate.js';
 import { j2SecularClockRate, osculatingMinusMeanSemiMajorAxis } from '../relativity/j2.js';
 import { InvalidArgumentError } from '../errors.js';
 import { createRandom, MAX_SEED } from '../internal/random.js';
@@ -61,14 +63,12 @@ const GPS_CONVENTIONAL_OFFSET = -4.4647e-10;
 /** GM of the Earth plus the Moon, m³/s² (IERS 2010 GM_E [V2] + GM_Moon 4.9028e12 [M]); a geocentric/barycentric mix-up. */
 const GM_EARTH_PLUS_MOON = 3.986004418e14 + 4.9028e12;
 
-/** Factory offset 1/(1+r) − 1 for a fractional rate r: the oscillator is set so that in orbit it keeps the reference rate. */
-function offsetForRate(rate: number): number {
-  return -rate / (1 + rate);
-}
+/** Factory offset 1/(1+r) − 1 for a fractional rate r (rate.ts's cancellation-free form): in orbit the oscillator keeps the reference rate. */
+const offsetForRate = reciprocalOffset;
 
-/** Mean fractional rate of a Kepler-orbit clock vs TT or TCG for an arbitrary GM (IERS Conventions 2010 eq. 10.9 averaged; Ashby 2003 §5). */
+/** Mean fractional rate of a Kepler-orbit clock vs TT or TCG for an arbitrary GM: rate.ts's one formula (IERS 2010 eq. 10.9 averaged). */
 function rateFor(a: number, gm: number, lG: number, reference: ReferenceClock): number {
-  return (reference === 'tt' ? lG : 0) - (3 * gm) / (2 * a * SPEED_OF_LIGHT_SQUARED);
+  return meanRateParts(a, gm, lG, reference).fractionalRate;
 }
 
 /** Splits a finite double into an exact BigInt mantissa and a power-of-two exponent: x = m·2^e. */
@@ -120,8 +120,7 @@ interface Hypothesis { code: Diagnosis['code']; value: number; explain: string }
 function hypotheses(sc: ReviewSpacecraft, set: ConstantSet, reference: ReferenceClock, others: readonly { id: string; offset: number }[]): Hypothesis[] {
   const a = sc.orbit.semiMajorAxis;
   const expected = offsetForRate(rateFor(a, set.gm, set.lG, reference));
-  const gravitational = (reference === 'tt' ? set.lG : 0) - set.gm / (a * SPEED_OF_LIGHT_SQUARED);
-  const velocity = -set.gm / (2 * a * SPEED_OF_LIGHT_SQUARED);
+  const { gravitational, velocity } = meanRateParts(a, set.gm, set.lG, reference);
   const list: Hypothesis[] = [
     { code: 'sign-flipped', value: -expected, explain: 'the offset was entered with the wrong sign (the clock must be set LOW on the ground because in orbit it runs fast)' },
     { code: 'kilometres-for-metres', value: offsetForRate(rateFor(a / 1000, set.gm, set.lG, reference)), explain: `the semi-major axis was used in kilometres (${a / 1000}) where the formula expects metres` },
@@ -250,7 +249,8 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
     if (!explained && verdict === 'fail') {
       let implied = Number.NaN;
       try {
-        implied = semiMajorAxisForMeanRate(1 / (1 + configured) - 1, { constants: set, reference });
+        // The rate this offset compensates, −c/(1 + c): the direct 1/(1 + c) − 1 lost ~7 digits (≈ 9 m of a).
+        implied = semiMajorAxisForMeanRate(reciprocalOffset(configured), { constants: set, reference });
       } catch { /* no orbit above the Earth needs this offset */ }
       const plausible = Number.isFinite(implied) && implied < 1e9;
       diagnosis.push({
