@@ -141,6 +141,19 @@ export function requireObject<T extends object>(argument: string, value: T, expe
   return value;
 }
 
+/**
+ * Refuses a field that a file format does not define, naming it (a dotted path under `field`) and the known
+ * fields, so a misspelt key is an error instead of a silently ignored one.
+ */
+export function rejectUnknownKeys(field: string, obj: Record<string, unknown>, allowed: readonly string[]): void {
+  for (const key of Object.keys(obj)) {
+    if (!allowed.includes(key)) {
+      throw new InvalidArgumentError(`${field ? `${field}.` : ''}${key}`, obj[key],
+        `absent: it is not a field of this object (known fields: ${allowed.join(', ')})`);
+    }
+  }
+}
+
 /** Frequencies accepted for oscillators, synthesizer clocks and their references, in Hz: 1 Hz to 1 THz (our own bounds). */
 export const FREQUENCY_RANGE_HZ = { min: 1, max: 1e12 } as const;
 

@@ -7,7 +7,9 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
-import { requireFinite, requireNonNegative, requireOrbitRadius, requirePositive } from '../internal/validate.js';
+import {
+  rejectUnknownKeys, requireFinite, requireNonNegative, requireOrbitRadius, requirePositive,
+} from '../internal/validate.js';
 import { normalQuantile } from '../internal/special-functions.js';
 import type { Dimensionless, Metres, PerSecond, Seconds } from '../units.js';
 import type { Instant } from '../time/instant.js';
@@ -215,15 +217,8 @@ function requireArray(field: string, value: unknown): unknown[] {
   return value;
 }
 
-/** Refuses a field that the format does not define, naming it and the known fields. @internal */
-export function rejectUnknownKeys(field: string, obj: Record<string, unknown>, allowed: readonly string[]): void {
-  for (const key of Object.keys(obj)) {
-    if (!allowed.includes(key)) {
-      throw new InvalidArgumentError(`${field ? `${field}.` : ''}${key}`, obj[key],
-        `absent: it is not a field of this object (known fields: ${allowed.join(', ')})`);
-    }
-  }
-}
+/** Refuses a field that the format does not define (internal/validate.ts; re-exported for the fleet document). @internal */
+export { rejectUnknownKeys };
 
 /**
  * Converts a noise spec to q1, q2, q3 (Zucca & Tavella 2005 relations, physics-refs §11). A stability
@@ -361,7 +356,7 @@ export function validateScenario(input: unknown, options: TimeScaleOptions = {})
     }
     constants = CONSTANT_SETS[name.toLowerCase()]!;
   }
-  for (const key of ['name', 'description'] as const) {
+  for (const key of ['$schema', 'name', 'description'] as const) {
     if (root[key] !== undefined && typeof root[key] !== 'string') throw new InvalidArgumentError(key, root[key], 'a string');
   }
   const epoch = parseUtcStamp(timeScales, 'epoch', root['epoch']);
