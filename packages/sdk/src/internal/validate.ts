@@ -141,6 +141,18 @@ export function requireObject<T extends object>(argument: string, value: T, expe
   return value;
 }
 
+/** Throws unless `value` is a JSON object (not null, not an array); returns it as a record of its fields. */
+export function requireRecord(field: string, value: unknown): Record<string, unknown> {
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) throw new InvalidArgumentError(field, value, 'an object');
+  return value as Record<string, unknown>;
+}
+
+/** Throws unless `value` is an array. */
+export function requireArray(field: string, value: unknown): unknown[] {
+  if (!Array.isArray(value)) throw new InvalidArgumentError(field, value, 'an array');
+  return value;
+}
+
 /**
  * Refuses a field that a file format does not define, naming it (a dotted path under `field`) and the known
  * fields, so a misspelt key is an error instead of a silently ignored one.
