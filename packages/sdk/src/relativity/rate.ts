@@ -7,10 +7,11 @@
  * @module
  */
 import type { Dimensionless, Metres } from '../units.js';
-import { DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
+import { SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet, type ConstantsOptions } from '../constants.js';
+import { constantsOf, readOptions } from '../internal/options.js';
 import { InvalidArgumentError } from '../errors.js';
 import { FLIGHT_CONFIGURATION_CAUTION } from '../caution.js';
-import { requireConstantSet, requireFinite, requireOptions, requireOrbitRadius } from '../internal/validate.js';
+import { requireFinite, requireOrbitRadius } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 
 /** The coordinate time a rate refers to: TT (clocks on the geoid) or TCG (geocentric coordinate time). */
@@ -20,9 +21,7 @@ export type ReferenceClock = 'tt' | 'tcg';
 export const REFERENCE_CLOCKS: readonly ReferenceClock[] = ['tt', 'tcg'];
 
 /** Options shared by the rate functions. */
-export interface RateOptions {
-  /** Constant set (GM, L_G); default IERS 2010. */
-  constants?: ConstantSet;
+export interface RateOptions extends ConstantsOptions {
   /** Reference time scale; default `'tt'`. */
   reference?: ReferenceClock;
 }
@@ -67,8 +66,8 @@ export function requireReferenceClock(argument: string, value: unknown): Referen
 }
 
 function resolveOptions(value: RateOptions | undefined): { constants: ConstantSet; reference: ReferenceClock } {
-  const options = requireOptions('options', value);
-  const constants = options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet('options.constants', options.constants);
+  const options = readOptions('options', value);
+  const constants = constantsOf('options', options);
   const reference = options.reference === undefined ? 'tt' : requireReferenceClock('options.reference', options.reference);
   return { constants, reference };
 }

@@ -79,7 +79,7 @@ export function configuredFraction(configuredOffset: ConfiguredOffset, nominalHz
  * times the rate sensitivity 3GM/(2a²c²) (derivative of IERS 2010 eq. 10.9 averaged, our own derivation [C]).
  */
 function j2Ambiguity(a: number, inclination: number, constants: ConstantSet): { metres: number; fractionalRate: number } {
-  const metres = Math.abs(osculatingMinusMeanSemiMajorAxis(a, inclination, 0, constants));
+  const metres = Math.abs(osculatingMinusMeanSemiMajorAxis(a, inclination, 0, { constants }));
   return { metres, fractionalRate: (3 * constants.gm) / (2 * a * a * SPEED_OF_LIGHT_SQUARED) * metres };
 }
 
@@ -168,7 +168,7 @@ function resolveSpacecraft(input: ReviewInput, sc: ReviewSpacecraft): ResolvedSp
   // 25 000 km. parseReviewInput has required the argument of latitude of an osculating a.
   const j2 = kind ? j2SecularClockRate({
     semiMajorAxis, eccentricity, inclination, semiMajorAxisKind: kind, ...(argumentOfLatitude !== undefined ? { argumentOfLatitude } : {}),
-  }, set).j2Correction : 0;
+  }, { constants: set }).j2Correction : 0;
   const totalRate = rate.fractionalRate + j2;
   return { sc, set, reference, rate, j2, totalRate, expected: offsetForRate(totalRate) };
 }
