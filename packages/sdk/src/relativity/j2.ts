@@ -246,7 +246,8 @@ export const J2_AVERAGING_ORBITS = 8;
  * (F. J. Harris, Proc. IEEE 66 (1978) 51–83, cosᵅ windows [M]), so the 1/rev and 2/rev terms of U_J2 leave
  * < 1e-18 of rate; ∫w dt = 3W/8.
  */
-function windowedMeanJ2Potential(p: readonly number[], v: readonly number[], period: number, constants: ConstantSet): number {
+function windowedMeanJ2Potential(p: readonly [number, number, number], v: readonly [number, number, number], period: number,
+  constants: ConstantSet): number {
   const gm = constants.gm;
   const k = gm * constants.j2 * constants.equatorialRadius ** 2;
   const rMin = constants.equatorialRadius;
@@ -276,7 +277,7 @@ function windowedMeanJ2Potential(p: readonly number[], v: readonly number[], per
   };
   const scale = Math.abs(k) / rMin ** 3;
   const rtol = 1e-12;
-  const result = integrateDop853(rhs, 0, [p[0]!, p[1]!, p[2]!, v[0]!, v[1]!, v[2]!, 0], window, {
+  const result = integrateDop853(rhs, 0, [...p, ...v, 0], window, {
     relativeTolerance: rtol,
     absoluteTolerance: [rtol, rtol, rtol, rtol * 1e-3, rtol * 1e-3, rtol * 1e-3, rtol * scale * period],
     sampleTimes: [window],
@@ -288,7 +289,8 @@ function windowedMeanJ2Potential(p: readonly number[], v: readonly number[], per
       }
     },
   });
-  return result.samples[6]! / ((3 * window) / 8);
+  const [, , , , , , weightedIntegral = Number.NaN] = result.samples; // the 7th component, always present
+  return weightedIntegral / ((3 * window) / 8);
 }
 
 /**
