@@ -26,7 +26,8 @@ export function readOptions<T extends object>(argument: string, value: T | undef
 
 /** The constant set of checked options: `options.constants` validated once, or IERS 2010 when absent. */
 export function constantsOf(argument: string, options: ConstantsOptions): ConstantSet {
-  return options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet(`${argument}.constants`, options.constants);
+  const { constants } = options;
+  return constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet(`${argument}.constants`, constants);
 }
 
 /** Both at once: checks the options argument and returns its constant set. */

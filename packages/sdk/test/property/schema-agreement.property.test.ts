@@ -9,34 +9,79 @@ const json = (path: string): unknown => JSON.parse(readFileSync(new URL(`../../$
 
 /** Refusals about stamps that a pattern cannot make: the calendar, leap seconds and the table's span. */
 const STAMP_RULES: ValidatorOnlyRule[] = [
-  { path: /./, message: /must be an ISO 8601 UTC date-time/, why: 'day of month past its end (e.g. 02-30), or :60 where the table has no leap second' },
-  { path: /./, message: /^OutOfDomainError: .*outside the valid span/, why: 'a stamp or the horizon end outside the leap-second table in use' },
+  {
+    path: /./, message: /must be an ISO 8601 UTC date-time/,
+    why: 'day of month past its end (e.g. 02-30), or :60 where the table has no leap second',
+  },
+  {
+    path: /./, message: /^OutOfDomainError: .*outside the valid span/,
+    why: 'a stamp or the horizon end outside the leap-second table in use',
+  },
 ];
 
-/** Cross-field rules of a steering scenario (also those of each fleet satellite), stated in the schema's descriptions. */
+/** Cross-field rules of a steering scenario (and of each fleet satellite), stated in the schema's descriptions. */
 const SCENARIO_RULES: ValidatorOnlyRule[] = [
   ...STAMP_RULES,
-  { path: /clock\.covariance\[\d\]\[\d\]$/, message: /a covariance is (symmetric|positive semi-definite)|a variance ≥ 0/, why: 'symmetry, Cauchy–Schwarz and the diagonal relate the matrix entries' },
-  { path: /(^|\.)contacts\[\d+\]\.(start|end)$/, message: /windows must be sorted|windows must not overlap|after contacts\[\d+\]\.start|(at or before the end|at or after the epoch|inside the horizon)/, why: 'windows against each other and against epoch + horizon' },
+  {
+    path: /clock\.covariance\[\d\]\[\d\]$/,
+    message: /a covariance is (symmetric|positive semi-definite)|a variance ≥ 0/,
+    why: 'symmetry, Cauchy–Schwarz and the diagonal relate the matrix entries',
+  },
+  {
+    path: /(^|\.)contacts\[\d+\]\.(start|end)$/,
+    message: /windows must (be sorted|not overlap)|after contacts\[\d+\]\.start|at or (before the end|after the epoch)/,
+    why: 'windows against each other and against epoch + horizon',
+  },
   { path: /^gridSeconds$/, message: /horizonSeconds/, why: 'grid against the horizon' },
-  { path: /actuator\.maxFrequencyStep$/, message: /at least actuator\.frequencyResolution/, why: 'step against resolution' },
-  { path: /actuator\.phaseSteps\.maxStep$/, message: /at least actuator\.phaseSteps\.resolution/, why: 'step against resolution' },
-  { path: /actuator\.initialFrequencySteering$/, message: /inside actuator\.cumulativeFrequencyRange/, why: 'value against the range' },
-  { path: /^operations\.estimateIntervalSeconds$/, message: /at most horizonSeconds/, why: 'interval against the horizon' },
+  {
+    path: /actuator\.maxFrequencyStep$/, message: /at least actuator\.frequencyResolution/,
+    why: 'step against resolution',
+  },
+  {
+    path: /actuator\.phaseSteps\.maxStep$/, message: /at least actuator\.phaseSteps\.resolution/,
+    why: 'step against resolution',
+  },
+  {
+    path: /actuator\.initialFrequencySteering$/, message: /inside actuator\.cumulativeFrequencyRange/,
+    why: 'value against the range',
+  },
+  {
+    path: /^operations\.estimateIntervalSeconds$/, message: /at most horizonSeconds/,
+    why: 'interval against the horizon',
+  },
   { path: /maneuvers\[\d+\]\.at$/, message: /inside the horizon/, why: 'stamp against epoch + horizon' },
 ];
 
 const FLEET_RULES: ValidatorOnlyRule[] = [
   ...SCENARIO_RULES,
-  { path: /^satellites\[\d+\]\.passes\[\d+\]\.station$/, message: /one of the station ids/, why: 'a reference to another array' },
-  { path: /^(satellites|stations)\[\d+\]\.id$/, message: /an id used by no other/, why: 'uniqueness of one field across items' },
-  { path: /^satellites\[\d+\]\.passes\[\d+\]\.(start|end)$/, message: /after satellites|at or before the end of the horizon|at or after the epoch|supportSeconds/, why: 'pass against its start, the horizon and its station' },
+  {
+    path: /^satellites\[\d+\]\.passes\[\d+\]\.station$/, message: /one of the station ids/,
+    why: 'a reference to another array',
+  },
+  {
+    path: /^(satellites|stations)\[\d+\]\.id$/, message: /an id used by no other/,
+    why: 'uniqueness of one field across items',
+  },
+  {
+    path: /^satellites\[\d+\]\.passes\[\d+\]\.(start|end)$/,
+    message: /after satellites|at or before the end of the horizon|at or after the epoch|supportSeconds/,
+    why: 'pass against its start, the horizon and its station',
+  },
 ];
 
 const REVIEW_RULES: ValidatorOnlyRule[] = [
-  { path: /^spacecraft\[\d+\]\.configured\.(offsetFrequencyHz|offsetHz)$/, message: /0\.1 % of|smaller than 0\.1 %/, why: 'offset against the nominal frequency' },
-  { path: /^spacecraft\[\d+\]\.configured\.tuningWord\.word$/, message: /an integer in \[0, 2\^\d+\)/, why: 'word against its bit count' },
-  { path: /^spacecraft\[\d+\]\.id$/, message: /not used by another spacecraft/, why: 'uniqueness of one field across items' },
+  {
+    path: /^spacecraft\[\d+\]\.configured\.(offsetFrequencyHz|offsetHz)$/, message: /0\.1 % of|smaller than 0\.1 %/,
+    why: 'offset against the nominal frequency',
+  },
+  {
+    path: /^spacecraft\[\d+\]\.configured\.tuningWord\.word$/, message: /an integer in \[0, 2\^\d+\)/,
+    why: 'word against its bit count',
+  },
+  {
+    path: /^spacecraft\[\d+\]\.id$/, message: /not used by another spacecraft/,
+    why: 'uniqueness of one field across items',
+  },
 ];
 
 /** Documents per format: at least 1000 each (the brief of issue 16). */
@@ -62,7 +107,8 @@ describe('schemas and SDK validators accept the same documents (generated mutati
   it('schema/review.schema.json and parseReviewInput(doc) agree on 1200 random mutants of the two examples and every path of them once per mutation kind (seed 16002)', () => {
     expectAgreement(findSchemaDisagreements({
       name: 'review', schema: json('schema/review.schema.json') as object, validate: (d) => parseReviewInput(d),
-      seeds: [json('examples/review/kestrel-block-a.review.json'), json('examples/review/kestrel-block-b-mistakes.review.json')],
+      seeds: [json('examples/review/kestrel-block-a.review.json'),
+        json('examples/review/kestrel-block-b-mistakes.review.json')],
       validatorOnly: REVIEW_RULES, runs: RUNS, seed: 16002,
     }));
   });
@@ -99,7 +145,8 @@ describe('disagreements the generated documents found, fixed (each side named in
     const { CONSTANT_SETS } = await import('../../src/constants.js');
     for (const path of ['schema/scenario.schema.json', 'schema/fleet.schema.json']) {
       const check = await compileDraft07(path);
-      const base = json(path === 'schema/fleet.schema.json' ? 'examples/fleet/vesper-constellation.json' : 'examples/steering/orin-3-meo.json');
+      const fleet = path === 'schema/fleet.schema.json';
+      const base = json(fleet ? 'examples/fleet/vesper-constellation.json' : 'examples/steering/orin-3-meo.json');
       for (const name of Object.keys(CONSTANT_SETS)) {
         for (const spelt of [name, name.toUpperCase()]) {
           const doc = structuredClone(base) as Record<string, any>;

@@ -87,7 +87,10 @@ function expand(root: Schema, s: Schema): Schema[] {
     const list = r[key];
     if (Array.isArray(list)) for (const b of list) out.push(...expand(root, b as Schema));
   }
-  for (const key of ['then', 'else']) if (typeof r[key] === 'object' && r[key] !== null) out.push(...expand(root, r[key] as Schema));
+  for (const key of ['then', 'else']) {
+    const branch = r[key];
+    if (typeof branch === 'object' && branch !== null) out.push(...expand(root, branch as Schema));
+  }
   return out;
 }
 
@@ -98,7 +101,9 @@ function subschemas(root: Schema, path: Path): Schema[] {
     const next: Schema[] = [];
     for (const s of current) {
       const child = typeof step === 'number' ? s['items'] : (s['properties'] as Schema | undefined)?.[step];
-      if (typeof child === 'object' && child !== null && !Array.isArray(child)) next.push(...expand(root, child as Schema));
+      if (typeof child === 'object' && child !== null && !Array.isArray(child)) {
+        next.push(...expand(root, child as Schema));
+      }
     }
     current = next;
   }
@@ -108,7 +113,9 @@ function subschemas(root: Schema, path: Path): Schema[] {
 function pathsOf(doc: Json, prefix: Path = []): Path[] {
   const out: Path[] = [prefix];
   if (Array.isArray(doc)) doc.forEach((v, i) => out.push(...pathsOf(v, [...prefix, i])));
-  else if (doc !== null && typeof doc === 'object') for (const [k, v] of Object.entries(doc)) out.push(...pathsOf(v, [...prefix, k]));
+  else if (doc !== null && typeof doc === 'object') {
+    for (const [k, v] of Object.entries(doc)) out.push(...pathsOf(v, [...prefix, k]));
+  }
   return out;
 }
 
@@ -153,9 +160,11 @@ function inRange(schemas: readonly Schema[], value: number, u: number): number |
 }
 
 const STAMP_EDITS: readonly ((s: string) => string)[] = [
-  (s) => s.replace(/Z$/, ''), (s) => s.replace(/Z$/, '+01:00'), (s) => s.replace(/:(\d\d)Z$/, ':60Z'), (s) => s.replace(/Z$/, '.123456789Z'),
+  (s) => s.replace(/Z$/, ''), (s) => s.replace(/Z$/, '+01:00'), (s) => s.replace(/:(\d\d)Z$/, ':60Z'),
+  (s) => s.replace(/Z$/, '.123456789Z'),
   (s) => s.replace(/Z$/, '.1234567891Z'), (s) => s.replace('T', ' '), (s) => s.replace(/^(\d{4})-(\d\d)/, '$1-13'),
-  (s) => s.replace(/-(\d\d)T/, '-32T'), (s) => s.replace(/T(\d\d)/, 'T24'), (s) => s.slice(0, 16) + 'Z', (s) => s.replace(/^\d{4}/, '2030'),
+  (s) => s.replace(/-(\d\d)T/, '-32T'), (s) => s.replace(/T(\d\d)/, 'T24'), (s) => s.slice(0, 16) + 'Z',
+  (s) => s.replace(/^\d{4}/, '2030'),
   (s) => s.replace(/^\d{4}/, '1969'), (s) => s.replace(/T.*/, ''), (s) => s.replace(/Z$/, 'z'),
 ];
 
@@ -181,7 +190,8 @@ function mutate(root: Schema, doc: Json, pick: number, kind: number, choice: num
   const u = (choice % 1000) / 1000;
   switch (kind % MUTATION_KINDS) {
     case 0: {
-      const others = OTHER_TYPES.filter((t) => typeof t !== typeof value || Array.isArray(t) !== Array.isArray(value) || (t === null) !== (value === null));
+      const others = OTHER_TYPES.filter((t) => typeof t !== typeof value || Array.isArray(t) !== Array.isArray(value)
+        || (t === null) !== (value === null));
       return set(others[choice % others.length] ?? null, '→ (other type)');
     }
     case 1:
@@ -197,7 +207,8 @@ function mutate(root: Schema, doc: Json, pick: number, kind: number, choice: num
         return set(c[choice % c.length]!, '→');
       }
       if (typeof value === 'string') {
-        const enums = schemas.flatMap((s) => [...(Array.isArray(s['enum']) ? s['enum'] : []), ...('const' in s ? [s['const']] : [])]);
+        const enums = schemas.flatMap((s) => [...(Array.isArray(s['enum']) ? s['enum'] : []),
+          ...('const' in s ? [s['const']] : [])]);
         const strings: Json[] = ['', ' ', value.toUpperCase(), `${value}x`, ...(enums as Json[])];
         if (/^\d{4}-\d\d-\d\dT/.test(value)) strings.push(...STAMP_EDITS.map((f) => f(value)));
         return set(strings[choice % strings.length]!, '→');
@@ -244,7 +255,9 @@ function mutate(root: Schema, doc: Json, pick: number, kind: number, choice: num
   }
 }
 
-function validatorVerdict(spec: SchemaAgreementSpec, doc: unknown): { ok: boolean; error: string | null; path: string } {
+interface Verdict { ok: boolean; error: string | null; path: string }
+
+function validatorVerdict(spec: SchemaAgreementSpec, doc: unknown): Verdict {
   try {
     spec.validate(doc);
     return { ok: true, error: null, path: '' };
@@ -262,10 +275,14 @@ export function findSchemaDisagreements(spec: SchemaAgreementSpec): AgreementRes
   seeds.forEach((s, i) => {
     const schema = schemaCheck(s);
     const v = validatorVerdict(spec, s);
-    if (!schema.ok || !v.ok) throw new Error(`${spec.name}: seed ${i} is not valid (schema ${schema.errors}; validator ${v.error})`);
+    if (!schema.ok || !v.ok) {
+      throw new Error(`${spec.name}: seed ${i} is not valid (schema ${schema.errors}; validator ${v.error})`);
+    }
   });
   const step = fc.tuple(fc.nat(), fc.nat(), fc.nat());
-  const arb = fc.record({ seed: fc.nat({ max: seeds.length - 1 }), steps: fc.array(step, { minLength: 1, maxLength: 3 }) });
+  const arb = fc.record({
+    seed: fc.nat({ max: seeds.length - 1 }), steps: fc.array(step, { minLength: 1, maxLength: 3 }),
+  });
   const samples = fc.sample(arb, { seed: spec.seed, numRuns: spec.runs ?? 1500 });
   // Then every path of every seed once per mutation kind, so no path is left to chance (array items past the
   // second are skipped: a schema's `items` treats them alike, and the random part reaches them).
@@ -292,8 +309,11 @@ export function findSchemaDisagreements(spec: SchemaAgreementSpec): AgreementRes
     const v = validatorVerdict(spec, doc);
     if (schema.ok && v.ok) bothAccept++;
     else if (!schema.ok && !v.ok) bothReject++;
-    else if (schema.ok && spec.validatorOnly?.some((r) => r.path.test(v.path) && r.message.test(v.error ?? ''))) validatorOnly++;
-    else disagreements.push({ mutations, schemaAccepts: schema.ok, schemaErrors: schema.errors, validatorError: v.error });
+    else if (schema.ok && spec.validatorOnly?.some((r) => r.path.test(v.path) && r.message.test(v.error ?? ''))) {
+      validatorOnly++;
+    } else {
+      disagreements.push({ mutations, schemaAccepts: schema.ok, schemaErrors: schema.errors, validatorError: v.error });
+    }
   }
   return { documents: samples.length, bothAccept, bothReject, validatorOnly, disagreements };
 }
