@@ -114,10 +114,10 @@ function batchSection() {
         rows[key].diff = Math.max(rows[key].diff, maxDiff(res, ref));
       };
       add('elements',
-        timed(() => periodicCorrectionFromElementsBatch(s.a, s.e, x.E, DEFAULT_CONSTANT_SET, res)),
+        timed(() => periodicCorrectionFromElementsBatch(s.a, s.e, x.E, { constants: DEFAULT_CONSTANT_SET, out: res })),
         timed(() => { for (let t = 0; t < EPOCHS; t++) ref[t] = periodicCorrectionFromElements(s.a, s.e, x.E[t]); }));
       add('states',
-        timed(() => periodicCorrectionFromStatesBatch(x.states, res)),
+        timed(() => periodicCorrectionFromStatesBatch(x.states, { out: res })),
         timed(() => {
           const st = x.states;
           for (let t = 0; t < EPOCHS; t++) {
@@ -126,10 +126,10 @@ function batchSection() {
           }
         }));
       add('j2',
-        timed(() => j2PeriodicTermBatch(s.a, s.i, x.u, 'residual', DEFAULT_CONSTANT_SET, res)),
+        timed(() => j2PeriodicTermBatch(s.a, s.i, x.u, 'residual', { constants: DEFAULT_CONSTANT_SET, out: res })),
         timed(() => { for (let t = 0; t < EPOCHS; t++) ref[t] = j2ResidualPeriodicTerm(s.a, s.i, x.u[t]); }));
       add('j2states',
-        timed(() => j2PeriodicTermFromStatesBatch(x.states, 'residual', DEFAULT_CONSTANT_SET, res)),
+        timed(() => j2PeriodicTermFromStatesBatch(x.states, 'residual', { constants: DEFAULT_CONSTANT_SET, out: res })),
         timed(() => { for (let t = 0; t < EPOCHS; t++) ref[t] = j2PeriodicTermFromStatesBatch(x.states.subarray(6 * t, 6 * t + 6))[0]; }));
       add('kepler',
         timed(() => { for (let t = 0; t < EPOCHS; t++) res[t] = solveKepler(x.M[t], s.e); }),
@@ -220,9 +220,9 @@ function growthSection() {
   };
   const best = (fn) => Math.min(timed(fn), timed(fn), timed(fn));
   const cases = [
-    ['periodicCorrectionFromElementsBatch', (n) => { const E = tile(day.E, n); const o = new Float64Array(n); return () => periodicCorrectionFromElementsBatch(s.a, s.e, E, DEFAULT_CONSTANT_SET, o); }],
-    ['periodicCorrectionFromStatesBatch', (n) => { const st = tile(day.states, n, 6); const o = new Float64Array(n); return () => periodicCorrectionFromStatesBatch(st, o); }],
-    ['j2PeriodicTermBatch', (n) => { const u = tile(day.u, n); const o = new Float64Array(n); return () => j2PeriodicTermBatch(s.a, s.i, u, 'residual', DEFAULT_CONSTANT_SET, o); }],
+    ['periodicCorrectionFromElementsBatch', (n) => { const E = tile(day.E, n); const o = new Float64Array(n); return () => periodicCorrectionFromElementsBatch(s.a, s.e, E, { constants: DEFAULT_CONSTANT_SET, out: o }); }],
+    ['periodicCorrectionFromStatesBatch', (n) => { const st = tile(day.states, n, 6); const o = new Float64Array(n); return () => periodicCorrectionFromStatesBatch(st, { out: o }); }],
+    ['j2PeriodicTermBatch', (n) => { const u = tile(day.u, n); const o = new Float64Array(n); return () => j2PeriodicTermBatch(s.a, s.i, u, 'residual', { constants: DEFAULT_CONSTANT_SET, out: o }); }],
     ['solveKepler (loop)', (n) => { const M = tile(day.M, n); const o = new Float64Array(n); return () => { for (let t = 0; t < n; t++) o[t] = solveKepler(M[t], s.e); }; }],
   ];
   for (const [label, make] of cases) {

@@ -48,7 +48,7 @@ export default async function benchTimeGrid() {
     const times = [];
     for (const count of SIZES) {
       const orbit = { semiMajorAxis: A, eccentricity: e, meanAnomalyAtStart: M0 };
-      const ours = cpuMs(() => periodicCorrectionOnTimeGrid(orbit, { stepSeconds: STEP, count }, DEFAULT_CONSTANT_SET, buffer));
+      const ours = cpuMs(() => periodicCorrectionOnTimeGrid(orbit, { stepSeconds: STEP, count }, { constants: DEFAULT_CONSTANT_SET, out: buffer }));
       const js = cpuMs(() => plainLoop(e, count, buffer));
       let base = js;
       if (native.exe) {

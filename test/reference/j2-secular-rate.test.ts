@@ -83,7 +83,7 @@ function reference(c: Case) {
 describe('J2 secular clock rate against the long-run slope of the integrated proper time (model j2) [C]', () => {
   const results = CASES.map((c) => {
     const ref = reference(c);
-    const fromState = j2SecularClockRateFromState(ref.start, C).fractionalRate;
+    const fromState = j2SecularClockRateFromState(ref.start, { constants: C }).fractionalRate;
     // the first-order averaged formula itself (what j2SecularClockRate(mean) evaluates), for the record below 25 000 km
     const meanU = -(C.gm * C.j2 * C.equatorialRadius ** 2) / (2 * ref.meanA ** 3) * (1 - ref.meanE ** 2) ** -1.5 * (1.5 * Math.sin(ref.meanInc) ** 2 - 1);
     const mean = C.lG - (1.5 * C.gm) / (ref.meanA * SPEED_OF_LIGHT_SQUARED) - (7 * meanU) / SPEED_OF_LIGHT_SQUARED;
@@ -115,7 +115,7 @@ describe('J2 secular clock rate against the long-run slope of the integrated pro
   ];
   const meanResults = [...results.filter((r) => r.c.a * (1 - r.c.e) >= J2_ANALYTIC_MIN_PERIGEE_RADIUS), ...edgeCases.map((c) => {
     const ref = reference(c);
-    const mean = j2SecularClockRate({ semiMajorAxis: ref.meanA, eccentricity: ref.meanE, inclination: ref.meanInc, semiMajorAxisKind: 'mean' }, C).fractionalRate;
+    const mean = j2SecularClockRate({ semiMajorAxis: ref.meanA, eccentricity: ref.meanE, inclination: ref.meanInc, semiMajorAxisKind: 'mean' }, { constants: C }).fractionalRate;
     return { c, ref, meanError: mean - ref.slope };
   })];
   for (const r of meanResults) {
@@ -125,7 +125,7 @@ describe('J2 secular clock rate against the long-run slope of the integrated pro
   }
   for (const r of results.filter((x) => x.c.a * (1 - x.c.e) < J2_ANALYTIC_MIN_PERIGEE_RADIUS)) {
     it(`j2SecularClockRate refuses ${r.c.name} (perigee below 25 000 km, where its error was ${r.meanError.toExponential(1)}) with OutOfDomainError`, () => {
-      expect(() => j2SecularClockRate({ semiMajorAxis: r.ref.meanA, eccentricity: r.ref.meanE, inclination: r.ref.meanInc, semiMajorAxisKind: 'mean' }, C))
+      expect(() => j2SecularClockRate({ semiMajorAxis: r.ref.meanA, eccentricity: r.ref.meanE, inclination: r.ref.meanInc, semiMajorAxisKind: 'mean' }, { constants: C }))
         .toThrow(OutOfDomainError);
     });
   }

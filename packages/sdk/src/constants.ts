@@ -71,6 +71,15 @@ export interface ConstantSet {
   readonly sources: Readonly<Record<string, string>>;
 }
 
+/**
+ * Options of every function that uses a constant set: the set is passed by name in the trailing options object,
+ * `{ constants: GPS_ICD }`, never positionally (DEVELOPERS.md, "one options convention"); IERS 2010 when omitted.
+ */
+export interface ConstantsOptions {
+  /** Constant set (GM, F, J2, a_e, L_G, …); default {@link IERS_2010}. */
+  readonly constants?: ConstantSet;
+}
+
 /** F = −2√GM / c², in s/√m (IS-GPS-200 §20.3.3.3.3.1 [M]; IERS Conventions 2010 eq. 10.10 [V1]). */
 export function relativisticConstantF(gm: CubicMetresPerSecondSquared): number {
   requirePositive('gm', gm, 'm³/s²');

@@ -56,7 +56,7 @@ Exit status: 0 success, 2 invalid input.`,
     }
     const constants = constantsFlag(args);
     const result = withFlagNames(FLAG_NAMES,
-      () => periodicCorrectionAtMeanAnomaly(semiMajorAxis, eccentricity, meanAnomaly, constants));
+      () => periodicCorrectionAtMeanAnomaly(semiMajorAxis, eccentricity, meanAnomaly, { constants }));
     const hint = angleHint('--mean-anomaly', meanAnomaly);
     if (hint) warn(io, 'periodic', hint);
     if (format === 'json') {

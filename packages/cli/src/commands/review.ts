@@ -2,7 +2,7 @@
  * `tauline review <file>`: checks the oscillator offsets configured for each spacecraft
  * against their planned orbits, before launch.
  */
-import { reviewOffsets, reviewToHtml, reviewToMarkdown, verdictExplanation, type ReviewReport } from '@tauline/sdk/review';
+import { reviewOffsets, type ReviewReport } from '@tauline/sdk/review';
 import {
   EXIT_FINDING, EXIT_OK, formatFlag, formatFlagSpec, integerFlag, onePositional, optionalFlag, seedFlag, seedFlagSpec, toJson, writeOutputFile,
   escapeControlCharacters,
@@ -11,6 +11,7 @@ import {
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { startProgress } from '../progress.js';
 import { readJsonFile, sourceLabel } from '../files.js';
+import { reviewToHtml, reviewToMarkdown, verdictExplanation } from '../render/review.js';
 
 /** Monte Carlo draws (runs × spacecraft with a dispersion) above which a terminal shows progress. */
 export const REVIEW_PROGRESS_DRAWS = 1_000_000;

@@ -206,7 +206,7 @@ export function validateFleet(input: unknown, options: TimeScaleOptions = {}): N
   const timeScales = resolveTimeScales(options);
   const root = requireObject('fleet', input);
   rejectUnknownKeys('', root, ['$schema', 'name', 'description', 'epoch', 'horizonSeconds', 'gridSeconds', 'stations', 'satellites', 'strategy']);
-  for (const key of ['name', 'description'] as const) {
+  for (const key of ['$schema', 'name', 'description'] as const) {
     if (root[key] !== undefined && typeof root[key] !== 'string') throw new InvalidArgumentError(key, root[key], 'a string');
   }
   const epoch = parseUtcStamp(timeScales, 'epoch', root['epoch']);

@@ -88,8 +88,8 @@ export function requireVector3(argument: string, value: unknown, unit: string): 
   if (!Array.isArray(value) && !(value instanceof Float64Array)) throw new InvalidArgumentError(argument, value, expected);
   const arr = value as ArrayLike<unknown>;
   if (arr.length !== 3) throw new InvalidArgumentError(argument, value, expected);
-  for (let i = 0; i < 3; i++) requireFinite(`${argument}[${i}]`, arr[i], `a finite number in ${unit}`);
-  return [arr[0] as number, arr[1] as number, arr[2] as number];
+  const component = (i: number): number => requireFinite(`${argument}[${i}]`, arr[i], `a finite number in ${unit}`);
+  return [component(0), component(1), component(2)];
 }
 
 /**
@@ -119,7 +119,7 @@ export function requireConstantSet(argument: string, value: unknown): ConstantSe
   for (const [field, range] of Object.entries(CONSTANT_SET_RANGES)) {
     requireInRange(`${argument}.${field}`, set[field], range.min, range.max, { unit: range.unit });
   }
-  const f = (-2 * Math.sqrt(set['gm'] as number)) / (299_792_458 * 299_792_458);
+  const f = (-2 * Math.sqrt(Number(set['gm']))) / (299_792_458 * 299_792_458); // gm checked finite above
   if (typeof set['relativisticF'] !== 'number' || !(Math.abs(set['relativisticF'] - f) <= 1e-12 * Math.abs(f))) {
     throw new InvalidArgumentError(`${argument}.relativisticF`, set['relativisticF'], `−2√GM/c² = ${f} s/√m for this set's gm (build sets with defineConstantSet)`);
   }
@@ -139,6 +139,31 @@ export function requireOptions<T extends object>(argument: string, value: T | un
 export function requireObject<T extends object>(argument: string, value: T, expected = 'an object'): T {
   if (typeof value !== 'object' || value === null || Array.isArray(value)) throw new InvalidArgumentError(argument, value, expected);
   return value;
+}
+
+/** Throws unless `value` is a JSON object (not null, not an array); returns it as a record of its fields. */
+export function requireRecord(field: string, value: unknown): Record<string, unknown> {
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) throw new InvalidArgumentError(field, value, 'an object');
+  return value as Record<string, unknown>;
+}
+
+/** Throws unless `value` is an array. */
+export function requireArray(field: string, value: unknown): unknown[] {
+  if (!Array.isArray(value)) throw new InvalidArgumentError(field, value, 'an array');
+  return value;
+}
+
+/**
+ * Refuses a field that a file format does not define, naming it (a dotted path under `field`) and the known
+ * fields, so a misspelt key is an error instead of a silently ignored one.
+ */
+export function rejectUnknownKeys(field: string, obj: Record<string, unknown>, allowed: readonly string[]): void {
+  for (const key of Object.keys(obj)) {
+    if (!allowed.includes(key)) {
+      throw new InvalidArgumentError(`${field ? `${field}.` : ''}${key}`, obj[key],
+        `absent: it is not a field of this object (known fields: ${allowed.join(', ')})`);
+    }
+  }
 }
 
 /** Frequencies accepted for oscillators, synthesizer clocks and their references, in Hz: 1 Hz to 1 THz (our own bounds). */

@@ -27,9 +27,9 @@ export {
   normalGravity, groundClockRate, tcgRateVsTT, lunarClockRate,
 } from './reference-clocks.js';
 export {
-  type J2TermKind, periodicCorrectionFromElementsBatch, periodicCorrectionFromStatesBatch, j2PeriodicTermBatch,
+  type BatchOptions, type J2TermKind, periodicCorrectionFromElementsBatch, periodicCorrectionFromStatesBatch, j2PeriodicTermBatch,
   j2PeriodicTermFromStatesBatch,
 } from './batch.js';
 export {
-  type GridOrbit, type UniformTimeGrid, MAX_GRID_EPOCHS, periodicCorrectionOnTimeGrid,
+  type GridOrbit, type TimeGridOptions, type UniformTimeGrid, MAX_GRID_EPOCHS, periodicCorrectionOnTimeGrid,
 } from './time-grid.js';

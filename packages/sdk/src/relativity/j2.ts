@@ -15,10 +15,11 @@
  * @module
  */
 import type { Dimensionless, Metres, Radians, Seconds } from '../units.js';
-import { DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
+import { SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet, type ConstantsOptions } from '../constants.js';
+import { readConstants } from '../internal/options.js';
 import { InvalidArgumentError, OutOfDomainError } from '../errors.js';
 import { integrateDop853 } from '../orbit/integrator.js';
-import { requireConstantSet, requireEccentricity, requireFinite, requireInRange, requireOrbitRadius } from '../internal/validate.js';
+import { requireEccentricity, requireFinite, requireInRange, requireOrbitRadius } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 
 function checkInclination(inclination: unknown): number {
@@ -41,7 +42,7 @@ function j2SinTwoUTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLa
  * @param semiMajorAxis       a, metres (mean or osculating; the amplitude changes by < 1e-4 relative).
  * @param inclination         i, radians, in [0, π].
  * @param argumentOfLatitude  u = ω + ν, radians.
- * @param constants           GM, J2, a_e (default IERS 2010).
+ * @param options             `constants`: GM, J2, a_e (default IERS 2010).
  * @returns Δτ_J2,res in seconds: the periodic part that τ − t still contains after −2 r·v/c² is removed.
  * Accuracy: first order in J2, e ≈ 0 (terms in e·J2 omitted, < 1 % of the amplitude for e < 0.01);
  * reproduces a numerical integration to 5 digits for GPS (our own independent integration [C]; SDK reference tests).
@@ -50,8 +51,8 @@ function j2SinTwoUTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLa
  *   IERS Conventions (2010) §10.2 ("6-h term due to J2") [V1].
  */
 export function j2ResidualPeriodicTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLatitude: Radians,
-  constants: ConstantSet = DEFAULT_CONSTANT_SET): Seconds {
-  requireConstantSet('constants', constants);
+  options?: ConstantsOptions): Seconds {
+  const constants = readConstants('options', options);
   return -1.5 * j2SinTwoUTerm(semiMajorAxis, inclination, argumentOfLatitude, constants);
 }
 
@@ -64,7 +65,7 @@ export function j2ResidualPeriodicTerm(semiMajorAxis: Metres, inclination: Radia
  * @param semiMajorAxis       a (mean), metres.
  * @param inclination         i, radians.
  * @param argumentOfLatitude  u, radians.
- * @param constants           GM, J2, a_e (default IERS 2010).
+ * @param options             `constants`: GM, J2, a_e (default IERS 2010).
  * @returns Seconds.
  * Accuracy: first order in J2, e ≈ 0, and only for an orbit without free (initial-condition)
  * eccentricity; an orbit started from an osculating circular state shows a sin 2u term up to ≈ 10 %
@@ -74,8 +75,8 @@ export function j2ResidualPeriodicTerm(semiMajorAxis: Metres, inclination: Radia
  *   (δr from D. Brouwer, Astron. J. 64 (1959) 378, short-period terms [M]).
  */
 export function j2TotalPeriodicTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLatitude: Radians,
-  constants: ConstantSet = DEFAULT_CONSTANT_SET): Seconds {
-  requireConstantSet('constants', constants);
+  options?: ConstantsOptions): Seconds {
+  const constants = readConstants('options', options);
   return -0.5 * j2SinTwoUTerm(semiMajorAxis, inclination, argumentOfLatitude, constants);
 }
 
@@ -93,14 +94,13 @@ export interface J2PeriodicAmplitudes {
 
 /**
  * Amplitudes of the J2 periodic clock terms for a near-circular orbit.
- * @param semiMajorAxis a, metres. @param inclination i, radians. @param constants default IERS 2010.
+ * @param semiMajorAxis a, metres. @param inclination i, radians. @param options `constants` (default IERS 2010).
  * @returns See {@link J2PeriodicAmplitudes}.
  * @throws {InvalidArgumentError} for a non-plausible a or i outside [0, π].
  * @see Kouba (2004) [V2]; Ashby, PTTI 33 (2001), abstract [V2]; amplitudes recomputed independently [C].
  */
-export function j2PeriodicAmplitudes(semiMajorAxis: Metres, inclination: Radians,
-  constants: ConstantSet = DEFAULT_CONSTANT_SET): J2PeriodicAmplitudes {
-  requireConstantSet('constants', constants);
+export function j2PeriodicAmplitudes(semiMajorAxis: Metres, inclination: Radians, options?: ConstantsOptions): J2PeriodicAmplitudes {
+  const constants = readConstants('options', options);
   const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
   const i = checkInclination(inclination);
   const s2 = Math.sin(i) ** 2;
@@ -120,7 +120,7 @@ function j2Scale(a: number, c: ConstantSet): number {
  * where ā is the orbit average of the osculating a (vis-viva a = 1/(2/r − v²/GM)).
  *
  * @param meanSemiMajorAxis ā, metres. @param inclination i, radians. @param argumentOfLatitude u, radians.
- * @param constants default IERS 2010.
+ * @param options `constants` (default IERS 2010).
  * @returns a_osc − ā, metres (≈ +1.67 km at the node for GPS, 55°).
  * Accuracy: first order in J2 and e; consistent with energy conservation (the cos 2u parts of
  * −GM/(2a_osc) and −U_J2 cancel) [C].
@@ -128,8 +128,8 @@ function j2Scale(a: number, c: ConstantSet): number {
  * @see D. Brouwer, Astron. J. 64 (1959) 378 (short-period terms, e → 0) [M]; checked by energy conservation [C].
  */
 export function osculatingMinusMeanSemiMajorAxis(meanSemiMajorAxis: Metres, inclination: Radians,
-  argumentOfLatitude: Radians, constants: ConstantSet = DEFAULT_CONSTANT_SET): Metres {
-  requireConstantSet('constants', constants);
+  argumentOfLatitude: Radians, options?: ConstantsOptions): Metres {
+  const constants = readConstants('options', options);
   const a = requireOrbitRadius('meanSemiMajorAxis', meanSemiMajorAxis);
   const i = checkInclination(inclination);
   const u = requireFinite('argumentOfLatitude', argumentOfLatitude, 'a finite angle in radians');
@@ -182,7 +182,7 @@ export const J2_ANALYTIC_MIN_PERIGEE_RADIUS: Metres = 25_000_000;
  *   ≈ 1.3 ns/day, our own numerical integration [C]). Prefer {@link j2SecularClockRateFromState} when you have the state.
  *
  * @param orbit `{ semiMajorAxis (m), eccentricity, inclination (rad), semiMajorAxisKind, argumentOfLatitude (rad, required for osculating) }`.
- * @param constants default IERS 2010.
+ * @param options `constants` (default IERS 2010).
  * @returns {@link J2RateBreakdown}.
  * Domain: perigee radius a(1 − e) ≥ {@link J2_ANALYTIC_MIN_PERIGEE_RADIUS} (25 000 km: GNSS MEO, IGSO, GEO).
  * Accuracy there: first order in J2; `mean` (with time-averaged osculating a, e, i) agrees with the long-run slope of the
@@ -194,8 +194,8 @@ export const J2_ANALYTIC_MIN_PERIGEE_RADIUS: Metres = 25_000_000;
  * @see IERS Conventions (2010) §10.2 [V1]; Kouba (2004) abstract ("up to 0.2 ns/day") [V2]; our own derivation [C].
  */
 export function j2SecularClockRate(orbit: { semiMajorAxis: Metres; eccentricity: Dimensionless; inclination: Radians;
-  semiMajorAxisKind: SemiMajorAxisKind; argumentOfLatitude?: Radians }, constants: ConstantSet = DEFAULT_CONSTANT_SET): J2RateBreakdown {
-  requireConstantSet('constants', constants);
+  semiMajorAxisKind: SemiMajorAxisKind; argumentOfLatitude?: Radians }, options?: ConstantsOptions): J2RateBreakdown {
+  const constants = readConstants('options', options);
   if (typeof orbit !== 'object' || orbit === null) throw new InvalidArgumentError('orbit', orbit, 'an object { semiMajorAxis, eccentricity, inclination, semiMajorAxisKind }');
   const a = requireOrbitRadius('orbit.semiMajorAxis', orbit.semiMajorAxis);
   const e = requireEccentricity('orbit.eccentricity', orbit.eccentricity);
@@ -246,7 +246,8 @@ export const J2_AVERAGING_ORBITS = 8;
  * (F. J. Harris, Proc. IEEE 66 (1978) 51–83, cosᵅ windows [M]), so the 1/rev and 2/rev terms of U_J2 leave
  * < 1e-18 of rate; ∫w dt = 3W/8.
  */
-function windowedMeanJ2Potential(p: readonly number[], v: readonly number[], period: number, constants: ConstantSet): number {
+function windowedMeanJ2Potential(p: readonly [number, number, number], v: readonly [number, number, number], period: number,
+  constants: ConstantSet): number {
   const gm = constants.gm;
   const k = gm * constants.j2 * constants.equatorialRadius ** 2;
   const rMin = constants.equatorialRadius;
@@ -276,7 +277,7 @@ function windowedMeanJ2Potential(p: readonly number[], v: readonly number[], per
   };
   const scale = Math.abs(k) / rMin ** 3;
   const rtol = 1e-12;
-  const result = integrateDop853(rhs, 0, [p[0]!, p[1]!, p[2]!, v[0]!, v[1]!, v[2]!, 0], window, {
+  const result = integrateDop853(rhs, 0, [...p, ...v, 0], window, {
     relativeTolerance: rtol,
     absoluteTolerance: [rtol, rtol, rtol, rtol * 1e-3, rtol * 1e-3, rtol * 1e-3, rtol * scale * period],
     sampleTimes: [window],
@@ -288,7 +289,8 @@ function windowedMeanJ2Potential(p: readonly number[], v: readonly number[], per
       }
     },
   });
-  return result.samples[6]! / ((3 * window) / 8);
+  const [, , , , , , weightedIntegral = Number.NaN] = result.samples; // the 7th component, always present
+  return weightedIntegral / ((3 * window) / 8);
 }
 
 /**
@@ -301,7 +303,7 @@ function windowedMeanJ2Potential(p: readonly number[], v: readonly number[], per
  * whose first-order averaging formula is off by ≈ 1e-15 of rate at LEO).
  *
  * @param state Geocentric inertial position (m) and velocity (m/s), z along the rotation axis.
- * @param constants default IERS 2010.
+ * @param options `constants` (default IERS 2010).
  * @returns {@link J2RateBreakdown} with `semiMajorAxisKind: 'osculating'` and a = −GM/(2(v²/2 − GM/r));
  *   `meanJ2Potential` is the propagated ⟨U_J2⟩.
  * Accuracy: agrees with the long-run slope of {@link integrateProperTime} (model `j2`, whole-orbit sampling over
@@ -313,8 +315,8 @@ function windowedMeanJ2Potential(p: readonly number[], v: readonly number[], per
  * @throws {OutOfDomainError} if the orbit from the state enters the Earth within the averaging window.
  * @see IERS Conventions (2010) §10.2 eq. 10.9 [V1]; our own derivation and method [C] (see the module comment).
  */
-export function j2SecularClockRateFromState(state: StateVector, constants: ConstantSet = DEFAULT_CONSTANT_SET): J2RateBreakdown {
-  requireConstantSet('constants', constants);
+export function j2SecularClockRateFromState(state: StateVector, options?: ConstantsOptions): J2RateBreakdown {
+  const constants = readConstants('options', options);
   const { position: p, velocity: v } = requireStateVector(state);
   const r = requireOrbitRadius('|state.position|', Math.hypot(p[0], p[1], p[2]));
   if (r <= constants.equatorialRadius) throw new InvalidArgumentError('|state.position|', r, `above the Earth's equatorial radius (${constants.equatorialRadius} m)`);

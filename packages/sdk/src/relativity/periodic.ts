@@ -9,8 +9,9 @@
  * @module
  */
 import type { Dimensionless, Metres, Radians, Seconds } from '../units.js';
-import { DEFAULT_CONSTANT_SET, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
-import { requireConstantSet, requireEccentricity, requireFinite, requireOrbitRadius } from '../internal/validate.js';
+import { SPEED_OF_LIGHT_SQUARED, type ConstantsOptions } from '../constants.js';
+import { requireEccentricity, requireFinite, requireOrbitRadius } from '../internal/validate.js';
+import { readConstants } from '../internal/options.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 import { solveKepler } from '../orbit/kepler.js';
 
@@ -24,18 +25,18 @@ import { solveKepler } from '../orbit/kepler.js';
  * @param semiMajorAxis     a, in metres.
  * @param eccentricity      e, dimensionless, 0 ≤ e < 1.
  * @param eccentricAnomaly  E, in radians.
- * @param constants         Constant set giving F (default IERS 2010; use GPS_ICD for IS-GPS-200 conformance).
+ * @param options           `constants`: the set giving F (default IERS 2010; `{ constants: GPS_ICD }` for IS-GPS-200 conformance).
  * @returns Δt_r, in seconds (added to Δt_sv).
  * @throws {InvalidArgumentError} for a semi-major axis that is not a plausible orbit radius in metres,
  *   e outside [0, 1), a non-finite E or a malformed constant set.
  * @see IS-GPS-200 §20.3.3.3.3.1 [M]; IERS Conventions (2010) §10.2 eq. 10.10 [V1].
  */
 export function periodicCorrectionFromElements(semiMajorAxis: Metres, eccentricity: Dimensionless,
-  eccentricAnomaly: Radians, constants: ConstantSet = DEFAULT_CONSTANT_SET): Seconds {
+  eccentricAnomaly: Radians, options?: ConstantsOptions): Seconds {
   const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
   const e = requireEccentricity('eccentricity', eccentricity);
   const E = requireFinite('eccentricAnomaly', eccentricAnomaly, 'a finite angle in radians');
-  const set = requireConstantSet('constants', constants);
+  const set = readConstants('options', options);
   return set.relativisticF * e * Math.sqrt(a) * Math.sin(E);
 }
 
@@ -62,16 +63,15 @@ export function periodicCorrectionFromState(state: StateVector): Seconds {
  *
  * @param semiMajorAxis  a, in metres.
  * @param eccentricity   e, dimensionless, 0 ≤ e < 1.
- * @param constants      Constant set giving GM (default IERS 2010).
+ * @param options        `constants`: the set giving GM (default IERS 2010).
  * @returns The amplitude, in seconds.
  * @throws {InvalidArgumentError} for an implausible a, e outside [0, 1) or a malformed constant set.
  * @see IERS Conventions (2010) §10.2 eq. 10.10 and text [V1].
  */
-export function periodicAmplitude(semiMajorAxis: Metres, eccentricity: Dimensionless,
-  constants: ConstantSet = DEFAULT_CONSTANT_SET): Seconds {
+export function periodicAmplitude(semiMajorAxis: Metres, eccentricity: Dimensionless, options?: ConstantsOptions): Seconds {
   const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
   const e = requireEccentricity('eccentricity', eccentricity);
-  const set = requireConstantSet('constants', constants);
+  const set = readConstants('options', options);
   return -set.relativisticF * e * Math.sqrt(a);
 }
 
@@ -91,20 +91,20 @@ export interface PeriodicCorrection {
  * @param semiMajorAxis  a, in metres.
  * @param eccentricity   e, dimensionless, 0 ≤ e < 1.
  * @param meanAnomaly    M, in radians.
- * @param constants      Constant set giving F (default IERS 2010).
+ * @param options        `constants`: the set giving F (default IERS 2010).
  * @returns `{ correctionSeconds, amplitudeSeconds, eccentricAnomaly }`.
  * @throws {InvalidArgumentError} as {@link periodicCorrectionFromElements}, or for a non-finite M.
  * @see IS-GPS-200 §20.3.3.3.3.1 and Table 20-IV [M]; IERS Conventions (2010) eq. 10.10 [V1].
  */
 export function periodicCorrectionAtMeanAnomaly(semiMajorAxis: Metres, eccentricity: Dimensionless,
-  meanAnomaly: Radians, constants: ConstantSet = DEFAULT_CONSTANT_SET): PeriodicCorrection {
+  meanAnomaly: Radians, options?: ConstantsOptions): PeriodicCorrection {
   const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
   const e = requireEccentricity('eccentricity', eccentricity);
-  const set = requireConstantSet('constants', constants);
+  const constants = readConstants('options', options);
   const eccentricAnomaly = solveKepler(meanAnomaly, e);
   return {
-    correctionSeconds: periodicCorrectionFromElements(a, e, eccentricAnomaly, set),
-    amplitudeSeconds: periodicAmplitude(a, e, set),
+    correctionSeconds: periodicCorrectionFromElements(a, e, eccentricAnomaly, { constants }),
+    amplitudeSeconds: periodicAmplitude(a, e, { constants }),
     eccentricAnomaly,
   };
 }

@@ -7,10 +7,11 @@
  * @module
  */
 import type { Dimensionless, Metres } from '../units.js';
-import { DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
+import { SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet, type ConstantsOptions } from '../constants.js';
+import { constantsOf, readOptions } from '../internal/options.js';
 import { InvalidArgumentError } from '../errors.js';
 import { FLIGHT_CONFIGURATION_CAUTION } from '../caution.js';
-import { requireConstantSet, requireFinite, requireOptions, requireOrbitRadius } from '../internal/validate.js';
+import { requireFinite, requireOrbitRadius } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 
 /** The coordinate time a rate refers to: TT (clocks on the geoid) or TCG (geocentric coordinate time). */
@@ -20,9 +21,7 @@ export type ReferenceClock = 'tt' | 'tcg';
 export const REFERENCE_CLOCKS: readonly ReferenceClock[] = ['tt', 'tcg'];
 
 /** Options shared by the rate functions. */
-export interface RateOptions {
-  /** Constant set (GM, L_G); default IERS 2010. */
-  constants?: ConstantSet;
+export interface RateOptions extends ConstantsOptions {
   /** Reference time scale; default `'tt'`. */
   reference?: ReferenceClock;
 }
@@ -67,8 +66,8 @@ export function requireReferenceClock(argument: string, value: unknown): Referen
 }
 
 function resolveOptions(value: RateOptions | undefined): { constants: ConstantSet; reference: ReferenceClock } {
-  const options = requireOptions('options', value);
-  const constants = options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet('options.constants', options.constants);
+  const options = readOptions('options', value);
+  const constants = constantsOf('options', options);
   const reference = options.reference === undefined ? 'tt' : requireReferenceClock('options.reference', options.reference);
   return { constants, reference };
 }
@@ -91,9 +90,33 @@ function requireClockRadius(argument: string, value: number): number {
   return r;
 }
 
-/** −x/(1 + x) = 1/(1 + x) − 1 without the cancellation of the direct form. */
-function reciprocalOffset(x: number): number {
+/**
+ * −x/(1 + x) = 1/(1 + x) − 1 without the cancellation of the direct form (algebraic identity): the factory
+ * offset for a rate x, and equally the rate that a factory offset x compensates (the map is its own inverse).
+ * @internal Shared with the review module; not exported from the package.
+ */
+export function reciprocalOffset(x: number): number {
   return -x / (1 + x);
+}
+
+/** The parts of a mean clock rate, dimensionless (see {@link meanClockRate}). @internal */
+export interface MeanRateParts {
+  fractionalRate: Dimensionless;
+  gravitational: Dimensionless;
+  velocity: Dimensionless;
+}
+
+/**
+ * Mean rate of a Kepler-orbit clock for any a, GM and L_G, unchecked: fractionalRate = L_G − 3GM/(2ac²) vs TT,
+ * −3GM/(2ac²) vs TCG (IERS Conventions 2010 eq. 10.9 averaged over the orbit [V1]; Ashby 2003 §5 [V1 text]).
+ * The one formula behind {@link meanClockRate} and the review's what-if values (which evaluate deliberately
+ * wrong a and GM that the public function would refuse).
+ * @internal Callers validate; not exported from the package.
+ */
+export function meanRateParts(a: Metres, gm: number, lG: Dimensionless, reference: ReferenceClock): MeanRateParts {
+  const potential = gm / (a * SPEED_OF_LIGHT_SQUARED);
+  const geoid = reference === 'tt' ? lG : 0;
+  return { fractionalRate: geoid - 1.5 * potential, gravitational: geoid - potential, velocity: -potential / 2 };
 }
 
 /**
@@ -120,10 +143,7 @@ function reciprocalOffset(x: number): number {
 export function meanClockRate(semiMajorAxis: Metres, options?: RateOptions): RateBreakdown {
   const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
   const { constants, reference } = resolveOptions(options);
-  const potential = constants.gm / (a * SPEED_OF_LIGHT_SQUARED);
-  const velocity = -potential / 2;
-  const gravitational = (reference === 'tt' ? constants.lG : 0) - potential;
-  const fractionalRate = (reference === 'tt' ? constants.lG : 0) - 1.5 * potential;
+  const { fractionalRate, gravitational, velocity } = meanRateParts(a, constants.gm, constants.lG, reference);
   return {
     fractionalRate,
     gravitational,

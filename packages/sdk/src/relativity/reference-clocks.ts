@@ -12,9 +12,10 @@
  */
 import type { CubicMetresPerSecondSquared, Dimensionless, Metres, Radians, RadiansPerSecond,
   SquareMetresPerSecondSquared } from '../units.js';
-import { DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
+import { SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantsOptions } from '../constants.js';
+import { constantsOf, readConstants, readOptions } from '../internal/options.js';
 import { InvalidArgumentError } from '../errors.js';
-import { requireConstantSet, requireInRange, requireOptions } from '../internal/validate.js';
+import { requireInRange } from '../internal/validate.js';
 import { GM_MOON } from '../orbit/forces.js';
 
 /** A level reference ellipsoid with its normal gravity field (four defining constants). */
@@ -184,7 +185,7 @@ export interface GroundClockRate {
  * @see IERS Conventions (2010) §10.1–10.2 (L_G = W₀/c²) [V1]; Heiskanen & Moritz (1967) eq. 2-126, Bruns' formula eq. 2-144 [M].
  */
 export function groundClockRate(station: { latitude: Radians; longitude: Radians; height: Metres; geoidUndulation?: Metres },
-  options: { ellipsoid?: ReferenceEllipsoid; constants?: ConstantSet } = {}): GroundClockRate {
+  options: ConstantsOptions & { ellipsoid?: ReferenceEllipsoid } = {}): GroundClockRate {
   if (typeof station !== 'object' || station === null) {
     throw new InvalidArgumentError('station', station, 'an object { latitude (rad), longitude (rad), height (m) }');
   }
@@ -192,9 +193,9 @@ export function groundClockRate(station: { latitude: Radians; longitude: Radians
   requireInRange('station.longitude', station.longitude, -2 * Math.PI, 2 * Math.PI, { unit: 'rad (did you give degrees?)' });
   const h = requireInRange('station.height', station.height, -11_000, 100_000, { unit: 'm (ellipsoidal height)' });
   const N = requireInRange('station.geoidUndulation', station.geoidUndulation ?? 0, -150, 150, { unit: 'm' });
-  requireOptions('options', options);
+  readOptions('options', options);
   const ell = checkEllipsoid(options.ellipsoid ?? GRS80_ELLIPSOID);
-  const constants = options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet('options.constants', options.constants);
+  const constants = constantsOf('options', options);
   const U = normalPotentialUnchecked(phi, h, ell);
   const U0 = normalPotentialUnchecked(0, 0, ell);
   const gamma = normalGravity(phi, ell);
@@ -218,12 +219,12 @@ export function groundClockRate(station: { latitude: Radians; longitude: Radians
 
 /**
  * Rate of TCG against TT: dTCG/dTT − 1 = L_G/(1 − L_G) ≈ 6.969290134e-10 (60.2147 µs/day).
- * @param constants L_G source (default IERS 2010).
+ * @param options `constants`: the L_G source (default IERS 2010).
  * @returns Dimensionless.
  * @see IERS Conventions (2010) §10.1, dTT/dTCG = 1 − L_G [V1].
  */
-export function tcgRateVsTT(constants: ConstantSet = DEFAULT_CONSTANT_SET): Dimensionless {
-  requireConstantSet('constants', constants);
+export function tcgRateVsTT(options?: ConstantsOptions): Dimensionless {
+  const constants = readConstants('options', options);
   return constants.lG / (1 - constants.lG);
 }
 
@@ -279,14 +280,14 @@ export interface LunarClockRate {
  *   IERS Conventions (2010) §10.1–10.2 [V1]; term-by-term breakdown our own computation [C].
  */
 export function lunarClockRate(clock: { location: LunarClockLocation; orbitRadius?: Metres; latitude?: Radians },
-  options: { constants?: ConstantSet; moonGm?: CubicMetresPerSecondSquared; moonSemiMajorAxis?: Metres; moonRadius?: Metres } = {}): LunarClockRate {
+  options: ConstantsOptions & { moonGm?: CubicMetresPerSecondSquared; moonSemiMajorAxis?: Metres; moonRadius?: Metres } = {}): LunarClockRate {
   if (typeof clock !== 'object' || clock === null) throw new InvalidArgumentError('clock', clock, 'an object { location }');
   const location = clock.location;
   if (location !== 'selenocentre' && location !== 'surface' && location !== 'orbit') {
     throw new InvalidArgumentError('clock.location', location, '"selenocentre", "surface" or "orbit"');
   }
-  requireOptions('options', options);
-  const constants = options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet('options.constants', options.constants);
+  readOptions('options', options);
+  const constants = constantsOf('options', options);
   const gmM = requireInRange('options.moonGm', options.moonGm ?? GM_MOON, 4e12, 6e12, { unit: 'm³/s² (the Moon\'s GM is about 4.9028e12)' });
   const a = requireInRange('moonSemiMajorAxis', options.moonSemiMajorAxis ?? MOON_SEMI_MAJOR_AXIS, 3.5e8, 4.2e8, { unit: 'm' });
   const R = requireInRange('moonRadius', options.moonRadius ?? MOON_MEAN_RADIUS, 1.7e6, 1.8e6, { unit: 'm' });

@@ -14,7 +14,8 @@
  * @module
  */
 import type { Dimensionless, Metres, Radians, Seconds } from '../units.js';
-import { DEFAULT_CONSTANT_SET, type ConstantSet } from '../constants.js';
+import type { ConstantsOptions } from '../constants.js';
+import { constantsOf, readOptions } from '../internal/options.js';
 import { InvalidArgumentError } from '../errors.js';
 import { requireEccentricity, requireFinite, requireOrbitRadius, requirePositive } from '../internal/validate.js';
 import { solveKepler } from '../orbit/kepler.js';
@@ -58,6 +59,12 @@ function reduceAngle(M: number): number {
   return M - TWO_PI * Math.round(M / TWO_PI);
 }
 
+/** Options of {@link periodicCorrectionOnTimeGrid}: the constant set and an output array to write into. */
+export interface TimeGridOptions extends ConstantsOptions {
+  /** Array of at least `grid.count` elements to write into; a new one is allocated when omitted. */
+  readonly out?: Float64Array;
+}
+
 /**
  * Periodic relativistic correction Δt_r = F·e·√a·sin E_k at every epoch of a uniform grid,
  * with M_k = M_0 + n·k·h and n = √(GM/a³), E_k from Kepler's equation M_k = E_k − e·sin E_k.
@@ -69,8 +76,8 @@ function reduceAngle(M: number): number {
  *
  * @param orbit      `{ semiMajorAxis (m), eccentricity, meanAnomalyAtStart (rad) }`.
  * @param grid       `{ stepSeconds (s, > 0), count }`.
- * @param constants  Constant set giving GM and F (default IERS 2010).
- * @param out        Optional array of at least `count` elements to write into (reused across calls,
+ * @param options    `constants`: the set giving GM and F (default IERS 2010); `out`: an optional array of at
+ *   least `count` elements to write into (reused across calls,
  *   it saves allocating and first touching a large array); a new one is allocated otherwise.
  * @returns Δt_r at each epoch, in seconds (added to Δt_sv): `out` (its first `count` elements), or a
  *   new Float64Array of `count` values.
@@ -81,11 +88,12 @@ function reduceAngle(M: number): number {
  * @see IERS Conventions (2010) §10.2 eq. 10.10 [V1] (Δt_r = F·e·√a·sin E); IS-GPS-200 Table 20-IV
  *   (n = √(μ/A³), M_k = M_0 + n·t_k, Kepler's equation) [M].
  */
-export function periodicCorrectionOnTimeGrid(orbit: GridOrbit, grid: UniformTimeGrid,
-  constants: ConstantSet = DEFAULT_CONSTANT_SET, out?: Float64Array): Float64Array {
+export function periodicCorrectionOnTimeGrid(orbit: GridOrbit, grid: UniformTimeGrid, options?: TimeGridOptions): Float64Array {
   const o = requireObject('orbit', orbit, 'an object { semiMajorAxis (m), eccentricity, meanAnomalyAtStart (rad) }');
   const g = requireObject('grid', grid, 'an object { stepSeconds (s), count }');
-  const c = requireObject('constants', constants, 'a ConstantSet (see constantSet(name) or defineConstantSet)');
+  const opts = readOptions('options', options);
+  const c = constantsOf('options', opts);
+  const out = opts.out;
   const a = requireOrbitRadius('orbit.semiMajorAxis', o.semiMajorAxis);
   const e = requireEccentricity('orbit.eccentricity', o.eccentricity);
   const M0 = requireFinite('orbit.meanAnomalyAtStart', o.meanAnomalyAtStart, 'a finite angle in radians');
@@ -94,10 +102,10 @@ export function periodicCorrectionOnTimeGrid(orbit: GridOrbit, grid: UniformTime
   if (typeof count !== 'number' || !Number.isInteger(count) || count < 0 || count > MAX_GRID_EPOCHS) {
     throw new InvalidArgumentError('grid.count', count, `an integer number of epochs from 0 to ${MAX_GRID_EPOCHS}`);
   }
-  const gm = requirePositive('constants.gm', c.gm, 'm³/s²');
-  const F = requireFinite('constants.relativisticF', c.relativisticF, 'F = −2√GM/c² in s/√m');
+  const gm = c.gm;
+  const F = c.relativisticF;
   if (out !== undefined && (!(out instanceof Float64Array) || out.length < count)) {
-    throw new InvalidArgumentError('out', out, `a Float64Array of at least grid.count = ${count} elements`);
+    throw new InvalidArgumentError('options.out', out, `a Float64Array of at least grid.count = ${count} elements`);
   }
   const target = out ?? new Float64Array(count);
   if (count === 0) return target;

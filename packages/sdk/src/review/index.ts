@@ -1,7 +1,6 @@
 export { reviewOffsets, configuredFraction, REVIEW_CAUTION } from './check.js';
 export type { ReviewOptions } from './check.js';
 export { parseReviewInput } from './parse.js';
-export { reviewToMarkdown, reviewToHtml, verdictExplanation } from './render.js';
 export type {
   ConfiguredOffset, Diagnosis, DiagnosisCode, DispersionAnalysis, DispersionPercentile, ReviewInput, ReviewLimits, ReviewOrbit,
   ReviewReport, ReviewSpacecraft, SpacecraftFinding, Verdict,

@@ -7,7 +7,8 @@
 import { InvalidArgumentError } from '../errors.js';
 import { CONSTANT_SETS } from '../constants.js';
 import {
-  requireEccentricity, requireFinite, requireFrequency, requireInRange, requireInteger, requireOrbitRadius, requirePositive,
+  rejectUnknownKeys, requireEccentricity, requireFinite, requireFrequency, requireInRange, requireInteger, requireOrbitRadius,
+  requirePositive,
 } from '../internal/validate.js';
 import type { ConfiguredOffset, ReviewInput, ReviewLimits, ReviewSpacecraft } from './types.js';
 
@@ -67,11 +68,12 @@ function parseLimits(path: string, o: Record<string, unknown>): ReviewLimits {
 export function parseConfigured(path: string, v: unknown, nominal: number): ConfiguredOffset {
   const o = requireObject(path, v);
   const forms = ['offsetFrequencyHz', 'offsetHz', 'fractionalOffset', 'tuningWord'].filter((k) => o[k] !== undefined);
-  if (forms.length !== 1) {
+  const [form] = forms;
+  if (forms.length !== 1 || form === undefined) {
     throw new InvalidArgumentError(path, v,
       'an object with exactly one of offsetFrequencyHz, offsetHz, fractionalOffset, tuningWord');
   }
-  const form = forms[0]!;
+  rejectUnknownKeys(path, o, [form]);
   if (form === 'offsetFrequencyHz') {
     const f = requireFinite(`${path}.offsetFrequencyHz`, o[form], 'the configured output frequency in Hz');
     if (Math.abs(f - nominal) > 1e-3 * nominal) {
@@ -93,6 +95,7 @@ export function parseConfigured(path: string, v: unknown, nominal: number): Conf
     return { fractionalOffset: requireInRange(`${path}.fractionalOffset`, o[form], -1e-3, 1e-3) };
   }
   const t = requireObject(`${path}.tuningWord`, o[form]);
+  rejectUnknownKeys(`${path}.tuningWord`, t, ['word', 'clockHz', 'bits']);
   const bits = requireInteger(`${path}.tuningWord.bits`, t['bits'], 8, 64);
   const clockHz = requireFrequency(`${path}.tuningWord.clockHz`, t['clockHz']);
   const word = t['word'];

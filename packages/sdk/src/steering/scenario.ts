@@ -7,16 +7,20 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
-import { requireFinite, requireNonNegative, requireOrbitRadius, requirePositive } from '../internal/validate.js';
-import { normalQuantile } from '../internal/special-functions.js';
+import {
+  rejectUnknownKeys, requireArray, requireFinite, requireNonNegative, requireOrbitRadius, requirePositive, requireRecord,
+} from '../internal/validate.js';
 import type { Dimensionless, Metres, PerSecond, Seconds } from '../units.js';
 import type { Instant } from '../time/instant.js';
 import type { TimeScales } from '../time/scales.js';
 import { zeros3, type DiffusionCoefficients, type Matrix3 } from './clock-math.js';
 import { parseUtcStamp, requireInsideTable, resolveTimeScales, type TimeScaleOptions } from './utc-stamps.js';
 import { rateChangeForSemiMajorAxisChange } from '../relativity/rate.js';
-import { CONSTANT_SETS, DEFAULT_CONSTANT_SET } from '../constants.js';
+import { CONSTANT_SETS, DEFAULT_CONSTANT_SET, type ConstantSet } from '../constants.js';
 import { diffusionFromStabilitySpec } from '../clock-model/noise.js';
+import {
+  validateActuator, validateCostWeights, validateCovariance, validateOperations, validateStrategy, validateTolerance,
+} from './scenario-fields.js';
 
 /** One uplink opportunity (ISO 8601 UTC stamps with a zone designator; `23:59:60Z` where a leap second exists). */
 export interface ContactWindow {
@@ -203,27 +207,8 @@ const MAX_HORIZON = 366 * 86_400;
 /** Most grid points accepted, to keep planning fast. */
 const MAX_GRID_POINTS = 200_000;
 
-function requireObject(field: string, value: unknown): Record<string, unknown> {
-  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
-    throw new InvalidArgumentError(field, value, 'an object');
-  }
-  return value as Record<string, unknown>;
-}
-
-function requireArray(field: string, value: unknown): unknown[] {
-  if (!Array.isArray(value)) throw new InvalidArgumentError(field, value, 'an array');
-  return value;
-}
-
-/** Refuses a field that the format does not define, naming it and the known fields. @internal */
-export function rejectUnknownKeys(field: string, obj: Record<string, unknown>, allowed: readonly string[]): void {
-  for (const key of Object.keys(obj)) {
-    if (!allowed.includes(key)) {
-      throw new InvalidArgumentError(`${field ? `${field}.` : ''}${key}`, obj[key],
-        `absent: it is not a field of this object (known fields: ${allowed.join(', ')})`);
-    }
-  }
-}
+/** Refuses a field that the format does not define (internal/validate.ts; re-exported for the fleet document). @internal */
+export { rejectUnknownKeys };
 
 /**
  * Converts a noise spec to q1, q2, q3 (Zucca & Tavella 2005 relations, physics-refs §11). A stability
@@ -232,14 +217,14 @@ export function rejectUnknownKeys(field: string, obj: Record<string, unknown>, a
  */
 export function noiseToDiffusion(noise: NoiseSpec, field = 'clock.noise'): DiffusionCoefficients {
   if (typeof field !== 'string') throw new InvalidArgumentError('field', field, 'a string naming the noise spec in error messages');
-  const obj = requireObject(field, noise);
+  const obj = requireRecord(field, noise);
   if ('stability' in obj) {
     rejectUnknownKeys(field, obj, ['stability']);
-    const spec = requireObject(`${field}.stability`, obj['stability']);
+    const spec = requireRecord(`${field}.stability`, obj['stability']);
     rejectUnknownKeys(`${field}.stability`, spec, ['whiteFrequency', 'randomWalkFrequency', 'randomWalkDrift']);
     for (const name of ['whiteFrequency', 'randomWalkFrequency', 'randomWalkDrift']) {
       if (spec[name] === undefined) continue;
-      const p = requireObject(`${field}.stability.${name}`, spec[name]);
+      const p = requireRecord(`${field}.stability.${name}`, spec[name]);
       rejectUnknownKeys(`${field}.stability.${name}`, p, ['tau', 'deviation']);
     }
     try {
@@ -256,74 +241,6 @@ export function noiseToDiffusion(noise: NoiseSpec, field = 'clock.noise'): Diffu
     q2: requireNonNegative(`${field}.q2`, obj['q2'], '1/s'),
     q3: requireNonNegative(`${field}.q3`, obj['q3'], '1/s³'),
   };
-}
-
-function validateCovariance(field: string, value: unknown): Matrix3 {
-  const rows = requireArray(field, value);
-  if (rows.length !== 3) throw new InvalidArgumentError(field, value, 'a 3×3 array of finite numbers');
-  const m: number[][] = rows.map((row, i) => {
-    const r = requireArray(`${field}[${i}]`, row);
-    if (r.length !== 3) throw new InvalidArgumentError(`${field}[${i}]`, row, 'an array of three finite numbers');
-    return r.map((v, j) => requireFinite(`${field}[${i}][${j}]`, v));
-  });
-  for (let i = 0; i < 3; i++) {
-    if (m[i]![i]! < 0) throw new InvalidArgumentError(`${field}[${i}][${i}]`, m[i]![i], 'a variance ≥ 0');
-    for (let j = 0; j < i; j++) {
-      const a = m[i]![j]!;
-      const b = m[j]![i]!;
-      if (Math.abs(a - b) > 1e-9 * Math.max(Math.abs(a), Math.abs(b))) {
-        throw new InvalidArgumentError(`${field}[${i}][${j}]`, a, `equal to ${field}[${j}][${i}] = ${b} (a covariance is symmetric)`);
-      }
-      // Cauchy–Schwarz: |c_ij| ≤ √(c_ii c_jj) for a positive semi-definite matrix.
-      if (a * a > m[i]![i]! * m[j]![j]! * (1 + 1e-9)) {
-        throw new InvalidArgumentError(`${field}[${i}][${j}]`, a,
-          `at most √(${field}[${i}][${i}]·${field}[${j}][${j}]) = ${Math.sqrt(m[i]![i]! * m[j]![j]!)} in magnitude (a covariance is positive semi-definite)`);
-      }
-    }
-  }
-  return m as Matrix3;
-}
-
-function validateOperations(value: unknown, horizon: number): NonNullable<NormalizedScenario['operations']> {
-  const o = requireObject('operations', value);
-  rejectUnknownKeys('operations', o, ['estimateIntervalSeconds', 'estimateNoiseSeconds', 'estimateLatencySeconds', 'replan']);
-  const interval = requirePositive('operations.estimateIntervalSeconds', o['estimateIntervalSeconds'], 's');
-  if (interval > horizon) throw new InvalidArgumentError('operations.estimateIntervalSeconds', interval, `at most horizonSeconds (${horizon} s)`);
-  const noise = requireNonNegative('operations.estimateNoiseSeconds', o['estimateNoiseSeconds'], 's');
-  const latency = o['estimateLatencySeconds'] === undefined ? 0 : requireNonNegative('operations.estimateLatencySeconds', o['estimateLatencySeconds'], 's');
-  if (o['replan'] !== undefined && o['replan'] !== 'each-contact') throw new InvalidArgumentError('operations.replan', o['replan'], '"each-contact"');
-  return { interval, noise, latency, replan: 'each-contact' };
-}
-
-function validateStrategy(value: unknown): StrategySpec {
-  const s = requireObject('strategy', value);
-  const method = s['method'];
-  if (method === 'deadband') {
-    rejectUnknownKeys('strategy', s, ['method', 'thresholdFraction', 'correctionTimeSeconds']);
-    const out: DeadbandStrategySpec = { method };
-    if (s['thresholdFraction'] !== undefined) {
-      const f = requireFinite('strategy.thresholdFraction', s['thresholdFraction'], 'in (0, 1]');
-      if (!(f > 0 && f <= 1)) throw new InvalidArgumentError('strategy.thresholdFraction', f, 'in (0, 1]');
-      out.thresholdFraction = f;
-    }
-    if (s['correctionTimeSeconds'] !== undefined) {
-      out.correctionTimeSeconds = requirePositive('strategy.correctionTimeSeconds', s['correctionTimeSeconds'], 's');
-    }
-    return out;
-  }
-  if (method === 'optimal') {
-    rejectUnknownKeys('strategy', s, ['method', 'decisionIntervalSeconds']);
-    const out: OptimalStrategySpec = { method };
-    if (s['decisionIntervalSeconds'] !== undefined) {
-      out.decisionIntervalSeconds = requirePositive('strategy.decisionIntervalSeconds', s['decisionIntervalSeconds'], 's');
-    }
-    return out;
-  }
-  if (method === 'none') {
-    rejectUnknownKeys('strategy', s, ['method']);
-    return { method };
-  }
-  throw new InvalidArgumentError('strategy.method', method, '"deadband", "optimal" or "none"');
 }
 
 /**
@@ -350,21 +267,44 @@ function validateStrategy(value: unknown): StrategySpec {
  */
 export function validateScenario(input: unknown, options: TimeScaleOptions = {}): NormalizedScenario {
   const timeScales = resolveTimeScales(options);
-  const root = requireObject('scenario', input);
+  const root = requireRecord('scenario', input);
   rejectUnknownKeys('', root, ['$schema', 'name', 'description', 'epoch', 'horizonSeconds', 'gridSeconds', 'clock',
     'tolerance', 'contacts', 'actuator', 'maneuvers', 'strategy', 'costWeights', 'constants', 'operations']);
-  let constants = DEFAULT_CONSTANT_SET;
-  if (root['constants'] !== undefined) {
-    const name = root['constants'];
-    if (typeof name !== 'string' || !Object.hasOwn(CONSTANT_SETS, name.toLowerCase())) {
-      throw new InvalidArgumentError('constants', name, `one of ${Object.keys(CONSTANT_SETS).join(', ')}`);
-    }
-    constants = CONSTANT_SETS[name.toLowerCase()]!;
-  }
-  for (const key of ['name', 'description'] as const) {
+  const constants = scenarioConstants(root['constants']);
+  for (const key of ['$schema', 'name', 'description'] as const) {
     if (root[key] !== undefined && typeof root[key] !== 'string') throw new InvalidArgumentError(key, root[key], 'a string');
   }
   const epoch = parseUtcStamp(timeScales, 'epoch', root['epoch']);
+  const { horizon, grid } = validateHorizon(root, timeScales, epoch);
+  const stamps: StampReader = {
+    epochText: String(root['epoch']), horizon,
+    toSeconds: (field, text) => parseUtcStamp(timeScales, field, text).secondsSince(epoch),
+  };
+  const { state0, covariance0, noise } = validateClock(root['clock']);
+  const { bound, probability, z } = validateTolerance(root['tolerance']);
+  const windows = validateContacts(root['contacts'], stamps);
+  const actuator = validateActuator(root['actuator']);
+  const maneuvers = root['maneuvers'] === undefined ? [] : validateManeuvers(root['maneuvers'], stamps, constants);
+  const strategy = validateStrategy(root['strategy']);
+  const weights = validateCostWeights(root['costWeights']);
+  const operations = root['operations'] === undefined ? undefined : validateOperations(root['operations'], horizon);
+  return {
+    ...(operations ? { operations } : {}),
+    source: input as SteeringScenario, epoch, timeScales, horizon, grid, state0, covariance0, noise, bound, probability, z,
+    windows, actuator, maneuvers, strategy, weights,
+  };
+}
+
+/** The constant set a scenario names (any letter case), default IERS 2010. */
+function scenarioConstants(name: unknown): ConstantSet {
+  if (name === undefined) return DEFAULT_CONSTANT_SET;
+  const set = typeof name === 'string' && Object.hasOwn(CONSTANT_SETS, name.toLowerCase()) ? CONSTANT_SETS[name.toLowerCase()] : undefined;
+  if (set === undefined) throw new InvalidArgumentError('constants', name, `one of ${Object.keys(CONSTANT_SETS).join(', ')}`);
+  return set;
+}
+
+/** Horizon in (0, 366 d] and inside the leap-second table; grid in [horizon/200 000, horizon] (default 900 s). */
+function validateHorizon(root: Record<string, unknown>, timeScales: TimeScales, epoch: Instant): { horizon: number; grid: number } {
   const horizon = requirePositive('horizonSeconds', root['horizonSeconds'], 's');
   if (horizon > MAX_HORIZON) throw new InvalidArgumentError('horizonSeconds', horizon, `at most ${MAX_HORIZON} s (366 days)`);
   // Plan stamps anywhere in the horizon are printed in UTC, so the whole horizon must lie inside the table.
@@ -374,9 +314,19 @@ export function validateScenario(input: unknown, options: TimeScaleOptions = {})
   if (horizon / grid > MAX_GRID_POINTS) {
     throw new InvalidArgumentError('gridSeconds', grid, `at least horizonSeconds/${MAX_GRID_POINTS} = ${horizon / MAX_GRID_POINTS} s`);
   }
-  const toSeconds = (field: string, text: unknown): number => parseUtcStamp(timeScales, field, text).secondsSince(epoch);
+  return { horizon, grid };
+}
 
-  const clock = requireObject('clock', root['clock']);
+/** Reads the scenario's UTC stamps as seconds since its epoch, and knows the horizon they must lie in. */
+interface StampReader {
+  readonly epochText: string;
+  readonly horizon: number;
+  toSeconds(field: string, text: unknown): number;
+}
+
+/** The clock block: finite state with |y| < 1e-3, covariance (zero when omitted) and noise. */
+function validateClock(value: unknown): Pick<NormalizedScenario, 'state0' | 'covariance0' | 'noise'> {
+  const clock = requireRecord('clock', value);
   rejectUnknownKeys('clock', clock, ['phaseSeconds', 'fractionalFrequency', 'driftPerSecond', 'covariance', 'noise']);
   const state0: [number, number, number] = [
     requireFinite('clock.phaseSeconds', clock['phaseSeconds'], 'a finite number of seconds'),
@@ -388,29 +338,24 @@ export function validateScenario(input: unknown, options: TimeScaleOptions = {})
       'fractional frequency is dimensionless (Δf/f), not hertz');
   }
   const covariance0 = clock['covariance'] === undefined ? zeros3() : validateCovariance('clock.covariance', clock['covariance']);
-  const noise = noiseToDiffusion(clock['noise'] as NoiseSpec, 'clock.noise');
+  return { state0, covariance0, noise: noiseToDiffusion(clock['noise'] as NoiseSpec, 'clock.noise') };
+}
 
-  const tol = requireObject('tolerance', root['tolerance']);
-  rejectUnknownKeys('tolerance', tol, ['phaseSeconds', 'probability']);
-  const bound = requirePositive('tolerance.phaseSeconds', tol['phaseSeconds'], 's');
-  const probability = requireFinite('tolerance.probability', tol['probability'], 'in (0, 1)');
-  if (!(probability > 0 && probability < 1)) {
-    throw new InvalidArgumentError('tolerance.probability', probability, 'in (0, 1)',
-      probability >= 1 && probability <= 100 ? 'give a fraction, e.g. 0.95, not a percentage' : undefined);
-  }
-  const z = normalQuantile((1 + probability) / 2);
-
-  const contacts = requireArray('contacts', root['contacts']);
-  const windows: { start: number; end: number }[] = [];
-  contacts.forEach((c, i) => {
-    const w = requireObject(`contacts[${i}]`, c);
+/** Contact windows: start < end, sorted, non-overlapping, inside [epoch, epoch + horizon]. */
+function validateContacts(value: unknown, stamps: StampReader): NormalizedScenario['windows'] {
+  const contacts = requireArray('contacts', value);
+  const windows: NormalizedScenario['windows'] = [];
+  for (const [i, c] of contacts.entries()) {
+    const w = requireRecord(`contacts[${i}]`, c);
     rejectUnknownKeys(`contacts[${i}]`, w, ['start', 'end']);
-    const start = toSeconds(`contacts[${i}].start`, w['start']);
-    const end = toSeconds(`contacts[${i}].end`, w['end']);
-    if (start < 0) throw new InvalidArgumentError(`contacts[${i}].start`, w['start'], `at or after the epoch ${String(root['epoch'])} (inside the horizon)`);
+    const start = stamps.toSeconds(`contacts[${i}].start`, w['start']);
+    const end = stamps.toSeconds(`contacts[${i}].end`, w['end']);
+    if (start < 0) {
+      throw new InvalidArgumentError(`contacts[${i}].start`, w['start'], `at or after the epoch ${stamps.epochText} (inside the horizon)`);
+    }
     if (!(end > start)) throw new InvalidArgumentError(`contacts[${i}].end`, w['end'], `after contacts[${i}].start (${String(w['start'])})`);
-    if (end > horizon) {
-      throw new InvalidArgumentError(`contacts[${i}].end`, w['end'], `at or before the end of the horizon (epoch + ${horizon} s)`);
+    if (end > stamps.horizon) {
+      throw new InvalidArgumentError(`contacts[${i}].end`, w['end'], `at or before the end of the horizon (epoch + ${stamps.horizon} s)`);
     }
     const prev = windows[i - 1];
     if (prev && start < prev.end) {
@@ -420,79 +365,23 @@ export function validateScenario(input: unknown, options: TimeScaleOptions = {})
           : `at or after contacts[${i - 1}].end (${previous.end}): windows must not overlap`);
     }
     windows.push({ start, end });
-  });
+  }
+  return windows;
+}
 
-  const act = requireObject('actuator', root['actuator']);
-  rejectUnknownKeys('actuator', act, ['frequencyResolution', 'maxFrequencyStep', 'cumulativeFrequencyRange',
-    'initialFrequencySteering', 'phaseSteps', 'minCommandSpacingSeconds', 'maxTimeTagSeconds']);
-  const resolution = requirePositive('actuator.frequencyResolution', act['frequencyResolution'], '(fractional)');
-  const maxStep = requirePositive('actuator.maxFrequencyStep', act['maxFrequencyStep'], '(fractional)');
-  if (maxStep < resolution) {
-    throw new InvalidArgumentError('actuator.maxFrequencyStep', maxStep, `at least actuator.frequencyResolution (${resolution})`);
-  }
-  const range = requireObject('actuator.cumulativeFrequencyRange', act['cumulativeFrequencyRange']);
-  rejectUnknownKeys('actuator.cumulativeFrequencyRange', range, ['min', 'max']);
-  const rangeMin = requireFinite('actuator.cumulativeFrequencyRange.min', range['min'], 'a fractional frequency ≤ 0');
-  const rangeMax = requireFinite('actuator.cumulativeFrequencyRange.max', range['max'], 'a fractional frequency ≥ 0');
-  if (rangeMin > 0) throw new InvalidArgumentError('actuator.cumulativeFrequencyRange.min', rangeMin, 'a fractional frequency ≤ 0');
-  if (rangeMax < 0) throw new InvalidArgumentError('actuator.cumulativeFrequencyRange.max', rangeMax, 'a fractional frequency ≥ 0');
-  const initial = act['initialFrequencySteering'] === undefined ? 0
-    : requireFinite('actuator.initialFrequencySteering', act['initialFrequencySteering']);
-  if (initial < rangeMin || initial > rangeMax) {
-    throw new InvalidArgumentError('actuator.initialFrequencySteering', initial, `inside actuator.cumulativeFrequencyRange [${rangeMin}, ${rangeMax}]`);
-  }
-  let phaseAllowed = false;
-  let phaseResolution = 0;
-  let phaseMaxStep = Infinity;
-  if (act['phaseSteps'] !== undefined) {
-    const ps = requireObject('actuator.phaseSteps', act['phaseSteps']);
-    rejectUnknownKeys('actuator.phaseSteps', ps, ['allowed', 'resolution', 'maxStep']);
-    if (typeof ps['allowed'] !== 'boolean') throw new InvalidArgumentError('actuator.phaseSteps.allowed', ps['allowed'], 'true or false');
-    phaseAllowed = ps['allowed'];
-    if (phaseAllowed || ps['resolution'] !== undefined) {
-      phaseResolution = requirePositive('actuator.phaseSteps.resolution', ps['resolution'], 's');
-    }
-    if (ps['maxStep'] !== undefined) {
-      phaseMaxStep = requirePositive('actuator.phaseSteps.maxStep', ps['maxStep'], 's');
-      if (phaseMaxStep < phaseResolution) {
-        throw new InvalidArgumentError('actuator.phaseSteps.maxStep', phaseMaxStep, `at least actuator.phaseSteps.resolution (${phaseResolution} s)`);
-      }
-    }
-  }
-  const spacing = requireNonNegative('actuator.minCommandSpacingSeconds', act['minCommandSpacingSeconds'], 's');
-  const latency = requireNonNegative('actuator.maxTimeTagSeconds', act['maxTimeTagSeconds'], 's');
-
+/** Manoeuvres inside the horizon, semi-major axes above the Earth's radius, sorted by time, with their rate changes. */
+function validateManeuvers(value: unknown, stamps: StampReader, constants: ConstantSet): NormalizedScenario['maneuvers'] {
   const maneuvers: NormalizedScenario['maneuvers'] = [];
-  if (root['maneuvers'] !== undefined) {
-    requireArray('maneuvers', root['maneuvers']).forEach((m, i) => {
-      const o = requireObject(`maneuvers[${i}]`, m);
-      rejectUnknownKeys(`maneuvers[${i}]`, o, ['at', 'semiMajorAxisBefore', 'semiMajorAxisAfter']);
-      const t = toSeconds(`maneuvers[${i}].at`, o['at']);
-      if (t < 0 || t > horizon) throw new InvalidArgumentError(`maneuvers[${i}].at`, o['at'], `inside the horizon [epoch, epoch + ${horizon} s]`);
-      const aBefore = requireOrbitRadius(`maneuvers[${i}].semiMajorAxisBefore`, o['semiMajorAxisBefore']);
-      const aAfter = requireOrbitRadius(`maneuvers[${i}].semiMajorAxisAfter`, o['semiMajorAxisAfter']);
-      maneuvers.push({ t, index: i, aBefore, aAfter, rateChange: rateChangeForSemiMajorAxisChange(aBefore, aAfter, { constants }) });
-    });
-    maneuvers.sort((a, b) => a.t - b.t || a.index - b.index);
-  }
-
-  const strategy = validateStrategy(root['strategy']);
-  const weights: Required<CostWeights> = { frequencyStep: 0.01, phaseStep: 0.01, command: 0.002 };
-  if (root['costWeights'] !== undefined) {
-    const cw = requireObject('costWeights', root['costWeights']);
-    rejectUnknownKeys('costWeights', cw, ['frequencyStep', 'phaseStep', 'command']);
-    for (const k of ['frequencyStep', 'phaseStep', 'command'] as const) {
-      if (cw[k] !== undefined) weights[k] = requireNonNegative(`costWeights.${k}`, cw[k]);
+  for (const [i, m] of requireArray('maneuvers', value).entries()) {
+    const o = requireRecord(`maneuvers[${i}]`, m);
+    rejectUnknownKeys(`maneuvers[${i}]`, o, ['at', 'semiMajorAxisBefore', 'semiMajorAxisAfter']);
+    const t = stamps.toSeconds(`maneuvers[${i}].at`, o['at']);
+    if (t < 0 || t > stamps.horizon) {
+      throw new InvalidArgumentError(`maneuvers[${i}].at`, o['at'], `inside the horizon [epoch, epoch + ${stamps.horizon} s]`);
     }
+    const aBefore = requireOrbitRadius(`maneuvers[${i}].semiMajorAxisBefore`, o['semiMajorAxisBefore']);
+    const aAfter = requireOrbitRadius(`maneuvers[${i}].semiMajorAxisAfter`, o['semiMajorAxisAfter']);
+    maneuvers.push({ t, index: i, aBefore, aAfter, rateChange: rateChangeForSemiMajorAxisChange(aBefore, aAfter, { constants }) });
   }
-
-  const operations = root['operations'] === undefined ? undefined : validateOperations(root['operations'], horizon);
-
-  return {
-    ...(operations ? { operations } : {}),
-    source: input as SteeringScenario, epoch, timeScales, horizon, grid, state0, covariance0, noise, bound, probability, z,
-    windows,
-    actuator: { resolution, maxStep, rangeMin, rangeMax, initial, phaseAllowed, phaseResolution, phaseMaxStep, spacing, latency },
-    maneuvers, strategy, weights,
-  };
+  return maneuvers.sort((a, b) => a.t - b.t || a.index - b.index);
 }

@@ -8,7 +8,8 @@ import { describe, expect, it } from 'vitest';
 import {
   IERS_2010, InvalidArgumentError, analyzeStability, deviations, elementsToState, fitClockPolynomial, groundClockRate,
   integrateProperTime, j2SecularClockRate, meanClockRate, meanMotion, planSteering, reviewOffsets, simulateClock, simulatePlan,
-  tcgRateVsTT, tuningWordFrequency, periodicCorrectionFromElements, createGravityField, identifyNoise,
+  tcgRateVsTT, tuningWordFrequency, periodicCorrectionFromElements, createGravityField, identifyNoise, GPS_ICD,
+  periodicCorrectionOnTimeGrid, periodicCorrectionFromStatesBatch,
 } from '../../src/index.js';
 
 const example = (path: string): Record<string, unknown> =>
@@ -108,19 +109,55 @@ describe('kilometres given for metres', () => {
 });
 
 describe('requireConstantSet at every function that takes constants (IERS Conventions 2010 Table 1.1 ranges [V2])', () => {
-  it('j2SecularClockRate(orbit, {}) and tcgRateVsTT({}) throw InvalidArgumentError instead of returning NaN', () => {
-    expect(invalid(() => j2SecularClockRate(ORBIT, {} as never)).argument).toBe('constants.name');
-    expect(invalid(() => tcgRateVsTT({} as never)).argument).toBe('constants.name');
+  it('j2SecularClockRate(orbit, { constants: {} }) and tcgRateVsTT({ constants: {} }) throw InvalidArgumentError instead of returning NaN', () => {
+    expect(invalid(() => j2SecularClockRate(ORBIT, { constants: {} as never })).argument).toBe('options.constants.name');
+    expect(invalid(() => tcgRateVsTT({ constants: {} as never })).argument).toBe('options.constants.name');
   });
   it('a set with gm NaN, lG Infinity or a stale relativisticF is refused naming the field and its range', () => {
-    const gm = invalid(() => tcgRateVsTT({ ...IERS_2010, gm: Number.NaN }));
-    expect(gm.argument).toBe('constants.gm');
+    const gm = invalid(() => tcgRateVsTT({ constants: { ...IERS_2010, gm: Number.NaN } }));
+    expect(gm.argument).toBe('options.constants.gm');
     expect(gm.message).toContain('in [390000000000000, 410000000000000] m³/s²');
-    expect(invalid(() => periodicCorrectionFromElements(26_560_000, 0.01, 1, { ...IERS_2010, lG: Number.POSITIVE_INFINITY })).argument).toBe('constants.lG');
+    expect(invalid(() => periodicCorrectionFromElements(26_560_000, 0.01, 1, { constants: { ...IERS_2010, lG: Number.POSITIVE_INFINITY } })).argument)
+      .toBe('options.constants.lG');
     expect(invalid(() => meanClockRate(26_560_000, { constants: { ...IERS_2010, gm: 3.9861e14 } })).argument).toBe('options.constants.relativisticF');
   });
-  it('tcgRateVsTT(IERS_2010) still returns L_G/(1 − L_G) = 6.969290134e-10 to 1e-18 (IERS Conventions 2010 §10.1 [V1])', () => {
-    expect(Math.abs(tcgRateVsTT(IERS_2010) - 6.969290134e-10 / (1 - 6.969290134e-10))).toBeLessThan(1e-25);
-    expect(Math.abs(tcgRateVsTT(IERS_2010) - 6.969290134e-10)).toBeLessThan(1e-18);
+  it('tcgRateVsTT({ constants: IERS_2010 }) still returns L_G/(1 − L_G) = 6.969290134e-10 to 1e-18 (IERS Conventions 2010 §10.1 [V1])', () => {
+    expect(Math.abs(tcgRateVsTT({ constants: IERS_2010 }) - 6.969290134e-10 / (1 - 6.969290134e-10))).toBeLessThan(1e-25);
+    expect(Math.abs(tcgRateVsTT({ constants: IERS_2010 }) - 6.969290134e-10)).toBeLessThan(1e-18);
+  });
+});
+
+describe('one options convention: a constant set is { constants } in the trailing options, never positional', () => {
+  it('a set passed where the options go (the old positional form) is refused with a hint, never replaced by the default', () => {
+    const calls: [string, () => unknown][] = [
+      ['tcgRateVsTT', () => tcgRateVsTT(GPS_ICD as never)],
+      ['periodicCorrectionFromElements', () => periodicCorrectionFromElements(26_560_000, 0.01, 1, GPS_ICD as never)],
+      ['j2SecularClockRate', () => j2SecularClockRate(ORBIT, GPS_ICD as never)],
+      ['meanClockRate', () => meanClockRate(26_560_000, GPS_ICD as never)],
+      ['periodicCorrectionOnTimeGrid', () => periodicCorrectionOnTimeGrid({ semiMajorAxis: 26_560_000, eccentricity: 0.01, meanAnomalyAtStart: 0 },
+        { stepSeconds: 60, count: 2 }, GPS_ICD as never)],
+    ];
+    for (const [name, call] of calls) {
+      const e = invalid(call);
+      expect(e.argument, name).toBe('options');
+      expect(e.hint, name).toBe('a constant set goes in the options: { constants: set }');
+    }
+  });
+  it('periodicCorrectionOnTimeGrid(orbit, grid, { constants }) checks the set with requireConstantSet (it checked gm and F only, so an F that disagrees with gm passed)', () => {
+    const e = invalid(() => periodicCorrectionOnTimeGrid({ semiMajorAxis: 26_560_000, eccentricity: 0.01, meanAnomalyAtStart: 0 },
+      { stepSeconds: 60, count: 2 }, { constants: { ...IERS_2010, relativisticF: -4.4e-10 } }));
+    expect(e.argument).toBe('options.constants.relativisticF');
+  });
+  it('an output array passed where the options go is refused with a hint, so the caller\'s buffer is never silently left unfilled', () => {
+    const e = invalid(() => periodicCorrectionFromStatesBatch(new Float64Array(6).fill(7e6), new Float64Array(1) as never));
+    expect(e.argument).toBe('options');
+    expect(e.hint).toBe('an output array goes in the options: { out: array }');
+  });
+  it('{ constants: GPS_ICD } gives the GPS value and omitted options the IERS 2010 one (IS-GPS-200 μ and IERS GM differ by 1.5e-7, F by 7e-8)', () => {
+    const gps = periodicCorrectionFromElements(26_560_000, 0.01, 1, { constants: GPS_ICD });
+    const iers = periodicCorrectionFromElements(26_560_000, 0.01, 1);
+    expect(iers).toBe(periodicCorrectionFromElements(26_560_000, 0.01, 1, {}));
+    expect(gps).not.toBe(iers);
+    expect(Math.abs(gps / iers - Math.sqrt(GPS_ICD.gm / IERS_2010.gm))).toBeLessThan(1e-15);
   });
 });

@@ -94,8 +94,8 @@ describe('batch APIs on Float64Array', () => {
   const E = Float64Array.from({ length: 97 }, (_, k) => (k * 2 * Math.PI) / 96);
 
   it('periodicCorrectionFromElementsBatch equals periodicCorrectionFromElements element by element (IS-GPS-200 F, GPS set)', () => {
-    const out = periodicCorrectionFromElementsBatch(A_GPS, 0.0123, E, GPS_ICD);
-    for (let k = 0; k < E.length; k++) expect(out[k]).toBe(periodicCorrectionFromElements(A_GPS, 0.0123, E[k]!, GPS_ICD));
+    const out = periodicCorrectionFromElementsBatch(A_GPS, 0.0123, E, { constants: GPS_ICD });
+    for (let k = 0; k < E.length; k++) expect(out[k]).toBe(periodicCorrectionFromElements(A_GPS, 0.0123, E[k]!, { constants: GPS_ICD }));
   });
 
   it('periodicCorrectionFromStatesBatch equals periodicCorrectionFromState and writes into out', () => {
@@ -105,7 +105,7 @@ describe('batch APIs on Float64Array', () => {
       states.set([...s.position, ...s.velocity], 6 * k);
     }
     const out = new Float64Array(10);
-    expect(periodicCorrectionFromStatesBatch(states, out)).toBe(out);
+    expect(periodicCorrectionFromStatesBatch(states, { out })).toBe(out);
     for (let k = 0; k < 10; k++) {
       const s = states.subarray(6 * k, 6 * k + 6);
       expect(out[k]).toBeCloseTo(periodicCorrectionFromState({ position: [s[0]!, s[1]!, s[2]!], velocity: [s[3]!, s[4]!, s[5]!] }), 22);
@@ -137,7 +137,7 @@ describe('batch APIs on Float64Array', () => {
     expect(() => periodicCorrectionFromStatesBatch(new Float64Array(7))).toThrow(/multiple of 6/);
     expect(() => periodicCorrectionFromElementsBatch(A_GPS, 0.01, Float64Array.of(0, Number.NaN))).toThrow(/eccentricAnomalies\[1\]/);
     expect(() => periodicCorrectionFromStatesBatch(Float64Array.of(1000, 0, 0, 0, 1, 0))).toThrow(/inside the Earth/);
-    expect(() => j2PeriodicTermBatch(A_GPS, I_GPS, new Float64Array(3), 'residual', IERS_2010, new Float64Array(2))).toThrow(/out must be a Float64Array of length 3/);
+    expect(() => j2PeriodicTermBatch(A_GPS, I_GPS, new Float64Array(3), 'residual', { constants: IERS_2010, out: new Float64Array(2) })).toThrow(/out must be a Float64Array of length 3/);
     expect(() => j2PeriodicTermBatch(A_GPS, I_GPS, new Float64Array(3), 'half' as never)).toThrow(/"residual" or "total"/);
     expect(() => j2PeriodicTermFromStatesBatch(new Float64Array(6), 'x' as never)).toThrow(/"residual" or "total"/);
     expect(() => j2PeriodicTermFromStatesBatch(Float64Array.of(A_GPS, 0, 0, 0, 9000, 0))).toThrow(/escape speed/);

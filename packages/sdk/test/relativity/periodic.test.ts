@@ -21,7 +21,7 @@ describe('periodic correction', () => {
   it('periodicCorrectionFromElements and periodicCorrectionFromState agree to 1e-15 s on any Kepler orbit (IERS 2010 eq. 10.11 "exactly equivalent" [V1]; property)', () => {
     fc.assert(fc.property(orbitArb, fc.constantFrom(IERS_2010, GPS_ICD), (el, set: ConstantSet) => {
       const E = solveKepler(el.meanAnomaly, el.eccentricity);
-      const fromElements = periodicCorrectionFromElements(el.semiMajorAxis, el.eccentricity, E, set);
+      const fromElements = periodicCorrectionFromElements(el.semiMajorAxis, el.eccentricity, E, { constants: set });
       const fromState = periodicCorrectionFromState(elementsToState(el, set.gm));
       return Math.abs(fromElements - fromState) <= 1e-15;
     }), { seed: SEED, numRuns: 3000 });
@@ -51,10 +51,10 @@ describe('periodic correction', () => {
   });
 
   it('periodicCorrectionAtMeanAnomaly returns the element-form correction at E solved from M, and the amplitude', () => {
-    const r = periodicCorrectionAtMeanAnomaly(27_978_100, 0.158, 1, GALILEO_ICD);
+    const r = periodicCorrectionAtMeanAnomaly(27_978_100, 0.158, 1, { constants: GALILEO_ICD });
     expect(r.eccentricAnomaly).toBe(solveKepler(1, 0.158));
-    expect(r.correctionSeconds).toBe(periodicCorrectionFromElements(27_978_100, 0.158, r.eccentricAnomaly, GALILEO_ICD));
-    expect(r.amplitudeSeconds).toBe(periodicAmplitude(27_978_100, 0.158, GALILEO_ICD));
+    expect(r.correctionSeconds).toBe(periodicCorrectionFromElements(27_978_100, 0.158, r.eccentricAnomaly, { constants: GALILEO_ICD }));
+    expect(r.amplitudeSeconds).toBe(periodicAmplitude(27_978_100, 0.158, { constants: GALILEO_ICD }));
   });
 
   it('the periodic functions reject bad a, e, E, M, state and constants, naming the field', () => {
@@ -62,14 +62,15 @@ describe('periodic correction', () => {
     expect(() => periodicCorrectionFromElements(26_561_750, 1.2, 1)).toThrow(/eccentricity must be in \[0, 1\).*hyperbolic/);
     expect(() => periodicCorrectionFromElements(26_561_750, -0.1, 1)).toThrow(/eccentricity cannot be negative/);
     expect(() => periodicCorrectionFromElements(26_561_750, 0.01, Number.NaN)).toThrow(/eccentricAnomaly must be a finite angle/);
-    expect(() => periodicCorrectionFromElements(26_561_750, 0.01, 1, null as unknown as ConstantSet)).toThrow(/constants must be a ConstantSet/);
+    expect(() => periodicCorrectionFromElements(26_561_750, 0.01, 1, null as never)).toThrow(/options must be an object of named options/);
+    expect(() => periodicCorrectionFromElements(26_561_750, 0.01, 1, { constants: null as unknown as ConstantSet })).toThrow(/options\.constants must be a ConstantSet/);
     expect(() => periodicAmplitude(Number.NaN, 0.01)).toThrow(/semiMajorAxis/);
     expect(() => periodicAmplitude(26_561_750, Number.NaN)).toThrow(/eccentricity/);
-    expect(() => periodicAmplitude(26_561_750, 0.01, {} as ConstantSet)).toThrow(/constants/);
+    expect(() => periodicAmplitude(26_561_750, 0.01, { constants: {} as ConstantSet })).toThrow(/options\.constants/);
     expect(() => periodicCorrectionAtMeanAnomaly(26_561_750, 0.01, Number.NaN)).toThrow(/meanAnomaly/);
     expect(() => periodicCorrectionAtMeanAnomaly(-1, 0.01, 1)).toThrow(/semiMajorAxis/);
     expect(() => periodicCorrectionAtMeanAnomaly(26_561_750, 1, 1)).toThrow(/eccentricity/);
-    expect(() => periodicCorrectionAtMeanAnomaly(26_561_750, 0.1, 1, 'gps-icd' as unknown as ConstantSet)).toThrow(/constants/);
+    expect(() => periodicCorrectionAtMeanAnomaly(26_561_750, 0.1, 1, { constants: 'gps-icd' as unknown as ConstantSet })).toThrow(/options\.constants/);
     expect(() => periodicCorrectionFromState({ position: [100, 0, 0], velocity: [0, 1, 0] })).toThrow(/\|state\.position\| .*inside the Earth/);
     expect(() => periodicCorrectionFromState({ position: [7e6, 0, 0], velocity: [0, Number.NaN, 0] })).toThrow(/state\.velocity\[1\]/);
     expect(() => periodicCorrectionFromState(null as unknown as StateVector)).toThrow(/state must be an object/);

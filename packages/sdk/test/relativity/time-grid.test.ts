@@ -21,11 +21,11 @@ function maxAbsDifference(x: Float64Array, y: Float64Array): number {
   return worst;
 }
 
-describe('periodicCorrectionOnTimeGrid(orbit, grid, constants)', () => {
+describe('periodicCorrectionOnTimeGrid(orbit, grid, { constants })', () => {
   it('periodicCorrectionOnTimeGrid starts at the IS-GPS-200 check value Δt_r = −2.378695477618e-08 s (physics-refs §3, √A = 5153.79589081, e = 0.0123456789, E = 1 rad [C])', () => {
     const e = 0.0123456789;
     const a = 5153.79589081 ** 2;
-    const out = periodicCorrectionOnTimeGrid({ semiMajorAxis: a, eccentricity: e, meanAnomalyAtStart: 1 - e * Math.sin(1) }, { stepSeconds: 30, count: 3 }, GPS_ICD);
+    const out = periodicCorrectionOnTimeGrid({ semiMajorAxis: a, eccentricity: e, meanAnomalyAtStart: 1 - e * Math.sin(1) }, { stepSeconds: 30, count: 3 }, { constants: GPS_ICD });
     expect(Math.abs(out[0]! - -2.378695477618e-8)).toBeLessThan(5e-21);
   });
 
@@ -62,7 +62,7 @@ describe('periodicCorrectionOnTimeGrid(orbit, grid, constants)', () => {
   it('periodicCorrectionOnTimeGrid returns an empty array for count 0 and uses the constant set given', () => {
     const orbit = { semiMajorAxis: 26_561_750, eccentricity: 0.01, meanAnomalyAtStart: 0 };
     expect(periodicCorrectionOnTimeGrid(orbit, { stepSeconds: 1, count: 0 }).length).toBe(0);
-    const gps = periodicCorrectionOnTimeGrid(orbit, { stepSeconds: 60, count: 100 }, GPS_ICD);
+    const gps = periodicCorrectionOnTimeGrid(orbit, { stepSeconds: 60, count: 100 }, { constants: GPS_ICD });
     expect(maxAbsDifference(gps, direct(26_561_750, 0.01, 0, 60, 100, GPS_ICD))).toBeLessThan(1e-17);
   });
 
@@ -87,15 +87,15 @@ describe('periodicCorrectionOnTimeGrid(orbit, grid, constants)', () => {
   });
 });
 
-describe('periodicCorrectionOnTimeGrid(orbit, grid, constants, out)', () => {
+describe('periodicCorrectionOnTimeGrid(orbit, grid, { constants, out })', () => {
   it('periodicCorrectionOnTimeGrid writes into the array given and returns it; a short or wrong array is refused', () => {
     const orbit = { semiMajorAxis: 26_561_750, eccentricity: 0.01, meanAnomalyAtStart: 0.2 };
     const out = new Float64Array(120).fill(Number.NaN);
-    const result = periodicCorrectionOnTimeGrid(orbit, { stepSeconds: 30, count: 100 }, IERS_2010, out);
+    const result = periodicCorrectionOnTimeGrid(orbit, { stepSeconds: 30, count: 100 }, { constants: IERS_2010, out });
     expect(result).toBe(out);
     expect(maxAbsDifference(out.subarray(0, 100), direct(26_561_750, 0.01, 0.2, 30, 100))).toBeLessThan(1e-17);
     expect(Number.isNaN(out[100])).toBe(true);
-    expect(() => periodicCorrectionOnTimeGrid(orbit, { stepSeconds: 30, count: 100 }, IERS_2010, new Float64Array(99))).toThrow(/out/);
-    expect(() => periodicCorrectionOnTimeGrid(orbit, { stepSeconds: 30, count: 1 }, IERS_2010, [0] as never)).toThrow(InvalidArgumentError);
+    expect(() => periodicCorrectionOnTimeGrid(orbit, { stepSeconds: 30, count: 100 }, { constants: IERS_2010, out: new Float64Array(99) })).toThrow(/out/);
+    expect(() => periodicCorrectionOnTimeGrid(orbit, { stepSeconds: 30, count: 1 }, { constants: IERS_2010, out: [0] as never })).toThrow(InvalidArgumentError);
   });
 });

@@ -1,13 +1,12 @@
 /**
- * Renderers of a {@link ReviewReport}: Markdown and a self-contained, print-friendly HTML
- * page with inline SVG plots (no scripts, no external resources, works offline).
+ * Renderers of a review report for `tauline review`: Markdown and a self-contained, print-friendly HTML
+ * page with inline SVG plots (no scripts, no external resources, works offline). They live in the CLI:
+ * the SDK computes the report and draws nothing.
  *
  * @module
  */
-import { SECONDS_PER_DAY } from '../constants.js';
-import type { ReviewReport, SpacecraftFinding, Verdict } from './types.js';
-import { requireReviewReport, requireSpacecraftFinding } from './report-shape.js';
-import { InvalidArgumentError } from '../errors.js';
+import { SECONDS_PER_DAY } from '@tauline/sdk/constants';
+import type { ReviewReport, SpacecraftFinding, Verdict } from '@tauline/sdk/review';
 
 const VERDICT_MARK: Record<Verdict, string> = { pass: 'PASS', marginal: 'MARGINAL', fail: 'FAIL' };
 
@@ -31,11 +30,6 @@ const usPerDay = (fraction: number) => fraction * SECONDS_PER_DAY * 1e6;
  * Markdown and HTML reports, so a MARGINAL or FAIL verdict never stands without a reason.
  */
 export function verdictExplanation(s: SpacecraftFinding): string | undefined {
-  return explanation(requireSpacecraftFinding('finding', s));
-}
-
-/** {@link verdictExplanation} of a finding already checked (the renderers check the whole report once). */
-function explanation(s: SpacecraftFinding): string | undefined {
   if (s.verdict === 'pass' || s.diagnosis.length > 0) return undefined;
   const used = (100 * Math.abs(s.differenceFractional)) / s.toleranceFractional;
   if (s.verdict === 'marginal') {
@@ -65,7 +59,6 @@ function md(text: string): string {
 
 /** Markdown rendering: one summary table, then a section per spacecraft. */
 export function reviewToMarkdown(report: ReviewReport): string {
-  requireReviewReport('report', report);
   const lines: string[] = [`# ${md(report.title)}`, '', `> ${report.caution}`, '',
     `Result: ${report.counts.pass} pass, ${report.counts.marginal} marginal, ${report.counts.fail} fail.`, '',
     '| spacecraft | verdict | expected offset | configured offset | difference | difference (ns/day) | tolerance |',
@@ -79,7 +72,7 @@ export function reviewToMarkdown(report: ReviewReport): string {
       `- Expected output frequency: ${s.expectedFrequencyHz.toFixed(7)} Hz; configured: ${s.configuredFrequencyHz.toFixed(7)} Hz; difference ${e(s.differenceHz, 4)} Hz`,
       `- Rate budget: gravitational ${f(usPerDay(s.budget.gravitational), 4)} µs/day, velocity ${f(usPerDay(s.budget.velocity), 4)} µs/day, J2 ${f(usPerDay(s.budget.j2) * 1e3, 4)} ns/day (${s.budget.j2Included ? 'included' : 'not included: the kind of a is not stated'}), net ${f(usPerDay(s.budget.fractionalRate), 4)} µs/day; J2 osculating/mean-a ambiguity ${e(s.budget.j2Ambiguity, 2)}`);
     if (s.quantisationStepFractional !== null) lines.push(`- Tuning-word step: ${e(s.quantisationStepFractional, 3)} (fractional)`);
-    const why = explanation(s);
+    const why = verdictExplanation(s);
     if (why) lines.push('', why);
     if (s.diagnosis.length > 0) {
       lines.push('', '| finding | would have produced | explanation |', '|---|---:|---|');
@@ -98,8 +91,10 @@ export function reviewToMarkdown(report: ReviewReport): string {
   return lines.join('\n') + '\n';
 }
 
+const ESCAPES: Readonly<Record<string, string>> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
+
 function esc(text: string): string {
-  return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+  return text.replace(/[&<>"']/g, (c) => ESCAPES[c] ?? c);
 }
 
 /** Horizontal bar chart of the rate budget in µs/day (gravitational, velocity, net). */
@@ -144,7 +139,7 @@ function dispersionSvg(s: SpacecraftFinding, actuatorRange: number | null): stri
   const range = actuatorRange === null ? '' : [actuatorRange, -actuatorRange].map((r) =>
     `<line x1="${L}" x2="${W - R}" y1="${y(r).toFixed(1)}" y2="${y(r).toFixed(1)}" stroke="currentColor" stroke-dasharray="6 3"/>` +
     `<text x="${W - R}" y="${(y(r) - 4).toFixed(1)}" text-anchor="end">steering limit ${e(r, 2)}</text>`).join('');
-  return `<svg class="plot" viewBox="0 0 ${W} ${H}" role="img" aria-label="Residual rate of ${esc(s.id)} across the injection dispersion, from ${e(values[0]!, 3)} to ${e(values[values.length - 1]!, 3)}">` +
+  return `<svg class="plot" viewBox="0 0 ${W} ${H}" role="img" aria-label="Residual rate of ${esc(s.id)} across the injection dispersion, from ${e(values[0] ?? null, 3)} to ${e(values.at(-1) ?? null, 3)}">` +
     `<line x1="${L}" x2="${W - R}" y1="${y(0).toFixed(1)}" y2="${y(0).toFixed(1)}" stroke="currentColor" stroke-width="0.5"/>` +
     `<text x="${L - 6}" y="${(y(hi) + 4).toFixed(1)}" text-anchor="end">${e(hi, 2)}</text><text x="${L - 6}" y="${(y(lo) + 4).toFixed(1)}" text-anchor="end">${e(lo, 2)}</text>` +
     `<path d="${path}" fill="none" stroke="currentColor" stroke-width="1.5"/>${marks}${range}` +
@@ -153,22 +148,13 @@ function dispersionSvg(s: SpacecraftFinding, actuatorRange: number | null): stri
 
 /**
  * A self-contained, print-friendly HTML page of the review (inline CSS and SVG, no scripts,
- * no external resources). `actuatorRanges` maps spacecraft id to its steering range, for the plot.
+ * no external resources). `actuatorRanges` maps spacecraft id to its steering range (fractional, > 0), for the plot.
  */
 export function reviewToHtml(report: ReviewReport, actuatorRanges: Readonly<Record<string, number>> = {}): string {
-  requireReviewReport('report', report);
-  if (typeof actuatorRanges !== 'object' || actuatorRanges === null || Array.isArray(actuatorRanges)) {
-    throw new InvalidArgumentError('actuatorRanges', actuatorRanges, 'an object mapping spacecraft id to its steering range (fractional)');
-  }
-  for (const [id, range] of Object.entries(actuatorRanges)) {
-    if (typeof range !== 'number' || !(range > 0) || !Number.isFinite(range)) {
-      throw new InvalidArgumentError(`actuatorRanges.${id}`, range, 'a finite fractional steering range > 0');
-    }
-  }
   const rows = report.spacecraft.map((s) => `<tr class="${s.verdict}"><th scope="row">${esc(s.id)}</th><td><span class="verdict ${s.verdict}">${VERDICT_MARK[s.verdict]}</span></td>` +
     `<td>${e(s.expectedFractionalOffset, 6)}</td><td>${e(s.configuredFractionalOffset, 6)}</td><td>${e(s.differenceFractional, 3)}</td><td>${f(s.differenceNanosecondsPerDay, 3)}</td><td>${e(s.toleranceFractional, 2)}</td></tr>`).join('');
   const sections = report.spacecraft.map((s) => {
-    const why = explanation(s);
+    const why = verdictExplanation(s);
     const diag = s.diagnosis.length === 0 ? `<p class="explanation">${why === undefined ? 'No findings.' : esc(why)}</p>` : `<table><caption>Findings</caption><thead><tr><th scope="col">code</th><th scope="col">would have produced</th><th scope="col">explanation</th></tr></thead><tbody>${
       s.diagnosis.map((d) => `<tr><td><code>${d.code}</code>${d.matches ? '' : ' <small>(note)</small>'}</td><td>${e(d.wouldHaveProduced, 6)}</td><td class="text">${esc(d.message)}</td></tr>`).join('')}</tbody></table>`;
     const disp = s.dispersion ? `<h3>Injection dispersion (σa = ${s.dispersion.semiMajorAxisSigma} m)</h3>${dispersionSvg(s, actuatorRanges[s.id] ?? null)}
