@@ -42,7 +42,7 @@ const SECTION_GAP = 20;
 
 /** The layout for `rows` satellites and `lanes` stations at a width (CSS px); its height follows from the counts. */
 export function fleetLayout(width: number, rows: number, lanes: number): FleetLayout {
-  const left = Math.round(Math.min(120, Math.max(70, width * 0.22)));
+  const left = Math.round(Math.min(128, Math.max(112, width * 0.22)));
   const top = AXIS_HEIGHT;
   const stationsHeading = top + rows * ROW_HEIGHT + 4;
   const laneTop = stationsHeading + SECTION_GAP - 4;
@@ -139,22 +139,26 @@ function drawLabels(ctx: CanvasRenderingContext2D, { view, layout, colors, atRis
   ctx.font = colors.font;
   ctx.textAlign = 'right';
   ctx.textBaseline = 'middle';
-  const fit = (text: string): string => {
+  const fit = (text: string, room: number): string => {
     let s = text;
-    while (s.length > 3 && ctx.measureText(s).width > layout.left - 10) s = s.slice(0, -1);
+    while (s.length > 3 && ctx.measureText(s).width > room) s = s.slice(0, -1);
     return s === text ? s : `${s.slice(0, -1)}…`;
   };
+  // The ⚠ of an at-risk satellite sits at the left edge, so the id keeps its room.
+  const icon = ctx.measureText('⚠ ').width;
   view.satellites.forEach((s, i) => {
     const y = layout.top + i * layout.rowHeight + layout.rowHeight / 2;
     ctx.fillStyle = atRisk[i] ? colors.risk : colors.text;
-    ctx.fillText(fit(atRisk[i] ? `⚠ ${s.id}` : s.id), layout.left - 6, y);
+    ctx.textAlign = 'right';
+    ctx.fillText(fit(s.id, layout.left - 8 - (atRisk[i] ? icon : 0)), layout.left - 6, y);
+    if (atRisk[i]) { ctx.textAlign = 'left'; ctx.fillText('⚠', 2, y); }
   });
   ctx.textAlign = 'left';
   ctx.fillStyle = colors.muted;
   ctx.fillText('Stations', 4, layout.stationsHeading + 6);
   ctx.textAlign = 'right';
   ctx.fillStyle = colors.text;
-  view.stations.forEach((st, k) => ctx.fillText(fit(st.id), layout.left - 6, layout.laneTop + k * layout.laneHeight + layout.laneHeight / 2));
+  view.stations.forEach((st, k) => ctx.fillText(fit(st.id, layout.left - 10), layout.left - 6, layout.laneTop + k * layout.laneHeight + layout.laneHeight / 2));
 }
 
 function drawMarginStrip(ctx: CanvasRenderingContext2D, input: DrawInput, i: number, riskPattern: CanvasPattern | string): void {
@@ -228,7 +232,7 @@ function drawSatelliteRow(ctx: CanvasRenderingContext2D, input: DrawInput, i: nu
 /** Rectangle of a support in its lane, CSS px. */
 export function supportRect(layout: FleetLayout, sx: Scale, s: Pick<SupportView, 'station' | 'start' | 'end'>): { x: number; y: number; w: number; h: number } {
   const x = sx.map(s.start);
-  return { x, y: layout.laneTop + s.station * layout.laneHeight + 3, w: Math.max(2, sx.map(s.end) - x), h: layout.laneHeight - 6 };
+  return { x, y: layout.laneTop + s.station * layout.laneHeight + 3, w: Math.max(3, sx.map(s.end) - x), h: layout.laneHeight - 6 };
 }
 
 function drawLanes(ctx: CanvasRenderingContext2D, input: DrawInput, riskPattern: CanvasPattern | string, setupPattern: CanvasPattern | string): void {

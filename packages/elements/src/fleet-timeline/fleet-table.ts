@@ -75,7 +75,7 @@ export function satelliteTable({ view, atRisk, selected, onSelect }: TableInput)
         <td>${s.commands.length}</td>
         <td>${s.supportCount}</td>
         <td>${s.stationsUsed.join(', ') || '—'}</td>
-        <td class="reason">${s.reason ? typographicMinus(s.reason) : nothing}</td>
+        <td class="reason" title=${s.reason ? typographicMinus(s.reason) : nothing}>${s.reason ? html`<span>${typographicMinus(s.reason)}</span>` : nothing}</td>
       </tr>`;
     })}</tbody>
   </table>`;

@@ -206,8 +206,8 @@ export class TaulineFleetTimeline extends PlotElement {
       <div class="sr-only" aria-live="polite">${this._announcement}</div>
       <div class="table-wrap">
         ${satelliteTable({ view: d, atRisk: this._atRisk, selected: this.selected, onSelect: (i) => this._selectSatellite(i) })}
-        ${stationTable(d)}
       </div>
+      <div class="table-wrap stations">${stationTable(d)}</div>
       ${d.caution ? html`<p class="caution" role="note">${d.caution}</p>` : nothing}`;
   }
 
