@@ -6,7 +6,7 @@ import type { TaulineFleetTimeline } from '../src/fleet-timeline/fleet-timeline.
 import { readFleetPlan } from '../src/fleet-timeline/fleet-data.js';
 import { calendarTicks } from '../src/fleet-timeline/fleet-axis.js';
 import { fleetLayout } from '../src/fleet-timeline/fleet-draw.js';
-import { erfc, requiredBound } from '../src/fleet-timeline/fleet-margin.js';
+import { erfc, marginSeries, oneSidedQuantile, requiredBound } from '../src/fleet-timeline/fleet-margin.js';
 import { heldFleet, strandedFleet } from './fleet-fixtures.js';
 import { captureWarnings } from './fixtures.js';
 
@@ -81,8 +81,18 @@ describe('tauline-fleet-timeline', () => {
       [1e-8, 5e-9, 0.95, 1.959963984540054, 1.8224268535496077e-8],
       [2.5e-8, 4e-9, 0.9973, 2.9999769927034015, 3.612860181513839e-8],
       [-1.2e-8, 8e-9, 0.68, 0.9944578832097535, 1.574744700173807e-8],
+      [1e-8, 1e-9, 0.95, 1.959963984540054, 1.1644853626951472e-8],
     ];
-    for (const [m, s, p, z, b] of cases) expect(Math.abs(requiredBound(m, s, p, z) - b), `m=${m} σ=${s} p=${p}`).to.be.below(1e-5 * s);
+    for (const [m, s, p, z, b] of cases) {
+      expect(Math.abs(requiredBound(m, s, p, z) - b), `m=${m} σ=${s} p=${p}`).to.be.below(1e-5 * s);
+      // The far-tail shortcut (|m| ≥ 8σ) and the series (warm starts) give the same bound.
+      expect(Math.abs(requiredBound(m, s, p, z, z, oneSidedQuantile(p)) - b), `m=${m} σ=${s} p=${p}, z1`).to.be.below(1e-5 * s);
+      expect(Math.abs(0.1 - marginSeries([m, m], [s, s], 0.1 + b, p, z)[1]!), `series m=${m} σ=${s}`).to.be.below(1e-5 * s);
+    }
+    // [p, scipy.stats.norm.ppf(p)] [C].
+    for (const [p, z1] of [[0.68, 0.4676987991145084], [0.95, 1.6448536269514722], [0.9973, 2.7821504537846025]] as const) {
+      expect(Math.abs(oneSidedQuantile(p) - z1), `z1(${p})`).to.be.below(1e-5);
+    }
   });
 
   it('readFleetPlan margins agree with the planner: every held satellite has margin ≥ 0 at every epoch, the stranded one goes below 0', async () => {

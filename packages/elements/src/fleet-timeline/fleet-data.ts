@@ -7,7 +7,9 @@
  *
  * @module
  */
-import { validateFleet, type FleetCommand, type FleetDocument, type FleetPlan, type FleetSatellitePlan, type StationSupport } from '@tauline/sdk/fleet';
+import {
+  validateFleet, type FleetCommand, type FleetDocument, type FleetPlan, type FleetSatellitePlan, type NormalizedFleet, type StationSupport,
+} from '@tauline/sdk/fleet';
 import type { Instant, TimeScales } from '@tauline/sdk/time';
 import { marginSeries } from './fleet-margin.js';
 
@@ -81,6 +83,8 @@ export interface StationView {
 
 /** Everything the timeline draws. */
 export interface FleetView {
+  /** The fleet document as the SDK validated it (kept to skip validating it again). */
+  fleet: NormalizedFleet;
   epoch: Instant;
   timeScales: TimeScales;
   /** Horizon length, seconds. */
@@ -173,7 +177,7 @@ function readSatellite(field: string, raw: unknown, index: number, stamp: Stamp)
   };
 }
 
-function readStations(plan: Record<string, unknown>, fleet: ReturnType<typeof validateFleet>, ids: Map<string, number>,
+function readStations(plan: Record<string, unknown>, fleet: NormalizedFleet, ids: Map<string, number>,
   stamp: Stamp): StationView[] {
   const stations: StationView[] = fleet.stations.map((s) => ({ id: s.id, setup: s.setup, supports: [] }));
   arr('plan.stationSchedule', plan['stationSchedule']).forEach((raw, k) => {
@@ -192,11 +196,11 @@ function readStations(plan: Record<string, unknown>, fleet: ReturnType<typeof va
   return stations;
 }
 
-function readUnchecked(plan: unknown, fleetDoc: unknown): FleetView {
+function readUnchecked(plan: unknown, fleetDoc: unknown, validated?: NormalizedFleet): FleetView {
   const p = obj('plan', plan);
-  let fleet: ReturnType<typeof validateFleet>;
+  let fleet: NormalizedFleet;
   try {
-    fleet = validateFleet(fleetDoc);
+    fleet = validated && validated.source === fleetDoc ? validated : validateFleet(fleetDoc);
   } catch (e) {
     throw new GuardError(`fleet: ${e instanceof Error ? e.message : String(e)}`);
   }
@@ -236,7 +240,7 @@ function readUnchecked(plan: unknown, fleetDoc: unknown): FleetView {
   const order = new Map(stations.map((s, k) => [s.id, k]));
   for (const sat of satellites) sat.stationsUsed.sort((a, b) => (order.get(a) ?? 0) - (order.get(b) ?? 0));
   return {
-    epoch, timeScales, horizon: fleet.horizon, feasible: p['feasible'], satellites, stations,
+    fleet, epoch, timeScales, horizon: fleet.horizon, feasible: p['feasible'], satellites, stations,
     reason: typeof p['reason'] === 'string' ? p['reason'] : null,
     caution: typeof p['caution'] === 'string' ? p['caution'] : null,
   };
@@ -245,14 +249,15 @@ function readUnchecked(plan: unknown, fleetDoc: unknown): FleetView {
 /**
  * Reads a fleet plan and its fleet document. Returns the view, or the first problem found: the
  * field path (`plan.satellites[2].predicted.t`, `fleet: satellites[1].tolerance.phaseSeconds …`)
- * and what it must be.
+ * and what it must be. `validated`, the SDK's `validateFleet(fleet)` of this same document when the
+ * caller kept it (the element does, while only the plan changes), saves validating it again.
  */
-export function readFleetPlan(plan: FleetPlan | unknown, fleet: FleetDocument | unknown): FleetReadResult {
+export function readFleetPlan(plan: FleetPlan | unknown, fleet: FleetDocument | unknown, validated?: NormalizedFleet): FleetReadResult {
   if (fleet === undefined || fleet === null) {
     return { ok: false, error: 'fleet is not set: give the fleet document the plan was made for (epoch, tolerances, stations, passes)' };
   }
   try {
-    return { ok: true, view: readUnchecked(plan, fleet) };
+    return { ok: true, view: readUnchecked(plan, fleet, validated) };
   } catch (e) {
     if (e instanceof GuardError) return { ok: false, error: e.message };
     return { ok: false, error: `cannot read the plan: ${e instanceof Error ? e.message : String(e)}` };

@@ -140,7 +140,9 @@ export class TaulineFleetTimeline extends PlotElement {
   protected override willUpdate(changed: PropertyValues<this>): void {
     super.willUpdate(changed);
     if (changed.has('plan') || changed.has('fleet')) {
-      this._result = this.plan === undefined || this.plan === null ? null : readFleetPlan(this.plan, this.fleet);
+      // The fleet document is validated again only when it changes (a re-plan of the same fleet keeps it).
+      const kept = this._result?.ok ? this._result.view.fleet : undefined;
+      this._result = this.plan === undefined || this.plan === null ? null : readFleetPlan(this.plan, this.fleet, kept);
       if (this._result && !this._result.ok) warnOnce(this, 'invalid-fleet-plan', this._result.error);
       this._dataVersion += 1;
       this._hover = null;

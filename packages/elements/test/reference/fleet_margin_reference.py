@@ -16,6 +16,7 @@ CASES = [  # (mean, sigma, p)
     (1.0e-8, 5.0e-9, 0.95),
     (2.5e-8, 4.0e-9, 0.9973),
     (-1.2e-8, 8.0e-9, 0.68),
+    (1.0e-8, 1.0e-9, 0.95),
 ]
 
 for m, s, p in CASES:
@@ -23,5 +24,7 @@ for m, s, p in CASES:
     z = norm.ppf((1 + p) / 2)
     b = brentq(f, abs(m), abs(m) + z * s + s, xtol=1e-30, rtol=1e-15)
     print(f"[{m!r}, {s!r}, {p!r}, {float(z)!r}, {float(b)!r}],")
+for p in [0.68, 0.95, 0.9973]:
+    print(f"[{p!r}, {float(norm.ppf(p))!r}],")
 for x in [-1.5, -0.3, 0.0, 0.7, 2.0, 4.5]:
     print(f"[{x!r}, {float(erfc(x))!r}],")
