@@ -9,7 +9,9 @@ const FLEET_RESIDUALS = [1.2e-13, -0.8e-13, 0.5e-13, 2.6e-13];
 
 const $ = (id) => document.getElementById(id);
 /** Numbers' signs as the typographic minus U+2212 (as the elements print them); hyphens in dates stay. */
-const minus = (text) => String(text).replace(/(^|[\s(=±Δ:[,;/])-(?=\.?\d)/g, '$1\u2212').replace(/(\d[eE])-(?=\d)/g, '$1\u2212');
+const minus = (text) => String(text)
+  .replace(/(^|[\s(=±Δ:[,;/])-(?=\.?\d)/g, '$1\u2212')
+  .replace(/(\d[eE])-(?=\d)/g, '$1\u2212');
 const ns = (seconds) => `${minus((seconds * 1e9).toFixed(1))} ns`;
 const utc = (iso) => iso.replace('T', ' ').replace(/:00Z$|Z$/, ' UTC');
 
@@ -27,13 +29,16 @@ function showSummary(plan, timeline, ms) {
   const low = timeline.atRisk.filter((id) => !notHeld.some((s) => s.id === id));
   const items = [];
   items.push(text('p', plan.feasible
-    ? `✓ Every satellite is held inside its tolerance through ${FLEET_STATIONS.length} shared stations (planned in ${ms.toFixed(0)} ms).`
-    : `✕ Not feasible: ${notHeld.length} of ${plan.satellites.length} satellites cannot be held (planned in ${ms.toFixed(0)} ms).`,
+    ? `✓ Every satellite is held inside its tolerance through ${FLEET_STATIONS.length} shared stations ` +
+      `(planned in ${ms.toFixed(0)} ms).`
+    : `✕ Not feasible: ${notHeld.length} of ${plan.satellites.length} satellites cannot be held ` +
+      `(planned in ${ms.toFixed(0)} ms).`,
   plan.feasible ? 'ok' : 'bad'));
   if (notHeld.length > 0 || low.length > 0) {
     const list = document.createElement('ul');
     for (const s of notHeld) list.append(text('li', `⚠ ${s.id}: ${minus(s.reason ?? s.reasonCode ?? 'not held')}`));
-    for (const id of low) list.append(text('li', `⚠ ${id}: held, but its smallest margin is under ${Math.round(timeline.riskMargin * 100)} % of its tolerance.`));
+    const share = Math.round(timeline.riskMargin * 100);
+    for (const id of low) list.append(text('li', `⚠ ${id}: held, but its smallest margin is under ${share} % of its tolerance.`));
     items.push(list);
   }
   out.replaceChildren(...items);
@@ -44,7 +49,10 @@ function showDetails(plan, id) {
   const out = $('fleet-detail');
   const s = plan.satellites.find((x) => x.id === id);
   const sat = SATELLITES.find((x) => x.id === id);
-  if (!s || !sat) { out.replaceChildren(text('p', 'Select a satellite (row, table or keyboard) for its details.', 'hint')); return; }
+  if (!s || !sat) {
+    out.replaceChildren(text('p', 'Select a satellite (row, table or keyboard) for its details.', 'hint'));
+    return;
+  }
   const supports = plan.stationSchedule.filter((x) => x.satellite === id);
   const dl = document.createElement('dl');
   const add = (k, v) => dl.append(text('dt', k), text('dd', v));
@@ -58,7 +66,11 @@ function showDetails(plan, id) {
     const table = document.createElement('table');
     table.append(text('caption', `Uplinks of ${id} (UTC)`));
     const head = document.createElement('tr');
-    for (const h of ['Uplink', 'Station', 'Executes', 'Step']) { const th = text('th', h); th.scope = 'col'; head.append(th); }
+    for (const h of ['Uplink', 'Station', 'Executes', 'Step']) {
+      const th = text('th', h);
+      th.scope = 'col';
+      head.append(th);
+    }
     table.createTHead().append(head);
     const body = table.createTBody();
     for (const c of s.commands) {
@@ -87,7 +99,8 @@ export function loadFleet(log) {
     timeline.updateComplete.then(() => showSummary(plan, timeline, ms));
     showDetails(plan, '');
   } catch (error) {
-    $('fleet-summary').replaceChildren(text('p', `Cannot plan the fleet: ${error instanceof Error ? error.message : String(error)}`, 'bad'));
+    const why = error instanceof Error ? error.message : String(error);
+    $('fleet-summary').replaceChildren(text('p', `Cannot plan the fleet: ${why}`, 'bad'));
   }
   timeline.addEventListener('tauline-satellite-select', (e) => {
     log(`fleet: selected ${e.detail.id}${e.detail.atRisk ? ' (at risk)' : ''}`);

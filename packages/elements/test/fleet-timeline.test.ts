@@ -23,7 +23,8 @@ async function drawn(el: TaulineFleetTimeline): Promise<void> {
 }
 
 async function render(data: Awaited<ReturnType<typeof heldFleet>>, attrs = ''): Promise<TaulineFleetTimeline> {
-  const el = await fixture<TaulineFleetTimeline>(html`<tauline-fleet-timeline style=${`width: ${WIDTH}px`}></tauline-fleet-timeline>`);
+  const el = await fixture<TaulineFleetTimeline>(
+    html`<tauline-fleet-timeline style=${`width: ${WIDTH}px`}></tauline-fleet-timeline>`);
   for (const a of attrs.split(' ').filter(Boolean)) { const [k, v] = a.split('='); el.setAttribute(k!, v ?? ''); }
   el.fleet = data.fleet;
   el.plan = data.plan;
@@ -32,15 +33,18 @@ async function render(data: Awaited<ReturnType<typeof heldFleet>>, attrs = ''): 
 }
 
 const root = (el: Element): ShadowRoot => el.shadowRoot!;
-const rows = (el: Element): HTMLTableRowElement[] => [...root(el).querySelectorAll<HTMLTableRowElement>('tbody tr[part~="row"]')];
+const rows = (el: Element): HTMLTableRowElement[] =>
+  [...root(el).querySelectorAll<HTMLTableRowElement>('tbody tr[part~="row"]')];
 
 /** Pointer at chart time t (s since the epoch) on satellite row i (or station lane k when lane is set). */
-function pointAt(el: TaulineFleetTimeline, t: number, horizon: number, row: number, lane = false): { clientX: number; clientY: number } {
+function pointAt(
+  el: TaulineFleetTimeline, t: number, horizon: number, row: number, lane = false,
+): { clientX: number; clientY: number } {
   const box = root(el).querySelector<HTMLElement>('.plot-box')!;
   const r = box.getBoundingClientRect();
   const layout = fleetLayout(Math.floor(r.width), 4, 2);
   const x = layout.left + (t / horizon) * (layout.right - layout.left);
-  const y = lane ? layout.laneTop + row * layout.laneHeight + layout.laneHeight / 2 : layout.top + row * layout.rowHeight + layout.rowHeight / 2;
+  const y = lane ? layout.laneTop + (row + 0.5) * layout.laneHeight : layout.top + (row + 0.5) * layout.rowHeight;
   return { clientX: r.left + x, clientY: r.top + y };
 }
 
@@ -59,11 +63,12 @@ describe('tauline-fleet-timeline', () => {
     expect(r.view.stations.map((s) => s.id)).to.deep.equal(['HARROWMERE', 'CALLOWAY-RIDGE']);
     expect(r.view.stations.reduce((n, s) => n + s.supports.length, 0)).to.equal(plan.stationSchedule.length);
     expect(r.view.horizon).to.equal(604800);
-    // Every uplink lies inside a support of its satellite at the station it names (the planFleet guarantee, seen through the view).
+    // Every uplink lies inside a support of its satellite at the station it names (planFleet's guarantee, through the view).
     for (const s of r.view.satellites) {
       for (const c of s.commands) {
         const st = r.view.stations.find((x) => x.id === c.station)!;
-        expect(st.supports.some((q) => q.satellite === s.index && c.uplinkAt >= q.start - 1e-3 && c.uplinkAt <= q.end + 1e-3), `${s.id} uplink`).to.equal(true);
+        const inside = st.supports.some((q) => q.satellite === s.index && c.uplinkAt >= q.start - 1e-3 && c.uplinkAt <= q.end + 1e-3);
+        expect(inside, `${s.id} uplink`).to.equal(true);
       }
     }
   });
@@ -86,11 +91,14 @@ describe('tauline-fleet-timeline', () => {
     for (const [m, s, p, z, b] of cases) {
       expect(Math.abs(requiredBound(m, s, p, z) - b), `m=${m} σ=${s} p=${p}`).to.be.below(1e-5 * s);
       // The far-tail shortcut (|m| ≥ 8σ) and the series (warm starts) give the same bound.
-      expect(Math.abs(requiredBound(m, s, p, z, z, oneSidedQuantile(p)) - b), `m=${m} σ=${s} p=${p}, z1`).to.be.below(1e-5 * s);
-      expect(Math.abs(0.1 - marginSeries([m, m], [s, s], 0.1 + b, p, z)[1]!), `series m=${m} σ=${s}`).to.be.below(1e-5 * s);
+      const shortcut = requiredBound(m, s, p, z, z, oneSidedQuantile(p));
+      expect(Math.abs(shortcut - b), `m=${m} σ=${s} p=${p}, z1`).to.be.below(1e-5 * s);
+      const series = marginSeries([m, m], [s, s], 0.1 + b, p, z)[1]!;
+      expect(Math.abs(0.1 - series), `series m=${m} σ=${s}`).to.be.below(1e-5 * s);
     }
     // [p, scipy.stats.norm.ppf(p)] [C].
-    for (const [p, z1] of [[0.68, 0.4676987991145084], [0.95, 1.6448536269514722], [0.9973, 2.7821504537846025]] as const) {
+    const quantiles = [[0.68, 0.4676987991145084], [0.95, 1.6448536269514722], [0.9973, 2.7821504537846025]] as const;
+    for (const [p, z1] of quantiles) {
       expect(Math.abs(oneSidedQuantile(p) - z1), `z1(${p})`).to.be.below(1e-5);
     }
   });
@@ -150,7 +158,8 @@ describe('tauline-fleet-timeline', () => {
     const expected = view.view.satellites.filter((s) => s.minMargin < 0.99 * s.tolerance).map((s) => s.id);
     expect(expected.length).to.be.greaterThan(0);
     expect(el.atRisk).to.deep.equal(expected);
-    expect(rows(el).filter((r) => r.getAttribute('part')!.includes('at-risk')).map((r) => r.dataset['id'])).to.deep.equal(expected);
+    const marked = rows(el).filter((r) => r.getAttribute('part')!.includes('at-risk')).map((r) => r.dataset['id']);
+    expect(marked).to.deep.equal(expected);
     expect(rows(el).find((r) => r.dataset['id'] === expected[0])!.textContent).to.contain('at risk (low margin)');
   });
 
@@ -237,7 +246,8 @@ describe('tauline-fleet-timeline', () => {
     expect(events).to.equal(0);
     const box = root(el).querySelector<HTMLElement>('.plot-box')!;
     const got = oneEvent(el, 'tauline-view-change');
-    box.dispatchEvent(new WheelEvent('wheel', { ...pointAt(el, 1.5 * 86400, 604800, 0), deltaY: -200, bubbles: true, cancelable: true }));
+    const at = pointAt(el, 1.5 * 86400, 604800, 0);
+    box.dispatchEvent(new WheelEvent('wheel', { ...at, deltaY: -200, bubbles: true, cancelable: true }));
     const ev = await got;
     expect(ev.detail.endSeconds - ev.detail.startSeconds).to.be.below(86400);
   });
@@ -267,18 +277,19 @@ describe('tauline-fleet-timeline', () => {
       el.fleet = data.fleet;
       el.plan = broken;
       await el.updateComplete;
-      expect(root(el).querySelector('[role="alert"]')!.textContent).to.contain('plan.satellites[1].predicted.t must be an array; received "soon"');
+      const alert = (): string => root(el).querySelector('[role="alert"]')!.textContent!;
+      expect(alert()).to.contain('plan.satellites[1].predicted.t must be an array; received "soon"');
       const badFleet = structuredClone(data.fleet);
       badFleet.satellites[0]!.tolerance.phaseSeconds = -1;
       el.fleet = badFleet;
       el.plan = data.plan;
       await el.updateComplete;
-      expect(root(el).querySelector('[role="alert"]')!.textContent).to.contain('fleet: ').and.to.contain('satellites[0].tolerance.phaseSeconds');
+      expect(alert()).to.contain('fleet: ').and.to.contain('satellites[0].tolerance.phaseSeconds');
       const other = structuredClone(data.fleet);
       other.satellites[3]!.id = 'VESPER-9';
       el.fleet = other;
       await el.updateComplete;
-      expect(root(el).querySelector('[role="alert"]')!.textContent).to.contain('plan.satellites[3].id must be "VESPER-9"');
+      expect(alert()).to.contain('plan.satellites[3].id must be "VESPER-9"');
       expect(w.list.map((x) => x.code)).to.deep.equal(['invalid-fleet-plan']);
     } finally { w.restore(); }
   });
@@ -291,6 +302,7 @@ describe('tauline-fleet-timeline', () => {
     expect(ticks.map((t) => t.value)).to.deep.equal([0, 86401, 2 * 86400 + 1, 3 * 86400 + 1]);
     expect(ticks.map((t) => t.label)).to.deep.equal(['12-31', '01-01', '01-02', '01-03']);
     const hours = calendarTicks({ epoch, timeScales }, 86400 - 7200, 86401 + 7200, 5);
-    expect(hours.map((t) => `${t.label}${t.sub ? ` ${t.sub}` : ''}`)).to.deep.equal(['22:00', '23:00', '00:00 2017-01-01', '01:00', '02:00']);
+    const labels = hours.map((t) => `${t.label}${t.sub ? ` ${t.sub}` : ''}`);
+    expect(labels).to.deep.equal(['22:00', '23:00', '00:00 2017-01-01', '01:00', '02:00']);
   });
 });

@@ -47,7 +47,8 @@ export function formatChartUtc(base: TimeBase, t: number, seconds = false): stri
 export function calendarTicks(base: TimeBase, t0: number, t1: number, count: number): CalendarTick[] {
   const { timeScales, epoch } = base;
   const spanHours = Math.max(0, t1 - t0) / 3600;
-  const stepHours = HOUR_STEPS.find((h) => h >= spanHours / Math.max(1, count)) ?? 24 * Math.ceil(spanHours / count / 24);
+  const perTick = spanHours / Math.max(1, count);
+  const stepHours = HOUR_STEPS.find((h) => h >= perTick) ?? 24 * Math.ceil(perTick / 24);
   const out: CalendarTick[] = [];
   let startMjd: number;
   try {
@@ -62,7 +63,8 @@ export function calendarTicks(base: TimeBase, t0: number, t1: number, count: num
     const hours = stepHours >= 24 ? [0] : Array.from({ length: 24 / stepHours }, (_, k) => k * stepHours);
     let past = false;
     for (const hour of hours) {
-      const t = timeScales.fromCalendar({ year: date.year, month: date.month, day: date.day, hour }, 'UTC').secondsSince(epoch);
+      const at = timeScales.fromCalendar({ year: date.year, month: date.month, day: date.day, hour }, 'UTC');
+      const t = at.secondsSince(epoch);
       if (t > t1) { past = true; break; }
       if (t < t0) continue;
       const ymd = `${date.year}-${pad(date.month)}-${pad(date.day)}`;

@@ -8,7 +8,8 @@
  * @module
  */
 import {
-  validateFleet, type FleetCommand, type FleetDocument, type FleetPlan, type FleetSatellitePlan, type NormalizedFleet, type StationSupport,
+  validateFleet, type FleetCommand, type FleetDocument, type FleetPlan, type FleetSatellitePlan, type NormalizedFleet,
+  type StationSupport,
 } from '@tauline/sdk/fleet';
 import type { Instant, TimeScales } from '@tauline/sdk/time';
 import { marginSeries } from './fleet-margin.js';
@@ -155,17 +156,26 @@ function readCommand(field: string, raw: unknown, index: number, stamp: Stamp): 
   };
 }
 
-function readSatellite(field: string, raw: unknown, index: number, stamp: Stamp): Omit<SatelliteView, 'tolerance' | 'probability' | 'z' |
-  'margin' | 'minMargin' | 'minMarginAt' | 'passes' | 'stationsUsed' | 'supportCount'> & { steered: ArrayLike<number>; sigma: ArrayLike<number> } {
+/** What a plan's satellite entry gives; the rest of a SatelliteView comes from the fleet document. */
+type PlanKeys = 'index' | 'id' | 'feasible' | 'reason' | 'reasonCode' | 't' | 'commands' | 'source';
+type PlanSatellite = Pick<SatelliteView, PlanKeys> & {
+  steered: ArrayLike<number>;
+  sigma: ArrayLike<number>;
+};
+
+function readSatellite(field: string, raw: unknown, index: number, stamp: Stamp): PlanSatellite {
   const s = obj(field, raw);
   const id = str(`${field}.id`, s['id']);
   if (typeof s['feasible'] !== 'boolean') fail(`${field}.feasible`, 'true or false', s['feasible']);
   const predicted = obj(`${field}.predicted`, s['predicted']);
   const tRaw = predicted['t'] instanceof Float64Array ? predicted['t'] : arr(`${field}.predicted.t`, predicted['t']);
   const t = Float64Array.from(numbers(`${field}.predicted.t`, tRaw, tRaw.length));
-  for (let i = 1; i < t.length; i++) if (!(t[i]! > t[i - 1]!)) fail(`${field}.predicted.t[${i}]`, `greater than t[${i - 1}] (${t[i - 1]})`, t[i]);
+  for (let i = 1; i < t.length; i++) {
+    if (!(t[i]! > t[i - 1]!)) fail(`${field}.predicted.t[${i}]`, `greater than t[${i - 1}] (${t[i - 1]})`, t[i]);
+  }
   const steered = obj(`${field}.predicted.steered`, predicted['steered']);
-  const commands = arr(`${field}.commands`, s['commands']).map((c, k) => readCommand(`${field}.commands[${k}]`, c, k, stamp));
+  const commands = arr(`${field}.commands`, s['commands'])
+    .map((c, k) => readCommand(`${field}.commands[${k}]`, c, k, stamp));
   commands.sort((a, b) => a.executeAt - b.executeAt || a.index - b.index);
   return {
     index, id, feasible: s['feasible'], t, commands,
@@ -185,7 +195,8 @@ function readStations(plan: Record<string, unknown>, fleet: NormalizedFleet, ids
     const o = obj(field, raw);
     const stationId = str(`${field}.station`, o['station']);
     const station = stations.findIndex((s) => s.id === stationId);
-    if (station < 0) fail(`${field}.station`, `a station of the fleet (${stations.map((s) => s.id).join(', ')})`, stationId);
+    const known = stations.map((q) => q.id).join(', ');
+    if (station < 0) fail(`${field}.station`, `a station of the fleet (${known})`, stationId);
     const satellite = ids.get(str(`${field}.satellite`, o['satellite']));
     if (satellite === undefined) fail(`${field}.satellite`, 'a satellite of the plan', o['satellite']);
     const start = stamp(`${field}.start`, o['start']), end = stamp(`${field}.end`, o['end']);
@@ -214,8 +225,10 @@ function readUnchecked(plan: unknown, fleetDoc: unknown, validated?: NormalizedF
     }
   };
   if (typeof p['feasible'] !== 'boolean') fail('plan.feasible', 'true or false', p['feasible']);
-  const raw = arr('plan.satellites', p['satellites']).map((s, i) => readSatellite(`plan.satellites[${i}]`, s, i, stamp));
-  if (raw.length !== fleet.satellites.length) fail('plan.satellites.length', `${fleet.satellites.length} (the satellites of the fleet)`, raw.length);
+  const raw = arr('plan.satellites', p['satellites'])
+    .map((s, i) => readSatellite(`plan.satellites[${i}]`, s, i, stamp));
+  const count = fleet.satellites.length;
+  if (raw.length !== count) fail('plan.satellites.length', `${count} (the satellites of the fleet)`, raw.length);
   const ids = new Map<string, number>();
   const satellites = raw.map(({ steered, sigma, ...s }, i): SatelliteView => {
     const doc = fleet.satellites[i]!;
@@ -226,7 +239,8 @@ function readUnchecked(plan: unknown, fleetDoc: unknown, validated?: NormalizedF
     for (const [k, m] of margin.entries()) if (m < minMargin) { minMargin = m; minMarginAt = s.t[k]!; }
     return {
       ...s, tolerance: doc.norm.bound, probability: doc.norm.probability, z: doc.norm.z, margin, minMargin, minMarginAt,
-      passes: doc.passes.map((q) => ({ station: q.station, start: q.start, end: q.end })), stationsUsed: [], supportCount: 0,
+      passes: doc.passes.map((q) => ({ station: q.station, start: q.start, end: q.end })),
+      stationsUsed: [], supportCount: 0,
     };
   });
   const stations = readStations(p, fleet, ids, stamp);
@@ -252,9 +266,13 @@ function readUnchecked(plan: unknown, fleetDoc: unknown, validated?: NormalizedF
  * and what it must be. `validated`, the SDK's `validateFleet(fleet)` of this same document when the
  * caller kept it (the element does, while only the plan changes), saves validating it again.
  */
-export function readFleetPlan(plan: FleetPlan | unknown, fleet: FleetDocument | unknown, validated?: NormalizedFleet): FleetReadResult {
+export function readFleetPlan(
+  plan: FleetPlan | unknown, fleet: FleetDocument | unknown, validated?: NormalizedFleet,
+): FleetReadResult {
   if (fleet === undefined || fleet === null) {
-    return { ok: false, error: 'fleet is not set: give the fleet document the plan was made for (epoch, tolerances, stations, passes)' };
+    const error = 'fleet is not set: give the fleet document the plan was made for '
+      + '(epoch, tolerances, stations, passes)';
+    return { ok: false, error };
   }
   try {
     return { ok: true, view: readUnchecked(plan, fleet, validated) };
@@ -265,6 +283,8 @@ export function readFleetPlan(plan: FleetPlan | unknown, fleet: FleetDocument | 
 }
 
 /** Whether a satellite is at risk: not feasible, or its smallest margin below `riskFraction` × its tolerance. */
-export function isAtRisk(s: Pick<SatelliteView, 'feasible' | 'minMargin' | 'tolerance'>, riskFraction: number): boolean {
+export function isAtRisk(
+  s: Pick<SatelliteView, 'feasible' | 'minMargin' | 'tolerance'>, riskFraction: number,
+): boolean {
   return !s.feasible || s.minMargin < riskFraction * s.tolerance;
 }

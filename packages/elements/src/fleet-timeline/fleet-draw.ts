@@ -80,7 +80,9 @@ export function hatch(ctx: CanvasRenderingContext2D, color: string, spacing = 6)
 }
 
 /** Per-pixel-column smallest margin fraction (margin / tolerance) over [x0, x1) of the scale; NaN where no sample. */
-export function columnMinima(t: Float64Array, margin: Float64Array, tolerance: number, sx: Scale, layout: FleetLayout): Float64Array {
+export function columnMinima(
+  t: Float64Array, margin: Float64Array, tolerance: number, sx: Scale, layout: FleetLayout,
+): Float64Array {
   const cols = Math.max(0, Math.ceil(layout.right - layout.left));
   const out = new Float64Array(cols).fill(Number.NaN);
   const n = t.length;
@@ -158,10 +160,14 @@ function drawLabels(ctx: CanvasRenderingContext2D, { view, layout, colors, atRis
   ctx.fillText('Stations', 4, layout.stationsHeading + 6);
   ctx.textAlign = 'right';
   ctx.fillStyle = colors.text;
-  view.stations.forEach((st, k) => ctx.fillText(fit(st.id, layout.left - 10), layout.left - 6, layout.laneTop + k * layout.laneHeight + layout.laneHeight / 2));
+  view.stations.forEach((st, k) => {
+    ctx.fillText(fit(st.id, layout.left - 10), layout.left - 6, layout.laneTop + (k + 0.5) * layout.laneHeight);
+  });
 }
 
-function drawMarginStrip(ctx: CanvasRenderingContext2D, input: DrawInput, i: number, riskPattern: CanvasPattern | string): void {
+type Fill = CanvasPattern | string;
+
+function drawMarginStrip(ctx: CanvasRenderingContext2D, input: DrawInput, i: number, riskPattern: Fill): void {
   const { view, layout, sx, colors, riskFraction } = input;
   const s = view.satellites[i]!;
   const y0 = layout.top + i * layout.rowHeight + 3, h = layout.rowHeight - 9;
@@ -189,7 +195,7 @@ function drawMarginStrip(ctx: CanvasRenderingContext2D, input: DrawInput, i: num
   ctx.stroke();
 }
 
-function drawSatelliteRow(ctx: CanvasRenderingContext2D, input: DrawInput, i: number, riskPattern: CanvasPattern | string): void {
+function drawSatelliteRow(ctx: CanvasRenderingContext2D, input: DrawInput, i: number, riskPattern: Fill): void {
   const { view, layout, sx, colors, atRisk } = input;
   const s = view.satellites[i]!;
   const y = layout.top + i * layout.rowHeight;
@@ -230,12 +236,15 @@ function drawSatelliteRow(ctx: CanvasRenderingContext2D, input: DrawInput, i: nu
 }
 
 /** Rectangle of a support in its lane, CSS px. */
-export function supportRect(layout: FleetLayout, sx: Scale, s: Pick<SupportView, 'station' | 'start' | 'end'>): { x: number; y: number; w: number; h: number } {
+export function supportRect(
+  layout: FleetLayout, sx: Scale, s: Pick<SupportView, 'station' | 'start' | 'end'>,
+): { x: number; y: number; w: number; h: number } {
   const x = sx.map(s.start);
-  return { x, y: layout.laneTop + s.station * layout.laneHeight + 3, w: Math.max(3, sx.map(s.end) - x), h: layout.laneHeight - 6 };
+  const y = layout.laneTop + s.station * layout.laneHeight + 3;
+  return { x, y, w: Math.max(3, sx.map(s.end) - x), h: layout.laneHeight - 6 };
 }
 
-function drawLanes(ctx: CanvasRenderingContext2D, input: DrawInput, riskPattern: CanvasPattern | string, setupPattern: CanvasPattern | string): void {
+function drawLanes(ctx: CanvasRenderingContext2D, input: DrawInput, riskPattern: Fill, setupPattern: Fill): void {
   const { view, layout, sx, colors, atRisk } = input;
   const [d0, d1] = sx.domain;
   ctx.font = colors.font;
@@ -283,8 +292,9 @@ export function drawFleet(ctx: CanvasRenderingContext2D, input: DrawInput): void
   ctx.restore();
   ctx.strokeStyle = colors.muted;
   ctx.lineWidth = 1;
-  ctx.strokeRect(layout.left + 0.5, layout.top - 0.5, layout.right - layout.left - 1, layout.rows * layout.rowHeight + 1);
-  ctx.strokeRect(layout.left + 0.5, layout.laneTop + 0.5, layout.right - layout.left - 1, layout.lanes * layout.laneHeight - 1);
+  const width = layout.right - layout.left - 1;
+  ctx.strokeRect(layout.left + 0.5, layout.top - 0.5, width, layout.rows * layout.rowHeight + 1);
+  ctx.strokeRect(layout.left + 0.5, layout.laneTop + 0.5, width, layout.lanes * layout.laneHeight - 1);
 }
 
 /** What is under a point: a satellite row (with the nearest command within 7 px), a support, or a lane. */

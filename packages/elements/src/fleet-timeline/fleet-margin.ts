@@ -15,8 +15,9 @@
 export function erfc(x: number): number {
   const z = Math.abs(x);
   const t = 1 / (1 + 0.5 * z);
-  const ans = t * Math.exp(-z * z - 1.26551223 + t * (1.00002368 + t * (0.37409196 + t * (0.09678418 +
-    t * (-0.18628806 + t * (0.27886807 + t * (-1.13520398 + t * (1.48851587 + t * (-0.82215223 + t * 0.17087277)))))))));
+  const poly = 1.00002368 + t * (0.37409196 + t * (0.09678418 + t * (-0.18628806 + t * (0.27886807 +
+    t * (-1.13520398 + t * (1.48851587 + t * (-0.82215223 + t * 0.17087277)))))));
+  const ans = t * Math.exp(-z * z - 1.26551223 + t * poly);
   return x >= 0 ? ans : 2 - ans;
 }
 
@@ -67,7 +68,9 @@ export function oneSidedQuantile(p: number): number {
  * Margin b − b_p on a grid, in seconds; negative where the epoch fails the criterion. Each epoch's
  * solve starts from the previous epoch's (b_p − |m|)/σ, which the smooth prediction changes little.
  */
-export function marginSeries(mean: ArrayLike<number>, sigma: ArrayLike<number>, bound: number, p: number, z: number): Float64Array {
+export function marginSeries(
+  mean: ArrayLike<number>, sigma: ArrayLike<number>, bound: number, p: number, z: number,
+): Float64Array {
   const out = new Float64Array(mean.length);
   const z1 = oneSidedQuantile(p);
   let k = z;

@@ -2,7 +2,9 @@ import { TaulineFleetTimeline } from './fleet-timeline.js';
 
 export { TaulineFleetTimeline };
 
-if (!customElements.get('tauline-fleet-timeline')) customElements.define('tauline-fleet-timeline', TaulineFleetTimeline);
+if (!customElements.get('tauline-fleet-timeline')) {
+  customElements.define('tauline-fleet-timeline', TaulineFleetTimeline);
+}
 
 declare global {
   interface HTMLElementTagNameMap {

@@ -37,9 +37,13 @@ export const fleetTimelineStyles = css`
   .risk { color: var(--risk-color); font-weight: 600; }
   /* Three lines of reason per row; the full text is the cell's title and the live region's. */
   td.reason { text-align: left; white-space: normal; min-width: 16em; color: var(--muted); }
-  td.reason span { display: -webkit-box; -webkit-box-orient: vertical; -webkit-line-clamp: 3; line-clamp: 3; overflow: hidden; }
+  td.reason span {
+    display: -webkit-box; -webkit-box-orient: vertical; -webkit-line-clamp: 3; line-clamp: 3; overflow: hidden;
+  }
   .row-button { border: none; padding: 0 2px; text-decoration: underline dotted; }
-  .caution { margin: 0; padding: 4px 10px; border-left: 3px solid var(--risk-color); color: var(--muted); font-size: 0.92em; }
+  .caution {
+    margin: 0; padding: 4px 10px; border-left: 3px solid var(--risk-color); color: var(--muted); font-size: 0.92em;
+  }
   .swatch.hatch { background: repeating-linear-gradient(135deg, var(--risk-color) 0 2px, transparent 2px 5px); }
   .swatch.setup { background: repeating-linear-gradient(135deg, var(--setup-color) 0 1.5px, transparent 1.5px 4px); }
 `;

@@ -4,37 +4,43 @@ import { PlotElement } from '../internal/plot-element.js';
 import { baseStyles, plotStyles } from '../internal/styles.js';
 import { sizeCanvas } from '../internal/canvas.js';
 import { linearScale, type Scale } from '../internal/scale.js';
-import { formatFraction, formatOffsetAuto, typographicMinus } from '../internal/format.js';
+import { typographicMinus } from '../internal/format.js';
 import { warnOnce } from '../internal/warn.js';
 import { emit } from '../events.js';
 import { fleetTimelineStyles } from './fleet-timeline.styles.js';
 import { isAtRisk, readFleetPlan, type FleetReadResult, type FleetView } from './fleet-data.js';
 import { calendarTicks, formatChartUtc } from './fleet-axis.js';
-import { drawFleet, fleetHeight, fleetLayout, hitTest, supportRect, type FleetHit, type FleetLayout } from './fleet-draw.js';
-import { describeSatellite, describeSupport, fleetLabel, satelliteTable, stationTable, statusText, marginText } from './fleet-table.js';
+import {
+  drawFleet, fleetHeight, fleetLayout, hitTest, supportRect, type FleetHit, type FleetLayout,
+} from './fleet-draw.js';
+import {
+  describeSatellite, describeSupport, fleetLabel, satelliteTable, stationTable, stepText, tooltip,
+} from './fleet-table.js';
 import './fleet-events.js';
-
-export type { FleetView };
 
 const COLOR_EXPR = {
   text: 'var(--text)', muted: 'var(--muted)', grid: 'var(--grid)', surface: 'var(--surface)', accent: 'var(--accent)',
-  margin: 'var(--margin-color)', risk: 'var(--risk-color)', support: 'var(--support-color)', setup: 'var(--setup-color)',
-  pass: 'var(--pass-color)', frequency: 'var(--frequency-command-color)', phase: 'var(--phase-command-color)',
+  margin: 'var(--margin-color)', risk: 'var(--risk-color)', support: 'var(--support-color)',
+  setup: 'var(--setup-color)', pass: 'var(--pass-color)', frequency: 'var(--frequency-command-color)',
+  phase: 'var(--phase-command-color)',
 } as const;
 
 /** Keyboard cursor: a satellite row, or a support of a station lane. */
-type Cursor = { kind: 'satellite'; satellite: number; command: number } | { kind: 'support'; station: number; support: number };
+type Cursor =
+  | { kind: 'satellite'; satellite: number; command: number }
+  | { kind: 'support'; station: number; support: number };
 
 interface Hover { hit: FleetHit; x: number; y: number }
 
 /**
  * A constellation's joint steering plan on one time axis: one row per satellite (its passes along
  * the foot, its margin to tolerance as a strip that is full when the offset's bound at the tolerance
- * probability is zero and empty when that bound reaches the tolerance, its uplinks as a tick at the uplink joined to a marker at
- * execution: ▲/▼ frequency steps, ◆ phase steps) and one lane per station (which satellite holds
- * it when, and the setup time after each support, hatched). Satellites that are not held, or whose
- * smallest margin falls below `risk-margin` × their tolerance, get a ⚠ before their name, a
- * hatched row and a hatched margin where it is low, and say so in the table.
+ * probability is zero and empty when that bound reaches the tolerance, its uplinks as a tick at the
+ * uplink joined to a marker at execution: ▲/▼ frequency steps, ◆ phase steps) and one lane per
+ * station (which satellite holds it when, and the setup time after each support, hatched).
+ * Satellites that are not held, or whose smallest margin falls below `risk-margin` × their
+ * tolerance, get a ⚠ before their name, a hatched row and a hatched margin where it is low, and
+ * say so in the table.
  *
  * Takes `planFleet()`'s output (`@tauline/sdk/fleet`) as `plan` and the fleet document it was made
  * for as `fleet` (epoch, tolerances, stations, passes; validated by the SDK's `validateFleet`).
@@ -47,8 +53,10 @@ interface Hover { hit: FleetHit; x: number; y: number }
  *
  * @summary Fleet steering timeline: satellites' margins and uplinks, stations' supports.
  *
- * @fires tauline-satellite-select - The user selected a satellite (row, table or keyboard). Detail: `{ id, index, feasible, atRisk, satellite }`.
- * @fires tauline-support-select - The user selected a support in a station lane. Detail: `{ index, station, satellite, support }`.
+ * @fires tauline-satellite-select - The user selected a satellite (row, table or keyboard).
+ *   Detail: `{ id, index, feasible, atRisk, satellite }`.
+ * @fires tauline-support-select - The user selected a support in a station lane.
+ *   Detail: `{ index, station, satellite, support }`.
  * @fires tauline-view-change - The user zoomed or panned. Detail: `{ startSeconds, endSeconds }` since the fleet epoch.
  *
  * @csspart base - The outer wrapper.
@@ -152,7 +160,8 @@ export class TaulineFleetTimeline extends PlotElement {
       else if (!this._view || this._view[0] < 0 || this._view[1] > d.horizon) this._view = [0, d.horizon];
     }
     if (changed.has('riskMargin') && this._risk !== this.riskMargin) {
-      warnOnce(this, 'invalid-risk-margin', `risk-margin must be a fraction in [0, 1]; received ${String(this.riskMargin)}; using 0.1`);
+      warnOnce(this, 'invalid-risk-margin',
+        `risk-margin must be a fraction in [0, 1]; received ${String(this.riskMargin)}; using 0.1`);
     }
     const d = this._data;
     this._atRisk = d ? d.satellites.map((s) => isAtRisk(s, this._risk)) : [];
@@ -174,7 +183,8 @@ export class TaulineFleetTimeline extends PlotElement {
   private _renderBadges(d: FleetView): TemplateResult {
     const notHeld = d.satellites.filter((s) => !s.feasible).length;
     const risky = this._atRisk.filter(Boolean).length;
-    return html`<span class="badge ${d.feasible ? 'ok' : 'bad'}">${d.feasible ? '✓ every satellite held' : `✕ ${notHeld} not held`}</span>
+    const held = d.feasible ? '✓ every satellite held' : `✕ ${notHeld} not held`;
+    return html`<span class="badge ${d.feasible ? 'ok' : 'bad'}">${held}</span>
       ${risky > 0 ? html`<span class="badge bad">⚠ ${risky} at risk</span>` : nothing}`;
   }
 
@@ -183,9 +193,11 @@ export class TaulineFleetTimeline extends PlotElement {
     const legend = (cls: string, style: string, text: string): TemplateResult =>
       html`<li><span class="swatch ${cls}" style=${style} aria-hidden="true"></span>${text}</li>`;
     return html`
-      <p part="summary">${d.reason ? typographicMinus(d.reason) : `All ${d.satellites.length} satellites are held inside their tolerances.`}</p>
+      <p part="summary">${d.reason ? typographicMinus(d.reason)
+        : `All ${d.satellites.length} satellites are held inside their tolerances.`}</p>
       <ul part="legend" aria-label="Legend">
-        ${legend('', 'background:var(--margin-color)', 'Margin to tolerance (full strip: offset bound at zero; empty: at the tolerance)')}
+        ${legend('', 'background:var(--margin-color)',
+          'Margin to tolerance (full strip: offset bound at zero; empty: at the tolerance)')}
         ${legend('hatch', '', `Low or lost margin (< ${Math.round(this._risk * 100)} % of tolerance), ⚠ at risk`)}
         ${legend('', 'background:var(--pass-color);height:3px', 'Pass')}
         ${legend('', 'background:var(--support-color)', 'Support')}
@@ -202,12 +214,15 @@ export class TaulineFleetTimeline extends PlotElement {
         ${this._renderTooltip(d)}
       </div>
       <div class="tools">
-        <span class="hint" id="keys">↑/↓ satellites and stations, ←/→ supports or uplinks, Enter selects; drag or Shift+←/→ to pan, wheel or +/− to zoom.</span>
+        <span class="hint" id="keys">↑/↓ satellites and stations, ←/→ supports or uplinks, Enter selects;
+          drag or Shift+←/→ to pan, wheel or +/− to zoom.</span>
         <button type="button" @click=${this._showAll}>Show all</button>
       </div>
       <div class="sr-only" aria-live="polite">${this._announcement}</div>
       <div class="table-wrap">
-        ${satelliteTable({ view: d, atRisk: this._atRisk, selected: this.selected, onSelect: (i) => this._selectSatellite(i) })}
+        ${satelliteTable({
+          view: d, atRisk: this._atRisk, selected: this.selected, onSelect: (i) => this._selectSatellite(i),
+        })}
       </div>
       <div class="table-wrap stations">${stationTable(d)}</div>
       ${d.caution ? html`<p class="caution" role="note">${d.caution}</p>` : nothing}`;
@@ -217,40 +232,8 @@ export class TaulineFleetTimeline extends PlotElement {
     const h = this._hover;
     if (!h) return nothing;
     const left = h.x > this._size.width / 2 ? Math.max(0, h.x - 300) : h.x + 16;
-    const style = `left:${left}px;top:${h.y + 14}px`;
-    const hit = h.hit;
-    if (hit.kind === 'support') {
-      const sup = d.stations[hit.station]!.supports[hit.support]!;
-      return html`<div part="tooltip" style=${style}><strong>${d.stations[hit.station]!.id}</strong>
-        <div class="note">${describeSupport(d, sup)}</div></div>`;
-    }
-    if (hit.kind === 'lane') {
-      return html`<div part="tooltip" style=${style}><strong>${d.stations[hit.station]!.id}</strong>
-        <div class="note">Free at ${formatChartUtc(d, hit.t)}</div></div>`;
-    }
-    const s = d.satellites[hit.satellite]!;
-    const c = s.commands[hit.command];
-    const k = Math.max(0, Math.min(s.t.length - 1, Math.round(this._indexAt(s.t, hit.t))));
-    return html`<div part="tooltip" style=${style}><strong>${s.id} · ${statusText(s, this._atRisk[hit.satellite] ?? false)}</strong>
-      <dl>
-        <dt>Time</dt><dd>${formatChartUtc(d, s.t[k] ?? Number.NaN)}</dd>
-        <dt>Margin</dt><dd>${typographicMinus(formatOffsetAuto(s.margin[k] ?? Number.NaN, 3))}</dd>
-        <dt>Tolerance</dt><dd>±${formatOffsetAuto(s.tolerance, 3)} at ${s.probability}</dd>
-        <dt>Smallest</dt><dd>${typographicMinus(marginText(s))}</dd>
-        ${c ? html`<dt>Uplink</dt><dd>${formatChartUtc(d, c.uplinkAt)} via ${c.station}</dd>
-          <dt>Executes</dt><dd>${formatChartUtc(d, c.executeAt)}</dd>
-          <dt>Step</dt><dd>${c.kind === 'phase' ? formatOffsetAuto(c.step, 3) : formatFraction(c.step, 3)}</dd>` : nothing}
-      </dl></div>`;
+    return tooltip(d, h.hit, this._atRisk, `left:${left}px;top:${h.y + 14}px`);
   }
-
-  /** Grid index nearest to time t (binary search). */
-  private _indexAt(t: Float64Array, x: number): number {
-    let lo = 0, hi = t.length - 1;
-    while (hi - lo > 1) { const mid = (lo + hi) >> 1; if (t[mid]! <= x) lo = mid; else hi = mid; }
-    return Math.abs((t[hi] ?? Infinity) - x) < Math.abs((t[lo] ?? Infinity) - x) ? hi : lo;
-  }
-
-  // ---- drawing ---------------------------------------------------------------------------
 
   private _geometry(): { layout: FleetLayout; sx: Scale } | null {
     const d = this._data, v = this._view;
@@ -264,13 +247,16 @@ export class TaulineFleetTimeline extends PlotElement {
     const g = this._geometry(), d = this._data;
     if (!g || !d) return;
     const colors = this._resolveColors(COLOR_EXPR);
-    const key = `${this._dataVersion}|${this._view?.join()}|${g.layout.width}|${this._risk}|${Object.values(colors).join()}`;
+    const key = `${this._dataVersion}|${this._view?.join()}|${g.layout.width}|${this._risk}|` +
+      Object.values(colors).join();
     const data = this._dataCanvas, overlay = this._overlayCanvas;
     if (key !== this._drawnKey && data) {
       const ctx = sizeCanvas(data, g.layout.width, g.layout.height);
       if (ctx) {
-        const ticks = calendarTicks(d, g.sx.domain[0], g.sx.domain[1], Math.max(3, Math.floor((g.layout.right - g.layout.left) / 80)));
-        drawFleet(ctx, { view: d, layout: g.layout, sx: g.sx, ticks, colors, atRisk: this._atRisk, riskFraction: this._risk });
+        const count = Math.max(3, Math.floor((g.layout.right - g.layout.left) / 80));
+        const ticks = calendarTicks(d, g.sx.domain[0], g.sx.domain[1], count);
+        const { layout, sx } = g;
+        drawFleet(ctx, { view: d, layout, sx, ticks, colors, atRisk: this._atRisk, riskFraction: this._risk });
         this._drawnKey = key;
       }
     }
@@ -281,12 +267,15 @@ export class TaulineFleetTimeline extends PlotElement {
       ctx.strokeStyle = color; ctx.lineWidth = width; ctx.strokeRect(x, y, w, h);
     };
     const sel = d.satellites.findIndex((s) => s.id === this.selected);
-    if (sel >= 0) outline(layout.left - 1, layout.top + sel * layout.rowHeight + 0.5, layout.right - layout.left + 2, layout.rowHeight - 1, colors.accent, 2);
+    const rowY = (i: number): number => layout.top + i * layout.rowHeight;
+    const width = layout.right - layout.left;
+    if (sel >= 0) outline(layout.left - 1, rowY(sel) + 0.5, width + 2, layout.rowHeight - 1, colors.accent, 2);
     const c = this._cursor;
-    if (c?.kind === 'satellite') outline(1, layout.top + c.satellite * layout.rowHeight + 1, layout.right, layout.rowHeight - 2, colors.text, 1);
+    if (c?.kind === 'satellite') outline(1, rowY(c.satellite) + 1, layout.right, layout.rowHeight - 2, colors.text, 1);
     if (c?.kind === 'support') {
       const sup = d.stations[c.station]?.supports[c.support];
-      if (sup) { const r = supportRect(layout, sx, sup); outline(r.x - 2, r.y - 2, r.w + 4, r.h + 4, colors.accent, 2); }
+      const r = sup ? supportRect(layout, sx, sup) : null;
+      if (r) outline(r.x - 2, r.y - 2, r.w + 4, r.h + 4, colors.accent, 2);
     }
     const hv = this._hover?.hit;
     if (hv && hv.kind !== 'lane') {
@@ -295,8 +284,6 @@ export class TaulineFleetTimeline extends PlotElement {
       ctx.beginPath(); ctx.moveTo(x, layout.top); ctx.lineTo(x, layout.height - 4); ctx.stroke(); ctx.setLineDash([]);
     }
   }
-
-  // ---- view, selection ------------------------------------------------------------------
 
   private _setView(a: number, b: number, byUser: boolean): void {
     const d = this._data;
@@ -331,9 +318,12 @@ export class TaulineFleetTimeline extends PlotElement {
     const d = this._data, s = d?.satellites[i];
     if (!d || !s) return;
     this.selected = s.id;
-    this._cursor = { kind: 'satellite', satellite: i, command: this._cursor?.kind === 'satellite' && this._cursor.satellite === i ? this._cursor.command : -1 };
+    const cur = this._cursor;
+    const command = cur?.kind === 'satellite' && cur.satellite === i ? cur.command : -1;
+    this._cursor = { kind: 'satellite', satellite: i, command };
     this._announcement = describeSatellite(d, s, this._atRisk[i] ?? false);
-    emit(this, 'tauline-satellite-select', { id: s.id, index: i, feasible: s.feasible, atRisk: this._atRisk[i] ?? false, satellite: s.source });
+    const atRisk = this._atRisk[i] ?? false;
+    emit(this, 'tauline-satellite-select', { id: s.id, index: i, feasible: s.feasible, atRisk, satellite: s.source });
   }
 
   private _selectSupport(station: number, k: number): void {
@@ -341,7 +331,10 @@ export class TaulineFleetTimeline extends PlotElement {
     if (!d || !sup) return;
     this._cursor = { kind: 'support', station, support: k };
     this._announcement = describeSupport(d, sup);
-    emit(this, 'tauline-support-select', { index: sup.index, station: d.stations[station]!.id, satellite: d.satellites[sup.satellite]!.id, support: sup.source });
+    emit(this, 'tauline-support-select', {
+      index: sup.index, station: d.stations[station]!.id, satellite: d.satellites[sup.satellite]!.id,
+      support: sup.source,
+    });
   }
 
   /** Moves the keyboard cursor and announces where it is; keeps a support inside the view. */
@@ -363,8 +356,6 @@ export class TaulineFleetTimeline extends PlotElement {
     }
     this.requestUpdate();
   }
-
-  // ---- pointer, wheel, keyboard ---------------------------------------------------------
 
   private _local(event: { clientX: number; clientY: number }): { x: number; y: number } {
     const rect = this._box!.getBoundingClientRect();
@@ -413,10 +404,7 @@ export class TaulineFleetTimeline extends PlotElement {
     else if (hit?.kind === 'support') this._selectSupport(hit.station, hit.support);
   };
 
-  private readonly _onPointerCancel = (): void => {
-    this._gesture = null;
-    this._box?.classList.remove('dragging');
-  };
+  private readonly _onPointerCancel = (): void => { this._gesture = null; this._box?.classList.remove('dragging'); };
 
   private readonly _onPointerLeave = (): void => {
     if (!this._gesture && this._hover) this._hover = null;
@@ -427,7 +415,10 @@ export class TaulineFleetTimeline extends PlotElement {
     if (!g) return;
     event.preventDefault();
     const p = this._local(event);
-    if (Math.abs(event.deltaX) > Math.abs(event.deltaY)) { this._pan(event.deltaX / (g.layout.right - g.layout.left)); return; }
+    if (Math.abs(event.deltaX) > Math.abs(event.deltaY)) {
+      this._pan(event.deltaX / (g.layout.right - g.layout.left));
+      return;
+    }
     const x = Math.min(Math.max(p.x, g.layout.left), g.layout.right);
     this._zoom(Math.exp(Math.max(-1, Math.min(1, event.deltaY * 0.0015))), g.sx.invert(x));
   };
@@ -466,8 +457,10 @@ export class TaulineFleetTimeline extends PlotElement {
     const center = (this._view[0] + this._view[1]) / 2;
     let handled = true;
     const c = this._cursor;
-    if (event.shiftKey && (event.key === 'ArrowLeft' || event.key === 'ArrowRight')) this._pan(event.key === 'ArrowRight' ? 0.1 : -0.1);
-    else if (c?.kind === 'satellite' && (event.key === 'ArrowLeft' || event.key === 'ArrowRight')) this._stepUplink(d, c.satellite, event.key === 'ArrowRight' ? 1 : -1);
+    const horizontal = event.key === 'ArrowLeft' || event.key === 'ArrowRight';
+    const dir = event.key === 'ArrowRight' ? 1 : -1;
+    if (event.shiftKey && horizontal) this._pan(0.1 * dir);
+    else if (c?.kind === 'satellite' && horizontal) this._stepUplink(d, c.satellite, dir);
     else if (event.key === 'Enter' || event.key === ' ') {
       if (c?.kind === 'satellite') this._selectSatellite(c.satellite);
       else if (c?.kind === 'support') this._selectSupport(c.station, c.support);
@@ -485,7 +478,7 @@ export class TaulineFleetTimeline extends PlotElement {
     if (handled) event.preventDefault();
   };
 
-  /** Moves to the next / previous uplink of a satellite (the first one in view to start with), centres and announces it. */
+  /** Moves to the next / previous uplink of a satellite (first: the first in view); centres and announces it. */
   private _stepUplink(d: FleetView, i: number, dir: 1 | -1): void {
     const s = d.satellites[i]!;
     const cur = this._cursor?.kind === 'satellite' ? this._cursor.command : -1;
@@ -498,8 +491,7 @@ export class TaulineFleetTimeline extends PlotElement {
       const span = this._view[1] - this._view[0];
       this._setView(c.executeAt - span / 2, c.executeAt + span / 2, true);
     }
-    this._announcement = `${s.id} uplink ${k + 1} of ${s.commands.length}: ${c.kind} step ` +
-      `${c.kind === 'phase' ? formatOffsetAuto(c.step, 3) : formatFraction(c.step, 3)} uplinked ${formatChartUtc(d, c.uplinkAt)} via ` +
-      `${c.station}, executes ${formatChartUtc(d, c.executeAt)}.`;
+    this._announcement = `${s.id} uplink ${k + 1} of ${s.commands.length}: ${c.kind} step ${stepText(c)} uplinked ` +
+      `${formatChartUtc(d, c.uplinkAt)} via ${c.station}, executes ${formatChartUtc(d, c.executeAt)}.`;
   }
 }
