@@ -29,6 +29,7 @@ export const fleetTimelineStyles = css`
     position: absolute; width: 1px; height: 1px; overflow: hidden; clip: rect(0 0 0 0); white-space: nowrap;
   }
   thead th { position: sticky; top: 0; background: var(--surface); z-index: 1; }
+  [part~='table'] thead th:last-child { text-align: left; }
   tbody tr { cursor: pointer; }
   tbody tr:hover td, tbody tr:hover th { background: color-mix(in srgb, var(--accent) 7%, transparent); }
   tbody tr[aria-current='true'] td, tbody tr[aria-current='true'] th {
