@@ -187,6 +187,21 @@ describe('tauline-fleet-timeline', () => {
     expect(root(el).querySelector('[aria-live]')!.textContent).to.contain('VESPER-1');
   });
 
+  it('keyboard: → on a satellite steps through its uplinks in time order and announces each with its station', async () => {
+    const data = await heldFleet();
+    const el = await render(data);
+    root(el).querySelector<HTMLElement>('.plot-box')!.focus();
+    await sendKeys({ press: 'ArrowDown' });
+    await sendKeys({ press: 'ArrowRight' });
+    await el.updateComplete;
+    const live = (): string => root(el).querySelector('[aria-live]')!.textContent!;
+    const sat = data.plan.satellites[0]!;
+    expect(live()).to.match(new RegExp(`^VESPER-1 uplink 1 of ${sat.commands.length}: frequency step .* via ${sat.commands[0]!.station}`));
+    await sendKeys({ press: 'ArrowRight' });
+    await el.updateComplete;
+    expect(live()).to.match(/^VESPER-1 uplink 2 of /);
+  });
+
   it('keyboard: ↓ past the satellites reaches the station lanes, → steps through supports and Enter fires tauline-support-select', async () => {
     const data = await heldFleet();
     const el = await render(data);

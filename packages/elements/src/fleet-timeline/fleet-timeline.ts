@@ -266,12 +266,19 @@ export class TaulineFleetTimeline extends PlotElement {
     const outline = (x: number, y: number, w: number, h: number, color: string, width: number): void => {
       ctx.strokeStyle = color; ctx.lineWidth = width; ctx.strokeRect(x, y, w, h);
     };
+    const ring = (x: number, y: number): void => {
+      ctx.strokeStyle = colors.accent; ctx.lineWidth = 2;
+      ctx.beginPath(); ctx.arc(x, y, 8, 0, Math.PI * 2); ctx.stroke();
+    };
     const sel = d.satellites.findIndex((s) => s.id === this.selected);
     const rowY = (i: number): number => layout.top + i * layout.rowHeight;
     const width = layout.right - layout.left;
     if (sel >= 0) outline(layout.left - 1, rowY(sel) + 0.5, width + 2, layout.rowHeight - 1, colors.accent, 2);
     const c = this._cursor;
     if (c?.kind === 'satellite') outline(1, rowY(c.satellite) + 1, layout.right, layout.rowHeight - 2, colors.text, 1);
+    // The uplink the arrow keys reached: a ring around its marker (mid-row, as fleet-draw.ts places it).
+    const up = c?.kind === 'satellite' ? d.satellites[c.satellite]?.commands[c.command] : undefined;
+    if (c?.kind === 'satellite' && up) ring(sx.map(up.executeAt), rowY(c.satellite) + (layout.rowHeight - 6) / 2 + 1);
     if (c?.kind === 'support') {
       const sup = d.stations[c.station]?.supports[c.support];
       const r = sup ? supportRect(layout, sx, sup) : null;
@@ -309,10 +316,7 @@ export class TaulineFleetTimeline extends PlotElement {
     this._setView(this._view[0] + shift, this._view[1] + shift, true);
   }
 
-  private readonly _showAll = (): void => {
-    const d = this._data;
-    if (d) this._setView(0, d.horizon, true);
-  };
+  private readonly _showAll = (): void => { if (this._data) this._setView(0, this._data.horizon, true); };
 
   private _selectSatellite(i: number): void {
     const d = this._data, s = d?.satellites[i];
@@ -406,9 +410,7 @@ export class TaulineFleetTimeline extends PlotElement {
 
   private readonly _onPointerCancel = (): void => { this._gesture = null; this._box?.classList.remove('dragging'); };
 
-  private readonly _onPointerLeave = (): void => {
-    if (!this._gesture && this._hover) this._hover = null;
-  };
+  private readonly _onPointerLeave = (): void => { if (!this._gesture && this._hover) this._hover = null; };
 
   private readonly _onWheel = (event: WheelEvent): void => {
     const g = this._geometry();
@@ -446,9 +448,7 @@ export class TaulineFleetTimeline extends PlotElement {
   }
 
   private _firstVisibleSupport(d: FleetView, station: number): number {
-    const start = this._view?.[0] ?? 0;
-    const k = d.stations[station]!.supports.findIndex((s) => s.end >= start);
-    return k < 0 ? 0 : k;
+    return Math.max(0, d.stations[station]!.supports.findIndex((s) => s.end >= (this._view?.[0] ?? 0)));
   }
 
   private readonly _onKeyDown = (event: KeyboardEvent): void => {
