@@ -6,12 +6,14 @@ import {
   simulateClosedLoop,
 } from '@tauline/sdk';
 import { SATELLITES, scenarioFor, reviewDocument, clockRecord } from './constellation.js';
+import { loadFleet } from './fleet-view.js';
 
 const $ = (id) => document.getElementById(id);
 const schedule = document.querySelector('tauline-steering-schedule');
 const budget = document.querySelector('tauline-rate-budget');
 const stability = document.querySelector('tauline-stability-plot');
 const review = document.querySelector('tauline-review-findings');
+const fleetTimeline = document.querySelector('tauline-fleet-timeline');
 const status = $('status');
 
 /** Residual rate the factory offset leaves for the design orbit (clock-specific, invented). */
@@ -238,9 +240,11 @@ $('theme-toggle').addEventListener('click', () => {
   const light = document.documentElement.classList.toggle('light');
   $('theme-toggle').textContent = light ? 'Day room' : 'Dark room';
   $('theme-toggle').setAttribute('aria-pressed', String(!light));
-  for (const el of [schedule, stability]) el.refreshTheme();
+  for (const el of [schedule, stability, fleetTimeline]) el.refreshTheme();
 });
 if (new URLSearchParams(location.search).get('theme') === 'light') $('theme-toggle').click();
 
 loadReview();
 setSatellite(0);
+// The fleet view plans four satellites jointly (a few hundred ms): after the first paint of the rest.
+setTimeout(() => loadFleet(log), 0);

@@ -108,3 +108,47 @@ export function clockRecord(index, length = 65_536) {
   }
   return y;
 }
+
+/** The two invented uplink stations of the fleet view: a support lasts `supportSeconds`, `setupSeconds` between supports. */
+export const FLEET_STATIONS = [
+  { id: 'ISK-HARBOUR', setupSeconds: 900, supportSeconds: 1200 },
+  { id: 'VELL-RIDGE', setupSeconds: 600, supportSeconds: 900 },
+];
+
+/**
+ * Invented passes of satellite `index` over the two stations: Isk Harbour sees each satellite once a
+ * day near 04:00, Vell Ridge near 16:00, 25 min apart satellite after satellite, so passes overlap
+ * and the stations must be shared. CORVANE-B2 has no pass on the first day (an invented transponder
+ * outage), so a fast-running clock on it leaves its band before anyone can uplink.
+ */
+function fleetPasses(index, days) {
+  const out = [];
+  const shift = index * 1500;
+  for (let d = 0; d < days; d++) {
+    if (index === 3 && d === 0) continue;
+    out.push({ station: 'ISK-HARBOUR', start: iso(d * 86400 + 4 * 3600 + shift), end: iso(d * 86400 + 4 * 3600 + shift + 2700) });
+    out.push({ station: 'VELL-RIDGE', start: iso(d * 86400 + 16 * 3600 + shift), end: iso(d * 86400 + 16 * 3600 + shift + 2400) });
+  }
+  return out;
+}
+
+/**
+ * The fleet document of the fleet view (`planFleet` of @tauline/sdk/fleet): the four satellites with
+ * the clocks and actuators of `scenarioFor`, their residual rates, one tolerance for all, the two
+ * stations and their passes over `days` days.
+ */
+export function fleetDocument(residuals, { tolerancePhaseSeconds = 25e-9, method = 'optimal', days = 7 } = {}) {
+  return {
+    name: `${CONSTELLATION} fleet, ${days} days`,
+    description: `Invented ${CONSTELLATION} satellites steered through ${FLEET_STATIONS.map((s) => s.id).join(' and ')}.`,
+    epoch: EPOCH,
+    horizonSeconds: days * 86400,
+    gridSeconds: 900,
+    stations: FLEET_STATIONS,
+    satellites: SATELLITES.map((sat, index) => {
+      const s = scenarioFor(index, { residualFractionalFrequency: residuals[index], tolerancePhaseSeconds, method, days });
+      return { id: sat.id, clock: s.clock, tolerance: s.tolerance, actuator: s.actuator, maneuvers: [], passes: fleetPasses(index, days) };
+    }),
+    strategy: { method },
+  };
+}

@@ -165,3 +165,71 @@ if (!new URLSearchParams(location.search).has('bench')) {
     });
   });
 }
+
+const fleetTimeline = document.querySelector('tauline-fleet-timeline');
+
+/** Waits until the fleet timeline has drawn its current data (the canvas gets its CSS size when drawn). */
+async function fleetDrawn() {
+  for (let k = 0; k < 20; k++) {
+    await fleetTimeline.updateComplete;
+    const c = fleetTimeline.shadowRoot.querySelector('canvas.data');
+    if (c?.style.height) { c.getContext('2d').getImageData(0, 0, 1, 1); return; }
+    await new Promise((r) => requestAnimationFrame(r));
+  }
+}
+
+/** The baseline: every margin sample of every satellite as its own rectangle on a canvas of the same size. */
+function naiveFleetDraw(plan, width, height) {
+  const c = document.createElement('canvas');
+  const ratio = devicePixelRatio || 1;
+  c.width = width * ratio; c.height = height * ratio;
+  const ctx = c.getContext('2d');
+  ctx.setTransform(ratio, 0, 0, ratio, 0, 0);
+  const t0 = performance.now();
+  const rowHeight = height / (plan.satellites.length + 4);
+  plan.satellites.forEach((s, i) => {
+    const t = s.predicted.t, m = s.predicted.steered.phaseSeconds, span = t[t.length - 1] || 1;
+    for (let k = 0; k < t.length; k++) {
+      ctx.fillStyle = Math.abs(m[k]) > 5e-8 ? '#b3261e' : '#1d6b63';
+      ctx.fillRect((t[k] / span) * width, i * rowHeight, Math.max(1, width / t.length), rowHeight * 0.6);
+    }
+  });
+  ctx.getImageData(0, 0, 1, 1);
+  return performance.now() - t0;
+}
+
+/**
+ * Fleet-timeline benchmark, in ms: first render of a planned fleet (`planFleet` output and its
+ * document, given by the caller) into an empty element, a new plan of the same fleet, hover over the
+ * rows, and the naive baseline.
+ */
+export async function runFleetBench({ fleet, plan }) {
+  fleetTimeline.plan = null;
+  await fleetTimeline.updateComplete;
+  const t0 = performance.now();
+  fleetTimeline.fleet = fleet;
+  fleetTimeline.plan = plan;
+  await fleetDrawn();
+  const firstRender = performance.now() - t0;
+  // A new plan of the same fleet (as after a re-plan): the fleet document is not validated again.
+  const t1 = performance.now();
+  fleetTimeline.plan = { ...plan };
+  await fleetDrawn();
+  const update = performance.now() - t1;
+  const box = fleetTimeline.shadowRoot.querySelector('.plot-box');
+  const rect = box.getBoundingClientRect();
+  const baselines = [0, 1, 2].map(() => naiveFleetDraw(plan, rect.width, rect.height));
+  const hovers = [];
+  for (let k = 0; k < 40; k++) {
+    const x = rect.left + 140 + ((rect.width - 160) * k) / 39, y = rect.top + 40 + ((rect.height - 50) * ((k * 7) % 40)) / 40;
+    const s = performance.now();
+    box.dispatchEvent(new PointerEvent('pointermove', { clientX: x, clientY: y, bubbles: true }));
+    await fleetTimeline.updateComplete;
+    hovers.push(performance.now() - s);
+  }
+  const samples = plan.satellites.reduce((n, s) => n + s.predicted.t.length, 0);
+  return { satellites: plan.satellites.length, stations: plan.stationSchedule.length, samples, width: Math.round(rect.width),
+    height: Math.round(rect.height), firstRenderMs: firstRender, updateMs: update, hoverMedianMs: median(hovers), hoverMaxMs: Math.max(...hovers),
+    baselineMs: median(baselines) };
+}
+window.runFleetBench = runFleetBench;

@@ -5,6 +5,9 @@
 // points undecimated on a canvas of the same size in the same run. Reports only; asserts nothing.
 // Then renders <tauline-stability-plot> (with its table) at 10^4, 10^5 and 10^6 points and hovers it,
 // against the schedule's 10^6 first render measured in the same run.
+// Then renders <tauline-fleet-timeline> with an invented 30 satellites × 3 stations × 30 days fleet planned
+// by planFleet (in Node, untimed) and hovers it, against drawing every margin sample as its own
+// rectangle on a canvas of the same size in the same run.
 // Targets (issue): first render < 100 ms, re-render after a pan < 16 ms; stability 10^6 < 100 ms, hover < 16 ms.
 import { startDemoServer } from '../../demo/server.mjs';
 import { chromium } from 'playwright-core';
@@ -13,8 +16,48 @@ import { tmpdir, cpus } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { CHROMIUM_ARGS } from '../../web-test-runner.config.mjs';
+import { planFleet } from '../../packages/sdk/dist/fleet/index.js';
 
 const fmt = (ms) => `${ms.toFixed(1).padStart(7)} ms`;
+
+/** Deterministic pseudo-random numbers in [0, 1) (a linear congruential generator, fixed seed). */
+function lcg(seed) {
+  let s = seed >>> 0;
+  return () => {
+    s = (Math.imul(s, 1_664_525) + 1_013_904_223) >>> 0;
+    return s / 2 ** 32;
+  };
+}
+
+/** An invented fleet: 30 satellites, 3 stations seeing each about twice a day, `days` days. */
+function benchFleet(days) {
+  const rand = lcg(20261204);
+  const epochMs = Date.parse('2027-05-03T00:00:00Z');
+  const iso = (t) => new Date(epochMs + Math.round(t) * 1000).toISOString().replace('.000Z', 'Z');
+  const stations = ['UI-BENCH-A', 'UI-BENCH-B', 'UI-BENCH-C'].map((id) => ({ id, setupSeconds: 600, supportSeconds: 900 }));
+  const satellites = Array.from({ length: 30 }, (_, i) => {
+    const passes = [];
+    for (let d = 0; d < days; d++) {
+      stations.forEach((st, k) => {
+        for (const base of [3, 15]) {
+          const start = d * 86_400 + (base + 2.5 * k) * 3600 + rand() * 4 * 3600;
+          const end = Math.min(days * 86_400, start + 2400 + rand() * 2400);
+          if (end - start >= 900) passes.push({ station: st.id, start: iso(start), end: iso(end) });
+        }
+      });
+    }
+    return {
+      id: `UIB-${String(i + 1).padStart(2, '0')}`,
+      clock: { phaseSeconds: (rand() - 0.5) * 1e-8, fractionalFrequency: (rand() - 0.5) * 8e-13, driftPerSecond: (rand() - 0.5) * 1e-18,
+        noise: { q1: 1e-24, q2: 1e-34, q3: 0 } },
+      tolerance: { phaseSeconds: 1e-7, probability: 0.95 },
+      actuator: { frequencyResolution: 1e-15, maxFrequencyStep: 5e-13, cumulativeFrequencyRange: { min: -5e-11, max: 5e-11 },
+        minCommandSpacingSeconds: 3600, maxTimeTagSeconds: 43_200 },
+      passes,
+    };
+  });
+  return { epoch: iso(0), horizonSeconds: days * 86_400, gridSeconds: 900, stations, satellites, strategy: { method: 'optimal' } };
+}
 
 export default async function benchElements() {
   const server = await startDemoServer({ port: 0 });
@@ -53,7 +96,18 @@ export default async function benchElements() {
     }
     const [a, , c] = stability;
     console.log(`  growth exponent of first render over 10^4…10^6: ${(Math.log10(c.firstRenderMs / a.firstRenderMs) / 2).toFixed(2)}`);
-    return { ...r, stability };
+    const fleet = benchFleet(30);
+    const plan = planFleet(fleet);
+    await page.evaluate((data) => window.runFleetBench(data), { fleet, plan }); // warm-up
+    const f = await page.evaluate((data) => window.runFleetBench(data), { fleet, plan });
+    const vsBase = (ms) => `${(ms / f.baselineMs).toFixed(2)}× baseline`;
+    console.log(`<tauline-fleet-timeline>, ${f.satellites} satellites × 3 stations × 30 days (${f.samples.toLocaleString('en')} grid samples, ` +
+      `${f.stations} supports), ${f.width}×${f.height} CSS px`);
+    console.log(`  baseline: every margin sample as a rectangle ${fmt(f.baselineMs)}`);
+    console.log(`  first render (guard, margins, draw)          ${fmt(f.firstRenderMs)}  ${vsBase(f.firstRenderMs)}`);
+    console.log(`  new plan of the same fleet                   ${fmt(f.updateMs)}  ${vsBase(f.updateMs)}`);
+    console.log(`  hover, median                                ${fmt(f.hoverMedianMs)}  ${vsBase(f.hoverMedianMs)}  one frame (16 ms): ${f.hoverMedianMs < 16 ? 'within' : 'OVER'} (max ${f.hoverMaxMs.toFixed(1)} ms)`);
+    return { ...r, stability, fleet: f };
   } finally {
     await ctx.close();
     await server.close();

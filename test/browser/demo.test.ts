@@ -159,6 +159,34 @@ describe('demo operations console (demo/index.html)', () => {
     expect(doc.getElementById('loop-status')!.textContent).to.match(/flown in \d+ ms/);
   });
 
+  it('the fleet view plans the four Corvane satellites with planFleet, says which one cannot be held and why, and shows the selected satellite\'s details', async () => {
+    const doc = await loadDemo();
+    const timeline = doc.querySelector('tauline-fleet-timeline')!;
+    const rows = await until('fleet rows', () => {
+      const r = timeline.shadowRoot?.querySelectorAll<HTMLTableRowElement>('tbody tr[part~="row"]');
+      return r && r.length > 0 ? [...r] : null;
+    });
+    expect(rows.map((r) => r.dataset['id'])).to.deep.equal(['CORVANE-A1', 'CORVANE-A2', 'CORVANE-B1', 'CORVANE-B2']);
+    const summary = await until('fleet summary', () => doc.getElementById('fleet-summary')!.textContent);
+    expect(summary).to.contain('Not feasible: 1 of 4 satellites cannot be held');
+    expect(summary).to.contain('CORVANE-B2: too few passes');
+    expect(rows[3]!.getAttribute('part')).to.contain('at-risk');
+    expect(timeline.shadowRoot!.querySelectorAll('[part~="station-table"] tbody tr').length).to.equal(2);
+    rows[0]!.querySelector<HTMLButtonElement>('button')!.click();
+    const detail = await until('fleet details', () => doc.querySelector('#fleet-detail h3')?.textContent);
+    expect(detail).to.match(/^CORVANE-A1 · \d+ uplinks?$/);
+    expect(doc.querySelectorAll('#fleet-detail tbody tr').length).to.be.greaterThan(0);
+    expect(doc.getElementById('events')!.textContent).to.contain('fleet: selected CORVANE-A1');
+    const numbers = [doc.getElementById('fleet-summary')!.textContent!, doc.getElementById('fleet-detail')!.textContent!, timeline.shadowRoot!.textContent!];
+    expect(numbers.flatMap((t) => t.match(/(^|[\s(=±Δ:]|\de)-\d[^\s]*/g) ?? [])).to.deep.equal([]);
+  });
+
+  it('at 360×740 the fleet view fits the width and is saved to .ci-out/demo-360-fleet.png', async () => {
+    const views = await executeServerCommand<Array<{ view: string; scrollWidth: number; innerWidth: number; wide: string[] }>, Record<string, unknown>>(
+      'tauline-demo-views', { path: '/demo/index.html', width: 360, height: 740, views: ['fleet'] });
+    for (const v of views) expect(v.scrollWidth, `${v.view}: ${v.wide.join('; ')}`).to.be.at.most(v.innerWidth);
+  });
+
   it('saves a screenshot of the console to .ci-out/demo-console.png', async () => {
     const saved = await executeServerCommand<string, { path: string; out: string }>('tauline-demo-screenshot', { path: '/demo/index.html', out: '.ci-out/demo-console.png' });
     expect(saved).to.contain('demo-console.png');

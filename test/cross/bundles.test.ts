@@ -52,9 +52,9 @@ describe('one-file bundles (@tauline/elements/bundle, @tauline/sdk/bundle)', () 
     });
   }
 
-  it('tauline-elements.js registers the four tags and inlines Lit', () => {
+  it('tauline-elements.js registers the five tags and inlines Lit', () => {
     const code = read('packages/elements/dist/bundle/tauline-elements.js');
-    for (const tag of ['steering-schedule', 'rate-budget', 'stability-plot', 'review-findings']) expect(code.includes(`"tauline-${tag}"`), tag).toBe(true);
+    for (const tag of ['steering-schedule', 'rate-budget', 'stability-plot', 'review-findings', 'fleet-timeline']) expect(code.includes(`"tauline-${tag}"`), tag).toBe(true);
     expect(code.includes('adoptedStyleSheets'), "Lit's reactive-element inlined").toBe(true);
   });
 });
