@@ -25,6 +25,6 @@ export async function heldFleet(): Promise<{ fleet: FleetDocument; plan: FleetPl
 export async function strandedFleet(): Promise<{ fleet: FleetDocument; plan: FleetPlan }> {
   const fleet = await vesperFleet();
   const sat = fleet.satellites[2]!;
-  sat.passes = sat.passes.slice(8);
+  sat.passes = (sat.passes ?? []).slice(8);
   return { fleet, plan: planFleet(fleet) };
 }
