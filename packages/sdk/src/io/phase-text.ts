@@ -160,12 +160,16 @@ class PhaseTextBuilder {
  * multiples of τ0 (relative tolerance 1e-6); samples that are NaN themselves count as gaps too.
  * The grid's length is checked against {@link MAX_SERIES_SAMPLES} before it is allocated.
  *
+ * `times` may be counted from any origin; `origin` (default 0) is added to the times printed in
+ * messages and to each gap's `time`, so that a reader can work on exact offsets from its first epoch
+ * and still report times on its own count. The returned grid is on the same count as `times`.
+ *
  * @internal shared with the RINEX clock reader
  * @throws {ParseError} at the line of the first sample whose step is not a whole multiple of τ0, or
  *   whose gap makes the series longer than {@link MAX_SERIES_SAMPLES} (naming the gap and the limit).
  */
 export function regularizeSeries(sourceName: string, times: Float64Array, values: Float64Array, lineOf: (i: number) => number,
-  tau0Given: Seconds | undefined): { phase: Float64Array; times: Float64Array; tau0: Seconds | undefined; gaps: SampleGap[]; missing: number } {
+  tau0Given: Seconds | undefined, origin: Seconds = 0): { phase: Float64Array; times: Float64Array; tau0: Seconds | undefined; gaps: SampleGap[]; missing: number } {
   let tau0 = tau0Given;
   if (tau0 !== undefined && !(tau0 > 0 && Number.isFinite(tau0))) {
     throw new ParseError(sourceName, lineOf(0), undefined, `a sample spacing tau0 > 0 s (given ${tau0})`);
@@ -175,7 +179,9 @@ export function regularizeSeries(sourceName: string, times: Float64Array, values
     for (let i = 1; i < times.length; i++) tau0 = Math.min(tau0, times[i]! - times[i - 1]!);
   }
   if (tau0 === undefined) {
-    return { phase: values.slice(), times: times.slice(), tau0: undefined, gaps: values[0] !== values[0] ? [{ index: 0, missing: 1, line: lineOf(0), time: times[0] }] : [], missing: values[0] !== values[0] ? 1 : 0 };
+    const first = times[0];
+    const gaps = values[0] !== values[0] ? [{ index: 0, missing: 1, line: lineOf(0), time: first === undefined ? undefined : origin + first }] : [];
+    return { phase: values.slice(), times: times.slice(), tau0: undefined, gaps, missing: gaps.length };
   }
   const t0 = times[0]!;
   let total = 1;
@@ -186,13 +192,13 @@ export function regularizeSeries(sourceName: string, times: Float64Array, values
     if (k < 1 || Math.abs(ratio - k) > 1e-6 * Math.max(1, k)) {
       throw new ParseError(sourceName, lineOf(i), 1,
         `a time step that is a whole multiple of tau0 = ${tau0} s (step ${times[i]! - times[i - 1]!} s from the previous sample is ${ratio} tau0)`,
-        String(times[i]));
+        String(origin + times[i]!));
     }
     if (total + k > MAX_SERIES_SAMPLES) {
       // Refused before anything of that length is allocated (a gap of 10^12 samples would ask for terabytes).
       throw new ParseError(sourceName, lineOf(i), 1,
         `a uniform series of at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES): the gap of ${times[i]! - times[i - 1]!} s ` +
-        `after line ${lineOf(i - 1)} is ${k} steps of tau0 = ${tau0} s, making ${total + k} samples`, String(times[i]));
+        `after line ${lineOf(i - 1)} is ${k} steps of tau0 = ${tau0} s, making ${total + k} samples`, String(origin + times[i]!));
     }
     steps[i] = k;
     total += k;
@@ -205,7 +211,7 @@ export function regularizeSeries(sourceName: string, times: Float64Array, values
   for (let i = 0; i < times.length; i++) {
     if (i > 0) {
       const k = steps[i]!;
-      if (k > 1) gaps.push({ index: idx + 1, missing: k - 1, line: lineOf(i), time: t0 + (idx + 1) * tau0 });
+      if (k > 1) gaps.push({ index: idx + 1, missing: k - 1, line: lineOf(i), time: origin + (t0 + (idx + 1) * tau0) });
       idx += k;
     }
     phase[idx] = values[i]!;
@@ -214,7 +220,7 @@ export function regularizeSeries(sourceName: string, times: Float64Array, values
   // Explicit NaN values at listed epochs are gaps as well.
   for (let i = 0, k = 0; i < times.length; i++) {
     if (i > 0) k += steps[i]!;
-    if (values[i] !== values[i]) gaps.push({ index: k, missing: 1, line: lineOf(i), time: grid[k] });
+    if (values[i] !== values[i]) gaps.push({ index: k, missing: 1, line: lineOf(i), time: origin + grid[k]! });
   }
   gaps.sort((a, b) => a.index - b.index);
   for (const g of gaps) missing += g.missing;

@@ -32,8 +32,11 @@ import type {
   Sp3Epoch, Sp3Event, Sp3File, Sp3Header, Sp3ReadOptions, Sp3TimeSystem, Sp3Version,
 } from './sp3-types.js';
 import {
-  type EpochFields, type TextLine, type TextSource, linesOf, readLineBatches, requireTextLine, scaleSecondsFromFields, validEpochFields,
+  type EpochFields, type TextLine, type TextSource, linesOf, readLineBatches, requireTextLine, validEpochFields,
 } from './line-reader.js';
+import type { Instant } from '../time/instant.js';
+import type { TimeScales } from '../time/scales.js';
+import { fileEpochInstant, isReadableTimeSystem, readerTimeScales } from './epochs.js';
 
 export type {
   Sp3TimeSystem, Sp3Version, Sp3Header, Sp3SatelliteRecord, Sp3Epoch, Sp3Event, Sp3ReadOptions, Sp3File,
@@ -86,13 +89,22 @@ export class Sp3Parser {
     tagCounts: Record<string, number>;
   } = { satellites: [], accuracy: [], comments: [], percentC: 0, timeSystemAssumed: false, tagCounts: {} };
   private _satelliteSet = new Set<string>();
-  private _epoch: { time: EpochFields; scaleSeconds: number; line: number; records: MutableRecord[]; seen: Set<string> } | undefined;
+  private _epoch: { epoch: Instant; time: EpochFields; line: number; records: MutableRecord[]; seen: Set<string> } | undefined;
   private _epochsSeen = 0;
-  private _lastScaleSeconds = -Infinity;
+  private _lastEpoch: Instant | undefined;
+  private readonly _ts: TimeScales;
+  /** Line 1, kept to place its first epoch once the `%c` line has named the time system. */
+  private _line1Text: TextLine | undefined;
 
   constructor(options: Sp3ReadOptions = {}) {
     requireOptions('options', options);
     this._source = options.sourceName === undefined ? 'sp3' : requireSourceName('options.sourceName', options.sourceName);
+    this._ts = readerTimeScales(options.timeScales);
+  }
+
+  /** The instant of an epoch line's fields on the file's time system. @throws {ParseError} */
+  private _instant(line: TextLine, fields: EpochFields, timeSystem: Sp3TimeSystem): Instant {
+    return fileEpochInstant(this._ts, fields, timeSystem, { source: this._source, line: line.lineNumber, column: 4, text: line.text.slice(3, 31) });
   }
 
   private _error(line: TextLine, column: number | undefined, expected: string, found?: string): ParseError {
@@ -182,6 +194,7 @@ export class Sp3Parser {
     this._h.version = v;
     this._h.hasVelocities = pv === 'V';
     this._h.firstEpoch = this._epochFields(line, 'first epoch');
+    this._line1Text = line;
     const n = this._int(line, 32, 39, 'number of epochs');
     if (n < 1) throw this._error(line, 33, 'a positive number of epochs in columns 33-39', String(n));
     this._h.epochCount = n;
@@ -276,6 +289,9 @@ export class Sp3Parser {
       const also = legacy ? " (or the SP3-a/b placeholder 'ccc': GPS time)" : '';
       throw this._error(line, 10, `a time system (${TIME_SYSTEMS.join(', ')}) in columns 10-12${also}`, ts);
     }
+    if (!isReadableTimeSystem(ts)) {
+      throw this._error(line, 10, `a time system the SDK can place on its scales (${TIME_SYSTEMS.filter(isReadableTimeSystem).join(', ')}) in columns 10-12`, ts);
+    }
     this._h.timeSystem = ts as Sp3TimeSystem;
   }
 
@@ -295,6 +311,14 @@ export class Sp3Parser {
     return `${letter}${id.slice(1).trim().padStart(2, '0')}`;
   }
 
+  /** The instant of line 1's first epoch (its time system is known only after the `%c` line). */
+  private _firstInstant(timeSystem: Sp3TimeSystem): Instant {
+    const first = this._line1Text;
+    const fields = this._h.firstEpoch;
+    if (first === undefined || fields === undefined) throw new Error('internal: SP3 line 1 not read before the header ends');
+    return this._instant(first, fields, timeSystem);
+  }
+
   private _finishHeader(line: TextLine): Sp3Header {
     const h = this._h;
     if (h.satelliteCount === undefined) throw this._error(line, 1, "the satellite list ('+ ' lines) before the first epoch", line.text);
@@ -311,10 +335,11 @@ export class Sp3Parser {
         }
       }
     }
+    const firstInstant = this._firstInstant(h.timeSystem);
     const accuracyExponents: Record<string, number> = {};
     h.satellites.forEach((s, i) => { if (h.accuracy[i] !== undefined) accuracyExponents[s] = h.accuracy[i]!; });
     return {
-      sourceName: this._source, version: h.version!, hasVelocities: h.hasVelocities!, firstEpoch: h.firstEpoch!,
+      sourceName: this._source, version: h.version!, hasVelocities: h.hasVelocities!, firstEpoch: h.firstEpoch!, firstInstant,
       epochCount: h.epochCount!, dataUsed: h.dataUsed!, coordinateFrame: h.coordinateFrame!, orbitType: h.orbitType!,
       agency: h.agency!, gpsWeek: h.gpsWeek!, secondsOfWeek: h.secondsOfWeek!, epochInterval: h.epochInterval!,
       modifiedJulianDay: h.modifiedJulianDay!, fractionalDay: h.fractionalDay!, satellites: h.satellites,
@@ -328,14 +353,14 @@ export class Sp3Parser {
   private _startEpoch(line: TextLine): void {
     if (!line.text.startsWith('* ')) throw this._error(line, 1, "an epoch line starting with '* '", line.text.slice(0, 2));
     const time = this._epochFields(line, 'epoch');
-    const scaleSeconds = scaleSecondsFromFields(time);
-    if (!(scaleSeconds > this._lastScaleSeconds)) throw this._error(line, 4, 'epochs in increasing time order', line.text.slice(3, 31));
+    const epoch = this._instant(line, time, this._h.timeSystem!);
+    if (this._lastEpoch !== undefined && !epoch.isAfter(this._lastEpoch)) throw this._error(line, 4, 'epochs in increasing time order', line.text.slice(3, 31));
     this._epochsSeen++;
     if (this._epochsSeen > this._h.epochCount!) {
       throw this._error(line, 1, `no more than the ${this._h.epochCount} epochs declared on line 1`, line.text);
     }
-    this._lastScaleSeconds = scaleSeconds;
-    this._epoch = { time, scaleSeconds, line: line.lineNumber, records: [], seen: new Set() };
+    this._lastEpoch = epoch;
+    this._epoch = { epoch, time, line: line.lineNumber, records: [], seen: new Set() };
   }
 
   private _emitEpoch(): Sp3Event[] {
@@ -343,7 +368,7 @@ export class Sp3Parser {
     this._epoch = undefined;
     if (!e) return [];
     const missingSatellites = e.seen.size === this._h.satellites.length ? [] : this._h.satellites.filter((s) => !e.seen.has(s));
-    return [{ kind: 'epoch', epoch: { time: e.time, scaleSeconds: e.scaleSeconds, line: e.line, records: e.records, missingSatellites } }];
+    return [{ kind: 'epoch', epoch: { epoch: e.epoch, time: e.time, line: e.line, records: e.records, missingSatellites } }];
   }
 
   private _body(line: TextLine): Sp3Event[] {

@@ -26,3 +26,7 @@ export {
 export type { WeekSeconds, WeekSystem } from './weeks.js';
 export { createTimeScales } from './scales.js';
 export type { CalendarDateTime, CalendarDateTimeInput, FormatIsoOptions, SplitDays, TimeScales } from './scales.js';
+export {
+  FILE_TIME_SYSTEM_CODES, fileTimeScale, formatFileEpoch, instantFromFileEpoch, instantFromScaleSeconds, scaleSecondsFromInstant,
+} from './file-epochs.js';
+export type { FileEpochFields, FileTimeScale, FormatFileEpochOptions, OrbitScale } from './file-epochs.js';

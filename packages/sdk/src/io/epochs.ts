@@ -1,0 +1,53 @@
+/**
+ * The readers' one way to turn an epoch as written into an {@link Instant}: the file's calendar
+ * fields on the time system its header names, through the time module (never calendar arithmetic
+ * of the reader's own). A failure becomes a ParseError at the epoch's line and column.
+ *
+ * @module
+ */
+import { InvalidArgumentError, OutOfDomainError, ParseError } from '../errors.js';
+import { FILE_TIME_SYSTEM_CODES, fileTimeScale, instantFromFileEpoch, requireTimeScales } from '../time/file-epochs.js';
+import type { Instant } from '../time/instant.js';
+import { BUNDLED_LEAP_SECONDS } from '../time/leap-seconds.js';
+import { createTimeScales, type TimeScales } from '../time/scales.js';
+import type { EpochFields } from './line-reader.js';
+
+let bundled: TimeScales | undefined;
+
+/**
+ * The time scales a reader uses for UTC and GLONASS-time epochs: `given` (the `timeScales` option),
+ * or the bundled leap-second table (valid until 2027-06-28).
+ * @throws {InvalidArgumentError} when `given` is not a TimeScales object.
+ */
+export function readerTimeScales(given: unknown): TimeScales {
+  if (given === undefined) return (bundled ??= createTimeScales(BUNDLED_LEAP_SECONDS));
+  return requireTimeScales('options.timeScales', given);
+}
+
+/** Whether the SDK can place epochs written on `code` (see `fileTimeScale`). */
+export function isReadableTimeSystem(code: string): boolean {
+  return fileTimeScale(code) !== undefined;
+}
+
+/** The readable time-system codes, for messages. */
+export const READABLE_TIME_SYSTEMS = FILE_TIME_SYSTEM_CODES.join(', ');
+
+/**
+ * The instant of an epoch as written (fields already checked to be a calendar date and time).
+ * @throws {ParseError} at `line`/`column` when the epoch cannot be placed (a UTC date the
+ *   leap-second table does not cover, 23:59:60 outside a leap second).
+ */
+export function fileEpochInstant(ts: TimeScales, fields: EpochFields, code: string,
+  where: { readonly source: string; readonly line: number; readonly column: number; readonly text: string }): Instant {
+  try {
+    return instantFromFileEpoch(ts, fields, code);
+  } catch (error) {
+    if (error instanceof OutOfDomainError || error instanceof InvalidArgumentError) {
+      const reason = error instanceof OutOfDomainError
+        ? `an epoch the leap-second table covers (${error.message}; pass options.timeScales built from a current table)`
+        : `an epoch that exists on the ${code} time scale (${error.message})`;
+      throw new ParseError(where.source, where.line, where.column, reason, where.text);
+    }
+    throw error;
+  }
+}
