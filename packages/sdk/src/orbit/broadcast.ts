@@ -335,11 +335,11 @@ export interface EphemerisSelectionOptions {
  *
  * @param records  Records of one satellite (any order).
  * @param time     Time: an Instant, or scale seconds of the satellite's system.
- * @returns The chosen record, or `undefined` when none is valid at t.
+ * @returns The chosen record (the caller's own record type), or `undefined` when none is valid at t.
  * @throws {InvalidArgumentError} if `t` is not finite.
  */
-export function selectEphemeris(records: readonly KeplerianBroadcastEphemeris[], time: Instant | Seconds,
-  options: EphemerisSelectionOptions = {}): KeplerianBroadcastEphemeris | undefined {
+export function selectEphemeris<R extends KeplerianBroadcastEphemeris>(records: readonly R[], time: Instant | Seconds,
+  options: EphemerisSelectionOptions = {}): R | undefined {
   if (typeof time === 'number') requireFinite('t', time, 'a finite time in scale seconds');
   else if (!(time instanceof Instant)) throw new InvalidArgumentError('t', time, 'an Instant, or a finite time in scale seconds');
   if (!Array.isArray(records)) throw new InvalidArgumentError('records', records, 'an array of broadcast ephemeris records');
@@ -351,8 +351,8 @@ export function selectEphemeris(records: readonly KeplerianBroadcastEphemeris[],
   });
   requireOptions('options', options);
   const preferred = options.galileoMessage ?? 'INAV';
-  const pick = (filter: (r: KeplerianBroadcastEphemeris) => boolean) => {
-    let best: KeplerianBroadcastEphemeris | undefined;
+  const pick = (filter: (r: R) => boolean) => {
+    let best: R | undefined;
     let bestKey: number[] = [];
     for (const r of records) {
       if (!filter(r)) continue;
