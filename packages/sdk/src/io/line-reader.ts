@@ -157,7 +157,8 @@ function* piecesOf(source: string | Iterable<string>): Generator<string> {
 /** Throws unless `line` is a {@link TextLine} (the parsers' push methods take lines from this module's splitter). */
 export function requireTextLine(line: unknown): TextLine {
   const l = line as Partial<TextLine> | null;
-  if (typeof l !== 'object' || l === null || typeof l.text !== 'string' || !Number.isSafeInteger(l.lineNumber) || (l.lineNumber as number) < 1) {
+  if (typeof l !== 'object' || l === null || typeof l.text !== 'string' || typeof l.lineNumber !== 'number'
+    || !Number.isSafeInteger(l.lineNumber) || l.lineNumber < 1) {
     throw new InvalidArgumentError('line', line, 'a line { text, lineNumber ≥ 1 } as linesOf/readLines yield');
   }
   return l as TextLine;

@@ -99,36 +99,37 @@ class PhaseTextBuilder {
     const hash = line.text.indexOf('#');
     const body = hash >= 0 ? line.text.slice(0, hash) : line.text;
     const tokens = tokenize(body);
-    if (tokens.length === 0) return;
+    const [first, second, third] = tokens;
+    if (first === undefined) return;
     if (!this._seenData && this._header === undefined && tokens.every((t) => !NUMBER.test(t.text) && t.text.toLowerCase() !== 'nan')) {
-      if (tokens.length > 2) throw new ParseError(this._name, line.lineNumber, tokens[2]!.column, 'at most two columns (time, phase)', tokens[2]!.text);
+      if (third) throw new ParseError(this._name, line.lineNumber, third.column, 'at most two columns (time, phase)', third.text);
       this._header = tokens.map((t) => t.text);
       this._columns = tokens.length as 1 | 2;
       return;
     }
     if (this._columns === undefined) {
-      if (tokens.length > 2) throw new ParseError(this._name, line.lineNumber, tokens[2]!.column, 'one column (phase) or two columns (time, phase)', tokens[2]!.text);
+      if (third) throw new ParseError(this._name, line.lineNumber, third.column, 'one column (phase) or two columns (time, phase)', third.text);
       this._columns = tokens.length as 1 | 2;
     }
     if (tokens.length !== this._columns) {
-      const t = tokens[Math.min(tokens.length, this._columns)] ?? tokens[tokens.length - 1]!;
-      throw new ParseError(this._name, line.lineNumber, tokens.length > this._columns ? t.column : undefined,
+      const extra = tokens[this._columns];
+      throw new ParseError(this._name, line.lineNumber, extra?.column,
         `${this._columns} column${this._columns === 2 ? 's (time, phase)' : ' (phase)'} as on the first data line`, line.text);
     }
     this._seenData = true;
     if (this._values.length >= MAX_SERIES_SAMPLES) {
       throw new ParseError(this._name, line.lineNumber, 1, `at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES, the longest series read)`, line.text);
     }
-    if (this._columns === 2) {
-      const time = parseValue(this._name, line.lineNumber, tokens[0]!, 'time in seconds', false);
+    if (this._columns === 2 && second !== undefined) {
+      const time = parseValue(this._name, line.lineNumber, first, 'time in seconds', false);
       if (this._times.length > 0 && !(time > this._times.get(this._times.length - 1))) {
-        throw new ParseError(this._name, line.lineNumber, tokens[0]!.column,
-          `a time later than the previous line's ${this._times.get(this._times.length - 1)} s (times must increase)`, tokens[0]!.text);
+        throw new ParseError(this._name, line.lineNumber, first.column,
+          `a time later than the previous line's ${this._times.get(this._times.length - 1)} s (times must increase)`, first.text);
       }
       this._times.push(time);
-      this._values.push(parseValue(this._name, line.lineNumber, tokens[1]!, 'phase in seconds', true));
+      this._values.push(parseValue(this._name, line.lineNumber, second, 'phase in seconds', true));
     } else {
-      this._values.push(parseValue(this._name, line.lineNumber, tokens[0]!, 'phase in seconds', true));
+      this._values.push(parseValue(this._name, line.lineNumber, first, 'phase in seconds', true));
     }
     this._lines.push(line.lineNumber);
   }
