@@ -191,10 +191,10 @@ export function decodeKeplerRecord(source: string, lines: readonly TextLine[], s
 
   const groupDelays: Record<string, number> = {};
   let issueOfDataClock: number | undefined;
-  const names = system === 'G' ? ['TGD'] : system === 'E' ? ['BGD_E5a_E1', 'BGD_E5b_E1'] : ['TGD1', 'TGD2'];
-  if (f.gd1 !== undefined) groupDelays[names[0]!] = f.gd1;
+  const [firstName, secondName] = system === 'G' ? ['TGD', ''] : system === 'E' ? ['BGD_E5a_E1', 'BGD_E5b_E1'] : ['TGD1', 'TGD2'];
+  if (f.gd1 !== undefined) groupDelays[firstName] = f.gd1;
   if (system === 'G') issueOfDataClock = f.gd2;
-  else if (f.gd2 !== undefined) groupDelays[names[1]!] = f.gd2;
+  else if (f.gd2 !== undefined) groupDelays[secondName] = f.gd2;
   if (system === 'C') issueOfDataClock = f.field7b;
 
   return {
