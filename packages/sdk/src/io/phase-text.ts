@@ -12,6 +12,7 @@ import { linesOf, readLineBatches, type TextLine, type TextSource } from './line
 import { requireOptions, requireSourceName } from '../internal/validate.js';
 import { MAX_SERIES_SAMPLES } from './limits.js';
 import { GrowableColumn } from './growable.js';
+import { type Instant, requireInstant } from '../time/instant.js';
 
 /** A run of missing samples in a regularised series. */
 export interface SampleGap {
@@ -42,6 +43,16 @@ export interface PhaseTextSeries {
   readonly gaps: readonly SampleGap[];
   /** Total number of missing samples. */
   readonly missing: number;
+  /**
+   * The first sample as an absolute instant, when `options.epoch` placed the file's own time origin;
+   * otherwise undefined (a text file has no calendar).
+   */
+  readonly epoch: Instant | undefined;
+  /**
+   * Each sample's time in seconds since the first sample (the series shape `{ epoch, t }`): from the time
+   * column (two columns) or k·τ0 (one column with τ0); undefined for one column without τ0. Computed on first use.
+   */
+  readonly t: Float64Array | undefined;
 }
 
 /** Options of {@link parsePhaseText}. */
@@ -53,6 +64,11 @@ export interface PhaseTextOptions {
    * step must be a whole multiple of it; default the smallest step in the file.
    */
   readonly tau0?: Seconds;
+  /**
+   * The instant at which the file's time column reads 0 s (one-column input: the instant of the first
+   * sample). Gives the series its absolute `epoch`; default none.
+   */
+  readonly epoch?: Instant;
 }
 
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
@@ -92,6 +108,7 @@ class PhaseTextBuilder {
   private readonly _lines = new GrowableColumn();
   constructor(options: PhaseTextOptions) {
     this._options = requireOptions('options', options);
+    if (options.epoch !== undefined) requireInstant('options.epoch', options.epoch);
     this._name = options.sourceName === undefined ? 'phase' : requireSourceName('options.sourceName', options.sourceName);
   }
 
@@ -147,12 +164,33 @@ class PhaseTextBuilder {
           gaps.push({ index: start, missing: i - start + 1, line: this._lines.get(start), time: undefined });
         }
       }
-      return { sourceName: this._name, columns, header: this._header, phase, times: undefined, tau0: this._options.tau0, gaps,
-        missing: gaps.reduce((s, g) => s + g.missing, 0) };
+      return withRelativeTimes({ sourceName: this._name, columns, header: this._header, phase, times: undefined, tau0: this._options.tau0, gaps,
+        missing: gaps.reduce((s, g) => s + g.missing, 0), epoch: this._options.epoch });
     }
     const reg = regularizeSeries(this._name, this._times.toArray(), this._values.toArray(), (i) => this._lines.get(i), this._options.tau0);
-    return { sourceName: this._name, columns, header: this._header, ...reg };
+    const first = reg.times[0] ?? 0;
+    return withRelativeTimes({ sourceName: this._name, columns, header: this._header, ...reg, epoch: this._options.epoch?.plus(first) });
   }
+}
+
+/** Adds `t` (seconds since the first sample) as a property computed on first use (it would double the memory held). */
+function withRelativeTimes(series: Omit<PhaseTextSeries, 't'>): PhaseTextSeries {
+  let t: Float64Array | undefined;
+  return Object.defineProperty(series, 't', {
+    enumerable: false,
+    get(): Float64Array | undefined {
+      if (t !== undefined) return t;
+      const { times, tau0, phase } = series;
+      if (times !== undefined) {
+        const first = times[0] ?? 0;
+        t = times.map((x) => x - first);
+      } else if (tau0 !== undefined) {
+        t = new Float64Array(phase.length);
+        for (let k = 0; k < t.length; k++) t[k] = k * tau0;
+      }
+      return t;
+    },
+  }) as PhaseTextSeries;
 }
 
 /**

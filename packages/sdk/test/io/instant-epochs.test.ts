@@ -5,7 +5,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import {
-  parseRinexClock, parseRinexNav, parseSp3, readRinexClockSeries, rinexClockSeries, scaleSecondsFromFields,
+  parsePhaseText, parseRinexClock, parseRinexNav, parseSp3, readRinexClockSeries, rinexClockSeries, scaleSecondsFromFields,
 } from '../../src/io/index.js';
 import { ParseError } from '../../src/errors.js';
 import { BUNDLED_LEAP_SECONDS, createTimeScales, formatFileEpoch } from '../../src/time/index.js';
@@ -67,5 +67,18 @@ describe('SP3 epochs and RINEX navigation t_oc / t_oe carry exact Instants', () 
       expect(e.tocInstant.taiSeconds + e.tocInstant.taiFraction).toBe(e.tocSeconds - since1980 + offset);
       expect(e.toeInstant.taiSeconds + e.toeInstant.taiFraction).toBe(e.toeSeconds - since1980 + offset);
     }
+  });
+});
+
+describe('phase text: the series shape { epoch, t } when the caller places the file\'s time origin', () => {
+  it('parsePhaseText(two columns, { epoch }) gives the first sample\'s Instant (origin + first time) and t in seconds since it, gaps included', () => {
+    const origin = createTimeScales(BUNDLED_LEAP_SECONDS).parseIso('2026-03-01T00:00:00', 'GPS');
+    const s = parsePhaseText('100 1e-9\n130 2e-9\n190 4e-9\n', { sourceName: 'p.txt', epoch: origin });
+    expect(s.epoch!.secondsSince(origin)).toBe(100);
+    expect(Array.from(s.t!)).toEqual([0, 30, 60, 90]);
+    expect(s.missing).toBe(1);
+    const one = parsePhaseText('1e-9\n2e-9\n', { tau0: 0.5 });
+    expect([one.epoch, Array.from(one.t!)]).toEqual([undefined, [0, 0.5]]);
+    expect(parsePhaseText('1e-9\n2e-9\n').t).toBeUndefined();
   });
 });
