@@ -9,7 +9,7 @@ import {
   DEFAULT_LAGRANGE_POINTS, PreciseCorrectionStream, type PreciseCorrectionResult, type PreciseCorrectionSample,
 } from '@tauline/sdk/relativity';
 import {
-  BUNDLED_LEAP_SECONDS, createTimeScales, formatFileEpoch, scaleSecondsFromInstant, type TimeScales,
+  BUNDLED_LEAP_SECONDS, createTimeScales, formatFileEpoch, scaleSecondsFromInstant, type Instant, type TimeScales,
 } from '@tauline/sdk/time';
 import {
   EXIT_OK, TABLE_JSON_CSV, UsageError, formatFlags, numberFlag, toJson, type Command, type Io, type ParsedArgs,
@@ -165,18 +165,28 @@ async function collectCorrections(request: PreciseRequest, header: Sp3Header, ev
     if (!e) bySat.set(id, (e = { samples: [], gaps: [] }));
     return e;
   };
+  // Results of one epoch come together: its text is formatted once.
+  let lastEpoch: Instant | undefined;
+  let lastText = '';
+  const epochText = (epoch: Instant): string => {
+    if (lastEpoch === undefined || !epoch.equals(lastEpoch)) {
+      lastText = formatFileEpoch(ts, epoch, header.timeSystem);
+      lastEpoch = epoch;
+    }
+    return lastText;
+  };
   if (csvOut) io.out(`id,t,relativisticSeconds,velocitySource${nav ? ',broadcastRelativisticSeconds,differenceSeconds' : ''}\n`);
   const handle = (results: PreciseCorrectionResult[]) => {
     let csv = '';
     for (const r of results) {
       if (r.kind === 'gap') {
-        const g = { t: formatFileEpoch(ts, r.gap.epoch, header.timeSystem), reason: r.gap.reason };
+        const g = { t: epochText(r.gap.epoch), reason: r.gap.reason };
         if (csvOut) csv += `${r.gap.satellite},${g.t},,gap: ${g.reason.replace(/,/g, ';')}${nav ? ',,' : ''}\n`;
         else entry(r.gap.satellite).gaps.push(g);
         continue;
       }
       const s = r.sample;
-      const o: PreciseOut = { t: formatFileEpoch(ts, s.epoch, header.timeSystem), relativisticSeconds: s.relativisticSeconds, velocitySource: s.velocitySource };
+      const o: PreciseOut = { t: epochText(s.epoch), relativisticSeconds: s.relativisticSeconds, velocitySource: s.velocitySource };
       if (nav) {
         const broadcast = broadcastAt(nav, s);
         o.broadcastRelativisticSeconds = broadcast;

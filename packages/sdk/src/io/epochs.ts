@@ -33,6 +33,35 @@ export function isReadableTimeSystem(code: string): boolean {
 export const READABLE_TIME_SYSTEMS = FILE_TIME_SYSTEM_CODES.join(', ');
 
 /**
+ * Places one file's epochs: {@link fileEpochInstant} with a one-entry memory, since consecutive records
+ * usually share their epoch (a RINEX clock file lists every clock at each epoch).
+ */
+export class EpochPlacer {
+  private readonly _ts: TimeScales;
+  private readonly _code: string;
+  private _last: EpochFields | undefined;
+  private _lastInstant: Instant | undefined;
+
+  constructor(ts: TimeScales, code: string) {
+    this._ts = ts;
+    this._code = code;
+  }
+
+  /** The instant of `fields` (see {@link fileEpochInstant}). @throws {ParseError} at `where`. */
+  place(fields: EpochFields, where: { readonly source: string; readonly line: number; readonly column: number; readonly text: string }): Instant {
+    const last = this._last;
+    if (last !== undefined && this._lastInstant !== undefined && last.second === fields.second && last.minute === fields.minute
+      && last.hour === fields.hour && last.day === fields.day && last.month === fields.month && last.year === fields.year) {
+      return this._lastInstant;
+    }
+    const instant = fileEpochInstant(this._ts, fields, this._code, where);
+    this._last = fields;
+    this._lastInstant = instant;
+    return instant;
+  }
+}
+
+/**
  * The instant of an epoch as written (fields already checked to be a calendar date and time).
  * @throws {ParseError} at `line`/`column` when the epoch cannot be placed (a UTC date the
  *   leap-second table does not cover, 23:59:60 outside a leap second).

@@ -36,7 +36,7 @@ import {
 import { requireOptions, requireSourceName } from '../internal/validate.js';
 import type { Instant } from '../time/instant.js';
 import type { TimeScales } from '../time/scales.js';
-import { fileEpochInstant, isReadableTimeSystem, READABLE_TIME_SYSTEMS, readerTimeScales } from './epochs.js';
+import { EpochPlacer, isReadableTimeSystem, READABLE_TIME_SYSTEMS, readerTimeScales } from './epochs.js';
 
 /** Header fields the reader interprets. */
 export interface RinexClockHeader {
@@ -165,6 +165,8 @@ export class RinexClockParser {
   private _lastLine = 0;
   private _pending: Pending | undefined;
   private readonly _ts: TimeScales;
+  /** Places the records' epochs on the header's time system (built at the first record). */
+  private _placer: EpochPlacer | undefined;
 
   constructor(options: RinexClockReadOptions = {}) {
     requireOptions('options', options);
@@ -285,8 +287,8 @@ export class RinexClockParser {
     if (!plainEpoch(time) && !validEpochFields(time)) {
       throw this._error(line.lineNumber, s + 1, `a valid epoch "yyyy mm dd hh mm ss.ssssss" in columns ${s + 1}-${s + 26}`, t.slice(s, s + 26));
     }
-    const epoch = fileEpochInstant(this._ts, time, this._timeSystem ?? 'GPS',
-      { source: this._source, line: line.lineNumber, column: s + 1, text: t.slice(s, s + 26) });
+    this._placer ??= new EpochPlacer(this._ts, this._timeSystem ?? 'GPS');
+    const epoch = this._placer.place(time, { source: this._source, line: line.lineNumber, column: s + 1, text: t.slice(s, s + 26) });
     const count = this._int(line, s + 26, s + 29, 'number of data values');
     if (count < 1 || count > 6) throw this._error(line.lineNumber, s + 27, `a number of data values from 1 to 6 in columns ${s + 27}-${s + 29}`, String(count));
     const onLine = Math.min(2, count);

@@ -14,6 +14,7 @@ import { requireOptions } from '../internal/validate.js';
 import { civilFromDays, daysFromCivil, daysInMonth, pad2 } from './calendar.js';
 import { Instant, INSTANT_EPOCH_MJD, instantFromParts, requireInstant } from './instant.js';
 import type { TimeScales } from './scales.js';
+import { floorDivMod } from './split.js';
 import { uniformMinusTai, type TimeScale, type UniformScale } from './uniform.js';
 
 /** Calendar fields of an epoch as written in a file (the `second` may carry a fraction). */
@@ -156,10 +157,42 @@ export function formatFileEpoch(ts: TimeScales, instant: Instant, code: string, 
   if (digits !== undefined && !(Number.isInteger(digits) && digits >= 0 && digits <= 9)) {
     throw new InvalidArgumentError('options.fractionDigits', digits, 'an integer number of digits in [0, 9]');
   }
+  if (scale.scale !== 'UTC') {
+    const fast = formatUniform(instant, scale.scale as UniformScale, digits);
+    if (fast !== undefined) return fast;
+  }
   let text = ts.formatIso(instant, { scale: scale.scale, fractionDigits: digits ?? 9 });
   if (text.endsWith('Z')) text = text.slice(0, -1);
   if (digits === undefined) text = text.replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
   return scale.hoursAhead === 0 ? text : shiftHours(text, scale.hoursAhead);
+}
+
+/**
+ * The reading of a uniform scale as text, by integer arithmetic (no leap seconds to handle): the fraction
+ * rounded half-up to `digits` (default: up to 9, trailing zeros dropped), carrying into the seconds.
+ * Undefined outside the years 1..9999 (the caller then lets `formatIso` report it).
+ */
+function formatUniform(instant: Instant, scale: UniformScale, digits: number | undefined): string | undefined {
+  const unit = 10 ** (digits ?? 9);
+  let reading = instant.taiSeconds + uniformMinusTai(scale);
+  let units = Math.floor(instant.taiFraction * unit + 0.5);
+  if (units >= unit) {
+    units -= unit;
+    reading += 1;
+  }
+  const [days, secondOfDay] = floorDivMod(reading, 86_400);
+  const date = civilFromDays(days + INSTANT_EPOCH_MJD - UNIX_EPOCH_MJD);
+  if (date.year < 1 || date.year > 9999) return undefined;
+  const hour = Math.floor(secondOfDay / 3600);
+  const minute = Math.floor((secondOfDay - hour * 3600) / 60);
+  const second = secondOfDay - hour * 3600 - minute * 60;
+  let fraction = '';
+  if (digits === undefined) {
+    if (units !== 0) fraction = `.${String(units).padStart(9, '0').replace(/0+$/, '')}`;
+  } else if (digits > 0) {
+    fraction = `.${String(units).padStart(digits, '0')}`;
+  }
+  return `${String(date.year).padStart(4, '0')}-${pad2(date.month)}-${pad2(date.day)}T${pad2(hour)}:${pad2(minute)}:${pad2(second)}${fraction}`;
 }
 
 /** Calendar text `YYYY-MM-DDThh:…` moved forward by whole hours (the rest of the text kept as is). */

@@ -72,6 +72,21 @@ describe('instantFromFileEpoch: calendar fields on a file time system, exact', (
   });
 });
 
+describe('formatFileEpoch on uniform scales (integer arithmetic) agrees with TimeScales.formatIso', () => {
+  it('formatFileEpoch(2000 seeded instants over years 1..9999, GPS/GAL/BDT/TAI) equals formatIso of the same scale, 9 and 3 digits', () => {
+    let state = 20261203;
+    const next = () => (state = (state * 1103515245 + 12345) % 2147483648) / 2147483648;
+    const scaleOf: Record<string, 'GPS' | 'GST' | 'BDT' | 'TAI'> = { GPS: 'GPS', GAL: 'GST', BDT: 'BDT', TAI: 'TAI' };
+    for (let k = 0; k < 2000; k++) {
+      const instant = Instant.fromTaiParts(Math.floor((next() - 0.5) * 6.2e10), next());
+      const code = ['GPS', 'GAL', 'BDT', 'TAI'][k % 4]!;
+      const scale = scaleOf[code]!;
+      expect(formatFileEpoch(ts, instant, code, { fractionDigits: 9 })).toBe(ts.formatIso(instant, { scale, fractionDigits: 9 }));
+      expect(formatFileEpoch(ts, instant, code, { fractionDigits: 3 })).toBe(ts.formatIso(instant, { scale, fractionDigits: 3 }));
+    }
+  });
+});
+
 describe('scaleSecondsFromInstant / instantFromScaleSeconds: the broadcast algorithms\' count since 1980-01-06', () => {
   it('scaleSecondsFromInstant(start of GPS week 2296) is 2296 × 604800 s, and BDT reads 14 s less (BDT = GPST − 14 s)', () => {
     const weekStart = instantFromFileEpoch(ts, { year: 2024, month: 1, day: 7, hour: 0, minute: 0, second: 0 }, 'GPS');
