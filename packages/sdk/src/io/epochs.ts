@@ -32,6 +32,15 @@ export function isReadableTimeSystem(code: string): boolean {
 /** The readable time-system codes, for messages. */
 export const READABLE_TIME_SYSTEMS = FILE_TIME_SYSTEM_CODES.join(', ');
 
+/** Where an epoch is written, for the ParseError when it cannot be placed. */
+export interface EpochLocation {
+  readonly source: string;
+  readonly line: number;
+  readonly column: number;
+  /** The epoch's text as written. */
+  readonly text: string;
+}
+
 /**
  * Places one file's epochs: {@link fileEpochInstant} with a one-entry memory, since consecutive records
  * usually share their epoch (a RINEX clock file lists every clock at each epoch).
@@ -48,10 +57,11 @@ export class EpochPlacer {
   }
 
   /** The instant of `fields` (see {@link fileEpochInstant}). @throws {ParseError} at `where`. */
-  place(fields: EpochFields, where: { readonly source: string; readonly line: number; readonly column: number; readonly text: string }): Instant {
+  place(fields: EpochFields, where: EpochLocation): Instant {
     const last = this._last;
-    if (last !== undefined && this._lastInstant !== undefined && last.second === fields.second && last.minute === fields.minute
-      && last.hour === fields.hour && last.day === fields.day && last.month === fields.month && last.year === fields.year) {
+    if (last !== undefined && this._lastInstant !== undefined && last.second === fields.second
+      && last.minute === fields.minute && last.hour === fields.hour && last.day === fields.day
+      && last.month === fields.month && last.year === fields.year) {
       return this._lastInstant;
     }
     const instant = fileEpochInstant(this._ts, fields, this._code, where);
@@ -66,8 +76,7 @@ export class EpochPlacer {
  * @throws {ParseError} at `line`/`column` when the epoch cannot be placed (a UTC date the
  *   leap-second table does not cover, 23:59:60 outside a leap second).
  */
-export function fileEpochInstant(ts: TimeScales, fields: EpochFields, code: string,
-  where: { readonly source: string; readonly line: number; readonly column: number; readonly text: string }): Instant {
+export function fileEpochInstant(ts: TimeScales, fields: EpochFields, code: string, where: EpochLocation): Instant {
   try {
     return instantFromFileEpoch(ts, fields, code);
   } catch (error) {

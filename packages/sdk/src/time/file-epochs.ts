@@ -62,7 +62,9 @@ export const FILE_TIME_SYSTEM_CODES: readonly string[] = Object.freeze(Object.ke
  * @param code Three-letter code as written in a RINEX/SP3 header, e.g. `GPS`, `GAL`, `GLO`.
  */
 export function fileTimeScale(code: string): FileTimeScale | undefined {
-  if (typeof code !== 'string') throw new InvalidArgumentError('code', code, 'a three-letter time-system code such as "GPS"');
+  if (typeof code !== 'string') {
+    throw new InvalidArgumentError('code', code, 'a three-letter time-system code such as "GPS"');
+  }
   return Object.prototype.hasOwnProperty.call(FILE_TIME_SCALES, code) ? FILE_TIME_SCALES[code] : undefined;
 }
 
@@ -72,10 +74,16 @@ export function fileTimeScale(code: string): FileTimeScale | undefined {
  */
 export function requireTimeScales(argument: string, ts: unknown): TimeScales {
   const t = ts as Partial<TimeScales> | null;
-  if (typeof t !== 'object' || t === null || typeof t.fromCalendar !== 'function' || typeof t.formatIso !== 'function') {
+  if (typeof t !== 'object' || t === null || typeof t.fromCalendar !== 'function'
+    || typeof t.formatIso !== 'function') {
     throw new InvalidArgumentError(argument, ts, 'time scales from createTimeScales(table)');
   }
   return t as TimeScales;
+}
+
+function unknownCode(code: unknown): InvalidArgumentError {
+  const known = FILE_TIME_SYSTEM_CODES.join(', ');
+  return new InvalidArgumentError('code', code, `a time-system code the SDK reads: ${known}`);
 }
 
 /** MJD of 1970-01-01, the origin of the `daysFromCivil` count (MJD = JD − 2400000.5, by definition). */
@@ -89,7 +97,8 @@ function requireFields(fields: unknown): FileEpochFields {
     && Math.abs(f.year) <= 9999;
   if (!ok) {
     throw new InvalidArgumentError('fields', fields,
-      'calendar fields { year, month, day, hour, minute, second } of a real date and time (|year| ≤ 9999, second in [0, 61))');
+      'calendar fields { year, month, day, hour, minute, second } of a real date and time '
+      + '(|year| ≤ 9999, second in [0, 61))');
   }
   return f as FileEpochFields;
 }
@@ -112,7 +121,7 @@ function requireFields(fields: unknown): FileEpochFields {
 export function instantFromFileEpoch(ts: TimeScales, fields: FileEpochFields, code: string): Instant {
   requireTimeScales('ts', ts);
   const scale = fileTimeScale(code);
-  if (!scale) throw new InvalidArgumentError('code', code, `a time-system code the SDK reads: ${FILE_TIME_SYSTEM_CODES.join(', ')}`);
+  if (!scale) throw unknownCode(code);
   const f = requireFields(fields);
   const whole = Math.floor(f.second);
   const fraction = f.second - whole; // exact: both below 61
@@ -129,7 +138,8 @@ export function instantFromFileEpoch(ts: TimeScales, fields: FileEpochFields, co
     day -= 1;
   }
   const date = civilFromDays(day - UNIX_EPOCH_MJD);
-  const instant = ts.fromCalendar({ year: date.year, month: date.month, day: date.day, hour, minute: f.minute, second: whole }, 'UTC');
+  const utc = { year: date.year, month: date.month, day: date.day, hour, minute: f.minute, second: whole };
+  const instant = ts.fromCalendar(utc, 'UTC');
   return fraction === 0 ? instant : instant.plus(fraction);
 }
 
@@ -145,14 +155,16 @@ export interface FormatFileEpochOptions {
 /**
  * ISO 8601 text (no zone designator) of an instant read on a file's time system, e.g.
  * `2024-01-07T00:15:00` or `2024-01-07T00:15:00.0000001`. Inverse of {@link instantFromFileEpoch}.
- * @throws {InvalidArgumentError} for an unknown code or bad options; {@link OutOfDomainError} for UTC/GLO outside the table.
+ * @throws {InvalidArgumentError} for an unknown code or bad options;
+ *   {@link OutOfDomainError} for UTC/GLO outside the table.
  */
-export function formatFileEpoch(ts: TimeScales, instant: Instant, code: string, options: FormatFileEpochOptions = {}): string {
+export function formatFileEpoch(ts: TimeScales, instant: Instant, code: string,
+  options: FormatFileEpochOptions = {}): string {
   requireTimeScales('ts', ts);
   requireInstant('instant', instant);
   requireOptions('options', options);
   const scale = fileTimeScale(code);
-  if (!scale) throw new InvalidArgumentError('code', code, `a time-system code the SDK reads: ${FILE_TIME_SYSTEM_CODES.join(', ')}`);
+  if (!scale) throw unknownCode(code);
   const digits = options.fractionDigits;
   if (digits !== undefined && !(Number.isInteger(digits) && digits >= 0 && digits <= 9)) {
     throw new InvalidArgumentError('options.fractionDigits', digits, 'an integer number of digits in [0, 9]');
@@ -192,7 +204,8 @@ function formatUniform(instant: Instant, scale: UniformScale, digits: number | u
   } else if (digits > 0) {
     fraction = `.${String(units).padStart(digits, '0')}`;
   }
-  return `${String(date.year).padStart(4, '0')}-${pad2(date.month)}-${pad2(date.day)}T${pad2(hour)}:${pad2(minute)}:${pad2(second)}${fraction}`;
+  const day = `${String(date.year).padStart(4, '0')}-${pad2(date.month)}-${pad2(date.day)}`;
+  return `${day}T${pad2(hour)}:${pad2(minute)}:${pad2(second)}${fraction}`;
 }
 
 /** Calendar text `YYYY-MM-DDThh:…` moved forward by whole hours (the rest of the text kept as is). */
@@ -217,7 +230,9 @@ const SECONDS_1980_TO_2000 = (INSTANT_EPOCH_MJD - 44_244) * 86_400;
 export type OrbitScale = 'GPS' | 'GST' | 'BDT';
 
 function requireOrbitScale(scale: unknown): OrbitScale {
-  if (scale !== 'GPS' && scale !== 'GST' && scale !== 'BDT') throw new InvalidArgumentError('scale', scale, "one of 'GPS', 'GST', 'BDT'");
+  if (scale !== 'GPS' && scale !== 'GST' && scale !== 'BDT') {
+    throw new InvalidArgumentError('scale', scale, "one of 'GPS', 'GST', 'BDT'");
+  }
   return scale;
 }
 
