@@ -12,6 +12,7 @@ import { signalClockCorrection } from '../../packages/sdk/src/orbit/signal-clock
 import { parseRinexNav } from '../../packages/sdk/src/io/rinex-nav.js';
 import { parseSp3 } from '../../packages/sdk/src/io/sp3.js';
 import { PreciseCorrectionStream, type PreciseCorrectionResult } from '../../packages/sdk/src/relativity/precise.js';
+import { scaleSecondsFromInstant } from '../../packages/sdk/src/time/file-epochs.js';
 
 const NANOSECOND = 1e-9;
 const WEEK_2296 = 2296 * 604800;
@@ -91,8 +92,10 @@ describe('Independent implementation: test/fixtures/sp3/generate.py evaluates th
         if (!rec.position || !rec.velocity) continue;
         const eph = pick(rec.satellite);
         // GPST → BDT: BDT = GPST − 14 s (BDS-SIS-ICD §3.3 [M]; physics-refs §8 offsets TAI − 19 s / TAI − 33 s).
-        const t = epoch.scaleSeconds - (eph.system === 'C' ? 14 : 0);
+        const t = scaleSecondsFromInstant(epoch.epoch, 'GPS') - (eph.system === 'C' ? 14 : 0);
         const st = evaluateBroadcastEphemeris(eph, t).state;
+        // The SP3 epoch's Instant, given as such, is read on the record's own scale by the SDK: the same time.
+        expect(evaluateBroadcastEphemeris(eph, epoch.epoch).state).toEqual(st);
         worstPosition = Math.max(worstPosition, Math.hypot(...st.position.map((p, k) => p - rec.position![k]!)));
         worstVelocity = Math.max(worstVelocity, Math.hypot(...st.velocity.map((v, k) => v - rec.velocity![k]!)));
         compared++;
@@ -115,7 +118,7 @@ describe('Independent implementation: test/fixtures/sp3/generate.py evaluates th
     for (const r of results) {
       if (r.kind !== 'sample') continue;
       const eph = pick(r.sample.satellite);
-      const t = r.sample.scaleSeconds - (eph.system === 'C' ? 14 : 0);
+      const t = scaleSecondsFromInstant(r.sample.epoch, 'GPS') - (eph.system === 'C' ? 14 : 0);
       worst = Math.max(worst, Math.abs(r.sample.relativisticSeconds - evaluateBroadcastEphemeris(eph, t).relativisticSeconds));
       n++;
     }

@@ -3,7 +3,7 @@
  * (`broadcast`, `precise --nav`): streamed, bounded by a window, with a byte progress bar on a terminal.
  */
 import { statSync } from 'node:fs';
-import type { KeplerianSystem } from '@tauline/sdk/orbit';
+import { SYSTEM_TIME_SCALE, type KeplerianSystem } from '@tauline/sdk/orbit';
 import { readRinexNav, type RinexNavEphemeris } from '@tauline/sdk/io';
 import type { TimeScale } from '@tauline/sdk/time';
 import { UsageError, progressBar, type Io } from './framework.js';
@@ -44,8 +44,8 @@ export function totalSize(paths: readonly string[]): number {
 
 /** Name of each system's own time scale as printed. */
 export const SYSTEM_SCALE_LABEL: Record<KeplerianSystem, string> = { G: 'GPST', E: 'GST', C: 'BDT' };
-/** The SDK time-scale id of each system's scale. */
-export const SYSTEM_SCALE: Record<KeplerianSystem, TimeScale> = { G: 'GPS', E: 'GST', C: 'BDT' };
+/** The SDK time-scale id of each system's scale (the SDK's own table). */
+export const SYSTEM_SCALE: Readonly<Record<KeplerianSystem, TimeScale>> = SYSTEM_TIME_SCALE;
 
 /** Whether the SDK models a system's broadcast orbit and clock (GPS, Galileo, BeiDou), by its RINEX letter. */
 export function isModelledSystem(system: string): system is KeplerianSystem {

@@ -4,32 +4,38 @@
  */
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import {
-  BROADCAST_SIGNALS, evaluateBroadcastEphemeris, selectEphemeris, signalClockCorrection, signalClockSource, signalsOf, type BroadcastSignal,
-  type KeplerianBroadcastEphemeris, type KeplerianSystem,
+  BROADCAST_SIGNALS, evaluateBroadcastEphemeris, selectEphemeris, signalClockCorrection, signalClockSource, signalsOf, SYSTEM_TIME_SCALE,
+  type BroadcastSignal, type KeplerianSystem,
 } from '@tauline/sdk/orbit';
+import { readRinexNav, type RinexNavEphemeris } from '@tauline/sdk/io';
 import {
-  fieldsFromScaleSeconds, formatEpochFields, scaleSecondsFromFields, type RinexNavEphemeris,
-} from '@tauline/sdk/io';
-import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant, type TimeScales } from '@tauline/sdk/time';
+  BUNDLED_LEAP_SECONDS, createTimeScales, formatFileEpoch, instantFromScaleSeconds, scaleSecondsFromInstant, type Instant, type TimeScale,
+  type TimeScales,
+} from '@tauline/sdk/time';
 import {
-  EXIT_FINDING, EXIT_OK, FLIGHT_CAUTION, TABLE_JSON_CSV, UsageError, formatFlags, numberFlag, optionalFlag, requireFlag,
-  toJson, type Command, type ParsedArgs,
+  EXIT_FINDING, EXIT_OK, FLIGHT_CAUTION, TABLE_JSON_CSV, UsageError, formatFlag, formatFlags, numberFlag, optionalFlag, progressBar, requireFlag,
+  toJson, type Command, type Io, type ParsedArgs,
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { NAV_FILE_UNITS, navHeaderLines, noRecordReason } from '../nav-summary.js';
 import { outputFormat, satelliteFlag } from '../flags.js';
-import { SYSTEM_SCALE, SYSTEM_SCALE_LABEL, isModelledSystem, loadNavigation } from '../navigation.js';
+import { SYSTEM_SCALE, SYSTEM_SCALE_LABEL, isModelledSystem, loadNavigation, type LoadedNavigation } from '../navigation.js';
 
 /** Samples per run above which the request is refused (keeps memory bounded). */
 const MAX_SAMPLES = 5_000_000;
 
-/** Parses ISO 8601 text for `--from`/`--to`: on UTC (designator required) or as a reading of each system's scale (none allowed). */
+/** The file time-system code of each system's scale, for printing readings (GST is `GAL` in RINEX). */
+const SYSTEM_FILE_CODE: Record<KeplerianSystem, string> = { G: 'GPS', E: 'GAL', C: 'BDT' };
+
+/**
+ * Parses ISO 8601 text for `--from`/`--to`: an instant on UTC (designator required), or a reading of each
+ * system's own scale (none allowed), kept as the scale-seconds count that every system's scale reads alike.
+ */
 function parseTimeFlag(ts: TimeScales, flag: string, text: string, utc: boolean): Instant | number {
   try {
     if (utc) return ts.parseIso(text, 'UTC');
-    // A reading of a GNSS scale: validate with the GPS scale (same calendar rules), keep the calendar count.
-    const instant = ts.parseIso(text, 'GPS');
-    return scaleSecondsFromFields(ts.toCalendar(instant, 'GPS'));
+    // A reading of a GNSS scale: validated and counted on the GPS scale (same calendar rules, no leap seconds).
+    return scaleSecondsFromInstant(ts.parseIso(text, 'GPS'), 'GPS');
   } catch (error) {
     if (error instanceof InvalidArgumentError) {
       throw new InvalidArgumentError(`--${flag}`, text, utc
@@ -119,150 +125,25 @@ is an error naming the file, line and field.
 Exit status: 0 success (also when some samples have no record), 1 no sample at all has a valid record (the output
 is still printed, every value null), 2 invalid input or a malformed file.`,
   async run(args, io) {
-    const files = args.positionals;
-    if (files.length === 0) throw new UsageError('a RINEX navigation file is required (tauline broadcast <rinex-nav-file> ...)');
-    const format = outputFormat(args);
-    const step = numberFlag(args, 'step', true);
-    if (!(step > 0)) throw new InvalidArgumentError('--step', step, 'a positive number of seconds');
-    const scaleText = (optionalFlag(args, 'time-scale') ?? 'system').toLowerCase();
-    if (scaleText !== 'system' && scaleText !== 'utc') throw new InvalidArgumentError('--time-scale', scaleText, "'system' or 'utc'");
-    const utc = scaleText === 'utc';
-    const galileoText = (optionalFlag(args, 'galileo') ?? 'inav').toLowerCase();
-    if (galileoText !== 'inav' && galileoText !== 'fnav') throw new InvalidArgumentError('--galileo', galileoText, "'inav' or 'fnav'");
-    const galileoMessage = galileoText === 'inav' ? 'INAV' : 'FNAV';
-    const includeUnhealthy = Boolean(args.values['include-unhealthy']);
-    const filter = satelliteFlag(args);
-    const signal = signalFlag(args);
+    const request = broadcastRequest(args);
     const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
-    const fromValue = parseTimeFlag(ts, 'from', requireFlag(args, 'from'), utc);
-    const toValue = parseTimeFlag(ts, 'to', requireFlag(args, 'to'), utc);
-
-    // Sample times: per system scale seconds, and the printed label.
-    const span = typeof fromValue === 'number' ? (toValue as number) - fromValue : (toValue as Instant).secondsSince(fromValue);
-    if (!(span >= 0)) throw new InvalidArgumentError('--to', requireFlag(args, 'to'), 'a time not before --from');
-    const count = Math.floor(span / step + 1e-9) + 1;
-    const fractional = !Number.isInteger(step);
-    const toScaleSeconds = (k: number, system: KeplerianSystem): number => {
-      if (typeof fromValue === 'number') return fromValue + k * step;
-      return scaleSecondsFromFields(ts.toCalendar(fromValue.plus(k * step), SYSTEM_SCALE[system]));
-    };
-    const label = (k: number): string => {
-      if (typeof fromValue === 'number') return formatEpochFields(fieldsFromScaleSeconds(fromValue + k * step));
-      return ts.formatIso(fromValue.plus(k * step), { fractionDigits: fractional ? 6 : 0 });
-    };
-    const windowOf = (system: KeplerianSystem) => ({ from: toScaleSeconds(0, system), to: toScaleSeconds(count - 1, system) });
-
-    const nav = await loadNavigation(files, io, windowOf, filter);
-    const satellites = [...new Set([...(filter ?? []), ...nav.records.keys()])].sort();
-    if (satellites.length * count > MAX_SAMPLES) {
-      throw new InvalidArgumentError('--step', step, `a step giving at most ${MAX_SAMPLES} samples in all (${satellites.length} satellites × ${count} epochs requested)`);
+    const grid = sampleGrid(ts, args, request);
+    const nav = await loadNavigation(request.files, io, grid.window, request.filter);
+    const satellites = [...new Set([...(request.filter ?? []), ...nav.records.keys()])].sort();
+    if (satellites.length * grid.count > MAX_SAMPLES) {
+      throw new InvalidArgumentError('--step', request.step,
+        `a step giving at most ${MAX_SAMPLES} samples in all (${satellites.length} satellites × ${grid.count} epochs requested)`);
     }
-    const notes = new Set<string>();
-    const out: { id: string; timeScale: string; samples: SampleOut[] }[] = [];
-    let samplesWithoutRecord = 0;
-    for (const id of satellites) {
-      const system = id.charAt(0);
-      const modelled = isModelledSystem(system);
-      if (!modelled) notes.add(`${id}: system not modelled (GPS, Galileo and BeiDou only)`);
-      const records = nav.records.get(id) ?? [];
-      const samples: SampleOut[] = [];
-      for (let k = 0; k < count; k++) {
-        // An unmodelled system has no scale of its own to read the sample time on (and no record to use).
-        const t = modelled ? toScaleSeconds(k, system) : Number.NaN;
-        const eph: KeplerianBroadcastEphemeris | undefined = modelled ? selectEphemeris(records, t, { includeUnhealthy, galileoMessage }) : undefined;
-        if (!eph) {
-          samplesWithoutRecord++;
-          samples.push({
-            t: label(k), relativisticSeconds: null, clockCorrectionSeconds: null,
-            ...(modelled ? noRecordReason(records, t, includeUnhealthy, SYSTEM_SCALE_LABEL[system], nav.outsideWindowBySatellite.get(id) ?? 0)
-              : { reason: 'no record of this satellite in the files', short: 'no record in the files' }),
-          });
-          continue;
-        }
-        const rec = eph as RinexNavEphemeris;
-        for (const n of rec.notes ?? []) notes.add(`${rec.sourceName}:${rec.line}: ${id}: ${n}`);
-        const ev = evaluateBroadcastEphemeris(eph, t);
-        samples.push({
-          t: label(k), relativisticSeconds: ev.relativisticSeconds, clockCorrectionSeconds: ev.clockCorrectionSeconds,
-          ...(signal ? signalFields(rec, ev.clockCorrectionSeconds, signal, notes) : {}),
-          toe: formatEpochFields(fieldsFromScaleSeconds(eph.toeSeconds)), issueOfData: eph.issueOfData, message: eph.message,
-        });
-      }
-      if (signal) {
-        // Samples without a record carry the signal fields too (null), so every sample has the same keys.
-        for (const x of samples) {
-          if (x.clockCorrectionSignalSeconds === undefined) Object.assign(x, { clockCorrectionSignalSeconds: null, groupDelaySeconds: null, groupDelayField: null });
-        }
-      }
-      out.push({ id, timeScale: utc ? 'UTC' : modelled ? SYSTEM_SCALE_LABEL[system] : 'unknown', samples });
-    }
-    const skipped = [...nav.skipped].map(([reason, n]) => ({ reason, count: n }));
+    const result = evaluateSatellites(ts, request, grid, nav, satellites);
     // Nothing usable at all (no satellite has a record covering any sample) is a finding, not a success.
-    const status = samplesWithoutRecord === satellites.length * count ? EXIT_FINDING : EXIT_OK;
+    const status = result.samplesWithoutRecord === satellites.length * grid.count ? EXIT_FINDING : EXIT_OK;
     if (status === EXIT_FINDING) {
-      io.err(`tauline broadcast: no sample has a valid record: no ${filter ? `record of ${[...filter].join(', ')}` : 'GPS, Galileo or BeiDou record'} covers the requested window in these files\n`);
+      const which = request.filter ? `record of ${[...request.filter].join(', ')}` : 'GPS, Galileo or BeiDou record';
+      io.err(`tauline broadcast: no sample has a valid record: no ${which} covers the requested window in these files\n`);
     }
-
-    if (format === 'json') {
-      io.out(toJson({
-        timeScale: utc ? 'UTC' : 'system',
-        step,
-        selection: 'nearest t_oe among healthy records whose fit interval covers t (ties: t_oe ≤ t, latest transmission, highest issue of data)',
-        galileoMessage,
-        files: nav.files,
-        ...(signal ? { signal, signalSource: signalClockSource(signal) } : {}),
-        satellites: out.map((s) => ({ ...s, samples: s.samples.map(({ short: _short, ...x }) => x) })),
-        samplesWithoutRecord,
-        recordsOutsideWindow: nav.outsideWindow,
-        skipped,
-        notes: [...notes],
-        units: {
-          step: 's', t: 'ISO 8601 in timeScale', relativisticSeconds: 's', clockCorrectionSeconds: 's', toe: 'ISO 8601 in the system scale',
-          ...(signal ? { clockCorrectionSignalSeconds: 's', groupDelaySeconds: 's' } : {}),
-          files: NAV_FILE_UNITS,
-        },
-        caution: FLIGHT_CAUTION,
-      }));
-      return status;
-    }
-    if (format === 'csv') {
-      io.out(`id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message${signal ? ',clockCorrectionSignalSeconds,groupDelaySeconds,groupDelayField' : ''}\n`);
-      for (const s of out) {
-        for (const x of s.samples) {
-          io.out(`${s.id},${x.t},${x.relativisticSeconds ?? ''},${x.clockCorrectionSeconds ?? ''},${x.toe ?? ''},${x.issueOfData ?? ''},${x.message ?? ''}` +
-            (signal ? `,${x.clockCorrectionSignalSeconds ?? ''},${x.groupDelaySeconds ?? ''},${x.groupDelayField ?? ''}` : '') + '\n');
-        }
-      }
-      io.err(`${FLIGHT_CAUTION}\n`);
-      return status;
-    }
-    const width = outputWidth(args);
-    io.out(wrapLines(`Broadcast relativistic and clock corrections (${utc ? 'times in UTC' : 'times in each system\'s own scale: GPST, GST, BDT'})\n\n`, width));
-    const rows: (string | number)[][] = [];
-    // Fitted to the width, a sample without a record shows "—" for t_oe and its reason on a line of its own.
-    const rowNotes: (string | undefined)[] = [];
-    for (const s of out) {
-      for (const x of s.samples) {
-        rowNotes.push(width === undefined ? undefined : x.reason);
-        const row: (string | number)[] = [s.id, x.t, x.relativisticSeconds === null ? '—' : (x.relativisticSeconds * 1e9).toFixed(4),
-          x.clockCorrectionSeconds === null ? '—' : x.clockCorrectionSeconds.toExponential(12)];
-        if (signal) {
-          row.push(x.clockCorrectionSignalSeconds == null ? '—' : x.clockCorrectionSignalSeconds.toExponential(12),
-            x.groupDelaySeconds == null ? '—' : `${(x.groupDelaySeconds * 1e9).toFixed(4)} ${x.groupDelayField}`);
-        }
-        row.push(x.toe ?? (width === undefined ? (x.reason ?? '') : '—'), x.message ?? '');
-        rows.push(row);
-      }
-    }
-    const headers = ['sat', 't', 'Δt_r (ns)', 'Δt_sv (s)', ...(signal ? [`Δt_sv ${signal} (s)`, 'group delay (ns)'] : []), 't_oe', 'message'];
-    io.out(fitTable(headers, rows, { width, notes: rowNotes, below: [headers.length - 2, headers.length - 1] }));
-    const text: string[] = [];
-    if (samplesWithoutRecord > 0) text.push(`\n${samplesWithoutRecord} sample(s) without a valid record (shown as —).\n`);
-    text.push(`\nNavigation files (header parameters as broadcast):\n${navHeaderLines(nav.files).join('\n')}\n`);
-    if (skipped.length > 0) text.push(`\nSkipped records:\n${skipped.map((s) => `  ${s.count} × ${s.reason}`).join('\n')}\n`);
-    if (notes.size > 0) text.push(`\nNotes:\n${[...notes].map((n) => `  ${n}`).join('\n')}\n`);
-    text.push(`\n${FLIGHT_CAUTION}\n`);
-    io.out(wrapLines(text.join(''), width));
+    if (request.format === 'json') printBroadcastJson(io, request, nav, result);
+    else if (request.format === 'csv') printBroadcastCsv(io, request, result);
+    else printBroadcastTable(io, args, request, nav, result);
     return status;
   },
 };
@@ -288,4 +169,187 @@ function signalFields(rec: RinexNavEphemeris, clockCorrectionSeconds: number, si
     }
     throw error;
   }
+}
+
+/** What `tauline broadcast` was asked for (flags read and checked, in the order their errors are reported). */
+interface BroadcastRequest {
+  readonly files: readonly string[];
+  readonly format: 'json' | 'csv' | 'table';
+  /** Sample spacing, s. */
+  readonly step: number;
+  readonly utc: boolean;
+  readonly galileoMessage: 'INAV' | 'FNAV';
+  readonly includeUnhealthy: boolean;
+  readonly filter: Set<string> | undefined;
+  readonly signal: BroadcastSignal | undefined;
+}
+
+function broadcastRequest(args: ParsedArgs): BroadcastRequest {
+  const files = args.positionals;
+  if (files.length === 0) throw new UsageError('a RINEX navigation file is required (tauline broadcast <rinex-nav-file> ...)');
+  const format = outputFormat(args);
+  const step = numberFlag(args, 'step', true);
+  if (!(step > 0)) throw new InvalidArgumentError('--step', step, 'a positive number of seconds');
+  const scaleText = (optionalFlag(args, 'time-scale') ?? 'system').toLowerCase();
+  if (scaleText !== 'system' && scaleText !== 'utc') throw new InvalidArgumentError('--time-scale', scaleText, "'system' or 'utc'");
+  const galileoText = (optionalFlag(args, 'galileo') ?? 'inav').toLowerCase();
+  if (galileoText !== 'inav' && galileoText !== 'fnav') throw new InvalidArgumentError('--galileo', galileoText, "'inav' or 'fnav'");
+  const includeUnhealthy = Boolean(args.values['include-unhealthy']);
+  const filter = satelliteFlag(args);
+  const signal = signalFlag(args);
+  return {
+    files, format, step, utc: scaleText === 'utc', galileoMessage: galileoText === 'inav' ? 'INAV' : 'FNAV', includeUnhealthy, filter, signal,
+  };
+}
+
+/** The sample times: their count, each sample's instant on a system, its printed label and each system's window. */
+interface SampleGrid {
+  readonly count: number;
+  /** Sample k as an instant, for a system (a reading of the system's own scale unless --time-scale utc). */
+  instantAt(k: number, system: KeplerianSystem): Instant;
+  /** Sample k as printed (UTC with Z, or the reading without designator). */
+  label(k: number): string;
+  /** First and last sample in scale seconds of the system (the window of the navigation records kept). */
+  window(system: KeplerianSystem): { from: number; to: number };
+}
+
+function sampleGrid(ts: TimeScales, args: ParsedArgs, request: BroadcastRequest): SampleGrid {
+  const { step, utc } = request;
+  const from = parseTimeFlag(ts, 'from', requireFlag(args, 'from'), utc);
+  const to = parseTimeFlag(ts, 'to', requireFlag(args, 'to'), utc);
+  const span = typeof from === 'number' ? (typeof to === 'number' ? to - from : Number.NaN)
+    : typeof to === 'number' ? Number.NaN : to.secondsSince(from);
+  if (!(span >= 0)) throw new InvalidArgumentError('--to', requireFlag(args, 'to'), 'a time not before --from');
+  const count = Math.floor(span / step + 1e-9) + 1;
+  const fractional = !Number.isInteger(step);
+  const instantAt = (k: number, system: KeplerianSystem): Instant =>
+    typeof from === 'number' ? instantFromScaleSeconds(from + k * step, SYSTEM_TIME_SCALE[system]) : from.plus(k * step);
+  const label = (k: number): string => typeof from === 'number'
+    ? formatFileEpoch(ts, instantFromScaleSeconds(from + k * step, 'GPS'), 'GPS')
+    : ts.formatIso(from.plus(k * step), { fractionDigits: fractional ? 6 : 0 });
+  const secondsAt = (k: number, system: KeplerianSystem) => scaleSecondsFromInstant(instantAt(k, system), SYSTEM_TIME_SCALE[system]);
+  return { count, instantAt, label, window: (system) => ({ from: secondsAt(0, system), to: secondsAt(count - 1, system) }) };
+}
+
+/** Per-satellite samples, the notes gathered and the number of samples without a valid record. */
+interface BroadcastResult {
+  readonly out: { id: string; timeScale: string; samples: SampleOut[] }[];
+  readonly notes: Set<string>;
+  readonly samplesWithoutRecord: number;
+}
+
+function evaluateSatellites(ts: TimeScales, request: BroadcastRequest, grid: SampleGrid, nav: LoadedNavigation,
+  satellites: readonly string[]): BroadcastResult {
+  const { includeUnhealthy, galileoMessage, signal } = request;
+  const notes = new Set<string>();
+  const out: BroadcastResult['out'] = [];
+  let samplesWithoutRecord = 0;
+  for (const id of satellites) {
+    const system = id.charAt(0);
+    const modelled = isModelledSystem(system);
+    if (!modelled) notes.add(`${id}: system not modelled (GPS, Galileo and BeiDou only)`);
+    const records = nav.records.get(id) ?? [];
+    const samples: SampleOut[] = [];
+    for (let k = 0; k < grid.count; k++) {
+      // An unmodelled system has no scale of its own to read the sample time on (and no record to use).
+      if (!modelled) {
+        samplesWithoutRecord++;
+        samples.push({ t: grid.label(k), relativisticSeconds: null, clockCorrectionSeconds: null, reason: 'no record of this satellite in the files', short: 'no record in the files' });
+        continue;
+      }
+      const at = grid.instantAt(k, system);
+      const rec = selectEphemeris(records, at, { includeUnhealthy, galileoMessage });
+      if (!rec) {
+        samplesWithoutRecord++;
+        const t = scaleSecondsFromInstant(at, SYSTEM_TIME_SCALE[system]);
+        samples.push({
+          t: grid.label(k), relativisticSeconds: null, clockCorrectionSeconds: null,
+          ...noRecordReason(records, t, includeUnhealthy, SYSTEM_SCALE_LABEL[system], nav.outsideWindowBySatellite.get(id) ?? 0),
+        });
+        continue;
+      }
+      for (const n of rec.notes ?? []) notes.add(`${rec.sourceName}:${rec.line}: ${id}: ${n}`);
+      const ev = evaluateBroadcastEphemeris(rec, at);
+      samples.push({
+        t: grid.label(k), relativisticSeconds: ev.relativisticSeconds, clockCorrectionSeconds: ev.clockCorrectionSeconds,
+        ...(signal ? signalFields(rec, ev.clockCorrectionSeconds, signal, notes) : {}),
+        toe: formatFileEpoch(ts, rec.toeInstant, SYSTEM_FILE_CODE[system]), issueOfData: rec.issueOfData, message: rec.message,
+      });
+    }
+    if (signal) {
+      // Samples without a record carry the signal fields too (null), so every sample has the same keys.
+      for (const x of samples) {
+        if (x.clockCorrectionSignalSeconds === undefined) Object.assign(x, { clockCorrectionSignalSeconds: null, groupDelaySeconds: null, groupDelayField: null });
+      }
+    }
+    out.push({ id, timeScale: request.utc ? 'UTC' : modelled ? SYSTEM_SCALE_LABEL[system] : 'unknown', samples });
+  }
+  return { out, notes, samplesWithoutRecord };
+}
+
+function printBroadcastJson(io: Io, request: BroadcastRequest, nav: LoadedNavigation, result: BroadcastResult): void {
+  const { signal } = request;
+  io.out(toJson({
+    timeScale: request.utc ? 'UTC' : 'system',
+    step: request.step,
+    selection: 'nearest t_oe among healthy records whose fit interval covers t (ties: t_oe ≤ t, latest transmission, highest issue of data)',
+    galileoMessage: request.galileoMessage,
+    files: nav.files,
+    ...(signal ? { signal, signalSource: signalClockSource(signal) } : {}),
+    satellites: result.out.map((s) => ({ ...s, samples: s.samples.map(({ short: _short, ...x }) => x) })),
+    samplesWithoutRecord: result.samplesWithoutRecord,
+    recordsOutsideWindow: nav.outsideWindow,
+    skipped: [...nav.skipped].map(([reason, n]) => ({ reason, count: n })),
+    notes: [...result.notes],
+    units: {
+      step: 's', t: 'ISO 8601 in timeScale', relativisticSeconds: 's', clockCorrectionSeconds: 's', toe: 'ISO 8601 in the system scale',
+      ...(signal ? { clockCorrectionSignalSeconds: 's', groupDelaySeconds: 's' } : {}),
+      files: NAV_FILE_UNITS,
+    },
+    caution: FLIGHT_CAUTION,
+  }));
+}
+
+function printBroadcastCsv(io: Io, request: BroadcastRequest, result: BroadcastResult): void {
+  const { signal } = request;
+  io.out(`id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message${signal ? ',clockCorrectionSignalSeconds,groupDelaySeconds,groupDelayField' : ''}\n`);
+  for (const s of result.out) {
+    for (const x of s.samples) {
+      io.out(`${s.id},${x.t},${x.relativisticSeconds ?? ''},${x.clockCorrectionSeconds ?? ''},${x.toe ?? ''},${x.issueOfData ?? ''},${x.message ?? ''}` +
+        (signal ? `,${x.clockCorrectionSignalSeconds ?? ''},${x.groupDelaySeconds ?? ''},${x.groupDelayField ?? ''}` : '') + '\n');
+    }
+  }
+  io.err(`${FLIGHT_CAUTION}\n`);
+}
+
+function printBroadcastTable(io: Io, args: ParsedArgs, request: BroadcastRequest, nav: LoadedNavigation, result: BroadcastResult): void {
+  const { signal } = request;
+  const width = outputWidth(args);
+  io.out(wrapLines(`Broadcast relativistic and clock corrections (${request.utc ? 'times in UTC' : 'times in each system\'s own scale: GPST, GST, BDT'})\n\n`, width));
+  const rows: (string | number)[][] = [];
+  // Fitted to the width, a sample without a record shows "—" for t_oe and its reason on a line of its own.
+  const rowNotes: (string | undefined)[] = [];
+  for (const s of result.out) {
+    for (const x of s.samples) {
+      rowNotes.push(width === undefined ? undefined : x.reason);
+      const row: (string | number)[] = [s.id, x.t, x.relativisticSeconds === null ? '—' : (x.relativisticSeconds * 1e9).toFixed(4),
+        x.clockCorrectionSeconds === null ? '—' : x.clockCorrectionSeconds.toExponential(12)];
+      if (signal) {
+        row.push(x.clockCorrectionSignalSeconds == null ? '—' : x.clockCorrectionSignalSeconds.toExponential(12),
+          x.groupDelaySeconds == null ? '—' : `${(x.groupDelaySeconds * 1e9).toFixed(4)} ${x.groupDelayField}`);
+      }
+      row.push(x.toe ?? (width === undefined ? (x.reason ?? '') : '—'), x.message ?? '');
+      rows.push(row);
+    }
+  }
+  const headers = ['sat', 't', 'Δt_r (ns)', 'Δt_sv (s)', ...(signal ? [`Δt_sv ${signal} (s)`, 'group delay (ns)'] : []), 't_oe', 'message'];
+  io.out(fitTable(headers, rows, { width, notes: rowNotes, below: [headers.length - 2, headers.length - 1] }));
+  const skipped = [...nav.skipped].map(([reason, n]) => ({ reason, count: n }));
+  const text: string[] = [];
+  if (result.samplesWithoutRecord > 0) text.push(`\n${result.samplesWithoutRecord} sample(s) without a valid record (shown as —).\n`);
+  text.push(`\nNavigation files (header parameters as broadcast):\n${navHeaderLines(nav.files).join('\n')}\n`);
+  if (skipped.length > 0) text.push(`\nSkipped records:\n${skipped.map((s) => `  ${s.count} × ${s.reason}`).join('\n')}\n`);
+  if (result.notes.size > 0) text.push(`\nNotes:\n${[...result.notes].map((n) => `  ${n}`).join('\n')}\n`);
+  text.push(`\n${FLIGHT_CAUTION}\n`);
+  io.out(wrapLines(text.join(''), width));
 }

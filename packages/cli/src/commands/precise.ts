@@ -3,36 +3,21 @@
  * optionally beside the broadcast value from navigation files (cross-check).
  */
 import { InvalidArgumentError } from '@tauline/sdk/errors';
-import { evaluateBroadcastEphemeris, selectEphemeris, type KeplerianSystem } from '@tauline/sdk/orbit';
+import { evaluateBroadcastEphemeris, selectEphemeris, SYSTEM_TIME_SCALE } from '@tauline/sdk/orbit';
+import { readSp3, type Sp3Event, type Sp3Header } from '@tauline/sdk/io';
 import {
-  readSp3, fieldsFromScaleSeconds, formatEpochFields, scaleSecondsFromFields, type EpochFields, type Sp3Header,
-} from '@tauline/sdk/io';
-import { DEFAULT_LAGRANGE_POINTS, PreciseCorrectionStream, type PreciseCorrectionResult } from '@tauline/sdk/relativity';
-import { BUNDLED_LEAP_SECONDS, createTimeScales, type TimeScale, type TimeScales } from '@tauline/sdk/time';
+  DEFAULT_LAGRANGE_POINTS, PreciseCorrectionStream, type PreciseCorrectionResult, type PreciseCorrectionSample,
+} from '@tauline/sdk/relativity';
 import {
-  EXIT_OK, TABLE_JSON_CSV, UsageError, formatFlags, numberFlag, toJson, type Command,
+  BUNDLED_LEAP_SECONDS, createTimeScales, formatFileEpoch, scaleSecondsFromInstant, type Instant, type TimeScales,
+} from '@tauline/sdk/time';
+import {
+  EXIT_OK, TABLE_JSON_CSV, UsageError, formatFlags, numberFlag, toJson, type Command, type Io, type ParsedArgs,
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { MAX_RECORD_BYTES, STANDARD_INPUT, requireRegularFile, sourceLabel } from '../files.js';
 import { outputFormat, satelliteFlag } from '../flags.js';
-import { SYSTEM_SCALE, fileChunks, isModelledSystem, loadNavigation, progress, totalSize } from '../navigation.js';
-
-/** SP3 time systems readable on the SDK's scales; GLONASS time is UTC(SU) + 3 h (GLONASS ICD [M]). */
-const SP3_SCALE: Record<string, { scale: TimeScale; offsetSeconds: number } | undefined> = {
-  GPS: { scale: 'GPS', offsetSeconds: 0 }, GAL: { scale: 'GST', offsetSeconds: 0 }, BDT: { scale: 'BDT', offsetSeconds: 0 },
-  TAI: { scale: 'TAI', offsetSeconds: 0 }, UTC: { scale: 'UTC', offsetSeconds: 0 }, QZS: { scale: 'GPS', offsetSeconds: 0 },
-  GLO: { scale: 'UTC', offsetSeconds: 3 * 3600 },
-};
-
-/** Reads an SP3 epoch (in the file's time system) on a navigation system's own scale, as scale seconds. */
-function toSystemScaleSeconds(ts: TimeScales, header: Sp3Header, fields: EpochFields, system: KeplerianSystem): number {
-  const from = SP3_SCALE[header.timeSystem];
-  if (!from) throw new InvalidArgumentError('SP3 time system', header.timeSystem, 'GPS, GAL, BDT, TAI, UTC, QZS or GLO for the --nav cross-check');
-  const shifted = scaleSecondsFromFields(fields) - from.offsetSeconds;
-  if (from.scale === SYSTEM_SCALE[system]) return shifted;
-  const instant = ts.fromCalendar(fieldsFromScaleSeconds(shifted), from.scale);
-  return scaleSecondsFromFields(ts.toCalendar(instant, SYSTEM_SCALE[system]));
-}
+import { fileChunks, isModelledSystem, loadNavigation, progress, totalSize, type LoadedNavigation } from '../navigation.js';
 
 interface PreciseOut {
   t: string;
@@ -50,7 +35,7 @@ function withoutBroadcast(order: readonly string[], bySat: ReadonlyMap<string, {
   records: ReadonlyMap<string, readonly unknown[]>): Map<string, string> {
   const out = new Map<string, string>();
   for (const id of order) {
-    const samples = bySat.get(id)!.samples;
+    const samples = bySat.get(id)?.samples ?? [];
     if (samples.length === 0 || samples.some((o) => o.broadcastRelativisticSeconds != null)) continue;
     out.set(id, !isModelledSystem(id.charAt(0)) ? 'system not modelled (GPS, Galileo and BeiDou only)'
       : (records.get(id)?.length ?? 0) === 0 ? 'the navigation file(s) have no record of this satellite over the SP3 span'
@@ -88,147 +73,190 @@ velocitySource, broadcastRelativisticSeconds?, differenceSeconds? }], gaps: [{ t
 file's time system, the corrections in SI seconds. broadcastNote says why a satellite has no broadcast value at all. A --satellite not listed in the file's header is refused.
 Exit status: 0 success, 2 invalid input or a malformed file.`,
   async run(args, io) {
-    if (args.positionals.length !== 1) throw new UsageError('exactly one SP3 file is required (tauline precise <sp3-file>)');
-    const path = args.positionals[0]!;
-    const format = outputFormat(args);
-    const filter = satelliteFlag(args);
-    const points = numberFlag(args, 'lagrange-points') ?? DEFAULT_LAGRANGE_POINTS;
-    if (!Number.isInteger(points) || points < 2 || points > 16) throw new InvalidArgumentError('--lagrange-points', points, 'an integer in [2, 16]');
-    const navValue = args.values['nav'];
-    const navFiles = Array.isArray(navValue) ? navValue : typeof navValue === 'string' ? [navValue] : [];
+    const request = preciseRequest(args);
+    const { path, format } = request;
     const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
     // Table and JSON output hold every sample until the end (about 2.5× the file in memory): larger files need --csv, which streams.
     const what = format === 'csv' ? 'an SP3 file' : `an SP3 file read for ${format} output (--csv streams any size)`;
     const maxBytes = format === 'csv' ? undefined : MAX_RECORD_BYTES;
     await requireRegularFile(path, what, maxBytes);
-    if (path === STANDARD_INPUT && navFiles.includes(STANDARD_INPUT)) throw new UsageError('- (standard input) can be read once only: give it for the SP3 file or for --nav');
-
+    if (path === STANDARD_INPUT && request.navFiles.includes(STANDARD_INPUT)) {
+      throw new UsageError('- (standard input) can be read once only: give it for the SP3 file or for --nav');
+    }
     const bar = progress(io, 'reading precise orbits', totalSize([path]));
-    const events = readSp3(fileChunks(path, what, bar.add, maxBytes), { sourceName: sourceLabel(path) });
+    const events = readSp3(fileChunks(path, what, bar.add, maxBytes), { sourceName: sourceLabel(path), timeScales: ts });
     const first = await events.next();
     if (first.done || first.value.kind !== 'header') throw new UsageError(`${path}: no SP3 header`);
     const header = first.value.header;
-    const unknown = filter ? [...filter].filter((id) => !header.satellites.includes(id)) : [];
+    const unknown = request.filter ? [...request.filter].filter((id) => !header.satellites.includes(id)) : [];
     if (unknown.length > 0) {
       throw new InvalidArgumentError('--satellite', unknown.join(','), `satellites listed in the header of ${path}: ${header.satellites.join(', ')}`);
     }
-
-    let nav: Awaited<ReturnType<typeof loadNavigation>> | undefined;
-    if (navFiles.length > 0) {
-      // Window: the SP3 span, read on each system's scale (± 1 h margin for scale offsets).
-      const start = header.firstEpoch;
-      const spanSeconds = header.epochInterval * (header.epochCount - 1);
-      nav = await loadNavigation(navFiles, io, (system) => {
-        const s = toSystemScaleSeconds(ts, header, start, system);
-        return { from: s - 3600, to: s + spanSeconds + 3600 };
-      }, filter ?? new Set(header.satellites));
-    }
-
-    const stream = new PreciseCorrectionStream({
-      epochInterval: header.epochInterval, lagrangePoints: points, ...(filter ? { satellites: filter } : {}),
-    });
-    const bySat = new Map<string, { samples: PreciseOut[]; gaps: { t: string; reason: string }[] }>();
-    const entry = (id: string) => {
-      let e = bySat.get(id);
-      if (!e) bySat.set(id, (e = { samples: [], gaps: [] }));
-      return e;
-    };
-    if (format === 'csv') {
-      io.out(`id,t,relativisticSeconds,velocitySource${nav ? ',broadcastRelativisticSeconds,differenceSeconds' : ''}\n`);
-    }
-    // CSV rows of one call (one epoch's results) are collected and written at once: one write per row cost
-    // about a quarter of the run time on long files.
-    const handle = (results: PreciseCorrectionResult[]) => {
-      let csv = '';
-      for (const r of results) {
-        if (r.kind === 'gap') {
-          const g = { t: formatEpochFields(r.gap.time), reason: r.gap.reason };
-          if (format === 'csv') csv += `${r.gap.satellite},${g.t},,gap: ${g.reason.replace(/,/g, ';')}${nav ? ',,' : ''}\n`;
-          else entry(r.gap.satellite).gaps.push(g);
-          continue;
-        }
-        const s = r.sample;
-        const o: PreciseOut = { t: formatEpochFields(s.time), relativisticSeconds: s.relativisticSeconds, velocitySource: s.velocitySource };
-        if (nav) {
-          const system = s.satellite.charAt(0);
-          const records = nav.records.get(s.satellite) ?? [];
-          let broadcast: number | null = null;
-          if (isModelledSystem(system)) {
-            const t = toSystemScaleSeconds(ts, header, s.time, system);
-            const eph = selectEphemeris(records, t);
-            if (eph) broadcast = evaluateBroadcastEphemeris(eph, t).relativisticSeconds;
-          }
-          o.broadcastRelativisticSeconds = broadcast;
-          o.differenceSeconds = broadcast === null ? null : s.relativisticSeconds - broadcast;
-        }
-        if (format === 'csv') {
-          csv += `${s.satellite},${o.t},${o.relativisticSeconds},${o.velocitySource}` +
-            (nav ? `,${o.broadcastRelativisticSeconds ?? ''},${o.differenceSeconds ?? ''}` : '') + '\n';
-        } else {
-          entry(s.satellite).samples.push(o);
-        }
-      }
-      if (csv !== '') io.out(csv);
-    };
-    try {
-      for (;;) {
-        const next = await events.next();
-        if (next.done) break;
-        if (next.value.kind === 'epoch') handle(stream.push(next.value.epoch));
-      }
-      handle(stream.finish());
-    } finally {
-      bar.finish();
-    }
+    const nav = request.navFiles.length > 0 ? await loadCrossCheck(request, header, io) : undefined;
+    const collected = await collectCorrections(request, header, events, { ts, nav, io, finish: bar.finish });
     if (format === 'csv') return EXIT_OK;
-
-    const order = header.satellites.filter((s) => bySat.has(s));
-    const noBroadcast = nav ? withoutBroadcast(order, bySat, nav.records) : new Map<string, string>();
-    if (format === 'json') {
-      io.out(toJson({
-        timeSystem: header.timeSystem,
-        timeSystemAssumed: header.timeSystemAssumed,
-        coordinateFrame: header.coordinateFrame,
-        agency: header.agency,
-        sp3Version: header.version,
-        epochInterval: header.epochInterval,
-        lagrangePoints: points,
-        satellites: order.map((id) => ({
-          id, samples: bySat.get(id)!.samples, gaps: bySat.get(id)!.gaps, ...(noBroadcast.has(id) ? { broadcastNote: noBroadcast.get(id) } : {}),
-        })),
-        ...(nav ? { navigationSkipped: [...nav.skipped].map(([reason, count]) => ({ reason, count })) } : {}),
-        units: {
-          epochInterval: 's', t: `ISO 8601 in the file's time system (${header.timeSystem})`, relativisticSeconds: 's',
-          ...(nav ? { broadcastRelativisticSeconds: 's', differenceSeconds: 's' } : {}),
-        },
-      }));
-      return EXIT_OK;
-    }
-    const width = outputWidth(args);
-    const timeNote = header.timeSystemAssumed ? `${header.timeSystem} time assumed: SP3-${header.version} states none` : `${header.timeSystem} time`;
-    io.out(wrapLines(`Precise-orbit relativistic correction −2 r·v/c² (SP3-${header.version}, ${timeNote}, frame ${header.coordinateFrame}, ${header.agency})\n\n`, width));
-    // A satellite the navigation files say nothing about gets empty broadcast cells and one sentence
-    // below the table instead of a column of "—"; no such column at all when no satellite has a record.
-    const broadcastColumns = nav !== undefined && order.some((id) => !noBroadcast.has(id));
-    const rows: (string | number)[][] = [];
-    for (const id of order) {
-      for (const o of bySat.get(id)!.samples) {
-        const row: (string | number)[] = [id, o.t, (o.relativisticSeconds * 1e9).toFixed(4), o.velocitySource];
-        if (broadcastColumns) {
-          const none = noBroadcast.has(id) ? '' : '—';
-          row.push(o.broadcastRelativisticSeconds == null ? none : (o.broadcastRelativisticSeconds * 1e9).toFixed(4),
-            o.differenceSeconds == null ? none : (o.differenceSeconds * 1e9).toFixed(4));
-        }
-        rows.push(row);
-      }
-    }
-    io.out(fitTable(['sat', 't', 'Δt_r (ns)', 'v from', ...(broadcastColumns ? ['broadcast (ns)', 'difference (ns)'] : [])], rows, { width }));
-    const text: string[] = [];
-    if (noBroadcast.size > 0) text.push(`\nNo broadcast cross-check:\n${[...noBroadcast].map(([id, why]) => `  ${id}: ${why}`).join('\n')}\n`);
-    const gaps = order.flatMap((id) => bySat.get(id)!.gaps.map((g) => `  ${id} ${g.t}: ${g.reason}`));
-    if (gaps.length > 0) text.push(`\nEpochs without a correction:\n${gaps.join('\n')}\n`);
-    io.out(wrapLines(text.join(''), width));
+    const order = header.satellites.filter((s) => collected.has(s));
+    const noBroadcast = nav ? withoutBroadcast(order, collected, nav.records) : new Map<string, string>();
+    if (format === 'json') printJson(io, request, header, order, collected, noBroadcast, nav);
+    else printTable(io, args, header, order, collected, noBroadcast, nav);
     return EXIT_OK;
   },
 };
 
+
+/** What `tauline precise` was asked for. */
+interface PreciseRequest {
+  readonly path: string;
+  readonly format: 'json' | 'csv' | 'table';
+  readonly filter: Set<string> | undefined;
+  readonly points: number;
+  readonly navFiles: readonly string[];
+}
+
+function preciseRequest(args: ParsedArgs): PreciseRequest {
+  const [path, ...more] = args.positionals;
+  if (path === undefined || more.length > 0) throw new UsageError('exactly one SP3 file is required (tauline precise <sp3-file>)');
+  const format = outputFormat(args);
+  const filter = satelliteFlag(args);
+  const points = numberFlag(args, 'lagrange-points') ?? DEFAULT_LAGRANGE_POINTS;
+  if (!Number.isInteger(points) || points < 2 || points > 16) throw new InvalidArgumentError('--lagrange-points', points, 'an integer in [2, 16]');
+  const navValue = args.values['nav'];
+  const navFiles = Array.isArray(navValue) ? navValue.filter((v): v is string => typeof v === 'string') : typeof navValue === 'string' ? [navValue] : [];
+  return { path, format, filter, points, navFiles };
+}
+
+/** Reads the navigation files over the SP3 span, read on each system's scale (± 1 h margin). */
+function loadCrossCheck(request: PreciseRequest, header: Sp3Header, io: Io): Promise<LoadedNavigation> {
+  const spanSeconds = header.epochInterval * (header.epochCount - 1);
+  return loadNavigation(request.navFiles, io, (system) => {
+    const s = scaleSecondsFromInstant(header.firstInstant, SYSTEM_TIME_SCALE[system]);
+    return { from: s - 3600, to: s + spanSeconds + 3600 };
+  }, request.filter ?? new Set(header.satellites));
+}
+
+/** Samples and gaps of one satellite, held for table and JSON output. */
+interface SatelliteOut {
+  readonly samples: PreciseOut[];
+  readonly gaps: { t: string; reason: string }[];
+}
+
+/** The broadcast Δt_r at a precise sample's instant, or null when no valid record covers it. */
+function broadcastAt(nav: LoadedNavigation, s: PreciseCorrectionSample): number | null {
+  if (!isModelledSystem(s.satellite.charAt(0))) return null;
+  const eph = selectEphemeris(nav.records.get(s.satellite) ?? [], s.epoch);
+  return eph ? evaluateBroadcastEphemeris(eph, s.epoch).relativisticSeconds : null;
+}
+
+/**
+ * Runs the SP3 epochs through the correction stream: CSV rows are written as they come (one write per
+ * epoch: one per row cost about a quarter of the run time on long files); table and JSON rows are kept.
+ */
+async function collectCorrections(request: PreciseRequest, header: Sp3Header, events: AsyncGenerator<Sp3Event>,
+  context: { ts: TimeScales; nav: LoadedNavigation | undefined; io: Io; finish: () => void }): Promise<Map<string, SatelliteOut>> {
+  const { ts, nav, io } = context;
+  const csvOut = request.format === 'csv';
+  const stream = new PreciseCorrectionStream({
+    epochInterval: header.epochInterval, lagrangePoints: request.points, ...(request.filter ? { satellites: request.filter } : {}),
+  });
+  const bySat = new Map<string, SatelliteOut>();
+  const entry = (id: string): SatelliteOut => {
+    let e = bySat.get(id);
+    if (!e) bySat.set(id, (e = { samples: [], gaps: [] }));
+    return e;
+  };
+  // Results of one epoch come together: its text is formatted once.
+  let lastEpoch: Instant | undefined;
+  let lastText = '';
+  const epochText = (epoch: Instant): string => {
+    if (lastEpoch === undefined || !epoch.equals(lastEpoch)) {
+      lastText = formatFileEpoch(ts, epoch, header.timeSystem);
+      lastEpoch = epoch;
+    }
+    return lastText;
+  };
+  if (csvOut) io.out(`id,t,relativisticSeconds,velocitySource${nav ? ',broadcastRelativisticSeconds,differenceSeconds' : ''}\n`);
+  const handle = (results: PreciseCorrectionResult[]) => {
+    let csv = '';
+    for (const r of results) {
+      if (r.kind === 'gap') {
+        const g = { t: epochText(r.gap.epoch), reason: r.gap.reason };
+        if (csvOut) csv += `${r.gap.satellite},${g.t},,gap: ${g.reason.replace(/,/g, ';')}${nav ? ',,' : ''}\n`;
+        else entry(r.gap.satellite).gaps.push(g);
+        continue;
+      }
+      const s = r.sample;
+      const o: PreciseOut = { t: epochText(s.epoch), relativisticSeconds: s.relativisticSeconds, velocitySource: s.velocitySource };
+      if (nav) {
+        const broadcast = broadcastAt(nav, s);
+        o.broadcastRelativisticSeconds = broadcast;
+        o.differenceSeconds = broadcast === null ? null : s.relativisticSeconds - broadcast;
+      }
+      if (csvOut) {
+        csv += `${s.satellite},${o.t},${o.relativisticSeconds},${o.velocitySource}` +
+          (nav ? `,${o.broadcastRelativisticSeconds ?? ''},${o.differenceSeconds ?? ''}` : '') + '\n';
+      } else {
+        entry(s.satellite).samples.push(o);
+      }
+    }
+    if (csv !== '') io.out(csv);
+  };
+  try {
+    for (let next = await events.next(); !next.done; next = await events.next()) {
+      if (next.value.kind === 'epoch') handle(stream.push(next.value.epoch));
+    }
+    handle(stream.finish());
+  } finally {
+    context.finish();
+  }
+  return bySat;
+}
+
+function printJson(io: Io, request: PreciseRequest, header: Sp3Header, order: readonly string[], bySat: ReadonlyMap<string, SatelliteOut>,
+  noBroadcast: ReadonlyMap<string, string>, nav: LoadedNavigation | undefined): void {
+  io.out(toJson({
+    timeSystem: header.timeSystem,
+    timeSystemAssumed: header.timeSystemAssumed,
+    coordinateFrame: header.coordinateFrame,
+    agency: header.agency,
+    sp3Version: header.version,
+    epochInterval: header.epochInterval,
+    lagrangePoints: request.points,
+    satellites: order.map((id) => ({
+      id, samples: bySat.get(id)?.samples ?? [], gaps: bySat.get(id)?.gaps ?? [],
+      ...(noBroadcast.has(id) ? { broadcastNote: noBroadcast.get(id) } : {}),
+    })),
+    ...(nav ? { navigationSkipped: [...nav.skipped].map(([reason, count]) => ({ reason, count })) } : {}),
+    units: {
+      epochInterval: 's', t: `ISO 8601 in the file's time system (${header.timeSystem})`, relativisticSeconds: 's',
+      ...(nav ? { broadcastRelativisticSeconds: 's', differenceSeconds: 's' } : {}),
+    },
+  }));
+}
+
+function printTable(io: Io, args: ParsedArgs, header: Sp3Header, order: readonly string[], bySat: ReadonlyMap<string, SatelliteOut>,
+  noBroadcast: ReadonlyMap<string, string>, nav: LoadedNavigation | undefined): void {
+  const width = outputWidth(args);
+  const timeNote = header.timeSystemAssumed ? `${header.timeSystem} time assumed: SP3-${header.version} states none` : `${header.timeSystem} time`;
+  io.out(wrapLines(`Precise-orbit relativistic correction −2 r·v/c² (SP3-${header.version}, ${timeNote}, frame ${header.coordinateFrame}, ${header.agency})\n\n`, width));
+  // A satellite the navigation files say nothing about gets empty broadcast cells and one sentence
+  // below the table instead of a column of "—"; no such column at all when no satellite has a record.
+  const broadcastColumns = nav !== undefined && order.some((id) => !noBroadcast.has(id));
+  const rows: (string | number)[][] = [];
+  for (const id of order) {
+    for (const o of bySat.get(id)?.samples ?? []) {
+      const row: (string | number)[] = [id, o.t, (o.relativisticSeconds * 1e9).toFixed(4), o.velocitySource];
+      if (broadcastColumns) {
+        const none = noBroadcast.has(id) ? '' : '—';
+        row.push(o.broadcastRelativisticSeconds == null ? none : (o.broadcastRelativisticSeconds * 1e9).toFixed(4),
+          o.differenceSeconds == null ? none : (o.differenceSeconds * 1e9).toFixed(4));
+      }
+      rows.push(row);
+    }
+  }
+  io.out(fitTable(['sat', 't', 'Δt_r (ns)', 'v from', ...(broadcastColumns ? ['broadcast (ns)', 'difference (ns)'] : [])], rows, { width }));
+  const text: string[] = [];
+  if (noBroadcast.size > 0) text.push(`\nNo broadcast cross-check:\n${[...noBroadcast].map(([id, why]) => `  ${id}: ${why}`).join('\n')}\n`);
+  const gaps = order.flatMap((id) => (bySat.get(id)?.gaps ?? []).map((g) => `  ${id} ${g.t}: ${g.reason}`));
+  if (gaps.length > 0) text.push(`\nEpochs without a correction:\n${gaps.join('\n')}\n`);
+  io.out(wrapLines(text.join(''), width));
+}

@@ -157,7 +157,8 @@ function* piecesOf(source: string | Iterable<string>): Generator<string> {
 /** Throws unless `line` is a {@link TextLine} (the parsers' push methods take lines from this module's splitter). */
 export function requireTextLine(line: unknown): TextLine {
   const l = line as Partial<TextLine> | null;
-  if (typeof l !== 'object' || l === null || typeof l.text !== 'string' || !Number.isSafeInteger(l.lineNumber) || (l.lineNumber as number) < 1) {
+  if (typeof l !== 'object' || l === null || typeof l.text !== 'string' || typeof l.lineNumber !== 'number'
+    || !Number.isSafeInteger(l.lineNumber) || l.lineNumber < 1) {
     throw new InvalidArgumentError('line', line, 'a line { text, lineNumber ≥ 1 } as linesOf/readLines yield');
   }
   return l as TextLine;
@@ -248,6 +249,8 @@ const GPS_EPOCH_DAYS = 3657;
  * Seconds from 1980-01-06T00:00:00 to `fields`, both read in the same uniform time scale
  * (GPST, GST, BDT, TAI): pure calendar arithmetic, 86 400 s per day, no leap seconds.
  * Resolution is the float64 spacing at ~1.5e9 s, about 2.4e-7 s.
+ * @deprecated The readers give exact `Instant` epochs; use `instantFromFileEpoch` and
+ *   `scaleSecondsFromInstant` of the time module. Kept for callers of earlier releases.
  */
 export function scaleSecondsFromFields(fields: EpochFields): number {
   requireEpochFields('fields', fields);
@@ -255,7 +258,10 @@ export function scaleSecondsFromFields(fields: EpochFields): number {
   return days * 86400 + fields.hour * 3600 + fields.minute * 60 + fields.second;
 }
 
-/** Inverse of {@link scaleSecondsFromFields}. */
+/**
+ * Inverse of {@link scaleSecondsFromFields}.
+ * @deprecated Use `instantFromScaleSeconds` and `formatFileEpoch` of the time module.
+ */
 export function fieldsFromScaleSeconds(seconds: number): EpochFields {
   requireInRange('seconds', seconds, -1e12, 1e12, { unit: 's from 1980-01-06T00:00:00' });
   const days = Math.floor(seconds / 86400);
@@ -267,7 +273,10 @@ export function fieldsFromScaleSeconds(seconds: number): EpochFields {
   return { year, month, day, hour, minute, second: rest - minute * 60 };
 }
 
-/** ISO 8601 text of calendar fields without a zone designator, e.g. `2024-01-07T00:15:00` (fraction only when present, to 1 ns). */
+/**
+ * ISO 8601 text of calendar fields without a zone designator, e.g. `2024-01-07T00:15:00` (fraction only when present, to 1 ns).
+ * @deprecated Format an epoch's `Instant` with `formatFileEpoch` of the time module.
+ */
 export function formatEpochFields(fields: EpochFields): string {
   requireEpochFields('fields', fields);
   const p = (n: number, w = 2) => String(n).padStart(w, '0');

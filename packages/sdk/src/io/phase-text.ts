@@ -12,6 +12,7 @@ import { linesOf, readLineBatches, type TextLine, type TextSource } from './line
 import { requireOptions, requireSourceName } from '../internal/validate.js';
 import { MAX_SERIES_SAMPLES } from './limits.js';
 import { GrowableColumn } from './growable.js';
+import { type Instant, requireInstant } from '../time/instant.js';
 
 /** A run of missing samples in a regularised series. */
 export interface SampleGap {
@@ -42,6 +43,16 @@ export interface PhaseTextSeries {
   readonly gaps: readonly SampleGap[];
   /** Total number of missing samples. */
   readonly missing: number;
+  /**
+   * The first sample as an absolute instant, when `options.epoch` placed the file's own time origin;
+   * otherwise undefined (a text file has no calendar).
+   */
+  readonly epoch: Instant | undefined;
+  /**
+   * Each sample's time in seconds since the first sample (the series shape `{ epoch, t }`): from the time
+   * column (two columns) or k·τ0 (one column with τ0); undefined for one column without τ0. Computed on first use.
+   */
+  readonly t: Float64Array | undefined;
 }
 
 /** Options of {@link parsePhaseText}. */
@@ -53,6 +64,11 @@ export interface PhaseTextOptions {
    * step must be a whole multiple of it; default the smallest step in the file.
    */
   readonly tau0?: Seconds;
+  /**
+   * The instant at which the file's time column reads 0 s (one-column input: the instant of the first
+   * sample). Gives the series its absolute `epoch`; default none.
+   */
+  readonly epoch?: Instant;
 }
 
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
@@ -92,6 +108,7 @@ class PhaseTextBuilder {
   private readonly _lines = new GrowableColumn();
   constructor(options: PhaseTextOptions) {
     this._options = requireOptions('options', options);
+    if (options.epoch !== undefined) requireInstant('options.epoch', options.epoch);
     this._name = options.sourceName === undefined ? 'phase' : requireSourceName('options.sourceName', options.sourceName);
   }
 
@@ -99,36 +116,37 @@ class PhaseTextBuilder {
     const hash = line.text.indexOf('#');
     const body = hash >= 0 ? line.text.slice(0, hash) : line.text;
     const tokens = tokenize(body);
-    if (tokens.length === 0) return;
+    const [first, second, third] = tokens;
+    if (first === undefined) return;
     if (!this._seenData && this._header === undefined && tokens.every((t) => !NUMBER.test(t.text) && t.text.toLowerCase() !== 'nan')) {
-      if (tokens.length > 2) throw new ParseError(this._name, line.lineNumber, tokens[2]!.column, 'at most two columns (time, phase)', tokens[2]!.text);
+      if (third) throw new ParseError(this._name, line.lineNumber, third.column, 'at most two columns (time, phase)', third.text);
       this._header = tokens.map((t) => t.text);
       this._columns = tokens.length as 1 | 2;
       return;
     }
     if (this._columns === undefined) {
-      if (tokens.length > 2) throw new ParseError(this._name, line.lineNumber, tokens[2]!.column, 'one column (phase) or two columns (time, phase)', tokens[2]!.text);
+      if (third) throw new ParseError(this._name, line.lineNumber, third.column, 'one column (phase) or two columns (time, phase)', third.text);
       this._columns = tokens.length as 1 | 2;
     }
     if (tokens.length !== this._columns) {
-      const t = tokens[Math.min(tokens.length, this._columns)] ?? tokens[tokens.length - 1]!;
-      throw new ParseError(this._name, line.lineNumber, tokens.length > this._columns ? t.column : undefined,
+      const extra = tokens[this._columns];
+      throw new ParseError(this._name, line.lineNumber, extra?.column,
         `${this._columns} column${this._columns === 2 ? 's (time, phase)' : ' (phase)'} as on the first data line`, line.text);
     }
     this._seenData = true;
     if (this._values.length >= MAX_SERIES_SAMPLES) {
       throw new ParseError(this._name, line.lineNumber, 1, `at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES, the longest series read)`, line.text);
     }
-    if (this._columns === 2) {
-      const time = parseValue(this._name, line.lineNumber, tokens[0]!, 'time in seconds', false);
+    if (this._columns === 2 && second !== undefined) {
+      const time = parseValue(this._name, line.lineNumber, first, 'time in seconds', false);
       if (this._times.length > 0 && !(time > this._times.get(this._times.length - 1))) {
-        throw new ParseError(this._name, line.lineNumber, tokens[0]!.column,
-          `a time later than the previous line's ${this._times.get(this._times.length - 1)} s (times must increase)`, tokens[0]!.text);
+        throw new ParseError(this._name, line.lineNumber, first.column,
+          `a time later than the previous line's ${this._times.get(this._times.length - 1)} s (times must increase)`, first.text);
       }
       this._times.push(time);
-      this._values.push(parseValue(this._name, line.lineNumber, tokens[1]!, 'phase in seconds', true));
+      this._values.push(parseValue(this._name, line.lineNumber, second, 'phase in seconds', true));
     } else {
-      this._values.push(parseValue(this._name, line.lineNumber, tokens[0]!, 'phase in seconds', true));
+      this._values.push(parseValue(this._name, line.lineNumber, first, 'phase in seconds', true));
     }
     this._lines.push(line.lineNumber);
   }
@@ -146,12 +164,33 @@ class PhaseTextBuilder {
           gaps.push({ index: start, missing: i - start + 1, line: this._lines.get(start), time: undefined });
         }
       }
-      return { sourceName: this._name, columns, header: this._header, phase, times: undefined, tau0: this._options.tau0, gaps,
-        missing: gaps.reduce((s, g) => s + g.missing, 0) };
+      return withRelativeTimes({ sourceName: this._name, columns, header: this._header, phase, times: undefined, tau0: this._options.tau0, gaps,
+        missing: gaps.reduce((s, g) => s + g.missing, 0), epoch: this._options.epoch });
     }
     const reg = regularizeSeries(this._name, this._times.toArray(), this._values.toArray(), (i) => this._lines.get(i), this._options.tau0);
-    return { sourceName: this._name, columns, header: this._header, ...reg };
+    const first = reg.times[0] ?? 0;
+    return withRelativeTimes({ sourceName: this._name, columns, header: this._header, ...reg, epoch: this._options.epoch?.plus(first) });
   }
+}
+
+/** Adds `t` (seconds since the first sample) as a property computed on first use (it would double the memory held). */
+function withRelativeTimes(series: Omit<PhaseTextSeries, 't'>): PhaseTextSeries {
+  let t: Float64Array | undefined;
+  return Object.defineProperty(series, 't', {
+    enumerable: false,
+    get(): Float64Array | undefined {
+      if (t !== undefined) return t;
+      const { times, tau0, phase } = series;
+      if (times !== undefined) {
+        const first = times[0] ?? 0;
+        t = times.map((x) => x - first);
+      } else if (tau0 !== undefined) {
+        t = new Float64Array(phase.length);
+        for (let k = 0; k < t.length; k++) t[k] = k * tau0;
+      }
+      return t;
+    },
+  }) as PhaseTextSeries;
 }
 
 /**
@@ -160,12 +199,16 @@ class PhaseTextBuilder {
  * multiples of τ0 (relative tolerance 1e-6); samples that are NaN themselves count as gaps too.
  * The grid's length is checked against {@link MAX_SERIES_SAMPLES} before it is allocated.
  *
+ * `times` may be counted from any origin; `origin` (default 0) is added to the times printed in
+ * messages and to each gap's `time`, so that a reader can work on exact offsets from its first epoch
+ * and still report times on its own count. The returned grid is on the same count as `times`.
+ *
  * @internal shared with the RINEX clock reader
  * @throws {ParseError} at the line of the first sample whose step is not a whole multiple of τ0, or
  *   whose gap makes the series longer than {@link MAX_SERIES_SAMPLES} (naming the gap and the limit).
  */
 export function regularizeSeries(sourceName: string, times: Float64Array, values: Float64Array, lineOf: (i: number) => number,
-  tau0Given: Seconds | undefined): { phase: Float64Array; times: Float64Array; tau0: Seconds | undefined; gaps: SampleGap[]; missing: number } {
+  tau0Given: Seconds | undefined, origin: Seconds = 0): { phase: Float64Array; times: Float64Array; tau0: Seconds | undefined; gaps: SampleGap[]; missing: number } {
   let tau0 = tau0Given;
   if (tau0 !== undefined && !(tau0 > 0 && Number.isFinite(tau0))) {
     throw new ParseError(sourceName, lineOf(0), undefined, `a sample spacing tau0 > 0 s (given ${tau0})`);
@@ -175,7 +218,9 @@ export function regularizeSeries(sourceName: string, times: Float64Array, values
     for (let i = 1; i < times.length; i++) tau0 = Math.min(tau0, times[i]! - times[i - 1]!);
   }
   if (tau0 === undefined) {
-    return { phase: values.slice(), times: times.slice(), tau0: undefined, gaps: values[0] !== values[0] ? [{ index: 0, missing: 1, line: lineOf(0), time: times[0] }] : [], missing: values[0] !== values[0] ? 1 : 0 };
+    const first = times[0];
+    const gaps = values[0] !== values[0] ? [{ index: 0, missing: 1, line: lineOf(0), time: first === undefined ? undefined : origin + first }] : [];
+    return { phase: values.slice(), times: times.slice(), tau0: undefined, gaps, missing: gaps.length };
   }
   const t0 = times[0]!;
   let total = 1;
@@ -186,13 +231,13 @@ export function regularizeSeries(sourceName: string, times: Float64Array, values
     if (k < 1 || Math.abs(ratio - k) > 1e-6 * Math.max(1, k)) {
       throw new ParseError(sourceName, lineOf(i), 1,
         `a time step that is a whole multiple of tau0 = ${tau0} s (step ${times[i]! - times[i - 1]!} s from the previous sample is ${ratio} tau0)`,
-        String(times[i]));
+        String(origin + times[i]!));
     }
     if (total + k > MAX_SERIES_SAMPLES) {
       // Refused before anything of that length is allocated (a gap of 10^12 samples would ask for terabytes).
       throw new ParseError(sourceName, lineOf(i), 1,
         `a uniform series of at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES): the gap of ${times[i]! - times[i - 1]!} s ` +
-        `after line ${lineOf(i - 1)} is ${k} steps of tau0 = ${tau0} s, making ${total + k} samples`, String(times[i]));
+        `after line ${lineOf(i - 1)} is ${k} steps of tau0 = ${tau0} s, making ${total + k} samples`, String(origin + times[i]!));
     }
     steps[i] = k;
     total += k;
@@ -205,7 +250,7 @@ export function regularizeSeries(sourceName: string, times: Float64Array, values
   for (let i = 0; i < times.length; i++) {
     if (i > 0) {
       const k = steps[i]!;
-      if (k > 1) gaps.push({ index: idx + 1, missing: k - 1, line: lineOf(i), time: t0 + (idx + 1) * tau0 });
+      if (k > 1) gaps.push({ index: idx + 1, missing: k - 1, line: lineOf(i), time: origin + (t0 + (idx + 1) * tau0) });
       idx += k;
     }
     phase[idx] = values[i]!;
@@ -214,7 +259,7 @@ export function regularizeSeries(sourceName: string, times: Float64Array, values
   // Explicit NaN values at listed epochs are gaps as well.
   for (let i = 0, k = 0; i < times.length; i++) {
     if (i > 0) k += steps[i]!;
-    if (values[i] !== values[i]) gaps.push({ index: k, missing: 1, line: lineOf(i), time: grid[k] });
+    if (values[i] !== values[i]) gaps.push({ index: k, missing: 1, line: lineOf(i), time: origin + grid[k]! });
   }
   gaps.sort((a, b) => a.index - b.index);
   for (const g of gaps) missing += g.missing;

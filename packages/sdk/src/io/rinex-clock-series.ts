@@ -7,6 +7,7 @@
  */
 import { InvalidArgumentError, ParseError } from '../errors.js';
 import { requireOptions, requireSourceName } from '../internal/validate.js';
+import { Instant } from '../time/instant.js';
 import type { Seconds } from '../units.js';
 import { MAX_SERIES_SAMPLES } from './limits.js';
 import { scaleSecondsFromFields, validEpochFields, type TextSource } from './line-reader.js';
@@ -20,12 +21,21 @@ import {
 export interface RinexClockSeries {
   readonly name: string;
   readonly type: 'AS' | 'AR';
+  /** The first sample's epoch, an absolute instant (exact). */
+  readonly epoch: Instant;
+  /** Each sample's time in seconds since {@link RinexClockSeries.epoch} (gaps included). */
+  readonly t: Float64Array;
   /** Phase (clock bias) in seconds; NaN for every missing epoch. */
   readonly phase: Float64Array;
-  /** Epoch of each sample in seconds since 1980-01-06T00:00:00 of the file's time system (no leap seconds). */
+  /**
+   * Epoch of each sample in seconds since 1980-01-06T00:00:00 of the file's time system (a calendar count,
+   * no leap seconds; float resolution ≈ 2.4e-7 s). Computed on first use from `epoch` and `t`.
+   * @deprecated Use `epoch` and `t` (exact); kept for callers of earlier releases.
+   */
   readonly times: Float64Array;
   /** Sample spacing, seconds (smallest step, or as given). */
   readonly tau0: Seconds | undefined;
+  /** Runs of missing samples; each gap's `time` is on the `times` count (seconds since 1980-01-06 of the file's scale). */
   readonly gaps: readonly SampleGap[];
   readonly missing: number;
   readonly timeSystem: string | undefined;
@@ -55,6 +65,9 @@ export class RinexClockSeriesCollector {
   private readonly _lines = new GrowableColumn();
   private _type: 'AS' | 'AR' | undefined;
   private readonly _names = new Set<string>();
+  /** First kept record: its instant (the origin of the kept times) and its calendar count of seconds since 1980. */
+  private _first: { epoch: Instant; scaleSeconds: number } | undefined;
+  private _last: Instant | undefined;
 
   constructor(sourceName: string, name: string, options: RinexClockSeriesOptions = {}) {
     this._source = requireSourceName('sourceName', sourceName);
@@ -74,12 +87,13 @@ export class RinexClockSeriesCollector {
     else if (this._type !== r.type) {
       throw new ParseError(this._source, r.line, 1, `one record type for ${this._name}: it has both AS and AR records; choose one with options.type`);
     }
-    const t = scaleSecondsFromFields(r.epoch);
     const n = this._times.length;
-    if (n > 0 && !(t > this._times.get(n - 1))) {
+    if (this._last !== undefined && !r.epoch.isAfter(this._last)) {
       throw new ParseError(this._source, r.line, 4, `an epoch later than the previous ${this._name} record (line ${this._lines.get(n - 1)})`);
     }
-    this._times.push(t);
+    this._first ??= { epoch: r.epoch, scaleSeconds: scaleSecondsFromFields(r.time) };
+    this._last = r.epoch;
+    this._times.push(r.epoch.secondsSince(this._first.epoch));
     this._values.push(r.bias);
     this._lines.push(r.line);
   }
@@ -87,32 +101,54 @@ export class RinexClockSeriesCollector {
   /**
    * Builds the series. Refuses, before allocating it, a series longer than {@link MAX_SERIES_SAMPLES}
    * (a far epoch such as year 9999 would otherwise ask for billions of samples).
-   * @throws {ParseError} no record for the clock, a step not a whole multiple of τ0, or a series over the limit.
+   * @throws {InvalidArgumentError} no record for the clock (naming it and listing the clocks present).
+   * @throws {ParseError} a step not a whole multiple of τ0, or a series over the limit.
    */
   finish(header: RinexClockHeader): RinexClockSeries {
     const h = header as Partial<RinexClockHeader> | null;
-    if (typeof h !== 'object' || h === null || !Number.isSafeInteger(h.lines) || (h.lines as number) < 1
+    if (typeof h !== 'object' || h === null || typeof h.lines !== 'number' || !Number.isSafeInteger(h.lines) || h.lines < 1
       || (h.timeSystem !== undefined && typeof h.timeSystem !== 'string')) {
       throw new InvalidArgumentError('header', header, 'the header of the file the records came from ({ lines ≥ 1, timeSystem }, as the reader yields it)');
     }
-    const n = this._times.length;
-    if (n === 0) {
+    const first = this._first;
+    const type = this._type;
+    if (first === undefined || type === undefined) {
+      // Asking for a clock the file does not hold is an argument error (the file itself is fine).
       const names = [...this._names].join(', ');
-      throw new ParseError(this._source, header.lines, undefined, `records for clock ${JSON.stringify(this._name)} (clocks present: ${names || 'none'})`);
+      throw new InvalidArgumentError('name', this._name,
+        `a clock that the file ${this._source} holds${this._options.type ? ` as ${this._options.type} records` : ''}`,
+        `The clocks present: ${names || 'none'}`);
     }
-    const times = this._times.toArray();
     const lineOf = (i: number) => this._lines.get(i);
-    const reg = regularizeSeries(this._source, times, this._values.toArray(), lineOf, this._options.tau0);
-    return { name: this._name, type: this._type!, ...reg, timeSystem: header.timeSystem };
+    const reg = regularizeSeries(this._source, this._times.toArray(), this._values.toArray(), lineOf, this._options.tau0, first.scaleSeconds);
+    return seriesWithTimes({
+      name: this._name, type, epoch: first.epoch, t: reg.times, phase: reg.phase, tau0: reg.tau0, gaps: reg.gaps,
+      missing: reg.missing, timeSystem: header.timeSystem,
+    }, first.scaleSeconds);
   }
+}
+
+/** Adds the deprecated `times` (calendar count since 1980) as a property computed on first use. */
+function seriesWithTimes(series: Omit<RinexClockSeries, 'times'>, originScaleSeconds: number): RinexClockSeries {
+  let times: Float64Array | undefined;
+  return Object.defineProperty(series, 'times', {
+    enumerable: false,
+    get(): Float64Array {
+      if (times === undefined) {
+        times = new Float64Array(series.t.length);
+        for (const [k, t] of series.t.entries()) times[k] = originScaleSeconds + t;
+      }
+      return times;
+    },
+  }) as RinexClockSeries;
 }
 
 /** Throws unless `r` is a record as {@link parseRinexClock} returns (a hand-made or damaged record is refused, naming the field). */
 function requireClockRecord(argument: string, r: unknown): void {
   const rec = r as Partial<RinexClockRecord> | null;
   if (typeof rec !== 'object' || rec === null || typeof rec.name !== 'string' || !Number.isFinite(rec.bias) || !Number.isInteger(rec.line)
-    || typeof rec.epoch !== 'object' || rec.epoch === null || !validEpochFields(rec.epoch)) {
-    throw new InvalidArgumentError(argument, r, 'a record { name, type, epoch, bias (s), line } as parseRinexClock returns');
+    || !(rec.epoch instanceof Instant) || typeof rec.time !== 'object' || rec.time === null || !validEpochFields(rec.time)) {
+    throw new InvalidArgumentError(argument, r, 'a record { name, type, epoch: Instant, time, bias (s), line } as parseRinexClock returns');
   }
 }
 
@@ -132,8 +168,9 @@ function requireClockFile(file: unknown): void {
  * @param file     A parsed file ({@link parseRinexClock}).
  * @param name     Satellite or receiver name, e.g. `G05`.
  * @param options  `type` to choose AS or AR when a name has both; `tau0` (s) to impose the spacing.
- * @throws {ParseError} if the clock has no records, epochs repeat or go backwards, a step is not a whole
- *   multiple of τ0, or the series would exceed MAX_SERIES_SAMPLES (line of the offending record).
+ * @throws {InvalidArgumentError} if the file holds no record of the clock (the message lists the clocks present).
+ * @throws {ParseError} if epochs repeat or go backwards, a step is not a whole multiple of τ0, or the series
+ *   would exceed MAX_SERIES_SAMPLES (line of the offending record).
  */
 export function rinexClockSeries(file: RinexClockFile, name: string, options: RinexClockSeriesOptions = {}): RinexClockSeries {
   requireClockFile(file);
@@ -148,7 +185,8 @@ export function rinexClockSeries(file: RinexClockFile, name: string, options: Ri
  * @param source   File text or its chunks (sync or async iterable of strings).
  * @param name     Satellite or receiver name, e.g. `G05`.
  * @param options  `sourceName` for messages, `type` (AS/AR) and `tau0` (s) as in {@link rinexClockSeries}.
- * @throws {ParseError} from the reader (file, line, column) or as {@link rinexClockSeries}.
+ * @throws {ParseError} from the reader (file, line, column) or as {@link rinexClockSeries};
+ *   {@link InvalidArgumentError} when the file holds no record of the clock.
  */
 export async function readRinexClockSeries(source: TextSource, name: string,
   options: RinexClockReadOptions & RinexClockSeriesOptions = {}): Promise<RinexClockSeries> {
@@ -159,5 +197,7 @@ export async function readRinexClockSeries(source: TextSource, name: string,
     if (ev.kind === 'header') header = ev.header;
     else if (ev.kind === 'record') c.add(ev.record);
   }
-  return c.finish(header!);
+  // The reader refuses a file without a complete header, so a header event has been seen.
+  if (header === undefined) throw new Error('internal: RINEX clock reader ended without a header');
+  return c.finish(header);
 }

@@ -28,12 +28,15 @@
  *
  * @module
  */
-import { ParseError } from '../errors.js';
+import { InvalidArgumentError, ParseError } from '../errors.js';
 import type { Seconds } from '../units.js';
 import {
   linesOf, readLineBatches, requireTextLine, validEpochFields, type EpochFields, type TextLine, type TextSource,
 } from './line-reader.js';
 import { requireOptions, requireSourceName } from '../internal/validate.js';
+import type { Instant } from '../time/instant.js';
+import type { TimeScales } from '../time/scales.js';
+import { EpochPlacer, isReadableTimeSystem, READABLE_TIME_SYSTEMS, readerTimeScales } from './epochs.js';
 
 /** Header fields the reader interprets. */
 export interface RinexClockHeader {
@@ -45,6 +48,13 @@ export interface RinexClockHeader {
   readonly satelliteSystem: string | undefined;
   /** `TIME SYSTEM ID` (e.g. GPS, GAL, UTC) when present; the epochs are in this scale. */
   readonly timeSystem: string | undefined;
+  /**
+   * The time system the epochs are read on: `timeSystem`, or `GPS` when the header has no
+   * `TIME SYSTEM ID` line (GPS time is the format's default, RINEX clock 3.02 [M]).
+   */
+  readonly epochTimeSystem: string;
+  /** True when the header names no time system and GPS time is assumed. */
+  readonly timeSystemAssumed: boolean;
   /** Number of header lines, `END OF HEADER` included. */
   readonly lines: number;
 }
@@ -54,8 +64,10 @@ export interface RinexClockRecord {
   readonly type: 'AS' | 'AR';
   /** Satellite (e.g. `G05`) or receiver/station name as written (trailing blanks removed). */
   readonly name: string;
-  /** Epoch as written, in the file's time system. */
-  readonly epoch: EpochFields;
+  /** The epoch as an absolute instant: the record's calendar fields read on the header's time system, exact. */
+  readonly epoch: Instant;
+  /** The epoch's calendar fields as written (file's time system), for messages. */
+  readonly time: EpochFields;
   /** Clock bias (s). */
   readonly bias: Seconds;
   /** Bias sigma (s), when given. */
@@ -83,6 +95,8 @@ export type RinexClockEvent =
 export interface RinexClockReadOptions {
   /** Name used in error messages (default `rinex-clock`). */
   readonly sourceName?: string;
+  /** Leap-second table for UTC and GLONASS-time files (default: the bundled table, valid until 2027-06-28). */
+  readonly timeScales?: TimeScales;
 }
 
 /** A parsed RINEX clock file (whole file in memory; see {@link readRinexClock} for streaming). */
@@ -130,7 +144,8 @@ function plainEpoch(f: EpochFields): boolean {
 interface Pending {
   type: string;
   name: string;
-  epoch: EpochFields;
+  epoch: Instant;
+  time: EpochFields;
   count: number;
   values: number[];
   line: number;
@@ -149,10 +164,14 @@ export class RinexClockParser {
   private _timeSystem: string | undefined;
   private _lastLine = 0;
   private _pending: Pending | undefined;
+  private readonly _ts: TimeScales;
+  /** Places the records' epochs on the header's time system (built at the first record). */
+  private _placer: EpochPlacer | undefined;
 
   constructor(options: RinexClockReadOptions = {}) {
     requireOptions('options', options);
     this._source = options.sourceName === undefined ? 'rinex-clock' : requireSourceName('options.sourceName', options.sourceName);
+    this._ts = readerTimeScales(options.timeScales);
   }
 
   private _error(line: number, column: number | undefined, expected: string, found?: string): ParseError {
@@ -169,7 +188,7 @@ export class RinexClockParser {
       throw this._error(line.lineNumber, cr + 1, 'a line end of LF or CR LF (a lone CR inside a line would merge two lines)', JSON.stringify(line.text.slice(Math.max(0, cr - 10), cr + 10)));
     }
     if (!this._headerDone) return this._header(line);
-    if (this._pending) return this._continuation(line);
+    if (this._pending) return this._continuation(line, this._pending);
     if (line.text.trim() === '') return [];
     return this._record(line);
   }
@@ -197,13 +216,14 @@ export class RinexClockParser {
       const at = labelAt('RINEX VERSION / TYPE');
       if (at < 0) throw this._error(line.lineNumber, 61, '"RINEX VERSION / TYPE" header line (label in column 61, or 66 in version 3.04)', text);
       const m = /^\s*(\S+)(\s+)(\S?)/.exec(text.slice(0, at));
-      const version = m ? Number(m[1]) : Number.NaN;
-      const versionColumn = m ? m[0].indexOf(m[1]!) + 1 : 1;
+      const [whole = '', versionText = '', blanks = '', fileType = ''] = m ?? [];
+      const version = m ? Number(versionText) : Number.NaN;
+      const versionColumn = m ? whole.indexOf(versionText) + 1 : 1;
       if (!(version >= 2 && version < 2.995) && !(version >= 3 && version <= 3.05 + 1e-9)) {
-        throw this._error(line.lineNumber, versionColumn, 'a RINEX clock format version from 2.00 to 3.05', m?.[1] ?? '');
+        throw this._error(line.lineNumber, versionColumn, 'a RINEX clock format version from 2.00 to 3.05', versionText);
       }
-      const typeColumn = m && m[3] ? versionColumn + m[1]!.length + m[2]!.length : 21;
-      if (!m || m[3] !== 'C') throw this._error(line.lineNumber, typeColumn, 'file type "C" (clock data)', m?.[3] ?? '');
+      const typeColumn = fileType !== '' ? versionColumn + versionText.length + blanks.length : 21;
+      if (fileType !== 'C') throw this._error(line.lineNumber, typeColumn, 'file type "C" (clock data)', fileType);
       this._version = version;
       this._layout = version >= 3.04 - 1e-9 ? 'A9' : 'A4';
       // Satellite system: column 41 (up to 3.02) or 43 (3.04, whose fields are wider); blank in 2.00.
@@ -215,6 +235,9 @@ export class RinexClockParser {
     if (tsAt >= 0) {
       const t = text.slice(0, tsAt).trim();
       if (!/^[A-Z]{3}$/.test(t)) throw this._error(line.lineNumber, 4, 'a time system identifier (e.g. GPS) in columns 4-6', text.slice(0, tsAt));
+      if (!isReadableTimeSystem(t)) {
+        throw this._error(line.lineNumber, 4, `a time system the SDK can place on its scales (${READABLE_TIME_SYSTEMS}) in columns 4-6`, t);
+      }
       this._timeSystem = t;
       return [];
     }
@@ -227,7 +250,10 @@ export class RinexClockParser {
     this._headerDone = true;
     return [{
       kind: 'header',
-      header: { version: this._version, layout: this._layout, satelliteSystem: this._system, timeSystem: this._timeSystem, lines: line.lineNumber },
+      header: {
+        version: this._version, layout: this._layout, satelliteSystem: this._system, timeSystem: this._timeSystem,
+        epochTimeSystem: this._timeSystem ?? 'GPS', timeSystemAssumed: this._timeSystem === undefined, lines: line.lineNumber,
+      },
     }];
   }
 
@@ -247,10 +273,10 @@ export class RinexClockParser {
     const width = this._layout === 'A9' ? 9 : 4;
     const name = t.slice(3, 3 + width).trimEnd();
     if (name.trim() === '' || name.startsWith(' ') || t.charAt(3 + width) !== ' ') {
-      throw this._error(line.lineNumber, 4, `a receiver or satellite name in columns 4-${3 + width} (A${width}, RINEX clock ${this._version!.toFixed(2)}) followed by a blank`, t.slice(3, 4 + width));
+      throw this._error(line.lineNumber, 4, `a receiver or satellite name in columns 4-${3 + width} (A${width}, RINEX clock ${this._version?.toFixed(2) ?? ''}) followed by a blank`, t.slice(3, 4 + width));
     }
     const s = 4 + width; // 0-based start of the epoch (column 9 or 14)
-    const epoch: EpochFields = {
+    const time: EpochFields = {
       year: this._int(line, s, s + 4, 'epoch year'),
       month: this._int(line, s + 4, s + 7, 'epoch month'),
       day: this._int(line, s + 7, s + 10, 'epoch day'),
@@ -258,15 +284,18 @@ export class RinexClockParser {
       minute: this._int(line, s + 13, s + 16, 'epoch minute'),
       second: this._second(line, s + 16, s + 26),
     };
-    if (!plainEpoch(epoch) && !validEpochFields(epoch)) {
+    if (!plainEpoch(time) && !validEpochFields(time)) {
       throw this._error(line.lineNumber, s + 1, `a valid epoch "yyyy mm dd hh mm ss.ssssss" in columns ${s + 1}-${s + 26}`, t.slice(s, s + 26));
     }
+    this._placer ??= new EpochPlacer(this._ts, this._timeSystem ?? 'GPS');
+    const epoch = this._placer.place(time, { source: this._source, line: line.lineNumber, column: s + 1, text: t.slice(s, s + 26) });
     const count = this._int(line, s + 26, s + 29, 'number of data values');
     if (count < 1 || count > 6) throw this._error(line.lineNumber, s + 27, `a number of data values from 1 to 6 in columns ${s + 27}-${s + 29}`, String(count));
     const onLine = Math.min(2, count);
     const values = this._values(line, s + 29, VALUE_ENDS[this._layout].record.slice(0, onLine), 0, count);
-    this._pending = { type, name, epoch, count, values, line: line.lineNumber };
-    return count === onLine ? this._complete() : [];
+    const pending: Pending = { type, name, epoch, time, count, values, line: line.lineNumber };
+    this._pending = pending;
+    return count === onLine ? this._complete(pending) : [];
   }
 
   private _second(line: TextLine, a: number, b: number): number {
@@ -275,11 +304,10 @@ export class RinexClockParser {
     return Number(s);
   }
 
-  private _continuation(line: TextLine): RinexClockEvent[] {
-    const p = this._pending!;
+  private _continuation(line: TextLine, p: Pending): RinexClockEvent[] {
     const need = p.count - p.values.length;
     p.values.push(...this._values(line, 0, VALUE_ENDS[this._layout].continuation.slice(0, need), p.values.length, p.count, p.line));
-    return this._complete();
+    return this._complete(p);
   }
 
   /**
@@ -290,24 +318,23 @@ export class RinexClockParser {
     const t = line.text;
     const n = t.length;
     const out: number[] = [];
-    const what = (k: number) => `${VALUE_NAMES[first + k]} (value ${first + k + 1} of ${count}, E19.12 in columns ${ends[k]! - 18}-${ends[k]})` +
+    const what = (k: number, end: number) => `${VALUE_NAMES[first + k]} (value ${first + k + 1} of ${count}, E19.12 in columns ${end - 18}-${end})` +
       (recordLine === undefined ? '' : ` (continuation of the record on line ${recordLine})`);
     let pos = from;
-    for (let k = 0; k < ends.length; k++) {
-      const end = ends[k]!;
+    for (const [k, end] of ends.entries()) {
       while (pos < n && t.charCodeAt(pos) === 32) pos++;
-      if (pos >= n) throw this._error(line.lineNumber, t.trimEnd().length + 1, `${what(k)}: the line ends before it (record cut)`, t.slice(Math.max(0, end - 19)));
+      if (pos >= n) throw this._error(line.lineNumber, t.trimEnd().length + 1, `${what(k, end)}: the line ends before it (record cut)`, t.slice(Math.max(0, end - 19)));
       let stop = pos;
       while (stop < n && t.charCodeAt(stop) !== 32) stop++;
       const tok = t.slice(pos, stop);
       if (tok.length > 19 || !E_FORMAT.test(tok)) {
-        throw this._error(line.lineNumber, pos + 1, `${what(k)}: a complete number in exponent form such as -0.123456789012E-03`, tok);
+        throw this._error(line.lineNumber, pos + 1, `${what(k, end)}: a complete number in exponent form such as -0.123456789012E-03`, tok);
       }
       if (stop !== end && stop !== end - 1) {
-        throw this._error(line.lineNumber, pos + 1, `${what(k)}: a field ending in column ${end}; it ends in column ${stop}`, tok);
+        throw this._error(line.lineNumber, pos + 1, `${what(k, end)}: a field ending in column ${end}; it ends in column ${stop}`, tok);
       }
       const v = Number(tok.includes('D') || tok.includes('d') ? tok.replace(/[Dd]/, 'E') : tok);
-      if (!Number.isFinite(v)) throw this._error(line.lineNumber, pos + 1, `${what(k)}: a finite number`, tok);
+      if (!Number.isFinite(v)) throw this._error(line.lineNumber, pos + 1, `${what(k, end)}: a finite number`, tok);
       out.push(v);
       pos = stop;
     }
@@ -321,15 +348,14 @@ export class RinexClockParser {
     return out;
   }
 
-  private _complete(): RinexClockEvent[] {
-    const p = this._pending!;
+  private _complete(p: Pending): RinexClockEvent[] {
     this._pending = undefined;
     if (p.type === 'AS' || p.type === 'AR') {
       const v = p.values;
       return [{
         kind: 'record',
         record: {
-          type: p.type, name: p.name, epoch: p.epoch, bias: v[0]!, biasSigma: v[1], rate: v[2], rateSigma: v[3],
+          type: p.type, name: p.name, epoch: p.epoch, time: p.time, bias: v[0] ?? Number.NaN, biasSigma: v[1], rate: v[2], rateSigma: v[3],
           acceleration: v[4], accelerationSigma: v[5], line: p.line,
         },
       }];
@@ -338,9 +364,16 @@ export class RinexClockParser {
   }
 }
 
-/** Options as an object, or the source name alone (the form of earlier releases). */
-function readOptions(options: RinexClockReadOptions | string | undefined): RinexClockReadOptions {
-  return typeof options === 'string' ? { sourceName: options } : requireOptions('options', options);
+/**
+ * The reader options. The string form of earlier releases (the source name alone) is refused with a
+ * typed error saying what to write instead: every reader takes `{ sourceName }`.
+ */
+function readOptions(options: RinexClockReadOptions | undefined): RinexClockReadOptions {
+  if (typeof options === 'string') {
+    throw new InvalidArgumentError('options', options, 'an options object { sourceName }',
+      `the source name alone is no longer accepted: write { sourceName: ${JSON.stringify(options)} }`);
+  }
+  return requireOptions('options', options ?? {});
 }
 
 /**
@@ -348,7 +381,7 @@ function readOptions(options: RinexClockReadOptions | string | undefined): Rinex
  * record (`record` for AS/AR, `other` for CR/DR/MS).
  *
  * @param source   File text or its chunks (sync or async iterable of strings).
- * @param options  `sourceName` for error messages (a string is taken as the source name).
+ * @param options  `sourceName` for error messages; `timeScales` for UTC/GLONASS-time files.
  * @returns An async generator of {@link RinexClockEvent}.
  * @throws {ParseError} (file, line, column) on a missing or wrong version line, a missing `END OF HEADER`, a lone
  *   CR inside a line, an unknown record type, a field outside its columns, a bad epoch, a value count outside 1–6,
@@ -356,7 +389,7 @@ function readOptions(options: RinexClockReadOptions | string | undefined): Rinex
  * @see J. Ray, W. Gurtner, RINEX Extensions to Handle Clock Information, 2.00 (1999), 3.02 (2010) [V1 change list, M
  *   columns]; 3.04 with M. J. Coleman (2017) [M, example file V2].
  */
-export async function* readRinexClock(source: TextSource, options?: RinexClockReadOptions | string): AsyncGenerator<RinexClockEvent> {
+export async function* readRinexClock(source: TextSource, options?: RinexClockReadOptions): AsyncGenerator<RinexClockEvent> {
   const opts = readOptions(options);
   const parser = new RinexClockParser(opts);
   for await (const lines of readLineBatches(source, { sourceName: opts.sourceName ?? 'rinex-clock' })) {
@@ -367,12 +400,12 @@ export async function* readRinexClock(source: TextSource, options?: RinexClockRe
 
 /**
  * Reads a whole RINEX clock file held in memory (see {@link readRinexClock} for streaming).
- * @param options  `sourceName` for error messages (a string is taken as the source name). Default `rinex-clock`.
+ * @param options  `sourceName` for error messages (default `rinex-clock`); `timeScales` for UTC/GLONASS-time files.
  * @returns Header, AS/AR records in file order, and counts of the other record types.
  * @throws {ParseError} as {@link readRinexClock}.
  * @see RINEX clock 2.00–3.04 (Ray, Gurtner, Coleman) [M].
  */
-export function parseRinexClock(source: string | Iterable<string>, options?: RinexClockReadOptions | string): RinexClockFile {
+export function parseRinexClock(source: string | Iterable<string>, options?: RinexClockReadOptions): RinexClockFile {
   const opts = readOptions(options);
   const parser = new RinexClockParser(opts);
   let header: RinexClockHeader | undefined;
@@ -387,5 +420,7 @@ export function parseRinexClock(source: string | Iterable<string>, options?: Rin
   };
   for (const line of linesOf(source, { sourceName: opts.sourceName ?? 'rinex-clock' })) take(parser.push(line));
   take(parser.finish());
-  return { sourceName: opts.sourceName ?? 'rinex-clock', header: header!, records, otherRecords: other };
+  // finish() refuses a file without a complete header, so a header event has been seen.
+  if (header === undefined) throw new Error('internal: RINEX clock parser finished without a header');
+  return { sourceName: opts.sourceName ?? 'rinex-clock', header, records, otherRecords: other };
 }

@@ -112,8 +112,9 @@ export class NavHeaderReader {
       this._ionosphere.push({ type: label === 'ION ALPHA' ? 'GPSA' : 'GPSB', parametersBroadcastUnits: this._reals(line, 2, 12, 4, label), line: line.lineNumber });
     } else if (v2 && label === 'DELTA-UTC: A0,A1,T,W') {
       // RINEX 2.11 Table A3: 3X,2D19.12,2I9; W a continuous week number [V1].
-      const [a0, a1] = this._reals(line, 3, 19, 2, label, true) as number[];
-      this._corrections.push({ type: 'GPUT', a0: a0!, a1: a1!, referenceSecondsOfWeek: this._int(line, 41, 9, 'T, reference time of UTC data (I9, seconds of week)'),
+      const a0 = this._real(line, 3, 19, `${label} parameter 1`);
+      const a1 = this._real(line, 22, 19, `${label} parameter 2`);
+      this._corrections.push({ type: 'GPUT', a0, a1, referenceSecondsOfWeek: this._int(line, 41, 9, 'T, reference time of UTC data (I9, seconds of week)'),
         referenceWeek: this._int(line, 50, 9, 'W, UTC reference week (I9, continuous)'), line: line.lineNumber });
     } else if (!v2 && label === 'IONOSPHERIC CORR') {
       // RINEX 3.05: A4,1X,4D12.4 [M].

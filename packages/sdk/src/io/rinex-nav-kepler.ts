@@ -8,7 +8,8 @@
  */
 import { ParseError } from '../errors.js';
 import type { KeplerianNavMessage, KeplerianSystem } from '../orbit/broadcast.js';
-import { defaultFitIntervalSeconds, isBeidouGeostationary } from '../orbit/broadcast.js';
+import { defaultFitIntervalSeconds, isBeidouGeostationary, SYSTEM_TIME_SCALE } from '../orbit/broadcast.js';
+import { instantFromScaleSeconds } from '../time/file-epochs.js';
 import { type EpochFields, type TextLine, parseFortranReal, scaleSecondsFromFields } from './line-reader.js';
 import type { RinexNavEphemeris } from './rinex-nav-types.js';
 
@@ -190,10 +191,10 @@ export function decodeKeplerRecord(source: string, lines: readonly TextLine[], s
 
   const groupDelays: Record<string, number> = {};
   let issueOfDataClock: number | undefined;
-  const names = system === 'G' ? ['TGD'] : system === 'E' ? ['BGD_E5a_E1', 'BGD_E5b_E1'] : ['TGD1', 'TGD2'];
-  if (f.gd1 !== undefined) groupDelays[names[0]!] = f.gd1;
+  const [firstName, secondName] = system === 'G' ? ['TGD', ''] : system === 'E' ? ['BGD_E5a_E1', 'BGD_E5b_E1'] : ['TGD1', 'TGD2'];
+  if (f.gd1 !== undefined) groupDelays[firstName] = f.gd1;
   if (system === 'G') issueOfDataClock = f.gd2;
-  else if (f.gd2 !== undefined) groupDelays[names[1]!] = f.gd2;
+  else if (f.gd2 !== undefined) groupDelays[secondName] = f.gd2;
   if (system === 'C') issueOfDataClock = f.field7b;
 
   return {
@@ -201,6 +202,8 @@ export function decodeKeplerRecord(source: string, lines: readonly TextLine[], s
     m0: f.m0!, deltaN: f.deltaN!, omega0: f.omega0!, i0: f.i0!, argumentOfPerigee: f.argumentOfPerigee!, omegaDot: f.omegaDot!,
     idot: f.idot!, cuc: f.cuc!, cus: f.cus!, cic: f.cic!, cis: f.cis!, crc: f.crc!, crs: f.crs!, health: f.health!, fitIntervalSeconds,
     ...(transmissionSeconds !== undefined ? { transmissionSeconds } : {}),
+    tocInstant: instantFromScaleSeconds(tocSeconds, SYSTEM_TIME_SCALE[system]),
+    toeInstant: instantFromScaleSeconds(toeSeconds, SYSTEM_TIME_SCALE[system]),
     toc: start.toc, weekAsWritten: week, toeSecondsOfWeek: toe,
     ...(f.accuracy !== undefined ? { accuracy: f.accuracy } : {}),
     groupDelays,

@@ -7,6 +7,7 @@
 import type { Seconds } from '../units.js';
 import type { KeplerianBroadcastEphemeris } from '../orbit/broadcast.js';
 import type { EpochFields } from './line-reader.js';
+import type { Instant } from '../time/instant.js';
 
 /** One-letter system codes of RINEX 3/4 (G GPS, R GLONASS, E Galileo, C BeiDou, J QZSS, I NavIC, S SBAS). */
 export type RinexSystemCode = 'G' | 'R' | 'E' | 'C' | 'J' | 'I' | 'S';
@@ -94,6 +95,10 @@ export interface RinexNavHeader {
 
 /** A modelled ephemeris record as read, with the raw fields that the computation does not need. */
 export interface RinexNavEphemeris extends KeplerianBroadcastEphemeris {
+  /** t_oc as an absolute instant (the epoch fields read on the system's own scale: GPST, GST or BDT). */
+  readonly tocInstant: Instant;
+  /** t_oe as an absolute instant (week resolved, on the system's own scale). */
+  readonly toeInstant: Instant;
   /** Clock reference epoch t_oc as written (a RINEX 2 two-digit year already expanded), in the system's own time scale. */
   readonly toc: EpochFields;
   /** Week number as written in the record (GPS, Galileo-aligned-to-GPS or BDT week). */

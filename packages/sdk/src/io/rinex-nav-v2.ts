@@ -124,9 +124,8 @@ export class NavV2Body {
     if (!/^ *\d{1,2}(\.\d*)?$/.test(secondText) && !/^ *\.\d+$/.test(secondText)) {
       throw err(18, 'the epoch second in columns 18-22 (format F5.1)', secondText);
     }
-    const toc: EpochFields = {
-      year: fullYearFromTwoDigits(ints[0]!), month: ints[1]!, day: ints[2]!, hour: ints[3]!, minute: ints[4]!, second: Number(secondText),
-    };
+    const [yy = Number.NaN, month = Number.NaN, day = Number.NaN, hour = Number.NaN, minute = Number.NaN] = ints;
+    const toc: EpochFields = { year: fullYearFromTwoDigits(yy), month, day, hour, minute, second: Number(secondText) };
     if (!validEpochFields(toc) || toc.second >= 60) throw err(4, 'a valid calendar epoch (yy mm dd hh mm ss.s)', text.slice(3, 22));
     return { prn: Number(prnText), toc };
   }

@@ -214,7 +214,8 @@ export class RinexNavParser {
       if (!/^ *\d+$/.test(t)) throw this._error(l0, a + 1, `the epoch ${what} in columns ${a + 1}-${b}`, t);
       ints.push(Number(t));
     }
-    const toc: EpochFields = { year: ints[0]!, month: ints[1]!, day: ints[2]!, hour: ints[3]!, minute: ints[4]!, second: ints[5]! };
+    const [year = Number.NaN, month = Number.NaN, day = Number.NaN, hour = Number.NaN, minute = Number.NaN, second = Number.NaN] = ints;
+    const toc: EpochFields = { year, month, day, hour, minute, second };
     if (!validEpochFields(toc) || toc.second >= 60) throw this._error(l0, 5, 'a valid calendar epoch (year month day hour minute second)', text.slice(4, 23));
     return toc;
   }
@@ -275,5 +276,7 @@ export function parseRinexNav(source: string | Iterable<string>, options: RinexN
   };
   for (const line of linesOf(source, { sourceName: options.sourceName ?? 'rinex-nav' })) take(parser.push(line));
   take(parser.finish());
-  return { header: header!, ephemerides, skipped };
+  // finish() refuses a file without a complete header, so a header event has been seen.
+  if (header === undefined) throw new Error('internal: RINEX navigation parser finished without a header');
+  return { header, ephemerides, skipped };
 }

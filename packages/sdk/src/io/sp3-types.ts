@@ -4,6 +4,8 @@
  * @module
  */
 import type { Seconds, Vector3 } from '../units.js';
+import type { Instant } from '../time/instant.js';
+import type { TimeScales } from '../time/scales.js';
 import type { EpochFields } from './line-reader.js';
 
 /** SP3 time-system identifiers (SP3-c/d `%c` line, columns 10-12 [M]). */
@@ -19,8 +21,10 @@ export interface Sp3Header {
   readonly version: Sp3Version;
   /** Whether the file declares velocity records (`V` in column 3 of line 1). */
   readonly hasVelocities: boolean;
-  /** First epoch, in the file's time system. */
+  /** First epoch as written on line 1 (calendar fields in the file's time system). */
   readonly firstEpoch: EpochFields;
+  /** The first epoch as an absolute instant (the line-1 fields read on {@link Sp3Header.timeSystem}). */
+  readonly firstInstant: Instant;
   /** Number of epochs declared on line 1. */
   readonly epochCount: number;
   readonly dataUsed: string;
@@ -75,10 +79,10 @@ export interface Sp3SatelliteRecord {
 
 /** One epoch block. */
 export interface Sp3Epoch {
-  /** Epoch, in the file's time system. */
+  /** The epoch as an absolute instant: the epoch line's fields read on the file's time system, exact. */
+  readonly epoch: Instant;
+  /** The epoch line's calendar fields as written (file's time system), for messages. */
   readonly time: EpochFields;
-  /** Seconds since 1980-01-06T00:00:00 of the file's time scale (calendar count, no leap seconds). */
-  readonly scaleSeconds: Seconds;
   readonly line: number;
   readonly records: readonly Sp3SatelliteRecord[];
   /**
@@ -98,6 +102,8 @@ export type Sp3Event =
 export interface Sp3ReadOptions {
   /** Name used in error messages (default `sp3`). */
   readonly sourceName?: string;
+  /** Leap-second table for UTC and GLONASS-time files (default: the bundled table, valid until 2027-06-28). */
+  readonly timeScales?: TimeScales;
 }
 
 /** A whole SP3 file read into memory by {@link parseSp3}. */

@@ -32,8 +32,11 @@ import type {
   Sp3Epoch, Sp3Event, Sp3File, Sp3Header, Sp3ReadOptions, Sp3TimeSystem, Sp3Version,
 } from './sp3-types.js';
 import {
-  type EpochFields, type TextLine, type TextSource, linesOf, readLineBatches, requireTextLine, scaleSecondsFromFields, validEpochFields,
+  type EpochFields, type TextLine, type TextSource, linesOf, readLineBatches, requireTextLine, validEpochFields,
 } from './line-reader.js';
+import type { Instant } from '../time/instant.js';
+import type { TimeScales } from '../time/scales.js';
+import { fileEpochInstant, isReadableTimeSystem, readerTimeScales } from './epochs.js';
 
 export type {
   Sp3TimeSystem, Sp3Version, Sp3Header, Sp3SatelliteRecord, Sp3Epoch, Sp3Event, Sp3ReadOptions, Sp3File,
@@ -68,6 +71,28 @@ interface MutableRecord {
   line: number;
 }
 
+/** What line 1 says (the line itself is kept to place its first epoch once the time system is known). */
+interface Line1 {
+  readonly line: TextLine;
+  readonly version: Sp3Version;
+  readonly hasVelocities: boolean;
+  readonly firstEpoch: EpochFields;
+  readonly epochCount: number;
+  readonly dataUsed: string;
+  readonly coordinateFrame: string;
+  readonly orbitType: string;
+  readonly agency: string;
+}
+
+/** What line 2 says. */
+interface Line2 {
+  readonly gpsWeek: number;
+  readonly secondsOfWeek: number;
+  readonly epochInterval: number;
+  readonly modifiedJulianDay: number;
+  readonly fractionalDay: number;
+}
+
 /**
  * Incremental SP3 parser: feed lines with {@link Sp3Parser.push}, end with {@link Sp3Parser.finish}.
  * Most callers use {@link readSp3} or {@link parseSp3}.
@@ -76,23 +101,32 @@ export class Sp3Parser {
   private readonly _source: string;
   private _stage: 'line1' | 'line2' | 'header' | 'body' | 'eof' = 'line1';
   private _lastLine = 0;
+  private _line1: Line1 | undefined;
+  private _line2: Line2 | undefined;
+  /** The header, once the first epoch line has ended it. */
+  private _header: Sp3Header | undefined;
   private _h: {
-    version?: Sp3Version; hasVelocities?: boolean; firstEpoch?: EpochFields; epochCount?: number; dataUsed?: string;
-    coordinateFrame?: string; orbitType?: string; agency?: string; gpsWeek?: number; secondsOfWeek?: number;
-    epochInterval?: number; modifiedJulianDay?: number; fractionalDay?: number; satelliteCount?: number;
+    version?: Sp3Version; satelliteCount?: number;
     satellites: string[]; accuracy: number[]; fileType?: string; timeSystem?: Sp3TimeSystem; positionBase?: number;
     clockBase?: number; comments: string[]; percentC: number; timeSystemAssumed: boolean;
     /** Header lines seen per tag (`+ `, `++`, `%c`, `%f`, `%i`, `/*`), to check the fixed SP3-a/b layout. */
     tagCounts: Record<string, number>;
   } = { satellites: [], accuracy: [], comments: [], percentC: 0, timeSystemAssumed: false, tagCounts: {} };
   private _satelliteSet = new Set<string>();
-  private _epoch: { time: EpochFields; scaleSeconds: number; line: number; records: MutableRecord[]; seen: Set<string> } | undefined;
+  private _epoch: { epoch: Instant; time: EpochFields; line: number; records: MutableRecord[]; seen: Set<string> } | undefined;
   private _epochsSeen = 0;
-  private _lastScaleSeconds = -Infinity;
+  private _lastEpoch: Instant | undefined;
+  private readonly _ts: TimeScales;
 
   constructor(options: Sp3ReadOptions = {}) {
     requireOptions('options', options);
     this._source = options.sourceName === undefined ? 'sp3' : requireSourceName('options.sourceName', options.sourceName);
+    this._ts = readerTimeScales(options.timeScales);
+  }
+
+  /** The instant of an epoch line's fields on the file's time system. @throws {ParseError} */
+  private _instant(line: TextLine, fields: EpochFields, timeSystem: Sp3TimeSystem): Instant {
+    return fileEpochInstant(this._ts, fields, timeSystem, { source: this._source, line: line.lineNumber, column: 4, text: line.text.slice(3, 31) });
   }
 
   private _error(line: TextLine, column: number | undefined, expected: string, found?: string): ParseError {
@@ -105,13 +139,14 @@ export class Sp3Parser {
     this._lastLine = line.lineNumber;
     const t = line.text;
     switch (this._stage) {
-      case 'line1': this._line1(line); this._stage = 'line2'; return [];
-      case 'line2': this._line2(line); this._stage = 'header'; return [];
+      case 'line1': this._line1 = this._readLine1(line); this._stage = 'line2'; return [];
+      case 'line2': this._line2 = this._readLine2(line); this._stage = 'header'; return [];
       case 'header':
         if (t.startsWith('*')) {
           const header = this._finishHeader(line);
+          this._header = header;
           this._stage = 'body';
-          this._startEpoch(line);
+          this._startEpoch(line, header);
           return [{ kind: 'header', header }];
         }
         this._headerLine(line);
@@ -159,6 +194,13 @@ export class Sp3Parser {
     return v;
   }
 
+  /** A required real number (see {@link Sp3Parser._real}): a blank field is refused. */
+  private _required(line: TextLine, a: number, b: number, what: string, limit = Infinity): number {
+    const v = this._real(line, a, b, what, false, limit);
+    if (v === undefined) throw this._error(line, a + 1, `${what} (a number in columns ${a + 1}-${b})`, line.text.slice(a, b));
+    return v;
+  }
+
   private _epochFields(line: TextLine, what: string): EpochFields {
     const f: EpochFields = {
       year: this._int(line, 3, 7, `${what} year`),
@@ -166,13 +208,13 @@ export class Sp3Parser {
       day: this._int(line, 11, 13, `${what} day`),
       hour: this._int(line, 14, 16, `${what} hour`),
       minute: this._int(line, 17, 19, `${what} minute`),
-      second: this._real(line, 20, 31, `${what} second`)!,
+      second: this._required(line, 20, 31, `${what} second`),
     };
     if (!validEpochFields(f) || f.second >= 60) throw this._error(line, 4, `a valid calendar ${what}`, line.text.slice(3, 31));
     return f;
   }
 
-  private _line1(line: TextLine): void {
+  private _readLine1(line: TextLine): Line1 {
     const t = line.text;
     if (t.charAt(0) !== '#' || t.charAt(1) === '#') throw this._error(line, 1, "an SP3 first line starting with '#a', '#b', '#c' or '#d'", t.slice(0, 2));
     const v = t.charAt(1);
@@ -180,26 +222,25 @@ export class Sp3Parser {
     const pv = t.charAt(2);
     if (pv !== 'P' && pv !== 'V') throw this._error(line, 3, "position/velocity flag 'P' or 'V' in column 3", pv);
     this._h.version = v;
-    this._h.hasVelocities = pv === 'V';
-    this._h.firstEpoch = this._epochFields(line, 'first epoch');
+    const firstEpoch = this._epochFields(line, 'first epoch');
     const n = this._int(line, 32, 39, 'number of epochs');
     if (n < 1) throw this._error(line, 33, 'a positive number of epochs in columns 33-39', String(n));
-    this._h.epochCount = n;
-    this._h.dataUsed = t.slice(40, 45).trim();
-    this._h.coordinateFrame = t.slice(46, 51).trim();
-    this._h.orbitType = t.slice(52, 55).trim();
-    this._h.agency = t.slice(56, 60).trim();
+    return {
+      line, version: v, hasVelocities: pv === 'V', firstEpoch, epochCount: n, dataUsed: t.slice(40, 45).trim(),
+      coordinateFrame: t.slice(46, 51).trim(), orbitType: t.slice(52, 55).trim(), agency: t.slice(56, 60).trim(),
+    };
   }
 
-  private _line2(line: TextLine): void {
+  private _readLine2(line: TextLine): Line2 {
     if (!line.text.startsWith('##')) throw this._error(line, 1, "the second header line starting with '##'", line.text.slice(0, 2));
-    this._h.gpsWeek = this._int(line, 3, 7, 'GPS week');
-    this._h.secondsOfWeek = this._real(line, 8, 23, 'seconds of week')!;
-    const interval = this._real(line, 24, 38, 'epoch interval (s)')!;
+    const gpsWeek = this._int(line, 3, 7, 'GPS week');
+    const secondsOfWeek = this._required(line, 8, 23, 'seconds of week');
+    const interval = this._required(line, 24, 38, 'epoch interval (s)');
     if (!(interval > 0)) throw this._error(line, 25, 'a positive epoch interval in seconds', String(interval));
-    this._h.epochInterval = interval;
-    this._h.modifiedJulianDay = this._int(line, 39, 44, 'modified Julian day');
-    this._h.fractionalDay = this._real(line, 45, 60, 'fractional day')!;
+    return {
+      gpsWeek, secondsOfWeek, epochInterval: interval, modifiedJulianDay: this._int(line, 39, 44, 'modified Julian day'),
+      fractionalDay: this._required(line, 45, 60, 'fractional day'),
+    };
   }
 
   private _headerLine(line: TextLine): void {
@@ -276,6 +317,9 @@ export class Sp3Parser {
       const also = legacy ? " (or the SP3-a/b placeholder 'ccc': GPS time)" : '';
       throw this._error(line, 10, `a time system (${TIME_SYSTEMS.join(', ')}) in columns 10-12${also}`, ts);
     }
+    if (!isReadableTimeSystem(ts)) {
+      throw this._error(line, 10, `a time system the SDK can place on its scales (${TIME_SYSTEMS.filter(isReadableTimeSystem).join(', ')}) in columns 10-12`, ts);
+    }
     this._h.timeSystem = ts as Sp3TimeSystem;
   }
 
@@ -297,6 +341,10 @@ export class Sp3Parser {
 
   private _finishHeader(line: TextLine): Sp3Header {
     const h = this._h;
+    const first = this._line1;
+    const second = this._line2;
+    // The stages read lines 1 and 2 before any header line.
+    if (first === undefined || second === undefined) throw new Error('internal: SP3 header ended before lines 1 and 2 were read');
     if (h.satelliteCount === undefined) throw this._error(line, 1, "the satellite list ('+ ' lines) before the first epoch", line.text);
     if (h.satellites.length !== h.satelliteCount) {
       throw this._error(line, 1, `${h.satelliteCount} satellite identifiers in the '+ ' lines (found ${h.satellites.length})`, line.text);
@@ -311,13 +359,18 @@ export class Sp3Parser {
         }
       }
     }
+    // The first epoch of line 1 is placed only now: the `%c` line names its time system.
+    const firstInstant = this._instant(first.line, first.firstEpoch, h.timeSystem);
     const accuracyExponents: Record<string, number> = {};
-    h.satellites.forEach((s, i) => { if (h.accuracy[i] !== undefined) accuracyExponents[s] = h.accuracy[i]!; });
+    for (const [i, s] of h.satellites.entries()) {
+      const exponent = h.accuracy[i];
+      if (exponent !== undefined) accuracyExponents[s] = exponent;
+    }
     return {
-      sourceName: this._source, version: h.version!, hasVelocities: h.hasVelocities!, firstEpoch: h.firstEpoch!,
-      epochCount: h.epochCount!, dataUsed: h.dataUsed!, coordinateFrame: h.coordinateFrame!, orbitType: h.orbitType!,
-      agency: h.agency!, gpsWeek: h.gpsWeek!, secondsOfWeek: h.secondsOfWeek!, epochInterval: h.epochInterval!,
-      modifiedJulianDay: h.modifiedJulianDay!, fractionalDay: h.fractionalDay!, satellites: h.satellites,
+      sourceName: this._source, version: first.version, hasVelocities: first.hasVelocities, firstEpoch: first.firstEpoch, firstInstant,
+      epochCount: first.epochCount, dataUsed: first.dataUsed, coordinateFrame: first.coordinateFrame, orbitType: first.orbitType,
+      agency: first.agency, gpsWeek: second.gpsWeek, secondsOfWeek: second.secondsOfWeek, epochInterval: second.epochInterval,
+      modifiedJulianDay: second.modifiedJulianDay, fractionalDay: second.fractionalDay, satellites: h.satellites,
       accuracyExponents, fileType: h.fileType ?? '', timeSystem: h.timeSystem, timeSystemAssumed: h.timeSystemAssumed,
       ...(h.positionBase !== undefined ? { positionBase: h.positionBase } : {}),
       ...(h.clockBase !== undefined ? { clockBase: h.clockBase } : {}),
@@ -325,17 +378,17 @@ export class Sp3Parser {
     };
   }
 
-  private _startEpoch(line: TextLine): void {
+  private _startEpoch(line: TextLine, header: Sp3Header): void {
     if (!line.text.startsWith('* ')) throw this._error(line, 1, "an epoch line starting with '* '", line.text.slice(0, 2));
     const time = this._epochFields(line, 'epoch');
-    const scaleSeconds = scaleSecondsFromFields(time);
-    if (!(scaleSeconds > this._lastScaleSeconds)) throw this._error(line, 4, 'epochs in increasing time order', line.text.slice(3, 31));
+    const epoch = this._instant(line, time, header.timeSystem);
+    if (this._lastEpoch !== undefined && !epoch.isAfter(this._lastEpoch)) throw this._error(line, 4, 'epochs in increasing time order', line.text.slice(3, 31));
     this._epochsSeen++;
-    if (this._epochsSeen > this._h.epochCount!) {
-      throw this._error(line, 1, `no more than the ${this._h.epochCount} epochs declared on line 1`, line.text);
+    if (this._epochsSeen > header.epochCount) {
+      throw this._error(line, 1, `no more than the ${header.epochCount} epochs declared on line 1`, line.text);
     }
-    this._lastScaleSeconds = scaleSeconds;
-    this._epoch = { time, scaleSeconds, line: line.lineNumber, records: [], seen: new Set() };
+    this._lastEpoch = epoch;
+    this._epoch = { epoch, time, line: line.lineNumber, records: [], seen: new Set() };
   }
 
   private _emitEpoch(): Sp3Event[] {
@@ -343,25 +396,30 @@ export class Sp3Parser {
     this._epoch = undefined;
     if (!e) return [];
     const missingSatellites = e.seen.size === this._h.satellites.length ? [] : this._h.satellites.filter((s) => !e.seen.has(s));
-    return [{ kind: 'epoch', epoch: { time: e.time, scaleSeconds: e.scaleSeconds, line: e.line, records: e.records, missingSatellites } }];
+    return [{ kind: 'epoch', epoch: { epoch: e.epoch, time: e.time, line: e.line, records: e.records, missingSatellites } }];
   }
 
   private _body(line: TextLine): Sp3Event[] {
     const t = line.text;
+    const header = this._header;
+    // The body stage starts with the header finished.
+    if (header === undefined) throw new Error('internal: SP3 body line before the header');
     if (t.startsWith('*')) {
       const events = this._emitEpoch();
-      this._startEpoch(line);
+      this._startEpoch(line, header);
       return events;
     }
     if (t.startsWith('EOF')) {
       const events = this._emitEpoch();
-      if (this._epochsSeen !== this._h.epochCount) {
-        throw this._error(line, 1, `${this._h.epochCount} epochs as declared on line 1 (found ${this._epochsSeen}: truncated?)`, t);
+      if (this._epochsSeen !== header.epochCount) {
+        throw this._error(line, 1, `${header.epochCount} epochs as declared on line 1 (found ${this._epochsSeen}: truncated?)`, t);
       }
       this._stage = 'eof';
       return events;
     }
-    const epoch = this._epoch!;
+    const epoch = this._epoch;
+    // Every epoch line opens an epoch; none is open only after a refused epoch line.
+    if (epoch === undefined) throw this._error(line, 1, "a valid epoch line '*  ' before this record", t.slice(0, 3));
     const legacy = this._h.version === 'a' || this._h.version === 'b';
     if (legacy && (t.startsWith('P') || t.startsWith('V')) && t.length > 60 && t.slice(60).trim() !== '') {
       const at = 61 + (t.slice(60).length - t.slice(60).trimStart().length);
@@ -371,9 +429,9 @@ export class Sp3Parser {
       const satellite = this._satellite(line);
       if (epoch.seen.has(satellite)) throw this._error(line, 2, `one position record for ${satellite} per epoch`, satellite);
       epoch.seen.add(satellite);
-      const x = this._real(line, 4, 18, 'x (km)', false, F14_6_LIMIT)!;
-      const y = this._real(line, 18, 32, 'y (km)', false, F14_6_LIMIT)!;
-      const z = this._real(line, 32, 46, 'z (km)', false, F14_6_LIMIT)!;
+      const x = this._required(line, 4, 18, 'x (km)', F14_6_LIMIT);
+      const y = this._required(line, 18, 32, 'y (km)', F14_6_LIMIT);
+      const z = this._required(line, 32, 46, 'z (km)', F14_6_LIMIT);
       const clk = this._real(line, 46, 60, 'clock (µs)', true, F14_6_LIMIT);
       const position: Vector3 | undefined = x === 0 && y === 0 && z === 0 ? undefined : [x * 1000, y * 1000, z * 1000];
       epoch.records.push({
@@ -391,9 +449,9 @@ export class Sp3Parser {
         throw this._error(line, 2, `a velocity record right after the position record of the same satellite (${rec?.satellite ?? 'none'})`, satellite);
       }
       if (rec.velocity !== undefined || rec.clockRate !== undefined) throw this._error(line, 1, `one velocity record for ${satellite} per epoch`, satellite);
-      const vx = this._real(line, 4, 18, 'x velocity (dm/s)', false, F14_6_LIMIT)!;
-      const vy = this._real(line, 18, 32, 'y velocity (dm/s)', false, F14_6_LIMIT)!;
-      const vz = this._real(line, 32, 46, 'z velocity (dm/s)', false, F14_6_LIMIT)!;
+      const vx = this._required(line, 4, 18, 'x velocity (dm/s)', F14_6_LIMIT);
+      const vy = this._required(line, 18, 32, 'y velocity (dm/s)', F14_6_LIMIT);
+      const vz = this._required(line, 32, 46, 'z velocity (dm/s)', F14_6_LIMIT);
       const rate = this._real(line, 46, 60, 'clock rate (10⁻⁴ µs/s)', true, F14_6_LIMIT);
       // dm/s → m/s; 10⁻⁴ µs/s → s/s (SP3-c §"Velocity record" [M]).
       rec.velocity = vx === 0 && vy === 0 && vz === 0 ? undefined : [vx * 0.1, vy * 0.1, vz * 0.1];
@@ -449,5 +507,7 @@ export function parseSp3(source: string | Iterable<string>, options: Sp3ReadOpti
   };
   for (const line of linesOf(source, { sourceName: options.sourceName ?? 'sp3' })) take(parser.push(line));
   take(parser.finish());
-  return { header: header!, epochs };
+  // finish() refuses a file without its header and EOF line, so a header event has been seen.
+  if (header === undefined) throw new Error('internal: SP3 parser finished without a header');
+  return { header, epochs };
 }

@@ -7,7 +7,9 @@
  * Times are "scale seconds": seconds since 1980-01-06T00:00:00 counted in the record's own
  * system time scale (GPST for GPS, GST for Galileo, BDT for BeiDou), i.e. week·604800 +
  * seconds of week for the GPS week count. Readers (e.g. `readRinexNav`) fill `tocSeconds`
- * and `toeSeconds` in this count, with the week number already resolved.
+ * and `toeSeconds` in this count, with the week number already resolved, and the absolute
+ * `tocInstant` / `toeInstant` beside them. The evaluation time may be given as an {@link Instant}
+ * (read on the record's system scale by the time module) or as scale seconds.
  *
  * @module
  */
@@ -16,6 +18,8 @@ import type { ConstantSet } from '../constants.js';
 import { BEIDOU_ICD, GALILEO_ICD, GPS_ICD } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
 import { requireFinite, requireOptions, requirePositive } from '../internal/validate.js';
+import { Instant } from '../time/instant.js';
+import { scaleSecondsFromInstant, type OrbitScale } from '../time/file-epochs.js';
 import { solveKepler } from './kepler.js';
 import type { StateVector } from './elements.js';
 
@@ -41,6 +45,10 @@ export interface KeplerianBroadcastEphemeris {
   readonly tocSeconds: Seconds;
   /** Ephemeris reference time t_oe, in scale seconds, week resolved. */
   readonly toeSeconds: Seconds;
+  /** t_oc as an absolute instant (readers fill it; the algorithms use `tocSeconds`). */
+  readonly tocInstant?: Instant;
+  /** t_oe as an absolute instant (readers fill it; the algorithms use `toeSeconds`). */
+  readonly toeInstant?: Instant;
   /** a_f0 (BeiDou a0), in seconds. */
   readonly af0: Seconds;
   /** a_f1, in s/s. */
@@ -101,6 +109,19 @@ export interface BroadcastEvaluation {
   readonly polynomialSeconds: Seconds;
   /** Δt_sv = polynomial + Δt_r, in seconds (group delays not applied: see `signalClockCorrection`). */
   readonly clockCorrectionSeconds: Seconds;
+}
+
+/** Each system's own time scale, on which its records count scale seconds (GPST, GST, BDT). */
+export const SYSTEM_TIME_SCALE: Readonly<Record<KeplerianSystem, OrbitScale>> = Object.freeze({ G: 'GPS', E: 'GST', C: 'BDT' });
+
+/**
+ * An evaluation time as scale seconds of `system`: an {@link Instant} is read on the system's scale
+ * (exact to one rounding), a number is taken as scale seconds already.
+ * @throws {InvalidArgumentError} for a non-finite number or a value that is neither.
+ */
+export function orbitTimeSeconds(t: Instant | Seconds, system: KeplerianSystem): Seconds {
+  if (t instanceof Instant) return scaleSecondsFromInstant(t, SYSTEM_TIME_SCALE[system]);
+  return requireFinite('t', t, 'an Instant, or a finite time in scale seconds');
 }
 
 /** The constant set each system's user algorithm uses (GM, Ω̇_E, F, π). */
@@ -189,16 +210,16 @@ function validateRecord(eph: KeplerianBroadcastEphemeris, name = 'ephemeris'): v
  *   Δt_r = F e √A sin E_k, F = −2√μ/c² of the system's constant set.
  *
  * @param ephemeris  The record (SI units; times in scale seconds of its own system).
- * @param t          Evaluation time, in scale seconds of the record's system time scale.
+ * @param time       Evaluation time: an Instant, or scale seconds of the record's system time scale.
  * @returns State (m, m/s, Earth-fixed), t_k (s), E_k (rad), Δt_r (s), polynomial (s), Δt_sv (s).
  * @throws {InvalidArgumentError} if `t` is not finite or the record has a non-finite field,
  *   √A outside (2500, 1e5) √m or e outside [0, 1).
  * @see IS-GPS-200 Table 20-IV and §20.3.3.3.3.1 [M]; Galileo OS SIS ICD §5.1.1, §5.1.4 [M];
  *   BDS-SIS-ICD B1I §5.2.4.10, §5.2.4.12 [M]. Constants: the system's ConstantSet, each field with its source and tag.
  */
-export function evaluateBroadcastEphemeris(ephemeris: KeplerianBroadcastEphemeris, t: Seconds): BroadcastEvaluation {
+export function evaluateBroadcastEphemeris(ephemeris: KeplerianBroadcastEphemeris, time: Instant | Seconds): BroadcastEvaluation {
   validateRecord(ephemeris);
-  requireFinite('t', t, 'a finite time in scale seconds');
+  const t = orbitTimeSeconds(time, ephemeris.system);
   const eph = ephemeris;
   const k = systemConstants(eph.system);
   const mu = k.gm;
@@ -313,13 +334,14 @@ export interface EphemerisSelectionOptions {
  * preferred one has no valid record.
  *
  * @param records  Records of one satellite (any order).
- * @param t        Time, in scale seconds of the satellite's system.
- * @returns The chosen record, or `undefined` when none is valid at t.
+ * @param time     Time: an Instant, or scale seconds of the satellite's system.
+ * @returns The chosen record (the caller's own record type), or `undefined` when none is valid at t.
  * @throws {InvalidArgumentError} if `t` is not finite.
  */
-export function selectEphemeris(records: readonly KeplerianBroadcastEphemeris[], t: Seconds,
-  options: EphemerisSelectionOptions = {}): KeplerianBroadcastEphemeris | undefined {
-  requireFinite('t', t, 'a finite time in scale seconds');
+export function selectEphemeris<R extends KeplerianBroadcastEphemeris>(records: readonly R[], time: Instant | Seconds,
+  options: EphemerisSelectionOptions = {}): R | undefined {
+  if (typeof time === 'number') requireFinite('t', time, 'a finite time in scale seconds');
+  else if (!(time instanceof Instant)) throw new InvalidArgumentError('t', time, 'an Instant, or a finite time in scale seconds');
   if (!Array.isArray(records)) throw new InvalidArgumentError('records', records, 'an array of broadcast ephemeris records');
   records.forEach((r, i) => {
     validateRecord(r, `records[${i}]`);
@@ -329,12 +351,13 @@ export function selectEphemeris(records: readonly KeplerianBroadcastEphemeris[],
   });
   requireOptions('options', options);
   const preferred = options.galileoMessage ?? 'INAV';
-  const pick = (filter: (r: KeplerianBroadcastEphemeris) => boolean) => {
-    let best: KeplerianBroadcastEphemeris | undefined;
+  const pick = (filter: (r: R) => boolean) => {
+    let best: R | undefined;
     let bestKey: number[] = [];
     for (const r of records) {
       if (!filter(r)) continue;
       if (!options.includeUnhealthy && r.health !== 0) continue;
+      const t = orbitTimeSeconds(time, r.system);
       const d = Math.abs(t - r.toeSeconds);
       if (d > r.fitIntervalSeconds / 2) continue;
       const key = [d, r.toeSeconds <= t ? 0 : 1, -(r.transmissionSeconds ?? -Infinity), -r.issueOfData];
@@ -350,9 +373,9 @@ export function selectEphemeris(records: readonly KeplerianBroadcastEphemeris[],
   return pick((r) => r.system === 'E' && r.message !== preferred);
 }
 
-function compareKeys(a: number[], b: number[]): number {
-  for (let i = 0; i < a.length; i++) {
-    const d = a[i]! - b[i]!;
+function compareKeys(a: readonly number[], b: readonly number[]): number {
+  for (const [i, x] of a.entries()) {
+    const d = x - (b[i] ?? Number.NaN);
     if (d !== 0 && !Number.isNaN(d)) return d;
   }
   return 0;

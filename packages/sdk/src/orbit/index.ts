@@ -11,7 +11,7 @@ export { propagateKepler, propagateKeplerState } from './propagate.js';
 export {
   type KeplerianSystem, type KeplerianNavMessage, type KeplerianBroadcastEphemeris, type BroadcastEvaluation,
   type EphemerisSelectionOptions, systemConstants, defaultFitIntervalSeconds, weekCrossover,
-  isBeidouGeostationary, evaluateBroadcastEphemeris, selectEphemeris,
+  isBeidouGeostationary, evaluateBroadcastEphemeris, selectEphemeris, orbitTimeSeconds, SYSTEM_TIME_SCALE,
 } from './broadcast.js';
 export {
   type BroadcastSignal, type GroupDelayField, type SignalClockCorrection, BROADCAST_SIGNALS, GPS_GAMMA_L1_L2,

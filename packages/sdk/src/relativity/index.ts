@@ -9,7 +9,7 @@ export {
   periodicCorrectionAtMeanAnomaly,
 } from './periodic.js';
 export {
-  type PreciseCorrectionSample, type PreciseCorrectionGap, type PreciseCorrectionResult, type PreciseCorrectionOptions,
+  type SatelliteState, type StateEpoch, type PreciseCorrectionSample, type PreciseCorrectionGap, type PreciseCorrectionResult, type PreciseCorrectionOptions,
   DEFAULT_LAGRANGE_POINTS, lagrangeDerivativeAtNode, lagrangeInterpolate, PreciseCorrectionStream,
   preciseRelativisticCorrections,
 } from './precise.js';

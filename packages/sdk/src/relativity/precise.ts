@@ -12,9 +12,7 @@
 import type { Seconds, Vector3 } from '../units.js';
 import { InvalidArgumentError } from '../errors.js';
 import { requireInRange, requireInteger, requireVector3 } from '../internal/validate.js';
-import { validEpochFields } from '../io/line-reader.js';
-import type { EpochFields } from '../io/line-reader.js';
-import type { Sp3Epoch } from '../io/sp3.js';
+import { Instant } from '../time/instant.js';
 import { periodicCorrectionFromState } from './periodic.js';
 
 /** Default number of Lagrange nodes: 9 (a degree-8 polynomial), common practice for 15-min SP3, no source. */
@@ -165,24 +163,48 @@ function barycentricWeights(times: ArrayLike<number>): number[] {
   return lambda;
 }
 
+/**
+ * One satellite's state at one epoch, as the precise-orbit correction consumes it (an SP3 satellite
+ * record has this shape). Undefined vectors are missing values, never zero.
+ */
+export interface SatelliteState {
+  /** Satellite identifier, e.g. `G05`. */
+  readonly satellite: string;
+  /** Position in an Earth-fixed frame, in metres; `undefined` when bad or absent. */
+  readonly position: Vector3 | undefined;
+  /** Velocity in the same frame, in m/s; `undefined` when absent (then the positions are differentiated). */
+  readonly velocity: Vector3 | undefined;
+}
+
+/**
+ * The states of several satellites at one epoch: the plain contract of {@link PreciseCorrectionStream}
+ * (an SP3 epoch from `readSp3` has this shape; any other orbit source can build it).
+ */
+export interface StateEpoch {
+  /** The epoch, an absolute instant. */
+  readonly epoch: Instant;
+  /** One state per satellite present at this epoch. */
+  readonly records: readonly SatelliteState[];
+  /** Satellites expected at this epoch without a record (each becomes a gap), when the source knows them. */
+  readonly missingSatellites?: readonly string[];
+}
+
 /** One epoch's correction for one satellite. */
 export interface PreciseCorrectionSample {
   readonly satellite: string;
-  /** Epoch, in the SP3 file's time system. */
-  readonly time: EpochFields;
-  /** Seconds since 1980-01-06 of the file's time scale. */
-  readonly scaleSeconds: Seconds;
+  /** The epoch, an absolute instant. */
+  readonly epoch: Instant;
   /** −2 r·v/c², in seconds. */
   readonly relativisticSeconds: Seconds;
-  /** Where v came from: the file's velocity record, or the Lagrange derivative of positions. */
+  /** Where v came from: the state's velocity, or the Lagrange derivative of positions. */
   readonly velocitySource: 'file' | 'lagrange';
 }
 
 /** An epoch at which no correction could be formed for a satellite, and why. */
 export interface PreciseCorrectionGap {
   readonly satellite: string;
-  readonly time: EpochFields;
-  readonly scaleSeconds: Seconds;
+  /** The epoch, an absolute instant. */
+  readonly epoch: Instant;
   readonly reason: string;
 }
 
@@ -193,7 +215,7 @@ export type PreciseCorrectionResult =
 
 /** Options of {@link PreciseCorrectionStream}. */
 export interface PreciseCorrectionOptions {
-  /** SP3 epoch interval, in seconds (the header's `##` line value); bounds the Lagrange window span. */
+  /** Nominal spacing of the epochs, in seconds (for SP3 the header's `##` line value); bounds the Lagrange window span. */
   readonly epochInterval: Seconds;
   /** Number of Lagrange nodes for positions without velocities, 2..16 (default 9: degree 8). */
   readonly lagrangePoints?: number;
@@ -203,28 +225,36 @@ export interface PreciseCorrectionOptions {
   readonly alwaysInterpolate?: boolean;
 }
 
+/** A position node: `t` in seconds since the stream's first epoch. */
 interface Node { readonly t: number; readonly p: Vector3 }
-interface Target { readonly time: EpochFields; readonly t: number; readonly p: Vector3 | undefined; readonly v: Vector3 | undefined; readonly missing?: string }
+interface Target {
+  readonly epoch: Instant;
+  /** Seconds since the stream's first epoch. */
+  readonly t: number;
+  readonly p: Vector3 | undefined;
+  readonly v: Vector3 | undefined;
+  readonly missing?: string;
+}
 
-/** Throws unless `epoch` has the shape the SP3 reader produces (time fields, scale seconds, records with finite vectors). */
-function requireSp3Epoch(epoch: unknown): void {
-  const e = epoch as Partial<Sp3Epoch> | null;
-  if (typeof e !== 'object' || e === null || typeof e.time !== 'object' || e.time === null || !validEpochFields(e.time)
-    || !Number.isFinite(e.scaleSeconds) || !Array.isArray(e.records)) {
-    throw new InvalidArgumentError('epoch', epoch, 'an SP3 epoch { time, scaleSeconds, records } as readSp3 yields');
+/** Throws unless `epoch` is a {@link StateEpoch} (an Instant, records with finite vectors). */
+function requireStateEpoch(epoch: unknown): StateEpoch {
+  const e = epoch as Partial<StateEpoch> | null;
+  if (typeof e !== 'object' || e === null || !(e.epoch instanceof Instant) || !Array.isArray(e.records)) {
+    throw new InvalidArgumentError('epoch', epoch, 'a state epoch { epoch: Instant, records } (an SP3 epoch as readSp3 yields)');
   }
   e.records.forEach((r: unknown, i) => {
-    const rec = r as Partial<Sp3Epoch['records'][number]> | null;
+    const rec = r as Partial<SatelliteState> | null;
     if (typeof rec !== 'object' || rec === null || typeof rec.satellite !== 'string') {
       throw new InvalidArgumentError(`epoch.records[${i}]`, r, 'a satellite record { satellite, position?, velocity? }');
     }
     if (rec.position !== undefined) requireVector3(`epoch.records[${i}].position`, rec.position, 'm');
     if (rec.velocity !== undefined) requireVector3(`epoch.records[${i}].velocity`, rec.velocity, 'm/s');
   });
+  return e as StateEpoch;
 }
 
 /**
- * Computes −2 r·v/c² epoch by epoch from a stream of SP3 epochs, with bounded memory (per
+ * Computes −2 r·v/c² epoch by epoch from a stream of state epochs (e.g. SP3 epochs), with bounded memory (per
  * satellite, the Lagrange window and the epochs still waiting for later positions).
  *
  * Velocity: the file's when present (unless `alwaysInterpolate`); otherwise the derivative at
@@ -247,6 +277,8 @@ export class PreciseCorrectionStream {
   private readonly _alwaysInterpolate: boolean;
   private readonly _nodes = new Map<string, Node[]>();
   private readonly _queues = new Map<string, Target[]>();
+  /** The first epoch pushed: node and target times are seconds since it (exact differences of instants). */
+  private _origin: Instant | undefined;
 
   /** @throws {InvalidArgumentError} for a non-positive interval or a point count outside 2..16. */
   constructor(options: PreciseCorrectionOptions) {
@@ -260,8 +292,10 @@ export class PreciseCorrectionStream {
   }
 
   /** Feeds one epoch (epochs in increasing time). Returns the results completed. */
-  push(epoch: Sp3Epoch): PreciseCorrectionResult[] {
-    requireSp3Epoch(epoch);
+  push(stateEpoch: StateEpoch): PreciseCorrectionResult[] {
+    const epoch = requireStateEpoch(stateEpoch);
+    this._origin ??= epoch.epoch;
+    const t = epoch.epoch.secondsSince(this._origin);
     const out: PreciseCorrectionResult[] = [];
     const present = new Set<string>();
     for (const rec of epoch.records) {
@@ -277,9 +311,9 @@ export class PreciseCorrectionStream {
         missing = `position farther than ${MAX_ORBIT_RADIUS} m from the geocentre (outside the range of the clock-rate model)`;
         p = undefined;
       }
-      if (p) this._nodesOf(rec.satellite).push({ t: epoch.scaleSeconds, p });
+      if (p) this._nodesOf(rec.satellite).push({ t, p });
       const v = this._alwaysInterpolate ? undefined : rec.velocity;
-      this._queueOf(rec.satellite).push({ time: epoch.time, t: epoch.scaleSeconds, p, v, ...(missing ? { missing } : {}) });
+      this._queueOf(rec.satellite).push({ epoch: epoch.epoch, t, p, v, ...(missing ? { missing } : {}) });
     }
     // Satellites listed in the file's header without a record at this epoch (the reader's list), and any
     // satellite seen before that has none: each is a gap at this epoch, never skipped.
@@ -287,9 +321,9 @@ export class PreciseCorrectionStream {
     for (const sat of epoch.missingSatellites ?? []) if (!present.has(sat) && (!this._filter || this._filter.has(sat))) absent.add(sat);
     for (const sat of this._queues.keys()) if (!present.has(sat)) absent.add(sat);
     for (const sat of absent) {
-      this._queueOf(sat).push({ time: epoch.time, t: epoch.scaleSeconds, p: undefined, v: undefined, missing: 'no record at this epoch' });
+      this._queueOf(sat).push({ epoch: epoch.epoch, t, p: undefined, v: undefined, missing: 'no record at this epoch' });
     }
-    for (const sat of this._queues.keys()) this._drain(sat, epoch.scaleSeconds, false, out);
+    for (const sat of this._queues.keys()) this._drain(sat, t, false, out);
     return out;
   }
 
@@ -320,15 +354,15 @@ export class PreciseCorrectionStream {
     const queue = this._queueOf(sat);
     const nodes = this._nodesOf(sat);
     const half = Math.floor((this._points - 1) / 2);
-    while (queue.length > 0) {
-      const target = queue[0]!;
-      if (target.missing !== undefined || target.p === undefined) {
-        out.push({ kind: 'gap', gap: { satellite: sat, time: target.time, scaleSeconds: target.t, reason: target.missing ?? 'position missing' } });
+    for (let target = queue[0]; target !== undefined; target = queue[0]) {
+      const position = target.p;
+      if (target.missing !== undefined || position === undefined) {
+        out.push({ kind: 'gap', gap: { satellite: sat, epoch: target.epoch, reason: target.missing ?? 'position missing' } });
         queue.shift();
         continue;
       }
       if (target.v !== undefined) {
-        out.push(this._sample(sat, target, target.v, 'file'));
+        out.push(this._sample(sat, target.epoch, position, target.v, 'file'));
         queue.shift();
         continue;
       }
@@ -343,33 +377,34 @@ export class PreciseCorrectionStream {
       const window = nearest(nodes, target.t, this._points);
       const span = Math.max(...window.map((n) => Math.abs(n.t - target.t)));
       if (window.length < this._points || span > this._maxSpan()) {
-        out.push({ kind: 'gap', gap: { satellite: sat, time: target.time, scaleSeconds: target.t,
+        out.push({ kind: 'gap', gap: { satellite: sat, epoch: target.epoch,
           reason: `too few valid positions near this epoch for ${this._points}-point Lagrange velocity (no velocity record)` } });
       } else {
         const times = window.map((n) => n.t - target.t);
         const i = times.indexOf(0);
         // One differentiation row (barycentric weights included) for x, y and z: it depends on the times only.
         const row = derivativeRow(times, i);
-        const v: Vector3 = [0, 1, 2].map((c) => applyDerivativeRow(row, window.map((n) => n.p[c]!), i)) as unknown as Vector3;
-        out.push(this._sample(sat, target, v, 'lagrange'));
+        const component = (c: 0 | 1 | 2) => applyDerivativeRow(row, window.map((n) => n.p[c]), i);
+        const v: Vector3 = [component(0), component(1), component(2)];
+        out.push(this._sample(sat, target.epoch, position, v, 'lagrange'));
       }
       queue.shift();
     }
     // Keep only the nodes a future target can use.
-    const oldest = queue.length > 0 ? queue[0]!.t : latest;
+    const oldest = queue[0]?.t ?? latest;
     const keepFrom = oldest - 2 * this._maxSpan();
     let drop = 0;
     while (drop < nodes.length && nodes[drop]!.t < keepFrom) drop++;
     if (drop > 0) nodes.splice(0, drop);
   }
 
-  private _sample(sat: string, target: Target, v: Vector3, source: 'file' | 'lagrange'): PreciseCorrectionResult {
+  private _sample(sat: string, epoch: Instant, position: Vector3, v: Vector3, source: 'file' | 'lagrange'): PreciseCorrectionResult {
     return {
       kind: 'sample',
       sample: {
-        satellite: sat, time: target.time, scaleSeconds: target.t,
+        satellite: sat, epoch,
         // IERS Conventions 2010 eq. 10.11 [V1]: Δt_r = −2 r·v/c².
-        relativisticSeconds: periodicCorrectionFromState({ position: target.p!, velocity: v }),
+        relativisticSeconds: periodicCorrectionFromState({ position, velocity: v }),
         velocitySource: source,
       },
     };
@@ -394,22 +429,22 @@ function nearest(nodes: readonly Node[], t: number, count: number): Node[] {
 }
 
 /**
- * Computes −2 r·v/c² for every satellite and epoch of an SP3 epoch stream (see
+ * Computes −2 r·v/c² for every satellite and epoch of a state-epoch stream (e.g. SP3 epochs from `readSp3`) (see
  * {@link PreciseCorrectionStream} for the method and options).
  *
- * @param epochs   SP3 epochs in time order (e.g. from `readSp3`), sync or async.
+ * @param epochs   State epochs in time order (e.g. SP3 epochs from `readSp3`), sync or async.
  * @param options  Epoch interval, Lagrange points, satellite filter.
  * @returns An async generator of samples and gaps, per satellite in time order.
  * @throws {InvalidArgumentError} for bad options.
  * @see IERS Conventions (2010) §10.2 eq. 10.11 [V1].
  */
-export async function* preciseRelativisticCorrections(epochs: Iterable<Sp3Epoch> | AsyncIterable<Sp3Epoch>,
+export async function* preciseRelativisticCorrections(epochs: Iterable<StateEpoch> | AsyncIterable<StateEpoch>,
   options: PreciseCorrectionOptions): AsyncGenerator<PreciseCorrectionResult> {
   const stream = new PreciseCorrectionStream(options);
-  const iterable = epochs as Partial<AsyncIterable<Sp3Epoch> & Iterable<Sp3Epoch>> | null;
+  const iterable = epochs as Partial<AsyncIterable<StateEpoch> & Iterable<StateEpoch>> | null;
   if (typeof iterable !== 'object' || iterable === null
     || (typeof iterable[Symbol.asyncIterator] !== 'function' && typeof iterable[Symbol.iterator] !== 'function')) {
-    throw new InvalidArgumentError('epochs', epochs, 'an iterable or async iterable of SP3 epochs (e.g. from readSp3)');
+    throw new InvalidArgumentError('epochs', epochs, 'an iterable or async iterable of state epochs { epoch: Instant, records } (e.g. SP3 epochs from readSp3)');
   }
   for await (const epoch of epochs) yield* stream.push(epoch);
   yield* stream.finish();

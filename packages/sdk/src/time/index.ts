@@ -27,3 +27,7 @@ export type { WeekSeconds, WeekSystem } from './weeks.js';
 export { createTimeScales } from './scales.js';
 export { instantFromTtSecondsSinceJ2000, J2000_EPOCH, ttSecondsSinceJ2000 } from './j2000.js';
 export type { CalendarDateTime, CalendarDateTimeInput, FormatIsoOptions, SplitDays, TimeScales } from './scales.js';
+export {
+  FILE_TIME_SYSTEM_CODES, fileTimeScale, formatFileEpoch, instantFromFileEpoch, instantFromScaleSeconds, scaleSecondsFromInstant,
+} from './file-epochs.js';
+export type { FileEpochFields, FileTimeScale, FormatFileEpochOptions, OrbitScale } from './file-epochs.js';

@@ -3,7 +3,7 @@
 import fc from 'fast-check';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { ParseError, TaulineError } from '../../src/errors.js';
+import { InvalidArgumentError, ParseError, TaulineError } from '../../src/errors.js';
 import { expectParseError, parseError } from './parse-errors.js';
 import {
   RinexClockParser, parseRinexClock, readRinexClock, readRinexClockSeries, rinexClockSeries, type RinexClockEvent,
@@ -32,17 +32,23 @@ async function collect(events: AsyncIterable<RinexClockEvent>): Promise<RinexClo
 describe('parseRinexClock: the four layouts (RINEX clock 2.00, 3.02, 3.04, 3.05)', () => {
   it('parseRinexClock(3.04 file) reads version, A9 layout, system, TIME SYSTEM ID and the AS/AR records with all their values', () => {
     const f = parseRinexClock(V304, { sourceName: 'fictional-304.clk' });
-    expect(f.header).toEqual({ version: 3.04, layout: 'A9', satelliteSystem: 'G', timeSystem: 'GPS', lines: 6 });
+    expect(f.header).toEqual({
+      version: 3.04, layout: 'A9', satelliteSystem: 'G', timeSystem: 'GPS', epochTimeSystem: 'GPS', timeSystemAssumed: false, lines: 6,
+    });
     expect(f.records.length).toBe(5);
     expect(f.otherRecords).toEqual({ CR: 1 });
     expect(f.records[1]).toMatchObject({ type: 'AR', name: 'KLMN00XYZ', bias: 0.512e-6, biasSigma: 0.2e-10, rate: 0.1e-12, rateSigma: 0.3e-14,
       acceleration: -0.1e-17, accelerationSigma: 0.1e-18, line: 8 });
     expect(f.records[2]).toMatchObject({ type: 'AS', name: 'G05', bias: -0.123456789e-3, biasSigma: undefined, line: 10 });
-    expect(f.records[2]!.epoch).toEqual({ year: 2026, month: 1, day: 4, hour: 0, minute: 0, second: 30 });
+    expect(f.records[2]!.time).toEqual({ year: 2026, month: 1, day: 4, hour: 0, minute: 0, second: 30 });
+    // 2026-01-04T00:00:30 GPS = TAI − 19 s (BIPM: GPS time is 19 s behind TAI [V2]); days from 2000-01-01 by the
+    // JavaScript Date's own proleptic Gregorian count (independent of the SDK calendar).
+    const taiSeconds = (Date.UTC(2026, 0, 4) - Date.UTC(2000, 0, 1)) / 1000 + 30 + 19;
+    expect(f.records[2]!.epoch.toJSON()).toEqual({ taiSeconds, taiFraction: 0 });
   });
   it('parseRinexClock(2.00 file) reads A4 names, a 4-value record with its continuation line, and no time system', () => {
     const f = parseRinexClock(V200);
-    expect(f.header).toMatchObject({ version: 2, layout: 'A4', satelliteSystem: undefined, timeSystem: undefined });
+    expect(f.header).toMatchObject({ version: 2, layout: 'A4', satelliteSystem: undefined, timeSystem: undefined, epochTimeSystem: 'GPS', timeSystemAssumed: true });
     expect(f.records.slice(0, 3).map((r) => [r.name, r.rate, r.rateSigma])).toEqual([['QRST', undefined, undefined], ['QRST', 0.1e-12, 0.3e-14], ['G12', undefined, undefined]]);
     expect(rinexClockSeries(f, 'G12')).toMatchObject({ tau0: 300, missing: 0, timeSystem: undefined });
   });
@@ -58,12 +64,24 @@ describe('parseRinexClock: the four layouts (RINEX clock 2.00, 3.02, 3.04, 3.05)
     expect(f.header).toMatchObject({ version: 3.05, layout: 'A9', satelliteSystem: 'M', timeSystem: 'GAL', lines: 7 });
     const e27 = f.records.filter((r) => r.name === 'E27');
     expect(e27.map((r) => r.accelerationSigma)).toEqual(Array(8).fill(0.1e-19));
-    expect(e27[4]!.epoch).toEqual({ year: 2026, month: 7, day: 1, hour: 0, minute: 0, second: 0 });
+    expect(e27[4]!.time).toEqual({ year: 2026, month: 7, day: 1, hour: 0, minute: 0, second: 0 });
+    // Galileo System Time − TAI = −19 s (Galileo OS SIS ICD §5.1.2 as quoted [V2]); Date.UTC counts the days.
+    expect(e27[4]!.epoch.toJSON()).toEqual({ taiSeconds: (Date.UTC(2026, 6, 1) - Date.UTC(2000, 0, 1)) / 1000 + 19, taiFraction: 0 });
     const s = rinexClockSeries(f, 'E27');
     expect([s.tau0, s.phase.length, s.missing, s.timeSystem]).toEqual([30, 8, 0, 'GAL']);
   });
-  it('parseRinexClock(text, "name") still takes the source name as a string (earlier form)', () => {
-    expect(parseError(() => parseRinexClock('x\n', 'old-form.clk')).sourceName).toBe('old-form.clk');
+  it('parseRinexClock(text, "name") refuses the source name alone (the form of earlier releases) with a typed error saying what to write', () => {
+    const call = (f: () => unknown) => {
+      try {
+        f();
+      } catch (e) {
+        return e;
+      }
+      return undefined;
+    };
+    const e = call(() => parseRinexClock('x\n', 'old-form.clk' as unknown as { sourceName: string }));
+    expect(e).toBeInstanceOf(InvalidArgumentError);
+    expect((e as InvalidArgumentError).message).toContain('{ sourceName: "old-form.clk" }');
   });
 });
 
@@ -167,7 +185,18 @@ describe('rinexClockSeries / readRinexClockSeries: one clock on a uniform grid, 
     expect(s.gaps).toEqual([{ index: 2, missing: 1, line: 12, time: s.times[2] }]);
   });
   it('rinexClockSeries rejects an unknown clock (listing those present), repeated epochs and a name with both AS and AR records', () => {
-    expect(parseError(() => rinexClockSeries(parseRinexClock(V304), 'E11')).message).toMatch(/clocks present: G05, KLMN00XYZ/);
+    const unknownClock = (() => {
+      try {
+        rinexClockSeries(parseRinexClock(V304), 'E11');
+      } catch (e) {
+        return e;
+      }
+      return undefined;
+    })();
+    // Asking for a clock the file does not hold is an argument error, not a fault of the file.
+    expect(unknownClock).toBeInstanceOf(InvalidArgumentError);
+    expect((unknownClock as InvalidArgumentError).argument).toBe('name');
+    expect((unknownClock as InvalidArgumentError).message).toMatch(/rinex-clock holds; received "E11"\. The clocks present: G05, KLMN00XYZ$/);
     const text = `${H304}\n${AS304}\n${AS304}\n`;
     expectParseError(() => rinexClockSeries(parseRinexClock(text, src), 'G05'), 8, 4, /epoch later than the previous G05 record \(line 7\)/);
     const both = `${H304}\n${AS304}\n${AS304.replace('AS', 'AR').replace(' 0.000000', '30.000000')}\n`;

@@ -4,7 +4,8 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
-import { parseSp3, type Sp3Epoch } from '../../src/io/sp3.js';
+import { parseSp3 } from '../../src/io/sp3.js';
+import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant } from '../../src/time/index.js';
 import { PreciseCorrectionStream, type PreciseCorrectionResult } from '../../src/relativity/precise.js';
 import { TaulineError } from '../../src/errors.js';
 import { expectParseError } from './parse-errors.js';
@@ -24,8 +25,9 @@ function corrections(text: string): PreciseCorrectionResult[] {
   return [...file.epochs.flatMap((e) => stream.push(e)), ...stream.finish()];
 }
 
-const iso = (e: { time: Sp3Epoch['time'] }) =>
-  `${e.time.year}-${String(e.time.month).padStart(2, '0')}-${String(e.time.day).padStart(2, '0')}T${String(e.time.hour).padStart(2, '0')}:${String(e.time.minute).padStart(2, '0')}:00`;
+/** ISO text of an epoch on GPS time (both fixtures are GPS time), whole seconds. */
+const gpsScales = createTimeScales(BUNDLED_LEAP_SECONDS);
+const iso = (e: { epoch: Instant }) => gpsScales.formatIso(e.epoch, { scale: 'GPS', fractionDigits: 0 });
 
 describe('parseSp3: SP3-a (Remondi 1989/1991 [V2]: 22-line header, I3 identifiers, 60-column records, GPS time)', () => {
   const file = parseSp3(A, { sourceName: 'orbit-a-pv.sp3' });
@@ -129,7 +131,7 @@ describe('parseSp3: seeded mutation guard for SP3-a and SP3-b (2500 inputs each)
   function assertFinite(text: string): void {
     const file = parseSp3(text);
     for (const e of file.epochs) {
-      expect(Number.isFinite(e.scaleSeconds)).toBe(true);
+      expect(Number.isFinite(e.epoch.taiSeconds) && Number.isFinite(e.epoch.taiFraction)).toBe(true);
       for (const r of e.records) {
         for (const v of [...(r.position ?? []), ...(r.velocity ?? []), r.clock ?? 0, r.clockRate ?? 0]) expect(Number.isFinite(v)).toBe(true);
       }

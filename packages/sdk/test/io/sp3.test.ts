@@ -32,7 +32,7 @@ describe('parseSp3: SP3-c with velocities (SP3-c, Hilla 2002 [M])', () => {
     expect(g05.velocity![0]).toBeCloseTo(1408.6207714, 9);
     expect(g05.clock).toBeCloseTo(100e-6, 18);
     expect(g05.clockRate).toBeCloseTo(0.1e-10, 24);
-    expect(file.epochs.map((e) => e.scaleSeconds - file.epochs[0]!.scaleSeconds)).toEqual([0, 900, 1800, 2700]);
+    expect(file.epochs.map((e) => e.epoch.secondsSince(file.epochs[0]!.epoch))).toEqual([0, 900, 1800, 2700]);
   });
   it('parseSp3(text) treats position 0.000000 and clock 999999.999999 as missing, never as zero', () => {
     const e11 = file.epochs[2]!.records.find((r) => r.satellite === 'E11')!;

@@ -61,7 +61,7 @@ describe('lagrangeDerivativeAtNode, lagrangeInterpolate (Berrut & Trefethen 2004
 
 describe('PreciseCorrectionStream: SP3 positions only (Lagrange velocities) against the two-body value −2√(GM a) e sin E/c² [C]', () => {
   const file = parseSp3(P_TEXT);
-  const t0 = file.epochs[0]!.scaleSeconds;
+  const t0 = file.epochs[0]!.epoch;
   const results = runAll(file.epochs, { epochInterval: file.header.epochInterval });
 
   const errors = (res: PreciseCorrectionResult[]) => {
@@ -69,8 +69,8 @@ describe('PreciseCorrectionStream: SP3 positions only (Lagrange velocities) agai
     const ends: number[] = [];
     for (const r of res) {
       if (r.kind !== 'sample') continue;
-      const k = (r.sample.scaleSeconds - t0) / 900;
-      const err = Math.abs(r.sample.relativisticSeconds - analytic(r.sample.satellite, r.sample.scaleSeconds - t0));
+      const k = (r.sample.epoch.secondsSince(t0)) / 900;
+      const err = Math.abs(r.sample.relativisticSeconds - analytic(r.sample.satellite, r.sample.epoch.secondsSince(t0)));
       // Centred: G30 epochs with 4 valid positions on each side (G31 has a hole at k = 6).
       (r.sample.satellite === 'G30' && k >= 4 && k <= 8 ? centred : ends).push(err);
     }
@@ -90,10 +90,10 @@ describe('PreciseCorrectionStream: SP3 positions only (Lagrange velocities) agai
     let compared = 0;
     for (const r of results) {
       if (r.kind !== 'sample' || r.sample.satellite !== 'G30') continue;
-      const k = Math.round((r.sample.scaleSeconds - t0) / 900);
+      const k = Math.round((r.sample.epoch.secondsSince(t0)) / 900);
       if (k < 4 || k > 8) continue; // centred windows: nodes k − 4 .. k + 4, all valid for G30
       const window = file.epochs.slice(k - 4, k + 5);
-      const times = window.map((e) => e.scaleSeconds - r.sample.scaleSeconds);
+      const times = window.map((e) => e.epoch.secondsSince(r.sample.epoch));
       const pos = window.map((e) => e.records.find((x) => x.satellite === 'G30')!.position!);
       const velocity = [0, 1, 2].map((c) => lagrangeDerivativeAtNode(times, pos.map((p) => p[c]!), 4)) as [number, number, number];
       const expected = periodicCorrectionFromState({ position: pos[4]!, velocity });
@@ -107,13 +107,14 @@ describe('PreciseCorrectionStream: SP3 positions only (Lagrange velocities) agai
   it('PreciseCorrectionStream(...) reports the bad-value position of G31 at 01:30 as a gap, and still serves its neighbours', () => {
     const gaps = results.filter((r) => r.kind === 'gap').map((r) => r.gap);
     expect(gaps).toHaveLength(1);
-    expect(gaps[0]).toMatchObject({ satellite: 'G31', scaleSeconds: t0 + 5400 });
+    expect(gaps[0]).toMatchObject({ satellite: 'G31' });
+    expect(gaps[0]!.epoch.secondsSince(t0)).toBe(5400);
     expect(gaps[0]!.reason).toMatch(/bad\/absent marker/);
     expect(results.filter((r) => r.kind === 'sample' && r.sample.satellite === 'G31')).toHaveLength(12);
   });
   it('PreciseCorrectionStream(...) emits each satellite\'s results in time order', () => {
     for (const sat of ['G30', 'G31']) {
-      const times = results.map((r) => (r.kind === 'sample' ? r.sample : r.gap)).filter((x) => x.satellite === sat).map((x) => x.scaleSeconds);
+      const times = results.map((r) => (r.kind === 'sample' ? r.sample : r.gap)).filter((x) => x.satellite === sat).map((x) => x.epoch.secondsSince(t0));
       expect(times).toEqual([...times].sort((a, b) => a - b));
       expect(times).toHaveLength(13);
     }
@@ -160,7 +161,7 @@ describe('PreciseCorrectionStream: SP3 with velocity records', () => {
     expect(gaps.filter((g) => g.startsWith('E11 too few'))).toHaveLength(3);
     for (const r of interp) {
       if (r.kind !== 'sample') continue;
-      const ref = fromFile.find((s) => s.satellite === r.sample.satellite && s.scaleSeconds === r.sample.scaleSeconds)!;
+      const ref = fromFile.find((s) => s.satellite === r.sample.satellite && s.epoch.equals(r.sample.epoch))!;
       // 4 nodes over 45 min, one-sided at every epoch: a coarse cubic, agreement within 0.3 ns only.
       expect(Math.abs(r.sample.relativisticSeconds - ref.relativisticSeconds)).toBeLessThan(3e-10);
     }

@@ -49,7 +49,7 @@ const phaseText: ReaderUnderFuzz<ReturnType<typeof parsePhaseText>> = {
 
 /** A RINEX clock file and the series of each of its clocks (where a long gap would allocate). */
 function readClockAndSeries(text: string) {
-  const file = parseRinexClock(text, 'fuzz');
+  const file = parseRinexClock(text, { sourceName: 'fuzz' });
   const names = [...new Set(file.records.map((r) => r.name))].slice(0, 4);
   return { file, series: names.map((n) => typedOrUndefined(() => rinexClockSeries(file, n))) };
 }
@@ -138,7 +138,7 @@ describe('readers under seeded fuzzing (10^4 mutants of the real fixtures each; 
   it('rinexClockSeries(a record dated 9999) refuses the implied 10^11-sample series through the shared MAX_SERIES_SAMPLES check, naming file and line', () => {
     const text = fixturesMatching(/^fictional-304\.clk$/)[0]!.text.trimEnd()
       + '\nAS G05       9999 01 04 00 02  0.000000  2   -0.123456788930E-03  0.100000000000E-10\n';
-    const file = parseRinexClock(text, 'year9999.clk');
+    const file = parseRinexClock(text, { sourceName: 'year9999.clk' });
     expect(() => rinexClockSeries(file, 'G05')).toThrow(/^year9999\.clk:14:1: expected a uniform series of at most 50000000 samples \(MAX_SERIES_SAMPLES\): the gap of \d+ s after line 13/);
   });
 
