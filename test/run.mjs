@@ -33,6 +33,14 @@ if (run('npm', ['run', '--silent', 'typecheck']) !== 0) {
   process.exit(1);
 }
 
+// Code shape: Biome checks the formatting (120 columns) and the lint rules; function length is a
+// warning there (the limits that must not regress are held by test/cross/code-shape.test.ts).
+// Counted as one check so the closing line stays a sum of everything that ran.
+const shapeRc = run('npx', ['biome', 'ci', '--reporter=summary', '--max-diagnostics=50']);
+const shapePassed = shapeRc === 0 ? 1 : 0;
+const shapeFailed = shapeRc === 0 ? 0 : 1;
+if (shapeRc !== 0) console.error('format/lint check failed: run `npm run format` and `npm run lint` to see and fix it');
+
 const vitestRc = run('npx', ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile=${OUT}/vitest.json`]);
 let unitPassed = 0, unitFailed = 1;
 try {
@@ -52,9 +60,10 @@ if (matches.length > 0) {
   browserFailed = Number(last[2]) + (wtr.status !== 0 && Number(last[2]) === 0 ? 1 : 0);
 }
 
-console.log(`\nnode suites: ${unitPassed} passed, ${unitFailed} failed`);
+console.log(`\nformat and lint: ${shapePassed} passed, ${shapeFailed} failed`);
+console.log(`node suites: ${unitPassed} passed, ${unitFailed} failed`);
 console.log(`browser suites: ${browserPassed} passed, ${browserFailed} failed`);
-const passed = unitPassed + browserPassed;
-const failed = unitFailed + browserFailed;
+const passed = shapePassed + unitPassed + browserPassed;
+const failed = shapeFailed + unitFailed + browserFailed;
 console.log(`${passed} passed, ${failed} failed`);
 process.exit(failed === 0 && vitestRc === 0 && wtr.status === 0 ? 0 : 1);
