@@ -1,8 +1,9 @@
 // Builds every package to ESM + .d.ts. Configs run in order: the SDK's dist/ exists
 // before the CLI and the elements are type-checked against it.
-import typescript from '@rollup/plugin-typescript';
-import { nodeResolve } from '@rollup/plugin-node-resolve';
+
 import { readFileSync, rmSync } from 'node:fs';
+import { nodeResolve } from '@rollup/plugin-node-resolve';
+import typescript from '@rollup/plugin-typescript';
 
 /** Entry points come from the package's `exports` map, so a new subpath needs no change here. */
 function entriesFromExports(name) {
@@ -25,15 +26,19 @@ function pkg(name, input) {
   return {
     input,
     output: {
-      dir: `packages/${name}/dist`, format: 'es', sourcemap: true,
-      preserveModules: true, preserveModulesRoot: `packages/${name}/src`,
+      dir: `packages/${name}/dist`,
+      format: 'es',
+      sourcemap: true,
+      preserveModules: true,
+      preserveModulesRoot: `packages/${name}/src`,
     },
     external: (id) => EXTERNAL.some((e) => (e instanceof RegExp ? e.test(id) : id === e || id.startsWith(`${e}/`))),
     plugins: [
       nodeResolve({ preferBuiltins: true }),
       typescript({
         tsconfig: `packages/${name}/tsconfig.json`,
-        declarationDir: `packages/${name}/dist`, outDir: `packages/${name}/dist`,
+        declarationDir: `packages/${name}/dist`,
+        outDir: `packages/${name}/dist`,
       }),
     ],
   };
@@ -47,7 +52,13 @@ function pkg(name, input) {
 rmSync('demo/dist', { recursive: true, force: true }); // no stale chunk is ever served
 const demo = {
   input: { console: 'demo/console.js', stress: 'demo/stress.js' },
-  output: { dir: 'demo/dist', format: 'es', sourcemap: true, entryFileNames: '[name].js', chunkFileNames: 'shared-[hash].js' },
+  output: {
+    dir: 'demo/dist',
+    format: 'es',
+    sourcemap: true,
+    entryFileNames: '[name].js',
+    chunkFileNames: 'shared-[hash].js',
+  },
   plugins: [nodeResolve({ browser: true, exportConditions: ['production'] })],
 };
 

@@ -1,5 +1,5 @@
-import { defineConfig } from 'vitest/config';
 import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
 
 const sdkSrc = fileURLToPath(new URL('./packages/sdk/src/', import.meta.url));
 
@@ -16,7 +16,12 @@ export default defineConfig({
     ],
   },
   test: {
-    include: ['packages/sdk/test/**/*.test.ts', 'packages/cli/test/**/*.test.ts', 'test/reference/**/*.test.ts', 'test/cross/**/*.test.ts'],
+    include: [
+      'packages/sdk/test/**/*.test.ts',
+      'packages/cli/test/**/*.test.ts',
+      'test/reference/**/*.test.ts',
+      'test/cross/**/*.test.ts',
+    ],
     environment: 'node',
     testTimeout: 60000,
   },

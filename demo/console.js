@@ -2,10 +2,15 @@
 // the browser and hands the results to the @tauline/elements components as properties.
 import '@tauline/elements';
 import {
-  meanClockRate, j2SecularClockRate, rateChangeForSemiMajorAxisChange, planSteering, analyzeStability, reviewOffsets,
+  analyzeStability,
+  j2SecularClockRate,
+  meanClockRate,
+  planSteering,
+  rateChangeForSemiMajorAxisChange,
+  reviewOffsets,
   simulateClosedLoop,
 } from '@tauline/sdk';
-import { SATELLITES, scenarioFor, reviewDocument, clockRecord } from './constellation.js';
+import { clockRecord, reviewDocument, SATELLITES, scenarioFor } from './constellation.js';
 import { loadFleet } from './fleet-view.js';
 
 const $ = (id) => document.getElementById(id);
@@ -41,9 +46,17 @@ const grouped = (v) => minus(v.toLocaleString('en', { maximumFractionDigits: 3 }
  * valid number or the message shown next to the field.
  */
 const FIELDS = {
-  sma: { name: 'the semi-major axis', unit: 'km', min: 20_000, max: 45_000,
+  sma: {
+    name: 'the semi-major axis',
+    unit: 'km',
+    min: 20_000,
+    max: 45_000,
     // A value that reads as a valid orbit once divided by 1000 was typed in metres.
-    hint: (v) => (v / 1000 >= 20_000 && v / 1000 <= 45_000 ? `${grouped(v)} looks like metres: this field takes kilometres (${grouped(v / 1000)} km).` : null) },
+    hint: (v) =>
+      v / 1000 >= 20_000 && v / 1000 <= 45_000
+        ? `${grouped(v)} looks like metres: this field takes kilometres (${grouped(v / 1000)} km).`
+        : null,
+  },
   tol: { name: 'the phase tolerance', unit: 'ns', min: 2, max: 500, hint: () => null },
   dA: { name: 'the manoeuvre Δa', unit: 'm', min: -50_000, max: 50_000, hint: () => null },
 };
@@ -56,17 +69,26 @@ function fieldError(id, input) {
   if (input.value.trim() === '') return `Empty: enter ${f.name} in ${f.unit} (${range}).`;
   const v = Number(input.value);
   if (v >= f.min && v <= f.max) return null;
-  return f.hint(v) ?? `${grouped(v)} ${f.unit} is ${v < f.min ? 'below the minimum' : 'above the maximum'}: ${f.name} must be ${range}.`;
+  return (
+    f.hint(v) ??
+    `${grouped(v)} ${f.unit} is ${v < f.min ? 'below the minimum' : 'above the maximum'}: ${f.name} must be ${range}.`
+  );
 }
 
 /** Shows or clears the field's error next to it (aria-invalid, aria-describedby); true when valid. */
 function showFieldError(id) {
-  const input = $(id), out = $(`${id}-error`);
+  const input = $(id),
+    out = $(`${id}-error`);
   const message = fieldError(id, input);
   out.textContent = message ?? '';
   out.hidden = message === null;
-  if (message) { input.setAttribute('aria-invalid', 'true'); input.setAttribute('aria-describedby', `${id}-error`); }
-  else { input.removeAttribute('aria-invalid'); input.removeAttribute('aria-describedby'); }
+  if (message) {
+    input.setAttribute('aria-invalid', 'true');
+    input.setAttribute('aria-describedby', `${id}-error`);
+  } else {
+    input.removeAttribute('aria-invalid');
+    input.removeAttribute('aria-describedby');
+  }
   return message === null;
 }
 
@@ -105,10 +127,20 @@ function recompute() {
       const t0 = performance.now();
       // The factory offset was set for the design orbit: a different achieved orbit leaves a rate to steer out.
       const residual = BASE_RESIDUAL[index] + rateChangeForSemiMajorAxisChange(sat.designSemiMajorAxis, a);
-      const scenario = scenarioFor(index, { residualFractionalFrequency: residual, tolerancePhaseSeconds: tol, method, maneuverDeltaA: dA });
+      const scenario = scenarioFor(index, {
+        residualFractionalFrequency: residual,
+        tolerancePhaseSeconds: tol,
+        method,
+        maneuverDeltaA: dA,
+      });
       const plan = planSteering(scenario);
       const rate = meanClockRate(a);
-      const j2 = j2SecularClockRate({ semiMajorAxis: a, eccentricity: 0, inclination: sat.inclination, semiMajorAxisKind: 'mean' });
+      const j2 = j2SecularClockRate({
+        semiMajorAxis: a,
+        eccentricity: 0,
+        inclination: sat.inclination,
+        semiMajorAxisKind: 'mean',
+      });
       const ms = performance.now() - t0;
       schedule.plan = plan;
       schedule.scenario = scenario;
@@ -117,7 +149,8 @@ function recompute() {
       budget.j2Rate = j2.j2Correction;
       budget.label = `Rate budget · ${sat.id} at ${(a / 1000).toFixed(1)} km`;
       lastValid = `${sat.id}, a = ${grouped(a / 1000)} km, tolerance ${grouped(tol * 1e9)} ns, Δa ${grouped(dA)} m`;
-      status.textContent = `${sat.id}: residual rate ${minus(residual.toExponential(2))}, ${plan.commands.length} commands, ` +
+      status.textContent =
+        `${sat.id}: residual rate ${minus(residual.toExponential(2))}, ${plan.commands.length} commands, ` +
         `${plan.feasible ? 'feasible' : 'NOT feasible'}. Recomputed in ${ms.toFixed(0)} ms.`;
     } catch (error) {
       status.classList.add('error');
@@ -144,7 +177,13 @@ function flyClosedLoop() {
     try {
       const t0 = performance.now();
       const residual = BASE_RESIDUAL[index] + rateChangeForSemiMajorAxisChange(sat.designSemiMajorAxis, a);
-      const scenario = scenarioFor(index, { residualFractionalFrequency: residual, tolerancePhaseSeconds: tol, method, maneuverDeltaA: dA, days: 30 });
+      const scenario = scenarioFor(index, {
+        residualFractionalFrequency: residual,
+        tolerancePhaseSeconds: tol,
+        method,
+        maneuverDeltaA: dA,
+        days: 30,
+      });
       const summary = simulateClosedLoop(scenario, { runs: LOOP_RUNS, seed: 20270308, strategies: [method, 'none'] });
       const pct = (v) => `${(100 * v).toFixed(1)} %`;
       // One column per strategy, one row per quantity: it reads in the narrow side panel.
@@ -155,8 +194,16 @@ function flyClosedLoop() {
         return c;
       };
       const head = document.createElement('tr');
-      head.append(cell('td', ''), ...summary.strategies.map((r) =>
-        cell('th', r.method === 'none' ? 'no steering' : r.method === 'optimal' ? 'constrained LQ' : 'deadband', 'col')));
+      head.append(
+        cell('td', ''),
+        ...summary.strategies.map((r) =>
+          cell(
+            'th',
+            r.method === 'none' ? 'no steering' : r.method === 'optimal' ? 'constrained LQ' : 'deadband',
+            'col',
+          ),
+        ),
+      );
       const quantities = [
         ['In tolerance, mean', (r) => pct(r.timeInTolerance.mean)],
         ['In tolerance, worst 5 %', (r) => pct(r.timeInTolerance.p05)],
@@ -172,7 +219,8 @@ function flyClosedLoop() {
       $('loop-table').tBodies[0].replaceChildren(...rows);
       $('loop-runs').textContent = String(summary.runs);
       $('loop-table').hidden = false;
-      $('loop-status').textContent = `${sat.id}, tolerance ±${grouped(tol * 1e9)} ns: flown in ${(performance.now() - t0).toFixed(0)} ms. ` +
+      $('loop-status').textContent =
+        `${sat.id}, tolerance ±${grouped(tol * 1e9)} ns: flown in ${(performance.now() - t0).toFixed(0)} ms. ` +
         'Time in tolerance: share of 15-min epochs with |offset| within the tolerance, per simulated clock.';
     } catch (error) {
       $('loop-status').textContent = `Cannot fly: ${error instanceof Error ? error.message : String(error)}`;
@@ -205,8 +253,14 @@ function loadReview() {
 }
 
 // Inputs: number field and slider stay in step; every change recomputes, or shows why it cannot.
-$('sma').addEventListener('input', () => { if (fieldError('sma', $('sma')) === null) $('sma-range').value = $('sma').value; recompute(); });
-$('sma-range').addEventListener('input', () => { $('sma').value = $('sma-range').value; recompute(); });
+$('sma').addEventListener('input', () => {
+  if (fieldError('sma', $('sma')) === null) $('sma-range').value = $('sma').value;
+  recompute();
+});
+$('sma-range').addEventListener('input', () => {
+  $('sma').value = $('sma-range').value;
+  recompute();
+});
 for (const id of ['tol', 'dA']) $(id).addEventListener('input', recompute);
 for (const r of document.querySelectorAll('input[name="method"]')) r.addEventListener('change', recompute);
 $('sat').addEventListener('change', () => setSatellite(Number($('sat').value)));
@@ -222,12 +276,20 @@ const log = (text) => {
 };
 document.addEventListener('tauline-command-select', (e) => {
   const c = e.detail.command;
-  log(`command ${e.detail.index + 1}: ${c.kind} step ${minus(c.fractionalFrequencyStep ?? c.phaseStepSeconds)} at ${c.executeAt}`);
+  log(
+    `command ${e.detail.index + 1}: ${c.kind} step ${minus(c.fractionalFrequencyStep ?? c.phaseStepSeconds)} at ${c.executeAt}`,
+  );
 });
 let viewTimer = 0;
 document.addEventListener('tauline-view-change', (e) => {
   clearTimeout(viewTimer);
-  viewTimer = setTimeout(() => log(`view ${minus((e.detail.startSeconds / 3600).toFixed(1))} h – ${minus((e.detail.endSeconds / 3600).toFixed(1))} h`), 250);
+  viewTimer = setTimeout(
+    () =>
+      log(
+        `view ${minus((e.detail.startSeconds / 3600).toFixed(1))} h – ${minus((e.detail.endSeconds / 3600).toFixed(1))} h`,
+      ),
+    250,
+  );
 });
 document.addEventListener('tauline-spacecraft-select', (e) => {
   log(`review: opened ${e.detail.id} (${e.detail.verdict})`);

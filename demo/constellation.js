@@ -5,10 +5,38 @@ export const CONSTELLATION = 'Corvane';
 
 /** Four invented MEO satellites: design semi-major axis (m), inclination (rad), clock type. */
 export const SATELLITES = [
-  { id: 'CORVANE-A1', designSemiMajorAxis: 27_870_000, inclination: 0.977, clock: 'rubidium', stationA: 'Isk Harbour', stationB: 'Vell Ridge' },
-  { id: 'CORVANE-A2', designSemiMajorAxis: 27_870_000, inclination: 0.977, clock: 'rubidium', stationA: 'Vell Ridge', stationB: 'Isk Harbour' },
-  { id: 'CORVANE-B1', designSemiMajorAxis: 27_655_000, inclination: 0.96, clock: 'passive maser', stationA: 'Isk Harbour', stationB: 'Vell Ridge' },
-  { id: 'CORVANE-B2', designSemiMajorAxis: 27_655_000, inclination: 0.96, clock: 'passive maser', stationA: 'Vell Ridge', stationB: 'Isk Harbour' },
+  {
+    id: 'CORVANE-A1',
+    designSemiMajorAxis: 27_870_000,
+    inclination: 0.977,
+    clock: 'rubidium',
+    stationA: 'Isk Harbour',
+    stationB: 'Vell Ridge',
+  },
+  {
+    id: 'CORVANE-A2',
+    designSemiMajorAxis: 27_870_000,
+    inclination: 0.977,
+    clock: 'rubidium',
+    stationA: 'Vell Ridge',
+    stationB: 'Isk Harbour',
+  },
+  {
+    id: 'CORVANE-B1',
+    designSemiMajorAxis: 27_655_000,
+    inclination: 0.96,
+    clock: 'passive maser',
+    stationA: 'Isk Harbour',
+    stationB: 'Vell Ridge',
+  },
+  {
+    id: 'CORVANE-B2',
+    designSemiMajorAxis: 27_655_000,
+    inclination: 0.96,
+    clock: 'passive maser',
+    stationA: 'Vell Ridge',
+    stationB: 'Isk Harbour',
+  },
 ];
 
 const EPOCH = '2027-03-08T00:00:00Z'; // inside the SDK's bundled leap-second table span
@@ -30,7 +58,10 @@ function contacts(index, days) {
  * A steering scenario for one satellite. `residualFractionalFrequency` is the clock's rate
  * left over after the factory offset (what the what-if panel changes through the orbit).
  */
-export function scenarioFor(index, { residualFractionalFrequency, tolerancePhaseSeconds, method, maneuverDeltaA = 12_000, days = 7 }) {
+export function scenarioFor(
+  index,
+  { residualFractionalFrequency, tolerancePhaseSeconds, method, maneuverDeltaA = 12_000, days = 7 },
+) {
   const sat = SATELLITES[index];
   const rubidium = sat.clock === 'rubidium';
   return {
@@ -43,10 +74,12 @@ export function scenarioFor(index, { residualFractionalFrequency, tolerancePhase
       phaseSeconds: 2.5e-9,
       fractionalFrequency: residualFractionalFrequency,
       driftPerSecond: rubidium ? 4e-19 : 6e-20,
-      noise: { stability: {
-        whiteFrequency: { tau: 1, deviation: rubidium ? 2.5e-12 : 8e-13 },
-        randomWalkFrequency: { tau: 86400, deviation: rubidium ? 4e-15 : 1.5e-15 },
-      } },
+      noise: {
+        stability: {
+          whiteFrequency: { tau: 1, deviation: rubidium ? 2.5e-12 : 8e-13 },
+          randomWalkFrequency: { tau: 86400, deviation: rubidium ? 4e-15 : 1.5e-15 },
+        },
+      },
     },
     tolerance: { phaseSeconds: tolerancePhaseSeconds, probability: 0.95 },
     contacts: contacts(index, days),
@@ -58,17 +91,28 @@ export function scenarioFor(index, { residualFractionalFrequency, tolerancePhase
       minCommandSpacingSeconds: 3600,
       maxTimeTagSeconds: 129600,
     },
-    maneuvers: [{ at: iso(3 * 86400 + 14.5 * 3600), semiMajorAxisBefore: sat.designSemiMajorAxis, semiMajorAxisAfter: sat.designSemiMajorAxis + maneuverDeltaA }],
+    maneuvers: [
+      {
+        at: iso(3 * 86400 + 14.5 * 3600),
+        semiMajorAxisBefore: sat.designSemiMajorAxis,
+        semiMajorAxisAfter: sat.designSemiMajorAxis + maneuverDeltaA,
+      },
+    ],
     strategy: { method },
     // Ground estimates of the clock offset every 15 min (0.3 ns, 1 h late), re-planned at each contact:
     // what the closed-loop what-if flies (invented operations figures).
-    operations: { estimateIntervalSeconds: 900, estimateNoiseSeconds: 3e-10, estimateLatencySeconds: 3600, replan: 'each-contact' },
+    operations: {
+      estimateIntervalSeconds: 900,
+      estimateNoiseSeconds: 3e-10,
+      estimateLatencySeconds: 3600,
+      replan: 'each-contact',
+    },
   };
 }
 
 /** An invented launch review of the four satellites; two carry classic mistakes. */
 export function reviewDocument(expectedOffsets) {
-  const [a1, a2, b1, b2] = expectedOffsets;
+  const [a1, a2, b1] = expectedOffsets; // B2 is configured for another orbit (the mistake under review)
   return {
     title: `${CONSTELLATION} launch review (fictional)`,
     nominalFrequencyHz: 10_230_000,
@@ -78,10 +122,26 @@ export function reviewDocument(expectedOffsets) {
     actuator: { rangeFractional: 2e-11 },
     phaseToleranceSeconds: 1e-6,
     spacecraft: [
-      { id: 'CORVANE-A1', configured: { fractionalOffset: a1 }, orbit: { semiMajorAxis: SATELLITES[0].designSemiMajorAxis, inclination: SATELLITES[0].inclination } },
-      { id: 'CORVANE-A2', configured: { fractionalOffset: -a2 }, orbit: { semiMajorAxis: SATELLITES[1].designSemiMajorAxis, inclination: SATELLITES[1].inclination } },
-      { id: 'CORVANE-B1', configured: { fractionalOffset: b1 + 4e-13 }, orbit: { semiMajorAxis: SATELLITES[2].designSemiMajorAxis, inclination: SATELLITES[2].inclination } },
-      { id: 'CORVANE-B2', configured: { fractionalOffset: -4.4647e-10 }, orbit: { semiMajorAxis: SATELLITES[3].designSemiMajorAxis, inclination: SATELLITES[3].inclination } },
+      {
+        id: 'CORVANE-A1',
+        configured: { fractionalOffset: a1 },
+        orbit: { semiMajorAxis: SATELLITES[0].designSemiMajorAxis, inclination: SATELLITES[0].inclination },
+      },
+      {
+        id: 'CORVANE-A2',
+        configured: { fractionalOffset: -a2 },
+        orbit: { semiMajorAxis: SATELLITES[1].designSemiMajorAxis, inclination: SATELLITES[1].inclination },
+      },
+      {
+        id: 'CORVANE-B1',
+        configured: { fractionalOffset: b1 + 4e-13 },
+        orbit: { semiMajorAxis: SATELLITES[2].designSemiMajorAxis, inclination: SATELLITES[2].inclination },
+      },
+      {
+        id: 'CORVANE-B2',
+        configured: { fractionalOffset: -4.4647e-10 },
+        orbit: { semiMajorAxis: SATELLITES[3].designSemiMajorAxis, inclination: SATELLITES[3].inclination },
+      },
     ],
   };
 }
@@ -126,8 +186,16 @@ function fleetPasses(index, days) {
   const shift = index * 1500;
   for (let d = 0; d < days; d++) {
     if (index === 3 && d === 0) continue;
-    out.push({ station: 'ISK-HARBOUR', start: iso(d * 86400 + 4 * 3600 + shift), end: iso(d * 86400 + 4 * 3600 + shift + 2700) });
-    out.push({ station: 'VELL-RIDGE', start: iso(d * 86400 + 16 * 3600 + shift), end: iso(d * 86400 + 16 * 3600 + shift + 2400) });
+    out.push({
+      station: 'ISK-HARBOUR',
+      start: iso(d * 86400 + 4 * 3600 + shift),
+      end: iso(d * 86400 + 4 * 3600 + shift + 2700),
+    });
+    out.push({
+      station: 'VELL-RIDGE',
+      start: iso(d * 86400 + 16 * 3600 + shift),
+      end: iso(d * 86400 + 16 * 3600 + shift + 2400),
+    });
   }
   return out;
 }
@@ -146,8 +214,20 @@ export function fleetDocument(residuals, { tolerancePhaseSeconds = 25e-9, method
     gridSeconds: 900,
     stations: FLEET_STATIONS,
     satellites: SATELLITES.map((sat, index) => {
-      const s = scenarioFor(index, { residualFractionalFrequency: residuals[index], tolerancePhaseSeconds, method, days });
-      return { id: sat.id, clock: s.clock, tolerance: s.tolerance, actuator: s.actuator, maneuvers: [], passes: fleetPasses(index, days) };
+      const s = scenarioFor(index, {
+        residualFractionalFrequency: residuals[index],
+        tolerancePhaseSeconds,
+        method,
+        days,
+      });
+      return {
+        id: sat.id,
+        clock: s.clock,
+        tolerance: s.tolerance,
+        actuator: s.actuator,
+        maneuvers: [],
+        passes: fleetPasses(index, days),
+      };
     }),
     strategy: { method },
   };

@@ -2,16 +2,17 @@
 // invented stations with planFleet (in this page), shown in <tauline-fleet-timeline>, with a summary
 // (held? who is at risk and why) and the details of the satellite the user selects.
 import { planFleet } from '@tauline/sdk/fleet';
-import { SATELLITES, FLEET_STATIONS, fleetDocument } from './constellation.js';
+import { FLEET_STATIONS, fleetDocument, SATELLITES } from './constellation.js';
 
 /** Residual rates of the fleet view (invented): CORVANE-B2 runs fast and has no pass on the first day. */
 const FLEET_RESIDUALS = [1.2e-13, -0.8e-13, 0.5e-13, 2.6e-13];
 
 const $ = (id) => document.getElementById(id);
 /** Numbers' signs as the typographic minus U+2212 (as the elements print them); hyphens in dates stay. */
-const minus = (text) => String(text)
-  .replace(/(^|[\s(=±Δ:[,;/])-(?=\.?\d)/g, '$1\u2212')
-  .replace(/(\d[eE])-(?=\d)/g, '$1\u2212');
+const minus = (text) =>
+  String(text)
+    .replace(/(^|[\s(=±Δ:[,;/])-(?=\.?\d)/g, '$1\u2212')
+    .replace(/(\d[eE])-(?=\d)/g, '$1\u2212');
 const ns = (seconds) => `${minus((seconds * 1e9).toFixed(1))} ns`;
 const utc = (iso) => iso.replace('T', ' ').replace(/:00Z$|Z$/, ' UTC');
 
@@ -28,17 +29,23 @@ function showSummary(plan, timeline, ms) {
   const notHeld = plan.satellites.filter((s) => !s.feasible);
   const low = timeline.atRisk.filter((id) => !notHeld.some((s) => s.id === id));
   const items = [];
-  items.push(text('p', plan.feasible
-    ? `✓ Every satellite is held inside its tolerance through ${FLEET_STATIONS.length} shared stations ` +
-      `(planned in ${ms.toFixed(0)} ms).`
-    : `✕ Not feasible: ${notHeld.length} of ${plan.satellites.length} satellites cannot be held ` +
-      `(planned in ${ms.toFixed(0)} ms).`,
-  plan.feasible ? 'ok' : 'bad'));
+  items.push(
+    text(
+      'p',
+      plan.feasible
+        ? `✓ Every satellite is held inside its tolerance through ${FLEET_STATIONS.length} shared stations ` +
+            `(planned in ${ms.toFixed(0)} ms).`
+        : `✕ Not feasible: ${notHeld.length} of ${plan.satellites.length} satellites cannot be held ` +
+            `(planned in ${ms.toFixed(0)} ms).`,
+      plan.feasible ? 'ok' : 'bad',
+    ),
+  );
   if (notHeld.length > 0 || low.length > 0) {
     const list = document.createElement('ul');
     for (const s of notHeld) list.append(text('li', `⚠ ${s.id}: ${minus(s.reason ?? s.reasonCode ?? 'not held')}`));
     const share = Math.round(timeline.riskMargin * 100);
-    for (const id of low) list.append(text('li', `⚠ ${id}: held, but its smallest margin is under ${share} % of its tolerance.`));
+    for (const id of low)
+      list.append(text('li', `⚠ ${id}: held, but its smallest margin is under ${share} % of its tolerance.`));
     items.push(list);
   }
   out.replaceChildren(...items);

@@ -7,8 +7,9 @@
 // no percent-encoding and no absolute path can reach another file. Only the loopback interface is
 // bound, and a request whose Host header is not 127.0.0.1:<port> or localhost:<port> is refused,
 // which closes the page to DNS rebinding. Only GET and HEAD are answered.
-import { createServer } from 'node:http';
+
 import { readdirSync, readFileSync, statSync } from 'node:fs';
+import { createServer } from 'node:http';
 import { extname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -46,7 +47,8 @@ export function servedFiles(demoFolder = DEMO) {
   if (!built.includes('console.js')) {
     throw new Error(`the demo bundle ${join(dist, 'console.js')} is missing: run "npm run build" first`);
   }
-  for (const name of built) files.set(`/demo/dist/${name}`, { path: join(dist, name), type: CONTENT_TYPES[extname(name)] });
+  for (const name of built)
+    files.set(`/demo/dist/${name}`, { path: join(dist, name), type: CONTENT_TYPES[extname(name)] });
   for (const { path } of files.values()) statSync(path); // a missing page fails here, at start-up
   return files;
 }
@@ -121,8 +123,14 @@ export function startDemoServer({ port = 8000, demoFolder = DEMO } = {}) {
         return;
       }
       resolve({
-        server, port: bound, url: `http://${DEMO_HOST}:${bound}/demo/index.html`,
-        close: () => new Promise((done) => { server.closeAllConnections(); server.close(() => done()); }),
+        server,
+        port: bound,
+        url: `http://${DEMO_HOST}:${bound}/demo/index.html`,
+        close: () =>
+          new Promise((done) => {
+            server.closeAllConnections();
+            server.close(() => done());
+          }),
       });
     });
   });

@@ -24,11 +24,17 @@ try {
   demo = await startDemoServer({ port });
 } catch (error) {
   const inUse = error && typeof error === 'object' && 'code' in error && error.code === 'EADDRINUSE';
-  console.error(inUse ? `\nPort ${port} is in use: stop the other server or run PORT=8001 npm start.` : `\n${error.message ?? error}`);
+  console.error(
+    inUse
+      ? `\nPort ${port} is in use: stop the other server or run PORT=8001 npm start.`
+      : `\n${error.message ?? error}`,
+  );
   process.exit(1);
 }
 console.log(`\nTauline demo operations console: ${demo.url}`);
 console.log('(served on the loopback interface only; press Ctrl+C to stop)');
 for (const signal of ['SIGINT', 'SIGTERM']) {
-  process.once(signal, () => { demo.close().then(() => process.exit(0)); });
+  process.once(signal, () => {
+    demo.close().then(() => process.exit(0));
+  });
 }

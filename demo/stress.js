@@ -9,7 +9,10 @@ const iso = (s) => new Date(EPOCH_MS + s * 1000).toISOString();
 
 /** Synthetic steered/unsteered prediction with a little high-frequency wobble (so decimation has work). */
 export function makeLargePlan(n = N) {
-  const t = new Float64Array(n), steered = new Float64Array(n), sigma = new Float64Array(n), unsteered = new Float64Array(n);
+  const t = new Float64Array(n),
+    steered = new Float64Array(n),
+    sigma = new Float64Array(n),
+    unsteered = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const s = (SPAN * i) / (n - 1);
     t[i] = s;
@@ -19,12 +22,38 @@ export function makeLargePlan(n = N) {
   }
   const commands = [];
   for (let k = 1; k <= 12; k++) {
-    commands.push({ uplinkAt: iso(k * 50000 - 3000), executeAt: iso(k * 50000), kind: k % 4 === 0 ? 'phase' : 'frequency',
-      fractionalFrequencyStep: (k % 2 ? -1 : 1) * 3e-14, phaseStepSeconds: -1e-9, actuatorSteps: (k % 2 ? -6 : 6), reason: 'synthetic' });
+    commands.push({
+      uplinkAt: iso(k * 50000 - 3000),
+      executeAt: iso(k * 50000),
+      kind: k % 4 === 0 ? 'phase' : 'frequency',
+      fractionalFrequencyStep: (k % 2 ? -1 : 1) * 3e-14,
+      phaseStepSeconds: -1e-9,
+      actuatorSteps: k % 2 ? -6 : 6,
+      reason: 'synthetic',
+    });
   }
   return {
-    plan: { feasible: true, commands, metrics: { commandCount: commands.length }, caution: 'Caution: synthetic stress data, not a plan.', predicted: { t, steered: { phaseSeconds: steered, sigmaSeconds: sigma }, unsteered: { phaseSeconds: unsteered, sigmaSeconds: sigma } } },
-    scenario: { epoch: EPOCH, horizonSeconds: SPAN, tolerance: { phaseSeconds: 2e-8 }, contacts: [{ start: iso(40000), end: iso(43000) }, { start: iso(300000), end: iso(304000) }], maneuvers: [{ at: iso(200000), semiMajorAxisBefore: 27_870_000, semiMajorAxisAfter: 27_882_000 }] },
+    plan: {
+      feasible: true,
+      commands,
+      metrics: { commandCount: commands.length },
+      caution: 'Caution: synthetic stress data, not a plan.',
+      predicted: {
+        t,
+        steered: { phaseSeconds: steered, sigmaSeconds: sigma },
+        unsteered: { phaseSeconds: unsteered, sigmaSeconds: sigma },
+      },
+    },
+    scenario: {
+      epoch: EPOCH,
+      horizonSeconds: SPAN,
+      tolerance: { phaseSeconds: 2e-8 },
+      contacts: [
+        { start: iso(40000), end: iso(43000) },
+        { start: iso(300000), end: iso(304000) },
+      ],
+      maneuvers: [{ at: iso(200000), semiMajorAxisBefore: 27_870_000, semiMajorAxisAfter: 27_882_000 }],
+    },
   };
 }
 
@@ -42,11 +71,13 @@ const median = (xs) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 function undecimatedDraw(data, width, height) {
   const c = document.createElement('canvas');
   const ratio = devicePixelRatio || 1;
-  c.width = width * ratio; c.height = height * ratio;
+  c.width = width * ratio;
+  c.height = height * ratio;
   const ctx = c.getContext('2d');
   ctx.setTransform(ratio, 0, 0, ratio, 0, 0);
   const { t, steered } = { t: data.plan.predicted.t, steered: data.plan.predicted.steered.phaseSeconds };
-  const kx = width / SPAN, ky = height / 6e-8;
+  const kx = width / SPAN,
+    ky = height / 6e-8;
   const t0 = performance.now();
   ctx.beginPath();
   ctx.moveTo(0, height / 2 - steered[0] * ky);
@@ -63,7 +94,14 @@ async function panTimes(fraction, repeats) {
   const times = [];
   for (let k = 0; k < repeats; k++) {
     const t0 = performance.now();
-    box.dispatchEvent(new KeyboardEvent('keydown', { key: k % 8 < 4 ? 'ArrowRight' : 'ArrowLeft', shiftKey: true, bubbles: true, composed: true }));
+    box.dispatchEvent(
+      new KeyboardEvent('keydown', {
+        key: k % 8 < 4 ? 'ArrowRight' : 'ArrowLeft',
+        shiftKey: true,
+        bubbles: true,
+        composed: true,
+      }),
+    );
     await settled();
     times.push(performance.now() - t0);
   }
@@ -81,15 +119,24 @@ export async function runBench() {
   await settled();
   const firstRender = performance.now() - t0;
   const rect = canvas().getBoundingClientRect();
-  const baselines = [undecimatedDraw(data, rect.width, rect.height), undecimatedDraw(data, rect.width, rect.height), undecimatedDraw(data, rect.width, rect.height)];
+  const baselines = [
+    undecimatedDraw(data, rect.width, rect.height),
+    undecimatedDraw(data, rect.width, rect.height),
+    undecimatedDraw(data, rect.width, rect.height),
+  ];
   const pan50 = await panTimes(0.5, 24);
   const pan5 = await panTimes(0.05, 24);
   el.resetView();
   await settled();
   return {
-    points: N, width: Math.round(rect.width), devicePixelRatio: devicePixelRatio,
-    firstRenderMs: firstRender, panHalfSpanMedianMs: median(pan50), panHalfSpanMaxMs: Math.max(...pan50),
-    panTwentiethSpanMedianMs: median(pan5), undecimatedDrawMedianMs: median(baselines),
+    points: N,
+    width: Math.round(rect.width),
+    devicePixelRatio: devicePixelRatio,
+    firstRenderMs: firstRender,
+    panHalfSpanMedianMs: median(pan50),
+    panHalfSpanMaxMs: Math.max(...pan50),
+    panTwentiethSpanMedianMs: median(pan5),
+    undecimatedDrawMedianMs: median(baselines),
   };
 }
 window.runBench = runBench;
@@ -98,11 +145,17 @@ const stability = document.querySelector('tauline-stability-plot');
 
 /** Synthetic stability series: n τ log-spaced over six decades, a white-FM slope, intervals and n. */
 export function makeStabilitySeries(n) {
-  const tau = new Float64Array(n), deviation = new Float64Array(n), low = new Float64Array(n), high = new Float64Array(n), terms = new Float64Array(n);
+  const tau = new Float64Array(n),
+    deviation = new Float64Array(n),
+    low = new Float64Array(n),
+    high = new Float64Array(n),
+    terms = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     tau[i] = 10 ** ((6 * i) / (n - 1));
     deviation[i] = (3e-12 / Math.sqrt(tau[i])) * (1 + 0.05 * Math.sin(i * 0.7));
-    low[i] = deviation[i] * 0.9; high[i] = deviation[i] * 1.12; terms[i] = n - i + 1;
+    low[i] = deviation[i] * 0.9;
+    high[i] = deviation[i] * 1.12;
+    terms[i] = n - i + 1;
   }
   return [{ statistic: 'oadev', tau, deviation, low, high, n: terms }];
 }
@@ -136,17 +189,31 @@ export async function runStabilityBench(n) {
   await stabilityDrawn();
   const update = performance.now() - t1;
   const overlay = stability.shadowRoot.querySelector('canvas.overlay');
-  const w = overlay.clientWidth, h = overlay.clientHeight;
+  const w = overlay.clientWidth,
+    h = overlay.clientHeight;
   const hovers = [];
   for (let k = 0; k < 30; k++) {
-    const x = 80 + ((w - 160) * k) / 29, y = h * 0.2 + (h * 0.5 * k) / 29;
+    const x = 80 + ((w - 160) * k) / 29,
+      y = h * 0.2 + (h * 0.5 * k) / 29;
     const s = performance.now();
-    overlay.dispatchEvent(new PointerEvent('pointermove', { clientX: overlay.getBoundingClientRect().left + x, clientY: overlay.getBoundingClientRect().top + y, bubbles: true }));
+    overlay.dispatchEvent(
+      new PointerEvent('pointermove', {
+        clientX: overlay.getBoundingClientRect().left + x,
+        clientY: overlay.getBoundingClientRect().top + y,
+        bubbles: true,
+      }),
+    );
     await stability.updateComplete;
     hovers.push(performance.now() - s);
   }
-  return { points: n, firstRenderMs: firstRender, updateMs: update, hoverMedianMs: median(hovers), hoverMaxMs: Math.max(...hovers),
-    tableRowsInDom: stability.shadowRoot.querySelectorAll('tbody tr[part~="row"]').length };
+  return {
+    points: n,
+    firstRenderMs: firstRender,
+    updateMs: update,
+    hoverMedianMs: median(hovers),
+    hoverMaxMs: Math.max(...hovers),
+    tableRowsInDom: stability.shadowRoot.querySelectorAll('tbody tr[part~="row"]').length,
+  };
 }
 window.runStabilityBench = runStabilityBench;
 
@@ -161,7 +228,9 @@ if (!new URLSearchParams(location.search).has('bench')) {
     const first = out.textContent;
     el.addEventListener('tauline-view-change', () => {
       const s = performance.now();
-      settled().then(() => { out.textContent = `${first}\nlast redraw after zoom/pan ${(performance.now() - s).toFixed(1)} ms`; });
+      settled().then(() => {
+        out.textContent = `${first}\nlast redraw after zoom/pan ${(performance.now() - s).toFixed(1)} ms`;
+      });
     });
   });
 }
@@ -173,7 +242,10 @@ async function fleetDrawn() {
   for (let k = 0; k < 20; k++) {
     await fleetTimeline.updateComplete;
     const c = fleetTimeline.shadowRoot.querySelector('canvas.data');
-    if (c?.style.height) { c.getContext('2d').getImageData(0, 0, 1, 1); return; }
+    if (c?.style.height) {
+      c.getContext('2d').getImageData(0, 0, 1, 1);
+      return;
+    }
     await new Promise((r) => requestAnimationFrame(r));
   }
 }
@@ -182,13 +254,16 @@ async function fleetDrawn() {
 function naiveFleetDraw(plan, width, height) {
   const c = document.createElement('canvas');
   const ratio = devicePixelRatio || 1;
-  c.width = width * ratio; c.height = height * ratio;
+  c.width = width * ratio;
+  c.height = height * ratio;
   const ctx = c.getContext('2d');
   ctx.setTransform(ratio, 0, 0, ratio, 0, 0);
   const t0 = performance.now();
   const rowHeight = height / (plan.satellites.length + 4);
   plan.satellites.forEach((s, i) => {
-    const t = s.predicted.t, m = s.predicted.steered.phaseSeconds, span = t[t.length - 1] || 1;
+    const t = s.predicted.t,
+      m = s.predicted.steered.phaseSeconds,
+      span = t[t.length - 1] || 1;
     for (let k = 0; k < t.length; k++) {
       ctx.fillStyle = Math.abs(m[k]) > 5e-8 ? '#b3261e' : '#1d6b63';
       ctx.fillRect((t[k] / span) * width, i * rowHeight, Math.max(1, width / t.length), rowHeight * 0.6);
@@ -221,15 +296,25 @@ export async function runFleetBench({ fleet, plan }) {
   const baselines = [0, 1, 2].map(() => naiveFleetDraw(plan, rect.width, rect.height));
   const hovers = [];
   for (let k = 0; k < 40; k++) {
-    const x = rect.left + 140 + ((rect.width - 160) * k) / 39, y = rect.top + 40 + ((rect.height - 50) * ((k * 7) % 40)) / 40;
+    const x = rect.left + 140 + ((rect.width - 160) * k) / 39,
+      y = rect.top + 40 + ((rect.height - 50) * ((k * 7) % 40)) / 40;
     const s = performance.now();
     box.dispatchEvent(new PointerEvent('pointermove', { clientX: x, clientY: y, bubbles: true }));
     await fleetTimeline.updateComplete;
     hovers.push(performance.now() - s);
   }
   const samples = plan.satellites.reduce((n, s) => n + s.predicted.t.length, 0);
-  return { satellites: plan.satellites.length, stations: plan.stationSchedule.length, samples, width: Math.round(rect.width),
-    height: Math.round(rect.height), firstRenderMs: firstRender, updateMs: update, hoverMedianMs: median(hovers), hoverMaxMs: Math.max(...hovers),
-    baselineMs: median(baselines) };
+  return {
+    satellites: plan.satellites.length,
+    stations: plan.stationSchedule.length,
+    samples,
+    width: Math.round(rect.width),
+    height: Math.round(rect.height),
+    firstRenderMs: firstRender,
+    updateMs: update,
+    hoverMedianMs: median(hovers),
+    hoverMaxMs: Math.max(...hovers),
+    baselineMs: median(baselines),
+  };
 }
 window.runFleetBench = runFleetBench;

@@ -15,8 +15,10 @@ function run(cmd, args, opts = {}) {
 
 const chromium = process.env.CHROME_PATH || '/usr/bin/chromium';
 if (!existsSync(chromium)) {
-  console.error(`\nChromium was not found at ${chromium}. The browser suites need it and are never skipped.\n` +
-    'Install it with:  apt-get update && apt-get install -y chromium   (or set CHROME_PATH)\n');
+  console.error(
+    `\nChromium was not found at ${chromium}. The browser suites need it and are never skipped.\n` +
+      'Install it with:  apt-get update && apt-get install -y chromium   (or set CHROME_PATH)\n',
+  );
   console.log('0 passed, 1 failed');
   process.exit(1);
 }
@@ -41,19 +43,30 @@ const shapePassed = shapeRc === 0 ? 1 : 0;
 const shapeFailed = shapeRc === 0 ? 0 : 1;
 if (shapeRc !== 0) console.error('format/lint check failed: run `npm run format` and `npm run lint` to see and fix it');
 
-const vitestRc = run('npx', ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile=${OUT}/vitest.json`]);
-let unitPassed = 0, unitFailed = 1;
+const vitestRc = run('npx', [
+  'vitest',
+  'run',
+  '--reporter=default',
+  '--reporter=json',
+  `--outputFile=${OUT}/vitest.json`,
+]);
+let unitPassed = 0,
+  unitFailed = 1;
 try {
   const report = JSON.parse(readFileSync(`${OUT}/vitest.json`, 'utf8'));
   unitPassed = report.numPassedTests;
-  unitFailed = report.numFailedTests + (report.numFailedTestSuites ?? 0) + (vitestRc !== 0 && report.numFailedTests === 0 ? 1 : 0);
-} catch { /* no report: counted as one failure */ }
+  unitFailed =
+    report.numFailedTests + (report.numFailedTestSuites ?? 0) + (vitestRc !== 0 && report.numFailedTests === 0 ? 1 : 0);
+} catch {
+  /* no report: counted as one failure */
+}
 
 const wtr = spawnSync('npx', ['web-test-runner'], { encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 });
 process.stdout.write(wtr.stdout ?? '');
 process.stderr.write(wtr.stderr ?? '');
 const matches = [...String(wtr.stdout).matchAll(/(\d+) passed, (\d+) failed/g)];
-let browserPassed = 0, browserFailed = 1;
+let browserPassed = 0,
+  browserFailed = 1;
 if (matches.length > 0) {
   const last = matches[matches.length - 1];
   browserPassed = Number(last[1]);

@@ -18,16 +18,35 @@ const R = 1e-20;
 
 /** The same 2-state recursion as plain scalar JavaScript: the baseline. Returns a checksum. */
 function scalarKalman(z) {
-  let x = z[0], y = 0, p00 = R, p01 = 0, p11 = 1e-18, acc = 0;
-  const tau = 1, qa = Q.q1 * tau + (Q.q2 * tau ** 3) / 3, qb = (Q.q2 * tau * tau) / 2, qc = Q.q2 * tau;
+  let x = z[0],
+    y = 0,
+    p00 = R,
+    p01 = 0,
+    p11 = 1e-18,
+    acc = 0;
+  const tau = 1,
+    qa = Q.q1 * tau + (Q.q2 * tau ** 3) / 3,
+    qb = (Q.q2 * tau * tau) / 2,
+    qc = Q.q2 * tau;
   for (let i = 1; i < z.length; i++) {
     x += tau * y;
-    const a00 = p00 + tau * p01, a01 = p01 + tau * p11;
-    p00 = a00 + tau * a01 + qa; p01 = a01 + qb; p11 += qc;
-    const s = p00 + R, nu = z[i] - x, k0 = p00 / s, k1 = p01 / s;
-    const n00 = p00 - 2 * k0 * p00 + k0 * k0 * s, n01 = p01 - k0 * p01 - k1 * p00 + k0 * k1 * s, n11 = p11 - 2 * k1 * p01 + k1 * k1 * s;
-    p00 = n00; p01 = n01; p11 = n11;
-    x += k0 * nu; y += k1 * nu;
+    const a00 = p00 + tau * p01,
+      a01 = p01 + tau * p11;
+    p00 = a00 + tau * a01 + qa;
+    p01 = a01 + qb;
+    p11 += qc;
+    const s = p00 + R,
+      nu = z[i] - x,
+      k0 = p00 / s,
+      k1 = p01 / s;
+    const n00 = p00 - 2 * k0 * p00 + k0 * k0 * s,
+      n01 = p01 - k0 * p01 - k1 * p00 + k0 * k1 * s,
+      n11 = p11 - 2 * k1 * p01 + k1 * k1 * s;
+    p00 = n00;
+    p01 = n01;
+    p11 = n11;
+    x += k0 * nu;
+    y += k1 * nu;
     acc += x;
   }
   return acc;
@@ -51,19 +70,30 @@ function filterCases() {
     const z = simulateClock({ samples: n, tau0: 1, q: Q, seed: 3, measurementNoise: 1e-10 }).phase;
     const repeat = n >= 1e6 ? 3 : 5;
     const base = best(() => scalarKalman(z), repeat);
-    const off = best(() => runClockFilter({ phase: z, variance: R, tau0: 1 }, { q: Q, jumpDetection: false, outlierProbability: false }), repeat);
+    const off = best(
+      () =>
+        runClockFilter({ phase: z, variance: R, tau0: 1 }, { q: Q, jumpDetection: false, outlierProbability: false }),
+      repeat,
+    );
     const on = best(() => runClockFilter({ phase: z, variance: R, tau0: 1 }, { q: Q }), repeat);
     rows.push({ n, base, off, on });
   }
-  process.stdout.write('runClockFilter, 2-state, best of ≥ 3 (baseline: plain scalar loop of the same recursion, same run)\n');
+  process.stdout.write(
+    'runClockFilter, 2-state, best of ≥ 3 (baseline: plain scalar loop of the same recursion, same run)\n',
+  );
   for (const r of rows) {
     const us = (ms) => ((ms * 1000) / r.n).toFixed(3).padStart(7);
-    process.stdout.write(`  N = ${String(r.n).padStart(7)}  baseline ${us(r.base)} µs/sample   no detection ${us(r.off)} µs (×${(r.off / r.base).toFixed(1)})` +
-      `   with GLR detector ${us(r.on)} µs (×${(r.on / r.base).toFixed(1)})\n`);
+    process.stdout.write(
+      `  N = ${String(r.n).padStart(7)}  baseline ${us(r.base)} µs/sample   no detection ${us(r.off)} µs (×${(r.off / r.base).toFixed(1)})` +
+        `   with GLR detector ${us(r.on)} µs (×${(r.on / r.base).toFixed(1)})\n`,
+    );
   }
-  const first = rows[0], last = rows[rows.length - 1];
+  const first = rows[0],
+    last = rows[rows.length - 1];
   const growth = (key) => (Math.log(last[key] / first[key]) / Math.log(last.n / first.n)).toFixed(2);
-  process.stdout.write(`  growth exponent (time ∝ N^k, N = 1e4 → 1e6): baseline ${growth('base')}, no detection ${growth('off')}, with detector ${growth('on')}\n`);
+  process.stdout.write(
+    `  growth exponent (time ∝ N^k, N = 1e4 → 1e6): baseline ${growth('base')}, no detection ${growth('off')}, with detector ${growth('on')}\n`,
+  );
 }
 
 function cliCase() {
@@ -72,7 +102,7 @@ function cliCase() {
   try {
     const file = join(dir, 'phase-1e6.txt');
     const sim = simulateClock({ samples: 1e6, tau0: 1, q: Q, seed: 7, measurementNoise: 1e-10 });
-    writeFileSync(file, Array.from(sim.phase, (v) => v.toExponential(12)).join('\n') + '\n');
+    writeFileSync(file, `${Array.from(sim.phase, (v) => v.toExponential(12)).join('\n')}\n`);
     const child = `const { main } = await import(${JSON.stringify(join(root, 'packages/cli/dist/main.js'))});
 const io = { out() {}, err(s) { process.stderr.write(s); } };
 const code = await main(['clock', '--phase', ${JSON.stringify(file)}, '--tau0', '1'], io);
@@ -86,8 +116,10 @@ process.stdout.write(JSON.stringify({ code, maxRssKiB: u.maxRSS, cpuS: (u.userCP
       return;
     }
     const res = JSON.parse(r.stdout);
-    process.stdout.write(`tauline clock, 10^6 generated samples (one column, τ0 = 1 s): exit ${res.code}, wall ${wall.toFixed(1)} s ` +
-      `(CPU ${res.cpuS.toFixed(1)} s), peak RSS ${(res.maxRssKiB / 1024).toFixed(0)} MiB; goal < 10 s, < 300 MB\n`);
+    process.stdout.write(
+      `tauline clock, 10^6 generated samples (one column, τ0 = 1 s): exit ${res.code}, wall ${wall.toFixed(1)} s ` +
+        `(CPU ${res.cpuS.toFixed(1)} s), peak RSS ${(res.maxRssKiB / 1024).toFixed(0)} MiB; goal < 10 s, < 300 MB\n`,
+    );
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

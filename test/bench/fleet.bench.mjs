@@ -2,9 +2,10 @@
 // < 1 s) and 30 days (target < 5 s), against a baseline measured in the same run: planning the 30
 // satellites one by one with every pass as a contact (no station sharing). Imports the built SDK
 // (packages/sdk/dist). Prints times, ratios and the targets; asserts nothing.
-import { growthExponent } from './baselines/native.mjs';
+
 import { planFleet } from '../../packages/sdk/dist/fleet/index.js';
 import { planSteering } from '../../packages/sdk/dist/steering/index.js';
+import { growthExponent } from './baselines/native.mjs';
 
 /** Deterministic pseudo-random numbers in [0, 1) (a linear congruential generator, fixed seed). */
 function lcg(seed) {
@@ -35,19 +36,31 @@ function constellation(days) {
     return {
       id: `BENCH-${String(i + 1).padStart(2, '0')}`,
       clock: {
-        phaseSeconds: (rand() - 0.5) * 1e-8, fractionalFrequency: (rand() - 0.5) * 8e-13, driftPerSecond: (rand() - 0.5) * 1e-18,
+        phaseSeconds: (rand() - 0.5) * 1e-8,
+        fractionalFrequency: (rand() - 0.5) * 8e-13,
+        driftPerSecond: (rand() - 0.5) * 1e-18,
         noise: { q1: 1e-24, q2: 1e-34, q3: 0 },
       },
       // Over 30 days the open-loop σ alone (q2 = 1e-34 /s) reaches ≈ 24 ns, so the month uses a wider band.
       tolerance: { phaseSeconds: days > 7 ? 1e-7 : 3e-8, probability: 0.95 },
       actuator: {
-        frequencyResolution: 1e-15, maxFrequencyStep: 5e-13, cumulativeFrequencyRange: { min: -5e-11, max: 5e-11 },
-        minCommandSpacingSeconds: 3600, maxTimeTagSeconds: 43_200,
+        frequencyResolution: 1e-15,
+        maxFrequencyStep: 5e-13,
+        cumulativeFrequencyRange: { min: -5e-11, max: 5e-11 },
+        minCommandSpacingSeconds: 3600,
+        maxTimeTagSeconds: 43_200,
       },
       passes,
     };
   });
-  return { epoch: iso(0), horizonSeconds: days * 86_400, gridSeconds: 900, stations, satellites, strategy: { method: 'optimal' } };
+  return {
+    epoch: iso(0),
+    horizonSeconds: days * 86_400,
+    gridSeconds: 900,
+    stations,
+    satellites,
+    strategy: { method: 'optimal' },
+  };
 }
 
 /** The baseline: each satellite planned alone with all its passes (merged where they overlap) as contacts. */
@@ -62,7 +75,14 @@ function oneByOne(doc) {
     }
     const contacts = merged.map(([a, b]) => ({ start: new Date(a).toISOString(), end: new Date(b).toISOString() }));
     const { id: _id, passes: _passes, ...rest } = sat;
-    planSteering({ ...rest, epoch: doc.epoch, horizonSeconds: doc.horizonSeconds, gridSeconds: doc.gridSeconds, strategy: doc.strategy, contacts });
+    planSteering({
+      ...rest,
+      epoch: doc.epoch,
+      horizonSeconds: doc.horizonSeconds,
+      gridSeconds: doc.gridSeconds,
+      strategy: doc.strategy,
+      contacts,
+    });
   }
 }
 
@@ -73,16 +93,29 @@ function oneByOne(doc) {
 function orbitConstellation(days) {
   const doc = constellation(days);
   const deg = Math.PI / 180;
-  const sites = [[41.83, 23.05, 620, 10], [-29.41, 141.12, 150, 5], [64.91, -18.33, 310, 10]];
+  const sites = [
+    [41.83, 23.05, 620, 10],
+    [-29.41, 141.12, 150, 5],
+    [64.91, -18.33, 310, 10],
+  ];
   doc.stations = doc.stations.map((st, k) => {
     const [lat, lon, h, mask] = sites[k];
-    return { ...st, position: { latitudeRadians: lat * deg, longitudeRadians: lon * deg, heightMetres: h }, elevationMaskRadians: mask * deg };
+    return {
+      ...st,
+      position: { latitudeRadians: lat * deg, longitudeRadians: lon * deg, heightMetres: h },
+      elevationMaskRadians: mask * deg,
+    };
   });
   doc.satellites = doc.satellites.map(({ passes: _passes, ...sat }, i) => ({
     ...sat,
     orbit: {
-      epoch: doc.epoch, semiMajorAxisMetres: 28_410_000, eccentricity: 0.001, inclinationRadians: 58.5 * deg,
-      raanRadians: (i % 3) * 120 * deg, argumentOfPerigeeRadians: 0, meanAnomalyRadians: (Math.floor(i / 3) * 36 + (i % 3) * 12) * deg,
+      epoch: doc.epoch,
+      semiMajorAxisMetres: 28_410_000,
+      eccentricity: 0.001,
+      inclinationRadians: 58.5 * deg,
+      raanRadians: (i % 3) * 120 * deg,
+      argumentOfPerigeeRadians: 0,
+      meanAnomalyRadians: (Math.floor(i / 3) * 36 + (i % 3) * 12) * deg,
     },
   }));
   return doc;
@@ -96,31 +129,53 @@ function time(fn, repeat) {
 }
 
 export default function run() {
-  for (const [days, target] of [[7, 1], [30, 5]]) {
+  for (const [days, target] of [
+    [7, 1],
+    [30, 5],
+  ]) {
     const doc = constellation(days);
     const base = time(() => oneByOne(doc), 1);
     let plan;
-    const ms = time(() => { plan = planFleet(doc); }, 1);
+    const ms = time(() => {
+      plan = planFleet(doc);
+    }, 1);
     const held = plan.satellites.filter((s) => s.feasible).length;
-    process.stdout.write(`30 satellites × 3 stations × ${days} days: planFleet ${(ms / 1000).toFixed(2)} s (target < ${target} s), ` +
-      `${held}/30 held, ${plan.stationSchedule.length} supports; baseline (each satellite alone, all passes) ${(base / 1000).toFixed(2)} s; ` +
-      `×${(ms / base).toFixed(1)} of the baseline\n`);
+    process.stdout.write(
+      `30 satellites × 3 stations × ${days} days: planFleet ${(ms / 1000).toFixed(2)} s (target < ${target} s), ` +
+        `${held}/30 held, ${plan.stationSchedule.length} supports; baseline (each satellite alone, all passes) ${(base / 1000).toFixed(2)} s; ` +
+        `×${(ms / base).toFixed(1)} of the baseline\n`,
+    );
   }
   // Computed passes: the same planner on a fleet given by orbits, against the same fleet with those passes written out.
   const orbits = orbitConstellation(7);
   let computed;
-  const msOrbits = time(() => { computed = planFleet(orbits); }, 1);
-  const given = { ...orbits, satellites: orbits.satellites.map(({ orbit: _orbit, ...sat }, i) => ({
-    ...sat, passes: computed.satellites[i].computedPasses.filter((p) => p.usable).map(({ station, start, end }) => ({ station, start, end })),
-  })) };
+  const msOrbits = time(() => {
+    computed = planFleet(orbits);
+  }, 1);
+  const given = {
+    ...orbits,
+    satellites: orbits.satellites.map(({ orbit: _orbit, ...sat }, i) => ({
+      ...sat,
+      passes: computed.satellites[i].computedPasses
+        .filter((p) => p.usable)
+        .map(({ station, start, end }) => ({ station, start, end })),
+    })),
+  };
   const msGiven = time(() => planFleet(given), 1);
   const count = computed.satellites.reduce((n, s) => n + s.computedPasses.length, 0);
-  process.stdout.write(`30 satellites (orbits) × 3 stations (positions) × 7 days: planFleet with computed passes ${(msOrbits / 1000).toFixed(2)} s ` +
-    `(target < 1 s), ${count} passes computed, ${computed.satellites.filter((s) => s.feasible).length}/30 held; same fleet with the passes ` +
-    `given ${(msGiven / 1000).toFixed(2)} s; ×${(msOrbits / msGiven).toFixed(2)} (the pass prediction's share)\n`);
+  process.stdout.write(
+    `30 satellites (orbits) × 3 stations (positions) × 7 days: planFleet with computed passes ${(msOrbits / 1000).toFixed(2)} s ` +
+      `(target < 1 s), ${count} passes computed, ${computed.satellites.filter((s) => s.feasible).length}/30 held; same fleet with the passes ` +
+      `given ${(msGiven / 1000).toFixed(2)} s; ×${(msOrbits / msGiven).toFixed(2)} (the pass prediction's share)\n`,
+  );
   // Growth with the horizon at one tolerance band (±30 ns holds up to 7 days): 3, 5 and 7 days.
   const days = [3, 5, 7];
-  const times = days.map((d) => { const doc = constellation(d); return time(() => planFleet(doc), 1); });
-  process.stdout.write(`growth: planFleet ${times.map((t, k) => `${days[k]} d: ${(t / 1000).toFixed(2)} s`).join(', ')}` +
-    `  → exponent ${growthExponent(days, times).toFixed(2)} (least-squares slope of log time against log horizon; 1 = linear)\n`);
+  const times = days.map((d) => {
+    const doc = constellation(d);
+    return time(() => planFleet(doc), 1);
+  });
+  process.stdout.write(
+    `growth: planFleet ${times.map((t, k) => `${days[k]} d: ${(t / 1000).toFixed(2)} s`).join(', ')}` +
+      `  → exponent ${growthExponent(days, times).toFixed(2)} (least-squares slope of log time against log horizon; 1 = linear)\n`,
+  );
 }

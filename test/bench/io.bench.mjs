@@ -71,11 +71,25 @@ function constellation() {
       const m0 = (2 * Math.PI * slot) / perPlane + 0.35 * plane;
       const ecc = e * (1 + 0.3 * Math.sin(prn));
       // Orbital-plane unit vectors P (perigee) and Q, inertial: R3(−Ω) R1(−i) R3(−ω).
-      const cO = Math.cos(raan), sO = Math.sin(raan), ci = Math.cos(i), si = Math.sin(i), cw = Math.cos(w), sw = Math.sin(w);
+      const cO = Math.cos(raan),
+        sO = Math.sin(raan),
+        ci = Math.cos(i),
+        si = Math.sin(i),
+        cw = Math.cos(w),
+        sw = Math.sin(w);
       const P = [cO * cw - sO * sw * ci, sO * cw + cO * sw * ci, sw * si];
       const Q = [-cO * sw - sO * cw * ci, -sO * sw + cO * cw * ci, cw * si];
-      out.push({ id: `${sys}${String(prn).padStart(2, '0')}`, a, e: ecc, n: Math.sqrt(GM / a ** 3), m0, P, Q,
-        clk: 1e-6 * (prn - 20) * 3.1, drift: 1e-11 * Math.cos(prn) });
+      out.push({
+        id: `${sys}${String(prn).padStart(2, '0')}`,
+        a,
+        e: ecc,
+        n: Math.sqrt(GM / a ** 3),
+        m0,
+        P,
+        Q,
+        clk: 1e-6 * (prn - 20) * 3.1,
+        drift: 1e-11 * Math.cos(prn),
+      });
     }
   };
   add('G', 1, 32, 26_559_700, 55, 6, 0.01);
@@ -95,15 +109,28 @@ function stateAt(s, t, out) {
   const M = s.m0 + s.n * t;
   let E = M;
   for (let k = 0; k < 4; k++) E -= (E - s.e * Math.sin(E) - M) / (1 - s.e * Math.cos(E));
-  const cE = Math.cos(E), sE = Math.sin(E), q = Math.sqrt(1 - s.e * s.e);
-  const x = s.a * (cE - s.e), y = s.a * q * sE;
+  const cE = Math.cos(E),
+    sE = Math.sin(E),
+    q = Math.sqrt(1 - s.e * s.e);
+  const x = s.a * (cE - s.e),
+    y = s.a * q * sE;
   const rdot = (s.n * s.a) / (1 - s.e * cE);
-  const vx = -rdot * sE, vy = rdot * q * cE;
-  const X = x * s.P[0] + y * s.Q[0], Y = x * s.P[1] + y * s.Q[1], Z = x * s.P[2] + y * s.Q[2];
-  const VX = vx * s.P[0] + vy * s.Q[0], VY = vx * s.P[1] + vy * s.Q[1], VZ = vx * s.P[2] + vy * s.Q[2];
-  const th = OMEGA_EARTH * t, c = Math.cos(th), sn = Math.sin(th);
-  const xe = c * X + sn * Y, ye = -sn * X + c * Y;
-  out[0] = xe; out[1] = ye; out[2] = Z;
+  const vx = -rdot * sE,
+    vy = rdot * q * cE;
+  const X = x * s.P[0] + y * s.Q[0],
+    Y = x * s.P[1] + y * s.Q[1],
+    Z = x * s.P[2] + y * s.Q[2];
+  const VX = vx * s.P[0] + vy * s.Q[0],
+    VY = vx * s.P[1] + vy * s.Q[1],
+    VZ = vx * s.P[2] + vy * s.Q[2];
+  const th = OMEGA_EARTH * t,
+    c = Math.cos(th),
+    sn = Math.sin(th);
+  const xe = c * X + sn * Y,
+    ye = -sn * X + c * Y;
+  out[0] = xe;
+  out[1] = ye;
+  out[2] = Z;
   // v_fixed = R v_inertial − ω × r_fixed.
   out[3] = c * VX + sn * VY + OMEGA_EARTH * ye;
   out[4] = -sn * VX + c * VY - OMEGA_EARTH * xe;
@@ -132,13 +159,18 @@ function sp3Header(sats, epochs, interval) {
   for (let k = 0; k < nLines; k++) {
     const acc = [];
     for (let j = 0; j < 17; j++) acc.push(String(17 * k + j < sats.length ? 4 : 0).padStart(3));
-    lines.push('++       ' + acc.join(''));
+    lines.push(`++       ${acc.join('')}`);
   }
-  lines.push('%c M  cc GPS ccc cccc cccc cccc cccc ccccc ccccc ccccc ccccc', '%c cc cc ccc ccc cccc cccc cccc cccc ccccc ccccc ccccc ccccc',
-    '%f  1.2500000  1.025000000  0.00000000000  0.000000000000000', '%f  0.0000000  0.000000000  0.00000000000  0.000000000000000',
-    '%i    0    0    0    0      0      0      0      0         0', '%i    0    0    0    0      0      0      0      0         0',
-    '/* Invented two-body orbits of an invented 120-satellite constellation (Tauline benchmark)');
-  return lines.join('\n') + '\n';
+  lines.push(
+    '%c M  cc GPS ccc cccc cccc cccc cccc ccccc ccccc ccccc ccccc',
+    '%c cc cc ccc ccc cccc cccc cccc cccc ccccc ccccc ccccc ccccc',
+    '%f  1.2500000  1.025000000  0.00000000000  0.000000000000000',
+    '%f  0.0000000  0.000000000  0.00000000000  0.000000000000000',
+    '%i    0    0    0    0      0      0      0      0         0',
+    '%i    0    0    0    0      0      0      0      0         0',
+    '/* Invented two-body orbits of an invented 120-satellite constellation (Tauline benchmark)',
+  );
+  return `${lines.join('\n')}\n`;
 }
 
 /** Lines of a whole SP3-d file, produced one epoch at a time. */
@@ -152,10 +184,12 @@ function* sp3Pieces(epochs, interval = 30) {
     for (const s of sats) {
       stateAt(s, t, st);
       const clk = (s.clk + s.drift * t) * 1e6;
-      parts.push(`P${s.id}${f146(st[0] / 1000)}${f146(st[1] / 1000)}${f146(st[2] / 1000)}${f146(clk)}`,
-        `V${s.id}${f146(st[3] * 10)}${f146(st[4] * 10)}${f146(st[5] * 10)}${f146(s.drift * 1e10)}`);
+      parts.push(
+        `P${s.id}${f146(st[0] / 1000)}${f146(st[1] / 1000)}${f146(st[2] / 1000)}${f146(clk)}`,
+        `V${s.id}${f146(st[3] * 10)}${f146(st[4] * 10)}${f146(st[5] * 10)}${f146(s.drift * 1e10)}`,
+      );
     }
-    yield parts.join('\n') + '\n';
+    yield `${parts.join('\n')}\n`;
   }
   yield 'EOF\n';
 }
@@ -178,15 +212,18 @@ function navRecord(sat, fields, clock, orbit) {
   const { year, month, day, hour, minute } = fields;
   const lines = [`${sat} ${year} ${p2(month)} ${p2(day)} ${p2(hour)} ${p2(minute)} 00${clock.map(d19).join('')}`];
   for (const row of orbit) lines.push(`    ${row.map(d19).join('')}`.trimEnd());
-  return lines.join('\n') + '\n';
+  return `${lines.join('\n')}\n`;
 }
 
 function navHeader() {
   const h = (t, label) => `${t.padEnd(60)}${label}\n`;
-  return h('     4.01           NAVIGATION DATA     M', 'RINEX VERSION / TYPE')
-    + h('tauline-bench       Tauline bench       20260401 000000 UTC', 'PGM / RUN BY / DATE')
-    + h('Invented values for benchmarks; not a real constellation', 'COMMENT')
-    + h('    18', 'LEAP SECONDS') + h('', 'END OF HEADER');
+  return (
+    h('     4.01           NAVIGATION DATA     M', 'RINEX VERSION / TYPE') +
+    h('tauline-bench       Tauline bench       20260401 000000 UTC', 'PGM / RUN BY / DATE') +
+    h('Invented values for benchmarks; not a real constellation', 'COMMENT') +
+    h('    18', 'LEAP SECONDS') +
+    h('', 'END OF HEADER')
+  );
 }
 
 /**
@@ -200,38 +237,82 @@ function* navDay(day) {
   const week = Math.floor((START_DAYS + day - 3657) / 7);
   const fieldsAt = (h, mi) => ({ ...civilFromDays(START_DAYS + day), hour: h, minute: mi });
   const kepler = (prn, toe, sqrtA, e, i0, extra5, week5, row6, row7) => [
-    [1 + (toe / 3600) % 200, -52.5 + prn, 4.5e-9, -3 + 0.2 * prn + 1e-4 * toe],
+    [1 + ((toe / 3600) % 200), -52.5 + prn, 4.5e-9, -3 + 0.2 * prn + 1e-4 * toe],
     [-2.7e-6, e, 8.1e-6, sqrtA],
     [toe, 1.1e-7, -2.1 + 0.1 * prn, -6e-8],
     [i0, 210.3125, 0.62, -8.1e-9],
     [1.2e-10, extra5, week5, extra5 === undefined ? undefined : 0],
-    row6, row7,
+    row6,
+    row7,
   ];
   for (let h = 0; h < 24; h++) {
     const toe = (dayInWeek * 24 + h) * 3600;
     const f = fieldsAt(h, 0);
     if (h % 2 === 0) {
       for (let prn = 1; prn <= 32; prn++) {
-        parts.push(`> EPH G${p2(prn)} LNAV\n`, navRecord(`G${p2(prn)}`, f, [1e-4 * Math.sin(prn), 1e-11, 0],
-          kepler(prn, toe, 5153.7 + 0.01 * prn, 0.01 + 1e-4 * prn, 0.958, 1, week, [2, 0, -1e-8, 17], [toe - 18, 4])));
+        parts.push(
+          `> EPH G${p2(prn)} LNAV\n`,
+          navRecord(
+            `G${p2(prn)}`,
+            f,
+            [1e-4 * Math.sin(prn), 1e-11, 0],
+            kepler(prn, toe, 5153.7 + 0.01 * prn, 0.01 + 1e-4 * prn, 0.958, 1, week, [2, 0, -1e-8, 17], [toe - 18, 4]),
+          ),
+        );
       }
     }
     for (let prn = 1; prn <= 30; prn++) {
       for (const ds of [517, 258]) {
-        parts.push(`> EPH E${p2(prn)} ${ds === 517 ? 'INAV' : 'FNAV'}\n`, navRecord(`E${p2(prn)}`, f, [-5.2e-4 + 1e-6 * prn, -6.1e-12, 0],
-          kepler(prn, toe, 5440.6 + 0.01 * prn, 3e-4, 0.975, ds, week, [3.12, 0, 1.2e-9, 1.4e-9], [toe - 600])));
+        parts.push(
+          `> EPH E${p2(prn)} ${ds === 517 ? 'INAV' : 'FNAV'}\n`,
+          navRecord(
+            `E${p2(prn)}`,
+            f,
+            [-5.2e-4 + 1e-6 * prn, -6.1e-12, 0],
+            kepler(prn, toe, 5440.6 + 0.01 * prn, 3e-4, 0.975, ds, week, [3.12, 0, 1.2e-9, 1.4e-9], [toe - 600]),
+          ),
+        );
       }
     }
     for (let prn = 1; prn <= 30; prn++) {
       const geo = prn <= 5;
-      parts.push(`> EPH C${p2(prn)} ${geo ? 'D2' : 'D1'}\n`, navRecord(`C${p2(prn)}`, f, [2.4e-4, 3.3e-11, 0],
-        kepler(prn, toe, geo || prn <= 10 ? 6493.4 : 5282.6, 4e-3, geo ? 0.021 : 0.95, 0, week - 1356, [2, 0, 2.4e-9, -1.3e-9], [toe - 30, 1])));
+      parts.push(
+        `> EPH C${p2(prn)} ${geo ? 'D2' : 'D1'}\n`,
+        navRecord(
+          `C${p2(prn)}`,
+          f,
+          [2.4e-4, 3.3e-11, 0],
+          kepler(
+            prn,
+            toe,
+            geo || prn <= 10 ? 6493.4 : 5282.6,
+            4e-3,
+            geo ? 0.021 : 0.95,
+            0,
+            week - 1356,
+            [2, 0, 2.4e-9, -1.3e-9],
+            [toe - 30, 1],
+          ),
+        ),
+      );
     }
     for (const mi of [0, 30]) {
       const g = fieldsAt(h, mi);
       for (let prn = 1; prn <= 24; prn++) {
-        parts.push(`> EPH R${p2(prn)} FDMA\n`, navRecord(`R${p2(prn)}`, g, [-1.2e-5, 0, 86400 * day + 3600 * h + 60 * mi],
-          [[12345.6789 + prn, -1.2345, 1.86e-9, 0], [-12345.6789, 2.3456, -9.3e-10, prn % 14 - 7], [18765.4321, 1.2345, -2.79e-9, 0], [0, 0, 0, 0]]));
+        parts.push(
+          `> EPH R${p2(prn)} FDMA\n`,
+          navRecord(
+            `R${p2(prn)}`,
+            g,
+            [-1.2e-5, 0, 86400 * day + 3600 * h + 60 * mi],
+            [
+              [12345.6789 + prn, -1.2345, 1.86e-9, 0],
+              [-12345.6789, 2.3456, -9.3e-10, (prn % 14) - 7],
+              [18765.4321, 1.2345, -2.79e-9, 0],
+              [0, 0, 0, 0],
+            ],
+          ),
+        );
       }
     }
     yield parts.join('');
@@ -240,7 +321,9 @@ function* navDay(day) {
   const y = fieldsAt(0, 0);
   const ep = `    ${y.year} ${p2(y.month)} ${p2(y.day)} 00 00 00`;
   parts.push(`> STO G01 LNAV\n${ep} GPUT\n    ${[dayInWeek * 86400, 9.3e-10, 1.3e-15, 0].map(d19).join('')}\n`);
-  parts.push(`> ION G01 LNAV\n${ep}${[1.1e-8, 7.4e-9, -5.9e-8].map(d19).join('')}\n    ${[-5.9e-8, 90112, 0, -196608].map(d19).join('')}\n    ${d19(65536)}\n`);
+  parts.push(
+    `> ION G01 LNAV\n${ep}${[1.1e-8, 7.4e-9, -5.9e-8].map(d19).join('')}\n    ${[-5.9e-8, 90112, 0, -196608].map(d19).join('')}\n    ${d19(65536)}\n`,
+  );
   yield parts.join('');
 }
 
@@ -278,17 +361,26 @@ function e19(v) {
 /** RINEX clock 3.04 (labels in column 66, A9 names, values ending in columns 64 and 85): 32 satellites and 10 stations every 30 s. */
 function* clkPieces(days) {
   const label = (text, l) => `${text.padEnd(65)}${l}\n`;
-  yield label('3.04                 C                    G', 'RINEX VERSION / TYPE') + label('   GPS', 'TIME SYSTEM ID') +
-    label('     2    AS    AR', '# / TYPES OF DATA') + label('', 'END OF HEADER');
+  yield label('3.04                 C                    G', 'RINEX VERSION / TYPE') +
+    label('   GPS', 'TIME SYSTEM ID') +
+    label('     2    AS    AR', '# / TYPES OF DATA') +
+    label('', 'END OF HEADER');
   const sats = Array.from({ length: 32 }, (_, k) => `G${p2(k + 1)}`);
   const stations = Array.from({ length: 10 }, (_, k) => `ST${p2(k)}00XYZ`);
   for (let e = 0; e < days * 2880; e++) {
-    const f = { ...civilFromDays(START_DAYS + Math.floor(e / 2880)), hour: Math.floor((e % 2880) / 120), minute: Math.floor((e % 120) / 2) };
+    const f = {
+      ...civilFromDays(START_DAYS + Math.floor(e / 2880)),
+      hour: Math.floor((e % 2880) / 120),
+      minute: Math.floor((e % 120) / 2),
+    };
     const ep = `${f.year} ${p2(f.month)} ${p2(f.day)} ${p2(f.hour)} ${p2(f.minute)}${((e % 2) * 30).toFixed(6).padStart(10)}  2`;
     let block = '';
-    for (const [type, names] of [['AS', sats], ['AR', stations]]) {
+    for (const [type, names] of [
+      ['AS', sats],
+      ['AR', stations],
+    ]) {
       for (let k = 0; k < names.length; k++) {
-        const bias = 1e-4 * Math.sin(k + 1) + 1e-12 * e * (k % 7 - 3);
+        const bias = 1e-4 * Math.sin(k + 1) + 1e-12 * e * ((k % 7) - 3);
         block += `${type} ${names[k].padEnd(9)} ${ep}   ${e19(bias)}  ${e19(2e-11)}\n`;
       }
     }
@@ -375,7 +467,10 @@ async function child(kase, input, size) {
     records = samples;
     globalThis.__keep = series;
   } else if (kase === 'precise' || kase === 'precise-lagrange') {
-    const stream = new rel.PreciseCorrectionStream({ epochInterval: 30, alwaysInterpolate: kase === 'precise-lagrange' });
+    const stream = new rel.PreciseCorrectionStream({
+      epochInterval: 30,
+      alwaysInterpolate: kase === 'precise-lagrange',
+    });
     const take = (results) => {
       for (const r of results) {
         if (r.kind === 'sample') samples++;
@@ -426,7 +521,18 @@ async function child(kase, input, size) {
   const totalMs = performance.now() - t0 - gcMs;
   sample(true);
   const maxRssKiB = process.resourceUsage().maxRSS;
-  return { chars, records, samples, gaps, totalMs, parseMs, genMs, liveMax, peakHeap, rssGrowth: maxRssKiB * 1024 - rss0 };
+  return {
+    chars,
+    records,
+    samples,
+    gaps,
+    totalMs,
+    parseMs,
+    genMs,
+    liveMax,
+    peakHeap,
+    rssGrowth: maxRssKiB * 1024 - rss0,
+  };
 }
 
 /** Two runs of a case: the faster time (the machine is shared) and the larger memory figures. */
@@ -434,12 +540,20 @@ function runBest(kase, input, size) {
   const a = runChild(kase, input, size);
   const b = runChild(kase, input, size);
   const fast = a.totalMs + a.parseMs <= b.totalMs + b.parseMs ? a : b;
-  return { ...fast, liveMax: Math.max(a.liveMax, b.liveMax), peakHeap: Math.max(a.peakHeap, b.peakHeap), rssGrowth: Math.max(a.rssGrowth, b.rssGrowth) };
+  return {
+    ...fast,
+    liveMax: Math.max(a.liveMax, b.liveMax),
+    peakHeap: Math.max(a.peakHeap, b.peakHeap),
+    rssGrowth: Math.max(a.rssGrowth, b.rssGrowth),
+  };
 }
 
 function runChild(kase, input, size) {
-  const r = spawnSync(process.execPath, ['--expose-gc', fileURLToPath(import.meta.url), '--child', kase, input, String(size)],
-    { encoding: 'utf8', maxBuffer: 1 << 20 });
+  const r = spawnSync(
+    process.execPath,
+    ['--expose-gc', fileURLToPath(import.meta.url), '--child', kase, input, String(size)],
+    { encoding: 'utf8', maxBuffer: 1 << 20 },
+  );
   if (r.status !== 0) throw new Error(`io bench child ${kase} ${input} ${size} failed:\n${r.stderr}`);
   return JSON.parse(r.stdout.trim().split('\n').at(-1));
 }
@@ -453,7 +567,9 @@ const out = (line) => process.stdout.write(`${line}\n`);
 function reportReader(title, input, sizes, unit) {
   out(`\n${title}`);
   const gen = runBest('gen', input, sizes.at(-1));
-  out(`  generator alone, ${sizes.at(-1)} ${unit}: ${MB(gen.chars)} in ${s(gen.totalMs)} (subtracted from the streamed times, pro rata)`);
+  out(
+    `  generator alone, ${sizes.at(-1)} ${unit}: ${MB(gen.chars)} in ${s(gen.totalMs)} (subtracted from the streamed times, pro rata)`,
+  );
   const genPerChar = gen.totalMs / gen.chars;
   const rows = [];
   for (const size of sizes) {
@@ -462,43 +578,81 @@ function reportReader(title, input, sizes, unit) {
     const net = st.totalMs - genPerChar * st.chars;
     rows.push({ size, st, wh, net });
     out(`  ${String(size).padStart(2)} ${unit}, ${MB(st.chars)}, ${k(st.records)} records`);
-    out(`    streamed (async 64 KiB chunks): ${s(net)} net (${s(st.totalMs)} with generation) → ${(st.chars / 1e3 / net).toFixed(1)} MB/s, ` +
-      `${k((st.records / net) * 1000)} records/s; live heap ≤ ${MiB(st.liveMax)}, heap before GC ≤ ${MiB(st.peakHeap)}, peak RSS +${MiB(st.rssGrowth)}`);
-    out(`    baseline, whole text then parse: ${s(wh.parseMs)} → ${(wh.chars / 1e3 / wh.parseMs).toFixed(1)} MB/s, ` +
-      `${k((wh.records / wh.parseMs) * 1000)} records/s; live heap ${MiB(wh.liveMax)} (text ${MB(wh.chars)} + parsed), peak RSS +${MiB(wh.rssGrowth)}`);
-    out(`    streamed / baseline: speed ×${(wh.parseMs / net).toFixed(2)}, live heap ×${(st.liveMax / wh.liveMax).toFixed(3)}`);
+    out(
+      `    streamed (async 64 KiB chunks): ${s(net)} net (${s(st.totalMs)} with generation) → ${(st.chars / 1e3 / net).toFixed(1)} MB/s, ` +
+        `${k((st.records / net) * 1000)} records/s; live heap ≤ ${MiB(st.liveMax)}, heap before GC ≤ ${MiB(st.peakHeap)}, peak RSS +${MiB(st.rssGrowth)}`,
+    );
+    out(
+      `    baseline, whole text then parse: ${s(wh.parseMs)} → ${(wh.chars / 1e3 / wh.parseMs).toFixed(1)} MB/s, ` +
+        `${k((wh.records / wh.parseMs) * 1000)} records/s; live heap ${MiB(wh.liveMax)} (text ${MB(wh.chars)} + parsed), peak RSS +${MiB(wh.rssGrowth)}`,
+    );
+    out(
+      `    streamed / baseline: speed ×${(wh.parseMs / net).toFixed(2)}, live heap ×${(st.liveMax / wh.liveMax).toFixed(3)}`,
+    );
   }
   const [a, b] = [rows[0], rows.at(-1)];
   const inputRatio = b.st.chars / a.st.chars;
   const liveRatio = b.st.liveMax / a.st.liveMax;
-  out(`  input ×${inputRatio.toFixed(1)} (${a.size} → ${b.size} ${unit}): streamed live heap ×${liveRatio.toFixed(2)} ` +
-    `(${MiB(a.st.liveMax)} → ${MiB(b.st.liveMax)}), baseline live heap ×${(b.wh.liveMax / a.wh.liveMax).toFixed(2)}; ` +
-    `target streamed ≤ 8 MiB at every length: ${rows.every((r) => r.st.liveMax <= 8 * 1048576) ? 'met' : 'NOT met'}`);
+  out(
+    `  input ×${inputRatio.toFixed(1)} (${a.size} → ${b.size} ${unit}): streamed live heap ×${liveRatio.toFixed(2)} ` +
+      `(${MiB(a.st.liveMax)} → ${MiB(b.st.liveMax)}), baseline live heap ×${(b.wh.liveMax / a.wh.liveMax).toFixed(2)}; ` +
+      `target streamed ≤ 8 MiB at every length: ${rows.every((r) => r.st.liveMax <= 8 * 1048576) ? 'met' : 'NOT met'}`,
+  );
   const speed = b.wh.parseMs / b.net;
-  out(`  speed target, streamed ≥ 0.8× the whole-text parser at ${b.size} ${unit} (the smaller input is dominated by JIT warm-up): ` +
-    `×${speed.toFixed(2)}, ${speed >= 0.8 ? 'met' : 'NOT met'}`);
+  out(
+    `  speed target, streamed ≥ 0.8× the whole-text parser at ${b.size} ${unit} (the smaller input is dominated by JIT warm-up): ` +
+      `×${speed.toFixed(2)}, ${speed >= 0.8 ? 'met' : 'NOT met'}`,
+  );
 }
 
 export default async function run() {
-  out(`${cpus().length} × ${cpus()[0]?.model ?? 'cpu'}, ${(totalmem() / 2 ** 30).toFixed(0)} GiB RAM, ${new Date().toISOString()}`);
-  reportReader('SP3-d, 120 satellites (32 G, 24 R, 30 E, 30 C, 4 J) at 30 s with P and V records (24 h = 2880 epochs)', 'sp3', [6, 24], 'h');
+  out(
+    `${cpus().length} × ${cpus()[0]?.model ?? 'cpu'}, ${(totalmem() / 2 ** 30).toFixed(0)} GiB RAM, ${new Date().toISOString()}`,
+  );
+  reportReader(
+    'SP3-d, 120 satellites (32 G, 24 R, 30 E, 30 C, 4 J) at 30 s with P and V records (24 h = 2880 epochs)',
+    'sp3',
+    [6, 24],
+    'h',
+  );
   out('\nreadSp3 → PreciseCorrectionStream (−2 r·v/c² per satellite and epoch), 24 h');
-  for (const [kase, label] of [['precise', 'velocities from the file'], ['precise-lagrange', 'alwaysInterpolate, 9-point Lagrange']]) {
+  for (const [kase, label] of [
+    ['precise', 'velocities from the file'],
+    ['precise-lagrange', 'alwaysInterpolate, 9-point Lagrange'],
+  ]) {
     const r = runChild(kase, 'sp3', 24);
     const small = runChild(kase, 'sp3', 6);
-    out(`  streamed, ${label}: ${s(r.totalMs)} with generation → ${k((r.samples / r.totalMs) * 1000)} samples/s (${k(r.samples)} samples, ${r.gaps} gaps); ` +
-      `live heap ≤ ${MiB(r.liveMax)} (6 h: ${MiB(small.liveMax)}), peak RSS +${MiB(r.rssGrowth)}`);
+    out(
+      `  streamed, ${label}: ${s(r.totalMs)} with generation → ${k((r.samples / r.totalMs) * 1000)} samples/s (${k(r.samples)} samples, ${r.gaps} gaps); ` +
+        `live heap ≤ ${MiB(r.liveMax)} (6 h: ${MiB(small.liveMax)}), peak RSS +${MiB(r.rssGrowth)}`,
+    );
   }
   const pw = runChild('precise-whole', 'sp3', 24);
-  out(`  baseline, whole text → parseSp3 → all results in an array: ${s(pw.parseMs)} (${k(pw.samples)} samples); live heap ${MiB(pw.liveMax)}, peak RSS +${MiB(pw.rssGrowth)}`);
-  reportReader('RINEX 4.01 navigation, mixed: GPS LNAV 2-hourly, Galileo I/NAV + F/NAV, BeiDou D1/D2 hourly, GLONASS FDMA 30-min, daily STO/ION', 'nav', [7, 30], 'd');
-  reportReader('RINEX clock 3.04, 32 satellites (AS) and 10 stations (AR) every 30 s (1 d = 121 k records)', 'clk', [1, 4], 'd');
+  out(
+    `  baseline, whole text → parseSp3 → all results in an array: ${s(pw.parseMs)} (${k(pw.samples)} samples); live heap ${MiB(pw.liveMax)}, peak RSS +${MiB(pw.rssGrowth)}`,
+  );
+  reportReader(
+    'RINEX 4.01 navigation, mixed: GPS LNAV 2-hourly, Galileo I/NAV + F/NAV, BeiDou D1/D2 hourly, GLONASS FDMA 30-min, daily STO/ION',
+    'nav',
+    [7, 30],
+    'd',
+  );
+  reportReader(
+    'RINEX clock 3.04, 32 satellites (AS) and 10 stations (AR) every 30 s (1 d = 121 k records)',
+    'clk',
+    [1, 4],
+    'd',
+  );
   out('\nreadRinexClockSeries (the `tauline clock/stability --rinex-clock` path): one satellite kept out of 42 clocks');
   const series = [1, 4].map((d) => ({ d, r: runChild('clock-series', 'clk', d) }));
   for (const { d, r } of series) {
-    out(`  ${d} d, ${MB(r.chars)}: ${s(r.totalMs)} with generation, ${k(r.samples)} samples kept; live heap ≤ ${MiB(r.liveMax)}, peak RSS +${MiB(r.rssGrowth)}`);
+    out(
+      `  ${d} d, ${MB(r.chars)}: ${s(r.totalMs)} with generation, ${k(r.samples)} samples kept; live heap ≤ ${MiB(r.liveMax)}, peak RSS +${MiB(r.rssGrowth)}`,
+    );
   }
-  out(`  input ×4: live heap ×${(series[1].r.liveMax / series[0].r.liveMax).toFixed(2)} (the kept series grows by 2880 samples a day, 3 × 8 B each)`);
+  out(
+    `  input ×4: live heap ×${(series[1].r.liveMax / series[0].r.liveMax).toFixed(2)} (the kept series grows by 2880 samples a day, 3 × 8 B each)`,
+  );
   await reportLongLine();
   reportCli();
 }
@@ -530,9 +684,11 @@ async function reportLongLine() {
   feed(16);
   const a = [feed(16), feed(16)].sort((x, y) => x.ms - y.ms)[0];
   const b = [feed(64), feed(64)].sort((x, y) => x.ms - y.ms)[0];
-  out(`\nLineSplitter, one 16 MB / 64 MB line (no line end) in 64 KiB chunks: refused after ${a.pushed} / ${b.pushed} chunks ` +
-    `(limit ${MAX_LINE_CHARACTERS} characters) in ${s(a.ms)} / ${s(b.ms)} → time ×${(b.ms / a.ms).toFixed(1)} for input ×4 ` +
-    `(target ≤ 1.5, bounded: ${b.ms / a.ms <= 1.5 ? 'met' : 'NOT met'})`);
+  out(
+    `\nLineSplitter, one 16 MB / 64 MB line (no line end) in 64 KiB chunks: refused after ${a.pushed} / ${b.pushed} chunks ` +
+      `(limit ${MAX_LINE_CHARACTERS} characters) in ${s(a.ms)} / ${s(b.ms)} → time ×${(b.ms / a.ms).toFixed(1)} for input ×4 ` +
+      `(target ≤ 1.5, bounded: ${b.ms / a.ms <= 1.5 ? 'met' : 'NOT met'})`,
+  );
 }
 
 /**
@@ -562,7 +718,10 @@ function reportCli() {
       const sink = openSync('/dev/null', 'w');
       const t0 = performance.now();
       const r = hasTime
-        ? spawnSync('/usr/bin/time', ['-f', 'TAULINE_BENCH %e %M', process.execPath, cli, ...args], { stdio: ['ignore', sink, 'pipe'], encoding: 'utf8' })
+        ? spawnSync('/usr/bin/time', ['-f', 'TAULINE_BENCH %e %M', process.execPath, cli, ...args], {
+            stdio: ['ignore', sink, 'pipe'],
+            encoding: 'utf8',
+          })
         : spawnSync(process.execPath, [cli, ...args], { stdio: ['ignore', sink, 'pipe'], encoding: 'utf8' });
       const ms = performance.now() - t0;
       closeSync(sink);
@@ -570,8 +729,11 @@ function reportCli() {
       const m = /TAULINE_BENCH ([\d.]+) (\d+)/.exec(r.stderr ?? '');
       return { ms: m ? Number(m[1]) * 1000 : ms, rssKiB: m ? Number(m[2]) : undefined };
     };
-    const rss = (r) => (r.rssKiB === undefined ? 'peak RSS n/a (no /usr/bin/time)' : `peak RSS ${(r.rssKiB / 1024).toFixed(0)} MiB`);
-    out(`\ntauline precise (built CLI, SP3 file in ${tmpdir()}, output to /dev/null${hasTime ? ', /usr/bin/time' : ''})`);
+    const rss = (r) =>
+      r.rssKiB === undefined ? 'peak RSS n/a (no /usr/bin/time)' : `peak RSS ${(r.rssKiB / 1024).toFixed(0)} MiB`;
+    out(
+      `\ntauline precise (built CLI, SP3 file in ${tmpdir()}, output to /dev/null${hasTime ? ', /usr/bin/time' : ''})`,
+    );
     const floor = runCli(['--version']);
     out(`  floor: tauline --version ${s(floor.ms)}, ${rss(floor)}`);
     const rows = {};
@@ -581,14 +743,18 @@ function reportCli() {
       const json = hours <= 24 ? runCli(['precise', files[hours], '--json']) : undefined;
       rows[hours] = { csv, json };
       const mb = statSync(files[hours]).size / 1e6;
-      out(`  ${String(hours).padStart(2)} h, ${mb.toFixed(1)} MB, ${k(hours * 120 * 120)} samples: --csv ${s(csv.ms)} (${(mb / csv.ms * 1000).toFixed(1)} MB/s), ${rss(csv)}` +
-        (json ? `; baseline --json ${s(json.ms)}, ${rss(json)}` : ''));
+      out(
+        `  ${String(hours).padStart(2)} h, ${mb.toFixed(1)} MB, ${k(hours * 120 * 120)} samples: --csv ${s(csv.ms)} (${((mb / csv.ms) * 1000).toFixed(1)} MB/s), ${rss(csv)}` +
+          (json ? `; baseline --json ${s(json.ms)}, ${rss(json)}` : ''),
+      );
     }
     if (rows[6].csv.rssKiB !== undefined) {
       const g = rows[72].csv.rssKiB / rows[24].csv.rssKiB;
-      out(`  --csv peak RSS 6 → 24 → 72 h: ×${(rows[24].csv.rssKiB / rows[6].csv.rssKiB).toFixed(2)} then ×${g.toFixed(2)} ` +
-        `(target ≤ 1.1 from 24 h to 72 h, once V8's heap has reached its working size: ${g <= 1.1 ? 'met' : 'NOT met'}); ` +
-        `baseline --json 6 → 24 h: ×${(rows[24].json.rssKiB / rows[6].json.rssKiB).toFixed(2)}`);
+      out(
+        `  --csv peak RSS 6 → 24 → 72 h: ×${(rows[24].csv.rssKiB / rows[6].csv.rssKiB).toFixed(2)} then ×${g.toFixed(2)} ` +
+          `(target ≤ 1.1 from 24 h to 72 h, once V8's heap has reached its working size: ${g <= 1.1 ? 'met' : 'NOT met'}); ` +
+          `baseline --json 6 → 24 h: ×${(rows[24].json.rssKiB / rows[6].json.rssKiB).toFixed(2)}`,
+      );
     }
   } finally {
     rmSync(dir, { recursive: true, force: true });

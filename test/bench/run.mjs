@@ -4,8 +4,8 @@
 // same run; nothing here asserts a time (speed is reported, not tested).
 import { spawnSync } from 'node:child_process';
 import { existsSync, readdirSync } from 'node:fs';
-import { fileURLToPath, pathToFileURL } from 'node:url';
 import { join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 if (!existsSync(join(root, 'packages/sdk/dist/index.js'))) {
@@ -17,7 +17,9 @@ if (!existsSync(join(root, 'packages/sdk/dist/index.js'))) {
   }
 }
 const filter = process.argv[2];
-const files = readdirSync(join(root, 'test', 'bench')).filter((f) => f.endsWith('.bench.mjs') && (!filter || f.includes(filter))).sort();
+const files = readdirSync(join(root, 'test', 'bench'))
+  .filter((f) => f.endsWith('.bench.mjs') && (!filter || f.includes(filter)))
+  .sort();
 process.stdout.write(`node ${process.version}, ${process.platform}/${process.arch}, ${new Date().toISOString()}\n`);
 for (const f of files) {
   process.stdout.write(`\n## ${f}\n`);

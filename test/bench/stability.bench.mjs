@@ -42,20 +42,32 @@ function octaves(maxM) {
 /** Plain JavaScript baselines: the sums of NIST SP 1065 as single loops (MDEV through a prefix sum). */
 const plainJs = {
   oadev(x, m) {
-    let sum = 0, n = 0;
-    for (let i = 0; i + 2 * m < x.length; i++) { const d = x[i + 2 * m] - 2 * x[i + m] + x[i]; sum += d * d; n++; }
+    let sum = 0,
+      n = 0;
+    for (let i = 0; i + 2 * m < x.length; i++) {
+      const d = x[i + 2 * m] - 2 * x[i + m] + x[i];
+      sum += d * d;
+      n++;
+    }
     return Math.sqrt(sum / (2 * m * m * n));
   },
   ohdev(x, m) {
-    let sum = 0, n = 0;
-    for (let i = 0; i + 3 * m < x.length; i++) { const d = x[i + 3 * m] - 3 * x[i + 2 * m] + 3 * x[i + m] - x[i]; sum += d * d; n++; }
+    let sum = 0,
+      n = 0;
+    for (let i = 0; i + 3 * m < x.length; i++) {
+      const d = x[i + 3 * m] - 3 * x[i + 2 * m] + 3 * x[i + m] - x[i];
+      sum += d * d;
+      n++;
+    }
     return Math.sqrt(sum / (6 * m * m * n));
   },
   mdev(x, m, S) {
-    let sum = 0, n = 0;
+    let sum = 0,
+      n = 0;
     for (let j = 0; j + 3 * m <= x.length; j++) {
-      const inner = (S[j + 3 * m] - S[j + 2 * m]) - 2 * (S[j + 2 * m] - S[j + m]) + (S[j + m] - S[j]);
-      sum += inner * inner; n++;
+      const inner = S[j + 3 * m] - S[j + 2 * m] - 2 * (S[j + 2 * m] - S[j + m]) + (S[j + m] - S[j]);
+      sum += inner * inner;
+      n++;
     }
     return Math.sqrt(sum / (2 * m ** 4 * n));
   },
@@ -77,8 +89,14 @@ function numpyAvailable() {
 function external(kind, exe, file, stat, ms) {
   let best;
   for (let r = 0; r < 2; r++) {
-    const fields = kind === 'c' ? runC(exe, [file, stat, ...ms])
-      : spawnSync('python3', [join(here, 'baselines', 'stability_numpy.py'), file, stat, ...ms.map(String)], { encoding: 'utf8' }).stdout.trim().split(/\s+/);
+    const fields =
+      kind === 'c'
+        ? runC(exe, [file, stat, ...ms])
+        : spawnSync('python3', [join(here, 'baselines', 'stability_numpy.py'), file, stat, ...ms.map(String)], {
+            encoding: 'utf8',
+          })
+            .stdout.trim()
+            .split(/\s+/);
     const result = { ms: 1000 * Number(fields[0]), values: fields.slice(1).map(Number) };
     if (!best || result.ms < best.ms) best = result;
   }
@@ -88,7 +106,9 @@ function external(kind, exe, file, stat, ms) {
 export default async function run() {
   const native = compileC('stability');
   const numpy = numpyAvailable();
-  out(`baselines: C ${native.exe ? '(cc -O2)' : `unavailable: ${native.reason}`}; numpy ${numpy.version ?? `unavailable: ${numpy.reason}`}; plain JavaScript loops`);
+  out(
+    `baselines: C ${native.exe ? '(cc -O2)' : `unavailable: ${native.reason}`}; numpy ${numpy.version ?? `unavailable: ${numpy.reason}`}; plain JavaScript loops`,
+  );
   const dir = mkdtempSync(join(tmpdir(), 'tauline-stability-bench-'));
   const grow = Object.fromEntries(STATISTICS.map((s) => [s, []]));
   try {
@@ -103,20 +123,37 @@ export default async function run() {
         const ms = octaves(Math.floor((N - 1) / 3));
         const ours = cpuMs(() => deviations(stat, { phase: x, tau0: 1 }, { taus: ms }));
         grow[stat].push(ours.ms);
-        const baselines = [{ name: 'plain JS', ...(() => { const r = cpuMs(() => ms.map((m) => plainJs[stat](x, m, S))); return { ms: r.ms, values: r.value }; })() }];
+        const baselines = [
+          {
+            name: 'plain JS',
+            ...(() => {
+              const r = cpuMs(() => ms.map((m) => plainJs[stat](x, m, S)));
+              return { ms: r.ms, values: r.value };
+            })(),
+          },
+        ];
         if (numpy.version) baselines.push({ name: 'numpy', ...external('numpy', null, file, stat, ms) });
         if (native.exe) baselines.push({ name: 'C -O2', ...external('c', native.exe, file, stat, ms) });
         const strongest = baselines.reduce((a, b) => (b.ms < a.ms ? b : a));
-        const rel = Math.max(...ours.value.map((p, i) => Math.abs(p.deviation - strongest.values[i]) / strongest.values[i]));
-        out(`  ${stat.toUpperCase().padEnd(5)} ${ms.length} octave τ: Tauline ${fmt(ours.ms).padStart(8)}; ` +
-          baselines.map((b) => `${b.name} ${fmt(b.ms)}`).join(', ') +
-          `  → ${(strongest.ms / ours.ms).toFixed(2)}× the strongest (${strongest.name}); max relative difference ${rel.toExponential(1)}`);
+        const rel = Math.max(
+          ...ours.value.map((p, i) => Math.abs(p.deviation - strongest.values[i]) / strongest.values[i]),
+        );
+        out(
+          `  ${stat.toUpperCase().padEnd(5)} ${ms.length} octave τ: Tauline ${fmt(ours.ms).padStart(8)}; ` +
+            baselines.map((b) => `${b.name} ${fmt(b.ms)}`).join(', ') +
+            `  → ${(strongest.ms / ours.ms).toFixed(2)}× the strongest (${strongest.name}); max relative difference ${rel.toExponential(1)}`,
+        );
       }
       const full = cpuMs(() => analyzeStability({ phase: x, tau0: 1 }));
-      out(`  analyzeStability (oadev, mdev, tdev, ohdev + noise id + edf/intervals), ${full.value.rows.length} rows: ${fmt(full.ms)}`);
+      out(
+        `  analyzeStability (oadev, mdev, tdev, ohdev + noise id + edf/intervals), ${full.value.rows.length} rows: ${fmt(full.ms)}`,
+      );
     }
     out('');
-    for (const stat of STATISTICS) out(`growth exponent of Tauline ${stat.toUpperCase()} over 10^5…10^7 points: ${growthExponent(SIZES, grow[stat]).toFixed(2)}`);
+    for (const stat of STATISTICS)
+      out(
+        `growth exponent of Tauline ${stat.toUpperCase()} over 10^5…10^7 points: ${growthExponent(SIZES, grow[stat]).toFixed(2)}`,
+      );
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

@@ -8,10 +8,18 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { availableParallelism, cpus, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { createReplanner, planSteering, replanSteering, simulateClosedLoop, simulatePlan } from '../../packages/sdk/dist/steering/index.js';
+import {
+  createReplanner,
+  planSteering,
+  replanSteering,
+  simulateClosedLoop,
+  simulatePlan,
+} from '../../packages/sdk/dist/steering/index.js';
 import { growthExponent } from './baselines/native.mjs';
 
-const scenario = JSON.parse(readFileSync(new URL('../../packages/sdk/examples/steering/orin-3-meo.json', import.meta.url), 'utf8'));
+const scenario = JSON.parse(
+  readFileSync(new URL('../../packages/sdk/examples/steering/orin-3-meo.json', import.meta.url), 'utf8'),
+);
 
 function time(label, fn, repeat) {
   // Warm-up runs so the JIT has compiled the path (the first calls are several times slower).
@@ -44,32 +52,49 @@ function stretched(days) {
 
 export default function run() {
   const base = time('none (prediction only)', () => planSteering(scenario, { strategy: 'none' }), 20);
-  const rows = [base,
+  const rows = [
+    base,
     time('deadband', () => planSteering(scenario, { strategy: 'deadband' }), 10),
-    time('optimal (constrained LQ)', () => planSteering(scenario, { strategy: 'optimal' }), 10)];
+    time('optimal (constrained LQ)', () => planSteering(scenario, { strategy: 'optimal' }), 10),
+  ];
   const plan = planSteering(scenario);
   rows.push(time('simulatePlan, 1000 runs', () => simulatePlan(scenario, plan, { runs: 1000, seed: 1 }), 2));
   // One re-plan at the first contact (05:10 on day 1) from 20 estimates, to the end of the 7-day horizon.
   const now = 18_600;
-  const estimates = Array.from({ length: 16 }, (_, k) => ({ tSeconds: 900 * (k + 1), phaseSeconds: 3e-9, sigmaSeconds: 3e-10 }));
+  const estimates = Array.from({ length: 16 }, (_, k) => ({
+    tSeconds: 900 * (k + 1),
+    phaseSeconds: 3e-9,
+    sigmaSeconds: 3e-10,
+  }));
   // One re-plan = a prepared scenario's replan (filter, forward pass, revised plan with its prediction and
   // verdict); replanSteering also prepares the scenario (validation, phase-weight choice, Riccati pass).
   const replanner = createReplanner(scenario);
   rows.push(time('one re-plan, 7 days (target ≤ 5 ms)', () => replanner.replan(plan, estimates, now), 50));
   rows.push(time('replanSteering (prepare + re-plan)', () => replanSteering(scenario, plan, estimates, now), 10));
   for (const r of rows) {
-    process.stdout.write(`${r.label.padEnd(44)} ${r.ms.toFixed(1).padStart(9)} ms   ×${(r.ms / base.ms).toFixed(1)} of prediction only\n`);
+    process.stdout.write(
+      `${r.label.padEnd(44)} ${r.ms.toFixed(1).padStart(9)} ms   ×${(r.ms / base.ms).toFixed(1)} of prediction only\n`,
+    );
   }
   // Closed loop: 1000 runs × 30 days, optimal planner, re-plan at 60 contacts per run; baseline: the
   // open-loop Monte Carlo of the same 30-day scenario and the same number of runs, in this run.
   const s = month();
   const monthPlan = planSteering(s);
-  const open = time('open-loop simulatePlan, 1000 runs × 30 days', () => simulatePlan(s, monthPlan, { runs: 1000, seed: 1 }), 1);
+  const open = time(
+    'open-loop simulatePlan, 1000 runs × 30 days',
+    () => simulatePlan(s, monthPlan, { runs: 1000, seed: 1 }),
+    1,
+  );
   const t0 = performance.now();
   simulateClosedLoop(s, { runs: 1000, seed: 1, strategies: ['optimal'] });
-  const closed = { label: 'simulateClosedLoop optimal, 1000 runs × 30 days (target ≤ 60 s)', ms: performance.now() - t0 };
+  const closed = {
+    label: 'simulateClosedLoop optimal, 1000 runs × 30 days (target ≤ 60 s)',
+    ms: performance.now() - t0,
+  };
   for (const r of [open, closed]) {
-    process.stdout.write(`${r.label.padEnd(66)} ${(r.ms / 1000).toFixed(2).padStart(8)} s   ×${(r.ms / open.ms).toFixed(1)} of the open-loop Monte Carlo\n`);
+    process.stdout.write(
+      `${r.label.padEnd(66)} ${(r.ms / 1000).toFixed(2).padStart(8)} s   ×${(r.ms / open.ms).toFixed(1)} of the open-loop Monte Carlo\n`,
+    );
   }
   growth();
   cliPool(s);
@@ -82,19 +107,35 @@ export default function run() {
  */
 function growth() {
   process.stdout.write('\nGrowth exponents over three sizes (1 = linear)\n');
-  const report = (label, sizes, unit, times) => process.stdout.write(`  ${label.padEnd(40)} ${times.map((t, k) => `${sizes[k]} ${unit}: ${t.toFixed(1)} ms`).join(', ')}` +
-    `  → exponent ${growthExponent(sizes, times).toFixed(2)}\n`);
+  const report = (label, sizes, unit, times) =>
+    process.stdout.write(
+      `  ${label.padEnd(40)} ${times.map((t, k) => `${sizes[k]} ${unit}: ${t.toFixed(1)} ms`).join(', ')}` +
+        `  → exponent ${growthExponent(sizes, times).toFixed(2)}\n`,
+    );
   const days = [7, 14, 28];
   for (const strategy of ['deadband', 'optimal']) {
-    const times = days.map((d) => { const sc = stretched(d); return time('', () => planSteering(sc, { strategy }), 8).ms; });
+    const times = days.map((d) => {
+      const sc = stretched(d);
+      return time('', () => planSteering(sc, { strategy }), 8).ms;
+    });
     report(`planSteering ${strategy}`, days, 'd', times);
   }
   const s = month();
   const p = planSteering(s);
   const runs = [250, 500, 1000];
-  report('simulatePlan, 30 days', runs, 'runs', runs.map((r) => time('', () => simulatePlan(s, p, { runs: r, seed: 1 }), 1).ms));
+  report(
+    'simulatePlan, 30 days',
+    runs,
+    'runs',
+    runs.map((r) => time('', () => simulatePlan(s, p, { runs: r, seed: 1 }), 1).ms),
+  );
   const loops = [25, 50, 100];
-  report('simulateClosedLoop optimal, 30 days', loops, 'runs', loops.map((r) => time('', () => simulateClosedLoop(s, { runs: r, seed: 1, strategies: ['optimal'] }), 1).ms));
+  report(
+    'simulateClosedLoop optimal, 30 days',
+    loops,
+    'runs',
+    loops.map((r) => time('', () => simulateClosedLoop(s, { runs: r, seed: 1, strategies: ['optimal'] }), 1).ms),
+  );
 }
 
 /**
@@ -110,15 +151,27 @@ function cliPool(monthScenario) {
   const bin = fileURLToPath(new URL('../../packages/cli/bin/tauline.js', import.meta.url));
   const wall = (extra) => {
     const t0 = performance.now();
-    const out = execFileSync(process.execPath, [bin, 'simulate', path, '--runs', '10000', '--seed', '1', '--json', ...extra], { encoding: 'utf8' });
+    const out = execFileSync(
+      process.execPath,
+      [bin, 'simulate', path, '--runs', '10000', '--seed', '1', '--json', ...extra],
+      { encoding: 'utf8' },
+    );
     return { ms: performance.now() - t0, out };
   };
   const one = wall(['--workers', '1']);
   const pool = wall(['--workers', String(availableParallelism())]);
   const auto = wall([]);
   const same = pool.out === one.out && auto.out === one.out ? 'identical' : 'DIFFERENT';
-  process.stdout.write(`cores: availableParallelism ${availableParallelism()}, cpus ${cpus().length}; 1-minute load average ${loadavg()[0].toFixed(2)}\n`);
-  process.stdout.write(`${'tauline simulate --runs 10000, 30 d at 300 s, all strategies, --workers 1'.padEnd(78)} ${(one.ms / 1000).toFixed(2).padStart(7)} s\n`);
-  process.stdout.write(`${`  the same, --workers ${availableParallelism()} (target < 10 s)`.padEnd(78)} ${(pool.ms / 1000).toFixed(2).padStart(7)} s   ×${(one.ms / pool.ms).toFixed(2)} faster\n`);
-  process.stdout.write(`${'  the same, automatic (one worker per free core)'.padEnd(78)} ${(auto.ms / 1000).toFixed(2).padStart(7)} s   ×${(one.ms / auto.ms).toFixed(2)} faster; outputs ${same}\n`);
+  process.stdout.write(
+    `cores: availableParallelism ${availableParallelism()}, cpus ${cpus().length}; 1-minute load average ${loadavg()[0].toFixed(2)}\n`,
+  );
+  process.stdout.write(
+    `${'tauline simulate --runs 10000, 30 d at 300 s, all strategies, --workers 1'.padEnd(78)} ${(one.ms / 1000).toFixed(2).padStart(7)} s\n`,
+  );
+  process.stdout.write(
+    `${`  the same, --workers ${availableParallelism()} (target < 10 s)`.padEnd(78)} ${(pool.ms / 1000).toFixed(2).padStart(7)} s   ×${(one.ms / pool.ms).toFixed(2)} faster\n`,
+  );
+  process.stdout.write(
+    `${'  the same, automatic (one worker per free core)'.padEnd(78)} ${(auto.ms / 1000).toFixed(2).padStart(7)} s   ×${(one.ms / auto.ms).toFixed(2)} faster; outputs ${same}\n`,
+  );
 }

@@ -4,11 +4,14 @@
 // present, otherwise the same loop in plain JavaScript. Times are process CPU time (user + system), best of
 // three, both sides writing into an array allocated and touched before timing. Target: ≥ 3× the C loop at
 // 10^7 epochs for e = 0.01 and e = 0.7. Reports the growth exponent over the three sizes; asserts nothing.
-import { periodicCorrectionOnTimeGrid } from '../../packages/sdk/dist/relativity/index.js';
+
 import { DEFAULT_CONSTANT_SET } from '../../packages/sdk/dist/constants.js';
+import { periodicCorrectionOnTimeGrid } from '../../packages/sdk/dist/relativity/index.js';
 import { compileC, growthExponent, runC } from './baselines/native.mjs';
 
-const A = 26_561_750, M0 = 0.3, STEP = 1;
+const A = 26_561_750,
+  M0 = 0.3,
+  STEP = 1;
 const SIZES = [1e5, 1e6, 1e7];
 const out = (line) => process.stdout.write(`${line}\n`);
 const fmt = (ms) => (ms >= 1000 ? `${(ms / 1000).toFixed(2)} s` : `${ms.toFixed(1)} ms`);
@@ -26,7 +29,9 @@ function cpuMs(fn) {
 
 /** The baseline loop in JavaScript: what a user would write without the grid function. */
 function plainLoop(e, count, target) {
-  const gm = DEFAULT_CONSTANT_SET.gm, n = Math.sqrt(gm / A ** 3), amp = DEFAULT_CONSTANT_SET.relativisticF * e * Math.sqrt(A);
+  const gm = DEFAULT_CONSTANT_SET.gm,
+    n = Math.sqrt(gm / A ** 3),
+    amp = DEFAULT_CONSTANT_SET.relativisticF * e * Math.sqrt(A);
   for (let k = 0; k < count; k++) {
     const M = (M0 + n * k * STEP) % (2 * Math.PI);
     let E = M + e * Math.sin(M);
@@ -48,7 +53,13 @@ export default async function benchTimeGrid() {
     const times = [];
     for (const count of SIZES) {
       const orbit = { semiMajorAxis: A, eccentricity: e, meanAnomalyAtStart: M0 };
-      const ours = cpuMs(() => periodicCorrectionOnTimeGrid(orbit, { stepSeconds: STEP, count }, { constants: DEFAULT_CONSTANT_SET, out: buffer }));
+      const ours = cpuMs(() =>
+        periodicCorrectionOnTimeGrid(
+          orbit,
+          { stepSeconds: STEP, count },
+          { constants: DEFAULT_CONSTANT_SET, out: buffer },
+        ),
+      );
       const js = cpuMs(() => plainLoop(e, count, buffer));
       let base = js;
       if (native.exe) {
@@ -57,9 +68,13 @@ export default async function benchTimeGrid() {
       }
       times.push(ours);
       const target = count === 1e7 && e <= 0.7 ? `  target ≥ 3×: ${base / ours >= 3 ? 'met' : 'MISSED'}` : '';
-      out(`  e = ${String(e).padEnd(4)} ${count.toExponential(0).padStart(5)} epochs: grid ${fmt(ours).padStart(9)}  ` +
-        `baseline ${fmt(base).padStart(9)}  ${(base / ours).toFixed(2)}× faster  (plain JS loop ${fmt(js)})${target}`);
+      out(
+        `  e = ${String(e).padEnd(4)} ${count.toExponential(0).padStart(5)} epochs: grid ${fmt(ours).padStart(9)}  ` +
+          `baseline ${fmt(base).padStart(9)}  ${(base / ours).toFixed(2)}× faster  (plain JS loop ${fmt(js)})${target}`,
+      );
     }
-    out(`  e = ${e}: growth exponent of the grid function over 10^5…10^7 epochs ${growthExponent(SIZES, times).toFixed(2)}`);
+    out(
+      `  e = ${e}: growth exponent of the grid function over 10^5…10^7 epochs ${growthExponent(SIZES, times).toFixed(2)}`,
+    );
   }
 }

@@ -22,7 +22,8 @@ async function until<T>(what: string, probe: () => T | null | undefined | false,
     const v = probe();
     if (v) return v;
     // The console's status line says why a recompute failed (e.g. an SDK error message).
-    if (performance.now() - start > timeoutMs) throw new Error(`timed out waiting for ${what}; console status: ${statusOf()}`);
+    if (performance.now() - start > timeoutMs)
+      throw new Error(`timed out waiting for ${what}; console status: ${statusOf()}`);
     await new Promise((r) => setTimeout(r, 50));
   }
 }
@@ -42,7 +43,10 @@ describe('demo operations console (demo/index.html)', () => {
     expect(label).to.match(/\d+ commands? \(/);
     const budgetRows = doc.querySelector('tauline-rate-budget')!.shadowRoot!.querySelectorAll('tbody tr');
     expect(budgetRows.length).to.equal(4);
-    const stabilityRows = await until('stability rows', () => doc.querySelector('tauline-stability-plot')!.shadowRoot!.querySelectorAll('tbody tr').length);
+    const stabilityRows = await until(
+      'stability rows',
+      () => doc.querySelector('tauline-stability-plot')!.shadowRoot!.querySelectorAll('tbody tr').length,
+    );
     expect(stabilityRows).to.be.greaterThan(3);
     expect(doc.querySelector('tauline-review-findings')!.shadowRoot!.querySelectorAll('details').length).to.equal(4);
     expect(doc.getElementById('status')!.textContent).to.contain('Recomputed in');
@@ -108,10 +112,19 @@ describe('demo operations console (demo/index.html)', () => {
 
   it('every number shown in the elements and the status line uses one minus sign, U+2212 (no hyphen-minus before a digit)', async () => {
     const doc = await loadDemo();
-    await until('command rows', () => doc.querySelector('tauline-steering-schedule')!.shadowRoot?.querySelectorAll('tbody tr[part~="row"]').length);
-    await until('stability rows', () => doc.querySelector('tauline-stability-plot')!.shadowRoot?.querySelectorAll('tbody tr').length);
+    await until(
+      'command rows',
+      () =>
+        doc.querySelector('tauline-steering-schedule')!.shadowRoot?.querySelectorAll('tbody tr[part~="row"]').length,
+    );
+    await until(
+      'stability rows',
+      () => doc.querySelector('tauline-stability-plot')!.shadowRoot?.querySelectorAll('tbody tr').length,
+    );
     const texts: string[] = [doc.getElementById('status')!.textContent ?? ''];
-    for (const el of doc.querySelectorAll('tauline-steering-schedule, tauline-rate-budget, tauline-stability-plot, tauline-review-findings')) {
+    for (const el of doc.querySelectorAll(
+      'tauline-steering-schedule, tauline-rate-budget, tauline-stability-plot, tauline-review-findings',
+    )) {
       const root = el.shadowRoot!;
       // Open every review entry so its numbers are rendered text too.
       for (const d of root.querySelectorAll('details')) d.open = true;
@@ -124,8 +137,10 @@ describe('demo operations console (demo/index.html)', () => {
   });
 
   it('at 390×844 every view fits the width (scrollWidth ≤ innerWidth) and is saved to .ci-out/demo-390-<view>.png', async () => {
-    const views = await executeServerCommand<Array<{ view: string; scrollWidth: number; innerWidth: number; wide: string[]; file: string }>, Record<string, unknown>>(
-      'tauline-demo-views', { path: '/demo/index.html', width: 390, height: 844 });
+    const views = await executeServerCommand<
+      Array<{ view: string; scrollWidth: number; innerWidth: number; wide: string[]; file: string }>,
+      Record<string, unknown>
+    >('tauline-demo-views', { path: '/demo/index.html', width: 390, height: 844 });
     expect(views.map((v) => v.view)).to.deep.equal(['top', 'schedule', 'budget', 'stability', 'review']);
     for (const v of views) {
       expect(v.scrollWidth, `${v.view}: ${v.wide.join('; ')}`).to.be.at.most(v.innerWidth);
@@ -134,20 +149,30 @@ describe('demo operations console (demo/index.html)', () => {
   });
 
   it('at 360×740 (the narrowest supported width) the page still fits', async () => {
-    const views = await executeServerCommand<Array<{ view: string; scrollWidth: number; innerWidth: number; wide: string[] }>, Record<string, unknown>>(
-      'tauline-demo-views', { path: '/demo/index.html', width: 360, height: 740, views: ['top', 'budget'] });
+    const views = await executeServerCommand<
+      Array<{ view: string; scrollWidth: number; innerWidth: number; wide: string[] }>,
+      Record<string, unknown>
+    >('tauline-demo-views', { path: '/demo/index.html', width: 360, height: 740, views: ['top', 'budget'] });
     for (const v of views) expect(v.scrollWidth, `${v.view}: ${v.wide.join('; ')}`).to.be.at.most(v.innerWidth);
   });
 
   it('the closed-loop what-if flies 30 days and shows time in tolerance for the planner beside no steering (steering keeps the clock in tolerance longer)', async function (this: Mocha.Context) {
     this.timeout(90000); // 2 strategies × 40 clocks × 30 days, synchronous in the page
     const doc = await loadDemo();
-    await until('command rows', () => doc.querySelector('tauline-steering-schedule')!.shadowRoot?.querySelectorAll('tbody tr[part~="row"]').length);
+    await until(
+      'command rows',
+      () =>
+        doc.querySelector('tauline-steering-schedule')!.shadowRoot?.querySelectorAll('tbody tr[part~="row"]').length,
+    );
     (doc.getElementById('loop-run') as HTMLButtonElement).click();
-    const rows = await until('closed-loop rows', () => {
-      const r = doc.querySelectorAll('#loop-table tbody tr');
-      return r.length === 4 ? r : null;
-    }, 60000);
+    const rows = await until(
+      'closed-loop rows',
+      () => {
+        const r = doc.querySelectorAll('#loop-table tbody tr');
+        return r.length === 4 ? r : null;
+      },
+      60000,
+    );
     const strategies = [...doc.querySelectorAll('#loop-table thead th')].map((th) => th.textContent);
     expect(strategies).to.deep.equal(['constrained LQ', 'no steering']);
     // First row: mean time in tolerance per strategy.
@@ -159,14 +184,14 @@ describe('demo operations console (demo/index.html)', () => {
     expect(doc.getElementById('loop-status')!.textContent).to.match(/flown in \d+ ms/);
   });
 
-  it('the fleet view plans the four Corvane satellites with planFleet, says which one cannot be held and why, and shows the selected satellite\'s details', async () => {
+  it("the fleet view plans the four Corvane satellites with planFleet, says which one cannot be held and why, and shows the selected satellite's details", async () => {
     const doc = await loadDemo();
     const timeline = doc.querySelector('tauline-fleet-timeline')!;
     const rows = await until('fleet rows', () => {
       const r = timeline.shadowRoot?.querySelectorAll<HTMLTableRowElement>('tbody tr[part~="row"]');
       return r && r.length > 0 ? [...r] : null;
     });
-    expect(rows.map((r) => r.dataset['id'])).to.deep.equal(['CORVANE-A1', 'CORVANE-A2', 'CORVANE-B1', 'CORVANE-B2']);
+    expect(rows.map((r) => r.dataset.id)).to.deep.equal(['CORVANE-A1', 'CORVANE-A2', 'CORVANE-B1', 'CORVANE-B2']);
     const summary = await until('fleet summary', () => doc.getElementById('fleet-summary')!.textContent);
     expect(summary).to.contain('Not feasible: 1 of 4 satellites cannot be held');
     expect(summary).to.contain('CORVANE-B2: too few passes');
@@ -177,18 +202,27 @@ describe('demo operations console (demo/index.html)', () => {
     expect(detail).to.match(/^CORVANE-A1 · \d+ uplinks?$/);
     expect(doc.querySelectorAll('#fleet-detail tbody tr').length).to.be.greaterThan(0);
     expect(doc.getElementById('events')!.textContent).to.contain('fleet: selected CORVANE-A1');
-    const numbers = [doc.getElementById('fleet-summary')!.textContent!, doc.getElementById('fleet-detail')!.textContent!, timeline.shadowRoot!.textContent!];
+    const numbers = [
+      doc.getElementById('fleet-summary')!.textContent!,
+      doc.getElementById('fleet-detail')!.textContent!,
+      timeline.shadowRoot!.textContent!,
+    ];
     expect(numbers.flatMap((t) => t.match(/(^|[\s(=±Δ:]|\de)-\d[^\s]*/g) ?? [])).to.deep.equal([]);
   });
 
   it('at 360×740 the fleet view fits the width and is saved to .ci-out/demo-360-fleet.png', async () => {
-    const views = await executeServerCommand<Array<{ view: string; scrollWidth: number; innerWidth: number; wide: string[] }>, Record<string, unknown>>(
-      'tauline-demo-views', { path: '/demo/index.html', width: 360, height: 740, views: ['fleet'] });
+    const views = await executeServerCommand<
+      Array<{ view: string; scrollWidth: number; innerWidth: number; wide: string[] }>,
+      Record<string, unknown>
+    >('tauline-demo-views', { path: '/demo/index.html', width: 360, height: 740, views: ['fleet'] });
     for (const v of views) expect(v.scrollWidth, `${v.view}: ${v.wide.join('; ')}`).to.be.at.most(v.innerWidth);
   });
 
   it('saves a screenshot of the console to .ci-out/demo-console.png', async () => {
-    const saved = await executeServerCommand<string, { path: string; out: string }>('tauline-demo-screenshot', { path: '/demo/index.html', out: '.ci-out/demo-console.png' });
+    const saved = await executeServerCommand<string, { path: string; out: string }>('tauline-demo-screenshot', {
+      path: '/demo/index.html',
+      out: '.ci-out/demo-console.png',
+    });
     expect(saved).to.contain('demo-console.png');
   });
 });

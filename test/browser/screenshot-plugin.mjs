@@ -12,22 +12,41 @@ const OUT_DIR = resolve('.ci-out');
  * innerWidth, lists elements wider than the viewport, and saves a viewport screenshot
  * `.ci-out/demo-<width>-<view>.png`.
  */
-async function demoViews({ path = '/demo/index.html', width = 390, height = 844, views = ['top', 'schedule', 'budget', 'stability', 'review'] }, session) {
+async function demoViews(
+  {
+    path = '/demo/index.html',
+    width = 390,
+    height = 844,
+    views = ['top', 'schedule', 'budget', 'stability', 'review'],
+  },
+  session,
+) {
   if (session.browser.type !== 'puppeteer') throw new Error('tauline-demo-views needs the Chrome (puppeteer) launcher');
   const testPage = session.browser.getPage(session.id);
   const page = await testPage.browser().newPage();
   try {
     await page.setViewport({ width, height });
     await page.goto(new URL(String(path), testPage.url()).href);
-    await page.waitForFunction(() => (document.querySelector('tauline-steering-schedule')?.shadowRoot?.querySelectorAll('tbody tr[part~="row"]').length ?? 0) > 0, { timeout: 30000 });
+    await page.waitForFunction(
+      () =>
+        (document.querySelector('tauline-steering-schedule')?.shadowRoot?.querySelectorAll('tbody tr[part~="row"]')
+          .length ?? 0) > 0,
+      { timeout: 30000 },
+    );
     await new Promise((r) => setTimeout(r, 300));
     mkdirSync(OUT_DIR, { recursive: true });
     const out = [];
     for (const view of views) {
       const measured = await page.evaluate((v) => {
-        if (v === 'top') window.scrollTo(0, 0); else document.getElementById(v)?.scrollIntoView({ block: 'start' });
-        const wide = [...document.querySelectorAll('body *')].filter((el) => el.getBoundingClientRect().right > window.innerWidth + 0.5)
-          .slice(0, 5).map((el) => `${el.localName}${el.id ? `#${el.id}` : ''}.${[...el.classList].join('.')} right=${Math.round(el.getBoundingClientRect().right)}`);
+        if (v === 'top') window.scrollTo(0, 0);
+        else document.getElementById(v)?.scrollIntoView({ block: 'start' });
+        const wide = [...document.querySelectorAll('body *')]
+          .filter((el) => el.getBoundingClientRect().right > window.innerWidth + 0.5)
+          .slice(0, 5)
+          .map(
+            (el) =>
+              `${el.localName}${el.id ? `#${el.id}` : ''}.${[...el.classList].join('.')} right=${Math.round(el.getBoundingClientRect().right)}`,
+          );
         return { view: v, scrollWidth: document.documentElement.scrollWidth, innerWidth: window.innerWidth, wide };
       }, view);
       await new Promise((r) => setTimeout(r, 100));
@@ -47,7 +66,8 @@ export function demoScreenshotPlugin() {
     async executeCommand({ command, payload, session }) {
       if (command === 'tauline-demo-views') return demoViews(payload ?? {}, session);
       if (command !== 'tauline-demo-screenshot') return undefined;
-      if (session.browser.type !== 'puppeteer') throw new Error('tauline-demo-screenshot needs the Chrome (puppeteer) launcher');
+      if (session.browser.type !== 'puppeteer')
+        throw new Error('tauline-demo-screenshot needs the Chrome (puppeteer) launcher');
       const { path, out, width = 1440, height = 1000 } = payload ?? {};
       const target = resolve(String(out));
       if (!target.startsWith(OUT_DIR + sep)) throw new Error(`screenshots go under .ci-out/; received ${out}`);
@@ -56,10 +76,13 @@ export function demoScreenshotPlugin() {
       try {
         await page.setViewport({ width, height });
         await page.goto(new URL(String(path), testPage.url()).href);
-        await page.waitForFunction(() => {
-          const el = document.querySelector('tauline-steering-schedule');
-          return (el?.shadowRoot?.querySelectorAll('tbody tr[part~="row"]').length ?? 0) > 0;
-        }, { timeout: 30000 });
+        await page.waitForFunction(
+          () => {
+            const el = document.querySelector('tauline-steering-schedule');
+            return (el?.shadowRoot?.querySelectorAll('tbody tr[part~="row"]').length ?? 0) > 0;
+          },
+          { timeout: 30000 },
+        );
         mkdirSync(dirname(target), { recursive: true });
         await page.screenshot({ path: target, fullPage: true });
         return target;

@@ -10,8 +10,18 @@ const ROOT = new URL('../../', import.meta.url);
 const read = (path: string): string => readFileSync(new URL(path, ROOT), 'utf8');
 
 const BUNDLES = [
-  { file: 'packages/elements/dist/bundle/tauline-elements.js', readme: 'packages/elements/README.md', exportKey: './bundle', manifest: 'packages/elements/package.json' },
-  { file: 'packages/sdk/dist/bundle/tauline-sdk.js', readme: 'packages/sdk/README.md', exportKey: './bundle', manifest: 'packages/sdk/package.json' },
+  {
+    file: 'packages/elements/dist/bundle/tauline-elements.js',
+    readme: 'packages/elements/README.md',
+    exportKey: './bundle',
+    manifest: 'packages/elements/package.json',
+  },
+  {
+    file: 'packages/sdk/dist/bundle/tauline-sdk.js',
+    readme: 'packages/sdk/README.md',
+    exportKey: './bundle',
+    manifest: 'packages/sdk/package.json',
+  },
 ];
 
 /** Stated sizes may drift by this fraction before the README must be updated (common practice, no source). */
@@ -20,7 +30,9 @@ const SIZE_TOLERANCE = 0.1;
 /** The README's statement "Size of `<name>`: N KiB minified, M KiB gzipped" for a bundle file name. */
 function statedSizes(readme: string, name: string): { minified: number; gzipped: number } {
   const text = readme.replace(/\s+/g, ' ');
-  const m = new RegExp(`Size of \`${name.replace('.', '\\.')}\`: ([\\d.]+) KiB minified, ([\\d.]+) KiB gzipped`).exec(text);
+  const m = new RegExp(`Size of \`${name.replace('.', '\\.')}\`: ([\\d.]+) KiB minified, ([\\d.]+) KiB gzipped`).exec(
+    text,
+  );
   expect(m, `README states the size of ${name}`).not.toBeNull();
   return { minified: Number(m![1]), gzipped: Number(m![2]) };
 }
@@ -47,14 +59,21 @@ describe('one-file bundles (@tauline/elements/bundle, @tauline/sdk/bundle)', () 
       const stated = statedSizes(read(b.readme), name);
       const gzipped = gzipSync(bytes, { level: 9 }).length / 1024;
       const minified = bytes.length / 1024;
-      expect(Math.abs(gzipped - stated.gzipped) / gzipped, `built: ${gzipped.toFixed(1)} KiB gzipped`).toBeLessThanOrEqual(SIZE_TOLERANCE);
-      expect(Math.abs(minified - stated.minified) / minified, `built: ${minified.toFixed(0)} KiB minified`).toBeLessThanOrEqual(SIZE_TOLERANCE);
+      expect(
+        Math.abs(gzipped - stated.gzipped) / gzipped,
+        `built: ${gzipped.toFixed(1)} KiB gzipped`,
+      ).toBeLessThanOrEqual(SIZE_TOLERANCE);
+      expect(
+        Math.abs(minified - stated.minified) / minified,
+        `built: ${minified.toFixed(0)} KiB minified`,
+      ).toBeLessThanOrEqual(SIZE_TOLERANCE);
     });
   }
 
   it('tauline-elements.js registers the five tags and inlines Lit', () => {
     const code = read('packages/elements/dist/bundle/tauline-elements.js');
-    for (const tag of ['steering-schedule', 'rate-budget', 'stability-plot', 'review-findings', 'fleet-timeline']) expect(code.includes(`"tauline-${tag}"`), tag).toBe(true);
+    for (const tag of ['steering-schedule', 'rate-budget', 'stability-plot', 'review-findings', 'fleet-timeline'])
+      expect(code.includes(`"tauline-${tag}"`), tag).toBe(true);
     expect(code.includes('adoptedStyleSheets'), "Lit's reactive-element inlined").toBe(true);
   });
 });

@@ -26,10 +26,15 @@ const GM_GPS = 3.986005e14;
 const L_G = 6.969290134e-10;
 const CAUTION = /interface specification[\s\S]*responsible engineering authority/;
 
-interface Run { status: number | null; json: Record<string, any>; stderr: string }
+interface Run {
+  status: number | null;
+  json: Record<string, any>;
+  stderr: string;
+}
 
 function tauline(...argv: string[]): Run {
-  if (!existsSync(join(ROOT, 'packages/cli/dist/main.js'))) throw new Error('the CLI is not built: run `npm run build` first');
+  if (!existsSync(join(ROOT, 'packages/cli/dist/main.js')))
+    throw new Error('the CLI is not built: run `npm run build` first');
   const r = spawnSync(process.execPath, [BIN, ...argv], { encoding: 'utf8', cwd: ROOT });
   let json: Record<string, any> = {};
   try {
@@ -49,7 +54,8 @@ function kepler(M: number, e: number): number {
 
 describe('tauline CLI contracts through the built binary', () => {
   it('rate --semi-major-axis 26561750 --nominal-frequency 10.23e6 --json: fractionalRate = L_G − 3GM/(2ac²), split and offsets recomputed (IERS 2010 §10.2 eq. 10.9; physics-refs §2 [C])', () => {
-    const a = 26_561_750, f0 = 10.23e6;
+    const a = 26_561_750,
+      f0 = 10.23e6;
     const r = tauline('rate', '--semi-major-axis', String(a), '--nominal-frequency', String(f0), '--json');
     expect(r.status).toBe(0);
     const rate = L_G - (3 * GM_IERS) / (2 * a * C2);
@@ -67,9 +73,21 @@ describe('tauline CLI contracts through the built binary', () => {
   });
 
   it('periodic ... --constants gps-icd --json: correctionSeconds = F e √A sin E = −2.378695477618e-08 s and amplitudeSeconds = |F| e √A (IS-GPS-200 §20.3.3.3.3.1; physics-refs §3 [C])', () => {
-    const sqrtA = 5153.79589081, e = 0.0123456789, E = 1.0;
-    const r = tauline('periodic', '--semi-major-axis', String(sqrtA ** 2), '--eccentricity', String(e),
-      '--mean-anomaly', String(E - e * Math.sin(E)), '--constants', 'gps-icd', '--json');
+    const sqrtA = 5153.79589081,
+      e = 0.0123456789,
+      E = 1.0;
+    const r = tauline(
+      'periodic',
+      '--semi-major-axis',
+      String(sqrtA ** 2),
+      '--eccentricity',
+      String(e),
+      '--mean-anomaly',
+      String(E - e * Math.sin(E)),
+      '--constants',
+      'gps-icd',
+      '--json',
+    );
     expect(r.status).toBe(0);
     const F = (-2 * Math.sqrt(GM_GPS)) / C2;
     expect(Math.abs(r.json.correctionSeconds - -2.378695477618e-8)).toBeLessThanOrEqual(0.5e-20);
@@ -78,8 +96,20 @@ describe('tauline CLI contracts through the built binary', () => {
   });
 
   it('propertime --model point-mass on a circular orbit: samples [{t, tauMinusTT}] follow (L_G − 3GM/(2rc²))·t to 1 ps over a day (IERS 2010 eq. 10.9; circular: r and v constant [C])', () => {
-    const r0 = 26_561_750, v = Math.sqrt(GM_IERS / r0);
-    const run = tauline('propertime', '--state', `${r0},0,0,0,${v},0`, '--duration', '86400', '--step', '43200', '--model', 'point-mass', '--json');
+    const r0 = 26_561_750,
+      v = Math.sqrt(GM_IERS / r0);
+    const run = tauline(
+      'propertime',
+      '--state',
+      `${r0},0,0,0,${v},0`,
+      '--duration',
+      '86400',
+      '--step',
+      '43200',
+      '--model',
+      'point-mass',
+      '--json',
+    );
     expect(run.status).toBe(0);
     const samples = run.json.samples as { t: number; tauMinusTT: number }[];
     expect(samples.map((s) => s.t)).toEqual([0, 43_200, 86_400]);
@@ -91,11 +121,17 @@ describe('tauline CLI contracts through the built binary', () => {
     const r = tauline('stability', '--phase', NBS14, '--tau0', '1', '--statistics', 'oadev,mdev,tdev,ohdev', '--json');
     expect(r.status).toBe(0);
     const rows = r.json.rows as Record<string, number>[];
-    const at = (tau: number) => rows.find((x) => x['tau'] === tau)!;
+    const at = (tau: number) => rows.find((x) => x.tau === tau)!;
     // Published to 7 significant digits; the fixture's phase is printed to 5 decimals.
     const published: [number, string, number][] = [
-      [1, 'oadev', 91.22945], [2, 'oadev', 85.95287], [1, 'mdev', 91.22945], [2, 'mdev', 74.78849],
-      [1, 'tdev', 52.67135], [2, 'tdev', 86.35831], [1, 'ohdev', 70.80607], [2, 'ohdev', 85.61487],
+      [1, 'oadev', 91.22945],
+      [2, 'oadev', 85.95287],
+      [1, 'mdev', 91.22945],
+      [2, 'mdev', 74.78849],
+      [1, 'tdev', 52.67135],
+      [2, 'tdev', 86.35831],
+      [1, 'ohdev', 70.80607],
+      [2, 'ohdev', 85.61487],
     ];
     for (const [tau, stat, value] of published) {
       expect(Math.abs(at(tau)[stat]! - value), `${stat}(${tau})`).toBeLessThanOrEqual(0.5e-5); // half a unit in the published last digit
@@ -130,7 +166,8 @@ describe('tauline CLI contracts through the built binary', () => {
     for (const x of results) {
       expect(x.runs).toBe(20);
       expect(x.seed).toBe(7);
-      for (const k of ['timeInTolerance', 'wholeHorizonProbability', 'minEpochProbability']) expect(x[k]).toBeGreaterThanOrEqual(0);
+      for (const k of ['timeInTolerance', 'wholeHorizonProbability', 'minEpochProbability'])
+        expect(x[k]).toBeGreaterThanOrEqual(0);
       expect(x.wholeHorizonProbability).toBeLessThanOrEqual(x.timeInTolerance);
       expect(x.worstExcursionP95Seconds).toBeLessThanOrEqual(x.worstExcursionSeconds);
     }
@@ -155,11 +192,26 @@ describe('tauline CLI contracts through the built binary', () => {
   });
 
   it('broadcast mixed-v305 --satellite G05 --json: at t_oe, relativisticSeconds = F e √A sin E(M0) and clockCorrectionSeconds = a_f0 + Δt_r (IS-GPS-200 §20.3.3.3.3.1; fixture values from generate.py [C])', () => {
-    const r = tauline('broadcast', NAV, '--from', '2024-01-07T00:00:00', '--to', '2024-01-07T00:00:00', '--step', '60', '--satellite', 'G05', '--json');
+    const r = tauline(
+      'broadcast',
+      NAV,
+      '--from',
+      '2024-01-07T00:00:00',
+      '--to',
+      '2024-01-07T00:00:00',
+      '--step',
+      '60',
+      '--satellite',
+      'G05',
+      '--json',
+    );
     expect(r.status).toBe(0);
     const s = r.json.satellites[0].samples[0];
     const F = (-2 * Math.sqrt(GM_GPS)) / C2;
-    const e = 0.0123456789, sqrtA = 5153.79589081, M0 = 1.0, af0 = 1.0e-4;
+    const e = 0.0123456789,
+      sqrtA = 5153.79589081,
+      M0 = 1.0,
+      af0 = 1.0e-4;
     const dtr = F * e * sqrtA * Math.sin(kepler(M0, e));
     expect(Math.abs(s.relativisticSeconds - dtr)).toBeLessThan(1e-18);
     expect(Math.abs(s.clockCorrectionSeconds - (af0 + dtr))).toBeLessThan(1e-18);
@@ -169,7 +221,10 @@ describe('tauline CLI contracts through the built binary', () => {
   it('precise orbit-d-p.sp3 --satellite G30 --json: relativisticSeconds at 01:30 = −2√(GM a) e sin E/c² of the two-body orbit, to 1 ps (IERS 2010 eq. 10.10; SOURCE.md orbit [C])', () => {
     const r = tauline('precise', SP3, '--satellite', 'G30', '--json');
     expect(r.status).toBe(0);
-    const a = 26_561_750, e = 0.02, M0 = -0.3, t = 5400;
+    const a = 26_561_750,
+      e = 0.02,
+      M0 = -0.3,
+      t = 5400;
     const E = kepler(M0 + Math.sqrt(GM_GPS / a ** 3) * t, e);
     const expected = (-2 * Math.sqrt(GM_GPS * a) * e * Math.sin(E)) / C2;
     const sample = (r.json.satellites[0].samples as Record<string, any>[]).find((x) => x.t === '2024-01-07T01:30:00')!;

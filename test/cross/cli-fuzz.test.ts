@@ -8,8 +8,8 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { MUTATORS, Random, fixturesMatching } from '../../packages/sdk/test/io/fuzz/harness.js';
 import { runCli } from '../../packages/cli/test/run.js';
+import { fixturesMatching, MUTATORS, Random } from '../../packages/sdk/test/io/fuzz/harness.js';
 
 const tmp = mkdtempSync(join(tmpdir(), 'tauline-cli-fuzz-'));
 const WINDOW = ['--from', '2024-01-07T00:00:00', '--to', '2024-01-07T02:00:00', '--step', '3600'];
@@ -45,7 +45,8 @@ describe('file-reading commands under seeded fuzzing (seed 20261203)', () => {
         const file = join(tmp, `mutant-${run}`);
         writeFileSync(file, text);
         const r = await runCli(c.argv.map((a) => (a === F ? file : a)));
-        if (r.status === 3 || ![0, 1, 2].includes(r.status)) internal.push(`${c.argv[0]} run ${run} (${applied.join(', ')}): ${r.status} ${r.err.trim()}`);
+        if (r.status === 3 || ![0, 1, 2].includes(r.status))
+          internal.push(`${c.argv[0]} run ${run} (${applied.join(', ')}): ${r.status} ${r.err.trim()}`);
       }
     }
     expect(internal.join('\n')).toBe('');

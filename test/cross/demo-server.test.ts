@@ -3,45 +3,66 @@
 // socket as the kernel reports it (/proc/net/tcp, /proc/net/tcp6), and the answers to hostile
 // requests sent as raw bytes, so no client library normalises a path or fills in a Host header.
 // The exposure rules are the project's own (common practice for a local demo server, no source).
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { spawn, type ChildProcess } from 'node:child_process';
+
+import { type ChildProcess, spawn } from 'node:child_process';
 import { existsSync, readFileSync } from 'node:fs';
 import { connect } from 'node:net';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 let child: ChildProcess;
 let port = 0;
 
 beforeAll(async () => {
-  if (!existsSync('demo/dist/console.js')) throw new Error('demo/dist/console.js is missing: run "npm run build" first');
-  child = spawn(process.execPath, ['demo/start.mjs', '--no-build'], { env: { ...process.env, PORT: '0' }, stdio: ['ignore', 'pipe', 'pipe'] });
+  if (!existsSync('demo/dist/console.js'))
+    throw new Error('demo/dist/console.js is missing: run "npm run build" first');
+  child = spawn(process.execPath, ['demo/start.mjs', '--no-build'], {
+    env: { ...process.env, PORT: '0' },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
   port = await new Promise<number>((resolve, reject) => {
     let out = '';
     const timer = setTimeout(() => reject(new Error(`demo server did not start: ${out}`)), 20000);
     child.stdout!.on('data', (chunk: Buffer) => {
       out += chunk.toString();
       const m = /http:\/\/127\.0\.0\.1:(\d+)\/demo\/index\.html/.exec(out);
-      if (m) { clearTimeout(timer); resolve(Number(m[1])); }
+      if (m) {
+        clearTimeout(timer);
+        resolve(Number(m[1]));
+      }
     });
-    child.stderr!.on('data', (chunk: Buffer) => { out += chunk.toString(); });
-    child.once('exit', (code) => { clearTimeout(timer); reject(new Error(`demo server exited with ${code}: ${out}`)); });
+    child.stderr!.on('data', (chunk: Buffer) => {
+      out += chunk.toString();
+    });
+    child.once('exit', (code) => {
+      clearTimeout(timer);
+      reject(new Error(`demo server exited with ${code}: ${out}`));
+    });
   });
 });
 
-afterAll(() => { child?.kill('SIGTERM'); });
+afterAll(() => {
+  child?.kill('SIGTERM');
+});
 
 /** Sends `request` verbatim to 127.0.0.1:port and returns the status code and the whole response. */
 function raw(request: string): Promise<{ status: number; text: string }> {
   return new Promise((resolve, reject) => {
     const socket = connect({ host: '127.0.0.1', port }, () => socket.end(request));
     let text = '';
-    socket.setTimeout(5000, () => { socket.destroy(); reject(new Error(`no answer to ${JSON.stringify(request)}`)); });
-    socket.on('data', (chunk) => { text += chunk.toString('latin1'); });
+    socket.setTimeout(5000, () => {
+      socket.destroy();
+      reject(new Error(`no answer to ${JSON.stringify(request)}`));
+    });
+    socket.on('data', (chunk) => {
+      text += chunk.toString('latin1');
+    });
     socket.on('end', () => resolve({ status: Number(/^HTTP\/1\.[01] (\d{3})/.exec(text)?.[1] ?? 0), text }));
     socket.on('error', reject);
   });
 }
 
-const get = (path: string, host = `127.0.0.1:${port}`) => raw(`GET ${path} HTTP/1.1\r\nHost: ${host}\r\nConnection: close\r\n\r\n`);
+const get = (path: string, host = `127.0.0.1:${port}`) =>
+  raw(`GET ${path} HTTP/1.1\r\nHost: ${host}\r\nConnection: close\r\n\r\n`);
 
 /** Local addresses of the TCP sockets in state LISTEN on `port`, decoded from /proc/net/tcp and tcp6. */
 function listeningAddresses(listenPort: number): string[] {
@@ -91,15 +112,42 @@ describe('demo server started as npm start runs it (demo/start.mjs)', () => {
   });
 
   const outside = [
-    '/.git/config', '/.git/HEAD', '/package.json', '/README.md', '/node_modules/lit/index.js',
-    '/packages/sdk/src/index.ts', '/packages/sdk/dist/index.js', '/demo/start.mjs', '/demo/server.mjs', '/demo/console.js',
-    '/__wds-outside-root__/10/etc/passwd', '/__wds-outside-root__/1/package.json',
-    '/demo/../package.json', '/demo/../.git/config', '/../../etc/passwd', '//etc/passwd', '/etc/passwd',
-    '/demo/%2e%2e/package.json', '/demo/%2E%2E/.git/config', '/%2e%2e/%2e%2e/etc/passwd', '/demo/..%2fpackage.json',
-    '/demo/..%2Fpackage.json', '/demo/%252e%252e/package.json', '/demo/..%5cpackage.json', '/demo\\..\\package.json',
-    '/demo/dist/../../package.json', '/demo/dist/%2e%2e/%2e%2e/.git/config', '/demo/index.html%00.js',
-    '/demo/./index.html', '/demo//index.html', '/DEMO/INDEX.HTML', '/demo/dist/', '/demo/dist',
-    '/demo/%69ndex.html', '/demo/dist/console.js/..', '/demo/dist/..%c0%afpackage.json',
+    '/.git/config',
+    '/.git/HEAD',
+    '/package.json',
+    '/README.md',
+    '/node_modules/lit/index.js',
+    '/packages/sdk/src/index.ts',
+    '/packages/sdk/dist/index.js',
+    '/demo/start.mjs',
+    '/demo/server.mjs',
+    '/demo/console.js',
+    '/__wds-outside-root__/10/etc/passwd',
+    '/__wds-outside-root__/1/package.json',
+    '/demo/../package.json',
+    '/demo/../.git/config',
+    '/../../etc/passwd',
+    '//etc/passwd',
+    '/etc/passwd',
+    '/demo/%2e%2e/package.json',
+    '/demo/%2E%2E/.git/config',
+    '/%2e%2e/%2e%2e/etc/passwd',
+    '/demo/..%2fpackage.json',
+    '/demo/..%2Fpackage.json',
+    '/demo/%252e%252e/package.json',
+    '/demo/..%5cpackage.json',
+    '/demo\\..\\package.json',
+    '/demo/dist/../../package.json',
+    '/demo/dist/%2e%2e/%2e%2e/.git/config',
+    '/demo/index.html%00.js',
+    '/demo/./index.html',
+    '/demo//index.html',
+    '/DEMO/INDEX.HTML',
+    '/demo/dist/',
+    '/demo/dist',
+    '/demo/%69ndex.html',
+    '/demo/dist/console.js/..',
+    '/demo/dist/..%c0%afpackage.json',
   ];
   it.each(outside)('answers 404 for %s', async (path) => {
     const answer = await get(path);
@@ -132,7 +180,9 @@ describe('demo server started as npm start runs it (demo/start.mjs)', () => {
   });
 
   it('answers only GET and HEAD', async () => {
-    const post = await raw(`POST /demo/index.html HTTP/1.1\r\nHost: 127.0.0.1:${port}\r\nContent-Length: 0\r\nConnection: close\r\n\r\n`);
+    const post = await raw(
+      `POST /demo/index.html HTTP/1.1\r\nHost: 127.0.0.1:${port}\r\nContent-Length: 0\r\nConnection: close\r\n\r\n`,
+    );
     expect(post.status).toBe(405);
     const head = await raw(`HEAD /demo/index.html HTTP/1.1\r\nHost: 127.0.0.1:${port}\r\nConnection: close\r\n\r\n`);
     expect(head.status).toBe(200);

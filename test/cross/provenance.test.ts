@@ -28,8 +28,11 @@ interface Citation {
 }
 
 function sourceFiles(dir: string): string[] {
-  return readdirSync(dir, { withFileTypes: true }).flatMap((e) =>
-    e.isDirectory() ? sourceFiles(join(dir, e.name)) : e.name.endsWith('.ts') ? [join(dir, e.name)] : []).sort();
+  return readdirSync(dir, { withFileTypes: true })
+    .flatMap((e) =>
+      e.isDirectory() ? sourceFiles(join(dir, e.name)) : e.name.endsWith('.ts') ? [join(dir, e.name)] : [],
+    )
+    .sort();
 }
 
 function citations(): Citation[] {
@@ -38,7 +41,14 @@ function citations(): Citation[] {
     const file = relative(ROOT, path).split('\\').join('/');
     for (const line of readFileSync(path, 'utf8').split('\n')) {
       for (const match of line.matchAll(TAG)) {
-        out.push({ file, tag: match[1] as Tag, text: line.trim().replace(/^(\/\*\*|\/\/|\*)\s?/, '').trim() });
+        out.push({
+          file,
+          tag: match[1] as Tag,
+          text: line
+            .trim()
+            .replace(/^(\/\*\*|\/\/|\*)\s?/, '')
+            .trim(),
+        });
       }
     }
   }
@@ -47,13 +57,15 @@ function citations(): Citation[] {
 
 function summary(list: readonly Citation[]): string {
   const n = (t: Tag) => list.filter((c) => c.tag === t).length;
-  return `${list.length} provenance tags in the SDK sources: ${n('V1')} [V1] read in the primary text, ` +
-    `${n('V2')} [V2] read only in a secondary source, ${n('C')} [C] computed independently, ${n('M')} [M] from memory`;
+  return (
+    `${list.length} provenance tags in the SDK sources: ${n('V1')} [V1] read in the primary text, ` +
+    `${n('V2')} [V2] read only in a secondary source, ${n('C')} [C] computed independently, ${n('M')} [M] from memory`
+  );
 }
 
 function listDocument(list: readonly Citation[]): string {
   const lines = [
-    '# Provenance of the SDK\'s citations',
+    "# Provenance of the SDK's citations",
     '',
     'Generated from the tags in `packages/sdk/src` by `test/cross/provenance.test.ts` (which also keeps the',
     'counts in the READMEs in step). Tags: **[V1]** read in the primary text, **[V2]** read only in a secondary',
@@ -76,14 +88,14 @@ function listDocument(list: readonly Citation[]): string {
     }
     lines.push(`- ${c.text.replace(/\|/g, '\\|')}`);
   }
-  return lines.join('\n') + '\n';
+  return `${lines.join('\n')}\n`;
 }
 
 describe('provenance counts of the SDK citations', () => {
   const list = citations();
   const expected = summary(list);
   const document = listDocument(list);
-  if (process.env['PROVENANCE_WRITE'] === '1') writeFileSync(LIST, document);
+  if (process.env.PROVENANCE_WRITE === '1') writeFileSync(LIST, document);
 
   it('README.md and packages/sdk/README.md state the tag counts found in packages/sdk/src (counted here)', () => {
     for (const readme of ['README.md', 'packages/sdk/README.md']) {

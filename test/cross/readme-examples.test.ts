@@ -56,7 +56,13 @@ function blocksOf(file: string): Block[] {
     let k = i - 1;
     while (k >= 0 && lines[k]!.trim() === '') k--;
     const marker = k >= 0 ? /^<!--\s*doctest:\s*skip\b\s*(.*?)\s*-->$/.exec(lines[k]!.trim()) : null;
-    blocks.push({ file, line: i + 1, lang: open[1]!, body: lines.slice(i + 1, j), skip: marker ? marker[1] || 'skipped' : undefined });
+    blocks.push({
+      file,
+      line: i + 1,
+      lang: open[1]!,
+      body: lines.slice(i + 1, j),
+      skip: marker ? marker[1] || 'skipped' : undefined,
+    });
     i = j;
   }
   return blocks;
@@ -137,11 +143,14 @@ function explainMismatch(shown: string, actual: string): string | undefined {
       const s = actualTokens.length - piece.length;
       if (s >= at && matchAt(piece, actualTokens, s)) found = s;
     } else {
-      for (let s = at; s + piece.length <= actualTokens.length && found < 0; s++) if (matchAt(piece, actualTokens, s)) found = s;
+      for (let s = at; s + piece.length <= actualTokens.length && found < 0; s++)
+        if (matchAt(piece, actualTokens, s)) found = s;
     }
     if (found < 0 || (anchoredEnd && found + piece.length !== actualTokens.length)) {
-      return `this part of the shown output was not found${anchoredStart ? ' at the start' : ''}${anchoredEnd ? ' at the end' : ''}:\n` +
-        `${pieces[p]!.join('\n')}\n--- actual output ---\n${actual}`;
+      return (
+        `this part of the shown output was not found${anchoredStart ? ' at the start' : ''}${anchoredEnd ? ' at the end' : ''}:\n` +
+        `${pieces[p]!.join('\n')}\n--- actual output ---\n${actual}`
+      );
     }
     at = found + piece.length;
   }
@@ -151,8 +160,18 @@ function explainMismatch(shown: string, actual: string): string | undefined {
 // ---------------------------------------------------------------------------------------------
 // TypeScript blocks
 
-interface Expectation { id: number; line: number; kind: 'print' | 'value'; expected: string; source: string }
-interface Outcome { printed?: string; value?: unknown; reached: boolean }
+interface Expectation {
+  id: number;
+  line: number;
+  kind: 'print' | 'value';
+  expected: string;
+  source: string;
+}
+interface Outcome {
+  printed?: string;
+  value?: unknown;
+  reached: boolean;
+}
 interface DoctestHost {
   console: { log: (...args: unknown[]) => void; info: (...args: unknown[]) => void };
   before(id: number): void;
@@ -185,7 +204,8 @@ function instrument(block: Block): { code: string; expectations: Expectation[] }
     if (statement === '') {
       // A line holding only `// → ...` continues the result stated on the line above.
       const last = expectations[expectations.length - 1];
-      if (!last || previousAnnotated !== k - 1) throw new Error(`${block.file}:${block.line + 1 + k}: "// →" continuation without a stated line above`);
+      if (!last || previousAnnotated !== k - 1)
+        throw new Error(`${block.file}:${block.line + 1 + k}: "// →" continuation without a stated line above`);
       last.expected += `\n${expected}`;
       previousAnnotated = k;
       return text;
@@ -202,7 +222,8 @@ function instrument(block: Block): { code: string; expectations: Expectation[] }
     if (declaration) return `${indent}${statement}; __dt.value(${id}, ${declaration[2]});`;
     return `${indent}__dt.value(${id}, (${statement}));`;
   });
-  const header = 'const __dt = (globalThis as unknown as { __taulineDoctest: { console: Console; before(id: number): void; ' +
+  const header =
+    'const __dt = (globalThis as unknown as { __taulineDoctest: { console: Console; before(id: number): void; ' +
     'after(id: number): void; value(id: number, v: unknown): void } }).__taulineDoctest; const console = __dt.console;';
   return { code: `${header}\n${out.join('\n')}\n`, expectations };
 }
@@ -210,17 +231,23 @@ function instrument(block: Block): { code: string; expectations: Expectation[] }
 /** Checks one `// →` value annotation; returns undefined when it holds. */
 function checkValue(expected: string, value: unknown): string | undefined {
   const quoted = /^(['"])(.*)\1/.exec(expected);
-  if (quoted) return String(value) === quoted[2] ? undefined : `expected the string ${quoted[0]}, got ${JSON.stringify(value)}`;
+  if (quoted)
+    return String(value) === quoted[2] ? undefined : `expected the string ${quoted[0]}, got ${JSON.stringify(value)}`;
   const literal = /^(true|false|null|undefined)\b/.exec(expected);
   if (literal) return String(value) === literal[1] ? undefined : `expected ${literal[1]}, got ${String(value)}`;
   // A number, optionally with digit groups separated by (thin) spaces: "10 229 999.99543".
-  const num = /^[+\-\u2212]?\d{1,3}(?:[ \u2009\u202f]\d{3})+(?:\.\d+)?(?:[eE][+\-\u2212]?\d+)?|^[+\-\u2212]?(?:\d+(?:\.\d+)?|\.\d+)(?:[eE][+\-\u2212]?\d+)?/.exec(expected);
+  const num =
+    /^[+\-\u2212]?\d{1,3}(?:[ \u2009\u202f]\d{3})+(?:\.\d+)?(?:[eE][+\-\u2212]?\d+)?|^[+\-\u2212]?(?:\d+(?:\.\d+)?|\.\d+)(?:[eE][+\-\u2212]?\d+)?/.exec(
+      expected,
+    );
   if (num) {
     const shown = num[0].replace(/[ \u2009\u202f]/g, '');
     const v = typeof value === 'bigint' ? Number(value) : value;
     if (typeof v !== 'number') return `expected a number ${num[0]}, got ${typeof value} ${String(value)}`;
     const tol = halfUnit(shown) * (1 + 1e-9);
-    return Math.abs(v - toNumber(shown)) <= tol ? undefined : `expected ${num[0]} (± ${tol.toExponential(1)}), got ${v}`;
+    return Math.abs(v - toNumber(shown)) <= tol
+      ? undefined
+      : `expected ${num[0]} (± ${tol.toExponential(1)}), got ${v}`;
   }
   return `unsupported annotation "→ ${expected}": start it with a number, a quoted string, true, false, null or undefined`;
 }
@@ -231,17 +258,25 @@ async function runBlock(block: Block, index: number): Promise<string[]> {
   const printed: string[] = [];
   let mark = 0;
   const log = (...args: unknown[]): void => {
-    printed.push(args.map((a) => (typeof a === 'string' ? a : typeof a === 'object' && a !== null ? JSON.stringify(a) : String(a))).join(' '));
+    printed.push(
+      args
+        .map((a) => (typeof a === 'string' ? a : typeof a === 'object' && a !== null ? JSON.stringify(a) : String(a)))
+        .join(' '),
+    );
   };
   const host: DoctestHost = {
     console: { log, info: log },
-    before: () => { mark = printed.length; },
+    before: () => {
+      mark = printed.length;
+    },
     after: (id) => {
       const earlier = outcomes[id]!.printed;
       const now = printed.slice(mark).join('\n');
       outcomes[id] = { reached: true, printed: earlier === undefined ? now : `${earlier}\n${now}` };
     },
-    value: (id, v) => { outcomes[id] = { reached: true, value: v }; },
+    value: (id, v) => {
+      outcomes[id] = { reached: true, value: v };
+    },
   };
   const name = `${block.file.replace(/[^A-Za-z0-9]+/g, '-')}-L${block.line}-${index}.ts`;
   const path = join(TMP, name);
@@ -253,11 +288,15 @@ async function runBlock(block: Block, index: number): Promise<string[]> {
     delete (globalThis as Record<string, unknown>).__taulineDoctest;
   }
   const failures: string[] = [];
-  if (expectations.length === 0) failures.push(`${block.file}:${block.line}: a runnable block states no result (add "// → ..." to a line)`);
+  if (expectations.length === 0)
+    failures.push(`${block.file}:${block.line}: a runnable block states no result (add "// → ..." to a line)`);
   for (const e of expectations) {
     const o = outcomes[e.id]!;
     const where = `${block.file}:${e.line} (${e.source})`;
-    if (!o.reached) { failures.push(`${where}: never ran`); continue; }
+    if (!o.reached) {
+      failures.push(`${where}: never ran`);
+      continue;
+    }
     const problem = e.kind === 'print' ? explainMismatch(e.expected, o.printed ?? '') : checkValue(e.expected, o.value);
     if (problem !== undefined) failures.push(`${where}: ${problem}`);
   }
@@ -267,7 +306,13 @@ async function runBlock(block: Block, index: number): Promise<string[]> {
 // ---------------------------------------------------------------------------------------------
 // CLI blocks
 
-interface CliExample { block: Block; argv: string[]; shown: string; exitStatus: number | undefined; line: number }
+interface CliExample {
+  block: Block;
+  argv: string[];
+  shown: string;
+  exitStatus: number | undefined;
+  line: number;
+}
 
 /** Splits a shell command line into words (single and double quotes; no expansion). */
 function shellWords(command: string): string[] {
@@ -290,7 +335,8 @@ function cliExamples(block: Block): CliExample[] {
     }
     if (command) {
       const words = shellWords(command[1]!);
-      if (words[0] !== 'tauline') throw new Error(`${block.file}:${block.line + 1 + k}: only "$ tauline ..." commands are checked`);
+      if (words[0] !== 'tauline')
+        throw new Error(`${block.file}:${block.line + 1 + k}: only "$ tauline ..." commands are checked`);
       current = { block, argv: words.slice(1), shown: '', exitStatus: undefined, line: block.line + 1 + k };
       examples.push(current);
       return;
@@ -300,14 +346,23 @@ function cliExamples(block: Block): CliExample[] {
   return examples;
 }
 
-interface CliRun { status: number; stdout: string; stderr: string }
+interface CliRun {
+  status: number;
+  stdout: string;
+  stderr: string;
+}
 
 function runCli(argv: string[]): Promise<CliRun> {
   return new Promise((resolve) => {
-    execFile(process.execPath, [BIN, ...argv], { cwd: ROOT, encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 }, (error, stdout, stderr) => {
-      const status = error ? (typeof error.code === 'number' ? error.code : 1) : 0;
-      resolve({ status, stdout, stderr });
-    });
+    execFile(
+      process.execPath,
+      [BIN, ...argv],
+      { cwd: ROOT, encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 },
+      (error, stdout, stderr) => {
+        const status = error ? (typeof error.code === 'number' ? error.code : 1) : 0;
+        resolve({ status, stdout, stderr });
+      },
+    );
   });
 }
 
@@ -317,13 +372,21 @@ function limited<T>(tasks: (() => Promise<T>)[], limit: number): Promise<T>[] {
   let running = 0;
   const queue: (() => void)[] = [];
   for (const task of tasks) {
-    results.push(new Promise<T>((resolve, reject) => {
-      const start = (): void => {
-        running++;
-        task().then(resolve, reject).finally(() => { running--; queue.shift()?.(); });
-      };
-      if (running < limit) start(); else queue.push(start);
-    }));
+    results.push(
+      new Promise<T>((resolve, reject) => {
+        const start = (): void => {
+          running++;
+          task()
+            .then(resolve, reject)
+            .finally(() => {
+              running--;
+              queue.shift()?.();
+            });
+        };
+        if (running < limit) start();
+        else queue.push(start);
+      }),
+    );
   }
   return results;
 }
@@ -351,9 +414,13 @@ describe('README TypeScript examples run against the SDK sources and give the st
   });
 
   it('packages/sdk/README.md lists every "exports" subpath of packages/sdk/package.json', () => {
-    const manifest = JSON.parse(readFileSync(join(ROOT, 'packages/sdk/package.json'), 'utf8')) as { exports: Record<string, unknown> };
+    const manifest = JSON.parse(readFileSync(join(ROOT, 'packages/sdk/package.json'), 'utf8')) as {
+      exports: Record<string, unknown>;
+    };
     const readme = readFileSync(join(ROOT, 'packages/sdk/README.md'), 'utf8');
-    const missing = Object.keys(manifest.exports).map((k) => `\`@tauline/sdk${k.slice(1)}\``).filter((name) => !readme.includes(`| ${name} |`));
+    const missing = Object.keys(manifest.exports)
+      .map((k) => `\`@tauline/sdk${k.slice(1)}\``)
+      .filter((name) => !readme.includes(`| ${name} |`));
     expect(missing).toEqual([]);
   });
 
@@ -368,7 +435,10 @@ describe('README TypeScript examples run against the SDK sources and give the st
       return;
     }
     it(`${title} runs and every "// →" line holds`, async () => {
-      expect(foreign, `imports other than @tauline/sdk and node: — mark the block <!-- doctest: skip (reason) -->`).toEqual([]);
+      expect(
+        foreign,
+        `imports other than @tauline/sdk and node: — mark the block <!-- doctest: skip (reason) -->`,
+      ).toEqual([]);
       expect(await runBlock(block, index)).toEqual([]);
     });
   });
@@ -377,13 +447,28 @@ describe('README TypeScript examples run against the SDK sources and give the st
 describe('README CLI examples through the built binary print the lines shown', () => {
   let runs: Promise<CliRun>[] = [];
   beforeAll(() => {
-    if (!existsSync(join(ROOT, 'packages/cli/dist/main.js'))) throw new Error('the CLI is not built: run `npm run build` first');
-    runs = limited(examples.map((e) => () => runCli(e.argv)), 4);
+    if (!existsSync(join(ROOT, 'packages/cli/dist/main.js')))
+      throw new Error('the CLI is not built: run `npm run build` first');
+    runs = limited(
+      examples.map((e) => () => runCli(e.argv)),
+      4,
+    );
   });
 
   it('the documents hold CLI examples (CLI README: one per command)', () => {
     const commands = new Set(examples.filter((e) => e.block.file === 'packages/cli/README.md').map((e) => e.argv[0]));
-    for (const c of ['rate', 'periodic', 'propertime', 'broadcast', 'precise', 'stability', 'clock', 'plan', 'simulate', 'review']) {
+    for (const c of [
+      'rate',
+      'periodic',
+      'propertime',
+      'broadcast',
+      'precise',
+      'stability',
+      'clock',
+      'plan',
+      'simulate',
+      'review',
+    ]) {
       expect(commands, `no example of tauline ${c} in packages/cli/README.md`).toContain(c);
     }
   });

@@ -8,10 +8,14 @@
  * 45.7884), i.e. the SDK must reproduce every printed digit.
  */
 import { describe, expect, it } from 'vitest';
-import { instantaneousClockRate, meanClockRate, rateChangeForSemiMajorAxisChange } from '../../packages/sdk/src/relativity/index.js';
-import { offsetFrequency } from '../../packages/sdk/src/oscillator/index.js';
-import { orbitalPeriod } from '../../packages/sdk/src/orbit/index.js';
 import { IERS_2010 } from '../../packages/sdk/src/constants.js';
+import { orbitalPeriod } from '../../packages/sdk/src/orbit/index.js';
+import { offsetFrequency } from '../../packages/sdk/src/oscillator/index.js';
+import {
+  instantaneousClockRate,
+  meanClockRate,
+  rateChangeForSemiMajorAxisChange,
+} from '../../packages/sdk/src/relativity/index.js';
 
 const DAY = 86_400;
 const MICROSECONDS_PER_DAY = 1e-6 / DAY; // fractional rate of 1 µs/day
@@ -28,8 +32,10 @@ describe('Ashby 2003 (Living Reviews §5) split of the GPS clock rate, vs the ge
   it('meanClockRate(26 561 750 m).microsecondsPerDay is the net +38.5753 µs/day (satellite clock fast)', () => {
     expect(Math.abs(r.microsecondsPerDay - 38.5753)).toBeLessThanOrEqual(0.00005);
   });
-  it('Ashby\'s printed 3GM/(2ac²) = 2.5046e-10 and Φ₀/c² = −6.9693e-10, sum −4.4647e-10 [M; matches C]', () => {
-    expect(Math.abs(-meanClockRate(GPS_A, { reference: 'tcg' }).fractionalRate - 2.5046e-10)).toBeLessThanOrEqual(0.00005e-10);
+  it("Ashby's printed 3GM/(2ac²) = 2.5046e-10 and Φ₀/c² = −6.9693e-10, sum −4.4647e-10 [M; matches C]", () => {
+    expect(Math.abs(-meanClockRate(GPS_A, { reference: 'tcg' }).fractionalRate - 2.5046e-10)).toBeLessThanOrEqual(
+      0.00005e-10,
+    );
     expect(Math.abs(IERS_2010.lG - 6.9693e-10)).toBeLessThanOrEqual(0.00005e-10);
     expect(Math.abs(r.factoryOffset - -4.4647e-10)).toBeLessThanOrEqual(0.00005e-10);
   });
@@ -47,10 +53,12 @@ describe('Ashby 2003 split vs an equatorial ground clock on a point-mass Earth (
   const groundVelocity = -(omegaR ** 2) / 2 / c2;
 
   it('Ω_E·R is 465.10 m/s', () => {
-    expect(Math.abs(omegaR - 465.10)).toBeLessThanOrEqual(0.005);
+    expect(Math.abs(omegaR - 465.1)).toBeLessThanOrEqual(0.005);
   });
   it('gravitational +45.6519, velocity −7.1091, net +38.5427 µs/day', () => {
-    expect(Math.abs((sat.gravitational - groundGravitational) / MICROSECONDS_PER_DAY - 45.6519)).toBeLessThanOrEqual(0.00005);
+    expect(Math.abs((sat.gravitational - groundGravitational) / MICROSECONDS_PER_DAY - 45.6519)).toBeLessThanOrEqual(
+      0.00005,
+    );
     expect(Math.abs((sat.velocity - groundVelocity) / MICROSECONDS_PER_DAY - -7.1091)).toBeLessThanOrEqual(0.00005);
     expect(Math.abs((sat.fractionalRate - ground) / MICROSECONDS_PER_DAY - 38.5427)).toBeLessThanOrEqual(0.00005);
   });
@@ -91,14 +99,16 @@ describe('Per-system nominal constant offsets (circular orbits, IERS GM and L_G)
     // physics-refs prints 5.391519e-10 here; recomputing its own formula and inputs in Python gives
     // 5.39151988e-10, which rounds to 5.391520e-10 (the sheet truncated the last digit). We check the
     // correctly rounded value; the other columns of the row agree as printed.
-    ['GEO / IGSO / QZO', 42_164.2, 5.391520e-10, 46.583, -5.5155, 23.934],
+    ['GEO / IGSO / QZO', 42_164.2, 5.39152e-10, 46.583, -5.5155, 23.934],
   ];
   for (const [system, aKm, rate, usPerDay, shiftMilliHz, periodHours] of rows) {
     it(`meanClockRate(${aKm} km) for ${system}: ${rate}, ${usPerDay} µs/day, ${shiftMilliHz} mHz at 10.23 MHz, period ${periodHours} h`, () => {
       const r = meanClockRate(aKm * 1000);
       expect(Math.abs(r.fractionalRate - rate)).toBeLessThanOrEqual(0.5e-16);
       expect(Math.abs(r.microsecondsPerDay - usPerDay)).toBeLessThanOrEqual(0.0005);
-      expect(Math.abs(offsetFrequency(10.23e6, r.factoryOffset).offsetHz * 1e3 - shiftMilliHz)).toBeLessThanOrEqual(0.00005);
+      expect(Math.abs(offsetFrequency(10.23e6, r.factoryOffset).offsetHz * 1e3 - shiftMilliHz)).toBeLessThanOrEqual(
+        0.00005,
+      );
       expect(Math.abs(orbitalPeriod(aKm * 1000, IERS_2010.gm) / 3600 - periodHours)).toBeLessThanOrEqual(0.0005);
     });
   }

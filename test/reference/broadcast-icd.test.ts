@@ -5,13 +5,17 @@
  * (test/fixtures/sp3/generate.py [C]). The algorithm text itself is IS-GPS-200 from memory [M], its first
  * sentences confirmed by a verbatim quotation [V2].
  */
-import { describe, expect, it } from 'vitest';
+
 import { readFileSync } from 'node:fs';
-import { evaluateBroadcastEphemeris, type KeplerianBroadcastEphemeris } from '../../packages/sdk/src/orbit/broadcast.js';
-import { signalClockCorrection } from '../../packages/sdk/src/orbit/signal-clock.js';
+import { describe, expect, it } from 'vitest';
 import { parseRinexNav } from '../../packages/sdk/src/io/rinex-nav.js';
 import { parseSp3 } from '../../packages/sdk/src/io/sp3.js';
-import { PreciseCorrectionStream, type PreciseCorrectionResult } from '../../packages/sdk/src/relativity/precise.js';
+import {
+  evaluateBroadcastEphemeris,
+  type KeplerianBroadcastEphemeris,
+} from '../../packages/sdk/src/orbit/broadcast.js';
+import { signalClockCorrection } from '../../packages/sdk/src/orbit/signal-clock.js';
+import { type PreciseCorrectionResult, PreciseCorrectionStream } from '../../packages/sdk/src/relativity/precise.js';
 import { scaleSecondsFromInstant } from '../../packages/sdk/src/time/file-epochs.js';
 
 const NANOSECOND = 1e-9;
@@ -20,10 +24,33 @@ const fixture = (path: string) => readFileSync(new URL(`../fixtures/${path}`, im
 
 function gpsRecord(overrides: Partial<KeplerianBroadcastEphemeris>): KeplerianBroadcastEphemeris {
   return {
-    satellite: 'G01', system: 'G', message: 'LNAV', tocSeconds: WEEK_2296, toeSeconds: WEEK_2296, af0: 0, af1: 0, af2: 0,
-    issueOfData: 1, sqrtA: 5153.79589081, eccentricity: 0.0123456789, m0: 0, deltaN: 0, omega0: 0.5, i0: 0.96,
-    argumentOfPerigee: 0.3, omegaDot: 0, idot: 0, cuc: 0, cus: 0, cic: 0, cis: 0, crc: 0, crs: 0, health: 0,
-    fitIntervalSeconds: 14400, ...overrides,
+    satellite: 'G01',
+    system: 'G',
+    message: 'LNAV',
+    tocSeconds: WEEK_2296,
+    toeSeconds: WEEK_2296,
+    af0: 0,
+    af1: 0,
+    af2: 0,
+    issueOfData: 1,
+    sqrtA: 5153.79589081,
+    eccentricity: 0.0123456789,
+    m0: 0,
+    deltaN: 0,
+    omega0: 0.5,
+    i0: 0.96,
+    argumentOfPerigee: 0.3,
+    omegaDot: 0,
+    idot: 0,
+    cuc: 0,
+    cus: 0,
+    cic: 0,
+    cis: 0,
+    crc: 0,
+    crs: 0,
+    health: 0,
+    fitIntervalSeconds: 14400,
+    ...overrides,
   };
 }
 
@@ -46,7 +73,14 @@ describe('IS-GPS-200 §20.3.3.3.3.1 user algorithm: physics-refs.md §3 check va
   });
 
   it('signalClockCorrection(T_GD = −1.0e-8 s, L1CA and L1P) gives (Δt_sv)_L1 = Δt_sv − T_GD = 1.000222260052238e-04 s (IS-GPS-200 §20.3.3.3.3.2 [M]; physics-refs §3 [C])', () => {
-    const withClock = { ...eph, af0: 1e-4, af1: 1e-11, af2: 1e-18, tocSeconds: eph.toeSeconds - 3600, groupDelays: { TGD: -1.0e-8 } };
+    const withClock = {
+      ...eph,
+      af0: 1e-4,
+      af1: 1e-11,
+      af2: 1e-18,
+      tocSeconds: eph.toeSeconds - 3600,
+      groupDelays: { TGD: -1.0e-8 },
+    };
     const ev = evaluateBroadcastEphemeris(withClock, withClock.toeSeconds);
     for (const signal of ['L1CA', 'L1P'] as const) {
       const l1 = signalClockCorrection(withClock, ev.clockCorrectionSeconds, signal);
@@ -68,20 +102,37 @@ describe('IS-GPS-200 §20.3.3.3.3.1 user algorithm: physics-refs.md §3 check va
 describe('IERS Conventions (2010) §10.2 eq. 10.10: amplitude 2√(GM a)·e/c², physics-refs.md §4 check values [C]', () => {
   it('evaluateBroadcastEphemeris(Galileo record, a = 26 561 750 m, e = 0.02, E_k = π/2) gives |Δt_r| = 45.7948 ns (IERS "up to 46 ns")', () => {
     const e = 0.02;
-    const eph = gpsRecord({ system: 'E', satellite: 'E01', message: 'INAV', sqrtA: Math.sqrt(26_561_750), eccentricity: e, m0: Math.PI / 2 - e });
+    const eph = gpsRecord({
+      system: 'E',
+      satellite: 'E01',
+      message: 'INAV',
+      sqrtA: Math.sqrt(26_561_750),
+      eccentricity: e,
+      m0: Math.PI / 2 - e,
+    });
     const ev = evaluateBroadcastEphemeris(eph, eph.toeSeconds);
     expect(Math.abs(-ev.relativisticSeconds / NANOSECOND - 45.7948)).toBeLessThan(5e-5); // half a unit in the last printed digit
   });
   it('evaluateBroadcastEphemeris(Galileo record, e = 0.01) peaks at 22.8974 ns ("≈23 ns for e = 0.01")', () => {
-    const eph = gpsRecord({ system: 'E', satellite: 'E01', message: 'INAV', sqrtA: Math.sqrt(26_561_750), eccentricity: 0.01, m0: Math.PI / 2 - 0.01 });
-    expect(Math.abs(-evaluateBroadcastEphemeris(eph, eph.toeSeconds).relativisticSeconds / NANOSECOND - 22.8974)).toBeLessThan(5e-5);
+    const eph = gpsRecord({
+      system: 'E',
+      satellite: 'E01',
+      message: 'INAV',
+      sqrtA: Math.sqrt(26_561_750),
+      eccentricity: 0.01,
+      m0: Math.PI / 2 - 0.01,
+    });
+    expect(
+      Math.abs(-evaluateBroadcastEphemeris(eph, eph.toeSeconds).relativisticSeconds / NANOSECOND - 22.8974),
+    ).toBeLessThan(5e-5);
   });
 });
 
 describe('Independent implementation: test/fixtures/sp3/generate.py evaluates the same RINEX 3.05 records (rotation-matrix form, numerical velocity) [C]', () => {
   const nav = parseRinexNav(fixture('rinex-nav/mixed-v305.rnx'));
   const sp3 = parseSp3(fixture('sp3/orbit-c-pv.sp3'));
-  const pick = (sat: string) => nav.ephemerides.find((e) => e.satellite === sat && (e.system !== 'E' || e.message === 'INAV'))!;
+  const pick = (sat: string) =>
+    nav.ephemerides.find((e) => e.satellite === sat && (e.system !== 'E' || e.message === 'INAV'))!;
 
   it('evaluateBroadcastEphemeris(G05, E11, C08 records) reproduces the SP3 positions to 1 mm and velocities to 1e-5 m/s (C08 at BDT = GPST − 14 s)', () => {
     let worstPosition = 0;
@@ -108,7 +159,7 @@ describe('Independent implementation: test/fixtures/sp3/generate.py evaluates th
     expect(worstVelocity).toBeLessThan(1e-5);
   });
 
-  it('PreciseCorrectionStream(SP3 with velocities) and the broadcast Δt_r of the same records agree within 0.05 ns (difference = the harmonic corrections\' share of r·v)', () => {
+  it("PreciseCorrectionStream(SP3 with velocities) and the broadcast Δt_r of the same records agree within 0.05 ns (difference = the harmonic corrections' share of r·v)", () => {
     const stream = new PreciseCorrectionStream({ epochInterval: sp3.header.epochInterval });
     const results: PreciseCorrectionResult[] = [];
     for (const epoch of sp3.epochs) results.push(...stream.push(epoch));
@@ -119,7 +170,10 @@ describe('Independent implementation: test/fixtures/sp3/generate.py evaluates th
       if (r.kind !== 'sample') continue;
       const eph = pick(r.sample.satellite);
       const t = scaleSecondsFromInstant(r.sample.epoch, 'GPS') - (eph.system === 'C' ? 14 : 0);
-      worst = Math.max(worst, Math.abs(r.sample.relativisticSeconds - evaluateBroadcastEphemeris(eph, t).relativisticSeconds));
+      worst = Math.max(
+        worst,
+        Math.abs(r.sample.relativisticSeconds - evaluateBroadcastEphemeris(eph, t).relativisticSeconds),
+      );
       n++;
     }
     expect(n).toBe(11);

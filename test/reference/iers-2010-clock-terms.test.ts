@@ -5,12 +5,21 @@
  * Tolerances: half a unit in the last printed digit of each value, unless stated beside the check.
  */
 import { describe, expect, it } from 'vitest';
+import { IERS_2010 } from '../../packages/sdk/src/constants.js';
 import {
-  instantaneousClockRate, meanClockRate, periodicAmplitude, periodicCorrectionFromElements, periodicCorrectionFromState,
+  type KeplerianElements,
+  orbitalPeriod,
+  propagateKeplerState,
+  solveKepler,
+} from '../../packages/sdk/src/orbit/index.js';
+import {
+  instantaneousClockRate,
+  meanClockRate,
+  periodicAmplitude,
+  periodicCorrectionFromElements,
+  periodicCorrectionFromState,
   semiMajorAxisForMeanRate,
 } from '../../packages/sdk/src/relativity/index.js';
-import { orbitalPeriod, propagateKeplerState, solveKepler, type KeplerianElements } from '../../packages/sdk/src/orbit/index.js';
-import { IERS_2010 } from '../../packages/sdk/src/constants.js';
 
 const METRE = 1;
 const NANOSECOND = 1e-9;
@@ -56,7 +65,14 @@ describe('IERS Conventions (2010) §10.2 eqs. 10.10–10.11: periodic term [V1]'
 
   it('eq. 10.9 integrated along a Kepler orbit equals the mean rate times t plus the eq. 10.10/10.11 term (independent Simpson quadrature; physics-refs §4 [C])', () => {
     // physics-refs §4 did this with DOP853 in Python: (τ − t) − (−2r·v/c²) linear to 1.6e-19 s, slope −3GM/(2ac²).
-    const el: KeplerianElements = { semiMajorAxis: GPS_A, eccentricity: 0.02, inclination: (55 * Math.PI) / 180, raan: 0.4, argumentOfPerigee: 1.3, meanAnomaly: 0.2 };
+    const el: KeplerianElements = {
+      semiMajorAxis: GPS_A,
+      eccentricity: 0.02,
+      inclination: (55 * Math.PI) / 180,
+      raan: 0.4,
+      argumentOfPerigee: 1.3,
+      meanAnomaly: 0.2,
+    };
     const gm = IERS_2010.gm;
     const P = orbitalPeriod(GPS_A, gm);
     const mean = meanClockRate(GPS_A, { reference: 'tcg' }).fractionalRate;
@@ -68,7 +84,8 @@ describe('IERS Conventions (2010) §10.2 eqs. 10.10–10.11: periodic term [V1]'
     let worst = 0;
     let fPrev = f(0);
     for (let k = 0; k < steps; k += 2) {
-      const fMid = f((k + 1) * h), fEnd = f((k + 2) * h);
+      const fMid = f((k + 1) * h),
+        fEnd = f((k + 2) * h);
       integral += (h / 3) * (fPrev + 4 * fMid + fEnd);
       fPrev = fEnd;
       const t = (k + 2) * h;
@@ -78,7 +95,9 @@ describe('IERS Conventions (2010) §10.2 eqs. 10.10–10.11: periodic term [V1]'
     expect(worst).toBeLessThan(1e-15); // 1 fs over one 12-h orbit: a loose bound on the quadrature error of Simpson's rule at h = P/4000
     // Peak |−2 r·v/c²| over the orbit is the amplitude, 45.7948 ns (physics-refs §4 [C]).
     const Epeak = Math.PI / 2;
-    expect(Math.abs(periodicCorrectionFromElements(GPS_A, 0.02, Epeak) + 45.7948 * NANOSECOND)).toBeLessThanOrEqual(0.00005 * NANOSECOND);
+    expect(Math.abs(periodicCorrectionFromElements(GPS_A, 0.02, Epeak) + 45.7948 * NANOSECOND)).toBeLessThanOrEqual(
+      0.00005 * NANOSECOND,
+    );
     expect(solveKepler(Epeak - 0.02, 0.02)).toBeCloseTo(Epeak, 15);
   });
 });

@@ -5,16 +5,26 @@
  * double precision (reference sheet §2, §4, §7, [C]).
  */
 import { describe, expect, it } from 'vitest';
-import { integrateProperTime } from '../../packages/sdk/src/relativity/proper-time.js';
-import { createGravityField } from '../../packages/sdk/src/orbit/forces.js';
-import { instantFromTtSecondsSinceJ2000 } from '../../packages/sdk/src/time/j2000.js';
-import { elementsToState } from '../../packages/sdk/src/orbit/elements.js';
-import { shapiroDelay } from '../../packages/sdk/src/signal/index.js';
 import { IERS_2010, L_G, SPEED_OF_LIGHT, SPEED_OF_LIGHT_SQUARED } from '../../packages/sdk/src/constants.js';
+import { elementsToState } from '../../packages/sdk/src/orbit/elements.js';
+import { createGravityField } from '../../packages/sdk/src/orbit/forces.js';
+import { integrateProperTime } from '../../packages/sdk/src/relativity/proper-time.js';
+import { shapiroDelay } from '../../packages/sdk/src/signal/index.js';
+import { instantFromTtSecondsSinceJ2000 } from '../../packages/sdk/src/time/j2000.js';
 
 const GM = IERS_2010.gm;
 const A = 26_561_750;
-const state = elementsToState({ semiMajorAxis: A, eccentricity: 0.02, inclination: (55 * Math.PI) / 180, raan: 0.4, argumentOfPerigee: 0.9, meanAnomaly: 0 }, GM);
+const state = elementsToState(
+  {
+    semiMajorAxis: A,
+    eccentricity: 0.02,
+    inclination: (55 * Math.PI) / 180,
+    raan: 0.4,
+    argumentOfPerigee: 0.9,
+    meanAnomaly: 0,
+  },
+  GM,
+);
 
 describe('IERS Conventions (2010) §10.2: eq. 10.9 integrated along a Kepler orbit (a = 26 561 750 m, e = 0.02, i = 55°, 1 day)', () => {
   const run = integrateProperTime(state, 86_400, 60, { model: 'point-mass', relativeTolerance: 1e-13 });
@@ -54,7 +64,11 @@ describe('IERS Conventions (2010) §10.2: eq. 10.9 integrated along a Kepler orb
     for (let k = 0; k < r.t.length; k++) {
       const s = r.states.subarray(6 * k, 6 * k + 3);
       const t = r.t[k]!;
-      worst = Math.max(worst, Math.abs(full.potential(t, s[0]!, s[1]!, s[2]!) - j2.potential(t, s[0]!, s[1]!, s[2]!)) / SPEED_OF_LIGHT_SQUARED);
+      worst = Math.max(
+        worst,
+        Math.abs(full.potential(t, s[0]!, s[1]!, s[2]!) - j2.potential(t, s[0]!, s[1]!, s[2]!)) /
+          SPEED_OF_LIGHT_SQUARED,
+      );
     }
     expect(worst).toBeGreaterThan(1e-16);
     expect(worst).toBeLessThan(1e-15);
@@ -63,7 +77,7 @@ describe('IERS Conventions (2010) §10.2: eq. 10.9 integrated along a Kepler orb
 
 describe('IERS Conventions (2010) §11.2 eq. 11.17: Shapiro delay, "the only body to be considered is the Earth" [V1]', () => {
   it('2GM/c³ = 2.958732e-11 s (8.8701 mm) and shapiroDelay for GPS at zenith is 42.242 ps (reference sheet §7 [C])', () => {
-    expect(((2 * GM) / SPEED_OF_LIGHT ** 3) / 2.958732e-11).toBeCloseTo(1, 6);
+    expect((2 * GM) / SPEED_OF_LIGHT ** 3 / 2.958732e-11).toBeCloseTo(1, 6);
     expect(shapiroDelay(A, 6_371_000, A - 6_371_000) * 1e12).toBeCloseTo(42.242, 3);
   });
 });

@@ -5,12 +5,14 @@
  * (physics-refs.md) §3, §13. Tolerances: half a unit in the last printed digit unless stated.
  */
 import { describe, expect, it } from 'vitest';
+import { GPS_ICD, IERS_2010 } from '../../packages/sdk/src/constants.js';
+import { elementsToState } from '../../packages/sdk/src/orbit/index.js';
 import { offsetFrequency } from '../../packages/sdk/src/oscillator/index.js';
 import {
-  periodicCorrectionAtMeanAnomaly, periodicCorrectionFromElements, periodicCorrectionFromState,
+  periodicCorrectionAtMeanAnomaly,
+  periodicCorrectionFromElements,
+  periodicCorrectionFromState,
 } from '../../packages/sdk/src/relativity/index.js';
-import { elementsToState } from '../../packages/sdk/src/orbit/index.js';
-import { GPS_ICD, IERS_2010 } from '../../packages/sdk/src/constants.js';
 
 const HZ = 1;
 const SECOND = 1;
@@ -29,7 +31,9 @@ describe('IS-GPS-200E §3.3.1.1 factory offset (verbatim quotation, time-nuts li
   });
 
   it('offsetFrequency(1575.42 MHz, −4.4647e-10).offsetHz is −0.703378 Hz on L1 [C]', () => {
-    expect(Math.abs(offsetFrequency(1575.42e6, -4.4647e-10).offsetHz - -0.703378 * HZ)).toBeLessThanOrEqual(0.5e-6 * HZ);
+    expect(Math.abs(offsetFrequency(1575.42e6, -4.4647e-10).offsetHz - -0.703378 * HZ)).toBeLessThanOrEqual(
+      0.5e-6 * HZ,
+    );
   });
 
   it('offsetFrequency does not reproduce the published typo 10.229 999 999 543 MHz (physics-refs §13 pitfall 5)', () => {
@@ -62,10 +66,22 @@ describe('IS-GPS-200 §20.3.3.3.3.1 periodic correction Δt_r = F·e·√A·sin 
 
   it('periodicCorrectionFromState(state) = −2 R·V/c² on the same orbit equals the element form to all printed digits (ICD "equivalent expression" [V2]; IERS 2010 eq. 10.11 [V1])', () => {
     // Any orientation: r·v does not depend on i, Ω, ω.
-    for (const [i, raan, w] of [[0.96, 0.5, 0.3], [0, 0, 0], [Math.PI / 2, 4, 5]] as const) {
-      const state = elementsToState({
-        semiMajorAxis: sqrtA * sqrtA, eccentricity: e, inclination: i, raan, argumentOfPerigee: w, meanAnomaly: 1 - e * Math.sin(1),
-      }, GPS_ICD.gm);
+    for (const [i, raan, w] of [
+      [0.96, 0.5, 0.3],
+      [0, 0, 0],
+      [Math.PI / 2, 4, 5],
+    ] as const) {
+      const state = elementsToState(
+        {
+          semiMajorAxis: sqrtA * sqrtA,
+          eccentricity: e,
+          inclination: i,
+          raan,
+          argumentOfPerigee: w,
+          meanAnomaly: 1 - e * Math.sin(1),
+        },
+        GPS_ICD.gm,
+      );
       expect(Math.abs(periodicCorrectionFromState(state) - CHECK)).toBeLessThanOrEqual(0.5e-20 * SECOND);
     }
   });

@@ -15,13 +15,16 @@
  * the previous osculating-element formula erred by 1.1e-15 at LEO.
  */
 import { describe, expect, it } from 'vitest';
-import { integrateProperTime } from '../../packages/sdk/src/relativity/proper-time.js';
-import {
-  inclinationAndArgumentOfLatitude, J2_ANALYTIC_MIN_PERIGEE_RADIUS, j2SecularClockRate, j2SecularClockRateFromState,
-} from '../../packages/sdk/src/relativity/j2.js';
+import { IERS_2010, SPEED_OF_LIGHT_SQUARED } from '../../packages/sdk/src/constants.js';
 import { OutOfDomainError } from '../../packages/sdk/src/errors.js';
 import { elementsToState } from '../../packages/sdk/src/orbit/elements.js';
-import { IERS_2010, SPEED_OF_LIGHT_SQUARED } from '../../packages/sdk/src/constants.js';
+import {
+  inclinationAndArgumentOfLatitude,
+  J2_ANALYTIC_MIN_PERIGEE_RADIUS,
+  j2SecularClockRate,
+  j2SecularClockRateFromState,
+} from '../../packages/sdk/src/relativity/j2.js';
+import { integrateProperTime } from '../../packages/sdk/src/relativity/proper-time.js';
 import { leastSquaresFit } from './least-squares.js';
 
 const DEG = Math.PI / 180;
@@ -29,8 +32,13 @@ const C = IERS_2010;
 /** Documented accuracy of j2SecularClockRateFromState against the integrator (J2 model). */
 const TOLERANCE = 1e-18;
 
-
-interface Case { name: string; a: number; e: number; incDeg: number; orbits: number }
+interface Case {
+  name: string;
+  a: number;
+  e: number;
+  incDeg: number;
+  orbits: number;
+}
 const CASES: Case[] = [
   { name: 'LEO 7000 km, 51.6°', a: 7_000_000, e: 0, incDeg: 51.6, orbits: 40 },
   { name: 'sun-synchronous 7078 km, 98.2°', a: 7_078_000, e: 0.001, incDeg: 98.2, orbits: 40 },
@@ -41,8 +49,17 @@ const CASES: Case[] = [
 
 /** Integrates the case and returns the fitted slopes (full and first half of the span) and the time-averaged osculating a, e, i. */
 function reference(c: Case) {
-  const start = elementsToState({ semiMajorAxis: c.a, eccentricity: c.e, inclination: c.incDeg * DEG, raan: 0.3,
-    argumentOfPerigee: 270 * DEG, meanAnomaly: 0.7 }, C.gm);
+  const start = elementsToState(
+    {
+      semiMajorAxis: c.a,
+      eccentricity: c.e,
+      inclination: c.incDeg * DEG,
+      raan: 0.3,
+      argumentOfPerigee: 270 * DEG,
+      meanAnomaly: 0.7,
+    },
+    C.gm,
+  );
   const period = 2 * Math.PI * Math.sqrt(c.a ** 3 / C.gm);
   const span = c.orbits * period;
   const run = integrateProperTime(start, span, period / 50, { model: 'j2', relativeTolerance: 1e-13 });
@@ -63,7 +80,10 @@ function reference(c: Case) {
     const r = Math.hypot(s[0]!, s[1]!, s[2]!);
     const v2 = s[3]! ** 2 + s[4]! ** 2 + s[5]! ** 2;
     const aOsc = 1 / (2 / r - v2 / C.gm);
-    const h2 = (s[1]! * s[5]! - s[2]! * s[4]!) ** 2 + (s[2]! * s[3]! - s[0]! * s[5]!) ** 2 + (s[0]! * s[4]! - s[1]! * s[3]!) ** 2;
+    const h2 =
+      (s[1]! * s[5]! - s[2]! * s[4]!) ** 2 +
+      (s[2]! * s[3]! - s[0]! * s[5]!) ** 2 +
+      (s[0]! * s[4]! - s[1]! * s[3]!) ** 2;
     if (k < run.t.length - 1) {
       aSum += aOsc;
       eSum += Math.sqrt(Math.max(0, 1 - h2 / (C.gm * aOsc)));
@@ -76,7 +96,9 @@ function reference(c: Case) {
     start,
     slope: leastSquaresFit(rows, y)[1]! / span,
     halfSlope: leastSquaresFit(rows.slice(0, halfN), y.slice(0, halfN))[1]! / span,
-    meanA: aSum / n, meanE: eSum / n, meanInc: iSum / n,
+    meanA: aSum / n,
+    meanE: eSum / n,
+    meanInc: iSum / n,
   };
 }
 
@@ -85,7 +107,10 @@ describe('J2 secular clock rate against the long-run slope of the integrated pro
     const ref = reference(c);
     const fromState = j2SecularClockRateFromState(ref.start, { constants: C }).fractionalRate;
     // the first-order averaged formula itself (what j2SecularClockRate(mean) evaluates), for the record below 25 000 km
-    const meanU = -(C.gm * C.j2 * C.equatorialRadius ** 2) / (2 * ref.meanA ** 3) * (1 - ref.meanE ** 2) ** -1.5 * (1.5 * Math.sin(ref.meanInc) ** 2 - 1);
+    const meanU =
+      (-(C.gm * C.j2 * C.equatorialRadius ** 2) / (2 * ref.meanA ** 3)) *
+      (1 - ref.meanE ** 2) ** -1.5 *
+      (1.5 * Math.sin(ref.meanInc) ** 2 - 1);
     const mean = C.lG - (1.5 * C.gm) / (ref.meanA * SPEED_OF_LIGHT_SQUARED) - (7 * meanU) / SPEED_OF_LIGHT_SQUARED;
     return { c, ref, fromStateError: fromState - ref.slope, meanError: mean - ref.slope };
   });
@@ -113,11 +138,17 @@ describe('J2 secular clock rate against the long-run slope of the integrated pro
     { name: 'edge 25 100 km, 63.4°', a: 25_100_000, e: 0, incDeg: 63.4, orbits: 20 },
     { name: 'edge 25 100 km, 98.2°', a: 25_100_000, e: 0, incDeg: 98.2, orbits: 20 },
   ];
-  const meanResults = [...results.filter((r) => r.c.a * (1 - r.c.e) >= J2_ANALYTIC_MIN_PERIGEE_RADIUS), ...edgeCases.map((c) => {
-    const ref = reference(c);
-    const mean = j2SecularClockRate({ semiMajorAxis: ref.meanA, eccentricity: ref.meanE, inclination: ref.meanInc, semiMajorAxisKind: 'mean' }, { constants: C }).fractionalRate;
-    return { c, ref, meanError: mean - ref.slope };
-  })];
+  const meanResults = [
+    ...results.filter((r) => r.c.a * (1 - r.c.e) >= J2_ANALYTIC_MIN_PERIGEE_RADIUS),
+    ...edgeCases.map((c) => {
+      const ref = reference(c);
+      const mean = j2SecularClockRate(
+        { semiMajorAxis: ref.meanA, eccentricity: ref.meanE, inclination: ref.meanInc, semiMajorAxisKind: 'mean' },
+        { constants: C },
+      ).fractionalRate;
+      return { c, ref, meanError: mean - ref.slope };
+    }),
+  ];
   for (const r of meanResults) {
     it(`j2SecularClockRate(mean, time-averaged a, e, i) for ${r.c.name} matches the fitted slope to < 1e-17 (error ${r.meanError.toExponential(1)})`, () => {
       expect(Math.abs(r.meanError)).toBeLessThan(1e-17);
@@ -125,8 +156,17 @@ describe('J2 secular clock rate against the long-run slope of the integrated pro
   }
   for (const r of results.filter((x) => x.c.a * (1 - x.c.e) < J2_ANALYTIC_MIN_PERIGEE_RADIUS)) {
     it(`j2SecularClockRate refuses ${r.c.name} (perigee below 25 000 km, where its error was ${r.meanError.toExponential(1)}) with OutOfDomainError`, () => {
-      expect(() => j2SecularClockRate({ semiMajorAxis: r.ref.meanA, eccentricity: r.ref.meanE, inclination: r.ref.meanInc, semiMajorAxisKind: 'mean' }, { constants: C }))
-        .toThrow(OutOfDomainError);
+      expect(() =>
+        j2SecularClockRate(
+          {
+            semiMajorAxis: r.ref.meanA,
+            eccentricity: r.ref.meanE,
+            inclination: r.ref.meanInc,
+            semiMajorAxisKind: 'mean',
+          },
+          { constants: C },
+        ),
+      ).toThrow(OutOfDomainError);
     });
   }
 });

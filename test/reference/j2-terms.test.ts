@@ -9,25 +9,34 @@
  * (the table gives 3 significant digits, the fit coefficient 5); the 1e-17 rate bounds are ≈ 0.1 % of the J2 effect.
  */
 import { describe, expect, it } from 'vitest';
-import { integrateProperTime } from '../../packages/sdk/src/relativity/proper-time.js';
+import { defineConstantSet, SPEED_OF_LIGHT_SQUARED } from '../../packages/sdk/src/constants.js';
+import { elementsToState } from '../../packages/sdk/src/orbit/elements.js';
 import {
-  inclinationAndArgumentOfLatitude, j2PeriodicAmplitudes, j2SecularClockRate, j2SecularClockRateFromState,
+  inclinationAndArgumentOfLatitude,
+  j2PeriodicAmplitudes,
+  j2SecularClockRate,
+  j2SecularClockRateFromState,
   osculatingMinusMeanSemiMajorAxis,
 } from '../../packages/sdk/src/relativity/j2.js';
-import { elementsToState } from '../../packages/sdk/src/orbit/elements.js';
-import { defineConstantSet, SPEED_OF_LIGHT_SQUARED } from '../../packages/sdk/src/constants.js';
+import { integrateProperTime } from '../../packages/sdk/src/relativity/proper-time.js';
 import { leastSquaresFit } from './least-squares.js';
 
 const DEG = Math.PI / 180;
 /** The reference sheet's §5 computation uses a_e = 6 378 137 m with the IERS GM and J2. */
-const C = defineConstantSet({ name: 'sheet-s5', equatorialRadius: 6_378_137, sources: { equatorialRadius: 'reference sheet §5 [C]' } });
+const C = defineConstantSet({
+  name: 'sheet-s5',
+  equatorialRadius: 6_378_137,
+  sources: { equatorialRadius: 'reference sheet §5 [C]' },
+});
 const GM = C.gm;
 const A = 26_561_750;
 const INC = 55 * DEG;
 
-
 describe('numerical J2 orbit (a = 26 561 750 m, i = 55°, osculating circular at the node, 2 days) against the analytic J2 terms', () => {
-  const start = elementsToState({ semiMajorAxis: A, eccentricity: 0, inclination: INC, raan: 0, argumentOfPerigee: 0, meanAnomaly: 0 }, GM);
+  const start = elementsToState(
+    { semiMajorAxis: A, eccentricity: 0, inclination: INC, raan: 0, argumentOfPerigee: 0, meanAnomaly: 0 },
+    GM,
+  );
   const run = integrateProperTime(start, 2 * 86_400, 300, { model: 'j2', constants: C });
   const basis4: number[][] = [];
   const basis6: number[][] = [];
@@ -67,7 +76,10 @@ describe('numerical J2 orbit (a = 26 561 750 m, i = 55°, osculating circular at
   it('j2SecularClockRateFromState and j2SecularClockRate(osculating, u = 0) reproduce the fitted rate to < 1e-17', () => {
     const rate = residualFit[1]! / 86_400;
     expect(Math.abs(j2SecularClockRateFromState(start, { constants: C }).fractionalRate - rate)).toBeLessThan(1e-17);
-    const osc = j2SecularClockRate({ semiMajorAxis: A, eccentricity: 0, inclination: INC, semiMajorAxisKind: 'osculating', argumentOfLatitude: 0 }, { constants: C });
+    const osc = j2SecularClockRate(
+      { semiMajorAxis: A, eccentricity: 0, inclination: INC, semiMajorAxisKind: 'osculating', argumentOfLatitude: 0 },
+      { constants: C },
+    );
     expect(Math.abs(osc.fractionalRate - rate)).toBeLessThan(1e-17);
   });
 
@@ -83,7 +95,10 @@ describe('numerical J2 orbit (a = 26 561 750 m, i = 55°, osculating circular at
     }
     const aMean = sum / (n - 1);
     expect((A - aMean) / osculatingMinusMeanSemiMajorAxis(aMean, INC, 0, { constants: C })).toBeCloseTo(1, 2);
-    const mean = j2SecularClockRate({ semiMajorAxis: aMean, eccentricity: 0, inclination: INC, semiMajorAxisKind: 'mean' }, { constants: C });
+    const mean = j2SecularClockRate(
+      { semiMajorAxis: aMean, eccentricity: 0, inclination: INC, semiMajorAxisKind: 'mean' },
+      { constants: C },
+    );
     expect(Math.abs(mean.fractionalRate - residualFit[1]! / 86_400)).toBeLessThan(1e-17);
   });
 });
@@ -98,11 +113,11 @@ describe('J2 amplitude table (reference sheet §5 [C]; J2 = 1.0826359e-3, a_e = 
   for (const [name, a, inc, residualNs, totalNs] of table) {
     it(`j2PeriodicAmplitudes for ${name} gives residual ${residualNs} ns and total ${totalNs} ns`, () => {
       const amp = j2PeriodicAmplitudes(a, inc * DEG, { constants: C });
-      expect(amp.residualAmplitude * 1e9 / residualNs).toBeCloseTo(1, 2);
-      expect(amp.totalAmplitude * 1e9 / totalNs).toBeCloseTo(1, 2);
+      expect((amp.residualAmplitude * 1e9) / residualNs).toBeCloseTo(1, 2);
+      expect((amp.totalAmplitude * 1e9) / totalNs).toBeCloseTo(1, 2);
     });
   }
-  it('j2PeriodicAmplitudes for GPS: frequency amplitude 6.99e-15 [C]; Ashby 2001 PTTI abstract prints 0.695e-14 [V2] (0.6 % apart: Ashby\'s constants not stated)', () => {
+  it("j2PeriodicAmplitudes for GPS: frequency amplitude 6.99e-15 [C]; Ashby 2001 PTTI abstract prints 0.695e-14 [V2] (0.6 % apart: Ashby's constants not stated)", () => {
     const amp = j2PeriodicAmplitudes(A, INC, { constants: C });
     expect(amp.totalFrequencyAmplitude).toBeCloseTo(6.99e-15, 17);
     expect(Math.abs(amp.totalFrequencyAmplitude / 0.695e-14 - 1)).toBeLessThan(0.01);

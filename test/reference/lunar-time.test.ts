@@ -31,7 +31,7 @@ describe('lunar clock rate against TT (reference sheet §9 breakdown [C])', () =
     expect(surface.rateVsTT).toBeCloseTo(6.48169e-10, 15);
   });
 
-  it('lunarClockRate(surface) lies within the spread of the published surface values 56.0005 … 56.0256 µs/day [V2], within 0.025 µs/day of Ashby & Patla\'s 56.02', () => {
+  it("lunarClockRate(surface) lies within the spread of the published surface values 56.0005 … 56.0256 µs/day [V2], within 0.025 µs/day of Ashby & Patla's 56.02", () => {
     expect(surface.microsecondsPerDayVsTT).toBeGreaterThanOrEqual(56.0005);
     expect(surface.microsecondsPerDayVsTT).toBeLessThanOrEqual(56.0256);
     expect(Math.abs(surface.microsecondsPerDayVsTT - 56.02)).toBeLessThan(0.025);

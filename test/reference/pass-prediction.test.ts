@@ -1,20 +1,31 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { predictPasses, type GroundSite, type MeanOrbit } from '../../packages/sdk/src/orbit/index.js';
-import { createTimeScales, BUNDLED_LEAP_SECONDS } from '../../packages/sdk/src/time/index.js';
+import { type GroundSite, type MeanOrbit, predictPasses } from '../../packages/sdk/src/orbit/index.js';
+import { BUNDLED_LEAP_SECONDS, createTimeScales } from '../../packages/sdk/src/time/index.js';
 
-interface Crossing { kind: 'rise' | 'set'; t: number; elevationRateRadPerS: number; rangeM: number; boundSeconds?: number }
+interface Crossing {
+  kind: 'rise' | 'set';
+  t: number;
+  elevationRateRadPerS: number;
+  rangeM: number;
+  boundSeconds?: number;
+}
 interface Fixture {
-  epoch: string; horizonSeconds: number;
+  epoch: string;
+  horizonSeconds: number;
   stations: { id: string; lat: number; lon: number; h: number; mask: number }[];
-  cases: { orbit: { id: string; epoch: string; a: number; e: number; i: number; raan: number; argp: number; M: number };
-    positionDifferenceMaxM: number; stations: { station: string; secular: Crossing[]; fullJ2: Crossing[] }[] }[];
+  cases: {
+    orbit: { id: string; epoch: string; a: number; e: number; i: number; raan: number; argp: number; M: number };
+    positionDifferenceMaxM: number;
+    stations: { station: string; secular: Crossing[]; fullJ2: Crossing[] }[];
+  }[];
 }
 const fixture = JSON.parse(readFileSync(new URL('../fixtures/passes/passes.json', import.meta.url), 'utf8')) as Fixture;
 const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
 const rad = (deg: number): number => (deg * Math.PI) / 180;
 const sites: GroundSite[] = fixture.stations.map((s) => ({
-  position: { latitude: rad(s.lat), longitude: rad(s.lon), height: s.h }, elevationMask: rad(s.mask),
+  position: { latitude: rad(s.lat), longitude: rad(s.lon), height: s.h },
+  elevationMask: rad(s.mask),
 }));
 const epoch = ts.parseIso(fixture.epoch, 'UTC');
 
@@ -28,7 +39,14 @@ describe('Independent pass prediction: secular J2 and full J2 integration in num
     const o = c.orbit;
     const orbit: MeanOrbit = {
       epoch: ts.parseIso(o.epoch, 'UTC'),
-      elements: { semiMajorAxis: o.a, eccentricity: o.e, inclination: rad(o.i), raan: rad(o.raan), argumentOfPerigee: rad(o.argp), meanAnomaly: rad(o.M) },
+      elements: {
+        semiMajorAxis: o.a,
+        eccentricity: o.e,
+        inclination: rad(o.i),
+        raan: rad(o.raan),
+        argumentOfPerigee: rad(o.argp),
+        meanAnomaly: rad(o.M),
+      },
     };
     const prediction = predictPasses(orbit, sites, epoch, fixture.horizonSeconds, { timeScales: ts });
 

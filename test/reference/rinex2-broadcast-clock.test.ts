@@ -6,11 +6,12 @@
  * weeks, two-digit years and fit intervals correctly. Algorithm: IS-GPS-200 §20.3.3.3.3.1 and Table 20-IV [M]
  * (physics-refs §3, first sentences [V2]); file layout: RINEX 2.11 Table A4 [V1].
  */
-import { describe, expect, it } from 'vitest';
+
 import { readFileSync } from 'node:fs';
-import { evaluateBroadcastEphemeris, selectEphemeris } from '../../packages/sdk/src/orbit/broadcast.js';
-import { parseRinexNav } from '../../packages/sdk/src/io/rinex-nav.js';
+import { describe, expect, it } from 'vitest';
 import { scaleSecondsFromFields } from '../../packages/sdk/src/io/line-reader.js';
+import { parseRinexNav } from '../../packages/sdk/src/io/rinex-nav.js';
+import { evaluateBroadcastEphemeris, selectEphemeris } from '../../packages/sdk/src/orbit/broadcast.js';
 
 const SECOND = 1;
 const fixture = (name: string) => readFileSync(new URL(`../fixtures/rinex-nav/${name}`, import.meta.url), 'utf8');
@@ -53,7 +54,14 @@ function gpst(iso: string): number {
   const [d, t] = iso.split('T');
   const [year, month, day] = d!.split('-').map(Number);
   const [hour, minute, second] = t!.split(':').map(Number);
-  return scaleSecondsFromFields({ year: year!, month: month!, day: day!, hour: hour!, minute: minute!, second: second! });
+  return scaleSecondsFromFields({
+    year: year!,
+    month: month!,
+    day: day!,
+    hour: hour!,
+    minute: minute!,
+    second: second!,
+  });
 }
 
 function evaluate(text: string, table: readonly [string, string, number, number][]): number {
@@ -61,7 +69,10 @@ function evaluate(text: string, table: readonly [string, string, number, number]
   let worst = 0;
   for (const [sat, iso, dtr, dtsv] of table) {
     const t = gpst(iso);
-    const eph = selectEphemeris(file.ephemerides.filter((e) => e.satellite === sat), t);
+    const eph = selectEphemeris(
+      file.ephemerides.filter((e) => e.satellite === sat),
+      t,
+    );
     expect(eph, `${sat} ${iso}`).toBeDefined();
     const ev = evaluateBroadcastEphemeris(eph!, t);
     worst = Math.max(worst, Math.abs(ev.relativisticSeconds - dtr), Math.abs(ev.clockCorrectionSeconds - dtsv));
@@ -83,7 +94,13 @@ describe('IS-GPS-200 §20.3.3.3.3.1 clock correction from RINEX 2 files: referen
     for (let k = 0; k <= 11; k++) {
       const t = gpst('2024-01-06T23:00:00') + 1800 * k;
       for (const sat of ['G14', 'G27', 'G03']) {
-        if (selectEphemeris(file.ephemerides.filter((e) => e.satellite === sat), t)) covered.push(`${sat}@${k}`);
+        if (
+          selectEphemeris(
+            file.ephemerides.filter((e) => e.satellite === sat),
+            t,
+          )
+        )
+          covered.push(`${sat}@${k}`);
       }
     }
     const expected = V211.map(([sat, iso]) => `${sat}@${(gpst(iso) - gpst('2024-01-06T23:00:00')) / 1800}`);
@@ -95,8 +112,11 @@ describe('IS-GPS-200 §20.3.3.3.3.1 clock correction from RINEX 2 files: referen
   });
 
   it('parseRinexNav(gps-v304-equivalent.rnx) gives the same records as its RINEX 2.11 twin, so the same corrections', () => {
-    const strip = ({ line: _l, sourceName: _s, ...rest }: ReturnType<typeof parseRinexNav>['ephemerides'][number]) => rest;
-    expect(parseRinexNav(fixture('gps-v304-equivalent.rnx')).ephemerides.map(strip)).toEqual(parseRinexNav(fixture('gps-v211.rnx')).ephemerides.map(strip));
+    const strip = ({ line: _l, sourceName: _s, ...rest }: ReturnType<typeof parseRinexNav>['ephemerides'][number]) =>
+      rest;
+    expect(parseRinexNav(fixture('gps-v304-equivalent.rnx')).ephemerides.map(strip)).toEqual(
+      parseRinexNav(fixture('gps-v211.rnx')).ephemerides.map(strip),
+    );
     expect(evaluate(fixture('gps-v304-equivalent.rnx'), V211)).toBeLessThan(TOLERANCE);
   });
 });

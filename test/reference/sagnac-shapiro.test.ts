@@ -7,10 +7,14 @@
  * Tolerances: toBeCloseTo(x, d) is half a unit in the last printed digit of each value.
  */
 import { describe, expect, it } from 'vitest';
-import {
-  maximumSagnacCorrection, sagnacCorrection, sagnacDelayForArea, shapiroDelay, solveLightTimeInertial,
-} from '../../packages/sdk/src/signal/index.js';
 import { GPS_ICD, SPEED_OF_LIGHT } from '../../packages/sdk/src/constants.js';
+import {
+  maximumSagnacCorrection,
+  sagnacCorrection,
+  sagnacDelayForArea,
+  shapiroDelay,
+  solveLightTimeInertial,
+} from '../../packages/sdk/src/signal/index.js';
 import type { Vector3 } from '../../packages/sdk/src/units.js';
 
 const W = GPS_ICD.earthRotationRate; // 7.2921151467e-5 rad/s, the value of the sheet's §7 check values

@@ -8,22 +8,44 @@ const iso = (s: number): string => new Date(EPOCH_MS + s * 1000).toISOString().r
 const at = (stamp: string): number => (Date.parse(stamp) - EPOCH_MS) / 1000;
 
 /** A noise-free clock with one contact over the whole horizon and hourly decisions. */
-function scenario(over: { horizon: number; phase: number; resolution: number; maxStep: number; tolerance: number; frequencyStep: number }): SteeringScenario {
+function scenario(over: {
+  horizon: number;
+  phase: number;
+  resolution: number;
+  maxStep: number;
+  tolerance: number;
+  frequencyStep: number;
+}): SteeringScenario {
   return {
-    epoch: iso(0), horizonSeconds: over.horizon, gridSeconds: 3600,
+    epoch: iso(0),
+    horizonSeconds: over.horizon,
+    gridSeconds: 3600,
     clock: { phaseSeconds: over.phase, fractionalFrequency: 0, driftPerSecond: 0, noise: { q1: 0, q2: 0, q3: 0 } },
     tolerance: { phaseSeconds: over.tolerance, probability: 0.95 },
     contacts: [{ start: iso(0), end: iso(over.horizon) }],
     actuator: {
-      frequencyResolution: over.resolution, maxFrequencyStep: over.maxStep, cumulativeFrequencyRange: { min: -1e-6, max: 1e-6 },
-      minCommandSpacingSeconds: 3600, maxTimeTagSeconds: 0,
+      frequencyResolution: over.resolution,
+      maxFrequencyStep: over.maxStep,
+      cumulativeFrequencyRange: { min: -1e-6, max: 1e-6 },
+      minCommandSpacingSeconds: 3600,
+      maxTimeTagSeconds: 0,
     },
     strategy: { method: 'optimal' },
     costWeights: { frequencyStep: over.frequencyStep, command: 0 },
   };
 }
 
-interface Dare { K: number[]; poles: number[][]; u0: number; phaseAtDecisions: number[]; D: number; b: number; H: number; wF: number; S: number }
+interface Dare {
+  K: number[];
+  poles: number[][];
+  u0: number;
+  phaseAtDecisions: number[];
+  D: number;
+  b: number;
+  H: number;
+  wF: number;
+  S: number;
+}
 const dare = JSON.parse(readFileSync(new URL('../fixtures/lq-steering/dare.json', import.meta.url), 'utf8')) as Dare;
 
 describe('Koppang & Leland 1999, LQ clock steering: steady-state gain from the discrete Riccati equation (scipy, test/fixtures/lq-steering [C])', () => {
@@ -31,7 +53,14 @@ describe('Koppang & Leland 1999, LQ clock steering: steady-state gain from the d
   // per-command charge; the LQ plan is then the steady-state LQ closed loop s_{k+1} = (A − BK)s_k far
   // from the horizon end (20 days here, time constant ≈ 5 h). P. Koppang & R. Leland, IEEE Trans. UFFC
   // 46(3) 517–522 (1999) [V2 abstract] for LQ steering; gains computed independently by dare.py [C].
-  const s = scenario({ horizon: dare.H, phase: 10e-9, resolution: 1e-20, maxStep: dare.S, tolerance: dare.b, frequencyStep: dare.wF });
+  const s = scenario({
+    horizon: dare.H,
+    phase: 10e-9,
+    resolution: 1e-20,
+    maxStep: dare.S,
+    tolerance: dare.b,
+    frequencyStep: dare.wF,
+  });
   const plan = planSteering(s);
 
   it('planSteering(unconstrained scenario) makes its first step u0 = −K·s0 of the Riccati gain, within 1e-6 relative', () => {
@@ -72,7 +101,14 @@ describe('Kirk, Optimal Control Theory (1970) §5.4: minimum-time double integra
   const a = S / D;
   const b = 10e-9;
   const tStar = 2 * Math.sqrt(x0 / a);
-  const s = scenario({ horizon: 10 * DAY, phase: x0, resolution: 1e-16, maxStep: S, tolerance: b, frequencyStep: 0.01 });
+  const s = scenario({
+    horizon: 10 * DAY,
+    phase: x0,
+    resolution: 1e-16,
+    maxStep: S,
+    tolerance: b,
+    frequencyStep: 0.01,
+  });
   const plan = planSteering(s);
   const freq = plan.commands.filter((c) => c.kind === 'frequency');
 

@@ -5,11 +5,15 @@
  * [M] from memory. Leap-second facts are pinned to the bundled table (valid until 2027-06-28).
  */
 import { describe, expect, it } from 'vitest';
-import {
-  BUNDLED_LEAP_SECONDS, createTimeScales, mjdFromCalendarDate, parseLeapSecondsList, weekSecondsFromInstant,
-} from '../../packages/sdk/src/time/index.js';
 import { L_G } from '../../packages/sdk/src/constants.js';
 import { OutOfDomainError } from '../../packages/sdk/src/errors.js';
+import {
+  BUNDLED_LEAP_SECONDS,
+  createTimeScales,
+  mjdFromCalendarDate,
+  parseLeapSecondsList,
+  weekSecondsFromInstant,
+} from '../../packages/sdk/src/time/index.js';
 
 const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
 const utc = (text: string) => ts.parseIso(text);
@@ -48,13 +52,13 @@ describe('IERS Bulletin C leap seconds, as distributed in the IERS/NIST leap-sec
   /** Expiry "28 June 2027" of the list updated through Bulletin C 72 (quoted [V2]); NTP value computed [C]. */
   const EXPIRY_LINE = `#@\t${(mjdFromCalendarDate(2027, 6, 28) - 15_020) * 86_400}`;
 
-  it('parseLeapSecondsList(list) reproduces BUNDLED_LEAP_SECONDS entry for entry (MJD = NTP/86400 + 15020, per the list\'s notes)', () => {
+  it("parseLeapSecondsList(list) reproduces BUNDLED_LEAP_SECONDS entry for entry (MJD = NTP/86400 + 15020, per the list's notes)", () => {
     const parsed = parseLeapSecondsList(`${EXPIRY_LINE}\n${DATA_LINES}\n`, 'leap-seconds.list');
     expect(parsed.entries).toEqual(BUNDLED_LEAP_SECONDS.entries);
     expect(parsed.validUntilMjd).toBe(BUNDLED_LEAP_SECONDS.validUntilMjd);
   });
 
-  it('the list\'s own example: 30 June 1972 23:59:60 UTC has TAI = UTC + 11 counted from 23:59:59, i.e. 1972-07-01T00:00:10 TAI', () => {
+  it("the list's own example: 30 June 1972 23:59:60 UTC has TAI = UTC + 11 counted from 23:59:59, i.e. 1972-07-01T00:00:10 TAI", () => {
     const leap = utc('1972-06-30T23:59:60Z');
     expect(ts.formatIso(leap, { scale: 'TAI', fractionDigits: 0 })).toBe('1972-07-01T00:00:10');
     expect(ts.formatIso(utc('1972-06-30T23:59:59Z'), { scale: 'TAI', fractionDigits: 0 })).toBe('1972-07-01T00:00:09');
@@ -88,7 +92,9 @@ describe('IERS Bulletin C 72 (Paris, 6 July 2026), as quoted in secondary source
 describe('IERS Conventions (2010), IERS Technical Note 36, §10.1 [V1]', () => {
   it('TT − TAI = 32.184 s exactly (§10.1 [V1])', () => {
     expect(ts.offset('TT', 'TAI', utc('2024-01-01T00:00:00Z'))).toBe(32.184);
-    expect(ts.formatIso(ts.parseIso('2024-01-01T00:00:00', 'TAI'), { scale: 'TT', fractionDigits: 12 })).toBe('2024-01-01T00:00:32.184000000000');
+    expect(ts.formatIso(ts.parseIso('2024-01-01T00:00:00', 'TAI'), { scale: 'TT', fractionDigits: 12 })).toBe(
+      '2024-01-01T00:00:32.184000000000',
+    );
   });
 
   it('TCG − TT = (L_G/(1 − L_G))·(JD_TT − T₀)·86400 s is 1.014978401 s at JD_TT 2460000.5 (§10.1 [V1]; value [C], physics-refs §8) to 1e-9 s', () => {
@@ -158,8 +164,14 @@ describe('GPS time: IS-GPS-200 [M]; BIPM, Lewandowski & Arias, "GPS time is 19 s
     expect(ts.offset('GPS', 'UTC', utc('2007-06-01T00:00:00Z'))).toBe(14);
   });
   it('10-bit week rollovers: 1999-08-22T00:00:00 GPS starts week 1024, 2019-04-07T00:00:00 GPS starts week 2048 (common practice, no source)', () => {
-    expect(ts.toWeekSeconds(ts.parseIso('1999-08-22T00:00:00', 'GPS'), 'GPS')).toMatchObject({ week: 1024, secondsOfWeek: 0 });
-    expect(ts.toWeekSeconds(ts.parseIso('2019-04-07T00:00:00', 'GPS'), 'GPS')).toMatchObject({ week: 2048, secondsOfWeek: 0 });
+    expect(ts.toWeekSeconds(ts.parseIso('1999-08-22T00:00:00', 'GPS'), 'GPS')).toMatchObject({
+      week: 1024,
+      secondsOfWeek: 0,
+    });
+    expect(ts.toWeekSeconds(ts.parseIso('2019-04-07T00:00:00', 'GPS'), 'GPS')).toMatchObject({
+      week: 2048,
+      secondsOfWeek: 0,
+    });
   });
 });
 

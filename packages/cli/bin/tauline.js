@@ -2,6 +2,7 @@
 // Launcher kept in git so that npm can link the bin before the first build.
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
+
 const entry = new URL('../dist/main.js', import.meta.url);
 if (!existsSync(fileURLToPath(entry))) {
   process.stderr.write('tauline: the CLI is not built yet; run `npm run build` at the repository root first.\n');

@@ -25,10 +25,22 @@ export interface EpochFormat {
 /** The epoch printing of `record`: calendar in the file's time system for RINEX clock files, seconds otherwise. */
 export function epochFormat(record: Pick<ClockRecord, 'flag' | 'timeSystem'>): EpochFormat {
   if (record.flag !== '--rinex-clock') {
-    return { text: (t) => `${sig(t, 12)} s`, cell: (t) => sig(t, 12), iso: () => undefined, scale: undefined, column: 'epoch (s)' };
+    return {
+      text: (t) => `${sig(t, 12)} s`,
+      cell: (t) => sig(t, 12),
+      iso: () => undefined,
+      scale: undefined,
+      column: 'epoch (s)',
+    };
   }
   // A file without a TIME SYSTEM ID line: the calendar is the file's own; say that it is not named.
   const scale = record.timeSystem;
   const iso = (t: number): string => formatEpochFields(fieldsFromScaleSeconds(t));
-  return { text: (t) => `${iso(t)} ${scale ?? '(time system not stated)'}`, cell: iso, iso, scale, column: `epoch (${scale ?? 'file time'})` };
+  return {
+    text: (t) => `${iso(t)} ${scale ?? '(time system not stated)'}`,
+    cell: iso,
+    iso,
+    scale,
+    column: `epoch (${scale ?? 'file time'})`,
+  };
 }

@@ -15,8 +15,12 @@ import { UsageError } from './framework.js';
  */
 export function jsonErrorOffset(text: string): number | undefined {
   let i = 0;
-  const ws = (): void => { while (i < text.length && ' \t\n\r'.includes(text.charAt(i))) i++; };
-  const fail = (): never => { throw i; };
+  const ws = (): void => {
+    while (i < text.length && ' \t\n\r'.includes(text.charAt(i))) i++;
+  };
+  const fail = (): never => {
+    throw i;
+  };
   const literal = (word: string): void => {
     for (const ch of word) {
       if (text[i] !== ch) fail();
@@ -42,29 +46,59 @@ export function jsonErrorOffset(text: string): number | undefined {
   };
   const num = (): void => {
     const m = /^-?(0|[1-9]\d*)(\.\d+)?([eE][+-]?\d+)?/.exec(text.slice(i, i + 400));
-    if (!m) return fail();
+    if (!m) {
+      fail();
+      return;
+    }
     i += m[0].length;
   };
   const value = (): void => {
     ws();
     const c = text[i];
     if (c === '{') {
-      i++; ws();
-      if (text[i] === '}') { i++; return; }
+      i++;
+      ws();
+      if (text[i] === '}') {
+        i++;
+        return;
+      }
       for (;;) {
-        ws(); if (text[i] !== '"') fail(); str(); ws();
-        if (text[i] !== ':') fail(); i++; value(); ws();
-        if (text[i] === ',') { i++; continue; }
-        if (text[i] === '}') { i++; return; }
+        ws();
+        if (text[i] !== '"') fail();
+        str();
+        ws();
+        if (text[i] !== ':') fail();
+        i++;
+        value();
+        ws();
+        if (text[i] === ',') {
+          i++;
+          continue;
+        }
+        if (text[i] === '}') {
+          i++;
+          return;
+        }
         fail();
       }
     } else if (c === '[') {
-      i++; ws();
-      if (text[i] === ']') { i++; return; }
+      i++;
+      ws();
+      if (text[i] === ']') {
+        i++;
+        return;
+      }
       for (;;) {
-        value(); ws();
-        if (text[i] === ',') { i++; continue; }
-        if (text[i] === ']') { i++; return; }
+        value();
+        ws();
+        if (text[i] === ',') {
+          i++;
+          continue;
+        }
+        if (text[i] === ']') {
+          i++;
+          return;
+        }
         fail();
       }
     } else if (c === '"') str();
@@ -74,7 +108,8 @@ export function jsonErrorOffset(text: string): number | undefined {
     else num();
   };
   try {
-    value(); ws();
+    value();
+    ws();
     return i < text.length ? i : undefined;
   } catch (at) {
     return typeof at === 'number' ? at : undefined;
@@ -120,7 +155,9 @@ let standardInput: () => AsyncIterable<Uint8Array | string> = () => process.stdi
  * Sets what `-` reads (the binary: process.stdin; tests: an in-memory stream). Returns the previous source.
  * @internal used by `main`
  */
-export function setStandardInput(source: () => AsyncIterable<Uint8Array | string>): () => AsyncIterable<Uint8Array | string> {
+export function setStandardInput(
+  source: () => AsyncIterable<Uint8Array | string>,
+): () => AsyncIterable<Uint8Array | string> {
   const previous = standardInput;
   standardInput = source;
   return previous;
@@ -148,8 +185,12 @@ export async function requireRegularFile(path: string, what: string, maxBytes?: 
   const info = await stat(path);
   const name = displayName(path);
   if (info.isDirectory()) throw new UsageError(`${name} is a directory; expected ${what}`);
-  if (info.isFIFO()) throw new UsageError(`${name} is a named pipe (FIFO), not a regular file; expected ${what} (give - to read standard input)`);
-  if (info.isCharacterDevice() || info.isBlockDevice()) throw new UsageError(`${name} is a device, not a regular file; expected ${what}`);
+  if (info.isFIFO())
+    throw new UsageError(
+      `${name} is a named pipe (FIFO), not a regular file; expected ${what} (give - to read standard input)`,
+    );
+  if (info.isCharacterDevice() || info.isBlockDevice())
+    throw new UsageError(`${name} is a device, not a regular file; expected ${what}`);
   if (!info.isFile()) throw new UsageError(`${name} is not a regular file; expected ${what}`);
   if (maxBytes !== undefined && info.size > maxBytes) {
     throw new UsageError(`${name} is ${info.size} bytes, more than the ${mib(maxBytes)} limit for ${what}`);
@@ -182,7 +223,9 @@ export async function* textChunks(path: string, what: string, options: TextChunk
     const bytes = typeof chunk === 'string' ? Buffer.from(chunk, 'utf8') : chunk;
     const nul = bytes.indexOf(0);
     if (nul >= 0) {
-      throw new UsageError(`${displayName(path)} is not a text file (a NUL byte at byte ${total + nul + 1}); expected ${what}`);
+      throw new UsageError(
+        `${displayName(path)} is not a text file (a NUL byte at byte ${total + nul + 1}); expected ${what}`,
+      );
     }
     total += bytes.length;
     if (maxBytes !== undefined && total > maxBytes) {
@@ -227,7 +270,10 @@ export async function readJsonFile(path: string, what = 'a JSON document'): Prom
     const enginePosition = /position (\d+)/.exec(error instanceof Error ? error.message : '')?.[1];
     const offset = jsonErrorOffset(body) ?? (enginePosition !== undefined ? Number(enginePosition) : 0);
     const { line, column } = lineColumn(body, offset);
-    const found = offset >= body.length ? 'the end of the file (truncated?)' : body.slice(offset, offset + 24).split(/\r?\n/, 1)[0] ?? '';
+    const found =
+      offset >= body.length
+        ? 'the end of the file (truncated?)'
+        : (body.slice(offset, offset + 24).split(/\r?\n/, 1)[0] ?? '');
     throw new ParseError(sourceLabel(path), line, column, `valid JSON (${what})`, found);
   }
 }

@@ -2,16 +2,25 @@
  * Flags, their help snippets and the input files they name, shared by several commands. A command imports
  * these from here, never from another command (checked by test/commands/imports.test.ts).
  */
-import { constantSet, type ConstantSet } from '@tauline/sdk/constants';
+import { type ConstantSet, constantSet } from '@tauline/sdk/constants';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import type { SteeringMethod } from '@tauline/sdk/steering';
-import { createTimeScales, parseLeapSecondsList, type LeapSecondTable, type TimeScales } from '@tauline/sdk/time';
-import { TABLE_JSON_CSV, formatFlag, optionalFlag, withFlagNames, type FlagSpec, type ParsedArgs } from './framework.js';
+import { createTimeScales, type LeapSecondTable, parseLeapSecondsList, type TimeScales } from '@tauline/sdk/time';
 import { readJsonFile, readTextFile, sourceLabel } from './files.js';
+import {
+  type FlagSpec,
+  formatFlag,
+  optionalFlag,
+  type ParsedArgs,
+  TABLE_JSON_CSV,
+  withFlagNames,
+} from './framework.js';
 
 /** The `--constants` flag spec (the set of GM, L_G, J2, … the command computes with). */
 export const CONSTANTS_FLAG: FlagSpec = {
-  type: 'string', value: '<name>', description: 'Constant set: iers-2010 (default), gps-icd, galileo-icd, beidou-icd.',
+  type: 'string',
+  value: '<name>',
+  description: 'Constant set: iers-2010 (default), gps-icd, galileo-icd, beidou-icd.',
 };
 
 /** Reads `--constants` (default iers-2010), naming the flag when the set is unknown. */
@@ -56,7 +65,12 @@ export async function leapSecondsTableFlag(args: ParsedArgs): Promise<LeapSecond
     return table;
   } catch (error) {
     if (error instanceof InvalidArgumentError) {
-      throw new InvalidArgumentError('--leap-seconds', path, 'an IERS/NIST leap-seconds.list with a valid table', error.message);
+      throw new InvalidArgumentError(
+        '--leap-seconds',
+        path,
+        'an IERS/NIST leap-seconds.list with a valid table',
+        error.message,
+      );
     }
     throw error;
   }
@@ -64,7 +78,10 @@ export async function leapSecondsTableFlag(args: ParsedArgs): Promise<LeapSecond
 
 /** The `--leap-seconds` flag spec, shared by `plan`, `simulate` and `fleet`. */
 export const LEAP_SECONDS_FLAG: FlagSpec = {
-  type: 'string', value: '<file>', description: 'IERS/NIST leap-seconds.list to read UTC stamps with (default: the bundled table, valid until 2027-06-28).',
+  type: 'string',
+  value: '<file>',
+  description:
+    'IERS/NIST leap-seconds.list to read UTC stamps with (default: the bundled table, valid until 2027-06-28).',
 };
 
 /** Help text on leap seconds, shared by `plan`, `simulate` and `fleet`. */
@@ -76,21 +93,34 @@ dates pass a current IERS/NIST leap-seconds.list with --leap-seconds <file>.`;
 /** Reads the --strategy flag; undefined keeps the scenario's own. */
 export function strategyFlag(value: string | undefined, allowAll: boolean): SteeringMethod | 'all' | undefined {
   if (value === undefined) return undefined;
-  if ((METHODS as readonly string[]).includes(value) || (allowAll && value === 'all')) return value as SteeringMethod | 'all';
-  throw new InvalidArgumentError('--strategy', value, `one of ${[...METHODS, ...(allowAll ? ['all'] : [])].join(', ')}`);
+  if ((METHODS as readonly string[]).includes(value) || (allowAll && value === 'all'))
+    return value as SteeringMethod | 'all';
+  throw new InvalidArgumentError(
+    '--strategy',
+    value,
+    `one of ${[...METHODS, ...(allowAll ? ['all'] : [])].join(', ')}`,
+  );
 }
 
 /** Parses `--satellite G01,E11,...` into a set, or undefined for all. */
 export function satelliteFlag(args: ParsedArgs): Set<string> | undefined {
   const text = optionalFlag(args, 'satellite');
   if (text === undefined) return undefined;
-  const ids = text.split(',').map((s) => s.trim().toUpperCase()).filter((s) => s !== '');
+  const ids = text
+    .split(',')
+    .map((s) => s.trim().toUpperCase())
+    .filter((s) => s !== '');
   for (const id of ids) {
     if (!/^[GRECJIS]\d\d$/.test(id)) {
-      throw new InvalidArgumentError('--satellite', id, 'satellite identifiers: system letter and two digits, comma-separated (e.g. G05,E11,C08)');
+      throw new InvalidArgumentError(
+        '--satellite',
+        id,
+        'satellite identifiers: system letter and two digits, comma-separated (e.g. G05,E11,C08)',
+      );
     }
   }
-  if (ids.length === 0) throw new InvalidArgumentError('--satellite', text, 'at least one satellite identifier (e.g. G05)');
+  if (ids.length === 0)
+    throw new InvalidArgumentError('--satellite', text, 'at least one satellite identifier (e.g. G05)');
   return new Set(ids);
 }
 

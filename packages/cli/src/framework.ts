@@ -3,14 +3,15 @@
  * typed validation, one-line errors, and human tables vs `--json` output.
  */
 import { writeFile } from 'node:fs/promises';
-import { parseArgs, type ParseArgsConfig } from 'node:util';
-import { TaulineError, InvalidArgumentError, formatReceived } from '@tauline/sdk/errors';
-import { MAX_SEED } from '@tauline/sdk/steering';
+import { type ParseArgsConfig, parseArgs } from 'node:util';
+import { formatReceived, InvalidArgumentError, TaulineError } from '@tauline/sdk/errors';
 import { FLIGHT_CONFIGURATION_CAUTION } from '@tauline/sdk/relativity';
-import { TABLE_WIDTH, fitTable, wrapText } from './layout.js';
+import { MAX_SEED } from '@tauline/sdk/steering';
+import { fitTable, TABLE_WIDTH, wrapText } from './layout.js';
 import { escapeControlCharacters } from './text-safety.js';
 
 export { escapeControlCharacters };
+
 import { didYouMean } from './suggest.js';
 
 /** Exit status: 0 success, 1 a finding (e.g. a review fail), 2 unusable input. */
@@ -84,7 +85,10 @@ export class OutputError extends Error {
 
 export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
   // --help and --wide (tables and text in their long form, not fitted to 100 columns) are flags of every command.
-  const options: NonNullable<ParseArgsConfig['options']> = { help: { type: 'boolean', short: 'h' }, wide: { type: 'boolean' } };
+  const options: NonNullable<ParseArgsConfig['options']> = {
+    help: { type: 'boolean', short: 'h' },
+    wide: { type: 'boolean' },
+  };
   for (const [name, spec] of Object.entries(command.flags)) {
     options[name] = { type: spec.type, multiple: spec.multiple ?? false, ...(spec.short ? { short: spec.short } : {}) };
   }
@@ -96,18 +100,36 @@ export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
     if (token === undefined) break;
     const next = argv[i + 1];
     const name = token.startsWith('--') ? token.slice(2) : undefined;
-    if (name !== undefined && !name.includes('=') && command.flags[name]?.type === 'string' && next !== undefined && /^-(\d|\.\d)/.test(next)) {
+    if (
+      name !== undefined &&
+      !name.includes('=') &&
+      command.flags[name]?.type === 'string' &&
+      next !== undefined &&
+      /^-(\d|\.\d)/.test(next)
+    ) {
       args.push(`${token}=${next}`);
       i++;
     } else args.push(token);
   }
-  let parsed: ReturnType<typeof parseArgs<{ args: string[]; options: typeof options; allowPositionals: boolean; strict: true; tokens: true }>>;
+  let parsed: ReturnType<
+    typeof parseArgs<{ args: string[]; options: typeof options; allowPositionals: boolean; strict: true; tokens: true }>
+  >;
   try {
-    parsed = parseArgs({ args, options, allowPositionals: command.allowPositionals ?? false, strict: true, tokens: true });
+    parsed = parseArgs({
+      args,
+      options,
+      allowPositionals: command.allowPositionals ?? false,
+      strict: true,
+      tokens: true,
+    });
   } catch (e) {
-    const message = e instanceof Error ? e.message.replace(/\. To specify a positional.*$/s, '').replace(/\s*\n\s*/g, ' ') : String(e);
+    const message =
+      e instanceof Error
+        ? e.message.replace(/\. To specify a positional.*$/s, '').replace(/\s*\n\s*/g, ' ')
+        : String(e);
     const unknown = /^Unknown option '--?([^'=]+)/.exec(message)?.[1];
-    const hint = unknown !== undefined ? didYouMean(unknown, [...Object.keys(command.flags), 'help', 'wide'], '--') : '';
+    const hint =
+      unknown !== undefined ? didYouMean(unknown, [...Object.keys(command.flags), 'help', 'wide'], '--') : '';
     throw new UsageError(`${message}${hint} (see \`tauline ${command.name} --help\`)`);
   }
   // A flag given twice would silently keep the last value: refuse it unless the flag takes several.
@@ -116,7 +138,9 @@ export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
     if (token.kind !== 'option' || options[token.name]?.multiple) continue;
     if (seen.has(token.name)) {
       const values = [seen.get(token.name), token.value].filter((v) => v !== undefined).map((v) => JSON.stringify(v));
-      throw new UsageError(`--${token.name} is given more than once${values.length ? ` (${values.join(' and ')})` : ''}; give it once (see \`tauline ${command.name} --help\`)`);
+      throw new UsageError(
+        `--${token.name} is given more than once${values.length ? ` (${values.join(' and ')})` : ''}; give it once (see \`tauline ${command.name} --help\`)`,
+      );
     }
     seen.set(token.name, token.value);
   }
@@ -129,7 +153,8 @@ export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
  */
 export function onePositional(args: ParsedArgs, what: string): string {
   const [only, ...more] = args.positionals;
-  if (only === undefined || more.length > 0) throw new UsageError(`give exactly one ${what} (see \`tauline ${args.command?.name ?? '<command>'} --help\`)`);
+  if (only === undefined || more.length > 0)
+    throw new UsageError(`give exactly one ${what} (see \`tauline ${args.command?.name ?? '<command>'} --help\`)`);
   return only;
 }
 
@@ -138,12 +163,20 @@ export function onePositional(args: ParsedArgs, what: string): string {
  * from (e.g. `semiMajorAxis` → `--semi-major-axis`), so the one-line error names what the user typed.
  * @param flags  Argument → flag, or a function giving the flag of an argument (undefined: keep it).
  */
-export function withFlagNames<T>(flags: Readonly<Record<string, string>> | ((argument: string) => string | undefined), body: () => T): T {
+export function withFlagNames<T>(
+  flags: Readonly<Record<string, string>> | ((argument: string) => string | undefined),
+  body: () => T,
+): T {
   try {
     return body();
   } catch (error) {
     if (error instanceof InvalidArgumentError) {
-      const flag = typeof flags === 'function' ? flags(error.argument) : Object.hasOwn(flags, error.argument) ? flags[error.argument] : undefined;
+      const flag =
+        typeof flags === 'function'
+          ? flags(error.argument)
+          : Object.hasOwn(flags, error.argument)
+            ? flags[error.argument]
+            : undefined;
       if (flag !== undefined) throw new InvalidArgumentError(flag, error.received, error.expected, error.hint);
     }
     throw error;
@@ -196,12 +229,34 @@ export function parseNumber(field: string, text: string): number {
  * Reads an integer flag in [min, max]; `what` describes it (e.g. "simulated clocks per strategy").
  * @throws {InvalidArgumentError} naming the flag, the value and the range.
  */
-export function integerFlag(args: ParsedArgs, flag: string, min: number, max: number, what: string, required: true): number;
-export function integerFlag(args: ParsedArgs, flag: string, min: number, max: number, what: string, required?: false): number | undefined;
-export function integerFlag(args: ParsedArgs, flag: string, min: number, max: number, what: string, required = false): number | undefined {
+export function integerFlag(
+  args: ParsedArgs,
+  flag: string,
+  min: number,
+  max: number,
+  what: string,
+  required: true,
+): number;
+export function integerFlag(
+  args: ParsedArgs,
+  flag: string,
+  min: number,
+  max: number,
+  what: string,
+  required?: false,
+): number | undefined;
+export function integerFlag(
+  args: ParsedArgs,
+  flag: string,
+  min: number,
+  max: number,
+  what: string,
+  required = false,
+): number | undefined {
   const v = required ? numberFlag(args, flag, true) : numberFlag(args, flag);
   if (v === undefined) return undefined;
-  if (!Number.isInteger(v) || v < min || v > max) throw new InvalidArgumentError(`--${flag}`, v, `an integer in [${min}, ${max}] (${what})`);
+  if (!Number.isInteger(v) || v < min || v > max)
+    throw new InvalidArgumentError(`--${flag}`, v, `an integer in [${min}, ${max}] (${what})`);
   return v;
 }
 
@@ -239,7 +294,11 @@ export const TABLE_JSON_CSV = ['table', 'json', 'csv'] as const;
 
 /** The `--format` flag spec, for commands offering more than one output format. */
 export function formatFlagSpec(formats: readonly string[], defaultFormat = 'table'): FlagSpec {
-  return { type: 'string', value: formats.join('|'), description: `Output format: ${formats.join(', ')} (default ${defaultFormat}).` };
+  return {
+    type: 'string',
+    value: formats.join('|'),
+    description: `Output format: ${formats.join(', ')} (default ${defaultFormat}).`,
+  };
 }
 
 /** Help of `--json` on commands whose default output is one table. */
@@ -249,10 +308,13 @@ export const JSON_INSTEAD_OF_TABLE = 'Print one JSON object instead of a table (
  * The output-format flags of a command: the boolean shorthands (`json`, `csv`, …, each named like one
  * of `formats`, with its help) and then `--format`. Read them with {@link formatFlag}.
  */
-export function formatFlags(formats: readonly string[], shorthands: Readonly<Record<string, string>> = { json: JSON_INSTEAD_OF_TABLE }): Record<string, FlagSpec> {
+export function formatFlags(
+  formats: readonly string[],
+  shorthands: Readonly<Record<string, string>> = { json: JSON_INSTEAD_OF_TABLE },
+): Record<string, FlagSpec> {
   const flags: Record<string, FlagSpec> = {};
   for (const [name, description] of Object.entries(shorthands)) flags[name] = { type: 'boolean', description };
-  flags['format'] = formatFlagSpec(formats);
+  flags.format = formatFlagSpec(formats);
   return flags;
 }
 
@@ -265,11 +327,13 @@ export function formatFlag<F extends string>(args: ParsedArgs, formats: readonly
   const text = optionalFlag(args, 'format');
   if (text !== undefined) {
     const lower = text.toLowerCase();
-    if (!(formats as readonly string[]).includes(lower)) throw new InvalidArgumentError('--format', text, `one of ${formats.join(', ')}`);
+    if (!(formats as readonly string[]).includes(lower))
+      throw new InvalidArgumentError('--format', text, `one of ${formats.join(', ')}`);
     chosen.set(lower, `--format ${lower}`);
   }
   for (const f of formats) if (args.values[f] === true && !chosen.has(f)) chosen.set(f, `--${f}`);
-  if (chosen.size > 1) throw new UsageError(`${[...chosen.values()].join(' and ')} cannot be combined: choose one output format`);
+  if (chosen.size > 1)
+    throw new UsageError(`${[...chosen.values()].join(' and ')} cannot be combined: choose one output format`);
   return (chosen.keys().next().value as F | undefined) ?? defaultFormat;
 }
 
@@ -282,7 +346,9 @@ export function table(headers: string[], rows: (string | number)[][]): string {
 export function keyValueTable(rows: [string, string][], width?: number): string {
   const w = Math.max(...rows.map(([k]) => k.length));
   // With a width, a long value wraps under itself (hanging indent past the key column).
-  return rows.map(([k, v]) => wrapText(`${k.padEnd(w)}  ${escapeControlCharacters(v)}`, width, ' '.repeat(w + 2)).join('\n')).join('\n') + '\n';
+  return `${rows
+    .map(([k, v]) => wrapText(`${k.padEnd(w)}  ${escapeControlCharacters(v)}`, width, ' '.repeat(w + 2)).join('\n'))
+    .join('\n')}\n`;
 }
 
 /** Formats a number with `digits` significant digits, keeping exponent form for tiny values. */
@@ -295,7 +361,7 @@ export function sig(value: number, digits = 10): string {
 
 /** JSON with a trailing newline; bigint values become decimal strings. */
 export function toJson(value: unknown): string {
-  return JSON.stringify(value, (_k, v) => (typeof v === 'bigint' ? v.toString() : v), 2) + '\n';
+  return `${JSON.stringify(value, (_k, v) => (typeof v === 'bigint' ? v.toString() : v), 2)}\n`;
 }
 
 /** The progress bar lives in its own module; re-exported here for the commands that import it from the framework. */
@@ -340,7 +406,9 @@ export async function writeOutputFile(path: string, text: string): Promise<void>
   try {
     await writeFile(path, text, 'utf8');
   } catch (error) {
-    const reason = fileErrorReason(error) ?? (error instanceof Error && 'code' in error ? String((error as NodeJS.ErrnoException).code) : undefined);
+    const reason =
+      fileErrorReason(error) ??
+      (error instanceof Error && 'code' in error ? String((error as NodeJS.ErrnoException).code) : undefined);
     if (reason !== undefined) throw new OutputError(path, reason);
     throw error;
   }
@@ -354,8 +422,16 @@ export function describeFailure(error: unknown): { line: string; status: number 
   const e = error instanceof Error && 'code' in error ? (error as NodeJS.ErrnoException) : undefined;
   if (e !== undefined && typeof e.code === 'string') {
     const reason = FILE_ERRORS[e.code];
-    if (reason && e.syscall === 'write') return { line: `cannot write ${e.path === undefined ? 'standard output' : formatReceived(e.path)}: ${reason}`, status: EXIT_USAGE };
-    if (reason) return { line: `cannot read ${e.path === undefined ? 'the input' : formatReceived(e.path)}: ${reason}`, status: EXIT_USAGE };
+    if (reason && e.syscall === 'write')
+      return {
+        line: `cannot write ${e.path === undefined ? 'standard output' : formatReceived(e.path)}: ${reason}`,
+        status: EXIT_USAGE,
+      };
+    if (reason)
+      return {
+        line: `cannot read ${e.path === undefined ? 'the input' : formatReceived(e.path)}: ${reason}`,
+        status: EXIT_USAGE,
+      };
   }
   const message = error instanceof Error ? error.message : String(error);
   return { line: `internal error: ${message} (please report this with the command line that caused it)`, status: 3 };
@@ -364,17 +440,25 @@ export function describeFailure(error: unknown): { line: string; status: number 
 export function commandHelp(command: Command): string {
   // The usage line wraps between its [optional parts], never inside one (no-break spaces while wrapping).
   const usage = command.usage.replace(/\[[^\]]*\]/g, (part) => part.replace(/ /g, '\u00a0'));
-  const usageLines = wrapText(`tauline ${command.name} ${usage}`, TABLE_WIDTH, ' '.repeat(command.name.length + 9)).map((l) => l.replace(/\u00a0/g, ' '));
+  const usageLines = wrapText(`tauline ${command.name} ${usage}`, TABLE_WIDTH, ' '.repeat(command.name.length + 9)).map(
+    (l) => l.replace(/\u00a0/g, ' '),
+  );
   const lines = [...usageLines, '', command.summary, ''];
   const flags = Object.entries(command.flags);
   const labelled = flags.map(([n, spec]) => ({ label: `--${n}${spec.value ? ` ${spec.value}` : ''}`, spec }));
   const w = Math.max(...labelled.map(({ label }) => label.length), 10);
   // Flag help wraps at 100 columns under its description column (the details below are laid out by hand).
-  for (const { label, spec } of labelled) lines.push(...wrapText(`  ${label.padEnd(w)}  ${spec.description}`, TABLE_WIDTH, ' '.repeat(w + 4)));
+  for (const { label, spec } of labelled)
+    lines.push(...wrapText(`  ${label.padEnd(w)}  ${spec.description}`, TABLE_WIDTH, ' '.repeat(w + 4)));
   lines.push(`  ${'--wide'.padEnd(w)}  Tables and text in their long form, not fitted to 100 columns.`);
   lines.push(`  ${'--help'.padEnd(w)}  Show this help.`);
-  const readsFiles = command.allowPositionals === true || flags.some(([n, spec]) => spec.value === '<file>' && n !== 'output');
-  if (readsFiles) lines.push('', 'Input files: - reads standard input; a directory, pipe, device or binary file is refused (exit 2).');
+  const readsFiles =
+    command.allowPositionals === true || flags.some(([n, spec]) => spec.value === '<file>' && n !== 'output');
+  if (readsFiles)
+    lines.push(
+      '',
+      'Input files: - reads standard input; a directory, pipe, device or binary file is refused (exit 2).',
+    );
   if (command.details) lines.push('', command.details.trim());
-  return lines.join('\n') + '\n';
+  return `${lines.join('\n')}\n`;
 }

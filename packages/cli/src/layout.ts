@@ -15,16 +15,32 @@ export const TABLE_WIDTH = 100;
  * and F; from memory [M]). Emoji with default emoji presentation are wide as well (see {@link displayWidth}).
  */
 const WIDE: readonly (readonly [number, number])[] = [
-  [0x1100, 0x115f], [0x2e80, 0x303e], [0x3041, 0x33ff], [0x3400, 0x4dbf], [0x4e00, 0x9fff], [0xa000, 0xa4cf],
-  [0xa960, 0xa97f], [0xac00, 0xd7a3], [0xf900, 0xfaff], [0xfe10, 0xfe19], [0xfe30, 0xfe6f], [0xff00, 0xff60],
-  [0xffe0, 0xffe6], [0x16fe0, 0x16fe4], [0x17000, 0x18aff], [0x1b000, 0x1b2ff], [0x20000, 0x2fffd], [0x30000, 0x3fffd],
+  [0x1100, 0x115f],
+  [0x2e80, 0x303e],
+  [0x3041, 0x33ff],
+  [0x3400, 0x4dbf],
+  [0x4e00, 0x9fff],
+  [0xa000, 0xa4cf],
+  [0xa960, 0xa97f],
+  [0xac00, 0xd7a3],
+  [0xf900, 0xfaff],
+  [0xfe10, 0xfe19],
+  [0xfe30, 0xfe6f],
+  [0xff00, 0xff60],
+  [0xffe0, 0xffe6],
+  [0x16fe0, 0x16fe4],
+  [0x17000, 0x18aff],
+  [0x1b000, 0x1b2ff],
+  [0x20000, 0x2fffd],
+  [0x30000, 0x3fffd],
 ];
 
 /** Emoji drawn as pictures by default (Unicode property Emoji_Presentation), two columns wide (UAX #11 since Unicode 9 [M]). */
 const EMOJI_PRESENTATION = /\p{Emoji_Presentation}/u;
 
 /** Zero-width code points: combining marks, zero-width joiners/spaces, variation selectors (Unicode general categories Mn/Me/Cf [M]). */
-const ZERO_WIDTH = /[\u0300-\u036f\u0483-\u0489\u0591-\u05bd\u0610-\u061a\u064b-\u065f\u0e31\u0e34-\u0e3a\u1ab0-\u1aff\u1dc0-\u1dff\u200b-\u200f\u2028-\u202e\u2060-\u2064\u20d0-\u20ff\ufe00-\ufe0f\ufe20-\ufe2f\ufeff]/u;
+const ZERO_WIDTH =
+  /[\u0300-\u036f\u0483-\u0489\u0591-\u05bd\u0610-\u061a\u064b-\u065f\u0e31\u0e34-\u0e3a\u1ab0-\u1aff\u1dc0-\u1dff\u200b-\u200f\u2028-\u202e\u2060-\u2064\u20d0-\u20ff\ufe00-\ufe0f\ufe20-\ufe2f\ufeff]/u;
 
 function isWide(codePoint: number): boolean {
   let lo = 0;
@@ -82,10 +98,13 @@ export function wrapText(text: string, width: number | undefined, indent = ''): 
  */
 export function wrapLines(text: string, width: number | undefined): string {
   if (width === undefined) return text;
-  return text.split('\n').map((l) => {
-    const lead = /^ */.exec(l)?.[0] ?? '';
-    return wrapText(l, width, lead === '' ? '' : `${lead}  `).join('\n');
-  }).join('\n');
+  return text
+    .split('\n')
+    .map((l) => {
+      const lead = /^ */.exec(l)?.[0] ?? '';
+      return wrapText(l, width, lead === '' ? '' : `${lead}  `).join('\n');
+    })
+    .join('\n');
 }
 
 /** An `out` that wraps what it is given to `width` (see {@link wrapLines}); tables already fitted pass unchanged. */
@@ -155,12 +174,21 @@ function isNumericColumn(cells: readonly (readonly string[])[], i: number): bool
  * `below` columns moved under their rows (or, with `panels`, the table split). Ends with a newline.
  * Cell widths are measured once; layouts are planned on column widths and only the chosen one is drawn.
  */
-export function fitTable(headers: readonly string[], rows: readonly (readonly (string | number)[])[], options: TableOptions = {}): string {
+export function fitTable(
+  headers: readonly string[],
+  rows: readonly (readonly (string | number)[])[],
+  options: TableOptions = {},
+): string {
   const width = 'width' in options ? options.width : TABLE_WIDTH;
   // Control characters from input files are escaped before measuring, so the columns stay aligned.
   const cells = rows.map((r) => r.map((c) => escapeControlCharacters(String(c))));
   const measured = cells.map((texts) => ({ texts, widths: texts.map(displayWidth) }));
-  const columns: Column[] = headers.map((header, index) => ({ index, header, dataWidth: 0, numeric: isNumericColumn(cells, index) }));
+  const columns: Column[] = headers.map((header, index) => ({
+    index,
+    header,
+    dataWidth: 0,
+    numeric: isNumericColumn(cells, index),
+  }));
   // Widest cell of each column, by a loop: spreading a long column into Math.max overflows the call stack (~125 000 rows).
   for (const { widths } of measured) {
     widths.forEach((w, i) => {
@@ -178,9 +206,14 @@ export function fitTable(headers: readonly string[], rows: readonly (readonly (s
     const kept = keep.map((column) => ({ column, headerLines: [column.header] }));
     let w = planWidth(kept);
     if (width === undefined) return { columns: kept, width: w };
-    const overhang = kept.map((k) => ({ k, short: wrapText(k.column.header, Math.max(k.column.dataWidth, ...k.column.header.split(' ').map(displayWidth))) }))
+    const overhang = kept
+      .map((k) => ({
+        k,
+        short: wrapText(k.column.header, Math.max(k.column.dataWidth, ...k.column.header.split(' ').map(displayWidth))),
+      }))
       .map((o) => ({ ...o, saved: displayWidth(o.k.column.header) - Math.max(...o.short.map(displayWidth)) }))
-      .filter((o) => o.saved > 0).sort((x, y) => y.saved - x.saved);
+      .filter((o) => o.saved > 0)
+      .sort((x, y) => y.saved - x.saved);
     for (const { k, short } of overhang) {
       if (w <= width) break;
       k.headerLines = short;
@@ -192,29 +225,36 @@ export function fitTable(headers: readonly string[], rows: readonly (readonly (s
   const draw = (p: Plan, moved: readonly Column[]): string => {
     const laid = p.columns.map((k) => ({ ...k, width: columnWidth(k.column, k.headerLines) }));
     /** One line: each kept column's text (`known`: its display width when measured already) padded to the column. */
-    const fmt = (cell: (l: (typeof laid)[number]) => { text: string; known?: number }) => laid.map((l) => {
-      const { text, known } = cell(l);
-      const fill = ' '.repeat(Math.max(0, l.width - (known ?? displayWidth(text))));
-      return l.column.numeric ? fill + text : text + fill;
-    }).join('  ').trimEnd();
+    const fmt = (cell: (l: (typeof laid)[number]) => { text: string; known?: number }) =>
+      laid
+        .map((l) => {
+          const { text, known } = cell(l);
+          const fill = ' '.repeat(Math.max(0, l.width - (known ?? displayWidth(text))));
+          return l.column.numeric ? fill + text : text + fill;
+        })
+        .join('  ')
+        .trimEnd();
     const out: string[] = [];
     // Multi-line headers sit at the bottom of their block, next to the rule.
     const depth = Math.max(...laid.map((l) => l.headerLines.length));
-    for (let k = 0; k < depth; k++) out.push(fmt((l) => ({ text: l.headerLines[k - (depth - l.headerLines.length)] ?? '' })));
+    for (let k = 0; k < depth; k++)
+      out.push(fmt((l) => ({ text: l.headerLines[k - (depth - l.headerLines.length)] ?? '' })));
     out.push(laid.map((l) => '─'.repeat(l.width)).join('  '));
     // Text under a row starts under its second column (at most 8 columns in).
     const indent = ' '.repeat(Math.min(8, (laid[0]?.width ?? 0) + 2));
     measured.forEach(({ texts: r, widths }, k) => {
       out.push(fmt((l) => ({ text: r[l.column.index] ?? '', known: widths[l.column.index] ?? 0 })));
       const under: string[] = [];
-      const movedText = moved.filter((c) => !NO_VALUE.has(r[c.index] ?? ''))
-        .map((c) => (options.unlabelled?.includes(c.index) ? r[c.index] ?? '' : `${c.header} ${r[c.index]}`)).join(', ');
+      const movedText = moved
+        .filter((c) => !NO_VALUE.has(r[c.index] ?? ''))
+        .map((c) => (options.unlabelled?.includes(c.index) ? (r[c.index] ?? '') : `${c.header} ${r[c.index]}`))
+        .join(', ');
       if (movedText !== '') under.push(movedText);
       const note = options.notes?.[k];
       if (note) under.push(note);
-      for (const text of under) out.push(...wrapText(indent + text, width, indent + '  '));
+      for (const text of under) out.push(...wrapText(indent + text, width, `${indent}  `));
     });
-    return out.join('\n') + '\n';
+    return `${out.join('\n')}\n`;
   };
 
   const moved: Column[] = [];
@@ -245,5 +285,5 @@ export function fitTable(headers: readonly string[], rows: readonly (readonly (s
 
 /** The display width the table output of a command fits: {@link TABLE_WIDTH}, or none with `--wide`. */
 export function outputWidth(args: ParsedArgs): number | undefined {
-  return args.values['wide'] === true ? undefined : TABLE_WIDTH;
+  return args.values.wide === true ? undefined : TABLE_WIDTH;
 }

@@ -3,11 +3,18 @@
  * of exiting, so tests can drive it in-process as well as through the binary.
  */
 import { COMMANDS } from './commands/index.js';
-import { commandHelp, describeFailure, escapeControlCharacters, fileErrorReason, parseCommandArgs, type Io } from './framework.js';
 import { setStandardInput } from './files.js';
-import { didYouMean } from './suggest.js';
+import {
+  commandHelp,
+  describeFailure,
+  escapeControlCharacters,
+  fileErrorReason,
+  type Io,
+  parseCommandArgs,
+} from './framework.js';
 import { TABLE_WIDTH, wrapText } from './layout.js';
 import { clearProgress } from './progress.js';
+import { didYouMean } from './suggest.js';
 
 const VERSION = '0.1.0';
 
@@ -49,7 +56,9 @@ function endQuietlyOnClosedStdout(): void {
   process.stdout.on('error', (error: NodeJS.ErrnoException) => {
     if (error.code === 'EPIPE') process.exit(0);
     // Standard output cannot be written (a full disk, `> /dev/full`): one line and exit 2, not a stack trace.
-    process.stderr.write(`tauline: cannot write standard output: ${fileErrorReason(error) ?? error.code ?? error.message}\n`);
+    process.stderr.write(
+      `tauline: cannot write standard output: ${fileErrorReason(error) ?? error.code ?? error.message}\n`,
+    );
     process.exit(2);
   });
 }
@@ -57,7 +66,9 @@ function endQuietlyOnClosedStdout(): void {
 /** Says a command name is unknown, with the closest names when there are any; exit status 2. */
 function unknownCommand(name: string, io: Io): number {
   const names = COMMANDS.map((c) => c.name);
-  io.err(`tauline: unknown command ${JSON.stringify(name)}${didYouMean(name, names)} (known commands: ${names.join(', ')})\n`);
+  io.err(
+    `tauline: unknown command ${JSON.stringify(name)}${didYouMean(name, names)} (known commands: ${names.join(', ')})\n`,
+  );
   return 2;
 }
 
@@ -67,7 +78,9 @@ function helpOf(name: string, extra: readonly string[], io: Io): number {
   const command = COMMANDS.find((c) => c.name === name);
   if (!command) return unknownCommand(name, io);
   if (extra.length > 0) {
-    io.err(`tauline help: give one command name (received ${rest.map((r) => JSON.stringify(r)).join(' ')}); see \`tauline help ${command.name}\`\n`);
+    io.err(
+      `tauline help: give one command name (received ${rest.map((r) => JSON.stringify(r)).join(' ')}); see \`tauline help ${command.name}\`\n`,
+    );
     return 2;
   }
   io.out(commandHelp(command));
@@ -100,7 +113,7 @@ export async function main(argv: string[], io: Io = processIo): Promise<number> 
   };
   try {
     const args = parseCommandArgs(command, rest);
-    if (args.values['help']) {
+    if (args.values.help) {
       io.out(commandHelp(command));
       return 0;
     }

@@ -15,19 +15,34 @@ export interface NavFileSummary {
   readonly satelliteSystem: string;
   /** GPS − UTC leap seconds from the header, in seconds, or null when absent. */
   readonly leapSeconds: number | null;
-  readonly ionosphere: readonly { readonly type: string; readonly parametersBroadcastUnits: readonly (number | null)[] }[];
+  readonly ionosphere: readonly {
+    readonly type: string;
+    readonly parametersBroadcastUnits: readonly (number | null)[];
+  }[];
   readonly timeSystemCorrections: readonly {
-    readonly type: string; readonly a0: number; readonly a1: number; readonly referenceSecondsOfWeek: number; readonly referenceWeek: number;
+    readonly type: string;
+    readonly a0: number;
+    readonly a1: number;
+    readonly referenceSecondsOfWeek: number;
+    readonly referenceWeek: number;
   }[];
 }
 
 /** The summary of a header (line numbers dropped: they describe the file, not the parameters). */
 export function summariseNavHeader(file: string, h: RinexNavHeader): NavFileSummary {
   return {
-    file, version: h.version, fileType: h.fileType, satelliteSystem: h.satelliteSystem, leapSeconds: h.leapSeconds?.current ?? null,
+    file,
+    version: h.version,
+    fileType: h.fileType,
+    satelliteSystem: h.satelliteSystem,
+    leapSeconds: h.leapSeconds?.current ?? null,
     ionosphere: h.ionosphere.map((p) => ({ type: p.type, parametersBroadcastUnits: p.parametersBroadcastUnits })),
     timeSystemCorrections: h.timeSystemCorrections.map((c) => ({
-      type: c.type, a0: c.a0, a1: c.a1, referenceSecondsOfWeek: c.referenceSecondsOfWeek, referenceWeek: c.referenceWeek,
+      type: c.type,
+      a0: c.a0,
+      a1: c.a1,
+      referenceSecondsOfWeek: c.referenceSecondsOfWeek,
+      referenceWeek: c.referenceWeek,
     })),
   };
 }
@@ -35,8 +50,11 @@ export function summariseNavHeader(file: string, h: RinexNavHeader): NavFileSumm
 /** Units of the `files[]` fields, for the JSON `units` object. */
 export const NAV_FILE_UNITS = {
   leapSeconds: 's',
-  parametersBroadcastUnits: 'as broadcast: Klobuchar α_n and β_n in s/semicircle^n (GPSA, GPSB, QZSA, BDSA, ...), Galileo a_i in sfu, sfu/degree, sfu/degree²',
-  a0: 's', a1: 's/s', referenceSecondsOfWeek: 's',
+  parametersBroadcastUnits:
+    'as broadcast: Klobuchar α_n and β_n in s/semicircle^n (GPSA, GPSB, QZSA, BDSA, ...), Galileo a_i in sfu, sfu/degree, sfu/degree²',
+  a0: 's',
+  a1: 's/s',
+  referenceSecondsOfWeek: 's',
 } as const;
 
 /** Human lines describing the header parameters, one block per file. */
@@ -44,9 +62,14 @@ export function navHeaderLines(files: readonly NavFileSummary[]): string[] {
   const out: string[] = [];
   for (const f of files) {
     const parts = [`RINEX ${f.version.toFixed(2)} ${f.fileType}`, `leap seconds ${f.leapSeconds ?? 'not given'}`];
-    for (const p of f.ionosphere) parts.push(`ionosphere ${p.type} ${p.parametersBroadcastUnits.map((v) => (v === null ? 'blank' : v.toExponential(4))).join(' ')}`);
+    for (const p of f.ionosphere)
+      parts.push(
+        `ionosphere ${p.type} ${p.parametersBroadcastUnits.map((v) => (v === null ? 'blank' : v.toExponential(4))).join(' ')}`,
+      );
     for (const c of f.timeSystemCorrections) {
-      parts.push(`${c.type} a0 ${c.a0.toExponential(10)} s, a1 ${c.a1.toExponential(9)} s/s, t_ref ${c.referenceSecondsOfWeek} s of week ${c.referenceWeek}`);
+      parts.push(
+        `${c.type} a0 ${c.a0.toExponential(10)} s, a1 ${c.a1.toExponential(9)} s/s, t_ref ${c.referenceSecondsOfWeek} s of week ${c.referenceWeek}`,
+      );
     }
     out.push(`  ${f.file}: ${parts.join('; ')}`);
   }
@@ -59,18 +82,28 @@ export function navHeaderLines(files: readonly NavFileSummary[]): string[] {
  * `outsideWindow` counts the satellite's records dropped because their fit interval misses the whole window.
  * `reason` is the full sentence (JSON), `short` fits a table column.
  */
-export function noRecordReason(records: readonly RinexNavEphemeris[], t: number, includeUnhealthy: boolean, scaleLabel: string,
-  outsideWindow = 0): { reason: string; short: string } {
+export function noRecordReason(
+  records: readonly RinexNavEphemeris[],
+  t: number,
+  includeUnhealthy: boolean,
+  scaleLabel: string,
+  outsideWindow = 0,
+): { reason: string; short: string } {
   if (records.length === 0 && outsideWindow > 0) {
     return {
       reason: `no record of this satellite near the requested window (${outsideWindow} record(s) in the files have fit intervals entirely outside it)`,
       short: 'no record near the window',
     };
   }
-  if (records.length === 0) return { reason: 'no record of this satellite in the files', short: 'no record in the files' };
+  if (records.length === 0)
+    return { reason: 'no record of this satellite in the files', short: 'no record in the files' };
   const usable = includeUnhealthy ? records : records.filter((r) => r.health === 0);
   if (usable.length === 0) {
-    return { reason: 'no healthy record (every record of this satellite has a non-zero health word; --include-unhealthy uses them)', short: 'no healthy record' };
+    return {
+      reason:
+        'no healthy record (every record of this satellite has a non-zero health word; --include-unhealthy uses them)',
+      short: 'no healthy record',
+    };
   }
   // The first record closest to t (usable is not empty here).
   const nearest = usable.reduce((best, r) => (Math.abs(t - r.toeSeconds) < Math.abs(t - best.toeSeconds) ? r : best));
@@ -78,10 +111,16 @@ export function noRecordReason(records: readonly RinexNavEphemeris[], t: number,
   const half = nearest.fitIntervalSeconds / 2;
   const what = `the fit interval of the nearest healthy record (t_oe ${at(nearest.toeSeconds)}, fit ${nearest.fitIntervalSeconds / 3600} h`;
   if (t > nearest.toeSeconds + half) {
-    return { reason: `after the end of ${what}, valid to ${at(nearest.toeSeconds + half)}): not extrapolated`, short: `fit interval ended ${at(nearest.toeSeconds + half)}` };
+    return {
+      reason: `after the end of ${what}, valid to ${at(nearest.toeSeconds + half)}): not extrapolated`,
+      short: `fit interval ended ${at(nearest.toeSeconds + half)}`,
+    };
   }
   if (t < nearest.toeSeconds - half) {
-    return { reason: `before the start of ${what}, valid from ${at(nearest.toeSeconds - half)}): not extrapolated`, short: `fit interval starts ${at(nearest.toeSeconds - half)}` };
+    return {
+      reason: `before the start of ${what}, valid from ${at(nearest.toeSeconds - half)}): not extrapolated`,
+      short: `fit interval starts ${at(nearest.toeSeconds - half)}`,
+    };
   }
   return { reason: 'no healthy record whose fit interval covers this time', short: 'no healthy record covers t' };
 }

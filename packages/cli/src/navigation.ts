@@ -3,11 +3,11 @@
  * (`broadcast`, `precise --nav`): streamed, bounded by a window, with a byte progress bar on a terminal.
  */
 import { statSync } from 'node:fs';
-import { SYSTEM_TIME_SCALE, type KeplerianSystem } from '@tauline/sdk/orbit';
-import { readRinexNav, type RinexNavEphemeris } from '@tauline/sdk/io';
+import { type RinexNavEphemeris, readRinexNav } from '@tauline/sdk/io';
+import { type KeplerianSystem, SYSTEM_TIME_SCALE } from '@tauline/sdk/orbit';
 import type { TimeScale } from '@tauline/sdk/time';
-import { UsageError, progressBar, type Io } from './framework.js';
-import { MAX_NAVIGATION_BYTES, STANDARD_INPUT, requireRegularFile, sourceLabel, textChunks } from './files.js';
+import { MAX_NAVIGATION_BYTES, requireRegularFile, STANDARD_INPUT, sourceLabel, textChunks } from './files.js';
+import { type Io, progressBar, UsageError } from './framework.js';
 import { type NavFileSummary, summariseNavHeader } from './nav-summary.js';
 
 /** Input size above which a progress bar is drawn on a terminal, in bytes. */
@@ -33,7 +33,12 @@ export function progress(io: Io, label: string, totalBytes: number): { add: (n: 
  * Streams a file (or standard input for `-`) as UTF-8 chunks, reporting each chunk's size to `onChunk`;
  * a pipe, device, directory, binary content or more than `maxBytes` is refused (see `textChunks`).
  */
-export function fileChunks(path: string, what: string, onChunk: (bytes: number) => void, maxBytes?: number): AsyncGenerator<string> {
+export function fileChunks(
+  path: string,
+  what: string,
+  onChunk: (bytes: number) => void,
+  maxBytes?: number,
+): AsyncGenerator<string> {
   return textChunks(path, what, { onChunk, ...(maxBytes !== undefined ? { maxBytes } : {}) });
 }
 
@@ -72,8 +77,12 @@ export interface LoadedNavigation {
  * (all when undefined) whose fit interval overlaps [from, to] of their own system's scale.
  * Memory is bounded by the window, not by the files.
  */
-export async function loadNavigation(paths: readonly string[], io: Io, window: (system: KeplerianSystem) => { from: number; to: number },
-  filter: ReadonlySet<string> | undefined): Promise<LoadedNavigation> {
+export async function loadNavigation(
+  paths: readonly string[],
+  io: Io,
+  window: (system: KeplerianSystem) => { from: number; to: number },
+  filter: ReadonlySet<string> | undefined,
+): Promise<LoadedNavigation> {
   const records = new Map<string, RinexNavEphemeris[]>();
   const skipped = new Map<string, number>();
   let outsideWindow = 0;
@@ -81,11 +90,14 @@ export async function loadNavigation(paths: readonly string[], io: Io, window: (
   let leapSeconds: number | undefined;
   const files: NavFileSummary[] = [];
   for (const path of paths) await requireRegularFile(path, 'a RINEX navigation file', MAX_NAVIGATION_BYTES);
-  if (paths.filter((p) => p === STANDARD_INPUT).length > 1) throw new UsageError('- (standard input) can be read once only; give it once');
+  if (paths.filter((p) => p === STANDARD_INPUT).length > 1)
+    throw new UsageError('- (standard input) can be read once only; give it once');
   const bar = progress(io, 'reading navigation data', totalSize(paths));
   try {
     for (const path of paths) {
-      for await (const ev of readRinexNav(fileChunks(path, 'a RINEX navigation file', bar.add, MAX_NAVIGATION_BYTES), { sourceName: sourceLabel(path) })) {
+      for await (const ev of readRinexNav(fileChunks(path, 'a RINEX navigation file', bar.add, MAX_NAVIGATION_BYTES), {
+        sourceName: sourceLabel(path),
+      })) {
         if (ev.kind === 'header') {
           leapSeconds ??= ev.header.leapSeconds?.current;
           files.push(summariseNavHeader(path, ev.header));
@@ -96,7 +108,10 @@ export async function loadNavigation(paths: readonly string[], io: Io, window: (
           const eph = ev.ephemeris;
           if (filter && !filter.has(eph.satellite)) continue;
           const w = window(eph.system);
-          if (eph.toeSeconds + eph.fitIntervalSeconds / 2 < w.from || eph.toeSeconds - eph.fitIntervalSeconds / 2 > w.to) {
+          if (
+            eph.toeSeconds + eph.fitIntervalSeconds / 2 < w.from ||
+            eph.toeSeconds - eph.fitIntervalSeconds / 2 > w.to
+          ) {
             outsideWindow++;
             outsideWindowBySatellite.set(eph.satellite, (outsideWindowBySatellite.get(eph.satellite) ?? 0) + 1);
             continue;

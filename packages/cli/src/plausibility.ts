@@ -19,7 +19,7 @@ export function warn(io: Io, command: string, text: string): void {
 export function angleHint(flag: string, radians: number): string | undefined {
   const a = Math.abs(radians);
   if (!(a > 2 * Math.PI && a <= 360)) return undefined;
-  return `${flag} ${radians} rad is more than one turn (2π ≈ 6.283 rad); if it is in degrees, give ${Number((radians * Math.PI / 180).toPrecision(10))} rad`;
+  return `${flag} ${radians} rad is more than one turn (2π ≈ 6.283 rad); if it is in degrees, give ${Number(((radians * Math.PI) / 180).toPrecision(10))} rad`;
 }
 
 /** Lowest oscillator frequency taken without a hint, in Hz: frequency standards run at kHz to GHz (common practice, no source). */
@@ -39,8 +39,10 @@ export function frequencyHint(flag: string, hertz: number): string | undefined {
 export function speedHint(flag: string, speed: number, radius: number, gm: number): string | undefined {
   const circular = Math.sqrt(gm / radius);
   if (!(radius > 0 && speed < 0.01 * circular)) return undefined;
-  return `${flag} ${Number(speed.toPrecision(6))} m/s is under 1 % of the circular speed at r = ${radius} m ` +
-    `(${circular.toFixed(1)} m/s); if the velocity is in km/s, multiply it by 1000`;
+  return (
+    `${flag} ${Number(speed.toPrecision(6))} m/s is under 1 % of the circular speed at r = ${radius} m ` +
+    `(${circular.toFixed(1)} m/s); if the velocity is in km/s, multiply it by 1000`
+  );
 }
 
 /** Largest phase-noise σ taken without a hint, in seconds (phase measurement noise is ps to ns; common practice, no source). */

@@ -74,7 +74,15 @@ export class SimulatePool {
     const tasks = this.workers.slice(0, n).map((worker, w) => {
       const firstRun = Math.floor((w * job.runs) / n);
       const runCount = Math.floor(((w + 1) * job.runs) / n) - firstRun;
-      const task: SimulateTask = { id: this.nextId++, scenario: job.scenario, commands: job.commands, seed: job.seed, firstRun, runCount, ...(job.leapSeconds ? { leapSeconds: job.leapSeconds } : {}) };
+      const task: SimulateTask = {
+        id: this.nextId++,
+        scenario: job.scenario,
+        commands: job.commands,
+        seed: job.seed,
+        firstRun,
+        runCount,
+        ...(job.leapSeconds ? { leapSeconds: job.leapSeconds } : {}),
+      };
       return new Promise<MonteCarloPart>((resolve, reject) => {
         let reported = 0;
         const onError = (error: Error): void => {
@@ -91,8 +99,10 @@ export class SimulatePool {
           }
           worker.off('message', onMessage);
           worker.off('error', onError);
-          if (reply.error !== undefined) return reject(new Error(`simulation worker: ${reply.error}`));
-          if (reply.part === undefined) return reject(new Error('simulation worker: a final reply without its part'));
+          if (reply.error !== undefined || reply.part === undefined) {
+            reject(new Error(`simulation worker: ${reply.error ?? 'a final reply without its part'}`));
+            return;
+          }
           done += runCount - reported;
           onProgress?.(done, job.runs);
           resolve(reply.part);

@@ -4,7 +4,7 @@
  * simulate-pool.ts from the built CLI (dist/simulate-worker.js).
  */
 import { parentPort } from 'node:worker_threads';
-import { simulatePlanRuns, type SteeringCommand } from '@tauline/sdk/steering';
+import { type SteeringCommand, simulatePlanRuns } from '@tauline/sdk/steering';
 import { createTimeScales, type LeapSecondTable } from '@tauline/sdk/time';
 
 /** One task: the runs firstRun … firstRun + runCount − 1 of a plan. */
@@ -24,15 +24,28 @@ const PROGRESS_EVERY = 50;
 const port = parentPort; // null when this file is not run as a worker: then it does nothing
 port?.on('message', (task: SimulateTask) => {
   try {
-    const part = simulatePlanRuns(task.scenario, { commands: task.commands }, {
-      seed: task.seed, firstRun: task.firstRun, runCount: task.runCount,
-      ...(task.leapSeconds ? { timeScales: createTimeScales(task.leapSeconds) } : {}),
-      onProgress: (done) => {
-        if (done % PROGRESS_EVERY === 0) port.postMessage({ id: task.id, progress: PROGRESS_EVERY });
+    const part = simulatePlanRuns(
+      task.scenario,
+      { commands: task.commands },
+      {
+        seed: task.seed,
+        firstRun: task.firstRun,
+        runCount: task.runCount,
+        ...(task.leapSeconds ? { timeScales: createTimeScales(task.leapSeconds) } : {}),
+        onProgress: (done) => {
+          if (done % PROGRESS_EVERY === 0) port.postMessage({ id: task.id, progress: PROGRESS_EVERY });
+        },
       },
-    });
-    port.postMessage({ id: task.id, part }, [part.insideByEpoch.buffer as ArrayBuffer, part.alwaysInsideByRun.buffer as ArrayBuffer, part.worstByRunSeconds.buffer as ArrayBuffer]);
+    );
+    port.postMessage({ id: task.id, part }, [
+      part.insideByEpoch.buffer as ArrayBuffer,
+      part.alwaysInsideByRun.buffer as ArrayBuffer,
+      part.worstByRunSeconds.buffer as ArrayBuffer,
+    ]);
   } catch (error) {
-    port.postMessage({ id: task.id, error: error instanceof Error ? `${error.name}: ${error.message}` : String(error) });
+    port.postMessage({
+      id: task.id,
+      error: error instanceof Error ? `${error.name}: ${error.message}` : String(error),
+    });
   }
 });

@@ -2,10 +2,20 @@
 
 /** Units of the plan's JSON fields (`units` in `tauline plan --json`). */
 export const PLAN_UNITS = {
-  uplinkAt: 'ISO 8601 UTC', executeAt: 'ISO 8601 UTC', fractionalFrequencyStep: 'dimensionless (Δf/f)', phaseStepSeconds: 's',
-  actuatorSteps: 'actuator resolution steps', 't': 's since the scenario epoch (elapsed SI seconds)', phaseSeconds: 's', sigmaSeconds: 's',
-  worstPredictedOffsetSeconds: 's', worstOffsetBoundSeconds: 's', probabilityInTolerance: 'dimensionless (probability)',
-  totalFrequencySteering: 'dimensionless', totalPhaseSteeringSeconds: 's', expectedCost: 'dimensionless',
+  uplinkAt: 'ISO 8601 UTC',
+  executeAt: 'ISO 8601 UTC',
+  fractionalFrequencyStep: 'dimensionless (Δf/f)',
+  phaseStepSeconds: 's',
+  actuatorSteps: 'actuator resolution steps',
+  t: 's since the scenario epoch (elapsed SI seconds)',
+  phaseSeconds: 's',
+  sigmaSeconds: 's',
+  worstPredictedOffsetSeconds: 's',
+  worstOffsetBoundSeconds: 's',
+  probabilityInTolerance: 'dimensionless (probability)',
+  totalFrequencySteering: 'dimensionless',
+  totalPhaseSteeringSeconds: 's',
+  expectedCost: 'dimensionless',
   settledAfterSeconds: 's since the scenario epoch (null: never)',
 } as const;
 

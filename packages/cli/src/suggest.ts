@@ -8,12 +8,15 @@
 export function editDistance(a: string, b: string): number {
   const rows = a.length + 1;
   const cols = b.length + 1;
-  const d: number[][] = Array.from({ length: rows }, (_, i) => Array.from({ length: cols }, (_, j) => (i === 0 ? j : j === 0 ? i : 0)));
+  const d: number[][] = Array.from({ length: rows }, (_, i) =>
+    Array.from({ length: cols }, (_, j) => (i === 0 ? j : j === 0 ? i : 0)),
+  );
   for (let i = 1; i < rows; i++) {
     for (let j = 1; j < cols; j++) {
       const cost = a[i - 1] === b[j - 1] ? 0 : 1;
       let best = Math.min(d[i - 1]![j]! + 1, d[i]![j - 1]! + 1, d[i - 1]![j - 1]! + cost);
-      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) best = Math.min(best, d[i - 2]![j - 2]! + 1);
+      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1])
+        best = Math.min(best, d[i - 2]![j - 2]! + 1);
       d[i]![j] = best;
     }
   }
@@ -41,7 +44,9 @@ export function closestNames(typed: string, known: readonly string[]): string[] 
 
 /** ` (did you mean --a or --b?)`-style suffix for a message, or '' when nothing is close; `prefix` is put before each name. */
 export function didYouMean(typed: string, known: readonly string[], prefix = ''): string {
-  const names = closestNames(typed, known).slice(0, 3).map((n) => `${prefix}${n}`);
+  const names = closestNames(typed, known)
+    .slice(0, 3)
+    .map((n) => `${prefix}${n}`);
   if (names.length === 0) return '';
   return `; did you mean ${names.length === 1 ? names[0] : `${names.slice(0, -1).join(', ')} or ${names[names.length - 1]}`}?`;
 }

@@ -3,15 +3,15 @@
  * field, the value and what was expected; the shared file reader; `--format` beside `--json`/`--csv`;
  * units and cautions in the JSON. Run in-process (no build needed).
  */
-import { chmodSync, mkdtempSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { chmodSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { describe, expect, it } from 'vitest';
 import { ParseError } from '@tauline/sdk/errors';
-import { runCli, type CliRun } from './run.js';
-import { describeFailure } from '../src/framework.js';
+import { describe, expect, it } from 'vitest';
 import { jsonErrorOffset, lineColumn, readJsonFile } from '../src/files.js';
+import { describeFailure } from '../src/framework.js';
+import { type CliRun, runCli } from './run.js';
 
 const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
 const ORIN = join(ROOT, 'packages/sdk/examples/steering/orin-3-meo.json');
@@ -56,8 +56,12 @@ describe('files: the shared JSON reader (plan, simulate, review)', () => {
   });
 
   it('readJsonFile(path, what) names file, line, column and the text found for a syntax error, an empty file and a truncated file', async () => {
-    await expect(readJsonFile(syntax, 'a steering scenario')).rejects.toThrow(/syntax\.json:3:8: expected valid JSON \(a steering scenario\); found "}"/);
-    await expect(readJsonFile(empty, 'a review file')).rejects.toThrow(/empty\.json:1:1: expected a review file \(JSON\); found "an empty file"/);
+    await expect(readJsonFile(syntax, 'a steering scenario')).rejects.toThrow(
+      /syntax\.json:3:8: expected valid JSON \(a steering scenario\); found "}"/,
+    );
+    await expect(readJsonFile(empty, 'a review file')).rejects.toThrow(
+      /empty\.json:1:1: expected a review file \(JSON\); found "an empty file"/,
+    );
     await expect(readJsonFile(truncated)).rejects.toThrow(/found "the end of the file \(truncated\?\)"/);
     await expect(readJsonFile(syntax)).rejects.toBeInstanceOf(ParseError);
     await expect(readJsonFile(dir, 'a review file')).rejects.toThrow(/is a directory; expected a review file \(JSON\)/);
@@ -74,14 +78,19 @@ describe('files: the shared JSON reader (plan, simulate, review)', () => {
       await expectOneLine([...cmd, dir], /is a directory/);
       await expectOneLine([...cmd, join(tmp, 'missing.json')], /no such file/);
     }
-    await expectOneLine(['plan', ORIN, '--leap-seconds', dir], /is a directory; expected an IERS\/NIST leap-seconds\.list/);
+    await expectOneLine(
+      ['plan', ORIN, '--leap-seconds', dir],
+      /is a directory; expected an IERS\/NIST leap-seconds\.list/,
+    );
   });
 });
 
 describe('framework: flags', () => {
   it('a flag given twice is refused naming both values, not silently the last one', async () => {
-    await expectOneLine(['rate', '--semi-major-axis', '26561750', '--semi-major-axis', '7000000'],
-      /--semi-major-axis is given more than once \("26561750" and "7000000"\)/);
+    await expectOneLine(
+      ['rate', '--semi-major-axis', '26561750', '--semi-major-axis', '7000000'],
+      /--semi-major-axis is given more than once \("26561750" and "7000000"\)/,
+    );
   });
 
   it('a missing required flag quotes its help (unit and example)', async () => {
@@ -90,7 +99,11 @@ describe('framework: flags', () => {
   });
 
   it('describeFailure(error) maps unusable-file errors (EISDIR, EACCES, ENOTDIR) to exit 2 with the reason', () => {
-    for (const [code, reason] of [['EISDIR', 'directory'], ['EACCES', 'permission denied'], ['ENOTDIR', 'not a directory']] as const) {
+    for (const [code, reason] of [
+      ['EISDIR', 'directory'],
+      ['EACCES', 'permission denied'],
+      ['ENOTDIR', 'not a directory'],
+    ] as const) {
       const e = Object.assign(new Error(code), { code, path: '/x/y' });
       const d = describeFailure(e);
       expect(d.status).toBe(2);
@@ -132,17 +145,26 @@ describe('framework: flags', () => {
   });
 
   it('--format csv prints what --csv prints (broadcast, precise); conflicting or unknown formats exit 2', async () => {
-    for (const argv of [['broadcast', NAV, ...WINDOW, '--satellite', 'G05'], ['precise', SP3]]) {
+    for (const argv of [
+      ['broadcast', NAV, ...WINDOW, '--satellite', 'G05'],
+      ['precise', SP3],
+    ]) {
       expect((await run(...argv, '--csv')).out).toBe((await run(...argv, '--format', 'csv')).out);
       await expectOneLine([...argv, '--format', 'json', '--csv'], /--format json and --csv cannot be combined/);
     }
-    await expectOneLine(['rate', '--semi-major-axis', '26561750', '--format', 'xml'], /--format must be one of table, json; received "xml"/);
+    await expectOneLine(
+      ['rate', '--semi-major-axis', '26561750', '--format', 'xml'],
+      /--format must be one of table, json; received "xml"/,
+    );
     await expectOneLine(['review', REVIEW, '--format', 'md', '--json'], /--format md and --json cannot be combined/);
   });
 
   it('--seed has one range, [0, 4294967295], for review and simulate (a wider seed would alias another after the 32-bit reduction)', async () => {
     for (const seed of ['-1', '4294967296', '1.5']) {
-      await expectOneLine(['simulate', ORIN, '--runs', '5', '--seed', seed], /--seed must be an integer in \[0, 4294967295\]/);
+      await expectOneLine(
+        ['simulate', ORIN, '--runs', '5', '--seed', seed],
+        /--seed must be an integer in \[0, 4294967295\]/,
+      );
       await expectOneLine(['review', REVIEW, '--seed', seed], /--seed must be an integer in \[0, 4294967295\]/);
     }
     expect((await run('simulate', ORIN, '--runs', '5', '--seed', '4294967295', '--json')).status).toBe(0);
@@ -151,42 +173,84 @@ describe('framework: flags', () => {
 
 describe('commands: nonsense that used to pass', () => {
   it('tauline periodic refuses |M| > 1e9 rad (a double no longer holds M modulo 2π)', async () => {
-    await expectOneLine(['periodic', '--semi-major-axis', '26561750', '--eccentricity', '0.01', '--mean-anomaly', '1e30'],
-      /--mean-anomaly must be in \[−1e9, 1e9\] rad; received 1e\+30/);
-    expect((await run('periodic', '--semi-major-axis', '26561750', '--eccentricity', '0.01', '--mean-anomaly', '-1e9')).status).toBe(0);
+    await expectOneLine(
+      ['periodic', '--semi-major-axis', '26561750', '--eccentricity', '0.01', '--mean-anomaly', '1e30'],
+      /--mean-anomaly must be in \[−1e9, 1e9\] rad; received 1e\+30/,
+    );
+    expect(
+      (await run('periodic', '--semi-major-axis', '26561750', '--eccentricity', '0.01', '--mean-anomaly', '-1e9'))
+        .status,
+    ).toBe(0);
   });
 
   it('tauline propertime refuses an unbound (hyperbolic) state, naming the escape speed √(2GM/r) (5478.4 m/s at 26 561 750 m, IERS 2010 GM [C])', async () => {
-    await expectOneLine(['propertime', '--state', '26561750,0,0,0,9000,0', '--duration', '600', '--step', '60'],
-      /--state \(\|velocity\|\) must be below the escape speed √\(2GM\/r\) = 5478\.4 m\/s at r = 26561750 m.*received 9000/);
-    await expectOneLine(['propertime', '--state', '26561750,0,0,0,3873800,0', '--duration', '600', '--step', '60'], /looks like mm\/s or cm\/s/);
+    await expectOneLine(
+      ['propertime', '--state', '26561750,0,0,0,9000,0', '--duration', '600', '--step', '60'],
+      /--state \(\|velocity\|\) must be below the escape speed √\(2GM\/r\) = 5478\.4 m\/s at r = 26561750 m.*received 9000/,
+    );
+    await expectOneLine(
+      ['propertime', '--state', '26561750,0,0,0,3873800,0', '--duration', '600', '--step', '60'],
+      /looks like mm\/s or cm\/s/,
+    );
   });
 
   it('tauline stability: a directory, a record under 4 points, no usable τ, a confidence outside (0, 1) exit 2 naming the flag', async () => {
     const short = join(tmp, 'short.txt');
     writeFileSync(short, '1e-9\n2e-9\n3e-9\n');
     await expectOneLine(['stability', '--phase', dir, '--tau0', '1'], /is a directory; expected a phase record/);
-    await expectOneLine(['stability', '--phase', short, '--tau0', '1'], /--phase must be a record of at least 4 phase points.*it has 3 sample/);
-    await expectOneLine(['stability', '--phase', NBS14, '--tau0', '1', '--taus', '100'],
-      /--taus must be a request in which at least one τ has a complete \(gap-free\) term; received "100"\. the record has 10 phase points.*oadev reaches τ = ⌊\(N − 1\)\/2⌋·τ0 = 4 s/);
-    await expectOneLine(['stability', '--phase', NBS14, '--tau0', '1', '--confidence', '0'], /--confidence must be in \(0, 1\)/);
-    await expectOneLine(['stability', '--phase', NBS14, '--tau0', '1', '--confidence', '95'], /a fraction, not a percentage/);
-    await expectOneLine(['stability', '--phase', NBS14, '--tau0', '-1'], /^tauline stability: invalid input: --tau0 must be/);
+    await expectOneLine(
+      ['stability', '--phase', short, '--tau0', '1'],
+      /--phase must be a record of at least 4 phase points.*it has 3 sample/,
+    );
+    await expectOneLine(
+      ['stability', '--phase', NBS14, '--tau0', '1', '--taus', '100'],
+      /--taus must be a request in which at least one τ has a complete \(gap-free\) term; received "100"\. the record has 10 phase points.*oadev reaches τ = ⌊\(N − 1\)\/2⌋·τ0 = 4 s/,
+    );
+    await expectOneLine(
+      ['stability', '--phase', NBS14, '--tau0', '1', '--confidence', '0'],
+      /--confidence must be in \(0, 1\)/,
+    );
+    await expectOneLine(
+      ['stability', '--phase', NBS14, '--tau0', '1', '--confidence', '95'],
+      /a fraction, not a percentage/,
+    );
+    await expectOneLine(
+      ['stability', '--phase', NBS14, '--tau0', '-1'],
+      /^tauline stability: invalid input: --tau0 must be/,
+    );
   });
 
   it('tauline clock: a directory (phase or RINEX clock) and a record too short for the noise estimate exit 2 naming the file or flag', async () => {
     const short = join(tmp, 'clock-short.txt');
     writeFileSync(short, '1e-9\n2e-9\n3e-9\n');
-    await expectOneLine(['clock', '--phase', dir, '--tau0', '1'], /"[^"]*a-directory" is a directory; expected a phase record/);
-    await expectOneLine(['clock', '--rinex-clock', dir, '--clock', 'G05'], /"[^"]*a-directory" is a directory; expected a RINEX clock file/);
-    await expectOneLine(['clock', '--phase', short, '--tau0', '1'], /^tauline clock: --phase .*clock-short\.txt has 3 phase samples; the clock model needs at least 12/);
+    await expectOneLine(
+      ['clock', '--phase', dir, '--tau0', '1'],
+      /"[^"]*a-directory" is a directory; expected a phase record/,
+    );
+    await expectOneLine(
+      ['clock', '--rinex-clock', dir, '--clock', 'G05'],
+      /"[^"]*a-directory" is a directory; expected a RINEX clock file/,
+    );
+    await expectOneLine(
+      ['clock', '--phase', short, '--tau0', '1'],
+      /^tauline clock: --phase .*clock-short\.txt has 3 phase samples; the clock model needs at least 12/,
+    );
   });
 
   it('tauline stability and clock: a RINEX clock with a single epoch asks for a longer file (--tau0 cannot help)', async () => {
     const one = join(tmp, 'one-epoch.clk');
-    writeFileSync(one, readFileSync(join(ROOT, 'test/fixtures/rinex-clock/fictional-304.clk'), 'utf8').split('\n').slice(0, 7).join('\n') + '\n');
+    writeFileSync(
+      one,
+      `${readFileSync(join(ROOT, 'test/fixtures/rinex-clock/fictional-304.clk'), 'utf8')
+        .split('\n')
+        .slice(0, 7)
+        .join('\n')}\n`,
+    );
     for (const cmd of ['stability', 'clock']) {
-      await expectOneLine([cmd, '--rinex-clock', one, '--clock', 'G05'], new RegExp(`^tauline ${cmd}: clock G05 has a single epoch; give a longer file\n$`));
+      await expectOneLine(
+        [cmd, '--rinex-clock', one, '--clock', 'G05'],
+        new RegExp(`^tauline ${cmd}: clock G05 has a single epoch; give a longer file\n$`),
+      );
     }
   });
 
@@ -203,20 +267,41 @@ describe('commands: nonsense that used to pass', () => {
   });
 
   it('tauline precise refuses a --satellite missing from the SP3 header, and a directory', async () => {
-    await expectOneLine(['precise', SP3, '--satellite', 'G30,G99'], /--satellite must be satellites listed in the header of .*orbit-d-p\.sp3: G30, G31; received "G99"/);
+    await expectOneLine(
+      ['precise', SP3, '--satellite', 'G30,G99'],
+      /--satellite must be satellites listed in the header of .*orbit-d-p\.sp3: G30, G31; received "G99"/,
+    );
     await expectOneLine(['precise', dir], /is a directory; expected an SP3 file/);
     await expectOneLine(['precise', SP3, '--nav', dir], /is a directory; expected a RINEX navigation file/);
   });
 });
 
 describe('JSON outputs: units named, cautions carried', () => {
-  it('every command\'s JSON has a units map; flight-configuration outputs (rate, plan, review, broadcast) and simulate carry the caution', async () => {
-    const rate = JSON.parse((await run('rate', '--semi-major-axis', '26561750', '--nominal-frequency', '10.23e6', '--json')).out);
+  it("every command's JSON has a units map; flight-configuration outputs (rate, plan, review, broadcast) and simulate carry the caution", async () => {
+    const rate = JSON.parse(
+      (await run('rate', '--semi-major-axis', '26561750', '--nominal-frequency', '10.23e6', '--json')).out,
+    );
     expect(rate.units).toMatchObject({ semiMajorAxis: 'm', microsecondsPerDay: 'µs per day', offsetFrequencyHz: 'Hz' });
     expect(rate.caution).toMatch(/interface specification.*responsible engineering authority/);
-    const periodic = JSON.parse((await run('periodic', '--semi-major-axis', '26561750', '--eccentricity', '0.01', '--mean-anomaly', '1', '--json')).out);
+    const periodic = JSON.parse(
+      (
+        await run(
+          'periodic',
+          '--semi-major-axis',
+          '26561750',
+          '--eccentricity',
+          '0.01',
+          '--mean-anomaly',
+          '1',
+          '--json',
+        )
+      ).out,
+    );
     expect(periodic.units).toMatchObject({ correctionSeconds: 's', meanAnomaly: 'rad', relativisticF: 's/√m' });
-    const pt = JSON.parse((await run('propertime', '--state', '26561750,0,0,0,3873.8,0', '--duration', '600', '--step', '300', '--json')).out);
+    const pt = JSON.parse(
+      (await run('propertime', '--state', '26561750,0,0,0,3873.8,0', '--duration', '600', '--step', '300', '--json'))
+        .out,
+    );
     expect(pt.units).toMatchObject({ tauMinusTT: 's' });
     const st = JSON.parse((await run('stability', '--phase', NBS14, '--tau0', '1', '--json')).out);
     expect(st.units).toMatchObject({ tau: 's', tdev: 's' });
@@ -236,10 +321,17 @@ describe('JSON outputs: units named, cautions carried', () => {
   });
 
   it('the table forms of rate, plan, simulate, review and broadcast print the caution', async () => {
-    for (const argv of [['rate', '--semi-major-axis', '26561750'], ['plan', ORIN], ['simulate', ORIN, '--runs', '5'],
-      ['review', REVIEW, '--runs', '200'], ['broadcast', NAV, ...WINDOW, '--satellite', 'G05']]) {
+    for (const argv of [
+      ['rate', '--semi-major-axis', '26561750'],
+      ['plan', ORIN],
+      ['simulate', ORIN, '--runs', '5'],
+      ['review', REVIEW, '--runs', '200'],
+      ['broadcast', NAV, ...WINDOW, '--satellite', 'G05'],
+    ]) {
       // Fitted to 100 columns the caution may break across lines: compare with line breaks as spaces.
-      expect((await run(...argv)).out.replace(/\s+/g, ' '), argv[0]).toMatch(/interface specification.*responsible engineering authority/);
+      expect((await run(...argv)).out.replace(/\s+/g, ' '), argv[0]).toMatch(
+        /interface specification.*responsible engineering authority/,
+      );
     }
   });
 });

@@ -5,15 +5,24 @@
  * vitest timeout given to each test (a bound on a hang, not a speed target). Limits: common practice, no source.
  */
 import { spawnSync } from 'node:child_process';
-import { closeSync, existsSync, mkdirSync, mkdtempSync, openSync, readFileSync, truncateSync, writeFileSync } from 'node:fs';
+import {
+  closeSync,
+  existsSync,
+  mkdirSync,
+  mkdtempSync,
+  openSync,
+  readFileSync,
+  truncateSync,
+  writeFileSync,
+} from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { describe, expect, it } from 'vitest';
 import { MAX_LINE_CHARACTERS } from '@tauline/sdk/io';
-import { runCli, type CliRun } from './run.js';
-import { OutputError, describeFailure, escapeControlCharacters } from '../src/framework.js';
+import { describe, expect, it } from 'vitest';
 import { MAX_DOCUMENT_BYTES, MAX_NAVIGATION_BYTES, MAX_RECORD_BYTES } from '../src/files.js';
+import { describeFailure, escapeControlCharacters, OutputError } from '../src/framework.js';
+import { type CliRun, runCli } from './run.js';
 
 const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
 const ORIN = join(ROOT, 'packages/sdk/examples/steering/orin-3-meo.json');
@@ -70,7 +79,11 @@ describe('devices, pipes, directories and huge files are refused up front (exit 
     expect(made.status).toBe(0);
     for (const argv of READERS) {
       const a = withFile(argv, fifo);
-      expectRefusal(await runCli(a), a, /is a named pipe \(FIFO\), not a regular file; expected .*\(give - to read standard input\)/);
+      expectRefusal(
+        await runCli(a),
+        a,
+        /is a named pipe \(FIFO\), not a regular file; expected .*\(give - to read standard input\)/,
+      );
     }
   }, 20_000);
 
@@ -92,12 +105,16 @@ describe('devices, pipes, directories and huge files are refused up front (exit 
       expectRefusal(await runCli(a), a, /is 5368709120 bytes, more than the (64|128|512) MiB limit for /);
     }
     const holdsWhole = await runCli(['review', big]);
-    expect(holdsWhole.err).toContain(`more than the ${MAX_DOCUMENT_BYTES / 2 ** 20} MiB limit for a review file (JSON)`);
+    expect(holdsWhole.err).toContain(
+      `more than the ${MAX_DOCUMENT_BYTES / 2 ** 20} MiB limit for a review file (JSON)`,
+    );
     const records = await runCli(['stability', '--phase', big, '--tau0', '1']);
     expect(records.err).toContain(`more than the ${MAX_RECORD_BYTES / 2 ** 20} MiB limit for a phase record`);
     const nav = await runCli(['broadcast', big, ...WINDOW]);
     expect(nav.err).toContain(`more than the ${MAX_NAVIGATION_BYTES / 2 ** 20} MiB limit for a RINEX navigation file`);
-    expect((await runCli(['precise', big])).err).toContain('more than the 128 MiB limit for an SP3 file read for table output (--csv streams any size)');
+    expect((await runCli(['precise', big])).err).toContain(
+      'more than the 128 MiB limit for an SP3 file read for table output (--csv streams any size)',
+    );
     const streamed = await runCli(['precise', big, '--csv']);
     expect(streamed.err).toMatch(/is not a text file \(a NUL byte at byte 1\); expected an SP3 file/);
   }, 20_000);
@@ -105,7 +122,11 @@ describe('devices, pipes, directories and huge files are refused up front (exit 
   it('a text file with a NUL byte in the middle is refused naming the byte', async () => {
     const nul = join(tmp, 'nul.txt');
     writeFileSync(nul, '1e-9\n2e-9\n\u00003e-9\n');
-    expectRefusal(await runCli(['stability', '--phase', nul, '--tau0', '1']), ['nul'], /"[^"]*nul\.txt" is not a text file \(a NUL byte at byte 11\); expected a phase record/);
+    expectRefusal(
+      await runCli(['stability', '--phase', nul, '--tau0', '1']),
+      ['nul'],
+      /"[^"]*nul\.txt" is not a text file \(a NUL byte at byte 11\); expected a phase record/,
+    );
   });
 });
 
@@ -128,7 +149,11 @@ describe('over-long lines and endless input are refused in bounded memory', () =
       }
     }
     const r = await runCli(['stability', '--phase', '-', '--tau0', '1'], false, endless);
-    expectRefusal(r, ['stability --phase -'], /^tauline stability: parse-error: stdin:1:1048577: expected a line of at most 1048576 characters/);
+    expectRefusal(
+      r,
+      ['stability --phase -'],
+      /^tauline stability: parse-error: stdin:1:1048577: expected a line of at most 1048576 characters/,
+    );
     expect(chunks).toBeLessThan(20);
   });
 
@@ -140,9 +165,17 @@ describe('over-long lines and endless input are refused in bounded memory', () =
         yield new Uint8Array(65_536);
       }
     }
-    for (const argv of [['review', '-'], ['broadcast', '-', ...WINDOW], ['clock', '--rinex-clock', '-', '--clock', 'G05']]) {
+    for (const argv of [
+      ['review', '-'],
+      ['broadcast', '-', ...WINDOW],
+      ['clock', '--rinex-clock', '-', '--clock', 'G05'],
+    ]) {
       chunks = 0;
-      expectRefusal(await runCli(argv, false, zeros), argv, /standard input is not a text file \(a NUL byte at byte 1\)/);
+      expectRefusal(
+        await runCli(argv, false, zeros),
+        argv,
+        /standard input is not a text file \(a NUL byte at byte 1\)/,
+      );
       expect(chunks).toBe(1);
     }
   });
@@ -151,9 +184,15 @@ describe('over-long lines and endless input are refused in bounded memory', () =
     if (!existsSync(join(ROOT, 'packages/cli/dist/main.js'))) throw new Error('build first: npm run build');
     const zero = openSync('/dev/zero', 'r');
     try {
-      const r = spawnSync(process.execPath, [BIN, 'stability', '--phase', '-', '--tau0', '1'], { stdio: [zero, 'pipe', 'pipe'], encoding: 'utf8', timeout: 15_000 });
+      const r = spawnSync(process.execPath, [BIN, 'stability', '--phase', '-', '--tau0', '1'], {
+        stdio: [zero, 'pipe', 'pipe'],
+        encoding: 'utf8',
+        timeout: 15_000,
+      });
       expect(r.status).toBe(2);
-      expect(r.stderr).toBe('tauline stability: standard input is not a text file (a NUL byte at byte 1); expected a phase record (text, one or two columns)\n');
+      expect(r.stderr).toBe(
+        'tauline stability: standard input is not a text file (a NUL byte at byte 1); expected a phase record (text, one or two columns)\n',
+      );
     } finally {
       closeSync(zero);
     }
@@ -164,7 +203,10 @@ describe('- reads standard input wherever a file is read', () => {
   it('stability, clock, broadcast, precise, plan, simulate and review give the same output from - as from the file', async () => {
     const cases: [string[], string][] = [
       [['stability', '--phase', F, '--tau0', '1', '--json'], NBS14],
-      [['clock', '--rinex-clock', F, '--clock', 'G37', '--tau0', '300', '--json'], join(ROOT, 'test/fixtures/rinex-clock/long-304.clk')],
+      [
+        ['clock', '--rinex-clock', F, '--clock', 'G37', '--tau0', '300', '--json'],
+        join(ROOT, 'test/fixtures/rinex-clock/long-304.clk'),
+      ],
       [['broadcast', F, ...WINDOW, '--satellite', 'G05', '--json'], NAV],
       [['precise', F, '--json'], SP3],
       [['plan', F, '--json'], ORIN],
@@ -176,15 +218,24 @@ describe('- reads standard input wherever a file is read', () => {
       const fromStdin = await runCli(withFile(argv, '-'), false, readFileSync(file, 'utf8'));
       expect(fromStdin.status, argv[0]).toBe(fromFile.status);
       // The output names the input as given (the path, or - / stdin); everything else is identical.
-      const same = (text: string) => text.replaceAll(file, '<input>').replaceAll('"-"', '"<input>"').replaceAll('stdin', '<input>');
+      const same = (text: string) =>
+        text.replaceAll(file, '<input>').replaceAll('"-"', '"<input>"').replaceAll('stdin', '<input>');
       expect(same(fromStdin.out), argv[0]).toBe(same(fromFile.out));
       expect(fromStdin.out.length, argv[0]).toBeGreaterThan(100);
     }
   }, 20_000);
 
   it('- given twice (broadcast files, precise SP3 and --nav) is refused: standard input can be read once', async () => {
-    expectRefusal(await runCli(['broadcast', '-', '-', ...WINDOW], false, ''), ['broadcast - -'], /standard input\) can be read once only/);
-    expectRefusal(await runCli(['precise', '-', '--nav', '-'], false, ''), ['precise - --nav -'], /standard input\) can be read once only/);
+    expectRefusal(
+      await runCli(['broadcast', '-', '-', ...WINDOW], false, ''),
+      ['broadcast - -'],
+      /standard input\) can be read once only/,
+    );
+    expectRefusal(
+      await runCli(['precise', '-', '--nav', '-'], false, ''),
+      ['precise - --nav -'],
+      /standard input\) can be read once only/,
+    );
   });
 
   it('a parse error in standard input names "stdin" with the line', async () => {
@@ -207,22 +258,44 @@ describe('- reads standard input wherever a file is read', () => {
 describe('--output failures and exit status 3', () => {
   it('tauline review --output to a missing folder or a directory says "cannot write …" with the reason and exits 2', async () => {
     const missing = join(tmp, 'no-such-folder', 'report.md');
-    expectRefusal(await runCli(['review', REVIEW, '--runs', '200', '--output', missing]), ['review --output missing'],
-      new RegExp(`^tauline review: cannot write "${missing.replace(/[.*+?^${}()|[\]\\/]/g, '\\$&')}": no such file\\n$`));
-    expectRefusal(await runCli(['review', REVIEW, '--runs', '200', '--output', tmp]), ['review --output dir'], /cannot write "[^"]+": it is a directory, not a file/);
+    expectRefusal(
+      await runCli(['review', REVIEW, '--runs', '200', '--output', missing]),
+      ['review --output missing'],
+      new RegExp(
+        `^tauline review: cannot write "${missing.replace(/[.*+?^${}()|[\]\\/]/g, '\\$&')}": no such file\\n$`,
+      ),
+    );
+    expectRefusal(
+      await runCli(['review', REVIEW, '--runs', '200', '--output', tmp]),
+      ['review --output dir'],
+      /cannot write "[^"]+": it is a directory, not a file/,
+    );
   });
 
   it('describeFailure(OutputError or a failed write) is exit 2 saying "cannot write", never the internal-error status 3', () => {
-    expect(describeFailure(new OutputError('/x', 'read-only file system'))).toEqual({ line: 'cannot write "/x": read-only file system', status: 2 });
-    const full = Object.assign(new Error('ENOSPC: no space left on device, write'), { code: 'ENOSPC', syscall: 'write' });
-    expect(describeFailure(full)).toEqual({ line: 'cannot write standard output: no space left on the device', status: 2 });
+    expect(describeFailure(new OutputError('/x', 'read-only file system'))).toEqual({
+      line: 'cannot write "/x": read-only file system',
+      status: 2,
+    });
+    const full = Object.assign(new Error('ENOSPC: no space left on device, write'), {
+      code: 'ENOSPC',
+      syscall: 'write',
+    });
+    expect(describeFailure(full)).toEqual({
+      line: 'cannot write standard output: no space left on the device',
+      status: 2,
+    });
   });
 
   it('the built binary with standard output on a full device (/dev/full) prints one line and exits 2, no stack trace', () => {
     if (!existsSync(join(ROOT, 'packages/cli/dist/main.js'))) throw new Error('build first: npm run build');
     const full = openSync('/dev/full', 'w');
     try {
-      const r = spawnSync(process.execPath, [BIN, 'rate', '--semi-major-axis', '26561750'], { stdio: ['ignore', full, 'pipe'], encoding: 'utf8', timeout: 15_000 });
+      const r = spawnSync(process.execPath, [BIN, 'rate', '--semi-major-axis', '26561750'], {
+        stdio: ['ignore', full, 'pipe'],
+        encoding: 'utf8',
+        timeout: 15_000,
+      });
       expect(r.status).toBe(2);
       expect(r.stderr).toBe('tauline: cannot write standard output: no space left on the device\n');
     } finally {

@@ -1,12 +1,12 @@
 import { readFileSync } from 'node:fs';
+import { REVIEW_CAUTION, reviewOffsets } from '@tauline/sdk/review';
 import { describe, expect, it } from 'vitest';
-import { reviewOffsets, REVIEW_CAUTION } from '@tauline/sdk/review';
 import { reviewToHtml, reviewToMarkdown, verdictExplanation } from '../src/render/review.js';
 
 const examples = new URL('../../sdk/examples/review/', import.meta.url);
 const load = (name: string): unknown => JSON.parse(readFileSync(new URL(name, examples), 'utf8'));
 
-describe('reviewToMarkdown(report) / reviewToHtml(report) (the CLI\'s renderers of an SDK review report)', () => {
+describe("reviewToMarkdown(report) / reviewToHtml(report) (the CLI's renderers of an SDK review report)", () => {
   const report = reviewOffsets(load('kestrel-block-b-mistakes.review.json'));
   it('reviewToMarkdown(report) carries the caution, a summary table and each diagnosis code', () => {
     const md = reviewToMarkdown(report);
@@ -26,7 +26,9 @@ describe('reviewToMarkdown(report) / reviewToHtml(report) (the CLI\'s renderers 
     const marginal = report.spacecraft.find((f) => f.verdict === 'marginal' && f.diagnosis.length === 0)!;
     const why = verdictExplanation(marginal)!;
     // 3.5e-13 against ±5e-13 is 70 % of the tolerance (the Block B file configures KESTREL-19 that far off).
-    expect(why).toMatch(/^No recognised mistake matches\. MARGINAL: the difference 3\.50e-13 is inside the tolerance ±5\.0e-13 but uses 70 % of it/);
+    expect(why).toMatch(
+      /^No recognised mistake matches\. MARGINAL: the difference 3\.50e-13 is inside the tolerance ±5\.0e-13 but uses 70 % of it/,
+    );
     expect(reviewToMarkdown(report)).toContain(why);
     const html = reviewToHtml(report);
     expect(html).toContain(`<p class="explanation">${why.replace(/'/g, '&#39;')}</p>`);

@@ -1,11 +1,11 @@
-import { describe, expect, it } from 'vitest';
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { runCli, type CliRun } from './run.js';
+import { describe, expect, it } from 'vitest';
 import { workerCount, workerScript } from '../src/simulate-pool.js';
+import { type CliRun, runCli } from './run.js';
 
 const ORIN = fileURLToPath(new URL('../../sdk/examples/steering/orin-3-meo.json', import.meta.url));
 /** Test leap-second table in the leap-seconds.list format, invented expiry 2036-06-28 (test/fixtures/time/SOURCE.md). */
@@ -36,7 +36,9 @@ describe('tauline simulate --workers (worker pool)', () => {
 
   it('the built binary tauline simulate --workers 1, 2, 3 and the default print byte-identical JSON and tables', () => {
     const bin = (...argv: string[]): string => {
-      const r = spawnSync(process.execPath, [BIN, 'simulate', ORIN, '--runs', '64', '--seed', '7', ...argv], { encoding: 'utf8' });
+      const r = spawnSync(process.execPath, [BIN, 'simulate', ORIN, '--runs', '64', '--seed', '7', ...argv], {
+        encoding: 'utf8',
+      });
       expect(r.stderr).toBe('');
       expect(r.status).toBe(0);
       return r.stdout;
@@ -51,8 +53,32 @@ describe('tauline simulate --workers (worker pool)', () => {
   it('tauline simulate --workers 2 --leap-seconds gives the in-process numbers for a scenario after the bundled table', async () => {
     const path = join(mkdtempSync(join(tmpdir(), 'tauline-pool-')), 'orin-2031.json');
     writeFileSync(path, readFileSync(ORIN, 'utf8').replace(/2027-02-/g, '2031-04-'));
-    const one = await run(false, path, '--runs', '20', '--strategy', 'optimal', '--leap-seconds', LEAP_LIST, '--json', '--workers', '1');
-    const two = await run(false, path, '--runs', '20', '--strategy', 'optimal', '--leap-seconds', LEAP_LIST, '--json', '--workers', '2');
+    const one = await run(
+      false,
+      path,
+      '--runs',
+      '20',
+      '--strategy',
+      'optimal',
+      '--leap-seconds',
+      LEAP_LIST,
+      '--json',
+      '--workers',
+      '1',
+    );
+    const two = await run(
+      false,
+      path,
+      '--runs',
+      '20',
+      '--strategy',
+      'optimal',
+      '--leap-seconds',
+      LEAP_LIST,
+      '--json',
+      '--workers',
+      '2',
+    );
     expect(one.status).toBe(0);
     expect(two.out).toBe(one.out);
   });
@@ -66,7 +92,11 @@ describe('tauline simulate --workers (worker pool)', () => {
   });
 
   it('tauline simulate refuses --workers 0, --workers 65 and --workers with --closed-loop (exit 2, one line)', async () => {
-    for (const argv of [['--runs', '5', '--workers', '0'], ['--runs', '5', '--workers', '65'], ['--closed-loop', '--runs', '2', '--workers', '2']]) {
+    for (const argv of [
+      ['--runs', '5', '--workers', '0'],
+      ['--runs', '5', '--workers', '65'],
+      ['--closed-loop', '--runs', '2', '--workers', '2'],
+    ]) {
       const r = await run(false, ORIN, ...argv);
       expect(r.status, argv.join(' ')).toBe(2);
       expect(r.err).toMatch(/--workers/);

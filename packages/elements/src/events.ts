@@ -46,7 +46,9 @@ declare global {
 
 /** Dispatches a bubbling, composed CustomEvent from `target`. */
 export function emit<K extends keyof TaulineEventMap>(
-  target: EventTarget, type: K, detail: TaulineEventMap[K]['detail'],
+  target: EventTarget,
+  type: K,
+  detail: TaulineEventMap[K]['detail'],
 ): boolean {
   return target.dispatchEvent(new CustomEvent(type, { detail, bubbles: true, composed: true, cancelable: false }));
 }

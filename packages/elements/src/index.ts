@@ -6,16 +6,28 @@
  *
  * @module
  */
-export { TaulineSteeringSchedule } from './steering-schedule/steering-schedule.define.js';
-export { TaulineRateBudget } from './rate-budget/rate-budget.define.js';
-export { TaulineStabilityPlot } from './stability-plot/stability-plot.define.js';
-export { TaulineReviewFindings } from './review-findings/review-findings.define.js';
-export { TaulineFleetTimeline } from './fleet-timeline/fleet-timeline.define.js';
-export type { RateBudgetData } from './rate-budget/rate-budget.js';
-export type { StabilityColumns } from './stability-plot/stability-data.js';
-export type { SteeringCommandView, PlanView } from './steering-schedule/plan-data.js';
-export type { ReviewReportView, ReviewFindingView, ReviewDiagnosisView, ReviewVerdict } from './review-findings/review-findings.js';
-export type { FleetView, SatelliteView, SupportView, StationView, FleetCommandView } from './fleet-timeline/fleet-data.js';
+
+export type { CommandSelectDetail, SpacecraftSelectDetail, TaulineEventMap, ViewChangeDetail } from './events.js';
+export type {
+  FleetCommandView,
+  FleetView,
+  SatelliteView,
+  StationView,
+  SupportView,
+} from './fleet-timeline/fleet-data.js';
 export type { SatelliteSelectDetail, SupportSelectDetail } from './fleet-timeline/fleet-events.js';
-export type { CommandSelectDetail, ViewChangeDetail, SpacecraftSelectDetail, TaulineEventMap } from './events.js';
+export { TaulineFleetTimeline } from './fleet-timeline/fleet-timeline.define.js';
 export { setWarningHandler, type WarningHandler } from './internal/warn.js';
+export { TaulineRateBudget } from './rate-budget/rate-budget.define.js';
+export type { RateBudgetData } from './rate-budget/rate-budget.js';
+export { TaulineReviewFindings } from './review-findings/review-findings.define.js';
+export type {
+  ReviewDiagnosisView,
+  ReviewFindingView,
+  ReviewReportView,
+  ReviewVerdict,
+} from './review-findings/review-findings.js';
+export type { StabilityColumns } from './stability-plot/stability-data.js';
+export { TaulineStabilityPlot } from './stability-plot/stability-plot.define.js';
+export type { PlanView, SteeringCommandView } from './steering-schedule/plan-data.js';
+export { TaulineSteeringSchedule } from './steering-schedule/steering-schedule.define.js';

@@ -21,7 +21,12 @@ interface Shown {
 }
 
 const open = (path: string, screenshot?: string): Promise<Shown> =>
-  executeServerCommand<Shown, Record<string, unknown>>('tauline-static-page', { path, width: 1000, height: 1400, screenshot });
+  executeServerCommand<Shown, Record<string, unknown>>('tauline-static-page', {
+    path,
+    width: 1000,
+    height: 1400,
+    screenshot,
+  });
 
 describe('embedding without a bundler (static server)', () => {
   it('examples/plain.html registers all four tags from the bundle and every element shows SDK data, with no error', async () => {

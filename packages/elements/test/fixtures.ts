@@ -1,10 +1,18 @@
 // Element fixtures built by calling the SDK on its bundled examples (packages/sdk/examples/*: steering scenarios,
 // review documents, a clock phase record; invented satellites, see their SOURCE.md), so the elements are tested
 // against what the SDK really produces.
-import { planSteering, replanSteering, type ClockOffsetEstimate, type RevisedSteeringPlan, type SteeringPlan, type SteeringScenario } from '@tauline/sdk/steering';
-import { parseReviewInput, reviewOffsets, type ReviewReport } from '@tauline/sdk/review';
-import { analyzeStability, type StabilityRow } from '@tauline/sdk/stability';
+
 import { parsePhaseText } from '@tauline/sdk/io';
+import { parseReviewInput, type ReviewReport, reviewOffsets } from '@tauline/sdk/review';
+import { analyzeStability, type StabilityRow } from '@tauline/sdk/stability';
+import {
+  type ClockOffsetEstimate,
+  planSteering,
+  type RevisedSteeringPlan,
+  replanSteering,
+  type SteeringPlan,
+  type SteeringScenario,
+} from '@tauline/sdk/steering';
 
 export type ExampleName = 'orin-3-meo' | 'halcyr-g1-geo';
 
@@ -29,8 +37,10 @@ const plans = new Map<string, { plan: SteeringPlan; scenario: SteeringScenario }
  * `planSteering(scenario)` on the bundled example `name`, after `edit` (a variant of the example, e.g.
  * a larger initial phase offset); a fresh deep copy each call, so a test may change it.
  */
-export async function examplePlan(name: ExampleName, edit?: { key: string; apply: (s: SteeringScenario) => void }):
-  Promise<{ plan: SteeringPlan; scenario: SteeringScenario }> {
+export async function examplePlan(
+  name: ExampleName,
+  edit?: { key: string; apply: (s: SteeringScenario) => void },
+): Promise<{ plan: SteeringPlan; scenario: SteeringScenario }> {
   const key = `${name}|${edit?.key ?? ''}`;
   let hit = plans.get(key);
   if (!hit) {
@@ -52,7 +62,12 @@ export function orinPlan(): Promise<{ plan: SteeringPlan; scenario: SteeringScen
  * phase step, then cancels the frequency offset, so the plan holds both command kinds.
  */
 export function halcyrPhasePlan(): Promise<{ plan: SteeringPlan; scenario: SteeringScenario }> {
-  return examplePlan('halcyr-g1-geo', { key: 'phase-40ns', apply: (s) => { s.clock.phaseSeconds = 40e-9; } });
+  return examplePlan('halcyr-g1-geo', {
+    key: 'phase-40ns',
+    apply: (s) => {
+      s.clock.phaseSeconds = 40e-9;
+    },
+  });
 }
 
 /** Two invented ground estimates of ORIN-3's offset (seconds since the epoch, seconds, seconds). */
@@ -62,7 +77,11 @@ export const ORIN_ESTIMATES: readonly ClockOffsetEstimate[] = [
 ];
 
 /** ORIN-3's plan revised by `replanSteering` at 61 200 s (17:00 UTC on day 1) with {@link ORIN_ESTIMATES}. */
-export async function orinRevision(): Promise<{ plan: SteeringPlan; revised: RevisedSteeringPlan; scenario: SteeringScenario }> {
+export async function orinRevision(): Promise<{
+  plan: SteeringPlan;
+  revised: RevisedSteeringPlan;
+  scenario: SteeringScenario;
+}> {
   const { plan, scenario } = await orinPlan();
   return { plan, scenario, revised: replanSteering(scenario, plan, ORIN_ESTIMATES, 61_200) };
 }
@@ -78,7 +97,10 @@ export function tableStamp(stamp: string): string {
 }
 
 /** Collects warnings instead of logging them (tests must not log). */
-export async function captureWarnings(): Promise<{ list: Array<{ code: string; message: string }>; restore: () => void }> {
+export async function captureWarnings(): Promise<{
+  list: Array<{ code: string; message: string }>;
+  restore: () => void;
+}> {
   const { setWarningHandler } = await import('../src/internal/warn.js');
   const list: Array<{ code: string; message: string }> = [];
   const previous = setWarningHandler((code, message) => list.push({ code, message }));

@@ -1,6 +1,6 @@
 // Fleet fixtures built by the SDK: the VESPER example fleet (packages/sdk/examples/fleet, invented)
 // planned with planFleet, and a variant in which one satellite loses its passes of the first four days.
-import { planFleet, type FleetDocument, type FleetPlan } from '@tauline/sdk/fleet';
+import { type FleetDocument, type FleetPlan, planFleet } from '@tauline/sdk/fleet';
 
 const EXAMPLE = '/packages/sdk/examples/fleet/vesper-constellation.json';
 

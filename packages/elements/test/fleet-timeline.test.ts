@@ -1,14 +1,14 @@
-import { fixture, html, expect, oneEvent } from '@open-wc/testing';
-import { sendKeys } from '@web/test-runner-commands';
+import { expect, fixture, html, oneEvent } from '@open-wc/testing';
 import { BUNDLED_LEAP_SECONDS, createTimeScales } from '@tauline/sdk/time';
+import { sendKeys } from '@web/test-runner-commands';
 import '../src/fleet-timeline/fleet-timeline.define.js';
-import type { TaulineFleetTimeline } from '../src/fleet-timeline/fleet-timeline.js';
-import { readFleetPlan } from '../src/fleet-timeline/fleet-data.js';
 import { calendarTicks } from '../src/fleet-timeline/fleet-axis.js';
+import { readFleetPlan } from '../src/fleet-timeline/fleet-data.js';
 import { fleetLayout } from '../src/fleet-timeline/fleet-draw.js';
 import { erfc, marginSeries, oneSidedQuantile, requiredBound } from '../src/fleet-timeline/fleet-margin.js';
-import { heldFleet, strandedFleet } from './fleet-fixtures.js';
+import type { TaulineFleetTimeline } from '../src/fleet-timeline/fleet-timeline.js';
 import { captureWarnings } from './fixtures.js';
+import { heldFleet, strandedFleet } from './fleet-fixtures.js';
 
 const WIDTH = 900;
 
@@ -24,8 +24,12 @@ async function drawn(el: TaulineFleetTimeline): Promise<void> {
 
 async function render(data: Awaited<ReturnType<typeof heldFleet>>, attrs = ''): Promise<TaulineFleetTimeline> {
   const el = await fixture<TaulineFleetTimeline>(
-    html`<tauline-fleet-timeline style=${`width: ${WIDTH}px`}></tauline-fleet-timeline>`);
-  for (const a of attrs.split(' ').filter(Boolean)) { const [k, v] = a.split('='); el.setAttribute(k!, v ?? ''); }
+    html`<tauline-fleet-timeline style=${`width: ${WIDTH}px`}></tauline-fleet-timeline>`,
+  );
+  for (const a of attrs.split(' ').filter(Boolean)) {
+    const [k, v] = a.split('=');
+    el.setAttribute(k!, v ?? '');
+  }
   el.fleet = data.fleet;
   el.plan = data.plan;
   await drawn(el);
@@ -33,12 +37,17 @@ async function render(data: Awaited<ReturnType<typeof heldFleet>>, attrs = ''): 
 }
 
 const root = (el: Element): ShadowRoot => el.shadowRoot!;
-const rows = (el: Element): HTMLTableRowElement[] =>
-  [...root(el).querySelectorAll<HTMLTableRowElement>('tbody tr[part~="row"]')];
+const rows = (el: Element): HTMLTableRowElement[] => [
+  ...root(el).querySelectorAll<HTMLTableRowElement>('tbody tr[part~="row"]'),
+];
 
 /** Pointer at chart time t (s since the epoch) on satellite row i (or station lane k when lane is set). */
 function pointAt(
-  el: TaulineFleetTimeline, t: number, horizon: number, row: number, lane = false,
+  el: TaulineFleetTimeline,
+  t: number,
+  horizon: number,
+  row: number,
+  lane = false,
 ): { clientX: number; clientY: number } {
   const box = root(el).querySelector<HTMLElement>('.plot-box')!;
   const r = box.getBoundingClientRect();
@@ -67,7 +76,9 @@ describe('tauline-fleet-timeline', () => {
     for (const s of r.view.satellites) {
       for (const c of s.commands) {
         const st = r.view.stations.find((x) => x.id === c.station)!;
-        const inside = st.supports.some((q) => q.satellite === s.index && c.uplinkAt >= q.start - 1e-3 && c.uplinkAt <= q.end + 1e-3);
+        const inside = st.supports.some(
+          (q) => q.satellite === s.index && c.uplinkAt >= q.start - 1e-3 && c.uplinkAt <= q.end + 1e-3,
+        );
         expect(inside, `${s.id} uplink`).to.equal(true);
       }
     }
@@ -75,8 +86,14 @@ describe('tauline-fleet-timeline', () => {
 
   it('erfc(x) and requiredBound(m, σ, p, z) agree with scipy (packages/elements/test/reference/fleet_margin_reference.py) [C]', () => {
     // [x, scipy.special.erfc(x)], scipy 1.17.1 [C]; Numerical Recipes' erfcc: fractional error < 1.2e-7.
-    const erfcCases: Array<[number, number]> = [[-1.5, 1.9661051464753108], [-0.3, 1.3286267594591274], [0, 1],
-      [0.7, 0.3221988061625817], [2, 0.004677734981047266], [4.5, 1.9661604415428878e-10]];
+    const erfcCases: Array<[number, number]> = [
+      [-1.5, 1.9661051464753108],
+      [-0.3, 1.3286267594591274],
+      [0, 1],
+      [0.7, 0.3221988061625817],
+      [2, 0.004677734981047266],
+      [4.5, 1.9661604415428878e-10],
+    ];
     for (const [x, ref] of erfcCases) expect(Math.abs(erfc(x) - ref) / ref, `erfc(${x})`).to.be.below(1.2e-7);
     // [m, σ, p, z = Φ⁻¹((1+p)/2), b with P(|X| ≤ b) = p] from scipy.stats.norm and brentq [C]. Tolerance 1e-5 σ
     // (the CDF's 1.2e-7 error moves b by about that much over φ at the tail).
@@ -97,7 +114,11 @@ describe('tauline-fleet-timeline', () => {
       expect(Math.abs(0.1 - series), `series m=${m} σ=${s}`).to.be.below(1e-5 * s);
     }
     // [p, scipy.stats.norm.ppf(p)] [C].
-    const quantiles = [[0.68, 0.4676987991145084], [0.95, 1.6448536269514722], [0.9973, 2.7821504537846025]] as const;
+    const quantiles = [
+      [0.68, 0.4676987991145084],
+      [0.95, 1.6448536269514722],
+      [0.9973, 2.7821504537846025],
+    ] as const;
     for (const [p, z1] of quantiles) {
       expect(Math.abs(oneSidedQuantile(p) - z1), `z1(${p})`).to.be.below(1e-5);
     }
@@ -124,7 +145,7 @@ describe('tauline-fleet-timeline', () => {
 
   it('renders one table row per satellite and one station row per station, and names the picture from the data', async () => {
     const el = await render(await heldFleet());
-    expect(rows(el).map((r) => r.dataset['id'])).to.deep.equal(['VESPER-1', 'VESPER-2', 'VESPER-3', 'VESPER-4']);
+    expect(rows(el).map((r) => r.dataset.id)).to.deep.equal(['VESPER-1', 'VESPER-2', 'VESPER-3', 'VESPER-4']);
     expect(root(el).querySelectorAll('[part~="station-table"] tbody tr').length).to.equal(2);
     const label = root(el).querySelector('canvas.data')!.getAttribute('aria-label')!;
     expect(label).to.contain('2027-02-01 00:00 UTC to 2027-02-08 00:00 UTC');
@@ -158,9 +179,11 @@ describe('tauline-fleet-timeline', () => {
     const expected = view.view.satellites.filter((s) => s.minMargin < 0.99 * s.tolerance).map((s) => s.id);
     expect(expected.length).to.be.greaterThan(0);
     expect(el.atRisk).to.deep.equal(expected);
-    const marked = rows(el).filter((r) => r.getAttribute('part')!.includes('at-risk')).map((r) => r.dataset['id']);
+    const marked = rows(el)
+      .filter((r) => r.getAttribute('part')!.includes('at-risk'))
+      .map((r) => r.dataset.id);
     expect(marked).to.deep.equal(expected);
-    expect(rows(el).find((r) => r.dataset['id'] === expected[0])!.textContent).to.contain('at risk (low margin)');
+    expect(rows(el).find((r) => r.dataset.id === expected[0])!.textContent).to.contain('at risk (low margin)');
   });
 
   it('keyboard: ↓ moves through satellites, Enter fires tauline-satellite-select (bubbling, composed), Home/End jump', async () => {
@@ -196,7 +219,9 @@ describe('tauline-fleet-timeline', () => {
     await el.updateComplete;
     const live = (): string => root(el).querySelector('[aria-live]')!.textContent!;
     const sat = data.plan.satellites[0]!;
-    expect(live()).to.match(new RegExp(`^VESPER-1 uplink 1 of ${sat.commands.length}: frequency step .* via ${sat.commands[0]!.station}`));
+    expect(live()).to.match(
+      new RegExp(`^VESPER-1 uplink 1 of ${sat.commands.length}: frequency step .* via ${sat.commands[0]!.station}`),
+    );
     await sendKeys({ press: 'ArrowRight' });
     await el.updateComplete;
     expect(live()).to.match(/^VESPER-1 uplink 2 of /);
@@ -255,7 +280,9 @@ describe('tauline-fleet-timeline', () => {
   it('the wheel zooms the time axis and fires tauline-view-change; setView() fires none', async () => {
     const el = await render(await heldFleet());
     let events = 0;
-    el.addEventListener('tauline-view-change', () => { events += 1; });
+    el.addEventListener('tauline-view-change', () => {
+      events += 1;
+    });
     el.setView(86400, 2 * 86400);
     expect(el.view).to.deep.equal({ startSeconds: 86400, endSeconds: 172800 });
     expect(events).to.equal(0);
@@ -306,7 +333,9 @@ describe('tauline-fleet-timeline', () => {
       await el.updateComplete;
       expect(alert()).to.contain('plan.satellites[3].id must be "VESPER-9"');
       expect(w.list.map((x) => x.code)).to.deep.equal(['invalid-fleet-plan']);
-    } finally { w.restore(); }
+    } finally {
+      w.restore();
+    }
   });
 
   it('calendarTicks(base, t0, t1, n) puts midnights at UTC midnights through the SDK leap-second table (2017-01-01 is 86 401 s after 2016-12-31)', () => {

@@ -12,5 +12,5 @@
  * engineering authority before it enters a flight configuration. Common practice, no source.
  */
 export const FLIGHT_CONFIGURATION_CAUTION =
-  'Caution: verify these values against the mission\'s own interface specification and have them confirmed by its ' +
+  "Caution: verify these values against the mission's own interface specification and have them confirmed by its " +
   'responsible engineering authority before they enter a flight configuration.';

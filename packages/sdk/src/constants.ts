@@ -6,12 +6,18 @@
  *
  * @module
  */
-import type {
-  CubicMetresPerSecondSquared, Dimensionless, Metres, MetresPerSecond, RadiansPerSecond, Seconds,
-  SquareMetresPerSecondSquared,
-} from './units.js';
+
 import { InvalidArgumentError } from './errors.js';
 import { CONSTANT_SET_RANGES, requireConstantSet, requireInRange, requirePositive } from './internal/validate.js';
+import type {
+  CubicMetresPerSecondSquared,
+  Dimensionless,
+  Metres,
+  MetresPerSecond,
+  RadiansPerSecond,
+  Seconds,
+  SquareMetresPerSecondSquared,
+} from './units.js';
 
 /** Speed of light in vacuum, exact by the SI definition of the metre (BIPM; IERS Conventions 2010 Table 1.1) [V1]. */
 export const SPEED_OF_LIGHT: MetresPerSecond = 299_792_458;
@@ -87,7 +93,11 @@ export function relativisticConstantF(gm: CubicMetresPerSecondSquared): number {
 }
 
 function freeze(set: Omit<ConstantSet, 'relativisticF'>): ConstantSet {
-  return Object.freeze({ ...set, relativisticF: relativisticConstantF(set.gm), sources: Object.freeze({ ...set.sources }) });
+  return Object.freeze({
+    ...set,
+    relativisticF: relativisticConstantF(set.gm),
+    sources: Object.freeze({ ...set.sources }),
+  });
 }
 
 /** IERS Conventions (2010), IERS Technical Note 36: the TCG-compatible geodetic constants. */
@@ -197,7 +207,10 @@ export const DEFAULT_CONSTANT_SET = IERS_2010;
  * @throws {InvalidArgumentError} naming the known sets when `name` is unknown.
  */
 export function constantSet(name: string): ConstantSet {
-  const found = typeof name === 'string' && Object.hasOwn(CONSTANT_SETS, name.toLowerCase()) ? CONSTANT_SETS[name.toLowerCase()] : undefined;
+  const found =
+    typeof name === 'string' && Object.hasOwn(CONSTANT_SETS, name.toLowerCase())
+      ? CONSTANT_SETS[name.toLowerCase()]
+      : undefined;
   if (!found) throw new InvalidArgumentError('constants', name, `one of ${Object.keys(CONSTANT_SETS).join(', ')}`);
   return found;
 }
@@ -231,7 +244,13 @@ export function defineConstantSet(overrides: ConstantSetOverrides, base: Constan
   requireConstantSet('base', base);
   const gm = overrides.gm ?? base.gm;
   for (const [field, range] of Object.entries(CONSTANT_SET_RANGES)) {
-    requireInRange(field, overrides[field as keyof typeof CONSTANT_SET_RANGES] ?? base[field as keyof typeof CONSTANT_SET_RANGES], range.min, range.max, { unit: range.unit });
+    requireInRange(
+      field,
+      overrides[field as keyof typeof CONSTANT_SET_RANGES] ?? base[field as keyof typeof CONSTANT_SET_RANGES],
+      range.min,
+      range.max,
+      { unit: range.unit },
+    );
   }
   if (overrides.description !== undefined && typeof overrides.description !== 'string') {
     throw new InvalidArgumentError('description', overrides.description, 'a string');
@@ -240,7 +259,8 @@ export function defineConstantSet(overrides: ConstantSetOverrides, base: Constan
     throw new InvalidArgumentError('sources', overrides.sources, 'an object of source texts keyed by field name');
   }
   for (const [key, text] of Object.entries(overrides.sources ?? {})) {
-    if (typeof text !== 'string') throw new InvalidArgumentError(`sources.${key}`, text, 'a string naming the source of the value');
+    if (typeof text !== 'string')
+      throw new InvalidArgumentError(`sources.${key}`, text, 'a string naming the source of the value');
   }
   const sources: Record<string, string> = { ...base.sources };
   for (const key of ['gm', 'earthRotationRate', 'equatorialRadius', 'j2', 'flattening', 'lG', 'pi'] as const) {

@@ -28,8 +28,10 @@ export class InvalidArgumentError extends TaulineError {
   /** An optional hint about the likely mistake (e.g. kilometres given for metres). */
   readonly hint: string | undefined;
   constructor(argument: string, received: unknown, expected: string, hint?: string) {
-    super('invalid-argument',
-      `${label(argument)} must be ${expected}; received ${formatReceived(received)}${hint ? `. ${hint}` : ''}`);
+    super(
+      'invalid-argument',
+      `${label(argument)} must be ${expected}; received ${formatReceived(received)}${hint ? `. ${hint}` : ''}`,
+    );
     this.argument = argument;
     this.received = received;
     this.expected = expected;
@@ -44,8 +46,10 @@ export class OutOfDomainError extends TaulineError {
   readonly validFrom: string;
   readonly validTo: string;
   constructor(argument: string, received: unknown, validFrom: string, validTo: string, detail = '') {
-    super('out-of-domain',
-      `${label(argument)} = ${formatReceived(received)} is outside the valid span ${validFrom} .. ${validTo}${detail ? `: ${detail}` : ''}`);
+    super(
+      'out-of-domain',
+      `${label(argument)} = ${formatReceived(received)} is outside the valid span ${validFrom} .. ${validTo}${detail ? `: ${detail}` : ''}`,
+    );
     this.argument = argument;
     this.received = received;
     this.validFrom = validFrom;
@@ -71,9 +75,13 @@ export class ParseError extends TaulineError {
   readonly column: number | undefined;
   readonly expected: string;
   constructor(sourceName: string, line: number, column: number | undefined, expected: string, found?: string) {
-    super('parse-error',
+    super(
+      'parse-error',
       `${label(sourceName)}:${line}${column !== undefined ? `:${column}` : ''}: expected ${expected}` +
-        (found !== undefined ? `; found ${JSON.stringify(found.length > 60 ? `${found.slice(0, 57)}...` : found)}` : ''));
+        (found !== undefined
+          ? `; found ${JSON.stringify(found.length > 60 ? `${found.slice(0, 57)}...` : found)}`
+          : ''),
+    );
     this.sourceName = sourceName;
     this.line = line;
     this.column = column;

@@ -1,6 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import {
-  BEIDOU_ICD, CONSTANT_SETS, GALILEO_ICD, GPS_ICD, IERS_2010, L_G, SPEED_OF_LIGHT, constantSet, defineConstantSet,
+  BEIDOU_ICD,
+  CONSTANT_SETS,
+  constantSet,
+  defineConstantSet,
+  GALILEO_ICD,
+  GPS_ICD,
+  IERS_2010,
+  L_G,
+  SPEED_OF_LIGHT,
 } from '../src/constants.js';
 import { InvalidArgumentError } from '../src/errors.js';
 
@@ -31,7 +39,9 @@ describe('constant sets', () => {
     expect(set.kind).toBe('user');
   });
   it('defineConstantSet(overrides) rejects GM given in km³/s² and a missing name', () => {
-    expect(() => defineConstantSet({ name: 'x', gm: 398600.4418 })).toThrow(/gm must be in \[390000000000000, 410000000000000\] m³\/s²/);
+    expect(() => defineConstantSet({ name: 'x', gm: 398600.4418 })).toThrow(
+      /gm must be in \[390000000000000, 410000000000000\] m³\/s²/,
+    );
     expect(() => defineConstantSet({ name: '' })).toThrow(InvalidArgumentError);
     expect(() => defineConstantSet({ name: 'x', earthRotationRate: Number.NaN })).toThrow(/earthRotationRate/);
     expect(() => defineConstantSet({ name: 'x', equatorialRadius: 6378.137 })).toThrow(/equatorialRadius/);

@@ -15,7 +15,8 @@ export function compileC(name) {
   workDir ??= mkdtempSync(join(tmpdir(), 'tauline-bench-'));
   const exe = join(workDir, name);
   const r = spawnSync('cc', ['-O2', '-o', exe, join(here, `${name}.c`), '-lm'], { encoding: 'utf8' });
-  if (r.error || r.status !== 0) return { reason: r.error ? `no C compiler (${r.error.code})` : `cc failed: ${r.stderr.trim().split('\n')[0]}` };
+  if (r.error || r.status !== 0)
+    return { reason: r.error ? `no C compiler (${r.error.code})` : `cc failed: ${r.stderr.trim().split('\n')[0]}` };
   return { exe };
 }
 
@@ -28,9 +29,15 @@ export function runC(exe, args) {
 
 /** Least-squares slope of log(time) against log(size): the growth exponent (1 = linear). */
 export function growthExponent(sizes, times) {
-  const x = sizes.map(Math.log), y = times.map(Math.log);
-  const mx = x.reduce((a, b) => a + b) / x.length, my = y.reduce((a, b) => a + b) / y.length;
-  let sxy = 0, sxx = 0;
-  for (let i = 0; i < x.length; i++) { sxy += (x[i] - mx) * (y[i] - my); sxx += (x[i] - mx) ** 2; }
+  const x = sizes.map(Math.log),
+    y = times.map(Math.log);
+  const mx = x.reduce((a, b) => a + b) / x.length,
+    my = y.reduce((a, b) => a + b) / y.length;
+  let sxy = 0,
+    sxx = 0;
+  for (let i = 0; i < x.length; i++) {
+    sxy += (x[i] - mx) * (y[i] - my);
+    sxx += (x[i] - mx) ** 2;
+  }
   return sxy / sxx;
 }

@@ -3,23 +3,46 @@
  * relativistic correction Δt_r = F e √A sin E_k and the full broadcast clock correction.
  */
 import { InvalidArgumentError } from '@tauline/sdk/errors';
+import type { RinexNavEphemeris } from '@tauline/sdk/io';
 import {
-  BROADCAST_SIGNALS, evaluateBroadcastEphemeris, selectEphemeris, signalClockCorrection, signalClockSource, signalsOf, SYSTEM_TIME_SCALE,
-  type BroadcastSignal, type KeplerianSystem,
+  BROADCAST_SIGNALS,
+  type BroadcastSignal,
+  evaluateBroadcastEphemeris,
+  type KeplerianSystem,
+  SYSTEM_TIME_SCALE,
+  selectEphemeris,
+  signalClockCorrection,
+  signalClockSource,
+  signalsOf,
 } from '@tauline/sdk/orbit';
-import { readRinexNav, type RinexNavEphemeris } from '@tauline/sdk/io';
 import {
-  BUNDLED_LEAP_SECONDS, createTimeScales, formatFileEpoch, instantFromScaleSeconds, scaleSecondsFromInstant, type Instant, type TimeScale,
+  BUNDLED_LEAP_SECONDS,
+  createTimeScales,
+  formatFileEpoch,
+  type Instant,
+  instantFromScaleSeconds,
+  scaleSecondsFromInstant,
   type TimeScales,
 } from '@tauline/sdk/time';
+import { outputFormat, satelliteFlag } from '../flags.js';
 import {
-  EXIT_FINDING, EXIT_OK, FLIGHT_CAUTION, TABLE_JSON_CSV, UsageError, formatFlag, formatFlags, numberFlag, optionalFlag, progressBar, requireFlag,
-  toJson, type Command, type Io, type ParsedArgs,
+  type Command,
+  EXIT_FINDING,
+  EXIT_OK,
+  FLIGHT_CAUTION,
+  formatFlags,
+  type Io,
+  numberFlag,
+  optionalFlag,
+  type ParsedArgs,
+  requireFlag,
+  TABLE_JSON_CSV,
+  toJson,
+  UsageError,
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { NAV_FILE_UNITS, navHeaderLines, noRecordReason } from '../nav-summary.js';
-import { outputFormat, satelliteFlag } from '../flags.js';
-import { SYSTEM_SCALE, SYSTEM_SCALE_LABEL, isModelledSystem, loadNavigation, type LoadedNavigation } from '../navigation.js';
+import { isModelledSystem, type LoadedNavigation, loadNavigation, SYSTEM_SCALE_LABEL } from '../navigation.js';
 
 /** Samples per run above which the request is refused (keeps memory bounded). */
 const MAX_SAMPLES = 5_000_000;
@@ -38,11 +61,15 @@ function parseTimeFlag(ts: TimeScales, flag: string, text: string, utc: boolean)
     return scaleSecondsFromInstant(ts.parseIso(text, 'GPS'), 'GPS');
   } catch (error) {
     if (error instanceof InvalidArgumentError) {
-      throw new InvalidArgumentError(`--${flag}`, text, utc
-        ? 'an ISO 8601 UTC date-time with a zone designator, e.g. 2024-01-07T00:00:00Z'
-        : 'an ISO 8601 date-time read in each system\'s own time scale, without zone designator, e.g. 2024-01-07T00:00:00 (use --time-scale utc for UTC)',
-      // The SDK's reason without its own "received …" (the value is already quoted once).
-      `${error.argument.replace(/^text\.?/, '') || 'text'}: ${error.expected}${error.hint ? `; ${error.hint}` : ''}`);
+      throw new InvalidArgumentError(
+        `--${flag}`,
+        text,
+        utc
+          ? 'an ISO 8601 UTC date-time with a zone designator, e.g. 2024-01-07T00:00:00Z'
+          : "an ISO 8601 date-time read in each system's own time scale, without zone designator, e.g. 2024-01-07T00:00:00 (use --time-scale utc for UTC)",
+        // The SDK's reason without its own "received …" (the value is already quoted once).
+        `${error.argument.replace(/^text\.?/, '') || 'text'}: ${error.expected}${error.hint ? `; ${error.hint}` : ''}`,
+      );
     }
     throw error;
   }
@@ -76,17 +103,36 @@ interface SampleOut {
 
 export const broadcastCommand: Command = {
   name: 'broadcast',
-  summary: 'Relativistic correction F·e·√A·sin E_k and full clock correction from RINEX 2.10/2.11, 3.0x and 4.0x navigation files (GPS, Galileo, BeiDou).',
-  usage: '<rinex-nav-file>... --from <ISO 8601> --to <ISO 8601> --step <s> [--satellite G01,...] [--signal <name>] [--time-scale system|utc] [--galileo inav|fnav] [--include-unhealthy] [--json | --csv | --format table|json|csv]',
+  summary:
+    'Relativistic correction F·e·√A·sin E_k and full clock correction from RINEX 2.10/2.11, 3.0x and 4.0x navigation files (GPS, Galileo, BeiDou).',
+  usage:
+    '<rinex-nav-file>... --from <ISO 8601> --to <ISO 8601> --step <s> [--satellite G01,...] [--signal <name>] [--time-scale system|utc] [--galileo inav|fnav] [--include-unhealthy] [--json | --csv | --format table|json|csv]',
   allowPositionals: true,
   flags: {
-    from: { type: 'string', value: '<ISO 8601>', description: 'First sample time, e.g. 2024-01-07T00:00:00 (each system\'s own scale unless --time-scale utc).' },
+    from: {
+      type: 'string',
+      value: '<ISO 8601>',
+      description: "First sample time, e.g. 2024-01-07T00:00:00 (each system's own scale unless --time-scale utc).",
+    },
     to: { type: 'string', value: '<ISO 8601>', description: 'Last sample time (inclusive when on the step grid).' },
     step: { type: 'string', value: '<s>', description: 'Sample spacing, in seconds (> 0).' },
-    satellite: { type: 'string', value: '<ids>', description: 'Comma-separated satellites, e.g. G05,E11,C08 (default: every modelled satellite in the files).' },
-    'time-scale': { type: 'string', value: '<scale>', description: 'system (default: GPST for GPS, GST for Galileo, BDT for BeiDou) or utc (times with Z; converted with the bundled leap-second table).' },
+    satellite: {
+      type: 'string',
+      value: '<ids>',
+      description: 'Comma-separated satellites, e.g. G05,E11,C08 (default: every modelled satellite in the files).',
+    },
+    'time-scale': {
+      type: 'string',
+      value: '<scale>',
+      description:
+        'system (default: GPST for GPS, GST for Galileo, BDT for BeiDou) or utc (times with Z; converted with the bundled leap-second table).',
+    },
     galileo: { type: 'string', value: '<msg>', description: 'Galileo message to prefer: inav (default) or fnav.' },
-    signal: { type: 'string', value: '<name>', description: `Also give the single-frequency clock correction of one signal: ${BROADCAST_SIGNALS.join(', ')} (case-insensitive; default: iono-free, Δt_sv alone, no extra fields).` },
+    signal: {
+      type: 'string',
+      value: '<name>',
+      description: `Also give the single-frequency clock correction of one signal: ${BROADCAST_SIGNALS.join(', ')} (case-insensitive; default: iono-free, Δt_sv alone, no extra fields).`,
+    },
     'include-unhealthy': { type: 'boolean', description: 'Also use records whose health word is non-zero.' },
     ...formatFlags(TABLE_JSON_CSV, {
       json: 'Print one JSON object (same as --format json).',
@@ -131,15 +177,20 @@ is still printed, every value null), 2 invalid input or a malformed file.`,
     const nav = await loadNavigation(request.files, io, grid.window, request.filter);
     const satellites = [...new Set([...(request.filter ?? []), ...nav.records.keys()])].sort();
     if (satellites.length * grid.count > MAX_SAMPLES) {
-      throw new InvalidArgumentError('--step', request.step,
-        `a step giving at most ${MAX_SAMPLES} samples in all (${satellites.length} satellites × ${grid.count} epochs requested)`);
+      throw new InvalidArgumentError(
+        '--step',
+        request.step,
+        `a step giving at most ${MAX_SAMPLES} samples in all (${satellites.length} satellites × ${grid.count} epochs requested)`,
+      );
     }
     const result = evaluateSatellites(ts, request, grid, nav, satellites);
     // Nothing usable at all (no satellite has a record covering any sample) is a finding, not a success.
     const status = result.samplesWithoutRecord === satellites.length * grid.count ? EXIT_FINDING : EXIT_OK;
     if (status === EXIT_FINDING) {
       const which = request.filter ? `record of ${[...request.filter].join(', ')}` : 'GPS, Galileo or BeiDou record';
-      io.err(`tauline broadcast: no sample has a valid record: no ${which} covers the requested window in these files\n`);
+      io.err(
+        `tauline broadcast: no sample has a valid record: no ${which} covers the requested window in these files\n`,
+      );
     }
     if (request.format === 'json') printBroadcastJson(io, request, nav, result);
     else if (request.format === 'csv') printBroadcastCsv(io, request, result);
@@ -152,20 +203,34 @@ is still printed, every value null), 2 invalid input or a malformed file.`,
  * The --signal fields of one sample: the SDK's single-frequency correction, or null with a note when the
  * signal belongs to another system. A record without the group delay needed is an error naming file and line.
  */
-function signalFields(rec: RinexNavEphemeris, clockCorrectionSeconds: number, signal: BroadcastSignal, notes: Set<string>):
-  Pick<SampleOut, 'clockCorrectionSignalSeconds' | 'groupDelaySeconds' | 'groupDelayField'> {
+function signalFields(
+  rec: RinexNavEphemeris,
+  clockCorrectionSeconds: number,
+  signal: BroadcastSignal,
+  notes: Set<string>,
+): Pick<SampleOut, 'clockCorrectionSignalSeconds' | 'groupDelaySeconds' | 'groupDelayField'> {
   if (!signalsOf(rec.system).includes(signal)) {
-    notes.add(`${SYSTEM_NAME[rec.system]} satellites: ${signal} is not one of their signals (${signalsOf(rec.system).join(', ')}): clockCorrectionSignalSeconds is null`);
+    notes.add(
+      `${SYSTEM_NAME[rec.system]} satellites: ${signal} is not one of their signals (${signalsOf(rec.system).join(', ')}): clockCorrectionSignalSeconds is null`,
+    );
     return { clockCorrectionSignalSeconds: null, groupDelaySeconds: null, groupDelayField: null };
   }
   try {
     const r = signalClockCorrection(rec, clockCorrectionSeconds, signal);
     if (r.note) notes.add(`${rec.satellite}: ${r.note}`);
-    return { clockCorrectionSignalSeconds: r.clockCorrectionSeconds, groupDelaySeconds: r.groupDelaySeconds, groupDelayField: r.groupDelayField };
+    return {
+      clockCorrectionSignalSeconds: r.clockCorrectionSeconds,
+      groupDelaySeconds: r.groupDelaySeconds,
+      groupDelayField: r.groupDelayField,
+    };
   } catch (error) {
     if (error instanceof InvalidArgumentError) {
-      throw new InvalidArgumentError(`${rec.sourceName}:${rec.line}: ${rec.satellite} ${error.argument.replace(/^ephemeris\./, '')}`,
-        error.received, error.expected, `--signal ${signal}${error.hint ? `; ${error.hint}` : ''}`);
+      throw new InvalidArgumentError(
+        `${rec.sourceName}:${rec.line}: ${rec.satellite} ${error.argument.replace(/^ephemeris\./, '')}`,
+        error.received,
+        error.expected,
+        `--signal ${signal}${error.hint ? `; ${error.hint}` : ''}`,
+      );
     }
     throw error;
   }
@@ -186,19 +251,29 @@ interface BroadcastRequest {
 
 function broadcastRequest(args: ParsedArgs): BroadcastRequest {
   const files = args.positionals;
-  if (files.length === 0) throw new UsageError('a RINEX navigation file is required (tauline broadcast <rinex-nav-file> ...)');
+  if (files.length === 0)
+    throw new UsageError('a RINEX navigation file is required (tauline broadcast <rinex-nav-file> ...)');
   const format = outputFormat(args);
   const step = numberFlag(args, 'step', true);
   if (!(step > 0)) throw new InvalidArgumentError('--step', step, 'a positive number of seconds');
   const scaleText = (optionalFlag(args, 'time-scale') ?? 'system').toLowerCase();
-  if (scaleText !== 'system' && scaleText !== 'utc') throw new InvalidArgumentError('--time-scale', scaleText, "'system' or 'utc'");
+  if (scaleText !== 'system' && scaleText !== 'utc')
+    throw new InvalidArgumentError('--time-scale', scaleText, "'system' or 'utc'");
   const galileoText = (optionalFlag(args, 'galileo') ?? 'inav').toLowerCase();
-  if (galileoText !== 'inav' && galileoText !== 'fnav') throw new InvalidArgumentError('--galileo', galileoText, "'inav' or 'fnav'");
+  if (galileoText !== 'inav' && galileoText !== 'fnav')
+    throw new InvalidArgumentError('--galileo', galileoText, "'inav' or 'fnav'");
   const includeUnhealthy = Boolean(args.values['include-unhealthy']);
   const filter = satelliteFlag(args);
   const signal = signalFlag(args);
   return {
-    files, format, step, utc: scaleText === 'utc', galileoMessage: galileoText === 'inav' ? 'INAV' : 'FNAV', includeUnhealthy, filter, signal,
+    files,
+    format,
+    step,
+    utc: scaleText === 'utc',
+    galileoMessage: galileoText === 'inav' ? 'INAV' : 'FNAV',
+    includeUnhealthy,
+    filter,
+    signal,
   };
 }
 
@@ -217,18 +292,33 @@ function sampleGrid(ts: TimeScales, args: ParsedArgs, request: BroadcastRequest)
   const { step, utc } = request;
   const from = parseTimeFlag(ts, 'from', requireFlag(args, 'from'), utc);
   const to = parseTimeFlag(ts, 'to', requireFlag(args, 'to'), utc);
-  const span = typeof from === 'number' ? (typeof to === 'number' ? to - from : Number.NaN)
-    : typeof to === 'number' ? Number.NaN : to.secondsSince(from);
+  const span =
+    typeof from === 'number'
+      ? typeof to === 'number'
+        ? to - from
+        : Number.NaN
+      : typeof to === 'number'
+        ? Number.NaN
+        : to.secondsSince(from);
   if (!(span >= 0)) throw new InvalidArgumentError('--to', requireFlag(args, 'to'), 'a time not before --from');
   const count = Math.floor(span / step + 1e-9) + 1;
   const fractional = !Number.isInteger(step);
   const instantAt = (k: number, system: KeplerianSystem): Instant =>
-    typeof from === 'number' ? instantFromScaleSeconds(from + k * step, SYSTEM_TIME_SCALE[system]) : from.plus(k * step);
-  const label = (k: number): string => typeof from === 'number'
-    ? formatFileEpoch(ts, instantFromScaleSeconds(from + k * step, 'GPS'), 'GPS')
-    : ts.formatIso(from.plus(k * step), { fractionDigits: fractional ? 6 : 0 });
-  const secondsAt = (k: number, system: KeplerianSystem) => scaleSecondsFromInstant(instantAt(k, system), SYSTEM_TIME_SCALE[system]);
-  return { count, instantAt, label, window: (system) => ({ from: secondsAt(0, system), to: secondsAt(count - 1, system) }) };
+    typeof from === 'number'
+      ? instantFromScaleSeconds(from + k * step, SYSTEM_TIME_SCALE[system])
+      : from.plus(k * step);
+  const label = (k: number): string =>
+    typeof from === 'number'
+      ? formatFileEpoch(ts, instantFromScaleSeconds(from + k * step, 'GPS'), 'GPS')
+      : ts.formatIso(from.plus(k * step), { fractionDigits: fractional ? 6 : 0 });
+  const secondsAt = (k: number, system: KeplerianSystem) =>
+    scaleSecondsFromInstant(instantAt(k, system), SYSTEM_TIME_SCALE[system]);
+  return {
+    count,
+    instantAt,
+    label,
+    window: (system) => ({ from: secondsAt(0, system), to: secondsAt(count - 1, system) }),
+  };
 }
 
 /** Per-satellite samples, the notes gathered and the number of samples without a valid record. */
@@ -238,8 +328,13 @@ interface BroadcastResult {
   readonly samplesWithoutRecord: number;
 }
 
-function evaluateSatellites(ts: TimeScales, request: BroadcastRequest, grid: SampleGrid, nav: LoadedNavigation,
-  satellites: readonly string[]): BroadcastResult {
+function evaluateSatellites(
+  ts: TimeScales,
+  request: BroadcastRequest,
+  grid: SampleGrid,
+  nav: LoadedNavigation,
+  satellites: readonly string[],
+): BroadcastResult {
   const { includeUnhealthy, galileoMessage, signal } = request;
   const notes = new Set<string>();
   const out: BroadcastResult['out'] = [];
@@ -254,7 +349,13 @@ function evaluateSatellites(ts: TimeScales, request: BroadcastRequest, grid: Sam
       // An unmodelled system has no scale of its own to read the sample time on (and no record to use).
       if (!modelled) {
         samplesWithoutRecord++;
-        samples.push({ t: grid.label(k), relativisticSeconds: null, clockCorrectionSeconds: null, reason: 'no record of this satellite in the files', short: 'no record in the files' });
+        samples.push({
+          t: grid.label(k),
+          relativisticSeconds: null,
+          clockCorrectionSeconds: null,
+          reason: 'no record of this satellite in the files',
+          short: 'no record in the files',
+        });
         continue;
       }
       const at = grid.instantAt(k, system);
@@ -263,23 +364,36 @@ function evaluateSatellites(ts: TimeScales, request: BroadcastRequest, grid: Sam
         samplesWithoutRecord++;
         const t = scaleSecondsFromInstant(at, SYSTEM_TIME_SCALE[system]);
         samples.push({
-          t: grid.label(k), relativisticSeconds: null, clockCorrectionSeconds: null,
-          ...noRecordReason(records, t, includeUnhealthy, SYSTEM_SCALE_LABEL[system], nav.outsideWindowBySatellite.get(id) ?? 0),
+          t: grid.label(k),
+          relativisticSeconds: null,
+          clockCorrectionSeconds: null,
+          ...noRecordReason(
+            records,
+            t,
+            includeUnhealthy,
+            SYSTEM_SCALE_LABEL[system],
+            nav.outsideWindowBySatellite.get(id) ?? 0,
+          ),
         });
         continue;
       }
       for (const n of rec.notes ?? []) notes.add(`${rec.sourceName}:${rec.line}: ${id}: ${n}`);
       const ev = evaluateBroadcastEphemeris(rec, at);
       samples.push({
-        t: grid.label(k), relativisticSeconds: ev.relativisticSeconds, clockCorrectionSeconds: ev.clockCorrectionSeconds,
+        t: grid.label(k),
+        relativisticSeconds: ev.relativisticSeconds,
+        clockCorrectionSeconds: ev.clockCorrectionSeconds,
         ...(signal ? signalFields(rec, ev.clockCorrectionSeconds, signal, notes) : {}),
-        toe: formatFileEpoch(ts, rec.toeInstant, SYSTEM_FILE_CODE[system]), issueOfData: rec.issueOfData, message: rec.message,
+        toe: formatFileEpoch(ts, rec.toeInstant, SYSTEM_FILE_CODE[system]),
+        issueOfData: rec.issueOfData,
+        message: rec.message,
       });
     }
     if (signal) {
       // Samples without a record carry the signal fields too (null), so every sample has the same keys.
       for (const x of samples) {
-        if (x.clockCorrectionSignalSeconds === undefined) Object.assign(x, { clockCorrectionSignalSeconds: null, groupDelaySeconds: null, groupDelayField: null });
+        if (x.clockCorrectionSignalSeconds === undefined)
+          Object.assign(x, { clockCorrectionSignalSeconds: null, groupDelaySeconds: null, groupDelayField: null });
       }
     }
     out.push({ id, timeScale: request.utc ? 'UTC' : modelled ? SYSTEM_SCALE_LABEL[system] : 'unknown', samples });
@@ -289,66 +403,107 @@ function evaluateSatellites(ts: TimeScales, request: BroadcastRequest, grid: Sam
 
 function printBroadcastJson(io: Io, request: BroadcastRequest, nav: LoadedNavigation, result: BroadcastResult): void {
   const { signal } = request;
-  io.out(toJson({
-    timeScale: request.utc ? 'UTC' : 'system',
-    step: request.step,
-    selection: 'nearest t_oe among healthy records whose fit interval covers t (ties: t_oe ≤ t, latest transmission, highest issue of data)',
-    galileoMessage: request.galileoMessage,
-    files: nav.files,
-    ...(signal ? { signal, signalSource: signalClockSource(signal) } : {}),
-    satellites: result.out.map((s) => ({ ...s, samples: s.samples.map(({ short: _short, ...x }) => x) })),
-    samplesWithoutRecord: result.samplesWithoutRecord,
-    recordsOutsideWindow: nav.outsideWindow,
-    skipped: [...nav.skipped].map(([reason, n]) => ({ reason, count: n })),
-    notes: [...result.notes],
-    units: {
-      step: 's', t: 'ISO 8601 in timeScale', relativisticSeconds: 's', clockCorrectionSeconds: 's', toe: 'ISO 8601 in the system scale',
-      ...(signal ? { clockCorrectionSignalSeconds: 's', groupDelaySeconds: 's' } : {}),
-      files: NAV_FILE_UNITS,
-    },
-    caution: FLIGHT_CAUTION,
-  }));
+  io.out(
+    toJson({
+      timeScale: request.utc ? 'UTC' : 'system',
+      step: request.step,
+      selection:
+        'nearest t_oe among healthy records whose fit interval covers t (ties: t_oe ≤ t, latest transmission, highest issue of data)',
+      galileoMessage: request.galileoMessage,
+      files: nav.files,
+      ...(signal ? { signal, signalSource: signalClockSource(signal) } : {}),
+      satellites: result.out.map((s) => ({ ...s, samples: s.samples.map(({ short: _short, ...x }) => x) })),
+      samplesWithoutRecord: result.samplesWithoutRecord,
+      recordsOutsideWindow: nav.outsideWindow,
+      skipped: [...nav.skipped].map(([reason, n]) => ({ reason, count: n })),
+      notes: [...result.notes],
+      units: {
+        step: 's',
+        t: 'ISO 8601 in timeScale',
+        relativisticSeconds: 's',
+        clockCorrectionSeconds: 's',
+        toe: 'ISO 8601 in the system scale',
+        ...(signal ? { clockCorrectionSignalSeconds: 's', groupDelaySeconds: 's' } : {}),
+        files: NAV_FILE_UNITS,
+      },
+      caution: FLIGHT_CAUTION,
+    }),
+  );
 }
 
 function printBroadcastCsv(io: Io, request: BroadcastRequest, result: BroadcastResult): void {
   const { signal } = request;
-  io.out(`id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message${signal ? ',clockCorrectionSignalSeconds,groupDelaySeconds,groupDelayField' : ''}\n`);
+  io.out(
+    `id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message${signal ? ',clockCorrectionSignalSeconds,groupDelaySeconds,groupDelayField' : ''}\n`,
+  );
   for (const s of result.out) {
     for (const x of s.samples) {
-      io.out(`${s.id},${x.t},${x.relativisticSeconds ?? ''},${x.clockCorrectionSeconds ?? ''},${x.toe ?? ''},${x.issueOfData ?? ''},${x.message ?? ''}` +
-        (signal ? `,${x.clockCorrectionSignalSeconds ?? ''},${x.groupDelaySeconds ?? ''},${x.groupDelayField ?? ''}` : '') + '\n');
+      io.out(
+        `${s.id},${x.t},${x.relativisticSeconds ?? ''},${x.clockCorrectionSeconds ?? ''},${x.toe ?? ''},${x.issueOfData ?? ''},${x.message ?? ''}` +
+          (signal
+            ? `,${x.clockCorrectionSignalSeconds ?? ''},${x.groupDelaySeconds ?? ''},${x.groupDelayField ?? ''}`
+            : '') +
+          '\n',
+      );
     }
   }
   io.err(`${FLIGHT_CAUTION}\n`);
 }
 
-function printBroadcastTable(io: Io, args: ParsedArgs, request: BroadcastRequest, nav: LoadedNavigation, result: BroadcastResult): void {
+function printBroadcastTable(
+  io: Io,
+  args: ParsedArgs,
+  request: BroadcastRequest,
+  nav: LoadedNavigation,
+  result: BroadcastResult,
+): void {
   const { signal } = request;
   const width = outputWidth(args);
-  io.out(wrapLines(`Broadcast relativistic and clock corrections (${request.utc ? 'times in UTC' : 'times in each system\'s own scale: GPST, GST, BDT'})\n\n`, width));
+  io.out(
+    wrapLines(
+      `Broadcast relativistic and clock corrections (${request.utc ? 'times in UTC' : "times in each system's own scale: GPST, GST, BDT"})\n\n`,
+      width,
+    ),
+  );
   const rows: (string | number)[][] = [];
   // Fitted to the width, a sample without a record shows "—" for t_oe and its reason on a line of its own.
   const rowNotes: (string | undefined)[] = [];
   for (const s of result.out) {
     for (const x of s.samples) {
       rowNotes.push(width === undefined ? undefined : x.reason);
-      const row: (string | number)[] = [s.id, x.t, x.relativisticSeconds === null ? '—' : (x.relativisticSeconds * 1e9).toFixed(4),
-        x.clockCorrectionSeconds === null ? '—' : x.clockCorrectionSeconds.toExponential(12)];
+      const row: (string | number)[] = [
+        s.id,
+        x.t,
+        x.relativisticSeconds === null ? '—' : (x.relativisticSeconds * 1e9).toFixed(4),
+        x.clockCorrectionSeconds === null ? '—' : x.clockCorrectionSeconds.toExponential(12),
+      ];
       if (signal) {
-        row.push(x.clockCorrectionSignalSeconds == null ? '—' : x.clockCorrectionSignalSeconds.toExponential(12),
-          x.groupDelaySeconds == null ? '—' : `${(x.groupDelaySeconds * 1e9).toFixed(4)} ${x.groupDelayField}`);
+        row.push(
+          x.clockCorrectionSignalSeconds == null ? '—' : x.clockCorrectionSignalSeconds.toExponential(12),
+          x.groupDelaySeconds == null ? '—' : `${(x.groupDelaySeconds * 1e9).toFixed(4)} ${x.groupDelayField}`,
+        );
       }
       row.push(x.toe ?? (width === undefined ? (x.reason ?? '') : '—'), x.message ?? '');
       rows.push(row);
     }
   }
-  const headers = ['sat', 't', 'Δt_r (ns)', 'Δt_sv (s)', ...(signal ? [`Δt_sv ${signal} (s)`, 'group delay (ns)'] : []), 't_oe', 'message'];
+  const headers = [
+    'sat',
+    't',
+    'Δt_r (ns)',
+    'Δt_sv (s)',
+    ...(signal ? [`Δt_sv ${signal} (s)`, 'group delay (ns)'] : []),
+    't_oe',
+    'message',
+  ];
   io.out(fitTable(headers, rows, { width, notes: rowNotes, below: [headers.length - 2, headers.length - 1] }));
   const skipped = [...nav.skipped].map(([reason, n]) => ({ reason, count: n }));
   const text: string[] = [];
-  if (result.samplesWithoutRecord > 0) text.push(`\n${result.samplesWithoutRecord} sample(s) without a valid record (shown as —).\n`);
+  if (result.samplesWithoutRecord > 0)
+    text.push(`\n${result.samplesWithoutRecord} sample(s) without a valid record (shown as —).\n`);
   text.push(`\nNavigation files (header parameters as broadcast):\n${navHeaderLines(nav.files).join('\n')}\n`);
-  if (skipped.length > 0) text.push(`\nSkipped records:\n${skipped.map((s) => `  ${s.count} × ${s.reason}`).join('\n')}\n`);
+  if (skipped.length > 0)
+    text.push(`\nSkipped records:\n${skipped.map((s) => `  ${s.count} × ${s.reason}`).join('\n')}\n`);
   if (result.notes.size > 0) text.push(`\nNotes:\n${[...result.notes].map((n) => `  ${n}`).join('\n')}\n`);
   text.push(`\n${FLIGHT_CAUTION}\n`);
   io.out(wrapLines(text.join(''), width));

@@ -2,18 +2,30 @@
  * `tauline fleet <fleet.json>`: one steering plan for several satellite clocks that share a few
  * ground stations.
  */
-import { planFleet, type FleetDocument, type FleetPlan } from '@tauline/sdk/fleet';
-import {
-  EXIT_FINDING, EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, onePositional, table, toJson, type Command,
-} from '../framework.js';
+import { type FleetDocument, type FleetPlan, planFleet } from '@tauline/sdk/fleet';
 import { readJsonFile } from '../files.js';
-import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag } from '../flags.js';
-import { PLAN_UNITS, nsText } from '../steering-output.js';
+import {
+  type Command,
+  EXIT_FINDING,
+  EXIT_OK,
+  formatFlag,
+  formatFlags,
+  onePositional,
+  TABLE_OR_JSON,
+  table,
+  toJson,
+} from '../framework.js';
+import { fitTable, outputWidth, wrapLines } from '../layout.js';
+import { nsText, PLAN_UNITS } from '../steering-output.js';
 
 /** Units of the fleet plan's JSON fields (`units` in `tauline fleet --json`). */
 export const FLEET_UNITS = {
-  ...PLAN_UNITS, start: 'ISO 8601 UTC', end: 'ISO 8601 UTC', maxElevationRadians: 'rad', maxElevationAt: 'ISO 8601 UTC',
+  ...PLAN_UNITS,
+  start: 'ISO 8601 UTC',
+  end: 'ISO 8601 UTC',
+  maxElevationRadians: 'rad',
+  maxElevationAt: 'ISO 8601 UTC',
 } as const;
 
 /** Characters of a station lane in the text timeline. */
@@ -31,20 +43,27 @@ function timeline(doc: FleetDocument, plan: FleetPlan): string[] {
   const cell = doc.horizonSeconds / LANE_WIDTH;
   const index = new Map(doc.satellites.map((s, i) => [s.id, i]));
   const days = doc.horizonSeconds / 86_400;
-  const ruler = Array.from({ length: LANE_WIDTH }, (_, k) => (Math.floor((k * cell) / 86_400) !== Math.floor(((k - 1) * cell) / 86_400) || k === 0 ? '|' : ' ')).join('');
+  const ruler = Array.from({ length: LANE_WIDTH }, (_, k) =>
+    Math.floor((k * cell) / 86_400) !== Math.floor(((k - 1) * cell) / 86_400) || k === 0 ? '|' : ' ',
+  ).join('');
   const width = Math.max(...doc.stations.map((s) => s.id.length));
-  const out = [`Station timeline (one character ≈ ${(cell / 3600).toFixed(2)} h, '|' marks each day from the epoch, ${days.toFixed(2)} days):`,
-    `${' '.repeat(width)}  ${ruler}`.trimEnd()];
+  const out = [
+    `Station timeline (one character ≈ ${(cell / 3600).toFixed(2)} h, '|' marks each day from the epoch, ${days.toFixed(2)} days):`,
+    `${' '.repeat(width)}  ${ruler}`.trimEnd(),
+  ];
   for (const station of doc.stations) {
     const lane = Array.from({ length: LANE_WIDTH }, () => '·');
     for (const s of plan.stationSchedule.filter((x) => x.station === station.id)) {
       const from = Math.floor((Date.parse(s.start) - epochMs) / 1000 / cell);
       const to = Math.min(LANE_WIDTH - 1, Math.floor((Date.parse(s.end) - epochMs - 1) / 1000 / cell));
-      for (let k = Math.max(0, from); k <= Math.max(from, to); k++) lane[k] = lane[k] === '·' ? marker(index.get(s.satellite)!) : '*';
+      for (let k = Math.max(0, from); k <= Math.max(from, to); k++)
+        lane[k] = lane[k] === '·' ? marker(index.get(s.satellite)!) : '*';
     }
     out.push(`${station.id.padEnd(width)}  ${lane.join('')}`);
   }
-  out.push(`Legend: ${doc.satellites.map((s, i) => `${marker(i)} ${s.id}`).join(', ')}; · free; * several supports in one character.`);
+  out.push(
+    `Legend: ${doc.satellites.map((s, i) => `${marker(i)} ${s.id}`).join(', ')}; · free; * several supports in one character.`,
+  );
   return out;
 }
 
@@ -58,16 +77,20 @@ function passCounts(doc: FleetDocument, plan: FleetPlan, width: number | undefin
       const short = here.filter((p) => !p.usable).length;
       return `${here.length - short}${short > 0 ? ` +${short} short` : ''}`;
     });
-    const top = s.computedPasses && s.computedPasses.length > 0
-      ? `${((Math.max(...s.computedPasses.map((p) => p.maxElevationRadians)) * 180) / Math.PI).toFixed(1)}` : '-';
+    const top =
+      s.computedPasses && s.computedPasses.length > 0
+        ? `${((Math.max(...s.computedPasses.map((p) => p.maxElevationRadians)) * 180) / Math.PI).toFixed(1)}`
+        : '-';
     return [s.id, s.computedPasses ? 'computed' : 'given', ...cells, top];
   });
   const headers = ['satellite', 'passes', ...doc.stations.map((st) => st.id), 'highest elevation (deg)'];
   const out = [fitTable(headers, rows, { width }).trimEnd()];
   if (plan.satellites.some((s) => s.computedPasses)) {
-    out.push('Computed passes: from mean elements (secular J2), Earth rotation with UT1 taken as UTC; times good to ' +
-      'seconds (short: shorter than the station\'s support, not planned with). --json lists each pass with its ' +
-      'maximum elevation.');
+    out.push(
+      'Computed passes: from mean elements (secular J2), Earth rotation with UT1 taken as UTC; times good to ' +
+        "seconds (short: shorter than the station's support, not planned with). --json lists each pass with its " +
+        'maximum elevation.',
+    );
   }
   return out;
 }
@@ -76,26 +99,69 @@ function passCounts(doc: FleetDocument, plan: FleetPlan, width: number | undefin
 /** `width`: display columns to fit (TABLE_WIDTH by default in the CLI); undefined for the unlimited `--wide` form. */
 export function fleetToText(doc: FleetDocument, plan: FleetPlan, width: number | undefined): string {
   const out: string[] = [];
-  out.push(`${doc.name ?? 'Fleet plan'}: ${doc.strategy.method} planner, ${doc.satellites.length} satellites, ${doc.stations.length} stations, ` +
-    `${doc.epoch} + ${(doc.horizonSeconds / 86_400).toFixed(2)} days`);
-  out.push(plan.feasible ? 'Feasible: yes (every satellite holds its tolerance at its probability per epoch)' : `Feasible: NO. ${plan.reason ?? ''}`, '');
+  out.push(
+    `${doc.name ?? 'Fleet plan'}: ${doc.strategy.method} planner, ${doc.satellites.length} satellites, ${doc.stations.length} stations, ` +
+      `${doc.epoch} + ${(doc.horizonSeconds / 86_400).toFixed(2)} days`,
+  );
+  out.push(
+    plan.feasible
+      ? 'Feasible: yes (every satellite holds its tolerance at its probability per epoch)'
+      : `Feasible: NO. ${plan.reason ?? ''}`,
+    '',
+  );
   const rows = plan.satellites.map((s, i) => {
     const sat = doc.satellites[i]!;
     const stations = [...new Set(plan.stationSchedule.filter((x) => x.satellite === s.id).map((x) => x.station))];
     const supports = plan.stationSchedule.filter((x) => x.satellite === s.id).length;
-    return [s.id, s.feasible ? 'yes' : 'NO', nsText(s.metrics.worstOffsetBoundSeconds), `±${nsText(sat.tolerance.phaseSeconds)} at ${sat.tolerance.probability * 100} %`,
-      s.metrics.probabilityInTolerance.toFixed(4), supports, s.commands.length, stations.join(', ') || '-'];
+    return [
+      s.id,
+      s.feasible ? 'yes' : 'NO',
+      nsText(s.metrics.worstOffsetBoundSeconds),
+      `±${nsText(sat.tolerance.phaseSeconds)} at ${sat.tolerance.probability * 100} %`,
+      s.metrics.probabilityInTolerance.toFixed(4),
+      supports,
+      s.commands.length,
+      stations.join(', ') || '-',
+    ];
   });
   // "supports": station passes booked for uplink; "commands": commands uplinked in them (several per support).
-  out.push(fitTable(['satellite', 'feasible', 'worst |mean| + z·σ', 'tolerance', 'probability in tolerance', 'supports', 'commands', 'stations used'],
-    rows, { width }).trimEnd());
-  out.push('(worst |mean| + z·σ is a sufficient margin, stricter than the per-epoch probability criterion that decides feasibility.)');
+  out.push(
+    fitTable(
+      [
+        'satellite',
+        'feasible',
+        'worst |mean| + z·σ',
+        'tolerance',
+        'probability in tolerance',
+        'supports',
+        'commands',
+        'stations used',
+      ],
+      rows,
+      { width },
+    ).trimEnd(),
+  );
+  out.push(
+    '(worst |mean| + z·σ is a sufficient margin, stricter than the per-epoch probability criterion that decides feasibility.)',
+  );
   for (const s of plan.satellites.filter((x) => !x.feasible)) out.push(`  ${s.id} (${s.reasonCode}): ${s.reason}`);
   out.push('', 'Passes per station:', ...passCounts(doc, plan, width));
   out.push('', ...timeline(doc, plan), '');
   if (plan.stationSchedule.length === 0) out.push('No supports needed.');
-  else out.push(table(['station', 'satellite', 'support start (UTC)', 'support end (UTC)'], plan.stationSchedule.map((x) => [x.station, x.satellite, x.start, x.end])).trimEnd());
-  out.push('', 'Commands: tauline fleet <file> --json lists every command with its uplink station.', '', plan.caution, '');
+  else
+    out.push(
+      table(
+        ['station', 'satellite', 'support start (UTC)', 'support end (UTC)'],
+        plan.stationSchedule.map((x) => [x.station, x.satellite, x.start, x.end]),
+      ).trimEnd(),
+    );
+  out.push(
+    '',
+    'Commands: tauline fleet <file> --json lists every command with its uplink station.',
+    '',
+    plan.caution,
+    '',
+  );
   return wrapLines(out.join('\n'), width);
 }
 
@@ -107,7 +173,8 @@ export const fleetCommand: Command = {
   flags: {
     'leap-seconds': LEAP_SECONDS_FLAG,
     ...formatFlags(TABLE_OR_JSON, {
-      json: 'Print the fleet plan as JSON (feasible, reason, satellites with commands and station and any ' +
+      json:
+        'Print the fleet plan as JSON (feasible, reason, satellites with commands and station and any ' +
         'computedPasses, stationSchedule, units, caution); same as --format json.',
     }),
   },

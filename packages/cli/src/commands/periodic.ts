@@ -2,13 +2,23 @@
  * `tauline periodic`: the periodic relativistic clock correction Δt_r = F·e·√a·sin E of an
  * eccentric orbit at a given mean anomaly.
  */
-import { periodicCorrectionAtMeanAnomaly } from '@tauline/sdk/relativity';
+
 import { InvalidArgumentError } from '@tauline/sdk/errors';
+import { periodicCorrectionAtMeanAnomaly } from '@tauline/sdk/relativity';
+import { constantsFlag } from '../flags.js';
 import {
-  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, numberFlag, sig, toJson, withFlagNames, type Command,
+  type Command,
+  EXIT_OK,
+  formatFlag,
+  formatFlags,
+  keyValueTable,
+  numberFlag,
+  sig,
+  TABLE_OR_JSON,
+  toJson,
+  withFlagNames,
 } from '../framework.js';
 import { outputWidth } from '../layout.js';
-import { constantsFlag } from '../flags.js';
 import { angleHint, warn } from '../plausibility.js';
 
 /**
@@ -26,12 +36,25 @@ const FLAG_NAMES: Record<string, string> = {
 export const periodicCommand: Command = {
   name: 'periodic',
   summary: 'Periodic relativistic clock correction of an eccentric orbit (Δt_r = F·e·√a·sin E).',
-  usage: '--semi-major-axis <m> --eccentricity <e> --mean-anomaly <rad> [--constants <name>] [--json | --format table|json]',
+  usage:
+    '--semi-major-axis <m> --eccentricity <e> --mean-anomaly <rad> [--constants <name>] [--json | --format table|json]',
   flags: {
-    'semi-major-axis': { type: 'string', value: '<m>', description: 'Orbit semi-major axis a, in metres (e.g. 26561750).' },
+    'semi-major-axis': {
+      type: 'string',
+      value: '<m>',
+      description: 'Orbit semi-major axis a, in metres (e.g. 26561750).',
+    },
     eccentricity: { type: 'string', value: '<e>', description: 'Eccentricity e, dimensionless, 0 ≤ e < 1.' },
-    'mean-anomaly': { type: 'string', value: '<rad>', description: 'Mean anomaly M at the epoch, in radians, |M| ≤ 1e9.' },
-    constants: { type: 'string', value: '<name>', description: 'Constant set giving F = −2√GM/c²: iers-2010 (default), gps-icd, galileo-icd, beidou-icd.' },
+    'mean-anomaly': {
+      type: 'string',
+      value: '<rad>',
+      description: 'Mean anomaly M at the epoch, in radians, |M| ≤ 1e9.',
+    },
+    constants: {
+      type: 'string',
+      value: '<name>',
+      description: 'Constant set giving F = −2√GM/c²: iers-2010 (default), gps-icd, galileo-icd, beidou-icd.',
+    },
     ...formatFlags(TABLE_OR_JSON),
   },
   details: `
@@ -51,38 +74,60 @@ Exit status: 0 success, 2 invalid input.`,
     const eccentricity = numberFlag(args, 'eccentricity', true);
     const meanAnomaly = numberFlag(args, 'mean-anomaly', true);
     if (Math.abs(meanAnomaly) > MAX_MEAN_ANOMALY) {
-      throw new InvalidArgumentError('--mean-anomaly', meanAnomaly, 'in [−1e9, 1e9] rad',
-        'beyond that a double no longer holds the angle modulo 2π; reduce it modulo 2π first');
+      throw new InvalidArgumentError(
+        '--mean-anomaly',
+        meanAnomaly,
+        'in [−1e9, 1e9] rad',
+        'beyond that a double no longer holds the angle modulo 2π; reduce it modulo 2π first',
+      );
     }
     const constants = constantsFlag(args);
-    const result = withFlagNames(FLAG_NAMES,
-      () => periodicCorrectionAtMeanAnomaly(semiMajorAxis, eccentricity, meanAnomaly, { constants }));
+    const result = withFlagNames(FLAG_NAMES, () =>
+      periodicCorrectionAtMeanAnomaly(semiMajorAxis, eccentricity, meanAnomaly, { constants }),
+    );
     const hint = angleHint('--mean-anomaly', meanAnomaly);
     if (hint) warn(io, 'periodic', hint);
     if (format === 'json') {
-      io.out(toJson({
-        semiMajorAxis, eccentricity, meanAnomaly,
-        eccentricAnomaly: result.eccentricAnomaly,
-        constants: constants.name,
-        relativisticF: constants.relativisticF,
-        correctionSeconds: result.correctionSeconds,
-        amplitudeSeconds: result.amplitudeSeconds,
-        units: {
-          semiMajorAxis: 'm', eccentricity: 'dimensionless', meanAnomaly: 'rad', eccentricAnomaly: 'rad', relativisticF: 's/√m',
-          correctionSeconds: 's', amplitudeSeconds: 's',
-        },
-      }));
+      io.out(
+        toJson({
+          semiMajorAxis,
+          eccentricity,
+          meanAnomaly,
+          eccentricAnomaly: result.eccentricAnomaly,
+          constants: constants.name,
+          relativisticF: constants.relativisticF,
+          correctionSeconds: result.correctionSeconds,
+          amplitudeSeconds: result.amplitudeSeconds,
+          units: {
+            semiMajorAxis: 'm',
+            eccentricity: 'dimensionless',
+            meanAnomaly: 'rad',
+            eccentricAnomaly: 'rad',
+            relativisticF: 's/√m',
+            correctionSeconds: 's',
+            amplitudeSeconds: 's',
+          },
+        }),
+      );
       return EXIT_OK;
     }
-    io.out(keyValueTable([
-      ['semi-major axis', `${semiMajorAxis} m`],
-      ['eccentricity', String(eccentricity)],
-      ['mean anomaly', `${meanAnomaly} rad`],
-      ['eccentric anomaly', `${sig(result.eccentricAnomaly, 15)} rad`],
-      ['constants', `${constants.name} (F = ${constants.relativisticF.toExponential(9)} s/√m)`],
-      ['correction Δt_r', `${sig(result.correctionSeconds, 13)} s (${sig(result.correctionSeconds * 1e9, 10)} ns; add to Δt_sv)`],
-      ['amplitude', `${sig(result.amplitudeSeconds, 13)} s (${sig(result.amplitudeSeconds * 1e9, 10)} ns)`],
-    ], outputWidth(args)));
+    io.out(
+      keyValueTable(
+        [
+          ['semi-major axis', `${semiMajorAxis} m`],
+          ['eccentricity', String(eccentricity)],
+          ['mean anomaly', `${meanAnomaly} rad`],
+          ['eccentric anomaly', `${sig(result.eccentricAnomaly, 15)} rad`],
+          ['constants', `${constants.name} (F = ${constants.relativisticF.toExponential(9)} s/√m)`],
+          [
+            'correction Δt_r',
+            `${sig(result.correctionSeconds, 13)} s (${sig(result.correctionSeconds * 1e9, 10)} ns; add to Δt_sv)`,
+          ],
+          ['amplitude', `${sig(result.amplitudeSeconds, 13)} s (${sig(result.amplitudeSeconds * 1e9, 10)} ns)`],
+        ],
+        outputWidth(args),
+      ),
+    );
     return EXIT_OK;
   },
 };

@@ -3,18 +3,28 @@
  * offset stays inside the tolerance, from a steering scenario file.
  */
 import { planSteering, type SteeringMethod, type SteeringPlan, type SteeringScenario } from '@tauline/sdk/steering';
+import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag, readScenarioFile, strategyFlag } from '../flags.js';
 import {
-  EXIT_FINDING, EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, keyValueTable, onePositional, optionalFlag, table, toJson,
   type Command,
+  EXIT_FINDING,
+  EXIT_OK,
+  formatFlag,
+  formatFlags,
+  keyValueTable,
+  onePositional,
+  optionalFlag,
+  TABLE_OR_JSON,
+  table,
+  toJson,
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
-import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag, readScenarioFile, strategyFlag } from '../flags.js';
-import { PLAN_UNITS, nsText } from '../steering-output.js';
+import { nsText, PLAN_UNITS } from '../steering-output.js';
 
 /** A command's step with its sign: fractional for a frequency step, ns for a phase step (the SDK sets the field of the kind). */
 function stepText(c: SteeringPlan['commands'][number]): string {
   const { fractionalFrequencyStep: frequency, phaseStepSeconds: phase } = c;
-  if (c.kind === 'frequency' && frequency !== undefined) return `${frequency >= 0 ? '+' : ''}${frequency.toExponential(3)}`;
+  if (c.kind === 'frequency' && frequency !== undefined)
+    return `${frequency >= 0 ? '+' : ''}${frequency.toExponential(3)}`;
   if (c.kind === 'phase' && phase !== undefined) return `${phase >= 0 ? '+' : ''}${nsText(phase)}`;
   return '—';
 }
@@ -23,10 +33,17 @@ function stepText(c: SteeringPlan['commands'][number]): string {
  * The human-readable schedule, fitted to `width` display columns (undefined: the long form of `--wide`):
  * the command reasons then go under their rows.
  */
-export function planToText(scenario: SteeringScenario, method: string, plan: SteeringPlan, width: number | undefined): string {
+export function planToText(
+  scenario: SteeringScenario,
+  method: string,
+  plan: SteeringPlan,
+  width: number | undefined,
+): string {
   const out: string[] = [];
   const tol = scenario.tolerance;
-  out.push(`${scenario.name ?? 'Steering plan'}: ${method} planner, ${scenario.epoch} + ${(scenario.horizonSeconds / 86_400).toFixed(2)} days`);
+  out.push(
+    `${scenario.name ?? 'Steering plan'}: ${method} planner, ${scenario.epoch} + ${(scenario.horizonSeconds / 86_400).toFixed(2)} days`,
+  );
   out.push(`Tolerance ±${nsText(tol.phaseSeconds)} at ${tol.probability * 100} % per epoch`);
   const m = plan.metrics;
   const verdict = `smallest per-epoch probability in tolerance ${m.probabilityInTolerance.toFixed(4)} ${plan.feasible ? '≥' : '<'} ${tol.probability}`;
@@ -35,19 +52,38 @@ export function planToText(scenario: SteeringScenario, method: string, plan: Ste
   out.push(plan.feasible ? `Feasible: yes (${verdict})` : `Feasible: NO (${verdict}). ${reason}`, '');
   if (plan.commands.length === 0) out.push('No commands.');
   else {
-    out.push(fitTable(['#', 'uplink (UTC)', 'execute (UTC)', 'kind', 'step (fractional or ns)', 'actuator steps', 'reason'],
-      plan.commands.map((c, i) => [i + 1, c.uplinkAt, c.executeAt, c.kind, stepText(c), c.actuatorSteps, c.reason]), { width, below: [6], unlabelled: [6] }).trimEnd());
+    out.push(
+      fitTable(
+        ['#', 'uplink (UTC)', 'execute (UTC)', 'kind', 'step (fractional or ns)', 'actuator steps', 'reason'],
+        plan.commands.map((c, i) => [i + 1, c.uplinkAt, c.executeAt, c.kind, stepText(c), c.actuatorSteps, c.reason]),
+        { width, below: [6], unlabelled: [6] },
+      ).trimEnd(),
+    );
   }
-  out.push('', keyValueTable([
-    ['worst predicted |mean offset|', nsText(m.worstPredictedOffsetSeconds)],
-    ['worst |mean| + z·σ', `${nsText(m.worstOffsetBoundSeconds)} (tolerance ±${nsText(tol.phaseSeconds)}; a sufficient margin, stricter than the criterion)`],
-    ['probability in tolerance', `${m.probabilityInTolerance.toFixed(4)} (smallest per-epoch value; the feasibility criterion is ≥ ${tol.probability})`],
-    ['holds the tolerance from', m.settledAfterSeconds === null ? 'never (the last epoch fails)' : `${(m.settledAfterSeconds / 86_400).toFixed(2)} days after the epoch`],
-    ['commands', String(m.commandCount)],
-    ['total frequency steering', `${m.totalFrequencySteering.toExponential(3)} (fractional)`],
-    ['total phase steering', nsText(m.totalPhaseSteeringSeconds)],
-    ['expected cost J', m.expectedCost.toFixed(5)],
-  ]).trimEnd());
+  out.push(
+    '',
+    keyValueTable([
+      ['worst predicted |mean offset|', nsText(m.worstPredictedOffsetSeconds)],
+      [
+        'worst |mean| + z·σ',
+        `${nsText(m.worstOffsetBoundSeconds)} (tolerance ±${nsText(tol.phaseSeconds)}; a sufficient margin, stricter than the criterion)`,
+      ],
+      [
+        'probability in tolerance',
+        `${m.probabilityInTolerance.toFixed(4)} (smallest per-epoch value; the feasibility criterion is ≥ ${tol.probability})`,
+      ],
+      [
+        'holds the tolerance from',
+        m.settledAfterSeconds === null
+          ? 'never (the last epoch fails)'
+          : `${(m.settledAfterSeconds / 86_400).toFixed(2)} days after the epoch`,
+      ],
+      ['commands', String(m.commandCount)],
+      ['total frequency steering', `${m.totalFrequencySteering.toExponential(3)} (fractional)`],
+      ['total phase steering', nsText(m.totalPhaseSteeringSeconds)],
+      ['expected cost J', m.expectedCost.toFixed(5)],
+    ]).trimEnd(),
+  );
   const { t, steered, unsteered } = plan.predicted;
   const [t0 = 0, t1 = t0] = t;
   const every = Math.max(1, Math.round(21_600 / (t1 - t0)));
@@ -55,9 +91,18 @@ export function planToText(scenario: SteeringScenario, method: string, plan: Ste
   const rows: (string | number)[][] = [];
   for (const [i, ti] of t.entries()) {
     if (i % every !== 0) continue;
-    rows.push([(ti / 86_400).toFixed(2), ns(steered.phaseSeconds[i]), ns(steered.sigmaSeconds[i]), ns(unsteered.phaseSeconds[i])]);
+    rows.push([
+      (ti / 86_400).toFixed(2),
+      ns(steered.phaseSeconds[i]),
+      ns(steered.sigmaSeconds[i]),
+      ns(unsteered.phaseSeconds[i]),
+    ]);
   }
-  out.push('', 'Prediction (every 6 h):', table(['t (days)', 'steered mean (ns)', '1σ (ns)', 'unsteered mean (ns)'], rows).trimEnd());
+  out.push(
+    '',
+    'Prediction (every 6 h):',
+    table(['t (days)', 'steered mean (ns)', '1σ (ns)', 'unsteered mean (ns)'], rows).trimEnd(),
+  );
   out.push('', plan.caution, '');
   return wrapLines(out.join('\n'), width);
 }
@@ -68,9 +113,15 @@ export const planCommand: Command = {
   usage: '<scenario.json> [--strategy deadband|optimal|none] [--leap-seconds <file>] [--json | --format table|json]',
   allowPositionals: true,
   flags: {
-    strategy: { type: 'string', value: '<name>', description: 'Override the scenario\'s strategy: deadband, optimal (constrained LQ) or none.' },
+    strategy: {
+      type: 'string',
+      value: '<name>',
+      description: "Override the scenario's strategy: deadband, optimal (constrained LQ) or none.",
+    },
     'leap-seconds': LEAP_SECONDS_FLAG,
-    ...formatFlags(TABLE_OR_JSON, { json: 'Print the plan as JSON (feasible, reason, commands, predicted, metrics, units, caution); same as --format json.' }),
+    ...formatFlags(TABLE_OR_JSON, {
+      json: 'Print the plan as JSON (feasible, reason, commands, predicted, metrics, units, caution); same as --format json.',
+    }),
   },
   details: `
 Scenario format: packages/sdk/schema/scenario.schema.json (JSON Schema); times ISO 8601 UTC, quantities SI.

@@ -3,21 +3,44 @@
  * optionally beside the broadcast value from navigation files (cross-check).
  */
 import { InvalidArgumentError } from '@tauline/sdk/errors';
-import { evaluateBroadcastEphemeris, selectEphemeris, SYSTEM_TIME_SCALE } from '@tauline/sdk/orbit';
 import { readSp3, type Sp3Event, type Sp3Header } from '@tauline/sdk/io';
+import { evaluateBroadcastEphemeris, SYSTEM_TIME_SCALE, selectEphemeris } from '@tauline/sdk/orbit';
 import {
-  DEFAULT_LAGRANGE_POINTS, PreciseCorrectionStream, type PreciseCorrectionResult, type PreciseCorrectionSample,
+  DEFAULT_LAGRANGE_POINTS,
+  type PreciseCorrectionResult,
+  type PreciseCorrectionSample,
+  PreciseCorrectionStream,
 } from '@tauline/sdk/relativity';
 import {
-  BUNDLED_LEAP_SECONDS, createTimeScales, formatFileEpoch, scaleSecondsFromInstant, type Instant, type TimeScales,
+  BUNDLED_LEAP_SECONDS,
+  createTimeScales,
+  formatFileEpoch,
+  type Instant,
+  scaleSecondsFromInstant,
+  type TimeScales,
 } from '@tauline/sdk/time';
+import { MAX_RECORD_BYTES, requireRegularFile, STANDARD_INPUT, sourceLabel } from '../files.js';
+import { outputFormat, satelliteFlag } from '../flags.js';
 import {
-  EXIT_OK, TABLE_JSON_CSV, UsageError, formatFlags, numberFlag, toJson, type Command, type Io, type ParsedArgs,
+  type Command,
+  EXIT_OK,
+  formatFlags,
+  type Io,
+  numberFlag,
+  type ParsedArgs,
+  TABLE_JSON_CSV,
+  toJson,
+  UsageError,
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
-import { MAX_RECORD_BYTES, STANDARD_INPUT, requireRegularFile, sourceLabel } from '../files.js';
-import { outputFormat, satelliteFlag } from '../flags.js';
-import { fileChunks, isModelledSystem, loadNavigation, progress, totalSize, type LoadedNavigation } from '../navigation.js';
+import {
+  fileChunks,
+  isModelledSystem,
+  type LoadedNavigation,
+  loadNavigation,
+  progress,
+  totalSize,
+} from '../navigation.js';
 
 interface PreciseOut {
   t: string;
@@ -31,28 +54,51 @@ interface PreciseOut {
  * Satellites for which the cross-check gave no broadcast value at any epoch, with the reason: a system the
  * SDK does not model, or no record of the satellite in the navigation files over the SP3 span.
  */
-function withoutBroadcast(order: readonly string[], bySat: ReadonlyMap<string, { samples: PreciseOut[] }>,
-  records: ReadonlyMap<string, readonly unknown[]>): Map<string, string> {
+function withoutBroadcast(
+  order: readonly string[],
+  bySat: ReadonlyMap<string, { samples: PreciseOut[] }>,
+  records: ReadonlyMap<string, readonly unknown[]>,
+): Map<string, string> {
   const out = new Map<string, string>();
   for (const id of order) {
     const samples = bySat.get(id)?.samples ?? [];
     if (samples.length === 0 || samples.some((o) => o.broadcastRelativisticSeconds != null)) continue;
-    out.set(id, !isModelledSystem(id.charAt(0)) ? 'system not modelled (GPS, Galileo and BeiDou only)'
-      : (records.get(id)?.length ?? 0) === 0 ? 'the navigation file(s) have no record of this satellite over the SP3 span'
-        : 'no healthy record whose fit interval covers these epochs');
+    out.set(
+      id,
+      !isModelledSystem(id.charAt(0))
+        ? 'system not modelled (GPS, Galileo and BeiDou only)'
+        : (records.get(id)?.length ?? 0) === 0
+          ? 'the navigation file(s) have no record of this satellite over the SP3 span'
+          : 'no healthy record whose fit interval covers these epochs',
+    );
   }
   return out;
 }
 
 export const preciseCommand: Command = {
   name: 'precise',
-  summary: 'Relativistic correction −2 r·v/c² from an SP3 precise orbit file, optionally compared with broadcast values.',
-  usage: '<sp3-file> [--satellite G01,...] [--lagrange-points <n>] [--nav <rinex-nav-file>]... [--json | --csv | --format table|json|csv]',
+  summary:
+    'Relativistic correction −2 r·v/c² from an SP3 precise orbit file, optionally compared with broadcast values.',
+  usage:
+    '<sp3-file> [--satellite G01,...] [--lagrange-points <n>] [--nav <rinex-nav-file>]... [--json | --csv | --format table|json|csv]',
   allowPositionals: true,
   flags: {
-    satellite: { type: 'string', value: '<ids>', description: 'Comma-separated satellites, e.g. G05,E11 (default: all in the file).' },
-    'lagrange-points': { type: 'string', value: '<n>', description: `Lagrange nodes for velocities when the file has none, 2..16 (default ${DEFAULT_LAGRANGE_POINTS}: degree ${DEFAULT_LAGRANGE_POINTS - 1}).` },
-    nav: { type: 'string', multiple: true, value: '<file>', description: 'RINEX navigation file(s) for the cross-check: adds the broadcast Δt_r and the difference.' },
+    satellite: {
+      type: 'string',
+      value: '<ids>',
+      description: 'Comma-separated satellites, e.g. G05,E11 (default: all in the file).',
+    },
+    'lagrange-points': {
+      type: 'string',
+      value: '<n>',
+      description: `Lagrange nodes for velocities when the file has none, 2..16 (default ${DEFAULT_LAGRANGE_POINTS}: degree ${DEFAULT_LAGRANGE_POINTS - 1}).`,
+    },
+    nav: {
+      type: 'string',
+      multiple: true,
+      value: '<file>',
+      description: 'RINEX navigation file(s) for the cross-check: adds the broadcast Δt_r and the difference.',
+    },
     ...formatFlags(TABLE_JSON_CSV, {
       json: 'Print one JSON object (same as --format json).',
       csv: 'Print CSV rows (id,t,relativisticSeconds,velocitySource[,broadcastRelativisticSeconds,differenceSeconds]), streamed.',
@@ -84,13 +130,20 @@ Exit status: 0 success, 2 invalid input or a malformed file.`,
       throw new UsageError('- (standard input) can be read once only: give it for the SP3 file or for --nav');
     }
     const bar = progress(io, 'reading precise orbits', totalSize([path]));
-    const events = readSp3(fileChunks(path, what, bar.add, maxBytes), { sourceName: sourceLabel(path), timeScales: ts });
+    const events = readSp3(fileChunks(path, what, bar.add, maxBytes), {
+      sourceName: sourceLabel(path),
+      timeScales: ts,
+    });
     const first = await events.next();
     if (first.done || first.value.kind !== 'header') throw new UsageError(`${path}: no SP3 header`);
     const header = first.value.header;
     const unknown = request.filter ? [...request.filter].filter((id) => !header.satellites.includes(id)) : [];
     if (unknown.length > 0) {
-      throw new InvalidArgumentError('--satellite', unknown.join(','), `satellites listed in the header of ${path}: ${header.satellites.join(', ')}`);
+      throw new InvalidArgumentError(
+        '--satellite',
+        unknown.join(','),
+        `satellites listed in the header of ${path}: ${header.satellites.join(', ')}`,
+      );
     }
     const nav = request.navFiles.length > 0 ? await loadCrossCheck(request, header, io) : undefined;
     const collected = await collectCorrections(request, header, events, { ts, nav, io, finish: bar.finish });
@@ -103,7 +156,6 @@ Exit status: 0 success, 2 invalid input or a malformed file.`,
   },
 };
 
-
 /** What `tauline precise` was asked for. */
 interface PreciseRequest {
   readonly path: string;
@@ -115,23 +167,34 @@ interface PreciseRequest {
 
 function preciseRequest(args: ParsedArgs): PreciseRequest {
   const [path, ...more] = args.positionals;
-  if (path === undefined || more.length > 0) throw new UsageError('exactly one SP3 file is required (tauline precise <sp3-file>)');
+  if (path === undefined || more.length > 0)
+    throw new UsageError('exactly one SP3 file is required (tauline precise <sp3-file>)');
   const format = outputFormat(args);
   const filter = satelliteFlag(args);
   const points = numberFlag(args, 'lagrange-points') ?? DEFAULT_LAGRANGE_POINTS;
-  if (!Number.isInteger(points) || points < 2 || points > 16) throw new InvalidArgumentError('--lagrange-points', points, 'an integer in [2, 16]');
-  const navValue = args.values['nav'];
-  const navFiles = Array.isArray(navValue) ? navValue.filter((v): v is string => typeof v === 'string') : typeof navValue === 'string' ? [navValue] : [];
+  if (!Number.isInteger(points) || points < 2 || points > 16)
+    throw new InvalidArgumentError('--lagrange-points', points, 'an integer in [2, 16]');
+  const navValue = args.values.nav;
+  const navFiles = Array.isArray(navValue)
+    ? navValue.filter((v): v is string => typeof v === 'string')
+    : typeof navValue === 'string'
+      ? [navValue]
+      : [];
   return { path, format, filter, points, navFiles };
 }
 
 /** Reads the navigation files over the SP3 span, read on each system's scale (± 1 h margin). */
 function loadCrossCheck(request: PreciseRequest, header: Sp3Header, io: Io): Promise<LoadedNavigation> {
   const spanSeconds = header.epochInterval * (header.epochCount - 1);
-  return loadNavigation(request.navFiles, io, (system) => {
-    const s = scaleSecondsFromInstant(header.firstInstant, SYSTEM_TIME_SCALE[system]);
-    return { from: s - 3600, to: s + spanSeconds + 3600 };
-  }, request.filter ?? new Set(header.satellites));
+  return loadNavigation(
+    request.navFiles,
+    io,
+    (system) => {
+      const s = scaleSecondsFromInstant(header.firstInstant, SYSTEM_TIME_SCALE[system]);
+      return { from: s - 3600, to: s + spanSeconds + 3600 };
+    },
+    request.filter ?? new Set(header.satellites),
+  );
 }
 
 /** Samples and gaps of one satellite, held for table and JSON output. */
@@ -151,12 +214,18 @@ function broadcastAt(nav: LoadedNavigation, s: PreciseCorrectionSample): number 
  * Runs the SP3 epochs through the correction stream: CSV rows are written as they come (one write per
  * epoch: one per row cost about a quarter of the run time on long files); table and JSON rows are kept.
  */
-async function collectCorrections(request: PreciseRequest, header: Sp3Header, events: AsyncGenerator<Sp3Event>,
-  context: { ts: TimeScales; nav: LoadedNavigation | undefined; io: Io; finish: () => void }): Promise<Map<string, SatelliteOut>> {
+async function collectCorrections(
+  request: PreciseRequest,
+  header: Sp3Header,
+  events: AsyncGenerator<Sp3Event>,
+  context: { ts: TimeScales; nav: LoadedNavigation | undefined; io: Io; finish: () => void },
+): Promise<Map<string, SatelliteOut>> {
   const { ts, nav, io } = context;
   const csvOut = request.format === 'csv';
   const stream = new PreciseCorrectionStream({
-    epochInterval: header.epochInterval, lagrangePoints: request.points, ...(request.filter ? { satellites: request.filter } : {}),
+    epochInterval: header.epochInterval,
+    lagrangePoints: request.points,
+    ...(request.filter ? { satellites: request.filter } : {}),
   });
   const bySat = new Map<string, SatelliteOut>();
   const entry = (id: string): SatelliteOut => {
@@ -174,7 +243,8 @@ async function collectCorrections(request: PreciseRequest, header: Sp3Header, ev
     }
     return lastText;
   };
-  if (csvOut) io.out(`id,t,relativisticSeconds,velocitySource${nav ? ',broadcastRelativisticSeconds,differenceSeconds' : ''}\n`);
+  if (csvOut)
+    io.out(`id,t,relativisticSeconds,velocitySource${nav ? ',broadcastRelativisticSeconds,differenceSeconds' : ''}\n`);
   const handle = (results: PreciseCorrectionResult[]) => {
     let csv = '';
     for (const r of results) {
@@ -185,15 +255,21 @@ async function collectCorrections(request: PreciseRequest, header: Sp3Header, ev
         continue;
       }
       const s = r.sample;
-      const o: PreciseOut = { t: epochText(s.epoch), relativisticSeconds: s.relativisticSeconds, velocitySource: s.velocitySource };
+      const o: PreciseOut = {
+        t: epochText(s.epoch),
+        relativisticSeconds: s.relativisticSeconds,
+        velocitySource: s.velocitySource,
+      };
       if (nav) {
         const broadcast = broadcastAt(nav, s);
         o.broadcastRelativisticSeconds = broadcast;
         o.differenceSeconds = broadcast === null ? null : s.relativisticSeconds - broadcast;
       }
       if (csvOut) {
-        csv += `${s.satellite},${o.t},${o.relativisticSeconds},${o.velocitySource}` +
-          (nav ? `,${o.broadcastRelativisticSeconds ?? ''},${o.differenceSeconds ?? ''}` : '') + '\n';
+        csv +=
+          `${s.satellite},${o.t},${o.relativisticSeconds},${o.velocitySource}` +
+          (nav ? `,${o.broadcastRelativisticSeconds ?? ''},${o.differenceSeconds ?? ''}` : '') +
+          '\n';
       } else {
         entry(s.satellite).samples.push(o);
       }
@@ -211,33 +287,60 @@ async function collectCorrections(request: PreciseRequest, header: Sp3Header, ev
   return bySat;
 }
 
-function printJson(io: Io, request: PreciseRequest, header: Sp3Header, order: readonly string[], bySat: ReadonlyMap<string, SatelliteOut>,
-  noBroadcast: ReadonlyMap<string, string>, nav: LoadedNavigation | undefined): void {
-  io.out(toJson({
-    timeSystem: header.timeSystem,
-    timeSystemAssumed: header.timeSystemAssumed,
-    coordinateFrame: header.coordinateFrame,
-    agency: header.agency,
-    sp3Version: header.version,
-    epochInterval: header.epochInterval,
-    lagrangePoints: request.points,
-    satellites: order.map((id) => ({
-      id, samples: bySat.get(id)?.samples ?? [], gaps: bySat.get(id)?.gaps ?? [],
-      ...(noBroadcast.has(id) ? { broadcastNote: noBroadcast.get(id) } : {}),
-    })),
-    ...(nav ? { navigationSkipped: [...nav.skipped].map(([reason, count]) => ({ reason, count })) } : {}),
-    units: {
-      epochInterval: 's', t: `ISO 8601 in the file's time system (${header.timeSystem})`, relativisticSeconds: 's',
-      ...(nav ? { broadcastRelativisticSeconds: 's', differenceSeconds: 's' } : {}),
-    },
-  }));
+function printJson(
+  io: Io,
+  request: PreciseRequest,
+  header: Sp3Header,
+  order: readonly string[],
+  bySat: ReadonlyMap<string, SatelliteOut>,
+  noBroadcast: ReadonlyMap<string, string>,
+  nav: LoadedNavigation | undefined,
+): void {
+  io.out(
+    toJson({
+      timeSystem: header.timeSystem,
+      timeSystemAssumed: header.timeSystemAssumed,
+      coordinateFrame: header.coordinateFrame,
+      agency: header.agency,
+      sp3Version: header.version,
+      epochInterval: header.epochInterval,
+      lagrangePoints: request.points,
+      satellites: order.map((id) => ({
+        id,
+        samples: bySat.get(id)?.samples ?? [],
+        gaps: bySat.get(id)?.gaps ?? [],
+        ...(noBroadcast.has(id) ? { broadcastNote: noBroadcast.get(id) } : {}),
+      })),
+      ...(nav ? { navigationSkipped: [...nav.skipped].map(([reason, count]) => ({ reason, count })) } : {}),
+      units: {
+        epochInterval: 's',
+        t: `ISO 8601 in the file's time system (${header.timeSystem})`,
+        relativisticSeconds: 's',
+        ...(nav ? { broadcastRelativisticSeconds: 's', differenceSeconds: 's' } : {}),
+      },
+    }),
+  );
 }
 
-function printTable(io: Io, args: ParsedArgs, header: Sp3Header, order: readonly string[], bySat: ReadonlyMap<string, SatelliteOut>,
-  noBroadcast: ReadonlyMap<string, string>, nav: LoadedNavigation | undefined): void {
+function printTable(
+  io: Io,
+  args: ParsedArgs,
+  header: Sp3Header,
+  order: readonly string[],
+  bySat: ReadonlyMap<string, SatelliteOut>,
+  noBroadcast: ReadonlyMap<string, string>,
+  nav: LoadedNavigation | undefined,
+): void {
   const width = outputWidth(args);
-  const timeNote = header.timeSystemAssumed ? `${header.timeSystem} time assumed: SP3-${header.version} states none` : `${header.timeSystem} time`;
-  io.out(wrapLines(`Precise-orbit relativistic correction −2 r·v/c² (SP3-${header.version}, ${timeNote}, frame ${header.coordinateFrame}, ${header.agency})\n\n`, width));
+  const timeNote = header.timeSystemAssumed
+    ? `${header.timeSystem} time assumed: SP3-${header.version} states none`
+    : `${header.timeSystem} time`;
+  io.out(
+    wrapLines(
+      `Precise-orbit relativistic correction −2 r·v/c² (SP3-${header.version}, ${timeNote}, frame ${header.coordinateFrame}, ${header.agency})\n\n`,
+      width,
+    ),
+  );
   // A satellite the navigation files say nothing about gets empty broadcast cells and one sentence
   // below the table instead of a column of "—"; no such column at all when no satellite has a record.
   const broadcastColumns = nav !== undefined && order.some((id) => !noBroadcast.has(id));
@@ -247,15 +350,24 @@ function printTable(io: Io, args: ParsedArgs, header: Sp3Header, order: readonly
       const row: (string | number)[] = [id, o.t, (o.relativisticSeconds * 1e9).toFixed(4), o.velocitySource];
       if (broadcastColumns) {
         const none = noBroadcast.has(id) ? '' : '—';
-        row.push(o.broadcastRelativisticSeconds == null ? none : (o.broadcastRelativisticSeconds * 1e9).toFixed(4),
-          o.differenceSeconds == null ? none : (o.differenceSeconds * 1e9).toFixed(4));
+        row.push(
+          o.broadcastRelativisticSeconds == null ? none : (o.broadcastRelativisticSeconds * 1e9).toFixed(4),
+          o.differenceSeconds == null ? none : (o.differenceSeconds * 1e9).toFixed(4),
+        );
       }
       rows.push(row);
     }
   }
-  io.out(fitTable(['sat', 't', 'Δt_r (ns)', 'v from', ...(broadcastColumns ? ['broadcast (ns)', 'difference (ns)'] : [])], rows, { width }));
+  io.out(
+    fitTable(
+      ['sat', 't', 'Δt_r (ns)', 'v from', ...(broadcastColumns ? ['broadcast (ns)', 'difference (ns)'] : [])],
+      rows,
+      { width },
+    ),
+  );
   const text: string[] = [];
-  if (noBroadcast.size > 0) text.push(`\nNo broadcast cross-check:\n${[...noBroadcast].map(([id, why]) => `  ${id}: ${why}`).join('\n')}\n`);
+  if (noBroadcast.size > 0)
+    text.push(`\nNo broadcast cross-check:\n${[...noBroadcast].map(([id, why]) => `  ${id}: ${why}`).join('\n')}\n`);
   const gaps = order.flatMap((id) => (bySat.get(id)?.gaps ?? []).map((g) => `  ${id} ${g.t}: ${g.reason}`));
   if (gaps.length > 0) text.push(`\nEpochs without a correction:\n${gaps.join('\n')}\n`);
   io.out(wrapLines(text.join(''), width));

@@ -2,17 +2,29 @@
  * `tauline propertime`: integrates an orbit together with its clock's proper time and prints
  * τ − TT at regular samples.
  */
+
+import type { ConstantSet } from '@tauline/sdk/constants';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import { GRAVITY_MODELS, type GravityModel } from '@tauline/sdk/orbit';
 import { boundStateCheck, integrateProperTime } from '@tauline/sdk/relativity';
 import { instantFromTtSecondsSinceJ2000 } from '@tauline/sdk/time';
-import type { ConstantSet } from '@tauline/sdk/constants';
+import { CONSTANTS_FLAG, constantsFlag } from '../flags.js';
 import {
-  EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, choiceFlag, formatFlag, formatFlags, numberFlag, parseNumber, requireFlag, sig, toJson, withFlagNames,
   type Command,
+  choiceFlag,
+  EXIT_OK,
+  FLIGHT_CAUTION,
+  formatFlag,
+  formatFlags,
+  numberFlag,
+  parseNumber,
+  requireFlag,
+  sig,
+  TABLE_OR_JSON,
+  toJson,
+  withFlagNames,
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
-import { CONSTANTS_FLAG, constantsFlag } from '../flags.js';
 import { speedHint, warn } from '../plausibility.js';
 import { startProgress, withProgress } from '../progress.js';
 
@@ -20,11 +32,18 @@ import { startProgress, withProgress } from '../progress.js';
 export const PROPERTIME_PROGRESS_ORBITS = 100;
 
 /** Parses `x,y,z,vx,vy,vz` (metres, m/s). */
-export function parseStateFlag(text: string): { position: [number, number, number]; velocity: [number, number, number] } {
+export function parseStateFlag(text: string): {
+  position: [number, number, number];
+  velocity: [number, number, number];
+} {
   const parts = text.split(',');
   if (parts.length !== 6) {
-    throw new InvalidArgumentError('--state', text, 'six comma-separated numbers x,y,z,vx,vy,vz in m and m/s',
-      parts.length === 3 ? 'only three values: the velocity is missing' : undefined);
+    throw new InvalidArgumentError(
+      '--state',
+      text,
+      'six comma-separated numbers x,y,z,vx,vy,vz in m and m/s',
+      parts.length === 3 ? 'only three values: the velocity is missing' : undefined,
+    );
   }
   const names = ['x', 'y', 'z', 'vx', 'vy', 'vz'];
   const v = parts.map((p, i) => parseNumber(`--state ${names[i]}`, p));
@@ -33,9 +52,16 @@ export function parseStateFlag(text: string): { position: [number, number, numbe
 
 /** SDK argument names → the flags that gave them, for the bound check and the integration. */
 const PROPERTIME_FLAG_NAMES: Readonly<Record<string, string>> = {
-  '|state.position|': '--state (|position|)', 'state.position[0]': '--state x', 'state.position[1]': '--state y',
-  'state.position[2]': '--state z', 'state.velocity[0]': '--state vx', 'state.velocity[1]': '--state vy',
-  'state.velocity[2]': '--state vz', duration: '--duration', step: '--step', relativeTolerance: '--tolerance',
+  '|state.position|': '--state (|position|)',
+  'state.position[0]': '--state x',
+  'state.position[1]': '--state y',
+  'state.position[2]': '--state z',
+  'state.velocity[0]': '--state vx',
+  'state.velocity[1]': '--state vy',
+  'state.velocity[2]': '--state vz',
+  duration: '--duration',
+  step: '--step',
+  relativeTolerance: '--tolerance',
   seconds: '--epoch-tt-j2000',
 };
 
@@ -43,38 +69,73 @@ const PROPERTIME_FLAG_NAMES: Readonly<Record<string, string>> = {
  * Refuses an unbound state with a message naming the flags; the judgement (which body, which escape speed) is
  * the SDK's `boundStateCheck` (Earth energy, or for `full` the Moon inside its Hill sphere).
  */
-export function requireBoundState(state: { position: readonly number[]; velocity: readonly number[] }, constants: ConstantSet,
-  model: GravityModel = 'j2', epochTtSecondsSinceJ2000 = 0): void {
+export function requireBoundState(
+  state: { position: readonly number[]; velocity: readonly number[] },
+  constants: ConstantSet,
+  model: GravityModel = 'j2',
+  epochTtSecondsSinceJ2000 = 0,
+): void {
   const [x = Number.NaN, y = Number.NaN, z = Number.NaN] = state.position;
   const [vx = Number.NaN, vy = Number.NaN, vz = Number.NaN] = state.velocity;
   if (!(Math.hypot(x, y, z) > 0) || !Number.isFinite(Math.hypot(vx, vy, vz))) return; // the SDK names the position or velocity error
   const full = model === 'full' && Number.isFinite(epochTtSecondsSinceJ2000);
-  const check = boundStateCheck({ position: [x, y, z], velocity: [vx, vy, vz] }, {
-    model: full ? 'full' : 'j2', constants, ...(full ? { epoch: instantFromTtSecondsSinceJ2000(epochTtSecondsSinceJ2000) } : {}),
-  });
+  const check = boundStateCheck(
+    { position: [x, y, z], velocity: [vx, vy, vz] },
+    {
+      model: full ? 'full' : 'j2',
+      constants,
+      ...(full ? { epoch: instantFromTtSecondsSinceJ2000(epochTtSecondsSinceJ2000) } : {}),
+    },
+  );
   if (check.bound) return;
   if (check.body === 'moon') {
-    throw new InvalidArgumentError('--state (|velocity relative to the Moon|)', check.speed,
+    throw new InvalidArgumentError(
+      '--state (|velocity relative to the Moon|)',
+      check.speed,
       `below the lunar escape speed √(2GM_M/ρ) = ${check.escapeSpeed.toFixed(1)} m/s at ρ = ${check.distance.toFixed(0)} m from the Moon's centre (a Moon-bound orbit inside its Hill sphere, ${(check.hillRadius ?? 0).toFixed(0)} m)`,
-      'the state is inside the Moon\'s Hill sphere but not bound to the Moon; check the velocity (m/s, geocentric) and --epoch-tt-j2000');
+      "the state is inside the Moon's Hill sphere but not bound to the Moon; check the velocity (m/s, geocentric) and --epoch-tt-j2000",
+    );
   }
-  throw new InvalidArgumentError('--state (|velocity|)', check.speed, `below the escape speed √(2GM/r) = ${check.escapeSpeed.toFixed(1)} m/s at r = ${check.distance} m (a bound orbit)`,
-    check.speed > 1e5 ? 'a speed this large looks like mm/s or cm/s; give m/s'
-      : `the state is parabolic or hyperbolic; check the velocity unit (m/s) and value${model === 'full' ? '' : ' (for a lunar orbiter use --model full)'}`);
+  throw new InvalidArgumentError(
+    '--state (|velocity|)',
+    check.speed,
+    `below the escape speed √(2GM/r) = ${check.escapeSpeed.toFixed(1)} m/s at r = ${check.distance} m (a bound orbit)`,
+    check.speed > 1e5
+      ? 'a speed this large looks like mm/s or cm/s; give m/s'
+      : `the state is parabolic or hyperbolic; check the velocity unit (m/s) and value${model === 'full' ? '' : ' (for a lunar orbiter use --model full)'}`,
+  );
 }
 
 export const propertimeCommand: Command = {
   name: 'propertime',
-  summary: 'Integrate an orbit and its clock\'s proper time τ − TT (point mass, J2, or J2 + Sun/Moon).',
-  usage: '--state x,y,z,vx,vy,vz --duration <s> --step <s> [--model point-mass|j2|full] [--epoch-tt-j2000 <s>] [--constants <name>] [--tolerance <rtol>] [--json | --format table|json]',
+  summary: "Integrate an orbit and its clock's proper time τ − TT (point mass, J2, or J2 + Sun/Moon).",
+  usage:
+    '--state x,y,z,vx,vy,vz --duration <s> --step <s> [--model point-mass|j2|full] [--epoch-tt-j2000 <s>] [--constants <name>] [--tolerance <rtol>] [--json | --format table|json]',
   flags: {
-    state: { type: 'string', value: 'x,y,z,vx,vy,vz', description: 'Initial geocentric inertial state at t = 0, metres and m/s (z along the rotation axis). Use --state=-1.2e7,... when it starts with a minus sign.' },
+    state: {
+      type: 'string',
+      value: 'x,y,z,vx,vy,vz',
+      description:
+        'Initial geocentric inertial state at t = 0, metres and m/s (z along the rotation axis). Use --state=-1.2e7,... when it starts with a minus sign.',
+    },
     duration: { type: 'string', value: '<s>', description: 'Span to integrate, in seconds (> 0).' },
     step: { type: 'string', value: '<s>', description: 'Output sample spacing, in seconds (0 < step ≤ duration).' },
-    model: { type: 'string', value: '<name>', description: 'Force and clock-potential model: point-mass, j2 (default), full (J2 + lunar and solar tides).' },
-    'epoch-tt-j2000': { type: 'string', value: '<s>', description: 'For --model full: TT epoch of t = 0 in seconds since J2000.0 (default 0).' },
+    model: {
+      type: 'string',
+      value: '<name>',
+      description: 'Force and clock-potential model: point-mass, j2 (default), full (J2 + lunar and solar tides).',
+    },
+    'epoch-tt-j2000': {
+      type: 'string',
+      value: '<s>',
+      description: 'For --model full: TT epoch of t = 0 in seconds since J2000.0 (default 0).',
+    },
     constants: CONSTANTS_FLAG,
-    tolerance: { type: 'string', value: '<rtol>', description: 'Integrator relative tolerance, in [1e-15, 1e-6] (default 1e-12).' },
+    tolerance: {
+      type: 'string',
+      value: '<rtol>',
+      description: 'Integrator relative tolerance, in [1e-15, 1e-6] (default 1e-12).',
+    },
     ...formatFlags(TABLE_OR_JSON),
   },
   details: `
@@ -106,40 +167,80 @@ Exit status: 0 success, 2 invalid input.`,
     const r0 = Math.hypot(...state.position);
     const orbits = duration / (2 * Math.PI * Math.sqrt(r0 ** 3 / constants.gm));
     const bar = startProgress(io, 'integrating', orbits > PROPERTIME_PROGRESS_ORBITS);
-    const result = withProgress(bar, () => withFlagNames(PROPERTIME_FLAG_NAMES, () => integrateProperTime(state, duration, step, {
-      model, constants, epoch: instantFromTtSecondsSinceJ2000(epoch), ...(tolerance === undefined ? {} : { relativeTolerance: tolerance }),
-      onProgress: bar.update,
-    })));
+    const result = withProgress(bar, () =>
+      withFlagNames(PROPERTIME_FLAG_NAMES, () =>
+        integrateProperTime(state, duration, step, {
+          model,
+          constants,
+          epoch: instantFromTtSecondsSinceJ2000(epoch),
+          ...(tolerance === undefined ? {} : { relativeTolerance: tolerance }),
+          onProgress: bar.update,
+        }),
+      ),
+    );
     // Warned only once the state is accepted: a refused state gets its one error line alone.
-    const hint = speedHint('--state (|velocity|)', Math.hypot(...state.velocity), Math.hypot(...state.position), constants.gm);
+    const hint = speedHint(
+      '--state (|velocity|)',
+      Math.hypot(...state.velocity),
+      Math.hypot(...state.position),
+      constants.gm,
+    );
     if (hint) warn(io, 'propertime', hint);
     const n = result.t.length;
     const meanRate = result.tauMinusTT[n - 1]! / duration;
     if (format === 'json') {
       const samples = Array.from(result.t, (t: number, k: number) => ({ t, tauMinusTT: result.tauMinusTT[k]! }));
-      io.out(toJson({
-        samples,
-        model: result.model,
-        constants: result.constants,
-        epochTtSecondsSinceJ2000: epoch,
-        ephemeris: result.ephemeris,
-        relativeTolerance: result.relativeTolerance,
-        acceptedSteps: result.acceptedSteps,
-        rejectedSteps: result.rejectedSteps,
-        meanRate,
-        // The mean rate is the value a factory offset is computed from: it carries the flight caution.
-        caution: FLIGHT_CAUTION,
-        units: { t: 's (since the start)', tauMinusTT: 's', epochTtSecondsSinceJ2000: 's (TT)', relativeTolerance: 'dimensionless', meanRate: 'dimensionless' },
-      }));
+      io.out(
+        toJson({
+          samples,
+          model: result.model,
+          constants: result.constants,
+          epochTtSecondsSinceJ2000: epoch,
+          ephemeris: result.ephemeris,
+          relativeTolerance: result.relativeTolerance,
+          acceptedSteps: result.acceptedSteps,
+          rejectedSteps: result.rejectedSteps,
+          meanRate,
+          // The mean rate is the value a factory offset is computed from: it carries the flight caution.
+          caution: FLIGHT_CAUTION,
+          units: {
+            t: 's (since the start)',
+            tauMinusTT: 's',
+            epochTtSecondsSinceJ2000: 's (TT)',
+            relativeTolerance: 'dimensionless',
+            meanRate: 'dimensionless',
+          },
+        }),
+      );
       return EXIT_OK;
     }
     const width = outputWidth(args);
-    io.out(wrapLines(`Proper time τ − TT, model ${result.model}, constants ${result.constants}` +
-      (result.model === 'full' ? `, epoch TT J2000 + ${epoch} s (${result.ephemeris})` : '') + '\n\n', width));
-    io.out(fitTable(['t (s)', 'τ − TT (s)', 'τ − TT (ns)'],
-      Array.from(result.t, (t: number, k: number): (string | number)[] => [sig(t, 12), result.tauMinusTT[k]!.toExponential(12), (result.tauMinusTT[k]! * 1e9).toFixed(6)]), { width }));
-    io.out(wrapLines(`\nmean rate over the span: ${meanRate.toExponential(9)} (${sig(meanRate * 86400e6, 8)} µs/day); ` +
-      `${result.acceptedSteps} steps (${result.rejectedSteps} rejected), rtol ${result.relativeTolerance}\n\n${FLIGHT_CAUTION}\n`, width));
+    io.out(
+      wrapLines(
+        `Proper time τ − TT, model ${result.model}, constants ${result.constants}` +
+          (result.model === 'full' ? `, epoch TT J2000 + ${epoch} s (${result.ephemeris})` : '') +
+          '\n\n',
+        width,
+      ),
+    );
+    io.out(
+      fitTable(
+        ['t (s)', 'τ − TT (s)', 'τ − TT (ns)'],
+        Array.from(result.t, (t: number, k: number): (string | number)[] => [
+          sig(t, 12),
+          result.tauMinusTT[k]!.toExponential(12),
+          (result.tauMinusTT[k]! * 1e9).toFixed(6),
+        ]),
+        { width },
+      ),
+    );
+    io.out(
+      wrapLines(
+        `\nmean rate over the span: ${meanRate.toExponential(9)} (${sig(meanRate * 86400e6, 8)} µs/day); ` +
+          `${result.acceptedSteps} steps (${result.rejectedSteps} rejected), rtol ${result.relativeTolerance}\n\n${FLIGHT_CAUTION}\n`,
+        width,
+      ),
+    );
     return EXIT_OK;
   },
 };

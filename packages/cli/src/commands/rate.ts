@@ -2,15 +2,26 @@
  * `tauline rate`: mean relativistic rate of a clock on a Kepler orbit, its split into
  * gravitational and velocity parts, and the factory frequency offset that compensates it.
  */
-import { meanClockRate, REFERENCE_CLOCKS, type ReferenceClock } from '@tauline/sdk/relativity';
+
 import { offsetFrequency } from '@tauline/sdk/oscillator';
-import {
-  EXIT_OK, FLIGHT_CAUTION, TABLE_OR_JSON, choiceFlag, formatFlag, formatFlags, keyValueTable, numberFlag, sig, toJson, withFlagNames,
-  type Command,
-} from '../framework.js';
-import { frequencyHint, warn } from '../plausibility.js';
-import { outputWidth, wrapLines } from '../layout.js';
+import { meanClockRate, REFERENCE_CLOCKS, type ReferenceClock } from '@tauline/sdk/relativity';
 import { CONSTANTS_FLAG, constantsFlag } from '../flags.js';
+import {
+  type Command,
+  choiceFlag,
+  EXIT_OK,
+  FLIGHT_CAUTION,
+  formatFlag,
+  formatFlags,
+  keyValueTable,
+  numberFlag,
+  sig,
+  TABLE_OR_JSON,
+  toJson,
+  withFlagNames,
+} from '../framework.js';
+import { outputWidth, wrapLines } from '../layout.js';
+import { frequencyHint, warn } from '../plausibility.js';
 
 function signed(value: number, digits = 10): string {
   const text = sig(value, digits);
@@ -20,12 +31,25 @@ function signed(value: number, digits = 10): string {
 export const rateCommand: Command = {
   name: 'rate',
   summary: 'Mean relativistic rate of an orbiting clock and the factory offset that compensates it.',
-  usage: '--semi-major-axis <m> [--constants <name>] [--reference tt|tcg] [--nominal-frequency <Hz>] [--json | --format table|json]',
+  usage:
+    '--semi-major-axis <m> [--constants <name>] [--reference tt|tcg] [--nominal-frequency <Hz>] [--json | --format table|json]',
   flags: {
-    'semi-major-axis': { type: 'string', value: '<m>', description: 'Orbit semi-major axis a, in metres (e.g. 26561750 for GPS).' },
+    'semi-major-axis': {
+      type: 'string',
+      value: '<m>',
+      description: 'Orbit semi-major axis a, in metres (e.g. 26561750 for GPS).',
+    },
     constants: CONSTANTS_FLAG,
-    reference: { type: 'string', value: 'tt|tcg', description: 'Reference time scale: tt (clocks on the geoid, default) or tcg.' },
-    'nominal-frequency': { type: 'string', value: '<Hz>', description: 'Nominal oscillator frequency f0, in Hz; adds the frequency to set on the ground.' },
+    reference: {
+      type: 'string',
+      value: 'tt|tcg',
+      description: 'Reference time scale: tt (clocks on the geoid, default) or tcg.',
+    },
+    'nominal-frequency': {
+      type: 'string',
+      value: '<Hz>',
+      description: 'Nominal oscillator frequency f0, in Hz; adds the frequency to set on the ground.',
+    },
     ...formatFlags(TABLE_OR_JSON),
   },
   details: `
@@ -48,31 +72,43 @@ Exit status: 0 success, 2 invalid input.`,
     const constants = constantsFlag(args);
     const reference = choiceFlag<ReferenceClock>(args, 'reference', REFERENCE_CLOCKS, 'tt');
     const nominal = numberFlag(args, 'nominal-frequency');
-    const rate = withFlagNames({ semiMajorAxis: '--semi-major-axis' },
-      () => meanClockRate(semiMajorAxis, { constants, reference }));
-    const shifted = nominal === undefined ? undefined
-      : withFlagNames({ nominalFrequency: '--nominal-frequency' }, () => offsetFrequency(nominal, rate.factoryOffset));
+    const rate = withFlagNames({ semiMajorAxis: '--semi-major-axis' }, () =>
+      meanClockRate(semiMajorAxis, { constants, reference }),
+    );
+    const shifted =
+      nominal === undefined
+        ? undefined
+        : withFlagNames({ nominalFrequency: '--nominal-frequency' }, () =>
+            offsetFrequency(nominal, rate.factoryOffset),
+          );
     const hint = nominal === undefined ? undefined : frequencyHint('--nominal-frequency', nominal);
     if (hint) warn(io, 'rate', hint);
     if (format === 'json') {
-      io.out(toJson({
-        semiMajorAxis: rate.semiMajorAxis,
-        constants: rate.constants,
-        reference: rate.reference,
-        fractionalRate: rate.fractionalRate,
-        gravitational: rate.gravitational,
-        velocity: rate.velocity,
-        microsecondsPerDay: rate.microsecondsPerDay,
-        factoryOffset: rate.factoryOffset,
-        ...(shifted && nominal !== undefined
-          ? { nominalFrequencyHz: nominal, offsetFrequencyHz: shifted.offsetFrequencyHz, offsetHz: shifted.offsetHz } : {}),
-        units: {
-          semiMajorAxis: 'm', fractionalRate: 'dimensionless (dτ/dt − 1)', gravitational: 'dimensionless', velocity: 'dimensionless',
-          microsecondsPerDay: 'µs per day', factoryOffset: 'dimensionless (Δf/f)',
-          ...(shifted ? { nominalFrequencyHz: 'Hz', offsetFrequencyHz: 'Hz', offsetHz: 'Hz' } : {}),
-        },
-        caution: FLIGHT_CAUTION,
-      }));
+      io.out(
+        toJson({
+          semiMajorAxis: rate.semiMajorAxis,
+          constants: rate.constants,
+          reference: rate.reference,
+          fractionalRate: rate.fractionalRate,
+          gravitational: rate.gravitational,
+          velocity: rate.velocity,
+          microsecondsPerDay: rate.microsecondsPerDay,
+          factoryOffset: rate.factoryOffset,
+          ...(shifted && nominal !== undefined
+            ? { nominalFrequencyHz: nominal, offsetFrequencyHz: shifted.offsetFrequencyHz, offsetHz: shifted.offsetHz }
+            : {}),
+          units: {
+            semiMajorAxis: 'm',
+            fractionalRate: 'dimensionless (dτ/dt − 1)',
+            gravitational: 'dimensionless',
+            velocity: 'dimensionless',
+            microsecondsPerDay: 'µs per day',
+            factoryOffset: 'dimensionless (Δf/f)',
+            ...(shifted ? { nominalFrequencyHz: 'Hz', offsetFrequencyHz: 'Hz', offsetHz: 'Hz' } : {}),
+          },
+          caution: FLIGHT_CAUTION,
+        }),
+      );
       return EXIT_OK;
     }
     const ref = reference.toUpperCase();
@@ -80,11 +116,17 @@ Exit status: 0 success, 2 invalid input.`,
       ['semi-major axis', `${rate.semiMajorAxis} m`],
       ['constants', `${constants.name} (${constants.description})`],
       ['reference', ref],
-      ['fractional rate', `${signed(rate.fractionalRate)} (satellite clock runs ${rate.fractionalRate >= 0 ? 'fast' : 'slow'} vs ${ref})`],
+      [
+        'fractional rate',
+        `${signed(rate.fractionalRate)} (satellite clock runs ${rate.fractionalRate >= 0 ? 'fast' : 'slow'} vs ${ref})`,
+      ],
       ['  gravitational', signed(rate.gravitational)],
       ['  velocity', signed(rate.velocity)],
       ['time gained per day', `${signed(rate.microsecondsPerDay)} µs/day`],
-      ['factory offset', `${signed(rate.factoryOffset)} (set the oscillator ${rate.factoryOffset < 0 ? 'low' : 'high'} on the ground)`],
+      [
+        'factory offset',
+        `${signed(rate.factoryOffset)} (set the oscillator ${rate.factoryOffset < 0 ? 'low' : 'high'} on the ground)`,
+      ],
     ];
     if (shifted && nominal !== undefined) {
       rows.push(['nominal frequency', `${nominal} Hz`]);

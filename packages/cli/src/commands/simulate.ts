@@ -2,41 +2,83 @@
  * `tauline simulate <scenario.json> --runs N`: flies each strategy's plan against seeded
  * simulated clock noise and reports time in tolerance, worst excursion and command count.
  */
+
+import { InvalidArgumentError } from '@tauline/sdk/errors';
 import {
-  combineMonteCarloParts, planSteering, simulateClosedLoop, simulatePlan, type ClosedLoopSummary, type SimulationSummary, type SteeringMethod,
-  type SteeringPlan, type SteeringScenario,
+  type ClosedLoopSummary,
+  combineMonteCarloParts,
+  planSteering,
+  type SimulationSummary,
+  type SteeringMethod,
+  type SteeringPlan,
+  type SteeringScenario,
+  simulateClosedLoop,
+  simulatePlan,
 } from '@tauline/sdk/steering';
+import { createTimeScales, type LeapSecondTable } from '@tauline/sdk/time';
 import {
-  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, integerFlag, onePositional, optionalFlag, progressBar, seedFlag, seedFlagSpec,
-  toJson, type Command, type Io, type ParsedArgs,
+  LEAP_SECONDS_FLAG,
+  LEAP_SECONDS_HELP,
+  leapSecondsFlag,
+  leapSecondsTableFlag,
+  readScenarioFile,
+  strategyFlag,
+} from '../flags.js';
+import {
+  type Command,
+  EXIT_OK,
+  formatFlag,
+  formatFlags,
+  type Io,
+  integerFlag,
+  onePositional,
+  optionalFlag,
+  type ParsedArgs,
+  progressBar,
+  seedFlag,
+  seedFlagSpec,
+  TABLE_OR_JSON,
+  toJson,
 } from '../framework.js';
 import { fitTable, outputWidth, wrapLines } from '../layout.js';
-import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag, leapSecondsTableFlag, readScenarioFile, strategyFlag } from '../flags.js';
-import { nsText } from '../steering-output.js';
-import { createTimeScales, type LeapSecondTable } from '@tauline/sdk/time';
-import { InvalidArgumentError } from '@tauline/sdk/errors';
 import { AUTO_POOL_STEPS, MAX_WORKERS, SimulatePool, workerCount, workerScript } from '../simulate-pool.js';
+import { nsText } from '../steering-output.js';
 
 /** Simulated (run × grid-epoch) steps above which a progress bar is shown on a terminal. */
 export const PROGRESS_THRESHOLD = 200_000;
 
 /** The caution printed under the closed-loop table. */
-export const CLOSED_LOOP_CAUTION = 'Caution: a simulation of operations under the scenario\'s clock and estimate noise models, not a guarantee; verify any schedule against the mission\'s own interface specification and have it confirmed by its responsible engineering authority before uplink.';
+export const CLOSED_LOOP_CAUTION =
+  "Caution: a simulation of operations under the scenario's clock and estimate noise models, not a guarantee; verify any schedule against the mission's own interface specification and have it confirmed by its responsible engineering authority before uplink.";
 
 /** The caution printed under the table and carried in the JSON. */
-export const SIMULATION_CAUTION = 'Caution: plans are open-loop from the epoch estimate; verify any schedule against the mission\'s own interface specification and have it confirmed by its responsible engineering authority before uplink.';
+export const SIMULATION_CAUTION =
+  "Caution: plans are open-loop from the epoch estimate; verify any schedule against the mission's own interface specification and have it confirmed by its responsible engineering authority before uplink.";
 
 export const simulateCommand: Command = {
   name: 'simulate',
   summary: 'Monte Carlo of steering plans against simulated clock noise, per strategy.',
-  usage: '<scenario.json> (--runs <n> | --closed-loop [--runs <n>]) [--seed <n>] [--strategy deadband|optimal|none|all] [--workers <n>] [--leap-seconds <file>] [--json | --format table|json]',
+  usage:
+    '<scenario.json> (--runs <n> | --closed-loop [--runs <n>]) [--seed <n>] [--strategy deadband|optimal|none|all] [--workers <n>] [--leap-seconds <file>] [--json | --format table|json]',
   allowPositionals: true,
   flags: {
-    runs: { type: 'string', value: '<n>', description: 'Number of simulated clocks per strategy (1 … 1000000; with --closed-loop 1 … 100000, default 100).' },
-    'closed-loop': { type: 'boolean', description: 'Fly the scenario\'s operations block: estimates with noise and latency, re-plan at every contact (needs "operations" in the scenario).' },
+    runs: {
+      type: 'string',
+      value: '<n>',
+      description: 'Number of simulated clocks per strategy (1 … 1000000; with --closed-loop 1 … 100000, default 100).',
+    },
+    'closed-loop': {
+      type: 'boolean',
+      description:
+        'Fly the scenario\'s operations block: estimates with noise and latency, re-plan at every contact (needs "operations" in the scenario).',
+    },
     seed: seedFlagSpec('the random generator', '; same seed, same numbers'),
     strategy: { type: 'string', value: '<name>', description: 'deadband, optimal, none, or all (default all).' },
-    workers: { type: 'string', value: '<n>', description: `Worker threads for the open-loop runs (1 … ${MAX_WORKERS}; 1 = in-process; default: one per free core (cores less the 1-minute load average) when runs × grid epochs ≥ ${AUTO_POOL_STEPS.toLocaleString('en-US')}, else 1). Same output for any number.` },
+    workers: {
+      type: 'string',
+      value: '<n>',
+      description: `Worker threads for the open-loop runs (1 … ${MAX_WORKERS}; 1 = in-process; default: one per free core (cores less the 1-minute load average) when runs × grid epochs ≥ ${AUTO_POOL_STEPS.toLocaleString('en-US')}, else 1). Same output for any number.`,
+    },
     'leap-seconds': LEAP_SECONDS_FLAG,
     ...formatFlags(TABLE_OR_JSON, { json: 'Print the results as JSON (same as --format json).' }),
   },
@@ -74,7 +116,10 @@ Exit status: 0 success, 2 unusable input.`,
     const timeScales = leapSeconds ? createTimeScales(leapSeconds) : undefined;
     const scenario = await readScenarioFile(path);
     const methods: SteeringMethod[] = choice === 'all' ? ['none', 'deadband', 'optimal'] : [choice];
-    const plans = methods.map((method) => ({ method, plan: planSteering(scenario, { strategy: method, ...(timeScales ? { timeScales } : {}) }) }));
+    const plans = methods.map((method) => ({
+      method,
+      plan: planSteering(scenario, { strategy: method, ...(timeScales ? { timeScales } : {}) }),
+    }));
     const script = workerScript();
     // Every strategy's plan is on the scenario's one grid.
     const gridEpochs = Math.max(...plans.map(({ plan }) => plan.predicted.t.length));
@@ -86,48 +131,113 @@ Exit status: 0 success, 2 unusable input.`,
         const long = io.isTty && runs * plan.predicted.t.length > PROGRESS_THRESHOLD;
         const bar = long ? progressBar(io, `simulating ${method}`) : undefined;
         const summary = pool
-          ? await simulateInPool(pool, { scenario, plan, seed, runs, ...(leapSeconds ? { leapSeconds } : {}) }, bar?.update)
-          : simulatePlan(scenario, plan, { runs, seed, ...(bar ? { onProgress: bar.update } : {}), ...(timeScales ? { timeScales } : {}) });
+          ? await simulateInPool(
+              pool,
+              { scenario, plan, seed, runs, ...(leapSeconds ? { leapSeconds } : {}) },
+              bar?.update,
+            )
+          : simulatePlan(scenario, plan, {
+              runs,
+              seed,
+              ...(bar ? { onProgress: bar.update } : {}),
+              ...(timeScales ? { timeScales } : {}),
+            });
         bar?.finish();
-        results.push({ strategy: method, feasible: plan.feasible, expectedCost: plan.metrics.expectedCost, ...summary });
+        results.push({
+          strategy: method,
+          feasible: plan.feasible,
+          expectedCost: plan.metrics.expectedCost,
+          ...summary,
+        });
       }
     } finally {
       await pool?.close();
     }
     if (format === 'json') {
-      io.out(toJson({
-        scenario: (scenario as SteeringScenario).name ?? null,
-        results,
-        units: {
-          expectedCost: 'dimensionless', timeInTolerance: 'dimensionless (fraction)', wholeHorizonProbability: 'dimensionless (fraction)',
-          minEpochProbability: 'dimensionless (fraction)', worstExcursionSeconds: 's', worstExcursionP95Seconds: 's',
-        },
-        caution: SIMULATION_CAUTION,
-      }));
+      io.out(
+        toJson({
+          scenario: (scenario as SteeringScenario).name ?? null,
+          results,
+          units: {
+            expectedCost: 'dimensionless',
+            timeInTolerance: 'dimensionless (fraction)',
+            wholeHorizonProbability: 'dimensionless (fraction)',
+            minEpochProbability: 'dimensionless (fraction)',
+            worstExcursionSeconds: 's',
+            worstExcursionP95Seconds: 's',
+          },
+          caution: SIMULATION_CAUTION,
+        }),
+      );
       return EXIT_OK;
     }
     const s = scenario as SteeringScenario;
     const width = outputWidth(args);
-    io.out(wrapLines(`${s.name ?? 'Steering scenario'}: ${runs} simulated clocks per strategy, seed ${seed}; tolerance ±${nsText(s.tolerance.phaseSeconds)}\n\n`, width));
-    io.out(fitTable(['strategy', 'plan feasible', 'commands', 'time in tolerance', 'whole horizon', 'min epoch', 'worst excursion', '95 % worst', 'expected cost J'],
-      results.map((r) => [r.strategy, r.feasible ? 'yes' : 'no', r.commandCount, r.timeInTolerance.toFixed(4), r.wholeHorizonProbability.toFixed(4),
-        r.minEpochProbability.toFixed(4), nsText(r.worstExcursionSeconds), nsText(r.worstExcursionP95Seconds), r.expectedCost.toFixed(5)]), { width }));
+    io.out(
+      wrapLines(
+        `${s.name ?? 'Steering scenario'}: ${runs} simulated clocks per strategy, seed ${seed}; tolerance ±${nsText(s.tolerance.phaseSeconds)}\n\n`,
+        width,
+      ),
+    );
+    io.out(
+      fitTable(
+        [
+          'strategy',
+          'plan feasible',
+          'commands',
+          'time in tolerance',
+          'whole horizon',
+          'min epoch',
+          'worst excursion',
+          '95 % worst',
+          'expected cost J',
+        ],
+        results.map((r) => [
+          r.strategy,
+          r.feasible ? 'yes' : 'no',
+          r.commandCount,
+          r.timeInTolerance.toFixed(4),
+          r.wholeHorizonProbability.toFixed(4),
+          r.minEpochProbability.toFixed(4),
+          nsText(r.worstExcursionSeconds),
+          nsText(r.worstExcursionP95Seconds),
+          r.expectedCost.toFixed(5),
+        ]),
+        { width },
+      ),
+    );
     io.out(wrapLines(`\n${SIMULATION_CAUTION}\n`, width));
     return EXIT_OK;
   },
 };
 
 /** One strategy's runs flown by the pool and combined: the same summary as `simulatePlan` in-process. */
-async function simulateInPool(pool: SimulatePool, job: { scenario: unknown; plan: SteeringPlan; seed: number; runs: number; leapSeconds?: LeapSecondTable },
-  onProgress?: (done: number, total: number) => void): Promise<SimulationSummary> {
-  const parts = await pool.run({ scenario: job.scenario, commands: job.plan.commands, seed: job.seed, runs: job.runs,
-    ...(job.leapSeconds ? { leapSeconds: job.leapSeconds } : {}) }, onProgress);
+async function simulateInPool(
+  pool: SimulatePool,
+  job: { scenario: unknown; plan: SteeringPlan; seed: number; runs: number; leapSeconds?: LeapSecondTable },
+  onProgress?: (done: number, total: number) => void,
+): Promise<SimulationSummary> {
+  const parts = await pool.run(
+    {
+      scenario: job.scenario,
+      commands: job.plan.commands,
+      seed: job.seed,
+      runs: job.runs,
+      ...(job.leapSeconds ? { leapSeconds: job.leapSeconds } : {}),
+    },
+    onProgress,
+  );
   return combineMonteCarloParts(parts);
 }
 
 /** `--closed-loop`: the closed-loop Monte Carlo of every chosen strategy on the same clocks. */
 async function runClosedLoop(args: ParsedArgs, io: Io, path: string, format: 'table' | 'json'): Promise<number> {
-  if (args.values.workers !== undefined) throw new InvalidArgumentError('--workers', args.values.workers, 'no value: --workers applies to the open-loop runs; the closed loop runs in-process');
+  if (args.values.workers !== undefined)
+    throw new InvalidArgumentError(
+      '--workers',
+      args.values.workers,
+      'no value: --workers applies to the open-loop runs; the closed loop runs in-process',
+    );
   const runs = integerFlag(args, 'runs', 1, 100_000, 'simulated clocks') ?? 100;
   const seed = seedFlag(args) ?? 1;
   const choice = strategyFlag(optionalFlag(args, 'strategy'), true) ?? 'all';
@@ -135,7 +245,13 @@ async function runClosedLoop(args: ParsedArgs, io: Io, path: string, format: 'ta
   const scenario = await readScenarioFile(path);
   const strategies: SteeringMethod[] = choice === 'all' ? ['optimal', 'deadband', 'none'] : [choice];
   const bar = io.isTty ? progressBar(io, 'closed loop') : undefined;
-  const summary = simulateClosedLoop(scenario, { runs, seed, strategies, ...(bar ? { onProgress: bar.update } : {}), ...(timeScales ? { timeScales } : {}) });
+  const summary = simulateClosedLoop(scenario, {
+    runs,
+    seed,
+    strategies,
+    ...(bar ? { onProgress: bar.update } : {}),
+    ...(timeScales ? { timeScales } : {}),
+  });
   bar?.finish();
   if (format === 'json') {
     io.out(toJson(summary));
@@ -148,14 +264,47 @@ async function runClosedLoop(args: ParsedArgs, io: Io, path: string, format: 'ta
 /** The human table of a closed-loop summary, fitted to `width` display columns (undefined: unlimited, `--wide`). */
 export function closedLoopText(s: SteeringScenario, r: ClosedLoopSummary, width?: number): string {
   const ops = s.operations;
-  if (ops === undefined) throw new InvalidArgumentError('scenario.operations', undefined, 'the operations block a closed-loop run simulates');
-  const head = `${s.name ?? 'Steering scenario'}: closed loop, ${r.runs} simulated clocks, seed ${r.seed}; tolerance ±${nsText(s.tolerance.phaseSeconds)}; ` +
+  if (ops === undefined)
+    throw new InvalidArgumentError(
+      'scenario.operations',
+      undefined,
+      'the operations block a closed-loop run simulates',
+    );
+  const head =
+    `${s.name ?? 'Steering scenario'}: closed loop, ${r.runs} simulated clocks, seed ${r.seed}; tolerance ±${nsText(s.tolerance.phaseSeconds)}; ` +
     `estimates every ${ops.estimateIntervalSeconds} s, 1σ ${nsText(ops.estimateNoiseSeconds)}, latency ${ops.estimateLatencySeconds ?? 0} s; re-plan at each contact`;
-  const rows = r.strategies.map((x) => [x.method, x.timeInTolerance.mean.toFixed(4), x.timeInTolerance.p05.toFixed(4), x.timeInTolerance.min.toFixed(4),
-    nsText(x.maxAbsOffsetSeconds.p50), nsText(x.maxAbsOffsetSeconds.p95), nsText(x.maxAbsOffsetSeconds.max),
-    x.commandsPerDay.mean.toFixed(2), x.totalFrequencySteering.mean.toExponential(3)]);
-  const body = fitTable(['strategy', 'time in tolerance mean', 'p05', 'min', 'max |offset| p50', 'p95', 'max', 'commands/day', 'Σ|freq steps| mean'],
-    rows, { width });
-  return wrapLines(`${head}\n\n`, width) + body +
-    wrapLines(`\nTime in tolerance: per run, the fraction of grid epochs with |offset| ≤ tolerance. Percentiles are over runs (nearest rank).\n${CLOSED_LOOP_CAUTION}\n`, width);
+  const rows = r.strategies.map((x) => [
+    x.method,
+    x.timeInTolerance.mean.toFixed(4),
+    x.timeInTolerance.p05.toFixed(4),
+    x.timeInTolerance.min.toFixed(4),
+    nsText(x.maxAbsOffsetSeconds.p50),
+    nsText(x.maxAbsOffsetSeconds.p95),
+    nsText(x.maxAbsOffsetSeconds.max),
+    x.commandsPerDay.mean.toFixed(2),
+    x.totalFrequencySteering.mean.toExponential(3),
+  ]);
+  const body = fitTable(
+    [
+      'strategy',
+      'time in tolerance mean',
+      'p05',
+      'min',
+      'max |offset| p50',
+      'p95',
+      'max',
+      'commands/day',
+      'Σ|freq steps| mean',
+    ],
+    rows,
+    { width },
+  );
+  return (
+    wrapLines(`${head}\n\n`, width) +
+    body +
+    wrapLines(
+      `\nTime in tolerance: per run, the fraction of grid epochs with |offset| ≤ tolerance. Percentiles are over runs (nearest rank).\n${CLOSED_LOOP_CAUTION}\n`,
+      width,
+    )
+  );
 }

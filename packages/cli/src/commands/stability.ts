@@ -2,17 +2,35 @@
  * `tauline stability`: Allan-family frequency-stability statistics of a phase or frequency record
  * with chi-square confidence intervals and per-τ noise identification (NIST SP 1065).
  */
-import {
-  analyzeStability, DEFAULT_STATISTICS, STATISTIC_NAMES, type NoiseType, type StabilityAnalysis, type StabilityData, type StatisticName,
-} from '@tauline/sdk/stability';
+
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import {
-  EXIT_OK, TABLE_OR_JSON, formatFlag, formatFlags, numberFlag, optionalFlag, parseNumber, sig, toJson, UsageError, withFlagNames,
-  type Command, type ParsedArgs,
-} from '../framework.js';
-import { readClockRecord, recordFlags, type ClockRecord } from '../records.js';
+  analyzeStability,
+  DEFAULT_STATISTICS,
+  type NoiseType,
+  STATISTIC_NAMES,
+  type StabilityAnalysis,
+  type StabilityData,
+  type StatisticName,
+} from '@tauline/sdk/stability';
 import { epochFormat } from '../epochs.js';
+import {
+  type Command,
+  EXIT_OK,
+  formatFlag,
+  formatFlags,
+  numberFlag,
+  optionalFlag,
+  type ParsedArgs,
+  parseNumber,
+  sig,
+  TABLE_OR_JSON,
+  toJson,
+  UsageError,
+  withFlagNames,
+} from '../framework.js';
 import { fitTable, outputWidth, wrappedOut } from '../layout.js';
+import { type ClockRecord, readClockRecord, recordFlags } from '../records.js';
 
 /** Fewest phase points any statistic here can use (one second difference needs 3; the edf models need 4). */
 export const MIN_PHASE_POINTS = 4;
@@ -33,7 +51,10 @@ const NOISES: readonly NoiseType[] = ['WPM', 'FPM', 'WFM', 'FFM', 'RWFM'];
 function listFlag(args: ParsedArgs, flag: string): string[] | undefined {
   const text = optionalFlag(args, flag);
   if (text === undefined) return undefined;
-  const items = text.split(',').map((s) => s.trim()).filter((s) => s !== '');
+  const items = text
+    .split(',')
+    .map((s) => s.trim())
+    .filter((s) => s !== '');
   if (items.length === 0) throw new UsageError(`--${flag} needs a comma-separated list`);
   return items;
 }
@@ -58,15 +79,24 @@ function stabilityRequest(args: ParsedArgs): StabilityRequest {
   const tau0 = numberFlag(args, 'tau0');
   const statistics = (listFlag(args, 'statistics') ?? [...DEFAULT_STATISTICS]).map((s) => s.toLowerCase());
   for (const s of statistics) {
-    if (!STATISTIC_NAMES.includes(s as StatisticName)) throw new UsageError(`--statistics: unknown statistic ${JSON.stringify(s)}; choose from ${STATISTIC_NAMES.join(', ')}`);
+    if (!STATISTIC_NAMES.includes(s as StatisticName))
+      throw new UsageError(
+        `--statistics: unknown statistic ${JSON.stringify(s)}; choose from ${STATISTIC_NAMES.join(', ')}`,
+      );
   }
   const taus = listFlag(args, 'taus')?.map((t) => parseNumber('--taus', t));
   const noiseText = optionalFlag(args, 'noise');
   const noise = noiseText?.toUpperCase() as NoiseType | undefined;
-  if (noise !== undefined && !NOISES.includes(noise)) throw new UsageError(`--noise must be one of ${NOISES.join(', ')}; received ${JSON.stringify(noiseText)}`);
+  if (noise !== undefined && !NOISES.includes(noise))
+    throw new UsageError(`--noise must be one of ${NOISES.join(', ')}; received ${JSON.stringify(noiseText)}`);
   const confidence = numberFlag(args, 'confidence');
   if (confidence !== undefined && !(confidence > 0 && confidence < 1)) {
-    throw new InvalidArgumentError('--confidence', confidence, 'in (0, 1), e.g. 0.6827 or 0.95', confidence >= 1 && confidence < 100 ? 'a fraction, not a percentage' : undefined);
+    throw new InvalidArgumentError(
+      '--confidence',
+      confidence,
+      'in (0, 1), e.g. 0.6827 or 0.95',
+      confidence >= 1 && confidence < 100 ? 'a fraction, not a percentage' : undefined,
+    );
   }
   return { tau0, statistics: statistics as StatisticName[], taus, noise, confidence };
 }
@@ -79,23 +109,33 @@ function analyzeRecord(input: ClockRecord, request: StabilityRequest): Stability
   const { taus, noise, confidence } = request;
   const phasePoints = input.values.length + (input.kind === 'frequency' ? 1 : 0);
   if (phasePoints < MIN_PHASE_POINTS) {
-    throw new InvalidArgumentError(input.flag, input.source,
-      `a record of at least ${MIN_PHASE_POINTS} phase points (${MIN_PHASE_POINTS - 1} frequency values)`, `it has ${input.values.length} sample(s)`);
+    throw new InvalidArgumentError(
+      input.flag,
+      input.source,
+      `a record of at least ${MIN_PHASE_POINTS} phase points (${MIN_PHASE_POINTS - 1} frequency values)`,
+      `it has ${input.values.length} sample(s)`,
+    );
   }
-  const data: StabilityData = input.kind === 'phase' ? { phase: input.values, tau0: input.tau0 } : { frequency: input.values, tau0: input.tau0 };
-  const analysis = withFlagNames(stabilityFlagOf, () => analyzeStability(data, {
-    statistics: request.statistics,
-    ...(taus ? { taus } : {}),
-    ...(noise ? { noise } : {}),
-    ...(confidence !== undefined ? { confidence } : {}),
-  }));
+  const data: StabilityData =
+    input.kind === 'phase' ? { phase: input.values, tau0: input.tau0 } : { frequency: input.values, tau0: input.tau0 };
+  const analysis = withFlagNames(stabilityFlagOf, () =>
+    analyzeStability(data, {
+      statistics: request.statistics,
+      ...(taus ? { taus } : {}),
+      ...(noise ? { noise } : {}),
+      ...(confidence !== undefined ? { confidence } : {}),
+    }),
+  );
   if (analysis.rows.length === 0) {
     const n = analysis.input.phasePoints;
     const longest = Math.floor((n - 1) / 2) * analysis.input.tau0;
-    throw new InvalidArgumentError(taus ? '--taus' : input.flag,
-      taus ? taus.join(',') : input.source, 'a request in which at least one τ has a complete (gap-free) term',
+    throw new InvalidArgumentError(
+      taus ? '--taus' : input.flag,
+      taus ? taus.join(',') : input.source,
+      'a request in which at least one τ has a complete (gap-free) term',
       `the record has ${n} phase points, ${analysis.input.missing} missing in ${input.gaps.length} gap(s); ` +
-      `without gaps oadev reaches τ = ⌊(N − 1)/2⌋·τ0 = ${sig(longest)} s; dropped τ: ${analysis.droppedTaus.map((t) => sig(t)).join(', ')} s`);
+        `without gaps oadev reaches τ = ⌊(N − 1)/2⌋·τ0 = ${sig(longest)} s; dropped τ: ${analysis.droppedTaus.map((t) => sig(t)).join(', ')} s`,
+    );
   }
   return analysis;
 }
@@ -105,7 +145,13 @@ function stabilityJson(input: ClockRecord, analysis: StabilityAnalysis): Record<
   const stats = analysis.statistics;
   const epoch = epochFormat(input);
   const rows = analysis.rows.map((r) => {
-    const row: Record<string, unknown> = { tau: r.tau, m: r.m, noise: r.noise, alpha: r.alpha, noiseSource: r.noiseSource };
+    const row: Record<string, unknown> = {
+      tau: r.tau,
+      m: r.m,
+      noise: r.noise,
+      alpha: r.alpha,
+      noiseSource: r.noiseSource,
+    };
     for (const s of stats) {
       const e = r.statistics[s];
       row[s] = e?.deviation ?? null;
@@ -119,8 +165,13 @@ function stabilityJson(input: ClockRecord, analysis: StabilityAnalysis): Record<
   });
   return {
     input: {
-      kind: input.kind, file: input.source, ...(input.clock ? { clock: input.clock } : {}), ...(input.timeSystem ? { timeSystem: input.timeSystem } : {}),
-      samples: analysis.input.samples, phasePoints: analysis.input.phasePoints, missing: analysis.input.missing,
+      kind: input.kind,
+      file: input.source,
+      ...(input.clock ? { clock: input.clock } : {}),
+      ...(input.timeSystem ? { timeSystem: input.timeSystem } : {}),
+      samples: analysis.input.samples,
+      phasePoints: analysis.input.phasePoints,
+      missing: analysis.input.missing,
       // A RINEX clock file's gap epochs also as ISO 8601 in its time system (timeIso).
       gaps: input.gaps.map((g) => {
         const iso = g.time === undefined ? undefined : epoch.iso(g.time);
@@ -133,9 +184,17 @@ function stabilityJson(input: ClockRecord, analysis: StabilityAnalysis): Record<
     rows,
     droppedTaus: analysis.droppedTaus,
     units: {
-      tau: 's', tau0: 's', droppedTaus: 's', tdev: 's', tdevLow: 's', tdevHigh: 's', confidence: 'dimensionless (probability)',
+      tau: 's',
+      tau0: 's',
+      droppedTaus: 's',
+      tdev: 's',
+      tdevLow: 's',
+      tdevHigh: 's',
+      confidence: 'dimensionless (probability)',
       deviations: 'dimensionless (fractional frequency) for every statistic except tdev',
-      ...(epoch.scale === undefined ? {} : { gapTime: `s since 1980-01-06T00:00:00 ${epoch.scale}`, gapTimeIso: `ISO 8601 in ${epoch.scale}` }),
+      ...(epoch.scale === undefined
+        ? {}
+        : { gapTime: `s since 1980-01-06T00:00:00 ${epoch.scale}`, gapTimeIso: `ISO 8601 in ${epoch.scale}` }),
     },
   };
 }
@@ -145,53 +204,100 @@ function recordSummary(input: ClockRecord, analysis: StabilityAnalysis): string 
   const epoch = epochFormat(input);
   const first = input.times?.[0];
   const last = input.times?.at(-1);
-  const span = input.flag === '--rinex-clock' && first !== undefined && last !== undefined ? `epochs ${epoch.text(first)} … ${epoch.text(last)}, ` : '';
-  return `${input.kind} record ${input.source}${input.clock ? ` (clock ${input.clock}${input.timeSystem ? `, ${input.timeSystem} time` : ''})` : ''}: ` +
-    `${analysis.input.samples} samples, τ0 = ${sig(analysis.input.tau0)} s, ` + span +
-    `${analysis.input.missing} missing in ${input.gaps.length} gap(s)\n`;
+  const span =
+    input.flag === '--rinex-clock' && first !== undefined && last !== undefined
+      ? `epochs ${epoch.text(first)} … ${epoch.text(last)}, `
+      : '';
+  return (
+    `${input.kind} record ${input.source}${input.clock ? ` (clock ${input.clock}${input.timeSystem ? `, ${input.timeSystem} time` : ''})` : ''}: ` +
+    `${analysis.input.samples} samples, τ0 = ${sig(analysis.input.tau0)} s, ` +
+    span +
+    `${analysis.input.missing} missing in ${input.gaps.length} gap(s)\n`
+  );
 }
 
 /** The human-readable report: record summary, first gaps, the deviation table fitted to `width` and its notes. */
-function printStabilityText(out: (text: string) => void, width: number | undefined, input: ClockRecord, analysis: StabilityAnalysis): void {
+function printStabilityText(
+  out: (text: string) => void,
+  width: number | undefined,
+  input: ClockRecord,
+  analysis: StabilityAnalysis,
+): void {
   const stats = analysis.statistics;
   const epoch = epochFormat(input);
   out(recordSummary(input, analysis));
   for (const g of input.gaps.slice(0, 10)) {
-    out(`  gap: ${g.missing} missing sample(s) from index ${g.index}${g.time !== undefined ? ` (t = ${epoch.text(g.time)})` : ''}, line ${g.line}\n`);
+    out(
+      `  gap: ${g.missing} missing sample(s) from index ${g.index}${g.time !== undefined ? ` (t = ${epoch.text(g.time)})` : ''}, line ${g.line}\n`,
+    );
   }
   if (input.gaps.length > 10) out(`  ... ${input.gaps.length - 10} more gaps (see --json)\n`);
   const headers = ['τ (s)', 'noise'];
   for (const s of stats) headers.push(s, `${s} interval`, 'n');
   const rows = analysis.rows.map((r) => {
-    const cells: string[] = [sig(r.tau, 6), `${r.noise}${r.noiseSource === 'identified' ? '' : r.noiseSource === 'stated' ? ' (stated)' : '*'}`];
+    const cells: string[] = [
+      sig(r.tau, 6),
+      `${r.noise}${r.noiseSource === 'identified' ? '' : r.noiseSource === 'stated' ? ' (stated)' : '*'}`,
+    ];
     for (const s of stats) {
       const e = r.statistics[s];
       if (!e) cells.push('—', '—', '—');
-      else cells.push(formatDeviation(s, e.deviation), `[${formatDeviation(s, e.low)}, ${formatDeviation(s, e.high)}]`, String(e.n));
+      else
+        cells.push(
+          formatDeviation(s, e.deviation),
+          `[${formatDeviation(s, e.low)}, ${formatDeviation(s, e.high)}]`,
+          String(e.n),
+        );
     }
     return cells;
   });
   // Too many statistics for the width: panels of whole statistics (value, interval, n), each with τ and noise.
   const groups = stats.map((_, k) => [2 + 3 * k, 3 + 3 * k, 4 + 3 * k]);
-  out('\n' + fitTable(headers, rows, { width, panels: { keys: 2, groups } }));
-  out(`\nDeviations are fractional frequency (dimensionless); tdev in seconds. Intervals: ${sig(analysis.confidence * 100, 4)} % chi-square (NIST SP 1065 §5.3).\n`);
+  out(`\n${fitTable(headers, rows, { width, panels: { keys: 2, groups } })}`);
+  out(
+    `\nDeviations are fractional frequency (dimensionless); tdev in seconds. Intervals: ${sig(analysis.confidence * 100, 4)} % chi-square (NIST SP 1065 §5.3).\n`,
+  );
   if (analysis.rows.some((r) => r.noiseSource === 'carried-from-shorter-tau' || r.noiseSource === 'default-wfm')) {
-    out('* noise type not identifiable at this τ (fewer than 32 points): carried from a shorter τ, or white FM when none could be identified.\n');
+    out(
+      '* noise type not identifiable at this τ (fewer than 32 points): carried from a shorter τ, or white FM when none could be identified.\n',
+    );
   }
-  if (analysis.droppedTaus.length > 0) out(`Dropped τ (no complete term): ${analysis.droppedTaus.map((t) => sig(t)).join(', ')} s\n`);
+  if (analysis.droppedTaus.length > 0)
+    out(`Dropped τ (no complete term): ${analysis.droppedTaus.map((t) => sig(t)).join(', ')} s\n`);
 }
 
 export const stabilityCommand: Command = {
   name: 'stability',
   summary: 'Allan, modified Allan, time, Hadamard and total deviations with confidence intervals and noise type per τ.',
-  usage: '(--phase <file> | --frequency <file> | --rinex-clock <file> --clock <name>) [--tau0 <s>] [--statistics oadev,mdev,...] [--taus <s,...>] [--noise <type>] [--confidence <p>] [--json | --format table|json]',
+  usage:
+    '(--phase <file> | --frequency <file> | --rinex-clock <file> --clock <name>) [--tau0 <s>] [--statistics oadev,mdev,...] [--taus <s,...>] [--noise <type>] [--confidence <p>] [--json | --format table|json]',
   flags: {
     ...recordFlags(['phase', 'frequency']),
-    tau0: { type: 'string', value: '<s>', description: 'Sample spacing τ0 in seconds (required for one-column files; otherwise the smallest time step).' },
-    statistics: { type: 'string', value: '<list>', description: `Comma list of ${STATISTIC_NAMES.join(', ')} (default ${DEFAULT_STATISTICS.join(',')}).` },
-    taus: { type: 'string', value: '<s,...>', description: 'Averaging times in seconds, each a whole multiple of τ0 (default octaves τ0·2^k).' },
-    noise: { type: 'string', value: '<type>', description: 'State the noise type for the intervals (WPM, FPM, WFM, FFM, RWFM) instead of identifying it per τ.' },
-    confidence: { type: 'string', value: '<p>', description: 'Two-sided confidence level of the intervals, in (0, 1) (default 0.6827 = ±1σ).' },
+    tau0: {
+      type: 'string',
+      value: '<s>',
+      description: 'Sample spacing τ0 in seconds (required for one-column files; otherwise the smallest time step).',
+    },
+    statistics: {
+      type: 'string',
+      value: '<list>',
+      description: `Comma list of ${STATISTIC_NAMES.join(', ')} (default ${DEFAULT_STATISTICS.join(',')}).`,
+    },
+    taus: {
+      type: 'string',
+      value: '<s,...>',
+      description: 'Averaging times in seconds, each a whole multiple of τ0 (default octaves τ0·2^k).',
+    },
+    noise: {
+      type: 'string',
+      value: '<type>',
+      description: 'State the noise type for the intervals (WPM, FPM, WFM, FFM, RWFM) instead of identifying it per τ.',
+    },
+    confidence: {
+      type: 'string',
+      value: '<p>',
+      description: 'Two-sided confidence level of the intervals, in (0, 1) (default 0.6827 = ±1σ).',
+    },
     ...formatFlags(TABLE_OR_JSON),
   },
   details: `

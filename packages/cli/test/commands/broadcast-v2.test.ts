@@ -25,12 +25,28 @@ describe('tauline broadcast on RINEX 2 files', () => {
     expect(a.err).toBe('');
     expect(withoutFileIdentity(a.out)).toEqual(withoutFileIdentity(b.out));
     const j = JSON.parse(a.out);
-    expect(j.files).toEqual([{
-      file: V211, version: 2.11, fileType: 'N', satelliteSystem: 'G', leapSeconds: 18,
-      ionosphere: [{ type: 'GPSA', parametersBroadcastUnits: [1.118e-8, 7.451e-9, -5.961e-8, -5.961e-8] },
-        { type: 'GPSB', parametersBroadcastUnits: [9.011e4, 1.638e4, -1.966e5, -6.554e4] }],
-      timeSystemCorrections: [{ type: 'GPUT', a0: 1.862645149e-9, a1: 1.776356839e-15, referenceSecondsOfWeek: 405504, referenceWeek: 2295 }],
-    }]);
+    expect(j.files).toEqual([
+      {
+        file: V211,
+        version: 2.11,
+        fileType: 'N',
+        satelliteSystem: 'G',
+        leapSeconds: 18,
+        ionosphere: [
+          { type: 'GPSA', parametersBroadcastUnits: [1.118e-8, 7.451e-9, -5.961e-8, -5.961e-8] },
+          { type: 'GPSB', parametersBroadcastUnits: [9.011e4, 1.638e4, -1.966e5, -6.554e4] },
+        ],
+        timeSystemCorrections: [
+          {
+            type: 'GPUT',
+            a0: 1.862645149e-9,
+            a1: 1.776356839e-15,
+            referenceSecondsOfWeek: 405504,
+            referenceWeek: 2295,
+          },
+        ],
+      },
+    ]);
     expect(j.units.files.a0).toBe('s');
   });
 
@@ -49,15 +65,21 @@ describe('tauline broadcast on RINEX 2 files', () => {
     const j = JSON.parse((await run(['broadcast', V211, ...SPAN, '--satellite', 'G27,G14', '--json'])).out);
     const g27 = j.satellites.find((s: { id: string }) => s.id === 'G27');
     expect(g27.samples.at(-1)).toEqual({
-      t: '2024-01-07T04:30:00', relativisticSeconds: null, clockCorrectionSeconds: null,
-      reason: 'after the end of the fit interval of the nearest healthy record (t_oe 2024-01-07T02:00:00 GPST, fit 4 h, valid to 2024-01-07T04:00:00 GPST): not extrapolated',
+      t: '2024-01-07T04:30:00',
+      relativisticSeconds: null,
+      clockCorrectionSeconds: null,
+      reason:
+        'after the end of the fit interval of the nearest healthy record (t_oe 2024-01-07T02:00:00 GPST, fit 4 h, valid to 2024-01-07T04:00:00 GPST): not extrapolated',
     });
-    expect(g27.samples[0].reason).toMatch(/^before the start of the fit interval .* valid from 2024-01-07T00:00:00 GPST\): not extrapolated$/);
+    expect(g27.samples[0].reason).toMatch(
+      /^before the start of the fit interval .* valid from 2024-01-07T00:00:00 GPST\): not extrapolated$/,
+    );
     // 04:00 is the last covered sample: the value the mpmath script gives (reference_clock_v2.py [C]; checked to 1e-18 s in test/reference).
     expect(g27.samples.at(-2).clockCorrectionSeconds).toBeCloseTo(-1.872113960402862e-4, 16);
     const g14 = j.satellites.find((s: { id: string }) => s.id === 'G14');
-    expect(g14.samples.map((s: { clockCorrectionSeconds: number | null }) => s.clockCorrectionSeconds !== null)).toEqual(
-      [true, true, true, true, true, false, false, false, false, false, false, false]);
+    expect(
+      g14.samples.map((s: { clockCorrectionSeconds: number | null }) => s.clockCorrectionSeconds !== null),
+    ).toEqual([true, true, true, true, true, false, false, false, false, false, false, false]);
     expect(g14.samples[4].toe).toBe('2024-01-06T22:00:00');
     expect(j.samplesWithoutRecord).toBe(7 + 3); // G14: 01:30–04:30; G27: 23:00, 23:30 and 04:30
     const table = (await run(['broadcast', V211, ...SPAN, '--satellite', 'G27'])).out;
@@ -65,7 +87,19 @@ describe('tauline broadcast on RINEX 2 files', () => {
   });
 
   it('tauline broadcast <2.10 file> reads years 99/00 and notes the week written modulo 1024 and the unknown fit interval', async () => {
-    const r = await run(['broadcast', nav('gps-v210.rnx'), '--from', '2000-01-01T23:00:00', '--to', '2000-01-01T23:00:00', '--step', '1', '--satellite', 'G21', '--json']);
+    const r = await run([
+      'broadcast',
+      nav('gps-v210.rnx'),
+      '--from',
+      '2000-01-01T23:00:00',
+      '--to',
+      '2000-01-01T23:00:00',
+      '--step',
+      '1',
+      '--satellite',
+      'G21',
+      '--json',
+    ]);
     const j = JSON.parse(r.out);
     expect(r.status).toBe(0);
     expect(j.satellites[0].samples[0].clockCorrectionSeconds).toBeCloseTo(-6.068610355913088e-6, 17); // reference_clock_v2.py [C]
@@ -75,8 +109,13 @@ describe('tauline broadcast on RINEX 2 files', () => {
   });
 
   it('tauline broadcast <GLONASS and GEO 2.11 files> counts their records as skipped, with the GPS file alongside', async () => {
-    const j = JSON.parse((await run(['broadcast', V211, nav('glonass-v211.rnx'), nav('geo-v211.rnx'), ...SPAN, '--json'])).out);
-    expect(j.skipped.map((s: { reason: string; count: number }) => [s.reason.split(' ')[0], s.count])).toEqual([['GLONASS', 2], ['SBAS', 1]]);
+    const j = JSON.parse(
+      (await run(['broadcast', V211, nav('glonass-v211.rnx'), nav('geo-v211.rnx'), ...SPAN, '--json'])).out,
+    );
+    expect(j.skipped.map((s: { reason: string; count: number }) => [s.reason.split(' ')[0], s.count])).toEqual([
+      ['GLONASS', 2],
+      ['SBAS', 1],
+    ]);
     expect(j.files.map((f: { fileType: string }) => f.fileType)).toEqual(['N', 'G', 'H']);
   });
 
@@ -85,12 +124,14 @@ describe('tauline broadcast on RINEX 2 files', () => {
     const { tmpdir } = await import('node:os');
     const dir = mkdtempSync(join(tmpdir(), 'tauline-v2-'));
     const text = readFileSync(V211, 'utf8').split('\n');
-    text[0] = text[0]!.slice(0, 40) + 'M' + text[0]!.slice(41);
+    text[0] = `${text[0]!.slice(0, 40)}M${text[0]!.slice(41)}`;
     writeFileSync(join(dir, 'mixed.11n'), text.join('\n'));
     const r = await run(['broadcast', join(dir, 'mixed.11n'), ...SPAN]);
     expect(r.status).toBe(2);
     expect(r.out).toBe('');
     expect(r.err.trim().split('\n')).toHaveLength(1);
-    expect(r.err).toMatch(/mixed\.11n:1:41: expected column 41 blank \(or G\) in a RINEX 2 'N' file: RINEX 2\.11 defines no mixed or Galileo navigation file layout/);
+    expect(r.err).toMatch(
+      /mixed\.11n:1:41: expected column 41 blank \(or G\) in a RINEX 2 'N' file: RINEX 2\.11 defines no mixed or Galileo navigation file layout/,
+    );
   });
 });

@@ -31,7 +31,11 @@ describe('tauline clock', () => {
     expect(jump).toMatchObject({ kind: 'phase', epoch: TRUTH.jumpEpoch, index: 2500, pass: 1 });
     expect(Math.abs(jump.size - TRUTH.jumpSize)).toBeLessThan(2 * jump.sizeStd);
     expect(j.filter.rejected).toEqual([]);
-    expect(j.filter.detection).toMatchObject({ falseAlarmProbabilityPerSample: 1e-6, testsPerSample: 36, outlierProbability: 1e-4 });
+    expect(j.filter.detection).toMatchObject({
+      falseAlarmProbabilityPerSample: 1e-6,
+      testsPerSample: 36,
+      outlierProbability: 1e-4,
+    });
     expect(j.filter.detection.jumpThreshold).toBeCloseTo(30.856864804329376, 6); // scipy.stats.chi2.isf(1e-6/36, 1) [C]
     // q intervals at the reported 68.27 % level (χ², diffusionFromStabilityRows).
     for (const n of ['q1', 'q2'] as const) {
@@ -48,7 +52,18 @@ describe('tauline clock', () => {
   });
 
   it('tauline clock (table) names units, prints the flight caution, the jump and the scenario-noise snippet', async () => {
-    const r = await run(['clock', '--phase', EXAMPLE, '--degree', '1', '--states', '2', '--measurement-sigma', '3e-11', '--scenario-noise']);
+    const r = await run([
+      'clock',
+      '--phase',
+      EXAMPLE,
+      '--degree',
+      '1',
+      '--states',
+      '2',
+      '--measurement-sigma',
+      '3e-11',
+      '--scenario-noise',
+    ]);
     expect(r.status).toBe(0);
     expect(r.out).toMatch(/af1 .* dimensionless/);
     expect(r.out).toMatch(/x\(t\) = af0 \+ af1·\(t − t_oc\), t_oc = 0 s, degree 1/);
@@ -57,8 +72,12 @@ describe('tauline clock', () => {
     expect(r.out).toMatch(/phase +750000 +2500/);
     // What a declared jump means: the per-sample false-alarm probability and the GLR threshold
     // (scipy.stats.chi2.isf(1e-6/36, 1) = 30.857; isf(1e-4, 1) = 15.137 [C]).
-    expect(r.out.replace(/\s+/g, ' ')).toMatch(/jump detection: GLR statistic l > 30\.86 \(χ²\(1\) at 1\.00e-6\/36\); on a jump-free record a false jump is declared with probability ≤ 1\.00e-6 per sample/);
-    expect(r.out).toMatch(/outliers: impulse statistic l > 15\.14, i\.e\. a good sample is rejected with probability 1\.00e-4/);
+    expect(r.out.replace(/\s+/g, ' ')).toMatch(
+      /jump detection: GLR statistic l > 30\.86 \(χ²\(1\) at 1\.00e-6\/36\); on a jump-free record a false jump is declared with probability ≤ 1\.00e-6 per sample/,
+    );
+    expect(r.out).toMatch(
+      /outliers: impulse statistic l > 15\.14, i\.e\. a good sample is rejected with probability 1\.00e-4/,
+    );
     expect(r.out).toMatch(/measurement noise σ_v = 3\.00e-11 s \(given\)/);
     const snippet = r.out.trim().split('\n').pop()!;
     expect(Object.keys(JSON.parse(snippet))).toEqual(['q1', 'q2', 'q3']);
@@ -76,7 +95,7 @@ describe('tauline clock', () => {
   it('tauline clock rejects bad input with one line and exit 2', async () => {
     const tmp = mkdtempSync(join(tmpdir(), 'tauline-clock-'));
     const one = join(tmp, 'one-column.txt');
-    writeFileSync(one, Array.from({ length: 40 }, (_, k) => `${k * 1e-10}`).join('\n') + '\n');
+    writeFileSync(one, `${Array.from({ length: 40 }, (_, k) => `${k * 1e-10}`).join('\n')}\n`);
     const cases: [string[], RegExp][] = [
       [['--phase', EXAMPLE, '--degree', '3'], /--degree must be 1 or 2/],
       [['--phase', EXAMPLE, '--states', '4'], /--states must be 2 or 3/],
@@ -96,20 +115,23 @@ describe('tauline clock', () => {
     }
   });
 
-  it.skipIf(!existsSync(BIN))('the built binary `tauline clock --phase <example> --json` prints the same result as the in-process call', async () => {
-    const b = spawnSync(process.execPath, [BIN, 'clock', '--phase', EXAMPLE, '--json'], { encoding: 'utf8' });
-    const inProcess = await run(['clock', '--phase', EXAMPLE, '--json']);
-    if (b.stderr.includes('unknown command')) return; // binary built before this command existed
-    expect(b.status).toBe(0);
-    expect(JSON.parse(b.stdout).filter.jumps).toEqual(JSON.parse(inProcess.out).filter.jumps);
-  });
+  it.skipIf(!existsSync(BIN))(
+    'the built binary `tauline clock --phase <example> --json` prints the same result as the in-process call',
+    async () => {
+      const b = spawnSync(process.execPath, [BIN, 'clock', '--phase', EXAMPLE, '--json'], { encoding: 'utf8' });
+      const inProcess = await run(['clock', '--phase', EXAMPLE, '--json']);
+      if (b.stderr.includes('unknown command')) return; // binary built before this command existed
+      expect(b.status).toBe(0);
+      expect(JSON.parse(b.stdout).filter.jumps).toEqual(JSON.parse(inProcess.out).filter.jumps);
+    },
+  );
 });
 
 describe('tauline clock on a record too short to characterise', () => {
   it('exits 2 naming the flag, the file, the sample count and the minimum', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'tauline-clock-'));
     const file = join(dir, 'short.txt');
-    writeFileSync(file, Array.from({ length: 9 }, (_, k) => `${k * 1e-9}`).join('\n') + '\n');
+    writeFileSync(file, `${Array.from({ length: 9 }, (_, k) => `${k * 1e-9}`).join('\n')}\n`);
     const r = await run(['clock', '--phase', file, '--tau0', '1']);
     expect(r.status).toBe(2);
     expect(r.err.trim().split('\n')).toHaveLength(1);
@@ -120,16 +142,32 @@ describe('tauline clock on a record too short to characterise', () => {
 describe('tauline clock --rinex-clock <file> --clock <name>', () => {
   const LONG = join(ROOT, 'test/fixtures/rinex-clock/long-304.clk');
   /** True values of long-304.clk (test/fixtures/rinex-clock/SOURCE.md and generate-long.mjs). */
-  const LONG_TRUTH = { af0: 2.345e-5, af1: -3.7e-12, q1: 1e-23, q2: 1e-31, measurementNoise: 30e-12, seed: 20261202, epochs: 400, tau0: 300, missingIndex: 150 };
+  const LONG_TRUTH = {
+    af0: 2.345e-5,
+    af1: -3.7e-12,
+    q1: 1e-23,
+    q2: 1e-31,
+    measurementNoise: 30e-12,
+    seed: 20261202,
+    epochs: 400,
+    tau0: 300,
+    missingIndex: 150,
+  };
   /** GPS seconds since 1980-01-06T00:00:00 by calendar arithmetic (GPS time has no leap seconds; IS-GPS-200 §3.3.4 [M]). */
   const gpsSeconds = (iso: string): number => (Date.parse(`${iso}Z`) - Date.parse('1980-01-06T00:00:00Z')) / 1000;
 
   it('long-304.clk holds the G37 biases of simulateClock with the stated seed and true values, to the 12 digits written, without sample 150 (generator check, SOURCE.md)', () => {
     const sim = simulateClock({
-      samples: LONG_TRUTH.epochs, tau0: LONG_TRUTH.tau0, q: { q1: LONG_TRUTH.q1, q2: LONG_TRUTH.q2 }, seed: LONG_TRUTH.seed,
-      measurementNoise: LONG_TRUTH.measurementNoise, initial: { phase: LONG_TRUTH.af0, frequency: LONG_TRUTH.af1 },
+      samples: LONG_TRUTH.epochs,
+      tau0: LONG_TRUTH.tau0,
+      q: { q1: LONG_TRUTH.q1, q2: LONG_TRUTH.q2 },
+      seed: LONG_TRUTH.seed,
+      measurementNoise: LONG_TRUTH.measurementNoise,
+      initial: { phase: LONG_TRUTH.af0, frequency: LONG_TRUTH.af1 },
     });
-    const rows = readFileSync(LONG, 'utf8').split('\n').filter((l) => l.startsWith('AS G37 '));
+    const rows = readFileSync(LONG, 'utf8')
+      .split('\n')
+      .filter((l) => l.startsWith('AS G37 '));
     expect(rows).toHaveLength(LONG_TRUTH.epochs - 1);
     const start = gpsSeconds('2026-02-02T00:00:00');
     for (const row of rows) {
@@ -137,7 +175,9 @@ describe('tauline clock --rinex-clock <file> --clock <name>', () => {
       const t = gpsSeconds(`${f[2]}-${f[3]}-${f[4]}T${f[5]}:${f[6]}:00`) + Number(f[7]);
       const k = (t - start) / LONG_TRUTH.tau0;
       expect(k).not.toBe(LONG_TRUTH.missingIndex);
-      expect(Math.abs(Number(f[9]) - (sim.phase[k] as number))).toBeLessThanOrEqual(5e-12 * Math.abs(sim.phase[k] as number));
+      expect(Math.abs(Number(f[9]) - (sim.phase[k] as number))).toBeLessThanOrEqual(
+        5e-12 * Math.abs(sim.phase[k] as number),
+      );
     }
   });
 
@@ -146,8 +186,18 @@ describe('tauline clock --rinex-clock <file> --clock <name>', () => {
     expect(r.status).toBe(0);
     expect(r.err).toBe('');
     const j = JSON.parse(r.out);
-    expect(j.input).toMatchObject({ file: LONG, clock: 'G37', timeSystem: 'GPS', samples: 400, tau0: 300, firstEpoch: gpsSeconds('2026-02-02T00:00:00'), lastEpoch: gpsSeconds('2026-02-03T09:15:00') });
-    expect(j.input.gaps).toEqual([{ index: 150, missing: 1, line: 162, time: gpsSeconds('2026-02-02T12:30:00'), timeIso: '2026-02-02T12:30:00' }]);
+    expect(j.input).toMatchObject({
+      file: LONG,
+      clock: 'G37',
+      timeSystem: 'GPS',
+      samples: 400,
+      tau0: 300,
+      firstEpoch: gpsSeconds('2026-02-02T00:00:00'),
+      lastEpoch: gpsSeconds('2026-02-03T09:15:00'),
+    });
+    expect(j.input.gaps).toEqual([
+      { index: 150, missing: 1, line: 162, time: gpsSeconds('2026-02-02T12:30:00'), timeIso: '2026-02-02T12:30:00' },
+    ]);
     expect(j.input).toMatchObject({ firstEpochIso: '2026-02-02T00:00:00', lastEpochIso: '2026-02-03T09:15:00' });
     expect(j.polynomial.referenceTimeIso).toBe('2026-02-02T00:00:00');
     expect(j.polynomial.samplesUsed).toBe(399);
@@ -160,7 +210,11 @@ describe('tauline clock --rinex-clock <file> --clock <name>', () => {
     // The missing epoch is a skipped update, not an outlier or a jump.
     expect(j.filter.jumps).toEqual([]);
     expect(j.filter.rejected).toEqual([]);
-    expect(j.filter.detection).toMatchObject({ falseAlarmProbabilityPerSample: 1e-6, testsPerSample: 36, outlierProbability: 1e-4 });
+    expect(j.filter.detection).toMatchObject({
+      falseAlarmProbabilityPerSample: 1e-6,
+      testsPerSample: 36,
+      outlierProbability: 1e-4,
+    });
     expect(j.filter.detection.jumpThreshold).toBeCloseTo(30.856864804329376, 6); // scipy.stats.chi2.isf(1e-6/36, 1) [C]
   });
 
@@ -169,7 +223,8 @@ describe('tauline clock --rinex-clock <file> --clock <name>', () => {
     expect(r.status).toBe(0);
     // The record's epochs as written in the file (SOURCE.md): 2026-02-02 00:00 to 2026-02-03 09:15 GPS time, 300 s apart.
     expect(r.out.replace(/\n(?! )/g, ' ')).toMatch(
-      /^clock record .*long-304\.clk \(clock G37, GPS time\): 400 samples, τ0 = 300 s, epochs 2026-02-02T00:00:00 GPS … 2026-02-03T09:15:00 GPS, 1 missing in 1 gap\(s\)/m);
+      /^clock record .*long-304\.clk \(clock G37, GPS time\): 400 samples, τ0 = 300 s, epochs 2026-02-02T00:00:00 GPS … 2026-02-03T09:15:00 GPS, 1 missing in 1 gap\(s\)/m,
+    );
     expect(r.out).toMatch(/^ {2}gap: 1 missing sample\(s\) from index 150 \(t = 2026-02-02T12:30:00 GPS\), line 162$/m);
     expect(r.out).toMatch(/t_oc = 2026-02-02T00:00:00 GPS/);
     expect(r.out).not.toMatch(/\d\.\d+e\+9/);
@@ -185,9 +240,20 @@ describe('tauline clock --rinex-clock <file> --clock <name>', () => {
 
   it('tauline clock and tauline stability read RINEX clock 2.00, 3.02 and 3.05 files (A4 and A9 layouts)', async () => {
     const FIX = join(ROOT, 'test/fixtures/rinex-clock');
-    const v302 = JSON.parse((await run(['clock', '--rinex-clock', join(FIX, 'fictional-302.clk'), '--clock', 'E14', '--json'])).out);
+    const v302 = JSON.parse(
+      (await run(['clock', '--rinex-clock', join(FIX, 'fictional-302.clk'), '--clock', 'E14', '--json'])).out,
+    );
     expect(v302.input).toMatchObject({ clock: 'E14', tau0: 60, samples: 16, timeSystem: 'GPS' });
-    const v305 = await run(['stability', '--rinex-clock', join(FIX, 'fictional-305.clk'), '--clock', 'E27', '--statistics', 'oadev', '--json']);
+    const v305 = await run([
+      'stability',
+      '--rinex-clock',
+      join(FIX, 'fictional-305.clk'),
+      '--clock',
+      'E27',
+      '--statistics',
+      'oadev',
+      '--json',
+    ]);
     expect(v305.status).toBe(0);
     expect(JSON.parse(v305.out).input).toMatchObject({ clock: 'E27', tau0: 30, samples: 8, timeSystem: 'GAL' });
     const v200 = await run(['clock', '--rinex-clock', join(FIX, 'fictional-200.clk'), '--clock', 'G12']);
@@ -205,13 +271,17 @@ describe('tauline clock --rinex-clock <file> --clock <name>', () => {
     const r = await run(['clock', '--rinex-clock', far, '--clock', 'G37']);
     expect(r.status).toBe(2);
     expect(r.err.trim().split('\n')).toHaveLength(1);
-    expect(r.err).toContain(`far.clk:${final + 1}:1: expected a uniform series of at most 50000000 samples (MAX_SERIES_SAMPLES): the gap of `);
+    expect(r.err).toContain(
+      `far.clk:${final + 1}:1: expected a uniform series of at most 50000000 samples (MAX_SERIES_SAMPLES): the gap of `,
+    );
     expect(r.err).toContain(` s after line ${prev + 1} is `);
     const cut = join(dir, 'cut.clk');
     writeFileSync(cut, [...lines.slice(0, 10), lines[10]!.slice(0, 51), ...lines.slice(11)].join('\n'));
     const c = await run(['clock', '--rinex-clock', cut, '--clock', 'G37']);
     expect(c.status).toBe(2);
-    expect(c.err).toMatch(/cut\.clk:11:47: expected clock bias \(s\) \(value 1 of 2, E19\.12 in columns 46-64\): a complete number in exponent form/);
+    expect(c.err).toMatch(
+      /cut\.clk:11:47: expected clock bias \(s\) \(value 1 of 2, E19\.12 in columns 46-64\): a complete number in exponent form/,
+    );
   });
 
   it('tauline clock --rinex-clock without --clock exits 2 with one line asking for --clock', async () => {
@@ -240,7 +310,9 @@ describe('an imposed --tau0 finer than the record spacing', () => {
       const r = await run([command, '--rinex-clock', file, '--clock', 'G37', '--tau0', '150']);
       expect(r.status, command).toBe(2);
       expect(r.err.trim().split('\n'), command).toHaveLength(1);
-      expect(r.err, command).toMatch(/--tau0 150 s leaves 400 of 799 epochs .* empty: is it smaller than the record's sample spacing/);
+      expect(r.err, command).toMatch(
+        /--tau0 150 s leaves 400 of 799 epochs .* empty: is it smaller than the record's sample spacing/,
+      );
     }
   });
 });

@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { runCli, type CliRun } from '../run.js';
+import { type CliRun, runCli } from '../run.js';
 
 const VESPER = fileURLToPath(new URL('../../../sdk/examples/fleet/vesper-constellation.json', import.meta.url));
 const ASHGROVE = fileURLToPath(new URL('../../../sdk/examples/fleet/ashgrove-orbits.json', import.meta.url));
@@ -24,7 +24,7 @@ function overbooked(): Record<string, any> {
 }
 
 describe('tauline fleet', () => {
-  it('tauline fleet vesper-constellation.json --json prints the issue\'s shape (feasible, satellites with commands and station, stationSchedule), units and the caution, and exits 0', async () => {
+  it("tauline fleet vesper-constellation.json --json prints the issue's shape (feasible, satellites with commands and station, stationSchedule), units and the caution, and exits 0", async () => {
     const r = await run(VESPER, '--json');
     expect(r.err).toBe('');
     expect(r.status).toBe(0);
@@ -35,11 +35,25 @@ describe('tauline fleet', () => {
     for (const s of plan.satellites) {
       expect(Object.keys(s).sort()).toEqual(['commands', 'feasible', 'id', 'metrics', 'predicted']);
       for (const c of s.commands) {
-        expect(Object.keys(c).sort()).toEqual(['actuatorSteps', 'executeAt', 'fractionalFrequencyStep', 'kind', 'reason', 'station', 'uplinkAt']);
-        expect(plan.stationSchedule.some((x: { satellite: string; station: string; start: string; end: string }) => x.satellite === s.id && x.station === c.station && x.start <= c.uplinkAt && c.uplinkAt <= x.end)).toBe(true);
+        expect(Object.keys(c).sort()).toEqual([
+          'actuatorSteps',
+          'executeAt',
+          'fractionalFrequencyStep',
+          'kind',
+          'reason',
+          'station',
+          'uplinkAt',
+        ]);
+        expect(
+          plan.stationSchedule.some(
+            (x: { satellite: string; station: string; start: string; end: string }) =>
+              x.satellite === s.id && x.station === c.station && x.start <= c.uplinkAt && c.uplinkAt <= x.end,
+          ),
+        ).toBe(true);
       }
     }
-    for (const x of plan.stationSchedule) expect(Object.keys(x).sort()).toEqual(['end', 'satellite', 'start', 'station']);
+    for (const x of plan.stationSchedule)
+      expect(Object.keys(x).sort()).toEqual(['end', 'satellite', 'start', 'station']);
   });
 
   it('tauline fleet vesper-constellation.json prints one line per satellite, the station timelines, the supports and the caution', async () => {
@@ -47,8 +61,11 @@ describe('tauline fleet', () => {
     expect(r.status).toBe(0);
     expect(Math.max(...r.out.split('\n').map((l) => [...l].length))).toBeLessThanOrEqual(100);
     // The header row as one line: --wide (the default table wraps long headers to fit 100 columns).
-    expect((await run(VESPER, '--wide')).out).toMatch(/satellite\s+feasible\s+worst \|mean\| \+ z·σ\s+tolerance\s+probability\s+in\s+tolerance\s+supports\s+commands\s+stations\s+used/);
-    for (const id of ['VESPER-1', 'VESPER-2', 'VESPER-3', 'VESPER-4']) expect(r.out).toMatch(new RegExp(`^${id}\\s+yes\\s+[\\d.]+ ns`, 'm'));
+    expect((await run(VESPER, '--wide')).out).toMatch(
+      /satellite\s+feasible\s+worst \|mean\| \+ z·σ\s+tolerance\s+probability\s+in\s+tolerance\s+supports\s+commands\s+stations\s+used/,
+    );
+    for (const id of ['VESPER-1', 'VESPER-2', 'VESPER-3', 'VESPER-4'])
+      expect(r.out).toMatch(new RegExp(`^${id}\\s+yes\\s+[\\d.]+ ns`, 'm'));
     expect(r.out).toMatch(/^HARROWMERE {6}[·A-D*]{84}$/m);
     expect(r.out).toMatch(/^CALLOWAY-RIDGE {2}[·A-D*]{84}$/m);
     expect(r.out).toContain('Legend: A VESPER-1, B VESPER-2, C VESPER-3, D VESPER-4');
@@ -59,8 +76,13 @@ describe('tauline fleet', () => {
     const r = await run(tempFile('overbooked.json', overbooked()));
     expect(r.status).toBe(1);
     expect(r.out).toMatch(/Feasible: NO\. \d of 4 satellites cannot be held: /);
-    expect(r.out.replace(/\s+/g, ' ')).toMatch(/\(station-overbooked\): no free support before .*: station CALLOWAY-RIDGE overbooked 2027-02-01T18:30:00Z–2027-02-01T19:20:00Z \(held by VESPER-/);
-    const json = JSON.parse((await run(tempFile('overbooked.json', overbooked()), '--json')).out) as Record<string, any>;
+    expect(r.out.replace(/\s+/g, ' ')).toMatch(
+      /\(station-overbooked\): no free support before .*: station CALLOWAY-RIDGE overbooked 2027-02-01T18:30:00Z–2027-02-01T19:20:00Z \(held by VESPER-/,
+    );
+    const json = JSON.parse((await run(tempFile('overbooked.json', overbooked()), '--json')).out) as Record<
+      string,
+      any
+    >;
     expect(json.feasible).toBe(false);
     expect(json.stationSchedule.length).toBeGreaterThanOrEqual(1);
   });
@@ -71,7 +93,9 @@ describe('tauline fleet', () => {
     const bad = await run(tempFile('bad.json', doc));
     expect(bad.status).toBe(2);
     expect(bad.out).toBe('');
-    expect(bad.err).toBe('tauline fleet: invalid input: satellites[2].passes[3].station must be one of the station ids HARROWMERE, CALLOWAY-RIDGE; received "NOWHERE"\n');
+    expect(bad.err).toBe(
+      'tauline fleet: invalid input: satellites[2].passes[3].station must be one of the station ids HARROWMERE, CALLOWAY-RIDGE; received "NOWHERE"\n',
+    );
     const missing = await run(join(tmpdir(), 'no-such-fleet.json'));
     expect(missing.status).toBe(2);
     expect(missing.err.trim().split('\n')).toHaveLength(1);
@@ -97,13 +121,33 @@ describe('tauline fleet', () => {
     for (const s of plan.satellites) {
       expect(s.computedPasses.length).toBeGreaterThan(5);
       for (const p of s.computedPasses) {
-        expect(Object.keys(p).sort()).toEqual(['clippedAtEnd', 'clippedAtStart', 'end', 'maxElevationAt', 'maxElevationRadians', 'start', 'station', 'usable']);
+        expect(Object.keys(p).sort()).toEqual([
+          'clippedAtEnd',
+          'clippedAtStart',
+          'end',
+          'maxElevationAt',
+          'maxElevationRadians',
+          'start',
+          'station',
+          'usable',
+        ]);
         expect(p.maxElevationRadians).toBeGreaterThan(0);
       }
     }
     for (const x of plan.stationSchedule) {
-      const passes = plan.satellites.find((s: { id: string }) => s.id === x.satellite).computedPasses as { station: string; start: string; end: string }[];
-      expect(passes.some((p) => p.station === x.station && Date.parse(p.start) <= Date.parse(x.start) && Date.parse(x.end) <= Date.parse(p.end))).toBe(true);
+      const passes = plan.satellites.find((s: { id: string }) => s.id === x.satellite).computedPasses as {
+        station: string;
+        start: string;
+        end: string;
+      }[];
+      expect(
+        passes.some(
+          (p) =>
+            p.station === x.station &&
+            Date.parse(p.start) <= Date.parse(x.start) &&
+            Date.parse(x.end) <= Date.parse(p.end),
+        ),
+      ).toBe(true);
     }
   });
 
@@ -112,7 +156,8 @@ describe('tauline fleet', () => {
     expect(r.status).toBe(0);
     expect(Math.max(...r.out.split('\n').map((l) => [...l].length))).toBeLessThanOrEqual(100);
     expect(r.out).toMatch(/satellite\s+passes\s+ALDERFELL\s+BRACKENSHAW\s+CINDERVALE\s+highest elevation \(deg\)/);
-    for (const id of ['ASHGROVE-1', 'ASHGROVE-2', 'ASHGROVE-3', 'ASHGROVE-4']) expect(r.out).toMatch(new RegExp(`^${id}\\s+computed(\\s+\\d+){3}\\s+\\d+\\.\\d$`, 'm'));
+    for (const id of ['ASHGROVE-1', 'ASHGROVE-2', 'ASHGROVE-3', 'ASHGROVE-4'])
+      expect(r.out).toMatch(new RegExp(`^${id}\\s+computed(\\s+\\d+){3}\\s+\\d+\\.\\d$`, 'm'));
     expect(r.out).toMatch(/Computed passes: from mean elements \(secular J2\)/);
     // The given-pass example says so in the same table.
     expect((await run(VESPER)).out).toMatch(/^VESPER-1\s+given\s+7\s+7\s+-$/m);
@@ -123,12 +168,16 @@ describe('tauline fleet', () => {
     doc.satellites[0].orbit.semiMajorAxisMetres = 28_410;
     const km = await run(tempFile('km.json', doc));
     expect(km.status).toBe(2);
-    expect(km.err).toMatch(/^tauline fleet: invalid input: satellites\[0\]\.orbit\.semiMajorAxisMetres .*did you mean 28410 km = 28410000 m\?\n$/);
+    expect(km.err).toMatch(
+      /^tauline fleet: invalid input: satellites\[0\]\.orbit\.semiMajorAxisMetres .*did you mean 28410 km = 28410000 m\?\n$/,
+    );
     const noSite = JSON.parse(readFileSync(ASHGROVE, 'utf8')) as Record<string, any>;
     delete noSite.stations[1].position;
     delete noSite.stations[1].elevationMaskRadians;
     const r = await run(tempFile('nosite.json', noSite));
     expect(r.status).toBe(2);
-    expect(r.err).toMatch(/^tauline fleet: invalid input: stations\[1\]\.position .*satellites\[0\] \(ASHGROVE-1\) gives an orbit.*\n$/);
+    expect(r.err).toMatch(
+      /^tauline fleet: invalid input: stations\[1\]\.position .*satellites\[0\] \(ASHGROVE-1\) gives an orbit.*\n$/,
+    );
   });
 });

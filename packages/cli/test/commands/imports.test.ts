@@ -39,10 +39,19 @@ const commandFiles = readdirSync(COMMANDS_DIR, { recursive: true, encoding: 'utf
 describe('command module boundaries', () => {
   it('moduleSpecifiers(source) finds static, re-export, type-only and dynamic imports', () => {
     const source = [
-      "import { a } from './plan.js';", "import type { B } from \"../flags.js\";",
-      "export { c } from './rate.js';", "const d = await import('./stability.js');", "import './side-effect.js';",
+      "import { a } from './plan.js';",
+      'import type { B } from "../flags.js";',
+      "export { c } from './rate.js';",
+      "const d = await import('./stability.js');",
+      "import './side-effect.js';",
     ].join('\n');
-    expect(moduleSpecifiers(source)).toEqual(['./plan.js', '../flags.js', './rate.js', './stability.js', './side-effect.js']);
+    expect(moduleSpecifiers(source)).toEqual([
+      './plan.js',
+      '../flags.js',
+      './rate.js',
+      './stability.js',
+      './side-effect.js',
+    ]);
   });
 
   it('the commands/ folder holds the registry and at least the eleven documented commands', () => {
@@ -55,7 +64,9 @@ describe('command module boundaries', () => {
   });
 
   it('commands/index.ts (the registry) imports every command file and nothing else from commands/', () => {
-    const imported = importedCommandFiles(REGISTRY).map((f) => f.replace(/\.js$/, '.ts')).sort();
+    const imported = importedCommandFiles(REGISTRY)
+      .map((f) => f.replace(/\.js$/, '.ts'))
+      .sort();
     expect(imported).toEqual(commandFiles);
   });
 });

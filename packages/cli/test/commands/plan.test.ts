@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { runCli, type CliRun } from '../run.js';
+import { type CliRun, runCli } from '../run.js';
 
 const ORIN = fileURLToPath(new URL('../../../sdk/examples/steering/orin-3-meo.json', import.meta.url));
 const HALCYR = fileURLToPath(new URL('../../../sdk/examples/steering/halcyr-g1-geo.json', import.meta.url));
@@ -32,7 +32,9 @@ describe('tauline plan', () => {
     expect(plan.feasible).toBe(true);
     expect(Object.keys(plan.predicted).sort()).toEqual(['steered', 't', 'unsteered']);
     for (const c of plan.commands) {
-      expect(Object.keys(c)).toEqual(expect.arrayContaining(['uplinkAt', 'executeAt', 'kind', 'actuatorSteps', 'reason']));
+      expect(Object.keys(c)).toEqual(
+        expect.arrayContaining(['uplinkAt', 'executeAt', 'kind', 'actuatorSteps', 'reason']),
+      );
     }
   });
 
@@ -50,7 +52,9 @@ describe('tauline plan', () => {
     s.tolerance.phaseSeconds = 1e-8;
     const r = await run(tempFile('tight.json', JSON.stringify(s)));
     expect(r.status).toBe(1);
-    expect(r.out.replace(/\s+/g, ' ')).toMatch(/Feasible: NO \(smallest per-epoch probability in tolerance [\d.]+ < 0\.99\)\. σ alone exceeds the tolerance after/);
+    expect(r.out.replace(/\s+/g, ' ')).toMatch(
+      /Feasible: NO \(smallest per-epoch probability in tolerance [\d.]+ < 0\.99\)\. σ alone exceeds the tolerance after/,
+    );
   });
 
   it('tauline plan --strategy deadband overrides the scenario strategy; an unknown strategy is a usage error', async () => {
@@ -123,18 +127,25 @@ describe('tauline plan', () => {
     const text = readFileSync(LEAP_LIST, 'utf8').replace('3692217600\t37', '3692217600\t38');
     const r = await run(ORIN, '--leap-seconds', tempFile('jump.list', text));
     expect(r.status).toBe(2);
-    expect(r.err).toMatch(/invalid input: --leap-seconds must be an IERS\/NIST leap-seconds\.list with a valid table; received ".*jump\.list"\. entries\[27\]\.taiMinusUtc/);
+    expect(r.err).toMatch(
+      /invalid input: --leap-seconds must be an IERS\/NIST leap-seconds\.list with a valid table; received ".*jump\.list"\. entries\[27\]\.taiMinusUtc/,
+    );
   });
 
-  it.runIf(BUILT)('the built binary `tauline plan <orin-3-meo> --json` prints the same plan as the in-process call', async () => {
-    const out = execFileSync(process.execPath, [BIN, 'plan', ORIN, '--json'], { encoding: 'utf8' });
-    expect(JSON.parse(out)).toEqual(JSON.parse((await run(ORIN, '--json')).out));
-  });
+  it.runIf(BUILT)(
+    'the built binary `tauline plan <orin-3-meo> --json` prints the same plan as the in-process call',
+    async () => {
+      const out = execFileSync(process.execPath, [BIN, 'plan', ORIN, '--json'], { encoding: 'utf8' });
+      expect(JSON.parse(out)).toEqual(JSON.parse((await run(ORIN, '--json')).out));
+    },
+  );
 
   it.runIf(BUILT)('the built binary `tauline plan` exits 1 on an infeasible plan', () => {
     const s = JSON.parse(readFileSync(HALCYR, 'utf8')) as Record<string, any>;
     s.tolerance.phaseSeconds = 1e-8;
-    const r = spawnSync(process.execPath, [BIN, 'plan', tempFile('tight.json', JSON.stringify(s))], { encoding: 'utf8' });
+    const r = spawnSync(process.execPath, [BIN, 'plan', tempFile('tight.json', JSON.stringify(s))], {
+      encoding: 'utf8',
+    });
     expect(r.status).toBe(1);
   });
 });

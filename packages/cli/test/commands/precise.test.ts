@@ -17,12 +17,26 @@ describe('tauline precise', () => {
     const r = await run(['precise', PV, '--json']);
     expect(r.status).toBe(0);
     const j = JSON.parse(r.out);
-    expect(j).toMatchObject({ timeSystem: 'GPS', coordinateFrame: 'IGS20', agency: 'TLN', sp3Version: 'c', epochInterval: 900, lagrangePoints: 9 });
+    expect(j).toMatchObject({
+      timeSystem: 'GPS',
+      coordinateFrame: 'IGS20',
+      agency: 'TLN',
+      sp3Version: 'c',
+      epochInterval: 900,
+      lagrangePoints: 9,
+    });
     expect(j.satellites.map((s: { id: string }) => s.id)).toEqual(['G05', 'E11', 'C08']);
     const g05 = j.satellites[0];
-    expect(g05.samples.map((s: { t: string }) => s.t)).toEqual(['2024-01-07T00:00:00', '2024-01-07T00:15:00', '2024-01-07T00:30:00', '2024-01-07T00:45:00']);
+    expect(g05.samples.map((s: { t: string }) => s.t)).toEqual([
+      '2024-01-07T00:00:00',
+      '2024-01-07T00:15:00',
+      '2024-01-07T00:30:00',
+      '2024-01-07T00:45:00',
+    ]);
     expect(g05.samples.every((s: { velocitySource: string }) => s.velocitySource === 'file')).toBe(true);
-    expect(j.satellites[1].gaps).toEqual([{ t: '2024-01-07T00:30:00', reason: 'position missing (bad/absent marker 0.000000)' }]);
+    expect(j.satellites[1].gaps).toEqual([
+      { t: '2024-01-07T00:30:00', reason: 'position missing (bad/absent marker 0.000000)' },
+    ]);
     expect(j.satellites[1].samples).toHaveLength(3);
   });
 
@@ -48,7 +62,9 @@ describe('tauline precise', () => {
     expect(j.satellites[0].samples[0].velocitySource).toBe('lagrange');
     const five = JSON.parse((await run(['precise', P, '--satellite', 'G30', '--lagrange-points', '5', '--json'])).out);
     expect(five.lagrangePoints).toBe(5);
-    const d = Math.abs(five.satellites[0].samples[6].relativisticSeconds - j.satellites[0].samples[6].relativisticSeconds);
+    const d = Math.abs(
+      five.satellites[0].samples[6].relativisticSeconds - j.satellites[0].samples[6].relativisticSeconds,
+    );
     expect(d).toBeGreaterThan(0);
     expect(d).toBeLessThan(3e-11);
   });
@@ -60,7 +76,9 @@ describe('tauline precise', () => {
     const csv = (await run(['precise', PV, '--csv', '--nav', NAV3])).out.trim().split('\n');
     expect(csv[0]).toBe('id,t,relativisticSeconds,velocitySource,broadcastRelativisticSeconds,differenceSeconds');
     expect(csv).toHaveLength(1 + 12);
-    expect(csv.find((l) => l.startsWith('E11,2024-01-07T00:30:00'))).toBe('E11,2024-01-07T00:30:00,,gap: position missing (bad/absent marker 0.000000),,');
+    expect(csv.find((l) => l.startsWith('E11,2024-01-07T00:30:00'))).toBe(
+      'E11,2024-01-07T00:30:00,,gap: position missing (bad/absent marker 0.000000),,',
+    );
   });
 
   it('tauline precise --csv writes the same bytes as before rows were collected per epoch (golden files, test/fixtures/precise-csv/SOURCE.md), with one write per epoch at most', async () => {
@@ -72,7 +90,13 @@ describe('tauline precise', () => {
     ];
     for (const [name, args, epochs] of cases) {
       const writes: string[] = [];
-      const status = await main(['precise', ...args], { out: (t) => { writes.push(t); }, err: () => {}, isTty: false });
+      const status = await main(['precise', ...args], {
+        out: (t) => {
+          writes.push(t);
+        },
+        err: () => {},
+        isTty: false,
+      });
       expect(status).toBe(0);
       expect(writes.join('')).toBe(golden(name));
       // The header, then at most one write per epoch and one for the end of the file.
@@ -83,7 +107,9 @@ describe('tauline precise', () => {
 
   it('tauline precise rejects bad arguments and reports a truncated file with its line', async () => {
     expect((await run(['precise'])).err).toMatch(/exactly one SP3 file/);
-    expect((await run(['precise', PV, '--lagrange-points', '1'])).err).toMatch(/--lagrange-points must be an integer in \[2, 16\]/);
+    expect((await run(['precise', PV, '--lagrange-points', '1'])).err).toMatch(
+      /--lagrange-points must be an integer in \[2, 16\]/,
+    );
     expect((await run(['precise', PV, '--satellite', 'X1'])).err).toMatch(/--satellite/);
     const t = await run(['precise', join(ROOT, 'test/fixtures/sp3/truncated.sp3')]);
     expect(t.status).toBe(2);
@@ -100,7 +126,10 @@ describe('tauline precise', () => {
     expect(r.status).toBe(0);
     const j = JSON.parse(r.out);
     expect(j).toMatchObject({ sp3Version: 'a', timeSystem: 'GPS', timeSystemAssumed: true });
-    expect(j.satellites[1]).toMatchObject({ id: 'G21', gaps: [{ t: '2003-08-17T00:30:00', reason: 'no record at this epoch' }] });
+    expect(j.satellites[1]).toMatchObject({
+      id: 'G21',
+      gaps: [{ t: '2003-08-17T00:30:00', reason: 'no record at this epoch' }],
+    });
     const c = JSON.parse((await run(['precise', join(ROOT, 'test/fixtures/sp3/orbit-a-as-c.sp3'), '--json'])).out);
     expect(j.satellites).toEqual(c.satellites);
     expect(c.timeSystemAssumed).toBe(false);
@@ -128,7 +157,11 @@ describe('tauline precise', () => {
 
   it('node packages/cli/bin/tauline.js precise ... --json runs the built binary (after npm run build)', () => {
     if (!existsSync(join(ROOT, 'packages/cli/dist/main.js'))) throw new Error('run `npm run build` first');
-    const p = spawnSync(process.execPath, [join(ROOT, 'packages/cli/bin/tauline.js'), 'precise', PV, '--satellite', 'G05', '--json'], { encoding: 'utf8' });
+    const p = spawnSync(
+      process.execPath,
+      [join(ROOT, 'packages/cli/bin/tauline.js'), 'precise', PV, '--satellite', 'G05', '--json'],
+      { encoding: 'utf8' },
+    );
     expect(p.status).toBe(0);
     expect(JSON.parse(p.stdout).satellites[0].samples).toHaveLength(4);
   });

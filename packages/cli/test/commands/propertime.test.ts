@@ -1,10 +1,10 @@
 import { execFileSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { describe, expect, it } from 'vitest';
-import { runCli, type CliRun } from '../run.js';
-import { L_G, IERS_2010, SPEED_OF_LIGHT_SQUARED } from '@tauline/sdk/constants';
+import { IERS_2010, L_G, SPEED_OF_LIGHT_SQUARED } from '@tauline/sdk/constants';
 import { moonPositionLowPrecision } from '@tauline/sdk/orbit';
+import { describe, expect, it } from 'vitest';
+import { type CliRun, runCli } from '../run.js';
 
 const run = (...argv: string[]): Promise<CliRun> => runCli(['propertime', ...argv]);
 
@@ -14,7 +14,17 @@ const GPS_STATE = `26561750,0,0,0,${V * Math.cos((55 * Math.PI) / 180)},${V * Ma
 
 describe('tauline propertime', () => {
   it('--json prints samples [{ t, tauMinusTT }] with τ − TT = 0 at t = 0 and the point-mass rate L_G − 3GM/(2ac²) (IERS 2010 eq. 10.9 [V1])', async () => {
-    const r = await run('--state', GPS_STATE, '--duration', '7200', '--step', '1800', '--model', 'point-mass', '--json');
+    const r = await run(
+      '--state',
+      GPS_STATE,
+      '--duration',
+      '7200',
+      '--step',
+      '1800',
+      '--model',
+      'point-mass',
+      '--json',
+    );
     expect(r.status).toBe(0);
     expect(r.err).toBe('');
     const doc = JSON.parse(r.out);
@@ -30,7 +40,18 @@ describe('tauline propertime', () => {
   });
 
   it('prints a table by default and names the ephemeris for --model full', async () => {
-    const r = await run('--state', GPS_STATE, '--duration', '3600', '--step', '1200', '--model', 'full', '--epoch-tt-j2000', '8e8');
+    const r = await run(
+      '--state',
+      GPS_STATE,
+      '--duration',
+      '3600',
+      '--step',
+      '1200',
+      '--model',
+      'full',
+      '--epoch-tt-j2000',
+      '8e8',
+    );
     expect(r.status).toBe(0);
     expect(r.out).toMatch(/model full/);
     expect(r.out.replace(/\s+/g, ' ')).toMatch(/Montenbruck & Gill/); // the title may wrap at 100 columns
@@ -39,7 +60,14 @@ describe('tauline propertime', () => {
   });
 
   it('accepts a state starting with a minus sign as --state=-…', async () => {
-    const r = await run(`--state=-${GPS_STATE}`.replace('=-26561750,0,0,0,', '=-26561750,0,0,0,-'), '--duration', '600', '--step', '600', '--json');
+    const r = await run(
+      `--state=-${GPS_STATE}`.replace('=-26561750,0,0,0,', '=-26561750,0,0,0,-'),
+      '--duration',
+      '600',
+      '--step',
+      '600',
+      '--json',
+    );
     expect(r.status).toBe(0);
     expect(JSON.parse(r.out).samples).toHaveLength(2);
   });
@@ -49,12 +77,24 @@ describe('tauline propertime', () => {
     expect(km.status).toBe(2);
     expect(km.err).toMatch(/did you mean 26561\.75 km/);
     expect(km.err.trim().split('\n')).toHaveLength(1);
-    expect((await run('--state', '26561750,0,0', '--duration', '600', '--step', '60')).err).toMatch(/only three values: the velocity is missing/);
-    expect((await run('--state', '26561750,0,0,0,abc,0' /* vy */, '--duration', '600', '--step', '60')).err).toMatch(/--state vy/);
-    expect((await run('--state', GPS_STATE, '--duration', '600', '--step', '900')).err).toMatch(/--step must be at most the duration/);
-    expect((await run('--state', GPS_STATE, '--duration', '0', '--step', '1')).err).toMatch(/--duration must be in \(0, 10000000000\] s; received 0/);
-    expect((await run('--state', GPS_STATE, '--duration', '600', '--step', '60', '--model', 'egm')).err).toMatch(/--model must be one of point-mass, j2, full/);
-    expect((await run('--state', GPS_STATE, '--duration', '600', '--step', '60', '--tolerance', '1')).err).toMatch(/--tolerance/);
+    expect((await run('--state', '26561750,0,0', '--duration', '600', '--step', '60')).err).toMatch(
+      /only three values: the velocity is missing/,
+    );
+    expect((await run('--state', '26561750,0,0,0,abc,0' /* vy */, '--duration', '600', '--step', '60')).err).toMatch(
+      /--state vy/,
+    );
+    expect((await run('--state', GPS_STATE, '--duration', '600', '--step', '900')).err).toMatch(
+      /--step must be at most the duration/,
+    );
+    expect((await run('--state', GPS_STATE, '--duration', '0', '--step', '1')).err).toMatch(
+      /--duration must be in \(0, 10000000000\] s; received 0/,
+    );
+    expect((await run('--state', GPS_STATE, '--duration', '600', '--step', '60', '--model', 'egm')).err).toMatch(
+      /--model must be one of point-mass, j2, full/,
+    );
+    expect((await run('--state', GPS_STATE, '--duration', '600', '--step', '60', '--tolerance', '1')).err).toMatch(
+      /--tolerance/,
+    );
     expect((await run('--duration', '600', '--step', '60')).err).toMatch(/--state is required/);
     const nan = await run('--state', '26561750,0,0,0,NaN,0', '--duration', '600', '--step', '60');
     expect(nan.status).toBe(2);
@@ -64,7 +104,11 @@ describe('tauline propertime', () => {
     const bin = fileURLToPath(new URL('../../bin/tauline.js', import.meta.url));
     const dist = fileURLToPath(new URL('../../dist/commands/propertime.js', import.meta.url));
     if (!existsSync(dist)) return; // not built in this checkout; the in-process tests above cover the command
-    const out = execFileSync(process.execPath, [bin, 'propertime', '--state', GPS_STATE, '--duration', '1200', '--step', '600', '--json'], { encoding: 'utf8' });
+    const out = execFileSync(
+      process.execPath,
+      [bin, 'propertime', '--state', GPS_STATE, '--duration', '1200', '--step', '600', '--json'],
+      { encoding: 'utf8' },
+    );
     const doc = JSON.parse(out);
     expect(doc.samples.map((s: { t: number }) => s.t)).toEqual([0, 600, 1200]);
   });
@@ -83,8 +127,20 @@ describe('tauline propertime', () => {
     };
 
     it('tauline propertime --model full integrates a Moon-bound polar orbiter at 1900 m/s relative to the Moon at tolerance 1e-14', async () => {
-      const r = await run(`--state=${lunarState(1900)}`, '--duration', '86400', '--step', '43200', '--model', 'full',
-        '--epoch-tt-j2000', String(epoch), '--tolerance', '1e-14', '--json');
+      const r = await run(
+        `--state=${lunarState(1900)}`,
+        '--duration',
+        '86400',
+        '--step',
+        '43200',
+        '--model',
+        'full',
+        '--epoch-tt-j2000',
+        String(epoch),
+        '--tolerance',
+        '1e-14',
+        '--json',
+      );
       expect(r.err).toBe('');
       expect(r.status).toBe(0);
       const doc = JSON.parse(r.out);
@@ -100,15 +156,35 @@ describe('tauline propertime', () => {
       expect(r.err).toMatch(/escape speed √\(2GM\/r\).*for a lunar orbiter use --model full/);
     });
 
-    it('tauline propertime --model full refuses a state inside the Moon\'s Hill sphere above the lunar escape speed 2310.1 m/s (exit 2)', async () => {
-      const r = await run(`--state=${lunarState(2400)}`, '--duration', '86400', '--step', '43200', '--model', 'full', '--epoch-tt-j2000', String(epoch));
+    it("tauline propertime --model full refuses a state inside the Moon's Hill sphere above the lunar escape speed 2310.1 m/s (exit 2)", async () => {
+      const r = await run(
+        `--state=${lunarState(2400)}`,
+        '--duration',
+        '86400',
+        '--step',
+        '43200',
+        '--model',
+        'full',
+        '--epoch-tt-j2000',
+        String(epoch),
+      );
       expect(r.status).toBe(2);
       expect(r.err).toMatch(/lunar escape speed √\(2GM_M\/ρ\) = 2310\.1 m\/s/);
       expect(r.err.trim().split('\n')).toHaveLength(1);
     });
 
     it('tauline propertime --model full stops with exit 2 when the lunar orbit hits the Moon', async () => {
-      const r = await run(`--state=${lunarState(500)}`, '--duration', '86400', '--step', '43200', '--model', 'full', '--epoch-tt-j2000', String(epoch));
+      const r = await run(
+        `--state=${lunarState(500)}`,
+        '--duration',
+        '86400',
+        '--step',
+        '43200',
+        '--model',
+        'full',
+        '--epoch-tt-j2000',
+        String(epoch),
+      );
       expect(r.status).toBe(2);
       expect(r.err).toMatch(/hits the Moon/);
     });

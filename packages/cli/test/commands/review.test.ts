@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { runCli, type CliRun } from '../run.js';
+import { type CliRun, runCli } from '../run.js';
 
 const examples = fileURLToPath(new URL('../../../sdk/examples/review/', import.meta.url));
 const good = join(examples, 'kestrel-block-a.review.json');
@@ -51,13 +51,19 @@ describe('tauline review', () => {
     writeFileSync(file, '{\n  "spacecraft": [\n    { "id": "X", }\n  ]\n}\n');
     const r = await run(file);
     expect(r.status).toBe(2);
-    expect(r.err).toMatch(new RegExp(`broken\\.json:3:\\d+: expected valid JSON`));
+    expect(r.err).toMatch(/broken\.json:3:\d+: expected valid JSON/);
   });
 
   it('exits 2 naming the field for invalid content, and for usage errors', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'tauline-review-'));
     const file = join(dir, 'km.json');
-    writeFileSync(file, JSON.stringify({ nominalFrequencyHz: 10.23e6, spacecraft: [{ id: 'X', configured: { fractionalOffset: -4.4e-10 }, orbit: { semiMajorAxis: 26561.75 } }] }));
+    writeFileSync(
+      file,
+      JSON.stringify({
+        nominalFrequencyHz: 10.23e6,
+        spacecraft: [{ id: 'X', configured: { fractionalOffset: -4.4e-10 }, orbit: { semiMajorAxis: 26561.75 } }],
+      }),
+    );
     const r = await run(file);
     expect(r.status).toBe(2);
     expect(r.err.trim().split('\n')).toHaveLength(1);

@@ -1,9 +1,9 @@
-import { describe, expect, it } from 'vitest';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { runCli, type CliRun } from '../run.js';
+import { describe, expect, it } from 'vitest';
+import { type CliRun, runCli } from '../run.js';
 
 const ORIN = fileURLToPath(new URL('../../../sdk/examples/steering/orin-3-meo.json', import.meta.url));
 const HALCYR = fileURLToPath(new URL('../../../sdk/examples/steering/halcyr-g1-geo.json', import.meta.url));
@@ -12,7 +12,11 @@ const run = (isTty: boolean, ...argv: string[]): Promise<CliRun> => runCli(['sim
 
 /** ORIN-3 cut to two days, so the closed loop runs quickly. */
 function shortOrin(): string {
-  const s = JSON.parse(readFileSync(ORIN, 'utf8')) as { horizonSeconds: number; contacts: { start: string }[]; maneuvers?: unknown };
+  const s = JSON.parse(readFileSync(ORIN, 'utf8')) as {
+    horizonSeconds: number;
+    contacts: { start: string }[];
+    maneuvers?: unknown;
+  };
   s.horizonSeconds = 2 * 86_400;
   s.contacts = s.contacts.filter((c) => c.start < '2027-02-10');
   delete s.maneuvers;
@@ -35,13 +39,19 @@ describe('tauline simulate --closed-loop', () => {
     expect(r.closedLoop).toBe(true);
     expect(r.runs).toBe(3);
     expect(r.seed).toBe(5);
-    expect(r.strategies.map((x) => x['method'])).toEqual(['optimal', 'deadband', 'none']);
+    expect(r.strategies.map((x) => x.method)).toEqual(['optimal', 'deadband', 'none']);
     for (const x of r.strategies) {
-      expect(Object.keys(x)).toEqual(['method', 'timeInTolerance', 'maxAbsOffsetSeconds', 'commandsPerDay', 'totalFrequencySteering']);
-      expect(Object.keys(x['timeInTolerance']!)).toEqual(['mean', 'p05', 'min']);
-      expect(Object.keys(x['maxAbsOffsetSeconds']!)).toEqual(['p50', 'p95', 'max']);
-      expect(Object.keys(x['commandsPerDay']!)).toEqual(['mean']);
-      expect(Object.keys(x['totalFrequencySteering']!)).toEqual(['mean']);
+      expect(Object.keys(x)).toEqual([
+        'method',
+        'timeInTolerance',
+        'maxAbsOffsetSeconds',
+        'commandsPerDay',
+        'totalFrequencySteering',
+      ]);
+      expect(Object.keys(x.timeInTolerance!)).toEqual(['mean', 'p05', 'min']);
+      expect(Object.keys(x.maxAbsOffsetSeconds!)).toEqual(['p50', 'p95', 'max']);
+      expect(Object.keys(x.commandsPerDay!)).toEqual(['mean']);
+      expect(Object.keys(x.totalFrequencySteering!)).toEqual(['mean']);
     }
     const c = await run(false, path, '--closed-loop', '--runs', '3', '--seed', '6', '--json');
     expect(c.out).not.toBe(a.out);

@@ -1,9 +1,9 @@
-import { describe, expect, it } from 'vitest';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { runCli, type CliRun } from '../run.js';
+import { describe, expect, it } from 'vitest';
+import { type CliRun, runCli } from '../run.js';
 
 const ORIN = fileURLToPath(new URL('../../../sdk/examples/steering/orin-3-meo.json', import.meta.url));
 /** Test leap-second table in the leap-seconds.list format, invented expiry 2036-06-28 (test/fixtures/time/SOURCE.md). */
@@ -25,7 +25,9 @@ describe('tauline simulate', () => {
     expect(a.status).toBe(0);
     expect(a.err).toBe('');
     expect(a.out).toBe(b.out);
-    const r = JSON.parse(a.out) as { results: { strategy: string; timeInTolerance: number; commandCount: number; worstExcursionSeconds: number }[] };
+    const r = JSON.parse(a.out) as {
+      results: { strategy: string; timeInTolerance: number; commandCount: number; worstExcursionSeconds: number }[];
+    };
     expect(r.results.map((x) => x.strategy)).toEqual(['none', 'deadband', 'optimal']);
     const none = r.results[0]!;
     const optimal = r.results[2]!;
@@ -39,7 +41,9 @@ describe('tauline simulate', () => {
     expect(r.err).toBe('');
     expect(r.out).toMatch(/^ +time in/m); // the header wraps to fit 100 columns
     expect(r.out).toMatch(/ ns /);
-    expect((await run(false, ORIN, '--runs', '400', '--strategy', 'optimal', '--wide')).out).toMatch(/time in tolerance/);
+    expect((await run(false, ORIN, '--runs', '400', '--strategy', 'optimal', '--wide')).out).toMatch(
+      /time in tolerance/,
+    );
   });
 
   it('tauline simulate shows a progress bar on a terminal when the run is long', async () => {
@@ -54,12 +58,24 @@ describe('tauline simulate', () => {
     const without = await run(false, path, '--runs', '5', '--strategy', 'optimal');
     expect(without.status).toBe(2);
     expect(without.err).toMatch(/out-of-domain: epoch = .*--leap-seconds <file>/);
-    const withList = await run(false, path, '--runs', '5', '--strategy', 'optimal', '--leap-seconds', LEAP_LIST, '--json');
+    const withList = await run(
+      false,
+      path,
+      '--runs',
+      '5',
+      '--strategy',
+      'optimal',
+      '--leap-seconds',
+      LEAP_LIST,
+      '--json',
+    );
     expect(withList.err).toBe('');
     expect(withList.status).toBe(0);
     const same = await run(false, ORIN, '--runs', '5', '--strategy', 'optimal', '--json');
     // Same elapsed times four years later (no leap second in either week): the same simulated numbers.
-    expect((JSON.parse(withList.out) as { results: unknown[] }).results).toEqual((JSON.parse(same.out) as { results: unknown[] }).results);
+    expect((JSON.parse(withList.out) as { results: unknown[] }).results).toEqual(
+      (JSON.parse(same.out) as { results: unknown[] }).results,
+    );
   });
 
   it('tauline simulate --leap-seconds reports a malformed list with file and line', async () => {

@@ -34,7 +34,18 @@ describe('tauline stability', () => {
     expect(j.input).toMatchObject({ kind: 'phase', samples: 10, missing: 0, tau0: 1, gaps: [] });
   });
   it('tauline stability --frequency nbs14 --statistics adev,hdev,totdev --taus 1,2 gives ADEV 115.8082, HDEV 116.7980, TOTDEV 93.90379 at τ = 2 [V2]', async () => {
-    const r = await run(['stability', '--frequency', nbs14Frequency, '--tau0', '1', '--statistics', 'adev,hdev,totdev', '--taus', '1,2', '--json']);
+    const r = await run([
+      'stability',
+      '--frequency',
+      nbs14Frequency,
+      '--tau0',
+      '1',
+      '--statistics',
+      'adev,hdev,totdev',
+      '--taus',
+      '1,2',
+      '--json',
+    ]);
     expect(r.status).toBe(0);
     const row = JSON.parse(r.out).rows[1];
     expect(row.adev).toBeCloseTo(115.8082, 3);
@@ -55,7 +66,16 @@ describe('tauline stability', () => {
     expect(j.rows[0].oadevN).toBe(6);
   });
   it('tauline stability --rinex-clock <file> --clock G05: the missing epoch leaves no complete OADEV term, so every τ is dropped and the request is refused (exit 2, one line naming the gap and the dropped τ)', async () => {
-    const r = await run(['stability', '--rinex-clock', join(FIX, 'rinex-clock/fictional-304.clk'), '--clock', 'G05', '--statistics', 'oadev', '--json']);
+    const r = await run([
+      'stability',
+      '--rinex-clock',
+      join(FIX, 'rinex-clock/fictional-304.clk'),
+      '--clock',
+      'G05',
+      '--statistics',
+      'oadev',
+      '--json',
+    ]);
     expect(r.status).toBe(2);
     expect(r.out).toBe('');
     expect(r.err.trimEnd().split('\n')).toHaveLength(1);
@@ -87,7 +107,13 @@ describe('tauline stability', () => {
     const r = await run(['stability', '--phase', bad, '--tau0', '1']);
     expect(r.status).toBe(2);
     expect(r.err).toContain(`${bad}:3:1`);
-    const trunc = await run(['stability', '--rinex-clock', join(FIX, 'rinex-clock/truncated-304.clk'), '--clock', 'G05']);
+    const trunc = await run([
+      'stability',
+      '--rinex-clock',
+      join(FIX, 'rinex-clock/truncated-304.clk'),
+      '--clock',
+      'G05',
+    ]);
     expect(trunc.status).toBe(2);
     expect(trunc.err).toMatch(/truncated-304\.clk:\d+/);
     const missing = await run(['stability', '--phase', join(tmp, 'nope.txt'), '--tau0', '1']);
@@ -96,8 +122,13 @@ describe('tauline stability', () => {
   });
   it('the built binary `tauline stability --phase nbs14 --tau0 1 --json` prints the same rows (needs npm run build)', () => {
     const bin = join(ROOT, 'packages/cli/bin/tauline.js');
-    if (!existsSync(join(ROOT, 'packages/cli/dist/main.js'))) throw new Error('run `npm run build` first: packages/cli/dist/main.js is missing');
-    const r = spawnSync(process.execPath, [bin, 'stability', '--phase', join(FIX, 'stability/nbs14-phase.txt'), '--tau0', '1', '--json'], { encoding: 'utf8' });
+    if (!existsSync(join(ROOT, 'packages/cli/dist/main.js')))
+      throw new Error('run `npm run build` first: packages/cli/dist/main.js is missing');
+    const r = spawnSync(
+      process.execPath,
+      [bin, 'stability', '--phase', join(FIX, 'stability/nbs14-phase.txt'), '--tau0', '1', '--json'],
+      { encoding: 'utf8' },
+    );
     expect(r.status).toBe(0);
     expect(JSON.parse(r.stdout).rows[1].oadev).toBeCloseTo(85.95287, 3);
   });

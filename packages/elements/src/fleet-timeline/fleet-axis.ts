@@ -5,8 +5,9 @@
  *
  * @module
  */
-import { calendarDateFromMjd } from '@tauline/sdk/time';
+
 import type { Instant, TimeScales } from '@tauline/sdk/time';
+import { calendarDateFromMjd } from '@tauline/sdk/time';
 
 /** The epoch and time scales the chart times count from. */
 export interface TimeBase {
@@ -65,7 +66,10 @@ export function calendarTicks(base: TimeBase, t0: number, t1: number, count: num
     for (const hour of hours) {
       const at = timeScales.fromCalendar({ year: date.year, month: date.month, day: date.day, hour }, 'UTC');
       const t = at.secondsSince(epoch);
-      if (t > t1) { past = true; break; }
+      if (t > t1) {
+        past = true;
+        break;
+      }
       if (t < t0) continue;
       const ymd = `${date.year}-${pad(date.month)}-${pad(date.day)}`;
       if (stepHours >= 24) out.push({ value: t, label: `${pad(date.month)}-${pad(date.day)}`, sub: null });

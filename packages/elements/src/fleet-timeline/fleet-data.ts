@@ -8,8 +8,13 @@
  * @module
  */
 import {
-  validateFleet, type FleetCommand, type FleetDocument, type FleetPlan, type FleetSatellitePlan, type NormalizedFleet,
+  type FleetCommand,
+  type FleetDocument,
+  type FleetPlan,
+  type FleetSatellitePlan,
+  type NormalizedFleet,
   type StationSupport,
+  validateFleet,
 } from '@tauline/sdk/fleet';
 import type { Instant, TimeScales } from '@tauline/sdk/time';
 import { marginSeries } from './fleet-margin.js';
@@ -105,7 +110,7 @@ class GuardError extends Error {}
 function fail(field: string, expected: string, value: unknown): never {
   let shown: string;
   try {
-    shown = value === undefined ? 'undefined' : JSON.stringify(value) ?? String(value);
+    shown = value === undefined ? 'undefined' : (JSON.stringify(value) ?? String(value));
   } catch {
     shown = String(value);
   }
@@ -141,17 +146,19 @@ type Stamp = (field: string, text: unknown) => number;
 
 function readCommand(field: string, raw: unknown, index: number, stamp: Stamp): FleetCommandView {
   const c = obj(field, raw);
-  const kind = c['kind'];
+  const kind = c.kind;
   if (kind !== 'frequency' && kind !== 'phase') fail(`${field}.kind`, '"frequency" or "phase"', kind);
   const stepKey = kind === 'phase' ? 'phaseStepSeconds' : 'fractionalFrequencyStep';
   const step = c[stepKey];
   if (typeof step !== 'number' || !Number.isFinite(step)) fail(`${field}.${stepKey}`, 'a finite number', step);
   return {
-    index, kind, step,
-    uplinkAt: stamp(`${field}.uplinkAt`, c['uplinkAt']),
-    executeAt: stamp(`${field}.executeAt`, c['executeAt']),
-    station: str(`${field}.station`, c['station']),
-    reason: typeof c['reason'] === 'string' ? c['reason'] : '',
+    index,
+    kind,
+    step,
+    uplinkAt: stamp(`${field}.uplinkAt`, c.uplinkAt),
+    executeAt: stamp(`${field}.executeAt`, c.executeAt),
+    station: str(`${field}.station`, c.station),
+    reason: typeof c.reason === 'string' ? c.reason : '',
     source: raw as FleetCommand,
   };
 }
@@ -165,42 +172,52 @@ type PlanSatellite = Pick<SatelliteView, PlanKeys> & {
 
 function readSatellite(field: string, raw: unknown, index: number, stamp: Stamp): PlanSatellite {
   const s = obj(field, raw);
-  const id = str(`${field}.id`, s['id']);
-  if (typeof s['feasible'] !== 'boolean') fail(`${field}.feasible`, 'true or false', s['feasible']);
-  const predicted = obj(`${field}.predicted`, s['predicted']);
-  const tRaw = predicted['t'] instanceof Float64Array ? predicted['t'] : arr(`${field}.predicted.t`, predicted['t']);
+  const id = str(`${field}.id`, s.id);
+  if (typeof s.feasible !== 'boolean') fail(`${field}.feasible`, 'true or false', s.feasible);
+  const predicted = obj(`${field}.predicted`, s.predicted);
+  const tRaw = predicted.t instanceof Float64Array ? predicted.t : arr(`${field}.predicted.t`, predicted.t);
   const t = Float64Array.from(numbers(`${field}.predicted.t`, tRaw, tRaw.length));
   for (let i = 1; i < t.length; i++) {
     if (!(t[i]! > t[i - 1]!)) fail(`${field}.predicted.t[${i}]`, `greater than t[${i - 1}] (${t[i - 1]})`, t[i]);
   }
-  const steered = obj(`${field}.predicted.steered`, predicted['steered']);
-  const commands = arr(`${field}.commands`, s['commands'])
-    .map((c, k) => readCommand(`${field}.commands[${k}]`, c, k, stamp));
+  const steered = obj(`${field}.predicted.steered`, predicted.steered);
+  const commands = arr(`${field}.commands`, s.commands).map((c, k) =>
+    readCommand(`${field}.commands[${k}]`, c, k, stamp),
+  );
   commands.sort((a, b) => a.executeAt - b.executeAt || a.index - b.index);
   return {
-    index, id, feasible: s['feasible'], t, commands,
-    reason: typeof s['reason'] === 'string' ? s['reason'] : null,
-    reasonCode: typeof s['reasonCode'] === 'string' ? s['reasonCode'] : null,
-    steered: numbers(`${field}.predicted.steered.phaseSeconds`, steered['phaseSeconds'], t.length),
-    sigma: numbers(`${field}.predicted.steered.sigmaSeconds`, steered['sigmaSeconds'], t.length),
+    index,
+    id,
+    feasible: s.feasible,
+    t,
+    commands,
+    reason: typeof s.reason === 'string' ? s.reason : null,
+    reasonCode: typeof s.reasonCode === 'string' ? s.reasonCode : null,
+    steered: numbers(`${field}.predicted.steered.phaseSeconds`, steered.phaseSeconds, t.length),
+    sigma: numbers(`${field}.predicted.steered.sigmaSeconds`, steered.sigmaSeconds, t.length),
     source: raw as FleetSatellitePlan,
   };
 }
 
-function readStations(plan: Record<string, unknown>, fleet: NormalizedFleet, ids: Map<string, number>,
-  stamp: Stamp): StationView[] {
+function readStations(
+  plan: Record<string, unknown>,
+  fleet: NormalizedFleet,
+  ids: Map<string, number>,
+  stamp: Stamp,
+): StationView[] {
   const stations: StationView[] = fleet.stations.map((s) => ({ id: s.id, setup: s.setup, supports: [] }));
-  arr('plan.stationSchedule', plan['stationSchedule']).forEach((raw, k) => {
+  arr('plan.stationSchedule', plan.stationSchedule).forEach((raw, k) => {
     const field = `plan.stationSchedule[${k}]`;
     const o = obj(field, raw);
-    const stationId = str(`${field}.station`, o['station']);
+    const stationId = str(`${field}.station`, o.station);
     const station = stations.findIndex((s) => s.id === stationId);
     const known = stations.map((q) => q.id).join(', ');
     if (station < 0) fail(`${field}.station`, `a station of the fleet (${known})`, stationId);
-    const satellite = ids.get(str(`${field}.satellite`, o['satellite']));
-    if (satellite === undefined) fail(`${field}.satellite`, 'a satellite of the plan', o['satellite']);
-    const start = stamp(`${field}.start`, o['start']), end = stamp(`${field}.end`, o['end']);
-    if (!(end > start)) fail(`${field}.end`, `after its start (${String(o['start'])})`, o['end']);
+    const satellite = ids.get(str(`${field}.satellite`, o.satellite));
+    if (satellite === undefined) fail(`${field}.satellite`, 'a satellite of the plan', o.satellite);
+    const start = stamp(`${field}.start`, o.start),
+      end = stamp(`${field}.end`, o.end);
+    if (!(end > start)) fail(`${field}.end`, `after its start (${String(o.start)})`, o.end);
     stations[station]!.supports.push({ index: k, station, satellite, start, end, source: raw as StationSupport });
   });
   for (const s of stations) s.supports.sort((a, b) => a.start - b.start);
@@ -224,9 +241,8 @@ function readUnchecked(plan: unknown, fleetDoc: unknown, validated?: NormalizedF
       return fail(field, 'an ISO 8601 UTC stamp with a zone, e.g. 2027-02-01T06:00:00Z', text);
     }
   };
-  if (typeof p['feasible'] !== 'boolean') fail('plan.feasible', 'true or false', p['feasible']);
-  const raw = arr('plan.satellites', p['satellites'])
-    .map((s, i) => readSatellite(`plan.satellites[${i}]`, s, i, stamp));
+  if (typeof p.feasible !== 'boolean') fail('plan.feasible', 'true or false', p.feasible);
+  const raw = arr('plan.satellites', p.satellites).map((s, i) => readSatellite(`plan.satellites[${i}]`, s, i, stamp));
   const count = fleet.satellites.length;
   if (raw.length !== count) fail('plan.satellites.length', `${count} (the satellites of the fleet)`, raw.length);
   const ids = new Map<string, number>();
@@ -235,12 +251,24 @@ function readUnchecked(plan: unknown, fleetDoc: unknown, validated?: NormalizedF
     if (doc.id !== s.id) fail(`plan.satellites[${i}].id`, `"${doc.id}" (satellites[${i}] of the fleet)`, s.id);
     ids.set(s.id, i);
     const margin = marginSeries(steered, sigma, doc.norm.bound, doc.norm.probability, doc.norm.z);
-    let minMargin = Infinity, minMarginAt = Number.NaN;
-    for (const [k, m] of margin.entries()) if (m < minMargin) { minMargin = m; minMarginAt = s.t[k]!; }
+    let minMargin = Infinity,
+      minMarginAt = Number.NaN;
+    for (const [k, m] of margin.entries())
+      if (m < minMargin) {
+        minMargin = m;
+        minMarginAt = s.t[k]!;
+      }
     return {
-      ...s, tolerance: doc.norm.bound, probability: doc.norm.probability, z: doc.norm.z, margin, minMargin, minMarginAt,
+      ...s,
+      tolerance: doc.norm.bound,
+      probability: doc.norm.probability,
+      z: doc.norm.z,
+      margin,
+      minMargin,
+      minMarginAt,
       passes: doc.passes.map((q) => ({ station: q.station, start: q.start, end: q.end })),
-      stationsUsed: [], supportCount: 0,
+      stationsUsed: [],
+      supportCount: 0,
     };
   });
   const stations = readStations(p, fleet, ids, stamp);
@@ -254,9 +282,15 @@ function readUnchecked(plan: unknown, fleetDoc: unknown, validated?: NormalizedF
   const order = new Map(stations.map((s, k) => [s.id, k]));
   for (const sat of satellites) sat.stationsUsed.sort((a, b) => (order.get(a) ?? 0) - (order.get(b) ?? 0));
   return {
-    fleet, epoch, timeScales, horizon: fleet.horizon, feasible: p['feasible'], satellites, stations,
-    reason: typeof p['reason'] === 'string' ? p['reason'] : null,
-    caution: typeof p['caution'] === 'string' ? p['caution'] : null,
+    fleet,
+    epoch,
+    timeScales,
+    horizon: fleet.horizon,
+    feasible: p.feasible,
+    satellites,
+    stations,
+    reason: typeof p.reason === 'string' ? p.reason : null,
+    caution: typeof p.caution === 'string' ? p.caution : null,
   };
 }
 
@@ -267,11 +301,13 @@ function readUnchecked(plan: unknown, fleetDoc: unknown, validated?: NormalizedF
  * caller kept it (the element does, while only the plan changes), saves validating it again.
  */
 export function readFleetPlan(
-  plan: FleetPlan | unknown, fleet: FleetDocument | unknown, validated?: NormalizedFleet,
+  plan: FleetPlan | unknown,
+  fleet: FleetDocument | unknown,
+  validated?: NormalizedFleet,
 ): FleetReadResult {
   if (fleet === undefined || fleet === null) {
-    const error = 'fleet is not set: give the fleet document the plan was made for '
-      + '(epoch, tolerances, stations, passes)';
+    const error =
+      'fleet is not set: give the fleet document the plan was made for ' + '(epoch, tolerances, stations, passes)';
     return { ok: false, error };
   }
   try {
@@ -284,7 +320,8 @@ export function readFleetPlan(
 
 /** Whether a satellite is at risk: not feasible, or its smallest margin below `riskFraction` × its tolerance. */
 export function isAtRisk(
-  s: Pick<SatelliteView, 'feasible' | 'minMargin' | 'tolerance'>, riskFraction: number,
+  s: Pick<SatelliteView, 'feasible' | 'minMargin' | 'tolerance'>,
+  riskFraction: number,
 ): boolean {
   return !s.feasible || s.minMargin < riskFraction * s.tolerance;
 }

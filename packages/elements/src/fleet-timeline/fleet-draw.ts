@@ -5,16 +5,26 @@
  *
  * @module
  */
-import { markerPath, type MarkerShape } from '../internal/canvas.js';
+import { type MarkerShape, markerPath } from '../internal/canvas.js';
 import type { Scale } from '../internal/scale.js';
 import type { CalendarTick } from './fleet-axis.js';
 import type { FleetCommandView, FleetView, SupportView } from './fleet-data.js';
 
 /** Resolved colours and font. */
 export interface FleetColors {
-  text: string; muted: string; grid: string; surface: string; accent: string;
-  margin: string; risk: string; support: string; setup: string; pass: string;
-  frequency: string; phase: string; font: string;
+  text: string;
+  muted: string;
+  grid: string;
+  surface: string;
+  accent: string;
+  margin: string;
+  risk: string;
+  support: string;
+  setup: string;
+  pass: string;
+  frequency: string;
+  phase: string;
+  font: string;
 }
 
 /** Pixel geometry of the timeline. */
@@ -47,8 +57,17 @@ export function fleetLayout(width: number, rows: number, lanes: number): FleetLa
   const stationsHeading = top + rows * ROW_HEIGHT + 4;
   const laneTop = stationsHeading + SECTION_GAP - 4;
   return {
-    width, height: laneTop + lanes * LANE_HEIGHT + 6, left, right: width - 10, top, rowHeight: ROW_HEIGHT,
-    stationsHeading, laneTop, laneHeight: LANE_HEIGHT, rows, lanes,
+    width,
+    height: laneTop + lanes * LANE_HEIGHT + 6,
+    left,
+    right: width - 10,
+    top,
+    rowHeight: ROW_HEIGHT,
+    stationsHeading,
+    laneTop,
+    laneHeight: LANE_HEIGHT,
+    rows,
+    lanes,
   };
 }
 
@@ -72,23 +91,31 @@ export function hatch(ctx: CanvasRenderingContext2D, color: string, spacing = 6)
   t.strokeStyle = color;
   t.lineWidth = 1.5;
   t.beginPath();
-  t.moveTo(-1, spacing + 1); t.lineTo(spacing + 1, -1);
-  t.moveTo(-1, 1); t.lineTo(1, -1);
-  t.moveTo(spacing - 1, spacing + 1); t.lineTo(spacing + 1, spacing - 1);
+  t.moveTo(-1, spacing + 1);
+  t.lineTo(spacing + 1, -1);
+  t.moveTo(-1, 1);
+  t.lineTo(1, -1);
+  t.moveTo(spacing - 1, spacing + 1);
+  t.lineTo(spacing + 1, spacing - 1);
   t.stroke();
   return ctx.createPattern(tile, 'repeat') ?? color;
 }
 
 /** Per-pixel-column smallest margin fraction (margin / tolerance) over [x0, x1) of the scale; NaN where no sample. */
 export function columnMinima(
-  t: Float64Array, margin: Float64Array, tolerance: number, sx: Scale, layout: FleetLayout,
+  t: Float64Array,
+  margin: Float64Array,
+  tolerance: number,
+  sx: Scale,
+  layout: FleetLayout,
 ): Float64Array {
   const cols = Math.max(0, Math.ceil(layout.right - layout.left));
   const out = new Float64Array(cols).fill(Number.NaN);
   const n = t.length;
   const [d0, d1] = sx.domain;
   for (let i = 0; i < n; i++) {
-    const ta = t[i]!, tb = i + 1 < n ? t[i + 1]! : ta;
+    const ta = t[i]!,
+      tb = i + 1 < n ? t[i + 1]! : ta;
     if (tb < d0 || ta > d1) continue;
     const a = Math.max(0, Math.floor(sx.map(ta) - layout.left));
     const b = Math.min(cols - 1, Math.max(a, Math.ceil(sx.map(tb) - layout.left) - 1));
@@ -118,7 +145,8 @@ function drawAxis(ctx: CanvasRenderingContext2D, { layout, sx, ticks, colors }: 
   ctx.beginPath();
   for (const tick of ticks) {
     const x = Math.round(sx.map(tick.value)) + 0.5;
-    ctx.moveTo(x, layout.top - 4); ctx.lineTo(x, bottom);
+    ctx.moveTo(x, layout.top - 4);
+    ctx.lineTo(x, bottom);
   }
   ctx.stroke();
   ctx.fillStyle = colors.muted;
@@ -153,7 +181,10 @@ function drawLabels(ctx: CanvasRenderingContext2D, { view, layout, colors, atRis
     ctx.fillStyle = atRisk[i] ? colors.risk : colors.text;
     ctx.textAlign = 'right';
     ctx.fillText(fit(s.id, layout.left - 8 - (atRisk[i] ? icon : 0)), layout.left - 6, y);
-    if (atRisk[i]) { ctx.textAlign = 'left'; ctx.fillText('⚠', 2, y); }
+    if (atRisk[i]) {
+      ctx.textAlign = 'left';
+      ctx.fillText('⚠', 2, y);
+    }
   });
   ctx.textAlign = 'left';
   ctx.fillStyle = colors.muted;
@@ -170,9 +201,12 @@ type Fill = CanvasPattern | string;
 function drawMarginStrip(ctx: CanvasRenderingContext2D, input: DrawInput, i: number, riskPattern: Fill): void {
   const { view, layout, sx, colors, riskFraction } = input;
   const s = view.satellites[i]!;
-  const y0 = layout.top + i * layout.rowHeight + 3, h = layout.rowHeight - 9;
+  const y0 = layout.top + i * layout.rowHeight + 3,
+    h = layout.rowHeight - 9;
   const cols = columnMinima(s.t, s.margin, s.tolerance, sx, layout);
-  const ok = new Path2D(), low = new Path2D(), out = new Path2D();
+  const ok = new Path2D(),
+    low = new Path2D(),
+    out = new Path2D();
   for (const [c, f] of cols.entries()) {
     if (Number.isNaN(f)) continue;
     const x = layout.left + c;
@@ -191,7 +225,8 @@ function drawMarginStrip(ctx: CanvasRenderingContext2D, input: DrawInput, i: num
   // The tolerance edge: margin zero is the strip's floor, a full strip is |offset| bound at zero.
   ctx.strokeStyle = colors.grid;
   ctx.beginPath();
-  ctx.moveTo(layout.left, y0 + h + 0.5); ctx.lineTo(layout.right, y0 + h + 0.5);
+  ctx.moveTo(layout.left, y0 + h + 0.5);
+  ctx.lineTo(layout.right, y0 + h + 0.5);
   ctx.stroke();
 }
 
@@ -211,7 +246,8 @@ function drawSatelliteRow(ctx: CanvasRenderingContext2D, input: DrawInput, i: nu
   ctx.globalAlpha = 0.55;
   for (const p of s.passes) {
     if (p.end < d0 || p.start > d1) continue;
-    const a = sx.map(p.start), b = sx.map(p.end);
+    const a = sx.map(p.start),
+      b = sx.map(p.end);
     ctx.fillRect(a, y + layout.rowHeight - 4, Math.max(1, b - a), 2);
   }
   ctx.globalAlpha = 1;
@@ -222,10 +258,13 @@ function drawSatelliteRow(ctx: CanvasRenderingContext2D, input: DrawInput, i: nu
   for (const c of s.commands) {
     if (c.executeAt < d0 || c.uplinkAt > d1) continue;
     const color = c.kind === 'phase' ? colors.phase : colors.frequency;
-    const xu = sx.map(c.uplinkAt), xe = sx.map(c.executeAt);
+    const xu = sx.map(c.uplinkAt),
+      xe = sx.map(c.executeAt);
     ctx.strokeStyle = color;
     ctx.beginPath();
-    ctx.moveTo(xu, y + 2); ctx.lineTo(xu, mid); ctx.lineTo(xe, mid);
+    ctx.moveTo(xu, y + 2);
+    ctx.lineTo(xu, mid);
+    ctx.lineTo(xe, mid);
     ctx.stroke();
     const p = markerPath(commandShape(c), xe, mid, 4.5);
     ctx.fillStyle = color;
@@ -237,7 +276,9 @@ function drawSatelliteRow(ctx: CanvasRenderingContext2D, input: DrawInput, i: nu
 
 /** Rectangle of a support in its lane, CSS px. */
 export function supportRect(
-  layout: FleetLayout, sx: Scale, s: Pick<SupportView, 'station' | 'start' | 'end'>,
+  layout: FleetLayout,
+  sx: Scale,
+  s: Pick<SupportView, 'station' | 'start' | 'end'>,
 ): { x: number; y: number; w: number; h: number } {
   const x = sx.map(s.start);
   const y = layout.laneTop + s.station * layout.laneHeight + 3;
@@ -253,7 +294,10 @@ function drawLanes(ctx: CanvasRenderingContext2D, input: DrawInput, riskPattern:
   for (const [k, st] of view.stations.entries()) {
     const y = layout.laneTop + k * layout.laneHeight;
     ctx.strokeStyle = colors.grid;
-    ctx.beginPath(); ctx.moveTo(layout.left, y + 0.5); ctx.lineTo(layout.right, y + 0.5); ctx.stroke();
+    ctx.beginPath();
+    ctx.moveTo(layout.left, y + 0.5);
+    ctx.lineTo(layout.right, y + 0.5);
+    ctx.stroke();
     for (const sup of st.supports) {
       if (sup.end + st.setup < d0 || sup.start > d1) continue;
       const r = supportRect(layout, sx, sup);
@@ -310,21 +354,29 @@ export function hitTest(view: FleetView, layout: FleetLayout, sx: Scale, x: numb
   const row = Math.floor((y - layout.top) / layout.rowHeight);
   if (y >= layout.top && row >= 0 && row < layout.rows) {
     const s = view.satellites[row]!;
-    let command = -1, best = 7;
+    let command = -1,
+      best = 7;
     for (const [k, c] of s.commands.entries()) {
       const d = Math.abs(sx.map(c.executeAt) - x);
-      if (d <= best) { best = d; command = k; }
+      if (d <= best) {
+        best = d;
+        command = k;
+      }
     }
     return { kind: 'satellite', satellite: row, command, t };
   }
   const lane = Math.floor((y - layout.laneTop) / layout.laneHeight);
   if (y < layout.laneTop || lane < 0 || lane >= layout.lanes) return null;
   const supports = view.stations[lane]!.supports;
-  let support = -1, best = 3;
+  let support = -1,
+    best = 3;
   for (const [k, s] of supports.entries()) {
     const r = supportRect(layout, sx, s);
     const d = x < r.x ? r.x - x : x > r.x + r.w ? x - r.x - r.w : 0;
-    if (d <= best) { best = d; support = k; }
+    if (d <= best) {
+      best = d;
+      support = k;
+    }
   }
   return support >= 0 ? { kind: 'support', station: lane, support, t } : { kind: 'lane', station: lane, t };
 }

@@ -15,8 +15,15 @@
 export function erfc(x: number): number {
   const z = Math.abs(x);
   const t = 1 / (1 + 0.5 * z);
-  const poly = 1.00002368 + t * (0.37409196 + t * (0.09678418 + t * (-0.18628806 + t * (0.27886807 +
-    t * (-1.13520398 + t * (1.48851587 + t * (-0.82215223 + t * 0.17087277)))))));
+  const poly =
+    1.00002368 +
+    t *
+      (0.37409196 +
+        t *
+          (0.09678418 +
+            t *
+              (-0.18628806 +
+                t * (0.27886807 + t * (-1.13520398 + t * (1.48851587 + t * (-0.82215223 + t * 0.17087277)))))));
   const ans = t * Math.exp(-z * z - 1.26551223 + t * poly);
   return x >= 0 ? ans : 2 - ans;
 }
@@ -42,9 +49,10 @@ export function requiredBound(mean: number, sigma: number, p: number, z: number,
   if (a >= 8 * sigma && Number.isFinite(z1)) return a + z1 * sigma;
   let b = a + Math.min(z, Math.max(0, start)) * sigma;
   for (let k = 0; k < 30; k++) {
-    const u = (b - a) / sigma, v = (b + a) / sigma;
+    const u = (b - a) / sigma,
+      v = (b + a) / sigma;
     const f = normalCdf(u) + normalCdf(v) - 1 - p;
-    const df = (Math.exp(-0.5 * u * u) + Math.exp(-0.5 * v * v)) * INV_SQRT_2PI / sigma;
+    const df = ((Math.exp(-0.5 * u * u) + Math.exp(-0.5 * v * v)) * INV_SQRT_2PI) / sigma;
     if (!(df > 0)) break;
     const next = Math.min(a + z * sigma, Math.max(a, b - f / df));
     if (Math.abs(next - b) <= 1e-9 * sigma) return next;
@@ -69,13 +77,18 @@ export function oneSidedQuantile(p: number): number {
  * solve starts from the previous epoch's (b_p − |m|)/σ, which the smooth prediction changes little.
  */
 export function marginSeries(
-  mean: ArrayLike<number>, sigma: ArrayLike<number>, bound: number, p: number, z: number,
+  mean: ArrayLike<number>,
+  sigma: ArrayLike<number>,
+  bound: number,
+  p: number,
+  z: number,
 ): Float64Array {
   const out = new Float64Array(mean.length);
   const z1 = oneSidedQuantile(p);
   let k = z;
   for (let i = 0; i < out.length; i++) {
-    const s = sigma[i]!, a = Math.abs(mean[i]!);
+    const s = sigma[i]!,
+      a = Math.abs(mean[i]!);
     const b = requiredBound(a, s, p, z, k, z1);
     if (s > 0) k = (b - a) / s;
     out[i] = bound - b;

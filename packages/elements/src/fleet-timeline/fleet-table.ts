@@ -7,7 +7,11 @@
  */
 import { html, nothing, type TemplateResult } from 'lit';
 import {
-  formatDuration, formatFraction, formatNumber, formatOffsetAuto, typographicMinus,
+  formatDuration,
+  formatFraction,
+  formatNumber,
+  formatOffsetAuto,
+  typographicMinus,
 } from '../internal/format.js';
 import { formatChartUtc } from './fleet-axis.js';
 import type { FleetCommandView, FleetView, SatelliteView, SupportView } from './fleet-data.js';
@@ -35,16 +39,20 @@ export function marginText(s: Pick<SatelliteView, 'minMargin' | 'tolerance'>): s
 /** One sentence about a satellite, for the live region and the tooltip. */
 export function describeSatellite(view: FleetView, s: SatelliteView, atRisk: boolean): string {
   const why = s.reason ? ` ${typographicMinus(s.reason)}` : '';
-  return `${s.id}: ${statusText(s, atRisk)}; smallest margin ${typographicMinus(marginText(s))} at ` +
+  return (
+    `${s.id}: ${statusText(s, atRisk)}; smallest margin ${typographicMinus(marginText(s))} at ` +
     `${formatChartUtc(view, s.minMarginAt)}; ${s.commands.length} uplink${s.commands.length === 1 ? '' : 's'}` +
-    `${s.stationsUsed.length ? ` via ${s.stationsUsed.join(', ')}` : ''}.${why}`;
+    `${s.stationsUsed.length ? ` via ${s.stationsUsed.join(', ')}` : ''}.${why}`
+  );
 }
 
 /** One sentence about a support. */
 export function describeSupport(view: FleetView, sup: SupportView): string {
   const st = view.stations[sup.station]!;
-  return `${st.id} holds ${view.satellites[sup.satellite]!.id} from ${formatChartUtc(view, sup.start)} to ` +
-    `${formatChartUtc(view, sup.end)}; setup ${formatDuration(st.setup)} after it.`;
+  return (
+    `${st.id} holds ${view.satellites[sup.satellite]!.id} from ${formatChartUtc(view, sup.start)} to ` +
+    `${formatChartUtc(view, sup.end)}; setup ${formatDuration(st.setup)} after it.`
+  );
 }
 
 /** The canvas's accessible name: what the picture shows, in one paragraph. */
@@ -52,10 +60,12 @@ export function fleetLabel(view: FleetView, atRisk: readonly boolean[]): string 
   const notHeld = view.satellites.filter((s) => !s.feasible).map((s) => s.id);
   const risky = view.satellites.filter((s, i) => s.feasible && atRisk[i]).map((s) => s.id);
   const supports = view.stations.reduce((n, s) => n + s.supports.length, 0);
-  return `Fleet timeline from ${formatChartUtc(view, 0)} to ${formatChartUtc(view, view.horizon)}: ` +
+  return (
+    `Fleet timeline from ${formatChartUtc(view, 0)} to ${formatChartUtc(view, view.horizon)}: ` +
     `${view.satellites.length} satellites, ${view.stations.length} stations, ${supports} supports. ` +
     `${notHeld.length ? `Not held: ${notHeld.join(', ')}. ` : 'Every satellite held. '}` +
-    `${risky.length ? `Low margin: ${risky.join(', ')}.` : ''}`.trim();
+    `${risky.length ? `Low margin: ${risky.join(', ')}.` : ''}`.trim()
+  );
 }
 
 interface TableInput {
@@ -81,7 +91,10 @@ export function satelliteTable({ view, atRisk, selected, onSelect }: TableInput)
       return html`<tr part=${parts} aria-current=${isSel ? 'true' : 'false'} data-id=${s.id}
         @click=${() => onSelect(i)}>
         <th scope="row"><button type="button" class="row-button" aria-label=${`Select ${s.id}`}
-          @click=${(e: Event) => { e.stopPropagation(); onSelect(i); }}>${s.id}</button></th>
+          @click=${(e: Event) => {
+            e.stopPropagation();
+            onSelect(i);
+          }}>${s.id}</button></th>
         <td class=${atRisk[i] ? 'risk' : ''}>${atRisk[i] ? '⚠ ' : '✓ '}${statusText(s, atRisk[i] ?? false)}</td>
         <td>${typographicMinus(marginText(s))}</td>
         <td>${s.commands.length}</td>
@@ -111,7 +124,8 @@ export function stationTable(view: FleetView): TemplateResult {
 
 /** Grid index nearest to time x (binary search over ascending t). */
 function nearestIndex(t: Float64Array, x: number): number {
-  let lo = 0, hi = t.length - 1;
+  let lo = 0,
+    hi = t.length - 1;
   while (hi - lo > 1) {
     const mid = (lo + hi) >> 1;
     if (t[mid]! <= x) lo = mid;
@@ -141,8 +155,12 @@ export function tooltip(d: FleetView, hit: FleetHit, atRisk: readonly boolean[],
       <dt>Margin</dt><dd>${typographicMinus(formatOffsetAuto(s.margin[k] ?? Number.NaN, 3))}</dd>
       <dt>Tolerance</dt><dd>±${formatOffsetAuto(s.tolerance, 3)} at ${s.probability}</dd>
       <dt>Smallest</dt><dd>${typographicMinus(marginText(s))}</dd>
-      ${c ? html`<dt>Uplink</dt><dd>${formatChartUtc(d, c.uplinkAt)} via ${c.station}</dd>
+      ${
+        c
+          ? html`<dt>Uplink</dt><dd>${formatChartUtc(d, c.uplinkAt)} via ${c.station}</dd>
         <dt>Executes</dt><dd>${formatChartUtc(d, c.executeAt)}</dd>
-        <dt>Step</dt><dd>${stepText(c)}</dd>` : nothing}
+        <dt>Step</dt><dd>${stepText(c)}</dd>`
+          : nothing
+      }
     </dl></div>`;
 }

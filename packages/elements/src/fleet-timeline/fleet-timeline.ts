@@ -1,27 +1,47 @@
-import { html, nothing, type PropertyDeclarations, type PropertyValues, type TemplateResult } from 'lit';
 import type { FleetDocument, FleetPlan } from '@tauline/sdk/fleet';
-import { PlotElement } from '../internal/plot-element.js';
-import { baseStyles, plotStyles } from '../internal/styles.js';
-import { sizeCanvas } from '../internal/canvas.js';
-import { linearScale, type Scale } from '../internal/scale.js';
-import { typographicMinus } from '../internal/format.js';
-import { warnOnce } from '../internal/warn.js';
+import { html, nothing, type PropertyDeclarations, type PropertyValues, type TemplateResult } from 'lit';
 import { emit } from '../events.js';
-import { fleetTimelineStyles } from './fleet-timeline.styles.js';
-import { isAtRisk, readFleetPlan, type FleetReadResult, type FleetView } from './fleet-data.js';
+import { sizeCanvas } from '../internal/canvas.js';
+import { typographicMinus } from '../internal/format.js';
+import { PlotElement } from '../internal/plot-element.js';
+import { linearScale, type Scale } from '../internal/scale.js';
+import { baseStyles, plotStyles } from '../internal/styles.js';
+import { warnOnce } from '../internal/warn.js';
 import { calendarTicks, formatChartUtc } from './fleet-axis.js';
+import { type FleetReadResult, type FleetView, isAtRisk, readFleetPlan } from './fleet-data.js';
 import {
-  drawFleet, fleetHeight, fleetLayout, hitTest, supportRect, type FleetHit, type FleetLayout,
+  drawFleet,
+  type FleetHit,
+  type FleetLayout,
+  fleetHeight,
+  fleetLayout,
+  hitTest,
+  supportRect,
 } from './fleet-draw.js';
 import {
-  describeSatellite, describeSupport, fleetLabel, satelliteTable, stationTable, stepText, tooltip,
+  describeSatellite,
+  describeSupport,
+  fleetLabel,
+  satelliteTable,
+  stationTable,
+  stepText,
+  tooltip,
 } from './fleet-table.js';
+import { fleetTimelineStyles } from './fleet-timeline.styles.js';
 import './fleet-events.js';
 
 const COLOR_EXPR = {
-  text: 'var(--text)', muted: 'var(--muted)', grid: 'var(--grid)', surface: 'var(--surface)', accent: 'var(--accent)',
-  margin: 'var(--margin-color)', risk: 'var(--risk-color)', support: 'var(--support-color)',
-  setup: 'var(--setup-color)', pass: 'var(--pass-color)', frequency: 'var(--frequency-command-color)',
+  text: 'var(--text)',
+  muted: 'var(--muted)',
+  grid: 'var(--grid)',
+  surface: 'var(--surface)',
+  accent: 'var(--accent)',
+  margin: 'var(--margin-color)',
+  risk: 'var(--risk-color)',
+  support: 'var(--support-color)',
+  setup: 'var(--setup-color)',
+  pass: 'var(--pass-color)',
+  frequency: 'var(--frequency-command-color)',
   phase: 'var(--phase-command-color)',
 } as const;
 
@@ -30,7 +50,11 @@ type Cursor =
   | { kind: 'satellite'; satellite: number; command: number }
   | { kind: 'support'; station: number; support: number };
 
-interface Hover { hit: FleetHit; x: number; y: number }
+interface Hover {
+  hit: FleetHit;
+  x: number;
+  y: number;
+}
 
 /**
  * A constellation's joint steering plan on one time axis: one row per satellite (its passes along
@@ -160,8 +184,11 @@ export class TaulineFleetTimeline extends PlotElement {
       else if (!this._view || this._view[0] < 0 || this._view[1] > d.horizon) this._view = [0, d.horizon];
     }
     if (changed.has('riskMargin') && this._risk !== this.riskMargin) {
-      warnOnce(this, 'invalid-risk-margin',
-        `risk-margin must be a fraction in [0, 1]; received ${String(this.riskMargin)}; using 0.1`);
+      warnOnce(
+        this,
+        'invalid-risk-margin',
+        `risk-margin must be a fraction in [0, 1]; received ${String(this.riskMargin)}; using 0.1`,
+      );
     }
     const d = this._data;
     this._atRisk = d ? d.satellites.map((s) => isAtRisk(s, this._risk)) : [];
@@ -193,11 +220,17 @@ export class TaulineFleetTimeline extends PlotElement {
     const legend = (cls: string, style: string, text: string): TemplateResult =>
       html`<li><span class="swatch ${cls}" style=${style} aria-hidden="true"></span>${text}</li>`;
     return html`
-      <p part="summary">${d.reason ? typographicMinus(d.reason)
-        : `All ${d.satellites.length} satellites are held inside their tolerances.`}</p>
+      <p part="summary">${
+        d.reason
+          ? typographicMinus(d.reason)
+          : `All ${d.satellites.length} satellites are held inside their tolerances.`
+      }</p>
       <ul part="legend" aria-label="Legend">
-        ${legend('', 'background:var(--margin-color)',
-          'Margin to tolerance (full strip: offset bound at zero; empty: at the tolerance)')}
+        ${legend(
+          '',
+          'background:var(--margin-color)',
+          'Margin to tolerance (full strip: offset bound at zero; empty: at the tolerance)',
+        )}
         ${legend('hatch', '', `Low or lost margin (< ${Math.round(this._risk * 100)} % of tolerance), ⚠ at risk`)}
         ${legend('', 'background:var(--pass-color);height:3px', 'Pass')}
         ${legend('', 'background:var(--support-color)', 'Support')}
@@ -221,7 +254,10 @@ export class TaulineFleetTimeline extends PlotElement {
       <div class="sr-only" aria-live="polite">${this._announcement}</div>
       <div class="table-wrap">
         ${satelliteTable({
-          view: d, atRisk: this._atRisk, selected: this.selected, onSelect: (i) => this._selectSatellite(i),
+          view: d,
+          atRisk: this._atRisk,
+          selected: this.selected,
+          onSelect: (i) => this._selectSatellite(i),
         })}
       </div>
       <div class="table-wrap stations">${stationTable(d)}</div>
@@ -236,7 +272,8 @@ export class TaulineFleetTimeline extends PlotElement {
   }
 
   private _geometry(): { layout: FleetLayout; sx: Scale } | null {
-    const d = this._data, v = this._view;
+    const d = this._data,
+      v = this._view;
     const w = this._size.width;
     if (!d || !v || w < 120) return null;
     const layout = fleetLayout(w, d.satellites.length, d.stations.length);
@@ -244,12 +281,13 @@ export class TaulineFleetTimeline extends PlotElement {
   }
 
   protected override updated(): void {
-    const g = this._geometry(), d = this._data;
+    const g = this._geometry(),
+      d = this._data;
     if (!g || !d) return;
     const colors = this._resolveColors(COLOR_EXPR);
-    const key = `${this._dataVersion}|${this._view?.join()}|${g.layout.width}|${this._risk}|` +
-      Object.values(colors).join();
-    const data = this._dataCanvas, overlay = this._overlayCanvas;
+    const key = `${this._dataVersion}|${this._view?.join()}|${g.layout.width}|${this._risk}|${Object.values(colors).join()}`;
+    const data = this._dataCanvas,
+      overlay = this._overlayCanvas;
     if (key !== this._drawnKey && data) {
       const ctx = sizeCanvas(data, g.layout.width, g.layout.height);
       if (ctx) {
@@ -264,11 +302,16 @@ export class TaulineFleetTimeline extends PlotElement {
     if (!ctx) return;
     const { layout, sx } = g;
     const outline = (x: number, y: number, w: number, h: number, color: string, width: number): void => {
-      ctx.strokeStyle = color; ctx.lineWidth = width; ctx.strokeRect(x, y, w, h);
+      ctx.strokeStyle = color;
+      ctx.lineWidth = width;
+      ctx.strokeRect(x, y, w, h);
     };
     const ring = (x: number, y: number): void => {
-      ctx.strokeStyle = colors.accent; ctx.lineWidth = 2;
-      ctx.beginPath(); ctx.arc(x, y, 8, 0, Math.PI * 2); ctx.stroke();
+      ctx.strokeStyle = colors.accent;
+      ctx.lineWidth = 2;
+      ctx.beginPath();
+      ctx.arc(x, y, 8, 0, Math.PI * 2);
+      ctx.stroke();
     };
     const sel = d.satellites.findIndex((s) => s.id === this.selected);
     const rowY = (i: number): number => layout.top + i * layout.rowHeight;
@@ -287,15 +330,22 @@ export class TaulineFleetTimeline extends PlotElement {
     const hv = this._hover?.hit;
     if (hv && hv.kind !== 'lane') {
       const x = Math.round(sx.map(hv.t)) + 0.5;
-      ctx.strokeStyle = colors.muted; ctx.lineWidth = 1; ctx.setLineDash([2, 3]);
-      ctx.beginPath(); ctx.moveTo(x, layout.top); ctx.lineTo(x, layout.height - 4); ctx.stroke(); ctx.setLineDash([]);
+      ctx.strokeStyle = colors.muted;
+      ctx.lineWidth = 1;
+      ctx.setLineDash([2, 3]);
+      ctx.beginPath();
+      ctx.moveTo(x, layout.top);
+      ctx.lineTo(x, layout.height - 4);
+      ctx.stroke();
+      ctx.setLineDash([]);
     }
   }
 
   private _setView(a: number, b: number, byUser: boolean): void {
     const d = this._data;
     if (!d) return;
-    const full = d.horizon, minSpan = Math.min(full, 3600);
+    const full = d.horizon,
+      minSpan = Math.min(full, 3600);
     const span = Math.min(full, Math.max(minSpan, b - a));
     const start = Math.min(Math.max((a + b) / 2 - span / 2, 0), full - span);
     if (this._view && this._view[0] === start && this._view[1] === start + span) return;
@@ -316,10 +366,13 @@ export class TaulineFleetTimeline extends PlotElement {
     this._setView(this._view[0] + shift, this._view[1] + shift, true);
   }
 
-  private readonly _showAll = (): void => { if (this._data) this._setView(0, this._data.horizon, true); };
+  private readonly _showAll = (): void => {
+    if (this._data) this._setView(0, this._data.horizon, true);
+  };
 
   private _selectSatellite(i: number): void {
-    const d = this._data, s = d?.satellites[i];
+    const d = this._data,
+      s = d?.satellites[i];
     if (!d || !s) return;
     this.selected = s.id;
     const cur = this._cursor;
@@ -331,12 +384,15 @@ export class TaulineFleetTimeline extends PlotElement {
   }
 
   private _selectSupport(station: number, k: number): void {
-    const d = this._data, sup = d?.stations[station]?.supports[k];
+    const d = this._data,
+      sup = d?.stations[station]?.supports[k];
     if (!d || !sup) return;
     this._cursor = { kind: 'support', station, support: k };
     this._announcement = describeSupport(d, sup);
     emit(this, 'tauline-support-select', {
-      index: sup.index, station: d.stations[station]!.id, satellite: d.satellites[sup.satellite]!.id,
+      index: sup.index,
+      station: d.stations[station]!.id,
+      satellite: d.satellites[sup.satellite]!.id,
       support: sup.source,
     });
   }
@@ -351,7 +407,10 @@ export class TaulineFleetTimeline extends PlotElement {
       this._announcement = describeSatellite(d, s, this._atRisk[next.satellite] ?? false);
     } else {
       const sup = d.stations[next.station]!.supports[next.support];
-      if (!sup) { this._announcement = `${d.stations[next.station]!.id}: no supports.`; return; }
+      if (!sup) {
+        this._announcement = `${d.stations[next.station]!.id}: no supports.`;
+        return;
+      }
       this._announcement = describeSupport(d, sup);
       if (this._view && (sup.start < this._view[0] || sup.end > this._view[1])) {
         const span = this._view[1] - this._view[0];
@@ -369,12 +428,17 @@ export class TaulineFleetTimeline extends PlotElement {
   private readonly _onPointerDown = (event: PointerEvent): void => {
     if (!this._view || event.button > 0) return;
     const p = this._local(event);
-    try { (event.currentTarget as HTMLElement).setPointerCapture(event.pointerId); } catch { /* synthetic pointer */ }
+    try {
+      (event.currentTarget as HTMLElement).setPointerCapture(event.pointerId);
+    } catch {
+      /* synthetic pointer */
+    }
     this._gesture = { x0: this._view[0], x1: this._view[1], px: p.x, moved: false, id: event.pointerId };
   };
 
   private readonly _onPointerMove = (event: PointerEvent): void => {
-    const g = this._geometry(), d = this._data;
+    const g = this._geometry(),
+      d = this._data;
     if (!g || !d) return;
     const p = this._local(event);
     const gesture = this._gesture;
@@ -394,7 +458,9 @@ export class TaulineFleetTimeline extends PlotElement {
   };
 
   private readonly _onPointerUp = (event: PointerEvent): void => {
-    const gesture = this._gesture, g = this._geometry(), d = this._data;
+    const gesture = this._gesture,
+      g = this._geometry(),
+      d = this._data;
     this._gesture = null;
     this._box?.classList.remove('dragging');
     if (!gesture || gesture.id !== event.pointerId || !g || !d) return;
@@ -408,9 +474,14 @@ export class TaulineFleetTimeline extends PlotElement {
     else if (hit?.kind === 'support') this._selectSupport(hit.station, hit.support);
   };
 
-  private readonly _onPointerCancel = (): void => { this._gesture = null; this._box?.classList.remove('dragging'); };
+  private readonly _onPointerCancel = (): void => {
+    this._gesture = null;
+    this._box?.classList.remove('dragging');
+  };
 
-  private readonly _onPointerLeave = (): void => { if (!this._gesture && this._hover) this._hover = null; };
+  private readonly _onPointerLeave = (): void => {
+    if (!this._gesture && this._hover) this._hover = null;
+  };
 
   private readonly _onWheel = (event: WheelEvent): void => {
     const g = this._geometry();
@@ -427,12 +498,15 @@ export class TaulineFleetTimeline extends PlotElement {
 
   /** The cursor after a key, or null when the key does not move it. */
   private _nextCursor(key: string, d: FleetView): Cursor | null {
-    const rows = d.satellites.length, lanes = d.stations.length;
+    const rows = d.satellites.length,
+      lanes = d.stations.length;
     const c = this._cursor;
     // Rows in order: satellites 0..rows−1, then lanes rows..rows+lanes−1.
     const row = !c ? -1 : c.kind === 'satellite' ? c.satellite : rows + c.station;
-    const toRow = (r: number): Cursor => (r < rows ? { kind: 'satellite', satellite: r, command: -1 }
-      : { kind: 'support', station: r - rows, support: this._firstVisibleSupport(d, r - rows) });
+    const toRow = (r: number): Cursor =>
+      r < rows
+        ? { kind: 'satellite', satellite: r, command: -1 }
+        : { kind: 'support', station: r - rows, support: this._firstVisibleSupport(d, r - rows) };
     if (key === 'ArrowDown') return toRow(Math.min(rows + lanes - 1, row + 1));
     if (key === 'ArrowUp') return toRow(Math.max(0, row < 0 ? 0 : row - 1));
     if (c?.kind === 'support') {
@@ -448,7 +522,10 @@ export class TaulineFleetTimeline extends PlotElement {
   }
 
   private _firstVisibleSupport(d: FleetView, station: number): number {
-    return Math.max(0, d.stations[station]!.supports.findIndex((s) => s.end >= (this._view?.[0] ?? 0)));
+    return Math.max(
+      0,
+      d.stations[station]!.supports.findIndex((s) => s.end >= (this._view?.[0] ?? 0)),
+    );
   }
 
   private readonly _onKeyDown = (event: KeyboardEvent): void => {
@@ -482,8 +559,14 @@ export class TaulineFleetTimeline extends PlotElement {
   private _stepUplink(d: FleetView, i: number, dir: 1 | -1): void {
     const s = d.satellites[i]!;
     const cur = this._cursor?.kind === 'satellite' ? this._cursor.command : -1;
-    if (!this._view || s.commands.length === 0) { this._announcement = `${s.id}: no uplinks.`; return; }
-    const firstInView = Math.max(0, s.commands.findIndex((c) => c.executeAt >= this._view![0]));
+    if (!this._view || s.commands.length === 0) {
+      this._announcement = `${s.id}: no uplinks.`;
+      return;
+    }
+    const firstInView = Math.max(
+      0,
+      s.commands.findIndex((c) => c.executeAt >= this._view![0]),
+    );
     const k = cur < 0 ? firstInView : Math.min(s.commands.length - 1, Math.max(0, cur + dir));
     const c = s.commands[k]!;
     this._cursor = { kind: 'satellite', satellite: i, command: k };
@@ -491,7 +574,8 @@ export class TaulineFleetTimeline extends PlotElement {
       const span = this._view[1] - this._view[0];
       this._setView(c.executeAt - span / 2, c.executeAt + span / 2, true);
     }
-    this._announcement = `${s.id} uplink ${k + 1} of ${s.commands.length}: ${c.kind} step ${stepText(c)} uplinked ` +
+    this._announcement =
+      `${s.id} uplink ${k + 1} of ${s.commands.length}: ${c.kind} step ${stepText(c)} uplinked ` +
       `${formatChartUtc(d, c.uplinkAt)} via ${c.station}, executes ${formatChartUtc(d, c.executeAt)}.`;
   }
 }

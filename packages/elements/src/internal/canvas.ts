@@ -19,7 +19,11 @@ export interface Frame {
  * Sizes `canvas` to `cssWidth × cssHeight` CSS pixels at the device pixel ratio and returns
  * its context with the transform set so drawing uses CSS pixels; null without a 2D context.
  */
-export function sizeCanvas(canvas: HTMLCanvasElement, cssWidth: number, cssHeight: number): CanvasRenderingContext2D | null {
+export function sizeCanvas(
+  canvas: HTMLCanvasElement,
+  cssWidth: number,
+  cssHeight: number,
+): CanvasRenderingContext2D | null {
   const ratio = Math.max(1, globalThis.devicePixelRatio || 1);
   const w = Math.max(1, Math.round(cssWidth * ratio));
   const h = Math.max(1, Math.round(cssHeight * ratio));
@@ -63,10 +67,17 @@ export function strokePolyline(ctx: CanvasRenderingContext2D, line: Polyline, sx
   let pen = false;
   for (let i = 0; i < line.length; i++) {
     const y = line.y[i]!;
-    if (Number.isNaN(y)) { pen = false; continue; }
-    const px = sx.map(line.x[i]!), py = sy.map(y);
+    if (Number.isNaN(y)) {
+      pen = false;
+      continue;
+    }
+    const px = sx.map(line.x[i]!),
+      py = sy.map(y);
     if (pen) path.lineTo(px, py);
-    else { path.moveTo(px, py); pen = true; }
+    else {
+      path.moveTo(px, py);
+      pen = true;
+    }
   }
   ctx.stroke(path);
 }
@@ -83,7 +94,10 @@ export function fillBand(ctx: CanvasRenderingContext2D, band: BandPolygon, sx: S
     path.closePath();
   };
   for (let i = 0; i < band.length; i++) {
-    if (Number.isNaN(band.low[i]!)) { close(start, i); start = i + 1; }
+    if (Number.isNaN(band.low[i]!)) {
+      close(start, i);
+      start = i + 1;
+    }
   }
   close(start, band.length);
   ctx.fill(path);
@@ -97,15 +111,33 @@ export function markerPath(shape: MarkerShape, x: number, y: number, r: number):
   const p = new Path2D();
   switch (shape) {
     case 'triangle-up':
-      p.moveTo(x, y - r); p.lineTo(x + r, y + r * 0.8); p.lineTo(x - r, y + r * 0.8); p.closePath(); break;
+      p.moveTo(x, y - r);
+      p.lineTo(x + r, y + r * 0.8);
+      p.lineTo(x - r, y + r * 0.8);
+      p.closePath();
+      break;
     case 'triangle-down':
-      p.moveTo(x, y + r); p.lineTo(x + r, y - r * 0.8); p.lineTo(x - r, y - r * 0.8); p.closePath(); break;
+      p.moveTo(x, y + r);
+      p.lineTo(x + r, y - r * 0.8);
+      p.lineTo(x - r, y - r * 0.8);
+      p.closePath();
+      break;
     case 'diamond':
-      p.moveTo(x, y - r); p.lineTo(x + r, y); p.lineTo(x, y + r); p.lineTo(x - r, y); p.closePath(); break;
+      p.moveTo(x, y - r);
+      p.lineTo(x + r, y);
+      p.lineTo(x, y + r);
+      p.lineTo(x - r, y);
+      p.closePath();
+      break;
     case 'square':
-      p.rect(x - r * 0.8, y - r * 0.8, r * 1.6, r * 1.6); break;
+      p.rect(x - r * 0.8, y - r * 0.8, r * 1.6, r * 1.6);
+      break;
     case 'cross':
-      p.moveTo(x - r, y - r); p.lineTo(x + r, y + r); p.moveTo(x + r, y - r); p.lineTo(x - r, y + r); break;
+      p.moveTo(x - r, y - r);
+      p.lineTo(x + r, y + r);
+      p.moveTo(x + r, y - r);
+      p.lineTo(x - r, y + r);
+      break;
     default:
       p.arc(x, y, r * 0.85, 0, Math.PI * 2);
   }
@@ -129,12 +161,18 @@ export interface Tick {
 
 /** Draws grid lines, the frame and tick labels for both axes, plus optional axis titles. */
 export function drawAxes(
-  ctx: CanvasRenderingContext2D, frame: Frame, sx: Scale, sy: Scale,
-  xTicks: readonly Tick[], yTicks: readonly Tick[], style: AxisStyle,
+  ctx: CanvasRenderingContext2D,
+  frame: Frame,
+  sx: Scale,
+  sy: Scale,
+  xTicks: readonly Tick[],
+  yTicks: readonly Tick[],
+  style: AxisStyle,
   titles: { x?: string; y?: string } = {},
 ): void {
   const { left, top, width, height } = frame;
-  const right = left + width, bottom = top + height;
+  const right = left + width,
+    bottom = top + height;
   ctx.save();
   ctx.lineWidth = 1;
   ctx.strokeStyle = style.grid;
@@ -142,12 +180,14 @@ export function drawAxes(
   for (const t of xTicks) {
     const x = Math.round(sx.map(t.value)) + 0.5;
     if (x < left - 0.5 || x > right + 0.5) continue;
-    ctx.moveTo(x, top); ctx.lineTo(x, bottom);
+    ctx.moveTo(x, top);
+    ctx.lineTo(x, bottom);
   }
   for (const t of yTicks) {
     const y = Math.round(sy.map(t.value)) + 0.5;
     if (y < top - 0.5 || y > bottom + 0.5) continue;
-    ctx.moveTo(left, y); ctx.lineTo(right, y);
+    ctx.moveTo(left, y);
+    ctx.lineTo(right, y);
   }
   ctx.stroke();
   ctx.strokeStyle = style.muted;

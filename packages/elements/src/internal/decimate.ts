@@ -84,11 +84,13 @@ export function shouldDecimate(pointCount: number, columns: number): boolean {
  * same floor rule so points on a boundary land in the same column as a per-point scan puts them.
  */
 function columnEnd(x: NumericColumn, i: number, end: number, x0: number, scale: number, col: number): number {
-  let lo = i + 1, hi = end;
+  let lo = i + 1,
+    hi = end;
   const boundary = x0 + (col + 1) / scale;
   while (lo < hi) {
     const mid = (lo + hi) >>> 1;
-    if (x[mid]! < boundary) lo = mid + 1; else hi = mid;
+    if (x[mid]! < boundary) lo = mid + 1;
+    else hi = mid;
   }
   let j = lo;
   while (j < end && Math.floor((x[j]! - x0) * scale) === col) j++;
@@ -131,8 +133,13 @@ class Growable {
  * copied unchanged. A non-finite y becomes a NaN vertex (a gap in the drawn line).
  */
 export function decimateLine(
-  x: NumericColumn, y: NumericColumn, start: number, end: number,
-  x0: number, x1: number, columns: number,
+  x: NumericColumn,
+  y: NumericColumn,
+  start: number,
+  end: number,
+  x0: number,
+  x1: number,
+  columns: number,
 ): Polyline {
   const count = Math.max(0, end - start);
   const cols = Math.max(1, Math.floor(columns));
@@ -149,7 +156,11 @@ export function decimateLine(
   const scale = cols / (x1 - x0);
   const emit = (a: number, b: number, c: number, d: number): void => {
     // The (up to) four indices first ≤ {min, max} ≤ last, in ascending order, without repeats.
-    if (b > c) { const t = b; b = c; c = t; }
+    if (b > c) {
+      const t = b;
+      b = c;
+      c = t;
+    }
     out.push(x[a]!, y[a]!, 0);
     if (b !== a) out.push(x[b]!, y[b]!, 0);
     if (c !== b && c !== a) out.push(x[c]!, y[c]!, 0);
@@ -160,10 +171,20 @@ export function decimateLine(
     const col = Math.floor((x[i]! - x0) * scale);
     const j = columnEnd(x, i, end, x0, scale, col);
     // Tight scan of the column's y values; comparisons skip NaN, which is detected separately.
-    let lo = i, hi = i, yl = y[i]!, yh = yl, finite = yl - yl === 0;
+    let lo = i,
+      hi = i,
+      yl = y[i]!,
+      yh = yl,
+      finite = yl - yl === 0;
     for (let k = i + 1; k < j; k++) {
       const v = y[k]!;
-      if (v < yl) { yl = v; lo = k; } else if (v > yh) { yh = v; hi = k; } else if (v !== v) finite = false;
+      if (v < yl) {
+        yl = v;
+        lo = k;
+      } else if (v > yh) {
+        yh = v;
+        hi = k;
+      } else if (v !== v) finite = false;
     }
     if (finite && yl - yl === 0 && yh - yh === 0) emit(i, lo, hi, j - 1);
     else splitAtGaps(i, j);
@@ -171,7 +192,10 @@ export function decimateLine(
   }
   /** Slow path for a column holding non-finite values: runs between gaps, NaN vertex per gap. */
   function splitAtGaps(from: number, to: number): void {
-    let first = -1, lo = -1, hi = -1, last = -1;
+    let first = -1,
+      lo = -1,
+      hi = -1,
+      last = -1;
     for (let k = from; k < to; k++) {
       const v = y[k]!;
       if (!Number.isFinite(v)) {
@@ -180,9 +204,13 @@ export function decimateLine(
         out.push(x[k]!, Number.NaN, 0);
         continue;
       }
-      if (first < 0) { first = lo = hi = last = k; continue; }
+      if (first < 0) {
+        first = lo = hi = last = k;
+        continue;
+      }
       last = k;
-      if (v < y[lo]!) lo = k; else if (v > y[hi]!) hi = k;
+      if (v < y[lo]!) lo = k;
+      else if (v > y[hi]!) hi = k;
     }
     if (first >= 0) emit(first, lo, hi, last);
   }
@@ -196,15 +224,27 @@ export function decimateLine(
  * A non-finite edge becomes a NaN vertex (a gap in the band).
  */
 export function decimateBand(
-  x: NumericColumn, low: NumericColumn, high: NumericColumn, start: number, end: number,
-  x0: number, x1: number, columns: number,
+  x: NumericColumn,
+  low: NumericColumn,
+  high: NumericColumn,
+  start: number,
+  end: number,
+  x0: number,
+  x1: number,
+  columns: number,
 ): BandPolygon {
   const count = Math.max(0, end - start);
   const cols = Math.max(1, Math.floor(columns));
   if (!shouldDecimate(count, cols) || !(x1 > x0)) {
-    const out = { x: new Float64Array(count), low: new Float64Array(count), high: new Float64Array(count), length: count };
+    const out = {
+      x: new Float64Array(count),
+      low: new Float64Array(count),
+      high: new Float64Array(count),
+      length: count,
+    };
     for (let i = 0; i < count; i++) {
-      const l = low[start + i]!, h = high[start + i]!;
+      const l = low[start + i]!,
+        h = high[start + i]!;
       const ok = Number.isFinite(l) && Number.isFinite(h);
       out.x[i] = x[start + i]!;
       out.low[i] = ok ? l : Number.NaN;
@@ -223,25 +263,36 @@ export function decimateBand(
   while (i < end) {
     const col = Math.floor((x[i]! - x0) * scale);
     const j = columnEnd(x, i, end, x0, scale, col);
-    let l = low[i]!, h = high[i]!, finite = l - l === 0 && h - h === 0;
+    let l = low[i]!,
+      h = high[i]!,
+      finite = l - l === 0 && h - h === 0;
     for (let k = i + 1; k < j; k++) {
-      const a = low[k]!, b = high[k]!;
-      if (a < l) l = a; else if (a !== a) finite = false;
-      if (b > h) h = b; else if (b !== b) finite = false;
+      const a = low[k]!,
+        b = high[k]!;
+      if (a < l) l = a;
+      else if (a !== a) finite = false;
+      if (b > h) h = b;
+      else if (b !== b) finite = false;
     }
     if (finite && l - l === 0 && h - h === 0) emit(i, j, l, h);
     else {
       // Slow path: runs between non-finite samples, a NaN vertex per gap.
       let from = -1;
       for (let k = i; k < j; k++) {
-        const a = low[k]!, b = high[k]!;
+        const a = low[k]!,
+          b = high[k]!;
         if (!Number.isFinite(a) || !Number.isFinite(b)) {
           if (from >= 0) emit(from, k, l, h);
           from = -1;
           out.push(x[k]!, Number.NaN, Number.NaN);
           continue;
         }
-        if (from < 0) { from = k; l = a; h = b; continue; }
+        if (from < 0) {
+          from = k;
+          l = a;
+          h = b;
+          continue;
+        }
         if (a < l) l = a;
         if (b > h) h = b;
       }

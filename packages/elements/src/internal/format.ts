@@ -9,7 +9,11 @@
 export type TimeUnit = 's' | 'ms' | 'µs' | 'ns' | 'ps';
 
 const TIME_UNITS: ReadonlyArray<readonly [TimeUnit, number]> = [
-  ['s', 1], ['ms', 1e-3], ['µs', 1e-6], ['ns', 1e-9], ['ps', 1e-12],
+  ['s', 1],
+  ['ms', 1e-3],
+  ['µs', 1e-6],
+  ['ns', 1e-9],
+  ['ps', 1e-12],
 ];
 
 /** The unit in which `maxAbsSeconds` reads between 1 and 1000 (ps at the small end). */
@@ -71,7 +75,15 @@ export function formatOffsetAuto(seconds: number, digits = 4): string {
 export function formatHertz(hz: number, digits = 4): string {
   if (!Number.isFinite(hz)) return '—';
   const a = Math.abs(hz);
-  const units: Array<[string, number]> = [['GHz', 1e9], ['MHz', 1e6], ['kHz', 1e3], ['Hz', 1], ['mHz', 1e-3], ['µHz', 1e-6], ['nHz', 1e-9]];
+  const units: Array<[string, number]> = [
+    ['GHz', 1e9],
+    ['MHz', 1e6],
+    ['kHz', 1e3],
+    ['Hz', 1],
+    ['mHz', 1e-3],
+    ['µHz', 1e-6],
+    ['nHz', 1e-9],
+  ];
   for (const [u, f] of units) if (a >= f) return `${formatNumber(hz / f, digits)} ${u}`;
   return `${formatNumber(hz / 1e-9, digits)} nHz`;
 }
@@ -109,6 +121,9 @@ export function formatTimeTick(ms: number, stepSeconds: number): { main: string;
   const d = new Date(ms);
   const midnight = d.getUTCHours() === 0 && d.getUTCMinutes() === 0 && d.getUTCSeconds() === 0;
   if (stepSeconds >= 86400) return { main: `${pad(d.getUTCMonth() + 1)}-${pad(d.getUTCDate())}`, sub: null };
-  const clock = stepSeconds < 60 ? `${pad(d.getUTCHours())}:${pad(d.getUTCMinutes())}:${pad(d.getUTCSeconds())}` : `${pad(d.getUTCHours())}:${pad(d.getUTCMinutes())}`;
+  const clock =
+    stepSeconds < 60
+      ? `${pad(d.getUTCHours())}:${pad(d.getUTCMinutes())}:${pad(d.getUTCSeconds())}`
+      : `${pad(d.getUTCHours())}:${pad(d.getUTCMinutes())}`;
   return { main: clock, sub: midnight ? formatUtcDate(ms) : null };
 }

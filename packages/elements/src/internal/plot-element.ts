@@ -5,9 +5,9 @@
  *
  * @module
  */
-import { LitElement, html, type PropertyValues, type TemplateResult, type PropertyDeclarations } from 'lit';
-import { ResizeController } from './resize.js';
+import { html, LitElement, type PropertyDeclarations, type PropertyValues, type TemplateResult } from 'lit';
 import { resolveColors, resolveFont } from './canvas.js';
+import { ResizeController } from './resize.js';
 
 /** Base class for the canvas plots (not registered as an element). */
 export abstract class PlotElement extends LitElement {
@@ -27,8 +27,11 @@ export abstract class PlotElement extends LitElement {
   protected static readonly measureOnFirstUpdate: boolean = true;
 
   /** @internal */
-  protected readonly _size = new ResizeController(this, () => this.renderRoot.querySelector?.('.plot-box'),
-    () => (this.constructor as typeof PlotElement).measureOnFirstUpdate);
+  protected readonly _size = new ResizeController(
+    this,
+    () => this.renderRoot.querySelector?.('.plot-box'),
+    () => (this.constructor as typeof PlotElement).measureOnFirstUpdate,
+  );
   private _colorCache: Record<string, string> | null = null;
   private _schemeKey = '';
   private _media: MediaQueryList | undefined;
@@ -89,7 +92,11 @@ export abstract class PlotElement extends LitElement {
   }
 
   /** The plot box: data canvas (role img, labelled), overlay, tooltip and colour probe. */
-  protected _renderPlotBox(label: string, tooltip: TemplateResult | null, extra: Record<string, unknown> = {}): TemplateResult {
+  protected _renderPlotBox(
+    label: string,
+    tooltip: TemplateResult | null,
+    extra: Record<string, unknown> = {},
+  ): TemplateResult {
     void extra;
     return html`<div class="plot-box" part="plot">
         <canvas class="data" role="img" aria-label=${label}></canvas>

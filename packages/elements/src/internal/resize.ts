@@ -26,7 +26,11 @@ export class ResizeController implements ReactiveController {
    *   `getBoundingClientRect()` as soon as the target exists (a layout read inside the update
    *   cycle); otherwise only the ResizeObserver's callbacks set the size.
    */
-  constructor(host: ReactiveControllerHost & HTMLElement, target: () => Element | null | undefined, measureSynchronously: () => boolean = () => true) {
+  constructor(
+    host: ReactiveControllerHost & HTMLElement,
+    target: () => Element | null | undefined,
+    measureSynchronously: () => boolean = () => true,
+  ) {
     this._host = host;
     this._target = target;
     this._measureSynchronously = measureSynchronously;
@@ -37,7 +41,8 @@ export class ResizeController implements ReactiveController {
     this._observer = new ResizeObserver((entries) => {
       const box = entries[entries.length - 1]?.contentRect;
       if (!box) return;
-      const w = Math.floor(box.width), h = Math.floor(box.height);
+      const w = Math.floor(box.width),
+        h = Math.floor(box.height);
       if (w !== this.width || h !== this.height) {
         this.width = w;
         this.height = h;

@@ -28,7 +28,8 @@ export function linearScale(d0: number, d1: number, r0: number, r1: number): Sca
 
 /** Base-10 logarithmic scale over a positive domain: pixel linear in log10(v). */
 export function logScale(d0: number, d1: number, r0: number, r1: number): Scale {
-  const l0 = Math.log10(d0), l1 = Math.log10(d1);
+  const l0 = Math.log10(d0),
+    l1 = Math.log10(d1);
   const inner = linearScale(l0, l1, r0, r1);
   return {
     domain: [d0, d1],
@@ -50,7 +51,8 @@ export function niceStep(d0: number, d1: number, count: number): number {
 
 /** Tick values at multiples of a nice step inside [min(d0,d1), max(d0,d1)]. */
 export function linearTicks(d0: number, d1: number, count: number): number[] {
-  const lo = Math.min(d0, d1), hi = Math.max(d0, d1);
+  const lo = Math.min(d0, d1),
+    hi = Math.max(d0, d1);
   const step = niceStep(lo, hi, count);
   const out: number[] = [];
   if (!(step > 0) || !Number.isFinite(lo) || !Number.isFinite(hi)) return out;
@@ -62,17 +64,19 @@ export function linearTicks(d0: number, d1: number, count: number): number[] {
 
 /** Decade ticks (10^k) inside a positive domain; at least the two ends if no decade falls inside. */
 export function logTicks(d0: number, d1: number): number[] {
-  const lo = Math.min(d0, d1), hi = Math.max(d0, d1);
+  const lo = Math.min(d0, d1),
+    hi = Math.max(d0, d1);
   if (!(lo > 0) || !Number.isFinite(hi)) return [];
   const out: number[] = [];
-  for (let k = Math.ceil(Math.log10(lo) - 1e-9); k <= Math.floor(Math.log10(hi) + 1e-9) && out.length < 400; k++) out.push(10 ** k);
+  for (let k = Math.ceil(Math.log10(lo) - 1e-9); k <= Math.floor(Math.log10(hi) + 1e-9) && out.length < 400; k++)
+    out.push(10 ** k);
   return out;
 }
 
 /** Candidate steps for time axes, in seconds (common practice, no source). */
 const TIME_STEPS_SECONDS = [
-  1, 2, 5, 10, 15, 30, 60, 120, 300, 600, 900, 1800, 3600, 7200, 10800, 21600, 43200,
-  86400, 172800, 604800, 1209600, 2592000, 7776000, 31557600,
+  1, 2, 5, 10, 15, 30, 60, 120, 300, 600, 900, 1800, 3600, 7200, 10800, 21600, 43200, 86400, 172800, 604800, 1209600,
+  2592000, 7776000, 31557600,
 ];
 
 /** The time-axis step (seconds) giving about `count` intervals over [t0, t1] seconds. */
@@ -89,7 +93,8 @@ export function timeStep(t0: number, t1: number, count: number): number {
 export function timeTicks(t0: number, t1: number, count: number, epochMs: number): { values: number[]; step: number } {
   const step = timeStep(t0, t1, count);
   const epoch = epochMs / 1000;
-  const lo = Math.min(t0, t1) + epoch, hi = Math.max(t0, t1) + epoch;
+  const lo = Math.min(t0, t1) + epoch,
+    hi = Math.max(t0, t1) + epoch;
   const values: number[] = [];
   if (!Number.isFinite(lo) || !Number.isFinite(hi)) return { values, step };
   for (let v = Math.ceil(lo / step) * step; v <= hi && values.length < 1000; v += step) values.push(v - epoch);

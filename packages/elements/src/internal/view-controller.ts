@@ -20,7 +20,14 @@ export interface ViewGeometry {
   invert(px: number): number;
 }
 
-interface Gesture { x0: number; x1: number; px: number; moved: boolean; dist?: number; center?: number }
+interface Gesture {
+  x0: number;
+  x1: number;
+  px: number;
+  moved: boolean;
+  dist?: number;
+  center?: number;
+}
 
 /**
  * Holds the visible span of a plot's x axis, clamped to the data's full span, and turns pointer,
@@ -74,7 +81,10 @@ export class ViewController implements ReactiveController {
     const minSpan = Math.min(width, Math.max(width * 1e-5, 1));
     let span = Math.min(width, Math.max(minSpan, b - a));
     let start = (a + b) / 2 - span / 2;
-    if (b - a >= minSpan && b - a <= width) { start = a; span = b - a; }
+    if (b - a >= minSpan && b - a <= width) {
+      start = a;
+      span = b - a;
+    }
     start = Math.min(Math.max(start, lo), hi - span);
     const next: Span = [start, start + span];
     if (this._view && next[0] === this._view[0] && next[1] === this._view[1]) return;
@@ -133,7 +143,8 @@ export class ViewController implements ReactiveController {
     const perPixel = (g.x1 - g.x0) / frame.width;
     const [a, b] = this._pointers.values();
     if (a && b && g.dist !== undefined && g.center !== undefined) {
-      const dist = Math.max(10, Math.abs(a.x - b.x)), center = (a.x + b.x) / 2;
+      const dist = Math.max(10, Math.abs(a.x - b.x)),
+        center = (a.x + b.x) / 2;
       const span = (g.x1 - g.x0) * (g.dist / dist);
       const anchor = g.x0 + (g.center - frame.left) * perPixel; // data value under the initial centre
       const start = anchor - (center - frame.left) * (span / frame.width);

@@ -1,9 +1,9 @@
-import { LitElement, html, nothing, type PropertyValues, type TemplateResult, type PropertyDeclarations } from 'lit';
-import { baseStyles } from '../internal/styles.js';
-import { rateBudgetStyles } from './rate-budget.styles.js';
-import { formatFraction, formatHertz, formatNumber } from '../internal/format.js';
-import { warnOnce } from '../internal/warn.js';
 import { FLIGHT_CONFIGURATION_CAUTION, type RateBreakdown } from '@tauline/sdk/relativity';
+import { html, LitElement, nothing, type PropertyDeclarations, type PropertyValues, type TemplateResult } from 'lit';
+import { formatFraction, formatHertz, formatNumber } from '../internal/format.js';
+import { baseStyles } from '../internal/styles.js';
+import { warnOnce } from '../internal/warn.js';
+import { rateBudgetStyles } from './rate-budget.styles.js';
 
 /**
  * The mean rate breakdown the element shows: the SDK's `meanClockRate(a)` result (`RateBreakdown` of
@@ -11,7 +11,8 @@ import { FLIGHT_CONFIGURATION_CAUTION, type RateBreakdown } from '@tauline/sdk/r
  * Rates are dτ/dt − 1 (positive: the orbiting clock runs fast); `factoryOffset` is the fractional
  * offset to set on the ground so it keeps the reference rate.
  */
-export type RateBudgetData = Pick<RateBreakdown, 'fractionalRate' | 'gravitational' | 'velocity'> & Partial<RateBreakdown>;
+export type RateBudgetData = Pick<RateBreakdown, 'fractionalRate' | 'gravitational' | 'velocity'> &
+  Partial<RateBreakdown>;
 
 const SECONDS_PER_DAY = 86_400;
 
@@ -91,7 +92,8 @@ export class TaulineRateBudget extends LitElement {
     if (typeof b !== 'object') return `budget must be an object from meanClockRate(); received ${typeof b}`;
     const r = b as Record<string, unknown>;
     for (const key of ['fractionalRate', 'gravitational', 'velocity'] as const) {
-      if (typeof r[key] !== 'number' || !Number.isFinite(r[key])) return `budget.${key} must be a finite number; received ${String(r[key])}`;
+      if (typeof r[key] !== 'number' || !Number.isFinite(r[key]))
+        return `budget.${key} must be a finite number; received ${String(r[key])}`;
     }
     if (this.j2Rate !== undefined && this.j2Rate !== null && !Number.isFinite(this.j2Rate)) {
       return `j2Rate must be a finite number or unset; received ${String(this.j2Rate)}`;
@@ -122,7 +124,8 @@ export class TaulineRateBudget extends LitElement {
   }
 
   private _renderBody(): TemplateResult {
-    if (this._problem) return html`<div class="state error" role="alert">Cannot show the rate budget: ${this._problem}</div>`;
+    if (this._problem)
+      return html`<div class="state error" role="alert">Cannot show the rate budget: ${this._problem}</div>`;
     const b = this.budget;
     if (!b) return html`<div class="state">No rate budget yet.</div>`;
     const rows = this._rows(b);
@@ -158,9 +161,11 @@ export class TaulineRateBudget extends LitElement {
           ${rows.map((row) => this._renderRow(row, maxAbs, toOffset, f0))}
         </tbody>
       </table></div>
-      ${this.j2Rate === undefined || this.j2Rate === null
-        ? html`<p class="note">J2 part not supplied: the net rate is the point-mass value.</p>`
-        : nothing}
+      ${
+        this.j2Rate === undefined || this.j2Rate === null
+          ? html`<p class="note">J2 part not supplied: the net rate is the point-mass value.</p>`
+          : nothing
+      }
       <p class="caution" part="caution" role="note">${FLIGHT_CONFIGURATION_CAUTION}</p>`;
   }
 

@@ -1,10 +1,10 @@
-import { LitElement, html, nothing, type PropertyValues, type TemplateResult, type PropertyDeclarations } from 'lit';
-import { baseStyles } from '../internal/styles.js';
-import { reviewFindingsStyles } from './review-findings.styles.js';
-import { formatFraction, formatHertz, formatNumber, typographicMinus } from '../internal/format.js';
-import { warnOnce } from '../internal/warn.js';
-import { emit } from '../events.js';
 import type { Diagnosis, ReviewReport, SpacecraftFinding, Verdict } from '@tauline/sdk/review';
+import { html, LitElement, nothing, type PropertyDeclarations, type PropertyValues, type TemplateResult } from 'lit';
+import { emit } from '../events.js';
+import { formatFraction, formatHertz, formatNumber, typographicMinus } from '../internal/format.js';
+import { baseStyles } from '../internal/styles.js';
+import { warnOnce } from '../internal/warn.js';
+import { reviewFindingsStyles } from './review-findings.styles.js';
 
 /** Verdict of one spacecraft (the SDK's `Verdict`). */
 export type ReviewVerdict = Verdict;
@@ -13,17 +13,28 @@ export type ReviewVerdict = Verdict;
  * One diagnosis entry of a finding: the SDK's `Diagnosis` (`code`, `message`; `wouldHaveProduced`, the
  * fractional offset the recognised mistake would have produced, and `matches` may be left out).
  */
-export type ReviewDiagnosisView = Pick<Diagnosis, 'code' | 'message'> & Partial<Pick<Diagnosis, 'wouldHaveProduced' | 'matches'>>;
+export type ReviewDiagnosisView = Pick<Diagnosis, 'code' | 'message'> &
+  Partial<Pick<Diagnosis, 'wouldHaveProduced' | 'matches'>>;
 
 /**
  * One spacecraft finding: the fields of the SDK's `SpacecraftFinding` the element shows (`id`, `verdict`;
  * the fractional offsets, differences in Hz and ns/day, `summary` and `diagnosis` may be left out;
  * other fields are ignored).
  */
-export type ReviewFindingView = Pick<SpacecraftFinding, 'id' | 'verdict'> & Partial<Pick<SpacecraftFinding,
-  'expectedFractionalOffset' | 'configuredFractionalOffset' | 'differenceFractional' | 'differenceHz' | 'differenceNanosecondsPerDay' | 'summary'>> & {
-  readonly diagnosis?: readonly ReviewDiagnosisView[];
-};
+export type ReviewFindingView = Pick<SpacecraftFinding, 'id' | 'verdict'> &
+  Partial<
+    Pick<
+      SpacecraftFinding,
+      | 'expectedFractionalOffset'
+      | 'configuredFractionalOffset'
+      | 'differenceFractional'
+      | 'differenceHz'
+      | 'differenceNanosecondsPerDay'
+      | 'summary'
+    >
+  > & {
+    readonly diagnosis?: readonly ReviewDiagnosisView[];
+  };
 
 /** The launch-review output (the SDK's `ReviewReport` from `reviewOffsets()`): `spacecraft`, optionally `title` and `caution`. */
 export type ReviewReportView = Partial<Pick<ReviewReport, 'title' | 'caution'>> & {
@@ -42,7 +53,8 @@ function diagnosisProblems(f: Partial<ReviewFindingView>, k: number): string[] {
   if (!Array.isArray(list)) return [`spacecraft[${k}] (${f.id}).diagnosis is not a list`];
   const out: string[] = [];
   list.forEach((d: unknown, j) => {
-    if (!isDiagnosis(d)) out.push(`spacecraft[${k}] (${f.id}).diagnosis[${j}] is ${d === null ? 'null' : 'not an entry with a message'}`);
+    if (!isDiagnosis(d))
+      out.push(`spacecraft[${k}] (${f.id}).diagnosis[${j}] is ${d === null ? 'null' : 'not an entry with a message'}`);
   });
   return out;
 }
@@ -109,9 +121,14 @@ export class TaulineReviewFindings extends LitElement {
       return;
     }
     const dropped: string[] = [];
-    ((r as { spacecraft: unknown[] }).spacecraft).forEach((s, k) => {
+    (r as { spacecraft: unknown[] }).spacecraft.forEach((s, k) => {
       const f = s as Partial<ReviewFindingView> | null;
-      if (!f || typeof f !== 'object' || typeof f.id !== 'string' || !(f.verdict === 'pass' || f.verdict === 'marginal' || f.verdict === 'fail')) {
+      if (
+        !f ||
+        typeof f !== 'object' ||
+        typeof f.id !== 'string' ||
+        !(f.verdict === 'pass' || f.verdict === 'marginal' || f.verdict === 'fail')
+      ) {
         dropped.push(`spacecraft[${k}] needs an id and a verdict of pass, marginal or fail`);
         return;
       }
@@ -121,7 +138,8 @@ export class TaulineReviewFindings extends LitElement {
     this._findings.sort((a, b) => VERDICT_ORDER[a.verdict] - VERDICT_ORDER[b.verdict]);
     if (dropped.length > 0) warnOnce(this, 'review-entries-dropped', dropped.join('; '));
     this._notices.unshift(...dropped);
-    if (this._notices.length > dropped.length) warnOnce(this, 'invalid-diagnosis', this._notices.slice(dropped.length).join('; '));
+    if (this._notices.length > dropped.length)
+      warnOnce(this, 'invalid-diagnosis', this._notices.slice(dropped.length).join('; '));
     const [firstDropped] = dropped;
     if (firstDropped !== undefined && this._findings.length === 0) this._problem = firstDropped;
   }
@@ -146,11 +164,13 @@ export class TaulineReviewFindings extends LitElement {
     const title = (r && typeof r === 'object' && typeof r.title === 'string' && r.title) || this.label;
     return html`<div part="base">
       <h3 class="title">${title}</h3>
-      ${this._problem
-        ? html`<div class="state error" role="alert">Cannot show the review: ${this._problem}</div>`
-        : !r
-          ? html`<div class="state">No review yet.</div>`
-          : this._renderReport(r)}
+      ${
+        this._problem
+          ? html`<div class="state error" role="alert">Cannot show the review: ${this._problem}</div>`
+          : !r
+            ? html`<div class="state">No review yet.</div>`
+            : this._renderReport(r)
+      }
     </div>`;
   }
 
@@ -163,9 +183,11 @@ export class TaulineReviewFindings extends LitElement {
         ${(['fail', 'marginal', 'pass'] as const).map((v) => html`<li>${this._verdict(v)} ${counts[v]}</li>`)}
       </ul>
       ${r.caution ? html`<p class="caution" role="note">${r.caution}</p>` : nothing}
-      ${this._notices.length > 0
-        ? html`<div class="notice" role="alert">Part of this review could not be shown: ${this._notices.join('; ')}.</div>`
-        : nothing}
+      ${
+        this._notices.length > 0
+          ? html`<div class="notice" role="alert">Part of this review could not be shown: ${this._notices.join('; ')}.</div>`
+          : nothing
+      }
       <div class="list">
         ${shown.length === 0 ? html`<div class="state">${this._findings.length === 0 ? 'The review lists no spacecraft.' : 'Every spacecraft passed.'}</div>` : nothing}
         ${shown.map((f) => this._renderFinding(f))}
@@ -193,14 +215,18 @@ export class TaulineReviewFindings extends LitElement {
             ${Number.isFinite(num(f.differenceNanosecondsPerDay)) ? html`<tr><th scope="row">Time error it builds</th><td>${formatNumber(num(f.differenceNanosecondsPerDay), 4)} ns/day</td></tr>` : nothing}
           </tbody>
         </table>
-        ${Array.isArray(f.diagnosis) && f.diagnosis.length > 0
-          ? html`<div><strong>Diagnosis</strong><ul class="diagnosis">
-              ${f.diagnosis.filter(isDiagnosis).map((d) => html`<li>
+        ${
+          Array.isArray(f.diagnosis) && f.diagnosis.length > 0
+            ? html`<div><strong>Diagnosis</strong><ul class="diagnosis">
+              ${f.diagnosis.filter(isDiagnosis).map(
+                (d) => html`<li>
                 ${d.matches ? html`<span class="match">Matches:</span> ` : nothing}${typographicMinus(d.message)}
                 <code>${d.code}</code>${typeof d.wouldHaveProduced === 'number' ? html` — would have produced ${formatFraction(d.wouldHaveProduced, 5)}` : nothing}
-              </li>`)}
+              </li>`,
+              )}
             </ul></div>`
-          : nothing}
+            : nothing
+        }
       </div>
     </details>`;
   }

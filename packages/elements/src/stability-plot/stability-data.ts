@@ -68,19 +68,22 @@ function isArrayLike(v: unknown): v is ArrayLike<unknown> {
 }
 
 function rowsToColumns(rows: readonly Record<string, unknown>[]): StabilityColumns[] {
-  const by = new Map<string, { tau: number[]; deviation: number[]; low: number[]; high: number[]; n: number[]; noise: string[] }>();
+  const by = new Map<
+    string,
+    { tau: number[]; deviation: number[]; low: number[]; high: number[]; n: number[]; noise: string[] }
+  >();
   for (const row of rows) {
-    const stats = (row ? row['statistics'] : undefined) as Record<string, Record<string, unknown> | undefined> | undefined;
+    const stats = (row ? row.statistics : undefined) as Record<string, Record<string, unknown> | undefined> | undefined;
     for (const [name, est] of Object.entries(stats ?? {})) {
       if (!est || typeof est !== 'object') continue;
       let col = by.get(name);
       if (!col) by.set(name, (col = { tau: [], deviation: [], low: [], high: [], n: [], noise: [] }));
-      col.tau.push(Number(est['tau'] ?? row['tau']));
-      col.deviation.push(Number(est['deviation']));
-      col.low.push(Number(est['low'] ?? Number.NaN));
-      col.high.push(Number(est['high'] ?? Number.NaN));
-      col.n.push(Number(est['n'] ?? Number.NaN));
-      col.noise.push(String(row['noise'] ?? ''));
+      col.tau.push(Number(est.tau ?? row.tau));
+      col.deviation.push(Number(est.deviation));
+      col.low.push(Number(est.low ?? Number.NaN));
+      col.high.push(Number(est.high ?? Number.NaN));
+      col.n.push(Number(est.n ?? Number.NaN));
+      col.noise.push(String(row.noise ?? ''));
     }
   }
   return [...by].map(([statistic, c]) => ({ statistic, ...c }));
@@ -100,36 +103,71 @@ function pick(src: ArrayLike<number>, index: Int32Array | null): Float64Array {
 }
 
 /** Validates one columnar entry; pushes problems and few-term notes. Null when it cannot be used. */
-function readEntry(entry: unknown, k: number, minTerms: number, problems: string[], fewTerms: FewTermsNote[]): StabilitySeries | null {
-  if (!entry || typeof entry !== 'object') { problems.push(`series[${k}] is not an object`); return null; }
+function readEntry(
+  entry: unknown,
+  k: number,
+  minTerms: number,
+  problems: string[],
+  fewTerms: FewTermsNote[],
+): StabilitySeries | null {
+  if (!entry || typeof entry !== 'object') {
+    problems.push(`series[${k}] is not an object`);
+    return null;
+  }
   const e = entry as Record<string, unknown>;
-  const name = typeof e['statistic'] === 'string' && e['statistic'] ? e['statistic'] : `series ${k + 1}`;
-  if (!isArrayLike(e['tau']) || !isArrayLike(e['deviation'])) { problems.push(`series[${k}] (${name}) needs tau and deviation arrays`); return null; }
-  const tau = e['tau'] as ArrayLike<number>, dev = e['deviation'] as ArrayLike<number>;
+  const name = typeof e.statistic === 'string' && e.statistic ? e.statistic : `series ${k + 1}`;
+  if (!isArrayLike(e.tau) || !isArrayLike(e.deviation)) {
+    problems.push(`series[${k}] (${name}) needs tau and deviation arrays`);
+    return null;
+  }
+  const tau = e.tau as ArrayLike<number>,
+    dev = e.deviation as ArrayLike<number>;
   const len = tau.length;
-  if (dev.length !== len) { problems.push(`series[${k}] (${name}): tau has ${len} values, deviation ${dev.length}`); return null; }
+  if (dev.length !== len) {
+    problems.push(`series[${k}] (${name}): tau has ${len} values, deviation ${dev.length}`);
+    return null;
+  }
   const opt = (key: string): ArrayLike<number> | null => {
     const v = e[key];
     if (v === undefined || v === null) return null;
-    if (!isArrayLike(v) || v.length !== len) { problems.push(`series[${k}] (${name}).${key} must have ${len} values`); return null; }
+    if (!isArrayLike(v) || v.length !== len) {
+      problems.push(`series[${k}] (${name}).${key} must have ${len} values`);
+      return null;
+    }
     return v as ArrayLike<number>;
   };
-  const low = opt('low'), high = opt('high'), n = opt('n');
-  const noiseRaw = e['noise'];
+  const low = opt('low'),
+    high = opt('high'),
+    n = opt('n');
+  const noiseRaw = e.noise;
   const noise = isArrayLike(noiseRaw) && noiseRaw.length === len ? noiseRaw : null;
   // One pass: which points stay, and whether the kept τ are already ascending.
-  let bad = 0, few = 0, ascending = true, last = -Infinity;
+  let bad = 0,
+    few = 0,
+    ascending = true,
+    last = -Infinity;
   const keep = new Uint8Array(len);
   const fewTaus: number[] = [];
   for (let i = 0; i < len; i++) {
-    const t = Number(tau[i]), d = Number(dev[i]);
-    if (!(t > 0 && d > 0 && t < Infinity && d < Infinity)) { bad += 1; continue; }
-    if (n && Number(n[i]) < minTerms) { few += 1; if (fewTaus.length < 20) fewTaus.push(t); continue; }
+    const t = Number(tau[i]),
+      d = Number(dev[i]);
+    if (!(t > 0 && d > 0 && t < Infinity && d < Infinity)) {
+      bad += 1;
+      continue;
+    }
+    if (n && Number(n[i]) < minTerms) {
+      few += 1;
+      if (fewTaus.length < 20) fewTaus.push(t);
+      continue;
+    }
     keep[i] = 1;
     if (t < last) ascending = false;
     last = t;
   }
-  if (bad > 0) problems.push(`series[${k}] (${name}): ${bad} point(s) with non-positive or non-finite tau/deviation cannot be drawn on log axes`);
+  if (bad > 0)
+    problems.push(
+      `series[${k}] (${name}): ${bad} point(s) with non-positive or non-finite tau/deviation cannot be drawn on log axes`,
+    );
   if (few > 0) fewTerms.push({ statistic: name, count: few, taus: fewTaus });
   let index: Int32Array | null = null;
   if (bad + few > 0 || !ascending) {
@@ -139,9 +177,16 @@ function readEntry(entry: unknown, k: number, minTerms: number, problems: string
   }
   return {
     statistic: name,
-    tau: pick(tau, index), deviation: pick(dev, index),
-    low: low ? pick(low, index) : null, high: high ? pick(high, index) : null, n: n ? pick(n, index) : null,
-    noise: noise ? Array.from(index ?? { length: len }, (i: number | undefined, j) => String((noise as ArrayLike<unknown>)[i ?? j] ?? '')) : null,
+    tau: pick(tau, index),
+    deviation: pick(dev, index),
+    low: low ? pick(low, index) : null,
+    high: high ? pick(high, index) : null,
+    n: n ? pick(n, index) : null,
+    noise: noise
+      ? Array.from(index ?? { length: len }, (i: number | undefined, j) =>
+          String((noise as ArrayLike<unknown>)[i ?? j] ?? ''),
+        )
+      : null,
   };
 }
 
@@ -156,10 +201,12 @@ export function normaliseStability(input: unknown, minTerms = DEFAULT_MIN_TERMS)
   const fewTerms: FewTermsNote[] = [];
   const series: StabilitySeries[] = [];
   if (input === undefined || input === null) return { series, problems, fewTerms };
-  if (!Array.isArray(input)) return { series, problems: [`series must be an array; received ${typeof input}`], fewTerms };
-  const columns: unknown[] = input.length > 0 && input[0] && typeof input[0] === 'object' && 'statistics' in input[0]
-    ? rowsToColumns(input as Record<string, unknown>[])
-    : input;
+  if (!Array.isArray(input))
+    return { series, problems: [`series must be an array; received ${typeof input}`], fewTerms };
+  const columns: unknown[] =
+    input.length > 0 && input[0] && typeof input[0] === 'object' && 'statistics' in input[0]
+      ? rowsToColumns(input as Record<string, unknown>[])
+      : input;
   columns.forEach((entry, k) => {
     const s = readEntry(entry, k, minTerms, problems, fewTerms);
     if (s) series.push(s);
@@ -179,7 +226,15 @@ export interface StabilityPointView {
 
 /** Point i of `s`, or null when i is out of range. */
 export function pointOf(s: StabilitySeries, i: number): StabilityPointView | null {
-  const tau = s.tau[i], deviation = s.deviation[i];
+  const tau = s.tau[i],
+    deviation = s.deviation[i];
   if (tau === undefined || deviation === undefined) return null;
-  return { tau, deviation, low: s.low?.[i] ?? null, high: s.high?.[i] ?? null, n: s.n?.[i] ?? null, noise: s.noise?.[i] ?? null };
+  return {
+    tau,
+    deviation,
+    low: s.low?.[i] ?? null,
+    high: s.high?.[i] ?? null,
+    n: s.n?.[i] ?? null,
+    noise: s.noise?.[i] ?? null,
+  };
 }

@@ -5,15 +5,31 @@
  *
  * @module
  */
-import { shouldDecimate, type Polyline } from '../internal/decimate.js';
-import { markerPath, strokePolyline, type AxisStyle, type Frame, type MarkerShape, type Tick } from '../internal/canvas.js';
-import { linearScale, logTicks, type Scale } from '../internal/scale.js';
+
+import {
+  type AxisStyle,
+  type Frame,
+  type MarkerShape,
+  markerPath,
+  strokePolyline,
+  type Tick,
+} from '../internal/canvas.js';
+import { type Polyline, shouldDecimate } from '../internal/decimate.js';
 import { formatFraction } from '../internal/format.js';
+import { linearScale, logTicks, type Scale } from '../internal/scale.js';
 import type { StabilitySeries } from './stability-data.js';
 
 /** Marker shapes by series index; `plus` is drawn here (the shared helper has six shapes). */
 export type PlotShape = MarkerShape | 'plus';
-export const SHAPES: readonly PlotShape[] = ['circle', 'diamond', 'square', 'triangle-up', 'cross', 'triangle-down', 'plus'];
+export const SHAPES: readonly PlotShape[] = [
+  'circle',
+  'diamond',
+  'square',
+  'triangle-up',
+  'cross',
+  'triangle-down',
+  'plus',
+];
 
 /** Markers (and error bars) are drawn only while a series has at most one point per this many pixels. */
 export const MARKER_SPACING_PX = 6;
@@ -22,25 +38,40 @@ export const MARKER_SPACING_PX = 6;
 export function plotMarkerPath(shape: PlotShape, x: number, y: number, r: number): Path2D {
   if (shape !== 'plus') return markerPath(shape, x, y, r);
   const p = new Path2D();
-  p.moveTo(x - r, y); p.lineTo(x + r, y); p.moveTo(x, y - r); p.lineTo(x, y + r);
+  p.moveTo(x - r, y);
+  p.lineTo(x + r, y);
+  p.moveTo(x, y - r);
+  p.lineTo(x, y + r);
   return p;
 }
 
 /** Range of deviations (and interval bounds when shown) over a group of series; null if empty. */
 export function deviationExtent(series: readonly StabilitySeries[], withIntervals: boolean): [number, number] | null {
-  let d0 = Infinity, d1 = -Infinity;
+  let d0 = Infinity,
+    d1 = -Infinity;
   for (const s of series) {
-    const dev = s.deviation, lo = withIntervals ? s.low : null, hi = withIntervals ? s.high : null;
+    const dev = s.deviation,
+      lo = withIntervals ? s.low : null,
+      hi = withIntervals ? s.high : null;
     for (let i = 0; i < dev.length; i++) {
       const d = dev[i]!;
       if (d < d0) d0 = d;
       if (d > d1) d1 = d;
-      if (lo) { const v = lo[i]!; if (v > 0 && v < d0) d0 = v; }
-      if (hi) { const v = hi[i]!; if (v < Infinity && v > d1) d1 = v; }
+      if (lo) {
+        const v = lo[i]!;
+        if (v > 0 && v < d0) d0 = v;
+      }
+      if (hi) {
+        const v = hi[i]!;
+        if (v < Infinity && v > d1) d1 = v;
+      }
     }
   }
   if (!(d0 > 0) || !Number.isFinite(d1)) return null;
-  if (!(d1 > d0)) { d0 /= 3; d1 *= 3; }
+  if (!(d1 > d0)) {
+    d0 /= 3;
+    d1 *= 3;
+  }
   return [d0, d1];
 }
 
@@ -48,8 +79,18 @@ export function deviationExtent(series: readonly StabilitySeries[], withInterval
  * Draws a logarithmic y axis on the right edge of `frame`: tick marks outside the frame, labels
  * and a title rotated to read top-down. Its own scale, no grid (the left axis owns the grid).
  */
-export function drawRightAxis(ctx: CanvasRenderingContext2D, frame: Frame, sy: Scale, ticks: readonly Tick[], style: AxisStyle, title: string, canvasWidth: number): void {
-  const right = frame.left + frame.width, top = frame.top, bottom = frame.top + frame.height;
+export function drawRightAxis(
+  ctx: CanvasRenderingContext2D,
+  frame: Frame,
+  sy: Scale,
+  ticks: readonly Tick[],
+  style: AxisStyle,
+  title: string,
+  canvasWidth: number,
+): void {
+  const right = frame.left + frame.width,
+    top = frame.top,
+    bottom = frame.top + frame.height;
   ctx.save();
   ctx.strokeStyle = style.muted;
   ctx.lineWidth = 1;
@@ -57,7 +98,8 @@ export function drawRightAxis(ctx: CanvasRenderingContext2D, frame: Frame, sy: S
   for (const t of ticks) {
     const y = Math.round(sy.map(t.value)) + 0.5;
     if (y < top - 0.5 || y > bottom + 0.5) continue;
-    ctx.moveTo(right, y); ctx.lineTo(right + 4, y);
+    ctx.moveTo(right, y);
+    ctx.lineTo(right + 4, y);
   }
   ctx.stroke();
   ctx.fillStyle = style.muted;
@@ -81,15 +123,20 @@ export function drawRightAxis(ctx: CanvasRenderingContext2D, frame: Frame, sy: S
 /** Decade ticks of a log scale labelled in scientific notation (two end ticks if no decade fits). */
 export function decadeTicks(sy: Scale, extent: readonly [number, number]): Tick[] {
   const yt = logTicks(sy.domain[0], sy.domain[1]);
-  return (yt.length >= 2 ? yt : [extent[0], extent[1]]).map((v) => ({ value: v, label: formatFraction(v, yt.length >= 2 ? 1 : 3) }));
+  return (yt.length >= 2 ? yt : [extent[0], extent[1]]).map((v) => ({
+    value: v,
+    label: formatFraction(v, yt.length >= 2 ? 1 : 3),
+  }));
 }
 
 /** First index in [from, x.length) with x[index] ≥ value (x ascending). */
 function lowerBoundFrom(x: Float64Array, from: number, value: number): number {
-  let lo = from, hi = x.length;
+  let lo = from,
+    hi = x.length;
   while (lo < hi) {
     const mid = (lo + hi) >>> 1;
-    if (x[mid]! < value) lo = mid + 1; else hi = mid;
+    if (x[mid]! < value) lo = mid + 1;
+    else hi = mid;
   }
   return lo;
 }
@@ -101,7 +148,13 @@ function lowerBoundFrom(x: Float64Array, from: number, value: number): number {
  * comparisons plus O(columns · log n). Returns vertices in (log10 τ, deviation). Deviations are
  * finite here (the data adapter dropped the others). Below 4 points per column it copies.
  */
-export function decimateLogTau(tau: Float64Array, dev: Float64Array, lx0: number, lx1: number, columns: number): Polyline {
+export function decimateLogTau(
+  tau: Float64Array,
+  dev: Float64Array,
+  lx0: number,
+  lx1: number,
+  columns: number,
+): Polyline {
   const n = tau.length;
   const cols = Math.max(1, Math.floor(columns));
   if (!shouldDecimate(n, cols) || !(lx1 > lx0)) {
@@ -110,22 +163,36 @@ export function decimateLogTau(tau: Float64Array, dev: Float64Array, lx0: number
     return { x, y: dev, length: n };
   }
   const scale = cols / (lx1 - lx0);
-  const x = new Float64Array(4 * cols + 16), y = new Float64Array(4 * cols + 16);
+  const x = new Float64Array(4 * cols + 16),
+    y = new Float64Array(4 * cols + 16);
   let len = 0;
   const push = (k: number): void => {
     if (len === x.length) return; // cannot happen: at most four vertices per column
-    x[len] = Math.log10(tau[k]!); y[len] = dev[k]!; len += 1;
+    x[len] = Math.log10(tau[k]!);
+    y[len] = dev[k]!;
+    len += 1;
   };
   let i = 0;
   while (i < n) {
     const col = Math.floor((Math.log10(tau[i]!) - lx0) * scale);
     const j = Math.max(i + 1, lowerBoundFrom(tau, i + 1, 10 ** (lx0 + (col + 1) / scale)));
-    let lo = i, hi = i, yl = dev[i]!, yh = yl;
+    let lo = i,
+      hi = i,
+      yl = dev[i]!,
+      yh = yl;
     for (let k = i + 1; k < j; k++) {
       const v = dev[k]!;
-      if (v < yl) { yl = v; lo = k; } else if (v > yh) { yh = v; hi = k; }
+      if (v < yl) {
+        yl = v;
+        lo = k;
+      } else if (v > yh) {
+        yh = v;
+        hi = k;
+      }
     }
-    const a = Math.min(lo, hi), b = Math.max(lo, hi), last = j - 1;
+    const a = Math.min(lo, hi),
+      b = Math.max(lo, hi),
+      last = j - 1;
     push(i);
     if (a !== i) push(a);
     if (b !== a && b !== i) push(b);
@@ -148,12 +215,20 @@ export interface SeriesStyle {
  * Draws one series: the line (decimated per device-pixel column when dense), and, while sparse
  * enough to read, its error bars and open markers (open so a marker under another stays visible).
  */
-export function drawSeries(ctx: CanvasRenderingContext2D, s: StabilitySeries, sx: Scale, sy: Scale, frame: Frame, style: SeriesStyle): void {
+export function drawSeries(
+  ctx: CanvasRenderingContext2D,
+  s: StabilitySeries,
+  sx: Scale,
+  sy: Scale,
+  frame: Frame,
+  style: SeriesStyle,
+): void {
   const n = s.tau.length;
   if (n === 0) return;
   const ratio = Math.max(1, globalThis.devicePixelRatio || 1);
   const columns = Math.max(1, Math.round(frame.width * ratio));
-  const lx0 = Math.log10(sx.domain[0]), lx1 = Math.log10(sx.domain[1]);
+  const lx0 = Math.log10(sx.domain[0]),
+    lx1 = Math.log10(sx.domain[1]);
   const sxLog = linearScale(lx0, lx1, sx.range[0], sx.range[1]);
   ctx.strokeStyle = style.color;
   ctx.lineWidth = 1.5;
@@ -168,12 +243,18 @@ export function drawSeries(ctx: CanvasRenderingContext2D, s: StabilitySeries, sx
     ctx.lineWidth = 1;
     ctx.beginPath();
     for (let i = 0; i < n; i++) {
-      const lo = s.low[i]!, hi = s.high[i]!;
+      const lo = s.low[i]!,
+        hi = s.high[i]!;
       if (!(lo > 0) || !Number.isFinite(hi) || !(hi >= lo)) continue;
-      const x = sxLog.map(lt[i]!), y0 = sy.map(lo), y1 = sy.map(hi);
-      ctx.moveTo(x, y0); ctx.lineTo(x, y1);
-      ctx.moveTo(x - 3, y0); ctx.lineTo(x + 3, y0);
-      ctx.moveTo(x - 3, y1); ctx.lineTo(x + 3, y1);
+      const x = sxLog.map(lt[i]!),
+        y0 = sy.map(lo),
+        y1 = sy.map(hi);
+      ctx.moveTo(x, y0);
+      ctx.lineTo(x, y1);
+      ctx.moveTo(x - 3, y0);
+      ctx.lineTo(x + 3, y0);
+      ctx.moveTo(x - 3, y1);
+      ctx.lineTo(x + 3, y1);
     }
     ctx.stroke();
   }

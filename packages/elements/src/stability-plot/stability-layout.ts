@@ -7,8 +7,8 @@
  */
 import type { Frame } from '../internal/canvas.js';
 import { logScale, type Scale } from '../internal/scale.js';
-import { deviationExtent } from './stability-draw.js';
 import type { StabilitySeries } from './stability-data.js';
+import { deviationExtent } from './stability-draw.js';
 
 /**
  * Statistics whose deviation is a time deviation σ_x in seconds (W. J. Riley, NIST SP 1065
@@ -46,22 +46,43 @@ export function scaleOf(scales: StabilityScales, statistic: string): Scale | nul
  * Scales for the drawn (non-empty, not hidden) `series` in a box of `width` × `height` CSS px: τ
  * padded by 6 % of its decades, each deviation axis by 8 %; null when nothing can be drawn.
  */
-export function stabilityScales(series: readonly StabilitySeries[], withIntervals: boolean, width: number,
-  height: number): StabilityScales | null {
-  const frequencyExtent = deviationExtent(series.filter((s) => !isTimeStatistic(s.statistic)), withIntervals);
-  const timeExtent = deviationExtent(series.filter((s) => isTimeStatistic(s.statistic)), withIntervals);
+export function stabilityScales(
+  series: readonly StabilitySeries[],
+  withIntervals: boolean,
+  width: number,
+  height: number,
+): StabilityScales | null {
+  const frequencyExtent = deviationExtent(
+    series.filter((s) => !isTimeStatistic(s.statistic)),
+    withIntervals,
+  );
+  const timeExtent = deviationExtent(
+    series.filter((s) => isTimeStatistic(s.statistic)),
+    withIntervals,
+  );
   if (!frequencyExtent && !timeExtent) return null;
   const dual = frequencyExtent !== null && timeExtent !== null;
   // Left margin: rotated title (≈ 16 px) + gap + tick labels such as "1e−13" (≈ 40 px) + tick gap.
   const frame: Frame = {
-    left: 70, top: 8, width: Math.max(10, width - (dual ? 140 : 82)), height: Math.max(10, height - 60),
+    left: 70,
+    top: 8,
+    width: Math.max(10, width - (dual ? 140 : 82)),
+    height: Math.max(10, height - 60),
   };
-  let t0 = Infinity, t1 = -Infinity;
+  let t0 = Infinity,
+    t1 = -Infinity;
   for (const s of series) {
-    const first = s.tau[0], last = s.tau[s.tau.length - 1];
-    if (first !== undefined && last !== undefined) { t0 = Math.min(t0, first); t1 = Math.max(t1, last); }
+    const first = s.tau[0],
+      last = s.tau[s.tau.length - 1];
+    if (first !== undefined && last !== undefined) {
+      t0 = Math.min(t0, first);
+      t1 = Math.max(t1, last);
+    }
   }
-  if (!(t1 > t0)) { t0 /= 3; t1 *= 3; }
+  if (!(t1 > t0)) {
+    t0 /= 3;
+    t1 *= 3;
+  }
   const tauRange: [number, number] = [t0, t1];
   const padX = (Math.log10(t1) - Math.log10(t0)) * 0.06;
   const sx = logScale(t0 / 10 ** padX, t1 * 10 ** padX, frame.left, frame.left + frame.width);
@@ -70,6 +91,7 @@ export function stabilityScales(series: readonly StabilitySeries[], withInterval
     const pad = (Math.log10(e[1]) - Math.log10(e[0])) * 0.08;
     return logScale(e[0] / 10 ** pad, e[1] * 10 ** pad, frame.top + frame.height, frame.top);
   };
-  const syFrequency = yScale(frequencyExtent), syTime = yScale(timeExtent);
+  const syFrequency = yScale(frequencyExtent),
+    syTime = yScale(timeExtent);
   return { sx, syFrequency, syTime, frame, frequencyExtent, timeExtent, tauRange };
 }

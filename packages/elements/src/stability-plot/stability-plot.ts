@@ -1,19 +1,23 @@
-import { html, nothing, type PropertyValues, type TemplateResult, type PropertyDeclarations } from 'lit';
 import type { StabilityRow } from '@tauline/sdk/stability';
-import { PlotElement } from '../internal/plot-element.js';
-import { baseStyles, plotStyles } from '../internal/styles.js';
-import { stabilityPlotStyles } from './stability-plot.styles.js';
-import { DEFAULT_MIN_TERMS, normaliseStability, pointOf, type StabilityColumns, type StabilitySet } from './stability-data.js';
-import {
-  SHAPES, decadeTicks, drawRightAxis, drawSeries, type PlotShape,
-} from './stability-draw.js';
-import { renderStabilityTable, renderTableUnits, rowStarts, rowWindow } from './stability-table.js';
-import { drawAxes, sizeCanvas, type AxisStyle } from '../internal/canvas.js';
-import { logTicks } from '../internal/scale.js';
-import { isTimeStatistic, scaleOf, stabilityScales, type StabilityScales } from './stability-layout.js';
-import { formatDuration, formatFraction, formatNumber, formatOffsetAuto } from '../internal/format.js';
+import { html, nothing, type PropertyDeclarations, type PropertyValues, type TemplateResult } from 'lit';
+import { type AxisStyle, drawAxes, sizeCanvas } from '../internal/canvas.js';
 import { lowerBound } from '../internal/decimate.js';
+import { formatDuration, formatFraction, formatNumber, formatOffsetAuto } from '../internal/format.js';
+import { PlotElement } from '../internal/plot-element.js';
+import { logTicks } from '../internal/scale.js';
+import { baseStyles, plotStyles } from '../internal/styles.js';
 import { warnOnce } from '../internal/warn.js';
+import {
+  DEFAULT_MIN_TERMS,
+  normaliseStability,
+  pointOf,
+  type StabilityColumns,
+  type StabilitySet,
+} from './stability-data.js';
+import { decadeTicks, drawRightAxis, drawSeries, type PlotShape, SHAPES } from './stability-draw.js';
+import { isTimeStatistic, type StabilityScales, scaleOf, stabilityScales } from './stability-layout.js';
+import { stabilityPlotStyles } from './stability-plot.styles.js';
+import { renderStabilityTable, renderTableUnits, rowStarts, rowWindow } from './stability-table.js';
 
 export type { StabilityColumns };
 
@@ -21,12 +25,28 @@ export type { StabilityColumns };
 const FREQUENCY_AXIS_TITLE = 'Deviation (dimensionless)';
 const TIME_AXIS_TITLE = 'Time deviation (s)';
 const COLOR_EXPR = {
-  text: 'var(--text)', muted: 'var(--muted)', grid: 'var(--grid)', surface: 'var(--surface)', accent: 'var(--accent)',
-  s1: 'var(--series-1)', s2: 'var(--series-2)', s3: 'var(--series-3)', s4: 'var(--series-4)', s5: 'var(--series-5)', s6: 'var(--series-6)',
+  text: 'var(--text)',
+  muted: 'var(--muted)',
+  grid: 'var(--grid)',
+  surface: 'var(--surface)',
+  accent: 'var(--accent)',
+  s1: 'var(--series-1)',
+  s2: 'var(--series-2)',
+  s3: 'var(--series-3)',
+  s4: 'var(--series-4)',
+  s5: 'var(--series-5)',
+  s6: 'var(--series-6)',
 } as const;
 
 const LABELS: Record<string, string> = {
-  adev: 'ADEV', oadev: 'Overlapping ADEV', mdev: 'MDEV', tdev: 'TDEV', ttotdev: 'TTOTDEV', hdev: 'HDEV', ohdev: 'Overlapping HDEV', totdev: 'TOTDEV',
+  adev: 'ADEV',
+  oadev: 'Overlapping ADEV',
+  mdev: 'MDEV',
+  tdev: 'TDEV',
+  ttotdev: 'TTOTDEV',
+  hdev: 'HDEV',
+  ohdev: 'Overlapping HDEV',
+  totdev: 'TOTDEV',
 };
 
 function statLabel(name: string): string {
@@ -135,7 +155,12 @@ export class TaulineStabilityPlot extends PlotElement {
     super.willUpdate(changed);
     if (changed.has('series') || changed.has('minTerms')) {
       const minTerms = Number.isFinite(this.minTerms) && this.minTerms >= 1 ? this.minTerms : DEFAULT_MIN_TERMS;
-      if (minTerms !== this.minTerms) warnOnce(this, 'invalid-min-terms', `min-terms must be a number ≥ 1; received ${String(this.minTerms)}; using ${DEFAULT_MIN_TERMS}`);
+      if (minTerms !== this.minTerms)
+        warnOnce(
+          this,
+          'invalid-min-terms',
+          `min-terms must be a number ≥ 1; received ${String(this.minTerms)}; using ${DEFAULT_MIN_TERMS}`,
+        );
       this._data = normaliseStability(this.series, minTerms);
       this._version += 1;
       this._hover = null;
@@ -148,7 +173,9 @@ export class TaulineStabilityPlot extends PlotElement {
 
   /** Series drawn: non-empty and not hidden by the user, with their index in `_data.series` (colour, shape). */
   private get _shown(): Array<{ k: number; s: StabilitySet['series'][number] }> {
-    return this._data.series.map((s, k) => ({ k, s })).filter((x) => x.s.tau.length > 0 && !this._hidden.has(x.s.statistic));
+    return this._data.series
+      .map((s, k) => ({ k, s }))
+      .filter((x) => x.s.tau.length > 0 && !this._hidden.has(x.s.statistic));
   }
 
   private _tableRows(): number {
@@ -172,27 +199,42 @@ export class TaulineStabilityPlot extends PlotElement {
   /** Accessible name of the plot, computed from the data (cached per data version and hidden set). */
   get plotLabel(): string {
     const key = `${this._version}|${[...this._hidden].join(',')}`;
-    if (key !== this._labelKey) { this._label = this._computeLabel(); this._labelKey = key; }
+    if (key !== this._labelKey) {
+      this._label = this._computeLabel();
+      this._labelKey = key;
+    }
     return this._label;
   }
 
   private _computeLabel(): string {
     const s = this._shown.map((x) => x.s);
     if (s.length === 0) return 'Stability plot: no data';
-    let t0 = Infinity, t1 = -Infinity;
+    let t0 = Infinity,
+      t1 = -Infinity;
     for (const x of s) {
-      const first = x.tau[0], last = x.tau[x.tau.length - 1];
-      if (first !== undefined && last !== undefined) { t0 = Math.min(t0, first); t1 = Math.max(t1, last); }
+      const first = x.tau[0],
+        last = x.tau[x.tau.length - 1];
+      if (first !== undefined && last !== undefined) {
+        t0 = Math.min(t0, first);
+        t1 = Math.max(t1, last);
+      }
     }
     const part = (group: typeof s, what: string, unit: string): string => {
-      let d0 = Infinity, d1 = -Infinity;
-      for (const x of group) for (const d of x.deviation) { if (d < d0) d0 = d; if (d > d1) d1 = d; }
+      let d0 = Infinity,
+        d1 = -Infinity;
+      for (const x of group)
+        for (const d of x.deviation) {
+          if (d < d0) d0 = d;
+          if (d > d1) d1 = d;
+        }
       return `${group.map((x) => statLabel(x.statistic)).join(', ')} (${what}) from ${formatFraction(d0, 3)}${unit} to ${formatFraction(d1, 3)}${unit}`;
     };
-    const freq = s.filter((x) => !isTimeStatistic(x.statistic)), time = s.filter((x) => isTimeStatistic(x.statistic));
+    const freq = s.filter((x) => !isTimeStatistic(x.statistic)),
+      time = s.filter((x) => isTimeStatistic(x.statistic));
     const parts: string[] = [];
     if (freq.length > 0) parts.push(part(freq, 'fractional frequency, dimensionless', ''));
-    if (time.length > 0) parts.push(part(time, `time deviation in seconds${freq.length > 0 ? ', right axis' : ''}`, ' s'));
+    if (time.length > 0)
+      parts.push(part(time, `time deviation in seconds${freq.length > 0 ? ', right axis' : ''}`, ' s'));
     return `Stability plot, log–log, τ from ${formatDuration(t0)} to ${formatDuration(t1)}: ${parts.join('; ')}`;
   }
 
@@ -201,11 +243,12 @@ export class TaulineStabilityPlot extends PlotElement {
     const hardError = !drawable && this._data.problems.length > 0;
     return html`<div part="base">
       <h3 class="title">${this.label}</h3>
-      ${hardError
-        ? html`<div class="state error" role="alert">Cannot plot the stability data: ${this._data.problems[0]}</div>`
-        : !drawable
-          ? html`<div class="state">${this._data.fewTerms.length > 0 ? 'Every τ has too few terms to show.' : 'No stability data yet.'}</div>`
-          : html`${this._renderLegend()}
+      ${
+        hardError
+          ? html`<div class="state error" role="alert">Cannot plot the stability data: ${this._data.problems[0]}</div>`
+          : !drawable
+            ? html`<div class="state">${this._data.fewTerms.length > 0 ? 'Every τ has too few terms to show.' : 'No stability data yet.'}</div>`
+            : html`${this._renderLegend()}
             <div class="plot-box" part="plot" tabindex="0" role="group" aria-roledescription="interactive plot"
               aria-label="Stability plot: ←/→ step through points, ↑/↓ switch statistic"
               @pointermove=${this._onPointerMove} @pointerleave=${this._onPointerLeave} @keydown=${this._onKeyDown}>
@@ -215,8 +258,13 @@ export class TaulineStabilityPlot extends PlotElement {
             </div>
             <div class="sr-only" aria-live="polite">${this._announcement}</div>
             ${this.noTable ? nothing : renderTableUnits(this.noIntervals)}
-            ${this.noTable ? nothing : html`<div class="table-wrap" tabindex="0" role="region" aria-label="Stability data table"
-              @scroll=${this._onTableScroll}>${this._renderTable()}</div>`}`}
+            ${
+              this.noTable
+                ? nothing
+                : html`<div class="table-wrap" tabindex="0" role="region" aria-label="Stability data table"
+              @scroll=${this._onTableScroll}>${this._renderTable()}</div>`
+            }`
+      }
       ${this._renderFewTermsNote()}
       <span class="probe" aria-hidden="true"></span>
     </div>`;
@@ -225,15 +273,22 @@ export class TaulineStabilityPlot extends PlotElement {
   private _renderTable(): TemplateResult {
     const shown = this._shown.map((x) => x.s);
     return renderStabilityTable({
-      series: shown, starts: rowStarts(shown), window: this._tableWindow, noIntervals: this.noIntervals,
-      code: statCode, isTime: isTimeStatistic,
+      series: shown,
+      starts: rowStarts(shown),
+      window: this._tableWindow,
+      noIntervals: this.noIntervals,
+      code: statCode,
+      isTime: isTimeStatistic,
     });
   }
 
   private _renderFewTermsNote(): TemplateResult | typeof nothing {
     const few = this._data.fewTerms;
     if (few.length === 0) return nothing;
-    const list = few.map((f) => `${statCode(f.statistic)} at τ = ${f.taus.map((t) => formatDuration(t)).join(', ')}${f.count > f.taus.length ? ', …' : ''}`);
+    const list = few.map(
+      (f) =>
+        `${statCode(f.statistic)} at τ = ${f.taus.map((t) => formatDuration(t)).join(', ')}${f.count > f.taus.length ? ', …' : ''}`,
+    );
     return html`<p class="note" part="note">Not shown: ${list.join('; ')} (fewer than ${this.minTerms >= 1 ? this.minTerms : DEFAULT_MIN_TERMS} terms; too few for a confidence interval, NIST SP 1065 §5.3). Set <code>min-terms="1"</code> to show them.</p>`;
   }
 
@@ -254,7 +309,8 @@ export class TaulineStabilityPlot extends PlotElement {
 
   private _toggle(statistic: string): void {
     const next = new Set(this._hidden);
-    if (next.has(statistic)) next.delete(statistic); else next.add(statistic);
+    if (next.has(statistic)) next.delete(statistic);
+    else next.add(statistic);
     this._hidden = next;
     this._hover = null;
   }
@@ -262,9 +318,12 @@ export class TaulineStabilityPlot extends PlotElement {
   private _svgMarker(shape: PlotShape, color: string): TemplateResult {
     const r = 3.6;
     const d = new Map<PlotShape, string>([
-      ['circle', ''], ['square', `M${-r * 0.8} ${-r * 0.8}h${r * 1.6}v${r * 1.6}h${-r * 1.6}z`],
-      ['diamond', `M0 ${-r}L${r} 0L0 ${r}L${-r} 0z`], ['triangle-up', `M0 ${-r}L${r} ${r * 0.8}L${-r} ${r * 0.8}z`],
-      ['triangle-down', `M0 ${r}L${r} ${-r * 0.8}L${-r} ${-r * 0.8}z`], ['cross', `M${-r} ${-r}L${r} ${r}M${r} ${-r}L${-r} ${r}`],
+      ['circle', ''],
+      ['square', `M${-r * 0.8} ${-r * 0.8}h${r * 1.6}v${r * 1.6}h${-r * 1.6}z`],
+      ['diamond', `M0 ${-r}L${r} 0L0 ${r}L${-r} 0z`],
+      ['triangle-up', `M0 ${-r}L${r} ${r * 0.8}L${-r} ${r * 0.8}z`],
+      ['triangle-down', `M0 ${r}L${r} ${-r * 0.8}L${-r} ${-r * 0.8}z`],
+      ['cross', `M${-r} ${-r}L${r} ${r}M${r} ${-r}L${-r} ${r}`],
       ['plus', `M${-r} 0H${r}M0 ${-r}V${r}`],
     ]);
     return shape === 'circle'
@@ -274,15 +333,18 @@ export class TaulineStabilityPlot extends PlotElement {
 
   /** Pixel position of point i of series k on the plot's scales (its own y axis); null before drawing. */
   private _pointPosition(k: number, i: number): { x: number; y: number } | null {
-    const sc = this._scales, s = this._data.series[k];
+    const sc = this._scales,
+      s = this._data.series[k];
     if (!sc || !s || this._hidden.has(s.statistic)) return null;
-    const sy = scaleOf(sc, s.statistic), p = pointOf(s, i);
+    const sy = scaleOf(sc, s.statistic),
+      p = pointOf(s, i);
     return sy && p ? { x: sc.sx.map(p.tau), y: sy.map(p.deviation) } : null;
   }
 
   /** Plain-text read-out of a point, with the unit of its statistic (for the live region). */
   private _readout(k: number, i: number): string {
-    const s = this._data.series[k], p = s ? pointOf(s, i) : null;
+    const s = this._data.series[k],
+      p = s ? pointOf(s, i) : null;
     if (!s || !p) return '';
     const unit = isTimeStatistic(s.statistic) ? ' s' : ' (dimensionless)';
     return `${statLabel(s.statistic)} at τ = ${formatNumber(p.tau, 5)} s: ${formatFraction(p.deviation, 4)}${unit}`;
@@ -291,7 +353,8 @@ export class TaulineStabilityPlot extends PlotElement {
   private _renderTooltip(): TemplateResult | typeof nothing {
     const h = this._hover;
     const pos = h ? this._pointPosition(h.s, h.i) : null;
-    const s = h ? this._data.series[h.s] : undefined, p = h && s ? pointOf(s, h.i) : null;
+    const s = h ? this._data.series[h.s] : undefined,
+      p = h && s ? pointOf(s, h.i) : null;
     if (!pos || !s || !p) return nothing;
     const boxW = this._size.width;
     const left = pos.x > boxW / 2 ? Math.max(0, pos.x - 200) : pos.x + 14;
@@ -316,8 +379,13 @@ export class TaulineStabilityPlot extends PlotElement {
 
   private _draw(): void {
     const canvas = this._dataCanvas;
-    const w = this._size.width, h = this._size.height;
-    if (!canvas || w < 40 || h < 40) { this._scales = null; this._drawKey = ''; return; }
+    const w = this._size.width,
+      h = this._size.height;
+    if (!canvas || w < 40 || h < 40) {
+      this._scales = null;
+      this._drawKey = '';
+      return;
+    }
     const colors = this._resolveColors(COLOR_EXPR);
     const key = `${this._version}|${w}|${h}|${colors.text}|${colors.s1}|${this.noIntervals}|${[...this._hidden].join(',')}|${globalThis.devicePixelRatio}`;
     if (key === this._drawKey && this._scales) return;
@@ -326,19 +394,40 @@ export class TaulineStabilityPlot extends PlotElement {
     if (!ctx) return;
     const shown = this._shown;
     const withIntervals = !this.noIntervals;
-    const scales = stabilityScales(shown.map((x) => x.s), withIntervals, w, h);
+    const scales = stabilityScales(
+      shown.map((x) => x.s),
+      withIntervals,
+      w,
+      h,
+    );
     this._scales = scales;
     if (!scales) return;
-    const { sx, syFrequency, syTime, frame, frequencyExtent, timeExtent, tauRange: [t0, t1] } = scales;
+    const {
+      sx,
+      syFrequency,
+      syTime,
+      frame,
+      frequencyExtent,
+      timeExtent,
+      tauRange: [t0, t1],
+    } = scales;
     const xt = logTicks(sx.domain[0], sx.domain[1]);
     const xTicks = (xt.length >= 2 ? xt : [t0, t1]).map((v) => ({ value: v, label: `${formatNumber(v, 3)} s` }));
     const style: AxisStyle = { text: colors.text, muted: colors.muted, grid: colors.grid, font: colors.font };
     // The left axis is σ_y when there is any, else the time deviation; a second quantity goes right.
-    const left = syFrequency && frequencyExtent ? { scale: syFrequency, extent: frequencyExtent, title: FREQUENCY_AXIS_TITLE }
-      : syTime && timeExtent ? { scale: syTime, extent: timeExtent, title: TIME_AXIS_TITLE } : null;
+    const left =
+      syFrequency && frequencyExtent
+        ? { scale: syFrequency, extent: frequencyExtent, title: FREQUENCY_AXIS_TITLE }
+        : syTime && timeExtent
+          ? { scale: syTime, extent: timeExtent, title: TIME_AXIS_TITLE }
+          : null;
     if (!left) return;
-    drawAxes(ctx, frame, sx, left.scale, xTicks, decadeTicks(left.scale, left.extent), style, { x: 'Averaging time τ', y: left.title });
-    if (syFrequency && syTime && timeExtent) drawRightAxis(ctx, frame, syTime, decadeTicks(syTime, timeExtent), style, TIME_AXIS_TITLE, w);
+    drawAxes(ctx, frame, sx, left.scale, xTicks, decadeTicks(left.scale, left.extent), style, {
+      x: 'Averaging time τ',
+      y: left.title,
+    });
+    if (syFrequency && syTime && timeExtent)
+      drawRightAxis(ctx, frame, syTime, decadeTicks(syTime, timeExtent), style, TIME_AXIS_TITLE, w);
     ctx.save();
     ctx.beginPath();
     ctx.rect(frame.left, frame.top, frame.width, frame.height);
@@ -348,8 +437,11 @@ export class TaulineStabilityPlot extends PlotElement {
       const sy = scaleOf(scales, s.statistic);
       if (!sy) continue;
       drawSeries(ctx, s, sx, sy, frame, {
-        color: palette[k % palette.length] ?? colors.s1, shape: SHAPES[k % SHAPES.length] ?? 'circle', dashed: isTimeStatistic(s.statistic),
-        surface: colors.surface, intervals: withIntervals,
+        color: palette[k % palette.length] ?? colors.s1,
+        shape: SHAPES[k % SHAPES.length] ?? 'circle',
+        dashed: isTimeStatistic(s.statistic),
+        surface: colors.surface,
+        intervals: withIntervals,
       });
     }
     ctx.restore();
@@ -357,7 +449,8 @@ export class TaulineStabilityPlot extends PlotElement {
 
   private _drawOverlay(): void {
     const canvas = this._overlayCanvas;
-    const w = this._size.width, h = this._size.height;
+    const w = this._size.width,
+      h = this._size.height;
     if (!canvas || w < 40 || h < 40) return;
     const ctx = sizeCanvas(canvas, w, h);
     const hv = this._hover;
@@ -377,16 +470,22 @@ export class TaulineStabilityPlot extends PlotElement {
     if (!sc) return null;
     let best: { s: number; i: number } | null = null;
     let bestD = 24 * 24;
-    const t0 = sc.sx.invert(px - 24), t1 = sc.sx.invert(px + 24);
+    const t0 = sc.sx.invert(px - 24),
+      t1 = sc.sx.invert(px + 24);
     for (const { k, s } of this._shown) {
       const sy = isTimeStatistic(s.statistic) ? sc.syTime : sc.syFrequency;
       if (!sy) continue;
-      const a = lowerBound(s.tau, t0), b = lowerBound(s.tau, t1);
+      const a = lowerBound(s.tau, t0),
+        b = lowerBound(s.tau, t1);
       const stride = Math.max(1, Math.ceil((b - a) / HOVER_CHECKS));
       for (let i = a; i < b; i += stride) {
-        const dx = sc.sx.map(s.tau[i]!) - px, dy = sy.map(s.deviation[i]!) - py;
+        const dx = sc.sx.map(s.tau[i]!) - px,
+          dy = sy.map(s.deviation[i]!) - py;
         const d = dx * dx + dy * dy;
-        if (d < bestD) { bestD = d; best = { s: k, i }; }
+        if (d < bestD) {
+          bestD = d;
+          best = { s: k, i };
+        }
       }
     }
     return best;
@@ -417,23 +516,31 @@ export class TaulineStabilityPlot extends PlotElement {
     const cur = this._hover;
     let next: { s: number; i: number } | null = cur;
     switch (event.key) {
-      case 'ArrowRight': case 'ArrowLeft': {
+      case 'ArrowRight':
+      case 'ArrowLeft': {
         const dir = event.key === 'ArrowRight' ? 1 : -1;
         const first = drawn[0];
-        if (!cur) { if (first) next = { s: first.k, i: dir > 0 ? 0 : first.n - 1 }; break; }
+        if (!cur) {
+          if (first) next = { s: first.k, i: dir > 0 ? 0 : first.n - 1 };
+          break;
+        }
         const n = this._data.series[cur.s]?.tau.length ?? 0;
         next = { s: cur.s, i: Math.min(n - 1, Math.max(0, cur.i + dir)) };
         break;
       }
-      case 'ArrowDown': case 'ArrowUp': {
+      case 'ArrowDown':
+      case 'ArrowUp': {
         const dir = event.key === 'ArrowDown' ? 1 : -1;
         const at = cur ? drawn.findIndex((x) => x.k === cur.s) : -1;
         const target = drawn[Math.min(drawn.length - 1, Math.max(0, at < 0 ? 0 : at + dir))];
         if (target) next = { s: target.k, i: Math.min(target.n - 1, cur?.i ?? 0) };
         break;
       }
-      case 'Escape': next = null; break;
-      default: return;
+      case 'Escape':
+        next = null;
+        break;
+      default:
+        return;
     }
     event.preventDefault();
     this._hover = next;

@@ -20,7 +20,10 @@ export const VISIBLE_ROWS = 11;
 export function rowStarts(series: readonly StabilitySeries[]): Int32Array {
   const starts = new Int32Array(series.length + 1);
   let total = 0;
-  for (const [j, s] of series.entries()) { total += s.tau.length; starts[j + 1] = total; }
+  for (const [j, s] of series.entries()) {
+    total += s.tau.length;
+    starts[j + 1] = total;
+  }
   return starts;
 }
 
@@ -40,7 +43,9 @@ export interface TableView {
 }
 
 function spacer(height: number): TemplateResult | typeof nothing {
-  return height > 0 ? html`<tr class="spacer" aria-hidden="true"><td colspan="8" style="height:${height}px"></td></tr>` : nothing;
+  return height > 0
+    ? html`<tr class="spacer" aria-hidden="true"><td colspan="8" style="height:${height}px"></td></tr>`
+    : nothing;
 }
 
 /**
@@ -59,7 +64,8 @@ export function renderStabilityTable(v: TableView): TemplateResult {
   let j = 0;
   for (let r = first; r < last; r++) {
     while (r >= (v.starts[j + 1] ?? Infinity)) j++;
-    const s = v.series[j], p = s ? pointOf(s, r - (v.starts[j] ?? 0)) : null;
+    const s = v.series[j],
+      p = s ? pointOf(s, r - (v.starts[j] ?? 0)) : null;
     if (!s || !p) continue;
     rows.push(html`<tr part="row" aria-rowindex=${r + 2}>
       <th scope="row">${v.code(s.statistic)}</th>

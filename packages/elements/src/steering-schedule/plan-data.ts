@@ -8,8 +8,9 @@
  *
  * @module
  */
-import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant, type TimeScales } from '@tauline/sdk/time';
+
 import type { SteeringCommand, SteeringMetrics } from '@tauline/sdk/steering';
+import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant, type TimeScales } from '@tauline/sdk/time';
 import { describeFailure, guardPlan } from './plan-guard.js';
 
 /** A steering command as the element uses it (times in seconds since the scenario epoch). */
@@ -95,8 +96,11 @@ export function elapsed(clock: PlanClock, text: string, path: string): number {
  * Elapsed SI seconds from the UTC stamp `epochText` to `text` on `timeScales` (default: the
  * SDK's bundled table); NaN for a stamp the SDK refuses (malformed, or outside the table).
  */
-export function elapsedSecondsBetween(epochText: string, text: string,
-  timeScales: TimeScales = bundledTimeScales()): number {
+export function elapsedSecondsBetween(
+  epochText: string,
+  text: string,
+  timeScales: TimeScales = bundledTimeScales(),
+): number {
   try {
     return timeScales.parseIso(text, 'UTC').secondsSince(timeScales.parseIso(epochText, 'UTC'));
   } catch {
@@ -120,13 +124,18 @@ export function chartTimeToUtcMs(clock: PlanClock, t: number): number {
 }
 
 function readCommands(clock: PlanClock, commands: readonly SteeringCommand[]): SteeringCommandView[] {
-  const out = commands.map((c, index): SteeringCommandView => ({
-    index, kind: c.kind,
-    executeAt: elapsed(clock, c.executeAt, `plan.commands[${index}].executeAt`),
-    uplinkAt: elapsed(clock, c.uplinkAt, `plan.commands[${index}].uplinkAt`),
-    step: (c.kind === 'phase' ? c.phaseStepSeconds : c.fractionalFrequencyStep) ?? Number.NaN,
-    actuatorSteps: c.actuatorSteps, reason: c.reason, source: c,
-  }));
+  const out = commands.map(
+    (c, index): SteeringCommandView => ({
+      index,
+      kind: c.kind,
+      executeAt: elapsed(clock, c.executeAt, `plan.commands[${index}].executeAt`),
+      uplinkAt: elapsed(clock, c.uplinkAt, `plan.commands[${index}].uplinkAt`),
+      step: (c.kind === 'phase' ? c.phaseStepSeconds : c.fractionalFrequencyStep) ?? Number.NaN,
+      actuatorSteps: c.actuatorSteps,
+      reason: c.reason,
+      source: c,
+    }),
+  );
   return out.sort((a, b) => a.executeAt - b.executeAt);
 }
 
@@ -147,8 +156,11 @@ function checkTime(t: Float64Array): string | null {
  * phase tolerance, the contact windows and the manoeuvres; `plan.predicted.t` is in seconds since
  * the epoch, ascending.
  */
-export function readPlan(plan: unknown, scenario: unknown,
-  timeScales: TimeScales = bundledTimeScales()): PlanReadResult {
+export function readPlan(
+  plan: unknown,
+  scenario: unknown,
+  timeScales: TimeScales = bundledTimeScales(),
+): PlanReadResult {
   const guarded = guardPlan(plan, scenario);
   if (!guarded.ok) return { ok: false, error: describeFailure(guarded.failure) };
   const { plan: p, scenario: s, columns } = guarded.value;
@@ -159,9 +171,13 @@ export function readPlan(plan: unknown, scenario: unknown,
     try {
       epoch = timeScales.parseIso(s.epoch, 'UTC');
     } catch (error) {
-      return { ok: false, error: 'scenario.epoch must be an ISO 8601 UTC time the time scales can read; ' +
-        `received ${JSON.stringify(s.epoch)} ` +
-        `(${error instanceof Error ? error.message : String(error)})` };
+      return {
+        ok: false,
+        error:
+          'scenario.epoch must be an ISO 8601 UTC time the time scales can read; ' +
+          `received ${JSON.stringify(s.epoch)} ` +
+          `(${error instanceof Error ? error.message : String(error)})`,
+      };
     }
     const clock: PlanClock = { epoch, timeScales };
     const tol = s.tolerance.phaseSeconds;
@@ -175,15 +191,19 @@ export function readPlan(plan: unknown, scenario: unknown,
     }));
     const maneuvers = (s.maneuvers ?? []).map((m, k) => ({
       at: elapsed(clock, m.at, `scenario.maneuvers[${k}].at`),
-      semiMajorAxisBefore: m.semiMajorAxisBefore, semiMajorAxisAfter: m.semiMajorAxisAfter,
+      semiMajorAxisBefore: m.semiMajorAxisBefore,
+      semiMajorAxisAfter: m.semiMajorAxisAfter,
     }));
     const view: PlanView = {
-      ...clock, epochMs: chartTimeToUtcMs(clock, 0),
-      feasible: p.feasible, reason: p.reason ?? null,
+      ...clock,
+      epochMs: chartTimeToUtcMs(clock, 0),
+      feasible: p.feasible,
+      reason: p.reason ?? null,
       ...columns,
       commands: readCommands(clock, guarded.value.commands),
       tolerance: Number.isFinite(tol) && tol > 0 ? tol : null,
-      contacts, maneuvers,
+      contacts,
+      maneuvers,
       metrics: p.metrics,
       caution: p.caution,
       invalid,
@@ -198,12 +218,20 @@ export function readPlan(plan: unknown, scenario: unknown,
 /** One line per column holding non-finite values: count and first position. */
 function nonFiniteColumns(c: Pick<PlanView, 'steered' | 'steeredSigma' | 'unsteered' | 'unsteeredSigma'>): string[] {
   const out: string[] = [];
-  for (const [name, arr] of [['steered.phaseSeconds', c.steered], ['steered.sigmaSeconds', c.steeredSigma],
-    ['unsteered.phaseSeconds', c.unsteered], ['unsteered.sigmaSeconds', c.unsteeredSigma]] as const) {
-    let count = 0, first = -1;
+  for (const [name, arr] of [
+    ['steered.phaseSeconds', c.steered],
+    ['steered.sigmaSeconds', c.steeredSigma],
+    ['unsteered.phaseSeconds', c.unsteered],
+    ['unsteered.sigmaSeconds', c.unsteeredSigma],
+  ] as const) {
+    let count = 0,
+      first = -1;
     for (let i = 0; i < arr.length; i++) {
       const v = arr[i]!;
-      if (v - v !== 0) { if (count === 0) first = i; count += 1; }
+      if (v - v !== 0) {
+        if (count === 0) first = i;
+        count += 1;
+      }
     }
     if (count === 0) continue;
     const values = `${count} non-finite value${count === 1 ? '' : 's'}`;
@@ -215,14 +243,20 @@ function nonFiniteColumns(c: Pick<PlanView, 'steered' | 'steeredSigma' | 'unstee
 /** Linear interpolation of y at x (x ascending); NaN outside the data. */
 export function interpolate(x: Float64Array, y: Float64Array, at: number): number {
   const n = x.length;
-  const first = x[0], last = x[n - 1];
+  const first = x[0],
+    last = x[n - 1];
   if (first === undefined || last === undefined || at < first || at > last) return Number.NaN;
-  let lo = 0, hi = n - 1;
+  let lo = 0,
+    hi = n - 1;
   while (hi - lo > 1) {
     const mid = (lo + hi) >>> 1;
-    if (x[mid]! <= at) lo = mid; else hi = mid;
+    if (x[mid]! <= at) lo = mid;
+    else hi = mid;
   }
-  const x0 = x[lo]!, x1 = x[hi]!, y0 = y[lo]!, y1 = y[hi]!;
+  const x0 = x[lo]!,
+    x1 = x[hi]!,
+    y0 = y[lo]!,
+    y1 = y[hi]!;
   if (x1 === x0) return y0;
   return y0 + ((y1 - y0) * (at - x0)) / (x1 - x0);
 }

@@ -23,11 +23,15 @@ export interface PredictedColumns {
  * What `plan` accepts: the SDK's {@link SteeringPlan}, whose prediction columns may also be
  * `Float64Array`s (a 10^6-point prediction is then drawn without a copy).
  */
-export type SteeringPlanInput = SteeringPlan | (Omit<SteeringPlan, 'predicted'> & {
-  readonly predicted: {
-    readonly t: NumberColumn; readonly steered: PredictedColumns; readonly unsteered: PredictedColumns;
-  };
-});
+export type SteeringPlanInput =
+  | SteeringPlan
+  | (Omit<SteeringPlan, 'predicted'> & {
+      readonly predicted: {
+        readonly t: NumberColumn;
+        readonly steered: PredictedColumns;
+        readonly unsteered: PredictedColumns;
+      };
+    });
 
 /** The first field that breaks the contract. */
 export interface ContractFailure {
@@ -96,14 +100,14 @@ function column(v: unknown, path: string, n?: number): Float64Array {
 
 function command(v: unknown, path: string): SteeringCommand {
   const c = object(v, path, 'a SteeringCommand object');
-  string(c['uplinkAt'], `${path}.uplinkAt`);
-  string(c['executeAt'], `${path}.executeAt`);
-  const kind = c['kind'];
+  string(c.uplinkAt, `${path}.uplinkAt`);
+  string(c.executeAt, `${path}.executeAt`);
+  const kind = c.kind;
   if (kind !== 'frequency' && kind !== 'phase') fail(`${path}.kind`, kind, '"frequency" or "phase"');
-  if (kind === 'frequency') number(c['fractionalFrequencyStep'], `${path}.fractionalFrequencyStep`, 'dimensionless');
-  else number(c['phaseStepSeconds'], `${path}.phaseStepSeconds`, 's');
-  number(c['actuatorSteps'], `${path}.actuatorSteps`, 'actuator steps');
-  string(c['reason'], `${path}.reason`);
+  if (kind === 'frequency') number(c.fractionalFrequencyStep, `${path}.fractionalFrequencyStep`, 'dimensionless');
+  else number(c.phaseStepSeconds, `${path}.phaseStepSeconds`, 's');
+  number(c.actuatorSteps, `${path}.actuatorSteps`, 'actuator steps');
+  string(c.reason, `${path}.reason`);
   return c as unknown as SteeringCommand;
 }
 
@@ -125,45 +129,50 @@ export interface GuardedSteering {
 }
 
 /** Checks `plan` (a `planSteering()` result) and `scenario` (its input) field by field, up to the first wrong one. */
-export function guardPlan(plan: unknown, scenario: unknown):
-  { ok: true; value: GuardedSteering } | { ok: false; failure: ContractFailure } {
+export function guardPlan(
+  plan: unknown,
+  scenario: unknown,
+): { ok: true; value: GuardedSteering } | { ok: false; failure: ContractFailure } {
   try {
     const p = object(plan, 'plan', 'the SteeringPlan returned by planSteering()');
-    if (typeof p['feasible'] !== 'boolean') fail('plan.feasible', p['feasible'], 'true or false');
-    if (p['reason'] !== undefined) string(p['reason'], 'plan.reason');
-    const commands = array(p['commands'], 'plan.commands').map((c, k) => command(c, `plan.commands[${k}]`));
-    const predicted = object(p['predicted'], 'plan.predicted', '{ t, steered, unsteered }');
-    const t = column(predicted['t'], 'plan.predicted.t');
-    const steered = object(predicted['steered'], 'plan.predicted.steered', '{ phaseSeconds, sigmaSeconds }');
-    const unsteered = object(predicted['unsteered'], 'plan.predicted.unsteered', '{ phaseSeconds, sigmaSeconds }');
+    if (typeof p.feasible !== 'boolean') fail('plan.feasible', p.feasible, 'true or false');
+    if (p.reason !== undefined) string(p.reason, 'plan.reason');
+    const commands = array(p.commands, 'plan.commands').map((c, k) => command(c, `plan.commands[${k}]`));
+    const predicted = object(p.predicted, 'plan.predicted', '{ t, steered, unsteered }');
+    const t = column(predicted.t, 'plan.predicted.t');
+    const steered = object(predicted.steered, 'plan.predicted.steered', '{ phaseSeconds, sigmaSeconds }');
+    const unsteered = object(predicted.unsteered, 'plan.predicted.unsteered', '{ phaseSeconds, sigmaSeconds }');
     const columns: PlanColumns = {
       t,
-      steered: column(steered['phaseSeconds'], 'plan.predicted.steered.phaseSeconds', t.length),
-      steeredSigma: column(steered['sigmaSeconds'], 'plan.predicted.steered.sigmaSeconds', t.length),
-      unsteered: column(unsteered['phaseSeconds'], 'plan.predicted.unsteered.phaseSeconds', t.length),
-      unsteeredSigma: column(unsteered['sigmaSeconds'], 'plan.predicted.unsteered.sigmaSeconds', t.length),
+      steered: column(steered.phaseSeconds, 'plan.predicted.steered.phaseSeconds', t.length),
+      steeredSigma: column(steered.sigmaSeconds, 'plan.predicted.steered.sigmaSeconds', t.length),
+      unsteered: column(unsteered.phaseSeconds, 'plan.predicted.unsteered.phaseSeconds', t.length),
+      unsteeredSigma: column(unsteered.sigmaSeconds, 'plan.predicted.unsteered.sigmaSeconds', t.length),
     };
-    object(p['metrics'], 'plan.metrics', 'the SteeringMetrics object');
-    string(p['caution'], 'plan.caution');
+    object(p.metrics, 'plan.metrics', 'the SteeringMetrics object');
+    string(p.caution, 'plan.caution');
     const s = object(scenario, 'scenario', 'the SteeringScenario the plan was made for');
-    string(s['epoch'], 'scenario.epoch');
-    number(object(s['tolerance'], 'scenario.tolerance')['phaseSeconds'], 'scenario.tolerance.phaseSeconds', 's');
-    array(s['contacts'], 'scenario.contacts').forEach((w, k) => {
+    string(s.epoch, 'scenario.epoch');
+    number(object(s.tolerance, 'scenario.tolerance').phaseSeconds, 'scenario.tolerance.phaseSeconds', 's');
+    array(s.contacts, 'scenario.contacts').forEach((w, k) => {
       const window = object(w, `scenario.contacts[${k}]`, '{ start, end }');
-      string(window['start'], `scenario.contacts[${k}].start`);
-      string(window['end'], `scenario.contacts[${k}].end`);
+      string(window.start, `scenario.contacts[${k}].start`);
+      string(window.end, `scenario.contacts[${k}].end`);
     });
-    if (s['maneuvers'] !== undefined) {
-      array(s['maneuvers'], 'scenario.maneuvers').forEach((m, k) => {
+    if (s.maneuvers !== undefined) {
+      array(s.maneuvers, 'scenario.maneuvers').forEach((m, k) => {
         const maneuver = object(m, `scenario.maneuvers[${k}]`, '{ at, semiMajorAxisBefore, semiMajorAxisAfter }');
-        string(maneuver['at'], `scenario.maneuvers[${k}].at`);
-        number(maneuver['semiMajorAxisBefore'], `scenario.maneuvers[${k}].semiMajorAxisBefore`, 'm');
-        number(maneuver['semiMajorAxisAfter'], `scenario.maneuvers[${k}].semiMajorAxisAfter`, 'm');
+        string(maneuver.at, `scenario.maneuvers[${k}].at`);
+        number(maneuver.semiMajorAxisBefore, `scenario.maneuvers[${k}].semiMajorAxisBefore`, 'm');
+        number(maneuver.semiMajorAxisAfter, `scenario.maneuvers[${k}].semiMajorAxisAfter`, 'm');
       });
     }
     // Every field the element reads is checked above; the casts only name the checked objects' SDK types.
     const value: GuardedSteering = {
-      plan: p as unknown as SteeringPlanInput, scenario: s as unknown as SteeringScenario, columns, commands,
+      plan: p as unknown as SteeringPlanInput,
+      scenario: s as unknown as SteeringScenario,
+      columns,
+      commands,
     };
     return { ok: true, value };
   } catch (error) {
@@ -173,19 +182,27 @@ export function guardPlan(plan: unknown, scenario: unknown):
 }
 
 /** Checks `superseded` (the SDK's `revision.superseded`) and `estimates` (as given to a re-plan). */
-export function guardRevisions(superseded: unknown, estimates: unknown):
+export function guardRevisions(
+  superseded: unknown,
+  estimates: unknown,
+):
   | { ok: true; superseded: readonly SteeringCommand[]; estimates: readonly ClockOffsetEstimate[] }
   | { ok: false; failure: ContractFailure } {
   try {
-    const commands = superseded === undefined || superseded === null ? []
-      : array(superseded, 'superseded').map((c, k) => command(c, `superseded[${k}]`));
-    const list = estimates === undefined || estimates === null ? [] : array(estimates, 'estimates').map((e, k) => {
-      const o = object(e, `estimates[${k}]`, '{ tSeconds, phaseSeconds, sigmaSeconds }');
-      number(o['tSeconds'], `estimates[${k}].tSeconds`, 's since the scenario epoch');
-      number(o['phaseSeconds'], `estimates[${k}].phaseSeconds`, 's');
-      number(o['sigmaSeconds'], `estimates[${k}].sigmaSeconds`, 's');
-      return o as unknown as ClockOffsetEstimate;
-    });
+    const commands =
+      superseded === undefined || superseded === null
+        ? []
+        : array(superseded, 'superseded').map((c, k) => command(c, `superseded[${k}]`));
+    const list =
+      estimates === undefined || estimates === null
+        ? []
+        : array(estimates, 'estimates').map((e, k) => {
+            const o = object(e, `estimates[${k}]`, '{ tSeconds, phaseSeconds, sigmaSeconds }');
+            number(o.tSeconds, `estimates[${k}].tSeconds`, 's since the scenario epoch');
+            number(o.phaseSeconds, `estimates[${k}].phaseSeconds`, 's');
+            number(o.sigmaSeconds, `estimates[${k}].sigmaSeconds`, 's');
+            return o as unknown as ClockOffsetEstimate;
+          });
     return { ok: true, superseded: commands, estimates: list };
   } catch (error) {
     if (error instanceof Mismatch) return { ok: false, failure: error.failure };

@@ -5,7 +5,7 @@
  *
  * @module
  */
-import { StampError, elapsed, interpolate, type PlanClock } from './plan-data.js';
+import { elapsed, interpolate, type PlanClock, StampError } from './plan-data.js';
 import { describeFailure, guardRevisions } from './plan-guard.js';
 
 /** What the layer draws, in seconds since the scenario epoch. */
@@ -19,20 +19,29 @@ export interface RevisionView {
  * `revision.superseded`) and `estimates` (`ClockOffsetEstimate`s, as given to `replanSteering`)
  * against the scenario epoch; an error naming the first unreadable field (nothing is skipped).
  */
-export function readRevisions(superseded: unknown, estimates: unknown, clock: PlanClock):
-  { ok: true; view: RevisionView } | { ok: false; error: string } {
+export function readRevisions(
+  superseded: unknown,
+  estimates: unknown,
+  clock: PlanClock,
+): { ok: true; view: RevisionView } | { ok: false; error: string } {
   const guarded = guardRevisions(superseded, estimates);
   if (!guarded.ok) return { ok: false, error: describeFailure(guarded.failure) };
   try {
     const view: RevisionView = {
       superseded: guarded.superseded.map((c, k) => ({
-        executeAt: elapsed(clock, c.executeAt, `superseded[${k}].executeAt`), kind: c.kind,
+        executeAt: elapsed(clock, c.executeAt, `superseded[${k}].executeAt`),
+        kind: c.kind,
       })),
       estimates: [],
     };
     for (const [k, e] of guarded.estimates.entries()) {
-      const bad = !Number.isFinite(e.tSeconds) ? 'tSeconds' : !Number.isFinite(e.phaseSeconds) ? 'phaseSeconds'
-        : !(Number.isFinite(e.sigmaSeconds) && e.sigmaSeconds >= 0) ? 'sigmaSeconds' : null;
+      const bad = !Number.isFinite(e.tSeconds)
+        ? 'tSeconds'
+        : !Number.isFinite(e.phaseSeconds)
+          ? 'phaseSeconds'
+          : !(Number.isFinite(e.sigmaSeconds) && e.sigmaSeconds >= 0)
+            ? 'sigmaSeconds'
+            : null;
       if (bad) {
         const msg = `estimates[${k}].${bad} must be a finite number of seconds (σ ≥ 0); received ${String(e[bad])}`;
         return { ok: false, error: msg };
@@ -52,16 +61,25 @@ export interface RevisionMarks {
   estimates: Array<{ x: number; y: number; yLow: number; yHigh: number }>;
 }
 
-interface Scale { map(v: number): number }
+interface Scale {
+  map(v: number): number;
+}
 
 /**
  * Draws the layer inside `frame` (the caller has clipped to it) for the visible span [x0, x1]:
  * superseded commands as hollow dashed markers at 40 % opacity on the steered line, estimates as
  * dots with a vertical bar from phase − σ to phase + σ, at 60 % opacity in the text colour.
  */
-export function drawRevisions(ctx: CanvasRenderingContext2D, frame: { top: number; height: number }, sx: Scale, sy: Scale,
-  span: [number, number], line: { t: Float64Array; y: Float64Array }, rev: RevisionView,
-  colors: { command: string; estimate: string }): RevisionMarks {
+export function drawRevisions(
+  ctx: CanvasRenderingContext2D,
+  frame: { top: number; height: number },
+  sx: Scale,
+  sy: Scale,
+  span: [number, number],
+  line: { t: Float64Array; y: Float64Array },
+  rev: RevisionView,
+  colors: { command: string; estimate: string },
+): RevisionMarks {
   const marks: RevisionMarks = { superseded: [], estimates: [] };
   const clampY = (y: number): number => Math.min(frame.top + frame.height - 6, Math.max(frame.top + 6, y));
   ctx.save();

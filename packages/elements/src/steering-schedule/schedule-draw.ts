@@ -6,12 +6,19 @@
  *
  * @module
  */
-import { decimateBand, decimateLine, visibleRange, type BandPolygon, type Polyline } from '../internal/decimate.js';
+
 import {
-  drawAxes, fillBand, markerPath, strokePolyline, type Frame, type MarkerShape, type Tick,
+  drawAxes,
+  type Frame,
+  fillBand,
+  type MarkerShape,
+  markerPath,
+  strokePolyline,
+  type Tick,
 } from '../internal/canvas.js';
-import { linearScale, linearTicks, padDomain, timeTicks, type Scale } from '../internal/scale.js';
+import { type BandPolygon, decimateBand, decimateLine, type Polyline, visibleRange } from '../internal/decimate.js';
 import { formatNumber, formatTimeTick, parseTimeUnit, pickTimeUnit, type TimeUnit } from '../internal/format.js';
+import { linearScale, linearTicks, padDomain, type Scale, timeTicks } from '../internal/scale.js';
 import { interpolate, type PlanView, type SteeringCommandView } from './plan-data.js';
 import { drawRevisions, type RevisionMarks, type RevisionView } from './revisions-layer.js';
 
@@ -22,13 +29,29 @@ export const MARGIN = { left: 66, right: 14, top: 24, bottom: 50 } as const;
 
 /** Canvas colours (resolved from the element's custom properties) and the font. */
 export interface ScheduleColors {
-  text: string; muted: string; grid: string; surface: string; accent: string; steered: string; unsteered: string;
-  uncertainty: string; tolerance: string; contact: string; maneuver: string; frequency: string; phase: string;
+  text: string;
+  muted: string;
+  grid: string;
+  surface: string;
+  accent: string;
+  steered: string;
+  unsteered: string;
+  uncertainty: string;
+  tolerance: string;
+  contact: string;
+  maneuver: string;
+  frequency: string;
+  phase: string;
   font: string;
 }
 
 /** The scales of a drawn view: time (s since the epoch) → x, offset (s) → y, the frame and the axis unit. */
-export interface ScheduleScales { sx: Scale; sy: Scale; frame: Frame; unit: { unit: TimeUnit; seconds: number } }
+export interface ScheduleScales {
+  sx: Scale;
+  sy: Scale;
+  frame: Frame;
+  unit: { unit: TimeUnit; seconds: number };
+}
 
 /** What {@link layoutSchedule} computes for one view: scales and the decimated series. */
 export interface ScheduleLayout {
@@ -39,10 +62,18 @@ export interface ScheduleLayout {
 }
 
 /** Layout options: the `y-unit` attribute, `fit-all`, and the device pixel ratio. */
-export interface LayoutOptions { yUnit: string; fitAll: boolean; devicePixelRatio: number }
+export interface LayoutOptions {
+  yUnit: string;
+  fitAll: boolean;
+  devicePixelRatio: number;
+}
 
 /** A drawn command marker: its position in the element's sorted command list and its centre, CSS px. */
-export interface CommandMarker { c: number; x: number; y: number }
+export interface CommandMarker {
+  c: number;
+  x: number;
+  y: number;
+}
 
 /** The marker shape of a command: frequency steps are triangles pointing the way of the step, phase steps diamonds. */
 export function commandShape(c: Pick<SteeringCommandView, 'kind' | 'step'>): MarkerShape {
@@ -53,8 +84,10 @@ export function commandShape(c: Pick<SteeringCommandView, 'kind' | 'step'>): Mar
 /** The plot frame inside a box of `width` × `height` CSS px. */
 export function scheduleFrame(width: number, height: number): Frame {
   return {
-    left: MARGIN.left, top: MARGIN.top,
-    width: width - MARGIN.left - MARGIN.right, height: height - MARGIN.top - MARGIN.bottom,
+    left: MARGIN.left,
+    top: MARGIN.top,
+    width: width - MARGIN.left - MARGIN.right,
+    height: height - MARGIN.top - MARGIN.bottom,
   };
 }
 
@@ -62,8 +95,13 @@ export function scheduleFrame(width: number, height: number): Frame {
  * Decimates the visible span [x0, x1] to the frame's device-pixel columns and fits the offset axis
  * to the steered prediction, its band and the tolerance (and the unsteered one with `fitAll`).
  */
-export function layoutSchedule(d: PlanView, band: { low: Float64Array; high: Float64Array } | null,
-  view: readonly [number, number], size: { width: number; height: number }, options: LayoutOptions): ScheduleLayout {
+export function layoutSchedule(
+  d: PlanView,
+  band: { low: Float64Array; high: Float64Array } | null,
+  view: readonly [number, number],
+  size: { width: number; height: number },
+  options: LayoutOptions,
+): ScheduleLayout {
   const frame = scheduleFrame(size.width, size.height);
   const [x0, x1] = view;
   const sx = linearScale(x0, x1, frame.left, frame.left + frame.width);
@@ -72,14 +110,25 @@ export function layoutSchedule(d: PlanView, band: { low: Float64Array; high: Flo
   const steered = decimateLine(d.t, d.steered, i0, i1, x0, x1, columns);
   const bandPolygon = band ? decimateBand(d.t, band.low, band.high, i0, i1, x0, x1, columns) : null;
   const unsteered = decimateLine(d.t, d.unsteered, i0, i1, x0, x1, columns);
-  let lo = Infinity, hi = -Infinity;
+  let lo = Infinity,
+    hi = -Infinity;
   const take = (arr: Float64Array, n: number): void => {
-    for (let i = 0; i < n; i++) { const v = arr[i]!; if (v < lo) lo = v; if (v > hi) hi = v; }
+    for (let i = 0; i < n; i++) {
+      const v = arr[i]!;
+      if (v < lo) lo = v;
+      if (v > hi) hi = v;
+    }
   };
   take(steered.y, steered.length);
-  if (bandPolygon) { take(bandPolygon.low, bandPolygon.length); take(bandPolygon.high, bandPolygon.length); }
+  if (bandPolygon) {
+    take(bandPolygon.low, bandPolygon.length);
+    take(bandPolygon.high, bandPolygon.length);
+  }
   if (options.fitAll) take(unsteered.y, unsteered.length);
-  if (d.tolerance !== null) { lo = Math.min(lo, -d.tolerance); hi = Math.max(hi, d.tolerance); }
+  if (d.tolerance !== null) {
+    lo = Math.min(lo, -d.tolerance);
+    hi = Math.max(hi, d.tolerance);
+  }
   const [y0, y1] = padDomain(lo, hi, 0.08);
   const sy = linearScale(y0, y1, frame.top + frame.height, frame.top);
   const unit = parseTimeUnit(options.yUnit) ?? pickTimeUnit(Math.max(Math.abs(y0), Math.abs(y1)));
@@ -103,36 +152,44 @@ export function commandMarkers(d: PlanView, scales: ScheduleScales): CommandMark
 
 function drawTimeAxes(ctx: Ctx, d: PlanView, scales: ScheduleScales, colors: ScheduleColors): void {
   const { sx, sy, frame, unit } = scales;
-  const [x0, x1] = sx.domain, [y0, y1] = sy.domain;
+  const [x0, x1] = sx.domain,
+    [y0, y1] = sy.domain;
   // About one label per 70 px, at least four intervals, so a phone-width plot still shows a few dates.
   const tt = timeTicks(x0, x1, Math.max(4, Math.floor(frame.width / 70)), d.epochMs);
   const xTicks: Tick[] = tt.values.map((v) => {
     const f = formatTimeTick(d.epochMs + v * 1000, tt.step);
     return { value: v, label: f.main, sub: f.sub };
   });
-  const yTicks: Tick[] = linearTicks(Math.min(y0, y1), Math.max(y0, y1), Math.max(2, Math.floor(frame.height / 44)))
-    .map((v) => ({ value: v, label: formatNumber(v / unit.seconds, 4) }));
+  const yTicks: Tick[] = linearTicks(
+    Math.min(y0, y1),
+    Math.max(y0, y1),
+    Math.max(2, Math.floor(frame.height / 44)),
+  ).map((v) => ({ value: v, label: formatNumber(v / unit.seconds, 4) }));
   const style = { text: colors.text, muted: colors.muted, grid: colors.grid, font: colors.font };
-  drawAxes(ctx, frame, sx, sy, xTicks, yTicks, style,
-    { x: 'UTC', y: `Clock offset (${unit.unit})` });
+  drawAxes(ctx, frame, sx, sy, xTicks, yTicks, style, { x: 'UTC', y: `Clock offset (${unit.unit})` });
 }
 
 function drawContacts(ctx: Ctx, d: PlanView, { sx, frame }: ScheduleScales, colors: ScheduleColors): void {
   const [x0, x1] = sx.domain;
   ctx.fillStyle = colors.contact;
-  const layers = [[0.14, frame.top, frame.height], [0.55, frame.top + frame.height - 4, 4]] as const;
+  const layers = [
+    [0.14, frame.top, frame.height],
+    [0.55, frame.top + frame.height - 4, 4],
+  ] as const;
   for (const [alpha, top, height] of layers) {
     ctx.globalAlpha = alpha;
     for (const c of d.contacts) {
       if (c.end < x0 || c.start > x1) continue;
-      const a = sx.map(c.start), b = sx.map(c.end);
+      const a = sx.map(c.start),
+        b = sx.map(c.end);
       ctx.fillRect(a, top, Math.max(1, b - a), height);
     }
   }
 }
 
 function drawTolerance(ctx: Ctx, tolerance: number, { sy, frame }: ScheduleScales, colors: ScheduleColors): void {
-  const ya = sy.map(tolerance), yb = sy.map(-tolerance);
+  const ya = sy.map(tolerance),
+    yb = sy.map(-tolerance);
   ctx.globalAlpha = 0.1;
   ctx.fillStyle = colors.tolerance;
   ctx.fillRect(frame.left, ya, frame.width, yb - ya);
@@ -141,8 +198,10 @@ function drawTolerance(ctx: Ctx, tolerance: number, { sy, frame }: ScheduleScale
   ctx.lineWidth = 1;
   ctx.setLineDash([6, 4]);
   ctx.beginPath();
-  ctx.moveTo(frame.left, Math.round(ya) + 0.5); ctx.lineTo(frame.left + frame.width, Math.round(ya) + 0.5);
-  ctx.moveTo(frame.left, Math.round(yb) + 0.5); ctx.lineTo(frame.left + frame.width, Math.round(yb) + 0.5);
+  ctx.moveTo(frame.left, Math.round(ya) + 0.5);
+  ctx.lineTo(frame.left + frame.width, Math.round(ya) + 0.5);
+  ctx.moveTo(frame.left, Math.round(yb) + 0.5);
+  ctx.lineTo(frame.left + frame.width, Math.round(yb) + 0.5);
   ctx.stroke();
   ctx.setLineDash([]);
 }
@@ -176,10 +235,17 @@ function drawManeuvers(ctx: Ctx, d: PlanView, { sx, frame }: ScheduleScales, col
     if (m.at < x0 || m.at > x1) continue;
     const x = Math.round(sx.map(m.at)) + 0.5;
     ctx.setLineDash([3, 3]);
-    ctx.beginPath(); ctx.moveTo(x, frame.top); ctx.lineTo(x, frame.top + frame.height); ctx.stroke();
+    ctx.beginPath();
+    ctx.moveTo(x, frame.top);
+    ctx.lineTo(x, frame.top + frame.height);
+    ctx.stroke();
     ctx.setLineDash([]);
-    ctx.beginPath(); ctx.moveTo(x - 5, frame.top); ctx.lineTo(x + 5, frame.top); ctx.lineTo(x, frame.top + 6);
-    ctx.closePath(); ctx.fill();
+    ctx.beginPath();
+    ctx.moveTo(x - 5, frame.top);
+    ctx.lineTo(x + 5, frame.top);
+    ctx.lineTo(x, frame.top + 6);
+    ctx.closePath();
+    ctx.fill();
   }
 }
 
@@ -217,8 +283,13 @@ function drawMarkers(ctx: Ctx, d: PlanView, markers: readonly CommandMarker[], c
  * Paints the data canvas: axes, contact windows, tolerance band, uncertainty band, unsteered and
  * steered lines, manoeuvres, command markers and the revision layer; returns what was placed.
  */
-export function drawSchedule(ctx: Ctx, d: PlanView, layout: ScheduleLayout, colors: ScheduleColors,
-  revisions: RevisionView | null): { markers: CommandMarker[]; revisionMarks: RevisionMarks } {
+export function drawSchedule(
+  ctx: Ctx,
+  d: PlanView,
+  layout: ScheduleLayout,
+  colors: ScheduleColors,
+  revisions: RevisionView | null,
+): { markers: CommandMarker[]; revisionMarks: RevisionMarks } {
   const { scales } = layout;
   const { frame, sx, sy } = scales;
   drawTimeAxes(ctx, d, scales, colors);
@@ -234,8 +305,10 @@ export function drawSchedule(ctx: Ctx, d: PlanView, layout: ScheduleLayout, colo
   drawMarkers(ctx, d, markers, colors);
   const [x0, x1] = sx.domain;
   const revisionMarks = revisions
-    ? drawRevisions(ctx, frame, sx, sy, [x0, x1], { t: d.t, y: d.steered }, revisions,
-      { command: colors.frequency, estimate: colors.text })
+    ? drawRevisions(ctx, frame, sx, sy, [x0, x1], { t: d.t, y: d.steered }, revisions, {
+        command: colors.frequency,
+        estimate: colors.text,
+      })
     : { superseded: [], estimates: [] };
   ctx.restore();
   drawManeuverLabels(ctx, d, scales, colors);
@@ -246,9 +319,15 @@ export function drawSchedule(ctx: Ctx, d: PlanView, layout: ScheduleLayout, colo
 export type ScheduleHover = { kind: 'sample'; i: number; px: number } | { kind: 'command'; c: number; px: number };
 
 /** Paints the overlay: the hovered sample's cursor and dot, rings around the selected and hovered command markers. */
-export function drawScheduleOverlay(ctx: Ctx, d: PlanView, scales: ScheduleScales, hover: ScheduleHover | null,
-  markers: readonly CommandMarker[], selected: number,
-  colors: Pick<ScheduleColors, 'muted' | 'steered' | 'accent'>): void {
+export function drawScheduleOverlay(
+  ctx: Ctx,
+  d: PlanView,
+  scales: ScheduleScales,
+  hover: ScheduleHover | null,
+  markers: readonly CommandMarker[],
+  selected: number,
+  colors: Pick<ScheduleColors, 'muted' | 'steered' | 'accent'>,
+): void {
   const { frame, sx, sy } = scales;
   const t = hover?.kind === 'sample' ? d.t[hover.i] : undefined;
   const y = hover?.kind === 'sample' ? d.steered[hover.i] : undefined;
@@ -257,26 +336,37 @@ export function drawScheduleOverlay(ctx: Ctx, d: PlanView, scales: ScheduleScale
     ctx.strokeStyle = colors.muted;
     ctx.lineWidth = 1;
     ctx.setLineDash([2, 3]);
-    ctx.beginPath(); ctx.moveTo(x, frame.top); ctx.lineTo(x, frame.top + frame.height); ctx.stroke();
+    ctx.beginPath();
+    ctx.moveTo(x, frame.top);
+    ctx.lineTo(x, frame.top + frame.height);
+    ctx.stroke();
     ctx.setLineDash([]);
     ctx.fillStyle = colors.steered;
-    ctx.beginPath(); ctx.arc(sx.map(t), sy.map(y), 3.5, 0, Math.PI * 2); ctx.fill();
+    ctx.beginPath();
+    ctx.arc(sx.map(t), sy.map(y), 3.5, 0, Math.PI * 2);
+    ctx.fill();
   }
   for (const m of markers) {
     if (m.c !== selected && !(hover?.kind === 'command' && hover.c === m.c)) continue;
     ctx.strokeStyle = m.c === selected ? colors.accent : colors.muted;
     ctx.lineWidth = 2;
-    ctx.beginPath(); ctx.arc(m.x, m.y, 10, 0, Math.PI * 2); ctx.stroke();
+    ctx.beginPath();
+    ctx.arc(m.x, m.y, 10, 0, Math.PI * 2);
+    ctx.stroke();
   }
 }
 
 /** The uncertainty band steered ± k·σ (k standard deviations), as two columns. */
-export function uncertaintyBand(d: Pick<PlanView, 'steered' | 'steeredSigma'>, k: number):
-  { low: Float64Array; high: Float64Array } {
+export function uncertaintyBand(
+  d: Pick<PlanView, 'steered' | 'steeredSigma'>,
+  k: number,
+): { low: Float64Array; high: Float64Array } {
   const n = d.steered.length;
-  const low = new Float64Array(n), high = new Float64Array(n);
+  const low = new Float64Array(n),
+    high = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    const c = d.steered[i]!, s = d.steeredSigma[i]! * k;
+    const c = d.steered[i]!,
+      s = d.steeredSigma[i]! * k;
     low[i] = c - s;
     high[i] = c + s;
   }
@@ -286,6 +376,9 @@ export function uncertaintyBand(d: Pick<PlanView, 'steered' | 'steeredSigma'>, k
 /** Largest |value| of a column (0 for an empty one). */
 export function worstAbs(values: Float64Array): number {
   let worst = 0;
-  for (const v of values) { const a = Math.abs(v); if (a > worst) worst = a; }
+  for (const v of values) {
+    const a = Math.abs(v);
+    if (a > worst) worst = a;
+  }
   return worst;
 }

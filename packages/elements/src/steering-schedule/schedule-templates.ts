@@ -4,10 +4,17 @@
  *
  * @module
  */
-import { html, nothing, svg, type SVGTemplateResult, type TemplateResult } from 'lit';
-import { formatFraction, formatNumber, formatOffset, formatOffsetAuto, formatUtc, typographicMinus } from '../internal/format.js';
+import { html, nothing, type SVGTemplateResult, svg, type TemplateResult } from 'lit';
+import {
+  formatFraction,
+  formatNumber,
+  formatOffset,
+  formatOffsetAuto,
+  formatUtc,
+  typographicMinus,
+} from '../internal/format.js';
 import { chartTimeToUtcMs, type PlanView, type SteeringCommandView } from './plan-data.js';
-import { MARGIN, commandShape, type ScheduleHover, type ScheduleScales } from './schedule-draw.js';
+import { commandShape, MARGIN, type ScheduleHover, type ScheduleScales } from './schedule-draw.js';
 
 /** A command's step in words with its unit, for the live region. */
 export function describeStep(c: SteeringCommandView): string {
@@ -16,13 +23,17 @@ export function describeStep(c: SteeringCommandView): string {
 }
 
 function metricName(k: string): string {
-  return k.replace(/([a-z])([A-Z])/g, '$1 $2').replace(/Seconds$| Seconds$/, '').toLowerCase();
+  return k
+    .replace(/([a-z])([A-Z])/g, '$1 $2')
+    .replace(/Seconds$| Seconds$/, '')
+    .toLowerCase();
 }
 
 function metricValue(k: string, v: unknown): string {
   if (typeof v !== 'number') return String(v);
   // A time after the epoch (e.g. settledAfterSeconds) is a duration, not a clock offset.
-  if (/afterseconds$/i.test(k)) return v < 2 * 86400 ? `${formatNumber(v / 3600, 3)} h` : `${formatNumber(v / 86400, 3)} d`;
+  if (/afterseconds$/i.test(k))
+    return v < 2 * 86400 ? `${formatNumber(v / 3600, 3)} h` : `${formatNumber(v / 86400, 3)} d`;
   if (/seconds$/i.test(k)) return formatOffsetAuto(v, 3);
   if (/probability/i.test(k)) return `${formatNumber(v * 100, 4)} %`;
   if (/fractional|frequency/i.test(k)) return formatFraction(v, 3);
@@ -31,7 +42,9 @@ function metricValue(k: string, v: unknown): string {
 
 /** The plan metrics as a description list (numbers with units; null and object entries left out). */
 export function renderMetrics(d: PlanView): TemplateResult | typeof nothing {
-  const items = Object.entries(d.metrics).filter(([, v]) => typeof v === 'number' || typeof v === 'string' || typeof v === 'boolean');
+  const items = Object.entries(d.metrics).filter(
+    ([, v]) => typeof v === 'number' || typeof v === 'string' || typeof v === 'boolean',
+  );
   if (items.length === 0) return nothing;
   return html`<dl part="metrics">${items.map(([k, v]) => html`<div><dt>${metricName(k)}</dt><dd>${metricValue(k, v)}</dd></div>`)}</dl>`;
 }
@@ -59,7 +72,8 @@ export function renderLegend(d: PlanView, sigmaMultiple: number): TemplateResult
 function kindGlyph(c: SteeringCommandView): TemplateResult {
   const shape = commandShape(c);
   const color = c.kind === 'phase' ? 'var(--phase-command-color)' : 'var(--frequency-command-color)';
-  const d = shape === 'diamond' ? 'M6 0L12 6L6 12L0 6z' : shape === 'triangle-down' ? 'M6 11L12 2L0 2z' : 'M6 1L12 10L0 10z';
+  const d =
+    shape === 'diamond' ? 'M6 0L12 6L6 12L0 6z' : shape === 'triangle-down' ? 'M6 11L12 2L0 2z' : 'M6 1L12 10L0 10z';
   return html`<svg width="12" height="12" viewBox="0 0 12 12" aria-hidden="true"><path d=${d} fill=${color}></path></svg>`;
 }
 
@@ -76,7 +90,10 @@ export function renderTable(d: PlanView, selectedIndex: number, select: (positio
     return html`<tr part=${selected ? 'row selected' : 'row'} aria-current=${selected ? 'true' : 'false'} data-index=${c.index}
       @click=${() => select(k)}>
       <th scope="row"><button type="button" class="row-button" aria-label=${`Select command ${k + 1}`}
-        @click=${(e: Event) => { e.stopPropagation(); select(k); }}>${k + 1}</button></th>
+        @click=${(e: Event) => {
+          e.stopPropagation();
+          select(k);
+        }}>${k + 1}</button></th>
       <td>${Number.isFinite(c.uplinkAt) ? formatUtc(ms(c.uplinkAt), true) : '—'}</td>
       <td>${formatUtc(ms(c.executeAt), true)}</td>
       <td><span class="kind">${kindGlyph(c)}${c.kind}</span></td>
@@ -114,14 +131,23 @@ function commandTooltip(d: PlanView, position: number, style: string): TemplateR
 }
 
 /** The hover read-out at the hovered sample or command; `k` is the band's half-width in σ, `width` the plot box width. */
-export function renderTooltip(d: PlanView, hover: ScheduleHover | null, scales: ScheduleScales | null, k: number,
-  width: number): TemplateResult | typeof nothing {
+export function renderTooltip(
+  d: PlanView,
+  hover: ScheduleHover | null,
+  scales: ScheduleScales | null,
+  k: number,
+  width: number,
+): TemplateResult | typeof nothing {
   if (!hover || !scales) return nothing;
   const left = hover.px > width / 2 ? Math.max(0, hover.px - 250) : hover.px + 16;
   const style = `left:${left}px;top:${MARGIN.top + 6}px`;
   if (hover.kind === 'command') return commandTooltip(d, hover.c, style);
-  const i = hover.i, u = scales.unit;
-  const t = d.t[i], steered = d.steered[i], sigma = d.steeredSigma[i], unsteered = d.unsteered[i];
+  const i = hover.i,
+    u = scales.unit;
+  const t = d.t[i],
+    steered = d.steered[i],
+    sigma = d.steeredSigma[i],
+    unsteered = d.unsteered[i];
   if (t === undefined || steered === undefined || sigma === undefined || unsteered === undefined) return nothing;
   return html`<div part="tooltip" style=${style}>
     <strong>${formatUtc(chartTimeToUtcMs(d, t), true)}</strong>

@@ -1,32 +1,49 @@
-import { html, nothing, type PropertyValues, type TemplateResult, type PropertyDeclarations } from 'lit';
 import type { ClockOffsetEstimate, SteeringCommand, SteeringScenario } from '@tauline/sdk/steering';
 import type { TimeScales } from '@tauline/sdk/time';
+import { html, nothing, type PropertyDeclarations, type PropertyValues, type TemplateResult } from 'lit';
+import { emit } from '../events.js';
+import { sizeCanvas } from '../internal/canvas.js';
+import { closestIndex } from '../internal/decimate.js';
+import { formatOffsetAuto, formatUtc, parseTimeUnit, typographicMinus } from '../internal/format.js';
 import { PlotElement } from '../internal/plot-element.js';
 import { baseStyles, plotStyles } from '../internal/styles.js';
-import { steeringScheduleStyles } from './steering-schedule.styles.js';
-import { bundledTimeScales, chartTimeToUtcMs, readPlan, type PlanView, type SteeringCommandView } from './plan-data.js';
-import type { SteeringPlanInput } from './plan-guard.js';
-import { closestIndex } from '../internal/decimate.js';
-import { sizeCanvas } from '../internal/canvas.js';
-import { formatOffsetAuto, formatUtc, parseTimeUnit, typographicMinus } from '../internal/format.js';
-import { warnOnce } from '../internal/warn.js';
 import { ViewController } from '../internal/view-controller.js';
-import { readRevisions, type RevisionView } from './revisions-layer.js';
+import { warnOnce } from '../internal/warn.js';
+import { bundledTimeScales, chartTimeToUtcMs, type PlanView, readPlan, type SteeringCommandView } from './plan-data.js';
+import type { SteeringPlanInput } from './plan-guard.js';
+import { type RevisionView, readRevisions } from './revisions-layer.js';
 import {
-  commandShape, drawSchedule, drawScheduleOverlay, layoutSchedule, uncertaintyBand, worstAbs,
-  type CommandMarker, type ScheduleColors, type ScheduleHover, type ScheduleScales,
+  type CommandMarker,
+  commandShape,
+  drawSchedule,
+  drawScheduleOverlay,
+  layoutSchedule,
+  type ScheduleColors,
+  type ScheduleHover,
+  type ScheduleScales,
+  uncertaintyBand,
+  worstAbs,
 } from './schedule-draw.js';
 import { describeStep, renderLegend, renderMetrics, renderTable, renderTooltip } from './schedule-templates.js';
-import { emit } from '../events.js';
+import { steeringScheduleStyles } from './steering-schedule.styles.js';
 
 export type { PlanView, SteeringCommandView, SteeringPlanInput };
 export { commandShape };
 
 const COLOR_EXPR: Record<Exclude<keyof ScheduleColors, 'font'>, string> = {
-  text: 'var(--text)', muted: 'var(--muted)', grid: 'var(--grid)', surface: 'var(--surface)', accent: 'var(--accent)',
-  steered: 'var(--steered-color)', unsteered: 'var(--unsteered-color)', uncertainty: 'var(--uncertainty-color)',
-  tolerance: 'var(--tolerance-color)', contact: 'var(--contact-color)', maneuver: 'var(--maneuver-color)',
-  frequency: 'var(--frequency-command-color)', phase: 'var(--phase-command-color)',
+  text: 'var(--text)',
+  muted: 'var(--muted)',
+  grid: 'var(--grid)',
+  surface: 'var(--surface)',
+  accent: 'var(--accent)',
+  steered: 'var(--steered-color)',
+  unsteered: 'var(--unsteered-color)',
+  uncertainty: 'var(--uncertainty-color)',
+  tolerance: 'var(--tolerance-color)',
+  contact: 'var(--contact-color)',
+  maneuver: 'var(--maneuver-color)',
+  frequency: 'var(--frequency-command-color)',
+  phase: 'var(--phase-command-color)',
 };
 
 /**
@@ -171,10 +188,18 @@ export class TaulineSteeringSchedule extends PlotElement {
     }
     if (planChanged || changed.has('superseded') || changed.has('estimates')) this._readRevisions();
     if (changed.has('sigmaMultiple') && !(Number.isFinite(this.sigmaMultiple) && this.sigmaMultiple >= 0)) {
-      warnOnce(this, 'invalid-sigma-multiple', `sigma-multiple must be a non-negative number; received ${String(this.sigmaMultiple)}; using 2`);
+      warnOnce(
+        this,
+        'invalid-sigma-multiple',
+        `sigma-multiple must be a non-negative number; received ${String(this.sigmaMultiple)}; using 2`,
+      );
     }
     if (changed.has('yUnit') && this.yUnit !== 'auto' && !parseTimeUnit(this.yUnit)) {
-      warnOnce(this, 'invalid-y-unit', `y-unit must be auto, s, ms, us, ns or ps; received ${JSON.stringify(this.yUnit)}; using auto`);
+      warnOnce(
+        this,
+        'invalid-y-unit',
+        `y-unit must be auto, s, ms, us, ns or ps; received ${JSON.stringify(this.yUnit)}; using auto`,
+      );
     }
   }
 
@@ -183,12 +208,14 @@ export class TaulineSteeringSchedule extends PlotElement {
     else {
       this._result = readPlan(this.plan, this.scenario, this.timeScales ?? bundledTimeScales());
       if (!this._result.ok) warnOnce(this, 'invalid-plan', this._result.error);
-      else if (this._result.view.invalid.length > 0) warnOnce(this, 'invalid-plan-values', this._result.view.invalid.join('; '));
+      else if (this._result.view.invalid.length > 0)
+        warnOnce(this, 'invalid-plan-values', this._result.view.invalid.join('; '));
     }
     this._dataVersion += 1;
     this._hover = null;
     const d = this._data;
-    const first = d?.t[0], last = d?.t[d.t.length - 1];
+    const first = d?.t[0],
+      last = d?.t[d.t.length - 1];
     // The view controller keeps the user's zoom across data updates when it still lies inside the new data.
     this._viewController.setDomain(first !== undefined && last !== undefined ? [first, last] : null);
     this._worst = d ? worstAbs(d.steered) : 0;
@@ -197,7 +224,9 @@ export class TaulineSteeringSchedule extends PlotElement {
   /** Reads `superseded` and `estimates` against the scenario epoch (revision layer, revisions-layer.ts). */
   private _readRevisions(): void {
     const d = this._data;
-    const any = (this.superseded !== undefined && this.superseded !== null) || (this.estimates !== undefined && this.estimates !== null);
+    const any =
+      (this.superseded !== undefined && this.superseded !== null) ||
+      (this.estimates !== undefined && this.estimates !== null);
     const read = any && d ? readRevisions(this.superseded, this.estimates, d) : null;
     if (read && !read.ok) warnOnce(this, 'invalid-revisions', `${read.error}; the revision layer is not drawn`);
     this._revisions = read?.ok ? read.view : null;
@@ -211,15 +240,18 @@ export class TaulineSteeringSchedule extends PlotElement {
   /** Accessible name of the plot, computed from the data. */
   get plotLabel(): string {
     const d = this._data;
-    const first = d?.t[0], last = d?.t[d.t.length - 1];
+    const first = d?.t[0],
+      last = d?.t[d.t.length - 1];
     if (!d || first === undefined || last === undefined) return 'Steering schedule plot: no data';
     const freq = d.commands.filter((c) => c.kind === 'frequency').length;
     const phase = d.commands.length - freq;
     const span = `${formatUtc(chartTimeToUtcMs(d, first))} to ${formatUtc(chartTimeToUtcMs(d, last))}`;
     const tol = d.tolerance !== null ? ` against a tolerance of ±${formatOffsetAuto(d.tolerance, 3)}` : '';
-    return `Predicted clock offset from ${span}; ${d.commands.length} command${d.commands.length === 1 ? '' : 's'} ` +
+    return (
+      `Predicted clock offset from ${span}; ${d.commands.length} command${d.commands.length === 1 ? '' : 's'} ` +
       `(${freq} frequency, ${phase} phase); largest steered |offset| ${formatOffsetAuto(this._worst, 3)}${tol}; ` +
-      `plan ${d.feasible ? 'feasible' : 'not feasible'}`;
+      `plan ${d.feasible ? 'feasible' : 'not feasible'}`
+    );
   }
 
   protected override render(): TemplateResult {
@@ -234,9 +266,11 @@ export class TaulineSteeringSchedule extends PlotElement {
         <h3 class="title">${this.label}</h3>
         ${r?.ok ? this._renderBadge(r.view) : nothing}
       </div>
-      ${r?.ok && r.view.invalid.length > 0
-        ? html`<div class="state error invalid-data" role="alert">The plan's data are not valid, so its feasibility cannot be trusted: ${r.view.invalid.join('; ')}.</div>`
-        : nothing}
+      ${
+        r?.ok && r.view.invalid.length > 0
+          ? html`<div class="state error invalid-data" role="alert">The plan's data are not valid, so its feasibility cannot be trusted: ${r.view.invalid.join('; ')}.</div>`
+          : nothing
+      }
       ${body}
       <span class="probe" aria-hidden="true"></span>
     </div>`;
@@ -281,8 +315,12 @@ export class TaulineSteeringSchedule extends PlotElement {
     const d = this._data;
     const canvas = this._dataCanvas;
     const view = this._viewController.view;
-    const w = this._size.width, h = this._size.height;
-    if (!d || !canvas || !view || w < 60 || h < 60) { this._scales = null; return; }
+    const w = this._size.width,
+      h = this._size.height;
+    if (!d || !canvas || !view || w < 60 || h < 60) {
+      this._scales = null;
+      return;
+    }
     const colors = this._resolveColors(COLOR_EXPR);
     const dpr = globalThis.devicePixelRatio;
     const key = `${this._dataVersion}|${view[0]}|${view[1]}|${w}|${h}|${colors.steered}|${colors.text}|${this.yUnit}|${this._k}|${this.fitAll}|${dpr}`;
@@ -290,15 +328,23 @@ export class TaulineSteeringSchedule extends PlotElement {
     this._lastDataKey = key;
     const ctx = sizeCanvas(canvas, w, h);
     if (!ctx) return;
-    const layout = layoutSchedule(d, this._band, view, { width: w, height: h }, { yUnit: this.yUnit, fitAll: this.fitAll, devicePixelRatio: dpr });
+    const layout = layoutSchedule(
+      d,
+      this._band,
+      view,
+      { width: w, height: h },
+      { yUnit: this.yUnit, fitAll: this.fitAll, devicePixelRatio: dpr },
+    );
     this._scales = layout.scales;
     this._markers = drawSchedule(ctx, d, layout, colors, this._revisions).markers;
   }
 
   private _drawOverlay(): void {
     const canvas = this._overlayCanvas;
-    const w = this._size.width, h = this._size.height;
-    const d = this._data, sc = this._scales;
+    const w = this._size.width,
+      h = this._size.height;
+    const d = this._data,
+      sc = this._scales;
     if (!canvas || w < 60 || h < 60) return;
     const ctx = sizeCanvas(canvas, w, h);
     if (!ctx || !d || !sc) return;
@@ -327,7 +373,8 @@ export class TaulineSteeringSchedule extends PlotElement {
     const row = this.renderRoot.querySelector<HTMLElement>(`tr[aria-current='true']`);
     if (!wrap || !row || this.noTable) return;
     const head = this.renderRoot.querySelector<HTMLElement>('thead')?.offsetHeight ?? 0;
-    const top = row.offsetTop, bottom = top + row.offsetHeight;
+    const top = row.offsetTop,
+      bottom = top + row.offsetHeight;
     if (top - head < wrap.scrollTop) wrap.scrollTop = top - head;
     else if (bottom > wrap.scrollTop + wrap.clientHeight) wrap.scrollTop = bottom - wrap.clientHeight;
   }
@@ -340,10 +387,14 @@ export class TaulineSteeringSchedule extends PlotElement {
   }
 
   private _hitMarker(x: number, y: number): number {
-    let best = -1, bestD = 11 * 11;
+    let best = -1,
+      bestD = 11 * 11;
     for (const m of this._markers) {
       const dd = (m.x - x) ** 2 + (m.y - y) ** 2;
-      if (dd < bestD) { bestD = dd; best = m.c; }
+      if (dd < bestD) {
+        bestD = dd;
+        best = m.c;
+      }
     }
     return best;
   }
@@ -351,12 +402,17 @@ export class TaulineSteeringSchedule extends PlotElement {
   private readonly _onPointerDown = (event: PointerEvent): void => {
     if (!this._scales || !this._viewController.view || event.button > 0) return;
     // Capture keeps a drag going outside the box; synthetic pointers (tests) have none to capture.
-    try { this._box?.setPointerCapture(event.pointerId); } catch { /* not an active pointer */ }
+    try {
+      this._box?.setPointerCapture(event.pointerId);
+    } catch {
+      /* not an active pointer */
+    }
     this._viewController.pointerDown(event.pointerId, this._local(event));
   };
 
   private readonly _onPointerMove = (event: PointerEvent): void => {
-    const sc = this._scales, d = this._data;
+    const sc = this._scales,
+      d = this._data;
     if (!sc || !d) return;
     const p = this._local(event);
     if (this._viewController.pointerMove(event.pointerId, p, { frame: sc.frame, invert: sc.sx.invert })) {
@@ -368,8 +424,15 @@ export class TaulineSteeringSchedule extends PlotElement {
   };
 
   private _updateHover(x: number, y: number, d: PlanView, sc: ScheduleScales): void {
-    const inside = x >= sc.frame.left && x <= sc.frame.left + sc.frame.width && y >= sc.frame.top && y <= sc.frame.top + sc.frame.height;
-    if (!inside) { if (this._hover) this._hover = null; return; }
+    const inside =
+      x >= sc.frame.left &&
+      x <= sc.frame.left + sc.frame.width &&
+      y >= sc.frame.top &&
+      y <= sc.frame.top + sc.frame.height;
+    if (!inside) {
+      if (this._hover) this._hover = null;
+      return;
+    }
     const c = this._hitMarker(x, y);
     if (c >= 0) {
       if (this._hover?.kind !== 'command' || this._hover.c !== c) this._hover = { kind: 'command', c, px: x };
@@ -405,7 +468,10 @@ export class TaulineSteeringSchedule extends PlotElement {
     const sc = this._scales;
     if (!sc || !this._viewController.view) return;
     event.preventDefault();
-    this._viewController.wheel(event.deltaX, event.deltaY, this._local(event).x, { frame: sc.frame, invert: sc.sx.invert });
+    this._viewController.wheel(event.deltaX, event.deltaY, this._local(event).x, {
+      frame: sc.frame,
+      invert: sc.sx.invert,
+    });
   };
 
   private readonly _onDoubleClick = (): void => {
@@ -420,7 +486,8 @@ export class TaulineSteeringSchedule extends PlotElement {
     const d = this._data;
     if (!d || d.commands.length === 0) return;
     const cur = d.commands.findIndex((c) => c.index === this.selectedIndex);
-    const next = cur < 0 ? (dir > 0 ? 0 : d.commands.length - 1) : Math.min(d.commands.length - 1, Math.max(0, cur + dir));
+    const next =
+      cur < 0 ? (dir > 0 ? 0 : d.commands.length - 1) : Math.min(d.commands.length - 1, Math.max(0, cur + dir));
     if (next !== cur) this._selectByUser(next, 'keyboard');
   }
 
@@ -429,19 +496,35 @@ export class TaulineSteeringSchedule extends PlotElement {
     if (!this._data || !vc.view) return;
     let handled = true;
     switch (event.key) {
-      case 'ArrowRight': case 'ArrowLeft': {
+      case 'ArrowRight':
+      case 'ArrowLeft': {
         const dir = event.key === 'ArrowRight' ? 1 : -1;
         if (event.shiftKey) vc.pan(0.1 * dir);
         else this._stepCommand(dir);
         break;
       }
-      case 'PageUp': vc.pan(-0.9); break;
-      case 'PageDown': vc.pan(0.9); break;
-      case '+': case '=': vc.zoomAtCenter(0.8); break;
-      case '-': case '_': vc.zoomAtCenter(1.25); break;
-      case 'Home': vc.reset(true); break;
-      case 'Escape': this._hover = null; break;
-      default: handled = false;
+      case 'PageUp':
+        vc.pan(-0.9);
+        break;
+      case 'PageDown':
+        vc.pan(0.9);
+        break;
+      case '+':
+      case '=':
+        vc.zoomAtCenter(0.8);
+        break;
+      case '-':
+      case '_':
+        vc.zoomAtCenter(1.25);
+        break;
+      case 'Home':
+        vc.reset(true);
+        break;
+      case 'Escape':
+        this._hover = null;
+        break;
+      default:
+        handled = false;
     }
     if (handled) event.preventDefault();
   };

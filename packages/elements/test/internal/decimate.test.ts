@@ -1,6 +1,14 @@
 import { expect } from '@open-wc/testing';
 import fc from 'fast-check';
-import { closestIndex, decimateBand, decimateLine, lowerBound, shouldDecimate, upperBound, visibleRange } from '../../src/internal/decimate.js';
+import {
+  closestIndex,
+  decimateBand,
+  decimateLine,
+  lowerBound,
+  shouldDecimate,
+  upperBound,
+  visibleRange,
+} from '../../src/internal/decimate.js';
 
 // Min/max-per-pixel-column decimation: common practice in time-series plotting, no source.
 // The reference here is a brute-force per-column scan written independently in the test.
@@ -13,7 +21,11 @@ function bruteColumns(x: ArrayLike<number>, y: ArrayLike<number>, x0: number, x1
     const c = Math.floor((x[i]! - x0) * (cols / (x1 - x0)));
     const e = out.get(c);
     if (!e) out.set(c, { min: y[i]!, max: y[i]!, first: y[i]!, last: y[i]! });
-    else { e.min = Math.min(e.min, y[i]!); e.max = Math.max(e.max, y[i]!); e.last = y[i]!; }
+    else {
+      e.min = Math.min(e.min, y[i]!);
+      e.max = Math.max(e.max, y[i]!);
+      e.last = y[i]!;
+    }
   }
   return out;
 }
@@ -47,7 +59,8 @@ describe('internal/decimate', () => {
   });
 
   it('decimateLine copies the points unchanged below the threshold', () => {
-    const x = [0, 1, 2], y = [3, Number.POSITIVE_INFINITY, 5];
+    const x = [0, 1, 2],
+      y = [3, Number.POSITIVE_INFINITY, 5];
     const out = decimateLine(x, y, 0, 3, 0, 2, 100);
     expect(out.length).to.equal(3);
     expect(Array.from(out.x)).to.deep.equal([0, 1, 2]);
@@ -57,8 +70,12 @@ describe('internal/decimate', () => {
 
   it('decimateLine keeps at most 4 vertices per column and the column extremes of a 10^6-point series', () => {
     const n = 1_000_000;
-    const x = new Float64Array(n), y = new Float64Array(n);
-    for (let i = 0; i < n; i++) { x[i] = i; y[i] = Math.sin(i / 5000) + (i === 123_457 ? 50 : 0); }
+    const x = new Float64Array(n),
+      y = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      x[i] = i;
+      y[i] = Math.sin(i / 5000) + (i === 123_457 ? 50 : 0);
+    }
     const out = decimateLine(x, y, 0, n, 0, n - 1, 800);
     expect(out.length).to.be.at.most(4 * 801);
     let max = -Infinity;
@@ -76,44 +93,73 @@ describe('internal/decimate', () => {
     expect(gaps).to.be.greaterThan(0);
   });
 
-  it('decimateLine keeps every pixel column\'s min, max, first and last value (property, seed 20261202)', () => {
-    fc.assert(fc.property(
-      fc.array(fc.double({ min: -1e3, max: 1e3, noNaN: true }), { minLength: 50, maxLength: 3000 }),
-      fc.integer({ min: 1, max: 40 }),
-      (values, cols) => {
-        const x = values.map((_, i) => i);
-        const out = decimateLine(x, values, 0, values.length, 0, values.length - 1, cols);
-        if (!shouldDecimate(values.length, cols)) return out.length === values.length;
-        const ref = bruteColumns(x, values, 0, values.length - 1, cols);
-        const got = bruteColumns(out.x.subarray(0, out.length), out.y.subarray(0, out.length), 0, values.length - 1, cols);
-        if (ref.size !== got.size) return false;
-        for (const [c, e] of ref) {
-          const g = got.get(c)!;
-          if (!g || g.min !== e.min || g.max !== e.max || g.first !== e.first || g.last !== e.last) return false;
-        }
-        // Vertices stay in x order.
-        for (let i = 1; i < out.length; i++) if (out.x[i]! < out.x[i - 1]!) return false;
-        return out.length <= 4 * (cols + 1);
-      },
-    ), { seed: 20261202, numRuns: 200 });
+  it("decimateLine keeps every pixel column's min, max, first and last value (property, seed 20261202)", () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.double({ min: -1e3, max: 1e3, noNaN: true }), { minLength: 50, maxLength: 3000 }),
+        fc.integer({ min: 1, max: 40 }),
+        (values, cols) => {
+          const x = values.map((_, i) => i);
+          const out = decimateLine(x, values, 0, values.length, 0, values.length - 1, cols);
+          if (!shouldDecimate(values.length, cols)) return out.length === values.length;
+          const ref = bruteColumns(x, values, 0, values.length - 1, cols);
+          const got = bruteColumns(
+            out.x.subarray(0, out.length),
+            out.y.subarray(0, out.length),
+            0,
+            values.length - 1,
+            cols,
+          );
+          if (ref.size !== got.size) return false;
+          for (const [c, e] of ref) {
+            const g = got.get(c)!;
+            if (!g || g.min !== e.min || g.max !== e.max || g.first !== e.first || g.last !== e.last) return false;
+          }
+          // Vertices stay in x order.
+          for (let i = 1; i < out.length; i++) if (out.x[i]! < out.x[i - 1]!) return false;
+          return out.length <= 4 * (cols + 1);
+        },
+      ),
+      { seed: 20261202, numRuns: 200 },
+    );
   });
 
-  it('decimateBand keeps each column\'s lowest low and highest high (property, seed 20261202)', () => {
-    fc.assert(fc.property(
-      fc.array(fc.tuple(fc.double({ min: -10, max: 10, noNaN: true }), fc.double({ min: 0, max: 5, noNaN: true })), { minLength: 100, maxLength: 2000 }),
-      fc.integer({ min: 1, max: 20 }),
-      (pairs, cols) => {
-        const x = pairs.map((_, i) => i);
-        const low = pairs.map(([c, w]) => c - w), high = pairs.map(([c, w]) => c + w);
-        const out = decimateBand(x, low, high, 0, x.length, 0, x.length - 1, cols);
-        if (!shouldDecimate(x.length, cols)) return out.length === x.length;
-        const refLo = bruteColumns(x, low, 0, x.length - 1, cols), refHi = bruteColumns(x, high, 0, x.length - 1, cols);
-        const gotLo = bruteColumns(out.x.subarray(0, out.length), out.low.subarray(0, out.length), 0, x.length - 1, cols);
-        const gotHi = bruteColumns(out.x.subarray(0, out.length), out.high.subarray(0, out.length), 0, x.length - 1, cols);
-        for (const [c, e] of refLo) if (gotLo.get(c)?.min !== e.min) return false;
-        for (const [c, e] of refHi) if (gotHi.get(c)?.max !== e.max) return false;
-        return true;
-      },
-    ), { seed: 20261202, numRuns: 150 });
+  it("decimateBand keeps each column's lowest low and highest high (property, seed 20261202)", () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.tuple(fc.double({ min: -10, max: 10, noNaN: true }), fc.double({ min: 0, max: 5, noNaN: true })), {
+          minLength: 100,
+          maxLength: 2000,
+        }),
+        fc.integer({ min: 1, max: 20 }),
+        (pairs, cols) => {
+          const x = pairs.map((_, i) => i);
+          const low = pairs.map(([c, w]) => c - w),
+            high = pairs.map(([c, w]) => c + w);
+          const out = decimateBand(x, low, high, 0, x.length, 0, x.length - 1, cols);
+          if (!shouldDecimate(x.length, cols)) return out.length === x.length;
+          const refLo = bruteColumns(x, low, 0, x.length - 1, cols),
+            refHi = bruteColumns(x, high, 0, x.length - 1, cols);
+          const gotLo = bruteColumns(
+            out.x.subarray(0, out.length),
+            out.low.subarray(0, out.length),
+            0,
+            x.length - 1,
+            cols,
+          );
+          const gotHi = bruteColumns(
+            out.x.subarray(0, out.length),
+            out.high.subarray(0, out.length),
+            0,
+            x.length - 1,
+            cols,
+          );
+          for (const [c, e] of refLo) if (gotLo.get(c)?.min !== e.min) return false;
+          for (const [c, e] of refHi) if (gotHi.get(c)?.max !== e.max) return false;
+          return true;
+        },
+      ),
+      { seed: 20261202, numRuns: 150 },
+    );
   });
 });

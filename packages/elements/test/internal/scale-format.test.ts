@@ -1,6 +1,23 @@
 import { expect } from '@open-wc/testing';
-import { linearScale, linearTicks, logScale, logTicks, niceStep, padDomain, timeTicks } from '../../src/internal/scale.js';
-import { formatFraction, formatHertz, formatNumber, formatOffsetAuto, formatUtc, parseTimeUnit, pickTimeUnit, typographicMinus } from '../../src/internal/format.js';
+import {
+  formatFraction,
+  formatHertz,
+  formatNumber,
+  formatOffsetAuto,
+  formatUtc,
+  parseTimeUnit,
+  pickTimeUnit,
+  typographicMinus,
+} from '../../src/internal/format.js';
+import {
+  linearScale,
+  linearTicks,
+  logScale,
+  logTicks,
+  niceStep,
+  padDomain,
+  timeTicks,
+} from '../../src/internal/scale.js';
 
 // Scales and ticks: arithmetic checked by hand in each test ([C]); tick steps of 1, 2, 5 × 10^k are
 // common practice, no source.
@@ -49,8 +66,13 @@ describe('internal/scale', () => {
 
 describe('internal/format', () => {
   it('typographicMinus(text) turns number signs and exponent signs into U+2212 and leaves dates and word hyphens alone', () => {
-    expect(typographicMinus('predicted offset -4.52 ns and frequency -7.92e-15 before 2027-03-08T14:30:00Z; set low (-4.4647e-10), time-tagged'))
-      .to.equal('predicted offset −4.52 ns and frequency −7.92e−15 before 2027-03-08T14:30:00Z; set low (−4.4647e−10), time-tagged');
+    expect(
+      typographicMinus(
+        'predicted offset -4.52 ns and frequency -7.92e-15 before 2027-03-08T14:30:00Z; set low (-4.4647e-10), time-tagged',
+      ),
+    ).to.equal(
+      'predicted offset −4.52 ns and frequency −7.92e−15 before 2027-03-08T14:30:00Z; set low (−4.4647e−10), time-tagged',
+    );
     expect(typographicMinus('-.5 and 1.33e-13')).to.equal('−.5 and 1.33e−13');
   });
 

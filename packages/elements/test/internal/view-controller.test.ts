@@ -1,6 +1,6 @@
 import { expect } from '@open-wc/testing';
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
-import { ViewController, type Span } from '../../src/internal/view-controller.js';
+import { type Span, ViewController } from '../../src/internal/view-controller.js';
 
 /** A host that counts update requests; the controller needs nothing else. */
 function host(): ReactiveControllerHost & { updates: number } {
@@ -8,7 +8,9 @@ function host(): ReactiveControllerHost & { updates: number } {
     updates: 0,
     addController(_c: ReactiveController): void {},
     removeController(_c: ReactiveController): void {},
-    requestUpdate(): void { h.updates += 1; },
+    requestUpdate(): void {
+      h.updates += 1;
+    },
     updateComplete: Promise.resolve(true),
   };
   return h;
@@ -24,7 +26,10 @@ function make(): { vc: ViewController; changes: Array<{ span: Span; byUser: bool
 }
 
 /** Geometry of a view [a, b] on FRAME: pixel → x. */
-const geometry = (vc: ViewController) => ({ frame: FRAME, invert: (px: number) => vc.view![0] + ((px - FRAME.left) * (vc.view![1] - vc.view![0])) / FRAME.width });
+const geometry = (vc: ViewController) => ({
+  frame: FRAME,
+  invert: (px: number) => vc.view![0] + ((px - FRAME.left) * (vc.view![1] - vc.view![0])) / FRAME.width,
+});
 
 describe('ViewController (time-axis view of the plots)', () => {
   it('new ViewController(host, onChange).setDomain(full) shows the full span and keeps a zoom that still fits new data', () => {
@@ -83,7 +88,10 @@ describe('ViewController (time-axis view of the plots)', () => {
     expect(vc.pointerUp(1)).to.equal('none');
     expect(vc.pointerUp(2)).to.equal('drag');
     expect(vc.view![1] - vc.view![0]).to.be.closeTo(1000 / 3, 1e-9);
-    expect(changes.every((c) => !c.byUser), 'gestures report on release only').to.equal(true);
+    expect(
+      changes.every((c) => !c.byUser),
+      'gestures report on release only',
+    ).to.equal(true);
   });
 
   it('ViewController.wheel(dx, dy, px, geometry) zooms around the x under the pointer and pans on a horizontal delta', () => {

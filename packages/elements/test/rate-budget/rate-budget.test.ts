@@ -1,4 +1,4 @@
-import { fixture, html, expect } from '@open-wc/testing';
+import { expect, fixture, html } from '@open-wc/testing';
 import { FLIGHT_CONFIGURATION_CAUTION, meanClockRate } from '@tauline/sdk/relativity';
 import '../../src/rate-budget/rate-budget.define.js';
 import type { TaulineRateBudget } from '../../src/rate-budget/rate-budget.js';
@@ -9,12 +9,16 @@ const cells = (el: TaulineRateBudget, rowClass: string): string[] =>
 
 describe('tauline-rate-budget', () => {
   it('<tauline-rate-budget> is accessible (axe-core) with data', async () => {
-    const el = await fixture<TaulineRateBudget>(html`<tauline-rate-budget .budget=${meanClockRate(26_561_750)}></tauline-rate-budget>`);
+    const el = await fixture<TaulineRateBudget>(
+      html`<tauline-rate-budget .budget=${meanClockRate(26_561_750)}></tauline-rate-budget>`,
+    );
     await expect(el).to.be.accessible();
   });
 
   it('budget = meanClockRate(26 561 750 m) shows +45.7884 and −7.2131 µs/day and 38.5753 µs/day net (physics-refs §2 split vs geoid [C])', async () => {
-    const el = await fixture<TaulineRateBudget>(html`<tauline-rate-budget .budget=${meanClockRate(26_561_750)}></tauline-rate-budget>`);
+    const el = await fixture<TaulineRateBudget>(
+      html`<tauline-rate-budget .budget=${meanClockRate(26_561_750)}></tauline-rate-budget>`,
+    );
     const num = (text: string): number => Number(text.replace('−', '-'));
     // Published to 4 decimals: agree within half a unit of the last digit.
     expect(num(cells(el, 'gravitational')[0]!)).to.be.closeTo(45.7884, 5e-5);
@@ -23,14 +27,18 @@ describe('tauline-rate-budget', () => {
   });
 
   it('the factory offset at a = 26 561 400 m reads −4.4647e−10 and −4.567 mHz at 10.23 MHz (IS-GPS-200E §3.3.1.1 via physics-refs §3 [V2])', async () => {
-    const el = await fixture<TaulineRateBudget>(html`<tauline-rate-budget .budget=${meanClockRate(26_561_400.1)}></tauline-rate-budget>`);
+    const el = await fixture<TaulineRateBudget>(
+      html`<tauline-rate-budget .budget=${meanClockRate(26_561_400.1)}></tauline-rate-budget>`,
+    );
     const total = cells(el, 'total');
     expect(total[2]).to.equal('−4.4647e−10');
     expect(total[3]).to.equal('−4.567 mHz');
   });
 
-  it('the factory offsets and hertz values carry the SDK\'s FLIGHT_CONFIGURATION_CAUTION, and the bar column has a visible header', async () => {
-    const el = await fixture<TaulineRateBudget>(html`<tauline-rate-budget .budget=${meanClockRate(26_561_750)}></tauline-rate-budget>`);
+  it("the factory offsets and hertz values carry the SDK's FLIGHT_CONFIGURATION_CAUTION, and the bar column has a visible header", async () => {
+    const el = await fixture<TaulineRateBudget>(
+      html`<tauline-rate-budget .budget=${meanClockRate(26_561_750)}></tauline-rate-budget>`,
+    );
     const caution = el.shadowRoot!.querySelector('[part~="caution"]')!;
     expect(caution.getAttribute('role')).to.equal('note');
     expect(caution.textContent!.trim()).to.equal(FLIGHT_CONFIGURATION_CAUTION);
@@ -39,14 +47,18 @@ describe('tauline-rate-budget', () => {
   });
 
   it('nominal-frequency attribute changes the hertz column (10.23 MHz × 2 doubles the shift)', async () => {
-    const el = await fixture<TaulineRateBudget>(html`<tauline-rate-budget nominal-frequency="20460000" .budget=${meanClockRate(26_561_400.1)}></tauline-rate-budget>`);
+    const el = await fixture<TaulineRateBudget>(
+      html`<tauline-rate-budget nominal-frequency="20460000" .budget=${meanClockRate(26_561_400.1)}></tauline-rate-budget>`,
+    );
     expect(el.nominalFrequency).to.equal(20.46e6);
     expect(cells(el, 'total')[3]).to.equal('−9.135 mHz');
   });
 
   it('j2Rate adds a J2 row and enters the net rate', async () => {
     const b = meanClockRate(26_561_750);
-    const el = await fixture<TaulineRateBudget>(html`<tauline-rate-budget .budget=${b} .j2Rate=${-3.76e-13}></tauline-rate-budget>`);
+    const el = await fixture<TaulineRateBudget>(
+      html`<tauline-rate-budget .budget=${b} .j2Rate=${-3.76e-13}></tauline-rate-budget>`,
+    );
     // Each part's share of the factory offset is −part/(1 + net rate): the J2 share is +3.7600e−13.
     expect(cells(el, 'j2')[2]).to.equal('3.7600e−13');
     const net = b.fractionalRate - 3.76e-13;
@@ -62,16 +74,22 @@ describe('tauline-rate-budget', () => {
   it('bad data shows an error state and warns once, never throws', async () => {
     const w = await captureWarnings();
     try {
-      const el = await fixture<TaulineRateBudget>(html`<tauline-rate-budget .budget=${{ fractionalRate: 'x' }}></tauline-rate-budget>`);
+      const el = await fixture<TaulineRateBudget>(
+        html`<tauline-rate-budget .budget=${{ fractionalRate: 'x' }}></tauline-rate-budget>`,
+      );
       expect(el.shadowRoot!.querySelector('.state.error')!.textContent).to.contain('budget.fractionalRate');
       el.budget = { fractionalRate: Number.NaN, gravitational: 0, velocity: 0 };
       await el.updateComplete;
       expect(w.list.map((x) => x.code)).to.deep.equal(['invalid-budget']);
-    } finally { w.restore(); }
+    } finally {
+      w.restore();
+    }
   });
 
   it('theming: --tauline-color-gain on the page colours the gain bars', async () => {
-    const wrap = await fixture<HTMLDivElement>(html`<div style="--tauline-color-gain: rgb(1, 2, 3)"><tauline-rate-budget .budget=${meanClockRate(26_561_750)}></tauline-rate-budget></div>`);
+    const wrap = await fixture<HTMLDivElement>(
+      html`<div style="--tauline-color-gain: rgb(1, 2, 3)"><tauline-rate-budget .budget=${meanClockRate(26_561_750)}></tauline-rate-budget></div>`,
+    );
     const el = wrap.querySelector('tauline-rate-budget')!;
     await el.updateComplete;
     const bar = el.shadowRoot!.querySelector('tr.gravitational .bar')!;
@@ -79,7 +97,9 @@ describe('tauline-rate-budget', () => {
   });
 
   it('styles do not leak: a page <table> keeps its own look', async () => {
-    const wrap = await fixture<HTMLDivElement>(html`<div><table><tr><td>x</td></tr></table><tauline-rate-budget .budget=${meanClockRate(26_561_750)}></tauline-rate-budget></div>`);
+    const wrap = await fixture<HTMLDivElement>(
+      html`<div><table><tr><td>x</td></tr></table><tauline-rate-budget .budget=${meanClockRate(26_561_750)}></tauline-rate-budget></div>`,
+    );
     expect(getComputedStyle(wrap.querySelector('td')!).borderBottomStyle).to.equal('none');
   });
 });

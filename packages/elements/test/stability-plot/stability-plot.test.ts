@@ -1,10 +1,10 @@
-import { fixture as openFixture, html, expect, nextFrame } from '@open-wc/testing';
+import { expect, html, nextFrame, fixture as openFixture } from '@open-wc/testing';
 import type { LitElement, TemplateResult } from 'lit';
 import '../../src/stability-plot/stability-plot.define.js';
-import type { TaulineStabilityPlot } from '../../src/stability-plot/stability-plot.js';
 import { DEFAULT_MIN_TERMS, normaliseStability } from '../../src/stability-plot/stability-data.js';
 import { decimateLogTau } from '../../src/stability-plot/stability-draw.js';
-import { scaleOf, stabilityScales, type StabilityScales } from '../../src/stability-plot/stability-layout.js';
+import { type StabilityScales, scaleOf, stabilityScales } from '../../src/stability-plot/stability-layout.js';
+import type { TaulineStabilityPlot } from '../../src/stability-plot/stability-plot.js';
 import { captureWarnings } from '../fixtures.js';
 
 // 1000-point set of W. J. Riley, NIST SP 1065 pp. 107–108, as tabulated in physics-refs §10 [V2; reproduced C]:
@@ -13,13 +13,21 @@ const OADEV = {
   statistic: 'oadev',
   tau: Float64Array.of(1, 10, 100),
   deviation: Float64Array.of(2.922319e-1, 9.159953e-2, 3.241343e-2),
-  low: Float64Array.of(2.845420e-1, 8.668102e-2, 2.5e-2),
+  low: Float64Array.of(2.84542e-1, 8.668102e-2, 2.5e-2),
   high: Float64Array.of(3.005809e-1, 9.746298e-2, 4.2e-2),
   n: Float64Array.of(998, 980, 800),
 };
-const MDEV = { statistic: 'mdev', tau: Float64Array.of(1, 10, 100), deviation: Float64Array.of(2.922319e-1, 6.172376e-2, 2.170921e-2) };
+const MDEV = {
+  statistic: 'mdev',
+  tau: Float64Array.of(1, 10, 100),
+  deviation: Float64Array.of(2.922319e-1, 6.172376e-2, 2.170921e-2),
+};
 // TDEV of the same set, physics-refs §10 [V2]: a time deviation in seconds (τ0 = 1 s), not a fraction.
-const TDEV = { statistic: 'tdev', tau: Float64Array.of(1, 10, 100), deviation: Float64Array.of(1.687202e-1, 3.563623e-1, 1.253382) };
+const TDEV = {
+  statistic: 'tdev',
+  tau: Float64Array.of(1, 10, 100),
+  deviation: Float64Array.of(1.687202e-1, 3.563623e-1, 1.253382),
+};
 
 /**
  * The plot's scales recomputed from its public surface: its `series` and `min-terms`, the legend's pressed
@@ -28,7 +36,10 @@ const TDEV = { statistic: 'tdev', tau: Float64Array.of(1, 10, 100), deviation: F
 function publicScales(el: TaulineStabilityPlot): StabilityScales | null {
   const minTerms = Number.isFinite(el.minTerms) && el.minTerms >= 1 ? el.minTerms : DEFAULT_MIN_TERMS;
   const data = normaliseStability(el.series, minTerms).series;
-  const pressed = Array.from(el.shadowRoot!.querySelectorAll('[part~="legend"] button'), (b) => b.getAttribute('aria-pressed') === 'true');
+  const pressed = Array.from(
+    el.shadowRoot!.querySelectorAll('[part~="legend"] button'),
+    (b) => b.getAttribute('aria-pressed') === 'true',
+  );
   const shown = data.filter((s, k) => s.tau.length > 0 && pressed[k] !== false);
   const r = el.shadowRoot!.querySelector('[part="plot"]')!.getBoundingClientRect();
   return stabilityScales(shown, !el.noIntervals, Math.floor(r.width), Math.floor(r.height));
@@ -60,7 +71,9 @@ async function hoverPoint(el: TaulineStabilityPlot, k: number, i: number): Promi
   const box = el.shadowRoot!.querySelector<HTMLElement>('canvas.overlay')!;
   const r = el.shadowRoot!.querySelector('canvas.data')!.getBoundingClientRect();
   const pos = pointPosition(el, k, i);
-  box.dispatchEvent(new PointerEvent('pointermove', { clientX: r.left + pos.x, clientY: r.top + pos.y, bubbles: true }));
+  box.dispatchEvent(
+    new PointerEvent('pointermove', { clientX: r.left + pos.x, clientY: r.top + pos.y, bubbles: true }),
+  );
   await el.updateComplete;
   return el.shadowRoot!.querySelector('[part="tooltip"]')!;
 }
@@ -71,7 +84,9 @@ function inkRightOfFrame(el: TaulineStabilityPlot): number {
   const f = publicScales(el)!.frame;
   const ratio = canvas.width / canvas.getBoundingClientRect().width;
   const x0 = Math.ceil((f.left + f.width + 3) * ratio);
-  const img = canvas.getContext('2d')!.getImageData(x0, Math.floor(f.top * ratio), canvas.width - x0, Math.floor(f.height * ratio));
+  const img = canvas
+    .getContext('2d')!
+    .getImageData(x0, Math.floor(f.top * ratio), canvas.width - x0, Math.floor(f.height * ratio));
   let ink = 0;
   for (let j = 3; j < img.data.length; j += 4) if (img.data[j]! > 0) ink += 1;
   return ink;
@@ -79,12 +94,16 @@ function inkRightOfFrame(el: TaulineStabilityPlot): number {
 
 describe('tauline-stability-plot', () => {
   it('<tauline-stability-plot> is accessible (axe-core) with data', async () => {
-    const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot .series=${[OADEV, MDEV]}></tauline-stability-plot>`);
+    const el = await fixture<TaulineStabilityPlot>(
+      html`<tauline-stability-plot .series=${[OADEV, MDEV]}></tauline-stability-plot>`,
+    );
     await expect(el).to.be.accessible();
   });
 
   it('renders one table row per point with the NIST SP 1065 values, and a legend entry per statistic', async () => {
-    const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot .series=${[OADEV, MDEV]}></tauline-stability-plot>`);
+    const el = await fixture<TaulineStabilityPlot>(
+      html`<tauline-stability-plot .series=${[OADEV, MDEV]}></tauline-stability-plot>`,
+    );
     const rows = el.shadowRoot!.querySelectorAll('tbody tr');
     expect(rows.length).to.equal(6);
     expect(rows[1]!.querySelectorAll('td')[1]!.textContent).to.equal('9.1600e−2');
@@ -94,7 +113,9 @@ describe('tauline-stability-plot', () => {
   });
 
   it('the canvas gets an accessible name computed from the data', async () => {
-    const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot .series=${[OADEV]}></tauline-stability-plot>`);
+    const el = await fixture<TaulineStabilityPlot>(
+      html`<tauline-stability-plot .series=${[OADEV]}></tauline-stability-plot>`,
+    );
     const label = el.shadowRoot!.querySelector('canvas.data')!.getAttribute('aria-label')!;
     expect(label).to.contain('Overlapping ADEV');
     expect(label).to.contain('1 s to 1.67 min');
@@ -105,7 +126,12 @@ describe('tauline-stability-plot', () => {
   it('accepts the SDK row form (one StabilityRow per τ)', async () => {
     const rows = [
       { tau: 1, m: 1, noise: 'WFM', statistics: { oadev: { tau: 1, deviation: 0.29, low: 0.28, high: 0.3, n: 998 } } },
-      { tau: 10, m: 10, noise: 'WFM', statistics: { oadev: { tau: 10, deviation: 0.09, low: 0.086, high: 0.097, n: 980 } } },
+      {
+        tau: 10,
+        m: 10,
+        noise: 'WFM',
+        statistics: { oadev: { tau: 10, deviation: 0.09, low: 0.086, high: 0.097, n: 980 } },
+      },
     ];
     const set = normaliseStability(rows);
     expect(set.problems).to.deep.equal([]);
@@ -114,7 +140,9 @@ describe('tauline-stability-plot', () => {
   });
 
   it('hover over a point shows a read-out with τ and the deviation', async () => {
-    const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[OADEV]}></tauline-stability-plot>`);
+    const el = await fixture<TaulineStabilityPlot>(
+      html`<tauline-stability-plot style="width:600px" .series=${[OADEV]}></tauline-stability-plot>`,
+    );
     const tip = await hoverPoint(el, 0, 1);
     expect(tip.textContent).to.contain('10 s');
     expect(tip.textContent).to.contain('9.160e−2');
@@ -124,29 +152,37 @@ describe('tauline-stability-plot', () => {
   it('non-positive points are dropped with one warning; all-bad data shows an error state', async () => {
     const w = await captureWarnings();
     try {
-      const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot .series=${[{ statistic: 'adev', tau: [1, 2], deviation: [0, -1] }]}></tauline-stability-plot>`);
+      const el = await fixture<TaulineStabilityPlot>(
+        html`<tauline-stability-plot .series=${[{ statistic: 'adev', tau: [1, 2], deviation: [0, -1] }]}></tauline-stability-plot>`,
+      );
       expect(el.shadowRoot!.querySelector('.state.error')).to.exist;
       el.series = 'nonsense' as unknown as [];
       await el.updateComplete;
       expect(el.shadowRoot!.querySelector('.state.error')!.textContent).to.contain('series must be an array');
       expect(w.list.length).to.equal(1);
-    } finally { w.restore(); }
+    } finally {
+      w.restore();
+    }
   });
 
   it('no-table leaves the table out (nothing hidden is built); the plot keeps its accessible name', async () => {
-    const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot no-table .series=${[OADEV]}></tauline-stability-plot>`);
+    const el = await fixture<TaulineStabilityPlot>(
+      html`<tauline-stability-plot no-table .series=${[OADEV]}></tauline-stability-plot>`,
+    );
     expect(el.shadowRoot!.querySelector('table')).to.equal(null);
     expect(el.shadowRoot!.querySelector('canvas.data')!.getAttribute('aria-label')).to.contain('Overlapping ADEV');
   });
 
-  it('decimateLogTau(τ, dev, lx0, lx1, cols) keeps every log-τ column\'s first, lowest, highest and last deviation (brute-force scan in the test; common practice, no source)', () => {
+  it("decimateLogTau(τ, dev, lx0, lx1, cols) keeps every log-τ column's first, lowest, highest and last deviation (brute-force scan in the test; common practice, no source)", () => {
     // Seeded (Park–Miller) τ over six decades, jittered deviations: 200 000 points into 300 columns.
     let seed = 12345;
     const rnd = (): number => (seed = (seed * 16807) % 2147483647) / 2147483647;
-    const n = 200_000, cols = 300;
+    const n = 200_000,
+      cols = 300;
     const tau = Float64Array.from({ length: n }, (_, i) => 10 ** ((6 * (i + 0.5 * rnd())) / n));
     const dev = Float64Array.from(tau, (t) => (1e-11 / Math.sqrt(t)) * (1 + 0.3 * (rnd() - 0.5)));
-    const lx0 = Math.log10(tau[0]!), lx1 = Math.log10(tau[n - 1]!) + 1e-9;
+    const lx0 = Math.log10(tau[0]!),
+      lx1 = Math.log10(tau[n - 1]!) + 1e-9;
     const line = decimateLogTau(tau, dev, lx0, lx1, cols);
     expect(line.length).to.be.at.most(4 * cols);
     const kept = new Set(Array.from(line.y.subarray(0, line.length)));
@@ -159,7 +195,8 @@ describe('tauline-stability-plot', () => {
     });
     let missing = 0;
     for (const values of byCol.values()) {
-      for (const v of [values[0]!, Math.min(...values), Math.max(...values), values[values.length - 1]!]) if (!kept.has(v)) missing += 1;
+      for (const v of [values[0]!, Math.min(...values), Math.max(...values), values[values.length - 1]!])
+        if (!kept.has(v)) missing += 1;
     }
     expect(missing).to.equal(0);
     for (let i = 1; i < line.length; i++) expect(line.x[i]!).to.be.at.least(line.x[i - 1]!);
@@ -167,8 +204,14 @@ describe('tauline-stability-plot', () => {
 
   it('the table is windowed: 10^5 points put at most 30 rows in the DOM, aria-rowcount gives the full count, scrolling moves the window', async () => {
     const n = 100_000;
-    const big = { statistic: 'oadev', tau: Float64Array.from({ length: n }, (_, i) => i + 1), deviation: Float64Array.from({ length: n }, (_, i) => 1e-11 / Math.sqrt(i + 1)) };
-    const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:700px" .series=${[big]}></tauline-stability-plot>`);
+    const big = {
+      statistic: 'oadev',
+      tau: Float64Array.from({ length: n }, (_, i) => i + 1),
+      deviation: Float64Array.from({ length: n }, (_, i) => 1e-11 / Math.sqrt(i + 1)),
+    };
+    const el = await fixture<TaulineStabilityPlot>(
+      html`<tauline-stability-plot style="width:700px" .series=${[big]}></tauline-stability-plot>`,
+    );
     const rows = () => el.shadowRoot!.querySelectorAll('tbody tr[part~="row"]');
     expect(rows().length).to.be.at.most(30);
     expect(el.shadowRoot!.querySelector('table')!.getAttribute('aria-rowcount')).to.equal(String(n + 1));
@@ -182,31 +225,55 @@ describe('tauline-stability-plot', () => {
   });
 
   it('an update reads no layout: setting 10^4 points and hovering call getBoundingClientRect on nothing', async () => {
-    const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:700px" .series=${[OADEV]}></tauline-stability-plot>`);
+    const el = await fixture<TaulineStabilityPlot>(
+      html`<tauline-stability-plot style="width:700px" .series=${[OADEV]}></tauline-stability-plot>`,
+    );
     const original = Element.prototype.getBoundingClientRect;
     let reads = 0;
-    Element.prototype.getBoundingClientRect = function (this: Element) { reads += 1; return original.call(this); };
+    Element.prototype.getBoundingClientRect = function (this: Element) {
+      reads += 1;
+      return original.call(this);
+    };
     try {
       const n = 10_000;
-      el.series = [{ statistic: 'oadev', tau: Float64Array.from({ length: n }, (_, i) => i + 1), deviation: Float64Array.from({ length: n }, (_, i) => 1e-11 / Math.sqrt(i + 1)) }];
+      el.series = [
+        {
+          statistic: 'oadev',
+          tau: Float64Array.from({ length: n }, (_, i) => i + 1),
+          deviation: Float64Array.from({ length: n }, (_, i) => 1e-11 / Math.sqrt(i + 1)),
+        },
+      ];
       await el.updateComplete;
       await nextFrame();
       await el.updateComplete;
       const overlay = el.shadowRoot!.querySelector('canvas.overlay')!;
       overlay.dispatchEvent(new PointerEvent('pointermove', { clientX: 200, clientY: 100, bubbles: true }));
       await el.updateComplete;
-    } finally { Element.prototype.getBoundingClientRect = original; }
+    } finally {
+      Element.prototype.getBoundingClientRect = original;
+    }
     expect(reads).to.equal(0);
     // It drew all the same: the data canvas has ink.
     const data = el.shadowRoot!.querySelector<HTMLCanvasElement>('canvas.data')!;
-    const ink = data.getContext('2d')!.getImageData(0, 0, data.width, data.height).data.some((v, j) => j % 4 === 3 && v > 0);
+    const ink = data
+      .getContext('2d')!
+      .getImageData(0, 0, data.width, data.height)
+      .data.some((v, j) => j % 4 === 3 && v > 0);
     expect(ink).to.equal(true);
   });
 
   it('a τ with fewer than min-terms terms (default 2, NIST SP 1065 §5.3 [M]) is left off and named in a note; min-terms="1" shows it', async () => {
-    const withLast = { ...OADEV, tau: Float64Array.of(1, 10, 100, 500), deviation: Float64Array.of(2.922319e-1, 9.159953e-2, 3.241343e-2, 2e-2),
-      low: Float64Array.of(2.845420e-1, 8.668102e-2, 2.5e-2, 1e-3), high: Float64Array.of(3.005809e-1, 9.746298e-2, 4.2e-2, 9), n: Float64Array.of(998, 980, 800, 1) };
-    const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[withLast]}></tauline-stability-plot>`);
+    const withLast = {
+      ...OADEV,
+      tau: Float64Array.of(1, 10, 100, 500),
+      deviation: Float64Array.of(2.922319e-1, 9.159953e-2, 3.241343e-2, 2e-2),
+      low: Float64Array.of(2.84542e-1, 8.668102e-2, 2.5e-2, 1e-3),
+      high: Float64Array.of(3.005809e-1, 9.746298e-2, 4.2e-2, 9),
+      n: Float64Array.of(998, 980, 800, 1),
+    };
+    const el = await fixture<TaulineStabilityPlot>(
+      html`<tauline-stability-plot style="width:600px" .series=${[withLast]}></tauline-stability-plot>`,
+    );
     expect(el.shadowRoot!.querySelectorAll('tbody tr[part~="row"]').length).to.equal(3);
     expect(el.shadowRoot!.querySelector('[part~="note"]')!.textContent).to.contain('OADEV at τ = 8.33 min');
     expect(publicScales(el)!.sx.domain[1]).to.be.below(500);
@@ -217,7 +284,9 @@ describe('tauline-stability-plot', () => {
   });
 
   it('legend buttons (aria-pressed) hide and show a statistic: it leaves the plot, its accessible name and the table', async () => {
-    const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[OADEV, MDEV]}></tauline-stability-plot>`);
+    const el = await fixture<TaulineStabilityPlot>(
+      html`<tauline-stability-plot style="width:600px" .series=${[OADEV, MDEV]}></tauline-stability-plot>`,
+    );
     const buttons = el.shadowRoot!.querySelectorAll<HTMLButtonElement>('[part~="legend"] button');
     expect(buttons.length).to.equal(2);
     expect(buttons[0]!.getAttribute('aria-pressed')).to.equal('true');
@@ -235,12 +304,16 @@ describe('tauline-stability-plot', () => {
 
   describe('units: TDEV (seconds) apart from the dimensionless σ_y statistics (common practice, no source: one axis per unit)', () => {
     it('<tauline-stability-plot> with OADEV, MDEV and TDEV is accessible (axe-core)', async () => {
-      const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot .series=${[OADEV, MDEV, TDEV]}></tauline-stability-plot>`);
+      const el = await fixture<TaulineStabilityPlot>(
+        html`<tauline-stability-plot .series=${[OADEV, MDEV, TDEV]}></tauline-stability-plot>`,
+      );
       await expect(el).to.be.accessible();
     });
 
     it('with only TDEV the single left axis is the time axis: no σ_y scale, no right-hand axis, table unit s', async () => {
-      const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[TDEV]}></tauline-stability-plot>`);
+      const el = await fixture<TaulineStabilityPlot>(
+        html`<tauline-stability-plot style="width:600px" .series=${[TDEV]}></tauline-stability-plot>`,
+      );
       const sc = publicScales(el)!;
       expect(sc.syFrequency).to.equal(null);
       expect(sc.syTime!.domain[0]).to.be.below(1.687202e-1);
@@ -256,7 +329,9 @@ describe('tauline-stability-plot', () => {
     });
 
     it('with only dimensionless statistics there is no time scale and nothing right of the frame', async () => {
-      const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[OADEV, MDEV]}></tauline-stability-plot>`);
+      const el = await fixture<TaulineStabilityPlot>(
+        html`<tauline-stability-plot style="width:600px" .series=${[OADEV, MDEV]}></tauline-stability-plot>`,
+      );
       const sc = publicScales(el)!;
       expect(sc.syTime).to.equal(null);
       expect(sc.syFrequency).not.to.equal(null);
@@ -265,25 +340,33 @@ describe('tauline-stability-plot', () => {
     });
 
     it('with both, TDEV gets its own scale on a right-hand axis and the σ_y scale does not stretch to seconds', async () => {
-      const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[OADEV, MDEV, TDEV]}></tauline-stability-plot>`);
+      const el = await fixture<TaulineStabilityPlot>(
+        html`<tauline-stability-plot style="width:600px" .series=${[OADEV, MDEV, TDEV]}></tauline-stability-plot>`,
+      );
       const sc = publicScales(el)!;
       // σ_y spans 2.17e−2 … 3.01e−1 (with the interval): the 1.25 s TDEV value must not widen it.
       expect(sc.syFrequency!.domain[1]).to.be.below(0.5);
       expect(sc.syTime!.domain[1]).to.be.above(1.253382);
       expect(inkRightOfFrame(el)).to.be.above(50);
-      const top = sc.frame.top, bottom = sc.frame.top + sc.frame.height;
+      const top = sc.frame.top,
+        bottom = sc.frame.top + sc.frame.height;
       for (let i = 0; i < 3; i++) {
         const p = pointPosition(el, 2, i);
         expect(p.y).to.be.within(top, bottom);
       }
       const legend = Array.from(el.shadowRoot!.querySelectorAll('[part="legend"] li'), (li) => li.textContent!.trim());
       expect(legend).to.deep.equal(['Overlapping ADEV', 'MDEV', 'TDEV (s, right axis)']);
-      const units = Array.from(el.shadowRoot!.querySelectorAll('tbody tr'), (tr) => tr.querySelectorAll('td')[4]!.textContent);
+      const units = Array.from(
+        el.shadowRoot!.querySelectorAll('tbody tr'),
+        (tr) => tr.querySelectorAll('td')[4]!.textContent,
+      );
       expect(units).to.deep.equal(['1', '1', '1', '1', '1', '1', 's', 's', 's']);
     });
 
     it('the accessible name names both quantities with their units when both are drawn', async () => {
-      const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot .series=${[OADEV, TDEV]}></tauline-stability-plot>`);
+      const el = await fixture<TaulineStabilityPlot>(
+        html`<tauline-stability-plot .series=${[OADEV, TDEV]}></tauline-stability-plot>`,
+      );
       const label = el.plotLabel;
       expect(el.shadowRoot!.querySelector('canvas.data')!.getAttribute('aria-label')).to.equal(label);
       expect(label).to.contain('Overlapping ADEV (fractional frequency, dimensionless) from 3.24e−2 to 2.92e−1');
@@ -292,7 +375,9 @@ describe('tauline-stability-plot', () => {
     });
 
     it('hover over a TDEV point reads out the time deviation in seconds; an OADEV point stays dimensionless', async () => {
-      const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[OADEV, TDEV]}></tauline-stability-plot>`);
+      const el = await fixture<TaulineStabilityPlot>(
+        html`<tauline-stability-plot style="width:600px" .series=${[OADEV, TDEV]}></tauline-stability-plot>`,
+      );
       const tip = await hoverPoint(el, 1, 2);
       expect(tip.textContent).to.contain('TDEV (s, right axis)');
       expect(tip.textContent).to.contain('Time deviation');
@@ -304,10 +389,15 @@ describe('tauline-stability-plot', () => {
     });
 
     it('keyboard: ←/→ step through points and ↓ switches to TDEV, announcing the value with its unit', async () => {
-      const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[OADEV, TDEV]}></tauline-stability-plot>`);
+      const el = await fixture<TaulineStabilityPlot>(
+        html`<tauline-stability-plot style="width:600px" .series=${[OADEV, TDEV]}></tauline-stability-plot>`,
+      );
       const box = el.shadowRoot!.querySelector<HTMLElement>('.plot-box')!;
       const live = el.shadowRoot!.querySelector('[aria-live="polite"]')!;
-      const key = async (k: string): Promise<void> => { box.dispatchEvent(new KeyboardEvent('keydown', { key: k, bubbles: true })); await el.updateComplete; };
+      const key = async (k: string): Promise<void> => {
+        box.dispatchEvent(new KeyboardEvent('keydown', { key: k, bubbles: true }));
+        await el.updateComplete;
+      };
       await key('ArrowRight');
       expect(live.textContent).to.equal('Overlapping ADEV at τ = 1 s: 2.922e−1 (dimensionless)');
       await key('ArrowRight');
@@ -322,14 +412,18 @@ describe('tauline-stability-plot', () => {
       const w = await captureWarnings();
       try {
         const bad = { statistic: 'tdev', tau: [1, 10], deviation: [Number.NaN, -1e-9] };
-        const el = await fixture<TaulineStabilityPlot>(html`<tauline-stability-plot style="width:600px" .series=${[OADEV, bad]}></tauline-stability-plot>`);
+        const el = await fixture<TaulineStabilityPlot>(
+          html`<tauline-stability-plot style="width:600px" .series=${[OADEV, bad]}></tauline-stability-plot>`,
+        );
         const sc = publicScales(el)!;
         expect(sc.syTime).to.equal(null);
         expect(sc.syFrequency).not.to.equal(null);
         expect(el.plotLabel).not.to.contain('TDEV');
         expect(w.list.length).to.equal(1);
         expect(w.list[0]!.message).to.contain('(tdev): 2 point(s)');
-      } finally { w.restore(); }
+      } finally {
+        w.restore();
+      }
     });
   });
 });

@@ -1,9 +1,9 @@
-import { fixture, html, expect } from '@open-wc/testing';
+import { expect, fixture, html } from '@open-wc/testing';
 import '../../src/steering-schedule/steering-schedule.define.js';
-import type { TaulineSteeringSchedule } from '../../src/steering-schedule/steering-schedule.js';
 import { BUNDLED_LEAP_SECONDS, createTimeScales, defineLeapSecondTable } from '@tauline/sdk/time';
 import { chartTimeToUtcMs, elapsedSecondsBetween, readPlan } from '../../src/steering-schedule/plan-data.js';
 import { describeFailure, guardPlan } from '../../src/steering-schedule/plan-guard.js';
+import type { TaulineSteeringSchedule } from '../../src/steering-schedule/steering-schedule.js';
 import { examplePlan, orinPlan, secondsFrom, tableStamp } from '../fixtures.js';
 
 describe('guardPlan(plan, scenario) (the SDK steering contract)', () => {
@@ -26,13 +26,17 @@ describe('guardPlan(plan, scenario) (the SDK steering contract)', () => {
     const commands = plan.commands.map((c, k) => (k === 1 ? { ...c, executeAt: 299_400 } : c));
     expect(failure({ ...plan, commands })).to.equal('plan.commands[1].executeAt must be a string; received 299400');
     const kinds = plan.commands.map((c, k) => (k === 2 ? { ...c, kind: 'time' } : c));
-    expect(failure({ ...plan, commands: kinds })).to.equal('plan.commands[2].kind must be "frequency" or "phase"; received "time"');
+    expect(failure({ ...plan, commands: kinds })).to.equal(
+      'plan.commands[2].kind must be "frequency" or "phase"; received "time"',
+    );
     const { metrics: _metrics, ...noMetrics } = plan;
     expect(failure(noMetrics)).to.equal('plan.metrics must be the SteeringMetrics object; received undefined');
     const { caution: _caution, ...noCaution } = plan;
     expect(failure(noCaution)).to.equal('plan.caution must be a string; received undefined');
     const contacts = scenario.contacts.map((w, k) => (k === 2 ? { start: w.start } : w));
-    expect(failure(plan, { ...scenario, contacts })).to.equal('scenario.contacts[2].end must be a string; received undefined');
+    expect(failure(plan, { ...scenario, contacts })).to.equal(
+      'scenario.contacts[2].end must be a string; received undefined',
+    );
     expect(failure(plan, null)).to.equal('scenario must be the SteeringScenario the plan was made for; received null');
   });
 });
@@ -44,7 +48,9 @@ describe('readPlan(plan, scenario) on the ORIN-3 plan', () => {
     expect(r.ok).to.equal(true);
     if (!r.ok) return;
     const at = (stamp: string): number => secondsFrom(scenario.epoch, stamp);
-    expect(r.view.commands.map((c) => c.executeAt)).to.deep.equal(plan.commands.map((c) => at(c.executeAt)).sort((a, b) => a - b));
+    expect(r.view.commands.map((c) => c.executeAt)).to.deep.equal(
+      plan.commands.map((c) => at(c.executeAt)).sort((a, b) => a - b),
+    );
     expect(r.view.commands.map((c) => c.uplinkAt)).to.deep.equal(plan.commands.map((c) => at(c.uplinkAt)));
     expect(r.view.tolerance).to.equal(scenario.tolerance.phaseSeconds);
     expect(r.view.maneuvers.map((m) => m.at)).to.deep.equal(scenario.maneuvers!.map((m) => at(m.at)));
@@ -58,10 +64,19 @@ describe('readPlan(plan, scenario) on the ORIN-3 plan', () => {
 // the leap second: the SDK plans a phase step at 23:59:30 and, 1800 s of spacing later, a frequency step at 00:29:29.
 describe('readPlan(plan, scenario) across a leap second', () => {
   const epoch = '2016-12-31T12:00:00Z';
-  const leapPlan = () => examplePlan('halcyr-g1-geo', { key: 'leap-2016', apply: (s) => {
-    s.epoch = epoch; s.horizonSeconds = 86_400; s.clock.phaseSeconds = 40e-9;
-    s.contacts = [{ start: '2016-12-31T23:59:30Z', end: '2017-01-01T00:00:30Z' }, { start: '2017-01-01T06:00:00Z', end: '2017-01-01T07:00:00Z' }];
-  } });
+  const leapPlan = () =>
+    examplePlan('halcyr-g1-geo', {
+      key: 'leap-2016',
+      apply: (s) => {
+        s.epoch = epoch;
+        s.horizonSeconds = 86_400;
+        s.clock.phaseSeconds = 40e-9;
+        s.contacts = [
+          { start: '2016-12-31T23:59:30Z', end: '2017-01-01T00:00:30Z' },
+          { start: '2017-01-01T06:00:00Z', end: '2017-01-01T07:00:00Z' },
+        ];
+      },
+    });
 
   it('elapsedSecondsBetween(epoch, stamp) counts the leap second (43 200 s to 23:59:60, 43 201 s to midnight) and refuses stamps after the table', () => {
     expect(elapsedSecondsBetween(epoch, '2016-12-31T23:59:59Z')).to.equal(43_199);
@@ -73,7 +88,7 @@ describe('readPlan(plan, scenario) across a leap second', () => {
     expect(Number.isNaN(elapsedSecondsBetween(epoch, 'noon'))).to.equal(true);
   });
 
-  it('readPlan(plan, scenario) places the SDK plan\'s contacts and commands at elapsed SI seconds, the leap second counted', async () => {
+  it("readPlan(plan, scenario) places the SDK plan's contacts and commands at elapsed SI seconds, the leap second counted", async () => {
     const { plan, scenario } = await leapPlan();
     const r = readPlan(plan, scenario);
     expect(r.ok).to.equal(true);
@@ -83,25 +98,32 @@ describe('readPlan(plan, scenario) across a leap second', () => {
     // Each command: the leap-free Date.parse difference plus the one leap second when it lies after midnight [C].
     const leap = Date.parse('2017-01-01T00:00:00Z');
     expect(r.view.commands.map((c) => c.executeAt)).to.deep.equal(
-      plan.commands.map((c) => secondsFrom(epoch, c.executeAt) + (Date.parse(c.executeAt) >= leap ? 1 : 0)));
+      plan.commands.map((c) => secondsFrom(epoch, c.executeAt) + (Date.parse(c.executeAt) >= leap ? 1 : 0)),
+    );
     expect(plan.commands.map((c) => c.executeAt)).to.deep.equal(['2016-12-31T23:59:30Z', '2017-01-01T00:29:29Z']);
     // Labels: 06:00:00 UTC after the leap second (64 801 s), not 06:00:01; 23:59:59 before it.
     expect(chartTimeToUtcMs(r.view, 64_801)).to.equal(Date.UTC(2017, 0, 1, 6));
     expect(chartTimeToUtcMs(r.view, 43_199)).to.equal(Date.UTC(2016, 11, 31, 23, 59, 59));
   });
 
-  it('<tauline-steering-schedule> prints the SDK\'s stamps on both sides of the leap second in its table', async () => {
-    const el = await fixture<TaulineSteeringSchedule>(html`<tauline-steering-schedule style="width: 760px"></tauline-steering-schedule>`);
+  it("<tauline-steering-schedule> prints the SDK's stamps on both sides of the leap second in its table", async () => {
+    const el = await fixture<TaulineSteeringSchedule>(
+      html`<tauline-steering-schedule style="width: 760px"></tauline-steering-schedule>`,
+    );
     const { plan, scenario } = await leapPlan();
     el.plan = plan;
     el.scenario = scenario;
     await el.updateComplete;
-    const rows = [...el.shadowRoot!.querySelectorAll('tbody tr')].map((row) => [...row.querySelectorAll('td')].map((td) => td.textContent!.trim()));
+    const rows = [...el.shadowRoot!.querySelectorAll('tbody tr')].map((row) =>
+      [...row.querySelectorAll('td')].map((td) => td.textContent!.trim()),
+    );
     expect(rows.map((cells) => cells[1])).to.deep.equal(plan.commands.map((c) => tableStamp(c.executeAt)));
   });
 
   it('<tauline-steering-schedule> reads stamps with its timeScales property: the horizon ends 86 400 SI s later, 11:59:59 UTC, or 12:00 on a table without that leap second', async () => {
-    const el = await fixture<TaulineSteeringSchedule>(html`<tauline-steering-schedule style="width: 760px"></tauline-steering-schedule>`);
+    const el = await fixture<TaulineSteeringSchedule>(
+      html`<tauline-steering-schedule style="width: 760px"></tauline-steering-schedule>`,
+    );
     const { plan, scenario } = await leapPlan();
     el.plan = plan;
     el.scenario = scenario;
@@ -109,7 +131,9 @@ describe('readPlan(plan, scenario) across a leap second', () => {
     expect(el.plotLabel).to.contain('from 2016-12-31 12:00 UTC to 2017-01-01 11:59:59 UTC');
     // The bundled table cut before MJD 57 754 (2017-01-01): a table too old to know that leap second.
     const entries = BUNDLED_LEAP_SECONDS.entries.filter((e) => e.mjd < 57_754);
-    el.timeScales = createTimeScales(defineLeapSecondTable({ entries, validUntilMjd: 57_754 + 200, source: 'test: without 2017-01-01' }));
+    el.timeScales = createTimeScales(
+      defineLeapSecondTable({ entries, validUntilMjd: 57_754 + 200, source: 'test: without 2017-01-01' }),
+    );
     await el.updateComplete;
     expect(el.plotLabel).to.contain('from 2016-12-31 12:00 UTC to 2017-01-01 12:00 UTC');
   });

@@ -1,8 +1,15 @@
 // Where the element drew things, recomputed from its public surface only (its plan, scenario, attributes,
 // public `view` and the plot box's size) with the pure layout functions it draws with (schedule-draw.ts).
+
+import { type PlanView, readPlan } from '../../src/steering-schedule/plan-data.js';
+import {
+  type CommandMarker,
+  commandMarkers,
+  layoutSchedule,
+  type ScheduleLayout,
+  uncertaintyBand,
+} from '../../src/steering-schedule/schedule-draw.js';
 import type { TaulineSteeringSchedule } from '../../src/steering-schedule/steering-schedule.js';
-import { readPlan, type PlanView } from '../../src/steering-schedule/plan-data.js';
-import { commandMarkers, layoutSchedule, uncertaintyBand, type CommandMarker, type ScheduleLayout } from '../../src/steering-schedule/schedule-draw.js';
 
 export interface PublicLayout {
   view: PlanView;
@@ -20,8 +27,13 @@ export function publicLayout(el: TaulineSteeringSchedule): PublicLayout {
   if (!read.ok) throw new Error(read.error);
   const span = el.view!;
   const k = Number.isFinite(el.sigmaMultiple) && el.sigmaMultiple >= 0 ? el.sigmaMultiple : 2;
-  const layout = layoutSchedule(read.view, uncertaintyBand(read.view, k), [span.startSeconds, span.endSeconds],
-    { width: Math.floor(rect.width), height: Math.floor(rect.height) }, { yUnit: el.yUnit, fitAll: el.fitAll, devicePixelRatio: globalThis.devicePixelRatio });
+  const layout = layoutSchedule(
+    read.view,
+    uncertaintyBand(read.view, k),
+    [span.startSeconds, span.endSeconds],
+    { width: Math.floor(rect.width), height: Math.floor(rect.height) },
+    { yUnit: el.yUnit, fitAll: el.fitAll, devicePixelRatio: globalThis.devicePixelRatio },
+  );
   return { view: read.view, layout, markers: commandMarkers(read.view, layout.scales), rect, box };
 }
 

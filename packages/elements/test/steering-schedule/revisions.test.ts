@@ -1,14 +1,16 @@
-import { fixture, html, expect } from '@open-wc/testing';
+import { expect, fixture, html } from '@open-wc/testing';
 import '../../src/steering-schedule/steering-schedule.define.js';
-import type { TaulineSteeringSchedule } from '../../src/steering-schedule/steering-schedule.js';
 import { readPlan } from '../../src/steering-schedule/plan-data.js';
 import { readRevisions } from '../../src/steering-schedule/revisions-layer.js';
-import { ORIN_ESTIMATES, captureWarnings, orinRevision, secondsFrom } from '../fixtures.js';
+import type { TaulineSteeringSchedule } from '../../src/steering-schedule/steering-schedule.js';
+import { captureWarnings, ORIN_ESTIMATES, orinRevision, secondsFrom } from '../fixtures.js';
 import { pixelAt, publicLayout } from './public-layout.js';
 
 /** The original ORIN-3 plan with the revision's superseded commands and the estimates it used. */
 async function render(): Promise<TaulineSteeringSchedule> {
-  const el = await fixture<TaulineSteeringSchedule>(html`<tauline-steering-schedule style="width: 760px"></tauline-steering-schedule>`);
+  const el = await fixture<TaulineSteeringSchedule>(
+    html`<tauline-steering-schedule style="width: 760px"></tauline-steering-schedule>`,
+  );
   const { plan, revised, scenario } = await orinRevision();
   el.plan = plan;
   el.scenario = scenario;
@@ -19,7 +21,7 @@ async function render(): Promise<TaulineSteeringSchedule> {
 }
 
 describe('tauline-steering-schedule revisions', () => {
-  it('readRevisions(superseded, estimates, clock) reads the SDK revision\'s superseded commands and the estimates, and names an unreadable one', async () => {
+  it("readRevisions(superseded, estimates, clock) reads the SDK revision's superseded commands and the estimates, and names an unreadable one", async () => {
     const { plan, revised, scenario } = await orinRevision();
     const r = readPlan(plan, scenario);
     if (!r.ok) throw new Error(r.error);
@@ -28,15 +30,25 @@ describe('tauline-steering-schedule revisions', () => {
     const read = readRevisions(superseded, ORIN_ESTIMATES, r.view);
     expect(read.ok).to.equal(true);
     if (!read.ok) return;
-    expect(read.view.superseded).to.deep.equal(superseded.map((c) => ({ executeAt: secondsFrom(scenario.epoch, c.executeAt), kind: c.kind })));
-    expect(read.view.estimates).to.deep.equal(ORIN_ESTIMATES.map((e) => ({ t: e.tSeconds, phase: e.phaseSeconds, sigma: e.sigmaSeconds })));
-    const bad = readRevisions(superseded, [...ORIN_ESTIMATES, { tSeconds: Number.NaN, phaseSeconds: 0, sigmaSeconds: 1e-10 }], r.view);
-    expect(bad.ok ? 'accepted' : bad.error).to.equal('estimates[2].tSeconds must be a finite number of seconds (σ ≥ 0); received NaN');
+    expect(read.view.superseded).to.deep.equal(
+      superseded.map((c) => ({ executeAt: secondsFrom(scenario.epoch, c.executeAt), kind: c.kind })),
+    );
+    expect(read.view.estimates).to.deep.equal(
+      ORIN_ESTIMATES.map((e) => ({ t: e.tSeconds, phase: e.phaseSeconds, sigma: e.sigmaSeconds })),
+    );
+    const bad = readRevisions(
+      superseded,
+      [...ORIN_ESTIMATES, { tSeconds: Number.NaN, phaseSeconds: 0, sigmaSeconds: 1e-10 }],
+      r.view,
+    );
+    expect(bad.ok ? 'accepted' : bad.error).to.equal(
+      'estimates[2].tSeconds must be a finite number of seconds (σ ≥ 0); received NaN',
+    );
     const wrong = readRevisions([{ ...superseded[0]!, executeAt: 5 }], ORIN_ESTIMATES, r.view);
     expect(wrong.ok ? 'accepted' : wrong.error).to.equal('superseded[0].executeAt must be a string; received 5');
   });
 
-  it('<tauline-steering-schedule> paints each estimate\'s dot and ±1σ bar, and removes them when the revision is cleared', async () => {
+  it("<tauline-steering-schedule> paints each estimate's dot and ±1σ bar, and removes them when the revision is cleared", async () => {
     const el = await render();
     const { layout } = publicLayout(el);
     const { sx, sy } = layout.scales;

@@ -1,9 +1,9 @@
-import { fixture, html, expect, oneEvent } from '@open-wc/testing';
+import { expect, fixture, html, oneEvent } from '@open-wc/testing';
 import { sendKeys } from '@web/test-runner-commands';
 import '../../src/steering-schedule/steering-schedule.define.js';
-import type { TaulineSteeringSchedule } from '../../src/steering-schedule/steering-schedule.js';
-import { commandShape } from '../../src/steering-schedule/schedule-draw.js';
 import { decimateLine, visibleRange } from '../../src/internal/decimate.js';
+import { commandShape } from '../../src/steering-schedule/schedule-draw.js';
+import type { TaulineSteeringSchedule } from '../../src/steering-schedule/steering-schedule.js';
 import { captureWarnings, halcyrPhasePlan, orinPlan, secondsFrom, tableStamp } from '../fixtures.js';
 import { pixelAt, publicLayout } from './public-layout.js';
 
@@ -14,8 +14,14 @@ const SPAN = 7 * 86_400;
 const typographic = (text: string): string => text.replace(/-/g, '−');
 
 async function render(attrs = '', source = orinPlan): Promise<TaulineSteeringSchedule> {
-  const el = await fixture<TaulineSteeringSchedule>(html`<tauline-steering-schedule style="width: 760px"></tauline-steering-schedule>`);
-  if (attrs) for (const a of attrs.split(' ')) { const [k, v] = a.split('='); el.setAttribute(k!, v ?? ''); }
+  const el = await fixture<TaulineSteeringSchedule>(
+    html`<tauline-steering-schedule style="width: 760px"></tauline-steering-schedule>`,
+  );
+  if (attrs)
+    for (const a of attrs.split(' ')) {
+      const [k, v] = a.split('=');
+      el.setAttribute(k!, v ?? '');
+    }
   const { plan, scenario } = await source();
   el.plan = plan;
   el.scenario = scenario;
@@ -43,7 +49,9 @@ describe('tauline-steering-schedule', () => {
     plan.commands.forEach((c, k) => {
       const [uplink, executes, kind, step] = cells(rows[k]!);
       expect([uplink, executes, kind]).to.deep.equal([tableStamp(c.uplinkAt), tableStamp(c.executeAt), 'frequency']);
-      expect(step).to.equal(typographic(`${c.fractionalFrequencyStep! >= 0 ? '+' : ''}${c.fractionalFrequencyStep!.toExponential(3)}`));
+      expect(step).to.equal(
+        typographic(`${c.fractionalFrequencyStep! >= 0 ? '+' : ''}${c.fractionalFrequencyStep!.toExponential(3)}`),
+      );
     });
   });
 
@@ -106,7 +114,9 @@ describe('tauline-steering-schedule', () => {
 
   it('setting plan, scenario, selectedIndex or the view from the host fires no event', async () => {
     let fired = 0;
-    const count = (): void => { fired++; };
+    const count = (): void => {
+      fired++;
+    };
     document.addEventListener('tauline-command-select', count);
     document.addEventListener('tauline-view-change', count);
     try {
@@ -154,9 +164,14 @@ describe('tauline-steering-schedule', () => {
     const el = await render();
     const { layout, rect, box } = publicLayout(el);
     const { frame, sx } = layout.scales;
-    const cx = rect.left + frame.left + frame.width / 2, cy = rect.top + frame.top + 20;
+    const cx = rect.left + frame.left + frame.width / 2,
+      cy = rect.top + frame.top + 20;
     const anchor = sx.invert(cx - rect.left);
-    setTimeout(() => box.dispatchEvent(new WheelEvent('wheel', { deltaY: -200, clientX: cx, clientY: cy, bubbles: true, cancelable: true })));
+    setTimeout(() =>
+      box.dispatchEvent(
+        new WheelEvent('wheel', { deltaY: -200, clientX: cx, clientY: cy, bubbles: true, cancelable: true }),
+      ),
+    );
     const z = await oneEvent(el, 'tauline-view-change');
     expect(z.detail.endSeconds - z.detail.startSeconds).to.be.lessThan(SPAN);
     expect(z.detail.startSeconds).to.be.lessThan(anchor);
@@ -165,7 +180,9 @@ describe('tauline-steering-schedule', () => {
     const before = el.view!.startSeconds;
     setTimeout(() => {
       box.dispatchEvent(new PointerEvent('pointerdown', { clientX: cx, clientY: cy, pointerId: 7, bubbles: true }));
-      box.dispatchEvent(new PointerEvent('pointermove', { clientX: cx - 100, clientY: cy, pointerId: 7, bubbles: true }));
+      box.dispatchEvent(
+        new PointerEvent('pointermove', { clientX: cx - 100, clientY: cy, pointerId: 7, bubbles: true }),
+      );
       box.dispatchEvent(new PointerEvent('pointerup', { clientX: cx - 100, clientY: cy, pointerId: 7, bubbles: true }));
     });
     const p = await oneEvent(el, 'tauline-view-change');
@@ -176,8 +193,10 @@ describe('tauline-steering-schedule', () => {
     const el = await render();
     const box = shadow(el).querySelector<HTMLElement>('.plot-box')!;
     const r = box.getBoundingClientRect();
-    const y = r.top + 100, mid = r.left + 380;
-    const pe = (type: string, id: number, x: number) => new PointerEvent(type, { clientX: x, clientY: y, pointerId: id, pointerType: 'touch', bubbles: true });
+    const y = r.top + 100,
+      mid = r.left + 380;
+    const pe = (type: string, id: number, x: number) =>
+      new PointerEvent(type, { clientX: x, clientY: y, pointerId: id, pointerType: 'touch', bubbles: true });
     box.dispatchEvent(pe('pointerdown', 1, mid - 50));
     box.dispatchEvent(pe('pointerdown', 2, mid + 50));
     box.dispatchEvent(pe('pointermove', 1, mid - 150));
@@ -193,7 +212,13 @@ describe('tauline-steering-schedule', () => {
     const el = await render('y-unit=ns');
     const { plan } = await orinPlan();
     const { layout, rect, box } = publicLayout(el);
-    box.dispatchEvent(new PointerEvent('pointermove', { clientX: rect.left + layout.scales.sx.map(0) + 0.2, clientY: rect.top + layout.scales.frame.top + 5, bubbles: true }));
+    box.dispatchEvent(
+      new PointerEvent('pointermove', {
+        clientX: rect.left + layout.scales.sx.map(0) + 0.2,
+        clientY: rect.top + layout.scales.frame.top + 5,
+        bubbles: true,
+      }),
+    );
     await el.updateComplete;
     const tip = shadow(el).querySelector('[part="tooltip"]')!.textContent!;
     expect(tip).to.contain('2027-02-08 00:00:00 UTC');
@@ -211,7 +236,9 @@ describe('tauline-steering-schedule', () => {
   });
 
   it('theming: --tauline-color-steered set on the page colours the steered line on the canvas', async () => {
-    const wrap = await fixture<HTMLDivElement>(html`<div style="--tauline-color-steered: rgb(255, 0, 0); --tauline-color-uncertainty: rgb(0, 0, 255)"><tauline-steering-schedule style="width: 600px"></tauline-steering-schedule></div>`);
+    const wrap = await fixture<HTMLDivElement>(
+      html`<div style="--tauline-color-steered: rgb(255, 0, 0); --tauline-color-uncertainty: rgb(0, 0, 255)"><tauline-steering-schedule style="width: 600px"></tauline-steering-schedule></div>`,
+    );
     const el = wrap.querySelector('tauline-steering-schedule')!;
     const { plan, scenario } = await orinPlan();
     plan.predicted.steered.phaseSeconds.fill(0);
@@ -224,15 +251,26 @@ describe('tauline-steering-schedule', () => {
   });
 
   it('10^6 samples (the ORIN-3 prediction interpolated) render through decimation: far fewer path vertices than samples', async () => {
-    const el = await fixture<TaulineSteeringSchedule>(html`<tauline-steering-schedule style="width: 800px"></tauline-steering-schedule>`);
+    const el = await fixture<TaulineSteeringSchedule>(
+      html`<tauline-steering-schedule style="width: 800px"></tauline-steering-schedule>`,
+    );
     const { plan, scenario } = await orinPlan();
     const n = 1_000_000;
     const t = Float64Array.from({ length: n }, (_, i) => (SPAN * i) / (n - 1));
-    const at = (col: readonly number[]) => Float64Array.from(t, (s) => { const k = Math.min(col.length - 2, Math.floor(s / 900)); return col[k]! + ((col[k + 1]! - col[k]!) * (s - 900 * k)) / 900; });
+    const at = (col: readonly number[]) =>
+      Float64Array.from(t, (s) => {
+        const k = Math.min(col.length - 2, Math.floor(s / 900));
+        return col[k]! + ((col[k + 1]! - col[k]!) * (s - 900 * k)) / 900;
+      });
     const { steered, unsteered } = plan.predicted;
-    el.plan = { ...plan, predicted: { t,
-      steered: { phaseSeconds: at(steered.phaseSeconds), sigmaSeconds: at(steered.sigmaSeconds) },
-      unsteered: { phaseSeconds: at(unsteered.phaseSeconds), sigmaSeconds: at(unsteered.sigmaSeconds) } } };
+    el.plan = {
+      ...plan,
+      predicted: {
+        t,
+        steered: { phaseSeconds: at(steered.phaseSeconds), sigmaSeconds: at(steered.sigmaSeconds) },
+        unsteered: { phaseSeconds: at(unsteered.phaseSeconds), sigmaSeconds: at(unsteered.sigmaSeconds) },
+      },
+    };
     el.scenario = scenario;
     await el.updateComplete;
     expect(shadow(el).querySelector('canvas.data')!.getAttribute('aria-label')).to.contain('3 commands');
@@ -247,11 +285,15 @@ describe('tauline-steering-schedule', () => {
       const el = await fixture<TaulineSteeringSchedule>(html`<tauline-steering-schedule></tauline-steering-schedule>`);
       expect(shadow(el).querySelector('.state')!.textContent).to.contain('No steering plan');
       const { plan, scenario } = await orinPlan();
-      el.plan = { ...plan, predicted: { ...plan.predicted, steered: { ...plan.predicted.steered, phaseSeconds: [0] } } };
+      el.plan = {
+        ...plan,
+        predicted: { ...plan.predicted, steered: { ...plan.predicted.steered, phaseSeconds: [0] } },
+      };
       el.scenario = scenario;
       await el.updateComplete;
       expect(shadow(el).querySelector('.state.error')!.textContent).to.contain(
-        `plan.predicted.steered.phaseSeconds must be ${plan.predicted.t.length} values (as many as plan.predicted.t); received an array of 1`);
+        `plan.predicted.steered.phaseSeconds must be ${plan.predicted.t.length} values (as many as plan.predicted.t); received an array of 1`,
+      );
       el.plan = plan;
       el.scenario = { ...scenario, epoch: 'yesterday' };
       await el.updateComplete;
@@ -261,7 +303,9 @@ describe('tauline-steering-schedule', () => {
       await el.updateComplete;
       expect(shadow(el).querySelector('.state.error')!.textContent).to.contain('strictly ascending');
       expect(w.list.map((x) => x.code)).to.deep.equal(['invalid-plan']);
-    } finally { w.restore(); }
+    } finally {
+      w.restore();
+    }
   });
 
   it('a scenario epoch after the bundled leap-second table shows an error naming scenario.epoch (no leap-free guess), and the plan shows again once the scenario is fixed', async () => {
@@ -277,10 +321,12 @@ describe('tauline-steering-schedule', () => {
       await el.updateComplete;
       expect(shadow(el).querySelector('.state.error')).to.equal(null);
       expect(w.list.map((x) => x.code)).to.deep.equal(['invalid-plan']);
-    } finally { w.restore(); }
+    } finally {
+      w.restore();
+    }
   });
 
-  it('the SDK plan\'s caution is shown next to the table (flight-configuration outputs carry it)', async () => {
+  it("the SDK plan's caution is shown next to the table (flight-configuration outputs carry it)", async () => {
     const el = await render();
     const { plan } = await orinPlan();
     expect(plan.caution).to.match(/^Caution: /);
@@ -290,7 +336,9 @@ describe('tauline-steering-schedule', () => {
   it('a plan with NaN or Infinity in its series shows an alert and an invalid-data badge, never "feasible", and warns once', async () => {
     const w = await captureWarnings();
     try {
-      const el = await fixture<TaulineSteeringSchedule>(html`<tauline-steering-schedule style="width: 760px"></tauline-steering-schedule>`);
+      const el = await fixture<TaulineSteeringSchedule>(
+        html`<tauline-steering-schedule style="width: 760px"></tauline-steering-schedule>`,
+      );
       const { plan, scenario } = await orinPlan();
       plan.predicted.steered.phaseSeconds[10] = Number.NaN;
       plan.predicted.unsteered.sigmaSeconds[3] = Infinity;
@@ -298,33 +346,50 @@ describe('tauline-steering-schedule', () => {
       el.scenario = scenario;
       await el.updateComplete;
       const alert = shadow(el).querySelector('[role="alert"]')!;
-      expect(alert.textContent).to.contain('plan.predicted.steered.phaseSeconds holds 1 non-finite value (first at index 10: NaN)');
-      expect(alert.textContent).to.contain('plan.predicted.unsteered.sigmaSeconds holds 1 non-finite value (first at index 3: Infinity)');
+      expect(alert.textContent).to.contain(
+        'plan.predicted.steered.phaseSeconds holds 1 non-finite value (first at index 10: NaN)',
+      );
+      expect(alert.textContent).to.contain(
+        'plan.predicted.unsteered.sigmaSeconds holds 1 non-finite value (first at index 3: Infinity)',
+      );
       const badge = shadow(el).querySelector('.badge')!.textContent!;
       expect(badge).to.contain('invalid data');
       expect(badge).to.not.contain('feasible');
       expect(w.list.map((x) => x.code)).to.deep.equal(['invalid-plan-values']);
-    } finally { w.restore(); }
+    } finally {
+      w.restore();
+    }
   });
 
   it('a scenario with a NaN tolerance shows an alert naming scenario.tolerance.phaseSeconds instead of a "feasible" badge', async () => {
     const w = await captureWarnings();
     try {
-      const el = await fixture<TaulineSteeringSchedule>(html`<tauline-steering-schedule style="width: 760px"></tauline-steering-schedule>`);
+      const el = await fixture<TaulineSteeringSchedule>(
+        html`<tauline-steering-schedule style="width: 760px"></tauline-steering-schedule>`,
+      );
       const { plan, scenario } = await orinPlan();
       el.plan = plan;
       el.scenario = { ...scenario, tolerance: { phaseSeconds: Number.NaN, probability: 0.95 } };
       await el.updateComplete;
-      expect(shadow(el).querySelector('[role="alert"]')!.textContent).to.contain('scenario.tolerance.phaseSeconds must be a positive number of seconds; received NaN');
+      expect(shadow(el).querySelector('[role="alert"]')!.textContent).to.contain(
+        'scenario.tolerance.phaseSeconds must be a positive number of seconds; received NaN',
+      );
       expect(shadow(el).querySelector('.badge')!.textContent).to.not.contain('feasible');
       expect(w.list.length).to.equal(1);
-    } finally { w.restore(); }
+    } finally {
+      w.restore();
+    }
   });
 
   it('an infeasible SDK plan (ORIN-3 held to ±2 ns) shows its reason and a not-feasible badge (text and symbol)', async () => {
     const el = await fixture<TaulineSteeringSchedule>(html`<tauline-steering-schedule></tauline-steering-schedule>`);
     const { examplePlan } = await import('../fixtures.js');
-    const { plan, scenario } = await examplePlan('orin-3-meo', { key: 'tolerance-2ns', apply: (s) => { s.tolerance.phaseSeconds = 2e-9; } });
+    const { plan, scenario } = await examplePlan('orin-3-meo', {
+      key: 'tolerance-2ns',
+      apply: (s) => {
+        s.tolerance.phaseSeconds = 2e-9;
+      },
+    });
     expect(plan.feasible).to.equal(false);
     el.plan = plan;
     el.scenario = scenario;
@@ -341,14 +406,19 @@ describe('tauline-steering-schedule metrics', () => {
     const shown = async (metrics: Record<string, number>) => {
       el.plan = { ...plan, metrics: { ...plan.metrics, ...metrics } };
       await el.updateComplete;
-      const pairs = [...shadow(el).querySelectorAll('[part~="metrics"] div')].map((d) => [d.querySelector('dt')!.textContent, d.querySelector('dd')!.textContent]);
+      const pairs = [...shadow(el).querySelectorAll('[part~="metrics"] div')].map((d) => [
+        d.querySelector('dt')!.textContent,
+        d.querySelector('dd')!.textContent,
+      ]);
       return Object.fromEntries(pairs) as Record<string, string>;
     };
     expect((await shown({}))['settled after']).to.match(/^0(\.0+)? h$/);
     expect((await shown({ settledAfterSeconds: 97_200 }))['settled after']).to.match(/^27(\.0+)? h$/);
     expect((await shown({ settledAfterSeconds: 3.5 * 86400 }))['settled after']).to.match(/^3\.50? d$/);
     const all = await shown({});
-    expect(all['worst predicted offset']).to.equal(`${Number((plan.metrics.worstPredictedOffsetSeconds * 1e9).toPrecision(3))} ns`);
+    expect(all['worst predicted offset']).to.equal(
+      `${Number((plan.metrics.worstPredictedOffsetSeconds * 1e9).toPrecision(3))} ns`,
+    );
     expect(all['command count']).to.equal(String(plan.commands.length));
   });
 });

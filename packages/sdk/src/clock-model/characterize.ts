@@ -8,18 +8,30 @@
  */
 import { InvalidArgumentError } from '../errors.js';
 import {
-  MAX_ABS_PHASE_SECONDS, MEASUREMENT_VARIANCE_RANGE, requireInRange, requireInteger, requireObject, requireOptions, requirePhaseSample, requirePositive,
+  MAX_ABS_PHASE_SECONDS,
+  MEASUREMENT_VARIANCE_RANGE,
+  requireInRange,
+  requireInteger,
+  requireObject,
+  requireOptions,
+  requirePhaseSample,
+  requirePositive,
 } from '../internal/validate.js';
 import { analyzeStability } from '../stability/analyze.js';
-import { requireInstant, type Instant } from '../time/instant.js';
+import { type Instant, requireInstant } from '../time/instant.js';
 import type { Seconds } from '../units.js';
-import { diffusionFromStabilityRows, measurementNoiseFromPhase, type MeasurementNoiseEstimate, type StabilityRowsFit } from './from-stability.js';
-import { runClockFilter } from './kalman-run.js';
+import {
+  diffusionFromStabilityRows,
+  type MeasurementNoiseEstimate,
+  measurementNoiseFromPhase,
+  type StabilityRowsFit,
+} from './from-stability.js';
 import type { ClockDetectionSettings } from './kalman.js';
+import { runClockFilter } from './kalman-run.js';
 import type { DetectedJump } from './kalman-types.js';
 import type { ClockStates } from './noise.js';
-import { fitClockPolynomial, type ClockPolynomial } from './polynomial.js';
-import { polynomialNoiseCovariance, type PolynomialNoiseCovariance } from './polynomial-noise.js';
+import { type ClockPolynomial, fitClockPolynomial } from './polynomial.js';
+import { type PolynomialNoiseCovariance, polynomialNoiseCovariance } from './polynomial-noise.js';
 
 /** A phase record: samples at `t` seconds after `epoch`. */
 export interface ClockPhaseRecord {
@@ -103,7 +115,13 @@ export interface ClockCharacterization {
     readonly states: ClockStates;
     readonly jumps: readonly DetectedJump[];
     readonly rejected: readonly RejectedClockSample[];
-    readonly nisSummary: { readonly mean: number; readonly count: number; readonly low: number; readonly high: number; readonly confidence: number };
+    readonly nisSummary: {
+      readonly mean: number;
+      readonly count: number;
+      readonly low: number;
+      readonly high: number;
+      readonly confidence: number;
+    };
     readonly detection: ClockDetectionSettings;
   };
   /** Samples used by the polynomial fit of the last pass (present and not rejected). */
@@ -117,24 +135,53 @@ export interface ClockCharacterization {
  * estimate significantly above zero → the estimate for both; otherwise the fit assumes 0 and the filter
  * takes the 2σ upper bound max(σ̂², 0) + 2·SE (common practice, no source).
  */
-export function clockMeasurementNoise(sigma: Seconds | undefined, estimate: MeasurementNoiseEstimate | undefined): ClockMeasurementNoise {
+export function clockMeasurementNoise(
+  sigma: Seconds | undefined,
+  estimate: MeasurementNoiseEstimate | undefined,
+): ClockMeasurementNoise {
   if (sigma !== undefined) {
     // σ² must be a measurement variance the filter accepts.
-    const sd = requireInRange('sigma', sigma, Math.sqrt(MEASUREMENT_VARIANCE_RANGE.min), Math.sqrt(MEASUREMENT_VARIANCE_RANGE.max), { unit: 's' });
+    const sd = requireInRange(
+      'sigma',
+      sigma,
+      Math.sqrt(MEASUREMENT_VARIANCE_RANGE.min),
+      Math.sqrt(MEASUREMENT_VARIANCE_RANGE.max),
+      { unit: 's' },
+    );
     return { varianceInNoiseFit: sd ** 2, varianceInNoiseFitStd: 0, filterVariance: sd ** 2, source: 'given' };
   }
-  if (estimate === undefined) throw new InvalidArgumentError('estimate', estimate, 'a measurement-noise estimate (measurementNoiseFromPhase) when no σ is given');
+  if (estimate === undefined)
+    throw new InvalidArgumentError(
+      'estimate',
+      estimate,
+      'a measurement-noise estimate (measurementNoiseFromPhase) when no σ is given',
+    );
   requireObject('estimate', estimate, 'a measurement-noise estimate (measurementNoiseFromPhase)');
-  requireInRange('estimate.variance', estimate.variance, -MEASUREMENT_VARIANCE_RANGE.max, MEASUREMENT_VARIANCE_RANGE.max, { unit: 's²' });
+  requireInRange(
+    'estimate.variance',
+    estimate.variance,
+    -MEASUREMENT_VARIANCE_RANGE.max,
+    MEASUREMENT_VARIANCE_RANGE.max,
+    { unit: 's²' },
+  );
   requireInRange('estimate.standardError', estimate.standardError, 0, MEASUREMENT_VARIANCE_RANGE.max, { unit: 's²' });
-  if (typeof estimate.resolved !== 'boolean') throw new InvalidArgumentError('estimate.resolved', estimate.resolved, 'true or false');
+  if (typeof estimate.resolved !== 'boolean')
+    throw new InvalidArgumentError('estimate.resolved', estimate.resolved, 'true or false');
   if (estimate.resolved) {
-    return { varianceInNoiseFit: estimate.variance, varianceInNoiseFitStd: estimate.standardError, filterVariance: estimate.variance,
-      source: 'estimated', estimate };
+    return {
+      varianceInNoiseFit: estimate.variance,
+      varianceInNoiseFitStd: estimate.standardError,
+      filterVariance: estimate.variance,
+      source: 'estimated',
+      estimate,
+    };
   }
   return {
-    varianceInNoiseFit: 0, varianceInNoiseFitStd: 0, filterVariance: Math.max(estimate.variance, 0) + 2 * estimate.standardError,
-    source: 'unresolved (filter uses the 2σ upper bound; noise fit assumes 0)', estimate,
+    varianceInNoiseFit: 0,
+    varianceInNoiseFitStd: 0,
+    filterVariance: Math.max(estimate.variance, 0) + 2 * estimate.standardError,
+    source: 'unresolved (filter uses the 2σ upper bound; noise fit assumes 0)',
+    estimate,
   };
 }
 
@@ -148,10 +195,16 @@ export function clockMeasurementNoise(sigma: Seconds | undefined, estimate: Meas
  * @param rejected Indices of samples declared outliers.
  * @returns A new array; the input is not changed.
  */
-export function correctPhaseJumps(phase: ArrayLike<number>, t: ArrayLike<number>, jumps: readonly DetectedJump[],
-  rejected: readonly number[]): Float64Array {
-  if (!phase || typeof phase.length !== 'number') throw new InvalidArgumentError('phase', phase, 'an array of phases in seconds (NaN missing)');
-  if (!t || t.length !== phase.length) throw new InvalidArgumentError('t', t, `${phase.length} epochs in seconds (one per phase sample)`);
+export function correctPhaseJumps(
+  phase: ArrayLike<number>,
+  t: ArrayLike<number>,
+  jumps: readonly DetectedJump[],
+  rejected: readonly number[],
+): Float64Array {
+  if (!phase || typeof phase.length !== 'number')
+    throw new InvalidArgumentError('phase', phase, 'an array of phases in seconds (NaN missing)');
+  if (!t || t.length !== phase.length)
+    throw new InvalidArgumentError('t', t, `${phase.length} epochs in seconds (one per phase sample)`);
   if (!Array.isArray(jumps)) throw new InvalidArgumentError('jumps', jumps, 'an array of detected jumps');
   if (!Array.isArray(rejected)) throw new InvalidArgumentError('rejected', rejected, 'an array of sample indices');
   const out = new Float64Array(phase.length);
@@ -161,9 +214,12 @@ export function correctPhaseJumps(phase: ArrayLike<number>, t: ArrayLike<number>
   }
   for (const [i, j] of jumps.entries()) {
     requireObject(`jumps[${i}]`, j, 'a detected jump { kind, size, epoch, updateIndex }');
-    if (j.kind !== 'phase' && j.kind !== 'frequency') throw new InvalidArgumentError(`jumps[${i}].kind`, j.kind, '"phase" or "frequency"');
+    if (j.kind !== 'phase' && j.kind !== 'frequency')
+      throw new InvalidArgumentError(`jumps[${i}].kind`, j.kind, '"phase" or "frequency"');
     requireInteger(`jumps[${i}].updateIndex`, j.updateIndex, 0, out.length - 1);
-    requireInRange(`jumps[${i}].size`, j.size, -MAX_ABS_PHASE_SECONDS, MAX_ABS_PHASE_SECONDS, { unit: j.kind === 'phase' ? 's' : '(fractional frequency)' });
+    requireInRange(`jumps[${i}].size`, j.size, -MAX_ABS_PHASE_SECONDS, MAX_ABS_PHASE_SECONDS, {
+      unit: j.kind === 'phase' ? 's' : '(fractional frequency)',
+    });
     requirePhaseSample(`jumps[${i}].epoch`, j.epoch, false);
     for (let k = j.updateIndex; k < out.length; k++) {
       out[k] = out[k]! - (j.kind === 'phase' ? j.size : j.size * (t[k]! - j.epoch));
@@ -205,16 +261,25 @@ function characterizePass(phase: ArrayLike<number>, t: ArrayLike<number>, tau0: 
   const statistic = s.states === 3 ? 'ohdev' : 'oadev';
   const analysis = analyzeStability({ phase: residual, tau0 }, { statistics: [statistic] });
   const noise = diffusionFromStabilityRows(analysis.rows, {
-    states: s.states, measurementVariance: s.noise.varianceInNoiseFit, measurementVarianceStd: s.noise.varianceInNoiseFitStd,
+    states: s.states,
+    measurementVariance: s.noise.varianceInNoiseFit,
+    measurementVarianceStd: s.noise.varianceInNoiseFitStd,
   });
   const polynomialNoise = polynomialNoiseCovariance(tv, {
-    degree: s.degree, referenceTime: s.referenceTime, q: noise.q, measurementVariance: s.noise.varianceInNoiseFit, predict: s.predict,
+    degree: s.degree,
+    referenceTime: s.referenceTime,
+    q: noise.q,
+    measurementVariance: s.noise.varianceInNoiseFit,
+    predict: s.predict,
   });
   const run = runClockFilter({ phase, t, variance: s.noise.filterVariance }, { q: noise.q, states: s.states });
   if (run.detection === undefined) throw new RangeError('runClockFilter reports its detection settings');
   // Keep only what is reported, so that a pass's per-epoch arrays are freed before the next pass.
   const filter = {
-    states: run.states, jumps: run.jumps, nisSummary: run.nisSummary, detection: run.detection,
+    states: run.states,
+    jumps: run.jumps,
+    nisSummary: run.nisSummary,
+    detection: run.detection,
     rejected: run.rejected.map((k) => ({ index: k, t: t[k]!, innovation: run.innovation[k]!, nis: run.nis[k]! })),
   };
   return { polynomial, noise, polynomialNoise, filter, samplesUsed: tv.length };
@@ -237,30 +302,49 @@ function characterizePass(phase: ArrayLike<number>, t: ArrayLike<number>, tau0: 
  *   short for the noise estimate, `predict[i]` for an epoch before the last sample).
  * @see D. W. Allan et al., NIST SP 1065 (2008) [V2]; G. Zucca & P. Tavella, IEEE TUFFC 52(2) (2005) [V2].
  */
-export function characterizeClock(record: ClockPhaseRecord, options: ClockCharacterizationOptions = {}): ClockCharacterization {
+export function characterizeClock(
+  record: ClockPhaseRecord,
+  options: ClockCharacterizationOptions = {},
+): ClockCharacterization {
   requireOptions('options', options);
-  if (typeof record !== 'object' || record === null) throw new InvalidArgumentError('record', record, 'an object { phase, t, tau0, epoch? }');
+  if (typeof record !== 'object' || record === null)
+    throw new InvalidArgumentError('record', record, 'an object { phase, t, tau0, epoch? }');
   const { phase, t } = record;
-  if (!phase || typeof phase.length !== 'number') throw new InvalidArgumentError('record.phase', phase, 'an array of phases in seconds');
-  if (!t || t.length !== phase.length) throw new InvalidArgumentError('record.t', t, `${phase.length} epochs in seconds (one per phase sample)`);
+  if (!phase || typeof phase.length !== 'number')
+    throw new InvalidArgumentError('record.phase', phase, 'an array of phases in seconds');
+  if (!t || t.length !== phase.length)
+    throw new InvalidArgumentError('record.t', t, `${phase.length} epochs in seconds (one per phase sample)`);
   if (record.epoch !== undefined) requireInstant('record.epoch', record.epoch);
   const tau0 = requirePositive('record.tau0', record.tau0, 's');
-  const firstValid = Array.from(phase).findIndex((v) => v === v);
-  if (firstValid < 0) throw new InvalidArgumentError('record.phase', phase, 'at least one phase sample that is not NaN');
+  const firstValid = Array.from(phase).findIndex((v) => !Number.isNaN(v));
+  if (firstValid < 0)
+    throw new InvalidArgumentError('record.phase', phase, 'at least one phase sample that is not NaN');
   const referenceTime = options.referenceTime ?? t[firstValid]!;
   const predict = options.predict ?? [];
   const lastT = t[t.length - 1]!;
   for (const [j, p] of predict.entries()) {
-    if (!(p >= lastT)) throw new InvalidArgumentError(`predict[${j}]`, p, `an epoch at or after the last sample epoch ${lastT} s`);
+    if (!(p >= lastT))
+      throw new InvalidArgumentError(`predict[${j}]`, p, `an epoch at or after the last sample epoch ${lastT} s`);
   }
   const maxPasses = requireInteger('options.maxPasses', options.maxPasses ?? 3, 1, 10);
   if (options.measurementSigma !== undefined) {
-    requireInRange('options.measurementSigma', options.measurementSigma, Math.sqrt(MEASUREMENT_VARIANCE_RANGE.min),
-      Math.sqrt(MEASUREMENT_VARIANCE_RANGE.max), { unit: 's' });
+    requireInRange(
+      'options.measurementSigma',
+      options.measurementSigma,
+      Math.sqrt(MEASUREMENT_VARIANCE_RANGE.min),
+      Math.sqrt(MEASUREMENT_VARIANCE_RANGE.max),
+      { unit: 's' },
+    );
   }
   const estimate = options.measurementSigma === undefined ? measurementNoiseFromPhase(phase) : undefined;
   const noise = clockMeasurementNoise(options.measurementSigma, estimate);
-  const settings: PassSettings = { degree: options.degree ?? 2, referenceTime, states: options.states ?? 2, noise, predict };
+  const settings: PassSettings = {
+    degree: options.degree ?? 2,
+    referenceTime,
+    states: options.states ?? 2,
+    noise,
+    predict,
+  };
   const passes: ClockPassEvents[] = [];
   let current: ArrayLike<number> = phase;
   let result = characterizePass(current, t, tau0, settings);
@@ -270,12 +354,23 @@ export function characterizeClock(record: ClockPhaseRecord, options: ClockCharac
     // Only declared events are corrected: jumps at the stated false-alarm rate, declared outliers.
     passes.push({ pass, jumps: [...f.jumps], rejected: f.rejected });
     if ((f.jumps.length === 0 && f.rejected.length === 0) || pass === maxPasses) break;
-    current = correctPhaseJumps(current, t, f.jumps, f.rejected.map((r) => r.index));
+    current = correctPhaseJumps(
+      current,
+      t,
+      f.jumps,
+      f.rejected.map((r) => r.index),
+    );
     result = characterizePass(current, t, tau0, settings);
   }
   return {
     ...(record.epoch === undefined ? {} : { epoch: record.epoch }),
-    referenceTime, measurementNoise: noise, polynomial: result.polynomial, polynomialNoise: result.polynomialNoise,
-    noise: result.noise, filter: result.filter, samplesUsed: result.samplesUsed, passes,
+    referenceTime,
+    measurementNoise: noise,
+    polynomial: result.polynomial,
+    polynomialNoise: result.polynomialNoise,
+    noise: result.noise,
+    filter: result.filter,
+    samplesUsed: result.samplesUsed,
+    passes,
   };
 }

@@ -13,7 +13,12 @@ import type { StabilityRow } from '../stability/types.js';
 import type { Seconds } from '../units.js';
 import { inverseSpd, type Matrix } from './linalg.js';
 import {
-  fitDiffusion, hFromQ, type ClockDiffusion, type ClockStates, type DiffusionFit, type PowerLawCoefficients,
+  type ClockDiffusion,
+  type ClockStates,
+  type DiffusionFit,
+  fitDiffusion,
+  hFromQ,
+  type PowerLawCoefficients,
 } from './noise.js';
 
 /** Overlapping statistics whose expectation the clock model gives: Allan (`oadev`) and Hadamard (`ohdev`). */
@@ -122,7 +127,11 @@ export interface StabilityRowsFit {
    * [νq̂/χ²_{1−α/2}(ν), νq̂/χ²_{α/2}(ν)], as for a deviation in NIST SP 1065 §5.3. Skewed like the
    * estimate itself, it keeps its coverage where a ±σ interval does not (few-edf coefficients).
    */
-  readonly intervals: { readonly q1: DiffusionInterval; readonly q2: DiffusionInterval; readonly q3?: DiffusionInterval };
+  readonly intervals: {
+    readonly q1: DiffusionInterval;
+    readonly q2: DiffusionInterval;
+    readonly q3?: DiffusionInterval;
+  };
   /** Equivalent power-law coefficients h0 (s), h₋₂ (1/s), h₋₄ (1/s³) (h0 = 2q1, h₋₂ = q2/(2π²), h₋₄ = q3/(8π⁴)). */
   readonly h: Required<PowerLawCoefficients>;
   /** 1σ of the h coefficients (the same linear map applied to qStd). */
@@ -185,7 +194,11 @@ function generalizedCovarianceTable(size: number, tau0: number, q: Required<Cloc
  * filter annihilates the polynomials G is built from. Terms are taken as contiguous (i = 0 … n − 1).
  */
 function estimateCovariance(
-  f: readonly number[], norm: number, a: { m: number; n: number; tau: number }, b: { m: number; n: number; tau: number }, g: Float64Array,
+  f: readonly number[],
+  norm: number,
+  a: { m: number; n: number; tau: number },
+  b: { m: number; n: number; tau: number },
+  g: Float64Array,
 ): number {
   const K = f.length - 1;
   let sum = 0;
@@ -248,14 +261,22 @@ function scaledInverse(a: Matrix): Matrix | undefined {
  *      W. J. Riley, NIST SP 1065 (2008) §5.2, §5.3 (statistics, edf) [M section]; L. Isserlis, Biometrika 12, 134–139 (1918) [M]
  *      (fourth moments of Gaussian variables).
  */
-export function diffusionFromStabilityRows(rows: readonly StabilityRow[], options: StabilityRowsFitOptions = {}): StabilityRowsFit {
+export function diffusionFromStabilityRows(
+  rows: readonly StabilityRow[],
+  options: StabilityRowsFitOptions = {},
+): StabilityRowsFit {
   if (!Array.isArray(rows)) throw new InvalidArgumentError('rows', rows, 'the rows array of analyzeStability(...)');
   const settings = readFitSettings(options);
   const { states, statistic, rv, confidence } = settings;
   const { used, excluded, tau0 } = selectRows(rows, settings);
   const kind = statistic === 'oadev' ? 'allan' : 'hadamard';
   const weightedFit = fitDiffusion(
-    used.map((u) => ({ tau: u.tau, deviation: Math.sqrt(u.clockVariance), kind, edf: u.edf * (u.clockVariance / (u.deviation * u.deviation)) ** 2 })),
+    used.map((u) => ({
+      tau: u.tau,
+      deviation: Math.sqrt(u.clockVariance),
+      kind,
+      edf: u.edf * (u.clockVariance / (u.deviation * u.deviation)) ** 2,
+    })),
     { states },
   );
   const q = weightedFit.q;
@@ -269,17 +290,24 @@ export function diffusionFromStabilityRows(rows: readonly StabilityRow[], option
   let chiSquare = Number.NaN;
   if (vInv) {
     chiSquare = 0;
-    for (const [i, vi] of vInv.entries()) for (const [j, vij] of vi.entries()) chiSquare += residuals[i]! * vij * residuals[j]!;
+    for (const [i, vi] of vInv.entries())
+      for (const [j, vij] of vi.entries()) chiSquare += residuals[i]! * vij * residuals[j]!;
   }
   const dof = used.length - free.length;
   const pi2 = Math.PI * Math.PI;
   const interval = (c: 0 | 1 | 2): DiffusionInterval =>
     diffusionInterval(q[DIFFUSION_NAMES[c]], covariance[c]![c]!, free.includes(c), 1 - confidence);
-  const intervals = states === 3 ? { q1: interval(0), q2: interval(1), q3: interval(2) } : { q1: interval(0), q2: interval(1) };
+  const intervals =
+    states === 3 ? { q1: interval(0), q2: interval(1), q3: interval(2) } : { q1: interval(0), q2: interval(1) };
   const points = used.map((u, i): StabilityRowFitPoint => {
     const varianceStd = Math.sqrt(v[i]![i]!);
     return {
-      tau: u.tau, m: u.m, n: u.n, deviation: u.deviation, edf: u.edf, noise: u.row.noise,
+      tau: u.tau,
+      m: u.m,
+      n: u.n,
+      deviation: u.deviation,
+      edf: u.edf,
+      noise: u.row.noise,
       clockDeviation: Math.sqrt(u.clockVariance),
       modelDeviation: Math.sqrt(Math.max(weightedFit.modelVariance[i]! + u.wpm, 0)),
       varianceStd,
@@ -287,12 +315,23 @@ export function diffusionFromStabilityRows(rows: readonly StabilityRow[], option
     };
   });
   return {
-    q, states, statistic, covariance, qStd, atZero: weightedFit.atZero, confidence, intervals,
+    q,
+    states,
+    statistic,
+    covariance,
+    qStd,
+    atZero: weightedFit.atZero,
+    confidence,
+    intervals,
     h: hFromQ(q),
     hStd: { h0: 2 * qStd.q1, hMinus2: qStd.q2 / (2 * pi2), hMinus4: qStd.q3 / (8 * pi2 * pi2) },
-    chiSquare, dof,
+    chiSquare,
+    dof,
     chiSquareProbability: dof > 0 && Number.isFinite(chiSquare) ? chiSquareSurvival(chiSquare, dof) : Number.NaN,
-    points, excluded, measurementVariance: rv, weightedFit,
+    points,
+    excluded,
+    measurementVariance: rv,
+    weightedFit,
   };
 }
 
@@ -311,21 +350,41 @@ interface FitSettings {
 }
 
 function readFitSettings(options: StabilityRowsFitOptions): FitSettings {
-  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an options object { states?, statistic?, measurementVariance?, minTau?, maxTau? }');
+  if (typeof options !== 'object' || options === null)
+    throw new InvalidArgumentError(
+      'options',
+      options,
+      'an options object { states?, statistic?, measurementVariance?, minTau?, maxTau? }',
+    );
   const states = options.states === undefined ? 2 : options.states;
-  if (states !== 2 && states !== 3) throw new InvalidArgumentError('options.states', states, '2 (phase, frequency) or 3 (phase, frequency, drift)');
+  if (states !== 2 && states !== 3)
+    throw new InvalidArgumentError('options.states', states, '2 (phase, frequency) or 3 (phase, frequency, drift)');
   const statistic = options.statistic === undefined ? (states === 3 ? 'ohdev' : 'oadev') : options.statistic;
-  if (!STATISTICS.includes(statistic)) throw new InvalidArgumentError('options.statistic', statistic, `one of ${STATISTICS.join(', ')}`);
+  if (!STATISTICS.includes(statistic))
+    throw new InvalidArgumentError('options.statistic', statistic, `one of ${STATISTICS.join(', ')}`);
   if (states === 3 && statistic === 'oadev') {
-    throw new InvalidArgumentError('options.statistic', statistic, "'ohdev' for a 3-state fit",
-      'with random-walk drift noise the Allan variance is not stationary; fit q3 from Hadamard deviations');
+    throw new InvalidArgumentError(
+      'options.statistic',
+      statistic,
+      "'ohdev' for a 3-state fit",
+      'with random-walk drift noise the Allan variance is not stationary; fit q3 from Hadamard deviations',
+    );
   }
-  const rv = options.measurementVariance === undefined ? 0 : requireNonNegative('options.measurementVariance', options.measurementVariance, 's²');
-  const rvStd = options.measurementVarianceStd === undefined ? 0 : requireNonNegative('options.measurementVarianceStd', options.measurementVarianceStd, 's²');
+  const rv =
+    options.measurementVariance === undefined
+      ? 0
+      : requireNonNegative('options.measurementVariance', options.measurementVariance, 's²');
+  const rvStd =
+    options.measurementVarianceStd === undefined
+      ? 0
+      : requireNonNegative('options.measurementVarianceStd', options.measurementVarianceStd, 's²');
   const minTau = options.minTau === undefined ? 0 : requirePositive('options.minTau', options.minTau, 's');
   const maxTau = options.maxTau === undefined ? Infinity : requirePositive('options.maxTau', options.maxTau, 's');
   if (maxTau < minTau) throw new InvalidArgumentError('options.maxTau', maxTau, `≥ options.minTau = ${minTau} s`);
-  const confidence = options.confidence === undefined ? ONE_SIGMA : requireInRange('options.confidence', options.confidence, 1e-6, 1 - 1e-9);
+  const confidence =
+    options.confidence === undefined
+      ? ONE_SIGMA
+      : requireInRange('options.confidence', options.confidence, 1e-6, 1 - 1e-9);
   return { states, statistic, rv, rvStd, minTau, maxTau, confidence };
 }
 
@@ -342,13 +401,17 @@ interface UsedRow {
 }
 
 /** The rows that enter the fit, the ones left out (with why), and the common τ0 (s). */
-function selectRows(rows: readonly StabilityRow[], settings: FitSettings): { used: UsedRow[]; excluded: ExcludedStabilityRow[]; tau0: number } {
+function selectRows(
+  rows: readonly StabilityRow[],
+  settings: FitSettings,
+): { used: UsedRow[]; excluded: ExcludedStabilityRow[]; tau0: number } {
   const { statistic, rv, minTau, maxTau, states } = settings;
   const used: UsedRow[] = [];
   const excluded: ExcludedStabilityRow[] = [];
   let tau0: number | undefined;
   rows.forEach((row, i) => {
-    if (typeof row !== 'object' || row === null) throw new InvalidArgumentError(`rows[${i}]`, row, 'a row of analyzeStability(...)');
+    if (typeof row !== 'object' || row === null)
+      throw new InvalidArgumentError(`rows[${i}]`, row, 'a row of analyzeStability(...)');
     const tau = requirePositive(`rows[${i}].tau`, row.tau, 's');
     const est = row.statistics?.[statistic];
     if (!est || !(est.deviation > 0)) {
@@ -363,7 +426,12 @@ function selectRows(rows: readonly StabilityRow[], settings: FitSettings): { use
     const n = requireInteger(`rows[${i}].statistics.${statistic}.n`, est.n, 1);
     const rowTau0 = tau / m;
     if (tau0 === undefined) tau0 = rowTau0;
-    else if (Math.abs(rowTau0 - tau0) > 1e-9 * tau0) throw new InvalidArgumentError(`rows[${i}].tau`, tau, `m·τ0 with the τ0 = ${tau0} s of the other rows (rows of one analysis)`);
+    else if (Math.abs(rowTau0 - tau0) > 1e-9 * tau0)
+      throw new InvalidArgumentError(
+        `rows[${i}].tau`,
+        tau,
+        `m·τ0 with the τ0 = ${tau0} s of the other rows (rows of one analysis)`,
+      );
     const measured = est.deviation * est.deviation;
     const wpm = whitePhaseContribution(statistic, tau, rv);
     const clockVariance = measured - wpm;
@@ -376,14 +444,24 @@ function selectRows(rows: readonly StabilityRow[], settings: FitSettings): { use
     used.push({ tau, m, n, row, deviation: est.deviation, edf, clockVariance, wpm });
   });
   if (used.length < states || tau0 === undefined) {
-    throw new InvalidArgumentError('rows', `${used.length} usable ${statistic} rows`, `at least ${states} for a ${states}-state fit`,
-      excluded.length > 0 ? `left out: ${excluded.map((e) => `τ = ${e.tau} s (${e.reason})`).join(', ')}` : undefined);
+    throw new InvalidArgumentError(
+      'rows',
+      `${used.length} usable ${statistic} rows`,
+      `at least ${states} for a ${states}-state fit`,
+      excluded.length > 0 ? `left out: ${excluded.map((e) => `τ = ${e.tau} s (${e.reason})`).join(', ')}` : undefined,
+    );
   }
   return { used, excluded, tau0 };
 }
 
 /** Exact covariance V of the row variances under the fitted model (see `estimateCovariance`). */
-function rowCovariance(used: readonly UsedRow[], statistic: DiffusionStatistic, tau0: number, q: Required<ClockDiffusion>, rv: number): Matrix {
+function rowCovariance(
+  used: readonly UsedRow[],
+  statistic: DiffusionStatistic,
+  tau0: number,
+  q: Required<ClockDiffusion>,
+  rv: number,
+): Matrix {
   const f = FILTERS[statistic];
   const K = f.length - 1;
   const maxM = Math.max(...used.map((u) => u.m));
@@ -404,8 +482,12 @@ function rowCovariance(used: readonly UsedRow[], statistic: DiffusionStatistic, 
  * Sandwich covariance (AᵀWA)⁻¹AᵀW V WA(AᵀWA)⁻¹ of the weighted estimator over the free coefficients, plus
  * (∂q̂/∂σ_v²)²·Var(σ_v²) when the measurement variance is itself an estimate.
  */
-function sandwichCovariance(used: readonly UsedRow[], weightedFit: DiffusionFit, settings: FitSettings, v: Matrix):
-  { covariance: Matrix; free: number[] } {
+function sandwichCovariance(
+  used: readonly UsedRow[],
+  weightedFit: DiffusionFit,
+  settings: FitSettings,
+  v: Matrix,
+): { covariance: Matrix; free: number[] } {
   const { states, statistic, rvStd } = settings;
   const free = [0, 1, 2].slice(0, states).filter((c) => !weightedFit.atZero.includes(DIFFUSION_NAMES[c]!));
   const a = used.map((u) => designRow(statistic, u.tau, states));
@@ -422,19 +504,25 @@ function sandwichCovariance(used: readonly UsedRow[], weightedFit: DiffusionFit,
   const nUsed = used.length;
   // L = (AᵀWA)⁻¹AᵀW (p × n); Cov = L V Lᵀ.
   const l = free.map((_, p) => a.map((r, i) => free.reduce((s, d, k) => s + normalInv[p]![k]! * r[d]!, 0) * w[i]!));
-  free.forEach((c, p) => free.forEach((d, k) => {
-    const lp = l[p]!;
-    const lk = l[k]!;
-    let s = 0;
-    for (let i = 0; i < nUsed; i++) for (let j = 0; j < nUsed; j++) s += lp[i]! * v[i]![j]! * lk[j]!;
-    covariance[c]![d] = s;
-  }));
+  free.forEach((c, p) => {
+    free.forEach((d, k) => {
+      const lp = l[p]!;
+      const lk = l[k]!;
+      let s = 0;
+      for (let i = 0; i < nUsed; i++) for (let j = 0; j < nUsed; j++) s += lp[i]! * v[i]![j]! * lk[j]!;
+      covariance[c]![d] = s;
+    });
+  });
   if (rvStd > 0) {
     // q̂ = L(s² − σ_v²·u), u_i = c/τ_i²: ∂q̂/∂σ_v² = −L u.
-    const jac = l.map((lp) => -used.reduce((acc, u, i) => acc + lp[i]! * whitePhaseContribution(statistic, u.tau, 1), 0));
-    free.forEach((c, p) => free.forEach((d, k) => {
-      covariance[c]![d] = covariance[c]![d]! + jac[p]! * jac[k]! * rvStd * rvStd;
-    }));
+    const jac = l.map(
+      (lp) => -used.reduce((acc, u, i) => acc + lp[i]! * whitePhaseContribution(statistic, u.tau, 1), 0),
+    );
+    free.forEach((c, p) => {
+      free.forEach((d, k) => {
+        covariance[c]![d] = covariance[c]![d]! + jac[p]! * jac[k]! * rvStd * rvStd;
+      });
+    });
   }
   return { covariance, free };
 }
@@ -459,4 +547,4 @@ function diffusionInterval(value: number, variance: number, isFree: boolean, alp
   return { low: edf < 1 ? 0 : (edf * value) / chiSquareUpperQuantile(alpha / 2, edf), high, edf };
 }
 
-export { measurementNoiseFromPhase, type MeasurementNoiseEstimate } from './measurement-noise.js';
+export { type MeasurementNoiseEstimate, measurementNoiseFromPhase } from './measurement-noise.js';

@@ -6,30 +6,70 @@
  *
  * @module
  */
+
+export {
+  type ClockCharacterization,
+  type ClockCharacterizationOptions,
+  type ClockMeasurementNoise,
+  type ClockPassEvents,
+  type ClockPhaseRecord,
+  characterizeClock,
+  clockMeasurementNoise,
+  correctPhaseJumps,
+  type RejectedClockSample,
+} from './characterize.js';
+export {
+  type DiffusionInterval,
+  type DiffusionStatistic,
+  diffusionFromStabilityRows,
+  type ExcludedStabilityRow,
+  type MeasurementNoiseEstimate,
+  measurementNoiseFromPhase,
+  type StabilityRowFitPoint,
+  type StabilityRowsFit,
+  type StabilityRowsFitOptions,
+} from './from-stability.js';
+export { type ClockDetectionSettings, ClockKalmanFilter } from './kalman.js';
+export {
+  type ClockFilterRun,
+  type ClockFilterRunOptions,
+  type ClockFilterSeries,
+  runClockFilter,
+} from './kalman-run.js';
+export {
+  applyClockStep,
+  type ClockEstimate,
+  type ClockForecast,
+  type ClockKalmanOptions,
+  type ClockStep,
+  type ClockUpdate,
+  type DetectedJump,
+  type DetectedOutlier,
+  forecastClock,
+  type JumpDetectionOptions,
+} from './kalman-types.js';
 export type { Matrix } from './linalg.js';
 export {
-  clockTransitionMatrix, clockProcessNoise, qFromH, hFromQ, allanVarianceFromQ, hadamardVarianceFromQ,
-  diffusionFromStabilitySpec, fitDiffusion,
-  type ClockStates, type ClockDiffusion, type PowerLawCoefficients, type StabilitySpecPoint, type MeasuredStabilityPoint,
-  type DiffusionFitOptions, type DiffusionFit,
+  allanVarianceFromQ,
+  type ClockDiffusion,
+  type ClockStates,
+  clockProcessNoise,
+  clockTransitionMatrix,
+  type DiffusionFit,
+  type DiffusionFitOptions,
+  diffusionFromStabilitySpec,
+  fitDiffusion,
+  hadamardVarianceFromQ,
+  hFromQ,
+  type MeasuredStabilityPoint,
+  type PowerLawCoefficients,
+  qFromH,
+  type StabilitySpecPoint,
 } from './noise.js';
-export { fitClockPolynomial, type ClockPolynomialOptions, type ClockPolynomial } from './polynomial.js';
+export { type ClockPolynomial, type ClockPolynomialOptions, fitClockPolynomial } from './polynomial.js';
 export {
-  forecastClock, applyClockStep,
-  type ClockEstimate, type ClockForecast, type ClockStep, type DetectedJump, type DetectedOutlier, type JumpDetectionOptions,
-  type ClockKalmanOptions, type ClockUpdate,
-} from './kalman-types.js';
-export { ClockKalmanFilter, type ClockDetectionSettings } from './kalman.js';
-export { runClockFilter, type ClockFilterSeries, type ClockFilterRunOptions, type ClockFilterRun } from './kalman-run.js';
-export { simulateClock, type ClockJump, type ClockSimulationOptions, type ClockSimulation } from './simulate.js';
-export {
-  diffusionFromStabilityRows, measurementNoiseFromPhase,
-  type DiffusionStatistic, type StabilityRowsFitOptions, type StabilityRowFitPoint, type ExcludedStabilityRow, type StabilityRowsFit,
-  type DiffusionInterval, type MeasurementNoiseEstimate,
-} from './from-stability.js';
-export { polynomialNoiseCovariance, type PolynomialNoiseOptions, type PolynomialNoiseCovariance } from './polynomial-noise.js';
-export {
-  characterizeClock, clockMeasurementNoise, correctPhaseJumps,
-  type ClockPhaseRecord, type ClockCharacterizationOptions, type ClockCharacterization, type ClockMeasurementNoise,
-  type RejectedClockSample, type ClockPassEvents,
-} from './characterize.js';
+  type PolynomialNoiseCovariance,
+  type PolynomialNoiseOptions,
+  polynomialNoiseCovariance,
+} from './polynomial-noise.js';
+export { type ClockJump, type ClockSimulation, type ClockSimulationOptions, simulateClock } from './simulate.js';

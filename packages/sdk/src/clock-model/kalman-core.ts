@@ -8,7 +8,7 @@
  * @internal
  * @module
  */
-import { FREQUENCY, PHASE, type GlrDecision, type GlrDetector } from './kalman-glr.js';
+import { FREQUENCY, type GlrDecision, type GlrDetector, PHASE } from './kalman-glr.js';
 
 /** Relative change of the prior covariance below which the Riccati recursion counts as converged. */
 export const STEADY_TOLERANCE = 1e-12;
@@ -20,15 +20,29 @@ const DIFFUSE = 1e8;
 const SKIP = 1;
 
 /** A known deterministic step applied between updates. */
-interface KnownStep { after: number; t: number; dx: number; dy: number; dd: number }
+interface KnownStep {
+  after: number;
+  t: number;
+  dx: number;
+  dy: number;
+  dd: number;
+}
 /** A declared jump, applied at its epoch when the history is replayed. */
-interface JumpEvent { update: number; kind: number; size: number; variance: number }
+interface JumpEvent {
+  update: number;
+  kind: number;
+  size: number;
+  variance: number;
+}
 
 /** Posterior callback: update index, the core (state, covariance, `nu`, `s`), whether the measurement was left out. */
 export type PosteriorListener = (update: number, core: FilterCore, leftOut: boolean) => void;
 
 /** Events declared during one measurement update. */
-export interface CoreEvents { jumps: GlrDecision[]; outliers: GlrDecision[] }
+export interface CoreEvents {
+  jumps: GlrDecision[];
+  outliers: GlrDecision[];
+}
 
 export class FilterCore {
   // Numeric fields start as doubles (NaN) so that V8 keeps them unboxed-in-place: a field declared
@@ -37,8 +51,15 @@ export class FilterCore {
   readonly q2: number = Number.NaN;
   readonly q3: number = Number.NaN;
   t = Number.NaN;
-  x0 = Number.NaN; x1 = Number.NaN; x2 = Number.NaN;
-  p00 = Number.NaN; p01 = Number.NaN; p02 = Number.NaN; p11 = Number.NaN; p12 = Number.NaN; p22 = Number.NaN;
+  x0 = Number.NaN;
+  x1 = Number.NaN;
+  x2 = Number.NaN;
+  p00 = Number.NaN;
+  p01 = Number.NaN;
+  p02 = Number.NaN;
+  p11 = Number.NaN;
+  p12 = Number.NaN;
+  p22 = Number.NaN;
   /** Updates done (the next update index). */
   updates = 0;
   /** Gate on NIS above which a measurement is held out pending the outlier decision. */
@@ -78,18 +99,30 @@ export class FilterCore {
   /** The last prior repeated the one before (same τ): steady state once R repeats too. */
   private _candidate = false;
 
-  constructor(q: { q1: number; q2: number; q3: number }, t: number, state: readonly number[], p: readonly (readonly number[])[],
-    holdGate: number, detector: GlrDetector | undefined) {
-    this.q1 = q.q1; this.q2 = q.q2; this.q3 = q.q3;
+  constructor(
+    q: { q1: number; q2: number; q3: number },
+    t: number,
+    state: readonly number[],
+    p: readonly (readonly number[])[],
+    holdGate: number,
+    detector: GlrDetector | undefined,
+  ) {
+    this.q1 = q.q1;
+    this.q2 = q.q2;
+    this.q3 = q.q3;
     this.t = t;
     const three = state.length === 3;
-    this.x0 = state[0]!; this.x1 = state[1]!; this.x2 = three ? state[2]! : 0;
+    this.x0 = state[0]!;
+    this.x1 = state[1]!;
+    this.x2 = three ? state[2]! : 0;
     const r0 = p[0]!;
     const r1 = p[1]!;
-    this.p00 = r0[0]!; this.p01 = r0[1]!; this.p11 = r1[1]!;
+    this.p00 = r0[0]!;
+    this.p01 = r0[1]!;
+    this.p11 = r1[1]!;
     this.p02 = three ? r0[2]! : 0;
     this.p12 = three ? r1[2]! : 0;
-    this.p22 = three ? (p[2]![2]!) : 0;
+    this.p22 = three ? p[2]![2]! : 0;
     this.holdGate = holdGate;
     this.detector = detector;
     this._cap = detector ? detector.window + 2 : 1;
@@ -123,8 +156,12 @@ export class FilterCore {
     this._priorFromSteady = this._steady && fromPosterior && tau === this._tau;
     if (this._priorFromSteady) {
       const f = this._prior;
-      this.p00 = f[0]!; this.p01 = f[1]!; this.p02 = f[2]!;
-      this.p11 = f[3]!; this.p12 = f[4]!; this.p22 = f[5]!;
+      this.p00 = f[0]!;
+      this.p01 = f[1]!;
+      this.p02 = f[2]!;
+      this.p11 = f[3]!;
+      this.p12 = f[4]!;
+      this.p22 = f[5]!;
       return;
     }
     this._steady = false;
@@ -164,19 +201,37 @@ export class FilterCore {
     const h = 0.5 * tau * tau;
     const { p00, p01, p02, p11, p12, p22 } = this;
     this._covarianceUpdate(tau);
-    out[0] = this.x0 + tau * this.x1 + h * this.x2; out[1] = this.x1 + tau * this.x2; out[2] = this.x2;
-    out[3] = Math.sqrt(this.p00); out[4] = Math.sqrt(this.p11); out[5] = Math.sqrt(this.p22);
-    this.p00 = p00; this.p01 = p01; this.p02 = p02; this.p11 = p11; this.p12 = p12; this.p22 = p22;
+    out[0] = this.x0 + tau * this.x1 + h * this.x2;
+    out[1] = this.x1 + tau * this.x2;
+    out[2] = this.x2;
+    out[3] = Math.sqrt(this.p00);
+    out[4] = Math.sqrt(this.p11);
+    out[5] = Math.sqrt(this.p22);
+    this.p00 = p00;
+    this.p01 = p01;
+    this.p02 = p02;
+    this.p11 = p11;
+    this.p12 = p12;
+    this.p22 = p22;
   }
 
   /** Compares the new prior with the previous one (same τ): converged when every entry repeats to STEADY_TOLERANCE·√(PᵢᵢPⱼⱼ). */
   private _checkSteady(tau: number): void {
     const f = this._prior;
-    const same = tau === this._tau
-      && close(this.p00, f[0]!, this.p00, this.p00) && close(this.p01, f[1]!, this.p00, this.p11)
-      && close(this.p02, f[2]!, this.p00, this.p22) && close(this.p11, f[3]!, this.p11, this.p11)
-      && close(this.p12, f[4]!, this.p11, this.p22) && close(this.p22, f[5]!, this.p22, this.p22);
-    f[0] = this.p00; f[1] = this.p01; f[2] = this.p02; f[3] = this.p11; f[4] = this.p12; f[5] = this.p22;
+    const same =
+      tau === this._tau &&
+      close(this.p00, f[0]!, this.p00, this.p00) &&
+      close(this.p01, f[1]!, this.p00, this.p11) &&
+      close(this.p02, f[2]!, this.p00, this.p22) &&
+      close(this.p11, f[3]!, this.p11, this.p11) &&
+      close(this.p12, f[4]!, this.p11, this.p22) &&
+      close(this.p22, f[5]!, this.p22, this.p22);
+    f[0] = this.p00;
+    f[1] = this.p01;
+    f[2] = this.p02;
+    f[3] = this.p11;
+    f[4] = this.p12;
+    f[5] = this.p22;
     this._tau = tau;
     this._candidate = same;
   }
@@ -194,17 +249,27 @@ export class FilterCore {
     const leftOut = mode === 2 || (mode === 0 && (nu * nu) / s > this.holdGate);
     const det = this.detector;
     if (det && mode !== 2 && u >= this._barrier) det.add(u, this.t);
-    let k0 = 0; let k1 = 0; let k2 = 0;
+    let k0 = 0;
+    let k1 = 0;
+    let k2 = 0;
     if (!leftOut) {
       if (this._priorFromSteady && r === this._r) {
         const f = this._frozen;
-        k0 = f[0]!; k1 = f[1]!; k2 = f[2]!;
-        this.p00 = f[4]!; this.p01 = f[5]!; this.p02 = f[6]!;
-        this.p11 = f[7]!; this.p12 = f[8]!; this.p22 = f[9]!;
+        k0 = f[0]!;
+        k1 = f[1]!;
+        k2 = f[2]!;
+        this.p00 = f[4]!;
+        this.p01 = f[5]!;
+        this.p02 = f[6]!;
+        this.p11 = f[7]!;
+        this.p12 = f[8]!;
+        this.p22 = f[9]!;
         this._atPost = true;
       } else {
         const { p00, p01, p02, p11, p12, p22 } = this;
-        k0 = p00 / s; k1 = p01 / s; k2 = p02 / s;
+        k0 = p00 / s;
+        k1 = p01 / s;
+        k2 = p02 / s;
         // Joseph form with H = [1, 0, 0]: P⁺ᵢⱼ = Pᵢⱼ − KᵢP₀ⱼ − KⱼP₀ᵢ + KᵢKⱼS.
         this.p00 = p00 - 2 * k0 * p00 + k0 * k0 * s;
         this.p01 = p01 - k0 * p01 - k1 * p00 + k0 * k1 * s;
@@ -215,13 +280,23 @@ export class FilterCore {
         this._steady = this._candidate && r === this._r;
         if (this._steady) {
           const f = this._frozen;
-          f[0] = k0; f[1] = k1; f[2] = k2; f[3] = s;
-          f[4] = this.p00; f[5] = this.p01; f[6] = this.p02; f[7] = this.p11; f[8] = this.p12; f[9] = this.p22;
+          f[0] = k0;
+          f[1] = k1;
+          f[2] = k2;
+          f[3] = s;
+          f[4] = this.p00;
+          f[5] = this.p01;
+          f[6] = this.p02;
+          f[7] = this.p11;
+          f[8] = this.p12;
+          f[9] = this.p22;
         }
         this._atPost = true;
         this._r = r;
       }
-      this.x0 += k0 * nu; this.x1 += k1 * nu; this.x2 += k2 * nu;
+      this.x0 += k0 * nu;
+      this.x1 += k1 * nu;
+      this.x2 += k2 * nu;
     } else {
       this._steady = false;
       this._candidate = false;
@@ -233,7 +308,11 @@ export class FilterCore {
     this.s = s;
     if (det && mode !== 2) {
       const inp = det.input;
-      inp[0] = nu; inp[1] = s; inp[2] = k0; inp[3] = k1; inp[4] = k2;
+      inp[0] = nu;
+      inp[1] = s;
+      inp[2] = k0;
+      inp[3] = k1;
+      inp[4] = k2;
       det.accumulate();
     }
     if (det) {
@@ -257,8 +336,15 @@ export class FilterCore {
     this._hflag[i] = flag;
     const o = i * 9;
     const h = this._hpost;
-    h[o] = this.x0; h[o + 1] = this.x1; h[o + 2] = this.x2;
-    h[o + 3] = this.p00; h[o + 4] = this.p01; h[o + 5] = this.p02; h[o + 6] = this.p11; h[o + 7] = this.p12; h[o + 8] = this.p22;
+    h[o] = this.x0;
+    h[o + 1] = this.x1;
+    h[o + 2] = this.x2;
+    h[o + 3] = this.p00;
+    h[o + 4] = this.p01;
+    h[o + 5] = this.p02;
+    h[o + 6] = this.p11;
+    h[o + 7] = this.p12;
+    h[o + 8] = this.p22;
   }
 
   /**
@@ -337,9 +423,15 @@ export class FilterCore {
     const src = this._slot(from - 1) * 9;
     const h = this._hpost;
     this.t = this._ht[this._slot(from - 1)]!;
-    this.x0 = h[src]!; this.x1 = h[src + 1]!; this.x2 = h[src + 2]!;
-    this.p00 = h[src + 3]!; this.p01 = h[src + 4]!; this.p02 = h[src + 5]!;
-    this.p11 = h[src + 6]!; this.p12 = h[src + 7]!; this.p22 = h[src + 8]!;
+    this.x0 = h[src]!;
+    this.x1 = h[src + 1]!;
+    this.x2 = h[src + 2]!;
+    this.p00 = h[src + 3]!;
+    this.p01 = h[src + 4]!;
+    this.p02 = h[src + 5]!;
+    this.p11 = h[src + 6]!;
+    this.p12 = h[src + 7]!;
+    this.p22 = h[src + 8]!;
     this._steady = false;
     this._candidate = false;
     this._atPost = false;
@@ -364,7 +456,9 @@ export class FilterCore {
     for (const st of this._steps) {
       if (st.after !== after) continue;
       this.predictTo(st.t);
-      this.x0 += st.dx; this.x1 += st.dy; this.x2 += st.dd;
+      this.x0 += st.dx;
+      this.x1 += st.dy;
+      this.x2 += st.dd;
     }
   }
 
@@ -383,7 +477,9 @@ export class FilterCore {
 
   /** Adds a known step at the current epoch (mean only) and remembers it for replays. */
   addStep(dx: number, dy: number, dd: number): void {
-    this.x0 += dx; this.x1 += dy; this.x2 += dd;
+    this.x0 += dx;
+    this.x1 += dy;
+    this.x2 += dd;
     if (this.detector) this._steps.push({ after: this.updates - 1, t: this.t, dx, dy, dd });
   }
 }
@@ -392,4 +488,3 @@ export class FilterCore {
 function close(a: number, b: number, pii: number, pjj: number): boolean {
   return Math.abs(a - b) <= STEADY_TOLERANCE * Math.sqrt(Math.abs(pii * pjj));
 }
-

@@ -60,7 +60,14 @@ export class GlrDetector {
   private _head = 0;
   private _size = 0;
 
-  constructor(window: number, minEpochs: number, jumps: boolean, outliers: boolean, jumpThreshold: number, outlierThreshold: number) {
+  constructor(
+    window: number,
+    minEpochs: number,
+    jumps: boolean,
+    outliers: boolean,
+    jumpThreshold: number,
+    outlierThreshold: number,
+  ) {
     this.window = window;
     this.minEpochs = minEpochs;
     this.jumps = jumps;
@@ -82,7 +89,7 @@ export class GlrDetector {
 
   /** Update index of the oldest candidate, or -1 when there is none. */
   oldest(): number {
-    return this._size === 0 ? -1 : (this._index[this._head]!);
+    return this._size === 0 ? -1 : this._index[this._head]!;
   }
 
   /** Opens a candidate at update `updateIndex` (epoch in s), dropping the oldest when the window is full. */
@@ -160,11 +167,21 @@ export class GlrDetector {
       const df = r[o + D + 1]! + gf * w;
       const cp = r[o + C]! + gp * gp * is;
       const cf = r[o + C + 1]! + gf * gf * is;
-      r[o + D] = dp; r[o + D + 1] = df; r[o + D + 2] = r[o + D + 2]! + go * w;
-      r[o + C] = cp; r[o + C + 1] = cf; r[o + C + 2] = r[o + C + 2]! + go * go * is;
-      r[o] = gp - k0 * gp; r[o + 1] = r[o + 1]! - k1 * gp; r[o + 2] = r[o + 2]! - k2 * gp;
-      r[o + 3] = gf - k0 * gf; r[o + 4] = r[o + 4]! - k1 * gf; r[o + 5] = r[o + 5]! - k2 * gf;
-      r[o + 6] = r[o + 6]! - k0 * go; r[o + 7] = r[o + 7]! - k1 * go; r[o + 8] = r[o + 8]! - k2 * go;
+      r[o + D] = dp;
+      r[o + D + 1] = df;
+      r[o + D + 2] = r[o + D + 2]! + go * w;
+      r[o + C] = cp;
+      r[o + C + 1] = cf;
+      r[o + C + 2] = r[o + C + 2]! + go * go * is;
+      r[o] = gp - k0 * gp;
+      r[o + 1] = r[o + 1]! - k1 * gp;
+      r[o + 2] = r[o + 2]! - k2 * gp;
+      r[o + 3] = gf - k0 * gf;
+      r[o + 4] = r[o + 4]! - k1 * gf;
+      r[o + 5] = r[o + 5]! - k2 * gf;
+      r[o + 6] = r[o + 6]! - k0 * go;
+      r[o + 7] = r[o + 7]! - k1 * go;
+      r[o + 8] = r[o + 8]! - k2 * go;
       if (count >= m && (dp * dp > thr * cp || df * df > thr * cf)) above = true;
       if (++slot === win) slot = 0;
     }
@@ -186,8 +203,12 @@ export class GlrDetector {
     const c = this._rows[o + C + kind]!;
     const d = this._rows[o + D + kind]!;
     return {
-      kind, updateIndex: this._index[slot]!, epoch: this._epoch[slot]!,
-      size: d / c, sizeStd: 1 / Math.sqrt(c), statistic: (d * d) / c,
+      kind,
+      updateIndex: this._index[slot]!,
+      epoch: this._epoch[slot]!,
+      size: d / c,
+      sizeStd: 1 / Math.sqrt(c),
+      statistic: (d * d) / c,
     };
   }
 
@@ -224,7 +245,7 @@ export class GlrDetector {
     let bestL = 0;
     for (let n = 0, slot = this._head; n < this._size; n++, slot = slot + 1 === this.window ? 0 : slot + 1) {
       const o = slot * STRIDE;
-      const eligible = (this._count[slot]!) >= this.minEpochs;
+      const eligible = this._count[slot]! >= this.minEpochs;
       for (let kind = 0; kind < 3; kind++) {
         if (kind === OUTLIER && !this.outliers) continue;
         const l = this._statistic(o, kind);

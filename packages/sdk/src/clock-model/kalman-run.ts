@@ -5,16 +5,28 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
-import type { Dimensionless, Seconds } from '../units.js';
 import { chiSquareQuantile, chiSquareUpperQuantile } from '../internal/special-functions.js';
 import {
-  MAX_ABS_PHASE_SECONDS, MEASUREMENT_VARIANCE_RANGE, requireInRange, requireMeasurementVariance, requirePhaseSample, requirePositive,
+  MAX_ABS_PHASE_SECONDS,
+  MEASUREMENT_VARIANCE_RANGE,
+  requireInRange,
+  requireMeasurementVariance,
+  requirePhaseSample,
+  requirePositive,
 } from '../internal/validate.js';
-import { detectionFrom, toJump, toOutlier, type ClockDetectionSettings } from './kalman.js';
-import { FilterCore, type CoreEvents } from './kalman-core.js';
-import { checkQForStates, requireEstimate, type ClockEstimate, type ClockKalmanOptions, type DetectedJump, type DetectedOutlier } from './kalman-types.js';
-import { requireDiffusion, type ClockStates } from './noise.js';
-import { requireInstant, type Instant } from '../time/instant.js';
+import { type Instant, requireInstant } from '../time/instant.js';
+import type { Dimensionless, Seconds } from '../units.js';
+import { type ClockDetectionSettings, detectionFrom, toJump, toOutlier } from './kalman.js';
+import { type CoreEvents, FilterCore } from './kalman-core.js';
+import {
+  type ClockEstimate,
+  type ClockKalmanOptions,
+  checkQForStates,
+  type DetectedJump,
+  type DetectedOutlier,
+  requireEstimate,
+} from './kalman-types.js';
+import { type ClockStates, requireDiffusion } from './noise.js';
 
 /** Input series for {@link runClockFilter}. */
 export interface ClockFilterSeries {
@@ -87,7 +99,13 @@ export interface ClockFilterRun {
    * two-sided χ² bounds [χ²_{α/2}(N)/N, χ²_{1−α/2}(N)/N] for a consistent filter (Bar-Shalom, Li &
    * Kirubarajan, "Estimation with Applications to Tracking and Navigation", Wiley 2001, §5.4.2 [M]).
    */
-  readonly nisSummary: { readonly mean: number; readonly count: number; readonly low: number; readonly high: number; readonly confidence: number };
+  readonly nisSummary: {
+    readonly mean: number;
+    readonly count: number;
+    readonly low: number;
+    readonly high: number;
+    readonly confidence: number;
+  };
   /** Final estimate. */
   readonly final: ClockEstimate;
 }
@@ -102,9 +120,16 @@ function epochsOf(series: ClockFilterSeries, n: number): Float64Array {
     for (let i = 0; i < n; i++) {
       const ti = series.t[i];
       // The helper (which builds its message) is called only for a bad value.
-      t[i] = typeof ti === 'number' && Math.abs(ti) <= MAX_ABS_PHASE_SECONDS ? ti : requirePhaseSample(`series.t[${i}]`, ti, false);
+      t[i] =
+        typeof ti === 'number' && Math.abs(ti) <= MAX_ABS_PHASE_SECONDS
+          ? ti
+          : requirePhaseSample(`series.t[${i}]`, ti, false);
       if (i > 0 && !(t[i]! > t[i - 1]!)) {
-        throw new InvalidArgumentError(`series.t[${i}]`, t[i], `greater than series.t[${i - 1}] = ${t[i - 1]} (strictly increasing epochs)`);
+        throw new InvalidArgumentError(
+          `series.t[${i}]`,
+          t[i],
+          `greater than series.t[${i - 1}] = ${t[i - 1]} (strictly increasing epochs)`,
+        );
       }
     }
   } else {
@@ -124,22 +149,51 @@ function variancesOf(series: ClockFilterSeries, n: number): Float64Array {
   }
   for (let i = 0; i < n; i++) {
     const vi = v[i];
-    out[i] = typeof vi === 'number' && vi >= MEASUREMENT_VARIANCE_RANGE.min && vi <= MEASUREMENT_VARIANCE_RANGE.max
-      ? vi : requireMeasurementVariance(`series.variance[${i}]`, vi);
+    out[i] =
+      typeof vi === 'number' && vi >= MEASUREMENT_VARIANCE_RANGE.min && vi <= MEASUREMENT_VARIANCE_RANGE.max
+        ? vi
+        : requireMeasurementVariance(`series.variance[${i}]`, vi);
   }
   return out;
 }
 
 /** The initial estimate: given, or from the first valid sample. */
-function initialOf(options: ClockFilterRunOptions, q: { q3: number }, t0: number, z0: number, r0: number): ClockEstimate {
+function initialOf(
+  options: ClockFilterRunOptions,
+  q: { q3: number },
+  t0: number,
+  z0: number,
+  r0: number,
+): ClockEstimate {
   if (options.initial !== undefined) return options.initial;
   const states = options.states === undefined ? (q.q3 > 0 ? 3 : 2) : options.states;
   if (states !== 2 && states !== 3) throw new InvalidArgumentError('options.states', states, '2 or 3');
-  const fs = options.initialFrequencyStd === undefined ? 1e-9 : requirePositive('options.initialFrequencyStd', options.initialFrequencyStd);
-  const ds = options.initialDriftStd === undefined ? 1e-15 : requirePositive('options.initialDriftStd', options.initialDriftStd, '1/s');
+  const fs =
+    options.initialFrequencyStd === undefined
+      ? 1e-9
+      : requirePositive('options.initialFrequencyStd', options.initialFrequencyStd);
+  const ds =
+    options.initialDriftStd === undefined
+      ? 1e-15
+      : requirePositive('options.initialDriftStd', options.initialDriftStd, '1/s');
   return states === 2
-    ? { t: t0, state: [z0, 0], covariance: [[r0, 0], [0, fs * fs]] }
-    : { t: t0, state: [z0, 0, 0], covariance: [[r0, 0, 0], [0, fs * fs, 0], [0, 0, ds * ds]] };
+    ? {
+        t: t0,
+        state: [z0, 0],
+        covariance: [
+          [r0, 0],
+          [0, fs * fs],
+        ],
+      }
+    : {
+        t: t0,
+        state: [z0, 0, 0],
+        covariance: [
+          [r0, 0, 0],
+          [0, fs * fs, 0],
+          [0, 0, ds * ds],
+        ],
+      };
 }
 
 /**
@@ -166,10 +220,13 @@ function initialOf(options: ClockFilterRunOptions, q: { q3: number }, t0: number
  *         a variance array of the wrong length, variance ≤ 0, or any filter option error.
  */
 export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRunOptions): ClockFilterRun {
-  if (typeof series !== 'object' || series === null) throw new InvalidArgumentError('series', series, 'an object { phase, variance, t | tau0 }');
-  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'filter options { q, ... }');
+  if (typeof series !== 'object' || series === null)
+    throw new InvalidArgumentError('series', series, 'an object { phase, variance, t | tau0 }');
+  if (typeof options !== 'object' || options === null)
+    throw new InvalidArgumentError('options', options, 'filter options { q, ... }');
   const z = series.phase;
-  if (!z || typeof z.length !== 'number' || z.length === 0) throw new InvalidArgumentError('series.phase', z, 'a non-empty array of phases in seconds');
+  if (!z || typeof z.length !== 'number' || z.length === 0)
+    throw new InvalidArgumentError('series.phase', z, 'a non-empty array of phases in seconds');
   const n = z.length;
   if (series.epoch !== undefined) requireInstant('series.epoch', series.epoch);
   const t = epochsOf(series, n);
@@ -177,29 +234,42 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
   let first = -1;
   for (let i = 0; i < n; i++) {
     const zi = z[i];
-    if (typeof zi !== 'number' || !(Math.abs(zi) <= MAX_ABS_PHASE_SECONDS || zi !== zi)) requirePhaseSample(`series.phase[${i}]`, zi, true);
+    if (typeof zi !== 'number' || !(Math.abs(zi) <= MAX_ABS_PHASE_SECONDS || zi !== zi))
+      requirePhaseSample(`series.phase[${i}]`, zi, true);
     if (first < 0 && zi === zi) first = i;
   }
   if (first < 0) throw new InvalidArgumentError('series.phase', 'all NaN', 'at least one valid phase sample');
   const q = requireDiffusion('options.q', options.q);
   const initial = requireEstimate('options.initial', initialOf(options, q, t[first]!, z[first]!, variance[first]!));
   checkQForStates(q, initial.states, 'options.q');
-  const confidence = options.nisConfidence === undefined ? 0.95 : requireInRange('options.nisConfidence', options.nisConfidence, 1e-6, 1 - 1e-12);
+  const confidence =
+    options.nisConfidence === undefined
+      ? 0.95
+      : requireInRange('options.nisConfidence', options.nisConfidence, 1e-6, 1 - 1e-12);
   const { settings, detector } = detectionFrom(options);
   const core = new FilterCore(q, initial.t, initial.state, initial.covariance, settings.holdGate, detector);
   const three = initial.states === 3;
   const out = {
-    phase: new Float64Array(n), frequency: new Float64Array(n), drift: new Float64Array(n),
-    phaseStd: new Float64Array(n), frequencyStd: new Float64Array(n), driftStd: new Float64Array(n),
-    innovation: new Float64Array(n).fill(Number.NaN), innovationVariance: new Float64Array(n).fill(Number.NaN),
+    phase: new Float64Array(n),
+    frequency: new Float64Array(n),
+    drift: new Float64Array(n),
+    phaseStd: new Float64Array(n),
+    frequencyStd: new Float64Array(n),
+    driftStd: new Float64Array(n),
+    innovation: new Float64Array(n).fill(Number.NaN),
+    innovationVariance: new Float64Array(n).fill(Number.NaN),
     nis: new Float64Array(n).fill(Number.NaN),
   };
   // 0 accepted, 1 rejected (left out), 2 missing
   const code = new Uint8Array(n);
   const sampleOf = new Int32Array(n);
   const write = (i: number): void => {
-    out.phase[i] = core.x0; out.frequency[i] = core.x1; out.drift[i] = three ? core.x2 : 0;
-    out.phaseStd[i] = Math.sqrt(core.p00); out.frequencyStd[i] = Math.sqrt(core.p11); out.driftStd[i] = three ? Math.sqrt(core.p22) : 0;
+    out.phase[i] = core.x0;
+    out.frequency[i] = core.x1;
+    out.drift[i] = three ? core.x2 : 0;
+    out.phaseStd[i] = Math.sqrt(core.p00);
+    out.frequencyStd[i] = Math.sqrt(core.p11);
+    out.driftStd[i] = three ? Math.sqrt(core.p22) : 0;
   };
   let current = 0;
   const scratch = new Float64Array(6);
@@ -215,8 +285,12 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
     // In a replay, refresh the predictions at missing samples between this update and the next one.
     for (let j = i + 1; j < current && code[j] === 2; j++) {
       c.peek(t[j]!, scratch);
-      out.phase[j] = scratch[0]!; out.frequency[j] = scratch[1]!; out.drift[j] = three ? scratch[2]! : 0;
-      out.phaseStd[j] = scratch[3]!; out.frequencyStd[j] = scratch[4]!; out.driftStd[j] = three ? scratch[5]! : 0;
+      out.phase[j] = scratch[0]!;
+      out.frequency[j] = scratch[1]!;
+      out.drift[j] = three ? scratch[2]! : 0;
+      out.phaseStd[j] = scratch[3]!;
+      out.frequencyStd[j] = scratch[4]!;
+      out.driftStd[j] = three ? scratch[5]! : 0;
     }
   };
   const events: CoreEvents = { jumps: [], outliers: [] };
@@ -237,7 +311,8 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
     }
     sampleOf[core.updates] = i;
     core.update(zi, variance[i]!, events);
-    if (events.jumps.length !== 0 || events.outliers.length !== 0) collect(events, sampleOf, i, settings.jumpThreshold, jumps, outliers);
+    if (events.jumps.length !== 0 || events.outliers.length !== 0)
+      collect(events, sampleOf, i, settings.jumpThreshold, jumps, outliers);
   }
   current = n;
   core.flush(events);
@@ -247,7 +322,14 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
 }
 
 /** Moves declared events into the public lists, with sample indices. */
-function collect(events: CoreEvents, sampleOf: Int32Array, at: number, threshold: number, jumps: DetectedJump[], outliers: DetectedOutlier[]): void {
+function collect(
+  events: CoreEvents,
+  sampleOf: Int32Array,
+  at: number,
+  threshold: number,
+  jumps: DetectedJump[],
+  outliers: DetectedOutlier[],
+): void {
   for (const j of events.jumps) {
     const r = toJump(j, at, threshold);
     jumps.push({ ...r, updateIndex: sampleOf[r.updateIndex]! });
@@ -260,9 +342,17 @@ function collect(events: CoreEvents, sampleOf: Int32Array, at: number, threshold
   events.outliers.length = 0;
 }
 
-function finish(out: Omit<ClockFilterRun, 'states' | 't' | 'status' | 'rejected' | 'jumps' | 'nisSummary' | 'final'>, code: Uint8Array,
-  jumps: DetectedJump[], outliers: DetectedOutlier[], detection: ClockDetectionSettings, confidence: number, core: FilterCore,
-  t: Float64Array, states: ClockStates): ClockFilterRun {
+function finish(
+  out: Omit<ClockFilterRun, 'states' | 't' | 'status' | 'rejected' | 'jumps' | 'nisSummary' | 'final'>,
+  code: Uint8Array,
+  jumps: DetectedJump[],
+  outliers: DetectedOutlier[],
+  detection: ClockDetectionSettings,
+  confidence: number,
+  core: FilterCore,
+  t: Float64Array,
+  states: ClockStates,
+): ClockFilterRun {
   const names = ['accepted', 'rejected', 'missing'] as const;
   const status = new Array<'accepted' | 'rejected' | 'missing'>(code.length);
   for (let i = 0; i < code.length; i++) status[i] = names[code[i]!] as 'accepted' | 'rejected' | 'missing';
@@ -278,16 +368,35 @@ function finish(out: Omit<ClockFilterRun, 'states' | 't' | 'status' | 'rejected'
     }
   }
   const alpha = 1 - confidence;
-  const nisSummary = nisCount === 0
-    ? { mean: Number.NaN, count: 0, low: Number.NaN, high: Number.NaN, confidence }
-    : {
-      mean: nisSum / nisCount, count: nisCount, confidence,
-      low: chiSquareQuantile(alpha / 2, nisCount) / nisCount,
-      high: chiSquareUpperQuantile(alpha / 2, nisCount) / nisCount,
-    };
+  const nisSummary =
+    nisCount === 0
+      ? { mean: Number.NaN, count: 0, low: Number.NaN, high: Number.NaN, confidence }
+      : {
+          mean: nisSum / nisCount,
+          count: nisCount,
+          confidence,
+          low: chiSquareQuantile(alpha / 2, nisCount) / nisCount,
+          high: chiSquareUpperQuantile(alpha / 2, nisCount) / nisCount,
+        };
   const c = core;
-  const final: ClockEstimate = states === 3
-    ? { t: c.t, state: [c.x0, c.x1, c.x2], covariance: [[c.p00, c.p01, c.p02], [c.p01, c.p11, c.p12], [c.p02, c.p12, c.p22]] }
-    : { t: c.t, state: [c.x0, c.x1], covariance: [[c.p00, c.p01], [c.p01, c.p11]] };
+  const final: ClockEstimate =
+    states === 3
+      ? {
+          t: c.t,
+          state: [c.x0, c.x1, c.x2],
+          covariance: [
+            [c.p00, c.p01, c.p02],
+            [c.p01, c.p11, c.p12],
+            [c.p02, c.p12, c.p22],
+          ],
+        }
+      : {
+          t: c.t,
+          state: [c.x0, c.x1],
+          covariance: [
+            [c.p00, c.p01],
+            [c.p01, c.p11],
+          ],
+        };
   return { states, t, ...out, status, rejected, jumps, outliers, detection, nisSummary, final };
 }

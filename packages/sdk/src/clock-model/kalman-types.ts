@@ -5,10 +5,16 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
-import type { Dimensionless, Seconds } from '../units.js';
 import { MAX_ABS_PHASE_SECONDS, requireFinite, requireInRange, requireNonNegative } from '../internal/validate.js';
-import { add, cholesky, congruence, multiplyVector, type Matrix } from './linalg.js';
-import { clockProcessNoise, clockTransitionMatrix, requireDiffusion, type ClockDiffusion, type ClockStates } from './noise.js';
+import type { Dimensionless, Seconds } from '../units.js';
+import { add, cholesky, congruence, type Matrix, multiplyVector } from './linalg.js';
+import {
+  type ClockDiffusion,
+  type ClockStates,
+  clockProcessNoise,
+  clockTransitionMatrix,
+  requireDiffusion,
+} from './noise.js';
 
 /** A clock-state estimate: mean and covariance at a time. */
 export interface ClockEstimate {
@@ -41,33 +47,46 @@ export interface ClockStep {
 }
 
 /** Validates an estimate (2 or 3 states, symmetric positive semi-definite covariance). */
-export function requireEstimate(argument: string, e: unknown): { t: number; state: number[]; covariance: Matrix; states: ClockStates } {
-  if (typeof e !== 'object' || e === null) throw new InvalidArgumentError(argument, e, 'an estimate { t (s), state [x, y(, d)], covariance }');
+export function requireEstimate(
+  argument: string,
+  e: unknown,
+): { t: number; state: number[]; covariance: Matrix; states: ClockStates } {
+  if (typeof e !== 'object' || e === null)
+    throw new InvalidArgumentError(argument, e, 'an estimate { t (s), state [x, y(, d)], covariance }');
   const r = e as Record<string, unknown>;
-  const t = requireInRange(`${argument}.t`, r['t'], -MAX_ABS_PHASE_SECONDS, MAX_ABS_PHASE_SECONDS, { unit: 's (an epoch)' });
-  const s = r['state'];
+  const t = requireInRange(`${argument}.t`, r.t, -MAX_ABS_PHASE_SECONDS, MAX_ABS_PHASE_SECONDS, {
+    unit: 's (an epoch)',
+  });
+  const s = r.state;
   if (!Array.isArray(s) || (s.length !== 2 && s.length !== 3)) {
     throw new InvalidArgumentError(`${argument}.state`, s, 'an array [x (s), y] or [x (s), y, d (1/s)]');
   }
   const n = s.length as ClockStates;
   const state = s.map((v: unknown, i: number) => requireFinite(`${argument}.state[${i}]`, v));
-  const c = r['covariance'];
+  const c = r.covariance;
   const expected = `a symmetric positive semi-definite ${n}×${n} matrix (array of rows)`;
   if (!Array.isArray(c) || c.length !== n) throw new InvalidArgumentError(`${argument}.covariance`, c, expected);
   const covariance = c.map((row: unknown, i: number) => {
-    if (!Array.isArray(row) || row.length !== n) throw new InvalidArgumentError(`${argument}.covariance[${i}]`, row, `a row of ${n} numbers`);
+    if (!Array.isArray(row) || row.length !== n)
+      throw new InvalidArgumentError(`${argument}.covariance[${i}]`, row, `a row of ${n} numbers`);
     return row.map((v: unknown, j: number) => requireFinite(`${argument}.covariance[${i}][${j}]`, v));
   });
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < i; j++) {
       const a = covariance[i]![j]!;
       const b = covariance[j]![i]!;
-      if (Math.abs(a - b) > 1e-9 * Math.sqrt(Math.abs((covariance[i]![i]!) * (covariance[j]![j]!)))) {
-        throw new InvalidArgumentError(`${argument}.covariance`, c, expected, `element [${i}][${j}] differs from [${j}][${i}]`);
+      if (Math.abs(a - b) > 1e-9 * Math.sqrt(Math.abs(covariance[i]![i]! * covariance[j]![j]!))) {
+        throw new InvalidArgumentError(
+          `${argument}.covariance`,
+          c,
+          expected,
+          `element [${i}][${j}] differs from [${j}][${i}]`,
+        );
       }
     }
   }
-  if (!cholesky(scaledForTest(covariance), true)) throw new InvalidArgumentError(`${argument}.covariance`, c, expected, 'the matrix is not positive semi-definite');
+  if (!cholesky(scaledForTest(covariance), true))
+    throw new InvalidArgumentError(`${argument}.covariance`, c, expected, 'the matrix is not positive semi-definite');
   return { t, state, covariance, states: n };
 }
 
@@ -78,8 +97,13 @@ function scaledForTest(p: Matrix): Matrix {
 }
 
 /** Mean and covariance propagated by τ: s' = Φs, P' = ΦPΦᵀ + Q(τ) (Kalman 1960 time update). */
-function propagate(state: readonly number[], p: Matrix, tau: number, q: Required<ClockDiffusion>, states: ClockStates)
-  : { state: number[]; covariance: Matrix } {
+function propagate(
+  state: readonly number[],
+  p: Matrix,
+  tau: number,
+  q: Required<ClockDiffusion>,
+  states: ClockStates,
+): { state: number[]; covariance: Matrix } {
   const phi = clockTransitionMatrix(tau, states);
   return { state: multiplyVector(phi, state), covariance: add(congruence(phi, p), clockProcessNoise(tau, q, states)) };
 }
@@ -87,7 +111,12 @@ function propagate(state: readonly number[], p: Matrix, tau: number, q: Required
 /** A 2-state model has no drift noise: q3 must be 0. */
 export function checkQForStates(q: Required<ClockDiffusion>, states: ClockStates, argument: string): void {
   if (states === 2 && q.q3 !== 0) {
-    throw new InvalidArgumentError(`${argument}.q3`, q.q3, '0 for a 2-state estimate', 'give a 3-element state [x, y, d] to model drift noise');
+    throw new InvalidArgumentError(
+      `${argument}.q3`,
+      q.q3,
+      '0 for a 2-state estimate',
+      'give a 3-element state [x, y, d] to model drift noise',
+    );
   }
 }
 
@@ -101,16 +130,24 @@ export function checkQForStates(q: Required<ClockDiffusion>, states: ClockStates
  * @throws {InvalidArgumentError} for a malformed estimate, negative q, q3 > 0 with 2 states, or a negative/NaN horizon.
  * @see R. E. Kalman, J. Basic Eng. 82(1), 35–45 (1960) (time update) [M]; Zucca & Tavella (2005) for Φ and Q [M citation].
  */
-export function forecastClock(estimate: ClockEstimate, q: ClockDiffusion, horizons: readonly Seconds[]): ClockForecast[] {
+export function forecastClock(
+  estimate: ClockEstimate,
+  q: ClockDiffusion,
+  horizons: readonly Seconds[],
+): ClockForecast[] {
   const e = requireEstimate('estimate', estimate);
   const qq = requireDiffusion('q', q);
   checkQForStates(qq, e.states, 'q');
-  if (!Array.isArray(horizons)) throw new InvalidArgumentError('horizons', horizons, 'an array of horizons ≥ 0 in seconds');
+  if (!Array.isArray(horizons))
+    throw new InvalidArgumentError('horizons', horizons, 'an array of horizons ≥ 0 in seconds');
   return horizons.map((h, i) => {
     const tau = requireNonNegative(`horizons[${i}]`, h, 's');
     const p = propagate(e.state, e.covariance, tau, qq, e.states);
     return {
-      t: e.t + tau, horizon: tau, state: p.state, covariance: p.covariance,
+      t: e.t + tau,
+      horizon: tau,
+      state: p.state,
+      covariance: p.covariance,
       phaseStd: Math.sqrt(p.covariance[0]![0]!),
       frequencyStd: Math.sqrt(p.covariance[1]![1]!),
     };
@@ -138,11 +175,13 @@ export function applyClockStep(estimate: ClockEstimate, step: ClockStep): ClockE
 
 /** Validates a known step: [phase (s), frequency, drift (1/s)]. */
 export function requireStep(step: unknown, states: ClockStates): [number, number, number] {
-  if (typeof step !== 'object' || step === null) throw new InvalidArgumentError('step', step, 'an object { phase?, frequency?, drift? }');
+  if (typeof step !== 'object' || step === null)
+    throw new InvalidArgumentError('step', step, 'an object { phase?, frequency?, drift? }');
   const r = step as Record<string, unknown>;
-  const phase = r['phase'] === undefined ? 0 : requireFinite('step.phase', r['phase'], 'a finite phase step in seconds');
-  const frequency = r['frequency'] === undefined ? 0 : requireFinite('step.frequency', r['frequency'], 'a finite fractional-frequency step');
-  const drift = r['drift'] === undefined ? 0 : requireFinite('step.drift', r['drift'], 'a finite drift step in 1/s');
+  const phase = r.phase === undefined ? 0 : requireFinite('step.phase', r.phase, 'a finite phase step in seconds');
+  const frequency =
+    r.frequency === undefined ? 0 : requireFinite('step.frequency', r.frequency, 'a finite fractional-frequency step');
+  const drift = r.drift === undefined ? 0 : requireFinite('step.drift', r.drift, 'a finite drift step in 1/s');
   if (states === 2 && drift !== 0) throw new InvalidArgumentError('step.drift', drift, '0 for a 2-state model');
   return [phase, frequency, drift];
 }
@@ -245,4 +284,3 @@ export interface ClockUpdate {
   /** Estimate after the update (and after any jump correction). */
   readonly estimate: ClockEstimate;
 }
-

@@ -7,18 +7,31 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
-import type { Seconds } from '../units.js';
 import { chiSquareUpperQuantile } from '../internal/special-functions.js';
 import {
-  MAX_ABS_PHASE_SECONDS, requireInRange, requireInteger, requireMeasurementVariance, requirePhaseSample,
+  MAX_ABS_PHASE_SECONDS,
+  requireInRange,
+  requireInteger,
+  requireMeasurementVariance,
+  requirePhaseSample,
 } from '../internal/validate.js';
-import { FilterCore, type CoreEvents } from './kalman-core.js';
-import { FREQUENCY, GlrDetector, type GlrDecision } from './kalman-glr.js';
+import type { Seconds } from '../units.js';
+import { type CoreEvents, FilterCore } from './kalman-core.js';
+import { FREQUENCY, type GlrDecision, GlrDetector } from './kalman-glr.js';
 import {
-  checkQForStates, forecastClock, requireEstimate, requireStep,
-  type ClockEstimate, type ClockForecast, type ClockKalmanOptions, type ClockStep, type ClockUpdate, type DetectedJump, type DetectedOutlier,
+  type ClockEstimate,
+  type ClockForecast,
+  type ClockKalmanOptions,
+  type ClockStep,
+  type ClockUpdate,
+  checkQForStates,
+  type DetectedJump,
+  type DetectedOutlier,
+  forecastClock,
+  requireEstimate,
+  requireStep,
 } from './kalman-types.js';
-import { requireDiffusion, type ClockDiffusion, type ClockStates } from './noise.js';
+import { type ClockDiffusion, type ClockStates, requireDiffusion } from './noise.js';
 
 /** Most stringent NIS hold-out: a measurement is held at once only when NIS exceeds χ²(1) at 1e-9 (or at outlierProbability if smaller). */
 const HOLD_PROBABILITY = 1e-9;
@@ -42,15 +55,23 @@ export interface ClockDetectionSettings {
 }
 
 /** Builds the detector and the hold-out gate from validated options. @internal */
-export function detectionFrom(options: Pick<ClockKalmanOptions, 'outlierProbability' | 'jumpDetection'>): { settings: ClockDetectionSettings; detector: GlrDetector | undefined } {
+export function detectionFrom(options: Pick<ClockKalmanOptions, 'outlierProbability' | 'jumpDetection'>): {
+  settings: ClockDetectionSettings;
+  detector: GlrDetector | undefined;
+} {
   const op = options.outlierProbability === undefined ? 1e-4 : options.outlierProbability;
   const outlierProbability = op === false ? 0 : requireInRange('outlierProbability', op, 1e-15, 0.5);
   const jd = options.jumpDetection === undefined ? {} : options.jumpDetection;
   const j = jd === false ? {} : jd;
-  if (typeof j !== 'object' || j === null) throw new InvalidArgumentError('jumpDetection', j, 'an options object or false');
+  if (typeof j !== 'object' || j === null)
+    throw new InvalidArgumentError('jumpDetection', j, 'an options object or false');
   const window = j.window === undefined ? 20 : requireInteger('jumpDetection.window', j.window, 2, 10000);
-  const minEpochs = j.minEpochs === undefined ? Math.min(3, window) : requireInteger('jumpDetection.minEpochs', j.minEpochs, 2, window);
-  const pfa = j.falseAlarmProbability === undefined ? 1e-6 : requireInRange('jumpDetection.falseAlarmProbability', j.falseAlarmProbability, 1e-15, 0.5);
+  const minEpochs =
+    j.minEpochs === undefined ? Math.min(3, window) : requireInteger('jumpDetection.minEpochs', j.minEpochs, 2, window);
+  const pfa =
+    j.falseAlarmProbability === undefined
+      ? 1e-6
+      : requireInRange('jumpDetection.falseAlarmProbability', j.falseAlarmProbability, 1e-15, 0.5);
   const jumps = jd !== false;
   const outliers = op !== false;
   const testsPerUpdate = 2 * (window - minEpochs + 1);
@@ -58,23 +79,46 @@ export function detectionFrom(options: Pick<ClockKalmanOptions, 'outlierProbabil
   const outlierThreshold = outliers ? chiSquareUpperQuantile(outlierProbability, 1) : Infinity;
   const holdGate = outliers ? chiSquareUpperQuantile(Math.min(outlierProbability, HOLD_PROBABILITY), 1) : Infinity;
   const settings = {
-    falseAlarmProbability: jumps ? pfa : 0, testsPerUpdate, jumpThreshold, outlierProbability, outlierThreshold, holdGate, window, minEpochs,
+    falseAlarmProbability: jumps ? pfa : 0,
+    testsPerUpdate,
+    jumpThreshold,
+    outlierProbability,
+    outlierThreshold,
+    holdGate,
+    window,
+    minEpochs,
   };
-  const detector = jumps || outliers ? new GlrDetector(window, minEpochs, jumps, outliers, jumpThreshold, outlierThreshold) : undefined;
+  const detector =
+    jumps || outliers
+      ? new GlrDetector(window, minEpochs, jumps, outliers, jumpThreshold, outlierThreshold)
+      : undefined;
   return { settings, detector };
 }
 
 /** Converts a detector decision to the public jump record. */
 export function toJump(d: GlrDecision, declaredAt: number, threshold: number): DetectedJump {
   return {
-    kind: d.kind === FREQUENCY ? 'frequency' : 'phase', epoch: d.epoch, updateIndex: d.updateIndex, size: d.size, sizeStd: d.sizeStd,
-    statistic: d.statistic, declaredAtUpdate: declaredAt, threshold,
+    kind: d.kind === FREQUENCY ? 'frequency' : 'phase',
+    epoch: d.epoch,
+    updateIndex: d.updateIndex,
+    size: d.size,
+    sizeStd: d.sizeStd,
+    statistic: d.statistic,
+    declaredAtUpdate: declaredAt,
+    threshold,
   };
 }
 
 /** Converts a detector decision to the public outlier record. */
 export function toOutlier(d: GlrDecision, declaredAt: number): DetectedOutlier {
-  return { epoch: d.epoch, updateIndex: d.updateIndex, size: d.size, sizeStd: d.sizeStd, statistic: d.statistic, declaredAtUpdate: declaredAt };
+  return {
+    epoch: d.epoch,
+    updateIndex: d.updateIndex,
+    size: d.size,
+    sizeStd: d.sizeStd,
+    statistic: d.statistic,
+    declaredAtUpdate: declaredAt,
+  };
 }
 
 /**
@@ -116,7 +160,8 @@ export class ClockKalmanFilter {
    *         (window integer in [2, 10000], minEpochs integer in [2, window], falseAlarmProbability in [1e-15, 0.5]).
    */
   constructor(options: ClockKalmanOptions) {
-    if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'filter options { q, initial, ... }');
+    if (typeof options !== 'object' || options === null)
+      throw new InvalidArgumentError('options', options, 'filter options { q, initial, ... }');
     const e = requireEstimate('initial', options.initial);
     this._q = requireDiffusion('q', options.q);
     checkQForStates(this._q, e.states, 'q');
@@ -135,8 +180,23 @@ export class ClockKalmanFilter {
   get estimate(): ClockEstimate {
     const c = this._core;
     return this._states === 3
-      ? { t: c.t, state: [c.x0, c.x1, c.x2], covariance: [[c.p00, c.p01, c.p02], [c.p01, c.p11, c.p12], [c.p02, c.p12, c.p22]] }
-      : { t: c.t, state: [c.x0, c.x1], covariance: [[c.p00, c.p01], [c.p01, c.p11]] };
+      ? {
+          t: c.t,
+          state: [c.x0, c.x1, c.x2],
+          covariance: [
+            [c.p00, c.p01, c.p02],
+            [c.p01, c.p11, c.p12],
+            [c.p02, c.p12, c.p22],
+          ],
+        }
+      : {
+          t: c.t,
+          state: [c.x0, c.x1],
+          covariance: [
+            [c.p00, c.p01],
+            [c.p01, c.p11],
+          ],
+        };
   }
 
   /** Threshold of the outlier decision (χ²(1) quantile at outlierProbability; Infinity when outlier handling is off). */
@@ -158,7 +218,12 @@ export class ClockKalmanFilter {
    */
   predict(t: Seconds): ClockEstimate {
     requireInRange('t', t, -MAX_ABS_PHASE_SECONDS, MAX_ABS_PHASE_SECONDS, { unit: 's (an epoch)' });
-    if (t < this._core.t) throw new InvalidArgumentError('t', t, `a time ≥ the filter epoch ${this._core.t} s (the filter does not run backwards)`);
+    if (t < this._core.t)
+      throw new InvalidArgumentError(
+        't',
+        t,
+        `a time ≥ the filter epoch ${this._core.t} s (the filter does not run backwards)`,
+      );
     this._core.predictTo(t);
     return this.estimate;
   }
@@ -182,11 +247,23 @@ export class ClockKalmanFilter {
     const leftOut = c.update(z, r, events);
     const innovation = c.liveNu;
     const s = c.liveS;
-    const jump = events.jumps.length ? toJump(events.jumps[events.jumps.length - 1] as GlrDecision, index, this._settings.jumpThreshold) : undefined;
-    const out = events.outliers.length ? toOutlier(events.outliers[events.outliers.length - 1] as GlrDecision, index) : undefined;
+    const jump = events.jumps.length
+      ? toJump(events.jumps[events.jumps.length - 1] as GlrDecision, index, this._settings.jumpThreshold)
+      : undefined;
+    const out = events.outliers.length
+      ? toOutlier(events.outliers[events.outliers.length - 1] as GlrDecision, index)
+      : undefined;
     return {
-      t, updateIndex: index, status: leftOut ? 'rejected' : 'accepted', innovation, innovationVariance: s, nis: (innovation * innovation) / s,
-      gate: this._settings.outlierThreshold, jump, outlier: out, estimate: this.estimate,
+      t,
+      updateIndex: index,
+      status: leftOut ? 'rejected' : 'accepted',
+      innovation,
+      innovationVariance: s,
+      nis: (innovation * innovation) / s,
+      gate: this._settings.outlierThreshold,
+      jump,
+      outlier: out,
+      estimate: this.estimate,
     };
   }
 

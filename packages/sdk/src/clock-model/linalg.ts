@@ -72,7 +72,7 @@ export function symmetrize(a: Matrix): Matrix {
   const n = a.length;
   for (let i = 0; i < n; i++) {
     for (let j = i + 1; j < n; j++) {
-      const v = 0.5 * ((a[i]![j]!) + (a[j]![i]!));
+      const v = 0.5 * (a[i]![j]! + a[j]![i]!);
       a[i]![j] = v;
       a[j]![i] = v;
     }
@@ -82,7 +82,7 @@ export function symmetrize(a: Matrix): Matrix {
 
 /** A + B. */
 export function add(a: readonly (readonly number[])[], b: readonly (readonly number[])[]): Matrix {
-  return a.map((row, i) => row.map((v, j) => v + (b[i]![j]!)));
+  return a.map((row, i) => row.map((v, j) => v + b[i]![j]!));
 }
 
 /**
@@ -128,11 +128,11 @@ export function inverseSpd(a: readonly (readonly number[])[]): Matrix | undefine
   // inv(L) by forward substitution, then inv(A) = inv(L)ᵀ inv(L).
   const li = zeros(n);
   for (let j = 0; j < n; j++) {
-    li[j]![j] = 1 / (l[j]![j]!);
+    li[j]![j] = 1 / l[j]![j]!;
     for (let i = j + 1; i < n; i++) {
       let s = 0;
-      for (let k = j; k < i; k++) s -= (l[i]![k]!) * (li[k]![j]!);
-      li[i]![j] = s / (l[i]![i]!);
+      for (let k = j; k < i; k++) s -= l[i]![k]! * li[k]![j]!;
+      li[i]![j] = s / l[i]![i]!;
     }
   }
   return symmetrize(multiply(transpose(li), li));

@@ -39,7 +39,8 @@ export interface MeasurementNoiseEstimate {
  *      Theorem 7.2.1 [M] (variance of sample autocovariances).
  */
 export function measurementNoiseFromPhase(phase: ArrayLike<number>): MeasurementNoiseEstimate {
-  if (!phase || typeof phase.length !== 'number') throw new InvalidArgumentError('phase', phase, 'an array of phases in seconds');
+  if (!phase || typeof phase.length !== 'number')
+    throw new InvalidArgumentError('phase', phase, 'an array of phases in seconds');
   const n = phase.length;
   const s = new Float64Array(Math.max(n - 2, 0));
   for (let i = 0; i < n; i++) {
@@ -49,7 +50,11 @@ export function measurementNoiseFromPhase(phase: ArrayLike<number>): Measurement
   for (let k = 1; k < n - 1; k++) s[k - 1] = phase[k + 1]! - 2 * phase[k]! + phase[k - 1]!;
   let sum = 0;
   let count = 0;
-  for (const v of s) if (v === v) { sum += v; count++; }
+  for (const v of s)
+    if (v === v) {
+      sum += v;
+      count++;
+    }
   const mean = count > 0 ? sum / count : 0;
   const acov = (lag: number): { value: number; terms: number } => {
     let acc = 0;
@@ -57,13 +62,21 @@ export function measurementNoiseFromPhase(phase: ArrayLike<number>): Measurement
     for (let k = 0; k + lag < s.length; k++) {
       const a = s[k]!;
       const b = s[k + lag]!;
-      if (a === a && b === b) { acc += (a - mean) * (b - mean); terms++; }
+      if (a === a && b === b) {
+        acc += (a - mean) * (b - mean);
+        terms++;
+      }
     }
     return { value: terms > 0 ? acc / terms : Number.NaN, terms };
   };
   const lags = [0, 1, 2, 3, 4].map(acov);
   const c2 = lags[2] as { value: number; terms: number };
-  if (c2.terms < 8) throw new InvalidArgumentError('phase', `${c2.terms} complete lag-2 pairs of second differences`, 'at least 8 (about 12 consecutive samples)');
+  if (c2.terms < 8)
+    throw new InvalidArgumentError(
+      'phase',
+      `${c2.terms} complete lag-2 pairs of second differences`,
+      'at least 8 (about 12 consecutive samples)',
+    );
   const g = (h: number): number => (Math.abs(h) <= 4 ? (lags[Math.abs(h)] as { value: number }).value : 0);
   let bartlett = 0;
   for (let j = -4; j <= 4; j++) bartlett += g(j) ** 2 + g(j + 2) * g(j - 2);

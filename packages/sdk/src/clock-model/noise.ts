@@ -9,8 +9,8 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
-import type { Dimensionless, Seconds } from '../units.js';
 import { requireInRange, requireNonNegative, requirePositive } from '../internal/validate.js';
+import type { Dimensionless, Seconds } from '../units.js';
 import { cholesky, type Matrix } from './linalg.js';
 
 /** Number of clock states: 2 = [phase, frequency], 3 = [phase, frequency, drift]. */
@@ -53,14 +53,19 @@ const MIN_AVERAGING_TIME: Seconds = 1e-9;
 /** Validates and completes a diffusion record (q3 defaults to 0). */
 export function requireDiffusion(argument: string, q: unknown): Required<ClockDiffusion> {
   if (typeof q !== 'object' || q === null) {
-    throw new InvalidArgumentError(argument, q, 'an object { q1 (s), q2 (1/s), q3? (1/s³) } of non-negative diffusion coefficients');
+    throw new InvalidArgumentError(
+      argument,
+      q,
+      'an object { q1 (s), q2 (1/s), q3? (1/s³) } of non-negative diffusion coefficients',
+    );
   }
   const r = q as Record<string, unknown>;
-  const coefficient = (key: string, unit: string) => requireInRange(`${argument}.${key}`, r[key], 0, MAX_DIFFUSION, { unit });
+  const coefficient = (key: string, unit: string) =>
+    requireInRange(`${argument}.${key}`, r[key], 0, MAX_DIFFUSION, { unit });
   return {
     q1: coefficient('q1', 's'),
     q2: coefficient('q2', '1/s'),
-    q3: r['q3'] === undefined ? 0 : coefficient('q3', '1/s³'),
+    q3: r.q3 === undefined ? 0 : coefficient('q3', '1/s³'),
   };
 }
 
@@ -70,7 +75,8 @@ function requireInterval(argument: string, tau: unknown, averaging: boolean): nu
 }
 
 function requireStates(states: unknown): ClockStates {
-  if (states !== 2 && states !== 3) throw new InvalidArgumentError('states', states, '2 (phase, frequency) or 3 (phase, frequency, drift)');
+  if (states !== 2 && states !== 3)
+    throw new InvalidArgumentError('states', states, '2 (phase, frequency) or 3 (phase, frequency, drift)');
   return states;
 }
 
@@ -88,8 +94,16 @@ function requireStates(states: unknown): ClockStates {
 export function clockTransitionMatrix(tau: Seconds, states: ClockStates): Matrix {
   requireInterval('tau', tau, false);
   requireStates(states);
-  if (states === 2) return [[1, tau], [0, 1]];
-  return [[1, tau, (tau * tau) / 2], [0, 1, tau], [0, 0, 1]];
+  if (states === 2)
+    return [
+      [1, tau],
+      [0, 1],
+    ];
+  return [
+    [1, tau, (tau * tau) / 2],
+    [0, 1, tau],
+    [0, 0, 1],
+  ];
 }
 
 /**
@@ -113,7 +127,12 @@ export function clockProcessNoise(tau: Seconds, q: ClockDiffusion, states: Clock
   requireStates(states);
   const { q1, q2, q3 } = requireDiffusion('q', q);
   if (states === 2 && q3 !== 0) {
-    throw new InvalidArgumentError('q.q3', q3, '0 for the 2-state model', 'use states = 3 to model random-walk drift noise');
+    throw new InvalidArgumentError(
+      'q.q3',
+      q3,
+      '0 for the 2-state model',
+      'use states = 3 to model random-walk drift noise',
+    );
   }
   const t2 = tau * tau;
   const t3 = t2 * tau;
@@ -122,10 +141,18 @@ export function clockProcessNoise(tau: Seconds, q: ClockDiffusion, states: Clock
   const q11 = q1 * tau + (q2 * t3) / 3 + (q3 * t5) / 20;
   const q12 = (q2 * t2) / 2 + (q3 * t4) / 8;
   const q22 = q2 * tau + (q3 * t3) / 3;
-  if (states === 2) return [[q11, q12], [q12, q22]];
+  if (states === 2)
+    return [
+      [q11, q12],
+      [q12, q22],
+    ];
   const q13 = (q3 * t3) / 6;
   const q23 = (q3 * t2) / 2;
-  return [[q11, q12, q13], [q12, q22, q23], [q13, q23, q3 * tau]];
+  return [
+    [q11, q12, q13],
+    [q12, q22, q23],
+    [q13, q23, q3 * tau],
+  ];
 }
 
 /**
@@ -142,7 +169,8 @@ export function clockProcessNoise(tau: Seconds, q: ClockDiffusion, states: Clock
  * @see Our own derivation from the one-sided PSD definitions [C]; IEEE Std 1139 one-sided PSD convention [M].
  */
 export function qFromH(h: PowerLawCoefficients): Required<ClockDiffusion> {
-  if (typeof h !== 'object' || h === null) throw new InvalidArgumentError('h', h, 'an object { h0, hMinus2, hMinus4? }');
+  if (typeof h !== 'object' || h === null)
+    throw new InvalidArgumentError('h', h, 'an object { h0, hMinus2, hMinus4? }');
   const h0 = requireInRange('h.h0', h.h0, 0, MAX_POWER_LAW, { unit: 's' });
   const hm2 = requireInRange('h.hMinus2', h.hMinus2, 0, MAX_POWER_LAW, { unit: '1/s' });
   const hm4 = h.hMinus4 === undefined ? 0 : requireInRange('h.hMinus4', h.hMinus4, 0, MAX_POWER_LAW, { unit: '1/s³' });
@@ -182,8 +210,12 @@ export function allanVarianceFromQ(tau: Seconds, q: ClockDiffusion): Dimensionle
   requireInterval('tau', tau, true);
   const { q1, q2, q3 } = requireDiffusion('q', q);
   if (q3 !== 0) {
-    throw new InvalidArgumentError('q.q3', q3, '0 for the Allan variance',
-      'with random-walk drift noise the Allan variance is not stationary; use hadamardVarianceFromQ');
+    throw new InvalidArgumentError(
+      'q.q3',
+      q3,
+      '0 for the Allan variance',
+      'with random-walk drift noise the Allan variance is not stationary; use hadamardVarianceFromQ',
+    );
   }
   return q1 / tau + (q2 * tau) / 3;
 }
@@ -235,12 +267,17 @@ export function diffusionFromStabilitySpec(spec: {
   readonly randomWalkDrift?: StabilitySpecPoint;
 }): Required<ClockDiffusion> {
   if (typeof spec !== 'object' || spec === null) {
-    throw new InvalidArgumentError('spec', spec, 'an object with whiteFrequency, randomWalkFrequency and/or randomWalkDrift points');
+    throw new InvalidArgumentError(
+      'spec',
+      spec,
+      'an object with whiteFrequency, randomWalkFrequency and/or randomWalkDrift points',
+    );
   }
   const read = (name: 'whiteFrequency' | 'randomWalkFrequency' | 'randomWalkDrift'): StabilitySpecPoint | undefined => {
     const p = spec[name];
     if (p === undefined) return undefined;
-    if (typeof p !== 'object' || p === null) throw new InvalidArgumentError(`spec.${name}`, p, 'an object { tau (s), deviation }');
+    if (typeof p !== 'object' || p === null)
+      throw new InvalidArgumentError(`spec.${name}`, p, 'an object { tau (s), deviation }');
     return {
       tau: requirePositive(`spec.${name}.tau`, p.tau, 's'),
       deviation: requireNonNegative(`spec.${name}.deviation`, p.deviation),
@@ -250,7 +287,11 @@ export function diffusionFromStabilitySpec(spec: {
   const rwf = read('randomWalkFrequency');
   const rwd = read('randomWalkDrift');
   if (!wf && !rwf && !rwd) {
-    throw new InvalidArgumentError('spec', spec, 'at least one of whiteFrequency, randomWalkFrequency, randomWalkDrift');
+    throw new InvalidArgumentError(
+      'spec',
+      spec,
+      'at least one of whiteFrequency, randomWalkFrequency, randomWalkDrift',
+    );
   }
   return {
     q1: wf ? wf.deviation ** 2 * wf.tau : 0,
@@ -312,8 +353,12 @@ function designRow(tau: number, kind: 'allan' | 'hadamard', states: ClockStates)
 }
 
 /** Weighted least squares on the subset `free` of columns; returns coefficients and (AᵀWA)⁻¹ on the subset. */
-function solveSubset(rows: readonly number[][], targets: readonly number[], weights: readonly number[], free: readonly number[])
-  : { beta: number[]; cov: Matrix } | undefined {
+function solveSubset(
+  rows: readonly number[][],
+  targets: readonly number[],
+  weights: readonly number[],
+  free: readonly number[],
+): { beta: number[]; cov: Matrix } | undefined {
   const p = free.length;
   // Column scaling keeps the normal matrix well conditioned (the columns differ by up to τ⁴).
   const scale = free.map((c) => Math.sqrt(rows.reduce((s, r, i) => s + weights[i]! * r[c]! ** 2, 0)) || 1);
@@ -324,7 +369,7 @@ function solveSubset(rows: readonly number[][], targets: readonly number[], weig
     for (let a = 0; a < p; a++) {
       const ra = r[free[a]!]! / scale[a]!;
       b[a] = b[a]! + w * ra * targets[i]!;
-      for (let c = 0; c < p; c++) n[a]![c] = (n[a]![c]!) + w * ra * (r[free[c]!]! / scale[c]!);
+      for (let c = 0; c < p; c++) n[a]![c] = n[a]![c]! + w * ra * (r[free[c]!]! / scale[c]!);
     }
   });
   const l = cholesky(n);
@@ -333,12 +378,12 @@ function solveSubset(rows: readonly number[][], targets: readonly number[], weig
   const solve = (rhs: number[]): number[] => {
     const z = rhs.slice();
     for (let i = 0; i < p; i++) {
-      for (let k = 0; k < i; k++) z[i] = z[i]! - (l[i]![k]!) * z[k]!;
-      z[i] = z[i]! / (l[i]![i]!);
+      for (let k = 0; k < i; k++) z[i] = z[i]! - l[i]![k]! * z[k]!;
+      z[i] = z[i]! / l[i]![i]!;
     }
     for (let i = p - 1; i >= 0; i--) {
-      for (let k = i + 1; k < p; k++) z[i] = z[i]! - (l[k]![i]!) * z[k]!;
-      z[i] = z[i]! / (l[i]![i]!);
+      for (let k = i + 1; k < p; k++) z[i] = z[i]! - l[k]![i]! * z[k]!;
+      z[i] = z[i]! / l[i]![i]!;
     }
     return z;
   };
@@ -379,7 +424,10 @@ function solveSubset(rows: readonly number[][], targets: readonly number[], weig
  *         or states not 2/3.
  * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation]; NIST SP 1065 §5.3 χ² statistics [M].
  */
-export function fitDiffusion(points: readonly MeasuredStabilityPoint[], options: DiffusionFitOptions = {}): DiffusionFit {
+export function fitDiffusion(
+  points: readonly MeasuredStabilityPoint[],
+  options: DiffusionFitOptions = {},
+): DiffusionFit {
   if (!Array.isArray(points) || points.length === 0) {
     throw new InvalidArgumentError('points', points, 'a non-empty array of { tau, deviation, kind, edf? }');
   }
@@ -390,14 +438,20 @@ export function fitDiffusion(points: readonly MeasuredStabilityPoint[], options:
   const edfs: number[] = [];
   let allEdf = true;
   points.forEach((p, i) => {
-    if (typeof p !== 'object' || p === null) throw new InvalidArgumentError(`points[${i}]`, p, 'an object { tau, deviation, kind, edf? }');
+    if (typeof p !== 'object' || p === null)
+      throw new InvalidArgumentError(`points[${i}]`, p, 'an object { tau, deviation, kind, edf? }');
     taus.push(requirePositive(`points[${i}].tau`, p.tau, 's'));
     const dev = requirePositive(`points[${i}].deviation`, p.deviation);
     measured.push(dev * dev);
-    if (p.kind !== 'allan' && p.kind !== 'hadamard') throw new InvalidArgumentError(`points[${i}].kind`, p.kind, "'allan' or 'hadamard'");
+    if (p.kind !== 'allan' && p.kind !== 'hadamard')
+      throw new InvalidArgumentError(`points[${i}].kind`, p.kind, "'allan' or 'hadamard'");
     if (p.kind === 'allan' && states === 3) {
-      throw new InvalidArgumentError(`points[${i}].kind`, p.kind, "'hadamard' in a 3-state fit",
-        'with random-walk drift noise the Allan variance is not stationary; fit q3 from Hadamard deviations');
+      throw new InvalidArgumentError(
+        `points[${i}].kind`,
+        p.kind,
+        "'hadamard' in a 3-state fit",
+        'with random-walk drift noise the Allan variance is not stationary; fit q3 from Hadamard deviations',
+      );
     }
     if (p.edf === undefined) {
       allEdf = false;
@@ -427,7 +481,9 @@ export function fitDiffusion(points: readonly MeasuredStabilityPoint[], options:
       const sol = solveSubset(rows, measured, weights, free);
       if (!sol || sol.beta.some((v) => v < 0)) continue;
       const full = new Array<number>(nq).fill(0);
-      free.forEach((c, a) => { full[c] = sol.beta[a]!; });
+      free.forEach((c, a) => {
+        full[c] = sol.beta[a]!;
+      });
       let ssr = 0;
       rows.forEach((r, i) => {
         const m = r.reduce((s, v, c) => s + v * full[c]!, 0);
@@ -436,7 +492,7 @@ export function fitDiffusion(points: readonly MeasuredStabilityPoint[], options:
       if (!best || ssr < best.ssr) best = { beta: full, cov: sol.cov, free, ssr };
     }
     if (!best) break;
-    const model = rows.map((r) => r.reduce((s, v, c) => s + v * ((best as { beta: number[] }).beta[c]!), 0));
+    const model = rows.map((r) => r.reduce((s, v, c) => s + v * (best as { beta: number[] }).beta[c]!, 0));
     // Keep the measured variance where the model gives 0 (no weight information otherwise).
     variances = model.map((m, i) => (m > 0 ? m : measured[i]!));
   }
@@ -446,18 +502,20 @@ export function fitDiffusion(points: readonly MeasuredStabilityPoint[], options:
   }
   const found = best;
   const weights = variances.map((v, i) => edfs[i]! / (2 * v * v));
-  const modelVariance = rows.map((r) => r.reduce((s, v, c) => s + v * (found.beta[c]!), 0));
+  const modelVariance = rows.map((r) => r.reduce((s, v, c) => s + v * found.beta[c]!, 0));
   const normalizedResiduals = modelVariance.map((m, i) => (measured[i]! - m) * Math.sqrt(weights[i]!));
   const chiSquare = normalizedResiduals.reduce((s, r) => s + r * r, 0);
   const dof = points.length - found.free.length;
   const scaleCov = !allEdf && dof > 0 ? chiSquare / dof : 1;
   const covariance: Matrix = Array.from({ length: nq }, () => new Array<number>(nq).fill(0));
-  found.free.forEach((c, a) => found.free.forEach((d, b) => {
-    covariance[c]![d] = (found.cov[a]![b]!) * scaleCov;
-  }));
+  found.free.forEach((c, a) => {
+    found.free.forEach((d, b) => {
+      covariance[c]![d] = found.cov[a]![b]! * scaleCov;
+    });
+  });
   const names = ['q1', 'q2', 'q3'] as const;
   return {
-    q: { q1: found.beta[0]!, q2: found.beta[1]!, q3: states === 3 ? (found.beta[2]!) : 0 },
+    q: { q1: found.beta[0]!, q2: found.beta[1]!, q3: states === 3 ? found.beta[2]! : 0 },
     states,
     covariance,
     covarianceScaled: !allEdf && dof > 0,

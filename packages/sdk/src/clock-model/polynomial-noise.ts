@@ -5,10 +5,10 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
-import type { Seconds } from '../units.js';
 import { requireFinite, requireNonNegative } from '../internal/validate.js';
+import type { Seconds } from '../units.js';
 import { inverseSpd, type Matrix } from './linalg.js';
-import { clockProcessNoise, requireDiffusion, type ClockDiffusion, type ClockStates } from './noise.js';
+import { type ClockDiffusion, type ClockStates, clockProcessNoise, requireDiffusion } from './noise.js';
 
 /** Options of {@link polynomialNoiseCovariance}. */
 export interface PolynomialNoiseOptions {
@@ -57,7 +57,10 @@ export interface PolynomialNoiseCovariance {
  * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation] (Φ, Q; verified by simulation [C]); covariance of a
  *      linear estimator ℓᵀz is ℓᵀΣℓ (standard linear algebra).
  */
-export function polynomialNoiseCovariance(t: ArrayLike<number>, options: PolynomialNoiseOptions): PolynomialNoiseCovariance {
+export function polynomialNoiseCovariance(
+  t: ArrayLike<number>,
+  options: PolynomialNoiseOptions,
+): PolynomialNoiseCovariance {
   const { tt, degree, t0, q, states, r, predict } = readInputs(t, options);
   const p = degree + 1;
   const n = tt.length;
@@ -85,14 +88,24 @@ export function polynomialNoiseCovariance(t: ArrayLike<number>, options: Polynom
   }
   // Map the u-basis coefficient covariance to the t0 basis (as fitClockPolynomial does).
   const delta0 = (t0 - c) / s;
-  const tm: Matrix = degree === 2
-    ? [[1, delta0, delta0 * delta0], [0, 1 / s, (2 * delta0) / s], [0, 0, 1 / (s * s)]]
-    : [[1, delta0], [0, 1 / s]];
-  const covariance: Matrix = tm.map((ri) => tm.map((rj) => {
-    let v = 0;
-    for (let k = 0; k < p; k++) for (let l = 0; l < p; l++) v += ri[k]! * cov[k]![l]! * rj[l]!;
-    return v;
-  }));
+  const tm: Matrix =
+    degree === 2
+      ? [
+          [1, delta0, delta0 * delta0],
+          [0, 1 / s, (2 * delta0) / s],
+          [0, 0, 1 / (s * s)],
+        ]
+      : [
+          [1, delta0],
+          [0, 1 / s],
+        ];
+  const covariance: Matrix = tm.map((ri) =>
+    tm.map((rj) => {
+      let v = 0;
+      for (let k = 0; k < p; k++) for (let l = 0; l < p; l++) v += ri[k]! * cov[k]![l]! * rj[l]!;
+      return v;
+    }),
+  );
   const predictStd = predict.map((T, j) => {
     const after = clockProcessNoise(T - tt[n - 1]!, q, states)[0]![0]!;
     return Math.sqrt(Math.max(cov[p + j]![p + j]! + after, 0));
@@ -103,7 +116,8 @@ export function polynomialNoiseCovariance(t: ArrayLike<number>, options: Polynom
 /** Validated inputs of {@link polynomialNoiseCovariance}. */
 function readInputs(t: ArrayLike<number>, options: PolynomialNoiseOptions) {
   if (!t || typeof t.length !== 'number') throw new InvalidArgumentError('t', t, 'an array of epochs in seconds');
-  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an options object { degree, referenceTime, q, ... }');
+  if (typeof options !== 'object' || options === null)
+    throw new InvalidArgumentError('options', options, 'an options object { degree, referenceTime, q, ... }');
   const degree = options.degree;
   if (degree !== 1 && degree !== 2) throw new InvalidArgumentError('options.degree', degree, '1 or 2');
   const p = degree + 1;
@@ -112,16 +126,29 @@ function readInputs(t: ArrayLike<number>, options: PolynomialNoiseOptions) {
   const tt = new Float64Array(n);
   for (let k = 0; k < n; k++) {
     tt[k] = requireFinite(`t[${k}]`, t[k], 'a finite epoch in seconds');
-    if (k > 0 && !(tt[k]! > tt[k - 1]!)) throw new InvalidArgumentError(`t[${k}]`, tt[k], `greater than t[${k - 1}] = ${tt[k - 1]} (strictly increasing epochs)`);
+    if (k > 0 && !(tt[k]! > tt[k - 1]!))
+      throw new InvalidArgumentError(
+        `t[${k}]`,
+        tt[k],
+        `greater than t[${k - 1}] = ${tt[k - 1]} (strictly increasing epochs)`,
+      );
   }
   const t0 = requireFinite('options.referenceTime', options.referenceTime, 'a finite epoch in seconds');
   const q = requireDiffusion('options.q', options.q);
   const states: ClockStates = q.q3 > 0 ? 3 : 2;
-  const r = options.measurementVariance === undefined ? 0 : requireNonNegative('options.measurementVariance', options.measurementVariance, 's²');
+  const r =
+    options.measurementVariance === undefined
+      ? 0
+      : requireNonNegative('options.measurementVariance', options.measurementVariance, 's²');
   const last = tt[n - 1]!;
   const predict = (options.predict ?? []).map((v, i) => {
     const T = requireFinite(`options.predict[${i}]`, v, 'a finite epoch in seconds');
-    if (T < last) throw new InvalidArgumentError(`options.predict[${i}]`, T, `≥ the last sample epoch ${last} s (predictions after the record)`);
+    if (T < last)
+      throw new InvalidArgumentError(
+        `options.predict[${i}]`,
+        T,
+        `≥ the last sample epoch ${last} s (predictions after the record)`,
+      );
     return T;
   });
   return { tt, degree, t0, q, states, r, predict };
@@ -131,7 +158,12 @@ function readInputs(t: ArrayLike<number>, options: PolynomialNoiseOptions) {
  * The linear functionals ℓ of the data: the p coefficient rows (AᵀA)⁻¹Aᵀ in the u basis, then one row
  * basis(T)ᵀ(AᵀA)⁻¹Aᵀ per prediction epoch T.
  */
-function functionals(tt: Float64Array, basis: (time: number) => number[], p: number, predict: readonly number[]): Float64Array[] {
+function functionals(
+  tt: Float64Array,
+  basis: (time: number) => number[],
+  p: number,
+  predict: readonly number[],
+): Float64Array[] {
   const n = tt.length;
   const normal: Matrix = Array.from({ length: p }, () => new Array<number>(p).fill(0));
   for (let k = 0; k < n; k++) {
@@ -139,7 +171,8 @@ function functionals(tt: Float64Array, basis: (time: number) => number[], p: num
     for (let i = 0; i < p; i++) for (let j = 0; j < p; j++) normal[i]![j] = normal[i]![j]! + a[i]! * a[j]!;
   }
   const ninv = inverseSpd(normal);
-  if (!ninv) throw new InvalidArgumentError('t', `${n} epochs`, `at least ${p} distinct epochs for a degree-${p - 1} fit`);
+  if (!ninv)
+    throw new InvalidArgumentError('t', `${n} epochs`, `at least ${p} distinct epochs for a degree-${p - 1} fit`);
   const rows: Float64Array[] = [];
   for (let i = 0; i < p; i++) rows.push(new Float64Array(n));
   for (let k = 0; k < n; k++) {
@@ -168,8 +201,14 @@ function functionals(tt: Float64Array, basis: (time: number) => number[], p: num
  * g_i = Σ_{k ≥ i} ℓ_k [1, t_k − t_i, (t_k − t_i)²/2] (a prediction functional subtracts [1, T − t_i, (T − t_i)²/2]).
  * Upper triangle only; the caller completes it.
  */
-function clockNoiseCovariance(tt: Float64Array, all: readonly Float64Array[], p: number, predict: readonly number[],
-  q: Required<ClockDiffusion>, states: ClockStates): Matrix {
+function clockNoiseCovariance(
+  tt: Float64Array,
+  all: readonly Float64Array[],
+  p: number,
+  predict: readonly number[],
+  q: Required<ClockDiffusion>,
+  states: ClockStates,
+): Matrix {
   const n = tt.length;
   const m = all.length;
   const g = all.map(() => [0, 0, 0]);

@@ -5,10 +5,15 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
-import type { Seconds } from '../units.js';
 import {
-  MAX_ABS_PHASE_SECONDS, MEASUREMENT_VARIANCE_RANGE, requireFinite, requireMeasurementVariance, requireOptions, requirePhaseSample,
+  MAX_ABS_PHASE_SECONDS,
+  MEASUREMENT_VARIANCE_RANGE,
+  requireFinite,
+  requireMeasurementVariance,
+  requireOptions,
+  requirePhaseSample,
 } from '../internal/validate.js';
+import type { Seconds } from '../units.js';
 import type { Matrix } from './linalg.js';
 
 /** Options of {@link fitClockPolynomial}. */
@@ -73,7 +78,11 @@ export interface ClockPolynomial {
  *         sample, a variance ≤ 0, or degree not 1/2.
  * @see IS-GPS-200, §20.3.3.3.3.1 (SV clock correction polynomial af0, af1, af2) [M].
  */
-export function fitClockPolynomial(t: ArrayLike<number>, phase: ArrayLike<number>, options: ClockPolynomialOptions = {}): ClockPolynomial {
+export function fitClockPolynomial(
+  t: ArrayLike<number>,
+  phase: ArrayLike<number>,
+  options: ClockPolynomialOptions = {},
+): ClockPolynomial {
   const { degree, tt, zz, w, t0 } = readSamples(t, phase, options);
   const p = degree + 1;
   const n = tt.length;
@@ -87,7 +96,12 @@ export function fitClockPolynomial(t: ArrayLike<number>, phase: ArrayLike<number
     tSum += tt[i]!;
   }
   const distinct = countDistinctUpTo(tt, p);
-  if (distinct < p) throw new InvalidArgumentError('t', `${distinct} distinct epochs`, `at least ${p} distinct epochs for a degree-${degree} fit`);
+  if (distinct < p)
+    throw new InvalidArgumentError(
+      't',
+      `${distinct} distinct epochs`,
+      `at least ${p} distinct epochs for a degree-${degree} fit`,
+    );
   const c = tSum / n;
   const s = (tMax - tMin) / 2;
 
@@ -104,11 +118,13 @@ export function fitClockPolynomial(t: ArrayLike<number>, phase: ArrayLike<number
   }
   const { beta, rInv } = householderLeastSquares(a, b, p);
   // Cov_u = R⁻¹ R⁻ᵀ
-  const covU: Matrix = Array.from({ length: p }, (_, i) => Array.from({ length: p }, (_, j) => {
-    let sum = 0;
-    for (let k = 0; k < p; k++) sum += (rInv[i]![k]!) * (rInv[j]![k]!);
-    return sum;
-  }));
+  const covU: Matrix = Array.from({ length: p }, (_, i) =>
+    Array.from({ length: p }, (_, j) => {
+      let sum = 0;
+      for (let k = 0; k < p; k++) sum += rInv[i]![k]! * rInv[j]![k]!;
+      return sum;
+    }),
+  );
   const evalU = (u: number): number => beta[0]! + beta[1]! * u + (degree === 2 ? beta[2]! * u * u : 0);
   const residuals = new Float64Array(n);
   let chiSquare = 0;
@@ -124,36 +140,61 @@ export function fitClockPolynomial(t: ArrayLike<number>, phase: ArrayLike<number
   // Map u-basis coefficients to the t0 basis: u = (t − t0)/s + δ, δ = (t0 − c)/s.
   // x = b0 + b1 u + b2 u² ⇒ a0 = b0 + b1 δ + b2 δ², a1 = (b1 + 2 b2 δ)/s, a2 = b2/s².
   const delta = (t0 - c) / s;
-  const tm: Matrix = degree === 2
-    ? [[1, delta, delta * delta], [0, 1 / s, (2 * delta) / s], [0, 0, 1 / (s * s)]]
-    : [[1, delta], [0, 1 / s]];
+  const tm: Matrix =
+    degree === 2
+      ? [
+          [1, delta, delta * delta],
+          [0, 1 / s, (2 * delta) / s],
+          [0, 0, 1 / (s * s)],
+        ]
+      : [
+          [1, delta],
+          [0, 1 / s],
+        ];
   const coef = tm.map((row) => row.reduce((acc, m, j) => acc + m * beta[j]!, 0));
-  const covariance: Matrix = tm.map((ri) => tm.map((rj) => {
-    let sum = 0;
-    for (let k = 0; k < p; k++) for (let l = 0; l < p; l++) sum += ri[k]! * (covU[k]![l]!) * rj[l]!;
-    return sum * factor;
-  }));
+  const covariance: Matrix = tm.map((ri) =>
+    tm.map((rj) => {
+      let sum = 0;
+      for (let k = 0; k < p; k++) for (let l = 0; l < p; l++) sum += ri[k]! * covU[k]![l]! * rj[l]!;
+      return sum * factor;
+    }),
+  );
   const predict = (time: Seconds): Seconds => evalU((requireFinite('t', time, 'a finite epoch in seconds') - c) / s);
   const predictStd = (time: Seconds): Seconds => {
     const u = (requireFinite('t', time, 'a finite epoch in seconds') - c) / s;
     const g = degree === 2 ? [1, u, u * u] : [1, u];
     let sum = 0;
-    for (let i = 0; i < p; i++) for (let j = 0; j < p; j++) sum += g[i]! * (covU[i]![j]!) * g[j]!;
+    for (let i = 0; i < p; i++) for (let j = 0; j < p; j++) sum += g[i]! * covU[i]![j]! * g[j]!;
     return Math.sqrt(Math.max(sum * factor, 0));
   };
   return {
-    degree, referenceTime: t0,
+    degree,
+    referenceTime: t0,
     coefficients: [coef[0]!, coef[1]!, degree === 2 ? coef[2]! : 0],
-    covariance, covarianceScaled: scaled, residuals, chiSquare, dof, reducedChiSquare, predict, predictStd,
+    covariance,
+    covarianceScaled: scaled,
+    residuals,
+    chiSquare,
+    dof,
+    reducedChiSquare,
+    predict,
+    predictStd,
   };
 }
 
 /** Validated samples of {@link fitClockPolynomial}: epochs, phases and weights 1/σ² (1 without variances), and t0. */
-function readSamples(t: ArrayLike<number>, phase: ArrayLike<number>, options: ClockPolynomialOptions):
-  { degree: 1 | 2; tt: Float64Array; zz: Float64Array; w: Float64Array; t0: number } {
+function readSamples(
+  t: ArrayLike<number>,
+  phase: ArrayLike<number>,
+  options: ClockPolynomialOptions,
+): { degree: 1 | 2; tt: Float64Array; zz: Float64Array; w: Float64Array; t0: number } {
   if (!t || typeof t.length !== 'number') throw new InvalidArgumentError('t', t, 'an array of epochs in seconds');
   if (!phase || typeof phase.length !== 'number' || phase.length !== t.length) {
-    throw new InvalidArgumentError('phase', phase, `an array of phases in seconds with the same length as t (${t.length})`);
+    throw new InvalidArgumentError(
+      'phase',
+      phase,
+      `an array of phases in seconds with the same length as t (${t.length})`,
+    );
   }
   requireOptions('options', options);
   const degree = options.degree === undefined ? 2 : options.degree;
@@ -174,17 +215,27 @@ function readSamples(t: ArrayLike<number>, phase: ArrayLike<number>, options: Cl
     // The helpers (which build their messages) run only for a bad value.
     const ti = t[i];
     const zi = phase[i];
-    tt[i] = typeof ti === 'number' && Math.abs(ti) <= MAX_ABS_PHASE_SECONDS ? ti : requirePhaseSample(`t[${i}]`, ti, false);
-    zz[i] = typeof zi === 'number' && Math.abs(zi) <= MAX_ABS_PHASE_SECONDS ? zi : requirePhaseSample(`phase[${i}]`, zi, false);
+    tt[i] =
+      typeof ti === 'number' && Math.abs(ti) <= MAX_ABS_PHASE_SECONDS ? ti : requirePhaseSample(`t[${i}]`, ti, false);
+    zz[i] =
+      typeof zi === 'number' && Math.abs(zi) <= MAX_ABS_PHASE_SECONDS
+        ? zi
+        : requirePhaseSample(`phase[${i}]`, zi, false);
     if (vAll !== undefined) w[i] = 1 / vAll;
     else if (vEach === undefined) w[i] = 1;
     else {
       const vi = vEach[i];
-      w[i] = 1 / (typeof vi === 'number' && vi >= MEASUREMENT_VARIANCE_RANGE.min && vi <= MEASUREMENT_VARIANCE_RANGE.max
-        ? vi : requireMeasurementVariance(`options.variance[${i}]`, vi));
+      w[i] =
+        1 /
+        (typeof vi === 'number' && vi >= MEASUREMENT_VARIANCE_RANGE.min && vi <= MEASUREMENT_VARIANCE_RANGE.max
+          ? vi
+          : requireMeasurementVariance(`options.variance[${i}]`, vi));
     }
   }
-  const t0 = options.referenceTime === undefined ? tt[0]! : requireFinite('options.referenceTime', options.referenceTime, 'a finite epoch in seconds');
+  const t0 =
+    options.referenceTime === undefined
+      ? tt[0]!
+      : requireFinite('options.referenceTime', options.referenceTime, 'a finite epoch in seconds');
   return { degree, tt, zz, w, t0 };
 }
 
@@ -241,7 +292,7 @@ function householderLeastSquares(a: Float64Array[], b: Float64Array, p: number):
     rInv[j]![j] = 1 / r(j, j);
     for (let i = j - 1; i >= 0; i--) {
       let sum = 0;
-      for (let k = i + 1; k <= j; k++) sum += r(i, k) * (rInv[k]![j]!);
+      for (let k = i + 1; k <= j; k++) sum += r(i, k) * rInv[k]![j]!;
       rInv[i]![j] = -sum / r(i, i);
     }
   }

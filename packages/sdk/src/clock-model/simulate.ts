@@ -5,11 +5,11 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
-import type { Seconds } from '../units.js';
 import { createRandom } from '../internal/random.js';
 import { requireInRange, requireInteger, requireOptions } from '../internal/validate.js';
+import type { Seconds } from '../units.js';
 import { cholesky } from './linalg.js';
-import { clockProcessNoise, requireDiffusion, type ClockDiffusion } from './noise.js';
+import { type ClockDiffusion, clockProcessNoise, requireDiffusion } from './noise.js';
 
 /** A step injected into a simulated clock. */
 export interface ClockJump {
@@ -73,23 +73,34 @@ const MAX_SIMULATION_SAMPLES = 10_000_000;
  * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation] (model, Q(τ)); exact discretisation checked by simulation [C].
  */
 export function simulateClock(options: ClockSimulationOptions): ClockSimulation {
-  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'a simulation options object');
+  if (typeof options !== 'object' || options === null)
+    throw new InvalidArgumentError('options', options, 'a simulation options object');
   const n = requireInteger('samples', options.samples, 2, MAX_SIMULATION_SAMPLES);
   const tau0 = requireInRange('tau0', options.tau0, 1e-9, 1e9, { unit: 's (sample spacing)' });
   const q = requireDiffusion('q', options.q);
   const seed = requireInteger('seed', options.seed);
-  const sigmaV = options.measurementNoise === undefined ? 0 : requireInRange('measurementNoise', options.measurementNoise, 0, 1, { unit: 's' });
+  const sigmaV =
+    options.measurementNoise === undefined
+      ? 0
+      : requireInRange('measurementNoise', options.measurementNoise, 0, 1, { unit: 's' });
   const init = requireOptions('initial', options.initial);
   let x = init.phase === undefined ? 0 : requireInRange('initial.phase', init.phase, -1e9, 1e9, { unit: 's' });
-  let y = init.frequency === undefined ? 0 : requireInRange('initial.frequency', init.frequency, -1, 1, { unit: '(fractional frequency)' });
+  let y =
+    init.frequency === undefined
+      ? 0
+      : requireInRange('initial.frequency', init.frequency, -1, 1, { unit: '(fractional frequency)' });
   let d = init.drift === undefined ? 0 : requireInRange('initial.drift', init.drift, -1e-3, 1e-3, { unit: '1/s' });
   const phaseJumps = new Float64Array(n);
   const frequencyJumps = new Float64Array(n);
-  if (options.jumps !== undefined && !Array.isArray(options.jumps)) throw new InvalidArgumentError('jumps', options.jumps, 'an array of { index, kind, size }');
+  if (options.jumps !== undefined && !Array.isArray(options.jumps))
+    throw new InvalidArgumentError('jumps', options.jumps, 'an array of { index, kind, size }');
   (options.jumps ?? []).forEach((j, i) => {
-    if (typeof j !== 'object' || j === null) throw new InvalidArgumentError(`jumps[${i}]`, j, 'an object { index, kind, size }');
+    if (typeof j !== 'object' || j === null)
+      throw new InvalidArgumentError(`jumps[${i}]`, j, 'an object { index, kind, size }');
     const k = requireInteger(`jumps[${i}].index`, j.index, 1, n - 1);
-    const size = requireInRange(`jumps[${i}].size`, j.size, -1, 1, { unit: '(s for a phase step, dimensionless for a frequency step)' });
+    const size = requireInRange(`jumps[${i}].size`, j.size, -1, 1, {
+      unit: '(s for a phase step, dimensionless for a frequency step)',
+    });
     if (j.kind === 'phase') phaseJumps[k] = phaseJumps[k]! + size;
     else if (j.kind === 'frequency') frequencyJumps[k] = frequencyJumps[k]! + size;
     else throw new InvalidArgumentError(`jumps[${i}].kind`, j.kind, "'phase' or 'frequency'");

@@ -4,10 +4,11 @@
  *
  * @internal
  */
-import type { Seconds } from '../units.js';
+
 import { normalCdf } from '../internal/special-functions.js';
 import { planSteering, type SteeringPlan } from '../steering/plan.js';
 import { formatUtcStamp } from '../steering/utc-stamps.js';
+import type { Seconds } from '../units.js';
 import type { NormalizedFleet } from './document.js';
 
 /** One support: satellite `sat` served by station `station` over [start, end] (seconds since the epoch). */
@@ -21,7 +22,10 @@ export interface Support {
 }
 
 /** A closed interval of admissible support starts. */
-interface Interval { lo: number; hi: number }
+interface Interval {
+  lo: number;
+  hi: number;
+}
 
 /** Rounds a start up to the millisecond, the precision of the printed stamps. */
 export function toMillisecond(t: Seconds): Seconds {
@@ -42,7 +46,10 @@ export function satelliteConflict(a: Support, b: Support): boolean {
 
 /** True when `s` conflicts with none of `others` (station setup included, satellite overlap, one support per pass). */
 export function compatible(fleet: NormalizedFleet, s: Support, others: readonly Support[]): boolean {
-  return others.every((o) => o === s || (!stationConflict(fleet, s, o) && !satelliteConflict(s, o) && !(o.sat === s.sat && o.pass === s.pass)));
+  return others.every(
+    (o) =>
+      o === s || (!stationConflict(fleet, s, o) && !satelliteConflict(s, o) && !(o.sat === s.sat && o.pass === s.pass)),
+  );
 }
 
 /**
@@ -96,8 +103,10 @@ export class SatellitePlanner {
     const key = `${sat}:${own.map((s) => `${s.station}@${s.start}`).join(',')}`;
     let plan = this.cache.get(key);
     if (!plan) {
-      const scenario = { ...this.fleet.satellites[sat]!.scenario,
-        contacts: own.map((s) => ({ start: fleetIso(this.fleet, s.start), end: fleetIso(this.fleet, s.end) })) };
+      const scenario = {
+        ...this.fleet.satellites[sat]!.scenario,
+        contacts: own.map((s) => ({ start: fleetIso(this.fleet, s.start), end: fleetIso(this.fleet, s.end) })),
+      };
       plan = planSteering(scenario, { timeScales: this.fleet.timeScales });
       this.cache.set(key, plan);
     }
@@ -117,7 +126,12 @@ export function firstViolation(fleet: NormalizedFleet, sat: number, plan: Steeri
   for (let k = 0; k < t.length; k++) {
     const m = steered.phaseSeconds[k]!;
     const sigma = steered.sigmaSeconds[k]!;
-    const p = sigma > 0 ? normalCdf((norm.bound - m) / sigma) - normalCdf((-norm.bound - m) / sigma) : (Math.abs(m) <= norm.bound ? 1 : 0);
+    const p =
+      sigma > 0
+        ? normalCdf((norm.bound - m) / sigma) - normalCdf((-norm.bound - m) / sigma)
+        : Math.abs(m) <= norm.bound
+          ? 1
+          : 0;
     if (p < norm.probability) return t[k]!;
   }
   // Infeasible only just before a phase step (between grid epochs): the last grid epoch bounds it.

@@ -7,17 +7,18 @@
  *
  * @internal
  */
+
+import { DEFAULT_CONSTANT_SET } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
 import { requireEccentricity, requireFinite, requireInRange, requireOrbitRadius } from '../internal/validate.js';
-import { DEFAULT_CONSTANT_SET } from '../constants.js';
-import type { Metres, Radians, Seconds } from '../units.js';
-import type { Instant } from '../time/instant.js';
-import type { TimeScales } from '../time/scales.js';
 import type { KeplerianElements } from '../orbit/elements.js';
 import type { GeodeticPosition } from '../orbit/geodetic.js';
 import { MAX_PASS_PROPAGATION_SECONDS, predictPasses } from '../orbit/visibility.js';
 import { rejectUnknownKeys } from '../steering/scenario.js';
 import { parseUtcStamp } from '../steering/utc-stamps.js';
+import type { Instant } from '../time/instant.js';
+import type { TimeScales } from '../time/scales.js';
+import type { Metres, Radians, Seconds } from '../units.js';
 
 /** A station's geodetic position on WGS 84, as written in a fleet document (SI units named in the keys). */
 export interface FleetStationPosition {
@@ -62,10 +63,20 @@ export interface NormalizedComputedPass {
 }
 
 /** A validated station site for pass computation. */
-export interface StationSite { position: GeodeticPosition; elevationMask: Radians }
+export interface StationSite {
+  position: GeodeticPosition;
+  elevationMask: Radians;
+}
 
-export const ORBIT_FIELDS = ['epoch', 'semiMajorAxisMetres', 'eccentricity', 'inclinationRadians', 'raanRadians',
-  'argumentOfPerigeeRadians', 'meanAnomalyRadians'] as const;
+export const ORBIT_FIELDS = [
+  'epoch',
+  'semiMajorAxisMetres',
+  'eccentricity',
+  'inclinationRadians',
+  'raanRadians',
+  'argumentOfPerigeeRadians',
+  'meanAnomalyRadians',
+] as const;
 
 /** The hint for an angle that looks like degrees. */
 function degreesHint(v: number): string {
@@ -94,24 +105,31 @@ function requireObjectField(field: string, value: unknown): Record<string, unkno
  * @returns The site, or undefined when the station gives neither.
  */
 export function validateStationSite(field: string, s: Record<string, unknown>): StationSite | undefined {
-  if (s['position'] === undefined && s['elevationMaskRadians'] === undefined) return undefined;
-  if (s['position'] === undefined) {
-    throw new InvalidArgumentError(`${field}.position`, undefined,
-      'a position { latitudeRadians, longitudeRadians, heightMetres } with elevationMaskRadians');
+  if (s.position === undefined && s.elevationMaskRadians === undefined) return undefined;
+  if (s.position === undefined) {
+    throw new InvalidArgumentError(
+      `${field}.position`,
+      undefined,
+      'a position { latitudeRadians, longitudeRadians, heightMetres } with elevationMaskRadians',
+    );
   }
-  const p = requireObjectField(`${field}.position`, s['position']);
+  const p = requireObjectField(`${field}.position`, s.position);
   rejectUnknownKeys(`${field}.position`, p, ['latitudeRadians', 'longitudeRadians', 'heightMetres']);
   const position: GeodeticPosition = {
-    latitude: requireAngle(`${field}.position.latitudeRadians`, p['latitudeRadians'], Math.PI / 2, 'π/2'),
-    longitude: requireAngle(`${field}.position.longitudeRadians`, p['longitudeRadians'], 2 * Math.PI, '2π'),
-    height: requireInRange(`${field}.position.heightMetres`, p['heightMetres'], -12_000, 1e7,
-      { unit: 'm above the WGS 84 ellipsoid' }),
+    latitude: requireAngle(`${field}.position.latitudeRadians`, p.latitudeRadians, Math.PI / 2, 'π/2'),
+    longitude: requireAngle(`${field}.position.longitudeRadians`, p.longitudeRadians, 2 * Math.PI, '2π'),
+    height: requireInRange(`${field}.position.heightMetres`, p.heightMetres, -12_000, 1e7, {
+      unit: 'm above the WGS 84 ellipsoid',
+    }),
   };
-  if (s['elevationMaskRadians'] === undefined) {
-    throw new InvalidArgumentError(`${field}.elevationMaskRadians`, undefined,
-      'an elevation mask in radians, in [0, π/2), given with the position');
+  if (s.elevationMaskRadians === undefined) {
+    throw new InvalidArgumentError(
+      `${field}.elevationMaskRadians`,
+      undefined,
+      'an elevation mask in radians, in [0, π/2), given with the position',
+    );
   }
-  const mask = requireAngle(`${field}.elevationMaskRadians`, s['elevationMaskRadians'], Math.PI / 2, 'π/2');
+  const mask = requireAngle(`${field}.elevationMaskRadians`, s.elevationMaskRadians, Math.PI / 2, 'π/2');
   if (mask < 0 || mask === Math.PI / 2) {
     throw new InvalidArgumentError(`${field}.elevationMaskRadians`, mask, 'in [0, π/2) rad');
   }
@@ -119,38 +137,62 @@ export function validateStationSite(field: string, s: Record<string, unknown>): 
 }
 
 /** Validates a satellite's `orbit` (field paths `satellites[i].orbit.<key>`). */
-export function validateFleetOrbit(field: string, value: unknown, ts: TimeScales, epoch: Instant, horizon: Seconds):
-  { elements: KeplerianElements; epoch: Instant } {
+export function validateFleetOrbit(
+  field: string,
+  value: unknown,
+  ts: TimeScales,
+  epoch: Instant,
+  horizon: Seconds,
+): { elements: KeplerianElements; epoch: Instant } {
   const o = requireObjectField(field, value);
   rejectUnknownKeys(field, o, ORBIT_FIELDS);
-  const elEpoch = parseUtcStamp(ts, `${field}.epoch`, o['epoch']);
-  const a = requireOrbitRadius(`${field}.semiMajorAxisMetres`, o['semiMajorAxisMetres']);
-  const e = requireEccentricity(`${field}.eccentricity`, o['eccentricity']);
+  const elEpoch = parseUtcStamp(ts, `${field}.epoch`, o.epoch);
+  const a = requireOrbitRadius(`${field}.semiMajorAxisMetres`, o.semiMajorAxisMetres);
+  const e = requireEccentricity(`${field}.eccentricity`, o.eccentricity);
   const perigee = a * (1 - e);
   if (!(perigee > DEFAULT_CONSTANT_SET.equatorialRadius)) {
-    throw new InvalidArgumentError(`${field}.eccentricity`, e,
+    throw new InvalidArgumentError(
+      `${field}.eccentricity`,
+      e,
       `a value keeping the perigee a(1 − e) above the Earth (${DEFAULT_CONSTANT_SET.equatorialRadius} m)`,
-      `perigee ${perigee} m`);
+      `perigee ${perigee} m`,
+    );
   }
-  const inclination = requireFinite(`${field}.inclinationRadians`, o['inclinationRadians'],
-    'a finite angle in radians, in [0, π]');
+  const inclination = requireFinite(
+    `${field}.inclinationRadians`,
+    o.inclinationRadians,
+    'a finite angle in radians, in [0, π]',
+  );
   if (inclination < 0 || inclination > Math.PI) {
-    throw new InvalidArgumentError(`${field}.inclinationRadians`, inclination, 'in [0, π] rad',
-      inclination > Math.PI && inclination <= 180 ? degreesHint(inclination) : undefined);
+    throw new InvalidArgumentError(
+      `${field}.inclinationRadians`,
+      inclination,
+      'in [0, π] rad',
+      inclination > Math.PI && inclination <= 180 ? degreesHint(inclination) : undefined,
+    );
   }
   const offset = epoch.secondsSince(elEpoch);
   if (Math.max(Math.abs(offset), Math.abs(offset + horizon)) > MAX_PASS_PROPAGATION_SECONDS) {
-    throw new InvalidArgumentError(`${field}.epoch`, o['epoch'],
-      'within 366 days of the whole horizon (secular J2 propagation, no drag)');
+    throw new InvalidArgumentError(
+      `${field}.epoch`,
+      o.epoch,
+      'within 366 days of the whole horizon (secular J2 propagation, no drag)',
+    );
   }
   return {
     epoch: elEpoch,
     elements: {
-      semiMajorAxis: a, eccentricity: e, inclination,
-      raan: requireAngle(`${field}.raanRadians`, o['raanRadians'], 2 * Math.PI, '2π'),
-      argumentOfPerigee: requireAngle(`${field}.argumentOfPerigeeRadians`, o['argumentOfPerigeeRadians'], 2 * Math.PI,
-        '2π'),
-      meanAnomaly: requireAngle(`${field}.meanAnomalyRadians`, o['meanAnomalyRadians'], 2 * Math.PI, '2π'),
+      semiMajorAxis: a,
+      eccentricity: e,
+      inclination,
+      raan: requireAngle(`${field}.raanRadians`, o.raanRadians, 2 * Math.PI, '2π'),
+      argumentOfPerigee: requireAngle(
+        `${field}.argumentOfPerigeeRadians`,
+        o.argumentOfPerigeeRadians,
+        2 * Math.PI,
+        '2π',
+      ),
+      meanAnomaly: requireAngle(`${field}.meanAnomalyRadians`, o.meanAnomalyRadians, 2 * Math.PI, '2π'),
     },
   };
 }
@@ -159,9 +201,14 @@ export function validateFleetOrbit(field: string, value: unknown, ts: TimeScales
  * The passes of one satellite over every station, predicted over [epoch, epoch + horizon] and sorted by
  * start then station. A pass shorter than its station's support is kept with `usable: false`.
  */
-export function computeFleetPasses(orbit: { elements: KeplerianElements; epoch: Instant },
+export function computeFleetPasses(
+  orbit: { elements: KeplerianElements; epoch: Instant },
   sites: readonly StationSite[],
-  supports: readonly Seconds[], epoch: Instant, horizon: Seconds, timeScales: TimeScales): NormalizedComputedPass[] {
+  supports: readonly Seconds[],
+  epoch: Instant,
+  horizon: Seconds,
+  timeScales: TimeScales,
+): NormalizedComputedPass[] {
   const prediction = predictPasses(orbit, sites, epoch, horizon, { timeScales });
   const out: NormalizedComputedPass[] = [];
   for (const [station, passes] of prediction.passes.entries()) {

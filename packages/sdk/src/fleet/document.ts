@@ -10,17 +10,30 @@
  */
 import { InvalidArgumentError } from '../errors.js';
 import { requireNonNegative, requirePositive } from '../internal/validate.js';
-import type { Seconds } from '../units.js';
-import type { Instant } from '../time/instant.js';
-import type { TimeScales } from '../time/scales.js';
 import {
-  rejectUnknownKeys, validateScenario, type ActuatorSpec, type ClockSpec, type CostWeights, type ManeuverSpec, type NormalizedScenario,
-  type SteeringScenario, type StrategySpec, type ToleranceSpec,
+  type ActuatorSpec,
+  type ClockSpec,
+  type CostWeights,
+  type ManeuverSpec,
+  type NormalizedScenario,
+  rejectUnknownKeys,
+  type SteeringScenario,
+  type StrategySpec,
+  type ToleranceSpec,
+  validateScenario,
 } from '../steering/scenario.js';
 import { parseUtcStamp, resolveTimeScales, type TimeScaleOptions } from '../steering/utc-stamps.js';
+import type { Instant } from '../time/instant.js';
+import type { TimeScales } from '../time/scales.js';
+import type { Seconds } from '../units.js';
 import {
-  computeFleetPasses, validateFleetOrbit, validateStationSite, type FleetOrbit, type FleetStationPosition,
-  type NormalizedComputedPass, type StationSite,
+  computeFleetPasses,
+  type FleetOrbit,
+  type FleetStationPosition,
+  type NormalizedComputedPass,
+  type StationSite,
+  validateFleetOrbit,
+  validateStationSite,
 } from './computed-passes.js';
 
 /** A ground station shared by the fleet. */
@@ -114,67 +127,112 @@ export interface NormalizedFleet {
 }
 
 function requireObject(field: string, value: unknown): Record<string, unknown> {
-  if (typeof value !== 'object' || value === null || Array.isArray(value)) throw new InvalidArgumentError(field, value, 'an object');
+  if (typeof value !== 'object' || value === null || Array.isArray(value))
+    throw new InvalidArgumentError(field, value, 'an object');
   return value as Record<string, unknown>;
 }
 
 function requireNonEmptyArray(field: string, value: unknown, what: string): unknown[] {
-  if (!Array.isArray(value) || value.length === 0) throw new InvalidArgumentError(field, value, `a non-empty array of ${what}`);
+  if (!Array.isArray(value) || value.length === 0)
+    throw new InvalidArgumentError(field, value, `a non-empty array of ${what}`);
   return value;
 }
 
-
 function requireId(field: string, value: unknown, seen: Set<string>, what: string): string {
-  if (typeof value !== 'string' || value.length === 0) throw new InvalidArgumentError(field, value, 'a non-empty string');
+  if (typeof value !== 'string' || value.length === 0)
+    throw new InvalidArgumentError(field, value, 'a non-empty string');
   if (seen.has(value)) throw new InvalidArgumentError(field, value, `an id used by no other ${what}`);
   seen.add(value);
   return value;
 }
 
 const SATELLITE_FIELDS = [
-  'id', 'name', 'clock', 'tolerance', 'actuator', 'maneuvers', 'costWeights', 'constants', 'passes', 'orbit',
+  'id',
+  'name',
+  'clock',
+  'tolerance',
+  'actuator',
+  'maneuvers',
+  'costWeights',
+  'constants',
+  'passes',
+  'orbit',
 ] as const;
 
 /** Validates one satellite as a scenario (errors re-thrown with the `satellites[i].` prefix). */
-function validateSatelliteScenario(root: Record<string, unknown>, sat: Record<string, unknown>, i: number,
-  options: TimeScaleOptions): { scenario: SteeringScenario; norm: NormalizedScenario } {
+function validateSatelliteScenario(
+  root: Record<string, unknown>,
+  sat: Record<string, unknown>,
+  i: number,
+  options: TimeScaleOptions,
+): { scenario: SteeringScenario; norm: NormalizedScenario } {
   const scenario: Record<string, unknown> = {
-    epoch: root['epoch'], horizonSeconds: root['horizonSeconds'], contacts: [], strategy: root['strategy'],
+    epoch: root.epoch,
+    horizonSeconds: root.horizonSeconds,
+    contacts: [],
+    strategy: root.strategy,
   };
-  if (root['gridSeconds'] !== undefined) scenario['gridSeconds'] = root['gridSeconds'];
+  if (root.gridSeconds !== undefined) scenario.gridSeconds = root.gridSeconds;
   for (const key of ['name', 'clock', 'tolerance', 'actuator', 'maneuvers', 'costWeights', 'constants'] as const) {
-    if (sat[key] !== undefined || key === 'clock' || key === 'tolerance' || key === 'actuator') scenario[key] = sat[key];
+    if (sat[key] !== undefined || key === 'clock' || key === 'tolerance' || key === 'actuator')
+      scenario[key] = sat[key];
   }
   try {
     return { scenario: scenario as unknown as SteeringScenario, norm: validateScenario(scenario, options) };
   } catch (e) {
     // Fleet-level fields (epoch, horizon, grid, strategy) keep their own path; satellite fields get the satellite's.
-    if (!(e instanceof InvalidArgumentError) || /^(epoch|horizonSeconds|gridSeconds|strategy)\b/.test(e.argument)) throw e;
+    if (!(e instanceof InvalidArgumentError) || /^(epoch|horizonSeconds|gridSeconds|strategy)\b/.test(e.argument))
+      throw e;
     throw new InvalidArgumentError(`satellites[${i}].${e.argument}`, e.received, e.expected, e.hint);
   }
 }
 
 /** Validates a satellite's given `passes` (field paths `satellites[i].passes[j].<key>`). */
-function validateGivenPasses(rawPasses: unknown, i: number, stations: readonly { id: string; support: Seconds }[],
-  timeScales: TimeScales, epoch: Instant, epochText: string, horizon: Seconds): NormalizedPass[] {
+function validateGivenPasses(
+  rawPasses: unknown,
+  i: number,
+  stations: readonly { id: string; support: Seconds }[],
+  timeScales: TimeScales,
+  epoch: Instant,
+  epochText: string,
+  horizon: Seconds,
+): NormalizedPass[] {
   if (!Array.isArray(rawPasses)) {
-    throw new InvalidArgumentError(`satellites[${i}].passes`, rawPasses, 'an array of passes (or an orbit to compute them from)');
+    throw new InvalidArgumentError(
+      `satellites[${i}].passes`,
+      rawPasses,
+      'an array of passes (or an orbit to compute them from)',
+    );
   }
   return rawPasses.map((p, j): NormalizedPass => {
     const field = `satellites[${i}].passes[${j}]`;
     const o = requireObject(field, p);
     rejectUnknownKeys(field, o, ['station', 'start', 'end']);
-    const station = stations.findIndex((s) => s.id === o['station']);
-    if (station < 0) throw new InvalidArgumentError(`${field}.station`, o['station'], `one of the station ids ${stations.map((s) => s.id).join(', ')}`);
-    const start = parseUtcStamp(timeScales, `${field}.start`, o['start']).secondsSince(epoch);
-    const end = parseUtcStamp(timeScales, `${field}.end`, o['end']).secondsSince(epoch);
-    if (start < 0) throw new InvalidArgumentError(`${field}.start`, o['start'], `at or after the epoch ${epochText}`);
-    if (!(end > start)) throw new InvalidArgumentError(`${field}.end`, o['end'], `after ${field}.start (${String(o['start'])})`);
-    if (end > horizon) throw new InvalidArgumentError(`${field}.end`, o['end'], `at or before the end of the horizon (epoch + ${horizon} s)`);
+    const station = stations.findIndex((s) => s.id === o.station);
+    if (station < 0)
+      throw new InvalidArgumentError(
+        `${field}.station`,
+        o.station,
+        `one of the station ids ${stations.map((s) => s.id).join(', ')}`,
+      );
+    const start = parseUtcStamp(timeScales, `${field}.start`, o.start).secondsSince(epoch);
+    const end = parseUtcStamp(timeScales, `${field}.end`, o.end).secondsSince(epoch);
+    if (start < 0) throw new InvalidArgumentError(`${field}.start`, o.start, `at or after the epoch ${epochText}`);
+    if (!(end > start))
+      throw new InvalidArgumentError(`${field}.end`, o.end, `after ${field}.start (${String(o.start)})`);
+    if (end > horizon)
+      throw new InvalidArgumentError(
+        `${field}.end`,
+        o.end,
+        `at or before the end of the horizon (epoch + ${horizon} s)`,
+      );
     const support = stations[station]!.support;
     if (end - start < support) {
-      throw new InvalidArgumentError(`${field}.end`, o['end'],
-        `at least stations[${station}].supportSeconds (${support} s) after ${field}.start: a shorter pass cannot hold a support`);
+      throw new InvalidArgumentError(
+        `${field}.end`,
+        o.end,
+        `at least stations[${station}].supportSeconds (${support} s) after ${field}.start: a shorter pass cannot hold a support`,
+      );
     }
     return { station, start, end, index: j };
   });
@@ -205,56 +263,92 @@ function validateGivenPasses(rawPasses: unknown, i: number, stations: readonly {
 export function validateFleet(input: unknown, options: TimeScaleOptions = {}): NormalizedFleet {
   const timeScales = resolveTimeScales(options);
   const root = requireObject('fleet', input);
-  rejectUnknownKeys('', root, ['$schema', 'name', 'description', 'epoch', 'horizonSeconds', 'gridSeconds', 'stations', 'satellites', 'strategy']);
+  rejectUnknownKeys('', root, [
+    '$schema',
+    'name',
+    'description',
+    'epoch',
+    'horizonSeconds',
+    'gridSeconds',
+    'stations',
+    'satellites',
+    'strategy',
+  ]);
   for (const key of ['$schema', 'name', 'description'] as const) {
-    if (root[key] !== undefined && typeof root[key] !== 'string') throw new InvalidArgumentError(key, root[key], 'a string');
+    if (root[key] !== undefined && typeof root[key] !== 'string')
+      throw new InvalidArgumentError(key, root[key], 'a string');
   }
-  const epoch = parseUtcStamp(timeScales, 'epoch', root['epoch']);
+  const epoch = parseUtcStamp(timeScales, 'epoch', root.epoch);
   const stationIds = new Set<string>();
-  const stations = requireNonEmptyArray('stations', root['stations'], 'stations').map((value, k) => {
+  const stations = requireNonEmptyArray('stations', root.stations, 'stations').map((value, k) => {
     const s = requireObject(`stations[${k}]`, value);
-    rejectUnknownKeys(`stations[${k}]`, s, ['id', 'setupSeconds', 'supportSeconds', 'position', 'elevationMaskRadians']);
+    rejectUnknownKeys(`stations[${k}]`, s, [
+      'id',
+      'setupSeconds',
+      'supportSeconds',
+      'position',
+      'elevationMaskRadians',
+    ]);
     return {
-      id: requireId(`stations[${k}].id`, s['id'], stationIds, 'station'),
-      setup: requireNonNegative(`stations[${k}].setupSeconds`, s['setupSeconds'], 's'),
-      support: requirePositive(`stations[${k}].supportSeconds`, s['supportSeconds'], 's'),
+      id: requireId(`stations[${k}].id`, s.id, stationIds, 'station'),
+      setup: requireNonNegative(`stations[${k}].setupSeconds`, s.setupSeconds, 's'),
+      support: requirePositive(`stations[${k}].supportSeconds`, s.supportSeconds, 's'),
       site: validateStationSite(`stations[${k}]`, s),
     };
   });
   const satIds = new Set<string>();
-  const rawSats = requireNonEmptyArray('satellites', root['satellites'], 'satellites');
+  const rawSats = requireNonEmptyArray('satellites', root.satellites, 'satellites');
   const satellites = rawSats.map((value, i): NormalizedFleetSatellite => {
     const sat = requireObject(`satellites[${i}]`, value);
     rejectUnknownKeys(`satellites[${i}]`, sat, SATELLITE_FIELDS);
-    const id = requireId(`satellites[${i}].id`, sat['id'], satIds, 'satellite');
+    const id = requireId(`satellites[${i}].id`, sat.id, satIds, 'satellite');
     const { scenario, norm } = validateSatelliteScenario(root, sat, i, options);
-    if (sat['orbit'] !== undefined) {
-      if (sat['passes'] !== undefined) {
-        throw new InvalidArgumentError(`satellites[${i}].passes`, sat['passes'],
-          'absent when the satellite gives an orbit (passes are either given or computed, not both)');
+    if (sat.orbit !== undefined) {
+      if (sat.passes !== undefined) {
+        throw new InvalidArgumentError(
+          `satellites[${i}].passes`,
+          sat.passes,
+          'absent when the satellite gives an orbit (passes are either given or computed, not both)',
+        );
       }
-      const orbit = validateFleetOrbit(`satellites[${i}].orbit`, sat['orbit'], timeScales, epoch, norm.horizon);
+      const orbit = validateFleetOrbit(`satellites[${i}].orbit`, sat.orbit, timeScales, epoch, norm.horizon);
       const sites = stations.map((s, k): StationSite => {
         if (!s.site) {
-          throw new InvalidArgumentError(`stations[${k}].position`, undefined,
+          throw new InvalidArgumentError(
+            `stations[${k}].position`,
+            undefined,
             `a position and elevationMaskRadians: satellites[${i}] (${id}) gives an orbit, so its passes over every station ` +
-            'are computed');
+              'are computed',
+          );
         }
         return s.site;
       });
-      const computed = computeFleetPasses(orbit, sites, stations.map((s) => s.support), epoch, norm.horizon, timeScales);
-      const passes = computed.filter((p) => p.usable)
+      const computed = computeFleetPasses(
+        orbit,
+        sites,
+        stations.map((s) => s.support),
+        epoch,
+        norm.horizon,
+        timeScales,
+      );
+      const passes = computed
+        .filter((p) => p.usable)
         .map((p, index): NormalizedPass => ({ station: p.station, start: p.start, end: p.end, index }));
       return { id, scenario, norm, passes, computedPasses: computed };
     }
-    const passes = validateGivenPasses(sat['passes'], i, stations, timeScales, epoch, String(root['epoch']),
-      norm.horizon);
+    const passes = validateGivenPasses(sat.passes, i, stations, timeScales, epoch, String(root.epoch), norm.horizon);
     passes.sort((a, b) => a.start - b.start || a.station - b.station || a.index - b.index);
     return { id, scenario, norm, passes };
   });
   const first = satellites[0]!.norm;
   return {
-    source: input as FleetDocument, epoch, timeScales, horizon: first.horizon, grid: first.grid,
-    stations: stations.map(({ id, setup, support }) => ({ id, setup, support })), satellites, strategy: first.strategy,
+    source: input as FleetDocument,
+    epoch,
+    timeScales,
+    horizon: first.horizon,
+    grid: first.grid,
+    stations: stations.map(({ id, setup, support }) => ({ id, setup, support })),
+    satellites,
+    strategy: first.strategy,
   };
 }

@@ -4,8 +4,17 @@
  *
  * @internal
  */
+
+import {
+  compatible,
+  type SatellitePlanner,
+  type Support,
+  satelliteConflict,
+  stationConflict,
+  supportAt,
+  toMillisecond,
+} from './allocate.js';
 import type { NormalizedFleet } from './document.js';
-import { compatible, satelliteConflict, stationConflict, supportAt, toMillisecond, type SatellitePlanner, type Support } from './allocate.js';
 
 /** Largest total number of per-satellite choices the exact search enumerates. */
 export const EXACT_SEARCH_LIMIT = 4096;
@@ -57,7 +66,9 @@ export function exactAllocation(fleet: NormalizedFleet, planner: SatellitePlanne
   }
   const options: Support[][][] = [];
   for (let i = 0; i < fleet.satellites.length; i++) {
-    const feasible = choices(fleet, i).filter((c) => planner.plan(i, c).feasible).sort((x, y) => x.length - y.length);
+    const feasible = choices(fleet, i)
+      .filter((c) => planner.plan(i, c).feasible)
+      .sort((x, y) => x.length - y.length);
     if (feasible.length === 0) return undefined;
     options.push(feasible);
   }

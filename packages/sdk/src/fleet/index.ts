@@ -3,13 +3,26 @@
  *
  * @module
  */
-export {
-  validateFleet,
-  type FleetDocument, type FleetStation, type FleetPass, type FleetSatellite, type NormalizedFleet, type NormalizedFleetSatellite, type NormalizedPass,
-} from './document.js';
+
 export type { FleetOrbit, FleetStationPosition, NormalizedComputedPass } from './computed-passes.js';
 export {
-  planFleet,
-  type FleetPlan, type FleetPlanOptions, type ComputedPassReport, type FleetSatellitePlan, type FleetCommand, type StationSupport, type FleetInfeasibilityCode,
-} from './plan.js';
+  type FleetDocument,
+  type FleetPass,
+  type FleetSatellite,
+  type FleetStation,
+  type NormalizedFleet,
+  type NormalizedFleetSatellite,
+  type NormalizedPass,
+  validateFleet,
+} from './document.js';
 export { EXACT_SEARCH_LIMIT } from './exact.js';
+export {
+  type ComputedPassReport,
+  type FleetCommand,
+  type FleetInfeasibilityCode,
+  type FleetPlan,
+  type FleetPlanOptions,
+  type FleetSatellitePlan,
+  planFleet,
+  type StationSupport,
+} from './plan.js';

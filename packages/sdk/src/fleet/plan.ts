@@ -3,15 +3,28 @@
  *
  * @module
  */
-import type { Seconds } from '../units.js';
+
 import { InvalidArgumentError } from '../errors.js';
-import { STEERING_CAUTION, type InfeasibilityCode, type SteeringCommand, type SteeringMetrics, type SteeringPlan } from '../steering/plan.js';
 import { ns } from '../steering/constraints.js';
-import type { TimeScaleOptions } from '../steering/utc-stamps.js';
-import { validateFleet, type NormalizedFleet } from './document.js';
 import {
-  fleetIso, firstViolation, freeStarts, SatellitePlanner, stationConflict, supportAt, type Support,
+  type InfeasibilityCode,
+  STEERING_CAUTION,
+  type SteeringCommand,
+  type SteeringMetrics,
+  type SteeringPlan,
+} from '../steering/plan.js';
+import type { TimeScaleOptions } from '../steering/utc-stamps.js';
+import type { Seconds } from '../units.js';
+import {
+  firstViolation,
+  fleetIso,
+  freeStarts,
+  SatellitePlanner,
+  type Support,
+  stationConflict,
+  supportAt,
 } from './allocate.js';
+import { type NormalizedFleet, validateFleet } from './document.js';
 import { exactAllocation } from './exact.js';
 
 /** One command of a satellite, with the station that uplinks it (inside a support of this satellite there). */
@@ -82,7 +95,10 @@ export interface FleetPlan {
   caution: string;
 }
 
-interface Blocked { code: FleetInfeasibilityCode; text: string }
+interface Blocked {
+  code: FleetInfeasibilityCode;
+  text: string;
+}
 
 /** State of the greedy allocation. */
 interface Allocation {
@@ -99,7 +115,12 @@ function evaluate(fleet: NormalizedFleet, planner: SatellitePlanner, a: Allocati
 }
 
 /** The latest admissible support of `sat` starting before `need` (ending before it when possible). */
-function bestSlot(fleet: NormalizedFleet, sat: number, need: Seconds, supports: readonly Support[]): Support | undefined {
+function bestSlot(
+  fleet: NormalizedFleet,
+  sat: number,
+  need: Seconds,
+  supports: readonly Support[],
+): Support | undefined {
   let best: Support | undefined;
   const passes = fleet.satellites[sat]!.passes;
   for (let p = 0; p < passes.length; p++) {
@@ -119,7 +140,13 @@ function bestSlot(fleet: NormalizedFleet, sat: number, need: Seconds, supports: 
  * found unholdable, or move one blocking support of a holdable satellite to another position of
  * its own pass, provided that satellite's first violation comes no earlier than before.
  */
-function repair(fleet: NormalizedFleet, planner: SatellitePlanner, a: Allocation, sat: number, need: Seconds): Support | undefined {
+function repair(
+  fleet: NormalizedFleet,
+  planner: SatellitePlanner,
+  a: Allocation,
+  sat: number,
+  need: Seconds,
+): Support | undefined {
   const passes = fleet.satellites[sat]!.passes;
   for (let p = 0; p < passes.length && passes[p]!.start < need; p++) {
     if (a.supports.some((s) => s.sat === sat && s.pass === p)) continue;
@@ -169,12 +196,21 @@ function explain(fleet: NormalizedFleet, a: Allocation, sat: number, need: Secon
   }
   const unused = before.filter(({ k }) => !a.supports.some((o) => o.sat === sat && o.pass === k));
   if (unused.length === 0) {
-    return { code: plan.reasonCode ?? 'planner',
-      text: `all ${before.length} passes before ${when} hold a support and still ${plan.reason ?? 'the tolerance is not held'}` };
+    return {
+      code: plan.reasonCode ?? 'planner',
+      text: `all ${before.length} passes before ${when} hold a support and still ${plan.reason ?? 'the tolerance is not held'}`,
+    };
   }
   const busy = unused.map(({ p }) => {
     const station = fleet.stations[p.station]!;
-    const holders = a.supports.filter((o) => o.station === p.station && o.sat !== sat && o.end + station.setup > p.start && o.start - station.setup < p.end)
+    const holders = a.supports
+      .filter(
+        (o) =>
+          o.station === p.station &&
+          o.sat !== sat &&
+          o.end + station.setup > p.start &&
+          o.start - station.setup < p.end,
+      )
       .map((o) => `${fleet.satellites[o.sat]!.id} ${fleetIso(fleet, o.start)}–${fleetIso(fleet, o.end)}`);
     return `station ${station.id} overbooked ${fleetIso(fleet, p.start)}–${fleetIso(fleet, p.end)} (held by ${holders.join(', ') || 'its own other supports'})`;
   });
@@ -221,30 +257,53 @@ function toFleetPlan(fleet: NormalizedFleet, a: Allocation): FleetPlan {
       const { reason, ...rest } = c;
       return { ...rest, station: fleet.stations[support.station]!.id, reason };
     });
-    const out: FleetSatellitePlan = { id: s.id, feasible: plan.feasible, commands, predicted: plan.predicted, metrics: plan.metrics };
+    const out: FleetSatellitePlan = {
+      id: s.id,
+      feasible: plan.feasible,
+      commands,
+      predicted: plan.predicted,
+      metrics: plan.metrics,
+    };
     if (s.computedPasses) {
-      out.computedPasses = s.computedPasses.map((p): ComputedPassReport => ({
-        station: fleet.stations[p.station]!.id, start: fleetIso(fleet, p.start), end: fleetIso(fleet, p.end),
-        maxElevationRadians: p.maxElevation, maxElevationAt: fleetIso(fleet, p.maxElevationAt),
-        clippedAtStart: p.clippedAtStart, clippedAtEnd: p.clippedAtEnd, usable: p.usable,
-      }));
+      out.computedPasses = s.computedPasses.map(
+        (p): ComputedPassReport => ({
+          station: fleet.stations[p.station]!.id,
+          start: fleetIso(fleet, p.start),
+          end: fleetIso(fleet, p.end),
+          maxElevationRadians: p.maxElevation,
+          maxElevationAt: fleetIso(fleet, p.maxElevationAt),
+          clippedAtStart: p.clippedAtStart,
+          clippedAtEnd: p.clippedAtEnd,
+          usable: p.usable,
+        }),
+      );
     }
     if (!plan.feasible) {
       const why = a.blocked[i];
       const detail = plan.reason ? `${plan.reason.charAt(0).toUpperCase()}${plan.reason.slice(1)}` : '';
-      out.reason = why && why.code !== plan.reasonCode ? `${why.text}. ${detail}`.trim() : plan.reason ?? why?.text ?? 'infeasible';
+      out.reason =
+        why && why.code !== plan.reasonCode
+          ? `${why.text}. ${detail}`.trim()
+          : (plan.reason ?? why?.text ?? 'infeasible');
       out.reasonCode = why?.code ?? plan.reasonCode ?? 'planner';
     }
     return out;
   });
-  const stationSchedule = [...a.supports].sort((x, y) => x.station - y.station || x.start - y.start).map((o) => ({
-    station: fleet.stations[o.station]!.id, satellite: fleet.satellites[o.sat]!.id, start: fleetIso(fleet, o.start), end: fleetIso(fleet, o.end),
-  }));
+  const stationSchedule = [...a.supports]
+    .sort((x, y) => x.station - y.station || x.start - y.start)
+    .map((o) => ({
+      station: fleet.stations[o.station]!.id,
+      satellite: fleet.satellites[o.sat]!.id,
+      start: fleetIso(fleet, o.start),
+      end: fleetIso(fleet, o.end),
+    }));
   const bad = satellites.filter((s) => !s.feasible);
   const plan: FleetPlan = { feasible: bad.length === 0, satellites, stationSchedule, caution: STEERING_CAUTION };
   if (bad.length > 0) {
-    plan.reason = `${bad.length} of ${satellites.length} satellites cannot be held: ` +
-      bad.map((s) => `${s.id} (${s.reasonCode})`).join(', ') + '; the schedule holds the others as well as it can.';
+    plan.reason =
+      `${bad.length} of ${satellites.length} satellites cannot be held: ` +
+      bad.map((s) => `${s.id} (${s.reasonCode})`).join(', ') +
+      '; the schedule holds the others as well as it can.';
   }
   return plan;
 }
@@ -291,7 +350,8 @@ export type FleetPlanOptions = TimeScaleOptions;
  * @throws {OutOfDomainError} for a stamp or horizon beyond the leap-second table.
  */
 export function planFleet(doc: unknown, options: FleetPlanOptions = {}): FleetPlan {
-  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an object { timeScales? }');
+  if (typeof options !== 'object' || options === null)
+    throw new InvalidArgumentError('options', options, 'an object { timeScales? }');
   const fleet = validateFleet(doc, options);
   const planner = new SatellitePlanner(fleet);
   let a = greedy(fleet, planner);
@@ -304,5 +364,3 @@ export function planFleet(doc: unknown, options: FleetPlanOptions = {}): FleetPl
   }
   return toFleetPlan(fleet, a);
 }
-
-

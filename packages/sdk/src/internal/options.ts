@@ -6,7 +6,7 @@
  *
  * @internal
  */
-import { DEFAULT_CONSTANT_SET, type ConstantSet, type ConstantsOptions } from '../constants.js';
+import { type ConstantSet, type ConstantsOptions, DEFAULT_CONSTANT_SET } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
 import { requireConstantSet, requireOptions } from './validate.js';
 

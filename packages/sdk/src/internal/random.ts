@@ -131,7 +131,10 @@ export function createRandomStream(seed: number, index: number, method: NormalMe
  */
 export function createReseedableRandom(method: NormalMethod): ReseedableRandom {
   // The state lives in four local integers (not an array): this loop is the hot path of every Monte Carlo.
-  let s0 = 1, s1 = 0, s2 = 0, s3 = 0;
+  let s0 = 1,
+    s1 = 0,
+    s2 = 0,
+    s3 = 0;
   const words = new Uint32Array(4);
   /** Next 32-bit output as a signed integer (the same bits as the unsigned output). */
   const nextInt = (): number => {

@@ -4,8 +4,9 @@
  *
  * @internal
  */
-import { InvalidArgumentError } from '../errors.js';
+
 import type { ConstantSet } from '../constants.js';
+import { InvalidArgumentError } from '../errors.js';
 
 /** Mean equatorial radius used only to recognise "inside the Earth" input, in metres. */
 const EARTH_RADIUS_FOR_CHECKS = 6_378_137;
@@ -33,17 +34,27 @@ export function requireNonNegative(argument: string, value: unknown, unit = ''):
 }
 
 /** Throws unless `min ≤ value ≤ max`; `minExclusive` / `maxExclusive` make either end open. */
-export function requireInRange(argument: string, value: unknown, min: number, max: number,
-  { minExclusive = false, maxExclusive = false, unit = '' } = {}): number {
+export function requireInRange(
+  argument: string,
+  value: unknown,
+  min: number,
+  max: number,
+  { minExclusive = false, maxExclusive = false, unit = '' } = {},
+): number {
   const expected = `in ${minExclusive ? '(' : '['}${min}, ${max}${maxExclusive ? ')' : ']'}${unit ? ` ${unit}` : ''}`;
   const v = requireFinite(argument, value, expected);
-  if ((minExclusive ? v <= min : v < min) || (maxExclusive ? v >= max : v > max)) throw new InvalidArgumentError(argument, value, expected);
+  if ((minExclusive ? v <= min : v < min) || (maxExclusive ? v >= max : v > max))
+    throw new InvalidArgumentError(argument, value, expected);
   return v;
 }
 
 /** Throws unless `value` is an integer in [min, max]. */
-export function requireInteger(argument: string, value: unknown, min = Number.MIN_SAFE_INTEGER,
-  max = Number.MAX_SAFE_INTEGER): number {
+export function requireInteger(
+  argument: string,
+  value: unknown,
+  min = Number.MIN_SAFE_INTEGER,
+  max = Number.MAX_SAFE_INTEGER,
+): number {
   const expected = `an integer in [${min}, ${max}]`;
   if (typeof value !== 'number' || !Number.isInteger(value) || value < min || value > max) {
     throw new InvalidArgumentError(argument, value, expected);
@@ -75,8 +86,10 @@ export function requireEccentricity(argument: string, value: unknown): number {
   const expected = 'in [0, 1) for an elliptical orbit';
   const v = requireFinite(argument, value, expected);
   if (v < 0 || v >= 1) {
-    const hint = v >= 1 ? 'e ≥ 1 is a parabolic or hyperbolic trajectory, which has no periodic clock term'
-      : 'eccentricity cannot be negative';
+    const hint =
+      v >= 1
+        ? 'e ≥ 1 is a parabolic or hyperbolic trajectory, which has no periodic clock term'
+        : 'eccentricity cannot be negative';
     throw new InvalidArgumentError(argument, value, expected, hint);
   }
   return v;
@@ -85,7 +98,8 @@ export function requireEccentricity(argument: string, value: unknown): number {
 /** Throws unless `value` is an array of three finite numbers. */
 export function requireVector3(argument: string, value: unknown, unit: string): [number, number, number] {
   const expected = `an array of three finite numbers in ${unit}`;
-  if (!Array.isArray(value) && !(value instanceof Float64Array)) throw new InvalidArgumentError(argument, value, expected);
+  if (!Array.isArray(value) && !(value instanceof Float64Array))
+    throw new InvalidArgumentError(argument, value, expected);
   const arr = value as ArrayLike<unknown>;
   if (arr.length !== 3) throw new InvalidArgumentError(argument, value, expected);
   const component = (i: number): number => requireFinite(`${argument}[${i}]`, arr[i], `a finite number in ${unit}`);
@@ -103,7 +117,7 @@ export const CONSTANT_SET_RANGES = Object.freeze({
   j2: { min: 0, max: 2e-3, unit: '(dimensionless)' },
   flattening: { min: 0, max: 0.01, unit: '(dimensionless)' },
   lG: { min: 6.9e-10, max: 7.0e-10, unit: '(dimensionless)' },
-  pi: { min: 3.14, max: 3.15, unit: '(the set\'s fixed value of π)' },
+  pi: { min: 3.14, max: 3.15, unit: "(the set's fixed value of π)" },
 });
 
 /**
@@ -113,15 +127,21 @@ export const CONSTANT_SET_RANGES = Object.freeze({
  */
 export function requireConstantSet(argument: string, value: unknown): ConstantSet {
   const expected = 'a ConstantSet (see constantSet(name) or defineConstantSet)';
-  if (typeof value !== 'object' || value === null || Array.isArray(value)) throw new InvalidArgumentError(argument, value, expected);
+  if (typeof value !== 'object' || value === null || Array.isArray(value))
+    throw new InvalidArgumentError(argument, value, expected);
   const set = value as Record<string, unknown>;
-  if (typeof set['name'] !== 'string') throw new InvalidArgumentError(`${argument}.name`, set['name'], `a string naming the set (${expected})`);
+  if (typeof set.name !== 'string')
+    throw new InvalidArgumentError(`${argument}.name`, set.name, `a string naming the set (${expected})`);
   for (const [field, range] of Object.entries(CONSTANT_SET_RANGES)) {
     requireInRange(`${argument}.${field}`, set[field], range.min, range.max, { unit: range.unit });
   }
-  const f = (-2 * Math.sqrt(Number(set['gm']))) / (299_792_458 * 299_792_458); // gm checked finite above
-  if (typeof set['relativisticF'] !== 'number' || !(Math.abs(set['relativisticF'] - f) <= 1e-12 * Math.abs(f))) {
-    throw new InvalidArgumentError(`${argument}.relativisticF`, set['relativisticF'], `−2√GM/c² = ${f} s/√m for this set's gm (build sets with defineConstantSet)`);
+  const f = (-2 * Math.sqrt(Number(set.gm))) / (299_792_458 * 299_792_458); // gm checked finite above
+  if (typeof set.relativisticF !== 'number' || !(Math.abs(set.relativisticF - f) <= 1e-12 * Math.abs(f))) {
+    throw new InvalidArgumentError(
+      `${argument}.relativisticF`,
+      set.relativisticF,
+      `−2√GM/c² = ${f} s/√m for this set's gm (build sets with defineConstantSet)`,
+    );
   }
   return value as ConstantSet;
 }
@@ -137,13 +157,15 @@ export function requireOptions<T extends object>(argument: string, value: T | un
 
 /** Throws unless `value` is a container object (not null, not an array, not a primitive). */
 export function requireObject<T extends object>(argument: string, value: T, expected = 'an object'): T {
-  if (typeof value !== 'object' || value === null || Array.isArray(value)) throw new InvalidArgumentError(argument, value, expected);
+  if (typeof value !== 'object' || value === null || Array.isArray(value))
+    throw new InvalidArgumentError(argument, value, expected);
   return value;
 }
 
 /** Throws unless `value` is a JSON object (not null, not an array); returns it as a record of its fields. */
 export function requireRecord(field: string, value: unknown): Record<string, unknown> {
-  if (typeof value !== 'object' || value === null || Array.isArray(value)) throw new InvalidArgumentError(field, value, 'an object');
+  if (typeof value !== 'object' || value === null || Array.isArray(value))
+    throw new InvalidArgumentError(field, value, 'an object');
   return value as Record<string, unknown>;
 }
 
@@ -160,8 +182,11 @@ export function requireArray(field: string, value: unknown): unknown[] {
 export function rejectUnknownKeys(field: string, obj: Record<string, unknown>, allowed: readonly string[]): void {
   for (const key of Object.keys(obj)) {
     if (!allowed.includes(key)) {
-      throw new InvalidArgumentError(`${field ? `${field}.` : ''}${key}`, obj[key],
-        `absent: it is not a field of this object (known fields: ${allowed.join(', ')})`);
+      throw new InvalidArgumentError(
+        `${field ? `${field}.` : ''}${key}`,
+        obj[key],
+        `absent: it is not a field of this object (known fields: ${allowed.join(', ')})`,
+      );
     }
   }
 }
@@ -190,11 +215,14 @@ export const MEASUREMENT_VARIANCE_RANGE = { min: 1e-40, max: 1e24 } as const;
 /** Throws unless `value` is a phase sample in seconds, |value| ≤ MAX_ABS_PHASE_SECONDS (NaN allowed as "missing" when `missingAllowed`). */
 export function requirePhaseSample(argument: string, value: unknown, missingAllowed: boolean): number {
   if (missingAllowed && typeof value === 'number' && Number.isNaN(value)) return value;
-  return requireInRange(argument, value, -MAX_ABS_PHASE_SECONDS, MAX_ABS_PHASE_SECONDS,
-    { unit: `s${missingAllowed ? ', or NaN for a missing sample' : ''}` });
+  return requireInRange(argument, value, -MAX_ABS_PHASE_SECONDS, MAX_ABS_PHASE_SECONDS, {
+    unit: `s${missingAllowed ? ', or NaN for a missing sample' : ''}`,
+  });
 }
 
 /** Throws unless `value` is a measurement variance in s² within MEASUREMENT_VARIANCE_RANGE. */
 export function requireMeasurementVariance(argument: string, value: unknown): number {
-  return requireInRange(argument, value, MEASUREMENT_VARIANCE_RANGE.min, MEASUREMENT_VARIANCE_RANGE.max, { unit: 's²' });
+  return requireInRange(argument, value, MEASUREMENT_VARIANCE_RANGE.min, MEASUREMENT_VARIANCE_RANGE.max, {
+    unit: 's²',
+  });
 }

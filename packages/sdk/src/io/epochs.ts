@@ -59,9 +59,16 @@ export class EpochPlacer {
   /** The instant of `fields` (see {@link fileEpochInstant}). @throws {ParseError} at `where`. */
   place(fields: EpochFields, where: EpochLocation): Instant {
     const last = this._last;
-    if (last !== undefined && this._lastInstant !== undefined && last.second === fields.second
-      && last.minute === fields.minute && last.hour === fields.hour && last.day === fields.day
-      && last.month === fields.month && last.year === fields.year) {
+    if (
+      last !== undefined &&
+      this._lastInstant !== undefined &&
+      last.second === fields.second &&
+      last.minute === fields.minute &&
+      last.hour === fields.hour &&
+      last.day === fields.day &&
+      last.month === fields.month &&
+      last.year === fields.year
+    ) {
       return this._lastInstant;
     }
     const instant = fileEpochInstant(this._ts, fields, this._code, where);
@@ -81,9 +88,10 @@ export function fileEpochInstant(ts: TimeScales, fields: EpochFields, code: stri
     return instantFromFileEpoch(ts, fields, code);
   } catch (error) {
     if (error instanceof OutOfDomainError || error instanceof InvalidArgumentError) {
-      const reason = error instanceof OutOfDomainError
-        ? `an epoch the leap-second table covers (${error.message}; pass options.timeScales built from a current table)`
-        : `an epoch that exists on the ${code} time scale (${error.message})`;
+      const reason =
+        error instanceof OutOfDomainError
+          ? `an epoch the leap-second table covers (${error.message}; pass options.timeScales built from a current table)`
+          : `an epoch that exists on the ${code} time scale (${error.message})`;
       throw new ParseError(where.source, where.line, where.column, reason, where.text);
     }
     throw error;

@@ -5,25 +5,71 @@
  * @module
  */
 export { MAX_LINE_CHARACTERS, MAX_SERIES_SAMPLES } from './limits.js';
-export { parsePhaseText, readPhaseText, type PhaseTextSeries, type PhaseTextOptions, type SampleGap } from './phase-text.js';
 export {
-  RinexClockParser, parseRinexClock, readRinexClock,
-  type RinexClockFile, type RinexClockHeader, type RinexClockRecord, type RinexClockEvent, type RinexClockReadOptions,
-} from './rinex-clock.js';
-export {
-  RinexClockSeriesCollector, rinexClockSeries, readRinexClockSeries, type RinexClockSeries, type RinexClockSeriesOptions,
-} from './rinex-clock-series.js';
-export {
-  type TextLine, type TextSource, type EpochFields, type LineSplitterOptions, LineSplitter, linesOf, readLines, readLineBatches, parseFortranReal,
-  scaleSecondsFromFields, fieldsFromScaleSeconds, formatEpochFields,
+  type EpochFields,
+  fieldsFromScaleSeconds,
+  formatEpochFields,
+  LineSplitter,
+  type LineSplitterOptions,
+  linesOf,
+  parseFortranReal,
+  readLineBatches,
+  readLines,
+  scaleSecondsFromFields,
+  type TextLine,
+  type TextSource,
 } from './line-reader.js';
 export {
-  type RinexSystemCode, type RinexNavRecordType, type RinexLeapSeconds, type RinexIonosphereParameters,
-  type RinexTimeSystemCorrection, type RinexNavHeader, type RinexNavEphemeris,
-  type SkippedNavRecord, type RinexNavEvent, type RinexNavReadOptions, type RinexNavFile, RinexNavParser, readRinexNav,
-  parseRinexNav, fullYearFromTwoDigits,
+  type PhaseTextOptions,
+  type PhaseTextSeries,
+  parsePhaseText,
+  readPhaseText,
+  type SampleGap,
+} from './phase-text.js';
+export {
+  parseRinexClock,
+  type RinexClockEvent,
+  type RinexClockFile,
+  type RinexClockHeader,
+  RinexClockParser,
+  type RinexClockReadOptions,
+  type RinexClockRecord,
+  readRinexClock,
+} from './rinex-clock.js';
+export {
+  type RinexClockSeries,
+  RinexClockSeriesCollector,
+  type RinexClockSeriesOptions,
+  readRinexClockSeries,
+  rinexClockSeries,
+} from './rinex-clock-series.js';
+export {
+  fullYearFromTwoDigits,
+  parseRinexNav,
+  type RinexIonosphereParameters,
+  type RinexLeapSeconds,
+  type RinexNavEphemeris,
+  type RinexNavEvent,
+  type RinexNavFile,
+  type RinexNavHeader,
+  RinexNavParser,
+  type RinexNavReadOptions,
+  type RinexNavRecordType,
+  type RinexSystemCode,
+  type RinexTimeSystemCorrection,
+  readRinexNav,
+  type SkippedNavRecord,
 } from './rinex-nav.js';
 export {
-  type Sp3TimeSystem, type Sp3Version, type Sp3Header, type Sp3SatelliteRecord, type Sp3Epoch, type Sp3Event, type Sp3ReadOptions,
-  type Sp3File, Sp3Parser, readSp3, parseSp3,
+  parseSp3,
+  readSp3,
+  type Sp3Epoch,
+  type Sp3Event,
+  type Sp3File,
+  type Sp3Header,
+  Sp3Parser,
+  type Sp3ReadOptions,
+  type Sp3SatelliteRecord,
+  type Sp3TimeSystem,
+  type Sp3Version,
 } from './sp3.js';

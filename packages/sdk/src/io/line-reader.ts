@@ -13,8 +13,8 @@
  * @module
  */
 import { InvalidArgumentError, ParseError } from '../errors.js';
-import { civilFromDays, daysFromCivil, daysInMonth, MAX_CALENDAR_YEAR } from '../time/calendar.js';
 import { requireInRange, requireOptions, requireSourceName } from '../internal/validate.js';
+import { civilFromDays, daysFromCivil, daysInMonth, MAX_CALENDAR_YEAR } from '../time/calendar.js';
 import { MAX_LINE_CHARACTERS } from './limits.js';
 
 /** One line of text without its line terminator. */
@@ -40,7 +40,6 @@ function isAsyncIterable(value: unknown): value is AsyncIterable<string> {
   return typeof value === 'object' && value !== null && Symbol.asyncIterator in value;
 }
 
-const CR = 13;
 const LF = 10;
 
 /**
@@ -62,19 +61,28 @@ export class LineSplitter {
 
   constructor(options: LineSplitterOptions = {}) {
     requireOptions('options', options);
-    this._sourceName = options.sourceName === undefined ? 'text' : requireSourceName('options.sourceName', options.sourceName);
+    this._sourceName =
+      options.sourceName === undefined ? 'text' : requireSourceName('options.sourceName', options.sourceName);
     const max = options.maxLineCharacters ?? MAX_LINE_CHARACTERS;
     if (!Number.isInteger(max) || max < 1 || max > MAX_LINE_CHARACTERS) {
-      throw new InvalidArgumentError('maxLineCharacters', max, `an integer number of characters in [1, ${MAX_LINE_CHARACTERS}] (MAX_LINE_CHARACTERS)`);
+      throw new InvalidArgumentError(
+        'maxLineCharacters',
+        max,
+        `an integer number of characters in [1, ${MAX_LINE_CHARACTERS}] (MAX_LINE_CHARACTERS)`,
+      );
     }
     this._max = max;
   }
 
   /** Refuses the line being read: it has passed the limit. */
   private _tooLong(sample: string): never {
-    throw new ParseError(this._sourceName, this._lineNumber + 1, this._max + 1,
+    throw new ParseError(
+      this._sourceName,
+      this._lineNumber + 1,
+      this._max + 1,
       `a line of at most ${this._max} characters (the readers' line limit, MAX_LINE_CHARACTERS; is this a text file of the expected format?)`,
-      sample.slice(0, 40));
+      sample.slice(0, 40),
+    );
   }
 
   /** Feeds one chunk; returns the lines it completed. */
@@ -147,7 +155,11 @@ function* piecesOf(source: string | Iterable<string>): Generator<string> {
   if (typeof source === 'string') {
     for (let i = 0; i < source.length; i += STRING_PIECE) yield source.slice(i, i + STRING_PIECE);
   } else {
-    if (typeof source !== 'object' || source === null || typeof (source as Partial<Iterable<string>>)[Symbol.iterator] !== 'function') {
+    if (
+      typeof source !== 'object' ||
+      source === null ||
+      typeof (source as Partial<Iterable<string>>)[Symbol.iterator] !== 'function'
+    ) {
       throw new InvalidArgumentError('source', source, 'a string or an iterable of text chunks');
     }
     for (const chunk of source) yield chunkText(chunk);
@@ -157,8 +169,14 @@ function* piecesOf(source: string | Iterable<string>): Generator<string> {
 /** Throws unless `line` is a {@link TextLine} (the parsers' push methods take lines from this module's splitter). */
 export function requireTextLine(line: unknown): TextLine {
   const l = line as Partial<TextLine> | null;
-  if (typeof l !== 'object' || l === null || typeof l.text !== 'string' || typeof l.lineNumber !== 'number'
-    || !Number.isSafeInteger(l.lineNumber) || l.lineNumber < 1) {
+  if (
+    typeof l !== 'object' ||
+    l === null ||
+    typeof l.text !== 'string' ||
+    typeof l.lineNumber !== 'number' ||
+    !Number.isSafeInteger(l.lineNumber) ||
+    l.lineNumber < 1
+  ) {
     throw new InvalidArgumentError('line', line, 'a line { text, lineNumber ≥ 1 } as linesOf/readLines yield');
   }
   return l as TextLine;
@@ -178,8 +196,11 @@ function chunkText(chunk: unknown): string {
 function requireEpochFields(argument: string, fields: unknown): EpochFields {
   const f = fields as EpochFields;
   if (typeof fields !== 'object' || fields === null || !validEpochFields(f) || Math.abs(f.year) > MAX_CALENDAR_YEAR) {
-    throw new InvalidArgumentError(argument, fields,
-      `calendar fields { year, month, day, hour, minute, second } of a real date and time (|year| ≤ ${MAX_CALENDAR_YEAR}, second in [0, 61))`);
+    throw new InvalidArgumentError(
+      argument,
+      fields,
+      `calendar fields { year, month, day, hour, minute, second } of a real date and time (|year| ≤ ${MAX_CALENDAR_YEAR}, second in [0, 61))`,
+    );
   }
   return f;
 }
@@ -206,7 +227,10 @@ export function* linesOf(source: string | Iterable<string>, options: LineSplitte
  * @returns An async generator of non-empty arrays of lines, numbered from 1 across the whole source.
  * @throws {ParseError} for a line longer than the limit ({@link MAX_LINE_CHARACTERS} by default).
  */
-export async function* readLineBatches(source: TextSource, options: LineSplitterOptions = {}): AsyncGenerator<readonly TextLine[]> {
+export async function* readLineBatches(
+  source: TextSource,
+  options: LineSplitterOptions = {},
+): AsyncGenerator<readonly TextLine[]> {
   const splitter = new LineSplitter(options);
   if (isAsyncIterable(source)) {
     for await (const chunk of source) {
@@ -283,14 +307,18 @@ export function formatEpochFields(fields: EpochFields): string {
   const whole = Math.floor(fields.second);
   let frac = '';
   const f = fields.second - whole;
-  if (f > 5e-10) frac = `.${Math.round(f * 1e9).toString().padStart(9, '0')}`.replace(/0+$/, '');
+  if (f > 5e-10)
+    frac = `.${Math.round(f * 1e9)
+      .toString()
+      .padStart(9, '0')}`.replace(/0+$/, '');
   return `${p(fields.year, 4)}-${p(fields.month)}-${p(fields.day)}T${p(fields.hour)}:${p(fields.minute)}:${p(whole)}${frac}`;
 }
 
 /** Whether the calendar fields name a real date and time (second in [0, 61) to admit a leap second). */
 export function validEpochFields(f: EpochFields): boolean {
   if (![f.year, f.month, f.day, f.hour, f.minute].every(Number.isInteger) || !Number.isFinite(f.second)) return false;
-  if (f.month < 1 || f.month > 12 || f.day < 1 || f.hour < 0 || f.hour > 23 || f.minute < 0 || f.minute > 59) return false;
+  if (f.month < 1 || f.month > 12 || f.day < 1 || f.hour < 0 || f.hour > 23 || f.minute < 0 || f.minute > 59)
+    return false;
   if (f.second < 0 || f.second >= 61) return false;
   return f.day <= daysInMonth(f.year, f.month);
 }
@@ -302,7 +330,8 @@ const FORTRAN_NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([EeDd][+-]?\d+)?$/;
  * `undefined` for a blank field, `NaN` for text that is not a number.
  */
 export function parseFortranReal(field: string): number | undefined {
-  if (typeof field !== 'string') throw new InvalidArgumentError('field', field, 'the text of a fixed-width numeric field');
+  if (typeof field !== 'string')
+    throw new InvalidArgumentError('field', field, 'the text of a fixed-width numeric field');
   const t = field.trim();
   if (t === '') return undefined;
   if (!FORTRAN_NUMBER.test(t)) return Number.NaN;

@@ -7,12 +7,12 @@
  * @module
  */
 import { ParseError } from '../errors.js';
-import type { Seconds } from '../units.js';
-import { linesOf, readLineBatches, type TextLine, type TextSource } from './line-reader.js';
 import { requireOptions, requireSourceName } from '../internal/validate.js';
-import { MAX_SERIES_SAMPLES } from './limits.js';
-import { GrowableColumn } from './growable.js';
 import { type Instant, requireInstant } from '../time/instant.js';
+import type { Seconds } from '../units.js';
+import { GrowableColumn } from './growable.js';
+import { MAX_SERIES_SAMPLES } from './limits.js';
+import { linesOf, readLineBatches, type TextLine, type TextSource } from './line-reader.js';
 
 /** A run of missing samples in a regularised series. */
 export interface SampleGap {
@@ -89,7 +89,13 @@ function tokenize(text: string): Token[] {
 function parseValue(sourceName: string, line: number, token: Token, what: string, allowMissing: boolean): number {
   if (allowMissing && token.text.toLowerCase() === 'nan') return Number.NaN;
   if (!NUMBER.test(token.text)) {
-    throw new ParseError(sourceName, line, token.column, `${what} as a decimal number${allowMissing ? ' (or NaN for a missing sample)' : ''}`, token.text);
+    throw new ParseError(
+      sourceName,
+      line,
+      token.column,
+      `${what} as a decimal number${allowMissing ? ' (or NaN for a missing sample)' : ''}`,
+      token.text,
+    );
   }
   const v = Number(token.text);
   if (!Number.isFinite(v)) throw new ParseError(sourceName, line, token.column, `a finite ${what}`, token.text);
@@ -109,7 +115,8 @@ class PhaseTextBuilder {
   constructor(options: PhaseTextOptions) {
     this._options = requireOptions('options', options);
     if (options.epoch !== undefined) requireInstant('options.epoch', options.epoch);
-    this._name = options.sourceName === undefined ? 'phase' : requireSourceName('options.sourceName', options.sourceName);
+    this._name =
+      options.sourceName === undefined ? 'phase' : requireSourceName('options.sourceName', options.sourceName);
   }
 
   add(line: TextLine): void {
@@ -118,30 +125,64 @@ class PhaseTextBuilder {
     const tokens = tokenize(body);
     const [first, second, third] = tokens;
     if (first === undefined) return;
-    if (!this._seenData && this._header === undefined && tokens.every((t) => !NUMBER.test(t.text) && t.text.toLowerCase() !== 'nan')) {
-      if (third) throw new ParseError(this._name, line.lineNumber, third.column, 'at most two columns (time, phase)', third.text);
+    if (
+      !this._seenData &&
+      this._header === undefined &&
+      tokens.every((t) => !NUMBER.test(t.text) && t.text.toLowerCase() !== 'nan')
+    ) {
+      if (third)
+        throw new ParseError(
+          this._name,
+          line.lineNumber,
+          third.column,
+          'at most two columns (time, phase)',
+          third.text,
+        );
       this._header = tokens.map((t) => t.text);
       this._columns = tokens.length as 1 | 2;
       return;
     }
     if (this._columns === undefined) {
-      if (third) throw new ParseError(this._name, line.lineNumber, third.column, 'one column (phase) or two columns (time, phase)', third.text);
+      if (third)
+        throw new ParseError(
+          this._name,
+          line.lineNumber,
+          third.column,
+          'one column (phase) or two columns (time, phase)',
+          third.text,
+        );
       this._columns = tokens.length as 1 | 2;
     }
     if (tokens.length !== this._columns) {
       const extra = tokens[this._columns];
-      throw new ParseError(this._name, line.lineNumber, extra?.column,
-        `${this._columns} column${this._columns === 2 ? 's (time, phase)' : ' (phase)'} as on the first data line`, line.text);
+      throw new ParseError(
+        this._name,
+        line.lineNumber,
+        extra?.column,
+        `${this._columns} column${this._columns === 2 ? 's (time, phase)' : ' (phase)'} as on the first data line`,
+        line.text,
+      );
     }
     this._seenData = true;
     if (this._values.length >= MAX_SERIES_SAMPLES) {
-      throw new ParseError(this._name, line.lineNumber, 1, `at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES, the longest series read)`, line.text);
+      throw new ParseError(
+        this._name,
+        line.lineNumber,
+        1,
+        `at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES, the longest series read)`,
+        line.text,
+      );
     }
     if (this._columns === 2 && second !== undefined) {
       const time = parseValue(this._name, line.lineNumber, first, 'time in seconds', false);
       if (this._times.length > 0 && !(time > this._times.get(this._times.length - 1))) {
-        throw new ParseError(this._name, line.lineNumber, first.column,
-          `a time later than the previous line's ${this._times.get(this._times.length - 1)} s (times must increase)`, first.text);
+        throw new ParseError(
+          this._name,
+          line.lineNumber,
+          first.column,
+          `a time later than the previous line's ${this._times.get(this._times.length - 1)} s (times must increase)`,
+          first.text,
+        );
       }
       this._times.push(time);
       this._values.push(parseValue(this._name, line.lineNumber, second, 'phase in seconds', true));
@@ -152,7 +193,8 @@ class PhaseTextBuilder {
   }
 
   finish(lastLine: number): PhaseTextSeries {
-    if (this._values.length === 0) throw new ParseError(this._name, Math.max(1, lastLine), undefined, 'at least one phase value', '');
+    if (this._values.length === 0)
+      throw new ParseError(this._name, Math.max(1, lastLine), undefined, 'at least one phase value', '');
     const columns = this._columns ?? 1;
     if (columns === 1) {
       const phase = this._values.toArray();
@@ -164,12 +206,33 @@ class PhaseTextBuilder {
           gaps.push({ index: start, missing: i - start + 1, line: this._lines.get(start), time: undefined });
         }
       }
-      return withRelativeTimes({ sourceName: this._name, columns, header: this._header, phase, times: undefined, tau0: this._options.tau0, gaps,
-        missing: gaps.reduce((s, g) => s + g.missing, 0), epoch: this._options.epoch });
+      return withRelativeTimes({
+        sourceName: this._name,
+        columns,
+        header: this._header,
+        phase,
+        times: undefined,
+        tau0: this._options.tau0,
+        gaps,
+        missing: gaps.reduce((s, g) => s + g.missing, 0),
+        epoch: this._options.epoch,
+      });
     }
-    const reg = regularizeSeries(this._name, this._times.toArray(), this._values.toArray(), (i) => this._lines.get(i), this._options.tau0);
+    const reg = regularizeSeries(
+      this._name,
+      this._times.toArray(),
+      this._values.toArray(),
+      (i) => this._lines.get(i),
+      this._options.tau0,
+    );
     const first = reg.times[0] ?? 0;
-    return withRelativeTimes({ sourceName: this._name, columns, header: this._header, ...reg, epoch: this._options.epoch?.plus(first) });
+    return withRelativeTimes({
+      sourceName: this._name,
+      columns,
+      header: this._header,
+      ...reg,
+      epoch: this._options.epoch?.plus(first),
+    });
   }
 }
 
@@ -207,8 +270,14 @@ function withRelativeTimes(series: Omit<PhaseTextSeries, 't'>): PhaseTextSeries 
  * @throws {ParseError} at the line of the first sample whose step is not a whole multiple of τ0, or
  *   whose gap makes the series longer than {@link MAX_SERIES_SAMPLES} (naming the gap and the limit).
  */
-export function regularizeSeries(sourceName: string, times: Float64Array, values: Float64Array, lineOf: (i: number) => number,
-  tau0Given: Seconds | undefined, origin: Seconds = 0): { phase: Float64Array; times: Float64Array; tau0: Seconds | undefined; gaps: SampleGap[]; missing: number } {
+export function regularizeSeries(
+  sourceName: string,
+  times: Float64Array,
+  values: Float64Array,
+  lineOf: (i: number) => number,
+  tau0Given: Seconds | undefined,
+  origin: Seconds = 0,
+): { phase: Float64Array; times: Float64Array; tau0: Seconds | undefined; gaps: SampleGap[]; missing: number } {
   let tau0 = tau0Given;
   if (tau0 !== undefined && !(tau0 > 0 && Number.isFinite(tau0))) {
     throw new ParseError(sourceName, lineOf(0), undefined, `a sample spacing tau0 > 0 s (given ${tau0})`);
@@ -219,7 +288,10 @@ export function regularizeSeries(sourceName: string, times: Float64Array, values
   }
   if (tau0 === undefined) {
     const first = times[0];
-    const gaps = values[0] !== values[0] ? [{ index: 0, missing: 1, line: lineOf(0), time: first === undefined ? undefined : origin + first }] : [];
+    const gaps =
+      values[0] !== values[0]
+        ? [{ index: 0, missing: 1, line: lineOf(0), time: first === undefined ? undefined : origin + first }]
+        : [];
     return { phase: values.slice(), times: times.slice(), tau0: undefined, gaps, missing: gaps.length };
   }
   const t0 = times[0]!;
@@ -229,15 +301,24 @@ export function regularizeSeries(sourceName: string, times: Float64Array, values
     const ratio = (times[i]! - times[i - 1]!) / tau0;
     const k = Math.round(ratio);
     if (k < 1 || Math.abs(ratio - k) > 1e-6 * Math.max(1, k)) {
-      throw new ParseError(sourceName, lineOf(i), 1,
+      throw new ParseError(
+        sourceName,
+        lineOf(i),
+        1,
         `a time step that is a whole multiple of tau0 = ${tau0} s (step ${times[i]! - times[i - 1]!} s from the previous sample is ${ratio} tau0)`,
-        String(origin + times[i]!));
+        String(origin + times[i]!),
+      );
     }
     if (total + k > MAX_SERIES_SAMPLES) {
       // Refused before anything of that length is allocated (a gap of 10^12 samples would ask for terabytes).
-      throw new ParseError(sourceName, lineOf(i), 1,
+      throw new ParseError(
+        sourceName,
+        lineOf(i),
+        1,
         `a uniform series of at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES): the gap of ${times[i]! - times[i - 1]!} s ` +
-        `after line ${lineOf(i - 1)} is ${k} steps of tau0 = ${tau0} s, making ${total + k} samples`, String(origin + times[i]!));
+          `after line ${lineOf(i - 1)} is ${k} steps of tau0 = ${tau0} s, making ${total + k} samples`,
+        String(origin + times[i]!),
+      );
     }
     steps[i] = k;
     total += k;

@@ -9,12 +9,16 @@ import { InvalidArgumentError, ParseError } from '../errors.js';
 import { requireOptions, requireSourceName } from '../internal/validate.js';
 import { Instant } from '../time/instant.js';
 import type { Seconds } from '../units.js';
-import { MAX_SERIES_SAMPLES } from './limits.js';
-import { scaleSecondsFromFields, validEpochFields, type TextSource } from './line-reader.js';
-import { regularizeSeries, type SampleGap } from './phase-text.js';
 import { GrowableColumn } from './growable.js';
+import { MAX_SERIES_SAMPLES } from './limits.js';
+import { scaleSecondsFromFields, type TextSource, validEpochFields } from './line-reader.js';
+import { regularizeSeries, type SampleGap } from './phase-text.js';
 import {
-  readRinexClock, type RinexClockFile, type RinexClockHeader, type RinexClockReadOptions, type RinexClockRecord,
+  type RinexClockFile,
+  type RinexClockHeader,
+  type RinexClockReadOptions,
+  type RinexClockRecord,
+  readRinexClock,
 } from './rinex-clock.js';
 
 /** The bias series of one clock, on a uniform grid. */
@@ -71,7 +75,8 @@ export class RinexClockSeriesCollector {
 
   constructor(sourceName: string, name: string, options: RinexClockSeriesOptions = {}) {
     this._source = requireSourceName('sourceName', sourceName);
-    if (typeof name !== 'string') throw new InvalidArgumentError('name', name, 'a satellite or receiver name, e.g. "G05"');
+    if (typeof name !== 'string')
+      throw new InvalidArgumentError('name', name, 'a satellite or receiver name, e.g. "G05"');
     this._name = name;
     this._options = requireOptions('options', options);
   }
@@ -85,11 +90,21 @@ export class RinexClockSeriesCollector {
     }
     if (this._type === undefined) this._type = r.type;
     else if (this._type !== r.type) {
-      throw new ParseError(this._source, r.line, 1, `one record type for ${this._name}: it has both AS and AR records; choose one with options.type`);
+      throw new ParseError(
+        this._source,
+        r.line,
+        1,
+        `one record type for ${this._name}: it has both AS and AR records; choose one with options.type`,
+      );
     }
     const n = this._times.length;
     if (this._last !== undefined && !r.epoch.isAfter(this._last)) {
-      throw new ParseError(this._source, r.line, 4, `an epoch later than the previous ${this._name} record (line ${this._lines.get(n - 1)})`);
+      throw new ParseError(
+        this._source,
+        r.line,
+        4,
+        `an epoch later than the previous ${this._name} record (line ${this._lines.get(n - 1)})`,
+      );
     }
     this._first ??= { epoch: r.epoch, scaleSeconds: scaleSecondsFromFields(r.time) };
     this._last = r.epoch;
@@ -106,25 +121,55 @@ export class RinexClockSeriesCollector {
    */
   finish(header: RinexClockHeader): RinexClockSeries {
     const h = header as Partial<RinexClockHeader> | null;
-    if (typeof h !== 'object' || h === null || typeof h.lines !== 'number' || !Number.isSafeInteger(h.lines) || h.lines < 1
-      || (h.timeSystem !== undefined && typeof h.timeSystem !== 'string')) {
-      throw new InvalidArgumentError('header', header, 'the header of the file the records came from ({ lines ≥ 1, timeSystem }, as the reader yields it)');
+    if (
+      typeof h !== 'object' ||
+      h === null ||
+      typeof h.lines !== 'number' ||
+      !Number.isSafeInteger(h.lines) ||
+      h.lines < 1 ||
+      (h.timeSystem !== undefined && typeof h.timeSystem !== 'string')
+    ) {
+      throw new InvalidArgumentError(
+        'header',
+        header,
+        'the header of the file the records came from ({ lines ≥ 1, timeSystem }, as the reader yields it)',
+      );
     }
     const first = this._first;
     const type = this._type;
     if (first === undefined || type === undefined) {
       // Asking for a clock the file does not hold is an argument error (the file itself is fine).
       const names = [...this._names].join(', ');
-      throw new InvalidArgumentError('name', this._name,
+      throw new InvalidArgumentError(
+        'name',
+        this._name,
         `a clock that the file ${this._source} holds${this._options.type ? ` as ${this._options.type} records` : ''}`,
-        `The clocks present: ${names || 'none'}`);
+        `The clocks present: ${names || 'none'}`,
+      );
     }
     const lineOf = (i: number) => this._lines.get(i);
-    const reg = regularizeSeries(this._source, this._times.toArray(), this._values.toArray(), lineOf, this._options.tau0, first.scaleSeconds);
-    return seriesWithTimes({
-      name: this._name, type, epoch: first.epoch, t: reg.times, phase: reg.phase, tau0: reg.tau0, gaps: reg.gaps,
-      missing: reg.missing, timeSystem: header.timeSystem,
-    }, first.scaleSeconds);
+    const reg = regularizeSeries(
+      this._source,
+      this._times.toArray(),
+      this._values.toArray(),
+      lineOf,
+      this._options.tau0,
+      first.scaleSeconds,
+    );
+    return seriesWithTimes(
+      {
+        name: this._name,
+        type,
+        epoch: first.epoch,
+        t: reg.times,
+        phase: reg.phase,
+        tau0: reg.tau0,
+        gaps: reg.gaps,
+        missing: reg.missing,
+        timeSystem: header.timeSystem,
+      },
+      first.scaleSeconds,
+    );
   }
 }
 
@@ -146,17 +191,36 @@ function seriesWithTimes(series: Omit<RinexClockSeries, 'times'>, originScaleSec
 /** Throws unless `r` is a record as {@link parseRinexClock} returns (a hand-made or damaged record is refused, naming the field). */
 function requireClockRecord(argument: string, r: unknown): void {
   const rec = r as Partial<RinexClockRecord> | null;
-  if (typeof rec !== 'object' || rec === null || typeof rec.name !== 'string' || !Number.isFinite(rec.bias) || !Number.isInteger(rec.line)
-    || !(rec.epoch instanceof Instant) || typeof rec.time !== 'object' || rec.time === null || !validEpochFields(rec.time)) {
-    throw new InvalidArgumentError(argument, r, 'a record { name, type, epoch: Instant, time, bias (s), line } as parseRinexClock returns');
+  if (
+    typeof rec !== 'object' ||
+    rec === null ||
+    typeof rec.name !== 'string' ||
+    !Number.isFinite(rec.bias) ||
+    !Number.isInteger(rec.line) ||
+    !(rec.epoch instanceof Instant) ||
+    typeof rec.time !== 'object' ||
+    rec.time === null ||
+    !validEpochFields(rec.time)
+  ) {
+    throw new InvalidArgumentError(
+      argument,
+      r,
+      'a record { name, type, epoch: Instant, time, bias (s), line } as parseRinexClock returns',
+    );
   }
 }
 
 /** Throws unless `file` has the shape {@link parseRinexClock} returns (records are checked as they are collected). */
 function requireClockFile(file: unknown): void {
   const f = file as Partial<RinexClockFile> | null;
-  if (typeof f !== 'object' || f === null || typeof f.sourceName !== 'string' || typeof f.header !== 'object' || f.header === null
-    || !Array.isArray(f.records)) {
+  if (
+    typeof f !== 'object' ||
+    f === null ||
+    typeof f.sourceName !== 'string' ||
+    typeof f.header !== 'object' ||
+    f.header === null ||
+    !Array.isArray(f.records)
+  ) {
     throw new InvalidArgumentError('file', file, 'a parsed RINEX clock file (the result of parseRinexClock)');
   }
 }
@@ -172,7 +236,11 @@ function requireClockFile(file: unknown): void {
  * @throws {ParseError} if epochs repeat or go backwards, a step is not a whole multiple of τ0, or the series
  *   would exceed MAX_SERIES_SAMPLES (line of the offending record).
  */
-export function rinexClockSeries(file: RinexClockFile, name: string, options: RinexClockSeriesOptions = {}): RinexClockSeries {
+export function rinexClockSeries(
+  file: RinexClockFile,
+  name: string,
+  options: RinexClockSeriesOptions = {},
+): RinexClockSeries {
   requireClockFile(file);
   const c = new RinexClockSeriesCollector(file.sourceName, name, options);
   for (const r of file.records) c.add(r);
@@ -188,8 +256,11 @@ export function rinexClockSeries(file: RinexClockFile, name: string, options: Ri
  * @throws {ParseError} from the reader (file, line, column) or as {@link rinexClockSeries};
  *   {@link InvalidArgumentError} when the file holds no record of the clock.
  */
-export async function readRinexClockSeries(source: TextSource, name: string,
-  options: RinexClockReadOptions & RinexClockSeriesOptions = {}): Promise<RinexClockSeries> {
+export async function readRinexClockSeries(
+  source: TextSource,
+  name: string,
+  options: RinexClockReadOptions & RinexClockSeriesOptions = {},
+): Promise<RinexClockSeries> {
   requireOptions('options', options);
   const c = new RinexClockSeriesCollector(options.sourceName ?? 'rinex-clock', name, options);
   let header: RinexClockHeader | undefined;

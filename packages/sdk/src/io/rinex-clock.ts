@@ -29,14 +29,20 @@
  * @module
  */
 import { InvalidArgumentError, ParseError } from '../errors.js';
-import type { Seconds } from '../units.js';
-import {
-  linesOf, readLineBatches, requireTextLine, validEpochFields, type EpochFields, type TextLine, type TextSource,
-} from './line-reader.js';
 import { requireOptions, requireSourceName } from '../internal/validate.js';
 import type { Instant } from '../time/instant.js';
 import type { TimeScales } from '../time/scales.js';
+import type { Seconds } from '../units.js';
 import { EpochPlacer, isReadableTimeSystem, READABLE_TIME_SYSTEMS, readerTimeScales } from './epochs.js';
+import {
+  type EpochFields,
+  linesOf,
+  readLineBatches,
+  requireTextLine,
+  type TextLine,
+  type TextSource,
+  validEpochFields,
+} from './line-reader.js';
 
 /** Header fields the reader interprets. */
 export interface RinexClockHeader {
@@ -116,7 +122,14 @@ const VALUE_ENDS = {
   A4: { record: [59, 79], continuation: [19, 39, 59, 79] },
   A9: { record: [64, 85], continuation: [22, 43, 64, 85] },
 } as const;
-const VALUE_NAMES = ['clock bias (s)', 'bias sigma (s)', 'clock rate', 'rate sigma', 'clock acceleration (1/s)', 'acceleration sigma (1/s)'];
+const VALUE_NAMES = [
+  'clock bias (s)',
+  'bias sigma (s)',
+  'clock rate',
+  'rate sigma',
+  'clock acceleration (1/s)',
+  'acceleration sigma (1/s)',
+];
 
 /** F10.6 seconds field (blank-padded). */
 const SECOND = /^ *\d+(\.\d*)?$/;
@@ -170,7 +183,8 @@ export class RinexClockParser {
 
   constructor(options: RinexClockReadOptions = {}) {
     requireOptions('options', options);
-    this._source = options.sourceName === undefined ? 'rinex-clock' : requireSourceName('options.sourceName', options.sourceName);
+    this._source =
+      options.sourceName === undefined ? 'rinex-clock' : requireSourceName('options.sourceName', options.sourceName);
     this._ts = readerTimeScales(options.timeScales);
   }
 
@@ -185,7 +199,12 @@ export class RinexClockParser {
     const cr = line.text.indexOf('\r');
     if (cr >= 0) {
       // A lone CR would hide the next record inside this line (e.g. after END OF HEADER): never read past it.
-      throw this._error(line.lineNumber, cr + 1, 'a line end of LF or CR LF (a lone CR inside a line would merge two lines)', JSON.stringify(line.text.slice(Math.max(0, cr - 10), cr + 10)));
+      throw this._error(
+        line.lineNumber,
+        cr + 1,
+        'a line end of LF or CR LF (a lone CR inside a line would merge two lines)',
+        JSON.stringify(line.text.slice(Math.max(0, cr - 10), cr + 10)),
+      );
     }
     if (!this._headerDone) return this._header(line);
     if (this._pending) return this._continuation(line, this._pending);
@@ -196,11 +215,15 @@ export class RinexClockParser {
   /** Ends the input. @throws {ParseError} when the header is incomplete or the last record is cut. */
   finish(): RinexClockEvent[] {
     const next = this._lastLine + 1;
-    if (this._version === undefined) throw this._error(Math.max(1, this._lastLine), undefined, '"RINEX VERSION / TYPE" header line', '');
+    if (this._version === undefined)
+      throw this._error(Math.max(1, this._lastLine), undefined, '"RINEX VERSION / TYPE" header line', '');
     if (!this._headerDone) throw this._error(next, undefined, '"END OF HEADER" before the end of the file');
     if (this._pending) {
-      throw this._error(next, undefined,
-        `the continuation line of the record on line ${this._pending.line} (it declares ${this._pending.count} values; the file ends after ${this._pending.values.length})`);
+      throw this._error(
+        next,
+        undefined,
+        `the continuation line of the record on line ${this._pending.line} (it declares ${this._pending.count} values; the file ends after ${this._pending.values.length})`,
+      );
     }
     return [];
   }
@@ -214,13 +237,24 @@ export class RinexClockParser {
     };
     if (this._version === undefined) {
       const at = labelAt('RINEX VERSION / TYPE');
-      if (at < 0) throw this._error(line.lineNumber, 61, '"RINEX VERSION / TYPE" header line (label in column 61, or 66 in version 3.04)', text);
+      if (at < 0)
+        throw this._error(
+          line.lineNumber,
+          61,
+          '"RINEX VERSION / TYPE" header line (label in column 61, or 66 in version 3.04)',
+          text,
+        );
       const m = /^\s*(\S+)(\s+)(\S?)/.exec(text.slice(0, at));
       const [whole = '', versionText = '', blanks = '', fileType = ''] = m ?? [];
       const version = m ? Number(versionText) : Number.NaN;
       const versionColumn = m ? whole.indexOf(versionText) + 1 : 1;
       if (!(version >= 2 && version < 2.995) && !(version >= 3 && version <= 3.05 + 1e-9)) {
-        throw this._error(line.lineNumber, versionColumn, 'a RINEX clock format version from 2.00 to 3.05', versionText);
+        throw this._error(
+          line.lineNumber,
+          versionColumn,
+          'a RINEX clock format version from 2.00 to 3.05',
+          versionText,
+        );
       }
       const typeColumn = fileType !== '' ? versionColumn + versionText.length + blanks.length : 21;
       if (fileType !== 'C') throw this._error(line.lineNumber, typeColumn, 'file type "C" (clock data)', fileType);
@@ -234,9 +268,20 @@ export class RinexClockParser {
     const tsAt = labelAt('TIME SYSTEM ID');
     if (tsAt >= 0) {
       const t = text.slice(0, tsAt).trim();
-      if (!/^[A-Z]{3}$/.test(t)) throw this._error(line.lineNumber, 4, 'a time system identifier (e.g. GPS) in columns 4-6', text.slice(0, tsAt));
+      if (!/^[A-Z]{3}$/.test(t))
+        throw this._error(
+          line.lineNumber,
+          4,
+          'a time system identifier (e.g. GPS) in columns 4-6',
+          text.slice(0, tsAt),
+        );
       if (!isReadableTimeSystem(t)) {
-        throw this._error(line.lineNumber, 4, `a time system the SDK can place on its scales (${READABLE_TIME_SYSTEMS}) in columns 4-6`, t);
+        throw this._error(
+          line.lineNumber,
+          4,
+          `a time system the SDK can place on its scales (${READABLE_TIME_SYSTEMS}) in columns 4-6`,
+          t,
+        );
       }
       this._timeSystem = t;
       return [];
@@ -244,23 +289,37 @@ export class RinexClockParser {
     const endAt = labelAt('END OF HEADER');
     if (endAt < 0) {
       // Every header line carries its label (COMMENT, PGM / RUN BY / DATE, ...); a line without one is not a header line.
-      if (text.slice(60).trim() === '') throw this._error(line.lineNumber, 61, 'a header label from column 61 (66 in version 3.04), or "END OF HEADER"', text);
+      if (text.slice(60).trim() === '')
+        throw this._error(
+          line.lineNumber,
+          61,
+          'a header label from column 61 (66 in version 3.04), or "END OF HEADER"',
+          text,
+        );
       return [];
     }
     this._headerDone = true;
-    return [{
-      kind: 'header',
-      header: {
-        version: this._version, layout: this._layout, satelliteSystem: this._system, timeSystem: this._timeSystem,
-        epochTimeSystem: this._timeSystem ?? 'GPS', timeSystemAssumed: this._timeSystem === undefined, lines: line.lineNumber,
+    return [
+      {
+        kind: 'header',
+        header: {
+          version: this._version,
+          layout: this._layout,
+          satelliteSystem: this._system,
+          timeSystem: this._timeSystem,
+          epochTimeSystem: this._timeSystem ?? 'GPS',
+          timeSystemAssumed: this._timeSystem === undefined,
+          lines: line.lineNumber,
+        },
       },
-    }];
+    ];
   }
 
   /** Integer field of columns a+1..b (blank-padded, I format). */
   private _int(line: TextLine, a: number, b: number, what: string): number {
     const v = unsignedField(line.text, a, b);
-    if (v !== v) throw this._error(line.lineNumber, a + 1, `${what} (an integer in columns ${a + 1}-${b})`, line.text.slice(a, b));
+    if (v !== v)
+      throw this._error(line.lineNumber, a + 1, `${what} (an integer in columns ${a + 1}-${b})`, line.text.slice(a, b));
     return v;
   }
 
@@ -268,12 +327,22 @@ export class RinexClockParser {
     const t = line.text;
     const type = t.slice(0, 2);
     if (!RECORD_TYPES.includes(type) || (t.length > 2 && t.charAt(2) !== ' ')) {
-      throw this._error(line.lineNumber, 1, 'a clock data record type AS, AR, CR, DR or MS in columns 1-2 followed by a blank', t.slice(0, 3));
+      throw this._error(
+        line.lineNumber,
+        1,
+        'a clock data record type AS, AR, CR, DR or MS in columns 1-2 followed by a blank',
+        t.slice(0, 3),
+      );
     }
     const width = this._layout === 'A9' ? 9 : 4;
     const name = t.slice(3, 3 + width).trimEnd();
     if (name.trim() === '' || name.startsWith(' ') || t.charAt(3 + width) !== ' ') {
-      throw this._error(line.lineNumber, 4, `a receiver or satellite name in columns 4-${3 + width} (A${width}, RINEX clock ${this._version?.toFixed(2) ?? ''}) followed by a blank`, t.slice(3, 4 + width));
+      throw this._error(
+        line.lineNumber,
+        4,
+        `a receiver or satellite name in columns 4-${3 + width} (A${width}, RINEX clock ${this._version?.toFixed(2) ?? ''}) followed by a blank`,
+        t.slice(3, 4 + width),
+      );
     }
     const s = 4 + width; // 0-based start of the epoch (column 9 or 14)
     const time: EpochFields = {
@@ -285,12 +354,28 @@ export class RinexClockParser {
       second: this._second(line, s + 16, s + 26),
     };
     if (!plainEpoch(time) && !validEpochFields(time)) {
-      throw this._error(line.lineNumber, s + 1, `a valid epoch "yyyy mm dd hh mm ss.ssssss" in columns ${s + 1}-${s + 26}`, t.slice(s, s + 26));
+      throw this._error(
+        line.lineNumber,
+        s + 1,
+        `a valid epoch "yyyy mm dd hh mm ss.ssssss" in columns ${s + 1}-${s + 26}`,
+        t.slice(s, s + 26),
+      );
     }
     this._placer ??= new EpochPlacer(this._ts, this._timeSystem ?? 'GPS');
-    const epoch = this._placer.place(time, { source: this._source, line: line.lineNumber, column: s + 1, text: t.slice(s, s + 26) });
+    const epoch = this._placer.place(time, {
+      source: this._source,
+      line: line.lineNumber,
+      column: s + 1,
+      text: t.slice(s, s + 26),
+    });
     const count = this._int(line, s + 26, s + 29, 'number of data values');
-    if (count < 1 || count > 6) throw this._error(line.lineNumber, s + 27, `a number of data values from 1 to 6 in columns ${s + 27}-${s + 29}`, String(count));
+    if (count < 1 || count > 6)
+      throw this._error(
+        line.lineNumber,
+        s + 27,
+        `a number of data values from 1 to 6 in columns ${s + 27}-${s + 29}`,
+        String(count),
+      );
     const onLine = Math.min(2, count);
     const values = this._values(line, s + 29, VALUE_ENDS[this._layout].record.slice(0, onLine), 0, count);
     const pending: Pending = { type, name, epoch, time, count, values, line: line.lineNumber };
@@ -306,7 +391,9 @@ export class RinexClockParser {
 
   private _continuation(line: TextLine, p: Pending): RinexClockEvent[] {
     const need = p.count - p.values.length;
-    p.values.push(...this._values(line, 0, VALUE_ENDS[this._layout].continuation.slice(0, need), p.values.length, p.count, p.line));
+    p.values.push(
+      ...this._values(line, 0, VALUE_ENDS[this._layout].continuation.slice(0, need), p.values.length, p.count, p.line),
+    );
     return this._complete(p);
   }
 
@@ -314,24 +401,48 @@ export class RinexClockParser {
    * Reads the value fields of one line, starting after 0-based column `from`: one exponent-form number per
    * field, ending in the field's last column (or the one before), nothing else on the line.
    */
-  private _values(line: TextLine, from: number, ends: readonly number[], first: number, count: number, recordLine?: number): number[] {
+  private _values(
+    line: TextLine,
+    from: number,
+    ends: readonly number[],
+    first: number,
+    count: number,
+    recordLine?: number,
+  ): number[] {
     const t = line.text;
     const n = t.length;
     const out: number[] = [];
-    const what = (k: number, end: number) => `${VALUE_NAMES[first + k]} (value ${first + k + 1} of ${count}, E19.12 in columns ${end - 18}-${end})` +
+    const what = (k: number, end: number) =>
+      `${VALUE_NAMES[first + k]} (value ${first + k + 1} of ${count}, E19.12 in columns ${end - 18}-${end})` +
       (recordLine === undefined ? '' : ` (continuation of the record on line ${recordLine})`);
     let pos = from;
     for (const [k, end] of ends.entries()) {
       while (pos < n && t.charCodeAt(pos) === 32) pos++;
-      if (pos >= n) throw this._error(line.lineNumber, t.trimEnd().length + 1, `${what(k, end)}: the line ends before it (record cut)`, t.slice(Math.max(0, end - 19)));
+      if (pos >= n)
+        throw this._error(
+          line.lineNumber,
+          t.trimEnd().length + 1,
+          `${what(k, end)}: the line ends before it (record cut)`,
+          t.slice(Math.max(0, end - 19)),
+        );
       let stop = pos;
       while (stop < n && t.charCodeAt(stop) !== 32) stop++;
       const tok = t.slice(pos, stop);
       if (tok.length > 19 || !E_FORMAT.test(tok)) {
-        throw this._error(line.lineNumber, pos + 1, `${what(k, end)}: a complete number in exponent form such as -0.123456789012E-03`, tok);
+        throw this._error(
+          line.lineNumber,
+          pos + 1,
+          `${what(k, end)}: a complete number in exponent form such as -0.123456789012E-03`,
+          tok,
+        );
       }
       if (stop !== end && stop !== end - 1) {
-        throw this._error(line.lineNumber, pos + 1, `${what(k, end)}: a field ending in column ${end}; it ends in column ${stop}`, tok);
+        throw this._error(
+          line.lineNumber,
+          pos + 1,
+          `${what(k, end)}: a field ending in column ${end}; it ends in column ${stop}`,
+          tok,
+        );
       }
       const v = Number(tok.includes('D') || tok.includes('d') ? tok.replace(/[Dd]/, 'E') : tok);
       if (!Number.isFinite(v)) throw this._error(line.lineNumber, pos + 1, `${what(k, end)}: a finite number`, tok);
@@ -343,7 +454,12 @@ export class RinexClockParser {
       let stop = pos;
       while (stop < n && t.charCodeAt(stop) !== 32) stop++;
       const where = recordLine === undefined ? '' : ` (continuation of the record on line ${recordLine})`;
-      throw this._error(line.lineNumber, pos + 1, `no more than ${ends.length} value(s) on this line (the record declares ${count})${where}`, t.slice(pos, stop));
+      throw this._error(
+        line.lineNumber,
+        pos + 1,
+        `no more than ${ends.length} value(s) on this line (the record declares ${count})${where}`,
+        t.slice(pos, stop),
+      );
     }
     return out;
   }
@@ -352,13 +468,24 @@ export class RinexClockParser {
     this._pending = undefined;
     if (p.type === 'AS' || p.type === 'AR') {
       const v = p.values;
-      return [{
-        kind: 'record',
-        record: {
-          type: p.type, name: p.name, epoch: p.epoch, time: p.time, bias: v[0] ?? Number.NaN, biasSigma: v[1], rate: v[2], rateSigma: v[3],
-          acceleration: v[4], accelerationSigma: v[5], line: p.line,
+      return [
+        {
+          kind: 'record',
+          record: {
+            type: p.type,
+            name: p.name,
+            epoch: p.epoch,
+            time: p.time,
+            bias: v[0] ?? Number.NaN,
+            biasSigma: v[1],
+            rate: v[2],
+            rateSigma: v[3],
+            acceleration: v[4],
+            accelerationSigma: v[5],
+            line: p.line,
+          },
         },
-      }];
+      ];
     }
     return [{ kind: 'other', recordType: p.type as 'CR' | 'DR' | 'MS', name: p.name, line: p.line }];
   }
@@ -370,8 +497,12 @@ export class RinexClockParser {
  */
 function readOptions(options: RinexClockReadOptions | undefined): RinexClockReadOptions {
   if (typeof options === 'string') {
-    throw new InvalidArgumentError('options', options, 'an options object { sourceName }',
-      `the source name alone is no longer accepted: write { sourceName: ${JSON.stringify(options)} }`);
+    throw new InvalidArgumentError(
+      'options',
+      options,
+      'an options object { sourceName }',
+      `the source name alone is no longer accepted: write { sourceName: ${JSON.stringify(options)} }`,
+    );
   }
   return requireOptions('options', options ?? {});
 }
@@ -389,7 +520,10 @@ function readOptions(options: RinexClockReadOptions | undefined): RinexClockRead
  * @see J. Ray, W. Gurtner, RINEX Extensions to Handle Clock Information, 2.00 (1999), 3.02 (2010) [V1 change list, M
  *   columns]; 3.04 with M. J. Coleman (2017) [M, example file V2].
  */
-export async function* readRinexClock(source: TextSource, options?: RinexClockReadOptions): AsyncGenerator<RinexClockEvent> {
+export async function* readRinexClock(
+  source: TextSource,
+  options?: RinexClockReadOptions,
+): AsyncGenerator<RinexClockEvent> {
   const opts = readOptions(options);
   const parser = new RinexClockParser(opts);
   for await (const lines of readLineBatches(source, { sourceName: opts.sourceName ?? 'rinex-clock' })) {

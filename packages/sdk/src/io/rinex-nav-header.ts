@@ -11,8 +11,13 @@
  * @module
  */
 import { ParseError } from '../errors.js';
-import { type TextLine, parseFortranReal } from './line-reader.js';
-import type { RinexIonosphereParameters, RinexLeapSeconds, RinexNavHeader, RinexTimeSystemCorrection } from './rinex-nav-types.js';
+import { parseFortranReal, type TextLine } from './line-reader.js';
+import type {
+  RinexIonosphereParameters,
+  RinexLeapSeconds,
+  RinexNavHeader,
+  RinexTimeSystemCorrection,
+} from './rinex-nav-types.js';
 
 const SYSTEM_CODES = 'GRECJIS';
 
@@ -33,29 +38,48 @@ const V2_FILE_TYPES: Readonly<Record<string, string>> = { N: 'G', G: 'R', H: 'S'
  * @throws {ParseError} for a version or file type not read, naming the column.
  */
 export function readNavVersionLine(source: string, line: TextLine): NavVersionLine {
-  const err = (column: number, expected: string, found: string) => new ParseError(source, line.lineNumber, column, expected, found);
+  const err = (column: number, expected: string, found: string) =>
+    new ParseError(source, line.lineNumber, column, expected, found);
   const label = line.text.slice(60).trim();
-  if (label !== 'RINEX VERSION / TYPE') throw err(61, "the first header line, labelled 'RINEX VERSION / TYPE' in columns 61-80", line.text);
+  if (label !== 'RINEX VERSION / TYPE')
+    throw err(61, "the first header line, labelled 'RINEX VERSION / TYPE' in columns 61-80", line.text);
   const versionText = line.text.slice(0, 9).trim();
   const version = /^\d+(\.\d+)?$/.test(versionText) ? Number(versionText) : Number.NaN;
   const type = line.text.charAt(20);
   const system = line.text.charAt(40).trim();
   if (version >= 2 && version < 3) {
     if (version === 2.12) {
-      throw err(1, 'RINEX version 2.10, 2.11, 3.0x or 4.0x in columns 1-9 (2.12 was a draft, never adopted: its layouts are not read)', versionText);
+      throw err(
+        1,
+        'RINEX version 2.10, 2.11, 3.0x or 4.0x in columns 1-9 (2.12 was a draft, never adopted: its layouts are not read)',
+        versionText,
+      );
     }
     if (version !== 2.1 && version !== 2.11) {
-      throw err(1, 'RINEX version 2.10, 2.11, 3.0x or 4.0x in columns 1-9 (navigation files before 2.10 are not read)', versionText);
+      throw err(
+        1,
+        'RINEX version 2.10, 2.11, 3.0x or 4.0x in columns 1-9 (navigation files before 2.10 are not read)',
+        versionText,
+      );
     }
     if (type === 'L') {
-      throw err(21, "file type N (GPS), G (GLONASS) or H (GEO) in column 21: RINEX 2.11 reserves 'L' for a future Galileo navigation file and defines no layout for it (§4); convert the file to RINEX 3", type);
+      throw err(
+        21,
+        "file type N (GPS), G (GLONASS) or H (GEO) in column 21: RINEX 2.11 reserves 'L' for a future Galileo navigation file and defines no layout for it (§4); convert the file to RINEX 3",
+        type,
+      );
     }
     const fileSystem = V2_FILE_TYPES[type];
-    if (fileSystem === undefined) throw err(21, 'file type N (GPS navigation), G (GLONASS) or H (GEO) in column 21', type);
+    if (fileSystem === undefined)
+      throw err(21, 'file type N (GPS navigation), G (GLONASS) or H (GEO) in column 21', type);
     // Column 41 lies in a blank field of the version-2 navigation header (Table A3: A1,19X): a system letter there
     // other than the file's own marks a mixed or Galileo file, a layout RINEX 2.11 does not define.
     if (system !== '' && system !== fileSystem) {
-      throw err(41, `column 41 blank (or ${fileSystem}) in a RINEX 2 '${type}' file: RINEX 2.11 defines no mixed or Galileo navigation file layout (Tables A3, A10, A15); convert the file to RINEX 3`, system);
+      throw err(
+        41,
+        `column 41 blank (or ${fileSystem}) in a RINEX 2 '${type}' file: RINEX 2.11 defines no mixed or Galileo navigation file layout (Tables A3, A10, A15); convert the file to RINEX 3`,
+        system,
+      );
     }
     return { version, fileType: type, system: fileSystem };
   }
@@ -93,39 +117,72 @@ export class NavHeaderReader {
     const label = line.text.slice(60).trim();
     const body = line.text.slice(0, 60);
     const v2 = this._first.version < 3;
-    if (label === '') throw new ParseError(this._source, line.lineNumber, 61, 'a header label in columns 61-80', line.text);
+    if (label === '')
+      throw new ParseError(this._source, line.lineNumber, 61, 'a header label in columns 61-80', line.text);
     switch (label) {
-      case 'END OF HEADER': return this._header(line.lineNumber);
-      case 'COMMENT': this._comments.push(body.trimEnd()); return undefined;
+      case 'END OF HEADER':
+        return this._header(line.lineNumber);
+      case 'COMMENT':
+        this._comments.push(body.trimEnd());
+        return undefined;
       case 'PGM / RUN BY / DATE':
         this._programName = body.slice(0, 20).trim();
         this._runBy = body.slice(20, 40).trim();
         this._creationDate = body.slice(40, 60).trim();
         return undefined;
-      case 'LEAP SECONDS': this._leapSeconds = this._readLeapSeconds(line); return undefined;
+      case 'LEAP SECONDS':
+        this._leapSeconds = this._readLeapSeconds(line);
+        return undefined;
       case 'RINEX VERSION / TYPE':
-        throw new ParseError(this._source, line.lineNumber, 61, 'a single RINEX VERSION / TYPE line (found a second one: two files concatenated?)', label);
-      default: break;
+        throw new ParseError(
+          this._source,
+          line.lineNumber,
+          61,
+          'a single RINEX VERSION / TYPE line (found a second one: two files concatenated?)',
+          label,
+        );
+      default:
+        break;
     }
     if (v2 && (label === 'ION ALPHA' || label === 'ION BETA')) {
       // RINEX 2.11 Table A3: 2X,4D12.4 [V1].
-      this._ionosphere.push({ type: label === 'ION ALPHA' ? 'GPSA' : 'GPSB', parametersBroadcastUnits: this._reals(line, 2, 12, 4, label), line: line.lineNumber });
+      this._ionosphere.push({
+        type: label === 'ION ALPHA' ? 'GPSA' : 'GPSB',
+        parametersBroadcastUnits: this._reals(line, 2, 12, 4, label),
+        line: line.lineNumber,
+      });
     } else if (v2 && label === 'DELTA-UTC: A0,A1,T,W') {
       // RINEX 2.11 Table A3: 3X,2D19.12,2I9; W a continuous week number [V1].
       const a0 = this._real(line, 3, 19, `${label} parameter 1`);
       const a1 = this._real(line, 22, 19, `${label} parameter 2`);
-      this._corrections.push({ type: 'GPUT', a0, a1, referenceSecondsOfWeek: this._int(line, 41, 9, 'T, reference time of UTC data (I9, seconds of week)'),
-        referenceWeek: this._int(line, 50, 9, 'W, UTC reference week (I9, continuous)'), line: line.lineNumber });
+      this._corrections.push({
+        type: 'GPUT',
+        a0,
+        a1,
+        referenceSecondsOfWeek: this._int(line, 41, 9, 'T, reference time of UTC data (I9, seconds of week)'),
+        referenceWeek: this._int(line, 50, 9, 'W, UTC reference week (I9, continuous)'),
+        line: line.lineNumber,
+      });
     } else if (!v2 && label === 'IONOSPHERIC CORR') {
       // RINEX 3.05: A4,1X,4D12.4 [M].
-      this._ionosphere.push({ type: this._type(line), parametersBroadcastUnits: this._reals(line, 5, 12, 4, label), line: line.lineNumber });
+      this._ionosphere.push({
+        type: this._type(line),
+        parametersBroadcastUnits: this._reals(line, 5, 12, 4, label),
+        line: line.lineNumber,
+      });
     } else if (!v2 && label === 'TIME SYSTEM CORR') {
       // RINEX 3.05: A4,1X,D17.10,D16.9,I7,I5 [M].
       const type = this._type(line);
       const a0 = this._real(line, 5, 17, `${label} a0 (s)`);
       const a1 = this._real(line, 22, 16, `${label} a1 (s/s)`);
-      this._corrections.push({ type, a0, a1, referenceSecondsOfWeek: this._int(line, 38, 7, 'T, reference time (I7, seconds of week)'),
-        referenceWeek: this._int(line, 45, 5, 'W, reference week (I5)'), line: line.lineNumber });
+      this._corrections.push({
+        type,
+        a0,
+        a1,
+        referenceSecondsOfWeek: this._int(line, 38, 7, 'T, reference time (I7, seconds of week)'),
+        referenceWeek: this._int(line, 45, 5, 'W, reference week (I5)'),
+        line: line.lineNumber,
+      });
     } else {
       this._other.push({ label, text: body.trimEnd(), line: line.lineNumber });
     }
@@ -134,19 +191,32 @@ export class NavHeaderReader {
 
   private _header(lineCount: number): RinexNavHeader {
     return {
-      sourceName: this._source, version: this._first.version, satelliteSystem: this._first.system, fileType: this._first.fileType,
+      sourceName: this._source,
+      version: this._first.version,
+      satelliteSystem: this._first.system,
+      fileType: this._first.fileType,
       ...(this._programName !== undefined ? { programName: this._programName } : {}),
       ...(this._runBy !== undefined ? { runBy: this._runBy } : {}),
       ...(this._creationDate !== undefined ? { creationDate: this._creationDate } : {}),
       ...(this._leapSeconds ? { leapSeconds: this._leapSeconds } : {}),
-      ionosphere: this._ionosphere, timeSystemCorrections: this._corrections,
-      comments: this._comments, otherLines: this._other, lineCount,
+      ionosphere: this._ionosphere,
+      timeSystemCorrections: this._corrections,
+      comments: this._comments,
+      otherLines: this._other,
+      lineCount,
     };
   }
 
   private _type(line: TextLine): string {
     const t = line.text.slice(0, 4).trim();
-    if (!/^[A-Z]{3,4}$/.test(t)) throw new ParseError(this._source, line.lineNumber, 1, 'a correction type (e.g. GPSA, GAL, GPUT) in columns 1-4', t);
+    if (!/^[A-Z]{3,4}$/.test(t))
+      throw new ParseError(
+        this._source,
+        line.lineNumber,
+        1,
+        'a correction type (e.g. GPSA, GAL, GPUT) in columns 1-4',
+        t,
+      );
     return t;
   }
 
@@ -155,13 +225,26 @@ export class NavHeaderReader {
     const raw = line.text.slice(start, start + width);
     const v = parseFortranReal(raw);
     if (v === undefined || Number.isNaN(v)) {
-      throw new ParseError(this._source, line.lineNumber, start + 1, `${name} as a real number in columns ${start + 1}-${start + width}`, raw);
+      throw new ParseError(
+        this._source,
+        line.lineNumber,
+        start + 1,
+        `${name} as a real number in columns ${start + 1}-${start + width}`,
+        raw,
+      );
     }
     return v;
   }
 
   /** `count` reals of `width` columns from 0-based `start`; blank ones are null unless `required`. */
-  private _reals(line: TextLine, start: number, width: number, count: number, label: string, required = false): (number | null)[] {
+  private _reals(
+    line: TextLine,
+    start: number,
+    width: number,
+    count: number,
+    label: string,
+    required = false,
+  ): (number | null)[] {
     const out: (number | null)[] = [];
     for (let k = 0; k < count; k++) {
       const s = start + k * width;
@@ -174,7 +257,14 @@ export class NavHeaderReader {
 
   private _int(line: TextLine, start: number, width: number, name: string): number {
     const t = line.text.slice(start, start + width).trim();
-    if (!/^[+-]?\d+$/.test(t)) throw new ParseError(this._source, line.lineNumber, start + 1, `${name} as an integer in columns ${start + 1}-${start + width}`, t);
+    if (!/^[+-]?\d+$/.test(t))
+      throw new ParseError(
+        this._source,
+        line.lineNumber,
+        start + 1,
+        `${name} as an integer in columns ${start + 1}-${start + width}`,
+        t,
+      );
     return Number(t);
   }
 
@@ -186,10 +276,18 @@ export class NavHeaderReader {
         ints.push(undefined);
         continue;
       }
-      if (!/^[+-]?\d+$/.test(t)) throw new ParseError(this._source, line.lineNumber, 6 * k + 1, 'an integer (format I6)', t);
+      if (!/^[+-]?\d+$/.test(t))
+        throw new ParseError(this._source, line.lineNumber, 6 * k + 1, 'an integer (format I6)', t);
       ints.push(Number(t));
     }
-    if (ints[0] === undefined) throw new ParseError(this._source, line.lineNumber, 1, 'the current number of leap seconds (I6, columns 1-6)', '');
+    if (ints[0] === undefined)
+      throw new ParseError(
+        this._source,
+        line.lineNumber,
+        1,
+        'the current number of leap seconds (I6, columns 1-6)',
+        '',
+      );
     const ts = line.text.slice(24, 27).trim();
     return {
       current: ints[0],

@@ -10,7 +10,7 @@ import { ParseError } from '../errors.js';
 import type { KeplerianNavMessage, KeplerianSystem } from '../orbit/broadcast.js';
 import { defaultFitIntervalSeconds, isBeidouGeostationary, SYSTEM_TIME_SCALE } from '../orbit/broadcast.js';
 import { instantFromScaleSeconds } from '../time/file-epochs.js';
-import { type EpochFields, type TextLine, parseFortranReal, scaleSecondsFromFields } from './line-reader.js';
+import { type EpochFields, parseFortranReal, scaleSecondsFromFields, type TextLine } from './line-reader.js';
 import type { RinexNavEphemeris } from './rinex-nav-types.js';
 
 const SECONDS_PER_WEEK = 604_800;
@@ -34,9 +34,31 @@ export const RINEX3_LAYOUT: KeplerLayout = { epochFieldStart: 23, orbitFieldStar
 
 /** Keys of the broadcast-orbit fields read into the record. */
 type OrbitKey =
-  | 'issueOfData' | 'crs' | 'deltaN' | 'm0' | 'cuc' | 'eccentricity' | 'cus' | 'sqrtA' | 'toe' | 'cic' | 'omega0' | 'cis'
-  | 'i0' | 'crc' | 'argumentOfPerigee' | 'omegaDot' | 'idot' | 'field5b' | 'week' | 'accuracy' | 'health' | 'gd1' | 'gd2'
-  | 'transmission' | 'field7b';
+  | 'issueOfData'
+  | 'crs'
+  | 'deltaN'
+  | 'm0'
+  | 'cuc'
+  | 'eccentricity'
+  | 'cus'
+  | 'sqrtA'
+  | 'toe'
+  | 'cic'
+  | 'omega0'
+  | 'cis'
+  | 'i0'
+  | 'crc'
+  | 'argumentOfPerigee'
+  | 'omegaDot'
+  | 'idot'
+  | 'field5b'
+  | 'week'
+  | 'accuracy'
+  | 'health'
+  | 'gd1'
+  | 'gd2'
+  | 'transmission'
+  | 'field7b';
 
 /** One broadcast-orbit field: orbit line (1–7), position on the line (0–3), key, label in messages, required. */
 type OrbitField = readonly [line: number, slot: number, key: OrbitKey, label: string, required: boolean];
@@ -44,10 +66,22 @@ type OrbitField = readonly [line: number, slot: number, key: OrbitKey, label: st
 /** The fields every Keplerian layout shares (lines 1–4 and IDOT). */
 function commonFields(issueOfData: string): OrbitField[] {
   return [
-    [1, 0, 'issueOfData', issueOfData, true], [1, 1, 'crs', 'C_rs (m)', true], [1, 2, 'deltaN', 'Δn (rad/s)', true], [1, 3, 'm0', 'M0 (rad)', true],
-    [2, 0, 'cuc', 'C_uc (rad)', true], [2, 1, 'eccentricity', 'eccentricity e', true], [2, 2, 'cus', 'C_us (rad)', true], [2, 3, 'sqrtA', 'sqrt(A) (√m)', true],
-    [3, 0, 'toe', 't_oe (seconds of week)', true], [3, 1, 'cic', 'C_ic (rad)', true], [3, 2, 'omega0', 'Ω0 (rad)', true], [3, 3, 'cis', 'C_is (rad)', true],
-    [4, 0, 'i0', 'i0 (rad)', true], [4, 1, 'crc', 'C_rc (m)', true], [4, 2, 'argumentOfPerigee', 'ω (rad)', true], [4, 3, 'omegaDot', 'Ω̇ (rad/s)', true],
+    [1, 0, 'issueOfData', issueOfData, true],
+    [1, 1, 'crs', 'C_rs (m)', true],
+    [1, 2, 'deltaN', 'Δn (rad/s)', true],
+    [1, 3, 'm0', 'M0 (rad)', true],
+    [2, 0, 'cuc', 'C_uc (rad)', true],
+    [2, 1, 'eccentricity', 'eccentricity e', true],
+    [2, 2, 'cus', 'C_us (rad)', true],
+    [2, 3, 'sqrtA', 'sqrt(A) (√m)', true],
+    [3, 0, 'toe', 't_oe (seconds of week)', true],
+    [3, 1, 'cic', 'C_ic (rad)', true],
+    [3, 2, 'omega0', 'Ω0 (rad)', true],
+    [3, 3, 'cis', 'C_is (rad)', true],
+    [4, 0, 'i0', 'i0 (rad)', true],
+    [4, 1, 'crc', 'C_rc (m)', true],
+    [4, 2, 'argumentOfPerigee', 'ω (rad)', true],
+    [4, 3, 'omegaDot', 'Ω̇ (rad/s)', true],
     [5, 0, 'idot', 'IDOT (rad/s)', true],
   ];
 }
@@ -60,18 +94,39 @@ function commonFields(issueOfData: string): OrbitField[] {
  * SatH1, TGD1, TGD2; line 7 AODC).
  */
 export const ORBIT_FIELDS: Readonly<Record<KeplerianSystem, readonly OrbitField[]>> = {
-  G: [...commonFields('IODE'), [5, 1, 'field5b', 'spare / L2 codes', false], [5, 2, 'week', 'GPS week', true],
-    [6, 0, 'accuracy', 'SV accuracy (m)', false], [6, 1, 'health', 'SV health', true], [6, 2, 'gd1', 'group delay (s)', false],
-    [6, 3, 'gd2', 'group delay / IODC', false], [7, 0, 'transmission', 'transmission time of message (seconds of week)', false],
-    [7, 1, 'field7b', 'fit interval (hours)', false]],
-  E: [...commonFields('IODnav'), [5, 1, 'field5b', 'data sources', false], [5, 2, 'week', 'GAL week', true],
-    [6, 0, 'accuracy', 'SV accuracy (m)', false], [6, 1, 'health', 'SV health', true], [6, 2, 'gd1', 'group delay (s)', false],
-    [6, 3, 'gd2', 'group delay / IODC', false], [7, 0, 'transmission', 'transmission time of message (seconds of week)', false],
-    [7, 1, 'field7b', 'spare / AODC', false]],
-  C: [...commonFields('AODE'), [5, 1, 'field5b', 'spare / L2 codes', false], [5, 2, 'week', 'BDT week', true],
-    [6, 0, 'accuracy', 'SV accuracy (m)', false], [6, 1, 'health', 'SatH1', true], [6, 2, 'gd1', 'group delay (s)', false],
-    [6, 3, 'gd2', 'group delay / IODC', false], [7, 0, 'transmission', 'transmission time of message (seconds of week)', false],
-    [7, 1, 'field7b', 'spare / AODC', false]],
+  G: [
+    ...commonFields('IODE'),
+    [5, 1, 'field5b', 'spare / L2 codes', false],
+    [5, 2, 'week', 'GPS week', true],
+    [6, 0, 'accuracy', 'SV accuracy (m)', false],
+    [6, 1, 'health', 'SV health', true],
+    [6, 2, 'gd1', 'group delay (s)', false],
+    [6, 3, 'gd2', 'group delay / IODC', false],
+    [7, 0, 'transmission', 'transmission time of message (seconds of week)', false],
+    [7, 1, 'field7b', 'fit interval (hours)', false],
+  ],
+  E: [
+    ...commonFields('IODnav'),
+    [5, 1, 'field5b', 'data sources', false],
+    [5, 2, 'week', 'GAL week', true],
+    [6, 0, 'accuracy', 'SV accuracy (m)', false],
+    [6, 1, 'health', 'SV health', true],
+    [6, 2, 'gd1', 'group delay (s)', false],
+    [6, 3, 'gd2', 'group delay / IODC', false],
+    [7, 0, 'transmission', 'transmission time of message (seconds of week)', false],
+    [7, 1, 'field7b', 'spare / AODC', false],
+  ],
+  C: [
+    ...commonFields('AODE'),
+    [5, 1, 'field5b', 'spare / L2 codes', false],
+    [5, 2, 'week', 'BDT week', true],
+    [6, 0, 'accuracy', 'SV accuracy (m)', false],
+    [6, 1, 'health', 'SatH1', true],
+    [6, 2, 'gd1', 'group delay (s)', false],
+    [6, 3, 'gd2', 'group delay / IODC', false],
+    [7, 0, 'transmission', 'transmission time of message (seconds of week)', false],
+    [7, 1, 'field7b', 'spare / AODC', false],
+  ],
 };
 
 /** What a record's first line gave: satellite and t_oc (already parsed by the version's own epoch layout). */
@@ -91,20 +146,45 @@ export function checkFieldAlignment(source: string, line: TextLine, epochLine: b
   const length = line.text.trimEnd().length;
   if (length > start && (length - start) % 19 !== 0) {
     const end = start + 19 * Math.ceil((length - start) / 19);
-    throw new ParseError(source, line.lineNumber, length + 1,
-      `a complete D19.12 field ending at column ${end} (the line ends inside a field: truncated?)`, line.text.slice(end - 19));
+    throw new ParseError(
+      source,
+      line.lineNumber,
+      length + 1,
+      `a complete D19.12 field ending at column ${end} (the line ends inside a field: truncated?)`,
+      line.text.slice(end - 19),
+    );
   }
 }
 
 /** Reads one D19.12 field at 0-based column `start`; `undefined` when blank and not required. @throws {ParseError} */
-export function readD19(source: string, line: TextLine, start: number, name: string, required: boolean): number | undefined {
+export function readD19(
+  source: string,
+  line: TextLine,
+  start: number,
+  name: string,
+  required: boolean,
+): number | undefined {
   const raw = line.text.slice(start, start + 19);
   const v = parseFortranReal(raw);
   if (v === undefined) {
-    if (required) throw new ParseError(source, line.lineNumber, start + 1, `${name} (a real number, format D19.12, columns ${start + 1}-${start + 19})`, raw);
+    if (required)
+      throw new ParseError(
+        source,
+        line.lineNumber,
+        start + 1,
+        `${name} (a real number, format D19.12, columns ${start + 1}-${start + 19})`,
+        raw,
+      );
     return undefined;
   }
-  if (Number.isNaN(v)) throw new ParseError(source, line.lineNumber, start + 1, `${name} as a Fortran real (e.g. -1.234567890123D-05)`, raw.trim());
+  if (Number.isNaN(v))
+    throw new ParseError(
+      source,
+      line.lineNumber,
+      start + 1,
+      `${name} as a Fortran real (e.g. -1.234567890123D-05)`,
+      raw.trim(),
+    );
   return v;
 }
 
@@ -113,10 +193,17 @@ export function readD19(source: string, line: TextLine, start: number, name: str
  * of t_oe and the transmission time against t_oc.
  * @throws {ParseError} naming line and column of the first bad field.
  */
-export function decodeKeplerRecord(source: string, lines: readonly TextLine[], system: KeplerianSystem, v4Message: string | undefined,
-  start: KeplerRecordStart, layout: KeplerLayout): RinexNavEphemeris {
+export function decodeKeplerRecord(
+  source: string,
+  lines: readonly TextLine[],
+  system: KeplerianSystem,
+  v4Message: string | undefined,
+  start: KeplerRecordStart,
+  layout: KeplerLayout,
+): RinexNavEphemeris {
   const l0 = lines[0]!;
-  const fail = (line: TextLine, column: number, expected: string, found: string) => new ParseError(source, line.lineNumber, column, expected, found);
+  const fail = (line: TextLine, column: number, expected: string, found: string) =>
+    new ParseError(source, line.lineNumber, column, expected, found);
   const e0 = layout.epochFieldStart;
   const af0 = readD19(source, l0, e0, 'clock bias a_f0 (s)', true)!;
   const af1 = readD19(source, l0, e0 + 19, 'clock drift a_f1 (s/s)', true)!;
@@ -125,7 +212,12 @@ export function decodeKeplerRecord(source: string, lines: readonly TextLine[], s
   for (let k = 1; k < KEPLER_RECORD_LINES; k++) {
     const o = lines[k]!;
     if (o.text.slice(0, indent).trim() !== '') {
-      throw fail(o, 1, `${indent} blanks before broadcast orbit line ${k} (format ${indent}X,4D19.12)`, o.text.slice(0, indent));
+      throw fail(
+        o,
+        1,
+        `${indent} blanks before broadcast orbit line ${k} (format ${indent}X,4D19.12)`,
+        o.text.slice(0, indent),
+      );
     }
   }
   const col = (slot: number) => indent + 19 * slot;
@@ -139,21 +231,26 @@ export function decodeKeplerRecord(source: string, lines: readonly TextLine[], s
   const sqrtA = f.sqrtA!;
   const toe = f.toe!;
   const week = f.week!;
-  if (eccentricity < 0 || eccentricity >= 1) throw fail(o(2), col(1) + 1, 'eccentricity in [0, 1)', String(eccentricity));
+  if (eccentricity < 0 || eccentricity >= 1)
+    throw fail(o(2), col(1) + 1, 'eccentricity in [0, 1)', String(eccentricity));
   if (!(sqrtA > 2500 && sqrtA < 1e5)) throw fail(o(2), col(3) + 1, 'sqrt(A) in (2500, 100000) √m', String(sqrtA));
-  if (!(toe >= 0 && toe < SECONDS_PER_WEEK)) throw fail(o(3), col(0) + 1, 't_oe in [0, 604800) seconds of week', String(toe));
-  if (!Number.isInteger(week) || week < 0 || week > 100000) throw fail(o(5), col(2) + 1, 'a non-negative integer week number', String(week));
+  if (!(toe >= 0 && toe < SECONDS_PER_WEEK))
+    throw fail(o(3), col(0) + 1, 't_oe in [0, 604800) seconds of week', String(toe));
+  if (!Number.isInteger(week) || week < 0 || week > 100000)
+    throw fail(o(5), col(2) + 1, 'a non-negative integer week number', String(week));
 
   const notes: string[] = [];
-  const { message, dataSources } = messageOf(system, start.satellite, v4Message, f.field5b, notes, () => fail(o(5), col(1) + 1,
-    dataSourcesExpected(f.field5b), String(f.field5b ?? '')));
+  const { message, dataSources } = messageOf(system, start.satellite, v4Message, f.field5b, notes, () =>
+    fail(o(5), col(1) + 1, dataSourcesExpected(f.field5b), String(f.field5b ?? '')),
+  );
 
   // Week resolution: the week whose t_oe lies nearest to t_oc (common practice, no source).
   const tocSeconds = scaleSecondsFromFields(start.toc);
   const tocWeek = Math.floor(tocSeconds / SECONDS_PER_WEEK);
   let bestWeek = tocWeek;
   for (const w of [tocWeek - 1, tocWeek + 1]) {
-    if (Math.abs(w * SECONDS_PER_WEEK + toe - tocSeconds) < Math.abs(bestWeek * SECONDS_PER_WEEK + toe - tocSeconds)) bestWeek = w;
+    if (Math.abs(w * SECONDS_PER_WEEK + toe - tocSeconds) < Math.abs(bestWeek * SECONDS_PER_WEEK + toe - tocSeconds))
+      bestWeek = w;
   }
   const writtenGpsWeek = system === 'C' ? week + BDT_WEEK_OFFSET : week;
   const diff = bestWeek - writtenGpsWeek;
@@ -162,16 +259,26 @@ export function decodeKeplerRecord(source: string, lines: readonly TextLine[], s
   if (diff !== 0) {
     const mod = ((diff % 1024) + 1024) % 1024;
     if (mod === 0) {
-      notes.push(`week ${week} read as ${weekName} week ${resolvedWritten} (written modulo 1024: week-number rollover)`);
+      notes.push(
+        `week ${week} read as ${weekName} week ${resolvedWritten} (written modulo 1024: week-number rollover)`,
+      );
     } else if (mod === 1 || mod === 1023) {
       const rolled = Math.abs(diff) > 1 ? ' after a modulo-1024 rollover correction' : '';
-      notes.push(`t_oe lies in ${weekName} week ${resolvedWritten}, the week field says ${week}${rolled} (t_oe placed nearest to t_oc)`);
+      notes.push(
+        `t_oe lies in ${weekName} week ${resolvedWritten}, the week field says ${week}${rolled} (t_oe placed nearest to t_oc)`,
+      );
     } else {
-      throw fail(o(5), col(2) + 1, `a ${weekName} week consistent with the epoch t_oc (${resolvedWritten}, or that modulo 1024)`, String(week));
+      throw fail(
+        o(5),
+        col(2) + 1,
+        `a ${weekName} week consistent with the epoch t_oc (${resolvedWritten}, or that modulo 1024)`,
+        String(week),
+      );
     }
   }
   const toeSeconds = bestWeek * SECONDS_PER_WEEK + toe;
-  if (Math.abs(toeSeconds - tocSeconds) > 0.5 * SECONDS_PER_WEEK) throw fail(o(3), col(0) + 1, 't_oe within half a week of t_oc', String(toe));
+  if (Math.abs(toeSeconds - tocSeconds) > 0.5 * SECONDS_PER_WEEK)
+    throw fail(o(3), col(0) + 1, 't_oe within half a week of t_oc', String(toe));
 
   // Transmission time: placed in the week nearest t_oe (RINEX 2.11 §6.8 and Table A4 note **: written
   // reduced by 604800 s, i.e. negative, when sent before the week of t_oe [V1]).
@@ -191,25 +298,53 @@ export function decodeKeplerRecord(source: string, lines: readonly TextLine[], s
 
   const groupDelays: Record<string, number> = {};
   let issueOfDataClock: number | undefined;
-  const [firstName, secondName] = system === 'G' ? ['TGD', ''] : system === 'E' ? ['BGD_E5a_E1', 'BGD_E5b_E1'] : ['TGD1', 'TGD2'];
+  const [firstName, secondName] =
+    system === 'G' ? ['TGD', ''] : system === 'E' ? ['BGD_E5a_E1', 'BGD_E5b_E1'] : ['TGD1', 'TGD2'];
   if (f.gd1 !== undefined) groupDelays[firstName] = f.gd1;
   if (system === 'G') issueOfDataClock = f.gd2;
   else if (f.gd2 !== undefined) groupDelays[secondName] = f.gd2;
   if (system === 'C') issueOfDataClock = f.field7b;
 
   return {
-    satellite: start.satellite, system, message, tocSeconds, toeSeconds, af0, af1, af2, issueOfData: f.issueOfData!, sqrtA, eccentricity,
-    m0: f.m0!, deltaN: f.deltaN!, omega0: f.omega0!, i0: f.i0!, argumentOfPerigee: f.argumentOfPerigee!, omegaDot: f.omegaDot!,
-    idot: f.idot!, cuc: f.cuc!, cus: f.cus!, cic: f.cic!, cis: f.cis!, crc: f.crc!, crs: f.crs!, health: f.health!, fitIntervalSeconds,
+    satellite: start.satellite,
+    system,
+    message,
+    tocSeconds,
+    toeSeconds,
+    af0,
+    af1,
+    af2,
+    issueOfData: f.issueOfData!,
+    sqrtA,
+    eccentricity,
+    m0: f.m0!,
+    deltaN: f.deltaN!,
+    omega0: f.omega0!,
+    i0: f.i0!,
+    argumentOfPerigee: f.argumentOfPerigee!,
+    omegaDot: f.omegaDot!,
+    idot: f.idot!,
+    cuc: f.cuc!,
+    cus: f.cus!,
+    cic: f.cic!,
+    cis: f.cis!,
+    crc: f.crc!,
+    crs: f.crs!,
+    health: f.health!,
+    fitIntervalSeconds,
     ...(transmissionSeconds !== undefined ? { transmissionSeconds } : {}),
     tocInstant: instantFromScaleSeconds(tocSeconds, SYSTEM_TIME_SCALE[system]),
     toeInstant: instantFromScaleSeconds(toeSeconds, SYSTEM_TIME_SCALE[system]),
-    toc: start.toc, weekAsWritten: week, toeSecondsOfWeek: toe,
+    toc: start.toc,
+    weekAsWritten: week,
+    toeSecondsOfWeek: toe,
     ...(f.accuracy !== undefined ? { accuracy: f.accuracy } : {}),
     groupDelays,
     ...(dataSources !== undefined ? { dataSources } : {}),
     ...(issueOfDataClock !== undefined ? { issueOfDataClock } : {}),
-    sourceName: source, line: l0.lineNumber, notes,
+    sourceName: source,
+    line: l0.lineNumber,
+    notes,
   };
 }
 
@@ -220,8 +355,14 @@ function dataSourcesExpected(ds: number | undefined): string {
 }
 
 /** The message kind of a record (Galileo from its data-source bits or the version-4 header; BeiDou from the PRN). */
-function messageOf(system: KeplerianSystem, satellite: string, v4Message: string | undefined, field5b: number | undefined,
-  notes: string[], badBits: () => ParseError): { message: KeplerianNavMessage; dataSources?: number } {
+function messageOf(
+  system: KeplerianSystem,
+  satellite: string,
+  v4Message: string | undefined,
+  field5b: number | undefined,
+  notes: string[],
+  badBits: () => ParseError,
+): { message: KeplerianNavMessage; dataSources?: number } {
   if (system === 'E') {
     const dataSources = field5b;
     if (dataSources === undefined || !Number.isInteger(dataSources) || dataSources < 0) throw badBits();
@@ -230,7 +371,10 @@ function messageOf(system: KeplerianSystem, satellite: string, v4Message: string
     const fromBits: KeplerianNavMessage | undefined = inav && !fnav ? 'INAV' : fnav && !inav ? 'FNAV' : undefined;
     if (v4Message !== undefined) {
       const message = v4Message as KeplerianNavMessage;
-      if (fromBits !== undefined && fromBits !== message) notes.push(`data-source bits ${dataSources} indicate ${fromBits}, the record header says ${message}; header used`);
+      if (fromBits !== undefined && fromBits !== message)
+        notes.push(
+          `data-source bits ${dataSources} indicate ${fromBits}, the record header says ${message}; header used`,
+        );
       return { message, dataSources };
     }
     if (fromBits === undefined) throw badBits();
@@ -240,7 +384,10 @@ function messageOf(system: KeplerianSystem, satellite: string, v4Message: string
     const geo = isBeidouGeostationary(satellite);
     if (v4Message === undefined) return { message: geo ? 'D2' : 'D1' };
     const message = v4Message as KeplerianNavMessage;
-    if ((message === 'D2') !== geo) notes.push(`${message} record for a ${geo ? 'geostationary' : 'non-geostationary'} satellite; the ${geo ? 'GEO' : 'MEO/IGSO'} orbit algorithm is used (by PRN)`);
+    if ((message === 'D2') !== geo)
+      notes.push(
+        `${message} record for a ${geo ? 'geostationary' : 'non-geostationary'} satellite; the ${geo ? 'GEO' : 'MEO/IGSO'} orbit algorithm is used (by PRN)`,
+      );
     return { message };
   }
   return { message: 'LNAV' };

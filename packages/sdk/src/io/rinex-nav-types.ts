@@ -4,10 +4,11 @@
  *
  * @module
  */
-import type { Seconds } from '../units.js';
+
 import type { KeplerianBroadcastEphemeris } from '../orbit/broadcast.js';
-import type { EpochFields } from './line-reader.js';
 import type { Instant } from '../time/instant.js';
+import type { Seconds } from '../units.js';
+import type { EpochFields } from './line-reader.js';
 
 /** One-letter system codes of RINEX 3/4 (G GPS, R GLONASS, E Galileo, C BeiDou, J QZSS, I NavIC, S SBAS). */
 export type RinexSystemCode = 'G' | 'R' | 'E' | 'C' | 'J' | 'I' | 'S';

@@ -20,7 +20,7 @@
 import { ParseError } from '../errors.js';
 import { requireInteger } from '../internal/validate.js';
 import { type EpochFields, type TextLine, validEpochFields } from './line-reader.js';
-import { KEPLER_RECORD_LINES, RINEX2_LAYOUT, checkFieldAlignment, decodeKeplerRecord } from './rinex-nav-kepler.js';
+import { checkFieldAlignment, decodeKeplerRecord, KEPLER_RECORD_LINES, RINEX2_LAYOUT } from './rinex-nav-kepler.js';
 import { SYSTEM_NAMES, skipReason } from './rinex-nav-skip.js';
 import type { RinexNavEvent } from './rinex-nav-types.js';
 
@@ -63,8 +63,13 @@ export class NavV2Body {
       this._pending.push(line);
     } else {
       if (line.text.trim() === '') return [];
-      throw new ParseError(this._source, line.lineNumber, 1,
-        "the first line of a navigation record: a 2-digit satellite number in columns 1-2 (RINEX 2.11 Table A4: e.g. ' 6 99  9  2 17 51 44.0 ...')", line.text);
+      throw new ParseError(
+        this._source,
+        line.lineNumber,
+        1,
+        "the first line of a navigation record: a 2-digit satellite number in columns 1-2 (RINEX 2.11 Table A4: e.g. ' 6 99  9  2 17 51 44.0 ...')",
+        line.text,
+      );
     }
     if (this._pending.length < needed) return [];
     const done = this._pending;
@@ -81,41 +86,77 @@ export class NavV2Body {
   private _truncated(lines: TextLine[], at: TextLine): ParseError {
     const needed = RECORD_LINES[this._fileType]!;
     const system = SYSTEM_OF[this._fileType]!;
-    return new ParseError(this._source, at.lineNumber, 1,
+    return new ParseError(
+      this._source,
+      at.lineNumber,
+      1,
       `${needed} lines for the ${SYSTEM_NAMES[system]} record of ${satelliteId(system, lines[0]!.text)} starting at line ${lines[0]!.lineNumber} ` +
-      `(found ${lines.length}: truncated record)`, at.text);
+        `(found ${lines.length}: truncated record)`,
+      at.text,
+    );
   }
 
   private _record(lines: TextLine[]): RinexNavEvent {
     const system = SYSTEM_OF[this._fileType]!;
     const first = lines[0]!;
-    lines.forEach((l, k) => checkFieldAlignment(this._source, l, k === 0, RINEX2_LAYOUT));
+    lines.forEach((l, k) => {
+      checkFieldAlignment(this._source, l, k === 0, RINEX2_LAYOUT);
+    });
     const { prn, toc } = this._epochLine(first);
     const satellite = `${system}${String(prn).padStart(2, '0')}`;
     if (system === 'G') {
-      return { kind: 'ephemeris', ephemeris: decodeKeplerRecord(this._source, lines, 'G', undefined, { satellite, toc }, RINEX2_LAYOUT) };
+      return {
+        kind: 'ephemeris',
+        ephemeris: decodeKeplerRecord(this._source, lines, 'G', undefined, { satellite, toc }, RINEX2_LAYOUT),
+      };
     }
     for (const l of lines.slice(1)) {
-      if (l.text.slice(0, 3).trim() !== '') throw new ParseError(this._source, l.lineNumber, 1, '3 blanks before a broadcast orbit line (format 3X,4D19.12)', l.text.slice(0, 3));
+      if (l.text.slice(0, 3).trim() !== '')
+        throw new ParseError(
+          this._source,
+          l.lineNumber,
+          1,
+          '3 blanks before a broadcast orbit line (format 3X,4D19.12)',
+          l.text.slice(0, 3),
+        );
     }
     return {
       kind: 'skipped',
-      record: { line: first.lineNumber, lineCount: lines.length, recordType: 'EPH', system, satellite, reason: skipReason('EPH', system, undefined) },
+      record: {
+        line: first.lineNumber,
+        lineCount: lines.length,
+        recordType: 'EPH',
+        system,
+        satellite,
+        reason: skipReason('EPH', system, undefined),
+      },
     };
   }
 
   /** Satellite number and epoch of a record's first line (`I2,1X,I2.2,4(1X,I2),F5.1`). @throws {ParseError} */
   private _epochLine(line: TextLine): { prn: number; toc: EpochFields } {
     const text = line.text;
-    const err = (column: number, expected: string, found: string) => new ParseError(this._source, line.lineNumber, column, expected, found);
+    const err = (column: number, expected: string, found: string) =>
+      new ParseError(this._source, line.lineNumber, column, expected, found);
     const prnText = text.slice(0, 2);
     if (!/^ ?\d{1,2}$/.test(prnText) || Number(prnText) === 0) {
-      throw err(1, `a satellite number 1-99 in columns 1-2 (format I2; RINEX 2 ${this._fileType} files carry no system letter)`, prnText);
+      throw err(
+        1,
+        `a satellite number 1-99 in columns 1-2 (format I2; RINEX 2 ${this._fileType} files carry no system letter)`,
+        prnText,
+      );
     }
     const ints: number[] = [];
-    const spans: [number, number, string][] = [[3, 5, 'two-digit year (I2.2)'], [6, 8, 'month'], [9, 11, 'day'], [12, 14, 'hour'], [15, 17, 'minute']];
+    const spans: [number, number, string][] = [
+      [3, 5, 'two-digit year (I2.2)'],
+      [6, 8, 'month'],
+      [9, 11, 'day'],
+      [12, 14, 'hour'],
+      [15, 17, 'minute'],
+    ];
     for (const [a, b, what] of spans) {
-      if (text.charAt(a - 1) !== ' ') throw err(a, `a blank before the epoch ${what} (column ${a})`, text.charAt(a - 1));
+      if (text.charAt(a - 1) !== ' ')
+        throw err(a, `a blank before the epoch ${what} (column ${a})`, text.charAt(a - 1));
       const t = text.slice(a, b);
       if (!/^ ?\d{1,2}$/.test(t)) throw err(a + 1, `the epoch ${what} in columns ${a + 1}-${b}`, t);
       ints.push(Number(t));
@@ -126,7 +167,8 @@ export class NavV2Body {
     }
     const [yy = Number.NaN, month = Number.NaN, day = Number.NaN, hour = Number.NaN, minute = Number.NaN] = ints;
     const toc: EpochFields = { year: fullYearFromTwoDigits(yy), month, day, hour, minute, second: Number(secondText) };
-    if (!validEpochFields(toc) || toc.second >= 60) throw err(4, 'a valid calendar epoch (yy mm dd hh mm ss.s)', text.slice(3, 22));
+    if (!validEpochFields(toc) || toc.second >= 60)
+      throw err(4, 'a valid calendar epoch (yy mm dd hh mm ss.s)', text.slice(3, 22));
     return { prn: Number(prnText), toc };
   }
 }

@@ -19,22 +19,43 @@
  * @module
  */
 import { ParseError } from '../errors.js';
-import type { KeplerianSystem } from '../orbit/broadcast.js';
 import { requireOptions, requireSourceName } from '../internal/validate.js';
+import type { KeplerianSystem } from '../orbit/broadcast.js';
 import {
-  type TextLine, type TextSource, linesOf, readLineBatches, requireTextLine, validEpochFields, type EpochFields,
+  type EpochFields,
+  linesOf,
+  readLineBatches,
+  requireTextLine,
+  type TextLine,
+  type TextSource,
+  validEpochFields,
 } from './line-reader.js';
 import { NavHeaderReader, type NavVersionLine, readNavVersionLine } from './rinex-nav-header.js';
-import { KEPLER_RECORD_LINES, RINEX3_LAYOUT, checkFieldAlignment, decodeKeplerRecord } from './rinex-nav-kepler.js';
+import { checkFieldAlignment, decodeKeplerRecord, KEPLER_RECORD_LINES, RINEX3_LAYOUT } from './rinex-nav-kepler.js';
 import { MINIMUM_SKIPPED_LINES_V3, SYSTEM_NAMES, skipReason, v4RecordLines } from './rinex-nav-skip.js';
-import { NavV2Body } from './rinex-nav-v2.js';
 import type {
-  RinexNavEphemeris, RinexNavEvent, RinexNavFile, RinexNavHeader, RinexNavReadOptions, RinexNavRecordType, SkippedNavRecord,
+  RinexNavEphemeris,
+  RinexNavEvent,
+  RinexNavFile,
+  RinexNavHeader,
+  RinexNavReadOptions,
+  RinexNavRecordType,
+  SkippedNavRecord,
 } from './rinex-nav-types.js';
+import { NavV2Body } from './rinex-nav-v2.js';
 
 export type {
-  RinexSystemCode, RinexNavRecordType, RinexLeapSeconds, RinexIonosphereParameters, RinexTimeSystemCorrection, RinexNavHeader,
-  RinexNavEphemeris, SkippedNavRecord, RinexNavEvent, RinexNavReadOptions, RinexNavFile,
+  RinexIonosphereParameters,
+  RinexLeapSeconds,
+  RinexNavEphemeris,
+  RinexNavEvent,
+  RinexNavFile,
+  RinexNavHeader,
+  RinexNavReadOptions,
+  RinexNavRecordType,
+  RinexSystemCode,
+  RinexTimeSystemCorrection,
+  SkippedNavRecord,
 } from './rinex-nav-types.js';
 export { fullYearFromTwoDigits } from './rinex-nav-v2.js';
 
@@ -44,7 +65,12 @@ interface PendingRecord {
   readonly start: TextLine;
   readonly lines: TextLine[];
   /** Version-4 record header, when the file is version 4. */
-  readonly v4?: { readonly type: RinexNavRecordType; readonly satellite: string; readonly message: string; readonly line: TextLine };
+  readonly v4?: {
+    readonly type: RinexNavRecordType;
+    readonly satellite: string;
+    readonly message: string;
+    readonly line: TextLine;
+  };
 }
 
 /**
@@ -63,7 +89,8 @@ export class RinexNavParser {
 
   constructor(options: RinexNavReadOptions = {}) {
     requireOptions('options', options);
-    this._source = options.sourceName === undefined ? 'rinex-nav' : requireSourceName('options.sourceName', options.sourceName);
+    this._source =
+      options.sourceName === undefined ? 'rinex-nav' : requireSourceName('options.sourceName', options.sourceName);
   }
 
   /** Feeds one line; returns the events it completed. @throws {ParseError} */
@@ -93,8 +120,13 @@ export class RinexNavParser {
       throw new ParseError(this._source, 1, 1, "a RINEX header line ending with label 'RINEX VERSION / TYPE'", '');
     }
     if (this._state === 'header') {
-      throw new ParseError(this._source, this._lastLine + 1, 1,
-        "the header line 'END OF HEADER' (the file ends inside the header: truncated?)", '');
+      throw new ParseError(
+        this._source,
+        this._lastLine + 1,
+        1,
+        "the header line 'END OF HEADER' (the file ends inside the header: truncated?)",
+        '',
+      );
     }
     if (this._v2) return this._v2.finish(this._lastLine);
     const pending = this._pending;
@@ -119,7 +151,12 @@ export class RinexNavParser {
     }
     if (!this._pending) {
       if (blank) return [];
-      throw this._error(line, 1, "the first line of a navigation record: system letter and 2-digit PRN (e.g. 'G05 2024 01 07 ...')", line.text);
+      throw this._error(
+        line,
+        1,
+        "the first line of a navigation record: system letter and 2-digit PRN (e.g. 'G05 2024 01 07 ...')",
+        line.text,
+      );
     }
     this._pending.lines.push(line);
     const sys = this._pending.start.text.charAt(0);
@@ -141,10 +178,16 @@ export class RinexNavParser {
       }
       const satellite = tokens[1] ?? '';
       if (!/^[GRECJIS]\d\d$/.test(satellite)) {
-        throw this._error(line, 7, 'a satellite identifier (system letter and 2-digit number, e.g. G05) in columns 7-9', satellite);
+        throw this._error(
+          line,
+          7,
+          'a satellite identifier (system letter and 2-digit number, e.g. G05) in columns 7-9',
+          satellite,
+        );
       }
       const message = tokens[2] ?? '';
-      if (message === '') throw this._error(line, 11, 'a message type (e.g. LNAV, INAV, FNAV, D1, D2, CNAV, FDMA) in columns 11-14', '');
+      if (message === '')
+        throw this._error(line, 11, 'a message type (e.g. LNAV, INAV, FNAV, D1, D2, CNAV, FDMA) in columns 11-14', '');
       this._pending = { start: line, lines: [], v4: { type, satellite, message, line } };
       return events;
     }
@@ -157,11 +200,22 @@ export class RinexNavParser {
   }
 
   /** Refuses a record with fewer lines than its kind needs (modelled or not), at the line that ended it. */
-  private _requireLines(rec: PendingRecord, next: TextLine | undefined, needed: number, what: string, satellite: string): void {
+  private _requireLines(
+    rec: PendingRecord,
+    next: TextLine | undefined,
+    needed: number,
+    what: string,
+    satellite: string,
+  ): void {
     if (rec.lines.length >= needed) return;
     const at = next ?? { text: '', lineNumber: this._lastLine + 1 };
-    throw this._error(at, 1, `${what} for the ${rec.v4 ? `${rec.v4.type} ${rec.v4.message} ` : ''}${SYSTEM_NAMES[satellite.charAt(0)]} record of ${satellite} ` +
-      `starting at line ${rec.start.lineNumber} (found ${rec.lines.length}: truncated record)`, at.text);
+    throw this._error(
+      at,
+      1,
+      `${what} for the ${rec.v4 ? `${rec.v4.type} ${rec.v4.message} ` : ''}${SYSTEM_NAMES[satellite.charAt(0)]} record of ${satellite} ` +
+        `starting at line ${rec.start.lineNumber} (found ${rec.lines.length}: truncated record)`,
+      at.text,
+    );
   }
 
   private _finishRecord(rec: PendingRecord, next: TextLine | undefined): RinexNavEvent[] {
@@ -176,31 +230,61 @@ export class RinexNavParser {
     const recordType: RinexNavRecordType = v4 ? v4.type : 'EPH';
     const message = v4?.message;
     const modelled = recordType === 'EPH' && modelledMessage(system, message) !== undefined;
-    if (recordType === 'EPH') rec.lines.forEach((l, k) => checkFieldAlignment(this._source, l, k === 0, RINEX3_LAYOUT));
+    if (recordType === 'EPH')
+      rec.lines.forEach((l, k) => {
+        checkFieldAlignment(this._source, l, k === 0, RINEX3_LAYOUT);
+      });
     if (!modelled) {
       // A record cut short is refused even when it is skipped: its length is known by kind.
       const needed = v4 ? v4RecordLines(v4.type, system, v4.message) : MINIMUM_SKIPPED_LINES_V3[system];
-      if (needed !== undefined) this._requireLines(rec, next, needed, `${v4 ? '' : 'at least '}${needed} lines`, satellite);
-      const unknownLength = v4 && needed === undefined ? ' (message type not in the reader\'s table of record lengths: length not checked)' : '';
-      return [{
-        kind: 'skipped',
-        record: {
-          line: rec.start.lineNumber, lineCount: rec.lines.length + (v4 ? 1 : 0), recordType, system, satellite,
-          ...(message !== undefined ? { message } : {}),
-          reason: skipReason(recordType, system, message) + unknownLength,
+      if (needed !== undefined)
+        this._requireLines(rec, next, needed, `${v4 ? '' : 'at least '}${needed} lines`, satellite);
+      const unknownLength =
+        v4 && needed === undefined
+          ? " (message type not in the reader's table of record lengths: length not checked)"
+          : '';
+      return [
+        {
+          kind: 'skipped',
+          record: {
+            line: rec.start.lineNumber,
+            lineCount: rec.lines.length + (v4 ? 1 : 0),
+            recordType,
+            system,
+            satellite,
+            ...(message !== undefined ? { message } : {}),
+            reason: skipReason(recordType, system, message) + unknownLength,
+          },
         },
-      }];
+      ];
     }
     this._requireLines(rec, next, KEPLER_RECORD_LINES, `${KEPLER_RECORD_LINES} lines`, satellite);
     if (rec.lines.length > KEPLER_RECORD_LINES) {
       const extra = rec.lines[KEPLER_RECORD_LINES]!;
-      throw this._error(extra, 1, `the next record header ('> ...'): the ${SYSTEM_NAMES[system]} record starting at line ${rec.start.lineNumber} has ${KEPLER_RECORD_LINES} lines`, extra.text);
+      throw this._error(
+        extra,
+        1,
+        `the next record header ('> ...'): the ${SYSTEM_NAMES[system]} record starting at line ${rec.start.lineNumber} has ${KEPLER_RECORD_LINES} lines`,
+        extra.text,
+      );
     }
     if (v4 && first && normaliseSatellite(first.text.slice(0, 3)) !== v4.satellite) {
-      throw this._error(first, 1, `satellite ${v4.satellite} as named in the record header on line ${v4.line.lineNumber}`, first.text.slice(0, 3));
+      throw this._error(
+        first,
+        1,
+        `satellite ${v4.satellite} as named in the record header on line ${v4.line.lineNumber}`,
+        first.text.slice(0, 3),
+      );
     }
     const start = { satellite: normaliseSatellite(first!.text.slice(0, 3)), toc: this._epochV3(first!) };
-    const ephemeris: RinexNavEphemeris = decodeKeplerRecord(this._source, rec.lines, system as KeplerianSystem, message, start, RINEX3_LAYOUT);
+    const ephemeris: RinexNavEphemeris = decodeKeplerRecord(
+      this._source,
+      rec.lines,
+      system as KeplerianSystem,
+      message,
+      start,
+      RINEX3_LAYOUT,
+    );
     return [{ kind: 'ephemeris', ephemeris }];
   }
 
@@ -208,15 +292,30 @@ export class RinexNavParser {
   private _epochV3(l0: TextLine): EpochFields {
     const text = l0.text;
     const ints: number[] = [];
-    const spans: [number, number, string][] = [[4, 8, 'year (I4)'], [9, 11, 'month'], [12, 14, 'day'], [15, 17, 'hour'], [18, 20, 'minute'], [21, 23, 'second']];
+    const spans: [number, number, string][] = [
+      [4, 8, 'year (I4)'],
+      [9, 11, 'month'],
+      [12, 14, 'day'],
+      [15, 17, 'hour'],
+      [18, 20, 'minute'],
+      [21, 23, 'second'],
+    ];
     for (const [a, b, what] of spans) {
       const t = text.slice(a, b);
       if (!/^ *\d+$/.test(t)) throw this._error(l0, a + 1, `the epoch ${what} in columns ${a + 1}-${b}`, t);
       ints.push(Number(t));
     }
-    const [year = Number.NaN, month = Number.NaN, day = Number.NaN, hour = Number.NaN, minute = Number.NaN, second = Number.NaN] = ints;
+    const [
+      year = Number.NaN,
+      month = Number.NaN,
+      day = Number.NaN,
+      hour = Number.NaN,
+      minute = Number.NaN,
+      second = Number.NaN,
+    ] = ints;
     const toc: EpochFields = { year, month, day, hour, minute, second };
-    if (!validEpochFields(toc) || toc.second >= 60) throw this._error(l0, 5, 'a valid calendar epoch (year month day hour minute second)', text.slice(4, 23));
+    if (!validEpochFields(toc) || toc.second >= 60)
+      throw this._error(l0, 5, 'a valid calendar epoch (year month day hour minute second)', text.slice(4, 23));
     return toc;
   }
 }
@@ -244,7 +343,10 @@ function modelledMessage(system: string, message: string | undefined): Keplerian
  * @see RINEX 2.11 (IGS/RTCM, 2007/2012) Tables A3, A4, A10, A11, A15, A16 [V1]; RINEX 3.05 (IGS/RTCM-SC104, 2020)
  *   §5.4 and Appendix Tables A4–A16; RINEX 4.01 (2023) navigation message record types [M].
  */
-export async function* readRinexNav(source: TextSource, options: RinexNavReadOptions = {}): AsyncGenerator<RinexNavEvent> {
+export async function* readRinexNav(
+  source: TextSource,
+  options: RinexNavReadOptions = {},
+): AsyncGenerator<RinexNavEvent> {
   const parser = new RinexNavParser(options);
   // One asynchronous step per chunk, not per line (an event is yielded only when a line completes one).
   for await (const lines of readLineBatches(source, { sourceName: options.sourceName ?? 'rinex-nav' })) {

@@ -3,9 +3,10 @@
  *
  * @module
  */
-import type { Seconds, Vector3 } from '../units.js';
+
 import type { Instant } from '../time/instant.js';
 import type { TimeScales } from '../time/scales.js';
+import type { Seconds, Vector3 } from '../units.js';
 import type { EpochFields } from './line-reader.js';
 
 /** SP3 time-system identifiers (SP3-c/d `%c` line, columns 10-12 [M]). */

@@ -26,20 +26,31 @@
  * @module
  */
 import { ParseError } from '../errors.js';
-import type { Vector3 } from '../units.js';
 import { requireOptions, requireSourceName } from '../internal/validate.js';
-import type {
-  Sp3Epoch, Sp3Event, Sp3File, Sp3Header, Sp3ReadOptions, Sp3TimeSystem, Sp3Version,
-} from './sp3-types.js';
-import {
-  type EpochFields, type TextLine, type TextSource, linesOf, readLineBatches, requireTextLine, validEpochFields,
-} from './line-reader.js';
 import type { Instant } from '../time/instant.js';
 import type { TimeScales } from '../time/scales.js';
+import type { Vector3 } from '../units.js';
 import { fileEpochInstant, isReadableTimeSystem, readerTimeScales } from './epochs.js';
+import {
+  type EpochFields,
+  linesOf,
+  readLineBatches,
+  requireTextLine,
+  type TextLine,
+  type TextSource,
+  validEpochFields,
+} from './line-reader.js';
+import type { Sp3Epoch, Sp3Event, Sp3File, Sp3Header, Sp3ReadOptions, Sp3TimeSystem, Sp3Version } from './sp3-types.js';
 
 export type {
-  Sp3TimeSystem, Sp3Version, Sp3Header, Sp3SatelliteRecord, Sp3Epoch, Sp3Event, Sp3ReadOptions, Sp3File,
+  Sp3Epoch,
+  Sp3Event,
+  Sp3File,
+  Sp3Header,
+  Sp3ReadOptions,
+  Sp3SatelliteRecord,
+  Sp3TimeSystem,
+  Sp3Version,
 } from './sp3-types.js';
 
 /** SP3 time-system identifiers (SP3-c/d `%c` line, columns 10-12 [M]). */
@@ -106,27 +117,43 @@ export class Sp3Parser {
   /** The header, once the first epoch line has ended it. */
   private _header: Sp3Header | undefined;
   private _h: {
-    version?: Sp3Version; satelliteCount?: number;
-    satellites: string[]; accuracy: number[]; fileType?: string; timeSystem?: Sp3TimeSystem; positionBase?: number;
-    clockBase?: number; comments: string[]; percentC: number; timeSystemAssumed: boolean;
+    version?: Sp3Version;
+    satelliteCount?: number;
+    satellites: string[];
+    accuracy: number[];
+    fileType?: string;
+    timeSystem?: Sp3TimeSystem;
+    positionBase?: number;
+    clockBase?: number;
+    comments: string[];
+    percentC: number;
+    timeSystemAssumed: boolean;
     /** Header lines seen per tag (`+ `, `++`, `%c`, `%f`, `%i`, `/*`), to check the fixed SP3-a/b layout. */
     tagCounts: Record<string, number>;
   } = { satellites: [], accuracy: [], comments: [], percentC: 0, timeSystemAssumed: false, tagCounts: {} };
   private _satelliteSet = new Set<string>();
-  private _epoch: { epoch: Instant; time: EpochFields; line: number; records: MutableRecord[]; seen: Set<string> } | undefined;
+  private _epoch:
+    | { epoch: Instant; time: EpochFields; line: number; records: MutableRecord[]; seen: Set<string> }
+    | undefined;
   private _epochsSeen = 0;
   private _lastEpoch: Instant | undefined;
   private readonly _ts: TimeScales;
 
   constructor(options: Sp3ReadOptions = {}) {
     requireOptions('options', options);
-    this._source = options.sourceName === undefined ? 'sp3' : requireSourceName('options.sourceName', options.sourceName);
+    this._source =
+      options.sourceName === undefined ? 'sp3' : requireSourceName('options.sourceName', options.sourceName);
     this._ts = readerTimeScales(options.timeScales);
   }
 
   /** The instant of an epoch line's fields on the file's time system. @throws {ParseError} */
   private _instant(line: TextLine, fields: EpochFields, timeSystem: Sp3TimeSystem): Instant {
-    return fileEpochInstant(this._ts, fields, timeSystem, { source: this._source, line: line.lineNumber, column: 4, text: line.text.slice(3, 31) });
+    return fileEpochInstant(this._ts, fields, timeSystem, {
+      source: this._source,
+      line: line.lineNumber,
+      column: 4,
+      text: line.text.slice(3, 31),
+    });
   }
 
   private _error(line: TextLine, column: number | undefined, expected: string, found?: string): ParseError {
@@ -139,8 +166,14 @@ export class Sp3Parser {
     this._lastLine = line.lineNumber;
     const t = line.text;
     switch (this._stage) {
-      case 'line1': this._line1 = this._readLine1(line); this._stage = 'line2'; return [];
-      case 'line2': this._line2 = this._readLine2(line); this._stage = 'header'; return [];
+      case 'line1':
+        this._line1 = this._readLine1(line);
+        this._stage = 'line2';
+        return [];
+      case 'line2':
+        this._line2 = this._readLine2(line);
+        this._stage = 'header';
+        return [];
       case 'header':
         if (t.startsWith('*')) {
           const header = this._finishHeader(line);
@@ -151,18 +184,21 @@ export class Sp3Parser {
         }
         this._headerLine(line);
         return [];
-      case 'body': return this._body(line);
+      case 'body':
+        return this._body(line);
       case 'eof':
         if (t.trim() !== '') throw this._error(line, 1, "nothing after the 'EOF' line", t);
         return [];
-      default: return [];
+      default:
+        return [];
     }
   }
 
   /** Ends the input. @throws {ParseError} when the file is truncated (no `EOF`, missing epochs). */
   finish(): Sp3Event[] {
     const at: TextLine = { text: '', lineNumber: this._lastLine + 1 };
-    if (this._stage === 'line1') throw this._error(at, 1, "an SP3 first line starting with '#a', '#b', '#c' or '#d'", '');
+    if (this._stage === 'line1')
+      throw this._error(at, 1, "an SP3 first line starting with '#a', '#b', '#c' or '#d'", '');
     if (this._stage !== 'eof') {
       throw this._error(at, 1, "the closing 'EOF' line (the file ends early: truncated)", '');
     }
@@ -179,7 +215,14 @@ export class Sp3Parser {
    * The real number in columns a+1..b. Non-finite values (`1e400`) are refused; with `limit`, so is any
    * magnitude of `limit` or more (a data field holds at most what its F14.6 width can write).
    */
-  private _real(line: TextLine, a: number, b: number, what: string, optional = false, limit = Infinity): number | undefined {
+  private _real(
+    line: TextLine,
+    a: number,
+    b: number,
+    what: string,
+    optional = false,
+    limit = Infinity,
+  ): number | undefined {
     const s = line.text.slice(a, b);
     const trimmed = s.trim();
     if (trimmed === '' && optional) return undefined;
@@ -197,7 +240,8 @@ export class Sp3Parser {
   /** A required real number (see {@link Sp3Parser._real}): a blank field is refused. */
   private _required(line: TextLine, a: number, b: number, what: string, limit = Infinity): number {
     const v = this._real(line, a, b, what, false, limit);
-    if (v === undefined) throw this._error(line, a + 1, `${what} (a number in columns ${a + 1}-${b})`, line.text.slice(a, b));
+    if (v === undefined)
+      throw this._error(line, a + 1, `${what} (a number in columns ${a + 1}-${b})`, line.text.slice(a, b));
     return v;
   }
 
@@ -210,15 +254,18 @@ export class Sp3Parser {
       minute: this._int(line, 17, 19, `${what} minute`),
       second: this._required(line, 20, 31, `${what} second`),
     };
-    if (!validEpochFields(f) || f.second >= 60) throw this._error(line, 4, `a valid calendar ${what}`, line.text.slice(3, 31));
+    if (!validEpochFields(f) || f.second >= 60)
+      throw this._error(line, 4, `a valid calendar ${what}`, line.text.slice(3, 31));
     return f;
   }
 
   private _readLine1(line: TextLine): Line1 {
     const t = line.text;
-    if (t.charAt(0) !== '#' || t.charAt(1) === '#') throw this._error(line, 1, "an SP3 first line starting with '#a', '#b', '#c' or '#d'", t.slice(0, 2));
+    if (t.charAt(0) !== '#' || t.charAt(1) === '#')
+      throw this._error(line, 1, "an SP3 first line starting with '#a', '#b', '#c' or '#d'", t.slice(0, 2));
     const v = t.charAt(1);
-    if (v !== 'a' && v !== 'b' && v !== 'c' && v !== 'd') throw this._error(line, 2, "SP3 version 'a', 'b', 'c' or 'd' in column 2", v);
+    if (v !== 'a' && v !== 'b' && v !== 'c' && v !== 'd')
+      throw this._error(line, 2, "SP3 version 'a', 'b', 'c' or 'd' in column 2", v);
     const pv = t.charAt(2);
     if (pv !== 'P' && pv !== 'V') throw this._error(line, 3, "position/velocity flag 'P' or 'V' in column 3", pv);
     this._h.version = v;
@@ -226,19 +273,30 @@ export class Sp3Parser {
     const n = this._int(line, 32, 39, 'number of epochs');
     if (n < 1) throw this._error(line, 33, 'a positive number of epochs in columns 33-39', String(n));
     return {
-      line, version: v, hasVelocities: pv === 'V', firstEpoch, epochCount: n, dataUsed: t.slice(40, 45).trim(),
-      coordinateFrame: t.slice(46, 51).trim(), orbitType: t.slice(52, 55).trim(), agency: t.slice(56, 60).trim(),
+      line,
+      version: v,
+      hasVelocities: pv === 'V',
+      firstEpoch,
+      epochCount: n,
+      dataUsed: t.slice(40, 45).trim(),
+      coordinateFrame: t.slice(46, 51).trim(),
+      orbitType: t.slice(52, 55).trim(),
+      agency: t.slice(56, 60).trim(),
     };
   }
 
   private _readLine2(line: TextLine): Line2 {
-    if (!line.text.startsWith('##')) throw this._error(line, 1, "the second header line starting with '##'", line.text.slice(0, 2));
+    if (!line.text.startsWith('##'))
+      throw this._error(line, 1, "the second header line starting with '##'", line.text.slice(0, 2));
     const gpsWeek = this._int(line, 3, 7, 'GPS week');
     const secondsOfWeek = this._required(line, 8, 23, 'seconds of week');
     const interval = this._required(line, 24, 38, 'epoch interval (s)');
     if (!(interval > 0)) throw this._error(line, 25, 'a positive epoch interval in seconds', String(interval));
     return {
-      gpsWeek, secondsOfWeek, epochInterval: interval, modifiedJulianDay: this._int(line, 39, 44, 'modified Julian day'),
+      gpsWeek,
+      secondsOfWeek,
+      epochInterval: interval,
+      modifiedJulianDay: this._int(line, 39, 44, 'modified Julian day'),
       fractionalDay: this._required(line, 45, 60, 'fractional day'),
     };
   }
@@ -251,7 +309,8 @@ export class Sp3Parser {
       if (this._h.satelliteCount === undefined) {
         const n = this._int(line, 2, 6, 'number of satellites');
         const max = this._h.version === 'd' ? 999 : 85;
-        if (n < 1 || n > max) throw this._error(line, 4, `a number of satellites in 1..${max} (SP3-${this._h.version})`, String(n));
+        if (n < 1 || n > max)
+          throw this._error(line, 4, `a number of satellites in 1..${max} (SP3-${this._h.version})`, String(n));
         this._h.satelliteCount = n;
       }
       for (let k = 0; k < 17; k++) {
@@ -295,7 +354,12 @@ export class Sp3Parser {
       this._h.comments.push(t.slice(3).trimEnd());
       return;
     }
-    throw this._error(line, 1, "a header line starting with '+ ', '++', '%c', '%f', '%i', '/*' or the first epoch line '*  '", t.slice(0, 3));
+    throw this._error(
+      line,
+      1,
+      "a header line starting with '+ ', '++', '%c', '%f', '%i', '/*' or the first epoch line '*  '",
+      t.slice(0, 3),
+    );
   }
 
   /**
@@ -318,7 +382,12 @@ export class Sp3Parser {
       throw this._error(line, 10, `a time system (${TIME_SYSTEMS.join(', ')}) in columns 10-12${also}`, ts);
     }
     if (!isReadableTimeSystem(ts)) {
-      throw this._error(line, 10, `a time system the SDK can place on its scales (${TIME_SYSTEMS.filter(isReadableTimeSystem).join(', ')}) in columns 10-12`, ts);
+      throw this._error(
+        line,
+        10,
+        `a time system the SDK can place on its scales (${TIME_SYSTEMS.filter(isReadableTimeSystem).join(', ')}) in columns 10-12`,
+        ts,
+      );
     }
     this._h.timeSystem = ts as Sp3TimeSystem;
   }
@@ -330,11 +399,18 @@ export class Sp3Parser {
   private _satelliteId(line: TextLine, id: string, column: number): string {
     const v = this._h.version;
     if (v === 'a') {
-      if (!/^ *\d{1,2}$/.test(id)) throw this._error(line, column, 'an SP3-a satellite number (I3, a GPS PRN 1-99)', id);
+      if (!/^ *\d{1,2}$/.test(id))
+        throw this._error(line, column, 'an SP3-a satellite number (I3, a GPS PRN 1-99)', id);
       return `G${id.trim().padStart(2, '0')}`;
     }
     const pattern = v === 'b' ? /^[A-Z ][ \d]\d$/ : /^[A-Z][ \d]\d$/;
-    if (!pattern.test(id)) throw this._error(line, column, `a satellite identifier such as G01${v === 'b' ? " (blank letter: GPS)" : ''}`, id);
+    if (!pattern.test(id))
+      throw this._error(
+        line,
+        column,
+        `a satellite identifier such as G01${v === 'b' ? ' (blank letter: GPS)' : ''}`,
+        id,
+      );
     const letter = id.charAt(0) === ' ' ? 'G' : id.charAt(0);
     return `${letter}${id.slice(1).trim().padStart(2, '0')}`;
   }
@@ -344,18 +420,31 @@ export class Sp3Parser {
     const first = this._line1;
     const second = this._line2;
     // The stages read lines 1 and 2 before any header line.
-    if (first === undefined || second === undefined) throw new Error('internal: SP3 header ended before lines 1 and 2 were read');
-    if (h.satelliteCount === undefined) throw this._error(line, 1, "the satellite list ('+ ' lines) before the first epoch", line.text);
+    if (first === undefined || second === undefined)
+      throw new Error('internal: SP3 header ended before lines 1 and 2 were read');
+    if (h.satelliteCount === undefined)
+      throw this._error(line, 1, "the satellite list ('+ ' lines) before the first epoch", line.text);
     if (h.satellites.length !== h.satelliteCount) {
-      throw this._error(line, 1, `${h.satelliteCount} satellite identifiers in the '+ ' lines (found ${h.satellites.length})`, line.text);
+      throw this._error(
+        line,
+        1,
+        `${h.satelliteCount} satellite identifiers in the '+ ' lines (found ${h.satellites.length})`,
+        line.text,
+      );
     }
-    if (h.timeSystem === undefined) throw this._error(line, 1, "a '%c' line giving the time system before the first epoch", line.text);
+    if (h.timeSystem === undefined)
+      throw this._error(line, 1, "a '%c' line giving the time system before the first epoch", line.text);
     if (h.version === 'a' || h.version === 'b') {
       // SP3-a/b headers have a fixed layout of 22 lines (Remondi 1989/1991 [V2]).
       for (const [tag, n] of Object.entries(FIXED_HEADER)) {
         const found = h.tagCounts[tag] ?? 0;
         if (found !== n) {
-          throw this._error(line, 1, `the fixed SP3-${h.version} header of 22 lines: ${n} '${tag}' lines (found ${found}) before the first epoch`, line.text.slice(0, 3));
+          throw this._error(
+            line,
+            1,
+            `the fixed SP3-${h.version} header of 22 lines: ${n} '${tag}' lines (found ${found}) before the first epoch`,
+            line.text.slice(0, 3),
+          );
         }
       }
     }
@@ -367,22 +456,40 @@ export class Sp3Parser {
       if (exponent !== undefined) accuracyExponents[s] = exponent;
     }
     return {
-      sourceName: this._source, version: first.version, hasVelocities: first.hasVelocities, firstEpoch: first.firstEpoch, firstInstant,
-      epochCount: first.epochCount, dataUsed: first.dataUsed, coordinateFrame: first.coordinateFrame, orbitType: first.orbitType,
-      agency: first.agency, gpsWeek: second.gpsWeek, secondsOfWeek: second.secondsOfWeek, epochInterval: second.epochInterval,
-      modifiedJulianDay: second.modifiedJulianDay, fractionalDay: second.fractionalDay, satellites: h.satellites,
-      accuracyExponents, fileType: h.fileType ?? '', timeSystem: h.timeSystem, timeSystemAssumed: h.timeSystemAssumed,
+      sourceName: this._source,
+      version: first.version,
+      hasVelocities: first.hasVelocities,
+      firstEpoch: first.firstEpoch,
+      firstInstant,
+      epochCount: first.epochCount,
+      dataUsed: first.dataUsed,
+      coordinateFrame: first.coordinateFrame,
+      orbitType: first.orbitType,
+      agency: first.agency,
+      gpsWeek: second.gpsWeek,
+      secondsOfWeek: second.secondsOfWeek,
+      epochInterval: second.epochInterval,
+      modifiedJulianDay: second.modifiedJulianDay,
+      fractionalDay: second.fractionalDay,
+      satellites: h.satellites,
+      accuracyExponents,
+      fileType: h.fileType ?? '',
+      timeSystem: h.timeSystem,
+      timeSystemAssumed: h.timeSystemAssumed,
       ...(h.positionBase !== undefined ? { positionBase: h.positionBase } : {}),
       ...(h.clockBase !== undefined ? { clockBase: h.clockBase } : {}),
-      comments: h.comments, lineCount: line.lineNumber - 1,
+      comments: h.comments,
+      lineCount: line.lineNumber - 1,
     };
   }
 
   private _startEpoch(line: TextLine, header: Sp3Header): void {
-    if (!line.text.startsWith('* ')) throw this._error(line, 1, "an epoch line starting with '* '", line.text.slice(0, 2));
+    if (!line.text.startsWith('* '))
+      throw this._error(line, 1, "an epoch line starting with '* '", line.text.slice(0, 2));
     const time = this._epochFields(line, 'epoch');
     const epoch = this._instant(line, time, header.timeSystem);
-    if (this._lastEpoch !== undefined && !epoch.isAfter(this._lastEpoch)) throw this._error(line, 4, 'epochs in increasing time order', line.text.slice(3, 31));
+    if (this._lastEpoch !== undefined && !epoch.isAfter(this._lastEpoch))
+      throw this._error(line, 4, 'epochs in increasing time order', line.text.slice(3, 31));
     this._epochsSeen++;
     if (this._epochsSeen > header.epochCount) {
       throw this._error(line, 1, `no more than the ${header.epochCount} epochs declared on line 1`, line.text);
@@ -395,8 +502,11 @@ export class Sp3Parser {
     const e = this._epoch;
     this._epoch = undefined;
     if (!e) return [];
-    const missingSatellites = e.seen.size === this._h.satellites.length ? [] : this._h.satellites.filter((s) => !e.seen.has(s));
-    return [{ kind: 'epoch', epoch: { epoch: e.epoch, time: e.time, line: e.line, records: e.records, missingSatellites } }];
+    const missingSatellites =
+      e.seen.size === this._h.satellites.length ? [] : this._h.satellites.filter((s) => !e.seen.has(s));
+    return [
+      { kind: 'epoch', epoch: { epoch: e.epoch, time: e.time, line: e.line, records: e.records, missingSatellites } },
+    ];
   }
 
   private _body(line: TextLine): Sp3Event[] {
@@ -412,7 +522,12 @@ export class Sp3Parser {
     if (t.startsWith('EOF')) {
       const events = this._emitEpoch();
       if (this._epochsSeen !== header.epochCount) {
-        throw this._error(line, 1, `${header.epochCount} epochs as declared on line 1 (found ${this._epochsSeen}: truncated?)`, t);
+        throw this._error(
+          line,
+          1,
+          `${header.epochCount} epochs as declared on line 1 (found ${this._epochsSeen}: truncated?)`,
+          t,
+        );
       }
       this._stage = 'eof';
       return events;
@@ -423,11 +538,17 @@ export class Sp3Parser {
     const legacy = this._h.version === 'a' || this._h.version === 'b';
     if (legacy && (t.startsWith('P') || t.startsWith('V')) && t.length > 60 && t.slice(60).trim() !== '') {
       const at = 61 + (t.slice(60).length - t.slice(60).trimStart().length);
-      throw this._error(line, at, `nothing after column 60 (SP3-${this._h.version} records are 60 columns wide)`, t.slice(60).trim());
+      throw this._error(
+        line,
+        at,
+        `nothing after column 60 (SP3-${this._h.version} records are 60 columns wide)`,
+        t.slice(60).trim(),
+      );
     }
     if (t.startsWith('P')) {
       const satellite = this._satellite(line);
-      if (epoch.seen.has(satellite)) throw this._error(line, 2, `one position record for ${satellite} per epoch`, satellite);
+      if (epoch.seen.has(satellite))
+        throw this._error(line, 2, `one position record for ${satellite} per epoch`, satellite);
       epoch.seen.add(satellite);
       const x = this._required(line, 4, 18, 'x (km)', F14_6_LIMIT);
       const y = this._required(line, 18, 32, 'y (km)', F14_6_LIMIT);
@@ -435,10 +556,16 @@ export class Sp3Parser {
       const clk = this._real(line, 46, 60, 'clock (µs)', true, F14_6_LIMIT);
       const position: Vector3 | undefined = x === 0 && y === 0 && z === 0 ? undefined : [x * 1000, y * 1000, z * 1000];
       epoch.records.push({
-        satellite, position, clock: clk === undefined || Math.abs(clk) >= BAD_CLOCK ? undefined : clk * 1e-6,
-        velocity: undefined, clockRate: undefined,
-        clockEvent: t.charAt(74) === 'E', clockPredicted: t.charAt(75) === 'P', maneuver: t.charAt(78) === 'M',
-        orbitPredicted: t.charAt(79) === 'P', line: line.lineNumber,
+        satellite,
+        position,
+        clock: clk === undefined || Math.abs(clk) >= BAD_CLOCK ? undefined : clk * 1e-6,
+        velocity: undefined,
+        clockRate: undefined,
+        clockEvent: t.charAt(74) === 'E',
+        clockPredicted: t.charAt(75) === 'P',
+        maneuver: t.charAt(78) === 'M',
+        orbitPredicted: t.charAt(79) === 'P',
+        line: line.lineNumber,
       });
       return [];
     }
@@ -446,9 +573,15 @@ export class Sp3Parser {
       const satellite = this._satellite(line);
       const rec = epoch.records[epoch.records.length - 1];
       if (!rec || rec.satellite !== satellite) {
-        throw this._error(line, 2, `a velocity record right after the position record of the same satellite (${rec?.satellite ?? 'none'})`, satellite);
+        throw this._error(
+          line,
+          2,
+          `a velocity record right after the position record of the same satellite (${rec?.satellite ?? 'none'})`,
+          satellite,
+        );
       }
-      if (rec.velocity !== undefined || rec.clockRate !== undefined) throw this._error(line, 1, `one velocity record for ${satellite} per epoch`, satellite);
+      if (rec.velocity !== undefined || rec.clockRate !== undefined)
+        throw this._error(line, 1, `one velocity record for ${satellite} per epoch`, satellite);
       const vx = this._required(line, 4, 18, 'x velocity (dm/s)', F14_6_LIMIT);
       const vy = this._required(line, 18, 32, 'y velocity (dm/s)', F14_6_LIMIT);
       const vz = this._required(line, 32, 46, 'z velocity (dm/s)', F14_6_LIMIT);
@@ -461,7 +594,12 @@ export class Sp3Parser {
     if (!legacy && (t.startsWith('EP') || t.startsWith('EV'))) return [];
     if (t.trim() === '') return [];
     const kinds = legacy ? "'P', 'V'" : "'P', 'V', 'EP', 'EV'";
-    throw this._error(line, 1, `a record starting with ${kinds}, '*' or the line 'EOF' (SP3-${this._h.version})`, t.slice(0, 3));
+    throw this._error(
+      line,
+      1,
+      `a record starting with ${kinds}, '*' or the line 'EOF' (SP3-${this._h.version})`,
+      t.slice(0, 3),
+    );
   }
 
   private _satellite(line: TextLine): string {

@@ -13,15 +13,16 @@
  *
  * @module
  */
-import type { Metres, Radians, RadiansPerSecond, Seconds, Vector3 } from '../units.js';
+
 import type { ConstantSet } from '../constants.js';
 import { BEIDOU_ICD, GALILEO_ICD, GPS_ICD } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
 import { requireFinite, requireOptions, requirePositive } from '../internal/validate.js';
+import { type OrbitScale, scaleSecondsFromInstant } from '../time/file-epochs.js';
 import { Instant } from '../time/instant.js';
-import { scaleSecondsFromInstant, type OrbitScale } from '../time/file-epochs.js';
-import { solveKepler } from './kepler.js';
+import type { Metres, Radians, RadiansPerSecond, Seconds, Vector3 } from '../units.js';
 import type { StateVector } from './elements.js';
+import { solveKepler } from './kepler.js';
 
 /** Seconds in one week, 7 × 86 400 (definition). */
 const SECONDS_PER_WEEK: Seconds = 604_800;
@@ -112,7 +113,11 @@ export interface BroadcastEvaluation {
 }
 
 /** Each system's own time scale, on which its records count scale seconds (GPST, GST, BDT). */
-export const SYSTEM_TIME_SCALE: Readonly<Record<KeplerianSystem, OrbitScale>> = Object.freeze({ G: 'GPS', E: 'GST', C: 'BDT' });
+export const SYSTEM_TIME_SCALE: Readonly<Record<KeplerianSystem, OrbitScale>> = Object.freeze({
+  G: 'GPS',
+  E: 'GST',
+  C: 'BDT',
+});
 
 /**
  * An evaluation time as scale seconds of `system`: an {@link Instant} is read on the system's scale
@@ -127,10 +132,14 @@ export function orbitTimeSeconds(t: Instant | Seconds, system: KeplerianSystem):
 /** The constant set each system's user algorithm uses (GM, Ω̇_E, F, π). */
 export function systemConstants(system: KeplerianSystem): ConstantSet {
   switch (system) {
-    case 'G': return GPS_ICD;
-    case 'E': return GALILEO_ICD;
-    case 'C': return BEIDOU_ICD;
-    default: throw new InvalidArgumentError('system', system, "one of 'G' (GPS), 'E' (Galileo), 'C' (BeiDou)");
+    case 'G':
+      return GPS_ICD;
+    case 'E':
+      return GALILEO_ICD;
+    case 'C':
+      return BEIDOU_ICD;
+    default:
+      throw new InvalidArgumentError('system', system, "one of 'G' (GPS), 'E' (Galileo), 'C' (BeiDou)");
   }
 }
 
@@ -166,7 +175,8 @@ export function weekCrossover(dt: Seconds): Seconds {
  * PRN ranges from memory [M]; no published assignment list was checked (the GEO algorithm itself: BDS-SIS-ICD B1I §5.2.4.12 [M]).
  */
 export function isBeidouGeostationary(satellite: string): boolean {
-  if (typeof satellite !== 'string') throw new InvalidArgumentError('satellite', satellite, 'a satellite identifier such as "C03"');
+  if (typeof satellite !== 'string')
+    throw new InvalidArgumentError('satellite', satellite, 'a satellite identifier such as "C03"');
   const m = /^C(\d\d)$/.exec(satellite);
   if (!m) return false;
   const prn = Number(m[1]);
@@ -174,17 +184,42 @@ export function isBeidouGeostationary(satellite: string): boolean {
 }
 
 function validateRecord(eph: KeplerianBroadcastEphemeris, name = 'ephemeris'): void {
-  if (eph === null || typeof eph !== 'object') throw new InvalidArgumentError(name, eph, 'a broadcast ephemeris record');
+  if (eph === null || typeof eph !== 'object')
+    throw new InvalidArgumentError(name, eph, 'a broadcast ephemeris record');
   systemConstants(eph.system);
-  for (const key of ['tocSeconds', 'toeSeconds', 'af0', 'af1', 'af2', 'm0', 'deltaN', 'omega0', 'i0', 'argumentOfPerigee',
-    'omegaDot', 'idot', 'cuc', 'cus', 'cic', 'cis', 'crc', 'crs'] as const) {
+  for (const key of [
+    'tocSeconds',
+    'toeSeconds',
+    'af0',
+    'af1',
+    'af2',
+    'm0',
+    'deltaN',
+    'omega0',
+    'i0',
+    'argumentOfPerigee',
+    'omegaDot',
+    'idot',
+    'cuc',
+    'cus',
+    'cic',
+    'cis',
+    'crc',
+    'crs',
+  ] as const) {
     requireFinite(`${name}.${key}`, eph[key]);
   }
   const sqrtA = requireFinite(`${name}.sqrtA`, eph.sqrtA, 'a finite √A in √m');
   // √A between ~2500 √m (a = 6.3e6 m) and 1e5 √m: anything else is not an Earth orbit (plausibility bound, our own choice).
   if (!(sqrtA > 2500 && sqrtA < 1e5)) {
-    throw new InvalidArgumentError(`${name}.sqrtA`, sqrtA, 'in (2500, 100000) √m (square root of the semi-major axis in metres)',
-      sqrtA > 0 && sqrtA <= 2500 && sqrtA * Math.sqrt(1000) > 2500 ? 'did you give √A with A in kilometres?' : undefined);
+    throw new InvalidArgumentError(
+      `${name}.sqrtA`,
+      sqrtA,
+      'in (2500, 100000) √m (square root of the semi-major axis in metres)',
+      sqrtA > 0 && sqrtA <= 2500 && sqrtA * Math.sqrt(1000) > 2500
+        ? 'did you give √A with A in kilometres?'
+        : undefined,
+    );
   }
   const e = requireFinite(`${name}.eccentricity`, eph.eccentricity, 'in [0, 1)');
   if (e < 0 || e >= 1) throw new InvalidArgumentError(`${name}.eccentricity`, e, 'in [0, 1) for an elliptical orbit');
@@ -217,7 +252,10 @@ function validateRecord(eph: KeplerianBroadcastEphemeris, name = 'ephemeris'): v
  * @see IS-GPS-200 Table 20-IV and §20.3.3.3.3.1 [M]; Galileo OS SIS ICD §5.1.1, §5.1.4 [M];
  *   BDS-SIS-ICD B1I §5.2.4.10, §5.2.4.12 [M]. Constants: the system's ConstantSet, each field with its source and tag.
  */
-export function evaluateBroadcastEphemeris(ephemeris: KeplerianBroadcastEphemeris, time: Instant | Seconds): BroadcastEvaluation {
+export function evaluateBroadcastEphemeris(
+  ephemeris: KeplerianBroadcastEphemeris,
+  time: Instant | Seconds,
+): BroadcastEvaluation {
   validateRecord(ephemeris);
   const t = orbitTimeSeconds(time, ephemeris.system);
   const eph = ephemeris;
@@ -296,8 +334,12 @@ export function evaluateBroadcastEphemeris(ephemeris: KeplerianBroadcastEphemeri
     // d/dt[R_Z(ω t) p] = R_Z(ω t) ṗ + ω·(R_Z'(ω t)) p, with R_Z' p = (−sin·px + cos·py, −cos·px − sin·py, 0).
     const vx2 = cz * vx + sz * vy1 + omegaE * (-sz * x + cz * y1);
     const vy2 = -sz * vx + cz * vy1 + omegaE * (-cz * x - sz * y1);
-    x = x2; y = y2; z = z1;
-    vx = vx2; vy = vy2; vz = vz1;
+    x = x2;
+    y = y2;
+    z = z1;
+    vx = vx2;
+    vy = vy2;
+    vz = vz1;
   }
 
   // IS-GPS-200 §20.3.3.3.3.1 [M]: Δt_r = F e √A sin E_k.
@@ -338,11 +380,16 @@ export interface EphemerisSelectionOptions {
  * @returns The chosen record (the caller's own record type), or `undefined` when none is valid at t.
  * @throws {InvalidArgumentError} if `t` is not finite.
  */
-export function selectEphemeris<R extends KeplerianBroadcastEphemeris>(records: readonly R[], time: Instant | Seconds,
-  options: EphemerisSelectionOptions = {}): R | undefined {
+export function selectEphemeris<R extends KeplerianBroadcastEphemeris>(
+  records: readonly R[],
+  time: Instant | Seconds,
+  options: EphemerisSelectionOptions = {},
+): R | undefined {
   if (typeof time === 'number') requireFinite('t', time, 'a finite time in scale seconds');
-  else if (!(time instanceof Instant)) throw new InvalidArgumentError('t', time, 'an Instant, or a finite time in scale seconds');
-  if (!Array.isArray(records)) throw new InvalidArgumentError('records', records, 'an array of broadcast ephemeris records');
+  else if (!(time instanceof Instant))
+    throw new InvalidArgumentError('t', time, 'an Instant, or a finite time in scale seconds');
+  if (!Array.isArray(records))
+    throw new InvalidArgumentError('records', records, 'an array of broadcast ephemeris records');
   records.forEach((r, i) => {
     validateRecord(r, `records[${i}]`);
     requireFinite(`records[${i}].issueOfData`, r.issueOfData);

@@ -12,10 +12,11 @@
  *
  * @module
  */
-import type { Radians, RadiansPerSecond } from '../units.js';
+
 import { InvalidArgumentError } from '../errors.js';
-import { requireInstant, type Instant } from '../time/instant.js';
+import { type Instant, requireInstant } from '../time/instant.js';
 import type { TimeScales } from '../time/scales.js';
+import type { Radians, RadiansPerSecond } from '../units.js';
 
 const TWO_PI = 2 * Math.PI;
 

@@ -3,12 +3,18 @@
  *
  * @module
  */
-import type { CubicMetresPerSecondSquared, Dimensionless, Metres, Radians, Vector3 } from '../units.js';
+
+import { SPEED_OF_LIGHT } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
 import {
-  CONSTANT_SET_RANGES, requireEccentricity, requireFinite, requireInRange, requireOrbitRadius, requireVector3,
+  CONSTANT_SET_RANGES,
+  requireEccentricity,
+  requireFinite,
+  requireInRange,
+  requireOrbitRadius,
+  requireVector3,
 } from '../internal/validate.js';
-import { SPEED_OF_LIGHT } from '../constants.js';
+import type { CubicMetresPerSecondSquared, Dimensionless, Metres, Radians, Vector3 } from '../units.js';
 import { solveKepler, trueToEccentricAnomaly } from './kepler.js';
 
 /**
@@ -63,7 +69,8 @@ const MAX_DISTANCE = 1e13;
 
 /** Throws unless the field label a caller passes for error messages is a string. */
 function requireLabel(argument: unknown): void {
-  if (typeof argument !== 'string') throw new InvalidArgumentError('argument', argument, 'a string naming the field in error messages');
+  if (typeof argument !== 'string')
+    throw new InvalidArgumentError('argument', argument, 'a string naming the field in error messages');
 }
 
 /** True when `gm` is the Earth's (any constant set's value): the orbit must then clear the Earth, see requireOrbitRadius. */
@@ -78,17 +85,24 @@ function isEarthGm(gm: number): boolean {
 export function requireKeplerianElements(elements: unknown, argument = 'elements'): KeplerianElements {
   requireLabel(argument);
   if (typeof elements !== 'object' || elements === null) {
-    throw new InvalidArgumentError(argument, elements,
-      'an object { semiMajorAxis, eccentricity, inclination, raan, argumentOfPerigee, meanAnomaly } in metres and radians');
+    throw new InvalidArgumentError(
+      argument,
+      elements,
+      'an object { semiMajorAxis, eccentricity, inclination, raan, argumentOfPerigee, meanAnomaly } in metres and radians',
+    );
   }
   const el = elements as Record<string, unknown>;
   return {
-    semiMajorAxis: requireInRange(`${argument}.semiMajorAxis`, el['semiMajorAxis'], 1, MAX_DISTANCE, { unit: 'm' }),
-    eccentricity: requireEccentricity(`${argument}.eccentricity`, el['eccentricity']),
-    inclination: requireInRange(`${argument}.inclination`, el['inclination'], 0, Math.PI, { unit: 'rad' }),
-    raan: requireFinite(`${argument}.raan`, el['raan'], 'a finite angle in radians'),
-    argumentOfPerigee: requireFinite(`${argument}.argumentOfPerigee`, el['argumentOfPerigee'], 'a finite angle in radians'),
-    meanAnomaly: requireFinite(`${argument}.meanAnomaly`, el['meanAnomaly'], 'a finite angle in radians'),
+    semiMajorAxis: requireInRange(`${argument}.semiMajorAxis`, el.semiMajorAxis, 1, MAX_DISTANCE, { unit: 'm' }),
+    eccentricity: requireEccentricity(`${argument}.eccentricity`, el.eccentricity),
+    inclination: requireInRange(`${argument}.inclination`, el.inclination, 0, Math.PI, { unit: 'rad' }),
+    raan: requireFinite(`${argument}.raan`, el.raan, 'a finite angle in radians'),
+    argumentOfPerigee: requireFinite(
+      `${argument}.argumentOfPerigee`,
+      el.argumentOfPerigee,
+      'a finite angle in radians',
+    ),
+    meanAnomaly: requireFinite(`${argument}.meanAnomaly`, el.meanAnomaly, 'a finite angle in radians'),
   };
 }
 
@@ -103,8 +117,8 @@ export function requireStateVector(state: unknown, argument = 'state'): StateVec
   }
   const s = state as Record<string, unknown>;
   return {
-    position: requireVector3(`${argument}.position`, s['position'], 'm'),
-    velocity: requireVector3(`${argument}.velocity`, s['velocity'], 'm/s'),
+    position: requireVector3(`${argument}.position`, s.position, 'm'),
+    velocity: requireVector3(`${argument}.velocity`, s.velocity, 'm/s'),
   };
 }
 
@@ -125,7 +139,7 @@ export function requireStateVector(state: unknown, argument = 'state'): StateVec
  */
 export function elementsToState(elements: KeplerianElements, gm: CubicMetresPerSecondSquared): StateVector {
   const el = requireKeplerianElements(elements);
-  const mu = requireInRange('gm', gm, 0, 1e21, { minExclusive: true, unit: 'm³/s² (the Sun\'s is 1.3e20)' });
+  const mu = requireInRange('gm', gm, 0, 1e21, { minExclusive: true, unit: "m³/s² (the Sun's is 1.3e20)" });
   // With the Earth's GM, a semi-major axis inside the Earth is refused with the kilometre hint of meanClockRate.
   if (isEarthGm(mu)) requireOrbitRadius('elements.semiMajorAxis', el.semiMajorAxis);
   const { semiMajorAxis: a, eccentricity: e, inclination: i, raan, argumentOfPerigee: w } = el;
@@ -139,9 +153,12 @@ export function elementsToState(elements: KeplerianElements, gm: CubicMetresPerS
   const speedScale = Math.sqrt(mu * a) / r;
   const vxPf = -speedScale * sinE;
   const vyPf = speedScale * rootOneMinusE2 * cosE;
-  const cO = Math.cos(raan), sO = Math.sin(raan);
-  const cw = Math.cos(w), sw = Math.sin(w);
-  const ci = Math.cos(i), si = Math.sin(i);
+  const cO = Math.cos(raan),
+    sO = Math.sin(raan);
+  const cw = Math.cos(w),
+    sw = Math.sin(w);
+  const ci = Math.cos(i),
+    si = Math.sin(i);
   // Columns P (towards perigee) and Q (90° ahead in the orbit plane) of R3(−Ω)R1(−i)R3(−ω).
   const P = [cO * cw - sO * sw * ci, sO * cw + cO * sw * ci, sw * si] as const;
   const Q = [-cO * sw - sO * cw * ci, -sO * sw + cO * cw * ci, cw * si] as const;
@@ -175,25 +192,34 @@ export function elementsToState(elements: KeplerianElements, gm: CubicMetresPerS
  */
 export function stateToElements(state: StateVector, gm: CubicMetresPerSecondSquared): KeplerianElements {
   const { position: p, velocity: v } = requireStateVector(state);
-  const mu = requireInRange('gm', gm, 0, 1e21, { minExclusive: true, unit: 'm³/s² (the Sun\'s is 1.3e20)' });
+  const mu = requireInRange('gm', gm, 0, 1e21, { minExclusive: true, unit: "m³/s² (the Sun's is 1.3e20)" });
   const r = Math.hypot(p[0], p[1], p[2]);
   requireInRange('|state.position|', r, 1, MAX_DISTANCE, { unit: 'm' });
-  requireInRange('|state.velocity|', Math.hypot(v[0], v[1], v[2]), 0, SPEED_OF_LIGHT, { unit: 'm/s (below the speed of light)' });
+  requireInRange('|state.velocity|', Math.hypot(v[0], v[1], v[2]), 0, SPEED_OF_LIGHT, {
+    unit: 'm/s (below the speed of light)',
+  });
   const hx = p[1] * v[2] - p[2] * v[1];
   const hy = p[2] * v[0] - p[0] * v[2];
   const hz = p[0] * v[1] - p[1] * v[0];
   const hxy = Math.hypot(hx, hy);
   const h = Math.hypot(hxy, hz);
   if (!(h > 0)) {
-    throw new InvalidArgumentError('state.velocity', v, 'a velocity not parallel to the position (r × v ≠ 0)',
-      'rectilinear motion has no orbit plane');
+    throw new InvalidArgumentError(
+      'state.velocity',
+      v,
+      'a velocity not parallel to the position (r × v ≠ 0)',
+      'rectilinear motion has no orbit plane',
+    );
   }
   const v2 = v[0] * v[0] + v[1] * v[1] + v[2] * v[2];
   const energy = v2 / 2 - mu / r;
   if (!(energy < 0)) {
-    throw new InvalidArgumentError('state.velocity', v,
+    throw new InvalidArgumentError(
+      'state.velocity',
+      v,
       `a speed below escape speed √(2GM/r) = ${Math.sqrt((2 * mu) / r)} m/s for a bound (elliptical) orbit`,
-      `speed ${Math.sqrt(v2)} m/s gives a parabolic or hyperbolic trajectory`);
+      `speed ${Math.sqrt(v2)} m/s gives a parabolic or hyperbolic trajectory`,
+    );
   }
   const a = -mu / (2 * energy);
   const rv = p[0] * v[0] + p[1] * v[1] + p[2] * v[2];
@@ -207,9 +233,14 @@ export function stateToElements(state: StateVector, gm: CubicMetresPerSecondSqua
   const equatorial = hxy / h < EQUATORIAL_SIN_INCLINATION_THRESHOLD;
   const raan = equatorial ? 0 : Math.atan2(hx, -hy);
   // Node unit vector n̂ and the in-plane direction p̂ = ŵ × n̂ 90° ahead of it.
-  const nx = Math.cos(raan), ny = Math.sin(raan);
-  const wx = hx / h, wy = hy / h, wz = hz / h;
-  const px = -wz * ny, py = wz * nx, pz = wx * ny - wy * nx;
+  const nx = Math.cos(raan),
+    ny = Math.sin(raan);
+  const wx = hx / h,
+    wy = hy / h,
+    wz = hz / h;
+  const px = -wz * ny,
+    py = wz * nx,
+    pz = wx * ny - wy * nx;
   const u = Math.atan2(p[0] * px + p[1] * py + p[2] * pz, p[0] * nx + p[1] * ny);
   const circular = e < CIRCULAR_ECCENTRICITY_THRESHOLD;
   const nu = circular ? u : Math.atan2(eSinNu, eCosNu);

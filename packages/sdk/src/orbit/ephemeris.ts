@@ -17,9 +17,10 @@
  *
  * @module
  */
-import type { Seconds, Vector3 } from '../units.js';
-import { requireFinite } from '../internal/validate.js';
+
 import { InvalidArgumentError } from '../errors.js';
+import { requireFinite } from '../internal/validate.js';
+import type { Seconds, Vector3 } from '../units.js';
 
 /**
  * Which equatorial frame the positions are expressed in: `mean-of-date` (mean equator and
@@ -58,7 +59,7 @@ function twoProduct(a: number, b: number): [number, number] {
   t = SPLITTER * b;
   const bh = t - (t - b);
   const bl = b - bh;
-  const lo = al * bl - (((hi - ah * bh) - al * bh) - ah * bl);
+  const lo = al * bl - (hi - ah * bh - al * bh - ah * bl);
   return [hi, lo];
 }
 
@@ -84,7 +85,8 @@ function centuriesOf(epoch: Seconds, offset: Seconds): number {
 }
 
 function checkFrame(frame: unknown): EphemerisFrame {
-  if (frame !== 'mean-of-date' && frame !== 'eme2000') throw new InvalidArgumentError('frame', frame, '"mean-of-date" or "eme2000"');
+  if (frame !== 'mean-of-date' && frame !== 'eme2000')
+    throw new InvalidArgumentError('frame', frame, '"mean-of-date" or "eme2000"');
   return frame;
 }
 
@@ -124,20 +126,45 @@ export function moonPositionAt(epoch: Seconds, offset: Seconds, ofDate: boolean)
   const F = meanArgument(93.27283, 483202.01873, epoch, offset);
   const D = meanArgument(297.85027, 445267.11135, epoch, offset);
   // Eq. (3.48): longitude perturbations, in arcseconds.
-  const dL = 22640 * Math.sin(l) + 769 * Math.sin(2 * l) - 4586 * Math.sin(l - 2 * D) + 2370 * Math.sin(2 * D)
-    - 668 * Math.sin(lp) - 412 * Math.sin(2 * F) - 212 * Math.sin(2 * l - 2 * D) - 206 * Math.sin(l + lp - 2 * D)
-    + 192 * Math.sin(l + 2 * D) - 165 * Math.sin(lp - 2 * D) + 148 * Math.sin(l - lp) - 125 * Math.sin(D)
-    - 110 * Math.sin(l + lp) - 55 * Math.sin(2 * F - 2 * D);
+  const dL =
+    22640 * Math.sin(l) +
+    769 * Math.sin(2 * l) -
+    4586 * Math.sin(l - 2 * D) +
+    2370 * Math.sin(2 * D) -
+    668 * Math.sin(lp) -
+    412 * Math.sin(2 * F) -
+    212 * Math.sin(2 * l - 2 * D) -
+    206 * Math.sin(l + lp - 2 * D) +
+    192 * Math.sin(l + 2 * D) -
+    165 * Math.sin(lp - 2 * D) +
+    148 * Math.sin(l - lp) -
+    125 * Math.sin(D) -
+    110 * Math.sin(l + lp) -
+    55 * Math.sin(2 * F - 2 * D);
   const lon = L0 + dL * ARCSEC;
   // Eq. (3.48): latitude.
   const S = F + (dL + 412 * Math.sin(2 * F) + 541 * Math.sin(lp)) * ARCSEC;
   const h = F - 2 * D;
-  const N = -526 * Math.sin(h) + 44 * Math.sin(l + h) - 31 * Math.sin(-l + h) - 23 * Math.sin(lp + h)
-    + 11 * Math.sin(-lp + h) - 25 * Math.sin(-2 * l + F) + 21 * Math.sin(-l + F);
+  const N =
+    -526 * Math.sin(h) +
+    44 * Math.sin(l + h) -
+    31 * Math.sin(-l + h) -
+    23 * Math.sin(lp + h) +
+    11 * Math.sin(-lp + h) -
+    25 * Math.sin(-2 * l + F) +
+    21 * Math.sin(-l + F);
   const lat = (18520 * Math.sin(S) + N) * ARCSEC;
   // Eq. (3.49): distance, in km.
-  const rKm = 385000 - 20905 * Math.cos(l) - 3699 * Math.cos(2 * D - l) - 2956 * Math.cos(2 * D) - 570 * Math.cos(2 * l)
-    + 246 * Math.cos(2 * l - 2 * D) - 205 * Math.cos(lp - 2 * D) - 171 * Math.cos(l + 2 * D) - 152 * Math.cos(l + lp - 2 * D);
+  const rKm =
+    385000 -
+    20905 * Math.cos(l) -
+    3699 * Math.cos(2 * D - l) -
+    2956 * Math.cos(2 * D) -
+    570 * Math.cos(2 * l) +
+    246 * Math.cos(2 * l - 2 * D) -
+    205 * Math.cos(lp - 2 * D) -
+    171 * Math.cos(l + 2 * D) -
+    152 * Math.cos(l + lp - 2 * D);
   return ofDate
     ? eclipticToEquatorial(lon + PRECESSION_IN_LONGITUDE * T, lat, rKm * 1000, OBLIQUITY_J2000 + OBLIQUITY_RATE * T)
     : eclipticToEquatorial(lon, lat, rKm * 1000, OBLIQUITY_J2000);
@@ -176,7 +203,10 @@ export function sunPositionLowPrecision(ttSecondsSinceJ2000: Seconds, frame: Eph
  * @throws {InvalidArgumentError} for a non-finite epoch or an unknown frame.
  * @see O. Montenbruck & E. Gill, Satellite Orbits (2000), §3.3.2, eqs. (3.47)–(3.49) [M].
  */
-export function moonPositionLowPrecision(ttSecondsSinceJ2000: Seconds, frame: EphemerisFrame = 'mean-of-date'): Vector3 {
+export function moonPositionLowPrecision(
+  ttSecondsSinceJ2000: Seconds,
+  frame: EphemerisFrame = 'mean-of-date',
+): Vector3 {
   return moonPositionAt(checkEpoch(ttSecondsSinceJ2000), 0, checkFrame(frame) === 'mean-of-date');
 }
 

@@ -17,10 +17,18 @@
  *
  * @module
  */
-import type { CubicMetresPerSecondSquared, Metres, Seconds, SquareMetresPerSecondSquared, Vector3 } from '../units.js';
-import { DEFAULT_CONSTANT_SET, type ConstantSet } from '../constants.js';
+
+import { type ConstantSet, DEFAULT_CONSTANT_SET } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
-import { requireConstantSet, requireFinite, requireInRange, requireOptions, requirePositive, requireVector3 } from '../internal/validate.js';
+import {
+  requireConstantSet,
+  requireFinite,
+  requireInRange,
+  requireOptions,
+  requirePositive,
+  requireVector3,
+} from '../internal/validate.js';
+import type { CubicMetresPerSecondSquared, Metres, Seconds, SquareMetresPerSecondSquared, Vector3 } from '../units.js';
 import { moonPositionAt, sunPositionAt } from './ephemeris.js';
 
 /** Gravitational parameter of the Moon, 4.902800066e12 m³/s² (JPL DE-series value) [M]. */
@@ -68,9 +76,11 @@ export interface GravityField {
  * @see IERS Conventions (2010), IERS TN 36, §10.2 eqs. 10.6–10.9 [V1].
  */
 export function createGravityField(model: GravityModel, options: GravityFieldOptions = {}): GravityField {
-  if (!GRAVITY_MODELS.includes(model)) throw new InvalidArgumentError('model', model, `one of ${GRAVITY_MODELS.join(', ')}`);
+  if (!GRAVITY_MODELS.includes(model))
+    throw new InvalidArgumentError('model', model, `one of ${GRAVITY_MODELS.join(', ')}`);
   requireOptions('options', options);
-  const constants = options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet('options.constants', options.constants);
+  const constants =
+    options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet('options.constants', options.constants);
   const gm = constants.gm;
   const k = model === 'point-mass' ? 0 : gm * constants.j2 * constants.equatorialRadius ** 2;
   const epoch = requireFinite('epochTtSecondsSinceJ2000', options.epochTtSecondsSinceJ2000 ?? 0);
@@ -170,9 +180,12 @@ function tidal(gmB: number, b: Vector3, x: number, y: number, z: number): number
  * @throws {InvalidArgumentError} for a non-finite position, |r| outside [1, 1e13] m, or GM outside (0, 1e21] m³/s².
  * @see IERS Conventions (2010) §10.2 (U_E, positive convention) [V1].
  */
-export function pointMassPotential(position: Vector3, gm: CubicMetresPerSecondSquared = DEFAULT_CONSTANT_SET.gm): SquareMetresPerSecondSquared {
+export function pointMassPotential(
+  position: Vector3,
+  gm: CubicMetresPerSecondSquared = DEFAULT_CONSTANT_SET.gm,
+): SquareMetresPerSecondSquared {
   const [x, y, z] = requireVector3('position', position, 'metres');
-  requireInRange('gm', gm, 0, 1e21, { minExclusive: true, unit: 'm³/s² (the Sun\'s is 1.3e20)' });
+  requireInRange('gm', gm, 0, 1e21, { minExclusive: true, unit: "m³/s² (the Sun's is 1.3e20)" });
   const r = nonZero(x, y, z);
   return gm / r;
 }
@@ -184,11 +197,16 @@ export function pointMassPotential(position: Vector3, gm: CubicMetresPerSecondSq
  * @throws {InvalidArgumentError} for a non-finite position, |r| outside [1, 1e13] m or a malformed constant set.
  * @see W. A. Heiskanen & H. Moritz, Physical Geodesy (1967), §2-9 zonal harmonics [M]; sign convention of IERS 2010 §10.2 [V1].
  */
-export function j2Potential(position: Vector3, constants: ConstantSet = DEFAULT_CONSTANT_SET): SquareMetresPerSecondSquared {
+export function j2Potential(
+  position: Vector3,
+  constants: ConstantSet = DEFAULT_CONSTANT_SET,
+): SquareMetresPerSecondSquared {
   const [x, y, z] = requireVector3('position', position, 'metres');
   requireConstantSet('constants', constants);
   const r = nonZero(x, y, z);
-  return (-(constants.gm * constants.j2 * constants.equatorialRadius ** 2) / (2 * r ** 3)) * ((3 * z * z) / (r * r) - 1);
+  return (
+    (-(constants.gm * constants.j2 * constants.equatorialRadius ** 2) / (2 * r ** 3)) * ((3 * z * z) / (r * r) - 1)
+  );
 }
 
 /**
@@ -199,10 +217,14 @@ export function j2Potential(position: Vector3, constants: ConstantSet = DEFAULT_
  * @throws {InvalidArgumentError} for non-finite vectors, distances outside [1, 1e13] m, the body within 1 m of the position, or GM outside (0, 1e21] m³/s².
  * @see IERS Conventions (2010) §10.2 eq. 10.6 (tidal terms V(X_A) − V(X_E) − x^i ∂_i V(X_E)) [V1].
  */
-export function thirdBodyTidalPotential(position: Vector3, bodyPosition: Vector3, gmBody: CubicMetresPerSecondSquared): SquareMetresPerSecondSquared {
+export function thirdBodyTidalPotential(
+  position: Vector3,
+  bodyPosition: Vector3,
+  gmBody: CubicMetresPerSecondSquared,
+): SquareMetresPerSecondSquared {
   const [x, y, z] = requireVector3('position', position, 'metres');
   const b = requireVector3('bodyPosition', bodyPosition, 'metres');
-  requireInRange('gmBody', gmBody, 0, 1e21, { minExclusive: true, unit: 'm³/s² (the Sun\'s is 1.3e20)' });
+  requireInRange('gmBody', gmBody, 0, 1e21, { minExclusive: true, unit: "m³/s² (the Sun's is 1.3e20)" });
   nonZero(x, y, z);
   nonZero(b[0], b[1], b[2], 'bodyPosition');
   separated(x, y, z, b);
@@ -217,10 +239,14 @@ export function thirdBodyTidalPotential(position: Vector3, bodyPosition: Vector3
  * @throws {InvalidArgumentError} for non-finite vectors, distances outside [1, 1e13] m, the body within 1 m of the position, or GM outside (0, 1e21] m³/s².
  * @see O. Montenbruck & E. Gill, Satellite Orbits (2000), eq. (3.37) [M].
  */
-export function thirdBodyAcceleration(position: Vector3, bodyPosition: Vector3, gmBody: CubicMetresPerSecondSquared): Vector3 {
+export function thirdBodyAcceleration(
+  position: Vector3,
+  bodyPosition: Vector3,
+  gmBody: CubicMetresPerSecondSquared,
+): Vector3 {
   const [x, y, z] = requireVector3('position', position, 'metres');
   const b = requireVector3('bodyPosition', bodyPosition, 'metres');
-  requireInRange('gmBody', gmBody, 0, 1e21, { minExclusive: true, unit: 'm³/s² (the Sun\'s is 1.3e20)' });
+  requireInRange('gmBody', gmBody, 0, 1e21, { minExclusive: true, unit: "m³/s² (the Sun's is 1.3e20)" });
   nonZero(x, y, z);
   nonZero(b[0], b[1], b[2], 'bodyPosition');
   separated(x, y, z, b);
@@ -234,7 +260,11 @@ const MAX_DISTANCE = 1e13;
 function nonZero(x: number, y: number, z: number, argument = 'position'): Metres {
   const r = Math.hypot(x, y, z);
   if (!(r >= MIN_DISTANCE && r <= MAX_DISTANCE)) {
-    throw new InvalidArgumentError(argument, [x, y, z], `a vector of length in [${MIN_DISTANCE}, ${MAX_DISTANCE}] m (the potential is singular at the origin)`);
+    throw new InvalidArgumentError(
+      argument,
+      [x, y, z],
+      `a vector of length in [${MIN_DISTANCE}, ${MAX_DISTANCE}] m (the potential is singular at the origin)`,
+    );
   }
   return r;
 }
@@ -243,6 +273,10 @@ function nonZero(x: number, y: number, z: number, argument = 'position'): Metres
 function separated(x: number, y: number, z: number, b: Vector3): void {
   const d = Math.hypot(b[0] - x, b[1] - y, b[2] - z);
   if (!(d >= MIN_DISTANCE)) {
-    throw new InvalidArgumentError('bodyPosition', b, `a point at least ${MIN_DISTANCE} m from position [${x}, ${y}, ${z}] m`);
+    throw new InvalidArgumentError(
+      'bodyPosition',
+      b,
+      `a point at least ${MIN_DISTANCE} m from position [${x}, ${y}, ${z}] m`,
+    );
   }
 }

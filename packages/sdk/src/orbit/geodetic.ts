@@ -5,9 +5,10 @@
  *
  * @module
  */
-import type { Metres, Radians, Vector3 } from '../units.js';
+
 import { InvalidArgumentError } from '../errors.js';
 import { requireFinite, requireInRange, requireObject, requireVector3 } from '../internal/validate.js';
+import type { Metres, Radians, Vector3 } from '../units.js';
 
 /**
  * WGS 84 semi-major axis (m) and flattening: a = 6 378 137 m, 1/f = 298.257223563 (NIMA TR8350.2, 3rd ed. 2000,
@@ -36,18 +37,27 @@ const HEIGHT_RANGE = { min: -12_000, max: 1e7 } as const;
 export function requireGeodeticPosition(value: unknown, argument = 'position'): GeodeticPosition {
   const expected = 'an object { latitude, longitude, height } in radians and metres';
   const p = requireObject(argument, value as object, expected) as Record<string, unknown>;
-  const lat = requireFinite(`${argument}.latitude`, p['latitude'], 'a finite angle in radians, in [−π/2, π/2]');
+  const lat = requireFinite(`${argument}.latitude`, p.latitude, 'a finite angle in radians, in [−π/2, π/2]');
   if (Math.abs(lat) > Math.PI / 2) {
-    throw new InvalidArgumentError(`${argument}.latitude`, lat, 'in [−π/2, π/2] rad',
-      Math.abs(lat) <= 90 ? `${lat} looks like degrees; ${lat}° = ${(lat * Math.PI) / 180} rad` : undefined);
+    throw new InvalidArgumentError(
+      `${argument}.latitude`,
+      lat,
+      'in [−π/2, π/2] rad',
+      Math.abs(lat) <= 90 ? `${lat} looks like degrees; ${lat}° = ${(lat * Math.PI) / 180} rad` : undefined,
+    );
   }
-  const lon = requireFinite(`${argument}.longitude`, p['longitude'], 'a finite angle in radians, in [−2π, 2π]');
+  const lon = requireFinite(`${argument}.longitude`, p.longitude, 'a finite angle in radians, in [−2π, 2π]');
   if (Math.abs(lon) > 2 * Math.PI) {
-    throw new InvalidArgumentError(`${argument}.longitude`, lon, 'in [−2π, 2π] rad',
-      Math.abs(lon) <= 360 ? `${lon} looks like degrees; ${lon}° = ${(lon * Math.PI) / 180} rad` : undefined);
+    throw new InvalidArgumentError(
+      `${argument}.longitude`,
+      lon,
+      'in [−2π, 2π] rad',
+      Math.abs(lon) <= 360 ? `${lon} looks like degrees; ${lon}° = ${(lon * Math.PI) / 180} rad` : undefined,
+    );
   }
-  const height = requireInRange(`${argument}.height`, p['height'], HEIGHT_RANGE.min, HEIGHT_RANGE.max,
-    { unit: 'm above the ellipsoid' });
+  const height = requireInRange(`${argument}.height`, p.height, HEIGHT_RANGE.min, HEIGHT_RANGE.max, {
+    unit: 'm above the ellipsoid',
+  });
   return { latitude: lat, longitude: lon, height };
 }
 
@@ -106,7 +116,9 @@ export function elevationFromStation(station: GeodeticPosition, pointEcef: Vecto
   const p = requireVector3('pointEcef', pointEcef, 'metres');
   const r = geodeticToEcefTrusted(s.latitude, s.longitude, s.height);
   const up = localUp(s.latitude, s.longitude);
-  const dx = p[0] - r[0], dy = p[1] - r[1], dz = p[2] - r[2];
+  const dx = p[0] - r[0],
+    dy = p[1] - r[1],
+    dz = p[2] - r[2];
   const range = Math.hypot(dx, dy, dz);
   if (!(range > 0)) {
     throw new InvalidArgumentError('pointEcef', pointEcef, 'a point other than the station (elevation undefined)');

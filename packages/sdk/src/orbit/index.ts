@@ -1,36 +1,85 @@
 /** Two-body orbits: Kepler's equation, elements ↔ state vectors, propagation. */
+
 export {
-  KEPLER_RESIDUAL_TOLERANCE, keplerTolerance, solveKepler, eccentricToTrueAnomaly, trueToEccentricAnomaly,
-  eccentricToMeanAnomaly, meanMotion, orbitalPeriod,
-} from './kepler.js';
-export {
-  type KeplerianElements, type StateVector, CIRCULAR_ECCENTRICITY_THRESHOLD, EQUATORIAL_SIN_INCLINATION_THRESHOLD,
-  elementsToState, stateToElements, requireKeplerianElements, requireStateVector,
-} from './elements.js';
-export { propagateKepler, propagateKeplerState } from './propagate.js';
-export {
-  type KeplerianSystem, type KeplerianNavMessage, type KeplerianBroadcastEphemeris, type BroadcastEvaluation,
-  type EphemerisSelectionOptions, systemConstants, defaultFitIntervalSeconds, weekCrossover,
-  isBeidouGeostationary, evaluateBroadcastEphemeris, selectEphemeris, orbitTimeSeconds, SYSTEM_TIME_SCALE,
+  type BroadcastEvaluation,
+  defaultFitIntervalSeconds,
+  type EphemerisSelectionOptions,
+  evaluateBroadcastEphemeris,
+  isBeidouGeostationary,
+  type KeplerianBroadcastEphemeris,
+  type KeplerianNavMessage,
+  type KeplerianSystem,
+  orbitTimeSeconds,
+  SYSTEM_TIME_SCALE,
+  selectEphemeris,
+  systemConstants,
+  weekCrossover,
 } from './broadcast.js';
+export { EARTH_ROTATION_ANGLE_RATE, earthRotationAngle } from './earth-rotation.js';
 export {
-  type BroadcastSignal, type GroupDelayField, type SignalClockCorrection, BROADCAST_SIGNALS, GPS_GAMMA_L1_L2,
-  GALILEO_GAMMA_E1_E5A, GALILEO_GAMMA_E1_E5B, isBroadcastSignal, signalClockCorrection, signalClockSource, signalsOf,
-} from './signal-clock.js';
-export { type OdeRightHandSide, type Dop853Options, type Dop853Result, integrateDop853 } from './integrator.js';
+  CIRCULAR_ECCENTRICITY_THRESHOLD,
+  EQUATORIAL_SIN_INCLINATION_THRESHOLD,
+  elementsToState,
+  type KeplerianElements,
+  requireKeplerianElements,
+  requireStateVector,
+  type StateVector,
+  stateToElements,
+} from './elements.js';
 export {
-  type GravityModel, type GravityField, type GravityFieldOptions, GRAVITY_MODELS, GM_MOON, GM_SUN, createGravityField,
-  pointMassPotential, j2Potential, thirdBodyTidalPotential, thirdBodyAcceleration,
-} from './forces.js';
-export {
-  type EphemerisFrame, LOW_PRECISION_EPHEMERIS_NAME, sunPositionLowPrecision, moonPositionLowPrecision,
+  type EphemerisFrame,
+  LOW_PRECISION_EPHEMERIS_NAME,
+  moonPositionLowPrecision,
+  sunPositionLowPrecision,
 } from './ephemeris.js';
 export {
-  type GeodeticPosition, geodeticToEcef, elevationFromStation,
-} from './geodetic.js';
-export { EARTH_ROTATION_ANGLE_RATE, earthRotationAngle } from './earth-rotation.js';
+  createGravityField,
+  GM_MOON,
+  GM_SUN,
+  GRAVITY_MODELS,
+  type GravityField,
+  type GravityFieldOptions,
+  type GravityModel,
+  j2Potential,
+  pointMassPotential,
+  thirdBodyAcceleration,
+  thirdBodyTidalPotential,
+} from './forces.js';
+export { elevationFromStation, type GeodeticPosition, geodeticToEcef } from './geodetic.js';
+export { type Dop853Options, type Dop853Result, integrateDop853, type OdeRightHandSide } from './integrator.js';
 export { type J2SecularRates, j2SecularRates, propagateJ2Secular } from './j2-secular.js';
 export {
-  type MeanOrbit, type GroundSite, type PredictedPass, type PassPrediction, type PassPredictionOptions, PASS_TIME_TOLERANCE_SECONDS,
-  MAX_PASS_PROPAGATION_SECONDS, satellitePositionEcef, predictPasses,
+  eccentricToMeanAnomaly,
+  eccentricToTrueAnomaly,
+  KEPLER_RESIDUAL_TOLERANCE,
+  keplerTolerance,
+  meanMotion,
+  orbitalPeriod,
+  solveKepler,
+  trueToEccentricAnomaly,
+} from './kepler.js';
+export { propagateKepler, propagateKeplerState } from './propagate.js';
+export {
+  BROADCAST_SIGNALS,
+  type BroadcastSignal,
+  GALILEO_GAMMA_E1_E5A,
+  GALILEO_GAMMA_E1_E5B,
+  GPS_GAMMA_L1_L2,
+  type GroupDelayField,
+  isBroadcastSignal,
+  type SignalClockCorrection,
+  signalClockCorrection,
+  signalClockSource,
+  signalsOf,
+} from './signal-clock.js';
+export {
+  type GroundSite,
+  MAX_PASS_PROPAGATION_SECONDS,
+  type MeanOrbit,
+  PASS_TIME_TOLERANCE_SECONDS,
+  type PassPrediction,
+  type PassPredictionOptions,
+  type PredictedPass,
+  predictPasses,
+  satellitePositionEcef,
 } from './visibility.js';

@@ -58,7 +58,10 @@ export interface Dop853Result {
 
 // Dormand & Prince (1981) 8(5,3) coefficients, as published (Hairer, Nørsett & Wanner 1993, §II.5; the
 // three extra stages 14–16 and the matrix D are the dense-output extension of §II.6).
-const C: readonly number[] = [0.0, 0.05260015195876773, 0.0789002279381516, 0.1183503419072274, 0.2816496580927726, 0.3333333333333333, 0.25, 0.3076923076923077, 0.6512820512820513, 0.6, 0.8571428571428571, 1.0, 1.0, 0.1, 0.2, 0.7777777777777778];
+const C: readonly number[] = [
+  0.0, 0.05260015195876773, 0.0789002279381516, 0.1183503419072274, 0.2816496580927726, 0.3333333333333333, 0.25,
+  0.3076923076923077, 0.6512820512820513, 0.6, 0.8571428571428571, 1.0, 1.0, 0.1, 0.2, 0.7777777777777778,
+];
 const A: readonly (readonly number[])[] = [
   [],
   [0.05260015195876773],
@@ -67,24 +70,76 @@ const A: readonly (readonly number[])[] = [
   [0.2413651341592667, 0.0, -0.8845494793282861, 0.924834003261792],
   [0.037037037037037035, 0.0, 0.0, 0.17082860872947386, 0.12546768756682242],
   [0.037109375, 0.0, 0.0, 0.17025221101954405, 0.06021653898045596, -0.017578125],
-  [0.03709200011850479, 0.0, 0.0, 0.17038392571223998, 0.10726203044637328, -0.015319437748624402, 0.008273789163814023],
-  [0.6241109587160757, 0.0, 0.0, -3.3608926294469414, -0.868219346841726, 27.59209969944671, 20.154067550477894, -43.48988418106996],
-  [0.47766253643826434, 0.0, 0.0, -2.4881146199716677, -0.590290826836843, 21.230051448181193, 15.279233632882423, -33.28821096898486, -0.020331201708508627],
-  [-0.9371424300859873, 0.0, 0.0, 5.186372428844064, 1.0914373489967295, -8.149787010746927, -18.52006565999696, 22.739487099350505, 2.4936055526796523, -3.0467644718982196],
-  [2.273310147516538, 0.0, 0.0, -10.53449546673725, -2.0008720582248625, -17.9589318631188, 27.94888452941996, -2.8589982771350235, -8.87285693353063, 12.360567175794303, 0.6433927460157636],
-  [0.054293734116568765, 0.0, 0.0, 0.0, 0.0, 4.450312892752409, 1.8915178993145003, -5.801203960010585, 0.3111643669578199, -0.1521609496625161, 0.20136540080403034, 0.04471061572777259],
-  [0.056167502283047954, 0.0, 0.0, 0.0, 0.0, 0.0, 0.25350021021662483, -0.2462390374708025, -0.12419142326381637, 0.15329179827876568, 0.00820105229563469, 0.007567897660545699, -0.008298],
-  [0.03183464816350214, 0.0, 0.0, 0.0, 0.0, 0.028300909672366776, 0.053541988307438566, -0.05492374857139099, 0.0, 0.0, -0.00010834732869724932, 0.0003825710908356584, -0.00034046500868740456, 0.1413124436746325],
-  [-0.42889630158379194, 0.0, 0.0, 0.0, 0.0, -4.697621415361164, 7.683421196062599, 4.06898981839711, 0.3567271874552811, 0.0, 0.0, 0.0, -0.0013990241651590145, 2.9475147891527724, -9.15095847217987],
+  [
+    0.03709200011850479, 0.0, 0.0, 0.17038392571223998, 0.10726203044637328, -0.015319437748624402,
+    0.008273789163814023,
+  ],
+  [
+    0.6241109587160757, 0.0, 0.0, -3.3608926294469414, -0.868219346841726, 27.59209969944671, 20.154067550477894,
+    -43.48988418106996,
+  ],
+  [
+    0.47766253643826434, 0.0, 0.0, -2.4881146199716677, -0.590290826836843, 21.230051448181193, 15.279233632882423,
+    -33.28821096898486, -0.020331201708508627,
+  ],
+  [
+    -0.9371424300859873, 0.0, 0.0, 5.186372428844064, 1.0914373489967295, -8.149787010746927, -18.52006565999696,
+    22.739487099350505, 2.4936055526796523, -3.0467644718982196,
+  ],
+  [
+    2.273310147516538, 0.0, 0.0, -10.53449546673725, -2.0008720582248625, -17.9589318631188, 27.94888452941996,
+    -2.8589982771350235, -8.87285693353063, 12.360567175794303, 0.6433927460157636,
+  ],
+  [
+    0.054293734116568765, 0.0, 0.0, 0.0, 0.0, 4.450312892752409, 1.8915178993145003, -5.801203960010585,
+    0.3111643669578199, -0.1521609496625161, 0.20136540080403034, 0.04471061572777259,
+  ],
+  [
+    0.056167502283047954, 0.0, 0.0, 0.0, 0.0, 0.0, 0.25350021021662483, -0.2462390374708025, -0.12419142326381637,
+    0.15329179827876568, 0.00820105229563469, 0.007567897660545699, -0.008298,
+  ],
+  [
+    0.03183464816350214, 0.0, 0.0, 0.0, 0.0, 0.028300909672366776, 0.053541988307438566, -0.05492374857139099, 0.0, 0.0,
+    -0.00010834732869724932, 0.0003825710908356584, -0.00034046500868740456, 0.1413124436746325,
+  ],
+  [
+    -0.42889630158379194, 0.0, 0.0, 0.0, 0.0, -4.697621415361164, 7.683421196062599, 4.06898981839711,
+    0.3567271874552811, 0.0, 0.0, 0.0, -0.0013990241651590145, 2.9475147891527724, -9.15095847217987,
+  ],
 ];
-const B: readonly number[] = [0.054293734116568765, 0.0, 0.0, 0.0, 0.0, 4.450312892752409, 1.8915178993145003, -5.801203960010585, 0.3111643669578199, -0.1521609496625161, 0.20136540080403034, 0.04471061572777259];
-const E3: readonly number[] = [-0.18980075407240762, 0.0, 0.0, 0.0, 0.0, 4.450312892752409, 1.8915178993145003, -5.801203960010585, -0.4226823213237919, -0.1521609496625161, 0.20136540080403034, 0.02265179219836082, 0.0];
-const E5: readonly number[] = [0.01312004499419488, 0.0, 0.0, 0.0, 0.0, -1.2251564463762044, -0.4957589496572502, 1.6643771824549864, -0.35032884874997366, 0.3341791187130175, 0.08192320648511571, -0.022355307863886294, 0.0];
+const B: readonly number[] = [
+  0.054293734116568765, 0.0, 0.0, 0.0, 0.0, 4.450312892752409, 1.8915178993145003, -5.801203960010585,
+  0.3111643669578199, -0.1521609496625161, 0.20136540080403034, 0.04471061572777259,
+];
+const E3: readonly number[] = [
+  -0.18980075407240762, 0.0, 0.0, 0.0, 0.0, 4.450312892752409, 1.8915178993145003, -5.801203960010585,
+  -0.4226823213237919, -0.1521609496625161, 0.20136540080403034, 0.02265179219836082, 0.0,
+];
+const E5: readonly number[] = [
+  0.01312004499419488, 0.0, 0.0, 0.0, 0.0, -1.2251564463762044, -0.4957589496572502, 1.6643771824549864,
+  -0.35032884874997366, 0.3341791187130175, 0.08192320648511571, -0.022355307863886294, 0.0,
+];
 const D: readonly (readonly number[])[] = [
-  [-8.428938276109013, 0.0, 0.0, 0.0, 0.0, 0.5667149535193777, -3.0689499459498917, 2.38466765651207, 2.117034582445028, -0.871391583777973, 2.2404374302607883, 0.6315787787694688, -0.08899033645133331, 18.148505520854727, -9.194632392478356, -4.436036387594894],
-  [10.427508642579134, 0.0, 0.0, 0.0, 0.0, 242.28349177525817, 165.20045171727028, -374.5467547226902, -22.113666853125306, 7.733432668472264, -30.674084731089398, -9.332130526430229, 15.697238121770845, -31.139403219565178, -9.35292435884448, 35.81684148639408],
-  [19.985053242002433, 0.0, 0.0, 0.0, 0.0, -387.0373087493518, -189.17813819516758, 527.8081592054236, -11.57390253995963, 6.8812326946963, -1.0006050966910838, 0.7777137798053443, -2.778205752353508, -60.19669523126412, 84.32040550667716, 11.99229113618279],
-  [-25.69393346270375, 0.0, 0.0, 0.0, 0.0, -154.18974869023643, -231.5293791760455, 357.6391179106141, 93.40532418362432, -37.45832313645163, 104.0996495089623, 29.8402934266605, -43.53345659001114, 96.32455395918828, -39.17726167561544, -149.72683625798564],
+  [
+    -8.428938276109013, 0.0, 0.0, 0.0, 0.0, 0.5667149535193777, -3.0689499459498917, 2.38466765651207,
+    2.117034582445028, -0.871391583777973, 2.2404374302607883, 0.6315787787694688, -0.08899033645133331,
+    18.148505520854727, -9.194632392478356, -4.436036387594894,
+  ],
+  [
+    10.427508642579134, 0.0, 0.0, 0.0, 0.0, 242.28349177525817, 165.20045171727028, -374.5467547226902,
+    -22.113666853125306, 7.733432668472264, -30.674084731089398, -9.332130526430229, 15.697238121770845,
+    -31.139403219565178, -9.35292435884448, 35.81684148639408,
+  ],
+  [
+    19.985053242002433, 0.0, 0.0, 0.0, 0.0, -387.0373087493518, -189.17813819516758, 527.8081592054236,
+    -11.57390253995963, 6.8812326946963, -1.0006050966910838, 0.7777137798053443, -2.778205752353508,
+    -60.19669523126412, 84.32040550667716, 11.99229113618279,
+  ],
+  [
+    -25.69393346270375, 0.0, 0.0, 0.0, 0.0, -154.18974869023643, -231.5293791760455, 357.6391179106141,
+    93.40532418362432, -37.45832313645163, 104.0996495089623, 29.8402934266605, -43.53345659001114, 96.32455395918828,
+    -39.17726167561544, -149.72683625798564,
+  ],
 ];
 
 /** Number of stages of the 8th-order step (the 13th is f at the new point, reused by the next step). */
@@ -96,7 +151,12 @@ const SAFETY = 0.9;
 const MIN_FACTOR = 0.2;
 const MAX_FACTOR = 10;
 
-interface Segment { t0: number; h: number; y0: Float64Array; F: Float64Array }
+interface Segment {
+  t0: number;
+  h: number;
+  y0: Float64Array;
+  F: Float64Array;
+}
 
 /** Largest `maxSteps` accepted (ten million steps: minutes of work, the bound on any one call). */
 const MAX_STEPS_LIMIT = 10_000_000;
@@ -114,9 +174,17 @@ interface Dop853Setup {
   readonly keep: boolean;
 }
 
-function setupDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<number>, tEnd: number, options: Dop853Options): Dop853Setup {
-  if (typeof f !== 'function') throw new InvalidArgumentError('f', f, 'a function (t, y, dydt) writing the derivative into dydt');
-  if (!Array.isArray(y0) && !(y0 instanceof Float64Array)) throw new InvalidArgumentError('y0', y0, 'an array of finite numbers');
+function setupDop853(
+  f: OdeRightHandSide,
+  t0: number,
+  y0: ArrayLike<number>,
+  tEnd: number,
+  options: Dop853Options,
+): Dop853Setup {
+  if (typeof f !== 'function')
+    throw new InvalidArgumentError('f', f, 'a function (t, y, dydt) writing the derivative into dydt');
+  if (!Array.isArray(y0) && !(y0 instanceof Float64Array))
+    throw new InvalidArgumentError('y0', y0, 'an array of finite numbers');
   requireOptions('options', options);
   requireFinite('t0', t0);
   requireFinite('tEnd', tEnd);
@@ -126,14 +194,16 @@ function setupDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<number>, tEn
   const y = new Float64Array(n);
   for (let i = 0; i < n; i++) y[i] = requireFinite(`y0[${i}]`, y0[i]);
   const rtol = requirePositive('relativeTolerance', options.relativeTolerance ?? 1e-12);
-  if (rtol < 1e-15) throw new InvalidArgumentError('relativeTolerance', rtol, '≥ 1e-15 (below that, rounding error dominates)');
+  if (rtol < 1e-15)
+    throw new InvalidArgumentError('relativeTolerance', rtol, '≥ 1e-15 (below that, rounding error dominates)');
   const atol = new Float64Array(n);
   const atolIn = options.absoluteTolerance ?? 1e-12;
   if (typeof atolIn === 'number') {
     requirePositive('absoluteTolerance', atolIn);
     atol.fill(atolIn);
   } else {
-    if (atolIn.length !== n) throw new InvalidArgumentError('absoluteTolerance', atolIn, `one value per state component (${n})`);
+    if (atolIn.length !== n)
+      throw new InvalidArgumentError('absoluteTolerance', atolIn, `one value per state component (${n})`);
     for (let i = 0; i < n; i++) atol[i] = requirePositive(`absoluteTolerance[${i}]`, atolIn[i]);
   }
   const maxStep = options.maxStep === undefined ? tEnd - t0 : requirePositive('maxStep', options.maxStep);
@@ -144,7 +214,11 @@ function setupDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<number>, tEn
     const s = requireFinite(`sampleTimes[${k}]`, given[k]);
     if (s < t0 || s > tEnd) throw new InvalidArgumentError(`sampleTimes[${k}]`, s, `within [${t0}, ${tEnd}]`);
     if (k > 0 && !(s > sampleTimes[k - 1]!)) {
-      throw new InvalidArgumentError(`sampleTimes[${k}]`, s, `greater than sampleTimes[${k - 1}] (strictly increasing)`);
+      throw new InvalidArgumentError(
+        `sampleTimes[${k}]`,
+        s,
+        `greater than sampleTimes[${k - 1}] (strictly increasing)`,
+      );
     }
     sampleTimes[k] = s;
   }
@@ -162,7 +236,10 @@ class Dop853Stages {
   functionEvaluations = 0;
   private readonly yStage: Float64Array;
 
-  constructor(private readonly f: OdeRightHandSide, private readonly n: number) {
+  constructor(
+    private readonly f: OdeRightHandSide,
+    private readonly n: number,
+  ) {
     this.K = Array.from({ length: 16 }, () => new Float64Array(n));
     this.yStage = new Float64Array(n);
     this.yNew = new Float64Array(n);
@@ -249,7 +326,8 @@ function denseEvaluator(segments: readonly Segment[], keep: boolean, t0: number,
   return (time: number, out: Float64Array = new Float64Array(n)): Float64Array => {
     if (!keep) throw new InvalidArgumentError('keepDenseOutput', false, 'true to evaluate the solution between steps');
     requireFinite('t', time);
-    if (time < t0 || time > tEnd) throw new InvalidArgumentError('t', time, `within the integrated span [${t0}, ${tEnd}]`);
+    if (time < t0 || time > tEnd)
+      throw new InvalidArgumentError('t', time, `within the integrated span [${t0}, ${tEnd}]`);
     let lo = 0;
     let hi = segments.length - 1;
     while (lo < hi) {
@@ -285,8 +363,13 @@ function denseEvaluator(segments: readonly Segment[], keep: boolean, t0: number,
  * @throws {ConvergenceError} if the step size collapses, the state becomes non-finite, or maxSteps is exceeded.
  * @see E. Hairer, S. P. Nørsett, G. Wanner, Solving Ordinary Differential Equations I, 2nd ed. (1993), §II.5, §II.6, §II.10 [M].
  */
-export function integrateDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<number>, tEnd: number,
-  options: Dop853Options = {}): Dop853Result {
+export function integrateDop853(
+  f: OdeRightHandSide,
+  t0: number,
+  y0: ArrayLike<number>,
+  tEnd: number,
+  options: Dop853Options = {},
+): Dop853Result {
   const { n, y, rtol, atol, maxStep, maxSteps, sampleTimes, keep } = setupDop853(f, t0, y0, tEnd, options);
   const samples = new Float64Array(sampleTimes.length * n);
   const segments: Segment[] = [];
@@ -297,8 +380,10 @@ export function integrateDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<n
   stages.call(t, y, f0);
   checkFinite(f0, t, 'dy/dt at the initial state');
   const span = tEnd - t0;
-  let h = options.initialStep !== undefined ? requirePositive('initialStep', options.initialStep)
-    : startingStep((time, state, out) => stages.call(time, state, out), t, y, f0, atol, rtol, span, n);
+  let h =
+    options.initialStep !== undefined
+      ? requirePositive('initialStep', options.initialStep)
+      : startingStep((time, state, out) => stages.call(time, state, out), t, y, f0, atol, rtol, span, n);
   h = Math.min(h, maxStep, span);
   let accepted = 0;
   let rejected = 0;
@@ -310,9 +395,15 @@ export function integrateDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<n
   }
   let rejectedLast = false;
   while (t < tEnd) {
-    if (accepted + rejected >= maxSteps) throw new ConvergenceError(`DOP853 integration to t = ${tEnd}`, accepted + rejected, tEnd - t);
+    if (accepted + rejected >= maxSteps)
+      throw new ConvergenceError(`DOP853 integration to t = ${tEnd}`, accepted + rejected, tEnd - t);
     const minStep = 10 * Math.abs(Math.max(Math.abs(t), Math.abs(tEnd))) * Number.EPSILON;
-    if (h < minStep) throw new ConvergenceError(`DOP853 step size at t = ${t} (step ${h} below the rounding limit)`, accepted + rejected, h);
+    if (h < minStep)
+      throw new ConvergenceError(
+        `DOP853 step size at t = ${t} (step ${h} below the rounding limit)`,
+        accepted + rejected,
+        h,
+      );
     let last = false;
     if (t + h >= tEnd || tEnd - (t + h) < minStep) {
       h = tEnd - t;
@@ -325,7 +416,12 @@ export function integrateDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<n
       rejected++;
       rejectedLast = true;
       h *= MIN_FACTOR;
-      if (h < minStep) throw new ConvergenceError(`DOP853 integration at t = ${t}: the state became non-finite`, accepted + rejected, Number.NaN);
+      if (h < minStep)
+        throw new ConvergenceError(
+          `DOP853 integration at t = ${t}: the state became non-finite`,
+          accepted + rejected,
+          Number.NaN,
+        );
       continue;
     }
     if (err > 1) {
@@ -365,7 +461,14 @@ export function integrateDop853(f: OdeRightHandSide, t0: number, y0: ArrayLike<n
 }
 
 /** DOP853 continuous extension: y(t0 + x·h) = y0 + x(F0 + (1−x)(F1 + x(F2 + (1−x)(F3 + x(F4 + (1−x)(F5 + x·F6)))))) (Hairer et al. 1993, §II.6). */
-function denseEvaluate(y0: Float64Array, F: Float64Array, x: number, n: number, out: Float64Array, offset: number): void {
+function denseEvaluate(
+  y0: Float64Array,
+  F: Float64Array,
+  x: number,
+  n: number,
+  out: Float64Array,
+  offset: number,
+): void {
   const x1 = 1 - x;
   for (let i = 0; i < n; i++) {
     let acc = F[6 * n + i]!;
@@ -380,8 +483,16 @@ function denseEvaluate(y0: Float64Array, F: Float64Array, x: number, n: number, 
 }
 
 /** Starting step size (Hairer, Nørsett & Wanner 1993, §II.4, "Starting step size" algorithm). */
-function startingStep(call: (t: number, y: Float64Array, out: Float64Array) => void, t: number, y: Float64Array,
-  f0: Float64Array, atol: Float64Array, rtol: number, span: number, n: number): number {
+function startingStep(
+  call: (t: number, y: Float64Array, out: Float64Array) => void,
+  t: number,
+  y: Float64Array,
+  f0: Float64Array,
+  atol: Float64Array,
+  rtol: number,
+  span: number,
+  n: number,
+): number {
   let d0 = 0;
   let d1 = 0;
   for (let i = 0; i < n; i++) {
@@ -409,6 +520,11 @@ function startingStep(call: (t: number, y: Float64Array, out: Float64Array) => v
 
 function checkFinite(v: Float64Array, t: number, what: string): void {
   for (let i = 0; i < v.length; i++) {
-    if (!Number.isFinite(v[i]!)) throw new InvalidArgumentError(`${what}[${i}]`, v[i], `finite at t = ${t} (the right-hand side returned a non-finite value)`);
+    if (!Number.isFinite(v[i]!))
+      throw new InvalidArgumentError(
+        `${what}[${i}]`,
+        v[i],
+        `finite at t = ${t} (the right-hand side returned a non-finite value)`,
+      );
   }
 }

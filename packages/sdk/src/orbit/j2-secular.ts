@@ -6,11 +6,12 @@
  *
  * @module
  */
-import type { Metres, RadiansPerSecond, Seconds } from '../units.js';
+
+import { type ConstantSet, DEFAULT_CONSTANT_SET } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
-import { DEFAULT_CONSTANT_SET, type ConstantSet } from '../constants.js';
 import { requireConstantSet, requireFinite, requireOrbitRadius } from '../internal/validate.js';
-import { requireKeplerianElements, type KeplerianElements } from './elements.js';
+import type { Metres, RadiansPerSecond, Seconds } from '../units.js';
+import { type KeplerianElements, requireKeplerianElements } from './elements.js';
 
 const TWO_PI = 2 * Math.PI;
 
@@ -35,9 +36,12 @@ export function requireMeanElements(value: unknown, argument: string, constants:
   requireOrbitRadius(`${argument}.semiMajorAxis`, el.semiMajorAxis);
   const perigee: Metres = el.semiMajorAxis * (1 - el.eccentricity);
   if (!(perigee > constants.equatorialRadius)) {
-    throw new InvalidArgumentError(`${argument}.eccentricity`, el.eccentricity,
+    throw new InvalidArgumentError(
+      `${argument}.eccentricity`,
+      el.eccentricity,
       `a value keeping the perigee a(1 − e) above the equatorial radius ${constants.equatorialRadius} m`,
-      `perigee ${perigee} m`);
+      `perigee ${perigee} m`,
+    );
   }
   return el;
 }
@@ -71,8 +75,10 @@ export function j2SecularRatesTrusted(el: KeplerianElements, constants: Constant
  * @see D. A. Vallado, Fundamentals of Astrodynamics and Applications, 4th ed. (2013), §9.6, secular J2 rates [M];
  *   the same first-order rates in Kozai (1959) / Brouwer (1959) theory [M].
  */
-export function j2SecularRates(elements: KeplerianElements,
-  constants: ConstantSet = DEFAULT_CONSTANT_SET): J2SecularRates {
+export function j2SecularRates(
+  elements: KeplerianElements,
+  constants: ConstantSet = DEFAULT_CONSTANT_SET,
+): J2SecularRates {
   const set = requireConstantSet('constants', constants);
   return j2SecularRatesTrusted(requireMeanElements(elements, 'elements', set), set);
 }
@@ -95,8 +101,11 @@ function wrap(angle: number): number {
  * @throws {InvalidArgumentError} as {@link j2SecularRates}, or for a non-finite `dt`.
  * @see Vallado, Fundamentals of Astrodynamics and Applications, 4th ed., §9.6 [M].
  */
-export function propagateJ2Secular(elements: KeplerianElements, dt: Seconds,
-  constants: ConstantSet = DEFAULT_CONSTANT_SET): KeplerianElements {
+export function propagateJ2Secular(
+  elements: KeplerianElements,
+  dt: Seconds,
+  constants: ConstantSet = DEFAULT_CONSTANT_SET,
+): KeplerianElements {
   const set = requireConstantSet('constants', constants);
   const el = requireMeanElements(elements, 'elements', set);
   const step = requireFinite('dt', dt, 'a finite time step in seconds');

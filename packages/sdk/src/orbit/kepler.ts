@@ -4,9 +4,17 @@
  *
  * @module
  */
-import type { CubicMetresPerSecondSquared, Dimensionless, Metres, Radians, RadiansPerSecond, Seconds } from '../units.js';
+
 import { ConvergenceError } from '../errors.js';
-import { requireEccentricity, requireFinite, requireInRange, requirePositive } from '../internal/validate.js';
+import { requireEccentricity, requireFinite, requireInRange } from '../internal/validate.js';
+import type {
+  CubicMetresPerSecondSquared,
+  Dimensionless,
+  Metres,
+  Radians,
+  RadiansPerSecond,
+  Seconds,
+} from '../units.js';
 
 /** Absolute tolerance on the residual E − e·sin E − M for |M| ≤ π, in radians. */
 export const KEPLER_RESIDUAL_TOLERANCE: Radians = 1e-15;
@@ -28,7 +36,7 @@ function adjacentDouble(x: number, direction: 1 | -1): number {
   // Both halves always exist (the views are two words long); ?? 0 only satisfies the index check.
   let low = BITS_U32[LOW_WORD] ?? 0;
   let high = BITS_U32[HIGH_WORD] ?? 0;
-  if ((x > 0) === (direction > 0)) {
+  if (x > 0 === direction > 0) {
     if (low === 0xffffffff) {
       low = 0;
       high += 1;
@@ -61,7 +69,9 @@ function ulp(x: number): number {
  */
 export function keplerTolerance(meanAnomaly: Radians): Radians {
   requireFinite('meanAnomaly', meanAnomaly, 'a finite angle in radians');
-  return Math.abs(meanAnomaly) <= Math.PI ? KEPLER_RESIDUAL_TOLERANCE : Math.max(KEPLER_RESIDUAL_TOLERANCE, 4 * ulp(meanAnomaly));
+  return Math.abs(meanAnomaly) <= Math.PI
+    ? KEPLER_RESIDUAL_TOLERANCE
+    : Math.max(KEPLER_RESIDUAL_TOLERANCE, 4 * ulp(meanAnomaly));
 }
 
 /**
@@ -243,7 +253,7 @@ export function eccentricToMeanAnomaly(eccentricAnomaly: Radians, eccentricity: 
  */
 export function meanMotion(semiMajorAxis: Metres, gm: CubicMetresPerSecondSquared): RadiansPerSecond {
   const a = requireInRange('semiMajorAxis', semiMajorAxis, 1, 1e13, { unit: 'm (1 m up to beyond the planets)' });
-  const mu = requireInRange('gm', gm, 0, 1e21, { minExclusive: true, unit: 'm³/s² (the Sun\'s is 1.3e20)' });
+  const mu = requireInRange('gm', gm, 0, 1e21, { minExclusive: true, unit: "m³/s² (the Sun's is 1.3e20)" });
   return Math.sqrt(mu / a) / a;
 }
 

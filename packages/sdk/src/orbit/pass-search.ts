@@ -20,10 +20,11 @@ type Fn = (t: Seconds) => number;
  */
 function crossing(f: Fn, lo: Seconds, hi: Seconds, level: number, tol: Seconds): Seconds {
   const loAbove = f(lo) >= level;
-  let a = lo, b = hi;
+  let a = lo,
+    b = hi;
   while (b - a > tol) {
     const m = 0.5 * (a + b);
-    if ((f(m) >= level) === loAbove) a = m;
+    if (f(m) >= level === loAbove) a = m;
     else b = m;
   }
   return loAbove ? a : b;
@@ -34,12 +35,26 @@ function crossing(f: Fn, lo: Seconds, hi: Seconds, level: number, tol: Seconds):
  * @see Press et al., Numerical Recipes, 3rd ed., §10.2 (golden section search) [M].
  */
 function extremum(f: Fn, lo: Seconds, hi: Seconds, sign: 1 | -1, tol: Seconds): { t: Seconds; value: number } {
-  let a = lo, b = hi;
-  let c = b - INV_PHI * (b - a), d = a + INV_PHI * (b - a);
-  let fc = sign * f(c), fd = sign * f(d);
+  let a = lo,
+    b = hi;
+  let c = b - INV_PHI * (b - a),
+    d = a + INV_PHI * (b - a);
+  let fc = sign * f(c),
+    fd = sign * f(d);
   while (b - a > tol) {
-    if (fc > fd) { b = d; d = c; fd = fc; c = b - INV_PHI * (b - a); fc = sign * f(c); }
-    else { a = c; c = d; fc = fd; d = a + INV_PHI * (b - a); fd = sign * f(d); }
+    if (fc > fd) {
+      b = d;
+      d = c;
+      fd = fc;
+      c = b - INV_PHI * (b - a);
+      fc = sign * f(c);
+    } else {
+      a = c;
+      c = d;
+      fc = fd;
+      d = a + INV_PHI * (b - a);
+      fd = sign * f(d);
+    }
   }
   const t = fc > fd ? c : d;
   return { t, value: f(t) };
@@ -47,7 +62,8 @@ function extremum(f: Fn, lo: Seconds, hi: Seconds, sign: 1 | -1, tol: Seconds): 
 
 /** First index k with times[k] > t (binary search; times increasing). */
 function firstAfter(times: Float64Array, t: Seconds): number {
-  let lo = 0, hi = times.length;
+  let lo = 0,
+    hi = times.length;
   while (lo < hi) {
     const mid = (lo + hi) >> 1;
     if (times[mid]! > t) hi = mid;
@@ -57,14 +73,23 @@ function firstAfter(times: Float64Array, t: Seconds): number {
 }
 
 /** Highest value of f inside [start, end]: best sample, refined by golden section around it. */
-function peak(f: Fn, times: Float64Array, values: Float64Array, start: Seconds, end: Seconds,
-  tol: Seconds): { t: Seconds; value: number } {
+function peak(
+  f: Fn,
+  times: Float64Array,
+  values: Float64Array,
+  start: Seconds,
+  end: Seconds,
+  tol: Seconds,
+): { t: Seconds; value: number } {
   let best = { t: start, value: f(start) };
   const atEnd = f(end);
   if (atEnd > best.value) best = { t: end, value: atEnd };
   let k = -1;
   for (let j = firstAfter(times, start); j < times.length && times[j]! < end; j++) {
-    if (values[j]! > best.value) { best = { t: times[j]!, value: values[j]! }; k = j; }
+    if (values[j]! > best.value) {
+      best = { t: times[j]!, value: values[j]! };
+      k = j;
+    }
   }
   if (k < 0) {
     const refined = extremum(f, start, end, 1, tol);
@@ -78,29 +103,42 @@ function peak(f: Fn, times: Float64Array, values: Float64Array, start: Seconds, 
  * The passes of a function sampled at `times` (`values[k] = f(times[k])`, times increasing from 0 to the
  * horizon): maximal intervals with f ≥ level, with starts and ends inside and within `tol` of the crossing.
  */
-export function findPasses(times: Float64Array, values: Float64Array, f: Fn, level: Radians,
-  tol: Seconds): PredictedPass[] {
+export function findPasses(
+  times: Float64Array,
+  values: Float64Array,
+  f: Fn,
+  level: Radians,
+  tol: Seconds,
+): PredictedPass[] {
   const out: PredictedPass[] = [];
   const n = times.length;
   const last = n - 1;
   const above = (k: number): boolean => values[k]! >= level;
-  let open: { start: Seconds; clipped: boolean } | undefined =
-    above(0) ? { start: times[0]!, clipped: true } : undefined;
+  let open: { start: Seconds; clipped: boolean } | undefined = above(0)
+    ? { start: times[0]!, clipped: true }
+    : undefined;
   const close = (end: Seconds, clippedAtEnd: boolean): void => {
     if (!open) return;
     const top = peak(f, times, values, open.start, end, tol);
     out.push({
-      start: open.start, end, maxElevation: top.value, maxElevationAt: top.t,
-      clippedAtStart: open.clipped, clippedAtEnd,
+      start: open.start,
+      end,
+      maxElevation: top.value,
+      maxElevationAt: top.t,
+      clippedAtStart: open.clipped,
+      clippedAtEnd,
     });
     open = undefined;
   };
   for (let k = 1; k < n; k++) {
-    const t0 = times[k - 1]!, t1 = times[k]!;
+    const t0 = times[k - 1]!,
+      t1 = times[k]!;
     if (!above(k - 1) && above(k)) open = { start: crossing(f, t0, t1, level, tol), clipped: false };
     else if (above(k - 1) && !above(k)) close(crossing(f, t0, t1, level, tol), false);
     if (k >= last) continue;
-    const prev = values[k - 1]!, here = values[k]!, next = values[k + 1]!;
+    const prev = values[k - 1]!,
+      here = values[k]!,
+      next = values[k + 1]!;
     const t2 = times[k + 1]!;
     if (!above(k - 1) && !above(k) && !above(k + 1) && here > prev && here >= next) {
       // A short pass may peak above the level between three samples below it.

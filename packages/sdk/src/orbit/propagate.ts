@@ -3,9 +3,10 @@
  *
  * @module
  */
-import type { CubicMetresPerSecondSquared, Seconds } from '../units.js';
+
 import { requireFinite, requirePositive } from '../internal/validate.js';
-import { elementsToState, requireKeplerianElements, type KeplerianElements, type StateVector } from './elements.js';
+import type { CubicMetresPerSecondSquared, Seconds } from '../units.js';
+import { elementsToState, type KeplerianElements, requireKeplerianElements, type StateVector } from './elements.js';
 import { meanMotion } from './kepler.js';
 
 const TWO_PI = 2 * Math.PI;
@@ -24,7 +25,11 @@ const TWO_PI = 2 * Math.PI;
  * @throws {InvalidArgumentError} for invalid elements, a non-finite `dt` or GM ≤ 0.
  * @see Kepler's equation and third law, e.g. Vallado, Fundamentals of Astrodynamics and Applications, 4th ed., Alg. 7 [M].
  */
-export function propagateKepler(elements: KeplerianElements, dt: Seconds, gm: CubicMetresPerSecondSquared): KeplerianElements {
+export function propagateKepler(
+  elements: KeplerianElements,
+  dt: Seconds,
+  gm: CubicMetresPerSecondSquared,
+): KeplerianElements {
   const el = requireKeplerianElements(elements);
   const step = requireFinite('dt', dt, 'a finite time step in seconds');
   const mu = requirePositive('gm', gm, 'm³/s²');
@@ -46,6 +51,10 @@ export function propagateKepler(elements: KeplerianElements, dt: Seconds, gm: Cu
  * @throws {InvalidArgumentError} as {@link propagateKepler}.
  * @see Vallado, Fundamentals of Astrodynamics and Applications, 4th ed., Alg. 7 and 10 [M].
  */
-export function propagateKeplerState(elements: KeplerianElements, dt: Seconds, gm: CubicMetresPerSecondSquared): StateVector {
+export function propagateKeplerState(
+  elements: KeplerianElements,
+  dt: Seconds,
+  gm: CubicMetresPerSecondSquared,
+): StateVector {
   return elementsToState(propagateKepler(elements, dt, gm), gm);
 }

@@ -13,9 +13,10 @@
  *
  * @module
  */
-import type { Seconds } from '../units.js';
+
 import { InvalidArgumentError } from '../errors.js';
 import { requireFinite } from '../internal/validate.js';
+import type { Seconds } from '../units.js';
 import type { KeplerianBroadcastEphemeris, KeplerianSystem } from './broadcast.js';
 
 /**
@@ -26,7 +27,16 @@ export type BroadcastSignal = 'L1CA' | 'L1P' | 'L2P' | 'E1' | 'E5a' | 'E5b' | 'B
 
 /** Every {@link BroadcastSignal}, in the order printed by help texts. */
 export const BROADCAST_SIGNALS: readonly BroadcastSignal[] = Object.freeze([
-  'L1CA', 'L1P', 'L2P', 'E1', 'E5a', 'E5b', 'B1I', 'B2I', 'B3I', 'iono-free',
+  'L1CA',
+  'L1P',
+  'L2P',
+  'E1',
+  'E5a',
+  'E5b',
+  'B1I',
+  'B2I',
+  'B3I',
+  'iono-free',
 ] as const);
 
 /** Names of the broadcast group-delay fields, as `readRinexNav` stores them in `groupDelays`. */
@@ -72,14 +82,43 @@ interface SignalRule {
 const RULES: Readonly<Record<BroadcastSignal, SignalRule>> = {
   L1CA: { system: 'G', field: 'TGD', factor: 1, source: 'IS-GPS-200 §20.3.3.3.3.2 [M]: (Δt_sv)_L1 = Δt_sv − T_GD' },
   L1P: { system: 'G', field: 'TGD', factor: 1, source: 'IS-GPS-200 §20.3.3.3.3.2 [M]: (Δt_sv)_L1 = Δt_sv − T_GD' },
-  L2P: { system: 'G', field: 'TGD', factor: GPS_GAMMA_L1_L2, source: 'IS-GPS-200 §20.3.3.3.3.2 [M]: (Δt_sv)_L2 = Δt_sv − γ T_GD, γ = (77/60)²' },
-  E1: { system: 'E', field: 'galileo-e1', factor: 1, source: 'Galileo OS SIS ICD §5.1.5 [M]: Δt_E1 = Δt − BGD(E1,E5a) (F/NAV) or Δt − BGD(E1,E5b) (I/NAV)' },
-  E5a: { system: 'E', field: 'BGD_E5a_E1', factor: GALILEO_GAMMA_E1_E5A, source: 'Galileo OS SIS ICD §5.1.5 [M]: Δt_E5a = Δt − (f_E1/f_E5a)² BGD(E1,E5a)' },
-  E5b: { system: 'E', field: 'BGD_E5b_E1', factor: GALILEO_GAMMA_E1_E5B, source: 'Galileo OS SIS ICD §5.1.5 [M]: Δt_E5b = Δt − (f_E1/f_E5b)² BGD(E1,E5b)' },
+  L2P: {
+    system: 'G',
+    field: 'TGD',
+    factor: GPS_GAMMA_L1_L2,
+    source: 'IS-GPS-200 §20.3.3.3.3.2 [M]: (Δt_sv)_L2 = Δt_sv − γ T_GD, γ = (77/60)²',
+  },
+  E1: {
+    system: 'E',
+    field: 'galileo-e1',
+    factor: 1,
+    source: 'Galileo OS SIS ICD §5.1.5 [M]: Δt_E1 = Δt − BGD(E1,E5a) (F/NAV) or Δt − BGD(E1,E5b) (I/NAV)',
+  },
+  E5a: {
+    system: 'E',
+    field: 'BGD_E5a_E1',
+    factor: GALILEO_GAMMA_E1_E5A,
+    source: 'Galileo OS SIS ICD §5.1.5 [M]: Δt_E5a = Δt − (f_E1/f_E5a)² BGD(E1,E5a)',
+  },
+  E5b: {
+    system: 'E',
+    field: 'BGD_E5b_E1',
+    factor: GALILEO_GAMMA_E1_E5B,
+    source: 'Galileo OS SIS ICD §5.1.5 [M]: Δt_E5b = Δt − (f_E1/f_E5b)² BGD(E1,E5b)',
+  },
   B1I: { system: 'C', field: 'TGD1', factor: 1, source: 'BDS-SIS-ICD B1I §5.2.4.10 [M]: Δt_B1I = Δt − TGD1' },
   B2I: { system: 'C', field: 'TGD2', factor: 1, source: 'BDS-SIS-ICD B1I §5.2.4.10 [M]: Δt_B2I = Δt − TGD2' },
-  B3I: { system: 'C', factor: 0, source: 'BDS-SIS-ICD B1I §5.2.4.10 [M]: the clock parameters refer to B3I, no group delay' },
-  'iono-free': { system: 'any', factor: 0, source: 'IS-GPS-200 §20.3.3.3.3.3 [M], Galileo OS SIS ICD §5.1.5 [M]: the dual-frequency user applies Δt_sv with no group delay' },
+  B3I: {
+    system: 'C',
+    factor: 0,
+    source: 'BDS-SIS-ICD B1I §5.2.4.10 [M]: the clock parameters refer to B3I, no group delay',
+  },
+  'iono-free': {
+    system: 'any',
+    factor: 0,
+    source:
+      'IS-GPS-200 §20.3.3.3.3.3 [M], Galileo OS SIS ICD §5.1.5 [M]: the dual-frequency user applies Δt_sv with no group delay',
+  },
 };
 
 const SYSTEM_NAMES: Readonly<Record<KeplerianSystem, string>> = { G: 'GPS', E: 'Galileo', C: 'BeiDou' };
@@ -133,8 +172,11 @@ export function isBroadcastSignal(value: unknown): value is BroadcastSignal {
  * @see IS-GPS-200 §20.3.3.3.3.2 [M]; Galileo OS SIS ICD §5.1.5 [M]; BDS-SIS-ICD B1I §5.2.4.10 [M];
  *   physics-refs.md §3 check value (Δt_sv)_L1 = Δt_sv − T_GD [C].
  */
-export function signalClockCorrection(ephemeris: KeplerianBroadcastEphemeris, clockCorrectionSeconds: Seconds,
-  signal: BroadcastSignal): SignalClockCorrection {
+export function signalClockCorrection(
+  ephemeris: KeplerianBroadcastEphemeris,
+  clockCorrectionSeconds: Seconds,
+  signal: BroadcastSignal,
+): SignalClockCorrection {
   if (!isBroadcastSignal(signal)) {
     throw new InvalidArgumentError('signal', signal, `one of ${BROADCAST_SIGNALS.join(', ')}`);
   }
@@ -145,16 +187,25 @@ export function signalClockCorrection(ephemeris: KeplerianBroadcastEphemeris, cl
   const rule = RULES[signal];
   const system = ephemeris.system;
   if (rule.system !== 'any' && rule.system !== system) {
-    throw new InvalidArgumentError('signal', signal,
+    throw new InvalidArgumentError(
+      'signal',
+      signal,
       `a signal of the record's system (${SYSTEM_NAMES[system] ?? String(system)}: ${signalsOf(system).join(', ')}) or iono-free`,
-      `${signal} is a ${SYSTEM_NAMES[rule.system]} signal; the record is ${String(ephemeris.satellite)}`);
+      `${signal} is a ${SYSTEM_NAMES[rule.system]} signal; the record is ${String(ephemeris.satellite)}`,
+    );
   }
   if (rule.field === undefined) {
-    const note = system === 'C' && signal === 'iono-free'
-      ? 'BeiDou D1/D2 clock parameters refer to B3I (BDS-SIS-ICD B1I §5.2.4.10 [M]): this is the B3I correction, not an ionosphere-free combination'
-      : undefined;
+    const note =
+      system === 'C' && signal === 'iono-free'
+        ? 'BeiDou D1/D2 clock parameters refer to B3I (BDS-SIS-ICD B1I §5.2.4.10 [M]): this is the B3I correction, not an ionosphere-free combination'
+        : undefined;
     return {
-      signal, clockCorrectionSeconds, groupDelaySeconds: null, groupDelayField: null, factor: 0, source: rule.source,
+      signal,
+      clockCorrectionSeconds,
+      groupDelaySeconds: null,
+      groupDelayField: null,
+      factor: 0,
+      source: rule.source,
       ...(note !== undefined ? { note } : {}),
     };
   }
@@ -165,8 +216,12 @@ export function signalClockCorrection(ephemeris: KeplerianBroadcastEphemeris, cl
     field = rule.field;
   }
   if (signal === 'E5b' && ephemeris.message === 'FNAV') {
-    throw new InvalidArgumentError('ephemeris.groupDelays.BGD_E5b_E1', ephemeris.groupDelays?.['BGD_E5b_E1'],
-      'a BGD(E1,E5b) from an I/NAV record (the F/NAV message does not broadcast it)', 'use an I/NAV record for E5b');
+    throw new InvalidArgumentError(
+      'ephemeris.groupDelays.BGD_E5b_E1',
+      ephemeris.groupDelays?.BGD_E5b_E1,
+      'a BGD(E1,E5b) from an I/NAV record (the F/NAV message does not broadcast it)',
+      'use an I/NAV record for E5b',
+    );
   }
   const value = ephemeris.groupDelays?.[field];
   const name = `ephemeris.groupDelays.${field}`;
@@ -175,8 +230,12 @@ export function signalClockCorrection(ephemeris: KeplerianBroadcastEphemeris, cl
   }
   requireFinite(name, value, `a finite broadcast ${field} in seconds`);
   if (Math.abs(value) > MAX_GROUP_DELAY) {
-    throw new InvalidArgumentError(name, value, `a group delay in seconds, |value| ≤ ${MAX_GROUP_DELAY} s`,
-      Math.abs(value) * 1e-9 <= MAX_GROUP_DELAY ? 'did you give nanoseconds?' : undefined);
+    throw new InvalidArgumentError(
+      name,
+      value,
+      `a group delay in seconds, |value| ≤ ${MAX_GROUP_DELAY} s`,
+      Math.abs(value) * 1e-9 <= MAX_GROUP_DELAY ? 'did you give nanoseconds?' : undefined,
+    );
   }
   return {
     signal,
@@ -195,7 +254,8 @@ export function signalClockCorrection(ephemeris: KeplerianBroadcastEphemeris, cl
  * @throws {InvalidArgumentError} for an unknown signal.
  */
 export function signalClockSource(signal: BroadcastSignal): string {
-  if (!isBroadcastSignal(signal)) throw new InvalidArgumentError('signal', signal, `one of ${BROADCAST_SIGNALS.join(', ')}`);
+  if (!isBroadcastSignal(signal))
+    throw new InvalidArgumentError('signal', signal, `one of ${BROADCAST_SIGNALS.join(', ')}`);
   return RULES[signal].source;
 }
 

@@ -13,20 +13,25 @@
  *
  * @module
  */
-import type { Radians, Seconds, Vector3 } from '../units.js';
+
+import { type ConstantSet, DEFAULT_CONSTANT_SET } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
-import { DEFAULT_CONSTANT_SET, type ConstantSet } from '../constants.js';
 import {
-  requireConstantSet, requireInRange, requireObject, requireOptions, requirePositive,
+  requireConstantSet,
+  requireInRange,
+  requireObject,
+  requireOptions,
+  requirePositive,
 } from '../internal/validate.js';
-import { requireInstant, type Instant } from '../time/instant.js';
-import { createTimeScales, type TimeScales } from '../time/scales.js';
+import { type Instant, requireInstant } from '../time/instant.js';
 import { BUNDLED_LEAP_SECONDS } from '../time/leap-seconds.js';
-import type { KeplerianElements } from './elements.js';
-import { solveKepler } from './kepler.js';
-import { geodeticToEcefTrusted, localUp, requireGeodeticPosition, type GeodeticPosition } from './geodetic.js';
+import { createTimeScales, type TimeScales } from '../time/scales.js';
+import type { Radians, Seconds, Vector3 } from '../units.js';
 import { EARTH_ROTATION_ANGLE_RATE, earthRotationAngle, requireTimeScales } from './earth-rotation.js';
+import type { KeplerianElements } from './elements.js';
+import { type GeodeticPosition, geodeticToEcefTrusted, localUp, requireGeodeticPosition } from './geodetic.js';
 import { j2SecularRatesTrusted, requireMeanElements } from './j2-secular.js';
+import { solveKepler } from './kepler.js';
 import { findPasses } from './pass-search.js';
 
 /** Mean elements at their own epoch. */
@@ -94,19 +99,23 @@ type EcefAt = (t: Seconds, out: Float64Array, at: number) => void;
 /** Builds the Earth-fixed position function: secular J2 elements → inertial position → R3(ERA). */
 function ecefEvaluator(orbit: MeanOrbit, epoch: Instant, horizon: Seconds, ts: TimeScales, set: ConstantSet): EcefAt {
   const o = requireObject('orbit', orbit as object, 'an object { elements, epoch }') as Record<string, unknown>;
-  const el = requireMeanElements(o['elements'], 'orbit.elements', set);
-  const elEpoch = requireInstant('orbit.epoch', o['epoch']);
+  const el = requireMeanElements(o.elements, 'orbit.elements', set);
+  const elEpoch = requireInstant('orbit.epoch', o.epoch);
   const offset = epoch.secondsSince(elEpoch);
   const far = Math.max(Math.abs(offset), Math.abs(offset + horizon));
   if (far > MAX_PASS_PROPAGATION_SECONDS) {
-    throw new InvalidArgumentError('orbit.epoch', elEpoch.toString(),
+    throw new InvalidArgumentError(
+      'orbit.epoch',
+      elEpoch.toString(),
       `within ${MAX_PASS_PROPAGATION_SECONDS} s (366 days) of the whole prediction window`,
-      `the window reaches ${far} s from it`);
+      `the window reaches ${far} s from it`,
+    );
   }
   const rates = j2SecularRatesTrusted(el, set);
   const theta0 = earthRotationAngle(epoch, ts);
   const { semiMajorAxis: a, eccentricity: e, inclination: i } = el;
-  const ci = Math.cos(i), si = Math.sin(i);
+  const ci = Math.cos(i),
+    si = Math.sin(i);
   const b = a * Math.sqrt((1 - e) * (1 + e));
   return (t: Seconds, out: Float64Array, at: number): void => {
     const dt = offset + t;
@@ -114,13 +123,18 @@ function ecefEvaluator(orbit: MeanOrbit, epoch: Instant, horizon: Seconds, ts: T
     const w = el.argumentOfPerigee + rates.argumentOfPerigeeRate * dt;
     const E = solveKepler((el.meanAnomaly + rates.meanAnomalyRate * dt) % (2 * Math.PI), e);
     // Perifocal x = a(cos E − e), y = b sin E, rotated by R3(−Ω)R1(−i)R3(−ω) (as elementsToState, Vallado Alg. 10 [M]).
-    const xp = a * (Math.cos(E) - e), yp = b * Math.sin(E);
-    const cO = Math.cos(raan), sO = Math.sin(raan), cw = Math.cos(w), sw = Math.sin(w);
+    const xp = a * (Math.cos(E) - e),
+      yp = b * Math.sin(E);
+    const cO = Math.cos(raan),
+      sO = Math.sin(raan),
+      cw = Math.cos(w),
+      sw = Math.sin(w);
     const x = xp * (cO * cw - sO * sw * ci) + yp * (-cO * sw - sO * cw * ci);
     const y = xp * (sO * cw + cO * sw * ci) + yp * (-sO * sw + cO * cw * ci);
     // r_ECEF = R3(θ)·r: [GCRS] = Q·R·W [ITRS] with R = R3(−ERA), Q = W = identity (IERS Conventions 2010 eq. 5.1 [M]).
     const theta = theta0 + EARTH_ROTATION_ANGLE_RATE * t;
-    const c = Math.cos(theta), s = Math.sin(theta);
+    const c = Math.cos(theta),
+      s = Math.sin(theta);
     out[at] = c * x + s * y;
     out[at + 1] = -s * x + c * y;
     out[at + 2] = xp * sw * si + yp * cw * si;
@@ -129,16 +143,23 @@ function ecefEvaluator(orbit: MeanOrbit, epoch: Instant, horizon: Seconds, ts: T
 
 /** Elevation (rad) from a site of the satellite position p[at..at+2] (Vallado 4th ed. §4.4, up component [M]). */
 function elevationOf(site: { r: Vector3; up: Vector3 }, p: Float64Array, at: number): Radians {
-  const dx = p[at]! - site.r[0], dy = p[at + 1]! - site.r[1], dz = p[at + 2]! - site.r[2];
+  const dx = p[at]! - site.r[0],
+    dy = p[at + 1]! - site.r[1],
+    dz = p[at + 2]! - site.r[2];
   const sine = (dx * site.up[0] + dy * site.up[1] + dz * site.up[2]) / Math.hypot(dx, dy, dz);
   return Math.asin(Math.max(-1, Math.min(1, sine)));
 }
 
-function resolveOptions(options: PassPredictionOptions | undefined):
-  { ts: TimeScales; set: ConstantSet; opts: PassPredictionOptions } {
+function resolveOptions(options: PassPredictionOptions | undefined): {
+  ts: TimeScales;
+  set: ConstantSet;
+  opts: PassPredictionOptions;
+} {
   const opts = requireOptions('options', options);
-  const ts = opts.timeScales === undefined ? (bundled ??= createTimeScales(BUNDLED_LEAP_SECONDS))
-    : requireTimeScales('options.timeScales', opts.timeScales);
+  const ts =
+    opts.timeScales === undefined
+      ? (bundled ??= createTimeScales(BUNDLED_LEAP_SECONDS))
+      : requireTimeScales('options.timeScales', opts.timeScales);
   const set = requireConstantSet('options.constants', opts.constants ?? DEFAULT_CONSTANT_SET);
   return { ts, set, opts };
 }
@@ -166,11 +187,15 @@ export function satellitePositionEcef(orbit: MeanOrbit, at: Instant, options?: P
 function requireSites(sites: unknown): { r: Vector3; up: Vector3; mask: Radians }[] {
   if (!Array.isArray(sites)) throw new InvalidArgumentError('sites', sites, 'an array of { position, elevationMask }');
   return sites.map((value: unknown, k) => {
-    const s = requireObject(`sites[${k}]`, value as object, 'an object { position, elevationMask }') as
-      Record<string, unknown>;
-    const p = requireGeodeticPosition(s['position'], `sites[${k}].position`);
-    const mask = requireInRange(`sites[${k}].elevationMask`, s['elevationMask'], 0, Math.PI / 2,
-      { maxExclusive: true, unit: 'rad' });
+    const s = requireObject(`sites[${k}]`, value as object, 'an object { position, elevationMask }') as Record<
+      string,
+      unknown
+    >;
+    const p = requireGeodeticPosition(s.position, `sites[${k}].position`);
+    const mask = requireInRange(`sites[${k}].elevationMask`, s.elevationMask, 0, Math.PI / 2, {
+      maxExclusive: true,
+      unit: 'rad',
+    });
     return { r: geodeticToEcefTrusted(p.latitude, p.longitude, p.height), up: localUp(p.latitude, p.longitude), mask };
   });
 }
@@ -197,8 +222,13 @@ function requireSites(sites: unknown): { r: Vector3; up: Vector3; mask: Radians 
  * @see IERS Conventions (2010) eq. 5.15 (ERA) [M]; Vallado, Fundamentals of Astrodynamics and Applications,
  *   4th ed., §9.6 (secular J2) and §4.4 (topocentric elevation) [M]; NIMA TR8350.2 (WGS 84) [M].
  */
-export function predictPasses(orbit: MeanOrbit, sites: readonly GroundSite[], epoch: Instant, horizon: Seconds,
-  options?: PassPredictionOptions): PassPrediction {
+export function predictPasses(
+  orbit: MeanOrbit,
+  sites: readonly GroundSite[],
+  epoch: Instant,
+  horizon: Seconds,
+  options?: PassPredictionOptions,
+): PassPrediction {
   const { ts, set, opts } = resolveOptions(options);
   const start = requireInstant('epoch', epoch);
   const span = requireInRange('horizon', horizon, 0, MAX_PASS_PROPAGATION_SECONDS, { minExclusive: true, unit: 's' });
@@ -206,11 +236,16 @@ export function predictPasses(orbit: MeanOrbit, sites: readonly GroundSite[], ep
   const ecef = ecefEvaluator(orbit, start, span, ts, set);
   const a = (orbit as MeanOrbit).elements.semiMajorAxis;
   const period = 2 * Math.PI * Math.sqrt((a * a * a) / set.gm);
-  const step = opts.stepSeconds === undefined ? Math.min(60, period / 200)
-    : requireInRange('options.stepSeconds', opts.stepSeconds, 0, 3600, { minExclusive: true, unit: 's' });
-  const tol = opts.toleranceSeconds === undefined ? Math.min(PASS_TIME_TOLERANCE_SECONDS, step)
-    : requireInRange('options.toleranceSeconds', opts.toleranceSeconds, 1e-6, step,
-      { unit: `s (at most stepSeconds = ${step})` });
+  const step =
+    opts.stepSeconds === undefined
+      ? Math.min(60, period / 200)
+      : requireInRange('options.stepSeconds', opts.stepSeconds, 0, 3600, { minExclusive: true, unit: 's' });
+  const tol =
+    opts.toleranceSeconds === undefined
+      ? Math.min(PASS_TIME_TOLERANCE_SECONDS, step)
+      : requireInRange('options.toleranceSeconds', opts.toleranceSeconds, 1e-6, step, {
+          unit: `s (at most stepSeconds = ${step})`,
+        });
   requirePositive('options.stepSeconds', step, 's');
   const count = Math.ceil(span / step);
   const times = new Float64Array(count + 1);
@@ -221,7 +256,10 @@ export function predictPasses(orbit: MeanOrbit, sites: readonly GroundSite[], ep
   }
   const scratch = new Float64Array(3);
   const passes = checked.map((site) => {
-    const elevation = (t: Seconds): Radians => { ecef(t, scratch, 0); return elevationOf(site, scratch, 0); };
+    const elevation = (t: Seconds): Radians => {
+      ecef(t, scratch, 0);
+      return elevationOf(site, scratch, 0);
+    };
     const sampled = new Float64Array(count + 1);
     for (let k = 0; k <= count; k++) sampled[k] = elevationOf(site, positions, 3 * k);
     return findPasses(times, sampled, elevation, site.mask, tol);

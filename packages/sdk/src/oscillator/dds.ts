@@ -4,11 +4,12 @@
  *
  * @module
  */
-import type { Dimensionless, Hertz } from '../units.js';
+
+import { FLIGHT_CONFIGURATION_CAUTION } from '../caution.js';
+import { SECONDS_PER_DAY } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
 import { requireFrequency, requireInteger, requirePositive } from '../internal/validate.js';
-import { SECONDS_PER_DAY } from '../constants.js';
-import { FLIGHT_CONFIGURATION_CAUTION } from '../caution.js';
+import type { Dimensionless, Hertz } from '../units.js';
 
 /** Smallest and largest supported accumulator widths, in bits. */
 export const DDS_MIN_BITS = 8;
@@ -46,8 +47,14 @@ function decompose(x: number): { mantissa: bigint; exponent: number } {
 function scaleByPowerOfTwo(x: number, k: number): number {
   let result = x;
   let remaining = k;
-  while (remaining > 1000) { result *= 2 ** 1000; remaining -= 1000; }
-  while (remaining < -1000) { result *= 2 ** -1000; remaining += 1000; }
+  while (remaining > 1000) {
+    result *= 2 ** 1000;
+    remaining -= 1000;
+  }
+  while (remaining < -1000) {
+    result *= 2 ** -1000;
+    remaining += 1000;
+  }
   return result * 2 ** remaining;
 }
 
@@ -66,7 +73,8 @@ function requireBits(bits: unknown): number {
  */
 function requireWord(word: unknown, bits: number): bigint {
   const expected = `a bigint in [0, 2^${bits}) for a ${bits}-bit accumulator`;
-  if (typeof word !== 'bigint' || word < 0n || word >= pow2(bits)) throw new InvalidArgumentError('word', word, expected);
+  if (typeof word !== 'bigint' || word < 0n || word >= pow2(bits))
+    throw new InvalidArgumentError('word', word, expected);
   return word;
 }
 
@@ -122,7 +130,11 @@ export function fractionalResolution(clockFrequency: Hertz, bits: number, relati
  *   a target that rounds to word 0 (below half the resolution) or N outside [8, 64].
  * @see Phase-accumulator synthesis, Tierney, Rader & Gold, IEEE Trans. Audio Electroacoust. 19 (1971) 48–57 [M].
  */
-export function nearestTuningWord(request: { targetFrequency: Hertz; clockFrequency: Hertz; bits: number }): TuningWord {
+export function nearestTuningWord(request: {
+  targetFrequency: Hertz;
+  clockFrequency: Hertz;
+  bits: number;
+}): TuningWord {
   if (typeof request !== 'object' || request === null) {
     throw new InvalidArgumentError('request', request, 'an object { targetFrequency, clockFrequency, bits }');
   }
@@ -130,7 +142,11 @@ export function nearestTuningWord(request: { targetFrequency: Hertz; clockFreque
   const n = requireBits(request.bits);
   const targetHz = requirePositive('targetFrequency', request.targetFrequency, 'Hz');
   if (targetHz > clockHz / 2) {
-    throw new InvalidArgumentError('targetFrequency', targetHz, `at most f_clk/2 = ${clockHz / 2} Hz (Nyquist limit of the DDS)`);
+    throw new InvalidArgumentError(
+      'targetFrequency',
+      targetHz,
+      `at most f_clk/2 = ${clockHz / 2} Hz (Nyquist limit of the DDS)`,
+    );
   }
   const t = decompose(targetHz);
   const c = decompose(clockHz);
@@ -143,8 +159,11 @@ export function nearestTuningWord(request: { targetFrequency: Hertz; clockFreque
   if (twiceRemainder > den || (twiceRemainder === den && (word & 1n) === 1n)) word += 1n;
   const resolutionHz = scaleByPowerOfTwo(clockHz, -n);
   if (word === 0n) {
-    throw new InvalidArgumentError('targetFrequency', targetHz,
-      `at least half the DDS resolution f_clk/2^N = ${resolutionHz} Hz (it rounds to tuning word 0)`);
+    throw new InvalidArgumentError(
+      'targetFrequency',
+      targetHz,
+      `at least half the DDS resolution f_clk/2^N = ${resolutionHz} Hz (it rounds to tuning word 0)`,
+    );
   }
   // Exact error: (W·mc·2^ec − mt·2^(et+N)) / (mt·2^(et+N)), all scaled by 2^−base.
   const base = Math.min(c.exponent, t.exponent + n);

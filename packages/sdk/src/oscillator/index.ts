@@ -1,6 +1,11 @@
 /** Oscillator frequency offsets and DDS tuning words. */
 export { FLIGHT_CONFIGURATION_CAUTION } from '../caution.js';
-export { type OffsetFrequency, offsetFrequency, requireFractionalOffset } from './offset.js';
 export {
-  type TuningWord, DDS_MIN_BITS, DDS_MAX_BITS, nearestTuningWord, tuningWordFrequency, fractionalResolution,
+  DDS_MAX_BITS,
+  DDS_MIN_BITS,
+  fractionalResolution,
+  nearestTuningWord,
+  type TuningWord,
+  tuningWordFrequency,
 } from './dds.js';
+export { type OffsetFrequency, offsetFrequency, requireFractionalOffset } from './offset.js';

@@ -3,10 +3,11 @@
  *
  * @module
  */
-import type { Dimensionless, Hertz } from '../units.js';
-import { InvalidArgumentError } from '../errors.js';
+
 import { FLIGHT_CONFIGURATION_CAUTION } from '../caution.js';
+import { InvalidArgumentError } from '../errors.js';
 import { requireFinite, requireFrequency } from '../internal/validate.js';
+import type { Dimensionless, Hertz } from '../units.js';
 
 /** Result of {@link offsetFrequency}. */
 export interface OffsetFrequency {

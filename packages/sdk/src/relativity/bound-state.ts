@@ -5,15 +5,16 @@
  *
  * @module
  */
-import type { Metres, MetresPerSecond } from '../units.js';
-import { DEFAULT_CONSTANT_SET, type ConstantSet } from '../constants.js';
+
+import { type ConstantSet, DEFAULT_CONSTANT_SET } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
 import { requireConstantSet, requireOptions, requireOrbitRadius } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 import { moonPositionLowPrecision } from '../orbit/ephemeris.js';
 import { GM_MOON, GRAVITY_MODELS, type GravityModel } from '../orbit/forces.js';
-import { requireInstant, type Instant } from '../time/instant.js';
+import { type Instant, requireInstant } from '../time/instant.js';
 import { J2000_EPOCH, ttSecondsSinceJ2000 } from '../time/j2000.js';
+import type { Metres, MetresPerSecond } from '../units.js';
 
 /** Options of {@link boundStateCheck}. */
 export interface BoundStateOptions {
@@ -59,8 +60,10 @@ export function boundStateCheck(state: StateVector, options: BoundStateOptions =
   const { position, velocity } = requireStateVector(state);
   requireOptions('options', options);
   const model = options.model ?? 'j2';
-  if (!GRAVITY_MODELS.includes(model)) throw new InvalidArgumentError('options.model', model, `one of ${GRAVITY_MODELS.join(', ')}`);
-  const constants = options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet('options.constants', options.constants);
+  if (!GRAVITY_MODELS.includes(model))
+    throw new InvalidArgumentError('options.model', model, `one of ${GRAVITY_MODELS.join(', ')}`);
+  const constants =
+    options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet('options.constants', options.constants);
   const epoch = options.epoch === undefined ? J2000_EPOCH : requireInstant('options.epoch', options.epoch);
   requireOrbitRadius('|state.position|', Math.hypot(...position));
   if (model === 'full') {
@@ -69,9 +72,13 @@ export function boundStateCheck(state: StateVector, options: BoundStateOptions =
     const mPlus = moonPositionLowPrecision(e + 1);
     const mMinus = moonPositionLowPrecision(e - 1);
     const rho = Math.hypot(position[0] - m[0], position[1] - m[1], position[2] - m[2]);
-    const w = Math.hypot(velocity[0] - (mPlus[0] - mMinus[0]) / 2, velocity[1] - (mPlus[1] - mMinus[1]) / 2,
-      velocity[2] - (mPlus[2] - mMinus[2]) / 2);
-    if (!(rho > 0)) throw new InvalidArgumentError('state.position', position, 'a position other than the Moon\'s centre');
+    const w = Math.hypot(
+      velocity[0] - (mPlus[0] - mMinus[0]) / 2,
+      velocity[1] - (mPlus[1] - mMinus[1]) / 2,
+      velocity[2] - (mPlus[2] - mMinus[2]) / 2,
+    );
+    if (!(rho > 0))
+      throw new InvalidArgumentError('state.position', position, "a position other than the Moon's centre");
     const hillRadius = Math.hypot(m[0], m[1], m[2]) * Math.cbrt(GM_MOON / (3 * constants.gm));
     if (rho < hillRadius) {
       const escapeSpeed = Math.sqrt((2 * GM_MOON) / rho);

@@ -14,20 +14,26 @@
  *
  * @module
  */
-import type { Dimensionless, Metres, Radians, Seconds } from '../units.js';
-import { SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet, type ConstantsOptions } from '../constants.js';
-import { readConstants } from '../internal/options.js';
+
+import { type ConstantSet, type ConstantsOptions, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED } from '../constants.js';
 import { InvalidArgumentError, OutOfDomainError } from '../errors.js';
-import { integrateDop853 } from '../orbit/integrator.js';
+import { readConstants } from '../internal/options.js';
 import { requireEccentricity, requireFinite, requireInRange, requireOrbitRadius } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
+import { integrateDop853 } from '../orbit/integrator.js';
+import type { Dimensionless, Metres, Radians, Seconds } from '../units.js';
 
 function checkInclination(inclination: unknown): number {
   return requireInRange('inclination', inclination, 0, Math.PI, { unit: 'rad (did you give degrees?)' });
 }
 
 /** J2·(a_e²/c²)·√(GM/a³)·sin²i·sin 2u, the shape shared by both periodic J2 terms below, with their input checks. */
-function j2SinTwoUTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLatitude: Radians, constants: ConstantSet): Seconds {
+function j2SinTwoUTerm(
+  semiMajorAxis: Metres,
+  inclination: Radians,
+  argumentOfLatitude: Radians,
+  constants: ConstantSet,
+): Seconds {
   const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
   const i = checkInclination(inclination);
   const u = requireFinite('argumentOfLatitude', argumentOfLatitude, 'a finite angle in radians');
@@ -50,8 +56,12 @@ function j2SinTwoUTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLa
  * @see J. Kouba, GPS Solutions 8(3):170–180 (2004) [V2 abstract; formula M, verified numerically C];
  *   IERS Conventions (2010) §10.2 ("6-h term due to J2") [V1].
  */
-export function j2ResidualPeriodicTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLatitude: Radians,
-  options?: ConstantsOptions): Seconds {
+export function j2ResidualPeriodicTerm(
+  semiMajorAxis: Metres,
+  inclination: Radians,
+  argumentOfLatitude: Radians,
+  options?: ConstantsOptions,
+): Seconds {
   const constants = readConstants('options', options);
   return -1.5 * j2SinTwoUTerm(semiMajorAxis, inclination, argumentOfLatitude, constants);
 }
@@ -74,8 +84,12 @@ export function j2ResidualPeriodicTerm(semiMajorAxis: Metres, inclination: Radia
  * @see N. Ashby, PTTI 33 (2001) 509–524, abstract: amplitude 0.695e-14 in frequency [V2]; our own derivation [C]
  *   (δr from D. Brouwer, Astron. J. 64 (1959) 378, short-period terms [M]).
  */
-export function j2TotalPeriodicTerm(semiMajorAxis: Metres, inclination: Radians, argumentOfLatitude: Radians,
-  options?: ConstantsOptions): Seconds {
+export function j2TotalPeriodicTerm(
+  semiMajorAxis: Metres,
+  inclination: Radians,
+  argumentOfLatitude: Radians,
+  options?: ConstantsOptions,
+): Seconds {
   const constants = readConstants('options', options);
   return -0.5 * j2SinTwoUTerm(semiMajorAxis, inclination, argumentOfLatitude, constants);
 }
@@ -99,14 +113,23 @@ export interface J2PeriodicAmplitudes {
  * @throws {InvalidArgumentError} for a non-plausible a or i outside [0, π].
  * @see Kouba (2004) [V2]; Ashby, PTTI 33 (2001), abstract [V2]; amplitudes recomputed independently [C].
  */
-export function j2PeriodicAmplitudes(semiMajorAxis: Metres, inclination: Radians, options?: ConstantsOptions): J2PeriodicAmplitudes {
+export function j2PeriodicAmplitudes(
+  semiMajorAxis: Metres,
+  inclination: Radians,
+  options?: ConstantsOptions,
+): J2PeriodicAmplitudes {
   const constants = readConstants('options', options);
   const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
   const i = checkInclination(inclination);
   const s2 = Math.sin(i) ** 2;
   const k = j2Scale(a, constants);
   const n = Math.sqrt(constants.gm / a ** 3);
-  return { residualAmplitude: 1.5 * k * s2, totalAmplitude: 0.5 * k * s2, totalFrequencyAmplitude: k * n * s2, period: Math.PI / n };
+  return {
+    residualAmplitude: 1.5 * k * s2,
+    totalAmplitude: 0.5 * k * s2,
+    totalFrequencyAmplitude: k * n * s2,
+    period: Math.PI / n,
+  };
 }
 
 /** J2·(a_e²/c²)·√(GM/a³), seconds: the common scale of the Kouba residual and total term (our own derivation [C]). */
@@ -127,8 +150,12 @@ function j2Scale(a: number, c: ConstantSet): number {
  * @throws {InvalidArgumentError} for a non-plausible a, i outside [0, π] or a non-finite u.
  * @see D. Brouwer, Astron. J. 64 (1959) 378 (short-period terms, e → 0) [M]; checked by energy conservation [C].
  */
-export function osculatingMinusMeanSemiMajorAxis(meanSemiMajorAxis: Metres, inclination: Radians,
-  argumentOfLatitude: Radians, options?: ConstantsOptions): Metres {
+export function osculatingMinusMeanSemiMajorAxis(
+  meanSemiMajorAxis: Metres,
+  inclination: Radians,
+  argumentOfLatitude: Radians,
+  options?: ConstantsOptions,
+): Metres {
   const constants = readConstants('options', options);
   const a = requireOrbitRadius('meanSemiMajorAxis', meanSemiMajorAxis);
   const i = checkInclination(inclination);
@@ -193,23 +220,45 @@ export const J2_ANALYTIC_MIN_PERIGEE_RADIUS: Metres = 25_000_000;
  * @throws {OutOfDomainError} for a perigee radius below 25 000 km.
  * @see IERS Conventions (2010) §10.2 [V1]; Kouba (2004) abstract ("up to 0.2 ns/day") [V2]; our own derivation [C].
  */
-export function j2SecularClockRate(orbit: { semiMajorAxis: Metres; eccentricity: Dimensionless; inclination: Radians;
-  semiMajorAxisKind: SemiMajorAxisKind; argumentOfLatitude?: Radians }, options?: ConstantsOptions): J2RateBreakdown {
+export function j2SecularClockRate(
+  orbit: {
+    semiMajorAxis: Metres;
+    eccentricity: Dimensionless;
+    inclination: Radians;
+    semiMajorAxisKind: SemiMajorAxisKind;
+    argumentOfLatitude?: Radians;
+  },
+  options?: ConstantsOptions,
+): J2RateBreakdown {
   const constants = readConstants('options', options);
-  if (typeof orbit !== 'object' || orbit === null) throw new InvalidArgumentError('orbit', orbit, 'an object { semiMajorAxis, eccentricity, inclination, semiMajorAxisKind }');
+  if (typeof orbit !== 'object' || orbit === null)
+    throw new InvalidArgumentError(
+      'orbit',
+      orbit,
+      'an object { semiMajorAxis, eccentricity, inclination, semiMajorAxisKind }',
+    );
   const a = requireOrbitRadius('orbit.semiMajorAxis', orbit.semiMajorAxis);
   const e = requireEccentricity('orbit.eccentricity', orbit.eccentricity);
   const i = requireInRange('orbit.inclination', orbit.inclination, 0, Math.PI, { unit: 'rad (did you give degrees?)' });
   const kind = orbit.semiMajorAxisKind;
   if (kind !== 'mean' && kind !== 'osculating') {
-    throw new InvalidArgumentError('orbit.semiMajorAxisKind', kind, '"mean" or "osculating"',
-      'the rate differs by up to ≈ 1.6e-14 (1.3 ns/day at GPS altitude) between the two');
+    throw new InvalidArgumentError(
+      'orbit.semiMajorAxisKind',
+      kind,
+      '"mean" or "osculating"',
+      'the rate differs by up to ≈ 1.6e-14 (1.3 ns/day at GPS altitude) between the two',
+    );
   }
   const perigee = a * (1 - e);
   if (perigee < J2_ANALYTIC_MIN_PERIGEE_RADIUS) {
-    throw new OutOfDomainError('orbit.semiMajorAxis × (1 − orbit.eccentricity)', perigee, `${J2_ANALYTIC_MIN_PERIGEE_RADIUS} m`, '∞',
+    throw new OutOfDomainError(
+      'orbit.semiMajorAxis × (1 − orbit.eccentricity)',
+      perigee,
+      `${J2_ANALYTIC_MIN_PERIGEE_RADIUS} m`,
+      '∞',
       'the first-order averaged formula errs by up to a few 1e-15 of rate at LEO and for HEO perigees; ' +
-      'use j2SecularClockRateFromState with the orbit\'s state vector there');
+        "use j2SecularClockRateFromState with the orbit's state vector there",
+    );
   }
   const c2 = SPEED_OF_LIGHT_SQUARED;
   const meanU = meanJ2Potential(a, e, i, constants);
@@ -218,9 +267,14 @@ export function j2SecularClockRate(orbit: { semiMajorAxis: Metres; eccentricity:
   if (kind === 'mean') {
     rate = pointMassRate - (7 * meanU) / c2;
   } else {
-    const u = requireFinite('orbit.argumentOfLatitude', orbit.argumentOfLatitude,
-      'a finite angle in radians (the osculating a depends on where on the orbit it was taken)');
-    const uJ2 = (-(constants.gm * constants.j2 * constants.equatorialRadius ** 2) / (2 * a ** 3)) * (3 * Math.sin(i) ** 2 * Math.sin(u) ** 2 - 1);
+    const u = requireFinite(
+      'orbit.argumentOfLatitude',
+      orbit.argumentOfLatitude,
+      'a finite angle in radians (the osculating a depends on where on the orbit it was taken)',
+    );
+    const uJ2 =
+      (-(constants.gm * constants.j2 * constants.equatorialRadius ** 2) / (2 * a ** 3)) *
+      (3 * Math.sin(i) ** 2 * Math.sin(u) ** 2 - 1);
     rate = pointMassRate - (3 * uJ2) / c2 - (4 * meanU) / c2;
   }
   return {
@@ -246,8 +300,12 @@ export const J2_AVERAGING_ORBITS = 8;
  * (F. J. Harris, Proc. IEEE 66 (1978) 51–83, cosᵅ windows [M]), so the 1/rev and 2/rev terms of U_J2 leave
  * < 1e-18 of rate; ∫w dt = 3W/8.
  */
-function windowedMeanJ2Potential(p: readonly [number, number, number], v: readonly [number, number, number], period: number,
-  constants: ConstantSet): number {
+function windowedMeanJ2Potential(
+  p: readonly [number, number, number],
+  v: readonly [number, number, number],
+  period: number,
+  constants: ConstantSet,
+): number {
   const gm = constants.gm;
   const k = gm * constants.j2 * constants.equatorialRadius ** 2;
   const rMin = constants.equatorialRadius;
@@ -284,8 +342,13 @@ function windowedMeanJ2Potential(p: readonly [number, number, number], v: readon
     onStep(t, y) {
       const r = Math.hypot(y[0]!, y[1]!, y[2]!);
       if (r <= rMin) {
-        throw new OutOfDomainError('trajectory radius', r, `${rMin} m (the Earth's equatorial radius)`, '∞',
-          `the orbit from this state enters the Earth by t = ${t} s; check the state (units m and m/s)`);
+        throw new OutOfDomainError(
+          'trajectory radius',
+          r,
+          `${rMin} m (the Earth's equatorial radius)`,
+          '∞',
+          `the orbit from this state enters the Earth by t = ${t} s; check the state (units m and m/s)`,
+        );
       }
     },
   });
@@ -319,12 +382,22 @@ export function j2SecularClockRateFromState(state: StateVector, options?: Consta
   const constants = readConstants('options', options);
   const { position: p, velocity: v } = requireStateVector(state);
   const r = requireOrbitRadius('|state.position|', Math.hypot(p[0], p[1], p[2]));
-  if (r <= constants.equatorialRadius) throw new InvalidArgumentError('|state.position|', r, `above the Earth's equatorial radius (${constants.equatorialRadius} m)`);
+  if (r <= constants.equatorialRadius)
+    throw new InvalidArgumentError(
+      '|state.position|',
+      r,
+      `above the Earth's equatorial radius (${constants.equatorialRadius} m)`,
+    );
   const gm = constants.gm;
   const c2 = SPEED_OF_LIGHT_SQUARED;
   const v2 = v[0] ** 2 + v[1] ** 2 + v[2] ** 2;
   const keplerEnergy = v2 / 2 - gm / r;
-  if (!(keplerEnergy < 0)) throw new InvalidArgumentError('state.velocity', v, `below escape speed (${Math.sqrt(2 * gm / r)} m/s at this radius)`);
+  if (!(keplerEnergy < 0))
+    throw new InvalidArgumentError(
+      'state.velocity',
+      v,
+      `below escape speed (${Math.sqrt((2 * gm) / r)} m/s at this radius)`,
+    );
   const a = -gm / (2 * keplerEnergy);
   const uJ2 = (-(gm * constants.j2 * constants.equatorialRadius ** 2) / (2 * r ** 3)) * ((3 * p[2] ** 2) / r ** 2 - 1);
   const energy = keplerEnergy - uJ2;
@@ -348,7 +421,14 @@ export function j2SecularClockRateFromState(state: StateVector, options?: Consta
  * Inclination and argument of latitude of a state (internal helper shared with the batch APIs).
  * Returns [i, u]; for an equatorial orbit (sin i = 0) u is the true longitude.
  */
-export function inclinationAndArgumentOfLatitude(x: number, y: number, z: number, vx: number, vy: number, vz: number): [number, number] {
+export function inclinationAndArgumentOfLatitude(
+  x: number,
+  y: number,
+  z: number,
+  vx: number,
+  vy: number,
+  vz: number,
+): [number, number] {
   const hx = y * vz - z * vy;
   const hy = z * vx - x * vz;
   const hz = x * vy - y * vx;

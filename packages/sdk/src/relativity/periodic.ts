@@ -8,12 +8,13 @@
  *
  * @module
  */
-import type { Dimensionless, Metres, Radians, Seconds } from '../units.js';
-import { SPEED_OF_LIGHT_SQUARED, type ConstantsOptions } from '../constants.js';
-import { requireEccentricity, requireFinite, requireOrbitRadius } from '../internal/validate.js';
+
+import { type ConstantsOptions, SPEED_OF_LIGHT_SQUARED } from '../constants.js';
 import { readConstants } from '../internal/options.js';
+import { requireEccentricity, requireFinite, requireOrbitRadius } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
 import { solveKepler } from '../orbit/kepler.js';
+import type { Dimensionless, Metres, Radians, Seconds } from '../units.js';
 
 /**
  * Periodic relativistic correction from orbital elements:
@@ -31,8 +32,12 @@ import { solveKepler } from '../orbit/kepler.js';
  *   e outside [0, 1), a non-finite E or a malformed constant set.
  * @see IS-GPS-200 §20.3.3.3.3.1 [M]; IERS Conventions (2010) §10.2 eq. 10.10 [V1].
  */
-export function periodicCorrectionFromElements(semiMajorAxis: Metres, eccentricity: Dimensionless,
-  eccentricAnomaly: Radians, options?: ConstantsOptions): Seconds {
+export function periodicCorrectionFromElements(
+  semiMajorAxis: Metres,
+  eccentricity: Dimensionless,
+  eccentricAnomaly: Radians,
+  options?: ConstantsOptions,
+): Seconds {
   const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
   const e = requireEccentricity('eccentricity', eccentricity);
   const E = requireFinite('eccentricAnomaly', eccentricAnomaly, 'a finite angle in radians');
@@ -68,7 +73,11 @@ export function periodicCorrectionFromState(state: StateVector): Seconds {
  * @throws {InvalidArgumentError} for an implausible a, e outside [0, 1) or a malformed constant set.
  * @see IERS Conventions (2010) §10.2 eq. 10.10 and text [V1].
  */
-export function periodicAmplitude(semiMajorAxis: Metres, eccentricity: Dimensionless, options?: ConstantsOptions): Seconds {
+export function periodicAmplitude(
+  semiMajorAxis: Metres,
+  eccentricity: Dimensionless,
+  options?: ConstantsOptions,
+): Seconds {
   const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
   const e = requireEccentricity('eccentricity', eccentricity);
   const set = readConstants('options', options);
@@ -96,8 +105,12 @@ export interface PeriodicCorrection {
  * @throws {InvalidArgumentError} as {@link periodicCorrectionFromElements}, or for a non-finite M.
  * @see IS-GPS-200 §20.3.3.3.3.1 and Table 20-IV [M]; IERS Conventions (2010) eq. 10.10 [V1].
  */
-export function periodicCorrectionAtMeanAnomaly(semiMajorAxis: Metres, eccentricity: Dimensionless,
-  meanAnomaly: Radians, options?: ConstantsOptions): PeriodicCorrection {
+export function periodicCorrectionAtMeanAnomaly(
+  semiMajorAxis: Metres,
+  eccentricity: Dimensionless,
+  meanAnomaly: Radians,
+  options?: ConstantsOptions,
+): PeriodicCorrection {
   const a = requireOrbitRadius('semiMajorAxis', semiMajorAxis);
   const e = requireEccentricity('eccentricity', eccentricity);
   const constants = readConstants('options', options);

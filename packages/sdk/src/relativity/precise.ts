@@ -9,10 +9,11 @@
  *
  * @module
  */
-import type { Seconds, Vector3 } from '../units.js';
+
 import { InvalidArgumentError } from '../errors.js';
 import { requireInRange, requireInteger, requireVector3 } from '../internal/validate.js';
 import { Instant } from '../time/instant.js';
+import type { Seconds, Vector3 } from '../units.js';
 import { periodicCorrectionFromState } from './periodic.js';
 
 /** Default number of Lagrange nodes: 9 (a degree-8 polynomial), common practice for 15-min SP3, no source. */
@@ -57,7 +58,11 @@ function requireNodes(times: unknown, values: unknown, min: number): number {
   const v = values as ArrayLike<unknown>;
   const n = t.length;
   if (n < min || n > MAX_LAGRANGE_NODES || v.length !== n) {
-    throw new InvalidArgumentError('times', n, `${min} to ${MAX_LAGRANGE_NODES} nodes and as many values (${v.length})`);
+    throw new InvalidArgumentError(
+      'times',
+      n,
+      `${min} to ${MAX_LAGRANGE_NODES} nodes and as many values (${v.length})`,
+    );
   }
   for (let j = 0; j < n; j++) {
     requireInRange(`times[${j}]`, t[j], -MAX_ABS_NODE, MAX_ABS_NODE, { unit: 's' });
@@ -69,7 +74,11 @@ function requireNodes(times: unknown, values: unknown, min: number): number {
 /** Refuses a non-finite interpolation result, which only nodes packed far closer than their span produce. */
 function requireFiniteResult(result: number, times: ArrayLike<number>): number {
   if (!Number.isFinite(result)) {
-    throw new InvalidArgumentError('times', Array.from(times), 'nodes whose spacing is not negligible against their span (the barycentric weights overflow)');
+    throw new InvalidArgumentError(
+      'times',
+      Array.from(times),
+      'nodes whose spacing is not negligible against their span (the barycentric weights overflow)',
+    );
   }
   return result;
 }
@@ -226,7 +235,10 @@ export interface PreciseCorrectionOptions {
 }
 
 /** A position node: `t` in seconds since the stream's first epoch. */
-interface Node { readonly t: number; readonly p: Vector3 }
+interface Node {
+  readonly t: number;
+  readonly p: Vector3;
+}
 interface Target {
   readonly epoch: Instant;
   /** Seconds since the stream's first epoch. */
@@ -240,12 +252,20 @@ interface Target {
 function requireStateEpoch(epoch: unknown): StateEpoch {
   const e = epoch as Partial<StateEpoch> | null;
   if (typeof e !== 'object' || e === null || !(e.epoch instanceof Instant) || !Array.isArray(e.records)) {
-    throw new InvalidArgumentError('epoch', epoch, 'a state epoch { epoch: Instant, records } (an SP3 epoch as readSp3 yields)');
+    throw new InvalidArgumentError(
+      'epoch',
+      epoch,
+      'a state epoch { epoch: Instant, records } (an SP3 epoch as readSp3 yields)',
+    );
   }
   e.records.forEach((r: unknown, i) => {
     const rec = r as Partial<SatelliteState> | null;
     if (typeof rec !== 'object' || rec === null || typeof rec.satellite !== 'string') {
-      throw new InvalidArgumentError(`epoch.records[${i}]`, r, 'a satellite record { satellite, position?, velocity? }');
+      throw new InvalidArgumentError(
+        `epoch.records[${i}]`,
+        r,
+        'a satellite record { satellite, position?, velocity? }',
+      );
     }
     if (rec.position !== undefined) requireVector3(`epoch.records[${i}].position`, rec.position, 'm');
     if (rec.velocity !== undefined) requireVector3(`epoch.records[${i}].velocity`, rec.velocity, 'm/s');
@@ -282,7 +302,13 @@ export class PreciseCorrectionStream {
 
   /** @throws {InvalidArgumentError} for a non-positive interval or a point count outside 2..16. */
   constructor(options: PreciseCorrectionOptions) {
-    if (!(typeof options?.epochInterval === 'number' && options.epochInterval > 0 && Number.isFinite(options.epochInterval))) {
+    if (
+      !(
+        typeof options?.epochInterval === 'number' &&
+        options.epochInterval > 0 &&
+        Number.isFinite(options.epochInterval)
+      )
+    ) {
       throw new InvalidArgumentError('epochInterval', options?.epochInterval, 'a positive number of seconds');
     }
     this._interval = options.epochInterval;
@@ -318,10 +344,17 @@ export class PreciseCorrectionStream {
     // Satellites listed in the file's header without a record at this epoch (the reader's list), and any
     // satellite seen before that has none: each is a gap at this epoch, never skipped.
     const absent = new Set<string>();
-    for (const sat of epoch.missingSatellites ?? []) if (!present.has(sat) && (!this._filter || this._filter.has(sat))) absent.add(sat);
+    for (const sat of epoch.missingSatellites ?? [])
+      if (!present.has(sat) && (!this._filter || this._filter.has(sat))) absent.add(sat);
     for (const sat of this._queues.keys()) if (!present.has(sat)) absent.add(sat);
     for (const sat of absent) {
-      this._queueOf(sat).push({ epoch: epoch.epoch, t, p: undefined, v: undefined, missing: 'no record at this epoch' });
+      this._queueOf(sat).push({
+        epoch: epoch.epoch,
+        t,
+        p: undefined,
+        v: undefined,
+        missing: 'no record at this epoch',
+      });
     }
     for (const sat of this._queues.keys()) this._drain(sat, t, false, out);
     return out;
@@ -357,7 +390,10 @@ export class PreciseCorrectionStream {
     for (let target = queue[0]; target !== undefined; target = queue[0]) {
       const position = target.p;
       if (target.missing !== undefined || position === undefined) {
-        out.push({ kind: 'gap', gap: { satellite: sat, epoch: target.epoch, reason: target.missing ?? 'position missing' } });
+        out.push({
+          kind: 'gap',
+          gap: { satellite: sat, epoch: target.epoch, reason: target.missing ?? 'position missing' },
+        });
         queue.shift();
         continue;
       }
@@ -377,14 +413,25 @@ export class PreciseCorrectionStream {
       const window = nearest(nodes, target.t, this._points);
       const span = Math.max(...window.map((n) => Math.abs(n.t - target.t)));
       if (window.length < this._points || span > this._maxSpan()) {
-        out.push({ kind: 'gap', gap: { satellite: sat, epoch: target.epoch,
-          reason: `too few valid positions near this epoch for ${this._points}-point Lagrange velocity (no velocity record)` } });
+        out.push({
+          kind: 'gap',
+          gap: {
+            satellite: sat,
+            epoch: target.epoch,
+            reason: `too few valid positions near this epoch for ${this._points}-point Lagrange velocity (no velocity record)`,
+          },
+        });
       } else {
         const times = window.map((n) => n.t - target.t);
         const i = times.indexOf(0);
         // One differentiation row (barycentric weights included) for x, y and z: it depends on the times only.
         const row = derivativeRow(times, i);
-        const component = (c: 0 | 1 | 2) => applyDerivativeRow(row, window.map((n) => n.p[c]), i);
+        const component = (c: 0 | 1 | 2) =>
+          applyDerivativeRow(
+            row,
+            window.map((n) => n.p[c]),
+            i,
+          );
         const v: Vector3 = [component(0), component(1), component(2)];
         out.push(this._sample(sat, target.epoch, position, v, 'lagrange'));
       }
@@ -398,11 +445,18 @@ export class PreciseCorrectionStream {
     if (drop > 0) nodes.splice(0, drop);
   }
 
-  private _sample(sat: string, epoch: Instant, position: Vector3, v: Vector3, source: 'file' | 'lagrange'): PreciseCorrectionResult {
+  private _sample(
+    sat: string,
+    epoch: Instant,
+    position: Vector3,
+    v: Vector3,
+    source: 'file' | 'lagrange',
+  ): PreciseCorrectionResult {
     return {
       kind: 'sample',
       sample: {
-        satellite: sat, epoch,
+        satellite: sat,
+        epoch,
         // IERS Conventions 2010 eq. 10.11 [V1]: Δt_r = −2 r·v/c².
         relativisticSeconds: periodicCorrectionFromState({ position, velocity: v }),
         velocitySource: source,
@@ -438,13 +492,22 @@ function nearest(nodes: readonly Node[], t: number, count: number): Node[] {
  * @throws {InvalidArgumentError} for bad options.
  * @see IERS Conventions (2010) §10.2 eq. 10.11 [V1].
  */
-export async function* preciseRelativisticCorrections(epochs: Iterable<StateEpoch> | AsyncIterable<StateEpoch>,
-  options: PreciseCorrectionOptions): AsyncGenerator<PreciseCorrectionResult> {
+export async function* preciseRelativisticCorrections(
+  epochs: Iterable<StateEpoch> | AsyncIterable<StateEpoch>,
+  options: PreciseCorrectionOptions,
+): AsyncGenerator<PreciseCorrectionResult> {
   const stream = new PreciseCorrectionStream(options);
   const iterable = epochs as Partial<AsyncIterable<StateEpoch> & Iterable<StateEpoch>> | null;
-  if (typeof iterable !== 'object' || iterable === null
-    || (typeof iterable[Symbol.asyncIterator] !== 'function' && typeof iterable[Symbol.iterator] !== 'function')) {
-    throw new InvalidArgumentError('epochs', epochs, 'an iterable or async iterable of state epochs { epoch: Instant, records } (e.g. SP3 epochs from readSp3)');
+  if (
+    typeof iterable !== 'object' ||
+    iterable === null ||
+    (typeof iterable[Symbol.asyncIterator] !== 'function' && typeof iterable[Symbol.iterator] !== 'function')
+  ) {
+    throw new InvalidArgumentError(
+      'epochs',
+      epochs,
+      'an iterable or async iterable of state epochs { epoch: Instant, records } (e.g. SP3 epochs from readSp3)',
+    );
   }
   for await (const epoch of epochs) yield* stream.push(epoch);
   yield* stream.finish();

@@ -10,19 +10,26 @@
  *
  * @module
  */
-import type { Seconds, Vector3 } from '../units.js';
-import { DEFAULT_CONSTANT_SET, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
+
+import { type ConstantSet, DEFAULT_CONSTANT_SET, SPEED_OF_LIGHT_SQUARED } from '../constants.js';
 import { InvalidArgumentError, OutOfDomainError } from '../errors.js';
 import {
-  requireConstantSet, requireInRange, requireObject, requireOptions, requireOrbitRadius, requirePositive, requireVector3,
+  requireConstantSet,
+  requireInRange,
+  requireObject,
+  requireOptions,
+  requireOrbitRadius,
+  requirePositive,
+  requireVector3,
 } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
-import { integrateDop853 } from '../orbit/integrator.js';
-import { createGravityField, GRAVITY_MODELS, type GravityModel } from '../orbit/forces.js';
 import { LOW_PRECISION_EPHEMERIS_NAME, moonPositionAt } from '../orbit/ephemeris.js';
-import { MOON_MEAN_RADIUS } from './reference-clocks.js';
-import { requireInstant, type Instant } from '../time/instant.js';
+import { createGravityField, GRAVITY_MODELS, type GravityModel } from '../orbit/forces.js';
+import { integrateDop853 } from '../orbit/integrator.js';
+import { type Instant, requireInstant } from '../time/instant.js';
 import { J2000_EPOCH, ttSecondsSinceJ2000 } from '../time/j2000.js';
+import type { Seconds, Vector3 } from '../units.js';
+import { MOON_MEAN_RADIUS } from './reference-clocks.js';
 
 /** Largest number of output samples one call may return. */
 export const MAX_PROPER_TIME_SAMPLES = 10_000_000;
@@ -95,20 +102,33 @@ const MAX_PROPER_TIME_DURATION = 1e10;
  * @throws {ConvergenceError} if the integrator cannot meet the tolerance.
  * @see IERS Conventions (2010), IERS TN 36, §10.2 eqs. 10.6–10.9 [V1]; Hairer, Nørsett & Wanner (1993) §II.5–II.6 [M].
  */
-export function integrateProperTime(state: StateVector, duration: Seconds, step: Seconds,
-  options: ProperTimeOptions = {}): ProperTimeResult {
+export function integrateProperTime(
+  state: StateVector,
+  duration: Seconds,
+  step: Seconds,
+  options: ProperTimeOptions = {},
+): ProperTimeResult {
   const { position: p, velocity: v } = requireStateVector(state);
   requireOptions('options', options);
-  const constants = options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet('options.constants', options.constants);
+  const constants =
+    options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet('options.constants', options.constants);
   const r0 = Math.hypot(p[0], p[1], p[2]);
   requireOrbitRadius('|state.position|', r0);
   const rMin = constants.equatorialRadius;
-  if (r0 <= rMin) throw new InvalidArgumentError('|state.position|', r0, `above the Earth's equatorial radius (${rMin} m)`);
+  if (r0 <= rMin)
+    throw new InvalidArgumentError('|state.position|', r0, `above the Earth's equatorial radius (${rMin} m)`);
   requireInRange('duration', duration, 0, MAX_PROPER_TIME_DURATION, { minExclusive: true, unit: 's' });
   requirePositive('step', step, 's');
-  if (step > duration) throw new InvalidArgumentError('step', step, `at most the duration (${duration} s)`, 'the step is the spacing of the output samples');
+  if (step > duration)
+    throw new InvalidArgumentError(
+      'step',
+      step,
+      `at most the duration (${duration} s)`,
+      'the step is the spacing of the output samples',
+    );
   const model = options.model ?? 'j2';
-  if (!GRAVITY_MODELS.includes(model)) throw new InvalidArgumentError('model', model, `one of ${GRAVITY_MODELS.join(', ')}`);
+  if (!GRAVITY_MODELS.includes(model))
+    throw new InvalidArgumentError('model', model, `one of ${GRAVITY_MODELS.join(', ')}`);
   const epochInstant = options.epoch === undefined ? J2000_EPOCH : requireInstant('options.epoch', options.epoch);
   // The force models and the ephemeris take TT seconds since J2000.0 as one float (internal time axis).
   const epoch = ttSecondsSinceJ2000(epochInstant);
@@ -119,7 +139,11 @@ export function integrateProperTime(state: StateVector, duration: Seconds, step:
   const endsOnGrid = Math.abs(whole * step - duration) <= 1e-9 * duration;
   const count = whole + 1 + (endsOnGrid ? 0 : 1);
   if (count > MAX_PROPER_TIME_SAMPLES) {
-    throw new InvalidArgumentError('step', step, `large enough for at most ${MAX_PROPER_TIME_SAMPLES} samples over ${duration} s`);
+    throw new InvalidArgumentError(
+      'step',
+      step,
+      `large enough for at most ${MAX_PROPER_TIME_SAMPLES} samples over ${duration} s`,
+    );
   }
   const times = new Float64Array(count);
   for (let k = 0; k <= whole; k++) times[k] = Math.min(k * step, duration);
@@ -149,8 +173,13 @@ export function integrateProperTime(state: StateVector, duration: Seconds, step:
     onStep(t, y) {
       const r = Math.hypot(y[0]!, y[1]!, y[2]!);
       if (r <= rMin) {
-        throw new OutOfDomainError('trajectory radius', r, `${rMin} m (the Earth's equatorial radius)`, '∞',
-          `the orbit enters the Earth by t = ${t} s after the start; check the state (units m and m/s)`);
+        throw new OutOfDomainError(
+          'trajectory radius',
+          r,
+          `${rMin} m (the Earth's equatorial radius)`,
+          '∞',
+          `the orbit enters the Earth by t = ${t} s after the start; check the state (units m and m/s)`,
+        );
       }
       options.onProgress?.(t, duration);
       if (model === 'full') {
@@ -158,8 +187,13 @@ export function integrateProperTime(state: StateVector, duration: Seconds, step:
         const m = moonPositionAt(epoch, t, true);
         const rho = Math.hypot(y[0]! - m[0], y[1]! - m[1], y[2]! - m[2]);
         if (rho <= MOON_MEAN_RADIUS) {
-          throw new OutOfDomainError('distance from the Moon\'s centre', rho, `${MOON_MEAN_RADIUS} m (the Moon's mean radius)`, '∞',
-            `the orbit hits the Moon by t = ${t} s after the start; check the state and the epoch`);
+          throw new OutOfDomainError(
+            "distance from the Moon's centre",
+            rho,
+            `${MOON_MEAN_RADIUS} m (the Moon's mean radius)`,
+            '∞',
+            `the orbit hits the Moon by t = ${t} s after the start; check the state and the epoch`,
+          );
         }
       }
     },
@@ -188,14 +222,30 @@ export function integrateProperTime(state: StateVector, duration: Seconds, step:
 /** Reads sample k of a result's states as a {@link StateVector}. */
 export function properTimeSampleState(result: ProperTimeResult, k: number): StateVector {
   requireObject('result', result, 'a result of integrateProperTime');
-  if (!(result.t instanceof Float64Array) || !(result.states instanceof Float64Array) || result.states.length !== 6 * result.t.length) {
-    throw new InvalidArgumentError('result', result, 'a result of integrateProperTime (t and states Float64Arrays, 6 state values per sample)');
+  if (
+    !(result.t instanceof Float64Array) ||
+    !(result.states instanceof Float64Array) ||
+    result.states.length !== 6 * result.t.length
+  ) {
+    throw new InvalidArgumentError(
+      'result',
+      result,
+      'a result of integrateProperTime (t and states Float64Arrays, 6 state values per sample)',
+    );
   }
   if (!Number.isInteger(k) || k < 0 || k >= result.t.length) {
     throw new InvalidArgumentError('k', k, `an integer sample index in [0, ${result.t.length - 1}]`);
   }
   const s = result.states;
-  const position: Vector3 = requireVector3(`result.states[${k}].position`, [s[6 * k]!, s[6 * k + 1]!, s[6 * k + 2]!], 'm');
-  const velocity: Vector3 = requireVector3(`result.states[${k}].velocity`, [s[6 * k + 3]!, s[6 * k + 4]!, s[6 * k + 5]!], 'm/s');
+  const position: Vector3 = requireVector3(
+    `result.states[${k}].position`,
+    [s[6 * k]!, s[6 * k + 1]!, s[6 * k + 2]!],
+    'm',
+  );
+  const velocity: Vector3 = requireVector3(
+    `result.states[${k}].velocity`,
+    [s[6 * k + 3]!, s[6 * k + 4]!, s[6 * k + 5]!],
+    'm/s',
+  );
   return { position, velocity };
 }

@@ -6,13 +6,14 @@
  *
  * @module
  */
-import type { Dimensionless, Metres } from '../units.js';
-import { SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet, type ConstantsOptions } from '../constants.js';
-import { constantsOf, readOptions } from '../internal/options.js';
-import { InvalidArgumentError } from '../errors.js';
+
 import { FLIGHT_CONFIGURATION_CAUTION } from '../caution.js';
+import { type ConstantSet, type ConstantsOptions, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED } from '../constants.js';
+import { InvalidArgumentError } from '../errors.js';
+import { constantsOf, readOptions } from '../internal/options.js';
 import { requireFinite, requireOrbitRadius } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
+import type { Dimensionless, Metres } from '../units.js';
 
 /** The coordinate time a rate refers to: TT (clocks on the geoid) or TCG (geocentric coordinate time). */
 export type ReferenceClock = 'tt' | 'tcg';
@@ -60,15 +61,21 @@ export interface RateBreakdown {
  */
 export function requireReferenceClock(argument: string, value: unknown): ReferenceClock {
   if (value === 'tt' || value === 'tcg') return value;
-  throw new InvalidArgumentError(argument, value, `one of ${REFERENCE_CLOCKS.join(', ')}`,
+  throw new InvalidArgumentError(
+    argument,
+    value,
+    `one of ${REFERENCE_CLOCKS.join(', ')}`,
     typeof value === 'string' && (value.toLowerCase() === 'tt' || value.toLowerCase() === 'tcg')
-      ? `use lower case: ${value.toLowerCase()}` : undefined);
+      ? `use lower case: ${value.toLowerCase()}`
+      : undefined,
+  );
 }
 
 function resolveOptions(value: RateOptions | undefined): { constants: ConstantSet; reference: ReferenceClock } {
   const options = readOptions('options', value);
   const constants = constantsOf('options', options);
-  const reference = options.reference === undefined ? 'tt' : requireReferenceClock('options.reference', options.reference);
+  const reference =
+    options.reference === undefined ? 'tt' : requireReferenceClock('options.reference', options.reference);
   return { constants, reference };
 }
 
@@ -83,8 +90,10 @@ function requireClockRadius(argument: string, value: number): number {
   const expected = `a geocentric distance in metres, from ${MIN_CLOCK_RADIUS} m (below the Earth's polar radius) to 1e10 m`;
   const r = requireFinite(argument, value, expected);
   if (r < MIN_CLOCK_RADIUS || r > 1e10) {
-    const hint = r > 0 && r < MIN_CLOCK_RADIUS && r * 1000 >= MIN_CLOCK_RADIUS && r * 1000 <= 1e10
-      ? `${r} m is inside the Earth; were the coordinates given in km (${r} km = ${r * 1000} m)?` : undefined;
+    const hint =
+      r > 0 && r < MIN_CLOCK_RADIUS && r * 1000 >= MIN_CLOCK_RADIUS && r * 1000 <= 1e10
+        ? `${r} m is inside the Earth; were the coordinates given in km (${r} km = ${r * 1000} m)?`
+        : undefined;
     throw new InvalidArgumentError(argument, value, expected, hint);
   }
   return r;
@@ -193,7 +202,11 @@ export function instantaneousClockRate(state: StateVector, options?: RateOptions
  * @see N. Ashby, "Relativistic effects on SV clocks due to orbit changes, and due to Earth's oblateness",
  *   PTTI 33 (2001) 509–524 [V2 abstract]; derived from IERS Conventions (2010) eq. 10.9 [V1].
  */
-export function rateChangeForSemiMajorAxisChange(aBefore: Metres, aAfter: Metres, options?: RateOptions): Dimensionless {
+export function rateChangeForSemiMajorAxisChange(
+  aBefore: Metres,
+  aAfter: Metres,
+  options?: RateOptions,
+): Dimensionless {
   const a0 = requireOrbitRadius('aBefore', aBefore);
   const a1 = requireOrbitRadius('aAfter', aAfter);
   const { constants } = resolveOptions(options);
@@ -215,8 +228,11 @@ export function semiMajorAxisForMeanRate(fractionalRate: Dimensionless, options?
   const { constants, reference } = resolveOptions(options);
   const lG = reference === 'tt' ? constants.lG : 0;
   if (typeof fractionalRate !== 'number' || !Number.isFinite(fractionalRate) || !(fractionalRate < lG)) {
-    throw new InvalidArgumentError('fractionalRate', fractionalRate,
-      `a finite number below ${lG} (${reference === 'tt' ? 'L_G' : '0'}), the rate of a clock at infinity`);
+    throw new InvalidArgumentError(
+      'fractionalRate',
+      fractionalRate,
+      `a finite number below ${lG} (${reference === 'tt' ? 'L_G' : '0'}), the rate of a clock at infinity`,
+    );
   }
   const a = (1.5 * constants.gm) / (SPEED_OF_LIGHT_SQUARED * (lG - fractionalRate));
   return requireOrbitRadius('semiMajorAxis (from fractionalRate)', a);

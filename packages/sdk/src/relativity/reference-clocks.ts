@@ -10,13 +10,20 @@
  *
  * @module
  */
-import type { CubicMetresPerSecondSquared, Dimensionless, Metres, Radians, RadiansPerSecond,
-  SquareMetresPerSecondSquared } from '../units.js';
-import { SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantsOptions } from '../constants.js';
-import { constantsOf, readConstants, readOptions } from '../internal/options.js';
+
+import { type ConstantsOptions, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
+import { constantsOf, readConstants, readOptions } from '../internal/options.js';
 import { requireInRange } from '../internal/validate.js';
 import { GM_MOON } from '../orbit/forces.js';
+import type {
+  CubicMetresPerSecondSquared,
+  Dimensionless,
+  Metres,
+  Radians,
+  RadiansPerSecond,
+  SquareMetresPerSecondSquared,
+} from '../units.js';
 
 /** A level reference ellipsoid with its normal gravity field (four defining constants). */
 export interface ReferenceEllipsoid {
@@ -45,7 +52,8 @@ export const GRS80_ELLIPSOID: ReferenceEllipsoid = Object.freeze({
   gm: 3.986005e14,
   rotationRate: 7.292115e-5,
   publishedNormalPotential: 62_636_860.85,
-  source: 'H. Moritz, "Geodetic Reference System 1980", Bulletin Géodésique 54 (1980) 395 / J. Geodesy 74 (2000) 128 [M]',
+  source:
+    'H. Moritz, "Geodetic Reference System 1980", Bulletin Géodésique 54 (1980) 395 / J. Geodesy 74 (2000) 128 [M]',
 });
 
 /** WGS 84: a = 6 378 137 m, 1/f = 298.257223563, GM = 3.986004418e14 m³/s², ω = 7.292115e-5 rad/s; U₀ = 62 636 851.7146 m²/s². */
@@ -74,7 +82,8 @@ function qOf(u: number, E: number): number {
 
 function checkEllipsoid(ell: unknown): ReferenceEllipsoid {
   const e = ell as ReferenceEllipsoid;
-  if (typeof e !== 'object' || e === null) throw new InvalidArgumentError('ellipsoid', ell, 'a ReferenceEllipsoid (e.g. GRS80_ELLIPSOID)');
+  if (typeof e !== 'object' || e === null)
+    throw new InvalidArgumentError('ellipsoid', ell, 'a ReferenceEllipsoid (e.g. GRS80_ELLIPSOID)');
   requireInRange('ellipsoid.semiMajorAxis', e.semiMajorAxis, 6.3e6, 6.4e6, { unit: 'm' });
   requireInRange('ellipsoid.flattening', e.flattening, 1e-4, 0.01);
   requireInRange('ellipsoid.gm', e.gm, 3.9e14, 4.1e14, { unit: 'm³/s²' });
@@ -97,7 +106,11 @@ function checkEllipsoid(ell: unknown): ReferenceEllipsoid {
  * @throws {InvalidArgumentError} for latitude or height outside range, or a malformed ellipsoid.
  * @see W. A. Heiskanen & H. Moritz, Physical Geodesy (1967), §2-7 eq. (2-126) [M]; H. Moritz, GRS 80, J. Geodesy 74 (2000) [M].
  */
-export function normalGravityPotential(latitude: Radians, height: Metres, ellipsoid: ReferenceEllipsoid = GRS80_ELLIPSOID): SquareMetresPerSecondSquared {
+export function normalGravityPotential(
+  latitude: Radians,
+  height: Metres,
+  ellipsoid: ReferenceEllipsoid = GRS80_ELLIPSOID,
+): SquareMetresPerSecondSquared {
   const phi = requireInRange('latitude', latitude, -Math.PI / 2, Math.PI / 2, { unit: 'rad (did you give degrees?)' });
   const h = requireInRange('height', height, -11_000, 1e8, { unit: 'm' });
   const ell = checkEllipsoid(ellipsoid);
@@ -118,7 +131,11 @@ function normalPotentialUnchecked(phi: number, h: number, ell: ReferenceEllipsoi
   const beta = Math.atan2(z * Math.sqrt(u2 + E * E), u * p);
   const sb2 = Math.sin(beta) ** 2;
   const w2 = ell.rotationRate ** 2;
-  return (ell.gm / E) * Math.atan(E / u) + 0.5 * w2 * a * a * (qOf(u, E) / q0) * (sb2 - 1 / 3) + 0.5 * w2 * (u2 + E * E) * (1 - sb2);
+  return (
+    (ell.gm / E) * Math.atan(E / u) +
+    0.5 * w2 * a * a * (qOf(u, E) / q0) * (sb2 - 1 / 3) +
+    0.5 * w2 * (u2 + E * E) * (1 - sb2)
+  );
 }
 
 /**
@@ -184,13 +201,19 @@ export interface GroundClockRate {
  *   outside [−11 000 m, 100 000 m], |N| > 150 m or a malformed ellipsoid.
  * @see IERS Conventions (2010) §10.1–10.2 (L_G = W₀/c²) [V1]; Heiskanen & Moritz (1967) eq. 2-126, Bruns' formula eq. 2-144 [M].
  */
-export function groundClockRate(station: { latitude: Radians; longitude: Radians; height: Metres; geoidUndulation?: Metres },
-  options: ConstantsOptions & { ellipsoid?: ReferenceEllipsoid } = {}): GroundClockRate {
+export function groundClockRate(
+  station: { latitude: Radians; longitude: Radians; height: Metres; geoidUndulation?: Metres },
+  options: ConstantsOptions & { ellipsoid?: ReferenceEllipsoid } = {},
+): GroundClockRate {
   if (typeof station !== 'object' || station === null) {
     throw new InvalidArgumentError('station', station, 'an object { latitude (rad), longitude (rad), height (m) }');
   }
-  const phi = requireInRange('station.latitude', station.latitude, -Math.PI / 2, Math.PI / 2, { unit: 'rad (did you give degrees?)' });
-  requireInRange('station.longitude', station.longitude, -2 * Math.PI, 2 * Math.PI, { unit: 'rad (did you give degrees?)' });
+  const phi = requireInRange('station.latitude', station.latitude, -Math.PI / 2, Math.PI / 2, {
+    unit: 'rad (did you give degrees?)',
+  });
+  requireInRange('station.longitude', station.longitude, -2 * Math.PI, 2 * Math.PI, {
+    unit: 'rad (did you give degrees?)',
+  });
   const h = requireInRange('station.height', station.height, -11_000, 100_000, { unit: 'm (ellipsoidal height)' });
   const N = requireInRange('station.geoidUndulation', station.geoidUndulation ?? 0, -150, 150, { unit: 'm' });
   readOptions('options', options);
@@ -211,9 +234,10 @@ export function groundClockRate(station: { latitude: Radians; longitude: Radians
     gravityPotential: W,
     geoidUndulation: N,
     ellipsoid: ell.name,
-    accuracy: station.geoidUndulation === undefined
-      ? 'geoid undulation not given: the ellipsoid stands in for the geoid; error up to ≈ 1.2e-14 (|N| ≤ ≈ 110 m). Give geoidUndulation for ≈ 1e-17.'
-      : 'normal field + Bruns term: ≈ 1e-17 with a good geoid model (tides and time-variable gravity excluded)',
+    accuracy:
+      station.geoidUndulation === undefined
+        ? 'geoid undulation not given: the ellipsoid stands in for the geoid; error up to ≈ 1.2e-14 (|N| ≤ ≈ 110 m). Give geoidUndulation for ≈ 1e-17.'
+        : 'normal field + Bruns term: ≈ 1e-17 with a good geoid model (tides and time-variable gravity excluded)',
   };
 }
 
@@ -257,7 +281,10 @@ export interface LunarClockRate {
     localKinetic: Dimensionless;
   };
   /** Each breakdown term in µs/day, same keys. */
-  breakdownMicrosecondsPerDay: Record<'geoidClock' | 'earthPotential' | 'orbitalKinetic' | 'lunarSelfPotential' | 'localKinetic', number>;
+  breakdownMicrosecondsPerDay: Record<
+    'geoidClock' | 'earthPotential' | 'orbitalKinetic' | 'lunarSelfPotential' | 'localKinetic',
+    number
+  >;
   accuracy: string;
 }
 
@@ -279,17 +306,28 @@ export interface LunarClockRate {
  * @see N. Ashby & B. Patla, arXiv:2402.11150 (2024): 56.02 µs/day at the lunar equator [V2];
  *   IERS Conventions (2010) §10.1–10.2 [V1]; term-by-term breakdown our own computation [C].
  */
-export function lunarClockRate(clock: { location: LunarClockLocation; orbitRadius?: Metres; latitude?: Radians },
-  options: ConstantsOptions & { moonGm?: CubicMetresPerSecondSquared; moonSemiMajorAxis?: Metres; moonRadius?: Metres } = {}): LunarClockRate {
-  if (typeof clock !== 'object' || clock === null) throw new InvalidArgumentError('clock', clock, 'an object { location }');
+export function lunarClockRate(
+  clock: { location: LunarClockLocation; orbitRadius?: Metres; latitude?: Radians },
+  options: ConstantsOptions & {
+    moonGm?: CubicMetresPerSecondSquared;
+    moonSemiMajorAxis?: Metres;
+    moonRadius?: Metres;
+  } = {},
+): LunarClockRate {
+  if (typeof clock !== 'object' || clock === null)
+    throw new InvalidArgumentError('clock', clock, 'an object { location }');
   const location = clock.location;
   if (location !== 'selenocentre' && location !== 'surface' && location !== 'orbit') {
     throw new InvalidArgumentError('clock.location', location, '"selenocentre", "surface" or "orbit"');
   }
   readOptions('options', options);
   const constants = constantsOf('options', options);
-  const gmM = requireInRange('options.moonGm', options.moonGm ?? GM_MOON, 4e12, 6e12, { unit: 'm³/s² (the Moon\'s GM is about 4.9028e12)' });
-  const a = requireInRange('moonSemiMajorAxis', options.moonSemiMajorAxis ?? MOON_SEMI_MAJOR_AXIS, 3.5e8, 4.2e8, { unit: 'm' });
+  const gmM = requireInRange('options.moonGm', options.moonGm ?? GM_MOON, 4e12, 6e12, {
+    unit: "m³/s² (the Moon's GM is about 4.9028e12)",
+  });
+  const a = requireInRange('moonSemiMajorAxis', options.moonSemiMajorAxis ?? MOON_SEMI_MAJOR_AXIS, 3.5e8, 4.2e8, {
+    unit: 'm',
+  });
   const R = requireInRange('moonRadius', options.moonRadius ?? MOON_MEAN_RADIUS, 1.7e6, 1.8e6, { unit: 'm' });
   const c2 = SPEED_OF_LIGHT_SQUARED;
   let rho = 0;
@@ -300,7 +338,9 @@ export function lunarClockRate(clock: { location: LunarClockLocation; orbitRadiu
     const v = ((2 * Math.PI) / MOON_SIDEREAL_ROTATION_PERIOD) * R * Math.cos(lat);
     local = -(v * v) / (2 * c2);
   } else if (location === 'orbit') {
-    rho = requireInRange('clock.orbitRadius', clock.orbitRadius, R, 6e7, { unit: 'm (selenocentric radius, above the lunar surface)' });
+    rho = requireInRange('clock.orbitRadius', clock.orbitRadius, R, 6e7, {
+      unit: 'm (selenocentric radius, above the lunar surface)',
+    });
     if (rho === R) throw new InvalidArgumentError('clock.orbitRadius', rho, `above the lunar radius ${R} m`);
     local = -gmM / (2 * rho * c2);
   }
@@ -311,7 +351,12 @@ export function lunarClockRate(clock: { location: LunarClockLocation; orbitRadiu
     lunarSelfPotential: rho === 0 ? 0 : -gmM / (rho * c2),
     localKinetic: local,
   };
-  const rate = breakdown.geoidClock + breakdown.earthPotential + breakdown.orbitalKinetic + breakdown.lunarSelfPotential + breakdown.localKinetic;
+  const rate =
+    breakdown.geoidClock +
+    breakdown.earthPotential +
+    breakdown.orbitalKinetic +
+    breakdown.lunarSelfPotential +
+    breakdown.localKinetic;
   const perDay = (x: number): number => x * SECONDS_PER_DAY * 1e6;
   return {
     location,
@@ -325,6 +370,7 @@ export function lunarClockRate(clock: { location: LunarClockLocation; orbitRadiu
       lunarSelfPotential: perDay(breakdown.lunarSelfPotential),
       localKinetic: perDay(breakdown.localKinetic),
     },
-    accuracy: 'secular rate ≈ ±0.01 µs/day (solar tides and solar perturbation of the lunar orbit omitted); periodic terms up to ≈ 0.5 µs not included',
+    accuracy:
+      'secular rate ≈ ±0.01 µs/day (solar tides and solar perturbation of the lunar orbit omitted); periodic terms up to ≈ 0.5 µs not included',
   };
 }

@@ -13,12 +13,13 @@
  *
  * @module
  */
-import type { Dimensionless, Metres, Radians, Seconds } from '../units.js';
+
 import type { ConstantsOptions } from '../constants.js';
-import { constantsOf, readOptions } from '../internal/options.js';
 import { InvalidArgumentError } from '../errors.js';
+import { constantsOf, readOptions } from '../internal/options.js';
 import { requireEccentricity, requireFinite, requireOrbitRadius, requirePositive } from '../internal/validate.js';
 import { solveKepler } from '../orbit/kepler.js';
+import type { Dimensionless, Metres, Radians, Seconds } from '../units.js';
 
 /** A Kepler orbit for {@link periodicCorrectionOnTimeGrid}. */
 export interface GridOrbit {
@@ -50,7 +51,8 @@ const MAX_STEP_ANGLE = 0.02;
 const TWO_PI = 2 * Math.PI;
 
 function requireObject(name: string, value: unknown, expected: string): Record<string, unknown> {
-  if (typeof value !== 'object' || value === null || Array.isArray(value)) throw new InvalidArgumentError(name, value, expected);
+  if (typeof value !== 'object' || value === null || Array.isArray(value))
+    throw new InvalidArgumentError(name, value, expected);
   return value as Record<string, unknown>;
 }
 
@@ -88,7 +90,11 @@ export interface TimeGridOptions extends ConstantsOptions {
  * @see IERS Conventions (2010) §10.2 eq. 10.10 [V1] (Δt_r = F·e·√a·sin E); IS-GPS-200 Table 20-IV
  *   (n = √(μ/A³), M_k = M_0 + n·t_k, Kepler's equation) [M].
  */
-export function periodicCorrectionOnTimeGrid(orbit: GridOrbit, grid: UniformTimeGrid, options?: TimeGridOptions): Float64Array {
+export function periodicCorrectionOnTimeGrid(
+  orbit: GridOrbit,
+  grid: UniformTimeGrid,
+  options?: TimeGridOptions,
+): Float64Array {
   const o = requireObject('orbit', orbit, 'an object { semiMajorAxis (m), eccentricity, meanAnomalyAtStart (rad) }');
   const g = requireObject('grid', grid, 'an object { stepSeconds (s), count }');
   const opts = readOptions('options', options);
@@ -126,7 +132,12 @@ function cosMinusOneSmall(d2: number): number {
   return -0.5 * d2 * (1 - d2 * INV_12 * (1 - d2 * INV_30 * (1 - d2 * INV_56)));
 }
 
-const INV_6 = 1 / 6, INV_12 = 1 / 12, INV_20 = 1 / 20, INV_30 = 1 / 30, INV_42 = 1 / 42, INV_56 = 1 / 56;
+const INV_6 = 1 / 6,
+  INV_12 = 1 / 12,
+  INV_20 = 1 / 20,
+  INV_30 = 1 / 30,
+  INV_42 = 1 / 42,
+  INV_56 = 1 / 56;
 
 /**
  * The recurrence of {@link periodicCorrectionOnTimeGrid}; inputs are validated.
@@ -146,8 +157,16 @@ function fillGrid(out: Float64Array, count: number, e: number, M0: number, stepA
   for (let k = 1; k < count; k++) {
     // M_k from k directly (no accumulated sum), less whole revolutions counted as they pass.
     let mk = M0 + k * stepAngle - revolutions * TWO_PI;
-    while (mk > Math.PI) { mk -= TWO_PI; revolutions++; E -= TWO_PI; }
-    while (mk < -Math.PI) { mk += TWO_PI; revolutions--; E += TWO_PI; }
+    while (mk > Math.PI) {
+      mk -= TWO_PI;
+      revolutions++;
+      E -= TWO_PI;
+    }
+    while (mk < -Math.PI) {
+      mk += TWO_PI;
+      revolutions--;
+      E += TWO_PI;
+    }
     const base = E - mk;
     let delta = (mk - m) / (1 - e * C);
     let converged = false;

@@ -5,22 +5,35 @@
  *
  * @module
  */
-import { DEFAULT_CONSTANT_SET, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, constantSet, type ConstantSet } from '../constants.js';
-import { meanClockRate, type RateBreakdown, type ReferenceClock } from '../relativity/rate.js';
-import { j2SecularClockRate, osculatingMinusMeanSemiMajorAxis } from '../relativity/j2.js';
+import {
+  type ConstantSet,
+  constantSet,
+  DEFAULT_CONSTANT_SET,
+  SECONDS_PER_DAY,
+  SPEED_OF_LIGHT_SQUARED,
+} from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
 import { MAX_SEED } from '../internal/random.js';
 import { requireInRange, requireInteger, requireOptions } from '../internal/validate.js';
-import type {
-  ConfiguredOffset, Diagnosis, DispersionAnalysis, ReviewInput, ReviewReport, ReviewSpacecraft, SpacecraftFinding, Verdict,
-} from './types.js';
-import { parseConfigured, parseReviewInput, requireNominalFrequency } from './parse.js';
-import { fmt, mistakeDiagnoses, offsetForRate, unexplainedDiagnosis, type OtherExpectation } from './mistakes.js';
+import { j2SecularClockRate, osculatingMinusMeanSemiMajorAxis } from '../relativity/j2.js';
+import { meanClockRate, type RateBreakdown, type ReferenceClock } from '../relativity/rate.js';
 import { analyseDispersion } from './dispersion.js';
+import { fmt, mistakeDiagnoses, type OtherExpectation, offsetForRate, unexplainedDiagnosis } from './mistakes.js';
+import { parseConfigured, parseReviewInput, requireNominalFrequency } from './parse.js';
+import type {
+  ConfiguredOffset,
+  Diagnosis,
+  DispersionAnalysis,
+  ReviewInput,
+  ReviewReport,
+  ReviewSpacecraft,
+  SpacecraftFinding,
+  Verdict,
+} from './types.js';
 
 /** The caution every review output carries. */
 export const REVIEW_CAUTION =
-  'These findings support a review; they do not replace it. Confirm every value against the mission\'s own interface ' +
+  "These findings support a review; they do not replace it. Confirm every value against the mission's own interface " +
   'specification and have it approved by the responsible engineering authority before it enters a flight configuration.';
 
 /** Options of {@link reviewOffsets}. */
@@ -48,7 +61,10 @@ function dyadic(x: number): { m: bigint; e: number } {
   if (x === 0) return { m: 0n, e: 0 };
   let e = 0;
   let v = x;
-  while (!Number.isInteger(v)) { v *= 2; e--; }
+  while (!Number.isInteger(v)) {
+    v *= 2;
+    e--;
+  }
   return { m: BigInt(v), e };
 }
 
@@ -57,19 +73,23 @@ function dyadic(x: number): { m: bigint; e: number } {
  * For a tuning word, f_out = word·f_clk/2^N (DDS relation; common practice, no source); the difference
  * word·f_clk − f_nominal·2^N is formed exactly in BigInt so that 64-bit words lose nothing.
  */
-export function configuredFraction(configuredOffset: ConfiguredOffset, nominalHz: number): { fraction: number; step: number | null } {
+export function configuredFraction(
+  configuredOffset: ConfiguredOffset,
+  nominalHz: number,
+): { fraction: number; step: number | null } {
   requireNominalFrequency('nominalHz', nominalHz);
   const configured = parseConfigured('configured', configuredOffset, nominalHz);
   if ('fractionalOffset' in configured) return { fraction: configured.fractionalOffset, step: null };
   if ('offsetHz' in configured) return { fraction: configured.offsetHz / nominalHz, step: null };
-  if ('offsetFrequencyHz' in configured) return { fraction: (configured.offsetFrequencyHz - nominalHz) / nominalHz, step: null };
+  if ('offsetFrequencyHz' in configured)
+    return { fraction: (configured.offsetFrequencyHz - nominalHz) / nominalHz, step: null };
   const { word, clockHz, bits } = configured.tuningWord;
   const c = dyadic(clockHz);
   const n = dyadic(nominalHz);
   // word·m_c·2^e_c − m_n·2^(e_n + N), brought to the smaller exponent.
   const e = Math.min(c.e, n.e + bits);
   const diff = BigInt(word) * c.m * (1n << BigInt(c.e - e)) - n.m * (1n << BigInt(n.e + bits - e));
-  const diffHz = Number(diff) * 2 ** e / 2 ** bits;
+  const diffHz = (Number(diff) * 2 ** e) / 2 ** bits;
   return { fraction: diffHz / nominalHz, step: clockHz / 2 ** bits / nominalHz };
 }
 
@@ -78,9 +98,13 @@ export function configuredFraction(configuredOffset: ConfiguredOffset, nominalHz
  * (3/2)J2 a_e²/a·sin²i of a_osc − ā (Brouwer 1959 [M], via {@link osculatingMinusMeanSemiMajorAxis})
  * times the rate sensitivity 3GM/(2a²c²) (derivative of IERS 2010 eq. 10.9 averaged, our own derivation [C]).
  */
-function j2Ambiguity(a: number, inclination: number, constants: ConstantSet): { metres: number; fractionalRate: number } {
+function j2Ambiguity(
+  a: number,
+  inclination: number,
+  constants: ConstantSet,
+): { metres: number; fractionalRate: number } {
   const metres = Math.abs(osculatingMinusMeanSemiMajorAxis(a, inclination, 0, { constants }));
-  return { metres, fractionalRate: (3 * constants.gm) / (2 * a * a * SPEED_OF_LIGHT_SQUARED) * metres };
+  return { metres, fractionalRate: ((3 * constants.gm) / (2 * a * a * SPEED_OF_LIGHT_SQUARED)) * metres };
 }
 
 /**
@@ -107,10 +131,13 @@ export function reviewOffsets(document: unknown, options: ReviewOptions = {}): R
   const { runs, onProgress } = settings;
   const totalDraws = runs * resolved.filter((r) => r.sc.dispersion).length;
   let drawsBefore = 0;
-  const progress = onProgress === undefined ? undefined : (done: number): void => {
-    onProgress(drawsBefore + done, totalDraws);
-    if (done === runs) drawsBefore += runs;
-  };
+  const progress =
+    onProgress === undefined
+      ? undefined
+      : (done: number): void => {
+          onProgress(drawsBefore + done, totalDraws);
+          if (done === runs) drawsBefore += runs;
+        };
   const findings = resolved.map((r, index) => reviewSpacecraft(r, index, { input, settings, resolved, progress }));
   const counts = { pass: 0, marginal: 0, fail: 0 };
   for (const f of findings) counts[f.verdict]++;
@@ -134,12 +161,24 @@ interface ReviewSettings {
 
 function readOptions(value: ReviewOptions): ReviewSettings {
   const options = requireOptions('options', value);
-  const marginalFraction = requireInRange('options.marginalFraction', options.marginalFraction ?? 0.5, 0, 1,
-    { minExclusive: true, unit: '(a fraction of the tolerance)' });
-  const runs = requireInteger('options.monteCarloRuns', options.monteCarloRuns ?? 20_000, 1, MAX_REVIEW_MONTE_CARLO_RUNS);
+  const marginalFraction = requireInRange('options.marginalFraction', options.marginalFraction ?? 0.5, 0, 1, {
+    minExclusive: true,
+    unit: '(a fraction of the tolerance)',
+  });
+  const runs = requireInteger(
+    'options.monteCarloRuns',
+    options.monteCarloRuns ?? 20_000,
+    1,
+    MAX_REVIEW_MONTE_CARLO_RUNS,
+  );
   const seed = options.seed === undefined ? 1 : requireInteger('options.seed', options.seed, 0, MAX_SEED);
-  const defaultTolerance = requireInRange('options.defaultToleranceFractional', options.defaultToleranceFractional ?? 1e-12,
-    0, 1e-6, { minExclusive: true, maxExclusive: true, unit: '(fractional frequency)' });
+  const defaultTolerance = requireInRange(
+    'options.defaultToleranceFractional',
+    options.defaultToleranceFractional ?? 1e-12,
+    0,
+    1e-6,
+    { minExclusive: true, maxExclusive: true, unit: '(fractional frequency)' },
+  );
   const onProgress = options.onProgress;
   if (onProgress !== undefined && typeof onProgress !== 'function') {
     throw new InvalidArgumentError('options.onProgress', onProgress, 'a function (done, total) => void (or omitted)');
@@ -166,9 +205,18 @@ function resolveSpacecraft(input: ReviewInput, sc: ReviewSpacecraft): ResolvedSp
   const rate = meanClockRate(semiMajorAxis, { constants: set, reference });
   // Only when the kind of a is stated (the J2 term is not applied otherwise); j2SecularClockRate refuses perigees below
   // 25 000 km. parseReviewInput has required the argument of latitude of an osculating a.
-  const j2 = kind ? j2SecularClockRate({
-    semiMajorAxis, eccentricity, inclination, semiMajorAxisKind: kind, ...(argumentOfLatitude !== undefined ? { argumentOfLatitude } : {}),
-  }, { constants: set }).j2Correction : 0;
+  const j2 = kind
+    ? j2SecularClockRate(
+        {
+          semiMajorAxis,
+          eccentricity,
+          inclination,
+          semiMajorAxisKind: kind,
+          ...(argumentOfLatitude !== undefined ? { argumentOfLatitude } : {}),
+        },
+        { constants: set },
+      ).j2Correction
+    : 0;
   const totalRate = rate.fractionalRate + j2;
   return { sc, set, reference, rate, j2, totalRate, expected: offsetForRate(totalRate) };
 }
@@ -196,41 +244,85 @@ function otherExpectations(r: ResolvedSpacecraft, resolved: readonly ResolvedSpa
  * Quantisation of the tuning-word form: can the hardware represent the expected value within tolerance?
  * `fails` when even the nearest word misses it; a note when only the configured word does.
  */
-function quantisationDiagnosis(sc: ReviewSpacecraft, expected: number, difference: number, step: number | null,
-  tolerance: number): { diagnosis: Diagnosis; fails: boolean } | undefined {
+function quantisationDiagnosis(
+  sc: ReviewSpacecraft,
+  expected: number,
+  difference: number,
+  step: number | null,
+  tolerance: number,
+): { diagnosis: Diagnosis; fails: boolean } | undefined {
   if (!('tuningWord' in sc.configured) || step === null) return undefined;
   const { clockHz, bits } = sc.configured.tuningWord;
   const exactWord = ((sc.nominalFrequencyHz * (1 + expected)) / clockHz) * 2 ** bits;
   const bestError = Math.abs(Math.round(exactWord) - exactWord) * step;
   const wouldHaveProduced = expected + (Math.round(exactWord) - exactWord) * step;
   if (bestError > tolerance) {
-    return { fails: true, diagnosis: { code: 'quantisation', matches: true, wouldHaveProduced,
-      message: `A ${bits}-bit word at ${clockHz} Hz has steps of ${fmt(step)} (fractional); even the nearest word misses the expected offset by ${fmt(bestError)}, more than the tolerance ${fmt(tolerance)}.` } };
+    return {
+      fails: true,
+      diagnosis: {
+        code: 'quantisation',
+        matches: true,
+        wouldHaveProduced,
+        message: `A ${bits}-bit word at ${clockHz} Hz has steps of ${fmt(step)} (fractional); even the nearest word misses the expected offset by ${fmt(bestError)}, more than the tolerance ${fmt(tolerance)}.`,
+      },
+    };
   }
   if (Math.abs(difference) <= tolerance) return undefined;
-  return { fails: false, diagnosis: { code: 'quantisation', matches: false, wouldHaveProduced,
-    message: `The nearest ${bits}-bit word is ${BigInt(Math.round(exactWord)).toString()} (error ${fmt(bestError)}); the configured word is ${Math.round(difference / step)} steps away from it.` } };
+  return {
+    fails: false,
+    diagnosis: {
+      code: 'quantisation',
+      matches: false,
+      wouldHaveProduced,
+      message: `The nearest ${bits}-bit word is ${BigInt(Math.round(exactWord)).toString()} (error ${fmt(bestError)}); the configured word is ${Math.round(difference / step)} steps away from it.`,
+    },
+  };
 }
 
 /** What the steering actuator can do about the error: `fails` when it cannot cover the worst ±3σ residual. */
-function actuatorDiagnosis(dispersion: DispersionAnalysis | null, range: number | undefined, verdict: Verdict,
-  difference: number): { diagnosis: Diagnosis; fails: boolean } | undefined {
+function actuatorDiagnosis(
+  dispersion: DispersionAnalysis | null,
+  range: number | undefined,
+  verdict: Verdict,
+  difference: number,
+): { diagnosis: Diagnosis; fails: boolean } | undefined {
   if (range === undefined) return undefined;
   if (dispersion && dispersion.actuatorCovers === false) {
-    return { fails: true, diagnosis: { code: 'actuator-range', matches: true, wouldHaveProduced: null,
-      message: `The worst ±3σ residual rate ${fmt(dispersion.worstResidual, 3)} exceeds the steering range ±${fmt(range, 3)}.` } };
+    return {
+      fails: true,
+      diagnosis: {
+        code: 'actuator-range',
+        matches: true,
+        wouldHaveProduced: null,
+        message: `The worst ±3σ residual rate ${fmt(dispersion.worstResidual, 3)} exceeds the steering range ±${fmt(range, 3)}.`,
+      },
+    };
   }
   if (dispersion || verdict !== 'fail') return undefined;
   const absorbable = Math.abs(difference) <= range;
-  return { fails: false, diagnosis: { code: 'actuator-range', matches: false, wouldHaveProduced: null,
-    message: absorbable
-      ? `In orbit, steering could absorb this error (${fmt(difference, 3)} of the ±${fmt(range, 3)} range), at the cost of that much range for the mission's life.`
-      : `In orbit, steering could not absorb this error: ${fmt(difference, 3)} exceeds the steering range ±${fmt(range, 3)}.` } };
+  return {
+    fails: false,
+    diagnosis: {
+      code: 'actuator-range',
+      matches: false,
+      wouldHaveProduced: null,
+      message: absorbable
+        ? `In orbit, steering could absorb this error (${fmt(difference, 3)} of the ±${fmt(range, 3)} range), at the cost of that much range for the mission's life.`
+        : `In orbit, steering could not absorb this error: ${fmt(difference, 3)} exceeds the steering range ±${fmt(range, 3)}.`,
+    },
+  };
 }
 
 /** The one-line summary of a finding. */
-function summaryOf(f: { verdict: Verdict; difference: number; tolerance: number; marginalFraction: number; expected: number;
-  configured: number; diagnosis: readonly Diagnosis[] }): string {
+function summaryOf(f: {
+  verdict: Verdict;
+  difference: number;
+  tolerance: number;
+  marginalFraction: number;
+  expected: number;
+  configured: number;
+  diagnosis: readonly Diagnosis[];
+}): string {
   const { verdict, difference, tolerance, expected } = f;
   const withinTolerance = Math.abs(difference) <= tolerance;
   if (verdict === 'pass') {
@@ -241,7 +333,9 @@ function summaryOf(f: { verdict: Verdict; difference: number; tolerance: number;
       ? `within tolerance (difference ${fmt(difference, 3)}), but the kind of semi-major axis is not stated and J2 makes that matter at this tolerance`
       : `within tolerance but with little margin: difference ${fmt(difference, 3)} against tolerance ${fmt(tolerance, 2)}`;
   }
-  const failedBy = f.diagnosis.filter((d) => d.matches && (d.code === 'actuator-range' || d.code === 'quantisation')).map((d) => d.code);
+  const failedBy = f.diagnosis
+    .filter((d) => d.matches && (d.code === 'actuator-range' || d.code === 'quantisation'))
+    .map((d) => d.code);
   return withinTolerance
     ? `the offset is within tolerance (difference ${fmt(difference, 3)}), but the configuration fails on ${failedBy.join(' and ')}`
     : `configured ${fmt(f.configured)} differs from the expected ${fmt(expected)} by ${fmt(difference, 3)}`;
@@ -256,11 +350,23 @@ function reviewSpacecraft(r: ResolvedSpacecraft, index: number, ctx: ReviewConte
   const { fraction: configured, step } = configuredFraction(sc.configured, nominal);
   const difference = configured - expected;
   const diagnosis: Diagnosis[] = [];
-  let verdict: Verdict = Math.abs(difference) > tolerance ? 'fail'
-    : Math.abs(difference) > settings.marginalFraction * tolerance ? 'marginal' : 'pass';
+  let verdict: Verdict =
+    Math.abs(difference) > tolerance
+      ? 'fail'
+      : Math.abs(difference) > settings.marginalFraction * tolerance
+        ? 'marginal'
+        : 'pass';
   let explained = false;
   if (verdict !== 'pass') {
-    const matched = mistakeDiagnoses(sc, set, reference, otherExpectations(r, ctx.resolved), configured, expected, Math.max(tolerance, step ?? 0));
+    const matched = mistakeDiagnoses(
+      sc,
+      set,
+      reference,
+      otherExpectations(r, ctx.resolved),
+      configured,
+      expected,
+      Math.max(tolerance, step ?? 0),
+    );
     diagnosis.push(...matched);
     explained = matched.length > 0;
   }
@@ -279,16 +385,29 @@ function reviewSpacecraft(r: ResolvedSpacecraft, index: number, ctx: ReviewConte
   const ambiguous = !sc.orbit.semiMajorAxisKind && ambiguity.fractionalRate > 0.5 * tolerance;
   if (ambiguous && verdict === 'pass') verdict = 'marginal';
   if (ambiguous) {
-    diagnosis.push({ code: 'semi-major-axis-kind', matches: false, wouldHaveProduced: null,
-      message: `Under J2 the osculating and mean semi-major axes differ by up to ${ambiguity.metres.toFixed(0)} m here, a rate ambiguity of ${fmt(ambiguity.fractionalRate, 3)}, which is not small against the tolerance ${fmt(tolerance, 3)}: state which a the orbit value is (orbit.semiMajorAxisKind).` });
+    diagnosis.push({
+      code: 'semi-major-axis-kind',
+      matches: false,
+      wouldHaveProduced: null,
+      message: `Under J2 the osculating and mean semi-major axes differ by up to ${ambiguity.metres.toFixed(0)} m here, a rate ambiguity of ${fmt(ambiguity.fractionalRate, 3)}, which is not small against the tolerance ${fmt(tolerance, 3)}: state which a the orbit value is (orbit.semiMajorAxisKind).`,
+    });
   }
 
   const range = (sc.actuator ?? input.actuator)?.rangeFractional;
-  const dispersion = sc.dispersion ? analyseDispersion({
-    a0: sc.orbit.semiMajorAxis, sigma: sc.dispersion.semiMajorAxisSigma, set, reference, configured, actuatorRange: range ?? null,
-    phaseTolerance: sc.phaseToleranceSeconds ?? input.phaseToleranceSeconds ?? null, runs: settings.runs,
-    seed: (settings.seed + index) % (MAX_SEED + 1), onProgress: ctx.progress,
-  }) : null;
+  const dispersion = sc.dispersion
+    ? analyseDispersion({
+        a0: sc.orbit.semiMajorAxis,
+        sigma: sc.dispersion.semiMajorAxisSigma,
+        set,
+        reference,
+        configured,
+        actuatorRange: range ?? null,
+        phaseTolerance: sc.phaseToleranceSeconds ?? input.phaseToleranceSeconds ?? null,
+        runs: settings.runs,
+        seed: (settings.seed + index) % (MAX_SEED + 1),
+        onProgress: ctx.progress,
+      })
+    : null;
   const actuator = actuatorDiagnosis(dispersion, range, verdict, difference);
   if (actuator) {
     diagnosis.push(actuator.diagnosis);
@@ -296,7 +415,12 @@ function reviewSpacecraft(r: ResolvedSpacecraft, index: number, ctx: ReviewConte
   }
 
   return {
-    id: sc.id, verdict, constants: set.name, reference, nominalFrequencyHz: nominal, semiMajorAxis: sc.orbit.semiMajorAxis,
+    id: sc.id,
+    verdict,
+    constants: set.name,
+    reference,
+    nominalFrequencyHz: nominal,
+    semiMajorAxis: sc.orbit.semiMajorAxis,
     expectedFractionalOffset: expected,
     expectedFrequencyHz: nominal + nominal * expected,
     configuredFractionalOffset: configured,
@@ -306,12 +430,24 @@ function reviewSpacecraft(r: ResolvedSpacecraft, index: number, ctx: ReviewConte
     differenceNanosecondsPerDay: difference * SECONDS_PER_DAY * 1e9,
     toleranceFractional: tolerance,
     budget: {
-      gravitational: rate.gravitational, velocity: rate.velocity, j2, j2Included: Boolean(sc.orbit.semiMajorAxisKind),
-      fractionalRate: totalRate, j2Ambiguity: ambiguity.fractionalRate,
+      gravitational: rate.gravitational,
+      velocity: rate.velocity,
+      j2,
+      j2Included: Boolean(sc.orbit.semiMajorAxisKind),
+      fractionalRate: totalRate,
+      j2Ambiguity: ambiguity.fractionalRate,
     },
     quantisationStepFractional: step,
     diagnosis,
     dispersion,
-    summary: summaryOf({ verdict, difference, tolerance, marginalFraction: settings.marginalFraction, expected, configured, diagnosis }),
+    summary: summaryOf({
+      verdict,
+      difference,
+      tolerance,
+      marginalFraction: settings.marginalFraction,
+      expected,
+      configured,
+      diagnosis,
+    }),
   };
 }

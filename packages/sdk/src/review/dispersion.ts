@@ -4,10 +4,10 @@
  *
  * @internal
  */
-import { SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED, type ConstantSet } from '../constants.js';
-import type { ReferenceClock } from '../relativity/rate.js';
+import { type ConstantSet, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED } from '../constants.js';
 import { createRandom } from '../internal/random.js';
 import { normalCdf } from '../internal/special-functions.js';
+import type { ReferenceClock } from '../relativity/rate.js';
 import { rateFor } from './mistakes.js';
 import type { DispersionAnalysis } from './types.js';
 
@@ -45,7 +45,12 @@ export function analyseDispersion(c: DispersionCase): DispersionAnalysis {
   // In orbit the configured oscillator runs at (1 + c)(1 + r(a)) − 1 against the reference (product of the two rates).
   const residual = (a: number) => (1 + configured) * (1 + rateFor(a, set.gm, set.lG, reference)) - 1;
   // Unsteered phase walk-off |x(t)| = |r|·t reaches the tolerance after tol/|r| (elementary, common practice, no source).
-  const days = (r: number) => (phaseTolerance === null ? null : r === 0 ? Number.POSITIVE_INFINITY : phaseTolerance / Math.abs(r) / SECONDS_PER_DAY);
+  const days = (r: number) =>
+    phaseTolerance === null
+      ? null
+      : r === 0
+        ? Number.POSITIVE_INFINITY
+        : phaseTolerance / Math.abs(r) / SECONDS_PER_DAY;
   const minus = residual(a0 - 3 * sigma);
   const nominal = residual(a0);
   const plus = residual(a0 + 3 * sigma);

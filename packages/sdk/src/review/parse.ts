@@ -4,10 +4,17 @@
  *
  * @module
  */
-import { InvalidArgumentError } from '../errors.js';
+
 import { CONSTANT_SETS } from '../constants.js';
+import { InvalidArgumentError } from '../errors.js';
 import {
-  rejectUnknownKeys, requireEccentricity, requireFinite, requireFrequency, requireInRange, requireInteger, requireOrbitRadius,
+  rejectUnknownKeys,
+  requireEccentricity,
+  requireFinite,
+  requireFrequency,
+  requireInRange,
+  requireInteger,
+  requireOrbitRadius,
   requirePositive,
 } from '../internal/validate.js';
 import type { ConfiguredOffset, ReviewInput, ReviewLimits, ReviewSpacecraft } from './types.js';
@@ -25,7 +32,8 @@ function requireObject(path: string, v: unknown): Record<string, unknown> {
 export function requireNominalFrequency(path: string, v: unknown): number {
   const f = requireFinite(path, v, 'a frequency in Hz between 1e3 and 1e11');
   if (f < 1e3 || f > 1e11) {
-    const hint = f > 0 && f < 1e3 ? `${f} Hz is implausibly low; was it given in MHz (${f} MHz = ${f * 1e6} Hz)?` : undefined;
+    const hint =
+      f > 0 && f < 1e3 ? `${f} Hz is implausibly low; was it given in MHz (${f} MHz = ${f * 1e6} Hz)?` : undefined;
     throw new InvalidArgumentError(path, v, 'a frequency in Hz between 1e3 and 1e11', hint);
   }
   return f;
@@ -33,33 +41,37 @@ export function requireNominalFrequency(path: string, v: unknown): number {
 
 function parseLimits(path: string, o: Record<string, unknown>): ReviewLimits {
   const limits: { -readonly [K in keyof ReviewLimits]: ReviewLimits[K] } = {};
-  if (o['tolerance'] !== undefined) {
-    const t = requireObject(`${path}tolerance`, o['tolerance']);
-    const frac = requirePositive(`${path}tolerance.fractional`, t['fractional']);
+  if (o.tolerance !== undefined) {
+    const t = requireObject(`${path}tolerance`, o.tolerance);
+    const frac = requirePositive(`${path}tolerance.fractional`, t.fractional);
     if (frac >= 1e-6) {
-      throw new InvalidArgumentError(`${path}tolerance.fractional`, frac, 'a fractional frequency below 1e-6 (e.g. 1e-12)',
-        'a tolerance this large accepts any offset; is it in parts per million rather than a fraction?');
+      throw new InvalidArgumentError(
+        `${path}tolerance.fractional`,
+        frac,
+        'a fractional frequency below 1e-6 (e.g. 1e-12)',
+        'a tolerance this large accepts any offset; is it in parts per million rather than a fraction?',
+      );
     }
     limits.tolerance = { fractional: frac };
   }
-  if (o['constants'] !== undefined) {
-    const name = o['constants'];
+  if (o.constants !== undefined) {
+    const name = o.constants;
     if (typeof name !== 'string' || !Object.hasOwn(CONSTANT_SETS, name.toLowerCase())) {
       throw new InvalidArgumentError(`${path}constants`, name, `one of ${Object.keys(CONSTANT_SETS).join(', ')}`);
     }
     limits.constants = name.toLowerCase();
   }
-  if (o['reference'] !== undefined) {
-    const r = o['reference'];
+  if (o.reference !== undefined) {
+    const r = o.reference;
     if (r !== 'tt' && r !== 'tcg') throw new InvalidArgumentError(`${path}reference`, r, '"tt" or "tcg"');
     limits.reference = r;
   }
-  if (o['actuator'] !== undefined) {
-    const a = requireObject(`${path}actuator`, o['actuator']);
-    limits.actuator = { rangeFractional: requirePositive(`${path}actuator.rangeFractional`, a['rangeFractional']) };
+  if (o.actuator !== undefined) {
+    const a = requireObject(`${path}actuator`, o.actuator);
+    limits.actuator = { rangeFractional: requirePositive(`${path}actuator.rangeFractional`, a.rangeFractional) };
   }
-  if (o['phaseToleranceSeconds'] !== undefined) {
-    limits.phaseToleranceSeconds = requirePositive(`${path}phaseToleranceSeconds`, o['phaseToleranceSeconds'], 's');
+  if (o.phaseToleranceSeconds !== undefined) {
+    limits.phaseToleranceSeconds = requirePositive(`${path}phaseToleranceSeconds`, o.phaseToleranceSeconds, 's');
   }
   return limits;
 }
@@ -70,24 +82,38 @@ export function parseConfigured(path: string, v: unknown, nominal: number): Conf
   const forms = ['offsetFrequencyHz', 'offsetHz', 'fractionalOffset', 'tuningWord'].filter((k) => o[k] !== undefined);
   const [form] = forms;
   if (forms.length !== 1 || form === undefined) {
-    throw new InvalidArgumentError(path, v,
-      'an object with exactly one of offsetFrequencyHz, offsetHz, fractionalOffset, tuningWord');
+    throw new InvalidArgumentError(
+      path,
+      v,
+      'an object with exactly one of offsetFrequencyHz, offsetHz, fractionalOffset, tuningWord',
+    );
   }
   rejectUnknownKeys(path, o, [form]);
   if (form === 'offsetFrequencyHz') {
     const f = requireFinite(`${path}.offsetFrequencyHz`, o[form], 'the configured output frequency in Hz');
     if (Math.abs(f - nominal) > 1e-3 * nominal) {
-      throw new InvalidArgumentError(`${path}.offsetFrequencyHz`, f,
+      throw new InvalidArgumentError(
+        `${path}.offsetFrequencyHz`,
+        f,
         `the configured output frequency in Hz, within 0.1 % of the nominal ${nominal} Hz`,
-        Math.abs(f) < 1e-3 * nominal ? 'this looks like a difference from nominal: give it as "offsetHz" instead' : undefined);
+        Math.abs(f) < 1e-3 * nominal
+          ? 'this looks like a difference from nominal: give it as "offsetHz" instead'
+          : undefined,
+      );
     }
     return { offsetFrequencyHz: f };
   }
   if (form === 'offsetHz') {
     const d = requireFinite(`${path}.offsetHz`, o[form], 'the configured frequency minus nominal, in Hz');
     if (Math.abs(d) > 1e-3 * nominal) {
-      throw new InvalidArgumentError(`${path}.offsetHz`, d, `a difference from nominal smaller than 0.1 % of ${nominal} Hz`,
-        Math.abs(d - nominal) < 1e-3 * nominal ? 'this looks like the output frequency itself: give it as "offsetFrequencyHz"' : undefined);
+      throw new InvalidArgumentError(
+        `${path}.offsetHz`,
+        d,
+        `a difference from nominal smaller than 0.1 % of ${nominal} Hz`,
+        Math.abs(d - nominal) < 1e-3 * nominal
+          ? 'this looks like the output frequency itself: give it as "offsetFrequencyHz"'
+          : undefined,
+      );
     }
     return { offsetHz: d };
   }
@@ -96,9 +122,9 @@ export function parseConfigured(path: string, v: unknown, nominal: number): Conf
   }
   const t = requireObject(`${path}.tuningWord`, o[form]);
   rejectUnknownKeys(`${path}.tuningWord`, t, ['word', 'clockHz', 'bits']);
-  const bits = requireInteger(`${path}.tuningWord.bits`, t['bits'], 8, 64);
-  const clockHz = requireFrequency(`${path}.tuningWord.clockHz`, t['clockHz']);
-  const word = t['word'];
+  const bits = requireInteger(`${path}.tuningWord.bits`, t.bits, 8, 64);
+  const clockHz = requireFrequency(`${path}.tuningWord.clockHz`, t.clockHz);
+  const word = t.word;
   let big: bigint;
   try {
     if (typeof word === 'number') {
@@ -108,8 +134,11 @@ export function parseConfigured(path: string, v: unknown, nominal: number): Conf
       big = BigInt(word.trim());
     } else throw new Error('format');
   } catch {
-    throw new InvalidArgumentError(`${path}.tuningWord.word`, word,
-      'a non-negative integer (a decimal or 0x-hex string for words beyond 2^53)');
+    throw new InvalidArgumentError(
+      `${path}.tuningWord.word`,
+      word,
+      'a non-negative integer (a decimal or 0x-hex string for words beyond 2^53)',
+    );
   }
   if (big < 0n || big >= 1n << BigInt(bits)) {
     throw new InvalidArgumentError(`${path}.tuningWord.word`, word, `an integer in [0, 2^${bits})`);
@@ -117,13 +146,23 @@ export function parseConfigured(path: string, v: unknown, nominal: number): Conf
   return { tuningWord: { word: big.toString(), clockHz, bits } };
 }
 
-function parseSemiMajorAxisKind(path: string, o: Record<string, unknown>): { semiMajorAxisKind?: 'mean' | 'osculating'; argumentOfLatitude?: number } {
-  const kind = o['semiMajorAxisKind'];
+function parseSemiMajorAxisKind(
+  path: string,
+  o: Record<string, unknown>,
+): { semiMajorAxisKind?: 'mean' | 'osculating'; argumentOfLatitude?: number } {
+  const kind = o.semiMajorAxisKind;
   if (kind === undefined) return {};
-  if (kind !== 'mean' && kind !== 'osculating') throw new InvalidArgumentError(`${path}.semiMajorAxisKind`, kind, '"mean" or "osculating"');
+  if (kind !== 'mean' && kind !== 'osculating')
+    throw new InvalidArgumentError(`${path}.semiMajorAxisKind`, kind, '"mean" or "osculating"');
   if (kind === 'mean') return { semiMajorAxisKind: kind };
-  return { semiMajorAxisKind: kind, argumentOfLatitude: requireFinite(`${path}.argumentOfLatitude`, o['argumentOfLatitude'],
-    'the argument of latitude (radians) where the osculating semi-major axis was taken') };
+  return {
+    semiMajorAxisKind: kind,
+    argumentOfLatitude: requireFinite(
+      `${path}.argumentOfLatitude`,
+      o.argumentOfLatitude,
+      'the argument of latitude (radians) where the osculating semi-major axis was taken',
+    ),
+  };
 }
 
 /**
@@ -134,35 +173,54 @@ function parseSemiMajorAxisKind(path: string, o: Record<string, unknown>): { sem
 export function parseReviewInput(document: unknown): ReviewInput {
   const root = requireObject('review', document);
   const top = parseLimits('', root);
-  const topNominal = root['nominalFrequencyHz'] === undefined ? undefined
-    : requireNominalFrequency('nominalFrequencyHz', root['nominalFrequencyHz']);
-  if (root['title'] !== undefined && typeof root['title'] !== 'string') throw new InvalidArgumentError('title', root['title'], 'a string');
-  const list = root['spacecraft'];
-  if (!Array.isArray(list) || list.length === 0) throw new InvalidArgumentError('spacecraft', list, 'a non-empty array of spacecraft objects');
+  const topNominal =
+    root.nominalFrequencyHz === undefined
+      ? undefined
+      : requireNominalFrequency('nominalFrequencyHz', root.nominalFrequencyHz);
+  if (root.title !== undefined && typeof root.title !== 'string')
+    throw new InvalidArgumentError('title', root.title, 'a string');
+  const list = root.spacecraft;
+  if (!Array.isArray(list) || list.length === 0)
+    throw new InvalidArgumentError('spacecraft', list, 'a non-empty array of spacecraft objects');
   const ids = new Set<string>();
   const spacecraft: ReviewSpacecraft[] = list.map((item, i) => {
     const p = `spacecraft[${i}]`;
     const o = requireObject(p, item);
-    const id = o['id'];
+    const id = o.id;
     if (typeof id !== 'string' || id.trim() === '') throw new InvalidArgumentError(`${p}.id`, id, 'a non-empty string');
     if (ids.has(id)) throw new InvalidArgumentError(`${p}.id`, id, 'an id not used by another spacecraft in the file');
     ids.add(id);
-    const nominal = o['nominalFrequencyHz'] === undefined
-      ? (topNominal ?? requireNominalFrequency(`${p}.nominalFrequencyHz`, undefined))
-      : requireNominalFrequency(`${p}.nominalFrequencyHz`, o['nominalFrequencyHz']);
-    const orbitObj = requireObject(`${p}.orbit`, o['orbit']);
+    const nominal =
+      o.nominalFrequencyHz === undefined
+        ? (topNominal ?? requireNominalFrequency(`${p}.nominalFrequencyHz`, undefined))
+        : requireNominalFrequency(`${p}.nominalFrequencyHz`, o.nominalFrequencyHz);
+    const orbitObj = requireObject(`${p}.orbit`, o.orbit);
     const orbit = {
-      semiMajorAxis: requireOrbitRadius(`${p}.orbit.semiMajorAxis`, orbitObj['semiMajorAxis']),
-      eccentricity: orbitObj['eccentricity'] === undefined ? 0 : requireEccentricity(`${p}.orbit.eccentricity`, orbitObj['eccentricity']),
-      inclination: orbitObj['inclination'] === undefined ? 0
-        : requireInRange(`${p}.orbit.inclination`, orbitObj['inclination'], 0, Math.PI, { unit: 'rad (a value above π is probably degrees)' }),
+      semiMajorAxis: requireOrbitRadius(`${p}.orbit.semiMajorAxis`, orbitObj.semiMajorAxis),
+      eccentricity:
+        orbitObj.eccentricity === undefined ? 0 : requireEccentricity(`${p}.orbit.eccentricity`, orbitObj.eccentricity),
+      inclination:
+        orbitObj.inclination === undefined
+          ? 0
+          : requireInRange(`${p}.orbit.inclination`, orbitObj.inclination, 0, Math.PI, {
+              unit: 'rad (a value above π is probably degrees)',
+            }),
       ...parseSemiMajorAxisKind(`${p}.orbit`, orbitObj),
     };
     let dispersion: { semiMajorAxisSigma: number } | undefined;
-    if (o['dispersion'] !== undefined) {
-      const d = requireObject(`${p}.dispersion`, o['dispersion']);
-      const s = requireFinite(`${p}.dispersion.semiMajorAxisSigma`, d['semiMajorAxisSigma'], 'a 1σ semi-major-axis dispersion in metres, ≥ 0 and below 1e6');
-      if (s < 0 || s >= 1e6) throw new InvalidArgumentError(`${p}.dispersion.semiMajorAxisSigma`, s, 'a 1σ semi-major-axis dispersion in metres, ≥ 0 and below 1e6');
+    if (o.dispersion !== undefined) {
+      const d = requireObject(`${p}.dispersion`, o.dispersion);
+      const s = requireFinite(
+        `${p}.dispersion.semiMajorAxisSigma`,
+        d.semiMajorAxisSigma,
+        'a 1σ semi-major-axis dispersion in metres, ≥ 0 and below 1e6',
+      );
+      if (s < 0 || s >= 1e6)
+        throw new InvalidArgumentError(
+          `${p}.dispersion.semiMajorAxisSigma`,
+          s,
+          'a 1σ semi-major-axis dispersion in metres, ≥ 0 and below 1e6',
+        );
       dispersion = { semiMajorAxisSigma: s };
     }
     const limits = parseLimits(`${p}.`, o);
@@ -170,11 +228,16 @@ export function parseReviewInput(document: unknown): ReviewInput {
       ...o,
       id,
       nominalFrequencyHz: nominal,
-      configured: parseConfigured(`${p}.configured`, o['configured'], nominal),
+      configured: parseConfigured(`${p}.configured`, o.configured, nominal),
       orbit,
       ...(dispersion ? { dispersion } : {}),
       ...limits,
     } as ReviewSpacecraft;
   });
-  return { ...root, ...top, ...(topNominal !== undefined ? { nominalFrequencyHz: topNominal } : {}), spacecraft } as ReviewInput;
+  return {
+    ...root,
+    ...top,
+    ...(topNominal !== undefined ? { nominalFrequencyHz: topNominal } : {}),
+    spacecraft,
+  } as ReviewInput;
 }

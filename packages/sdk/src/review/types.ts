@@ -4,8 +4,9 @@
  *
  * @module
  */
-import type { Dimensionless, Hertz, Metres, Radians, Seconds } from '../units.js';
+
 import type { ReferenceClock } from '../relativity/rate.js';
+import type { Dimensionless, Hertz, Metres, Radians, Seconds } from '../units.js';
 
 /** How the oscillator offset was configured, exactly one of three forms. */
 export type ConfiguredOffset =
@@ -132,7 +133,11 @@ export interface DispersionAnalysis {
    */
   readonly percentiles: readonly DispersionPercentile[];
   /** Seeded Monte Carlo of the same percentiles: a sampling cross-check of `percentiles` (agrees within sampling error). */
-  readonly monteCarlo: { readonly runs: number; readonly seed: number; readonly percentiles: readonly DispersionPercentile[] };
+  readonly monteCarlo: {
+    readonly runs: number;
+    readonly seed: number;
+    readonly percentiles: readonly DispersionPercentile[];
+  };
 }
 
 /** Findings for one spacecraft. */

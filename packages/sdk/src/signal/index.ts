@@ -1,7 +1,11 @@
 /** Signal-path terms a ground service removes before estimating a clock: Sagnac, Shapiro, light time. */
-export { sagnacCorrection, sagnacDelayForArea, maximumSagnacCorrection } from './sagnac.js';
-export { shapiroDelay, shapiroDelayBetween } from './shapiro.js';
+
 export {
-  type LightTimeOptions, type LightTimeSolution, type EarthFixedLightTimeSolution,
-  solveLightTimeInertial, solveLightTimeEarthFixed,
+  type EarthFixedLightTimeSolution,
+  type LightTimeOptions,
+  type LightTimeSolution,
+  solveLightTimeEarthFixed,
+  solveLightTimeInertial,
 } from './light-time.js';
+export { maximumSagnacCorrection, sagnacCorrection, sagnacDelayForArea } from './sagnac.js';
+export { shapiroDelay, shapiroDelayBetween } from './shapiro.js';

@@ -6,12 +6,13 @@
  *
  * @module
  */
-import type { CubicMetresPerSecondSquared, Metres, RadiansPerSecond, Seconds, Vector3 } from '../units.js';
+
 import { DEFAULT_CONSTANT_SET, SPEED_OF_LIGHT } from '../constants.js';
 import { ConvergenceError, InvalidArgumentError } from '../errors.js';
 import { requireFinite, requireInteger, requirePositive, requireVector3 } from '../internal/validate.js';
-import { shapiroDelay } from './shapiro.js';
+import type { CubicMetresPerSecondSquared, Metres, RadiansPerSecond, Seconds, Vector3 } from '../units.js';
 import { sagnacCorrection } from './sagnac.js';
+import { shapiroDelay } from './shapiro.js';
 
 /** Options of the light-time solvers. */
 export interface LightTimeOptions {
@@ -64,8 +65,12 @@ function position(fn: (t: Seconds) => Vector3, t: number): [number, number, numb
   return requireVector3(`satellitePosition(${t})`, fn(t), 'metres');
 }
 
-function solve(receiveTime: number, receiver: [number, number, number], at: (tau: number) => [number, number, number],
-  opts: { shapiro: boolean; gm: number; tol: number; maxIt: number }): LightTimeSolution {
+function solve(
+  receiveTime: number,
+  receiver: [number, number, number],
+  at: (tau: number) => [number, number, number],
+  opts: { shapiro: boolean; gm: number; tol: number; maxIt: number },
+): LightTimeSolution {
   let tau = 0;
   let x = at(0);
   let range = 0;
@@ -79,7 +84,14 @@ function solve(receiveTime: number, receiver: [number, number, number], at: (tau
     x = at(tau);
     if (change <= opts.tol) {
       range = Math.hypot(x[0] - receiver[0], x[1] - receiver[1], x[2] - receiver[2]);
-      return { transmitTime: receiveTime - tau, flightTime: tau, geometricRange: range, shapiroDelay: shap, satellitePosition: x, iterations: k };
+      return {
+        transmitTime: receiveTime - tau,
+        flightTime: tau,
+        geometricRange: range,
+        shapiroDelay: shap,
+        satellitePosition: x,
+        iterations: k,
+      };
     }
   }
   throw new ConvergenceError('light-time iteration', opts.maxIt, Math.abs(range / SPEED_OF_LIGHT + shap - tau));
@@ -100,11 +112,20 @@ function solve(receiveTime: number, receiver: [number, number, number], at: (tau
  * @throws {ConvergenceError} if the iteration limit is reached.
  * @see IERS Conventions (2010) §11.2 (light time with the Shapiro term, eq. 11.17) [V1].
  */
-export function solveLightTimeInertial(receiveTime: Seconds, receiverPosition: Vector3,
-  satellitePosition: (t: Seconds) => Vector3, options: LightTimeOptions = {}): LightTimeSolution {
+export function solveLightTimeInertial(
+  receiveTime: Seconds,
+  receiverPosition: Vector3,
+  satellitePosition: (t: Seconds) => Vector3,
+  options: LightTimeOptions = {},
+): LightTimeSolution {
   const tr = requireFinite('receiveTime', receiveTime, 'a finite time in seconds');
   const xr = requireVector3('receiverPosition', receiverPosition, 'metres');
-  if (typeof satellitePosition !== 'function') throw new InvalidArgumentError('satellitePosition', satellitePosition, 'a function (t: seconds) => [x, y, z] metres');
+  if (typeof satellitePosition !== 'function')
+    throw new InvalidArgumentError(
+      'satellitePosition',
+      satellitePosition,
+      'a function (t: seconds) => [x, y, z] metres',
+    );
   return solve(tr, xr, (tau) => position(satellitePosition, tr - tau), readOptions(options));
 }
 
@@ -123,12 +144,25 @@ export function solveLightTimeInertial(receiveTime: Seconds, receiverPosition: V
  * @throws {ConvergenceError} if the iteration limit is reached.
  * @see IERS Conventions (2010) §11.2 [V1]; N. Ashby, Living Rev. Relativity 6 (2003) §2 (Sagnac) [V2 text].
  */
-export function solveLightTimeEarthFixed(receiveTime: Seconds, receiverPositionEcef: Vector3,
-  satellitePositionEcef: (t: Seconds) => Vector3, options: LightTimeOptions & { earthRotationRate?: RadiansPerSecond } = {}): EarthFixedLightTimeSolution {
+export function solveLightTimeEarthFixed(
+  receiveTime: Seconds,
+  receiverPositionEcef: Vector3,
+  satellitePositionEcef: (t: Seconds) => Vector3,
+  options: LightTimeOptions & { earthRotationRate?: RadiansPerSecond } = {},
+): EarthFixedLightTimeSolution {
   const tr = requireFinite('receiveTime', receiveTime, 'a finite time in seconds');
   const xr = requireVector3('receiverPositionEcef', receiverPositionEcef, 'metres');
-  if (typeof satellitePositionEcef !== 'function') throw new InvalidArgumentError('satellitePositionEcef', satellitePositionEcef, 'a function (t: seconds) => [x, y, z] metres');
-  const w = requirePositive('earthRotationRate', options.earthRotationRate ?? DEFAULT_CONSTANT_SET.earthRotationRate, 'rad/s');
+  if (typeof satellitePositionEcef !== 'function')
+    throw new InvalidArgumentError(
+      'satellitePositionEcef',
+      satellitePositionEcef,
+      'a function (t: seconds) => [x, y, z] metres',
+    );
+  const w = requirePositive(
+    'earthRotationRate',
+    options.earthRotationRate ?? DEFAULT_CONSTANT_SET.earthRotationRate,
+    'rad/s',
+  );
   if (w < 7.0e-5 || w > 7.5e-5) throw new InvalidArgumentError('earthRotationRate', w, 'in [7.0e-5, 7.5e-5] rad/s');
   const rotate = (tau: number): [number, number, number] => {
     const p = position(satellitePositionEcef, tr - tau);

@@ -7,14 +7,16 @@
  *
  * @module
  */
-import type { Metres, RadiansPerSecond, Seconds, Vector3 } from '../units.js';
+
 import { DEFAULT_CONSTANT_SET, SPEED_OF_LIGHT_SQUARED } from '../constants.js';
-import { requireFinite, requirePositive, requireVector3 } from '../internal/validate.js';
 import { InvalidArgumentError } from '../errors.js';
+import { requireFinite, requirePositive, requireVector3 } from '../internal/validate.js';
+import type { Metres, RadiansPerSecond, Seconds, Vector3 } from '../units.js';
 
 function rotationRate(value: unknown): number {
   const w = requirePositive('earthRotationRate', value, 'rad/s');
-  if (w < 7.0e-5 || w > 7.5e-5) throw new InvalidArgumentError('earthRotationRate', w, 'in [7.0e-5, 7.5e-5] rad/s (the Earth\'s rotation rate)');
+  if (w < 7.0e-5 || w > 7.5e-5)
+    throw new InvalidArgumentError('earthRotationRate', w, "in [7.0e-5, 7.5e-5] rad/s (the Earth's rotation rate)");
   return w;
 }
 
@@ -31,8 +33,11 @@ function rotationRate(value: unknown): number {
  * @throws {InvalidArgumentError} for non-finite vectors or an implausible rotation rate.
  * @see N. Ashby, Living Rev. Relativity 6 (2003) §2 [V2 text]; N. Ashby, "The Sagnac effect in the GPS" (2004) [V2].
  */
-export function sagnacCorrection(satellitePositionEcef: Vector3, receiverPositionEcef: Vector3,
-  earthRotationRate: RadiansPerSecond = DEFAULT_CONSTANT_SET.earthRotationRate): Seconds {
+export function sagnacCorrection(
+  satellitePositionEcef: Vector3,
+  receiverPositionEcef: Vector3,
+  earthRotationRate: RadiansPerSecond = DEFAULT_CONSTANT_SET.earthRotationRate,
+): Seconds {
   const s = requireVector3('satellitePositionEcef', satellitePositionEcef, 'metres');
   const r = requireVector3('receiverPositionEcef', receiverPositionEcef, 'metres');
   const w = rotationRate(earthRotationRate);
@@ -49,7 +54,10 @@ export function sagnacCorrection(satellitePositionEcef: Vector3, receiverPositio
  * @throws {InvalidArgumentError} for a non-finite area or an implausible rotation rate.
  * @see N. Ashby, Living Rev. Relativity 6 (2003) §2 [V2 text].
  */
-export function sagnacDelayForArea(projectedArea: number, earthRotationRate: RadiansPerSecond = DEFAULT_CONSTANT_SET.earthRotationRate): Seconds {
+export function sagnacDelayForArea(
+  projectedArea: number,
+  earthRotationRate: RadiansPerSecond = DEFAULT_CONSTANT_SET.earthRotationRate,
+): Seconds {
   const A = requireFinite('projectedArea', projectedArea, 'a finite area in m²');
   return (2 * rotationRate(earthRotationRate) * A) / SPEED_OF_LIGHT_SQUARED;
 }
@@ -63,8 +71,11 @@ export function sagnacDelayForArea(projectedArea: number, earthRotationRate: Rad
  * @throws {InvalidArgumentError} for non-positive radii or r_s ≤ R.
  * @see Geometry of the horizon, our own derivation [C]; Ashby (2003) §2 ("up to ≈ 133 ns") [M].
  */
-export function maximumSagnacCorrection(receiverRadius: Metres, satelliteRadius: Metres,
-  earthRotationRate: RadiansPerSecond = DEFAULT_CONSTANT_SET.earthRotationRate): Seconds {
+export function maximumSagnacCorrection(
+  receiverRadius: Metres,
+  satelliteRadius: Metres,
+  earthRotationRate: RadiansPerSecond = DEFAULT_CONSTANT_SET.earthRotationRate,
+): Seconds {
   const R = requirePositive('receiverRadius', receiverRadius, 'm');
   const rs = requirePositive('satelliteRadius', satelliteRadius, 'm');
   if (!(rs > R)) throw new InvalidArgumentError('satelliteRadius', rs, `greater than receiverRadius (${R} m)`);

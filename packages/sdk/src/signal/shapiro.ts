@@ -3,10 +3,11 @@
  *
  * @module
  */
-import type { CubicMetresPerSecondSquared, Metres, Seconds, Vector3 } from '../units.js';
+
 import { DEFAULT_CONSTANT_SET, SPEED_OF_LIGHT } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
 import { requirePositive, requireVector3 } from '../internal/validate.js';
+import type { CubicMetresPerSecondSquared, Metres, Seconds, Vector3 } from '../units.js';
 
 /**
  * Shapiro delay of one body for a signal from distance r₁ to distance r₂ (from the body's centre)
@@ -23,7 +24,12 @@ import { requirePositive, requireVector3 } from '../internal/validate.js';
  * @throws {InvalidArgumentError} for non-positive inputs or a range not below r₁ + r₂ (the triangle inequality).
  * @see IERS Conventions (2010) §11.2, eq. 11.17 [V1].
  */
-export function shapiroDelay(r1: Metres, r2: Metres, range: Metres, gm: CubicMetresPerSecondSquared = DEFAULT_CONSTANT_SET.gm): Seconds {
+export function shapiroDelay(
+  r1: Metres,
+  r2: Metres,
+  range: Metres,
+  gm: CubicMetresPerSecondSquared = DEFAULT_CONSTANT_SET.gm,
+): Seconds {
   const a = requirePositive('r1', r1, 'm');
   const b = requirePositive('r2', r2, 'm');
   const rho = requirePositive('range', range, 'm');
@@ -40,8 +46,11 @@ export function shapiroDelay(r1: Metres, r2: Metres, range: Metres, gm: CubicMet
  * @throws {InvalidArgumentError} for non-finite vectors, a point at the geocentre, or coincident points.
  * @see IERS Conventions (2010) §11.2, eq. 11.17 [V1].
  */
-export function shapiroDelayBetween(emitterPosition: Vector3, receiverPosition: Vector3,
-  gm: CubicMetresPerSecondSquared = DEFAULT_CONSTANT_SET.gm): Seconds {
+export function shapiroDelayBetween(
+  emitterPosition: Vector3,
+  receiverPosition: Vector3,
+  gm: CubicMetresPerSecondSquared = DEFAULT_CONSTANT_SET.gm,
+): Seconds {
   const x1 = requireVector3('emitterPosition', emitterPosition, 'metres');
   const x2 = requireVector3('receiverPosition', receiverPosition, 'metres');
   const rho = Math.hypot(x2[0] - x1[0], x2[1] - x1[1], x2[2] - x1[2]);

@@ -9,13 +9,30 @@ import { requireInRange, requireInteger, requireOptions } from '../internal/vali
 import type { Seconds } from '../units.js';
 import { chiSquareInterval, equivalentDegreesOfFreedom } from './edf.js';
 import {
-  hasMissing, ModifiedWorkspace, modifiedSum, secondDifferenceSum, segmentIndex, thirdDifferenceSum, totalSum, type TermSum,
+  hasMissing,
+  ModifiedWorkspace,
+  modifiedSum,
+  secondDifferenceSum,
+  segmentIndex,
+  type TermSum,
+  thirdDifferenceSum,
+  totalSum,
 } from './kernels.js';
 import { identifyNoiseAt } from './noise-id.js';
 import { factorsForTaus, octaveFactors, phaseSeriesForReading } from './series.js';
 import {
-  NOISE_ALPHA, STATISTIC_NAMES, type DeviationPoint, type NoiseEstimate, type NoiseSource, type NoiseType, type PhaseSeries,
-  type StabilityAnalysis, type StabilityData, type StabilityRow, type StatisticEstimate, type StatisticName,
+  type DeviationPoint,
+  NOISE_ALPHA,
+  type NoiseEstimate,
+  type NoiseSource,
+  type NoiseType,
+  type PhaseSeries,
+  STATISTIC_NAMES,
+  type StabilityAnalysis,
+  type StabilityData,
+  type StabilityRow,
+  type StatisticEstimate,
+  type StatisticName,
 } from './types.js';
 
 /**
@@ -26,9 +43,16 @@ export function maxAveragingFactor(statistic: StatisticName, phasePoints: number
   requireStatistic('statistic', statistic);
   const N = requireInteger('phasePoints', phasePoints, 0);
   switch (statistic) {
-    case 'adev': case 'oadev': case 'totdev': return Math.floor((N - 1) / 2);
-    case 'mdev': case 'tdev': return Math.floor(N / 3);
-    case 'hdev': case 'ohdev': return Math.floor((N - 1) / 3);
+    case 'adev':
+    case 'oadev':
+    case 'totdev':
+      return Math.floor((N - 1) / 2);
+    case 'mdev':
+    case 'tdev':
+      return Math.floor(N / 3);
+    case 'hdev':
+    case 'ohdev':
+      return Math.floor((N - 1) / 3);
   }
 }
 
@@ -97,8 +121,12 @@ function computeAt(p: Prepared, statistic: StatisticName, m: number): DeviationP
     }
     case 'totdev': {
       if (p.gaps) {
-        throw new InvalidArgumentError('data', 'a series with missing samples', 'gap-free for totdev (its reflected extension is built from the whole record)',
-          'use oadev/mdev/ohdev, which use complete terms only, or analyse the gap-free stretches separately');
+        throw new InvalidArgumentError(
+          'data',
+          'a series with missing samples',
+          'gap-free for totdev (its reflected extension is built from the whole record)',
+          'use oadev/mdev/ohdev, which use complete terms only, or analyse the gap-free stretches separately',
+        );
       }
       // NIST SP 1065 §5.2.11: Tot σ² = Σ (x*_{i−m} − 2x*_i + x*_{i+m})² / (2τ²(N−2)) [M section; reproduced against SP 1065 test data, C].
       const r = totalSum(x, m);
@@ -111,7 +139,11 @@ function computeAt(p: Prepared, statistic: StatisticName, m: number): DeviationP
   return { tau, m, deviation: Math.sqrt(variance), n };
 }
 
-function resolveFactors(series: PhaseSeries, statistics: readonly StatisticName[], taus: readonly Seconds[] | undefined): number[] {
+function resolveFactors(
+  series: PhaseSeries,
+  statistics: readonly StatisticName[],
+  taus: readonly Seconds[] | undefined,
+): number[] {
   if (taus !== undefined) return factorsForTaus(taus, series.tau0);
   const maxM = Math.max(...statistics.map((s) => maxAveragingFactor(s, series.phase.length)));
   return maxM >= 1 ? octaveFactors(maxM) : [];
@@ -146,7 +178,11 @@ export interface DeviationOptions {
  * @throws {InvalidArgumentError} for a bad statistic name, bad data, a τ that is not m·τ0, or totdev with gaps.
  * @see W. J. Riley, Handbook of Frequency Stability Analysis, NIST SP 1065 (2008), §5.2 [M section; formulas reproduced against the SP 1065 test data, C].
  */
-export function deviations(statistic: StatisticName, data: StabilityData, options: DeviationOptions = {}): DeviationPoint[] {
+export function deviations(
+  statistic: StatisticName,
+  data: StabilityData,
+  options: DeviationOptions = {},
+): DeviationPoint[] {
   requireStatistic('statistic', statistic);
   requireOptions('options', options);
   const p = new Prepared(phaseSeriesForReading(data));
@@ -221,14 +257,24 @@ export function analyzeStability(data: StabilityData, options: StabilityOptions 
   const series = phaseSeriesForReading(data);
   const statistics = options.statistics ?? DEFAULT_STATISTICS;
   if (!Array.isArray(statistics) || statistics.length === 0) {
-    throw new InvalidArgumentError('options.statistics', statistics, `a non-empty list of ${STATISTIC_NAMES.join(', ')}`);
+    throw new InvalidArgumentError(
+      'options.statistics',
+      statistics,
+      `a non-empty list of ${STATISTIC_NAMES.join(', ')}`,
+    );
   }
-  statistics.forEach((s, i) => requireStatistic(`options.statistics[${i}]`, s));
+  statistics.forEach((s, i) => {
+    requireStatistic(`options.statistics[${i}]`, s);
+  });
   const stats = STATISTIC_NAMES.filter((s) => statistics.includes(s));
   const confidence = options.confidence ?? ONE_SIGMA_CONFIDENCE;
   requireInRange('options.confidence', confidence, 0, 1, { minExclusive: true, maxExclusive: true });
-  if (confidence === 0) throw new InvalidArgumentError('options.confidence', confidence, 'in (0, 1), e.g. 0.6827 or 0.95');
-  if (options.noise !== undefined && !(typeof options.noise === 'string' && Object.hasOwn(NOISE_ALPHA, options.noise))) {
+  if (confidence === 0)
+    throw new InvalidArgumentError('options.confidence', confidence, 'in (0, 1), e.g. 0.6827 or 0.95');
+  if (
+    options.noise !== undefined &&
+    !(typeof options.noise === 'string' && Object.hasOwn(NOISE_ALPHA, options.noise))
+  ) {
     throw new InvalidArgumentError('options.noise', options.noise, 'one of WPM, FPM, WFM, FFM, RWFM');
   }
   const isFrequency = 'frequency' in data && (data as { frequency?: unknown }).frequency !== undefined;
@@ -278,7 +324,15 @@ export function analyzeStability(data: StabilityData, options: StabilityOptions 
       const { low, high } = chiSquareInterval(point.deviation, edf, confidence);
       estimates[s] = { ...point, edf, edfModel: model, low, high };
     }
-    rows.push({ tau: m * series.tau0, m, noise, alpha: NOISE_ALPHA[noise], noiseSource, noiseEstimate, statistics: estimates });
+    rows.push({
+      tau: m * series.tau0,
+      m,
+      noise,
+      alpha: NOISE_ALPHA[noise],
+      noiseSource,
+      noiseEstimate,
+      statistics: estimates,
+    });
   }
   return {
     input: {

@@ -18,7 +18,8 @@ export interface EdfResult {
 const NOISES: readonly NoiseType[] = ['WPM', 'FPM', 'WFM', 'FFM', 'RWFM'];
 
 function requireNoise(noise: unknown): NoiseType {
-  if (!NOISES.includes(noise as NoiseType)) throw new InvalidArgumentError('noise', noise, `one of ${NOISES.join(', ')}`);
+  if (!NOISES.includes(noise as NoiseType))
+    throw new InvalidArgumentError('noise', noise, `one of ${NOISES.join(', ')}`);
   return noise as NoiseType;
 }
 
@@ -46,7 +47,9 @@ export function overlappingAllanEdf(noise: NoiseType, phasePoints: number, m: nu
   requireInteger('m', m, 1, Math.floor((N - 1) / 2));
   let edf: number;
   switch (noise) {
-    case 'WPM': edf = ((N + 1) * (N - 2 * m)) / (2 * (N - m)); break;
+    case 'WPM':
+      edf = ((N + 1) * (N - 2 * m)) / (2 * (N - m));
+      break;
     case 'FPM': {
       const a = Math.log((N - 1) / (2 * m));
       const b = Math.log(((2 * m + 1) * (N - 1)) / 4);
@@ -54,9 +57,15 @@ export function overlappingAllanEdf(noise: NoiseType, phasePoints: number, m: nu
       edf = Math.exp(Math.sqrt(Math.max(0, a * b)));
       break;
     }
-    case 'WFM': edf = ((3 * (N - 1)) / (2 * m) - (2 * (N - 2)) / N) * ((4 * m * m) / (4 * m * m + 5)); break;
-    case 'FFM': edf = m === 1 ? (2 * (N - 2) ** 2) / (2.3 * N - 4.9) : (5 * N * N) / (4 * m * (N + 3 * m)); break;
-    case 'RWFM': edf = ((N - 2) / m) * (((N - 1) ** 2 - 3 * m * (N - 1) + 4 * m * m) / (N - 3) ** 2); break;
+    case 'WFM':
+      edf = ((3 * (N - 1)) / (2 * m) - (2 * (N - 2)) / N) * ((4 * m * m) / (4 * m * m + 5));
+      break;
+    case 'FFM':
+      edf = m === 1 ? (2 * (N - 2) ** 2) / (2.3 * N - 4.9) : (5 * N * N) / (4 * m * (N + 3 * m));
+      break;
+    case 'RWFM':
+      edf = ((N - 2) / m) * (((N - 1) ** 2 - 3 * m * (N - 1) + 4 * m * m) / (N - 3) ** 2);
+      break;
   }
   return edf;
 }
@@ -75,11 +84,16 @@ export function overlappingAllanEdf(noise: NoiseType, phasePoints: number, m: nu
 export function autocovariance(noise: NoiseType, t: number): number {
   const a = Math.abs(t);
   switch (noise) {
-    case 'WPM': return a === 0 ? 1 : 0;
-    case 'FPM': return a === 0 ? FPM_G0 : -Math.log(a);
-    case 'WFM': return -a;
-    case 'FFM': return a === 0 ? 0 : a * a * Math.log(a);
-    case 'RWFM': return a * a * a - a;
+    case 'WPM':
+      return a === 0 ? 1 : 0;
+    case 'FPM':
+      return a === 0 ? FPM_G0 : -Math.log(a);
+    case 'WFM':
+      return -a;
+    case 'FFM':
+      return a === 0 ? 0 : a * a * Math.log(a);
+    case 'RWFM':
+      return a * a * a - a;
   }
 }
 
@@ -87,7 +101,10 @@ export function autocovariance(noise: NoiseType, t: number): number {
 const FPM_G0 = 1.7218;
 
 /** Weights of the autocorrelation of a filter: offset → Σ c_k c_l over p_k − p_l = offset. */
-function filterAutocorrelation(positions: readonly number[], weights: readonly number[]): { offsets: Float64Array; w: Float64Array; span: number } {
+function filterAutocorrelation(
+  positions: readonly number[],
+  weights: readonly number[],
+): { offsets: Float64Array; w: Float64Array; span: number } {
   const map = new Map<number, number>();
   const taps = positions.map((position, k) => ({ position, weight: weights[k] ?? Number.NaN }));
   for (const first of taps) {
@@ -127,7 +144,13 @@ function lagCovariance(noise: NoiseType, offsets: Float64Array, w: Float64Array,
  *
  * @internal exported for tests
  */
-export function quadraticFormEdf(noise: NoiseType, positions: readonly number[], weights: readonly number[], step: number, n: number): number {
+export function quadraticFormEdf(
+  noise: NoiseType,
+  positions: readonly number[],
+  weights: readonly number[],
+  step: number,
+  n: number,
+): number {
   const { offsets, w, span } = filterAutocorrelation(positions, weights);
   const rho0 = lagCovariance(noise, offsets, w, span, 0);
   let denom = n * rho0 * rho0;
@@ -136,7 +159,7 @@ export function quadraticFormEdf(noise: NoiseType, positions: readonly number[],
     const r = lagCovariance(noise, offsets, w, span, d * step);
     denom += 2 * (n - d) * r * r;
   }
-  for (let d = exactTo + 1; d <= n - 1;) {
+  for (let d = exactTo + 1; d <= n - 1; ) {
     const len = Math.min(Math.max(1, Math.floor(d / 256)), n - d);
     const mid = d + Math.floor(len / 2);
     const r = lagCovariance(noise, offsets, w, span, mid * step);
@@ -185,8 +208,13 @@ const MODIFIED_EXACT_MAX_M = 64;
  * @returns edf and the model used.
  * @throws {InvalidArgumentError} for an unknown statistic or noise type, or counts out of range.
  */
-export function equivalentDegreesOfFreedom(statistic: StatisticName, noise: NoiseType, phasePoints: number, m: number,
-  nTerms: number): EdfResult {
+export function equivalentDegreesOfFreedom(
+  statistic: StatisticName,
+  noise: NoiseType,
+  phasePoints: number,
+  m: number,
+  nTerms: number,
+): EdfResult {
   requireNoise(noise);
   const N = requireInteger('phasePoints', phasePoints, 3);
   requireInteger('m', m, 1);
@@ -196,14 +224,21 @@ export function equivalentDegreesOfFreedom(statistic: StatisticName, noise: Nois
       // FPM: the Howe–Allan–Barnes fit overstates the edf by 30–45 % at m = 16–128 on N = 4096 points of
       // Kasdin–Walter flicker PM (ensemble edf 942, 414, 249 against 1228, 597, 359; the quadratic form
       // gives 875, 368, 225), so that ±1σ intervals covered only 58–61 % (test/stability/coverage.test.ts [C]).
-      if (noise === 'FPM') return { edf: quadraticFormEdf(noise, [0, m, 2 * m], [1, -2, 1], 1, n), model: 'gaussian-quadratic-form' };
+      if (noise === 'FPM')
+        return { edf: quadraticFormEdf(noise, [0, m, 2 * m], [1, -2, 1], 1, n), model: 'gaussian-quadratic-form' };
       return { edf: overlappingAllanEdf(noise, Math.max(N, 2 * m + 1), m), model: 'howe-allan-barnes' };
     case 'adev':
       return { edf: quadraticFormEdf(noise, [0, m, 2 * m], [1, -2, 1], m, n), model: 'gaussian-quadratic-form' };
     case 'hdev':
-      return { edf: quadraticFormEdf(noise, [0, m, 2 * m, 3 * m], [-1, 3, -3, 1], m, n), model: 'gaussian-quadratic-form' };
+      return {
+        edf: quadraticFormEdf(noise, [0, m, 2 * m, 3 * m], [-1, 3, -3, 1], m, n),
+        model: 'gaussian-quadratic-form',
+      };
     case 'ohdev':
-      return { edf: quadraticFormEdf(noise, [0, m, 2 * m, 3 * m], [-1, 3, -3, 1], 1, n), model: 'gaussian-quadratic-form' };
+      return {
+        edf: quadraticFormEdf(noise, [0, m, 2 * m, 3 * m], [-1, 3, -3, 1], 1, n),
+        model: 'gaussian-quadratic-form',
+      };
     case 'mdev':
     case 'tdev': {
       const mm = Math.min(m, MODIFIED_EXACT_MAX_M);
@@ -219,7 +254,8 @@ export function equivalentDegreesOfFreedom(statistic: StatisticName, noise: Nois
     case 'totdev': {
       const bc: Partial<Record<NoiseType, [number, number]>> = { WFM: [1.5, 0], FFM: [1.17, 0.22], RWFM: [0.93, 0.36] };
       const pair = bc[noise];
-      if (pair === undefined) return { edf: overlappingAllanEdf(noise, Math.max(N, 2 * m + 1), m), model: 'howe-allan-barnes' };
+      if (pair === undefined)
+        return { edf: overlappingAllanEdf(noise, Math.max(N, 2 * m + 1), m), model: 'howe-allan-barnes' };
       const edf = pair[0] * ((N - 1) / m) - pair[1];
       return edf > 0 ? { edf, model: 'totvar-b-c' } : { edf: n, model: 'terms' };
     }

@@ -4,15 +4,32 @@
  *
  * @module
  */
-export type {
-  StatisticName, NoiseType, StabilityData, PhaseSeries, DeviationPoint, EdfModel, NoiseSource, NoiseEstimate,
-  StatisticEstimate, StabilityRow, StabilityInputSummary, StabilityAnalysis,
-} from './types.js';
-export { STATISTIC_NAMES, NOISE_ALPHA, NOISE_NAMES } from './types.js';
-export { phaseFromFrequency, frequencyFromPhase, toPhaseSeries, octaveFactors, factorsForTaus } from './series.js';
-export { overlappingAllanEdf, equivalentDegreesOfFreedom, chiSquareInterval, type EdfResult } from './edf.js';
-export { NOISE_ID_MIN_POINTS, noiseForAlpha } from './noise-id.js';
+
 export {
-  deviations, identifyNoise, analyzeStability, maxAveragingFactor, DEFAULT_STATISTICS, ONE_SIGMA_CONFIDENCE,
-  type DeviationOptions, type StabilityOptions,
+  analyzeStability,
+  DEFAULT_STATISTICS,
+  type DeviationOptions,
+  deviations,
+  identifyNoise,
+  maxAveragingFactor,
+  ONE_SIGMA_CONFIDENCE,
+  type StabilityOptions,
 } from './analyze.js';
+export { chiSquareInterval, type EdfResult, equivalentDegreesOfFreedom, overlappingAllanEdf } from './edf.js';
+export { NOISE_ID_MIN_POINTS, noiseForAlpha } from './noise-id.js';
+export { factorsForTaus, frequencyFromPhase, octaveFactors, phaseFromFrequency, toPhaseSeries } from './series.js';
+export type {
+  DeviationPoint,
+  EdfModel,
+  NoiseEstimate,
+  NoiseSource,
+  NoiseType,
+  PhaseSeries,
+  StabilityAnalysis,
+  StabilityData,
+  StabilityInputSummary,
+  StabilityRow,
+  StatisticEstimate,
+  StatisticName,
+} from './types.js';
+export { NOISE_ALPHA, NOISE_NAMES, STATISTIC_NAMES } from './types.js';

@@ -115,7 +115,7 @@ export function modifiedSum(x: Float64Array, seg: Int32Array | null, m: number, 
     // against the running sum, the case Kahan's scheme handles.
     const yk = v - c;
     const t = s + yk;
-    c = (t - s) - yk;
+    c = t - s - yk;
     s = t;
     hi[i + 1] = s;
     lo[i + 1] = c;
@@ -125,7 +125,7 @@ export function modifiedSum(x: Float64Array, seg: Int32Array | null, m: number, 
   let n = 0;
   for (let j = 0; j < terms; j++) {
     if (bad !== null && bad[j + m] !== bad[j]) continue;
-    const w = (hi[j + m]! - hi[j]!) - (lo[j + m]! - lo[j]!);
+    const w = hi[j + m]! - hi[j]! - (lo[j + m]! - lo[j]!);
     sum += w * w;
     n++;
   }

@@ -3,10 +3,11 @@
  *
  * @module
  */
+
+import { requireFinite } from '../internal/validate.js';
 import { autocovariance, filterVariance } from './edf.js';
 import { ModifiedWorkspace, modifiedSum, secondDifferenceSum } from './kernels.js';
 import { NOISE_ALPHA, type NoiseEstimate, type NoiseType, type PhaseSeries } from './types.js';
-import { requireFinite } from '../internal/validate.js';
 
 /** Fewest decimated points for which the method is attempted (Riley & Greenhall suggest ≳ 30) [M]. */
 export const NOISE_ID_MIN_POINTS = 32;
@@ -46,7 +47,7 @@ function lag1(z: Float64Array, seg: Int32Array | null): { r1: number; pairs: num
     }
   }
   if (pairs === 0 || den === 0) return { r1: 0, pairs };
-  return { r1: (num / pairs) / (den / count), pairs };
+  return { r1: num / pairs / (den / count), pairs };
 }
 
 /** Raw result of the lag-1 autocorrelation procedure at one factor. */
@@ -152,9 +153,18 @@ export function identifyNoiseAt(series: PhaseSeries, seg: Int32Array | null, m: 
     alpha = roundAlpha(lag.alphaEstimate) >= 2 ? 2 : 1;
   }
   return {
-    tau: m * series.tau0, m, alphaEstimate: lag.alphaEstimate, alpha, noise: noiseForAlpha(alpha), r1: lag.r1,
-    differences: lag.differences, points: lag.points, lag1Noise: noiseForAlpha(roundAlpha(lag.alphaEstimate)),
-    b1Ratio: b1.ratio, b1Averages: b1.averages, modifiedRatio,
+    tau: m * series.tau0,
+    m,
+    alphaEstimate: lag.alphaEstimate,
+    alpha,
+    noise: noiseForAlpha(alpha),
+    r1: lag.r1,
+    differences: lag.differences,
+    points: lag.points,
+    lag1Noise: noiseForAlpha(roundAlpha(lag.alphaEstimate)),
+    b1Ratio: b1.ratio,
+    b1Averages: b1.averages,
+    modifiedRatio,
   };
 }
 
@@ -184,7 +194,11 @@ const B1_MU = [-2, -1, 0, 1] as const;
  * (NIST SP 1065 §5.6 [M section]). Averages touching a missing sample or a segment break are left
  * out (the Allan pairs then use adjacent valid averages only). Undefined below 8 averages.
  */
-export function measuredB1(x: Float64Array, seg: Int32Array | null, m: number): { ratio: number; averages: number } | undefined {
+export function measuredB1(
+  x: Float64Array,
+  seg: Int32Array | null,
+  m: number,
+): { ratio: number; averages: number } | undefined {
   const count = Math.floor((x.length - 1) / m);
   const y = new Float64Array(count);
   let mean = 0;
@@ -267,5 +281,5 @@ export function measuredModifiedRatio(x: Float64Array, seg: Int32Array | null, m
   const gaps = seg !== null || x.some((v) => !(v === v));
   const modified = modifiedSum(x, seg, m, new ModifiedWorkspace(x.length, gaps));
   if (allan.n < 8 || modified.n < 8 || allan.sum === 0) return undefined;
-  return (modified.sum / modified.n) / (m * m) / (allan.sum / allan.n);
+  return modified.sum / modified.n / (m * m) / (allan.sum / allan.n);
 }

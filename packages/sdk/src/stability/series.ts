@@ -35,7 +35,11 @@ function copySamples(argument: string, values: unknown, unit: string, limit: num
     for (let i = 0; i < values.length; i++) {
       const v = values[i]!;
       if (v > limit || v < -limit) {
-        throw new InvalidArgumentError(`${argument}[${i}]`, v, `a finite number in ${unit} with |value| ≤ ${limit}, or NaN for a missing sample`);
+        throw new InvalidArgumentError(
+          `${argument}[${i}]`,
+          v,
+          `a finite number in ${unit} with |value| ≤ ${limit}, or NaN for a missing sample`,
+        );
       }
     }
     return copy ? values.slice() : values;
@@ -45,7 +49,11 @@ function copySamples(argument: string, values: unknown, unit: string, limit: num
   for (let i = 0; i < src.length; i++) {
     const v = src[i];
     if (typeof v !== 'number' || v > limit || v < -limit) {
-      throw new InvalidArgumentError(`${argument}[${i}]`, v, `a finite number in ${unit} with |value| ≤ ${limit}, or NaN for a missing sample`);
+      throw new InvalidArgumentError(
+        `${argument}[${i}]`,
+        v,
+        `a finite number in ${unit} with |value| ≤ ${limit}, or NaN for a missing sample`,
+      );
     }
     out[i] = v;
   }
@@ -99,8 +107,16 @@ export function phaseFromFrequency(frequency: ArrayLike<number>, tau0: Seconds):
  */
 export function frequencyFromPhase(phase: ArrayLike<number> | PhaseSeries, tau0?: Seconds): Float64Array {
   const series = isPhaseSeries(phase)
-    ? { phase: copySamples('phase.phase', phase.phase, 'seconds', MAX_ABS_PHASE), tau0: requireTau0('phase.tau0', phase.tau0), segmentStarts: requireSegmentStarts(phase.segmentStarts) }
-    : { phase: copySamples('phase', phase, 'seconds', MAX_ABS_PHASE), tau0: requireTau0('tau0', tau0), segmentStarts: [] };
+    ? {
+        phase: copySamples('phase.phase', phase.phase, 'seconds', MAX_ABS_PHASE),
+        tau0: requireTau0('phase.tau0', phase.tau0),
+        segmentStarts: requireSegmentStarts(phase.segmentStarts),
+      }
+    : {
+        phase: copySamples('phase', phase, 'seconds', MAX_ABS_PHASE),
+        tau0: requireTau0('tau0', tau0),
+        segmentStarts: [],
+      };
   const x = series.phase;
   const y = new Float64Array(Math.max(0, x.length - 1));
   for (let i = 0; i < y.length; i++) y[i] = (x[i + 1]! - x[i]!) / series.tau0;
@@ -109,7 +125,8 @@ export function frequencyFromPhase(phase: ArrayLike<number> | PhaseSeries, tau0?
 }
 
 function requireSegmentStarts(starts: unknown): number[] {
-  if (!Array.isArray(starts)) throw new InvalidArgumentError('phase.segmentStarts', starts, 'an array of sample indices');
+  if (!Array.isArray(starts))
+    throw new InvalidArgumentError('phase.segmentStarts', starts, 'an array of sample indices');
   return starts.map((k, i) => requireInteger(`phase.segmentStarts[${i}]`, k, 0));
 }
 
@@ -146,10 +163,19 @@ function phaseSeriesOf(data: StabilityData, copy: boolean): PhaseSeries {
   const hasPhase = 'phase' in data && data.phase !== undefined;
   const hasFrequency = 'frequency' in data && data.frequency !== undefined;
   if (hasPhase === hasFrequency) {
-    throw new InvalidArgumentError('data', Object.keys(data), 'exactly one of `phase` (seconds) or `frequency` (dimensionless), plus `tau0`');
+    throw new InvalidArgumentError(
+      'data',
+      Object.keys(data),
+      'exactly one of `phase` (seconds) or `frequency` (dimensionless), plus `tau0`',
+    );
   }
   const tau0 = requireTau0('data.tau0', data.tau0);
-  if (hasPhase) return { phase: copySamples('data.phase', (data as { phase: unknown }).phase, 'seconds', MAX_ABS_PHASE, copy), tau0, segmentStarts: [] };
+  if (hasPhase)
+    return {
+      phase: copySamples('data.phase', (data as { phase: unknown }).phase, 'seconds', MAX_ABS_PHASE, copy),
+      tau0,
+      segmentStarts: [],
+    };
   return phaseFromFrequency((data as { frequency: ArrayLike<number> }).frequency, tau0);
 }
 
@@ -181,8 +207,12 @@ export function factorsForTaus(taus: readonly Seconds[], tau0: Seconds): number[
     const t = requireInRange(`taus[${i}]`, tau, 0, 1e15, { minExclusive: true, unit: 's' });
     const m = Math.round(t / tau0);
     if (m < 1 || Math.abs(t / tau0 - m) > 1e-9 * Math.max(1, m)) {
-      throw new InvalidArgumentError(`taus[${i}]`, tau, `a whole multiple m·τ0 of the sample spacing τ0 = ${tau0} s (m = 1, 2, 3, ...)`,
-        `τ/τ0 = ${t / tau0}`);
+      throw new InvalidArgumentError(
+        `taus[${i}]`,
+        tau,
+        `a whole multiple m·τ0 of the sample spacing τ0 = ${tau0} s (m = 1, 2, 3, ...)`,
+        `τ/τ0 = ${t / tau0}`,
+      );
     }
     set.add(m);
   });

@@ -24,7 +24,7 @@
  */
 import { phaseVariance } from './clock-math.js';
 import { quantiseFrequency } from './constraints.js';
-import { stateJumps, type InternalCommand } from './predict.js';
+import { type InternalCommand, stateJumps } from './predict.js';
 import type { NormalizedScenario } from './scenario.js';
 
 /** A time at which the state may jump (known jump dx, dy) and/or a command may execute. */
@@ -36,7 +36,11 @@ export interface Boundary {
 }
 
 /** The sorted boundaries: epoch, horizon, every known jump (manoeuvres, `fixed` commands) and the controllable `epochs`. */
-export function boundaries(norm: NormalizedScenario, fixed: readonly InternalCommand[], epochs: readonly number[]): Boundary[] {
+export function boundaries(
+  norm: NormalizedScenario,
+  fixed: readonly InternalCommand[],
+  epochs: readonly number[],
+): Boundary[] {
   const map = new Map<number, Boundary>();
   const at = (t: number): Boundary => {
     let b = map.get(t);
@@ -89,7 +93,12 @@ export function brakingSteps(model: BrakingModel, i: number, state: readonly num
  * applies the braking law; `state` is the mean just after boundary i (its jump and command).
  * Runs to the horizon when the actuator cannot bring the frequency to rest.
  */
-export function brakingRest(model: BrakingModel, i: number, state: readonly number[], cumulative: number): { x: number; t: number } {
+export function brakingRest(
+  model: BrakingModel,
+  i: number,
+  state: readonly number[],
+  cumulative: number,
+): { x: number; t: number } {
   const { bounds, norm, nextGap } = model;
   const { resolution, maxStep, rangeMin, rangeMax } = norm.actuator;
   const nMax = Math.floor(maxStep / resolution + 1e-9);
@@ -143,7 +152,13 @@ export function usableBand(norm: NormalizedScenario, t: number): number {
  * How far (seconds, ≥ 0) a command's outcome lies outside the admissible set: the rest point of
  * the braking manoeuvre must lie in [min(−B, x_now), max(B, x_now)]. 0 means admissible.
  */
-export function restViolation(model: BrakingModel, i: number, xNow: number, after: readonly number[], cumulative: number): number {
+export function restViolation(
+  model: BrakingModel,
+  i: number,
+  xNow: number,
+  after: readonly number[],
+  cumulative: number,
+): number {
   const rest = brakingRest(model, i, after, cumulative);
   const band = usableBand(model.norm, rest.t);
   const lo = Math.min(-band, xNow);
@@ -159,8 +174,13 @@ export function restViolation(model: BrakingModel, i: number, xNow: number, afte
  * started too late or the range is exhausted), the step with the smallest violation among
  * `wanted`, the braking step and the extreme steps is returned, with `violation` > 0.
  */
-export function admissibleSteps(model: BrakingModel, i: number, state: readonly number[], cumulative: number, wanted: number)
-  : { steps: number; violation: number } {
+export function admissibleSteps(
+  model: BrakingModel,
+  i: number,
+  state: readonly number[],
+  cumulative: number,
+  wanted: number,
+): { steps: number; violation: number } {
   const res = model.norm.actuator.resolution;
   const violationOf = (n: number): number =>
     restViolation(model, i, state[0]!, [state[0]!, state[1]! + n * res, state[2]!], cumulative + n * res);

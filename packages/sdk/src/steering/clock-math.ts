@@ -78,22 +78,31 @@ export function transition(delta: number): Matrix3 {
 }
 
 export function zeros3(): Matrix3 {
-  return [[0, 0, 0], [0, 0, 0], [0, 0, 0]];
+  return [
+    [0, 0, 0],
+    [0, 0, 0],
+    [0, 0, 0],
+  ];
 }
 
 /** A·B for 3×3 matrices. */
 export function mul3(a: Matrix3, b: Matrix3): Matrix3 {
   const r = zeros3();
-  for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) {
-    let s = 0;
-    for (let k = 0; k < 3; k++) s += a[i]![k]! * b[k]![j]!;
-    r[i]![j] = s;
-  }
+  for (let i = 0; i < 3; i++)
+    for (let j = 0; j < 3; j++) {
+      let s = 0;
+      for (let k = 0; k < 3; k++) s += a[i]![k]! * b[k]![j]!;
+      r[i]![j] = s;
+    }
   return r;
 }
 
 export function transpose3(a: Matrix3): Matrix3 {
-  return [[a[0][0], a[1][0], a[2][0]], [a[0][1], a[1][1], a[2][1]], [a[0][2], a[1][2], a[2][2]]];
+  return [
+    [a[0][0], a[1][0], a[2][0]],
+    [a[0][1], a[1][1], a[2][1]],
+    [a[0][2], a[1][2], a[2][2]],
+  ];
 }
 
 export function add3(a: Matrix3, b: Matrix3, scaleB = 1): Matrix3 {

@@ -9,12 +9,12 @@
 import { InvalidArgumentError } from '../errors.js';
 import { createRandom, MAX_SEED, type Random } from '../internal/random.js';
 import { requireInteger } from '../internal/validate.js';
-import { choleskyPsd3, processNoise, type Matrix3 } from './clock-math.js';
+import { choleskyPsd3, type Matrix3, processNoise } from './clock-math.js';
 import { LeanClockFilter } from './lean-filter.js';
-import { gridTimes, type InternalCommand, type StateJump } from './predict.js';
-import { makeReplanner, propagateEstimate, replanFrom, type Replanner, type StateEstimate } from './replan.js';
 import type { SteeringMethod } from './plan.js';
-import { validateScenario, type NormalizedScenario } from './scenario.js';
+import { gridTimes, type InternalCommand, type StateJump } from './predict.js';
+import { makeReplanner, propagateEstimate, type Replanner, replanFrom, type StateEstimate } from './replan.js';
+import { type NormalizedScenario, validateScenario } from './scenario.js';
 import { resolveTimeScales, type TimeScaleOptions } from './utc-stamps.js';
 
 export interface ClosedLoopOptions extends TimeScaleOptions {
@@ -89,8 +89,14 @@ export function closedLoopFrame(norm: NormalizedScenario): ClosedLoopFrame {
     return l;
   });
   return {
-    norm, grid, estimateTimes, times, chol, l0: choleskyPsd3(norm.covariance0),
-    gridIndex: Int32Array.from(grid, (t) => pos.get(t)!), estimateIndex: Int32Array.from(estimateTimes, (t) => pos.get(t)!),
+    norm,
+    grid,
+    estimateTimes,
+    times,
+    chol,
+    l0: choleskyPsd3(norm.covariance0),
+    gridIndex: Int32Array.from(grid, (t) => pos.get(t)!),
+    estimateIndex: Int32Array.from(estimateTimes, (t) => pos.get(t)!),
   };
 }
 
@@ -166,12 +172,17 @@ export function flyClosedLoop(frame: ClosedLoopFrame, rp: Replanner, truth: Trut
     filter.applyStep(j.dx, j.dy);
   };
   let ke = 0;
-  let cumulative = norm.actuator.initial + rp.feedForward.reduce((s, c) => s + (c.kind === 'frequency' ? c.amount : 0), 0);
+  let cumulative =
+    norm.actuator.initial + rp.feedForward.reduce((s, c) => s + (c.kind === 'frequency' ? c.amount : 0), 0);
   const windows = norm.windows;
   for (let w = 0; w < windows.length; w++) {
     const now = windows[w]!.start;
     const until = w + 1 < windows.length ? windows[w + 1]!.start : norm.horizon;
-    while (ke < frame.estimateTimes.length && frame.estimateTimes[ke]! < now && frame.estimateTimes[ke]! + ops.latency <= now) {
+    while (
+      ke < frame.estimateTimes.length &&
+      frame.estimateTimes[ke]! < now &&
+      frame.estimateTimes[ke]! + ops.latency <= now
+    ) {
       const e = frame.estimateTimes[ke]!;
       for (let j = nextJump(); j && j.t <= e; j = nextJump()) consume(j);
       const z = truth.phase[frame.estimateIndex[ke]!]! + sumDy * e + sumOffset + ops.noise * truth.estimateNoise[ke]!;
@@ -213,8 +224,15 @@ function toJump(c: InternalCommand): StateJump {
 }
 
 /** The filter's estimate carried to `now` through the jumps not yet consumed that execute before `now`. */
-function estimateAt(filter: LeanClockFilter, base: readonly StateJump[], kb: number, planned: readonly StateJump[], kp: number,
-  now: number, norm: NormalizedScenario): StateEstimate {
+function estimateAt(
+  filter: LeanClockFilter,
+  base: readonly StateJump[],
+  kb: number,
+  planned: readonly StateJump[],
+  kp: number,
+  now: number,
+  norm: NormalizedScenario,
+): StateEstimate {
   let t = filter.t;
   let est: StateEstimate = { state: [filter.s[0]!, filter.s[1]!, filter.s[2]!], covariance: filter.covariance() };
   const pending = [...base.slice(kb), ...planned.slice(kp)].filter((j) => j.t < now).sort((a, b) => a.t - b.t);
@@ -245,17 +263,24 @@ function percentile(sorted: Float64Array, p: number): number {
  * @throws {InvalidArgumentError} for a bad scenario, a missing `operations` block, runs, seed or strategies.
  */
 export function simulateClosedLoop(scenario: unknown, options: ClosedLoopOptions): ClosedLoopSummary {
-  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an object with runs');
+  if (typeof options !== 'object' || options === null)
+    throw new InvalidArgumentError('options', options, 'an object with runs');
   const norm = validateScenario(scenario, { timeScales: resolveTimeScales(options) });
   if (!norm.operations) {
-    throw new InvalidArgumentError('operations', undefined, 'an operations block { estimateIntervalSeconds, estimateNoiseSeconds, estimateLatencySeconds?, replan? } for a closed-loop simulation');
+    throw new InvalidArgumentError(
+      'operations',
+      undefined,
+      'an operations block { estimateIntervalSeconds, estimateNoiseSeconds, estimateLatencySeconds?, replan? } for a closed-loop simulation',
+    );
   }
   const runs = requireInteger('options.runs', options.runs, 1, 100_000);
   const seed = options.seed === undefined ? 1 : requireInteger('options.seed', options.seed, 0, MAX_SEED);
   const methods = options.strategies ?? (['optimal', 'deadband', 'none'] as const);
-  if (!Array.isArray(methods) || methods.length === 0) throw new InvalidArgumentError('options.strategies', methods, 'a non-empty array of "optimal", "deadband", "none"');
+  if (!Array.isArray(methods) || methods.length === 0)
+    throw new InvalidArgumentError('options.strategies', methods, 'a non-empty array of "optimal", "deadband", "none"');
   methods.forEach((m, i) => {
-    if (m !== 'optimal' && m !== 'deadband' && m !== 'none') throw new InvalidArgumentError(`options.strategies[${i}]`, m, '"optimal", "deadband" or "none"');
+    if (m !== 'optimal' && m !== 'deadband' && m !== 'none')
+      throw new InvalidArgumentError(`options.strategies[${i}]`, m, '"optimal", "deadband" or "none"');
   });
   const frame = closedLoopFrame(norm);
   const planners = methods.map((m) => makeReplanner(norm, m));
@@ -282,7 +307,9 @@ export function simulateClosedLoop(scenario: unknown, options: ClosedLoopOptions
     options.onProgress?.(r + 1, runs);
   }
   return {
-    closedLoop: true, runs, seed,
+    closedLoop: true,
+    runs,
+    seed,
     strategies: methods.map((method, m) => {
       const s = stats[m]!;
       const tit = s.tit.slice().sort();

@@ -7,9 +7,9 @@
  * @internal
  */
 import type { Seconds } from '../units.js';
-import { formatUtcStamp } from './utc-stamps.js';
 import type { InternalCommand } from './predict.js';
 import type { NormalizedScenario } from './scenario.js';
+import { formatUtcStamp } from './utc-stamps.js';
 
 const EPS = 1e-6;
 
@@ -46,7 +46,11 @@ export function spacingOk(norm: NormalizedScenario, commands: readonly InternalC
 }
 
 /** Cumulative frequency steering after the given commands (initial setting included). */
-export function cumulativeFrequency(norm: NormalizedScenario, commands: readonly InternalCommand[], before = Infinity): number {
+export function cumulativeFrequency(
+  norm: NormalizedScenario,
+  commands: readonly InternalCommand[],
+  before = Infinity,
+): number {
   let total = norm.actuator.initial;
   for (const c of commands) if (c.kind === 'frequency' && c.executeAt < before) total += c.amount;
   return total;
@@ -70,7 +74,8 @@ function wholeSteps(ratio: number, rounding: Rounding, maxSteps: number): { step
 
 /** The scenario's name for a frequency limit, with its value: "maxFrequencyStep (1.00e-12)" or "the cumulative range [min, max]". */
 export function frequencyLimitText(norm: NormalizedScenario, limit: 'maxStep' | 'range'): string {
-  return limit === 'maxStep' ? `maxFrequencyStep (${frac(norm.actuator.maxStep)})`
+  return limit === 'maxStep'
+    ? `maxFrequencyStep (${frac(norm.actuator.maxStep)})`
     : `the cumulative range [${frac(norm.actuator.rangeMin)}, ${frac(norm.actuator.rangeMax)}]`;
 }
 
@@ -78,7 +83,12 @@ export function frequencyLimitText(norm: NormalizedScenario, limit: 'maxStep' | 
  * Rounds a wanted frequency step to the nearest integer number of resolution steps, then
  * limits it to ±maxFrequencyStep and to the cumulative range (never rounding outwards).
  */
-export function quantiseFrequency(norm: NormalizedScenario, wanted: number, cumulative: number, rounding: Rounding = 'nearest'): QuantisedStep {
+export function quantiseFrequency(
+  norm: NormalizedScenario,
+  wanted: number,
+  cumulative: number,
+  rounding: Rounding = 'nearest',
+): QuantisedStep {
   const { resolution, maxStep, rangeMin, rangeMax } = norm.actuator;
   const whole = wholeSteps(wanted / resolution, rounding, Math.floor(maxStep / resolution + 1e-9));
   let steps = whole.steps;
@@ -131,7 +141,11 @@ export function frac(value: number): string {
  * that can reach it. Manoeuvres that cannot be compensated this way are left to the feedback
  * planner and listed in `notes`.
  */
-export function feedForwardManeuvers(norm: NormalizedScenario): { commands: InternalCommand[]; notes: string[]; limits: string[] } {
+export function feedForwardManeuvers(norm: NormalizedScenario): {
+  commands: InternalCommand[];
+  notes: string[];
+  limits: string[];
+} {
   const commands: InternalCommand[] = [];
   const notes: string[] = [];
   const limits: string[] = [];
@@ -139,22 +153,36 @@ export function feedForwardManeuvers(norm: NormalizedScenario): { commands: Inte
     const label = `manoeuvre maneuvers[${m.index}] at ${isoAt(norm, m.t)} (a ${m.aBefore} m → ${m.aAfter} m, relativistic rate change ${frac(m.rateChange)})`;
     const uplink = uplinkFor(norm, m.t);
     if (uplink === undefined) {
-      notes.push(`${label}: no contact can time-tag a command to execute at that epoch; the feedback planner compensates it afterwards`);
+      notes.push(
+        `${label}: no contact can time-tag a command to execute at that epoch; the feedback planner compensates it afterwards`,
+      );
       continue;
     }
     if (!spacingOk(norm, commands, m.t)) {
-      notes.push(`${label}: too close to the previous manoeuvre's command for the minimum spacing; compensated afterwards`);
+      notes.push(
+        `${label}: too close to the previous manoeuvre's command for the minimum spacing; compensated afterwards`,
+      );
       continue;
     }
     const q = quantiseFrequency(norm, -m.rateChange, cumulativeFrequency(norm, commands));
     if (q.steps === 0) {
-      notes.push(`${label}: the rate change is smaller than half the frequency resolution; left to the feedback planner`);
+      notes.push(
+        `${label}: the rate change is smaller than half the frequency resolution; left to the feedback planner`,
+      );
       continue;
     }
-    if (q.limitedBy) limits.push(`the step needed to cancel ${label} is ${frac(-m.rateChange)}, beyond ${frequencyLimitText(norm, q.limitedBy)}`);
+    if (q.limitedBy)
+      limits.push(
+        `the step needed to cancel ${label} is ${frac(-m.rateChange)}, beyond ${frequencyLimitText(norm, q.limitedBy)}`,
+      );
     commands.push({
-      uplinkAt: uplink, executeAt: m.t, kind: 'frequency', steps: q.steps, amount: q.amount,
-      reason: `cancels the relativistic rate change of ${label}${q.limitedBy ? ' (partly: limited by the actuator)' : ''}; ` +
+      uplinkAt: uplink,
+      executeAt: m.t,
+      kind: 'frequency',
+      steps: q.steps,
+      amount: q.amount,
+      reason:
+        `cancels the relativistic rate change of ${label}${q.limitedBy ? ' (partly: limited by the actuator)' : ''}; ` +
         (m.t > uplink ? `time-tagged ${describeDuration(m.t - uplink)} ahead` : 'executed on uplink'),
     });
   }

@@ -12,7 +12,7 @@
  * @module
  */
 import { phaseSquareIntegral, propagateMean, quadForm3 } from './clock-math.js';
-import { stateJumps, type InternalCommand } from './predict.js';
+import { type InternalCommand, stateJumps } from './predict.js';
 import type { NormalizedScenario } from './scenario.js';
 
 /** J split into its parts (all dimensionless). */
@@ -59,9 +59,10 @@ export function expectedCost(norm: NormalizedScenario, commands: readonly Intern
   let control = 0;
   for (const c of commands) {
     control += norm.weights.command;
-    control += c.kind === 'frequency'
-      ? norm.weights.frequencyStep * (c.amount / norm.actuator.maxStep) ** 2
-      : norm.weights.phaseStep * (c.amount / norm.bound) ** 2;
+    control +=
+      c.kind === 'frequency'
+        ? norm.weights.frequencyStep * (c.amount / norm.actuator.maxStep) ** 2
+        : norm.weights.phaseStep * (c.amount / norm.bound) ** 2;
   }
   const meanPart = meanSquare * scale;
   const variance = (initial + noise) * scale;

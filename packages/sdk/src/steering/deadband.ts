@@ -11,12 +11,22 @@
  *
  * @module
  */
+
+import { admissibleSteps, boundaries, brakingModel } from './braking.js';
 import { phaseVariance } from './clock-math.js';
 import {
-  cumulativeFrequency, describeDuration, frac, frequencyLimitText, isoAt, ns, quantiseFrequency, quantisePhase, spacingOk, uplinkFor,
+  cumulativeFrequency,
+  describeDuration,
+  frac,
+  frequencyLimitText,
+  isoAt,
+  ns,
+  quantiseFrequency,
+  quantisePhase,
+  spacingOk,
+  uplinkFor,
 } from './constraints.js';
-import { meanState, stateJumps, type InternalCommand, type StateJump } from './predict.js';
-import { admissibleSteps, boundaries, brakingModel } from './braking.js';
+import { type InternalCommand, meanState, type StateJump, stateJumps } from './predict.js';
 import type { NormalizedScenario } from './scenario.js';
 
 /** Default fraction of the usable band at which the deadband acts. */
@@ -53,7 +63,12 @@ function deadbandOpportunities(norm: NormalizedScenario): number[] {
  * `until` (seconds) stops it from placing commands at or after that time, and `notBefore` from
  * placing any before it (re-planning: the spacing from commands already executed).
  */
-export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalCommand[], until = Infinity, notBefore = -Infinity): PlannerResult {
+export function planDeadband(
+  norm: NormalizedScenario,
+  fixed: readonly InternalCommand[],
+  until = Infinity,
+  notBefore = -Infinity,
+): PlannerResult {
   const spec = norm.strategy.method === 'deadband' ? norm.strategy : { method: 'deadband' as const };
   const theta = spec.thresholdFraction ?? DEFAULT_DEADBAND_THRESHOLD;
   const correctionTime = spec.correctionTimeSeconds ?? DEFAULT_CORRECTION_TIME;
@@ -88,9 +103,17 @@ export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalC
       if (norm.actuator.phaseAllowed && Math.abs(x) > theta * usableNow) {
         const q = quantisePhase(norm, -x);
         if (q.steps !== 0) {
-          if (q.limitedBy) limits.push(`the phase step needed at ${isoAt(norm, t)} (${ns(-x)}) exceeds actuator.phaseSteps.maxStep (${ns(norm.actuator.phaseMaxStep)})`);
+          if (q.limitedBy)
+            limits.push(
+              `the phase step needed at ${isoAt(norm, t)} (${ns(-x)}) exceeds actuator.phaseSteps.maxStep (${ns(norm.actuator.phaseMaxStep)})`,
+            );
           commands.push({
-            uplinkAt: t, executeAt: t, kind: 'phase', steps: q.steps, amount: q.amount, planner: 'deadband',
+            uplinkAt: t,
+            executeAt: t,
+            kind: 'phase',
+            steps: q.steps,
+            amount: q.amount,
+            planner: 'deadband',
             reason: `${DEADBAND_REASON_PREFIX}predicted offset ${ns(x)} uses more than ${Math.round(theta * 100)} % of the usable band ±${ns(usableNow)}; phase step removes it`,
           });
           phaseDone = true;
@@ -98,14 +121,22 @@ export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalC
       }
       const execAt = phaseDone ? t + norm.actuator.spacing : t;
       const uplink = phaseDone ? uplinkFor(norm, execAt) : t;
-      if (uplink === undefined || execAt > norm.horizon || execAt < notBefore - 1e-6 || !spacingOk(norm, commands, execAt)) continue;
+      if (
+        uplink === undefined ||
+        execAt > norm.horizon ||
+        execAt < notBefore - 1e-6 ||
+        !spacingOk(norm, commands, execAt)
+      )
+        continue;
       const xAtExec = phaseDone ? meanState(norm, stateJumps(norm, commands), execAt)[0] : x;
       const yAtExec = y + d * (execAt - t);
       const wanted = -(yAtExec + (d * gap) / 2) - (phaseDone ? 0 : xAtExec / correctionTime);
       const cumulative = cumulativeFrequency(norm, commands);
       let q = quantiseFrequency(norm, wanted, cumulative);
       if (q.limitedBy) {
-        limits.push(`the needed step (${frac(wanted)}) ${q.limitedBy === 'maxStep' ? 'exceeds' : 'would leave'} ${frequencyLimitText(norm, q.limitedBy)}`);
+        limits.push(
+          `the needed step (${frac(wanted)}) ${q.limitedBy === 'maxStep' ? 'exceeds' : 'would leave'} ${frequencyLimitText(norm, q.limitedBy)}`,
+        );
       }
       const at = boundaryIndex.get(execAt);
       let braked = false;
@@ -118,12 +149,21 @@ export function planDeadband(norm: NormalizedScenario, fixed: readonly InternalC
       }
       if (q.steps === 0) continue;
       commands.push({
-        uplinkAt: uplink, executeAt: execAt, kind: 'frequency', steps: q.steps, amount: q.amount, planner: 'deadband',
-        reason: DEADBAND_REASON_PREFIX + (phaseDone
-          ? `cancels the predicted frequency offset ${frac(yAtExec)} after the phase step`
-          : `predicted offset would use more than ${Math.round(theta * 100)} % of the usable band before the next contact; ` +
-            `cancels frequency ${frac(yAtExec)} and steers out ${ns(xAtExec)} over ${describeDuration(correctionTime)}`) +
-          (braked ? '; step reduced so that the clock can still be braked without overshooting the opposite tolerance bound' : ''),
+        uplinkAt: uplink,
+        executeAt: execAt,
+        kind: 'frequency',
+        steps: q.steps,
+        amount: q.amount,
+        planner: 'deadband',
+        reason:
+          DEADBAND_REASON_PREFIX +
+          (phaseDone
+            ? `cancels the predicted frequency offset ${frac(yAtExec)} after the phase step`
+            : `predicted offset would use more than ${Math.round(theta * 100)} % of the usable band before the next contact; ` +
+              `cancels frequency ${frac(yAtExec)} and steers out ${ns(xAtExec)} over ${describeDuration(correctionTime)}`) +
+          (braked
+            ? '; step reduced so that the clock can still be braked without overshooting the opposite tolerance bound'
+            : ''),
       });
     }
   });

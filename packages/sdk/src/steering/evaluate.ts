@@ -6,14 +6,18 @@
  */
 import { InvalidArgumentError } from '../errors.js';
 import { requireFinite, requireInteger, requireObject } from '../internal/validate.js';
-import { expectedCost, type CostBreakdown } from './cost.js';
+import { type CostBreakdown, expectedCost } from './cost.js';
 import type { SteeringCommand, SteeringPlan } from './plan.js';
-import { checkTolerance, predictedSeries, stateJumps, type InternalCommand } from './predict.js';
-import { validateScenario, type NormalizedScenario } from './scenario.js';
+import { checkTolerance, type InternalCommand, predictedSeries, stateJumps } from './predict.js';
+import { type NormalizedScenario, validateScenario } from './scenario.js';
 import { parseUtcStamp, type TimeScaleOptions } from './utc-stamps.js';
 
 /** Converts public commands to scenario time, checking each field. */
-export function commandsToInternal(norm: NormalizedScenario, commands: readonly SteeringCommand[], field = 'commands'): InternalCommand[] {
+export function commandsToInternal(
+  norm: NormalizedScenario,
+  commands: readonly SteeringCommand[],
+  field = 'commands',
+): InternalCommand[] {
   if (!Array.isArray(commands)) throw new InvalidArgumentError(field, commands, 'an array of steering commands');
   return commands.map((c, i) => {
     const f = `${field}[${i}]`;
@@ -21,8 +25,10 @@ export function commandsToInternal(norm: NormalizedScenario, commands: readonly 
     const uplinkAt = parseUtcStamp(norm.timeScales, `${f}.uplinkAt`, c.uplinkAt).secondsSince(norm.epoch);
     const executeAt = parseUtcStamp(norm.timeScales, `${f}.executeAt`, c.executeAt).secondsSince(norm.epoch);
     const steps = requireInteger(`${f}.actuatorSteps`, c.actuatorSteps);
-    const amountField = c.kind === 'frequency' ? 'fractionalFrequencyStep' : c.kind === 'phase' ? 'phaseStepSeconds' : undefined;
-    if (amountField === undefined) throw new InvalidArgumentError(`${f}.kind`, (c as { kind?: unknown }).kind, '"frequency" or "phase"');
+    const amountField =
+      c.kind === 'frequency' ? 'fractionalFrequencyStep' : c.kind === 'phase' ? 'phaseStepSeconds' : undefined;
+    if (amountField === undefined)
+      throw new InvalidArgumentError(`${f}.kind`, (c as { kind?: unknown }).kind, '"frequency" or "phase"');
     const amount = requireFinite(`${f}.${amountField}`, c[amountField]);
     return { uplinkAt, executeAt, kind: c.kind, steps, amount, reason: String(c.reason ?? '') };
   });
@@ -40,7 +46,11 @@ export function commandsToInternal(norm: NormalizedScenario, commands: readonly 
  * @throws {InvalidArgumentError} for an invalid scenario or command field.
  * @throws {OutOfDomainError} for stamps outside the leap-second table (see `validateScenario`).
  */
-export function steeringCost(scenario: unknown, plan: Pick<SteeringPlan, 'commands'>, options: TimeScaleOptions = {}): CostBreakdown {
+export function steeringCost(
+  scenario: unknown,
+  plan: Pick<SteeringPlan, 'commands'>,
+  options: TimeScaleOptions = {},
+): CostBreakdown {
   const norm = validateScenario(scenario, options);
   requireObject('plan', plan as object, 'a plan object { commands }');
   return expectedCost(norm, commandsToInternal(norm, plan.commands, 'plan.commands'));
@@ -66,7 +76,11 @@ export interface SteeringPrediction {
  * @throws {InvalidArgumentError} for an invalid scenario or command field.
  * @throws {OutOfDomainError} for stamps outside the leap-second table (see `validateScenario`).
  */
-export function predictSteering(scenario: unknown, commands: readonly SteeringCommand[], options: TimeScaleOptions = {}): SteeringPrediction {
+export function predictSteering(
+  scenario: unknown,
+  commands: readonly SteeringCommand[],
+  options: TimeScaleOptions = {},
+): SteeringPrediction {
   const norm = validateScenario(scenario, options);
   const jumps = stateJumps(norm, commandsToInternal(norm, commands));
   return { ...predictedSeries(norm, jumps), withinTolerance: checkTolerance(norm, jumps).ok };

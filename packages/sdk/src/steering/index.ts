@@ -4,27 +4,63 @@
  *
  * @module
  */
+
+export { MAX_SEED } from '../internal/random.js';
+export type { DiffusionCoefficients } from './clock-math.js';
 export {
-  validateScenario, noiseToDiffusion,
-  type SteeringScenario, type ContactWindow, type ClockSpec, type NoiseSpec, type StabilitySpec, type StabilityPoint,
-  type ToleranceSpec, type ActuatorSpec, type PhaseStepSpec, type ManeuverSpec, type StrategySpec,
-  type DeadbandStrategySpec, type OptimalStrategySpec, type CostWeights, type NormalizedScenario, type OperationsSpec,
-} from './scenario.js';
+  type ClosedLoopOptions,
+  type ClosedLoopStrategySummary,
+  type ClosedLoopSummary,
+  simulateClosedLoop,
+} from './closed-loop.js';
+export type { CostBreakdown } from './cost.js';
+export { predictSteering, type SteeringPrediction, steeringCost } from './evaluate.js';
 export {
-  planSteering, STEERING_CAUTION,
-  type SteeringPlan, type InfeasibilityCode, type SteeringCommand, type SteeringMetrics, type PredictedSeries, type PlanOptions, type SteeringMethod,
-} from './plan.js';
-export { steeringCost, predictSteering, type SteeringPrediction } from './evaluate.js';
-export { type CostBreakdown } from './cost.js';
-export { type DiffusionCoefficients } from './clock-math.js';
-export {
-  combineMonteCarloParts, simulatePlan, simulatePlanRuns, type MonteCarloPart, type SimulationOptions, type SimulationRangeOptions, type SimulationSummary,
+  combineMonteCarloParts,
+  type MonteCarloPart,
+  type SimulationOptions,
+  type SimulationRangeOptions,
+  type SimulationSummary,
+  simulatePlan,
+  simulatePlanRuns,
 } from './monte-carlo.js';
 export {
-  replanSteering, createReplanner, type SteeringReplanner, type ClockOffsetEstimate, type PlanRevision, type RevisedSteeringPlan,
+  type InfeasibilityCode,
+  type PlanOptions,
+  type PredictedSeries,
+  planSteering,
+  STEERING_CAUTION,
+  type SteeringCommand,
+  type SteeringMethod,
+  type SteeringMetrics,
+  type SteeringPlan,
+} from './plan.js';
+export {
+  type ClockOffsetEstimate,
+  createReplanner,
+  type PlanRevision,
+  type RevisedSteeringPlan,
+  replanSteering,
+  type SteeringReplanner,
 } from './replan.js';
 export {
-  simulateClosedLoop, type ClosedLoopOptions, type ClosedLoopSummary, type ClosedLoopStrategySummary,
-} from './closed-loop.js';
-export { type TimeScaleOptions } from './utc-stamps.js';
-export { MAX_SEED } from '../internal/random.js';
+  type ActuatorSpec,
+  type ClockSpec,
+  type ContactWindow,
+  type CostWeights,
+  type DeadbandStrategySpec,
+  type ManeuverSpec,
+  type NoiseSpec,
+  type NormalizedScenario,
+  noiseToDiffusion,
+  type OperationsSpec,
+  type OptimalStrategySpec,
+  type PhaseStepSpec,
+  type StabilityPoint,
+  type StabilitySpec,
+  type SteeringScenario,
+  type StrategySpec,
+  type ToleranceSpec,
+  validateScenario,
+} from './scenario.js';
+export type { TimeScaleOptions } from './utc-stamps.js';

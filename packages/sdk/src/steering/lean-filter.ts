@@ -8,7 +8,7 @@
  *
  * @internal
  */
-import { processNoise, transition, type DiffusionCoefficients, type Matrix3 } from './clock-math.js';
+import { type DiffusionCoefficients, type Matrix3, processNoise, transition } from './clock-math.js';
 
 export class LeanClockFilter {
   t: number;
@@ -48,10 +48,12 @@ export class LeanClockFilter {
     const p = this.p;
     const a = this._tmp; // a = Φ P
     for (let i = 0; i < 3; i++) {
-      for (let j = 0; j < 3; j++) a[3 * i + j] = phi[i]![0]! * p[j]! + phi[i]![1]! * p[3 + j]! + phi[i]![2]! * p[6 + j]!;
+      for (let j = 0; j < 3; j++)
+        a[3 * i + j] = phi[i]![0]! * p[j]! + phi[i]![1]! * p[3 + j]! + phi[i]![2]! * p[6 + j]!;
     }
     for (let i = 0; i < 3; i++) {
-      for (let j = 0; j < 3; j++) p[3 * i + j] = a[3 * i]! * phi[j]![0]! + a[3 * i + 1]! * phi[j]![1]! + a[3 * i + 2]! * phi[j]![2]! + q[i]![j]!;
+      for (let j = 0; j < 3; j++)
+        p[3 * i + j] = a[3 * i]! * phi[j]![0]! + a[3 * i + 1]! * phi[j]![1]! + a[3 * i + 2]! * phi[j]![2]! + q[i]![j]!;
     }
     this.t = t;
   }
@@ -82,6 +84,10 @@ export class LeanClockFilter {
 
   covariance(): Matrix3 {
     const p = this.p;
-    return [[p[0]!, p[1]!, p[2]!], [p[3]!, p[4]!, p[5]!], [p[6]!, p[7]!, p[8]!]];
+    return [
+      [p[0]!, p[1]!, p[2]!],
+      [p[3]!, p[4]!, p[5]!],
+      [p[6]!, p[7]!, p[8]!],
+    ];
   }
 }

@@ -6,13 +6,13 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
+import { createReseedableRandom, MAX_SEED } from '../internal/random.js';
 import { requireInteger, requireObject } from '../internal/validate.js';
-import { MAX_SEED, createReseedableRandom } from '../internal/random.js';
-import { choleskyPsd3, processNoise, type Matrix3 } from './clock-math.js';
-import type { NormalizedScenario } from './scenario.js';
+import { choleskyPsd3, type Matrix3, processNoise } from './clock-math.js';
 import { commandsToInternal } from './evaluate.js';
 import type { SteeringPlan } from './plan.js';
 import { gridTimes, stateJumps } from './predict.js';
+import type { NormalizedScenario } from './scenario.js';
 import { validateScenario } from './scenario.js';
 import { resolveTimeScales, type TimeScaleOptions } from './utc-stamps.js';
 
@@ -88,12 +88,21 @@ export interface MonteCarloPart {
  * @throws {InvalidArgumentError} for invalid scenario, command, runs, seed or timeScales.
  * @throws {OutOfDomainError} for stamps outside the leap-second table (see `validateScenario`).
  */
-export function simulatePlan(scenario: unknown, plan: Pick<SteeringPlan, 'commands'>, options: SimulationOptions): SimulationSummary {
+export function simulatePlan(
+  scenario: unknown,
+  plan: Pick<SteeringPlan, 'commands'>,
+  options: SimulationOptions,
+): SimulationSummary {
   requireObject('options', options, 'an object with runs');
   const runs = requireInteger('options.runs', options.runs, 1, 1_000_000);
   const { onProgress, runs: _runs, ...rest } = options;
   void _runs;
-  const part = simulatePlanRuns(scenario, plan, { ...rest, firstRun: 0, runCount: runs, ...(onProgress ? { onProgress } : {}) });
+  const part = simulatePlanRuns(scenario, plan, {
+    ...rest,
+    firstRun: 0,
+    runCount: runs,
+    ...(onProgress ? { onProgress } : {}),
+  });
   return combineMonteCarloParts([part]);
 }
 
@@ -110,7 +119,11 @@ export function simulatePlan(scenario: unknown, plan: Pick<SteeringPlan, 'comman
  * @throws {InvalidArgumentError} for invalid scenario, command, range, seed or timeScales.
  * @throws {OutOfDomainError} for stamps outside the leap-second table.
  */
-export function simulatePlanRuns(scenario: unknown, plan: Pick<SteeringPlan, 'commands'>, options: SimulationRangeOptions): MonteCarloPart {
+export function simulatePlanRuns(
+  scenario: unknown,
+  plan: Pick<SteeringPlan, 'commands'>,
+  options: SimulationRangeOptions,
+): MonteCarloPart {
   requireObject('options', options, 'an object with firstRun and runCount');
   const norm = validateScenario(scenario, { timeScales: resolveTimeScales(options) });
   const firstRun = requireInteger('options.firstRun', options.firstRun, 0, 999_999);
@@ -120,7 +133,10 @@ export function simulatePlanRuns(scenario: unknown, plan: Pick<SteeringPlan, 'co
   const commands = commandsToInternal(norm, plan.commands, 'plan.commands');
   const steps = stepTable(norm, commands);
   const part: MonteCarloPart = {
-    seed, firstRun, runCount, commandCount: commands.length,
+    seed,
+    firstRun,
+    runCount,
+    commandCount: commands.length,
     insideByEpoch: new Float64Array(steps.gridCount),
     alwaysInsideByRun: new Uint8Array(runCount),
     worstByRunSeconds: new Float64Array(runCount),
@@ -145,11 +161,18 @@ function stepTable(norm: NormalizedScenario, commands: ReturnType<typeof command
   const jumps = stateJumps(norm, commands);
   const grid = gridTimes(norm);
   const gridSet = new Set(grid);
-  const timeline = [...new Set([...grid, ...jumps.map((j) => j.t).filter((t) => t >= 0 && t <= norm.horizon)])].sort((a, b) => a - b);
+  const timeline = [...new Set([...grid, ...jumps.map((j) => j.t).filter((t) => t >= 0 && t <= norm.horizon)])].sort(
+    (a, b) => a - b,
+  );
   const count = timeline.length;
   const table: StepTable = {
-    count, gridCount: grid.length, delta: new Float64Array(count), onGrid: new Uint8Array(count),
-    jumpDx: new Float64Array(count), jumpDy: new Float64Array(count), chol: new Float64Array(6 * count),
+    count,
+    gridCount: grid.length,
+    delta: new Float64Array(count),
+    onGrid: new Uint8Array(count),
+    jumpDx: new Float64Array(count),
+    jumpDy: new Float64Array(count),
+    chol: new Float64Array(6 * count),
   };
   const cholCache = new Map<number, Matrix3>();
   for (const j of jumps) {
@@ -191,9 +214,19 @@ function binarySearch(a: readonly number[], t: number): number {
 }
 
 /** The hot loop: flies the part's runs through the step table, one reused generator, no allocation per run or step. */
-function flyRuns(norm: NormalizedScenario, st: StepTable, part: MonteCarloPart, onProgress?: (done: number, total: number) => void): void {
+function flyRuns(
+  norm: NormalizedScenario,
+  st: StepTable,
+  part: MonteCarloPart,
+  onProgress?: (done: number, total: number) => void,
+): void {
   const l0 = choleskyPsd3(norm.covariance0);
-  const l00 = l0[0][0], l10 = l0[1][0], l11 = l0[1][1], l20 = l0[2][0], l21 = l0[2][1], l22 = l0[2][2];
+  const l00 = l0[0][0],
+    l10 = l0[1][0],
+    l11 = l0[1][1],
+    l20 = l0[2][0],
+    l21 = l0[2][1],
+    l22 = l0[2][2];
   const [m0, m1, m2] = norm.state0;
   const rng = createReseedableRandom('ziggurat');
   const { delta, onGrid, jumpDx, jumpDy, chol, count } = st;
@@ -246,18 +279,29 @@ function flyRuns(norm: NormalizedScenario, st: StepTable, part: MonteCarloPart, 
  *   do not tile 0 … runs − 1.
  */
 export function combineMonteCarloParts(parts: readonly MonteCarloPart[]): SimulationSummary {
-  if (!Array.isArray(parts) || parts.length === 0) throw new InvalidArgumentError('parts', parts, 'a non-empty array of simulatePlanRuns results');
-  parts.forEach((p, i) => requireMonteCarloPart(`parts[${i}]`, p));
+  if (!Array.isArray(parts) || parts.length === 0)
+    throw new InvalidArgumentError('parts', parts, 'a non-empty array of simulatePlanRuns results');
+  parts.forEach((p, i) => {
+    requireMonteCarloPart(`parts[${i}]`, p);
+  });
   const sorted = [...parts].sort((a, c) => a.firstRun - c.firstRun);
   const first = sorted[0]!;
   const gridCount = first.insideByEpoch.length;
   let runs = 0;
   for (const [i, p] of sorted.entries()) {
     if (p.seed !== first.seed || p.commandCount !== first.commandCount || p.insideByEpoch.length !== gridCount) {
-      throw new InvalidArgumentError(`parts[${i}]`, `seed ${p.seed}, ${p.commandCount} commands, ${p.insideByEpoch.length} epochs`,
-        `the seed, command count and grid of the first part (seed ${first.seed}, ${first.commandCount} commands, ${gridCount} epochs)`);
+      throw new InvalidArgumentError(
+        `parts[${i}]`,
+        `seed ${p.seed}, ${p.commandCount} commands, ${p.insideByEpoch.length} epochs`,
+        `the seed, command count and grid of the first part (seed ${first.seed}, ${first.commandCount} commands, ${gridCount} epochs)`,
+      );
     }
-    if (p.firstRun !== runs) throw new InvalidArgumentError(`parts[${i}].firstRun`, p.firstRun, `${runs} (the ranges must tile the runs from 0 without gap or overlap)`);
+    if (p.firstRun !== runs)
+      throw new InvalidArgumentError(
+        `parts[${i}].firstRun`,
+        p.firstRun,
+        `${runs} (the ranges must tile the runs from 0 without gap or overlap)`,
+      );
     runs += p.runCount;
   }
   const inside = new Float64Array(gridCount);
@@ -278,7 +322,9 @@ export function combineMonteCarloParts(parts: readonly MonteCarloPart[]): Simula
   for (let r = 0; r < runs; r++) if (worstByRun[r]! > worst) worst = worstByRun[r]!;
   worstByRun.sort();
   return {
-    runs, seed: first.seed, commandCount: first.commandCount,
+    runs,
+    seed: first.seed,
+    commandCount: first.commandCount,
     timeInTolerance: insideTotal / (runs * gridCount),
     wholeHorizonProbability: alwaysInside / runs,
     minEpochProbability: minEpoch,
@@ -289,23 +335,41 @@ export function combineMonteCarloParts(parts: readonly MonteCarloPart[]): Simula
 
 /** Throws unless `value` has the shape `simulatePlanRuns` returns, with counts that fit its run range. */
 function requireMonteCarloPart(argument: string, value: unknown): void {
-  const expected = 'a simulatePlanRuns result { seed, firstRun, runCount, commandCount, insideByEpoch, alwaysInsideByRun, worstByRunSeconds }';
+  const expected =
+    'a simulatePlanRuns result { seed, firstRun, runCount, commandCount, insideByEpoch, alwaysInsideByRun, worstByRunSeconds }';
   const p = value as Partial<MonteCarloPart> | null;
-  if (typeof p !== 'object' || p === null || Array.isArray(p)) throw new InvalidArgumentError(argument, value, expected);
+  if (typeof p !== 'object' || p === null || Array.isArray(p))
+    throw new InvalidArgumentError(argument, value, expected);
   requireInteger(`${argument}.seed`, p.seed, 0, MAX_SEED);
   const firstRun = requireInteger(`${argument}.firstRun`, p.firstRun, 0, 1_000_000);
   const runCount = requireInteger(`${argument}.runCount`, p.runCount, 1, 1_000_000 - firstRun);
   requireInteger(`${argument}.commandCount`, p.commandCount, 0, Number.MAX_SAFE_INTEGER);
   const inside = p.insideByEpoch;
-  if (!(inside instanceof Float64Array) || inside.length === 0 || inside.some((v) => !Number.isInteger(v) || v < 0 || v > runCount)) {
-    throw new InvalidArgumentError(`${argument}.insideByEpoch`, inside, `a Float64Array of per-epoch counts, integers from 0 to runCount = ${runCount}`);
+  if (
+    !(inside instanceof Float64Array) ||
+    inside.length === 0 ||
+    inside.some((v) => !Number.isInteger(v) || v < 0 || v > runCount)
+  ) {
+    throw new InvalidArgumentError(
+      `${argument}.insideByEpoch`,
+      inside,
+      `a Float64Array of per-epoch counts, integers from 0 to runCount = ${runCount}`,
+    );
   }
   const always = p.alwaysInsideByRun;
   if (!(always instanceof Uint8Array) || always.length !== runCount || always.some((v) => v > 1)) {
-    throw new InvalidArgumentError(`${argument}.alwaysInsideByRun`, always, `a Uint8Array of ${runCount} flags (0 or 1)`);
+    throw new InvalidArgumentError(
+      `${argument}.alwaysInsideByRun`,
+      always,
+      `a Uint8Array of ${runCount} flags (0 or 1)`,
+    );
   }
   const worst = p.worstByRunSeconds;
   if (!(worst instanceof Float64Array) || worst.length !== runCount || worst.some((v) => !(v >= 0 && v < Infinity))) {
-    throw new InvalidArgumentError(`${argument}.worstByRunSeconds`, worst, `a Float64Array of ${runCount} finite offsets ≥ 0 s`);
+    throw new InvalidArgumentError(
+      `${argument}.worstByRunSeconds`,
+      worst,
+      `a Float64Array of ${runCount} finite offsets ≥ 0 s`,
+    );
   }
 }

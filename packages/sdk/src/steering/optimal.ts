@@ -28,16 +28,48 @@
  *
  * @module
  */
+
 import {
-  add3, mul3, mulVec3, phaseSquareIntegral, propagateMean, quadForm3, transition, transpose3, zeros3, type Matrix3,
+  admissibleSteps,
+  type Boundary,
+  type BrakingModel,
+  boundaries,
+  brakingModel,
+  restViolation,
+} from './braking.js';
+import {
+  add3,
+  type Matrix3,
+  mul3,
+  mulVec3,
+  phaseSquareIntegral,
+  propagateMean,
+  quadForm3,
+  transition,
+  transpose3,
+  zeros3,
 } from './clock-math.js';
 import {
-  cumulativeFrequency, executionIntervals, frac, frequencyLimitText, ns, quantiseFrequency, quantisePhase, uplinkFor, type QuantisedStep,
+  cumulativeFrequency,
+  executionIntervals,
+  frac,
+  frequencyLimitText,
+  ns,
+  type QuantisedStep,
+  quantiseFrequency,
+  quantisePhase,
+  uplinkFor,
 } from './constraints.js';
 import { expectedCost } from './cost.js';
-import { DEADBAND_REASON_PREFIX, planDeadband, type PlannerResult } from './deadband.js';
-import { checkTolerance, gridTimes, phaseSigmaAt, stateJumps, type ActuatorLimit, type InternalCommand } from './predict.js';
-import { boundaries, brakingModel, restViolation, admissibleSteps, type Boundary, type BrakingModel } from './braking.js';
+import { DEADBAND_REASON_PREFIX, type PlannerResult, planDeadband } from './deadband.js';
+import {
+  type ActuatorLimit,
+  checkTolerance,
+  gridTimes,
+  type InternalCommand,
+  phaseSigmaAt,
+  stateJumps,
+} from './predict.js';
 import type { NormalizedScenario } from './scenario.js';
 
 /** Candidate execution epochs: uplink-reachable, ≥ spacing apart and away from fixed commands. */
@@ -84,7 +116,8 @@ export function actuatorLimitMessages(norm: NormalizedScenario, commands: readon
   const messages: string[] = [];
   if (hit.has('maxFrequencyStep')) messages.push(`the needed step exceeds ${frequencyLimitText(norm, 'maxStep')}`);
   if (hit.has('cumulativeFrequencyRange')) messages.push(`${frequencyLimitText(norm, 'range')} is exhausted`);
-  if (hit.has('maxPhaseStep')) messages.push(`the needed phase step exceeds actuator.phaseSteps.maxStep (${ns(norm.actuator.phaseMaxStep)})`);
+  if (hit.has('maxPhaseStep'))
+    messages.push(`the needed phase step exceeds actuator.phaseSteps.maxStep (${ns(norm.actuator.phaseMaxStep)})`);
   return messages;
 }
 
@@ -103,8 +136,10 @@ export interface OptimalModel {
 
 /** Builds the boundaries and runs the backward pass with the phase weight multiplied by `scale`. */
 export function optimalModel(norm: NormalizedScenario, fixed: readonly InternalCommand[], scale: number): OptimalModel {
-  const cadence = norm.strategy.method === 'optimal' && norm.strategy.decisionIntervalSeconds !== undefined
-    ? norm.strategy.decisionIntervalSeconds : Math.max(norm.grid, norm.actuator.spacing);
+  const cadence =
+    norm.strategy.method === 'optimal' && norm.strategy.decisionIntervalSeconds !== undefined
+      ? norm.strategy.decisionIntervalSeconds
+      : Math.max(norm.grid, norm.actuator.spacing);
   const bounds = boundaries(norm, fixed, decisionEpochs(norm, fixed, cadence));
   const k = bounds.length - 1;
   const w = scale / (norm.bound * norm.bound * norm.horizon);
@@ -163,7 +198,12 @@ interface Candidate {
  * re-optimise what rounding left. Returns only the new commands. `explain` false skips the
  * reason texts (Monte Carlo).
  */
-export function forwardOptimal(model: OptimalModel, start: ForwardStart, until = Infinity, explain = true): InternalCommand[] {
+export function forwardOptimal(
+  model: OptimalModel,
+  start: ForwardStart,
+  until = Infinity,
+  explain = true,
+): InternalCommand[] {
   const { norm, bounds, stageS, stageG, rF, rP } = model;
   const made: InternalCommand[] = [];
   let i = 0;
@@ -180,13 +220,24 @@ export function forwardOptimal(model: OptimalModel, start: ForwardStart, until =
       if (best.kind !== 'none') {
         const uplink = uplinkFor(norm, b.t)!;
         const limitedBy = actuatorLimitOf(best.kind, best.step);
-        const reason = explain ? `optimal (constrained LQ): predicted offset ${ns(state[0])} and frequency ${frac(state[1])} before the step; ` +
-          `this ${best.kind} step minimises the expected offset cost to the end of the horizon among the steps that let the clock be braked ` +
-          'without overshooting the opposite tolerance bound' + (limitedBy ? ` (limited by ${LIMIT_NAMES[limitedBy]})` : '') +
-          (best.violation > 0 ? `; no step avoids an overshoot of ${ns(best.violation)}: this one brakes hardest` : '') : '';
+        const reason = explain
+          ? `optimal (constrained LQ): predicted offset ${ns(state[0])} and frequency ${frac(state[1])} before the step; ` +
+            `this ${best.kind} step minimises the expected offset cost to the end of the horizon among the steps that let the clock be braked ` +
+            'without overshooting the opposite tolerance bound' +
+            (limitedBy ? ` (limited by ${LIMIT_NAMES[limitedBy]})` : '') +
+            (best.violation > 0
+              ? `; no step avoids an overshoot of ${ns(best.violation)}: this one brakes hardest`
+              : '')
+          : '';
         made.push({
-          uplinkAt: uplink, executeAt: b.t, kind: best.kind, steps: best.step.steps, amount: best.step.amount, planner: 'optimal',
-          reason, ...(limitedBy ? { limitedBy } : {}),
+          uplinkAt: uplink,
+          executeAt: b.t,
+          kind: best.kind,
+          steps: best.step.steps,
+          amount: best.step.amount,
+          planner: 'optimal',
+          reason,
+          ...(limitedBy ? { limitedBy } : {}),
         });
         if (best.kind === 'frequency') {
           state[1] += best.step.amount;
@@ -200,8 +251,16 @@ export function forwardOptimal(model: OptimalModel, start: ForwardStart, until =
 }
 
 /** The cheapest admissible command at controllable boundary i (see forwardOptimal). */
-function chooseCommand(model: OptimalModel, i: number, state: readonly number[], cumulative: number,
-  s: Matrix3, g: number[], rF: number, rP: number): Candidate {
+function chooseCommand(
+  model: OptimalModel,
+  i: number,
+  state: readonly number[],
+  cumulative: number,
+  s: Matrix3,
+  g: number[],
+  rF: number,
+  rP: number,
+): Candidate {
   const { norm, braking } = model;
   const q = (dx: number, dy: number, charge: number): number => {
     const z = [state[0]! + dx, state[1]! + dy, state[2]!];
@@ -209,7 +268,9 @@ function chooseCommand(model: OptimalModel, i: number, state: readonly number[],
   };
   const violation = (dx: number, du: number): number =>
     restViolation(braking, i, state[0]!, [state[0]! + dx, state[1]! + du, state[2]!], cumulative + du);
-  const candidates: Candidate[] = [{ cost: q(0, 0, 0), kind: 'none', step: { steps: 0, amount: 0 }, violation: violation(0, 0) }];
+  const candidates: Candidate[] = [
+    { cost: q(0, 0, 0), kind: 'none', step: { steps: 0, amount: 0 }, violation: violation(0, 0) },
+  ];
   const res = norm.actuator.resolution;
   const uStar = -(s[1][0] * state[0]! + s[1][1] * state[1]! + s[1][2] * state[2]! + g[1]!) / (s[1][1] + rF);
   const tried = new Set<number>();
@@ -220,19 +281,30 @@ function chooseCommand(model: OptimalModel, i: number, state: readonly number[],
     tried.add(adm.steps);
     const amount = adm.steps * res;
     const step: QuantisedStep = adm.steps === wanted.steps ? wanted : { steps: adm.steps, amount };
-    candidates.push({ cost: q(0, amount, rF * amount * amount + norm.weights.command), kind: 'frequency', step, violation: adm.violation });
+    candidates.push({
+      cost: q(0, amount, rF * amount * amount + norm.weights.command),
+      kind: 'frequency',
+      step,
+      violation: adm.violation,
+    });
   }
   if (norm.actuator.phaseAllowed) {
     const pStar = -(s[0][0] * state[0]! + s[0][1] * state[1]! + s[0][2] * state[2]! + g[0]!) / (s[0][0] + rP);
     for (const rounding of ['floor', 'ceil'] as const) {
       const qs = quantisePhase(norm, pStar, rounding);
       if (qs.steps === 0) continue;
-      candidates.push({ cost: q(qs.amount, 0, rP * qs.amount * qs.amount + norm.weights.command), kind: 'phase', step: qs, violation: violation(qs.amount, 0) });
+      candidates.push({
+        cost: q(qs.amount, 0, rP * qs.amount * qs.amount + norm.weights.command),
+        kind: 'phase',
+        step: qs,
+        violation: violation(qs.amount, 0),
+      });
     }
   }
   // Admissible candidates first (smallest violation), then the lowest cost.
   let best = candidates[0]!;
-  for (const c of candidates) if (c.violation < best.violation || (c.violation === best.violation && c.cost < best.cost)) best = c;
+  for (const c of candidates)
+    if (c.violation < best.violation || (c.violation === best.violation && c.cost < best.cost)) best = c;
   return best;
 }
 
@@ -255,7 +327,9 @@ export function planOptimal(norm: NormalizedScenario, fixed: readonly InternalCo
   let scale = 1;
   let bestCost = Infinity;
   for (let attempt = 0, trial = 1; attempt < attempts; attempt++, trial *= 10) {
-    const planned = [...fixed, ...forwardOptimal(optimalModel(norm, fixed, trial), start)].sort((a, b) => a.executeAt - b.executeAt);
+    const planned = [...fixed, ...forwardOptimal(optimalModel(norm, fixed, trial), start)].sort(
+      (a, b) => a.executeAt - b.executeAt,
+    );
     const feasible = checkTolerance(norm, stateJumps(norm, planned)).ok;
     if (ok && !feasible) continue;
     const cost = expectedCost(norm, planned).total;
@@ -270,12 +344,24 @@ export function planOptimal(norm: NormalizedScenario, fixed: readonly InternalCo
   // or when both have the same feasibility and the deadband schedule has the lower expected cost.
   const deadband = planDeadband(norm, fixed);
   const deadbandOk = checkTolerance(norm, stateJumps(norm, deadband.commands)).ok;
-  if ((deadbandOk && !ok) || (deadbandOk === ok && expectedCost(norm, deadband.commands).total < expectedCost(norm, commands).total)) {
-    const why = deadbandOk && !ok ? 'it holds the tolerance and the LQ schedule does not' : 'lower expected cost than the LQ schedule';
+  if (
+    (deadbandOk && !ok) ||
+    (deadbandOk === ok && expectedCost(norm, deadband.commands).total < expectedCost(norm, commands).total)
+  ) {
+    const why =
+      deadbandOk && !ok
+        ? 'it holds the tolerance and the LQ schedule does not'
+        : 'lower expected cost than the LQ schedule';
     return {
       // Feed-forward commands keep their reason; the deadband planner's own say why the optimal planner kept them.
-      commands: deadband.commands.map((c) => (c.planner === 'deadband'
-        ? { ...c, reason: `optimal (deadband schedule kept: ${why}): ${c.reason.slice(DEADBAND_REASON_PREFIX.length)}` } : c)),
+      commands: deadband.commands.map((c) =>
+        c.planner === 'deadband'
+          ? {
+              ...c,
+              reason: `optimal (deadband schedule kept: ${why}): ${c.reason.slice(DEADBAND_REASON_PREFIX.length)}`,
+            }
+          : c,
+      ),
       limits: deadband.limits,
       optimal: { scale, deadbandKept: true },
     };

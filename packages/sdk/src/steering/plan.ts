@@ -3,23 +3,27 @@
  *
  * @module
  */
+
+import { InvalidArgumentError } from '../errors.js';
 import type { Dimensionless, Seconds } from '../units.js';
-import {
-  describeDuration, executionIntervals, feedForwardManeuvers, isoAt, ns,
-} from './constraints.js';
+import { describeDuration, executionIntervals, feedForwardManeuvers, isoAt, ns } from './constraints.js';
 import { expectedCost } from './cost.js';
-import { planDeadband, type PlannerResult } from './deadband.js';
+import { type PlannerResult, planDeadband } from './deadband.js';
 import { planOptimal } from './optimal.js';
 import {
-  checkTolerance, gridTimes, phaseSigmaAt, predictedSeries, stateJumps, type InternalCommand,
+  checkTolerance,
+  gridTimes,
+  type InternalCommand,
+  phaseSigmaAt,
+  predictedSeries,
+  stateJumps,
 } from './predict.js';
-import { validateScenario, type NormalizedScenario } from './scenario.js';
-import { InvalidArgumentError } from '../errors.js';
+import { type NormalizedScenario, validateScenario } from './scenario.js';
 import type { TimeScaleOptions } from './utc-stamps.js';
 
 /** The caution every steering plan carries. */
 export const STEERING_CAUTION =
-  'Caution: this schedule is a planning aid. Verify every command against the mission\'s own interface specification ' +
+  "Caution: this schedule is a planning aid. Verify every command against the mission's own interface specification " +
   '(actuator units, sign convention, time-tag format) and have it confirmed by its responsible engineering authority ' +
   'before uplink. The predicted σ is an open-loop prediction from the epoch estimate; it is not a guarantee.';
 
@@ -60,7 +64,13 @@ export interface PredictedSeries {
  * - `unsteered`: the `none` method leaves the clock outside;
  * - `planner`: the contacts and actuator could not hold it with this planner (try the other one).
  */
-export type InfeasibilityCode = 'uncertainty' | 'outside-at-epoch' | 'no-contact-in-time' | 'actuator-limit' | 'unsteered' | 'planner';
+export type InfeasibilityCode =
+  | 'uncertainty'
+  | 'outside-at-epoch'
+  | 'no-contact-in-time'
+  | 'actuator-limit'
+  | 'unsteered'
+  | 'planner';
 
 /** A steering plan: plain JSON-serialisable data. */
 export interface SteeringPlan {
@@ -128,8 +138,13 @@ export function runPlanner(norm: NormalizedScenario, method: SteeringMethod): Pl
   return { commands: result.commands, limits: [...ff.limits, ...result.limits], notes: ff.notes };
 }
 
-function diagnose(norm: NormalizedScenario, method: SteeringMethod, commands: readonly InternalCommand[],
-  limits: readonly string[], violation: { t: number; mean: number; sigma: number; probability: number }): { code: InfeasibilityCode; text: string } {
+function diagnose(
+  norm: NormalizedScenario,
+  method: SteeringMethod,
+  commands: readonly InternalCommand[],
+  limits: readonly string[],
+  violation: { t: number; mean: number; sigma: number; probability: number },
+): { code: InfeasibilityCode; text: string } {
   const bound = norm.bound;
   const pct = `${Number((norm.probability * 100).toPrecision(6))} %`;
   // 1. Uncertainty alone: no schedule can help once z·σ ≥ b.
@@ -139,25 +154,39 @@ function diagnose(norm: NormalizedScenario, method: SteeringMethod, commands: re
     const t = times[i]!;
     const sigma = sigmas[i]!;
     if (norm.z * sigma >= bound) {
-      return { code: 'uncertainty', text: `σ alone exceeds the tolerance after ${describeDuration(t)} (at ${isoAt(norm, t)}): ` +
-        `z·σ = ${norm.z.toFixed(3)} × ${ns(sigma)} ≥ ±${ns(bound)} at ${pct}, whatever the commands. ` +
-        'The prediction from the epoch estimate cannot promise the tolerance that far ahead: re-plan from a fresh clock ' +
-        'estimate before then, shorten horizonSeconds, or relax the tolerance.' };
+      return {
+        code: 'uncertainty',
+        text:
+          `σ alone exceeds the tolerance after ${describeDuration(t)} (at ${isoAt(norm, t)}): ` +
+          `z·σ = ${norm.z.toFixed(3)} × ${ns(sigma)} ≥ ±${ns(bound)} at ${pct}, whatever the commands. ` +
+          'The prediction from the epoch estimate cannot promise the tolerance that far ahead: re-plan from a fresh clock ' +
+          'estimate before then, shorten horizonSeconds, or relax the tolerance.',
+      };
     }
   }
-  const where = `the probability of |offset| ≤ ±${ns(bound)} is ${violation.probability.toFixed(4)} < ${norm.probability} ` +
+  const where =
+    `the probability of |offset| ≤ ±${ns(bound)} is ${violation.probability.toFixed(4)} < ${norm.probability} ` +
     `(mean ${ns(violation.mean)}, σ ${ns(violation.sigma)}) at ${isoAt(norm, violation.t)} (${describeDuration(violation.t)} after the epoch)`;
-  if (violation.t === 0) return { code: 'outside-at-epoch', text: `the clock is already outside the tolerance at the epoch: ${where}.` };
+  if (violation.t === 0)
+    return { code: 'outside-at-epoch', text: `the clock is already outside the tolerance at the epoch: ${where}.` };
   const intervals = executionIntervals(norm);
   if (!intervals.some((iv) => iv.from <= violation.t)) {
-    return { code: 'no-contact-in-time', text: `no contact lets a command execute before the offset leaves the tolerance: ${where}.` };
+    return {
+      code: 'no-contact-in-time',
+      text: `no contact lets a command execute before the offset leaves the tolerance: ${where}.`,
+    };
   }
-  if (limits.length > 0) return { code: 'actuator-limit', text: `the tolerance cannot be held with this actuator: ${limits[0]}; ${where}.` };
+  if (limits.length > 0)
+    return { code: 'actuator-limit', text: `the tolerance cannot be held with this actuator: ${limits[0]}; ${where}.` };
   if (method === 'none') return { code: 'unsteered', text: `unsteered, ${where}.` };
   const lastCommand = [...commands].reverse().find((c) => c.executeAt <= violation.t);
   const gap = lastCommand ? ` (last command executes at ${isoAt(norm, lastCommand.executeAt)})` : '';
-  return { code: 'planner', text: `the tolerance cannot be held with these contacts and this actuator by the ${method} planner: ${where}${gap}` +
-    (method === 'deadband' ? '; try the optimal planner.' : '.') };
+  return {
+    code: 'planner',
+    text:
+      `the tolerance cannot be held with these contacts and this actuator by the ${method} planner: ${where}${gap}` +
+      (method === 'deadband' ? '; try the optimal planner.' : '.'),
+  };
 }
 
 function toPublic(norm: NormalizedScenario, c: InternalCommand): SteeringCommand {
@@ -172,7 +201,11 @@ function toPublic(norm: NormalizedScenario, c: InternalCommand): SteeringCommand
 }
 
 /** Builds the public plan from validated input and internal commands. */
-export function buildPlan(norm: NormalizedScenario, method: SteeringMethod, result: PlannerResult & { notes: string[] }): SteeringPlan {
+export function buildPlan(
+  norm: NormalizedScenario,
+  method: SteeringMethod,
+  result: PlannerResult & { notes: string[] },
+): SteeringPlan {
   const commands = result.commands;
   const jumps = stateJumps(norm, commands);
   const check = checkTolerance(norm, jumps);
@@ -191,7 +224,9 @@ export function buildPlan(norm: NormalizedScenario, method: SteeringMethod, resu
       worstOffsetBoundSeconds: check.worstBound,
       probabilityInTolerance: check.minProbability,
       commandCount: commands.length,
-      totalFrequencySteering: commands.filter((c) => c.kind === 'frequency').reduce((s, c) => s + Math.abs(c.amount), 0),
+      totalFrequencySteering: commands
+        .filter((c) => c.kind === 'frequency')
+        .reduce((s, c) => s + Math.abs(c.amount), 0),
       totalPhaseSteeringSeconds: commands.filter((c) => c.kind === 'phase').reduce((s, c) => s + Math.abs(c.amount), 0),
       expectedCost: expectedCost(norm, commands).total,
       settledAfterSeconds: check.settledFrom ?? null,
@@ -200,8 +235,10 @@ export function buildPlan(norm: NormalizedScenario, method: SteeringMethod, resu
   };
   if (!check.ok) {
     const why = diagnose(norm, method, commands, result.limits, check.firstViolation!);
-    const settled = check.settledFrom !== undefined && method !== 'none'
-      ? ` The plan holds the tolerance from ${isoAt(norm, check.settledFrom)} (${describeDuration(check.settledFrom)} after the epoch) to the end of the horizon.` : '';
+    const settled =
+      check.settledFrom !== undefined && method !== 'none'
+        ? ` The plan holds the tolerance from ${isoAt(norm, check.settledFrom)} (${describeDuration(check.settledFrom)} after the epoch) to the end of the horizon.`
+        : '';
     plan.reason = why.text + settled + (result.notes.length ? ` Note: ${result.notes.join('; ')}.` : '');
     plan.reasonCode = why.code;
   }
@@ -238,7 +275,8 @@ export function buildPlan(norm: NormalizedScenario, method: SteeringMethod, resu
  * @see P. Koppang & R. Leland, IEEE Trans. UFFC 46(3) 517–522 (1999) [V2]; Metrologia 56 025007 (2019) [V2].
  */
 export function planSteering(scenario: unknown, options: PlanOptions = {}): SteeringPlan {
-  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an object { strategy?, timeScales? }');
+  if (typeof options !== 'object' || options === null)
+    throw new InvalidArgumentError('options', options, 'an object { strategy?, timeScales? }');
   const norm = validateScenario(scenario, options);
   const method = resolveMethod(norm, options.strategy);
   return buildPlan(norm, method, runPlanner(norm, method));

@@ -45,7 +45,9 @@ export interface StateJump {
 export function stateJumps(norm: NormalizedScenario, commands: readonly InternalCommand[]): StateJump[] {
   const jumps: StateJump[] = norm.maneuvers.map((m) => ({ t: m.t, dy: m.rateChange, dx: 0 }));
   for (const c of commands) {
-    jumps.push(c.kind === 'frequency' ? { t: c.executeAt, dy: c.amount, dx: 0 } : { t: c.executeAt, dy: 0, dx: c.amount });
+    jumps.push(
+      c.kind === 'frequency' ? { t: c.executeAt, dy: c.amount, dx: 0 } : { t: c.executeAt, dy: 0, dx: c.amount },
+    );
   }
   return jumps.sort((a, b) => a.t - b.t);
 }
@@ -55,8 +57,12 @@ export function stateJumps(norm: NormalizedScenario, commands: readonly Internal
  * x(t) = x0 + y0 t + d0 t²/2 + Σ dy_j (t − t_j) + Σ dx_j over jumps before t (physics-refs §11).
  * `side` 'before' excludes jumps exactly at t, 'after' includes them.
  */
-export function meanState(norm: NormalizedScenario, jumps: readonly StateJump[], t: Seconds,
-  side: 'before' | 'after' = 'after'): [number, number, number] {
+export function meanState(
+  norm: NormalizedScenario,
+  jumps: readonly StateJump[],
+  t: Seconds,
+  side: 'before' | 'after' = 'after',
+): [number, number, number] {
   const [x0, y0, d0] = norm.state0;
   let x = x0 + y0 * t + (d0 * t * t) / 2;
   let y = y0 + d0 * t;
@@ -69,7 +75,11 @@ export function meanState(norm: NormalizedScenario, jumps: readonly StateJump[],
 }
 
 /** Mean phase at sorted times (after any jump at that exact time), in O(times + jumps). */
-export function meanPhaseAt(norm: NormalizedScenario, jumps: readonly StateJump[], times: ArrayLike<number>): Float64Array {
+export function meanPhaseAt(
+  norm: NormalizedScenario,
+  jumps: readonly StateJump[],
+  times: ArrayLike<number>,
+): Float64Array {
   const [x0, y0, d0] = norm.state0;
   const out = new Float64Array(times.length);
   let k = 0;
@@ -99,7 +109,10 @@ export function phaseSigmaAt(norm: NormalizedScenario, times: ArrayLike<number>)
  * applied (steered) and with the manoeuvres only (unsteered), each beside the open-loop σ (the same
  * for both: commands do not change σ).
  */
-export function predictedSeries(norm: NormalizedScenario, jumps: readonly StateJump[]): { t: number[]; steered: PredictedSeries; unsteered: PredictedSeries } {
+export function predictedSeries(
+  norm: NormalizedScenario,
+  jumps: readonly StateJump[],
+): { t: number[]; steered: PredictedSeries; unsteered: PredictedSeries } {
   const t = gridTimes(norm);
   const sigma = Array.from(phaseSigmaAt(norm, t));
   return {

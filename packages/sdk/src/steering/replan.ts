@@ -6,18 +6,26 @@
  *
  * @module
  */
-import { InvalidArgumentError } from '../errors.js';
+
 import { ClockKalmanFilter } from '../clock-model/kalman.js';
+import { InvalidArgumentError } from '../errors.js';
 import { requireFinite, requireNonNegative, requirePositive } from '../internal/validate.js';
 import type { Seconds } from '../units.js';
-import { add3, mul3, processNoise, propagateMean, transition, transpose3, type Matrix3 } from './clock-math.js';
+import { add3, type Matrix3, mul3, processNoise, propagateMean, transition, transpose3 } from './clock-math.js';
 import { cumulativeFrequency, feedForwardManeuvers } from './constraints.js';
 import { planDeadband } from './deadband.js';
 import { commandsToInternal } from './evaluate.js';
-import { forwardOptimal, optimalModel, planOptimal, type OptimalModel } from './optimal.js';
-import { buildPlan, resolveMethod, type PlanOptions, type SteeringCommand, type SteeringMethod, type SteeringPlan } from './plan.js';
+import { forwardOptimal, type OptimalModel, optimalModel, planOptimal } from './optimal.js';
+import {
+  buildPlan,
+  type PlanOptions,
+  resolveMethod,
+  type SteeringCommand,
+  type SteeringMethod,
+  type SteeringPlan,
+} from './plan.js';
 import type { InternalCommand, StateJump } from './predict.js';
-import { validateScenario, type NormalizedScenario } from './scenario.js';
+import { type NormalizedScenario, validateScenario } from './scenario.js';
 
 /** One ground estimate of the clock offset. */
 export interface ClockOffsetEstimate {
@@ -36,7 +44,13 @@ export interface PlanRevision {
   /** Number of estimates the filter used. */
   estimatesUsed: number;
   /** The filter's state at `nowSeconds`: offset (s), fractional frequency, drift (1/s), and their 1σ. */
-  state: { phaseSeconds: Seconds; fractionalFrequency: number; driftPerSecond: number; phaseSigmaSeconds: Seconds; frequencySigma: number };
+  state: {
+    phaseSeconds: Seconds;
+    fractionalFrequency: number;
+    driftPerSecond: number;
+    phaseSigmaSeconds: Seconds;
+    frequencySigma: number;
+  };
   /** Commands of the previous plan already executed before `nowSeconds` (kept, not in `commands`). */
   executed: SteeringCommand[];
   /** Commands of the previous plan not yet uplinked at `nowSeconds`, replaced by the revision. */
@@ -58,24 +72,39 @@ export interface StateEstimate {
 export function propagateEstimate(e: StateEstimate, dt: number, norm: NormalizedScenario): StateEstimate {
   if (dt <= 0) return e;
   const phi = transition(dt);
-  return { state: propagateMean(e.state, dt), covariance: add3(mul3(phi, mul3(e.covariance, transpose3(phi))), processNoise(dt, norm.noise)) };
+  return {
+    state: propagateMean(e.state, dt),
+    covariance: add3(mul3(phi, mul3(e.covariance, transpose3(phi))), processNoise(dt, norm.noise)),
+  };
 }
 
 /** The scenario seen from `now`: epoch, state, covariance, windows, manoeuvres and horizon shifted; `initial` the steering already applied. */
-export function shiftScenario(norm: NormalizedScenario, now: Seconds, est: StateEstimate, initial: number, end = norm.horizon): NormalizedScenario {
+export function shiftScenario(
+  norm: NormalizedScenario,
+  now: Seconds,
+  est: StateEstimate,
+  initial: number,
+  end = norm.horizon,
+): NormalizedScenario {
   return {
     ...norm,
     epoch: norm.epoch.plus(now),
     horizon: end - now,
     state0: [...est.state],
     covariance0: est.covariance,
-    windows: norm.windows.filter((w) => w.end > now && w.start < end).map((w) => ({ start: Math.max(0, w.start - now), end: Math.min(end, w.end) - now })),
+    windows: norm.windows
+      .filter((w) => w.end > now && w.start < end)
+      .map((w) => ({ start: Math.max(0, w.start - now), end: Math.min(end, w.end) - now })),
     maneuvers: norm.maneuvers.filter((m) => m.t >= now && m.t <= end).map((m) => ({ ...m, t: m.t - now })),
     actuator: { ...norm.actuator, initial },
   };
 }
 
-const shift = (c: InternalCommand, dt: number): InternalCommand => ({ ...c, uplinkAt: c.uplinkAt + dt, executeAt: c.executeAt + dt });
+const shift = (c: InternalCommand, dt: number): InternalCommand => ({
+  ...c,
+  uplinkAt: c.uplinkAt + dt,
+  executeAt: c.executeAt + dt,
+});
 
 /** How a method re-plans: built once per scenario (open-loop plan decides the optimal planner's weight). */
 export interface Replanner {
@@ -103,30 +132,56 @@ export function makeReplanner(norm: NormalizedScenario, method: SteeringMethod):
  * included); `fixedAfter`: fixed commands executing at or after `now`; `lastExecuted`: the
  * execution time of the latest command before now (for the minimum spacing).
  */
-export function replanFrom(rp: Replanner, now: Seconds, until: Seconds, est: StateEstimate, cumulative: number,
-  fixedAfter: readonly InternalCommand[], explain: boolean, lastExecuted = -Infinity): InternalCommand[] {
+export function replanFrom(
+  rp: Replanner,
+  now: Seconds,
+  until: Seconds,
+  est: StateEstimate,
+  cumulative: number,
+  fixedAfter: readonly InternalCommand[],
+  explain: boolean,
+  lastExecuted = -Infinity,
+): InternalCommand[] {
   if (rp.method === 'none') return [];
   if (rp.model) return forwardOptimal(rp.model, { t: now, state: est.state, cumulative }, until, explain);
   const fixedSum = fixedAfter.reduce((s, c) => s + (c.kind === 'frequency' ? c.amount : 0), 0);
   const shifted = shiftScenario(rp.norm, now, est, cumulative - fixedSum);
   const notBefore = lastExecuted + rp.norm.actuator.spacing - now;
-  const planned = planDeadband(shifted, fixedAfter.map((c) => shift(c, -now)), until - now, notBefore).commands;
+  const planned = planDeadband(
+    shifted,
+    fixedAfter.map((c) => shift(c, -now)),
+    until - now,
+    notBefore,
+  ).commands;
   return planned.filter((c) => c.planner === 'deadband').map((c) => shift(c, now));
 }
 
 function requireEstimates(value: unknown, now: number): ClockOffsetEstimate[] {
-  if (!Array.isArray(value)) throw new InvalidArgumentError('estimates', value, 'an array of { tSeconds, phaseSeconds, sigmaSeconds }');
+  if (!Array.isArray(value))
+    throw new InvalidArgumentError('estimates', value, 'an array of { tSeconds, phaseSeconds, sigmaSeconds }');
   let last = -Infinity;
   return value.map((e: unknown, i) => {
-    if (typeof e !== 'object' || e === null) throw new InvalidArgumentError(`estimates[${i}]`, e, 'an object { tSeconds, phaseSeconds, sigmaSeconds }');
+    if (typeof e !== 'object' || e === null)
+      throw new InvalidArgumentError(`estimates[${i}]`, e, 'an object { tSeconds, phaseSeconds, sigmaSeconds }');
     const r = e as Record<string, unknown>;
-    const t = requireNonNegative(`estimates[${i}].tSeconds`, r['tSeconds'], 's');
-    if (t > now) throw new InvalidArgumentError(`estimates[${i}].tSeconds`, t, `at most nowSeconds (${now} s): an estimate cannot come from the future`);
-    if (t < last) throw new InvalidArgumentError(`estimates[${i}].tSeconds`, t, `at or after estimates[${i - 1}].tSeconds (${last} s): estimates sorted by time`);
+    const t = requireNonNegative(`estimates[${i}].tSeconds`, r.tSeconds, 's');
+    if (t > now)
+      throw new InvalidArgumentError(
+        `estimates[${i}].tSeconds`,
+        t,
+        `at most nowSeconds (${now} s): an estimate cannot come from the future`,
+      );
+    if (t < last)
+      throw new InvalidArgumentError(
+        `estimates[${i}].tSeconds`,
+        t,
+        `at or after estimates[${i - 1}].tSeconds (${last} s): estimates sorted by time`,
+      );
     last = t;
     return {
-      tSeconds: t, phaseSeconds: requireFinite(`estimates[${i}].phaseSeconds`, r['phaseSeconds'], 'a finite offset in seconds'),
-      sigmaSeconds: requirePositive(`estimates[${i}].sigmaSeconds`, r['sigmaSeconds'], 's'),
+      tSeconds: t,
+      phaseSeconds: requireFinite(`estimates[${i}].phaseSeconds`, r.phaseSeconds, 'a finite offset in seconds'),
+      sigmaSeconds: requirePositive(`estimates[${i}].sigmaSeconds`, r.sigmaSeconds, 's'),
     };
   });
 }
@@ -136,9 +191,17 @@ function requireEstimates(value: unknown, now: number): ClockOffsetEstimate[] {
  * measurement with its variance), applying `jumps` (executed commands, manoeuvres) as known
  * steps at their epochs, and returns the estimate at `now`, before any jump at `now`.
  */
-export function filterTo(norm: NormalizedScenario, estimates: readonly ClockOffsetEstimate[], jumps: readonly StateJump[], now: number): StateEstimate {
+export function filterTo(
+  norm: NormalizedScenario,
+  estimates: readonly ClockOffsetEstimate[],
+  jumps: readonly StateJump[],
+  now: number,
+): StateEstimate {
   const filter = new ClockKalmanFilter({
-    q: norm.noise, initial: { t: 0, state: norm.state0, covariance: norm.covariance0 }, outlierProbability: false, jumpDetection: false,
+    q: norm.noise,
+    initial: { t: 0, state: norm.state0, covariance: norm.covariance0 },
+    outlierProbability: false,
+    jumpDetection: false,
   });
   let k = 0;
   const applyUntil = (t: number, inclusive: boolean): void => {
@@ -154,7 +217,10 @@ export function filterTo(norm: NormalizedScenario, estimates: readonly ClockOffs
   }
   applyUntil(now, false);
   const f = filter.estimate;
-  const est: StateEstimate = { state: [f.state[0]!, f.state[1]!, f.state[2]!], covariance: f.covariance.map((r) => [...r]) as Matrix3 };
+  const est: StateEstimate = {
+    state: [f.state[0]!, f.state[1]!, f.state[2]!],
+    covariance: f.covariance.map((r) => [...r]) as Matrix3,
+  };
   return propagateEstimate(est, now - f.t, norm);
 }
 
@@ -163,7 +229,11 @@ export interface SteeringReplanner {
   /** The method it re-plans with. */
   readonly method: SteeringMethod;
   /** Revises `plan` at `nowSeconds` from `estimates`; see {@link replanSteering}. */
-  replan(plan: Pick<SteeringPlan, 'commands'>, estimates: readonly ClockOffsetEstimate[], nowSeconds: number): RevisedSteeringPlan;
+  replan(
+    plan: Pick<SteeringPlan, 'commands'>,
+    estimates: readonly ClockOffsetEstimate[],
+    nowSeconds: number,
+  ): RevisedSteeringPlan;
 }
 
 /**
@@ -177,7 +247,8 @@ export interface SteeringReplanner {
  * @throws {InvalidArgumentError} naming the field for a bad scenario or option.
  */
 export function createReplanner(scenario: unknown, options: PlanOptions = {}): SteeringReplanner {
-  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError('options', options, 'an object { strategy?, timeScales? }');
+  if (typeof options !== 'object' || options === null)
+    throw new InvalidArgumentError('options', options, 'an object { strategy?, timeScales? }');
   const norm = validateScenario(scenario, options);
   const method = resolveMethod(norm, options.strategy);
   const rp = makeReplanner(norm, method);
@@ -208,16 +279,27 @@ export function createReplanner(scenario: unknown, options: PlanOptions = {}): S
  * @param options      `strategy` and `timeScales` as for planSteering.
  * @throws {InvalidArgumentError} naming the field for a bad scenario, command, estimate or now.
  */
-export function replanSteering(scenario: unknown, plan: Pick<SteeringPlan, 'commands'>, estimates: readonly ClockOffsetEstimate[],
-  nowSeconds: number, options: PlanOptions = {}): RevisedSteeringPlan {
+export function replanSteering(
+  scenario: unknown,
+  plan: Pick<SteeringPlan, 'commands'>,
+  estimates: readonly ClockOffsetEstimate[],
+  nowSeconds: number,
+  options: PlanOptions = {},
+): RevisedSteeringPlan {
   return createReplanner(scenario, options).replan(plan, estimates, nowSeconds);
 }
 
-function revise(norm: NormalizedScenario, rp: Replanner, plan: Pick<SteeringPlan, 'commands'>, estimates: readonly ClockOffsetEstimate[],
-  nowSeconds: number): RevisedSteeringPlan {
+function revise(
+  norm: NormalizedScenario,
+  rp: Replanner,
+  plan: Pick<SteeringPlan, 'commands'>,
+  estimates: readonly ClockOffsetEstimate[],
+  nowSeconds: number,
+): RevisedSteeringPlan {
   const method = rp.method;
   const now = requireNonNegative('nowSeconds', nowSeconds, 's');
-  if (now >= norm.horizon) throw new InvalidArgumentError('nowSeconds', now, `before the end of the horizon (${norm.horizon} s)`);
+  if (now >= norm.horizon)
+    throw new InvalidArgumentError('nowSeconds', now, `before the end of the horizon (${norm.horizon} s)`);
   if (typeof plan !== 'object' || plan === null) throw new InvalidArgumentError('plan', plan, 'a plan { commands }');
   const given = commandsToInternal(norm, plan.commands, 'plan.commands');
   const received = requireEstimates(estimates, now);
@@ -226,19 +308,40 @@ function revise(norm: NormalizedScenario, rp: Replanner, plan: Pick<SteeringPlan
   const pending = kept.filter(({ c }) => c.executeAt >= now).map(({ c }) => c);
   const jumps: StateJump[] = [
     ...norm.maneuvers.map((m) => ({ t: m.t, dy: m.rateChange, dx: 0 })),
-    ...executed.map(({ c }) => (c.kind === 'frequency' ? { t: c.executeAt, dy: c.amount, dx: 0 } : { t: c.executeAt, dy: 0, dx: c.amount })),
+    ...executed.map(({ c }) =>
+      c.kind === 'frequency' ? { t: c.executeAt, dy: c.amount, dx: 0 } : { t: c.executeAt, dy: 0, dx: c.amount },
+    ),
   ].sort((a, b) => a.t - b.t);
   const est = filterTo(norm, received, jumps, now);
   // Feed-forward commands not yet uplinked are planned again (unless a kept command already executes there).
-  const sameAs = (a: InternalCommand, b: InternalCommand): boolean => a.kind === b.kind && a.steps === b.steps && Math.abs(a.executeAt - b.executeAt) < 1e-3;
-  const fixedAfter = [...pending, ...rp.feedForward.filter((f) => f.executeAt >= now && f.uplinkAt >= now && !pending.some((p) => sameAs(p, f)))]
-    .sort((a, b) => a.executeAt - b.executeAt);
+  const sameAs = (a: InternalCommand, b: InternalCommand): boolean =>
+    a.kind === b.kind && a.steps === b.steps && Math.abs(a.executeAt - b.executeAt) < 1e-3;
+  const fixedAfter = [
+    ...pending,
+    ...rp.feedForward.filter((f) => f.executeAt >= now && f.uplinkAt >= now && !pending.some((p) => sameAs(p, f))),
+  ].sort((a, b) => a.executeAt - b.executeAt);
   const cumulative = cumulativeFrequency(norm, [...executed.map(({ c }) => c), ...fixedAfter]);
-  const model = rp.model && fixedAfter.length !== rp.feedForward.filter((f) => f.executeAt >= now).length
-    ? optimalModel(norm, fixedAfter, rp.model.scale) : rp.model;
+  const model =
+    rp.model && fixedAfter.length !== rp.feedForward.filter((f) => f.executeAt >= now).length
+      ? optimalModel(norm, fixedAfter, rp.model.scale)
+      : rp.model;
   const lastExecuted = executed.reduce((t, { c }) => Math.max(t, c.executeAt), -Infinity);
-  const made = replanFrom({ ...rp, ...(model ? { model } : {}) }, now, Infinity, est, cumulative, fixedAfter, true, lastExecuted);
-  const shifted = shiftScenario(norm, now, est, norm.actuator.initial + executed.reduce((s, { c }) => s + (c.kind === 'frequency' ? c.amount : 0), 0));
+  const made = replanFrom(
+    { ...rp, ...(model ? { model } : {}) },
+    now,
+    Infinity,
+    est,
+    cumulative,
+    fixedAfter,
+    true,
+    lastExecuted,
+  );
+  const shifted = shiftScenario(
+    norm,
+    now,
+    est,
+    norm.actuator.initial + executed.reduce((s, { c }) => s + (c.kind === 'frequency' ? c.amount : 0), 0),
+  );
   const commands = [...fixedAfter, ...made].sort((a, b) => a.executeAt - b.executeAt).map((c) => shift(c, -now));
   const revised = buildPlan(shifted, method, { commands, limits: [], notes: [] });
   revised.predicted.t = revised.predicted.t.map((t) => t + now);
@@ -246,10 +349,20 @@ function revise(norm: NormalizedScenario, rp: Replanner, plan: Pick<SteeringPlan
   return {
     ...revised,
     revision: {
-      nowSeconds: now, estimatesUsed: received.length,
-      state: { phaseSeconds: est.state[0], fractionalFrequency: est.state[1], driftPerSecond: est.state[2], phaseSigmaSeconds: sd(0), frequencySigma: sd(1) },
+      nowSeconds: now,
+      estimatesUsed: received.length,
+      state: {
+        phaseSeconds: est.state[0],
+        fractionalFrequency: est.state[1],
+        driftPerSecond: est.state[2],
+        phaseSigmaSeconds: sd(0),
+        frequencySigma: sd(1),
+      },
       executed: executed.map(({ i }) => plan.commands[i]!),
-      superseded: given.map((c, i) => ({ c, i })).filter(({ c }) => c.uplinkAt >= now).map(({ i }) => plan.commands[i]!),
+      superseded: given
+        .map((c, i) => ({ c, i }))
+        .filter(({ c }) => c.uplinkAt >= now)
+        .map(({ i }) => plan.commands[i]!),
     },
   };
 }

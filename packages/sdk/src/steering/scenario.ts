@@ -6,21 +6,33 @@
  *
  * @module
  */
+
+import { diffusionFromStabilitySpec } from '../clock-model/noise.js';
+import { CONSTANT_SETS, type ConstantSet, DEFAULT_CONSTANT_SET } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
 import {
-  rejectUnknownKeys, requireArray, requireFinite, requireNonNegative, requireOrbitRadius, requirePositive, requireRecord,
+  rejectUnknownKeys,
+  requireArray,
+  requireFinite,
+  requireNonNegative,
+  requireOrbitRadius,
+  requirePositive,
+  requireRecord,
 } from '../internal/validate.js';
-import type { Dimensionless, Metres, PerSecond, Seconds } from '../units.js';
+import { rateChangeForSemiMajorAxisChange } from '../relativity/rate.js';
 import type { Instant } from '../time/instant.js';
 import type { TimeScales } from '../time/scales.js';
-import { zeros3, type DiffusionCoefficients, type Matrix3 } from './clock-math.js';
-import { parseUtcStamp, requireInsideTable, resolveTimeScales, type TimeScaleOptions } from './utc-stamps.js';
-import { rateChangeForSemiMajorAxisChange } from '../relativity/rate.js';
-import { CONSTANT_SETS, DEFAULT_CONSTANT_SET, type ConstantSet } from '../constants.js';
-import { diffusionFromStabilitySpec } from '../clock-model/noise.js';
+import type { Dimensionless, Metres, PerSecond, Seconds } from '../units.js';
+import { type DiffusionCoefficients, type Matrix3, zeros3 } from './clock-math.js';
 import {
-  validateActuator, validateCostWeights, validateCovariance, validateOperations, validateStrategy, validateTolerance,
+  validateActuator,
+  validateCostWeights,
+  validateCovariance,
+  validateOperations,
+  validateStrategy,
+  validateTolerance,
 } from './scenario-fields.js';
+import { parseUtcStamp, requireInsideTable, resolveTimeScales, type TimeScaleOptions } from './utc-stamps.js';
 
 /** One uplink opportunity (ISO 8601 UTC stamps with a zone designator; `23:59:60Z` where a leap second exists). */
 export interface ContactWindow {
@@ -216,11 +228,12 @@ export { rejectUnknownKeys };
  * `diffusionFromStabilitySpec`; its errors are re-thrown with the scenario path (`spec.x` → `<field>.stability.x`).
  */
 export function noiseToDiffusion(noise: NoiseSpec, field = 'clock.noise'): DiffusionCoefficients {
-  if (typeof field !== 'string') throw new InvalidArgumentError('field', field, 'a string naming the noise spec in error messages');
+  if (typeof field !== 'string')
+    throw new InvalidArgumentError('field', field, 'a string naming the noise spec in error messages');
   const obj = requireRecord(field, noise);
   if ('stability' in obj) {
     rejectUnknownKeys(field, obj, ['stability']);
-    const spec = requireRecord(`${field}.stability`, obj['stability']);
+    const spec = requireRecord(`${field}.stability`, obj.stability);
     rejectUnknownKeys(`${field}.stability`, spec, ['whiteFrequency', 'randomWalkFrequency', 'randomWalkDrift']);
     for (const name of ['whiteFrequency', 'randomWalkFrequency', 'randomWalkDrift']) {
       if (spec[name] === undefined) continue;
@@ -231,15 +244,16 @@ export function noiseToDiffusion(noise: NoiseSpec, field = 'clock.noise'): Diffu
       return diffusionFromStabilitySpec(spec as StabilitySpec);
     } catch (e) {
       if (!(e instanceof InvalidArgumentError)) throw e;
-      const argument = e.argument === 'spec' ? `${field}.stability` : e.argument.replace(/^spec\./, `${field}.stability.`);
+      const argument =
+        e.argument === 'spec' ? `${field}.stability` : e.argument.replace(/^spec\./, `${field}.stability.`);
       throw new InvalidArgumentError(argument, e.received, e.expected, e.hint);
     }
   }
   rejectUnknownKeys(field, obj, ['q1', 'q2', 'q3']);
   return {
-    q1: requireNonNegative(`${field}.q1`, obj['q1'], 's'),
-    q2: requireNonNegative(`${field}.q2`, obj['q2'], '1/s'),
-    q3: requireNonNegative(`${field}.q3`, obj['q3'], '1/s³'),
+    q1: requireNonNegative(`${field}.q1`, obj.q1, 's'),
+    q2: requireNonNegative(`${field}.q2`, obj.q2, '1/s'),
+    q3: requireNonNegative(`${field}.q3`, obj.q3, '1/s³'),
   };
 }
 
@@ -268,51 +282,102 @@ export function noiseToDiffusion(noise: NoiseSpec, field = 'clock.noise'): Diffu
 export function validateScenario(input: unknown, options: TimeScaleOptions = {}): NormalizedScenario {
   const timeScales = resolveTimeScales(options);
   const root = requireRecord('scenario', input);
-  rejectUnknownKeys('', root, ['$schema', 'name', 'description', 'epoch', 'horizonSeconds', 'gridSeconds', 'clock',
-    'tolerance', 'contacts', 'actuator', 'maneuvers', 'strategy', 'costWeights', 'constants', 'operations']);
-  const constants = scenarioConstants(root['constants']);
+  rejectUnknownKeys('', root, [
+    '$schema',
+    'name',
+    'description',
+    'epoch',
+    'horizonSeconds',
+    'gridSeconds',
+    'clock',
+    'tolerance',
+    'contacts',
+    'actuator',
+    'maneuvers',
+    'strategy',
+    'costWeights',
+    'constants',
+    'operations',
+  ]);
+  const constants = scenarioConstants(root.constants);
   for (const key of ['$schema', 'name', 'description'] as const) {
-    if (root[key] !== undefined && typeof root[key] !== 'string') throw new InvalidArgumentError(key, root[key], 'a string');
+    if (root[key] !== undefined && typeof root[key] !== 'string')
+      throw new InvalidArgumentError(key, root[key], 'a string');
   }
-  const epoch = parseUtcStamp(timeScales, 'epoch', root['epoch']);
+  const epoch = parseUtcStamp(timeScales, 'epoch', root.epoch);
   const { horizon, grid } = validateHorizon(root, timeScales, epoch);
   const stamps: StampReader = {
-    epochText: String(root['epoch']), horizon,
+    epochText: String(root.epoch),
+    horizon,
     toSeconds: (field, text) => parseUtcStamp(timeScales, field, text).secondsSince(epoch),
   };
-  const { state0, covariance0, noise } = validateClock(root['clock']);
-  const { bound, probability, z } = validateTolerance(root['tolerance']);
-  const windows = validateContacts(root['contacts'], stamps);
-  const actuator = validateActuator(root['actuator']);
-  const maneuvers = root['maneuvers'] === undefined ? [] : validateManeuvers(root['maneuvers'], stamps, constants);
-  const strategy = validateStrategy(root['strategy']);
-  const weights = validateCostWeights(root['costWeights']);
-  const operations = root['operations'] === undefined ? undefined : validateOperations(root['operations'], horizon);
+  const { state0, covariance0, noise } = validateClock(root.clock);
+  const { bound, probability, z } = validateTolerance(root.tolerance);
+  const windows = validateContacts(root.contacts, stamps);
+  const actuator = validateActuator(root.actuator);
+  const maneuvers = root.maneuvers === undefined ? [] : validateManeuvers(root.maneuvers, stamps, constants);
+  const strategy = validateStrategy(root.strategy);
+  const weights = validateCostWeights(root.costWeights);
+  const operations = root.operations === undefined ? undefined : validateOperations(root.operations, horizon);
   return {
     ...(operations ? { operations } : {}),
-    source: input as SteeringScenario, epoch, timeScales, horizon, grid, state0, covariance0, noise, bound, probability, z,
-    windows, actuator, maneuvers, strategy, weights,
+    source: input as SteeringScenario,
+    epoch,
+    timeScales,
+    horizon,
+    grid,
+    state0,
+    covariance0,
+    noise,
+    bound,
+    probability,
+    z,
+    windows,
+    actuator,
+    maneuvers,
+    strategy,
+    weights,
   };
 }
 
 /** The constant set a scenario names (any letter case), default IERS 2010. */
 function scenarioConstants(name: unknown): ConstantSet {
   if (name === undefined) return DEFAULT_CONSTANT_SET;
-  const set = typeof name === 'string' && Object.hasOwn(CONSTANT_SETS, name.toLowerCase()) ? CONSTANT_SETS[name.toLowerCase()] : undefined;
-  if (set === undefined) throw new InvalidArgumentError('constants', name, `one of ${Object.keys(CONSTANT_SETS).join(', ')}`);
+  const set =
+    typeof name === 'string' && Object.hasOwn(CONSTANT_SETS, name.toLowerCase())
+      ? CONSTANT_SETS[name.toLowerCase()]
+      : undefined;
+  if (set === undefined)
+    throw new InvalidArgumentError('constants', name, `one of ${Object.keys(CONSTANT_SETS).join(', ')}`);
   return set;
 }
 
 /** Horizon in (0, 366 d] and inside the leap-second table; grid in [horizon/200 000, horizon] (default 900 s). */
-function validateHorizon(root: Record<string, unknown>, timeScales: TimeScales, epoch: Instant): { horizon: number; grid: number } {
-  const horizon = requirePositive('horizonSeconds', root['horizonSeconds'], 's');
-  if (horizon > MAX_HORIZON) throw new InvalidArgumentError('horizonSeconds', horizon, `at most ${MAX_HORIZON} s (366 days)`);
+function validateHorizon(
+  root: Record<string, unknown>,
+  timeScales: TimeScales,
+  epoch: Instant,
+): { horizon: number; grid: number } {
+  const horizon = requirePositive('horizonSeconds', root.horizonSeconds, 's');
+  if (horizon > MAX_HORIZON)
+    throw new InvalidArgumentError('horizonSeconds', horizon, `at most ${MAX_HORIZON} s (366 days)`);
   // Plan stamps anywhere in the horizon are printed in UTC, so the whole horizon must lie inside the table.
-  requireInsideTable(timeScales, 'horizonSeconds', horizon, epoch.plus(horizon), `the end of the horizon (epoch + ${horizon} s)`);
-  const grid = root['gridSeconds'] === undefined ? Math.min(900, horizon) : requirePositive('gridSeconds', root['gridSeconds'], 's');
+  requireInsideTable(
+    timeScales,
+    'horizonSeconds',
+    horizon,
+    epoch.plus(horizon),
+    `the end of the horizon (epoch + ${horizon} s)`,
+  );
+  const grid =
+    root.gridSeconds === undefined ? Math.min(900, horizon) : requirePositive('gridSeconds', root.gridSeconds, 's');
   if (grid > horizon) throw new InvalidArgumentError('gridSeconds', grid, `at most horizonSeconds (${horizon} s)`);
   if (horizon / grid > MAX_GRID_POINTS) {
-    throw new InvalidArgumentError('gridSeconds', grid, `at least horizonSeconds/${MAX_GRID_POINTS} = ${horizon / MAX_GRID_POINTS} s`);
+    throw new InvalidArgumentError(
+      'gridSeconds',
+      grid,
+      `at least horizonSeconds/${MAX_GRID_POINTS} = ${horizon / MAX_GRID_POINTS} s`,
+    );
   }
   return { horizon, grid };
 }
@@ -329,16 +394,21 @@ function validateClock(value: unknown): Pick<NormalizedScenario, 'state0' | 'cov
   const clock = requireRecord('clock', value);
   rejectUnknownKeys('clock', clock, ['phaseSeconds', 'fractionalFrequency', 'driftPerSecond', 'covariance', 'noise']);
   const state0: [number, number, number] = [
-    requireFinite('clock.phaseSeconds', clock['phaseSeconds'], 'a finite number of seconds'),
-    requireFinite('clock.fractionalFrequency', clock['fractionalFrequency'], 'a finite fractional frequency'),
-    requireFinite('clock.driftPerSecond', clock['driftPerSecond'], 'a finite drift in 1/s'),
+    requireFinite('clock.phaseSeconds', clock.phaseSeconds, 'a finite number of seconds'),
+    requireFinite('clock.fractionalFrequency', clock.fractionalFrequency, 'a finite fractional frequency'),
+    requireFinite('clock.driftPerSecond', clock.driftPerSecond, 'a finite drift in 1/s'),
   ];
   if (Math.abs(state0[1]) >= 1e-3) {
-    throw new InvalidArgumentError('clock.fractionalFrequency', state0[1], 'a fractional frequency |y| < 1e-3',
-      'fractional frequency is dimensionless (Δf/f), not hertz');
+    throw new InvalidArgumentError(
+      'clock.fractionalFrequency',
+      state0[1],
+      'a fractional frequency |y| < 1e-3',
+      'fractional frequency is dimensionless (Δf/f), not hertz',
+    );
   }
-  const covariance0 = clock['covariance'] === undefined ? zeros3() : validateCovariance('clock.covariance', clock['covariance']);
-  return { state0, covariance0, noise: noiseToDiffusion(clock['noise'] as NoiseSpec, 'clock.noise') };
+  const covariance0 =
+    clock.covariance === undefined ? zeros3() : validateCovariance('clock.covariance', clock.covariance);
+  return { state0, covariance0, noise: noiseToDiffusion(clock.noise as NoiseSpec, 'clock.noise') };
 }
 
 /** Contact windows: start < end, sorted, non-overlapping, inside [epoch, epoch + horizon]. */
@@ -348,21 +418,34 @@ function validateContacts(value: unknown, stamps: StampReader): NormalizedScenar
   for (const [i, c] of contacts.entries()) {
     const w = requireRecord(`contacts[${i}]`, c);
     rejectUnknownKeys(`contacts[${i}]`, w, ['start', 'end']);
-    const start = stamps.toSeconds(`contacts[${i}].start`, w['start']);
-    const end = stamps.toSeconds(`contacts[${i}].end`, w['end']);
+    const start = stamps.toSeconds(`contacts[${i}].start`, w.start);
+    const end = stamps.toSeconds(`contacts[${i}].end`, w.end);
     if (start < 0) {
-      throw new InvalidArgumentError(`contacts[${i}].start`, w['start'], `at or after the epoch ${stamps.epochText} (inside the horizon)`);
+      throw new InvalidArgumentError(
+        `contacts[${i}].start`,
+        w.start,
+        `at or after the epoch ${stamps.epochText} (inside the horizon)`,
+      );
     }
-    if (!(end > start)) throw new InvalidArgumentError(`contacts[${i}].end`, w['end'], `after contacts[${i}].start (${String(w['start'])})`);
+    if (!(end > start))
+      throw new InvalidArgumentError(`contacts[${i}].end`, w.end, `after contacts[${i}].start (${String(w.start)})`);
     if (end > stamps.horizon) {
-      throw new InvalidArgumentError(`contacts[${i}].end`, w['end'], `at or before the end of the horizon (epoch + ${stamps.horizon} s)`);
+      throw new InvalidArgumentError(
+        `contacts[${i}].end`,
+        w.end,
+        `at or before the end of the horizon (epoch + ${stamps.horizon} s)`,
+      );
     }
     const prev = windows[i - 1];
     if (prev && start < prev.end) {
       const previous = contacts[i - 1] as ContactWindow;
-      throw new InvalidArgumentError(`contacts[${i}].start`, w['start'],
-        start < prev.start ? `after contacts[${i - 1}].start (${previous.start}): windows must be sorted by time`
-          : `at or after contacts[${i - 1}].end (${previous.end}): windows must not overlap`);
+      throw new InvalidArgumentError(
+        `contacts[${i}].start`,
+        w.start,
+        start < prev.start
+          ? `after contacts[${i - 1}].start (${previous.start}): windows must be sorted by time`
+          : `at or after contacts[${i - 1}].end (${previous.end}): windows must not overlap`,
+      );
     }
     windows.push({ start, end });
   }
@@ -370,18 +453,32 @@ function validateContacts(value: unknown, stamps: StampReader): NormalizedScenar
 }
 
 /** Manoeuvres inside the horizon, semi-major axes above the Earth's radius, sorted by time, with their rate changes. */
-function validateManeuvers(value: unknown, stamps: StampReader, constants: ConstantSet): NormalizedScenario['maneuvers'] {
+function validateManeuvers(
+  value: unknown,
+  stamps: StampReader,
+  constants: ConstantSet,
+): NormalizedScenario['maneuvers'] {
   const maneuvers: NormalizedScenario['maneuvers'] = [];
   for (const [i, m] of requireArray('maneuvers', value).entries()) {
     const o = requireRecord(`maneuvers[${i}]`, m);
     rejectUnknownKeys(`maneuvers[${i}]`, o, ['at', 'semiMajorAxisBefore', 'semiMajorAxisAfter']);
-    const t = stamps.toSeconds(`maneuvers[${i}].at`, o['at']);
+    const t = stamps.toSeconds(`maneuvers[${i}].at`, o.at);
     if (t < 0 || t > stamps.horizon) {
-      throw new InvalidArgumentError(`maneuvers[${i}].at`, o['at'], `inside the horizon [epoch, epoch + ${stamps.horizon} s]`);
+      throw new InvalidArgumentError(
+        `maneuvers[${i}].at`,
+        o.at,
+        `inside the horizon [epoch, epoch + ${stamps.horizon} s]`,
+      );
     }
-    const aBefore = requireOrbitRadius(`maneuvers[${i}].semiMajorAxisBefore`, o['semiMajorAxisBefore']);
-    const aAfter = requireOrbitRadius(`maneuvers[${i}].semiMajorAxisAfter`, o['semiMajorAxisAfter']);
-    maneuvers.push({ t, index: i, aBefore, aAfter, rateChange: rateChangeForSemiMajorAxisChange(aBefore, aAfter, { constants }) });
+    const aBefore = requireOrbitRadius(`maneuvers[${i}].semiMajorAxisBefore`, o.semiMajorAxisBefore);
+    const aAfter = requireOrbitRadius(`maneuvers[${i}].semiMajorAxisAfter`, o.semiMajorAxisAfter);
+    maneuvers.push({
+      t,
+      index: i,
+      aBefore,
+      aAfter,
+      rateChange: rateChangeForSemiMajorAxisChange(aBefore, aAfter, { constants }),
+    });
   }
   return maneuvers.sort((a, b) => a.t - b.t || a.index - b.index);
 }

@@ -31,12 +31,19 @@ export interface TimeScaleOptions {
  */
 export function resolveTimeScales(options: unknown, field = 'options'): TimeScales {
   if (options === undefined) return bundledTimeScales();
-  if (typeof options !== 'object' || options === null) throw new InvalidArgumentError(field, options, 'an object (or nothing)');
+  if (typeof options !== 'object' || options === null)
+    throw new InvalidArgumentError(field, options, 'an object (or nothing)');
   const value = (options as { timeScales?: unknown }).timeScales;
   if (value === undefined) return bundledTimeScales();
   const ts = value as Partial<TimeScales> | null;
-  if (typeof ts !== 'object' || ts === null || typeof ts.parseIso !== 'function' || typeof ts.formatIso !== 'function' ||
-      typeof ts.leapSeconds !== 'object' || typeof ts.utcValidUntil !== 'object') {
+  if (
+    typeof ts !== 'object' ||
+    ts === null ||
+    typeof ts.parseIso !== 'function' ||
+    typeof ts.formatIso !== 'function' ||
+    typeof ts.leapSeconds !== 'object' ||
+    typeof ts.utcValidUntil !== 'object'
+  ) {
     throw new InvalidArgumentError(`${field}.timeScales`, value, 'a TimeScales object from createTimeScales(table)');
   }
   return value as TimeScales;
@@ -44,9 +51,11 @@ export function resolveTimeScales(options: unknown, field = 'options'): TimeScal
 
 /** How a user passes a newer leap-second table, for error messages. */
 export function currentTableHint(ts: TimeScales): string {
-  return `the leap-second table "${ts.leapSeconds.source}" is only known complete until ${isoDateOfMjd(ts.leapSeconds.validUntilMjd)} ` +
+  return (
+    `the leap-second table "${ts.leapSeconds.source}" is only known complete until ${isoDateOfMjd(ts.leapSeconds.validUntilMjd)} ` +
     '(a leap second may follow); pass a current table built from the IERS/NIST leap-seconds.list: ' +
-    '{ timeScales: createTimeScales(parseLeapSecondsList(text)) } in the options (CLI: --leap-seconds <file>)';
+    '{ timeScales: createTimeScales(parseLeapSecondsList(text)) } in the options (CLI: --leap-seconds <file>)'
+  );
 }
 
 /**
@@ -67,8 +76,15 @@ export function parseUtcStamp(ts: TimeScales, field: string, text: unknown): Ins
     if (error instanceof OutOfDomainError) {
       // The stamp's own date decides the side: the table's span is years long, a zone offset under a day.
       const late = text.slice(0, 10) > error.validFrom.slice(0, 10);
-      throw new OutOfDomainError(field, text, error.validFrom, error.validTo, late ? currentTableHint(ts)
-        : 'a steering scenario needs UTC with whole leap seconds, which starts with the table\'s first entry (1972-01-01 at the earliest)');
+      throw new OutOfDomainError(
+        field,
+        text,
+        error.validFrom,
+        error.validTo,
+        late
+          ? currentTableHint(ts)
+          : "a steering scenario needs UTC with whole leap seconds, which starts with the table's first entry (1972-01-01 at the earliest)",
+      );
     }
     throw error;
   }
@@ -79,10 +95,21 @@ export function parseUtcStamp(ts: TimeScales, field: string, text: unknown): Ins
  * @param what Says what `instant` is, for the message (e.g. "the end of the horizon").
  * @throws {OutOfDomainError} naming `field`, with how to pass a current table.
  */
-export function requireInsideTable(ts: TimeScales, field: string, received: unknown, instant: Instant, what: string): void {
+export function requireInsideTable(
+  ts: TimeScales,
+  field: string,
+  received: unknown,
+  instant: Instant,
+  what: string,
+): void {
   if (instant.compare(ts.utcValidUntil) >= 0) {
-    throw new OutOfDomainError(field, received, ts.formatIso(ts.utcValidFrom, { fractionDigits: 0 }),
-      `${isoDateOfMjd(ts.leapSeconds.validUntilMjd)}T00:00:00Z (exclusive)`, `${what} falls after it; ${currentTableHint(ts)}`);
+    throw new OutOfDomainError(
+      field,
+      received,
+      ts.formatIso(ts.utcValidFrom, { fractionDigits: 0 }),
+      `${isoDateOfMjd(ts.leapSeconds.validUntilMjd)}T00:00:00Z (exclusive)`,
+      `${what} falls after it; ${currentTableHint(ts)}`,
+    );
   }
 }
 

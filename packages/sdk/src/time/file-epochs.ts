@@ -8,14 +8,15 @@
  *
  * @module
  */
-import type { Seconds } from '../units.js';
+
 import { InvalidArgumentError } from '../errors.js';
 import { requireOptions } from '../internal/validate.js';
+import type { Seconds } from '../units.js';
 import { civilFromDays, daysFromCivil, daysInMonth, pad2 } from './calendar.js';
-import { Instant, INSTANT_EPOCH_MJD, instantFromParts, requireInstant } from './instant.js';
+import { INSTANT_EPOCH_MJD, Instant, instantFromParts, requireInstant } from './instant.js';
 import type { TimeScales } from './scales.js';
 import { floorDivMod } from './split.js';
-import { uniformMinusTai, type TimeScale, type UniformScale } from './uniform.js';
+import { type TimeScale, type UniformScale, uniformMinusTai } from './uniform.js';
 
 /** Calendar fields of an epoch as written in a file (the `second` may carry a fraction). */
 export interface FileEpochFields {
@@ -65,7 +66,7 @@ export function fileTimeScale(code: string): FileTimeScale | undefined {
   if (typeof code !== 'string') {
     throw new InvalidArgumentError('code', code, 'a three-letter time-system code such as "GPS"');
   }
-  return Object.prototype.hasOwnProperty.call(FILE_TIME_SCALES, code) ? FILE_TIME_SCALES[code] : undefined;
+  return Object.hasOwn(FILE_TIME_SCALES, code) ? FILE_TIME_SCALES[code] : undefined;
 }
 
 /**
@@ -74,8 +75,12 @@ export function fileTimeScale(code: string): FileTimeScale | undefined {
  */
 export function requireTimeScales(argument: string, ts: unknown): TimeScales {
   const t = ts as Partial<TimeScales> | null;
-  if (typeof t !== 'object' || t === null || typeof t.fromCalendar !== 'function'
-    || typeof t.formatIso !== 'function') {
+  if (
+    typeof t !== 'object' ||
+    t === null ||
+    typeof t.fromCalendar !== 'function' ||
+    typeof t.formatIso !== 'function'
+  ) {
     throw new InvalidArgumentError(argument, ts, 'time scales from createTimeScales(table)');
   }
   return t as TimeScales;
@@ -91,14 +96,29 @@ const UNIX_EPOCH_MJD = 40_587;
 
 function requireFields(fields: unknown): FileEpochFields {
   const f = fields as FileEpochFields | null;
-  const ok = typeof f === 'object' && f !== null && [f.year, f.month, f.day, f.hour, f.minute].every(Number.isInteger)
-    && Number.isFinite(f.second) && f.month >= 1 && f.month <= 12 && f.day >= 1 && f.day <= daysInMonth(f.year, f.month)
-    && f.hour >= 0 && f.hour <= 23 && f.minute >= 0 && f.minute <= 59 && f.second >= 0 && f.second < 61
-    && Math.abs(f.year) <= 9999;
+  const ok =
+    typeof f === 'object' &&
+    f !== null &&
+    [f.year, f.month, f.day, f.hour, f.minute].every(Number.isInteger) &&
+    Number.isFinite(f.second) &&
+    f.month >= 1 &&
+    f.month <= 12 &&
+    f.day >= 1 &&
+    f.day <= daysInMonth(f.year, f.month) &&
+    f.hour >= 0 &&
+    f.hour <= 23 &&
+    f.minute >= 0 &&
+    f.minute <= 59 &&
+    f.second >= 0 &&
+    f.second < 61 &&
+    Math.abs(f.year) <= 9999;
   if (!ok) {
-    throw new InvalidArgumentError('fields', fields,
-      'calendar fields { year, month, day, hour, minute, second } of a real date and time '
-      + '(|year| ≤ 9999, second in [0, 61))');
+    throw new InvalidArgumentError(
+      'fields',
+      fields,
+      'calendar fields { year, month, day, hour, minute, second } of a real date and time ' +
+        '(|year| ≤ 9999, second in [0, 61))',
+    );
   }
   return f as FileEpochFields;
 }
@@ -158,8 +178,12 @@ export interface FormatFileEpochOptions {
  * @throws {InvalidArgumentError} for an unknown code or bad options;
  *   {@link OutOfDomainError} for UTC/GLO outside the table.
  */
-export function formatFileEpoch(ts: TimeScales, instant: Instant, code: string,
-  options: FormatFileEpochOptions = {}): string {
+export function formatFileEpoch(
+  ts: TimeScales,
+  instant: Instant,
+  code: string,
+  options: FormatFileEpochOptions = {},
+): string {
   requireTimeScales('ts', ts);
   requireInstant('instant', instant);
   requireOptions('options', options);

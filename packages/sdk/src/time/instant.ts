@@ -7,9 +7,10 @@
  *
  * @module
  */
-import type { Seconds } from '../units.js';
+
 import { InvalidArgumentError } from '../errors.js';
 import { requireFinite } from '../internal/validate.js';
+import type { Seconds } from '../units.js';
 import { isoDateOfMjd, pad2 } from './calendar.js';
 import { addFloat, floorDivMod, normalize, twoSum } from './split.js';
 
@@ -101,7 +102,11 @@ export class Instant {
       throw new InvalidArgumentError('instant', { whole, fraction }, 'an integer whole part and a fraction in [0, 1)');
     }
     if (!(Math.abs(whole) <= MAX_ABS_TAI_SECONDS)) {
-      throw new InvalidArgumentError('instant', whole, `a time within ±${MAX_ABS_TAI_SECONDS} s of 2000-01-01T00:00:00 TAI`);
+      throw new InvalidArgumentError(
+        'instant',
+        whole,
+        `a time within ±${MAX_ABS_TAI_SECONDS} s of 2000-01-01T00:00:00 TAI`,
+      );
     }
     return new Instant(whole, fraction);
   }
@@ -207,8 +212,13 @@ export class Instant {
     const hours = Math.floor(secondOfDay / 3600);
     const minutes = Math.floor((secondOfDay - hours * 3600) / 60);
     const seconds = secondOfDay - hours * 3600 - minutes * 60;
-    const fractionDigits = Math.floor(this.taiFraction * 1e12).toString().padStart(12, '0');
-    const date = Math.abs(days + INSTANT_EPOCH_MJD) < 3e6 ? isoDateOfMjd(days + INSTANT_EPOCH_MJD) : `MJD ${days + INSTANT_EPOCH_MJD}`;
+    const fractionDigits = Math.floor(this.taiFraction * 1e12)
+      .toString()
+      .padStart(12, '0');
+    const date =
+      Math.abs(days + INSTANT_EPOCH_MJD) < 3e6
+        ? isoDateOfMjd(days + INSTANT_EPOCH_MJD)
+        : `MJD ${days + INSTANT_EPOCH_MJD}`;
     return `${date}T${pad2(hours)}:${pad2(minutes)}:${pad2(seconds)}.${fractionDigits} TAI`;
   }
 
@@ -224,7 +234,11 @@ export class Instant {
  */
 export function requireInstant(argument: string, value: unknown): Instant {
   if (!(value instanceof Instant)) {
-    throw new InvalidArgumentError(argument, value, 'an Instant (build one with createTimeScales(table).parseIso(...) or Instant.fromTaiParts(...))');
+    throw new InvalidArgumentError(
+      argument,
+      value,
+      'an Instant (build one with createTimeScales(table).parseIso(...) or Instant.fromTaiParts(...))',
+    );
   }
   return value;
 }

@@ -13,7 +13,8 @@ export const ISO_FORM = 'YYYY-MM-DDThh:mm:ss[.fff…] followed by Z or ±hh:mm (
 /** Throws unless `scale` is one of {@link TIME_SCALES}, naming `argument`. */
 export function requireScale(argument: string, scale: unknown): TimeScale {
   const found = TIME_SCALES.find((s) => s === scale);
-  if (found === undefined) throw new InvalidArgumentError(argument, scale, `one of ${TIME_SCALES.map((s) => `'${s}'`).join(', ')}`);
+  if (found === undefined)
+    throw new InvalidArgumentError(argument, scale, `one of ${TIME_SCALES.map((s) => `'${s}'`).join(', ')}`);
   return found;
 }
 
@@ -38,8 +39,11 @@ export function scanIso(text: unknown): { fields: RawFields; offsetMinutes: numb
   const digits = (field: string, count: number, form: string): number => {
     const piece = text.slice(pos, pos + count);
     if (piece.length !== count || !/^\d+$/.test(piece)) {
-      throw new InvalidArgumentError(`text.${field}`, text.slice(pos, pos + count + 2) || '(end of text)',
-        `${count} digits ${form} ${where()}; the form is ${ISO_FORM}`);
+      throw new InvalidArgumentError(
+        `text.${field}`,
+        text.slice(pos, pos + count + 2) || '(end of text)',
+        `${count} digits ${form} ${where()}; the form is ${ISO_FORM}`,
+      );
     }
     pos += count;
     return Number(piece);
@@ -47,9 +51,18 @@ export function scanIso(text: unknown): { fields: RawFields; offsetMinutes: numb
   const literal = (char: string, after: string): void => {
     if (text[pos] !== char) {
       const found = pos < text.length ? `'${text[pos]}'` : 'the end of the text';
-      const hint = after === 'day' && pos >= text.length ? 'date-only text is ambiguous: add a time of day, e.g. T00:00:00 (then Z for UTC; no designator for GPS, GST, BDT, TAI, TT or TCG readings)'
-        : after === 'day' && (text[pos] === ' ' || text[pos] === 't') ? "ISO 8601 separates date and time with an upper-case 'T'" : undefined;
-      throw new InvalidArgumentError('text', text, `'${char}' after the ${after} (found ${found} ${where()}); the form is ${ISO_FORM}`, hint);
+      const hint =
+        after === 'day' && pos >= text.length
+          ? 'date-only text is ambiguous: add a time of day, e.g. T00:00:00 (then Z for UTC; no designator for GPS, GST, BDT, TAI, TT or TCG readings)'
+          : after === 'day' && (text[pos] === ' ' || text[pos] === 't')
+            ? "ISO 8601 separates date and time with an upper-case 'T'"
+            : undefined;
+      throw new InvalidArgumentError(
+        'text',
+        text,
+        `'${char}' after the ${after} (found ${found} ${where()}); the form is ${ISO_FORM}`,
+        hint,
+      );
     }
     pos += 1;
   };
@@ -68,7 +81,12 @@ export function scanIso(text: unknown): { fields: RawFields; offsetMinutes: numb
   if (text[pos] === '.' || text[pos] === ',') {
     pos += 1;
     const match = /^\d+/.exec(text.slice(pos));
-    if (!match) throw new InvalidArgumentError('text.fraction', text.slice(pos) || '(end of text)', `one or more digits after the decimal sign ${where()}`);
+    if (!match)
+      throw new InvalidArgumentError(
+        'text.fraction',
+        text.slice(pos) || '(end of text)',
+        `one or more digits after the decimal sign ${where()}`,
+      );
     secondFraction = Number(`0.${match[0]}`);
     pos += match[0].length;
   }
@@ -87,15 +105,27 @@ export function scanIso(text: unknown): { fields: RawFields; offsetMinutes: numb
         offsetMins = digits('zone', 2, 'mm of the UTC offset ±hh:mm');
       }
       if (offsetHours > 23 || offsetMins > 59) {
-        throw new InvalidArgumentError('text.zone', text, `a UTC offset ±hh:mm with hh ≤ 23 and mm ≤ 59; the form is ${ISO_FORM}`);
+        throw new InvalidArgumentError(
+          'text.zone',
+          text,
+          `a UTC offset ±hh:mm with hh ≤ 23 and mm ≤ 59; the form is ${ISO_FORM}`,
+        );
       }
       offsetMinutes = (sign === '-' ? -1 : 1) * (offsetHours * 60 + offsetMins);
     } else {
-      throw new InvalidArgumentError('text.zone', text, `Z, ±hh:mm or the end of the text ${where()}; the form is ${ISO_FORM}`,
-        sign === 'z' ? "write the UTC designator as upper-case 'Z'" : undefined);
+      throw new InvalidArgumentError(
+        'text.zone',
+        text,
+        `Z, ±hh:mm or the end of the text ${where()}; the form is ${ISO_FORM}`,
+        sign === 'z' ? "write the UTC designator as upper-case 'Z'" : undefined,
+      );
     }
     if (pos < text.length) {
-      throw new InvalidArgumentError('text', text, `the end of the text after the zone designator ${where()}; the form is ${ISO_FORM}`);
+      throw new InvalidArgumentError(
+        'text',
+        text,
+        `the end of the text after the zone designator ${where()}; the form is ${ISO_FORM}`,
+      );
     }
   }
   return { fields: { year, month, day, hour, minute, secondWhole, secondFraction }, offsetMinutes };

@@ -6,7 +6,7 @@
  * @module
  */
 import type { Seconds } from '../units.js';
-import { type Instant, INSTANT_EPOCH_MJD, requireInstant } from './instant.js';
+import { INSTANT_EPOCH_MJD, type Instant, requireInstant } from './instant.js';
 import { instantFromUniformOrTcgLabel } from './uniform.js';
 
 /**

@@ -6,8 +6,9 @@
  *
  * @module
  */
-import type { Seconds } from '../units.js';
+
 import { InvalidArgumentError, ParseError } from '../errors.js';
+import type { Seconds } from '../units.js';
 import { calendarDateFromMjd, isoDateOfMjd, mjdFromCalendarDate } from './calendar.js';
 
 /** MJD of 1972-01-01, the start of UTC with integral TAI − UTC (ITU-R TF.460 [M]; first line of the IERS/NIST list [V2]). */
@@ -62,33 +63,56 @@ export function defineLeapSecondTable(spec: LeapSecondTableSpec): LeapSecondTabl
   const checked: LeapSecondEntry[] = [];
   entries.forEach((entry: unknown, i: number) => {
     const field = `entries[${i}]`;
-    if (typeof entry !== 'object' || entry === null) throw new InvalidArgumentError(field, entry, 'an object { mjd, taiMinusUtc }');
+    if (typeof entry !== 'object' || entry === null)
+      throw new InvalidArgumentError(field, entry, 'an object { mjd, taiMinusUtc }');
     const { mjd, taiMinusUtc } = entry as Record<string, unknown>;
     if (typeof mjd !== 'number' || !Number.isInteger(mjd) || mjd < UTC_LEAP_SECOND_ERA_START_MJD || mjd > 2_973_483) {
-      throw new InvalidArgumentError(`${field}.mjd`, mjd, `an integer MJD ≥ ${UTC_LEAP_SECOND_ERA_START_MJD} (1972-01-01)`,
+      throw new InvalidArgumentError(
+        `${field}.mjd`,
+        mjd,
+        `an integer MJD ≥ ${UTC_LEAP_SECOND_ERA_START_MJD} (1972-01-01)`,
         typeof mjd === 'number' && mjd < UTC_LEAP_SECOND_ERA_START_MJD
-          ? 'UTC before 1972 had fractional offsets and rate steps, which are not modelled' : undefined);
+          ? 'UTC before 1972 had fractional offsets and rate steps, which are not modelled'
+          : undefined,
+      );
     }
     if (calendarDateFromMjd(mjd).day !== 1) {
-      throw new InvalidArgumentError(`${field}.mjd`, mjd, 'the MJD of the first day of a month (a leap second ends a month)',
-        `MJD ${mjd} is ${isoDateOfMjd(mjd)}`);
+      throw new InvalidArgumentError(
+        `${field}.mjd`,
+        mjd,
+        'the MJD of the first day of a month (a leap second ends a month)',
+        `MJD ${mjd} is ${isoDateOfMjd(mjd)}`,
+      );
     }
     if (typeof taiMinusUtc !== 'number' || !Number.isInteger(taiMinusUtc) || Math.abs(taiMinusUtc) > 1000) {
       throw new InvalidArgumentError(`${field}.taiMinusUtc`, taiMinusUtc, 'an integer number of seconds');
     }
     const previous = checked[i - 1];
     if (previous) {
-      if (mjd <= previous.mjd) throw new InvalidArgumentError(`${field}.mjd`, mjd, `an MJD after entries[${i - 1}].mjd = ${previous.mjd}`);
+      if (mjd <= previous.mjd)
+        throw new InvalidArgumentError(`${field}.mjd`, mjd, `an MJD after entries[${i - 1}].mjd = ${previous.mjd}`);
       if (Math.abs(taiMinusUtc - previous.taiMinusUtc) !== 1) {
-        throw new InvalidArgumentError(`${field}.taiMinusUtc`, taiMinusUtc,
-          `${previous.taiMinusUtc + 1} or ${previous.taiMinusUtc - 1} (one leap second from entries[${i - 1}])`);
+        throw new InvalidArgumentError(
+          `${field}.taiMinusUtc`,
+          taiMinusUtc,
+          `${previous.taiMinusUtc + 1} or ${previous.taiMinusUtc - 1} (one leap second from entries[${i - 1}])`,
+        );
       }
     }
     checked.push(Object.freeze({ mjd, taiMinusUtc }));
   });
   const last = checked[checked.length - 1]!;
-  if (typeof validUntilMjd !== 'number' || !Number.isInteger(validUntilMjd) || validUntilMjd <= last.mjd || validUntilMjd > 2_973_483) {
-    throw new InvalidArgumentError('validUntilMjd', validUntilMjd, `an integer MJD after the last entry (${last.mjd}, ${isoDateOfMjd(last.mjd)})`);
+  if (
+    typeof validUntilMjd !== 'number' ||
+    !Number.isInteger(validUntilMjd) ||
+    validUntilMjd <= last.mjd ||
+    validUntilMjd > 2_973_483
+  ) {
+    throw new InvalidArgumentError(
+      'validUntilMjd',
+      validUntilMjd,
+      `an integer MJD after the last entry (${last.mjd}, ${isoDateOfMjd(last.mjd)})`,
+    );
   }
   if (typeof source !== 'string' || source.trim() === '') {
     throw new InvalidArgumentError('source', source, 'a non-empty description of where the table comes from');
@@ -98,10 +122,34 @@ export function defineLeapSecondTable(spec: LeapSecondTableSpec): LeapSecondTabl
 
 /** [year, month, TAI − UTC from the 1st of that month] for every step since 1972. */
 const BUNDLED_STEPS: ReadonlyArray<readonly [number, number, number]> = [
-  [1972, 1, 10], [1972, 7, 11], [1973, 1, 12], [1974, 1, 13], [1975, 1, 14], [1976, 1, 15], [1977, 1, 16],
-  [1978, 1, 17], [1979, 1, 18], [1980, 1, 19], [1981, 7, 20], [1982, 7, 21], [1983, 7, 22], [1985, 7, 23],
-  [1988, 1, 24], [1990, 1, 25], [1991, 1, 26], [1992, 7, 27], [1993, 7, 28], [1994, 7, 29], [1996, 1, 30],
-  [1997, 7, 31], [1999, 1, 32], [2006, 1, 33], [2009, 1, 34], [2012, 7, 35], [2015, 7, 36], [2017, 1, 37],
+  [1972, 1, 10],
+  [1972, 7, 11],
+  [1973, 1, 12],
+  [1974, 1, 13],
+  [1975, 1, 14],
+  [1976, 1, 15],
+  [1977, 1, 16],
+  [1978, 1, 17],
+  [1979, 1, 18],
+  [1980, 1, 19],
+  [1981, 7, 20],
+  [1982, 7, 21],
+  [1983, 7, 22],
+  [1985, 7, 23],
+  [1988, 1, 24],
+  [1990, 1, 25],
+  [1991, 1, 26],
+  [1992, 7, 27],
+  [1993, 7, 28],
+  [1994, 7, 29],
+  [1996, 1, 30],
+  [1997, 7, 31],
+  [1999, 1, 32],
+  [2006, 1, 33],
+  [2009, 1, 34],
+  [2012, 7, 35],
+  [2015, 7, 36],
+  [2017, 1, 37],
 ];
 
 /**
@@ -118,9 +166,13 @@ const BUNDLED_STEPS: ReadonlyArray<readonly [number, number, number]> = [
  * (e.g. `parseLeapSecondsList(text)` of the current list) to `createTimeScales`.
  */
 export const BUNDLED_LEAP_SECONDS: LeapSecondTable = defineLeapSecondTable({
-  entries: BUNDLED_STEPS.map(([year, month, taiMinusUtc]) => ({ mjd: mjdFromCalendarDate(year, month, 1), taiMinusUtc })),
+  entries: BUNDLED_STEPS.map(([year, month, taiMinusUtc]) => ({
+    mjd: mjdFromCalendarDate(year, month, 1),
+    taiMinusUtc,
+  })),
   validUntilMjd: mjdFromCalendarDate(2027, 6, 28),
-  source: 'bundled: IERS Bulletin C leap seconds 1972-2017; complete through IERS Bulletin C 72 (July 2026), list expiry 2027-06-28',
+  source:
+    'bundled: IERS Bulletin C leap seconds 1972-2017; complete through IERS Bulletin C 72 (July 2026), list expiry 2027-06-28',
 });
 
 /** MJD of the NTP epoch 1900-01-01 (MJD = NTP seconds / 86400 + 15020, per the list's own notes) [V2]. */
@@ -164,11 +216,17 @@ export function parseLeapSecondsList(text: string, sourceName = 'leap-seconds.li
     }
     if (raw.startsWith('#') || raw.trim() === '') return;
     const match = /^\s*(\d+)\s+(\d+)\s*(#.*)?$/.exec(raw);
-    if (!match) throw new ParseError(sourceName, line, 1, 'a data line "<NTP seconds> <TAI-UTC seconds> # <date>"', raw);
+    if (!match)
+      throw new ParseError(sourceName, line, 1, 'a data line "<NTP seconds> <TAI-UTC seconds> # <date>"', raw);
     entries.push({ mjd: ntpDay(match[1]!, line, raw.indexOf(match[1]!) + 1), taiMinusUtc: Number(match[2]) });
   });
   if (expiryMjd === undefined) {
-    throw new ParseError(sourceName, lines.length, undefined, 'an expiry line "#@ <NTP seconds>" (without it the table\'s validity is unknown)');
+    throw new ParseError(
+      sourceName,
+      lines.length,
+      undefined,
+      'an expiry line "#@ <NTP seconds>" (without it the table\'s validity is unknown)',
+    );
   }
   return defineLeapSecondTable({
     entries,

@@ -5,22 +5,29 @@
  *
  * @module
  */
-import type { Seconds } from '../units.js';
+
 import { TT_MINUS_TAI } from '../constants.js';
 import { InvalidArgumentError, OutOfDomainError } from '../errors.js';
 import { requireFinite } from '../internal/validate.js';
+import type { Seconds } from '../units.js';
 import { MAX_MJD, MIN_MJD } from './calendar.js';
-import { fromCalendar, formatIso, parseIso, toCalendar } from './calendar-readings.js';
+import { formatIso, fromCalendar, parseIso, toCalendar } from './calendar-readings.js';
 import { Instant, requireInstant } from './instant.js';
 import { requireScale } from './iso-text.js';
 import { defineLeapSecondTable, type LeapSecondTable } from './leap-seconds.js';
-import { normalize } from './split.js';
-import { tcgMinusTtAt, type TimeScale, uniformMinusTai } from './uniform.js';
-import { instantFromWeekSeconds, resolveBroadcastWeekNear, weekSecondsFromInstant } from './weeks.js';
 import type { SplitDays, TimeScales } from './scales-types.js';
+import { normalize } from './split.js';
+import { type TimeScale, tcgMinusTtAt, uniformMinusTai } from './uniform.js';
 import { splitDays, UtcTable } from './utc-table.js';
+import { instantFromWeekSeconds, resolveBroadcastWeekNear, weekSecondsFromInstant } from './weeks.js';
 
-export type { CalendarDateTime, CalendarDateTimeInput, FormatIsoOptions, SplitDays, TimeScales } from './scales-types.js';
+export type {
+  CalendarDateTime,
+  CalendarDateTimeInput,
+  FormatIsoOptions,
+  SplitDays,
+  TimeScales,
+} from './scales-types.js';
 
 /** MJD of an instant read on `scale`; the fraction is (seconds of day)/(length of that day). */
 function toMjd(utc: UtcTable, instant: Instant, scale: TimeScale): SplitDays {
@@ -33,7 +40,13 @@ function toMjd(utc: UtcTable, instant: Instant, scale: TimeScale): SplitDays {
 }
 
 /** The instant of a split MJD (`day` + `dayFraction`, either may carry a fraction) read on `scale`. */
-function instantOfSplitMjd(utc: UtcTable, scale: TimeScale, day: number, dayFraction: number, received: unknown): Instant {
+function instantOfSplitMjd(
+  utc: UtcTable,
+  scale: TimeScale,
+  day: number,
+  dayFraction: number,
+  received: unknown,
+): Instant {
   const split = normalize(day, dayFraction);
   if (split.whole < MIN_MJD || split.whole > MAX_MJD) {
     throw new OutOfDomainError('mjd', received, '0001-01-01', '9999-12-31', 'outside the four-digit calendar');
@@ -43,16 +56,23 @@ function instantOfSplitMjd(utc: UtcTable, scale: TimeScale, day: number, dayFrac
   const seconds = split.fraction * length;
   const whole = Math.floor(seconds);
   // Rounding can give exactly the day length; that is 00:00:00 of the next day.
-  if (whole >= length) return utc.instantOfLabel(scale, { day: split.whole + 1, secondOfDay: 0, fraction: 0 }, 'mjd', received);
-  return utc.instantOfLabel(scale, { day: split.whole, secondOfDay: whole, fraction: seconds - whole }, 'mjd', received);
+  if (whole >= length)
+    return utc.instantOfLabel(scale, { day: split.whole + 1, secondOfDay: 0, fraction: 0 }, 'mjd', received);
+  return utc.instantOfLabel(
+    scale,
+    { day: split.whole, secondOfDay: whole, fraction: seconds - whole },
+    'mjd',
+    received,
+  );
 }
 
 function fromMjd(utc: UtcTable, scale: TimeScale, mjd: number, fraction = 0): Instant {
   requireScale('scale', scale);
   const days = requireFinite('mjd', mjd, 'a finite Modified Julian Date (days)');
   const extra = requireFinite('fraction', fraction, 'a finite number of days');
-  if (Math.abs(days) > 1e7 || Math.abs(extra) > 1e7) throw new InvalidArgumentError('mjd', mjd, 'a date within years 1..9999 (|MJD| < 1e7)');
-  return instantOfSplitMjd(utc, scale, Math.floor(days), (days - Math.floor(days)) + extra, { mjd, fraction });
+  if (Math.abs(days) > 1e7 || Math.abs(extra) > 1e7)
+    throw new InvalidArgumentError('mjd', mjd, 'a date within years 1..9999 (|MJD| < 1e7)');
+  return instantOfSplitMjd(utc, scale, Math.floor(days), days - Math.floor(days) + extra, { mjd, fraction });
 }
 
 function toJd(utc: UtcTable, instant: Instant, scale: TimeScale): SplitDays {
@@ -65,10 +85,11 @@ function fromJd(utc: UtcTable, scale: TimeScale, jd: number, fraction = 0): Inst
   requireScale('scale', scale);
   const days = requireFinite('jd', jd, 'a finite Julian Date (days)');
   const extra = requireFinite('fraction', fraction, 'a finite number of days');
-  if (Math.abs(days - 2_400_000) > 1e7 || Math.abs(extra) > 1e7) throw new InvalidArgumentError('jd', jd, 'a date within years 1..9999');
+  if (Math.abs(days - 2_400_000) > 1e7 || Math.abs(extra) > 1e7)
+    throw new InvalidArgumentError('jd', jd, 'a date within years 1..9999');
   // MJD = JD − 2400000.5 = (⌊JD⌋ − 2400001) + (JD − ⌊JD⌋ + 0.5)
   const whole = Math.floor(days);
-  return instantOfSplitMjd(utc, scale, whole - 2_400_001, (days - whole) + 0.5 + extra, { jd, fraction });
+  return instantOfSplitMjd(utc, scale, whole - 2_400_001, days - whole + 0.5 + extra, { jd, fraction });
 }
 
 /** Reading − TAI split into a constant and a varying part, so TCG − TT loses nothing to 32.184. */
@@ -84,7 +105,7 @@ function offset(utc: UtcTable, scale: TimeScale, reference: TimeScale, instant: 
   requireInstant('instant', instant);
   const [constA, varA] = readingMinusTai(utc, scale, instant);
   const [constB, varB] = readingMinusTai(utc, reference, instant);
-  return (constA - constB) + (varA - varB);
+  return constA - constB + (varA - varB);
 }
 
 /**
@@ -100,7 +121,7 @@ function offset(utc: UtcTable, scale: TimeScale, reference: TimeScale, instant: 
  * ts.taiMinusUtc(t);                  // 36
  * ts.toWeekSeconds(t, 'GPS');         // { week: 1930, secondsOfWeek: 17, ... }
  * ts.formatIso(t, { scale: 'TT' });   // '2017-01-01T00:01:08.184000000'
- */export function createTimeScales(table: LeapSecondTable): TimeScales {
+ */ export function createTimeScales(table: LeapSecondTable): TimeScales {
   const utc = new UtcTable(defineLeapSecondTable(table));
   const scales: TimeScales = {
     leapSeconds: utc.leapSeconds,

@@ -13,7 +13,7 @@
 export function twoSum(a: number, b: number): [number, number] {
   const s = a + b;
   const bb = s - a;
-  const e = (a - (s - bb)) + (b - bb);
+  const e = a - (s - bb) + (b - bb);
   return [s, e];
 }
 

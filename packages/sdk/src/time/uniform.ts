@@ -8,9 +8,10 @@
  *
  * @module
  */
-import type { Dimensionless, Seconds } from '../units.js';
+
 import { L_G, TT_MINUS_TAI } from '../constants.js';
-import { Instant, INSTANT_EPOCH_MJD } from './instant.js';
+import type { Dimensionless, Seconds } from '../units.js';
+import { INSTANT_EPOCH_MJD, Instant } from './instant.js';
 import { addFloat, floorDivMod, normalize } from './split.js';
 
 /**
@@ -30,7 +31,15 @@ import { addFloat, floorDivMod, normalize } from './split.js';
 export type TimeScale = 'TAI' | 'TT' | 'UTC' | 'GPS' | 'GST' | 'BDT' | 'TCG';
 
 /** Every {@link TimeScale}, in a stable order. */
-export const TIME_SCALES: readonly TimeScale[] = Object.freeze(['TAI', 'TT', 'UTC', 'GPS', 'GST', 'BDT', 'TCG'] as const);
+export const TIME_SCALES: readonly TimeScale[] = Object.freeze([
+  'TAI',
+  'TT',
+  'UTC',
+  'GPS',
+  'GST',
+  'BDT',
+  'TCG',
+] as const);
 
 /** The scales that differ from TAI by a constant. */
 export type UniformScale = 'TAI' | 'TT' | 'GPS' | 'GST' | 'BDT';
@@ -101,7 +110,7 @@ export function uniformMinusTai(scale: UniformScale): Seconds {
  * @internal
  */
 export function tcgMinusTtAt(instant: Instant): Seconds {
-  const sinceT0 = (instant.taiSeconds - TCG_EPOCH_TAI_SECONDS) + instant.taiFraction;
+  const sinceT0 = instant.taiSeconds - TCG_EPOCH_TAI_SECONDS + instant.taiFraction;
   return TCG_RATE_VS_TT * sinceT0;
 }
 
@@ -128,12 +137,16 @@ export function labelOnUniformOrTcg(instant: Instant, scale: Exclude<TimeScale, 
  * TT = TCG − L_G·(JD_TCG − T₀)·86400 (IERS Conventions 2010 §10.1 text [V1]; the equation number 10.2 is from memory [M]).
  * @internal
  */
-export function instantFromUniformOrTcgLabel(scale: Exclude<TimeScale, 'UTC'>, day: number, secondOfDay: number,
-  fraction: number): Instant {
+export function instantFromUniformOrTcgLabel(
+  scale: Exclude<TimeScale, 'UTC'>,
+  day: number,
+  secondOfDay: number,
+  fraction: number,
+): Instant {
   const readingWhole = (day - INSTANT_EPOCH_MJD) * 86_400 + secondOfDay;
   if (scale === 'TCG') {
     // TCG reading of T₀ is its TT reading (TCG = TT there): T₀ + 32.184 s.
-    const sinceT0 = (readingWhole - TCG_EPOCH_TAI_SECONDS - 32) + (fraction - 0.184);
+    const sinceT0 = readingWhole - TCG_EPOCH_TAI_SECONDS - 32 + (fraction - 0.184);
     const tt = addFloat(readingWhole, fraction, -L_G * sinceT0);
     const tai = normalize(tt.whole - 32, tt.fraction - 0.184);
     return Instant.fromNormalized(tai.whole, tai.fraction);

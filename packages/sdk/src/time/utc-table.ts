@@ -7,11 +7,11 @@
  */
 import { OutOfDomainError } from '../errors.js';
 import { civilFromDays, isoDateOfMjd, MAX_MJD, MIN_MJD } from './calendar.js';
-import { Instant, INSTANT_EPOCH_MJD } from './instant.js';
+import { INSTANT_EPOCH_MJD, Instant } from './instant.js';
 import type { LeapSecondEntry, LeapSecondTable } from './leap-seconds.js';
+import type { CalendarDateTime, SplitDays } from './scales-types.js';
 import { floorDivMod, normalize } from './split.js';
 import { instantFromUniformOrTcgLabel, type Label, labelOnUniformOrTcg, type TimeScale } from './uniform.js';
-import type { CalendarDateTime, SplitDays } from './scales-types.js';
 
 /** A validated leap-second table with the lookups every UTC conversion needs. */
 export class UtcTable {
@@ -48,10 +48,16 @@ export class UtcTable {
 
   /** The error for a UTC reading before the table (`early`) or after its validity. */
   outOfDomain(argument: string, received: unknown, early: boolean): OutOfDomainError {
-    return new OutOfDomainError(argument, received, this.validFromText, this.validToText, early
-      ? 'UTC before 1972 had fractional TAI − UTC offsets and frequency steps ("rubber seconds"), which are not modelled; use TAI, TT or a GNSS scale'
-      : `the leap-second table "${this.leapSeconds.source}" is only known complete until ${isoDateOfMjd(this.validUntilMjd)}; ` +
-        'pass a current table: createTimeScales(parseLeapSecondsList(text)) or defineLeapSecondTable({...})');
+    return new OutOfDomainError(
+      argument,
+      received,
+      this.validFromText,
+      this.validToText,
+      early
+        ? 'UTC before 1972 had fractional TAI − UTC offsets and frequency steps ("rubber seconds"), which are not modelled; use TAI, TT or a GNSS scale'
+        : `the leap-second table "${this.leapSeconds.source}" is only known complete until ${isoDateOfMjd(this.validUntilMjd)}; ` +
+            'pass a current table: createTimeScales(parseLeapSecondsList(text)) or defineLeapSecondTable({...})',
+    );
   }
 
   /** TAI − UTC of entry `i` (an index the caller found in the table), in seconds. */
@@ -103,7 +109,8 @@ export class UtcTable {
     if (next) {
       const nextDayStart = (next.mjd - INSTANT_EPOCH_MJD) * 86_400;
       // Inside an inserted second: UTC reads 23:59:60 of the day before the step.
-      if (naive >= nextDayStart) return { day: next.mjd - 1, secondOfDay: 86_400 + (naive - nextDayStart), fraction: instant.taiFraction };
+      if (naive >= nextDayStart)
+        return { day: next.mjd - 1, secondOfDay: 86_400 + (naive - nextDayStart), fraction: instant.taiFraction };
     }
     const [days, secondOfDay] = floorDivMod(naive, 86_400);
     return { day: days + INSTANT_EPOCH_MJD, secondOfDay, fraction: instant.taiFraction };
@@ -128,7 +135,10 @@ export class UtcTable {
     this.requireUtcDay(argument, received, label.day);
     // TAI = UTC + (TAI − UTC) of the UTC day; second 86400 of a leap day lands 1 s before the next midnight's TAI.
     const offset = this.offsetOfEntry(this.entryIndexOnDay(label.day));
-    return Instant.fromNormalized((label.day - INSTANT_EPOCH_MJD) * 86_400 + label.secondOfDay + offset, label.fraction);
+    return Instant.fromNormalized(
+      (label.day - INSTANT_EPOCH_MJD) * 86_400 + label.secondOfDay + offset,
+      label.fraction,
+    );
   }
 
   /** The last UTC days (ISO dates) that end with an inserted leap second, for messages. */
@@ -145,7 +155,13 @@ export class UtcTable {
 /** Throws unless a label's day lies in years 1..9999. */
 export function checkedCalendarLabel(label: Label, instant: Instant): Label {
   if (label.day < MIN_MJD || label.day > MAX_MJD) {
-    throw new OutOfDomainError('instant', instant.toString(), '0001-01-01', '9999-12-31', 'outside the four-digit calendar');
+    throw new OutOfDomainError(
+      'instant',
+      instant.toString(),
+      '0001-01-01',
+      '9999-12-31',
+      'outside the four-digit calendar',
+    );
   }
   return label;
 }

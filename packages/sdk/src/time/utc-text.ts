@@ -5,8 +5,9 @@
  *
  * @internal
  */
-import { BUNDLED_LEAP_SECONDS } from './leap-seconds.js';
+
 import type { Instant } from './instant.js';
+import { BUNDLED_LEAP_SECONDS } from './leap-seconds.js';
 import { createTimeScales } from './scales.js';
 import type { TimeScales } from './scales-types.js';
 

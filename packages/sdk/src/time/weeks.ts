@@ -5,9 +5,10 @@
  *
  * @module
  */
-import type { Seconds } from '../units.js';
+
 import { InvalidArgumentError, OutOfDomainError } from '../errors.js';
 import { requireFinite, requireInteger } from '../internal/validate.js';
+import type { Seconds } from '../units.js';
 import { isoDateOfMjd } from './calendar.js';
 import { type Instant, requireInstant } from './instant.js';
 import { addFloat, floorDivMod } from './split.js';
@@ -29,7 +30,11 @@ const SECONDS_PER_WEEK: Seconds = 604_800;
  * - BDT: 2006-01-01 (MJD 53736) 00:00:00 BDT = 00:00:00 UTC, "GPS week 1356" (BDS ICD as quoted
  *   in secondary sources [V2]).
  */
-export const WEEK_EPOCH_MJD: Readonly<Record<WeekSystem, number>> = Object.freeze({ GPS: 44_244, GST: 51_412, BDT: 53_736 });
+export const WEEK_EPOCH_MJD: Readonly<Record<WeekSystem, number>> = Object.freeze({
+  GPS: 44_244,
+  GST: 51_412,
+  BDT: 53_736,
+});
 
 /**
  * Week-number field widths of common navigation messages, in bits [M]: GPS LNAV 10 (rollover
@@ -80,11 +85,21 @@ export function weekSecondsFromInstant(instant: Instant, system: WeekSystem): We
   const label = labelOnUniformOrTcg(instant, system);
   const secondsSinceWeekZero = (label.day - WEEK_EPOCH_MJD[system]) * 86_400 + label.secondOfDay;
   if (secondsSinceWeekZero < 0) {
-    throw new OutOfDomainError('instant', instant.toString(), `${isoDateOfMjd(WEEK_EPOCH_MJD[system])}T00:00:00 ${system}`, 'no limit',
-      `${system} weeks are counted from that epoch`);
+    throw new OutOfDomainError(
+      'instant',
+      instant.toString(),
+      `${isoDateOfMjd(WEEK_EPOCH_MJD[system])}T00:00:00 ${system}`,
+      'no limit',
+      `${system} weeks are counted from that epoch`,
+    );
   }
   const [week, wholeSecondsOfWeek] = floorDivMod(secondsSinceWeekZero, SECONDS_PER_WEEK);
-  return Object.freeze({ week, secondsOfWeek: wholeSecondsOfWeek + label.fraction, wholeSecondsOfWeek, fractionOfSecond: label.fraction });
+  return Object.freeze({
+    week,
+    secondsOfWeek: wholeSecondsOfWeek + label.fraction,
+    wholeSecondsOfWeek,
+    fractionOfSecond: label.fraction,
+  });
 }
 
 /**
@@ -98,17 +113,26 @@ export function weekSecondsFromInstant(instant: Instant, system: WeekSystem): We
  * @throws {InvalidArgumentError} naming the field: unknown system, negative or non-integer week,
  *   secondsOfWeek outside [0, 604800) or NaN.
  */
-export function instantFromWeekSeconds(system: WeekSystem, week: number, secondsOfWeek: Seconds,
-  fractionOfSecond: Seconds = 0): Instant {
+export function instantFromWeekSeconds(
+  system: WeekSystem,
+  week: number,
+  secondsOfWeek: Seconds,
+  fractionOfSecond: Seconds = 0,
+): Instant {
   requireWeekSystem('system', system);
   requireInteger('week', week, 0, 1_000_000);
   const sow = requireFinite('secondsOfWeek', secondsOfWeek, 'a finite number of seconds in [0, 604800)');
   if (sow < 0 || sow >= SECONDS_PER_WEEK) {
-    throw new InvalidArgumentError('secondsOfWeek', secondsOfWeek, 'in [0, 604800) s',
-      sow >= SECONDS_PER_WEEK ? 'carry whole weeks into `week`' : undefined);
+    throw new InvalidArgumentError(
+      'secondsOfWeek',
+      secondsOfWeek,
+      'in [0, 604800) s',
+      sow >= SECONDS_PER_WEEK ? 'carry whole weeks into `week`' : undefined,
+    );
   }
   const extra = requireFinite('fractionOfSecond', fractionOfSecond, 'a finite number of seconds in (−1, 1)');
-  if (Math.abs(extra) >= 1) throw new InvalidArgumentError('fractionOfSecond', fractionOfSecond, 'a finite number of seconds in (−1, 1)');
+  if (Math.abs(extra) >= 1)
+    throw new InvalidArgumentError('fractionOfSecond', fractionOfSecond, 'a finite number of seconds in (−1, 1)');
   const reading = addFloat(week * SECONDS_PER_WEEK, 0, sow);
   const total = addFloat(reading.whole, reading.fraction, extra);
   const [days, secondOfDay] = floorDivMod(total.whole, 86_400);
@@ -147,6 +171,11 @@ export function resolveBroadcastWeek(broadcastWeek: number, bits: number, refere
  * @throws {InvalidArgumentError} as {@link resolveBroadcastWeek}, or for a non-Instant reference.
  * @throws {OutOfDomainError} if the reference is before the system's week 0.
  */
-export function resolveBroadcastWeekNear(system: WeekSystem, broadcastWeek: number, bits: number, reference: Instant): number {
+export function resolveBroadcastWeekNear(
+  system: WeekSystem,
+  broadcastWeek: number,
+  bits: number,
+  reference: Instant,
+): number {
   return resolveBroadcastWeek(broadcastWeek, bits, weekSecondsFromInstant(reference, system).week);
 }

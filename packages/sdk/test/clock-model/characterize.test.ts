@@ -1,18 +1,23 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { describe, expect, it } from 'vitest';
 import { characterizeClock, clockMeasurementNoise, correctPhaseJumps, simulateClock } from '@tauline/sdk/clock-model';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import { Instant } from '@tauline/sdk/time';
+import { describe, expect, it } from 'vitest';
 
 const ROOT = fileURLToPath(new URL('../../../..', import.meta.url));
 
 /** The invented VESTRA-4 record: two columns, time (s) and phase (s), every 300 s. */
 function vestra4(): { t: Float64Array; phase: Float64Array } {
   const rows = readFileSync(join(ROOT, 'packages/sdk/examples/clock/vestra-4-rafs.txt'), 'utf8')
-    .split('\n').filter((l) => /^\s*\d/.test(l)).map((l) => l.trim().split(/\s+/).map(Number));
-  return { t: Float64Array.from(rows, (r) => r[0] ?? Number.NaN), phase: Float64Array.from(rows, (r) => r[1] ?? Number.NaN) };
+    .split('\n')
+    .filter((l) => /^\s*\d/.test(l))
+    .map((l) => l.trim().split(/\s+/).map(Number));
+  return {
+    t: Float64Array.from(rows, (r) => r[0] ?? Number.NaN),
+    phase: Float64Array.from(rows, (r) => r[1] ?? Number.NaN),
+  };
 }
 
 // Generator values of the example (packages/sdk/examples/clock/SOURCE.md): the truth the characterisation must recover.
@@ -56,8 +61,14 @@ describe('characterizeClock', () => {
 
   it('characterizeClock(simulated record with a frequency jump) declares it, corrects it and ends after a pass with no event', () => {
     // Seeded simulation (seed 7): a fractional-frequency step of 5e-13 at sample 1200 of 2400 (τ0 = 60 s).
-    const sim = simulateClock({ samples: 2400, tau0: 60, q: { q1: 1e-24, q2: 1e-33 }, seed: 7, measurementNoise: 1e-11,
-      jumps: [{ index: 1200, kind: 'frequency', size: 5e-13 }] });
+    const sim = simulateClock({
+      samples: 2400,
+      tau0: 60,
+      q: { q1: 1e-24, q2: 1e-33 },
+      seed: 7,
+      measurementNoise: 1e-11,
+      jumps: [{ index: 1200, kind: 'frequency', size: 5e-13 }],
+    });
     const t = Float64Array.from(sim.phase, (_v, k) => k * 60);
     const passes: number[] = [];
     const r = characterizeClock({ phase: sim.phase, t, tau0: 60 }, { onPass: (p) => passes.push(p) });
@@ -81,7 +92,9 @@ describe('characterizeClock', () => {
     expect(() => characterizeClock({ phase, t, tau0: 0 })).toThrow(/record\.tau0/);
     expect(() => characterizeClock({ phase, t, tau0: 300 }, { predict: [1000] })).toThrow(/predict\[0\]/);
     expect(() => characterizeClock({ phase, t, tau0: 300 }, { maxPasses: 0 })).toThrow(/options\.maxPasses/);
-    expect(() => characterizeClock({ phase, t, tau0: 300, epoch: 5 as unknown as Instant })).toThrow(InvalidArgumentError);
+    expect(() => characterizeClock({ phase, t, tau0: 300, epoch: 5 as unknown as Instant })).toThrow(
+      InvalidArgumentError,
+    );
   });
 });
 
@@ -90,8 +103,26 @@ describe('correctPhaseJumps', () => {
     const phase = [0, 0, 0, 0, 0];
     const t = [0, 10, 20, 30, 40];
     const jumps = [
-      { kind: 'phase' as const, size: 2, updateIndex: 1, epoch: 10, declaredAtUpdate: 3, sizeStd: 0.1, statistic: 50, threshold: 30 },
-      { kind: 'frequency' as const, size: 0.5, updateIndex: 3, epoch: 25, declaredAtUpdate: 4, sizeStd: 0.1, statistic: 50, threshold: 30 },
+      {
+        kind: 'phase' as const,
+        size: 2,
+        updateIndex: 1,
+        epoch: 10,
+        declaredAtUpdate: 3,
+        sizeStd: 0.1,
+        statistic: 50,
+        threshold: 30,
+      },
+      {
+        kind: 'frequency' as const,
+        size: 0.5,
+        updateIndex: 3,
+        epoch: 25,
+        declaredAtUpdate: 4,
+        sizeStd: 0.1,
+        statistic: 50,
+        threshold: 30,
+      },
     ];
     const out = correctPhaseJumps(phase, t, jumps, [2]);
     // k = 3: −2 − 0.5·(30 − 25) = −4.5; k = 4: −2 − 0.5·(40 − 25) = −9.5.
@@ -100,7 +131,16 @@ describe('correctPhaseJumps', () => {
   });
 
   it('correctPhaseJumps refuses a jump or rejected index outside the record', () => {
-    const jump = { kind: 'phase' as const, size: 1, updateIndex: 9, epoch: 0, declaredAtUpdate: 9, sizeStd: 0, statistic: 0, threshold: 30 };
+    const jump = {
+      kind: 'phase' as const,
+      size: 1,
+      updateIndex: 9,
+      epoch: 0,
+      declaredAtUpdate: 9,
+      sizeStd: 0,
+      statistic: 0,
+      threshold: 30,
+    };
     expect(() => correctPhaseJumps([0, 0], [0, 1], [jump], [])).toThrow(/jumps\[0\]\.updateIndex/);
     expect(() => correctPhaseJumps([0, 0], [0, 1], [], [2])).toThrow(/rejected\[0\]/);
   });
@@ -108,9 +148,17 @@ describe('correctPhaseJumps', () => {
 
 describe('clockMeasurementNoise', () => {
   it('clockMeasurementNoise(σ, estimate) uses σ², a resolved estimate, or 0 for the fit and the 2σ upper bound for the filter', () => {
-    expect(clockMeasurementNoise(2e-11, undefined)).toMatchObject({ varianceInNoiseFit: 2e-11 ** 2, filterVariance: 2e-11 ** 2, source: 'given' });
+    expect(clockMeasurementNoise(2e-11, undefined)).toMatchObject({
+      varianceInNoiseFit: 2e-11 ** 2,
+      filterVariance: 2e-11 ** 2,
+      source: 'given',
+    });
     const resolved = { variance: 9e-22, standardError: 1e-22, resolved: true, terms: 100 };
-    expect(clockMeasurementNoise(undefined, resolved)).toMatchObject({ varianceInNoiseFit: 9e-22, varianceInNoiseFitStd: 1e-22, filterVariance: 9e-22 });
+    expect(clockMeasurementNoise(undefined, resolved)).toMatchObject({
+      varianceInNoiseFit: 9e-22,
+      varianceInNoiseFitStd: 1e-22,
+      filterVariance: 9e-22,
+    });
     const unresolved = { variance: -1e-22, standardError: 3e-22, resolved: false, terms: 100 };
     const u = clockMeasurementNoise(undefined, unresolved);
     expect(u.varianceInNoiseFit).toBe(0);

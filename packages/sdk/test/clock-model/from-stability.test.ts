@@ -9,9 +9,14 @@
  * correlation-aware covariance.
  */
 import { describe, expect, it } from 'vitest';
-import { diffusionFromStabilityRows, measurementNoiseFromPhase, simulateClock, type ClockDiffusion } from '../../src/clock-model/index.js';
-import { analyzeStability } from '../../src/stability/index.js';
+import {
+  type ClockDiffusion,
+  diffusionFromStabilityRows,
+  measurementNoiseFromPhase,
+  simulateClock,
+} from '../../src/clock-model/index.js';
 import { InvalidArgumentError } from '../../src/errors.js';
+import { analyzeStability } from '../../src/stability/index.js';
 
 const ONE_SIGMA = 0.6826894921370859;
 const TWO_SIGMA = 0.9544997361036416;
@@ -22,12 +27,27 @@ function expectCoverage(hits: number, runs: number, nominal: number): void {
   expect(Math.abs(hits / runs - nominal)).toBeLessThanOrEqual(3 * sd);
 }
 
-function coverage(states: 2 | 3, q: Required<ClockDiffusion>, samples: number, runs: number, seed0: number, measurementNoise = 0) {
+function coverage(
+  states: 2 | 3,
+  q: Required<ClockDiffusion>,
+  samples: number,
+  runs: number,
+  seed0: number,
+  measurementNoise = 0,
+) {
   const names = (['q1', 'q2', 'q3'] as const).slice(0, states);
-  const hits = { one: { q1: 0, q2: 0, q3: 0 }, two: { q1: 0, q2: 0, q3: 0 }, sigma: { q1: 0, q2: 0, q3: 0 }, naive: { q1: 0, q2: 0, q3: 0 } };
+  const hits = {
+    one: { q1: 0, q2: 0, q3: 0 },
+    two: { q1: 0, q2: 0, q3: 0 },
+    sigma: { q1: 0, q2: 0, q3: 0 },
+    naive: { q1: 0, q2: 0, q3: 0 },
+  };
   for (let r = 0; r < runs; r++) {
     const sim = simulateClock({ samples, tau0: 1, q, seed: seed0 + r, measurementNoise });
-    const rows = analyzeStability({ phase: sim.phase, tau0: 1 }, { statistics: [states === 2 ? 'oadev' : 'ohdev'] }).rows;
+    const rows = analyzeStability(
+      { phase: sim.phase, tau0: 1 },
+      { statistics: [states === 2 ? 'oadev' : 'ohdev'] },
+    ).rows;
     const opts = { states, measurementVariance: measurementNoise ** 2 };
     const one = diffusionFromStabilityRows(rows, opts);
     const two = diffusionFromStabilityRows(rows, { ...opts, confidence: TWO_SIGMA });
@@ -134,18 +154,26 @@ describe('diffusionFromStabilityRows: result', () => {
     for (const [rows, options] of bad) {
       expect(() => diffusionFromStabilityRows(rows as never, options as never)).toThrow(InvalidArgumentError);
     }
-    expect(() => diffusionFromStabilityRows(analysis.rows, { states: 3, statistic: 'oadev' })).toThrow(/not stationary/);
+    expect(() => diffusionFromStabilityRows(analysis.rows, { states: 3, statistic: 'oadev' })).toThrow(
+      /not stationary/,
+    );
     expect(() => diffusionFromStabilityRows(analysis.rows.slice(0, 1), {})).toThrow(/at least 2/);
   });
 });
 
 describe('measurementNoiseFromPhase', () => {
-  it('measurementNoiseFromPhase(phase) recovers σ_v² within ±2 standard errors in about 95 % of 200 seeded clocks (Bartlett\'s formula, Brockwell & Davis §7.2 [M]; Cov(s_k, s_{k+2}) = σ_v² derived [C])', () => {
+  it("measurementNoiseFromPhase(phase) recovers σ_v² within ±2 standard errors in about 95 % of 200 seeded clocks (Bartlett's formula, Brockwell & Davis §7.2 [M]; Cov(s_k, s_{k+2}) = σ_v² derived [C])", () => {
     const runs = 200;
     const sv = 20e-12;
     let hits = 0;
     for (let r = 0; r < runs; r++) {
-      const sim = simulateClock({ samples: 2048, tau0: 30, q: { q1: 1e-23, q2: 1e-32 }, seed: 3000 + r, measurementNoise: sv });
+      const sim = simulateClock({
+        samples: 2048,
+        tau0: 30,
+        q: { q1: 1e-23, q2: 1e-32 },
+        seed: 3000 + r,
+        measurementNoise: sv,
+      });
       const e = measurementNoiseFromPhase(sim.phase);
       if (Math.abs(e.variance - sv * sv) <= 2 * e.standardError) hits++;
     }

@@ -8,7 +8,11 @@
  */
 import { describe, expect, it } from 'vitest';
 import {
-  clockProcessNoise, clockTransitionMatrix, runClockFilter, simulateClock, type ClockDiffusion,
+  type ClockDiffusion,
+  clockProcessNoise,
+  clockTransitionMatrix,
+  runClockFilter,
+  simulateClock,
 } from '../../src/clock-model/index.js';
 
 /** Smallest k with P(X > k) ≤ tail and largest k with P(X < k) ≤ tail, X ~ Binomial(n, p) [C]. */
@@ -25,7 +29,12 @@ function binomialBounds(n: number, p: number, tail: number): { low: number; high
   return { low, high: n };
 }
 
-interface Case { name: string; q: ClockDiffusion; sigma: number; tau0: number }
+interface Case {
+  name: string;
+  q: ClockDiffusion;
+  sigma: number;
+  tau0: number;
+}
 const CASES: Case[] = [
   { name: '2-state, τ0 = 1 s', q: { q1: 1e-22, q2: 1e-28 }, sigma: 1e-10, tau0: 1 },
   // τ0 = 30 s, σ_v = 20 ps: the old gate-then-GLR filter declared ~0.3 false jumps of ~0.16 ns per 10 080 samples here [C].
@@ -33,13 +42,20 @@ const CASES: Case[] = [
   { name: '3-state, τ0 = 1 s', q: { q1: 1e-22, q2: 1e-28, q3: 1e-36 }, sigma: 1e-10, tau0: 1 },
 ];
 
-function countFalse(c: Case, records: number, samples: number, falseAlarmProbability?: number): { jumps: number; outliers: number } {
+function countFalse(
+  c: Case,
+  records: number,
+  samples: number,
+  falseAlarmProbability?: number,
+): { jumps: number; outliers: number } {
   let jumps = 0;
   let outliers = 0;
   for (let r = 0; r < records; r++) {
     const sim = simulateClock({ samples, tau0: c.tau0, q: c.q, seed: 31000 + r, measurementNoise: c.sigma });
-    const run = runClockFilter({ phase: sim.phase, variance: c.sigma ** 2, tau0: c.tau0 },
-      { q: c.q, ...(falseAlarmProbability ? { jumpDetection: { falseAlarmProbability } } : {}) });
+    const run = runClockFilter(
+      { phase: sim.phase, variance: c.sigma ** 2, tau0: c.tau0 },
+      { q: c.q, ...(falseAlarmProbability ? { jumpDetection: { falseAlarmProbability } } : {}) },
+    );
     jumps += run.jumps.length;
     outliers += run.rejected.length;
     expect(run.outliers!.length).toBe(run.rejected.length);
@@ -64,7 +80,10 @@ describe('runClockFilter GLR detector on jump-free simulated clocks', () => {
     const records = 20;
     const { jumps } = countFalse(c, records, 5000, 1e-3);
     expect(jumps).toBeLessThanOrEqual(binomialBounds(records * 5000, 1e-3, 1e-3).high);
-    const run = runClockFilter({ phase: [0, 1e-10, 2e-10], variance: 1e-20, tau0: 1 }, { q: c.q, jumpDetection: { falseAlarmProbability: 1e-3 } });
+    const run = runClockFilter(
+      { phase: [0, 1e-10, 2e-10], variance: 1e-20, tau0: 1 },
+      { q: c.q, jumpDetection: { falseAlarmProbability: 1e-3 } },
+    );
     expect(run.detection!.testsPerUpdate).toBe(36);
     // χ²(1) upper quantile at 1e-3/36: scipy.stats.chi2.isf(1e-3/36, 1) = 17.564137886838576 [C].
     expect(run.detection!.jumpThreshold).toBeCloseTo(17.564137886838576, 6);
@@ -82,7 +101,14 @@ describe('runClockFilter GLR detector: detection probability of injected jumps',
   function detected(kind: 'phase' | 'frequency', size: number, records: number): number {
     let found = 0;
     for (let r = 0; r < records; r++) {
-      const sim = simulateClock({ samples: 1100, tau0: 1, q, seed: 9000 + r, measurementNoise: sigma, jumps: [{ index: 1000, kind, size }] });
+      const sim = simulateClock({
+        samples: 1100,
+        tau0: 1,
+        q,
+        seed: 9000 + r,
+        measurementNoise: sigma,
+        jumps: [{ index: 1000, kind, size }],
+      });
       const run = runClockFilter({ phase: sim.phase, variance: sigma ** 2, tau0: 1 }, { q });
       if (run.jumps.some((j) => j.kind === kind && Math.abs(j.updateIndex - 1000) <= 3)) found += 1;
     }
@@ -109,14 +135,30 @@ describe('runClockFilter GLR detector: detection probability of injected jumps',
 
 describe('runClockFilter against a plain Kalman recursion', () => {
   it('runClockFilter without detection equals the textbook recursion (Φ, Q from clockTransitionMatrix/clockProcessNoise; Kalman 1960 [M]) to 1e-9 relative, steady-state shortcut included', () => {
-    for (const q of [{ q1: 1e-22, q2: 1e-28 }, { q1: 1e-22, q2: 1e-28, q3: 1e-36 }] as ClockDiffusion[]) {
+    for (const q of [
+      { q1: 1e-22, q2: 1e-28 },
+      { q1: 1e-22, q2: 1e-28, q3: 1e-36 },
+    ] as ClockDiffusion[]) {
       const states = q.q3 ? 3 : 2;
       const sim = simulateClock({ samples: 4000, tau0: 1, q, seed: 5, measurementNoise: 1e-10 });
-      const run = runClockFilter({ phase: sim.phase, variance: 1e-20, tau0: 1 }, { q, jumpDetection: false, outlierProbability: false });
+      const run = runClockFilter(
+        { phase: sim.phase, variance: 1e-20, tau0: 1 },
+        { q, jumpDetection: false, outlierProbability: false },
+      );
       const phi = clockTransitionMatrix(1, states);
       const qm = clockProcessNoise(1, q, states);
       let x = states === 3 ? [sim.phase[0]!, 0, 0] : [sim.phase[0]!, 0];
-      let p = states === 3 ? [[1e-20, 0, 0], [0, 1e-18, 0], [0, 0, 1e-30]] : [[1e-20, 0], [0, 1e-18]];
+      let p =
+        states === 3
+          ? [
+              [1e-20, 0, 0],
+              [0, 1e-18, 0],
+              [0, 0, 1e-30],
+            ]
+          : [
+              [1e-20, 0],
+              [0, 1e-18],
+            ];
       for (let k = 1; k < 4000; k++) {
         x = phi.map((row) => row.reduce((a, v, j) => a + v * x[j]!, 0));
         const fp = phi.map((row) => p[0]!.map((_, j) => row.reduce((a, v, m) => a + v * p[m]![j]!, 0)));
@@ -125,8 +167,10 @@ describe('runClockFilter against a plain Kalman recursion', () => {
         const gain = p.map((row) => row[0]! / s);
         const nu = sim.phase[k]! - x[0]!;
         x = x.map((v, i) => v + gain[i]! * nu);
-        p = p.map((row, i) => row.map((v, j) => v - (gain[i]! * p[0]![j]!)));
-        expect(Math.abs(run.phase[k]! - x[0]!)).toBeLessThanOrEqual(1e-9 * Math.sqrt(p[0]![0]!) + 1e-9 * Math.abs(x[0]!));
+        p = p.map((row, i) => row.map((v, j) => v - gain[i]! * p[0]![j]!));
+        expect(Math.abs(run.phase[k]! - x[0]!)).toBeLessThanOrEqual(
+          1e-9 * Math.sqrt(p[0]![0]!) + 1e-9 * Math.abs(x[0]!),
+        );
         expect(run.phaseStd[k]! / Math.sqrt(p[0]![0]!)).toBeCloseTo(1, 9);
         expect(run.frequencyStd[k]! / Math.sqrt(p[1]![1]!)).toBeCloseTo(1, 9);
       }

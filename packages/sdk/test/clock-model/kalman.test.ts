@@ -1,12 +1,22 @@
-import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
 import {
-  applyClockStep, ClockKalmanFilter, clockProcessNoise, fitClockPolynomial, forecastClock, runClockFilter, simulateClock,
+  applyClockStep,
+  ClockKalmanFilter,
+  clockProcessNoise,
+  fitClockPolynomial,
+  forecastClock,
+  runClockFilter,
+  simulateClock,
 } from '../../src/clock-model/index.js';
 import { InvalidArgumentError } from '../../src/errors.js';
 
 const Q3 = { q1: 1e-22, q2: 1e-28, q3: 1e-36 };
-const zero3 = [[0, 0, 0], [0, 0, 0], [0, 0, 0]];
+const zero3 = [
+  [0, 0, 0],
+  [0, 0, 0],
+  [0, 0, 0],
+];
 
 describe('forecastClock and applyClockStep', () => {
   it('forecastClock(estimate, q, [τ]) from a zero-covariance state gives mean Φ(τ)s and covariance Q(τ) (Zucca & Tavella 2005 [M])', () => {
@@ -19,16 +29,45 @@ describe('forecastClock and applyClockStep', () => {
     expect(f!.phaseStd).toBeCloseTo(Math.sqrt(q[0]![0]!), 22);
   });
   it('forecastClock phase variance grows with the horizon (property)', () => {
-    fc.assert(fc.property(fc.double({ min: 1, max: 1e6, noNaN: true }), (h) => {
-      const [a, b] = forecastClock({ t: 0, state: [0, 0], covariance: [[1e-20, 0], [0, 1e-26]] }, { q1: 1e-22, q2: 1e-30 }, [h, 2 * h]);
-      return a!.phaseStd < b!.phaseStd;
-    }), { seed: 20261202, numRuns: 100 });
+    fc.assert(
+      fc.property(fc.double({ min: 1, max: 1e6, noNaN: true }), (h) => {
+        const [a, b] = forecastClock(
+          {
+            t: 0,
+            state: [0, 0],
+            covariance: [
+              [1e-20, 0],
+              [0, 1e-26],
+            ],
+          },
+          { q1: 1e-22, q2: 1e-30 },
+          [h, 2 * h],
+        );
+        return a!.phaseStd < b!.phaseStd;
+      }),
+      { seed: 20261202, numRuns: 100 },
+    );
   });
   it('applyClockStep(estimate, step) shifts the mean only', () => {
-    const e = applyClockStep({ t: 5, state: [1e-9, 1e-12, 0], covariance: zero3 }, { phase: -1e-9, frequency: -1e-12, drift: 1e-20 });
+    const e = applyClockStep(
+      { t: 5, state: [1e-9, 1e-12, 0], covariance: zero3 },
+      { phase: -1e-9, frequency: -1e-12, drift: 1e-20 },
+    );
     expect(e.state).toEqual([0, 0, 1e-20]);
     expect(e.covariance).toEqual(zero3);
-    expect(applyClockStep({ t: 0, state: [0, 0], covariance: [[0, 0], [0, 0]] }, { frequency: 1e-13 }).state).toEqual([0, 1e-13]);
+    expect(
+      applyClockStep(
+        {
+          t: 0,
+          state: [0, 0],
+          covariance: [
+            [0, 0],
+            [0, 0],
+          ],
+        },
+        { frequency: 1e-13 },
+      ).state,
+    ).toEqual([0, 1e-13]);
   });
   it('forecastClock and applyClockStep reject malformed estimates, steps and horizons', () => {
     const good = { t: 0, state: [0, 0, 0], covariance: zero3 };
@@ -36,27 +75,126 @@ describe('forecastClock and applyClockStep', () => {
     expect(() => forecastClock({ ...good, t: Number.NaN }, Q3, [1])).toThrow(InvalidArgumentError);
     expect(() => forecastClock({ ...good, state: [0] }, Q3, [1])).toThrow(InvalidArgumentError);
     expect(() => forecastClock({ ...good, state: [0, Number.NaN, 0] }, Q3, [1])).toThrow(InvalidArgumentError);
-    expect(() => forecastClock({ ...good, covariance: [[0, 0], [0, 0]] }, Q3, [1])).toThrow(InvalidArgumentError);
-    expect(() => forecastClock({ ...good, covariance: [[0, 0, 0], [0, 0], [0, 0, 0]] }, Q3, [1])).toThrow(InvalidArgumentError);
-    expect(() => forecastClock({ ...good, covariance: [[1, 0.5, 0], [0, 1, 0], [0, 0, 1]] }, Q3, [1])).toThrow(/differs/);
-    expect(() => forecastClock({ ...good, covariance: [[1, 2, 0], [2, 1, 0], [0, 0, 1]] }, Q3, [1])).toThrow(/not positive semi-definite/);
-    expect(() => forecastClock({ ...good, covariance: [[1, 0, 0], [0, Number.NaN, 0], [0, 0, 1]] }, Q3, [1])).toThrow(InvalidArgumentError);
-    expect(() => forecastClock({ t: 0, state: [0, 0], covariance: [[0, 0], [0, 0]] }, Q3, [1])).toThrow(/3-element state/);
+    expect(() =>
+      forecastClock(
+        {
+          ...good,
+          covariance: [
+            [0, 0],
+            [0, 0],
+          ],
+        },
+        Q3,
+        [1],
+      ),
+    ).toThrow(InvalidArgumentError);
+    expect(() =>
+      forecastClock(
+        {
+          ...good,
+          covariance: [
+            [0, 0, 0],
+            [0, 0],
+            [0, 0, 0],
+          ],
+        },
+        Q3,
+        [1],
+      ),
+    ).toThrow(InvalidArgumentError);
+    expect(() =>
+      forecastClock(
+        {
+          ...good,
+          covariance: [
+            [1, 0.5, 0],
+            [0, 1, 0],
+            [0, 0, 1],
+          ],
+        },
+        Q3,
+        [1],
+      ),
+    ).toThrow(/differs/);
+    expect(() =>
+      forecastClock(
+        {
+          ...good,
+          covariance: [
+            [1, 2, 0],
+            [2, 1, 0],
+            [0, 0, 1],
+          ],
+        },
+        Q3,
+        [1],
+      ),
+    ).toThrow(/not positive semi-definite/);
+    expect(() =>
+      forecastClock(
+        {
+          ...good,
+          covariance: [
+            [1, 0, 0],
+            [0, Number.NaN, 0],
+            [0, 0, 1],
+          ],
+        },
+        Q3,
+        [1],
+      ),
+    ).toThrow(InvalidArgumentError);
+    expect(() =>
+      forecastClock(
+        {
+          t: 0,
+          state: [0, 0],
+          covariance: [
+            [0, 0],
+            [0, 0],
+          ],
+        },
+        Q3,
+        [1],
+      ),
+    ).toThrow(/3-element state/);
     expect(() => forecastClock(good, Q3, [-1])).toThrow(InvalidArgumentError);
     expect(() => forecastClock(good, Q3, 5 as never)).toThrow(InvalidArgumentError);
     expect(() => applyClockStep(good, null as never)).toThrow(InvalidArgumentError);
     expect(() => applyClockStep(good, { phase: Number.NaN })).toThrow(InvalidArgumentError);
     expect(() => applyClockStep(good, { frequency: Infinity })).toThrow(InvalidArgumentError);
     expect(() => applyClockStep(good, { drift: Number.NaN })).toThrow(InvalidArgumentError);
-    expect(() => applyClockStep({ t: 0, state: [0, 0], covariance: [[0, 0], [0, 0]] }, { drift: 1e-20 })).toThrow(InvalidArgumentError);
+    expect(() =>
+      applyClockStep(
+        {
+          t: 0,
+          state: [0, 0],
+          covariance: [
+            [0, 0],
+            [0, 0],
+          ],
+        },
+        { drift: 1e-20 },
+      ),
+    ).toThrow(InvalidArgumentError);
   });
 });
 
 describe('ClockKalmanFilter', () => {
   it('ClockKalmanFilter with q = 0 and a wide prior reproduces the weighted straight-line fit (fitClockPolynomial, QR; independent method)', () => {
     const t = Array.from({ length: 30 }, (_, i) => i * 10);
-    const x = t.map((ti, i) => 3e-9 + 2e-12 * ti + (i % 3 - 1) * 1e-10);
-    const f = new ClockKalmanFilter({ q: { q1: 0, q2: 0 }, initial: { t: 0, state: [0, 0], covariance: [[1e-8, 0], [0, 1e-12]] } });
+    const x = t.map((ti, i) => 3e-9 + 2e-12 * ti + ((i % 3) - 1) * 1e-10);
+    const f = new ClockKalmanFilter({
+      q: { q1: 0, q2: 0 },
+      initial: {
+        t: 0,
+        state: [0, 0],
+        covariance: [
+          [1e-8, 0],
+          [0, 1e-12],
+        ],
+      },
+    });
     t.forEach((ti, i) => f.step(ti, x[i]!, 1e-20));
     const fit = fitClockPolynomial(t, x, { degree: 1, variance: 1e-20, referenceTime: 290 });
     const e = f.estimate;
@@ -65,7 +203,18 @@ describe('ClockKalmanFilter', () => {
     expect(e.covariance[0]![0]! / fit.covariance[0]![0]!).toBeCloseTo(1, 4);
   });
   it('ClockKalmanFilter.update reports innovation, its variance P⁻₁₁ + R and NIS = ν²/S (Kalman 1960)', () => {
-    const f = new ClockKalmanFilter({ q: Q3, initial: { t: 0, state: [0, 0, 0], covariance: [[4e-20, 0, 0], [0, 1e-24, 0], [0, 0, 1e-36]] } });
+    const f = new ClockKalmanFilter({
+      q: Q3,
+      initial: {
+        t: 0,
+        state: [0, 0, 0],
+        covariance: [
+          [4e-20, 0, 0],
+          [0, 1e-24, 0],
+          [0, 0, 1e-36],
+        ],
+      },
+    });
     const u = f.update(3e-10, 5e-20);
     expect(u.innovation).toBe(3e-10);
     expect(u.innovationVariance).toBeCloseTo(9e-20, 34);
@@ -76,13 +225,22 @@ describe('ClockKalmanFilter', () => {
     expect(f.states).toBe(3);
   });
   it('ClockKalmanFilter rejects a measurement above the χ²(1) gate, reports it and keeps the prediction', () => {
-    const f = new ClockKalmanFilter({ q: Q3, initial: { t: 0, state: [0, 0, 0], covariance: zero3 }, outlierProbability: 1e-3 });
+    const f = new ClockKalmanFilter({
+      q: Q3,
+      initial: { t: 0, state: [0, 0, 0], covariance: zero3 },
+      outlierProbability: 1e-3,
+    });
     expect(f.gate).toBeCloseTo(10.827566170662733, 9); // χ²(1) upper 0.001 (NIST/SEMATECH §1.3.6.7.4: 10.828 [M])
     const before = f.predict(1);
     const u = f.update(1e-8, 1e-20);
     expect(u.status).toBe('rejected');
     expect(u.estimate.state).toEqual(before.state);
-    const off = new ClockKalmanFilter({ q: Q3, initial: { t: 0, state: [0, 0, 0], covariance: zero3 }, outlierProbability: false, jumpDetection: false });
+    const off = new ClockKalmanFilter({
+      q: Q3,
+      initial: { t: 0, state: [0, 0, 0], covariance: zero3 },
+      outlierProbability: false,
+      jumpDetection: false,
+    });
     expect(off.gate).toBe(Infinity);
     expect(off.step(1, 1e-8, 1e-20).status).toBe('accepted');
   });
@@ -99,11 +257,28 @@ describe('ClockKalmanFilter', () => {
     const initial = { t: 0, state: [0, 0, 0], covariance: zero3 };
     expect(() => new ClockKalmanFilter(null as never)).toThrow(InvalidArgumentError);
     expect(() => new ClockKalmanFilter({ q: { q1: -1, q2: 0 }, initial })).toThrow(InvalidArgumentError);
-    expect(() => new ClockKalmanFilter({ q: Q3, initial: { t: 0, state: [0, 0], covariance: [[0, 0], [0, 0]] } })).toThrow(InvalidArgumentError);
+    expect(
+      () =>
+        new ClockKalmanFilter({
+          q: Q3,
+          initial: {
+            t: 0,
+            state: [0, 0],
+            covariance: [
+              [0, 0],
+              [0, 0],
+            ],
+          },
+        }),
+    ).toThrow(InvalidArgumentError);
     expect(() => new ClockKalmanFilter({ q: Q3, initial, outlierProbability: 0.9 })).toThrow(InvalidArgumentError);
     expect(() => new ClockKalmanFilter({ q: Q3, initial, jumpDetection: { window: 1 } })).toThrow(InvalidArgumentError);
-    expect(() => new ClockKalmanFilter({ q: Q3, initial, jumpDetection: { window: 5, minEpochs: 6 } })).toThrow(InvalidArgumentError);
-    expect(() => new ClockKalmanFilter({ q: Q3, initial, jumpDetection: { falseAlarmProbability: 0 } })).toThrow(InvalidArgumentError);
+    expect(() => new ClockKalmanFilter({ q: Q3, initial, jumpDetection: { window: 5, minEpochs: 6 } })).toThrow(
+      InvalidArgumentError,
+    );
+    expect(() => new ClockKalmanFilter({ q: Q3, initial, jumpDetection: { falseAlarmProbability: 0 } })).toThrow(
+      InvalidArgumentError,
+    );
     expect(() => new ClockKalmanFilter({ q: Q3, initial, jumpDetection: 3 as never })).toThrow(InvalidArgumentError);
     const f = new ClockKalmanFilter({ q: Q3, initial: { ...initial, t: 10 } });
     expect(() => f.predict(5)).toThrow(/does not run backwards/);
@@ -119,7 +294,10 @@ describe('runClockFilter', () => {
     const sim = simulateClock({ samples: 200, tau0: 1, q: Q3, seed: 4, measurementNoise: 1e-10 });
     const phase = Array.from(sim.phase);
     phase[50] = Number.NaN;
-    const run = runClockFilter({ phase, variance: 1e-20, tau0: 1 }, { q: Q3, states: 3, initialFrequencyStd: 1e-11, initialDriftStd: 1e-17 });
+    const run = runClockFilter(
+      { phase, variance: 1e-20, tau0: 1 },
+      { q: Q3, states: 3, initialFrequencyStd: 1e-11, initialDriftStd: 1e-17 },
+    );
     expect(run.status[50]).toBe('missing');
     expect(Number.isNaN(run.nis[50]!)).toBe(true);
     expect(run.nisSummary.count).toBe(198); // first sample initialises the state, sample 50 missing
@@ -127,8 +305,10 @@ describe('runClockFilter', () => {
     expect(run.final.t).toBe(199);
   });
   it('runClockFilter accepts explicit epochs and per-sample variances; 2-state by default when q3 = 0', () => {
-    const run = runClockFilter({ phase: [0, 1e-9, 2e-9, 3.1e-9], variance: [1e-20, 1e-20, 4e-20, 1e-20], t: [0, 1, 2, 3] },
-      { q: { q1: 1e-22, q2: 1e-28 } });
+    const run = runClockFilter(
+      { phase: [0, 1e-9, 2e-9, 3.1e-9], variance: [1e-20, 1e-20, 4e-20, 1e-20], t: [0, 1, 2, 3] },
+      { q: { q1: 1e-22, q2: 1e-28 } },
+    );
     expect(run.states).toBe(2);
     expect(run.drift[3]).toBe(0);
     expect(run.t[3]).toBe(3);
@@ -140,18 +320,44 @@ describe('runClockFilter', () => {
     expect(() => runClockFilter({ phase: [], variance: 1, tau0: 1 }, { q })).toThrow(InvalidArgumentError);
     expect(() => runClockFilter({ phase: [0, 1], variance: 1, t: [0] }, { q })).toThrow(InvalidArgumentError);
     expect(() => runClockFilter({ phase: [0, 1], variance: 1, t: [0, 0] }, { q })).toThrow(/strictly increasing/);
-    expect(() => runClockFilter({ phase: [0, 1], variance: 1, t: [0, Number.NaN] }, { q })).toThrow(InvalidArgumentError);
+    expect(() => runClockFilter({ phase: [0, 1], variance: 1, t: [0, Number.NaN] }, { q })).toThrow(
+      InvalidArgumentError,
+    );
     expect(() => runClockFilter({ phase: [0, 1], variance: 1 }, { q })).toThrow(InvalidArgumentError);
     expect(() => runClockFilter({ phase: [0, 1], variance: [1], tau0: 1 }, { q })).toThrow(InvalidArgumentError);
     expect(() => runClockFilter({ phase: [0, 1], variance: [1, 0], tau0: 1 }, { q })).toThrow(InvalidArgumentError);
     expect(() => runClockFilter({ phase: [0, 1], variance: -1, tau0: 1 }, { q })).toThrow(InvalidArgumentError);
     expect(() => runClockFilter({ phase: [0, Infinity], variance: 1, tau0: 1 }, { q })).toThrow(InvalidArgumentError);
-    expect(() => runClockFilter({ phase: [Number.NaN, Number.NaN], variance: 1, tau0: 1 }, { q })).toThrow(/at least one valid/);
-    expect(() => runClockFilter({ phase: [0, 1], variance: 1, tau0: 1 }, { q, states: 4 as 2 })).toThrow(InvalidArgumentError);
-    expect(() => runClockFilter({ phase: [0, 1], variance: 1, tau0: 1 }, { q, initialFrequencyStd: 0 })).toThrow(InvalidArgumentError);
-    expect(() => runClockFilter({ phase: [0, 1], variance: 1, tau0: 1 }, { q, states: 3, initialDriftStd: -1 })).toThrow(InvalidArgumentError);
-    expect(() => runClockFilter({ phase: [0, 1], variance: 1, tau0: 1 }, { q, nisConfidence: 1 })).toThrow(InvalidArgumentError);
-    expect(() => runClockFilter({ phase: [0, 1], variance: 1, tau0: 1 },
-      { q, initial: { t: 5, state: [0, 0], covariance: [[0, 0], [0, 0]] } })).toThrow(/initial estimate epoch/);
+    expect(() => runClockFilter({ phase: [Number.NaN, Number.NaN], variance: 1, tau0: 1 }, { q })).toThrow(
+      /at least one valid/,
+    );
+    expect(() => runClockFilter({ phase: [0, 1], variance: 1, tau0: 1 }, { q, states: 4 as 2 })).toThrow(
+      InvalidArgumentError,
+    );
+    expect(() => runClockFilter({ phase: [0, 1], variance: 1, tau0: 1 }, { q, initialFrequencyStd: 0 })).toThrow(
+      InvalidArgumentError,
+    );
+    expect(() =>
+      runClockFilter({ phase: [0, 1], variance: 1, tau0: 1 }, { q, states: 3, initialDriftStd: -1 }),
+    ).toThrow(InvalidArgumentError);
+    expect(() => runClockFilter({ phase: [0, 1], variance: 1, tau0: 1 }, { q, nisConfidence: 1 })).toThrow(
+      InvalidArgumentError,
+    );
+    expect(() =>
+      runClockFilter(
+        { phase: [0, 1], variance: 1, tau0: 1 },
+        {
+          q,
+          initial: {
+            t: 5,
+            state: [0, 0],
+            covariance: [
+              [0, 0],
+              [0, 0],
+            ],
+          },
+        },
+      ),
+    ).toThrow(/initial estimate epoch/);
   });
 });

@@ -1,8 +1,14 @@
-import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
 import {
-  allanVarianceFromQ, clockProcessNoise, clockTransitionMatrix, diffusionFromStabilitySpec, fitDiffusion, hadamardVarianceFromQ,
-  hFromQ, qFromH,
+  allanVarianceFromQ,
+  clockProcessNoise,
+  clockTransitionMatrix,
+  diffusionFromStabilitySpec,
+  fitDiffusion,
+  hadamardVarianceFromQ,
+  hFromQ,
+  qFromH,
 } from '../../src/clock-model/index.js';
 import { cholesky } from '../../src/clock-model/linalg.js';
 import { InvalidArgumentError } from '../../src/errors.js';
@@ -12,9 +18,20 @@ const Q = { q1: 1e-22, q2: 1e-28, q3: 1e-36 };
 
 describe('clockTransitionMatrix', () => {
   it('clockTransitionMatrix(τ, 3) is [[1, τ, τ²/2], [0, 1, τ], [0, 0, 1]] (Zucca & Tavella 2005 [M]; physics-refs §11)', () => {
-    expect(clockTransitionMatrix(10, 3)).toEqual([[1, 10, 50], [0, 1, 10], [0, 0, 1]]);
-    expect(clockTransitionMatrix(10, 2)).toEqual([[1, 10], [0, 1]]);
-    expect(clockTransitionMatrix(0, 3)).toEqual([[1, 0, 0], [0, 1, 0], [0, 0, 1]]);
+    expect(clockTransitionMatrix(10, 3)).toEqual([
+      [1, 10, 50],
+      [0, 1, 10],
+      [0, 0, 1],
+    ]);
+    expect(clockTransitionMatrix(10, 2)).toEqual([
+      [1, 10],
+      [0, 1],
+    ]);
+    expect(clockTransitionMatrix(0, 3)).toEqual([
+      [1, 0, 0],
+      [0, 1, 0],
+      [0, 0, 1],
+    ]);
   });
   it('clockTransitionMatrix(τ, states) rejects negative τ, NaN and states other than 2 or 3', () => {
     expect(() => clockTransitionMatrix(-1, 3)).toThrow(InvalidArgumentError);
@@ -40,17 +57,22 @@ describe('clockProcessNoise', () => {
   it('clockProcessNoise(τ, q, 3) equals the integral ∫₀^τ Φ(s) diag(q1, q2, q3) Φ(s)ᵀ ds by Simpson quadrature (independent computation [C])', () => {
     const tau = 37;
     const n = 2000;
-    const acc = [[0, 0, 0], [0, 0, 0], [0, 0, 0]];
+    const acc = [
+      [0, 0, 0],
+      [0, 0, 0],
+      [0, 0, 0],
+    ];
     for (let k = 0; k <= n; k++) {
       const s = (tau * k) / n;
       const w = (k === 0 || k === n ? 1 : k % 2 === 1 ? 4 : 2) * (tau / n / 3);
       const phi = clockTransitionMatrix(s, 3);
       const qd = [Q.q1, Q.q2, Q.q3];
-      for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) {
-        let v = 0;
-        for (let c = 0; c < 3; c++) v += phi[i]![c]! * qd[c]! * phi[j]![c]!;
-        acc[i]![j]! += w * v;
-      }
+      for (let i = 0; i < 3; i++)
+        for (let j = 0; j < 3; j++) {
+          let v = 0;
+          for (let c = 0; c < 3; c++) v += phi[i]![c]! * qd[c]! * phi[j]![c]!;
+          acc[i]![j]! += w * v;
+        }
     }
     const m = clockProcessNoise(tau, Q, 3);
     for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) expect(rel(m[i]![j]!, acc[i]![j]!)).toBeLessThan(1e-10);
@@ -58,19 +80,28 @@ describe('clockProcessNoise', () => {
   it('clockProcessNoise(τ, q, 2) is the upper-left 2×2 block with q3 = 0', () => {
     const m2 = clockProcessNoise(10, { q1: 1e-22, q2: 1e-28 }, 2);
     const m3 = clockProcessNoise(10, { q1: 1e-22, q2: 1e-28, q3: 0 }, 3);
-    expect(m2).toEqual([[m3[0]![0], m3[0]![1]], [m3[1]![0], m3[1]![1]]]);
+    expect(m2).toEqual([
+      [m3[0]![0], m3[0]![1]],
+      [m3[1]![0], m3[1]![1]],
+    ]);
   });
   it('clockProcessNoise(τ, q, states) is symmetric positive-definite for τ > 0 and q > 0 (property)', () => {
-    fc.assert(fc.property(
-      fc.double({ min: 1e-3, max: 1e6, noNaN: true }), fc.double({ min: -30, max: -18, noNaN: true }),
-      fc.double({ min: -36, max: -26, noNaN: true }), fc.double({ min: -44, max: -34, noNaN: true }),
-      (tau, l1, l2, l3) => {
-        const m = clockProcessNoise(tau, { q1: 10 ** l1, q2: 10 ** l2, q3: 10 ** l3 }, 3);
-        // Scale to unit diagonal so the Cholesky test is about shape, not magnitude.
-        const d = m.map((r, i) => Math.sqrt(r[i]!));
-        const c = m.map((r, i) => r.map((v, j) => v / (d[i]! * d[j]!)));
-        return c[0]![1] === c[1]![0] && c[0]![2] === c[2]![0] && c[1]![2] === c[2]![1] && cholesky(c) !== undefined;
-      }), { seed: 20261202, numRuns: 200 });
+    fc.assert(
+      fc.property(
+        fc.double({ min: 1e-3, max: 1e6, noNaN: true }),
+        fc.double({ min: -30, max: -18, noNaN: true }),
+        fc.double({ min: -36, max: -26, noNaN: true }),
+        fc.double({ min: -44, max: -34, noNaN: true }),
+        (tau, l1, l2, l3) => {
+          const m = clockProcessNoise(tau, { q1: 10 ** l1, q2: 10 ** l2, q3: 10 ** l3 }, 3);
+          // Scale to unit diagonal so the Cholesky test is about shape, not magnitude.
+          const d = m.map((r, i) => Math.sqrt(r[i]!));
+          const c = m.map((r, i) => r.map((v, j) => v / (d[i]! * d[j]!)));
+          return c[0]![1] === c[1]![0] && c[0]![2] === c[2]![0] && c[1]![2] === c[2]![1] && cholesky(c) !== undefined;
+        },
+      ),
+      { seed: 20261202, numRuns: 200 },
+    );
   });
   it('clockProcessNoise(τ, q, states) rejects negative τ, negative or missing q, and q3 > 0 with 2 states', () => {
     expect(() => clockProcessNoise(-1, Q, 3)).toThrow(InvalidArgumentError);
@@ -97,7 +128,9 @@ describe('q ↔ h ↔ variance relations', () => {
   it('allanVarianceFromQ from qFromH reproduces the IEEE 1139 power-law forms h0/(2τ) and (2π²/3)h₋₂τ (physics-refs §10 [M])', () => {
     const h = { h0: 3e-24, hMinus2: 2e-34 };
     const tau = 500;
-    expect(rel(allanVarianceFromQ(tau, qFromH(h)), h.h0 / (2 * tau) + ((2 * Math.PI ** 2) / 3) * h.hMinus2 * tau)).toBeLessThan(1e-14);
+    expect(
+      rel(allanVarianceFromQ(tau, qFromH(h)), h.h0 / (2 * tau) + ((2 * Math.PI ** 2) / 3) * h.hMinus2 * tau),
+    ).toBeLessThan(1e-14);
   });
   it('hFromQ(qFromH(h)) returns h (round trip)', () => {
     const h = { h0: 3e-24, hMinus2: 2e-34, hMinus4: 5e-40 };
@@ -107,7 +140,9 @@ describe('q ↔ h ↔ variance relations', () => {
     expect(rel(back.hMinus4, h.hMinus4)).toBeLessThan(1e-15);
   });
   it('hadamardVarianceFromQ(τ, q) is q1/τ + q2τ/6 + 11q3τ³/120 (Zucca & Tavella 2005 [M]; physics-refs §11)', () => {
-    expect(rel(hadamardVarianceFromQ(10, Q), 1e-22 / 10 + (1e-28 * 10) / 6 + (11 * 1e-36 * 1000) / 120)).toBeLessThan(1e-15);
+    expect(rel(hadamardVarianceFromQ(10, Q), 1e-22 / 10 + (1e-28 * 10) / 6 + (11 * 1e-36 * 1000) / 120)).toBeLessThan(
+      1e-15,
+    );
   });
   it('allanVarianceFromQ(τ, q) refuses q3 > 0 (non-stationary) and bad τ; qFromH, hFromQ, hadamardVarianceFromQ reject bad input', () => {
     expect(() => allanVarianceFromQ(10, Q)).toThrow(/hadamardVarianceFromQ/);
@@ -130,15 +165,24 @@ describe('q ↔ h ↔ variance relations', () => {
     expect(() => diffusionFromStabilitySpec({})).toThrow(InvalidArgumentError);
     expect(() => diffusionFromStabilitySpec(null as never)).toThrow(InvalidArgumentError);
     expect(() => diffusionFromStabilitySpec({ whiteFrequency: 3 as never })).toThrow(InvalidArgumentError);
-    expect(() => diffusionFromStabilitySpec({ whiteFrequency: { tau: 0, deviation: 1e-12 } })).toThrow(InvalidArgumentError);
-    expect(() => diffusionFromStabilitySpec({ randomWalkFrequency: { tau: 1, deviation: -1 } })).toThrow(InvalidArgumentError);
+    expect(() => diffusionFromStabilitySpec({ whiteFrequency: { tau: 0, deviation: 1e-12 } })).toThrow(
+      InvalidArgumentError,
+    );
+    expect(() => diffusionFromStabilitySpec({ randomWalkFrequency: { tau: 1, deviation: -1 } })).toThrow(
+      InvalidArgumentError,
+    );
   });
 });
 
 describe('fitDiffusion', () => {
   const taus = [1, 2, 5, 10, 20, 50, 100, 200, 500, 1000, 2000, 5000, 1e4];
   it('fitDiffusion(points) recovers q1, q2, q3 exactly from noise-free Hadamard deviations', () => {
-    const points = taus.map((tau) => ({ tau, deviation: Math.sqrt(hadamardVarianceFromQ(tau, Q)), kind: 'hadamard' as const, edf: 50 }));
+    const points = taus.map((tau) => ({
+      tau,
+      deviation: Math.sqrt(hadamardVarianceFromQ(tau, Q)),
+      kind: 'hadamard' as const,
+      edf: 50,
+    }));
     const fit = fitDiffusion(points);
     expect(fit.states).toBe(3);
     expect(rel(fit.q.q1, Q.q1)).toBeLessThan(1e-9);
@@ -151,7 +195,9 @@ describe('fitDiffusion', () => {
   });
   it('fitDiffusion(points) recovers q1, q2 from noise-free Allan deviations (2-state by default)', () => {
     const q = { q1: 1e-24, q2: 3.472e-33 };
-    const fit = fitDiffusion(taus.map((tau) => ({ tau, deviation: Math.sqrt(allanVarianceFromQ(tau, q)), kind: 'allan' as const })));
+    const fit = fitDiffusion(
+      taus.map((tau) => ({ tau, deviation: Math.sqrt(allanVarianceFromQ(tau, q)), kind: 'allan' as const })),
+    );
     expect(fit.states).toBe(2);
     expect(rel(fit.q.q1, q.q1)).toBeLessThan(1e-9);
     expect(rel(fit.q.q2, q.q2)).toBeLessThan(1e-9);
@@ -160,7 +206,11 @@ describe('fitDiffusion', () => {
   });
   it('fitDiffusion(points) holds a coefficient at zero instead of returning a negative value', () => {
     // Pure WFM with a slight downward bend at long τ: unconstrained least squares would give q2 < 0.
-    const points = taus.map((tau) => ({ tau, deviation: Math.sqrt(1e-22 / tau) * (tau > 1000 ? 0.8 : 1), kind: 'allan' as const }));
+    const points = taus.map((tau) => ({
+      tau,
+      deviation: Math.sqrt(1e-22 / tau) * (tau > 1000 ? 0.8 : 1),
+      kind: 'allan' as const,
+    }));
     const fit = fitDiffusion(points);
     expect(fit.q.q2).toBe(0);
     expect(fit.atZero).toEqual(['q2']);

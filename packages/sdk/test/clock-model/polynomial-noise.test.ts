@@ -17,10 +17,23 @@ describe('polynomialNoiseCovariance', () => {
     const sv = 50e-12;
     const t = Float64Array.from({ length: n }, (_, k) => k * tau0);
     const T = (n - 1) * tau0 + 86400;
-    const model = polynomialNoiseCovariance(t, { degree: 2, referenceTime: 0, q, measurementVariance: sv * sv, predict: [T] });
+    const model = polynomialNoiseCovariance(t, {
+      degree: 2,
+      referenceTime: 0,
+      q,
+      measurementVariance: sv * sv,
+      predict: [T],
+    });
     const err: number[][] = [[], [], [], []];
     for (let r = 0; r < runs; r++) {
-      const sim = simulateClock({ samples: n + 288, tau0, q, seed: 40000 + r, measurementNoise: sv, initial: { phase: 1e-6, frequency: 2e-11, drift: 1e-18 } });
+      const sim = simulateClock({
+        samples: n + 288,
+        tau0,
+        q,
+        seed: 40000 + r,
+        measurementNoise: sv,
+        initial: { phase: 1e-6, frequency: 2e-11, drift: 1e-18 },
+      });
       const fit = fitClockPolynomial(t, sim.phase.subarray(0, n), { degree: 2, referenceTime: 0 });
       err[0]!.push(fit.coefficients[0] - 1e-6);
       err[1]!.push(fit.coefficients[1] - 2e-11);
@@ -36,19 +49,39 @@ describe('polynomialNoiseCovariance', () => {
 
   it('polynomialNoiseCovariance with q = 0 reduces to the white-noise least-squares covariance R(AᵀA)⁻¹ of fitClockPolynomial', () => {
     const t = Float64Array.from({ length: 50 }, (_, k) => k * 10);
-    const fit = fitClockPolynomial(t, t.map((v) => 1e-9 + 1e-12 * v), { degree: 1, variance: 4e-20, referenceTime: 100 });
-    const model = polynomialNoiseCovariance(t, { degree: 1, referenceTime: 100, q: { q1: 0, q2: 0 }, measurementVariance: 4e-20 });
-    for (let i = 0; i < 2; i++) for (let j = 0; j < 2; j++) expect(model.covariance[i]![j]! / fit.covariance[i]![j]!).toBeCloseTo(1, 9);
+    const fit = fitClockPolynomial(
+      t,
+      t.map((v) => 1e-9 + 1e-12 * v),
+      { degree: 1, variance: 4e-20, referenceTime: 100 },
+    );
+    const model = polynomialNoiseCovariance(t, {
+      degree: 1,
+      referenceTime: 100,
+      q: { q1: 0, q2: 0 },
+      measurementVariance: 4e-20,
+    });
+    for (let i = 0; i < 2; i++)
+      for (let j = 0; j < 2; j++) expect(model.covariance[i]![j]! / fit.covariance[i]![j]!).toBeCloseTo(1, 9);
   });
 
   it('polynomialNoiseCovariance rejects bad epochs, degree, q, variance and predictions inside the record', () => {
     const q = { q1: 1e-23, q2: 0 };
     expect(() => polynomialNoiseCovariance([0, 1], { degree: 2, referenceTime: 0, q })).toThrow(InvalidArgumentError);
-    expect(() => polynomialNoiseCovariance([0, 2, 1], { degree: 1, referenceTime: 0, q })).toThrow(/strictly increasing/);
+    expect(() => polynomialNoiseCovariance([0, 2, 1], { degree: 1, referenceTime: 0, q })).toThrow(
+      /strictly increasing/,
+    );
     expect(() => polynomialNoiseCovariance([0, 1, 2], { degree: 3 as never, referenceTime: 0, q })).toThrow(/degree/);
-    expect(() => polynomialNoiseCovariance([0, 1, 2], { degree: 1, referenceTime: 0, q: { q1: -1, q2: 0 } })).toThrow(/q1/);
-    expect(() => polynomialNoiseCovariance([0, 1, 2], { degree: 1, referenceTime: 0, q, measurementVariance: -1 })).toThrow(/measurementVariance/);
-    expect(() => polynomialNoiseCovariance([0, 1, 2], { degree: 1, referenceTime: 0, q, predict: [1] })).toThrow(/last sample epoch/);
-    expect(() => polynomialNoiseCovariance(7 as never, { degree: 1, referenceTime: 0, q })).toThrow(InvalidArgumentError);
+    expect(() => polynomialNoiseCovariance([0, 1, 2], { degree: 1, referenceTime: 0, q: { q1: -1, q2: 0 } })).toThrow(
+      /q1/,
+    );
+    expect(() =>
+      polynomialNoiseCovariance([0, 1, 2], { degree: 1, referenceTime: 0, q, measurementVariance: -1 }),
+    ).toThrow(/measurementVariance/);
+    expect(() => polynomialNoiseCovariance([0, 1, 2], { degree: 1, referenceTime: 0, q, predict: [1] })).toThrow(
+      /last sample epoch/,
+    );
+    expect(() => polynomialNoiseCovariance(7 as never, { degree: 1, referenceTime: 0, q })).toThrow(
+      InvalidArgumentError,
+    );
   });
 });

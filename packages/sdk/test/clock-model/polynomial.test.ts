@@ -1,5 +1,5 @@
-import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
 import { fitClockPolynomial } from '../../src/clock-model/index.js';
 import { InvalidArgumentError } from '../../src/errors.js';
 
@@ -44,23 +44,37 @@ describe('fitClockPolynomial', () => {
     expect(exact.covarianceScaled).toBe(false);
   });
   it('fitClockPolynomial recovers any exact polynomial of degree ≤ 2 (property)', () => {
-    fc.assert(fc.property(
-      fc.double({ min: -1e-3, max: 1e-3, noNaN: true }), fc.double({ min: -1e-9, max: 1e-9, noNaN: true }),
-      fc.double({ min: -1e-16, max: 1e-16, noNaN: true }), fc.integer({ min: 3, max: 60 }), fc.double({ min: 1, max: 1e4, noNaN: true }),
-      (a0, a1, a2, n, dt) => {
-        const t = Array.from({ length: n }, (_, i) => 1e6 + i * dt);
-        const x = t.map((ti) => a0 + a1 * (ti - 1e6) + a2 * (ti - 1e6) ** 2);
-        const fit = fitClockPolynomial(t, x, { referenceTime: 1e6 });
-        const scale = Math.abs(a0) + Math.abs(a1) * n * dt + Math.abs(a2) * (n * dt) ** 2 + 1e-30;
-        return t.every((ti, i) => Math.abs(fit.predict(ti) - x[i]!) <= 1e-12 * scale);
-      }), { seed: 20261202, numRuns: 200 });
+    fc.assert(
+      fc.property(
+        fc.double({ min: -1e-3, max: 1e-3, noNaN: true }),
+        fc.double({ min: -1e-9, max: 1e-9, noNaN: true }),
+        fc.double({ min: -1e-16, max: 1e-16, noNaN: true }),
+        fc.integer({ min: 3, max: 60 }),
+        fc.double({ min: 1, max: 1e4, noNaN: true }),
+        (a0, a1, a2, n, dt) => {
+          const t = Array.from({ length: n }, (_, i) => 1e6 + i * dt);
+          const x = t.map((ti) => a0 + a1 * (ti - 1e6) + a2 * (ti - 1e6) ** 2);
+          const fit = fitClockPolynomial(t, x, { referenceTime: 1e6 });
+          const scale = Math.abs(a0) + Math.abs(a1) * n * dt + Math.abs(a2) * (n * dt) ** 2 + 1e-30;
+          return t.every((ti, i) => Math.abs(fit.predict(ti) - x[i]!) <= 1e-12 * scale);
+        },
+      ),
+      { seed: 20261202, numRuns: 200 },
+    );
   });
   it('fitClockPolynomial predictStd grows with distance from the data (property)', () => {
-    fc.assert(fc.property(fc.double({ min: 1, max: 1e5, noNaN: true }), (h) => {
-      const t = Array.from({ length: 20 }, (_, i) => i * 60);
-      const fit = fitClockPolynomial(t, t.map((ti) => 1e-9 * Math.sin(ti)), { variance: 1e-20 });
-      return fit.predictStd(1140 + h) < fit.predictStd(1140 + 2 * h);
-    }), { seed: 20261202, numRuns: 100 });
+    fc.assert(
+      fc.property(fc.double({ min: 1, max: 1e5, noNaN: true }), (h) => {
+        const t = Array.from({ length: 20 }, (_, i) => i * 60);
+        const fit = fitClockPolynomial(
+          t,
+          t.map((ti) => 1e-9 * Math.sin(ti)),
+          { variance: 1e-20 },
+        );
+        return fit.predictStd(1140 + h) < fit.predictStd(1140 + 2 * h);
+      }),
+      { seed: 20261202, numRuns: 100 },
+    );
   });
   it('fitClockPolynomial(t, x, options) rejects bad input', () => {
     expect(() => fitClockPolynomial(null as never, [])).toThrow(InvalidArgumentError);

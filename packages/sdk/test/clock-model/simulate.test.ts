@@ -4,7 +4,13 @@ import { InvalidArgumentError } from '../../src/errors.js';
 
 describe('simulateClock', () => {
   it('simulateClock with q = 0 follows the deterministic polynomial x0 + y0·t + d·t²/2 exactly (physics-refs §11 model)', () => {
-    const s = simulateClock({ samples: 5, tau0: 10, q: { q1: 0, q2: 0, q3: 0 }, seed: 1, initial: { phase: 1e-9, frequency: 1e-12, drift: 1e-18 } });
+    const s = simulateClock({
+      samples: 5,
+      tau0: 10,
+      q: { q1: 0, q2: 0, q3: 0 },
+      seed: 1,
+      initial: { phase: 1e-9, frequency: 1e-12, drift: 1e-18 },
+    });
     for (let k = 0; k < 5; k++) {
       const t = 10 * k;
       // Agreement to rounding (the simulator accumulates the steps; relative 1e-14).
@@ -20,8 +26,16 @@ describe('simulateClock', () => {
     expect(simulateClock({ ...o, seed: 9 }).phase).not.toEqual(simulateClock({ ...o, seed: 10 }).phase);
   });
   it('simulateClock injects phase and frequency jumps at the given index', () => {
-    const s = simulateClock({ samples: 6, tau0: 2, q: { q1: 0, q2: 0 }, seed: 1,
-      jumps: [{ index: 2, kind: 'phase', size: 5e-9 }, { index: 3, kind: 'frequency', size: 1e-10 }] });
+    const s = simulateClock({
+      samples: 6,
+      tau0: 2,
+      q: { q1: 0, q2: 0 },
+      seed: 1,
+      jumps: [
+        { index: 2, kind: 'phase', size: 5e-9 },
+        { index: 3, kind: 'frequency', size: 1e-10 },
+      ],
+    });
     expect(Array.from(s.truePhase)).toEqual([0, 0, 5e-9, 5e-9, 5e-9 + 2e-10, 5e-9 + 4e-10]);
     expect(s.frequency[2]).toBe(0);
     expect(s.frequency[3]).toBe(1e-10);
@@ -49,7 +63,11 @@ describe('simulateClock', () => {
     expect(() => simulateClock({ ...o, jumps: [null as never] })).toThrow(InvalidArgumentError);
     expect(() => simulateClock({ ...o, jumps: [{ index: 0, kind: 'phase', size: 1 }] })).toThrow(InvalidArgumentError);
     expect(() => simulateClock({ ...o, jumps: [{ index: 10, kind: 'phase', size: 1 }] })).toThrow(InvalidArgumentError);
-    expect(() => simulateClock({ ...o, jumps: [{ index: 2, kind: 'phase', size: Number.NaN }] })).toThrow(InvalidArgumentError);
-    expect(() => simulateClock({ ...o, jumps: [{ index: 2, kind: 'drift' as never, size: 1 }] })).toThrow(InvalidArgumentError);
+    expect(() => simulateClock({ ...o, jumps: [{ index: 2, kind: 'phase', size: Number.NaN }] })).toThrow(
+      InvalidArgumentError,
+    );
+    expect(() => simulateClock({ ...o, jumps: [{ index: 2, kind: 'drift' as never, size: 1 }] })).toThrow(
+      InvalidArgumentError,
+    );
   });
 });

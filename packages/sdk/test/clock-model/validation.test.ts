@@ -6,7 +6,10 @@
  */
 import { describe, expect, it } from 'vitest';
 import {
-  allanVarianceFromQ, hadamardVarianceFromQ, runClockFilter, simulateClock,
+  allanVarianceFromQ,
+  hadamardVarianceFromQ,
+  runClockFilter,
+  simulateClock,
 } from '../../src/clock-model/index.js';
 import { chiSquareInterval, deviations, equivalentDegreesOfFreedom } from '../../src/stability/index.js';
 
@@ -67,11 +70,17 @@ describe('simulated clocks match the Zucca & Tavella variance forms (physics-ref
 });
 
 describe('clock Kalman filter consistency', () => {
-  const zero3 = [[0, 0, 0], [0, 0, 0], [0, 0, 0]];
+  const zero3 = [
+    [0, 0, 0],
+    [0, 0, 0],
+    [0, 0, 0],
+  ];
   it('runClockFilter 3-state on a simulated 3-state clock: mean NIS over 20 000 epochs lies within its 99 % χ²(N)/N bounds', () => {
     const sim = simulateClock({ samples: 20000, tau0: 1, q: Q3, seed: 8, measurementNoise: 1e-10 });
-    const run = runClockFilter({ phase: sim.phase, variance: 1e-20, tau0: 1 },
-      { q: Q3, initial: { t: 0, state: [0, 0, 0], covariance: zero3 }, nisConfidence: 0.99 });
+    const run = runClockFilter(
+      { phase: sim.phase, variance: 1e-20, tau0: 1 },
+      { q: Q3, initial: { t: 0, state: [0, 0, 0], covariance: zero3 }, nisConfidence: 0.99 },
+    );
     const s = run.nisSummary;
     expect(s.count).toBe(20000);
     expect(s.mean).toBeGreaterThanOrEqual(s.low);
@@ -79,16 +88,47 @@ describe('clock Kalman filter consistency', () => {
     expect(run.jumps).toEqual([]);
   });
   it('runClockFilter 2-state on a simulated 2-state clock with τ0 = 60 s: mean NIS within its 99 % bounds, true phase inside ±4σ everywhere', () => {
-    const sim = simulateClock({ samples: 5000, tau0: 60, q: Q2, seed: 11, measurementNoise: 3e-10, initial: { phase: 1e-6, frequency: 2e-12 } });
-    const run = runClockFilter({ phase: sim.phase, variance: 9e-20, tau0: 60 },
-      { q: Q2, initial: { t: 0, state: [1e-6, 2e-12], covariance: [[0, 0], [0, 0]] }, nisConfidence: 0.99 });
+    const sim = simulateClock({
+      samples: 5000,
+      tau0: 60,
+      q: Q2,
+      seed: 11,
+      measurementNoise: 3e-10,
+      initial: { phase: 1e-6, frequency: 2e-12 },
+    });
+    const run = runClockFilter(
+      { phase: sim.phase, variance: 9e-20, tau0: 60 },
+      {
+        q: Q2,
+        initial: {
+          t: 0,
+          state: [1e-6, 2e-12],
+          covariance: [
+            [0, 0],
+            [0, 0],
+          ],
+        },
+        nisConfidence: 0.99,
+      },
+    );
     expect(run.nisSummary.mean).toBeGreaterThanOrEqual(run.nisSummary.low);
     expect(run.nisSummary.mean).toBeLessThanOrEqual(run.nisSummary.high);
-    for (let i = 0; i < 5000; i++) expect(Math.abs(run.phase[i]! - sim.truePhase[i]!)).toBeLessThan(4 * run.phaseStd[i]! + 1e-25);
+    for (let i = 0; i < 5000; i++)
+      expect(Math.abs(run.phase[i]! - sim.truePhase[i]!)).toBeLessThan(4 * run.phaseStd[i]! + 1e-25);
   });
   it('runClockFilter detects a simulated 1 ns phase jump at the right epoch and estimates its size within 4σ', () => {
-    const sim = simulateClock({ samples: 3000, tau0: 1, q: Q3, seed: 1, measurementNoise: 1e-10, jumps: [{ index: 2000, kind: 'phase', size: 1e-9 }] });
-    const run = runClockFilter({ phase: sim.phase, variance: 1e-20, tau0: 1 }, { q: Q3, initial: { t: 0, state: [0, 0, 0], covariance: zero3 } });
+    const sim = simulateClock({
+      samples: 3000,
+      tau0: 1,
+      q: Q3,
+      seed: 1,
+      measurementNoise: 1e-10,
+      jumps: [{ index: 2000, kind: 'phase', size: 1e-9 }],
+    });
+    const run = runClockFilter(
+      { phase: sim.phase, variance: 1e-20, tau0: 1 },
+      { q: Q3, initial: { t: 0, state: [0, 0, 0], covariance: zero3 } },
+    );
     expect(run.jumps).toHaveLength(1);
     const j = run.jumps[0]!;
     expect(j.kind).toBe('phase');
@@ -105,8 +145,18 @@ describe('clock Kalman filter consistency', () => {
     }
   });
   it('runClockFilter detects a simulated 2e-10 frequency jump within one epoch of where it was injected', () => {
-    const sim = simulateClock({ samples: 3000, tau0: 1, q: Q3, seed: 3, measurementNoise: 1e-10, jumps: [{ index: 2000, kind: 'frequency', size: 2e-10 }] });
-    const run = runClockFilter({ phase: sim.phase, variance: 1e-20, tau0: 1 }, { q: Q3, initial: { t: 0, state: [0, 0, 0], covariance: zero3 } });
+    const sim = simulateClock({
+      samples: 3000,
+      tau0: 1,
+      q: Q3,
+      seed: 3,
+      measurementNoise: 1e-10,
+      jumps: [{ index: 2000, kind: 'frequency', size: 2e-10 }],
+    });
+    const run = runClockFilter(
+      { phase: sim.phase, variance: 1e-20, tau0: 1 },
+      { q: Q3, initial: { t: 0, state: [0, 0, 0], covariance: zero3 } },
+    );
     expect(run.jumps).toHaveLength(1);
     const j = run.jumps[0]!;
     expect(j.kind).toBe('frequency');

@@ -1,15 +1,16 @@
-import Ajv from 'ajv';
 import { readFileSync } from 'node:fs';
+import Ajv from 'ajv';
 import { describe, expect, it } from 'vitest';
+import { InvalidArgumentError } from '../../src/errors.js';
 import { planFleet, validateFleet } from '../../src/fleet/index.js';
 import { predictPasses } from '../../src/orbit/index.js';
-import { InvalidArgumentError } from '../../src/errors.js';
-import { createTimeScales, BUNDLED_LEAP_SECONDS } from '../../src/time/index.js';
+import { BUNDLED_LEAP_SECONDS, createTimeScales } from '../../src/time/index.js';
 
 const schema = JSON.parse(readFileSync(new URL('../../schema/fleet.schema.json', import.meta.url), 'utf8')) as object;
 const check = new Ajv({ allErrors: true, strict: false, formats: { 'date-time': true } }).compile(schema);
 type Doc = Record<string, any>;
-const example = (): Doc => JSON.parse(readFileSync(new URL('../../examples/fleet/ashgrove-orbits.json', import.meta.url), 'utf8')) as Doc;
+const example = (): Doc =>
+  JSON.parse(readFileSync(new URL('../../examples/fleet/ashgrove-orbits.json', import.meta.url), 'utf8')) as Doc;
 /** The example cut to one day and two satellites, to keep the tests quick. */
 const small = (): Doc => {
   const d = example();
@@ -30,25 +31,106 @@ function rejected(doc: unknown): InvalidArgumentError | undefined {
 
 /** Edits that both the schema and validateFleet reject, with the field validateFleet must name. */
 const BOTH_REJECT: [string, (d: Doc) => void, RegExp?][] = [
-  ['satellites[0].orbit.semiMajorAxisMetres', (d) => { d.satellites[0].orbit.semiMajorAxisMetres = 28_410; }, /did you mean 28410 km/],
-  ['satellites[1].passes', (d) => { d.satellites[1].passes = []; }],
-  ['satellites[0].orbit.inclinationRadians', (d) => { d.satellites[0].orbit.inclinationRadians = 58.5; }, /looks like degrees/],
-  ['satellites[0].orbit.raanRadians', (d) => { d.satellites[0].orbit.raanRadians = 160; }, /looks like degrees/],
-  ['satellites[0].orbit.eccentricity', (d) => { d.satellites[0].orbit.eccentricity = 1; }],
-  ['satellites[0].orbit.meanAnomalyDeg', (d) => { d.satellites[0].orbit.meanAnomalyDeg = 10; }],
-  ['satellites[1].orbit.epoch', (d) => { d.satellites[1].orbit.epoch = 'yesterday'; }],
-  ['stations[0].position.latitudeRadians', (d) => { d.stations[0].position.latitudeRadians = 41.83; }, /looks like degrees/],
-  ['stations[2].position.heightMetres', (d) => { d.stations[2].position.heightMetres = -20_000; }],
-  ['stations[1].elevationMaskRadians', (d) => { delete d.stations[1].elevationMaskRadians; }],
-  ['stations[1].position', (d) => { delete d.stations[1].position; }],
-  ['stations[0].elevationMaskRadians', (d) => { d.stations[0].elevationMaskRadians = Math.PI / 2; }],
+  [
+    'satellites[0].orbit.semiMajorAxisMetres',
+    (d) => {
+      d.satellites[0].orbit.semiMajorAxisMetres = 28_410;
+    },
+    /did you mean 28410 km/,
+  ],
+  [
+    'satellites[1].passes',
+    (d) => {
+      d.satellites[1].passes = [];
+    },
+  ],
+  [
+    'satellites[0].orbit.inclinationRadians',
+    (d) => {
+      d.satellites[0].orbit.inclinationRadians = 58.5;
+    },
+    /looks like degrees/,
+  ],
+  [
+    'satellites[0].orbit.raanRadians',
+    (d) => {
+      d.satellites[0].orbit.raanRadians = 160;
+    },
+    /looks like degrees/,
+  ],
+  [
+    'satellites[0].orbit.eccentricity',
+    (d) => {
+      d.satellites[0].orbit.eccentricity = 1;
+    },
+  ],
+  [
+    'satellites[0].orbit.meanAnomalyDeg',
+    (d) => {
+      d.satellites[0].orbit.meanAnomalyDeg = 10;
+    },
+  ],
+  [
+    'satellites[1].orbit.epoch',
+    (d) => {
+      d.satellites[1].orbit.epoch = 'yesterday';
+    },
+  ],
+  [
+    'stations[0].position.latitudeRadians',
+    (d) => {
+      d.stations[0].position.latitudeRadians = 41.83;
+    },
+    /looks like degrees/,
+  ],
+  [
+    'stations[2].position.heightMetres',
+    (d) => {
+      d.stations[2].position.heightMetres = -20_000;
+    },
+  ],
+  [
+    'stations[1].elevationMaskRadians',
+    (d) => {
+      delete d.stations[1].elevationMaskRadians;
+    },
+  ],
+  [
+    'stations[1].position',
+    (d) => {
+      delete d.stations[1].position;
+    },
+  ],
+  [
+    'stations[0].elevationMaskRadians',
+    (d) => {
+      d.stations[0].elevationMaskRadians = Math.PI / 2;
+    },
+  ],
 ];
 
 /** Edits only validateFleet can see. */
 const VALIDATOR_ONLY: [string, (d: Doc) => void][] = [
-  ['stations[2].position', (d) => { delete d.stations[2].position; delete d.stations[2].elevationMaskRadians; }],
-  ['satellites[0].orbit.epoch', (d) => { d.satellites[0].orbit.epoch = '2026-01-01T00:00:00Z'; }],
-  ['satellites[1].orbit.eccentricity', (d) => { d.satellites[1].orbit.semiMajorAxisMetres = 7_000_000; d.satellites[1].orbit.eccentricity = 0.2; }],
+  [
+    'stations[2].position',
+    (d) => {
+      delete d.stations[2].position;
+      delete d.stations[2].elevationMaskRadians;
+    },
+  ],
+  [
+    'satellites[0].orbit.epoch',
+    (d) => {
+      d.satellites[0].orbit.epoch = '2026-01-01T00:00:00Z';
+    },
+  ],
+  [
+    'satellites[1].orbit.eccentricity',
+    (d) => {
+      d.satellites[1].orbit.semiMajorAxisMetres = 7_000_000;
+      d.satellites[1].orbit.eccentricity = 0.2;
+    },
+  ],
 ];
 
 describe('fleet documents with computed passes (orbit + station positions)', () => {
@@ -58,7 +140,9 @@ describe('fleet documents with computed passes (orbit + station positions)', () 
     const fleet = validateFleet(d);
     for (const s of fleet.satellites) {
       expect(s.computedPasses!.length).toBeGreaterThan(5);
-      expect(s.passes.map((p) => [p.station, p.start, p.end])).toEqual(s.computedPasses!.filter((p) => p.usable).map((p) => [p.station, p.start, p.end]));
+      expect(s.passes.map((p) => [p.station, p.start, p.end])).toEqual(
+        s.computedPasses!.filter((p) => p.usable).map((p) => [p.station, p.start, p.end]),
+      );
     }
   });
 
@@ -66,11 +150,33 @@ describe('fleet documents with computed passes (orbit + station positions)', () 
     const d = small();
     const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
     const o = d.satellites[0].orbit;
-    const direct = predictPasses({ epoch: ts.parseIso(o.epoch, 'UTC'), elements: { semiMajorAxis: o.semiMajorAxisMetres, eccentricity: o.eccentricity,
-      inclination: o.inclinationRadians, raan: o.raanRadians, argumentOfPerigee: o.argumentOfPerigeeRadians, meanAnomaly: o.meanAnomalyRadians } },
-    d.stations.map((s: Doc) => ({ position: { latitude: s.position.latitudeRadians, longitude: s.position.longitudeRadians, height: s.position.heightMetres },
-      elevationMask: s.elevationMaskRadians })), ts.parseIso(d.epoch, 'UTC'), d.horizonSeconds, { timeScales: ts });
-    const flat = direct.passes.flatMap((ps, station) => ps.map((p) => ({ station, ...p }))).sort((x, y) => x.start - y.start || x.station - y.station);
+    const direct = predictPasses(
+      {
+        epoch: ts.parseIso(o.epoch, 'UTC'),
+        elements: {
+          semiMajorAxis: o.semiMajorAxisMetres,
+          eccentricity: o.eccentricity,
+          inclination: o.inclinationRadians,
+          raan: o.raanRadians,
+          argumentOfPerigee: o.argumentOfPerigeeRadians,
+          meanAnomaly: o.meanAnomalyRadians,
+        },
+      },
+      d.stations.map((s: Doc) => ({
+        position: {
+          latitude: s.position.latitudeRadians,
+          longitude: s.position.longitudeRadians,
+          height: s.position.heightMetres,
+        },
+        elevationMask: s.elevationMaskRadians,
+      })),
+      ts.parseIso(d.epoch, 'UTC'),
+      d.horizonSeconds,
+      { timeScales: ts },
+    );
+    const flat = direct.passes
+      .flatMap((ps, station) => ps.map((p) => ({ station, ...p })))
+      .sort((x, y) => x.start - y.start || x.station - y.station);
     const computed = validateFleet(d).satellites[0]!.computedPasses!;
     expect(computed.length).toBe(flat.length);
     for (const [k, p] of computed.entries()) {
@@ -83,10 +189,12 @@ describe('fleet documents with computed passes (orbit + station positions)', () 
     }
   });
 
-  it('validateFleet(doc) keeps a computed pass shorter than its station\'s support as unusable and does not plan with it', () => {
+  it("validateFleet(doc) keeps a computed pass shorter than its station's support as unusable and does not plan with it", () => {
     const d = small();
     // A support between the shortest and the longest pass duration at station 2 leaves some passes too short.
-    const lengths = validateFleet(d).satellites.flatMap((s) => s.computedPasses!).filter((p) => p.station === 2 && !p.clippedAtStart && !p.clippedAtEnd)
+    const lengths = validateFleet(d)
+      .satellites.flatMap((s) => s.computedPasses!)
+      .filter((p) => p.station === 2 && !p.clippedAtStart && !p.clippedAtEnd)
       .map((p) => p.end - p.start);
     d.stations[2].supportSeconds = Math.round((Math.min(...lengths) + Math.max(...lengths)) / 2);
     const fleet = validateFleet(d);
@@ -124,7 +232,9 @@ describe('fleet documents with computed passes (orbit + station positions)', () 
     for (const s of plan.satellites) {
       expect(s.computedPasses!.length).toBeGreaterThan(5);
       for (const p of s.computedPasses!) {
-        expect(p.maxElevationRadians).toBeGreaterThanOrEqual(d.stations.find((x: Doc) => x.id === p.station).elevationMaskRadians);
+        expect(p.maxElevationRadians).toBeGreaterThanOrEqual(
+          d.stations.find((x: Doc) => x.id === p.station).elevationMaskRadians,
+        );
         expect(p.maxElevationRadians).toBeLessThanOrEqual(Math.PI / 2);
         expect(Date.parse(p.maxElevationAt)).toBeGreaterThanOrEqual(Date.parse(p.start));
         expect(Date.parse(p.maxElevationAt)).toBeLessThanOrEqual(Date.parse(p.end));
@@ -132,7 +242,15 @@ describe('fleet documents with computed passes (orbit + station positions)', () 
     }
     for (const x of plan.stationSchedule) {
       const passes = plan.satellites.find((s) => s.id === x.satellite)!.computedPasses!;
-      expect(passes.some((p) => p.usable && p.station === x.station && Date.parse(p.start) <= Date.parse(x.start) && Date.parse(x.end) <= Date.parse(p.end))).toBe(true);
+      expect(
+        passes.some(
+          (p) =>
+            p.usable &&
+            p.station === x.station &&
+            Date.parse(p.start) <= Date.parse(x.start) &&
+            Date.parse(x.end) <= Date.parse(p.end),
+        ),
+      ).toBe(true);
     }
   });
 });

@@ -1,16 +1,25 @@
 import { describe, expect, it } from 'vitest';
-import { planFleet, type FleetDocument, type FleetPlan } from '../../src/fleet/index.js';
-import { planSteering, STEERING_CAUTION } from '../../src/steering/index.js';
 import { InvalidArgumentError } from '../../src/errors.js';
+import { type FleetDocument, type FleetPlan, planFleet } from '../../src/fleet/index.js';
+import { planSteering, STEERING_CAUTION } from '../../src/steering/index.js';
 import { exampleFleet, satellite, secondsOf, smallFleet } from './helpers.js';
 
 /** Each satellite's verdict recomputed with planSteering, its supports from the schedule as its contacts. */
 function recomputed(doc: FleetDocument, plan: FleetPlan): boolean[] {
   return doc.satellites.map((s) => {
-    const contacts = plan.stationSchedule.filter((x) => x.satellite === s.id).map(({ start, end }) => ({ start, end }))
+    const contacts = plan.stationSchedule
+      .filter((x) => x.satellite === s.id)
+      .map(({ start, end }) => ({ start, end }))
       .sort((a, b) => a.start.localeCompare(b.start));
     const { id: _id, passes: _passes, ...rest } = s;
-    return planSteering({ ...rest, epoch: doc.epoch, horizonSeconds: doc.horizonSeconds, gridSeconds: doc.gridSeconds, strategy: doc.strategy, contacts }).feasible;
+    return planSteering({
+      ...rest,
+      epoch: doc.epoch,
+      horizonSeconds: doc.horizonSeconds,
+      gridSeconds: doc.gridSeconds,
+      strategy: doc.strategy,
+      contacts,
+    }).feasible;
   });
 }
 
@@ -25,15 +34,19 @@ describe('planFleet on hand-made fleets', () => {
     expect(plan.satellites.map((s) => s.id)).toEqual(['VESPER-1', 'VESPER-2', 'VESPER-3', 'VESPER-4']);
     expect(plan.satellites.every((s) => s.commands.length > 0)).toBe(true);
     expect(recomputed(doc, plan)).toEqual([true, true, true, true]);
-    expect(Object.keys(plan.satellites[0]!.commands[0]!).sort())
-      .toEqual(['actuatorSteps', 'executeAt', 'fractionalFrequencyStep', 'kind', 'reason', 'station', 'uplinkAt']);
+    expect(Object.keys(plan.satellites[0]!.commands[0]!).sort()).toEqual([
+      'actuatorSteps',
+      'executeAt',
+      'fractionalFrequencyStep',
+      'kind',
+      'reason',
+      'station',
+      'uplinkAt',
+    ]);
   });
 
   it('planFleet(doc) gives two satellites that see one station at the same time supports far enough apart (setup included)', () => {
-    const doc = smallFleet([
-      satellite('SAT-A', [['ST-A', 3600, 9000]]),
-      satellite('SAT-B', [['ST-A', 3600, 9000]]),
-    ]);
+    const doc = smallFleet([satellite('SAT-A', [['ST-A', 3600, 9000]]), satellite('SAT-B', [['ST-A', 3600, 9000]])]);
     const plan = planFleet(doc);
     expect(plan.feasible).toBe(true);
     const [x, y] = plan.stationSchedule.map((s) => [secondsOf(s.start), secondsOf(s.end)] as const);
@@ -55,8 +68,12 @@ describe('planFleet on hand-made fleets', () => {
     expect(a!.feasible).toBe(false);
     expect(a!.reasonCode).toBe('station-overbooked');
     expect(a!.reason).toContain('station ST-A overbooked 2027-03-01T01:00:00Z–2027-03-01T01:10:00Z (held by SAT-B');
-    expect(plan.reason).toBe('1 of 2 satellites cannot be held: SAT-A (station-overbooked); the schedule holds the others as well as it can.');
-    expect(plan.stationSchedule).toEqual([{ station: 'ST-A', satellite: 'SAT-B', start: '2027-03-01T01:00:00Z', end: '2027-03-01T01:10:00Z' }]);
+    expect(plan.reason).toBe(
+      '1 of 2 satellites cannot be held: SAT-A (station-overbooked); the schedule holds the others as well as it can.',
+    );
+    expect(plan.stationSchedule).toEqual([
+      { station: 'ST-A', satellite: 'SAT-B', start: '2027-03-01T01:00:00Z', end: '2027-03-01T01:10:00Z' },
+    ]);
   });
 
   it('planFleet(doc) reports a satellite with no pass before its offset leaves the band as too-few-passes', () => {
@@ -67,14 +84,24 @@ describe('planFleet on hand-made fleets', () => {
     expect(plan.stationSchedule).toEqual([]);
   });
 
-  it('planFleet(doc) reports an actuator that cannot hold the clock (max step below what the drift needs) with the planner\'s actuator reason', () => {
-    const sat = satellite('SAT-A', [['ST-A', 3600, 4200], ['ST-B', 30_000, 31_000], ['ST-A', 60_000, 61_000]], { fractionalFrequency: 1e-12 });
+  it("planFleet(doc) reports an actuator that cannot hold the clock (max step below what the drift needs) with the planner's actuator reason", () => {
+    const sat = satellite(
+      'SAT-A',
+      [
+        ['ST-A', 3600, 4200],
+        ['ST-B', 30_000, 31_000],
+        ['ST-A', 60_000, 61_000],
+      ],
+      { fractionalFrequency: 1e-12 },
+    );
     sat.actuator.maxFrequencyStep = 2e-15;
     sat.actuator.cumulativeFrequencyRange = { min: -2e-15, max: 2e-15 };
     const plan = planFleet(smallFleet([sat]));
     expect(plan.satellites[0]!.feasible).toBe(false);
     expect(['actuator-limit', 'planner', 'no-contact-in-time']).toContain(plan.satellites[0]!.reasonCode);
-    expect(plan.satellites[0]!.commands.every((c) => Math.abs(c.fractionalFrequencyStep ?? 0) <= 2e-15 * (1 + 1e-12))).toBe(true);
+    expect(
+      plan.satellites[0]!.commands.every((c) => Math.abs(c.fractionalFrequencyStep ?? 0) <= 2e-15 * (1 + 1e-12)),
+    ).toBe(true);
   });
 
   it('planFleet(doc) uses no station for a satellite that stays inside its band unsteered', () => {

@@ -6,10 +6,29 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import {
-  IERS_2010, InvalidArgumentError, analyzeStability, deviations, elementsToState, fitClockPolynomial, groundClockRate,
-  integrateProperTime, j2SecularClockRate, meanClockRate, meanMotion, planSteering, reviewOffsets, simulateClock, simulatePlan,
-  tcgRateVsTT, tuningWordFrequency, periodicCorrectionFromElements, createGravityField, identifyNoise, GPS_ICD,
-  periodicCorrectionOnTimeGrid, periodicCorrectionFromStatesBatch,
+  analyzeStability,
+  createGravityField,
+  deviations,
+  elementsToState,
+  fitClockPolynomial,
+  GPS_ICD,
+  groundClockRate,
+  IERS_2010,
+  InvalidArgumentError,
+  identifyNoise,
+  integrateProperTime,
+  j2SecularClockRate,
+  meanClockRate,
+  meanMotion,
+  periodicCorrectionFromElements,
+  periodicCorrectionFromStatesBatch,
+  periodicCorrectionOnTimeGrid,
+  planSteering,
+  reviewOffsets,
+  simulateClock,
+  simulatePlan,
+  tcgRateVsTT,
+  tuningWordFrequency,
 } from '../../src/index.js';
 
 const example = (path: string): Record<string, unknown> =>
@@ -68,8 +87,9 @@ describe('reviewOffsets options', () => {
     }
   });
   it('reviewOffsets(review with a tuning word clocked at 1e300 Hz) names the field and the 1 Hz..1 THz range', () => {
-    const spacecraft = (REVIEW['spacecraft'] as Record<string, unknown>[]).map((sc, i) => i !== 2 ? sc
-      : { ...sc, configured: { tuningWord: { word: '28794890104583', clockHz: 1e300, bits: 48 } } });
+    const spacecraft = (REVIEW.spacecraft as Record<string, unknown>[]).map((sc, i) =>
+      i !== 2 ? sc : { ...sc, configured: { tuningWord: { word: '28794890104583', clockHz: 1e300, bits: 48 } } },
+    );
     const error = invalid(() => reviewOffsets({ ...REVIEW, spacecraft }));
     expect(error.argument).toBe('spacecraft[2].configured.tuningWord.clockHz');
     expect(error.message).toContain('[1, 1000000000000] Hz');
@@ -89,7 +109,9 @@ describe('absurd magnitudes give typed errors, never NaN or Infinity', () => {
   });
   it('meanMotion(1e300 m, GM), deviations on 1e300 s phase and a 1e300 s step refuse the value instead of returning Infinity', () => {
     expect(invalid(() => meanMotion(1e300, IERS_2010.gm)).argument).toBe('semiMajorAxis');
-    expect(invalid(() => deviations('oadev', { phase: [0, 1e300, 0, 1, 2, 3], tau0: 1 })).argument).toBe('data.phase[1]');
+    expect(invalid(() => deviations('oadev', { phase: [0, 1e300, 0, 1, 2, 3], tau0: 1 })).argument).toBe(
+      'data.phase[1]',
+    );
     expect(invalid(() => integrateProperTime(STATE, 1e300, 1e300 / 2)).argument).toBe('duration');
   });
   it('planSteering(null) and planSteering(scenario, null) throw InvalidArgumentError', () => {
@@ -100,7 +122,9 @@ describe('absurd magnitudes give typed errors, never NaN or Infinity', () => {
 
 describe('kilometres given for metres', () => {
   it('elementsToState({ semiMajorAxis: 26 560 }, GM) gives the same kilometre hint as meanClockRate(26 560)', () => {
-    const fromElements = invalid(() => elementsToState({ ...ORBIT, raan: 0, argumentOfPerigee: 0, meanAnomaly: 0, semiMajorAxis: 26_560 }, IERS_2010.gm));
+    const fromElements = invalid(() =>
+      elementsToState({ ...ORBIT, raan: 0, argumentOfPerigee: 0, meanAnomaly: 0, semiMajorAxis: 26_560 }, IERS_2010.gm),
+    );
     const fromRate = invalid(() => meanClockRate(26_560));
     expect(fromElements.argument).toBe('elements.semiMajorAxis');
     expect(fromElements.hint).toBe('26560 m is inside the Earth; did you mean 26560 km = 26560000 m?');
@@ -110,19 +134,30 @@ describe('kilometres given for metres', () => {
 
 describe('requireConstantSet at every function that takes constants (IERS Conventions 2010 Table 1.1 ranges [V2])', () => {
   it('j2SecularClockRate(orbit, { constants: {} }) and tcgRateVsTT({ constants: {} }) throw InvalidArgumentError instead of returning NaN', () => {
-    expect(invalid(() => j2SecularClockRate(ORBIT, { constants: {} as never })).argument).toBe('options.constants.name');
+    expect(invalid(() => j2SecularClockRate(ORBIT, { constants: {} as never })).argument).toBe(
+      'options.constants.name',
+    );
     expect(invalid(() => tcgRateVsTT({ constants: {} as never })).argument).toBe('options.constants.name');
   });
   it('a set with gm NaN, lG Infinity or a stale relativisticF is refused naming the field and its range', () => {
     const gm = invalid(() => tcgRateVsTT({ constants: { ...IERS_2010, gm: Number.NaN } }));
     expect(gm.argument).toBe('options.constants.gm');
     expect(gm.message).toContain('in [390000000000000, 410000000000000] m³/s²');
-    expect(invalid(() => periodicCorrectionFromElements(26_560_000, 0.01, 1, { constants: { ...IERS_2010, lG: Number.POSITIVE_INFINITY } })).argument)
-      .toBe('options.constants.lG');
-    expect(invalid(() => meanClockRate(26_560_000, { constants: { ...IERS_2010, gm: 3.9861e14 } })).argument).toBe('options.constants.relativisticF');
+    expect(
+      invalid(() =>
+        periodicCorrectionFromElements(26_560_000, 0.01, 1, {
+          constants: { ...IERS_2010, lG: Number.POSITIVE_INFINITY },
+        }),
+      ).argument,
+    ).toBe('options.constants.lG');
+    expect(invalid(() => meanClockRate(26_560_000, { constants: { ...IERS_2010, gm: 3.9861e14 } })).argument).toBe(
+      'options.constants.relativisticF',
+    );
   });
   it('tcgRateVsTT({ constants: IERS_2010 }) still returns L_G/(1 − L_G) = 6.969290134e-10 to 1e-18 (IERS Conventions 2010 §10.1 [V1])', () => {
-    expect(Math.abs(tcgRateVsTT({ constants: IERS_2010 }) - 6.969290134e-10 / (1 - 6.969290134e-10))).toBeLessThan(1e-25);
+    expect(Math.abs(tcgRateVsTT({ constants: IERS_2010 }) - 6.969290134e-10 / (1 - 6.969290134e-10))).toBeLessThan(
+      1e-25,
+    );
     expect(Math.abs(tcgRateVsTT({ constants: IERS_2010 }) - 6.969290134e-10)).toBeLessThan(1e-18);
   });
 });
@@ -134,8 +169,15 @@ describe('one options convention: a constant set is { constants } in the trailin
       ['periodicCorrectionFromElements', () => periodicCorrectionFromElements(26_560_000, 0.01, 1, GPS_ICD as never)],
       ['j2SecularClockRate', () => j2SecularClockRate(ORBIT, GPS_ICD as never)],
       ['meanClockRate', () => meanClockRate(26_560_000, GPS_ICD as never)],
-      ['periodicCorrectionOnTimeGrid', () => periodicCorrectionOnTimeGrid({ semiMajorAxis: 26_560_000, eccentricity: 0.01, meanAnomalyAtStart: 0 },
-        { stepSeconds: 60, count: 2 }, GPS_ICD as never)],
+      [
+        'periodicCorrectionOnTimeGrid',
+        () =>
+          periodicCorrectionOnTimeGrid(
+            { semiMajorAxis: 26_560_000, eccentricity: 0.01, meanAnomalyAtStart: 0 },
+            { stepSeconds: 60, count: 2 },
+            GPS_ICD as never,
+          ),
+      ],
     ];
     for (const [name, call] of calls) {
       const e = invalid(call);
@@ -144,12 +186,19 @@ describe('one options convention: a constant set is { constants } in the trailin
     }
   });
   it('periodicCorrectionOnTimeGrid(orbit, grid, { constants }) checks the set with requireConstantSet (it checked gm and F only, so an F that disagrees with gm passed)', () => {
-    const e = invalid(() => periodicCorrectionOnTimeGrid({ semiMajorAxis: 26_560_000, eccentricity: 0.01, meanAnomalyAtStart: 0 },
-      { stepSeconds: 60, count: 2 }, { constants: { ...IERS_2010, relativisticF: -4.4e-10 } }));
+    const e = invalid(() =>
+      periodicCorrectionOnTimeGrid(
+        { semiMajorAxis: 26_560_000, eccentricity: 0.01, meanAnomalyAtStart: 0 },
+        { stepSeconds: 60, count: 2 },
+        { constants: { ...IERS_2010, relativisticF: -4.4e-10 } },
+      ),
+    );
     expect(e.argument).toBe('options.constants.relativisticF');
   });
-  it('an output array passed where the options go is refused with a hint, so the caller\'s buffer is never silently left unfilled', () => {
-    const e = invalid(() => periodicCorrectionFromStatesBatch(new Float64Array(6).fill(7e6), new Float64Array(1) as never));
+  it("an output array passed where the options go is refused with a hint, so the caller's buffer is never silently left unfilled", () => {
+    const e = invalid(() =>
+      periodicCorrectionFromStatesBatch(new Float64Array(6).fill(7e6), new Float64Array(1) as never),
+    );
     expect(e.argument).toBe('options');
     expect(e.hint).toBe('an output array goes in the options: { out: array }');
   });

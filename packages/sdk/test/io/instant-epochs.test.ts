@@ -4,10 +4,16 @@
 // (BIPM [V2]); Galileo System Time = TAI − 19 s (Galileo OS SIS ICD §5.1.2 as quoted [V2]).
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import {
-  parsePhaseText, parseRinexClock, parseRinexNav, parseSp3, readRinexClockSeries, rinexClockSeries, scaleSecondsFromFields,
-} from '../../src/io/index.js';
 import { ParseError } from '../../src/errors.js';
+import {
+  parsePhaseText,
+  parseRinexClock,
+  parseRinexNav,
+  parseSp3,
+  readRinexClockSeries,
+  rinexClockSeries,
+  scaleSecondsFromFields,
+} from '../../src/io/index.js';
 import { BUNDLED_LEAP_SECONDS, createTimeScales, formatFileEpoch } from '../../src/time/index.js';
 
 const fixture = (path: string) => readFileSync(new URL(`../../../../test/fixtures/${path}`, import.meta.url), 'utf8');
@@ -18,7 +24,10 @@ const secondsSince2000 = (y: number, m: number, d: number, h = 0, min = 0, s = 0
 describe('RINEX clock records carry exact Instant epochs', () => {
   const V304 = fixture('rinex-clock/fictional-304.clk');
   // The F10.6 seconds field has room for seven decimals when its leading blank is used: ' 0.0000001'.
-  const fractional = V304.replace('2026 01 04 00 00  0.000000  2   -0.123456789012E-03', '2026 01 04 00 00 0.0000001  2   -0.123456789012E-03');
+  const fractional = V304.replace(
+    '2026 01 04 00 00  0.000000  2   -0.123456789012E-03',
+    '2026 01 04 00 00 0.0000001  2   -0.123456789012E-03',
+  );
   it('parseRinexClock(an epoch 00:00:00.0000001 GPS) gives an Instant 1e-7 s after midnight to 1e-15 s; the float count was off by > 1e-8 s', () => {
     const file = parseRinexClock(fractional, { sourceName: 'frac.clk' });
     const first = file.records[0]!;
@@ -33,7 +42,9 @@ describe('RINEX clock records carry exact Instant epochs', () => {
     const s = rinexClockSeries(parseRinexClock(fixture('rinex-clock/fictional-305.clk')), 'E27');
     expect(s.epoch.toJSON()).toEqual({ taiSeconds: secondsSince2000(2026, 6, 30, 23, 58, 0) + 19, taiFraction: 0 });
     expect(Array.from(s.t)).toEqual([0, 30, 60, 90, 120, 150, 180, 210]);
-    expect(Array.from(s.times)).toEqual(Array.from(s.t, (t) => (Date.UTC(2026, 5, 30, 23, 58, 0) - Date.UTC(1980, 0, 6)) / 1000 + t));
+    expect(Array.from(s.times)).toEqual(
+      Array.from(s.t, (t) => (Date.UTC(2026, 5, 30, 23, 58, 0) - Date.UTC(1980, 0, 6)) / 1000 + t),
+    );
   });
   it('readRinexClockSeries(GPS epochs 30.0000001 s apart) measures τ0 = 30.0000001 s to 1e-12 s from the exact epochs', async () => {
     const H = V304.split('\n').slice(0, 6).join('\n');
@@ -46,19 +57,27 @@ describe('RINEX clock records carry exact Instant epochs', () => {
   it('parseRinexClock(TIME SYSTEM ID IRN) refuses a time system the SDK cannot place, at its line and column', () => {
     const irn = V304.replace('   GPS', '   IRN');
     expect(() => parseRinexClock(irn, { sourceName: 'irn.clk' })).toThrow(ParseError);
-    expect(() => parseRinexClock(irn, { sourceName: 'irn.clk' })).toThrow(/irn\.clk:\d+:4: .*time system the SDK can place/);
+    expect(() => parseRinexClock(irn, { sourceName: 'irn.clk' })).toThrow(
+      /irn\.clk:\d+:4: .*time system the SDK can place/,
+    );
   });
 });
 
 describe('SP3 epochs and RINEX navigation t_oc / t_oe carry exact Instants', () => {
   it('parseSp3(an epoch line 00:15:00.00000010 GPS) gives the Instant 900.0000001 s after the first, to 1e-12 s', () => {
-    const text = fixture('sp3/orbit-c-pv.sp3').replace('*  2024  1  7  0 15  0.00000000', '*  2024  1  7  0 15  0.00000010');
+    const text = fixture('sp3/orbit-c-pv.sp3').replace(
+      '*  2024  1  7  0 15  0.00000000',
+      '*  2024  1  7  0 15  0.00000010',
+    );
     const file = parseSp3(text);
-    expect(file.header.firstInstant.toJSON()).toEqual({ taiSeconds: secondsSince2000(2024, 1, 7) + 19, taiFraction: 0 });
+    expect(file.header.firstInstant.toJSON()).toEqual({
+      taiSeconds: secondsSince2000(2024, 1, 7) + 19,
+      taiFraction: 0,
+    });
     expect(file.epochs[0]!.epoch.equals(file.header.firstInstant)).toBe(true);
     expect(Math.abs(file.epochs[1]!.epoch.secondsSince(file.epochs[0]!.epoch) - 900.0000001)).toBeLessThan(1e-12);
   });
-  it('parseRinexNav(3.05) gives each record tocInstant and toeInstant on its system\'s scale, consistent with tocSeconds/toeSeconds', () => {
+  it("parseRinexNav(3.05) gives each record tocInstant and toeInstant on its system's scale, consistent with tocSeconds/toeSeconds", () => {
     const nav = parseRinexNav(fixture('rinex-nav/mixed-v305.rnx'));
     expect(nav.ephemerides.length).toBeGreaterThan(0);
     for (const e of nav.ephemerides) {
@@ -70,8 +89,8 @@ describe('SP3 epochs and RINEX navigation t_oc / t_oe carry exact Instants', () 
   });
 });
 
-describe('phase text: the series shape { epoch, t } when the caller places the file\'s time origin', () => {
-  it('parsePhaseText(two columns, { epoch }) gives the first sample\'s Instant (origin + first time) and t in seconds since it, gaps included', () => {
+describe("phase text: the series shape { epoch, t } when the caller places the file's time origin", () => {
+  it("parsePhaseText(two columns, { epoch }) gives the first sample's Instant (origin + first time) and t in seconds since it, gaps included", () => {
     const origin = createTimeScales(BUNDLED_LEAP_SECONDS).parseIso('2026-03-01T00:00:00', 'GPS');
     const s = parsePhaseText('100 1e-9\n130 2e-9\n190 4e-9\n', { sourceName: 'p.txt', epoch: origin });
     expect(s.epoch!.secondsSince(origin)).toBe(100);

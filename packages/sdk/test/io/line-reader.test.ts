@@ -1,9 +1,10 @@
 // Line splitting of the text readers. Line ends LF, CR LF and a lone CR: common practice, no source.
-import { describe, expect, it } from 'vitest';
+
 import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
 import { ParseError } from '../../src/errors.js';
-import { LineSplitter, linesOf, readLineBatches, readLines, type TextLine } from '../../src/io/line-reader.js';
 import { MAX_LINE_CHARACTERS } from '../../src/io/limits.js';
+import { LineSplitter, linesOf, readLineBatches, readLines, type TextLine } from '../../src/io/line-reader.js';
 
 async function* asyncChunks(chunks: readonly string[]): AsyncGenerator<string> {
   for (const c of chunks) yield c;
@@ -59,16 +60,26 @@ describe('linesOf: a long string is split in pieces without changing the lines',
   });
 
   it('linesOf(text) equals a plain split for long random texts of short and long lines, LF or CR LF', () => {
-    fc.assert(fc.property(
-      fc.array(fc.record({ length: fc.oneof(fc.integer({ min: 0, max: 40 }), fc.integer({ min: 60_000, max: 140_000 })), crlf: fc.boolean() }),
-        { minLength: 1, maxLength: 6 }),
-      fc.boolean(),
-      (spec, finalEnd) => {
-        const text = spec.map((s, i) => `${String.fromCharCode(97 + (i % 26)).repeat(s.length)}${s.crlf ? '\r\n' : '\n'}`).join('')
-          + (finalEnd ? '' : 'tail');
-        expect([...linesOf(text)]).toEqual(splitReference(text));
-      },
-    ), { seed: 20261202, numRuns: 40 });
+    fc.assert(
+      fc.property(
+        fc.array(
+          fc.record({
+            length: fc.oneof(fc.integer({ min: 0, max: 40 }), fc.integer({ min: 60_000, max: 140_000 })),
+            crlf: fc.boolean(),
+          }),
+          { minLength: 1, maxLength: 6 },
+        ),
+        fc.boolean(),
+        (spec, finalEnd) => {
+          const text =
+            spec
+              .map((s, i) => `${String.fromCharCode(97 + (i % 26)).repeat(s.length)}${s.crlf ? '\r\n' : '\n'}`)
+              .join('') + (finalEnd ? '' : 'tail');
+          expect([...linesOf(text)]).toEqual(splitReference(text));
+        },
+      ),
+      { seed: 20261202, numRuns: 40 },
+    );
   });
 });
 
@@ -78,45 +89,66 @@ describe('LineSplitter: any chunking gives the same lines', () => {
     const got: TextLine[] = [];
     for (let k = 0; k < 1000; k++) got.push(...sp.push('ab'));
     got.push(...sp.push('\r'), ...sp.push('\nnext'), ...sp.finish());
-    expect(got).toEqual([{ text: 'ab'.repeat(1000), lineNumber: 1 }, { text: 'next', lineNumber: 2 }]);
+    expect(got).toEqual([
+      { text: 'ab'.repeat(1000), lineNumber: 1 },
+      { text: 'next', lineNumber: 2 },
+    ]);
     expect(sp.lineCount).toBe(2);
   });
 
   it('LineSplitter.push(chunks) equals a plain split of the joined text for random texts cut at random places', () => {
-    fc.assert(fc.property(
-      fc.array(fc.constantFrom('a', 'b', '\r', '\n', '\r\n', 'xyz'), { maxLength: 60 }),
-      fc.array(fc.integer({ min: 0, max: 200 }), { maxLength: 12 }),
-      (parts, cuts) => {
-        const text = parts.join('');
-        const at = [...new Set(cuts.map((c) => Math.min(c, text.length)))].sort((x, y) => x - y);
-        const sp = new LineSplitter();
-        const got: TextLine[] = [];
-        let from = 0;
-        for (const c of [...at, text.length]) {
-          got.push(...sp.push(text.slice(from, c)));
-          from = c;
-        }
-        got.push(...sp.finish());
-        // A lone CR is a line end like LF; CR LF is one line end even when the cut falls between them.
-        const expected = splitReference(text);
-        expect(got).toEqual(expected);
-      },
-    ), { seed: 20261202, numRuns: 300 });
+    fc.assert(
+      fc.property(
+        fc.array(fc.constantFrom('a', 'b', '\r', '\n', '\r\n', 'xyz'), { maxLength: 60 }),
+        fc.array(fc.integer({ min: 0, max: 200 }), { maxLength: 12 }),
+        (parts, cuts) => {
+          const text = parts.join('');
+          const at = [...new Set(cuts.map((c) => Math.min(c, text.length)))].sort((x, y) => x - y);
+          const sp = new LineSplitter();
+          const got: TextLine[] = [];
+          let from = 0;
+          for (const c of [...at, text.length]) {
+            got.push(...sp.push(text.slice(from, c)));
+            from = c;
+          }
+          got.push(...sp.finish());
+          // A lone CR is a line end like LF; CR LF is one line end even when the cut falls between them.
+          const expected = splitReference(text);
+          expect(got).toEqual(expected);
+        },
+      ),
+      { seed: 20261202, numRuns: 300 },
+    );
   });
 });
 
 describe('LineSplitter: lone CR line ends, byte-order mark, over-long lines', () => {
   it('linesOf(text) reads a lone CR as a line end, CR LF as one, and never merges CR-separated lines', () => {
     expect([...linesOf('0 1e-9\r1 2e-9\r\r3 4e-9')]).toEqual([
-      { text: '0 1e-9', lineNumber: 1 }, { text: '1 2e-9', lineNumber: 2 }, { text: '', lineNumber: 3 }, { text: '3 4e-9', lineNumber: 4 },
+      { text: '0 1e-9', lineNumber: 1 },
+      { text: '1 2e-9', lineNumber: 2 },
+      { text: '', lineNumber: 3 },
+      { text: '3 4e-9', lineNumber: 4 },
     ]);
     expect([...linesOf('a\r\n\r\nb\n\rc')].map((l) => l.text)).toEqual(['a', '', 'b', '', 'c']);
   });
 
   it('LineSplitter.push(chunks) keeps a CR at the end of one chunk and an LF at the start of the next as one line end, and a CR then a non-LF chunk as a line end', () => {
     const sp = new LineSplitter();
-    const got = [...sp.push('a\r'), ...sp.push('\nb\r'), ...sp.push('c'), ...sp.push('\r'), ...sp.push(''), ...sp.push('\n'), ...sp.finish()];
-    expect(got).toEqual([{ text: 'a', lineNumber: 1 }, { text: 'b', lineNumber: 2 }, { text: 'c', lineNumber: 3 }]);
+    const got = [
+      ...sp.push('a\r'),
+      ...sp.push('\nb\r'),
+      ...sp.push('c'),
+      ...sp.push('\r'),
+      ...sp.push(''),
+      ...sp.push('\n'),
+      ...sp.finish(),
+    ];
+    expect(got).toEqual([
+      { text: 'a', lineNumber: 1 },
+      { text: 'b', lineNumber: 2 },
+      { text: 'c', lineNumber: 3 },
+    ]);
   });
 
   it('linesOf(text) drops a byte-order mark at the very start only', () => {
@@ -150,7 +182,9 @@ describe('LineSplitter: lone CR line ends, byte-order mark, over-long lines', ()
 
   it('new LineSplitter({ maxLineCharacters }) refuses a limit that is not an integer in [1, MAX_LINE_CHARACTERS] instead of clamping it', () => {
     for (const bad of [0, 1.5, MAX_LINE_CHARACTERS + 1, Number.NaN]) {
-      expect(() => new LineSplitter({ maxLineCharacters: bad })).toThrow(/^maxLineCharacters must be an integer number of characters in \[1, 1048576\]/);
+      expect(() => new LineSplitter({ maxLineCharacters: bad })).toThrow(
+        /^maxLineCharacters must be an integer number of characters in \[1, 1048576\]/,
+      );
     }
     expect(() => new LineSplitter({ maxLineCharacters: MAX_LINE_CHARACTERS })).not.toThrow();
   });
@@ -158,7 +192,9 @@ describe('LineSplitter: lone CR line ends, byte-order mark, over-long lines', ()
   it('linesOf(text) refuses a complete line over the default MAX_LINE_CHARACTERS (1 MiB) and accepts one of exactly that length', () => {
     const exact = 'y'.repeat(MAX_LINE_CHARACTERS);
     expect([...linesOf(`${exact}\nz`)].map((l) => l.text.length)).toEqual([MAX_LINE_CHARACTERS, 1]);
-    expect(() => [...linesOf(`a\n${exact}y\n`, { sourceName: 'big.txt' })]).toThrow(/^big\.txt:2:1048577: expected a line of at most 1048576 characters/);
+    expect(() => [...linesOf(`a\n${exact}y\n`, { sourceName: 'big.txt' })]).toThrow(
+      /^big\.txt:2:1048577: expected a line of at most 1048576 characters/,
+    );
   });
 
   it('readLineBatches(async chunks) refuses an endless line fed in 64 KiB chunks after about 1 MiB, without reading the rest', async () => {
@@ -169,7 +205,9 @@ describe('LineSplitter: lone CR line ends, byte-order mark, over-long lines', ()
         yield '\u0000'.repeat(65_536);
       }
     }
-    await expect(collect(readLineBatches(endless(), { sourceName: '/dev/zero' }))).rejects.toThrow(/^\/dev\/zero:1:1048577: expected a line of at most/);
+    await expect(collect(readLineBatches(endless(), { sourceName: '/dev/zero' }))).rejects.toThrow(
+      /^\/dev\/zero:1:1048577: expected a line of at most/,
+    );
     expect(produced).toBe(17); // 16 chunks fill exactly 1 MiB; the 17th passes it
   });
 });

@@ -14,7 +14,12 @@ export function parseError(fn: () => unknown): ParseError {
 }
 
 /** Asserts `fn` throws a ParseError at `line` (and `column` when given) whose message matches `pattern`. */
-export function expectParseError(fn: () => unknown, line: number, column: number | undefined, pattern: RegExp): ParseError {
+export function expectParseError(
+  fn: () => unknown,
+  line: number,
+  column: number | undefined,
+  pattern: RegExp,
+): ParseError {
   let caught: unknown;
   try {
     fn();

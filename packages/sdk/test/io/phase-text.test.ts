@@ -1,12 +1,12 @@
-import fc from 'fast-check';
 import { readFileSync } from 'node:fs';
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { ParseError } from '../../src/errors.js';
-import { parseError } from './parse-errors.js';
 import { MAX_LINE_CHARACTERS, MAX_SERIES_SAMPLES, parsePhaseText, readPhaseText } from '../../src/io/index.js';
+import { parseError } from './parse-errors.js';
 
-const fixture = (name: string) => readFileSync(new URL(`../../../../test/fixtures/stability/${name}`, import.meta.url), 'utf8');
-
+const fixture = (name: string) =>
+  readFileSync(new URL(`../../../../test/fixtures/stability/${name}`, import.meta.url), 'utf8');
 
 describe('parsePhaseText (plain text / CSV phase records; common practice, no source)', () => {
   it('parsePhaseText(one column with comments and blank lines) returns every value in order', () => {
@@ -66,14 +66,17 @@ describe('parsePhaseText (plain text / CSV phase records; common practice, no so
   });
   it('parsePhaseText(mutated or truncated input) throws only ParseError and never hangs (fast-check fuzz)', () => {
     const base = fixture('phase-two-column.txt');
-    fc.assert(fc.property(fc.nat(base.length), fc.string({ maxLength: 4 }), fc.nat(base.length), (at, insert, cut) => {
-      const text = (base.slice(0, at) + insert + base.slice(at)).slice(0, Math.max(cut, 1));
-      try {
-        parsePhaseText(text);
-      } catch (e) {
-        expect(e).toBeInstanceOf(ParseError);
-      }
-    }), { seed: 20261202, numRuns: 300 });
+    fc.assert(
+      fc.property(fc.nat(base.length), fc.string({ maxLength: 4 }), fc.nat(base.length), (at, insert, cut) => {
+        const text = (base.slice(0, at) + insert + base.slice(at)).slice(0, Math.max(cut, 1));
+        try {
+          parsePhaseText(text);
+        } catch (e) {
+          expect(e).toBeInstanceOf(ParseError);
+        }
+      }),
+      { seed: 20261202, numRuns: 300 },
+    );
   });
 });
 
@@ -95,7 +98,9 @@ describe('parsePhaseText: bounded memory on hostile input (limits are design cho
   });
 
   it('parsePhaseText with an imposed tau0 far below the spacing refuses the implied series instead of allocating it', () => {
-    expect(() => parsePhaseText('0 0\n86400 1e-9\n', { sourceName: 'day.txt', tau0: 1e-9 })).toThrow(/^day\.txt:2:1: expected a uniform series of at most/);
+    expect(() => parsePhaseText('0 0\n86400 1e-9\n', { sourceName: 'day.txt', tau0: 1e-9 })).toThrow(
+      /^day\.txt:2:1: expected a uniform series of at most/,
+    );
   });
 
   it('parsePhaseText reads CR-only line ends as line ends (never two rows merged into one) and ignores a leading byte-order mark', () => {
@@ -105,7 +110,9 @@ describe('parsePhaseText: bounded memory on hostile input (limits are design cho
   });
 
   it('parsePhaseText refuses an over-long line naming the source, line and MAX_LINE_CHARACTERS', () => {
-    const err = parseError(() => parsePhaseText(`1e-9\n${'1'.repeat(MAX_LINE_CHARACTERS + 5)}\n`, { sourceName: 'long.txt' }));
+    const err = parseError(() =>
+      parsePhaseText(`1e-9\n${'1'.repeat(MAX_LINE_CHARACTERS + 5)}\n`, { sourceName: 'long.txt' }),
+    );
     expect(err.line).toBe(2);
     expect(err.message).toMatch(/^long\.txt:2:1048577: expected a line of at most 1048576 characters/);
   });

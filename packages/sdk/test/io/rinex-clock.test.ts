@@ -1,16 +1,23 @@
 // RINEX clock reader, versions 2.00–3.05 (Ray & Gurtner 2.00/3.02, with Coleman 3.04; column layout in
 // packages/sdk/src/io/rinex-clock.ts). Fixtures: test/fixtures/rinex-clock/generate_versions.py (SOURCE.md).
-import fc from 'fast-check';
+
 import { readFileSync } from 'node:fs';
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { InvalidArgumentError, ParseError, TaulineError } from '../../src/errors.js';
-import { expectParseError, parseError } from './parse-errors.js';
 import {
-  RinexClockParser, parseRinexClock, readRinexClock, readRinexClockSeries, rinexClockSeries, type RinexClockEvent,
+  parseRinexClock,
+  type RinexClockEvent,
+  RinexClockParser,
+  readRinexClock,
+  readRinexClockSeries,
+  rinexClockSeries,
 } from '../../src/io/index.js';
 import { MAX_SERIES_SAMPLES } from '../../src/io/limits.js';
+import { expectParseError, parseError } from './parse-errors.js';
 
-const fixture = (name: string) => readFileSync(new URL(`../../../../test/fixtures/rinex-clock/${name}`, import.meta.url), 'utf8');
+const fixture = (name: string) =>
+  readFileSync(new URL(`../../../../test/fixtures/rinex-clock/${name}`, import.meta.url), 'utf8');
 const V200 = fixture('fictional-200.clk');
 const V302 = fixture('fictional-302.clk');
 const V304 = fixture('fictional-304.clk');
@@ -33,13 +40,34 @@ describe('parseRinexClock: the four layouts (RINEX clock 2.00, 3.02, 3.04, 3.05)
   it('parseRinexClock(3.04 file) reads version, A9 layout, system, TIME SYSTEM ID and the AS/AR records with all their values', () => {
     const f = parseRinexClock(V304, { sourceName: 'fictional-304.clk' });
     expect(f.header).toEqual({
-      version: 3.04, layout: 'A9', satelliteSystem: 'G', timeSystem: 'GPS', epochTimeSystem: 'GPS', timeSystemAssumed: false, lines: 6,
+      version: 3.04,
+      layout: 'A9',
+      satelliteSystem: 'G',
+      timeSystem: 'GPS',
+      epochTimeSystem: 'GPS',
+      timeSystemAssumed: false,
+      lines: 6,
     });
     expect(f.records.length).toBe(5);
     expect(f.otherRecords).toEqual({ CR: 1 });
-    expect(f.records[1]).toMatchObject({ type: 'AR', name: 'KLMN00XYZ', bias: 0.512e-6, biasSigma: 0.2e-10, rate: 0.1e-12, rateSigma: 0.3e-14,
-      acceleration: -0.1e-17, accelerationSigma: 0.1e-18, line: 8 });
-    expect(f.records[2]).toMatchObject({ type: 'AS', name: 'G05', bias: -0.123456789e-3, biasSigma: undefined, line: 10 });
+    expect(f.records[1]).toMatchObject({
+      type: 'AR',
+      name: 'KLMN00XYZ',
+      bias: 0.512e-6,
+      biasSigma: 0.2e-10,
+      rate: 0.1e-12,
+      rateSigma: 0.3e-14,
+      acceleration: -0.1e-17,
+      accelerationSigma: 0.1e-18,
+      line: 8,
+    });
+    expect(f.records[2]).toMatchObject({
+      type: 'AS',
+      name: 'G05',
+      bias: -0.123456789e-3,
+      biasSigma: undefined,
+      line: 10,
+    });
     expect(f.records[2]!.time).toEqual({ year: 2026, month: 1, day: 4, hour: 0, minute: 0, second: 30 });
     // 2026-01-04T00:00:30 GPS = TAI − 19 s (BIPM: GPS time is 19 s behind TAI [V2]); days from 2000-01-01 by the
     // JavaScript Date's own proleptic Gregorian count (independent of the SDK calendar).
@@ -48,15 +76,33 @@ describe('parseRinexClock: the four layouts (RINEX clock 2.00, 3.02, 3.04, 3.05)
   });
   it('parseRinexClock(2.00 file) reads A4 names, a 4-value record with its continuation line, and no time system', () => {
     const f = parseRinexClock(V200);
-    expect(f.header).toMatchObject({ version: 2, layout: 'A4', satelliteSystem: undefined, timeSystem: undefined, epochTimeSystem: 'GPS', timeSystemAssumed: true });
-    expect(f.records.slice(0, 3).map((r) => [r.name, r.rate, r.rateSigma])).toEqual([['QRST', undefined, undefined], ['QRST', 0.1e-12, 0.3e-14], ['G12', undefined, undefined]]);
+    expect(f.header).toMatchObject({
+      version: 2,
+      layout: 'A4',
+      satelliteSystem: undefined,
+      timeSystem: undefined,
+      epochTimeSystem: 'GPS',
+      timeSystemAssumed: true,
+    });
+    expect(f.records.slice(0, 3).map((r) => [r.name, r.rate, r.rateSigma])).toEqual([
+      ['QRST', undefined, undefined],
+      ['QRST', 0.1e-12, 0.3e-14],
+      ['G12', undefined, undefined],
+    ]);
     expect(rinexClockSeries(f, 'G12')).toMatchObject({ tau0: 300, missing: 0, timeSystem: undefined });
   });
   it('parseRinexClock(3.02 file) reads a mixed-system A4 file with Galileo and BeiDou satellites and continuation lines', () => {
     const f = parseRinexClock(V302);
     expect(f.header).toMatchObject({ version: 3.02, layout: 'A4', satelliteSystem: 'M', timeSystem: 'GPS', lines: 6 });
     expect(f.records).toHaveLength(48);
-    expect(f.records[1]).toMatchObject({ name: 'C21', bias: -0.5e-4, biasSigma: 0.3e-10, rate: -0.333e-12, rateSigma: 0.2e-14, line: 8 });
+    expect(f.records[1]).toMatchObject({
+      name: 'C21',
+      bias: -0.5e-4,
+      biasSigma: 0.3e-10,
+      rate: -0.333e-12,
+      rateSigma: 0.2e-14,
+      line: 8,
+    });
     expect(f.records[3]).toMatchObject({ name: 'E14', line: 11 });
   });
   it('parseRinexClock(3.05 file) reads it with the 3.04 layout: 6-value records, GAL time, epochs across a month end', () => {
@@ -66,7 +112,10 @@ describe('parseRinexClock: the four layouts (RINEX clock 2.00, 3.02, 3.04, 3.05)
     expect(e27.map((r) => r.accelerationSigma)).toEqual(Array(8).fill(0.1e-19));
     expect(e27[4]!.time).toEqual({ year: 2026, month: 7, day: 1, hour: 0, minute: 0, second: 0 });
     // Galileo System Time − TAI = −19 s (Galileo OS SIS ICD §5.1.2 as quoted [V2]); Date.UTC counts the days.
-    expect(e27[4]!.epoch.toJSON()).toEqual({ taiSeconds: (Date.UTC(2026, 6, 1) - Date.UTC(2000, 0, 1)) / 1000 + 19, taiFraction: 0 });
+    expect(e27[4]!.epoch.toJSON()).toEqual({
+      taiSeconds: (Date.UTC(2026, 6, 1) - Date.UTC(2000, 0, 1)) / 1000 + 19,
+      taiFraction: 0,
+    });
     const s = rinexClockSeries(f, 'E27');
     expect([s.tau0, s.phase.length, s.missing, s.timeSystem]).toEqual([30, 8, 0, 'GAL']);
   });
@@ -93,8 +142,12 @@ describe('readRinexClock / RinexClockParser: the streaming event API (as readSp3
     const events = await collect(readRinexClock(chunks(), { sourceName: 'x' }));
     const file = parseRinexClock(V304, { sourceName: 'x' });
     expect(events[0]).toEqual({ kind: 'header', header: file.header });
-    expect(events.filter((e) => e.kind === 'record').map((e) => (e as { record: unknown }).record)).toEqual(file.records);
-    expect(events.filter((e) => e.kind === 'other')).toEqual([{ kind: 'other', recordType: 'CR', name: 'KLMN00XYZ', line: 11 }]);
+    expect(events.filter((e) => e.kind === 'record').map((e) => (e as { record: unknown }).record)).toEqual(
+      file.records,
+    );
+    expect(events.filter((e) => e.kind === 'other')).toEqual([
+      { kind: 'other', recordType: 'CR', name: 'KLMN00XYZ', line: 11 },
+    ]);
   });
   it('RinexClockParser.push(line) returns a record event on the line that completes it (continuation lines included)', () => {
     const p = new RinexClockParser({ sourceName: 'p' });
@@ -103,7 +156,10 @@ describe('readRinexClock / RinexClockParser: the streaming event API (as readSp3
     expect(p.push({ text: lines[5]!, lineNumber: 6 })[0]!.kind).toBe('header');
     expect(p.push({ text: lines[6]!, lineNumber: 7 })[0]!.kind).toBe('record');
     expect(p.push({ text: lines[7]!, lineNumber: 8 })).toEqual([]);
-    expect(p.push({ text: lines[8]!, lineNumber: 9 })[0]).toMatchObject({ kind: 'record', record: { name: 'KLMN00XYZ', line: 8 } });
+    expect(p.push({ text: lines[8]!, lineNumber: 9 })[0]).toMatchObject({
+      kind: 'record',
+      record: { name: 'KLMN00XYZ', line: 8 },
+    });
     expect(p.finish()).toEqual([]);
   });
   it('readRinexClockSeries(chunks, name) streams the file, keeps one clock and equals rinexClockSeries(parseRinexClock(text), name)', async () => {
@@ -119,31 +175,101 @@ describe('parseRinexClock: refusals with file:line:column (fixed columns of the 
   const in200 = (...records: string[]) => parseRinexClock(`${H200}\n${records.join('\n')}\n`, src);
 
   it('parseRinexClock refuses a record cut inside the bias value (… 1   -0.1234) instead of reading a different number', () => {
-    expectParseError(() => in304('AS G05       2026 01 04 00 00  0.000000  1   -0.1234'), 7, 46, /^c\.clk:7:46: expected clock bias \(s\) \(value 1 of 1, E19\.12 in columns 46-64\): a complete number in exponent form/);
-    expectParseError(() => in200('AS G12  2026 01 04 00 05  0.000000  1   -0.1234'), 4, 41, /clock bias \(s\) \(value 1 of 1, E19\.12 in columns 41-59\)/);
-    expectParseError(() => in304('AS G05       2026 01 04 00 00  0.000000  1   -0.123456789012E-0'), 7, 46, /exponent form/);
+    expectParseError(
+      () => in304('AS G05       2026 01 04 00 00  0.000000  1   -0.1234'),
+      7,
+      46,
+      /^c\.clk:7:46: expected clock bias \(s\) \(value 1 of 1, E19\.12 in columns 46-64\): a complete number in exponent form/,
+    );
+    expectParseError(
+      () => in200('AS G12  2026 01 04 00 05  0.000000  1   -0.1234'),
+      4,
+      41,
+      /clock bias \(s\) \(value 1 of 1, E19\.12 in columns 41-59\)/,
+    );
+    expectParseError(
+      () => in304('AS G05       2026 01 04 00 00  0.000000  1   -0.123456789012E-0'),
+      7,
+      46,
+      /exponent form/,
+    );
   });
   it('parseRinexClock refuses a record cut inside or before the sigma field', () => {
-    expectParseError(() => in304(AS304.slice(0, 75)), 7, 68, /bias sigma \(s\) \(value 2 of 2, E19\.12 in columns 67-85\): a complete number in exponent form/);
-    expectParseError(() => in304(AS304.slice(0, 64)), 7, 65, /bias sigma \(s\) \(value 2 of 2.*the line ends before it \(record cut\)/);
-    expectParseError(() => in200(AS200.slice(0, 70)), 4, 62, /bias sigma \(s\) \(value 2 of 2, E19\.12 in columns 61-79\)/);
+    expectParseError(
+      () => in304(AS304.slice(0, 75)),
+      7,
+      68,
+      /bias sigma \(s\) \(value 2 of 2, E19\.12 in columns 67-85\): a complete number in exponent form/,
+    );
+    expectParseError(
+      () => in304(AS304.slice(0, 64)),
+      7,
+      65,
+      /bias sigma \(s\) \(value 2 of 2.*the line ends before it \(record cut\)/,
+    );
+    expectParseError(
+      () => in200(AS200.slice(0, 70)),
+      4,
+      62,
+      /bias sigma \(s\) \(value 2 of 2, E19\.12 in columns 61-79\)/,
+    );
   });
   it('parseRinexClock refuses a value outside its field, more values than declared, and a continuation line cut or misplaced', () => {
-    expectParseError(() => in304('AS G05       2026 01 04 00 00  0.000000  1     -0.123456789012E-03'), 7, 48, /a field ending in column 64; it ends in column 66/);
-    expectParseError(() => in304('AS G05       2026 01 04 00 00  0.000000  1   -0.123456789012E-03   0.100000000000E-10'), 7, 68, /no more than 1 value\(s\) on this line/);
+    expectParseError(
+      () => in304('AS G05       2026 01 04 00 00  0.000000  1     -0.123456789012E-03'),
+      7,
+      48,
+      /a field ending in column 64; it ends in column 66/,
+    );
+    expectParseError(
+      () => in304('AS G05       2026 01 04 00 00  0.000000  1   -0.123456789012E-03   0.100000000000E-10'),
+      7,
+      68,
+      /no more than 1 value\(s\) on this line/,
+    );
     const rec3 = 'AS G05       2026 01 04 00 00  0.000000  3   -0.123456789012E-03   0.100000000000E-10';
-    expectParseError(() => in304(rec3, '    0.1000'), 8, 5, /clock rate \(value 3 of 3, E19\.12 in columns 4-22\) \(continuation of the record on line 7\)/);
+    expectParseError(
+      () => in304(rec3, '    0.1000'),
+      8,
+      5,
+      /clock rate \(value 3 of 3, E19\.12 in columns 4-22\) \(continuation of the record on line 7\)/,
+    );
     expectParseError(() => in304(rec3, '0.100000000000E-12'), 8, 1, /it ends in column 18/);
     expectParseError(() => in304(rec3), 8, undefined, /continuation line of the record on line 7/);
   });
   it('parseRinexClock refuses bad fixed fields: record type, name, epoch, number of values', () => {
-    expectParseError(() => in304('XX' + AS304.slice(2)), 7, 1, /record type AS, AR, CR, DR or MS/);
-    expectParseError(() => in304('AS G05 2026 01 04 00 00  0.000000  1   -0.1E-03'), 7, 4, /name in columns 4-12 \(A9, RINEX clock 3\.04\)/);
-    expectParseError(() => in304(AS304.replace('2026 01', '20x6 01')), 7, 14, /epoch year \(an integer in columns 14-17\)/);
-    expectParseError(() => in200('AS G12 2026 01 04 00 05  0.000000  1    0.456700000000E-04'), 4, 4, /name in columns 4-7 \(A4, RINEX clock 2\.00\) followed by a blank/);
+    expectParseError(() => in304(`XX${AS304.slice(2)}`), 7, 1, /record type AS, AR, CR, DR or MS/);
+    expectParseError(
+      () => in304('AS G05 2026 01 04 00 00  0.000000  1   -0.1E-03'),
+      7,
+      4,
+      /name in columns 4-12 \(A9, RINEX clock 3\.04\)/,
+    );
+    expectParseError(
+      () => in304(AS304.replace('2026 01', '20x6 01')),
+      7,
+      14,
+      /epoch year \(an integer in columns 14-17\)/,
+    );
+    expectParseError(
+      () => in200('AS G12 2026 01 04 00 05  0.000000  1    0.456700000000E-04'),
+      4,
+      4,
+      /name in columns 4-7 \(A4, RINEX clock 2\.00\) followed by a blank/,
+    );
     expectParseError(() => in304(AS304.replace('2026 01 04', '2026 13 04')), 7, 14, /valid epoch/);
-    expectParseError(() => in304(AS304.replace('  2   -0.1', '  7   -0.1')), 7, 40, /number of data values from 1 to 6 in columns 40-42/);
-    expectParseError(() => in304(AS304.replace(' 0.000000', ' 0.0000x0')), 7, 30, /epoch second \(F10\.6 in columns 30-39\)/);
+    expectParseError(
+      () => in304(AS304.replace('  2   -0.1', '  7   -0.1')),
+      7,
+      40,
+      /number of data values from 1 to 6 in columns 40-42/,
+    );
+    expectParseError(
+      () => in304(AS304.replace(' 0.000000', ' 0.0000x0')),
+      7,
+      30,
+      /epoch second \(F10\.6 in columns 30-39\)/,
+    );
   });
   it('parseRinexClock never lets a lone CR after END OF HEADER swallow the next record: refused at 6:79, or read as a line end', () => {
     // Which of the two happens depends on the shared LineSplitter (io/line-reader.ts, owned elsewhere): if it ends
@@ -157,7 +283,9 @@ describe('parseRinexClock: refusals with file:line:column (fixed columns of the 
     } catch (e) {
       expect(e).toBeInstanceOf(ParseError);
       expect([(e as ParseError).line, (e as ParseError).column]).toEqual([6, 79]);
-      expect((e as ParseError).message).toMatch(/a line end of LF or CR LF \(a lone CR inside a line would merge two lines\)/);
+      expect((e as ParseError).message).toMatch(
+        /a line end of LF or CR LF \(a lone CR inside a line would merge two lines\)/,
+      );
     }
     if (file) expect(file.records).toEqual(parseRinexClock(V304, src).records);
   });
@@ -168,11 +296,31 @@ describe('parseRinexClock: refusals with file:line:column (fixed columns of the 
   it('parseRinexClock refuses a bad header: no version line, wrong type or version, a missing END OF HEADER, an empty TIME SYSTEM ID', () => {
     expectParseError(() => parseRinexClock('hello\n', src), 1, 61, /RINEX VERSION \/ TYPE/);
     expect(parseError(() => parseRinexClock('')).line).toBe(1);
-    expectParseError(() => parseRinexClock('     3.02           O                   G                   RINEX VERSION / TYPE\n', src), 1, 21, /file type "C"/);
-    expectParseError(() => parseRinexClock('     4.00           C                   G                   RINEX VERSION / TYPE\n', src), 1, 6, /version from 2\.00 to 3\.05/);
-    expectParseError(() => parseRinexClock(H304.split('\n')[0]! + '\n', src), 2, undefined, /END OF HEADER/);
-    expectParseError(() => parseRinexClock(`${H304.split('\n')[0]}\n${''.padEnd(65)}TIME SYSTEM ID\n`, src), 2, 4, /time system identifier/);
-    expectParseError(() => parseRinexClock(`${H304.split('\n')[0]}\nAS G05 stray line\n`, src), 2, 61, /a header label from column 61/);
+    expectParseError(
+      () => parseRinexClock('     3.02           O                   G                   RINEX VERSION / TYPE\n', src),
+      1,
+      21,
+      /file type "C"/,
+    );
+    expectParseError(
+      () => parseRinexClock('     4.00           C                   G                   RINEX VERSION / TYPE\n', src),
+      1,
+      6,
+      /version from 2\.00 to 3\.05/,
+    );
+    expectParseError(() => parseRinexClock(`${H304.split('\n')[0]!}\n`, src), 2, undefined, /END OF HEADER/);
+    expectParseError(
+      () => parseRinexClock(`${H304.split('\n')[0]}\n${''.padEnd(65)}TIME SYSTEM ID\n`, src),
+      2,
+      4,
+      /time system identifier/,
+    );
+    expectParseError(
+      () => parseRinexClock(`${H304.split('\n')[0]}\nAS G05 stray line\n`, src),
+      2,
+      61,
+      /a header label from column 61/,
+    );
   });
 });
 
@@ -196,9 +344,16 @@ describe('rinexClockSeries / readRinexClockSeries: one clock on a uniform grid, 
     // Asking for a clock the file does not hold is an argument error, not a fault of the file.
     expect(unknownClock).toBeInstanceOf(InvalidArgumentError);
     expect((unknownClock as InvalidArgumentError).argument).toBe('name');
-    expect((unknownClock as InvalidArgumentError).message).toMatch(/rinex-clock holds; received "E11"\. The clocks present: G05, KLMN00XYZ$/);
+    expect((unknownClock as InvalidArgumentError).message).toMatch(
+      /rinex-clock holds; received "E11"\. The clocks present: G05, KLMN00XYZ$/,
+    );
     const text = `${H304}\n${AS304}\n${AS304}\n`;
-    expectParseError(() => rinexClockSeries(parseRinexClock(text, src), 'G05'), 8, 4, /epoch later than the previous G05 record \(line 7\)/);
+    expectParseError(
+      () => rinexClockSeries(parseRinexClock(text, src), 'G05'),
+      8,
+      4,
+      /epoch later than the previous G05 record \(line 7\)/,
+    );
     const both = `${H304}\n${AS304}\n${AS304.replace('AS', 'AR').replace(' 0.000000', '30.000000')}\n`;
     expectParseError(() => rinexClockSeries(parseRinexClock(both, src), 'G05'), 8, 1, /both AS and AR/);
   });
@@ -215,7 +370,9 @@ describe('rinexClockSeries / readRinexClockSeries: one clock on a uniform grid, 
     expect(caught).toBeInstanceOf(ParseError);
     const e = caught as ParseError;
     expect([e.sourceName, e.line]).toEqual(['s.clk', 9]);
-    expect(e.message).toContain(`at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES): the gap of ${gap} s after line 8 is `);
+    expect(e.message).toContain(
+      `at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES): the gap of ${gap} s after line 8 is `,
+    );
     expect(e.message).toMatch(/steps of tau0 = 30 s/);
     expectParseError(() => rinexClockSeries(parseRinexClock(text, src), 'G05'), 9, 1, /MAX_SERIES_SAMPLES/);
   });
@@ -225,7 +382,8 @@ describe('rinexClockSeries / readRinexClockSeries: one clock on a uniform grid, 
       yield `${H304}\n${AS304}\n`;
       for (let k = 0; k < 500; k++) {
         let chunk = '';
-        for (let j = 0; j < 100; j++) chunk += `${AS304.replace('G05      ', `G${String(10 + (j % 80)).padStart(2, '0')}      `)}\n`;
+        for (let j = 0; j < 100; j++)
+          chunk += `${AS304.replace('G05      ', `G${String(10 + (j % 80)).padStart(2, '0')}      `)}\n`;
         pulled++;
         yield chunk;
       }
@@ -251,20 +409,29 @@ describe('parseRinexClock: seeded mutation guard per layout (2000 inputs each)',
       const s = rinexClockSeries(f, first.name, { type: first.type });
       // A plain loop: a mutated seconds field can make a legal series of millions of samples.
       let finite = true;
-      for (let i = 0; i < s.times.length; i++) finite &&= Number.isFinite(s.times[i]!) && (s.phase[i] === s.phase[i] ? Number.isFinite(s.phase[i]!) : true);
+      for (let i = 0; i < s.times.length; i++)
+        finite &&= Number.isFinite(s.times[i]!) && (s.phase[i] === s.phase[i] ? Number.isFinite(s.phase[i]!) : true);
       expect(finite).toBe(true);
     }
   }
-  for (const [name, text] of [['2.00', V200], ['3.02', V302], ['3.04', V304], ['3.05', V305]] as const) {
+  for (const [name, text] of [
+    ['2.00', V200],
+    ['3.02', V302],
+    ['3.04', V304],
+    ['3.05', V305],
+  ] as const) {
     it(`parseRinexClock(mutated ${name} file) returns finite values or throws a Tauline error, for 2000 seeded mutations`, () => {
-      fc.assert(fc.property(fc.nat({ max: 1 << 20 }), fc.constantFrom(...pieces), fc.nat({ max: 4 }), (pos, piece, del) => {
-        const at = pos % text.length;
-        try {
-          check(text.slice(0, at) + piece + text.slice(at + del));
-        } catch (e) {
-          if (!(e instanceof TaulineError)) throw e;
-        }
-      }), { seed: 20261203, numRuns: 2000 });
+      fc.assert(
+        fc.property(fc.nat({ max: 1 << 20 }), fc.constantFrom(...pieces), fc.nat({ max: 4 }), (pos, piece, del) => {
+          const at = pos % text.length;
+          try {
+            check(text.slice(0, at) + piece + text.slice(at + del));
+          } catch (e) {
+            if (!(e instanceof TaulineError)) throw e;
+          }
+        }),
+        { seed: 20261203, numRuns: 2000 },
+      );
     });
   }
 });

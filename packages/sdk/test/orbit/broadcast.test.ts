@@ -1,26 +1,55 @@
-import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
-import {
-  evaluateBroadcastEphemeris, isBeidouGeostationary, selectEphemeris, systemConstants, weekCrossover,
-  type KeplerianBroadcastEphemeris,
-} from '../../src/orbit/broadcast.js';
-import { propagateKeplerState } from '../../src/orbit/propagate.js';
-import { parseRinexNav } from '../../src/io/rinex-nav.js';
+import { describe, expect, it } from 'vitest';
 import { BEIDOU_ICD, GALILEO_ICD, GPS_ICD, SPEED_OF_LIGHT } from '../../src/constants.js';
 import { InvalidArgumentError } from '../../src/errors.js';
+import { parseRinexNav } from '../../src/io/rinex-nav.js';
+import {
+  evaluateBroadcastEphemeris,
+  isBeidouGeostationary,
+  type KeplerianBroadcastEphemeris,
+  selectEphemeris,
+  systemConstants,
+  weekCrossover,
+} from '../../src/orbit/broadcast.js';
+import { propagateKeplerState } from '../../src/orbit/propagate.js';
 
 const WEEK_2296 = 2296 * 604800;
-const NAV = parseRinexNav(readFileSync(new URL('../../../../test/fixtures/rinex-nav/mixed-v305.rnx', import.meta.url), 'utf8'));
+const NAV = parseRinexNav(
+  readFileSync(new URL('../../../../test/fixtures/rinex-nav/mixed-v305.rnx', import.meta.url), 'utf8'),
+);
 const record = (sat: string, k = 0) => NAV.ephemerides.filter((e) => e.satellite === sat)[k]!;
 
 /** A GPS record with no perturbation terms: the user algorithm reduces to a two-body orbit. */
 function twoBody(overrides: Partial<KeplerianBroadcastEphemeris> = {}): KeplerianBroadcastEphemeris {
   return {
-    satellite: 'G01', system: 'G', message: 'LNAV', tocSeconds: WEEK_2296 + 7200, toeSeconds: WEEK_2296 + 7200,
-    af0: 0, af1: 0, af2: 0, issueOfData: 1, sqrtA: 5153.79589081, eccentricity: 0.0123456789, m0: 0.7, deltaN: 0,
-    omega0: 1.3, i0: 0.96, argumentOfPerigee: -0.4, omegaDot: 0, idot: 0, cuc: 0, cus: 0, cic: 0, cis: 0, crc: 0, crs: 0,
-    health: 0, fitIntervalSeconds: 14400, ...overrides,
+    satellite: 'G01',
+    system: 'G',
+    message: 'LNAV',
+    tocSeconds: WEEK_2296 + 7200,
+    toeSeconds: WEEK_2296 + 7200,
+    af0: 0,
+    af1: 0,
+    af2: 0,
+    issueOfData: 1,
+    sqrtA: 5153.79589081,
+    eccentricity: 0.0123456789,
+    m0: 0.7,
+    deltaN: 0,
+    omega0: 1.3,
+    i0: 0.96,
+    argumentOfPerigee: -0.4,
+    omegaDot: 0,
+    idot: 0,
+    cuc: 0,
+    cus: 0,
+    cic: 0,
+    cis: 0,
+    crc: 0,
+    crs: 0,
+    health: 0,
+    fitIntervalSeconds: 14400,
+    ...overrides,
   };
 }
 
@@ -34,10 +63,18 @@ describe('evaluateBroadcastEphemeris: independent checks of the interface-spec a
     for (const tk of [-7200, -1800, 0, 950, 7200]) {
       const got = evaluateBroadcastEphemeris(eph, eph.toeSeconds + tk).state;
       // Inertial frame = Earth-fixed frame at the start of the week: node Ω0, then rotate by θ = Ω_E (t_oe + t_k).
-      const inertial = propagateKeplerState({
-        semiMajorAxis: eph.sqrtA ** 2, eccentricity: eph.eccentricity, inclination: eph.i0, raan: eph.omega0,
-        argumentOfPerigee: eph.argumentOfPerigee, meanAnomaly: eph.m0,
-      }, tk, GPS_ICD.gm);
+      const inertial = propagateKeplerState(
+        {
+          semiMajorAxis: eph.sqrtA ** 2,
+          eccentricity: eph.eccentricity,
+          inclination: eph.i0,
+          raan: eph.omega0,
+          argumentOfPerigee: eph.argumentOfPerigee,
+          meanAnomaly: eph.m0,
+        },
+        tk,
+        GPS_ICD.gm,
+      );
       const theta = GPS_ICD.earthRotationRate * (toeOfWeek + tk);
       const c = Math.cos(theta);
       const s = Math.sin(theta);
@@ -65,12 +102,19 @@ describe('evaluateBroadcastEphemeris: independent checks of the interface-spec a
   });
 
   it('evaluateBroadcastEphemeris(two-body record, t) gives −2 r·v/c² (Earth-fixed) = F e √A sin E_k (IERS 2010 eqs. 10.10–10.11 [V1]; ECEF r·v = inertial r·v, physics-refs §13.3)', () => {
-    fc.assert(fc.property(fc.double({ min: -7200, max: 7200, noNaN: true }), fc.double({ min: 0, max: 0.2, noNaN: true }), (tk, e) => {
-      const eph = twoBody({ eccentricity: e });
-      const ev = evaluateBroadcastEphemeris(eph, eph.toeSeconds + tk);
-      const fromState = (-2 * dot(ev.state.position, ev.state.velocity)) / SPEED_OF_LIGHT ** 2;
-      expect(Math.abs(fromState - ev.relativisticSeconds)).toBeLessThan(2e-17);
-    }), { seed: 20261202, numRuns: 200 });
+    fc.assert(
+      fc.property(
+        fc.double({ min: -7200, max: 7200, noNaN: true }),
+        fc.double({ min: 0, max: 0.2, noNaN: true }),
+        (tk, e) => {
+          const eph = twoBody({ eccentricity: e });
+          const ev = evaluateBroadcastEphemeris(eph, eph.toeSeconds + tk);
+          const fromState = (-2 * dot(ev.state.position, ev.state.velocity)) / SPEED_OF_LIGHT ** 2;
+          expect(Math.abs(fromState - ev.relativisticSeconds)).toBeLessThan(2e-17);
+        },
+      ),
+      { seed: 20261202, numRuns: 200 },
+    );
   });
 
   it('evaluateBroadcastEphemeris(record, t) with harmonic corrections keeps −2 r·v/c² within 0.05 ns of F e √A sin E_k (the corrections shift r·v by ~0.01 ns)', () => {
@@ -78,7 +122,10 @@ describe('evaluateBroadcastEphemeris: independent checks of the interface-spec a
     for (const eph of [record('G05'), record('G07'), record('E11'), record('C08'), record('C03'), record('C21')]) {
       for (let tk = -7200; tk <= 7200; tk += 900) {
         const ev = evaluateBroadcastEphemeris(eph, eph.toeSeconds + tk);
-        worst = Math.max(worst, Math.abs((-2 * dot(ev.state.position, ev.state.velocity)) / SPEED_OF_LIGHT ** 2 - ev.relativisticSeconds));
+        worst = Math.max(
+          worst,
+          Math.abs((-2 * dot(ev.state.position, ev.state.velocity)) / SPEED_OF_LIGHT ** 2 - ev.relativisticSeconds),
+        );
       }
     }
     expect(worst).toBeLessThan(5e-11);
@@ -125,7 +172,7 @@ describe('evaluateBroadcastEphemeris: independent checks of the interface-spec a
     expect(weekCrossover(1800 - g11.toeSecondsOfWeek)).toBe(9000);
   });
 
-  it('evaluateBroadcastEphemeris(record, t) uses each system\'s F: GPS −4.442807633e-10, Galileo/BeiDou −4.442807309e-10 s/√m (physics-refs §3, §6, §13.1 [C])', () => {
+  it("evaluateBroadcastEphemeris(record, t) uses each system's F: GPS −4.442807633e-10, Galileo/BeiDou −4.442807309e-10 s/√m (physics-refs §3, §6, §13.1 [C])", () => {
     expect(systemConstants('G')).toBe(GPS_ICD);
     expect(systemConstants('E')).toBe(GALILEO_ICD);
     expect(systemConstants('C')).toBe(BEIDOU_ICD);
@@ -135,18 +182,27 @@ describe('evaluateBroadcastEphemeris: independent checks of the interface-spec a
     const E = evaluateBroadcastEphemeris(g, g.toeSeconds).eccentricAnomaly;
     expect(rg).toBeCloseTo(-4.442807633393e-10 * g.eccentricity * g.sqrtA * Math.sin(E), 20);
     const Ee = evaluateBroadcastEphemeris(e, e.toeSeconds).eccentricAnomaly;
-    expect(evaluateBroadcastEphemeris(e, e.toeSeconds).relativisticSeconds).toBeCloseTo(-4.442807309044e-10 * e.eccentricity * e.sqrtA * Math.sin(Ee), 20);
+    expect(evaluateBroadcastEphemeris(e, e.toeSeconds).relativisticSeconds).toBeCloseTo(
+      -4.442807309044e-10 * e.eccentricity * e.sqrtA * Math.sin(Ee),
+      20,
+    );
   });
 
   it('evaluateBroadcastEphemeris(ephemeris, t) rejects a non-finite t, e ≥ 1, √A given with A in km, a NaN field and an unknown system', () => {
     const eph = twoBody();
     expect(() => evaluateBroadcastEphemeris(eph, Number.NaN)).toThrow(InvalidArgumentError);
-    expect(() => evaluateBroadcastEphemeris(twoBody({ eccentricity: 1 }), eph.toeSeconds)).toThrow(/eccentricity must be in \[0, 1\)/);
+    expect(() => evaluateBroadcastEphemeris(twoBody({ eccentricity: 1 }), eph.toeSeconds)).toThrow(
+      /eccentricity must be in \[0, 1\)/,
+    );
     expect(() => evaluateBroadcastEphemeris(twoBody({ eccentricity: -0.1 }), eph.toeSeconds)).toThrow(/eccentricity/);
-    expect(() => evaluateBroadcastEphemeris(twoBody({ sqrtA: 162.97 }), eph.toeSeconds)).toThrow(/did you give √A with A in kilometres/);
+    expect(() => evaluateBroadcastEphemeris(twoBody({ sqrtA: 162.97 }), eph.toeSeconds)).toThrow(
+      /did you give √A with A in kilometres/,
+    );
     expect(() => evaluateBroadcastEphemeris(twoBody({ cuc: Number.NaN }), eph.toeSeconds)).toThrow(/ephemeris\.cuc/);
     expect(() => evaluateBroadcastEphemeris(twoBody({ system: 'R' as 'G' }), eph.toeSeconds)).toThrow(/one of 'G'/);
-    expect(() => evaluateBroadcastEphemeris(null as unknown as KeplerianBroadcastEphemeris, 0)).toThrow(/broadcast ephemeris record/);
+    expect(() => evaluateBroadcastEphemeris(null as unknown as KeplerianBroadcastEphemeris, 0)).toThrow(
+      /broadcast ephemeris record/,
+    );
   });
 });
 
@@ -188,7 +244,12 @@ describe('selectEphemeris: nearest valid t_oe within the fit interval (common pr
     const e11 = NAV.ephemerides.filter((e) => e.satellite === 'E11');
     expect(selectEphemeris(e11, WEEK_2296)!.message).toBe('INAV');
     expect(selectEphemeris(e11, WEEK_2296, { galileoMessage: 'FNAV' })!.message).toBe('FNAV');
-    expect(selectEphemeris(e11.filter((e) => e.message === 'FNAV'), WEEK_2296)!.message).toBe('FNAV');
+    expect(
+      selectEphemeris(
+        e11.filter((e) => e.message === 'FNAV'),
+        WEEK_2296,
+      )!.message,
+    ).toBe('FNAV');
   });
   it('selectEphemeris(records, t) prefers the later transmission, then the higher issue of data, for equal t_oe', () => {
     const a = { ...g05[0]!, transmissionSeconds: WEEK_2296 - 100, issueOfData: 1 };

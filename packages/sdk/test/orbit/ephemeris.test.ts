@@ -1,14 +1,16 @@
 import { describe, expect, it } from 'vitest';
-import { moonPositionLowPrecision, sunPositionLowPrecision } from '../../src/orbit/ephemeris.js';
 import { InvalidArgumentError } from '../../src/errors.js';
+import { moonPositionLowPrecision, sunPositionLowPrecision } from '../../src/orbit/ephemeris.js';
 
 const DEG = Math.PI / 180;
 /** Equatorial-of-date vector → ecliptic-of-date longitude (deg), latitude (deg), distance (m). */
 function ecliptic(v: readonly number[], T: number): [number, number, number] {
   const eps = (23.43929111 - (46.815 / 3600) * T) * DEG;
-  const x = v[0]!, y = Math.cos(eps) * v[1]! + Math.sin(eps) * v[2]!, z = -Math.sin(eps) * v[1]! + Math.cos(eps) * v[2]!;
+  const x = v[0]!,
+    y = Math.cos(eps) * v[1]! + Math.sin(eps) * v[2]!,
+    z = -Math.sin(eps) * v[1]! + Math.cos(eps) * v[2]!;
   const r = Math.hypot(x, y, z);
-  return [((Math.atan2(y, x) / DEG) + 360) % 360, Math.asin(z / r) / DEG, r];
+  return [(Math.atan2(y, x) / DEG + 360) % 360, Math.asin(z / r) / DEG, r];
 }
 const seconds = (jd: number): number => (jd - 2451545.0) * 86400;
 
@@ -70,7 +72,11 @@ describe('low-precision Moon at recent epochs: argument reduction keeps the seri
   // Criterion (ours): the fourth differences of a smooth 60 s series of the lunar position are ≈ (ωh)⁴·r ≈ 3e-7 m plus
   // the float64 rounding of a 4e8 m coordinate (ulp 6e-8 m, amplified ≤ 16×); we require < 2e-5 m, i.e. rounding noise
   // below 5e-14 of the Earth–Moon distance. Before the reduction, angles of ≈ 10⁵° at 2023 left ≈ 3e-4 m of noise.
-  for (const [label, start] of [['2000-01-01', 1234.5], ['2023-01-01', 725_803_200.5], ['2040-07-01', 1_277_856_000.5]] as const) {
+  for (const [label, start] of [
+    ['2000-01-01', 1234.5],
+    ['2023-01-01', 725_803_200.5],
+    ['2040-07-01', 1_277_856_000.5],
+  ] as const) {
     it(`moonPositionLowPrecision near ${label} has fourth differences (h = 60 s, one day) below 2e-5 m (smooth to 5e-14 relative)`, () => {
       expect(worstFourthDifference(start)).toBeLessThan(2e-5);
     });

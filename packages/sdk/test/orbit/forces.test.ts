@@ -1,11 +1,22 @@
 import { describe, expect, it } from 'vitest';
-import { createGravityField, j2Potential, pointMassPotential, thirdBodyAcceleration, thirdBodyTidalPotential, GM_MOON } from '../../src/orbit/forces.js';
-import { moonPositionLowPrecision, sunPositionLowPrecision } from '../../src/orbit/ephemeris.js';
 import { IERS_2010, SPEED_OF_LIGHT_SQUARED } from '../../src/constants.js';
 import { InvalidArgumentError } from '../../src/errors.js';
+import { moonPositionLowPrecision, sunPositionLowPrecision } from '../../src/orbit/ephemeris.js';
+import {
+  createGravityField,
+  GM_MOON,
+  j2Potential,
+  pointMassPotential,
+  thirdBodyAcceleration,
+  thirdBodyTidalPotential,
+} from '../../src/orbit/forces.js';
 
 /** Central-difference gradient of the potential (independent check that acceleration = ∇U). */
-function gradient(f: (x: number, y: number, z: number) => number, p: [number, number, number], h: number): [number, number, number] {
+function gradient(
+  f: (x: number, y: number, z: number) => number,
+  p: [number, number, number],
+  h: number,
+): [number, number, number] {
   return [
     (f(p[0] + h, p[1], p[2]) - f(p[0] - h, p[1], p[2])) / (2 * h),
     (f(p[0], p[1] + h, p[2]) - f(p[0], p[1] - h, p[2])) / (2 * h),
@@ -27,7 +38,9 @@ describe('createGravityField(model): acceleration is the gradient of the clock p
 
   it('createGravityField rejects an unknown model and non-finite options', () => {
     expect(() => createGravityField('egm96' as never)).toThrow(/model must be one of/);
-    expect(() => createGravityField('full', { epochTtSecondsSinceJ2000: Number.NaN })).toThrow(/epochTtSecondsSinceJ2000/);
+    expect(() => createGravityField('full', { epochTtSecondsSinceJ2000: Number.NaN })).toThrow(
+      /epochTtSecondsSinceJ2000/,
+    );
     expect(() => createGravityField('full', { moonGm: -1 })).toThrow(/moonGm/);
     expect(() => createGravityField('full', { sunGm: 0 })).toThrow(/sunGm/);
   });
@@ -62,10 +75,14 @@ describe('potential terms', () => {
   });
 
   it('potential helpers reject the origin, non-finite vectors and non-positive GM', () => {
-    expect(() => pointMassPotential([0, 0, 0])).toThrow(/position must be a vector of length in \[1, 10000000000000\] m/);
+    expect(() => pointMassPotential([0, 0, 0])).toThrow(
+      /position must be a vector of length in \[1, 10000000000000\] m/,
+    );
     expect(() => j2Potential([Number.NaN, 0, 0])).toThrow(InvalidArgumentError);
     expect(() => pointMassPotential([1e7, 0, 0], -1)).toThrow(/gm/);
-    expect(() => thirdBodyTidalPotential([1e7, 0, 0], [0, 0, 0], GM_MOON)).toThrow(/bodyPosition must be a vector of length in \[1, 10000000000000\] m/);
+    expect(() => thirdBodyTidalPotential([1e7, 0, 0], [0, 0, 0], GM_MOON)).toThrow(
+      /bodyPosition must be a vector of length in \[1, 10000000000000\] m/,
+    );
     expect(() => thirdBodyAcceleration([1e7, 0, 0], [4e8, 0, 0], 0)).toThrow(/gmBody/);
   });
 });

@@ -1,16 +1,31 @@
 import { describe, expect, it } from 'vitest';
-import {
-  EARTH_ROTATION_ANGLE_RATE, earthRotationAngle, elevationFromStation, geodeticToEcef, j2SecularRates, predictPasses, propagateJ2Secular,
-  satellitePositionEcef, type KeplerianElements, type MeanOrbit,
-} from '../../src/orbit/index.js';
-import { WGS84_ELLIPSOID } from '../../src/relativity/index.js';
-import { createTimeScales, BUNDLED_LEAP_SECONDS } from '../../src/time/index.js';
 import { IERS_2010 } from '../../src/constants.js';
 import { InvalidArgumentError } from '../../src/errors.js';
+import {
+  EARTH_ROTATION_ANGLE_RATE,
+  earthRotationAngle,
+  elevationFromStation,
+  geodeticToEcef,
+  j2SecularRates,
+  type KeplerianElements,
+  type MeanOrbit,
+  predictPasses,
+  propagateJ2Secular,
+  satellitePositionEcef,
+} from '../../src/orbit/index.js';
+import { WGS84_ELLIPSOID } from '../../src/relativity/index.js';
+import { BUNDLED_LEAP_SECONDS, createTimeScales } from '../../src/time/index.js';
 
 const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
 const rad = (deg: number): number => (deg * Math.PI) / 180;
-const MEO: KeplerianElements = { semiMajorAxis: 28_410_000, eccentricity: 0.0021, inclination: rad(58.5), raan: rad(40), argumentOfPerigee: rad(75), meanAnomaly: rad(10) };
+const MEO: KeplerianElements = {
+  semiMajorAxis: 28_410_000,
+  eccentricity: 0.0021,
+  inclination: rad(58.5),
+  raan: rad(40),
+  argumentOfPerigee: rad(75),
+  meanAnomaly: rad(10),
+};
 
 describe('geodeticToEcef (WGS 84)', () => {
   it('geodeticToEcef(37.7749° N, 122.4194° W, 16 m) matches the worked example of the brahe documentation within 1 mm', () => {
@@ -31,7 +46,9 @@ describe('geodeticToEcef (WGS 84)', () => {
   });
 
   it('geodeticToEcef refuses a latitude in degrees, naming the field and the conversion', () => {
-    expect(() => geodeticToEcef({ latitude: 47.3, longitude: 0, height: 0 })).toThrow(/position\.latitude.*looks like degrees/s);
+    expect(() => geodeticToEcef({ latitude: 47.3, longitude: 0, height: 0 })).toThrow(
+      /position\.latitude.*looks like degrees/s,
+    );
     expect(() => geodeticToEcef({ latitude: 0, longitude: 0, height: Number.NaN })).toThrow(InvalidArgumentError);
   });
 });
@@ -39,7 +56,11 @@ describe('geodeticToEcef (WGS 84)', () => {
 describe('elevationFromStation', () => {
   const station = { latitude: rad(41.83), longitude: rad(23.05), height: 620 };
   const r = geodeticToEcef(station);
-  const up = [Math.cos(station.latitude) * Math.cos(station.longitude), Math.cos(station.latitude) * Math.sin(station.longitude), Math.sin(station.latitude)];
+  const up = [
+    Math.cos(station.latitude) * Math.cos(station.longitude),
+    Math.cos(station.latitude) * Math.sin(station.longitude),
+    Math.sin(station.latitude),
+  ];
 
   it('elevationFromStation(station, point along the ellipsoid normal) is 90°, and 0 along the local east', () => {
     // The geodetic normal (cos φ cos λ, cos φ sin λ, sin φ) is the local vertical (NIMA TR8350.2 §4 [M]).
@@ -51,8 +72,17 @@ describe('elevationFromStation', () => {
   });
 
   it('elevationFromStation(station at the sub-satellite point of an equatorial orbit) is 90° at that instant', () => {
-    const orbit: MeanOrbit = { epoch: ts.parseIso('2027-03-01T00:00:00Z', 'UTC'),
-      elements: { semiMajorAxis: 29_000_000, eccentricity: 0, inclination: 0, raan: 0, argumentOfPerigee: 0, meanAnomaly: 1 } };
+    const orbit: MeanOrbit = {
+      epoch: ts.parseIso('2027-03-01T00:00:00Z', 'UTC'),
+      elements: {
+        semiMajorAxis: 29_000_000,
+        eccentricity: 0,
+        inclination: 0,
+        raan: 0,
+        argumentOfPerigee: 0,
+        meanAnomaly: 1,
+      },
+    };
     const at = ts.parseIso('2027-03-01T05:17:00Z', 'UTC');
     const p = satellitePositionEcef(orbit, at, { timeScales: ts });
     expect(Math.abs(p[2])).toBeLessThan(1e-6);
@@ -67,7 +97,9 @@ describe('elevationFromStation', () => {
 
 describe('earthRotationAngle (IERS Conventions 2010 eq. 5.15 [M])', () => {
   it('earthRotationAngle(2000-01-01T12:00:00 UTC) is 2π·0.7790572732640 rad (J2000.0, UT1 taken as UTC)', () => {
-    expect(Math.abs(earthRotationAngle(ts.parseIso('2000-01-01T12:00:00Z', 'UTC'), ts) - 2 * Math.PI * 0.779057273264)).toBeLessThan(1e-12);
+    expect(
+      Math.abs(earthRotationAngle(ts.parseIso('2000-01-01T12:00:00Z', 'UTC'), ts) - 2 * Math.PI * 0.779057273264),
+    ).toBeLessThan(1e-12);
   });
 
   it('earthRotationAngle advances 2π·0.00273781191135448 rad per UT1 day and EARTH_ROTATION_ANGLE_RATE matches it', () => {
@@ -93,7 +125,14 @@ describe('j2SecularRates and propagateJ2Secular', () => {
   it('j2SecularRates gives the Sun-synchronous node rate (360° per tropical year) at i ≈ 98.60° for a circular 800 km orbit', () => {
     // Common practice: Sun-synchronous orbits near 800 km altitude fly at i ≈ 98.6° [M]; 98.603° from a scipy root of
     // the same formula with IERS 2010 constants [C].
-    const r = j2SecularRates({ semiMajorAxis: 6_378_137 + 800e3, eccentricity: 0, inclination: rad(98.603), raan: 0, argumentOfPerigee: 0, meanAnomaly: 0 });
+    const r = j2SecularRates({
+      semiMajorAxis: 6_378_137 + 800e3,
+      eccentricity: 0,
+      inclination: rad(98.603),
+      raan: 0,
+      argumentOfPerigee: 0,
+      meanAnomaly: 0,
+    });
     const target = (2 * Math.PI) / (365.2422 * 86_400);
     expect(Math.abs(r.raanRate - target) / target).toBeLessThan(1e-4);
   });
@@ -102,14 +141,20 @@ describe('j2SecularRates and propagateJ2Secular', () => {
     const dt = 3 * 86_400;
     const r = j2SecularRates(MEO);
     const p = propagateJ2Secular(MEO, dt);
-    expect([p.semiMajorAxis, p.eccentricity, p.inclination]).toEqual([MEO.semiMajorAxis, MEO.eccentricity, MEO.inclination]);
+    expect([p.semiMajorAxis, p.eccentricity, p.inclination]).toEqual([
+      MEO.semiMajorAxis,
+      MEO.eccentricity,
+      MEO.inclination,
+    ]);
     const turn = (x: number): number => ((x % (2 * Math.PI)) + 2 * Math.PI) % (2 * Math.PI);
     expect(Math.abs(p.raan - turn(MEO.raan + r.raanRate * dt))).toBeLessThan(1e-12);
     expect(Math.abs(p.meanAnomaly - turn(MEO.meanAnomaly + r.meanAnomalyRate * dt))).toBeLessThan(1e-9);
   });
 
   it('j2SecularRates recognises a semi-major axis given in kilometres', () => {
-    expect(() => j2SecularRates({ ...MEO, semiMajorAxis: 28_410 })).toThrow(/elements\.semiMajorAxis.*did you mean 28410 km/s);
+    expect(() => j2SecularRates({ ...MEO, semiMajorAxis: 28_410 })).toThrow(
+      /elements\.semiMajorAxis.*did you mean 28410 km/s,
+    );
     expect(() => j2SecularRates({ ...MEO, semiMajorAxis: 6_500_000, eccentricity: 0.1 })).toThrow(/perigee/);
   });
 });
@@ -135,7 +180,9 @@ describe('predictPasses', () => {
   it('predictPasses refuses elements more than 366 days from the window and a mask outside [0, π/2)', () => {
     const old: MeanOrbit = { epoch: ts.parseIso('2025-01-01T00:00:00Z', 'UTC'), elements: MEO };
     expect(() => predictPasses(old, [site], epoch, 86_400, { timeScales: ts })).toThrow(/orbit\.epoch/);
-    expect(() => predictPasses(orbit, [{ ...site, elevationMask: 10 }], epoch, 86_400)).toThrow(/sites\[0\]\.elevationMask/);
+    expect(() => predictPasses(orbit, [{ ...site, elevationMask: 10 }], epoch, 86_400)).toThrow(
+      /sites\[0\]\.elevationMask/,
+    );
     expect(() => predictPasses(orbit, [site], epoch, 86_400, { stepSeconds: 0 })).toThrow(/options\.stepSeconds/);
   });
 });

@@ -1,21 +1,35 @@
-import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { fractionalResolution, nearestTuningWord, offsetFrequency, tuningWordFrequency } from '../../src/oscillator/index.js';
+import { describe, expect, it } from 'vitest';
+import {
+  fractionalResolution,
+  nearestTuningWord,
+  offsetFrequency,
+  tuningWordFrequency,
+} from '../../src/oscillator/index.js';
 
 const SEED = 20261202;
 
 describe('offsetFrequency', () => {
   it('offsetFrequency(f0, y) returns f0(1 + y) and f0·y, with f0·y at full precision for tiny y (property)', () => {
-    fc.assert(fc.property(fc.double({ min: 1, max: 1e10, noNaN: true }), fc.double({ min: -1e-6, max: 1e-6, noNaN: true }), (f0, y) => {
-      const r = offsetFrequency(f0, y);
-      return r.offsetHz === f0 * y && Math.abs(r.offsetFrequencyHz - f0 * (1 + y)) <= 2 * Number.EPSILON * f0;
-    }), { seed: SEED, numRuns: 1000 });
+    fc.assert(
+      fc.property(
+        fc.double({ min: 1, max: 1e10, noNaN: true }),
+        fc.double({ min: -1e-6, max: 1e-6, noNaN: true }),
+        (f0, y) => {
+          const r = offsetFrequency(f0, y);
+          return r.offsetHz === f0 * y && Math.abs(r.offsetFrequencyHz - f0 * (1 + y)) <= 2 * Number.EPSILON * f0;
+        },
+      ),
+      { seed: SEED, numRuns: 1000 },
+    );
   });
 
   it('offsetFrequency rejects f0 ≤ 0, NaN and offsets outside (−1, 1)', () => {
     expect(() => offsetFrequency(0, 1e-10)).toThrow(/nominalFrequency must be in \[1, 1000000000000\] Hz; received 0/);
     expect(() => offsetFrequency(Number.NaN, 1e-10)).toThrow(/nominalFrequency/);
-    expect(() => offsetFrequency(10.23e6, -1)).toThrow(/fractionalOffset must be a finite fractional frequency offset Δf\/f in \(−1, 1\).*received -1/);
+    expect(() => offsetFrequency(10.23e6, -1)).toThrow(
+      /fractionalOffset must be a finite fractional frequency offset Δf\/f in \(−1, 1\).*received -1/,
+    );
     expect(() => offsetFrequency(10.23e6, Number.NaN)).toThrow(/fractionalOffset/);
     expect(() => offsetFrequency(10.23e6, 2)).toThrow(/fractionalOffset/);
   });
@@ -54,31 +68,55 @@ describe('nearestTuningWord', () => {
   });
 
   it('nearestTuningWord(word) is nearest: |error| ≤ resolution/2 and the neighbours are no closer, for every width 8..64 (property)', () => {
-    fc.assert(fc.property(fc.integer({ min: 8, max: 64 }), fc.double({ min: 1e6, max: 2e9, noNaN: true }), fc.double({ min: 0.01, max: 0.5, noNaN: true }),
-      (bits, clock, ratio) => {
-        const target = clock * ratio;
-        const r = nearestTuningWord({ targetFrequency: target, clockFrequency: clock, bits });
-        if (r.word <= 0n || r.word > 1n << BigInt(bits - 1)) return false;
-        expect(tuningWordFrequency(r.word, clock, bits)).toBe(r.achievedFrequencyHz);
-        const errHz = r.quantisationErrorFractional * target;
-        return Math.abs(errHz) <= r.resolutionHz * (0.5 + 1e-9) &&
-          Math.abs(r.resolutionHz / target - fractionalResolution(clock, bits, target)) <= 1e-15 * r.resolutionHz / target;
-      }), { seed: SEED, numRuns: 2000 });
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 8, max: 64 }),
+        fc.double({ min: 1e6, max: 2e9, noNaN: true }),
+        fc.double({ min: 0.01, max: 0.5, noNaN: true }),
+        (bits, clock, ratio) => {
+          const target = clock * ratio;
+          const r = nearestTuningWord({ targetFrequency: target, clockFrequency: clock, bits });
+          if (r.word <= 0n || r.word > 1n << BigInt(bits - 1)) return false;
+          expect(tuningWordFrequency(r.word, clock, bits)).toBe(r.achievedFrequencyHz);
+          const errHz = r.quantisationErrorFractional * target;
+          return (
+            Math.abs(errHz) <= r.resolutionHz * (0.5 + 1e-9) &&
+            Math.abs(r.resolutionHz / target - fractionalResolution(clock, bits, target)) <=
+              (1e-15 * r.resolutionHz) / target
+          );
+        },
+      ),
+      { seed: SEED, numRuns: 2000 },
+    );
   });
 
   it('nearestTuningWord rejects bad widths, frequencies above Nyquist, non-positive input and targets that round to word 0', () => {
-    expect(() => nearestTuningWord({ targetFrequency: 1e6, clockFrequency: 1e8, bits: 7 })).toThrow(/bits must be an integer in \[8, 64\]; received 7/);
+    expect(() => nearestTuningWord({ targetFrequency: 1e6, clockFrequency: 1e8, bits: 7 })).toThrow(
+      /bits must be an integer in \[8, 64\]; received 7/,
+    );
     expect(() => nearestTuningWord({ targetFrequency: 1e6, clockFrequency: 1e8, bits: 65 })).toThrow(/bits/);
     expect(() => nearestTuningWord({ targetFrequency: 1e6, clockFrequency: 1e8, bits: 32.5 })).toThrow(/bits/);
-    expect(() => nearestTuningWord({ targetFrequency: 6e7, clockFrequency: 1e8, bits: 32 })).toThrow(/targetFrequency must be at most f_clk\/2 = 50000000 Hz \(Nyquist/);
-    expect(() => nearestTuningWord({ targetFrequency: 0, clockFrequency: 1e8, bits: 32 })).toThrow(/targetFrequency must be a finite number greater than 0 Hz/);
-    expect(() => nearestTuningWord({ targetFrequency: 1e6, clockFrequency: Number.NaN, bits: 32 })).toThrow(/clockFrequency/);
-    expect(() => nearestTuningWord({ targetFrequency: 1e-3, clockFrequency: 1e8, bits: 8 })).toThrow(/rounds to tuning word 0/);
-    expect(() => nearestTuningWord(null as unknown as { targetFrequency: number; clockFrequency: number; bits: number })).toThrow(/request must be an object/);
+    expect(() => nearestTuningWord({ targetFrequency: 6e7, clockFrequency: 1e8, bits: 32 })).toThrow(
+      /targetFrequency must be at most f_clk\/2 = 50000000 Hz \(Nyquist/,
+    );
+    expect(() => nearestTuningWord({ targetFrequency: 0, clockFrequency: 1e8, bits: 32 })).toThrow(
+      /targetFrequency must be a finite number greater than 0 Hz/,
+    );
+    expect(() => nearestTuningWord({ targetFrequency: 1e6, clockFrequency: Number.NaN, bits: 32 })).toThrow(
+      /clockFrequency/,
+    );
+    expect(() => nearestTuningWord({ targetFrequency: 1e-3, clockFrequency: 1e8, bits: 8 })).toThrow(
+      /rounds to tuning word 0/,
+    );
+    expect(() =>
+      nearestTuningWord(null as unknown as { targetFrequency: number; clockFrequency: number; bits: number }),
+    ).toThrow(/request must be an object/);
   });
 
   it('tuningWordFrequency and fractionalResolution reject words outside [0, 2^N) and bad frequencies', () => {
-    expect(() => tuningWordFrequency(256n, 1e8, 8)).toThrow(/word must be a bigint in \[0, 2\^8\) for a 8-bit accumulator; received 256n/);
+    expect(() => tuningWordFrequency(256n, 1e8, 8)).toThrow(
+      /word must be a bigint in \[0, 2\^8\) for a 8-bit accumulator; received 256n/,
+    );
     expect(() => tuningWordFrequency(-1n, 1e8, 8)).toThrow(/word/);
     expect(() => tuningWordFrequency(5 as unknown as bigint, 1e8, 8)).toThrow(/word/);
     expect(() => tuningWordFrequency(5n, 0, 8)).toThrow(/clockFrequency/);

@@ -7,11 +7,12 @@
  * the only large numbers are the absurd ones (≥ 1e15), which every function must refuse or
  * handle in bounded time.
  */
-import fc from 'fast-check';
+
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { IERS_2010, GPS_ICD, BUNDLED_LEAP_SECONDS, Instant } from '../../src/index.js';
+import fc from 'fast-check';
+import { BUNDLED_LEAP_SECONDS, GPS_ICD, IERS_2010, Instant } from '../../src/index.js';
 
 const SDK_SRC = fileURLToPath(new URL('../../src/', import.meta.url));
 const EXAMPLES = fileURLToPath(new URL('../../examples/', import.meta.url));
@@ -24,7 +25,8 @@ function sdkFieldNames(): string[] {
       const path = join(dir, entry);
       if (statSync(path).isDirectory()) walk(path);
       else if (path.endsWith('.ts')) {
-        for (const m of readFileSync(path, 'utf8').matchAll(/^\s+(?:readonly\s+)?([a-zA-Z_]\w*)\??:\s/gm)) names.add(m[1]!);
+        for (const m of readFileSync(path, 'utf8').matchAll(/^\s+(?:readonly\s+)?([a-zA-Z_]\w*)\??:\s/gm))
+          names.add(m[1]!);
       }
     }
   };
@@ -36,21 +38,124 @@ export const FIELD_NAMES: readonly string[] = sdkFieldNames();
 
 /** Numbers no function may turn into NaN/Infinity without a typed error. */
 const SPECIAL_NUMBERS = [
-  NaN, Infinity, -Infinity, 1e300, -1e300, 1e20, -1e20, 1e15, Number.MAX_VALUE, -Number.MAX_VALUE, Number.MIN_VALUE,
-  -0, 0, 2 ** 53, -(2 ** 53), 1e-300, 1, -1, 0.5, 2, 3, 7,
+  NaN,
+  Infinity,
+  -Infinity,
+  1e300,
+  -1e300,
+  1e20,
+  -1e20,
+  1e15,
+  Number.MAX_VALUE,
+  -Number.MAX_VALUE,
+  Number.MIN_VALUE,
+  -0,
+  0,
+  2 ** 53,
+  -(2 ** 53),
+  1e-300,
+  1,
+  -1,
+  0.5,
+  2,
+  3,
+  7,
 ];
 /** Values of the right order for some field somewhere in the SDK (orbit radius, GM, Hz, s, rad, rates). */
 const PLAUSIBLE_NUMBERS = [
-  26_560_000, 6_378_137, 42_164_000, 7_000_000, 26_560, 0.01, 0.2, 0.9, 0.95, 0.99, 1e-3, 1e-10, -4.4647e-10, 1e-13,
-  1e-16, 1e-23, 86_400, 900, 300, 30, 10, 60, 3600, 604_800, 10.23e6, 1e8, 3.986004418e14, 7.292115e-5, Math.PI, 1.0826e-3,
-  48, 32, 16, 1023, 2048, 2200, 51_544, 60_000, 2026, 12, 31,
+  26_560_000,
+  6_378_137,
+  42_164_000,
+  7_000_000,
+  26_560,
+  0.01,
+  0.2,
+  0.9,
+  0.95,
+  0.99,
+  1e-3,
+  1e-10,
+  -4.4647e-10,
+  1e-13,
+  1e-16,
+  1e-23,
+  86_400,
+  900,
+  300,
+  30,
+  10,
+  60,
+  3600,
+  604_800,
+  10.23e6,
+  1e8,
+  3.986004418e14,
+  7.292115e-5,
+  Math.PI,
+  1.0826e-3,
+  48,
+  32,
+  16,
+  1023,
+  2048,
+  2200,
+  51_544,
+  60_000,
+  2026,
+  12,
+  31,
 ];
 const PLAUSIBLE_STRINGS = [
-  '', ' ', 'tt', 'tcg', 'tai', 'utc', 'gps', 'gpst', 'galileo', 'gst', 'beidou', 'bdt', 'iers-2010', 'gps-icd', 'adev', 'oadev',
-  'mdev', 'tdev', 'hdev', 'totdev', 'point-mass', 'j2', 'deadband', 'optimal', 'phase', 'frequency', 'L1', 'L1C/A', 'E1',
-  'G01', 'E11', 'C06', '2027-03-01T00:00:00Z', '2027-03-01T00:00:00', 'NaN', '1e400', '-1e400', '0x10', '28794890104583',
+  '',
+  ' ',
+  'tt',
+  'tcg',
+  'tai',
+  'utc',
+  'gps',
+  'gpst',
+  'galileo',
+  'gst',
+  'beidou',
+  'bdt',
+  'iers-2010',
+  'gps-icd',
+  'adev',
+  'oadev',
+  'mdev',
+  'tdev',
+  'hdev',
+  'totdev',
+  'point-mass',
+  'j2',
+  'deadband',
+  'optimal',
+  'phase',
+  'frequency',
+  'L1',
+  'L1C/A',
+  'E1',
+  'G01',
+  'E11',
+  'C06',
+  '2027-03-01T00:00:00Z',
+  '2027-03-01T00:00:00',
+  'NaN',
+  '1e400',
+  '-1e400',
+  '0x10',
+  '28794890104583',
   // Hostile reader text (huge gaps, endless lines) is the readers' own fuzz suite's subject; here text is short and plain.
-  'not-a-name', '\u0000', 'ℹ', '\n', '1\n2\n', '0 0\n1 0\n2 0\n', '  1.0  2.0\r', '%', '#', '∞',
+  'not-a-name',
+  '\u0000',
+  'ℹ',
+  '\n',
+  '1\n2\n',
+  '0 0\n1 0\n2 0\n',
+  '  1.0  2.0\r',
+  '%',
+  '#',
+  '∞',
 ];
 
 export const leafArb: fc.Arbitrary<unknown> = fc.oneof(
@@ -87,19 +192,43 @@ function seeds(): unknown[] {
       if (file.endsWith('.json')) examples.push(JSON.parse(readFileSync(join(EXAMPLES, folder, file), 'utf8')));
     }
   }
-  const elements = { semiMajorAxis: 26_560_000, eccentricity: 0.01, inclination: 0.96, raan: 1, argumentOfPerigee: 0.5, meanAnomaly: 2 };
+  const elements = {
+    semiMajorAxis: 26_560_000,
+    eccentricity: 0.01,
+    inclination: 0.96,
+    raan: 1,
+    argumentOfPerigee: 0.5,
+    meanAnomaly: 2,
+  };
   const state = { position: [26_560_000, 0, 0], velocity: [0, 3874, 0] };
   const phase = Array.from({ length: 40 }, (_, i) => 1e-9 * Math.sin(i) + 1e-11 * i);
   return [
     ...examples,
-    { ...IERS_2010, sources: { ...IERS_2010.sources } }, { ...GPS_ICD, sources: { ...GPS_ICD.sources } },
+    { ...IERS_2010, sources: { ...IERS_2010.sources } },
+    { ...GPS_ICD, sources: { ...GPS_ICD.sources } },
     { name: 'user', gm: 3.986e14 },
-    elements, state, { ...state, t: 0 }, { elements, t: 0 },
-    { phase, tau0: 1 }, { data: phase, tau0: 1, kind: 'phase' }, { frequency: phase, tau0: 30 },
+    elements,
+    state,
+    { ...state, t: 0 },
+    { elements, t: 0 },
+    { phase, tau0: 1 },
+    { data: phase, tau0: 1, kind: 'phase' },
+    { frequency: phase, tau0: 30 },
     { times: phase.map((_, i) => i * 30), phase },
-    { q1: 1e-23, q2: 1e-32, q3: 0 }, { q: { q1: 1e-23, q2: 1e-32, q3: 0 }, initial: { state: [0, 0], covariance: [[1e-18, 0], [0, 1e-24]] } },
+    { q1: 1e-23, q2: 1e-32, q3: 0 },
+    {
+      q: { q1: 1e-23, q2: 1e-32, q3: 0 },
+      initial: {
+        state: [0, 0],
+        covariance: [
+          [1e-18, 0],
+          [0, 1e-24],
+        ],
+      },
+    },
     { n: 32, tau0: 1, seed: 1, q: { q1: 1e-23, q2: 1e-32, q3: 0 } },
-    { word: '28794890104583', clockHz: 100_000_000, bits: 48 }, { clockHz: 1e8, bits: 32, targetHz: 10.23e6 },
+    { word: '28794890104583', clockHz: 100_000_000, bits: 48 },
+    { clockHz: 1e8, bits: 32, targetHz: 10.23e6 },
     { entries: BUNDLED_LEAP_SECONDS.entries.map((e) => ({ ...e })), validUntilMjd: BUNDLED_LEAP_SECONDS.validUntilMjd },
     { week: 2200, secondsOfWeek: 1000, system: 'gps' },
     { year: 2027, month: 3, day: 1, hour: 0, minute: 0, second: 0 },
@@ -112,7 +241,11 @@ function seeds(): unknown[] {
 export const SEEDS: readonly unknown[] = seeds();
 
 /** Every path (list of keys) to a value inside a plain JSON-like tree. */
-function pathsOf(value: unknown, prefix: (string | number)[] = [], out: (string | number)[][] = []): (string | number)[][] {
+function pathsOf(
+  value: unknown,
+  prefix: (string | number)[] = [],
+  out: (string | number)[][] = [],
+): (string | number)[][] {
   out.push(prefix);
   if (Array.isArray(value)) value.forEach((v, i) => pathsOf(v, [...prefix, i], out));
   else if (value !== null && typeof value === 'object' && Object.getPrototypeOf(value) === Object.prototype) {
@@ -144,7 +277,8 @@ function mutate(seed: unknown, pick: number, replacement: unknown, remove: boole
 }
 
 const mutatedArb = (valueArb: fc.Arbitrary<unknown>): fc.Arbitrary<unknown> =>
-  fc.tuple(fc.constantFrom(...SEEDS), fc.nat(), fc.oneof(leafArb, valueArb), fc.boolean(), fc.nat(4))
+  fc
+    .tuple(fc.constantFrom(...SEEDS), fc.nat(), fc.oneof(leafArb, valueArb), fc.boolean(), fc.nat(4))
     .map(([seed, pick, replacement, remove, more]) => {
       let out = mutate(seed, pick, replacement, remove);
       for (let i = 0; i < more - 2; i++) out = mutate(out, pick * (i + 7), replacement, !remove);
@@ -154,7 +288,13 @@ const mutatedArb = (valueArb: fc.Arbitrary<unknown>): fc.Arbitrary<unknown> =>
 /** Plausible instances: instants near the epoch and far from it. */
 const instanceArb: fc.Arbitrary<unknown> = fc.oneof(
   fc.integer({ min: -1e9, max: 1e9 }).map((s) => Instant.fromTaiSeconds(s)),
-  fc.constantFrom(Instant.fromTaiSeconds(1e12), Instant.fromTaiSeconds(-1e12), new Set(['G01', 'E11']), new Map(), new Date(0)),
+  fc.constantFrom(
+    Instant.fromTaiSeconds(1e12),
+    Instant.fromTaiSeconds(-1e12),
+    new Set(['G01', 'E11']),
+    new Map(),
+    new Date(0),
+  ),
 );
 
 /** Any argument: leaves, series, JSON, SDK-shaped objects, damaged seeds, instances and functions. */

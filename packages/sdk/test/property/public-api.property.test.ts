@@ -8,7 +8,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { argsArb, leafArb, valueArb } from './arbitraries.js';
-import { nonFinitePath, publicExports, untypedError, type PublicExport } from './public-surface.js';
+import { nonFinitePath, type PublicExport, publicExports, untypedError } from './public-surface.js';
 import { VALID_CALLS } from './valid-calls.js';
 
 const SEED = 20261203;
@@ -18,8 +18,18 @@ const RUNS = 60;
  * fit over a series) get fewer damaged calls so the file stays within ~15 s; every one is still run.
  */
 const HEAVY_RUNS = 20;
-const HEAVY = new Set(['planSteering', 'simulatePlan', 'predictSteering', 'steeringCost', 'validateScenario', 'reviewOffsets',
-  'runClockFilter', 'diffusionFromStabilityRows', 'analyzeStability', 'integrateProperTime']);
+const HEAVY = new Set([
+  'planSteering',
+  'simulatePlan',
+  'predictSteering',
+  'steeringCost',
+  'validateScenario',
+  'reviewOffsets',
+  'runClockFilter',
+  'diffusionFromStabilityRows',
+  'analyzeStability',
+  'integrateProperTime',
+]);
 const runsFor = (name: string): number => (HEAVY.has(name) ? HEAVY_RUNS : RUNS);
 /** A call that takes longer than this is reported as a hang (a bound, not a speed target). */
 const HANG_MS = 2000;
@@ -32,11 +42,20 @@ const EXPORTS = await publicExports();
  */
 const DIFFERENT_CONTRACT: Readonly<Record<string, string>> = {
   // Error classes take any message parts by design; constructing one never fails.
-  TaulineError: 'error class', InvalidArgumentError: 'error class', OutOfDomainError: 'error class',
-  ConvergenceError: 'error class', ParseError: 'error class',
+  TaulineError: 'error class',
+  InvalidArgumentError: 'error class',
+  OutOfDomainError: 'error class',
+  ConvergenceError: 'error class',
+  ParseError: 'error class',
   // Classes are exercised through their constructors and methods in the "classes" block below.
-  Instant: 'class', LineSplitter: 'class', RinexNavParser: 'class', Sp3Parser: 'class', PreciseCorrectionStream: 'class',
-  ClockKalmanFilter: 'class', RinexClockParser: 'class', RinexClockSeriesCollector: 'class',
+  Instant: 'class',
+  LineSplitter: 'class',
+  RinexNavParser: 'class',
+  Sp3Parser: 'class',
+  PreciseCorrectionStream: 'class',
+  ClockKalmanFilter: 'class',
+  RinexClockParser: 'class',
+  RinexClockSeriesCollector: 'class',
 };
 
 /**
@@ -59,9 +78,11 @@ const DOCUMENTED_NON_FINITE: Readonly<Record<string, RegExp>> = {
   correctPhaseJumps: /^result\[\d+\] = NaN$/,
   // ClockCharacterization.noise: a DiffusionInterval is "NaN when the coefficient is held at 0 or not resolved"; χ² and its
   // probability NaN when the covariance is singular or dof = 0; the polynomial's reduced χ² NaN when dof = 0.
-  characterizeClock: /^result\.(noise\.intervals\.q\d\.(low|high|edf)|noise\.(chiSquare|chiSquareProbability)|polynomial\.reducedChiSquare) = NaN$|^result\.noise\.intervals\.q\d\.high = Infinity$/,
+  characterizeClock:
+    /^result\.(noise\.intervals\.q\d\.(low|high|edf)|noise\.(chiSquare|chiSquareProbability)|polynomial\.reducedChiSquare) = NaN$|^result\.noise\.intervals\.q\d\.high = Infinity$/,
   // DispersionPercentile.daysToPhaseTolerance: "Infinity if never" (a zero residual never leaves the phase tolerance).
-  reviewOffsets: /^result\.spacecraft\.\d+\.dispersion\.(monteCarlo\.)?percentiles\.\d+\.daysToPhaseTolerance = Infinity$/,
+  reviewOffsets:
+    /^result\.spacecraft\.\d+\.dispersion\.(monteCarlo\.)?percentiles\.\d+\.daysToPhaseTolerance = Infinity$/,
   // NormalizedScenario.actuator.phaseMaxStep: Infinity when the scenario sets no limit on a phase step.
   validateScenario: /^result\.actuator\.phaseMaxStep = Infinity$/,
 };
@@ -86,28 +107,38 @@ describe(`public SDK functions under arbitrary arguments (fast-check seed ${SEED
     expect(plainFunctions.length).toBeGreaterThan(100);
     for (const e of EXPORTS) {
       if (e.kind === 'value') expect(typeof e.value === 'function', e.name).toBe(false);
-      else if (e.kind !== 'function') expect(e.name in DIFFERENT_CONTRACT || e.kind !== 'class', `${e.name} is a class without an entry`).toBe(true);
+      else if (e.kind !== 'function')
+        expect(e.name in DIFFERENT_CONTRACT || e.kind !== 'class', `${e.name} is a class without an entry`).toBe(true);
     }
   });
 
   it.each(plainFunctions.map((e) => [e.name, e] as [string, PublicExport]))(
-    '%s(arbitrary JSON, special numbers, damaged objects) returns finite numbers or throws a TaulineError', (_name, e) => {
+    '%s(arbitrary JSON, special numbers, damaged objects) returns finite numbers or throws a TaulineError',
+    (_name, e) => {
       const fn = e.value as (...args: unknown[]) => unknown;
-      fc.assert(fc.property(argsArb(fn.length), (args) => {
-        const problem = violation(e.name, fn, args);
-        if (problem) throw new Error(problem);
-      }), { seed: SEED, numRuns: runsFor(e.name), includeErrorInReport: true });
-    });
+      fc.assert(
+        fc.property(argsArb(fn.length), (args) => {
+          const problem = violation(e.name, fn, args);
+          if (problem) throw new Error(problem);
+        }),
+        { seed: SEED, numRuns: runsFor(e.name), includeErrorInReport: true },
+      );
+    },
+  );
 });
 
 /** A valid call with one thing damaged: an argument replaced, a nested field replaced/removed, or arguments dropped. */
 function damagedCall(valid: () => unknown[]): fc.Arbitrary<unknown[]> {
-  return fc.tuple(fc.nat(), fc.nat(), fc.oneof(leafArb, valueArb), fc.constantFrom('replace', 'nested', 'remove', 'truncate'))
+  return fc
+    .tuple(fc.nat(), fc.nat(), fc.oneof(leafArb, valueArb), fc.constantFrom('replace', 'nested', 'remove', 'truncate'))
     .map(([position, pick, replacement, how]) => {
       const args = valid();
       const i = position % Math.max(args.length, 1);
       if (how === 'truncate') return args.slice(0, i);
-      if (how === 'replace') { args[i] = replacement; return args; }
+      if (how === 'replace') {
+        args[i] = replacement;
+        return args;
+      }
       args[i] = damageInside(args[i], pick, replacement, how === 'remove');
       return args;
     });
@@ -140,17 +171,24 @@ describe(`public SDK functions with one part of a valid call damaged (fast-check
   const withExample = plainFunctions.filter((e) => VALID_CALLS[e.name]);
 
   it.each(withExample.map((e) => [e.name, e] as [string, PublicExport]))(
-    '%s(valid example arguments) returns finite numbers (the example the damaged calls start from)', (name, e) => {
+    '%s(valid example arguments) returns finite numbers (the example the damaged calls start from)',
+    (name, e) => {
       const result = (e.value as (...args: unknown[]) => unknown)(...VALID_CALLS[name]!());
       expect(nonFinitePath(result, DOCUMENTED_NON_FINITE[name])).toBeUndefined();
-    });
+    },
+  );
 
   it.each(withExample.map((e) => [e.name, e] as [string, PublicExport]))(
-    '%s(valid call with one argument or field replaced, removed or cut) returns finite numbers or throws a TaulineError', (name, e) => {
+    '%s(valid call with one argument or field replaced, removed or cut) returns finite numbers or throws a TaulineError',
+    (name, e) => {
       const fn = e.value as (...args: unknown[]) => unknown;
-      fc.assert(fc.property(damagedCall(VALID_CALLS[name]!), (args) => {
-        const problem = violation(e.name, fn, args);
-        if (problem) throw new Error(problem);
-      }), { seed: SEED, numRuns: runsFor(e.name), includeErrorInReport: true });
-    });
+      fc.assert(
+        fc.property(damagedCall(VALID_CALLS[name]!), (args) => {
+          const problem = violation(e.name, fn, args);
+          if (problem) throw new Error(problem);
+        }),
+        { seed: SEED, numRuns: runsFor(e.name), includeErrorInReport: true },
+      );
+    },
+  );
 });

@@ -11,16 +11,25 @@ import { TaulineError } from '../../src/errors.js';
 const SDK_ROOT = fileURLToPath(new URL('../../', import.meta.url));
 
 export type ExportKind = 'function' | 'async-function' | 'generator' | 'async-generator' | 'class' | 'value';
-export interface PublicExport { readonly subpath: string; readonly name: string; readonly value: unknown; readonly kind: ExportKind }
+export interface PublicExport {
+  readonly subpath: string;
+  readonly name: string;
+  readonly value: unknown;
+  readonly kind: ExportKind;
+}
 
 function kindOf(value: unknown): ExportKind {
   if (typeof value !== 'function') return 'value';
   if (/^class\b/.test(Function.prototype.toString.call(value))) return 'class';
   switch (value.constructor.name) {
-    case 'AsyncFunction': return 'async-function';
-    case 'GeneratorFunction': return 'generator';
-    case 'AsyncGeneratorFunction': return 'async-generator';
-    default: return 'function';
+    case 'AsyncFunction':
+      return 'async-function';
+    case 'GeneratorFunction':
+      return 'generator';
+    case 'AsyncGeneratorFunction':
+      return 'async-generator';
+    default:
+      return 'function';
   }
 }
 
@@ -56,7 +65,12 @@ export async function publicExports(): Promise<PublicExport[]> {
  * The first non-finite number inside `value`, as `path = value`, or undefined when all are finite.
  * `allowed` matches the `path = value` texts that a function documents (e.g. NaN for a missing sample).
  */
-export function nonFinitePath(value: unknown, allowed?: RegExp, path = 'result', seen = new Set<object>()): string | undefined {
+export function nonFinitePath(
+  value: unknown,
+  allowed?: RegExp,
+  path = 'result',
+  seen = new Set<object>(),
+): string | undefined {
   if (typeof value === 'number') {
     const text = `${path} = ${value}`;
     return Number.isFinite(value) || allowed?.test(text) ? undefined : text;
@@ -69,13 +83,17 @@ export function nonFinitePath(value: unknown, allowed?: RegExp, path = 'result',
     const arr = value as unknown as ArrayLike<number | bigint>;
     for (let i = 0; i < arr.length; i++) {
       const v = arr[i];
-      if (typeof v === 'number' && !Number.isFinite(v) && !allowed?.test(`${path}[${i}] = ${v}`)) return `${path}[${i}] = ${v}`;
+      if (typeof v === 'number' && !Number.isFinite(v) && !allowed?.test(`${path}[${i}] = ${v}`))
+        return `${path}[${i}] = ${v}`;
     }
     return undefined;
   }
-  const entries: [string, unknown][] = value instanceof Map ? [...value.entries()].map(([k, v]) => [String(k), v])
-    : value instanceof Set ? [...value].map((v, i) => [String(i), v])
-      : Object.entries(value);
+  const entries: [string, unknown][] =
+    value instanceof Map
+      ? [...value.entries()].map(([k, v]) => [String(k), v])
+      : value instanceof Set
+        ? [...value].map((v, i) => [String(i), v])
+        : Object.entries(value);
   for (const [k, v] of entries) {
     const found = nonFinitePath(v, allowed, `${path}.${k}`, seen);
     if (found) return found;
@@ -86,6 +104,7 @@ export function nonFinitePath(value: unknown, allowed?: RegExp, path = 'result',
 /** Describes a thrown value that is not a TaulineError, or undefined when it is one. */
 export function untypedError(error: unknown): string | undefined {
   if (error instanceof TaulineError) return undefined;
-  if (error instanceof Error) return `${error.name}: ${error.message}\n${error.stack?.split('\n').slice(1, 4).join('\n')}`;
+  if (error instanceof Error)
+    return `${error.name}: ${error.message}\n${error.stack?.split('\n').slice(1, 4).join('\n')}`;
   return `non-Error thrown: ${String(error)}`;
 }

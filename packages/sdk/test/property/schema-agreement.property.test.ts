@@ -1,20 +1,22 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { validateScenario } from '../../src/steering/index.js';
 import { validateFleet } from '../../src/fleet/index.js';
 import { parseReviewInput } from '../../src/review/index.js';
-import { findSchemaDisagreements, type AgreementResult, type ValidatorOnlyRule } from './schema-agreement.js';
+import { validateScenario } from '../../src/steering/index.js';
+import { type AgreementResult, findSchemaDisagreements, type ValidatorOnlyRule } from './schema-agreement.js';
 
 const json = (path: string): unknown => JSON.parse(readFileSync(new URL(`../../${path}`, import.meta.url), 'utf8'));
 
 /** Refusals about stamps that a pattern cannot make: the calendar, leap seconds and the table's span. */
 const STAMP_RULES: ValidatorOnlyRule[] = [
   {
-    path: /./, message: /must be an ISO 8601 UTC date-time/,
+    path: /./,
+    message: /must be an ISO 8601 UTC date-time/,
     why: 'day of month past its end (e.g. 02-30), or :60 where the table has no leap second',
   },
   {
-    path: /./, message: /^OutOfDomainError: .*outside the valid span/,
+    path: /./,
+    message: /^OutOfDomainError: .*outside the valid span/,
     why: 'a stamp or the horizon end outside the leap-second table in use',
   },
 ];
@@ -34,19 +36,23 @@ const SCENARIO_RULES: ValidatorOnlyRule[] = [
   },
   { path: /^gridSeconds$/, message: /horizonSeconds/, why: 'grid against the horizon' },
   {
-    path: /actuator\.maxFrequencyStep$/, message: /at least actuator\.frequencyResolution/,
+    path: /actuator\.maxFrequencyStep$/,
+    message: /at least actuator\.frequencyResolution/,
     why: 'step against resolution',
   },
   {
-    path: /actuator\.phaseSteps\.maxStep$/, message: /at least actuator\.phaseSteps\.resolution/,
+    path: /actuator\.phaseSteps\.maxStep$/,
+    message: /at least actuator\.phaseSteps\.resolution/,
     why: 'step against resolution',
   },
   {
-    path: /actuator\.initialFrequencySteering$/, message: /inside actuator\.cumulativeFrequencyRange/,
+    path: /actuator\.initialFrequencySteering$/,
+    message: /inside actuator\.cumulativeFrequencyRange/,
     why: 'value against the range',
   },
   {
-    path: /^operations\.estimateIntervalSeconds$/, message: /at most horizonSeconds/,
+    path: /^operations\.estimateIntervalSeconds$/,
+    message: /at most horizonSeconds/,
     why: 'interval against the horizon',
   },
   { path: /maneuvers\[\d+\]\.at$/, message: /inside the horizon/, why: 'stamp against epoch + horizon' },
@@ -55,11 +61,13 @@ const SCENARIO_RULES: ValidatorOnlyRule[] = [
 const FLEET_RULES: ValidatorOnlyRule[] = [
   ...SCENARIO_RULES,
   {
-    path: /^satellites\[\d+\]\.passes\[\d+\]\.station$/, message: /one of the station ids/,
+    path: /^satellites\[\d+\]\.passes\[\d+\]\.station$/,
+    message: /one of the station ids/,
     why: 'a reference to another array',
   },
   {
-    path: /^(satellites|stations)\[\d+\]\.id$/, message: /an id used by no other/,
+    path: /^(satellites|stations)\[\d+\]\.id$/,
+    message: /an id used by no other/,
     why: 'uniqueness of one field across items',
   },
   {
@@ -71,15 +79,18 @@ const FLEET_RULES: ValidatorOnlyRule[] = [
 
 const REVIEW_RULES: ValidatorOnlyRule[] = [
   {
-    path: /^spacecraft\[\d+\]\.configured\.(offsetFrequencyHz|offsetHz)$/, message: /0\.1 % of|smaller than 0\.1 %/,
+    path: /^spacecraft\[\d+\]\.configured\.(offsetFrequencyHz|offsetHz)$/,
+    message: /0\.1 % of|smaller than 0\.1 %/,
     why: 'offset against the nominal frequency',
   },
   {
-    path: /^spacecraft\[\d+\]\.configured\.tuningWord\.word$/, message: /an integer in \[0, 2\^\d+\)/,
+    path: /^spacecraft\[\d+\]\.configured\.tuningWord\.word$/,
+    message: /an integer in \[0, 2\^\d+\)/,
     why: 'word against its bit count',
   },
   {
-    path: /^spacecraft\[\d+\]\.id$/, message: /not used by another spacecraft/,
+    path: /^spacecraft\[\d+\]\.id$/,
+    message: /not used by another spacecraft/,
     why: 'uniqueness of one field across items',
   },
 ];
@@ -97,27 +108,48 @@ function expectAgreement(result: AgreementResult): void {
 
 describe('schemas and SDK validators accept the same documents (generated mutations at every path, ajv vs the SDK)', () => {
   it('schema/scenario.schema.json and validateScenario(doc) agree on 1200 random mutants of the two examples and every path of them once per mutation kind (seed 16001)', () => {
-    expectAgreement(findSchemaDisagreements({
-      name: 'scenario', schema: json('schema/scenario.schema.json') as object, validate: (d) => validateScenario(d),
-      seeds: [json('examples/steering/orin-3-meo.json'), json('examples/steering/halcyr-g1-geo.json')],
-      validatorOnly: SCENARIO_RULES, runs: RUNS, seed: 16001,
-    }));
+    expectAgreement(
+      findSchemaDisagreements({
+        name: 'scenario',
+        schema: json('schema/scenario.schema.json') as object,
+        validate: (d) => validateScenario(d),
+        seeds: [json('examples/steering/orin-3-meo.json'), json('examples/steering/halcyr-g1-geo.json')],
+        validatorOnly: SCENARIO_RULES,
+        runs: RUNS,
+        seed: 16001,
+      }),
+    );
   });
 
   it('schema/review.schema.json and parseReviewInput(doc) agree on 1200 random mutants of the two examples and every path of them once per mutation kind (seed 16002)', () => {
-    expectAgreement(findSchemaDisagreements({
-      name: 'review', schema: json('schema/review.schema.json') as object, validate: (d) => parseReviewInput(d),
-      seeds: [json('examples/review/kestrel-block-a.review.json'),
-        json('examples/review/kestrel-block-b-mistakes.review.json')],
-      validatorOnly: REVIEW_RULES, runs: RUNS, seed: 16002,
-    }));
+    expectAgreement(
+      findSchemaDisagreements({
+        name: 'review',
+        schema: json('schema/review.schema.json') as object,
+        validate: (d) => parseReviewInput(d),
+        seeds: [
+          json('examples/review/kestrel-block-a.review.json'),
+          json('examples/review/kestrel-block-b-mistakes.review.json'),
+        ],
+        validatorOnly: REVIEW_RULES,
+        runs: RUNS,
+        seed: 16002,
+      }),
+    );
   });
 
   it('schema/fleet.schema.json and validateFleet(doc) agree on 1200 random mutants of the example fleet and every path of it once per mutation kind (seed 16003)', () => {
-    expectAgreement(findSchemaDisagreements({
-      name: 'fleet', schema: json('schema/fleet.schema.json') as object, validate: (d) => validateFleet(d),
-      seeds: [json('examples/fleet/vesper-constellation.json')], validatorOnly: FLEET_RULES, runs: RUNS, seed: 16003,
-    }));
+    expectAgreement(
+      findSchemaDisagreements({
+        name: 'fleet',
+        schema: json('schema/fleet.schema.json') as object,
+        validate: (d) => validateFleet(d),
+        seeds: [json('examples/fleet/vesper-constellation.json')],
+        validatorOnly: FLEET_RULES,
+        runs: RUNS,
+        seed: 16003,
+      }),
+    );
   });
 });
 
@@ -137,7 +169,7 @@ describe('disagreements the generated documents found, fixed (each side named in
   it('parseReviewInput(doc) refuses an unknown key beside the configured form, naming it, as the schema does (it was ignored)', () => {
     const doc = json('examples/review/kestrel-block-a.review.json') as { spacecraft: Record<string, unknown>[] };
     const sc = doc.spacecraft[0]!;
-    sc['configured'] = { fractionalOffset: -4.486072e-10, bits: 32 };
+    sc.configured = { fractionalOffset: -4.486072e-10, bits: 32 };
     expect(() => parseReviewInput(doc)).toThrow(/spacecraft\[0\]\.configured\.bits must be absent/);
   });
 

@@ -62,7 +62,7 @@ export interface AgreementResult {
 function compile(schema: object): (doc: unknown) => { ok: boolean; errors: string } {
   // `format: date-time` is declared known (the schemas' own `pattern` checks stamps) so ajv does not log.
   const options = { allErrors: false, strict: false, formats: { 'date-time': true } } as const;
-  const draft2020 = String((schema as Schema)['$schema'] ?? '').includes('2020-12');
+  const draft2020 = String((schema as Schema).$schema ?? '').includes('2020-12');
   const ajv = draft2020 ? new Ajv2020(options) : new Ajv(options);
   const check = ajv.compile(schema);
   return (doc) => {
@@ -72,7 +72,7 @@ function compile(schema: object): (doc: unknown) => { ok: boolean; errors: strin
 }
 
 function resolveRef(root: Schema, s: Schema): Schema {
-  const ref = s['$ref'];
+  const ref = s.$ref;
   if (typeof ref !== 'string' || !ref.startsWith('#/')) return s;
   let node: unknown = root;
   for (const part of ref.slice(2).split('/')) node = (node as Schema)[part];
@@ -100,7 +100,7 @@ function subschemas(root: Schema, path: Path): Schema[] {
   for (const step of path) {
     const next: Schema[] = [];
     for (const s of current) {
-      const child = typeof step === 'number' ? s['items'] : (s['properties'] as Schema | undefined)?.[step];
+      const child = typeof step === 'number' ? s.items : (s.properties as Schema | undefined)?.[step];
       if (typeof child === 'object' && child !== null && !Array.isArray(child)) {
         next.push(...expand(root, child as Schema));
       }
@@ -148,24 +148,32 @@ function inRange(schemas: readonly Schema[], value: number, u: number): number |
   let lo = -Infinity;
   let hi = Infinity;
   for (const s of schemas) {
-    if (typeof s['minimum'] === 'number') lo = Math.max(lo, s['minimum']);
-    if (typeof s['exclusiveMinimum'] === 'number') lo = Math.max(lo, s['exclusiveMinimum']);
-    if (typeof s['maximum'] === 'number') hi = Math.min(hi, s['maximum']);
-    if (typeof s['exclusiveMaximum'] === 'number') hi = Math.min(hi, s['exclusiveMaximum']);
+    if (typeof s.minimum === 'number') lo = Math.max(lo, s.minimum);
+    if (typeof s.exclusiveMinimum === 'number') lo = Math.max(lo, s.exclusiveMinimum);
+    if (typeof s.maximum === 'number') hi = Math.min(hi, s.maximum);
+    if (typeof s.exclusiveMaximum === 'number') hi = Math.min(hi, s.exclusiveMaximum);
   }
-  if (schemas.some((s) => s['type'] === 'integer')) return undefined;
+  if (schemas.some((s) => s.type === 'integer')) return undefined;
   // Scale the current value (same order of magnitude) and keep it strictly inside the bounds.
   const v = value === 0 ? u - 0.5 : value * (0.5 + u);
   return v > lo && v < hi ? v : undefined;
 }
 
 const STAMP_EDITS: readonly ((s: string) => string)[] = [
-  (s) => s.replace(/Z$/, ''), (s) => s.replace(/Z$/, '+01:00'), (s) => s.replace(/:(\d\d)Z$/, ':60Z'),
+  (s) => s.replace(/Z$/, ''),
+  (s) => s.replace(/Z$/, '+01:00'),
+  (s) => s.replace(/:(\d\d)Z$/, ':60Z'),
   (s) => s.replace(/Z$/, '.123456789Z'),
-  (s) => s.replace(/Z$/, '.1234567891Z'), (s) => s.replace('T', ' '), (s) => s.replace(/^(\d{4})-(\d\d)/, '$1-13'),
-  (s) => s.replace(/-(\d\d)T/, '-32T'), (s) => s.replace(/T(\d\d)/, 'T24'), (s) => s.slice(0, 16) + 'Z',
+  (s) => s.replace(/Z$/, '.1234567891Z'),
+  (s) => s.replace('T', ' '),
+  (s) => s.replace(/^(\d{4})-(\d\d)/, '$1-13'),
+  (s) => s.replace(/-(\d\d)T/, '-32T'),
+  (s) => s.replace(/T(\d\d)/, 'T24'),
+  (s) => `${s.slice(0, 16)}Z`,
   (s) => s.replace(/^\d{4}/, '2030'),
-  (s) => s.replace(/^\d{4}/, '1969'), (s) => s.replace(/T.*/, ''), (s) => s.replace(/Z$/, 'z'),
+  (s) => s.replace(/^\d{4}/, '1969'),
+  (s) => s.replace(/T.*/, ''),
+  (s) => s.replace(/Z$/, 'z'),
 ];
 
 /** Kinds of mutation {@link mutate} knows (its switch). */
@@ -190,8 +198,10 @@ function mutate(root: Schema, doc: Json, pick: number, kind: number, choice: num
   const u = (choice % 1000) / 1000;
   switch (kind % MUTATION_KINDS) {
     case 0: {
-      const others = OTHER_TYPES.filter((t) => typeof t !== typeof value || Array.isArray(t) !== Array.isArray(value)
-        || (t === null) !== (value === null));
+      const others = OTHER_TYPES.filter(
+        (t) =>
+          typeof t !== typeof value || Array.isArray(t) !== Array.isArray(value) || (t === null) !== (value === null),
+      );
       return set(others[choice % others.length] ?? null, '→ (other type)');
     }
     case 1:
@@ -207,8 +217,10 @@ function mutate(root: Schema, doc: Json, pick: number, kind: number, choice: num
         return set(c[choice % c.length]!, '→');
       }
       if (typeof value === 'string') {
-        const enums = schemas.flatMap((s) => [...(Array.isArray(s['enum']) ? s['enum'] : []),
-          ...('const' in s ? [s['const']] : [])]);
+        const enums = schemas.flatMap((s) => [
+          ...(Array.isArray(s.enum) ? s.enum : []),
+          ...('const' in s ? [s.const] : []),
+        ]);
         const strings: Json[] = ['', ' ', value.toUpperCase(), `${value}x`, ...(enums as Json[])];
         if (/^\d{4}-\d\d-\d\dT/.test(value)) strings.push(...STAMP_EDITS.map((f) => f(value)));
         return set(strings[choice % strings.length]!, '→');
@@ -227,7 +239,7 @@ function mutate(root: Schema, doc: Json, pick: number, kind: number, choice: num
           delete value[k];
           return `${label(path)}.${k} misspelt`;
         }
-        value['unknownField'] = 1;
+        value.unknownField = 1;
         return `${label(path)} gets an unknown key`;
       }
       return undefined;
@@ -255,7 +267,11 @@ function mutate(root: Schema, doc: Json, pick: number, kind: number, choice: num
   }
 }
 
-interface Verdict { ok: boolean; error: string | null; path: string }
+interface Verdict {
+  ok: boolean;
+  error: string | null;
+  path: string;
+}
 
 function validatorVerdict(spec: SchemaAgreementSpec, doc: unknown): Verdict {
   try {
@@ -281,7 +297,8 @@ export function findSchemaDisagreements(spec: SchemaAgreementSpec): AgreementRes
   });
   const step = fc.tuple(fc.nat(), fc.nat(), fc.nat());
   const arb = fc.record({
-    seed: fc.nat({ max: seeds.length - 1 }), steps: fc.array(step, { minLength: 1, maxLength: 3 }),
+    seed: fc.nat({ max: seeds.length - 1 }),
+    steps: fc.array(step, { minLength: 1, maxLength: 3 }),
   });
   const samples = fc.sample(arb, { seed: spec.seed, numRuns: spec.runs ?? 1500 });
   // Then every path of every seed once per mutation kind, so no path is left to chance (array items past the

@@ -7,23 +7,55 @@
  */
 import { readFileSync } from 'node:fs';
 import {
-  BUNDLED_LEAP_SECONDS, ClockKalmanFilter, GPS_ICD, IERS_2010, Instant, LineSplitter, PreciseCorrectionStream, RinexNavParser,
-  RinexClockParser, RinexClockSeriesCollector, Sp3Parser, analyzeStability, createTimeScales, integrateProperTime, parseRinexClock,
-  parseRinexNav, parseSp3,
-  planSteering, reviewOffsets, simulateClock, type KeplerianBroadcastEphemeris,
+  analyzeStability,
+  BUNDLED_LEAP_SECONDS,
+  ClockKalmanFilter,
+  createTimeScales,
+  GPS_ICD,
+  IERS_2010,
+  Instant,
+  integrateProperTime,
+  type KeplerianBroadcastEphemeris,
+  LineSplitter,
+  PreciseCorrectionStream,
+  parseRinexClock,
+  parseRinexNav,
+  parseSp3,
+  planSteering,
+  RinexClockParser,
+  RinexClockSeriesCollector,
+  RinexNavParser,
+  Sp3Parser,
+  simulateClock,
 } from '../../src/index.js';
 
-const fixture = (path: string): string => readFileSync(new URL(`../../../../test/fixtures/${path}`, import.meta.url), 'utf8');
-const example = (path: string): unknown => JSON.parse(readFileSync(new URL(`../../examples/${path}`, import.meta.url), 'utf8'));
+const fixture = (path: string): string =>
+  readFileSync(new URL(`../../../../test/fixtures/${path}`, import.meta.url), 'utf8');
+const example = (path: string): unknown =>
+  JSON.parse(readFileSync(new URL(`../../examples/${path}`, import.meta.url), 'utf8'));
 
 const A = 26_560_000;
-const ELEMENTS = { semiMajorAxis: A, eccentricity: 0.01, inclination: 0.96, raan: 1, argumentOfPerigee: 0.5, meanAnomaly: 2 };
+const ELEMENTS = {
+  semiMajorAxis: A,
+  eccentricity: 0.01,
+  inclination: 0.96,
+  raan: 1,
+  argumentOfPerigee: 0.5,
+  meanAnomaly: 2,
+};
 const STATE = { position: [A, 0, 0], velocity: [0, 3874, 100] };
 const Q2 = { q1: 1e-22, q2: 1e-30 };
 const Q3 = { q1: 1e-22, q2: 1e-30, q3: 1e-40 };
 const PHASE = Array.from({ length: 64 }, (_, i) => 1e-9 * Math.sin(i * 1.7) + 1e-11 * i);
 const TIMES = PHASE.map((_, i) => i * 30);
-const ESTIMATE = { t: 0, state: [1e-9, 1e-12], covariance: [[1e-18, 0], [0, 1e-24]] };
+const ESTIMATE = {
+  t: 0,
+  state: [1e-9, 1e-12],
+  covariance: [
+    [1e-18, 0],
+    [0, 1e-24],
+  ],
+};
 const NAV_TEXT = fixture('rinex-nav/mixed-v305.rnx');
 const SP3_TEXT = fixture('sp3/orbit-c-pv.sp3');
 const CLK_TEXT = fixture('rinex-clock/fictional-304.clk');
@@ -33,7 +65,9 @@ const REVIEW = example('review/kestrel-block-a.review.json');
 /** Epoch of the pass-prediction calls (invented). */
 const passEpoch = (): Instant => createTimeScales(BUNDLED_LEAP_SECONDS).parseIso('2027-03-01T00:00:00Z', 'UTC');
 
-let cache: { eph: KeplerianBroadcastEphemeris; rows: unknown; plan: unknown; clk: unknown; properTime: unknown } | undefined;
+let cache:
+  | { eph: KeplerianBroadcastEphemeris; rows: unknown; plan: unknown; clk: unknown; properTime: unknown }
+  | undefined;
 /** Expensive valid inputs, built once. */
 function built(): NonNullable<typeof cache> {
   if (!cache) {
@@ -50,7 +84,11 @@ function built(): NonNullable<typeof cache> {
   return cache;
 }
 
-const leapSpec = (): unknown => ({ entries: BUNDLED_LEAP_SECONDS.entries.map((e) => ({ ...e })), validUntilMjd: BUNDLED_LEAP_SECONDS.validUntilMjd, source: 'bundled table (test copy)' });
+const leapSpec = (): unknown => ({
+  entries: BUNDLED_LEAP_SECONDS.entries.map((e) => ({ ...e })),
+  validUntilMjd: BUNDLED_LEAP_SECONDS.validUntilMjd,
+  source: 'bundled table (test copy)',
+});
 
 /** Valid argument lists keyed by export name. */
 export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
@@ -69,7 +107,11 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
   weekSecondsFromInstant: () => [Instant.fromTaiSeconds(8e8), 'GPS'],
   createTimeScales: () => [BUNDLED_LEAP_SECONDS],
   fileTimeScale: () => ['GAL'],
-  instantFromFileEpoch: () => [createTimeScales(BUNDLED_LEAP_SECONDS), { year: 2026, month: 1, day: 4, hour: 0, minute: 0, second: 0.0000001 }, 'GPS'],
+  instantFromFileEpoch: () => [
+    createTimeScales(BUNDLED_LEAP_SECONDS),
+    { year: 2026, month: 1, day: 4, hour: 0, minute: 0, second: 0.0000001 },
+    'GPS',
+  ],
   formatFileEpoch: () => [createTimeScales(BUNDLED_LEAP_SECONDS), Instant.fromTaiParts(8e8, 0.25), 'GLO'],
   scaleSecondsFromInstant: () => [Instant.fromTaiParts(8e8, 0.25), 'BDT'],
   instantFromScaleSeconds: () => [1.4e9, 'GST'],
@@ -93,8 +135,13 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
   j2SecularRates: () => [ELEMENTS, IERS_2010],
   propagateJ2Secular: () => [ELEMENTS, 3600, IERS_2010],
   satellitePositionEcef: () => [{ elements: ELEMENTS, epoch: passEpoch() }, passEpoch().plus(600)],
-  predictPasses: () => [{ elements: ELEMENTS, epoch: passEpoch() }, [{ position: { latitude: 0.73, longitude: 0.4, height: 620 }, elevationMask: 0.17 }],
-    passEpoch(), 43_200, { stepSeconds: 120 }],
+  predictPasses: () => [
+    { elements: ELEMENTS, epoch: passEpoch() },
+    [{ position: { latitude: 0.73, longitude: 0.4, height: 620 }, elevationMask: 0.17 }],
+    passEpoch(),
+    43_200,
+    { stepSeconds: 120 },
+  ],
   systemConstants: () => ['G'],
   weekCrossover: () => [400_000],
   isBeidouGeostationary: () => ['C03'],
@@ -132,19 +179,40 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
   j2TotalPeriodicTerm: () => [A, 0.96, 1, { constants: IERS_2010 }],
   j2PeriodicAmplitudes: () => [A, 0.96, { constants: IERS_2010 }],
   osculatingMinusMeanSemiMajorAxis: () => [A, 0.96, 1, { constants: IERS_2010 }],
-  j2SecularClockRate: () => [{ semiMajorAxis: A, eccentricity: 0, inclination: 0.96, semiMajorAxisKind: 'mean' }, { constants: IERS_2010 }],
+  j2SecularClockRate: () => [
+    { semiMajorAxis: A, eccentricity: 0, inclination: 0.96, semiMajorAxisKind: 'mean' },
+    { constants: IERS_2010 },
+  ],
   j2SecularClockRateFromState: () => [STATE, { constants: IERS_2010 }],
   normalGravityPotential: () => [0.7, 100],
   normalGravity: () => [0.7],
   groundClockRate: () => [{ latitude: 0.7, longitude: -1.8, height: 1600 }, { constants: IERS_2010 }],
   tcgRateVsTT: () => [{ constants: IERS_2010 }],
   lunarClockRate: () => [{ location: 'orbit', orbitRadius: 1_837_400 }, { constants: IERS_2010 }],
-  periodicCorrectionFromElementsBatch: () => [A, 0.01, Float64Array.of(0, 1, 2), { constants: IERS_2010, out: new Float64Array(3) }],
-  periodicCorrectionOnTimeGrid: () => [{ semiMajorAxis: A, eccentricity: 0.01, meanAnomalyAtStart: 1 }, { stepSeconds: 60, count: 4 },
-    { constants: IERS_2010, out: new Float64Array(4) }],
+  periodicCorrectionFromElementsBatch: () => [
+    A,
+    0.01,
+    Float64Array.of(0, 1, 2),
+    { constants: IERS_2010, out: new Float64Array(3) },
+  ],
+  periodicCorrectionOnTimeGrid: () => [
+    { semiMajorAxis: A, eccentricity: 0.01, meanAnomalyAtStart: 1 },
+    { stepSeconds: 60, count: 4 },
+    { constants: IERS_2010, out: new Float64Array(4) },
+  ],
   periodicCorrectionFromStatesBatch: () => [Float64Array.of(A, 0, 0, 0, 3874, 100), { out: new Float64Array(1) }],
-  j2PeriodicTermBatch: () => [A, 0.96, Float64Array.of(0, 1, 2), 'residual', { constants: IERS_2010, out: new Float64Array(3) }],
-  j2PeriodicTermFromStatesBatch: () => [Float64Array.of(A, 0, 0, 0, 3874, 100), 'total', { constants: IERS_2010, out: new Float64Array(1) }],
+  j2PeriodicTermBatch: () => [
+    A,
+    0.96,
+    Float64Array.of(0, 1, 2),
+    'residual',
+    { constants: IERS_2010, out: new Float64Array(3) },
+  ],
+  j2PeriodicTermFromStatesBatch: () => [
+    Float64Array.of(A, 0, 0, 0, 3874, 100),
+    'total',
+    { constants: IERS_2010, out: new Float64Array(1) },
+  ],
   offsetFrequency: () => [10.23e6, -4.4647e-10],
   requireFractionalOffset: () => ['offset', -4.4647e-10],
   nearestTuningWord: () => [{ targetFrequency: 10e6, clockFrequency: 100e6, bits: 32 }],
@@ -164,7 +232,10 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
   noiseForAlpha: () => [0],
   deviations: () => ['oadev', { phase: PHASE, tau0: 30 }, { taus: [30, 60] }],
   identifyNoise: () => [{ phase: PHASE, tau0: 30 }, { taus: [30, 60] }],
-  analyzeStability: () => [{ phase: PHASE, tau0: 30 }, { statistics: ['oadev', 'mdev'], confidence: 0.9 }],
+  analyzeStability: () => [
+    { phase: PHASE, tau0: 30 },
+    { statistics: ['oadev', 'mdev'], confidence: 0.9 },
+  ],
   maxAveragingFactor: () => ['oadev', 64],
   validateScenario: () => [SCENARIO],
   noiseToDiffusion: () => [{ q1: 1e-22, q2: 1e-30, q3: 0 }],
@@ -172,11 +243,17 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
   steeringCost: () => [SCENARIO, built().plan],
   predictSteering: () => [SCENARIO, (built().plan as { commands: unknown }).commands],
   simulatePlan: () => [SCENARIO, built().plan, { runs: 4, seed: 7 }],
-  sagnacCorrection: () => [[A, 0, 0], [6_378_137, 0, 0]],
+  sagnacCorrection: () => [
+    [A, 0, 0],
+    [6_378_137, 0, 0],
+  ],
   sagnacDelayForArea: () => [1e13],
   maximumSagnacCorrection: () => [6_378_137, A],
   shapiroDelay: () => [6_378_137, A, 2.2e7],
-  shapiroDelayBetween: () => [[A, 0, 0], [6_378_137, 0, 0]],
+  shapiroDelayBetween: () => [
+    [A, 0, 0],
+    [6_378_137, 0, 0],
+  ],
   solveLightTimeInertial: () => [0, [6_378_137, 0, 0], () => [A, 0, 0]],
   solveLightTimeEarthFixed: () => [0, [6_378_137, 0, 0], () => [A, 0, 0]],
   parsePhaseText: () => ['0 0\n1 1e-9\n2 2e-9\n', { sourceName: 'p.txt' }],
@@ -195,18 +272,33 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
   allanVarianceFromQ: () => [30, Q2],
   hadamardVarianceFromQ: () => [30, Q3],
   diffusionFromStabilitySpec: () => [{ randomWalkFrequency: { tau: 86_400, deviation: 1e-14 } }],
-  fitDiffusion: () => [[30, 300, 3000, 30_000].map((tau) => ({ tau, deviation: 1e-12 / Math.sqrt(tau) + 1e-16 * Math.sqrt(tau), kind: 'allan' }))],
+  fitDiffusion: () => [
+    [30, 300, 3000, 30_000].map((tau) => ({
+      tau,
+      deviation: 1e-12 / Math.sqrt(tau) + 1e-16 * Math.sqrt(tau),
+      kind: 'allan',
+    })),
+  ],
   fitClockPolynomial: () => [TIMES, PHASE, { degree: 2 }],
-  runClockFilter: () => [{ phase: PHASE, variance: 1e-20, tau0: 30 }, { q: Q2, states: 2 }],
+  runClockFilter: () => [
+    { phase: PHASE, variance: 1e-20, tau0: 30 },
+    { q: Q2, states: 2 },
+  ],
   forecastClock: () => [ESTIMATE, Q2, [3600]],
   applyClockStep: () => [ESTIMATE, { phase: -1e-9, frequency: -1e-12 }],
   simulateClock: () => [{ samples: 64, tau0: 1, q: Q2, seed: 1, measurementNoise: 1e-11 }],
   diffusionFromStabilityRows: () => [built().rows, { states: 2 }],
   measurementNoiseFromPhase: () => [PHASE],
-  characterizeClock: () => [{ phase: PHASE, t: TIMES, tau0: 30 }, { degree: 1, measurementSigma: 1e-11, maxPasses: 1 }],
+  characterizeClock: () => [
+    { phase: PHASE, t: TIMES, tau0: 30 },
+    { degree: 1, measurementSigma: 1e-11, maxPasses: 1 },
+  ],
   clockMeasurementNoise: () => [1e-11, undefined],
   correctPhaseJumps: () => [PHASE, TIMES, [], [3]],
-  polynomialNoiseCovariance: () => [TIMES.slice(0, 16), { degree: 1, referenceTime: 0, q: Q2, measurementVariance: 4e-20 }],
+  polynomialNoiseCovariance: () => [
+    TIMES.slice(0, 16),
+    { degree: 1, referenceTime: 0, q: Q2, measurementVariance: 4e-20 },
+  ],
 };
 
 /**
@@ -233,7 +325,11 @@ export const VALID_STREAM_CALLS: Readonly<Record<string, () => unknown[]>> = {
   readLineBatches: () => [['a\n', 'b\n']],
   readPhaseText: () => ['0 0\n1 1e-9\n2 2e-9\n', { sourceName: 'p.txt' }],
   readRinexClock: () => [CLK_TEXT, { sourceName: 'c.clk' }],
-  readRinexClockSeries: () => [CLK_TEXT, (parseRinexClock(CLK_TEXT).records[0] as { name: string }).name, { sourceName: 'c.clk' }],
+  readRinexClockSeries: () => [
+    CLK_TEXT,
+    (parseRinexClock(CLK_TEXT).records[0] as { name: string }).name,
+    { sourceName: 'c.clk' },
+  ],
   readRinexNav: () => [NAV_TEXT],
   readSp3: () => [SP3_TEXT],
   preciseRelativisticCorrections: () => [parseSp3(SP3_TEXT).epochs, { epochInterval: 900 }],

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { boundStateCheck } from '../../src/relativity/bound-state.js';
+import { InvalidArgumentError } from '../../src/errors.js';
 import { moonPositionLowPrecision } from '../../src/orbit/ephemeris.js';
+import { boundStateCheck } from '../../src/relativity/bound-state.js';
 import { MOON_MEAN_RADIUS } from '../../src/relativity/reference-clocks.js';
 import { instantFromTtSecondsSinceJ2000 } from '../../src/time/j2000.js';
-import { InvalidArgumentError } from '../../src/errors.js';
 
 /** 2023-01-01 00:00 TT, seconds since J2000.0. */
 const EPOCH_2023 = 725_803_200;
@@ -48,7 +48,9 @@ describe('boundStateCheck', () => {
   });
 
   it('boundStateCheck refuses an epoch that is not an Instant and an unknown model', () => {
-    expect(() => boundStateCheck(lunarOrbiter(1900), { model: 'full', epoch: EPOCH_2023 as never })).toThrow(InvalidArgumentError);
+    expect(() => boundStateCheck(lunarOrbiter(1900), { model: 'full', epoch: EPOCH_2023 as never })).toThrow(
+      InvalidArgumentError,
+    );
     expect(() => boundStateCheck(lunarOrbiter(1900), { model: 'egm' as never })).toThrow(/options\.model/);
   });
 });

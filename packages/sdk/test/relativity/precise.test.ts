@@ -1,15 +1,18 @@
-import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
-import {
-  PreciseCorrectionStream, lagrangeDerivativeAtNode, lagrangeInterpolate, preciseRelativisticCorrections,
-  type PreciseCorrectionResult,
-} from '../../src/relativity/precise.js';
+import { describe, expect, it } from 'vitest';
+import { GPS_ICD, SPEED_OF_LIGHT } from '../../src/constants.js';
+import { InvalidArgumentError } from '../../src/errors.js';
 import { parseSp3, readSp3, type Sp3Epoch } from '../../src/io/sp3.js';
 import { solveKepler } from '../../src/orbit/kepler.js';
-import { GPS_ICD, SPEED_OF_LIGHT } from '../../src/constants.js';
 import { periodicCorrectionFromState } from '../../src/relativity/periodic.js';
-import { InvalidArgumentError } from '../../src/errors.js';
+import {
+  lagrangeDerivativeAtNode,
+  lagrangeInterpolate,
+  type PreciseCorrectionResult,
+  PreciseCorrectionStream,
+  preciseRelativisticCorrections,
+} from '../../src/relativity/precise.js';
 
 const P_TEXT = readFileSync(new URL('../../../../test/fixtures/sp3/orbit-d-p.sp3', import.meta.url), 'utf8');
 const PV_TEXT = readFileSync(new URL('../../../../test/fixtures/sp3/orbit-c-pv.sp3', import.meta.url), 'utf8');
@@ -26,7 +29,10 @@ function analytic(sat: string, t: number): number {
   return (-2 * Math.sqrt(GPS_ICD.gm * a) * e * Math.sin(E)) / SPEED_OF_LIGHT ** 2;
 }
 
-function runAll(epochs: readonly Sp3Epoch[], options: ConstructorParameters<typeof PreciseCorrectionStream>[0]): PreciseCorrectionResult[] {
+function runAll(
+  epochs: readonly Sp3Epoch[],
+  options: ConstructorParameters<typeof PreciseCorrectionStream>[0],
+): PreciseCorrectionResult[] {
   const stream = new PreciseCorrectionStream(options);
   const out: PreciseCorrectionResult[] = [];
   for (const e of epochs) out.push(...stream.push(e));
@@ -46,7 +52,16 @@ describe('lagrangeDerivativeAtNode, lagrangeInterpolate (Berrut & Trefethen 2004
   it('lagrangeDerivativeAtNode(sin samples) approaches the cosine at the centre node (9 points, h = 900 s, 12-h period)', () => {
     const w = (2 * Math.PI) / 43200;
     const times = Array.from({ length: 9 }, (_, k) => (k - 4) * 900);
-    expect(Math.abs(lagrangeDerivativeAtNode(times, times.map((t) => Math.sin(w * t + 0.3)), 4) - w * Math.cos(0.3))).toBeLessThan(1e-9 * w);
+    expect(
+      Math.abs(
+        lagrangeDerivativeAtNode(
+          times,
+          times.map((t) => Math.sin(w * t + 0.3)),
+          4,
+        ) -
+          w * Math.cos(0.3),
+      ),
+    ).toBeLessThan(1e-9 * w);
   });
   it('lagrangeDerivativeAtNode / lagrangeInterpolate reject repeated or non-finite nodes, mismatched lengths and a bad index', () => {
     expect(() => lagrangeDerivativeAtNode([0, 0, 1], [1, 2, 3], 0)).toThrow(/distinct node abscissae/);
@@ -55,7 +70,9 @@ describe('lagrangeDerivativeAtNode, lagrangeInterpolate (Berrut & Trefethen 2004
     expect(() => lagrangeDerivativeAtNode([0], [1], 0)).toThrow(InvalidArgumentError);
     expect(() => lagrangeDerivativeAtNode([0, 1], [1, 2], 2)).toThrow(/index/);
     expect(() => lagrangeInterpolate([], [], 0)).toThrow(InvalidArgumentError);
-    expect(() => lagrangeInterpolate([0, 1], [1, 2], Number.NaN)).toThrow(/t must be in \[-1000000000000, 1000000000000\] s; received NaN/);
+    expect(() => lagrangeInterpolate([0, 1], [1, 2], Number.NaN)).toThrow(
+      /t must be in \[-1000000000000, 1000000000000\] s; received NaN/,
+    );
   });
 });
 
@@ -69,8 +86,10 @@ describe('PreciseCorrectionStream: SP3 positions only (Lagrange velocities) agai
     const ends: number[] = [];
     for (const r of res) {
       if (r.kind !== 'sample') continue;
-      const k = (r.sample.epoch.secondsSince(t0)) / 900;
-      const err = Math.abs(r.sample.relativisticSeconds - analytic(r.sample.satellite, r.sample.epoch.secondsSince(t0)));
+      const k = r.sample.epoch.secondsSince(t0) / 900;
+      const err = Math.abs(
+        r.sample.relativisticSeconds - analytic(r.sample.satellite, r.sample.epoch.secondsSince(t0)),
+      );
       // Centred: G30 epochs with 4 valid positions on each side (G31 has a hole at k = 6).
       (r.sample.satellite === 'G30' && k >= 4 && k <= 8 ? centred : ends).push(err);
     }
@@ -90,12 +109,18 @@ describe('PreciseCorrectionStream: SP3 positions only (Lagrange velocities) agai
     let compared = 0;
     for (const r of results) {
       if (r.kind !== 'sample' || r.sample.satellite !== 'G30') continue;
-      const k = Math.round((r.sample.epoch.secondsSince(t0)) / 900);
+      const k = Math.round(r.sample.epoch.secondsSince(t0) / 900);
       if (k < 4 || k > 8) continue; // centred windows: nodes k − 4 .. k + 4, all valid for G30
       const window = file.epochs.slice(k - 4, k + 5);
       const times = window.map((e) => e.epoch.secondsSince(r.sample.epoch));
       const pos = window.map((e) => e.records.find((x) => x.satellite === 'G30')!.position!);
-      const velocity = [0, 1, 2].map((c) => lagrangeDerivativeAtNode(times, pos.map((p) => p[c]!), 4)) as [number, number, number];
+      const velocity = [0, 1, 2].map((c) =>
+        lagrangeDerivativeAtNode(
+          times,
+          pos.map((p) => p[c]!),
+          4,
+        ),
+      ) as [number, number, number];
       const expected = periodicCorrectionFromState({ position: pos[4]!, velocity });
       expect(Math.abs(r.sample.relativisticSeconds - expected)).toBeLessThanOrEqual(1e-18);
       expect(r.sample.relativisticSeconds).toBe(expected);
@@ -112,9 +137,12 @@ describe('PreciseCorrectionStream: SP3 positions only (Lagrange velocities) agai
     expect(gaps[0]!.reason).toMatch(/bad\/absent marker/);
     expect(results.filter((r) => r.kind === 'sample' && r.sample.satellite === 'G31')).toHaveLength(12);
   });
-  it('PreciseCorrectionStream(...) emits each satellite\'s results in time order', () => {
+  it("PreciseCorrectionStream(...) emits each satellite's results in time order", () => {
     for (const sat of ['G30', 'G31']) {
-      const times = results.map((r) => (r.kind === 'sample' ? r.sample : r.gap)).filter((x) => x.satellite === sat).map((x) => x.epoch.secondsSince(t0));
+      const times = results
+        .map((r) => (r.kind === 'sample' ? r.sample : r.gap))
+        .filter((x) => x.satellite === sat)
+        .map((x) => x.epoch.secondsSince(t0));
       expect(times).toEqual([...times].sort((a, b) => a - b));
       expect(times).toHaveLength(13);
     }
@@ -128,7 +156,9 @@ describe('PreciseCorrectionStream: SP3 positions only (Lagrange velocities) agai
     expect(short[0]!.kind === 'gap' && short[0]!.gap.reason).toMatch(/too few valid positions.*9-point Lagrange/);
   });
   it('PreciseCorrectionStream(...) refuses a window that spans a long data gap', () => {
-    const holed = file.epochs.map((e, k) => (k >= 3 && k <= 8 ? { ...e, records: e.records.filter((r) => r.satellite !== 'G30') } : e));
+    const holed = file.epochs.map((e, k) =>
+      k >= 3 && k <= 8 ? { ...e, records: e.records.filter((r) => r.satellite !== 'G30') } : e,
+    );
     const res = runAll(holed, { epochInterval: 900, satellites: new Set(['G30']) });
     const gaps = res.filter((r) => r.kind === 'gap').map((r) => r.gap.reason);
     expect(gaps.filter((g) => /no record at this epoch/.test(g))).toHaveLength(6);
@@ -145,14 +175,18 @@ describe('PreciseCorrectionStream: SP3 positions only (Lagrange velocities) agai
   it('PreciseCorrectionStream(options) rejects a non-positive interval and a point count outside 2..16', () => {
     expect(() => new PreciseCorrectionStream({ epochInterval: 0 })).toThrow(/epochInterval/);
     expect(() => new PreciseCorrectionStream({ epochInterval: 900, lagrangePoints: 17 })).toThrow(/lagrangePoints/);
-    expect(() => new PreciseCorrectionStream({ epochInterval: 900, lagrangePoints: 1.5 })).toThrow(InvalidArgumentError);
+    expect(() => new PreciseCorrectionStream({ epochInterval: 900, lagrangePoints: 1.5 })).toThrow(
+      InvalidArgumentError,
+    );
   });
 });
 
 describe('PreciseCorrectionStream: SP3 with velocity records', () => {
   const file = parseSp3(PV_TEXT);
   it('PreciseCorrectionStream(...) uses the file velocities, and Lagrange velocities agree with them (4 epochs: all 4 nodes)', () => {
-    const fromFile = runAll(file.epochs, { epochInterval: 900 }).filter((r) => r.kind === 'sample').map((r) => r.sample);
+    const fromFile = runAll(file.epochs, { epochInterval: 900 })
+      .filter((r) => r.kind === 'sample')
+      .map((r) => r.sample);
     expect(fromFile.every((s) => s.velocitySource === 'file')).toBe(true);
     expect(fromFile).toHaveLength(11);
     const interp = runAll(file.epochs, { epochInterval: 900, lagrangePoints: 4, alwaysInterpolate: true });
@@ -167,14 +201,27 @@ describe('PreciseCorrectionStream: SP3 with velocity records', () => {
     }
   });
   it('PreciseCorrectionStream(...) treats a position inside the Earth as a gap, never as a correction', () => {
-    const bad = file.epochs.map((e, k) => (k === 0 ? { ...e, records: e.records.map((r) => (r.satellite === 'G05' ? { ...r, position: [6000, 0, 0] as const } : r)) } : e));
+    const bad = file.epochs.map((e, k) =>
+      k === 0
+        ? {
+            ...e,
+            records: e.records.map((r) => (r.satellite === 'G05' ? { ...r, position: [6000, 0, 0] as const } : r)),
+          }
+        : e,
+    );
     const res = runAll(bad, { epochInterval: 900, satellites: new Set(['G05']) });
-    expect(res[0]).toMatchObject({ kind: 'gap', gap: { satellite: 'G05', reason: expect.stringMatching(/inside the Earth/) } });
+    expect(res[0]).toMatchObject({
+      kind: 'gap',
+      gap: { satellite: 'G05', reason: expect.stringMatching(/inside the Earth/) },
+    });
   });
   it('PreciseCorrectionStream(...) on shuffled satellite order and random filters never throws and yields one result per satellite and epoch', () => {
-    fc.assert(fc.property(fc.subarray(['G05', 'E11', 'C08']), (sats) => {
-      const res = runAll(file.epochs, { epochInterval: 900, satellites: new Set(sats) });
-      expect(res).toHaveLength(sats.length * 4);
-    }), { seed: 20261202, numRuns: 20 });
+    fc.assert(
+      fc.property(fc.subarray(['G05', 'E11', 'C08']), (sats) => {
+        const res = runAll(file.epochs, { epochInterval: 900, satellites: new Set(sats) });
+        expect(res).toHaveLength(sats.length * 4);
+      }),
+      { seed: 20261202, numRuns: 20 },
+    );
   });
 });

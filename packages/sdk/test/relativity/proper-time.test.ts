@@ -1,25 +1,36 @@
-import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { integrateProperTime, properTimeSampleState } from '../../src/relativity/proper-time.js';
-import { elementsToState, type StateVector } from '../../src/orbit/elements.js';
+import { describe, expect, it } from 'vitest';
 import { IERS_2010, L_G, SPEED_OF_LIGHT_SQUARED } from '../../src/constants.js';
 import { InvalidArgumentError, OutOfDomainError } from '../../src/errors.js';
-import { instantFromTtSecondsSinceJ2000, J2000_EPOCH, ttSecondsSinceJ2000 } from '../../src/time/j2000.js';
-import { createTimeScales } from '../../src/time/scales.js';
-import { BUNDLED_LEAP_SECONDS } from '../../src/time/leap-seconds.js';
+import { elementsToState, type StateVector } from '../../src/orbit/elements.js';
+import { integrateProperTime, properTimeSampleState } from '../../src/relativity/proper-time.js';
 import type { Instant } from '../../src/time/instant.js';
+import { instantFromTtSecondsSinceJ2000, J2000_EPOCH, ttSecondsSinceJ2000 } from '../../src/time/j2000.js';
+import { BUNDLED_LEAP_SECONDS } from '../../src/time/leap-seconds.js';
+import { createTimeScales } from '../../src/time/scales.js';
 
 const DEG = Math.PI / 180;
 const GM = IERS_2010.gm;
 
 function orbit(a: number, e: number, incDeg: number): StateVector {
-  return elementsToState({ semiMajorAxis: a, eccentricity: e, inclination: incDeg * DEG, raan: 1.0, argumentOfPerigee: 0.5, meanAnomaly: 0.3 }, GM);
+  return elementsToState(
+    {
+      semiMajorAxis: a,
+      eccentricity: e,
+      inclination: incDeg * DEG,
+      raan: 1.0,
+      argumentOfPerigee: 0.5,
+      meanAnomaly: 0.3,
+    },
+    GM,
+  );
 }
 
 /** τ − TT on a Kepler orbit: (L_G − 3GM/(2ac²))·t − 2(r·v − r₀·v₀)/c² (IERS 2010 eqs. 10.9–10.11, Kepler integral [V1]). */
 function closedFormDifference(state: StateVector, duration: number, step: number): number {
   const r = integrateProperTime(state, duration, step, { model: 'point-mass' });
-  const p = state.position, v = state.velocity;
+  const p = state.position,
+    v = state.velocity;
   const a = 1 / (2 / Math.hypot(...p) - (v[0] ** 2 + v[1] ** 2 + v[2] ** 2) / GM);
   const rate = L_G - (1.5 * GM) / (a * SPEED_OF_LIGHT_SQUARED);
   const rv0 = p[0] * v[0] + p[1] * v[1] + p[2] * v[2];
@@ -39,12 +50,18 @@ describe('integrateProperTime: closed-form agreement (IERS Conventions 2010 §10
   });
 
   it('integrateProperTime point-mass agrees with the closed form for random bound orbits (property, fast-check)', () => {
-    fc.assert(fc.property(
-      fc.double({ min: 7.0e6, max: 4.3e7, noNaN: true }), fc.double({ min: 0, max: 0.3, noNaN: true }), fc.double({ min: 0, max: 180, noNaN: true }),
-      (a, e, inc) => {
-        fc.pre(a * (1 - e) > 6.6e6);
-        return closedFormDifference(orbit(a, e, inc), 21_600, 900) < 1e-15;
-      }), { seed: 20261202, numRuns: 12 });
+    fc.assert(
+      fc.property(
+        fc.double({ min: 7.0e6, max: 4.3e7, noNaN: true }),
+        fc.double({ min: 0, max: 0.3, noNaN: true }),
+        fc.double({ min: 0, max: 180, noNaN: true }),
+        (a, e, inc) => {
+          fc.pre(a * (1 - e) > 6.6e6);
+          return closedFormDifference(orbit(a, e, inc), 21_600, 900) < 1e-15;
+        },
+      ),
+      { seed: 20261202, numRuns: 12 },
+    );
   });
 });
 
@@ -61,7 +78,8 @@ describe('integrateProperTime: convergence by halving tolerances (τ − TT with
       const errors = [4e-12, 2e-12, 1e-12].map((tol) => {
         const r = integrateProperTime(state, 86_400, 600, { model: 'j2', relativeTolerance: tol });
         let worst = 0;
-        for (let k = 0; k < r.t.length; k++) worst = Math.max(worst, Math.abs(r.tauMinusTT[k]! - converged.tauMinusTT[k]!));
+        for (let k = 0; k < r.t.length; k++)
+          worst = Math.max(worst, Math.abs(r.tauMinusTT[k]! - converged.tauMinusTT[k]!));
         return worst;
       });
       expect(errors[1]!).toBeLessThan(errors[0]!);
@@ -111,8 +129,12 @@ describe('integrateProperTime: bad input', () => {
     expect(() => integrateProperTime(km, 100, 10)).toThrow(/did you mean 26561\.75 km/);
   });
   it('integrateProperTime rejects non-finite states, naming the component', () => {
-    expect(() => integrateProperTime({ position: [Number.NaN, 0, 0], velocity: [0, 1, 0] }, 100, 10)).toThrow(/state\.position\[0\]/);
-    expect(() => integrateProperTime({ position: [2.6e7, 0, 0], velocity: [0, Infinity, 0] }, 100, 10)).toThrow(/state\.velocity\[1\]/);
+    expect(() => integrateProperTime({ position: [Number.NaN, 0, 0], velocity: [0, 1, 0] }, 100, 10)).toThrow(
+      /state\.position\[0\]/,
+    );
+    expect(() => integrateProperTime({ position: [2.6e7, 0, 0], velocity: [0, Infinity, 0] }, 100, 10)).toThrow(
+      /state\.velocity\[1\]/,
+    );
     expect(() => integrateProperTime(null as unknown as StateVector, 100, 10)).toThrow(InvalidArgumentError);
   });
   it('integrateProperTime rejects duration ≤ 0, step ≤ 0 and a step larger than the duration', () => {
@@ -123,9 +145,13 @@ describe('integrateProperTime: bad input', () => {
     expect(() => integrateProperTime(good, 1e9, 1e-3)).toThrow(/at most 10000000 samples/);
   });
   it('integrateProperTime rejects an unknown model, a bad tolerance and an epoch that is not an Instant', () => {
-    expect(() => integrateProperTime(good, 100, 10, { model: 'egm2008' as never })).toThrow(/model must be one of point-mass, j2, full/);
+    expect(() => integrateProperTime(good, 100, 10, { model: 'egm2008' as never })).toThrow(
+      /model must be one of point-mass, j2, full/,
+    );
     expect(() => integrateProperTime(good, 100, 10, { relativeTolerance: 1e-3 })).toThrow(/relativeTolerance/);
-    expect(() => integrateProperTime(good, 100, 10, { epoch: 8e8 as unknown as Instant })).toThrow(/options\.epoch.*an Instant/);
+    expect(() => integrateProperTime(good, 100, 10, { epoch: 8e8 as unknown as Instant })).toThrow(
+      /options\.epoch.*an Instant/,
+    );
   });
   it('integrateProperTime throws OutOfDomainError when the trajectory enters the Earth', () => {
     // Released at 7000 km with 1 km/s tangential speed: falls into the Earth within minutes.
@@ -139,11 +165,19 @@ describe('integrateProperTime(state, duration, step, { onProgress })', () => {
   it('reports increasing times up to the duration and leaves the result unchanged', () => {
     const state = orbit(26_561_750, 0.01, 55);
     const reached: number[] = [];
-    const r = integrateProperTime(state, 86_400, 21_600, { model: 'point-mass', onProgress: (t, d) => { expect(d).toBe(86_400); reached.push(t); } });
+    const r = integrateProperTime(state, 86_400, 21_600, {
+      model: 'point-mass',
+      onProgress: (t, d) => {
+        expect(d).toBe(86_400);
+        reached.push(t);
+      },
+    });
     expect(reached.length).toBe(r.acceptedSteps);
     expect(reached.every((t, k) => k === 0 || t > reached[k - 1]!)).toBe(true);
     expect(reached.at(-1)).toBe(86_400);
-    expect(Array.from(r.tauMinusTT)).toEqual(Array.from(integrateProperTime(state, 86_400, 21_600, { model: 'point-mass' }).tauMinusTT));
+    expect(Array.from(r.tauMinusTT)).toEqual(
+      Array.from(integrateProperTime(state, 86_400, 21_600, { model: 'point-mass' }).tauMinusTT),
+    );
   });
 });
 
@@ -152,8 +186,14 @@ describe('integrateProperTime at an Instant epoch', () => {
   const state = orbit(26_561_750, 0.01, 55);
 
   it('integrateProperTime(full, { epoch: 2025-05-08T18:13:20 TT }) gives exactly the samples of the epoch 8e8 TT seconds after J2000.0 (the same instant, Python datetime [C])', () => {
-    const fromText = integrateProperTime(state, 21_600, 3600, { model: 'full', epoch: ts.parseIso('2025-05-08T18:13:20', 'TT') });
-    const fromSeconds = integrateProperTime(state, 21_600, 3600, { model: 'full', epoch: instantFromTtSecondsSinceJ2000(8e8) });
+    const fromText = integrateProperTime(state, 21_600, 3600, {
+      model: 'full',
+      epoch: ts.parseIso('2025-05-08T18:13:20', 'TT'),
+    });
+    const fromSeconds = integrateProperTime(state, 21_600, 3600, {
+      model: 'full',
+      epoch: instantFromTtSecondsSinceJ2000(8e8),
+    });
     expect(Array.from(fromText.tauMinusTT)).toEqual(Array.from(fromSeconds.tauMinusTT));
     expect(Array.from(fromText.states)).toEqual(Array.from(fromSeconds.states));
     expect(fromText.epoch.equals(fromSeconds.epoch)).toBe(true);

@@ -1,9 +1,15 @@
 import { describe, expect, it } from 'vitest';
-import {
-  GRS80_ELLIPSOID, WGS84_ELLIPSOID, groundClockRate, lunarClockRate, normalGravity, normalGravityPotential, tcgRateVsTT,
-} from '../../src/relativity/reference-clocks.js';
 import { IERS_2010, L_G } from '../../src/constants.js';
 import { InvalidArgumentError } from '../../src/errors.js';
+import {
+  GRS80_ELLIPSOID,
+  groundClockRate,
+  lunarClockRate,
+  normalGravity,
+  normalGravityPotential,
+  tcgRateVsTT,
+  WGS84_ELLIPSOID,
+} from '../../src/relativity/reference-clocks.js';
 
 const DEG = Math.PI / 180;
 
@@ -18,7 +24,7 @@ describe('normal gravity field of the reference ellipsoids', () => {
     expect(normalGravity(0)).toBeCloseTo(9.7803267715, 9);
     expect(normalGravity(Math.PI / 2)).toBeCloseTo(9.8321863685, 9);
   });
-  it('−∂U/∂h from normalGravityPotential equals Somigliana\'s γ(φ) to 1e-6 m/s² (independent closed forms)', () => {
+  it("−∂U/∂h from normalGravityPotential equals Somigliana's γ(φ) to 1e-6 m/s² (independent closed forms)", () => {
     for (const lat of [0, 25, 50, 75, 90]) {
       const h = 50;
       const g = -(normalGravityPotential(lat * DEG, h) - normalGravityPotential(lat * DEG, -h)) / (2 * h);
@@ -28,7 +34,9 @@ describe('normal gravity field of the reference ellipsoids', () => {
   it('normalGravityPotential rejects degrees, absurd heights and a malformed ellipsoid', () => {
     expect(() => normalGravityPotential(45, 0)).toThrow(/did you give degrees/);
     expect(() => normalGravityPotential(0, 2e8)).toThrow(/height/);
-    expect(() => normalGravityPotential(0, 0, { ...GRS80_ELLIPSOID, semiMajorAxis: 6378.137 })).toThrow(/ellipsoid\.semiMajorAxis/);
+    expect(() => normalGravityPotential(0, 0, { ...GRS80_ELLIPSOID, semiMajorAxis: 6378.137 })).toThrow(
+      /ellipsoid\.semiMajorAxis/,
+    );
     expect(() => normalGravity(0, null as never)).toThrow(/ReferenceEllipsoid/);
   });
 });
@@ -57,7 +65,9 @@ describe('groundClockRate(station)', () => {
     expect(() => groundClockRate({ latitude: 45, longitude: 0, height: 0 })).toThrow(/station\.latitude/);
     expect(() => groundClockRate({ latitude: 0, longitude: 400, height: 0 })).toThrow(/station\.longitude/);
     expect(() => groundClockRate({ latitude: 0, longitude: 0, height: 4e5 })).toThrow(/station\.height/);
-    expect(() => groundClockRate({ latitude: 0, longitude: 0, height: 0, geoidUndulation: 300 })).toThrow(/geoidUndulation/);
+    expect(() => groundClockRate({ latitude: 0, longitude: 0, height: 0, geoidUndulation: 300 })).toThrow(
+      /geoidUndulation/,
+    );
     expect(() => groundClockRate(undefined as never)).toThrow(InvalidArgumentError);
   });
 });

@@ -1,17 +1,25 @@
-import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { MAX_GRID_EPOCHS, periodicCorrectionOnTimeGrid } from '../../src/relativity/index.js';
-import { solveKepler } from '../../src/orbit/index.js';
-import { GPS_ICD, IERS_2010, type ConstantSet } from '../../src/constants.js';
+import { describe, expect, it } from 'vitest';
+import { type ConstantSet, GPS_ICD, IERS_2010 } from '../../src/constants.js';
 import { InvalidArgumentError } from '../../src/errors.js';
+import { solveKepler } from '../../src/orbit/index.js';
+import { MAX_GRID_EPOCHS, periodicCorrectionOnTimeGrid } from '../../src/relativity/index.js';
 
 const SEED = 20261203;
 
 /** The same series the slow way: a converged Kepler solve per epoch, then F·e·√a·sin E. */
-function direct(a: number, e: number, M0: number, h: number, count: number, set: ConstantSet = IERS_2010): Float64Array {
+function direct(
+  a: number,
+  e: number,
+  M0: number,
+  h: number,
+  count: number,
+  set: ConstantSet = IERS_2010,
+): Float64Array {
   const n = Math.sqrt(set.gm / a ** 3);
   const out = new Float64Array(count);
-  for (let k = 0; k < count; k++) out[k] = set.relativisticF * e * Math.sqrt(a) * Math.sin(solveKepler(M0 + n * k * h, e));
+  for (let k = 0; k < count; k++)
+    out[k] = set.relativisticF * e * Math.sqrt(a) * Math.sin(solveKepler(M0 + n * k * h, e));
   return out;
 }
 
@@ -25,7 +33,11 @@ describe('periodicCorrectionOnTimeGrid(orbit, grid, { constants })', () => {
   it('periodicCorrectionOnTimeGrid starts at the IS-GPS-200 check value Δt_r = −2.378695477618e-08 s (physics-refs §3, √A = 5153.79589081, e = 0.0123456789, E = 1 rad [C])', () => {
     const e = 0.0123456789;
     const a = 5153.79589081 ** 2;
-    const out = periodicCorrectionOnTimeGrid({ semiMajorAxis: a, eccentricity: e, meanAnomalyAtStart: 1 - e * Math.sin(1) }, { stepSeconds: 30, count: 3 }, { constants: GPS_ICD });
+    const out = periodicCorrectionOnTimeGrid(
+      { semiMajorAxis: a, eccentricity: e, meanAnomalyAtStart: 1 - e * Math.sin(1) },
+      { stepSeconds: 30, count: 3 },
+      { constants: GPS_ICD },
+    );
     expect(Math.abs(out[0]! - -2.378695477618e-8)).toBeLessThan(5e-21);
   });
 
@@ -39,24 +51,37 @@ describe('periodicCorrectionOnTimeGrid(orbit, grid, { constants })', () => {
     ['LEO, e = 0.001, 0.1 s', 7_000_000, 0.001, 0.1, 60_000],
     ['coarse grid: GNSS at 900 s for 30 days', 26_561_750, 0.02, 900, 2880],
   ];
-  it.each(cases)('periodicCorrectionOnTimeGrid agrees with a converged Kepler solve at every epoch within 1e-17 s: %s', (_name, a, e, h, count) => {
-    const M0 = 0.3;
-    const fast = periodicCorrectionOnTimeGrid({ semiMajorAxis: a, eccentricity: e, meanAnomalyAtStart: M0 }, { stepSeconds: h, count });
-    const slow = direct(a, e, M0, h, count);
-    expect(fast.length).toBe(count);
-    expect(maxAbsDifference(fast, slow)).toBeLessThan(1e-17);
-  });
+  it.each(cases)(
+    'periodicCorrectionOnTimeGrid agrees with a converged Kepler solve at every epoch within 1e-17 s: %s',
+    (_name, a, e, h, count) => {
+      const M0 = 0.3;
+      const fast = periodicCorrectionOnTimeGrid(
+        { semiMajorAxis: a, eccentricity: e, meanAnomalyAtStart: M0 },
+        { stepSeconds: h, count },
+      );
+      const slow = direct(a, e, M0, h, count);
+      expect(fast.length).toBe(count);
+      expect(maxAbsDifference(fast, slow)).toBeLessThan(1e-17);
+    },
+  );
 
   it('periodicCorrectionOnTimeGrid agrees with the per-epoch solve within 1e-17 s on random orbits and grids (property, e ≤ 0.9)', () => {
-    fc.assert(fc.property(
-      fc.double({ min: 6.6e6, max: 6e7, noNaN: true }),
-      fc.double({ min: 0, max: 0.9, noNaN: true }),
-      fc.double({ min: -50, max: 50, noNaN: true }),
-      fc.double({ min: 0.05, max: 2000, noNaN: true }),
-      (a, e, M0, h) => {
-        const fast = periodicCorrectionOnTimeGrid({ semiMajorAxis: a, eccentricity: e, meanAnomalyAtStart: M0 }, { stepSeconds: h, count: 500 });
-        return maxAbsDifference(fast, direct(a, e, M0, h, 500)) < 1e-17;
-      }), { seed: SEED, numRuns: 300 });
+    fc.assert(
+      fc.property(
+        fc.double({ min: 6.6e6, max: 6e7, noNaN: true }),
+        fc.double({ min: 0, max: 0.9, noNaN: true }),
+        fc.double({ min: -50, max: 50, noNaN: true }),
+        fc.double({ min: 0.05, max: 2000, noNaN: true }),
+        (a, e, M0, h) => {
+          const fast = periodicCorrectionOnTimeGrid(
+            { semiMajorAxis: a, eccentricity: e, meanAnomalyAtStart: M0 },
+            { stepSeconds: h, count: 500 },
+          );
+          return maxAbsDifference(fast, direct(a, e, M0, h, 500)) < 1e-17;
+        },
+      ),
+      { seed: SEED, numRuns: 300 },
+    );
   });
 
   it('periodicCorrectionOnTimeGrid returns an empty array for count 0 and uses the constant set given', () => {
@@ -95,7 +120,15 @@ describe('periodicCorrectionOnTimeGrid(orbit, grid, { constants, out })', () => 
     expect(result).toBe(out);
     expect(maxAbsDifference(out.subarray(0, 100), direct(26_561_750, 0.01, 0.2, 30, 100))).toBeLessThan(1e-17);
     expect(Number.isNaN(out[100])).toBe(true);
-    expect(() => periodicCorrectionOnTimeGrid(orbit, { stepSeconds: 30, count: 100 }, { constants: IERS_2010, out: new Float64Array(99) })).toThrow(/out/);
-    expect(() => periodicCorrectionOnTimeGrid(orbit, { stepSeconds: 30, count: 1 }, { constants: IERS_2010, out: [0] as never })).toThrow(InvalidArgumentError);
+    expect(() =>
+      periodicCorrectionOnTimeGrid(
+        orbit,
+        { stepSeconds: 30, count: 100 },
+        { constants: IERS_2010, out: new Float64Array(99) },
+      ),
+    ).toThrow(/out/);
+    expect(() =>
+      periodicCorrectionOnTimeGrid(orbit, { stepSeconds: 30, count: 1 }, { constants: IERS_2010, out: [0] as never }),
+    ).toThrow(InvalidArgumentError);
   });
 });

@@ -8,9 +8,24 @@ import { reviewOffsets } from '../../src/review/index.js';
  * a = 3GM/(2c²(L_G − r)) that needs it (IERS Conventions 2010 eq. 10.9 averaged [V1]; IERS 2010 GM and L_G).
  */
 const CASES = [
-  { text: '-4.53e-10', rate: 4.5300000020520898674e-10, semiMajorAxis: 27_272_450.995257697, naiveRate: 4.5300008189030905e-10 },
-  { text: '-5.3e-10', rate: 5.3000000028090003109e-10, semiMajorAxis: 39_852_521.346484400647, naiveRate: 5.300000438523966e-10 },
-  { text: '-1e-15', rate: 1.0000000000000010777e-15, semiMajorAxis: 9_545_522.5371437280115, naiveRate: 1.1102230246251565e-15 },
+  {
+    text: '-4.53e-10',
+    rate: 4.5300000020520898674e-10,
+    semiMajorAxis: 27_272_450.995257697,
+    naiveRate: 4.5300008189030905e-10,
+  },
+  {
+    text: '-5.3e-10',
+    rate: 5.3000000028090003109e-10,
+    semiMajorAxis: 39_852_521.346484400647,
+    naiveRate: 5.300000438523966e-10,
+  },
+  {
+    text: '-1e-15',
+    rate: 1.0000000000000010777e-15,
+    semiMajorAxis: 9_545_522.5371437280115,
+    naiveRate: 1.1102230246251565e-15,
+  },
 ];
 
 describe('the rate a factory offset compensates, −c/(1 + c), against mpmath (implied-orbit.py)', () => {
@@ -29,7 +44,9 @@ describe('the rate a factory offset compensates, −c/(1 + c), against mpmath (i
     const doc = {
       nominalFrequencyHz: 10_230_000,
       tolerance: { fractional: 1e-12 },
-      spacecraft: [{ id: 'PELLAN-7', configured: { fractionalOffset: Number('-4.53e-10') }, orbit: { semiMajorAxis: 26_561_750 } }],
+      spacecraft: [
+        { id: 'PELLAN-7', configured: { fractionalOffset: Number('-4.53e-10') }, orbit: { semiMajorAxis: 26_561_750 } },
+      ],
     };
     const finding = reviewOffsets(doc, { monteCarloRuns: 100 }).spacecraft[0]!;
     expect(finding.verdict).toBe('fail');

@@ -13,8 +13,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { analyzeStability, ONE_SIGMA_CONFIDENCE } from '../../src/stability/analyze.js';
-import type { NoiseType } from '../../src/stability/types.js';
 import { barnesB1, expectedModifiedRatio } from '../../src/stability/noise-id.js';
+import type { NoiseType } from '../../src/stability/types.js';
 import { PowerLawNoise } from './power-law-noise.js';
 
 const N = 4096;
@@ -61,7 +61,10 @@ describe('OADEV ±1σ interval coverage on Kasdin–Walter power-law noise (iden
         // The exact expectation [C] agrees with the ensemble mean of the estimates (a check of the
         // generator and of the truth): the mean of R estimates of edf ≥ 1.5 has relative sd ≤ √(2/(1.5R)) ≈ 0.08;
         // 4 sd allowed.
-        expect(Math.abs(result.ensembleVariance[i]! / result.trueVariance[i]! - 1), `${noise} m = ${FACTORS[i]}: ensemble/true`).toBeLessThan(0.33);
+        expect(
+          Math.abs(result.ensembleVariance[i]! / result.trueVariance[i]! - 1),
+          `${noise} m = ${FACTORS[i]}: ensemble/true`,
+        ).toBeLessThan(0.33);
       }
       // The identification itself, measured (not a published figure): at τ = 128 τ0 (32 averages)
       // at least 70 % of realisations get the generated type; the old lag-1-only rule gave 12 % for FPM and 31 % for FFM.

@@ -20,7 +20,7 @@ export const PHASE_BETA: Readonly<Record<NoiseType, number>> = { WPM: 0, FPM: 1,
 export function kasdinWalterResponse(beta: number, n: number): Float64Array {
   const h = new Float64Array(n);
   h[0] = 1;
-  for (let k = 1; k < n; k++) h[k] = h[k - 1]! * (beta / 2 + k - 1) / k;
+  for (let k = 1; k < n; k++) h[k] = (h[k - 1]! * (beta / 2 + k - 1)) / k;
   return h;
 }
 

@@ -1,10 +1,19 @@
 import { describe, expect, it } from 'vitest';
 import { InvalidArgumentError } from '../../src/errors.js';
-import {
-  analyzeStability, chiSquareInterval, deviations, equivalentDegreesOfFreedom, factorsForTaus, frequencyFromPhase, identifyNoise,
-  overlappingAllanEdf, phaseFromFrequency, toPhaseSeries, type StatisticName,
-} from '../../src/stability/index.js';
 import { quadraticFormEdf } from '../../src/stability/edf.js';
+import {
+  analyzeStability,
+  chiSquareInterval,
+  deviations,
+  equivalentDegreesOfFreedom,
+  factorsForTaus,
+  frequencyFromPhase,
+  identifyNoise,
+  overlappingAllanEdf,
+  phaseFromFrequency,
+  type StatisticName,
+  toPhaseSeries,
+} from '../../src/stability/index.js';
 
 /** Tiny seeded generator for tests: 32-bit LCG (Numerical Recipes constants) + Box–Muller; common practice, no source needed for correctness. */
 function gaussian(seed: number): () => number {
@@ -63,7 +72,12 @@ describe('phase ↔ frequency conversion', () => {
   it('frequencyFromPhase(x, τ0) gives two missing frequency values around one missing phase point', () => {
     const y = frequencyFromPhase([0, 1, Number.NaN, 3, 4], 1);
     expect(y.length).toBe(4);
-    expect([Number.isNaN(y[0]!), Number.isNaN(y[1]!), Number.isNaN(y[2]!), Number.isNaN(y[3]!)]).toEqual([false, true, true, false]);
+    expect([Number.isNaN(y[0]!), Number.isNaN(y[1]!), Number.isNaN(y[2]!), Number.isNaN(y[3]!)]).toEqual([
+      false,
+      true,
+      true,
+      false,
+    ]);
   });
   it('frequencyFromPhase(x) rejects a missing tau0 and ±Infinity samples', () => {
     expect(() => frequencyFromPhase([0, 1])).toThrow(InvalidArgumentError);
@@ -118,7 +132,12 @@ describe('gaps', () => {
         expect(Math.abs(p.deviation - ref.dev) / ref.dev).toBeLessThan(1e-12);
       }
       // Fewer terms than the gap-free count: the reduced n is reported.
-      const full = bruteForce(stat, x.map((v) => (Number.isNaN(v) ? 0 : v)), 1, 1);
+      const full = bruteForce(
+        stat,
+        x.map((v) => (Number.isNaN(v) ? 0 : v)),
+        1,
+        1,
+      );
       expect(points[0]!.n).toBeLessThan(full.n);
     });
   }
@@ -145,7 +164,9 @@ describe('gaps', () => {
   });
   it('deviations(totdev, data with gaps) rejects the input instead of reflecting across a gap', () => {
     expect(() => deviations('totdev', { phase: x, tau0: 1 })).toThrow(/gap-free/);
-    expect(() => analyzeStability({ frequency: [1, Number.NaN, 2, 3, 4], tau0: 1 }, { statistics: ['totdev'] })).toThrow(InvalidArgumentError);
+    expect(() =>
+      analyzeStability({ frequency: [1, Number.NaN, 2, 3, 4], tau0: 1 }, { statistics: ['totdev'] }),
+    ).toThrow(InvalidArgumentError);
   });
   it('analyzeStability(data with gaps) counts the missing samples in its input summary', () => {
     const a = analyzeStability({ phase: x, tau0: 1 });
@@ -183,9 +204,17 @@ describe('equivalent degrees of freedom and intervals', () => {
   });
   it('quadraticFormEdf for overlapping ADEV, N = 1001, agrees with the Monte-Carlo edf of the reference sheet §10 within 5 % [C]', () => {
     // Reference sheet §10: MC (4000 trials) WFM m = 1/10/100 → 660.8/143.1/12.9; WPM 503/514/455; RWFM 999.7/91.9/8.0.
-    const cases: [('WFM' | 'WPM' | 'RWFM'), number, number][] = [
-      ['WFM', 1, 660.8], ['WFM', 10, 143.1], ['WFM', 100, 12.9], ['WPM', 1, 503], ['WPM', 10, 514], ['WPM', 100, 455],
-      ['RWFM', 1, 999.7], ['RWFM', 10, 91.9], ['RWFM', 100, 8.0]];
+    const cases: ['WFM' | 'WPM' | 'RWFM', number, number][] = [
+      ['WFM', 1, 660.8],
+      ['WFM', 10, 143.1],
+      ['WFM', 100, 12.9],
+      ['WPM', 1, 503],
+      ['WPM', 10, 514],
+      ['WPM', 100, 455],
+      ['RWFM', 1, 999.7],
+      ['RWFM', 10, 91.9],
+      ['RWFM', 100, 8.0],
+    ];
     for (const [noise, m, mc] of cases) {
       const edf = quadraticFormEdf(noise, [0, m, 2 * m], [1, -2, 1], 1, 1001 - 2 * m);
       expect(Math.abs(edf - mc) / mc).toBeLessThan(0.05);
@@ -248,7 +277,9 @@ describe('noise identification (lag-1 autocorrelation, Riley & Greenhall 2004 [M
     expect(a.rows[0]!.noiseSource).toBe('identified');
     expect(a.rows.at(-1)!.noiseSource).toBe('carried-from-shorter-tau');
     expect(analyzeStability({ phase: walk.slice(0, 20), tau0: 1 }).rows[0]!.noiseSource).toBe('default-wfm');
-    expect(analyzeStability({ phase: walk.slice(0, 20), tau0: 1 }, { noise: 'RWFM' }).rows[0]!.noiseSource).toBe('stated');
+    expect(analyzeStability({ phase: walk.slice(0, 20), tau0: 1 }, { noise: 'RWFM' }).rows[0]!.noiseSource).toBe(
+      'stated',
+    );
   });
 });
 
@@ -262,7 +293,9 @@ describe('analyzeStability options', () => {
   });
   it('analyzeStability rejects an empty or unknown statistics list, a bad confidence and an unknown noise type', () => {
     expect(() => analyzeStability({ phase: x, tau0: 1 }, { statistics: [] })).toThrow(InvalidArgumentError);
-    expect(() => analyzeStability({ phase: x, tau0: 1 }, { statistics: ['foo' as never] })).toThrow(InvalidArgumentError);
+    expect(() => analyzeStability({ phase: x, tau0: 1 }, { statistics: ['foo' as never] })).toThrow(
+      InvalidArgumentError,
+    );
     expect(() => analyzeStability({ phase: x, tau0: 1 }, { confidence: 1.5 })).toThrow(InvalidArgumentError);
     expect(() => analyzeStability({ phase: x, tau0: 1 }, { confidence: 0 })).toThrow(InvalidArgumentError);
     expect(() => analyzeStability({ phase: x, tau0: 1 }, { noise: 'PINK' as never })).toThrow(InvalidArgumentError);

@@ -23,7 +23,14 @@ describe('strategy comparison on the bundled examples (invented satellites and s
   it('planSteering(scenario): optimal is never worse than deadband on J across a sweep of contact patterns and offsets', () => {
     for (const gap of [3, 6, 12]) {
       for (const y0 of [-3e-13, 5e-14, 4e-13]) {
-        const s = baseScenario({ clock: { phaseSeconds: 4e-9, fractionalFrequency: y0, driftPerSecond: 1e-19, noise: { q1: 1e-24, q2: 1e-34, q3: 0 } } });
+        const s = baseScenario({
+          clock: {
+            phaseSeconds: 4e-9,
+            fractionalFrequency: y0,
+            driftPerSecond: 1e-19,
+            noise: { q1: 1e-24, q2: 1e-34, q3: 0 },
+          },
+        });
         s.contacts = s.contacts.filter((_, i) => i % (gap / 3) === 0);
         const d = planSteering(s, { strategy: 'deadband' }).metrics.expectedCost;
         const o = planSteering(s, { strategy: 'optimal' }).metrics.expectedCost;
@@ -47,7 +54,9 @@ describe('simulatePlan (seeded Monte Carlo)', () => {
   });
 
   it('simulatePlan(scenario, none) reproduces the open-loop variance q1 t + q2 t³/3 at the horizon within its sampling error (Zucca & Tavella 2005 Q11; independent simulation)', () => {
-    const s = baseScenario({ clock: { phaseSeconds: 0, fractionalFrequency: 0, driftPerSecond: 0, noise: { q1: 1e-24, q2: 1e-34, q3: 0 } } });
+    const s = baseScenario({
+      clock: { phaseSeconds: 0, fractionalFrequency: 0, driftPerSecond: 0, noise: { q1: 1e-24, q2: 1e-34, q3: 0 } },
+    });
     // With tolerance b, P(|x| ≤ b) at the horizon for x ~ N(0, σ²) is 2Φ(b/σ) − 1; choose b = σ(H) so P = 0.6827.
     const h = s.horizonSeconds;
     const sigma = Math.sqrt(1e-24 * h + (1e-34 * h ** 3) / 3);

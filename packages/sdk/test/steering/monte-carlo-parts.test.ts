@@ -5,12 +5,19 @@ import { combineMonteCarloParts, planSteering, simulatePlan, simulatePlanRuns } 
 import { example } from './helpers.js';
 
 describe('simulatePlanRuns and combineMonteCarloParts (runs split into ranges)', () => {
-  it('combineMonteCarloParts(simulatePlanRuns ranges) gives exactly simulatePlan\'s summary, whatever the split and the order of the parts', () => {
+  it("combineMonteCarloParts(simulatePlanRuns ranges) gives exactly simulatePlan's summary, whatever the split and the order of the parts", () => {
     const s = example('orin-3-meo');
     const plan = planSteering(s);
     const whole = simulatePlan(s, plan, { runs: 120, seed: 9 });
-    for (const cuts of [[0, 120], [0, 1, 120], [0, 37, 50, 119, 120], [0, 40, 80, 120]]) {
-      const parts = cuts.slice(1).map((end, i) => simulatePlanRuns(s, plan, { seed: 9, firstRun: cuts[i]!, runCount: end - cuts[i]! }));
+    for (const cuts of [
+      [0, 120],
+      [0, 1, 120],
+      [0, 37, 50, 119, 120],
+      [0, 40, 80, 120],
+    ]) {
+      const parts = cuts
+        .slice(1)
+        .map((end, i) => simulatePlanRuns(s, plan, { seed: 9, firstRun: cuts[i]!, runCount: end - cuts[i]! }));
       expect(combineMonteCarloParts(parts), `cuts ${cuts.join(',')}`).toEqual(whole);
       expect(combineMonteCarloParts([...parts].reverse())).toEqual(whole);
     }
@@ -50,7 +57,7 @@ describe('streamState(seed, index) (per-run random streams)', () => {
     expect(fmix32(0xffffffff)).toBe(0x81f16f39);
   });
 
-  it('streamState(seed, index) gives 200 000 distinct states for one seed, and the streams\' first normals are N(0, 1) and uncorrelated from run to run', () => {
+  it("streamState(seed, index) gives 200 000 distinct states for one seed, and the streams' first normals are N(0, 1) and uncorrelated from run to run", () => {
     const out = new Uint32Array(4);
     const seen = new Set<string>();
     for (let i = 0; i < 200_000; i++) {

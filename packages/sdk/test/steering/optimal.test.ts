@@ -1,14 +1,16 @@
 import { describe, expect, it } from 'vitest';
-import { planSteering, validateScenario } from '../../src/steering/index.js';
 import { feedForwardManeuvers } from '../../src/steering/constraints.js';
 import { DEADBAND_REASON_PREFIX, planDeadband } from '../../src/steering/deadband.js';
+import { planSteering, validateScenario } from '../../src/steering/index.js';
 import { actuatorLimitMessages, planOptimal } from '../../src/steering/optimal.js';
 import type { InternalCommand } from '../../src/steering/predict.js';
 import { baseScenario } from './helpers.js';
 
 /** A clock 15 ns off with phase steps allowed but limited to 2 ns each (common practice, no source). */
 function phaseLimitedScenario() {
-  const s = baseScenario({ clock: { phaseSeconds: 1.5e-8, fractionalFrequency: 0, driftPerSecond: 0, noise: { q1: 0, q2: 0, q3: 0 } } });
+  const s = baseScenario({
+    clock: { phaseSeconds: 1.5e-8, fractionalFrequency: 0, driftPerSecond: 0, noise: { q1: 0, q2: 0, q3: 0 } },
+  });
   s.actuator.phaseSteps = { allowed: true, resolution: 1e-10, maxStep: 2e-9 };
   return s;
 }
@@ -31,17 +33,30 @@ describe('planOptimal actuator limits', () => {
 
   it('actuatorLimitMessages(norm, commands) reads the limitedBy flags, one message per limit, and ignores the reason text', () => {
     const norm = validateScenario(phaseLimitedScenario());
-    const command = (extra: Partial<InternalCommand>): InternalCommand =>
-      ({ uplinkAt: 3600, executeAt: 3600, kind: 'frequency', steps: 1, amount: 1e-15, reason: '', ...extra });
-    expect(actuatorLimitMessages(norm, [
-      command({ limitedBy: 'maxFrequencyStep' }), command({ limitedBy: 'maxFrequencyStep' }),
-      command({ limitedBy: 'cumulativeFrequencyRange' }), command({ kind: 'phase', amount: 2e-9, limitedBy: 'maxPhaseStep' }),
-    ])).toEqual([
+    const command = (extra: Partial<InternalCommand>): InternalCommand => ({
+      uplinkAt: 3600,
+      executeAt: 3600,
+      kind: 'frequency',
+      steps: 1,
+      amount: 1e-15,
+      reason: '',
+      ...extra,
+    });
+    expect(
+      actuatorLimitMessages(norm, [
+        command({ limitedBy: 'maxFrequencyStep' }),
+        command({ limitedBy: 'maxFrequencyStep' }),
+        command({ limitedBy: 'cumulativeFrequencyRange' }),
+        command({ kind: 'phase', amount: 2e-9, limitedBy: 'maxPhaseStep' }),
+      ]),
+    ).toEqual([
       'the needed step exceeds maxFrequencyStep (1.00e-12)',
       'the cumulative range [-1.00e-10, 1.00e-10] is exhausted',
       'the needed phase step exceeds actuator.phaseSteps.maxStep (2 ns)',
     ]);
-    expect(actuatorLimitMessages(norm, [command({ reason: 'optimal (quantised LQ): ... (limited by the maximum step)' })])).toEqual([]);
+    expect(
+      actuatorLimitMessages(norm, [command({ reason: 'optimal (quantised LQ): ... (limited by the maximum step)' })]),
+    ).toEqual([]);
   });
 });
 
@@ -55,7 +70,7 @@ describe('planOptimal deadband safeguard', () => {
     });
   }
 
-  it('planOptimal(norm, fixed) keeping the deadband schedule relabels the deadband planner\'s commands (planner field) and leaves feed-forward ones as they are', () => {
+  it("planOptimal(norm, fixed) keeping the deadband schedule relabels the deadband planner's commands (planner field) and leaves feed-forward ones as they are", () => {
     const norm = validateScenario(deadbandWinsScenario());
     const fixed = feedForwardManeuvers(norm).commands;
     expect(fixed).toHaveLength(1);
@@ -68,7 +83,9 @@ describe('planOptimal deadband safeguard', () => {
       expect({ ...kept, reason: '' }).toEqual({ ...c, reason: '' });
       if (c.planner === 'deadband') {
         expect(c.reason.startsWith(DEADBAND_REASON_PREFIX)).toBe(true);
-        expect(kept.reason).toBe(`optimal (deadband schedule kept: lower expected cost than the LQ schedule): ${c.reason.slice(DEADBAND_REASON_PREFIX.length)}`);
+        expect(kept.reason).toBe(
+          `optimal (deadband schedule kept: lower expected cost than the LQ schedule): ${c.reason.slice(DEADBAND_REASON_PREFIX.length)}`,
+        );
       } else {
         expect(c.planner).toBeUndefined();
         expect(kept.reason).toBe(c.reason);
@@ -79,7 +96,8 @@ describe('planOptimal deadband safeguard', () => {
 
   it('planSteering(scenario, {strategy: "optimal"}) plans a grid of 144 001 epochs (more than a spread argument list holds) without overflowing the call stack', () => {
     const s = baseScenario({
-      gridSeconds: 1.2, contacts: [{ start: '2027-01-02T23:00:00Z', end: '2027-01-02T23:01:00Z' }],
+      gridSeconds: 1.2,
+      contacts: [{ start: '2027-01-02T23:00:00Z', end: '2027-01-02T23:01:00Z' }],
       clock: { phaseSeconds: 2e-9, fractionalFrequency: 0, driftPerSecond: 0, noise: { q1: 1e-24, q2: 1e-34, q3: 0 } },
     });
     const plan = planSteering(s, { strategy: 'optimal' });

@@ -7,7 +7,9 @@ const DAY = 86_400;
 
 describe('planSteering', () => {
   it('planSteering(scenario, {strategy: "none"}) predicts the walk-off 8.640 ns/day for y0 = 1e-13 (physics-refs §12 walk-off check [C])', () => {
-    const s = baseScenario({ clock: { phaseSeconds: 0, fractionalFrequency: 1e-13, driftPerSecond: 0, noise: { q1: 0, q2: 0, q3: 0 } } });
+    const s = baseScenario({
+      clock: { phaseSeconds: 0, fractionalFrequency: 1e-13, driftPerSecond: 0, noise: { q1: 0, q2: 0, q3: 0 } },
+    });
     const plan = planSteering(s, { strategy: 'none' });
     const i = plan.predicted.t.indexOf(DAY);
     expect(plan.predicted.unsteered.phaseSeconds[i]).toBeCloseTo(8.64e-9, 18);
@@ -15,7 +17,10 @@ describe('planSteering', () => {
   });
 
   it('planSteering(scenario) predicts pure drift D = 1e-13/day reaching 10 ns after 1.315e5 s (physics-refs §12 [C])', () => {
-    const s = baseScenario({ gridSeconds: 60, clock: { phaseSeconds: 0, fractionalFrequency: 0, driftPerSecond: 1e-13 / DAY, noise: { q1: 0, q2: 0, q3: 0 } } });
+    const s = baseScenario({
+      gridSeconds: 60,
+      clock: { phaseSeconds: 0, fractionalFrequency: 0, driftPerSecond: 1e-13 / DAY, noise: { q1: 0, q2: 0, q3: 0 } },
+    });
     const plan = planSteering(s, { strategy: 'none' });
     const k = plan.predicted.unsteered.phaseSeconds.findIndex((x) => x >= 1e-8);
     expect(plan.predicted.t[k]! / 1.315e5).toBeCloseTo(1, 3);
@@ -69,14 +74,18 @@ describe('planSteering', () => {
   });
 
   it('planSteering(scenario) says infeasible when σ alone exceeds the tolerance, naming when', () => {
-    const s = baseScenario({ clock: { phaseSeconds: 0, fractionalFrequency: 0, driftPerSecond: 0, noise: { q1: 1e-20, q2: 0, q3: 0 } } });
+    const s = baseScenario({
+      clock: { phaseSeconds: 0, fractionalFrequency: 0, driftPerSecond: 0, noise: { q1: 1e-20, q2: 0, q3: 0 } },
+    });
     const plan = planSteering(s);
     expect(plan.feasible).toBe(false);
     expect(plan.reason).toMatch(/^σ alone exceeds the tolerance after [\d.]+ h/);
   });
 
   it('planSteering(scenario) says infeasible when the needed step exceeds maxFrequencyStep', () => {
-    const s = baseScenario({ clock: { phaseSeconds: 0, fractionalFrequency: 5e-12, driftPerSecond: 0, noise: { q1: 1e-26, q2: 0, q3: 0 } } });
+    const s = baseScenario({
+      clock: { phaseSeconds: 0, fractionalFrequency: 5e-12, driftPerSecond: 0, noise: { q1: 1e-26, q2: 0, q3: 0 } },
+    });
     s.actuator.maxFrequencyStep = 1e-14;
     s.actuator.minCommandSpacingSeconds = 3 * 3600;
     const plan = planSteering(s, { strategy: 'deadband' });
@@ -85,7 +94,9 @@ describe('planSteering', () => {
   });
 
   it('planSteering(scenario) says infeasible when no contact comes before the offset leaves the tolerance', () => {
-    const s = baseScenario({ clock: { phaseSeconds: 0, fractionalFrequency: 1e-12, driftPerSecond: 0, noise: { q1: 0, q2: 0, q3: 0 } } });
+    const s = baseScenario({
+      clock: { phaseSeconds: 0, fractionalFrequency: 1e-12, driftPerSecond: 0, noise: { q1: 0, q2: 0, q3: 0 } },
+    });
     s.contacts = [{ start: '2027-01-02T12:00:00Z', end: '2027-01-02T13:00:00Z' }];
     const plan = planSteering(s);
     expect(plan.feasible).toBe(false);
@@ -93,12 +104,16 @@ describe('planSteering', () => {
   });
 
   it('planSteering(scenario) says infeasible when the clock starts outside the tolerance', () => {
-    const s = baseScenario({ clock: { phaseSeconds: 1e-7, fractionalFrequency: 0, driftPerSecond: 0, noise: { q1: 0, q2: 0, q3: 0 } } });
+    const s = baseScenario({
+      clock: { phaseSeconds: 1e-7, fractionalFrequency: 0, driftPerSecond: 0, noise: { q1: 0, q2: 0, q3: 0 } },
+    });
     expect(planSteering(s).reason).toMatch(/already outside the tolerance at the epoch/);
   });
 
   it('planSteering(scenario) uses a phase step when allowed and the offset is large', () => {
-    const s = baseScenario({ clock: { phaseSeconds: 1.5e-8, fractionalFrequency: 0, driftPerSecond: 0, noise: { q1: 0, q2: 0, q3: 0 } } });
+    const s = baseScenario({
+      clock: { phaseSeconds: 1.5e-8, fractionalFrequency: 0, driftPerSecond: 0, noise: { q1: 0, q2: 0, q3: 0 } },
+    });
     s.actuator.phaseSteps = { allowed: true, resolution: 1e-10 };
     for (const strategy of ['deadband', 'optimal'] as const) {
       const plan = planSteering(s, { strategy });
@@ -125,19 +140,32 @@ describe('steeringCost and predictSteering', () => {
   });
 
   it('steeringCost(scenario, {commands: []}) has the variance term (1/(b²H))(q1H²/2 + q2H⁴/12) for a 2-state clock (integral of Q11, Zucca & Tavella 2005)', () => {
-    const s = baseScenario({ clock: { phaseSeconds: 0, fractionalFrequency: 0, driftPerSecond: 0, noise: { q1: 1e-24, q2: 1e-34, q3: 0 } } });
+    const s = baseScenario({
+      clock: { phaseSeconds: 0, fractionalFrequency: 0, driftPerSecond: 0, noise: { q1: 1e-24, q2: 1e-34, q3: 0 } },
+    });
     const h = s.horizonSeconds;
     const b = s.tolerance.phaseSeconds;
     const cost = steeringCost(s, { commands: [] });
-    expect(cost.variance).toBeCloseTo((1e-24 * h * h / 2 + 1e-34 * h ** 4 / 12) / (b * b * h), 12);
+    expect(cost.variance).toBeCloseTo(((1e-24 * h * h) / 2 + (1e-34 * h ** 4) / 12) / (b * b * h), 12);
     expect(cost.meanSquare).toBe(0);
   });
 
   it('steeringCost(scenario, plan) rejects a command with a non-integer actuatorSteps or a bad kind', () => {
     const s = baseScenario();
-    const c = { uplinkAt: '2027-01-01T01:00:00Z', executeAt: '2027-01-01T01:00:00Z', kind: 'frequency' as const, fractionalFrequencyStep: 1e-15, actuatorSteps: 1.5, reason: '' };
+    const c = {
+      uplinkAt: '2027-01-01T01:00:00Z',
+      executeAt: '2027-01-01T01:00:00Z',
+      kind: 'frequency' as const,
+      fractionalFrequencyStep: 1e-15,
+      actuatorSteps: 1.5,
+      reason: '',
+    };
     expect(() => steeringCost(s, { commands: [c] })).toThrow(/plan.commands\[0\].actuatorSteps/);
-    expect(() => steeringCost(s, { commands: [{ ...c, actuatorSteps: 1, kind: 'warp' as never }] })).toThrow(/plan.commands\[0\].kind/);
-    expect(() => predictSteering(s, [{ ...c, actuatorSteps: 1, executeAt: 'soon' }])).toThrow(/commands\[0\].executeAt/);
+    expect(() => steeringCost(s, { commands: [{ ...c, actuatorSteps: 1, kind: 'warp' as never }] })).toThrow(
+      /plan.commands\[0\].kind/,
+    );
+    expect(() => predictSteering(s, [{ ...c, actuatorSteps: 1, executeAt: 'soon' }])).toThrow(
+      /commands\[0\].executeAt/,
+    );
   });
 });

@@ -2,7 +2,12 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { InvalidArgumentError, OutOfDomainError } from '../../src/errors.js';
 import {
-  planSteering, predictSteering, simulatePlan, steeringCost, validateScenario, type SteeringScenario,
+  planSteering,
+  predictSteering,
+  type SteeringScenario,
+  simulatePlan,
+  steeringCost,
+  validateScenario,
 } from '../../src/steering/index.js';
 import { createTimeScales, parseLeapSecondsList } from '../../src/time/index.js';
 import { baseScenario, example } from './helpers.js';
@@ -73,7 +78,11 @@ describe('steering times across a leap second (IERS Bulletin C 52: positive leap
       { at: '2017-01-01T06:10:00Z', semiMajorAxisBefore: 26_571_750, semiMajorAxisAfter: 26_561_750 },
     ];
     const plan = planSteering(s);
-    for (const m of s.maneuvers) expect(plan.commands.some((c) => c.executeAt === m.at), m.at).toBe(true);
+    for (const m of s.maneuvers)
+      expect(
+        plan.commands.some((c) => c.executeAt === m.at),
+        m.at,
+      ).toBe(true);
     // The stamps round-trip: re-reading the plan's commands gives the same prediction.
     expect(predictSteering(s, plan.commands).steered.phaseSeconds).toEqual(plan.predicted.steered.phaseSeconds);
   });
@@ -132,14 +141,20 @@ describe('steering stamps and the leap-second table', () => {
   });
 
   it('validateScenario(scenario) throws OutOfDomainError naming a contact stamp beyond the table', () => {
-    const s = baseScenario({ epoch: '2027-06-26T00:00:00Z', horizonSeconds: 86_400, contacts: [{ start: '2027-06-29T00:00:00Z', end: '2027-06-29T01:00:00Z' }] });
+    const s = baseScenario({
+      epoch: '2027-06-26T00:00:00Z',
+      horizonSeconds: 86_400,
+      contacts: [{ start: '2027-06-29T00:00:00Z', end: '2027-06-29T01:00:00Z' }],
+    });
     const e = thrown(() => validateScenario(s)) as OutOfDomainError;
     expect(e).toBeInstanceOf(OutOfDomainError);
     expect(e.argument).toBe('contacts[0].start');
   });
 
   it('validateScenario(scenario) throws OutOfDomainError for an epoch before UTC with whole leap seconds (1972-01-01, ITU-R TF.460 [M])', () => {
-    const e = thrown(() => validateScenario(baseScenario({ epoch: '1969-07-20T20:17:00Z', contacts: [] }))) as OutOfDomainError;
+    const e = thrown(() =>
+      validateScenario(baseScenario({ epoch: '1969-07-20T20:17:00Z', contacts: [] })),
+    ) as OutOfDomainError;
     expect(e).toBeInstanceOf(OutOfDomainError);
     expect(e.argument).toBe('epoch');
     expect(e.validFrom).toMatch(/^1972-01-01/);
@@ -164,10 +179,21 @@ describe('steering stamps and the leap-second table', () => {
   });
 
   it('validateScenario(scenario, options) rejects options that are not an object and a timeScales that is not one', () => {
-    expect((thrown(() => validateScenario(baseScenario(), null as never)) as InvalidArgumentError).argument).toBe('options');
-    expect((thrown(() => validateScenario(baseScenario(), { timeScales: {} as never })) as InvalidArgumentError).argument).toBe('options.timeScales');
-    expect((thrown(() => planSteering(baseScenario(), 'fast' as never)) as InvalidArgumentError).argument).toBe('options');
-    expect((thrown(() => simulatePlan(baseScenario(), { commands: [] }, { runs: 5, timeScales: 1 as never })) as InvalidArgumentError).argument)
-      .toBe('options.timeScales');
+    expect((thrown(() => validateScenario(baseScenario(), null as never)) as InvalidArgumentError).argument).toBe(
+      'options',
+    );
+    expect(
+      (thrown(() => validateScenario(baseScenario(), { timeScales: {} as never })) as InvalidArgumentError).argument,
+    ).toBe('options.timeScales');
+    expect((thrown(() => planSteering(baseScenario(), 'fast' as never)) as InvalidArgumentError).argument).toBe(
+      'options',
+    );
+    expect(
+      (
+        thrown(() =>
+          simulatePlan(baseScenario(), { commands: [] }, { runs: 5, timeScales: 1 as never }),
+        ) as InvalidArgumentError
+      ).argument,
+    ).toBe('options.timeScales');
   });
 });

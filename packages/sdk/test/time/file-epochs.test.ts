@@ -8,7 +8,13 @@ import { describe, expect, it } from 'vitest';
 import { InvalidArgumentError } from '../../src/errors.js';
 import { scaleSecondsFromFields } from '../../src/io/line-reader.js';
 import {
-  BUNDLED_LEAP_SECONDS, createTimeScales, fileTimeScale, formatFileEpoch, Instant, instantFromFileEpoch, instantFromScaleSeconds,
+  BUNDLED_LEAP_SECONDS,
+  createTimeScales,
+  fileTimeScale,
+  formatFileEpoch,
+  Instant,
+  instantFromFileEpoch,
+  instantFromScaleSeconds,
   scaleSecondsFromInstant,
 } from '../../src/time/index.js';
 
@@ -30,7 +36,7 @@ describe('instantFromFileEpoch: calendar fields on a file time system, exact', (
     expect(Math.abs(floatStep - 1e-7)).toBeGreaterThan(1e-8);
     expect(formatFileEpoch(ts, t1, 'GPS')).toBe('2026-01-04T00:00:00.0000001');
   });
-  it('instantFromFileEpoch(GAL, BDT, QZS, TAI) applies each scale\'s published offset from TAI', () => {
+  it("instantFromFileEpoch(GAL, BDT, QZS, TAI) applies each scale's published offset from TAI", () => {
     const f = { year: 2024, month: 1, day: 7, hour: 12, minute: 30, second: 15.25 };
     const base = secondsSince2000(2024, 1, 7, 12, 30, 15);
     const tai = (code: string) => {
@@ -51,8 +57,13 @@ describe('instantFromFileEpoch: calendar fields on a file time system, exact', (
     const utcNoon = instantFromFileEpoch(ts, { year: 2020, month: 6, day: 30, hour: 12, minute: 0, second: 0 }, 'UTC');
     expect(utcNoon.taiSeconds).toBe(secondsSince2000(2020, 6, 30, 12) + 37);
     expect(formatFileEpoch(ts, utcNoon, 'GLO')).toBe('2020-06-30T15:00:00');
-    expect(formatFileEpoch(ts, instantFromFileEpoch(ts, { year: 2020, month: 6, day: 30, hour: 1, minute: 0, second: 0 }, 'GLO'), 'UTC'))
-      .toBe('2020-06-29T22:00:00');
+    expect(
+      formatFileEpoch(
+        ts,
+        instantFromFileEpoch(ts, { year: 2020, month: 6, day: 30, hour: 1, minute: 0, second: 0 }, 'GLO'),
+        'UTC',
+      ),
+    ).toBe('2020-06-29T22:00:00');
   });
   it('instantFromFileEpoch refuses an unknown code, a non-date and a UTC second 60 outside a leap second, naming the field', () => {
     const ok = { year: 2026, month: 1, day: 4, hour: 0, minute: 0, second: 0 };
@@ -63,7 +74,11 @@ describe('instantFromFileEpoch: calendar fields on a file time system, exact', (
     expect(fileTimeScale('XYZ')).toBeUndefined();
   });
   it('formatFileEpoch(instant, code, { fractionDigits }) rounds half-up with carries; the default prints up to 1 ns and drops trailing zeros', () => {
-    const t = instantFromFileEpoch(ts, { year: 2025, month: 12, day: 31, hour: 23, minute: 59, second: 59.9999999996 }, 'GPS');
+    const t = instantFromFileEpoch(
+      ts,
+      { year: 2025, month: 12, day: 31, hour: 23, minute: 59, second: 59.9999999996 },
+      'GPS',
+    );
     expect(formatFileEpoch(ts, t, 'GPS')).toBe('2026-01-01T00:00:00');
     expect(formatFileEpoch(ts, t, 'GPS', { fractionDigits: 3 })).toBe('2026-01-01T00:00:00.000');
     // 59.7499999996 s rounds to 59.750000000 at 1 ns, printed without its trailing zeros.
@@ -81,13 +96,17 @@ describe('formatFileEpoch on uniform scales (integer arithmetic) agrees with Tim
       const instant = Instant.fromTaiParts(Math.floor((next() - 0.5) * 6.2e10), next());
       const code = ['GPS', 'GAL', 'BDT', 'TAI'][k % 4]!;
       const scale = scaleOf[code]!;
-      expect(formatFileEpoch(ts, instant, code, { fractionDigits: 9 })).toBe(ts.formatIso(instant, { scale, fractionDigits: 9 }));
-      expect(formatFileEpoch(ts, instant, code, { fractionDigits: 3 })).toBe(ts.formatIso(instant, { scale, fractionDigits: 3 }));
+      expect(formatFileEpoch(ts, instant, code, { fractionDigits: 9 })).toBe(
+        ts.formatIso(instant, { scale, fractionDigits: 9 }),
+      );
+      expect(formatFileEpoch(ts, instant, code, { fractionDigits: 3 })).toBe(
+        ts.formatIso(instant, { scale, fractionDigits: 3 }),
+      );
     }
   });
 });
 
-describe('scaleSecondsFromInstant / instantFromScaleSeconds: the broadcast algorithms\' count since 1980-01-06', () => {
+describe("scaleSecondsFromInstant / instantFromScaleSeconds: the broadcast algorithms' count since 1980-01-06", () => {
   it('scaleSecondsFromInstant(start of GPS week 2296) is 2296 × 604800 s, and BDT reads 14 s less (BDT = GPST − 14 s)', () => {
     const weekStart = instantFromFileEpoch(ts, { year: 2024, month: 1, day: 7, hour: 0, minute: 0, second: 0 }, 'GPS');
     // Date.UTC days from 1980-01-06 to 2024-01-07: 2296 whole weeks (the week of the SP3 fixture orbit-c-pv.sp3, line 2).

@@ -1,8 +1,13 @@
-import { describe, expect, it } from 'vitest';
-import {
-  BUNDLED_LEAP_SECONDS, createTimeScales, Instant, instantFromTtSecondsSinceJ2000, J2000_EPOCH, ttSecondsSinceJ2000,
-} from '@tauline/sdk/time';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
+import {
+  BUNDLED_LEAP_SECONDS,
+  createTimeScales,
+  type Instant,
+  instantFromTtSecondsSinceJ2000,
+  J2000_EPOCH,
+  ttSecondsSinceJ2000,
+} from '@tauline/sdk/time';
+import { describe, expect, it } from 'vitest';
 
 const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
 

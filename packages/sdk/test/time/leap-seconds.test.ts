@@ -1,8 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import {
-  BUNDLED_LEAP_SECONDS, createTimeScales, defineLeapSecondTable, mjdFromCalendarDate, parseLeapSecondsList,
-} from '../../src/time/index.js';
 import { InvalidArgumentError, OutOfDomainError, ParseError } from '../../src/errors.js';
+import {
+  BUNDLED_LEAP_SECONDS,
+  createTimeScales,
+  defineLeapSecondTable,
+  mjdFromCalendarDate,
+  parseLeapSecondsList,
+} from '../../src/time/index.js';
 
 /** An invented table: one extra (fictional) leap second at the end of 2030, valid to 2031-07-01. */
 const fictional = defineLeapSecondTable({
@@ -40,7 +44,9 @@ describe('leap-second tables', () => {
     const ts = createTimeScales(table);
     expect(ts.parseIso('2030-07-01T00:00:00Z').secondsSince(ts.parseIso('2030-06-30T23:59:58Z'))).toBe(1);
     expect(ts.formatIso(ts.parseIso('2030-06-30T23:59:58.5Z').plus(0.5))).toBe('2030-07-01T00:00:00.000000000Z');
-    expect(() => ts.parseIso('2030-06-30T23:59:59Z')).toThrow(/removes the last second of 2030-06-30 \(a negative leap second\)/);
+    expect(() => ts.parseIso('2030-06-30T23:59:59Z')).toThrow(
+      /removes the last second of 2030-06-30 \(a negative leap second\)/,
+    );
   });
 
   it('parseLeapSecondsList(text) reads the NTP-second format with its #@ expiry line', () => {
@@ -56,7 +62,11 @@ describe('leap-second tables', () => {
     expect(() => parseLeapSecondsList(text)).toThrow(/entries\[2\]\.taiMinusUtc/);
     // ... and with consecutive lines it parses.
     const table = parseLeapSecondsList(text.replace('3692217600\t37', '2303683200\t12'), 'excerpt.list');
-    expect(table.entries.map((e) => [e.mjd, e.taiMinusUtc])).toEqual([[41_317, 10], [41_499, 11], [41_683, 12]]);
+    expect(table.entries.map((e) => [e.mjd, e.taiMinusUtc])).toEqual([
+      [41_317, 10],
+      [41_499, 11],
+      [41_683, 12],
+    ]);
     expect(table.validUntilMjd).toBe(mjdFromCalendarDate(2027, 6, 28));
     expect(table.source).toBe('excerpt.list (expires 2027-06-28)');
   });
@@ -66,18 +76,40 @@ describe('leap-second tables', () => {
     it('defineLeapSecondTable rejects a non-object and an empty entry list', () => {
       expect(() => defineLeapSecondTable(null as unknown as typeof good)).toThrow(/table must be an object/);
       expect(() => defineLeapSecondTable({ ...good, entries: [] })).toThrow(/entries must be a non-empty array/);
-      expect(() => defineLeapSecondTable({ ...good, entries: [5 as unknown as { mjd: number; taiMinusUtc: number }] })).toThrow(/entries\[0\] must be an object/);
+      expect(() =>
+        defineLeapSecondTable({ ...good, entries: [5 as unknown as { mjd: number; taiMinusUtc: number }] }),
+      ).toThrow(/entries\[0\] must be an object/);
     });
     it('defineLeapSecondTable rejects an entry before 1972 (rubber seconds), one not on the 1st of a month, and a fractional offset', () => {
-      expect(() => defineLeapSecondTable({ ...good, entries: [{ mjd: 41_000, taiMinusUtc: 10 }] })).toThrow(/not modelled/);
-      expect(() => defineLeapSecondTable({ ...good, entries: [{ mjd: 41_318, taiMinusUtc: 10 }] })).toThrow(/first day of a month.*1972-01-02/);
-      expect(() => defineLeapSecondTable({ ...good, entries: [{ mjd: 41_317, taiMinusUtc: 10.5 }] })).toThrow(/entries\[0\]\.taiMinusUtc/);
+      expect(() => defineLeapSecondTable({ ...good, entries: [{ mjd: 41_000, taiMinusUtc: 10 }] })).toThrow(
+        /not modelled/,
+      );
+      expect(() => defineLeapSecondTable({ ...good, entries: [{ mjd: 41_318, taiMinusUtc: 10 }] })).toThrow(
+        /first day of a month.*1972-01-02/,
+      );
+      expect(() => defineLeapSecondTable({ ...good, entries: [{ mjd: 41_317, taiMinusUtc: 10.5 }] })).toThrow(
+        /entries\[0\]\.taiMinusUtc/,
+      );
     });
     it('defineLeapSecondTable rejects entries out of order and steps other than ±1 s', () => {
-      expect(() => defineLeapSecondTable({ ...good, entries: [{ mjd: 41_499, taiMinusUtc: 11 }, { mjd: 41_317, taiMinusUtc: 10 }] }))
-        .toThrow(/entries\[1\]\.mjd must be an MJD after/);
-      expect(() => defineLeapSecondTable({ ...good, entries: [{ mjd: 41_317, taiMinusUtc: 10 }, { mjd: 41_499, taiMinusUtc: 12 }] }))
-        .toThrow(/entries\[1\]\.taiMinusUtc must be 11 or 9/);
+      expect(() =>
+        defineLeapSecondTable({
+          ...good,
+          entries: [
+            { mjd: 41_499, taiMinusUtc: 11 },
+            { mjd: 41_317, taiMinusUtc: 10 },
+          ],
+        }),
+      ).toThrow(/entries\[1\]\.mjd must be an MJD after/);
+      expect(() =>
+        defineLeapSecondTable({
+          ...good,
+          entries: [
+            { mjd: 41_317, taiMinusUtc: 10 },
+            { mjd: 41_499, taiMinusUtc: 12 },
+          ],
+        }),
+      ).toThrow(/entries\[1\]\.taiMinusUtc must be 11 or 9/);
     });
     it('defineLeapSecondTable rejects a validity end not after the last entry and an empty source', () => {
       expect(() => defineLeapSecondTable({ ...good, validUntilMjd: 41_317 })).toThrow(/validUntilMjd/);
@@ -87,7 +119,9 @@ describe('leap-second tables', () => {
       expect(() => parseLeapSecondsList(42 as unknown as string)).toThrow(InvalidArgumentError);
       expect(() => parseLeapSecondsList('#@ soon\n')).toThrow(ParseError);
       expect(() => parseLeapSecondsList('#@ soon\n')).toThrow(/leap-seconds\.list:1:3: expected an expiry line/);
-      expect(() => parseLeapSecondsList('#@ 4023129600\n2272060801 10 # 1 Jan 1972', 'x.list')).toThrow(/x\.list:2:1: expected NTP seconds of 00:00:00/);
+      expect(() => parseLeapSecondsList('#@ 4023129600\n2272060801 10 # 1 Jan 1972', 'x.list')).toThrow(
+        /x\.list:2:1: expected NTP seconds of 00:00:00/,
+      );
       expect(() => parseLeapSecondsList('#@ 4023129600\n2272060800 ten\n')).toThrow(/:2:1: expected a data line/);
       expect(() => parseLeapSecondsList('2272060800 10 # 1 Jan 1972\n')).toThrow(/expiry line/);
     });

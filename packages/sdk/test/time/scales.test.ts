@@ -1,8 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import {
-  BUNDLED_LEAP_SECONDS, createTimeScales, Instant, TIME_SCALES, type TimeScale,
-} from '../../src/time/index.js';
 import { InvalidArgumentError, OutOfDomainError } from '../../src/errors.js';
+import { BUNDLED_LEAP_SECONDS, createTimeScales, Instant, TIME_SCALES, type TimeScale } from '../../src/time/index.js';
 
 const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
 const utc = (text: string): Instant => ts.parseIso(text);
@@ -46,8 +44,13 @@ describe('createTimeScales(table): scale offsets', () => {
     const t = utc('2024-03-01T00:00:00Z');
     const read = (scale: TimeScale) => ts.formatIso(t, { scale, fractionDigits: 3 });
     expect(TIME_SCALES.map(read)).toEqual([
-      '2024-03-01T00:00:37.000', '2024-03-01T00:01:09.184', '2024-03-01T00:00:00.000Z', '2024-03-01T00:00:18.000',
-      '2024-03-01T00:00:18.000', '2024-03-01T00:00:04.000', expect.stringMatching(/^2024-03-01T00:01:10\.\d{3}$/),
+      '2024-03-01T00:00:37.000',
+      '2024-03-01T00:01:09.184',
+      '2024-03-01T00:00:00.000Z',
+      '2024-03-01T00:00:18.000',
+      '2024-03-01T00:00:18.000',
+      '2024-03-01T00:00:04.000',
+      expect.stringMatching(/^2024-03-01T00:01:10\.\d{3}$/),
     ]);
   });
 });
@@ -136,7 +139,12 @@ describe('createTimeScales(table): ISO 8601 text', () => {
 
   it('ts.parseIso applies ±hh:mm, ±hhmm and ±hh offsets (local = UTC + offset), crossing midnight', () => {
     const ref = utc('2020-03-01T01:30:00Z');
-    for (const text of ['2020-03-01T03:30:00+02:00', '2020-03-01T03:30:00+0200', '2020-03-01T03:30:00+02', '2020-02-29T20:30:00-05:00']) {
+    for (const text of [
+      '2020-03-01T03:30:00+02:00',
+      '2020-03-01T03:30:00+0200',
+      '2020-03-01T03:30:00+02',
+      '2020-02-29T20:30:00-05:00',
+    ]) {
       expect(ts.parseIso(text).equals(ref)).toBe(true);
     }
   });
@@ -168,12 +176,14 @@ describe('createTimeScales(table): ISO 8601 text', () => {
   it('ts.toCalendar(t, TAI) and ts.fromCalendar(fields, TAI) work for dates far outside the leap-second table', () => {
     const t = ts.fromCalendar({ year: 1900, month: 3, day: 1, hour: 6, minute: 7, second: 8.5 }, 'TAI');
     expect(ts.toCalendar(t, 'TAI')).toEqual({ year: 1900, month: 3, day: 1, hour: 6, minute: 7, second: 8.5 });
-    expect(ts.formatIso(ts.fromCalendar({ year: 2150, month: 1, day: 1 }, 'GPS'), { scale: 'GPS', fractionDigits: 0 })).toBe('2150-01-01T00:00:00');
+    expect(
+      ts.formatIso(ts.fromCalendar({ year: 2150, month: 1, day: 1 }, 'GPS'), { scale: 'GPS', fractionDigits: 0 }),
+    ).toBe('2150-01-01T00:00:00');
   });
 });
 
 describe('createTimeScales(table): validity of the leap-second table', () => {
-  it('ts.parseIso throws OutOfDomainError from 2027-06-28T00:00:00Z, the bundled table\'s validity end, and works just before', () => {
+  it("ts.parseIso throws OutOfDomainError from 2027-06-28T00:00:00Z, the bundled table's validity end, and works just before", () => {
     expect(() => utc('2027-06-28T00:00:00Z')).toThrow(OutOfDomainError);
     expect(() => utc('2027-06-28T00:00:00Z')).toThrow(/only known complete until 2027-06-28; pass a current table/);
     expect(ts.taiMinusUtc(utc('2027-06-27T23:59:59.999999999Z'))).toBe(37);
@@ -195,7 +205,11 @@ describe('createTimeScales(table): validity of the leap-second table', () => {
     } catch (error) {
       expect(error).toBeInstanceOf(OutOfDomainError);
       const e = error as OutOfDomainError;
-      expect([e.argument, e.validFrom, e.validTo]).toEqual(['text', '1972-01-01T00:00:00Z', '2027-06-28T00:00:00Z (exclusive)']);
+      expect([e.argument, e.validFrom, e.validTo]).toEqual([
+        'text',
+        '1972-01-01T00:00:00Z',
+        '2027-06-28T00:00:00Z (exclusive)',
+      ]);
     }
   });
 
@@ -215,7 +229,9 @@ describe('createTimeScales(table): throw paths', () => {
   it('every method rejects an unknown scale and a non-Instant', () => {
     const t = utc('2020-01-01T00:00:00Z');
     const bad = 'UT1' as TimeScale;
-    expect(() => ts.offset(bad, 'TAI', t)).toThrow(/scale must be one of 'TAI', 'TT', 'UTC', 'GPS', 'GST', 'BDT', 'TCG'/);
+    expect(() => ts.offset(bad, 'TAI', t)).toThrow(
+      /scale must be one of 'TAI', 'TT', 'UTC', 'GPS', 'GST', 'BDT', 'TCG'/,
+    );
     expect(() => ts.offset('TAI', bad, t)).toThrow(/reference must be one of/);
     expect(() => ts.offset('TAI', 'TT', 5 as unknown as Instant)).toThrow(/instant must be an Instant/);
     expect(() => ts.toCalendar(t, bad)).toThrow(/scale/);
@@ -233,27 +249,38 @@ describe('createTimeScales(table): throw paths', () => {
   });
 
   it('ts.fromCalendar names the field: 31 February, 29 February 2019, month 13, hour 24, minute 60, NaN second, second 61', () => {
-    const f = (fields: Record<string, number>, scale: TimeScale = 'UTC') =>
-      () => ts.fromCalendar(fields as unknown as { year: number; month: number; day: number }, scale);
-    expect(f({ year: 2017, month: 2, day: 31 })).toThrow(/fields\.day must be an integer in \[1, 28\] for 2017-02; received 31/);
+    const f =
+      (fields: Record<string, number>, scale: TimeScale = 'UTC') =>
+      () =>
+        ts.fromCalendar(fields as unknown as { year: number; month: number; day: number }, scale);
+    expect(f({ year: 2017, month: 2, day: 31 })).toThrow(
+      /fields\.day must be an integer in \[1, 28\] for 2017-02; received 31/,
+    );
     expect(f({ year: 2019, month: 2, day: 29 })).toThrow(/2019 is not a leap year/);
     expect(f({ year: 2017, month: 13, day: 1 })).toThrow(/fields\.month/);
     expect(f({ year: 10_000, month: 1, day: 1 }, 'TAI')).toThrow(/fields\.year/);
-    expect(f({ year: 2017, month: 1, day: 1, hour: 24 })).toThrow(/fields\.hour must be an integer in \[0, 23\]; received 24. write 24:00:00 as 00:00:00/);
+    expect(f({ year: 2017, month: 1, day: 1, hour: 24 })).toThrow(
+      /fields\.hour must be an integer in \[0, 23\]; received 24. write 24:00:00 as 00:00:00/,
+    );
     expect(f({ year: 2017, month: 1, day: 1, hour: 1.5 })).toThrow(/fields\.hour/);
     expect(f({ year: 2017, month: 1, day: 1, minute: 60 })).toThrow(/fields\.minute/);
     expect(f({ year: 2017, month: 1, day: 1, second: Number.NaN })).toThrow(/fields\.second must be a finite number/);
     expect(f({ year: 2017, month: 1, day: 1, second: -1 })).toThrow(/fields\.second/);
     expect(f({ year: 2016, month: 12, day: 31, hour: 23, minute: 59, second: 61 })).toThrow(/fields\.second/);
-    expect(() => ts.fromCalendar(null as unknown as { year: number; month: number; day: number }, 'UTC')).toThrow(/fields must be an object/);
+    expect(() => ts.fromCalendar(null as unknown as { year: number; month: number; day: number }, 'UTC')).toThrow(
+      /fields must be an object/,
+    );
   });
 
-  it('second 60 is rejected outside UTC, away from 23:59 UTC, on a day without a leap second, and on the table\'s last day (out of domain)', () => {
-    expect(() => ts.fromCalendar({ year: 2016, month: 12, day: 31, hour: 23, minute: 59, second: 60 }, 'TAI'))
-      .toThrow(/second 60 exists only in UTC, during a leap second; TAI has none/);
+  it("second 60 is rejected outside UTC, away from 23:59 UTC, on a day without a leap second, and on the table's last day (out of domain)", () => {
+    expect(() => ts.fromCalendar({ year: 2016, month: 12, day: 31, hour: 23, minute: 59, second: 60 }, 'TAI')).toThrow(
+      /second 60 exists only in UTC, during a leap second; TAI has none/,
+    );
     expect(() => utc('2016-12-31T22:59:60Z')).toThrow(/text\.second must be less than 60 except at 23:59 UTC/);
     expect(() => utc('2016-12-31T23:59:60+01:00')).toThrow(/this local time is 22:59 UTC/);
-    expect(() => utc('2016-12-30T23:59:60Z')).toThrow(/no leap second at the end of 2016-12-30; its last ones end 2012-06-30, 2015-06-30, 2016-12-31/);
+    expect(() => utc('2016-12-30T23:59:60Z')).toThrow(
+      /no leap second at the end of 2016-12-30; its last ones end 2012-06-30, 2015-06-30, 2016-12-31/,
+    );
     expect(() => utc('2027-06-27T23:59:60Z')).toThrow(OutOfDomainError);
     expect(() => utc('1971-12-31T23:59:60Z')).toThrow(OutOfDomainError);
   });

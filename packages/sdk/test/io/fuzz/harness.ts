@@ -59,10 +59,58 @@ export class Random {
 }
 
 /** Characters a flipped byte becomes: format punctuation, digits, blanks, line ends and hostile characters. */
-const FLIP_CHARACTERS = [' ', '0', '1', '9', '.', '-', '+', 'e', 'E', 'D', 'G', 'X', '*', '>', '#', ',', '\n', '\r', '\t', '\u0000', '\ufeff', '\ufffd', 'é'];
+const FLIP_CHARACTERS = [
+  ' ',
+  '0',
+  '1',
+  '9',
+  '.',
+  '-',
+  '+',
+  'e',
+  'E',
+  'D',
+  'G',
+  'X',
+  '*',
+  '>',
+  '#',
+  ',',
+  '\n',
+  '\r',
+  '\t',
+  '\u0000',
+  '\ufeff',
+  '\ufffd',
+  'é',
+];
 /** Replacements for a number token. */
-const HOSTILE_NUMBERS = ['1e400', '-1e400', '9e307', '1e12', '-1e12', '999999999999', '4294967296', '0', '-0', '1e-400', '0.0000000000000000001',
-  'NaN', 'nan', 'Inf', '-Inf', 'Infinity', '-infinity', '1.#INF', '9999', '1D+999', '.', '-', '1e', '0x10'];
+const HOSTILE_NUMBERS = [
+  '1e400',
+  '-1e400',
+  '9e307',
+  '1e12',
+  '-1e12',
+  '999999999999',
+  '4294967296',
+  '0',
+  '-0',
+  '1e-400',
+  '0.0000000000000000001',
+  'NaN',
+  'nan',
+  'Inf',
+  '-Inf',
+  'Infinity',
+  '-infinity',
+  '1.#INF',
+  '9999',
+  '1D+999',
+  '.',
+  '-',
+  '1e',
+  '0x10',
+];
 
 type Mutator = (text: string, rng: Random) => string;
 
@@ -114,7 +162,10 @@ export const MUTATORS: Readonly<Record<string, Mutator>> = {
     const m = r.pick(numbers);
     const replacement = r.pick(HOSTILE_NUMBERS);
     // Half the time keep the field width (fixed-column formats), half the time not.
-    const text = r.next() < 0.5 ? replacement.padStart(m[0].length).slice(-Math.max(m[0].length, replacement.length)) : replacement;
+    const text =
+      r.next() < 0.5
+        ? replacement.padStart(m[0].length).slice(-Math.max(m[0].length, replacement.length))
+        : replacement;
     return t.slice(0, m.index!) + text + t.slice(m.index! + m[0].length);
   },
   crOnlyLineEnds: (t) => t.replace(/\r?\n/g, '\r'),
@@ -165,7 +216,7 @@ export function windowOf(text: string, rng: Random, headerEnd?: (line: string) =
     body.push(ls[i]!);
     size += ls[i]!.length + 1;
   }
-  return [...head, ...body].join('\n') + '\n';
+  return `${[...head, ...body].join('\n')}\n`;
 }
 
 /** A reader under fuzzing. */
@@ -210,7 +261,12 @@ export const HANG_MILLISECONDS = 2000;
  * The first number in `value` (walked recursively: objects, arrays, typed arrays) that is ±Infinity, or
  * NaN outside `nanAllowedAt`; returns its path, or undefined when every number is finite.
  */
-export function firstNonFinite(value: unknown, nanAllowedAt: readonly RegExp[] = [], path = '', seen = new Set<unknown>()): string | undefined {
+export function firstNonFinite(
+  value: unknown,
+  nanAllowedAt: readonly RegExp[] = [],
+  path = '',
+  seen = new Set<unknown>(),
+): string | undefined {
   if (typeof value === 'number') {
     if (value === Infinity || value === -Infinity) return `${path} = ${value}`;
     if (value !== value && !nanAllowedAt.some((p) => p.test(path))) return `${path} = NaN`;
@@ -244,7 +300,10 @@ export function firstNonFinite(value: unknown, nanAllowedAt: readonly RegExp[] =
  * Runs one input through a reader and returns the problem, if any: an untyped error, a call over
  * {@link HANG_MILLISECONDS}, a non-finite number in the result or a failed `check`.
  */
-export function probe<T>(reader: ReaderUnderFuzz<T>, input: string): { problem: string | undefined; accepted: boolean } {
+export function probe<T>(
+  reader: ReaderUnderFuzz<T>,
+  input: string,
+): { problem: string | undefined; accepted: boolean } {
   const started = performance.now();
   let result: T;
   try {
@@ -252,9 +311,15 @@ export function probe<T>(reader: ReaderUnderFuzz<T>, input: string): { problem: 
   } catch (error) {
     const elapsed = performance.now() - started;
     if (!(error instanceof TaulineError)) {
-      return { problem: `untyped error ${error instanceof Error ? `${error.name}: ${error.message}` : String(error)}`, accepted: false };
+      return {
+        problem: `untyped error ${error instanceof Error ? `${error.name}: ${error.message}` : String(error)}`,
+        accepted: false,
+      };
     }
-    return { problem: elapsed > HANG_MILLISECONDS ? `refusal took ${Math.round(elapsed)} ms` : undefined, accepted: false };
+    return {
+      problem: elapsed > HANG_MILLISECONDS ? `refusal took ${Math.round(elapsed)} ms` : undefined,
+      accepted: false,
+    };
   }
   const elapsed = performance.now() - started;
   if (elapsed > HANG_MILLISECONDS) return { problem: `acceptance took ${Math.round(elapsed)} ms`, accepted: true };
@@ -274,8 +339,12 @@ export function probe<T>(reader: ReaderUnderFuzz<T>, input: string): { problem: 
  * @param known  Known failures to leave out of `failures` (each names a bug reported to the reader's owner):
  *   a predicate over the failure.
  */
-export function fuzzReader<T>(reader: ReaderUnderFuzz<T>, seed: number, runs: number,
-  known: (failure: FuzzFailure) => boolean = () => false): FuzzReport & { knownFailures: readonly FuzzFailure[] } {
+export function fuzzReader<T>(
+  reader: ReaderUnderFuzz<T>,
+  seed: number,
+  runs: number,
+  known: (failure: FuzzFailure) => boolean = () => false,
+): FuzzReport & { knownFailures: readonly FuzzFailure[] } {
   const fixtures = fixturesMatching(reader.fixtures);
   if (fixtures.length === 0) throw new Error(`no fixture matches ${reader.fixtures} for ${reader.name}`);
   const rng = new Random(seed);
@@ -297,7 +366,14 @@ export function fuzzReader<T>(reader: ReaderUnderFuzz<T>, seed: number, runs: nu
     if (outcome.accepted) accepted++;
     else refused++;
     if (outcome.problem !== undefined) {
-      const failure = { reader: reader.name, fixture: fixture.path, run, mutators: applied, problem: outcome.problem, inputHead: text.slice(0, 300) };
+      const failure = {
+        reader: reader.name,
+        fixture: fixture.path,
+        run,
+        mutators: applied,
+        problem: outcome.problem,
+        inputHead: text.slice(0, 300),
+      };
       (known(failure) ? knownFailures : failures).push(failure);
     }
   }
@@ -305,7 +381,11 @@ export function fuzzReader<T>(reader: ReaderUnderFuzz<T>, seed: number, runs: nu
 }
 
 /** The special inputs every reader must refuse with a typed error or accept with finite values: empty, BOM only, CR-only, over-long line, NUL. */
-export function specialInputs(headerOf: (fixture: string) => string, fixtures: readonly Fixture[], maxLine: number): { name: string; text: string }[] {
+export function specialInputs(
+  headerOf: (fixture: string) => string,
+  fixtures: readonly Fixture[],
+  maxLine: number,
+): { name: string; text: string }[] {
   const first = fixtures[0]!.text;
   return [
     { name: 'empty', text: '' },
@@ -316,6 +396,6 @@ export function specialInputs(headerOf: (fixture: string) => string, fixtures: r
     { name: 'CR-only line ends', text: first.replace(/\r?\n/g, '\r') },
     { name: 'over-long line', text: `${first.split('\n')[0]}\n${'9'.repeat(maxLine + 1)}\n` },
     { name: 'NUL bytes', text: '\u0000'.repeat(4096) },
-    { name: 'invalid UTF-8 decoded', text: '\ufffd'.repeat(200) + '\n' },
+    { name: 'invalid UTF-8 decoded', text: `${'\ufffd'.repeat(200)}\n` },
   ];
 }

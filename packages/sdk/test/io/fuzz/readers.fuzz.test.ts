@@ -8,20 +8,35 @@
 import { describe, expect, it } from 'vitest';
 import { TaulineError } from '../../../src/errors.js';
 import {
-  MAX_LINE_CHARACTERS, MAX_SERIES_SAMPLES, parsePhaseText, parseRinexClock, parseRinexNav, parseSp3, rinexClockSeries,
+  MAX_LINE_CHARACTERS,
+  MAX_SERIES_SAMPLES,
+  parsePhaseText,
+  parseRinexClock,
+  parseRinexNav,
+  parseSp3,
+  rinexClockSeries,
 } from '../../../src/io/index.js';
 import { parseLeapSecondsList } from '../../../src/time/index.js';
-import { fixturesMatching, fuzzReader, probe, specialInputs, type FuzzFailure, type ReaderUnderFuzz } from './harness.js';
+import {
+  type FuzzFailure,
+  fixturesMatching,
+  fuzzReader,
+  probe,
+  type ReaderUnderFuzz,
+  specialInputs,
+} from './harness.js';
 
 /** Mutants per reader (issue 11: at least 10^4). */
 const RUNS = 10_000;
 const SEED = 20261203;
 
-const header = (endMarker: RegExp) => (text: string): string => {
-  const ls = text.split('\n');
-  const end = ls.findIndex((l) => endMarker.test(l));
-  return ls.slice(0, end + 1).join('\n') + '\n';
-};
+const header =
+  (endMarker: RegExp) =>
+  (text: string): string => {
+    const ls = text.split('\n');
+    const end = ls.findIndex((l) => endMarker.test(l));
+    return `${ls.slice(0, end + 1).join('\n')}\n`;
+  };
 
 /** Every typed error is fine; anything else is rethrown (used where a reader's result is post-processed). */
 function typedOrUndefined<T>(fn: () => T): T | undefined {
@@ -43,7 +58,9 @@ const phaseText: ReaderUnderFuzz<ReturnType<typeof parsePhaseText>> = {
     for (const v of s.phase) if (v !== v) nan++;
     if (nan !== s.missing) throw new Error(`${nan} NaN samples but missing = ${s.missing}`);
     if (s.phase.length > MAX_SERIES_SAMPLES) throw new Error(`${s.phase.length} samples, over MAX_SERIES_SAMPLES`);
-    if (s.times) for (let i = 1; i < s.times.length; i++) if (!(s.times[i]! > s.times[i - 1]!)) throw new Error(`times not increasing at ${i}`);
+    if (s.times)
+      for (let i = 1; i < s.times.length; i++)
+        if (!(s.times[i]! > s.times[i - 1]!)) throw new Error(`times not increasing at ${i}`);
   },
 };
 
@@ -72,7 +89,7 @@ const rinexNav: ReaderUnderFuzz<ReturnType<typeof parseRinexNav>> = {
 const sp3: ReaderUnderFuzz<ReturnType<typeof parseSp3>> = {
   name: 'parseSp3',
   fixtures: /\.sp3$/i,
-  headerEnd: (l) => l.startsWith('/*') ,
+  headerEnd: (l) => l.startsWith('/*'),
   parse: (text) => parseSp3(text, { sourceName: 'fuzz' }),
 };
 
@@ -84,7 +101,13 @@ const leapSeconds: ReaderUnderFuzz<ReturnType<typeof parseLeapSecondsList>> = {
 
 /** One line per failure, enough to replay it (seed, run, fixture, mutators) and see the input. */
 function describeFailures(failures: readonly FuzzFailure[]): string {
-  return failures.slice(0, 8).map((f) => `${f.reader} run ${f.run} (${f.fixture}; ${f.mutators.join(', ')}): ${f.problem}\n  input: ${JSON.stringify(f.inputHead)}`).join('\n');
+  return failures
+    .slice(0, 8)
+    .map(
+      (f) =>
+        `${f.reader} run ${f.run} (${f.fixture}; ${f.mutators.join(', ')}): ${f.problem}\n  input: ${JSON.stringify(f.inputHead)}`,
+    )
+    .join('\n');
 }
 
 /**
@@ -116,14 +139,22 @@ describe('readers under seeded fuzzing (10^4 mutants of the real fixtures each; 
 
   it('every reader refuses the over-long line with a ParseError naming the line and MAX_LINE_CHARACTERS', () => {
     const long = `${'1'.repeat(MAX_LINE_CHARACTERS + 1)}\n`;
-    for (const read of [() => parsePhaseText(long), () => parseRinexClock(long), () => parseRinexNav(long), () => parseSp3(long)]) {
+    for (const read of [
+      () => parsePhaseText(long),
+      () => parseRinexClock(long),
+      () => parseRinexNav(long),
+      () => parseSp3(long),
+    ]) {
       expect(read).toThrow(/^[\w-]+:1:1048577: expected a line of at most 1048576 characters/);
     }
   });
 
   it('every reader reads CR-only line ends like LF (the fixtures give the same result either way)', () => {
     const cases: [RegExp, (t: string) => unknown][] = [
-      [/\.txt$/, (t) => parsePhaseText(t)], [/\.clk$/i, (t) => parseRinexClock(t)], [/\.rnx$/i, (t) => parseRinexNav(t)], [/\.sp3$/i, (t) => parseSp3(t)],
+      [/\.txt$/, (t) => parsePhaseText(t)],
+      [/\.clk$/i, (t) => parseRinexClock(t)],
+      [/\.rnx$/i, (t) => parseRinexNav(t)],
+      [/\.sp3$/i, (t) => parseSp3(t)],
       [/\.list$/, (t) => parseLeapSecondsList(t)],
     ];
     for (const [pattern, read] of cases) {
@@ -136,10 +167,13 @@ describe('readers under seeded fuzzing (10^4 mutants of the real fixtures each; 
   });
 
   it('rinexClockSeries(a record dated 9999) refuses the implied 10^11-sample series through the shared MAX_SERIES_SAMPLES check, naming file and line', () => {
-    const text = fixturesMatching(/^fictional-304\.clk$/)[0]!.text.trimEnd()
-      + '\nAS G05       9999 01 04 00 02  0.000000  2   -0.123456788930E-03  0.100000000000E-10\n';
+    const text =
+      fixturesMatching(/^fictional-304\.clk$/)[0]!.text.trimEnd() +
+      '\nAS G05       9999 01 04 00 02  0.000000  2   -0.123456788930E-03  0.100000000000E-10\n';
     const file = parseRinexClock(text, { sourceName: 'year9999.clk' });
-    expect(() => rinexClockSeries(file, 'G05')).toThrow(/^year9999\.clk:14:1: expected a uniform series of at most 50000000 samples \(MAX_SERIES_SAMPLES\): the gap of \d+ s after line 13/);
+    expect(() => rinexClockSeries(file, 'G05')).toThrow(
+      /^year9999\.clk:14:1: expected a uniform series of at most 50000000 samples \(MAX_SERIES_SAMPLES\): the gap of \d+ s after line 13/,
+    );
   });
 
   it('parseRinexClock(a lone CR after END OF HEADER) keeps the next record as a record (the line reader ends the line at the CR)', () => {
