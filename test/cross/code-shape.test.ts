@@ -29,8 +29,6 @@ const LONG_FILES: Readonly<Record<string, number>> = {
   'packages/sdk/src/relativity/precise.ts': 514,
   'packages/cli/src/commands/broadcast.ts': 510,
   'packages/cli/src/commands/clock.ts': 527,
-  'packages/elements/src/stability-plot/stability-plot.ts': 549,
-  'packages/elements/src/steering-schedule/steering-schedule.ts': 531,
 };
 /** Functions over MAX_FUNCTION_LINES today, as `file:name` with their line counts (may only shrink). */
 const LONG_FUNCTIONS: Readonly<Record<string, number>> = {
