@@ -29,9 +29,6 @@ const LONG_FILES: Readonly<Record<string, number>> = {
   'packages/sdk/src/relativity/precise.ts': 514,
   'packages/cli/src/commands/broadcast.ts': 510,
   'packages/cli/src/commands/clock.ts': 527,
-  'packages/elements/src/fleet-timeline/fleet-timeline.ts': 581,
-  'packages/elements/src/stability-plot/stability-plot.ts': 549,
-  'packages/elements/src/steering-schedule/steering-schedule.ts': 531,
 };
 /** Functions over MAX_FUNCTION_LINES today, as `file:name` with their line counts (may only shrink). */
 const LONG_FUNCTIONS: Readonly<Record<string, number>> = {
@@ -48,7 +45,7 @@ const LONG_FUNCTIONS: Readonly<Record<string, number>> = {
   'packages/cli/src/layout.ts:fitTable': 108,
 };
 /** Casts counted over every source file (may only fall). */
-const MAX_NON_NULL_INDEX_CASTS = 1069;
+const MAX_NON_NULL_INDEX_CASTS = 1067;
 const MAX_AS_NUMBER_CASTS = 0;
 
 function sourceFiles(dir: string): string[] {

@@ -1,12 +1,14 @@
 import { expect, fixture, html, oneEvent } from '@open-wc/testing';
+import { type FleetDocument, planFleet, validateFleet } from '@tauline/sdk/fleet';
 import { BUNDLED_LEAP_SECONDS, createTimeScales } from '@tauline/sdk/time';
 import { sendKeys } from '@web/test-runner-commands';
 import '../src/fleet-timeline/fleet-timeline.define.js';
 import { calendarTicks } from '../src/fleet-timeline/fleet-axis.js';
 import { readFleetPlan } from '../src/fleet-timeline/fleet-data.js';
 import { fleetLayout } from '../src/fleet-timeline/fleet-draw.js';
-import { erfc, marginSeries, oneSidedQuantile, requiredBound } from '../src/fleet-timeline/fleet-margin.js';
+import { marginSeries, requiredBound } from '../src/fleet-timeline/fleet-margin.js';
 import type { TaulineFleetTimeline } from '../src/fleet-timeline/fleet-timeline.js';
+import { erfc, oneSidedQuantile } from '../src/internal/normal.js';
 import { captureWarnings } from './fixtures.js';
 import { heldFleet, strandedFleet } from './fleet-fixtures.js';
 
@@ -141,6 +143,31 @@ describe('tauline-fleet-timeline', () => {
     const v3 = r2.view.satellites[2]!;
     expect(v3.feasible).to.equal(false);
     expect(v3.minMargin).to.be.below(0);
+  });
+
+  it('readFleetPlan reads the fleet document as the SDK validateFleet does: tolerances, z, setups and passes, given or computed', async () => {
+    // The element's thin guard against the SDK's full validation of the same documents (the invented examples).
+    const ashgrove = (await (await fetch('/packages/sdk/examples/fleet/ashgrove-orbits.json')).json()) as FleetDocument;
+    for (const [name, fleet] of [
+      ['vesper', (await heldFleet()).fleet],
+      ['ashgrove', ashgrove],
+    ] as const) {
+      const r = readFleetPlan(planFleet(fleet), fleet);
+      if (!r.ok) throw new Error(r.error);
+      const norm = validateFleet(fleet);
+      expect(r.view.horizon, name).to.equal(norm.horizon);
+      expect(r.view.stations.map((s) => [s.id, s.setup])).to.deep.equal(norm.stations.map((s) => [s.id, s.setup]));
+      for (const [i, sat] of r.view.satellites.entries()) {
+        const doc = norm.satellites[i]!;
+        expect([sat.id, sat.tolerance, sat.probability]).to.deep.equal([doc.id, doc.norm.bound, doc.norm.probability]);
+        // z from the elements' own Φ (fractional error < 1.2e-7) against the SDK's normalQuantile.
+        expect(Math.abs(sat.z - doc.norm.z), `${sat.id} z`).to.be.below(1e-6);
+        // `+ 0`: a computed pass clipped at the epoch starts at −0 s in the SDK and at 0 s read back from its ISO stamp.
+        const expected = doc.passes.map((q) => ({ station: q.station, start: q.start + 0, end: q.end + 0 }));
+        expect(expected.length, `${sat.id} passes`).to.be.greaterThan(0);
+        expect(sat.passes, `${sat.id} passes`).to.deep.equal(expected);
+      }
+    }
   });
 
   it('renders one table row per satellite and one station row per station, and names the picture from the data', async () => {
@@ -326,7 +353,8 @@ describe('tauline-fleet-timeline', () => {
       el.fleet = badFleet;
       el.plan = data.plan;
       await el.updateComplete;
-      expect(alert()).to.contain('fleet: ').and.to.contain('satellites[0].tolerance.phaseSeconds');
+      // The element's own guard of the fleet document (no longer the SDK's validateFleet) names the field.
+      expect(alert()).to.contain('fleet.satellites[0].tolerance.phaseSeconds must be a finite number > 0; received -1');
       const other = structuredClone(data.fleet);
       other.satellites[3]!.id = 'VESPER-9';
       el.fleet = other;

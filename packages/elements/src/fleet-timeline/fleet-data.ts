@@ -1,22 +1,27 @@
 /**
  * Input adapter of `<tauline-fleet-timeline>`: checks the joint plan (`planFleet()` of
  * `@tauline/sdk/fleet`) against the fleet document it was made for and turns both into columns in
- * seconds since the fleet epoch. The fleet document is validated by the SDK's own `validateFleet`
- * (epoch, tolerances, normal quantiles, stations), the plan by a thin guard that names the first
- * field that is wrong. Pure, no DOM; never throws (problems come back as text).
+ * seconds since the fleet epoch. Both are typed with the SDK's types (`import type`: no SDK code is
+ * bundled for them) and checked by thin guards that read only the fields the element uses and name
+ * the first one that is wrong (the document's in fleet-doc.ts). Pure, no DOM; never throws (problems
+ * come back as text).
  *
  * @module
  */
-import {
-  type FleetCommand,
-  type FleetDocument,
-  type FleetPlan,
-  type FleetSatellitePlan,
-  type NormalizedFleet,
-  type StationSupport,
-  validateFleet,
-} from '@tauline/sdk/fleet';
+import type { FleetCommand, FleetDocument, FleetPlan, FleetSatellitePlan, StationSupport } from '@tauline/sdk/fleet';
 import type { Instant, TimeScales } from '@tauline/sdk/time';
+import {
+  arr,
+  type FleetDoc,
+  fail,
+  GuardError,
+  obj,
+  type PassView,
+  readFleetDoc,
+  type Stamp,
+  stampReader,
+  str,
+} from './fleet-doc.js';
 import { marginSeries } from './fleet-margin.js';
 
 /** A command of one satellite, times in seconds since the fleet epoch. */
@@ -45,7 +50,7 @@ export interface SatelliteView {
   tolerance: number;
   /** Tolerance probability p. */
   probability: number;
-  /** Two-sided normal quantile z = Φ⁻¹((1 + p)/2), from the SDK's validation of the fleet document. */
+  /** Two-sided normal quantile z = Φ⁻¹((1 + p)/2). */
   z: number;
   /** Grid, seconds since the epoch. */
   t: Float64Array;
@@ -58,8 +63,8 @@ export interface SatelliteView {
   minMargin: number;
   minMarginAt: number;
   commands: FleetCommandView[];
-  /** The satellite's passes (station index, seconds since the epoch). */
-  passes: Array<{ station: number; start: number; end: number }>;
+  /** The satellite's passes (station index, seconds since the epoch): as given, or the plan's usable computed ones. */
+  passes: PassView[];
   /** Ids of the stations that uplink its commands or hold its supports, in station order. */
   stationsUsed: string[];
   supportCount: number;
@@ -89,8 +94,8 @@ export interface StationView {
 
 /** Everything the timeline draws. */
 export interface FleetView {
-  /** The fleet document as the SDK validated it (kept to skip validating it again). */
-  fleet: NormalizedFleet;
+  /** The fleet document as the guard read it (kept to skip reading it again). */
+  fleet: FleetDoc;
   epoch: Instant;
   timeScales: TimeScales;
   /** Horizon length, seconds. */
@@ -105,34 +110,6 @@ export interface FleetView {
 /** The result of reading: a view, or the first problem found, naming the field. */
 export type FleetReadResult = { ok: true; view: FleetView } | { ok: false; error: string };
 
-class GuardError extends Error {}
-
-function fail(field: string, expected: string, value: unknown): never {
-  let shown: string;
-  try {
-    shown = value === undefined ? 'undefined' : (JSON.stringify(value) ?? String(value));
-  } catch {
-    shown = String(value);
-  }
-  if (shown.length > 60) shown = `${shown.slice(0, 57)}…`;
-  throw new GuardError(`${field} must be ${expected}; received ${shown}`);
-}
-
-function obj(field: string, v: unknown): Record<string, unknown> {
-  if (typeof v !== 'object' || v === null || Array.isArray(v)) fail(field, 'an object', v);
-  return v as Record<string, unknown>;
-}
-
-function arr(field: string, v: unknown): readonly unknown[] {
-  if (!Array.isArray(v)) fail(field, 'an array', v);
-  return v;
-}
-
-function str(field: string, v: unknown): string {
-  if (typeof v !== 'string') fail(field, 'a string', v);
-  return v;
-}
-
 function numbers(field: string, v: unknown, length: number): ArrayLike<number> {
   const a = v instanceof Float64Array ? v : arr(field, v);
   if (a.length !== length) fail(`${field}.length`, `${length} (the length of predicted.t)`, a.length);
@@ -141,8 +118,6 @@ function numbers(field: string, v: unknown, length: number): ArrayLike<number> {
   }
   return a as ArrayLike<number>;
 }
-
-type Stamp = (field: string, text: unknown) => number;
 
 function readCommand(field: string, raw: unknown, index: number, stamp: Stamp): FleetCommandView {
   const c = obj(field, raw);
@@ -201,7 +176,7 @@ function readSatellite(field: string, raw: unknown, index: number, stamp: Stamp)
 
 function readStations(
   plan: Record<string, unknown>,
-  fleet: NormalizedFleet,
+  fleet: FleetDoc,
   ids: Map<string, number>,
   stamp: Stamp,
 ): StationView[] {
@@ -224,23 +199,30 @@ function readStations(
   return stations;
 }
 
-function readUnchecked(plan: unknown, fleetDoc: unknown, validated?: NormalizedFleet): FleetView {
-  const p = obj('plan', plan);
-  let fleet: NormalizedFleet;
-  try {
-    fleet = validated && validated.source === fleetDoc ? validated : validateFleet(fleetDoc);
-  } catch (e) {
-    throw new GuardError(`fleet: ${e instanceof Error ? e.message : String(e)}`);
+/** The usable passes the planner computed from a satellite's orbit (`computedPasses` of its plan entry). */
+function computedPasses(field: string, raw: unknown, fleet: FleetDoc, stamp: Stamp): PassView[] {
+  const list = arr(`${field}.computedPasses`, obj(field, raw).computedPasses);
+  const passes: PassView[] = [];
+  for (const [j, q] of list.entries()) {
+    const o = obj(`${field}.computedPasses[${j}]`, q);
+    if (o.usable === false) continue;
+    const id = str(`${field}.computedPasses[${j}].station`, o.station);
+    const station = fleet.stations.findIndex((x) => x.id === id);
+    if (station < 0) fail(`${field}.computedPasses[${j}].station`, 'a station of the fleet', id);
+    passes.push({
+      station,
+      start: stamp(`${field}.computedPasses[${j}].start`, o.start),
+      end: stamp(`${field}.computedPasses[${j}].end`, o.end),
+    });
   }
+  return passes.sort((a, b) => a.start - b.start || a.station - b.station);
+}
+
+function readUnchecked(plan: unknown, fleetDoc: unknown, kept?: FleetDoc): FleetView {
+  const p = obj('plan', plan);
+  const fleet = kept && kept.source === fleetDoc ? kept : readFleetDoc(fleetDoc);
   const { timeScales, epoch } = fleet;
-  const stamp: Stamp = (field, text) => {
-    if (typeof text !== 'string') fail(field, 'an ISO 8601 UTC stamp', text);
-    try {
-      return timeScales.parseIso(text, 'UTC').secondsSince(epoch);
-    } catch {
-      return fail(field, 'an ISO 8601 UTC stamp with a zone, e.g. 2027-02-01T06:00:00Z', text);
-    }
-  };
+  const stamp = stampReader(timeScales, epoch);
   if (typeof p.feasible !== 'boolean') fail('plan.feasible', 'true or false', p.feasible);
   const raw = arr('plan.satellites', p.satellites).map((s, i) => readSatellite(`plan.satellites[${i}]`, s, i, stamp));
   const count = fleet.satellites.length;
@@ -250,7 +232,7 @@ function readUnchecked(plan: unknown, fleetDoc: unknown, validated?: NormalizedF
     const doc = fleet.satellites[i]!;
     if (doc.id !== s.id) fail(`plan.satellites[${i}].id`, `"${doc.id}" (satellites[${i}] of the fleet)`, s.id);
     ids.set(s.id, i);
-    const margin = marginSeries(steered, sigma, doc.norm.bound, doc.norm.probability, doc.norm.z);
+    const margin = marginSeries(steered, sigma, doc.bound, doc.probability, doc.z);
     let minMargin = Infinity,
       minMarginAt = Number.NaN;
     for (const [k, m] of margin.entries())
@@ -260,13 +242,13 @@ function readUnchecked(plan: unknown, fleetDoc: unknown, validated?: NormalizedF
       }
     return {
       ...s,
-      tolerance: doc.norm.bound,
-      probability: doc.norm.probability,
-      z: doc.norm.z,
+      tolerance: doc.bound,
+      probability: doc.probability,
+      z: doc.z,
       margin,
       minMargin,
       minMarginAt,
-      passes: doc.passes.map((q) => ({ station: q.station, start: q.start, end: q.end })),
+      passes: doc.passes ?? computedPasses(`plan.satellites[${i}]`, s.source, fleet, stamp),
       stationsUsed: [],
       supportCount: 0,
     };
@@ -296,14 +278,14 @@ function readUnchecked(plan: unknown, fleetDoc: unknown, validated?: NormalizedF
 
 /**
  * Reads a fleet plan and its fleet document. Returns the view, or the first problem found: the
- * field path (`plan.satellites[2].predicted.t`, `fleet: satellites[1].tolerance.phaseSeconds …`)
- * and what it must be. `validated`, the SDK's `validateFleet(fleet)` of this same document when the
- * caller kept it (the element does, while only the plan changes), saves validating it again.
+ * field path (`plan.satellites[2].predicted.t`, `fleet.satellites[1].tolerance.phaseSeconds`)
+ * and what it must be. `kept`, the `view.fleet` of an earlier read of this same document (the element
+ * keeps it while only the plan changes), saves reading it again.
  */
 export function readFleetPlan(
   plan: FleetPlan | unknown,
   fleet: FleetDocument | unknown,
-  validated?: NormalizedFleet,
+  kept?: FleetDoc,
 ): FleetReadResult {
   if (fleet === undefined || fleet === null) {
     const error =
@@ -311,7 +293,7 @@ export function readFleetPlan(
     return { ok: false, error };
   }
   try {
-    return { ok: true, view: readUnchecked(plan, fleet, validated) };
+    return { ok: true, view: readUnchecked(plan, fleet, kept) };
   } catch (e) {
     if (e instanceof GuardError) return { ok: false, error: e.message };
     return { ok: false, error: `cannot read the plan: ${e instanceof Error ? e.message : String(e)}` };

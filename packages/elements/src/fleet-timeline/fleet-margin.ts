@@ -6,34 +6,7 @@
  *
  * @module
  */
-
-/**
- * Complementary error function, fractional error < 1.2e-7 everywhere: the Chebyshev fit `erfcc`
- * of Press, Teukolsky, Vetterling & Flannery, Numerical Recipes in C, 2nd ed. (1992), §6.2
- * (coefficients [M], from memory; checked against scipy.special.erfc in the tests [C]).
- */
-export function erfc(x: number): number {
-  const z = Math.abs(x);
-  const t = 1 / (1 + 0.5 * z);
-  const poly =
-    1.00002368 +
-    t *
-      (0.37409196 +
-        t *
-          (0.09678418 +
-            t *
-              (-0.18628806 +
-                t * (0.27886807 + t * (-1.13520398 + t * (1.48851587 + t * (-0.82215223 + t * 0.17087277)))))));
-  const ans = t * Math.exp(-z * z - 1.26551223 + t * poly);
-  return x >= 0 ? ans : 2 - ans;
-}
-
-/** Standard normal CDF Φ(x) = ½ erfc(−x/√2) (Abramowitz & Stegun 26.2.29 with 7.1.2) [V2]. */
-export function normalCdf(x: number): number {
-  return 0.5 * erfc(-x / Math.SQRT2);
-}
-
-const INV_SQRT_2PI = 1 / Math.sqrt(2 * Math.PI);
+import { INV_SQRT_2PI, normalCdf, oneSidedQuantile } from '../internal/normal.js';
 
 /**
  * The smallest bound b_p ≥ 0 with P(|X| ≤ b_p) = p for X ~ N(m, σ²), in the unit of m and σ:
@@ -59,17 +32,6 @@ export function requiredBound(mean: number, sigma: number, p: number, z: number,
     b = next;
   }
   return b;
-}
-
-/** The one-sided quantile z₁ = Φ⁻¹(p) for p in (0.5, 1), by Newton's method on {@link normalCdf} from 1. */
-export function oneSidedQuantile(p: number): number {
-  let x = 1;
-  for (let k = 0; k < 60; k++) {
-    const step = (normalCdf(x) - p) / (Math.exp(-0.5 * x * x) * INV_SQRT_2PI);
-    x -= step;
-    if (Math.abs(step) < 1e-13) break;
-  }
-  return x;
 }
 
 /**

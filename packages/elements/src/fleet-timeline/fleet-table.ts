@@ -164,3 +164,17 @@ export function tooltip(d: FleetView, hit: FleetHit, atRisk: readonly boolean[],
       }
     </dl></div>`;
 }
+
+/** The timeline's legend; `riskFraction`: the share of the tolerance under which a margin counts as low. */
+export function fleetLegend(riskFraction: number): TemplateResult {
+  const legend = (cls: string, style: string, text: string): TemplateResult =>
+    html`<li><span class="swatch ${cls}" style=${style} aria-hidden="true"></span>${text}</li>`;
+  return html`<ul part="legend" aria-label="Legend">
+    ${legend('', 'background:var(--margin-color)', 'Margin to tolerance (full strip: offset bound at zero; empty: at the tolerance)')}
+    ${legend('hatch', '', `Low or lost margin (< ${Math.round(riskFraction * 100)} % of tolerance), ⚠ at risk`)}
+    ${legend('', 'background:var(--pass-color);height:3px', 'Pass')}
+    ${legend('', 'background:var(--support-color)', 'Support')}
+    ${legend('setup', '', 'Station setup')}
+    <li>▲▼ frequency step, ◆ phase step (tick: uplink)</li>
+  </ul>`;
+}

@@ -9,19 +9,13 @@ import { baseStyles, plotStyles } from '../internal/styles.js';
 import { warnOnce } from '../internal/warn.js';
 import { calendarTicks, formatChartUtc } from './fleet-axis.js';
 import { type FleetReadResult, type FleetView, isAtRisk, readFleetPlan } from './fleet-data.js';
-import {
-  drawFleet,
-  type FleetHit,
-  type FleetLayout,
-  fleetHeight,
-  fleetLayout,
-  hitTest,
-  supportRect,
-} from './fleet-draw.js';
+import { drawFleet, type FleetHit, type FleetLayout, fleetHeight, fleetLayout, hitTest } from './fleet-draw.js';
+import { type Cursor, drawFleetOverlay, nextCursor } from './fleet-overlay.js';
 import {
   describeSatellite,
   describeSupport,
   fleetLabel,
+  fleetLegend,
   satelliteTable,
   stationTable,
   stepText,
@@ -45,11 +39,6 @@ const COLOR_EXPR = {
   phase: 'var(--phase-command-color)',
 } as const;
 
-/** Keyboard cursor: a satellite row, or a support of a station lane. */
-type Cursor =
-  | { kind: 'satellite'; satellite: number; command: number }
-  | { kind: 'support'; station: number; support: number };
-
 interface Hover {
   hit: FleetHit;
   x: number;
@@ -67,7 +56,7 @@ interface Hover {
  * say so in the table.
  *
  * Takes `planFleet()`'s output (`@tauline/sdk/fleet`) as `plan` and the fleet document it was made
- * for as `fleet` (epoch, tolerances, stations, passes; validated by the SDK's `validateFleet`).
+ * for as `fleet` (epoch, tolerances, stations, passes; read by a thin guard of the fields it uses).
  *
  * Keyboard (timeline focused): ↑ / ↓ move between satellites and station lanes; ← / → move
  * between the supports of a lane (or the uplinks of a satellite); Home / End go to the first /
@@ -172,7 +161,7 @@ export class TaulineFleetTimeline extends PlotElement {
   protected override willUpdate(changed: PropertyValues<this>): void {
     super.willUpdate(changed);
     if (changed.has('plan') || changed.has('fleet')) {
-      // The fleet document is validated again only when it changes (a re-plan of the same fleet keeps it).
+      // The fleet document is read again only when it changes (a re-plan of the same fleet keeps it).
       const kept = this._result?.ok ? this._result.view.fleet : undefined;
       this._result = this.plan === undefined || this.plan === null ? null : readFleetPlan(this.plan, this.fleet, kept);
       if (this._result && !this._result.ok) warnOnce(this, 'invalid-fleet-plan', this._result.error);
@@ -217,26 +206,13 @@ export class TaulineFleetTimeline extends PlotElement {
 
   private _renderTimeline(d: FleetView): TemplateResult {
     const height = fleetHeight(d.satellites.length, d.stations.length);
-    const legend = (cls: string, style: string, text: string): TemplateResult =>
-      html`<li><span class="swatch ${cls}" style=${style} aria-hidden="true"></span>${text}</li>`;
     return html`
       <p part="summary">${
         d.reason
           ? typographicMinus(d.reason)
           : `All ${d.satellites.length} satellites are held inside their tolerances.`
       }</p>
-      <ul part="legend" aria-label="Legend">
-        ${legend(
-          '',
-          'background:var(--margin-color)',
-          'Margin to tolerance (full strip: offset bound at zero; empty: at the tolerance)',
-        )}
-        ${legend('hatch', '', `Low or lost margin (< ${Math.round(this._risk * 100)} % of tolerance), ⚠ at risk`)}
-        ${legend('', 'background:var(--pass-color);height:3px', 'Pass')}
-        ${legend('', 'background:var(--support-color)', 'Support')}
-        ${legend('setup', '', 'Station setup')}
-        <li>▲▼ frequency step, ◆ phase step (tick: uplink)</li>
-      </ul>
+      ${fleetLegend(this._risk)}
       <div class="plot-box" part="plot" tabindex="0" role="group" style=${`height:${height}px`}
         aria-roledescription="interactive timeline" aria-label="Fleet timeline" aria-describedby="keys"
         @pointerdown=${this._onPointerDown} @pointermove=${this._onPointerMove} @pointerup=${this._onPointerUp}
@@ -301,44 +277,16 @@ export class TaulineFleetTimeline extends PlotElement {
     const ctx = overlay ? sizeCanvas(overlay, g.layout.width, g.layout.height) : null;
     if (!ctx) return;
     const { layout, sx } = g;
-    const outline = (x: number, y: number, w: number, h: number, color: string, width: number): void => {
-      ctx.strokeStyle = color;
-      ctx.lineWidth = width;
-      ctx.strokeRect(x, y, w, h);
-    };
-    const ring = (x: number, y: number): void => {
-      ctx.strokeStyle = colors.accent;
-      ctx.lineWidth = 2;
-      ctx.beginPath();
-      ctx.arc(x, y, 8, 0, Math.PI * 2);
-      ctx.stroke();
-    };
-    const sel = d.satellites.findIndex((s) => s.id === this.selected);
-    const rowY = (i: number): number => layout.top + i * layout.rowHeight;
-    const width = layout.right - layout.left;
-    if (sel >= 0) outline(layout.left - 1, rowY(sel) + 0.5, width + 2, layout.rowHeight - 1, colors.accent, 2);
-    const c = this._cursor;
-    if (c?.kind === 'satellite') outline(1, rowY(c.satellite) + 1, layout.right, layout.rowHeight - 2, colors.text, 1);
-    // The uplink the arrow keys reached: a ring around its marker (mid-row, as fleet-draw.ts places it).
-    const up = c?.kind === 'satellite' ? d.satellites[c.satellite]?.commands[c.command] : undefined;
-    if (c?.kind === 'satellite' && up) ring(sx.map(up.executeAt), rowY(c.satellite) + (layout.rowHeight - 6) / 2 + 1);
-    if (c?.kind === 'support') {
-      const sup = d.stations[c.station]?.supports[c.support];
-      const r = sup ? supportRect(layout, sx, sup) : null;
-      if (r) outline(r.x - 2, r.y - 2, r.w + 4, r.h + 4, colors.accent, 2);
-    }
-    const hv = this._hover?.hit;
-    if (hv && hv.kind !== 'lane') {
-      const x = Math.round(sx.map(hv.t)) + 0.5;
-      ctx.strokeStyle = colors.muted;
-      ctx.lineWidth = 1;
-      ctx.setLineDash([2, 3]);
-      ctx.beginPath();
-      ctx.moveTo(x, layout.top);
-      ctx.lineTo(x, layout.height - 4);
-      ctx.stroke();
-      ctx.setLineDash([]);
-    }
+    const selected = d.satellites.findIndex((s) => s.id === this.selected);
+    drawFleetOverlay(ctx, {
+      view: d,
+      layout,
+      sx,
+      colors,
+      selected,
+      cursor: this._cursor,
+      hover: this._hover?.hit ?? null,
+    });
   }
 
   private _setView(a: number, b: number, byUser: boolean): void {
@@ -496,38 +444,6 @@ export class TaulineFleetTimeline extends PlotElement {
     this._zoom(Math.exp(Math.max(-1, Math.min(1, event.deltaY * 0.0015))), g.sx.invert(x));
   };
 
-  /** The cursor after a key, or null when the key does not move it. */
-  private _nextCursor(key: string, d: FleetView): Cursor | null {
-    const rows = d.satellites.length,
-      lanes = d.stations.length;
-    const c = this._cursor;
-    // Rows in order: satellites 0..rows−1, then lanes rows..rows+lanes−1.
-    const row = !c ? -1 : c.kind === 'satellite' ? c.satellite : rows + c.station;
-    const toRow = (r: number): Cursor =>
-      r < rows
-        ? { kind: 'satellite', satellite: r, command: -1 }
-        : { kind: 'support', station: r - rows, support: this._firstVisibleSupport(d, r - rows) };
-    if (key === 'ArrowDown') return toRow(Math.min(rows + lanes - 1, row + 1));
-    if (key === 'ArrowUp') return toRow(Math.max(0, row < 0 ? 0 : row - 1));
-    if (c?.kind === 'support') {
-      const n = d.stations[c.station]!.supports.length;
-      if (key === 'ArrowRight') return { ...c, support: Math.min(n - 1, c.support + 1) };
-      if (key === 'ArrowLeft') return { ...c, support: Math.max(0, c.support - 1) };
-      if (key === 'Home') return { ...c, support: 0 };
-      if (key === 'End') return { ...c, support: n - 1 };
-    }
-    if (key === 'Home') return toRow(0);
-    if (key === 'End') return toRow(rows - 1);
-    return null;
-  }
-
-  private _firstVisibleSupport(d: FleetView, station: number): number {
-    return Math.max(
-      0,
-      d.stations[station]!.supports.findIndex((s) => s.end >= (this._view?.[0] ?? 0)),
-    );
-  }
-
   private readonly _onKeyDown = (event: KeyboardEvent): void => {
     const d = this._data;
     if (!d || !this._view) return;
@@ -548,7 +464,7 @@ export class TaulineFleetTimeline extends PlotElement {
     else if (event.key === 'PageUp' || event.key === 'PageDown') this._pan(event.key === 'PageDown' ? 0.9 : -0.9);
     else if (event.key === 'Escape') this._hover = null;
     else {
-      const next = this._nextCursor(event.key, d);
+      const next = nextCursor(event.key, d, this._cursor, this._view[0]);
       if (next) this._moveCursor(next);
       else handled = false;
     }

@@ -14,10 +14,11 @@ import {
   type StabilityColumns,
   type StabilitySet,
 } from './stability-data.js';
-import { decadeTicks, drawRightAxis, drawSeries, type PlotShape, SHAPES } from './stability-draw.js';
+import { decadeTicks, drawRightAxis, drawSeries, SHAPES } from './stability-draw.js';
 import { isTimeStatistic, type StabilityScales, scaleOf, stabilityScales } from './stability-layout.js';
 import { stabilityPlotStyles } from './stability-plot.styles.js';
 import { renderStabilityTable, renderTableUnits, rowStarts, rowWindow } from './stability-table.js';
+import { STEP_KEYS, stabilityLabel, statCode, statLabel, stepPoint, svgMarker } from './stability-text.js';
 
 export type { StabilityColumns };
 
@@ -37,26 +38,6 @@ const COLOR_EXPR = {
   s5: 'var(--series-5)',
   s6: 'var(--series-6)',
 } as const;
-
-const LABELS: Record<string, string> = {
-  adev: 'ADEV',
-  oadev: 'Overlapping ADEV',
-  mdev: 'MDEV',
-  tdev: 'TDEV',
-  ttotdev: 'TTOTDEV',
-  hdev: 'HDEV',
-  ohdev: 'Overlapping HDEV',
-  totdev: 'TOTDEV',
-};
-
-function statLabel(name: string): string {
-  return LABELS[name] ?? name;
-}
-
-/** Short name for table rows: `OADEV`, `TDEV`, or the name as given. */
-function statCode(name: string): string {
-  return LABELS[name] ? name.toUpperCase() : name;
-}
 
 /** Hover search looks at most this many points per series near the pointer (dense series are sampled). */
 const HOVER_CHECKS = 600;
@@ -200,42 +181,10 @@ export class TaulineStabilityPlot extends PlotElement {
   get plotLabel(): string {
     const key = `${this._version}|${[...this._hidden].join(',')}`;
     if (key !== this._labelKey) {
-      this._label = this._computeLabel();
+      this._label = stabilityLabel(this._shown.map((x) => x.s));
       this._labelKey = key;
     }
     return this._label;
-  }
-
-  private _computeLabel(): string {
-    const s = this._shown.map((x) => x.s);
-    if (s.length === 0) return 'Stability plot: no data';
-    let t0 = Infinity,
-      t1 = -Infinity;
-    for (const x of s) {
-      const first = x.tau[0],
-        last = x.tau[x.tau.length - 1];
-      if (first !== undefined && last !== undefined) {
-        t0 = Math.min(t0, first);
-        t1 = Math.max(t1, last);
-      }
-    }
-    const part = (group: typeof s, what: string, unit: string): string => {
-      let d0 = Infinity,
-        d1 = -Infinity;
-      for (const x of group)
-        for (const d of x.deviation) {
-          if (d < d0) d0 = d;
-          if (d > d1) d1 = d;
-        }
-      return `${group.map((x) => statLabel(x.statistic)).join(', ')} (${what}) from ${formatFraction(d0, 3)}${unit} to ${formatFraction(d1, 3)}${unit}`;
-    };
-    const freq = s.filter((x) => !isTimeStatistic(x.statistic)),
-      time = s.filter((x) => isTimeStatistic(x.statistic));
-    const parts: string[] = [];
-    if (freq.length > 0) parts.push(part(freq, 'fractional frequency, dimensionless', ''));
-    if (time.length > 0)
-      parts.push(part(time, `time deviation in seconds${freq.length > 0 ? ', right axis' : ''}`, ' s'));
-    return `Stability plot, log–log, τ from ${formatDuration(t0)} to ${formatDuration(t1)}: ${parts.join('; ')}`;
   }
 
   protected override render(): TemplateResult {
@@ -301,7 +250,7 @@ export class TaulineStabilityPlot extends PlotElement {
           <span class="swatch" aria-hidden="true"><svg width="18" height="10" viewBox="-9 -5 18 10">
             <line x1="-9" x2="9" y1="0" y2="0" stroke="var(--series-${(k % 6) + 1})" stroke-width="1.5"
               stroke-dasharray=${isTimeStatistic(s.statistic) ? '3 2' : 'none'}></line>
-            ${this._svgMarker(SHAPES[k % SHAPES.length] ?? 'circle', `var(--series-${(k % 6) + 1})`)}
+            ${svgMarker(SHAPES[k % SHAPES.length] ?? 'circle', `var(--series-${(k % 6) + 1})`)}
           </svg></span>${this._nameWithUnit(s.statistic)}</button></li>`;
       })}
     </ul>`;
@@ -313,22 +262,6 @@ export class TaulineStabilityPlot extends PlotElement {
     else next.add(statistic);
     this._hidden = next;
     this._hover = null;
-  }
-
-  private _svgMarker(shape: PlotShape, color: string): TemplateResult {
-    const r = 3.6;
-    const d = new Map<PlotShape, string>([
-      ['circle', ''],
-      ['square', `M${-r * 0.8} ${-r * 0.8}h${r * 1.6}v${r * 1.6}h${-r * 1.6}z`],
-      ['diamond', `M0 ${-r}L${r} 0L0 ${r}L${-r} 0z`],
-      ['triangle-up', `M0 ${-r}L${r} ${r * 0.8}L${-r} ${r * 0.8}z`],
-      ['triangle-down', `M0 ${r}L${r} ${-r * 0.8}L${-r} ${-r * 0.8}z`],
-      ['cross', `M${-r} ${-r}L${r} ${r}M${r} ${-r}L${-r} ${r}`],
-      ['plus', `M${-r} 0H${r}M0 ${-r}V${r}`],
-    ]);
-    return shape === 'circle'
-      ? html`<svg><circle r=${r * 0.85} fill="var(--surface)" stroke=${color} stroke-width="1.5"></circle></svg>`
-      : html`<svg><path d=${d.get(shape)!} fill="var(--surface)" stroke=${color} stroke-width="1.5"></path></svg>`;
   }
 
   /** Pixel position of point i of series k on the plot's scales (its own y axis); null before drawing. */
@@ -513,35 +446,8 @@ export class TaulineStabilityPlot extends PlotElement {
   private readonly _onKeyDown = (event: KeyboardEvent): void => {
     const drawn = this._shown.map(({ k, s }) => ({ k, n: s.tau.length }));
     if (drawn.length === 0) return;
-    const cur = this._hover;
-    let next: { s: number; i: number } | null = cur;
-    switch (event.key) {
-      case 'ArrowRight':
-      case 'ArrowLeft': {
-        const dir = event.key === 'ArrowRight' ? 1 : -1;
-        const first = drawn[0];
-        if (!cur) {
-          if (first) next = { s: first.k, i: dir > 0 ? 0 : first.n - 1 };
-          break;
-        }
-        const n = this._data.series[cur.s]?.tau.length ?? 0;
-        next = { s: cur.s, i: Math.min(n - 1, Math.max(0, cur.i + dir)) };
-        break;
-      }
-      case 'ArrowDown':
-      case 'ArrowUp': {
-        const dir = event.key === 'ArrowDown' ? 1 : -1;
-        const at = cur ? drawn.findIndex((x) => x.k === cur.s) : -1;
-        const target = drawn[Math.min(drawn.length - 1, Math.max(0, at < 0 ? 0 : at + dir))];
-        if (target) next = { s: target.k, i: Math.min(target.n - 1, cur?.i ?? 0) };
-        break;
-      }
-      case 'Escape':
-        next = null;
-        break;
-      default:
-        return;
-    }
+    if (!STEP_KEYS.has(event.key)) return;
+    const next = stepPoint(event.key, drawn, this._hover, (k) => this._data.series[k]?.tau.length ?? 0);
     event.preventDefault();
     this._hover = next;
     this._announcement = next ? this._readout(next.s, next.i) : '';

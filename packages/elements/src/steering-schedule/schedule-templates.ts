@@ -159,3 +159,9 @@ export function renderTooltip(
     </dl>
   </div>`;
 }
+
+/** Feasibility badge; a plan with invalid values never shows "feasible". */
+export function renderBadge(d: PlanView): TemplateResult {
+  if (d.invalid.length > 0) return html`<span class="badge bad">⚠ invalid data</span>`;
+  return html`<span class="badge ${d.feasible ? 'ok' : 'bad'}">${d.feasible ? '✓ feasible' : '✕ not feasible'}</span>`;
+}

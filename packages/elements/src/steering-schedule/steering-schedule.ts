@@ -3,8 +3,7 @@ import type { TimeScales } from '@tauline/sdk/time';
 import { html, nothing, type PropertyDeclarations, type PropertyValues, type TemplateResult } from 'lit';
 import { emit } from '../events.js';
 import { sizeCanvas } from '../internal/canvas.js';
-import { closestIndex } from '../internal/decimate.js';
-import { formatOffsetAuto, formatUtc, parseTimeUnit, typographicMinus } from '../internal/format.js';
+import { formatUtc, parseTimeUnit, typographicMinus } from '../internal/format.js';
 import { PlotElement } from '../internal/plot-element.js';
 import { baseStyles, plotStyles } from '../internal/styles.js';
 import { ViewController } from '../internal/view-controller.js';
@@ -24,7 +23,15 @@ import {
   uncertaintyBand,
   worstAbs,
 } from './schedule-draw.js';
-import { describeStep, renderLegend, renderMetrics, renderTable, renderTooltip } from './schedule-templates.js';
+import { hitMarker, hoverAt, sameHover, scheduleLabel } from './schedule-hit.js';
+import {
+  describeStep,
+  renderBadge,
+  renderLegend,
+  renderMetrics,
+  renderTable,
+  renderTooltip,
+} from './schedule-templates.js';
 import { steeringScheduleStyles } from './steering-schedule.styles.js';
 
 export type { PlanView, SteeringCommandView, SteeringPlanInput };
@@ -239,19 +246,7 @@ export class TaulineSteeringSchedule extends PlotElement {
 
   /** Accessible name of the plot, computed from the data. */
   get plotLabel(): string {
-    const d = this._data;
-    const first = d?.t[0],
-      last = d?.t[d.t.length - 1];
-    if (!d || first === undefined || last === undefined) return 'Steering schedule plot: no data';
-    const freq = d.commands.filter((c) => c.kind === 'frequency').length;
-    const phase = d.commands.length - freq;
-    const span = `${formatUtc(chartTimeToUtcMs(d, first))} to ${formatUtc(chartTimeToUtcMs(d, last))}`;
-    const tol = d.tolerance !== null ? ` against a tolerance of ±${formatOffsetAuto(d.tolerance, 3)}` : '';
-    return (
-      `Predicted clock offset from ${span}; ${d.commands.length} command${d.commands.length === 1 ? '' : 's'} ` +
-      `(${freq} frequency, ${phase} phase); largest steered |offset| ${formatOffsetAuto(this._worst, 3)}${tol}; ` +
-      `plan ${d.feasible ? 'feasible' : 'not feasible'}`
-    );
+    return scheduleLabel(this._data, this._worst);
   }
 
   protected override render(): TemplateResult {
@@ -264,7 +259,7 @@ export class TaulineSteeringSchedule extends PlotElement {
     return html`<div part="base">
       <div class="head">
         <h3 class="title">${this.label}</h3>
-        ${r?.ok ? this._renderBadge(r.view) : nothing}
+        ${r?.ok ? renderBadge(r.view) : nothing}
       </div>
       ${
         r?.ok && r.view.invalid.length > 0
@@ -274,12 +269,6 @@ export class TaulineSteeringSchedule extends PlotElement {
       ${body}
       <span class="probe" aria-hidden="true"></span>
     </div>`;
-  }
-
-  /** Feasibility badge; a plan with invalid values never shows "feasible". */
-  private _renderBadge(d: PlanView): TemplateResult {
-    if (d.invalid.length > 0) return html`<span class="badge bad">⚠ invalid data</span>`;
-    return html`<span class="badge ${d.feasible ? 'ok' : 'bad'}">${d.feasible ? '✓ feasible' : '✕ not feasible'}</span>`;
   }
 
   private _renderChart(d: PlanView): TemplateResult {
@@ -386,19 +375,6 @@ export class TaulineSteeringSchedule extends PlotElement {
     return { x: event.clientX - (rect?.left ?? 0), y: event.clientY - (rect?.top ?? 0) };
   }
 
-  private _hitMarker(x: number, y: number): number {
-    let best = -1,
-      bestD = 11 * 11;
-    for (const m of this._markers) {
-      const dd = (m.x - x) ** 2 + (m.y - y) ** 2;
-      if (dd < bestD) {
-        bestD = dd;
-        best = m.c;
-      }
-    }
-    return best;
-  }
-
   private readonly _onPointerDown = (event: PointerEvent): void => {
     if (!this._scales || !this._viewController.view || event.button > 0) return;
     // Capture keeps a drag going outside the box; synthetic pointers (tests) have none to capture.
@@ -424,24 +400,8 @@ export class TaulineSteeringSchedule extends PlotElement {
   };
 
   private _updateHover(x: number, y: number, d: PlanView, sc: ScheduleScales): void {
-    const inside =
-      x >= sc.frame.left &&
-      x <= sc.frame.left + sc.frame.width &&
-      y >= sc.frame.top &&
-      y <= sc.frame.top + sc.frame.height;
-    if (!inside) {
-      if (this._hover) this._hover = null;
-      return;
-    }
-    const c = this._hitMarker(x, y);
-    if (c >= 0) {
-      if (this._hover?.kind !== 'command' || this._hover.c !== c) this._hover = { kind: 'command', c, px: x };
-      return;
-    }
-    const i = closestIndex(d.t, sc.sx.invert(x));
-    const t = d.t[i];
-    if (t === undefined) return;
-    if (this._hover?.kind !== 'sample' || this._hover.i !== i) this._hover = { kind: 'sample', i, px: sc.sx.map(t) };
+    const next = hoverAt(x, y, d, sc, this._markers);
+    if (next !== undefined && !sameHover(this._hover, next)) this._hover = next;
   }
 
   private readonly _onPointerUp = (event: PointerEvent): void => {
@@ -451,7 +411,7 @@ export class TaulineSteeringSchedule extends PlotElement {
     if (outcome === 'drag' && view) emit(this, 'tauline-view-change', { startSeconds: view[0], endSeconds: view[1] });
     if (outcome !== 'click') return;
     const p = this._local(event);
-    const c = this._hitMarker(p.x, p.y);
+    const c = hitMarker(this._markers, p.x, p.y);
     if (c >= 0) this._selectByUser(c, 'plot');
   };
 
