@@ -31,7 +31,7 @@ import { EARTH_ROTATION_ANGLE_RATE, earthRotationAngle, requireTimeScales } from
 import type { KeplerianElements } from './elements.js';
 import { type GeodeticPosition, geodeticToEcefTrusted, localUp, requireGeodeticPosition } from './geodetic.js';
 import { j2SecularRatesTrusted, requireMeanElements } from './j2-secular.js';
-import { solveKepler } from './kepler.js';
+import { KEPLER_RESIDUAL_TOLERANCE, solveKepler } from './kepler.js';
 import { findPasses } from './pass-search.js';
 
 /** Mean elements at their own epoch. */
@@ -92,6 +92,7 @@ export const PASS_TIME_TOLERANCE_SECONDS: Seconds = 0.01;
 export const MAX_PASS_PROPAGATION_SECONDS: Seconds = 366 * 86_400;
 
 let bundled: TimeScales | undefined;
+const TWO_PI = 2 * Math.PI;
 
 /** Writes the satellite's Earth-fixed position (m) at t seconds after the prediction epoch into `out[at..at+2]`. */
 type EcefAt = (t: Seconds, out: Float64Array, at: number) => void;
@@ -117,28 +118,59 @@ function ecefEvaluator(orbit: MeanOrbit, epoch: Instant, horizon: Seconds, ts: T
   const ci = Math.cos(i),
     si = Math.sin(i);
   const b = a * Math.sqrt((1 - e) * (1 + e));
+  // sin E and cos E of the last Kepler solve (written by eccentricAnomaly, read right after it).
+  const trig = new Float64Array(2);
   return (t: Seconds, out: Float64Array, at: number): void => {
     const dt = offset + t;
-    const raan = el.raan + rates.raanRate * dt;
     const w = el.argumentOfPerigee + rates.argumentOfPerigeeRate * dt;
-    const E = solveKepler((el.meanAnomaly + rates.meanAnomalyRate * dt) % (2 * Math.PI), e);
+    eccentricAnomaly((el.meanAnomaly + rates.meanAnomalyRate * dt) % TWO_PI, e, trig);
     // Perifocal x = a(cos E − e), y = b sin E, rotated by R3(−Ω)R1(−i)R3(−ω) (as elementsToState, Vallado Alg. 10 [M]).
-    const xp = a * (Math.cos(E) - e),
-      yp = b * Math.sin(E);
-    const cO = Math.cos(raan),
-      sO = Math.sin(raan),
-      cw = Math.cos(w),
+    const xp = a * (trig[1]! - e),
+      yp = b * trig[0]!;
+    const cw = Math.cos(w),
       sw = Math.sin(w);
-    const x = xp * (cO * cw - sO * sw * ci) + yp * (-cO * sw - sO * cw * ci);
-    const y = xp * (sO * cw + cO * sw * ci) + yp * (-sO * sw + cO * cw * ci);
-    // r_ECEF = R3(θ)·r: [GCRS] = Q·R·W [ITRS] with R = R3(−ERA), Q = W = identity (IERS Conventions 2010 eq. 5.1 [M]).
-    const theta = theta0 + EARTH_ROTATION_ANGLE_RATE * t;
-    const c = Math.cos(theta),
-      s = Math.sin(theta);
-    out[at] = c * x + s * y;
-    out[at + 1] = -s * x + c * y;
-    out[at + 2] = xp * sw * si + yp * cw * si;
+    // In the orbit plane, turned by ω; then tilted by i (R1(−i)).
+    const x1 = xp * cw - yp * sw,
+      y1 = xp * sw + yp * cw;
+    const y2 = y1 * ci;
+    // r_ECEF = R3(θ)·r: [GCRS] = Q·R·W [ITRS] with R = R3(−ERA), Q = W = identity (IERS Conventions 2010 eq. 5.1 [M]);
+    // R3(θ)·R3(−Ω) = R3(θ − Ω), one rotation by the node's angle east of the Earth-fixed x axis.
+    const lambda = theta0 + EARTH_ROTATION_ANGLE_RATE * t - (el.raan + rates.raanRate * dt);
+    const c = Math.cos(lambda),
+      s = Math.sin(lambda);
+    out[at] = c * x1 + s * y2;
+    out[at + 1] = -s * x1 + c * y2;
+    out[at + 2] = y1 * si;
   };
+}
+
+/**
+ * Eccentric anomaly for mean anomaly M ∈ (−2π, 2π), writing [sin E, cos E] into `trig`: M is folded into [−π, π]
+ * (exact subtraction of 2π, Sterbenz), Newton's method from E0 = M + e·sin M is stopped once the residual
+ * |E − e sin E − M| ≤ KEPLER_RESIDUAL_TOLERANCE, the bound solveKepler guarantees on [−π, π]; when six steps do not
+ * reach it (e near 1), solveKepler itself answers. No allocation.
+ * @see Kepler's equation and Newton's method, Vallado, Fundamentals of Astrodynamics and Applications, 4th ed.,
+ *   §2.2, Alg. 2 [M].
+ */
+function eccentricAnomaly(meanAnomaly: Radians, e: number, trig: Float64Array): void {
+  let m = meanAnomaly;
+  if (m > Math.PI) m -= TWO_PI;
+  else if (m < -Math.PI) m += TWO_PI;
+  let E = m + e * Math.sin(m);
+  for (let k = 0; k < 6; k++) {
+    const sE = Math.sin(E),
+      cE = Math.cos(E);
+    const f = E - e * sE - m;
+    if (Math.abs(f) <= KEPLER_RESIDUAL_TOLERANCE) {
+      trig[0] = sE;
+      trig[1] = cE;
+      return;
+    }
+    E -= f / (1 - e * cE);
+  }
+  E = solveKepler(m, e);
+  trig[0] = Math.sin(E);
+  trig[1] = Math.cos(E);
 }
 
 /** Elevation (rad) from a site of the satellite position p[at..at+2] (Vallado 4th ed. §4.4, up component [M]). */
