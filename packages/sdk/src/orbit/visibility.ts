@@ -119,14 +119,14 @@ function ecefEvaluator(orbit: MeanOrbit, epoch: Instant, horizon: Seconds, ts: T
     si = Math.sin(i);
   const b = a * Math.sqrt((1 - e) * (1 + e));
   // sin E and cos E of the last Kepler solve (written by eccentricAnomaly, read right after it).
-  const trig = new Float64Array(2);
+  const trig = { sin: 0, cos: 0 };
   return (t: Seconds, out: Float64Array, at: number): void => {
     const dt = offset + t;
     const w = el.argumentOfPerigee + rates.argumentOfPerigeeRate * dt;
     eccentricAnomaly((el.meanAnomaly + rates.meanAnomalyRate * dt) % TWO_PI, e, trig);
     // Perifocal x = a(cos E − e), y = b sin E, rotated by R3(−Ω)R1(−i)R3(−ω) (as elementsToState, Vallado Alg. 10 [M]).
-    const xp = a * (trig[1]! - e),
-      yp = b * trig[0]!;
+    const xp = a * (trig.cos - e),
+      yp = b * trig.sin;
     const cw = Math.cos(w),
       sw = Math.sin(w);
     // In the orbit plane, turned by ω; then tilted by i (R1(−i)).
@@ -152,7 +152,7 @@ function ecefEvaluator(orbit: MeanOrbit, epoch: Instant, horizon: Seconds, ts: T
  * @see Kepler's equation and Newton's method, Vallado, Fundamentals of Astrodynamics and Applications, 4th ed.,
  *   §2.2, Alg. 2 [M].
  */
-function eccentricAnomaly(meanAnomaly: Radians, e: number, trig: Float64Array): void {
+function eccentricAnomaly(meanAnomaly: Radians, e: number, trig: { sin: number; cos: number }): void {
   let m = meanAnomaly;
   if (m > Math.PI) m -= TWO_PI;
   else if (m < -Math.PI) m += TWO_PI;
@@ -162,15 +162,15 @@ function eccentricAnomaly(meanAnomaly: Radians, e: number, trig: Float64Array): 
       cE = Math.cos(E);
     const f = E - e * sE - m;
     if (Math.abs(f) <= KEPLER_RESIDUAL_TOLERANCE) {
-      trig[0] = sE;
-      trig[1] = cE;
+      trig.sin = sE;
+      trig.cos = cE;
       return;
     }
     E -= f / (1 - e * cE);
   }
   E = solveKepler(m, e);
-  trig[0] = Math.sin(E);
-  trig[1] = Math.cos(E);
+  trig.sin = Math.sin(E);
+  trig.cos = Math.cos(E);
 }
 
 /** Elevation (rad) from a site of the satellite position p[at..at+2] (Vallado 4th ed. §4.4, up component [M]). */
@@ -281,20 +281,86 @@ export function predictPasses(
   requirePositive('options.stepSeconds', step, 's');
   const count = Math.ceil(span / step);
   const times = new Float64Array(count + 1);
-  const positions = new Float64Array(3 * (count + 1));
-  for (let k = 0; k <= count; k++) {
-    times[k] = Math.min(k * step, span);
-    ecef(times[k]!, positions, 3 * k);
-  }
+  const timeOf = (k: number): Seconds => Math.min(k * step, span);
+  for (let k = 0; k <= count; k++) times[k] = timeOf(k);
+  const elements = (orbit as MeanOrbit).elements;
+  const samples = {
+    timeOf,
+    count: count + 1,
+    positions: new Float64Array(3 * (count + 1)),
+    ready: new Uint8Array(count + 1),
+    minRadius: elements.semiMajorAxis * (1 - elements.eccentricity),
+  };
+  const speed = maxEarthFixedSpeed(elements, set);
   const scratch = new Float64Array(3);
   const passes = checked.map((site) => {
     const elevation = (t: Seconds): Radians => {
       ecef(t, scratch, 0);
       return elevationOf(site, scratch, 0);
     };
-    const sampled = new Float64Array(count + 1);
-    for (let k = 0; k <= count; k++) sampled[k] = elevationOf(site, positions, 3 * k);
+    const sampled = sampleElevations(site, ecef, samples, speed);
     return findPasses(times, sampled, elevation, site.mask, tol);
   });
   return { epoch: start, horizon: span, passes };
+}
+
+/**
+ * Upper bound of the Earth-fixed speed (m/s) of the secular-J2 position function of `ecefEvaluator`, whose
+ * position is R3(θ − Ω)·R1(−i)·R3(−ω)·r_pf(M): |ṙ| ≤ |Ṁ|·max|dr_pf/dM| + (|ω̇| + |θ̇ − Ω̇|)·a(1 + e), with
+ * |dr_pf/dM| = a·√(1 − e²cos²E)/(1 − e cos E) ≤ a·√((1 + e)/(1 − e)) (its value at perigee) [C].
+ */
+function maxEarthFixedSpeed(el: KeplerianElements, set: ConstantSet): number {
+  const rates = j2SecularRatesTrusted(el, set);
+  const { semiMajorAxis: a, eccentricity: e } = el;
+  const turning = Math.abs(rates.argumentOfPerigeeRate) + Math.abs(EARTH_ROTATION_ANGLE_RATE - rates.raanRate);
+  return Math.abs(rates.meanAnomalyRate) * a * Math.sqrt((1 + e) / (1 - e)) + turning * a * (1 + e);
+}
+
+/**
+ * The elevations of one site at the sample times, positions computed once per sample and shared by the sites.
+ * Samples far below the mask are skipped: the elevation changes no faster than the angular rate of the line of
+ * sight, |ρ̇|/|ρ| ≤ (max speed)/(a(1 − e) − |r_site|) (kinematics of a unit vector, common practice, no source;
+ * taken 0.1 % larger, with 1e-9 rad of margin), so after a sample at el < mask the satellite stays below the mask
+ * for (mask − el)/rate seconds. A sample k is skipped (NaN) only when [t(k−2), t(k+2)] lies in such a stretch:
+ * then every three-sample search of findPasses touching it would be moot, and findPasses gives the same passes as
+ * with every sample computed.
+ */
+function sampleElevations(
+  site: { r: Vector3; up: Vector3; mask: Radians },
+  ecef: EcefAt,
+  samples: {
+    timeOf: (k: number) => Seconds;
+    count: number;
+    positions: Float64Array;
+    ready: Uint8Array;
+    minRadius: number;
+  },
+  speed: number,
+): Float64Array {
+  const { timeOf, positions, ready } = samples;
+  const n = samples.count;
+  const nearest = samples.minRadius - Math.hypot(site.r[0], site.r[1], site.r[2]);
+  const rate = nearest > 0 ? (1.001 * speed) / nearest : Number.POSITIVE_INFINITY;
+  const sampled = new Float64Array(n);
+  // The current stretch [from, until) proven below the mask.
+  let from = Number.POSITIVE_INFINITY,
+    until = Number.NEGATIVE_INFINITY;
+  for (let k = 0; k < n; k++) {
+    if (k >= 2 && k + 2 < n && timeOf(k - 2) >= from && timeOf(k + 2) < until) {
+      sampled[k] = Number.NaN;
+      continue;
+    }
+    const t = timeOf(k);
+    if (ready[k] === 0) {
+      ecef(t, positions, 3 * k);
+      ready[k] = 1;
+    }
+    const el = elevationOf(site, positions, 3 * k);
+    sampled[k] = el;
+    const below = t + (site.mask - el - 1e-9) / rate;
+    if (!(below > t)) continue;
+    if (!(t >= from && t < until)) from = t;
+    until = Math.max(until, below);
+  }
+  return sampled;
 }
