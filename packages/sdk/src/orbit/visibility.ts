@@ -178,7 +178,11 @@ function elevationOf(site: { r: Vector3; up: Vector3 }, p: Float64Array, at: num
   const dx = p[at]! - site.r[0],
     dy = p[at + 1]! - site.r[1],
     dz = p[at + 2]! - site.r[2];
-  const sine = (dx * site.up[0] + dy * site.up[1] + dz * site.up[2]) / Math.hypot(dx, dy, dz);
+  const height = dx * site.up[0] + dy * site.up[1] + dz * site.up[2];
+  let sine = height / Math.sqrt(dx * dx + dy * dy + dz * dz);
+  // Near the zenith asin magnifies the last bit of the range (d asin/dx = 1/√(1 − x²)): there the correctly
+  // rounded hypot, as elevationFromStation uses; elsewhere the plain square root differs by an ulp at most.
+  if (sine > 0.9) sine = height / Math.hypot(dx, dy, dz);
   return Math.asin(Math.max(-1, Math.min(1, sine)));
 }
 
