@@ -102,6 +102,8 @@ function peak(
 /**
  * The passes of a function sampled at `times` (`values[k] = f(times[k])`, times increasing from 0 to the
  * horizon): maximal intervals with f ≥ level, with starts and ends inside and within `tol` of the crossing.
+ * A NaN sample stands for one known to be below the level with [t(k−2), t(k+2)] below too: it counts as below and,
+ * since every comparison with NaN is false, starts no three-sample search (none could find a pass there).
  */
 export function findPasses(
   times: Float64Array,

@@ -31,7 +31,7 @@ import { EARTH_ROTATION_ANGLE_RATE, earthRotationAngle, requireTimeScales } from
 import type { KeplerianElements } from './elements.js';
 import { type GeodeticPosition, geodeticToEcefTrusted, localUp, requireGeodeticPosition } from './geodetic.js';
 import { j2SecularRatesTrusted, requireMeanElements } from './j2-secular.js';
-import { solveKepler } from './kepler.js';
+import { KEPLER_RESIDUAL_TOLERANCE, solveKepler } from './kepler.js';
 import { findPasses } from './pass-search.js';
 
 /** Mean elements at their own epoch. */
@@ -92,6 +92,7 @@ export const PASS_TIME_TOLERANCE_SECONDS: Seconds = 0.01;
 export const MAX_PASS_PROPAGATION_SECONDS: Seconds = 366 * 86_400;
 
 let bundled: TimeScales | undefined;
+const TWO_PI = 2 * Math.PI;
 
 /** Writes the satellite's Earth-fixed position (m) at t seconds after the prediction epoch into `out[at..at+2]`. */
 type EcefAt = (t: Seconds, out: Float64Array, at: number) => void;
@@ -117,28 +118,59 @@ function ecefEvaluator(orbit: MeanOrbit, epoch: Instant, horizon: Seconds, ts: T
   const ci = Math.cos(i),
     si = Math.sin(i);
   const b = a * Math.sqrt((1 - e) * (1 + e));
+  // sin E and cos E of the last Kepler solve (written by eccentricAnomaly, read right after it).
+  const trig = { sin: 0, cos: 0 };
   return (t: Seconds, out: Float64Array, at: number): void => {
     const dt = offset + t;
-    const raan = el.raan + rates.raanRate * dt;
     const w = el.argumentOfPerigee + rates.argumentOfPerigeeRate * dt;
-    const E = solveKepler((el.meanAnomaly + rates.meanAnomalyRate * dt) % (2 * Math.PI), e);
+    eccentricAnomaly((el.meanAnomaly + rates.meanAnomalyRate * dt) % TWO_PI, e, trig);
     // Perifocal x = a(cos E − e), y = b sin E, rotated by R3(−Ω)R1(−i)R3(−ω) (as elementsToState, Vallado Alg. 10 [M]).
-    const xp = a * (Math.cos(E) - e),
-      yp = b * Math.sin(E);
-    const cO = Math.cos(raan),
-      sO = Math.sin(raan),
-      cw = Math.cos(w),
+    const xp = a * (trig.cos - e),
+      yp = b * trig.sin;
+    const cw = Math.cos(w),
       sw = Math.sin(w);
-    const x = xp * (cO * cw - sO * sw * ci) + yp * (-cO * sw - sO * cw * ci);
-    const y = xp * (sO * cw + cO * sw * ci) + yp * (-sO * sw + cO * cw * ci);
-    // r_ECEF = R3(θ)·r: [GCRS] = Q·R·W [ITRS] with R = R3(−ERA), Q = W = identity (IERS Conventions 2010 eq. 5.1 [M]).
-    const theta = theta0 + EARTH_ROTATION_ANGLE_RATE * t;
-    const c = Math.cos(theta),
-      s = Math.sin(theta);
-    out[at] = c * x + s * y;
-    out[at + 1] = -s * x + c * y;
-    out[at + 2] = xp * sw * si + yp * cw * si;
+    // In the orbit plane, turned by ω; then tilted by i (R1(−i)).
+    const x1 = xp * cw - yp * sw,
+      y1 = xp * sw + yp * cw;
+    const y2 = y1 * ci;
+    // r_ECEF = R3(θ)·r: [GCRS] = Q·R·W [ITRS] with R = R3(−ERA), Q = W = identity (IERS Conventions 2010 eq. 5.1 [M]);
+    // R3(θ)·R3(−Ω) = R3(θ − Ω), one rotation by the node's angle east of the Earth-fixed x axis.
+    const lambda = theta0 + EARTH_ROTATION_ANGLE_RATE * t - (el.raan + rates.raanRate * dt);
+    const c = Math.cos(lambda),
+      s = Math.sin(lambda);
+    out[at] = c * x1 + s * y2;
+    out[at + 1] = -s * x1 + c * y2;
+    out[at + 2] = y1 * si;
   };
+}
+
+/**
+ * Eccentric anomaly for mean anomaly M ∈ (−2π, 2π), writing [sin E, cos E] into `trig`: M is folded into [−π, π]
+ * (exact subtraction of 2π, Sterbenz), Newton's method from E0 = M + e·sin M is stopped once the residual
+ * |E − e sin E − M| ≤ KEPLER_RESIDUAL_TOLERANCE, the bound solveKepler guarantees on [−π, π]; when six steps do not
+ * reach it (e near 1), solveKepler itself answers. No allocation.
+ * @see Kepler's equation and Newton's method, Vallado, Fundamentals of Astrodynamics and Applications, 4th ed.,
+ *   §2.2, Alg. 2 [M].
+ */
+function eccentricAnomaly(meanAnomaly: Radians, e: number, trig: { sin: number; cos: number }): void {
+  let m = meanAnomaly;
+  if (m > Math.PI) m -= TWO_PI;
+  else if (m < -Math.PI) m += TWO_PI;
+  let E = m + e * Math.sin(m);
+  for (let k = 0; k < 6; k++) {
+    const sE = Math.sin(E),
+      cE = Math.cos(E);
+    const f = E - e * sE - m;
+    if (Math.abs(f) <= KEPLER_RESIDUAL_TOLERANCE) {
+      trig.sin = sE;
+      trig.cos = cE;
+      return;
+    }
+    E -= f / (1 - e * cE);
+  }
+  E = solveKepler(m, e);
+  trig.sin = Math.sin(E);
+  trig.cos = Math.cos(E);
 }
 
 /** Elevation (rad) from a site of the satellite position p[at..at+2] (Vallado 4th ed. §4.4, up component [M]). */
@@ -146,7 +178,11 @@ function elevationOf(site: { r: Vector3; up: Vector3 }, p: Float64Array, at: num
   const dx = p[at]! - site.r[0],
     dy = p[at + 1]! - site.r[1],
     dz = p[at + 2]! - site.r[2];
-  const sine = (dx * site.up[0] + dy * site.up[1] + dz * site.up[2]) / Math.hypot(dx, dy, dz);
+  const height = dx * site.up[0] + dy * site.up[1] + dz * site.up[2];
+  let sine = height / Math.sqrt(dx * dx + dy * dy + dz * dz);
+  // Near the zenith asin magnifies the last bit of the range (d asin/dx = 1/√(1 − x²)): there the correctly
+  // rounded hypot, as elevationFromStation uses; elsewhere the plain square root differs by an ulp at most.
+  if (sine > 0.9) sine = height / Math.hypot(dx, dy, dz);
   return Math.asin(Math.max(-1, Math.min(1, sine)));
 }
 
@@ -249,20 +285,86 @@ export function predictPasses(
   requirePositive('options.stepSeconds', step, 's');
   const count = Math.ceil(span / step);
   const times = new Float64Array(count + 1);
-  const positions = new Float64Array(3 * (count + 1));
-  for (let k = 0; k <= count; k++) {
-    times[k] = Math.min(k * step, span);
-    ecef(times[k]!, positions, 3 * k);
-  }
+  const timeOf = (k: number): Seconds => Math.min(k * step, span);
+  for (let k = 0; k <= count; k++) times[k] = timeOf(k);
+  const elements = (orbit as MeanOrbit).elements;
+  const samples = {
+    timeOf,
+    count: count + 1,
+    positions: new Float64Array(3 * (count + 1)),
+    ready: new Uint8Array(count + 1),
+    minRadius: elements.semiMajorAxis * (1 - elements.eccentricity),
+  };
+  const speed = maxEarthFixedSpeed(elements, set);
   const scratch = new Float64Array(3);
   const passes = checked.map((site) => {
     const elevation = (t: Seconds): Radians => {
       ecef(t, scratch, 0);
       return elevationOf(site, scratch, 0);
     };
-    const sampled = new Float64Array(count + 1);
-    for (let k = 0; k <= count; k++) sampled[k] = elevationOf(site, positions, 3 * k);
+    const sampled = sampleElevations(site, ecef, samples, speed);
     return findPasses(times, sampled, elevation, site.mask, tol);
   });
   return { epoch: start, horizon: span, passes };
+}
+
+/**
+ * Upper bound of the Earth-fixed speed (m/s) of the secular-J2 position function of `ecefEvaluator`, whose
+ * position is R3(θ − Ω)·R1(−i)·R3(−ω)·r_pf(M): |ṙ| ≤ |Ṁ|·max|dr_pf/dM| + (|ω̇| + |θ̇ − Ω̇|)·a(1 + e), with
+ * |dr_pf/dM| = a·√(1 − e²cos²E)/(1 − e cos E) ≤ a·√((1 + e)/(1 − e)) (its value at perigee) [C].
+ */
+function maxEarthFixedSpeed(el: KeplerianElements, set: ConstantSet): number {
+  const rates = j2SecularRatesTrusted(el, set);
+  const { semiMajorAxis: a, eccentricity: e } = el;
+  const turning = Math.abs(rates.argumentOfPerigeeRate) + Math.abs(EARTH_ROTATION_ANGLE_RATE - rates.raanRate);
+  return Math.abs(rates.meanAnomalyRate) * a * Math.sqrt((1 + e) / (1 - e)) + turning * a * (1 + e);
+}
+
+/**
+ * The elevations of one site at the sample times, positions computed once per sample and shared by the sites.
+ * Samples far below the mask are skipped: the elevation changes no faster than the angular rate of the line of
+ * sight, |ρ̇|/|ρ| ≤ (max speed)/(a(1 − e) − |r_site|) (kinematics of a unit vector, common practice, no source;
+ * taken 0.1 % larger, with 1e-9 rad of margin), so after a sample at el < mask the satellite stays below the mask
+ * for (mask − el)/rate seconds. A sample k is skipped (NaN) only when [t(k−2), t(k+2)] lies in such a stretch:
+ * then every three-sample search of findPasses touching it would be moot, and findPasses gives the same passes as
+ * with every sample computed.
+ */
+function sampleElevations(
+  site: { r: Vector3; up: Vector3; mask: Radians },
+  ecef: EcefAt,
+  samples: {
+    timeOf: (k: number) => Seconds;
+    count: number;
+    positions: Float64Array;
+    ready: Uint8Array;
+    minRadius: number;
+  },
+  speed: number,
+): Float64Array {
+  const { timeOf, positions, ready } = samples;
+  const n = samples.count;
+  const nearest = samples.minRadius - Math.hypot(site.r[0], site.r[1], site.r[2]);
+  const rate = nearest > 0 ? (1.001 * speed) / nearest : Number.POSITIVE_INFINITY;
+  const sampled = new Float64Array(n);
+  // The current stretch [from, until) proven below the mask.
+  let from = Number.POSITIVE_INFINITY,
+    until = Number.NEGATIVE_INFINITY;
+  for (let k = 0; k < n; k++) {
+    if (k >= 2 && k + 2 < n && timeOf(k - 2) >= from && timeOf(k + 2) < until) {
+      sampled[k] = Number.NaN;
+      continue;
+    }
+    const t = timeOf(k);
+    if (ready[k] === 0) {
+      ecef(t, positions, 3 * k);
+      ready[k] = 1;
+    }
+    const el = elevationOf(site, positions, 3 * k);
+    sampled[k] = el;
+    const below = t + (site.mask - el - 1e-9) / rate;
+    if (!(below > t)) continue;
+    if (!(t >= from && t < until)) from = t;
+    until = Math.max(until, below);
+  }
+  return sampled;
 }

@@ -177,6 +177,22 @@ describe('predictPasses', () => {
     expect(tail.at(-1)!.end).toBe(mid);
   });
 
+  it('predictPasses over three stations gives each station exactly the passes it gets alone', () => {
+    // Positions are computed on demand and shared by the stations, and each station skips the samples it provably
+    // cannot see: the order and mix of stations must not change any station's passes.
+    const sites = [
+      site,
+      { position: { latitude: rad(-29.41), longitude: rad(141.12), height: 150 }, elevationMask: rad(5) },
+      { position: { latitude: rad(64.91), longitude: rad(-18.33), height: 310 }, elevationMask: rad(10) },
+    ];
+    const together = predictPasses(orbit, sites, epoch, 3 * 86_400, { timeScales: ts }).passes;
+    for (const [k, s] of sites.entries()) {
+      expect(predictPasses(orbit, [s], epoch, 3 * 86_400, { timeScales: ts }).passes[0]).toEqual(together[k]);
+    }
+    const reversed = predictPasses(orbit, [...sites].reverse(), epoch, 3 * 86_400, { timeScales: ts }).passes;
+    expect(reversed.reverse()).toEqual(together);
+  });
+
   it('predictPasses refuses elements more than 366 days from the window and a mask outside [0, π/2)', () => {
     const old: MeanOrbit = { epoch: ts.parseIso('2025-01-01T00:00:00Z', 'UTC'), elements: MEO };
     expect(() => predictPasses(old, [site], epoch, 86_400, { timeScales: ts })).toThrow(/orbit\.epoch/);
