@@ -24,7 +24,6 @@ const LONG_FILES: Readonly<Record<string, number>> = {
   'packages/sdk/src/clock-model/from-stability.ts': 550,
   'packages/sdk/src/clock-model/noise.ts': 528,
   'packages/sdk/src/io/rinex-clock.ts': 560,
-  'packages/sdk/src/io/sp3.ts': 651,
   'packages/sdk/src/orbit/integrator.ts': 530,
   'packages/sdk/src/relativity/precise.ts': 514,
   'packages/cli/src/commands/broadcast.ts': 510,
