@@ -23,7 +23,6 @@ const MAX_FUNCTION_LINES = 100;
 const LONG_FILES: Readonly<Record<string, number>> = {
   'packages/sdk/src/clock-model/from-stability.ts': 550,
   'packages/sdk/src/clock-model/noise.ts': 528,
-  'packages/sdk/src/io/rinex-clock.ts': 560,
   'packages/sdk/src/orbit/integrator.ts': 530,
   'packages/sdk/src/relativity/precise.ts': 514,
   'packages/cli/src/commands/broadcast.ts': 510,
@@ -37,7 +36,6 @@ const LONG_FUNCTIONS: Readonly<Record<string, number>> = {
   'packages/sdk/src/clock-model/kalman-run.ts:runClockFilter': 101,
   'packages/sdk/src/clock-model/noise.ts:fitDiffusion': 102,
   'packages/sdk/src/clock-model/polynomial.ts:fitClockPolynomial': 103,
-  'packages/sdk/src/io/rinex-nav-kepler.ts:decodeKeplerRecord': 154,
   'packages/sdk/src/orbit/broadcast.ts:evaluateBroadcastEphemeris': 106,
   'packages/sdk/src/relativity/proper-time.ts:integrateProperTime': 116,
   'packages/sdk/src/review/check.ts:reviewSpacecraft': 109,
