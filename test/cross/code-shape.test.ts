@@ -25,8 +25,6 @@ const LONG_FILES: Readonly<Record<string, number>> = {
   'packages/sdk/src/clock-model/noise.ts': 528,
   'packages/sdk/src/orbit/integrator.ts': 530,
   'packages/sdk/src/relativity/precise.ts': 514,
-  'packages/cli/src/commands/broadcast.ts': 510,
-  'packages/cli/src/commands/clock.ts': 527,
   'packages/elements/src/fleet-timeline/fleet-timeline.ts': 581,
   'packages/elements/src/stability-plot/stability-plot.ts': 549,
   'packages/elements/src/steering-schedule/steering-schedule.ts': 531,
@@ -40,9 +38,6 @@ const LONG_FUNCTIONS: Readonly<Record<string, number>> = {
   'packages/sdk/src/relativity/proper-time.ts:integrateProperTime': 116,
   'packages/sdk/src/review/check.ts:reviewSpacecraft': 109,
   'packages/sdk/src/steering/deadband.ts:planDeadband': 107,
-  'packages/cli/src/commands/simulate.ts:run': 105,
-  'packages/cli/src/files.ts:jsonErrorOffset': 102,
-  'packages/cli/src/layout.ts:fitTable': 108,
 };
 /** Casts counted over every source file (may only fall). */
 const MAX_NON_NULL_INDEX_CASTS = 1069;
