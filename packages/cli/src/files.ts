@@ -14,105 +14,102 @@ import { UsageError } from './framework.js';
  * position report differ between Node versions.
  */
 export function jsonErrorOffset(text: string): number | undefined {
-  let i = 0;
-  const ws = (): void => {
-    while (i < text.length && ' \t\n\r'.includes(text.charAt(i))) i++;
-  };
-  const fail = (): never => {
-    throw i;
-  };
-  const literal = (word: string): void => {
-    for (const ch of word) {
-      if (text[i] !== ch) fail();
-      i++;
-    }
-  };
-  const str = (): void => {
-    i++;
-    while (i < text.length && text[i] !== '"') {
-      if (text.charCodeAt(i) < 0x20) fail();
-      if (text[i] === '\\') {
-        i++;
-        const esc = text[i];
-        if (esc === 'u') {
-          if (!/^[0-9a-fA-F]{4}$/.test(text.slice(i + 1, i + 5))) fail();
-          i += 4;
-        } else if (esc === undefined || !'"\\/bfnrt'.includes(esc)) fail();
-      }
-      i++;
-    }
-    if (i >= text.length) fail();
-    i++;
-  };
-  const num = (): void => {
-    const m = /^-?(0|[1-9]\d*)(\.\d+)?([eE][+-]?\d+)?/.exec(text.slice(i, i + 400));
-    if (!m) {
-      fail();
-      return;
-    }
-    i += m[0].length;
-  };
-  const value = (): void => {
-    ws();
-    const c = text[i];
-    if (c === '{') {
-      i++;
-      ws();
-      if (text[i] === '}') {
-        i++;
-        return;
-      }
-      for (;;) {
-        ws();
-        if (text[i] !== '"') fail();
-        str();
-        ws();
-        if (text[i] !== ':') fail();
-        i++;
-        value();
-        ws();
-        if (text[i] === ',') {
-          i++;
-          continue;
-        }
-        if (text[i] === '}') {
-          i++;
-          return;
-        }
-        fail();
-      }
-    } else if (c === '[') {
-      i++;
-      ws();
-      if (text[i] === ']') {
-        i++;
-        return;
-      }
-      for (;;) {
-        value();
-        ws();
-        if (text[i] === ',') {
-          i++;
-          continue;
-        }
-        if (text[i] === ']') {
-          i++;
-          return;
-        }
-        fail();
-      }
-    } else if (c === '"') str();
-    else if (c === 't') literal('true');
-    else if (c === 'f') literal('false');
-    else if (c === 'n') literal('null');
-    else num();
-  };
+  const scan = new JsonScanner(text);
   try {
-    value();
-    ws();
-    return i < text.length ? i : undefined;
+    scan.value();
+    scan.ws();
+    return scan.i < text.length ? scan.i : undefined;
   } catch (at) {
     return typeof at === 'number' ? at : undefined;
+  }
+}
+
+/** A recursive-descent pass over RFC 8259 JSON that throws the offset of the first syntax error. */
+class JsonScanner {
+  i = 0;
+  constructor(private readonly text: string) {}
+
+  ws(): void {
+    while (this.i < this.text.length && ' \t\n\r'.includes(this.text.charAt(this.i))) this.i++;
+  }
+
+  fail(): never {
+    throw this.i;
+  }
+
+  literal(word: string): void {
+    for (const ch of word) {
+      if (this.text[this.i] !== ch) this.fail();
+      this.i++;
+    }
+  }
+
+  str(): void {
+    const text = this.text;
+    this.i++;
+    while (this.i < text.length && text[this.i] !== '"') {
+      if (text.charCodeAt(this.i) < 0x20) this.fail();
+      if (text[this.i] === '\\') {
+        this.i++;
+        const esc = text[this.i];
+        if (esc === 'u') {
+          if (!/^[0-9a-fA-F]{4}$/.test(text.slice(this.i + 1, this.i + 5))) this.fail();
+          this.i += 4;
+        } else if (esc === undefined || !'"\\/bfnrt'.includes(esc)) this.fail();
+      }
+      this.i++;
+    }
+    if (this.i >= text.length) this.fail();
+    this.i++;
+  }
+
+  num(): void {
+    const m = /^-?(0|[1-9]\d*)(\.\d+)?([eE][+-]?\d+)?/.exec(this.text.slice(this.i, this.i + 400));
+    if (!m) this.fail();
+    this.i += m[0].length;
+  }
+
+  /** The members of an object or the elements of an array, from its opening bracket to its closing one. */
+  container(close: '}' | ']'): void {
+    this.i++;
+    this.ws();
+    if (this.text[this.i] === close) {
+      this.i++;
+      return;
+    }
+    for (;;) {
+      if (close === '}') {
+        this.ws();
+        if (this.text[this.i] !== '"') this.fail();
+        this.str();
+        this.ws();
+        if (this.text[this.i] !== ':') this.fail();
+        this.i++;
+      }
+      this.value();
+      this.ws();
+      if (this.text[this.i] === ',') {
+        this.i++;
+        continue;
+      }
+      if (this.text[this.i] === close) {
+        this.i++;
+        return;
+      }
+      this.fail();
+    }
+  }
+
+  value(): void {
+    this.ws();
+    const c = this.text[this.i];
+    if (c === '{') this.container('}');
+    else if (c === '[') this.container(']');
+    else if (c === '"') this.str();
+    else if (c === 't') this.literal('true');
+    else if (c === 'f') this.literal('false');
+    else if (c === 'n') this.literal('null');
+    else this.num();
   }
 }
 

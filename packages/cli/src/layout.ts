@@ -196,7 +196,6 @@ export function fitTable(
       if (column !== undefined && w > column.dataWidth) column.dataWidth = w;
     });
   }
-  const columnWidth = (c: Column, lines: readonly string[]) => Math.max(c.dataWidth, ...lines.map(displayWidth));
   const planWidth = (kept: Plan['columns']) =>
     kept.reduce((sum, k) => sum + columnWidth(k.column, k.headerLines), 0) + 2 * Math.max(0, kept.length - 1);
   const pick = (indices: readonly number[]): Column[] => indices.flatMap((i) => columns[i] ?? []);
@@ -222,40 +221,7 @@ export function fitTable(
     return { columns: kept, width: w };
   };
 
-  const draw = (p: Plan, moved: readonly Column[]): string => {
-    const laid = p.columns.map((k) => ({ ...k, width: columnWidth(k.column, k.headerLines) }));
-    /** One line: each kept column's text (`known`: its display width when measured already) padded to the column. */
-    const fmt = (cell: (l: (typeof laid)[number]) => { text: string; known?: number }) =>
-      laid
-        .map((l) => {
-          const { text, known } = cell(l);
-          const fill = ' '.repeat(Math.max(0, l.width - (known ?? displayWidth(text))));
-          return l.column.numeric ? fill + text : text + fill;
-        })
-        .join('  ')
-        .trimEnd();
-    const out: string[] = [];
-    // Multi-line headers sit at the bottom of their block, next to the rule.
-    const depth = Math.max(...laid.map((l) => l.headerLines.length));
-    for (let k = 0; k < depth; k++)
-      out.push(fmt((l) => ({ text: l.headerLines[k - (depth - l.headerLines.length)] ?? '' })));
-    out.push(laid.map((l) => '─'.repeat(l.width)).join('  '));
-    // Text under a row starts under its second column (at most 8 columns in).
-    const indent = ' '.repeat(Math.min(8, (laid[0]?.width ?? 0) + 2));
-    measured.forEach(({ texts: r, widths }, k) => {
-      out.push(fmt((l) => ({ text: r[l.column.index] ?? '', known: widths[l.column.index] ?? 0 })));
-      const under: string[] = [];
-      const movedText = moved
-        .filter((c) => !NO_VALUE.has(r[c.index] ?? ''))
-        .map((c) => (options.unlabelled?.includes(c.index) ? (r[c.index] ?? '') : `${c.header} ${r[c.index]}`))
-        .join(', ');
-      if (movedText !== '') under.push(movedText);
-      const note = options.notes?.[k];
-      if (note) under.push(note);
-      for (const text of under) out.push(...wrapText(indent + text, width, `${indent}  `));
-    });
-    return `${out.join('\n')}\n`;
-  };
+  const draw = (p: Plan, moved: readonly Column[]): string => drawTable(p, moved, measured, width, options);
 
   const moved: Column[] = [];
   let chosen = plan(columns);
@@ -281,6 +247,53 @@ export function fitTable(
     return panels.map((p) => draw(plan([...lead, ...p]), [])).join('\n');
   }
   return draw(chosen, moved);
+}
+
+/** A column's width: its widest cell or header line. */
+function columnWidth(c: Column, lines: readonly string[]): number {
+  return Math.max(c.dataWidth, ...lines.map(displayWidth));
+}
+
+/** Draws a planned table: header lines, rule, rows, and under each row its moved columns and note. */
+function drawTable(
+  p: Plan,
+  moved: readonly Column[],
+  measured: readonly { texts: readonly string[]; widths: readonly number[] }[],
+  width: number | undefined,
+  options: TableOptions,
+): string {
+  const laid = p.columns.map((k) => ({ ...k, width: columnWidth(k.column, k.headerLines) }));
+  /** One line: each kept column's text (`known`: its display width when measured already) padded to the column. */
+  const fmt = (cell: (l: (typeof laid)[number]) => { text: string; known?: number }) =>
+    laid
+      .map((l) => {
+        const { text, known } = cell(l);
+        const fill = ' '.repeat(Math.max(0, l.width - (known ?? displayWidth(text))));
+        return l.column.numeric ? fill + text : text + fill;
+      })
+      .join('  ')
+      .trimEnd();
+  const out: string[] = [];
+  // Multi-line headers sit at the bottom of their block, next to the rule.
+  const depth = Math.max(...laid.map((l) => l.headerLines.length));
+  for (let k = 0; k < depth; k++)
+    out.push(fmt((l) => ({ text: l.headerLines[k - (depth - l.headerLines.length)] ?? '' })));
+  out.push(laid.map((l) => '─'.repeat(l.width)).join('  '));
+  // Text under a row starts under its second column (at most 8 columns in).
+  const indent = ' '.repeat(Math.min(8, (laid[0]?.width ?? 0) + 2));
+  measured.forEach(({ texts: r, widths }, k) => {
+    out.push(fmt((l) => ({ text: r[l.column.index] ?? '', known: widths[l.column.index] ?? 0 })));
+    const under: string[] = [];
+    const movedText = moved
+      .filter((c) => !NO_VALUE.has(r[c.index] ?? ''))
+      .map((c) => (options.unlabelled?.includes(c.index) ? (r[c.index] ?? '') : `${c.header} ${r[c.index]}`))
+      .join(', ');
+    if (movedText !== '') under.push(movedText);
+    const note = options.notes?.[k];
+    if (note) under.push(note);
+    for (const text of under) out.push(...wrapText(indent + text, width, `${indent}  `));
+  });
+  return `${out.join('\n')}\n`;
 }
 
 /** The display width the table output of a command fits: {@link TABLE_WIDTH}, or none with `--wide`. */

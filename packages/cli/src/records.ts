@@ -3,7 +3,7 @@
  * text file, or one clock of a RINEX clock file, named by `--phase`, `--frequency` or
  * `--rinex-clock <file> --clock <name>`. One place for the flags, their help and their errors.
  */
-import { readPhaseText, readRinexClockSeries, type SampleGap } from '@tauline/sdk/io';
+import { readPhaseTextSeries, readRinexClockSeries, type SampleGap } from '@tauline/sdk/io';
 import { MAX_RECORD_BYTES, sourceLabel, textChunks } from './files.js';
 import { type FlagSpec, optionalFlag, type ParsedArgs, UsageError } from './framework.js';
 
@@ -141,7 +141,7 @@ async function readRecord(
   if (text === undefined) throw new UsageError(oneInput); // not reached: exactly one input was checked above
   const { kind, file } = text;
   const chunks = textChunks(file, `a ${kind} record (text, one or two columns)`, { maxBytes: MAX_RECORD_BYTES });
-  const s = await readPhaseText(chunks, { sourceName: sourceLabel(file), ...tau0Option });
+  const s = await readPhaseTextSeries(chunks, { sourceName: sourceLabel(file), ...tau0Option });
   if (s.tau0 === undefined) throw new UsageError(`${file} has one column; give the sample spacing with --tau0 <s>`);
   return { kind, values: s.phase, times: s.times, tau0: s.tau0, source: file, flag: `--${kind}`, gaps: s.gaps };
 }

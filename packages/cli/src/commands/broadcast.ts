@@ -12,7 +12,6 @@ import {
   SYSTEM_TIME_SCALE,
   selectEphemeris,
   signalClockCorrection,
-  signalClockSource,
   signalsOf,
 } from '@tauline/sdk/orbit';
 import {
@@ -24,24 +23,28 @@ import {
   scaleSecondsFromInstant,
   type TimeScales,
 } from '@tauline/sdk/time';
+import {
+  type BroadcastRequest,
+  type BroadcastResult,
+  printBroadcastCsv,
+  printBroadcastJson,
+  printBroadcastTable,
+  type SampleOut,
+} from '../broadcast-output.js';
 import { outputFormat, satelliteFlag } from '../flags.js';
 import {
   type Command,
   EXIT_FINDING,
   EXIT_OK,
-  FLIGHT_CAUTION,
   formatFlags,
-  type Io,
   numberFlag,
   optionalFlag,
   type ParsedArgs,
   requireFlag,
   TABLE_JSON_CSV,
-  toJson,
   UsageError,
 } from '../framework.js';
-import { fitTable, outputWidth, wrapLines } from '../layout.js';
-import { NAV_FILE_UNITS, navHeaderLines, noRecordReason } from '../nav-summary.js';
+import { noRecordReason } from '../nav-summary.js';
 import { isModelledSystem, type LoadedNavigation, loadNavigation, SYSTEM_SCALE_LABEL } from '../navigation.js';
 
 /** Samples per run above which the request is refused (keeps memory bounded). */
@@ -85,21 +88,6 @@ export function signalFlag(args: ParsedArgs): BroadcastSignal | undefined {
 }
 
 const SYSTEM_NAME: Record<KeplerianSystem, string> = { G: 'GPS', E: 'Galileo', C: 'BeiDou' };
-
-interface SampleOut {
-  t: string;
-  relativisticSeconds: number | null;
-  clockCorrectionSeconds: number | null;
-  clockCorrectionSignalSeconds?: number | null;
-  groupDelaySeconds?: number | null;
-  groupDelayField?: string | null;
-  toe?: string;
-  issueOfData?: number;
-  message?: string;
-  reason?: string;
-  /** Short form of `reason` for the table (not in JSON or CSV). */
-  short?: string;
-}
 
 export const broadcastCommand: Command = {
   name: 'broadcast',
@@ -236,19 +224,6 @@ function signalFields(
   }
 }
 
-/** What `tauline broadcast` was asked for (flags read and checked, in the order their errors are reported). */
-interface BroadcastRequest {
-  readonly files: readonly string[];
-  readonly format: 'json' | 'csv' | 'table';
-  /** Sample spacing, s. */
-  readonly step: number;
-  readonly utc: boolean;
-  readonly galileoMessage: 'INAV' | 'FNAV';
-  readonly includeUnhealthy: boolean;
-  readonly filter: Set<string> | undefined;
-  readonly signal: BroadcastSignal | undefined;
-}
-
 function broadcastRequest(args: ParsedArgs): BroadcastRequest {
   const files = args.positionals;
   if (files.length === 0)
@@ -319,13 +294,6 @@ function sampleGrid(ts: TimeScales, args: ParsedArgs, request: BroadcastRequest)
     label,
     window: (system) => ({ from: secondsAt(0, system), to: secondsAt(count - 1, system) }),
   };
-}
-
-/** Per-satellite samples, the notes gathered and the number of samples without a valid record. */
-interface BroadcastResult {
-  readonly out: { id: string; timeScale: string; samples: SampleOut[] }[];
-  readonly notes: Set<string>;
-  readonly samplesWithoutRecord: number;
 }
 
 function evaluateSatellites(
@@ -399,112 +367,4 @@ function evaluateSatellites(
     out.push({ id, timeScale: request.utc ? 'UTC' : modelled ? SYSTEM_SCALE_LABEL[system] : 'unknown', samples });
   }
   return { out, notes, samplesWithoutRecord };
-}
-
-function printBroadcastJson(io: Io, request: BroadcastRequest, nav: LoadedNavigation, result: BroadcastResult): void {
-  const { signal } = request;
-  io.out(
-    toJson({
-      timeScale: request.utc ? 'UTC' : 'system',
-      step: request.step,
-      selection:
-        'nearest t_oe among healthy records whose fit interval covers t (ties: t_oe ≤ t, latest transmission, highest issue of data)',
-      galileoMessage: request.galileoMessage,
-      files: nav.files,
-      ...(signal ? { signal, signalSource: signalClockSource(signal) } : {}),
-      satellites: result.out.map((s) => ({ ...s, samples: s.samples.map(({ short: _short, ...x }) => x) })),
-      samplesWithoutRecord: result.samplesWithoutRecord,
-      recordsOutsideWindow: nav.outsideWindow,
-      skipped: [...nav.skipped].map(([reason, n]) => ({ reason, count: n })),
-      notes: [...result.notes],
-      units: {
-        step: 's',
-        t: 'ISO 8601 in timeScale',
-        relativisticSeconds: 's',
-        clockCorrectionSeconds: 's',
-        toe: 'ISO 8601 in the system scale',
-        ...(signal ? { clockCorrectionSignalSeconds: 's', groupDelaySeconds: 's' } : {}),
-        files: NAV_FILE_UNITS,
-      },
-      caution: FLIGHT_CAUTION,
-    }),
-  );
-}
-
-function printBroadcastCsv(io: Io, request: BroadcastRequest, result: BroadcastResult): void {
-  const { signal } = request;
-  io.out(
-    `id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message${signal ? ',clockCorrectionSignalSeconds,groupDelaySeconds,groupDelayField' : ''}\n`,
-  );
-  for (const s of result.out) {
-    for (const x of s.samples) {
-      io.out(
-        `${s.id},${x.t},${x.relativisticSeconds ?? ''},${x.clockCorrectionSeconds ?? ''},${x.toe ?? ''},${x.issueOfData ?? ''},${x.message ?? ''}` +
-          (signal
-            ? `,${x.clockCorrectionSignalSeconds ?? ''},${x.groupDelaySeconds ?? ''},${x.groupDelayField ?? ''}`
-            : '') +
-          '\n',
-      );
-    }
-  }
-  io.err(`${FLIGHT_CAUTION}\n`);
-}
-
-function printBroadcastTable(
-  io: Io,
-  args: ParsedArgs,
-  request: BroadcastRequest,
-  nav: LoadedNavigation,
-  result: BroadcastResult,
-): void {
-  const { signal } = request;
-  const width = outputWidth(args);
-  io.out(
-    wrapLines(
-      `Broadcast relativistic and clock corrections (${request.utc ? 'times in UTC' : "times in each system's own scale: GPST, GST, BDT"})\n\n`,
-      width,
-    ),
-  );
-  const rows: (string | number)[][] = [];
-  // Fitted to the width, a sample without a record shows "—" for t_oe and its reason on a line of its own.
-  const rowNotes: (string | undefined)[] = [];
-  for (const s of result.out) {
-    for (const x of s.samples) {
-      rowNotes.push(width === undefined ? undefined : x.reason);
-      const row: (string | number)[] = [
-        s.id,
-        x.t,
-        x.relativisticSeconds === null ? '—' : (x.relativisticSeconds * 1e9).toFixed(4),
-        x.clockCorrectionSeconds === null ? '—' : x.clockCorrectionSeconds.toExponential(12),
-      ];
-      if (signal) {
-        row.push(
-          x.clockCorrectionSignalSeconds == null ? '—' : x.clockCorrectionSignalSeconds.toExponential(12),
-          x.groupDelaySeconds == null ? '—' : `${(x.groupDelaySeconds * 1e9).toFixed(4)} ${x.groupDelayField}`,
-        );
-      }
-      row.push(x.toe ?? (width === undefined ? (x.reason ?? '') : '—'), x.message ?? '');
-      rows.push(row);
-    }
-  }
-  const headers = [
-    'sat',
-    't',
-    'Δt_r (ns)',
-    'Δt_sv (s)',
-    ...(signal ? [`Δt_sv ${signal} (s)`, 'group delay (ns)'] : []),
-    't_oe',
-    'message',
-  ];
-  io.out(fitTable(headers, rows, { width, notes: rowNotes, below: [headers.length - 2, headers.length - 1] }));
-  const skipped = [...nav.skipped].map(([reason, n]) => ({ reason, count: n }));
-  const text: string[] = [];
-  if (result.samplesWithoutRecord > 0)
-    text.push(`\n${result.samplesWithoutRecord} sample(s) without a valid record (shown as —).\n`);
-  text.push(`\nNavigation files (header parameters as broadcast):\n${navHeaderLines(nav.files).join('\n')}\n`);
-  if (skipped.length > 0)
-    text.push(`\nSkipped records:\n${skipped.map((s) => `  ${s.count} × ${s.reason}`).join('\n')}\n`);
-  if (result.notes.size > 0) text.push(`\nNotes:\n${[...result.notes].map((n) => `  ${n}`).join('\n')}\n`);
-  text.push(`\n${FLIGHT_CAUTION}\n`);
-  io.out(wrapLines(text.join(''), width));
 }

@@ -125,7 +125,7 @@ Exit status: 0 success, 2 unusable input.`,
     const gridEpochs = Math.max(...plans.map(({ plan }) => plan.predicted.t.length));
     const workers = script ? workerCount(requestedWorkers, runs, gridEpochs) : 1;
     const pool = script && workers > 1 ? new SimulatePool(script, workers) : undefined;
-    const results = [];
+    const results: OpenLoopRow[] = [];
     try {
       for (const { method, plan } of plans) {
         const long = io.isTty && runs * plan.predicted.t.length > PROGRESS_THRESHOLD;
@@ -153,63 +153,77 @@ Exit status: 0 success, 2 unusable input.`,
     } finally {
       await pool?.close();
     }
-    if (format === 'json') {
-      io.out(
-        toJson({
-          scenario: (scenario as SteeringScenario).name ?? null,
-          results,
-          units: {
-            expectedCost: 'dimensionless',
-            timeInTolerance: 'dimensionless (fraction)',
-            wholeHorizonProbability: 'dimensionless (fraction)',
-            minEpochProbability: 'dimensionless (fraction)',
-            worstExcursionSeconds: 's',
-            worstExcursionP95Seconds: 's',
-          },
-          caution: SIMULATION_CAUTION,
-        }),
-      );
-      return EXIT_OK;
-    }
-    const s = scenario as SteeringScenario;
-    const width = outputWidth(args);
-    io.out(
-      wrapLines(
-        `${s.name ?? 'Steering scenario'}: ${runs} simulated clocks per strategy, seed ${seed}; tolerance ±${nsText(s.tolerance.phaseSeconds)}\n\n`,
-        width,
-      ),
-    );
-    io.out(
-      fitTable(
-        [
-          'strategy',
-          'plan feasible',
-          'commands',
-          'time in tolerance',
-          'whole horizon',
-          'min epoch',
-          'worst excursion',
-          '95 % worst',
-          'expected cost J',
-        ],
-        results.map((r) => [
-          r.strategy,
-          r.feasible ? 'yes' : 'no',
-          r.commandCount,
-          r.timeInTolerance.toFixed(4),
-          r.wholeHorizonProbability.toFixed(4),
-          r.minEpochProbability.toFixed(4),
-          nsText(r.worstExcursionSeconds),
-          nsText(r.worstExcursionP95Seconds),
-          r.expectedCost.toFixed(5),
-        ]),
-        { width },
-      ),
-    );
-    io.out(wrapLines(`\n${SIMULATION_CAUTION}\n`, width));
-    return EXIT_OK;
+    return printOpenLoop(io, args, format, scenario as SteeringScenario, { runs, seed }, results);
   },
 };
+
+/** One strategy's open-loop result as printed. */
+type OpenLoopRow = { strategy: SteeringMethod; feasible: boolean; expectedCost: number } & SimulationSummary;
+
+/** Prints the open-loop results as JSON or as a table. */
+function printOpenLoop(
+  io: Io,
+  args: ParsedArgs,
+  format: 'table' | 'json',
+  scenario: SteeringScenario,
+  { runs, seed }: { runs: number; seed: number },
+  results: readonly OpenLoopRow[],
+): number {
+  if (format === 'json') {
+    io.out(
+      toJson({
+        scenario: scenario.name ?? null,
+        results,
+        units: {
+          expectedCost: 'dimensionless',
+          timeInTolerance: 'dimensionless (fraction)',
+          wholeHorizonProbability: 'dimensionless (fraction)',
+          minEpochProbability: 'dimensionless (fraction)',
+          worstExcursionSeconds: 's',
+          worstExcursionP95Seconds: 's',
+        },
+        caution: SIMULATION_CAUTION,
+      }),
+    );
+    return EXIT_OK;
+  }
+  const width = outputWidth(args);
+  io.out(
+    wrapLines(
+      `${scenario.name ?? 'Steering scenario'}: ${runs} simulated clocks per strategy, seed ${seed}; tolerance ±${nsText(scenario.tolerance.phaseSeconds)}\n\n`,
+      width,
+    ),
+  );
+  io.out(
+    fitTable(
+      [
+        'strategy',
+        'plan feasible',
+        'commands',
+        'time in tolerance',
+        'whole horizon',
+        'min epoch',
+        'worst excursion',
+        '95 % worst',
+        'expected cost J',
+      ],
+      results.map((r) => [
+        r.strategy,
+        r.feasible ? 'yes' : 'no',
+        r.commandCount,
+        r.timeInTolerance.toFixed(4),
+        r.wholeHorizonProbability.toFixed(4),
+        r.minEpochProbability.toFixed(4),
+        nsText(r.worstExcursionSeconds),
+        nsText(r.worstExcursionP95Seconds),
+        r.expectedCost.toFixed(5),
+      ]),
+      { width },
+    ),
+  );
+  io.out(wrapLines(`\n${SIMULATION_CAUTION}\n`, width));
+  return EXIT_OK;
+}
 
 /** One strategy's runs flown by the pool and combined: the same summary as `simulatePlan` in-process. */
 async function simulateInPool(

@@ -20,10 +20,14 @@ export {
   type TextSource,
 } from './line-reader.js';
 export {
+  type PhaseTextEvent,
+  type PhaseTextHeader,
   type PhaseTextOptions,
+  type PhaseTextSample,
   type PhaseTextSeries,
   parsePhaseText,
   readPhaseText,
+  readPhaseTextSeries,
   type SampleGap,
 } from './phase-text.js';
 export {

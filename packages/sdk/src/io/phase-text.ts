@@ -55,7 +55,37 @@ export interface PhaseTextSeries {
   readonly t: Float64Array | undefined;
 }
 
-/** Options of {@link parsePhaseText}. */
+/** What the reader knows of a phase file once its first data line is read. */
+export interface PhaseTextHeader {
+  readonly sourceName: string;
+  /** 1 (phase only) or 2 (time, phase). */
+  readonly columns: 1 | 2;
+  /** Column names from a header line (e.g. `time,phase`), or undefined when the file has none. */
+  readonly names: readonly string[] | undefined;
+}
+
+/** One data line as read (before any regularisation). */
+export interface PhaseTextSample {
+  /** Time in seconds (the file's own origin) for two-column input; undefined for one column. */
+  readonly time: Seconds | undefined;
+  /** Phase in seconds; NaN for an explicit `NaN` missing marker. */
+  readonly phase: Seconds;
+  /** Source line (1-based). */
+  readonly line: number;
+}
+
+/**
+ * An event of {@link readPhaseText}: the header (before the first sample), one event per data line, then,
+ * once the whole file is read (τ0 from the time column is the smallest step, known only at the end), one
+ * event per run of missing samples in the regularised series and a closing `end` event with τ0.
+ */
+export type PhaseTextEvent =
+  | { readonly kind: 'header'; readonly header: PhaseTextHeader }
+  | { readonly kind: 'sample'; readonly sample: PhaseTextSample }
+  | { readonly kind: 'gap'; readonly gap: SampleGap }
+  | { readonly kind: 'end'; readonly tau0: Seconds | undefined; readonly missing: number };
+
+/** Options of {@link parsePhaseText}, {@link readPhaseText} and {@link readPhaseTextSeries}. */
 export interface PhaseTextOptions {
   /** Name used in error messages (file name). Default `phase`. */
   readonly sourceName?: string;
@@ -119,12 +149,13 @@ class PhaseTextBuilder {
       options.sourceName === undefined ? 'phase' : requireSourceName('options.sourceName', options.sourceName);
   }
 
-  add(line: TextLine): void {
+  /** Reads one line; returns the events it completed (none for a comment, blank or header line). */
+  add(line: TextLine): PhaseTextEvent[] {
     const hash = line.text.indexOf('#');
     const body = hash >= 0 ? line.text.slice(0, hash) : line.text;
     const tokens = tokenize(body);
     const [first, second, third] = tokens;
-    if (first === undefined) return;
+    if (first === undefined) return [];
     if (
       !this._seenData &&
       this._header === undefined &&
@@ -140,7 +171,7 @@ class PhaseTextBuilder {
         );
       this._header = tokens.map((t) => t.text);
       this._columns = tokens.length as 1 | 2;
-      return;
+      return [];
     }
     if (this._columns === undefined) {
       if (third)
@@ -162,6 +193,13 @@ class PhaseTextBuilder {
         `${this._columns} column${this._columns === 2 ? 's (time, phase)' : ' (phase)'} as on the first data line`,
         line.text,
       );
+    }
+    const events: PhaseTextEvent[] = [];
+    if (!this._seenData) {
+      events.push({
+        kind: 'header',
+        header: { sourceName: this._name, columns: this._columns, names: this._header },
+      });
     }
     this._seenData = true;
     if (this._values.length >= MAX_SERIES_SAMPLES) {
@@ -190,6 +228,12 @@ class PhaseTextBuilder {
       this._values.push(parseValue(this._name, line.lineNumber, first, 'phase in seconds', true));
     }
     this._lines.push(line.lineNumber);
+    const time = this._columns === 2 ? this._times.get(this._times.length - 1) : undefined;
+    events.push({
+      kind: 'sample',
+      sample: { time, phase: this._values.get(this._values.length - 1), line: line.lineNumber },
+    });
+    return events;
   }
 
   finish(lastLine: number): PhaseTextSeries {
@@ -373,8 +417,46 @@ export function parsePhaseText(source: string | Iterable<string>, options: Phase
   return builder.finish(last);
 }
 
-/** Like {@link parsePhaseText} for any text source, including an async iterable of chunks (a file stream). */
-export async function readPhaseText(source: TextSource, options: PhaseTextOptions = {}): Promise<PhaseTextSeries> {
+/**
+ * Reads a phase record from any text source, including an async iterable of chunks (a file stream), as
+ * events: `header` before the first sample, one `sample` per data line as read (explicit `NaN` kept), then,
+ * at the end of the input, one `gap` per run of missing samples in the regularised series (as in
+ * {@link PhaseTextSeries.gaps}) and `end` with τ0. Same format and errors as {@link parsePhaseText}; a
+ * malformed line throws when it is reached, after the events of the lines before it. Memory: the time
+ * column is kept to place the gaps (τ0 from the file is its smallest step, known only at the end); see
+ * {@link readPhaseTextSeries} for the whole series.
+ *
+ * @param source   The text (string, iterable or async iterable of chunks).
+ * @param options  Source name for messages, τ0, epoch.
+ * @returns An async generator of {@link PhaseTextEvent}.
+ * @throws {ParseError} (file, line, column) as {@link parsePhaseText}.
+ */
+export async function* readPhaseText(
+  source: TextSource,
+  options: PhaseTextOptions = {},
+): AsyncGenerator<PhaseTextEvent> {
+  const builder = new PhaseTextBuilder(options);
+  let last = 0;
+  for await (const lines of readLineBatches(source, { sourceName: options.sourceName ?? 'phase' })) {
+    for (const line of lines) {
+      for (const event of builder.add(line)) yield event;
+      last = line.lineNumber;
+    }
+  }
+  const series = builder.finish(last);
+  for (const gap of series.gaps) yield { kind: 'gap', gap };
+  yield { kind: 'end', tau0: series.tau0, missing: series.missing };
+}
+
+/**
+ * Reads a whole phase record from any text source, including an async iterable of chunks (a file
+ * stream): the collecting form of {@link readPhaseText}, giving the same series as {@link parsePhaseText}.
+ * @throws {ParseError} (file, line, column) as {@link parsePhaseText}.
+ */
+export async function readPhaseTextSeries(
+  source: TextSource,
+  options: PhaseTextOptions = {},
+): Promise<PhaseTextSeries> {
   const builder = new PhaseTextBuilder(options);
   let last = 0;
   for await (const lines of readLineBatches(source, { sourceName: options.sourceName ?? 'phase' })) {

@@ -32,7 +32,6 @@ import { InvalidArgumentError, ParseError } from '../errors.js';
 import { requireOptions, requireSourceName } from '../internal/validate.js';
 import type { Instant } from '../time/instant.js';
 import type { TimeScales } from '../time/scales.js';
-import type { Seconds } from '../units.js';
 import { EpochPlacer, isReadableTimeSystem, READABLE_TIME_SYSTEMS, readerTimeScales } from './epochs.js';
 import {
   type EpochFields,
@@ -43,117 +42,24 @@ import {
   type TextSource,
   validEpochFields,
 } from './line-reader.js';
+import { E_FORMAT, plainEpoch, SECOND, unsignedField, VALUE_ENDS, VALUE_NAMES } from './rinex-clock-fields.js';
+import type {
+  RinexClockEvent,
+  RinexClockFile,
+  RinexClockHeader,
+  RinexClockReadOptions,
+  RinexClockRecord,
+} from './rinex-clock-types.js';
 
-/** Header fields the reader interprets. */
-export interface RinexClockHeader {
-  /** Format version, e.g. 3.04. */
-  readonly version: number;
-  /** Name field width of the data records: `A4` (2.00–3.02) or `A9` (3.04 and later). */
-  readonly layout: 'A4' | 'A9';
-  /** Satellite-system letter (G, R, E, C, J, I, S, M) or undefined when blank. */
-  readonly satelliteSystem: string | undefined;
-  /** `TIME SYSTEM ID` (e.g. GPS, GAL, UTC) when present; the epochs are in this scale. */
-  readonly timeSystem: string | undefined;
-  /**
-   * The time system the epochs are read on: `timeSystem`, or `GPS` when the header has no
-   * `TIME SYSTEM ID` line (GPS time is the format's default, RINEX clock 3.02 [M]).
-   */
-  readonly epochTimeSystem: string;
-  /** True when the header names no time system and GPS time is assumed. */
-  readonly timeSystemAssumed: boolean;
-  /** Number of header lines, `END OF HEADER` included. */
-  readonly lines: number;
-}
-
-/** One `AS` or `AR` clock-data record. */
-export interface RinexClockRecord {
-  readonly type: 'AS' | 'AR';
-  /** Satellite (e.g. `G05`) or receiver/station name as written (trailing blanks removed). */
-  readonly name: string;
-  /** The epoch as an absolute instant: the record's calendar fields read on the header's time system, exact. */
-  readonly epoch: Instant;
-  /** The epoch's calendar fields as written (file's time system), for messages. */
-  readonly time: EpochFields;
-  /** Clock bias (s). */
-  readonly bias: Seconds;
-  /** Bias sigma (s), when given. */
-  readonly biasSigma: Seconds | undefined;
-  /** Clock rate (dimensionless, s/s), when given. */
-  readonly rate: number | undefined;
-  /** Rate sigma (s/s), when given. */
-  readonly rateSigma: number | undefined;
-  /** Clock acceleration (1/s), when given. */
-  readonly acceleration: number | undefined;
-  /** Acceleration sigma (1/s), when given. */
-  readonly accelerationSigma: number | undefined;
-  /** Line number of the record line. */
-  readonly line: number;
-}
-
-/** One item of a RINEX clock file, in file order. */
-export type RinexClockEvent =
-  | { readonly kind: 'header'; readonly header: RinexClockHeader }
-  | { readonly kind: 'record'; readonly record: RinexClockRecord }
-  /** A `CR`, `DR` or `MS` record: read and checked like the others, not modelled. */
-  | { readonly kind: 'other'; readonly recordType: 'CR' | 'DR' | 'MS'; readonly name: string; readonly line: number };
-
-/** Options of the RINEX clock readers. */
-export interface RinexClockReadOptions {
-  /** Name used in error messages (default `rinex-clock`). */
-  readonly sourceName?: string;
-  /** Leap-second table for UTC and GLONASS-time files (default: the bundled table, valid until 2027-06-28). */
-  readonly timeScales?: TimeScales;
-}
-
-/** A parsed RINEX clock file (whole file in memory; see {@link readRinexClock} for streaming). */
-export interface RinexClockFile {
-  readonly sourceName: string;
-  readonly header: RinexClockHeader;
-  readonly records: readonly RinexClockRecord[];
-  /** How many records of each other type (CR, DR, MS) were present and not returned. */
-  readonly otherRecords: Readonly<Record<string, number>>;
-}
+export type {
+  RinexClockEvent,
+  RinexClockFile,
+  RinexClockHeader,
+  RinexClockReadOptions,
+  RinexClockRecord,
+} from './rinex-clock-types.js';
 
 const RECORD_TYPES: readonly string[] = ['AS', 'AR', 'CR', 'DR', 'MS'];
-/** Exponent-form real as written by E19.12 / D19.12 (a two- or three-digit exponent is part of the field). */
-const E_FORMAT = /^[+-]?(\d+\.\d*|\.\d+)[EeDd][+-]\d{2,3}$/;
-/** Last column (1-based) of each value field: record line (2 values), continuation line (4 values). */
-const VALUE_ENDS = {
-  A4: { record: [59, 79], continuation: [19, 39, 59, 79] },
-  A9: { record: [64, 85], continuation: [22, 43, 64, 85] },
-} as const;
-const VALUE_NAMES = [
-  'clock bias (s)',
-  'bias sigma (s)',
-  'clock rate',
-  'rate sigma',
-  'clock acceleration (1/s)',
-  'acceleration sigma (1/s)',
-];
-
-/** F10.6 seconds field (blank-padded). */
-const SECOND = /^ *\d+(\.\d*)?$/;
-
-/** Value of an unsigned I-format field in columns a+1..b (leading blanks allowed), or NaN. */
-function unsignedField(t: string, a: number, b: number): number {
-  if (t.length < b) return Number.NaN;
-  let i = a;
-  while (i < b && t.charCodeAt(i) === 32) i++;
-  if (i === b) return Number.NaN;
-  let v = 0;
-  for (; i < b; i++) {
-    const c = t.charCodeAt(i) - 48;
-    if (c < 0 || c > 9) return Number.NaN;
-    v = v * 10 + c;
-  }
-  return v;
-}
-
-/** A date every month has (day 1-28) and an ordinary time of day: valid without the calendar (the others go to validEpochFields). */
-function plainEpoch(f: EpochFields): boolean {
-  return f.month >= 1 && f.month <= 12 && f.day >= 1 && f.day <= 28 && f.hour <= 23 && f.minute <= 59 && f.second < 60;
-}
-
 interface Pending {
   type: string;
   name: string;

@@ -209,17 +209,7 @@ export function decodeKeplerRecord(
   const af1 = readD19(source, l0, e0 + 19, 'clock drift a_f1 (s/s)', true)!;
   const af2 = readD19(source, l0, e0 + 38, 'clock drift rate a_f2 (s/s²)', true)!;
   const indent = layout.orbitFieldStart;
-  for (let k = 1; k < KEPLER_RECORD_LINES; k++) {
-    const o = lines[k]!;
-    if (o.text.slice(0, indent).trim() !== '') {
-      throw fail(
-        o,
-        1,
-        `${indent} blanks before broadcast orbit line ${k} (format ${indent}X,4D19.12)`,
-        o.text.slice(0, indent),
-      );
-    }
-  }
+  checkOrbitIndent(lines, indent, fail);
   const col = (slot: number) => indent + 19 * slot;
   const f: Partial<Record<OrbitKey, number>> = {};
   for (const [ln, slot, key, label, required] of ORBIT_FIELDS[system]) {
@@ -244,51 +234,10 @@ export function decodeKeplerRecord(
     fail(o(5), col(1) + 1, dataSourcesExpected(f.field5b), String(f.field5b ?? '')),
   );
 
-  // Week resolution: the week whose t_oe lies nearest to t_oc (common practice, no source).
-  const tocSeconds = scaleSecondsFromFields(start.toc);
-  const tocWeek = Math.floor(tocSeconds / SECONDS_PER_WEEK);
-  let bestWeek = tocWeek;
-  for (const w of [tocWeek - 1, tocWeek + 1]) {
-    if (Math.abs(w * SECONDS_PER_WEEK + toe - tocSeconds) < Math.abs(bestWeek * SECONDS_PER_WEEK + toe - tocSeconds))
-      bestWeek = w;
-  }
-  const writtenGpsWeek = system === 'C' ? week + BDT_WEEK_OFFSET : week;
-  const diff = bestWeek - writtenGpsWeek;
-  const weekName = system === 'C' ? 'BDT' : system === 'E' ? 'GAL' : 'GPS';
-  const resolvedWritten = system === 'C' ? bestWeek - BDT_WEEK_OFFSET : bestWeek;
-  if (diff !== 0) {
-    const mod = ((diff % 1024) + 1024) % 1024;
-    if (mod === 0) {
-      notes.push(
-        `week ${week} read as ${weekName} week ${resolvedWritten} (written modulo 1024: week-number rollover)`,
-      );
-    } else if (mod === 1 || mod === 1023) {
-      const rolled = Math.abs(diff) > 1 ? ' after a modulo-1024 rollover correction' : '';
-      notes.push(
-        `t_oe lies in ${weekName} week ${resolvedWritten}, the week field says ${week}${rolled} (t_oe placed nearest to t_oc)`,
-      );
-    } else {
-      throw fail(
-        o(5),
-        col(2) + 1,
-        `a ${weekName} week consistent with the epoch t_oc (${resolvedWritten}, or that modulo 1024)`,
-        String(week),
-      );
-    }
-  }
-  const toeSeconds = bestWeek * SECONDS_PER_WEEK + toe;
-  if (Math.abs(toeSeconds - tocSeconds) > 0.5 * SECONDS_PER_WEEK)
-    throw fail(o(3), col(0) + 1, 't_oe within half a week of t_oc', String(toe));
-
-  // Transmission time: placed in the week nearest t_oe (RINEX 2.11 §6.8 and Table A4 note **: written
-  // reduced by 604800 s, i.e. negative, when sent before the week of t_oe [V1]).
-  let transmissionSeconds: number | undefined;
-  if (f.transmission !== undefined && Math.abs(f.transmission) < 0.9e9) {
-    let tt = bestWeek * SECONDS_PER_WEEK + f.transmission;
-    if (tt - toeSeconds > SECONDS_PER_WEEK / 2) tt -= SECONDS_PER_WEEK;
-    else if (tt - toeSeconds < -SECONDS_PER_WEEK / 2) tt += SECONDS_PER_WEEK;
-    transmissionSeconds = tt;
-  }
+  const failAt = (k: number, slot: number, expected: string, found: string) =>
+    fail(o(k), col(slot) + 1, expected, found);
+  const { tocSeconds, toeSeconds, bestWeek } = resolveWeek(system, start, week, toe, notes, failAt);
+  const transmissionSeconds = transmissionTime(f.transmission, bestWeek, toeSeconds);
 
   let fitIntervalSeconds = defaultFitIntervalSeconds();
   if (system === 'G') {
@@ -296,14 +245,7 @@ export function decodeKeplerRecord(
     else notes.push('fit interval not given (0 or blank): 4 hours assumed (IS-GPS-200 §20.3.4.4 [M])');
   }
 
-  const groupDelays: Record<string, number> = {};
-  let issueOfDataClock: number | undefined;
-  const [firstName, secondName] =
-    system === 'G' ? ['TGD', ''] : system === 'E' ? ['BGD_E5a_E1', 'BGD_E5b_E1'] : ['TGD1', 'TGD2'];
-  if (f.gd1 !== undefined) groupDelays[firstName] = f.gd1;
-  if (system === 'G') issueOfDataClock = f.gd2;
-  else if (f.gd2 !== undefined) groupDelays[secondName] = f.gd2;
-  if (system === 'C') issueOfDataClock = f.field7b;
+  const { groupDelays, issueOfDataClock } = groupDelaysOf(system, f);
 
   return {
     satellite: start.satellite,
@@ -346,6 +288,102 @@ export function decodeKeplerRecord(
     line: l0.lineNumber,
     notes,
   };
+}
+
+/** Every broadcast-orbit line starts with `indent` blanks (format nX,4D19.12). @throws {ParseError} */
+function checkOrbitIndent(
+  lines: readonly TextLine[],
+  indent: number,
+  fail: (line: TextLine, column: number, expected: string, found: string) => ParseError,
+): void {
+  for (let k = 1; k < KEPLER_RECORD_LINES; k++) {
+    const o = lines[k]!;
+    if (o.text.slice(0, indent).trim() !== '') {
+      throw fail(
+        o,
+        1,
+        `${indent} blanks before broadcast orbit line ${k} (format ${indent}X,4D19.12)`,
+        o.text.slice(0, indent),
+      );
+    }
+  }
+}
+
+/** Raises a parse error at orbit line `k`, field slot `slot`. */
+type FailAt = (k: number, slot: number, expected: string, found: string) => ParseError;
+
+/** The week of t_oe resolved against t_oc, with t_oc and t_oe in scale seconds; notes any rollover. */
+function resolveWeek(
+  system: KeplerianSystem,
+  start: KeplerRecordStart,
+  week: number,
+  toe: number,
+  notes: string[],
+  failAt: FailAt,
+): { tocSeconds: number; toeSeconds: number; bestWeek: number } {
+  // Week resolution: the week whose t_oe lies nearest to t_oc (common practice, no source).
+  const tocSeconds = scaleSecondsFromFields(start.toc);
+  const tocWeek = Math.floor(tocSeconds / SECONDS_PER_WEEK);
+  let bestWeek = tocWeek;
+  for (const w of [tocWeek - 1, tocWeek + 1]) {
+    if (Math.abs(w * SECONDS_PER_WEEK + toe - tocSeconds) < Math.abs(bestWeek * SECONDS_PER_WEEK + toe - tocSeconds))
+      bestWeek = w;
+  }
+  const writtenGpsWeek = system === 'C' ? week + BDT_WEEK_OFFSET : week;
+  const diff = bestWeek - writtenGpsWeek;
+  const weekName = system === 'C' ? 'BDT' : system === 'E' ? 'GAL' : 'GPS';
+  const resolvedWritten = system === 'C' ? bestWeek - BDT_WEEK_OFFSET : bestWeek;
+  if (diff !== 0) {
+    const mod = ((diff % 1024) + 1024) % 1024;
+    if (mod === 0) {
+      notes.push(
+        `week ${week} read as ${weekName} week ${resolvedWritten} (written modulo 1024: week-number rollover)`,
+      );
+    } else if (mod === 1 || mod === 1023) {
+      const rolled = Math.abs(diff) > 1 ? ' after a modulo-1024 rollover correction' : '';
+      notes.push(
+        `t_oe lies in ${weekName} week ${resolvedWritten}, the week field says ${week}${rolled} (t_oe placed nearest to t_oc)`,
+      );
+    } else {
+      throw failAt(
+        5,
+        2,
+        `a ${weekName} week consistent with the epoch t_oc (${resolvedWritten}, or that modulo 1024)`,
+        String(week),
+      );
+    }
+  }
+  const toeSeconds = bestWeek * SECONDS_PER_WEEK + toe;
+  if (Math.abs(toeSeconds - tocSeconds) > 0.5 * SECONDS_PER_WEEK)
+    throw failAt(3, 0, 't_oe within half a week of t_oc', String(toe));
+  return { tocSeconds, toeSeconds, bestWeek };
+}
+
+/** The transmission time in scale seconds, or undefined when the field is blank or not a time of week (|t| ≥ 0.9e9 s). */
+function transmissionTime(transmission: number | undefined, bestWeek: number, toeSeconds: number): number | undefined {
+  // Transmission time: placed in the week nearest t_oe (RINEX 2.11 §6.8 and Table A4 note **: written
+  // reduced by 604800 s, i.e. negative, when sent before the week of t_oe [V1]).
+  if (transmission === undefined || !(Math.abs(transmission) < 0.9e9)) return undefined;
+  let tt = bestWeek * SECONDS_PER_WEEK + transmission;
+  if (tt - toeSeconds > SECONDS_PER_WEEK / 2) tt -= SECONDS_PER_WEEK;
+  else if (tt - toeSeconds < -SECONDS_PER_WEEK / 2) tt += SECONDS_PER_WEEK;
+  return tt;
+}
+
+/** Group delays under their per-system names, and the clock issue of data where the system writes one. */
+function groupDelaysOf(
+  system: KeplerianSystem,
+  f: Partial<Record<OrbitKey, number>>,
+): { groupDelays: Record<string, number>; issueOfDataClock: number | undefined } {
+  const groupDelays: Record<string, number> = {};
+  let issueOfDataClock: number | undefined;
+  const [firstName, secondName] =
+    system === 'G' ? ['TGD', ''] : system === 'E' ? ['BGD_E5a_E1', 'BGD_E5b_E1'] : ['TGD1', 'TGD2'];
+  if (f.gd1 !== undefined) groupDelays[firstName] = f.gd1;
+  if (system === 'G') issueOfDataClock = f.gd2;
+  else if (f.gd2 !== undefined) groupDelays[secondName] = f.gd2;
+  if (system === 'C') issueOfDataClock = f.field7b;
+  return { groupDelays, issueOfDataClock };
 }
 
 function dataSourcesExpected(ds: number | undefined): string {

@@ -25,12 +25,12 @@
  *
  * @module
  */
-import { ParseError } from '../errors.js';
+import type { ParseError } from '../errors.js';
 import { requireOptions, requireSourceName } from '../internal/validate.js';
 import type { Instant } from '../time/instant.js';
 import type { TimeScales } from '../time/scales.js';
 import type { Vector3 } from '../units.js';
-import { fileEpochInstant, isReadableTimeSystem, readerTimeScales } from './epochs.js';
+import { fileEpochInstant, readerTimeScales } from './epochs.js';
 import {
   type EpochFields,
   linesOf,
@@ -38,8 +38,8 @@ import {
   requireTextLine,
   type TextLine,
   type TextSource,
-  validEpochFields,
 } from './line-reader.js';
+import { F14_6_LIMIT, type Line1, type Line2, Sp3FieldReader } from './sp3-fields.js';
 import type { Sp3Epoch, Sp3Event, Sp3File, Sp3Header, Sp3ReadOptions, Sp3TimeSystem, Sp3Version } from './sp3-types.js';
 
 export type {
@@ -53,18 +53,8 @@ export type {
   Sp3Version,
 } from './sp3-types.js';
 
-/** SP3 time-system identifiers (SP3-c/d `%c` line, columns 10-12 [M]). */
-const TIME_SYSTEMS: readonly string[] = ['GPS', 'GLO', 'GAL', 'TAI', 'UTC', 'BDT', 'QZS', 'IRN'];
-
 /** SP3 bad-clock marker 999999.999999 (µs, or 10⁻⁴ µs/s for rates) [M]: anything at or above 999999 is "bad". */
 const BAD_CLOCK = 999999;
-
-/**
- * Largest magnitude an F14.6 data field can hold (14 characters with the sign and six decimals leave
- * at most 7 integer digits): a larger value (only writable in exponent form, e.g. `1e400` or `1e300`)
- * is not an SP3 value and is refused (common practice, no source).
- */
-const F14_6_LIMIT = 1e8;
 
 /** Header layout of SP3-a/b (Remondi 1989/1991 [V2]): 2 lines, then 5 `+ `, 5 `++`, 2 `%c`, 2 `%f`, 2 `%i`, 4 `/*` = 22 lines. */
 const FIXED_HEADER: Readonly<Record<string, number>> = { '+ ': 5, '++': 5, '%c': 2, '%f': 2, '%i': 2, '/*': 4 };
@@ -80,28 +70,6 @@ interface MutableRecord {
   maneuver: boolean;
   orbitPredicted: boolean;
   line: number;
-}
-
-/** What line 1 says (the line itself is kept to place its first epoch once the time system is known). */
-interface Line1 {
-  readonly line: TextLine;
-  readonly version: Sp3Version;
-  readonly hasVelocities: boolean;
-  readonly firstEpoch: EpochFields;
-  readonly epochCount: number;
-  readonly dataUsed: string;
-  readonly coordinateFrame: string;
-  readonly orbitType: string;
-  readonly agency: string;
-}
-
-/** What line 2 says. */
-interface Line2 {
-  readonly gpsWeek: number;
-  readonly secondsOfWeek: number;
-  readonly epochInterval: number;
-  readonly modifiedJulianDay: number;
-  readonly fractionalDay: number;
 }
 
 /**
@@ -138,12 +106,14 @@ export class Sp3Parser {
   private _epochsSeen = 0;
   private _lastEpoch: Instant | undefined;
   private readonly _ts: TimeScales;
+  private readonly _f: Sp3FieldReader;
 
   constructor(options: Sp3ReadOptions = {}) {
     requireOptions('options', options);
     this._source =
       options.sourceName === undefined ? 'sp3' : requireSourceName('options.sourceName', options.sourceName);
     this._ts = readerTimeScales(options.timeScales);
+    this._f = new Sp3FieldReader(this._source);
   }
 
   /** The instant of an epoch line's fields on the file's time system. @throws {ParseError} */
@@ -157,7 +127,7 @@ export class Sp3Parser {
   }
 
   private _error(line: TextLine, column: number | undefined, expected: string, found?: string): ParseError {
-    return new ParseError(this._source, line.lineNumber, column, expected, found);
+    return this._f.error(line, column, expected, found);
   }
 
   /** Feeds one line; returns the events it completed. @throws {ParseError} */
@@ -167,11 +137,12 @@ export class Sp3Parser {
     const t = line.text;
     switch (this._stage) {
       case 'line1':
-        this._line1 = this._readLine1(line);
+        this._line1 = this._f.line1(line);
+        this._h.version = this._line1.version;
         this._stage = 'line2';
         return [];
       case 'line2':
-        this._line2 = this._readLine2(line);
+        this._line2 = this._f.line2(line);
         this._stage = 'header';
         return [];
       case 'header':
@@ -205,109 +176,13 @@ export class Sp3Parser {
     return [];
   }
 
-  private _int(line: TextLine, a: number, b: number, what: string): number {
-    const s = line.text.slice(a, b);
-    if (!/^\s*[+-]?\d+\s*$/.test(s)) throw this._error(line, a + 1, `${what} (an integer in columns ${a + 1}-${b})`, s);
-    return Number(s);
-  }
-
-  /**
-   * The real number in columns a+1..b. Non-finite values (`1e400`) are refused; with `limit`, so is any
-   * magnitude of `limit` or more (a data field holds at most what its F14.6 width can write).
-   */
-  private _real(
-    line: TextLine,
-    a: number,
-    b: number,
-    what: string,
-    optional = false,
-    limit = Infinity,
-  ): number | undefined {
-    const s = line.text.slice(a, b);
-    const trimmed = s.trim();
-    if (trimmed === '' && optional) return undefined;
-    if (!/^[+-]?(\d+\.?\d*|\.\d+)([Ee][+-]?\d+)?$/.test(trimmed)) {
-      throw this._error(line, a + 1, `${what} (a number in columns ${a + 1}-${b})`, s);
-    }
-    const v = Number(trimmed);
-    if (!Number.isFinite(v) || Math.abs(v) >= limit) {
-      const range = Number.isFinite(limit) ? `a finite number of magnitude below ${limit}` : 'a finite number';
-      throw this._error(line, a + 1, `${what} (${range} in columns ${a + 1}-${b})`, s);
-    }
-    return v;
-  }
-
-  /** A required real number (see {@link Sp3Parser._real}): a blank field is refused. */
-  private _required(line: TextLine, a: number, b: number, what: string, limit = Infinity): number {
-    const v = this._real(line, a, b, what, false, limit);
-    if (v === undefined)
-      throw this._error(line, a + 1, `${what} (a number in columns ${a + 1}-${b})`, line.text.slice(a, b));
-    return v;
-  }
-
-  private _epochFields(line: TextLine, what: string): EpochFields {
-    const f: EpochFields = {
-      year: this._int(line, 3, 7, `${what} year`),
-      month: this._int(line, 8, 10, `${what} month`),
-      day: this._int(line, 11, 13, `${what} day`),
-      hour: this._int(line, 14, 16, `${what} hour`),
-      minute: this._int(line, 17, 19, `${what} minute`),
-      second: this._required(line, 20, 31, `${what} second`),
-    };
-    if (!validEpochFields(f) || f.second >= 60)
-      throw this._error(line, 4, `a valid calendar ${what}`, line.text.slice(3, 31));
-    return f;
-  }
-
-  private _readLine1(line: TextLine): Line1 {
-    const t = line.text;
-    if (t.charAt(0) !== '#' || t.charAt(1) === '#')
-      throw this._error(line, 1, "an SP3 first line starting with '#a', '#b', '#c' or '#d'", t.slice(0, 2));
-    const v = t.charAt(1);
-    if (v !== 'a' && v !== 'b' && v !== 'c' && v !== 'd')
-      throw this._error(line, 2, "SP3 version 'a', 'b', 'c' or 'd' in column 2", v);
-    const pv = t.charAt(2);
-    if (pv !== 'P' && pv !== 'V') throw this._error(line, 3, "position/velocity flag 'P' or 'V' in column 3", pv);
-    this._h.version = v;
-    const firstEpoch = this._epochFields(line, 'first epoch');
-    const n = this._int(line, 32, 39, 'number of epochs');
-    if (n < 1) throw this._error(line, 33, 'a positive number of epochs in columns 33-39', String(n));
-    return {
-      line,
-      version: v,
-      hasVelocities: pv === 'V',
-      firstEpoch,
-      epochCount: n,
-      dataUsed: t.slice(40, 45).trim(),
-      coordinateFrame: t.slice(46, 51).trim(),
-      orbitType: t.slice(52, 55).trim(),
-      agency: t.slice(56, 60).trim(),
-    };
-  }
-
-  private _readLine2(line: TextLine): Line2 {
-    if (!line.text.startsWith('##'))
-      throw this._error(line, 1, "the second header line starting with '##'", line.text.slice(0, 2));
-    const gpsWeek = this._int(line, 3, 7, 'GPS week');
-    const secondsOfWeek = this._required(line, 8, 23, 'seconds of week');
-    const interval = this._required(line, 24, 38, 'epoch interval (s)');
-    if (!(interval > 0)) throw this._error(line, 25, 'a positive epoch interval in seconds', String(interval));
-    return {
-      gpsWeek,
-      secondsOfWeek,
-      epochInterval: interval,
-      modifiedJulianDay: this._int(line, 39, 44, 'modified Julian day'),
-      fractionalDay: this._required(line, 45, 60, 'fractional day'),
-    };
-  }
-
   private _headerLine(line: TextLine): void {
     const t = line.text;
     const tag = t.slice(0, 2);
     if (tag in FIXED_HEADER) this._h.tagCounts[tag] = (this._h.tagCounts[tag] ?? 0) + 1;
     if (tag === '+ ') {
       if (this._h.satelliteCount === undefined) {
-        const n = this._int(line, 2, 6, 'number of satellites');
+        const n = this._f.int(line, 2, 6, 'number of satellites');
         const max = this._h.version === 'd' ? 999 : 85;
         if (n < 1 || n > max)
           throw this._error(line, 4, `a number of satellites in 1..${max} (SP3-${this._h.version})`, String(n));
@@ -316,7 +191,7 @@ export class Sp3Parser {
       for (let k = 0; k < 17; k++) {
         const id = t.slice(9 + 3 * k, 12 + 3 * k);
         if (id.trim() === '' || /^ *0+$/.test(id) || /^[A-Z] *0+$/.test(id)) continue;
-        const sat = this._satelliteId(line, id, 10 + 3 * k);
+        const sat = this._f.satelliteId(line, id, 10 + 3 * k, this._h.version);
         if (this._h.satellites.length >= this._h.satelliteCount) {
           throw this._error(line, 10 + 3 * k, `no more than the ${this._h.satelliteCount} satellites declared`, id);
         }
@@ -336,7 +211,7 @@ export class Sp3Parser {
       return;
     }
     if (tag === '%c') {
-      if (this._h.percentC === 0) this._timeSystemLine(line);
+      if (this._h.percentC === 0) Object.assign(this._h, this._f.timeSystemLine(line, this._h.version));
       this._h.percentC++;
       return;
     }
@@ -360,59 +235,6 @@ export class Sp3Parser {
       "a header line starting with '+ ', '++', '%c', '%f', '%i', '/*' or the first epoch line '*  '",
       t.slice(0, 3),
     );
-  }
-
-  /**
-   * First `%c` line: file type (columns 4-5) and time system (columns 10-12). SP3-a/b leave both as
-   * the placeholders `cc`/`ccc` (GPS time assumed); a real code is read in any version.
-   */
-  private _timeSystemLine(line: TextLine): void {
-    const t = line.text;
-    const legacy = this._h.version === 'a' || this._h.version === 'b';
-    const type = t.slice(3, 5).trim();
-    this._h.fileType = legacy && (type === 'cc' || type === '') ? (this._h.version === 'a' ? 'G' : '') : type;
-    const ts = t.slice(9, 12);
-    if (legacy && (ts === 'ccc' || ts.trim() === '')) {
-      this._h.timeSystem = 'GPS';
-      this._h.timeSystemAssumed = true;
-      return;
-    }
-    if (!TIME_SYSTEMS.includes(ts)) {
-      const also = legacy ? " (or the SP3-a/b placeholder 'ccc': GPS time)" : '';
-      throw this._error(line, 10, `a time system (${TIME_SYSTEMS.join(', ')}) in columns 10-12${also}`, ts);
-    }
-    if (!isReadableTimeSystem(ts)) {
-      throw this._error(
-        line,
-        10,
-        `a time system the SDK can place on its scales (${TIME_SYSTEMS.filter(isReadableTimeSystem).join(', ')}) in columns 10-12`,
-        ts,
-      );
-    }
-    this._h.timeSystem = ts as Sp3TimeSystem;
-  }
-
-  /**
-   * A satellite identifier as written in the header or a record: SP3-a `I3` PRN (GPS), SP3-b `A1,I2`
-   * with a blank system letter meaning GPS, SP3-c/d `A1,I2`. Returned as letter + two digits (`G05`).
-   */
-  private _satelliteId(line: TextLine, id: string, column: number): string {
-    const v = this._h.version;
-    if (v === 'a') {
-      if (!/^ *\d{1,2}$/.test(id))
-        throw this._error(line, column, 'an SP3-a satellite number (I3, a GPS PRN 1-99)', id);
-      return `G${id.trim().padStart(2, '0')}`;
-    }
-    const pattern = v === 'b' ? /^[A-Z ][ \d]\d$/ : /^[A-Z][ \d]\d$/;
-    if (!pattern.test(id))
-      throw this._error(
-        line,
-        column,
-        `a satellite identifier such as G01${v === 'b' ? ' (blank letter: GPS)' : ''}`,
-        id,
-      );
-    const letter = id.charAt(0) === ' ' ? 'G' : id.charAt(0);
-    return `${letter}${id.slice(1).trim().padStart(2, '0')}`;
   }
 
   private _finishHeader(line: TextLine): Sp3Header {
@@ -486,7 +308,7 @@ export class Sp3Parser {
   private _startEpoch(line: TextLine, header: Sp3Header): void {
     if (!line.text.startsWith('* '))
       throw this._error(line, 1, "an epoch line starting with '* '", line.text.slice(0, 2));
-    const time = this._epochFields(line, 'epoch');
+    const time = this._f.epochFields(line, 'epoch');
     const epoch = this._instant(line, time, header.timeSystem);
     if (this._lastEpoch !== undefined && !epoch.isAfter(this._lastEpoch))
       throw this._error(line, 4, 'epochs in increasing time order', line.text.slice(3, 31));
@@ -550,10 +372,10 @@ export class Sp3Parser {
       if (epoch.seen.has(satellite))
         throw this._error(line, 2, `one position record for ${satellite} per epoch`, satellite);
       epoch.seen.add(satellite);
-      const x = this._required(line, 4, 18, 'x (km)', F14_6_LIMIT);
-      const y = this._required(line, 18, 32, 'y (km)', F14_6_LIMIT);
-      const z = this._required(line, 32, 46, 'z (km)', F14_6_LIMIT);
-      const clk = this._real(line, 46, 60, 'clock (µs)', true, F14_6_LIMIT);
+      const x = this._f.required(line, 4, 18, 'x (km)', F14_6_LIMIT);
+      const y = this._f.required(line, 18, 32, 'y (km)', F14_6_LIMIT);
+      const z = this._f.required(line, 32, 46, 'z (km)', F14_6_LIMIT);
+      const clk = this._f.real(line, 46, 60, 'clock (µs)', true, F14_6_LIMIT);
       const position: Vector3 | undefined = x === 0 && y === 0 && z === 0 ? undefined : [x * 1000, y * 1000, z * 1000];
       epoch.records.push({
         satellite,
@@ -582,10 +404,10 @@ export class Sp3Parser {
       }
       if (rec.velocity !== undefined || rec.clockRate !== undefined)
         throw this._error(line, 1, `one velocity record for ${satellite} per epoch`, satellite);
-      const vx = this._required(line, 4, 18, 'x velocity (dm/s)', F14_6_LIMIT);
-      const vy = this._required(line, 18, 32, 'y velocity (dm/s)', F14_6_LIMIT);
-      const vz = this._required(line, 32, 46, 'z velocity (dm/s)', F14_6_LIMIT);
-      const rate = this._real(line, 46, 60, 'clock rate (10⁻⁴ µs/s)', true, F14_6_LIMIT);
+      const vx = this._f.required(line, 4, 18, 'x velocity (dm/s)', F14_6_LIMIT);
+      const vy = this._f.required(line, 18, 32, 'y velocity (dm/s)', F14_6_LIMIT);
+      const vz = this._f.required(line, 32, 46, 'z velocity (dm/s)', F14_6_LIMIT);
+      const rate = this._f.real(line, 46, 60, 'clock rate (10⁻⁴ µs/s)', true, F14_6_LIMIT);
       // dm/s → m/s; 10⁻⁴ µs/s → s/s (SP3-c §"Velocity record" [M]).
       rec.velocity = vx === 0 && vy === 0 && vz === 0 ? undefined : [vx * 0.1, vy * 0.1, vz * 0.1];
       rec.clockRate = rate === undefined || Math.abs(rate) >= BAD_CLOCK ? undefined : rate * 1e-10;
@@ -603,7 +425,7 @@ export class Sp3Parser {
   }
 
   private _satellite(line: TextLine): string {
-    const sat = this._satelliteId(line, line.text.slice(1, 4), 2);
+    const sat = this._f.satelliteId(line, line.text.slice(1, 4), 2, this._h.version);
     if (!this._satelliteSet.has(sat)) throw this._error(line, 2, 'a satellite listed in the header', sat);
     return sat;
   }

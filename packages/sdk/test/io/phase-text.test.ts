@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { ParseError } from '../../src/errors.js';
-import { MAX_LINE_CHARACTERS, MAX_SERIES_SAMPLES, parsePhaseText, readPhaseText } from '../../src/io/index.js';
+import { MAX_LINE_CHARACTERS, MAX_SERIES_SAMPLES, parsePhaseText, readPhaseTextSeries } from '../../src/io/index.js';
 import { parseError } from './parse-errors.js';
 
 const fixture = (name: string) =>
@@ -56,12 +56,12 @@ describe('parsePhaseText (plain text / CSV phase records; common practice, no so
     expect(parseError(() => parsePhaseText('0 1\n10 2\n25 3\n')).line).toBe(3);
     expect(parseError(() => parsePhaseText('0 1\n10 2\n', { tau0: -1 })).line).toBe(1);
   });
-  it('readPhaseText(async chunks) gives the same series as parsePhaseText(string), whatever the chunk boundaries', async () => {
+  it('readPhaseTextSeries(async chunks) gives the same series as parsePhaseText(string), whatever the chunk boundaries', async () => {
     const text = fixture('phase-two-column.txt');
     async function* chunks() {
       for (let i = 0; i < text.length; i += 7) yield text.slice(i, i + 7);
     }
-    const a = await readPhaseText(chunks());
+    const a = await readPhaseTextSeries(chunks());
     expect([...a.phase].map(String)).toEqual([...parsePhaseText(text).phase].map(String));
   });
   it('parsePhaseText(mutated or truncated input) throws only ParseError and never hangs (fast-check fuzz)', () => {

@@ -324,6 +324,7 @@ export const VALID_STREAM_CALLS: Readonly<Record<string, () => unknown[]>> = {
   readLines: () => ['a\nb\n'],
   readLineBatches: () => [['a\n', 'b\n']],
   readPhaseText: () => ['0 0\n1 1e-9\n2 2e-9\n', { sourceName: 'p.txt' }],
+  readPhaseTextSeries: () => ['0 0\n1 1e-9\n2 2e-9\n', { sourceName: 'p.txt' }],
   readRinexClock: () => [CLK_TEXT, { sourceName: 'c.clk' }],
   readRinexClockSeries: () => [
     CLK_TEXT,
