@@ -21,8 +21,6 @@ const MAX_FUNCTION_LINES = 100;
 
 /** Files over MAX_FILE_LINES today, with their line counts (may only shrink). */
 const LONG_FILES: Readonly<Record<string, number>> = {
-  'packages/sdk/src/clock-model/from-stability.ts': 550,
-  'packages/sdk/src/clock-model/noise.ts': 528,
   'packages/sdk/src/io/rinex-clock.ts': 560,
   'packages/sdk/src/io/sp3.ts': 651,
   'packages/sdk/src/orbit/integrator.ts': 530,
@@ -36,7 +34,6 @@ const LONG_FILES: Readonly<Record<string, number>> = {
 /** Functions over MAX_FUNCTION_LINES today, as `file:name` with their line counts (may only shrink). */
 const LONG_FUNCTIONS: Readonly<Record<string, number>> = {
   'packages/sdk/src/clock-model/kalman-run.ts:runClockFilter': 101,
-  'packages/sdk/src/clock-model/noise.ts:fitDiffusion': 102,
   'packages/sdk/src/clock-model/polynomial.ts:fitClockPolynomial': 103,
   'packages/sdk/src/io/rinex-nav-kepler.ts:decodeKeplerRecord': 154,
   'packages/sdk/src/orbit/broadcast.ts:evaluateBroadcastEphemeris': 106,
