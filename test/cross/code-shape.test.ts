@@ -23,7 +23,6 @@ const MAX_FUNCTION_LINES = 100;
 const LONG_FILES: Readonly<Record<string, number>> = {
   'packages/sdk/src/io/rinex-clock.ts': 560,
   'packages/sdk/src/io/sp3.ts': 651,
-  'packages/sdk/src/relativity/precise.ts': 514,
   'packages/cli/src/commands/broadcast.ts': 510,
   'packages/cli/src/commands/clock.ts': 527,
   'packages/elements/src/fleet-timeline/fleet-timeline.ts': 581,
