@@ -227,7 +227,7 @@ function validateRecord(eph: KeplerianBroadcastEphemeris, name = 'ephemeris'): v
 
 /**
  * BeiDou GEO satellites: position and velocity in the broadcast's inclined frame rotated to Earth-fixed,
- * r = R_Z(Ω̇_E t_k) R_X(−5°) r_GK (BDS-SIS-ICD §5.2.4.12 [M]); `pi` is the system's interface-spec π.
+ * r = R_Z(Ω̇_E t_k) R_X(−5°) r_GK (source tagged on the first comment line below); `pi` is the system's interface-spec π.
  */
 function beidouGeoToEarthFixed(
   [x, y, z]: Vector3,

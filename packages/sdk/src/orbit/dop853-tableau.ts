@@ -2,9 +2,8 @@
  * The Butcher tableau of the Dormand–Prince 8(5,3) pair ("DOP853") used by `integrator.ts`: nodes C,
  * stage matrix A, weights B, error-estimator weights E3/E5 and the dense-output matrix D.
  *
- * Source: J. R. Dormand & P. J. Prince, J. Comput. Appl. Math. 7 (1981) 67–75; E. Hairer, S. P. Nørsett &
- * G. Wanner, "Solving Ordinary Differential Equations I", 2nd ed., Springer (1993), §II.5, §II.6 [M for the
- * section numbers]. The values are the published ones of that method.
+ * Source and provenance tags: the module comment of `integrator.ts` (Dormand & Prince 1981; Hairer, Nørsett &
+ * Wanner 1993). The values are the published ones of that method.
  *
  * @module
  */
