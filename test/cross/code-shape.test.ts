@@ -20,27 +20,11 @@ const MAX_FILE_LINES = 500;
 const MAX_FUNCTION_LINES = 100;
 
 /** Files over MAX_FILE_LINES today, with their line counts (may only shrink). */
-const LONG_FILES: Readonly<Record<string, number>> = {
-  'packages/sdk/src/clock-model/from-stability.ts': 550,
-  'packages/sdk/src/clock-model/noise.ts': 528,
-  'packages/sdk/src/orbit/integrator.ts': 530,
-  'packages/sdk/src/relativity/precise.ts': 514,
-  'packages/elements/src/fleet-timeline/fleet-timeline.ts': 581,
-  'packages/elements/src/stability-plot/stability-plot.ts': 549,
-  'packages/elements/src/steering-schedule/steering-schedule.ts': 531,
-};
+const LONG_FILES: Readonly<Record<string, number>> = {};
 /** Functions over MAX_FUNCTION_LINES today, as `file:name` with their line counts (may only shrink). */
-const LONG_FUNCTIONS: Readonly<Record<string, number>> = {
-  'packages/sdk/src/clock-model/kalman-run.ts:runClockFilter': 101,
-  'packages/sdk/src/clock-model/noise.ts:fitDiffusion': 102,
-  'packages/sdk/src/clock-model/polynomial.ts:fitClockPolynomial': 103,
-  'packages/sdk/src/orbit/broadcast.ts:evaluateBroadcastEphemeris': 106,
-  'packages/sdk/src/relativity/proper-time.ts:integrateProperTime': 116,
-  'packages/sdk/src/review/check.ts:reviewSpacecraft': 109,
-  'packages/sdk/src/steering/deadband.ts:planDeadband': 107,
-};
+const LONG_FUNCTIONS: Readonly<Record<string, number>> = {};
 /** Casts counted over every source file (may only fall). */
-const MAX_NON_NULL_INDEX_CASTS = 1069;
+const MAX_NON_NULL_INDEX_CASTS = 1066;
 const MAX_AS_NUMBER_CASTS = 0;
 
 function sourceFiles(dir: string): string[] {

@@ -19,6 +19,12 @@ export {
   type RejectedClockSample,
 } from './characterize.js';
 export {
+  type DiffusionFit,
+  type DiffusionFitOptions,
+  fitDiffusion,
+  type MeasuredStabilityPoint,
+} from './fit-diffusion.js';
+export {
   type DiffusionInterval,
   type DiffusionStatistic,
   diffusionFromStabilityRows,
@@ -55,13 +61,9 @@ export {
   type ClockStates,
   clockProcessNoise,
   clockTransitionMatrix,
-  type DiffusionFit,
-  type DiffusionFitOptions,
   diffusionFromStabilitySpec,
-  fitDiffusion,
   hadamardVarianceFromQ,
   hFromQ,
-  type MeasuredStabilityPoint,
   type PowerLawCoefficients,
   qFromH,
   type StabilitySpecPoint,

@@ -197,6 +197,35 @@ function initialOf(
 }
 
 /**
+ * The validated series of {@link runClockFilter}: phases z (s, NaN = missing), their count, epochs t (s),
+ * measurement variances (s²) and the index of the first valid sample.
+ */
+function readSeries(series: ClockFilterSeries): {
+  z: ArrayLike<number>;
+  n: number;
+  t: Float64Array;
+  variance: Float64Array;
+  first: number;
+} {
+  const z = series.phase;
+  if (!z || typeof z.length !== 'number' || z.length === 0)
+    throw new InvalidArgumentError('series.phase', z, 'a non-empty array of phases in seconds');
+  const n = z.length;
+  if (series.epoch !== undefined) requireInstant('series.epoch', series.epoch);
+  const t = epochsOf(series, n);
+  const variance = variancesOf(series, n);
+  let first = -1;
+  for (let i = 0; i < n; i++) {
+    const zi = z[i];
+    if (typeof zi !== 'number' || !(Math.abs(zi) <= MAX_ABS_PHASE_SECONDS || zi !== zi))
+      requirePhaseSample(`series.phase[${i}]`, zi, true);
+    if (first < 0 && zi === zi) first = i;
+  }
+  if (first < 0) throw new InvalidArgumentError('series.phase', 'all NaN', 'at least one valid phase sample');
+  return { z, n, t, variance, first };
+}
+
+/**
  * Runs the clock Kalman filter ({@link ClockKalmanFilter}: GLR outlier and jump detection on the
  * innovations of all measurements, estimate recomputed after each declaration) over a whole phase series
  * and returns per-epoch estimates, innovations, NIS, flags, declared jumps and outliers, the detector
@@ -224,21 +253,7 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
     throw new InvalidArgumentError('series', series, 'an object { phase, variance, t | tau0 }');
   if (typeof options !== 'object' || options === null)
     throw new InvalidArgumentError('options', options, 'filter options { q, ... }');
-  const z = series.phase;
-  if (!z || typeof z.length !== 'number' || z.length === 0)
-    throw new InvalidArgumentError('series.phase', z, 'a non-empty array of phases in seconds');
-  const n = z.length;
-  if (series.epoch !== undefined) requireInstant('series.epoch', series.epoch);
-  const t = epochsOf(series, n);
-  const variance = variancesOf(series, n);
-  let first = -1;
-  for (let i = 0; i < n; i++) {
-    const zi = z[i];
-    if (typeof zi !== 'number' || !(Math.abs(zi) <= MAX_ABS_PHASE_SECONDS || zi !== zi))
-      requirePhaseSample(`series.phase[${i}]`, zi, true);
-    if (first < 0 && zi === zi) first = i;
-  }
-  if (first < 0) throw new InvalidArgumentError('series.phase', 'all NaN', 'at least one valid phase sample');
+  const { z, n, t, variance, first } = readSeries(series);
   const q = requireDiffusion('options.q', options.q);
   const initial = requireEstimate('options.initial', initialOf(options, q, t[first]!, z[first]!, variance[first]!));
   checkQForStates(q, initial.states, 'options.q');

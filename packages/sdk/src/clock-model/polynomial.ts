@@ -63,6 +63,33 @@ export interface ClockPolynomial {
 }
 
 /**
+ * Centre c (mean epoch, s) and half-span s (s) of the fit epochs, which scale the design to u = (t − c)/s;
+ * throws unless there are at least degree + 1 distinct epochs.
+ */
+function centreAndHalfSpan(tt: Float64Array, degree: number): { c: number; s: number } {
+  const p = degree + 1;
+  const n = tt.length;
+  let tMin = Infinity;
+  let tMax = -Infinity;
+  let tSum = 0;
+  for (let i = 0; i < n; i++) {
+    tMin = Math.min(tMin, tt[i]!);
+    tMax = Math.max(tMax, tt[i]!);
+    tSum += tt[i]!;
+  }
+  const distinct = countDistinctUpTo(tt, p);
+  if (distinct < p)
+    throw new InvalidArgumentError(
+      't',
+      `${distinct} distinct epochs`,
+      `at least ${p} distinct epochs for a degree-${degree} fit`,
+    );
+  const c = tSum / n;
+  const s = (tMax - tMin) / 2;
+  return { c, s };
+}
+
+/**
  * Fits x(t) = a0 + a1(t − t0) + a2(t − t0)² to phase samples by weighted least squares.
  *
  * Numerics: the fit is done in a centred and scaled time u = (t − c)/s (c = mean epoch, s = half
@@ -87,23 +114,7 @@ export function fitClockPolynomial(
   const p = degree + 1;
   const n = tt.length;
   const v = options.variance;
-  let tMin = Infinity;
-  let tMax = -Infinity;
-  let tSum = 0;
-  for (let i = 0; i < n; i++) {
-    tMin = Math.min(tMin, tt[i]!);
-    tMax = Math.max(tMax, tt[i]!);
-    tSum += tt[i]!;
-  }
-  const distinct = countDistinctUpTo(tt, p);
-  if (distinct < p)
-    throw new InvalidArgumentError(
-      't',
-      `${distinct} distinct epochs`,
-      `at least ${p} distinct epochs for a degree-${degree} fit`,
-    );
-  const c = tSum / n;
-  const s = (tMax - tMin) / 2;
+  const { c, s } = centreAndHalfSpan(tt, degree);
 
   // √w-scaled design in u = (t − c)/s, columns [1, u, u²], stored by column.
   const a = Array.from({ length: p }, () => new Float64Array(n));

@@ -226,6 +226,40 @@ function validateRecord(eph: KeplerianBroadcastEphemeris, name = 'ephemeris'): v
 }
 
 /**
+ * BeiDou GEO satellites: position and velocity in the broadcast's inclined frame rotated to Earth-fixed,
+ * r = R_Z(Ω̇_E t_k) R_X(−5°) r_GK (source tagged on the first comment line below); `pi` is the system's interface-spec π.
+ */
+function beidouGeoToEarthFixed(
+  [x, y, z]: Vector3,
+  [vx, vy, vz]: Vector3,
+  omegaE: number,
+  tk: number,
+  pi: number,
+): [Vector3, Vector3] {
+  // r = R_Z(Ω̇_E t_k) R_X(−5°) r_GK; R_X(φ) = [[1,0,0],[0,cos φ,sin φ],[0,−sin φ,cos φ]],
+  // R_Z(φ) = [[cos φ, sin φ, 0],[−sin φ, cos φ, 0],[0,0,1]] (BDS-SIS-ICD §5.2.4.12 [M]).
+  const tilt = (-5 * pi) / 180;
+  const cx = Math.cos(tilt);
+  const sx = Math.sin(tilt);
+  const y1 = cx * y + sx * z;
+  const z1 = -sx * y + cx * z;
+  const vy1 = cx * vy + sx * vz;
+  const vz1 = -sx * vy + cx * vz;
+  const ang = omegaE * tk;
+  const cz = Math.cos(ang);
+  const sz = Math.sin(ang);
+  const x2 = cz * x + sz * y1;
+  const y2 = -sz * x + cz * y1;
+  // d/dt[R_Z(ω t) p] = R_Z(ω t) ṗ + ω·(R_Z'(ω t)) p, with R_Z' p = (−sin·px + cos·py, −cos·px − sin·py, 0).
+  const vx2 = cz * vx + sz * vy1 + omegaE * (-sz * x + cz * y1);
+  const vy2 = -sz * vx + cz * vy1 + omegaE * (-cz * x - sz * y1);
+  return [
+    [x2, y2, z1],
+    [vx2, vy2, vz1],
+  ];
+}
+
+/**
  * Evaluates a broadcast record at time t: the interface-specification user algorithm for the
  * Earth-fixed position and velocity, the relativistic correction and the clock correction.
  *
@@ -316,31 +350,7 @@ export function evaluateBroadcastEphemeris(
   let vy = xpDot * sinO + ypDot * cosI * cosO - yp * sinI * iDot * cosO + omegaRate * x;
   let vz = ypDot * sinI + yp * cosI * iDot;
 
-  if (geo) {
-    // r = R_Z(Ω̇_E t_k) R_X(−5°) r_GK; R_X(φ) = [[1,0,0],[0,cos φ,sin φ],[0,−sin φ,cos φ]],
-    // R_Z(φ) = [[cos φ, sin φ, 0],[−sin φ, cos φ, 0],[0,0,1]] (BDS-SIS-ICD §5.2.4.12 [M]).
-    const tilt = (-5 * k.pi) / 180;
-    const cx = Math.cos(tilt);
-    const sx = Math.sin(tilt);
-    const y1 = cx * y + sx * z;
-    const z1 = -sx * y + cx * z;
-    const vy1 = cx * vy + sx * vz;
-    const vz1 = -sx * vy + cx * vz;
-    const ang = omegaE * tk;
-    const cz = Math.cos(ang);
-    const sz = Math.sin(ang);
-    const x2 = cz * x + sz * y1;
-    const y2 = -sz * x + cz * y1;
-    // d/dt[R_Z(ω t) p] = R_Z(ω t) ṗ + ω·(R_Z'(ω t)) p, with R_Z' p = (−sin·px + cos·py, −cos·px − sin·py, 0).
-    const vx2 = cz * vx + sz * vy1 + omegaE * (-sz * x + cz * y1);
-    const vy2 = -sz * vx + cz * vy1 + omegaE * (-cz * x - sz * y1);
-    x = x2;
-    y = y2;
-    z = z1;
-    vx = vx2;
-    vy = vy2;
-    vz = vz1;
-  }
+  if (geo) [[x, y, z], [vx, vy, vz]] = beidouGeoToEarthFixed([x, y, z], [vx, vy, vz], omegaE, tk, k.pi);
 
   // IS-GPS-200 §20.3.3.3.3.1 [M]: Δt_r = F e √A sin E_k.
   const relativisticSeconds = k.relativisticF * e * eph.sqrtA * sinE;

@@ -78,6 +78,40 @@ export interface ProperTimeResult {
 /** Longest integration accepted, in seconds (about 317 years; our own bound, far beyond any clock analysis). */
 const MAX_PROPER_TIME_DURATION = 1e10;
 
+/** Output epochs (s from the start): every `step` up to `duration`, plus `duration` itself when off the grid. */
+function sampleTimes(duration: number, step: number): Float64Array {
+  const whole = Math.floor(duration / step + 1e-9);
+  const endsOnGrid = Math.abs(whole * step - duration) <= 1e-9 * duration;
+  const count = whole + 1 + (endsOnGrid ? 0 : 1);
+  if (count > MAX_PROPER_TIME_SAMPLES) {
+    throw new InvalidArgumentError(
+      'step',
+      step,
+      `large enough for at most ${MAX_PROPER_TIME_SAMPLES} samples over ${duration} s`,
+    );
+  }
+  const times = new Float64Array(count);
+  for (let k = 0; k <= whole; k++) times[k] = Math.min(k * step, duration);
+  times[count - 1] = duration;
+  return times;
+}
+
+/** Throws when the trajectory at `t` (s after the start, TT axis from `epoch`) is inside the Moon. */
+function requireOutsideMoon(epoch: number, t: number, y: Float64Array): void {
+  // A lunar orbiter that decays: the Moon's mean radius (IAU WGCCRE [M]) bounds its trajectory.
+  const m = moonPositionAt(epoch, t, true);
+  const rho = Math.hypot(y[0]! - m[0], y[1]! - m[1], y[2]! - m[2]);
+  if (rho <= MOON_MEAN_RADIUS) {
+    throw new OutOfDomainError(
+      "distance from the Moon's centre",
+      rho,
+      `${MOON_MEAN_RADIUS} m (the Moon's mean radius)`,
+      '∞',
+      `the orbit hits the Moon by t = ${t} s after the start; check the state and the epoch`,
+    );
+  }
+}
+
 /**
  * Integrates an orbit together with its clock's proper time τ − TT.
  *
@@ -135,19 +169,8 @@ export function integrateProperTime(
   const rtol = requirePositive('relativeTolerance', options.relativeTolerance ?? 1e-12);
   if (rtol < 1e-15 || rtol > 1e-6) throw new InvalidArgumentError('relativeTolerance', rtol, 'in [1e-15, 1e-6]');
 
-  const whole = Math.floor(duration / step + 1e-9);
-  const endsOnGrid = Math.abs(whole * step - duration) <= 1e-9 * duration;
-  const count = whole + 1 + (endsOnGrid ? 0 : 1);
-  if (count > MAX_PROPER_TIME_SAMPLES) {
-    throw new InvalidArgumentError(
-      'step',
-      step,
-      `large enough for at most ${MAX_PROPER_TIME_SAMPLES} samples over ${duration} s`,
-    );
-  }
-  const times = new Float64Array(count);
-  for (let k = 0; k <= whole; k++) times[k] = Math.min(k * step, duration);
-  times[count - 1] = duration;
+  const times = sampleTimes(duration, step);
+  const count = times.length;
 
   const field = createGravityField(model, { constants, epochTtSecondsSinceJ2000: epoch });
   const lG = constants.lG;
@@ -182,20 +205,7 @@ export function integrateProperTime(
         );
       }
       options.onProgress?.(t, duration);
-      if (model === 'full') {
-        // A lunar orbiter that decays: the Moon's mean radius (IAU WGCCRE [M]) bounds its trajectory.
-        const m = moonPositionAt(epoch, t, true);
-        const rho = Math.hypot(y[0]! - m[0], y[1]! - m[1], y[2]! - m[2]);
-        if (rho <= MOON_MEAN_RADIUS) {
-          throw new OutOfDomainError(
-            "distance from the Moon's centre",
-            rho,
-            `${MOON_MEAN_RADIUS} m (the Moon's mean radius)`,
-            '∞',
-            `the orbit hits the Moon by t = ${t} s after the start; check the state and the epoch`,
-          );
-        }
-      }
+      if (model === 'full') requireOutsideMoon(epoch, t, y);
     },
   });
   const states = new Float64Array(count * 6);

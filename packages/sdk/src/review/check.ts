@@ -341,6 +341,32 @@ function summaryOf(f: {
     : `configured ${fmt(f.configured)} differs from the expected ${fmt(expected)} by ${fmt(difference, 3)}`;
 }
 
+/** The semi-major-axis dispersion analysis of one spacecraft, or null when it states no dispersion. */
+function dispersionOf(
+  r: ResolvedSpacecraft,
+  configured: number,
+  range: number | undefined,
+  index: number,
+  ctx: ReviewContext,
+): ReturnType<typeof analyseDispersion> | null {
+  const { sc, set, reference } = r;
+  const { input, settings } = ctx;
+  return sc.dispersion
+    ? analyseDispersion({
+        a0: sc.orbit.semiMajorAxis,
+        sigma: sc.dispersion.semiMajorAxisSigma,
+        set,
+        reference,
+        configured,
+        actuatorRange: range ?? null,
+        phaseTolerance: sc.phaseToleranceSeconds ?? input.phaseToleranceSeconds ?? null,
+        runs: settings.runs,
+        seed: (settings.seed + index) % (MAX_SEED + 1),
+        onProgress: ctx.progress,
+      })
+    : null;
+}
+
 /** Reviews one spacecraft: verdict, diagnoses, J2 caveat, dispersion and summary (see {@link reviewOffsets}). */
 function reviewSpacecraft(r: ResolvedSpacecraft, index: number, ctx: ReviewContext): SpacecraftFinding {
   const { sc, set, reference, rate, j2, totalRate, expected } = r;
@@ -394,20 +420,7 @@ function reviewSpacecraft(r: ResolvedSpacecraft, index: number, ctx: ReviewConte
   }
 
   const range = (sc.actuator ?? input.actuator)?.rangeFractional;
-  const dispersion = sc.dispersion
-    ? analyseDispersion({
-        a0: sc.orbit.semiMajorAxis,
-        sigma: sc.dispersion.semiMajorAxisSigma,
-        set,
-        reference,
-        configured,
-        actuatorRange: range ?? null,
-        phaseTolerance: sc.phaseToleranceSeconds ?? input.phaseToleranceSeconds ?? null,
-        runs: settings.runs,
-        seed: (settings.seed + index) % (MAX_SEED + 1),
-        onProgress: ctx.progress,
-      })
-    : null;
+  const dispersion = dispersionOf(r, configured, range, index, ctx);
   const actuator = actuatorDiagnosis(dispersion, range, verdict, difference);
   if (actuator) {
     diagnosis.push(actuator.diagnosis);

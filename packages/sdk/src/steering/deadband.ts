@@ -57,6 +57,39 @@ function deadbandOpportunities(norm: NormalizedScenario): number[] {
 }
 
 /**
+ * The deadband's phase step at `t`: when phase steps are allowed and the predicted offset x (s) uses more than
+ * θ of the usable band (s), appends a phase step removing it (and a limit note if it was clipped); returns
+ * whether a step was added.
+ */
+function addPhaseStep(
+  norm: NormalizedScenario,
+  commands: InternalCommand[],
+  limits: string[],
+  t: number,
+  x: number,
+  theta: number,
+  usableNow: number,
+): boolean {
+  if (!(norm.actuator.phaseAllowed && Math.abs(x) > theta * usableNow)) return false;
+  const q = quantisePhase(norm, -x);
+  if (q.steps === 0) return false;
+  if (q.limitedBy)
+    limits.push(
+      `the phase step needed at ${isoAt(norm, t)} (${ns(-x)}) exceeds actuator.phaseSteps.maxStep (${ns(norm.actuator.phaseMaxStep)})`,
+    );
+  commands.push({
+    uplinkAt: t,
+    executeAt: t,
+    kind: 'phase',
+    steps: q.steps,
+    amount: q.amount,
+    planner: 'deadband',
+    reason: `${DEADBAND_REASON_PREFIX}predicted offset ${ns(x)} uses more than ${Math.round(theta * 100)} % of the usable band ±${ns(usableNow)}; phase step removes it`,
+  });
+  return true;
+}
+
+/**
  * Runs the deadband planner on top of the `fixed` (feed-forward) commands. Every frequency step
  * is limited to the admissible steps of braking.ts on the deadband's own opportunities, so a
  * saturated correction brakes in time instead of overshooting the opposite bound.
@@ -99,26 +132,7 @@ export function planDeadband(
       const [x, y, d] = meanState(norm, jumps, t);
       const gap = Math.max(nextStart - t, norm.grid);
       const usableNow = Math.max(0, usable(t));
-      let phaseDone = false;
-      if (norm.actuator.phaseAllowed && Math.abs(x) > theta * usableNow) {
-        const q = quantisePhase(norm, -x);
-        if (q.steps !== 0) {
-          if (q.limitedBy)
-            limits.push(
-              `the phase step needed at ${isoAt(norm, t)} (${ns(-x)}) exceeds actuator.phaseSteps.maxStep (${ns(norm.actuator.phaseMaxStep)})`,
-            );
-          commands.push({
-            uplinkAt: t,
-            executeAt: t,
-            kind: 'phase',
-            steps: q.steps,
-            amount: q.amount,
-            planner: 'deadband',
-            reason: `${DEADBAND_REASON_PREFIX}predicted offset ${ns(x)} uses more than ${Math.round(theta * 100)} % of the usable band ±${ns(usableNow)}; phase step removes it`,
-          });
-          phaseDone = true;
-        }
-      }
+      const phaseDone = addPhaseStep(norm, commands, limits, t, x, theta, usableNow);
       const execAt = phaseDone ? t + norm.actuator.spacing : t;
       const uplink = phaseDone ? uplinkFor(norm, execAt) : t;
       if (
