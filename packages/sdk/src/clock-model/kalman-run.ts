@@ -18,6 +18,7 @@ import { type Instant, requireInstant } from '../time/instant.js';
 import type { Dimensionless, Seconds } from '../units.js';
 import { type ClockDetectionSettings, detectionFrom, toJump, toOutlier } from './kalman.js';
 import { type CoreEvents, FilterCore } from './kalman-core.js';
+import { estimateOf } from './kalman-estimate.js';
 import {
   type ClockEstimate,
   type ClockKalmanOptions,
@@ -393,25 +394,6 @@ function finish(
           low: chiSquareQuantile(alpha / 2, nisCount) / nisCount,
           high: chiSquareUpperQuantile(alpha / 2, nisCount) / nisCount,
         };
-  const c = core;
-  const final: ClockEstimate =
-    states === 3
-      ? {
-          t: c.t,
-          state: [c.x0, c.x1, c.x2],
-          covariance: [
-            [c.p00, c.p01, c.p02],
-            [c.p01, c.p11, c.p12],
-            [c.p02, c.p12, c.p22],
-          ],
-        }
-      : {
-          t: c.t,
-          state: [c.x0, c.x1],
-          covariance: [
-            [c.p00, c.p01],
-            [c.p01, c.p11],
-          ],
-        };
+  const final = estimateOf(core, states);
   return { states, t, ...out, status, rejected, jumps, outliers, detection, nisSummary, final };
 }

@@ -17,6 +17,7 @@ import {
 } from '../internal/validate.js';
 import type { Seconds } from '../units.js';
 import { type CoreEvents, FilterCore } from './kalman-core.js';
+import { estimateOf } from './kalman-estimate.js';
 import { FREQUENCY, type GlrDecision, GlrDetector } from './kalman-glr.js';
 import {
   type ClockEstimate,
@@ -178,25 +179,7 @@ export class ClockKalmanFilter {
 
   /** Current estimate (a copy). */
   get estimate(): ClockEstimate {
-    const c = this._core;
-    return this._states === 3
-      ? {
-          t: c.t,
-          state: [c.x0, c.x1, c.x2],
-          covariance: [
-            [c.p00, c.p01, c.p02],
-            [c.p01, c.p11, c.p12],
-            [c.p02, c.p12, c.p22],
-          ],
-        }
-      : {
-          t: c.t,
-          state: [c.x0, c.x1],
-          covariance: [
-            [c.p00, c.p01],
-            [c.p01, c.p11],
-          ],
-        };
+    return estimateOf(this._core, this._states);
   }
 
   /** Threshold of the outlier decision (χ²(1) quantile at outlierProbability; Infinity when outlier handling is off). */

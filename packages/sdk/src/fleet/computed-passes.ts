@@ -13,7 +13,7 @@ import { InvalidArgumentError } from '../errors.js';
 import { requireEccentricity, requireFinite, requireInRange, requireOrbitRadius } from '../internal/validate.js';
 import type { KeplerianElements } from '../orbit/elements.js';
 import type { GeodeticPosition } from '../orbit/geodetic.js';
-import { MAX_PASS_PROPAGATION_SECONDS, predictPasses } from '../orbit/visibility.js';
+import { MAX_PASS_PROPAGATION_SECONDS, type PredictedPass, predictPasses } from '../orbit/visibility.js';
 import { rejectUnknownKeys } from '../steering/scenario.js';
 import { parseUtcStamp } from '../steering/utc-stamps.js';
 import type { Instant } from '../time/instant.js';
@@ -49,15 +49,9 @@ export interface FleetOrbit {
 }
 
 /** A pass computed from an orbit, as reported in the plan (seconds since the fleet epoch). */
-export interface NormalizedComputedPass {
+export interface NormalizedComputedPass extends PredictedPass {
   /** Index into the fleet's stations. */
   station: number;
-  start: Seconds;
-  end: Seconds;
-  maxElevation: Radians;
-  maxElevationAt: Seconds;
-  clippedAtStart: boolean;
-  clippedAtEnd: boolean;
   /** False when shorter than its station's `supportSeconds`: it cannot hold a support and is not planned with. */
   usable: boolean;
 }
