@@ -169,7 +169,7 @@ function drawLabels(ctx: CanvasRenderingContext2D, { view, layout, colors, atRis
   ctx.font = colors.font;
   ctx.textAlign = 'right';
   ctx.textBaseline = 'middle';
-  const fit = (text: string, room: number): string => {
+  const clipLabel = (text: string, room: number): string => {
     let s = text;
     while (s.length > 3 && ctx.measureText(s).width > room) s = s.slice(0, -1);
     return s === text ? s : `${s.slice(0, -1)}…`;
@@ -180,7 +180,7 @@ function drawLabels(ctx: CanvasRenderingContext2D, { view, layout, colors, atRis
     const y = layout.top + i * layout.rowHeight + layout.rowHeight / 2;
     ctx.fillStyle = atRisk[i] ? colors.risk : colors.text;
     ctx.textAlign = 'right';
-    ctx.fillText(fit(s.id, layout.left - 8 - (atRisk[i] ? icon : 0)), layout.left - 6, y);
+    ctx.fillText(clipLabel(s.id, layout.left - 8 - (atRisk[i] ? icon : 0)), layout.left - 6, y);
     if (atRisk[i]) {
       ctx.textAlign = 'left';
       ctx.fillText('⚠', 2, y);
@@ -192,7 +192,7 @@ function drawLabels(ctx: CanvasRenderingContext2D, { view, layout, colors, atRis
   ctx.textAlign = 'right';
   ctx.fillStyle = colors.text;
   view.stations.forEach((st, k) => {
-    ctx.fillText(fit(st.id, layout.left - 10), layout.left - 6, layout.laneTop + (k + 0.5) * layout.laneHeight);
+    ctx.fillText(clipLabel(st.id, layout.left - 10), layout.left - 6, layout.laneTop + (k + 0.5) * layout.laneHeight);
   });
 }
 
