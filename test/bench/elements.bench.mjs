@@ -18,66 +18,21 @@ import { chromium } from 'playwright-core';
 import { startDemoServer } from '../../demo/server.mjs';
 import { planFleet } from '../../packages/sdk/dist/fleet/index.js';
 import { CHROMIUM_ARGS } from '../../web-test-runner.config.mjs';
+import { syntheticFleet } from './synthetic-fleet.mjs';
 
 const fmt = (ms) => `${ms.toFixed(1).padStart(7)} ms`;
 
-/** Deterministic pseudo-random numbers in [0, 1) (a linear congruential generator, fixed seed). */
-function lcg(seed) {
-  let s = seed >>> 0;
-  return () => {
-    s = (Math.imul(s, 1_664_525) + 1_013_904_223) >>> 0;
-    return s / 2 ** 32;
-  };
-}
-
 /** An invented fleet: 30 satellites, 3 stations seeing each about twice a day, `days` days. */
 function benchFleet(days) {
-  const rand = lcg(20261204);
-  const epochMs = Date.parse('2027-05-03T00:00:00Z');
-  const iso = (t) => new Date(epochMs + Math.round(t) * 1000).toISOString().replace('.000Z', 'Z');
-  const stations = ['UI-BENCH-A', 'UI-BENCH-B', 'UI-BENCH-C'].map((id) => ({
-    id,
-    setupSeconds: 600,
-    supportSeconds: 900,
-  }));
-  const satellites = Array.from({ length: 30 }, (_, i) => {
-    const passes = [];
-    for (let d = 0; d < days; d++) {
-      stations.forEach((st, k) => {
-        for (const base of [3, 15]) {
-          const start = d * 86_400 + (base + 2.5 * k) * 3600 + rand() * 4 * 3600;
-          const end = Math.min(days * 86_400, start + 2400 + rand() * 2400);
-          if (end - start >= 900) passes.push({ station: st.id, start: iso(start), end: iso(end) });
-        }
-      });
-    }
-    return {
-      id: `UIB-${String(i + 1).padStart(2, '0')}`,
-      clock: {
-        phaseSeconds: (rand() - 0.5) * 1e-8,
-        fractionalFrequency: (rand() - 0.5) * 8e-13,
-        driftPerSecond: (rand() - 0.5) * 1e-18,
-        noise: { q1: 1e-24, q2: 1e-34, q3: 0 },
-      },
-      tolerance: { phaseSeconds: 1e-7, probability: 0.95 },
-      actuator: {
-        frequencyResolution: 1e-15,
-        maxFrequencyStep: 5e-13,
-        cumulativeFrequencyRange: { min: -5e-11, max: 5e-11 },
-        minCommandSpacingSeconds: 3600,
-        maxTimeTagSeconds: 43_200,
-      },
-      passes,
-    };
+  return syntheticFleet({
+    days,
+    seed: 20261204,
+    epoch: '2027-05-03T00:00:00Z',
+    stationIds: ['UI-BENCH-A', 'UI-BENCH-B', 'UI-BENCH-C'],
+    satellitePrefix: 'UIB',
+    passHours: [3, 15],
+    phaseToleranceSeconds: 1e-7,
   });
-  return {
-    epoch: iso(0),
-    horizonSeconds: days * 86_400,
-    gridSeconds: 900,
-    stations,
-    satellites,
-    strategy: { method: 'optimal' },
-  };
 }
 
 export default async function benchElements() {

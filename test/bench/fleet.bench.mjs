@@ -8,61 +8,20 @@ import { predictPasses } from '../../packages/sdk/dist/orbit/index.js';
 import { planSteering } from '../../packages/sdk/dist/steering/index.js';
 import { BUNDLED_LEAP_SECONDS, createTimeScales } from '../../packages/sdk/dist/time/index.js';
 import { growthExponent } from './baselines/native.mjs';
-
-/** Deterministic pseudo-random numbers in [0, 1) (a linear congruential generator, fixed seed). */
-function lcg(seed) {
-  let s = seed >>> 0;
-  return () => {
-    s = (Math.imul(s, 1_664_525) + 1_013_904_223) >>> 0;
-    return s / 2 ** 32;
-  };
-}
+import { syntheticFleet } from './synthetic-fleet.mjs';
 
 /** 30 invented satellites, 3 invented stations, each satellite seen by each station about twice a day. */
 function constellation(days) {
-  const rand = lcg(20261203);
-  const epochMs = Date.parse('2027-03-01T00:00:00Z');
-  const iso = (t) => new Date(epochMs + Math.round(t) * 1000).toISOString().replace('.000Z', 'Z');
-  const stations = ['BENCH-N', 'BENCH-E', 'BENCH-S'].map((id) => ({ id, setupSeconds: 600, supportSeconds: 900 }));
-  const satellites = Array.from({ length: 30 }, (_, i) => {
-    const passes = [];
-    for (let d = 0; d < days; d++) {
-      stations.forEach((st, k) => {
-        for (const base of [4, 16]) {
-          const start = d * 86_400 + (base + 2.5 * k) * 3600 + rand() * 4 * 3600;
-          const end = Math.min(days * 86_400, start + 2400 + rand() * 2400);
-          if (end - start >= 900) passes.push({ station: st.id, start: iso(start), end: iso(end) });
-        }
-      });
-    }
-    return {
-      id: `BENCH-${String(i + 1).padStart(2, '0')}`,
-      clock: {
-        phaseSeconds: (rand() - 0.5) * 1e-8,
-        fractionalFrequency: (rand() - 0.5) * 8e-13,
-        driftPerSecond: (rand() - 0.5) * 1e-18,
-        noise: { q1: 1e-24, q2: 1e-34, q3: 0 },
-      },
-      // Over 30 days the open-loop σ alone (q2 = 1e-34 /s) reaches ≈ 24 ns, so the month uses a wider band.
-      tolerance: { phaseSeconds: days > 7 ? 1e-7 : 3e-8, probability: 0.95 },
-      actuator: {
-        frequencyResolution: 1e-15,
-        maxFrequencyStep: 5e-13,
-        cumulativeFrequencyRange: { min: -5e-11, max: 5e-11 },
-        minCommandSpacingSeconds: 3600,
-        maxTimeTagSeconds: 43_200,
-      },
-      passes,
-    };
+  return syntheticFleet({
+    days,
+    seed: 20261203,
+    epoch: '2027-03-01T00:00:00Z',
+    stationIds: ['BENCH-N', 'BENCH-E', 'BENCH-S'],
+    satellitePrefix: 'BENCH',
+    passHours: [4, 16],
+    // Over 30 days the open-loop σ alone (q2 = 1e-34 /s) reaches ≈ 24 ns, so the month uses a wider band.
+    phaseToleranceSeconds: days > 7 ? 1e-7 : 3e-8,
   });
-  return {
-    epoch: iso(0),
-    horizonSeconds: days * 86_400,
-    gridSeconds: 900,
-    stations,
-    satellites,
-    strategy: { method: 'optimal' },
-  };
 }
 
 /** The baseline: each satellite planned alone with all its passes (merged where they overlap) as contacts. */
