@@ -10,7 +10,13 @@
 
 import { DEFAULT_CONSTANT_SET } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
-import { requireEccentricity, requireFinite, requireInRange, requireOrbitRadius } from '../internal/validate.js';
+import {
+  requireEccentricity,
+  requireFinite,
+  requireInRange,
+  requireOrbitRadius,
+  requireRecord,
+} from '../internal/validate.js';
 import type { KeplerianElements } from '../orbit/elements.js';
 import type { GeodeticPosition } from '../orbit/geodetic.js';
 import { MAX_PASS_PROPAGATION_SECONDS, type PredictedPass, predictPasses } from '../orbit/visibility.js';
@@ -87,13 +93,6 @@ function requireAngle(field: string, value: unknown, max: number, maxText: strin
   return v;
 }
 
-function requireObjectField(field: string, value: unknown): Record<string, unknown> {
-  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
-    throw new InvalidArgumentError(field, value, 'an object');
-  }
-  return value as Record<string, unknown>;
-}
-
 /**
  * Validates a station's optional `position` and `elevationMaskRadians` (both or neither).
  * @returns The site, or undefined when the station gives neither.
@@ -107,7 +106,7 @@ export function validateStationSite(field: string, s: Record<string, unknown>): 
       'a position { latitudeRadians, longitudeRadians, heightMetres } with elevationMaskRadians',
     );
   }
-  const p = requireObjectField(`${field}.position`, s.position);
+  const p = requireRecord(`${field}.position`, s.position);
   rejectUnknownKeys(`${field}.position`, p, ['latitudeRadians', 'longitudeRadians', 'heightMetres']);
   const position: GeodeticPosition = {
     latitude: requireAngle(`${field}.position.latitudeRadians`, p.latitudeRadians, Math.PI / 2, 'π/2'),
@@ -138,7 +137,7 @@ export function validateFleetOrbit(
   epoch: Instant,
   horizon: Seconds,
 ): { elements: KeplerianElements; epoch: Instant } {
-  const o = requireObjectField(field, value);
+  const o = requireRecord(field, value);
   rejectUnknownKeys(field, o, ORBIT_FIELDS);
   const elEpoch = parseUtcStamp(ts, `${field}.epoch`, o.epoch);
   const a = requireOrbitRadius(`${field}.semiMajorAxisMetres`, o.semiMajorAxisMetres);

@@ -9,7 +9,7 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
-import { requireNonNegative, requirePositive } from '../internal/validate.js';
+import { requireNonNegative, requirePositive, requireRecord } from '../internal/validate.js';
 import {
   type ActuatorSpec,
   type ClockSpec,
@@ -126,12 +126,6 @@ export interface NormalizedFleet {
   strategy: StrategySpec;
 }
 
-function requireObject(field: string, value: unknown): Record<string, unknown> {
-  if (typeof value !== 'object' || value === null || Array.isArray(value))
-    throw new InvalidArgumentError(field, value, 'an object');
-  return value as Record<string, unknown>;
-}
-
 function requireNonEmptyArray(field: string, value: unknown, what: string): unknown[] {
   if (!Array.isArray(value) || value.length === 0)
     throw new InvalidArgumentError(field, value, `a non-empty array of ${what}`);
@@ -206,7 +200,7 @@ function validateGivenPasses(
   }
   return rawPasses.map((p, j): NormalizedPass => {
     const field = `satellites[${i}].passes[${j}]`;
-    const o = requireObject(field, p);
+    const o = requireRecord(field, p);
     rejectUnknownKeys(field, o, ['station', 'start', 'end']);
     const station = stations.findIndex((s) => s.id === o.station);
     if (station < 0)
@@ -262,7 +256,7 @@ function validateGivenPasses(
  */
 export function validateFleet(input: unknown, options: TimeScaleOptions = {}): NormalizedFleet {
   const timeScales = resolveTimeScales(options);
-  const root = requireObject('fleet', input);
+  const root = requireRecord('fleet', input);
   rejectUnknownKeys('', root, [
     '$schema',
     'name',
@@ -281,7 +275,7 @@ export function validateFleet(input: unknown, options: TimeScaleOptions = {}): N
   const epoch = parseUtcStamp(timeScales, 'epoch', root.epoch);
   const stationIds = new Set<string>();
   const stations = requireNonEmptyArray('stations', root.stations, 'stations').map((value, k) => {
-    const s = requireObject(`stations[${k}]`, value);
+    const s = requireRecord(`stations[${k}]`, value);
     rejectUnknownKeys(`stations[${k}]`, s, [
       'id',
       'setupSeconds',
@@ -299,7 +293,7 @@ export function validateFleet(input: unknown, options: TimeScaleOptions = {}): N
   const satIds = new Set<string>();
   const rawSats = requireNonEmptyArray('satellites', root.satellites, 'satellites');
   const satellites = rawSats.map((value, i): NormalizedFleetSatellite => {
-    const sat = requireObject(`satellites[${i}]`, value);
+    const sat = requireRecord(`satellites[${i}]`, value);
     rejectUnknownKeys(`satellites[${i}]`, sat, SATELLITE_FIELDS);
     const id = requireId(`satellites[${i}].id`, sat.id, satIds, 'satellite');
     const { scenario, norm } = validateSatelliteScenario(root, sat, i, options);
