@@ -9,6 +9,7 @@ import {
   rateChangeForSemiMajorAxisChange,
   reviewOffsets,
   simulateClosedLoop,
+  steeringPlanToJson,
 } from '@tauline/sdk';
 import { clockRecord, reviewDocument, SATELLITES, scenarioFor } from './constellation.js';
 import { loadFleet } from './fleet-view.js';
@@ -142,7 +143,8 @@ function recompute() {
         semiMajorAxisKind: 'mean',
       });
       const ms = performance.now() - t0;
-      schedule.plan = plan;
+      // The element takes the plan's JSON form (ISO 8601 stamps), as a server would send it.
+      schedule.plan = steeringPlanToJson(plan);
       schedule.scenario = scenario;
       schedule.label = `Steering schedule · ${sat.id}`;
       budget.budget = rate;

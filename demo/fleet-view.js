@@ -1,7 +1,7 @@
 // Fleet view of the demo console: the four invented Corvane satellites planned jointly through the two
 // invented stations with planFleet (in this page), shown in <tauline-fleet-timeline>, with a summary
 // (held? who is at risk and why) and the details of the satellite the user selects.
-import { planFleet } from '@tauline/sdk/fleet';
+import { fleetPlanToJson, planFleet } from '@tauline/sdk/fleet';
 import { FLEET_STATIONS, fleetDocument, SATELLITES } from './constellation.js';
 
 /** Residual rates of the fleet view (invented): CORVANE-B2 runs fast and has no pass on the first day. */
@@ -99,7 +99,8 @@ export function loadFleet(log) {
   try {
     const fleet = fleetDocument(FLEET_RESIDUALS);
     const t0 = performance.now();
-    plan = planFleet(fleet);
+    // The element and the summary read the plan's JSON form (ISO 8601 stamps), as a server would send it.
+    plan = fleetPlanToJson(planFleet(fleet));
     const ms = performance.now() - t0;
     timeline.fleet = fleet;
     timeline.plan = plan;

@@ -16,7 +16,7 @@ import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { chromium } from 'playwright-core';
 import { startDemoServer } from '../../demo/server.mjs';
-import { planFleet } from '../../packages/sdk/dist/fleet/index.js';
+import { fleetPlanToJson, planFleet } from '../../packages/sdk/dist/fleet/index.js';
 import { CHROMIUM_ARGS } from '../../web-test-runner.config.mjs';
 import { syntheticFleet } from './synthetic-fleet.mjs';
 
@@ -95,7 +95,7 @@ export default async function benchElements() {
       `  growth exponent of first render over 10^4…10^6: ${(Math.log10(c.firstRenderMs / a.firstRenderMs) / 2).toFixed(2)}`,
     );
     const fleet = benchFleet(30);
-    const plan = planFleet(fleet);
+    const plan = fleetPlanToJson(planFleet(fleet));
     await page.evaluate((data) => window.runFleetBench(data), { fleet, plan }); // warm-up
     const f = await page.evaluate((data) => window.runFleetBench(data), { fleet, plan });
     const vsBase = (ms) => `${(ms / f.baselineMs).toFixed(2)}× baseline`;

@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { planSteering, type SteeringScenario } from '../../packages/sdk/src/steering/index.js';
+import { planSteering, type SteeringScenario, steeringPlanToJson } from '../../packages/sdk/src/steering/index.js';
 
 const DAY = 86_400;
 const EPOCH_MS = Date.parse('2027-03-01T00:00:00Z');
@@ -61,7 +61,7 @@ describe('Koppang & Leland 1999, LQ clock steering: steady-state gain from the d
     tolerance: dare.b,
     frequencyStep: dare.wF,
   });
-  const plan = planSteering(s);
+  const plan = steeringPlanToJson(planSteering(s)); // stamps read back with Date.parse
 
   it('planSteering(unconstrained scenario) makes its first step u0 = −K·s0 of the Riccati gain, within 1e-6 relative', () => {
     const first = plan.commands[0]!;
@@ -109,7 +109,7 @@ describe('Kirk, Optimal Control Theory (1970) §5.4: minimum-time double integra
     tolerance: b,
     frequencyStep: 0.01,
   });
-  const plan = planSteering(s);
+  const plan = steeringPlanToJson(planSteering(s)); // stamps read back with Date.parse
   const freq = plan.commands.filter((c) => c.kind === 'frequency');
 
   it('planSteering(saturated scenario) accelerates at the step limit and switches to braking at T*/2 (within 2 decision intervals)', () => {

@@ -8,7 +8,7 @@ import { existsSync } from 'node:fs';
 import { availableParallelism, loadavg } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import type { MonteCarloPart, SteeringCommand } from '@tauline/sdk/steering';
+import type { MonteCarloPart, SteeringCommandJson } from '@tauline/sdk/steering';
 import type { LeapSecondTable } from '@tauline/sdk/time';
 import type { SimulateTask } from './simulate-worker.js';
 
@@ -47,7 +47,7 @@ export function workerCount(requested: number | undefined, runs: number, gridEpo
 /** What every range of one strategy shares. */
 export interface PoolJob {
   scenario: unknown;
-  commands: SteeringCommand[];
+  commands: SteeringCommandJson[];
   seed: number;
   runs: number;
   leapSeconds?: LeapSecondTable;

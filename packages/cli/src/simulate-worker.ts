@@ -4,14 +4,14 @@
  * simulate-pool.ts from the built CLI (dist/simulate-worker.js).
  */
 import { parentPort } from 'node:worker_threads';
-import { type SteeringCommand, simulatePlanRuns } from '@tauline/sdk/steering';
+import { type SteeringCommandJson, simulatePlanRuns, steeringCommandsFromJson } from '@tauline/sdk/steering';
 import { createTimeScales, type LeapSecondTable } from '@tauline/sdk/time';
 
-/** One task: the runs firstRun … firstRun + runCount − 1 of a plan. */
+/** One task: the runs firstRun … firstRun + runCount − 1 of a plan, its commands in JSON form (ISO 8601 UTC). */
 export interface SimulateTask {
   id: number;
   scenario: unknown;
-  commands: SteeringCommand[];
+  commands: SteeringCommandJson[];
   seed: number;
   firstRun: number;
   runCount: number;
@@ -24,14 +24,15 @@ const PROGRESS_EVERY = 50;
 const port = parentPort; // null when this file is not run as a worker: then it does nothing
 port?.on('message', (task: SimulateTask) => {
   try {
+    const scales = task.leapSeconds ? { timeScales: createTimeScales(task.leapSeconds) } : {};
     const part = simulatePlanRuns(
       task.scenario,
-      { commands: task.commands },
+      { commands: steeringCommandsFromJson(task.commands, { ...scales, field: 'plan.commands' }) },
       {
         seed: task.seed,
         firstRun: task.firstRun,
         runCount: task.runCount,
-        ...(task.leapSeconds ? { timeScales: createTimeScales(task.leapSeconds) } : {}),
+        ...scales,
         onProgress: (done) => {
           if (done % PROGRESS_EVERY === 0) port.postMessage({ id: task.id, progress: PROGRESS_EVERY });
         },

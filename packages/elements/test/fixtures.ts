@@ -8,10 +8,11 @@ import { analyzeStability, type StabilityRow } from '@tauline/sdk/stability';
 import {
   type ClockOffsetEstimate,
   planSteering,
-  type RevisedSteeringPlan,
+  type RevisedSteeringPlanJson,
   replanSteering,
-  type SteeringPlan,
+  type SteeringPlanJson,
   type SteeringScenario,
+  steeringPlanToJson,
 } from '@tauline/sdk/steering';
 
 export type ExampleName = 'orin-3-meo' | 'halcyr-g1-geo';
@@ -31,29 +32,30 @@ export async function exampleScenario(name: ExampleName): Promise<SteeringScenar
   return structuredClone(await pending);
 }
 
-const plans = new Map<string, { plan: SteeringPlan; scenario: SteeringScenario }>();
+const plans = new Map<string, { plan: SteeringPlanJson; scenario: SteeringScenario }>();
 
 /**
- * `planSteering(scenario)` on the bundled example `name`, after `edit` (a variant of the example, e.g.
- * a larger initial phase offset); a fresh deep copy each call, so a test may change it.
+ * `steeringPlanToJson(planSteering(scenario))` (the JSON form the element takes) on the bundled example
+ * `name`, after `edit` (a variant of the example, e.g. a larger initial phase offset); a fresh deep copy
+ * each call, so a test may change it.
  */
 export async function examplePlan(
   name: ExampleName,
   edit?: { key: string; apply: (s: SteeringScenario) => void },
-): Promise<{ plan: SteeringPlan; scenario: SteeringScenario }> {
+): Promise<{ plan: SteeringPlanJson; scenario: SteeringScenario }> {
   const key = `${name}|${edit?.key ?? ''}`;
   let hit = plans.get(key);
   if (!hit) {
     const scenario = await exampleScenario(name);
     edit?.apply(scenario);
-    hit = { plan: planSteering(scenario), scenario };
+    hit = { plan: steeringPlanToJson(planSteering(scenario)), scenario };
     plans.set(key, hit);
   }
   return structuredClone(hit);
 }
 
 /** ORIN-3 (optimal planner): three frequency steps, the third one cancelling the day-4 manoeuvre. */
-export function orinPlan(): Promise<{ plan: SteeringPlan; scenario: SteeringScenario }> {
+export function orinPlan(): Promise<{ plan: SteeringPlanJson; scenario: SteeringScenario }> {
   return examplePlan('orin-3-meo');
 }
 
@@ -61,7 +63,7 @@ export function orinPlan(): Promise<{ plan: SteeringPlan; scenario: SteeringScen
  * HALCYR-G1 (deadband, phase steps allowed) started 40 ns off: the planner removes the offset with a
  * phase step, then cancels the frequency offset, so the plan holds both command kinds.
  */
-export function halcyrPhasePlan(): Promise<{ plan: SteeringPlan; scenario: SteeringScenario }> {
+export function halcyrPhasePlan(): Promise<{ plan: SteeringPlanJson; scenario: SteeringScenario }> {
   return examplePlan('halcyr-g1-geo', {
     key: 'phase-40ns',
     apply: (s) => {
@@ -76,14 +78,16 @@ export const ORIN_ESTIMATES: readonly ClockOffsetEstimate[] = [
   { tSeconds: 60_000, phaseSeconds: 5e-9, sigmaSeconds: 3e-10 },
 ];
 
-/** ORIN-3's plan revised by `replanSteering` at 61 200 s (17:00 UTC on day 1) with {@link ORIN_ESTIMATES}. */
+/** ORIN-3's plan revised by `replanSteering` at 61 200 s (17:00 UTC on day 1) with {@link ORIN_ESTIMATES}, in JSON form. */
 export async function orinRevision(): Promise<{
-  plan: SteeringPlan;
-  revised: RevisedSteeringPlan;
+  plan: SteeringPlanJson;
+  revised: RevisedSteeringPlanJson;
   scenario: SteeringScenario;
 }> {
-  const { plan, scenario } = await orinPlan();
-  return { plan, scenario, revised: replanSteering(scenario, plan, ORIN_ESTIMATES, 61_200) };
+  const scenario = await exampleScenario('orin-3-meo');
+  const plan = planSteering(scenario);
+  const revised = replanSteering(scenario, plan, ORIN_ESTIMATES, 61_200);
+  return { plan: steeringPlanToJson(plan), scenario, revised: steeringPlanToJson(revised) };
 }
 
 /** Elapsed seconds from `epoch` to `stamp` by `Date.parse` (independent of the elements; no leap second between them). */

@@ -1,5 +1,5 @@
 import { expect, fixture, html, oneEvent } from '@open-wc/testing';
-import { type FleetDocument, planFleet, validateFleet } from '@tauline/sdk/fleet';
+import { type FleetDocument, fleetPlanToJson, planFleet, validateFleet } from '@tauline/sdk/fleet';
 import { BUNDLED_LEAP_SECONDS, createTimeScales } from '@tauline/sdk/time';
 import { sendKeys } from '@web/test-runner-commands';
 import '../src/fleet-timeline/fleet-timeline.define.js';
@@ -152,7 +152,7 @@ describe('tauline-fleet-timeline', () => {
       ['vesper', (await heldFleet()).fleet],
       ['ashgrove', ashgrove],
     ] as const) {
-      const r = readFleetPlan(planFleet(fleet), fleet);
+      const r = readFleetPlan(fleetPlanToJson(planFleet(fleet)), fleet);
       if (!r.ok) throw new Error(r.error);
       const norm = validateFleet(fleet);
       expect(r.view.horizon, name).to.equal(norm.horizon);

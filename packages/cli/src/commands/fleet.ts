@@ -2,7 +2,7 @@
  * `tauline fleet <fleet.json>`: one steering plan for several satellite clocks that share a few
  * ground stations.
  */
-import { type FleetDocument, type FleetPlan, planFleet } from '@tauline/sdk/fleet';
+import { type FleetDocument, type FleetPlanJson, fleetPlanToJson, planFleet } from '@tauline/sdk/fleet';
 import { readJsonFile } from '../files.js';
 import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag } from '../flags.js';
 import {
@@ -34,11 +34,11 @@ const LANE_WIDTH = 84;
 /** Marker of satellite i in the timeline: A–Z, then a–z, then digits. */
 function marker(i: number): string {
   const all = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789';
-  return all[i % all.length]!;
+  return all.charAt(i % all.length);
 }
 
 /** One lane per station: each character covers horizon/LANE_WIDTH; a satellite's marker where it holds the station, `*` for two in one cell. */
-function timeline(doc: FleetDocument, plan: FleetPlan): string[] {
+function timeline(doc: FleetDocument, plan: FleetPlanJson): string[] {
   const epochMs = Date.parse(doc.epoch);
   const cell = doc.horizonSeconds / LANE_WIDTH;
   const index = new Map(doc.satellites.map((s, i) => [s.id, i]));
@@ -68,9 +68,8 @@ function timeline(doc: FleetDocument, plan: FleetPlan): string[] {
 }
 
 /** Pass counts per satellite and station: usable passes, "+n short" for computed passes too short for a support. */
-function passCounts(doc: FleetDocument, plan: FleetPlan, width: number | undefined): string[] {
-  const rows = plan.satellites.map((s, i) => {
-    const sat = doc.satellites[i]!;
+function passCounts(doc: FleetDocument, plan: FleetPlanJson, width: number | undefined): string[] {
+  const rows = zipSatellites(doc, plan).map(([sat, s]) => {
     const cells = doc.stations.map((st) => {
       if (!s.computedPasses) return String((sat.passes ?? []).filter((p) => p.station === st.id).length);
       const here = s.computedPasses.filter((p) => p.station === st.id);
@@ -95,9 +94,23 @@ function passCounts(doc: FleetDocument, plan: FleetPlan, width: number | undefin
   return out;
 }
 
-/** The human-readable fleet plan. */
-/** `width`: display columns to fit (TABLE_WIDTH by default in the CLI); undefined for the unlimited `--wide` form. */
-export function fleetToText(doc: FleetDocument, plan: FleetPlan, width: number | undefined): string {
+/** Each satellite of the document beside its plan (the plan lists them in the document's order). */
+function zipSatellites(
+  doc: FleetDocument,
+  plan: FleetPlanJson,
+): [FleetDocument['satellites'][number], FleetPlanJson['satellites'][number]][] {
+  return plan.satellites.map((s, i) => {
+    const sat = doc.satellites[i];
+    if (sat?.id !== s.id) throw new Error(`internal: plan satellite ${i} (${s.id}) is not the document's`);
+    return [sat, s];
+  });
+}
+
+/**
+ * The human-readable fleet plan, from its JSON form (its stamps as printed).
+ * `width`: display columns to fit (TABLE_WIDTH by default in the CLI); undefined for the unlimited `--wide` form.
+ */
+export function fleetToText(doc: FleetDocument, plan: FleetPlanJson, width: number | undefined): string {
   const out: string[] = [];
   out.push(
     `${doc.name ?? 'Fleet plan'}: ${doc.strategy.method} planner, ${doc.satellites.length} satellites, ${doc.stations.length} stations, ` +
@@ -109,8 +122,7 @@ export function fleetToText(doc: FleetDocument, plan: FleetPlan, width: number |
       : `Feasible: NO. ${plan.reason ?? ''}`,
     '',
   );
-  const rows = plan.satellites.map((s, i) => {
-    const sat = doc.satellites[i]!;
+  const rows = zipSatellites(doc, plan).map(([sat, s]) => {
     const stations = [...new Set(plan.stationSchedule.filter((x) => x.satellite === s.id).map((x) => x.station))];
     const supports = plan.stationSchedule.filter((x) => x.satellite === s.id).length;
     return [
@@ -199,7 +211,8 @@ Exit status: 0 every satellite feasible, 1 some satellite infeasible (the reason
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
     const timeScales = await leapSecondsFlag(args);
     const doc = await readJsonFile(path, 'a fleet document');
-    const plan = planFleet(doc, timeScales ? { timeScales } : {});
+    const scales = timeScales ? { timeScales } : {};
+    const plan = fleetPlanToJson(planFleet(doc, scales), scales);
     if (format === 'json') io.out(toJson({ ...plan, units: FLEET_UNITS }));
     else io.out(fleetToText(doc as FleetDocument, plan, outputWidth(args)));
     return plan.feasible ? EXIT_OK : EXIT_FINDING;

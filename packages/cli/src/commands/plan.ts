@@ -2,7 +2,13 @@
  * `tauline plan <scenario.json>`: when and by how much to steer an onboard clock so that its
  * offset stays inside the tolerance, from a steering scenario file.
  */
-import { planSteering, type SteeringMethod, type SteeringPlan, type SteeringScenario } from '@tauline/sdk/steering';
+import {
+  planSteering,
+  type SteeringMethod,
+  type SteeringPlanJson,
+  type SteeringScenario,
+  steeringPlanToJson,
+} from '@tauline/sdk/steering';
 import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag, readScenarioFile, strategyFlag } from '../flags.js';
 import {
   type Command,
@@ -21,7 +27,7 @@ import { fitTable, outputWidth, wrapLines } from '../layout.js';
 import { nsText, PLAN_UNITS } from '../steering-output.js';
 
 /** A command's step with its sign: fractional for a frequency step, ns for a phase step (the SDK sets the field of the kind). */
-function stepText(c: SteeringPlan['commands'][number]): string {
+function stepText(c: SteeringPlanJson['commands'][number]): string {
   const { fractionalFrequencyStep: frequency, phaseStepSeconds: phase } = c;
   if (c.kind === 'frequency' && frequency !== undefined)
     return `${frequency >= 0 ? '+' : ''}${frequency.toExponential(3)}`;
@@ -30,13 +36,13 @@ function stepText(c: SteeringPlan['commands'][number]): string {
 }
 
 /**
- * The human-readable schedule, fitted to `width` display columns (undefined: the long form of `--wide`):
+ * The human-readable schedule of a plan's JSON form (its stamps as printed), fitted to `width` display columns (undefined: the long form of `--wide`):
  * the command reasons then go under their rows.
  */
 export function planToText(
   scenario: SteeringScenario,
   method: string,
-  plan: SteeringPlan,
+  plan: SteeringPlanJson,
   width: number | undefined,
 ): string {
   const out: string[] = [];
@@ -145,7 +151,8 @@ Exit status: 0 feasible plan, 1 infeasible (the reason is printed), 2 unusable i
     const strategy = strategyFlag(optionalFlag(args, 'strategy'), false) as SteeringMethod | undefined;
     const timeScales = await leapSecondsFlag(args);
     const scenario = await readScenarioFile(path);
-    const plan = planSteering(scenario, { ...(strategy ? { strategy } : {}), ...(timeScales ? { timeScales } : {}) });
+    const scales = timeScales ? { timeScales } : {};
+    const plan = steeringPlanToJson(planSteering(scenario, { ...(strategy ? { strategy } : {}), ...scales }), scales);
     const s = scenario as SteeringScenario;
     if (format === 'json') io.out(toJson({ ...plan, units: PLAN_UNITS }));
     else io.out(planToText(s, strategy ?? s.strategy.method, plan, outputWidth(args)));

@@ -9,11 +9,13 @@ import {
   combineMonteCarloParts,
   planSteering,
   type SimulationSummary,
+  type SteeringCommandJson,
   type SteeringMethod,
-  type SteeringPlan,
   type SteeringScenario,
   simulateClosedLoop,
   simulatePlan,
+  steeringCommandsFromJson,
+  steeringPlanToJson,
 } from '@tauline/sdk/steering';
 import { createTimeScales, type LeapSecondTable } from '@tauline/sdk/time';
 import {
@@ -116,10 +118,12 @@ Exit status: 0 success, 2 unusable input.`,
     const timeScales = leapSeconds ? createTimeScales(leapSeconds) : undefined;
     const scenario = await readScenarioFile(path);
     const methods: SteeringMethod[] = choice === 'all' ? ['none', 'deadband', 'optimal'] : [choice];
-    const plans = methods.map((method) => ({
-      method,
-      plan: planSteering(scenario, { strategy: method, ...(timeScales ? { timeScales } : {}) }),
-    }));
+    const scales = timeScales ? { timeScales } : {};
+    const plans = methods.map((method) => {
+      const plan = planSteering(scenario, { strategy: method, ...scales });
+      // The schedule flown is the printed one (its JSON stamps, to the millisecond), in-process and in the workers.
+      return { method, plan, commands: steeringPlanToJson(plan, scales).commands };
+    });
     const script = workerScript();
     // Every strategy's plan is on the scenario's one grid.
     const gridEpochs = Math.max(...plans.map(({ plan }) => plan.predicted.t.length));
@@ -127,21 +131,25 @@ Exit status: 0 success, 2 unusable input.`,
     const pool = script && workers > 1 ? new SimulatePool(script, workers) : undefined;
     const results: OpenLoopRow[] = [];
     try {
-      for (const { method, plan } of plans) {
+      for (const { method, plan, commands } of plans) {
         const long = io.isTty && runs * plan.predicted.t.length > PROGRESS_THRESHOLD;
         const bar = long ? progressBar(io, `simulating ${method}`) : undefined;
         const summary = pool
           ? await simulateInPool(
               pool,
-              { scenario, plan, seed, runs, ...(leapSeconds ? { leapSeconds } : {}) },
+              { scenario, commands, seed, runs, ...(leapSeconds ? { leapSeconds } : {}) },
               bar?.update,
             )
-          : simulatePlan(scenario, plan, {
-              runs,
-              seed,
-              ...(bar ? { onProgress: bar.update } : {}),
-              ...(timeScales ? { timeScales } : {}),
-            });
+          : simulatePlan(
+              scenario,
+              { commands: steeringCommandsFromJson(commands, scales) },
+              {
+                runs,
+                seed,
+                ...(bar ? { onProgress: bar.update } : {}),
+                ...(timeScales ? { timeScales } : {}),
+              },
+            );
         bar?.finish();
         results.push({
           strategy: method,
@@ -228,13 +236,19 @@ function printOpenLoop(
 /** One strategy's runs flown by the pool and combined: the same summary as `simulatePlan` in-process. */
 async function simulateInPool(
   pool: SimulatePool,
-  job: { scenario: unknown; plan: SteeringPlan; seed: number; runs: number; leapSeconds?: LeapSecondTable },
+  job: {
+    scenario: unknown;
+    commands: SteeringCommandJson[];
+    seed: number;
+    runs: number;
+    leapSeconds?: LeapSecondTable;
+  },
   onProgress?: (done: number, total: number) => void,
 ): Promise<SimulationSummary> {
   const parts = await pool.run(
     {
       scenario: job.scenario,
-      commands: job.plan.commands,
+      commands: job.commands,
       seed: job.seed,
       runs: job.runs,
       ...(job.leapSeconds ? { leapSeconds: job.leapSeconds } : {}),

@@ -1,6 +1,6 @@
 /**
- * Input adapter of `<tauline-fleet-timeline>`: checks the joint plan (`planFleet()` of
- * `@tauline/sdk/fleet`) against the fleet document it was made for and turns both into columns in
+ * Input adapter of `<tauline-fleet-timeline>`: checks the joint plan's JSON form
+ * (`fleetPlanToJson(planFleet())` of `@tauline/sdk/fleet`) against the fleet document it was made for and turns both into columns in
  * seconds since the fleet epoch. Both are typed with the SDK's types (`import type`: no SDK code is
  * bundled for them) and checked by thin guards that read only the fields the element uses and name
  * the first one that is wrong (the document's in fleet-doc.ts). Pure, no DOM; never throws (problems
@@ -8,7 +8,13 @@
  *
  * @module
  */
-import type { FleetCommand, FleetDocument, FleetPlan, FleetSatellitePlan, StationSupport } from '@tauline/sdk/fleet';
+import type {
+  FleetCommandJson,
+  FleetDocument,
+  FleetPlanJson,
+  FleetSatellitePlanJson,
+  StationSupportJson,
+} from '@tauline/sdk/fleet';
 import type { Instant, TimeScales } from '@tauline/sdk/time';
 import {
   arr,
@@ -35,7 +41,7 @@ export interface FleetCommandView {
   step: number;
   station: string;
   reason: string;
-  source: FleetCommand;
+  source: FleetCommandJson;
 }
 
 /** One satellite row. */
@@ -68,7 +74,7 @@ export interface SatelliteView {
   /** Ids of the stations that uplink its commands or hold its supports, in station order. */
   stationsUsed: string[];
   supportCount: number;
-  source: FleetSatellitePlan;
+  source: FleetSatellitePlanJson;
 }
 
 /** One support of the station schedule, times in seconds since the epoch. */
@@ -80,7 +86,7 @@ export interface SupportView {
   satellite: number;
   start: number;
   end: number;
-  source: StationSupport;
+  source: StationSupportJson;
 }
 
 /** One station lane. */
@@ -134,7 +140,7 @@ function readCommand(field: string, raw: unknown, index: number, stamp: Stamp): 
     executeAt: stamp(`${field}.executeAt`, c.executeAt),
     station: str(`${field}.station`, c.station),
     reason: typeof c.reason === 'string' ? c.reason : '',
-    source: raw as FleetCommand,
+    source: raw as FleetCommandJson,
   };
 }
 
@@ -170,7 +176,7 @@ function readSatellite(field: string, raw: unknown, index: number, stamp: Stamp)
     reasonCode: typeof s.reasonCode === 'string' ? s.reasonCode : null,
     steered: numbers(`${field}.predicted.steered.phaseSeconds`, steered.phaseSeconds, t.length),
     sigma: numbers(`${field}.predicted.steered.sigmaSeconds`, steered.sigmaSeconds, t.length),
-    source: raw as FleetSatellitePlan,
+    source: raw as FleetSatellitePlanJson,
   };
 }
 
@@ -193,7 +199,7 @@ function readStations(
     const start = stamp(`${field}.start`, o.start),
       end = stamp(`${field}.end`, o.end);
     if (!(end > start)) fail(`${field}.end`, `after its start (${String(o.start)})`, o.end);
-    stations[station]!.supports.push({ index: k, station, satellite, start, end, source: raw as StationSupport });
+    stations[station]!.supports.push({ index: k, station, satellite, start, end, source: raw as StationSupportJson });
   });
   for (const s of stations) s.supports.sort((a, b) => a.start - b.start);
   return stations;
@@ -283,7 +289,7 @@ function readUnchecked(plan: unknown, fleetDoc: unknown, kept?: FleetDoc): Fleet
  * keeps it while only the plan changes), saves reading it again.
  */
 export function readFleetPlan(
-  plan: FleetPlan | unknown,
+  plan: FleetPlanJson | unknown,
   fleet: FleetDocument | unknown,
   kept?: FleetDoc,
 ): FleetReadResult {

@@ -4,7 +4,7 @@
  *
  * @module
  */
-import type { FleetSatellitePlan, StationSupport } from '@tauline/sdk/fleet';
+import type { FleetSatellitePlanJson, StationSupportJson } from '@tauline/sdk/fleet';
 
 /** Detail of `tauline-satellite-select`: the user picked a satellite row (row, table or keyboard). */
 export interface SatelliteSelectDetail {
@@ -16,7 +16,7 @@ export interface SatelliteSelectDetail {
   /** Not feasible, or its smallest margin below `risk-margin` × its tolerance. */
   atRisk: boolean;
   /** The satellite's plan object as given. */
-  satellite: FleetSatellitePlan;
+  satellite: FleetSatellitePlanJson;
 }
 
 /** Detail of `tauline-support-select`: the user picked a support in a station lane. */
@@ -26,7 +26,7 @@ export interface SupportSelectDetail {
   station: string;
   satellite: string;
   /** The support as given (ISO 8601 UTC start and end). */
-  support: StationSupport;
+  support: StationSupportJson;
 }
 
 declare module '../events.js' {

@@ -1,4 +1,4 @@
-import type { FleetDocument, FleetPlan } from '@tauline/sdk/fleet';
+import type { FleetDocument, FleetPlanJson } from '@tauline/sdk/fleet';
 import { html, nothing, type PropertyDeclarations, type PropertyValues, type TemplateResult } from 'lit';
 import { emit } from '../events.js';
 import { sizeCanvas } from '../internal/canvas.js';
@@ -55,7 +55,7 @@ interface Hover {
  * tolerance, get a ⚠ before their name, a hatched row and a hatched margin where it is low, and
  * say so in the table.
  *
- * Takes `planFleet()`'s output (`@tauline/sdk/fleet`) as `plan` and the fleet document it was made
+ * Takes the JSON form of `planFleet()`'s output (`fleetPlanToJson`, `@tauline/sdk/fleet`) as `plan` and the fleet document it was made
  * for as `fleet` (epoch, tolerances, stations, passes; read by a thin guard of the fields it uses).
  *
  * Keyboard (timeline focused): ↑ / ↓ move between satellites and station lanes; ← / → move
@@ -107,8 +107,8 @@ export class TaulineFleetTimeline extends PlotElement {
     _announcement: { state: true, attribute: false },
   };
 
-  /** The joint plan, `planFleet()`'s output. */
-  plan?: FleetPlan | null;
+  /** The joint plan's JSON form, `fleetPlanToJson(planFleet())` (as a server sends it). */
+  plan?: FleetPlanJson | null;
 
   /** The fleet document the plan was made for. */
   fleet?: FleetDocument | null;

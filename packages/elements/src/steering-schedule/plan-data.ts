@@ -1,5 +1,5 @@
 /**
- * Input adapter of `<tauline-steering-schedule>`: reads the planner's output (`planSteering()`
+ * Input adapter of `<tauline-steering-schedule>`: reads the plan's JSON form (`steeringPlanToJson(planSteering())`
  * in `@tauline/sdk`) and its scenario, after the contract guard (plan-guard.ts), into columns in
  * seconds since the scenario epoch, ready for scales and decimation. Every UTC stamp is read by the
  * SDK time module (`TimeScales.parseIso`, `Instant.secondsSince`, `TimeScales.toCalendar`): no
@@ -9,7 +9,7 @@
  * @module
  */
 
-import type { SteeringCommand, SteeringMetrics } from '@tauline/sdk/steering';
+import type { SteeringCommandJson, SteeringMetrics } from '@tauline/sdk/steering';
 import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant, type TimeScales } from '@tauline/sdk/time';
 import { describeFailure, guardPlan } from './plan-guard.js';
 
@@ -28,7 +28,7 @@ export interface SteeringCommandView {
   actuatorSteps: number;
   reason: string;
   /** The command object exactly as given. */
-  source: SteeringCommand;
+  source: SteeringCommandJson;
 }
 
 /** The scenario epoch on the SDK's time scales: chart times are elapsed SI seconds from it. */
@@ -123,7 +123,7 @@ export function chartTimeToUtcMs(clock: PlanClock, t: number): number {
   }
 }
 
-function readCommands(clock: PlanClock, commands: readonly SteeringCommand[]): SteeringCommandView[] {
+function readCommands(clock: PlanClock, commands: readonly SteeringCommandJson[]): SteeringCommandView[] {
   const out = commands.map(
     (c, index): SteeringCommandView => ({
       index,

@@ -1,14 +1,20 @@
 /**
  * Thin run-time guard of the steering data contract: the element's `plan` and `scenario` are typed
- * with the SDK's own types (`SteeringPlan`, `SteeringScenario`, `SteeringCommand`,
- * `ClockOffsetEstimate`; `import type`, so no SDK code is bundled for them), and this guard checks at
+ * with the SDK's own types (the plan's JSON form `SteeringPlanJson` from `steeringPlanToJson`, which a
+ * dashboard receives from its server; `SteeringScenario`, `SteeringCommandJson`, `ClockOffsetEstimate`;
+ * `import type`, so no SDK code is bundled for them), and this guard checks at
  * run time only the fields the element reads, stopping at the first wrong one and naming it
  * (dotted path, the value received, what was expected). Each field name appears once here, so a
  * rename in the SDK is a one-line change. Pure, no DOM; never throws out of {@link guardPlan}.
  *
  * @module
  */
-import type { ClockOffsetEstimate, SteeringCommand, SteeringPlan, SteeringScenario } from '@tauline/sdk/steering';
+import type {
+  ClockOffsetEstimate,
+  SteeringCommandJson,
+  SteeringPlanJson,
+  SteeringScenario,
+} from '@tauline/sdk/steering';
 
 /** A column of numbers: the SDK's `number[]`, or a typed array (used without copying, for large series). */
 export type NumberColumn = readonly number[] | Float64Array;
@@ -20,12 +26,12 @@ export interface PredictedColumns {
 }
 
 /**
- * What `plan` accepts: the SDK's {@link SteeringPlan}, whose prediction columns may also be
+ * What `plan` accepts: the SDK's {@link SteeringPlanJson} (`steeringPlanToJson(planSteering(...))`), whose prediction columns may also be
  * `Float64Array`s (a 10^6-point prediction is then drawn without a copy).
  */
 export type SteeringPlanInput =
-  | SteeringPlan
-  | (Omit<SteeringPlan, 'predicted'> & {
+  | SteeringPlanJson
+  | (Omit<SteeringPlanJson, 'predicted'> & {
       readonly predicted: {
         readonly t: NumberColumn;
         readonly steered: PredictedColumns;
@@ -98,8 +104,8 @@ function column(v: unknown, path: string, n?: number): Float64Array {
   return col;
 }
 
-function command(v: unknown, path: string): SteeringCommand {
-  const c = object(v, path, 'a SteeringCommand object');
+function command(v: unknown, path: string): SteeringCommandJson {
+  const c = object(v, path, 'a SteeringCommandJson object');
   string(c.uplinkAt, `${path}.uplinkAt`);
   string(c.executeAt, `${path}.executeAt`);
   const kind = c.kind;
@@ -108,7 +114,7 @@ function command(v: unknown, path: string): SteeringCommand {
   else number(c.phaseStepSeconds, `${path}.phaseStepSeconds`, 's');
   number(c.actuatorSteps, `${path}.actuatorSteps`, 'actuator steps');
   string(c.reason, `${path}.reason`);
-  return c as unknown as SteeringCommand;
+  return c as unknown as SteeringCommandJson;
 }
 
 /** The plan's columns, checked for type and length (values may still be non-finite: see `invalid`). */
@@ -125,16 +131,16 @@ export interface GuardedSteering {
   plan: SteeringPlanInput;
   scenario: SteeringScenario;
   columns: PlanColumns;
-  commands: readonly SteeringCommand[];
+  commands: readonly SteeringCommandJson[];
 }
 
-/** Checks `plan` (a `planSteering()` result) and `scenario` (its input) field by field, up to the first wrong one. */
+/** Checks `plan` (a `steeringPlanToJson(planSteering())` result) and `scenario` (its input) field by field, up to the first wrong one. */
 export function guardPlan(
   plan: unknown,
   scenario: unknown,
 ): { ok: true; value: GuardedSteering } | { ok: false; failure: ContractFailure } {
   try {
-    const p = object(plan, 'plan', 'the SteeringPlan returned by planSteering()');
+    const p = object(plan, 'plan', 'the SteeringPlanJson of steeringPlanToJson(planSteering())');
     if (typeof p.feasible !== 'boolean') fail('plan.feasible', p.feasible, 'true or false');
     if (p.reason !== undefined) string(p.reason, 'plan.reason');
     const commands = array(p.commands, 'plan.commands').map((c, k) => command(c, `plan.commands[${k}]`));
@@ -186,7 +192,7 @@ export function guardRevisions(
   superseded: unknown,
   estimates: unknown,
 ):
-  | { ok: true; superseded: readonly SteeringCommand[]; estimates: readonly ClockOffsetEstimate[] }
+  | { ok: true; superseded: readonly SteeringCommandJson[]; estimates: readonly ClockOffsetEstimate[] }
   | { ok: false; failure: ContractFailure } {
   try {
     const commands =

@@ -15,7 +15,7 @@ export interface RevisionView {
 }
 
 /**
- * Reads `superseded` (SteeringCommand objects with ISO 8601 `executeAt`, the SDK's
+ * Reads `superseded` (SteeringCommandJson objects with ISO 8601 `executeAt`, the SDK's
  * `revision.superseded`) and `estimates` (`ClockOffsetEstimate`s, as given to `replanSteering`)
  * against the scenario epoch; an error naming the first unreadable field (nothing is skipped).
  */

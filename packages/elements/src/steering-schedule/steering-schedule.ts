@@ -1,4 +1,4 @@
-import type { ClockOffsetEstimate, SteeringCommand, SteeringScenario } from '@tauline/sdk/steering';
+import type { ClockOffsetEstimate, SteeringCommandJson, SteeringScenario } from '@tauline/sdk/steering';
 import type { TimeScales } from '@tauline/sdk/time';
 import { html, nothing, type PropertyDeclarations, type PropertyValues, type TemplateResult } from 'lit';
 import { emit } from '../events.js';
@@ -60,7 +60,7 @@ const COLOR_EXPR: Record<Exclude<keyof ScheduleColors, 'font'>, string> = {
  * marks, with a synchronised table of the commands. Zoom and pan with the mouse wheel and drag,
  * touch (drag, pinch) or the keyboard; hover for a read-out with units.
  *
- * Takes the planner's output (`planSteering()` of `@tauline/sdk`) as `plan` and its input as
+ * Takes the plan's JSON form (`steeringPlanToJson(planSteering())` of `@tauline/sdk`) as `plan` and its input as
  * `scenario`. Data are immutable: assign new objects to re-render. Series are drawn through
  * per-pixel min/max decimation, so 10^6-point predictions stay fast. A revised plan's history can
  * be shown with `superseded` (commands the re-plan replaced, faded hollow markers) and `estimates`
@@ -112,14 +112,14 @@ export class TaulineSteeringSchedule extends PlotElement {
     _announcement: { state: true, attribute: false },
   };
 
-  /** The planner output (`planSteering()`'s `SteeringPlan`; prediction columns may be `Float64Array`s). */
+  /** The plan's JSON form (`steeringPlanToJson(planSteering())`, as a server sends it; prediction columns may be `Float64Array`s). */
   plan?: SteeringPlanInput | null;
 
   /** The scenario the plan was made for (`SteeringScenario`): epoch, `tolerance.phaseSeconds`, `contacts`, `maneuvers`. */
   scenario?: SteeringScenario | null;
 
   /** Commands a re-plan superseded (the SDK's `revision.superseded`), drawn faded on the steered line. */
-  superseded?: readonly SteeringCommand[] | null;
+  superseded?: readonly SteeringCommandJson[] | null;
 
   /** Clock-offset estimates (`ClockOffsetEstimate`s, as given to a re-plan), drawn as points with ±1σ bars. */
   estimates?: readonly ClockOffsetEstimate[] | null;

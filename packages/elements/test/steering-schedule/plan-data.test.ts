@@ -21,7 +21,9 @@ describe('guardPlan(plan, scenario) (the SDK steering contract)', () => {
       const g = guardPlan(p, s);
       return g.ok ? 'accepted' : describeFailure(g.failure);
     };
-    expect(failure(null)).to.equal('plan must be the SteeringPlan returned by planSteering(); received null');
+    expect(failure(null)).to.equal(
+      'plan must be the SteeringPlanJson of steeringPlanToJson(planSteering()); received null',
+    );
     expect(failure({ ...plan, feasible: 'yes' })).to.equal('plan.feasible must be true or false; received "yes"');
     const commands = plan.commands.map((c, k) => (k === 1 ? { ...c, executeAt: 299_400 } : c));
     expect(failure({ ...plan, commands })).to.equal('plan.commands[1].executeAt must be a string; received 299400');

@@ -5,11 +5,12 @@
  * @internal
  */
 
+import { at } from '../internal/checked.js';
 import { normalCdf } from '../internal/special-functions.js';
 import { planSteering, type SteeringPlan } from '../steering/plan.js';
 import { formatUtcStamp } from '../steering/utc-stamps.js';
 import type { Seconds } from '../units.js';
-import type { NormalizedFleet } from './document.js';
+import type { NormalizedFleet, NormalizedPass } from './document.js';
 
 /** One support: satellite `sat` served by station `station` over [start, end] (seconds since the epoch). */
 export interface Support {
@@ -35,7 +36,7 @@ export function toMillisecond(t: Seconds): Seconds {
 /** True when two supports at the same station are closer than the station's setup time (or overlap). */
 export function stationConflict(fleet: NormalizedFleet, a: Support, b: Support): boolean {
   if (a.station !== b.station) return false;
-  const setup = fleet.stations[a.station]!.setup;
+  const setup = at(fleet.stations, a.station, 'stations').setup;
   return !(b.start >= a.end + setup - 1e-9 || a.start >= b.end + setup - 1e-9);
 }
 
@@ -58,8 +59,8 @@ export function compatible(fleet: NormalizedFleet, s: Support, others: readonly 
  * station's setup time or overlap another support of the same satellite.
  */
 export function freeStarts(fleet: NormalizedFleet, sat: number, pass: number, others: readonly Support[]): Interval[] {
-  const p = fleet.satellites[sat]!.passes[pass]!;
-  const { setup, support } = fleet.stations[p.station]!;
+  const p = passOf(fleet, sat, pass);
+  const { setup, support } = at(fleet.stations, p.station, 'stations');
   if (others.some((o) => o.sat === sat && o.pass === pass)) return [];
   const forbidden: Interval[] = [];
   for (const o of others) {
@@ -82,10 +83,15 @@ export function freeStarts(fleet: NormalizedFleet, sat: number, pass: number, ot
   return free.filter((iv) => iv.hi >= iv.lo);
 }
 
+/** Pass `pass` of satellite `sat` (checked reads: both indices are computed by the allocation). */
+function passOf(fleet: NormalizedFleet, sat: number, pass: number): NormalizedPass {
+  return at(at(fleet.satellites, sat, 'satellites').passes, pass, 'passes');
+}
+
 /** A support starting at `start` in pass `pass` of satellite `sat`. */
 export function supportAt(fleet: NormalizedFleet, sat: number, pass: number, start: Seconds): Support {
-  const p = fleet.satellites[sat]!.passes[pass]!;
-  return { station: p.station, sat, pass, start, end: start + fleet.stations[p.station]!.support };
+  const p = passOf(fleet, sat, pass);
+  return { station: p.station, sat, pass, start, end: start + at(fleet.stations, p.station, 'stations').support };
 }
 
 /** Prints seconds since the fleet epoch as an ISO 8601 UTC stamp. */
@@ -104,7 +110,7 @@ export class SatellitePlanner {
     let plan = this.cache.get(key);
     if (!plan) {
       const scenario = {
-        ...this.fleet.satellites[sat]!.scenario,
+        ...at(this.fleet.satellites, sat, 'satellites').scenario,
         contacts: own.map((s) => ({ start: fleetIso(this.fleet, s.start), end: fleetIso(this.fleet, s.end) })),
       };
       plan = planSteering(scenario, { timeScales: this.fleet.timeScales });
@@ -121,18 +127,18 @@ export class SatellitePlanner {
  */
 export function firstViolation(fleet: NormalizedFleet, sat: number, plan: SteeringPlan): Seconds {
   if (plan.feasible) return Infinity;
-  const norm = fleet.satellites[sat]!.norm;
+  const norm = at(fleet.satellites, sat, 'satellites').norm;
   const { t, steered } = plan.predicted;
-  for (let k = 0; k < t.length; k++) {
-    const m = steered.phaseSeconds[k]!;
-    const sigma = steered.sigmaSeconds[k]!;
+  for (const [k, tk] of t.entries()) {
+    const m = at(steered.phaseSeconds, k, 'phaseSeconds');
+    const sigma = at(steered.sigmaSeconds, k, 'sigmaSeconds');
     const p =
       sigma > 0
         ? normalCdf((norm.bound - m) / sigma) - normalCdf((-norm.bound - m) / sigma)
         : Math.abs(m) <= norm.bound
           ? 1
           : 0;
-    if (p < norm.probability) return t[k]!;
+    if (p < norm.probability) return tk;
   }
   // Infeasible only just before a phase step (between grid epochs): the last grid epoch bounds it.
   return t[t.length - 1] ?? fleet.horizon;

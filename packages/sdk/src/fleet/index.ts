@@ -26,3 +26,11 @@ export {
   planFleet,
   type StationSupport,
 } from './plan.js';
+export {
+  type ComputedPassReportJson,
+  type FleetCommandJson,
+  type FleetPlanJson,
+  type FleetSatellitePlanJson,
+  fleetPlanToJson,
+  type StationSupportJson,
+} from './plan-json.js';

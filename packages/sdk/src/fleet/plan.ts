@@ -5,6 +5,7 @@
  */
 
 import { InvalidArgumentError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { ns } from '../steering/constraints.js';
 import {
   type InfeasibilityCode,
@@ -14,6 +15,7 @@ import {
   type SteeringPlan,
 } from '../steering/plan.js';
 import type { TimeScaleOptions } from '../steering/utc-stamps.js';
+import type { Instant } from '../time/instant.js';
 import type { Seconds } from '../units.js';
 import {
   firstViolation,
@@ -40,15 +42,17 @@ export interface FleetCommand extends SteeringCommand {
  */
 export type FleetInfeasibilityCode = InfeasibilityCode | 'too-few-passes' | 'station-overbooked';
 
-/** A pass computed from a satellite's orbit (ISO 8601 UTC stamps, rounded inwards to the millisecond). */
+/** A pass computed from a satellite's orbit (the JSON form prints its instants to the millisecond). */
 export interface ComputedPassReport {
   station: string;
-  start: string;
-  end: string;
+  /** When the satellite rises above the station's mask (or the epoch, when clipped at the start). */
+  start: Instant;
+  /** When it sets below the mask (or the end of the horizon, when clipped at the end). */
+  end: Instant;
   /** Highest elevation above the station's horizon during the pass, in radians. */
   maxElevationRadians: number;
-  /** When the highest elevation occurs (ISO 8601 UTC). */
-  maxElevationAt: string;
+  /** When the highest elevation occurs. */
+  maxElevationAt: Instant;
   /** True when the pass began before the epoch (cut by the horizon start). */
   clippedAtStart: boolean;
   /** True when the pass goes on after the end of the horizon. */
@@ -65,7 +69,7 @@ export interface FleetSatellitePlan {
   reason?: string;
   reasonCode?: FleetInfeasibilityCode;
   commands: FleetCommand[];
-  /** As in a steering plan: grid (seconds since the epoch), steered and unsteered mean and 1σ. */
+  /** As in a steering plan: grid (elapsed SI seconds since the fleet plan's `epoch`), steered and unsteered mean and 1σ. */
   predicted: SteeringPlan['predicted'];
   metrics: SteeringMetrics;
   /**
@@ -75,16 +79,23 @@ export interface FleetSatellitePlan {
   computedPasses?: ComputedPassReport[];
 }
 
-/** One support in the station schedule (ISO 8601 UTC). */
+/** One support in the station schedule. */
 export interface StationSupport {
   station: string;
   satellite: string;
-  start: string;
-  end: string;
+  /** When the support starts (a whole millisecond of UTC after the epoch). */
+  start: Instant;
+  /** When it ends (start + the station's supportSeconds). */
+  end: Instant;
 }
 
-/** The joint plan: plain JSON-serialisable data. */
+/**
+ * The joint plan. Absolute times are {@link Instant}s; each satellite's relative times are elapsed
+ * SI seconds since `epoch`. Print or send it with `fleetPlanToJson` (ISO 8601 UTC stamps).
+ */
 export interface FleetPlan {
+  /** The fleet epoch: the origin of every relative time of the plan (every satellite's grid). */
+  epoch: Instant;
   /** True when every satellite is feasible. */
   feasible: boolean;
   /** Which satellites cannot be held (present only when `feasible` is false). */
@@ -122,10 +133,10 @@ function bestSlot(
   supports: readonly Support[],
 ): Support | undefined {
   let best: Support | undefined;
-  const passes = fleet.satellites[sat]!.passes;
-  for (let p = 0; p < passes.length; p++) {
-    if (passes[p]!.start >= need) break;
-    const support = fleet.stations[passes[p]!.station]!.support;
+  const passes = at(fleet.satellites, sat, 'satellites').passes;
+  for (const [p, pass] of passes.entries()) {
+    if (pass.start >= need) break;
+    const support = at(fleet.stations, pass.station, 'stations').support;
     for (const iv of freeStarts(fleet, sat, p, supports)) {
       if (iv.lo >= need) continue;
       const start = Math.min(iv.hi, Math.max(iv.lo, Math.floor((need - support) * 1000) / 1000));
@@ -147,16 +158,17 @@ function repair(
   sat: number,
   need: Seconds,
 ): Support | undefined {
-  const passes = fleet.satellites[sat]!.passes;
-  for (let p = 0; p < passes.length && passes[p]!.start < need; p++) {
+  const passes = at(fleet.satellites, sat, 'satellites').passes;
+  for (const [p, pass] of passes.entries()) {
+    if (pass.start >= need) break;
     if (a.supports.some((s) => s.sat === sat && s.pass === p)) continue;
-    const probe = supportAt(fleet, sat, p, passes[p]!.start);
-    const widened = { ...probe, end: Math.min(passes[p]!.end, need) };
+    const probe = supportAt(fleet, sat, p, pass.start);
+    const widened = { ...probe, end: Math.min(pass.end, need) };
     const blockers = a.supports.filter((o) => o.sat !== sat && stationConflict(fleet, widened, o));
     const fromBlocked = blockers.filter((o) => a.blocked[o.sat]);
     if (fromBlocked.length > 0) {
       const rest = a.supports.filter((o) => !fromBlocked.includes(o));
-      const slot = bestSlot(fleet, sat, Math.min(need, passes[p]!.end + 1e-3), rest);
+      const slot = bestSlot(fleet, sat, Math.min(need, pass.end + 1e-3), rest);
       if (slot && slot.pass === p) {
         a.supports = rest;
         for (const j of new Set(fromBlocked.map((o) => o.sat))) evaluate(fleet, planner, a, j);
@@ -172,7 +184,7 @@ function repair(
           const trial = [...rest, moved];
           const slot = bestSlot(fleet, sat, need, trial);
           if (!slot || slot.pass !== p) continue;
-          const before = a.need[b.sat]!;
+          const before = at(a.need, b.sat, 'need');
           const after = firstViolation(fleet, b.sat, planner.plan(b.sat, trial));
           if (after < before) continue;
           a.supports = trial;
@@ -187,8 +199,8 @@ function repair(
 
 /** Says why `sat` cannot get a support before `need`. */
 function explain(fleet: NormalizedFleet, a: Allocation, sat: number, need: Seconds): Blocked {
-  const s = fleet.satellites[sat]!;
-  const plan = a.plans[sat]!;
+  const s = at(fleet.satellites, sat, 'satellites');
+  const plan = at(a.plans, sat, 'plans');
   const when = `${fleetIso(fleet, need)}, when its predicted offset leaves ±${ns(s.norm.bound)} at ${s.norm.probability}`;
   const before = s.passes.map((p, k) => ({ p, k })).filter(({ p }) => p.start < need);
   if (before.length === 0) {
@@ -202,7 +214,7 @@ function explain(fleet: NormalizedFleet, a: Allocation, sat: number, need: Secon
     };
   }
   const busy = unused.map(({ p }) => {
-    const station = fleet.stations[p.station]!;
+    const station = at(fleet.stations, p.station, 'stations');
     const holders = a.supports
       .filter(
         (o) =>
@@ -211,7 +223,9 @@ function explain(fleet: NormalizedFleet, a: Allocation, sat: number, need: Secon
           o.end + station.setup > p.start &&
           o.start - station.setup < p.end,
       )
-      .map((o) => `${fleet.satellites[o.sat]!.id} ${fleetIso(fleet, o.start)}–${fleetIso(fleet, o.end)}`);
+      .map(
+        (o) => `${at(fleet.satellites, o.sat, 'satellites').id} ${fleetIso(fleet, o.start)}–${fleetIso(fleet, o.end)}`,
+      );
     return `station ${station.id} overbooked ${fleetIso(fleet, p.start)}–${fleetIso(fleet, p.end)} (held by ${holders.join(', ') || 'its own other supports'})`;
   });
   return { code: 'station-overbooked', text: `no free support before ${when}: ${busy.join('; ')}` };
@@ -225,16 +239,19 @@ function greedy(fleet: NormalizedFleet, planner: SatellitePlanner): Allocation {
   if (fleet.strategy.method === 'none') return a;
   for (;;) {
     let sat = -1;
-    for (let i = 0; i < n; i++) {
-      if (!a.blocked[i] && Number.isFinite(a.need[i]!) && (sat < 0 || a.need[i]! < a.need[sat]!)) sat = i;
+    let need = Infinity;
+    for (const [i, t] of a.need.entries()) {
+      if (!a.blocked[i] && Number.isFinite(t) && (sat < 0 || t < need)) {
+        sat = i;
+        need = t;
+      }
     }
     if (sat < 0) return a;
-    const code = a.plans[sat]!.reasonCode;
+    const { reasonCode: code, reason } = at(a.plans, sat, 'plans');
     if (code === 'uncertainty' || code === 'outside-at-epoch') {
-      a.blocked[sat] = { code, text: a.plans[sat]!.reason ?? code };
+      a.blocked[sat] = { code, text: reason ?? code };
       continue;
     }
-    const need = a.need[sat]!;
     const slot = bestSlot(fleet, sat, need, a.supports) ?? repair(fleet, planner, a, sat, need);
     if (!slot) {
       a.blocked[sat] = explain(fleet, a, sat, need);
@@ -245,17 +262,22 @@ function greedy(fleet: NormalizedFleet, planner: SatellitePlanner): Allocation {
   }
 }
 
+/** The id of station `index` (a checked read: the index comes from a support or a pass). */
+function stationId(fleet: NormalizedFleet, index: number): string {
+  return at(fleet.stations, index, 'stations').id;
+}
+
 /** The public plan from an allocation. */
 function toFleetPlan(fleet: NormalizedFleet, a: Allocation): FleetPlan {
   const satellites = fleet.satellites.map((s, i): FleetSatellitePlan => {
-    const plan = a.plans[i]!;
+    const plan = at(a.plans, i, 'plans');
     const own = a.supports.filter((o) => o.sat === i);
     const commands = plan.commands.map((c): FleetCommand => {
-      const t = fleet.timeScales.parseIso(c.uplinkAt, 'UTC').secondsSince(fleet.epoch);
+      const t = c.uplinkAt.secondsSince(fleet.epoch);
       const support = own.find((o) => t >= o.start - 1e-3 && t <= o.end + 1e-3);
-      if (!support) throw new Error(`internal: command of ${s.id} at ${c.uplinkAt} outside its supports`);
+      if (!support) throw new Error(`internal: command of ${s.id} at ${fleetIso(fleet, t)} outside its supports`);
       const { reason, ...rest } = c;
-      return { ...rest, station: fleet.stations[support.station]!.id, reason };
+      return { ...rest, station: stationId(fleet, support.station), reason };
     });
     const out: FleetSatellitePlan = {
       id: s.id,
@@ -267,11 +289,11 @@ function toFleetPlan(fleet: NormalizedFleet, a: Allocation): FleetPlan {
     if (s.computedPasses) {
       out.computedPasses = s.computedPasses.map(
         (p): ComputedPassReport => ({
-          station: fleet.stations[p.station]!.id,
-          start: fleetIso(fleet, p.start),
-          end: fleetIso(fleet, p.end),
+          station: stationId(fleet, p.station),
+          start: fleet.epoch.plus(p.start),
+          end: fleet.epoch.plus(p.end),
           maxElevationRadians: p.maxElevation,
-          maxElevationAt: fleetIso(fleet, p.maxElevationAt),
+          maxElevationAt: fleet.epoch.plus(p.maxElevationAt),
           clippedAtStart: p.clippedAtStart,
           clippedAtEnd: p.clippedAtEnd,
           usable: p.usable,
@@ -291,14 +313,22 @@ function toFleetPlan(fleet: NormalizedFleet, a: Allocation): FleetPlan {
   });
   const stationSchedule = [...a.supports]
     .sort((x, y) => x.station - y.station || x.start - y.start)
-    .map((o) => ({
-      station: fleet.stations[o.station]!.id,
-      satellite: fleet.satellites[o.sat]!.id,
-      start: fleetIso(fleet, o.start),
-      end: fleetIso(fleet, o.end),
-    }));
+    .map(
+      (o): StationSupport => ({
+        station: stationId(fleet, o.station),
+        satellite: at(fleet.satellites, o.sat, 'satellites').id,
+        start: fleet.epoch.plus(o.start),
+        end: fleet.epoch.plus(o.end),
+      }),
+    );
   const bad = satellites.filter((s) => !s.feasible);
-  const plan: FleetPlan = { feasible: bad.length === 0, satellites, stationSchedule, caution: STEERING_CAUTION };
+  const plan: FleetPlan = {
+    epoch: fleet.epoch,
+    feasible: bad.length === 0,
+    satellites,
+    stationSchedule,
+    caution: STEERING_CAUTION,
+  };
   if (bad.length > 0) {
     plan.reason =
       `${bad.length} of ${satellites.length} satellites cannot be held: ` +
@@ -345,7 +375,8 @@ export type FleetPlanOptions = TimeScaleOptions;
  *
  * @param doc      A fleet document (see `FleetDocument` and schema/fleet.schema.json).
  * @param options  `timeScales`: the leap-second table for the UTC stamps.
- * @returns A JSON-serialisable plan; `feasible: false` names the satellites that cannot be held and why.
+ * @returns The plan (Instants for absolute times; `fleetPlanToJson` gives its JSON form); `feasible: false`
+ *   names the satellites that cannot be held and why.
  * @throws {InvalidArgumentError} naming the dotted field path of any invalid field.
  * @throws {OutOfDomainError} for a stamp or horizon beyond the leap-second table.
  */

@@ -1,18 +1,33 @@
 /**
  * Evaluating a given schedule: its expected cost and its predicted offset. Both accept the
- * public plan commands (ISO 8601 times), so an edited schedule can be re-checked.
+ * public plan commands (Instant times; read JSON commands with `steeringCommandsFromJson`), so an
+ * edited schedule can be re-checked.
  *
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
 import { requireFinite, requireInteger, requireObject } from '../internal/validate.js';
+import { Instant } from '../time/instant.js';
+import type { Seconds } from '../units.js';
 import { type CostBreakdown, expectedCost } from './cost.js';
 import type { SteeringCommand, SteeringPlan } from './plan.js';
 import { checkTolerance, type InternalCommand, predictedSeries, stateJumps } from './predict.js';
 import { type NormalizedScenario, validateScenario } from './scenario.js';
-import { parseUtcStamp, type TimeScaleOptions } from './utc-stamps.js';
+import type { TimeScaleOptions } from './utc-stamps.js';
 
-/** Converts public commands to scenario time, checking each field. */
+/** Seconds from the scenario epoch to a command time, which must be an Instant. */
+function commandTime(norm: NormalizedScenario, field: string, value: unknown): Seconds {
+  if (!(value instanceof Instant)) {
+    throw new InvalidArgumentError(
+      field,
+      value,
+      'an Instant (a plan command object; read ISO 8601 JSON commands with steeringCommandsFromJson)',
+    );
+  }
+  return value.secondsSince(norm.epoch);
+}
+
+/** Converts public commands to seconds since the scenario epoch, checking each field. */
 export function commandsToInternal(
   norm: NormalizedScenario,
   commands: readonly SteeringCommand[],
@@ -22,8 +37,8 @@ export function commandsToInternal(
   return commands.map((c, i) => {
     const f = `${field}[${i}]`;
     if (typeof c !== 'object' || c === null) throw new InvalidArgumentError(f, c, 'a steering command object');
-    const uplinkAt = parseUtcStamp(norm.timeScales, `${f}.uplinkAt`, c.uplinkAt).secondsSince(norm.epoch);
-    const executeAt = parseUtcStamp(norm.timeScales, `${f}.executeAt`, c.executeAt).secondsSince(norm.epoch);
+    const uplinkAt = commandTime(norm, `${f}.uplinkAt`, c.uplinkAt);
+    const executeAt = commandTime(norm, `${f}.executeAt`, c.executeAt);
     const steps = requireInteger(`${f}.actuatorSteps`, c.actuatorSteps);
     const amountField =
       c.kind === 'frequency' ? 'fractionalFrequencyStep' : c.kind === 'phase' ? 'phaseStepSeconds' : undefined;
@@ -58,6 +73,7 @@ export function steeringCost(
 
 /** Predicted offset of a schedule (see `predictSteering`). */
 export interface SteeringPrediction {
+  /** Grid, in elapsed SI seconds since the scenario epoch. */
   t: number[];
   steered: { phaseSeconds: number[]; sigmaSeconds: number[] };
   unsteered: { phaseSeconds: number[]; sigmaSeconds: number[] };
@@ -71,7 +87,8 @@ export interface SteeringPrediction {
  * σ(t)² = φ(t)P0φ(t)ᵀ + q1 t + q2 t³/3 + q3 t⁵/20 (Zucca & Tavella 2005; physics-refs §11).
  *
  * @param scenario  The scenario (validated here).
- * @param commands  The schedule (ISO 8601 UTC stamps, as in a plan).
+ * @param commands  The schedule (command objects with Instant times, as in a plan; JSON commands
+ *   through `steeringCommandsFromJson`).
  * @param options   `timeScales`: the leap-second table for the UTC stamps (default: bundled, valid until 2027-06-28).
  * @throws {InvalidArgumentError} for an invalid scenario or command field.
  * @throws {OutOfDomainError} for stamps outside the leap-second table (see `validateScenario`).

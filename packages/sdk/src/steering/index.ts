@@ -36,6 +36,15 @@ export {
   type SteeringPlan,
 } from './plan.js';
 export {
+  type CommandsFromJsonOptions,
+  type PlanRevisionJson,
+  type RevisedSteeringPlanJson,
+  type SteeringCommandJson,
+  type SteeringPlanJson,
+  steeringCommandsFromJson,
+  steeringPlanToJson,
+} from './plan-json.js';
+export {
   type ClockOffsetEstimate,
   createReplanner,
   type PlanRevision,

@@ -6,6 +6,7 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { createReseedableRandom, MAX_SEED } from '../internal/random.js';
 import { requireInteger, requireObject } from '../internal/validate.js';
 import { choleskyPsd3, type Matrix3, processNoise } from './clock-math.js';
@@ -179,12 +180,13 @@ function stepTable(norm: NormalizedScenario, commands: ReturnType<typeof command
     // Jumps outside [0, horizon] have no step (as before: only timeline epochs are flown).
     const i = binarySearch(timeline, j.t);
     if (i < 0) continue;
-    table.jumpDx[i] = table.jumpDx[i]! + j.dx;
-    table.jumpDy[i] = table.jumpDy[i]! + j.dy;
+    table.jumpDx[i] = at(table.jumpDx, i, 'jumpDx') + j.dx;
+    table.jumpDy[i] = at(table.jumpDy, i, 'jumpDy') + j.dy;
   }
-  for (let i = 0; i < count; i++) {
-    const t = timeline[i]!;
-    const delta = i === 0 ? 0 : t - timeline[i - 1]!;
+  let previous: number | undefined;
+  for (const [i, t] of timeline.entries()) {
+    const delta = previous === undefined ? 0 : t - previous;
+    previous = t;
     table.delta[i] = delta;
     table.onGrid[i] = gridSet.has(t) ? 1 : 0;
     if (delta > 0) {
@@ -205,7 +207,7 @@ function binarySearch(a: readonly number[], t: number): number {
   let hi = a.length - 1;
   while (lo <= hi) {
     const mid = (lo + hi) >> 1;
-    const v = a[mid]!;
+    const v = at(a, mid, 'timeline');
     if (v === t) return mid;
     if (v < t) lo = mid + 1;
     else hi = mid - 1;
@@ -213,7 +215,10 @@ function binarySearch(a: readonly number[], t: number): number {
   return -1;
 }
 
-/** The hot loop: flies the part's runs through the step table, one reused generator, no allocation per run or step. */
+/**
+ * The hot loop: flies the part's runs through the step table, one reused generator, no allocation per run or step.
+ * Indices bounded by count = st.count (every array of the table has count or 6·count entries) and the grid count.
+ */
 function flyRuns(
   norm: NormalizedScenario,
   st: StepTable,
@@ -285,7 +290,7 @@ export function combineMonteCarloParts(parts: readonly MonteCarloPart[]): Simula
     requireMonteCarloPart(`parts[${i}]`, p);
   });
   const sorted = [...parts].sort((a, c) => a.firstRun - c.firstRun);
-  const first = sorted[0]!;
+  const first = at(sorted, 0, 'parts');
   const gridCount = first.insideByEpoch.length;
   let runs = 0;
   for (const [i, p] of sorted.entries()) {
@@ -309,17 +314,18 @@ export function combineMonteCarloParts(parts: readonly MonteCarloPart[]): Simula
   let alwaysInside = 0;
   let worst = 0;
   for (const p of sorted) {
-    for (let g = 0; g < gridCount; g++) inside[g] = inside[g]! + p.insideByEpoch[g]!;
+    // Every part's insideByEpoch has gridCount entries (checked above).
+    for (const [g, count] of p.insideByEpoch.entries()) inside[g] = at(inside, g, 'inside') + count;
     worstByRun.set(p.worstByRunSeconds, p.firstRun);
-    for (let k = 0; k < p.runCount; k++) alwaysInside += p.alwaysInsideByRun[k]!;
+    for (const flag of p.alwaysInsideByRun) alwaysInside += flag;
   }
   let insideTotal = 0;
   let minEpoch = 1;
-  for (let g = 0; g < gridCount; g++) {
-    insideTotal += inside[g]!;
-    minEpoch = Math.min(minEpoch, inside[g]! / runs);
+  for (const count of inside) {
+    insideTotal += count;
+    minEpoch = Math.min(minEpoch, count / runs);
   }
-  for (let r = 0; r < runs; r++) if (worstByRun[r]! > worst) worst = worstByRun[r]!;
+  for (const w of worstByRun) if (w > worst) worst = w;
   worstByRun.sort();
   return {
     runs,
@@ -329,7 +335,7 @@ export function combineMonteCarloParts(parts: readonly MonteCarloPart[]): Simula
     wholeHorizonProbability: alwaysInside / runs,
     minEpochProbability: minEpoch,
     worstExcursionSeconds: worst,
-    worstExcursionP95Seconds: worstByRun[Math.min(runs - 1, Math.ceil(0.95 * runs) - 1)]!,
+    worstExcursionP95Seconds: at(worstByRun, Math.min(runs - 1, Math.ceil(0.95 * runs) - 1), 'worstByRun'),
   };
 }
 

@@ -5,6 +5,8 @@
  */
 
 import { InvalidArgumentError } from '../errors.js';
+import { at } from '../internal/checked.js';
+import type { Instant } from '../time/instant.js';
 import type { Dimensionless, Seconds } from '../units.js';
 import { describeDuration, executionIntervals, feedForwardManeuvers, isoAt, ns } from './constraints.js';
 import { expectedCost } from './cost.js';
@@ -30,12 +32,15 @@ export const STEERING_CAUTION =
 /** The planning methods. `none` leaves the clock unsteered (a baseline). */
 export type SteeringMethod = 'deadband' | 'optimal' | 'none';
 
-/** One command of a plan. Times are ISO 8601 UTC (`...Z`, to the millisecond; `:60` inside a leap second). */
+/**
+ * One command of a plan. Its times are {@link Instant}s (split precision, ≈ 1e-15 s); the JSON form
+ * (`SteeringCommandJson`, from `steeringPlanToJson`) prints them as ISO 8601 UTC.
+ */
 export interface SteeringCommand {
   /** When the command is sent (inside a contact window). */
-  uplinkAt: string;
+  uplinkAt: Instant;
   /** When the satellite executes it (≥ uplinkAt, ≤ uplinkAt + maxTimeTagSeconds). */
-  executeAt: string;
+  executeAt: Instant;
   kind: 'frequency' | 'phase';
   /** Fractional frequency step (dimensionless), for `frequency` commands. */
   fractionalFrequencyStep?: Dimensionless;
@@ -72,8 +77,14 @@ export type InfeasibilityCode =
   | 'unsteered'
   | 'planner';
 
-/** A steering plan: plain JSON-serialisable data. */
+/**
+ * A steering plan. Absolute times are {@link Instant}s; relative times (`predicted.t`,
+ * `metrics.settledAfterSeconds`) are elapsed SI seconds since `epoch`. Print or send it with
+ * `steeringPlanToJson` (ISO 8601 UTC stamps, the CLI's and the elements' form).
+ */
 export interface SteeringPlan {
+  /** The scenario epoch: the origin of every relative time of the plan. */
+  epoch: Instant;
   /**
    * True when the per-epoch probability P(|offset| ≤ tolerance) ≥ tolerance.probability at every
    * checked epoch of the horizon (the grid and just before each phase step).
@@ -85,7 +96,7 @@ export interface SteeringPlan {
   reasonCode?: InfeasibilityCode;
   commands: SteeringCommand[];
   predicted: {
-    /** Seconds since the scenario epoch. */
+    /** Grid, in elapsed SI seconds since `epoch`. */
     t: number[];
     steered: PredictedSeries;
     unsteered: PredictedSeries;
@@ -110,7 +121,7 @@ export interface SteeringMetrics {
    */
   probabilityInTolerance: number;
   /**
-   * Seconds after the epoch from which every checked epoch to the end of the horizon meets the
+   * Elapsed SI seconds after `epoch` from which every checked epoch to the end of the horizon meets the
    * criterion (0 when the whole plan does); null when the last epoch fails. Tells a plan that
    * is infeasible only while it steers a large initial error out from one that never settles.
    */
@@ -150,9 +161,8 @@ function diagnose(
   // 1. Uncertainty alone: no schedule can help once z·σ ≥ b.
   const times = gridTimes(norm);
   const sigmas = phaseSigmaAt(norm, times);
-  for (let i = 0; i < times.length; i++) {
-    const t = times[i]!;
-    const sigma = sigmas[i]!;
+  for (const [i, t] of times.entries()) {
+    const sigma = at(sigmas, i, 'sigmas');
     if (norm.z * sigma >= bound) {
       return {
         code: 'uncertainty',
@@ -191,8 +201,8 @@ function diagnose(
 
 function toPublic(norm: NormalizedScenario, c: InternalCommand): SteeringCommand {
   return {
-    uplinkAt: isoAt(norm, c.uplinkAt),
-    executeAt: isoAt(norm, c.executeAt),
+    uplinkAt: norm.epoch.plus(c.uplinkAt),
+    executeAt: norm.epoch.plus(c.executeAt),
     kind: c.kind,
     ...(c.kind === 'frequency' ? { fractionalFrequencyStep: c.amount } : { phaseStepSeconds: c.amount }),
     actuatorSteps: c.steps,
@@ -216,6 +226,7 @@ export function buildPlan(
     worst = Math.max(worst, Math.abs(m));
   });
   const plan: SteeringPlan = {
+    epoch: norm.epoch,
     feasible: check.ok,
     commands: commands.map((c) => toPublic(norm, c)),
     predicted,
@@ -234,7 +245,8 @@ export function buildPlan(
     caution: STEERING_CAUTION,
   };
   if (!check.ok) {
-    const why = diagnose(norm, method, commands, result.limits, check.firstViolation!);
+    if (!check.firstViolation) throw new RangeError('internal: an infeasible check without its first violation');
+    const why = diagnose(norm, method, commands, result.limits, check.firstViolation);
     const settled =
       check.settledFrom !== undefined && method !== 'none'
         ? ` The plan holds the tolerance from ${isoAt(norm, check.settledFrom)} (${describeDuration(check.settledFrom)} after the epoch) to the end of the horizon.`
@@ -269,7 +281,8 @@ export function buildPlan(
  *
  * @param scenario  A scenario object (see `SteeringScenario` and schema/scenario.schema.json).
  * @param options   `strategy` overrides the scenario's method; `timeScales` gives the leap-second table.
- * @returns A JSON-serialisable plan; `feasible: false` with a `reason` rather than a violating plan.
+ * @returns The plan (`epoch` and command times as Instants; `steeringPlanToJson` gives its JSON form);
+ *   `feasible: false` with a `reason` rather than a violating plan.
  * @throws {InvalidArgumentError} naming the field path for any invalid scenario field.
  * @throws {OutOfDomainError} for a stamp or horizon beyond the leap-second table; the message says how to pass a current table.
  * @see P. Koppang & R. Leland, IEEE Trans. UFFC 46(3) 517–522 (1999) [V2]; Metrologia 56 025007 (2019) [V2].

@@ -9,6 +9,7 @@
 
 import { ClockKalmanFilter } from '../clock-model/kalman.js';
 import { InvalidArgumentError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { requireFinite, requireNonNegative, requirePositive } from '../internal/validate.js';
 import type { Seconds } from '../units.js';
 import { add3, type Matrix3, mul3, processNoise, propagateMean, transition, transpose3 } from './clock-math.js';
@@ -39,7 +40,7 @@ export interface ClockOffsetEstimate {
 
 /** What a revised plan says about its revision. */
 export interface PlanRevision {
-  /** When the plan was revised, in seconds since the scenario epoch; `predicted.t` starts here. */
+  /** When the plan was revised, in elapsed SI seconds since the plan's `epoch` (the scenario epoch); `predicted.t` starts here. */
   nowSeconds: Seconds;
   /** Number of estimates the filter used. */
   estimatesUsed: number;
@@ -57,7 +58,7 @@ export interface PlanRevision {
   superseded: SteeringCommand[];
 }
 
-/** A plan revised by {@link replanSteering}. */
+/** A plan revised by {@link replanSteering}; its `epoch` is the scenario epoch (JSON: `steeringPlanToJson`). */
 export interface RevisedSteeringPlan extends SteeringPlan {
   revision: PlanRevision;
 }
@@ -205,10 +206,9 @@ export function filterTo(
   });
   let k = 0;
   const applyUntil = (t: number, inclusive: boolean): void => {
-    while (k < jumps.length && (jumps[k]!.t < t || (inclusive && jumps[k]!.t === t))) {
-      filter.predict(jumps[k]!.t);
-      filter.applyStep({ phase: jumps[k]!.dx, frequency: jumps[k]!.dy });
-      k++;
+    for (let jump = jumps[k]; jump && (jump.t < t || (inclusive && jump.t === t)); jump = jumps[++k]) {
+      filter.predict(jump.t);
+      filter.applyStep({ phase: jump.dx, frequency: jump.dy });
     }
   };
   for (const e of estimates) {
@@ -218,7 +218,7 @@ export function filterTo(
   applyUntil(now, false);
   const f = filter.estimate;
   const est: StateEstimate = {
-    state: [f.state[0]!, f.state[1]!, f.state[2]!],
+    state: [at(f.state, 0, 'state'), at(f.state, 1, 'state'), at(f.state, 2, 'state')],
     covariance: f.covariance.map((r) => [...r]) as Matrix3,
   };
   return propagateEstimate(est, now - f.t, norm);
@@ -344,8 +344,11 @@ function revise(
   );
   const commands = [...fixedAfter, ...made].sort((a, b) => a.executeAt - b.executeAt).map((c) => shift(c, -now));
   const revised = buildPlan(shifted, method, { commands, limits: [], notes: [] });
+  // The revised plan keeps the scenario's epoch: its grid is shifted back by now.
+  revised.epoch = norm.epoch;
   revised.predicted.t = revised.predicted.t.map((t) => t + now);
-  const sd = (i: number): number => Math.sqrt(Math.max(0, est.covariance[i]![i]!));
+  const [[p00], [, p11]] = est.covariance;
+  const sd = (variance: number): number => Math.sqrt(Math.max(0, variance));
   return {
     ...revised,
     revision: {
@@ -355,14 +358,11 @@ function revise(
         phaseSeconds: est.state[0],
         fractionalFrequency: est.state[1],
         driftPerSecond: est.state[2],
-        phaseSigmaSeconds: sd(0),
-        frequencySigma: sd(1),
+        phaseSigmaSeconds: sd(p00),
+        frequencySigma: sd(p11),
       },
-      executed: executed.map(({ i }) => plan.commands[i]!),
-      superseded: given
-        .map((c, i) => ({ c, i }))
-        .filter(({ c }) => c.uplinkAt >= now)
-        .map(({ i }) => plan.commands[i]!),
+      executed: executed.map(({ i }) => at(plan.commands, i, 'plan.commands')),
+      superseded: plan.commands.filter((_, i) => at(given, i, 'commands').uplinkAt >= now),
     },
   };
 }

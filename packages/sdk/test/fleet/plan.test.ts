@@ -1,11 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { InvalidArgumentError } from '../../src/errors.js';
-import { type FleetDocument, type FleetPlan, planFleet } from '../../src/fleet/index.js';
+import { type FleetDocument, type FleetPlanJson, fleetPlanToJson, planFleet } from '../../src/fleet/index.js';
 import { planSteering, STEERING_CAUTION } from '../../src/steering/index.js';
 import { exampleFleet, satellite, secondsOf, smallFleet } from './helpers.js';
 
 /** Each satellite's verdict recomputed with planSteering, its supports from the schedule as its contacts. */
-function recomputed(doc: FleetDocument, plan: FleetPlan): boolean[] {
+function recomputed(doc: FleetDocument, plan: FleetPlanJson): boolean[] {
   return doc.satellites.map((s) => {
     const contacts = plan.stationSchedule
       .filter((x) => x.satellite === s.id)
@@ -27,7 +27,7 @@ function recomputed(doc: FleetDocument, plan: FleetPlan): boolean[] {
 describe('planFleet on hand-made fleets', () => {
   it('planFleet(example) holds the four invented VESPER clocks through two shared stations, with the steering caution', () => {
     const doc = exampleFleet();
-    const plan = planFleet(doc);
+    const plan = fleetPlanToJson(planFleet(doc)); // stamps read back as text
     expect(plan.feasible).toBe(true);
     expect(plan.reason).toBeUndefined();
     expect(plan.caution).toBe(STEERING_CAUTION);
@@ -47,7 +47,7 @@ describe('planFleet on hand-made fleets', () => {
 
   it('planFleet(doc) gives two satellites that see one station at the same time supports far enough apart (setup included)', () => {
     const doc = smallFleet([satellite('SAT-A', [['ST-A', 3600, 9000]]), satellite('SAT-B', [['ST-A', 3600, 9000]])]);
-    const plan = planFleet(doc);
+    const plan = fleetPlanToJson(planFleet(doc)); // stamps read back as text
     expect(plan.feasible).toBe(true);
     const [x, y] = plan.stationSchedule.map((s) => [secondsOf(s.start), secondsOf(s.end)] as const);
     expect(plan.stationSchedule.map((s) => s.satellite).sort()).toEqual(['SAT-A', 'SAT-B']);
@@ -60,7 +60,7 @@ describe('planFleet on hand-made fleets', () => {
       satellite('SAT-A', [['ST-A', 3600, 4200]]),
       satellite('SAT-B', [['ST-A', 3600, 4200]], { fractionalFrequency: 3e-13 }),
     ]);
-    const plan = planFleet(doc);
+    const plan = fleetPlanToJson(planFleet(doc)); // stamps read back as text
     expect(plan.feasible).toBe(false);
     const [a, b] = plan.satellites;
     // SAT-B drifts faster, so it leaves its band first and gets the support.
@@ -78,7 +78,7 @@ describe('planFleet on hand-made fleets', () => {
 
   it('planFleet(doc) reports a satellite with no pass before its offset leaves the band as too-few-passes', () => {
     const doc = smallFleet([satellite('SAT-A', [['ST-B', 150_000, 160_000]])]);
-    const plan = planFleet(doc);
+    const plan = fleetPlanToJson(planFleet(doc)); // stamps read back as text
     expect(plan.satellites[0]!.reasonCode).toBe('too-few-passes');
     expect(plan.satellites[0]!.reason).toMatch(/^too few passes: no pass starts before 2027-03-0[12]T/);
     expect(plan.stationSchedule).toEqual([]);
@@ -96,7 +96,7 @@ describe('planFleet on hand-made fleets', () => {
     );
     sat.actuator.maxFrequencyStep = 2e-15;
     sat.actuator.cumulativeFrequencyRange = { min: -2e-15, max: 2e-15 };
-    const plan = planFleet(smallFleet([sat]));
+    const plan = fleetPlanToJson(planFleet(smallFleet([sat]))); // stamps read back as text
     expect(plan.satellites[0]!.feasible).toBe(false);
     expect(['actuator-limit', 'planner', 'no-contact-in-time']).toContain(plan.satellites[0]!.reasonCode);
     expect(
@@ -105,7 +105,9 @@ describe('planFleet on hand-made fleets', () => {
   });
 
   it('planFleet(doc) uses no station for a satellite that stays inside its band unsteered', () => {
-    const plan = planFleet(smallFleet([satellite('SAT-A', [['ST-A', 3600, 4200]], { fractionalFrequency: 0 })]));
+    const plan = fleetPlanToJson(
+      planFleet(smallFleet([satellite('SAT-A', [['ST-A', 3600, 4200]], { fractionalFrequency: 0 })])),
+    ); // stamps read back as text
     expect(plan.feasible).toBe(true);
     expect(plan.stationSchedule).toEqual([]);
     expect(plan.satellites[0]!.commands).toEqual([]);

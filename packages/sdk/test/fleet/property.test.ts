@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { type FleetDocument, type FleetSatellite, planFleet } from '../../src/fleet/index.js';
+import { type FleetDocument, type FleetSatellite, fleetPlanToJson, planFleet } from '../../src/fleet/index.js';
 import { planSteering } from '../../src/steering/index.js';
 import { iso, secondsOf, smallFleet } from './helpers.js';
 
@@ -82,7 +82,7 @@ describe('planFleet guarantees on random small fleets (fast-check, seed 20261203
   it('planFleet(doc) never double-books a station (setup included), keeps supports inside passes, one at a time per satellite, and every command inside a support of its satellite at its station', () => {
     fc.assert(
       fc.property(fleetArb, (doc) => {
-        const plan = planFleet(doc);
+        const plan = fleetPlanToJson(planFleet(doc)); // stamps read back as text
         const support = new Map(doc.stations.map((s) => [s.id, s]));
         for (const station of doc.stations) {
           const list = plan.stationSchedule
@@ -126,7 +126,7 @@ describe('planFleet guarantees on random small fleets (fast-check, seed 20261203
   it('planFleet(doc) holds every actuator limit: whole resolution steps, max step, cumulative range, time-tag delay and command spacing', () => {
     fc.assert(
       fc.property(fleetArb, (doc) => {
-        const plan = planFleet(doc);
+        const plan = fleetPlanToJson(planFleet(doc)); // stamps read back as text
         plan.satellites.forEach((s, i) => {
           const a = doc.satellites[i]!.actuator;
           let cumulative = a.initialFrequencySteering ?? 0;
@@ -243,7 +243,7 @@ describe('planFleet against a brute-force search on tiny fleets (fast-check, see
     fc.assert(
       fc.property(tinyArb, (doc) => {
         const expected = bruteForceFeasible(doc);
-        const plan = planFleet(doc);
+        const plan = fleetPlanToJson(planFleet(doc)); // stamps read back as text
         if (expected) {
           feasibleCases++;
           expect(plan.feasible).toBe(true);

@@ -27,6 +27,7 @@ import {
   RinexNavParser,
   Sp3Parser,
   simulateClock,
+  steeringPlanToJson,
 } from '../../src/index.js';
 
 const fixture = (path: string): string =>
@@ -242,6 +243,8 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
   planSteering: () => [SCENARIO, { method: 'deadband' }],
   steeringCost: () => [SCENARIO, built().plan],
   predictSteering: () => [SCENARIO, (built().plan as { commands: unknown }).commands],
+  steeringPlanToJson: () => [built().plan, {}],
+  steeringCommandsFromJson: () => [steeringPlanToJson(built().plan as never).commands, { field: 'plan.commands' }],
   simulatePlan: () => [SCENARIO, built().plan, { runs: 4, seed: 7 }],
   sagnacCorrection: () => [
     [A, 0, 0],

@@ -1,6 +1,12 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { planSteering, type SteeringScenario, validateScenario } from '../../src/steering/index.js';
+import {
+  planSteering,
+  type SteeringPlanJson,
+  type SteeringScenario,
+  steeringPlanToJson,
+  validateScenario,
+} from '../../src/steering/index.js';
 import { probabilityWithin } from '../../src/steering/predict.js';
 
 const EPOCH_MS = Date.parse('2027-03-01T00:00:00Z');
@@ -66,7 +72,7 @@ const scenarioArb = fc
   });
 
 /** Independent re-computation of the steered mean at t from the commands (closed-form polynomial). */
-function meanAt(s: SteeringScenario, plan: ReturnType<typeof planSteering>, t: number, includeAt: boolean): number {
+function meanAt(s: SteeringScenario, plan: SteeringPlanJson, t: number, includeAt: boolean): number {
   const n = validateScenario(s);
   let x = s.clock.phaseSeconds + s.clock.fractionalFrequency * t + (s.clock.driftPerSecond * t * t) / 2;
   const jumps = [
@@ -85,7 +91,7 @@ describe('planSteering guarantees (fast-check, seed 20261202)', () => {
   it('planSteering(scenario) uplinks every command inside a window, executes it within the latency, with integer steps inside the limits and the spacing', () => {
     fc.assert(
       fc.property(scenarioArb, (s) => {
-        const plan = planSteering(s);
+        const plan = steeringPlanToJson(planSteering(s)); // stamps read back with Date.parse
         const n = validateScenario(s);
         let cumulative = 0;
         const execs: number[] = [];
@@ -123,7 +129,7 @@ describe('planSteering guarantees (fast-check, seed 20261202)', () => {
     let feasibleSeen = 0;
     fc.assert(
       fc.property(scenarioArb, (s) => {
-        const plan = planSteering(s);
+        const plan = steeringPlanToJson(planSteering(s)); // stamps read back with Date.parse
         if (!plan.feasible) {
           expect(plan.reason).toMatch(/\S/);
           return;
@@ -152,7 +158,9 @@ describe('planSteering guarantees (fast-check, seed 20261202)', () => {
   it('planSteering(scenario) is deterministic for a given scenario', () => {
     fc.assert(
       fc.property(scenarioArb, (s) => {
-        expect(JSON.stringify(planSteering(s))).toBe(JSON.stringify(planSteering(structuredClone(s))));
+        expect(JSON.stringify(steeringPlanToJson(planSteering(s)))).toBe(
+          JSON.stringify(steeringPlanToJson(planSteering(structuredClone(s)))),
+        );
       }),
       { seed: 20261202, numRuns: 15 },
     );

@@ -1,12 +1,14 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { rateChangeForSemiMajorAxisChange } from '../../src/relativity/rate.js';
-import { planSteering, type SteeringScenario, validateScenario } from '../../src/steering/index.js';
+import { planSteering, type SteeringScenario, steeringPlanToJson, validateScenario } from '../../src/steering/index.js';
 import { example } from './helpers.js';
 
 const EPOCH_MS = Date.parse('2027-03-01T00:00:00Z');
 const iso = (s: number): string => new Date(EPOCH_MS + s * 1000).toISOString().replace('.000Z', 'Z');
 const secondsOf = (stamp: string, epochMs: number): number => (Date.parse(stamp) - epochMs) / 1000;
+/** The plan's JSON form: its stamps are read back with Date.parse, independently of the SDK's calendar. */
+const planJson = (...args: Parameters<typeof planSteering>) => steeringPlanToJson(planSteering(...args));
 
 describe('saturated steering (a residual rate of 1.8e-11 against steps of 5e-13)', () => {
   // ORIN-3 with the orbit achieved at 26 000 km instead of 27 412 km: the factory offset leaves a rate of
@@ -17,7 +19,7 @@ describe('saturated steering (a residual rate of 1.8e-11 against steps of 5e-13)
   const epochMs = Date.parse(s.epoch);
 
   it('planSteering(scenario) slews at the step limit, brakes once and settles inside the tolerance, saying why the start cannot hold it', () => {
-    const plan = planSteering(s, { strategy: 'optimal' });
+    const plan = planJson(s, { strategy: 'optimal' });
     expect(plan.feasible).toBe(false);
     expect(plan.reasonCode).toBe('no-contact-in-time');
     expect(plan.reason).toMatch(/holds the tolerance from .* to the end of the horizon/);
@@ -39,7 +41,7 @@ describe('saturated steering (a residual rate of 1.8e-11 against steps of 5e-13)
   });
 
   it('planSteering(scenario, deadband) obeys the limits and never pushes the offset past the opposite bound', () => {
-    const plan = planSteering(s, { strategy: 'deadband' });
+    const plan = planJson(s, { strategy: 'deadband' });
     expect(plan.feasible).toBe(false);
     for (const c of plan.commands)
       expect(Math.abs(c.fractionalFrequencyStep!)).toBeLessThanOrEqual(s.actuator.maxFrequencyStep * (1 + 1e-12));
@@ -97,7 +99,7 @@ describe('planSteering under saturation (fast-check, seed 20261203)', () => {
   it('planSteering(scenario) keeps every command inside the step, range, spacing, contact and time-tag limits', () => {
     fc.assert(
       fc.property(saturatedArb, (s) => {
-        const plan = planSteering(s);
+        const plan = planJson(s);
         const n = validateScenario(s);
         let cumulative = 0;
         let last = -Infinity;
@@ -121,7 +123,7 @@ describe('planSteering under saturation (fast-check, seed 20261203)', () => {
   it('planSteering(scenario) never overshoots the opposite tolerance bound by more than one resolution step of frequency over one decision interval', () => {
     fc.assert(
       fc.property(saturatedArb, (s) => {
-        const plan = planSteering(s);
+        const plan = planJson(s);
         const x = plan.predicted.steered.phaseSeconds;
         const b = s.tolerance.phaseSeconds;
         const first = x.findIndex((v) => Math.abs(v) > b);
