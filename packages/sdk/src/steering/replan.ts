@@ -344,9 +344,11 @@ function revise(
   );
   const commands = [...fixedAfter, ...made].sort((a, b) => a.executeAt - b.executeAt).map((c) => shift(c, -now));
   const revised = buildPlan(shifted, method, { commands, limits: [], notes: [] });
-  // The revised plan keeps the scenario's epoch: its grid is shifted back by now.
+  // The revised plan keeps the scenario's epoch: its relative times (grid, settled-after) are shifted back by now.
   revised.epoch = norm.epoch;
   revised.predicted.t = revised.predicted.t.map((t) => t + now);
+  const settled = revised.metrics.settledAfterSeconds;
+  revised.metrics.settledAfterSeconds = settled === null ? null : settled + now;
   const [[p00], [, p11]] = est.covariance;
   const sd = (variance: number): number => Math.sqrt(Math.max(0, variance));
   return {

@@ -120,6 +120,10 @@ describe('steeringPlanToJson and fleetPlanToJson', () => {
     const plan = planSteering(s);
     const revised = replanSteering(s, plan, [{ tSeconds: 20_000, phaseSeconds: 4e-9, sigmaSeconds: 3e-10 }], 61_200);
     expect(revised.epoch.equals(plan.epoch)).toBe(true);
+    // Relative times count from the plan's epoch: the grid starts at now, and so does the settled-after time at the latest.
+    expect(revised.predicted.t[0]).toBe(61_200);
+    expect(revised.metrics.settledAfterSeconds).not.toBeNull();
+    expect(revised.metrics.settledAfterSeconds!).toBeGreaterThanOrEqual(61_200);
     const json = steeringPlanToJson(revised);
     expect(Object.keys(json).slice(0, 5)).toEqual(['feasible', 'commands', 'predicted', 'metrics', 'caution']);
     expect(Object.keys(json).at(-1)).toBe('revision');
