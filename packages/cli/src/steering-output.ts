@@ -1,6 +1,6 @@
 /** Display and JSON-unit helpers shared by the steering commands (`plan`, `simulate`, `fleet`). */
 
-/** Units of the plan's JSON fields (`units` in `tauline plan --json`). */
+/** Units of the plan's JSON fields (`units` in `tauline plan --json`, beside the SDK's `steeringPlanToJson(plan)`). */
 export const PLAN_UNITS = {
   uplinkAt: 'ISO 8601 UTC',
   executeAt: 'ISO 8601 UTC',

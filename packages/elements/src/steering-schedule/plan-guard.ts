@@ -86,6 +86,19 @@ function string(v: unknown, path: string): string {
   return v;
 }
 
+/** An ISO 8601 stamp of the JSON form; an object there is most likely the plan object's Instant, so the message says how to convert. */
+function stampText(v: unknown, path: string): string {
+  if (typeof v !== 'string')
+    fail(
+      path,
+      v,
+      typeof v === 'object' && v !== null
+        ? 'a string (pass steeringPlanToJson(plan), not the plan object)'
+        : 'a string',
+    );
+  return v;
+}
+
 function number(v: unknown, path: string, unit: string): number {
   if (typeof v !== 'number') fail(path, v, `a number (${unit})`);
   return v;
@@ -106,8 +119,8 @@ function column(v: unknown, path: string, n?: number): Float64Array {
 
 function command(v: unknown, path: string): SteeringCommandJson {
   const c = object(v, path, 'a SteeringCommandJson object');
-  string(c.uplinkAt, `${path}.uplinkAt`);
-  string(c.executeAt, `${path}.executeAt`);
+  stampText(c.uplinkAt, `${path}.uplinkAt`);
+  stampText(c.executeAt, `${path}.executeAt`);
   const kind = c.kind;
   if (kind !== 'frequency' && kind !== 'phase') fail(`${path}.kind`, kind, '"frequency" or "phase"');
   if (kind === 'frequency') number(c.fractionalFrequencyStep, `${path}.fractionalFrequencyStep`, 'dimensionless');

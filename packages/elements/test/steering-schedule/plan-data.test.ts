@@ -1,5 +1,6 @@
 import { expect, fixture, html } from '@open-wc/testing';
 import '../../src/steering-schedule/steering-schedule.define.js';
+import { planSteering } from '@tauline/sdk/steering';
 import { BUNDLED_LEAP_SECONDS, createTimeScales, defineLeapSecondTable } from '@tauline/sdk/time';
 import { chartTimeToUtcMs, elapsedSecondsBetween, readPlan } from '../../src/steering-schedule/plan-data.js';
 import { describeFailure, guardPlan } from '../../src/steering-schedule/plan-guard.js';
@@ -13,6 +14,14 @@ describe('guardPlan(plan, scenario) (the SDK steering contract)', () => {
       const g = guardPlan(plan, scenario);
       expect(g.ok, g.ok ? '' : describeFailure(g.failure)).to.equal(true);
     }
+  });
+
+  it('guardPlan(plan object, scenario) tells a caller who passes planSteering() itself (Instant stamps) to pass its JSON form', async () => {
+    const { scenario } = await orinPlan();
+    const g = guardPlan(planSteering(scenario), scenario);
+    expect(g.ok ? 'accepted' : describeFailure(g.failure)).to.equal(
+      'plan.commands[0].uplinkAt must be a string (pass steeringPlanToJson(plan), not the plan object); received object',
+    );
   });
 
   it('guardPlan(plan, scenario) names the first wrong field with its path, the value received and the expectation', async () => {
