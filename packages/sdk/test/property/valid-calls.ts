@@ -21,6 +21,7 @@ import {
   parseRinexClock,
   parseRinexNav,
   parseSp3,
+  planFleet,
   planSteering,
   RinexClockParser,
   RinexClockSeriesCollector,
@@ -62,6 +63,13 @@ const SP3_TEXT = fixture('sp3/orbit-c-pv.sp3');
 const CLK_TEXT = fixture('rinex-clock/fictional-304.clk');
 const SCENARIO = example('steering/orin-3-meo.json');
 const REVIEW = example('review/kestrel-block-a.review.json');
+
+let fleetPlanCache: unknown;
+/** `planFleet` of the VESPER example fleet (invented), built once. */
+const fleetPlan = (): unknown => {
+  fleetPlanCache ??= planFleet(example('fleet/vesper-constellation.json'));
+  return fleetPlanCache;
+};
 
 /** Epoch of the pass-prediction calls (invented). */
 const passEpoch = (): Instant => createTimeScales(BUNDLED_LEAP_SECONDS).parseIso('2027-03-01T00:00:00Z', 'UTC');
@@ -244,6 +252,7 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
   steeringCost: () => [SCENARIO, built().plan],
   predictSteering: () => [SCENARIO, (built().plan as { commands: unknown }).commands],
   steeringPlanToJson: () => [built().plan, {}],
+  fleetPlanToJson: () => [fleetPlan(), {}],
   steeringCommandsFromJson: () => [steeringPlanToJson(built().plan as never).commands, { field: 'plan.commands' }],
   simulatePlan: () => [SCENARIO, built().plan, { runs: 4, seed: 7 }],
   sagnacCorrection: () => [
