@@ -143,33 +143,28 @@ function setupDop853(
   return { n, y, rtol, atol, maxStep, maxSteps, sampleTimes, keep: options.keepDenseOutput ?? false };
 }
 
-/** One term w·K_j of a weighted sum of stages: a tableau weight paired with the stage vector it multiplies. */
-interface StageTerm {
-  readonly weight: number;
-  readonly k: Float64Array;
-}
-
-/** Stage K_s = f(t + c_s h, y + h Σ_j a_sj K_j): its node, its weighted earlier stages and its own vector. */
+/**
+ * Stage K_s = f(t + c_s h, y + h Σ_j a_sj K_j): its node, the weights a_sj of the earlier stages (the tableau row as
+ * a Float64Array, zero weights kept) and its own vector (a view into the stage block).
+ */
 interface StagePlan {
   readonly c: number;
-  readonly terms: readonly StageTerm[];
+  readonly weights: Float64Array;
   readonly k: Float64Array;
-}
-
-/** Pairs each tableau weight with its stage vector, in the tableau's order and with the zero weights kept. */
-function termsOf(weights: readonly number[], K: readonly Float64Array[]): StageTerm[] {
-  return weights.map((weight, j) => ({ weight, k: at(K, j, 'DOP853 stages') }));
 }
 
 /**
- * acc_i = Σ_j w_j k_j,i over `terms` in their order: per component the same additions in the same order as an inner
- * sum over j, so the results are bit-identical to it. Indices bounded by n = acc.length = each k.length.
+ * acc_i = Σ_j w_j K_j,i for j ascending, K the stage block (stage j at K[j·n .. j·n + n − 1]): the same additions in
+ * the same order as the published inner sum, so bit-identical to it. Hot: indices bounded by the loop conditions,
+ * m = weights.length ≤ 16 stages and n = acc.length, with K holding 16 stages of n.
  */
-function accumulate(terms: readonly StageTerm[], acc: Float64Array): void {
+function accumulate(weights: Float64Array, K: Float64Array, acc: Float64Array): void {
   const n = acc.length;
-  acc.fill(0);
-  for (const { weight, k } of terms) {
-    for (let i = 0; i < n; i++) acc[i] = acc[i]! + weight * k[i]!;
+  const m = weights.length;
+  for (let i = 0; i < n; i++) {
+    let sum = 0;
+    for (let j = 0; j < m; j++) sum += weights[j]! * K[j * n + i]!;
+    acc[i] = sum;
   }
 }
 
@@ -192,39 +187,46 @@ class Dop853Stages {
   private readonly trialStages: readonly StagePlan[];
   /** Stages 14..16 of the dense output. */
   private readonly denseStages: readonly StagePlan[];
+  /** The 16 stage vectors K_1..K_16, n each, one block. */
+  private readonly K: Float64Array;
   /** Weights B (8th-order solution), E5 and E3 (error estimators). */
-  private readonly solution: readonly StageTerm[];
-  private readonly error5: readonly StageTerm[];
-  private readonly error3: readonly StageTerm[];
+  private readonly solution: Float64Array;
+  private readonly error5: Float64Array;
+  private readonly error3: Float64Array;
   private readonly e5: Float64Array;
   private readonly e3: Float64Array;
   /** Rows D_0..D_3 of the dense-output matrix with the coefficient rows F3..F6 they give. */
-  private readonly denseRows: readonly { readonly terms: readonly StageTerm[]; readonly row: Float64Array }[];
+  private readonly denseRows: readonly { readonly weights: Float64Array; readonly row: Float64Array }[];
 
   constructor(
     private readonly f: OdeRightHandSide,
     private readonly n: number,
   ) {
-    const K = Array.from({ length: 16 }, () => new Float64Array(n));
+    const K = new Float64Array(16 * n);
+    const stage = (s: number): Float64Array => K.subarray(s * n, (s + 1) * n);
     const plan = (s: number): StagePlan => ({
       c: at(C, s, 'C'),
-      terms: termsOf(at(A, s, 'A'), K),
-      k: at(K, s, 'DOP853 stages'),
+      weights: Float64Array.from(at(A, s, 'A')),
+      k: stage(s),
     });
-    this.f0 = at(K, 0, 'DOP853 stages');
-    this.kNew = at(K, N_STAGES, 'DOP853 stages');
+    this.K = K;
+    this.f0 = stage(0);
+    this.kNew = stage(N_STAGES);
     this.trialStages = Array.from({ length: N_STAGES - 1 }, (_, s) => plan(s + 1));
     this.denseStages = Array.from({ length: 3 }, (_, s) => plan(s + N_STAGES + 1));
-    this.solution = termsOf(B, K);
-    this.error5 = termsOf(E5, K);
-    this.error3 = termsOf(E3, K);
+    this.solution = Float64Array.from(B);
+    this.error5 = Float64Array.from(E5);
+    this.error3 = Float64Array.from(E3);
     this.yStage = new Float64Array(n);
     this.yNew = new Float64Array(n);
     this.fNew = new Float64Array(n);
     this.e5 = new Float64Array(n);
     this.e3 = new Float64Array(n);
     this.F = new Float64Array(7 * n);
-    this.denseRows = D.map((d, r) => ({ terms: termsOf(d, K), row: this.F.subarray((3 + r) * n, (4 + r) * n) }));
+    this.denseRows = D.map((d, r) => ({
+      weights: Float64Array.from(d),
+      row: this.F.subarray((3 + r) * n, (4 + r) * n),
+    }));
   }
 
   call(t: number, state: Float64Array, out: Float64Array): void {
@@ -233,9 +235,9 @@ class Dop853Stages {
   }
 
   /** Runge–Kutta stage s: K_s = f(t + c_s h, y + h Σ_{j<s} a_sj K_j) (Hairer, Nørsett & Wanner 1993, §II.1 [M]). */
-  private evaluateStage({ c, terms, k }: StagePlan, t: number, h: number, y: Float64Array): void {
+  private evaluateStage({ c, weights, k }: StagePlan, t: number, h: number, y: Float64Array): void {
     const { yStage, n } = this;
-    accumulate(terms, yStage);
+    accumulate(weights, this.K, yStage);
     for (let i = 0; i < n; i++) yStage[i] = y[i]! + h * yStage[i]!;
     this.call(t + c * h, yStage, k);
   }
@@ -248,12 +250,12 @@ class Dop853Stages {
   trialStep(t: number, h: number, tNew: number, y: Float64Array, atol: Float64Array, rtol: number): number {
     const { yNew, fNew, e5, e3, n } = this;
     for (const stage of this.trialStages) this.evaluateStage(stage, t, h, y);
-    accumulate(this.solution, yNew);
+    accumulate(this.solution, this.K, yNew);
     for (let i = 0; i < n; i++) yNew[i] = y[i]! + h * yNew[i]!;
     this.call(tNew, yNew, fNew);
     this.kNew.set(fNew);
-    accumulate(this.error5, e5);
-    accumulate(this.error3, e3);
+    accumulate(this.error5, this.K, e5);
+    accumulate(this.error3, this.K, e3);
     let e5sq = 0;
     let e3sq = 0;
     let finite = true;
@@ -280,8 +282,8 @@ class Dop853Stages {
       F[n + i] = h * f0[i]! - dy;
       F[2 * n + i] = 2 * dy - h * (fNew[i]! + f0[i]!);
     }
-    for (const { terms, row } of this.denseRows) {
-      accumulate(terms, row);
+    for (const { weights, row } of this.denseRows) {
+      accumulate(weights, this.K, row);
       for (let i = 0; i < n; i++) row[i] = h * row[i]!;
     }
   }
