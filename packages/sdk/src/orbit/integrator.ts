@@ -260,7 +260,7 @@ class Dop853Stages {
     let e3sq = 0;
     let finite = true;
     for (let i = 0; i < n; i++) {
-      if (!Number.isFinite(yNew[i]!) || !Number.isFinite(fNew[i]!)) finite = false;
+      if (!Number.isFinite(yNew[i]) || !Number.isFinite(fNew[i])) finite = false;
       const sc = atol[i]! + rtol * Math.max(Math.abs(y[i]!), Math.abs(yNew[i]!));
       const e5i = e5[i]! / sc;
       const e3i = e3[i]! / sc;
