@@ -5,6 +5,7 @@
  * @internal
  */
 
+import { at } from '../internal/checked.js';
 import {
   compatible,
   type SatellitePlanner,
@@ -14,7 +15,6 @@ import {
   supportAt,
   toMillisecond,
 } from './allocate.js';
-import { at } from '../internal/checked.js';
 import type { NormalizedFleet, NormalizedPass } from './document.js';
 
 /** Largest total number of per-satellite choices the exact search enumerates. */
