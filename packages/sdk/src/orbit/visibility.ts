@@ -175,8 +175,8 @@ function eccentricAnomaly(meanAnomaly: Radians, e: number, trig: { sin: number; 
 }
 
 /**
- * Elevation (rad) from a site of the satellite position p[at..at+2] (Vallado 4th ed. §4.4, up component [M]). Hot
- * (once per sample): the callers pass a 3-vector scratch at 0 or the sample table at 3k with k < count.
+ * Elevation (rad) from a site of the satellite position p[at..at+2] (Vallado 4th ed. §4.4, up component [M]).
+ * Hot (once per sample): the callers pass a 3-vector scratch at 0 or the sample table at 3k with k < count.
  */
 function elevationOf(site: { r: Vector3; up: Vector3 }, p: Float64Array, at: number): Radians {
   const dx = p[at]! - site.r[0],
