@@ -47,7 +47,9 @@ function isWide(codePoint: number): boolean {
   let hi = WIDE.length - 1;
   while (lo <= hi) {
     const mid = (lo + hi) >> 1;
-    const [a, b] = WIDE[mid]!;
+    const range = WIDE[mid];
+    if (range === undefined) throw new RangeError(`WIDE[${mid}] is outside its ${WIDE.length} ranges`);
+    const [a, b] = range;
     if (codePoint < a) hi = mid - 1;
     else if (codePoint > b) lo = mid + 1;
     else return true;

@@ -4,23 +4,30 @@
  * transpositions of adjacent characters; F. J. Damerau, Comm. ACM 7(3) 1964 [M]), or that start with it.
  */
 
+/** Cell [i][j] of the distance table, which the loops fill before reading it (a RangeError names a missed cell). */
+function cell(d: readonly (readonly number[])[], i: number, j: number): number {
+  const value = d[i]?.[j];
+  if (value === undefined) throw new RangeError(`edit-distance table cell [${i}][${j}] read before it was filled`);
+  return value;
+}
+
 /** Optimal-string-alignment distance between `a` and `b` (each edit, and each adjacent swap, costs 1). */
 export function editDistance(a: string, b: string): number {
-  const rows = a.length + 1;
   const cols = b.length + 1;
-  const d: number[][] = Array.from({ length: rows }, (_, i) =>
+  const d: number[][] = Array.from({ length: a.length + 1 }, (_, i) =>
     Array.from({ length: cols }, (_, j) => (i === 0 ? j : j === 0 ? i : 0)),
   );
-  for (let i = 1; i < rows; i++) {
+  for (const [i, row] of d.entries()) {
+    if (i === 0) continue;
     for (let j = 1; j < cols; j++) {
       const cost = a[i - 1] === b[j - 1] ? 0 : 1;
-      let best = Math.min(d[i - 1]![j]! + 1, d[i]![j - 1]! + 1, d[i - 1]![j - 1]! + cost);
+      let best = Math.min(cell(d, i - 1, j) + 1, cell(d, i, j - 1) + 1, cell(d, i - 1, j - 1) + cost);
       if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1])
-        best = Math.min(best, d[i - 2]![j - 2]! + 1);
-      d[i]![j] = best;
+        best = Math.min(best, cell(d, i - 2, j - 2) + 1);
+      row[j] = best;
     }
   }
-  return d[a.length]![b.length]!;
+  return cell(d, a.length, b.length);
 }
 
 /** Largest distance still suggested: 1 for names up to 4 characters, 2 up to 8, 3 beyond (small on purpose). */

@@ -8,7 +8,13 @@
  */
 
 import { InvalidArgumentError } from './errors.js';
-import { CONSTANT_SET_RANGES, requireConstantSet, requireInRange, requirePositive } from './internal/validate.js';
+import {
+  CONSTANT_SET_RANGES,
+  requireConstantSet,
+  requireInRange,
+  requireOptions,
+  requirePositive,
+} from './internal/validate.js';
 import type {
   CubicMetresPerSecondSquared,
   Dimensionless,
@@ -230,18 +236,44 @@ export interface ConstantSetOverrides {
   sources?: Record<string, string>;
 }
 
+/** Options of {@link defineConstantSet}. */
+export interface DefineConstantSetOptions {
+  /** The set that omitted fields are taken from; default {@link IERS_2010}. */
+  readonly base?: ConstantSet;
+}
+
+/**
+ * The base set of {@link defineConstantSet}'s options: `options.base` checked, or IERS 2010. A set passed where the
+ * options go (the old positional `defineConstantSet(overrides, base)`) is refused with a hint, never ignored.
+ */
+function baseOf(options: DefineConstantSetOptions | undefined): ConstantSet {
+  if (typeof options === 'object' && options !== null && 'gm' in options && 'relativisticF' in options) {
+    throw new InvalidArgumentError(
+      'options',
+      options,
+      'an object of named options such as { base } (or omitted)',
+      'a base set goes in the options: { base: set }',
+    );
+  }
+  const { base } = requireOptions('options', options);
+  return base === undefined ? IERS_2010 : requireConstantSet('options.base', base);
+}
+
 /**
  * Builds a user-defined constant set, validated field by field. F is recomputed from GM.
- * @throws {InvalidArgumentError} for a value outside the plausible range of its field.
+ * @param overrides The set's name and the fields that differ from the base set.
+ * @param options `base`: the set that omitted fields are taken from (default IERS 2010).
+ * @throws {InvalidArgumentError} for a value outside the plausible range of its field, or a base set passed
+ *   positionally (write `{ base: set }`).
  */
-export function defineConstantSet(overrides: ConstantSetOverrides, base: ConstantSet = IERS_2010): ConstantSet {
+export function defineConstantSet(overrides: ConstantSetOverrides, options?: DefineConstantSetOptions): ConstantSet {
   if (typeof overrides !== 'object' || overrides === null) {
     throw new InvalidArgumentError('overrides', overrides, 'an object { name, gm?, earthRotationRate?, ... }');
   }
   if (typeof overrides.name !== 'string' || overrides.name.trim() === '') {
     throw new InvalidArgumentError('name', overrides?.name, 'a non-empty string');
   }
-  requireConstantSet('base', base);
+  const base = baseOf(options);
   const gm = overrides.gm ?? base.gm;
   for (const [field, range] of Object.entries(CONSTANT_SET_RANGES)) {
     requireInRange(

@@ -38,6 +38,15 @@ describe('constant sets', () => {
     expect(set.sources.gm).toBe('user-supplied, no source');
     expect(set.kind).toBe('user');
   });
+  it('defineConstantSet(overrides, { base }) takes the omitted fields and their sources from the base set', () => {
+    const set = defineConstantSet({ name: 'mission-g', j2: 1.0826e-3 }, { base: GALILEO_ICD });
+    expect(set.gm).toBe(GALILEO_ICD.gm);
+    expect(set.relativisticF).toBe(GALILEO_ICD.relativisticF);
+    expect(set.equatorialRadius).toBe(GALILEO_ICD.equatorialRadius);
+    expect(set.j2).toBe(1.0826e-3);
+    expect(set.sources.gm).toBe(GALILEO_ICD.sources.gm);
+    expect(set.description).toBe(`user-defined set based on ${GALILEO_ICD.name}`);
+  });
   it('defineConstantSet(overrides) rejects GM given in km³/s² and a missing name', () => {
     expect(() => defineConstantSet({ name: 'x', gm: 398600.4418 })).toThrow(
       /gm must be in \[390000000000000, 410000000000000\] m³\/s²/,

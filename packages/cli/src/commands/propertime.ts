@@ -37,7 +37,7 @@ export function parseStateFlag(text: string): {
   velocity: [number, number, number];
 } {
   const parts = text.split(',');
-  if (parts.length !== 6) {
+  if (!isSix(parts)) {
     throw new InvalidArgumentError(
       '--state',
       text,
@@ -45,9 +45,30 @@ export function parseStateFlag(text: string): {
       parts.length === 3 ? 'only three values: the velocity is missing' : undefined,
     );
   }
-  const names = ['x', 'y', 'z', 'vx', 'vy', 'vz'];
-  const v = parts.map((p, i) => parseNumber(`--state ${names[i]}`, p));
-  return { position: [v[0]!, v[1]!, v[2]!], velocity: [v[3]!, v[4]!, v[5]!] };
+  const [x, y, z, vx, vy, vz] = parts;
+  const num = (name: string, value: string): number => parseNumber(`--state ${name}`, value);
+  return { position: [num('x', x), num('y', y), num('z', z)], velocity: [num('vx', vx), num('vy', vy), num('vz', vz)] };
+}
+
+/** True when `parts` holds exactly the six values of a state. */
+function isSix(parts: string[]): parts is [string, string, string, string, string, string] {
+  return parts.length === 6;
+}
+
+/**
+ * The (t, τ − TT) pairs of a proper-time result, walking its two arrays together (one entry per sample each).
+ * @throws {RangeError} when the arrays differ in length or are empty (an internal error, never an input problem).
+ */
+function samplesOf(result: { t: Float64Array; tauMinusTT: Float64Array }): { t: number; tauMinusTT: number }[] {
+  if (result.t.length !== result.tauMinusTT.length || result.t.length === 0) {
+    throw new RangeError(`proper-time result with ${result.t.length} times and ${result.tauMinusTT.length} values`);
+  }
+  const taus = result.tauMinusTT.values();
+  return Array.from(result.t, (t) => {
+    const tau = taus.next();
+    if (tau.done) throw new RangeError('proper-time result with fewer values than times');
+    return { t, tauMinusTT: tau.value };
+  });
 }
 
 /** SDK argument names → the flags that gave them, for the bound check and the integration. */
@@ -186,10 +207,11 @@ Exit status: 0 success, 2 invalid input.`,
       constants.gm,
     );
     if (hint) warn(io, 'propertime', hint);
-    const n = result.t.length;
-    const meanRate = result.tauMinusTT[n - 1]! / duration;
+    const samples = samplesOf(result);
+    const [lastSample] = samples.slice(-1);
+    if (lastSample === undefined) throw new RangeError('proper-time result without samples');
+    const meanRate = lastSample.tauMinusTT / duration;
     if (format === 'json') {
-      const samples = Array.from(result.t, (t: number, k: number) => ({ t, tauMinusTT: result.tauMinusTT[k]! }));
       io.out(
         toJson({
           samples,
@@ -226,10 +248,10 @@ Exit status: 0 success, 2 invalid input.`,
     io.out(
       fitTable(
         ['t (s)', 'τ − TT (s)', 'τ − TT (ns)'],
-        Array.from(result.t, (t: number, k: number): (string | number)[] => [
+        samples.map(({ t, tauMinusTT }): (string | number)[] => [
           sig(t, 12),
-          result.tauMinusTT[k]!.toExponential(12),
-          (result.tauMinusTT[k]! * 1e9).toFixed(6),
+          tauMinusTT.toExponential(12),
+          (tauMinusTT * 1e9).toFixed(6),
         ]),
         { width },
       ),

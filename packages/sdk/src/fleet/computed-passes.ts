@@ -10,6 +10,7 @@
 
 import { DEFAULT_CONSTANT_SET } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import {
   requireEccentricity,
   requireFinite,
@@ -209,7 +210,7 @@ export function computeFleetPasses(
       // Rounded inwards to the millisecond of the printed stamps: still inside the pass (elevation ≥ mask).
       const start = Math.ceil(p.start * 1000 - 1e-6) / 1000;
       const end = Math.floor(p.end * 1000 + 1e-6) / 1000;
-      out.push({ ...p, station, start, end, usable: end - start >= supports[station]! });
+      out.push({ ...p, station, start, end, usable: end - start >= at(supports, station, 'supports') });
     }
   }
   return out.sort((x, y) => x.start - y.start || x.station - y.station);

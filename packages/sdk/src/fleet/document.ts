@@ -9,6 +9,7 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { requireNonNegative, requirePositive, requireRecord } from '../internal/validate.js';
 import {
   type ActuatorSpec,
@@ -203,7 +204,8 @@ function validateGivenPasses(
     const o = requireRecord(field, p);
     rejectUnknownKeys(field, o, ['station', 'start', 'end']);
     const station = stations.findIndex((s) => s.id === o.station);
-    if (station < 0)
+    const stationEntry = stations[station];
+    if (stationEntry === undefined)
       throw new InvalidArgumentError(
         `${field}.station`,
         o.station,
@@ -220,7 +222,7 @@ function validateGivenPasses(
         o.end,
         `at or before the end of the horizon (epoch + ${horizon} s)`,
       );
-    const support = stations[station]!.support;
+    const support = stationEntry.support;
     if (end - start < support) {
       throw new InvalidArgumentError(
         `${field}.end`,
@@ -334,7 +336,7 @@ export function validateFleet(input: unknown, options: TimeScaleOptions = {}): N
     passes.sort((a, b) => a.start - b.start || a.station - b.station || a.index - b.index);
     return { id, scenario, norm, passes };
   });
-  const first = satellites[0]!.norm;
+  const first = at(satellites, 0, 'satellites').norm;
   return {
     source: input as FleetDocument,
     epoch,

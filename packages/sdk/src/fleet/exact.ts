@@ -5,6 +5,7 @@
  * @internal
  */
 
+import { at } from '../internal/checked.js';
 import {
   compatible,
   type SatellitePlanner,
@@ -14,15 +15,14 @@ import {
   supportAt,
   toMillisecond,
 } from './allocate.js';
-import type { NormalizedFleet } from './document.js';
+import type { NormalizedFleet, NormalizedPass } from './document.js';
 
 /** Largest total number of per-satellite choices the exact search enumerates. */
 export const EXACT_SEARCH_LIMIT = 4096;
 
 /** The support positions tried in a pass: its start, and its end minus the support duration. */
-function positions(fleet: NormalizedFleet, sat: number, pass: number): Support[] {
-  const p = fleet.satellites[sat]!.passes[pass]!;
-  const support = fleet.stations[p.station]!.support;
+function positions(fleet: NormalizedFleet, sat: number, pass: number, p: NormalizedPass): Support[] {
+  const support = at(fleet.stations, p.station, 'stations').support;
   const early = supportAt(fleet, sat, pass, toMillisecond(p.start));
   const lateStart = Math.floor((p.end - support) * 1000 + 1e-6) / 1000;
   const out = early.end <= p.end + 1e-9 ? [early] : [];
@@ -31,16 +31,16 @@ function positions(fleet: NormalizedFleet, sat: number, pass: number): Support[]
 }
 
 /** Every choice of supports for one satellite (no overlap between its own supports). */
-function choices(fleet: NormalizedFleet, sat: number): Support[][] {
-  const passes = fleet.satellites[sat]!.passes;
+function choices(fleet: NormalizedFleet, sat: number, passes: readonly NormalizedPass[]): Support[][] {
   const out: Support[][] = [];
   const walk = (k: number, chosen: Support[]): void => {
-    if (k === passes.length) {
+    const pass = passes[k];
+    if (pass === undefined) {
       out.push([...chosen]);
       return;
     }
     walk(k + 1, chosen);
-    for (const s of positions(fleet, sat, k)) {
+    for (const s of positions(fleet, sat, k, pass)) {
       if (chosen.some((c) => satelliteConflict(c, s) || stationConflict(fleet, c, s))) continue;
       chosen.push(s);
       walk(k + 1, chosen);
@@ -58,15 +58,15 @@ function choices(fleet: NormalizedFleet, sat: number): Support[][] {
  */
 export function exactAllocation(fleet: NormalizedFleet, planner: SatellitePlanner): Support[] | undefined {
   let total = 0;
-  for (let i = 0; i < fleet.satellites.length; i++) {
+  for (const [i, { passes }] of fleet.satellites.entries()) {
     let count = 1;
-    for (let k = 0; k < fleet.satellites[i]!.passes.length; k++) count *= 1 + positions(fleet, i, k).length;
+    for (const [k, pass] of passes.entries()) count *= 1 + positions(fleet, i, k, pass).length;
     total += count;
     if (total > EXACT_SEARCH_LIMIT) return undefined;
   }
   const options: Support[][][] = [];
-  for (let i = 0; i < fleet.satellites.length; i++) {
-    const feasible = choices(fleet, i)
+  for (const [i, { passes }] of fleet.satellites.entries()) {
+    const feasible = choices(fleet, i, passes)
       .filter((c) => planner.plan(i, c).feasible)
       .sort((x, y) => x.length - y.length);
     if (feasible.length === 0) return undefined;
@@ -74,8 +74,9 @@ export function exactAllocation(fleet: NormalizedFleet, planner: SatellitePlanne
   }
   const chosen: Support[] = [];
   const search = (i: number): boolean => {
-    if (i === options.length) return true;
-    for (const option of options[i]!) {
+    const satelliteOptions = options[i];
+    if (satelliteOptions === undefined) return true;
+    for (const option of satelliteOptions) {
       if (!option.every((s) => compatible(fleet, s, chosen))) continue;
       chosen.push(...option);
       if (search(i + 1)) return true;

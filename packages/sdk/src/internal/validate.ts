@@ -162,10 +162,13 @@ export function requireObject<T extends object>(argument: string, value: T, expe
   return value;
 }
 
-/** Throws unless `value` is a JSON object (not null, not an array); returns it as a record of its fields. */
-export function requireRecord(field: string, value: unknown): Record<string, unknown> {
+/**
+ * Throws unless `value` is a JSON object (not null, not an array); returns it as a record of its fields.
+ * `expected` describes the object in the error (e.g. its fields with units); default "an object".
+ */
+export function requireRecord(field: string, value: unknown, expected = 'an object'): Record<string, unknown> {
   if (typeof value !== 'object' || value === null || Array.isArray(value))
-    throw new InvalidArgumentError(field, value, 'an object');
+    throw new InvalidArgumentError(field, value, expected);
   return value as Record<string, unknown>;
 }
 

@@ -18,16 +18,10 @@
  * @module
  */
 
-import { type ConstantSet, DEFAULT_CONSTANT_SET } from '../constants.js';
+import { type ConstantSet, type ConstantsOptions, DEFAULT_CONSTANT_SET } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
-import {
-  requireConstantSet,
-  requireFinite,
-  requireInRange,
-  requireOptions,
-  requirePositive,
-  requireVector3,
-} from '../internal/validate.js';
+import { constantsOf, readConstants, readOptions } from '../internal/options.js';
+import { requireFinite, requireInRange, requirePositive, requireVector3 } from '../internal/validate.js';
 import type { CubicMetresPerSecondSquared, Metres, Seconds, SquareMetresPerSecondSquared, Vector3 } from '../units.js';
 import { moonPositionAt, sunPositionAt } from './ephemeris.js';
 
@@ -78,9 +72,7 @@ export interface GravityField {
 export function createGravityField(model: GravityModel, options: GravityFieldOptions = {}): GravityField {
   if (!GRAVITY_MODELS.includes(model))
     throw new InvalidArgumentError('model', model, `one of ${GRAVITY_MODELS.join(', ')}`);
-  requireOptions('options', options);
-  const constants =
-    options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet('options.constants', options.constants);
+  const constants = constantsOf('options', readOptions('options', options));
   const gm = constants.gm;
   const k = model === 'point-mass' ? 0 : gm * constants.j2 * constants.equatorialRadius ** 2;
   const epoch = requireFinite('epochTtSecondsSinceJ2000', options.epochTtSecondsSinceJ2000 ?? 0);
@@ -193,16 +185,14 @@ export function pointMassPotential(
 /**
  * The J2 part of the Earth's potential, U_J2 = −(GM J2 a_e²/(2 r³))(3 sin²φ − 1), sin φ = z/r, in m²/s².
  * @param position Geocentric position in a frame with z along the rotation axis, metres.
- * @param constants GM, J2 and a_e (default IERS 2010).
- * @throws {InvalidArgumentError} for a non-finite position, |r| outside [1, 1e13] m or a malformed constant set.
+ * @param options `constants`: GM, J2 and a_e (default IERS 2010).
+ * @throws {InvalidArgumentError} for a non-finite position, |r| outside [1, 1e13] m, a malformed constant set, or a
+ *   set passed positionally (the old `j2Potential(position, set)`; write `{ constants: set }`).
  * @see W. A. Heiskanen & H. Moritz, Physical Geodesy (1967), §2-9 zonal harmonics [M]; sign convention of IERS 2010 §10.2 [V1].
  */
-export function j2Potential(
-  position: Vector3,
-  constants: ConstantSet = DEFAULT_CONSTANT_SET,
-): SquareMetresPerSecondSquared {
+export function j2Potential(position: Vector3, options?: ConstantsOptions): SquareMetresPerSecondSquared {
   const [x, y, z] = requireVector3('position', position, 'metres');
-  requireConstantSet('constants', constants);
+  const constants = readConstants('options', options);
   const r = nonZero(x, y, z);
   return (
     (-(constants.gm * constants.j2 * constants.equatorialRadius ** 2) / (2 * r ** 3)) * ((3 * z * z) / (r * r) - 1)

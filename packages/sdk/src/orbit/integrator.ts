@@ -12,6 +12,7 @@
  * @module
  */
 import { ConvergenceError, InvalidArgumentError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { requireFinite, requireInteger, requireOptions, requirePositive } from '../internal/validate.js';
 import { A, B, C, D, E3, E5 } from './dop853-tableau.js';
 
@@ -125,10 +126,11 @@ function setupDop853(
   const maxSteps = requireInteger('maxSteps', options.maxSteps ?? 1_000_000, 1, MAX_STEPS_LIMIT);
   const given = options.sampleTimes ?? [];
   const sampleTimes = new Float64Array(given.length);
+  let previous = Number.NEGATIVE_INFINITY;
   for (let k = 0; k < given.length; k++) {
     const s = requireFinite(`sampleTimes[${k}]`, given[k]);
     if (s < t0 || s > tEnd) throw new InvalidArgumentError(`sampleTimes[${k}]`, s, `within [${t0}, ${tEnd}]`);
-    if (k > 0 && !(s > sampleTimes[k - 1]!)) {
+    if (!(s > previous)) {
       throw new InvalidArgumentError(
         `sampleTimes[${k}]`,
         s,
@@ -136,30 +138,95 @@ function setupDop853(
       );
     }
     sampleTimes[k] = s;
+    previous = s;
   }
   return { n, y, rtol, atol, maxStep, maxSteps, sampleTimes, keep: options.keepDenseOutput ?? false };
 }
 
-/** The stage storage and arithmetic of one DOP853 step on an n-component state. */
+/**
+ * Stage K_s = f(t + c_s h, y + h Σ_j a_sj K_j): its node, the weights a_sj of the earlier stages (the tableau row as
+ * a Float64Array, zero weights kept) and its own vector (a view into the stage block).
+ */
+interface StagePlan {
+  readonly c: number;
+  readonly weights: Float64Array;
+  readonly k: Float64Array;
+}
+
+/**
+ * acc_i = Σ_j w_j K_j,i for j ascending, K the stage block (stage j at K[j·n .. j·n + n − 1]): the same additions in
+ * the same order as the published inner sum, so bit-identical to it. Hot: indices bounded by the loop conditions,
+ * m = weights.length ≤ 16 stages and n = acc.length, with K holding 16 stages of n.
+ */
+function accumulate(weights: Float64Array, K: Float64Array, acc: Float64Array): void {
+  const n = acc.length;
+  const m = weights.length;
+  for (let i = 0; i < n; i++) {
+    let sum = 0;
+    for (let j = 0; j < m; j++) sum += weights[j]! * K[j * n + i]!;
+    acc[i] = sum;
+  }
+}
+
+/**
+ * The stage storage and arithmetic of one DOP853 step on an n-component state. The tableau (C, A, B, E3, E5, D) is
+ * paired with the stage vectors once, here; the per-component loops index arrays of length n (bounded by n).
+ */
 class Dop853Stages {
-  /** Stages K[0..15]; K[0] is f at the step's start, K[12] f at the new point. */
-  readonly K: Float64Array[];
+  /** K_1: f at the step's start (set to f at the new point when a step is accepted). */
+  readonly f0: Float64Array;
   readonly yNew: Float64Array;
   readonly fNew: Float64Array;
   /** Dense-output coefficients F0..F6 of the last accepted step, n each. */
   readonly F: Float64Array;
   functionEvaluations = 0;
   private readonly yStage: Float64Array;
+  /** K_13: f at the trial point, which the error estimators weigh. */
+  private readonly kNew: Float64Array;
+  /** Stages 2..12 of the 8th-order step. */
+  private readonly trialStages: readonly StagePlan[];
+  /** Stages 14..16 of the dense output. */
+  private readonly denseStages: readonly StagePlan[];
+  /** The 16 stage vectors K_1..K_16, n each, one block. */
+  private readonly K: Float64Array;
+  /** Weights B (8th-order solution), E5 and E3 (error estimators). */
+  private readonly solution: Float64Array;
+  private readonly error5: Float64Array;
+  private readonly error3: Float64Array;
+  private readonly e5: Float64Array;
+  private readonly e3: Float64Array;
+  /** Rows D_0..D_3 of the dense-output matrix with the coefficient rows F3..F6 they give. */
+  private readonly denseRows: readonly { readonly weights: Float64Array; readonly row: Float64Array }[];
 
   constructor(
     private readonly f: OdeRightHandSide,
     private readonly n: number,
   ) {
-    this.K = Array.from({ length: 16 }, () => new Float64Array(n));
+    const K = new Float64Array(16 * n);
+    const stage = (s: number): Float64Array => K.subarray(s * n, (s + 1) * n);
+    const plan = (s: number): StagePlan => ({
+      c: at(C, s, 'C'),
+      weights: Float64Array.from(at(A, s, 'A')),
+      k: stage(s),
+    });
+    this.K = K;
+    this.f0 = stage(0);
+    this.kNew = stage(N_STAGES);
+    this.trialStages = Array.from({ length: N_STAGES - 1 }, (_, s) => plan(s + 1));
+    this.denseStages = Array.from({ length: 3 }, (_, s) => plan(s + N_STAGES + 1));
+    this.solution = Float64Array.from(B);
+    this.error5 = Float64Array.from(E5);
+    this.error3 = Float64Array.from(E3);
     this.yStage = new Float64Array(n);
     this.yNew = new Float64Array(n);
     this.fNew = new Float64Array(n);
+    this.e5 = new Float64Array(n);
+    this.e3 = new Float64Array(n);
     this.F = new Float64Array(7 * n);
+    this.denseRows = D.map((d, r) => ({
+      weights: Float64Array.from(d),
+      row: this.F.subarray((3 + r) * n, (4 + r) * n),
+    }));
   }
 
   call(t: number, state: Float64Array, out: Float64Array): void {
@@ -168,15 +235,11 @@ class Dop853Stages {
   }
 
   /** Runge–Kutta stage s: K_s = f(t + c_s h, y + h Σ_{j<s} a_sj K_j) (Hairer, Nørsett & Wanner 1993, §II.1 [M]). */
-  evaluateStage(s: number, t: number, h: number, y: Float64Array): void {
-    const { K, yStage, n } = this;
-    const a = A[s]!;
-    for (let i = 0; i < n; i++) {
-      let acc = 0;
-      for (let j = 0; j < s; j++) acc += a[j]! * K[j]![i]!;
-      yStage[i] = y[i]! + h * acc;
-    }
-    this.call(t + C[s]! * h, yStage, K[s]!);
+  private evaluateStage({ c, weights, k }: StagePlan, t: number, h: number, y: Float64Array): void {
+    const { yStage, n } = this;
+    accumulate(weights, this.K, yStage);
+    for (let i = 0; i < n; i++) yStage[i] = y[i]! + h * yStage[i]!;
+    this.call(t + c * h, yStage, k);
   }
 
   /**
@@ -185,32 +248,24 @@ class Dop853Stages {
    * NaN when the trial point is not finite.
    */
   trialStep(t: number, h: number, tNew: number, y: Float64Array, atol: Float64Array, rtol: number): number {
-    const { K, yNew, fNew, n } = this;
-    // Stages 2..12.
-    for (let s = 1; s < N_STAGES; s++) this.evaluateStage(s, t, h, y);
-    for (let i = 0; i < n; i++) {
-      let acc = 0;
-      for (let j = 0; j < N_STAGES; j++) acc += B[j]! * K[j]![i]!;
-      yNew[i] = y[i]! + h * acc;
-    }
+    const { yNew, fNew, e5, e3, n } = this;
+    for (const stage of this.trialStages) this.evaluateStage(stage, t, h, y);
+    accumulate(this.solution, this.K, yNew);
+    for (let i = 0; i < n; i++) yNew[i] = y[i]! + h * yNew[i]!;
     this.call(tNew, yNew, fNew);
-    K[12]!.set(fNew);
+    this.kNew.set(fNew);
+    accumulate(this.error5, this.K, e5);
+    accumulate(this.error3, this.K, e3);
     let e5sq = 0;
     let e3sq = 0;
     let finite = true;
     for (let i = 0; i < n; i++) {
-      if (!Number.isFinite(yNew[i]!) || !Number.isFinite(fNew[i]!)) finite = false;
+      if (!Number.isFinite(yNew[i]) || !Number.isFinite(fNew[i])) finite = false;
       const sc = atol[i]! + rtol * Math.max(Math.abs(y[i]!), Math.abs(yNew[i]!));
-      let e5 = 0;
-      let e3 = 0;
-      for (let j = 0; j <= N_STAGES; j++) {
-        e5 += E5[j]! * K[j]![i]!;
-        e3 += E3[j]! * K[j]![i]!;
-      }
-      e5 /= sc;
-      e3 /= sc;
-      e5sq += e5 * e5;
-      e3sq += e3 * e3;
+      const e5i = e5[i]! / sc;
+      const e3i = e3[i]! / sc;
+      e5sq += e5i * e5i;
+      e3sq += e3i * e3i;
     }
     let err = 0;
     if (e5sq > 0 || e3sq > 0) err = (h * e5sq) / Math.sqrt(n * (e5sq + 0.01 * e3sq));
@@ -219,19 +274,17 @@ class Dop853Stages {
 
   /** Dense output of the accepted step from (t, y) (Hairer et al. 1993, §II.6): three extra stages, then F0..F6. */
   denseCoefficients(t: number, h: number, y: Float64Array): void {
-    const { K, yNew, fNew, F, n } = this;
-    for (let s = 13; s < 16; s++) this.evaluateStage(s, t, h, y);
+    const { f0, yNew, fNew, F, n } = this;
+    for (const stage of this.denseStages) this.evaluateStage(stage, t, h, y);
     for (let i = 0; i < n; i++) {
       const dy = yNew[i]! - y[i]!;
       F[i] = dy;
-      F[n + i] = h * K[0]![i]! - dy;
-      F[2 * n + i] = 2 * dy - h * (fNew[i]! + K[0]![i]!);
-      for (let r = 0; r < 4; r++) {
-        const d = D[r]!;
-        let acc = 0;
-        for (let j = 0; j < 16; j++) acc += d[j]! * K[j]![i]!;
-        F[(3 + r) * n + i] = h * acc;
-      }
+      F[n + i] = h * f0[i]! - dy;
+      F[2 * n + i] = 2 * dy - h * (fNew[i]! + f0[i]!);
+    }
+    for (const { weights, row } of this.denseRows) {
+      accumulate(weights, this.K, row);
+      for (let i = 0; i < n; i++) row[i] = h * row[i]!;
     }
   }
 }
@@ -247,10 +300,10 @@ function denseEvaluator(segments: readonly Segment[], keep: boolean, t0: number,
     let hi = segments.length - 1;
     while (lo < hi) {
       const mid = (lo + hi + 1) >> 1;
-      if (segments[mid]!.t0 <= time) lo = mid;
+      if (at(segments, mid, 'segments').t0 <= time) lo = mid;
       else hi = mid - 1;
     }
-    const seg = segments[lo]!;
+    const seg = at(segments, lo, 'segments');
     denseEvaluate(seg.y0, seg.F, (time - seg.t0) / seg.h, n, out, 0);
     return out;
   };
@@ -289,8 +342,7 @@ export function integrateDop853(
   const samples = new Float64Array(sampleTimes.length * n);
   const segments: Segment[] = [];
   const stages = new Dop853Stages(f, n);
-  const { K, yNew, fNew, F } = stages;
-  const f0 = K[0]!;
+  const { f0, yNew, fNew, F } = stages;
   let t = t0;
   stages.call(t, y, f0);
   checkFinite(f0, t, 'dy/dt at the initial state');
@@ -304,7 +356,7 @@ export function integrateDop853(
   let rejected = 0;
   let nextSample = 0;
   // Samples at exactly t0.
-  while (nextSample < sampleTimes.length && sampleTimes[nextSample]! === t0) {
+  while (sampleTimes[nextSample] === t0) {
     samples.set(y, nextSample * n);
     nextSample++;
   }
@@ -346,10 +398,11 @@ export function integrateDop853(
       continue;
     }
     // Accepted. Dense output when a sample falls in the step or the caller keeps it.
-    if (keep || (nextSample < sampleTimes.length && sampleTimes[nextSample]! <= tNew)) {
+    let sample = sampleTimes[nextSample];
+    if (keep || (sample !== undefined && sample <= tNew)) {
       stages.denseCoefficients(t, h, y);
-      while (nextSample < sampleTimes.length && sampleTimes[nextSample]! <= tNew) {
-        denseEvaluate(y, F, (sampleTimes[nextSample]! - t) / h, n, samples, nextSample * n);
+      for (; sample !== undefined && sample <= tNew; sample = sampleTimes[nextSample]) {
+        denseEvaluate(y, F, (sample - t) / h, n, samples, nextSample * n);
         nextSample++;
       }
       if (keep) segments.push({ t0: t, h, y0: Float64Array.from(y), F: Float64Array.from(F) });
@@ -375,7 +428,10 @@ export function integrateDop853(
   };
 }
 
-/** DOP853 continuous extension: y(t0 + x·h) = y0 + x(F0 + (1−x)(F1 + x(F2 + (1−x)(F3 + x(F4 + (1−x)(F5 + x·F6)))))) (Hairer et al. 1993, §II.6). */
+/**
+ * DOP853 continuous extension: y(t0 + x·h) = y0 + x(F0 + (1−x)(F1 + x(F2 + (1−x)(F3 + x(F4 + (1−x)(F5 + x·F6))))))
+ * (Hairer et al. 1993, §II.6). Hot loop: indices bounded by n = y0.length, F holds the 7 rows of n.
+ */
 function denseEvaluate(
   y0: Float64Array,
   F: Float64Array,
@@ -408,37 +464,33 @@ function startingStep(
   span: number,
   n: number,
 ): number {
+  const scale = Float64Array.from(y, (yi, i) => at(atol, i, 'atol') + rtol * Math.abs(yi));
   let d0 = 0;
   let d1 = 0;
-  for (let i = 0; i < n; i++) {
-    const sc = atol[i]! + rtol * Math.abs(y[i]!);
-    d0 += (y[i]! / sc) ** 2;
-    d1 += (f0[i]! / sc) ** 2;
+  for (const [i, sc] of scale.entries()) {
+    d0 += (at(y, i, 'y') / sc) ** 2;
+    d1 += (at(f0, i, 'f0') / sc) ** 2;
   }
   d0 = Math.sqrt(d0 / n);
   d1 = Math.sqrt(d1 / n);
   let h0 = d0 < 1e-5 || d1 < 1e-5 ? 1e-6 : 0.01 * (d0 / d1);
   h0 = Math.min(h0, span);
-  const y1 = new Float64Array(n);
+  const y1 = Float64Array.from(y, (yi, i) => yi + h0 * at(f0, i, 'f0'));
   const f1 = new Float64Array(n);
-  for (let i = 0; i < n; i++) y1[i] = y[i]! + h0 * f0[i]!;
   call(t + h0, y1, f1);
   let d2 = 0;
-  for (let i = 0; i < n; i++) {
-    const sc = atol[i]! + rtol * Math.abs(y[i]!);
-    d2 += ((f1[i]! - f0[i]!) / sc) ** 2;
-  }
+  for (const [i, sc] of scale.entries()) d2 += ((at(f1, i, 'f1') - at(f0, i, 'f0')) / sc) ** 2;
   d2 = Math.sqrt(d2 / n) / h0;
   const h1 = Math.max(d1, d2) <= 1e-15 ? Math.max(1e-6, h0 * 1e-3) : (0.01 / Math.max(d1, d2)) ** ERROR_EXPONENT;
   return Math.min(100 * h0, h1);
 }
 
 function checkFinite(v: Float64Array, t: number, what: string): void {
-  for (let i = 0; i < v.length; i++) {
-    if (!Number.isFinite(v[i]!))
+  for (const [i, value] of v.entries()) {
+    if (!Number.isFinite(value))
       throw new InvalidArgumentError(
         `${what}[${i}]`,
-        v[i],
+        value,
         `finite at t = ${t} (the right-hand side returned a non-finite value)`,
       );
   }

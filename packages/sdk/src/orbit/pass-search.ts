@@ -5,6 +5,7 @@
  *
  * @internal
  */
+import { at } from '../internal/checked.js';
 import type { Radians, Seconds } from '../units.js';
 import type { PredictedPass } from './visibility.js';
 
@@ -66,7 +67,7 @@ function firstAfter(times: Float64Array, t: Seconds): number {
     hi = times.length;
   while (lo < hi) {
     const mid = (lo + hi) >> 1;
-    if (times[mid]! > t) hi = mid;
+    if (at(times, mid, 'times') > t) hi = mid;
     else lo = mid + 1;
   }
   return lo;
@@ -85,9 +86,10 @@ function peak(
   const atEnd = f(end);
   if (atEnd > best.value) best = { t: end, value: atEnd };
   let k = -1;
-  for (let j = firstAfter(times, start); j < times.length && times[j]! < end; j++) {
-    if (values[j]! > best.value) {
-      best = { t: times[j]!, value: values[j]! };
+  for (let j = firstAfter(times, start), tj = times[j]; tj !== undefined && tj < end; tj = times[++j]) {
+    const value = at(values, j, 'values');
+    if (value > best.value) {
+      best = { t: tj, value };
       k = j;
     }
   }
@@ -113,12 +115,9 @@ export function findPasses(
   tol: Seconds,
 ): PredictedPass[] {
   const out: PredictedPass[] = [];
-  const n = times.length;
-  const last = n - 1;
-  const above = (k: number): boolean => values[k]! >= level;
-  let open: { start: Seconds; clipped: boolean } | undefined = above(0)
-    ? { start: times[0]!, clipped: true }
-    : undefined;
+  let t0 = at(times, 0, 'times');
+  let prev = at(values, 0, 'values');
+  let open: { start: Seconds; clipped: boolean } | undefined = prev >= level ? { start: t0, clipped: true } : undefined;
   const close = (end: Seconds, clippedAtEnd: boolean): void => {
     if (!open) return;
     const top = peak(f, times, values, open.start, end, tol);
@@ -132,32 +131,37 @@ export function findPasses(
     });
     open = undefined;
   };
-  for (let k = 1; k < n; k++) {
-    const t0 = times[k - 1]!,
-      t1 = times[k]!;
-    if (!above(k - 1) && above(k)) open = { start: crossing(f, t0, t1, level, tol), clipped: false };
-    else if (above(k - 1) && !above(k)) close(crossing(f, t0, t1, level, tol), false);
-    if (k >= last) continue;
-    const prev = values[k - 1]!,
-      here = values[k]!,
-      next = values[k + 1]!;
-    const t2 = times[k + 1]!;
-    if (!above(k - 1) && !above(k) && !above(k + 1) && here > prev && here >= next) {
-      // A short pass may peak above the level between three samples below it.
-      const top = extremum(f, t0, t2, 1, tol);
-      if (top.value >= level) {
-        open = { start: crossing(f, t0, top.t, level, tol), clipped: false };
-        close(crossing(f, top.t, t2, level, tol), false);
-      }
-    } else if (above(k - 1) && above(k) && above(k + 1) && here < prev && here <= next) {
-      // Two passes may be joined by a dip below the level between three samples above it.
-      const low = extremum(f, t0, t2, -1, tol);
-      if (low.value < level) {
-        close(crossing(f, t0, low.t, level, tol), false);
-        open = { start: crossing(f, low.t, t2, level, tol), clipped: false };
+  // A window of three samples (t0, prev), (t1, here), (t2, next) slides along; `next` is absent at the last sample.
+  for (let k = 1; k < times.length; k++) {
+    const t1 = at(times, k, 'times');
+    const here = at(values, k, 'values');
+    const wasAbove = prev >= level;
+    const isAbove = here >= level;
+    if (!wasAbove && isAbove) open = { start: crossing(f, t0, t1, level, tol), clipped: false };
+    else if (wasAbove && !isAbove) close(crossing(f, t0, t1, level, tol), false);
+    const t2 = times[k + 1];
+    const next = values[k + 1];
+    if (t2 !== undefined && next !== undefined) {
+      const nextAbove = next >= level;
+      if (!wasAbove && !isAbove && !nextAbove && here > prev && here >= next) {
+        // A short pass may peak above the level between three samples below it.
+        const top = extremum(f, t0, t2, 1, tol);
+        if (top.value >= level) {
+          open = { start: crossing(f, t0, top.t, level, tol), clipped: false };
+          close(crossing(f, top.t, t2, level, tol), false);
+        }
+      } else if (wasAbove && isAbove && nextAbove && here < prev && here <= next) {
+        // Two passes may be joined by a dip below the level between three samples above it.
+        const low = extremum(f, t0, t2, -1, tol);
+        if (low.value < level) {
+          close(crossing(f, t0, low.t, level, tol), false);
+          open = { start: crossing(f, low.t, t2, level, tol), clipped: false };
+        }
       }
     }
+    t0 = t1;
+    prev = here;
   }
-  close(times[last]!, true);
+  close(t0, true);
   return out;
 }

@@ -16,6 +16,7 @@
 
 import { type ConstantSet, DEFAULT_CONSTANT_SET } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
+import { at as checkedAt } from '../internal/checked.js';
 import {
   requireConstantSet,
   requireInRange,
@@ -173,7 +174,10 @@ function eccentricAnomaly(meanAnomaly: Radians, e: number, trig: { sin: number; 
   trig.cos = Math.cos(E);
 }
 
-/** Elevation (rad) from a site of the satellite position p[at..at+2] (Vallado 4th ed. §4.4, up component [M]). */
+/**
+ * Elevation (rad) from a site of the satellite position p[at..at+2] (Vallado 4th ed. §4.4, up component [M]).
+ * Hot (once per sample): the callers pass a 3-vector scratch at 0 or the sample table at 3k with k < count.
+ */
 function elevationOf(site: { r: Vector3; up: Vector3 }, p: Float64Array, at: number): Radians {
   const dx = p[at]! - site.r[0],
     dy = p[at + 1]! - site.r[1],
@@ -216,7 +220,7 @@ export function satellitePositionEcef(orbit: MeanOrbit, at: Instant, options?: P
   const { ts, set } = resolveOptions(options);
   const out = new Float64Array(3);
   ecefEvaluator(orbit, requireInstant('at', at), 0, ts, set)(0, out, 0);
-  return [out[0]!, out[1]!, out[2]!];
+  return [checkedAt(out, 0, 'position'), checkedAt(out, 1, 'position'), checkedAt(out, 2, 'position')];
 }
 
 /** Validates the stations (fields `sites[k].position.*`, `sites[k].elevationMask`). */

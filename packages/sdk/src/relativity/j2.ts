@@ -17,6 +17,7 @@
 
 import { type ConstantSet, type ConstantsOptions, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED } from '../constants.js';
 import { InvalidArgumentError, OutOfDomainError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { readConstants } from '../internal/options.js';
 import { requireEccentricity, requireFinite, requireInRange, requireOrbitRadius } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
@@ -315,6 +316,7 @@ function windowedMeanJ2Potential(
     const r2 = x * x + y * y + z * z;
     return (-k / (2 * r2 * Math.sqrt(r2))) * ((3 * z * z) / r2 - 1);
   };
+  // Hot (every stage of every step): y is the 7-component state (position, velocity, weighted integral) of y0 below.
   const rhs = (t: number, y: Float64Array, dy: Float64Array): void => {
     const x = y[0]!;
     const yy = y[1]!;
@@ -340,7 +342,7 @@ function windowedMeanJ2Potential(
     absoluteTolerance: [rtol, rtol, rtol, rtol * 1e-3, rtol * 1e-3, rtol * 1e-3, rtol * scale * period],
     sampleTimes: [window],
     onStep(t, y) {
-      const r = Math.hypot(y[0]!, y[1]!, y[2]!);
+      const r = Math.hypot(at(y, 0, 'y'), at(y, 1, 'y'), at(y, 2, 'y'));
       if (r <= rMin) {
         throw new OutOfDomainError(
           'trajectory radius',
@@ -352,8 +354,7 @@ function windowedMeanJ2Potential(
       }
     },
   });
-  const [, , , , , , weightedIntegral = Number.NaN] = result.samples; // the 7th component, always present
-  return weightedIntegral / ((3 * window) / 8);
+  return at(result.samples, 6, 'samples') / ((3 * window) / 8); // the 7th component: the weighted integral
 }
 
 /**

@@ -6,6 +6,7 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { requireInRange, requireInteger } from '../internal/validate.js';
 
 /** Default number of Lagrange nodes: 9 (a degree-8 polynomial), common practice for 15-min SP3, no source. */
@@ -76,14 +77,13 @@ function requireFiniteResult(result: number, times: ArrayLike<number>): number {
  * row serves every coordinate. Berrut & Trefethen (2004) §9 [M]. Callers have validated n and index.
  */
 export function derivativeRow(times: ArrayLike<number>, index: number): Float64Array {
-  const n = times.length;
-  const lambda = barycentricWeights(times);
-  const xi = times[index]!;
-  const row = new Float64Array(n);
+  const nodes = barycentricNodes(times);
+  const { x: xi, weight: lambdaI } = at(nodes, index, 'nodes');
+  const row = new Float64Array(nodes.length);
   let diag = 0;
-  for (let j = 0; j < n; j++) {
+  for (const [j, { x, weight }] of nodes.entries()) {
     if (j === index) continue;
-    const dij = lambda[j]! / lambda[index]! / (xi - times[j]!);
+    const dij = weight / lambdaI / (xi - x);
     row[j] = dij;
     diag -= dij;
   }
@@ -97,11 +97,11 @@ export function derivativeRow(times: ArrayLike<number>, index: number): Float64A
  */
 export function applyDerivativeRow(row: Float64Array, values: ArrayLike<number>, index: number): number {
   let d = 0;
-  for (let j = 0; j < row.length; j++) {
+  for (const [j, dij] of row.entries()) {
     if (j === index) continue;
-    d += row[j]! * values[j]!;
+    d += dij * at(values, j, 'values');
   }
-  return d + row[index]! * values[index]!;
+  return d + at(row, index, 'row') * at(values, index, 'values');
 }
 
 /**
@@ -117,44 +117,42 @@ export function applyDerivativeRow(row: Float64Array, values: ArrayLike<number>,
  * @see Berrut & Trefethen (2004) eq. 4.2 [M].
  */
 export function lagrangeInterpolate(times: ArrayLike<number>, values: ArrayLike<number>, t: number): number {
-  const n = requireNodes(times, values, 1);
+  requireNodes(times, values, 1);
   requireInRange('t', t, -MAX_ABS_NODE, MAX_ABS_NODE, { unit: 's' });
-  const lambda = barycentricWeights(times);
   let num = 0;
   let den = 0;
-  for (let j = 0; j < n; j++) {
-    const dx = t - times[j]!;
-    if (dx === 0) return values[j]!;
-    const w = lambda[j]! / dx;
-    num += w * values[j]!;
+  for (const [j, { x, weight }] of barycentricNodes(times).entries()) {
+    const dx = t - x;
+    const y = at(values, j, 'values');
+    if (dx === 0) return y;
+    const w = weight / dx;
+    num += w * y;
     den += w;
   }
   return requireFiniteResult(num / den, times);
 }
 
-function barycentricWeights(times: ArrayLike<number>): number[] {
-  const n = times.length;
+/** The nodes with their barycentric weights λ_j = 1 / Π_{m≠j} (x_j − x_m), scaled by a common factor. */
+function barycentricNodes(times: ArrayLike<number>): { x: number; weight: number }[] {
+  const xs = Array.from(times);
   // Scale by the span so that the products neither overflow nor underflow.
   let lo = Infinity;
   let hi = -Infinity;
-  for (let j = 0; j < n; j++) {
-    const x = times[j]!;
+  for (const [j, x] of xs.entries()) {
     if (!Number.isFinite(x)) throw new InvalidArgumentError(`times[${j}]`, x, 'a finite abscissa in seconds');
     lo = Math.min(lo, x);
     hi = Math.max(hi, x);
   }
   const scale = hi > lo ? 4 / (hi - lo) : 1;
-  const lambda: number[] = [];
-  for (let j = 0; j < n; j++) {
+  return xs.map((x, j) => {
     let p = 1;
-    for (let m = 0; m < n; m++) {
+    for (const [m, xm] of xs.entries()) {
       if (m === j) continue;
-      const dx = (times[j]! - times[m]!) * scale;
-      if (dx === 0) throw new InvalidArgumentError('times', times[j], 'distinct node abscissae (a time is repeated)');
+      const dx = (x - xm) * scale;
+      if (dx === 0) throw new InvalidArgumentError('times', x, 'distinct node abscissae (a time is repeated)');
       p *= dx;
     }
     // Unscaled λ_j = scaled λ_j · scale^(n−1); the factor is common to all j and cancels in every ratio used.
-    lambda.push(1 / p);
-  }
-  return lambda;
+    return { x, weight: 1 / p };
+  });
 }

@@ -292,8 +292,8 @@ export class PreciseCorrectionStream {
     // Keep only the nodes a future target can use.
     const oldest = queue[0]?.t ?? latest;
     const keepFrom = oldest - 2 * this._maxSpan();
-    let drop = 0;
-    while (drop < nodes.length && nodes[drop]!.t < keepFrom) drop++;
+    const firstKept = nodes.findIndex((node) => !(node.t < keepFrom));
+    const drop = firstKept < 0 ? nodes.length : firstKept;
     if (drop > 0) nodes.splice(0, drop);
   }
 
@@ -324,10 +324,10 @@ function nearest(nodes: readonly Node[], t: number, count: number): Node[] {
   let lo = i;
   let hi = i;
   while (hi - lo + 1 < count) {
-    const canLo = lo > 0;
-    const canHi = hi < nodes.length - 1;
-    if (!canLo && !canHi) break;
-    if (canLo && (!canHi || t - nodes[lo - 1]!.t <= nodes[hi + 1]!.t - t)) lo--;
+    const before = nodes[lo - 1];
+    const after = nodes[hi + 1];
+    if (before === undefined && after === undefined) break;
+    if (before !== undefined && (after === undefined || t - before.t <= after.t - t)) lo--;
     else hi++;
   }
   i = lo;

@@ -13,6 +13,7 @@
 
 import { type ConstantSet, DEFAULT_CONSTANT_SET, SPEED_OF_LIGHT_SQUARED } from '../constants.js';
 import { InvalidArgumentError, OutOfDomainError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import {
   requireConstantSet,
   requireInRange,
@@ -100,7 +101,7 @@ function sampleTimes(duration: number, step: number): Float64Array {
 function requireOutsideMoon(epoch: number, t: number, y: Float64Array): void {
   // A lunar orbiter that decays: the Moon's mean radius (IAU WGCCRE [M]) bounds its trajectory.
   const m = moonPositionAt(epoch, t, true);
-  const rho = Math.hypot(y[0]! - m[0], y[1]! - m[1], y[2]! - m[2]);
+  const rho = Math.hypot(at(y, 0, 'y') - m[0], at(y, 1, 'y') - m[1], at(y, 2, 'y') - m[2]);
   if (rho <= MOON_MEAN_RADIUS) {
     throw new OutOfDomainError(
       "distance from the Moon's centre",
@@ -175,15 +176,19 @@ export function integrateProperTime(
   const field = createGravityField(model, { constants, epochTtSecondsSinceJ2000: epoch });
   const lG = constants.lG;
   const c2 = SPEED_OF_LIGHT_SQUARED;
+  // Hot (every stage of every step): y is the 7-component state (position, velocity, τ − TT) of y0 below.
   const rhs = (t: number, y: Float64Array, dy: Float64Array): void => {
     const x = y[0]!;
     const yy = y[1]!;
     const z = y[2]!;
-    dy[0] = y[3]!;
-    dy[1] = y[4]!;
-    dy[2] = y[5]!;
+    const vx = y[3]!;
+    const vy = y[4]!;
+    const vz = y[5]!;
+    dy[0] = vx;
+    dy[1] = vy;
+    dy[2] = vz;
     field.accelerate(t, x, yy, z, dy, 3);
-    const v2 = y[3]! * y[3]! + y[4]! * y[4]! + y[5]! * y[5]!;
+    const v2 = vx * vx + vy * vy + vz * vz;
     // IERS Conventions 2010 eq. 10.9: d(τ − TT)/dTT = L_G − (U + v²/2)/c².
     dy[6] = lG - (field.potential(t, x, yy, z) + v2 / 2) / c2;
   };
@@ -194,7 +199,7 @@ export function integrateProperTime(
     absoluteTolerance: atol,
     sampleTimes: times,
     onStep(t, y) {
-      const r = Math.hypot(y[0]!, y[1]!, y[2]!);
+      const r = Math.hypot(at(y, 0, 'y'), at(y, 1, 'y'), at(y, 2, 'y'));
       if (r <= rMin) {
         throw new OutOfDomainError(
           'trajectory radius',
@@ -211,8 +216,8 @@ export function integrateProperTime(
   const states = new Float64Array(count * 6);
   const tau = new Float64Array(count);
   for (let k = 0; k < count; k++) {
-    for (let j = 0; j < 6; j++) states[k * 6 + j] = result.samples[k * 7 + j]!;
-    tau[k] = result.samples[k * 7 + 6]!;
+    states.set(result.samples.subarray(k * 7, k * 7 + 6), k * 6);
+    tau[k] = at(result.samples, k * 7 + 6, 'samples');
   }
   tau[0] = 0;
   return {
@@ -247,15 +252,7 @@ export function properTimeSampleState(result: ProperTimeResult, k: number): Stat
     throw new InvalidArgumentError('k', k, `an integer sample index in [0, ${result.t.length - 1}]`);
   }
   const s = result.states;
-  const position: Vector3 = requireVector3(
-    `result.states[${k}].position`,
-    [s[6 * k]!, s[6 * k + 1]!, s[6 * k + 2]!],
-    'm',
-  );
-  const velocity: Vector3 = requireVector3(
-    `result.states[${k}].velocity`,
-    [s[6 * k + 3]!, s[6 * k + 4]!, s[6 * k + 5]!],
-    'm/s',
-  );
+  const position: Vector3 = requireVector3(`result.states[${k}].position`, s.subarray(6 * k, 6 * k + 3), 'm');
+  const velocity: Vector3 = requireVector3(`result.states[${k}].velocity`, s.subarray(6 * k + 3, 6 * k + 6), 'm/s');
   return { position, velocity };
 }

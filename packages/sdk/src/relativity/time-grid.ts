@@ -17,7 +17,13 @@
 import type { ConstantsOptions } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
 import { constantsOf, readOptions } from '../internal/options.js';
-import { requireEccentricity, requireFinite, requireOrbitRadius, requirePositive } from '../internal/validate.js';
+import {
+  requireEccentricity,
+  requireFinite,
+  requireOrbitRadius,
+  requirePositive,
+  requireRecord,
+} from '../internal/validate.js';
 import { solveKepler } from '../orbit/kepler.js';
 import type { Dimensionless, Metres, Radians, Seconds } from '../units.js';
 
@@ -49,12 +55,6 @@ const ANCHOR_INTERVAL = 64;
 const MAX_STEP_ANGLE = 0.02;
 
 const TWO_PI = 2 * Math.PI;
-
-function requireObject(name: string, value: unknown, expected: string): Record<string, unknown> {
-  if (typeof value !== 'object' || value === null || Array.isArray(value))
-    throw new InvalidArgumentError(name, value, expected);
-  return value as Record<string, unknown>;
-}
 
 /** M reduced to [−π, π]. */
 function reduceAngle(M: number): number {
@@ -95,8 +95,8 @@ export function periodicCorrectionOnTimeGrid(
   grid: UniformTimeGrid,
   options?: TimeGridOptions,
 ): Float64Array {
-  const o = requireObject('orbit', orbit, 'an object { semiMajorAxis (m), eccentricity, meanAnomalyAtStart (rad) }');
-  const g = requireObject('grid', grid, 'an object { stepSeconds (s), count }');
+  const o = requireRecord('orbit', orbit, 'an object { semiMajorAxis (m), eccentricity, meanAnomalyAtStart (rad) }');
+  const g = requireRecord('grid', grid, 'an object { stepSeconds (s), count }');
   const opts = readOptions('options', options);
   const c = constantsOf('options', opts);
   const out = opts.out;

@@ -16,17 +16,9 @@ import {
   requireInteger,
   requireOrbitRadius,
   requirePositive,
+  requireRecord,
 } from '../internal/validate.js';
 import type { ConfiguredOffset, ReviewInput, ReviewLimits, ReviewSpacecraft } from './types.js';
-
-function isObject(v: unknown): v is Record<string, unknown> {
-  return typeof v === 'object' && v !== null && !Array.isArray(v);
-}
-
-function requireObject(path: string, v: unknown): Record<string, unknown> {
-  if (!isObject(v)) throw new InvalidArgumentError(path, v, 'an object');
-  return v;
-}
 
 /** Nominal-frequency sanity range: 1 kHz .. 100 GHz covers every clock and carrier in use. */
 export function requireNominalFrequency(path: string, v: unknown): number {
@@ -42,7 +34,7 @@ export function requireNominalFrequency(path: string, v: unknown): number {
 function parseLimits(path: string, o: Record<string, unknown>): ReviewLimits {
   const limits: { -readonly [K in keyof ReviewLimits]: ReviewLimits[K] } = {};
   if (o.tolerance !== undefined) {
-    const t = requireObject(`${path}tolerance`, o.tolerance);
+    const t = requireRecord(`${path}tolerance`, o.tolerance);
     const frac = requirePositive(`${path}tolerance.fractional`, t.fractional);
     if (frac >= 1e-6) {
       throw new InvalidArgumentError(
@@ -67,7 +59,7 @@ function parseLimits(path: string, o: Record<string, unknown>): ReviewLimits {
     limits.reference = r;
   }
   if (o.actuator !== undefined) {
-    const a = requireObject(`${path}actuator`, o.actuator);
+    const a = requireRecord(`${path}actuator`, o.actuator);
     limits.actuator = { rangeFractional: requirePositive(`${path}actuator.rangeFractional`, a.rangeFractional) };
   }
   if (o.phaseToleranceSeconds !== undefined) {
@@ -78,7 +70,7 @@ function parseLimits(path: string, o: Record<string, unknown>): ReviewLimits {
 
 /** Validates a configured offset (exactly one form) against the nominal frequency; `path` names it in errors. */
 export function parseConfigured(path: string, v: unknown, nominal: number): ConfiguredOffset {
-  const o = requireObject(path, v);
+  const o = requireRecord(path, v);
   const forms = ['offsetFrequencyHz', 'offsetHz', 'fractionalOffset', 'tuningWord'].filter((k) => o[k] !== undefined);
   const [form] = forms;
   if (forms.length !== 1 || form === undefined) {
@@ -120,7 +112,7 @@ export function parseConfigured(path: string, v: unknown, nominal: number): Conf
   if (form === 'fractionalOffset') {
     return { fractionalOffset: requireInRange(`${path}.fractionalOffset`, o[form], -1e-3, 1e-3) };
   }
-  const t = requireObject(`${path}.tuningWord`, o[form]);
+  const t = requireRecord(`${path}.tuningWord`, o[form]);
   rejectUnknownKeys(`${path}.tuningWord`, t, ['word', 'clockHz', 'bits']);
   const bits = requireInteger(`${path}.tuningWord.bits`, t.bits, 8, 64);
   const clockHz = requireFrequency(`${path}.tuningWord.clockHz`, t.clockHz);
@@ -171,7 +163,7 @@ function parseSemiMajorAxisKind(
  * @throws {InvalidArgumentError} naming the first offending field by its path.
  */
 export function parseReviewInput(document: unknown): ReviewInput {
-  const root = requireObject('review', document);
+  const root = requireRecord('review', document);
   const top = parseLimits('', root);
   const topNominal =
     root.nominalFrequencyHz === undefined
@@ -185,7 +177,7 @@ export function parseReviewInput(document: unknown): ReviewInput {
   const ids = new Set<string>();
   const spacecraft: ReviewSpacecraft[] = list.map((item, i) => {
     const p = `spacecraft[${i}]`;
-    const o = requireObject(p, item);
+    const o = requireRecord(p, item);
     const id = o.id;
     if (typeof id !== 'string' || id.trim() === '') throw new InvalidArgumentError(`${p}.id`, id, 'a non-empty string');
     if (ids.has(id)) throw new InvalidArgumentError(`${p}.id`, id, 'an id not used by another spacecraft in the file');
@@ -194,7 +186,7 @@ export function parseReviewInput(document: unknown): ReviewInput {
       o.nominalFrequencyHz === undefined
         ? (topNominal ?? requireNominalFrequency(`${p}.nominalFrequencyHz`, undefined))
         : requireNominalFrequency(`${p}.nominalFrequencyHz`, o.nominalFrequencyHz);
-    const orbitObj = requireObject(`${p}.orbit`, o.orbit);
+    const orbitObj = requireRecord(`${p}.orbit`, o.orbit);
     const orbit = {
       semiMajorAxis: requireOrbitRadius(`${p}.orbit.semiMajorAxis`, orbitObj.semiMajorAxis),
       eccentricity:
@@ -209,7 +201,7 @@ export function parseReviewInput(document: unknown): ReviewInput {
     };
     let dispersion: { semiMajorAxisSigma: number } | undefined;
     if (o.dispersion !== undefined) {
-      const d = requireObject(`${p}.dispersion`, o.dispersion);
+      const d = requireRecord(`${p}.dispersion`, o.dispersion);
       const s = requireFinite(
         `${p}.dispersion.semiMajorAxisSigma`,
         d.semiMajorAxisSigma,

@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import {
   analyzeStability,
   createGravityField,
+  defineConstantSet,
   deviations,
   elementsToState,
   fitClockPolynomial,
@@ -17,6 +18,7 @@ import {
   InvalidArgumentError,
   identifyNoise,
   integrateProperTime,
+  j2Potential,
   j2SecularClockRate,
   meanClockRate,
   meanMotion,
@@ -169,6 +171,8 @@ describe('one options convention: a constant set is { constants } in the trailin
       ['periodicCorrectionFromElements', () => periodicCorrectionFromElements(26_560_000, 0.01, 1, GPS_ICD as never)],
       ['j2SecularClockRate', () => j2SecularClockRate(ORBIT, GPS_ICD as never)],
       ['meanClockRate', () => meanClockRate(26_560_000, GPS_ICD as never)],
+      ['j2Potential', () => j2Potential([26_560_000, 0, 0], GPS_ICD as never)],
+      ['createGravityField', () => createGravityField('j2', GPS_ICD as never)],
       [
         'periodicCorrectionOnTimeGrid',
         () =>
@@ -194,6 +198,14 @@ describe('one options convention: a constant set is { constants } in the trailin
       ),
     );
     expect(e.argument).toBe('options.constants.relativisticF');
+  });
+  it('defineConstantSet(overrides, set) (the old positional base) is refused with a hint to write { base: set }', () => {
+    const e = invalid(() => defineConstantSet({ name: 'mission' }, GPS_ICD as never));
+    expect(e.argument).toBe('options');
+    expect(e.hint).toBe('a base set goes in the options: { base: set }');
+    expect(invalid(() => defineConstantSet({ name: 'mission' }, { base: { ...GPS_ICD, gm: 1 } })).argument).toBe(
+      'options.base.gm',
+    );
   });
   it("an output array passed where the options go is refused with a hint, so the caller's buffer is never silently left unfilled", () => {
     const e = invalid(() =>

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { IERS_2010, SPEED_OF_LIGHT_SQUARED } from '../../src/constants.js';
+import { GPS_ICD, IERS_2010, SPEED_OF_LIGHT_SQUARED } from '../../src/constants.js';
 import { InvalidArgumentError } from '../../src/errors.js';
 import { moonPositionLowPrecision, sunPositionLowPrecision } from '../../src/orbit/ephemeris.js';
 import {
@@ -52,6 +52,8 @@ describe('potential terms', () => {
     const k = (IERS_2010.gm * IERS_2010.j2 * IERS_2010.equatorialRadius ** 2) / (2 * 26_561_750 ** 3);
     expect(j2Potential([26_561_750, 0, 0])).toBeCloseTo(k, 9);
     expect(j2Potential([0, 0, 26_561_750])).toBeCloseTo(-2 * k, 9);
+    const kGps = (GPS_ICD.gm * GPS_ICD.j2 * GPS_ICD.equatorialRadius ** 2) / (2 * 26_561_750 ** 3);
+    expect(j2Potential([26_561_750, 0, 0], { constants: GPS_ICD })).toBeCloseTo(kGps, 9);
   });
 
   it('thirdBodyTidalPotential of the Moon at GPS altitude is below 1e-15 of c² (IERS 2010 §10.2: tidal terms < 1e-15 in frequency up to GPS orbit [V1])', () => {

@@ -103,7 +103,7 @@ const leapSpec = (): unknown => ({
 export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
   relativisticConstantF: () => [3.986004418e14],
   constantSet: () => ['gps-icd'],
-  defineConstantSet: () => [{ name: 'mission', gm: 3.9860044e14 }, GPS_ICD],
+  defineConstantSet: () => [{ name: 'mission', gm: 3.9860044e14 }, { base: GPS_ICD }],
   calendarDateFromMjd: () => [61_000],
   daysInMonth: () => [2028, 2],
   isGregorianLeapYear: () => [2028],
@@ -163,7 +163,7 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
   integrateDop853: () => [(_t: number, y: readonly number[]) => [-y[0]!], 0, [1], 10, { relativeTolerance: 1e-10 }],
   createGravityField: () => ['j2', { epochTtSecondsSinceJ2000: 8e8 }],
   pointMassPotential: () => [[A, 0, 0], IERS_2010.gm],
-  j2Potential: () => [[A, 0, 1e6], IERS_2010],
+  j2Potential: () => [[A, 0, 1e6], { constants: IERS_2010 }],
   thirdBodyTidalPotential: () => [[A, 0, 0], [3.8e8, 0, 0], 4.9e12],
   thirdBodyAcceleration: () => [[A, 0, 0], [3.8e8, 0, 0], 4.9e12],
   sunPositionLowPrecision: () => [8e8, 'mean-of-date'],
