@@ -18,7 +18,7 @@ import {
   requirePositive,
 } from '../internal/validate.js';
 import { analyzeStability } from '../stability/analyze.js';
-import { type Instant, requireInstant } from '../time/instant.js';
+import type { Instant } from '../time/instant.js';
 import type { Seconds } from '../units.js';
 import {
   diffusionFromStabilityRows,
@@ -32,17 +32,18 @@ import type { DetectedJump } from './kalman-types.js';
 import type { ClockStates } from './noise.js';
 import { type ClockPolynomial, fitClockPolynomial } from './polynomial.js';
 import { type PolynomialNoiseCovariance, polynomialNoiseCovariance } from './polynomial-noise.js';
+import { requireSeriesEpoch } from './series-epoch.js';
 
 /** A phase record: samples at `t` seconds after `epoch`. */
 export interface ClockPhaseRecord {
   /** Measured phase (clock − reference), in seconds; NaN marks a missing sample. */
   readonly phase: ArrayLike<number>;
-  /** Sample epochs, in seconds since `epoch` (or on the record's own time axis when `epoch` is absent), strictly increasing. */
+  /** Sample epochs, in seconds since `epoch`, strictly increasing. */
   readonly t: ArrayLike<number>;
   /** Nominal sample spacing τ0, in seconds (the averaging-time unit of the stability analysis). */
   readonly tau0: Seconds;
-  /** The instant of t = 0, when the record has one; it is only carried to the result. */
-  readonly epoch?: Instant;
+  /** The instant of t = 0 (required); `t`, the reference epoch and predictions are seconds since it. */
+  readonly epoch: Instant;
 }
 
 /** Options of {@link characterizeClock}. */
@@ -99,10 +100,12 @@ export interface ClockPassEvents {
 
 /** Result of {@link characterizeClock}; the model, noise and filter are those of the last pass. */
 export interface ClockCharacterization {
-  /** The record's epoch, when it had one. */
-  readonly epoch?: Instant;
-  /** Reference epoch t_oc of the polynomial, in the record's seconds. */
+  /** The record's epoch: the instant of t = 0. */
+  readonly epoch: Instant;
+  /** Reference epoch t_oc of the polynomial, in seconds since `epoch`. */
   readonly referenceTime: Seconds;
+  /** Reference epoch t_oc of the polynomial as an instant: `epoch.plus(referenceTime)`. */
+  readonly referenceEpoch: Instant;
   readonly measurementNoise: ClockMeasurementNoise;
   /** The least-squares polynomial of the last pass. */
   readonly polynomial: ClockPolynomial;
@@ -253,7 +256,13 @@ function presentSamples(phase: ArrayLike<number>, t: ArrayLike<number>): { tv: F
 }
 
 /** One characterisation pass on a (corrected) phase series. */
-function characterizePass(phase: ArrayLike<number>, t: ArrayLike<number>, tau0: Seconds, s: PassSettings) {
+function characterizePass(
+  phase: ArrayLike<number>,
+  t: ArrayLike<number>,
+  tau0: Seconds,
+  epoch: Instant,
+  s: PassSettings,
+) {
   const { tv, zv } = presentSamples(phase, t);
   const polynomial = fitClockPolynomial(tv, zv, { degree: s.degree, referenceTime: s.referenceTime });
   const residual = new Float64Array(phase.length).fill(Number.NaN);
@@ -272,7 +281,7 @@ function characterizePass(phase: ArrayLike<number>, t: ArrayLike<number>, tau0: 
     measurementVariance: s.noise.varianceInNoiseFit,
     predict: s.predict,
   });
-  const run = runClockFilter({ phase, t, variance: s.noise.filterVariance }, { q: noise.q, states: s.states });
+  const run = runClockFilter({ epoch, phase, t, variance: s.noise.filterVariance }, { q: noise.q, states: s.states });
   if (run.detection === undefined) throw new RangeError('runClockFilter reports its detection settings');
   // Keep only what is reported, so that a pass's per-epoch arrays are freed before the next pass.
   const filter = {
@@ -296,7 +305,7 @@ function characterizePass(phase: ArrayLike<number>, t: ArrayLike<number>, tau0: 
  * 3. while a pass declares jumps or outliers (and fewer than `maxPasses` ran): the record is corrected by
  *    them ({@link correctPhaseJumps}) and step 2 repeated. The reported model is the last pass's.
  *
- * @param record  Phase (s, NaN missing), epochs (s), τ0 (s), optional epoch Instant of t = 0.
+ * @param record  Epoch (Instant of t = 0), phase (s, NaN missing), epochs (s since it), τ0 (s).
  * @param options Degree, reference epoch, states, measurement σ, prediction epochs, passes.
  * @throws {InvalidArgumentError} naming the field for a bad record or option (e.g. `phase` for a record too
  *   short for the noise estimate, `predict[i]` for an epoch before the last sample).
@@ -308,14 +317,19 @@ export function characterizeClock(
 ): ClockCharacterization {
   requireOptions('options', options);
   if (typeof record !== 'object' || record === null)
-    throw new InvalidArgumentError('record', record, 'an object { phase, t, tau0, epoch? }');
+    throw new InvalidArgumentError('record', record, 'an object { epoch, phase, t, tau0 }');
   const { phase, t } = record;
   if (!phase || typeof phase.length !== 'number')
     throw new InvalidArgumentError('record.phase', phase, 'an array of phases in seconds');
   if (!t || t.length !== phase.length)
     throw new InvalidArgumentError('record.t', t, `${phase.length} epochs in seconds (one per phase sample)`);
-  if (record.epoch !== undefined) requireInstant('record.epoch', record.epoch);
+  const epoch = requireSeriesEpoch('record.epoch', record.epoch);
   const tau0 = requirePositive('record.tau0', record.tau0, 's');
+  // Every sample is checked here, before the first pass reads it (NaN marks a missing one).
+  for (const [i, v] of Array.from(phase).entries()) {
+    if (typeof v !== 'number' || !(Math.abs(v) <= MAX_ABS_PHASE_SECONDS || v !== v))
+      requirePhaseSample(`record.phase[${i}]`, v, true);
+  }
   const firstValid = Array.from(phase).findIndex((v) => !Number.isNaN(v));
   if (firstValid < 0)
     throw new InvalidArgumentError('record.phase', phase, 'at least one phase sample that is not NaN');
@@ -347,7 +361,7 @@ export function characterizeClock(
   };
   const passes: ClockPassEvents[] = [];
   let current: ArrayLike<number> = phase;
-  let result = characterizePass(current, t, tau0, settings);
+  let result = characterizePass(current, t, tau0, epoch, settings);
   for (let pass = 1; pass <= maxPasses; pass++) {
     options.onPass?.(pass);
     const f = result.filter;
@@ -360,11 +374,12 @@ export function characterizeClock(
       f.jumps,
       f.rejected.map((r) => r.index),
     );
-    result = characterizePass(current, t, tau0, settings);
+    result = characterizePass(current, t, tau0, epoch, settings);
   }
   return {
-    ...(record.epoch === undefined ? {} : { epoch: record.epoch }),
+    epoch,
     referenceTime,
+    referenceEpoch: epoch.plus(referenceTime),
     measurementNoise: noise,
     polynomial: result.polynomial,
     polynomialNoise: result.polynomialNoise,

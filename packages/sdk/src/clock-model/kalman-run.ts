@@ -14,7 +14,7 @@ import {
   requirePhaseSample,
   requirePositive,
 } from '../internal/validate.js';
-import { type Instant, requireInstant } from '../time/instant.js';
+import type { Instant } from '../time/instant.js';
 import type { Dimensionless, Seconds } from '../units.js';
 import { type ClockDetectionSettings, detectionFrom, toJump, toOutlier } from './kalman.js';
 import { type CoreEvents, FilterCore } from './kalman-core.js';
@@ -28,6 +28,7 @@ import {
   requireEstimate,
 } from './kalman-types.js';
 import { type ClockStates, requireDiffusion } from './noise.js';
+import { requireSeriesEpoch } from './series-epoch.js';
 
 /** Input series for {@link runClockFilter}. */
 export interface ClockFilterSeries {
@@ -40,11 +41,11 @@ export interface ClockFilterSeries {
   /** Uniform sample spacing, in seconds (used when `t` is absent). */
   readonly tau0?: Seconds;
   /**
-   * The instant of t = 0, when the record has one: `t` (or k·tau0) are then seconds since it, and every
-   * epoch of the result (`t`, jump and outlier epochs) is `epoch.plus(seconds)`. Carried to the result only;
-   * the filter works on the seconds.
+   * The instant of t = 0 (required): `t` (or k·tau0) are seconds since it, and every epoch of the result
+   * (`t`, jump and outlier epochs) is `epoch.plus(seconds)`. Carried to the result; the filter works on the
+   * seconds.
    */
-  readonly epoch?: Instant;
+  readonly epoch: Instant;
 }
 
 /** Options of {@link runClockFilter}. */
@@ -67,9 +68,9 @@ export interface ClockFilterRunOptions extends Omit<ClockKalmanOptions, 'initial
 /** Per-epoch output of {@link runClockFilter}. */
 export interface ClockFilterRun {
   readonly states: ClockStates;
-  /** `series.epoch`, when given: the instant of t = 0. */
-  readonly epoch?: Instant;
-  /** Epochs, in seconds (since `epoch` when given). */
+  /** `series.epoch`: the instant of t = 0. */
+  readonly epoch: Instant;
+  /** Epochs, in seconds since `epoch`. */
   readonly t: Float64Array;
   /** Posterior phase estimate, s. */
   readonly phase: Float64Array;
@@ -212,7 +213,7 @@ function readSeries(series: ClockFilterSeries): {
   if (!z || typeof z.length !== 'number' || z.length === 0)
     throw new InvalidArgumentError('series.phase', z, 'a non-empty array of phases in seconds');
   const n = z.length;
-  if (series.epoch !== undefined) requireInstant('series.epoch', series.epoch);
+  requireSeriesEpoch('series.epoch', series.epoch);
   const t = epochsOf(series, n);
   const variance = variancesOf(series, n);
   let first = -1;
@@ -243,15 +244,15 @@ function readSeries(series: ClockFilterSeries): {
  *   (±3 samples, right kind) in 0 % / 16 % / 83 %, and 93 % at 0.5, 100 % at 1 σ_v/τ0.
  * The last `minEpochs − 1` samples are decided with the innovations available at the end.
  *
- * @param series   Phase (s), variance (s²), and epochs `t` (s) or spacing `tau0` (s).
+ * @param series   Epoch (Instant of t = 0), phase (s), variance (s²), and epochs `t` (s since `epoch`) or spacing `tau0` (s).
  * @param options  Filter options; see {@link ClockFilterRunOptions}.
  * @returns {@link ClockFilterRun}.
- * @throws {InvalidArgumentError} for empty or all-missing phase, non-increasing or non-finite epochs,
+ * @throws {InvalidArgumentError} for a missing or non-Instant `series.epoch`, empty or all-missing phase, non-increasing or non-finite epochs,
  *         a variance array of the wrong length, variance ≤ 0, or any filter option error.
  */
 export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRunOptions): ClockFilterRun {
   if (typeof series !== 'object' || series === null)
-    throw new InvalidArgumentError('series', series, 'an object { phase, variance, t | tau0 }');
+    throw new InvalidArgumentError('series', series, 'an object { epoch, phase, variance, t | tau0 }');
   if (typeof options !== 'object' || options === null)
     throw new InvalidArgumentError('options', options, 'filter options { q, ... }');
   const { z, n, t, variance, first } = readSeries(series);
@@ -334,7 +335,7 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
   core.flush(events);
   collect(events, sampleOf, n - 1, settings.jumpThreshold, jumps, outliers);
   const run = finish(out, code, jumps, outliers, settings, confidence, core, t, initial.states);
-  return series.epoch === undefined ? run : { ...run, epoch: series.epoch };
+  return { ...run, epoch: series.epoch };
 }
 
 /** Moves declared events into the public lists, with sample indices. */
@@ -359,7 +360,7 @@ function collect(
 }
 
 function finish(
-  out: Omit<ClockFilterRun, 'states' | 't' | 'status' | 'rejected' | 'jumps' | 'nisSummary' | 'final'>,
+  out: Omit<ClockFilterRun, 'epoch' | 'states' | 't' | 'status' | 'rejected' | 'jumps' | 'nisSummary' | 'final'>,
   code: Uint8Array,
   jumps: DetectedJump[],
   outliers: DetectedOutlier[],
@@ -368,7 +369,7 @@ function finish(
   core: FilterCore,
   t: Float64Array,
   states: ClockStates,
-): ClockFilterRun {
+): Omit<ClockFilterRun, 'epoch'> {
   const names = ['accepted', 'rejected', 'missing'] as const;
   const status = new Array<'accepted' | 'rejected' | 'missing'>(code.length);
   for (let i = 0; i < code.length; i++) status[i] = names[code[i]!] as 'accepted' | 'rejected' | 'missing';
