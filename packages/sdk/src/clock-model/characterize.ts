@@ -7,6 +7,7 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
+import { at, last } from '../internal/checked.js';
 import {
   MAX_ABS_PHASE_SECONDS,
   MEASUREMENT_VARIANCE_RANGE,
@@ -211,9 +212,10 @@ export function correctPhaseJumps(
   if (!Array.isArray(jumps)) throw new InvalidArgumentError('jumps', jumps, 'an array of detected jumps');
   if (!Array.isArray(rejected)) throw new InvalidArgumentError('rejected', rejected, 'an array of sample indices');
   const out = new Float64Array(phase.length);
+  const times = new Float64Array(phase.length);
   for (let k = 0; k < out.length; k++) {
     out[k] = requirePhaseSample(`phase[${k}]`, phase[k], true);
-    requirePhaseSample(`t[${k}]`, t[k], false);
+    times[k] = requirePhaseSample(`t[${k}]`, t[k], false);
   }
   for (const [i, j] of jumps.entries()) {
     requireObject(`jumps[${i}]`, j, 'a detected jump { kind, size, epoch, updateIndex }');
@@ -224,8 +226,10 @@ export function correctPhaseJumps(
       unit: j.kind === 'phase' ? 's' : '(fractional frequency)',
     });
     requirePhaseSample(`jumps[${i}].epoch`, j.epoch, false);
-    for (let k = j.updateIndex; k < out.length; k++) {
-      out[k] = out[k]! - (j.kind === 'phase' ? j.size : j.size * (t[k]! - j.epoch));
+    const after = out.subarray(j.updateIndex);
+    const afterTimes = times.subarray(j.updateIndex);
+    for (const [k, x] of after.entries()) {
+      after[k] = x - (j.kind === 'phase' ? j.size : j.size * (at(afterTimes, k, 't') - j.epoch));
     }
   }
   for (const [i, k] of rejected.entries()) out[requireInteger(`rejected[${i}]`, k, 0, out.length - 1)] = Number.NaN;
@@ -266,7 +270,8 @@ function characterizePass(
   const { tv, zv } = presentSamples(phase, t);
   const polynomial = fitClockPolynomial(tv, zv, { degree: s.degree, referenceTime: s.referenceTime });
   const residual = new Float64Array(phase.length).fill(Number.NaN);
-  for (let k = 0, i = 0; k < phase.length; k++) if (phase[k] === phase[k]) residual[k] = polynomial.residuals[i++]!;
+  for (let k = 0, i = 0; k < phase.length; k++)
+    if (phase[k] === phase[k]) residual[k] = at(polynomial.residuals, i++, 'polynomial.residuals');
   const statistic = s.states === 3 ? 'ohdev' : 'oadev';
   const analysis = analyzeStability({ phase: residual, tau0 }, { statistics: [statistic] });
   const noise = diffusionFromStabilityRows(analysis.rows, {
@@ -289,7 +294,12 @@ function characterizePass(
     jumps: run.jumps,
     nisSummary: run.nisSummary,
     detection: run.detection,
-    rejected: run.rejected.map((k) => ({ index: k, t: t[k]!, innovation: run.innovation[k]!, nis: run.nis[k]! })),
+    rejected: run.rejected.map((k) => ({
+      index: k,
+      t: at(t, k, 't'),
+      innovation: at(run.innovation, k, 'innovation'),
+      nis: at(run.nis, k, 'nis'),
+    })),
   };
   return { polynomial, noise, polynomialNoise, filter, samplesUsed: tv.length };
 }
@@ -333,9 +343,9 @@ export function characterizeClock(
   const firstValid = Array.from(phase).findIndex((v) => !Number.isNaN(v));
   if (firstValid < 0)
     throw new InvalidArgumentError('record.phase', phase, 'at least one phase sample that is not NaN');
-  const referenceTime = options.referenceTime ?? t[firstValid]!;
+  const referenceTime = options.referenceTime ?? at(t, firstValid, 'record.t');
   const predict = options.predict ?? [];
-  const lastT = t[t.length - 1]!;
+  const lastT = last(t, 'record.t');
   for (const [j, p] of predict.entries()) {
     if (!(p >= lastT))
       throw new InvalidArgumentError(`predict[${j}]`, p, `an epoch at or after the last sample epoch ${lastT} s`);

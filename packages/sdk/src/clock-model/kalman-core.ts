@@ -9,6 +9,7 @@
  * @module
  */
 import { FREQUENCY, type GlrDecision, type GlrDetector, PHASE } from './kalman-glr.js';
+import type { ClockState3, Covariance3 } from './kalman-types.js';
 
 /** Relative change of the prior covariance below which the Riccati recursion counts as converged. */
 export const STEADY_TOLERANCE = 1e-12;
@@ -102,8 +103,8 @@ export class FilterCore {
   constructor(
     q: { q1: number; q2: number; q3: number },
     t: number,
-    state: readonly number[],
-    p: readonly (readonly number[])[],
+    mean: ClockState3,
+    p: Covariance3,
     holdGate: number,
     detector: GlrDetector | undefined,
   ) {
@@ -111,18 +112,13 @@ export class FilterCore {
     this.q2 = q.q2;
     this.q3 = q.q3;
     this.t = t;
-    const three = state.length === 3;
-    this.x0 = state[0]!;
-    this.x1 = state[1]!;
-    this.x2 = three ? state[2]! : 0;
-    const r0 = p[0]!;
-    const r1 = p[1]!;
-    this.p00 = r0[0]!;
-    this.p01 = r0[1]!;
-    this.p11 = r1[1]!;
-    this.p02 = three ? r0[2]! : 0;
-    this.p12 = three ? r1[2]! : 0;
-    this.p22 = three ? p[2]![2]! : 0;
+    [this.x0, this.x1, this.x2] = mean;
+    this.p00 = p.p00;
+    this.p01 = p.p01;
+    this.p11 = p.p11;
+    this.p02 = p.p02;
+    this.p12 = p.p12;
+    this.p22 = p.p22;
     this.holdGate = holdGate;
     this.detector = detector;
     this._cap = detector ? detector.window + 2 : 1;

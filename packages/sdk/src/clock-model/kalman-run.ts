@@ -264,7 +264,7 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
       ? 0.95
       : requireInRange('options.nisConfidence', options.nisConfidence, 1e-6, 1 - 1e-12);
   const { settings, detector } = detectionFrom(options);
-  const core = new FilterCore(q, initial.t, initial.state, initial.covariance, settings.holdGate, detector);
+  const core = new FilterCore(q, initial.t, initial.mean, initial.upper, settings.holdGate, detector);
   const three = initial.states === 3;
   const out = {
     phase: new Float64Array(n),
