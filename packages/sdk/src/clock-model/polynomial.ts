@@ -15,7 +15,7 @@ import {
   requirePhaseSample,
 } from '../internal/validate.js';
 import type { Seconds } from '../units.js';
-import type { Matrix } from './linalg.js';
+import { type Matrix, quadraticForm } from './linalg.js';
 
 /** Options of {@link fitClockPolynomial}. */
 export interface ClockPolynomialOptions {
@@ -258,16 +258,6 @@ function countDistinctUpTo(x: Float64Array, limit: number): number {
     if (!seen.includes(xi)) seen.push(xi);
   }
   return seen.length;
-}
-
-/** xᵀ·M·y summed in the order Σ_k Σ_l x_k M_kl y_l (M square, x and y of its order). */
-function quadraticForm(x: readonly number[], m: Matrix, y: readonly number[]): number {
-  let sum = 0;
-  for (const [k, row] of m.entries()) {
-    const xk = at(x, k, 'x');
-    for (const [l, mkl] of row.entries()) sum += xk * mkl * at(y, l, 'y');
-  }
-  return sum;
 }
 
 /**
