@@ -8,6 +8,7 @@
  * @internal
  * @module
  */
+import { at } from '../internal/checked.js';
 import { FREQUENCY, type GlrDecision, type GlrDetector, PHASE } from './kalman-glr.js';
 import type { ClockState3, Covariance3 } from './kalman-types.js';
 
@@ -45,6 +46,37 @@ export interface CoreEvents {
   outliers: GlrDecision[];
 }
 
+/** A mutable upper triangle of the 3×3 covariance; fields start as doubles, as FilterCore's do. */
+class UpperTriangle {
+  p00 = Number.NaN;
+  p01 = Number.NaN;
+  p02 = Number.NaN;
+  p11 = Number.NaN;
+  p12 = Number.NaN;
+  p22 = Number.NaN;
+}
+
+/** The steady-state measurement update, frozen once the filter has converged: gain, S and posterior. */
+class FrozenUpdate {
+  k0 = Number.NaN;
+  k1 = Number.NaN;
+  k2 = Number.NaN;
+  s = Number.NaN;
+  readonly posterior = new UpperTriangle();
+}
+
+/** A prediction of the filter state, with the standard deviations of its components (written by `peek`). */
+export interface StatePrediction {
+  /** Phase x (s), fractional frequency y, drift d (1/s). */
+  phase: number;
+  frequency: number;
+  drift: number;
+  /** √P₁₁ (s), √P₂₂, √P₃₃ (1/s). */
+  phaseStd: number;
+  frequencyStd: number;
+  driftStd: number;
+}
+
 export class FilterCore {
   // Numeric fields start as doubles (NaN) so that V8 keeps them unboxed-in-place: a field declared
   // without a value starts as undefined and every later store would allocate a new heap number.
@@ -71,8 +103,8 @@ export class FilterCore {
   private _steady = false;
   private _tau = Number.NaN;
   private _r = Number.NaN;
-  private readonly _prior = new Float64Array(6);
-  private readonly _frozen = new Float64Array(10); // k0, k1, k2, s, posterior p00 … p22
+  private readonly _prior = new UpperTriangle();
+  private readonly _frozen = new FrozenUpdate();
   private _priorFromSteady = false;
   /** True while P is the frozen steady-state posterior (no time update since). */
   private _atPost = false;
@@ -152,12 +184,12 @@ export class FilterCore {
     this._priorFromSteady = this._steady && fromPosterior && tau === this._tau;
     if (this._priorFromSteady) {
       const f = this._prior;
-      this.p00 = f[0]!;
-      this.p01 = f[1]!;
-      this.p02 = f[2]!;
-      this.p11 = f[3]!;
-      this.p12 = f[4]!;
-      this.p22 = f[5]!;
+      this.p00 = f.p00;
+      this.p01 = f.p01;
+      this.p02 = f.p02;
+      this.p11 = f.p11;
+      this.p12 = f.p12;
+      this.p22 = f.p22;
       return;
     }
     this._steady = false;
@@ -189,20 +221,18 @@ export class FilterCore {
     this.p22 = p22 + q3 * tau;
   }
 
-  /**
-   * Writes the prediction at `t` ≥ this.t into `out` (x, y, d, √P₁₁, √P₂₂, √P₃₃) without changing the filter.
-   */
-  peek(t: number, out: Float64Array): void {
+  /** Writes the prediction at `t` ≥ this.t into `out` without changing the filter. */
+  peek(t: number, out: StatePrediction): void {
     const tau = t - this.t;
     const h = 0.5 * tau * tau;
     const { p00, p01, p02, p11, p12, p22 } = this;
     this._covarianceUpdate(tau);
-    out[0] = this.x0 + tau * this.x1 + h * this.x2;
-    out[1] = this.x1 + tau * this.x2;
-    out[2] = this.x2;
-    out[3] = Math.sqrt(this.p00);
-    out[4] = Math.sqrt(this.p11);
-    out[5] = Math.sqrt(this.p22);
+    out.phase = this.x0 + tau * this.x1 + h * this.x2;
+    out.frequency = this.x1 + tau * this.x2;
+    out.drift = this.x2;
+    out.phaseStd = Math.sqrt(this.p00);
+    out.frequencyStd = Math.sqrt(this.p11);
+    out.driftStd = Math.sqrt(this.p22);
     this.p00 = p00;
     this.p01 = p01;
     this.p02 = p02;
@@ -216,18 +246,18 @@ export class FilterCore {
     const f = this._prior;
     const same =
       tau === this._tau &&
-      close(this.p00, f[0]!, this.p00, this.p00) &&
-      close(this.p01, f[1]!, this.p00, this.p11) &&
-      close(this.p02, f[2]!, this.p00, this.p22) &&
-      close(this.p11, f[3]!, this.p11, this.p11) &&
-      close(this.p12, f[4]!, this.p11, this.p22) &&
-      close(this.p22, f[5]!, this.p22, this.p22);
-    f[0] = this.p00;
-    f[1] = this.p01;
-    f[2] = this.p02;
-    f[3] = this.p11;
-    f[4] = this.p12;
-    f[5] = this.p22;
+      close(this.p00, f.p00, this.p00, this.p00) &&
+      close(this.p01, f.p01, this.p00, this.p11) &&
+      close(this.p02, f.p02, this.p00, this.p22) &&
+      close(this.p11, f.p11, this.p11, this.p11) &&
+      close(this.p12, f.p12, this.p11, this.p22) &&
+      close(this.p22, f.p22, this.p22, this.p22);
+    f.p00 = this.p00;
+    f.p01 = this.p01;
+    f.p02 = this.p02;
+    f.p11 = this.p11;
+    f.p12 = this.p12;
+    f.p22 = this.p22;
     this._tau = tau;
     this._candidate = same;
   }
@@ -251,15 +281,16 @@ export class FilterCore {
     if (!leftOut) {
       if (this._priorFromSteady && r === this._r) {
         const f = this._frozen;
-        k0 = f[0]!;
-        k1 = f[1]!;
-        k2 = f[2]!;
-        this.p00 = f[4]!;
-        this.p01 = f[5]!;
-        this.p02 = f[6]!;
-        this.p11 = f[7]!;
-        this.p12 = f[8]!;
-        this.p22 = f[9]!;
+        const post = f.posterior;
+        k0 = f.k0;
+        k1 = f.k1;
+        k2 = f.k2;
+        this.p00 = post.p00;
+        this.p01 = post.p01;
+        this.p02 = post.p02;
+        this.p11 = post.p11;
+        this.p12 = post.p12;
+        this.p22 = post.p22;
         this._atPost = true;
       } else {
         const { p00, p01, p02, p11, p12, p22 } = this;
@@ -276,16 +307,17 @@ export class FilterCore {
         this._steady = this._candidate && r === this._r;
         if (this._steady) {
           const f = this._frozen;
-          f[0] = k0;
-          f[1] = k1;
-          f[2] = k2;
-          f[3] = s;
-          f[4] = this.p00;
-          f[5] = this.p01;
-          f[6] = this.p02;
-          f[7] = this.p11;
-          f[8] = this.p12;
-          f[9] = this.p22;
+          const post = f.posterior;
+          f.k0 = k0;
+          f.k1 = k1;
+          f.k2 = k2;
+          f.s = s;
+          post.p00 = this.p00;
+          post.p01 = this.p01;
+          post.p02 = this.p02;
+          post.p11 = this.p11;
+          post.p12 = this.p12;
+          post.p22 = this.p22;
         }
         this._atPost = true;
         this._r = r;
@@ -418,16 +450,18 @@ export class FilterCore {
   private _replay(from: number, to: number): void {
     const src = this._slot(from - 1) * 9;
     const h = this._hpost;
-    this.t = this._ht[this._slot(from - 1)]!;
-    this.x0 = h[src]!;
-    this.x1 = h[src + 1]!;
-    this.x2 = h[src + 2]!;
-    this.p00 = h[src + 3]!;
-    this.p01 = h[src + 4]!;
-    this.p02 = h[src + 5]!;
-    this.p11 = h[src + 6]!;
-    this.p12 = h[src + 7]!;
-    this.p22 = h[src + 8]!;
+    this.t = at(this._ht, this._slot(from - 1), 'history epochs');
+    // Slot `src` of the posterior ring: x0, x1, x2, p00, p01, p02, p11, p12, p22.
+    const stored = (k: number): number => at(h, src + k, 'history posteriors');
+    this.x0 = stored(0);
+    this.x1 = stored(1);
+    this.x2 = stored(2);
+    this.p00 = stored(3);
+    this.p01 = stored(4);
+    this.p02 = stored(5);
+    this.p11 = stored(6);
+    this.p12 = stored(7);
+    this.p22 = stored(8);
     this._steady = false;
     this._candidate = false;
     this._atPost = false;
@@ -441,10 +475,10 @@ export class FilterCore {
     for (let u = from; u <= to; u++) {
       const i = this._slot(u);
       this._applySteps(u - 1);
-      this.predictTo(this._ht[i]!);
+      this.predictTo(at(this._ht, i, 'history epochs'));
       for (const j of this._jumps) if (j.update === u) this._applyJump(j);
       const mode = this._hflag[i] === SKIP ? 2 : u > this._decided ? 0 : 1;
-      this._measure(this._hz[i]!, this._hr[i]!, mode);
+      this._measure(at(this._hz, i, 'history phases'), at(this._hr, i, 'history variances'), mode);
     }
   }
 

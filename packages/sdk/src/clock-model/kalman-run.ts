@@ -5,6 +5,7 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { chiSquareQuantile, chiSquareUpperQuantile } from '../internal/special-functions.js';
 import {
   MAX_ABS_PHASE_SECONDS,
@@ -17,7 +18,7 @@ import {
 import type { Instant } from '../time/instant.js';
 import type { Dimensionless, Seconds } from '../units.js';
 import { type ClockDetectionSettings, detectionFrom, toJump, toOutlier } from './kalman.js';
-import { type CoreEvents, FilterCore } from './kalman-core.js';
+import { type CoreEvents, FilterCore, type StatePrediction } from './kalman-core.js';
 import { estimateOf } from './kalman-estimate.js';
 import {
   type ClockEstimate,
@@ -119,20 +120,23 @@ function epochsOf(series: ClockFilterSeries, n: number): Float64Array {
     if (typeof series.t.length !== 'number' || series.t.length !== n) {
       throw new InvalidArgumentError('series.t', series.t, `an array of ${n} epochs in seconds (one per phase sample)`);
     }
+    let previous = Number.NaN;
     for (let i = 0; i < n; i++) {
       const ti = series.t[i];
       // The helper (which builds its message) is called only for a bad value.
-      t[i] =
+      const value =
         typeof ti === 'number' && Math.abs(ti) <= MAX_ABS_PHASE_SECONDS
           ? ti
           : requirePhaseSample(`series.t[${i}]`, ti, false);
-      if (i > 0 && !(t[i]! > t[i - 1]!)) {
+      if (i > 0 && !(value > previous)) {
         throw new InvalidArgumentError(
           `series.t[${i}]`,
-          t[i],
-          `greater than series.t[${i - 1}] = ${t[i - 1]} (strictly increasing epochs)`,
+          value,
+          `greater than series.t[${i - 1}] = ${previous} (strictly increasing epochs)`,
         );
       }
+      t[i] = value;
+      previous = value;
     }
   } else {
     const tau0 = requireInRange('series.tau0', series.tau0, 1e-9, 1e9, { unit: 's (sample spacing)' });
@@ -257,7 +261,10 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
     throw new InvalidArgumentError('options', options, 'filter options { q, ... }');
   const { z, n, t, variance, first } = readSeries(series);
   const q = requireDiffusion('options.q', options.q);
-  const initial = requireEstimate('options.initial', initialOf(options, q, t[first]!, z[first]!, variance[first]!));
+  const initial = requireEstimate(
+    'options.initial',
+    initialOf(options, q, at(t, first, 't'), at(z, first, 'phase'), at(variance, first, 'variance')),
+  );
   checkQForStates(q, initial.states, 'options.q');
   const confidence =
     options.nisConfidence === undefined
@@ -289,11 +296,18 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
     out.driftStd[i] = three ? Math.sqrt(core.p22) : 0;
   };
   let current = 0;
-  const scratch = new Float64Array(6);
+  const scratch: StatePrediction = {
+    phase: Number.NaN,
+    frequency: Number.NaN,
+    drift: Number.NaN,
+    phaseStd: Number.NaN,
+    frequencyStd: Number.NaN,
+    driftStd: Number.NaN,
+  };
   core.listener = (u, c, leftOut) => {
     const nu = c.nu;
     const s = c.s;
-    const i = sampleOf[u]!;
+    const i = at(sampleOf, u, 'sampleOf');
     write(i);
     code[i] = leftOut ? 1 : 0;
     out.innovation[i] = nu;
@@ -301,19 +315,20 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
     out.nis[i] = (nu * nu) / s;
     // In a replay, refresh the predictions at missing samples between this update and the next one.
     for (let j = i + 1; j < current && code[j] === 2; j++) {
-      c.peek(t[j]!, scratch);
-      out.phase[j] = scratch[0]!;
-      out.frequency[j] = scratch[1]!;
-      out.drift[j] = three ? scratch[2]! : 0;
-      out.phaseStd[j] = scratch[3]!;
-      out.frequencyStd[j] = scratch[4]!;
-      out.driftStd[j] = three ? scratch[5]! : 0;
+      c.peek(at(t, j, 't'), scratch);
+      out.phase[j] = scratch.phase;
+      out.frequency[j] = scratch.frequency;
+      out.drift[j] = three ? scratch.drift : 0;
+      out.phaseStd[j] = scratch.phaseStd;
+      out.frequencyStd[j] = scratch.frequencyStd;
+      out.driftStd[j] = three ? scratch.driftStd : 0;
     }
   };
   const events: CoreEvents = { jumps: [], outliers: [] };
   const jumps: DetectedJump[] = [];
   const outliers: DetectedOutlier[] = [];
   const useDefaultInitial = options.initial === undefined;
+  // The per-sample loop: i is bounded by n, the length of t, z and variance.
   for (let i = 0; i < n; i++) {
     const ti = t[i]!;
     if (ti < core.t) throw new InvalidArgumentError(`series.t[${i}]`, ti, `≥ the initial estimate epoch ${core.t} s`);
@@ -342,18 +357,18 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
 function collect(
   events: CoreEvents,
   sampleOf: Int32Array,
-  at: number,
+  declaredAt: number,
   threshold: number,
   jumps: DetectedJump[],
   outliers: DetectedOutlier[],
 ): void {
   for (const j of events.jumps) {
-    const r = toJump(j, at, threshold);
-    jumps.push({ ...r, updateIndex: sampleOf[r.updateIndex]! });
+    const r = toJump(j, declaredAt, threshold);
+    jumps.push({ ...r, updateIndex: at(sampleOf, r.updateIndex, 'sampleOf') });
   }
   for (const o of events.outliers) {
-    const r = toOutlier(o, at);
-    outliers.push({ ...r, updateIndex: sampleOf[r.updateIndex]! });
+    const r = toOutlier(o, declaredAt);
+    outliers.push({ ...r, updateIndex: at(sampleOf, r.updateIndex, 'sampleOf') });
   }
   events.jumps.length = 0;
   events.outliers.length = 0;
@@ -372,13 +387,13 @@ function finish(
 ): Omit<ClockFilterRun, 'epoch'> {
   const names = ['accepted', 'rejected', 'missing'] as const;
   const status = new Array<'accepted' | 'rejected' | 'missing'>(code.length);
-  for (let i = 0; i < code.length; i++) status[i] = names[code[i]!] as 'accepted' | 'rejected' | 'missing';
+  for (const [i, c] of code.entries()) status[i] = at(names, c, 'status names');
   const rejected: number[] = [];
   let nisSum = 0;
   let nisCount = 0;
-  for (let i = 0; i < code.length; i++) {
-    if (code[i] === 1) rejected.push(i);
-    const v = out.nis[i]!;
+  for (const [i, c] of code.entries()) {
+    if (c === 1) rejected.push(i);
+    const v = at(out.nis, i, 'nis');
     if (v === v) {
       nisSum += v;
       nisCount += 1;
