@@ -10,6 +10,7 @@
  */
 import { at } from '../internal/checked.js';
 import { FREQUENCY, type GlrDecision, type GlrDetector, PHASE } from './kalman-glr.js';
+import { FrozenUpdate, type StatePrediction, UpperTriangle } from './kalman-state.js';
 import type { ClockState3, Covariance3 } from './kalman-types.js';
 
 /** Relative change of the prior covariance below which the Riccati recursion counts as converged. */
@@ -44,37 +45,6 @@ export type PosteriorListener = (update: number, core: FilterCore, leftOut: bool
 export interface CoreEvents {
   jumps: GlrDecision[];
   outliers: GlrDecision[];
-}
-
-/** A mutable upper triangle of the 3×3 covariance; fields start as doubles, as FilterCore's do. */
-class UpperTriangle {
-  p00 = Number.NaN;
-  p01 = Number.NaN;
-  p02 = Number.NaN;
-  p11 = Number.NaN;
-  p12 = Number.NaN;
-  p22 = Number.NaN;
-}
-
-/** The steady-state measurement update, frozen once the filter has converged: gain, S and posterior. */
-class FrozenUpdate {
-  k0 = Number.NaN;
-  k1 = Number.NaN;
-  k2 = Number.NaN;
-  s = Number.NaN;
-  readonly posterior = new UpperTriangle();
-}
-
-/** A prediction of the filter state, with the standard deviations of its components (written by `peek`). */
-export interface StatePrediction {
-  /** Phase x (s), fractional frequency y, drift d (1/s). */
-  phase: number;
-  frequency: number;
-  drift: number;
-  /** √P₁₁ (s), √P₂₂, √P₃₃ (1/s). */
-  phaseStd: number;
-  frequencyStd: number;
-  driftStd: number;
 }
 
 export class FilterCore {

@@ -18,7 +18,8 @@ import {
 import type { Instant } from '../time/instant.js';
 import type { Dimensionless, Seconds } from '../units.js';
 import { type ClockDetectionSettings, detectionFrom, toJump, toOutlier } from './kalman.js';
-import { type CoreEvents, FilterCore, type StatePrediction } from './kalman-core.js';
+import { type CoreEvents, FilterCore } from './kalman-core.js';
+import type { StatePrediction } from './kalman-state.js';
 import { estimateOf } from './kalman-estimate.js';
 import {
   type ClockEstimate,
@@ -387,13 +388,14 @@ function finish(
 ): Omit<ClockFilterRun, 'epoch'> {
   const names = ['accepted', 'rejected', 'missing'] as const;
   const status = new Array<'accepted' | 'rejected' | 'missing'>(code.length);
-  for (const [i, c] of code.entries()) status[i] = at(names, c, 'status names');
+  // Per-sample loops: i is bounded by code.length, the length of every per-sample array; a code is 0, 1 or 2.
+  for (let i = 0; i < code.length; i++) status[i] = names[code[i]!]!;
   const rejected: number[] = [];
   let nisSum = 0;
   let nisCount = 0;
-  for (const [i, c] of code.entries()) {
-    if (c === 1) rejected.push(i);
-    const v = at(out.nis, i, 'nis');
+  for (let i = 0; i < code.length; i++) {
+    if (code[i] === 1) rejected.push(i);
+    const v = out.nis[i]!;
     if (v === v) {
       nisSum += v;
       nisCount += 1;
