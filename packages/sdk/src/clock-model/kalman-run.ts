@@ -19,8 +19,8 @@ import type { Instant } from '../time/instant.js';
 import type { Dimensionless, Seconds } from '../units.js';
 import { type ClockDetectionSettings, detectionFrom, toJump, toOutlier } from './kalman.js';
 import { type CoreEvents, FilterCore } from './kalman-core.js';
-import type { StatePrediction } from './kalman-state.js';
 import { estimateOf } from './kalman-estimate.js';
+import type { StatePrediction } from './kalman-state.js';
 import {
   type ClockEstimate,
   type ClockKalmanOptions,
