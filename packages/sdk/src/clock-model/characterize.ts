@@ -268,7 +268,10 @@ function characterizePass(
   s: PassSettings,
 ) {
   const { tv, zv } = presentSamples(phase, t);
-  const polynomial = fitClockPolynomial(tv, zv, { degree: s.degree, referenceTime: s.referenceTime });
+  const polynomial = fitClockPolynomial(
+    { epoch, t: tv, phase: zv },
+    { degree: s.degree, referenceTime: s.referenceTime },
+  );
   const residual = new Float64Array(phase.length).fill(Number.NaN);
   for (let k = 0, i = 0; k < phase.length; k++)
     if (phase[k] === phase[k]) residual[k] = at(polynomial.residuals, i++, 'polynomial.residuals');

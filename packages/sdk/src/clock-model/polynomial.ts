@@ -14,8 +14,10 @@ import {
   requireOptions,
   requirePhaseSample,
 } from '../internal/validate.js';
+import type { Instant } from '../time/instant.js';
 import type { Seconds } from '../units.js';
 import { type Matrix, quadraticForm } from './linalg.js';
+import { requireSeriesEpoch } from './series-epoch.js';
 
 /** Options of {@link fitClockPolynomial}. */
 export interface ClockPolynomialOptions {
@@ -37,12 +39,26 @@ export interface ClockPolynomialOptions {
   readonly scaleByReducedChiSquare?: boolean;
 }
 
+/** A phase series for {@link fitClockPolynomial}: samples at `t` seconds after `epoch`. */
+export interface ClockPhaseSeries {
+  /** The instant of t = 0 (required); `t`, `referenceTime` and prediction times are seconds since it. */
+  readonly epoch: Instant;
+  /** Epochs, in seconds since `epoch` (any order, finite; at least degree + 1 distinct values). */
+  readonly t: ArrayLike<number>;
+  /** Phase (time error) samples, in seconds, one per epoch. */
+  readonly phase: ArrayLike<number>;
+}
+
 /** A fitted polynomial clock model. */
 export interface ClockPolynomial {
   /** Degree of the fit. */
   readonly degree: 1 | 2;
-  /** Reference epoch t0, in seconds. */
+  /** The series' epoch: the instant of t = 0. */
+  readonly epoch: Instant;
+  /** Reference epoch t0 (t_oc), in seconds since `epoch`. */
   readonly referenceTime: Seconds;
+  /** Reference epoch t0 (t_oc) as an instant: `epoch.plus(referenceTime)`. */
+  readonly referenceEpoch: Instant;
   /** [a0 (s), a1 (dimensionless, s/s), a2 (1/s, s/s²)]; a2 = 0 for degree 1. a2 = D/2 for a drift D. */
   readonly coefficients: readonly [number, number, number];
   /** Covariance of [a0, a1(, a2)] ((degree + 1) square). */
@@ -57,7 +73,7 @@ export interface ClockPolynomial {
   readonly dof: number;
   /** χ²/dof (NaN when dof = 0). */
   readonly reducedChiSquare: number;
-  /** Model phase at t, in seconds. */
+  /** Model phase at t (seconds since `epoch`), in seconds. */
   predict(t: Seconds): Seconds;
   /** Standard deviation of the model phase at t from the coefficient covariance (model only, no new noise), in seconds. */
   predictStd(t: Seconds): Seconds;
@@ -98,20 +114,19 @@ function centreAndHalfSpan(tt: Float64Array, degree: number): { c: number; s: nu
  * 4th ed., §5.2 and §5.3 [M]), never by forming the normal equations; the coefficients and their
  * covariance are then mapped exactly to the t0 basis. Prediction variances are computed in u.
  *
- * @param t        Epochs, in seconds (any order, finite; at least degree + 1 distinct values).
- * @param phase    Phase (time error) samples, in seconds, same length as t.
+ * @param series   `{ epoch, t, phase }`: the instant of t = 0, epochs in seconds since it (any order, finite; at
+ *                 least degree + 1 distinct values) and the phase samples in seconds, one per epoch.
  * @param options  Degree, t0, variances and covariance scaling; see {@link ClockPolynomialOptions}.
- * @returns {@link ClockPolynomial} with coefficients, covariance, residuals, χ² and predictors.
- * @throws {InvalidArgumentError} for mismatched lengths, too few samples or distinct epochs, a non-finite
+ * @returns {@link ClockPolynomial} with coefficients, covariance, residuals, χ², predictors and the epochs.
+ * @throws {InvalidArgumentError} for a missing or non-Instant `series.epoch`, mismatched lengths, too few samples or distinct epochs, a non-finite
  *         sample, a variance ≤ 0, or degree not 1/2.
  * @see IS-GPS-200, §20.3.3.3.3.1 (SV clock correction polynomial af0, af1, af2) [M].
  */
-export function fitClockPolynomial(
-  t: ArrayLike<number>,
-  phase: ArrayLike<number>,
-  options: ClockPolynomialOptions = {},
-): ClockPolynomial {
-  const { degree, tt, zz, w, t0 } = readSamples(t, phase, options);
+export function fitClockPolynomial(series: ClockPhaseSeries, options: ClockPolynomialOptions = {}): ClockPolynomial {
+  if (typeof series !== 'object' || series === null)
+    throw new InvalidArgumentError('series', series, 'an object { epoch, t, phase }');
+  const epoch = requireSeriesEpoch('series.epoch', series.epoch);
+  const { degree, tt, zz, w, t0 } = readSamples(series.t, series.phase, options);
   const p = degree + 1;
   const n = tt.length;
   const v = options.variance;
@@ -180,7 +195,9 @@ export function fitClockPolynomial(
   };
   return {
     degree,
+    epoch,
     referenceTime: t0,
+    referenceEpoch: epoch.plus(t0),
     coefficients: [at(coef, 0, 'coef'), at(coef, 1, 'coef'), degree === 2 ? at(coef, 2, 'coef') : 0],
     covariance,
     covarianceScaled: scaled,

@@ -197,7 +197,10 @@ describe('ClockKalmanFilter', () => {
       },
     });
     t.forEach((ti, i) => f.step(ti, x[i]!, 1e-20));
-    const fit = fitClockPolynomial(t, x, { degree: 1, variance: 1e-20, referenceTime: 290 });
+    const fit = fitClockPolynomial(
+      { epoch: EPOCH, t: t, phase: x },
+      { degree: 1, variance: 1e-20, referenceTime: 290 },
+    );
     const e = f.estimate;
     expect(Math.abs(e.state[0]! - fit.coefficients[0]) / Math.sqrt(fit.covariance[0]![0]!)).toBeLessThan(1e-4);
     expect(Math.abs(e.state[1]! - fit.coefficients[1]) / Math.sqrt(fit.covariance[1]![1]!)).toBeLessThan(1e-4);

@@ -1,4 +1,4 @@
-import { characterizeClock, runClockFilter, simulateClock } from '@tauline/sdk/clock-model';
+import { characterizeClock, fitClockPolynomial, runClockFilter, simulateClock } from '@tauline/sdk/clock-model';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant } from '@tauline/sdk/time';
 import { describe, expect, it } from 'vitest';
@@ -6,7 +6,7 @@ import { describe, expect, it } from 'vitest';
 const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
 const Q = { q1: 1e-23, q2: 1e-31 };
 
-describe('runClockFilter and characterizeClock with their required series epoch', () => {
+describe('runClockFilter, characterizeClock and fitClockPolynomial with their required series epoch', () => {
   // Seeded simulation (seed 11): 600 samples every 300 s with a 2 ns phase jump at sample 400.
   const sim = simulateClock({
     samples: 600,
@@ -60,6 +60,24 @@ describe('runClockFilter and characterizeClock with their required series epoch'
     expect(r.epoch).toBe(epoch);
     expect(r.referenceTime).toBe(86_400);
     expect(ts.formatIso(r.referenceEpoch, { scale: 'GPS', fractionDigits: 0 })).toBe('2027-02-09T06:00:00');
+  });
+
+  it('fitClockPolynomial refuses a series without an epoch, naming series.epoch', () => {
+    const bare = { t: [0, 1, 2, 3], phase: [0, 1e-9, 2e-9, 4e-9] } as unknown as Parameters<
+      typeof fitClockPolynomial
+    >[0];
+    expect(() => fitClockPolynomial(bare)).toThrow(InvalidArgumentError);
+    expect(() => fitClockPolynomial(bare)).toThrow(/series\.epoch.*required/);
+  });
+
+  it('fitClockPolynomial returns the epoch and t_oc as an Instant: 2027-02-08T06:00:00 GPS + 3600 s = 07:00:00 (hand computation [C])', () => {
+    const fit = fitClockPolynomial(
+      { epoch, t: [0, 1800, 3600, 5400], phase: [0, 1e-9, 2e-9, 4e-9] },
+      { referenceTime: 3600 },
+    );
+    expect(fit.epoch).toBe(epoch);
+    expect(fit.referenceTime).toBe(3600);
+    expect(ts.formatIso(fit.referenceEpoch, { scale: 'GPS', fractionDigits: 0 })).toBe('2027-02-08T07:00:00');
   });
 
   it('runClockFilter refuses an epoch that is not an Instant, naming series.epoch', () => {

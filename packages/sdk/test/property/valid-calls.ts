@@ -279,7 +279,7 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
       kind: 'allan',
     })),
   ],
-  fitClockPolynomial: () => [TIMES, PHASE, { degree: 2 }],
+  fitClockPolynomial: () => [{ epoch: passEpoch(), t: TIMES, phase: PHASE }, { degree: 2 }],
   runClockFilter: () => [
     { epoch: passEpoch(), phase: PHASE, variance: 1e-20, tau0: 30 },
     { q: Q2, states: 2 },
