@@ -17,7 +17,10 @@ const F = '<file>';
 
 const CASES: { fixtures: RegExp; argv: string[] }[] = [
   { fixtures: /^(nbs14-phase|phase-two-column)\.txt$/, argv: ['stability', '--phase', F, '--tau0', '1', '--json'] },
-  { fixtures: /^(nbs14-phase|phase-two-column)\.txt$/, argv: ['clock', '--phase', F, '--tau0', '1', '--json'] },
+  {
+    fixtures: /^(nbs14-phase|phase-two-column)\.txt$/,
+    argv: ['clock', '--phase', F, '--epoch', '2027-02-08T06:00:00', '--tau0', '1', '--json'],
+  },
   { fixtures: /^(fictional-304|long-304)\.clk$/, argv: ['stability', '--rinex-clock', F, '--clock', 'G05', '--json'] },
   { fixtures: /\.rnx$/, argv: ['broadcast', F, ...WINDOW, '--json'] },
   { fixtures: /\.sp3$/, argv: ['precise', F, '--json'] },

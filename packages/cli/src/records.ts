@@ -4,6 +4,7 @@
  * `--rinex-clock <file> --clock <name>`. One place for the flags, their help and their errors.
  */
 import { readPhaseTextSeries, readRinexClockSeries, type SampleGap } from '@tauline/sdk/io';
+import type { Instant } from '@tauline/sdk/time';
 import { MAX_RECORD_BYTES, sourceLabel, textChunks } from './files.js';
 import { type FlagSpec, optionalFlag, type ParsedArgs, UsageError } from './framework.js';
 
@@ -64,6 +65,11 @@ export interface ClockRecord {
   clock?: string;
   /** The RINEX file's time system, when it states one. */
   timeSystem?: string;
+  /**
+   * RINEX clock file: the instant at which `times` reads 0 s (its first sample's instant minus its count of
+   * seconds since 1980-01-06T00:00:00), so that `times` are seconds since it. A text record has no calendar.
+   */
+  epoch?: Instant;
 }
 
 /**
@@ -125,7 +131,10 @@ async function readRecord(
     );
     // With one epoch and --tau0 the record is still a single sample: a longer file is the only fix.
     if (s.tau0 === undefined) throw new UsageError(`clock ${clock} has a single epoch; give a longer file`);
+    const origin = s.times[0];
+    if (origin === undefined) throw new UsageError(`clock ${clock} has no epoch; give a longer file`); // not reached: τ0 needs two
     return {
+      epoch: s.epoch.plus(-origin),
       kind: 'phase',
       values: s.phase,
       times: s.times,

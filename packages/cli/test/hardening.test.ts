@@ -133,7 +133,13 @@ describe('framework: flags', () => {
       ['review', REVIEW, '--runs', '200'],
       ['broadcast', NAV, ...WINDOW, '--satellite', 'G05'],
       ['precise', SP3],
-      ['clock', '--phase', join(ROOT, 'packages/sdk/examples/clock/vestra-4-rafs.txt')],
+      [
+        'clock',
+        '--phase',
+        join(ROOT, 'packages/sdk/examples/clock/vestra-4-rafs.txt'),
+        '--epoch',
+        '2027-02-08T06:00:00',
+      ],
     ];
     for (const argv of cases) {
       const a = await run(...argv, '--json');

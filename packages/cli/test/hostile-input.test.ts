@@ -40,7 +40,7 @@ const READERS: readonly (readonly string[])[] = [
   ['stability', '--phase', F, '--tau0', '1'],
   ['stability', '--frequency', F, '--tau0', '1'],
   ['stability', '--rinex-clock', F, '--clock', 'G05'],
-  ['clock', '--phase', F, '--tau0', '1'],
+  ['clock', '--phase', F, '--epoch', '2027-02-08T06:00:00', '--tau0', '1'],
   ['clock', '--rinex-clock', F, '--clock', 'G05'],
   ['broadcast', F, ...WINDOW],
   ['precise', F],

@@ -6,6 +6,7 @@
 
 import { statSync } from 'node:fs';
 import { characterizeClock } from '@tauline/sdk/clock-model';
+import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant } from '@tauline/sdk/time';
 import { type ClockFlags, clockJson, clockReport, clockText } from '../clock-output.js';
 import {
   type Command,
@@ -25,7 +26,7 @@ import {
 import { outputWidth, wrappedOut } from '../layout.js';
 import { phaseSigmaHint, warn } from '../plausibility.js';
 import { startProgress } from '../progress.js';
-import { readClockRecord, recordFlags } from '../records.js';
+import { type ClockRecord, readClockRecord, recordFlags } from '../records.js';
 
 /** Input size above which a terminal shows the progress of reading and characterising, in bytes. */
 export const CLOCK_PROGRESS_BYTES = 4 * 1024 * 1024;
@@ -53,6 +54,31 @@ function uniformEpochs(n: number, tau0: number): Float64Array {
   const t = new Float64Array(n);
   for (let k = 0; k < n; k++) t[k] = k * tau0;
   return t;
+}
+
+/**
+ * The instant of t = 0 of the record's time axis: a RINEX clock file's own (1980-01-06T00:00:00 of its
+ * time system), or `--epoch` for a text record, whose time column has no calendar.
+ */
+function recordEpoch(args: ParsedArgs, rec: ClockRecord): Instant {
+  const text = optionalFlag(args, 'epoch');
+  if (rec.epoch !== undefined) {
+    if (text !== undefined)
+      throw new UsageError('--epoch is for a text record; a RINEX clock file places its epochs itself: leave it out');
+    return rec.epoch;
+  }
+  if (text === undefined) {
+    throw new UsageError(
+      `${rec.flag} ${rec.source} has no calendar: give --epoch <ISO 8601>, the instant at which its time column ` +
+        'reads 0 s (one column: the first sample), e.g. --epoch 2027-02-08T06:00:00 (GPS time) or 2027-02-08T06:00:00Z (UTC)',
+    );
+  }
+  // With a zone designator the text is UTC; without one it is a reading of GPS time.
+  const utc = /(Z|[+-]\d\d:?\d\d)$/i.test(text);
+  return withFlagNames(
+    () => '--epoch',
+    () => createTimeScales(BUNDLED_LEAP_SECONDS).parseIso(text, utc ? 'UTC' : 'GPS'),
+  );
 }
 
 function clockFlags(args: ParsedArgs, io: Io): ClockFlags {
@@ -86,9 +112,15 @@ export const clockCommand: Command = {
   summary:
     'Characterise a clock from its phase record: af0/af1/af2 with uncertainty, noise q1/q2/q3 from the stability of the residuals, Kalman outliers and jumps.',
   usage:
-    '(--phase <file> | --rinex-clock <file> --clock <name>) [--tau0 <s>] [--degree 1|2] [--reference-time <s>] [--predict <s,...>] [--states 2|3] [--measurement-sigma <s>] [--scenario-noise] [--json | --format table|json]',
+    '(--phase <file> --epoch <ISO 8601> | --rinex-clock <file> --clock <name>) [--tau0 <s>] [--degree 1|2] [--reference-time <s>] [--predict <s,...>] [--states 2|3] [--measurement-sigma <s>] [--scenario-noise] [--json | --format table|json]',
   flags: {
     ...recordFlags(['phase']),
+    epoch: {
+      type: 'string',
+      value: '<ISO 8601>',
+      description:
+        'Instant at which the time column of a --phase record reads 0 s (one column: the first sample); required for a text record. Read on GPS time, or on UTC with a zone designator (Z).',
+    },
     tau0: {
       type: 'string',
       value: '<s>',
@@ -168,10 +200,11 @@ is used as given, with a warning on stderr. Exit status: 0 success, 2 unusable i
         throw new UsageError(
           `--predict: ${p} s is before the last sample epoch ${lastT} s; predictions are for epochs after the record`,
         );
+    const epoch = recordEpoch(args, rec);
     // A record too short for the noise estimate is the file's fault: name the flag that gave it.
     const result = withFlagNames({ phase: rec.flag }, () =>
       characterizeClock(
-        { phase: rec.values, t, tau0: rec.tau0 },
+        { epoch, phase: rec.values, t, tau0: rec.tau0 },
         {
           degree: flags.degree,
           states: flags.states,

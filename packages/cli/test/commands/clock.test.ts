@@ -16,7 +16,17 @@ const TRUTH = { af0: 1.5e-7, af1: 3.2e-11, af2: 5e-19, q1: 1e-23, q2: 1e-31, jum
 
 describe('tauline clock', () => {
   it('tauline clock --phase <VESTRA-4 example> --json recovers the true af1, the jump epoch and size, and q1, q2 within the stated uncertainties (generator values in SOURCE.md; model Zucca & Tavella 2005 [M])', async () => {
-    const r = await run(['clock', '--phase', EXAMPLE, '--predict', '1296000', '--scenario-noise', '--json']);
+    const r = await run([
+      'clock',
+      '--phase',
+      EXAMPLE,
+      '--epoch',
+      '2027-02-08T06:00:00',
+      '--predict',
+      '1296000',
+      '--scenario-noise',
+      '--json',
+    ]);
     expect(r.status).toBe(0);
     expect(r.err).toBe('');
     const j = JSON.parse(r.out);
@@ -56,6 +66,8 @@ describe('tauline clock', () => {
       'clock',
       '--phase',
       EXAMPLE,
+      '--epoch',
+      '2027-02-08T06:00:00',
       '--degree',
       '1',
       '--states',
@@ -84,7 +96,7 @@ describe('tauline clock', () => {
   });
 
   it('tauline clock --states 3 fits q3 from OHDEV and reports h₋₄', async () => {
-    const r = await run(['clock', '--phase', EXAMPLE, '--states', '3', '--json']);
+    const r = await run(['clock', '--phase', EXAMPLE, '--epoch', '2027-02-08T06:00:00', '--states', '3', '--json']);
     expect(r.status).toBe(0);
     const j = JSON.parse(r.out);
     expect(j.noise.statistic).toBe('ohdev');
@@ -102,6 +114,20 @@ describe('tauline clock', () => {
       [['--phase', EXAMPLE, '--measurement-sigma', '0'], /--measurement-sigma must be > 0 s/],
       [['--phase', EXAMPLE, '--measurement-sigma', '1ns'], /--measurement-sigma must be a decimal number/],
       [['--phase', EXAMPLE, '--predict', '100'], /--predict: 100 s is before the last sample epoch 1209300 s/],
+      [['--phase', EXAMPLE], /--phase .*vestra-4-rafs\.txt has no calendar: give --epoch <ISO 8601>/],
+      [['--phase', EXAMPLE, '--epoch', '2027-02-30T00:00:00'], /--epoch/],
+      [['--phase', EXAMPLE, '--epoch', 'yesterday'], /--epoch/],
+      [
+        [
+          '--rinex-clock',
+          join(ROOT, 'test/fixtures/rinex-clock/long-304.clk'),
+          '--clock',
+          'G37',
+          '--epoch',
+          '2027-02-08T06:00:00',
+        ],
+        /--epoch is for a text record/,
+      ],
       [['--phase', one], /--tau0/],
       [[], /exactly one input/],
       [['--rinex-clock', EXAMPLE], /--clock/],
@@ -118,8 +144,12 @@ describe('tauline clock', () => {
   it.skipIf(!existsSync(BIN))(
     'the built binary `tauline clock --phase <example> --json` prints the same result as the in-process call',
     async () => {
-      const b = spawnSync(process.execPath, [BIN, 'clock', '--phase', EXAMPLE, '--json'], { encoding: 'utf8' });
-      const inProcess = await run(['clock', '--phase', EXAMPLE, '--json']);
+      const b = spawnSync(
+        process.execPath,
+        [BIN, 'clock', '--phase', EXAMPLE, '--epoch', '2027-02-08T06:00:00', '--json'],
+        { encoding: 'utf8' },
+      );
+      const inProcess = await run(['clock', '--phase', EXAMPLE, '--epoch', '2027-02-08T06:00:00', '--json']);
       if (b.stderr.includes('unknown command')) return; // binary built before this command existed
       expect(b.status).toBe(0);
       expect(JSON.parse(b.stdout).filter.jumps).toEqual(JSON.parse(inProcess.out).filter.jumps);

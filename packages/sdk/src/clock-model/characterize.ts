@@ -7,6 +7,7 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
+import { at, last } from '../internal/checked.js';
 import {
   MAX_ABS_PHASE_SECONDS,
   MEASUREMENT_VARIANCE_RANGE,
@@ -18,7 +19,7 @@ import {
   requirePositive,
 } from '../internal/validate.js';
 import { analyzeStability } from '../stability/analyze.js';
-import { type Instant, requireInstant } from '../time/instant.js';
+import type { Instant } from '../time/instant.js';
 import type { Seconds } from '../units.js';
 import {
   diffusionFromStabilityRows,
@@ -32,17 +33,18 @@ import type { DetectedJump } from './kalman-types.js';
 import type { ClockStates } from './noise.js';
 import { type ClockPolynomial, fitClockPolynomial } from './polynomial.js';
 import { type PolynomialNoiseCovariance, polynomialNoiseCovariance } from './polynomial-noise.js';
+import { requireSeriesEpoch } from './series-epoch.js';
 
 /** A phase record: samples at `t` seconds after `epoch`. */
 export interface ClockPhaseRecord {
   /** Measured phase (clock − reference), in seconds; NaN marks a missing sample. */
   readonly phase: ArrayLike<number>;
-  /** Sample epochs, in seconds since `epoch` (or on the record's own time axis when `epoch` is absent), strictly increasing. */
+  /** Sample epochs, in seconds since `epoch`, strictly increasing. */
   readonly t: ArrayLike<number>;
   /** Nominal sample spacing τ0, in seconds (the averaging-time unit of the stability analysis). */
   readonly tau0: Seconds;
-  /** The instant of t = 0, when the record has one; it is only carried to the result. */
-  readonly epoch?: Instant;
+  /** The instant of t = 0 (required); `t`, the reference epoch and predictions are seconds since it. */
+  readonly epoch: Instant;
 }
 
 /** Options of {@link characterizeClock}. */
@@ -99,10 +101,12 @@ export interface ClockPassEvents {
 
 /** Result of {@link characterizeClock}; the model, noise and filter are those of the last pass. */
 export interface ClockCharacterization {
-  /** The record's epoch, when it had one. */
-  readonly epoch?: Instant;
-  /** Reference epoch t_oc of the polynomial, in the record's seconds. */
+  /** The record's epoch: the instant of t = 0. */
+  readonly epoch: Instant;
+  /** Reference epoch t_oc of the polynomial, in seconds since `epoch`. */
   readonly referenceTime: Seconds;
+  /** Reference epoch t_oc of the polynomial as an instant: `epoch.plus(referenceTime)`. */
+  readonly referenceEpoch: Instant;
   readonly measurementNoise: ClockMeasurementNoise;
   /** The least-squares polynomial of the last pass. */
   readonly polynomial: ClockPolynomial;
@@ -208,9 +212,10 @@ export function correctPhaseJumps(
   if (!Array.isArray(jumps)) throw new InvalidArgumentError('jumps', jumps, 'an array of detected jumps');
   if (!Array.isArray(rejected)) throw new InvalidArgumentError('rejected', rejected, 'an array of sample indices');
   const out = new Float64Array(phase.length);
+  const times = new Float64Array(phase.length);
   for (let k = 0; k < out.length; k++) {
     out[k] = requirePhaseSample(`phase[${k}]`, phase[k], true);
-    requirePhaseSample(`t[${k}]`, t[k], false);
+    times[k] = requirePhaseSample(`t[${k}]`, t[k], false);
   }
   for (const [i, j] of jumps.entries()) {
     requireObject(`jumps[${i}]`, j, 'a detected jump { kind, size, epoch, updateIndex }');
@@ -221,8 +226,10 @@ export function correctPhaseJumps(
       unit: j.kind === 'phase' ? 's' : '(fractional frequency)',
     });
     requirePhaseSample(`jumps[${i}].epoch`, j.epoch, false);
-    for (let k = j.updateIndex; k < out.length; k++) {
-      out[k] = out[k]! - (j.kind === 'phase' ? j.size : j.size * (t[k]! - j.epoch));
+    const after = out.subarray(j.updateIndex);
+    const afterTimes = times.subarray(j.updateIndex);
+    for (const [k, x] of after.entries()) {
+      after[k] = x - (j.kind === 'phase' ? j.size : j.size * (at(afterTimes, k, 't') - j.epoch));
     }
   }
   for (const [i, k] of rejected.entries()) out[requireInteger(`rejected[${i}]`, k, 0, out.length - 1)] = Number.NaN;
@@ -253,11 +260,21 @@ function presentSamples(phase: ArrayLike<number>, t: ArrayLike<number>): { tv: F
 }
 
 /** One characterisation pass on a (corrected) phase series. */
-function characterizePass(phase: ArrayLike<number>, t: ArrayLike<number>, tau0: Seconds, s: PassSettings) {
+function characterizePass(
+  phase: ArrayLike<number>,
+  t: ArrayLike<number>,
+  tau0: Seconds,
+  epoch: Instant,
+  s: PassSettings,
+) {
   const { tv, zv } = presentSamples(phase, t);
-  const polynomial = fitClockPolynomial(tv, zv, { degree: s.degree, referenceTime: s.referenceTime });
+  const polynomial = fitClockPolynomial(
+    { epoch, t: tv, phase: zv },
+    { degree: s.degree, referenceTime: s.referenceTime },
+  );
   const residual = new Float64Array(phase.length).fill(Number.NaN);
-  for (let k = 0, i = 0; k < phase.length; k++) if (phase[k] === phase[k]) residual[k] = polynomial.residuals[i++]!;
+  for (let k = 0, i = 0; k < phase.length; k++)
+    if (phase[k] === phase[k]) residual[k] = at(polynomial.residuals, i++, 'polynomial.residuals');
   const statistic = s.states === 3 ? 'ohdev' : 'oadev';
   const analysis = analyzeStability({ phase: residual, tau0 }, { statistics: [statistic] });
   const noise = diffusionFromStabilityRows(analysis.rows, {
@@ -272,7 +289,7 @@ function characterizePass(phase: ArrayLike<number>, t: ArrayLike<number>, tau0: 
     measurementVariance: s.noise.varianceInNoiseFit,
     predict: s.predict,
   });
-  const run = runClockFilter({ phase, t, variance: s.noise.filterVariance }, { q: noise.q, states: s.states });
+  const run = runClockFilter({ epoch, phase, t, variance: s.noise.filterVariance }, { q: noise.q, states: s.states });
   if (run.detection === undefined) throw new RangeError('runClockFilter reports its detection settings');
   // Keep only what is reported, so that a pass's per-epoch arrays are freed before the next pass.
   const filter = {
@@ -280,7 +297,12 @@ function characterizePass(phase: ArrayLike<number>, t: ArrayLike<number>, tau0: 
     jumps: run.jumps,
     nisSummary: run.nisSummary,
     detection: run.detection,
-    rejected: run.rejected.map((k) => ({ index: k, t: t[k]!, innovation: run.innovation[k]!, nis: run.nis[k]! })),
+    rejected: run.rejected.map((k) => ({
+      index: k,
+      t: at(t, k, 't'),
+      innovation: at(run.innovation, k, 'innovation'),
+      nis: at(run.nis, k, 'nis'),
+    })),
   };
   return { polynomial, noise, polynomialNoise, filter, samplesUsed: tv.length };
 }
@@ -296,7 +318,7 @@ function characterizePass(phase: ArrayLike<number>, t: ArrayLike<number>, tau0: 
  * 3. while a pass declares jumps or outliers (and fewer than `maxPasses` ran): the record is corrected by
  *    them ({@link correctPhaseJumps}) and step 2 repeated. The reported model is the last pass's.
  *
- * @param record  Phase (s, NaN missing), epochs (s), τ0 (s), optional epoch Instant of t = 0.
+ * @param record  Epoch (Instant of t = 0), phase (s, NaN missing), epochs (s since it), τ0 (s).
  * @param options Degree, reference epoch, states, measurement σ, prediction epochs, passes.
  * @throws {InvalidArgumentError} naming the field for a bad record or option (e.g. `phase` for a record too
  *   short for the noise estimate, `predict[i]` for an epoch before the last sample).
@@ -308,20 +330,25 @@ export function characterizeClock(
 ): ClockCharacterization {
   requireOptions('options', options);
   if (typeof record !== 'object' || record === null)
-    throw new InvalidArgumentError('record', record, 'an object { phase, t, tau0, epoch? }');
+    throw new InvalidArgumentError('record', record, 'an object { epoch, phase, t, tau0 }');
   const { phase, t } = record;
   if (!phase || typeof phase.length !== 'number')
     throw new InvalidArgumentError('record.phase', phase, 'an array of phases in seconds');
   if (!t || t.length !== phase.length)
     throw new InvalidArgumentError('record.t', t, `${phase.length} epochs in seconds (one per phase sample)`);
-  if (record.epoch !== undefined) requireInstant('record.epoch', record.epoch);
+  const epoch = requireSeriesEpoch('record.epoch', record.epoch);
   const tau0 = requirePositive('record.tau0', record.tau0, 's');
+  // Every sample is checked here, before the first pass reads it (NaN marks a missing one).
+  for (const [i, v] of Array.from(phase).entries()) {
+    if (typeof v !== 'number' || !(Math.abs(v) <= MAX_ABS_PHASE_SECONDS || v !== v))
+      requirePhaseSample(`record.phase[${i}]`, v, true);
+  }
   const firstValid = Array.from(phase).findIndex((v) => !Number.isNaN(v));
   if (firstValid < 0)
     throw new InvalidArgumentError('record.phase', phase, 'at least one phase sample that is not NaN');
-  const referenceTime = options.referenceTime ?? t[firstValid]!;
+  const referenceTime = options.referenceTime ?? at(t, firstValid, 'record.t');
   const predict = options.predict ?? [];
-  const lastT = t[t.length - 1]!;
+  const lastT = last(t, 'record.t');
   for (const [j, p] of predict.entries()) {
     if (!(p >= lastT))
       throw new InvalidArgumentError(`predict[${j}]`, p, `an epoch at or after the last sample epoch ${lastT} s`);
@@ -347,7 +374,7 @@ export function characterizeClock(
   };
   const passes: ClockPassEvents[] = [];
   let current: ArrayLike<number> = phase;
-  let result = characterizePass(current, t, tau0, settings);
+  let result = characterizePass(current, t, tau0, epoch, settings);
   for (let pass = 1; pass <= maxPasses; pass++) {
     options.onPass?.(pass);
     const f = result.filter;
@@ -360,11 +387,12 @@ export function characterizeClock(
       f.jumps,
       f.rejected.map((r) => r.index),
     );
-    result = characterizePass(current, t, tau0, settings);
+    result = characterizePass(current, t, tau0, epoch, settings);
   }
   return {
-    ...(record.epoch === undefined ? {} : { epoch: record.epoch }),
+    epoch,
     referenceTime,
+    referenceEpoch: epoch.plus(referenceTime),
     measurementNoise: noise,
     polynomial: result.polynomial,
     polynomialNoise: result.polynomialNoise,

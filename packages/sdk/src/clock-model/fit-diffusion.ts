@@ -5,9 +5,10 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { requirePositive } from '../internal/validate.js';
 import type { Dimensionless, Seconds } from '../units.js';
-import { cholesky, type Matrix } from './linalg.js';
+import { cholesky, element, type Matrix } from './linalg.js';
 import { type ClockDiffusion, type ClockStates, requireStates } from './noise.js';
 
 /** A measured stability point for {@link fitDiffusion}. */
@@ -71,15 +72,15 @@ function solveSubset(
 ): { beta: number[]; cov: Matrix } | undefined {
   const p = free.length;
   // Column scaling keeps the normal matrix well conditioned (the columns differ by up to τ⁴).
-  const scale = free.map((c) => Math.sqrt(rows.reduce((s, r, i) => s + weights[i]! * r[c]! ** 2, 0)) || 1);
+  const scale = free.map((c) => Math.sqrt(rows.reduce((s, r, i) => s + at(weights, i) * at(r, c) ** 2, 0)) || 1);
   const n = new Array(p).fill(0).map(() => new Array<number>(p).fill(0));
   const b = new Array<number>(p).fill(0);
   rows.forEach((r, i) => {
-    const w = weights[i]!;
+    const w = at(weights, i);
     for (let a = 0; a < p; a++) {
-      const ra = r[free[a]!]! / scale[a]!;
-      b[a] = b[a]! + w * ra * targets[i]!;
-      for (let c = 0; c < p; c++) n[a]![c] = n[a]![c]! + w * ra * (r[free[c]!]! / scale[c]!);
+      const ra = at(r, at(free, a)) / at(scale, a);
+      b[a] = at(b, a) + w * ra * at(targets, i);
+      for (let c = 0; c < p; c++) at(n, a)[c] = element(n, a, c) + w * ra * (at(r, at(free, c)) / at(scale, c));
     }
   });
   const l = cholesky(n);
@@ -88,17 +89,17 @@ function solveSubset(
   const solve = (rhs: number[]): number[] => {
     const z = rhs.slice();
     for (let i = 0; i < p; i++) {
-      for (let k = 0; k < i; k++) z[i] = z[i]! - l[i]![k]! * z[k]!;
-      z[i] = z[i]! / l[i]![i]!;
+      for (let k = 0; k < i; k++) z[i] = at(z, i) - element(l, i, k) * at(z, k);
+      z[i] = at(z, i) / element(l, i, i);
     }
     for (let i = p - 1; i >= 0; i--) {
-      for (let k = i + 1; k < p; k++) z[i] = z[i]! - l[k]![i]! * z[k]!;
-      z[i] = z[i]! / l[i]![i]!;
+      for (let k = i + 1; k < p; k++) z[i] = at(z, i) - element(l, k, i) * at(z, k);
+      z[i] = at(z, i) / element(l, i, i);
     }
     return z;
   };
   const z = solve(b);
-  const beta = z.map((v, a) => v / scale[a]!);
+  const beta = z.map((v, a) => v / at(scale, a));
   const cov: Matrix = [];
   for (let a = 0; a < p; a++) {
     const e = new Array<number>(p).fill(0);
@@ -106,7 +107,7 @@ function solveSubset(
     const col = solve(e);
     for (let c = 0; c < p; c++) {
       if (!cov[c]) cov[c] = new Array<number>(p).fill(0);
-      cov[c]![a] = col[c]! / (scale[a]! * scale[c]!);
+      at(cov, c)[a] = at(col, c) / (at(scale, a) * at(scale, c));
     }
   }
   return { beta, cov };
@@ -176,26 +177,26 @@ function nonNegativeIrls(
   let variances = measured.slice();
   let best: { beta: number[]; cov: Matrix; free: number[]; ssr: number } | undefined;
   for (let iter = 0; iter < 6; iter++) {
-    const weights = variances.map((v, i) => edfs[i]! / (2 * v * v));
+    const weights = variances.map((v, i) => at(edfs, i) / (2 * v * v));
     best = undefined;
     for (const free of subsets) {
       const sol = solveSubset(rows, measured, weights, free);
       if (!sol || sol.beta.some((v) => v < 0)) continue;
       const full = new Array<number>(nq).fill(0);
       free.forEach((c, a) => {
-        full[c] = sol.beta[a]!;
+        full[c] = at(sol.beta, a);
       });
       let ssr = 0;
       rows.forEach((r, i) => {
-        const m = r.reduce((s, v, c) => s + v * full[c]!, 0);
-        ssr += weights[i]! * (measured[i]! - m) ** 2;
+        const m = r.reduce((s, v, c) => s + v * at(full, c), 0);
+        ssr += at(weights, i) * (at(measured, i) - m) ** 2;
       });
       if (!best || ssr < best.ssr) best = { beta: full, cov: sol.cov, free, ssr };
     }
     if (!best) break;
-    const model = rows.map((r) => r.reduce((s, v, c) => s + v * (best as { beta: number[] }).beta[c]!, 0));
+    const model = rows.map((r) => r.reduce((s, v, c) => s + v * at((best as { beta: number[] }).beta, c), 0));
     // Keep the measured variance where the model gives 0 (no weight information otherwise).
-    variances = model.map((m, i) => (m > 0 ? m : measured[i]!));
+    variances = model.map((m, i) => (m > 0 ? m : at(measured, i)));
   }
   if (!best) {
     // Not reachable for positive τ and deviations (a single-coefficient subset is always solvable and ≥ 0).
@@ -232,24 +233,24 @@ export function fitDiffusion(
 ): DiffusionFit {
   const { states, taus, measured, edfs, allEdf } = readDiffusionPoints(points, options);
   const nq = states;
-  const rows = points.map((p, i) => designRow(taus[i]!, p.kind, states));
+  const rows = points.map((p, i) => designRow(at(taus, i), p.kind, states));
   const { best, variances } = nonNegativeIrls(rows, measured, edfs, nq, points);
   const found = best;
-  const weights = variances.map((v, i) => edfs[i]! / (2 * v * v));
-  const modelVariance = rows.map((r) => r.reduce((s, v, c) => s + v * found.beta[c]!, 0));
-  const normalizedResiduals = modelVariance.map((m, i) => (measured[i]! - m) * Math.sqrt(weights[i]!));
+  const weights = variances.map((v, i) => at(edfs, i) / (2 * v * v));
+  const modelVariance = rows.map((r) => r.reduce((s, v, c) => s + v * at(found.beta, c), 0));
+  const normalizedResiduals = modelVariance.map((m, i) => (at(measured, i) - m) * Math.sqrt(at(weights, i)));
   const chiSquare = normalizedResiduals.reduce((s, r) => s + r * r, 0);
   const dof = points.length - found.free.length;
   const scaleCov = !allEdf && dof > 0 ? chiSquare / dof : 1;
   const covariance: Matrix = Array.from({ length: nq }, () => new Array<number>(nq).fill(0));
   found.free.forEach((c, a) => {
     found.free.forEach((d, b) => {
-      covariance[c]![d] = found.cov[a]![b]! * scaleCov;
+      at(covariance, c)[d] = element(found.cov, a, b) * scaleCov;
     });
   });
   const names = ['q1', 'q2', 'q3'] as const;
   return {
-    q: { q1: found.beta[0]!, q2: found.beta[1]!, q3: states === 3 ? found.beta[2]! : 0 },
+    q: { q1: at(found.beta, 0), q2: at(found.beta, 1), q3: states === 3 ? at(found.beta, 2) : 0 },
     states,
     covariance,
     covarianceScaled: !allEdf && dof > 0,

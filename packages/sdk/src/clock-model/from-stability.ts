@@ -7,6 +7,7 @@
  * @module
  */
 import { ConvergenceError, InvalidArgumentError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { chiSquareQuantile, chiSquareSurvival, chiSquareUpperQuantile } from '../internal/special-functions.js';
 import { requireInRange, requireInteger, requireNonNegative, requirePositive } from '../internal/validate.js';
 import type { StabilityRow } from '../stability/types.js';
@@ -19,7 +20,7 @@ import type {
   StabilityRowsFit,
   StabilityRowsFitOptions,
 } from './from-stability-types.js';
-import { inverseSpd, type Matrix } from './linalg.js';
+import { element, inverseSpd, type Matrix } from './linalg.js';
 import { type ClockDiffusion, type ClockStates, hFromQ } from './noise.js';
 
 export type {
@@ -70,7 +71,7 @@ function generalizedCovarianceTable(size: number, tau0: number, q: Required<Cloc
     const s = t * tau0;
     g[t] = (-q.q1 * s) / 2 + (q.q2 * s ** 3) / 12 - (q.q3 * s ** 5) / 240;
   }
-  g[0] = g[0]! + rv;
+  g[0] = at(g, 0) + rv;
   return g;
 }
 
@@ -93,6 +94,8 @@ function estimateCovariance(
     const count = Math.min(a.n - 1, b.n - 1 - lag) - Math.max(0, -lag) + 1;
     if (count <= 0) continue;
     let c = 0;
+    // The hot kernel: k and l are bounded by K = f.length − 1, and g has 2·K·max(m) + 1 entries, enough for
+    // every |lag + l·m_b − k·m_a| of this lag range (see rowCovariance).
     for (let k = 0; k <= K; k++) {
       for (let l = 0; l <= K; l++) c += f[k]! * f[l]! * g[Math.abs(lag + l * b.m - k * a.m)]!;
     }
@@ -103,10 +106,10 @@ function estimateCovariance(
 
 /** Inverse of a small symmetric positive-definite matrix after scaling to unit diagonal; undefined when singular. */
 function scaledInverse(a: Matrix): Matrix | undefined {
-  const d = a.map((row, i) => Math.sqrt(row[i]!));
+  const d = a.map((row, i) => Math.sqrt(at(row, i)));
   if (d.some((v) => !(v > 0))) return undefined;
-  const inv = inverseSpd(a.map((row, i) => row.map((v, j) => v / (d[i]! * d[j]!))));
-  return inv?.map((row, i) => row.map((v, j) => v / (d[i]! * d[j]!)));
+  const inv = inverseSpd(a.map((row, i) => row.map((v, j) => v / (at(d, i) * at(d, j)))));
+  return inv?.map((row, i) => row.map((v, j) => v / (at(d, i) * at(d, j))));
 }
 
 /**
@@ -169,25 +172,25 @@ export function diffusionFromStabilityRows(
   const q = weightedFit.q;
   const v = rowCovariance(used, statistic, tau0, q, rv);
   const { covariance, free } = sandwichCovariance(used, weightedFit, settings, v);
-  const sd = (i: number): number => (i < states ? Math.sqrt(Math.max(covariance[i]![i]!, 0)) : 0);
+  const sd = (i: number): number => (i < states ? Math.sqrt(Math.max(element(covariance, i, i), 0)) : 0);
   const qStd = { q1: sd(0), q2: sd(1), q3: sd(2) };
 
-  const residuals = used.map((u, i) => u.clockVariance - weightedFit.modelVariance[i]!);
+  const residuals = used.map((u, i) => u.clockVariance - at(weightedFit.modelVariance, i));
   const vInv = scaledInverse(v);
   let chiSquare = Number.NaN;
   if (vInv) {
     chiSquare = 0;
     for (const [i, vi] of vInv.entries())
-      for (const [j, vij] of vi.entries()) chiSquare += residuals[i]! * vij * residuals[j]!;
+      for (const [j, vij] of vi.entries()) chiSquare += at(residuals, i) * vij * at(residuals, j);
   }
   const dof = used.length - free.length;
   const pi2 = Math.PI * Math.PI;
   const interval = (c: 0 | 1 | 2): DiffusionInterval =>
-    diffusionInterval(q[DIFFUSION_NAMES[c]], covariance[c]![c]!, free.includes(c), 1 - confidence);
+    diffusionInterval(q[DIFFUSION_NAMES[c]], element(covariance, c, c), free.includes(c), 1 - confidence);
   const intervals =
     states === 3 ? { q1: interval(0), q2: interval(1), q3: interval(2) } : { q1: interval(0), q2: interval(1) };
   const points = used.map((u, i): StabilityRowFitPoint => {
-    const varianceStd = Math.sqrt(v[i]![i]!);
+    const varianceStd = Math.sqrt(element(v, i, i));
     return {
       tau: u.tau,
       m: u.m,
@@ -196,9 +199,9 @@ export function diffusionFromStabilityRows(
       edf: u.edf,
       noise: u.row.noise,
       clockDeviation: Math.sqrt(u.clockVariance),
-      modelDeviation: Math.sqrt(Math.max(weightedFit.modelVariance[i]! + u.wpm, 0)),
+      modelDeviation: Math.sqrt(Math.max(at(weightedFit.modelVariance, i) + u.wpm, 0)),
       varianceStd,
-      normalizedResidual: residuals[i]! / varianceStd,
+      normalizedResidual: at(residuals, i) / varianceStd,
     };
   });
   return {
@@ -358,8 +361,8 @@ function rowCovariance(
     for (const [j, uj] of used.entries()) {
       if (j < i) continue;
       const c = estimateCovariance(f, NORMS[statistic], ui, uj, g);
-      v[i]![j] = c;
-      v[j]![i] = c;
+      at(v, i)[j] = c;
+      at(v, j)[i] = c;
     }
   }
   return v;
@@ -376,38 +379,40 @@ function sandwichCovariance(
   v: Matrix,
 ): { covariance: Matrix; free: number[] } {
   const { states, statistic, rvStd } = settings;
-  const free = [0, 1, 2].slice(0, states).filter((c) => !weightedFit.atZero.includes(DIFFUSION_NAMES[c]!));
+  const free = [0, 1, 2].slice(0, states).filter((c) => !weightedFit.atZero.includes(at(DIFFUSION_NAMES, c)));
   const a = used.map((u) => designRow(statistic, u.tau, states));
   const w = weightedFit.modelVariance.map((mv, i) => {
-    const u = used[i]!;
+    const u = at(used, i);
     const edf = u.edf * (u.clockVariance / (u.deviation * u.deviation)) ** 2;
     const ref = mv > 0 ? mv : u.clockVariance;
     return edf / (2 * ref * ref);
   });
   const covariance: Matrix = Array.from({ length: states }, () => new Array<number>(states).fill(0));
-  const normal: Matrix = free.map((c) => free.map((d) => a.reduce((s, r, i) => s + w[i]! * r[c]! * r[d]!, 0)));
+  const normal: Matrix = free.map((c) => free.map((d) => a.reduce((s, r, i) => s + at(w, i) * at(r, c) * at(r, d), 0)));
   const normalInv = scaledInverse(normal);
   if (!normalInv) return { covariance, free };
   const nUsed = used.length;
   // L = (AᵀWA)⁻¹AᵀW (p × n); Cov = L V Lᵀ.
-  const l = free.map((_, p) => a.map((r, i) => free.reduce((s, d, k) => s + normalInv[p]![k]! * r[d]!, 0) * w[i]!));
+  const l = free.map((_, p) =>
+    a.map((r, i) => free.reduce((s, d, k) => s + element(normalInv, p, k) * at(r, d), 0) * at(w, i)),
+  );
   free.forEach((c, p) => {
     free.forEach((d, k) => {
-      const lp = l[p]!;
-      const lk = l[k]!;
+      const lp = at(l, p);
+      const lk = at(l, k);
       let s = 0;
-      for (let i = 0; i < nUsed; i++) for (let j = 0; j < nUsed; j++) s += lp[i]! * v[i]![j]! * lk[j]!;
-      covariance[c]![d] = s;
+      for (let i = 0; i < nUsed; i++) for (let j = 0; j < nUsed; j++) s += at(lp, i) * element(v, i, j) * at(lk, j);
+      at(covariance, c)[d] = s;
     });
   });
   if (rvStd > 0) {
     // q̂ = L(s² − σ_v²·u), u_i = c/τ_i²: ∂q̂/∂σ_v² = −L u.
     const jac = l.map(
-      (lp) => -used.reduce((acc, u, i) => acc + lp[i]! * whitePhaseContribution(statistic, u.tau, 1), 0),
+      (lp) => -used.reduce((acc, u, i) => acc + at(lp, i) * whitePhaseContribution(statistic, u.tau, 1), 0),
     );
     free.forEach((c, p) => {
       free.forEach((d, k) => {
-        covariance[c]![d] = covariance[c]![d]! + jac[p]! * jac[k]! * rvStd * rvStd;
+        at(covariance, c)[d] = element(covariance, c, d) + at(jac, p) * at(jac, k) * rvStd * rvStd;
       });
     });
   }

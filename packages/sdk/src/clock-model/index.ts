@@ -68,7 +68,12 @@ export {
   qFromH,
   type StabilitySpecPoint,
 } from './noise.js';
-export { type ClockPolynomial, type ClockPolynomialOptions, fitClockPolynomial } from './polynomial.js';
+export {
+  type ClockPhaseSeries,
+  type ClockPolynomial,
+  type ClockPolynomialOptions,
+  fitClockPolynomial,
+} from './polynomial.js';
 export {
   type PolynomialNoiseCovariance,
   type PolynomialNoiseOptions,

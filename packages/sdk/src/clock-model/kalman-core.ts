@@ -8,7 +8,10 @@
  * @internal
  * @module
  */
+import { at } from '../internal/checked.js';
 import { FREQUENCY, type GlrDecision, type GlrDetector, PHASE } from './kalman-glr.js';
+import { FrozenUpdate, type StatePrediction, UpperTriangle } from './kalman-state.js';
+import type { ClockState3, Covariance3 } from './kalman-types.js';
 
 /** Relative change of the prior covariance below which the Riccati recursion counts as converged. */
 export const STEADY_TOLERANCE = 1e-12;
@@ -70,8 +73,8 @@ export class FilterCore {
   private _steady = false;
   private _tau = Number.NaN;
   private _r = Number.NaN;
-  private readonly _prior = new Float64Array(6);
-  private readonly _frozen = new Float64Array(10); // k0, k1, k2, s, posterior p00 … p22
+  private readonly _prior = new UpperTriangle();
+  private readonly _frozen = new FrozenUpdate();
   private _priorFromSteady = false;
   /** True while P is the frozen steady-state posterior (no time update since). */
   private _atPost = false;
@@ -102,8 +105,8 @@ export class FilterCore {
   constructor(
     q: { q1: number; q2: number; q3: number },
     t: number,
-    state: readonly number[],
-    p: readonly (readonly number[])[],
+    mean: ClockState3,
+    p: Covariance3,
     holdGate: number,
     detector: GlrDetector | undefined,
   ) {
@@ -111,18 +114,13 @@ export class FilterCore {
     this.q2 = q.q2;
     this.q3 = q.q3;
     this.t = t;
-    const three = state.length === 3;
-    this.x0 = state[0]!;
-    this.x1 = state[1]!;
-    this.x2 = three ? state[2]! : 0;
-    const r0 = p[0]!;
-    const r1 = p[1]!;
-    this.p00 = r0[0]!;
-    this.p01 = r0[1]!;
-    this.p11 = r1[1]!;
-    this.p02 = three ? r0[2]! : 0;
-    this.p12 = three ? r1[2]! : 0;
-    this.p22 = three ? p[2]![2]! : 0;
+    [this.x0, this.x1, this.x2] = mean;
+    this.p00 = p.p00;
+    this.p01 = p.p01;
+    this.p11 = p.p11;
+    this.p02 = p.p02;
+    this.p12 = p.p12;
+    this.p22 = p.p22;
     this.holdGate = holdGate;
     this.detector = detector;
     this._cap = detector ? detector.window + 2 : 1;
@@ -156,12 +154,12 @@ export class FilterCore {
     this._priorFromSteady = this._steady && fromPosterior && tau === this._tau;
     if (this._priorFromSteady) {
       const f = this._prior;
-      this.p00 = f[0]!;
-      this.p01 = f[1]!;
-      this.p02 = f[2]!;
-      this.p11 = f[3]!;
-      this.p12 = f[4]!;
-      this.p22 = f[5]!;
+      this.p00 = f.p00;
+      this.p01 = f.p01;
+      this.p02 = f.p02;
+      this.p11 = f.p11;
+      this.p12 = f.p12;
+      this.p22 = f.p22;
       return;
     }
     this._steady = false;
@@ -193,20 +191,18 @@ export class FilterCore {
     this.p22 = p22 + q3 * tau;
   }
 
-  /**
-   * Writes the prediction at `t` ≥ this.t into `out` (x, y, d, √P₁₁, √P₂₂, √P₃₃) without changing the filter.
-   */
-  peek(t: number, out: Float64Array): void {
+  /** Writes the prediction at `t` ≥ this.t into `out` without changing the filter. */
+  peek(t: number, out: StatePrediction): void {
     const tau = t - this.t;
     const h = 0.5 * tau * tau;
     const { p00, p01, p02, p11, p12, p22 } = this;
     this._covarianceUpdate(tau);
-    out[0] = this.x0 + tau * this.x1 + h * this.x2;
-    out[1] = this.x1 + tau * this.x2;
-    out[2] = this.x2;
-    out[3] = Math.sqrt(this.p00);
-    out[4] = Math.sqrt(this.p11);
-    out[5] = Math.sqrt(this.p22);
+    out.phase = this.x0 + tau * this.x1 + h * this.x2;
+    out.frequency = this.x1 + tau * this.x2;
+    out.drift = this.x2;
+    out.phaseStd = Math.sqrt(this.p00);
+    out.frequencyStd = Math.sqrt(this.p11);
+    out.driftStd = Math.sqrt(this.p22);
     this.p00 = p00;
     this.p01 = p01;
     this.p02 = p02;
@@ -220,18 +216,18 @@ export class FilterCore {
     const f = this._prior;
     const same =
       tau === this._tau &&
-      close(this.p00, f[0]!, this.p00, this.p00) &&
-      close(this.p01, f[1]!, this.p00, this.p11) &&
-      close(this.p02, f[2]!, this.p00, this.p22) &&
-      close(this.p11, f[3]!, this.p11, this.p11) &&
-      close(this.p12, f[4]!, this.p11, this.p22) &&
-      close(this.p22, f[5]!, this.p22, this.p22);
-    f[0] = this.p00;
-    f[1] = this.p01;
-    f[2] = this.p02;
-    f[3] = this.p11;
-    f[4] = this.p12;
-    f[5] = this.p22;
+      close(this.p00, f.p00, this.p00, this.p00) &&
+      close(this.p01, f.p01, this.p00, this.p11) &&
+      close(this.p02, f.p02, this.p00, this.p22) &&
+      close(this.p11, f.p11, this.p11, this.p11) &&
+      close(this.p12, f.p12, this.p11, this.p22) &&
+      close(this.p22, f.p22, this.p22, this.p22);
+    f.p00 = this.p00;
+    f.p01 = this.p01;
+    f.p02 = this.p02;
+    f.p11 = this.p11;
+    f.p12 = this.p12;
+    f.p22 = this.p22;
     this._tau = tau;
     this._candidate = same;
   }
@@ -255,15 +251,16 @@ export class FilterCore {
     if (!leftOut) {
       if (this._priorFromSteady && r === this._r) {
         const f = this._frozen;
-        k0 = f[0]!;
-        k1 = f[1]!;
-        k2 = f[2]!;
-        this.p00 = f[4]!;
-        this.p01 = f[5]!;
-        this.p02 = f[6]!;
-        this.p11 = f[7]!;
-        this.p12 = f[8]!;
-        this.p22 = f[9]!;
+        const post = f.posterior;
+        k0 = f.k0;
+        k1 = f.k1;
+        k2 = f.k2;
+        this.p00 = post.p00;
+        this.p01 = post.p01;
+        this.p02 = post.p02;
+        this.p11 = post.p11;
+        this.p12 = post.p12;
+        this.p22 = post.p22;
         this._atPost = true;
       } else {
         const { p00, p01, p02, p11, p12, p22 } = this;
@@ -280,16 +277,17 @@ export class FilterCore {
         this._steady = this._candidate && r === this._r;
         if (this._steady) {
           const f = this._frozen;
-          f[0] = k0;
-          f[1] = k1;
-          f[2] = k2;
-          f[3] = s;
-          f[4] = this.p00;
-          f[5] = this.p01;
-          f[6] = this.p02;
-          f[7] = this.p11;
-          f[8] = this.p12;
-          f[9] = this.p22;
+          const post = f.posterior;
+          f.k0 = k0;
+          f.k1 = k1;
+          f.k2 = k2;
+          f.s = s;
+          post.p00 = this.p00;
+          post.p01 = this.p01;
+          post.p02 = this.p02;
+          post.p11 = this.p11;
+          post.p12 = this.p12;
+          post.p22 = this.p22;
         }
         this._atPost = true;
         this._r = r;
@@ -422,16 +420,18 @@ export class FilterCore {
   private _replay(from: number, to: number): void {
     const src = this._slot(from - 1) * 9;
     const h = this._hpost;
-    this.t = this._ht[this._slot(from - 1)]!;
-    this.x0 = h[src]!;
-    this.x1 = h[src + 1]!;
-    this.x2 = h[src + 2]!;
-    this.p00 = h[src + 3]!;
-    this.p01 = h[src + 4]!;
-    this.p02 = h[src + 5]!;
-    this.p11 = h[src + 6]!;
-    this.p12 = h[src + 7]!;
-    this.p22 = h[src + 8]!;
+    this.t = at(this._ht, this._slot(from - 1), 'history epochs');
+    // Slot `src` of the posterior ring: x0, x1, x2, p00, p01, p02, p11, p12, p22.
+    const stored = (k: number): number => at(h, src + k, 'history posteriors');
+    this.x0 = stored(0);
+    this.x1 = stored(1);
+    this.x2 = stored(2);
+    this.p00 = stored(3);
+    this.p01 = stored(4);
+    this.p02 = stored(5);
+    this.p11 = stored(6);
+    this.p12 = stored(7);
+    this.p22 = stored(8);
     this._steady = false;
     this._candidate = false;
     this._atPost = false;
@@ -445,10 +445,10 @@ export class FilterCore {
     for (let u = from; u <= to; u++) {
       const i = this._slot(u);
       this._applySteps(u - 1);
-      this.predictTo(this._ht[i]!);
+      this.predictTo(at(this._ht, i, 'history epochs'));
       for (const j of this._jumps) if (j.update === u) this._applyJump(j);
       const mode = this._hflag[i] === SKIP ? 2 : u > this._decided ? 0 : 1;
-      this._measure(this._hz[i]!, this._hr[i]!, mode);
+      this._measure(at(this._hz, i, 'history phases'), at(this._hr, i, 'history variances'), mode);
     }
   }
 

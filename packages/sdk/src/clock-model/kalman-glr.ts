@@ -45,7 +45,11 @@ export interface GlrDecision {
   readonly statistic: number;
 }
 
-/** Candidate store and decision rules; the filter core drives it. */
+/**
+ * Candidate store and decision rules; the filter core drives it. A numeric kernel run at every update:
+ * candidates live in flat typed arrays (one STRIDE of `_rows` per ring slot), and every `]!` read is at a
+ * slot < window (ring arithmetic modulo `window`) or at an offset < STRIDE within a slot, or at `input[0 … 4]`.
+ */
 export class GlrDetector {
   readonly window: number;
   readonly minEpochs: number;

@@ -5,6 +5,7 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { chiSquareQuantile, chiSquareUpperQuantile } from '../internal/special-functions.js';
 import {
   MAX_ABS_PHASE_SECONDS,
@@ -14,11 +15,12 @@ import {
   requirePhaseSample,
   requirePositive,
 } from '../internal/validate.js';
-import { type Instant, requireInstant } from '../time/instant.js';
+import type { Instant } from '../time/instant.js';
 import type { Dimensionless, Seconds } from '../units.js';
 import { type ClockDetectionSettings, detectionFrom, toJump, toOutlier } from './kalman.js';
 import { type CoreEvents, FilterCore } from './kalman-core.js';
 import { estimateOf } from './kalman-estimate.js';
+import type { StatePrediction } from './kalman-state.js';
 import {
   type ClockEstimate,
   type ClockKalmanOptions,
@@ -28,6 +30,7 @@ import {
   requireEstimate,
 } from './kalman-types.js';
 import { type ClockStates, requireDiffusion } from './noise.js';
+import { requireSeriesEpoch } from './series-epoch.js';
 
 /** Input series for {@link runClockFilter}. */
 export interface ClockFilterSeries {
@@ -40,11 +43,11 @@ export interface ClockFilterSeries {
   /** Uniform sample spacing, in seconds (used when `t` is absent). */
   readonly tau0?: Seconds;
   /**
-   * The instant of t = 0, when the record has one: `t` (or k·tau0) are then seconds since it, and every
-   * epoch of the result (`t`, jump and outlier epochs) is `epoch.plus(seconds)`. Carried to the result only;
-   * the filter works on the seconds.
+   * The instant of t = 0 (required): `t` (or k·tau0) are seconds since it, and every epoch of the result
+   * (`t`, jump and outlier epochs) is `epoch.plus(seconds)`. Carried to the result; the filter works on the
+   * seconds.
    */
-  readonly epoch?: Instant;
+  readonly epoch: Instant;
 }
 
 /** Options of {@link runClockFilter}. */
@@ -67,9 +70,9 @@ export interface ClockFilterRunOptions extends Omit<ClockKalmanOptions, 'initial
 /** Per-epoch output of {@link runClockFilter}. */
 export interface ClockFilterRun {
   readonly states: ClockStates;
-  /** `series.epoch`, when given: the instant of t = 0. */
-  readonly epoch?: Instant;
-  /** Epochs, in seconds (since `epoch` when given). */
+  /** `series.epoch`: the instant of t = 0. */
+  readonly epoch: Instant;
+  /** Epochs, in seconds since `epoch`. */
   readonly t: Float64Array;
   /** Posterior phase estimate, s. */
   readonly phase: Float64Array;
@@ -118,20 +121,23 @@ function epochsOf(series: ClockFilterSeries, n: number): Float64Array {
     if (typeof series.t.length !== 'number' || series.t.length !== n) {
       throw new InvalidArgumentError('series.t', series.t, `an array of ${n} epochs in seconds (one per phase sample)`);
     }
+    let previous = Number.NaN;
     for (let i = 0; i < n; i++) {
       const ti = series.t[i];
       // The helper (which builds its message) is called only for a bad value.
-      t[i] =
+      const value =
         typeof ti === 'number' && Math.abs(ti) <= MAX_ABS_PHASE_SECONDS
           ? ti
           : requirePhaseSample(`series.t[${i}]`, ti, false);
-      if (i > 0 && !(t[i]! > t[i - 1]!)) {
+      if (i > 0 && !(value > previous)) {
         throw new InvalidArgumentError(
           `series.t[${i}]`,
-          t[i],
-          `greater than series.t[${i - 1}] = ${t[i - 1]} (strictly increasing epochs)`,
+          value,
+          `greater than series.t[${i - 1}] = ${previous} (strictly increasing epochs)`,
         );
       }
+      t[i] = value;
+      previous = value;
     }
   } else {
     const tau0 = requireInRange('series.tau0', series.tau0, 1e-9, 1e9, { unit: 's (sample spacing)' });
@@ -212,7 +218,7 @@ function readSeries(series: ClockFilterSeries): {
   if (!z || typeof z.length !== 'number' || z.length === 0)
     throw new InvalidArgumentError('series.phase', z, 'a non-empty array of phases in seconds');
   const n = z.length;
-  if (series.epoch !== undefined) requireInstant('series.epoch', series.epoch);
+  requireSeriesEpoch('series.epoch', series.epoch);
   const t = epochsOf(series, n);
   const variance = variancesOf(series, n);
   let first = -1;
@@ -243,27 +249,30 @@ function readSeries(series: ClockFilterSeries): {
  *   (±3 samples, right kind) in 0 % / 16 % / 83 %, and 93 % at 0.5, 100 % at 1 σ_v/τ0.
  * The last `minEpochs − 1` samples are decided with the innovations available at the end.
  *
- * @param series   Phase (s), variance (s²), and epochs `t` (s) or spacing `tau0` (s).
+ * @param series   Epoch (Instant of t = 0), phase (s), variance (s²), and epochs `t` (s since `epoch`) or spacing `tau0` (s).
  * @param options  Filter options; see {@link ClockFilterRunOptions}.
  * @returns {@link ClockFilterRun}.
- * @throws {InvalidArgumentError} for empty or all-missing phase, non-increasing or non-finite epochs,
+ * @throws {InvalidArgumentError} for a missing or non-Instant `series.epoch`, empty or all-missing phase, non-increasing or non-finite epochs,
  *         a variance array of the wrong length, variance ≤ 0, or any filter option error.
  */
 export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRunOptions): ClockFilterRun {
   if (typeof series !== 'object' || series === null)
-    throw new InvalidArgumentError('series', series, 'an object { phase, variance, t | tau0 }');
+    throw new InvalidArgumentError('series', series, 'an object { epoch, phase, variance, t | tau0 }');
   if (typeof options !== 'object' || options === null)
     throw new InvalidArgumentError('options', options, 'filter options { q, ... }');
   const { z, n, t, variance, first } = readSeries(series);
   const q = requireDiffusion('options.q', options.q);
-  const initial = requireEstimate('options.initial', initialOf(options, q, t[first]!, z[first]!, variance[first]!));
+  const initial = requireEstimate(
+    'options.initial',
+    initialOf(options, q, at(t, first, 't'), at(z, first, 'phase'), at(variance, first, 'variance')),
+  );
   checkQForStates(q, initial.states, 'options.q');
   const confidence =
     options.nisConfidence === undefined
       ? 0.95
       : requireInRange('options.nisConfidence', options.nisConfidence, 1e-6, 1 - 1e-12);
   const { settings, detector } = detectionFrom(options);
-  const core = new FilterCore(q, initial.t, initial.state, initial.covariance, settings.holdGate, detector);
+  const core = new FilterCore(q, initial.t, initial.mean, initial.upper, settings.holdGate, detector);
   const three = initial.states === 3;
   const out = {
     phase: new Float64Array(n),
@@ -288,11 +297,18 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
     out.driftStd[i] = three ? Math.sqrt(core.p22) : 0;
   };
   let current = 0;
-  const scratch = new Float64Array(6);
+  const scratch: StatePrediction = {
+    phase: Number.NaN,
+    frequency: Number.NaN,
+    drift: Number.NaN,
+    phaseStd: Number.NaN,
+    frequencyStd: Number.NaN,
+    driftStd: Number.NaN,
+  };
   core.listener = (u, c, leftOut) => {
     const nu = c.nu;
     const s = c.s;
-    const i = sampleOf[u]!;
+    const i = at(sampleOf, u, 'sampleOf');
     write(i);
     code[i] = leftOut ? 1 : 0;
     out.innovation[i] = nu;
@@ -300,19 +316,20 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
     out.nis[i] = (nu * nu) / s;
     // In a replay, refresh the predictions at missing samples between this update and the next one.
     for (let j = i + 1; j < current && code[j] === 2; j++) {
-      c.peek(t[j]!, scratch);
-      out.phase[j] = scratch[0]!;
-      out.frequency[j] = scratch[1]!;
-      out.drift[j] = three ? scratch[2]! : 0;
-      out.phaseStd[j] = scratch[3]!;
-      out.frequencyStd[j] = scratch[4]!;
-      out.driftStd[j] = three ? scratch[5]! : 0;
+      c.peek(at(t, j, 't'), scratch);
+      out.phase[j] = scratch.phase;
+      out.frequency[j] = scratch.frequency;
+      out.drift[j] = three ? scratch.drift : 0;
+      out.phaseStd[j] = scratch.phaseStd;
+      out.frequencyStd[j] = scratch.frequencyStd;
+      out.driftStd[j] = three ? scratch.driftStd : 0;
     }
   };
   const events: CoreEvents = { jumps: [], outliers: [] };
   const jumps: DetectedJump[] = [];
   const outliers: DetectedOutlier[] = [];
   const useDefaultInitial = options.initial === undefined;
+  // The per-sample loop: i is bounded by n, the length of t, z and variance.
   for (let i = 0; i < n; i++) {
     const ti = t[i]!;
     if (ti < core.t) throw new InvalidArgumentError(`series.t[${i}]`, ti, `≥ the initial estimate epoch ${core.t} s`);
@@ -334,32 +351,32 @@ export function runClockFilter(series: ClockFilterSeries, options: ClockFilterRu
   core.flush(events);
   collect(events, sampleOf, n - 1, settings.jumpThreshold, jumps, outliers);
   const run = finish(out, code, jumps, outliers, settings, confidence, core, t, initial.states);
-  return series.epoch === undefined ? run : { ...run, epoch: series.epoch };
+  return { ...run, epoch: series.epoch };
 }
 
 /** Moves declared events into the public lists, with sample indices. */
 function collect(
   events: CoreEvents,
   sampleOf: Int32Array,
-  at: number,
+  declaredAt: number,
   threshold: number,
   jumps: DetectedJump[],
   outliers: DetectedOutlier[],
 ): void {
   for (const j of events.jumps) {
-    const r = toJump(j, at, threshold);
-    jumps.push({ ...r, updateIndex: sampleOf[r.updateIndex]! });
+    const r = toJump(j, declaredAt, threshold);
+    jumps.push({ ...r, updateIndex: at(sampleOf, r.updateIndex, 'sampleOf') });
   }
   for (const o of events.outliers) {
-    const r = toOutlier(o, at);
-    outliers.push({ ...r, updateIndex: sampleOf[r.updateIndex]! });
+    const r = toOutlier(o, declaredAt);
+    outliers.push({ ...r, updateIndex: at(sampleOf, r.updateIndex, 'sampleOf') });
   }
   events.jumps.length = 0;
   events.outliers.length = 0;
 }
 
 function finish(
-  out: Omit<ClockFilterRun, 'states' | 't' | 'status' | 'rejected' | 'jumps' | 'nisSummary' | 'final'>,
+  out: Omit<ClockFilterRun, 'epoch' | 'states' | 't' | 'status' | 'rejected' | 'jumps' | 'nisSummary' | 'final'>,
   code: Uint8Array,
   jumps: DetectedJump[],
   outliers: DetectedOutlier[],
@@ -368,10 +385,11 @@ function finish(
   core: FilterCore,
   t: Float64Array,
   states: ClockStates,
-): ClockFilterRun {
+): Omit<ClockFilterRun, 'epoch'> {
   const names = ['accepted', 'rejected', 'missing'] as const;
   const status = new Array<'accepted' | 'rejected' | 'missing'>(code.length);
-  for (let i = 0; i < code.length; i++) status[i] = names[code[i]!] as 'accepted' | 'rejected' | 'missing';
+  // Per-sample loops: i is bounded by code.length, the length of every per-sample array; a code is 0, 1 or 2.
+  for (let i = 0; i < code.length; i++) status[i] = names[code[i]!]!;
   const rejected: number[] = [];
   let nisSum = 0;
   let nisCount = 0;

@@ -5,6 +5,7 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { MAX_ABS_PHASE_SECONDS, requireFinite, requireInRange, requireNonNegative } from '../internal/validate.js';
 import type { Dimensionless, Seconds } from '../units.js';
 import { add, cholesky, congruence, type Matrix, multiplyVector } from './linalg.js';
@@ -47,10 +48,35 @@ export interface ClockStep {
 }
 
 /** Validates an estimate (2 or 3 states, symmetric positive semi-definite covariance). */
-export function requireEstimate(
-  argument: string,
-  e: unknown,
-): { t: number; state: number[]; covariance: Matrix; states: ClockStates } {
+/** A clock state padded to three: [x (s), y (dimensionless), d (1/s)], d = 0 for a 2-state model. */
+export type ClockState3 = readonly [number, number, number];
+
+/** The upper triangle of a clock covariance padded to 3×3 (zeros in the drift row and column for 2 states). */
+export interface Covariance3 {
+  readonly p00: number;
+  readonly p01: number;
+  readonly p02: number;
+  readonly p11: number;
+  readonly p12: number;
+  readonly p22: number;
+}
+
+/** A validated estimate: as given (`state`, `covariance`) and padded to three states (`mean`, `upper`). */
+export interface CheckedEstimate {
+  readonly t: number;
+  readonly state: number[];
+  readonly covariance: Matrix;
+  readonly states: ClockStates;
+  readonly mean: ClockState3;
+  readonly upper: Covariance3;
+}
+
+/** `rows[i][j]` of a matrix whose shape was checked. */
+function element(rows: Matrix, i: number, j: number): number {
+  return at(at(rows, i, 'covariance'), j, `covariance[${i}]`);
+}
+
+export function requireEstimate(argument: string, e: unknown): CheckedEstimate {
   if (typeof e !== 'object' || e === null)
     throw new InvalidArgumentError(argument, e, 'an estimate { t (s), state [x, y(, d)], covariance }');
   const r = e as Record<string, unknown>;
@@ -71,11 +97,11 @@ export function requireEstimate(
       throw new InvalidArgumentError(`${argument}.covariance[${i}]`, row, `a row of ${n} numbers`);
     return row.map((v: unknown, j: number) => requireFinite(`${argument}.covariance[${i}][${j}]`, v));
   });
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < i; j++) {
-      const a = covariance[i]![j]!;
-      const b = covariance[j]![i]!;
-      if (Math.abs(a - b) > 1e-9 * Math.sqrt(Math.abs(covariance[i]![i]! * covariance[j]![j]!))) {
+  const diagonal = covariance.map((row, i) => at(row, i, `covariance[${i}]`));
+  for (const [i, row] of covariance.entries()) {
+    for (const [j, a] of row.slice(0, i).entries()) {
+      const b = element(covariance, j, i);
+      if (Math.abs(a - b) > 1e-9 * Math.sqrt(Math.abs(at(diagonal, i) * at(diagonal, j)))) {
         throw new InvalidArgumentError(
           `${argument}.covariance`,
           c,
@@ -87,13 +113,29 @@ export function requireEstimate(
   }
   if (!cholesky(scaledForTest(covariance), true))
     throw new InvalidArgumentError(`${argument}.covariance`, c, expected, 'the matrix is not positive semi-definite');
-  return { t, state, covariance, states: n };
+  const three = n === 3;
+  const mean: ClockState3 = [at(state, 0), at(state, 1), three ? at(state, 2) : 0];
+  const upper: Covariance3 = {
+    p00: element(covariance, 0, 0),
+    p01: element(covariance, 0, 1),
+    p02: three ? element(covariance, 0, 2) : 0,
+    p11: element(covariance, 1, 1),
+    p12: three ? element(covariance, 1, 2) : 0,
+    p22: three ? element(covariance, 2, 2) : 0,
+  };
+  return { t, state, covariance, states: n, mean, upper };
 }
 
 /** Scales a covariance to unit diagonal (zero rows stay zero) so the definiteness test is scale-free. */
 function scaledForTest(p: Matrix): Matrix {
-  const d = p.map((row, i) => Math.sqrt(Math.max(row[i]!, 0)));
-  return p.map((row, i) => row.map((v, j) => (d[i]! > 0 && d[j]! > 0 ? v / (d[i]! * d[j]!) : v === 0 ? 0 : v)));
+  const d = p.map((row, i) => Math.sqrt(Math.max(at(row, i), 0)));
+  return p.map((row, i) => {
+    const di = at(d, i);
+    return row.map((v, j) => {
+      const dj = at(d, j);
+      return di > 0 && dj > 0 ? v / (di * dj) : v === 0 ? 0 : v;
+    });
+  });
 }
 
 /** Mean and covariance propagated by τ: s' = Φs, P' = ΦPΦᵀ + Q(τ) (Kalman 1960 time update). */
@@ -148,8 +190,8 @@ export function forecastClock(
       horizon: tau,
       state: p.state,
       covariance: p.covariance,
-      phaseStd: Math.sqrt(p.covariance[0]![0]!),
-      frequencyStd: Math.sqrt(p.covariance[1]![1]!),
+      phaseStd: Math.sqrt(element(p.covariance, 0, 0)),
+      frequencyStd: Math.sqrt(element(p.covariance, 1, 1)),
     };
   });
 }
@@ -166,10 +208,8 @@ export function forecastClock(
 export function applyClockStep(estimate: ClockEstimate, step: ClockStep): ClockEstimate {
   const e = requireEstimate('estimate', estimate);
   const s = requireStep(step, e.states);
-  const state = e.state.slice();
-  state[0] = state[0]! + s[0];
-  state[1] = state[1]! + s[1];
-  if (e.states === 3) state[2] = state[2]! + s[2];
+  const [x, y, d] = e.mean;
+  const state = e.states === 3 ? [x + s[0], y + s[1], d + s[2]] : [x + s[0], y + s[1]];
   return { t: e.t, state, covariance: e.covariance };
 }
 

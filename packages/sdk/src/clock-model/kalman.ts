@@ -169,7 +169,7 @@ export class ClockKalmanFilter {
     this._states = e.states;
     const { settings, detector } = detectionFrom(options);
     this._settings = settings;
-    this._core = new FilterCore(this._q, e.t, e.state, e.covariance, settings.holdGate, detector);
+    this._core = new FilterCore(this._q, e.t, e.mean, e.upper, settings.holdGate, detector);
   }
 
   /** Number of states (2 or 3). */

@@ -5,8 +5,25 @@
  * @internal
  */
 
+import { at } from '../internal/checked.js';
+
 /** A dense matrix as rows of numbers. */
 export type Matrix = number[][];
+
+/** Element [i][j] of a matrix, or a `RangeError` naming the indices when there is none. */
+export function element(a: readonly (readonly number[])[], i: number, j: number): number {
+  return at(at(a, i, 'matrix'), j, `matrix[${i}]`);
+}
+
+/** xᵀ·M·y summed in the order Σ_k Σ_l x_k M_kl y_l (M square, x and y of its order). */
+export function quadraticForm(x: readonly number[], m: readonly (readonly number[])[], y: readonly number[]): number {
+  let sum = 0;
+  for (const [k, row] of m.entries()) {
+    const xk = at(x, k, 'x');
+    for (const [l, mkl] of row.entries()) sum += xk * mkl * at(y, l, 'y');
+  }
+  return sum;
+}
 
 /** n × n zero matrix. */
 export function zeros(n: number, m = n): Matrix {
@@ -16,7 +33,7 @@ export function zeros(n: number, m = n): Matrix {
 /** n × n identity. */
 export function identity(n: number): Matrix {
   const out = zeros(n);
-  for (let i = 0; i < n; i++) out[i]![i] = 1;
+  for (const [i, row] of out.entries()) row[i] = 1;
   return out;
 }
 
@@ -27,37 +44,28 @@ export function copyMatrix(a: readonly (readonly number[])[]): Matrix {
 
 /** A·B. */
 export function multiply(a: readonly (readonly number[])[], b: readonly (readonly number[])[]): Matrix {
-  const n = a.length;
-  const k = b.length;
-  const m = b[0]!.length;
-  const out = zeros(n, m);
-  for (let i = 0; i < n; i++) {
-    const ai = a[i]!;
-    const oi = out[i]!;
-    for (let p = 0; p < k; p++) {
-      const aip = ai[p]!;
+  const m = at(b, 0, 'b').length;
+  return a.map((ai) => {
+    const oi = new Array<number>(m).fill(0);
+    for (const [p, bp] of b.entries()) {
+      const aip = at(ai, p, 'a[i]');
       if (aip === 0) continue;
-      const bp = b[p]!;
-      for (let j = 0; j < m; j++) oi[j] = oi[j]! + aip * bp[j]!;
+      for (const [j, bpj] of bp.entries()) oi[j] = at(oi, j, 'row') + aip * bpj;
     }
-  }
-  return out;
+    return oi;
+  });
 }
 
 /** Aᵀ. */
 export function transpose(a: readonly (readonly number[])[]): Matrix {
-  const n = a.length;
-  const m = a[0]!.length;
-  const out = zeros(m, n);
-  for (let i = 0; i < n; i++) for (let j = 0; j < m; j++) out[j]![i] = a[i]![j]!;
-  return out;
+  return at(a, 0, 'a').map((_, j) => a.map((row) => at(row, j, 'a[i]')));
 }
 
 /** A·v. */
 export function multiplyVector(a: readonly (readonly number[])[], v: readonly number[]): number[] {
   return a.map((row) => {
     let s = 0;
-    for (let j = 0; j < row.length; j++) s += row[j]! * v[j]!;
+    for (const [j, aij] of row.entries()) s += aij * at(v, j, 'v');
     return s;
   });
 }
@@ -69,12 +77,12 @@ export function congruence(a: readonly (readonly number[])[], p: readonly (reado
 
 /** (A + Aᵀ)/2. */
 export function symmetrize(a: Matrix): Matrix {
-  const n = a.length;
-  for (let i = 0; i < n; i++) {
-    for (let j = i + 1; j < n; j++) {
-      const v = 0.5 * (a[i]![j]! + a[j]![i]!);
-      a[i]![j] = v;
-      a[j]![i] = v;
+  for (const [i, ai] of a.entries()) {
+    for (const [j, aj] of a.entries()) {
+      if (j <= i) continue;
+      const v = 0.5 * (at(ai, j, 'a[i]') + at(aj, i, 'a[j]'));
+      ai[j] = v;
+      aj[i] = v;
     }
   }
   return a;
@@ -82,7 +90,7 @@ export function symmetrize(a: Matrix): Matrix {
 
 /** A + B. */
 export function add(a: readonly (readonly number[])[], b: readonly (readonly number[])[]): Matrix {
-  return a.map((row, i) => row.map((v, j) => v + b[i]![j]!));
+  return a.map((row, i) => row.map((v, j) => v + element(b, i, j)));
 }
 
 /**
@@ -93,11 +101,11 @@ export function add(a: readonly (readonly number[])[], b: readonly (readonly num
 export function cholesky(a: readonly (readonly number[])[], allowSemidefinite = false): Matrix | undefined {
   const n = a.length;
   const l = zeros(n);
-  for (let j = 0; j < n; j++) {
-    const lj = l[j]!;
-    let d = a[j]![j]!;
-    for (let k = 0; k < j; k++) d -= lj[k]! ** 2;
-    const scale = Math.abs(a[j]![j]!);
+  // Order ≤ 3: checked reads throughout.
+  for (const [j, lj] of l.entries()) {
+    let d = element(a, j, j);
+    for (const ljk of lj.slice(0, j)) d -= ljk ** 2;
+    const scale = Math.abs(element(a, j, j));
     if (!(d > 1e-14 * scale)) {
       if (allowSemidefinite && d >= -1e-12 * scale) {
         lj[j] = 0;
@@ -107,10 +115,10 @@ export function cholesky(a: readonly (readonly number[])[], allowSemidefinite = 
     }
     const ljj = Math.sqrt(d);
     lj[j] = ljj;
-    for (let i = j + 1; i < n; i++) {
-      const li = l[i]!;
-      let s = a[i]![j]!;
-      for (let k = 0; k < j; k++) s -= li[k]! * lj[k]!;
+    for (const [i, li] of l.entries()) {
+      if (i <= j) continue;
+      let s = element(a, i, j);
+      for (const [k, lik] of li.slice(0, j).entries()) s -= lik * at(lj, k, 'l[j]');
       li[j] = s / ljj;
     }
   }
@@ -127,12 +135,12 @@ export function inverseSpd(a: readonly (readonly number[])[]): Matrix | undefine
   if (!l) return undefined;
   // inv(L) by forward substitution, then inv(A) = inv(L)ᵀ inv(L).
   const li = zeros(n);
-  for (let j = 0; j < n; j++) {
-    li[j]![j] = 1 / l[j]![j]!;
+  for (const [j, lij] of li.entries()) {
+    lij[j] = 1 / element(l, j, j);
     for (let i = j + 1; i < n; i++) {
       let s = 0;
-      for (let k = j; k < i; k++) s -= l[i]![k]! * li[k]![j]!;
-      li[i]![j] = s / l[i]![i]!;
+      for (let k = j; k < i; k++) s -= element(l, i, k) * element(li, k, j);
+      at(li, i, 'li')[j] = s / element(l, i, i);
     }
   }
   return symmetrize(multiply(transpose(li), li));

@@ -5,6 +5,7 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { requirePhaseSample } from '../internal/validate.js';
 
 /** Result of {@link measurementNoiseFromPhase}. */
@@ -43,10 +44,8 @@ export function measurementNoiseFromPhase(phase: ArrayLike<number>): Measurement
     throw new InvalidArgumentError('phase', phase, 'an array of phases in seconds');
   const n = phase.length;
   const s = new Float64Array(Math.max(n - 2, 0));
-  for (let i = 0; i < n; i++) {
-    const v = phase[i]!;
-    requirePhaseSample(`phase[${i}]`, v, true);
-  }
+  for (let i = 0; i < n; i++) requirePhaseSample(`phase[${i}]`, phase[i], true);
+  // Indices bounded by n = phase.length and s.length = n − 2.
   for (let k = 1; k < n - 1; k++) s[k - 1] = phase[k + 1]! - 2 * phase[k]! + phase[k - 1]!;
   let sum = 0;
   let count = 0;
@@ -70,14 +69,14 @@ export function measurementNoiseFromPhase(phase: ArrayLike<number>): Measurement
     return { value: terms > 0 ? acc / terms : Number.NaN, terms };
   };
   const lags = [0, 1, 2, 3, 4].map(acov);
-  const c2 = lags[2] as { value: number; terms: number };
+  const c2 = at(lags, 2, 'lags');
   if (c2.terms < 8)
     throw new InvalidArgumentError(
       'phase',
       `${c2.terms} complete lag-2 pairs of second differences`,
       'at least 8 (about 12 consecutive samples)',
     );
-  const g = (h: number): number => (Math.abs(h) <= 4 ? (lags[Math.abs(h)] as { value: number }).value : 0);
+  const g = (h: number): number => (Math.abs(h) <= 4 ? at(lags, Math.abs(h), 'lags').value : 0);
   let bartlett = 0;
   for (let j = -4; j <= 4; j++) bartlett += g(j) ** 2 + g(j + 2) * g(j - 2);
   const standardError = Math.sqrt(Math.max(bartlett, 0) / c2.terms);

@@ -5,9 +5,10 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
+import { at, last } from '../internal/checked.js';
 import { requireFinite, requireNonNegative } from '../internal/validate.js';
 import type { Seconds } from '../units.js';
-import { inverseSpd, type Matrix } from './linalg.js';
+import { element, inverseSpd, type Matrix, quadraticForm } from './linalg.js';
 import { type ClockDiffusion, type ClockStates, clockProcessNoise, requireDiffusion } from './noise.js';
 
 /** Options of {@link polynomialNoiseCovariance}. */
@@ -68,22 +69,15 @@ export function polynomialNoiseCovariance(
   let sum = 0;
   for (const v of tt) sum += v;
   const c = sum / n;
-  const s = (tt[n - 1]! - tt[0]!) / 2 || 1;
-  const basis = (time: number): number[] => {
-    const u = (time - c) / s;
-    return degree === 2 ? [1, u, u * u] : [1, u];
-  };
-  const all = functionals(tt, basis, p, predict);
+  const s = (last(tt, 't') - at(tt, 0, 't')) / 2 || 1;
+  const all = functionals(tt, { c, s, degree }, predict);
   const cov = clockNoiseCovariance(tt, all, p, predict, q, states);
-  const m = all.length;
-  for (let a = 0; a < m; a++) {
-    const fa = all[a]!;
-    for (let b = a; b < m; b++) {
-      const fb = all[b]!;
-      let v = 0;
-      for (let k = 0; k < n; k++) v += fa[k]! * fb[k]!;
-      cov[a]![b] = cov[a]![b]! + r * v;
-      cov[b]![a] = cov[a]![b]!;
+  for (const [a, fa] of all.entries()) {
+    const covA = at(cov, a, 'cov');
+    for (const [b, fb] of all.entries()) {
+      if (b < a) continue;
+      covA[b] = at(covA, b, 'cov[a]') + r * dot(fa, fb);
+      at(cov, b, 'cov')[a] = at(covA, b, 'cov[a]');
     }
   }
   // Map the u-basis coefficient covariance to the t0 basis (as fitClockPolynomial does).
@@ -99,18 +93,14 @@ export function polynomialNoiseCovariance(
           [1, delta0],
           [0, 1 / s],
         ];
-  const covariance: Matrix = tm.map((ri) =>
-    tm.map((rj) => {
-      let v = 0;
-      for (let k = 0; k < p; k++) for (let l = 0; l < p; l++) v += ri[k]! * cov[k]![l]! * rj[l]!;
-      return v;
-    }),
-  );
+  // The coefficient block is cov's first p rows and columns.
+  const coefficientBlock = cov.slice(0, p).map((row) => row.slice(0, p));
+  const covariance: Matrix = tm.map((ri) => tm.map((rj) => quadraticForm(ri, coefficientBlock, rj)));
   const predictStd = predict.map((T, j) => {
-    const after = clockProcessNoise(T - tt[n - 1]!, q, states)[0]![0]!;
-    return Math.sqrt(Math.max(cov[p + j]![p + j]! + after, 0));
+    const after = element(clockProcessNoise(T - last(tt, 't'), q, states), 0, 0);
+    return Math.sqrt(Math.max(element(cov, p + j, p + j) + after, 0));
   });
-  return { covariance, std: covariance.map((row, i) => Math.sqrt(Math.max(row[i]!, 0))), predictStd };
+  return { covariance, std: covariance.map((row, i) => Math.sqrt(Math.max(at(row, i, 'covariance'), 0))), predictStd };
 }
 
 /** Validated inputs of {@link polynomialNoiseCovariance}. */
@@ -124,14 +114,17 @@ function readInputs(t: ArrayLike<number>, options: PolynomialNoiseOptions) {
   const n = t.length;
   if (n < p) throw new InvalidArgumentError('t', n, `at least ${p} epochs for a degree-${degree} fit`);
   const tt = new Float64Array(n);
+  let previous = Number.NaN;
   for (let k = 0; k < n; k++) {
-    tt[k] = requireFinite(`t[${k}]`, t[k], 'a finite epoch in seconds');
-    if (k > 0 && !(tt[k]! > tt[k - 1]!))
+    const tk = requireFinite(`t[${k}]`, t[k], 'a finite epoch in seconds');
+    if (k > 0 && !(tk > previous))
       throw new InvalidArgumentError(
         `t[${k}]`,
-        tt[k],
-        `greater than t[${k - 1}] = ${tt[k - 1]} (strictly increasing epochs)`,
+        tk,
+        `greater than t[${k - 1}] = ${previous} (strictly increasing epochs)`,
       );
+    tt[k] = tk;
+    previous = tk;
   }
   const t0 = requireFinite('options.referenceTime', options.referenceTime, 'a finite epoch in seconds');
   const q = requireDiffusion('options.q', options.q);
@@ -140,14 +133,14 @@ function readInputs(t: ArrayLike<number>, options: PolynomialNoiseOptions) {
     options.measurementVariance === undefined
       ? 0
       : requireNonNegative('options.measurementVariance', options.measurementVariance, 's²');
-  const last = tt[n - 1]!;
+  const lastEpoch = last(tt, 't');
   const predict = (options.predict ?? []).map((v, i) => {
     const T = requireFinite(`options.predict[${i}]`, v, 'a finite epoch in seconds');
-    if (T < last)
+    if (T < lastEpoch)
       throw new InvalidArgumentError(
         `options.predict[${i}]`,
         T,
-        `≥ the last sample epoch ${last} s (predictions after the record)`,
+        `≥ the last sample epoch ${lastEpoch} s (predictions after the record)`,
       );
     return T;
   });
@@ -160,40 +153,81 @@ function readInputs(t: ArrayLike<number>, options: PolynomialNoiseOptions) {
  */
 function functionals(
   tt: Float64Array,
-  basis: (time: number) => number[],
-  p: number,
+  scaling: { readonly c: number; readonly s: number; readonly degree: 1 | 2 },
   predict: readonly number[],
 ): Float64Array[] {
+  const { c, s, degree } = scaling;
+  const quadratic = degree === 2;
+  const p = degree + 1;
   const n = tt.length;
-  const normal: Matrix = Array.from({ length: p }, () => new Array<number>(p).fill(0));
-  for (let k = 0; k < n; k++) {
-    const a = basis(tt[k]!);
-    for (let i = 0; i < p; i++) for (let j = 0; j < p; j++) normal[i]![j] = normal[i]![j]! + a[i]! * a[j]!;
+  // AᵀA of the basis [1, u, u²] (u = (t − c)/s), each element summed over the epochs in order.
+  let n01 = 0;
+  let n02 = 0;
+  let n11 = 0;
+  let n12 = 0;
+  let n22 = 0;
+  let n00 = 0;
+  for (const tk of tt) {
+    const u = (tk - c) / s;
+    const u2 = u * u;
+    n00 += 1 * 1;
+    n01 += 1 * u;
+    n11 += u * u;
+    if (quadratic) {
+      n02 += 1 * u2;
+      n12 += u * u2;
+      n22 += u2 * u2;
+    }
   }
+  const normal: Matrix = quadratic
+    ? [
+        [n00, n01, n02],
+        [n01, n11, n12],
+        [n02, n12, n22],
+      ]
+    : [
+        [n00, n01],
+        [n01, n11],
+      ];
   const ninv = inverseSpd(normal);
   if (!ninv)
     throw new InvalidArgumentError('t', `${n} epochs`, `at least ${p} distinct epochs for a degree-${p - 1} fit`);
-  const rows: Float64Array[] = [];
-  for (let i = 0; i < p; i++) rows.push(new Float64Array(n));
-  for (let k = 0; k < n; k++) {
-    const a = basis(tt[k]!);
-    for (let i = 0; i < p; i++) {
-      let v = 0;
-      for (let j = 0; j < p; j++) v += ninv[i]![j]! * a[j]!;
-      rows[i]![k] = v;
-    }
-  }
-  const predictRows = predict.map((T) => {
-    const b = basis(T);
+  // Row i of (AᵀA)⁻¹Aᵀ at epoch k: Σ_j (AᵀA)⁻¹_ij·basis_j(t_k), summed over j in order.
+  const rows = ninv.map((ni) => {
+    const c0 = at(ni, 0, 'ninv[i]');
+    const c1 = at(ni, 1, 'ninv[i]');
+    const c2 = quadratic ? at(ni, 2, 'ninv[i]') : 0;
     const row = new Float64Array(n);
-    for (let k = 0; k < n; k++) {
+    for (const [k, tk] of tt.entries()) {
+      const u = (tk - c) / s;
       let v = 0;
-      for (let i = 0; i < p; i++) v += b[i]! * rows[i]![k]!;
+      v += c0 * 1;
+      v += c1 * u;
+      if (quadratic) v += c2 * (u * u);
       row[k] = v;
     }
     return row;
   });
+  const predictRows = predict.map((T) => {
+    const u = (T - c) / s;
+    const b = quadratic ? [1, u, u * u] : [1, u];
+    const row = new Float64Array(n);
+    for (const [i, rowI] of rows.entries()) {
+      const bi = at(b, i, 'basis');
+      // Indices bounded by n, the length of every row.
+      for (let k = 0; k < n; k++) row[k] = (i === 0 ? 0 : row[k]!) + bi * rowI[k]!;
+    }
+    return row;
+  });
   return [...rows, ...predictRows];
+}
+
+/** Σ_k x_k·y_k over two arrays of the same length, in index order. */
+function dot(x: Float64Array, y: Float64Array): number {
+  let v = 0;
+  // Indices bounded by x.length = y.length (every functional has one element per epoch).
+  for (let k = 0; k < x.length; k++) v += x[k]! * y[k]!;
+  return v;
 }
 
 /**
@@ -211,30 +245,34 @@ function clockNoiseCovariance(
 ): Matrix {
   const n = tt.length;
   const m = all.length;
-  const g = all.map(() => [0, 0, 0]);
+  const g = all.map((): [number, number, number] => [0, 0, 0]);
   const cov: Matrix = Array.from({ length: m }, () => new Array<number>(m).fill(0));
-  const targets = predict.map(() => [0, 0, 0]); // [1, T − t_i, (T − t_i)²/2] at the current i
+  // [1, T − t_i, (T − t_i)²/2] at the current i, one per prediction epoch.
+  const targets = predict.map((): readonly [number, number, number] => [0, 0, 0]);
+  // The numeric kernel: k is bounded by n = tt.length (every functional's length), i and j by `states`
+  // (the order of qk and of every eff row), a and b by m = all.length.
+  let next = Number.NaN;
   for (let k = n - 1; k >= 1; k--) {
+    const tk = tt[k]!;
     // Move the origin of g from t_{k+1} to t_k and add sample k.
-    const delta = k < n - 1 ? tt[k + 1]! - tt[k]! : 0;
-    all.forEach((row, a) => {
-      const ga = g[a]!;
-      const g0 = ga[0]!;
-      const g1 = ga[1]!;
-      ga[2] = ga[2]! + delta * g1 + (delta * delta * g0) / 2;
+    const delta = k < n - 1 ? next - tk : 0;
+    next = tk;
+    for (const [a, ga] of g.entries()) {
+      const [g0, g1, g2] = ga;
+      ga[2] = g2 + delta * g1 + (delta * delta * g0) / 2;
       ga[1] = g1 + delta * g0;
-      ga[0] = g0 + row[k]!;
-    });
+      ga[0] = g0 + all[a]![k]!;
+    }
     predict.forEach((T, j) => {
-      const d = T - tt[k]!;
+      const d = T - tk;
       targets[j] = [1, d, (d * d) / 2];
     });
-    const qk = clockProcessNoise(tt[k]! - tt[k - 1]!, q, states);
+    const qk = clockProcessNoise(tk - tt[k - 1]!, q, states);
     const eff = g.map((ga, a) => {
       const head = ga.slice(0, states);
       if (a < p) return head;
-      const tg = targets[a - p]!;
-      return head.map((v, i) => v - tg[i]!);
+      const tg = at(targets, a - p, 'targets');
+      return head.map((v, i) => v - at(tg, i, 'target'));
     });
     for (let a = 0; a < m; a++) {
       const ea = eff[a]!;

@@ -5,6 +5,7 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import {
   MAX_ABS_PHASE_SECONDS,
   MEASUREMENT_VARIANCE_RANGE,
@@ -13,8 +14,10 @@ import {
   requireOptions,
   requirePhaseSample,
 } from '../internal/validate.js';
+import type { Instant } from '../time/instant.js';
 import type { Seconds } from '../units.js';
-import type { Matrix } from './linalg.js';
+import { type Matrix, quadraticForm } from './linalg.js';
+import { requireSeriesEpoch } from './series-epoch.js';
 
 /** Options of {@link fitClockPolynomial}. */
 export interface ClockPolynomialOptions {
@@ -36,12 +39,26 @@ export interface ClockPolynomialOptions {
   readonly scaleByReducedChiSquare?: boolean;
 }
 
+/** A phase series for {@link fitClockPolynomial}: samples at `t` seconds after `epoch`. */
+export interface ClockPhaseSeries {
+  /** The instant of t = 0 (required); `t`, `referenceTime` and prediction times are seconds since it. */
+  readonly epoch: Instant;
+  /** Epochs, in seconds since `epoch` (any order, finite; at least degree + 1 distinct values). */
+  readonly t: ArrayLike<number>;
+  /** Phase (time error) samples, in seconds, one per epoch. */
+  readonly phase: ArrayLike<number>;
+}
+
 /** A fitted polynomial clock model. */
 export interface ClockPolynomial {
   /** Degree of the fit. */
   readonly degree: 1 | 2;
-  /** Reference epoch t0, in seconds. */
+  /** The series' epoch: the instant of t = 0. */
+  readonly epoch: Instant;
+  /** Reference epoch t0 (t_oc), in seconds since `epoch`. */
   readonly referenceTime: Seconds;
+  /** Reference epoch t0 (t_oc) as an instant: `epoch.plus(referenceTime)`. */
+  readonly referenceEpoch: Instant;
   /** [a0 (s), a1 (dimensionless, s/s), a2 (1/s, s/s²)]; a2 = 0 for degree 1. a2 = D/2 for a drift D. */
   readonly coefficients: readonly [number, number, number];
   /** Covariance of [a0, a1(, a2)] ((degree + 1) square). */
@@ -56,7 +73,7 @@ export interface ClockPolynomial {
   readonly dof: number;
   /** χ²/dof (NaN when dof = 0). */
   readonly reducedChiSquare: number;
-  /** Model phase at t, in seconds. */
+  /** Model phase at t (seconds since `epoch`), in seconds. */
   predict(t: Seconds): Seconds;
   /** Standard deviation of the model phase at t from the coefficient covariance (model only, no new noise), in seconds. */
   predictStd(t: Seconds): Seconds;
@@ -72,10 +89,10 @@ function centreAndHalfSpan(tt: Float64Array, degree: number): { c: number; s: nu
   let tMin = Infinity;
   let tMax = -Infinity;
   let tSum = 0;
-  for (let i = 0; i < n; i++) {
-    tMin = Math.min(tMin, tt[i]!);
-    tMax = Math.max(tMax, tt[i]!);
-    tSum += tt[i]!;
+  for (const ti of tt) {
+    tMin = Math.min(tMin, ti);
+    tMax = Math.max(tMax, ti);
+    tSum += ti;
   }
   const distinct = countDistinctUpTo(tt, p);
   if (distinct < p)
@@ -97,50 +114,56 @@ function centreAndHalfSpan(tt: Float64Array, degree: number): { c: number; s: nu
  * 4th ed., §5.2 and §5.3 [M]), never by forming the normal equations; the coefficients and their
  * covariance are then mapped exactly to the t0 basis. Prediction variances are computed in u.
  *
- * @param t        Epochs, in seconds (any order, finite; at least degree + 1 distinct values).
- * @param phase    Phase (time error) samples, in seconds, same length as t.
+ * @param series   `{ epoch, t, phase }`: the instant of t = 0, epochs in seconds since it (any order, finite; at
+ *                 least degree + 1 distinct values) and the phase samples in seconds, one per epoch.
  * @param options  Degree, t0, variances and covariance scaling; see {@link ClockPolynomialOptions}.
- * @returns {@link ClockPolynomial} with coefficients, covariance, residuals, χ² and predictors.
- * @throws {InvalidArgumentError} for mismatched lengths, too few samples or distinct epochs, a non-finite
+ * @returns {@link ClockPolynomial} with coefficients, covariance, residuals, χ², predictors and the epochs.
+ * @throws {InvalidArgumentError} for a missing or non-Instant `series.epoch`, mismatched lengths, too few samples or distinct epochs, a non-finite
  *         sample, a variance ≤ 0, or degree not 1/2.
  * @see IS-GPS-200, §20.3.3.3.3.1 (SV clock correction polynomial af0, af1, af2) [M].
  */
-export function fitClockPolynomial(
-  t: ArrayLike<number>,
-  phase: ArrayLike<number>,
-  options: ClockPolynomialOptions = {},
-): ClockPolynomial {
-  const { degree, tt, zz, w, t0 } = readSamples(t, phase, options);
+export function fitClockPolynomial(series: ClockPhaseSeries, options: ClockPolynomialOptions = {}): ClockPolynomial {
+  if (typeof series !== 'object' || series === null)
+    throw new InvalidArgumentError('series', series, 'an object { epoch, t, phase }');
+  const epoch = requireSeriesEpoch('series.epoch', series.epoch);
+  const { degree, tt, zz, w, t0 } = readSamples(series.t, series.phase, options);
   const p = degree + 1;
   const n = tt.length;
   const v = options.variance;
   const { c, s } = centreAndHalfSpan(tt, degree);
 
   // √w-scaled design in u = (t − c)/s, columns [1, u, u²], stored by column.
-  const a = Array.from({ length: p }, () => new Float64Array(n));
+  const ones = new Float64Array(n);
+  const linear = new Float64Array(n);
+  const quadratic = degree === 2 ? new Float64Array(n) : undefined;
+  const a = quadratic === undefined ? [ones, linear] : [ones, linear, quadratic];
   const b = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
+  // w and zz have the length n of tt.
+  for (const [i, ti] of tt.entries()) {
     const sw = Math.sqrt(w[i]!);
-    const u = (tt[i]! - c) / s;
-    a[0]![i] = sw;
-    a[1]![i] = sw * u;
-    if (degree === 2) a[2]![i] = sw * u * u;
+    const u = (ti - c) / s;
+    ones[i] = sw;
+    linear[i] = sw * u;
+    if (quadratic !== undefined) quadratic[i] = sw * u * u;
     b[i] = sw * zz[i]!;
   }
   const { beta, rInv } = householderLeastSquares(a, b, p);
   // Cov_u = R⁻¹ R⁻ᵀ
-  const covU: Matrix = Array.from({ length: p }, (_, i) =>
-    Array.from({ length: p }, (_, j) => {
+  const covU: Matrix = rInv.map((ri) =>
+    rInv.map((rj) => {
       let sum = 0;
-      for (let k = 0; k < p; k++) sum += rInv[i]![k]! * rInv[j]![k]!;
+      for (const [k, rik] of ri.entries()) sum += rik * at(rj, k, 'rInv');
       return sum;
     }),
   );
-  const evalU = (u: number): number => beta[0]! + beta[1]! * u + (degree === 2 ? beta[2]! * u * u : 0);
+  const b0 = at(beta, 0, 'beta');
+  const b1 = at(beta, 1, 'beta');
+  const b2 = degree === 2 ? at(beta, 2, 'beta') : 0;
+  const evalU = (u: number): number => b0 + b1 * u + (degree === 2 ? b2 * u * u : 0);
   const residuals = new Float64Array(n);
   let chiSquare = 0;
-  for (let i = 0; i < n; i++) {
-    const r = zz[i]! - evalU((tt[i]! - c) / s);
+  for (const [i, ti] of tt.entries()) {
+    const r = zz[i]! - evalU((ti - c) / s);
     residuals[i] = r;
     chiSquare += w[i]! * r * r;
   }
@@ -162,26 +185,20 @@ export function fitClockPolynomial(
           [1, delta],
           [0, 1 / s],
         ];
-  const coef = tm.map((row) => row.reduce((acc, m, j) => acc + m * beta[j]!, 0));
-  const covariance: Matrix = tm.map((ri) =>
-    tm.map((rj) => {
-      let sum = 0;
-      for (let k = 0; k < p; k++) for (let l = 0; l < p; l++) sum += ri[k]! * covU[k]![l]! * rj[l]!;
-      return sum * factor;
-    }),
-  );
+  const coef = tm.map((row) => row.reduce((acc, m, j) => acc + m * at(beta, j, 'beta'), 0));
+  const covariance: Matrix = tm.map((ri) => tm.map((rj) => quadraticForm(ri, covU, rj) * factor));
   const predict = (time: Seconds): Seconds => evalU((requireFinite('t', time, 'a finite epoch in seconds') - c) / s);
   const predictStd = (time: Seconds): Seconds => {
     const u = (requireFinite('t', time, 'a finite epoch in seconds') - c) / s;
     const g = degree === 2 ? [1, u, u * u] : [1, u];
-    let sum = 0;
-    for (let i = 0; i < p; i++) for (let j = 0; j < p; j++) sum += g[i]! * covU[i]![j]! * g[j]!;
-    return Math.sqrt(Math.max(sum * factor, 0));
+    return Math.sqrt(Math.max(quadraticForm(g, covU, g) * factor, 0));
   };
   return {
     degree,
+    epoch,
     referenceTime: t0,
-    coefficients: [coef[0]!, coef[1]!, degree === 2 ? coef[2]! : 0],
+    referenceEpoch: epoch.plus(t0),
+    coefficients: [at(coef, 0, 'coef'), at(coef, 1, 'coef'), degree === 2 ? at(coef, 2, 'coef') : 0],
     covariance,
     covarianceScaled: scaled,
     residuals,
@@ -245,7 +262,7 @@ function readSamples(
   }
   const t0 =
     options.referenceTime === undefined
-      ? tt[0]!
+      ? at(tt, 0, 't')
       : requireFinite('options.referenceTime', options.referenceTime, 'a finite epoch in seconds');
   return { degree, tt, zz, w, t0 };
 }
@@ -253,7 +270,10 @@ function readSamples(
 /** Number of distinct values in `x`, counted up to `limit` (enough to check a rank condition). */
 function countDistinctUpTo(x: Float64Array, limit: number): number {
   const seen: number[] = [];
-  for (let i = 0; i < x.length && seen.length < limit; i++) if (!seen.includes(x[i]!)) seen.push(x[i]!);
+  for (const xi of x) {
+    if (seen.length >= limit) break;
+    if (!seen.includes(xi)) seen.push(xi);
+  }
   return seen.length;
 }
 
@@ -265,8 +285,8 @@ function countDistinctUpTo(x: Float64Array, limit: number): number {
 function householderLeastSquares(a: Float64Array[], b: Float64Array, p: number): { beta: number[]; rInv: Matrix } {
   const n = b.length;
   const v = new Float64Array(n);
-  for (let k = 0; k < p; k++) {
-    const ak = a[k]!;
+  // The numeric kernel: row indices bounded by n = b.length, the length of every column.
+  for (const [k, ak] of a.entries()) {
     let norm = 0;
     for (let i = k; i < n; i++) norm += ak[i]! ** 2;
     norm = Math.sqrt(norm);
@@ -278,8 +298,7 @@ function householderLeastSquares(a: Float64Array[], b: Float64Array, p: number):
     let vv = 0;
     for (let i = k; i < n; i++) vv += v[i]! ** 2;
     if (vv === 0) continue;
-    for (let j = k; j < p; j++) {
-      const aj = a[j]!;
+    for (const aj of a.slice(k)) {
       let dot = 0;
       for (let i = k; i < n; i++) dot += v[i]! * aj[i]!;
       const f = (2 * dot) / vv;
@@ -291,20 +310,21 @@ function householderLeastSquares(a: Float64Array[], b: Float64Array, p: number):
     for (let i = k; i < n; i++) b[i] = b[i]! - f * v[i]!;
   }
   // Back substitution R β = Qᵀb (first p rows), and R⁻¹ (upper triangular); R[i][j] = a[j][i].
-  const r = (i: number, j: number): number => a[j]![i]!;
+  const r = (i: number, j: number): number => at(at(a, j, 'a'), i, 'a[j]');
   const beta = new Array<number>(p).fill(0);
   for (let i = p - 1; i >= 0; i--) {
-    let sum = b[i]!;
-    for (let j = i + 1; j < p; j++) sum -= r(i, j) * beta[j]!;
+    let sum = at(b, i, 'b');
+    for (let j = i + 1; j < p; j++) sum -= r(i, j) * at(beta, j, 'beta');
     beta[i] = sum / r(i, i);
   }
   const rInv: Matrix = Array.from({ length: p }, () => new Array<number>(p).fill(0));
-  for (let j = 0; j < p; j++) {
-    rInv[j]![j] = 1 / r(j, j);
+  const rInvAt = (i: number, j: number): number => at(at(rInv, i, 'rInv'), j, 'rInv[i]');
+  for (const [j, rowJ] of rInv.entries()) {
+    rowJ[j] = 1 / r(j, j);
     for (let i = j - 1; i >= 0; i--) {
       let sum = 0;
-      for (let k = i + 1; k <= j; k++) sum += r(i, k) * rInv[k]![j]!;
-      rInv[i]![j] = -sum / r(i, i);
+      for (let k = i + 1; k <= j; k++) sum += r(i, k) * rInvAt(k, j);
+      at(rInv, i, 'rInv')[j] = -sum / r(i, i);
     }
   }
   return { beta, rInv };

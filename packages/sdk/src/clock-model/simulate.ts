@@ -5,6 +5,7 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { createRandom } from '../internal/random.js';
 import { requireInRange, requireInteger, requireOptions } from '../internal/validate.js';
 import type { Seconds } from '../units.js';
@@ -101,28 +102,31 @@ export function simulateClock(options: ClockSimulationOptions): ClockSimulation 
     const size = requireInRange(`jumps[${i}].size`, j.size, -1, 1, {
       unit: '(s for a phase step, dimensionless for a frequency step)',
     });
-    if (j.kind === 'phase') phaseJumps[k] = phaseJumps[k]! + size;
-    else if (j.kind === 'frequency') frequencyJumps[k] = frequencyJumps[k]! + size;
+    if (j.kind === 'phase') phaseJumps[k] = at(phaseJumps, k) + size;
+    else if (j.kind === 'frequency') frequencyJumps[k] = at(frequencyJumps, k) + size;
     else throw new InvalidArgumentError(`jumps[${i}].kind`, j.kind, "'phase' or 'frequency'");
   });
 
   // Q(τ0) is positive semi-definite by construction, so the semi-definite Cholesky always succeeds.
   const [l0, l1, l2] = cholesky(clockProcessNoise(tau0, q, 3), true) as [number[], number[], number[]];
+  // The lower triangle of L, read once.
+  const [l00, l10, l11, l20, l21, l22] = [at(l0, 0), at(l1, 0), at(l1, 1), at(l2, 0), at(l2, 1), at(l2, 2)];
   const rng = createRandom(seed);
   const t2 = (tau0 * tau0) / 2;
   const truePhase = new Float64Array(n);
   const frequency = new Float64Array(n);
   const drift = new Float64Array(n);
   const phase = new Float64Array(n);
+  // Indices bounded by n, the length of every array here.
   for (let k = 0; k < n; k++) {
     if (k > 0) {
       const e0 = rng.normal();
       const e1 = rng.normal();
       const e2 = rng.normal();
       // Φ(τ0)·s + L·e (lower-triangular L)
-      const xNew = x + tau0 * y + t2 * d + l0[0]! * e0;
-      const yNew = y + tau0 * d + l1[0]! * e0 + l1[1]! * e1;
-      const dNew = d + l2[0]! * e0 + l2[1]! * e1 + l2[2]! * e2;
+      const xNew = x + tau0 * y + t2 * d + l00 * e0;
+      const yNew = y + tau0 * d + l10 * e0 + l11 * e1;
+      const dNew = d + l20 * e0 + l21 * e1 + l22 * e2;
       x = xNew + phaseJumps[k]!;
       y = yNew + frequencyJumps[k]!;
       d = dNew;

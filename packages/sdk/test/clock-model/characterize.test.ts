@@ -5,6 +5,7 @@ import { characterizeClock, clockMeasurementNoise, correctPhaseJumps, simulateCl
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import { Instant } from '@tauline/sdk/time';
 import { describe, expect, it } from 'vitest';
+import { EPOCH } from './test-epoch.js';
 
 const ROOT = fileURLToPath(new URL('../../../..', import.meta.url));
 
@@ -26,7 +27,7 @@ const TRUTH = { af0: 1.5e-7, af1: 3.2e-11, af2: 5e-19, q1: 1e-23, q2: 1e-31, jum
 describe('characterizeClock', () => {
   it('characterizeClock(record) recovers the generator af0/af1/af2 within 2σ, the +2 ns jump at t = 750 000 s, and q1, q2 inside their intervals (SOURCE.md generator values; Zucca & Tavella 2005 model [M])', () => {
     const { t, phase } = vestra4();
-    const r = characterizeClock({ phase, t, tau0: 300 }, { predict: [1_296_000] });
+    const r = characterizeClock({ epoch: EPOCH, phase, t, tau0: 300 }, { predict: [1_296_000] });
     const [af0, af1, af2] = r.polynomial.coefficients;
     const [s0, s1, s2] = r.polynomialNoise.std;
     expect(Math.abs(af0 - TRUTH.af0)).toBeLessThan(2 * (s0 ?? 0));
@@ -46,17 +47,17 @@ describe('characterizeClock', () => {
     expect(r.polynomialNoise.predictStd).toHaveLength(1);
   });
 
-  it('characterizeClock(record with an epoch Instant) returns the same numbers as without one and carries the epoch', () => {
+  it('characterizeClock(record) returns the same numbers for another epoch Instant and carries its epoch', () => {
     const { t, phase } = vestra4();
     const epoch = Instant.fromTaiParts(855_000_037, 0.25);
     const options = { degree: 1 as const, measurementSigma: 3e-11 };
-    const without = characterizeClock({ phase, t, tau0: 300 }, options);
+    const other = characterizeClock({ epoch: EPOCH, phase, t, tau0: 300 }, options);
     const withEpoch = characterizeClock({ phase, t, tau0: 300, epoch }, options);
     expect(withEpoch.epoch).toBe(epoch);
-    expect(without.epoch).toBeUndefined();
-    expect(withEpoch.polynomial.coefficients).toEqual(without.polynomial.coefficients);
-    expect(withEpoch.noise.q).toEqual(without.noise.q);
-    expect(withEpoch.passes).toEqual(without.passes);
+    expect(other.epoch).toBe(EPOCH);
+    expect(withEpoch.polynomial.coefficients).toEqual(other.polynomial.coefficients);
+    expect(withEpoch.noise.q).toEqual(other.noise.q);
+    expect(withEpoch.passes).toEqual(other.passes);
   });
 
   it('characterizeClock(simulated record with a frequency jump) declares it, corrects it and ends after a pass with no event', () => {
@@ -71,7 +72,7 @@ describe('characterizeClock', () => {
     });
     const t = Float64Array.from(sim.phase, (_v, k) => k * 60);
     const passes: number[] = [];
-    const r = characterizeClock({ phase: sim.phase, t, tau0: 60 }, { onPass: (p) => passes.push(p) });
+    const r = characterizeClock({ epoch: EPOCH, phase: sim.phase, t, tau0: 60 }, { onPass: (p) => passes.push(p) });
     const declared = r.passes[0]?.jumps.find((j) => j.kind === 'frequency');
     expect(declared).toBeDefined();
     expect(Math.abs((declared?.size ?? 0) - 5e-13)).toBeLessThan(3 * (declared?.sizeStd ?? 0));
@@ -81,17 +82,25 @@ describe('characterizeClock', () => {
 
   it('characterizeClock(record, { maxPasses: 1 }) stops after one pass even when it declared events', () => {
     const { t, phase } = vestra4();
-    const r = characterizeClock({ phase, t, tau0: 300 }, { maxPasses: 1 });
+    const r = characterizeClock({ epoch: EPOCH, phase, t, tau0: 300 }, { maxPasses: 1 });
     expect(r.passes).toHaveLength(1);
     expect(r.passes[0]?.jumps).toHaveLength(1);
   });
 
   it('characterizeClock refuses a bad record or option naming the field', () => {
     const { t, phase } = vestra4();
-    expect(() => characterizeClock({ phase, t: t.subarray(1), tau0: 300 })).toThrow(/record\.t/);
-    expect(() => characterizeClock({ phase, t, tau0: 0 })).toThrow(/record\.tau0/);
-    expect(() => characterizeClock({ phase, t, tau0: 300 }, { predict: [1000] })).toThrow(/predict\[0\]/);
-    expect(() => characterizeClock({ phase, t, tau0: 300 }, { maxPasses: 0 })).toThrow(/options\.maxPasses/);
+    expect(() => characterizeClock({ epoch: EPOCH, phase, t: t.subarray(1), tau0: 300 })).toThrow(/record\.t/);
+    expect(() => characterizeClock({ epoch: EPOCH, phase, t, tau0: 0 })).toThrow(/record\.tau0/);
+    expect(() => characterizeClock({ epoch: EPOCH, phase, t, tau0: 300 }, { predict: [1000] })).toThrow(/predict\[0\]/);
+    expect(() => characterizeClock({ epoch: EPOCH, phase, t, tau0: 300 }, { maxPasses: 0 })).toThrow(
+      /options\.maxPasses/,
+    );
+    // A sample that is not a number reached the polynomial fit's Float64Array as a TypeError before it was checked.
+    const damaged = [...phase] as unknown[];
+    damaged[7] = {};
+    expect(() =>
+      characterizeClock({ epoch: EPOCH, phase: damaged as number[], t, tau0: 300 }, { measurementSigma: 3e-11 }),
+    ).toThrow(/record\.phase\[7\]/);
     expect(() => characterizeClock({ phase, t, tau0: 300, epoch: 5 as unknown as Instant })).toThrow(
       InvalidArgumentError,
     );

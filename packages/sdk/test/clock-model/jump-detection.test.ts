@@ -14,6 +14,7 @@ import {
   runClockFilter,
   simulateClock,
 } from '../../src/clock-model/index.js';
+import { EPOCH } from './test-epoch.js';
 
 /** Smallest k with P(X > k) ≤ tail and largest k with P(X < k) ≤ tail, X ~ Binomial(n, p) [C]. */
 function binomialBounds(n: number, p: number, tail: number): { low: number; high: number } {
@@ -53,7 +54,7 @@ function countFalse(
   for (let r = 0; r < records; r++) {
     const sim = simulateClock({ samples, tau0: c.tau0, q: c.q, seed: 31000 + r, measurementNoise: c.sigma });
     const run = runClockFilter(
-      { phase: sim.phase, variance: c.sigma ** 2, tau0: c.tau0 },
+      { epoch: EPOCH, phase: sim.phase, variance: c.sigma ** 2, tau0: c.tau0 },
       { q: c.q, ...(falseAlarmProbability ? { jumpDetection: { falseAlarmProbability } } : {}) },
     );
     jumps += run.jumps.length;
@@ -81,14 +82,15 @@ describe('runClockFilter GLR detector on jump-free simulated clocks', () => {
     const { jumps } = countFalse(c, records, 5000, 1e-3);
     expect(jumps).toBeLessThanOrEqual(binomialBounds(records * 5000, 1e-3, 1e-3).high);
     const run = runClockFilter(
-      { phase: [0, 1e-10, 2e-10], variance: 1e-20, tau0: 1 },
+      { epoch: EPOCH, phase: [0, 1e-10, 2e-10], variance: 1e-20, tau0: 1 },
       { q: c.q, jumpDetection: { falseAlarmProbability: 1e-3 } },
     );
     expect(run.detection!.testsPerUpdate).toBe(36);
     // χ²(1) upper quantile at 1e-3/36: scipy.stats.chi2.isf(1e-3/36, 1) = 17.564137886838576 [C].
     expect(run.detection!.jumpThreshold).toBeCloseTo(17.564137886838576, 6);
     // Defaults: isf(1e-6/36, 1) = 30.856864804329376, isf(1e-4, 1) = 15.136705226623397, isf(1e-9, 1) = 37.324893051362324 [C, scipy].
-    const d = runClockFilter({ phase: [0, 1e-10, 2e-10], variance: 1e-20, tau0: 1 }, { q: c.q }).detection!;
+    const d = runClockFilter({ epoch: EPOCH, phase: [0, 1e-10, 2e-10], variance: 1e-20, tau0: 1 }, { q: c.q })
+      .detection!;
     expect(d.jumpThreshold).toBeCloseTo(30.856864804329376, 6);
     expect(d.outlierThreshold).toBeCloseTo(15.136705226623397, 6);
     expect(d.holdGate).toBeCloseTo(37.324893051362324, 6);
@@ -109,7 +111,7 @@ describe('runClockFilter GLR detector: detection probability of injected jumps',
         measurementNoise: sigma,
         jumps: [{ index: 1000, kind, size }],
       });
-      const run = runClockFilter({ phase: sim.phase, variance: sigma ** 2, tau0: 1 }, { q });
+      const run = runClockFilter({ epoch: EPOCH, phase: sim.phase, variance: sigma ** 2, tau0: 1 }, { q });
       if (run.jumps.some((j) => j.kind === kind && Math.abs(j.updateIndex - 1000) <= 3)) found += 1;
     }
     return found;
@@ -125,7 +127,7 @@ describe('runClockFilter GLR detector: detection probability of injected jumps',
     const phase = Float64Array.from(sim.phase);
     const bad = [500, 1200, 1201, 2999];
     for (const k of bad) phase[k] = (phase[k] as number) + 20 * sigma * (k % 2 ? -1 : 1);
-    const run = runClockFilter({ phase, variance: sigma ** 2, tau0: 1 }, { q });
+    const run = runClockFilter({ epoch: EPOCH, phase, variance: sigma ** 2, tau0: 1 }, { q });
     for (const k of bad) expect(run.rejected).toContain(k);
     expect(run.outliers!.map((o) => o.updateIndex)).toEqual(expect.arrayContaining(bad));
     expect(run.jumps).toEqual([]);
@@ -142,7 +144,7 @@ describe('runClockFilter against a plain Kalman recursion', () => {
       const states = q.q3 ? 3 : 2;
       const sim = simulateClock({ samples: 4000, tau0: 1, q, seed: 5, measurementNoise: 1e-10 });
       const run = runClockFilter(
-        { phase: sim.phase, variance: 1e-20, tau0: 1 },
+        { epoch: EPOCH, phase: sim.phase, variance: 1e-20, tau0: 1 },
         { q, jumpDetection: false, outlierProbability: false },
       );
       const phi = clockTransitionMatrix(1, states);

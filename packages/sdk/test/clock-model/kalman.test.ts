@@ -10,6 +10,7 @@ import {
   simulateClock,
 } from '../../src/clock-model/index.js';
 import { InvalidArgumentError } from '../../src/errors.js';
+import { EPOCH } from './test-epoch.js';
 
 const Q3 = { q1: 1e-22, q2: 1e-28, q3: 1e-36 };
 const zero3 = [
@@ -196,7 +197,10 @@ describe('ClockKalmanFilter', () => {
       },
     });
     t.forEach((ti, i) => f.step(ti, x[i]!, 1e-20));
-    const fit = fitClockPolynomial(t, x, { degree: 1, variance: 1e-20, referenceTime: 290 });
+    const fit = fitClockPolynomial(
+      { epoch: EPOCH, t: t, phase: x },
+      { degree: 1, variance: 1e-20, referenceTime: 290 },
+    );
     const e = f.estimate;
     expect(Math.abs(e.state[0]! - fit.coefficients[0]) / Math.sqrt(fit.covariance[0]![0]!)).toBeLessThan(1e-4);
     expect(Math.abs(e.state[1]! - fit.coefficients[1]) / Math.sqrt(fit.covariance[1]![1]!)).toBeLessThan(1e-4);
@@ -295,7 +299,7 @@ describe('runClockFilter', () => {
     const phase = Array.from(sim.phase);
     phase[50] = Number.NaN;
     const run = runClockFilter(
-      { phase, variance: 1e-20, tau0: 1 },
+      { epoch: EPOCH, phase, variance: 1e-20, tau0: 1 },
       { q: Q3, states: 3, initialFrequencyStd: 1e-11, initialDriftStd: 1e-17 },
     );
     expect(run.status[50]).toBe('missing');
@@ -306,7 +310,7 @@ describe('runClockFilter', () => {
   });
   it('runClockFilter accepts explicit epochs and per-sample variances; 2-state by default when q3 = 0', () => {
     const run = runClockFilter(
-      { phase: [0, 1e-9, 2e-9, 3.1e-9], variance: [1e-20, 1e-20, 4e-20, 1e-20], t: [0, 1, 2, 3] },
+      { epoch: EPOCH, phase: [0, 1e-9, 2e-9, 3.1e-9], variance: [1e-20, 1e-20, 4e-20, 1e-20], t: [0, 1, 2, 3] },
       { q: { q1: 1e-22, q2: 1e-28 } },
     );
     expect(run.states).toBe(2);
@@ -316,36 +320,52 @@ describe('runClockFilter', () => {
   it('runClockFilter(series, options) rejects bad series', () => {
     const q = { q1: 1e-22, q2: 1e-28 };
     expect(() => runClockFilter(null as never, { q })).toThrow(InvalidArgumentError);
-    expect(() => runClockFilter({ phase: [0], variance: 1, tau0: 1 }, null as never)).toThrow(InvalidArgumentError);
-    expect(() => runClockFilter({ phase: [], variance: 1, tau0: 1 }, { q })).toThrow(InvalidArgumentError);
-    expect(() => runClockFilter({ phase: [0, 1], variance: 1, t: [0] }, { q })).toThrow(InvalidArgumentError);
-    expect(() => runClockFilter({ phase: [0, 1], variance: 1, t: [0, 0] }, { q })).toThrow(/strictly increasing/);
-    expect(() => runClockFilter({ phase: [0, 1], variance: 1, t: [0, Number.NaN] }, { q })).toThrow(
+    expect(() => runClockFilter({ epoch: EPOCH, phase: [0], variance: 1, tau0: 1 }, null as never)).toThrow(
       InvalidArgumentError,
     );
-    expect(() => runClockFilter({ phase: [0, 1], variance: 1 }, { q })).toThrow(InvalidArgumentError);
-    expect(() => runClockFilter({ phase: [0, 1], variance: [1], tau0: 1 }, { q })).toThrow(InvalidArgumentError);
-    expect(() => runClockFilter({ phase: [0, 1], variance: [1, 0], tau0: 1 }, { q })).toThrow(InvalidArgumentError);
-    expect(() => runClockFilter({ phase: [0, 1], variance: -1, tau0: 1 }, { q })).toThrow(InvalidArgumentError);
-    expect(() => runClockFilter({ phase: [0, Infinity], variance: 1, tau0: 1 }, { q })).toThrow(InvalidArgumentError);
-    expect(() => runClockFilter({ phase: [Number.NaN, Number.NaN], variance: 1, tau0: 1 }, { q })).toThrow(
-      /at least one valid/,
-    );
-    expect(() => runClockFilter({ phase: [0, 1], variance: 1, tau0: 1 }, { q, states: 4 as 2 })).toThrow(
+    expect(() => runClockFilter({ epoch: EPOCH, phase: [], variance: 1, tau0: 1 }, { q })).toThrow(
       InvalidArgumentError,
     );
-    expect(() => runClockFilter({ phase: [0, 1], variance: 1, tau0: 1 }, { q, initialFrequencyStd: 0 })).toThrow(
+    expect(() => runClockFilter({ epoch: EPOCH, phase: [0, 1], variance: 1, t: [0] }, { q })).toThrow(
+      InvalidArgumentError,
+    );
+    expect(() => runClockFilter({ epoch: EPOCH, phase: [0, 1], variance: 1, t: [0, 0] }, { q })).toThrow(
+      /strictly increasing/,
+    );
+    expect(() => runClockFilter({ epoch: EPOCH, phase: [0, 1], variance: 1, t: [0, Number.NaN] }, { q })).toThrow(
+      InvalidArgumentError,
+    );
+    expect(() => runClockFilter({ epoch: EPOCH, phase: [0, 1], variance: 1 }, { q })).toThrow(InvalidArgumentError);
+    expect(() => runClockFilter({ epoch: EPOCH, phase: [0, 1], variance: [1], tau0: 1 }, { q })).toThrow(
+      InvalidArgumentError,
+    );
+    expect(() => runClockFilter({ epoch: EPOCH, phase: [0, 1], variance: [1, 0], tau0: 1 }, { q })).toThrow(
+      InvalidArgumentError,
+    );
+    expect(() => runClockFilter({ epoch: EPOCH, phase: [0, 1], variance: -1, tau0: 1 }, { q })).toThrow(
+      InvalidArgumentError,
+    );
+    expect(() => runClockFilter({ epoch: EPOCH, phase: [0, Infinity], variance: 1, tau0: 1 }, { q })).toThrow(
       InvalidArgumentError,
     );
     expect(() =>
-      runClockFilter({ phase: [0, 1], variance: 1, tau0: 1 }, { q, states: 3, initialDriftStd: -1 }),
-    ).toThrow(InvalidArgumentError);
-    expect(() => runClockFilter({ phase: [0, 1], variance: 1, tau0: 1 }, { q, nisConfidence: 1 })).toThrow(
+      runClockFilter({ epoch: EPOCH, phase: [Number.NaN, Number.NaN], variance: 1, tau0: 1 }, { q }),
+    ).toThrow(/at least one valid/);
+    expect(() => runClockFilter({ epoch: EPOCH, phase: [0, 1], variance: 1, tau0: 1 }, { q, states: 4 as 2 })).toThrow(
       InvalidArgumentError,
     );
+    expect(() =>
+      runClockFilter({ epoch: EPOCH, phase: [0, 1], variance: 1, tau0: 1 }, { q, initialFrequencyStd: 0 }),
+    ).toThrow(InvalidArgumentError);
+    expect(() =>
+      runClockFilter({ epoch: EPOCH, phase: [0, 1], variance: 1, tau0: 1 }, { q, states: 3, initialDriftStd: -1 }),
+    ).toThrow(InvalidArgumentError);
+    expect(() =>
+      runClockFilter({ epoch: EPOCH, phase: [0, 1], variance: 1, tau0: 1 }, { q, nisConfidence: 1 }),
+    ).toThrow(InvalidArgumentError);
     expect(() =>
       runClockFilter(
-        { phase: [0, 1], variance: 1, tau0: 1 },
+        { epoch: EPOCH, phase: [0, 1], variance: 1, tau0: 1 },
         {
           q,
           initial: {

@@ -7,6 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import { fitClockPolynomial, polynomialNoiseCovariance, simulateClock } from '../../src/clock-model/index.js';
 import { InvalidArgumentError } from '../../src/errors.js';
+import { EPOCH } from './test-epoch.js';
 
 describe('polynomialNoiseCovariance', () => {
   it('polynomialNoiseCovariance(t, { degree: 2, q, R }) gives the Monte-Carlo spread of a0, a1, a2 and of a 1-day prediction (400 seeded clocks)', () => {
@@ -34,7 +35,10 @@ describe('polynomialNoiseCovariance', () => {
         measurementNoise: sv,
         initial: { phase: 1e-6, frequency: 2e-11, drift: 1e-18 },
       });
-      const fit = fitClockPolynomial(t, sim.phase.subarray(0, n), { degree: 2, referenceTime: 0 });
+      const fit = fitClockPolynomial(
+        { epoch: EPOCH, t: t, phase: sim.phase.subarray(0, n) },
+        { degree: 2, referenceTime: 0 },
+      );
       err[0]!.push(fit.coefficients[0] - 1e-6);
       err[1]!.push(fit.coefficients[1] - 2e-11);
       err[2]!.push(fit.coefficients[2] - 1e-18 / 2);
@@ -50,8 +54,7 @@ describe('polynomialNoiseCovariance', () => {
   it('polynomialNoiseCovariance with q = 0 reduces to the white-noise least-squares covariance R(AᵀA)⁻¹ of fitClockPolynomial', () => {
     const t = Float64Array.from({ length: 50 }, (_, k) => k * 10);
     const fit = fitClockPolynomial(
-      t,
-      t.map((v) => 1e-9 + 1e-12 * v),
+      { epoch: EPOCH, t: t, phase: t.map((v) => 1e-9 + 1e-12 * v) },
       { degree: 1, variance: 4e-20, referenceTime: 100 },
     );
     const model = polynomialNoiseCovariance(t, {

@@ -12,6 +12,7 @@ import {
   simulateClock,
 } from '../../src/clock-model/index.js';
 import { chiSquareInterval, deviations, equivalentDegreesOfFreedom } from '../../src/stability/index.js';
+import { EPOCH } from './test-epoch.js';
 
 const Q3 = { q1: 1e-22, q2: 1e-28, q3: 1e-36 }; // physics-refs §11 check set, τ0 = 1 s
 const Q2 = { q1: 1e-22, q2: 1e-28 };
@@ -78,7 +79,7 @@ describe('clock Kalman filter consistency', () => {
   it('runClockFilter 3-state on a simulated 3-state clock: mean NIS over 20 000 epochs lies within its 99 % χ²(N)/N bounds', () => {
     const sim = simulateClock({ samples: 20000, tau0: 1, q: Q3, seed: 8, measurementNoise: 1e-10 });
     const run = runClockFilter(
-      { phase: sim.phase, variance: 1e-20, tau0: 1 },
+      { epoch: EPOCH, phase: sim.phase, variance: 1e-20, tau0: 1 },
       { q: Q3, initial: { t: 0, state: [0, 0, 0], covariance: zero3 }, nisConfidence: 0.99 },
     );
     const s = run.nisSummary;
@@ -97,7 +98,7 @@ describe('clock Kalman filter consistency', () => {
       initial: { phase: 1e-6, frequency: 2e-12 },
     });
     const run = runClockFilter(
-      { phase: sim.phase, variance: 9e-20, tau0: 60 },
+      { epoch: EPOCH, phase: sim.phase, variance: 9e-20, tau0: 60 },
       {
         q: Q2,
         initial: {
@@ -126,7 +127,7 @@ describe('clock Kalman filter consistency', () => {
       jumps: [{ index: 2000, kind: 'phase', size: 1e-9 }],
     });
     const run = runClockFilter(
-      { phase: sim.phase, variance: 1e-20, tau0: 1 },
+      { epoch: EPOCH, phase: sim.phase, variance: 1e-20, tau0: 1 },
       { q: Q3, initial: { t: 0, state: [0, 0, 0], covariance: zero3 } },
     );
     expect(run.jumps).toHaveLength(1);
@@ -154,7 +155,7 @@ describe('clock Kalman filter consistency', () => {
       jumps: [{ index: 2000, kind: 'frequency', size: 2e-10 }],
     });
     const run = runClockFilter(
-      { phase: sim.phase, variance: 1e-20, tau0: 1 },
+      { epoch: EPOCH, phase: sim.phase, variance: 1e-20, tau0: 1 },
       { q: Q3, initial: { t: 0, state: [0, 0, 0], covariance: zero3 } },
     );
     expect(run.jumps).toHaveLength(1);

@@ -32,6 +32,7 @@ import {
   tcgRateVsTT,
   tuningWordFrequency,
 } from '../../src/index.js';
+import { EPOCH } from '../clock-model/test-epoch.js';
 
 const example = (path: string): Record<string, unknown> =>
   JSON.parse(readFileSync(new URL(`../../examples/${path}`, import.meta.url), 'utf8')) as Record<string, unknown>;
@@ -59,7 +60,10 @@ describe('null or non-object options name the argument (common practice, no sour
     ['identifyNoise', (o) => identifyNoise(PHASE, o as never)],
     ['integrateProperTime', (o) => integrateProperTime(STATE, 3600, 600, o as never)],
     ['reviewOffsets', (o) => reviewOffsets(REVIEW, o as never)],
-    ['fitClockPolynomial', (o) => fitClockPolynomial([0, 1, 2, 3], [0, 1e-9, 2e-9, 4e-9], o as never)],
+    [
+      'fitClockPolynomial',
+      (o) => fitClockPolynomial({ epoch: EPOCH, t: [0, 1, 2, 3], phase: [0, 1e-9, 2e-9, 4e-9] }, o as never),
+    ],
     ['simulatePlan', (o) => simulatePlan(SCENARIO, { commands: [] }, o as never)],
     ['groundClockRate', (o) => groundClockRate({ latitude: 0.7, longitude: 0, height: 0 }, o as never)],
     ['createGravityField', (o) => createGravityField('j2', o as never)],

@@ -291,9 +291,9 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
       kind: 'allan',
     })),
   ],
-  fitClockPolynomial: () => [TIMES, PHASE, { degree: 2 }],
+  fitClockPolynomial: () => [{ epoch: passEpoch(), t: TIMES, phase: PHASE }, { degree: 2 }],
   runClockFilter: () => [
-    { phase: PHASE, variance: 1e-20, tau0: 30 },
+    { epoch: passEpoch(), phase: PHASE, variance: 1e-20, tau0: 30 },
     { q: Q2, states: 2 },
   ],
   forecastClock: () => [ESTIMATE, Q2, [3600]],
@@ -302,7 +302,7 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
   diffusionFromStabilityRows: () => [built().rows, { states: 2 }],
   measurementNoiseFromPhase: () => [PHASE],
   characterizeClock: () => [
-    { phase: PHASE, t: TIMES, tau0: 30 },
+    { epoch: passEpoch(), phase: PHASE, t: TIMES, tau0: 30 },
     { degree: 1, measurementSigma: 1e-11, maxPasses: 1 },
   ],
   clockMeasurementNoise: () => [1e-11, undefined],
