@@ -2,9 +2,9 @@
  * A lean 3-state clock Kalman filter for the closed-loop Monte Carlo: the same equations as
  * `ClockKalmanFilter` (clock-model/kalman.ts) — time update s⁻ = Φs, P⁻ = ΦPΦᵀ + Q(τ)
  * (Zucca & Tavella 2005, physics-refs §11; Kalman 1960 [M]), measurement update of the phase
- * with K = P⁻Hᵀ/S, S = P⁻₁₁ + R, P = (I − KH)P⁻(I − KH)ᵀ + KRKᵀ (Joseph form) — written out on
- * flat arrays with Φ and Q cached per interval, without input validation, outlier gate or jump
- * detector. The closed-loop tests hold it equal to ClockKalmanFilter.
+ * with K = P⁻Hᵀ/S, S = P⁻₁₁ + R, P = (I − KH)P⁻(I − KH)ᵀ + KRKᵀ (Joseph form) — written out
+ * element by element on named fields, with Φ and Q cached per interval, without input validation,
+ * outlier gate or jump detector. The closed-loop tests hold it equal to ClockKalmanFilter.
  *
  * @internal
  */
