@@ -119,7 +119,10 @@ function filterAutocorrelation(
   return { offsets, w, span: Math.max(...entries.map((e) => Math.abs(e[0]))) };
 }
 
-/** ρ(a) = Σ_o w_o G(a + o); in the far field (a > span) polynomial G give exactly 0 and the log forms use log1p. */
+/**
+ * ρ(a) = Σ_o w_o G(a + o); in the far field (a > span) polynomial G give exactly 0 and the log forms use log1p.
+ * Hot loops: indices bounded by i < offsets.length = w.length (both built from one entry list).
+ */
 function lagCovariance(noise: NoiseType, offsets: Float64Array, w: Float64Array, span: number, a: number): number {
   let s = 0;
   if (a > span) {

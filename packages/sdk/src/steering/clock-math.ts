@@ -8,8 +8,17 @@
  */
 import { clockProcessNoise, clockTransitionMatrix } from '../clock-model/noise.js';
 
+/**
+ * The 3-state clock state [x, y, d]: phase (s), fractional frequency, drift (1/s). A tuple, so each
+ * component is a `number` to the compiler without an index check.
+ */
+export type ClockState = [number, number, number];
+
+/** A row (or any 3-vector) of a {@link Matrix3}. */
+export type Vec3 = [number, number, number];
+
 /** 3×3 matrix as nested arrays (row-major). */
-export type Matrix3 = [[number, number, number], [number, number, number], [number, number, number]];
+export type Matrix3 = [Vec3, Vec3, Vec3];
 
 /** Diffusion coefficients of the 3-state clock model (Zucca & Tavella 2005). */
 export interface DiffusionCoefficients {
@@ -39,11 +48,25 @@ export function phaseVariance(t: number, p0: Matrix3, q: DiffusionCoefficients):
   return Math.max(0, initial) + q.q1 * t + (q.q2 * t3) / 3 + (q.q3 * t3 * t * t) / 20;
 }
 
-/** vᵀ M v for a 3-vector and a 3×3 matrix, summed row by row (i, then j). */
-export function quadForm3(v: readonly number[], m: Matrix3): number {
-  let s = 0;
-  for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) s += v[i]! * m[i]![j]! * v[j]!;
-  return s;
+/**
+ * vᵀ M v for a 3-vector and a 3×3 matrix, summed term by term row by row (i, then j) from 0, the
+ * order of the double loop it replaces, so results are unchanged to the last bit.
+ */
+export function quadForm3(v: Readonly<Vec3>, m: Readonly<Matrix3>): number {
+  const [v0, v1, v2] = v;
+  const [m0, m1, m2] = m;
+  return (
+    0 +
+    v0 * m0[0] * v0 +
+    v0 * m0[1] * v1 +
+    v0 * m0[2] * v2 +
+    v1 * m1[0] * v0 +
+    v1 * m1[1] * v1 +
+    v1 * m1[2] * v2 +
+    v2 * m2[0] * v0 +
+    v2 * m2[1] * v1 +
+    v2 * m2[2] * v2
+  );
 }
 
 /**
@@ -51,8 +74,8 @@ export function quadForm3(v: readonly number[], m: Matrix3): number {
  * (physics-refs §11), written out: `mulVec3(transition(Δ), s)` would round dΔ²/2 in another
  * order and change plans in the last bit.
  */
-export function propagateMean(s: readonly number[], delta: number): [number, number, number] {
-  return [s[0]! + s[1]! * delta + (s[2]! * delta * delta) / 2, s[1]! + s[2]! * delta, s[2]!];
+export function propagateMean(s: Readonly<ClockState>, delta: number): ClockState {
+  return [s[0] + s[1] * delta + (s[2] * delta * delta) / 2, s[1] + s[2] * delta, s[2]];
 }
 
 /**
@@ -74,7 +97,45 @@ export function phaseSquareIntegral(delta: number): Matrix3 {
 
 /** Φ(Δ) = [[1, Δ, Δ²/2], [0, 1, Δ], [0, 0, 1]] (Zucca & Tavella 2005; physics-refs §11), from `clockTransitionMatrix`; Δ ≥ 0. */
 export function transition(delta: number): Matrix3 {
-  return clockTransitionMatrix(delta, 3) as Matrix3;
+  return matrix3(clockTransitionMatrix(delta, 3), 'clockTransitionMatrix(delta, 3)');
+}
+
+/**
+ * The rows of a 3×3 matrix from the clock-model module as a {@link Matrix3}, checked: a `RangeError`
+ * naming `name` and the shape found when it is not 3×3 (an internal error, never an input problem).
+ */
+function matrix3(rows: readonly (readonly number[])[], name: string): Matrix3 {
+  const [r0, r1, r2] = rows;
+  if (rows.length !== 3 || !isVec3(r0) || !isVec3(r1) || !isVec3(r2)) {
+    const shape = rows.map((r) => r.length).join(', ');
+    throw new RangeError(`${name} has rows of [${shape}] element(s), expected 3×3 (internal shape error)`);
+  }
+  return [[...r0], [...r1], [...r2]];
+}
+
+function isVec3(row: readonly number[] | undefined): row is Vec3 {
+  return row !== undefined && row.length === 3;
+}
+
+/**
+ * Σᵢⱼ Aᵢⱼ Bᵢⱼ (the Frobenius inner product, = tr(AᵀB)), summed from 0 row by row, the order of the
+ * double loop it replaces.
+ */
+export function frobenius3(a: Readonly<Matrix3>, b: Readonly<Matrix3>): number {
+  const [a0, a1, a2] = a;
+  const [b0, b1, b2] = b;
+  return (
+    0 +
+    a0[0] * b0[0] +
+    a0[1] * b0[1] +
+    a0[2] * b0[2] +
+    a1[0] * b1[0] +
+    a1[1] * b1[1] +
+    a1[2] * b1[2] +
+    a2[0] * b2[0] +
+    a2[1] * b2[1] +
+    a2[2] * b2[2]
+  );
 }
 
 export function zeros3(): Matrix3 {
@@ -85,19 +146,25 @@ export function zeros3(): Matrix3 {
   ];
 }
 
-/** A·B for 3×3 matrices. */
-export function mul3(a: Matrix3, b: Matrix3): Matrix3 {
-  const r = zeros3();
-  for (let i = 0; i < 3; i++)
-    for (let j = 0; j < 3; j++) {
-      let s = 0;
-      for (let k = 0; k < 3; k++) s += a[i]![k]! * b[k]![j]!;
-      r[i]![j] = s;
-    }
-  return r;
+/**
+ * A·B for 3×3 matrices: each element summed from 0 over k = 0, 1, 2 (the order of the triple loop
+ * it replaces, so products are unchanged to the last bit).
+ */
+export function mul3(a: Readonly<Matrix3>, b: Readonly<Matrix3>): Matrix3 {
+  return [rowTimes3(a[0], b), rowTimes3(a[1], b), rowTimes3(a[2], b)];
 }
 
-export function transpose3(a: Matrix3): Matrix3 {
+/** The row vector r·B. */
+function rowTimes3(r: Readonly<Vec3>, b: Readonly<Matrix3>): Vec3 {
+  const [b0, b1, b2] = b;
+  return [
+    0 + r[0] * b0[0] + r[1] * b1[0] + r[2] * b2[0],
+    0 + r[0] * b0[1] + r[1] * b1[1] + r[2] * b2[1],
+    0 + r[0] * b0[2] + r[1] * b1[2] + r[2] * b2[2],
+  ];
+}
+
+export function transpose3(a: Readonly<Matrix3>): Matrix3 {
   return [
     [a[0][0], a[1][0], a[2][0]],
     [a[0][1], a[1][1], a[2][1]],
@@ -105,44 +172,49 @@ export function transpose3(a: Matrix3): Matrix3 {
   ];
 }
 
-export function add3(a: Matrix3, b: Matrix3, scaleB = 1): Matrix3 {
-  const r = zeros3();
-  for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) r[i]![j] = a[i]![j]! + scaleB * b[i]![j]!;
-  return r;
+/** A + scaleB·B for 3×3 matrices. */
+export function add3(a: Readonly<Matrix3>, b: Readonly<Matrix3>, scaleB = 1): Matrix3 {
+  const row = (x: Readonly<Vec3>, y: Readonly<Vec3>): Vec3 => [
+    x[0] + scaleB * y[0],
+    x[1] + scaleB * y[1],
+    x[2] + scaleB * y[2],
+  ];
+  return [row(a[0], b[0]), row(a[1], b[1]), row(a[2], b[2])];
 }
 
-export function mulVec3(a: Matrix3, v: readonly number[]): [number, number, number] {
+export function mulVec3(a: Readonly<Matrix3>, v: Readonly<Vec3>): Vec3 {
   return [
-    a[0][0] * v[0]! + a[0][1] * v[1]! + a[0][2] * v[2]!,
-    a[1][0] * v[0]! + a[1][1] * v[1]! + a[1][2] * v[2]!,
-    a[2][0] * v[0]! + a[2][1] * v[1]! + a[2][2] * v[2]!,
+    a[0][0] * v[0] + a[0][1] * v[1] + a[0][2] * v[2],
+    a[1][0] * v[0] + a[1][1] * v[1] + a[1][2] * v[2],
+    a[2][0] * v[0] + a[2][1] * v[1] + a[2][2] * v[2],
   ];
 }
 
 /**
- * Lower-triangular L with L Lᵀ = A for a symmetric positive semi-definite 3×3 matrix. Zero (or
- * round-off negative) pivots give a zero column instead of NaN, so a singular covariance (e.g.
- * q3 = 0) still yields draws with the right covariance.
+ * Lower-triangular L with L Lᵀ = A for a symmetric positive semi-definite 3×3 matrix (the
+ * Cholesky–Banachiewicz recurrence written out for n = 3; Golub & Van Loan, Matrix Computations,
+ * 4th ed., §4.2 [M]). Zero (or round-off negative) pivots give a zero column instead of NaN, so a
+ * singular covariance (e.g. q3 = 0) still yields draws with the right covariance.
  */
-export function choleskyPsd3(a: Matrix3): Matrix3 {
-  const l = zeros3();
-  for (let j = 0; j < 3; j++) {
-    let d = a[j]![j]!;
-    for (let k = 0; k < j; k++) d -= l[j]![k]! * l[j]![k]!;
-    const scale = Math.abs(a[j]![j]!) || 1;
-    if (d <= 1e-13 * scale) {
-      l[j]![j] = 0;
-      continue;
-    }
-    const ljj = Math.sqrt(d);
-    l[j]![j] = ljj;
-    for (let i = j + 1; i < 3; i++) {
-      let s = a[i]![j]!;
-      for (let k = 0; k < j; k++) s -= l[i]![k]! * l[j]![k]!;
-      l[i]![j] = s / ljj;
-    }
-  }
-  return l;
+export function choleskyPsd3(a: Readonly<Matrix3>): Matrix3 {
+  const [[a00], [a10, a11], [a20, a21, a22]] = a;
+  const l00 = psdPivot(a00, a00);
+  const l10 = l00 === 0 ? 0 : a10 / l00;
+  const l20 = l00 === 0 ? 0 : a20 / l00;
+  const l11 = psdPivot(a11 - l10 * l10, a11);
+  const l21 = l11 === 0 ? 0 : (a21 - l20 * l10) / l11;
+  const l22 = psdPivot(a22 - l20 * l20 - l21 * l21, a22);
+  return [
+    [l00, 0, 0],
+    [l10, l11, 0],
+    [l20, l21, l22],
+  ];
+}
+
+/** √d for a pivot d of the diagonal element `diagonal`, or 0 when d ≤ 1e-13·|diagonal| (a singular direction). */
+function psdPivot(d: number, diagonal: number): number {
+  const scale = Math.abs(diagonal) || 1;
+  return d <= 1e-13 * scale ? 0 : Math.sqrt(d);
 }
 
 /**
@@ -151,5 +223,5 @@ export function choleskyPsd3(a: Matrix3): Matrix3 {
  * Q23 = q3τ²/2, Q33 = q3τ; from `clockProcessNoise`; τ ≥ 0.
  */
 export function processNoise(tau: number, q: DiffusionCoefficients): Matrix3 {
-  return clockProcessNoise(tau, q, 3) as Matrix3;
+  return matrix3(clockProcessNoise(tau, q, 3), 'clockProcessNoise(tau, q, 3)');
 }

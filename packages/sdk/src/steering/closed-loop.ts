@@ -7,6 +7,7 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
+import { at, last } from '../internal/checked.js';
 import { createRandom, MAX_SEED, type Random } from '../internal/random.js';
 import { requireInteger } from '../internal/validate.js';
 import { choleskyPsd3, type Matrix3, processNoise } from './clock-math.js';
@@ -80,7 +81,7 @@ export function closedLoopFrame(norm: NormalizedScenario): ClosedLoopFrame {
   const pos = new Map(all.map((t, i) => [t, i] as const));
   const cache = new Map<number, Matrix3>();
   const chol = all.map((t, i) => {
-    const dt = i === 0 ? 0 : t - all[i - 1]!;
+    const dt = i === 0 ? 0 : t - at(all, i - 1, 'times');
     let l = cache.get(dt);
     if (!l) {
       l = choleskyPsd3(processNoise(dt, norm.noise));
@@ -100,7 +101,10 @@ export function closedLoopFrame(norm: NormalizedScenario): ClosedLoopFrame {
   };
 }
 
-/** Draws one free-running truth clock: s(0) ~ N(mean0, P0), s(t+Δ) = Φ(Δ)s + w, w ~ N(0, Q(Δ)) (Zucca & Tavella 2005). */
+/**
+ * Draws one free-running truth clock: s(0) ~ N(mean0, P0), s(t+Δ) = Φ(Δ)s + w, w ~ N(0, Q(Δ)) (Zucca & Tavella 2005).
+ * Hot path: indices bounded by i < times.length = chol.length (closedLoopFrame).
+ */
 export function drawTruth(frame: ClosedLoopFrame, rng: Random): TruthClock {
   const { norm, times, chol, l0 } = frame;
   const n0 = rng.normal();
@@ -110,8 +114,11 @@ export function drawTruth(frame: ClosedLoopFrame, rng: Random): TruthClock {
   let y = norm.state0[1] + l0[1][0] * n0 + l0[1][1] * n1;
   let d = norm.state0[2] + l0[2][0] * n0 + l0[2][1] * n1 + l0[2][2] * n2;
   const phase = new Float64Array(times.length);
+  let previous = 0; // the first step runs from 0 to times[0]
   for (let i = 0; i < times.length; i++) {
-    const tau = i === 0 ? times[0]! : times[i]! - times[i - 1]!;
+    const t = times[i]!;
+    const tau = t - previous;
+    previous = t;
     if (tau > 0) {
       const l = chol[i]!;
       const w0 = rng.normal();
@@ -175,26 +182,25 @@ export function flyClosedLoop(frame: ClosedLoopFrame, rp: Replanner, truth: Trut
   let cumulative =
     norm.actuator.initial + rp.feedForward.reduce((s, c) => s + (c.kind === 'frequency' ? c.amount : 0), 0);
   const windows = norm.windows;
-  for (let w = 0; w < windows.length; w++) {
-    const now = windows[w]!.start;
-    const until = w + 1 < windows.length ? windows[w + 1]!.start : norm.horizon;
-    while (
-      ke < frame.estimateTimes.length &&
-      frame.estimateTimes[ke]! < now &&
-      frame.estimateTimes[ke]! + ops.latency <= now
+  for (const [w, window] of windows.entries()) {
+    const now = window.start;
+    const until = windows[w + 1]?.start ?? norm.horizon; // the horizon after the last window
+    for (
+      let e = frame.estimateTimes[ke];
+      e !== undefined && e < now && e + ops.latency <= now;
+      e = frame.estimateTimes[++ke]
     ) {
-      const e = frame.estimateTimes[ke]!;
       for (let j = nextJump(); j && j.t <= e; j = nextJump()) consume(j);
-      const z = truth.phase[frame.estimateIndex[ke]!]! + sumDy * e + sumOffset + ops.noise * truth.estimateNoise[ke]!;
+      const truePhase = at(truth.phase, at(frame.estimateIndex, ke, 'estimateIndex'), 'truth.phase');
+      const z = truePhase + sumDy * e + sumOffset + ops.noise * at(truth.estimateNoise, ke, 'estimateNoise');
       filter.predict(e);
       filter.update(z, variance);
-      ke++;
     }
     const est = estimateAt(filter, base, kb, planned, kp, now, norm);
     const fixedAfter = rp.feedForward.filter((c) => c.executeAt >= now);
     let lastExecuted = -Infinity;
     for (const c of rp.feedForward) if (c.executeAt < now) lastExecuted = Math.max(lastExecuted, c.executeAt);
-    if (made.length > 0) lastExecuted = Math.max(lastExecuted, made[made.length - 1]!.executeAt);
+    if (made.length > 0) lastExecuted = Math.max(lastExecuted, last(made, 'made').executeAt);
     const fresh = replanFrom(rp, now, until, est, cumulative, fixedAfter, false, lastExecuted);
     for (const c of fresh) {
       made.push(c);
@@ -205,15 +211,15 @@ export function flyClosedLoop(frame: ClosedLoopFrame, rp: Replanner, truth: Trut
   const all = [...base, ...planned].sort((a, b) => a.t - b.t);
   const offset = new Float64Array(frame.grid.length);
   let k = 0;
+  let next = all[0];
   let dy = 0;
   let off = 0;
   frame.grid.forEach((t, i) => {
-    while (k < all.length && all[k]!.t <= t) {
-      dy += all[k]!.dy;
-      off += all[k]!.dx - all[k]!.dy * all[k]!.t;
-      k++;
+    for (; next !== undefined && next.t <= t; next = all[++k]) {
+      dy += next.dy;
+      off += next.dx - next.dy * next.t;
     }
-    offset[i] = truth.phase[frame.gridIndex[i]!]! + dy * t + off;
+    offset[i] = at(truth.phase, at(frame.gridIndex, i, 'gridIndex'), 'truth.phase') + dy * t + off;
   });
   const commands = [...rp.feedForward, ...made].sort((a, b) => a.executeAt - b.executeAt);
   return { commands, offset };
@@ -234,7 +240,7 @@ function estimateAt(
   norm: NormalizedScenario,
 ): StateEstimate {
   let t = filter.t;
-  let est: StateEstimate = { state: [filter.s[0]!, filter.s[1]!, filter.s[2]!], covariance: filter.covariance() };
+  let est: StateEstimate = { state: [filter.s[0], filter.s[1], filter.s[2]], covariance: filter.covariance() };
   const pending = [...base.slice(kb), ...planned.slice(kp)].filter((j) => j.t < now).sort((a, b) => a.t - b.t);
   for (const j of pending) {
     est = propagateEstimate(est, j.t - t, norm);
@@ -247,7 +253,7 @@ function estimateAt(
 
 /** Nearest-rank percentile of sorted values (common practice, no source). */
 function percentile(sorted: Float64Array, p: number): number {
-  return sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil(p * sorted.length) - 1))]!;
+  return at(sorted, Math.min(sorted.length - 1, Math.max(0, Math.ceil(p * sorted.length) - 1)), 'sorted');
 }
 
 /**
@@ -283,14 +289,21 @@ export function simulateClosedLoop(scenario: unknown, options: ClosedLoopOptions
       throw new InvalidArgumentError(`options.strategies[${i}]`, m, '"optimal", "deadband" or "none"');
   });
   const frame = closedLoopFrame(norm);
-  const planners = methods.map((m) => makeReplanner(norm, m));
   const rng = createRandom(seed);
   const days = norm.horizon / 86_400;
-  const stats = methods.map(() => ({ tit: new Float64Array(runs), worst: new Float64Array(runs), cmds: 0, steer: 0 }));
+  // Per method: its re-planner and its statistics over the runs.
+  const flights = methods.map((method) => ({
+    method,
+    rp: makeReplanner(norm, method),
+    tit: new Float64Array(runs),
+    worst: new Float64Array(runs),
+    cmds: 0,
+    steer: 0,
+  }));
   for (let r = 0; r < runs; r++) {
     const truth = drawTruth(frame, rng);
-    planners.forEach((rp, m) => {
-      const run = flyClosedLoop(frame, rp, truth);
+    for (const s of flights) {
+      const run = flyClosedLoop(frame, s.rp, truth);
       let inside = 0;
       let worst = 0;
       for (const x of run.offset) {
@@ -298,26 +311,28 @@ export function simulateClosedLoop(scenario: unknown, options: ClosedLoopOptions
         if (ax <= norm.bound) inside++;
         if (ax > worst) worst = ax;
       }
-      const s = stats[m]!;
       s.tit[r] = inside / run.offset.length;
       s.worst[r] = worst;
       s.cmds += run.commands.length / days;
       s.steer += run.commands.reduce((sum, c) => sum + (c.kind === 'frequency' ? Math.abs(c.amount) : 0), 0);
-    });
+    }
     options.onProgress?.(r + 1, runs);
   }
   return {
     closedLoop: true,
     runs,
     seed,
-    strategies: methods.map((method, m) => {
-      const s = stats[m]!;
+    strategies: flights.map((s) => {
       const tit = s.tit.slice().sort();
       const worst = s.worst.slice().sort();
       return {
-        method,
-        timeInTolerance: { mean: tit.reduce((a, b) => a + b, 0) / runs, p05: percentile(tit, 0.05), min: tit[0]! },
-        maxAbsOffsetSeconds: { p50: percentile(worst, 0.5), p95: percentile(worst, 0.95), max: worst[runs - 1]! },
+        method: s.method,
+        timeInTolerance: {
+          mean: tit.reduce((a, b) => a + b, 0) / runs,
+          p05: percentile(tit, 0.05),
+          min: at(tit, 0, 'tit'),
+        },
+        maxAbsOffsetSeconds: { p50: percentile(worst, 0.5), p95: percentile(worst, 0.95), max: last(worst, 'worst') },
         commandsPerDay: { mean: s.cmds / runs },
         totalFrequencySteering: { mean: s.steer / runs },
       };

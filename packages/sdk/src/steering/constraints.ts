@@ -6,6 +6,7 @@
  *
  * @internal
  */
+import { at } from '../internal/checked.js';
 import type { Seconds } from '../units.js';
 import type { InternalCommand } from './predict.js';
 import type { NormalizedScenario } from './scenario.js';
@@ -32,7 +33,7 @@ export function executionIntervals(norm: NormalizedScenario): { from: Seconds; t
  */
 export function uplinkFor(norm: NormalizedScenario, exec: Seconds): Seconds | undefined {
   for (let i = norm.windows.length - 1; i >= 0; i--) {
-    const w = norm.windows[i]!;
+    const w = at(norm.windows, i, 'windows');
     if (w.start > exec + EPS) continue;
     const uplink = Math.min(exec, w.end);
     return exec - uplink <= norm.actuator.latency + EPS ? uplink : undefined;

@@ -11,7 +11,7 @@
  *
  * @module
  */
-import { phaseSquareIntegral, propagateMean, quadForm3 } from './clock-math.js';
+import { frobenius3, phaseSquareIntegral, propagateMean, quadForm3 } from './clock-math.js';
 import { type InternalCommand, stateJumps } from './predict.js';
 import type { NormalizedScenario } from './scenario.js';
 
@@ -51,8 +51,7 @@ export function expectedCost(norm: NormalizedScenario, commands: readonly Intern
   }
   advance(h);
   const m = phaseSquareIntegral(h);
-  let initial = 0;
-  for (let i = 0; i < 3; i++) for (let k = 0; k < 3; k++) initial += norm.covariance0[i]![k]! * m[i]![k]!;
+  const initial = frobenius3(norm.covariance0, m);
   const { q1, q2, q3 } = norm.noise;
   // ∫₀^H (q1 t + q2 t³/3 + q3 t⁵/20) dt, from the Q11 entry of Zucca & Tavella (2005).
   const noise = (q1 * h * h) / 2 + (q2 * h ** 4) / 12 + (q3 * h ** 6) / 120;

@@ -12,6 +12,7 @@
  * @module
  */
 
+import { at } from '../internal/checked.js';
 import { admissibleSteps, boundaries, brakingModel } from './braking.js';
 import { phaseVariance } from './clock-math.js';
 import {
@@ -50,7 +51,8 @@ function deadbandOpportunities(norm: NormalizedScenario): number[] {
   const epochs: number[] = [];
   for (const w of norm.windows) {
     for (let t = w.start; t <= w.end + 1e-9 && t <= norm.horizon; t += norm.grid) {
-      if (epochs.length === 0 || t - epochs[epochs.length - 1]! >= norm.actuator.spacing - 1e-6) epochs.push(t);
+      const previous = epochs.at(-1);
+      if (previous === undefined || t - previous >= norm.actuator.spacing - 1e-6) epochs.push(t);
     }
   }
   return epochs;
@@ -112,8 +114,8 @@ export function planDeadband(
   /** Whether the predicted offset would use more than θ of the usable band between `t` and the next contact (the next chance to act), on the prediction grid. */
   const exceedsBefore = (t: number, nextStart: number, jumps: readonly StateJump[]): boolean => {
     for (let s = t; s <= Math.max(nextStart, t) + 1e-9; s += norm.grid) {
-      const at = Math.min(s, norm.horizon);
-      if (Math.abs(meanState(norm, jumps, at)[0]) > theta * Math.max(0, usable(at))) return true;
+      const tCheck = Math.min(s, norm.horizon);
+      if (Math.abs(meanState(norm, jumps, tCheck)[0]) > theta * Math.max(0, usable(tCheck))) return true;
       if (s >= norm.horizon) return false;
     }
     return false;
@@ -124,7 +126,7 @@ export function planDeadband(
   const boundaryIndex = new Map(braking.bounds.map((b, i) => [b.t, i] as const));
   norm.windows.forEach((w, wi) => {
     if (w.start >= until) return;
-    const nextStart = wi + 1 < norm.windows.length ? norm.windows[wi + 1]!.start : norm.horizon;
+    const nextStart = norm.windows[wi + 1]?.start ?? norm.horizon; // the horizon after the last window
     for (let t = w.start; t <= w.end + 1e-9 && t < until; t += norm.grid) {
       if (t < notBefore - 1e-6 || !spacingOk(norm, commands, t)) continue;
       const jumps = stateJumps(norm, commands);
@@ -152,10 +154,10 @@ export function planDeadband(
           `the needed step (${frac(wanted)}) ${q.limitedBy === 'maxStep' ? 'exceeds' : 'would leave'} ${frequencyLimitText(norm, q.limitedBy)}`,
         );
       }
-      const at = boundaryIndex.get(execAt);
+      const boundary = boundaryIndex.get(execAt);
       let braked = false;
-      if (at !== undefined && braking.bounds[at]!.controllable) {
-        const adm = admissibleSteps(braking, at, [xAtExec, yAtExec, d], cumulative, q.steps);
+      if (boundary !== undefined && at(braking.bounds, boundary, 'bounds').controllable) {
+        const adm = admissibleSteps(braking, boundary, [xAtExec, yAtExec, d], cumulative, q.steps);
         if (adm.steps !== q.steps) {
           braked = true;
           q = { steps: adm.steps, amount: adm.steps * norm.actuator.resolution };

@@ -29,6 +29,7 @@
  * @module
  */
 
+import { at, last } from '../internal/checked.js';
 import {
   admissibleSteps,
   type Boundary,
@@ -39,6 +40,7 @@ import {
 } from './braking.js';
 import {
   add3,
+  type ClockState,
   type Matrix3,
   mul3,
   mulVec3,
@@ -47,6 +49,7 @@ import {
   quadForm3,
   transition,
   transpose3,
+  type Vec3,
   zeros3,
 } from './clock-math.js';
 import {
@@ -77,7 +80,7 @@ export function decisionEpochs(norm: NormalizedScenario, fixed: readonly Interna
   const step = Math.max(cadence, norm.actuator.spacing, 1e-3);
   const epochs: number[] = [];
   for (const iv of executionIntervals(norm)) {
-    let t = Math.max(iv.from, epochs.length ? epochs[epochs.length - 1]! + step : iv.from);
+    let t = Math.max(iv.from, epochs.length ? last(epochs, 'epochs') + step : iv.from);
     let guard = 0;
     while (t <= iv.to + 1e-9 && guard++ < 1_000_000) {
       const conflict = fixed.find((c) => Math.abs(c.executeAt - t) < norm.actuator.spacing - 1e-6);
@@ -126,7 +129,7 @@ export interface OptimalModel {
   norm: NormalizedScenario;
   bounds: Boundary[];
   stageS: Matrix3[];
-  stageG: number[][];
+  stageG: Vec3[];
   rF: number;
   rP: number;
   braking: BrakingModel;
@@ -146,11 +149,13 @@ export function optimalModel(norm: NormalizedScenario, fixed: readonly InternalC
   const rF = norm.weights.frequencyStep / (norm.actuator.maxStep * norm.actuator.maxStep);
   const rP = norm.weights.phaseStep / (norm.bound * norm.bound);
   const stageS: Matrix3[] = new Array<Matrix3>(k);
-  const stageG: number[][] = new Array<number[]>(k);
+  const stageG: Vec3[] = new Array<Vec3>(k);
   let pNext: Matrix3 = zeros3();
-  let vNext: number[] = [0, 0, 0];
+  let vNext: Vec3 = [0, 0, 0];
+  let later = last(bounds, 'bounds');
   for (let i = k - 1; i >= 0; i--) {
-    const delta = bounds[i + 1]!.t - bounds[i]!.t;
+    const b = at(bounds, i, 'bounds');
+    const delta = later.t - b.t;
     const phi = transition(delta);
     const phiT = transpose3(phi);
     const costM = phaseSquareIntegral(delta);
@@ -159,19 +164,25 @@ export function optimalModel(norm: NormalizedScenario, fixed: readonly InternalC
     stageS[i] = s;
     stageG[i] = g;
     let p: Matrix3 = s;
-    let v: number[] = g;
-    if (bounds[i]!.controllable) {
-      // Minimising over a frequency step u (input direction e2): u* = −(S₂·z + g₂)/(S₂₂ + r).
+    let v: Vec3 = g;
+    if (b.controllable) {
+      // Minimising over a frequency step u (input direction e2): u* = −(S₂·z + g₂)/(S₂₂ + r);
+      // P = S − S₍·,₂₎S₍₂,·₎/(S₂₂ + r), v = g − S₍·,₂₎g₂/(S₂₂ + r), row by row.
       const den = s[1][1] + rF;
-      p = zeros3();
-      for (let a = 0; a < 3; a++) for (let b = 0; b < 3; b++) p[a]![b] = s[a]![b]! - (s[a]![1]! * s[1]![b]!) / den;
-      v = [0, 1, 2].map((a) => g[a]! - (s[a]![1]! * g[1]!) / den);
+      const s1 = s[1];
+      const eliminate = (r: Readonly<Vec3>): Vec3 => [
+        r[0] - (r[1] * s1[0]) / den,
+        r[1] - (r[1] * s1[1]) / den,
+        r[2] - (r[1] * s1[2]) / den,
+      ];
+      p = [eliminate(s[0]), eliminate(s[1]), eliminate(s[2])];
+      v = [g[0] - (s[0][1] * g[1]) / den, g[1] - (s[1][1] * g[1]) / den, g[2] - (s[2][1] * g[1]) / den];
     }
     // Known jump j at this boundary: V(s⁻) = V(s⁻ + j) ⇒ linear term gains P·j.
-    const jump = [bounds[i]!.dx, bounds[i]!.dy, 0];
-    const pj = mulVec3(p, jump);
-    vNext = [v[0]! + pj[0], v[1]! + pj[1], v[2]! + pj[2]];
+    const pj = mulVec3(p, [b.dx, b.dy, 0]);
+    vNext = [v[0] + pj[0], v[1] + pj[1], v[2] + pj[2]];
     pNext = p;
+    later = b;
   }
   return { norm, bounds, stageS, stageG, rF, rP, braking: brakingModel(norm, bounds), scale };
 }
@@ -179,7 +190,7 @@ export function optimalModel(norm: NormalizedScenario, fixed: readonly InternalC
 /** Where a forward pass starts: the first boundary at or after `t`, the mean state at `t` (before jumps at `t`), and the cumulative steering. */
 export interface ForwardStart {
   t: number;
-  state: readonly number[];
+  state: Readonly<ClockState>;
   /** Cumulative frequency steering of every command already decided (fixed ones included). */
   cumulative: number;
 }
@@ -207,16 +218,16 @@ export function forwardOptimal(
   const { norm, bounds, stageS, stageG, rF, rP } = model;
   const made: InternalCommand[] = [];
   let i = 0;
-  while (i < bounds.length - 1 && bounds[i]!.t < start.t) i++;
-  let state: [number, number, number] = propagateMean(start.state, bounds[i]!.t - start.t);
+  while (i < bounds.length - 1 && at(bounds, i, 'bounds').t < start.t) i++;
+  let state: ClockState = propagateMean(start.state, at(bounds, i, 'bounds').t - start.t);
   let cumulative = start.cumulative;
   for (; i < bounds.length - 1; i++) {
-    const b = bounds[i]!;
+    const b = at(bounds, i, 'bounds');
     if (b.t >= until) break;
     state[0] += b.dx;
     state[1] += b.dy;
     if (b.controllable) {
-      const best = chooseCommand(model, i, state, cumulative, stageS[i]!, stageG[i]!, rF, rP);
+      const best = chooseCommand(model, i, state, cumulative, at(stageS, i, 'stageS'), at(stageG, i, 'stageG'), rF, rP);
       if (best.kind !== 'none') {
         const uplink = uplinkFor(norm, b.t)!;
         const limitedBy = actuatorLimitOf(best.kind, best.step);
@@ -245,7 +256,7 @@ export function forwardOptimal(
         } else state[0] += best.step.amount;
       }
     }
-    state = propagateMean(state, bounds[i + 1]!.t - b.t);
+    state = propagateMean(state, at(bounds, i + 1, 'bounds').t - b.t);
   }
   return made;
 }
@@ -254,25 +265,24 @@ export function forwardOptimal(
 function chooseCommand(
   model: OptimalModel,
   i: number,
-  state: readonly number[],
+  state: Readonly<ClockState>,
   cumulative: number,
-  s: Matrix3,
-  g: number[],
+  s: Readonly<Matrix3>,
+  g: Readonly<Vec3>,
   rF: number,
   rP: number,
 ): Candidate {
   const { norm, braking } = model;
   const q = (dx: number, dy: number, charge: number): number => {
-    const z = [state[0]! + dx, state[1]! + dy, state[2]!];
-    return quadForm3(z, s) + 2 * (g[0]! * z[0]! + g[1]! * z[1]! + g[2]! * z[2]!) + charge;
+    const z: Vec3 = [state[0] + dx, state[1] + dy, state[2]];
+    return quadForm3(z, s) + 2 * (g[0] * z[0] + g[1] * z[1] + g[2] * z[2]) + charge;
   };
   const violation = (dx: number, du: number): number =>
-    restViolation(braking, i, state[0]!, [state[0]! + dx, state[1]! + du, state[2]!], cumulative + du);
-  const candidates: Candidate[] = [
-    { cost: q(0, 0, 0), kind: 'none', step: { steps: 0, amount: 0 }, violation: violation(0, 0) },
-  ];
+    restViolation(braking, i, state[0], [state[0] + dx, state[1] + du, state[2]], cumulative + du);
+  const none: Candidate = { cost: q(0, 0, 0), kind: 'none', step: { steps: 0, amount: 0 }, violation: violation(0, 0) };
+  const candidates: Candidate[] = [none];
   const res = norm.actuator.resolution;
-  const uStar = -(s[1][0] * state[0]! + s[1][1] * state[1]! + s[1][2] * state[2]! + g[1]!) / (s[1][1] + rF);
+  const uStar = -(s[1][0] * state[0] + s[1][1] * state[1] + s[1][2] * state[2] + g[1]) / (s[1][1] + rF);
   const tried = new Set<number>();
   for (const rounding of ['floor', 'ceil'] as const) {
     const wanted = quantiseFrequency(norm, uStar, cumulative, rounding);
@@ -289,7 +299,7 @@ function chooseCommand(
     });
   }
   if (norm.actuator.phaseAllowed) {
-    const pStar = -(s[0][0] * state[0]! + s[0][1] * state[1]! + s[0][2] * state[2]! + g[0]!) / (s[0][0] + rP);
+    const pStar = -(s[0][0] * state[0] + s[0][1] * state[1] + s[0][2] * state[2] + g[0]) / (s[0][0] + rP);
     for (const rounding of ['floor', 'ceil'] as const) {
       const qs = quantisePhase(norm, pStar, rounding);
       if (qs.steps === 0) continue;
@@ -302,7 +312,7 @@ function chooseCommand(
     }
   }
   // Admissible candidates first (smallest violation), then the lowest cost.
-  let best = candidates[0]!;
+  let best = none;
   for (const c of candidates)
     if (c.violation < best.violation || (c.violation === best.violation && c.cost < best.cost)) best = c;
   return best;

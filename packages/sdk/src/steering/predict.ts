@@ -9,6 +9,7 @@
  *
  * @module
  */
+import { at, last } from '../internal/checked.js';
 import { normalCdf } from '../internal/special-functions.js';
 import type { Seconds } from '../units.js';
 import { phaseVariance } from './clock-math.js';
@@ -74,33 +75,33 @@ export function meanState(
   return [x, y, d0];
 }
 
+/** A list of times (s): an array or a typed array. */
+export type Times = Iterable<number> & ArrayLike<number>;
+
 /** Mean phase at sorted times (after any jump at that exact time), in O(times + jumps). */
-export function meanPhaseAt(
-  norm: NormalizedScenario,
-  jumps: readonly StateJump[],
-  times: ArrayLike<number>,
-): Float64Array {
+export function meanPhaseAt(norm: NormalizedScenario, jumps: readonly StateJump[], times: Times): Float64Array {
   const [x0, y0, d0] = norm.state0;
   const out = new Float64Array(times.length);
   let k = 0;
+  let next = jumps[0];
   let sumDy = 0;
   let sumOffset = 0; // Σ (dx_j − dy_j t_j)
-  for (let i = 0; i < times.length; i++) {
-    const t = times[i]!;
-    while (k < jumps.length && jumps[k]!.t <= t) {
-      sumDy += jumps[k]!.dy;
-      sumOffset += jumps[k]!.dx - jumps[k]!.dy * jumps[k]!.t;
-      k++;
+  let i = 0;
+  for (const t of times) {
+    for (; next !== undefined && next.t <= t; next = jumps[++k]) {
+      sumDy += next.dy;
+      sumOffset += next.dx - next.dy * next.t;
     }
-    out[i] = x0 + y0 * t + (d0 * t * t) / 2 + sumDy * t + sumOffset;
+    out[i++] = x0 + y0 * t + (d0 * t * t) / 2 + sumDy * t + sumOffset;
   }
   return out;
 }
 
 /** Open-loop phase standard deviation σ(t) at each time, in seconds (see {@link phaseVariance}). */
-export function phaseSigmaAt(norm: NormalizedScenario, times: ArrayLike<number>): Float64Array {
+export function phaseSigmaAt(norm: NormalizedScenario, times: Times): Float64Array {
   const out = new Float64Array(times.length);
-  for (let i = 0; i < times.length; i++) out[i] = Math.sqrt(phaseVariance(times[i]!, norm.covariance0, norm.noise));
+  let i = 0;
+  for (const t of times) out[i++] = Math.sqrt(phaseVariance(t, norm.covariance0, norm.noise));
   return out;
 }
 
@@ -127,7 +128,7 @@ export function gridTimes(norm: NormalizedScenario): number[] {
   const n = Math.floor(norm.horizon / norm.grid + 1e-9);
   const times: number[] = [];
   for (let i = 0; i <= n; i++) times.push(i * norm.grid);
-  if (norm.horizon - times[times.length - 1]! > 1e-6) times.push(norm.horizon);
+  if (norm.horizon - last(times, 'grid times') > 1e-6) times.push(norm.horizon);
   return times;
 }
 
@@ -181,13 +182,13 @@ export function checkTolerance(norm: NormalizedScenario, jumps: readonly StateJu
   // leaving out the jumps exactly at t.
   const [x0, y0, d0] = norm.state0;
   let k = 0;
+  let next = jumps[0];
   let sumDy = 0;
   let sumOffset = 0; // Σ (dx_j − dy_j t_j)
   checks.forEach((c, i) => {
-    while (k < jumps.length && (jumps[k]!.t < c.t || (c.side === 'after' && jumps[k]!.t === c.t))) {
-      sumDy += jumps[k]!.dy;
-      sumOffset += jumps[k]!.dx - jumps[k]!.dy * jumps[k]!.t;
-      k++;
+    for (; next !== undefined && (next.t < c.t || (c.side === 'after' && next.t === c.t)); next = jumps[++k]) {
+      sumDy += next.dy;
+      sumOffset += next.dx - next.dy * next.t;
     }
     const mean = x0 + y0 * c.t + (d0 * c.t * c.t) / 2 + sumDy * c.t + sumOffset;
     const sigma = Math.sqrt(phaseVariance(c.t, norm.covariance0, norm.noise));
@@ -203,6 +204,6 @@ export function checkTolerance(norm: NormalizedScenario, jumps: readonly StateJu
       }
     }
   });
-  if (lastFailure < checks.length - 1) result.settledFrom = checks[lastFailure + 1]!.t;
+  if (lastFailure < checks.length - 1) result.settledFrom = at(checks, lastFailure + 1, 'checks').t;
   return result;
 }

@@ -7,7 +7,18 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { clockProcessNoise, clockTransitionMatrix, diffusionFromStabilitySpec } from '../../src/clock-model/index.js';
-import { type Matrix3, phaseVariance } from '../../src/steering/clock-math.js';
+import {
+  add3,
+  choleskyPsd3,
+  frobenius3,
+  type Matrix3,
+  mul3,
+  mulVec3,
+  phaseVariance,
+  processNoise,
+  quadForm3,
+  transpose3,
+} from '../../src/steering/clock-math.js';
 import { noiseToDiffusion } from '../../src/steering/scenario.js';
 
 describe('steering clock-math against clock-model', () => {
@@ -69,5 +80,78 @@ describe('steering clock-math against clock-model', () => {
     expect(() => noiseToDiffusion({ stability: {} }, 'clock.noise')).toThrow(
       /^clock\.noise\.stability must be at least one of/,
     );
+  });
+});
+
+/** A 3×3 matrix of doubles spanning many magnitudes and both signs (zeros included). */
+const matrix3 = (): fc.Arbitrary<Matrix3> => {
+  const x = fc.oneof(fc.double({ min: -1e3, max: 1e3, noNaN: true }), fc.constant(0), fc.constant(-0));
+  const row = fc.tuple(x, x, x);
+  return fc.tuple(row, row, row);
+};
+
+describe('steering clock-math written out for 3×3 (bit for bit against the loops they replace)', () => {
+  // The reference side is the textbook definition as a loop summed from 0 (common practice, no source):
+  // the written-out forms must keep that order of rounding, so plans are reproduced to the last bit.
+  it('mul3, add3, mulVec3, quadForm3 and frobenius3 equal their defining loops exactly (property)', () => {
+    fc.assert(
+      fc.property(matrix3(), matrix3(), fc.double({ min: -10, max: 10, noNaN: true }), (a, b, k) => {
+        const product = mul3(a, b);
+        const sum = add3(a, b, k);
+        const v = b[0];
+        const mv = mulVec3(a, v);
+        let quad = 0;
+        let inner = 0;
+        for (let i = 0; i < 3; i++) {
+          let row = 0;
+          for (let j = 0; j < 3; j++) {
+            let s = 0;
+            for (let m = 0; m < 3; m++) s += a[i]![m]! * b[m]![j]!;
+            expect(Object.is(product[i]![j], s)).toBe(true);
+            expect(Object.is(sum[i]![j], a[i]![j]! + k * b[i]![j]!)).toBe(true);
+            row = j === 0 ? a[i]![j]! * v[j]! : row + a[i]![j]! * v[j]!;
+            quad += v[i]! * a[i]![j]! * v[j]!;
+            inner += a[i]![j]! * b[i]![j]!;
+          }
+          expect(Object.is(mv[i], row)).toBe(true);
+        }
+        expect(Object.is(quadForm3(v, a), quad)).toBe(true);
+        expect(Object.is(frobenius3(a, b), inner)).toBe(true);
+      }),
+      { seed: 20261203, numRuns: 300 },
+    );
+  });
+
+  it('choleskyPsd3(A) returns a lower-triangular L with L Lᵀ = A for positive definite and singular A (property)', () => {
+    // L Lᵀ = A is the definition of the Cholesky factor (Golub & Van Loan, Matrix Computations, 4th ed., §4.2 [M]);
+    // A = B Bᵀ is positive semi-definite for any B, singular when a column of B is zero.
+    fc.assert(
+      fc.property(matrix3(), fc.integer({ min: -1, max: 2 }), (b, zeroColumn) => {
+        const bb: Matrix3 = [
+          [b[0][0], b[0][1], b[0][2]],
+          [b[1][0], b[1][1], b[1][2]],
+          [b[2][0], b[2][1], b[2][2]],
+        ];
+        if (zeroColumn >= 0) for (const r of bb) r[zeroColumn] = 0;
+        const a = mul3(bb, transpose3(bb));
+        const l = choleskyPsd3(a);
+        expect([l[0][1], l[0][2], l[1][2]]).toEqual([0, 0, 0]);
+        const back = mul3(l, transpose3(l));
+        const scale = Math.max(a[0][0], a[1][1], a[2][2], 1e-300);
+        for (let i = 0; i < 3; i++)
+          for (let j = 0; j < 3; j++) expect(Math.abs(back[i]![j]! - a[i]![j]!)).toBeLessThanOrEqual(1e-9 * scale);
+      }),
+      { seed: 20261204, numRuns: 300 },
+    );
+  });
+
+  it('choleskyPsd3(Q(τ)) with q3 = 0 gives a zero last column and reproduces Q(τ) (the singular process noise)', () => {
+    const q = processNoise(900, { q1: 9e-24, q2: 3e-34, q3: 0 });
+    const l = choleskyPsd3(q);
+    expect([l[2][2], l[0][1], l[0][2], l[1][2]]).toEqual([0, 0, 0, 0]);
+    const back = mul3(l, transpose3(l));
+    for (let i = 0; i < 2; i++)
+      for (let j = 0; j < 2; j++)
+        expect(Math.abs(back[i]![j]! - q[i]![j]!)).toBeLessThanOrEqual(1e-12 * Math.abs(q[i]![i]! * q[j]![j]!) ** 0.5);
   });
 });
