@@ -4,6 +4,7 @@
  *
  * @module
  */
+import { at } from './checked.js';
 import type { BandPolygon, Polyline } from './decimate.js';
 import type { Scale } from './scale.js';
 
@@ -65,13 +66,13 @@ export function resolveFont(probe: HTMLElement, sizePx?: number): string {
 export function strokePolyline(ctx: CanvasRenderingContext2D, line: Polyline, sx: Scale, sy: Scale): void {
   const path = new Path2D();
   let pen = false;
-  for (let i = 0; i < line.length; i++) {
-    const y = line.y[i]!;
+  const xs = line.x.subarray(0, line.length);
+  for (const [i, y] of line.y.subarray(0, line.length).entries()) {
     if (Number.isNaN(y)) {
       pen = false;
       continue;
     }
-    const px = sx.map(line.x[i]!),
+    const px = sx.map(at(xs, i, 'line.x')),
       py = sy.map(y);
     if (pen) path.lineTo(px, py);
     else {
@@ -88,13 +89,14 @@ export function fillBand(ctx: CanvasRenderingContext2D, band: BandPolygon, sx: S
   let start = 0;
   const close = (from: number, to: number): void => {
     if (to - from < 1) return;
-    path.moveTo(sx.map(band.x[from]!), sy.map(band.high[from]!));
-    for (let i = from + 1; i < to; i++) path.lineTo(sx.map(band.x[i]!), sy.map(band.high[i]!));
-    for (let i = to - 1; i >= from; i--) path.lineTo(sx.map(band.x[i]!), sy.map(band.low[i]!));
+    const px = (i: number): number => sx.map(at(band.x, i, 'band.x'));
+    path.moveTo(px(from), sy.map(at(band.high, from, 'band.high')));
+    for (let i = from + 1; i < to; i++) path.lineTo(px(i), sy.map(at(band.high, i, 'band.high')));
+    for (let i = to - 1; i >= from; i--) path.lineTo(px(i), sy.map(at(band.low, i, 'band.low')));
     path.closePath();
   };
-  for (let i = 0; i < band.length; i++) {
-    if (Number.isNaN(band.low[i]!)) {
+  for (const [i, low] of band.low.subarray(0, band.length).entries()) {
+    if (Number.isNaN(low)) {
       close(start, i);
       start = i + 1;
     }

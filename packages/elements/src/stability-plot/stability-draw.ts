@@ -14,6 +14,7 @@ import {
   strokePolyline,
   type Tick,
 } from '../internal/canvas.js';
+import { at } from '../internal/checked.js';
 import { type Polyline, shouldDecimate } from '../internal/decimate.js';
 import { formatFraction } from '../internal/format.js';
 import { linearScale, logTicks, type Scale } from '../internal/scale.js';
@@ -50,21 +51,16 @@ export function deviationExtent(series: readonly StabilitySeries[], withInterval
   let d0 = Infinity,
     d1 = -Infinity;
   for (const s of series) {
-    const dev = s.deviation,
-      lo = withIntervals ? s.low : null,
-      hi = withIntervals ? s.high : null;
-    for (let i = 0; i < dev.length; i++) {
-      const d = dev[i]!;
+    // Three independent min/max scans: comparisons skip NaN, so the order of the reads does not matter.
+    for (const d of s.deviation) {
       if (d < d0) d0 = d;
       if (d > d1) d1 = d;
-      if (lo) {
-        const v = lo[i]!;
-        if (v > 0 && v < d0) d0 = v;
-      }
-      if (hi) {
-        const v = hi[i]!;
-        if (v < Infinity && v > d1) d1 = v;
-      }
+    }
+    if (withIntervals && s.low) {
+      for (const v of s.low) if (v > 0 && v < d0) d0 = v;
+    }
+    if (withIntervals && s.high) {
+      for (const v of s.high) if (v < Infinity && v > d1) d1 = v;
     }
   }
   if (!(d0 > 0) || !Number.isFinite(d1)) return null;
@@ -129,7 +125,7 @@ export function decadeTicks(sy: Scale, extent: readonly [number, number]): Tick[
   }));
 }
 
-/** First index in [from, x.length) with x[index] ≥ value (x ascending). */
+/** First index in [from, x.length) with x[index] ≥ value (x ascending); mid is bounded by lo < hi ≤ x.length. */
 function lowerBoundFrom(x: Float64Array, from: number, value: number): number {
   let lo = from,
     hi = x.length;
@@ -156,29 +152,29 @@ export function decimateLogTau(
   columns: number,
 ): Polyline {
   const n = tau.length;
-  const cols = Math.max(1, Math.floor(columns));
-  if (!shouldDecimate(n, cols) || !(lx1 > lx0)) {
-    const x = new Float64Array(n);
-    for (let i = 0; i < n; i++) x[i] = Math.log10(tau[i]!);
-    return { x, y: dev, length: n };
+  if (dev.length !== n) {
+    throw new RangeError(`deviation has ${dev.length} element(s) for ${n} τ value(s) (internal length error)`);
   }
+  const cols = Math.max(1, Math.floor(columns));
+  if (!shouldDecimate(n, cols) || !(lx1 > lx0)) return { x: Float64Array.from(tau, Math.log10), y: dev, length: n };
   const scale = cols / (lx1 - lx0);
   const x = new Float64Array(4 * cols + 16),
     y = new Float64Array(4 * cols + 16);
   let len = 0;
   const push = (k: number): void => {
     if (len === x.length) return; // cannot happen: at most four vertices per column
-    x[len] = Math.log10(tau[k]!);
-    y[len] = dev[k]!;
+    x[len] = Math.log10(at(tau, k, 'tau'));
+    y[len] = at(dev, k, 'deviation');
     len += 1;
   };
   let i = 0;
   while (i < n) {
-    const col = Math.floor((Math.log10(tau[i]!) - lx0) * scale);
+    const col = Math.floor((Math.log10(at(tau, i, 'tau')) - lx0) * scale);
     const j = Math.max(i + 1, lowerBoundFrom(tau, i + 1, 10 ** (lx0 + (col + 1) / scale)));
+    // Tight scan of the column: k < j ≤ n = dev.length (checked above).
     let lo = i,
       hi = i,
-      yl = dev[i]!,
+      yl = at(dev, i, 'deviation'),
       yh = yl;
     for (let k = i + 1; k < j; k++) {
       const v = dev[k]!;
@@ -239,14 +235,15 @@ export function drawSeries(
   ctx.setLineDash([]);
   if (n * MARKER_SPACING_PX > frame.width) return;
   const lt = Float64Array.from(s.tau, Math.log10);
-  if (style.intervals && s.low && s.high) {
+  const { low, high } = s;
+  if (style.intervals && low && high) {
     ctx.lineWidth = 1;
     ctx.beginPath();
-    for (let i = 0; i < n; i++) {
-      const lo = s.low[i]!,
-        hi = s.high[i]!;
+    for (const [i, t] of lt.entries()) {
+      const lo = at(low, i, 'low'),
+        hi = at(high, i, 'high');
       if (!(lo > 0) || !Number.isFinite(hi) || !(hi >= lo)) continue;
-      const x = sxLog.map(lt[i]!),
+      const x = sxLog.map(t),
         y0 = sy.map(lo),
         y1 = sy.map(hi);
       ctx.moveTo(x, y0);
@@ -259,5 +256,7 @@ export function drawSeries(
     ctx.stroke();
   }
   ctx.lineWidth = 1.5;
-  for (let i = 0; i < n; i++) ctx.stroke(plotMarkerPath(style.shape, sxLog.map(lt[i]!), sy.map(s.deviation[i]!), 4.5));
+  for (const [i, t] of lt.entries()) {
+    ctx.stroke(plotMarkerPath(style.shape, sxLog.map(t), sy.map(at(s.deviation, i, 'deviation')), 4.5));
+  }
 }

@@ -1,0 +1,22 @@
+/**
+ * Checked reads for indices the element's own logic computes (a hit-test neighbour, a decimated
+ * column's extremes, a row of a table): a bug shows as an error naming the array, the index and the
+ * length, never as an `undefined` drawn as `NaN`. The elements do not import SDK internals, so this
+ * is the elements' own copy of the SDK's `internal/checked.ts`.
+ *
+ * @module
+ */
+
+/** `values[index]`, or a `RangeError` naming `name`, the index and the length when there is no element there. */
+export function at<T>(values: ArrayLike<T>, index: number, name = 'values'): T {
+  const value = values[index];
+  if (value === undefined) {
+    throw new RangeError(`${name}[${index}] is outside its ${values.length} element(s) (internal index error)`);
+  }
+  return value;
+}
+
+/** The last element of `values`, or a `RangeError` naming `name` when it is empty. */
+export function last<T>(values: ArrayLike<T>, name = 'values'): T {
+  return at(values, values.length - 1, name);
+}
