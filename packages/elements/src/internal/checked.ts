@@ -10,10 +10,13 @@
 /** `values[index]`, or a `RangeError` naming `name`, the index and the length when there is no element there. */
 export function at<T>(values: ArrayLike<T>, index: number, name = 'values'): T {
   const value = values[index];
-  if (value === undefined) {
-    throw new RangeError(`${name}[${index}] is outside its ${values.length} element(s) (internal index error)`);
-  }
+  if (value === undefined) outside(name, index, values.length);
   return value;
+}
+
+/** The error of {@link at}, out of line so that `at` stays small enough to inline in the decimation loops. */
+function outside(name: string, index: number, length: number): never {
+  throw new RangeError(`${name}[${index}] is outside its ${length} element(s) (internal index error)`);
 }
 
 /** The last element of `values`, or a `RangeError` naming `name` when it is empty. */

@@ -183,11 +183,10 @@ export function decimateLine(
       b = c;
       c = t;
     }
-    const vertex = (k: number): void => out.push(at(x, k, 'x'), at(y, k, 'y'), 0);
-    vertex(a);
-    if (b !== a) vertex(b);
-    if (c !== b && c !== a) vertex(c);
-    if (d !== c && d !== b && d !== a) vertex(d);
+    out.push(at(x, a, 'x'), at(y, a, 'y'), 0);
+    if (b !== a) out.push(at(x, b, 'x'), at(y, b, 'y'), 0);
+    if (c !== b && c !== a) out.push(at(x, c, 'x'), at(y, c, 'y'), 0);
+    if (d !== c && d !== b && d !== a) out.push(at(x, d, 'x'), at(y, d, 'y'), 0);
   };
   let i = start;
   while (i < end) {
