@@ -7,6 +7,7 @@
  * @module
  */
 import { ParseError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { requireOptions, requireSourceName } from '../internal/validate.js';
 import { type Instant, requireInstant } from '../time/instant.js';
 import type { Seconds } from '../units.js';
@@ -327,8 +328,13 @@ export function regularizeSeries(
     throw new ParseError(sourceName, lineOf(0), undefined, `a sample spacing tau0 > 0 s (given ${tau0})`);
   }
   if (tau0 === undefined && times.length >= 2) {
-    tau0 = Infinity;
-    for (let i = 1; i < times.length; i++) tau0 = Math.min(tau0, times[i]! - times[i - 1]!);
+    let smallest = Infinity;
+    let previous = Number.NaN;
+    for (const [i, t] of times.entries()) {
+      if (i > 0) smallest = Math.min(smallest, t - previous);
+      previous = t;
+    }
+    tau0 = smallest;
   }
   if (tau0 === undefined) {
     const first = times[0];
@@ -338,19 +344,60 @@ export function regularizeSeries(
         : [];
     return { phase: values.slice(), times: times.slice(), tau0: undefined, gaps, missing: gaps.length };
   }
-  const t0 = times[0]!;
+  const t0 = at(times, 0, 'times');
+  if (values.length !== times.length) {
+    throw new RangeError(
+      `regularizeSeries: ${values.length} value(s) for ${times.length} time(s) (internal length error)`,
+    );
+  }
+  const { steps, total } = stepsOnGrid(sourceName, times, lineOf, tau0, origin);
+  const phase = new Float64Array(total).fill(Number.NaN);
+  const grid = new Float64Array(total);
+  for (let k = 0; k < total; k++) grid[k] = t0 + k * tau0;
+  // Missing epochs between listed samples, and listed samples whose value is NaN, are the gaps.
+  const gaps: SampleGap[] = [];
+  let idx = 0;
+  for (const [i, k] of steps.entries()) {
+    if (k > 1) gaps.push({ index: idx + 1, missing: k - 1, line: lineOf(i), time: origin + (t0 + (idx + 1) * tau0) });
+    idx += k;
+    const value = at(values, i, 'values');
+    phase[idx] = value;
+    if (value !== value) gaps.push({ index: idx, missing: 1, line: lineOf(i), time: origin + at(grid, idx, 'grid') });
+  }
+  gaps.sort((a, b) => a.index - b.index);
+  let missing = 0;
+  for (const g of gaps) missing += g.missing;
+  return { phase, times: grid, tau0, gaps, missing };
+}
+
+/**
+ * The grid steps k_i = (t_i − t_{i−1})/τ0 of each listed sample (k_0 = 0), each checked to be a
+ * whole multiple of τ0, and the grid's length 1 + Σ k_i, checked against {@link MAX_SERIES_SAMPLES}
+ * as it grows.
+ */
+function stepsOnGrid(
+  sourceName: string,
+  times: Float64Array,
+  lineOf: (i: number) => number,
+  tau0: Seconds,
+  origin: Seconds,
+): { steps: Int32Array; total: number } {
   let total = 1;
+  let previous = Number.NaN;
   const steps = new Int32Array(times.length);
-  for (let i = 1; i < times.length; i++) {
-    const ratio = (times[i]! - times[i - 1]!) / tau0;
+  for (const [i, t] of times.entries()) {
+    const step = t - previous;
+    previous = t;
+    if (i === 0) continue;
+    const ratio = step / tau0;
     const k = Math.round(ratio);
     if (k < 1 || Math.abs(ratio - k) > 1e-6 * Math.max(1, k)) {
       throw new ParseError(
         sourceName,
         lineOf(i),
         1,
-        `a time step that is a whole multiple of tau0 = ${tau0} s (step ${times[i]! - times[i - 1]!} s from the previous sample is ${ratio} tau0)`,
-        String(origin + times[i]!),
+        `a time step that is a whole multiple of tau0 = ${tau0} s (step ${step} s from the previous sample is ${ratio} tau0)`,
+        String(origin + t),
       );
     }
     if (total + k > MAX_SERIES_SAMPLES) {
@@ -359,36 +406,15 @@ export function regularizeSeries(
         sourceName,
         lineOf(i),
         1,
-        `a uniform series of at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES): the gap of ${times[i]! - times[i - 1]!} s ` +
+        `a uniform series of at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES): the gap of ${step} s ` +
           `after line ${lineOf(i - 1)} is ${k} steps of tau0 = ${tau0} s, making ${total + k} samples`,
-        String(origin + times[i]!),
+        String(origin + t),
       );
     }
     steps[i] = k;
     total += k;
   }
-  const phase = new Float64Array(total).fill(Number.NaN);
-  const grid = new Float64Array(total);
-  const gaps: SampleGap[] = [];
-  let missing = 0;
-  let idx = 0;
-  for (let i = 0; i < times.length; i++) {
-    if (i > 0) {
-      const k = steps[i]!;
-      if (k > 1) gaps.push({ index: idx + 1, missing: k - 1, line: lineOf(i), time: origin + (t0 + (idx + 1) * tau0) });
-      idx += k;
-    }
-    phase[idx] = values[i]!;
-  }
-  for (let k = 0; k < total; k++) grid[k] = t0 + k * tau0;
-  // Explicit NaN values at listed epochs are gaps as well.
-  for (let i = 0, k = 0; i < times.length; i++) {
-    if (i > 0) k += steps[i]!;
-    if (values[i] !== values[i]) gaps.push({ index: k, missing: 1, line: lineOf(i), time: origin + grid[k]! });
-  }
-  gaps.sort((a, b) => a.index - b.index);
-  for (const g of gaps) missing += g.missing;
-  return { phase, times: grid, tau0, gaps, missing };
+  return { steps, total };
 }
 
 /**
