@@ -105,7 +105,8 @@ export function hatch(ctx: CanvasRenderingContext2D, color: string, spacing = 6)
 /**
  * Per-pixel-column smallest margin fraction (margin / tolerance) over [x0, x1) of the scale; NaN where no sample.
  * Sample i covers [t[i], t[i + 1]] (the last one only its own instant). Hot (every grid sample of every row,
- * on each pan): margin[i] is bounded by i < t.length = margin.length (checked on entry), out[c] by c ≤ b < cols.
+ * on each pan): plain index loops; t[i] and margin[i] are bounded by i < t.length = margin.length (checked on
+ * entry), out[c] by c ≤ b < cols.
  */
 export function columnMinima(
   t: Float64Array,
@@ -120,8 +121,9 @@ export function columnMinima(
     throw new RangeError(`margin has ${margin.length} element(s) for ${t.length} grid time(s)`);
   }
   const [d0, d1] = sx.domain;
-  for (const [i, ta] of t.entries()) {
-    const tb = t[i + 1] ?? ta;
+  for (let i = 0; i < t.length; i++) {
+    const ta = t[i]!,
+      tb = t[i + 1] ?? ta; // the last sample has no next one
     if (tb < d0 || ta > d1) continue;
     const a = Math.max(0, Math.floor(sx.map(ta) - layout.left));
     const b = Math.min(cols - 1, Math.max(a, Math.ceil(sx.map(tb) - layout.left) - 1));

@@ -4,7 +4,7 @@
  *
  * @module
  */
-import { at } from './checked.js';
+import { atNumber } from './checked.js';
 import type { BandPolygon, Polyline } from './decimate.js';
 import type { Scale } from './scale.js';
 
@@ -62,17 +62,20 @@ export function resolveFont(probe: HTMLElement, sizePx?: number): string {
   return `${size}px ${cs.fontFamily || 'sans-serif'}`;
 }
 
-/** Strokes a polyline in data units through the two scales; NaN vertices break the line. */
+/**
+ * Strokes a polyline in data units through the two scales; NaN vertices break the line. Per vertex
+ * (up to 4 per device-pixel column, on every pan frame): plain index loops with the numeric checked read.
+ */
 export function strokePolyline(ctx: CanvasRenderingContext2D, line: Polyline, sx: Scale, sy: Scale): void {
   const path = new Path2D();
   let pen = false;
-  const xs = line.x.subarray(0, line.length);
-  for (const [i, y] of line.y.subarray(0, line.length).entries()) {
+  for (let i = 0; i < line.length; i++) {
+    const y = atNumber(line.y, i, 'line.y');
     if (Number.isNaN(y)) {
       pen = false;
       continue;
     }
-    const px = sx.map(at(xs, i, 'line.x')),
+    const px = sx.map(atNumber(line.x, i, 'line.x')),
       py = sy.map(y);
     if (pen) path.lineTo(px, py);
     else {
@@ -89,14 +92,14 @@ export function fillBand(ctx: CanvasRenderingContext2D, band: BandPolygon, sx: S
   let start = 0;
   const close = (from: number, to: number): void => {
     if (to - from < 1) return;
-    const px = (i: number): number => sx.map(at(band.x, i, 'band.x'));
-    path.moveTo(px(from), sy.map(at(band.high, from, 'band.high')));
-    for (let i = from + 1; i < to; i++) path.lineTo(px(i), sy.map(at(band.high, i, 'band.high')));
-    for (let i = to - 1; i >= from; i--) path.lineTo(px(i), sy.map(at(band.low, i, 'band.low')));
+    const px = (i: number): number => sx.map(atNumber(band.x, i, 'band.x'));
+    path.moveTo(px(from), sy.map(atNumber(band.high, from, 'band.high')));
+    for (let i = from + 1; i < to; i++) path.lineTo(px(i), sy.map(atNumber(band.high, i, 'band.high')));
+    for (let i = to - 1; i >= from; i--) path.lineTo(px(i), sy.map(atNumber(band.low, i, 'band.low')));
     path.closePath();
   };
-  for (const [i, low] of band.low.subarray(0, band.length).entries()) {
-    if (Number.isNaN(low)) {
+  for (let i = 0; i < band.length; i++) {
+    if (Number.isNaN(atNumber(band.low, i, 'band.low'))) {
       close(start, i);
       start = i + 1;
     }

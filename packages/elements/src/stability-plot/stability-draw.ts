@@ -14,7 +14,7 @@ import {
   strokePolyline,
   type Tick,
 } from '../internal/canvas.js';
-import { at } from '../internal/checked.js';
+import { atNumber } from '../internal/checked.js';
 import { type Polyline, shouldDecimate } from '../internal/decimate.js';
 import { formatFraction } from '../internal/format.js';
 import { linearScale, logTicks, type Scale } from '../internal/scale.js';
@@ -51,16 +51,25 @@ export function deviationExtent(series: readonly StabilitySeries[], withInterval
   let d0 = Infinity,
     d1 = -Infinity;
   for (const s of series) {
-    // Three independent min/max scans: comparisons skip NaN, so the order of the reads does not matter.
-    for (const d of s.deviation) {
+    // Three independent min/max scans (comparisons skip NaN, so the order of the reads does not matter),
+    // each over 10^6 points, each index bounded by its own column's length.
+    const { deviation: dev, low, high } = s;
+    for (let i = 0; i < dev.length; i++) {
+      const d = dev[i]!;
       if (d < d0) d0 = d;
       if (d > d1) d1 = d;
     }
-    if (withIntervals && s.low) {
-      for (const v of s.low) if (v > 0 && v < d0) d0 = v;
+    if (withIntervals && low) {
+      for (let i = 0; i < low.length; i++) {
+        const v = low[i]!;
+        if (v > 0 && v < d0) d0 = v;
+      }
     }
-    if (withIntervals && s.high) {
-      for (const v of s.high) if (v < Infinity && v > d1) d1 = v;
+    if (withIntervals && high) {
+      for (let i = 0; i < high.length; i++) {
+        const v = high[i]!;
+        if (v < Infinity && v > d1) d1 = v;
+      }
     }
   }
   if (!(d0 > 0) || !Number.isFinite(d1)) return null;
@@ -163,18 +172,18 @@ export function decimateLogTau(
   let len = 0;
   const push = (k: number): void => {
     if (len === x.length) return; // cannot happen: at most four vertices per column
-    x[len] = Math.log10(at(tau, k, 'tau'));
-    y[len] = at(dev, k, 'deviation');
+    x[len] = Math.log10(atNumber(tau, k, 'tau'));
+    y[len] = atNumber(dev, k, 'deviation');
     len += 1;
   };
   let i = 0;
   while (i < n) {
-    const col = Math.floor((Math.log10(at(tau, i, 'tau')) - lx0) * scale);
+    const col = Math.floor((Math.log10(atNumber(tau, i, 'tau')) - lx0) * scale);
     const j = Math.max(i + 1, lowerBoundFrom(tau, i + 1, 10 ** (lx0 + (col + 1) / scale)));
     // Tight scan of the column: k < j ≤ n = dev.length (checked above).
     let lo = i,
       hi = i,
-      yl = at(dev, i, 'deviation'),
+      yl = atNumber(dev, i, 'deviation'),
       yh = yl;
     for (let k = i + 1; k < j; k++) {
       const v = dev[k]!;
@@ -240,8 +249,8 @@ export function drawSeries(
     ctx.lineWidth = 1;
     ctx.beginPath();
     for (const [i, t] of lt.entries()) {
-      const lo = at(low, i, 'low'),
-        hi = at(high, i, 'high');
+      const lo = atNumber(low, i, 'low'),
+        hi = atNumber(high, i, 'high');
       if (!(lo > 0) || !Number.isFinite(hi) || !(hi >= lo)) continue;
       const x = sxLog.map(t),
         y0 = sy.map(lo),
@@ -257,6 +266,6 @@ export function drawSeries(
   }
   ctx.lineWidth = 1.5;
   for (const [i, t] of lt.entries()) {
-    ctx.stroke(plotMarkerPath(style.shape, sxLog.map(t), sy.map(at(s.deviation, i, 'deviation')), 4.5));
+    ctx.stroke(plotMarkerPath(style.shape, sxLog.map(t), sy.map(atNumber(s.deviation, i, 'deviation')), 4.5));
   }
 }

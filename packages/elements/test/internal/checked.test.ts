@@ -1,5 +1,5 @@
 import { expect } from '@open-wc/testing';
-import { at, last } from '../../src/internal/checked.js';
+import { at, atNumber, last } from '../../src/internal/checked.js';
 
 // Checked reads: a programming convention (common practice, no source); the expected values are
 // the arrays' own elements, written out by hand.
@@ -16,6 +16,13 @@ describe('internal/checked', () => {
     expect(() => at([1, 2], 2, 'passes')).to.throw(RangeError, 'passes[2] is outside its 2 element(s)');
     expect(() => at(new Float64Array(3), -1)).to.throw(RangeError, 'values[-1] is outside its 3 element(s)');
     expect(() => at([1, 2], 0.5, 'x')).to.throw(RangeError, 'x[0.5] is outside its 2 element(s)');
+  });
+
+  it('atNumber(values, index, name) reads a typed or plain numeric array, NaN included, and throws a RangeError outside it', () => {
+    expect(atNumber(new Float64Array([0.25, Number.NaN]), 0)).to.equal(0.25);
+    expect(Number.isNaN(atNumber(new Float64Array([0.25, Number.NaN]), 1))).to.equal(true);
+    expect(atNumber([7, 8], 1, 'y')).to.equal(8);
+    expect(() => atNumber(new Float64Array(2), 2, 'y')).to.throw(RangeError, 'y[2] is outside its 2 element(s)');
   });
 
   it('last(values) returns the final element and throws a RangeError on an empty array', () => {

@@ -310,6 +310,9 @@ function withRelativeTimes(series: Omit<PhaseTextSeries, 't'>): PhaseTextSeries 
  * `times` may be counted from any origin; `origin` (default 0) is added to the times printed in
  * messages and to each gap's `time`, so that a reader can work on exact offsets from its first epoch
  * and still report times on its own count. The returned grid is on the same count as `times`.
+ * Hot (one pass per sample of 10^6-line files): the per-sample loops read with `!`, indices bounded by
+ * i < times.length = values.length = steps.length (the lengths checked on entry); `entries()` and
+ * for-of allocate or run several times slower here (measured: parsePhaseText ×1.2–1.7 on 10^6 lines).
  *
  * @internal shared with the RINEX clock reader
  * @throws {ParseError} at the line of the first sample whose step is not a whole multiple of τ0, or
@@ -323,18 +326,18 @@ export function regularizeSeries(
   tau0Given: Seconds | undefined,
   origin: Seconds = 0,
 ): { phase: Float64Array; times: Float64Array; tau0: Seconds | undefined; gaps: SampleGap[]; missing: number } {
+  if (values.length !== times.length) {
+    throw new RangeError(
+      `regularizeSeries: ${values.length} value(s) for ${times.length} time(s) (internal length error)`,
+    );
+  }
   let tau0 = tau0Given;
   if (tau0 !== undefined && !(tau0 > 0 && Number.isFinite(tau0))) {
     throw new ParseError(sourceName, lineOf(0), undefined, `a sample spacing tau0 > 0 s (given ${tau0})`);
   }
   if (tau0 === undefined && times.length >= 2) {
-    let smallest = Infinity;
-    let previous = Number.NaN;
-    for (const [i, t] of times.entries()) {
-      if (i > 0) smallest = Math.min(smallest, t - previous);
-      previous = t;
-    }
-    tau0 = smallest;
+    tau0 = Infinity;
+    for (let i = 1; i < times.length; i++) tau0 = Math.min(tau0, times[i]! - times[i - 1]!);
   }
   if (tau0 === undefined) {
     const first = times[0];
@@ -345,11 +348,6 @@ export function regularizeSeries(
     return { phase: values.slice(), times: times.slice(), tau0: undefined, gaps, missing: gaps.length };
   }
   const t0 = at(times, 0, 'times');
-  if (values.length !== times.length) {
-    throw new RangeError(
-      `regularizeSeries: ${values.length} value(s) for ${times.length} time(s) (internal length error)`,
-    );
-  }
   const { steps, total } = stepsOnGrid(sourceName, times, lineOf, tau0, origin);
   const phase = new Float64Array(total).fill(Number.NaN);
   const grid = new Float64Array(total);
@@ -357,10 +355,11 @@ export function regularizeSeries(
   // Missing epochs between listed samples, and listed samples whose value is NaN, are the gaps.
   const gaps: SampleGap[] = [];
   let idx = 0;
-  for (const [i, k] of steps.entries()) {
+  for (let i = 0; i < steps.length; i++) {
+    const k = steps[i]!;
     if (k > 1) gaps.push({ index: idx + 1, missing: k - 1, line: lineOf(i), time: origin + (t0 + (idx + 1) * tau0) });
     idx += k;
-    const value = at(values, i, 'values');
+    const value = values[i]!;
     phase[idx] = value;
     if (value !== value) gaps.push({ index: idx, missing: 1, line: lineOf(i), time: origin + at(grid, idx, 'grid') });
   }
@@ -383,12 +382,10 @@ function stepsOnGrid(
   origin: Seconds,
 ): { steps: Int32Array; total: number } {
   let total = 1;
-  let previous = Number.NaN;
   const steps = new Int32Array(times.length);
-  for (const [i, t] of times.entries()) {
-    const step = t - previous;
-    previous = t;
-    if (i === 0) continue;
+  for (let i = 1; i < times.length; i++) {
+    const t = times[i]!;
+    const step = t - times[i - 1]!;
     const ratio = step / tau0;
     const k = Math.round(ratio);
     if (k < 1 || Math.abs(ratio - k) > 1e-6 * Math.max(1, k)) {
