@@ -5,10 +5,11 @@ import { sendKeys } from '@web/test-runner-commands';
 import '../src/fleet-timeline/fleet-timeline.define.js';
 import { calendarTicks } from '../src/fleet-timeline/fleet-axis.js';
 import { readFleetPlan } from '../src/fleet-timeline/fleet-data.js';
-import { fleetLayout } from '../src/fleet-timeline/fleet-draw.js';
+import { columnMinima, fleetLayout } from '../src/fleet-timeline/fleet-draw.js';
 import { marginSeries, requiredBound } from '../src/fleet-timeline/fleet-margin.js';
 import type { TaulineFleetTimeline } from '../src/fleet-timeline/fleet-timeline.js';
 import { erfc, oneSidedQuantile } from '../src/internal/normal.js';
+import { linearScale } from '../src/internal/scale.js';
 import { captureWarnings } from './fixtures.js';
 import { heldFleet, strandedFleet } from './fleet-fixtures.js';
 
@@ -124,6 +125,17 @@ describe('tauline-fleet-timeline', () => {
     for (const [p, z1] of quantiles) {
       expect(Math.abs(oneSidedQuantile(p) - z1), `z1(${p})`).to.be.below(1e-5);
     }
+  });
+
+  it('marginSeries(mean, σ, ...) and columnMinima(t, margin, ...) throw a RangeError naming a column shorter than the grid', () => {
+    expect(() => marginSeries([1e-9, 2e-9], [1e-10], 1e-7, 0.99, 3)).to.throw(
+      RangeError,
+      'sigma[1] is outside its 1 element(s)',
+    );
+    const sx = linearScale(0, 10, 100, 500);
+    expect(() =>
+      columnMinima(Float64Array.of(0, 5, 10), Float64Array.of(1e-8, 2e-8), 1e-7, sx, fleetLayout(600, 1, 1)),
+    ).to.throw(RangeError, 'margin has 2 element(s) for 3 grid time(s)');
   });
 
   it('readFleetPlan margins agree with the planner: every held satellite has margin ≥ 0 at every epoch, the stranded one goes below 0', async () => {

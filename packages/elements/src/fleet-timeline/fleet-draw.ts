@@ -6,9 +6,10 @@
  * @module
  */
 import { type MarkerShape, markerPath } from '../internal/canvas.js';
+import { at } from '../internal/checked.js';
 import type { Scale } from '../internal/scale.js';
 import type { CalendarTick } from './fleet-axis.js';
-import type { FleetCommandView, FleetView, SupportView } from './fleet-data.js';
+import type { FleetCommandView, FleetView, SatelliteView, SupportView } from './fleet-data.js';
 
 /** Resolved colours and font. */
 export interface FleetColors {
@@ -101,7 +102,12 @@ export function hatch(ctx: CanvasRenderingContext2D, color: string, spacing = 6)
   return ctx.createPattern(tile, 'repeat') ?? color;
 }
 
-/** Per-pixel-column smallest margin fraction (margin / tolerance) over [x0, x1) of the scale; NaN where no sample. */
+/**
+ * Per-pixel-column smallest margin fraction (margin / tolerance) over [x0, x1) of the scale; NaN where no sample.
+ * Sample i covers [t[i], t[i + 1]] (the last one only its own instant). Hot (every grid sample of every row,
+ * on each pan): plain index loops; t[i] and margin[i] are bounded by i < t.length = margin.length (checked on
+ * entry), out[c] by c ≤ b < cols.
+ */
 export function columnMinima(
   t: Float64Array,
   margin: Float64Array,
@@ -111,11 +117,13 @@ export function columnMinima(
 ): Float64Array {
   const cols = Math.max(0, Math.ceil(layout.right - layout.left));
   const out = new Float64Array(cols).fill(Number.NaN);
-  const n = t.length;
+  if (margin.length !== t.length) {
+    throw new RangeError(`margin has ${margin.length} element(s) for ${t.length} grid time(s)`);
+  }
   const [d0, d1] = sx.domain;
-  for (let i = 0; i < n; i++) {
+  for (let i = 0; i < t.length; i++) {
     const ta = t[i]!,
-      tb = i + 1 < n ? t[i + 1]! : ta;
+      tb = t[i + 1] ?? ta; // the last sample has no next one
     if (tb < d0 || ta > d1) continue;
     const a = Math.max(0, Math.floor(sx.map(ta) - layout.left));
     const b = Math.min(cols - 1, Math.max(a, Math.ceil(sx.map(tb) - layout.left) - 1));
@@ -198,9 +206,13 @@ function drawLabels(ctx: CanvasRenderingContext2D, { view, layout, colors, atRis
 
 type Fill = CanvasPattern | string;
 
-function drawMarginStrip(ctx: CanvasRenderingContext2D, input: DrawInput, i: number, riskPattern: Fill): void {
-  const { view, layout, sx, colors, riskFraction } = input;
-  const s = view.satellites[i]!;
+function drawMarginStrip(
+  ctx: CanvasRenderingContext2D,
+  input: DrawInput,
+  [i, s]: [number, SatelliteView],
+  riskPattern: Fill,
+): void {
+  const { layout, sx, colors, riskFraction } = input;
   const y0 = layout.top + i * layout.rowHeight + 3,
     h = layout.rowHeight - 9;
   const cols = columnMinima(s.t, s.margin, s.tolerance, sx, layout);
@@ -230,9 +242,13 @@ function drawMarginStrip(ctx: CanvasRenderingContext2D, input: DrawInput, i: num
   ctx.stroke();
 }
 
-function drawSatelliteRow(ctx: CanvasRenderingContext2D, input: DrawInput, i: number, riskPattern: Fill): void {
-  const { view, layout, sx, colors, atRisk } = input;
-  const s = view.satellites[i]!;
+function drawSatelliteRow(
+  ctx: CanvasRenderingContext2D,
+  input: DrawInput,
+  [i, s]: [number, SatelliteView],
+  riskPattern: Fill,
+): void {
+  const { layout, sx, colors, atRisk } = input;
   const y = layout.top + i * layout.rowHeight;
   const [d0, d1] = sx.domain;
   if (atRisk[i]) {
@@ -251,7 +267,7 @@ function drawSatelliteRow(ctx: CanvasRenderingContext2D, input: DrawInput, i: nu
     ctx.fillRect(a, y + layout.rowHeight - 4, Math.max(1, b - a), 2);
   }
   ctx.globalAlpha = 1;
-  drawMarginStrip(ctx, input, i, riskPattern);
+  drawMarginStrip(ctx, input, [i, s], riskPattern);
   // Uplinks: a tick at the uplink joined to the command's marker at its execution.
   const mid = y + (layout.rowHeight - 6) / 2 + 1;
   ctx.lineWidth = 1;
@@ -311,7 +327,7 @@ function drawLanes(ctx: CanvasRenderingContext2D, input: DrawInput, riskPattern:
         ctx.fillStyle = riskPattern;
         ctx.fillRect(r.x, r.y + r.h - 4, r.w, 4);
       }
-      const id = view.satellites[sup.satellite]!.id;
+      const { id } = at(view.satellites, sup.satellite, 'satellites');
       if (ctx.measureText(id).width + 4 <= r.w) {
         ctx.fillStyle = colors.surface;
         ctx.fillText(id, r.x + r.w / 2, r.y + r.h / 2);
@@ -331,7 +347,7 @@ export function drawFleet(ctx: CanvasRenderingContext2D, input: DrawInput): void
   ctx.beginPath();
   ctx.rect(layout.left, 0, layout.right - layout.left, layout.height);
   ctx.clip();
-  for (let i = 0; i < input.view.satellites.length; i++) drawSatelliteRow(ctx, input, i, riskPattern);
+  for (const row of input.view.satellites.entries()) drawSatelliteRow(ctx, input, row, riskPattern);
   drawLanes(ctx, input, riskPattern, setupPattern);
   ctx.restore();
   ctx.strokeStyle = colors.muted;
@@ -353,7 +369,7 @@ export function hitTest(view: FleetView, layout: FleetLayout, sx: Scale, x: numb
   const t = sx.invert(x);
   const row = Math.floor((y - layout.top) / layout.rowHeight);
   if (y >= layout.top && row >= 0 && row < layout.rows) {
-    const s = view.satellites[row]!;
+    const s = at(view.satellites, row, 'satellites');
     let command = -1,
       best = 7;
     for (const [k, c] of s.commands.entries()) {
@@ -367,7 +383,7 @@ export function hitTest(view: FleetView, layout: FleetLayout, sx: Scale, x: numb
   }
   const lane = Math.floor((y - layout.laneTop) / layout.laneHeight);
   if (y < layout.laneTop || lane < 0 || lane >= layout.lanes) return null;
-  const supports = view.stations[lane]!.supports;
+  const { supports } = at(view.stations, lane, 'stations');
   let support = -1,
     best = 3;
   for (const [k, s] of supports.entries()) {

@@ -6,6 +6,7 @@
  *
  * @module
  */
+import { atNumber } from '../internal/checked.js';
 import { INV_SQRT_2PI, normalCdf, oneSidedQuantile } from '../internal/normal.js';
 
 /**
@@ -49,8 +50,8 @@ export function marginSeries(
   const z1 = oneSidedQuantile(p);
   let k = z;
   for (let i = 0; i < out.length; i++) {
-    const s = sigma[i]!,
-      a = Math.abs(mean[i]!);
+    const s = atNumber(sigma, i, 'sigma'),
+      a = Math.abs(atNumber(mean, i, 'mean'));
     const b = requiredBound(a, s, p, z, k, z1);
     if (s > 0) k = (b - a) / s;
     out[i] = bound - b;

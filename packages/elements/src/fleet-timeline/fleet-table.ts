@@ -6,6 +6,7 @@
  * @module
  */
 import { html, nothing, type TemplateResult } from 'lit';
+import { at } from '../internal/checked.js';
 import {
   formatDuration,
   formatFraction,
@@ -48,9 +49,9 @@ export function describeSatellite(view: FleetView, s: SatelliteView, atRisk: boo
 
 /** One sentence about a support. */
 export function describeSupport(view: FleetView, sup: SupportView): string {
-  const st = view.stations[sup.station]!;
+  const st = at(view.stations, sup.station, 'stations');
   return (
-    `${st.id} holds ${view.satellites[sup.satellite]!.id} from ${formatChartUtc(view, sup.start)} to ` +
+    `${st.id} holds ${at(view.satellites, sup.satellite, 'satellites').id} from ${formatChartUtc(view, sup.start)} to ` +
     `${formatChartUtc(view, sup.end)}; setup ${formatDuration(st.setup)} after it.`
   );
 }
@@ -114,7 +115,7 @@ export function stationTable(view: FleetView): TemplateResult {
       <th scope="col">Held</th><th scope="col">Setup</th></tr></thead>
     <tbody>${view.stations.map((st) => {
       const held = st.supports.reduce((n, s) => n + (s.end - s.start), 0);
-      const who = [...new Set(st.supports.map((s) => view.satellites[s.satellite]!.id))];
+      const who = [...new Set(st.supports.map((s) => at(view.satellites, s.satellite, 'satellites').id))];
       return html`<tr><th scope="row">${st.id}</th><td>${st.supports.length}</td>
         <td>${who.length}</td><td>${formatNumber((100 * held) / view.horizon, 3)} %</td>
         <td>${formatDuration(st.setup)}</td></tr>`;
@@ -122,7 +123,7 @@ export function stationTable(view: FleetView): TemplateResult {
   </table>`;
 }
 
-/** Grid index nearest to time x (binary search over ascending t). */
+/** Grid index nearest to time x (binary search over ascending t; mid is bounded by lo < mid < hi < t.length). */
 function nearestIndex(t: Float64Array, x: number): number {
   let lo = 0,
     hi = t.length - 1;
@@ -137,15 +138,16 @@ function nearestIndex(t: Float64Array, x: number): number {
 /** The hover read-out (part `tooltip`) for what is under the pointer. */
 export function tooltip(d: FleetView, hit: FleetHit, atRisk: readonly boolean[], style: string): TemplateResult {
   if (hit.kind === 'support') {
-    const sup = d.stations[hit.station]!.supports[hit.support]!;
-    return html`<div part="tooltip" style=${style}><strong>${d.stations[hit.station]!.id}</strong>
+    const st = at(d.stations, hit.station, 'stations');
+    const sup = at(st.supports, hit.support, 'supports');
+    return html`<div part="tooltip" style=${style}><strong>${st.id}</strong>
       <div class="note">${describeSupport(d, sup)}</div></div>`;
   }
   if (hit.kind === 'lane') {
-    return html`<div part="tooltip" style=${style}><strong>${d.stations[hit.station]!.id}</strong>
+    return html`<div part="tooltip" style=${style}><strong>${at(d.stations, hit.station, 'stations').id}</strong>
       <div class="note">Free at ${formatChartUtc(d, hit.t)}</div></div>`;
   }
-  const s = d.satellites[hit.satellite]!;
+  const s = at(d.satellites, hit.satellite, 'satellites');
   const c = s.commands[hit.command];
   const k = nearestIndex(s.t, hit.t);
   const status = statusText(s, atRisk[hit.satellite] ?? false);

@@ -2,6 +2,7 @@ import type { FleetDocument, FleetPlanJson } from '@tauline/sdk/fleet';
 import { html, nothing, type PropertyDeclarations, type PropertyValues, type TemplateResult } from 'lit';
 import { emit } from '../events.js';
 import { sizeCanvas } from '../internal/canvas.js';
+import { at } from '../internal/checked.js';
 import { typographicMinus } from '../internal/format.js';
 import { PlotElement } from '../internal/plot-element.js';
 import { linearScale, type Scale } from '../internal/scale.js';
@@ -333,14 +334,15 @@ export class TaulineFleetTimeline extends PlotElement {
 
   private _selectSupport(station: number, k: number): void {
     const d = this._data,
-      sup = d?.stations[station]?.supports[k];
-    if (!d || !sup) return;
+      st = d?.stations[station],
+      sup = st?.supports[k];
+    if (!d || !st || !sup) return;
     this._cursor = { kind: 'support', station, support: k };
     this._announcement = describeSupport(d, sup);
     emit(this, 'tauline-support-select', {
       index: sup.index,
-      station: d.stations[station]!.id,
-      satellite: d.satellites[sup.satellite]!.id,
+      station: st.id,
+      satellite: at(d.satellites, sup.satellite, 'satellites').id,
       support: sup.source,
     });
   }
@@ -351,12 +353,13 @@ export class TaulineFleetTimeline extends PlotElement {
     if (!d) return;
     this._cursor = next;
     if (next.kind === 'satellite') {
-      const s = d.satellites[next.satellite]!;
+      const s = at(d.satellites, next.satellite, 'satellites');
       this._announcement = describeSatellite(d, s, this._atRisk[next.satellite] ?? false);
     } else {
-      const sup = d.stations[next.station]!.supports[next.support];
+      const st = at(d.stations, next.station, 'stations');
+      const sup = st.supports[next.support];
       if (!sup) {
-        this._announcement = `${d.stations[next.station]!.id}: no supports.`;
+        this._announcement = `${st.id}: no supports.`;
         return;
       }
       this._announcement = describeSupport(d, sup);
@@ -473,7 +476,7 @@ export class TaulineFleetTimeline extends PlotElement {
 
   /** Moves to the next / previous uplink of a satellite (first: the first in view); centres and announces it. */
   private _stepUplink(d: FleetView, i: number, dir: 1 | -1): void {
-    const s = d.satellites[i]!;
+    const s = at(d.satellites, i, 'satellites');
     const cur = this._cursor?.kind === 'satellite' ? this._cursor.command : -1;
     if (!this._view || s.commands.length === 0) {
       this._announcement = `${s.id}: no uplinks.`;
@@ -484,7 +487,7 @@ export class TaulineFleetTimeline extends PlotElement {
       s.commands.findIndex((c) => c.executeAt >= this._view![0]),
     );
     const k = cur < 0 ? firstInView : Math.min(s.commands.length - 1, Math.max(0, cur + dir));
-    const c = s.commands[k]!;
+    const c = at(s.commands, k, 'commands');
     this._cursor = { kind: 'satellite', satellite: i, command: k };
     if (c.executeAt < this._view[0] || c.uplinkAt > this._view[1]) {
       const span = this._view[1] - this._view[0];

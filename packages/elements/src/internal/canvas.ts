@@ -4,6 +4,7 @@
  *
  * @module
  */
+import { atNumber } from './checked.js';
 import type { BandPolygon, Polyline } from './decimate.js';
 import type { Scale } from './scale.js';
 
@@ -61,17 +62,20 @@ export function resolveFont(probe: HTMLElement, sizePx?: number): string {
   return `${size}px ${cs.fontFamily || 'sans-serif'}`;
 }
 
-/** Strokes a polyline in data units through the two scales; NaN vertices break the line. */
+/**
+ * Strokes a polyline in data units through the two scales; NaN vertices break the line. Per vertex
+ * (up to 4 per device-pixel column, on every pan frame): plain index loops with the numeric checked read.
+ */
 export function strokePolyline(ctx: CanvasRenderingContext2D, line: Polyline, sx: Scale, sy: Scale): void {
   const path = new Path2D();
   let pen = false;
   for (let i = 0; i < line.length; i++) {
-    const y = line.y[i]!;
+    const y = atNumber(line.y, i, 'line.y');
     if (Number.isNaN(y)) {
       pen = false;
       continue;
     }
-    const px = sx.map(line.x[i]!),
+    const px = sx.map(atNumber(line.x, i, 'line.x')),
       py = sy.map(y);
     if (pen) path.lineTo(px, py);
     else {
@@ -88,13 +92,14 @@ export function fillBand(ctx: CanvasRenderingContext2D, band: BandPolygon, sx: S
   let start = 0;
   const close = (from: number, to: number): void => {
     if (to - from < 1) return;
-    path.moveTo(sx.map(band.x[from]!), sy.map(band.high[from]!));
-    for (let i = from + 1; i < to; i++) path.lineTo(sx.map(band.x[i]!), sy.map(band.high[i]!));
-    for (let i = to - 1; i >= from; i--) path.lineTo(sx.map(band.x[i]!), sy.map(band.low[i]!));
+    const px = (i: number): number => sx.map(atNumber(band.x, i, 'band.x'));
+    path.moveTo(px(from), sy.map(atNumber(band.high, from, 'band.high')));
+    for (let i = from + 1; i < to; i++) path.lineTo(px(i), sy.map(atNumber(band.high, i, 'band.high')));
+    for (let i = to - 1; i >= from; i--) path.lineTo(px(i), sy.map(atNumber(band.low, i, 'band.low')));
     path.closePath();
   };
   for (let i = 0; i < band.length; i++) {
-    if (Number.isNaN(band.low[i]!)) {
+    if (Number.isNaN(atNumber(band.low, i, 'band.low'))) {
       close(start, i);
       start = i + 1;
     }

@@ -9,8 +9,15 @@
  *
  * Pure functions, no DOM: tested in packages/elements/test/internal/decimate.test.ts.
  *
+ * Index reads: the per-point loops (binary searches, column scans) read with `!`, each index
+ * bounded by its loop condition and the range [start, end) checked against every column's length on
+ * entry (`requireRange`); the per-column reads (a column's first point, its extremes) go through the
+ * checked `atNumber()`, a handful per pixel column (A/B over 10^6 points: no change beyond noise).
+ *
  * @module
  */
+
+import { atNumber } from './checked.js';
 
 /** A numeric column: typed array or plain array. x must be ascending. */
 export type NumericColumn = ArrayLike<number>;
@@ -30,7 +37,7 @@ export interface BandPolygon {
   length: number;
 }
 
-/** First index i with x[i] >= value (x ascending), in [0, x.length]. */
+/** First index i with x[i] >= value (x ascending), in [0, x.length]; mid is bounded by lo < hi ≤ x.length. */
 export function lowerBound(x: NumericColumn, value: number): number {
   let lo = 0;
   let hi = x.length;
@@ -42,7 +49,7 @@ export function lowerBound(x: NumericColumn, value: number): number {
   return lo;
 }
 
-/** First index i with x[i] > value (x ascending), in [0, x.length]. */
+/** First index i with x[i] > value (x ascending), in [0, x.length]; mid is bounded by lo < hi ≤ x.length. */
 export function upperBound(x: NumericColumn, value: number): number {
   let lo = 0;
   let hi = x.length;
@@ -70,7 +77,7 @@ export function closestIndex(x: NumericColumn, value: number): number {
   const i = lowerBound(x, value);
   if (i <= 0) return 0;
   if (i >= x.length) return x.length - 1;
-  return value - x[i - 1]! <= x[i]! - value ? i - 1 : i;
+  return value - atNumber(x, i - 1, 'x') <= atNumber(x, i, 'x') - value ? i - 1 : i;
 }
 
 /** Whether decimation pays off: at least 4 points per pixel column (uPlot's rule). */
@@ -79,9 +86,22 @@ export function shouldDecimate(pointCount: number, columns: number): boolean {
 }
 
 /**
+ * Throws a `RangeError` naming the column when [start, end) is not inside it: a caller's bug, which
+ * would otherwise draw `undefined` reads as gaps.
+ */
+function requireRange(start: number, end: number, columns: Readonly<Record<string, NumericColumn>>): void {
+  for (const [name, column] of Object.entries(columns)) {
+    if (!(Number.isInteger(start) && Number.isInteger(end) && start >= 0 && end <= column.length)) {
+      throw new RangeError(`index range [${start}, ${end}) is outside ${name}'s ${column.length} element(s)`);
+    }
+  }
+}
+
+/**
  * End (exclusive) of the pixel column `col` that starts at index i: the first index in (i, end]
  * whose column floor((x − x0)·scale) differs. Binary search, then exact correction with the
  * same floor rule so points on a boundary land in the same column as a per-point scan puts them.
+ * Indices bounded by the loop conditions: i < lo ≤ hi ≤ end ≤ x.length, and i < j ≤ end.
  */
 function columnEnd(x: NumericColumn, i: number, end: number, x0: number, scale: number, col: number): number {
   let lo = i + 1,
@@ -142,12 +162,14 @@ export function decimateLine(
   columns: number,
 ): Polyline {
   const count = Math.max(0, end - start);
+  if (count > 0) requireRange(start, end, { x, y });
   const cols = Math.max(1, Math.floor(columns));
   if (!shouldDecimate(count, cols) || !(x1 > x0)) {
+    // Fewer than 4 points per pixel column: a short copy, read checked.
     const out = { x: new Float64Array(count), y: new Float64Array(count), length: count };
     for (let i = 0; i < count; i++) {
-      out.x[i] = x[start + i]!;
-      const v = y[start + i]!;
+      out.x[i] = atNumber(x, start + i, 'x');
+      const v = atNumber(y, start + i, 'y');
       out.y[i] = Number.isFinite(v) ? v : Number.NaN;
     }
     return out;
@@ -161,19 +183,19 @@ export function decimateLine(
       b = c;
       c = t;
     }
-    out.push(x[a]!, y[a]!, 0);
-    if (b !== a) out.push(x[b]!, y[b]!, 0);
-    if (c !== b && c !== a) out.push(x[c]!, y[c]!, 0);
-    if (d !== c && d !== b && d !== a) out.push(x[d]!, y[d]!, 0);
+    out.push(atNumber(x, a, 'x'), atNumber(y, a, 'y'), 0);
+    if (b !== a) out.push(atNumber(x, b, 'x'), atNumber(y, b, 'y'), 0);
+    if (c !== b && c !== a) out.push(atNumber(x, c, 'x'), atNumber(y, c, 'y'), 0);
+    if (d !== c && d !== b && d !== a) out.push(atNumber(x, d, 'x'), atNumber(y, d, 'y'), 0);
   };
   let i = start;
   while (i < end) {
-    const col = Math.floor((x[i]! - x0) * scale);
+    const col = Math.floor((atNumber(x, i, 'x') - x0) * scale);
     const j = columnEnd(x, i, end, x0, scale, col);
-    // Tight scan of the column's y values; comparisons skip NaN, which is detected separately.
+    // Tight scan of the column's y values (k < j ≤ end); comparisons skip NaN, which is detected separately.
     let lo = i,
       hi = i,
-      yl = y[i]!,
+      yl = atNumber(y, i, 'y'),
       yh = yl,
       finite = yl - yl === 0;
     for (let k = i + 1; k < j; k++) {
@@ -190,27 +212,35 @@ export function decimateLine(
     else splitAtGaps(i, j);
     i = j;
   }
-  /** Slow path for a column holding non-finite values: runs between gaps, NaN vertex per gap. */
+  /** Slow path for a column holding non-finite values: runs between gaps, NaN vertex per gap (k < to ≤ end). */
   function splitAtGaps(from: number, to: number): void {
     let first = -1,
       lo = -1,
       hi = -1,
-      last = -1;
+      last = -1,
+      yl = Number.NaN,
+      yh = Number.NaN;
     for (let k = from; k < to; k++) {
       const v = y[k]!;
       if (!Number.isFinite(v)) {
         if (first >= 0) emit(first, lo, hi, last);
         first = -1;
-        out.push(x[k]!, Number.NaN, 0);
+        out.push(atNumber(x, k, 'x'), Number.NaN, 0);
         continue;
       }
       if (first < 0) {
         first = lo = hi = last = k;
+        yl = yh = v;
         continue;
       }
       last = k;
-      if (v < y[lo]!) lo = k;
-      else if (v > y[hi]!) hi = k;
+      if (v < yl) {
+        lo = k;
+        yl = v;
+      } else if (v > yh) {
+        hi = k;
+        yh = v;
+      }
     }
     if (first >= 0) emit(first, lo, hi, last);
   }
@@ -234,8 +264,10 @@ export function decimateBand(
   columns: number,
 ): BandPolygon {
   const count = Math.max(0, end - start);
+  if (count > 0) requireRange(start, end, { x, low, high });
   const cols = Math.max(1, Math.floor(columns));
   if (!shouldDecimate(count, cols) || !(x1 > x0)) {
+    // Fewer than 4 points per pixel column: a short copy, read checked.
     const out = {
       x: new Float64Array(count),
       low: new Float64Array(count),
@@ -243,10 +275,10 @@ export function decimateBand(
       length: count,
     };
     for (let i = 0; i < count; i++) {
-      const l = low[start + i]!,
-        h = high[start + i]!;
+      const l = atNumber(low, start + i, 'low'),
+        h = atNumber(high, start + i, 'high');
       const ok = Number.isFinite(l) && Number.isFinite(h);
-      out.x[i] = x[start + i]!;
+      out.x[i] = atNumber(x, start + i, 'x');
       out.low[i] = ok ? l : Number.NaN;
       out.high[i] = ok ? h : Number.NaN;
     }
@@ -256,15 +288,16 @@ export function decimateBand(
   const scale = cols / (x1 - x0);
   const emit = (from: number, to: number, l: number, h: number): void => {
     // Two vertices per column (its first and last x) keep the envelope's width honest.
-    out.push(x[from]!, l, h);
-    if (to - 1 > from) out.push(x[to - 1]!, l, h);
+    out.push(atNumber(x, from, 'x'), l, h);
+    if (to - 1 > from) out.push(atNumber(x, to - 1, 'x'), l, h);
   };
   let i = start;
   while (i < end) {
-    const col = Math.floor((x[i]! - x0) * scale);
+    const col = Math.floor((atNumber(x, i, 'x') - x0) * scale);
     const j = columnEnd(x, i, end, x0, scale, col);
-    let l = low[i]!,
-      h = high[i]!,
+    // Tight scan of the column (k < j ≤ end); comparisons skip NaN, which is detected separately.
+    let l = atNumber(low, i, 'low'),
+      h = atNumber(high, i, 'high'),
       finite = l - l === 0 && h - h === 0;
     for (let k = i + 1; k < j; k++) {
       const a = low[k]!,
@@ -284,7 +317,7 @@ export function decimateBand(
         if (!Number.isFinite(a) || !Number.isFinite(b)) {
           if (from >= 0) emit(from, k, l, h);
           from = -1;
-          out.push(x[k]!, Number.NaN, Number.NaN);
+          out.push(atNumber(x, k, 'x'), Number.NaN, Number.NaN);
           continue;
         }
         if (from < 0) {

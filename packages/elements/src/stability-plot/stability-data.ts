@@ -98,6 +98,8 @@ function asFloat64(v: ArrayLike<number>): Float64Array {
 function pick(src: ArrayLike<number>, index: Int32Array | null): Float64Array {
   if (!index) return asFloat64(src);
   const out = new Float64Array(index.length);
+  // Hot (10^6 points): j < index.length bounds the index read. An index outside `src` reads as NaN,
+  // as Number(undefined) always has: the validator flags such entries.
   for (let j = 0; j < index.length; j++) out[j] = Number(src[index[j]!]);
   return out;
 }

@@ -14,6 +14,7 @@ import {
   strokePolyline,
   type Tick,
 } from '../internal/canvas.js';
+import { atNumber } from '../internal/checked.js';
 import { type Polyline, shouldDecimate } from '../internal/decimate.js';
 import { formatFraction } from '../internal/format.js';
 import { linearScale, logTicks, type Scale } from '../internal/scale.js';
@@ -50,19 +51,23 @@ export function deviationExtent(series: readonly StabilitySeries[], withInterval
   let d0 = Infinity,
     d1 = -Infinity;
   for (const s of series) {
-    const dev = s.deviation,
-      lo = withIntervals ? s.low : null,
-      hi = withIntervals ? s.high : null;
+    // Three independent min/max scans (comparisons skip NaN, so the order of the reads does not matter),
+    // each over 10^6 points, each index bounded by its own column's length.
+    const { deviation: dev, low, high } = s;
     for (let i = 0; i < dev.length; i++) {
       const d = dev[i]!;
       if (d < d0) d0 = d;
       if (d > d1) d1 = d;
-      if (lo) {
-        const v = lo[i]!;
+    }
+    if (withIntervals && low) {
+      for (let i = 0; i < low.length; i++) {
+        const v = low[i]!;
         if (v > 0 && v < d0) d0 = v;
       }
-      if (hi) {
-        const v = hi[i]!;
+    }
+    if (withIntervals && high) {
+      for (let i = 0; i < high.length; i++) {
+        const v = high[i]!;
         if (v < Infinity && v > d1) d1 = v;
       }
     }
@@ -129,7 +134,7 @@ export function decadeTicks(sy: Scale, extent: readonly [number, number]): Tick[
   }));
 }
 
-/** First index in [from, x.length) with x[index] ≥ value (x ascending). */
+/** First index in [from, x.length) with x[index] ≥ value (x ascending); mid is bounded by lo < hi ≤ x.length. */
 function lowerBoundFrom(x: Float64Array, from: number, value: number): number {
   let lo = from,
     hi = x.length;
@@ -156,29 +161,29 @@ export function decimateLogTau(
   columns: number,
 ): Polyline {
   const n = tau.length;
-  const cols = Math.max(1, Math.floor(columns));
-  if (!shouldDecimate(n, cols) || !(lx1 > lx0)) {
-    const x = new Float64Array(n);
-    for (let i = 0; i < n; i++) x[i] = Math.log10(tau[i]!);
-    return { x, y: dev, length: n };
+  if (dev.length !== n) {
+    throw new RangeError(`deviation has ${dev.length} element(s) for ${n} τ value(s) (internal length error)`);
   }
+  const cols = Math.max(1, Math.floor(columns));
+  if (!shouldDecimate(n, cols) || !(lx1 > lx0)) return { x: Float64Array.from(tau, Math.log10), y: dev, length: n };
   const scale = cols / (lx1 - lx0);
   const x = new Float64Array(4 * cols + 16),
     y = new Float64Array(4 * cols + 16);
   let len = 0;
   const push = (k: number): void => {
     if (len === x.length) return; // cannot happen: at most four vertices per column
-    x[len] = Math.log10(tau[k]!);
-    y[len] = dev[k]!;
+    x[len] = Math.log10(atNumber(tau, k, 'tau'));
+    y[len] = atNumber(dev, k, 'deviation');
     len += 1;
   };
   let i = 0;
   while (i < n) {
-    const col = Math.floor((Math.log10(tau[i]!) - lx0) * scale);
+    const col = Math.floor((Math.log10(atNumber(tau, i, 'tau')) - lx0) * scale);
     const j = Math.max(i + 1, lowerBoundFrom(tau, i + 1, 10 ** (lx0 + (col + 1) / scale)));
+    // Tight scan of the column: k < j ≤ n = dev.length (checked above).
     let lo = i,
       hi = i,
-      yl = dev[i]!,
+      yl = atNumber(dev, i, 'deviation'),
       yh = yl;
     for (let k = i + 1; k < j; k++) {
       const v = dev[k]!;
@@ -239,14 +244,15 @@ export function drawSeries(
   ctx.setLineDash([]);
   if (n * MARKER_SPACING_PX > frame.width) return;
   const lt = Float64Array.from(s.tau, Math.log10);
-  if (style.intervals && s.low && s.high) {
+  const { low, high } = s;
+  if (style.intervals && low && high) {
     ctx.lineWidth = 1;
     ctx.beginPath();
-    for (let i = 0; i < n; i++) {
-      const lo = s.low[i]!,
-        hi = s.high[i]!;
+    for (const [i, t] of lt.entries()) {
+      const lo = atNumber(low, i, 'low'),
+        hi = atNumber(high, i, 'high');
       if (!(lo > 0) || !Number.isFinite(hi) || !(hi >= lo)) continue;
-      const x = sxLog.map(lt[i]!),
+      const x = sxLog.map(t),
         y0 = sy.map(lo),
         y1 = sy.map(hi);
       ctx.moveTo(x, y0);
@@ -259,5 +265,7 @@ export function drawSeries(
     ctx.stroke();
   }
   ctx.lineWidth = 1.5;
-  for (let i = 0; i < n; i++) ctx.stroke(plotMarkerPath(style.shape, sxLog.map(lt[i]!), sy.map(s.deviation[i]!), 4.5));
+  for (const [i, t] of lt.entries()) {
+    ctx.stroke(plotMarkerPath(style.shape, sxLog.map(t), sy.map(atNumber(s.deviation, i, 'deviation')), 4.5));
+  }
 }

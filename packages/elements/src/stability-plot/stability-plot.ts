@@ -1,6 +1,7 @@
 import type { StabilityRow } from '@tauline/sdk/stability';
 import { html, nothing, type PropertyDeclarations, type PropertyValues, type TemplateResult } from 'lit';
 import { type AxisStyle, drawAxes, sizeCanvas } from '../internal/canvas.js';
+import { atNumber } from '../internal/checked.js';
 import { lowerBound } from '../internal/decimate.js';
 import { formatDuration, formatFraction, formatNumber, formatOffsetAuto } from '../internal/format.js';
 import { PlotElement } from '../internal/plot-element.js';
@@ -412,8 +413,8 @@ export class TaulineStabilityPlot extends PlotElement {
         b = lowerBound(s.tau, t1);
       const stride = Math.max(1, Math.ceil((b - a) / HOVER_CHECKS));
       for (let i = a; i < b; i += stride) {
-        const dx = sc.sx.map(s.tau[i]!) - px,
-          dy = sy.map(s.deviation[i]!) - py;
+        const dx = sc.sx.map(atNumber(s.tau, i, 'tau')) - px,
+          dy = sy.map(atNumber(s.deviation, i, 'deviation')) - py;
         const d = dx * dx + dy * dy;
         if (d < bestD) {
           bestD = d;

@@ -113,8 +113,7 @@ export function layoutSchedule(
   let lo = Infinity,
     hi = -Infinity;
   const take = (arr: Float64Array, n: number): void => {
-    for (let i = 0; i < n; i++) {
-      const v = arr[i]!;
+    for (const v of arr.subarray(0, n)) {
       if (v < lo) lo = v;
       if (v > hi) hi = v;
     }
@@ -362,8 +361,12 @@ export function uncertaintyBand(
   k: number,
 ): { low: Float64Array; high: Float64Array } {
   const n = d.steered.length;
+  if (d.steeredSigma.length !== n) {
+    throw new RangeError(`steeredSigma has ${d.steeredSigma.length} element(s) for ${n} steered value(s)`);
+  }
   const low = new Float64Array(n),
     high = new Float64Array(n);
+  // Hot over 10^6 samples: i < n, the length of both columns (checked above).
   for (let i = 0; i < n; i++) {
     const c = d.steered[i]!,
       s = d.steeredSigma[i]! * k;

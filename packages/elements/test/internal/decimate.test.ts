@@ -58,6 +58,18 @@ describe('internal/decimate', () => {
     expect(shouldDecimate(400, 100)).to.equal(true);
   });
 
+  it('decimateLine and decimateBand throw a RangeError naming the column when [start, end) is outside it', () => {
+    const x = [0, 1, 2, 3],
+      y = [1, 2, 3];
+    expect(() => decimateLine(x, y, 0, 4, 0, 3, 100)).to.throw(
+      RangeError,
+      "index range [0, 4) is outside y's 3 element(s)",
+    );
+    expect(() => decimateLine(x, x, 0, 5, 0, 3, 1)).to.throw(RangeError, "outside x's 4 element(s)");
+    expect(() => decimateBand(x, x, y, 1, 4, 0, 3, 100)).to.throw(RangeError, "outside high's 3 element(s)");
+    expect(decimateLine(x, y, 2, 2, 0, 3, 100).length).to.equal(0);
+  });
+
   it('decimateLine copies the points unchanged below the threshold', () => {
     const x = [0, 1, 2],
       y = [3, Number.POSITIVE_INFINITY, 5];

@@ -202,6 +202,15 @@ describe('tauline-stability-plot', () => {
     for (let i = 1; i < line.length; i++) expect(line.x[i]!).to.be.at.least(line.x[i - 1]!);
   });
 
+  it('decimateLogTau(τ, dev, ...) throws a RangeError when the deviation column does not match τ in length', () => {
+    const tau = Float64Array.of(1, 2, 4),
+      dev = Float64Array.of(1e-11, 8e-12);
+    expect(() => decimateLogTau(tau, dev, 0, 1, 10)).to.throw(
+      RangeError,
+      'deviation has 2 element(s) for 3 τ value(s)',
+    );
+  });
+
   it('the table is windowed: 10^5 points put at most 30 rows in the DOM, aria-rowcount gives the full count, scrolling moves the window', async () => {
     const n = 100_000;
     const big = {

@@ -86,6 +86,11 @@ describe('schedule-draw (pure drawing of the steering schedule)', () => {
     expect(worstAbs(view.steered)).to.be.closeTo(plan.metrics.worstPredictedOffsetSeconds, 1e-18);
   });
 
+  it('uncertaintyBand(d, k) throws a RangeError when σ and the steered prediction differ in length', () => {
+    const d = { steered: Float64Array.of(1e-9, 2e-9), steeredSigma: Float64Array.of(1e-10) };
+    expect(() => uncertaintyBand(d, 2)).to.throw(RangeError, 'steeredSigma has 1 element(s) for 2 steered value(s)');
+  });
+
   it('drawSchedule(ctx, d, layout, colors, null) paints the steered line in its colour and returns one marker per command in view', async () => {
     const { view } = await orinView();
     const flat = { ...view, steered: new Float64Array(view.steered.length) };

@@ -5,6 +5,8 @@
  * @internal
  */
 
+import { at } from './checked.js';
+
 /** Largest seed: seeds are unsigned 32-bit integers (larger values would alias smaller ones). */
 export const MAX_SEED = 4_294_967_295;
 
@@ -189,15 +191,20 @@ export function createReseedableRandom(method: NormalMethod): ReseedableRandom {
   };
 }
 
-/** RNOR of Marsaglia & Tsang (2000) over a signed 32-bit source; `nfix` handles the 1.2 % of draws outside the boxes. */
+/**
+ * RNOR of Marsaglia & Tsang (2000) over a signed 32-bit source; `nfix` handles the 1.2 % of draws outside the boxes.
+ * Hot: the layer index iz = hz & (ZIG_LAYERS − 1) lies in [0, ZIG_LAYERS), the tables' length, so the fast path
+ * reads them with `!`; the rare wedge test reads checked.
+ */
 function zigguratNormal(nextInt: () => number, uniform: () => number): () => number {
   return (): number => {
-    let hz = nextInt();
-    let iz = hz & (ZIG_LAYERS - 1);
-    if (Math.abs(hz) < ZIG_KN[iz]!) return hz * ZIG_WN[iz]!;
     for (;;) {
+      const hz = nextInt();
+      const iz = hz & (ZIG_LAYERS - 1);
+      const wn = ZIG_WN[iz]!;
+      if (Math.abs(hz) < ZIG_KN[iz]!) return hz * wn;
       // nfix: the base strip's tail by Marsaglia's exponential method, or a wedge by rejection.
-      const x = hz * ZIG_WN[iz]!;
+      const x = hz * wn;
       if (iz === 0) {
         let tx: number;
         let ty: number;
@@ -207,10 +214,8 @@ function zigguratNormal(nextInt: () => number, uniform: () => number): () => num
         } while (ty + ty < tx * tx);
         return hz > 0 ? ZIG_R + tx : -ZIG_R - tx;
       }
-      if (ZIG_FN[iz]! + uniform() * (ZIG_FN[iz - 1]! - ZIG_FN[iz]!) < Math.exp(-0.5 * x * x)) return x;
-      hz = nextInt();
-      iz = hz & (ZIG_LAYERS - 1);
-      if (Math.abs(hz) < ZIG_KN[iz]!) return hz * ZIG_WN[iz]!;
+      const fn = at(ZIG_FN, iz, 'ZIG_FN');
+      if (fn + uniform() * (at(ZIG_FN, iz - 1, 'ZIG_FN') - fn) < Math.exp(-0.5 * x * x)) return x;
     }
   };
 }

@@ -1,3 +1,5 @@
+import { at } from '../internal/checked.js';
+
 /**
  * A Float64Array that doubles when full: one column of a record being read (epochs, values, line
  * numbers), with no per-value boxing for files of 10^7 lines.
@@ -17,8 +19,11 @@ export class GrowableColumn {
     this._data[this.length++] = v;
   }
 
+  /** The value pushed `i`-th; a `RangeError` for an index not yet pushed (the spare capacity holds no value). */
   get(i: number): number {
-    return this._data[i]!;
+    if (!(i < this.length))
+      throw new RangeError(`column[${i}] is outside its ${this.length} element(s) (internal index error)`);
+    return at(this._data, i, 'column');
   }
 
   toArray(): Float64Array {

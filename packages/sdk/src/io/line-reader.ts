@@ -13,6 +13,7 @@
  * @module
  */
 import { InvalidArgumentError, ParseError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { requireInRange, requireOptions, requireSourceName } from '../internal/validate.js';
 import { civilFromDays, daysFromCivil, daysInMonth, MAX_CALENDAR_YEAR } from '../time/calendar.js';
 import { MAX_LINE_CHARACTERS } from './limits.js';
@@ -104,7 +105,7 @@ export class LineSplitter {
       const end = nl < 0 ? cr : cr < 0 ? nl : Math.min(nl, cr);
       let text = chunk.slice(start, end);
       if (this._pending.length > 0) {
-        if (this._pendingLength + text.length > this._max) this._tooLong(this._pending[0]!);
+        if (this._pendingLength + text.length > this._max) this._tooLong(at(this._pending, 0, 'pending'));
         text = this._pending.join('') + text;
         this._pending = [];
         this._pendingLength = 0;

@@ -7,6 +7,7 @@
  * @module
  */
 import { ParseError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { requireOptions, requireSourceName } from '../internal/validate.js';
 import { type Instant, requireInstant } from '../time/instant.js';
 import type { Seconds } from '../units.js';
@@ -309,6 +310,9 @@ function withRelativeTimes(series: Omit<PhaseTextSeries, 't'>): PhaseTextSeries 
  * `times` may be counted from any origin; `origin` (default 0) is added to the times printed in
  * messages and to each gap's `time`, so that a reader can work on exact offsets from its first epoch
  * and still report times on its own count. The returned grid is on the same count as `times`.
+ * Hot (one pass per sample of 10^6-line files): the per-sample loops read with `!`, indices bounded by
+ * i < times.length = values.length = steps.length (the lengths checked on entry); `entries()` and
+ * for-of allocate or run several times slower here (measured: parsePhaseText ×1.2–1.7 on 10^6 lines).
  *
  * @internal shared with the RINEX clock reader
  * @throws {ParseError} at the line of the first sample whose step is not a whole multiple of τ0, or
@@ -322,6 +326,11 @@ export function regularizeSeries(
   tau0Given: Seconds | undefined,
   origin: Seconds = 0,
 ): { phase: Float64Array; times: Float64Array; tau0: Seconds | undefined; gaps: SampleGap[]; missing: number } {
+  if (values.length !== times.length) {
+    throw new RangeError(
+      `regularizeSeries: ${values.length} value(s) for ${times.length} time(s) (internal length error)`,
+    );
+  }
   let tau0 = tau0Given;
   if (tau0 !== undefined && !(tau0 > 0 && Number.isFinite(tau0))) {
     throw new ParseError(sourceName, lineOf(0), undefined, `a sample spacing tau0 > 0 s (given ${tau0})`);
@@ -338,19 +347,54 @@ export function regularizeSeries(
         : [];
     return { phase: values.slice(), times: times.slice(), tau0: undefined, gaps, missing: gaps.length };
   }
-  const t0 = times[0]!;
+  const t0 = at(times, 0, 'times');
+  const { steps, total } = stepsOnGrid(sourceName, times, lineOf, tau0, origin);
+  const phase = new Float64Array(total).fill(Number.NaN);
+  const grid = new Float64Array(total);
+  for (let k = 0; k < total; k++) grid[k] = t0 + k * tau0;
+  // Missing epochs between listed samples, and listed samples whose value is NaN, are the gaps.
+  const gaps: SampleGap[] = [];
+  let idx = 0;
+  for (let i = 0; i < steps.length; i++) {
+    const k = steps[i]!;
+    if (k > 1) gaps.push({ index: idx + 1, missing: k - 1, line: lineOf(i), time: origin + (t0 + (idx + 1) * tau0) });
+    idx += k;
+    const value = values[i]!;
+    phase[idx] = value;
+    if (value !== value) gaps.push({ index: idx, missing: 1, line: lineOf(i), time: origin + at(grid, idx, 'grid') });
+  }
+  gaps.sort((a, b) => a.index - b.index);
+  let missing = 0;
+  for (const g of gaps) missing += g.missing;
+  return { phase, times: grid, tau0, gaps, missing };
+}
+
+/**
+ * The grid steps k_i = (t_i − t_{i−1})/τ0 of each listed sample (k_0 = 0), each checked to be a
+ * whole multiple of τ0, and the grid's length 1 + Σ k_i, checked against {@link MAX_SERIES_SAMPLES}
+ * as it grows.
+ */
+function stepsOnGrid(
+  sourceName: string,
+  times: Float64Array,
+  lineOf: (i: number) => number,
+  tau0: Seconds,
+  origin: Seconds,
+): { steps: Int32Array; total: number } {
   let total = 1;
   const steps = new Int32Array(times.length);
   for (let i = 1; i < times.length; i++) {
-    const ratio = (times[i]! - times[i - 1]!) / tau0;
+    const t = times[i]!;
+    const step = t - times[i - 1]!;
+    const ratio = step / tau0;
     const k = Math.round(ratio);
     if (k < 1 || Math.abs(ratio - k) > 1e-6 * Math.max(1, k)) {
       throw new ParseError(
         sourceName,
         lineOf(i),
         1,
-        `a time step that is a whole multiple of tau0 = ${tau0} s (step ${times[i]! - times[i - 1]!} s from the previous sample is ${ratio} tau0)`,
-        String(origin + times[i]!),
+        `a time step that is a whole multiple of tau0 = ${tau0} s (step ${step} s from the previous sample is ${ratio} tau0)`,
+        String(origin + t),
       );
     }
     if (total + k > MAX_SERIES_SAMPLES) {
@@ -359,36 +403,15 @@ export function regularizeSeries(
         sourceName,
         lineOf(i),
         1,
-        `a uniform series of at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES): the gap of ${times[i]! - times[i - 1]!} s ` +
+        `a uniform series of at most ${MAX_SERIES_SAMPLES} samples (MAX_SERIES_SAMPLES): the gap of ${step} s ` +
           `after line ${lineOf(i - 1)} is ${k} steps of tau0 = ${tau0} s, making ${total + k} samples`,
-        String(origin + times[i]!),
+        String(origin + t),
       );
     }
     steps[i] = k;
     total += k;
   }
-  const phase = new Float64Array(total).fill(Number.NaN);
-  const grid = new Float64Array(total);
-  const gaps: SampleGap[] = [];
-  let missing = 0;
-  let idx = 0;
-  for (let i = 0; i < times.length; i++) {
-    if (i > 0) {
-      const k = steps[i]!;
-      if (k > 1) gaps.push({ index: idx + 1, missing: k - 1, line: lineOf(i), time: origin + (t0 + (idx + 1) * tau0) });
-      idx += k;
-    }
-    phase[idx] = values[i]!;
-  }
-  for (let k = 0; k < total; k++) grid[k] = t0 + k * tau0;
-  // Explicit NaN values at listed epochs are gaps as well.
-  for (let i = 0, k = 0; i < times.length; i++) {
-    if (i > 0) k += steps[i]!;
-    if (values[i] !== values[i]) gaps.push({ index: k, missing: 1, line: lineOf(i), time: origin + grid[k]! });
-  }
-  gaps.sort((a, b) => a.index - b.index);
-  for (const g of gaps) missing += g.missing;
-  return { phase, times: grid, tau0, gaps, missing };
+  return { steps, total };
 }
 
 /**

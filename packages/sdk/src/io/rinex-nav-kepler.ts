@@ -7,6 +7,7 @@
  * @module
  */
 import { ParseError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import type { KeplerianNavMessage, KeplerianSystem } from '../orbit/broadcast.js';
 import { defaultFitIntervalSeconds, isBeidouGeostationary, SYSTEM_TIME_SCALE } from '../orbit/broadcast.js';
 import { instantFromScaleSeconds } from '../time/file-epochs.js';
@@ -201,7 +202,7 @@ export function decodeKeplerRecord(
   start: KeplerRecordStart,
   layout: KeplerLayout,
 ): RinexNavEphemeris {
-  const l0 = lines[0]!;
+  const l0 = at(lines, 0, 'record lines');
   const fail = (line: TextLine, column: number, expected: string, found: string) =>
     new ParseError(source, line.lineNumber, column, expected, found);
   const e0 = layout.epochFieldStart;
@@ -213,10 +214,10 @@ export function decodeKeplerRecord(
   const col = (slot: number) => indent + 19 * slot;
   const f: Partial<Record<OrbitKey, number>> = {};
   for (const [ln, slot, key, label, required] of ORBIT_FIELDS[system]) {
-    const v = readD19(source, lines[ln]!, col(slot), label, required);
+    const v = readD19(source, at(lines, ln, 'record lines'), col(slot), label, required);
     if (v !== undefined) f[key] = v;
   }
-  const o = (k: number) => lines[k]!;
+  const o = (k: number) => at(lines, k, 'record lines');
   const eccentricity = f.eccentricity!;
   const sqrtA = f.sqrtA!;
   const toe = f.toe!;
@@ -297,7 +298,7 @@ function checkOrbitIndent(
   fail: (line: TextLine, column: number, expected: string, found: string) => ParseError,
 ): void {
   for (let k = 1; k < KEPLER_RECORD_LINES; k++) {
-    const o = lines[k]!;
+    const o = at(lines, k, 'record lines');
     if (o.text.slice(0, indent).trim() !== '') {
       throw fail(
         o,

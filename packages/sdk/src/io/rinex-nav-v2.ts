@@ -17,17 +17,28 @@
  *
  * @module
  */
-import { ParseError } from '../errors.js';
+import { InvalidArgumentError, ParseError } from '../errors.js';
 import { requireInteger } from '../internal/validate.js';
 import { type EpochFields, type TextLine, validEpochFields } from './line-reader.js';
 import { checkFieldAlignment, decodeKeplerRecord, KEPLER_RECORD_LINES, RINEX2_LAYOUT } from './rinex-nav-kepler.js';
 import { SYSTEM_NAMES, skipReason } from './rinex-nav-skip.js';
 import type { RinexNavEvent } from './rinex-nav-types.js';
 
-/** Lines per record by file type: N 8 (Table A4), G 4 (Table A11), H 4 (Table A16) [V1]. */
-const RECORD_LINES: Readonly<Record<string, number>> = { N: KEPLER_RECORD_LINES, G: 4, H: 4 };
-/** System letter of each file type's satellites (§5.1, §9.1 [V1]). */
-const SYSTEM_OF: Readonly<Record<string, string>> = { N: 'G', G: 'R', H: 'S' };
+/** A record's layout by file type. */
+interface RecordKind {
+  /** Lines per record: N 8 (Table A4), G 4 (Table A11), H 4 (Table A16) [V1]. */
+  readonly lines: number;
+  /** System letter of the file type's satellites (§5.1, §9.1 [V1]). */
+  readonly system: string;
+}
+const RECORD_KINDS: Readonly<Record<string, RecordKind>> = {
+  N: { lines: KEPLER_RECORD_LINES, system: 'G' },
+  G: { lines: 4, system: 'R' },
+  H: { lines: 4, system: 'S' },
+};
+
+/** A record's lines so far: never empty (a record starts with its first line). */
+type RecordLines = [TextLine, ...TextLine[]];
 
 /**
  * A two-digit RINEX 2 year as a full year: 80–99 → 1980–1999, 00–79 → 2000–2079.
@@ -45,17 +56,23 @@ export function fullYearFromTwoDigits(yy: number): number {
 export class NavV2Body {
   private readonly _source: string;
   private readonly _fileType: string;
-  private _pending: TextLine[] | undefined;
+  private readonly _kind: RecordKind;
+  private _pending: RecordLines | undefined;
 
+  /** @throws {InvalidArgumentError} for a file type other than N, G or H (the header reader refuses those first). */
   constructor(source: string, fileType: string) {
+    const kind = RECORD_KINDS[fileType];
+    if (kind === undefined) {
+      throw new InvalidArgumentError('fileType', fileType, 'a RINEX 2 navigation file type: N, G or H');
+    }
     this._source = source;
     this._fileType = fileType;
+    this._kind = kind;
   }
 
   /** Feeds one body line; returns the events it completed. @throws {ParseError} */
   push(line: TextLine): RinexNavEvent[] {
     const start = line.text.slice(0, 3).trim() !== '';
-    const needed = RECORD_LINES[this._fileType]!;
     if (start) {
       if (this._pending) throw this._truncated(this._pending, line);
       this._pending = [line];
@@ -71,7 +88,7 @@ export class NavV2Body {
         line.text,
       );
     }
-    if (this._pending.length < needed) return [];
+    if (this._pending.length < this._kind.lines) return [];
     const done = this._pending;
     this._pending = undefined;
     return [this._record(done)];
@@ -83,22 +100,22 @@ export class NavV2Body {
     return [];
   }
 
-  private _truncated(lines: TextLine[], at: TextLine): ParseError {
-    const needed = RECORD_LINES[this._fileType]!;
-    const system = SYSTEM_OF[this._fileType]!;
+  private _truncated(lines: RecordLines, at: TextLine): ParseError {
+    const { lines: needed, system } = this._kind;
+    const [first] = lines;
     return new ParseError(
       this._source,
       at.lineNumber,
       1,
-      `${needed} lines for the ${SYSTEM_NAMES[system]} record of ${satelliteId(system, lines[0]!.text)} starting at line ${lines[0]!.lineNumber} ` +
+      `${needed} lines for the ${SYSTEM_NAMES[system]} record of ${satelliteId(system, first.text)} starting at line ${first.lineNumber} ` +
         `(found ${lines.length}: truncated record)`,
       at.text,
     );
   }
 
-  private _record(lines: TextLine[]): RinexNavEvent {
-    const system = SYSTEM_OF[this._fileType]!;
-    const first = lines[0]!;
+  private _record(lines: RecordLines): RinexNavEvent {
+    const { system } = this._kind;
+    const [first] = lines;
     lines.forEach((l, k) => {
       checkFieldAlignment(this._source, l, k === 0, RINEX2_LAYOUT);
     });

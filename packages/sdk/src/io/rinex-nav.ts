@@ -19,6 +19,7 @@
  * @module
  */
 import { ParseError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { requireOptions, requireSourceName } from '../internal/validate.js';
 import type { KeplerianSystem } from '../orbit/broadcast.js';
 import {
@@ -222,7 +223,7 @@ export class RinexNavParser {
     const v4 = rec.v4;
     if (v4) {
       // Trailing blank lines of a version-4 record are not part of it.
-      while (rec.lines.length > 0 && rec.lines[rec.lines.length - 1]!.text.trim() === '') rec.lines.pop();
+      while (rec.lines.at(-1)?.text.trim() === '') rec.lines.pop();
     }
     const first = rec.lines[0];
     const system = v4 ? v4.satellite.charAt(0) : rec.start.text.charAt(0);
@@ -260,7 +261,7 @@ export class RinexNavParser {
     }
     this._requireLines(rec, next, KEPLER_RECORD_LINES, `${KEPLER_RECORD_LINES} lines`, satellite);
     if (rec.lines.length > KEPLER_RECORD_LINES) {
-      const extra = rec.lines[KEPLER_RECORD_LINES]!;
+      const extra = at(rec.lines, KEPLER_RECORD_LINES, 'record lines');
       throw this._error(
         extra,
         1,

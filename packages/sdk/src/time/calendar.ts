@@ -6,6 +6,7 @@
  * @module
  */
 import { InvalidArgumentError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { requireInteger } from '../internal/validate.js';
 
 /** MJD of 1970-01-01 (the POSIX epoch day): MJD = JD − 2400000.5 with JD(1970-01-01T00:00) = 2440587.5 [C]. */
@@ -41,7 +42,7 @@ const MONTH_LENGTHS = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31] as const;
 export function daysInMonth(year: number, month: number): number {
   requireInteger('year', year);
   requireInteger('month', month, 1, 12);
-  return month === 2 && isGregorianLeapYear(year) ? 29 : MONTH_LENGTHS[month - 1]!;
+  return month === 2 && isGregorianLeapYear(year) ? 29 : at(MONTH_LENGTHS, month - 1, 'MONTH_LENGTHS');
 }
 
 /**

@@ -8,6 +8,7 @@
  */
 
 import { InvalidArgumentError, ParseError } from '../errors.js';
+import { at, last as lastOf } from '../internal/checked.js';
 import type { Seconds } from '../units.js';
 import { calendarDateFromMjd, isoDateOfMjd, mjdFromCalendarDate } from './calendar.js';
 
@@ -101,7 +102,7 @@ export function defineLeapSecondTable(spec: LeapSecondTableSpec): LeapSecondTabl
     }
     checked.push(Object.freeze({ mjd, taiMinusUtc }));
   });
-  const last = checked[checked.length - 1]!;
+  const last = lastOf(checked, 'entries');
   if (
     typeof validUntilMjd !== 'number' ||
     !Number.isInteger(validUntilMjd) ||
@@ -211,14 +212,16 @@ export function parseLeapSecondsList(text: string, sourceName = 'leap-seconds.li
     if (raw.startsWith('#@')) {
       const match = /^#@\s*(\d+)\s*$/.exec(raw);
       if (!match) throw new ParseError(sourceName, line, 3, 'an expiry line "#@ <NTP seconds>"', raw);
-      expiryMjd = ntpDay(match[1]!, line, raw.indexOf(match[1]!) + 1);
+      const seconds = at(match, 1, 'expiry line match');
+      expiryMjd = ntpDay(seconds, line, raw.indexOf(seconds) + 1);
       return;
     }
     if (raw.startsWith('#') || raw.trim() === '') return;
     const match = /^\s*(\d+)\s+(\d+)\s*(#.*)?$/.exec(raw);
     if (!match)
       throw new ParseError(sourceName, line, 1, 'a data line "<NTP seconds> <TAI-UTC seconds> # <date>"', raw);
-    entries.push({ mjd: ntpDay(match[1]!, line, raw.indexOf(match[1]!) + 1), taiMinusUtc: Number(match[2]) });
+    const seconds = at(match, 1, 'data line match');
+    entries.push({ mjd: ntpDay(seconds, line, raw.indexOf(seconds) + 1), taiMinusUtc: Number(match[2]) });
   });
   if (expiryMjd === undefined) {
     throw new ParseError(

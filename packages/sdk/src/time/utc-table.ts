@@ -6,6 +6,7 @@
  * @internal
  */
 import { OutOfDomainError } from '../errors.js';
+import { at } from '../internal/checked.js';
 import { civilFromDays, isoDateOfMjd, MAX_MJD, MIN_MJD } from './calendar.js';
 import { INSTANT_EPOCH_MJD, Instant } from './instant.js';
 import type { LeapSecondEntry, LeapSecondTable } from './leap-seconds.js';
@@ -70,7 +71,7 @@ export class UtcTable {
   /** Index of the entry in force on UTC day `mjd` (caller checked the range). */
   entryIndexOnDay(mjd: number): number {
     let i = this.entries.length - 1;
-    while (i > 0 && this.entries[i]!.mjd > mjd) i--;
+    while (i > 0 && at(this.entries, i, 'entries').mjd > mjd) i--;
     return i;
   }
 
@@ -92,7 +93,7 @@ export class UtcTable {
     if (instant.taiSeconds < this.validFromTai) throw this.outOfDomain('instant', instant.toString(), true);
     if (instant.taiSeconds >= this.validUntilTai) throw this.outOfDomain('instant', instant.toString(), false);
     let i = this.entries.length - 1;
-    while (i > 0 && this.entryStartTai[i]! > instant.taiSeconds) i--;
+    while (i > 0 && at(this.entryStartTai, i, 'entryStartTai') > instant.taiSeconds) i--;
     return i;
   }
 
