@@ -51,7 +51,8 @@ export interface ClockFilterSeries {
 }
 
 /** Options of {@link runClockFilter}. */
-export interface ClockFilterRunOptions extends Omit<ClockKalmanOptions, 'initial'> {
+/** The series carries the epoch (`series.epoch`), so the options do not. */
+export interface ClockFilterRunOptions extends Omit<ClockKalmanOptions, 'initial' | 'epoch'> {
   /**
    * Initial estimate at the first epoch. Default: state [z₀, 0(, 0)] from the first valid sample,
    * covariance diag(R₀, initialFrequencyStd²(, initialDriftStd²)).

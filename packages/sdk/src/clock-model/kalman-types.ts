@@ -7,6 +7,7 @@
 import { InvalidArgumentError } from '../errors.js';
 import { at } from '../internal/checked.js';
 import { MAX_ABS_PHASE_SECONDS, requireFinite, requireInRange, requireNonNegative } from '../internal/validate.js';
+import type { Instant } from '../time/instant.js';
 import type { Dimensionless, Seconds } from '../units.js';
 import { add, cholesky, congruence, type Matrix, multiplyVector } from './linalg.js';
 import {
@@ -19,7 +20,10 @@ import {
 
 /** A clock-state estimate: mean and covariance at a time. */
 export interface ClockEstimate {
-  /** Epoch of the estimate, in seconds (any fixed origin, the same for every call). */
+  /**
+   * Time of the estimate, in SI seconds since an epoch fixed by the caller and the same for every call:
+   * for {@link ClockKalmanFilter} its `epoch`, for `runClockFilter` the series `epoch`.
+   */
   readonly t: Seconds;
   /** Mean [x (s), y (dimensionless)(, d (1/s))]; its length (2 or 3) sets the model. */
   readonly state: readonly number[];
@@ -230,7 +234,7 @@ export function requireStep(step: unknown, states: ClockStates): [number, number
 export interface DetectedJump {
   /** `phase` (a step in x, size in s) or `frequency` (a step in y, dimensionless). */
   readonly kind: 'phase' | 'frequency';
-  /** Epoch (time of the measurement update) at which the step had taken effect, in seconds. */
+  /** Time of the measurement update at which the step had taken effect, in SI seconds since the filter's (or series') epoch. */
   readonly epoch: Seconds;
   /** Index of that measurement update (counting every update call, rejected ones included, from 0). */
   readonly updateIndex: number;
@@ -248,7 +252,7 @@ export interface DetectedJump {
 
 /** A measurement declared an outlier (removed from the estimate after the fact). */
 export interface DetectedOutlier {
-  /** Epoch of the outlying measurement, in seconds. */
+  /** Time of the outlying measurement, in SI seconds since the filter's (or series') epoch. */
   readonly epoch: Seconds;
   /** Index of its measurement update. */
   readonly updateIndex: number;
@@ -282,9 +286,15 @@ export interface JumpDetectionOptions {
 
 /** Options of {@link ClockKalmanFilter}. */
 export interface ClockKalmanOptions {
+  /**
+   * The instant of t = 0 (required): `initial.t` and every time the filter takes or reports (`predict(t)`,
+   * `step(t, …)`, `estimate.t`, `ClockUpdate.t`, forecasts, jump and outlier epochs) are SI seconds since
+   * it. Exposed as `filter.epoch`; the filter runs on the seconds, so the numbers do not depend on it.
+   */
+  readonly epoch: Instant;
   /** Diffusion coefficients q1 (s), q2 (1/s), q3 (1/s³; 0 for 2 states). */
   readonly q: ClockDiffusion;
-  /** Initial estimate; its state length (2 or 3) selects the model. */
+  /** Initial estimate (its `t` in seconds since `epoch`); its state length (2 or 3) selects the model. */
   readonly initial: ClockEstimate;
   /**
    * Probability that a good measurement is declared an outlier: the GLR statistic of the impulse
@@ -300,7 +310,7 @@ export interface ClockKalmanOptions {
 
 /** Result of one measurement update. */
 export interface ClockUpdate {
-  /** Update epoch, in seconds. */
+  /** Time of the update, in SI seconds since the filter's `epoch`. */
   readonly t: Seconds;
   /** Index of this update (0 for the first). */
   readonly updateIndex: number;

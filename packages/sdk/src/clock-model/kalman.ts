@@ -3,6 +3,7 @@
  * detection of outliers and of phase and frequency jumps, and prediction with covariance over a horizon.
  *
  * State units: x phase (time error) in s, y fractional frequency (dimensionless), d drift in 1/s.
+ * Times are SI seconds since the filter's `epoch` (an {@link Instant}, the instant of t = 0).
  *
  * @module
  */
@@ -15,6 +16,7 @@ import {
   requireMeasurementVariance,
   requirePhaseSample,
 } from '../internal/validate.js';
+import type { Instant } from '../time/instant.js';
 import type { Seconds } from '../units.js';
 import { type CoreEvents, FilterCore } from './kalman-core.js';
 import { estimateOf } from './kalman-estimate.js';
@@ -33,6 +35,7 @@ import {
   requireStep,
 } from './kalman-types.js';
 import { type ClockDiffusion, type ClockStates, requireDiffusion } from './noise.js';
+import { requireSeriesEpoch } from './series-epoch.js';
 
 /** Most stringent NIS hold-out: a measurement is held at once only when NIS exceeds χ²(1) at 1e-9 (or at outlierProbability if smaller). */
 const HOLD_PROBABILITY = 1e-9;
@@ -147,22 +150,29 @@ export function toOutlier(d: GlrDecision, declaredAt: number): DetectedOutlier {
  * measurements: the outlier left out, or the jump added at θ with a practically flat prior on its size.
  * Only a measurement with NIS above the χ²(1) quantile at min(outlierProbability, 1e-9) is held out at
  * once, pending its decision.
+ *
+ * Time: the filter is constructed on an `epoch` (an {@link Instant}, the instant of t = 0). Every `t` it
+ * takes or reports — `initial.t`, `predict(t)`, `step(t, …)`, `estimate.t`, `ClockUpdate.t`, forecast `t`,
+ * jump and outlier `epoch` — is SI seconds since that epoch; the absolute instant is `filter.epoch.plus(t)`.
+ * The filter runs on the seconds only: the same seconds give the same numbers whatever the epoch.
  */
 export class ClockKalmanFilter {
+  private readonly _epoch: Instant;
   private readonly _q: Required<ClockDiffusion>;
   private readonly _states: ClockStates;
   private readonly _core: FilterCore;
   private readonly _settings: ClockDetectionSettings;
 
   /**
-   * @param options  See {@link ClockKalmanOptions}.
-   * @throws {InvalidArgumentError} for a malformed initial estimate, negative q, q3 > 0 with a 2-state
+   * @param options  See {@link ClockKalmanOptions}; `epoch` (an Instant, the instant of t = 0) is required.
+   * @throws {InvalidArgumentError} for a missing `epoch` (with a hint) or one that is not an Instant, a malformed initial estimate, negative q, q3 > 0 with a 2-state
    *         estimate, outlierProbability outside [1e-15, 0.5], or detector settings out of range
    *         (window integer in [2, 10000], minEpochs integer in [2, window], falseAlarmProbability in [1e-15, 0.5]).
    */
   constructor(options: ClockKalmanOptions) {
     if (typeof options !== 'object' || options === null)
-      throw new InvalidArgumentError('options', options, 'filter options { q, initial, ... }');
+      throw new InvalidArgumentError('options', options, 'filter options { epoch, q, initial, ... }');
+    this._epoch = requireSeriesEpoch('epoch', options.epoch);
     const e = requireEstimate('initial', options.initial);
     this._q = requireDiffusion('q', options.q);
     checkQForStates(this._q, e.states, 'q');
@@ -172,12 +182,17 @@ export class ClockKalmanFilter {
     this._core = new FilterCore(this._q, e.t, e.mean, e.upper, settings.holdGate, detector);
   }
 
+  /** The instant of t = 0: every `t` the filter takes or reports is SI seconds since it. */
+  get epoch(): Instant {
+    return this._epoch;
+  }
+
   /** Number of states (2 or 3). */
   get states(): ClockStates {
     return this._states;
   }
 
-  /** Current estimate (a copy). */
+  /** Current estimate (a copy); its `t` is in seconds since {@link ClockKalmanFilter.epoch}. */
   get estimate(): ClockEstimate {
     return estimateOf(this._core, this._states);
   }
@@ -195,9 +210,9 @@ export class ClockKalmanFilter {
   /**
    * Advances the filter to time `t` (time update only).
    *
-   * @param t  New epoch, in seconds, ≥ the current epoch.
+   * @param t  New time, in SI seconds since {@link ClockKalmanFilter.epoch}, ≥ the current time.
    * @returns The predicted estimate.
-   * @throws {InvalidArgumentError} if |t| > 1e12 s (MAX_ABS_PHASE_SECONDS), t is not a number, or t is before the current epoch.
+   * @throws {InvalidArgumentError} if |t| > 1e12 s (MAX_ABS_PHASE_SECONDS), t is not a number, or t is before the current time.
    */
   predict(t: Seconds): ClockEstimate {
     requireInRange('t', t, -MAX_ABS_PHASE_SECONDS, MAX_ABS_PHASE_SECONDS, { unit: 's (an epoch)' });
@@ -205,7 +220,7 @@ export class ClockKalmanFilter {
       throw new InvalidArgumentError(
         't',
         t,
-        `a time ≥ the filter epoch ${this._core.t} s (the filter does not run backwards)`,
+        `a time ≥ the filter's current time ${this._core.t} s since its epoch (the filter does not run backwards)`,
       );
     this._core.predictTo(t);
     return this.estimate;
@@ -216,7 +231,8 @@ export class ClockKalmanFilter {
    *
    * @param phase     Measured phase (time error), in seconds.
    * @param variance  Its variance R, in s², > 0.
-   * @returns {@link ClockUpdate}: status, innovation, its variance, NIS, any jump or outlier declared, new estimate.
+   * @returns {@link ClockUpdate}: time (s since `epoch`), status, innovation, its variance, NIS, any jump or
+   *          outlier declared, new estimate.
    * @throws {InvalidArgumentError} if |phase| > 1e12 s or is not a number, or variance is outside [1e-40, 1e24] s².
    */
   update(phase: Seconds, variance: number): ClockUpdate {
@@ -230,12 +246,10 @@ export class ClockKalmanFilter {
     const leftOut = c.update(z, r, events);
     const innovation = c.liveNu;
     const s = c.liveS;
-    const jump = events.jumps.length
-      ? toJump(events.jumps[events.jumps.length - 1] as GlrDecision, index, this._settings.jumpThreshold)
-      : undefined;
-    const out = events.outliers.length
-      ? toOutlier(events.outliers[events.outliers.length - 1] as GlrDecision, index)
-      : undefined;
+    const lastJump = events.jumps.at(-1);
+    const lastOutlier = events.outliers.at(-1);
+    const jump = lastJump === undefined ? undefined : toJump(lastJump, index, this._settings.jumpThreshold);
+    const out = lastOutlier === undefined ? undefined : toOutlier(lastOutlier, index);
     return {
       t,
       updateIndex: index,
@@ -253,7 +267,7 @@ export class ClockKalmanFilter {
   /**
    * Time update to `t` followed by a measurement update.
    *
-   * @param t         Measurement epoch, in seconds, ≥ the current epoch.
+   * @param t         Measurement time, in SI seconds since {@link ClockKalmanFilter.epoch}, ≥ the current time.
    * @param phase     Measured phase, in seconds.
    * @param variance  Measurement variance, in s², > 0.
    * @returns {@link ClockUpdate}.
@@ -268,7 +282,7 @@ export class ClockKalmanFilter {
    * Predictions from the current estimate at several horizons (the filter is not changed).
    *
    * @param horizons  Horizons ≥ 0, in seconds.
-   * @returns One {@link ClockForecast} per horizon.
+   * @returns One {@link ClockForecast} per horizon; its `t` is in seconds since {@link ClockKalmanFilter.epoch}.
    * @throws {InvalidArgumentError} for a negative or NaN horizon.
    */
   forecast(horizons: readonly Seconds[]): ClockForecast[] {

@@ -190,7 +190,8 @@ function requireEstimates(value: unknown, now: number): ClockOffsetEstimate[] {
 /**
  * Runs the clock Kalman filter from the scenario's epoch estimate over `estimates` (each a phase
  * measurement with its variance), applying `jumps` (executed commands, manoeuvres) as known
- * steps at their epochs, and returns the estimate at `now`, before any jump at `now`.
+ * steps at their epochs, and returns the estimate at `now`, before any jump at `now`. The filter's
+ * `epoch` is the scenario epoch: estimate, jump and `now` times are seconds since it.
  */
 export function filterTo(
   norm: NormalizedScenario,
@@ -199,6 +200,7 @@ export function filterTo(
   now: number,
 ): StateEstimate {
   const filter = new ClockKalmanFilter({
+    epoch: norm.epoch,
     q: norm.noise,
     initial: { t: 0, state: norm.state0, covariance: norm.covariance0 },
     outlierProbability: false,

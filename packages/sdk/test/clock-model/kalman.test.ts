@@ -3,6 +3,8 @@ import { describe, expect, it } from 'vitest';
 import {
   applyClockStep,
   ClockKalmanFilter,
+  type ClockKalmanOptions,
+  type ClockUpdate,
   clockProcessNoise,
   fitClockPolynomial,
   forecastClock,
@@ -10,6 +12,7 @@ import {
   simulateClock,
 } from '../../src/clock-model/index.js';
 import { InvalidArgumentError } from '../../src/errors.js';
+import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant } from '../../src/time/index.js';
 import { EPOCH } from './test-epoch.js';
 
 const Q3 = { q1: 1e-22, q2: 1e-28, q3: 1e-36 };
@@ -186,6 +189,7 @@ describe('ClockKalmanFilter', () => {
     const t = Array.from({ length: 30 }, (_, i) => i * 10);
     const x = t.map((ti, i) => 3e-9 + 2e-12 * ti + ((i % 3) - 1) * 1e-10);
     const f = new ClockKalmanFilter({
+      epoch: EPOCH,
       q: { q1: 0, q2: 0 },
       initial: {
         t: 0,
@@ -208,6 +212,7 @@ describe('ClockKalmanFilter', () => {
   });
   it('ClockKalmanFilter.update reports innovation, its variance P⁻₁₁ + R and NIS = ν²/S (Kalman 1960)', () => {
     const f = new ClockKalmanFilter({
+      epoch: EPOCH,
       q: Q3,
       initial: {
         t: 0,
@@ -230,6 +235,7 @@ describe('ClockKalmanFilter', () => {
   });
   it('ClockKalmanFilter rejects a measurement above the χ²(1) gate, reports it and keeps the prediction', () => {
     const f = new ClockKalmanFilter({
+      epoch: EPOCH,
       q: Q3,
       initial: { t: 0, state: [0, 0, 0], covariance: zero3 },
       outlierProbability: 1e-3,
@@ -240,6 +246,7 @@ describe('ClockKalmanFilter', () => {
     expect(u.status).toBe('rejected');
     expect(u.estimate.state).toEqual(before.state);
     const off = new ClockKalmanFilter({
+      epoch: EPOCH,
       q: Q3,
       initial: { t: 0, state: [0, 0, 0], covariance: zero3 },
       outlierProbability: false,
@@ -249,7 +256,11 @@ describe('ClockKalmanFilter', () => {
     expect(off.step(1, 1e-8, 1e-20).status).toBe('accepted');
   });
   it('ClockKalmanFilter.applyStep and forecast serve a planner: a known frequency step moves the forecast phase by step × horizon', () => {
-    const f = new ClockKalmanFilter({ q: Q3, initial: { t: 0, state: [1e-9, 1e-13, 0], covariance: zero3 } });
+    const f = new ClockKalmanFilter({
+      epoch: EPOCH,
+      q: Q3,
+      initial: { t: 0, state: [1e-9, 1e-13, 0], covariance: zero3 },
+    });
     const a = f.forecast([86400])[0]!;
     f.applyStep({ frequency: -1e-13, phase: -1e-9 });
     const b = f.forecast([86400])[0]!;
@@ -260,10 +271,11 @@ describe('ClockKalmanFilter', () => {
   it('ClockKalmanFilter rejects bad options and calls', () => {
     const initial = { t: 0, state: [0, 0, 0], covariance: zero3 };
     expect(() => new ClockKalmanFilter(null as never)).toThrow(InvalidArgumentError);
-    expect(() => new ClockKalmanFilter({ q: { q1: -1, q2: 0 }, initial })).toThrow(InvalidArgumentError);
+    expect(() => new ClockKalmanFilter({ epoch: EPOCH, q: { q1: -1, q2: 0 }, initial })).toThrow(InvalidArgumentError);
     expect(
       () =>
         new ClockKalmanFilter({
+          epoch: EPOCH,
           q: Q3,
           initial: {
             t: 0,
@@ -275,21 +287,90 @@ describe('ClockKalmanFilter', () => {
           },
         }),
     ).toThrow(InvalidArgumentError);
-    expect(() => new ClockKalmanFilter({ q: Q3, initial, outlierProbability: 0.9 })).toThrow(InvalidArgumentError);
-    expect(() => new ClockKalmanFilter({ q: Q3, initial, jumpDetection: { window: 1 } })).toThrow(InvalidArgumentError);
-    expect(() => new ClockKalmanFilter({ q: Q3, initial, jumpDetection: { window: 5, minEpochs: 6 } })).toThrow(
+    expect(() => new ClockKalmanFilter({ epoch: EPOCH, q: Q3, initial, outlierProbability: 0.9 })).toThrow(
       InvalidArgumentError,
     );
-    expect(() => new ClockKalmanFilter({ q: Q3, initial, jumpDetection: { falseAlarmProbability: 0 } })).toThrow(
+    expect(() => new ClockKalmanFilter({ epoch: EPOCH, q: Q3, initial, jumpDetection: { window: 1 } })).toThrow(
       InvalidArgumentError,
     );
-    expect(() => new ClockKalmanFilter({ q: Q3, initial, jumpDetection: 3 as never })).toThrow(InvalidArgumentError);
-    const f = new ClockKalmanFilter({ q: Q3, initial: { ...initial, t: 10 } });
+    expect(
+      () => new ClockKalmanFilter({ epoch: EPOCH, q: Q3, initial, jumpDetection: { window: 5, minEpochs: 6 } }),
+    ).toThrow(InvalidArgumentError);
+    expect(
+      () => new ClockKalmanFilter({ epoch: EPOCH, q: Q3, initial, jumpDetection: { falseAlarmProbability: 0 } }),
+    ).toThrow(InvalidArgumentError);
+    expect(() => new ClockKalmanFilter({ epoch: EPOCH, q: Q3, initial, jumpDetection: 3 as never })).toThrow(
+      InvalidArgumentError,
+    );
+    const f = new ClockKalmanFilter({ epoch: EPOCH, q: Q3, initial: { ...initial, t: 10 } });
     expect(() => f.predict(5)).toThrow(/does not run backwards/);
     expect(() => f.predict(Number.NaN)).toThrow(InvalidArgumentError);
     expect(() => f.update(Number.NaN, 1e-20)).toThrow(InvalidArgumentError);
     expect(() => f.update(0, 0)).toThrow(InvalidArgumentError);
     expect(() => f.forecast([-1])).toThrow(InvalidArgumentError);
+  });
+});
+
+describe('ClockKalmanFilter on its epoch', () => {
+  const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
+  const initial = {
+    t: 0,
+    state: [1e-9, 1e-12, 0],
+    covariance: [
+      [1e-18, 0, 0],
+      [0, 1e-24, 0],
+      [0, 0, 1e-36],
+    ],
+  };
+  const run = (epoch: Instant): { filter: ClockKalmanFilter; updates: ClockUpdate[] } => {
+    const filter = new ClockKalmanFilter({ epoch, q: Q3, initial });
+    const updates = [300, 600, 900, 1200].map((t, k) => filter.step(t, 1e-9 + 3e-10 * k, 1e-20));
+    return { filter, updates };
+  };
+
+  it('new ClockKalmanFilter({ epoch }) exposes the Instant itself as filter.epoch', () => {
+    const { filter } = run(EPOCH);
+    expect(filter.epoch).toBe(EPOCH);
+  });
+
+  it('ClockKalmanFilter gives the same numbers for any epoch: it runs on the seconds since it (Object.is on every field)', () => {
+    const a = run(EPOCH);
+    const b = run(ts.parseIso('2031-07-01T00:00:00', 'GPS'));
+    expect(b.updates).toEqual(a.updates);
+    expect(b.filter.estimate).toEqual(a.filter.estimate);
+    expect(b.filter.forecast([3600, 86_400])).toEqual(a.filter.forecast([3600, 86_400]));
+  });
+
+  it('filter.epoch.plus(update.t) reads 2027-02-08T06:00:00 GPS + 1200 s = 06:20:00 GPS (hand computation [C])', () => {
+    const { filter, updates } = run(EPOCH);
+    const last = updates.at(-1);
+    expect(last?.t).toBe(1200);
+    expect(ts.formatIso(filter.epoch.plus(last?.t ?? Number.NaN), { scale: 'GPS', fractionDigits: 0 })).toBe(
+      '2027-02-08T06:20:00',
+    );
+    const [forecast] = filter.forecast([3600]);
+    expect(ts.formatIso(filter.epoch.plus(forecast?.t ?? Number.NaN), { scale: 'GPS', fractionDigits: 0 })).toBe(
+      '2027-02-08T07:20:00',
+    );
+  });
+
+  it('new ClockKalmanFilter without an epoch throws InvalidArgumentError naming epoch, with the parseIso hint of the batch functions', () => {
+    const bare = { q: Q3, initial } as unknown as ClockKalmanOptions;
+    expect(() => new ClockKalmanFilter(bare)).toThrow(InvalidArgumentError);
+    try {
+      new ClockKalmanFilter(bare);
+    } catch (error) {
+      expect((error as InvalidArgumentError).argument).toBe('epoch');
+      expect((error as InvalidArgumentError).message).toMatch(/required.*parseIso\('2027-02-08T06:00:00', 'GPS'\)/);
+    }
+  });
+
+  it('new ClockKalmanFilter({ epoch: 0 }) and ({ epoch: ISO text }) throw InvalidArgumentError naming epoch', () => {
+    for (const bad of [0, '2027-02-08T06:00:00Z', null, {}]) {
+      const options = { epoch: bad, q: Q3, initial } as unknown as ClockKalmanOptions;
+      expect(() => new ClockKalmanFilter(options)).toThrow(InvalidArgumentError);
+      expect(() => new ClockKalmanFilter(options)).toThrow(/epoch/);
+    }
   });
 });
 

@@ -324,7 +324,7 @@ export const INSTANCES: Readonly<Record<string, () => object>> = {
   RinexNavParser: () => new RinexNavParser({ sourceName: 'n.rnx' }),
   Sp3Parser: () => new Sp3Parser({ sourceName: 'o.sp3' }),
   PreciseCorrectionStream: () => new PreciseCorrectionStream({ epochInterval: 900 }),
-  ClockKalmanFilter: () => new ClockKalmanFilter({ q: Q2, initial: ESTIMATE }),
+  ClockKalmanFilter: () => new ClockKalmanFilter({ epoch: passEpoch(), q: Q2, initial: ESTIMATE }),
   RinexClockParser: () => new RinexClockParser({ sourceName: 'c.clk' }),
   RinexClockSeriesCollector: () => new RinexClockSeriesCollector('c.clk', 'G05'),
   'createTimeScales()': () => createTimeScales(BUNDLED_LEAP_SECONDS),

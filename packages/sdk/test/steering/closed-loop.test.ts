@@ -14,6 +14,7 @@ import {
 import { LeanClockFilter } from '../../src/steering/lean-filter.js';
 import { runPlanner } from '../../src/steering/plan.js';
 import { makeReplanner } from '../../src/steering/replan.js';
+import { EPOCH } from '../clock-model/test-epoch.js';
 import { baseScenario, example } from './helpers.js';
 
 const EPOCH_MS = Date.parse('2027-03-01T00:00:00Z');
@@ -104,7 +105,7 @@ describe('closed-loop operations (fast-check, seed 20261203)', () => {
         [0, 0, 1e-38],
       ] satisfies Matrix3,
     };
-    const full = new ClockKalmanFilter({ q, initial, outlierProbability: false, jumpDetection: false });
+    const full = new ClockKalmanFilter({ epoch: EPOCH, q, initial, outlierProbability: false, jumpDetection: false });
     const lean = new LeanClockFilter(0, initial.state, initial.covariance, q);
     const rng = createRandom(42);
     for (let k = 1; k <= 200; k++) {
