@@ -1,5 +1,5 @@
 import type { ClockCharacterization } from '@tauline/sdk/clock-model';
-import { epochFormat } from './epochs.js';
+import { epochFormat, stampOf } from './epochs.js';
 import { FLIGHT_CAUTION, keyValueTable, sig } from './framework.js';
 import { fitTable } from './layout.js';
 import type { ClockRecord } from './records.js';
@@ -58,13 +58,18 @@ export function clockReport(result: ClockCharacterization, flags: ClockFlags) {
 }
 export type ClockReport = ReturnType<typeof clockReport>;
 
-/** The `--json` object. Epochs stay in seconds; a RINEX clock file adds ISO 8601 in its time system (…Iso fields). */
+/**
+ * The `--json` object. Epochs stay in seconds; a RINEX clock file adds ISO 8601 in its time system (…Iso fields).
+ * `input.epoch` (the instant of t = 0) and `polynomial.referenceEpoch` (t_oc) are `{ iso, scale }`: ISO 8601 text
+ * read on `scale` (the file's time system, or for `--epoch` UTC when given with a zone, else GPS).
+ */
 export function clockJson(
   rec: ClockRecord,
   t: Float64Array,
   result: ClockCharacterization,
   report: ClockReport,
   flags: ClockFlags,
+  scale: string,
 ) {
   const epoch = epochFormat(rec);
   const isoOf = (name: string, value: number): Record<string, string> => {
@@ -90,6 +95,7 @@ export function clockJson(
       ...(epoch.scale === undefined
         ? {}
         : { epochUnits: `seconds since 1980-01-06T00:00:00 ${epoch.scale}; …Iso fields: ISO 8601 in ${epoch.scale}` }),
+      epoch: stampOf(result.epoch, scale),
     },
     measurementNoise: {
       sigma: Math.sqrt(mn.filterVariance),
@@ -103,6 +109,7 @@ export function clockJson(
       degree: flags.degree,
       referenceTime: result.referenceTime,
       ...isoOf('referenceTime', result.referenceTime),
+      referenceEpoch: stampOf(result.referenceEpoch, scale),
       coefficients: report.coefficients,
       residualRms: report.residualRms,
       reducedChiSquare: report.reducedChiSquare,
@@ -159,10 +166,17 @@ export function recordAndModelText(
   result: ClockCharacterization,
   report: ClockReport,
   flags: ClockFlags,
+  scale: string,
 ): void {
   const epoch = epochFormat(rec);
   const table = (headers: string[], rows: (string | number)[][]): string => fitTable(headers, rows, { width });
   const mn = result.measurementNoise;
+  // A RINEX file's t_oc already prints as a stamp in its time system; a text record's as a stamp and its seconds.
+  const referenceStamp = stampOf(result.referenceEpoch, scale);
+  const toc =
+    rec.flag === '--rinex-clock'
+      ? epoch.text(result.referenceTime)
+      : `${referenceStamp.iso} ${referenceStamp.scale} (${epoch.text(result.referenceTime)} on the time column)`;
   out(
     `clock record ${rec.source}${rec.clock ? ` (clock ${rec.clock}${rec.timeSystem ? `, ${rec.timeSystem} time` : ''})` : ''}: ${rec.values.length} samples, τ0 = ${sig(rec.tau0)} s, ` +
       `epochs ${epoch.text(t[0] ?? 0)} … ${epoch.text(t[t.length - 1] ?? 0)}, ${rec.gaps.reduce((a, g) => a + g.missing, 0)} missing in ${rec.gaps.length} gap(s)\n`,
@@ -178,7 +192,7 @@ export function recordAndModelText(
   );
 
   out(
-    `Polynomial model x(t) = af0 + af1·(t − t_oc)${flags.degree === 2 ? ' + af2·(t − t_oc)²' : ''}, t_oc = ${epoch.text(result.referenceTime)}, degree ${flags.degree}, ${result.samplesUsed} samples\n`,
+    `Polynomial model x(t) = af0 + af1·(t − t_oc)${flags.degree === 2 ? ' + af2·(t − t_oc)²' : ''}, t_oc = ${toc}, degree ${flags.degree}, ${result.samplesUsed} samples\n`,
   );
   out(
     table(
@@ -331,8 +345,9 @@ export function clockText(
   result: ClockCharacterization,
   report: ClockReport,
   flags: ClockFlags,
+  scale: string,
 ): void {
-  recordAndModelText(out, width, rec, t, result, report, flags);
+  recordAndModelText(out, width, rec, t, result, report, flags, scale);
   noiseText(out, width, result, report, flags);
   filterText(out, rec, result, report, flags);
 }

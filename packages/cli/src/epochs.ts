@@ -5,6 +5,13 @@
  * its epochs stay seconds.
  */
 import { fieldsFromScaleSeconds, formatEpochFields } from '@tauline/sdk/io';
+import {
+  BUNDLED_LEAP_SECONDS,
+  createTimeScales,
+  formatFileEpoch,
+  type Instant,
+  type TimeScales,
+} from '@tauline/sdk/time';
 import { sig } from './framework.js';
 import type { ClockRecord } from './records.js';
 
@@ -43,4 +50,18 @@ export function epochFormat(record: Pick<ClockRecord, 'flag' | 'timeSystem'>): E
     scale,
     column: `epoch (${scale ?? 'file time'})`,
   };
+}
+
+/** An absolute epoch for JSON: ISO 8601 text (no zone designator) read on `scale`, a time-system code (GPS, UTC, …). */
+export interface Stamp {
+  readonly iso: string;
+  readonly scale: string;
+}
+
+let bundled: TimeScales | undefined;
+
+/** `instant` read on the time system `scale` (GPS, GAL, BDT, QZS, TAI, UTC, GLO), through the SDK's time helpers. */
+export function stampOf(instant: Instant, scale: string): Stamp {
+  bundled ??= createTimeScales(BUNDLED_LEAP_SECONDS);
+  return { iso: formatFileEpoch(bundled, instant, scale), scale };
 }

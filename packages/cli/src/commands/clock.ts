@@ -56,16 +56,23 @@ function uniformEpochs(n: number, tau0: number): Float64Array {
   return t;
 }
 
+/** The instant of t = 0 of a record and the time system its stamps are printed in. */
+interface RecordEpoch {
+  readonly instant: Instant;
+  /** A RINEX clock file's time system (GPS when the header names none, as the reader assumes); for `--epoch`, UTC when given with a zone, else GPS. */
+  readonly scale: string;
+}
+
 /**
  * The instant of t = 0 of the record's time axis: a RINEX clock file's own (1980-01-06T00:00:00 of its
  * time system), or `--epoch` for a text record, whose time column has no calendar.
  */
-function recordEpoch(args: ParsedArgs, rec: ClockRecord): Instant {
+function recordEpoch(args: ParsedArgs, rec: ClockRecord): RecordEpoch {
   const text = optionalFlag(args, 'epoch');
   if (rec.epoch !== undefined) {
     if (text !== undefined)
       throw new UsageError('--epoch is for a text record; a RINEX clock file places its epochs itself: leave it out');
-    return rec.epoch;
+    return { instant: rec.epoch, scale: rec.timeSystem ?? 'GPS' };
   }
   if (text === undefined) {
     throw new UsageError(
@@ -75,10 +82,12 @@ function recordEpoch(args: ParsedArgs, rec: ClockRecord): Instant {
   }
   // With a zone designator the text is UTC; without one it is a reading of GPS time.
   const utc = /(Z|[+-]\d\d:?\d\d)$/i.test(text);
-  return withFlagNames(
+  const scale = utc ? 'UTC' : 'GPS';
+  const instant = withFlagNames(
     () => '--epoch',
-    () => createTimeScales(BUNDLED_LEAP_SECONDS).parseIso(text, utc ? 'UTC' : 'GPS'),
+    () => createTimeScales(BUNDLED_LEAP_SECONDS).parseIso(text, scale),
   );
+  return { instant, scale };
 }
 
 function clockFlags(args: ParsedArgs, io: Io): ClockFlags {
@@ -200,7 +209,7 @@ is used as given, with a warning on stderr. Exit status: 0 success, 2 unusable i
         throw new UsageError(
           `--predict: ${p} s is before the last sample epoch ${lastT} s; predictions are for epochs after the record`,
         );
-    const epoch = recordEpoch(args, rec);
+    const { instant: epoch, scale } = recordEpoch(args, rec);
     // A record too short for the noise estimate is the file's fault: name the flag that gave it.
     const result = withFlagNames({ phase: rec.flag }, () =>
       characterizeClock(
@@ -217,8 +226,8 @@ is used as given, with a warning on stderr. Exit status: 0 success, 2 unusable i
     );
     bar.finish();
     const report = clockReport(result, flags);
-    if (flags.format === 'json') io.out(toJson(clockJson(rec, t, result, report, flags)));
-    else clockText(wrappedOut(io.out, outputWidth(args)), outputWidth(args), rec, t, result, report, flags);
+    if (flags.format === 'json') io.out(toJson(clockJson(rec, t, result, report, flags, scale)));
+    else clockText(wrappedOut(io.out, outputWidth(args)), outputWidth(args), rec, t, result, report, flags, scale);
     return EXIT_OK;
   },
 };

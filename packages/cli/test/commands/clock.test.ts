@@ -61,6 +61,34 @@ describe('tauline clock', () => {
     expect(j.polynomial.predictions[0].std).toBeGreaterThan(0);
   });
 
+  it('tauline clock --phase --epoch <GPS reading> --reference-time 3600 --json gives input.epoch and polynomial.referenceEpoch as ISO 8601 with their scale: 2027-02-08T06:00:00 GPS + 3600 s = 07:00:00 GPS (hand computation [C])', async () => {
+    const r = await run([
+      'clock',
+      '--phase',
+      EXAMPLE,
+      '--epoch',
+      '2027-02-08T06:00:00',
+      '--degree',
+      '1',
+      '--reference-time',
+      '3600',
+      '--json',
+    ]);
+    expect(r.status).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j.input.epoch).toEqual({ iso: '2027-02-08T06:00:00', scale: 'GPS' });
+    expect(j.polynomial.referenceTime).toBe(3600);
+    expect(j.polynomial.referenceEpoch).toEqual({ iso: '2027-02-08T07:00:00', scale: 'GPS' });
+  });
+
+  it('tauline clock --epoch <UTC with Z> --json reports the epoch and t_oc read on UTC, the scale it was given in', async () => {
+    const r = await run(['clock', '--phase', EXAMPLE, '--epoch', '2027-02-08T06:00:00Z', '--degree', '1', '--json']);
+    expect(r.status).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j.input.epoch).toEqual({ iso: '2027-02-08T06:00:00', scale: 'UTC' });
+    expect(j.polynomial.referenceEpoch).toEqual({ iso: '2027-02-08T06:00:00', scale: 'UTC' });
+  });
+
   it('tauline clock (table) names units, prints the flight caution, the jump and the scenario-noise snippet', async () => {
     const r = await run([
       'clock',
@@ -78,7 +106,9 @@ describe('tauline clock', () => {
     ]);
     expect(r.status).toBe(0);
     expect(r.out).toMatch(/af1 .* dimensionless/);
-    expect(r.out).toMatch(/x\(t\) = af0 \+ af1·\(t − t_oc\), t_oc = 0 s, degree 1/);
+    expect(r.out.replace(/\n/g, ' ')).toMatch(
+      /x\(t\) = af0 \+ af1·\(t − t_oc\), t_oc = 2027-02-08T06:00:00 GPS \(0 s on the time column\), degree 1/,
+    );
     expect(r.out).not.toMatch(/^af2/m);
     expect(r.out).toMatch(/Caution: verify these values/);
     expect(r.out).toMatch(/phase +750000 +2500/);
@@ -230,6 +260,9 @@ describe('tauline clock --rinex-clock <file> --clock <name>', () => {
     ]);
     expect(j.input).toMatchObject({ firstEpochIso: '2026-02-02T00:00:00', lastEpochIso: '2026-02-03T09:15:00' });
     expect(j.polynomial.referenceTimeIso).toBe('2026-02-02T00:00:00');
+    // The record's t = 0 is 1980-01-06T00:00:00 of the file's time system; t_oc is its first epoch (SOURCE.md).
+    expect(j.input.epoch).toEqual({ iso: '1980-01-06T00:00:00', scale: 'GPS' });
+    expect(j.polynomial.referenceEpoch).toEqual({ iso: '2026-02-02T00:00:00', scale: 'GPS' });
     expect(j.polynomial.samplesUsed).toBe(399);
     expect(j.polynomial.referenceTime).toBe(gpsSeconds('2026-02-02T00:00:00'));
     const af1 = j.polynomial.coefficients[1];
