@@ -7,6 +7,8 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import {
   analyzeStability,
+  ClockKalmanFilter,
+  characterizeClock,
   createGravityField,
   defineConstantSet,
   deviations,
@@ -27,6 +29,7 @@ import {
   periodicCorrectionOnTimeGrid,
   planSteering,
   reviewOffsets,
+  runClockFilter,
   simulateClock,
   simulatePlan,
   tcgRateVsTT,
@@ -225,4 +228,35 @@ describe('one options convention: a constant set is { constants } in the trailin
     expect(gps).not.toBe(iers);
     expect(Math.abs(gps / iers - Math.sqrt(GPS_ICD.gm / IERS_2010.gm))).toBeLessThan(1e-15);
   });
+});
+
+describe('a clock-model entry point without its epoch names the field and says how to give one (ADR 23, common practice, no source)', () => {
+  const t = [0, 300, 600, 900, 1200, 1500, 1800, 2100, 2400, 2700, 3000, 3300, 3600, 3900, 4200, 4500];
+  const phase = t.map((ti) => 1e-9 + 1e-13 * ti);
+  const initial = {
+    t: 0,
+    state: [0, 0],
+    covariance: [
+      [1e-18, 0],
+      [0, 1e-24],
+    ],
+  };
+  const cases: [string, string, () => unknown][] = [
+    [
+      'runClockFilter',
+      'series.epoch',
+      () => runClockFilter({ phase, t, variance: 1e-20 } as never, { q: { q1: 1e-23, q2: 1e-31 } }),
+    ],
+    ['characterizeClock', 'record.epoch', () => characterizeClock({ phase, t, tau0: 300 } as never)],
+    ['fitClockPolynomial', 'series.epoch', () => fitClockPolynomial({ phase, t } as never)],
+    ['ClockKalmanFilter', 'epoch', () => new ClockKalmanFilter({ q: { q1: 1e-23, q2: 1e-31 }, initial } as never)],
+  ];
+  it.each(cases)(
+    '%s without an epoch throws InvalidArgumentError naming %s with the parseIso hint',
+    (_name, field, call) => {
+      const error = invalid(call);
+      expect(error.argument).toBe(field);
+      expect(error.message).toMatch(/required.*parseIso\('2027-02-08T06:00:00', 'GPS'\)/);
+    },
+  );
 });
