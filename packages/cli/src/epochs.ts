@@ -4,6 +4,7 @@
  * (converted by the SDK, no calendar arithmetic here). A text record's time column has no calendar:
  * its epochs stay seconds.
  */
+import { OutOfDomainError } from '@tauline/sdk/errors';
 import { fieldsFromScaleSeconds, formatEpochFields } from '@tauline/sdk/io';
 import {
   BUNDLED_LEAP_SECONDS,
@@ -60,8 +61,17 @@ export interface Stamp {
 
 let bundled: TimeScales | undefined;
 
-/** `instant` read on the time system `scale` (GPS, GAL, BDT, QZS, TAI, UTC, GLO), through the SDK's time helpers. */
+/**
+ * `instant` read on the time system `scale` (GPS, GAL, BDT, QZS, TAI, UTC, GLO), through the SDK's time helpers.
+ * A UTC-based reading (UTC, GLO) outside the leap-second table is given on GPS time instead, and says so in `scale`
+ * (the seconds fields beside it need no table; failing the command over a stamp would lose them).
+ */
 export function stampOf(instant: Instant, scale: string): Stamp {
   bundled ??= createTimeScales(BUNDLED_LEAP_SECONDS);
-  return { iso: formatFileEpoch(bundled, instant, scale), scale };
+  try {
+    return { iso: formatFileEpoch(bundled, instant, scale), scale };
+  } catch (error) {
+    if (!(error instanceof OutOfDomainError)) throw error;
+    return { iso: formatFileEpoch(bundled, instant, 'GPS'), scale: 'GPS' };
+  }
 }

@@ -89,6 +89,25 @@ describe('tauline clock', () => {
     expect(j.polynomial.referenceEpoch).toEqual({ iso: '2027-02-08T06:00:00', scale: 'UTC' });
   });
 
+  it('tauline clock --epoch 2027-06-20T00:00:00Z --reference-time 1200000 --json reads a t_oc past the leap-second table (2027-06-28) on GPS time: UTC + 1 200 000 s + 18 s = 2027-07-03T21:20:18 GPS (GPS − UTC = 18 s since 2017, IERS Bulletin C [M]; hand computation [C])', async () => {
+    const r = await run([
+      'clock',
+      '--phase',
+      EXAMPLE,
+      '--epoch',
+      '2027-06-20T00:00:00Z',
+      '--degree',
+      '1',
+      '--reference-time',
+      '1200000',
+      '--json',
+    ]);
+    expect(r.status).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j.input.epoch).toEqual({ iso: '2027-06-20T00:00:00', scale: 'UTC' });
+    expect(j.polynomial.referenceEpoch).toEqual({ iso: '2027-07-03T21:20:18', scale: 'GPS' });
+  });
+
   it('tauline clock (table) names units, prints the flight caution, the jump and the scenario-noise snippet', async () => {
     const r = await run([
       'clock',
