@@ -43,6 +43,7 @@ describe('tauline-rate-budget', () => {
     expect(caution.getAttribute('role')).to.equal('note');
     expect(caution.textContent!.trim()).to.equal(FLIGHT_CONFIGURATION_CAUTION);
     const bar = el.shadowRoot!.querySelector('th.bar-col')! as HTMLElement;
+    // biome-ignore lint/performance/useDomNodeTextContent: innerText is the rendered (visible) text, which this checks.
     expect(bar.innerText.trim()).to.match(/^Size and sign/);
   });
 

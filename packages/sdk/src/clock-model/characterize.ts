@@ -31,7 +31,7 @@ import type { ClockDetectionSettings } from './kalman.js';
 import { runClockFilter } from './kalman-run.js';
 import type { DetectedJump } from './kalman-types.js';
 import type { ClockStates } from './noise.js';
-import { type ClockPolynomial, fitClockPolynomial } from './polynomial.js';
+import { type ClockPhaseSeries, type ClockPolynomial, fitClockPolynomial } from './polynomial.js';
 import { type PolynomialNoiseCovariance, polynomialNoiseCovariance } from './polynomial-noise.js';
 import { requireSeriesEpoch } from './series-epoch.js';
 
@@ -189,51 +189,74 @@ export function clockMeasurementNoise(
   };
 }
 
+/** The events {@link correctPhaseJumps} takes out of a record, as a filter pass declared them. */
+export interface DeclaredClockEvents {
+  /** Declared jumps (`updateIndex` a sample index of the record, `epoch` in the record's seconds). */
+  readonly jumps: readonly DetectedJump[];
+  /** Indices of samples declared outliers. */
+  readonly rejected: readonly number[];
+}
+
+/** A phase series on its epoch, as {@link correctPhaseJumps} returns it. */
+export interface CorrectedPhaseSeries {
+  /** The instant of t = 0 (the input's). */
+  readonly epoch: Instant;
+  /** Epochs, in seconds since `epoch` (the input's values, copied). */
+  readonly t: Float64Array;
+  /** Corrected phase, in seconds; NaN missing or rejected. */
+  readonly phase: Float64Array;
+}
+
 /**
  * A phase record with declared events taken out: from each jump's update sample on, a phase jump ν̂
  * is subtracted (x − ν̂) and a frequency jump as the ramp ν̂·(t − θ) from its epoch θ (the GLR jump
  * models of Willsky & Jones, IEEE TAC 21(1) 1976 [V2]); rejected samples become NaN (missing).
- * @param phase    Phase samples, in seconds (NaN missing).
- * @param t        Their epochs, in seconds (same axis as the jumps' `epoch`).
- * @param jumps    Declared jumps (`updateIndex` a sample index of this record).
- * @param rejected Indices of samples declared outliers.
- * @returns A new array; the input is not changed.
+ * @param series   `epoch` (Instant of t = 0), `t` (seconds since it, the jumps' `epoch` axis) and `phase`
+ *                 (seconds, NaN missing), one per epoch.
+ * @param events   Declared jumps and rejected sample indices.
+ * @returns A new series on the same epoch; the input is not changed.
+ * @throws {InvalidArgumentError} naming the field for a missing epoch, mismatched lengths, a bad sample,
+ *   or a jump or rejected index outside the record.
  */
-export function correctPhaseJumps(
-  phase: ArrayLike<number>,
-  t: ArrayLike<number>,
-  jumps: readonly DetectedJump[],
-  rejected: readonly number[],
-): Float64Array {
+export function correctPhaseJumps(series: ClockPhaseSeries, events: DeclaredClockEvents): CorrectedPhaseSeries {
+  if (typeof series !== 'object' || series === null)
+    throw new InvalidArgumentError('series', series, 'an object { epoch, t, phase }');
+  const epoch = requireSeriesEpoch('series.epoch', series.epoch);
+  requireObject('events', events, 'an object { jumps, rejected }');
+  const { phase, t } = series;
   if (!phase || typeof phase.length !== 'number')
-    throw new InvalidArgumentError('phase', phase, 'an array of phases in seconds (NaN missing)');
+    throw new InvalidArgumentError('series.phase', phase, 'an array of phases in seconds (NaN missing)');
   if (!t || t.length !== phase.length)
-    throw new InvalidArgumentError('t', t, `${phase.length} epochs in seconds (one per phase sample)`);
-  if (!Array.isArray(jumps)) throw new InvalidArgumentError('jumps', jumps, 'an array of detected jumps');
-  if (!Array.isArray(rejected)) throw new InvalidArgumentError('rejected', rejected, 'an array of sample indices');
+    throw new InvalidArgumentError('series.t', t, `${phase.length} epochs in seconds (one per phase sample)`);
+  const { jumps, rejected } = events;
+  if (!Array.isArray(jumps)) throw new InvalidArgumentError('events.jumps', jumps, 'an array of detected jumps');
+  if (!Array.isArray(rejected))
+    throw new InvalidArgumentError('events.rejected', rejected, 'an array of sample indices');
   const out = new Float64Array(phase.length);
   const times = new Float64Array(phase.length);
   for (let k = 0; k < out.length; k++) {
-    out[k] = requirePhaseSample(`phase[${k}]`, phase[k], true);
-    times[k] = requirePhaseSample(`t[${k}]`, t[k], false);
+    out[k] = requirePhaseSample(`series.phase[${k}]`, phase[k], true);
+    times[k] = requirePhaseSample(`series.t[${k}]`, t[k], false);
   }
   for (const [i, j] of jumps.entries()) {
-    requireObject(`jumps[${i}]`, j, 'a detected jump { kind, size, epoch, updateIndex }');
+    const name = `events.jumps[${i}]`;
+    requireObject(name, j, 'a detected jump { kind, size, epoch, updateIndex }');
     if (j.kind !== 'phase' && j.kind !== 'frequency')
-      throw new InvalidArgumentError(`jumps[${i}].kind`, j.kind, '"phase" or "frequency"');
-    requireInteger(`jumps[${i}].updateIndex`, j.updateIndex, 0, out.length - 1);
-    requireInRange(`jumps[${i}].size`, j.size, -MAX_ABS_PHASE_SECONDS, MAX_ABS_PHASE_SECONDS, {
+      throw new InvalidArgumentError(`${name}.kind`, j.kind, '"phase" or "frequency"');
+    requireInteger(`${name}.updateIndex`, j.updateIndex, 0, out.length - 1);
+    requireInRange(`${name}.size`, j.size, -MAX_ABS_PHASE_SECONDS, MAX_ABS_PHASE_SECONDS, {
       unit: j.kind === 'phase' ? 's' : '(fractional frequency)',
     });
-    requirePhaseSample(`jumps[${i}].epoch`, j.epoch, false);
+    requirePhaseSample(`${name}.epoch`, j.epoch, false);
     const after = out.subarray(j.updateIndex);
     const afterTimes = times.subarray(j.updateIndex);
     for (const [k, x] of after.entries()) {
       after[k] = x - (j.kind === 'phase' ? j.size : j.size * (at(afterTimes, k, 't') - j.epoch));
     }
   }
-  for (const [i, k] of rejected.entries()) out[requireInteger(`rejected[${i}]`, k, 0, out.length - 1)] = Number.NaN;
-  return out;
+  for (const [i, k] of rejected.entries())
+    out[requireInteger(`events.rejected[${i}]`, k, 0, out.length - 1)] = Number.NaN;
+  return { epoch, t: times, phase: out };
 }
 
 interface PassSettings {
@@ -282,13 +305,16 @@ function characterizePass(
     measurementVariance: s.noise.varianceInNoiseFit,
     measurementVarianceStd: s.noise.varianceInNoiseFitStd,
   });
-  const polynomialNoise = polynomialNoiseCovariance(tv, {
-    degree: s.degree,
-    referenceTime: s.referenceTime,
-    q: noise.q,
-    measurementVariance: s.noise.varianceInNoiseFit,
-    predict: s.predict,
-  });
+  const polynomialNoise = polynomialNoiseCovariance(
+    { epoch, t: tv },
+    {
+      degree: s.degree,
+      referenceTime: s.referenceTime,
+      q: noise.q,
+      measurementVariance: s.noise.varianceInNoiseFit,
+      predict: s.predict,
+    },
+  );
   const run = runClockFilter({ epoch, phase, t, variance: s.noise.filterVariance }, { q: noise.q, states: s.states });
   if (run.detection === undefined) throw new RangeError('runClockFilter reports its detection settings');
   // Keep only what is reported, so that a pass's per-epoch arrays are freed before the next pass.
@@ -382,11 +408,9 @@ export function characterizeClock(
     passes.push({ pass, jumps: [...f.jumps], rejected: f.rejected });
     if ((f.jumps.length === 0 && f.rejected.length === 0) || pass === maxPasses) break;
     current = correctPhaseJumps(
-      current,
-      t,
-      f.jumps,
-      f.rejected.map((r) => r.index),
-    );
+      { epoch, t, phase: current },
+      { jumps: f.jumps, rejected: f.rejected.map((r) => r.index) },
+    ).phase;
     result = characterizePass(current, t, tau0, epoch, settings);
   }
   return {

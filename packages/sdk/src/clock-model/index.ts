@@ -13,9 +13,11 @@ export {
   type ClockMeasurementNoise,
   type ClockPassEvents,
   type ClockPhaseRecord,
+  type CorrectedPhaseSeries,
   characterizeClock,
   clockMeasurementNoise,
   correctPhaseJumps,
+  type DeclaredClockEvents,
   type RejectedClockSample,
 } from './characterize.js';
 export {
@@ -75,6 +77,7 @@ export {
   fitClockPolynomial,
 } from './polynomial.js';
 export {
+  type ClockSampleTimes,
   type PolynomialNoiseCovariance,
   type PolynomialNoiseOptions,
   polynomialNoiseCovariance,

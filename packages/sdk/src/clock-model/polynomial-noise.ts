@@ -7,26 +7,40 @@
 import { InvalidArgumentError } from '../errors.js';
 import { at, last } from '../internal/checked.js';
 import { requireFinite, requireNonNegative } from '../internal/validate.js';
+import type { Instant } from '../time/instant.js';
 import type { Seconds } from '../units.js';
 import { element, inverseSpd, type Matrix, quadraticForm } from './linalg.js';
 import { type ClockDiffusion, type ClockStates, clockProcessNoise, requireDiffusion } from './noise.js';
+import { requireSeriesEpoch } from './series-epoch.js';
+
+/** The sample epochs of a fit: `t` seconds after `epoch`. */
+export interface ClockSampleTimes {
+  /** The instant of t = 0 (required); `t`, `referenceTime` and prediction epochs are seconds since it. */
+  readonly epoch: Instant;
+  /** Epochs of the samples used in the fit, in seconds since `epoch`, strictly increasing. */
+  readonly t: ArrayLike<number>;
+}
 
 /** Options of {@link polynomialNoiseCovariance}. */
 export interface PolynomialNoiseOptions {
   /** Degree of the (unweighted) fit, 1 or 2. */
   readonly degree: 1 | 2;
-  /** Reference epoch t0 of the coefficients, in seconds. */
+  /** Reference epoch t0 of the coefficients, in seconds since the series' `epoch`. */
   readonly referenceTime: Seconds;
   /** Diffusion coefficients of the clock noise: q1 (s), q2 (1/s), q3 (1/s³). */
   readonly q: ClockDiffusion;
   /** Variance of white measurement noise, in s² (default 0). */
   readonly measurementVariance?: number;
-  /** Epochs (s), each ≥ the last sample epoch, at which the prediction error is wanted. */
+  /** Epochs (seconds since the series' `epoch`), each ≥ the last sample epoch, at which the prediction error is wanted. */
   readonly predict?: readonly Seconds[];
 }
 
 /** Result of {@link polynomialNoiseCovariance}. */
 export interface PolynomialNoiseCovariance {
+  /** The series' epoch: the instant of t = 0. */
+  readonly epoch: Instant;
+  /** Reference epoch t0 of the coefficients as an instant: `epoch.plus(referenceTime)`. */
+  readonly referenceEpoch: Instant;
   /** Covariance of [a0 (s), a1, a2 (1/s)] at the reference epoch ((degree + 1) square). */
   readonly covariance: Matrix;
   /** √diag(covariance): 1σ of a0 (s), a1 (dimensionless), a2 (1/s). */
@@ -50,19 +64,23 @@ export interface PolynomialNoiseCovariance {
  * the last sample. The white-noise formula (AᵀA)⁻¹σ² ignores the correlation of x and understates
  * these uncertainties for a clock with random-walk noise.
  *
- * @param t        Epochs of the samples used in the fit, in seconds, strictly increasing (at least degree + 1).
- * @param options  Degree, reference epoch (s), q, measurement variance (s²), prediction epochs (s).
+ * @param series   `epoch` (Instant of t = 0) and `t`, the epochs of the samples used in the fit, in seconds since
+ *                 it, strictly increasing (at least degree + 1).
+ * @param options  Degree, reference epoch (s since `epoch`), q, measurement variance (s²), prediction epochs (s).
  * @returns {@link PolynomialNoiseCovariance}.
- * @throws {InvalidArgumentError} for too few or non-increasing epochs, degree not 1/2, a bad q or variance,
+ * @throws {InvalidArgumentError} for a missing epoch, too few or non-increasing epochs, degree not 1/2, a bad q or variance,
  *         or a prediction epoch before the last sample.
  * @see Zucca & Tavella, IEEE Trans. UFFC 52(2), 289–296 (2005) [M citation] (Φ, Q; verified by simulation [C]); covariance of a
  *      linear estimator ℓᵀz is ℓᵀΣℓ (standard linear algebra).
  */
 export function polynomialNoiseCovariance(
-  t: ArrayLike<number>,
+  series: ClockSampleTimes,
   options: PolynomialNoiseOptions,
 ): PolynomialNoiseCovariance {
-  const { tt, degree, t0, q, states, r, predict } = readInputs(t, options);
+  if (typeof series !== 'object' || series === null)
+    throw new InvalidArgumentError('series', series, 'an object { epoch, t }');
+  const epoch = requireSeriesEpoch('series.epoch', series.epoch);
+  const { tt, degree, t0, q, states, r, predict } = readInputs(series.t, options);
   const p = degree + 1;
   const n = tt.length;
   // Centred, scaled basis u = (t − c)/s, as in fitClockPolynomial.
@@ -100,28 +118,35 @@ export function polynomialNoiseCovariance(
     const after = element(clockProcessNoise(T - last(tt, 't'), q, states), 0, 0);
     return Math.sqrt(Math.max(element(cov, p + j, p + j) + after, 0));
   });
-  return { covariance, std: covariance.map((row, i) => Math.sqrt(Math.max(at(row, i, 'covariance'), 0))), predictStd };
+  return {
+    epoch,
+    referenceEpoch: epoch.plus(t0),
+    covariance,
+    std: covariance.map((row, i) => Math.sqrt(Math.max(at(row, i, 'covariance'), 0))),
+    predictStd,
+  };
 }
 
 /** Validated inputs of {@link polynomialNoiseCovariance}. */
 function readInputs(t: ArrayLike<number>, options: PolynomialNoiseOptions) {
-  if (!t || typeof t.length !== 'number') throw new InvalidArgumentError('t', t, 'an array of epochs in seconds');
+  if (!t || typeof t.length !== 'number')
+    throw new InvalidArgumentError('series.t', t, 'an array of epochs in seconds since series.epoch');
   if (typeof options !== 'object' || options === null)
     throw new InvalidArgumentError('options', options, 'an options object { degree, referenceTime, q, ... }');
   const degree = options.degree;
   if (degree !== 1 && degree !== 2) throw new InvalidArgumentError('options.degree', degree, '1 or 2');
   const p = degree + 1;
   const n = t.length;
-  if (n < p) throw new InvalidArgumentError('t', n, `at least ${p} epochs for a degree-${degree} fit`);
+  if (n < p) throw new InvalidArgumentError('series.t', n, `at least ${p} epochs for a degree-${degree} fit`);
   const tt = new Float64Array(n);
   let previous = Number.NaN;
   for (let k = 0; k < n; k++) {
-    const tk = requireFinite(`t[${k}]`, t[k], 'a finite epoch in seconds');
+    const tk = requireFinite(`series.t[${k}]`, t[k], 'a finite epoch in seconds');
     if (k > 0 && !(tk > previous))
       throw new InvalidArgumentError(
-        `t[${k}]`,
+        `series.t[${k}]`,
         tk,
-        `greater than t[${k - 1}] = ${previous} (strictly increasing epochs)`,
+        `greater than series.t[${k - 1}] = ${previous} (strictly increasing epochs)`,
       );
     tt[k] = tk;
     previous = tk;
@@ -191,7 +216,11 @@ function functionals(
       ];
   const ninv = inverseSpd(normal);
   if (!ninv)
-    throw new InvalidArgumentError('t', `${n} epochs`, `at least ${p} distinct epochs for a degree-${p - 1} fit`);
+    throw new InvalidArgumentError(
+      'series.t',
+      `${n} epochs`,
+      `at least ${p} distinct epochs for a degree-${p - 1} fit`,
+    );
   // Row i of (AᵀA)⁻¹Aᵀ at epoch k: Σ_j (AᵀA)⁻¹_ij·basis_j(t_k), summed over j in order.
   const rows = ninv.map((ni) => {
     const c0 = at(ni, 0, 'ninv[i]');

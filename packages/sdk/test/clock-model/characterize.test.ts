@@ -108,7 +108,7 @@ describe('characterizeClock', () => {
 });
 
 describe('correctPhaseJumps', () => {
-  it('correctPhaseJumps(phase, t, jumps, rejected) subtracts a phase step from its sample on and a frequency step as ν·(t − θ), and blanks rejected samples (hand computation [C])', () => {
+  it('correctPhaseJumps({ epoch, t, phase }, { jumps, rejected }) subtracts a phase step from its sample on and a frequency step as ν·(t − θ), and blanks rejected samples (hand computation [C])', () => {
     const phase = [0, 0, 0, 0, 0];
     const t = [0, 10, 20, 30, 40];
     const jumps = [
@@ -133,13 +133,15 @@ describe('correctPhaseJumps', () => {
         threshold: 30,
       },
     ];
-    const out = correctPhaseJumps(phase, t, jumps, [2]);
+    const out = correctPhaseJumps({ epoch: EPOCH, t, phase }, { jumps, rejected: [2] });
     // k = 3: −2 − 0.5·(30 − 25) = −4.5; k = 4: −2 − 0.5·(40 − 25) = −9.5.
-    expect(Array.from(out)).toEqual([0, -2, Number.NaN, -4.5, -9.5]);
+    expect(Array.from(out.phase)).toEqual([0, -2, Number.NaN, -4.5, -9.5]);
+    expect(Array.from(out.t)).toEqual(t);
+    expect(out.epoch).toBe(EPOCH);
     expect(phase).toEqual([0, 0, 0, 0, 0]);
   });
 
-  it('correctPhaseJumps refuses a jump or rejected index outside the record', () => {
+  it('correctPhaseJumps refuses a series without its epoch, and a jump or rejected index outside the record', () => {
     const jump = {
       kind: 'phase' as const,
       size: 1,
@@ -150,8 +152,13 @@ describe('correctPhaseJumps', () => {
       statistic: 0,
       threshold: 30,
     };
-    expect(() => correctPhaseJumps([0, 0], [0, 1], [jump], [])).toThrow(/jumps\[0\]\.updateIndex/);
-    expect(() => correctPhaseJumps([0, 0], [0, 1], [], [2])).toThrow(/rejected\[0\]/);
+    const series = { epoch: EPOCH, t: [0, 1], phase: [0, 0] };
+    expect(() => correctPhaseJumps(series, { jumps: [jump], rejected: [] })).toThrow(/events\.jumps\[0\]\.updateIndex/);
+    expect(() => correctPhaseJumps(series, { jumps: [], rejected: [2] })).toThrow(/events\.rejected\[0\]/);
+    expect(() => correctPhaseJumps({ t: [0, 1], phase: [0, 0] } as never, { jumps: [], rejected: [] })).toThrow(
+      /series\.epoch.*parseIso/s,
+    );
+    expect(() => correctPhaseJumps({ ...series, t: [0] }, { jumps: [], rejected: [] })).toThrow(/series\.t/);
   });
 });
 

@@ -10,7 +10,7 @@ import { InvalidArgumentError } from '../../src/errors.js';
 import { EPOCH } from './test-epoch.js';
 
 describe('polynomialNoiseCovariance', () => {
-  it('polynomialNoiseCovariance(t, { degree: 2, q, R }) gives the Monte-Carlo spread of a0, a1, a2 and of a 1-day prediction (400 seeded clocks)', () => {
+  it('polynomialNoiseCovariance({ epoch, t }, { degree: 2, q, R }) gives the Monte-Carlo spread of a0, a1, a2 and of a 1-day prediction (400 seeded clocks)', () => {
     const runs = 400;
     const n = 500;
     const tau0 = 300;
@@ -18,13 +18,16 @@ describe('polynomialNoiseCovariance', () => {
     const sv = 50e-12;
     const t = Float64Array.from({ length: n }, (_, k) => k * tau0);
     const T = (n - 1) * tau0 + 86400;
-    const model = polynomialNoiseCovariance(t, {
-      degree: 2,
-      referenceTime: 0,
-      q,
-      measurementVariance: sv * sv,
-      predict: [T],
-    });
+    const model = polynomialNoiseCovariance(
+      { epoch: EPOCH, t },
+      {
+        degree: 2,
+        referenceTime: 0,
+        q,
+        measurementVariance: sv * sv,
+        predict: [T],
+      },
+    );
     const err: number[][] = [[], [], [], []];
     for (let r = 0; r < runs; r++) {
       const sim = simulateClock({
@@ -57,31 +60,50 @@ describe('polynomialNoiseCovariance', () => {
       { epoch: EPOCH, t: t, phase: t.map((v) => 1e-9 + 1e-12 * v) },
       { degree: 1, variance: 4e-20, referenceTime: 100 },
     );
-    const model = polynomialNoiseCovariance(t, {
-      degree: 1,
-      referenceTime: 100,
-      q: { q1: 0, q2: 0 },
-      measurementVariance: 4e-20,
-    });
+    const model = polynomialNoiseCovariance(
+      { epoch: EPOCH, t },
+      {
+        degree: 1,
+        referenceTime: 100,
+        q: { q1: 0, q2: 0 },
+        measurementVariance: 4e-20,
+      },
+    );
     for (let i = 0; i < 2; i++)
       for (let j = 0; j < 2; j++) expect(model.covariance[i]![j]! / fit.covariance[i]![j]!).toBeCloseTo(1, 9);
+    expect(model.epoch).toBe(EPOCH);
+    expect(model.referenceEpoch.secondsSince(EPOCH)).toBe(100);
+    expect(model.referenceEpoch.secondsSince(fit.referenceEpoch)).toBe(0);
   });
 
   it('polynomialNoiseCovariance rejects bad epochs, degree, q, variance and predictions inside the record', () => {
     const q = { q1: 1e-23, q2: 0 };
-    expect(() => polynomialNoiseCovariance([0, 1], { degree: 2, referenceTime: 0, q })).toThrow(InvalidArgumentError);
-    expect(() => polynomialNoiseCovariance([0, 2, 1], { degree: 1, referenceTime: 0, q })).toThrow(
-      /strictly increasing/,
+    expect(() => polynomialNoiseCovariance({ epoch: EPOCH, t: [0, 1] }, { degree: 2, referenceTime: 0, q })).toThrow(
+      InvalidArgumentError,
     );
-    expect(() => polynomialNoiseCovariance([0, 1, 2], { degree: 3 as never, referenceTime: 0, q })).toThrow(/degree/);
-    expect(() => polynomialNoiseCovariance([0, 1, 2], { degree: 1, referenceTime: 0, q: { q1: -1, q2: 0 } })).toThrow(
-      /q1/,
+    expect(() => polynomialNoiseCovariance({ epoch: EPOCH, t: [0, 2, 1] }, { degree: 1, referenceTime: 0, q })).toThrow(
+      /series\.t\[2\].*strictly increasing/s,
     );
     expect(() =>
-      polynomialNoiseCovariance([0, 1, 2], { degree: 1, referenceTime: 0, q, measurementVariance: -1 }),
+      polynomialNoiseCovariance({ epoch: EPOCH, t: [0, 1, 2] }, { degree: 3 as never, referenceTime: 0, q }),
+    ).toThrow(/degree/);
+    expect(() =>
+      polynomialNoiseCovariance({ epoch: EPOCH, t: [0, 1, 2] }, { degree: 1, referenceTime: 0, q: { q1: -1, q2: 0 } }),
+    ).toThrow(/q1/);
+    expect(() =>
+      polynomialNoiseCovariance(
+        { epoch: EPOCH, t: [0, 1, 2] },
+        { degree: 1, referenceTime: 0, q, measurementVariance: -1 },
+      ),
     ).toThrow(/measurementVariance/);
-    expect(() => polynomialNoiseCovariance([0, 1, 2], { degree: 1, referenceTime: 0, q, predict: [1] })).toThrow(
-      /last sample epoch/,
+    expect(() =>
+      polynomialNoiseCovariance({ epoch: EPOCH, t: [0, 1, 2] }, { degree: 1, referenceTime: 0, q, predict: [1] }),
+    ).toThrow(/last sample epoch/);
+    expect(() =>
+      polynomialNoiseCovariance({ epoch: EPOCH, t: 7 as never }, { degree: 1, referenceTime: 0, q }),
+    ).toThrow(/series\.t/);
+    expect(() => polynomialNoiseCovariance({ t: [0, 1, 2] } as never, { degree: 1, referenceTime: 0, q })).toThrow(
+      /series\.epoch.*parseIso/s,
     );
     expect(() => polynomialNoiseCovariance(7 as never, { degree: 1, referenceTime: 0, q })).toThrow(
       InvalidArgumentError,

@@ -75,7 +75,7 @@ const DOCUMENTED_NON_FINITE: Readonly<Record<string, RegExp>> = {
   frequencyFromPhase: /^result\[\d+\] = NaN$/,
   toPhaseSeries: /^result\.phase\[\d+\] = NaN$/,
   // correctPhaseJumps: "rejected samples become NaN (missing)".
-  correctPhaseJumps: /^result\[\d+\] = NaN$/,
+  correctPhaseJumps: /^result\.phase\[\d+\] = NaN$/,
   // ClockCharacterization.noise: a DiffusionInterval is "NaN when the coefficient is held at 0 or not resolved"; χ² and its
   // probability NaN when the covariance is singular or dof = 0; the polynomial's reduced χ² NaN when dof = 0.
   characterizeClock:

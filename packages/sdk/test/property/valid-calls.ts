@@ -306,9 +306,12 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
     { degree: 1, measurementSigma: 1e-11, maxPasses: 1 },
   ],
   clockMeasurementNoise: () => [1e-11, undefined],
-  correctPhaseJumps: () => [PHASE, TIMES, [], [3]],
+  correctPhaseJumps: () => [
+    { epoch: passEpoch(), t: TIMES, phase: PHASE },
+    { jumps: [], rejected: [3] },
+  ],
   polynomialNoiseCovariance: () => [
-    TIMES.slice(0, 16),
+    { epoch: passEpoch(), t: TIMES.slice(0, 16) },
     { degree: 1, referenceTime: 0, q: Q2, measurementVariance: 4e-20 },
   ],
 };
