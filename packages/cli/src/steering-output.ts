@@ -2,6 +2,7 @@
 
 /** Units of the plan's JSON fields (`units` in `tauline plan --json`, beside the SDK's `steeringPlanToJson(plan)`). */
 export const PLAN_UNITS = {
+  epoch: 'ISO 8601 UTC (the scenario epoch, origin of t and settledAfterSeconds)',
   uplinkAt: 'ISO 8601 UTC',
   executeAt: 'ISO 8601 UTC',
   fractionalFrequencyStep: 'dimensionless (Δf/f)',

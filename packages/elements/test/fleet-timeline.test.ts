@@ -87,6 +87,18 @@ describe('tauline-fleet-timeline', () => {
     }
   });
 
+  it('readFleetPlan(plan, fleet) refuses a plan whose epoch is not the fleet epoch, and reads one printed without an epoch', async () => {
+    const { fleet, plan } = await heldFleet();
+    expect(plan.epoch).to.equal(fleet.epoch);
+    const later = new Date(Date.parse(fleet.epoch) + 1000).toISOString().replace('.000Z', 'Z');
+    const other = readFleetPlan({ ...plan, epoch: later }, fleet);
+    expect(other.ok ? 'accepted' : other.error).to.equal(
+      `plan.epoch must be fleet.epoch "${fleet.epoch}" (the plan was made for another fleet); received "${later}"`,
+    );
+    const { epoch: _, ...older } = plan;
+    expect(readFleetPlan(older, fleet).ok).to.equal(true);
+  });
+
   it('erfc(x) and requiredBound(m, σ, p, z) agree with scipy (packages/elements/test/reference/fleet_margin_reference.py) [C]', () => {
     // [x, scipy.special.erfc(x)], scipy 1.17.1 [C]; Numerical Recipes' erfcc: fractional error < 1.2e-7.
     const erfcCases: Array<[number, number]> = [

@@ -126,7 +126,7 @@ export const planCommand: Command = {
     },
     'leap-seconds': LEAP_SECONDS_FLAG,
     ...formatFlags(TABLE_OR_JSON, {
-      json: 'Print the plan as JSON (feasible, reason, commands, predicted, metrics, units, caution); same as --format json.',
+      json: 'Print the plan as JSON (feasible, epoch, commands, predicted, metrics, caution, reason, units); same as --format json.',
     }),
   },
   details: `

@@ -29,7 +29,14 @@ describe('tauline fleet', () => {
     expect(r.err).toBe('');
     expect(r.status).toBe(0);
     const plan = JSON.parse(r.out) as Record<string, any>;
-    expect(Object.keys(plan).sort()).toEqual(['caution', 'feasible', 'satellites', 'stationSchedule', 'units']);
+    expect(Object.keys(plan).sort()).toEqual([
+      'caution',
+      'epoch',
+      'feasible',
+      'satellites',
+      'stationSchedule',
+      'units',
+    ]);
     expect(plan.feasible).toBe(true);
     expect(plan.caution).toMatch(/responsible engineering authority/);
     for (const s of plan.satellites) {

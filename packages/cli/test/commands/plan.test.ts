@@ -28,8 +28,19 @@ describe('tauline plan', () => {
     expect(r.err).toBe('');
     expect(r.status).toBe(0);
     const plan = JSON.parse(r.out) as Record<string, any>;
-    expect(Object.keys(plan).sort()).toEqual(['caution', 'commands', 'feasible', 'metrics', 'predicted', 'units']);
+    expect(Object.keys(plan).sort()).toEqual([
+      'caution',
+      'commands',
+      'epoch',
+      'feasible',
+      'metrics',
+      'predicted',
+      'units',
+    ]);
     expect(plan.feasible).toBe(true);
+    // The origin of predicted.t is named in the output itself (the scenario epoch, as given there).
+    expect(plan.epoch).toBe(JSON.parse(readFileSync(ORIN, 'utf8')).epoch);
+    expect(plan.units.epoch).toMatch(/^ISO 8601 UTC/);
     expect(Object.keys(plan.predicted).sort()).toEqual(['steered', 't', 'unsteered']);
     for (const c of plan.commands) {
       expect(Object.keys(c)).toEqual(

@@ -230,6 +230,13 @@ function readUnchecked(plan: unknown, fleetDoc: unknown, kept?: FleetDoc): Fleet
   const { timeScales, epoch } = fleet;
   const stamp = stampReader(timeScales, epoch);
   if (typeof p.feasible !== 'boolean') fail('plan.feasible', 'true or false', p.feasible);
+  // Plans printed before the JSON named its epoch have none; the fleet document's then stands alone.
+  if (p.epoch !== undefined && stamp('plan.epoch', p.epoch) !== 0)
+    fail(
+      'plan.epoch',
+      `fleet.epoch ${JSON.stringify((fleet.source as { epoch?: unknown }).epoch)} (the plan was made for another fleet)`,
+      p.epoch,
+    );
   const raw = arr('plan.satellites', p.satellites).map((s, i) => readSatellite(`plan.satellites[${i}]`, s, i, stamp));
   const count = fleet.satellites.length;
   if (raw.length !== count) fail('plan.satellites.length', `${count} (the satellites of the fleet)`, raw.length);

@@ -180,6 +180,14 @@ export function readPlan(
       };
     }
     const clock: PlanClock = { epoch, timeScales };
+    if (p.epoch !== undefined && elapsed(clock, p.epoch, 'plan.epoch') !== 0) {
+      return {
+        ok: false,
+        error:
+          `plan.epoch ${JSON.stringify(p.epoch)} is not scenario.epoch ${JSON.stringify(s.epoch)}: ` +
+          'the plan was made for another scenario (its times count from its own epoch)',
+      };
+    }
     const tol = s.tolerance.phaseSeconds;
     const invalid = nonFiniteColumns(columns);
     if (!(Number.isFinite(tol) && tol > 0)) {

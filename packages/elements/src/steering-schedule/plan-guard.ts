@@ -156,6 +156,8 @@ export function guardPlan(
     const p = object(plan, 'plan', 'the SteeringPlanJson of steeringPlanToJson(planSteering())');
     if (typeof p.feasible !== 'boolean') fail('plan.feasible', p.feasible, 'true or false');
     if (p.reason !== undefined) string(p.reason, 'plan.reason');
+    // Plans printed before the JSON named its epoch have none; the scenario's then stands alone.
+    if (p.epoch !== undefined) stampText(p.epoch, 'plan.epoch');
     const commands = array(p.commands, 'plan.commands').map((c, k) => command(c, `plan.commands[${k}]`));
     const predicted = object(p.predicted, 'plan.predicted', '{ t, steered, unsteered }');
     const t = column(predicted.t, 'plan.predicted.t');

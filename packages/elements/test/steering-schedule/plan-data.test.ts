@@ -20,7 +20,7 @@ describe('guardPlan(plan, scenario) (the SDK steering contract)', () => {
     const { scenario } = await orinPlan();
     const g = guardPlan(planSteering(scenario), scenario);
     expect(g.ok ? 'accepted' : describeFailure(g.failure)).to.equal(
-      'plan.commands[0].uplinkAt must be a string (pass steeringPlanToJson(plan), not the plan object); received object',
+      'plan.epoch must be a string (pass steeringPlanToJson(plan), not the plan object); received object',
     );
   });
 
@@ -67,6 +67,20 @@ describe('readPlan(plan, scenario) on the ORIN-3 plan', () => {
     expect(r.view.maneuvers.map((m) => m.at)).to.deep.equal(scenario.maneuvers!.map((m) => at(m.at)));
     expect(r.view.contacts).to.deep.equal(scenario.contacts.map((w) => ({ start: at(w.start), end: at(w.end) })));
     expect(r.view.caution).to.equal(plan.caution);
+  });
+
+  it('readPlan(plan, scenario) refuses a plan whose epoch is not the scenario epoch (made for another scenario), and reads one printed without an epoch', async () => {
+    const { plan, scenario } = await orinPlan();
+    expect(plan.epoch).to.equal(scenario.epoch);
+    const other = readPlan({ ...plan, epoch: '2027-02-08T06:00:01Z' }, scenario);
+    expect(other.ok ? 'accepted' : other.error).to.equal(
+      `plan.epoch "2027-02-08T06:00:01Z" is not scenario.epoch ${JSON.stringify(scenario.epoch)}: ` +
+        'the plan was made for another scenario (its times count from its own epoch)',
+    );
+    const { epoch: _, ...older } = plan;
+    expect(readPlan(older, scenario).ok).to.equal(true);
+    const bad = readPlan({ ...plan, epoch: 42 }, scenario);
+    expect(bad.ok ? 'accepted' : bad.error).to.contain('plan.epoch must be a string; received 42');
   });
 });
 

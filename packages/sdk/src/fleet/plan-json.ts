@@ -1,6 +1,6 @@
 /**
  * The JSON form of a fleet plan: every {@link Instant} printed as ISO 8601 UTC text (to the
- * millisecond, `:60` inside a leap second) and no `epoch` field. It is the `tauline fleet --json`
+ * millisecond, `:60` inside a leap second), the fleet epoch among them as `epoch`. It is the `tauline fleet --json`
  * output and what the fleet timeline element takes; its field names and order are a contract.
  *
  * @module
@@ -53,9 +53,11 @@ export interface StationSupportJson extends Omit<StationSupport, 'start' | 'end'
   end: string;
 }
 
-/** A fleet plan in JSON (fields in this order): as {@link FleetPlan} without `epoch`. */
+/** A fleet plan in JSON (fields in this order): as {@link FleetPlan}, `epoch` as ISO 8601 UTC text. */
 export interface FleetPlanJson {
   feasible: boolean;
+  /** The fleet epoch, ISO 8601 UTC: each satellite's `predicted.t` and `settledAfterSeconds` count from it. */
+  epoch: string;
   satellites: FleetSatellitePlanJson[];
   stationSchedule: StationSupportJson[];
   caution: string;
@@ -125,7 +127,7 @@ function supportToJson(w: JsonWriter, field: string, value: unknown): StationSup
 
 /**
  * The JSON form of a fleet plan: every Instant as ISO 8601 UTC text through the time module,
- * fields in the contract's order, no `epoch`. Every field is checked on the way (a plan from the
+ * the epoch included, fields in the contract's order. Every field is checked on the way (a plan from the
  * SDK always passes).
  *
  * @param plan     A plan from `planFleet`.
@@ -140,6 +142,7 @@ export function fleetPlanToJson(plan: FleetPlan, options: TimeScaleOptions = {})
   const { feasible, reason } = verdictOf('plan', p);
   return {
     feasible,
+    epoch: w.stamp('plan.epoch', p.epoch),
     satellites: requireArray('plan.satellites', p.satellites).map((s, i) =>
       satelliteToJson(w, `plan.satellites[${i}]`, s),
     ),

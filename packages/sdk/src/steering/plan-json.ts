@@ -1,8 +1,9 @@
 /**
  * The JSON form of a steering plan: the same plan with every {@link Instant} printed as ISO 8601
  * UTC text (`...Z`, to the millisecond, whole seconds without a fraction, `:60` inside a leap
- * second) and no `epoch` field. It is the `tauline plan --json` output and what the elements take;
- * its field names and order are a contract. `steeringCommandsFromJson` reads commands back.
+ * second), the scenario epoch among them as `epoch`, the origin of every relative time. It is the
+ * `tauline plan --json` output and what the elements take; its field names and order are a contract.
+ * `steeringCommandsFromJson` reads commands back.
  *
  * @module
  */
@@ -35,11 +36,13 @@ export interface SteeringCommandJson {
 }
 
 /**
- * A plan in JSON (fields in this order): as {@link SteeringPlan} without `epoch` (its relative
- * times stay elapsed SI seconds since the scenario epoch), commands as {@link SteeringCommandJson}.
+ * A plan in JSON (fields in this order): as {@link SteeringPlan}, `epoch` as ISO 8601 UTC text (its
+ * relative times stay elapsed SI seconds since it), commands as {@link SteeringCommandJson}.
  */
 export interface SteeringPlanJson {
   feasible: boolean;
+  /** The scenario epoch, ISO 8601 UTC: `predicted.t`, `settledAfterSeconds` and a revision's `nowSeconds` count from it. */
+  epoch: string;
   commands: SteeringCommandJson[];
   predicted: SteeringPlan['predicted'];
   metrics: SteeringMetrics;
@@ -162,8 +165,8 @@ function revisionToJson(w: JsonWriter, value: unknown): PlanRevisionJson {
 }
 
 /**
- * The JSON form of a plan (or of a revised plan, with its `revision`): every Instant as ISO 8601
- * UTC text through the time module, fields in the contract's order, no `epoch`. Every field is
+ * The JSON form of a plan (or of a revised plan, with its `revision`): every Instant (the epoch
+ * included) as ISO 8601 UTC text through the time module, fields in the contract's order. Every field is
  * checked on the way (a plan from the SDK always passes).
  *
  * @param plan     A plan from `planSteering`, `replanSteering` or a replanner.
@@ -183,6 +186,7 @@ export function steeringPlanToJson(
   const { feasible, reason } = verdictOf('plan', p);
   const json: SteeringPlanJson = {
     feasible,
+    epoch: w.stamp('plan.epoch', p.epoch),
     commands: requireArray('plan.commands', p.commands).map((c, i) => commandToJson(w, `plan.commands[${i}]`, c)),
     predicted: predictedToJson('plan.predicted', p.predicted),
     metrics: metricsToJson('plan.metrics', p.metrics),

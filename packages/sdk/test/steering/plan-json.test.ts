@@ -19,7 +19,8 @@ import { baseScenario, example } from './helpers.js';
 /**
  * Regression pins [C]: byte length and SHA-256 of JSON.stringify of each plan as the SDK returned it before the plan
  * object carried Instants (commit fb35a1e, when the plan object was its JSON form), computed with node:crypto on that
- * build. The JSON form must keep these bytes: it is the CLI's and the elements' contract.
+ * build. The JSON form must keep these bytes: it is the CLI's and the elements' contract. The one field added since,
+ * `epoch` (second, after `feasible`), is taken out before hashing and checked on its own.
  */
 const BEFORE: Readonly<Record<string, { bytes: number; sha256: string }>> = {
   'orin-3-meo optimal': { bytes: 62401, sha256: '3b75442ece332d811283f00090b66969e477cc3d29ea2d2d2cf58b4c4e7df6a8' },
@@ -68,16 +69,22 @@ function leapScenario(): SteeringScenario {
 describe('steeringPlanToJson and fleetPlanToJson', () => {
   for (const name of ['orin-3-meo', 'halcyr-g1-geo'] as const) {
     for (const strategy of ['optimal', 'deadband', 'none'] as SteeringMethod[]) {
-      it(`steeringPlanToJson(planSteering(${name}, ${strategy})) prints the bytes the plan printed before it carried Instants`, () => {
-        const json = JSON.stringify(steeringPlanToJson(planSteering(example(name), { strategy })));
-        expect(pin(json)).toEqual(BEFORE[`${name} ${strategy}`]);
+      it(`steeringPlanToJson(planSteering(${name}, ${strategy})) prints the scenario epoch, then the bytes the plan printed before it carried Instants`, () => {
+        const scenario = example(name);
+        const { epoch, ...rest } = steeringPlanToJson(planSteering(scenario, { strategy }));
+        expect(utc(epoch).equals(utc(scenario.epoch))).toBe(true);
+        expect(epoch).toMatch(/^\d{4}-\d\d-\d\dT\d\d:\d\d:\d\d(\.\d{3})?Z$/);
+        expect(pin(JSON.stringify(rest))).toEqual(BEFORE[`${name} ${strategy}`]);
       });
     }
   }
 
   for (const name of ['vesper-constellation', 'ashgrove-orbits']) {
-    it(`fleetPlanToJson(planFleet(${name})) prints the bytes the fleet plan printed before it carried Instants`, () => {
-      expect(pin(JSON.stringify(fleetPlanToJson(planFleet(fleetExample(name)))))).toEqual(BEFORE[name]);
+    it(`fleetPlanToJson(planFleet(${name})) prints the fleet epoch, then the bytes the fleet plan printed before it carried Instants`, () => {
+      const document = fleetExample(name);
+      const { epoch, ...rest } = fleetPlanToJson(planFleet(document));
+      expect(utc(epoch).equals(utc(document.epoch))).toBe(true);
+      expect(pin(JSON.stringify(rest))).toEqual(BEFORE[name]);
     });
   }
 
@@ -125,7 +132,7 @@ describe('steeringPlanToJson and fleetPlanToJson', () => {
     expect(revised.metrics.settledAfterSeconds).not.toBeNull();
     expect(revised.metrics.settledAfterSeconds!).toBeGreaterThanOrEqual(61_200);
     const json = steeringPlanToJson(revised);
-    expect(Object.keys(json).slice(0, 5)).toEqual(['feasible', 'commands', 'predicted', 'metrics', 'caution']);
+    expect(Object.keys(json).slice(0, 6)).toEqual(['feasible', 'epoch', 'commands', 'predicted', 'metrics', 'caution']);
     expect(Object.keys(json).at(-1)).toBe('revision');
     expect(Object.keys(json.revision)).toEqual(['nowSeconds', 'estimatesUsed', 'state', 'executed', 'superseded']);
     const all = [...json.revision.executed, ...json.revision.superseded];
