@@ -5,18 +5,12 @@
  *
  * @module
  */
-import {
-  type ConstantSet,
-  constantSet,
-  DEFAULT_CONSTANT_SET,
-  SECONDS_PER_DAY,
-  SPEED_OF_LIGHT_SQUARED,
-} from '../constants.js';
+import { type ConstantSet, constantSet, DEFAULT_CONSTANT_SET, SECONDS_PER_DAY } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
 import { MAX_SEED } from '../internal/random.js';
 import { requireInRange, requireInteger, requireOptions } from '../internal/validate.js';
 import { j2SecularClockRate, osculatingMinusMeanSemiMajorAxis } from '../relativity/j2.js';
-import { meanClockRate, type RateBreakdown, type ReferenceClock } from '../relativity/rate.js';
+import { meanClockRate, meanRateSensitivity, type RateBreakdown, type ReferenceClock } from '../relativity/rate.js';
 import { analyseDispersion } from './dispersion.js';
 import { fmt, mistakeDiagnoses, type OtherExpectation, offsetForRate, unexplainedDiagnosis } from './mistakes.js';
 import { parseConfigured, parseReviewInput, requireNominalFrequency } from './parse.js';
@@ -96,7 +90,7 @@ export function configuredFraction(
 /**
  * Size of the mean-rate ambiguity from osculating vs mean a under J2: the short-period amplitude
  * (3/2)J2 a_e²/a·sin²i of a_osc − ā (Brouwer 1959 [M], via {@link osculatingMinusMeanSemiMajorAxis})
- * times the rate sensitivity 3GM/(2a²c²) (derivative of IERS 2010 eq. 10.9 averaged, our own derivation [C]).
+ * times the rate sensitivity 3GM/(2a²c²) of {@link meanRateSensitivity} (derivative of IERS 2010 eq. 10.9 averaged).
  */
 function j2Ambiguity(
   a: number,
@@ -104,7 +98,7 @@ function j2Ambiguity(
   constants: ConstantSet,
 ): { metres: number; fractionalRate: number } {
   const metres = Math.abs(osculatingMinusMeanSemiMajorAxis(a, inclination, 0, { constants }));
-  return { metres, fractionalRate: ((3 * constants.gm) / (2 * a * a * SPEED_OF_LIGHT_SQUARED)) * metres };
+  return { metres, fractionalRate: meanRateSensitivity(a, constants.gm) * metres };
 }
 
 /**

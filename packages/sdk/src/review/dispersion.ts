@@ -4,10 +4,10 @@
  *
  * @internal
  */
-import { type ConstantSet, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED } from '../constants.js';
+import { type ConstantSet, SECONDS_PER_DAY } from '../constants.js';
 import { createRandom } from '../internal/random.js';
 import { normalCdf } from '../internal/special-functions.js';
-import type { ReferenceClock } from '../relativity/rate.js';
+import { meanRateSensitivity, offsetClockRate, type ReferenceClock } from '../relativity/rate.js';
 import { rateFor } from './mistakes.js';
 import type { DispersionAnalysis } from './types.js';
 
@@ -42,8 +42,9 @@ export interface DispersionCase {
  */
 export function analyseDispersion(c: DispersionCase): DispersionAnalysis {
   const { a0, sigma, set, reference, configured, actuatorRange, phaseTolerance, runs, seed, onProgress } = c;
-  // In orbit the configured oscillator runs at (1 + c)(1 + r(a)) − 1 against the reference (product of the two rates).
-  const residual = (a: number) => (1 + configured) * (1 + rateFor(a, set.gm, set.lG, reference)) - 1;
+  // In orbit the configured oscillator runs at (1 + c)(1 + r(a)) − 1 against the reference (product of the two
+  // rates), evaluated without cancellation by rate.ts's offsetClockRate: the product form lost everything below ~1e-16.
+  const residual = (a: number) => offsetClockRate(configured, rateFor(a, set.gm, set.lG, reference));
   // Unsteered phase walk-off |x(t)| = |r|·t reaches the tolerance after tol/|r| (elementary, common practice, no source).
   const days = (r: number) =>
     phaseTolerance === null
@@ -55,7 +56,7 @@ export function analyseDispersion(c: DispersionCase): DispersionAnalysis {
   const nominal = residual(a0);
   const plus = residual(a0 + 3 * sigma);
   const worst = Math.max(Math.abs(minus), Math.abs(plus), Math.abs(nominal));
-  // Closed form: a ~ N(a0, σ²) and residual(a) is strictly increasing in a (dr/da = 3GM/(2a²c²)·(1 + c) > 0),
+  // Closed form: a ~ N(a0, σ²) and residual(a) is strictly increasing in a (d/da = meanRateSensitivity·(1 + c) > 0),
   // so the p-quantile of the residual is residual(a0 + z_p σ) (quantile of a monotone function = function of
   // the quantile; elementary probability, common practice, no source).
   const percentiles = SIGMA_MULTIPLES.map((k) => {
@@ -80,7 +81,7 @@ export function analyseDispersion(c: DispersionCase): DispersionAnalysis {
   });
   return {
     semiMajorAxisSigma: sigma,
-    rateSensitivityPerMetre: (3 * set.gm) / (2 * a0 * a0 * SPEED_OF_LIGHT_SQUARED),
+    rateSensitivityPerMetre: meanRateSensitivity(a0, set.gm),
     residualAtMinus3Sigma: minus,
     residualNominal: nominal,
     residualAtPlus3Sigma: plus,
