@@ -343,7 +343,7 @@ function dispersionOf(
   index: number,
   ctx: ReviewContext,
 ): ReturnType<typeof analyseDispersion> | null {
-  const { sc, set, reference } = r;
+  const { sc, set, reference, j2 } = r;
   const { input, settings } = ctx;
   return sc.dispersion
     ? analyseDispersion({
@@ -351,6 +351,7 @@ function dispersionOf(
         sigma: sc.dispersion.semiMajorAxisSigma,
         set,
         reference,
+        j2Rate: j2,
         configured,
         actuatorRange: range ?? null,
         phaseTolerance: sc.phaseToleranceSeconds ?? input.phaseToleranceSeconds ?? null,

@@ -26,6 +26,11 @@ export interface DispersionCase {
   readonly sigma: number;
   readonly set: ConstantSet;
   readonly reference: ReferenceClock;
+  /**
+   * Secular J2 part of the rate at a0 (j2SecularClockRate's j2Correction; 0 when the kind of a is not stated), the
+   * term the expected offset includes. It scales as a⁻³ at fixed e, i and u (U_J2 and ⟨U_J2⟩ ∝ a⁻³ in its formula).
+   */
+  readonly j2Rate: number;
   /** Configured fractional offset. */
   readonly configured: number;
   readonly actuatorRange: number | null;
@@ -41,10 +46,12 @@ export interface DispersionCase {
  * their seeded Monte Carlo cross-check, the unsteered walk-off time and whether the actuator covers it.
  */
 export function analyseDispersion(c: DispersionCase): DispersionAnalysis {
-  const { a0, sigma, set, reference, configured, actuatorRange, phaseTolerance, runs, seed, onProgress } = c;
+  const { a0, sigma, set, reference, j2Rate, configured, actuatorRange, phaseTolerance, runs, seed, onProgress } = c;
   // In orbit the configured oscillator runs at (1 + c)(1 + r(a)) − 1 against the reference (product of the two
   // rates), evaluated without cancellation by rate.ts's offsetClockRate: the product form lost everything below ~1e-16.
-  const residual = (a: number) => offsetClockRate(configured, rateFor(a, set.gm, set.lG, reference));
+  // r(a) is the rate the expected offset compensates: the mean rate plus the J2 term when it is applied.
+  const rate = (a: number) => rateFor(a, set.gm, set.lG, reference) + j2Rate * (a0 / a) ** 3;
+  const residual = (a: number) => offsetClockRate(configured, rate(a));
   // Unsteered phase walk-off |x(t)| = |r|·t reaches the tolerance after tol/|r| (elementary, common practice, no source).
   const days = (r: number) =>
     phaseTolerance === null
@@ -56,7 +63,8 @@ export function analyseDispersion(c: DispersionCase): DispersionAnalysis {
   const nominal = residual(a0);
   const plus = residual(a0 + 3 * sigma);
   const worst = Math.max(Math.abs(minus), Math.abs(plus), Math.abs(nominal));
-  // Closed form: a ~ N(a0, σ²) and residual(a) is strictly increasing in a (d/da = meanRateSensitivity·(1 + c) > 0),
+  // Closed form: a ~ N(a0, σ²) and residual(a) is strictly increasing in a (d/da ≈ meanRateSensitivity·(1 + c) > 0; the
+  // J2 term's −3·j2Rate/a is ~1e-4 of it),
   // so the p-quantile of the residual is residual(a0 + z_p σ) (quantile of a monotone function = function of
   // the quantile; elementary probability, common practice, no source).
   const percentiles = SIGMA_MULTIPLES.map((k) => {

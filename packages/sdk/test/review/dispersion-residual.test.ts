@@ -1,5 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
+import { j2SecularClockRate, meanClockRate } from '../../src/relativity/index.js';
+import { reciprocalOffset } from '../../src/relativity/rate.js';
 import { reviewOffsets } from '../../src/review/index.js';
 
 const load = (name: string): unknown =>
@@ -89,9 +91,71 @@ describe('reviewOffsets(kestrel-block-a).dispersion against exact rational arith
   it('reviewOffsets(doc) gives KESTREL-01 a finite walk-off time at the nominal axis (the product form said never: Infinity)', () => {
     const d = report.spacecraft.find((f) => f.id === 'KESTREL-01')?.dispersion;
     const median = d?.percentiles.find((p) => p.percentile === 50);
-    // 1e-6 s / 2.5497646549735448e-17 / 86 400 s = 453 919 days (dispersion-residual.py values [C]).
+    // 1e-6 s / 2.5497646549735448e-17 / 86 400 s = 453 927 days (dispersion-residual.py values [C]).
     expect(
       Math.abs((median?.daysToPhaseTolerance ?? Number.NaN) - 1e-6 / 2.5497646549735448e-17 / 86_400),
     ).toBeLessThan(0.1);
   });
+});
+
+/**
+ * A KESTREL-01-like spacecraft whose kind of semi-major axis is stated, so the expected offset includes the secular
+ * J2 rate (j2SecularClockRate): the dispersion residual must compensate the same rate.
+ */
+function withKind(orbit: Record<string, unknown>): unknown {
+  return {
+    nominalFrequencyHz: 10_230_000,
+    tolerance: { fractional: 5e-13 },
+    phaseToleranceSeconds: 1e-6,
+    spacecraft: [
+      {
+        id: 'KESTREL-J2',
+        configured: { fractionalOffset: -4.486072e-10 },
+        orbit: { semiMajorAxis: 26_790_000, inclination: 0.9599, eccentricity: 0.001, ...orbit },
+        dispersion: { semiMajorAxisSigma: 1500 },
+      },
+    ],
+  };
+}
+
+describe('reviewOffsets(doc).dispersion with a stated kind of semi-major axis (the J2 term of the expected offset)', () => {
+  const cases = [
+    { kind: 'mean', orbit: { semiMajorAxisKind: 'mean' } },
+    { kind: 'osculating', orbit: { semiMajorAxisKind: 'osculating', argumentOfLatitude: 0.3 } },
+  ];
+  for (const { kind, orbit } of cases) {
+    it(`reviewOffsets(doc) (${kind} a) gives a nominal residual of difference × (1 + rate with J2), within 3e-25`, () => {
+      const f = reviewOffsets(withKind(orbit), { monteCarloRuns: 200 }).spacecraft[0];
+      const d = f?.dispersion;
+      if (!f || !d) throw new Error('no dispersion analysis');
+      expect(f.budget.j2Included).toBe(true);
+      expect(Math.abs(f.budget.j2)).toBeGreaterThan(1e-16);
+      // (1 + c)(1 + r) − 1 = (c − e)(1 + r) for e = −r/(1 + r) (algebraic identity); difference = c − e. Budget:
+      // the residual's 2e-25 (see TOLERANCE) plus the rounding of e (≤ 2.6e-26) carried by the difference.
+      const identity = f.differenceFractional * (1 + f.budget.fractionalRate);
+      expect(Math.abs(d.residualNominal - identity)).toBeLessThanOrEqual(3e-25);
+      // The residual used to leave the J2 term out: it was then off by the whole term.
+      expect(Math.abs(d.residualNominal - identity)).toBeLessThan(1e-3 * Math.abs(f.budget.j2));
+    });
+
+    it(`reviewOffsets(doc) (${kind} a) gives residuals at a0 ± 3σ that compensate j2SecularClockRate evaluated there, within 3e-25`, () => {
+      const f = reviewOffsets(withKind(orbit), { monteCarloRuns: 200 }).spacecraft[0];
+      const d = f?.dispersion;
+      if (!f || !d) throw new Error('no dispersion analysis');
+      for (const [a, residual] of [
+        [26_790_000 - 4500, d.residualAtMinus3Sigma],
+        [26_790_000 + 4500, d.residualAtPlus3Sigma],
+      ] as const) {
+        const j2 = j2SecularClockRate({
+          semiMajorAxis: a,
+          inclination: 0.9599,
+          eccentricity: 0.001,
+          ...(orbit as { semiMajorAxisKind: 'mean' | 'osculating' }),
+        }).j2Correction;
+        const r = meanClockRate(a).fractionalRate + j2;
+        const identity = (f.configuredFractionalOffset - reciprocalOffset(r)) * (1 + r);
+        expect(Math.abs(residual - identity)).toBeLessThanOrEqual(3e-25);
+      }
+    });
+  }
 });
