@@ -5,6 +5,7 @@
  * @internal
  */
 import { type ConstantSet, SECONDS_PER_DAY } from '../constants.js';
+import { at } from '../internal/checked.js';
 import { createRandom } from '../internal/random.js';
 import { normalCdf } from '../internal/special-functions.js';
 import { meanRateSensitivity, offsetClockRate, type ReferenceClock } from '../relativity/rate.js';
@@ -83,7 +84,7 @@ export function analyseDispersion(c: DispersionCase): DispersionAnalysis {
   }
   draws.sort();
   const sampled = percentiles.map(({ percentile }) => {
-    const a = draws[Math.min(runs - 1, Math.max(0, Math.round((percentile / 100) * (runs - 1))))] ?? Number.NaN; // index in [0, runs)
+    const a = at(draws, Math.min(runs - 1, Math.max(0, Math.round((percentile / 100) * (runs - 1)))), 'draws');
     const r = residual(a);
     return { percentile, semiMajorAxis: a, residualFractionalRate: r, daysToPhaseTolerance: days(r) };
   });
