@@ -14,6 +14,7 @@ import { meanClockRate, meanRateSensitivity, type RateBreakdown, type ReferenceC
 import { analyseDispersion } from './dispersion.js';
 import { fmt, mistakeDiagnoses, type OtherExpectation, offsetForRate, unexplainedDiagnosis } from './mistakes.js';
 import { parseConfigured, parseReviewInput, requireNominalFrequency } from './parse.js';
+import { dyadic, quantisationDiagnosis } from './tuning-word.js';
 import type {
   ConfiguredOffset,
   Diagnosis,
@@ -49,18 +50,6 @@ export interface ReviewOptions {
 
 /** Most dispersion Monte Carlo runs a review accepts (80 MB of draws per spacecraft; the CLI's --runs has the same bound). */
 const MAX_REVIEW_MONTE_CARLO_RUNS = 10_000_000;
-
-/** Splits a finite double into an exact BigInt mantissa and a power-of-two exponent: x = m·2^e. */
-function dyadic(x: number): { m: bigint; e: number } {
-  if (x === 0) return { m: 0n, e: 0 };
-  let e = 0;
-  let v = x;
-  while (!Number.isInteger(v)) {
-    v *= 2;
-    e--;
-  }
-  return { m: BigInt(v), e };
-}
 
 /**
  * Reads the configured offset as a fraction, with the quantisation step of its form (null when exact).
@@ -232,45 +221,6 @@ function otherExpectations(r: ResolvedSpacecraft, resolved: readonly ResolvedSpa
     else others.push({ id: o.sc.id, offset: o.expected });
   }
   return others;
-}
-
-/**
- * Quantisation of the tuning-word form: can the hardware represent the expected value within tolerance?
- * `fails` when even the nearest word misses it; a note when only the configured word does.
- */
-function quantisationDiagnosis(
-  sc: ReviewSpacecraft,
-  expected: number,
-  difference: number,
-  step: number | null,
-  tolerance: number,
-): { diagnosis: Diagnosis; fails: boolean } | undefined {
-  if (!('tuningWord' in sc.configured) || step === null) return undefined;
-  const { clockHz, bits } = sc.configured.tuningWord;
-  const exactWord = ((sc.nominalFrequencyHz * (1 + expected)) / clockHz) * 2 ** bits;
-  const bestError = Math.abs(Math.round(exactWord) - exactWord) * step;
-  const wouldHaveProduced = expected + (Math.round(exactWord) - exactWord) * step;
-  if (bestError > tolerance) {
-    return {
-      fails: true,
-      diagnosis: {
-        code: 'quantisation',
-        matches: true,
-        wouldHaveProduced,
-        message: `A ${bits}-bit word at ${clockHz} Hz has steps of ${fmt(step)} (fractional); even the nearest word misses the expected offset by ${fmt(bestError)}, more than the tolerance ${fmt(tolerance)}.`,
-      },
-    };
-  }
-  if (Math.abs(difference) <= tolerance) return undefined;
-  return {
-    fails: false,
-    diagnosis: {
-      code: 'quantisation',
-      matches: false,
-      wouldHaveProduced,
-      message: `The nearest ${bits}-bit word is ${BigInt(Math.round(exactWord)).toString()} (error ${fmt(bestError)}); the configured word is ${Math.round(difference / step)} steps away from it.`,
-    },
-  };
 }
 
 /** What the steering actuator can do about the error: `fails` when it cannot cover the worst ±3σ residual. */
