@@ -7,8 +7,12 @@
  * The lists of known exceptions only shrink: when you split a file or a function, remove it from
  * the list (the test says so); a new file or function over the limit fails.
  * Regenerate the numbers with `SHAPE_PRINT=1 npx vitest run test/cross/code-shape.test.ts`.
+ *
+ * It also holds the test layout (ADR 9, "test folders mirror src/"): every folder under packages/<pkg>/test names a
+ * folder (or a `.ts` file) of packages/<pkg>/src at the same path, and every file directly in packages/<pkg>/test is
+ * `<module>.test.ts` for a `src/<module>.ts`, except the cross-module suites and shared helpers listed below.
  */
-import { readdirSync, readFileSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import ts from 'typescript';
@@ -119,5 +123,73 @@ describe('code shape (packages/*/src)', () => {
       MAX_NON_NULL_INDEX_CASTS,
     );
     expect(asNumber, '`as number` hides an undefined: use a checked read').toBeLessThanOrEqual(MAX_AS_NUMBER_CASTS);
+  });
+});
+
+const PACKAGES = ['sdk', 'cli', 'elements'];
+
+/** Test folders with no src/ counterpart, and why (may only shrink; a folder under a listed one is covered by it). */
+const TEST_FOLDERS_WITHOUT_SOURCE: Readonly<Record<string, string>> = {
+  'packages/sdk/test/property': 'cross-module public-API properties and schema agreement (ADR 9, ADR 10)',
+  'packages/sdk/test/io/fuzz': 'the seeded fuzz harness run over every reader of src/io/ and its fixtures',
+};
+
+/** Files directly in a package's test/ that name no src/ module: cross-module suites and shared helpers. */
+const ROOT_TEST_FILES_WITHOUT_SOURCE: Readonly<Record<string, string>> = {
+  'packages/cli/test/binary.test.ts': 'commands through the built binary',
+  'packages/cli/test/hardening.test.ts': 'bad input across every command',
+  'packages/cli/test/hostile-input.test.ts': 'hostile files across every command that reads one',
+  'packages/cli/test/terminal.test.ts': "every command's default output at 100 columns",
+  'packages/cli/test/run.ts': 'shared helper: the in-process runner of the CLI tests',
+  'packages/elements/test/embedding.test.ts': 'the README embedding examples, every element, from a static server',
+  'packages/elements/test/fixtures.ts': 'shared helper: element fixtures built by calling the SDK on its examples',
+};
+
+/** Every folder under `dir`, as paths relative to ROOT. */
+function folders(dir: string): string[] {
+  return readdirSync(dir, { withFileTypes: true })
+    .filter((e) => e.isDirectory())
+    .flatMap((e) => {
+      const path = join(dir, e.name);
+      return [relative(ROOT, path).split('\\').join('/'), ...folders(path)];
+    });
+}
+
+describe('test layout (packages/*/test mirrors packages/*/src, ADR 9)', () => {
+  const isDirectory = (path: string) => existsSync(join(ROOT, path)) && statSync(join(ROOT, path)).isDirectory();
+  const isFile = (path: string) => existsSync(join(ROOT, path)) && statSync(join(ROOT, path)).isFile();
+
+  it('every folder under packages/<pkg>/test names a folder or file of packages/<pkg>/src, except the listed ones', () => {
+    const strays: string[] = [];
+    for (const pkg of PACKAGES) {
+      const test = `packages/${pkg}/test`;
+      for (const folder of folders(join(ROOT, test))) {
+        const listed = Object.keys(TEST_FOLDERS_WITHOUT_SOURCE).some((f) => folder === f || folder.startsWith(`${f}/`));
+        const source = `packages/${pkg}/src${folder.slice(test.length)}`;
+        if (!listed && !isDirectory(source) && !isFile(`${source}.ts`)) strays.push(`${folder} (no ${source}/)`);
+      }
+    }
+    expect(strays, 'move these tests under the folder of the src/ module they test').toEqual([]);
+    for (const folder of Object.keys(TEST_FOLDERS_WITHOUT_SOURCE)) {
+      expect(isDirectory(folder), `${folder} is gone: remove it from TEST_FOLDERS_WITHOUT_SOURCE`).toBe(true);
+    }
+  });
+
+  it('every file directly in packages/<pkg>/test is <module>.test.ts for a src/<module>.ts, except the listed cross-module suites and helpers', () => {
+    const strays: string[] = [];
+    for (const pkg of PACKAGES) {
+      const test = join(ROOT, `packages/${pkg}/test`);
+      for (const entry of readdirSync(test, { withFileTypes: true })) {
+        if (!entry.isFile()) continue;
+        const file = `packages/${pkg}/test/${entry.name}`;
+        const module = /^(.+)\.test\.ts$/.exec(entry.name)?.[1];
+        const named = module !== undefined && isFile(`packages/${pkg}/src/${module}.ts`);
+        if (!named && ROOT_TEST_FILES_WITHOUT_SOURCE[file] === undefined) strays.push(file);
+      }
+    }
+    expect(strays, 'move these under test/<module>/ (mirroring src/), or list a cross-module suite').toEqual([]);
+    for (const file of Object.keys(ROOT_TEST_FILES_WITHOUT_SOURCE)) {
+      expect(isFile(file), `${file} is gone: remove it from ROOT_TEST_FILES_WITHOUT_SOURCE`).toBe(true);
+    }
   });
 });

@@ -1,4 +1,6 @@
 import { expect, html, nextFrame, fixture as openFixture } from '@open-wc/testing';
+import { simulateClock } from '@tauline/sdk/clock-model';
+import { analyzeStability, type StabilityRow } from '@tauline/sdk/stability';
 import type { LitElement, TemplateResult } from 'lit';
 import '../../src/stability-plot/stability-plot.define.js';
 import { DEFAULT_MIN_TERMS, normaliseStability } from '../../src/stability-plot/stability-data.js';
@@ -123,20 +125,41 @@ describe('tauline-stability-plot', () => {
     expect(label).to.contain('dimensionless');
   });
 
-  it('accepts the SDK row form (one StabilityRow per τ)', async () => {
-    const rows = [
-      { tau: 1, m: 1, noise: 'WFM', statistics: { oadev: { tau: 1, deviation: 0.29, low: 0.28, high: 0.3, n: 998 } } },
-      {
-        tau: 10,
-        m: 10,
-        noise: 'WFM',
-        statistics: { oadev: { tau: 10, deviation: 0.09, low: 0.086, high: 0.097, n: 980 } },
-      },
-    ];
+  it("normaliseStability(rows) takes the SDK's own rows (analyzeStability of a seeded simulated clock) column by column, estimates with n < 2 as a note", () => {
+    // White FM (q1 = 1e-22 s) plus white PM, 2000 samples at 1 s, seeded: the rows carry every field the SDK emits
+    // (m, noise, alpha, noiseSource, noiseEstimate, per-statistic low/high/n/edf/edfModel).
+    const clock = simulateClock({
+      samples: 2000,
+      tau0: 1,
+      q: { q1: 1e-22, q2: 0 },
+      seed: 20261204,
+      measurementNoise: 1e-11,
+    });
+    const rows: readonly StabilityRow[] = analyzeStability(
+      { phase: clock.phase, tau0: clock.tau0 },
+      { statistics: ['oadev', 'mdev'] },
+    ).rows;
     const set = normaliseStability(rows);
     expect(set.problems).to.deep.equal([]);
-    expect(Array.from(set.series[0]!.tau)).to.deep.equal([1, 10]);
-    expect(set.series[0]!.noise).to.deep.equal(['WFM', 'WFM']);
+    expect(set.series.map((s) => s.statistic)).to.deep.equal(['oadev', 'mdev']);
+    for (const s of set.series) {
+      const name = s.statistic as 'oadev' | 'mdev';
+      const all = rows.flatMap((r) => {
+        const e = r.statistics[name];
+        return e ? [{ row: r, e }] : [];
+      });
+      const kept = all.filter(({ e }) => e.n >= DEFAULT_MIN_TERMS);
+      expect(kept.length).to.be.greaterThan(5);
+      expect(Array.from(s.tau)).to.deep.equal(kept.map(({ row }) => row.tau));
+      expect(Array.from(s.deviation)).to.deep.equal(kept.map(({ e }) => e.deviation));
+      expect(Array.from(s.low!)).to.deep.equal(kept.map(({ e }) => e.low));
+      expect(Array.from(s.high!)).to.deep.equal(kept.map(({ e }) => e.high));
+      expect(Array.from(s.n!)).to.deep.equal(kept.map(({ e }) => e.n));
+      expect(s.noise).to.deep.equal(kept.map(({ row }) => row.noise));
+      const few = all.filter(({ e }) => e.n < DEFAULT_MIN_TERMS).map(({ row }) => row.tau);
+      const note = set.fewTerms.find((f) => f.statistic === name);
+      expect(note?.taus ?? []).to.deep.equal(few);
+    }
   });
 
   it('hover over a point shows a read-out with τ and the deviation', async () => {

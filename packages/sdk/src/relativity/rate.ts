@@ -108,6 +108,26 @@ export function reciprocalOffset(x: number): number {
   return -x / (1 + x);
 }
 
+/**
+ * Rate of a clock with its own fractional offset c running on a platform whose rate is r: (1 + c)(1 + r) − 1,
+ * evaluated as (c + r) + c·r (algebraic identity). With c ≈ −r (an offset that compensates the rate) c + r is exact
+ * (Sterbenz's lemma), where the product form rounds 1 + c to a multiple of 2^-52 and loses everything below ~1e-16.
+ * @internal Shared with the review module; not exported from the package.
+ */
+export function offsetClockRate(offset: Dimensionless, rate: Dimensionless): Dimensionless {
+  return offset + rate + offset * rate;
+}
+
+/**
+ * Sensitivity of the mean clock rate to the semi-major axis, d(L_G − 3GM/(2ac²))/da = 3GM/(2a²c²) per metre, the
+ * same vs TT and TCG (derivative of IERS Conventions 2010 eq. 10.9 averaged [V1]; 9.429e-18 per metre near GPS
+ * altitude, Ashby, PTTI 33 (2001) abstract [V2]; physics-refs §2 [C]). Unchecked, for any a and GM.
+ * @internal Callers validate; not exported from the package.
+ */
+export function meanRateSensitivity(a: Metres, gm: number): number {
+  return (3 * gm) / (2 * a * a * SPEED_OF_LIGHT_SQUARED);
+}
+
 /** The parts of a mean clock rate, dimensionless (see {@link meanClockRate}). @internal */
 export interface MeanRateParts {
   fractionalRate: Dimensionless;

@@ -5,21 +5,16 @@
  *
  * @module
  */
-import {
-  type ConstantSet,
-  constantSet,
-  DEFAULT_CONSTANT_SET,
-  SECONDS_PER_DAY,
-  SPEED_OF_LIGHT_SQUARED,
-} from '../constants.js';
+import { type ConstantSet, constantSet, DEFAULT_CONSTANT_SET, SECONDS_PER_DAY } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
 import { MAX_SEED } from '../internal/random.js';
 import { requireInRange, requireInteger, requireOptions } from '../internal/validate.js';
 import { j2SecularClockRate, osculatingMinusMeanSemiMajorAxis } from '../relativity/j2.js';
-import { meanClockRate, type RateBreakdown, type ReferenceClock } from '../relativity/rate.js';
+import { meanClockRate, meanRateSensitivity, type RateBreakdown, type ReferenceClock } from '../relativity/rate.js';
 import { analyseDispersion } from './dispersion.js';
 import { fmt, mistakeDiagnoses, type OtherExpectation, offsetForRate, unexplainedDiagnosis } from './mistakes.js';
 import { parseConfigured, parseReviewInput, requireNominalFrequency } from './parse.js';
+import { dyadic, quantisationDiagnosis } from './tuning-word.js';
 import type {
   ConfiguredOffset,
   Diagnosis,
@@ -56,18 +51,6 @@ export interface ReviewOptions {
 /** Most dispersion Monte Carlo runs a review accepts (80 MB of draws per spacecraft; the CLI's --runs has the same bound). */
 const MAX_REVIEW_MONTE_CARLO_RUNS = 10_000_000;
 
-/** Splits a finite double into an exact BigInt mantissa and a power-of-two exponent: x = m·2^e. */
-function dyadic(x: number): { m: bigint; e: number } {
-  if (x === 0) return { m: 0n, e: 0 };
-  let e = 0;
-  let v = x;
-  while (!Number.isInteger(v)) {
-    v *= 2;
-    e--;
-  }
-  return { m: BigInt(v), e };
-}
-
 /**
  * Reads the configured offset as a fraction, with the quantisation step of its form (null when exact).
  * For a tuning word, f_out = word·f_clk/2^N (DDS relation; common practice, no source); the difference
@@ -96,7 +79,7 @@ export function configuredFraction(
 /**
  * Size of the mean-rate ambiguity from osculating vs mean a under J2: the short-period amplitude
  * (3/2)J2 a_e²/a·sin²i of a_osc − ā (Brouwer 1959 [M], via {@link osculatingMinusMeanSemiMajorAxis})
- * times the rate sensitivity 3GM/(2a²c²) (derivative of IERS 2010 eq. 10.9 averaged, our own derivation [C]).
+ * times the rate sensitivity 3GM/(2a²c²) of {@link meanRateSensitivity} (derivative of IERS 2010 eq. 10.9 averaged).
  */
 function j2Ambiguity(
   a: number,
@@ -104,7 +87,7 @@ function j2Ambiguity(
   constants: ConstantSet,
 ): { metres: number; fractionalRate: number } {
   const metres = Math.abs(osculatingMinusMeanSemiMajorAxis(a, inclination, 0, { constants }));
-  return { metres, fractionalRate: ((3 * constants.gm) / (2 * a * a * SPEED_OF_LIGHT_SQUARED)) * metres };
+  return { metres, fractionalRate: meanRateSensitivity(a, constants.gm) * metres };
 }
 
 /**
@@ -240,45 +223,6 @@ function otherExpectations(r: ResolvedSpacecraft, resolved: readonly ResolvedSpa
   return others;
 }
 
-/**
- * Quantisation of the tuning-word form: can the hardware represent the expected value within tolerance?
- * `fails` when even the nearest word misses it; a note when only the configured word does.
- */
-function quantisationDiagnosis(
-  sc: ReviewSpacecraft,
-  expected: number,
-  difference: number,
-  step: number | null,
-  tolerance: number,
-): { diagnosis: Diagnosis; fails: boolean } | undefined {
-  if (!('tuningWord' in sc.configured) || step === null) return undefined;
-  const { clockHz, bits } = sc.configured.tuningWord;
-  const exactWord = ((sc.nominalFrequencyHz * (1 + expected)) / clockHz) * 2 ** bits;
-  const bestError = Math.abs(Math.round(exactWord) - exactWord) * step;
-  const wouldHaveProduced = expected + (Math.round(exactWord) - exactWord) * step;
-  if (bestError > tolerance) {
-    return {
-      fails: true,
-      diagnosis: {
-        code: 'quantisation',
-        matches: true,
-        wouldHaveProduced,
-        message: `A ${bits}-bit word at ${clockHz} Hz has steps of ${fmt(step)} (fractional); even the nearest word misses the expected offset by ${fmt(bestError)}, more than the tolerance ${fmt(tolerance)}.`,
-      },
-    };
-  }
-  if (Math.abs(difference) <= tolerance) return undefined;
-  return {
-    fails: false,
-    diagnosis: {
-      code: 'quantisation',
-      matches: false,
-      wouldHaveProduced,
-      message: `The nearest ${bits}-bit word is ${BigInt(Math.round(exactWord)).toString()} (error ${fmt(bestError)}); the configured word is ${Math.round(difference / step)} steps away from it.`,
-    },
-  };
-}
-
 /** What the steering actuator can do about the error: `fails` when it cannot cover the worst ±3σ residual. */
 function actuatorDiagnosis(
   dispersion: DispersionAnalysis | null,
@@ -349,7 +293,7 @@ function dispersionOf(
   index: number,
   ctx: ReviewContext,
 ): ReturnType<typeof analyseDispersion> | null {
-  const { sc, set, reference } = r;
+  const { sc, set, reference, j2 } = r;
   const { input, settings } = ctx;
   return sc.dispersion
     ? analyseDispersion({
@@ -357,6 +301,7 @@ function dispersionOf(
         sigma: sc.dispersion.semiMajorAxisSigma,
         set,
         reference,
+        j2Rate: j2,
         configured,
         actuatorRange: range ?? null,
         phaseTolerance: sc.phaseToleranceSeconds ?? input.phaseToleranceSeconds ?? null,

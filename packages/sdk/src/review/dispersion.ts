@@ -4,10 +4,11 @@
  *
  * @internal
  */
-import { type ConstantSet, SECONDS_PER_DAY, SPEED_OF_LIGHT_SQUARED } from '../constants.js';
+import { type ConstantSet, SECONDS_PER_DAY } from '../constants.js';
+import { at } from '../internal/checked.js';
 import { createRandom } from '../internal/random.js';
 import { normalCdf } from '../internal/special-functions.js';
-import type { ReferenceClock } from '../relativity/rate.js';
+import { meanRateSensitivity, offsetClockRate, type ReferenceClock } from '../relativity/rate.js';
 import { rateFor } from './mistakes.js';
 import type { DispersionAnalysis } from './types.js';
 
@@ -26,6 +27,11 @@ export interface DispersionCase {
   readonly sigma: number;
   readonly set: ConstantSet;
   readonly reference: ReferenceClock;
+  /**
+   * Secular J2 part of the rate at a0 (j2SecularClockRate's j2Correction; 0 when the kind of a is not stated), the
+   * term the expected offset includes. It scales as a⁻³ at fixed e, i and u (U_J2 and ⟨U_J2⟩ ∝ a⁻³ in its formula).
+   */
+  readonly j2Rate: number;
   /** Configured fractional offset. */
   readonly configured: number;
   readonly actuatorRange: number | null;
@@ -41,9 +47,12 @@ export interface DispersionCase {
  * their seeded Monte Carlo cross-check, the unsteered walk-off time and whether the actuator covers it.
  */
 export function analyseDispersion(c: DispersionCase): DispersionAnalysis {
-  const { a0, sigma, set, reference, configured, actuatorRange, phaseTolerance, runs, seed, onProgress } = c;
-  // In orbit the configured oscillator runs at (1 + c)(1 + r(a)) − 1 against the reference (product of the two rates).
-  const residual = (a: number) => (1 + configured) * (1 + rateFor(a, set.gm, set.lG, reference)) - 1;
+  const { a0, sigma, set, reference, j2Rate, configured, actuatorRange, phaseTolerance, runs, seed, onProgress } = c;
+  // In orbit the configured oscillator runs at (1 + c)(1 + r(a)) − 1 against the reference (product of the two
+  // rates), evaluated without cancellation by rate.ts's offsetClockRate: the product form lost everything below ~1e-16.
+  // r(a) is the rate the expected offset compensates: the mean rate plus the J2 term when it is applied.
+  const rate = (a: number) => rateFor(a, set.gm, set.lG, reference) + j2Rate * (a0 / a) ** 3;
+  const residual = (a: number) => offsetClockRate(configured, rate(a));
   // Unsteered phase walk-off |x(t)| = |r|·t reaches the tolerance after tol/|r| (elementary, common practice, no source).
   const days = (r: number) =>
     phaseTolerance === null
@@ -55,7 +64,8 @@ export function analyseDispersion(c: DispersionCase): DispersionAnalysis {
   const nominal = residual(a0);
   const plus = residual(a0 + 3 * sigma);
   const worst = Math.max(Math.abs(minus), Math.abs(plus), Math.abs(nominal));
-  // Closed form: a ~ N(a0, σ²) and residual(a) is strictly increasing in a (dr/da = 3GM/(2a²c²)·(1 + c) > 0),
+  // Closed form: a ~ N(a0, σ²) and residual(a) is strictly increasing in a (d/da ≈ meanRateSensitivity·(1 + c) > 0; the
+  // J2 term's −3·j2Rate/a is ~1e-4 of it),
   // so the p-quantile of the residual is residual(a0 + z_p σ) (quantile of a monotone function = function of
   // the quantile; elementary probability, common practice, no source).
   const percentiles = SIGMA_MULTIPLES.map((k) => {
@@ -74,13 +84,13 @@ export function analyseDispersion(c: DispersionCase): DispersionAnalysis {
   }
   draws.sort();
   const sampled = percentiles.map(({ percentile }) => {
-    const a = draws[Math.min(runs - 1, Math.max(0, Math.round((percentile / 100) * (runs - 1))))] ?? Number.NaN; // index in [0, runs)
+    const a = at(draws, Math.min(runs - 1, Math.max(0, Math.round((percentile / 100) * (runs - 1)))), 'draws');
     const r = residual(a);
     return { percentile, semiMajorAxis: a, residualFractionalRate: r, daysToPhaseTolerance: days(r) };
   });
   return {
     semiMajorAxisSigma: sigma,
-    rateSensitivityPerMetre: (3 * set.gm) / (2 * a0 * a0 * SPEED_OF_LIGHT_SQUARED),
+    rateSensitivityPerMetre: meanRateSensitivity(a0, set.gm),
     residualAtMinus3Sigma: minus,
     residualNominal: nominal,
     residualAtPlus3Sigma: plus,

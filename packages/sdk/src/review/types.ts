@@ -115,7 +115,10 @@ export interface DispersionAnalysis {
   readonly semiMajorAxisSigma: Metres;
   /** d(rate)/da at the planned orbit, fractional per metre. */
   readonly rateSensitivityPerMetre: number;
-  /** Residual fractional rate at a − 3σ, a, a + 3σ. */
+  /**
+   * Residual fractional rate (1 + c)(1 + r(a)) − 1 of the configured offset c at a − 3σ, a, a + 3σ, r the rate the
+   * expected offset compensates (with the J2 term when the kind of a is stated); at a it is difference × (1 + r).
+   */
   readonly residualAtMinus3Sigma: Dimensionless;
   readonly residualNominal: Dimensionless;
   readonly residualAtPlus3Sigma: Dimensionless;

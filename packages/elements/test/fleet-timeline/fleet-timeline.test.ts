@@ -2,15 +2,15 @@ import { expect, fixture, html, oneEvent } from '@open-wc/testing';
 import { type FleetDocument, fleetPlanToJson, planFleet, validateFleet } from '@tauline/sdk/fleet';
 import { BUNDLED_LEAP_SECONDS, createTimeScales } from '@tauline/sdk/time';
 import { sendKeys } from '@web/test-runner-commands';
-import '../src/fleet-timeline/fleet-timeline.define.js';
-import { calendarTicks } from '../src/fleet-timeline/fleet-axis.js';
-import { readFleetPlan } from '../src/fleet-timeline/fleet-data.js';
-import { columnMinima, fleetLayout } from '../src/fleet-timeline/fleet-draw.js';
-import { marginSeries, requiredBound } from '../src/fleet-timeline/fleet-margin.js';
-import type { TaulineFleetTimeline } from '../src/fleet-timeline/fleet-timeline.js';
-import { erfc, oneSidedQuantile } from '../src/internal/normal.js';
-import { linearScale } from '../src/internal/scale.js';
-import { captureWarnings } from './fixtures.js';
+import '../../src/fleet-timeline/fleet-timeline.define.js';
+import { calendarTicks } from '../../src/fleet-timeline/fleet-axis.js';
+import { readFleetPlan } from '../../src/fleet-timeline/fleet-data.js';
+import { columnMinima, fleetLayout } from '../../src/fleet-timeline/fleet-draw.js';
+import { marginSeries, requiredBound } from '../../src/fleet-timeline/fleet-margin.js';
+import type { TaulineFleetTimeline } from '../../src/fleet-timeline/fleet-timeline.js';
+import { erfc, oneSidedQuantile } from '../../src/internal/normal.js';
+import { linearScale } from '../../src/internal/scale.js';
+import { captureWarnings } from '../fixtures.js';
 import { heldFleet, strandedFleet } from './fleet-fixtures.js';
 
 const WIDTH = 900;
@@ -99,7 +99,7 @@ describe('tauline-fleet-timeline', () => {
     expect(readFleetPlan(older, fleet).ok).to.equal(true);
   });
 
-  it('erfc(x) and requiredBound(m, σ, p, z) agree with scipy (packages/elements/test/reference/fleet_margin_reference.py) [C]', () => {
+  it('erfc(x) and requiredBound(m, σ, p, z) agree with scipy (packages/elements/test/fleet-timeline/fleet_margin_reference.py) [C]', () => {
     // [x, scipy.special.erfc(x)], scipy 1.17.1 [C]; Numerical Recipes' erfcc: fractional error < 1.2e-7.
     const erfcCases: Array<[number, number]> = [
       [-1.5, 1.9661051464753108],

@@ -1,9 +1,9 @@
 #!/usr/bin/env python3
-"""Independent reference values for packages/elements/test/fleet-timeline.test.ts [C].
+"""Independent reference values for packages/elements/test/fleet-timeline/fleet-timeline.test.ts [C].
 
 The smallest bound b with P(|X| <= b) = p for X ~ N(m, sigma^2), solved with scipy's normal CDF
 and Brent's method (scipy 1.17.1), and scipy.special.erfc at a few points. Run:
-    python3 packages/elements/test/reference/fleet_margin_reference.py
+    python3 packages/elements/test/fleet-timeline/fleet_margin_reference.py
 and paste the printed lines into the test if the cases change.
 """
 from scipy.optimize import brentq

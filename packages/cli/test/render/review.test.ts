@@ -1,9 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { REVIEW_CAUTION, reviewOffsets } from '@tauline/sdk/review';
 import { describe, expect, it } from 'vitest';
-import { reviewToHtml, reviewToMarkdown, verdictExplanation } from '../src/render/review.js';
+import { reviewToHtml, reviewToMarkdown, verdictExplanation } from '../../src/render/review.js';
 
-const examples = new URL('../../sdk/examples/review/', import.meta.url);
+const examples = new URL('../../../sdk/examples/review/', import.meta.url);
 const load = (name: string): unknown => JSON.parse(readFileSync(new URL(name, examples), 'utf8'));
 
 describe("reviewToMarkdown(report) / reviewToHtml(report) (the CLI's renderers of an SDK review report)", () => {
