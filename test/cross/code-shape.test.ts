@@ -145,13 +145,15 @@ const ROOT_TEST_FILES_WITHOUT_SOURCE: Readonly<Record<string, string>> = {
   'packages/elements/test/fixtures.ts': 'shared helper: element fixtures built by calling the SDK on its examples',
 };
 
-/** Every folder under `dir`, as paths relative to ROOT. */
+/** Every folder under `dir` that holds a file somewhere below it (git keeps no empty folder), relative to ROOT. */
 function folders(dir: string): string[] {
   return readdirSync(dir, { withFileTypes: true })
     .filter((e) => e.isDirectory())
     .flatMap((e) => {
       const path = join(dir, e.name);
-      return [relative(ROOT, path).split('\\').join('/'), ...folders(path)];
+      const below = folders(path);
+      const holdsFile = readdirSync(path, { withFileTypes: true }).some((f) => f.isFile());
+      return holdsFile || below.length > 0 ? [relative(ROOT, path).split('\\').join('/'), ...below] : [];
     });
 }
 
