@@ -55,8 +55,13 @@ let unitPassed = 0,
 try {
   const report = JSON.parse(readFileSync(`${OUT}/vitest.json`, 'utf8'));
   unitPassed = report.numPassedTests;
-  unitFailed =
-    report.numFailedTests + (report.numFailedTestSuites ?? 0) + (vitestRc !== 0 && report.numFailedTests === 0 ? 1 : 0);
+  // A file that fails without a failing test (an import or hook error) counts once; a failing test counts once,
+  // not again for each describe block around it.
+  const brokenFiles = (report.testResults ?? []).filter(
+    (f) => f.status === 'failed' && !(f.assertionResults ?? []).some((a) => a.status === 'failed'),
+  ).length;
+  const counted = report.numFailedTests + brokenFiles;
+  unitFailed = counted + (vitestRc !== 0 && counted === 0 ? 1 : 0);
 } catch {
   /* no report: counted as one failure */
 }
