@@ -5,7 +5,7 @@
 
 import type { ConstantSet } from '@tauline/sdk/constants';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
-import { GRAVITY_MODELS, type GravityModel } from '@tauline/sdk/orbit';
+import { GRAVITY_MODELS, type GravityModel, orbitalPeriod } from '@tauline/sdk/orbit';
 import { boundStateCheck, integrateProperTime } from '@tauline/sdk/relativity';
 import { instantFromTtSecondsSinceJ2000 } from '@tauline/sdk/time';
 import { CONSTANTS_FLAG, constantsFlag } from '../flags.js';
@@ -184,9 +184,10 @@ Exit status: 0 success, 2 invalid input.`,
     const tolerance = numberFlag(args, 'tolerance');
     const constants = constantsFlag(args);
     withFlagNames(PROPERTIME_FLAG_NAMES, () => requireBoundState(state, constants, model, epoch));
-    // Orbits in the span, from the initial radius: period T = 2π√(r³/GM) (Kepler's third law, circular orbit).
+    // Orbits in the span: the two-body period at the initial radius (a circular orbit). The bound check above has
+    // refused any radius orbitalPeriod would; r0 = 0 is left for integrateProperTime to name (--state).
     const r0 = Math.hypot(...state.position);
-    const orbits = duration / (2 * Math.PI * Math.sqrt(r0 ** 3 / constants.gm));
+    const orbits = r0 > 0 ? duration / orbitalPeriod(r0, constants.gm) : 0;
     const bar = startProgress(io, 'integrating', orbits > PROPERTIME_PROGRESS_ORBITS);
     const result = withProgress(bar, () =>
       withFlagNames(PROPERTIME_FLAG_NAMES, () =>

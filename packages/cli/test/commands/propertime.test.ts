@@ -3,6 +3,7 @@ import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { IERS_2010, L_G, SPEED_OF_LIGHT_SQUARED } from '@tauline/sdk/constants';
 import { moonPositionLowPrecision } from '@tauline/sdk/orbit';
+import { instantFromTtSecondsSinceJ2000 } from '@tauline/sdk/time';
 import { describe, expect, it } from 'vitest';
 import { type CliRun, runCli } from '../run.js';
 
@@ -119,9 +120,10 @@ describe('tauline propertime', () => {
     // m³/s² (JPL DE-series value [M]). Lunar escape speed there √(2GM_M/ρ) = 2310.1 m/s [C].
     const epoch = 725_803_200;
     const lunarState = (speed: number): string => {
-      const m = moonPositionLowPrecision(epoch);
-      const mp = moonPositionLowPrecision(epoch + 1);
-      const mm = moonPositionLowPrecision(epoch - 1);
+      const at = instantFromTtSecondsSinceJ2000(epoch);
+      const m = moonPositionLowPrecision(at);
+      const mp = moonPositionLowPrecision(at.plus(1));
+      const mm = moonPositionLowPrecision(at.plus(-1));
       const v = [0, 1, 2].map((k) => (mp[k]! - mm[k]!) / 2);
       return [m[0], m[1], m[2] + 1_837_400, v[0]! + speed, v[1]!, v[2]!].join(',');
     };

@@ -13,13 +13,16 @@
  * < 0.01° / < 100 km for the Moon (see the SDK tests). For the tidal clock potential at GNSS
  * altitudes (≈ 1e-15 of frequency) that accuracy gives errors below 1e-17.
  *
- * Time argument: TT, in seconds since J2000.0 (2000-01-01 12:00:00 TT, JD 2451545.0).
+ * Time argument: an {@link Instant} at the public functions; inside, TT seconds since J2000.0
+ * (2000-01-01 12:00:00 TT, JD 2451545.0) as one float (`ttSecondsSinceJ2000`, time/j2000.ts), whose
+ * 1.2e-7 s resolution at 8e8 s is far finer than the series need.
  *
  * @module
  */
 
 import { InvalidArgumentError } from '../errors.js';
-import { requireFinite } from '../internal/validate.js';
+import type { Instant } from '../time/instant.js';
+import { requireEpochInstant, ttSecondsSinceJ2000 } from '../time/j2000.js';
 import type { Seconds, Vector3 } from '../units.js';
 
 /**
@@ -40,8 +43,9 @@ const OBLIQUITY_RATE = -46.815 * ARCSEC;
 /** General precession in longitude, 1.3972° per Julian century (the term Montenbruck & Gill 2000 eq. 3.47 subtracts) [M]. */
 const PRECESSION_IN_LONGITUDE = 1.3972 * DEG;
 
-function checkEpoch(ttSecondsSinceJ2000: Seconds): Seconds {
-  return requireFinite('ttSecondsSinceJ2000', ttSecondsSinceJ2000, 'a finite TT epoch in seconds since J2000.0');
+/** The series' time argument at a checked epoch: TT seconds since J2000.0, one float. */
+function checkEpoch(epoch: unknown): Seconds {
+  return ttSecondsSinceJ2000(requireEpochInstant('epoch', epoch));
 }
 
 /** Veltkamp's splitting constant 2^27 + 1 (T. J. Dekker, Numer. Math. 18 (1971) 224–242) [M]. */
@@ -177,15 +181,17 @@ export function moonPositionAt(epoch: Seconds, offset: Seconds, ofDate: boolean)
  * r = (149.619 − 2.499 cos M − 0.021 cos 2M)·10⁹ m; β = 0. For `mean-of-date`, λ is advanced by the
  * general precession 1.3972°·T and rotated by the obliquity of date ε = 23.43929111° − 46.815″·T.
  *
- * @param ttSecondsSinceJ2000 Epoch, TT seconds since J2000.0.
+ * @param epoch The instant (the series run on TT; build it with `parseIso(text, 'TT')` or
+ *   `instantFromTtSecondsSinceJ2000(seconds)` of `@tauline/sdk/time`).
  * @param frame Output frame (default `mean-of-date`).
  * @returns Position in metres.
  * Validity: a few centuries around 2000; accuracy ≈ 0.03° in direction and ≈ 1e-5 in distance (our check against Meeus Example 25.a [M]).
- * @throws {InvalidArgumentError} for a non-finite epoch or an unknown frame.
+ * @throws {InvalidArgumentError} for an epoch that is not an Instant (a bare number of seconds included) or an
+ *   unknown frame.
  * @see O. Montenbruck & E. Gill, Satellite Orbits (2000), §3.3.2, eqs. (3.43)–(3.44) [M].
  */
-export function sunPositionLowPrecision(ttSecondsSinceJ2000: Seconds, frame: EphemerisFrame = 'mean-of-date'): Vector3 {
-  return sunPositionAt(checkEpoch(ttSecondsSinceJ2000), 0, checkFrame(frame) === 'mean-of-date');
+export function sunPositionLowPrecision(epoch: Instant, frame: EphemerisFrame = 'mean-of-date'): Vector3 {
+  return sunPositionAt(checkEpoch(epoch), 0, checkFrame(frame) === 'mean-of-date');
 }
 
 /**
@@ -195,19 +201,17 @@ export function sunPositionLowPrecision(ttSecondsSinceJ2000: Seconds, frame: Eph
  * Formula: see eqs. (3.47)–(3.49): mean arguments L0, l, l′, F, D; λ = L0 + Σ (14 terms); β from
  * 18520″ sin S + 7 terms; r = 385000 km − Σ (8 terms). `mean-of-date` as for the Sun.
  *
- * @param ttSecondsSinceJ2000 Epoch, TT seconds since J2000.0.
+ * @param epoch The instant (as for {@link sunPositionLowPrecision}).
  * @param frame Output frame (default `mean-of-date`).
  * @returns Position in metres.
  * Validity: a few centuries around 2000; accuracy a few arcminutes and ≈ 100 km (Montenbruck & Gill:
  * "several arcminutes" [M]; our check against Meeus Example 47.a [M] in the tests).
- * @throws {InvalidArgumentError} for a non-finite epoch or an unknown frame.
+ * @throws {InvalidArgumentError} for an epoch that is not an Instant (a bare number of seconds included) or an
+ *   unknown frame.
  * @see O. Montenbruck & E. Gill, Satellite Orbits (2000), §3.3.2, eqs. (3.47)–(3.49) [M].
  */
-export function moonPositionLowPrecision(
-  ttSecondsSinceJ2000: Seconds,
-  frame: EphemerisFrame = 'mean-of-date',
-): Vector3 {
-  return moonPositionAt(checkEpoch(ttSecondsSinceJ2000), 0, checkFrame(frame) === 'mean-of-date');
+export function moonPositionLowPrecision(epoch: Instant, frame: EphemerisFrame = 'mean-of-date'): Vector3 {
+  return moonPositionAt(checkEpoch(epoch), 0, checkFrame(frame) === 'mean-of-date');
 }
 
 /** Name of the ephemeris model, for reports. */

@@ -21,7 +21,9 @@
 import { type ConstantSet, type ConstantsOptions, DEFAULT_CONSTANT_SET } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
 import { constantsOf, readConstants, readOptions } from '../internal/options.js';
-import { requireFinite, requireInRange, requirePositive, requireVector3 } from '../internal/validate.js';
+import { requireInRange, requirePositive, requireVector3 } from '../internal/validate.js';
+import type { Instant } from '../time/instant.js';
+import { J2000_EPOCH, requireEpochInstant, ttSecondsSinceJ2000 } from '../time/j2000.js';
 import type { CubicMetresPerSecondSquared, Metres, Seconds, SquareMetresPerSecondSquared, Vector3 } from '../units.js';
 import { moonPositionAt, sunPositionAt } from './ephemeris.js';
 
@@ -40,8 +42,12 @@ export const GRAVITY_MODELS: readonly GravityModel[] = ['point-mass', 'j2', 'ful
 export interface GravityFieldOptions {
   /** Earth constants (GM, J2, equatorial radius); default IERS 2010. */
   constants?: ConstantSet;
-  /** For `full`: TT epoch of t = 0, in seconds since J2000.0 (default 0 = J2000.0). */
-  epochTtSecondsSinceJ2000?: Seconds;
+  /**
+   * For `full`: the instant of t = 0 (default {@link J2000_EPOCH}, 2000-01-01T12:00:00 TT); the Sun and the Moon
+   * are taken at TT = epoch + t. Build it with `parseIso(text, 'TT')` or `instantFromTtSecondsSinceJ2000(seconds)`
+   * of `@tauline/sdk/time`. (The former `epochTtSecondsSinceJ2000` number is refused with a hint.)
+   */
+  epoch?: Instant;
   /** For `full`: lunar GM (default {@link GM_MOON}). */
   moonGm?: CubicMetresPerSecondSquared;
   /** For `full`: solar GM (default {@link GM_SUN}). */
@@ -66,7 +72,8 @@ export interface GravityField {
  * Validity: `j2` ignores higher harmonics (J3 ≈ −2.5e-6, tesserals): clock-potential error at GNSS
  * altitude ≲ 1e-17 of frequency, at LEO ≲ 1e-15 (our own order-of-magnitude estimate GM·J3·a_e³/(r⁴c²) [C]). `full` inherits the
  * ephemeris accuracy of Montenbruck & Gill §3.3.2 (tidal potential error < 1e-17 of frequency at GNSS altitude [C]).
- * @throws {InvalidArgumentError} for an unknown model or non-finite/negative options.
+ * @throws {InvalidArgumentError} for an unknown model, non-finite/negative options, an `epoch` that is not an
+ *   Instant, or the former `epochTtSecondsSinceJ2000` option (write `{ epoch: instantFromTtSecondsSinceJ2000(s) }`).
  * @see IERS Conventions (2010), IERS TN 36, §10.2 eqs. 10.6–10.9 [V1].
  */
 export function createGravityField(model: GravityModel, options: GravityFieldOptions = {}): GravityField {
@@ -75,7 +82,8 @@ export function createGravityField(model: GravityModel, options: GravityFieldOpt
   const constants = constantsOf('options', readOptions('options', options));
   const gm = constants.gm;
   const k = model === 'point-mass' ? 0 : gm * constants.j2 * constants.equatorialRadius ** 2;
-  const epoch = requireFinite('epochTtSecondsSinceJ2000', options.epochTtSecondsSinceJ2000 ?? 0);
+  // The Sun/Moon series take TT seconds since J2000.0 as one float (internal time axis, see ephemeris.ts).
+  const epoch = ttSecondsSinceJ2000(readEpoch(options));
   const gmMoon = requirePositive('moonGm', options.moonGm ?? GM_MOON, 'm³/s²');
   const gmSun = requirePositive('sunGm', options.sunGm ?? GM_SUN, 'm³/s²');
   const full = model === 'full';
@@ -134,6 +142,23 @@ export function createGravityField(model: GravityModel, options: GravityFieldOpt
       return u;
     },
   };
+}
+
+/**
+ * The `epoch` option of {@link createGravityField} (default J2000.0). The former option, a number of TT seconds
+ * since J2000.0, is refused with a typed error naming the new one, never silently ignored.
+ */
+function readEpoch(options: GravityFieldOptions): Instant {
+  if ('epochTtSecondsSinceJ2000' in options) {
+    const { epochTtSecondsSinceJ2000: old } = options as { epochTtSecondsSinceJ2000?: unknown };
+    throw new InvalidArgumentError(
+      'options.epochTtSecondsSinceJ2000',
+      old,
+      'absent: the option is now `epoch`, an Instant',
+      `write { epoch: instantFromTtSecondsSinceJ2000(${typeof old === 'number' ? old : 'seconds'}) } (@tauline/sdk/time)`,
+    );
+  }
+  return options.epoch === undefined ? J2000_EPOCH : requireEpochInstant('options.epoch', options.epoch);
 }
 
 /** Third-body (indirect + direct) acceleration GM_b((r_b − r)/|r_b − r|³ − r_b/|r_b|³) (Montenbruck & Gill 2000 eq. 3.37) [M]. */

@@ -7,9 +7,10 @@
  * @module
  */
 
-import { type ConstantSet, DEFAULT_CONSTANT_SET } from '../constants.js';
+import type { ConstantSet, ConstantsOptions } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
-import { requireConstantSet, requireFinite, requireOrbitRadius } from '../internal/validate.js';
+import { readConstants } from '../internal/options.js';
+import { requireFinite, requireOrbitRadius } from '../internal/validate.js';
 import type { Metres, RadiansPerSecond, Seconds } from '../units.js';
 import { type KeplerianElements, requireKeplerianElements } from './elements.js';
 
@@ -69,17 +70,15 @@ export function j2SecularRatesTrusted(el: KeplerianElements, constants: Constant
  *   dM/dt =  n + (3/4) n J2 (R/p)² √(1 − e²) (2 − 3 sin² i)
  *
  * @param elements   Mean elements (a in metres, angles in radians); only a, e and i are used.
- * @param constants  GM, equatorial radius R and J2 (default IERS 2010).
+ * @param options    `constants`: GM, equatorial radius R and J2 (default IERS 2010).
  * @returns The three rates, in rad/s.
- * @throws {InvalidArgumentError} for invalid elements, a perigee inside the Earth or a bad constant set.
+ * @throws {InvalidArgumentError} for invalid elements, a perigee inside the Earth, a bad constant set, or a set
+ *   passed positionally (the old `j2SecularRates(elements, set)`; write `{ constants: set }`).
  * @see D. A. Vallado, Fundamentals of Astrodynamics and Applications, 4th ed. (2013), §9.6, secular J2 rates [M];
  *   the same first-order rates in Kozai (1959) / Brouwer (1959) theory [M].
  */
-export function j2SecularRates(
-  elements: KeplerianElements,
-  constants: ConstantSet = DEFAULT_CONSTANT_SET,
-): J2SecularRates {
-  const set = requireConstantSet('constants', constants);
+export function j2SecularRates(elements: KeplerianElements, options?: ConstantsOptions): J2SecularRates {
+  const set = readConstants('options', options);
   return j2SecularRatesTrusted(requireMeanElements(elements, 'elements', set), set);
 }
 
@@ -96,17 +95,18 @@ function wrap(angle: number): number {
  *
  * @param elements   Mean elements at t0 (a in metres, angles in radians).
  * @param dt         Time step, in seconds (may be negative).
- * @param constants  GM, R and J2 (default IERS 2010).
+ * @param options    `constants`: GM, R and J2 (default IERS 2010).
  * @returns Mean elements at t0 + dt.
- * @throws {InvalidArgumentError} as {@link j2SecularRates}, or for a non-finite `dt`.
+ * @throws {InvalidArgumentError} as {@link j2SecularRates} (a set passed positionally included), or for a
+ *   non-finite `dt`.
  * @see Vallado, Fundamentals of Astrodynamics and Applications, 4th ed., §9.6 [M].
  */
 export function propagateJ2Secular(
   elements: KeplerianElements,
   dt: Seconds,
-  constants: ConstantSet = DEFAULT_CONSTANT_SET,
+  options?: ConstantsOptions,
 ): KeplerianElements {
-  const set = requireConstantSet('constants', constants);
+  const set = readConstants('options', options);
   const el = requireMeanElements(elements, 'elements', set);
   const step = requireFinite('dt', dt, 'a finite time step in seconds');
   const rates = j2SecularRatesTrusted(el, set);

@@ -10,10 +10,10 @@ import { type ConstantSet, DEFAULT_CONSTANT_SET } from '../constants.js';
 import { InvalidArgumentError } from '../errors.js';
 import { requireConstantSet, requireOptions, requireOrbitRadius } from '../internal/validate.js';
 import { requireStateVector, type StateVector } from '../orbit/elements.js';
-import { moonPositionLowPrecision } from '../orbit/ephemeris.js';
+import { moonPositionAt } from '../orbit/ephemeris.js';
 import { GM_MOON, GRAVITY_MODELS, type GravityModel } from '../orbit/forces.js';
-import { type Instant, requireInstant } from '../time/instant.js';
-import { J2000_EPOCH, ttSecondsSinceJ2000 } from '../time/j2000.js';
+import type { Instant } from '../time/instant.js';
+import { J2000_EPOCH, requireEpochInstant, ttSecondsSinceJ2000 } from '../time/j2000.js';
 import type { Metres, MetresPerSecond } from '../units.js';
 
 /** Options of {@link boundStateCheck}. */
@@ -64,13 +64,14 @@ export function boundStateCheck(state: StateVector, options: BoundStateOptions =
     throw new InvalidArgumentError('options.model', model, `one of ${GRAVITY_MODELS.join(', ')}`);
   const constants =
     options.constants === undefined ? DEFAULT_CONSTANT_SET : requireConstantSet('options.constants', options.constants);
-  const epoch = options.epoch === undefined ? J2000_EPOCH : requireInstant('options.epoch', options.epoch);
+  const epoch = options.epoch === undefined ? J2000_EPOCH : requireEpochInstant('options.epoch', options.epoch);
   requireOrbitRadius('|state.position|', Math.hypot(...position));
   if (model === 'full') {
+    // The series' own time axis (TT seconds since J2000.0, one float); ±1 s as before, so the numbers are unchanged.
     const e = ttSecondsSinceJ2000(epoch);
-    const m = moonPositionLowPrecision(e);
-    const mPlus = moonPositionLowPrecision(e + 1);
-    const mMinus = moonPositionLowPrecision(e - 1);
+    const m = moonPositionAt(e, 0, true);
+    const mPlus = moonPositionAt(e + 1, 0, true);
+    const mMinus = moonPositionAt(e - 1, 0, true);
     const rho = Math.hypot(position[0] - m[0], position[1] - m[1], position[2] - m[2]);
     const w = Math.hypot(
       velocity[0] - (mPlus[0] - mMinus[0]) / 2,

@@ -27,8 +27,8 @@ import { requireStateVector, type StateVector } from '../orbit/elements.js';
 import { LOW_PRECISION_EPHEMERIS_NAME, moonPositionAt } from '../orbit/ephemeris.js';
 import { createGravityField, GRAVITY_MODELS, type GravityModel } from '../orbit/forces.js';
 import { integrateDop853 } from '../orbit/integrator.js';
-import { type Instant, requireInstant } from '../time/instant.js';
-import { J2000_EPOCH, ttSecondsSinceJ2000 } from '../time/j2000.js';
+import type { Instant } from '../time/instant.js';
+import { J2000_EPOCH, requireEpochInstant, ttSecondsSinceJ2000 } from '../time/j2000.js';
 import type { Seconds, Vector3 } from '../units.js';
 import { MOON_MEAN_RADIUS } from './reference-clocks.js';
 
@@ -164,8 +164,8 @@ export function integrateProperTime(
   const model = options.model ?? 'j2';
   if (!GRAVITY_MODELS.includes(model))
     throw new InvalidArgumentError('model', model, `one of ${GRAVITY_MODELS.join(', ')}`);
-  const epochInstant = options.epoch === undefined ? J2000_EPOCH : requireInstant('options.epoch', options.epoch);
-  // The force models and the ephemeris take TT seconds since J2000.0 as one float (internal time axis).
+  const epochInstant = options.epoch === undefined ? J2000_EPOCH : requireEpochInstant('options.epoch', options.epoch);
+  // The Moon check takes TT seconds since J2000.0 as one float (the ephemeris' internal time axis).
   const epoch = ttSecondsSinceJ2000(epochInstant);
   const rtol = requirePositive('relativeTolerance', options.relativeTolerance ?? 1e-12);
   if (rtol < 1e-15 || rtol > 1e-6) throw new InvalidArgumentError('relativeTolerance', rtol, 'in [1e-15, 1e-6]');
@@ -173,7 +173,7 @@ export function integrateProperTime(
   const times = sampleTimes(duration, step);
   const count = times.length;
 
-  const field = createGravityField(model, { constants, epochTtSecondsSinceJ2000: epoch });
+  const field = createGravityField(model, { constants, epoch: epochInstant });
   const lG = constants.lG;
   const c2 = SPEED_OF_LIGHT_SQUARED;
   // Hot (every stage of every step): y is the 7-component state (position, velocity, τ − TT) of y0 below.

@@ -5,8 +5,9 @@
  *
  * @module
  */
+import { InvalidArgumentError } from '../errors.js';
 import type { Seconds } from '../units.js';
-import { INSTANT_EPOCH_MJD, type Instant, requireInstant } from './instant.js';
+import { INSTANT_EPOCH_MJD, Instant, requireInstant } from './instant.js';
 import { instantFromUniformOrTcgLabel } from './uniform.js';
 
 /**
@@ -33,4 +34,25 @@ export function ttSecondsSinceJ2000(instant: Instant): Seconds {
  */
 export function instantFromTtSecondsSinceJ2000(seconds: Seconds): Instant {
   return J2000_EPOCH.plus(seconds);
+}
+
+/** How to build the epoch, for an epoch given as a bare number or omitted. */
+const EPOCH_HINT =
+  "build one with createTimeScales(BUNDLED_LEAP_SECONDS).parseIso('2027-03-01T00:00:00', 'TT') or, from TT seconds " +
+  'since J2000.0, instantFromTtSecondsSinceJ2000(seconds) (@tauline/sdk/time)';
+
+/**
+ * An absolute epoch at an orbit or relativity entry point: `value` must be an {@link Instant}. A bare number
+ * (the TT-seconds-since-J2000.0 float these entry points took before) and an omitted epoch are refused naming
+ * `argument`, with a hint saying how to build the Instant, so a count of seconds is never read on a guessed scale.
+ * @throws {InvalidArgumentError} unless `value` is an Instant.
+ * @internal
+ */
+export function requireEpochInstant(argument: string, value: unknown): Instant {
+  if (value instanceof Instant) return value;
+  if (typeof value === 'number') {
+    throw new InvalidArgumentError(argument, value, 'an Instant, not a number of seconds', EPOCH_HINT);
+  }
+  if (value === undefined) throw new InvalidArgumentError(argument, value, 'an Instant (required)', EPOCH_HINT);
+  return requireInstant(argument, value);
 }

@@ -7,6 +7,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import {
   analyzeStability,
+  boundStateCheck,
   ClockKalmanFilter,
   characterizeClock,
   createGravityField,
@@ -22,16 +23,20 @@ import {
   integrateProperTime,
   j2Potential,
   j2SecularClockRate,
+  j2SecularRates,
   meanClockRate,
   meanMotion,
+  moonPositionLowPrecision,
   periodicCorrectionFromElements,
   periodicCorrectionFromStatesBatch,
   periodicCorrectionOnTimeGrid,
   planSteering,
+  propagateJ2Secular,
   reviewOffsets,
   runClockFilter,
   simulateClock,
   simulatePlan,
+  sunPositionLowPrecision,
   tcgRateVsTT,
   tuningWordFrequency,
 } from '../../src/index.js';
@@ -44,6 +49,7 @@ const SCENARIO = example('steering/orin-3-meo.json');
 const PHASE = { phase: Array.from({ length: 40 }, (_, i) => 1e-9 * Math.sin(i)), tau0: 1 };
 const STATE = { position: [26_560_000, 0, 0] as const, velocity: [0, 3874, 0] as const };
 const ORBIT = { semiMajorAxis: 26_560_000, eccentricity: 0.01, inclination: 0.96, semiMajorAxisKind: 'mean' as const };
+const MEAN_ELEMENTS = { ...ORBIT, raan: 1, argumentOfPerigee: 0.5, meanAnomaly: 2 };
 
 /** Runs `call` and returns the InvalidArgumentError it must throw. */
 function invalid(call: () => unknown): InvalidArgumentError {
@@ -180,6 +186,8 @@ describe('one options convention: a constant set is { constants } in the trailin
       ['meanClockRate', () => meanClockRate(26_560_000, GPS_ICD as never)],
       ['j2Potential', () => j2Potential([26_560_000, 0, 0], GPS_ICD as never)],
       ['createGravityField', () => createGravityField('j2', GPS_ICD as never)],
+      ['j2SecularRates', () => j2SecularRates(MEAN_ELEMENTS, GPS_ICD as never)],
+      ['propagateJ2Secular', () => propagateJ2Secular(MEAN_ELEMENTS, 3600, GPS_ICD as never)],
       [
         'periodicCorrectionOnTimeGrid',
         () =>
@@ -227,6 +235,34 @@ describe('one options convention: a constant set is { constants } in the trailin
     expect(iers).toBe(periodicCorrectionFromElements(26_560_000, 0.01, 1, {}));
     expect(gps).not.toBe(iers);
     expect(Math.abs(gps / iers - Math.sqrt(GPS_ICD.gm / IERS_2010.gm))).toBeLessThan(1e-15);
+  });
+});
+
+describe('an orbit or relativity entry point given its epoch as a bare number names the field and says how to make the Instant (ADR draft orbitinst, common practice, no source)', () => {
+  const cases: [string, string, (epoch: unknown) => unknown][] = [
+    ['sunPositionLowPrecision', 'epoch', (epoch) => sunPositionLowPrecision(epoch as never)],
+    ['moonPositionLowPrecision', 'epoch', (epoch) => moonPositionLowPrecision(epoch as never)],
+    ['createGravityField', 'options.epoch', (epoch) => createGravityField('full', { epoch: epoch as never })],
+    [
+      'integrateProperTime',
+      'options.epoch',
+      (epoch) => integrateProperTime(STATE, 3600, 600, { model: 'full', epoch: epoch as never }),
+    ],
+    ['boundStateCheck', 'options.epoch', (epoch) => boundStateCheck(STATE, { model: 'full', epoch: epoch as never })],
+  ];
+  it.each(cases)(
+    '%s with 8.1e8 (TT seconds since J2000.0) throws InvalidArgumentError naming %s with the instantFromTtSecondsSinceJ2000 hint',
+    (_name, field, call) => {
+      const error = invalid(() => call(8.1e8));
+      expect(error.argument).toBe(field);
+      expect(error.expected).toBe('an Instant, not a number of seconds');
+      expect(error.hint).toMatch(/parseIso\('2027-03-01T00:00:00', 'TT'\).*instantFromTtSecondsSinceJ2000\(seconds\)/);
+    },
+  );
+  it("createGravityField(model, { epochTtSecondsSinceJ2000 }) (the former option) is refused naming it, with the new option's name", () => {
+    const error = invalid(() => createGravityField('full', { epochTtSecondsSinceJ2000: 8.1e8 } as never));
+    expect(error.argument).toBe('options.epochTtSecondsSinceJ2000');
+    expect(error.hint).toBe('write { epoch: instantFromTtSecondsSinceJ2000(810000000) } (@tauline/sdk/time)');
   });
 });
 

@@ -10,9 +10,10 @@ const EPOCH_2023 = 725_803_200;
 
 /** Geocentric state of a polar lunar orbiter 100 km above the mean radius, `speed` relative to the Moon. */
 function lunarOrbiter(speed: number): { position: [number, number, number]; velocity: [number, number, number] } {
-  const m = moonPositionLowPrecision(EPOCH_2023);
-  const mp = moonPositionLowPrecision(EPOCH_2023 + 1);
-  const mm = moonPositionLowPrecision(EPOCH_2023 - 1);
+  const at = instantFromTtSecondsSinceJ2000(EPOCH_2023);
+  const m = moonPositionLowPrecision(at);
+  const mp = moonPositionLowPrecision(at.plus(1));
+  const mm = moonPositionLowPrecision(at.plus(-1));
   return {
     position: [m[0], m[1], m[2] + MOON_MEAN_RADIUS + 100e3],
     velocity: [(mp[0] - mm[0]) / 2 + speed, (mp[1] - mm[1]) / 2, (mp[2] - mm[2]) / 2],
@@ -50,6 +51,10 @@ describe('boundStateCheck', () => {
   it('boundStateCheck refuses an epoch that is not an Instant and an unknown model', () => {
     expect(() => boundStateCheck(lunarOrbiter(1900), { model: 'full', epoch: EPOCH_2023 as never })).toThrow(
       InvalidArgumentError,
+    );
+    // A bare number of TT seconds since J2000.0 gets the hint saying how to make the Instant.
+    expect(() => boundStateCheck(lunarOrbiter(1900), { model: 'full', epoch: EPOCH_2023 as never })).toThrow(
+      /options\.epoch must be an Instant, not a number of seconds.*instantFromTtSecondsSinceJ2000\(seconds\)/,
     );
     expect(() => boundStateCheck(lunarOrbiter(1900), { model: 'egm' as never })).toThrow(/options\.model/);
   });

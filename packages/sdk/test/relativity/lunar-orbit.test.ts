@@ -12,9 +12,10 @@ import { instantFromTtSecondsSinceJ2000 } from '../../src/time/j2000.js';
 
 /** Geocentric state (mean equator and equinox of date) of a polar lunar orbiter at `altitude` above the mean radius, speed `speed` relative to the Moon. */
 function lunarOrbiter(epoch: number, altitude: number, speed: number): StateVector {
-  const m = moonPositionLowPrecision(epoch);
-  const mp = moonPositionLowPrecision(epoch + 1);
-  const mm = moonPositionLowPrecision(epoch - 1);
+  const at = instantFromTtSecondsSinceJ2000(epoch);
+  const m = moonPositionLowPrecision(at);
+  const mp = moonPositionLowPrecision(at.plus(1));
+  const mm = moonPositionLowPrecision(at.plus(-1));
   const vm = [0, 1, 2].map((k) => (mp[k]! - mm[k]!) / 2);
   return {
     position: [m[0], m[1], m[2] + MOON_MEAN_RADIUS + altitude],

@@ -8,6 +8,7 @@ import {
   ttSecondsSinceJ2000,
 } from '@tauline/sdk/time';
 import { describe, expect, it } from 'vitest';
+import { requireEpochInstant } from '../../src/time/j2000.js';
 
 const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
 
@@ -37,5 +38,40 @@ describe('ttSecondsSinceJ2000', () => {
   it('ttSecondsSinceJ2000 refuses what is not an Instant, and instantFromTtSecondsSinceJ2000 a non-finite number', () => {
     expect(() => ttSecondsSinceJ2000(8e8 as unknown as Instant)).toThrow(InvalidArgumentError);
     expect(() => instantFromTtSecondsSinceJ2000(Number.NaN)).toThrow(InvalidArgumentError);
+  });
+});
+
+describe('requireEpochInstant (internal: the epoch check of the orbit and relativity entry points)', () => {
+  it('requireEpochInstant(argument, instant) returns the same Instant', () => {
+    const at = ts.parseIso('2027-03-01T00:00:00', 'TT');
+    expect(requireEpochInstant('epoch', at)).toBe(at);
+  });
+
+  it('requireEpochInstant refuses a number and an omitted epoch naming the argument, with the hint how to build one', () => {
+    for (const [value, expected] of [
+      [8.1e8, 'an Instant, not a number of seconds'],
+      [undefined, 'an Instant (required)'],
+    ] as const) {
+      let error: unknown;
+      try {
+        requireEpochInstant('options.epoch', value);
+      } catch (e) {
+        error = e;
+      }
+      expect(error).toBeInstanceOf(InvalidArgumentError);
+      const e = error as InvalidArgumentError;
+      expect(e.argument).toBe('options.epoch');
+      expect(e.expected).toBe(expected);
+      expect(e.hint).toContain('instantFromTtSecondsSinceJ2000(seconds)');
+    }
+  });
+
+  it('requireEpochInstant refuses an ISO string or a plain object with the generic Instant message', () => {
+    expect(() => requireEpochInstant('epoch', '2027-03-01T00:00:00')).toThrow(/epoch must be an Instant \(build one/);
+    expect(() => requireEpochInstant('epoch', { taiSeconds: 8e8, taiFraction: 0 })).toThrow(InvalidArgumentError);
+  });
+
+  it("the hint's own recipe works: parseIso('2027-03-01T00:00:00', 'TT') is 857 131 200 s after J2000.0 (9920.5 d, Python datetime [C])", () => {
+    expect(ttSecondsSinceJ2000(ts.parseIso('2027-03-01T00:00:00', 'TT'))).toBe(857_131_200);
   });
 });
