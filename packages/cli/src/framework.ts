@@ -50,6 +50,8 @@ export interface Command {
   flags: Record<string, FlagSpec>;
   /** Whether positional arguments (files) are accepted. */
   allowPositionals?: boolean;
+  /** Flags of earlier releases, no longer accepted: name (without `--`) → what to give instead. */
+  retiredFlags?: Readonly<Record<string, string>>;
   run(args: ParsedArgs, io: Io): Promise<number> | number;
 }
 
@@ -128,6 +130,9 @@ export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
         ? e.message.replace(/\. To specify a positional.*$/s, '').replace(/\s*\n\s*/g, ' ')
         : String(e);
     const unknown = /^Unknown option '--?([^'=]+)/.exec(message)?.[1];
+    const instead = unknown === undefined ? undefined : command.retiredFlags?.[unknown];
+    if (instead !== undefined)
+      throw new UsageError(`--${unknown} is no longer accepted: ${instead} (see \`tauline ${command.name} --help\`)`);
     const hint =
       unknown !== undefined ? didYouMean(unknown, [...Object.keys(command.flags), 'help', 'wide'], '--') : '';
     throw new UsageError(`${message}${hint} (see \`tauline ${command.name} --help\`)`);

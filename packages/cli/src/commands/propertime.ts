@@ -7,7 +7,7 @@ import type { ConstantSet } from '@tauline/sdk/constants';
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import { GRAVITY_MODELS, type GravityModel, orbitalPeriod } from '@tauline/sdk/orbit';
 import { boundStateCheck, integrateProperTime } from '@tauline/sdk/relativity';
-import { instantFromTtSecondsSinceJ2000 } from '@tauline/sdk/time';
+import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant, J2000_EPOCH } from '@tauline/sdk/time';
 import { CONSTANTS_FLAG, constantsFlag } from '../flags.js';
 import {
   type Command,
@@ -17,6 +17,7 @@ import {
   formatFlag,
   formatFlags,
   numberFlag,
+  optionalFlag,
   parseNumber,
   requireFlag,
   sig,
@@ -83,8 +84,31 @@ const PROPERTIME_FLAG_NAMES: Readonly<Record<string, string>> = {
   duration: '--duration',
   step: '--step',
   relativeTolerance: '--tolerance',
-  seconds: '--epoch-tt-j2000',
 };
+
+/** The instant of t = 0 and the scale it was read on. */
+interface RunEpoch {
+  readonly instant: Instant;
+  readonly scale: 'TT' | 'UTC';
+}
+
+/** `--epoch`: read on TT, or on UTC when it carries a zone designator; J2000.0 (2000-01-01T12:00:00 TT) when absent. */
+export function epochFlag(text: string | undefined): RunEpoch {
+  if (text === undefined) return { instant: J2000_EPOCH, scale: 'TT' };
+  const scale = /(Z|[+-]\d\d:?\d\d)$/i.test(text) ? 'UTC' : 'TT';
+  const instant = withFlagNames(
+    () => '--epoch',
+    () => createTimeScales(BUNDLED_LEAP_SECONDS).parseIso(text, scale),
+  );
+  return { instant, scale };
+}
+
+/** ISO 8601 reading of `instant` on TT, to the nanosecond only where it has a fraction. */
+function ttText(instant: Instant): string {
+  return createTimeScales(BUNDLED_LEAP_SECONDS)
+    .formatIso(instant, { scale: 'TT', fractionDigits: 9 })
+    .replace(/\.?0+$/, '');
+}
 
 /**
  * Refuses an unbound state with a message naming the flags; the judgement (which body, which escape speed) is
@@ -94,19 +118,15 @@ export function requireBoundState(
   state: { position: readonly number[]; velocity: readonly number[] },
   constants: ConstantSet,
   model: GravityModel = 'j2',
-  epochTtSecondsSinceJ2000 = 0,
+  epoch: Instant = J2000_EPOCH,
 ): void {
   const [x = Number.NaN, y = Number.NaN, z = Number.NaN] = state.position;
   const [vx = Number.NaN, vy = Number.NaN, vz = Number.NaN] = state.velocity;
   if (!(Math.hypot(x, y, z) > 0) || !Number.isFinite(Math.hypot(vx, vy, vz))) return; // the SDK names the position or velocity error
-  const full = model === 'full' && Number.isFinite(epochTtSecondsSinceJ2000);
+  const full = model === 'full';
   const check = boundStateCheck(
     { position: [x, y, z], velocity: [vx, vy, vz] },
-    {
-      model: full ? 'full' : 'j2',
-      constants,
-      ...(full ? { epoch: instantFromTtSecondsSinceJ2000(epochTtSecondsSinceJ2000) } : {}),
-    },
+    { model: full ? 'full' : 'j2', constants, ...(full ? { epoch } : {}) },
   );
   if (check.bound) return;
   if (check.body === 'moon') {
@@ -114,7 +134,7 @@ export function requireBoundState(
       '--state (|velocity relative to the Moon|)',
       check.speed,
       `below the lunar escape speed √(2GM_M/ρ) = ${check.escapeSpeed.toFixed(1)} m/s at ρ = ${check.distance.toFixed(0)} m from the Moon's centre (a Moon-bound orbit inside its Hill sphere, ${(check.hillRadius ?? 0).toFixed(0)} m)`,
-      "the state is inside the Moon's Hill sphere but not bound to the Moon; check the velocity (m/s, geocentric) and --epoch-tt-j2000",
+      "the state is inside the Moon's Hill sphere but not bound to the Moon; check the velocity (m/s, geocentric) and --epoch",
     );
   }
   throw new InvalidArgumentError(
@@ -131,7 +151,7 @@ export const propertimeCommand: Command = {
   name: 'propertime',
   summary: "Integrate an orbit and its clock's proper time τ − TT (point mass, J2, or J2 + Sun/Moon).",
   usage:
-    '--state x,y,z,vx,vy,vz --duration <s> --step <s> [--model point-mass|j2|full] [--epoch-tt-j2000 <s>] [--constants <name>] [--tolerance <rtol>] [--json | --format table|json]',
+    '--state x,y,z,vx,vy,vz --duration <s> --step <s> [--model point-mass|j2|full] [--epoch <ISO 8601>] [--constants <name>] [--tolerance <rtol>] [--json | --format table|json]',
   flags: {
     state: {
       type: 'string',
@@ -146,10 +166,11 @@ export const propertimeCommand: Command = {
       value: '<name>',
       description: 'Force and clock-potential model: point-mass, j2 (default), full (J2 + lunar and solar tides).',
     },
-    'epoch-tt-j2000': {
+    epoch: {
       type: 'string',
-      value: '<s>',
-      description: 'For --model full: TT epoch of t = 0 in seconds since J2000.0 (default 0).',
+      value: '<ISO 8601>',
+      description:
+        'Instant of t = 0, where --model full places the Sun and Moon: read on TT, or on UTC with a zone designator (Z). Default 2000-01-01T12:00:00 (J2000.0).',
     },
     constants: CONSTANTS_FLAG,
     tolerance: {
@@ -166,24 +187,28 @@ adaptive Dormand–Prince 8(5,3) integrator and its 7th-order dense output (Hair
 potential with Sun/Moon from the low-precision series of Montenbruck & Gill, Satellite Orbits (2000) §3.3.2.
 Accuracy: integration error < 1 ps/day at the default tolerance (LEO to GEO, e up to 0.16); model limits: see
 packages/sdk/docs/relativity-models.md. τ − TT = 0 at t = 0; the samples are t = 0, step, 2·step, … and the duration.
-JSON fields: samples [{ t (s), tauMinusTT (s) }], model, constants, epochTtSecondsSinceJ2000, ephemeris,
+JSON fields: samples [{ t (s), tauMinusTT (s) }], model, constants, epoch { iso, scale: TT }, ephemeris,
 relativeTolerance, acceptedSteps, rejectedSteps, meanRate (τ − TT at the end divided by the duration), caution
 (the mean rate is what a factory offset is computed from), units.
 An unbound state (v ≥ √(2GM/r), e.g. a velocity in the wrong unit) is refused; a speed under 1 % of the
 circular speed (km/s given as m/s?) is used as given, with a warning on stderr. With --model full, a state inside
 the Moon's Hill sphere (≈ 61 500 km from its centre) is judged against the Moon instead (lunar orbiters: give the
-geocentric state at --epoch-tt-j2000, mean equator and equinox of date); the run stops if the orbit hits the Moon.
+geocentric state at --epoch, mean equator and equinox of date); the run stops if the orbit hits the Moon.
 Exit status: 0 success, 2 invalid input.`,
+  retiredFlags: {
+    'epoch-tt-j2000':
+      'give the instant of t = 0 as --epoch <ISO 8601> on TT (J2000.0 + 725803200 s is --epoch 2023-01-01T00:00:00)',
+  },
   run(args, io) {
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
     const state = parseStateFlag(requireFlag(args, 'state'));
     const duration = numberFlag(args, 'duration', true);
     const step = numberFlag(args, 'step', true);
     const model = choiceFlag<GravityModel>(args, 'model', GRAVITY_MODELS, 'j2');
-    const epoch = numberFlag(args, 'epoch-tt-j2000') ?? 0;
+    const epoch = epochFlag(optionalFlag(args, 'epoch'));
     const tolerance = numberFlag(args, 'tolerance');
     const constants = constantsFlag(args);
-    withFlagNames(PROPERTIME_FLAG_NAMES, () => requireBoundState(state, constants, model, epoch));
+    withFlagNames(PROPERTIME_FLAG_NAMES, () => requireBoundState(state, constants, model, epoch.instant));
     // Orbits in the span: the two-body period at the initial radius (a circular orbit). The bound check above has
     // refused any radius orbitalPeriod would; r0 = 0 is left for integrateProperTime to name (--state).
     const r0 = Math.hypot(...state.position);
@@ -194,7 +219,7 @@ Exit status: 0 success, 2 invalid input.`,
         integrateProperTime(state, duration, step, {
           model,
           constants,
-          epoch: instantFromTtSecondsSinceJ2000(epoch),
+          epoch: epoch.instant,
           ...(tolerance === undefined ? {} : { relativeTolerance: tolerance }),
           onProgress: bar.update,
         }),
@@ -218,7 +243,7 @@ Exit status: 0 success, 2 invalid input.`,
           samples,
           model: result.model,
           constants: result.constants,
-          epochTtSecondsSinceJ2000: epoch,
+          epoch: { iso: ttText(epoch.instant), scale: 'TT' },
           ephemeris: result.ephemeris,
           relativeTolerance: result.relativeTolerance,
           acceptedSteps: result.acceptedSteps,
@@ -229,7 +254,7 @@ Exit status: 0 success, 2 invalid input.`,
           units: {
             t: 's (since the start)',
             tauMinusTT: 's',
-            epochTtSecondsSinceJ2000: 's (TT)',
+            epoch: 'ISO 8601 reading on TT of the instant of t = 0',
             relativeTolerance: 'dimensionless',
             meanRate: 'dimensionless',
           },
@@ -241,7 +266,7 @@ Exit status: 0 success, 2 invalid input.`,
     io.out(
       wrapLines(
         `Proper time τ − TT, model ${result.model}, constants ${result.constants}` +
-          (result.model === 'full' ? `, epoch TT J2000 + ${epoch} s (${result.ephemeris})` : '') +
+          (result.model === 'full' ? `, epoch ${ttText(epoch.instant)} TT (${result.ephemeris})` : '') +
           '\n\n',
         width,
       ),

@@ -50,11 +50,12 @@ describe('tauline propertime', () => {
       '1200',
       '--model',
       'full',
-      '--epoch-tt-j2000',
-      '8e8',
+      '--epoch',
+      '2025-05-08T18:13:20',
     );
     expect(r.status).toBe(0);
     expect(r.out).toMatch(/model full/);
+    expect(r.out).toMatch(/epoch 2025-05-08T18:13:20 TT/);
     expect(r.out.replace(/\s+/g, ' ')).toMatch(/Montenbruck & Gill/); // the title may wrap at 100 columns
     expect(r.out).toMatch(/τ − TT \(ns\)/);
     expect(r.out).toMatch(/mean rate over the span/);
@@ -114,11 +115,36 @@ describe('tauline propertime', () => {
     expect(doc.samples.map((s: { t: number }) => s.t)).toEqual([0, 600, 1200]);
   });
 
+  it('--epoch is read on TT (UTC with Z) and printed in JSON as { iso, scale: TT }; 2023-01-01T00:00:00Z is 69.184 s later on TT (TAI − UTC = 37 s from 2017, IERS Bulletin C [M]; TT − TAI = 32.184 s)', async () => {
+    const args = ['--state', GPS_STATE, '--duration', '600', '--step', '600', '--json'];
+    const tt = JSON.parse((await run(...args, '--epoch', '2023-01-01T00:00:00')).out);
+    expect(tt.epoch).toEqual({ iso: '2023-01-01T00:00:00', scale: 'TT' });
+    expect(tt.units.epoch).toMatch(/TT/);
+    expect(tt.epochTtSecondsSinceJ2000).toBeUndefined();
+    const utc = JSON.parse((await run(...args, '--epoch', '2023-01-01T00:00:00Z')).out);
+    expect(utc.epoch).toEqual({ iso: '2023-01-01T00:01:09.184', scale: 'TT' });
+    const none = JSON.parse((await run(...args)).out);
+    expect(none.epoch).toEqual({ iso: '2000-01-01T12:00:00', scale: 'TT' });
+  });
+
+  it('--epoch-tt-j2000 (an earlier release) is refused with the --epoch form to give instead (exit 2)', async () => {
+    const r = await run('--state', GPS_STATE, '--duration', '600', '--step', '600', '--epoch-tt-j2000', '725803200');
+    expect(r.status).toBe(2);
+    expect(r.err).toMatch(
+      /--epoch-tt-j2000 is no longer accepted: give the instant of t = 0 as --epoch <ISO 8601> on TT/,
+    );
+    const bad = await run('--state', GPS_STATE, '--duration', '600', '--step', '600', '--epoch', '2023-13-01T00:00:00');
+    expect(bad.status).toBe(2);
+    expect(bad.err).toMatch(/--epoch/);
+  });
+
   describe('lunar orbiters', () => {
     // A polar lunar orbiter 100 km above the mean radius (1737.4 km, IAU WGCCRE [M]) at 2023-01-01 00:00 TT (725 803 200 s after J2000.0), given
     // geocentrically (mean equator and equinox of date) from the SDK's own low-precision Moon; lunar GM 4.902800066e12
     // m³/s² (JPL DE-series value [M]). Lunar escape speed there √(2GM_M/ρ) = 2310.1 m/s [C].
     const epoch = 725_803_200;
+    /** The same instant as --epoch text: J2000.0 is 2000-01-01T12:00:00 TT and TT has no leap seconds [C]. */
+    const EPOCH_TT = '2023-01-01T00:00:00';
     const lunarState = (speed: number): string => {
       const at = instantFromTtSecondsSinceJ2000(epoch);
       const m = moonPositionLowPrecision(at);
@@ -137,8 +163,8 @@ describe('tauline propertime', () => {
         '43200',
         '--model',
         'full',
-        '--epoch-tt-j2000',
-        String(epoch),
+        '--epoch',
+        EPOCH_TT,
         '--tolerance',
         '1e-14',
         '--json',
@@ -167,8 +193,8 @@ describe('tauline propertime', () => {
         '43200',
         '--model',
         'full',
-        '--epoch-tt-j2000',
-        String(epoch),
+        '--epoch',
+        EPOCH_TT,
       );
       expect(r.status).toBe(2);
       expect(r.err).toMatch(/lunar escape speed √\(2GM_M\/ρ\) = 2310\.1 m\/s/);
@@ -184,8 +210,8 @@ describe('tauline propertime', () => {
         '43200',
         '--model',
         'full',
-        '--epoch-tt-j2000',
-        String(epoch),
+        '--epoch',
+        EPOCH_TT,
       );
       expect(r.status).toBe(2);
       expect(r.err).toMatch(/hits the Moon/);
