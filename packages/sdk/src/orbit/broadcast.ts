@@ -111,7 +111,7 @@ export interface BroadcastEvaluation {
   readonly clockCorrectionSeconds: Seconds;
 }
 
-/** Each system's own time scale, on which its records count scale seconds (GPST, GST, BDT). */
+/** Each system's own time scale (GPST, GST, BDT): its records' epochs are broadcast as readings of it. */
 export const SYSTEM_TIME_SCALE: Readonly<Record<KeplerianSystem, OrbitScale>> = Object.freeze({
   G: 'GPS',
   E: 'GST',
