@@ -242,13 +242,6 @@ function validateRecord(eph: KeplerianBroadcastEphemeris, name = 'ephemeris'): v
   if (e < 0 || e >= 1) throw new InvalidArgumentError(`${name}.eccentricity`, e, 'in [0, 1) for an elliptical orbit');
 }
 
-/** Start of week 0 of each system's own scale, for messages (see `WEEK_EPOCH_MJD` of the time module). */
-const WEEK_ZERO: Readonly<Record<KeplerianSystem, string>> = {
-  G: '1980-01-06T00:00:00 GPST',
-  E: '1999-08-22T00:00:00 GST',
-  C: '2006-01-01T00:00:00 BDT',
-};
-
 /**
  * t_oe in seconds of week of the record's system scale (the broadcast t_oe field), read by the time module.
  * @throws {InvalidArgumentError} naming `${name}.toe` when t_oe lies before the system's week 0.
@@ -261,7 +254,7 @@ function toeSecondsOfWeek(eph: KeplerianBroadcastEphemeris, name: string): Secon
     throw new InvalidArgumentError(
       `${name}.toe`,
       eph.toe.toString(),
-      `an instant at or after the start of the system's week 0 (${WEEK_ZERO[eph.system]})`,
+      `an instant at or after the start of the system's week 0 (${error.validFrom})`,
     );
   }
 }

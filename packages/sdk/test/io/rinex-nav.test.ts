@@ -380,6 +380,22 @@ describe('parseRinexNav: malformed input throws ParseError with file, line and c
       /consistent with the epoch t_oc/,
     );
   });
+  it('parseRinexNav(text) rejects a BeiDou t_oc before BDT week 0 (2006-01-01) and a Galileo t_oc before GST week 0 (1999-08-22) at the epoch', () => {
+    const c08 = lines.findIndex((l) => l.startsWith('C08'));
+    expectParseError(
+      () => parseRinexNav(withLine(c08 + 1, lines[c08]!.replace('C08 2024', 'C08 2005'))),
+      c08 + 1,
+      5,
+      /t_oc at or after the start of BDT week 0, 2006-01-01T00:00:00 BDT/,
+    );
+    const e11 = lines.findIndex((l) => l.startsWith('E11'));
+    expectParseError(
+      () => parseRinexNav(withLine(e11 + 1, lines[e11]!.replace('E11 2024', 'E11 1999'))),
+      e11 + 1,
+      5,
+      /t_oc at or after the start of GST week 0, 1999-08-22T00:00:00 GST/,
+    );
+  });
   it('parseRinexNav(text) rejects Galileo data-source bits that name neither or both message kinds', () => {
     const at = lines.findIndex((l) => l.startsWith('E11')) + 5;
     const ds = `${lines[at]!.slice(0, 23)}  .000000000000D+00${lines[at]!.slice(42)}`;
