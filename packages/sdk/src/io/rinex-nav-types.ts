@@ -106,8 +106,8 @@ export interface RinexNavEphemeris extends KeplerianBroadcastEphemeris {
   /** t_oe as written, in seconds of week. */
   readonly toeSecondsOfWeek: Seconds;
   /**
-   * Transmission time of message as written, in seconds of week, when given (RINEX 2.11 Table A4 note: reduced
-   * by 604 800 s, i.e. negative, when sent in the week before t_oe's [V1]); `transmission` places it.
+   * Transmission time of message as written, in seconds of week, when given (negative when sent in the week
+   * before t_oe's, as the format allows; `transmission` places it, see `transmissionTime` in rinex-nav-kepler.ts).
    */
   readonly transmissionSecondsOfWeek?: Seconds;
   /** SV accuracy / SISA, in metres, when given. */
