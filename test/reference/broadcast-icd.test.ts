@@ -16,10 +16,11 @@ import {
 } from '../../packages/sdk/src/orbit/broadcast.js';
 import { signalClockCorrection } from '../../packages/sdk/src/orbit/signal-clock.js';
 import { type PreciseCorrectionResult, PreciseCorrectionStream } from '../../packages/sdk/src/relativity/precise.js';
-import { scaleSecondsFromInstant } from '../../packages/sdk/src/time/file-epochs.js';
+import { instantFromWeekSeconds } from '../../packages/sdk/src/time/weeks.js';
 
 const NANOSECOND = 1e-9;
-const WEEK_2296 = 2296 * 604800;
+/** Start of GPS week 2296, 2024-01-07T00:00:00 GPST (1980-01-06 + 2296 weeks; common practice). */
+const WEEK_2296 = instantFromWeekSeconds('GPS', 2296, 0);
 const fixture = (path: string) => readFileSync(new URL(`../fixtures/${path}`, import.meta.url), 'utf8');
 
 function gpsRecord(overrides: Partial<KeplerianBroadcastEphemeris>): KeplerianBroadcastEphemeris {
@@ -27,8 +28,8 @@ function gpsRecord(overrides: Partial<KeplerianBroadcastEphemeris>): KeplerianBr
     satellite: 'G01',
     system: 'G',
     message: 'LNAV',
-    tocSeconds: WEEK_2296,
-    toeSeconds: WEEK_2296,
+    toc: WEEK_2296,
+    toe: WEEK_2296,
     af0: 0,
     af1: 0,
     af2: 0,
@@ -60,14 +61,14 @@ describe('IS-GPS-200 §20.3.3.3.3.1 user algorithm: physics-refs.md §3 check va
   const eph = gpsRecord({ m0: 1 - e * Math.sin(1) });
 
   it('evaluateBroadcastEphemeris(√A = 5153.79589081, e = 0.0123456789, E_k = 1 rad, GPS μ) gives Δt_r = −2.378695477618e-08 s', () => {
-    const ev = evaluateBroadcastEphemeris(eph, eph.toeSeconds);
+    const ev = evaluateBroadcastEphemeris(eph, eph.toe);
     expect(Math.abs(ev.eccentricAnomaly - 1)).toBeLessThan(2e-15);
     expect(Math.abs(ev.relativisticSeconds - -2.378695477618e-8)).toBeLessThan(1e-20); // one unit in the 13th printed digit
   });
 
   it('evaluateBroadcastEphemeris(a_f0 = 1e-4, a_f1 = 1e-11, a_f2 = 1e-18, t − t_oc = 3600 s) gives Δt_sv = 1.000122260052238e-04 s', () => {
-    const withClock = { ...eph, af0: 1e-4, af1: 1e-11, af2: 1e-18, tocSeconds: eph.toeSeconds - 3600 };
-    const ev = evaluateBroadcastEphemeris(withClock, withClock.toeSeconds);
+    const withClock = { ...eph, af0: 1e-4, af1: 1e-11, af2: 1e-18, toc: eph.toe.plus(-3600) };
+    const ev = evaluateBroadcastEphemeris(withClock, withClock.toe);
     expect(Math.abs(ev.clockCorrectionSeconds - 1.000122260052238e-4)).toBeLessThan(1e-19); // one unit in the 16th printed digit
     expect(ev.polynomialSeconds).toBeCloseTo(1e-4 + 1e-11 * 3600 + 1e-18 * 3600 ** 2, 19);
   });
@@ -78,10 +79,10 @@ describe('IS-GPS-200 §20.3.3.3.3.1 user algorithm: physics-refs.md §3 check va
       af0: 1e-4,
       af1: 1e-11,
       af2: 1e-18,
-      tocSeconds: eph.toeSeconds - 3600,
+      toc: eph.toe.plus(-3600),
       groupDelays: { TGD: -1.0e-8 },
     };
-    const ev = evaluateBroadcastEphemeris(withClock, withClock.toeSeconds);
+    const ev = evaluateBroadcastEphemeris(withClock, withClock.toe);
     for (const signal of ['L1CA', 'L1P'] as const) {
       const l1 = signalClockCorrection(withClock, ev.clockCorrectionSeconds, signal);
       expect(Math.abs(l1.clockCorrectionSeconds - 1.000222260052238e-4)).toBeLessThan(1e-19); // one unit in the 16th printed digit
@@ -90,7 +91,7 @@ describe('IS-GPS-200 §20.3.3.3.3.1 user algorithm: physics-refs.md §3 check va
   });
 
   it('evaluateBroadcastEphemeris(...) state vector gives −2 r·v/c² = −2.378695477618e-08 s as well (the ICD "equivalent expression", physics-refs §3 [C])', () => {
-    const ev = evaluateBroadcastEphemeris(eph, eph.toeSeconds);
+    const ev = evaluateBroadcastEphemeris(eph, eph.toe);
     const [x, y, z] = ev.state.position;
     const [vx, vy, vz] = ev.state.velocity;
     const fromState = (-2 * (x * vx + y * vy + z * vz)) / 299_792_458 ** 2;
@@ -110,7 +111,7 @@ describe('IERS Conventions (2010) §10.2 eq. 10.10: amplitude 2√(GM a)·e/c²,
       eccentricity: e,
       m0: Math.PI / 2 - e,
     });
-    const ev = evaluateBroadcastEphemeris(eph, eph.toeSeconds);
+    const ev = evaluateBroadcastEphemeris(eph, eph.toe);
     expect(Math.abs(-ev.relativisticSeconds / NANOSECOND - 45.7948)).toBeLessThan(5e-5); // half a unit in the last printed digit
   });
   it('evaluateBroadcastEphemeris(Galileo record, e = 0.01) peaks at 22.8974 ns ("≈23 ns for e = 0.01")', () => {
@@ -122,9 +123,9 @@ describe('IERS Conventions (2010) §10.2 eq. 10.10: amplitude 2√(GM a)·e/c²,
       eccentricity: 0.01,
       m0: Math.PI / 2 - 0.01,
     });
-    expect(
-      Math.abs(-evaluateBroadcastEphemeris(eph, eph.toeSeconds).relativisticSeconds / NANOSECOND - 22.8974),
-    ).toBeLessThan(5e-5);
+    expect(Math.abs(-evaluateBroadcastEphemeris(eph, eph.toe).relativisticSeconds / NANOSECOND - 22.8974)).toBeLessThan(
+      5e-5,
+    );
   });
 });
 
@@ -142,11 +143,9 @@ describe('Independent implementation: test/fixtures/sp3/generate.py evaluates th
       for (const rec of epoch.records) {
         if (!rec.position || !rec.velocity) continue;
         const eph = pick(rec.satellite);
-        // GPST → BDT: BDT = GPST − 14 s (BDS-SIS-ICD §3.3 [M]; physics-refs §8 offsets TAI − 19 s / TAI − 33 s).
-        const t = scaleSecondsFromInstant(epoch.epoch, 'GPS') - (eph.system === 'C' ? 14 : 0);
-        const st = evaluateBroadcastEphemeris(eph, t).state;
-        // The SP3 epoch's Instant, given as such, is read on the record's own scale by the SDK: the same time.
-        expect(evaluateBroadcastEphemeris(eph, epoch.epoch).state).toEqual(st);
+        // The SP3 epoch (GPST) as an Instant; C08's t_oe is a BDT reading, so t − t_oe carries BDT = GPST − 14 s
+        // (BDS-SIS-ICD §3.3 [M]; physics-refs §8 offsets TAI − 19 s / TAI − 33 s), as the generator applies it.
+        const st = evaluateBroadcastEphemeris(eph, epoch.epoch).state;
         worstPosition = Math.max(worstPosition, Math.hypot(...st.position.map((p, k) => p - rec.position![k]!)));
         worstVelocity = Math.max(worstVelocity, Math.hypot(...st.velocity.map((v, k) => v - rec.velocity![k]!)));
         compared++;
@@ -169,10 +168,9 @@ describe('Independent implementation: test/fixtures/sp3/generate.py evaluates th
     for (const r of results) {
       if (r.kind !== 'sample') continue;
       const eph = pick(r.sample.satellite);
-      const t = scaleSecondsFromInstant(r.sample.epoch, 'GPS') - (eph.system === 'C' ? 14 : 0);
       worst = Math.max(
         worst,
-        Math.abs(r.sample.relativisticSeconds - evaluateBroadcastEphemeris(eph, t).relativisticSeconds),
+        Math.abs(r.sample.relativisticSeconds - evaluateBroadcastEphemeris(eph, r.sample.epoch).relativisticSeconds),
       );
       n++;
     }

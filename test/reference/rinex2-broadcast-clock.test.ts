@@ -2,16 +2,19 @@
  * IS-GPS-200 satellite clock correction from RINEX 2 navigation files, checked against values computed
  * independently with mpmath by test/fixtures/rinex-nav/reference_clock_v2.py [C] from the invented record
  * values of generate_v2.py. The script works in (week, seconds of week) with the ICD's ±302 400 s week
- * crossover rule, while Tauline works in continuous scale seconds: the two agree only if the reader resolved
+ * crossover rule, while Tauline works on absolute Instants (t − t_oe as a difference of instants): the two agree
+ * only if the reader resolved
  * weeks, two-digit years and fit intervals correctly. Algorithm: IS-GPS-200 §20.3.3.3.3.1 and Table 20-IV [M]
  * (physics-refs §3, first sentences [V2]); file layout: RINEX 2.11 Table A4 [V1].
  */
 
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { scaleSecondsFromFields } from '../../packages/sdk/src/io/line-reader.js';
 import { parseRinexNav } from '../../packages/sdk/src/io/rinex-nav.js';
 import { evaluateBroadcastEphemeris, selectEphemeris } from '../../packages/sdk/src/orbit/broadcast.js';
+import type { Instant } from '../../packages/sdk/src/time/instant.js';
+import { BUNDLED_LEAP_SECONDS } from '../../packages/sdk/src/time/leap-seconds.js';
+import { createTimeScales } from '../../packages/sdk/src/time/scales.js';
 
 const SECOND = 1;
 const fixture = (name: string) => readFileSync(new URL(`../fixtures/rinex-nav/${name}`, import.meta.url), 'utf8');
@@ -50,18 +53,11 @@ const V210: readonly [string, string, number, number][] = [
 /** Tolerances: Δt_r and Δt_sv to 1e-18 s (1 as): float64 rounding of ~1e-4 s values is ~1e-20 s. */
 const TOLERANCE = 1e-18 * SECOND;
 
-function gpst(iso: string): number {
-  const [d, t] = iso.split('T');
-  const [year, month, day] = d!.split('-').map(Number);
-  const [hour, minute, second] = t!.split(':').map(Number);
-  return scaleSecondsFromFields({
-    year: year!,
-    month: month!,
-    day: day!,
-    hour: hour!,
-    minute: minute!,
-    second: second!,
-  });
+const TS = createTimeScales(BUNDLED_LEAP_SECONDS);
+
+/** A GPST reading as an instant (the time module's ISO reader). */
+function gpst(iso: string): Instant {
+  return TS.parseIso(iso, 'GPS');
 }
 
 function evaluate(text: string, table: readonly [string, string, number, number][]): number {
@@ -92,7 +88,7 @@ describe('IS-GPS-200 §20.3.3.3.3.1 clock correction from RINEX 2 files: referen
     const file = parseRinexNav(fixture('gps-v211.rnx'));
     const covered: string[] = [];
     for (let k = 0; k <= 11; k++) {
-      const t = gpst('2024-01-06T23:00:00') + 1800 * k;
+      const t = gpst('2024-01-06T23:00:00').plus(1800 * k);
       for (const sat of ['G14', 'G27', 'G03']) {
         if (
           selectEphemeris(
@@ -103,7 +99,7 @@ describe('IS-GPS-200 §20.3.3.3.3.1 clock correction from RINEX 2 files: referen
           covered.push(`${sat}@${k}`);
       }
     }
-    const expected = V211.map(([sat, iso]) => `${sat}@${(gpst(iso) - gpst('2024-01-06T23:00:00')) / 1800}`);
+    const expected = V211.map(([sat, iso]) => `${sat}@${gpst(iso).secondsSince(gpst('2024-01-06T23:00:00')) / 1800}`);
     expect(covered.sort()).toEqual([...expected].sort());
   });
 

@@ -4,7 +4,7 @@
  * no usable record (never extrapolated past a fit interval).
  */
 import type { RinexNavEphemeris, RinexNavHeader } from '@tauline/sdk/io';
-import { fieldsFromScaleSeconds, formatEpochFields } from '@tauline/sdk/io';
+import type { Instant } from '@tauline/sdk/time';
 
 /** The header parameters of one navigation file, as printed (JSON `files[]`). */
 export interface NavFileSummary {
@@ -77,16 +77,16 @@ export function navHeaderLines(files: readonly NavFileSummary[]): string[] {
 }
 
 /**
- * Why no record serves time t (scale seconds of the satellite's system): none in the files, only
- * unhealthy ones, or t before the start / after the end of the nearest record's fit interval.
- * `outsideWindow` counts the satellite's records dropped because their fit interval misses the whole window.
- * `reason` is the full sentence (JSON), `short` fits a table column.
+ * Why no record serves `time`: none in the files, only unhealthy ones, or `time` before the start / after the end
+ * of the nearest record's fit interval (Instant arithmetic; `stamp` prints an instant, e.g. on the satellite's own
+ * scale through the SDK's `formatFileEpoch`). `outsideWindow` counts the satellite's records dropped because their
+ * fit interval misses the whole window. `reason` is the full sentence (JSON), `short` fits a table column.
  */
 export function noRecordReason(
   records: readonly RinexNavEphemeris[],
-  t: number,
+  time: Instant,
   includeUnhealthy: boolean,
-  scaleLabel: string,
+  stamp: (instant: Instant) => string,
   outsideWindow = 0,
 ): { reason: string; short: string } {
   if (records.length === 0 && outsideWindow > 0) {
@@ -105,21 +105,23 @@ export function noRecordReason(
       short: 'no healthy record',
     };
   }
-  // The first record closest to t (usable is not empty here).
-  const nearest = usable.reduce((best, r) => (Math.abs(t - r.toeSeconds) < Math.abs(t - best.toeSeconds) ? r : best));
-  const at = (s: number) => `${formatEpochFields(fieldsFromScaleSeconds(s))} ${scaleLabel}`;
+  // The first record closest to the time (usable is not empty here).
+  const distance = (r: RinexNavEphemeris) => Math.abs(time.secondsSince(r.toe));
+  const nearest = usable.reduce((best, r) => (distance(r) < distance(best) ? r : best));
   const half = nearest.fitIntervalSeconds / 2;
-  const what = `the fit interval of the nearest healthy record (t_oe ${at(nearest.toeSeconds)}, fit ${nearest.fitIntervalSeconds / 3600} h`;
-  if (t > nearest.toeSeconds + half) {
+  const start = nearest.toe.plus(-half);
+  const end = nearest.toe.plus(half);
+  const what = `the fit interval of the nearest healthy record (t_oe ${stamp(nearest.toe)}, fit ${nearest.fitIntervalSeconds / 3600} h`;
+  if (time.isAfter(end)) {
     return {
-      reason: `after the end of ${what}, valid to ${at(nearest.toeSeconds + half)}): not extrapolated`,
-      short: `fit interval ended ${at(nearest.toeSeconds + half)}`,
+      reason: `after the end of ${what}, valid to ${stamp(end)}): not extrapolated`,
+      short: `fit interval ended ${stamp(end)}`,
     };
   }
-  if (t < nearest.toeSeconds - half) {
+  if (time.isBefore(start)) {
     return {
-      reason: `before the start of ${what}, valid from ${at(nearest.toeSeconds - half)}): not extrapolated`,
-      short: `fit interval starts ${at(nearest.toeSeconds - half)}`,
+      reason: `before the start of ${what}, valid from ${stamp(start)}): not extrapolated`,
+      short: `fit interval starts ${stamp(start)}`,
     };
   }
   return { reason: 'no healthy record whose fit interval covers this time', short: 'no healthy record covers t' };

@@ -5,7 +5,7 @@
 import { statSync } from 'node:fs';
 import { type RinexNavEphemeris, readRinexNav } from '@tauline/sdk/io';
 import { type KeplerianSystem, SYSTEM_TIME_SCALE } from '@tauline/sdk/orbit';
-import type { TimeScale } from '@tauline/sdk/time';
+import type { Instant, TimeScale } from '@tauline/sdk/time';
 import { MAX_NAVIGATION_BYTES, requireRegularFile, STANDARD_INPUT, sourceLabel, textChunks } from './files.js';
 import { type Io, progressBar, UsageError } from './framework.js';
 import { type NavFileSummary, summariseNavHeader } from './nav-summary.js';
@@ -49,6 +49,8 @@ export function totalSize(paths: readonly string[]): number {
 
 /** Name of each system's own time scale as printed. */
 export const SYSTEM_SCALE_LABEL: Record<KeplerianSystem, string> = { G: 'GPST', E: 'GST', C: 'BDT' };
+/** The file time-system code of each system's scale, for the SDK's `formatFileEpoch` (GST is `GAL` in RINEX). */
+export const SYSTEM_FILE_CODE: Readonly<Record<KeplerianSystem, string>> = { G: 'GPS', E: 'GAL', C: 'BDT' };
 /** The SDK time-scale id of each system's scale (the SDK's own table). */
 export const SYSTEM_SCALE: Readonly<Record<KeplerianSystem, TimeScale>> = SYSTEM_TIME_SCALE;
 
@@ -72,15 +74,18 @@ export interface LoadedNavigation {
   readonly files: readonly NavFileSummary[];
 }
 
+/** The instants a command needs records for, per system (a reading of each system's own scale may differ). */
+export type NavigationWindow = (system: KeplerianSystem) => { readonly from: Instant; readonly to: Instant };
+
 /**
  * Streams navigation files and keeps only the records a window needs: satellites in `filter`
- * (all when undefined) whose fit interval overlaps [from, to] of their own system's scale.
+ * (all when undefined) whose fit interval [t_oe − fit/2, t_oe + fit/2] overlaps [from, to] (instants).
  * Memory is bounded by the window, not by the files.
  */
 export async function loadNavigation(
   paths: readonly string[],
   io: Io,
-  window: (system: KeplerianSystem) => { from: number; to: number },
+  window: NavigationWindow,
   filter: ReadonlySet<string> | undefined,
 ): Promise<LoadedNavigation> {
   const records = new Map<string, RinexNavEphemeris[]>();
@@ -108,10 +113,8 @@ export async function loadNavigation(
           const eph = ev.ephemeris;
           if (filter && !filter.has(eph.satellite)) continue;
           const w = window(eph.system);
-          if (
-            eph.toeSeconds + eph.fitIntervalSeconds / 2 < w.from ||
-            eph.toeSeconds - eph.fitIntervalSeconds / 2 > w.to
-          ) {
+          const half = eph.fitIntervalSeconds / 2;
+          if (eph.toe.plus(half).isBefore(w.from) || eph.toe.plus(-half).isAfter(w.to)) {
             outsideWindow++;
             outsideWindowBySatellite.set(eph.satellite, (outsideWindowBySatellite.get(eph.satellite) ?? 0) + 1);
             continue;

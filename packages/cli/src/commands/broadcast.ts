@@ -9,7 +9,6 @@ import {
   type BroadcastSignal,
   evaluateBroadcastEphemeris,
   type KeplerianSystem,
-  SYSTEM_TIME_SCALE,
   selectEphemeris,
   signalClockCorrection,
   signalsOf,
@@ -19,8 +18,6 @@ import {
   createTimeScales,
   formatFileEpoch,
   type Instant,
-  instantFromScaleSeconds,
-  scaleSecondsFromInstant,
   type TimeScales,
 } from '@tauline/sdk/time';
 import {
@@ -45,23 +42,38 @@ import {
   UsageError,
 } from '../framework.js';
 import { noRecordReason } from '../nav-summary.js';
-import { isModelledSystem, type LoadedNavigation, loadNavigation, SYSTEM_SCALE_LABEL } from '../navigation.js';
+import {
+  isModelledSystem,
+  type LoadedNavigation,
+  loadNavigation,
+  type NavigationWindow,
+  SYSTEM_FILE_CODE,
+  SYSTEM_SCALE_LABEL,
+} from '../navigation.js';
 
 /** Samples per run above which the request is refused (keeps memory bounded). */
 const MAX_SAMPLES = 5_000_000;
 
-/** The file time-system code of each system's scale, for printing readings (GST is `GAL` in RINEX). */
-const SYSTEM_FILE_CODE: Record<KeplerianSystem, string> = { G: 'GPS', E: 'GAL', C: 'BDT' };
+/** `--from` or `--to` as read: the instant of each system's samples, and the one its printed labels count from. */
+interface TimeFlag {
+  /** The flag's instant for a system: the same UTC instant for all, or the reading on the system's own scale. */
+  readonly at: Readonly<Record<KeplerianSystem, Instant>>;
+  /** The UTC instant, or the reading on GPS time (labels print its reading; every system's scale reads alike). */
+  readonly label: Instant;
+}
 
 /**
  * Parses ISO 8601 text for `--from`/`--to`: an instant on UTC (designator required), or a reading of each
- * system's own scale (none allowed), kept as the scale-seconds count that every system's scale reads alike.
+ * system's own scale (none allowed), placed on GPST, GST and BDT by the SDK's time scales.
  */
-function parseTimeFlag(ts: TimeScales, flag: string, text: string, utc: boolean): Instant | number {
+function parseTimeFlag(ts: TimeScales, flag: string, text: string, utc: boolean): TimeFlag {
   try {
-    if (utc) return ts.parseIso(text, 'UTC');
-    // A reading of a GNSS scale: validated and counted on the GPS scale (same calendar rules, no leap seconds).
-    return scaleSecondsFromInstant(ts.parseIso(text, 'GPS'), 'GPS');
+    if (utc) {
+      const instant = ts.parseIso(text, 'UTC');
+      return { at: { G: instant, E: instant, C: instant }, label: instant };
+    }
+    const at = { G: ts.parseIso(text, 'GPS'), E: ts.parseIso(text, 'GST'), C: ts.parseIso(text, 'BDT') };
+    return { at, label: at.G };
   } catch (error) {
     if (error instanceof InvalidArgumentError) {
       throw new InvalidArgumentError(
@@ -259,40 +271,29 @@ interface SampleGrid {
   instantAt(k: number, system: KeplerianSystem): Instant;
   /** Sample k as printed (UTC with Z, or the reading without designator). */
   label(k: number): string;
-  /** First and last sample in scale seconds of the system (the window of the navigation records kept). */
-  window(system: KeplerianSystem): { from: number; to: number };
+  /** First and last sample of a system, as instants (the window of the navigation records kept). */
+  readonly window: NavigationWindow;
 }
 
 function sampleGrid(ts: TimeScales, args: ParsedArgs, request: BroadcastRequest): SampleGrid {
   const { step, utc } = request;
   const from = parseTimeFlag(ts, 'from', requireFlag(args, 'from'), utc);
   const to = parseTimeFlag(ts, 'to', requireFlag(args, 'to'), utc);
-  const span =
-    typeof from === 'number'
-      ? typeof to === 'number'
-        ? to - from
-        : Number.NaN
-      : typeof to === 'number'
-        ? Number.NaN
-        : to.secondsSince(from);
+  const span = to.label.secondsSince(from.label);
   if (!(span >= 0)) throw new InvalidArgumentError('--to', requireFlag(args, 'to'), 'a time not before --from');
   const count = Math.floor(span / step + 1e-9) + 1;
   const fractional = !Number.isInteger(step);
-  const instantAt = (k: number, system: KeplerianSystem): Instant =>
-    typeof from === 'number'
-      ? instantFromScaleSeconds(from + k * step, SYSTEM_TIME_SCALE[system])
-      : from.plus(k * step);
+  // Sample k is from + k·step: one product and one addition to an instant (no float count of seconds since 1980).
+  const instantAt = (k: number, system: KeplerianSystem): Instant => from.at[system].plus(k * step);
   const label = (k: number): string =>
-    typeof from === 'number'
-      ? formatFileEpoch(ts, instantFromScaleSeconds(from + k * step, 'GPS'), 'GPS')
-      : ts.formatIso(from.plus(k * step), { fractionDigits: fractional ? 6 : 0 });
-  const secondsAt = (k: number, system: KeplerianSystem) =>
-    scaleSecondsFromInstant(instantAt(k, system), SYSTEM_TIME_SCALE[system]);
+    utc
+      ? ts.formatIso(from.label.plus(k * step), { fractionDigits: fractional ? 6 : 0 })
+      : formatFileEpoch(ts, from.label.plus(k * step), 'GPS');
   return {
     count,
     instantAt,
     label,
-    window: (system) => ({ from: secondsAt(0, system), to: secondsAt(count - 1, system) }),
+    window: (system) => ({ from: instantAt(0, system), to: instantAt(count - 1, system) }),
   };
 }
 
@@ -330,18 +331,13 @@ function evaluateSatellites(
       const rec = selectEphemeris(records, at, { includeUnhealthy, galileoMessage });
       if (!rec) {
         samplesWithoutRecord++;
-        const t = scaleSecondsFromInstant(at, SYSTEM_TIME_SCALE[system]);
+        const stamp = (i: Instant) =>
+          `${formatFileEpoch(ts, i, SYSTEM_FILE_CODE[system])} ${SYSTEM_SCALE_LABEL[system]}`;
         samples.push({
           t: grid.label(k),
           relativisticSeconds: null,
           clockCorrectionSeconds: null,
-          ...noRecordReason(
-            records,
-            t,
-            includeUnhealthy,
-            SYSTEM_SCALE_LABEL[system],
-            nav.outsideWindowBySatellite.get(id) ?? 0,
-          ),
+          ...noRecordReason(records, at, includeUnhealthy, stamp, nav.outsideWindowBySatellite.get(id) ?? 0),
         });
         continue;
       }
@@ -352,7 +348,7 @@ function evaluateSatellites(
         relativisticSeconds: ev.relativisticSeconds,
         clockCorrectionSeconds: ev.clockCorrectionSeconds,
         ...(signal ? signalFields(rec, ev.clockCorrectionSeconds, signal, notes) : {}),
-        toe: formatFileEpoch(ts, rec.toeInstant, SYSTEM_FILE_CODE[system]),
+        toe: formatFileEpoch(ts, rec.toe, SYSTEM_FILE_CODE[system]),
         issueOfData: rec.issueOfData,
         message: rec.message,
       });

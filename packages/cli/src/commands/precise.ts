@@ -4,7 +4,7 @@
  */
 import { InvalidArgumentError } from '@tauline/sdk/errors';
 import { readSp3, type Sp3Event, type Sp3Header } from '@tauline/sdk/io';
-import { evaluateBroadcastEphemeris, SYSTEM_TIME_SCALE, selectEphemeris } from '@tauline/sdk/orbit';
+import { evaluateBroadcastEphemeris, selectEphemeris } from '@tauline/sdk/orbit';
 import {
   DEFAULT_LAGRANGE_POINTS,
   type PreciseCorrectionResult,
@@ -16,7 +16,6 @@ import {
   createTimeScales,
   formatFileEpoch,
   type Instant,
-  scaleSecondsFromInstant,
   type TimeScales,
 } from '@tauline/sdk/time';
 import { MAX_RECORD_BYTES, requireRegularFile, STANDARD_INPUT, sourceLabel } from '../files.js';
@@ -183,16 +182,13 @@ function preciseRequest(args: ParsedArgs): PreciseRequest {
   return { path, format, filter, points, navFiles };
 }
 
-/** Reads the navigation files over the SP3 span, read on each system's scale (± 1 h margin). */
+/** Reads the navigation files whose fit intervals overlap the SP3 span (instants, ± 1 h margin; every system alike). */
 function loadCrossCheck(request: PreciseRequest, header: Sp3Header, io: Io): Promise<LoadedNavigation> {
   const spanSeconds = header.epochInterval * (header.epochCount - 1);
   return loadNavigation(
     request.navFiles,
     io,
-    (system) => {
-      const s = scaleSecondsFromInstant(header.firstInstant, SYSTEM_TIME_SCALE[system]);
-      return { from: s - 3600, to: s + spanSeconds + 3600 };
-    },
+    () => ({ from: header.firstInstant.plus(-3600), to: header.firstInstant.plus(spanSeconds + 3600) }),
     request.filter ?? new Set(header.satellites),
   );
 }

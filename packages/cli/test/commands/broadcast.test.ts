@@ -3,6 +3,9 @@ import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { parseRinexNav } from '@tauline/sdk/io';
+import { evaluateBroadcastEphemeris, selectEphemeris } from '@tauline/sdk/orbit';
+import { BUNDLED_LEAP_SECONDS, createTimeScales } from '@tauline/sdk/time';
 import { describe, expect, it } from 'vitest';
 import { runCli as run } from '../run.js';
 
@@ -97,6 +100,46 @@ describe('tauline broadcast', () => {
     expect(
       Math.abs(s.relativisticSeconds - -4.442807633393e-10 * 0.0123456789 * 5153.79589081 * Math.sin(E)),
     ).toBeLessThan(1e-19);
+  });
+
+  it('tauline broadcast --step 0.1 samples at exact instants from --from: labels 00:00:00.1, .2, .3 and values equal to the SDK at those readings (no float count since 1980, whose steps of 2.4e-7 s printed .099999905)', async () => {
+    const r = await run([
+      'broadcast',
+      NAV3,
+      '--from',
+      '2024-01-07T00:00:00',
+      '--to',
+      '2024-01-07T00:00:00.3',
+      '--step',
+      '0.1',
+      '--satellite',
+      'C08,G05',
+      '--json',
+    ]);
+    expect(r.status).toBe(0);
+    const j = JSON.parse(r.out);
+    const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
+    const nav = parseRinexNav(readFileSync(NAV3, 'utf8'));
+    for (const [index, id, scale] of [
+      [0, 'C08', 'BDT'],
+      [1, 'G05', 'GPS'],
+    ] as const) {
+      const samples = j.satellites[index].samples as { t: string; clockCorrectionSeconds: number }[];
+      expect(samples.map((s) => s.t)).toEqual([
+        '2024-01-07T00:00:00',
+        '2024-01-07T00:00:00.1',
+        '2024-01-07T00:00:00.2',
+        '2024-01-07T00:00:00.3',
+      ]);
+      const records = nav.ephemerides.filter((e) => e.satellite === id);
+      for (const s of samples) {
+        // The label read on the satellite's own scale by the time module (independent of the CLI's sample grid).
+        const at = ts.parseIso(s.t, scale);
+        const expected = evaluateBroadcastEphemeris(selectEphemeris(records, at)!, at).clockCorrectionSeconds;
+        // k·0.1 and the decimal reading differ by < 1e-16 s; a_f1 ≈ 1e-11 makes that < 1e-26 s of clock correction.
+        expect(Math.abs(s.clockCorrectionSeconds - expected)).toBeLessThan(1e-20);
+      }
+    }
   });
 
   it('tauline broadcast marks samples outside every fit interval with null and a reason, and skips unhealthy records unless asked', async () => {

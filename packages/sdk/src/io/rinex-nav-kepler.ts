@@ -6,17 +6,28 @@
  *
  * @module
  */
-import { ParseError } from '../errors.js';
+import { OutOfDomainError, ParseError } from '../errors.js';
 import { at } from '../internal/checked.js';
 import type { KeplerianNavMessage, KeplerianSystem } from '../orbit/broadcast.js';
 import { defaultFitIntervalSeconds, isBeidouGeostationary, SYSTEM_TIME_SCALE } from '../orbit/broadcast.js';
-import { instantFromScaleSeconds } from '../time/file-epochs.js';
-import { type EpochFields, parseFortranReal, scaleSecondsFromFields, type TextLine } from './line-reader.js';
+import type { Instant } from '../time/instant.js';
+import { instantFromWeekSeconds, WEEK_EPOCH_MJD, weekSecondsFromInstant } from '../time/weeks.js';
+import { fileEpochInstant, readerTimeScales } from './epochs.js';
+import { type EpochFields, parseFortranReal, type TextLine } from './line-reader.js';
 import type { RinexNavEphemeris } from './rinex-nav-types.js';
 
 const SECONDS_PER_WEEK = 604_800;
-/** Weeks between 1980-01-06 (GPS week 0) and 2006-01-01 (BDT week 0) [M, BDS-SIS-ICD §3.3]. */
-const BDT_WEEK_OFFSET = 1356;
+/** The file time-system code of each system's own scale, on which its records' epochs are written. */
+const SYSTEM_FILE_CODE: Readonly<Record<KeplerianSystem, string>> = { G: 'GPS', E: 'GAL', C: 'BDT' };
+/**
+ * GPS weeks before each system's week 0, from the time module's week-0 epochs: Galileo 1024 (1999-08-22), BeiDou
+ * 1356 (2006-01-01; BDS-SIS-ICD §3.3 [M]). RINEX writes GPS and Galileo weeks in the GPS count, BeiDou in its own.
+ */
+const GPS_WEEKS_BEFORE: Readonly<Record<KeplerianSystem, number>> = {
+  G: 0,
+  E: (WEEK_EPOCH_MJD.GST - WEEK_EPOCH_MJD.GPS) / 7,
+  C: (WEEK_EPOCH_MJD.BDT - WEEK_EPOCH_MJD.GPS) / 7,
+};
 /** Lines of a Keplerian record: epoch line + 7 broadcast-orbit lines (RINEX 2.11 Table A4 [V1]; RINEX 3.05 Tables A4, A8, A14 [M]). */
 export const KEPLER_RECORD_LINES = 8;
 
@@ -26,12 +37,14 @@ export interface KeplerLayout {
   readonly epochFieldStart: number;
   /** First column of the first orbit field: 3 in RINEX 2 (`3X,4D19.12`), 4 in RINEX 3/4 (`4X,4D19.12`). */
   readonly orbitFieldStart: number;
+  /** First column of the epoch t_oc on the epoch line: 3 in RINEX 2 (after `I2,1X`), 4 in RINEX 3/4 (after `A1,I2.2,1X`). */
+  readonly epochStart: number;
 }
 
 /** RINEX 2.10/2.11 GPS navigation record layout (Table A4 [V1]). */
-export const RINEX2_LAYOUT: KeplerLayout = { epochFieldStart: 22, orbitFieldStart: 3 };
+export const RINEX2_LAYOUT: KeplerLayout = { epochFieldStart: 22, orbitFieldStart: 3, epochStart: 3 };
 /** RINEX 3.0x / 4.0x record layout (Tables A4, A8, A14 of 3.05 [M]). */
-export const RINEX3_LAYOUT: KeplerLayout = { epochFieldStart: 23, orbitFieldStart: 4 };
+export const RINEX3_LAYOUT: KeplerLayout = { epochFieldStart: 23, orbitFieldStart: 4, epochStart: 4 };
 
 /** Keys of the broadcast-orbit fields read into the record. */
 type OrbitKey =
@@ -237,8 +250,12 @@ export function decodeKeplerRecord(
 
   const failAt = (k: number, slot: number, expected: string, found: string) =>
     fail(o(k), col(slot) + 1, expected, found);
-  const { tocSeconds, toeSeconds, bestWeek } = resolveWeek(system, start, week, toe, notes, failAt);
-  const transmissionSeconds = transmissionTime(f.transmission, bestWeek, toeSeconds);
+  const epochText = l0.text.slice(layout.epochStart, layout.epochFieldStart);
+  const where = { source, line: l0.lineNumber, column: layout.epochStart + 1, text: epochText };
+  const toc = fileEpochInstant(readerTimeScales(undefined), start.toc, SYSTEM_FILE_CODE[system], where);
+  const failEpoch = (expected: string) => fail(l0, layout.epochStart + 1, expected, epochText.trim());
+  const placed = resolveWeek(system, toc, week, toe, notes, { failAt, failEpoch });
+  const transmission = transmissionTime(f.transmission, placed.weekStart, placed.toe);
 
   let fitIntervalSeconds = defaultFitIntervalSeconds();
   if (system === 'G') {
@@ -252,8 +269,9 @@ export function decodeKeplerRecord(
     satellite: start.satellite,
     system,
     message,
-    tocSeconds,
-    toeSeconds,
+    toc,
+    toe: placed.toe,
+    ...(transmission !== undefined ? { transmission } : {}),
     af0,
     af1,
     af2,
@@ -275,12 +293,10 @@ export function decodeKeplerRecord(
     crs: f.crs!,
     health: f.health!,
     fitIntervalSeconds,
-    ...(transmissionSeconds !== undefined ? { transmissionSeconds } : {}),
-    tocInstant: instantFromScaleSeconds(tocSeconds, SYSTEM_TIME_SCALE[system]),
-    toeInstant: instantFromScaleSeconds(toeSeconds, SYSTEM_TIME_SCALE[system]),
-    toc: start.toc,
+    tocAsWritten: start.toc,
     weekAsWritten: week,
     toeSecondsOfWeek: toe,
+    ...(transmission !== undefined ? { transmissionSecondsOfWeek: f.transmission } : {}),
     ...(f.accuracy !== undefined ? { accuracy: f.accuracy } : {}),
     groupDelays,
     ...(dataSources !== undefined ? { dataSources } : {}),
@@ -313,27 +329,50 @@ function checkOrbitIndent(
 /** Raises a parse error at orbit line `k`, field slot `slot`. */
 type FailAt = (k: number, slot: number, expected: string, found: string) => ParseError;
 
-/** The week of t_oe resolved against t_oc, with t_oc and t_oe in scale seconds; notes any rollover. */
+/** The parse errors of week resolution: at an orbit field, or at the epoch t_oc. */
+interface WeekFailures {
+  readonly failAt: FailAt;
+  readonly failEpoch: (expected: string) => ParseError;
+}
+
+/** t_oc's week in the GPS week count and its seconds of week, read on the system's own scale. @throws {ParseError} */
+function tocWeekReading(system: KeplerianSystem, toc: Instant, failEpoch: WeekFailures['failEpoch']) {
+  const scale = SYSTEM_TIME_SCALE[system];
+  try {
+    const reading = weekSecondsFromInstant(toc, scale);
+    return { week: reading.week + GPS_WEEKS_BEFORE[system], secondsOfWeek: reading.secondsOfWeek };
+  } catch (error) {
+    if (!(error instanceof OutOfDomainError)) throw error;
+    throw failEpoch(`an epoch t_oc at or after the start of ${scale} week 0, ${error.validFrom})`);
+  }
+}
+
+/**
+ * The week of t_oe resolved against t_oc: t_oe and the start of its week as instants on the system's own
+ * scale (the time module's week arithmetic); notes any rollover.
+ * @throws {ParseError} for a week field inconsistent with t_oc, or t_oc/t_oe before the system's week 0.
+ */
 function resolveWeek(
   system: KeplerianSystem,
-  start: KeplerRecordStart,
+  toc: Instant,
   week: number,
   toe: number,
   notes: string[],
-  failAt: FailAt,
-): { tocSeconds: number; toeSeconds: number; bestWeek: number } {
+  { failAt, failEpoch }: WeekFailures,
+): { toe: Instant; weekStart: Instant } {
   // Week resolution: the week whose t_oe lies nearest to t_oc (common practice, no source).
-  const tocSeconds = scaleSecondsFromFields(start.toc);
-  const tocWeek = Math.floor(tocSeconds / SECONDS_PER_WEEK);
+  const reading = tocWeekReading(system, toc, failEpoch);
+  const tocWeek = reading.week;
   let bestWeek = tocWeek;
   for (const w of [tocWeek - 1, tocWeek + 1]) {
-    if (Math.abs(w * SECONDS_PER_WEEK + toe - tocSeconds) < Math.abs(bestWeek * SECONDS_PER_WEEK + toe - tocSeconds))
+    const distance = (w - tocWeek) * SECONDS_PER_WEEK + toe - reading.secondsOfWeek;
+    if (Math.abs(distance) < Math.abs((bestWeek - tocWeek) * SECONDS_PER_WEEK + toe - reading.secondsOfWeek))
       bestWeek = w;
   }
-  const writtenGpsWeek = system === 'C' ? week + BDT_WEEK_OFFSET : week;
-  const diff = bestWeek - writtenGpsWeek;
+  const offset = system === 'C' ? GPS_WEEKS_BEFORE.C : 0;
+  const diff = bestWeek - (week + offset);
   const weekName = system === 'C' ? 'BDT' : system === 'E' ? 'GAL' : 'GPS';
-  const resolvedWritten = system === 'C' ? bestWeek - BDT_WEEK_OFFSET : bestWeek;
+  const resolvedWritten = bestWeek - offset;
   if (diff !== 0) {
     const mod = ((diff % 1024) + 1024) % 1024;
     if (mod === 0) {
@@ -354,21 +393,28 @@ function resolveWeek(
       );
     }
   }
-  const toeSeconds = bestWeek * SECONDS_PER_WEEK + toe;
-  if (Math.abs(toeSeconds - tocSeconds) > 0.5 * SECONDS_PER_WEEK)
+  const systemWeek = bestWeek - GPS_WEEKS_BEFORE[system];
+  const scale = SYSTEM_TIME_SCALE[system];
+  if (systemWeek < 0) throw failAt(3, 0, `t_oe at or after the start of ${scale} week 0`, String(toe));
+  const weekStart = instantFromWeekSeconds(scale, systemWeek, 0);
+  const toeInstant = instantFromWeekSeconds(scale, systemWeek, toe);
+  if (Math.abs(toeInstant.secondsSince(toc)) > 0.5 * SECONDS_PER_WEEK)
     throw failAt(3, 0, 't_oe within half a week of t_oc', String(toe));
-  return { tocSeconds, toeSeconds, bestWeek };
+  return { toe: toeInstant, weekStart };
 }
 
-/** The transmission time in scale seconds, or undefined when the field is blank or not a time of week (|t| ≥ 0.9e9 s). */
-function transmissionTime(transmission: number | undefined, bestWeek: number, toeSeconds: number): number | undefined {
-  // Transmission time: placed in the week nearest t_oe (RINEX 2.11 §6.8 and Table A4 note **: written
-  // reduced by 604800 s, i.e. negative, when sent before the week of t_oe [V1]).
+/**
+ * The transmission time as an instant, or undefined when the field is blank or not a time of week (|t| ≥ 0.9e9 s).
+ * Placed in the week nearest t_oe (RINEX 2.11 §6.8 and Table A4 note **: written reduced by 604800 s, i.e.
+ * negative, when sent before the week of t_oe [V1]).
+ */
+function transmissionTime(transmission: number | undefined, weekStart: Instant, toe: Instant): Instant | undefined {
   if (transmission === undefined || !(Math.abs(transmission) < 0.9e9)) return undefined;
-  let tt = bestWeek * SECONDS_PER_WEEK + transmission;
-  if (tt - toeSeconds > SECONDS_PER_WEEK / 2) tt -= SECONDS_PER_WEEK;
-  else if (tt - toeSeconds < -SECONDS_PER_WEEK / 2) tt += SECONDS_PER_WEEK;
-  return tt;
+  const placed = weekStart.plus(transmission);
+  const fromToe = placed.secondsSince(toe);
+  if (fromToe > SECONDS_PER_WEEK / 2) return placed.plus(-SECONDS_PER_WEEK);
+  if (fromToe < -SECONDS_PER_WEEK / 2) return placed.plus(SECONDS_PER_WEEK);
+  return placed;
 }
 
 /** Group delays under their per-system names, and the clock issue of data where the system writes one. */

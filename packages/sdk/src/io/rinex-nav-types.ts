@@ -6,7 +6,6 @@
  */
 
 import type { KeplerianBroadcastEphemeris } from '../orbit/broadcast.js';
-import type { Instant } from '../time/instant.js';
 import type { Seconds } from '../units.js';
 import type { EpochFields } from './line-reader.js';
 
@@ -94,18 +93,23 @@ export interface RinexNavHeader {
   readonly lineCount: number;
 }
 
-/** A modelled ephemeris record as read, with the raw fields that the computation does not need. */
+/**
+ * A modelled ephemeris record as read, with the raw fields that the computation does not need. The absolute
+ * epochs `toc`, `toe` and `transmission` are `Instant`s placed on the system's own scale (GPST, GST, BDT)
+ * by the time module; the broadcast week and seconds-of-week fields stay beside them as written.
+ */
 export interface RinexNavEphemeris extends KeplerianBroadcastEphemeris {
-  /** t_oc as an absolute instant (the epoch fields read on the system's own scale: GPST, GST or BDT). */
-  readonly tocInstant: Instant;
-  /** t_oe as an absolute instant (week resolved, on the system's own scale). */
-  readonly toeInstant: Instant;
-  /** Clock reference epoch t_oc as written (a RINEX 2 two-digit year already expanded), in the system's own time scale. */
-  readonly toc: EpochFields;
+  /** Clock reference epoch t_oc as written (a RINEX 2 two-digit year already expanded), a reading of the system's own scale. */
+  readonly tocAsWritten: EpochFields;
   /** Week number as written in the record (GPS, Galileo-aligned-to-GPS or BDT week). */
   readonly weekAsWritten: number;
   /** t_oe as written, in seconds of week. */
   readonly toeSecondsOfWeek: Seconds;
+  /**
+   * Transmission time of message as written, in seconds of week, when given (negative when sent in the week
+   * before t_oe's, as the format allows; `transmission` places it, see `transmissionTime` in rinex-nav-kepler.ts).
+   */
+  readonly transmissionSecondsOfWeek?: Seconds;
   /** SV accuracy / SISA, in metres, when given. */
   readonly accuracy?: number;
   /** Group delays, in seconds: GPS `TGD`; Galileo `BGD_E5a_E1`, `BGD_E5b_E1`; BeiDou `TGD1`, `TGD2`. */

@@ -4,22 +4,22 @@
  * Earth-fixed frame, the relativistic periodic correction Δt_r = F·e·√A·sin E_k and the
  * full satellite clock correction Δt_sv = a_f0 + a_f1(t − t_oc) + a_f2(t − t_oc)² + Δt_r.
  *
- * Times are "scale seconds": seconds since 1980-01-06T00:00:00 counted in the record's own
- * system time scale (GPST for GPS, GST for Galileo, BDT for BeiDou), i.e. week·604800 +
- * seconds of week for the GPS week count. Readers (e.g. `readRinexNav`) fill `tocSeconds`
- * and `toeSeconds` in this count, with the week number already resolved, and the absolute
- * `tocInstant` / `toeInstant` beside them. The evaluation time may be given as an {@link Instant}
- * (read on the record's system scale by the time module) or as scale seconds.
+ * Times are {@link Instant}s: a record's t_oc, t_oe and transmission time are absolute instants (a
+ * reader places them on the record's own system time scale: GPST for GPS, GST for Galileo, BDT for
+ * BeiDou, with the week number already resolved), and the evaluation time is an Instant too. The
+ * algorithms use only differences of instants (t − t_oe, t − t_oc, exact to ~1e-16 s) and the seconds
+ * of week of t_oe, read by the time module; no float count of seconds since 1980 is kept.
  *
  * @module
  */
 
 import type { ConstantSet } from '../constants.js';
 import { BEIDOU_ICD, GALILEO_ICD, GPS_ICD } from '../constants.js';
-import { InvalidArgumentError } from '../errors.js';
+import { InvalidArgumentError, OutOfDomainError } from '../errors.js';
 import { requireFinite, requireOptions, requirePositive } from '../internal/validate.js';
 import { type OrbitScale, scaleSecondsFromInstant } from '../time/file-epochs.js';
-import { Instant } from '../time/instant.js';
+import { Instant, requireInstant } from '../time/instant.js';
+import { weekSecondsFromInstant } from '../time/weeks.js';
 import type { Metres, Radians, RadiansPerSecond, Seconds, Vector3 } from '../units.js';
 import type { StateVector } from './elements.js';
 import { solveKepler } from './kepler.js';
@@ -42,14 +42,13 @@ export interface KeplerianBroadcastEphemeris {
   readonly satellite: string;
   readonly system: KeplerianSystem;
   readonly message: KeplerianNavMessage;
-  /** Clock reference time t_oc, in scale seconds (see the module doc). */
-  readonly tocSeconds: Seconds;
-  /** Ephemeris reference time t_oe, in scale seconds, week resolved. */
-  readonly toeSeconds: Seconds;
-  /** t_oc as an absolute instant (readers fill it; the algorithms use `tocSeconds`). */
-  readonly tocInstant?: Instant;
-  /** t_oe as an absolute instant (readers fill it; the algorithms use `toeSeconds`). */
-  readonly toeInstant?: Instant;
+  /** Clock reference time t_oc, an absolute instant (broadcast as a reading of the system's own scale). */
+  readonly toc: Instant;
+  /**
+   * Ephemeris reference time t_oe, an absolute instant (week resolved; broadcast as seconds of week of the
+   * system's own scale, at or after the system's week 0: 1980-01-06 GPST, 1999-08-22 GST, 2006-01-01 BDT).
+   */
+  readonly toe: Instant;
   /** a_f0 (BeiDou a0), in seconds. */
   readonly af0: Seconds;
   /** a_f1, in s/s. */
@@ -87,8 +86,8 @@ export interface KeplerianBroadcastEphemeris {
   readonly health: number;
   /** Curve-fit interval, in seconds (GPS from the record; otherwise the default of {@link defaultFitIntervalSeconds}). */
   readonly fitIntervalSeconds: Seconds;
-  /** Transmission time of message, in scale seconds, when known. */
-  readonly transmissionSeconds?: Seconds;
+  /** Transmission time of message, an absolute instant, when known (week resolved; used to break ties in {@link selectEphemeris}). */
+  readonly transmission?: Instant;
   /**
    * Broadcast group delays, in seconds, when known (used by `signalClockCorrection`): GPS `TGD`;
    * Galileo `BGD_E5a_E1`, `BGD_E5b_E1`; BeiDou `TGD1`, `TGD2` (the names `readRinexNav` uses).
@@ -112,21 +111,38 @@ export interface BroadcastEvaluation {
   readonly clockCorrectionSeconds: Seconds;
 }
 
-/** Each system's own time scale, on which its records count scale seconds (GPST, GST, BDT). */
+/** Each system's own time scale (GPST, GST, BDT): its records' epochs are broadcast as readings of it. */
 export const SYSTEM_TIME_SCALE: Readonly<Record<KeplerianSystem, OrbitScale>> = Object.freeze({
   G: 'GPS',
   E: 'GST',
   C: 'BDT',
 });
 
+/** How to give an evaluation time, for the error of anything else (a bare number of seconds included). */
+const INSTANT_HINT =
+  "Build one with createTimeScales(BUNDLED_LEAP_SECONDS).parseIso('2024-01-07T01:00:00', 'GPS') (@tauline/sdk/time; " +
+  "'GST' or 'BDT' for a reading of Galileo or BeiDou time), or from a record's own epoch, e.g. ephemeris.toe.plus(600); " +
+  'a float count of seconds since 1980-01-06 is not accepted';
+
 /**
- * An evaluation time as scale seconds of `system`: an {@link Instant} is read on the system's scale
- * (exact to one rounding), a number is taken as scale seconds already.
- * @throws {InvalidArgumentError} for a non-finite number or a value that is neither.
+ * The evaluation time, which must be an {@link Instant}.
+ * @throws {InvalidArgumentError} naming `argument`, with a hint how to build an Instant.
  */
-export function orbitTimeSeconds(t: Instant | Seconds, system: KeplerianSystem): Seconds {
-  if (t instanceof Instant) return scaleSecondsFromInstant(t, SYSTEM_TIME_SCALE[system]);
-  return requireFinite('t', t, 'an Instant, or a finite time in scale seconds');
+function requireOrbitTime(argument: string, value: unknown): Instant {
+  if (value instanceof Instant) return value;
+  throw new InvalidArgumentError(argument, value, 'an Instant (an absolute time)', INSTANT_HINT);
+}
+
+/**
+ * "Scale seconds" of an instant on `system`'s own scale: seconds since 1980-01-06T00:00:00 read on GPST,
+ * GST or BDT, one double (resolution ≈ 2.4e-7 s near 1.4e9 s). The algorithms here no longer use it;
+ * kept for callers who need the ICDs' continuous count for display or interchange.
+ * @throws {InvalidArgumentError} when `t` is not an Instant (with a hint how to build one) or `system` is unknown.
+ */
+export function orbitTimeSeconds(t: Instant, system: KeplerianSystem): Seconds {
+  const at = requireOrbitTime('t', t);
+  systemConstants(system);
+  return scaleSecondsFromInstant(at, SYSTEM_TIME_SCALE[system]);
 }
 
 /** The constant set each system's user algorithm uses (GM, Ω̇_E, F, π). */
@@ -187,9 +203,10 @@ function validateRecord(eph: KeplerianBroadcastEphemeris, name = 'ephemeris'): v
   if (eph === null || typeof eph !== 'object')
     throw new InvalidArgumentError(name, eph, 'a broadcast ephemeris record');
   systemConstants(eph.system);
+  requireInstant(`${name}.toc`, eph.toc);
+  requireInstant(`${name}.toe`, eph.toe);
+  if (eph.transmission !== undefined) requireInstant(`${name}.transmission`, eph.transmission);
   for (const key of [
-    'tocSeconds',
-    'toeSeconds',
     'af0',
     'af1',
     'af2',
@@ -223,6 +240,23 @@ function validateRecord(eph: KeplerianBroadcastEphemeris, name = 'ephemeris'): v
   }
   const e = requireFinite(`${name}.eccentricity`, eph.eccentricity, 'in [0, 1)');
   if (e < 0 || e >= 1) throw new InvalidArgumentError(`${name}.eccentricity`, e, 'in [0, 1) for an elliptical orbit');
+}
+
+/**
+ * t_oe in seconds of week of the record's system scale (the broadcast t_oe field), read by the time module.
+ * @throws {InvalidArgumentError} naming `${name}.toe` when t_oe lies before the system's week 0.
+ */
+function toeSecondsOfWeek(eph: KeplerianBroadcastEphemeris, name: string): Seconds {
+  try {
+    return weekSecondsFromInstant(eph.toe, SYSTEM_TIME_SCALE[eph.system]).secondsOfWeek;
+  } catch (error) {
+    if (!(error instanceof OutOfDomainError)) throw error;
+    throw new InvalidArgumentError(
+      `${name}.toe`,
+      eph.toe.toString(),
+      `an instant at or after the start of the system's week 0 (${error.validFrom})`,
+    );
+  }
 }
 
 /**
@@ -278,20 +312,18 @@ function beidouGeoToEarthFixed(
  * Clock (IS-GPS-200 §20.3.3.3.3.1 [M]): Δt_sv = a_f0 + a_f1(t − t_oc) + a_f2(t − t_oc)² + Δt_r,
  *   Δt_r = F e √A sin E_k, F = −2√μ/c² of the system's constant set.
  *
- * @param ephemeris  The record (SI units; times in scale seconds of its own system).
- * @param time       Evaluation time: an Instant, or scale seconds of the record's system time scale.
+ * @param ephemeris  The record (SI units; t_oc, t_oe as Instants).
+ * @param time       Evaluation time, an Instant (e.g. `ts.parseIso('2024-01-07T01:00:00', 'GPS')`).
  * @returns State (m, m/s, Earth-fixed), t_k (s), E_k (rad), Δt_r (s), polynomial (s), Δt_sv (s).
- * @throws {InvalidArgumentError} if `t` is not finite or the record has a non-finite field,
- *   √A outside (2500, 1e5) √m or e outside [0, 1).
+ * @throws {InvalidArgumentError} if `time` is not an Instant (a number of seconds included: the message says
+ *   how to build one), or the record has a non-finite field, t_oc/t_oe that are not Instants, t_oe before
+ *   the system's week 0, √A outside (2500, 1e5) √m or e outside [0, 1).
  * @see IS-GPS-200 Table 20-IV and §20.3.3.3.3.1 [M]; Galileo OS SIS ICD §5.1.1, §5.1.4 [M];
  *   BDS-SIS-ICD B1I §5.2.4.10, §5.2.4.12 [M]. Constants: the system's ConstantSet, each field with its source and tag.
  */
-export function evaluateBroadcastEphemeris(
-  ephemeris: KeplerianBroadcastEphemeris,
-  time: Instant | Seconds,
-): BroadcastEvaluation {
+export function evaluateBroadcastEphemeris(ephemeris: KeplerianBroadcastEphemeris, time: Instant): BroadcastEvaluation {
   validateRecord(ephemeris);
-  const t = orbitTimeSeconds(time, ephemeris.system);
+  const at = requireOrbitTime('time', time);
   const eph = ephemeris;
   const k = systemConstants(eph.system);
   const mu = k.gm;
@@ -300,8 +332,9 @@ export function evaluateBroadcastEphemeris(
   const A = eph.sqrtA * eph.sqrtA;
   const n0 = Math.sqrt(mu / (A * A * A));
   const n = n0 + eph.deltaN;
-  const tk = t - eph.toeSeconds;
-  const toeOfWeek = eph.toeSeconds - Math.floor(eph.toeSeconds / SECONDS_PER_WEEK) * SECONDS_PER_WEEK;
+  // t_k = t − t_oe as a difference of instants: exact to ~1e-16 s, no week crossover to correct.
+  const tk = at.secondsSince(eph.toe);
+  const toeOfWeek = toeSecondsOfWeek(eph, 'ephemeris');
   const e = eph.eccentricity;
   const Mk = eph.m0 + n * tk;
   const Ek = solveKepler(Mk, e);
@@ -354,7 +387,7 @@ export function evaluateBroadcastEphemeris(
 
   // IS-GPS-200 §20.3.3.3.3.1 [M]: Δt_r = F e √A sin E_k.
   const relativisticSeconds = k.relativisticF * e * eph.sqrtA * sinE;
-  const dtc = t - eph.tocSeconds;
+  const dtc = at.secondsSince(eph.toc);
   // IS-GPS-200 §20.3.3.3.3.1 [M]: a_f0 + a_f1 (t − t_oc) + a_f2 (t − t_oc)².
   const polynomialSeconds = eph.af0 + eph.af1 * dtc + eph.af2 * dtc * dtc;
   const position: Vector3 = [x, y, z];
@@ -381,23 +414,22 @@ export interface EphemerisSelectionOptions {
  * Chooses the record for a satellite at time t by the usual rule (common practice, no source):
  * among healthy records (unless `includeUnhealthy`) of the preferred message kind whose
  * curve-fit interval covers t (|t − t_oe| ≤ fit/2), the one with the nearest t_oe; ties go to
- * the record with t_oe ≤ t (already broadcast in real time), then to the latest transmission time,
- * then to the highest issue of data. Galileo falls back to the other message kind only when the
- * preferred one has no valid record.
+ * the record with t_oe ≤ t (already broadcast in real time), then to the latest transmission time
+ * (a record without one last), then to the highest issue of data. Galileo falls back to the other
+ * message kind only when the preferred one has no valid record.
  *
  * @param records  Records of one satellite (any order).
- * @param time     Time: an Instant, or scale seconds of the satellite's system.
+ * @param time     Time, an Instant (e.g. `ts.parseIso('2024-01-07T01:00:00', 'GPS')`).
  * @returns The chosen record (the caller's own record type), or `undefined` when none is valid at t.
- * @throws {InvalidArgumentError} if `t` is not finite.
+ * @throws {InvalidArgumentError} if `time` is not an Instant (a number of seconds included: the message says
+ *   how to build one), or a record is malformed (named by its index).
  */
 export function selectEphemeris<R extends KeplerianBroadcastEphemeris>(
   records: readonly R[],
-  time: Instant | Seconds,
+  time: Instant,
   options: EphemerisSelectionOptions = {},
 ): R | undefined {
-  if (typeof time === 'number') requireFinite('t', time, 'a finite time in scale seconds');
-  else if (!(time instanceof Instant))
-    throw new InvalidArgumentError('t', time, 'an Instant, or a finite time in scale seconds');
+  const at = requireOrbitTime('time', time);
   if (!Array.isArray(records))
     throw new InvalidArgumentError('records', records, 'an array of broadcast ephemeris records');
   records.forEach((r, i) => {
@@ -409,31 +441,42 @@ export function selectEphemeris<R extends KeplerianBroadcastEphemeris>(
   requireOptions('options', options);
   const preferred = options.galileoMessage ?? 'INAV';
   const pick = (filter: (r: R) => boolean) => {
-    let best: R | undefined;
-    let bestKey: number[] = [];
-    for (const r of records) {
-      if (!filter(r)) continue;
-      if (!options.includeUnhealthy && r.health !== 0) continue;
-      const t = orbitTimeSeconds(time, r.system);
-      const d = Math.abs(t - r.toeSeconds);
-      if (d > r.fitIntervalSeconds / 2) continue;
-      const key = [d, r.toeSeconds <= t ? 0 : 1, -(r.transmissionSeconds ?? -Infinity), -r.issueOfData];
-      if (!best || compareKeys(key, bestKey) < 0) {
-        best = r;
-        bestKey = key;
-      }
+    let best: Candidate<R> | undefined;
+    for (const record of records) {
+      if (!filter(record)) continue;
+      if (!options.includeUnhealthy && record.health !== 0) continue;
+      const distance = Math.abs(at.secondsSince(record.toe));
+      if (distance > record.fitIntervalSeconds / 2) continue;
+      const candidate = { record, distance, toeAfterTime: record.toe.isAfter(at) };
+      if (!best || isBetter(candidate, best)) best = candidate;
     }
-    return best;
+    return best?.record;
   };
   const first = pick((r) => r.system !== 'E' || r.message === preferred);
   if (first) return first;
   return pick((r) => r.system === 'E' && r.message !== preferred);
 }
 
-function compareKeys(a: readonly number[], b: readonly number[]): number {
-  for (const [i, x] of a.entries()) {
-    const d = x - (b[i] ?? Number.NaN);
-    if (d !== 0 && !Number.isNaN(d)) return d;
+/** A record valid at the selection time, with what the selection rule orders it by. */
+interface Candidate<R extends KeplerianBroadcastEphemeris> {
+  readonly record: R;
+  /** |t − t_oe|, in seconds. */
+  readonly distance: Seconds;
+  /** Whether t_oe lies after t (not yet broadcast in real time). */
+  readonly toeAfterTime: boolean;
+}
+
+/** Whether `a` wins over `b` by the rule of {@link selectEphemeris} (strictly: an equal candidate does not). */
+function isBetter<R extends KeplerianBroadcastEphemeris>(a: Candidate<R>, b: Candidate<R>): boolean {
+  if (a.distance !== b.distance) return a.distance < b.distance;
+  if (a.toeAfterTime !== b.toeAfterTime) return !a.toeAfterTime;
+  const ta = a.record.transmission;
+  const tb = b.record.transmission;
+  if (ta !== undefined && tb !== undefined) {
+    const order = ta.compare(tb);
+    if (order !== 0) return order > 0;
+  } else if (ta !== undefined || tb !== undefined) {
+    return ta !== undefined;
   }
-  return 0;
+  return a.record.issueOfData > b.record.issueOfData;
 }

@@ -262,8 +262,9 @@ function requireOrbitScale(scale: unknown): OrbitScale {
 
 /**
  * "Scale seconds" of an instant: seconds since 1980-01-06T00:00:00 read on a GNSS system's own scale
- * (GPS week × 604 800 + seconds of week for GPS and Galileo time), the count in which broadcast
- * records give t_oc and t_oe. One rounding of the sum to a double (resolution 2.4e-7 s near 1.4e9 s).
+ * (GPS week × 604 800 + seconds of week for GPS and Galileo time), the continuous count of the interface
+ * specifications, for display and interchange (broadcast records carry t_oc and t_oe as Instants). One rounding
+ * of the sum to a double (resolution 2.4e-7 s near 1.4e9 s).
  */
 export function scaleSecondsFromInstant(instant: Instant, scale: OrbitScale): Seconds {
   requireInstant('instant', instant);

@@ -14,6 +14,7 @@ import {
   defineConstantSet,
   deviations,
   elementsToState,
+  evaluateBroadcastEphemeris,
   fitClockPolynomial,
   GPS_ICD,
   groundClockRate,
@@ -27,6 +28,8 @@ import {
   meanClockRate,
   meanMotion,
   moonPositionLowPrecision,
+  orbitTimeSeconds,
+  parseRinexNav,
   periodicCorrectionFromElements,
   periodicCorrectionFromStatesBatch,
   periodicCorrectionOnTimeGrid,
@@ -34,6 +37,7 @@ import {
   propagateJ2Secular,
   reviewOffsets,
   runClockFilter,
+  selectEphemeris,
   simulateClock,
   simulatePlan,
   sunPositionLowPrecision,
@@ -295,4 +299,35 @@ describe('a clock-model entry point without its epoch names the field and says h
       expect(error.message).toMatch(/required.*parseIso\('2027-02-08T06:00:00', 'GPS'\)/);
     },
   );
+});
+
+describe('a broadcast-orbit entry point given seconds for an Instant names the argument and says how to build one (issue 16, common practice, no source)', () => {
+  const nav = parseRinexNav(
+    readFileSync(new URL('../../../../test/fixtures/rinex-nav/mixed-v305.rnx', import.meta.url), 'utf8'),
+  );
+  const eph = nav.ephemerides[0]!;
+  /** The former float count of seconds since 1980-01-06 for the record's t_oe (GPS week 2296 + 0 s). */
+  const seconds = 2296 * 604800 + 600;
+  const cases: [string, string, () => unknown][] = [
+    ['evaluateBroadcastEphemeris', 'time', () => evaluateBroadcastEphemeris(eph, seconds as never)],
+    ['selectEphemeris', 'time', () => selectEphemeris([eph], seconds as never)],
+    ['orbitTimeSeconds', 't', () => orbitTimeSeconds(seconds as never, 'G')],
+  ];
+  it.each(cases)(
+    '%s(…, seconds since 1980) throws InvalidArgumentError naming %s with the parseIso hint',
+    (_name, field, call) => {
+      const error = invalid(call);
+      expect(error.argument).toBe(field);
+      expect(error.message).toMatch(/must be an Instant .*parseIso\('2024-01-07T01:00:00', 'GPS'\)/);
+    },
+  );
+  it('evaluateBroadcastEphemeris / selectEphemeris with a record whose t_oc or t_oe is a number name the field', () => {
+    const at = eph.toe.plus(600);
+    expect(invalid(() => evaluateBroadcastEphemeris({ ...eph, toe: seconds as never }, at)).argument).toBe(
+      'ephemeris.toe',
+    );
+    expect(invalid(() => selectEphemeris([eph, { ...eph, toc: seconds as never }], at)).argument).toBe(
+      'records[1].toc',
+    );
+  });
 });

@@ -77,14 +77,22 @@ describe('SP3 epochs and RINEX navigation t_oc / t_oe carry exact Instants', () 
     expect(file.epochs[0]!.epoch.equals(file.header.firstInstant)).toBe(true);
     expect(Math.abs(file.epochs[1]!.epoch.secondsSince(file.epochs[0]!.epoch) - 900.0000001)).toBeLessThan(1e-12);
   });
-  it("parseRinexNav(3.05) gives each record tocInstant and toeInstant on its system's scale, consistent with tocSeconds/toeSeconds", () => {
+  it("parseRinexNav(3.05) gives each record toc and toe as Instants on its system's scale: t_oc from its calendar fields, t_oe in the week nearest t_oc", () => {
     const nav = parseRinexNav(fixture('rinex-nav/mixed-v305.rnx'));
     expect(nav.ephemerides.length).toBeGreaterThan(0);
     for (const e of nav.ephemerides) {
       const offset = e.system === 'C' ? 33 : 19; // BDT = TAI − 33 s; GPST, GST = TAI − 19 s
-      const since1980 = (Date.UTC(2000, 0, 1) - Date.UTC(1980, 0, 6)) / 1000;
-      expect(e.tocInstant.taiSeconds + e.tocInstant.taiFraction).toBe(e.tocSeconds - since1980 + offset);
-      expect(e.toeInstant.taiSeconds + e.toeInstant.taiFraction).toBe(e.toeSeconds - since1980 + offset);
+      const f = e.tocAsWritten;
+      const tocReading = secondsSince2000(f.year, f.month, f.day, f.hour, f.minute, f.second);
+      expect(e.toc.taiSeconds).toBe(tocReading + offset);
+      expect(e.toc.taiFraction).toBe(0);
+      // Seconds of week of t_oc (weeks of all three systems start on a Sunday 00:00 of their own scale).
+      const tocOfWeek =
+        (((tocReading + (Date.UTC(2000, 0, 1) - Date.UTC(1980, 0, 6)) / 1000) % 604800) + 604800) % 604800;
+      let fromToc = e.toeSecondsOfWeek - tocOfWeek; // t_oe − t_oc folded into ±half a week
+      if (fromToc > 302400) fromToc -= 604800;
+      if (fromToc < -302400) fromToc += 604800;
+      expect(e.toe.secondsSince(e.toc)).toBe(fromToc);
     }
   });
 });

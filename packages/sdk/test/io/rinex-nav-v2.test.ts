@@ -3,6 +3,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { InvalidArgumentError, TaulineError } from '../../src/errors.js';
 import { fullYearFromTwoDigits, parseRinexNav, type RinexNavEvent, readRinexNav } from '../../src/io/rinex-nav.js';
+import { instantFromWeekSeconds } from '../../src/time/weeks.js';
 import { expectParseError } from './parse-errors.js';
 
 const FIXTURES = new URL('../../../../test/fixtures/rinex-nav/', import.meta.url);
@@ -12,9 +13,9 @@ const V210 = read('gps-v210.rnx');
 const GLO = read('glonass-v211.rnx');
 const GEO = read('geo-v211.rnx');
 /** GPS week 2296 starts 2024-01-07T00:00:00 GPST (1980-01-06 + 2296 weeks; calendar arithmetic, common practice). */
-const WEEK_2296 = 2296 * 604800;
+const WEEK_2296 = instantFromWeekSeconds('GPS', 2296, 0);
 /** GPS week 1043 starts 2000-01-02T00:00:00 GPST (same arithmetic). */
-const WEEK_1043 = 1043 * 604800;
+const WEEK_1043 = instantFromWeekSeconds('GPS', 1043, 0);
 const lines = (text: string) => text.split('\n');
 const withLine = (text: string, n: number, line: string) =>
   lines(text)
@@ -95,15 +96,27 @@ describe('parseRinexNav: RINEX 2.11 GPS navigation file (Tables A3, A4 [V1])', (
       notes: [],
     });
     expect(g14.groupDelays).toEqual({ TGD: -1.11758708954e-8 });
-    expect(g14.toc).toEqual({ year: 2024, month: 1, day: 6, hour: 22, minute: 0, second: 0 });
-    expect(g14.toeSeconds).toBe(WEEK_2296 - 7200);
-    expect(g14.tocSeconds).toBe(WEEK_2296 - 7200);
+    expect(g14.tocAsWritten).toEqual({ year: 2024, month: 1, day: 6, hour: 22, minute: 0, second: 0 });
+    expect(g14.toe.secondsSince(WEEK_2296)).toBe(-7200);
+    expect(g14.toc.secondsSince(WEEK_2296)).toBe(-7200);
+  });
+  it('parseRinexNav(2.11 text) places a t_oc with tenths of a second (F5.1) exactly, where a float count since 1980 steps by 2.4e-7 s (independent exact arithmetic [C])', () => {
+    const text = withLine(V211, 9, lines(V211)[8]!.replace(' 22  0  0.0', ' 22  0 12.3'));
+    const g14 = parseRinexNav(text).ephemerides[0]!;
+    expect(g14.tocAsWritten.second).toBe(12.3);
+    // 22:00:12.3 = start of week 2296 − 7200 s + 12.3 s; 12.3 − 12 is exact in doubles, so the exact span is fl(12.3) − 7200.
+    expect(g14.toc.secondsSince(WEEK_2296.plus(-7200))).toBe(12.3);
+    expect(g14.toc.taiFraction).toBe(12.3 - 12);
+    // The former count (2296 × 604800 − 7200 + 12.3, one double near 1.3886e9 s) rounds to a multiple of 2^-22 s.
+    const formerCount = 2296 * 604800 - 7200 + 12.3;
+    expect(Math.abs(formerCount - (2296 * 604800 - 7200) - 12.3)).toBeGreaterThan(1e-8);
   });
   it('parseRinexNav(2.11 text) places a negative transmission time (§6.8) before the week of t_oe, and reads 0.-mantissa E exponents', () => {
     const g03 = file.ephemerides[2]!;
     expect(g03.satellite).toBe('G03');
     expect(g03.af0).toBe(-4.21544909477e-5);
-    expect(g03.transmissionSeconds).toBe(WEEK_2296 - 18);
+    expect(g03.transmission!.secondsSince(WEEK_2296)).toBe(-18);
+    expect(g03.transmissionSecondsOfWeek).toBe(-18);
   });
 });
 
@@ -114,18 +127,18 @@ describe('parseRinexNav: RINEX 2.10 GPS file across 1999/2000', () => {
     expect(file.header.ionosphere).toEqual([]);
     expect(file.header.timeSystemCorrections).toEqual([]);
     expect(file.header.leapSeconds).toEqual({ current: 13 });
-    expect(file.ephemerides.map((e) => e.toc.year)).toEqual([1999, 2000, 2000]);
-    expect(file.ephemerides[0]!.toeSeconds).toBe(WEEK_1043 - 604800 + 511200);
+    expect(file.ephemerides.map((e) => e.tocAsWritten.year)).toEqual([1999, 2000, 2000]);
+    expect(file.ephemerides[0]!.toe.secondsSince(WEEK_1043)).toBe(-604800 + 511200);
   });
   it('parseRinexNav(2.10 text) reads a week written modulo 1024 and a fit interval of 0 with notes, never silently', () => {
     const g21 = file.ephemerides[2]!;
-    expect(g21.toeSeconds).toBe(WEEK_1043);
+    expect(g21.toe.secondsSince(WEEK_1043)).toBe(0);
     expect(g21.fitIntervalSeconds).toBe(4 * 3600);
     expect(g21.notes).toEqual([
       'week 19 read as GPS week 1043 (written modulo 1024: week-number rollover)',
       'fit interval not given (0 or blank): 4 hours assumed (IS-GPS-200 §20.3.4.4 [M])',
     ]);
-    expect(g21.transmissionSeconds).toBe(WEEK_1043 - 30);
+    expect(g21.transmission!.secondsSince(WEEK_1043)).toBe(-30);
   });
 });
 

@@ -2,15 +2,13 @@ import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { ParseError } from '../../src/errors.js';
-import {
-  fieldsFromScaleSeconds,
-  formatEpochFields,
-  LineSplitter,
-  linesOf,
-  parseFortranReal,
-  scaleSecondsFromFields,
-} from '../../src/io/line-reader.js';
+import { LineSplitter, linesOf, parseFortranReal } from '../../src/io/line-reader.js';
 import { parseRinexNav, type RinexNavEvent, readRinexNav } from '../../src/io/rinex-nav.js';
+import { formatFileEpoch, instantFromFileEpoch } from '../../src/time/file-epochs.js';
+import type { Instant } from '../../src/time/instant.js';
+import { BUNDLED_LEAP_SECONDS } from '../../src/time/leap-seconds.js';
+import { createTimeScales } from '../../src/time/scales.js';
+import { instantFromWeekSeconds } from '../../src/time/weeks.js';
 import { expectParseError } from './parse-errors.js';
 
 const FIXTURES = new URL('../../../../test/fixtures/rinex-nav/', import.meta.url);
@@ -18,7 +16,12 @@ const read = (name: string) => readFileSync(new URL(name, FIXTURES), 'utf8');
 const V3 = read('mixed-v305.rnx');
 const V4 = read('mixed-v401.rnx');
 /** Week 2296 starts 2024-01-07T00:00:00 GPST (1980-01-06 + 2296 weeks; computed, common practice). */
-const WEEK_2296 = 2296 * 604800;
+const WEEK_2296 = instantFromWeekSeconds('GPS', 2296, 0);
+/** The same calendar reading on BeiDou time: BDT week 940 (GPS week 2296 − 1356, BDS-SIS-ICD §3.3 [M]). */
+const BDT_WEEK_940 = instantFromWeekSeconds('BDT', 940, 0);
+const TS = createTimeScales(BUNDLED_LEAP_SECONDS);
+/** Seconds from the start of GPS week 2296 to `instant`. */
+const sinceWeek = (instant: Instant) => instant.secondsSince(WEEK_2296);
 
 describe('line reader helpers', () => {
   it('LineSplitter.push(chunk) joins a CR LF split across chunks and keeps blank lines numbered', () => {
@@ -41,10 +44,11 @@ describe('line reader helpers', () => {
     expect(parseFortranReal('1.2.3')).toBeNaN();
     expect(parseFortranReal('1D999')).toBeNaN();
   });
-  it('scaleSecondsFromFields(2024-01-07T00:00) is GPS week 2296 × 604800 s (1980-01-06 epoch; calendar arithmetic, common practice)', () => {
-    expect(scaleSecondsFromFields({ year: 2024, month: 1, day: 7, hour: 0, minute: 0, second: 0 })).toBe(WEEK_2296);
-    expect(formatEpochFields(fieldsFromScaleSeconds(WEEK_2296 + 3723.5))).toBe('2024-01-07T01:02:03.5');
-    expect(formatEpochFields(fieldsFromScaleSeconds(0))).toBe('1980-01-06T00:00:00');
+  it('instantFromFileEpoch(2024-01-07T00:00 GPS) is the start of GPS week 2296 (1980-01-06 epoch; calendar arithmetic, common practice)', () => {
+    const fields = { year: 2024, month: 1, day: 7, hour: 0, minute: 0, second: 0 };
+    expect(instantFromFileEpoch(TS, fields, 'GPS').equals(WEEK_2296)).toBe(true);
+    expect(formatFileEpoch(TS, WEEK_2296.plus(3723.5), 'GPS')).toBe('2024-01-07T01:02:03.5');
+    expect(formatFileEpoch(TS, instantFromWeekSeconds('GPS', 0, 0), 'GPS')).toBe('1980-01-06T00:00:00');
   });
 });
 
@@ -112,32 +116,33 @@ describe('parseRinexNav: RINEX 3.05 mixed file (RINEX 3.05, IGS/RTCM-SC104 [M])'
       sourceName: 'mixed-v305.rnx',
     });
     expect(g05!.groupDelays).toEqual({ TGD: -1e-8 });
-    expect(g05!.tocSeconds).toBe(WEEK_2296);
-    expect(g05!.toeSeconds).toBe(WEEK_2296);
-    expect(g05!.transmissionSeconds).toBe(WEEK_2296 - 18);
-    expect(g05!.toc).toEqual({ year: 2024, month: 1, day: 7, hour: 0, minute: 0, second: 0 });
+    expect(sinceWeek(g05!.toc)).toBe(0);
+    expect(sinceWeek(g05!.toe)).toBe(0);
+    expect(sinceWeek(g05!.transmission!)).toBe(-18);
+    expect(g05!.transmissionSecondsOfWeek).toBe(-18); // as written: sent in the week before t_oe (RINEX 2.11 Table A4 note [V1])
+    expect(g05!.tocAsWritten).toEqual({ year: 2024, month: 1, day: 7, hour: 0, minute: 0, second: 0 });
     expect(g05!.notes).toEqual([]);
   });
 
   it('parseRinexNav(text) reads a week written modulo 1024 as the full week and says so (week rollover)', () => {
     const [g07] = bySat('G07');
     expect(g07!.weekAsWritten).toBe(248);
-    expect(g07!.toeSeconds).toBe(WEEK_2296);
+    expect(sinceWeek(g07!.toe)).toBe(0);
     expect(g07!.notes.join()).toMatch(/week 248 read as GPS week 2296 \(written modulo 1024/);
   });
 
   it('parseRinexNav(text) places a t_oe whose week field is the previous (transmission) week nearest to t_oc', () => {
     const [g09] = bySat('G09');
     expect(g09!.weekAsWritten).toBe(2295);
-    expect(g09!.toeSeconds).toBe(WEEK_2296);
+    expect(sinceWeek(g09!.toe)).toBe(0);
     expect(g09!.notes.join()).toMatch(/t_oe lies in GPS week 2296, the week field says 2295/);
     // Transmission 604782 s of week 2295 = 18 s before t_oe.
-    expect(g09!.transmissionSeconds).toBe(WEEK_2296 - 18);
+    expect(sinceWeek(g09!.transmission!)).toBe(-18);
   });
 
   it('parseRinexNav(text) keeps a t_oe late in the previous week in that week (t_oc Saturday 22:00)', () => {
     const [g11] = bySat('G11');
-    expect(g11!.toeSeconds).toBe(WEEK_2296 - 7200);
+    expect(sinceWeek(g11!.toe)).toBe(-7200);
     expect(g11!.notes).toEqual([]);
   });
 
@@ -161,7 +166,8 @@ describe('parseRinexNav: RINEX 3.05 mixed file (RINEX 3.05, IGS/RTCM-SC104 [M])'
     expect(c08!.message).toBe('D1');
     expect(c03!.message).toBe('D2');
     expect(c08!.weekAsWritten).toBe(940);
-    expect(c08!.toeSeconds).toBe(WEEK_2296);
+    expect(c08!.toe.secondsSince(BDT_WEEK_940)).toBe(0);
+    expect(c08!.toe.secondsSince(WEEK_2296)).toBe(14); // BDT = GPST − 14 s: the BDT reading comes 14 s later
     expect(c08!.groupDelays).toEqual({ TGD1: 2.4e-9, TGD2: -1.3e-9 });
     expect(c08!.issueOfDataClock).toBe(1);
   });
@@ -374,6 +380,22 @@ describe('parseRinexNav: malformed input throws ParseError with file, line and c
       /consistent with the epoch t_oc/,
     );
   });
+  it('parseRinexNav(text) rejects a BeiDou t_oc before BDT week 0 (2006-01-01) and a Galileo t_oc before GST week 0 (1999-08-22) at the epoch', () => {
+    const c08 = lines.findIndex((l) => l.startsWith('C08'));
+    expectParseError(
+      () => parseRinexNav(withLine(c08 + 1, lines[c08]!.replace('C08 2024', 'C08 2005'))),
+      c08 + 1,
+      5,
+      /t_oc at or after the start of BDT week 0, 2006-01-01T00:00:00 BDT/,
+    );
+    const e11 = lines.findIndex((l) => l.startsWith('E11'));
+    expectParseError(
+      () => parseRinexNav(withLine(e11 + 1, lines[e11]!.replace('E11 2024', 'E11 1999'))),
+      e11 + 1,
+      5,
+      /t_oc at or after the start of GST week 0, 1999-08-22T00:00:00 GST/,
+    );
+  });
   it('parseRinexNav(text) rejects Galileo data-source bits that name neither or both message kinds', () => {
     const at = lines.findIndex((l) => l.startsWith('E11')) + 5;
     const ds = `${lines[at]!.slice(0, 23)}  .000000000000D+00${lines[at]!.slice(42)}`;
@@ -443,14 +465,16 @@ describe('parseRinexNav: fuzzing (fast-check, mutated and truncated files)', () 
           // transmission time): RINEX lets a writer drop trailing blank fields, so such a cut is indistinguishable.
           const {
             fitIntervalSeconds: _a,
-            transmissionSeconds: _b,
+            transmission: _b,
+            transmissionSecondsOfWeek: _i,
             notes: _c,
             issueOfDataClock: _g,
             ...last
           } = f.ephemerides[n - 1]!;
           const {
             fitIntervalSeconds: _d,
-            transmissionSeconds: _e,
+            transmission: _e,
+            transmissionSecondsOfWeek: _j,
             notes: _f,
             issueOfDataClock: _h,
             ...ref

@@ -8,13 +8,17 @@ import {
   evaluateBroadcastEphemeris,
   isBeidouGeostationary,
   type KeplerianBroadcastEphemeris,
+  orbitTimeSeconds,
   selectEphemeris,
   systemConstants,
   weekCrossover,
 } from '../../src/orbit/broadcast.js';
 import { propagateKeplerState } from '../../src/orbit/propagate.js';
+import type { Instant } from '../../src/time/instant.js';
+import { instantFromWeekSeconds } from '../../src/time/weeks.js';
 
-const WEEK_2296 = 2296 * 604800;
+/** Start of GPS week 2296, 2024-01-07T00:00:00 GPST (GST reads the same; IS-GPS-200 week count, common practice). */
+const WEEK_2296 = instantFromWeekSeconds('GPS', 2296, 0);
 const NAV = parseRinexNav(
   readFileSync(new URL('../../../../test/fixtures/rinex-nav/mixed-v305.rnx', import.meta.url), 'utf8'),
 );
@@ -26,8 +30,8 @@ function twoBody(overrides: Partial<KeplerianBroadcastEphemeris> = {}): Kepleria
     satellite: 'G01',
     system: 'G',
     message: 'LNAV',
-    tocSeconds: WEEK_2296 + 7200,
-    toeSeconds: WEEK_2296 + 7200,
+    toc: WEEK_2296.plus(7200),
+    toe: WEEK_2296.plus(7200),
     af0: 0,
     af1: 0,
     af2: 0,
@@ -61,7 +65,7 @@ describe('evaluateBroadcastEphemeris: independent checks of the interface-spec a
     const eph = twoBody();
     const toeOfWeek = 7200;
     for (const tk of [-7200, -1800, 0, 950, 7200]) {
-      const got = evaluateBroadcastEphemeris(eph, eph.toeSeconds + tk).state;
+      const got = evaluateBroadcastEphemeris(eph, eph.toe.plus(tk)).state;
       // Inertial frame = Earth-fixed frame at the start of the week: node Ω0, then rotate by θ = Ω_E (t_oe + t_k).
       const inertial = propagateKeplerState(
         {
@@ -92,9 +96,9 @@ describe('evaluateBroadcastEphemeris: independent checks of the interface-spec a
   it('evaluateBroadcastEphemeris(record, t).state.velocity matches a central difference of positions (all harmonic terms on)', () => {
     for (const eph of [record('G05'), record('E11'), record('C08'), record('C03'), record('C21')]) {
       for (const tk of [-5000, 0, 3333]) {
-        const t = eph.toeSeconds + tk;
+        const t = eph.toe.plus(tk);
         const h = 0.5;
-        const p = (dt: number) => evaluateBroadcastEphemeris(eph, t + dt).state.position;
+        const p = (dt: number) => evaluateBroadcastEphemeris(eph, t.plus(dt)).state.position;
         const fd = [0, 1, 2].map((k) => (-p(2 * h)[k]! + 8 * p(h)[k]! - 8 * p(-h)[k]! + p(-2 * h)[k]!) / (12 * h));
         expect(dist(evaluateBroadcastEphemeris(eph, t).state.velocity, fd)).toBeLessThan(2e-5);
       }
@@ -108,7 +112,7 @@ describe('evaluateBroadcastEphemeris: independent checks of the interface-spec a
         fc.double({ min: 0, max: 0.2, noNaN: true }),
         (tk, e) => {
           const eph = twoBody({ eccentricity: e });
-          const ev = evaluateBroadcastEphemeris(eph, eph.toeSeconds + tk);
+          const ev = evaluateBroadcastEphemeris(eph, eph.toe.plus(tk));
           const fromState = (-2 * dot(ev.state.position, ev.state.velocity)) / SPEED_OF_LIGHT ** 2;
           expect(Math.abs(fromState - ev.relativisticSeconds)).toBeLessThan(2e-17);
         },
@@ -121,7 +125,7 @@ describe('evaluateBroadcastEphemeris: independent checks of the interface-spec a
     let worst = 0;
     for (const eph of [record('G05'), record('G07'), record('E11'), record('C08'), record('C03'), record('C21')]) {
       for (let tk = -7200; tk <= 7200; tk += 900) {
-        const ev = evaluateBroadcastEphemeris(eph, eph.toeSeconds + tk);
+        const ev = evaluateBroadcastEphemeris(eph, eph.toe.plus(tk));
         worst = Math.max(
           worst,
           Math.abs((-2 * dot(ev.state.position, ev.state.velocity)) / SPEED_OF_LIGHT ** 2 - ev.relativisticSeconds),
@@ -134,7 +138,7 @@ describe('evaluateBroadcastEphemeris: independent checks of the interface-spec a
 
   it('evaluateBroadcastEphemeris(record, t) keeps |r| equal to the corrected radius A(1 − e cos E_k) + δr (rotations preserve length), including the BeiDou GEO rotation', () => {
     for (const eph of [record('G05'), record('C03')]) {
-      const ev = evaluateBroadcastEphemeris(eph, eph.toeSeconds + 1234);
+      const ev = evaluateBroadcastEphemeris(eph, eph.toe.plus(1234));
       const A = eph.sqrtA ** 2;
       const E = ev.eccentricAnomaly;
       const e = eph.eccentricity;
@@ -149,7 +153,7 @@ describe('evaluateBroadcastEphemeris: independent checks of the interface-spec a
     const geo = record('C03');
     expect(geo.message).toBe('D2');
     for (const tk of [0, 3600, 7200]) {
-      const ev = evaluateBroadcastEphemeris(geo, geo.toeSeconds + tk);
+      const ev = evaluateBroadcastEphemeris(geo, geo.toe.plus(tk));
       expect(Math.hypot(...ev.state.position)).toBeGreaterThan(42.1e6);
       expect(Math.hypot(...ev.state.position)).toBeLessThan(42.2e6);
       expect(Math.hypot(...ev.state.velocity)).toBeLessThan(300);
@@ -157,7 +161,7 @@ describe('evaluateBroadcastEphemeris: independent checks of the interface-spec a
   });
 
   it('evaluateBroadcastEphemeris(record, t) is continuous between consecutive records of the same orbit (G05 at 01:00 from t_oe 00:00 and 02:00)', () => {
-    const t = WEEK_2296 + 3600;
+    const t = WEEK_2296.plus(3600);
     const a = evaluateBroadcastEphemeris(record('G05', 0), t);
     const b = evaluateBroadcastEphemeris(record('G05', 1), t);
     expect(dist(a.state.position, b.state.position)).toBeLessThan(1e-2);
@@ -166,7 +170,7 @@ describe('evaluateBroadcastEphemeris: independent checks of the interface-spec a
 
   it('evaluateBroadcastEphemeris(record of the previous week, t after midnight) uses t_k across the week boundary: t_k = weekCrossover(sow(t) − t_oe)', () => {
     const g11 = record('G11');
-    const t = WEEK_2296 + 1800;
+    const t = WEEK_2296.plus(1800);
     const ev = evaluateBroadcastEphemeris(g11, t);
     expect(ev.timeFromEphemeris).toBe(9000);
     expect(weekCrossover(1800 - g11.toeSecondsOfWeek)).toBe(9000);
@@ -178,31 +182,100 @@ describe('evaluateBroadcastEphemeris: independent checks of the interface-spec a
     expect(systemConstants('C')).toBe(BEIDOU_ICD);
     const g = twoBody();
     const e = twoBody({ system: 'E', satellite: 'E01', message: 'INAV' });
-    const rg = evaluateBroadcastEphemeris(g, g.toeSeconds).relativisticSeconds;
-    const E = evaluateBroadcastEphemeris(g, g.toeSeconds).eccentricAnomaly;
+    const rg = evaluateBroadcastEphemeris(g, g.toe).relativisticSeconds;
+    const E = evaluateBroadcastEphemeris(g, g.toe).eccentricAnomaly;
     expect(rg).toBeCloseTo(-4.442807633393e-10 * g.eccentricity * g.sqrtA * Math.sin(E), 20);
-    const Ee = evaluateBroadcastEphemeris(e, e.toeSeconds).eccentricAnomaly;
-    expect(evaluateBroadcastEphemeris(e, e.toeSeconds).relativisticSeconds).toBeCloseTo(
+    const Ee = evaluateBroadcastEphemeris(e, e.toe).eccentricAnomaly;
+    expect(evaluateBroadcastEphemeris(e, e.toe).relativisticSeconds).toBeCloseTo(
       -4.442807309044e-10 * e.eccentricity * e.sqrtA * Math.sin(Ee),
       20,
     );
   });
 
-  it('evaluateBroadcastEphemeris(ephemeris, t) rejects a non-finite t, e ≥ 1, √A given with A in km, a NaN field and an unknown system', () => {
+  it('evaluateBroadcastEphemeris(ephemeris, t) rejects e ≥ 1, √A given with A in km, a NaN field, an unknown system and epochs that are not Instants', () => {
     const eph = twoBody();
-    expect(() => evaluateBroadcastEphemeris(eph, Number.NaN)).toThrow(InvalidArgumentError);
-    expect(() => evaluateBroadcastEphemeris(twoBody({ eccentricity: 1 }), eph.toeSeconds)).toThrow(
+    expect(() => evaluateBroadcastEphemeris({ ...eph, toe: 1.388e9 as unknown as Instant }, eph.toe)).toThrow(
+      /ephemeris\.toe must be an Instant/,
+    );
+    expect(() => evaluateBroadcastEphemeris({ ...eph, toc: undefined as unknown as Instant }, eph.toe)).toThrow(
+      /ephemeris\.toc must be an Instant/,
+    );
+    expect(() => evaluateBroadcastEphemeris({ ...eph, transmission: 0 as unknown as Instant }, eph.toe)).toThrow(
+      /ephemeris\.transmission must be an Instant/,
+    );
+    expect(() => evaluateBroadcastEphemeris(twoBody({ eccentricity: 1 }), eph.toe)).toThrow(
       /eccentricity must be in \[0, 1\)/,
     );
-    expect(() => evaluateBroadcastEphemeris(twoBody({ eccentricity: -0.1 }), eph.toeSeconds)).toThrow(/eccentricity/);
-    expect(() => evaluateBroadcastEphemeris(twoBody({ sqrtA: 162.97 }), eph.toeSeconds)).toThrow(
+    expect(() => evaluateBroadcastEphemeris(twoBody({ eccentricity: -0.1 }), eph.toe)).toThrow(/eccentricity/);
+    expect(() => evaluateBroadcastEphemeris(twoBody({ sqrtA: 162.97 }), eph.toe)).toThrow(
       /did you give √A with A in kilometres/,
     );
-    expect(() => evaluateBroadcastEphemeris(twoBody({ cuc: Number.NaN }), eph.toeSeconds)).toThrow(/ephemeris\.cuc/);
-    expect(() => evaluateBroadcastEphemeris(twoBody({ system: 'R' as 'G' }), eph.toeSeconds)).toThrow(/one of 'G'/);
-    expect(() => evaluateBroadcastEphemeris(null as unknown as KeplerianBroadcastEphemeris, 0)).toThrow(
+    expect(() => evaluateBroadcastEphemeris(twoBody({ cuc: Number.NaN }), eph.toe)).toThrow(/ephemeris\.cuc/);
+    expect(() => evaluateBroadcastEphemeris(twoBody({ system: 'R' as 'G' }), eph.toe)).toThrow(/one of 'G'/);
+    expect(() => evaluateBroadcastEphemeris(null as unknown as KeplerianBroadcastEphemeris, eph.toe)).toThrow(
       /broadcast ephemeris record/,
     );
+  });
+});
+
+describe('evaluateBroadcastEphemeris, selectEphemeris, orbitTimeSeconds: absolute times are Instants only', () => {
+  it('evaluateBroadcastEphemeris(record, seconds) refuses a bare number naming `time`, with a hint how to build an Instant', () => {
+    const eph = twoBody();
+    for (const bad of [2296 * 604800 + 7200, Number.NaN, '2024-01-07T02:00:00', undefined]) {
+      const error = (() => {
+        try {
+          evaluateBroadcastEphemeris(eph, bad as unknown as Instant);
+        } catch (e) {
+          return e;
+        }
+      })();
+      expect(error).toBeInstanceOf(InvalidArgumentError);
+      expect((error as InvalidArgumentError).argument).toBe('time');
+      expect((error as InvalidArgumentError).hint).toMatch(/parseIso\('2024-01-07T01:00:00', 'GPS'\)/);
+    }
+  });
+
+  it('selectEphemeris(records, seconds) and orbitTimeSeconds(seconds, system) refuse a bare number the same way', () => {
+    const g05 = NAV.ephemerides.filter((e) => e.satellite === 'G05');
+    expect(() => selectEphemeris(g05, (2296 * 604800) as unknown as Instant)).toThrow(
+      /time must be an Instant .*parseIso/,
+    );
+    expect(() => orbitTimeSeconds(1.388e9 as unknown as Instant, 'G')).toThrow(/t must be an Instant .*parseIso/);
+    expect(() => orbitTimeSeconds(WEEK_2296, 'R' as 'G')).toThrow(/system must be one of 'G'/);
+  });
+
+  it('orbitTimeSeconds(start of GPS week 2296, system) is 2296 × 604800 s on GPST and GST and 14 s less on BDT (BDT = GPST − 14 s, physics-refs; common practice)', () => {
+    expect(orbitTimeSeconds(WEEK_2296, 'G')).toBe(2296 * 604800);
+    expect(orbitTimeSeconds(WEEK_2296, 'E')).toBe(2296 * 604800);
+    expect(orbitTimeSeconds(WEEK_2296, 'C')).toBe(2296 * 604800 - 14);
+  });
+
+  it('evaluateBroadcastEphemeris(record with t_oe before its system week 0, t) names ephemeris.toe', () => {
+    const beidou = twoBody({
+      system: 'C',
+      satellite: 'C08',
+      message: 'D1',
+      toe: instantFromWeekSeconds('GPS', 1300, 0),
+    });
+    expect(() => evaluateBroadcastEphemeris(beidou, beidou.toe)).toThrow(
+      /ephemeris\.toe must be an instant at or after the start of the system's week 0 \(2006-01-01T00:00:00 BDT\)/,
+    );
+  });
+
+  it('evaluateBroadcastEphemeris(record, t) takes t − t_oe and t − t_oc exactly for a t between the float count steps (independent exact arithmetic [C])', () => {
+    // t = t_oe + 1234 s + 0.1 s (0.1 as its double). The exact t_k is 1234 + fl(0.1), whose nearest double is
+    // fl(1234 + 0.1) (one rounding of an exact sum). The float count of seconds since 1980 (≈ 1.3887e9 s) steps
+    // by 2^-22 s ≈ 2.4e-7 s, so the former t_k = count(t) − count(t_oe) was off by up to 2^-23 s ≈ 1.2e-7 s.
+    const eph = twoBody({ af0: 1e-4, af1: 1e-11, af2: 1e-18, toc: WEEK_2296.plus(3600) });
+    const t = eph.toe.plus(1234).plus(0.1);
+    const ev = evaluateBroadcastEphemeris(eph, t);
+    expect(ev.timeFromEphemeris).toBe(1234 + 0.1);
+    const formerTk = orbitTimeSeconds(t, 'G') - orbitTimeSeconds(eph.toe, 'G'); // both exact subtractions
+    expect(Math.abs(formerTk - (1234 + 0.1))).toBeGreaterThan(1e-8);
+    expect(Math.abs(formerTk - (1234 + 0.1))).toBeLessThanOrEqual(2 ** -23);
+    // t − t_oc = 4834.1 s: the clock polynomial on the exact span (IS-GPS-200 §20.3.3.3.3.1 [M]).
+    const dtc = 4834 + 0.1;
+    expect(ev.polynomialSeconds).toBe(1e-4 + 1e-11 * dtc + 1e-18 * dtc * dtc);
   });
 });
 
@@ -226,14 +299,14 @@ describe('weekCrossover, isBeidouGeostationary', () => {
 describe('selectEphemeris: nearest valid t_oe within the fit interval (common practice, no source)', () => {
   const g05 = NAV.ephemerides.filter((e) => e.satellite === 'G05');
   it('selectEphemeris(records, t) picks the nearest t_oe and prefers t_oe ≤ t on a tie', () => {
-    expect(selectEphemeris(g05, WEEK_2296 + 1000)!.toeSeconds).toBe(WEEK_2296);
-    expect(selectEphemeris(g05, WEEK_2296 + 5000)!.toeSeconds).toBe(WEEK_2296 + 7200);
-    expect(selectEphemeris(g05, WEEK_2296 + 3600)!.toeSeconds).toBe(WEEK_2296);
+    expect(selectEphemeris(g05, WEEK_2296.plus(1000))!.toe.secondsSince(WEEK_2296)).toBe(0);
+    expect(selectEphemeris(g05, WEEK_2296.plus(5000))!.toe.secondsSince(WEEK_2296)).toBe(7200);
+    expect(selectEphemeris(g05, WEEK_2296.plus(3600))!.toe.secondsSince(WEEK_2296)).toBe(0);
   });
   it('selectEphemeris(records, t) returns undefined outside every fit interval', () => {
-    expect(selectEphemeris(g05, WEEK_2296 - 7201)).toBeUndefined();
-    expect(selectEphemeris(g05, WEEK_2296 + 7200 + 7201)).toBeUndefined();
-    expect(selectEphemeris(g05, WEEK_2296 + 7200 + 7200)).toBeDefined();
+    expect(selectEphemeris(g05, WEEK_2296.plus(-7201))).toBeUndefined();
+    expect(selectEphemeris(g05, WEEK_2296.plus(7200 + 7201))).toBeUndefined();
+    expect(selectEphemeris(g05, WEEK_2296.plus(7200 + 7200))).toBeDefined();
   });
   it('selectEphemeris(records, t) skips unhealthy records unless includeUnhealthy', () => {
     const g13 = NAV.ephemerides.filter((e) => e.satellite === 'G13');
@@ -252,11 +325,11 @@ describe('selectEphemeris: nearest valid t_oe within the fit interval (common pr
     ).toBe('FNAV');
   });
   it('selectEphemeris(records, t) prefers the later transmission, then the higher issue of data, for equal t_oe', () => {
-    const a = { ...g05[0]!, transmissionSeconds: WEEK_2296 - 100, issueOfData: 1 };
-    const b = { ...g05[0]!, transmissionSeconds: WEEK_2296 - 50, issueOfData: 2 };
-    const c = { ...g05[0]!, transmissionSeconds: WEEK_2296 - 50, issueOfData: 3 };
+    const a = { ...g05[0]!, transmission: WEEK_2296.plus(-100), issueOfData: 1 };
+    const b = { ...g05[0]!, transmission: WEEK_2296.plus(-50), issueOfData: 2 };
+    const c = { ...g05[0]!, transmission: WEEK_2296.plus(-50), issueOfData: 3 };
     expect(selectEphemeris([a, b], WEEK_2296)).toBe(b);
     expect(selectEphemeris([b, c, a], WEEK_2296)).toBe(c);
-    expect(() => selectEphemeris([a], Number.NaN)).toThrow(InvalidArgumentError);
+    expect(selectEphemeris([a, { ...b, transmission: undefined }], WEEK_2296)).toBe(a);
   });
 });

@@ -103,7 +103,7 @@ describe('signalClockCorrection on the fixture records (test/fixtures/rinex-nav/
 
   it('signalClockCorrection applied to evaluateBroadcastEphemeris(G05, t_oe).clockCorrectionSeconds gives Δt_sv − T_GD', () => {
     const eph = record('G05');
-    const ev = evaluateBroadcastEphemeris(eph, eph.toeSeconds);
+    const ev = evaluateBroadcastEphemeris(eph, eph.toe);
     expect(signalClockCorrection(eph, ev.clockCorrectionSeconds, 'L1CA').clockCorrectionSeconds).toBe(
       ev.clockCorrectionSeconds + 1e-8,
     );
