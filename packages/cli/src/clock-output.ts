@@ -214,10 +214,13 @@ export function recordAndModelText(
       width,
     ),
   );
-  for (const p of report.predictions)
-    out(
-      `prediction at t = ${epoch.text(p.t)}: x = ${pm(p.phase, p.std, 's')} (1σ, model + clock noise after the record)\n`,
-    );
+  for (const p of report.predictions) {
+    // A text record's prediction epoch as a stamp on --epoch's scale, and on its time column.
+    const stamp = stampOf(result.epoch.plus(p.t), scale);
+    const at =
+      rec.epoch === undefined ? `${stamp.iso} ${stamp.scale} (${epoch.text(p.t)} on the time column)` : epoch.text(p.t);
+    out(`prediction at t = ${at}: x = ${pm(p.phase, p.std, 's')} (1σ, model + clock noise after the record)\n`);
+  }
   out(`${FLIGHT_CAUTION}\n\n`);
 }
 

@@ -120,6 +120,23 @@ describe('tauline clock on the first epoch of a RINEX clock file', () => {
     expect(await referenceTime('2026-02-02T01:00:00 BDT')).toBe(3614);
   });
 
+  it('tauline clock --phase --epoch <GPS> --predict <stamp> (table) prints the prediction epoch as a stamp and on the time column: 15 days after the epoch is 1 296 000 s (hand computation [C])', async () => {
+    const example = join(ROOT, 'packages/sdk/examples/clock/vestra-4-rafs.txt');
+    const r = await run([
+      'clock',
+      '--phase',
+      example,
+      '--epoch',
+      '2027-02-08T06:00:00',
+      '--predict',
+      '2027-02-23T06:00:00',
+    ]);
+    expect(r.status).toBe(0);
+    expect(r.out.replace(/\n/g, ' ')).toMatch(
+      /prediction at t = 2027-02-23T06:00:00 GPS \(1296000 s on the time column\): x = \S+ ± \S+ s/,
+    );
+  });
+
   it('tauline clock --rinex-clock <a file naming no time system> reads its epochs on GPS time and says so (timeSystemAssumed)', async () => {
     const r = await run(['clock', '--rinex-clock', join(FIX, 'fictional-200.clk'), '--clock', 'G12', '--json']);
     expect(r.status).toBe(0);
