@@ -207,10 +207,11 @@ Uncertainties: af0/af1/af2 and predictions under the fitted clock noise plus mea
 (polynomialNoiseCovariance; the white-noise formula would understate them); q's with χ² intervals (±1σ
 level) from a covariance that accounts for the correlation of overlapping estimates.
 h-coefficients (IEEE Std 1139, one-sided): h0 = 2q1, h₋₂ = q2/(2π²), h₋₄ = q3/(8π⁴).
-Epochs: the record's time axis starts at input.epoch: a RINEX clock file's first sample, or --epoch for a text
-record. JSON gives each epoch as seconds since input.epoch (firstEpoch, lastEpoch, gaps[].time, referenceTime,
-predictions[].t, jumps[].epoch, rejected[].t) and as a stamp { iso, scale } beside it (…Stamp fields,
-referenceEpoch): ISO 8601 without zone, read on the file's time system (for --epoch, the one it was given on).
+Epochs: the record's time axis starts at input.epoch: a RINEX clock file's first sample, or --epoch
+for a text record. JSON gives each epoch as seconds since input.epoch (firstEpoch, lastEpoch,
+gaps[].time, referenceTime, predictions[].t, jumps[].epoch, rejected[].t) and as a stamp
+{ iso, scale } beside it (…Stamp fields, referenceEpoch): ISO 8601 without zone, read on the file's
+time system (for a text record, the one --epoch was given on).
 Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. A --measurement-sigma of 1 µs or more (ns given as s?)
 is used as given, with a warning on stderr. Exit status: 0 success, 2 unusable input.`,
   async run(args, io) {
