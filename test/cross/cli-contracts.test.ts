@@ -5,7 +5,7 @@
  * independently of the SDK, from the formulas and constants of /work/shared/physics-refs.md.
  */
 import { spawnSync } from 'node:child_process';
-import { existsSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
@@ -17,6 +17,7 @@ const KESTREL_A = join(ROOT, 'packages/sdk/examples/review/kestrel-block-a.revie
 const NBS14 = join(ROOT, 'test/fixtures/stability/nbs14-phase.txt');
 const NAV = join(ROOT, 'test/fixtures/rinex-nav/mixed-v305.rnx');
 const SP3 = join(ROOT, 'test/fixtures/sp3/orbit-d-p.sp3');
+const CLK = join(ROOT, 'test/fixtures/rinex-clock/long-304.clk');
 
 // Constants (physics-refs.md §1): c exact (SI); GM and L_G of IERS Conventions (2010) [V2]/[V1]; GPS μ [M/V2].
 const C = 299_792_458;
@@ -230,5 +231,66 @@ describe('tauline CLI contracts through the built binary', () => {
     const sample = (r.json.satellites[0].samples as Record<string, any>[]).find((x) => x.t === '2024-01-07T01:30:00')!;
     expect(Math.abs(sample.relativisticSeconds - expected)).toBeLessThan(1e-12);
     expect(r.json.units.relativisticSeconds).toBe('s');
+  });
+  it('clock --rinex-clock long-304.clk --clock G37 --reference-epoch <UTC> --json: the axis starts at the first G37 epoch as written, t_oc = UTC + 18 s, af0/af1/af2 = an independent least-squares fit (GPS − UTC = 18 s, IERS Bulletin C [M]; fit [C])', () => {
+    const r = tauline(
+      'clock',
+      '--rinex-clock',
+      CLK,
+      '--clock',
+      'G37',
+      '--reference-epoch',
+      '2026-02-02T06:00:00Z',
+      '--json',
+    );
+    expect(r.status).toBe(0);
+    // The G37 records as written (RINEX clock 3.04 columns: epoch fields, then the bias), read here by splitting.
+    const rows = readFileSync(CLK, 'utf8')
+      .split('\n')
+      .filter((l) => l.startsWith('AS G37 '))
+      .map((l) => {
+        const f = l.trim().split(/\s+/);
+        const [y, mo, d, h, mi, sec, , bias] = f.slice(2).map(Number) as number[];
+        return { ms: Date.UTC(y!, mo! - 1, d!, h!, mi!, 0) + sec! * 1000, bias: bias! };
+      });
+    const first = rows[0]!;
+    const last = rows.at(-1)!;
+    const iso = (ms: number) => new Date(ms).toISOString().slice(0, 19);
+    expect(r.json.input.epoch).toEqual({ iso: iso(first.ms), scale: 'GPS' });
+    expect(r.json.input.firstEpoch).toBe(0);
+    expect(r.json.input.lastEpoch).toBe((last.ms - first.ms) / 1000);
+    expect(r.json.input.lastEpochStamp).toEqual({ iso: iso(last.ms), scale: 'GPS' });
+    const toc = (Date.UTC(2026, 1, 2, 6) + 18_000 - first.ms) / 1000;
+    expect(r.json.polynomial.referenceTime).toBe(toc);
+    expect(r.json.polynomial.referenceEpoch).toEqual({ iso: '2026-02-02T06:00:18', scale: 'GPS' });
+    expect(r.json.polynomial.caution).toMatch(CAUTION);
+    // Ordinary least squares of a0 + a1 u + a2 u², u = (t − t_oc)/1e4 s for conditioning, by the normal equations.
+    const n = [0, 0, 0, 0, 0];
+    const b = [0, 0, 0];
+    for (const { ms, bias } of rows) {
+      const u = ((ms - first.ms) / 1000 - toc) / 1e4;
+      for (let k = 0; k < 5; k++) n[k]! += u ** k;
+      for (let k = 0; k < 3; k++) b[k]! += bias * u ** k;
+    }
+    const [s0, s1, s2, s3, s4] = n as [number, number, number, number, number];
+    const det3 = (m: number[][]) =>
+      m[0]![0]! * (m[1]![1]! * m[2]![2]! - m[1]![2]! * m[2]![1]!) -
+      m[0]![1]! * (m[1]![0]! * m[2]![2]! - m[1]![2]! * m[2]![0]!) +
+      m[0]![2]! * (m[1]![0]! * m[2]![1]! - m[1]![1]! * m[2]![0]!);
+    const N = [
+      [s0, s1, s2],
+      [s1, s2, s3],
+      [s2, s3, s4],
+    ];
+    const D = det3(N);
+    const solved = [0, 1, 2].map((c) => det3(N.map((row, i) => row.map((v, j) => (j === c ? b[i]! : v)))) / D);
+    const expected = solved.map((a, k) => a / 1e4 ** k);
+    const coefficients = r.json.polynomial.coefficients as { name: string; value: number; std: number }[];
+    // Cramer's rule in doubles: agreement to ~1e-9 relative for af0, af1; af2 is 0.3σ from zero, so it is
+    // compared against its own σ (well above the rounding of either computation).
+    expect(Math.abs(coefficients[0]!.value - expected[0]!)).toBeLessThan(1e-9 * Math.abs(expected[0]!));
+    expect(Math.abs(coefficients[1]!.value - expected[1]!)).toBeLessThan(1e-9 * Math.abs(expected[1]!));
+    expect(Math.abs(coefficients[2]!.value - expected[2]!)).toBeLessThan(1e-6 * coefficients[2]!.std);
+    expect(r.json.filter.jumps).toEqual([]);
   });
 });

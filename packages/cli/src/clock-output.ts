@@ -1,5 +1,6 @@
 import type { ClockCharacterization } from '@tauline/sdk/clock-model';
-import { epochFormat, stampOf } from './epochs.js';
+import type { Instant } from '@tauline/sdk/time';
+import { epochFormat, gapsJson, type Stamp, stampOf, timeSystemJson } from './epochs.js';
 import { FLIGHT_CAUTION, keyValueTable, sig } from './framework.js';
 import { fitTable } from './layout.js';
 import type { ClockRecord } from './records.js';
@@ -22,16 +23,21 @@ export interface ClockFlags {
   readonly degree: 1 | 2;
   readonly states: 2 | 3;
   readonly sigma: number | undefined;
-  readonly referenceTime: number | undefined;
-  readonly predict: number[];
+  /** `--reference-epoch`: t_oc as an instant. */
+  readonly referenceEpoch: Instant | undefined;
+  /** `--predict`: each epoch as given and its instant. */
+  readonly predict: readonly { readonly text: string; readonly instant: Instant }[];
   readonly scenarioNoise: boolean;
 }
 
 type QName = 'q1' | 'q2' | 'q3';
 const Q_UNITS = { q1: 's', q2: '1/s', q3: '1/s³' } as const;
 
-/** The derived numbers both output forms print. */
-export function clockReport(result: ClockCharacterization, flags: ClockFlags) {
+/**
+ * The derived numbers both output forms print.
+ * @param predict  The prediction epochs in seconds since `result.epoch` (as passed to characterizeClock).
+ */
+export function clockReport(result: ClockCharacterization, flags: ClockFlags, predict: readonly number[]) {
   const { polynomial: poly, polynomialNoise: polyNoise, noise } = result;
   const names = flags.degree === 2 ? ['af0', 'af1', 'af2'] : ['af0', 'af1'];
   const units = ['s', 'dimensionless', '1/s'];
@@ -45,7 +51,7 @@ export function clockReport(result: ClockCharacterization, flags: ClockFlags) {
   const rFit = result.measurementNoise.varianceInNoiseFit;
   const residualRms = Math.sqrt(poly.chiSquare / poly.residuals.length);
   const reducedChiSquare = rFit > 0 ? poly.chiSquare / rFit / poly.dof : Number.NaN;
-  const predictions = flags.predict.map((T, j) => ({
+  const predictions = predict.map((T, j) => ({
     t: T,
     phase: poly.predict(T),
     std: polyNoise.predictStd[j] ?? Number.NaN,
@@ -59,9 +65,9 @@ export function clockReport(result: ClockCharacterization, flags: ClockFlags) {
 export type ClockReport = ReturnType<typeof clockReport>;
 
 /**
- * The `--json` object. Epochs stay in seconds; a RINEX clock file adds ISO 8601 in its time system (…Iso fields).
- * `input.epoch` (the instant of t = 0) and `polynomial.referenceEpoch` (t_oc) are `{ iso, scale }`: ISO 8601 text
- * read on `scale` (the file's time system, or for `--epoch` UTC when given with a zone, else GPS).
+ * The `--json` object. Epochs are seconds since `input.epoch` (the instant of t = 0: a RINEX clock file's first
+ * sample, or `--epoch`), each with its stamp `{ iso, scale }` beside it (…Stamp fields; `polynomial.referenceEpoch`
+ * for t_oc): ISO 8601 text read on `scale` (the file's time system, or the one `--epoch` was given on).
  */
 export function clockJson(
   rec: ClockRecord,
@@ -71,11 +77,7 @@ export function clockJson(
   flags: ClockFlags,
   scale: string,
 ) {
-  const epoch = epochFormat(rec);
-  const isoOf = (name: string, value: number): Record<string, string> => {
-    const iso = epoch.iso(value);
-    return iso === undefined ? {} : { [`${name}Iso`]: iso };
-  };
+  const stamp = (t: number): Stamp => stampOf(result.epoch.plus(t), scale);
   const { polynomial: poly, noise, filter, measurementNoise: mn } = result;
   const first = t[0] ?? 0;
   const last = t[t.length - 1] ?? 0;
@@ -84,17 +86,16 @@ export function clockJson(
     input: {
       file: rec.source,
       ...(rec.clock ? { clock: rec.clock } : {}),
-      ...(rec.timeSystem ? { timeSystem: rec.timeSystem } : {}),
+      ...timeSystemJson(rec),
       samples: rec.values.length,
       tau0: rec.tau0,
-      gaps: rec.gaps.map((g) => ({ ...g, ...(g.time === undefined ? {} : isoOf('time', g.time)) })),
+      gaps: gapsJson(rec.gaps, stamp),
       firstEpoch: first,
       lastEpoch: last,
-      ...isoOf('firstEpoch', first),
-      ...isoOf('lastEpoch', last),
-      ...(epoch.scale === undefined
-        ? {}
-        : { epochUnits: `seconds since 1980-01-06T00:00:00 ${epoch.scale}; …Iso fields: ISO 8601 in ${epoch.scale}` }),
+      firstEpochStamp: stamp(first),
+      lastEpochStamp: stamp(last),
+      epochUnits:
+        'seconds since input.epoch; …Stamp fields and referenceEpoch: { iso: ISO 8601 without zone, scale: the time system it is read on }',
       epoch: stampOf(result.epoch, scale),
     },
     measurementNoise: {
@@ -108,14 +109,13 @@ export function clockJson(
     polynomial: {
       degree: flags.degree,
       referenceTime: result.referenceTime,
-      ...isoOf('referenceTime', result.referenceTime),
       referenceEpoch: stampOf(result.referenceEpoch, scale),
       coefficients: report.coefficients,
       residualRms: report.residualRms,
       reducedChiSquare: report.reducedChiSquare,
       dof: poly.dof,
       samplesUsed: result.samplesUsed,
-      predictions: report.predictions.map((p) => ({ ...p, ...isoOf('t', p.t) })),
+      predictions: report.predictions.map((p) => ({ ...p, tStamp: stamp(p.t) })),
       uncertaintyNote:
         'std: under the fitted clock noise (q) plus measurement noise; whiteNoiseStd: residual-scaled white-noise formula, for comparison',
       caution: FLIGHT_CAUTION,
@@ -139,8 +139,8 @@ export function clockJson(
     filter: {
       states: filter.states,
       passes: result.passes.length,
-      jumps: report.allJumps.map((j) => ({ ...j, ...isoOf('epoch', j.epoch) })),
-      rejected: report.allRejected.map((r) => ({ ...r, ...isoOf('t', r.t) })),
+      jumps: report.allJumps.map((j) => ({ ...j, epochStamp: stamp(j.epoch) })),
+      rejected: report.allRejected.map((r) => ({ ...r, tStamp: stamp(r.t) })),
       nis: filter.nisSummary,
       detection: {
         falseAlarmProbabilityPerSample: detection.falseAlarmProbability,
@@ -214,10 +214,13 @@ export function recordAndModelText(
       width,
     ),
   );
-  for (const p of report.predictions)
-    out(
-      `prediction at t = ${epoch.text(p.t)}: x = ${pm(p.phase, p.std, 's')} (1σ, model + clock noise after the record)\n`,
-    );
+  for (const p of report.predictions) {
+    // A text record's prediction epoch as a stamp on --epoch's scale, and on its time column.
+    const stamp = stampOf(result.epoch.plus(p.t), scale);
+    const at =
+      rec.epoch === undefined ? `${stamp.iso} ${stamp.scale} (${epoch.text(p.t)} on the time column)` : epoch.text(p.t);
+    out(`prediction at t = ${at}: x = ${pm(p.phase, p.std, 's')} (1σ, model + clock noise after the record)\n`);
+  }
   out(`${FLIGHT_CAUTION}\n\n`);
 }
 

@@ -52,7 +52,10 @@ export interface ClockRecord {
   kind: RecordKind;
   /** The samples (phase in s, or fractional frequency), uniformly spaced by `tau0`; NaN where one is missing. */
   values: Float64Array;
-  /** Epoch of each sample, in the file's seconds; undefined for a one-column text file. */
+  /**
+   * Time of each sample in seconds: a text record's time column as written, a RINEX clock's seconds since
+   * {@link ClockRecord.epoch}; undefined for a one-column text file.
+   */
   times: Float64Array | undefined;
   /** Sample spacing, in seconds. */
   tau0: number;
@@ -60,15 +63,13 @@ export interface ClockRecord {
   source: string;
   /** The flag that named the file (`--phase`, `--frequency` or `--rinex-clock`), for messages. */
   flag: string;
+  /** Runs of missing samples, each at its `time` on the `times` axis. */
   gaps: readonly SampleGap[];
   /** The clock's name in a RINEX clock file. */
   clock?: string;
   /** The RINEX file's time system, when it states one. */
   timeSystem?: string;
-  /**
-   * RINEX clock file: the instant at which `times` reads 0 s (its first sample's instant minus its count of
-   * seconds since 1980-01-06T00:00:00), so that `times` are seconds since it. A text record has no calendar.
-   */
+  /** RINEX clock file: its first sample's instant, at which `times` reads 0 s. A text record has no calendar. */
   epoch?: Instant;
 }
 
@@ -131,13 +132,11 @@ async function readRecord(
     );
     // With one epoch and --tau0 the record is still a single sample: a longer file is the only fix.
     if (s.tau0 === undefined) throw new UsageError(`clock ${clock} has a single epoch; give a longer file`);
-    const origin = s.times[0];
-    if (origin === undefined) throw new UsageError(`clock ${clock} has no epoch; give a longer file`); // not reached: τ0 needs two
     return {
-      epoch: s.epoch.plus(-origin),
+      epoch: s.epoch,
       kind: 'phase',
       values: s.phase,
-      times: s.times,
+      times: s.t,
       tau0: s.tau0,
       source: rinexFile,
       flag: '--rinex-clock',

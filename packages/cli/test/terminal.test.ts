@@ -86,7 +86,7 @@ const DEFAULT_RUNS: string[][] = [
     '3',
     '--scenario-noise',
     '--predict',
-    '1209600,1296000',
+    '2027-02-22T06:00:00,2027-02-23T06:00:00',
   ],
   ['clock', '--rinex-clock', CLK, '--clock', 'G37'],
   ['plan', ORIN],
@@ -144,28 +144,28 @@ describe('default tables fit 100 columns', () => {
 
 describe('RINEX clock epochs as calendar times', () => {
   // Epochs as written in the file (test/fixtures/rinex-clock/SOURCE.md): 2026-02-02 00:00 to 2026-02-03 09:15, GPS time.
-  it("tauline stability --rinex-clock prints the record span and gap epochs in the file's time system, JSON adds timeIso", async () => {
+  it("tauline stability --rinex-clock prints the record span and gap epochs in the file's time system, JSON gives them on the first epoch with stamps", async () => {
     const r = await runCli(['stability', '--rinex-clock', CLK, '--clock', 'G37']);
     expect(r.out.replace(/\n(?! )/g, ' ')).toMatch(/epochs 2026-02-02T00:00:00 GPS … 2026-02-03T09:15:00 GPS/);
     expect(r.out).toMatch(/\(t = 2026-02-02T12:30:00 GPS\)/);
     expect(r.out).not.toMatch(/e\+9/);
     const j = JSON.parse((await runCli(['stability', '--rinex-clock', CLK, '--clock', 'G37', '--json'])).out);
-    expect(j.input.gaps[0]).toMatchObject({ timeIso: '2026-02-02T12:30:00' });
+    // 12:30:00 is 45 000 s after the first epoch 00:00:00 (hand computation [C]).
+    expect(j.input.gaps[0]).toEqual({
+      index: 150,
+      missing: 1,
+      line: 162,
+      time: 45000,
+      timeStamp: { iso: '2026-02-02T12:30:00', scale: 'GPS' },
+    });
+    expect(j.input.epoch).toEqual({ iso: '2026-02-02T00:00:00', scale: 'GPS' });
     expect(j.input.timeSystem).toBe('GPS');
+    expect(j.units.gapTime).toBe('s since input.epoch (the first sample)');
   });
 
-  it('tauline clock --rinex-clock --predict prints the prediction epoch as a calendar time', async () => {
-    const firstEpoch = JSON.parse((await runCli(['clock', '--rinex-clock', CLK, '--clock', 'G37', '--json'])).out).input
-      .firstEpoch as number;
-    const r = await runCli([
-      'clock',
-      '--rinex-clock',
-      CLK,
-      '--clock',
-      'G37',
-      '--predict',
-      String(firstEpoch + 2 * 86400),
-    ]);
+  it('tauline clock --rinex-clock --predict <ISO 8601> prints the prediction epoch as a calendar time', async () => {
+    const r = await runCli(['clock', '--rinex-clock', CLK, '--clock', 'G37', '--predict', '2026-02-04T00:00:00']);
+    expect(r.status).toBe(0);
     expect(r.out).toMatch(/prediction at t = 2026-02-04T00:00:00 GPS: x = /);
   });
 });

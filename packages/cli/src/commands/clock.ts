@@ -6,8 +6,9 @@
 
 import { statSync } from 'node:fs';
 import { characterizeClock } from '@tauline/sdk/clock-model';
-import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant } from '@tauline/sdk/time';
+import type { Instant } from '@tauline/sdk/time';
 import { type ClockFlags, clockJson, clockReport, clockText } from '../clock-output.js';
+import { parseStampFlag, STAMP_HELP, stampOf } from '../epochs.js';
 import {
   type Command,
   EXIT_OK,
@@ -18,6 +19,7 @@ import {
   optionalFlag,
   type ParsedArgs,
   parseNumber,
+  sig,
   TABLE_OR_JSON,
   toJson,
   UsageError,
@@ -59,13 +61,13 @@ function uniformEpochs(n: number, tau0: number): Float64Array {
 /** The instant of t = 0 of a record and the time system its stamps are printed in. */
 interface RecordEpoch {
   readonly instant: Instant;
-  /** A RINEX clock file's time system (GPS when the header names none, as the reader assumes); for `--epoch`, UTC when given with a zone, else GPS. */
+  /** A RINEX clock file's time system (GPS when the header names none, as the reader assumes); for `--epoch`, the one it was read on. */
   readonly scale: string;
 }
 
 /**
- * The instant of t = 0 of the record's time axis: a RINEX clock file's own (1980-01-06T00:00:00 of its
- * time system), or `--epoch` for a text record, whose time column has no calendar.
+ * The instant of t = 0 of the record's time axis: a RINEX clock file's first sample, or `--epoch` for a text
+ * record, whose time column has no calendar.
  */
 function recordEpoch(args: ParsedArgs, rec: ClockRecord): RecordEpoch {
   const text = optionalFlag(args, 'epoch');
@@ -80,14 +82,7 @@ function recordEpoch(args: ParsedArgs, rec: ClockRecord): RecordEpoch {
         'reads 0 s (one column: the first sample), e.g. --epoch 2027-02-08T06:00:00 (GPS time) or 2027-02-08T06:00:00Z (UTC)',
     );
   }
-  // With a zone designator the text is UTC; without one it is a reading of GPS time.
-  const utc = /(Z|[+-]\d\d:?\d\d)$/i.test(text);
-  const scale = utc ? 'UTC' : 'GPS';
-  const instant = withFlagNames(
-    () => '--epoch',
-    () => createTimeScales(BUNDLED_LEAP_SECONDS).parseIso(text, scale),
-  );
-  return { instant, scale };
+  return parseStampFlag('--epoch', text);
 }
 
 function clockFlags(args: ParsedArgs, io: Io): ClockFlags {
@@ -100,18 +95,48 @@ function clockFlags(args: ParsedArgs, io: Io): ClockFlags {
   const sigmaHint = sigma === undefined ? undefined : phaseSigmaHint('--measurement-sigma', sigma);
   if (sigmaHint) warn(io, 'clock', sigmaHint);
   const predictText = optionalFlag(args, 'predict');
-  const predict = predictText === undefined ? [] : predictText.split(',').map((v) => parseNumber('--predict', v));
-  const referenceTime = numberFlag(args, 'reference-time');
+  const predict =
+    predictText === undefined
+      ? []
+      : predictText.split(',').map((text) => ({ text, instant: parseStampFlag('--predict', text).instant }));
+  const referenceText = optionalFlag(args, 'reference-epoch');
+  const referenceEpoch =
+    referenceText === undefined ? undefined : parseStampFlag('--reference-epoch', referenceText).instant;
   return {
     format,
     tau0,
     degree,
     states,
     sigma,
-    referenceTime,
+    referenceEpoch,
     predict,
     scenarioNoise: args.values['scenario-noise'] === true,
   };
+}
+
+/**
+ * `--reference-epoch` and `--predict` as seconds on the record's time axis (since `epoch`, its t = 0).
+ * @throws {UsageError} for a prediction epoch before the last sample, naming both epochs.
+ */
+function onRecordAxis(
+  flags: ClockFlags,
+  { instant: epoch, scale }: RecordEpoch,
+  rec: ClockRecord,
+  t: Float64Array,
+): { referenceTime: number | undefined; predict: number[] } {
+  const lastT = t[t.length - 1] ?? 0;
+  const predict = flags.predict.map(({ text, instant }) => {
+    const p = instant.secondsSince(epoch);
+    if (p < lastT) {
+      const last = stampOf(epoch.plus(lastT), scale);
+      const onColumn = rec.epoch === undefined ? ` (${sig(lastT, 12)} s on the time column)` : '';
+      throw new UsageError(
+        `--predict: ${text} is before the last sample epoch ${last.iso} ${last.scale}${onColumn}; predictions are for epochs after the record`,
+      );
+    }
+    return p;
+  });
+  return { referenceTime: flags.referenceEpoch?.secondsSince(epoch), predict };
 }
 
 export const MIN_CLOCK_SAMPLES = 12;
@@ -121,14 +146,13 @@ export const clockCommand: Command = {
   summary:
     'Characterise a clock from its phase record: af0/af1/af2 with uncertainty, noise q1/q2/q3 from the stability of the residuals, Kalman outliers and jumps.',
   usage:
-    '(--phase <file> --epoch <ISO 8601> | --rinex-clock <file> --clock <name>) [--tau0 <s>] [--degree 1|2] [--reference-time <s>] [--predict <s,...>] [--states 2|3] [--measurement-sigma <s>] [--scenario-noise] [--json | --format table|json]',
+    '(--phase <file> --epoch <ISO 8601> | --rinex-clock <file> --clock <name>) [--tau0 <s>] [--degree 1|2] [--reference-epoch <ISO 8601>] [--predict <ISO 8601,...>] [--states 2|3] [--measurement-sigma <s>] [--scenario-noise] [--json | --format table|json]',
   flags: {
     ...recordFlags(['phase']),
     epoch: {
       type: 'string',
       value: '<ISO 8601>',
-      description:
-        'Instant at which the time column of a --phase record reads 0 s (one column: the first sample); required for a text record. Read on GPS time, or on UTC with a zone designator (Z).',
+      description: `Instant at which the time column of a --phase record reads 0 s (one column: the first sample); required for a text record (a RINEX clock file starts at its first epoch). ${STAMP_HELP}.`,
     },
     tau0: {
       type: 'string',
@@ -140,17 +164,16 @@ export const clockCommand: Command = {
       value: '1|2',
       description: 'Polynomial degree: 1 = af0, af1; 2 = af0, af1, af2 (default 2).',
     },
-    'reference-time': {
+    'reference-epoch': {
       type: 'string',
-      value: '<s>',
-      description:
-        "Reference epoch t_oc of af0/af1/af2, in the record's seconds: the time column of a text record, or for a RINEX clock file seconds since 1980-01-06T00:00:00 of its time system (default: first epoch).",
+      value: '<ISO 8601>',
+      description: `Reference epoch t_oc of af0/af1/af2 (default: the first sample's epoch). ${STAMP_HELP}.`,
     },
     predict: {
       type: 'string',
-      value: '<s,...>',
+      value: '<ISO 8601,...>',
       description:
-        'Epochs (record seconds as for --reference-time, ≥ the last sample) at which to predict the phase with its 1σ.',
+        'Epochs, comma-separated, at or after the last sample, at which to predict the phase with its 1σ; read as --reference-epoch.',
     },
     states: {
       type: 'string',
@@ -184,6 +207,11 @@ Uncertainties: af0/af1/af2 and predictions under the fitted clock noise plus mea
 (polynomialNoiseCovariance; the white-noise formula would understate them); q's with χ² intervals (±1σ
 level) from a covariance that accounts for the correlation of overlapping estimates.
 h-coefficients (IEEE Std 1139, one-sided): h0 = 2q1, h₋₂ = q2/(2π²), h₋₄ = q3/(8π⁴).
+Epochs: the record's time axis starts at input.epoch: a RINEX clock file's first sample, or --epoch
+for a text record. JSON gives each epoch as seconds since input.epoch (firstEpoch, lastEpoch,
+gaps[].time, referenceTime, predictions[].t, jumps[].epoch, rejected[].t) and as a stamp
+{ iso, scale } beside it (…Stamp fields, referenceEpoch): ISO 8601 without zone, read on the file's
+time system (for a text record, the one --epoch was given on).
 Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. A --measurement-sigma of 1 µs or more (ns given as s?)
 is used as given, with a warning on stderr. Exit status: 0 success, 2 unusable input.`,
   async run(args, io) {
@@ -203,13 +231,9 @@ is used as given, with a warning on stderr. Exit status: 0 success, 2 unusable i
       );
     }
     const t = rec.times ?? uniformEpochs(rec.values.length, rec.tau0); // a one-column record's epochs are k·τ0
-    const lastT = t[t.length - 1] ?? 0;
-    for (const p of flags.predict)
-      if (p < lastT)
-        throw new UsageError(
-          `--predict: ${p} s is before the last sample epoch ${lastT} s; predictions are for epochs after the record`,
-        );
-    const { instant: epoch, scale } = recordEpoch(args, rec);
+    const recEpoch = recordEpoch(args, rec);
+    const { instant: epoch, scale } = recEpoch;
+    const { referenceTime, predict } = onRecordAxis(flags, recEpoch, rec, t);
     // A record too short for the noise estimate is the file's fault: name the flag that gave it.
     const result = withFlagNames({ phase: rec.flag }, () =>
       characterizeClock(
@@ -217,15 +241,15 @@ is used as given, with a warning on stderr. Exit status: 0 success, 2 unusable i
         {
           degree: flags.degree,
           states: flags.states,
-          predict: flags.predict,
+          predict,
           onPass: (pass) => bar.update(1 + pass, 4),
-          ...(flags.referenceTime === undefined ? {} : { referenceTime: flags.referenceTime }),
+          ...(referenceTime === undefined ? {} : { referenceTime }),
           ...(flags.sigma === undefined ? {} : { measurementSigma: flags.sigma }),
         },
       ),
     );
     bar.finish();
-    const report = clockReport(result, flags);
+    const report = clockReport(result, flags, predict);
     if (flags.format === 'json') io.out(toJson(clockJson(rec, t, result, report, flags, scale)));
     else clockText(wrappedOut(io.out, outputWidth(args)), outputWidth(args), rec, t, result, report, flags, scale);
     return EXIT_OK;

@@ -13,7 +13,7 @@ import {
   type StabilityData,
   type StatisticName,
 } from '@tauline/sdk/stability';
-import { epochFormat } from '../epochs.js';
+import { epochFormat, gapsJson, type Stamp, stampOf, timeSystemJson } from '../epochs.js';
 import {
   type Command,
   EXIT_OK,
@@ -143,7 +143,10 @@ function analyzeRecord(input: ClockRecord, request: StabilityRequest): Stability
 /** The `--json` document: input summary, one flat row per τ (`<stat>`, `<stat>Low`, … null where a statistic has no terms), units. */
 function stabilityJson(input: ClockRecord, analysis: StabilityAnalysis): Record<string, unknown> {
   const stats = analysis.statistics;
-  const epoch = epochFormat(input);
+  const { epoch } = input;
+  const scale = input.timeSystem ?? 'GPS';
+  // A RINEX clock record is placed on its first sample's instant (read on GPS time when the file names no system).
+  const stamp = epoch === undefined ? undefined : (t: number): Stamp => stampOf(epoch.plus(t), scale);
   const rows = analysis.rows.map((r) => {
     const row: Record<string, unknown> = {
       tau: r.tau,
@@ -168,15 +171,13 @@ function stabilityJson(input: ClockRecord, analysis: StabilityAnalysis): Record<
       kind: input.kind,
       file: input.source,
       ...(input.clock ? { clock: input.clock } : {}),
-      ...(input.timeSystem ? { timeSystem: input.timeSystem } : {}),
+      ...timeSystemJson(input),
+      ...(stamp ? { epoch: stamp(0) } : {}),
       samples: analysis.input.samples,
       phasePoints: analysis.input.phasePoints,
       missing: analysis.input.missing,
-      // A RINEX clock file's gap epochs also as ISO 8601 in its time system (timeIso).
-      gaps: input.gaps.map((g) => {
-        const iso = g.time === undefined ? undefined : epoch.iso(g.time);
-        return iso === undefined ? g : { ...g, timeIso: iso };
-      }),
+      // A RINEX clock file's gap epochs also as stamps in its time system (timeStamp).
+      gaps: gapsJson(input.gaps, stamp),
       tau0: analysis.input.tau0,
     },
     confidence: analysis.confidence,
@@ -192,9 +193,12 @@ function stabilityJson(input: ClockRecord, analysis: StabilityAnalysis): Record<
       tdevHigh: 's',
       confidence: 'dimensionless (probability)',
       deviations: 'dimensionless (fractional frequency) for every statistic except tdev',
-      ...(epoch.scale === undefined
+      ...(stamp === undefined
         ? {}
-        : { gapTime: `s since 1980-01-06T00:00:00 ${epoch.scale}`, gapTimeIso: `ISO 8601 in ${epoch.scale}` }),
+        : {
+            gapTime: 's since input.epoch (the first sample)',
+            gapTimeStamp: '{ iso: ISO 8601 without zone, scale: the time system it is read on }',
+          }),
     },
   };
 }
@@ -315,7 +319,9 @@ Noise type per τ: B1 ratio, R(n) and lag-1 autocorrelation (NIST SP 1065 §5.6)
 JSON: { input: { kind, file, samples, phasePoints, missing, gaps[], tau0 }, confidence, statistics,
 rows: [ { tau, m, noise, alpha, noiseSource, <stat>, <stat>Low, <stat>High, <stat>N, <stat>Edf,
 <stat>EdfModel } ], droppedTaus, units }. A statistic without terms at a τ is null in that row.
-Deviations are dimensionless fractional frequency; tdev and tau are in seconds.
+Deviations are dimensionless fractional frequency; tdev and tau are in seconds. A RINEX clock record adds
+input.clock, input.timeSystem and input.epoch (its first sample, { iso, scale }); its gaps' time is in seconds
+since input.epoch, with timeStamp ({ iso, scale }) beside it.
 A record needs at least ${MIN_PHASE_POINTS} phase points (${MIN_PHASE_POINTS - 1} frequency values); a request in which no τ has a complete
 term (e.g. --taus longer than half the record) is refused.
 Exit status: 0 success, 2 unusable input.`,

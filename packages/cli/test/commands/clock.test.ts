@@ -23,7 +23,7 @@ describe('tauline clock', () => {
       '--epoch',
       '2027-02-08T06:00:00',
       '--predict',
-      '1296000',
+      '2027-02-23T06:00:00',
       '--scenario-noise',
       '--json',
     ]);
@@ -59,9 +59,16 @@ describe('tauline clock', () => {
     expect(j.filter.nis.mean).toBeLessThan(j.filter.nis.high);
     expect(j.polynomial.caution).toMatch(/responsible engineering authority/);
     expect(j.polynomial.predictions[0].std).toBeGreaterThan(0);
+    // 2027-02-23T06:00:00 GPS is 15 days = 1 296 000 s after --epoch 2027-02-08T06:00:00 GPS (hand computation [C]).
+    expect(j.polynomial.predictions[0]).toMatchObject({
+      t: 1296000,
+      tStamp: { iso: '2027-02-23T06:00:00', scale: 'GPS' },
+    });
+    // 750 000 s after the epoch is 8 d 16 h 20 min later: 2027-02-16T22:20:00 GPS (hand computation [C]).
+    expect(jump.epochStamp).toEqual({ iso: '2027-02-16T22:20:00', scale: 'GPS' });
   });
 
-  it('tauline clock --phase --epoch <GPS reading> --reference-time 3600 --json gives input.epoch and polynomial.referenceEpoch as ISO 8601 with their scale: 2027-02-08T06:00:00 GPS + 3600 s = 07:00:00 GPS (hand computation [C])', async () => {
+  it('tauline clock --phase --epoch <GPS reading> --reference-epoch 07:00:00 --json gives input.epoch and polynomial.referenceEpoch as ISO 8601 with their scale and t_oc 3600 s after the epoch (hand computation [C])', async () => {
     const r = await run([
       'clock',
       '--phase',
@@ -70,8 +77,8 @@ describe('tauline clock', () => {
       '2027-02-08T06:00:00',
       '--degree',
       '1',
-      '--reference-time',
-      '3600',
+      '--reference-epoch',
+      '2027-02-08T07:00:00',
       '--json',
     ]);
     expect(r.status).toBe(0);
@@ -89,7 +96,7 @@ describe('tauline clock', () => {
     expect(j.polynomial.referenceEpoch).toEqual({ iso: '2027-02-08T06:00:00', scale: 'UTC' });
   });
 
-  it('tauline clock --epoch 2027-06-20T00:00:00Z --reference-time 1200000 --json reads a t_oc past the leap-second table (2027-06-28) on GPS time: UTC + 1 200 000 s + 18 s = 2027-07-03T21:20:18 GPS (GPS − UTC = 18 s since 2017, IERS Bulletin C [M]; hand computation [C])', async () => {
+  it('tauline clock --epoch 2027-06-20T00:00:00Z --reference-epoch 2027-07-03T21:20:18 (GPS) --json gives a t_oc past the leap-second table (2027-06-28) on GPS time, 1 200 000 s after the epoch: UTC + 18 s + 1 200 000 s (GPS − UTC = 18 s since 2017, IERS Bulletin C [M]; hand computation [C])', async () => {
     const r = await run([
       'clock',
       '--phase',
@@ -98,13 +105,14 @@ describe('tauline clock', () => {
       '2027-06-20T00:00:00Z',
       '--degree',
       '1',
-      '--reference-time',
-      '1200000',
+      '--reference-epoch',
+      '2027-07-03T21:20:18',
       '--json',
     ]);
     expect(r.status).toBe(0);
     const j = JSON.parse(r.out);
     expect(j.input.epoch).toEqual({ iso: '2027-06-20T00:00:00', scale: 'UTC' });
+    expect(j.polynomial.referenceTime).toBe(1200000);
     expect(j.polynomial.referenceEpoch).toEqual({ iso: '2027-07-03T21:20:18', scale: 'GPS' });
   });
 
@@ -162,7 +170,27 @@ describe('tauline clock', () => {
       [['--phase', EXAMPLE, '--states', '4'], /--states must be 2 or 3/],
       [['--phase', EXAMPLE, '--measurement-sigma', '0'], /--measurement-sigma must be > 0 s/],
       [['--phase', EXAMPLE, '--measurement-sigma', '1ns'], /--measurement-sigma must be a decimal number/],
-      [['--phase', EXAMPLE, '--predict', '100'], /--predict: 100 s is before the last sample epoch 1209300 s/],
+      [
+        ['--phase', EXAMPLE, '--epoch', '2027-02-08T06:00:00', '--predict', '2027-02-08T06:01:40'],
+        // The last sample, 1 209 300 s after the epoch, is 2027-02-22T05:55:00 GPS (hand computation [C]).
+        /--predict: 2027-02-08T06:01:40 is before the last sample epoch 2027-02-22T05:55:00 GPS \(1209300 s on the time column\)/,
+      ],
+      [
+        ['--phase', EXAMPLE, '--epoch', '2027-02-08T06:00:00', '--predict', '1296000'],
+        /--predict 1296000: an epoch is given as ISO 8601 .*not as a count of seconds/,
+      ],
+      [
+        ['--phase', EXAMPLE, '--epoch', '2027-02-08T06:00:00', '--reference-epoch', '2027-02-08T06:00:00 GLO'],
+        /--reference-epoch "2027-02-08T06:00:00 GLO": a stamp is read on GPS time, on UTC with Z, or on one of GPS, GAL, BDT, QZS, TAI, UTC/,
+      ],
+      [
+        ['--phase', EXAMPLE, '--epoch', '2027-02-08T06:00:00', '--reference-epoch', '2027-02-30T00:00:00'],
+        /--reference-epoch/,
+      ],
+      [
+        ['--phase', EXAMPLE, '--epoch', '2027-02-08T06:00:00', '--reference-time', '0'],
+        /Unknown option '--reference-time'/,
+      ],
       [['--phase', EXAMPLE], /--phase .*vestra-4-rafs\.txt has no calendar: give --epoch <ISO 8601>/],
       [['--phase', EXAMPLE, '--epoch', '2027-02-30T00:00:00'], /--epoch/],
       [['--phase', EXAMPLE, '--epoch', 'yesterday'], /--epoch/],
@@ -265,25 +293,32 @@ describe('tauline clock --rinex-clock <file> --clock <name>', () => {
     expect(r.status).toBe(0);
     expect(r.err).toBe('');
     const j = JSON.parse(r.out);
+    // The record's t = 0 is its first epoch, 2026-02-02T00:00:00 GPS; the last is 2026-02-03T09:15:00 (SOURCE.md).
+    const since = (iso: string) => gpsSeconds(iso) - gpsSeconds('2026-02-02T00:00:00');
+    const gps = (iso: string) => ({ iso, scale: 'GPS' });
     expect(j.input).toMatchObject({
       file: LONG,
       clock: 'G37',
       timeSystem: 'GPS',
       samples: 400,
       tau0: 300,
-      firstEpoch: gpsSeconds('2026-02-02T00:00:00'),
-      lastEpoch: gpsSeconds('2026-02-03T09:15:00'),
+      epoch: gps('2026-02-02T00:00:00'),
+      firstEpoch: 0,
+      lastEpoch: since('2026-02-03T09:15:00'),
+      firstEpochStamp: gps('2026-02-02T00:00:00'),
+      lastEpochStamp: gps('2026-02-03T09:15:00'),
     });
+    expect(j.input.lastEpoch).toBe(119700); // 399 steps of 300 s
     expect(j.input.gaps).toEqual([
-      { index: 150, missing: 1, line: 162, time: gpsSeconds('2026-02-02T12:30:00'), timeIso: '2026-02-02T12:30:00' },
+      { index: 150, missing: 1, line: 162, time: since('2026-02-02T12:30:00'), timeStamp: gps('2026-02-02T12:30:00') },
     ]);
-    expect(j.input).toMatchObject({ firstEpochIso: '2026-02-02T00:00:00', lastEpochIso: '2026-02-03T09:15:00' });
-    expect(j.polynomial.referenceTimeIso).toBe('2026-02-02T00:00:00');
-    // The record's t = 0 is 1980-01-06T00:00:00 of the file's time system; t_oc is its first epoch (SOURCE.md).
-    expect(j.input.epoch).toEqual({ iso: '1980-01-06T00:00:00', scale: 'GPS' });
-    expect(j.polynomial.referenceEpoch).toEqual({ iso: '2026-02-02T00:00:00', scale: 'GPS' });
+    expect(j.polynomial.referenceEpoch).toEqual(gps('2026-02-02T00:00:00'));
     expect(j.polynomial.samplesUsed).toBe(399);
-    expect(j.polynomial.referenceTime).toBe(gpsSeconds('2026-02-02T00:00:00'));
+    expect(j.polynomial.referenceTime).toBe(0);
+    // No count of seconds since 1980 anywhere: every seconds field is within the record's 1.4 days.
+    const numbers = JSON.stringify(j).match(/-?\d+(\.\d+)?(e[+-]?\d+)?/gi) ?? [];
+    expect(numbers.filter((v) => Math.abs(Number(v)) > 1e6)).toEqual([]);
+    expect(r.out).not.toMatch(/1980-01-06|since 1980/);
     const af1 = j.polynomial.coefficients[1];
     expect(af1.name).toBe('af1');
     expect(Math.abs(af1.value - LONG_TRUTH.af1)).toBeLessThan(3 * af1.std);

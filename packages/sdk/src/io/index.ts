@@ -41,6 +41,7 @@ export {
   readRinexClock,
 } from './rinex-clock.js';
 export {
+  type RinexClockGap,
   type RinexClockSeries,
   RinexClockSeriesCollector,
   type RinexClockSeriesOptions,

@@ -11,7 +11,7 @@ import { Instant } from '../time/instant.js';
 import type { Seconds } from '../units.js';
 import { GrowableColumn } from './growable.js';
 import { MAX_SERIES_SAMPLES } from './limits.js';
-import { scaleSecondsFromFields, type TextSource, validEpochFields } from './line-reader.js';
+import { type TextSource, validEpochFields } from './line-reader.js';
 import { regularizeSeries, type SampleGap } from './phase-text.js';
 import {
   type RinexClockFile,
@@ -20,6 +20,14 @@ import {
   type RinexClockRecord,
   readRinexClock,
 } from './rinex-clock.js';
+
+/** A run of missing samples of a {@link RinexClockSeries}: a {@link SampleGap} placed on the series' own axis. */
+export interface RinexClockGap extends SampleGap {
+  /** Time of the first missing sample, in seconds since {@link RinexClockSeries.epoch} (on the series' `t` axis). */
+  readonly time: Seconds;
+  /** The first missing sample's instant: `series.epoch.plus(time)`. */
+  readonly epoch: Instant;
+}
 
 /** The bias series of one clock, on a uniform grid. */
 export interface RinexClockSeries {
@@ -31,16 +39,10 @@ export interface RinexClockSeries {
   readonly t: Float64Array;
   /** Phase (clock bias) in seconds; NaN for every missing epoch. */
   readonly phase: Float64Array;
-  /**
-   * Epoch of each sample in seconds since 1980-01-06T00:00:00 of the file's time system (a calendar count,
-   * no leap seconds; float resolution ≈ 2.4e-7 s). Computed on first use from `epoch` and `t`.
-   * @deprecated Use `epoch` and `t` (exact); kept for callers of earlier releases.
-   */
-  readonly times: Float64Array;
   /** Sample spacing, seconds (smallest step, or as given). */
   readonly tau0: Seconds | undefined;
-  /** Runs of missing samples; each gap's `time` is on the `times` count (seconds since 1980-01-06 of the file's scale). */
-  readonly gaps: readonly SampleGap[];
+  /** Runs of missing samples, each at its time on the `t` axis (seconds since `epoch`) and its instant. */
+  readonly gaps: readonly RinexClockGap[];
   readonly missing: number;
   readonly timeSystem: string | undefined;
 }
@@ -69,8 +71,8 @@ export class RinexClockSeriesCollector {
   private readonly _lines = new GrowableColumn();
   private _type: 'AS' | 'AR' | undefined;
   private readonly _names = new Set<string>();
-  /** First kept record: its instant (the origin of the kept times) and its calendar count of seconds since 1980. */
-  private _first: { epoch: Instant; scaleSeconds: number } | undefined;
+  /** First kept record: its instant (the origin of the kept times) and its line, for messages. */
+  private _first: { epoch: Instant; line: number } | undefined;
   private _last: Instant | undefined;
 
   constructor(sourceName: string, name: string, options: RinexClockSeriesOptions = {}) {
@@ -106,7 +108,7 @@ export class RinexClockSeriesCollector {
         `an epoch later than the previous ${this._name} record (line ${this._lines.get(n - 1)})`,
       );
     }
-    this._first ??= { epoch: r.epoch, scaleSeconds: scaleSecondsFromFields(r.time) };
+    this._first ??= { epoch: r.epoch, line: r.line };
     this._last = r.epoch;
     this._times.push(r.epoch.secondsSince(this._first.epoch));
     this._values.push(r.bias);
@@ -148,44 +150,36 @@ export class RinexClockSeriesCollector {
       );
     }
     const lineOf = (i: number) => this._lines.get(i);
+    // Times are exact offsets from the first record; messages name them so (the line locates the record).
+    const timeText = (t: Seconds) => `${t} s after the epoch of line ${first.line}`;
     const reg = regularizeSeries(
       this._source,
       this._times.toArray(),
       this._values.toArray(),
       lineOf,
       this._options.tau0,
-      first.scaleSeconds,
+      timeText,
     );
-    return seriesWithTimes(
-      {
-        name: this._name,
-        type,
-        epoch: first.epoch,
-        t: reg.times,
-        phase: reg.phase,
-        tau0: reg.tau0,
-        gaps: reg.gaps,
-        missing: reg.missing,
-        timeSystem: header.timeSystem,
-      },
-      first.scaleSeconds,
-    );
+    return {
+      name: this._name,
+      type,
+      epoch: first.epoch,
+      t: reg.times,
+      phase: reg.phase,
+      tau0: reg.tau0,
+      gaps: reg.gaps.map((g) => gapOnAxis(g, first.epoch)),
+      missing: reg.missing,
+      timeSystem: header.timeSystem,
+    };
   }
 }
 
-/** Adds the deprecated `times` (calendar count since 1980) as a property computed on first use. */
-function seriesWithTimes(series: Omit<RinexClockSeries, 'times'>, originScaleSeconds: number): RinexClockSeries {
-  let times: Float64Array | undefined;
-  return Object.defineProperty(series, 'times', {
-    enumerable: false,
-    get(): Float64Array {
-      if (times === undefined) {
-        times = new Float64Array(series.t.length);
-        for (const [k, t] of series.t.entries()) times[k] = originScaleSeconds + t;
-      }
-      return times;
-    },
-  }) as RinexClockSeries;
+/** A gap of the regularised series (its `time` in seconds since `epoch`) with its instant beside it. */
+function gapOnAxis(gap: SampleGap, epoch: Instant): RinexClockGap {
+  const { time } = gap;
+  // Every gap of a series with a time axis has a time (only one-column phase text has none).
+  if (time === undefined) throw new Error('internal: a RINEX clock series gap without its time');
+  return { index: gap.index, missing: gap.missing, line: gap.line, time, epoch: epoch.plus(time) };
 }
 
 /** Throws unless `r` is a record as {@link parseRinexClock} returns (a hand-made or damaged record is refused, naming the field). */

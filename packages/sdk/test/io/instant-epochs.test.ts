@@ -38,13 +38,24 @@ describe('RINEX clock records carry exact Instant epochs', () => {
     expect(Math.abs(scaleSecondsFromFields(first.time) - midnight - 1e-7)).toBeGreaterThan(1e-8);
     expect(formatFileEpoch(ts, first.epoch, file.header.epochTimeSystem)).toBe('2026-01-04T00:00:00.0000001');
   });
-  it('rinexClockSeries(...) gives { epoch, t }: the first epoch exact and t in seconds since it; times (deprecated) keeps its count since 1980', () => {
+  it('rinexClockSeries(...) gives { epoch, t }: the first epoch exact and t in seconds since it, with no count since 1980 beside them', () => {
     const s = rinexClockSeries(parseRinexClock(fixture('rinex-clock/fictional-305.clk')), 'E27');
     expect(s.epoch.toJSON()).toEqual({ taiSeconds: secondsSince2000(2026, 6, 30, 23, 58, 0) + 19, taiFraction: 0 });
     expect(Array.from(s.t)).toEqual([0, 30, 60, 90, 120, 150, 180, 210]);
-    expect(Array.from(s.times)).toEqual(
-      Array.from(s.t, (t) => (Date.UTC(2026, 5, 30, 23, 58, 0) - Date.UTC(1980, 0, 6)) / 1000 + t),
-    );
+    expect(s).not.toHaveProperty('times');
+  });
+  it('rinexClockSeries(a gap after an epoch 00:00:00.0000001 GPS) --tau0 30) places the gap at t = 60 s on the series axis and its Instant 1e-7 s past 00:01:00 to 1e-15 s', () => {
+    // fictional-304.clk: G05 at 00:00:00, 00:00:30, then 00:01:30 (00:01:00 missing; SOURCE.md). With the first
+    // epoch moved 1e-7 s later and τ0 = 30 s imposed, the steps 30 s − 1e-7 s and 60 s are whole multiples of τ0
+    // within the grid's 1e-6 relative tolerance, so the grid is t_k = k·30 s from the first epoch.
+    const s = rinexClockSeries(parseRinexClock(fractional, { sourceName: 'frac.clk' }), 'G05', { tau0: 30 });
+    const [gap] = s.gaps;
+    expect(s.gaps).toHaveLength(1);
+    expect(gap).toMatchObject({ index: 2, missing: 1, line: 12 });
+    expect(gap?.time).toBe(s.t[2]);
+    expect(gap?.epoch.secondsSince(s.epoch)).toBe(gap?.time);
+    expect(gap?.epoch.taiSeconds).toBe(secondsSince2000(2026, 1, 4, 0, 1, 0) + 19);
+    expect(Math.abs((gap?.epoch.taiFraction ?? 0) - 1e-7)).toBeLessThan(1e-15);
   });
   it('readRinexClockSeries(GPS epochs 30.0000001 s apart) measures τ0 = 30.0000001 s to 1e-12 s from the exact epochs', async () => {
     const H = V304.split('\n').slice(0, 6).join('\n');

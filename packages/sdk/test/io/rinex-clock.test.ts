@@ -14,6 +14,7 @@ import {
   rinexClockSeries,
 } from '../../src/io/index.js';
 import { MAX_SERIES_SAMPLES } from '../../src/io/limits.js';
+import { BUNDLED_LEAP_SECONDS, createTimeScales, formatFileEpoch } from '../../src/time/index.js';
 import { expectParseError, parseError } from './parse-errors.js';
 
 const fixture = (name: string) =>
@@ -165,7 +166,11 @@ describe('readRinexClock / RinexClockParser: the streaming event API (as readSp3
   it('readRinexClockSeries(chunks, name) streams the file, keeps one clock and equals rinexClockSeries(parseRinexClock(text), name)', async () => {
     const streamed = await readRinexClockSeries([V304], 'G05', { sourceName: 'x' });
     expect(streamed).toEqual(rinexClockSeries(parseRinexClock(V304, { sourceName: 'x' }), 'G05'));
-    expect(streamed.gaps).toEqual([{ index: 2, missing: 1, line: 12, time: streamed.times[2] }]);
+    // The gap at 00:01:00 GPS (fictional-304.clk, SOURCE.md) is 60 s after the first epoch 00:00:00.
+    expect(streamed.gaps).toEqual([{ index: 2, missing: 1, line: 12, time: 60, epoch: streamed.epoch.plus(60) }]);
+    expect(formatFileEpoch(createTimeScales(BUNDLED_LEAP_SECONDS), streamed.gaps[0]!.epoch, 'GPS')).toBe(
+      '2026-01-04T00:01:00',
+    );
   });
 });
 
@@ -330,7 +335,7 @@ describe('rinexClockSeries / readRinexClockSeries: one clock on a uniform grid, 
     const s = rinexClockSeries(parseRinexClock(V304), 'G05');
     expect([s.tau0, s.phase.length, s.timeSystem]).toEqual([30, 5, 'GPS']);
     expect(Number.isNaN(s.phase[2]!)).toBe(true);
-    expect(s.gaps).toEqual([{ index: 2, missing: 1, line: 12, time: s.times[2] }]);
+    expect(s.gaps).toEqual([{ index: 2, missing: 1, line: 12, time: s.t[2], epoch: s.epoch.plus(60) }]);
   });
   it('rinexClockSeries rejects an unknown clock (listing those present), repeated epochs and a name with both AS and AR records', () => {
     const unknownClock = (() => {
@@ -356,6 +361,13 @@ describe('rinexClockSeries / readRinexClockSeries: one clock on a uniform grid, 
     );
     const both = `${H304}\n${AS304}\n${AS304.replace('AS', 'AR').replace(' 0.000000', '30.000000')}\n`;
     expectParseError(() => rinexClockSeries(parseRinexClock(both, src), 'G05'), 8, 1, /both AS and AR/);
+  });
+  it('rinexClockSeries(steps of 30 s then 45 s) refuses the 45 s step at its line, naming the epoch by its seconds after the first epoch, not by a count since 1980', () => {
+    const at = (hhmmss: string) => AS304.replace('00 00  0.000000', hhmmss);
+    const text = `${H304}\n${at('00 00  0.000000')}\n${at('00 00 30.000000')}\n${at('00 01 15.000000')}\n`;
+    const e = expectParseError(() => rinexClockSeries(parseRinexClock(text, src), 'G05'), 9, 1, /whole multiple/);
+    // 00:01:15 is 75 s after 00:00:00 (hand computation [C]); the first G05 record is on line 7.
+    expect(e.message).toMatch(/; found "75 s after the epoch of line 7"$/);
   });
   it('readRinexClockSeries refuses a year-9999 epoch before allocating the series, naming file, line, the gap and the limit', async () => {
     const far = AS304.replace('2026 01 04 00 00', '9999 12 31 00 00');
@@ -409,8 +421,8 @@ describe('parseRinexClock: seeded mutation guard per layout (2000 inputs each)',
       const s = rinexClockSeries(f, first.name, { type: first.type });
       // A plain loop: a mutated seconds field can make a legal series of millions of samples.
       let finite = true;
-      for (let i = 0; i < s.times.length; i++)
-        finite &&= Number.isFinite(s.times[i]!) && (s.phase[i] === s.phase[i] ? Number.isFinite(s.phase[i]!) : true);
+      for (let i = 0; i < s.t.length; i++)
+        finite &&= Number.isFinite(s.t[i]!) && (s.phase[i] === s.phase[i] ? Number.isFinite(s.phase[i]!) : true);
       expect(finite).toBe(true);
     }
   }
