@@ -214,6 +214,10 @@ gaps[].time, referenceTime, predictions[].t, jumps[].epoch, rejected[].t) and as
 time system (for a text record, the one --epoch was given on).
 Units: seconds, fractional frequency (dimensionless), 1/s, 1/s³. A --measurement-sigma of 1 µs or more (ns given as s?)
 is used as given, with a warning on stderr. Exit status: 0 success, 2 unusable input.`,
+  retiredFlags: {
+    'reference-time':
+      'give t_oc as --reference-epoch <ISO 8601> (GPS time; UTC with Z), e.g. --reference-epoch 2027-02-08T06:00:00',
+  },
   async run(args, io) {
     const flags = clockFlags(args, io);
     // Progress on a terminal for a big file, in four stages: reading, then up to three characterisation passes

@@ -189,7 +189,7 @@ describe('tauline clock', () => {
       ],
       [
         ['--phase', EXAMPLE, '--epoch', '2027-02-08T06:00:00', '--reference-time', '0'],
-        /Unknown option '--reference-time'/,
+        /--reference-time is no longer accepted: give t_oc as --reference-epoch <ISO 8601>/,
       ],
       [['--phase', EXAMPLE], /--phase .*vestra-4-rafs\.txt has no calendar: give --epoch <ISO 8601>/],
       [['--phase', EXAMPLE, '--epoch', '2027-02-30T00:00:00'], /--epoch/],

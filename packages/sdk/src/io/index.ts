@@ -7,15 +7,12 @@
 export { MAX_LINE_CHARACTERS, MAX_SERIES_SAMPLES } from './limits.js';
 export {
   type EpochFields,
-  fieldsFromScaleSeconds,
-  formatEpochFields,
   LineSplitter,
   type LineSplitterOptions,
   linesOf,
   parseFortranReal,
   readLineBatches,
   readLines,
-  scaleSecondsFromFields,
   type TextLine,
   type TextSource,
 } from './line-reader.js';

@@ -14,8 +14,8 @@
  */
 import { InvalidArgumentError, ParseError } from '../errors.js';
 import { at } from '../internal/checked.js';
-import { requireInRange, requireOptions, requireSourceName } from '../internal/validate.js';
-import { civilFromDays, daysFromCivil, daysInMonth, MAX_CALENDAR_YEAR } from '../time/calendar.js';
+import { requireOptions, requireSourceName } from '../internal/validate.js';
+import { daysInMonth } from '../time/calendar.js';
 import { MAX_LINE_CHARACTERS } from './limits.js';
 
 /** One line of text without its line terminator. */
@@ -193,19 +193,6 @@ function chunkText(chunk: unknown): string {
   }
 }
 
-/** Throws unless `fields` names a real date and time (see {@link validEpochFields}). */
-function requireEpochFields(argument: string, fields: unknown): EpochFields {
-  const f = fields as EpochFields;
-  if (typeof fields !== 'object' || fields === null || !validEpochFields(f) || Math.abs(f.year) > MAX_CALENDAR_YEAR) {
-    throw new InvalidArgumentError(
-      argument,
-      fields,
-      `calendar fields { year, month, day, hour, minute, second } of a real date and time (|year| ≤ ${MAX_CALENDAR_YEAR}, second in [0, 61))`,
-    );
-  }
-  return f;
-}
-
 /**
  * Iterates the lines of a text source, synchronously. Accepts a string or a sync iterable of chunks.
  * @param options  `sourceName` for the over-long-line error, and the line limit.
@@ -265,54 +252,6 @@ export interface EpochFields {
   readonly minute: number;
   /** Seconds of the minute, may be fractional. */
   readonly second: number;
-}
-
-/** Day number of 1980-01-06 (start of GPS week 0) from 1970-01-01. */
-const GPS_EPOCH_DAYS = 3657;
-
-/**
- * Seconds from 1980-01-06T00:00:00 to `fields`, both read in the same uniform time scale
- * (GPST, GST, BDT, TAI): pure calendar arithmetic, 86 400 s per day, no leap seconds.
- * Resolution is the float64 spacing at ~1.5e9 s, about 2.4e-7 s.
- * @deprecated The readers give exact `Instant` epochs; use `instantFromFileEpoch` and
- *   `scaleSecondsFromInstant` of the time module. Kept for callers of earlier releases.
- */
-export function scaleSecondsFromFields(fields: EpochFields): number {
-  requireEpochFields('fields', fields);
-  const days = daysFromCivil(fields.year, fields.month, fields.day) - GPS_EPOCH_DAYS;
-  return days * 86400 + fields.hour * 3600 + fields.minute * 60 + fields.second;
-}
-
-/**
- * Inverse of {@link scaleSecondsFromFields}.
- * @deprecated Use `instantFromScaleSeconds` and `formatFileEpoch` of the time module.
- */
-export function fieldsFromScaleSeconds(seconds: number): EpochFields {
-  requireInRange('seconds', seconds, -1e12, 1e12, { unit: 's from 1980-01-06T00:00:00' });
-  const days = Math.floor(seconds / 86400);
-  let rest = seconds - days * 86400;
-  const { year, month, day } = civilFromDays(days + GPS_EPOCH_DAYS);
-  const hour = Math.floor(rest / 3600);
-  rest -= hour * 3600;
-  const minute = Math.floor(rest / 60);
-  return { year, month, day, hour, minute, second: rest - minute * 60 };
-}
-
-/**
- * ISO 8601 text of calendar fields without a zone designator, e.g. `2024-01-07T00:15:00` (fraction only when present, to 1 ns).
- * @deprecated Format an epoch's `Instant` with `formatFileEpoch` of the time module.
- */
-export function formatEpochFields(fields: EpochFields): string {
-  requireEpochFields('fields', fields);
-  const p = (n: number, w = 2) => String(n).padStart(w, '0');
-  const whole = Math.floor(fields.second);
-  let frac = '';
-  const f = fields.second - whole;
-  if (f > 5e-10)
-    frac = `.${Math.round(f * 1e9)
-      .toString()
-      .padStart(9, '0')}`.replace(/0+$/, '');
-  return `${p(fields.year, 4)}-${p(fields.month)}-${p(fields.day)}T${p(fields.hour)}:${p(fields.minute)}:${p(whole)}${frac}`;
 }
 
 /** Whether the calendar fields name a real date and time (second in [0, 61) to admit a leap second). */

@@ -12,9 +12,18 @@ import {
   parseSp3,
   readRinexClockSeries,
   rinexClockSeries,
-  scaleSecondsFromFields,
 } from '../../src/io/index.js';
 import { BUNDLED_LEAP_SECONDS, createTimeScales, formatFileEpoch } from '../../src/time/index.js';
+
+/** The former float count: seconds since 1980-01-06T00:00:00 of the same uniform scale as one double (Date.UTC days, no leap seconds). */
+const floatCountSince1980 = (f: {
+  year: number;
+  month: number;
+  day: number;
+  hour: number;
+  minute: number;
+  second: number;
+}) => (Date.UTC(f.year, f.month - 1, f.day, f.hour, f.minute) - Date.UTC(1980, 0, 6)) / 1000 + f.second;
 
 const fixture = (path: string) => readFileSync(new URL(`../../../../test/fixtures/${path}`, import.meta.url), 'utf8');
 const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
@@ -34,8 +43,8 @@ describe('RINEX clock records carry exact Instant epochs', () => {
     expect(first.time.second).toBe(0.0000001);
     expect(first.epoch.taiSeconds).toBe(secondsSince2000(2026, 1, 4) + 19);
     expect(Math.abs(first.epoch.taiFraction - 1e-7)).toBeLessThan(1e-15);
-    const midnight = scaleSecondsFromFields({ ...first.time, second: 0 });
-    expect(Math.abs(scaleSecondsFromFields(first.time) - midnight - 1e-7)).toBeGreaterThan(1e-8);
+    const midnight = floatCountSince1980({ ...first.time, second: 0 });
+    expect(Math.abs(floatCountSince1980(first.time) - midnight - 1e-7)).toBeGreaterThan(1e-8);
     expect(formatFileEpoch(ts, first.epoch, file.header.epochTimeSystem)).toBe('2026-01-04T00:00:00.0000001');
   });
   it('rinexClockSeries(...) gives { epoch, t }: the first epoch exact and t in seconds since it, with no count since 1980 beside them', () => {

@@ -6,7 +6,6 @@
 // the leap second 2016-12-31T23:59:60Z (IERS Bulletin C 52 [V2]).
 import { describe, expect, it } from 'vitest';
 import { InvalidArgumentError } from '../../src/errors.js';
-import { scaleSecondsFromFields } from '../../src/io/line-reader.js';
 import {
   BUNDLED_LEAP_SECONDS,
   createTimeScales,
@@ -17,6 +16,16 @@ import {
   instantFromScaleSeconds,
   scaleSecondsFromInstant,
 } from '../../src/time/index.js';
+
+/** The former float count: seconds since 1980-01-06T00:00:00 of the same uniform scale as one double (Date.UTC days, no leap seconds). */
+const floatCountSince1980 = (f: {
+  year: number;
+  month: number;
+  day: number;
+  hour: number;
+  minute: number;
+  second: number;
+}) => (Date.UTC(f.year, f.month - 1, f.day, f.hour, f.minute) - Date.UTC(1980, 0, 6)) / 1000 + f.second;
 
 const ts = createTimeScales(BUNDLED_LEAP_SECONDS);
 /** Whole seconds from 2000-01-01T00:00:00 to the date, by Date.UTC (independent of the SDK calendar). */
@@ -32,7 +41,7 @@ describe('instantFromFileEpoch: calendar fields on a file time system, exact', (
     expect(t0.toJSON()).toEqual({ taiSeconds: secondsSince2000(2026, 1, 4) + 19, taiFraction: 0 });
     expect(Math.abs(t1.secondsSince(t0) - 1e-7)).toBeLessThan(1e-15);
     // The float form (seconds since 1980 as one double) resolves 2.4e-7 s at 1.45e9 s: 1e-7 s is lost.
-    const floatStep = scaleSecondsFromFields(later) - scaleSecondsFromFields(at);
+    const floatStep = floatCountSince1980(later) - floatCountSince1980(at);
     expect(Math.abs(floatStep - 1e-7)).toBeGreaterThan(1e-8);
     expect(formatFileEpoch(ts, t1, 'GPS')).toBe('2026-01-04T00:00:00.0000001');
   });
