@@ -1,6 +1,7 @@
 import type { FleetDocument, FleetPlanJson } from '@tauline/sdk/fleet';
 import { html, nothing, type PropertyDeclarations, type PropertyValues, type TemplateResult } from 'lit';
 import { emit } from '../events.js';
+import { calendarTicks, FLEET_STEPS_SECONDS, formatChartUtc } from '../internal/calendar-axis.js';
 import { sizeCanvas } from '../internal/canvas.js';
 import { at } from '../internal/checked.js';
 import { typographicMinus } from '../internal/format.js';
@@ -8,7 +9,6 @@ import { PlotElement } from '../internal/plot-element.js';
 import { linearScale, type Scale } from '../internal/scale.js';
 import { baseStyles, plotStyles } from '../internal/styles.js';
 import { warnOnce } from '../internal/warn.js';
-import { calendarTicks, formatChartUtc } from './fleet-axis.js';
 import { type FleetReadResult, type FleetView, isAtRisk, readFleetPlan } from './fleet-data.js';
 import { drawFleet, type FleetHit, type FleetLayout, fleetHeight, fleetLayout, hitTest } from './fleet-draw.js';
 import { type Cursor, drawFleetOverlay, nextCursor } from './fleet-overlay.js';
@@ -269,7 +269,7 @@ export class TaulineFleetTimeline extends PlotElement {
       const ctx = sizeCanvas(data, g.layout.width, g.layout.height);
       if (ctx) {
         const count = Math.max(3, Math.floor((g.layout.right - g.layout.left) / 80));
-        const ticks = calendarTicks(d, g.sx.domain[0], g.sx.domain[1], count);
+        const ticks = calendarTicks(d, ...g.sx.domain, count, FLEET_STEPS_SECONDS);
         const { layout, sx } = g;
         drawFleet(ctx, { view: d, layout, sx, ticks, colors, atRisk: this._atRisk, riskFraction: this._risk });
         this._drawnKey = key;

@@ -41,7 +41,7 @@ export interface PlanClock {
 
 /** Everything the chart draws, in seconds since the scenario epoch. */
 export interface PlanView extends PlanClock {
-  /** The epoch as `Date` milliseconds, for the time-axis ticks. */
+  /** The epoch as `Date` milliseconds (kept for embedders; the time axis reads `epoch` through `timeScales`). */
   epochMs: number;
   feasible: boolean;
   reason: string | null;

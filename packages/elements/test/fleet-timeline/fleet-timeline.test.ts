@@ -1,9 +1,7 @@
 import { expect, fixture, html, oneEvent } from '@open-wc/testing';
 import { type FleetDocument, fleetPlanToJson, planFleet, validateFleet } from '@tauline/sdk/fleet';
-import { BUNDLED_LEAP_SECONDS, createTimeScales } from '@tauline/sdk/time';
 import { sendKeys } from '@web/test-runner-commands';
 import '../../src/fleet-timeline/fleet-timeline.define.js';
-import { calendarTicks } from '../../src/fleet-timeline/fleet-axis.js';
 import { readFleetPlan } from '../../src/fleet-timeline/fleet-data.js';
 import { columnMinima, fleetLayout } from '../../src/fleet-timeline/fleet-draw.js';
 import { marginSeries, requiredBound } from '../../src/fleet-timeline/fleet-margin.js';
@@ -388,17 +386,5 @@ describe('tauline-fleet-timeline', () => {
     } finally {
       w.restore();
     }
-  });
-
-  it('calendarTicks(base, t0, t1, n) puts midnights at UTC midnights through the SDK leap-second table (2017-01-01 is 86 401 s after 2016-12-31)', () => {
-    // The leap second inserted at the end of 2016-12-31 (IERS Bulletin C 52, from memory [M]).
-    const timeScales = createTimeScales(BUNDLED_LEAP_SECONDS);
-    const epoch = timeScales.parseIso('2016-12-31T00:00:00Z');
-    const ticks = calendarTicks({ epoch, timeScales }, 0, 3 * 86400 + 1, 4);
-    expect(ticks.map((t) => t.value)).to.deep.equal([0, 86401, 2 * 86400 + 1, 3 * 86400 + 1]);
-    expect(ticks.map((t) => t.label)).to.deep.equal(['12-31', '01-01', '01-02', '01-03']);
-    const hours = calendarTicks({ epoch, timeScales }, 86400 - 7200, 86401 + 7200, 5);
-    const labels = hours.map((t) => `${t.label}${t.sub ? ` ${t.sub}` : ''}`);
-    expect(labels).to.deep.equal(['22:00', '23:00', '00:00 2017-01-01', '01:00', '02:00']);
   });
 });
