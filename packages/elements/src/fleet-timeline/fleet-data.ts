@@ -18,6 +18,7 @@ import type {
 import type { Instant, TimeScales } from '@tauline/sdk/time';
 import {
   arr,
+  bundledTimeScales,
   type FleetDoc,
   fail,
   GuardError,
@@ -224,9 +225,10 @@ function computedPasses(field: string, raw: unknown, fleet: FleetDoc, stamp: Sta
   return passes.sort((a, b) => a.start - b.start || a.station - b.station);
 }
 
-function readUnchecked(plan: unknown, fleetDoc: unknown, kept?: FleetDoc): FleetView {
+function readUnchecked(plan: unknown, fleetDoc: unknown, kept: FleetDoc | undefined, scales: TimeScales): FleetView {
   const p = obj('plan', plan);
-  const fleet = kept && kept.source === fleetDoc ? kept : readFleetDoc(fleetDoc);
+  const same = kept && kept.source === fleetDoc && kept.timeScales === scales;
+  const fleet = same ? kept : readFleetDoc(fleetDoc, scales);
   const { timeScales, epoch } = fleet;
   const stamp = stampReader(timeScales, epoch);
   if (typeof p.feasible !== 'boolean') fail('plan.feasible', 'true or false', p.feasible);
@@ -293,12 +295,14 @@ function readUnchecked(plan: unknown, fleetDoc: unknown, kept?: FleetDoc): Fleet
  * Reads a fleet plan and its fleet document. Returns the view, or the first problem found: the
  * field path (`plan.satellites[2].predicted.t`, `fleet.satellites[1].tolerance.phaseSeconds`)
  * and what it must be. `kept`, the `view.fleet` of an earlier read of this same document (the element
- * keeps it while only the plan changes), saves reading it again.
+ * keeps it while only the plan changes), saves reading it again. Every stamp is read on `timeScales` (default:
+ * the SDK's bundled table, as the planner's default).
  */
 export function readFleetPlan(
   plan: FleetPlanJson | unknown,
   fleet: FleetDocument | unknown,
   kept?: FleetDoc,
+  timeScales: TimeScales = bundledTimeScales(),
 ): FleetReadResult {
   if (fleet === undefined || fleet === null) {
     const error =
@@ -306,7 +310,7 @@ export function readFleetPlan(
     return { ok: false, error };
   }
   try {
-    return { ok: true, view: readUnchecked(plan, fleet, kept) };
+    return { ok: true, view: readUnchecked(plan, fleet, kept, timeScales) };
   } catch (e) {
     if (e instanceof GuardError) return { ok: false, error: e.message };
     return { ok: false, error: `cannot read the plan: ${e instanceof Error ? e.message : String(e)}` };

@@ -9,7 +9,7 @@ import type { TaulineFleetTimeline } from '../../src/fleet-timeline/fleet-timeli
 import { erfc, oneSidedQuantile } from '../../src/internal/normal.js';
 import { linearScale } from '../../src/internal/scale.js';
 import { captureWarnings } from '../fixtures.js';
-import { heldFleet, strandedFleet } from './fleet-fixtures.js';
+import { heldFleet, laterFleet, strandedFleet } from './fleet-fixtures.js';
 
 const WIDTH = 900;
 
@@ -383,6 +383,32 @@ describe('tauline-fleet-timeline', () => {
       await el.updateComplete;
       expect(alert()).to.contain('plan.satellites[3].id must be "VESPER-9"');
       expect(w.list.map((x) => x.code)).to.deep.equal(['invalid-fleet-plan']);
+    } finally {
+      w.restore();
+    }
+  });
+
+  it('<tauline-fleet-timeline> reads every stamp with its timeScales property: a fleet after the bundled table (2028-02-01) is refused by default and drawn with a table that covers it', async () => {
+    const { fleet, plan, timeScales } = await laterFleet();
+    expect(fleet.epoch).to.equal('2028-02-01T00:00:00Z');
+    const w = await captureWarnings();
+    try {
+      const el = await render({ fleet, plan });
+      const alert = (): string | undefined => root(el).querySelector('[role="alert"]')?.textContent ?? undefined;
+      // The SDK's bundled table is complete only until 2027-06-28 (its own source text): no leap-free guess.
+      expect(alert()).to.contain("fleet.epoch must be inside the leap-second table of the element's timeScales");
+      expect(alert()).to.contain('2027-06-28');
+      expect(w.list.map((x) => x.code)).to.deep.equal(['invalid-fleet-plan']);
+      el.timeScales = timeScales;
+      await drawn(el);
+      expect(alert()).to.equal(undefined);
+      // 604 800 s horizon, no leap second in the test table: one week later to the minute [C].
+      const summary = root(el).querySelector('canvas.data')!.getAttribute('aria-label')!;
+      expect(summary).to.contain('Fleet timeline from 2028-02-01 00:00 UTC to 2028-02-08 00:00 UTC');
+      const view = readFleetPlan(plan, fleet, undefined, timeScales);
+      expect(view.ok && view.view.satellites.map((s) => s.feasible)).to.deep.equal(
+        plan.satellites.map((s) => s.feasible),
+      );
     } finally {
       w.restore();
     }
