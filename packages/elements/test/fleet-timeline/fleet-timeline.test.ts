@@ -388,6 +388,20 @@ describe('tauline-fleet-timeline', () => {
     }
   });
 
+  it('readFleetPlan(plan, fleet) names the first predicted time that does not increase, with both values', async () => {
+    const { plan, fleet } = await heldFleet();
+    const broken = structuredClone(plan);
+    const t = Array.from(broken.satellites[2]!.predicted.t);
+    const [t0 = Number.NaN, t1 = Number.NaN] = t;
+    t[2] = t1;
+    broken.satellites[2]!.predicted.t = t;
+    const r = readFleetPlan(broken, fleet);
+    expect(r.ok ? 'accepted' : r.error).to.equal(
+      `plan.satellites[2].predicted.t[2] must be greater than t[1] (${t1}); received ${t1}`,
+    );
+    expect(t0 < t1).to.equal(true);
+  });
+
   it('<tauline-fleet-timeline> reads every stamp with its timeScales property: a fleet after the bundled table (2028-02-01) is refused by default and drawn with a table that covers it', async () => {
     const { fleet, plan, timeScales } = await laterFleet();
     expect(fleet.epoch).to.equal('2028-02-01T00:00:00Z');
