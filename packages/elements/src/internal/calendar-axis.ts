@@ -64,17 +64,22 @@ export const FLEET_STEPS_SECONDS: readonly number[] = [1, 2, 3, 6, 12, 24, 48, 9
 /** At most this many ticks, whatever the span (a guard; the step keeps the count near the one asked). */
 const MAX_TICKS = 1000;
 
-/** UTC reading of a chart time, `YYYY-MM-DD HH:MM UTC` (`:SS` when `seconds` or not on a whole minute). */
+/**
+ * UTC reading of a chart time to the nearest second, `YYYY-MM-DD HH:MM UTC` (`:SS` when `seconds` or not on a
+ * whole minute), from the SDK's ISO 8601 text (`formatIso`, which carries into minutes and days and reads an
+ * inserted leap second as 23:59:60). `—` for a time that is not finite or outside the time scales' table.
+ */
 export function formatChartUtc(base: TimeBase, t: number, seconds = false): string {
   if (!Number.isFinite(t)) return '—';
+  let text: string;
   try {
-    const c = base.timeScales.toCalendar(base.epoch.plus(t), 'UTC');
-    const s = Math.floor(c.second + 1e-6);
-    const hm = `${c.year}-${pad(c.month)}-${pad(c.day)} ${pad(c.hour)}:${pad(c.minute)}`;
-    return seconds || s !== 0 ? `${hm}:${pad(s)} UTC` : `${hm} UTC`;
+    text = base.timeScales.formatIso(base.epoch.plus(t), { fractionDigits: 0 }); // YYYY-MM-DDThh:mm:ssZ
   } catch {
     return '—';
   }
+  const hm = text.slice(0, 16).replace('T', ' '),
+    s = text.slice(17, 19);
+  return seconds || s !== '00' ? `${hm}:${s} UTC` : `${hm} UTC`;
 }
 
 /** The chart time of 00:00 UTC on the day `mjd` (UTC modified Julian day). */

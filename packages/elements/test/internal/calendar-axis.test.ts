@@ -44,6 +44,16 @@ describe('internal/calendar-axis', () => {
     expect(calendarTicks(base('2016-12-31T00:00:00Z'), 0, Number.POSITIVE_INFINITY, 4)).to.deep.equal([]);
   });
 
+  it('formatChartUtc(base, t) rounds to the nearest second and carries into the minute and the day (never :60 outside a leap second)', () => {
+    const b = base('2026-04-02T23:59:00Z');
+    expect(formatChartUtc(b, 59.9999999)).to.equal('2026-04-03 00:00 UTC');
+    expect(formatChartUtc(b, 29.4, true)).to.equal('2026-04-02 23:59:29 UTC');
+    expect(formatChartUtc(b, 29.6)).to.equal('2026-04-02 23:59:30 UTC');
+    expect(formatChartUtc(b, Number.NaN)).to.equal('—');
+    // After the bundled table's end (2027-06-28): no guess.
+    expect(formatChartUtc(b, 2 * 365 * 86400)).to.equal('—');
+  });
+
   it('formatChartUtc(base, t) reads the inserted second as 23:59:60 and the midnight after it as 00:00', () => {
     const b = base('2016-12-31T23:59:59Z');
     expect(formatChartUtc(b, 1)).to.equal('2016-12-31 23:59:60 UTC');

@@ -4,7 +4,6 @@ import {
   formatHertz,
   formatNumber,
   formatOffsetAuto,
-  formatUtc,
   parseTimeUnit,
   pickTimeUnit,
   typographicMinus,
@@ -81,10 +80,5 @@ describe('internal/format', () => {
     expect(formatNumber(38.57533, 6)).to.equal('38.5753');
     expect(formatNumber(1.5e7, 3)).to.equal('1.50e7');
     expect(formatOffsetAuto(-1.5e-9, 3)).to.equal('−1.5 ns');
-  });
-
-  it('formatUtc prints UTC with the seconds when asked', () => {
-    expect(formatUtc(Date.parse('2031-04-02T06:30:00Z'))).to.equal('2031-04-02 06:30 UTC');
-    expect(formatUtc(Date.parse('2031-04-02T06:30:00Z'), true)).to.equal('2031-04-02 06:30:00 UTC');
   });
 });
