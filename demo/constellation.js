@@ -1,6 +1,8 @@
 // Invented demo data: the fictional "Corvane" timing constellation, its fictional ground
 // stations (Isk Harbour, Vell Ridge) and fictional dates. Nothing here describes a real system.
 
+import { BUNDLED_LEAP_SECONDS, createTimeScales } from '@tauline/sdk/time';
+
 export const CONSTELLATION = 'Corvane';
 
 /** Four invented MEO satellites: design semi-major axis (m), inclination (rad), clock type. */
@@ -40,8 +42,10 @@ export const SATELLITES = [
 ];
 
 const EPOCH = '2027-03-08T00:00:00Z'; // inside the SDK's bundled leap-second table span
-const EPOCH_MS = Date.parse(EPOCH);
-const iso = (s) => new Date(EPOCH_MS + s * 1000).toISOString().replace('.000Z', 'Z');
+const TIME_SCALES = createTimeScales(BUNDLED_LEAP_SECONDS); // the planner's default table, as the elements use
+const EPOCH_INSTANT = TIME_SCALES.parseIso(EPOCH, 'UTC');
+/** The UTC stamp `s` SI seconds after the epoch, through the SDK's time scales (a leap second counts as one). */
+const iso = (s) => TIME_SCALES.formatIso(EPOCH_INSTANT.plus(s), { fractionDigits: 0 });
 
 /** Two passes a day, offset per satellite so the stations take turns. */
 function contacts(index, days) {

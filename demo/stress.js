@@ -1,11 +1,14 @@
 // 10^6-point stress page and browser benchmark (test/bench/elements.bench.mjs drives runBench()).
 import '@tauline/elements';
+import { BUNDLED_LEAP_SECONDS, createTimeScales } from '@tauline/sdk/time';
 
 const N = 1_000_000;
 const SPAN = 7 * 86400;
 const EPOCH = '2026-09-14T00:00:00Z'; // inside the SDK's bundled leap-second table (the element reads stamps with it)
-const EPOCH_MS = Date.parse(EPOCH);
-const iso = (s) => new Date(EPOCH_MS + s * 1000).toISOString();
+const TIME_SCALES = createTimeScales(BUNDLED_LEAP_SECONDS);
+const EPOCH_INSTANT = TIME_SCALES.parseIso(EPOCH, 'UTC');
+/** The UTC stamp `s` SI seconds after the epoch, through the SDK's time scales (a leap second counts as one). */
+const iso = (s) => TIME_SCALES.formatIso(EPOCH_INSTANT.plus(s), { fractionDigits: 3 });
 
 /** Synthetic steered/unsteered prediction with a little high-frequency wobble (so decimation has work). */
 export function makeLargePlan(n = N) {

@@ -28,7 +28,7 @@ const LONG_FILES: Readonly<Record<string, number>> = {};
 /** Functions over MAX_FUNCTION_LINES today, as `file:name` with their line counts (may only shrink). */
 const LONG_FUNCTIONS: Readonly<Record<string, number>> = {};
 /** Casts counted over every source file (may only fall). */
-const MAX_NON_NULL_INDEX_CASTS = 239;
+const MAX_NON_NULL_INDEX_CASTS = 233;
 const MAX_AS_NUMBER_CASTS = 0;
 
 function sourceFiles(dir: string): string[] {

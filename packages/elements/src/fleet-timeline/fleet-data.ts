@@ -16,8 +16,10 @@ import type {
   StationSupportJson,
 } from '@tauline/sdk/fleet';
 import type { Instant, TimeScales } from '@tauline/sdk/time';
+import { at, atNumber } from '../internal/checked.js';
 import {
   arr,
+  bundledTimeScales,
   type FleetDoc,
   fail,
   GuardError,
@@ -158,8 +160,10 @@ function readSatellite(field: string, raw: unknown, index: number, stamp: Stamp)
   const predicted = obj(`${field}.predicted`, s.predicted);
   const tRaw = predicted.t instanceof Float64Array ? predicted.t : arr(`${field}.predicted.t`, predicted.t);
   const t = Float64Array.from(numbers(`${field}.predicted.t`, tRaw, tRaw.length));
-  for (let i = 1; i < t.length; i++) {
-    if (!(t[i]! > t[i - 1]!)) fail(`${field}.predicted.t[${i}]`, `greater than t[${i - 1}] (${t[i - 1]})`, t[i]);
+  let previous = Number.NaN;
+  for (const [i, ti] of t.entries()) {
+    if (i > 0 && !(ti > previous)) fail(`${field}.predicted.t[${i}]`, `greater than t[${i - 1}] (${previous})`, ti);
+    previous = ti;
   }
   const steered = obj(`${field}.predicted.steered`, predicted.steered);
   const commands = arr(`${field}.commands`, s.commands).map((c, k) =>
@@ -199,7 +203,14 @@ function readStations(
     const start = stamp(`${field}.start`, o.start),
       end = stamp(`${field}.end`, o.end);
     if (!(end > start)) fail(`${field}.end`, `after its start (${String(o.start)})`, o.end);
-    stations[station]!.supports.push({ index: k, station, satellite, start, end, source: raw as StationSupportJson });
+    at(stations, station, 'stations').supports.push({
+      index: k,
+      station,
+      satellite,
+      start,
+      end,
+      source: raw as StationSupportJson,
+    });
   });
   for (const s of stations) s.supports.sort((a, b) => a.start - b.start);
   return stations;
@@ -224,9 +235,10 @@ function computedPasses(field: string, raw: unknown, fleet: FleetDoc, stamp: Sta
   return passes.sort((a, b) => a.start - b.start || a.station - b.station);
 }
 
-function readUnchecked(plan: unknown, fleetDoc: unknown, kept?: FleetDoc): FleetView {
+function readUnchecked(plan: unknown, fleetDoc: unknown, kept: FleetDoc | undefined, scales: TimeScales): FleetView {
   const p = obj('plan', plan);
-  const fleet = kept && kept.source === fleetDoc ? kept : readFleetDoc(fleetDoc);
+  const same = kept && kept.source === fleetDoc && kept.timeScales === scales;
+  const fleet = same ? kept : readFleetDoc(fleetDoc, scales);
   const { timeScales, epoch } = fleet;
   const stamp = stampReader(timeScales, epoch);
   if (typeof p.feasible !== 'boolean') fail('plan.feasible', 'true or false', p.feasible);
@@ -242,7 +254,7 @@ function readUnchecked(plan: unknown, fleetDoc: unknown, kept?: FleetDoc): Fleet
   if (raw.length !== count) fail('plan.satellites.length', `${count} (the satellites of the fleet)`, raw.length);
   const ids = new Map<string, number>();
   const satellites = raw.map(({ steered, sigma, ...s }, i): SatelliteView => {
-    const doc = fleet.satellites[i]!;
+    const doc = at(fleet.satellites, i, 'fleet.satellites');
     if (doc.id !== s.id) fail(`plan.satellites[${i}].id`, `"${doc.id}" (satellites[${i}] of the fleet)`, s.id);
     ids.set(s.id, i);
     const margin = marginSeries(steered, sigma, doc.bound, doc.probability, doc.z);
@@ -251,7 +263,7 @@ function readUnchecked(plan: unknown, fleetDoc: unknown, kept?: FleetDoc): Fleet
     for (const [k, m] of margin.entries())
       if (m < minMargin) {
         minMargin = m;
-        minMarginAt = s.t[k]!;
+        minMarginAt = atNumber(s.t, k, `plan.satellites[${i}].predicted.t`);
       }
     return {
       ...s,
@@ -269,7 +281,7 @@ function readUnchecked(plan: unknown, fleetDoc: unknown, kept?: FleetDoc): Fleet
   const stations = readStations(p, fleet, ids, stamp);
   for (const st of stations) {
     for (const sup of st.supports) {
-      const sat = satellites[sup.satellite]!;
+      const sat = at(satellites, sup.satellite, 'satellites');
       sat.supportCount += 1;
       if (!sat.stationsUsed.includes(st.id)) sat.stationsUsed.push(st.id);
     }
@@ -293,12 +305,14 @@ function readUnchecked(plan: unknown, fleetDoc: unknown, kept?: FleetDoc): Fleet
  * Reads a fleet plan and its fleet document. Returns the view, or the first problem found: the
  * field path (`plan.satellites[2].predicted.t`, `fleet.satellites[1].tolerance.phaseSeconds`)
  * and what it must be. `kept`, the `view.fleet` of an earlier read of this same document (the element
- * keeps it while only the plan changes), saves reading it again.
+ * keeps it while only the plan changes), saves reading it again. Every stamp is read on `timeScales` (default:
+ * the SDK's bundled table, as the planner's default).
  */
 export function readFleetPlan(
   plan: FleetPlanJson | unknown,
   fleet: FleetDocument | unknown,
   kept?: FleetDoc,
+  timeScales: TimeScales = bundledTimeScales(),
 ): FleetReadResult {
   if (fleet === undefined || fleet === null) {
     const error =
@@ -306,7 +320,7 @@ export function readFleetPlan(
     return { ok: false, error };
   }
   try {
-    return { ok: true, view: readUnchecked(plan, fleet, kept) };
+    return { ok: true, view: readUnchecked(plan, fleet, kept, timeScales) };
   } catch (e) {
     if (e instanceof GuardError) return { ok: false, error: e.message };
     return { ok: false, error: `cannot read the plan: ${e instanceof Error ? e.message : String(e)}` };

@@ -52,16 +52,32 @@ export type Stamp = (field: string, text: unknown) => number;
 
 let bundled: TimeScales | undefined;
 
+/** The SDK's bundled leap-second table as time scales (made once): the planner's default. */
+export function bundledTimeScales(): TimeScales {
+  return (bundled ??= createTimeScales(BUNDLED_LEAP_SECONDS));
+}
+
 /** A reader of ISO 8601 UTC stamps as seconds since `epoch`, on `timeScales`. */
 export function stampReader(timeScales: TimeScales, epoch: Instant): Stamp {
   return (field, text) => {
     if (typeof text !== 'string') fail(field, 'an ISO 8601 UTC stamp', text);
     try {
       return timeScales.parseIso(text, 'UTC').secondsSince(epoch);
-    } catch {
-      return fail(field, 'an ISO 8601 UTC stamp with a zone, e.g. 2027-02-01T06:00:00Z', text);
+    } catch (e) {
+      return unplaced(field, e, 'an ISO 8601 UTC stamp with a zone, e.g. 2027-02-01T06:00:00Z', text);
     }
   };
+}
+
+/**
+ * The {@link GuardError} of a stamp the time scales refused: outside their leap-second table (the SDK's
+ * `OutOfDomainError`, whose text names the table's span) or not ISO 8601 (`expected`).
+ */
+function unplaced(field: string, e: unknown, expected: string, text: unknown): never {
+  if (e instanceof GuardError) throw e;
+  if (e instanceof Error && e.name === 'OutOfDomainError')
+    fail(field, `inside the leap-second table of the element's timeScales (${e.message})`, text);
+  return fail(field, expected, text);
 }
 
 /** A pass, station index and times in seconds since the epoch. */
@@ -125,18 +141,17 @@ function readSatellite(field: string, raw: unknown, stations: FleetDoc['stations
 }
 
 /**
- * Reads the fields of a fleet document that the element uses; throws a {@link GuardError} naming the
- * first wrong one (`fleet.satellites[0].tolerance.phaseSeconds must be …`).
+ * Reads the fields of a fleet document that the element uses, every stamp on `timeScales` (default: the SDK's
+ * bundled table); throws a {@link GuardError} naming the first wrong one (`fleet.satellites[0].tolerance.phaseSeconds
+ * must be …`; a stamp after the table's end is refused like any unreadable stamp).
  */
-export function readFleetDoc(doc: FleetDocument | unknown): FleetDoc {
+export function readFleetDoc(doc: FleetDocument | unknown, timeScales: TimeScales = bundledTimeScales()): FleetDoc {
   const root = obj('fleet', doc);
-  const timeScales = (bundled ??= createTimeScales(BUNDLED_LEAP_SECONDS));
   let epoch: Instant;
   try {
     epoch = timeScales.parseIso(str('fleet.epoch', root.epoch), 'UTC');
   } catch (e) {
-    if (e instanceof GuardError) throw e;
-    return fail('fleet.epoch', 'an ISO 8601 UTC stamp with a zone, e.g. 2027-02-01T00:00:00Z', root.epoch);
+    return unplaced('fleet.epoch', e, 'an ISO 8601 UTC stamp with a zone, e.g. 2027-02-01T00:00:00Z', root.epoch);
   }
   const horizon = positive('fleet.horizonSeconds', root.horizonSeconds);
   const stations = arr('fleet.stations', root.stations).map((raw, k) => {

@@ -5,10 +5,11 @@
  *
  * @module
  */
+
+import type { CalendarTick } from '../internal/calendar-axis.js';
 import { type MarkerShape, markerPath } from '../internal/canvas.js';
 import { at } from '../internal/checked.js';
 import type { Scale } from '../internal/scale.js';
-import type { CalendarTick } from './fleet-axis.js';
 import type { FleetCommandView, FleetView, SatelliteView, SupportView } from './fleet-data.js';
 
 /** Resolved colours and font. */

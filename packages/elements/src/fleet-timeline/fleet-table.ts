@@ -6,6 +6,7 @@
  * @module
  */
 import { html, nothing, type TemplateResult } from 'lit';
+import { formatChartUtc } from '../internal/calendar-axis.js';
 import { at } from '../internal/checked.js';
 import {
   formatDuration,
@@ -14,7 +15,6 @@ import {
   formatOffsetAuto,
   typographicMinus,
 } from '../internal/format.js';
-import { formatChartUtc } from './fleet-axis.js';
 import type { FleetCommandView, FleetView, SatelliteView, SupportView } from './fleet-data.js';
 import type { FleetHit } from './fleet-draw.js';
 

@@ -1,5 +1,21 @@
 import { css } from 'lit';
 
+/** The canvas colours of `<tauline-fleet-timeline>`, as CSS expressions resolved on the element. */
+export const FLEET_COLOR_EXPR = {
+  text: 'var(--text)',
+  muted: 'var(--muted)',
+  grid: 'var(--grid)',
+  surface: 'var(--surface)',
+  accent: 'var(--accent)',
+  margin: 'var(--margin-color)',
+  risk: 'var(--risk-color)',
+  support: 'var(--support-color)',
+  setup: 'var(--setup-color)',
+  pass: 'var(--pass-color)',
+  frequency: 'var(--frequency-command-color)',
+  phase: 'var(--phase-command-color)',
+} as const;
+
 /** Styles of `<tauline-fleet-timeline>`. */
 export const fleetTimelineStyles = css`
   :host {

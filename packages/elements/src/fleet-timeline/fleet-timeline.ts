@@ -1,6 +1,8 @@
 import type { FleetDocument, FleetPlanJson } from '@tauline/sdk/fleet';
+import type { TimeScales } from '@tauline/sdk/time';
 import { html, nothing, type PropertyDeclarations, type PropertyValues, type TemplateResult } from 'lit';
 import { emit } from '../events.js';
+import { calendarTicks, FLEET_STEPS_SECONDS, formatChartUtc } from '../internal/calendar-axis.js';
 import { sizeCanvas } from '../internal/canvas.js';
 import { at } from '../internal/checked.js';
 import { typographicMinus } from '../internal/format.js';
@@ -8,7 +10,6 @@ import { PlotElement } from '../internal/plot-element.js';
 import { linearScale, type Scale } from '../internal/scale.js';
 import { baseStyles, plotStyles } from '../internal/styles.js';
 import { warnOnce } from '../internal/warn.js';
-import { calendarTicks, formatChartUtc } from './fleet-axis.js';
 import { type FleetReadResult, type FleetView, isAtRisk, readFleetPlan } from './fleet-data.js';
 import { drawFleet, type FleetHit, type FleetLayout, fleetHeight, fleetLayout, hitTest } from './fleet-draw.js';
 import { type Cursor, drawFleetOverlay, nextCursor } from './fleet-overlay.js';
@@ -22,23 +23,8 @@ import {
   stepText,
   tooltip,
 } from './fleet-table.js';
-import { fleetTimelineStyles } from './fleet-timeline.styles.js';
+import { FLEET_COLOR_EXPR, fleetTimelineStyles } from './fleet-timeline.styles.js';
 import './fleet-events.js';
-
-const COLOR_EXPR = {
-  text: 'var(--text)',
-  muted: 'var(--muted)',
-  grid: 'var(--grid)',
-  surface: 'var(--surface)',
-  accent: 'var(--accent)',
-  margin: 'var(--margin-color)',
-  risk: 'var(--risk-color)',
-  support: 'var(--support-color)',
-  setup: 'var(--setup-color)',
-  pass: 'var(--pass-color)',
-  frequency: 'var(--frequency-command-color)',
-  phase: 'var(--phase-command-color)',
-} as const;
 
 interface Hover {
   hit: FleetHit;
@@ -57,7 +43,8 @@ interface Hover {
  * say so in the table.
  *
  * Takes the JSON form of `planFleet()`'s output (`fleetPlanToJson`, `@tauline/sdk/fleet`) as `plan` and the fleet document it was made
- * for as `fleet` (epoch, tolerances, stations, passes; read by a thin guard of the fields it uses).
+ * for as `fleet` (epoch, tolerances, stations, passes; read by a thin guard of the fields it uses). Every UTC
+ * stamp is read through the SDK on `timeScales` (the leap-second table the plan was made with).
  *
  * Keyboard (timeline focused): ↑ / ↓ move between satellites and station lanes; ← / → move
  * between the supports of a lane (or the uplinks of a satellite); Home / End go to the first /
@@ -100,6 +87,7 @@ export class TaulineFleetTimeline extends PlotElement {
   static override properties: PropertyDeclarations = {
     plan: { attribute: false },
     fleet: { attribute: false },
+    timeScales: { attribute: false },
     label: {},
     riskMargin: { type: Number, attribute: 'risk-margin' },
     selected: { reflect: true },
@@ -113,6 +101,12 @@ export class TaulineFleetTimeline extends PlotElement {
 
   /** The fleet document the plan was made for. */
   fleet?: FleetDocument | null;
+
+  /**
+   * The time scales (leap-second table) the plan's and the fleet's UTC stamps are read with: the one the plan was
+   * made with (`FleetPlanOptions.timeScales`). Default: the SDK's bundled table, as the planner's default.
+   */
+  timeScales?: TimeScales;
 
   /** Heading shown above the timeline. */
   label = 'Fleet timeline';
@@ -161,10 +155,11 @@ export class TaulineFleetTimeline extends PlotElement {
 
   protected override willUpdate(changed: PropertyValues<this>): void {
     super.willUpdate(changed);
-    if (changed.has('plan') || changed.has('fleet')) {
-      // The fleet document is read again only when it changes (a re-plan of the same fleet keeps it).
+    if (changed.has('plan') || changed.has('fleet') || changed.has('timeScales')) {
+      // The fleet document is read again only when it or the time scales change (a re-plan of the same fleet keeps it).
       const kept = this._result?.ok ? this._result.view.fleet : undefined;
-      this._result = this.plan === undefined || this.plan === null ? null : readFleetPlan(this.plan, this.fleet, kept);
+      const { plan, fleet, timeScales } = this;
+      this._result = plan === undefined || plan === null ? null : readFleetPlan(plan, fleet, kept, timeScales);
       if (this._result && !this._result.ok) warnOnce(this, 'invalid-fleet-plan', this._result.error);
       this._dataVersion += 1;
       this._hover = null;
@@ -261,7 +256,7 @@ export class TaulineFleetTimeline extends PlotElement {
     const g = this._geometry(),
       d = this._data;
     if (!g || !d) return;
-    const colors = this._resolveColors(COLOR_EXPR);
+    const colors = this._resolveColors(FLEET_COLOR_EXPR);
     const key = `${this._dataVersion}|${this._view?.join()}|${g.layout.width}|${this._risk}|${Object.values(colors).join()}`;
     const data = this._dataCanvas,
       overlay = this._overlayCanvas;
@@ -269,7 +264,7 @@ export class TaulineFleetTimeline extends PlotElement {
       const ctx = sizeCanvas(data, g.layout.width, g.layout.height);
       if (ctx) {
         const count = Math.max(3, Math.floor((g.layout.right - g.layout.left) / 80));
-        const ticks = calendarTicks(d, g.sx.domain[0], g.sx.domain[1], count);
+        const ticks = calendarTicks(d, ...g.sx.domain, count, FLEET_STEPS_SECONDS);
         const { layout, sx } = g;
         drawFleet(ctx, { view: d, layout, sx, ticks, colors, atRisk: this._atRisk, riskFraction: this._risk });
         this._drawnKey = key;

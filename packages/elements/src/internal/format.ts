@@ -97,33 +97,3 @@ export function formatDuration(seconds: number): string {
   if (a >= 60) return `${formatNumber(seconds / 60, 3)} min`;
   return `${formatNumber(seconds, 3)} s`;
 }
-
-function pad(n: number, width = 2): string {
-  return String(n).padStart(width, '0');
-}
-
-/** UTC date-time `YYYY-MM-DD HH:MM:SS` (seconds shown only when non-zero or asked). */
-export function formatUtc(ms: number, withSeconds = false): string {
-  if (!Number.isFinite(ms)) return '—';
-  const d = new Date(ms);
-  const base = `${d.getUTCFullYear()}-${pad(d.getUTCMonth() + 1)}-${pad(d.getUTCDate())} ${pad(d.getUTCHours())}:${pad(d.getUTCMinutes())}`;
-  return withSeconds || d.getUTCSeconds() !== 0 ? `${base}:${pad(d.getUTCSeconds())} UTC` : `${base} UTC`;
-}
-
-/** UTC date `YYYY-MM-DD`. */
-export function formatUtcDate(ms: number): string {
-  const d = new Date(ms);
-  return `${d.getUTCFullYear()}-${pad(d.getUTCMonth() + 1)}-${pad(d.getUTCDate())}`;
-}
-
-/** Tick label for a time axis: a clock time for sub-day steps, a date otherwise. */
-export function formatTimeTick(ms: number, stepSeconds: number): { main: string; sub: string | null } {
-  const d = new Date(ms);
-  const midnight = d.getUTCHours() === 0 && d.getUTCMinutes() === 0 && d.getUTCSeconds() === 0;
-  if (stepSeconds >= 86400) return { main: `${pad(d.getUTCMonth() + 1)}-${pad(d.getUTCDate())}`, sub: null };
-  const clock =
-    stepSeconds < 60
-      ? `${pad(d.getUTCHours())}:${pad(d.getUTCMinutes())}:${pad(d.getUTCSeconds())}`
-      : `${pad(d.getUTCHours())}:${pad(d.getUTCMinutes())}`;
-  return { main: clock, sub: midnight ? formatUtcDate(ms) : null };
-}

@@ -73,34 +73,6 @@ export function logTicks(d0: number, d1: number): number[] {
   return out;
 }
 
-/** Candidate steps for time axes, in seconds (common practice, no source). */
-const TIME_STEPS_SECONDS = [
-  1, 2, 5, 10, 15, 30, 60, 120, 300, 600, 900, 1800, 3600, 7200, 10800, 21600, 43200, 86400, 172800, 604800, 1209600,
-  2592000, 7776000, 31557600,
-];
-
-/** The time-axis step (seconds) giving about `count` intervals over [t0, t1] seconds. */
-export function timeStep(t0: number, t1: number, count: number): number {
-  const raw = Math.abs(t1 - t0) / Math.max(1, count);
-  for (const s of TIME_STEPS_SECONDS) if (s >= raw) return s;
-  return niceStep(t0, t1, count);
-}
-
-/**
- * Time ticks (seconds since `epochMs`, a Unix time in ms) at whole multiples of a time step
- * counted in UTC from the Unix epoch, so ticks fall on round clock times and dates.
- */
-export function timeTicks(t0: number, t1: number, count: number, epochMs: number): { values: number[]; step: number } {
-  const step = timeStep(t0, t1, count);
-  const epoch = epochMs / 1000;
-  const lo = Math.min(t0, t1) + epoch,
-    hi = Math.max(t0, t1) + epoch;
-  const values: number[] = [];
-  if (!Number.isFinite(lo) || !Number.isFinite(hi)) return { values, step };
-  for (let v = Math.ceil(lo / step) * step; v <= hi && values.length < 1000; v += step) values.push(v - epoch);
-  return { values, step };
-}
-
 /** Extends [lo, hi] by a fraction on both sides; a zero-width span gets a unit-relative margin. */
 export function padDomain(lo: number, hi: number, fraction: number): [number, number] {
   if (!Number.isFinite(lo) || !Number.isFinite(hi)) return [-1, 1];

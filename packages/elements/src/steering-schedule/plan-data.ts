@@ -41,7 +41,7 @@ export interface PlanClock {
 
 /** Everything the chart draws, in seconds since the scenario epoch. */
 export interface PlanView extends PlanClock {
-  /** The epoch as `Date` milliseconds, for the time-axis ticks. */
+  /** The epoch as `Date` milliseconds (kept for embedders; the time axis reads `epoch` through `timeScales`). */
   epochMs: number;
   feasible: boolean;
   reason: string | null;
@@ -109,8 +109,8 @@ export function elapsedSecondsBetween(
 }
 
 /**
- * Converts a chart time (elapsed SI seconds since the epoch) to `Date` milliseconds for labels,
- * from the SDK's UTC calendar reading of that instant. A `Date` cannot show second 60: inside an
+ * Converts a chart time (elapsed SI seconds since the epoch) to `Date` milliseconds (for `PlanView.epochMs`; the
+ * element's own labels use `formatChartUtc`), from the SDK's UTC calendar reading of that instant. A `Date` cannot show second 60: inside an
  * inserted leap second the label reads 23:59:59.x. NaN outside the time scales' table.
  */
 export function chartTimeToUtcMs(clock: PlanClock, t: number): number {

@@ -7,6 +7,7 @@
  * @module
  */
 
+import { calendarTicks } from '../internal/calendar-axis.js';
 import {
   drawAxes,
   type Frame,
@@ -17,9 +18,9 @@ import {
   type Tick,
 } from '../internal/canvas.js';
 import { type BandPolygon, decimateBand, decimateLine, type Polyline, visibleRange } from '../internal/decimate.js';
-import { formatNumber, formatTimeTick, parseTimeUnit, pickTimeUnit, type TimeUnit } from '../internal/format.js';
-import { linearScale, linearTicks, padDomain, type Scale, timeTicks } from '../internal/scale.js';
-import { interpolate, type PlanView, type SteeringCommandView } from './plan-data.js';
+import { formatNumber, parseTimeUnit, pickTimeUnit, type TimeUnit } from '../internal/format.js';
+import { linearScale, linearTicks, padDomain, type Scale } from '../internal/scale.js';
+import { interpolate, type PlanClock, type PlanView, type SteeringCommandView } from './plan-data.js';
 import { drawRevisions, type RevisionMarks, type RevisionView } from './revisions-layer.js';
 
 type Ctx = CanvasRenderingContext2D;
@@ -149,16 +150,20 @@ export function commandMarkers(d: PlanView, scales: ScheduleScales): CommandMark
   return out;
 }
 
+/**
+ * The time-axis ticks of a view: UTC clock times and dates read through the plan's time scales (the SDK's), so
+ * they agree with the command table across a leap second. About one label per 70 px, at least four intervals,
+ * so a phone-width plot still shows a few dates.
+ */
+export function scheduleTimeTicks(d: PlanClock, { sx, frame }: ScheduleScales): Tick[] {
+  const [x0, x1] = sx.domain;
+  return calendarTicks(d, x0, x1, Math.max(4, Math.floor(frame.width / 70)));
+}
+
 function drawTimeAxes(ctx: Ctx, d: PlanView, scales: ScheduleScales, colors: ScheduleColors): void {
   const { sx, sy, frame, unit } = scales;
-  const [x0, x1] = sx.domain,
-    [y0, y1] = sy.domain;
-  // About one label per 70 px, at least four intervals, so a phone-width plot still shows a few dates.
-  const tt = timeTicks(x0, x1, Math.max(4, Math.floor(frame.width / 70)), d.epochMs);
-  const xTicks: Tick[] = tt.values.map((v) => {
-    const f = formatTimeTick(d.epochMs + v * 1000, tt.step);
-    return { value: v, label: f.main, sub: f.sub };
-  });
+  const [y0, y1] = sy.domain;
+  const xTicks = scheduleTimeTicks(d, scales);
   const yTicks: Tick[] = linearTicks(
     Math.min(y0, y1),
     Math.max(y0, y1),

@@ -4,9 +4,11 @@
  *
  * @module
  */
+
+import { formatChartUtc } from '../internal/calendar-axis.js';
 import { closestIndex } from '../internal/decimate.js';
-import { formatOffsetAuto, formatUtc } from '../internal/format.js';
-import { chartTimeToUtcMs, type PlanView } from './plan-data.js';
+import { formatOffsetAuto } from '../internal/format.js';
+import type { PlanView } from './plan-data.js';
 import type { CommandMarker, ScheduleHover, ScheduleScales } from './schedule-draw.js';
 
 /** The command whose marker is nearest to (x, y) within 11 px, or −1. */
@@ -58,7 +60,7 @@ export function scheduleLabel(d: PlanView | null, worst: number): string {
   if (!d || first === undefined || last === undefined) return 'Steering schedule plot: no data';
   const freq = d.commands.filter((c) => c.kind === 'frequency').length;
   const phase = d.commands.length - freq;
-  const span = `${formatUtc(chartTimeToUtcMs(d, first))} to ${formatUtc(chartTimeToUtcMs(d, last))}`;
+  const span = `${formatChartUtc(d, first)} to ${formatChartUtc(d, last)}`;
   const tol = d.tolerance !== null ? ` against a tolerance of ±${formatOffsetAuto(d.tolerance, 3)}` : '';
   return (
     `Predicted clock offset from ${span}; ${d.commands.length} command${d.commands.length === 1 ? '' : 's'} ` +

@@ -4,16 +4,11 @@
  *
  * @module
  */
+
 import { html, nothing, type SVGTemplateResult, svg, type TemplateResult } from 'lit';
-import {
-  formatFraction,
-  formatNumber,
-  formatOffset,
-  formatOffsetAuto,
-  formatUtc,
-  typographicMinus,
-} from '../internal/format.js';
-import { chartTimeToUtcMs, type PlanView, type SteeringCommandView } from './plan-data.js';
+import { formatChartUtc } from '../internal/calendar-axis.js';
+import { formatFraction, formatNumber, formatOffset, formatOffsetAuto, typographicMinus } from '../internal/format.js';
+import type { PlanView, SteeringCommandView } from './plan-data.js';
 import { commandShape, MARGIN, type ScheduleHover, type ScheduleScales } from './schedule-draw.js';
 
 /** A command's step in words with its unit, for the live region. */
@@ -84,7 +79,6 @@ function stepText(c: SteeringCommandView): string {
 
 /** The command table; `select(position)` runs when the user picks a row (position in the sorted list). */
 export function renderTable(d: PlanView, selectedIndex: number, select: (position: number) => void): TemplateResult {
-  const ms = (s: number): number => chartTimeToUtcMs(d, s);
   const rows = d.commands.map((c, k) => {
     const selected = c.index === selectedIndex;
     return html`<tr part=${selected ? 'row selected' : 'row'} aria-current=${selected ? 'true' : 'false'} data-index=${c.index}
@@ -94,8 +88,8 @@ export function renderTable(d: PlanView, selectedIndex: number, select: (positio
           e.stopPropagation();
           select(k);
         }}>${k + 1}</button></th>
-      <td>${Number.isFinite(c.uplinkAt) ? formatUtc(ms(c.uplinkAt), true) : '—'}</td>
-      <td>${formatUtc(ms(c.executeAt), true)}</td>
+      <td>${Number.isFinite(c.uplinkAt) ? formatChartUtc(d, c.uplinkAt, true) : '—'}</td>
+      <td>${formatChartUtc(d, c.executeAt, true)}</td>
       <td><span class="kind">${kindGlyph(c)}${c.kind}</span></td>
       <td>${stepText(c)}</td>
       <td>${Number.isFinite(c.actuatorSteps) ? formatNumber(c.actuatorSteps, 16) : '—'}</td>
@@ -123,8 +117,8 @@ function commandTooltip(d: PlanView, position: number, style: string): TemplateR
       <dt>Kind</dt><dd>${c.kind}</dd>
       <dt>Step</dt><dd>${c.kind === 'phase' ? formatOffsetAuto(c.step, 4) : formatFraction(c.step, 4)}</dd>
       ${Number.isFinite(c.actuatorSteps) ? html`<dt>Actuator steps</dt><dd>${formatNumber(c.actuatorSteps, 16)}</dd>` : nothing}
-      ${Number.isFinite(c.uplinkAt) ? html`<dt>Uplink</dt><dd>${formatUtc(chartTimeToUtcMs(d, c.uplinkAt), true)}</dd>` : nothing}
-      <dt>Executes</dt><dd>${formatUtc(chartTimeToUtcMs(d, c.executeAt), true)}</dd>
+      ${Number.isFinite(c.uplinkAt) ? html`<dt>Uplink</dt><dd>${formatChartUtc(d, c.uplinkAt, true)}</dd>` : nothing}
+      <dt>Executes</dt><dd>${formatChartUtc(d, c.executeAt, true)}</dd>
     </dl>
     ${c.reason ? html`<div class="note">${typographicMinus(c.reason)}</div>` : nothing}
   </div>`;
@@ -150,7 +144,7 @@ export function renderTooltip(
     unsteered = d.unsteered[i];
   if (t === undefined || steered === undefined || sigma === undefined || unsteered === undefined) return nothing;
   return html`<div part="tooltip" style=${style}>
-    <strong>${formatUtc(chartTimeToUtcMs(d, t), true)}</strong>
+    <strong>${formatChartUtc(d, t, true)}</strong>
     <dl>
       <dt>Steered</dt><dd>${formatOffset(steered, u)}</dd>
       <dt>±${formatNumber(k, 3)}σ</dt><dd>${formatOffset(sigma * k, u)}</dd>

@@ -2,13 +2,14 @@ import type { ClockOffsetEstimate, SteeringCommandJson, SteeringScenario } from 
 import type { TimeScales } from '@tauline/sdk/time';
 import { html, nothing, type PropertyDeclarations, type PropertyValues, type TemplateResult } from 'lit';
 import { emit } from '../events.js';
+import { formatChartUtc } from '../internal/calendar-axis.js';
 import { sizeCanvas } from '../internal/canvas.js';
-import { formatUtc, parseTimeUnit, typographicMinus } from '../internal/format.js';
+import { parseTimeUnit, typographicMinus } from '../internal/format.js';
 import { PlotElement } from '../internal/plot-element.js';
 import { baseStyles, plotStyles } from '../internal/styles.js';
 import { ViewController } from '../internal/view-controller.js';
 import { warnOnce } from '../internal/warn.js';
-import { bundledTimeScales, chartTimeToUtcMs, type PlanView, readPlan, type SteeringCommandView } from './plan-data.js';
+import { bundledTimeScales, type PlanView, readPlan, type SteeringCommandView } from './plan-data.js';
 import type { SteeringPlanInput } from './plan-guard.js';
 import { type RevisionView, readRevisions } from './revisions-layer.js';
 import {
@@ -349,7 +350,7 @@ export class TaulineSteeringSchedule extends PlotElement {
     const view = this._viewController.view;
     if (!d || !c) return;
     this.selectedIndex = c.index;
-    this._announcement = `Command ${position + 1} of ${d.commands.length}: ${describeStep(c)}, executes ${formatUtc(chartTimeToUtcMs(d, c.executeAt), true)}. ${typographicMinus(c.reason)}`;
+    this._announcement = `Command ${position + 1} of ${d.commands.length}: ${describeStep(c)}, executes ${formatChartUtc(d, c.executeAt, true)}. ${typographicMinus(c.reason)}`;
     if (source !== 'plot' && view && (c.executeAt < view[0] || c.executeAt > view[1])) {
       const span = view[1] - view[0];
       this._viewController.set(c.executeAt - span / 2, c.executeAt + span / 2, true);

@@ -1,9 +1,7 @@
 import { expect, fixture, html, oneEvent } from '@open-wc/testing';
 import { type FleetDocument, fleetPlanToJson, planFleet, validateFleet } from '@tauline/sdk/fleet';
-import { BUNDLED_LEAP_SECONDS, createTimeScales } from '@tauline/sdk/time';
 import { sendKeys } from '@web/test-runner-commands';
 import '../../src/fleet-timeline/fleet-timeline.define.js';
-import { calendarTicks } from '../../src/fleet-timeline/fleet-axis.js';
 import { readFleetPlan } from '../../src/fleet-timeline/fleet-data.js';
 import { columnMinima, fleetLayout } from '../../src/fleet-timeline/fleet-draw.js';
 import { marginSeries, requiredBound } from '../../src/fleet-timeline/fleet-margin.js';
@@ -11,7 +9,7 @@ import type { TaulineFleetTimeline } from '../../src/fleet-timeline/fleet-timeli
 import { erfc, oneSidedQuantile } from '../../src/internal/normal.js';
 import { linearScale } from '../../src/internal/scale.js';
 import { captureWarnings } from '../fixtures.js';
-import { heldFleet, strandedFleet } from './fleet-fixtures.js';
+import { heldFleet, laterFleet, strandedFleet } from './fleet-fixtures.js';
 
 const WIDTH = 900;
 
@@ -390,15 +388,43 @@ describe('tauline-fleet-timeline', () => {
     }
   });
 
-  it('calendarTicks(base, t0, t1, n) puts midnights at UTC midnights through the SDK leap-second table (2017-01-01 is 86 401 s after 2016-12-31)', () => {
-    // The leap second inserted at the end of 2016-12-31 (IERS Bulletin C 52, from memory [M]).
-    const timeScales = createTimeScales(BUNDLED_LEAP_SECONDS);
-    const epoch = timeScales.parseIso('2016-12-31T00:00:00Z');
-    const ticks = calendarTicks({ epoch, timeScales }, 0, 3 * 86400 + 1, 4);
-    expect(ticks.map((t) => t.value)).to.deep.equal([0, 86401, 2 * 86400 + 1, 3 * 86400 + 1]);
-    expect(ticks.map((t) => t.label)).to.deep.equal(['12-31', '01-01', '01-02', '01-03']);
-    const hours = calendarTicks({ epoch, timeScales }, 86400 - 7200, 86401 + 7200, 5);
-    const labels = hours.map((t) => `${t.label}${t.sub ? ` ${t.sub}` : ''}`);
-    expect(labels).to.deep.equal(['22:00', '23:00', '00:00 2017-01-01', '01:00', '02:00']);
+  it('readFleetPlan(plan, fleet) names the first predicted time that does not increase, with both values', async () => {
+    const { plan, fleet } = await heldFleet();
+    const broken = structuredClone(plan);
+    const t = Array.from(broken.satellites[2]!.predicted.t);
+    const [t0 = Number.NaN, t1 = Number.NaN] = t;
+    t[2] = t1;
+    broken.satellites[2]!.predicted.t = t;
+    const r = readFleetPlan(broken, fleet);
+    expect(r.ok ? 'accepted' : r.error).to.equal(
+      `plan.satellites[2].predicted.t[2] must be greater than t[1] (${t1}); received ${t1}`,
+    );
+    expect(t0 < t1).to.equal(true);
+  });
+
+  it('<tauline-fleet-timeline> reads every stamp with its timeScales property: a fleet after the bundled table (2028-02-01) is refused by default and drawn with a table that covers it', async () => {
+    const { fleet, plan, timeScales } = await laterFleet();
+    expect(fleet.epoch).to.equal('2028-02-01T00:00:00Z');
+    const w = await captureWarnings();
+    try {
+      const el = await render({ fleet, plan });
+      const alert = (): string | undefined => root(el).querySelector('[role="alert"]')?.textContent ?? undefined;
+      // The SDK's bundled table is complete only until 2027-06-28 (its own source text): no leap-free guess.
+      expect(alert()).to.contain("fleet.epoch must be inside the leap-second table of the element's timeScales");
+      expect(alert()).to.contain('2027-06-28');
+      expect(w.list.map((x) => x.code)).to.deep.equal(['invalid-fleet-plan']);
+      el.timeScales = timeScales;
+      await drawn(el);
+      expect(alert()).to.equal(undefined);
+      // 604 800 s horizon, no leap second in the test table: one week later to the minute [C].
+      const summary = root(el).querySelector('canvas.data')!.getAttribute('aria-label')!;
+      expect(summary).to.contain('Fleet timeline from 2028-02-01 00:00 UTC to 2028-02-08 00:00 UTC');
+      const view = readFleetPlan(plan, fleet, undefined, timeScales);
+      expect(view.ok && view.view.satellites.map((s) => s.feasible)).to.deep.equal(
+        plan.satellites.map((s) => s.feasible),
+      );
+    } finally {
+      w.restore();
+    }
   });
 });

@@ -4,20 +4,11 @@ import {
   formatHertz,
   formatNumber,
   formatOffsetAuto,
-  formatUtc,
   parseTimeUnit,
   pickTimeUnit,
   typographicMinus,
 } from '../../src/internal/format.js';
-import {
-  linearScale,
-  linearTicks,
-  logScale,
-  logTicks,
-  niceStep,
-  padDomain,
-  timeTicks,
-} from '../../src/internal/scale.js';
+import { linearScale, linearTicks, logScale, logTicks, niceStep, padDomain } from '../../src/internal/scale.js';
 
 // Scales and ticks: arithmetic checked by hand in each test ([C]); tick steps of 1, 2, 5 × 10^k are
 // common practice, no source.
@@ -49,13 +40,6 @@ describe('internal/scale', () => {
     const t = logTicks(3e-13, 2e-10);
     expect(t.length).to.equal(3);
     expect(t[0]).to.be.closeTo(1e-12, 1e-24);
-  });
-
-  it('timeTicks falls on round UTC times', () => {
-    const epochMs = Date.parse('2031-04-02T00:07:00Z');
-    const { values, step } = timeTicks(0, 86400, 6, epochMs);
-    expect(step).to.equal(21600);
-    expect(new Date(epochMs + values[0]! * 1000).toISOString()).to.equal('2031-04-02T06:00:00.000Z');
   });
 
   it('padDomain widens a zero-width span', () => {
@@ -96,10 +80,5 @@ describe('internal/format', () => {
     expect(formatNumber(38.57533, 6)).to.equal('38.5753');
     expect(formatNumber(1.5e7, 3)).to.equal('1.50e7');
     expect(formatOffsetAuto(-1.5e-9, 3)).to.equal('−1.5 ns');
-  });
-
-  it('formatUtc prints UTC with the seconds when asked', () => {
-    expect(formatUtc(Date.parse('2031-04-02T06:30:00Z'))).to.equal('2031-04-02 06:30 UTC');
-    expect(formatUtc(Date.parse('2031-04-02T06:30:00Z'), true)).to.equal('2031-04-02 06:30:00 UTC');
   });
 });

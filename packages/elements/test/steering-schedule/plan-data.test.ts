@@ -4,6 +4,7 @@ import { planSteering } from '@tauline/sdk/steering';
 import { BUNDLED_LEAP_SECONDS, createTimeScales, defineLeapSecondTable } from '@tauline/sdk/time';
 import { chartTimeToUtcMs, elapsedSecondsBetween, readPlan } from '../../src/steering-schedule/plan-data.js';
 import { describeFailure, guardPlan } from '../../src/steering-schedule/plan-guard.js';
+import { layoutSchedule, scheduleTimeTicks, uncertaintyBand } from '../../src/steering-schedule/schedule-draw.js';
 import type { TaulineSteeringSchedule } from '../../src/steering-schedule/steering-schedule.js';
 import { examplePlan, orinPlan, secondsFrom, tableStamp } from '../fixtures.js';
 
@@ -129,6 +130,36 @@ describe('readPlan(plan, scenario) across a leap second', () => {
     // Labels: 06:00:00 UTC after the leap second (64 801 s), not 06:00:01; 23:59:59 before it.
     expect(chartTimeToUtcMs(r.view, 64_801)).to.equal(Date.UTC(2017, 0, 1, 6));
     expect(chartTimeToUtcMs(r.view, 43_199)).to.equal(Date.UTC(2016, 11, 31, 23, 59, 59));
+  });
+
+  it('scheduleTimeTicks(view, scales) puts the midnight tick at the chart time of 2017-01-01T00:00:00Z (43 201 s after the noon epoch) and every later tick one leap second later, as the command table reads them', async () => {
+    const { plan, scenario } = await leapPlan();
+    const r = readPlan(plan, scenario);
+    if (!r.ok) throw new Error(r.error);
+    const options = { yUnit: 'auto', fitAll: false, devicePixelRatio: 1 };
+    const layout = layoutSchedule(
+      r.view,
+      uncertaintyBand(r.view, 2),
+      [0, 86_400],
+      { width: 800, height: 340 },
+      options,
+    );
+    // 720 px of frame → 10 labels → 8 640 s per interval → the 3 h step; 43 201 = 12 h + the leap second [C].
+    const ticks = scheduleTimeTicks(r.view, layout.scales);
+    expect(ticks.map((t) => t.value)).to.deep.equal([0, 10_800, 21_600, 32_400, 43_201, 54_001, 64_801, 75_601]);
+    expect(ticks.map((t) => `${t.label}${t.sub ? ` ${t.sub}` : ''}`)).to.deep.equal([
+      '12:00',
+      '15:00',
+      '18:00',
+      '21:00',
+      '00:00 2017-01-01',
+      '03:00',
+      '06:00',
+      '09:00',
+    ]);
+    expect(elapsedSecondsBetween(epoch, '2017-01-01T00:00:00Z')).to.equal(43_201);
+    // The same instants through the path of the command table (chartTimeToUtcMs): whole hours, no 1 s drift.
+    for (const t of ticks) expect(chartTimeToUtcMs(r.view, t.value) % 3_600_000).to.equal(0);
   });
 
   it("<tauline-steering-schedule> prints the SDK's stamps on both sides of the leap second in its table", async () => {
