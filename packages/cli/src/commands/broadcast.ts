@@ -155,7 +155,9 @@ Table 20-IV [M]; Galileo OS SIS ICD; BDS-SIS-ICD, each with its own GM, Ω_E and
 Times are read in each system's own scale (GPST, GST, BDT) unless --time-scale utc. A sample with no valid record
 has null values and a reason (past the end or before the start of the nearest record's fit interval: never
 extrapolated). JSON: { files: [{ file, version, fileType, satelliteSystem, leapSeconds, ionosphere: [{ type,
-parametersBroadcastUnits }], timeSystemCorrections: [{ type, a0, a1, referenceSecondsOfWeek, referenceWeek }] }],
+parametersBroadcastUnits }], timeSystemCorrections: [{ type, a0, a1, referenceSecondsOfWeek, referenceWeek,
+reference }] }] (reference: t_ref as { iso, scale } on the week system the type names, GPS for GPUT/QZGP/QZUT, BDT
+for BDUT; null where the format leaves it ambiguous: GAUT, GPGA, SBUT, GLONASS, IRNSS),
 satellites: [{ id, timeScale, toeScale, samples: [{ t, relativisticSeconds, clockCorrectionSeconds, toe, issueOfData,
 message }] }], skipped, notes, units, caution }: t is on timeScale, toe on toeScale (the system's own scale, also with
 --time-scale utc; null for a system not modelled). Seconds are SI seconds.
