@@ -217,6 +217,9 @@ describe('tauline CLI contracts through the built binary', () => {
     expect(Math.abs(s.relativisticSeconds - dtr)).toBeLessThan(1e-18);
     expect(Math.abs(s.clockCorrectionSeconds - (af0 + dtr))).toBeLessThan(1e-18);
     expect(r.json.caution).toMatch(CAUTION);
+    // Every time field names its scale: t on timeScale, t_oe on toeScale (the system's own).
+    expect([r.json.satellites[0].timeScale, r.json.satellites[0].toeScale]).toEqual(['GPST', 'GPST']);
+    expect(r.json.units.toe).toMatch(/toeScale/);
   });
 
   it('precise orbit-d-p.sp3 --satellite G30 --json: relativisticSeconds at 01:30 = −2√(GM a) e sin E/c² of the two-body orbit, to 1 ps (IERS 2010 eq. 10.10; SOURCE.md orbit [C])', () => {

@@ -39,7 +39,11 @@ export interface BroadcastRequest {
 
 /** Per-satellite samples, the notes gathered and the number of samples without a valid record. */
 export interface BroadcastResult {
-  readonly out: { id: string; timeScale: string; samples: SampleOut[] }[];
+  /**
+   * `timeScale`: the scale of the samples' `t` (UTC with --time-scale utc); `toeScale`: the scale of their `toe`, always
+   * the system's own (GPST, GST, BDT), null for a system not modelled (no record, no `toe`).
+   */
+  readonly out: { id: string; timeScale: string; toeScale: string | null; samples: SampleOut[] }[];
   readonly notes: Set<string>;
   readonly samplesWithoutRecord: number;
 }
@@ -70,7 +74,7 @@ export function printBroadcastJson(
         t: 'ISO 8601 in timeScale',
         relativisticSeconds: 's',
         clockCorrectionSeconds: 's',
-        toe: 'ISO 8601 in the system scale',
+        toe: "ISO 8601 in the satellite's toeScale (its system's own scale: GPST, GST or BDT)",
         ...(signal ? { clockCorrectionSignalSeconds: 's', groupDelaySeconds: 's' } : {}),
         files: NAV_FILE_UNITS,
       },
@@ -109,7 +113,7 @@ export function printBroadcastTable(
   const width = outputWidth(args);
   io.out(
     wrapLines(
-      `Broadcast relativistic and clock corrections (${request.utc ? 'times in UTC' : "times in each system's own scale: GPST, GST, BDT"})\n\n`,
+      `Broadcast relativistic and clock corrections (${request.utc ? "t in UTC, t_oe in each system's own scale: GPST, GST, BDT" : "times in each system's own scale: GPST, GST, BDT"})\n\n`,
       width,
     ),
   );

@@ -14,7 +14,7 @@ import {
   type Instant,
   type TimeScales,
 } from '@tauline/sdk/time';
-import { sig, UsageError, withFlagNames } from './framework.js';
+import { optionalFlag, type ParsedArgs, sig, UsageError, withFlagNames } from './framework.js';
 import type { ClockRecord } from './records.js';
 
 /** Printing of one record's epochs, each given as seconds on the record's time axis. */
@@ -121,6 +121,28 @@ export function parseStampFlag(flag: string, text: string): { instant: Instant; 
     () => bundledScales().parseIso(iso, onScale),
   );
   return { instant, scale };
+}
+
+/** The instant of t = 0 of a record's time axis and the time system its stamps are printed in. */
+export interface RecordEpoch {
+  readonly instant: Instant;
+  /** A RINEX clock file's time system (GPS when the header names none, as the reader assumes); for `--epoch`, the one it was read on. */
+  readonly scale: string;
+}
+
+/**
+ * The instant of t = 0 of a record's time axis: a RINEX clock file's first sample, or `--epoch` for a text record,
+ * whose time column has no calendar; undefined for a text record without `--epoch`.
+ * @throws {UsageError} for `--epoch` given with a RINEX clock file (which places its epochs itself).
+ */
+export function recordEpochFlag(args: ParsedArgs, rec: ClockRecord): RecordEpoch | undefined {
+  const text = optionalFlag(args, 'epoch');
+  if (rec.epoch !== undefined) {
+    if (text !== undefined)
+      throw new UsageError('--epoch is for a text record; a RINEX clock file places its epochs itself: leave it out');
+    return { instant: rec.epoch, scale: rec.timeSystem ?? 'GPS' };
+  }
+  return text === undefined ? undefined : parseStampFlag('--epoch', text);
 }
 
 /** A gap of a record as JSON: its place in the series, and its time on the record's axis with its stamp. */

@@ -3,8 +3,9 @@
  * (version, leap seconds, broadcast ionosphere and time-system corrections), and why a sample has
  * no usable record (never extrapolated past a fit interval).
  */
-import type { RinexNavEphemeris, RinexNavHeader } from '@tauline/sdk/io';
+import { REFERENCE_WEEK_SYSTEM, type RinexNavEphemeris, type RinexNavHeader } from '@tauline/sdk/io';
 import type { Instant } from '@tauline/sdk/time';
+import { type Stamp, stampOf } from './epochs.js';
 
 /** The header parameters of one navigation file, as printed (JSON `files[]`). */
 export interface NavFileSummary {
@@ -25,7 +26,18 @@ export interface NavFileSummary {
     readonly a1: number;
     readonly referenceSecondsOfWeek: number;
     readonly referenceWeek: number;
+    /** t_ref on the week system the type names; null where the SDK leaves it undefined (ambiguous or no week). */
+    readonly reference: Stamp | null;
   }[];
+}
+
+/** File time-system code of each week system, for the stamp of t_ref (GST is `GAL` in RINEX). */
+const WEEK_SYSTEM_CODE = { GPS: 'GPS', GST: 'GAL', BDT: 'BDT' } as const;
+
+/** t_ref as a stamp on the week system its type names (REFERENCE_WEEK_SYSTEM), or null when the SDK places none. */
+function referenceStamp(type: string, reference: Instant | undefined): Stamp | null {
+  const system = REFERENCE_WEEK_SYSTEM[type];
+  return reference === undefined || system === undefined ? null : stampOf(reference, WEEK_SYSTEM_CODE[system]);
 }
 
 /** The summary of a header (line numbers dropped: they describe the file, not the parameters). */
@@ -43,6 +55,7 @@ export function summariseNavHeader(file: string, h: RinexNavHeader): NavFileSumm
       a1: c.a1,
       referenceSecondsOfWeek: c.referenceSecondsOfWeek,
       referenceWeek: c.referenceWeek,
+      reference: referenceStamp(c.type, c.reference),
     })),
   };
 }
@@ -55,6 +68,10 @@ export const NAV_FILE_UNITS = {
   a0: 's',
   a1: 's/s',
   referenceSecondsOfWeek: 's',
+  referenceWeek:
+    "week number as written: GPS week for GPUT, QZGP, QZUT and RINEX 2 DELTA-UTC, BDT week for BDUT; other types' week system as the file's producer counts it",
+  reference:
+    "t_ref = referenceWeek + referenceSecondsOfWeek as { iso: ISO 8601 without zone, scale: GPS or BDT, the week's system }; null where the type's week system is ambiguous or absent (GAUT, GPGA, SBUT, GLONASS, IRNSS, others)",
 } as const;
 
 /** Human lines describing the header parameters, one block per file. */

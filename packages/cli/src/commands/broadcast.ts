@@ -155,9 +155,12 @@ Table 20-IV [M]; Galileo OS SIS ICD; BDS-SIS-ICD, each with its own GM, Ω_E and
 Times are read in each system's own scale (GPST, GST, BDT) unless --time-scale utc. A sample with no valid record
 has null values and a reason (past the end or before the start of the nearest record's fit interval: never
 extrapolated). JSON: { files: [{ file, version, fileType, satelliteSystem, leapSeconds, ionosphere: [{ type,
-parametersBroadcastUnits }], timeSystemCorrections: [{ type, a0, a1, referenceSecondsOfWeek, referenceWeek }] }],
-satellites: [{ id, timeScale, samples: [{ t, relativisticSeconds, clockCorrectionSeconds, toe, issueOfData, message }] }],
-skipped, notes, units, caution }. Seconds are SI seconds.
+parametersBroadcastUnits }], timeSystemCorrections: [{ type, a0, a1, referenceSecondsOfWeek, referenceWeek,
+reference }] }] (reference: t_ref as { iso, scale } on the week system the type names, GPS for GPUT/QZGP/QZUT, BDT
+for BDUT; null where the format leaves it ambiguous: GAUT, GPGA, SBUT, GLONASS, IRNSS),
+satellites: [{ id, timeScale, toeScale, samples: [{ t, relativisticSeconds, clockCorrectionSeconds, toe, issueOfData,
+message }] }], skipped, notes, units, caution }: t is on timeScale, toe on toeScale (the system's own scale, also with
+--time-scale utc; null for a system not modelled). Seconds are SI seconds.
 --signal <name> adds, per sample, clockCorrectionSignalSeconds, groupDelaySeconds (as broadcast) and groupDelayField
 (JSON: also signal and signalSource at the top; CSV: three columns at the end; table: two columns):
   GPS (IS-GPS-200 §20.3.3.3.3.2 [M]):  L1CA, L1P: Δt_sv − T_GD;  L2P: Δt_sv − γ T_GD, γ = (77/60)².
@@ -360,7 +363,8 @@ function evaluateSatellites(
           Object.assign(x, { clockCorrectionSignalSeconds: null, groupDelaySeconds: null, groupDelayField: null });
       }
     }
-    out.push({ id, timeScale: request.utc ? 'UTC' : modelled ? SYSTEM_SCALE_LABEL[system] : 'unknown', samples });
+    const own = modelled ? SYSTEM_SCALE_LABEL[system] : null;
+    out.push({ id, timeScale: request.utc ? 'UTC' : (own ?? 'unknown'), toeScale: own, samples });
   }
   return { out, notes, samplesWithoutRecord };
 }

@@ -6,9 +6,8 @@
 
 import { statSync } from 'node:fs';
 import { characterizeClock } from '@tauline/sdk/clock-model';
-import type { Instant } from '@tauline/sdk/time';
 import { type ClockFlags, clockJson, clockReport, clockText } from '../clock-output.js';
-import { parseStampFlag, STAMP_HELP, stampOf } from '../epochs.js';
+import { parseStampFlag, type RecordEpoch, recordEpochFlag, STAMP_HELP, stampOf } from '../epochs.js';
 import {
   type Command,
   EXIT_OK,
@@ -58,31 +57,16 @@ function uniformEpochs(n: number, tau0: number): Float64Array {
   return t;
 }
 
-/** The instant of t = 0 of a record and the time system its stamps are printed in. */
-interface RecordEpoch {
-  readonly instant: Instant;
-  /** A RINEX clock file's time system (GPS when the header names none, as the reader assumes); for `--epoch`, the one it was read on. */
-  readonly scale: string;
-}
-
-/**
- * The instant of t = 0 of the record's time axis: a RINEX clock file's first sample, or `--epoch` for a text
- * record, whose time column has no calendar.
- */
+/** The instant of t = 0 of the record's time axis (see {@link recordEpochFlag}); required for a text record. */
 function recordEpoch(args: ParsedArgs, rec: ClockRecord): RecordEpoch {
-  const text = optionalFlag(args, 'epoch');
-  if (rec.epoch !== undefined) {
-    if (text !== undefined)
-      throw new UsageError('--epoch is for a text record; a RINEX clock file places its epochs itself: leave it out');
-    return { instant: rec.epoch, scale: rec.timeSystem ?? 'GPS' };
-  }
-  if (text === undefined) {
+  const epoch = recordEpochFlag(args, rec);
+  if (epoch === undefined) {
     throw new UsageError(
       `${rec.flag} ${rec.source} has no calendar: give --epoch <ISO 8601>, the instant at which its time column ` +
         'reads 0 s (one column: the first sample), e.g. --epoch 2027-02-08T06:00:00 (GPS time) or 2027-02-08T06:00:00Z (UTC)',
     );
   }
-  return parseStampFlag('--epoch', text);
+  return epoch;
 }
 
 function clockFlags(args: ParsedArgs, io: Io): ClockFlags {

@@ -2,7 +2,7 @@
  * `tauline fleet <fleet.json>`: one steering plan for several satellite clocks that share a few
  * ground stations.
  */
-import { type FleetDocument, type FleetPlanJson, fleetPlanToJson, planFleet } from '@tauline/sdk/fleet';
+import { type FleetDocument, type FleetPlan, type FleetPlanJson, fleetPlanToJson, planFleet } from '@tauline/sdk/fleet';
 import { readJsonFile } from '../files.js';
 import { LEAP_SECONDS_FLAG, LEAP_SECONDS_HELP, leapSecondsFlag } from '../flags.js';
 import {
@@ -37,9 +37,12 @@ function marker(i: number): string {
   return all.charAt(i % all.length);
 }
 
-/** One lane per station: each character covers horizon/LANE_WIDTH; a satellite's marker where it holds the station, `*` for two in one cell. */
-function timeline(doc: FleetDocument, plan: FleetPlanJson): string[] {
-  const epochMs = Date.parse(doc.epoch);
+/**
+ * One lane per station: each character covers horizon/LANE_WIDTH; a satellite's marker where it holds the station, `*` for two in one cell.
+ * Cells count elapsed SI seconds since `plan.epoch` (Instant differences), so a support starting or ending in a
+ * leap second (23:59:60 UTC) is drawn where it falls.
+ */
+export function stationLanes(doc: FleetDocument, plan: FleetPlan): string[] {
   const cell = doc.horizonSeconds / LANE_WIDTH;
   const index = new Map(doc.satellites.map((s, i) => [s.id, i]));
   const days = doc.horizonSeconds / 86_400;
@@ -54,10 +57,12 @@ function timeline(doc: FleetDocument, plan: FleetPlanJson): string[] {
   for (const station of doc.stations) {
     const lane = Array.from({ length: LANE_WIDTH }, () => '·');
     for (const s of plan.stationSchedule.filter((x) => x.station === station.id)) {
-      const from = Math.floor((Date.parse(s.start) - epochMs) / 1000 / cell);
-      const to = Math.min(LANE_WIDTH - 1, Math.floor((Date.parse(s.end) - epochMs - 1) / 1000 / cell));
-      for (let k = Math.max(0, from); k <= Math.max(from, to); k++)
-        lane[k] = lane[k] === '·' ? marker(index.get(s.satellite)!) : '*';
+      const satellite = index.get(s.satellite);
+      if (satellite === undefined) throw new Error(`internal: support for ${s.satellite}, not in the document`);
+      const from = Math.floor(s.start.secondsSince(plan.epoch) / cell);
+      // The end is exclusive: a support ending on a cell boundary does not mark the next cell (1 ms before it).
+      const to = Math.min(LANE_WIDTH - 1, Math.floor((s.end.secondsSince(plan.epoch) - 0.001) / cell));
+      for (let k = Math.max(0, from); k <= Math.max(from, to); k++) lane[k] = lane[k] === '·' ? marker(satellite) : '*';
     }
     out.push(`${station.id.padEnd(width)}  ${lane.join('')}`);
   }
@@ -107,10 +112,14 @@ function zipSatellites(
 }
 
 /**
- * The human-readable fleet plan, from its JSON form (its stamps as printed).
+ * The human-readable fleet plan: stamps from its JSON form (as printed), the timeline from the plan's Instants.
  * `width`: display columns to fit (TABLE_WIDTH by default in the CLI); undefined for the unlimited `--wide` form.
  */
-export function fleetToText(doc: FleetDocument, plan: FleetPlanJson, width: number | undefined): string {
+export function fleetToText(
+  doc: FleetDocument,
+  { instants, plan }: { instants: FleetPlan; plan: FleetPlanJson },
+  width: number | undefined,
+): string {
   const out: string[] = [];
   out.push(
     `${doc.name ?? 'Fleet plan'}: ${doc.strategy.method} planner, ${doc.satellites.length} satellites, ${doc.stations.length} stations, ` +
@@ -158,7 +167,7 @@ export function fleetToText(doc: FleetDocument, plan: FleetPlanJson, width: numb
   );
   for (const s of plan.satellites.filter((x) => !x.feasible)) out.push(`  ${s.id} (${s.reasonCode}): ${s.reason}`);
   out.push('', 'Passes per station:', ...passCounts(doc, plan, width));
-  out.push('', ...timeline(doc, plan), '');
+  out.push('', ...stationLanes(doc, instants), '');
   if (plan.stationSchedule.length === 0) out.push('No supports needed.');
   else
     out.push(
@@ -212,9 +221,10 @@ Exit status: 0 every satellite feasible, 1 some satellite infeasible (the reason
     const timeScales = await leapSecondsFlag(args);
     const doc = await readJsonFile(path, 'a fleet document');
     const scales = timeScales ? { timeScales } : {};
-    const plan = fleetPlanToJson(planFleet(doc, scales), scales);
+    const instants = planFleet(doc, scales);
+    const plan = fleetPlanToJson(instants, scales);
     if (format === 'json') io.out(toJson({ ...plan, units: FLEET_UNITS }));
-    else io.out(fleetToText(doc as FleetDocument, plan, outputWidth(args)));
+    else io.out(fleetToText(doc as FleetDocument, { instants, plan }, outputWidth(args)));
     return plan.feasible ? EXIT_OK : EXIT_FINDING;
   },
 };

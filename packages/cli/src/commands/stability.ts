@@ -13,7 +13,16 @@ import {
   type StabilityData,
   type StatisticName,
 } from '@tauline/sdk/stability';
-import { epochFormat, gapsJson, type Stamp, stampOf, timeSystemJson } from '../epochs.js';
+import {
+  epochFormat,
+  gapsJson,
+  type RecordEpoch,
+  recordEpochFlag,
+  STAMP_HELP,
+  type Stamp,
+  stampOf,
+  timeSystemJson,
+} from '../epochs.js';
 import {
   type Command,
   EXIT_OK,
@@ -140,13 +149,27 @@ function analyzeRecord(input: ClockRecord, request: StabilityRequest): Stability
   return analysis;
 }
 
-/** The `--json` document: input summary, one flat row per τ (`<stat>`, `<stat>Low`, … null where a statistic has no terms), units. */
-function stabilityJson(input: ClockRecord, analysis: StabilityAnalysis): Record<string, unknown> {
+/** What `gaps[].time` counts from, for `units.gapTime`. */
+function gapTimeUnit(input: ClockRecord, epoch: RecordEpoch | undefined): string {
+  if (input.epoch !== undefined) return 's since input.epoch (the first sample)';
+  if (epoch !== undefined)
+    return "s on the record's time column, since input.epoch (--epoch: where the column reads 0 s)";
+  return "s on the record's time column (its origin not named: give --epoch <ISO 8601> to place it)";
+}
+
+/**
+ * The `--json` document: input summary, one flat row per τ (`<stat>`, `<stat>Low`, … null where a statistic has no
+ * terms), units. `epoch`: t = 0 of the record's axis (a RINEX clock's first sample, or `--epoch`), if known.
+ */
+function stabilityJson(
+  input: ClockRecord,
+  analysis: StabilityAnalysis,
+  epoch: RecordEpoch | undefined,
+): Record<string, unknown> {
   const stats = analysis.statistics;
-  const { epoch } = input;
-  const scale = input.timeSystem ?? 'GPS';
-  // A RINEX clock record is placed on its first sample's instant (read on GPS time when the file names no system).
-  const stamp = epoch === undefined ? undefined : (t: number): Stamp => stampOf(epoch.plus(t), scale);
+  // A RINEX clock record is placed on its first sample's instant (read on GPS time when the file names no system);
+  // a text record on --epoch, on the scale it was given on.
+  const stamp = epoch === undefined ? undefined : (t: number): Stamp => stampOf(epoch.instant.plus(t), epoch.scale);
   const rows = analysis.rows.map((r) => {
     const row: Record<string, unknown> = {
       tau: r.tau,
@@ -193,10 +216,11 @@ function stabilityJson(input: ClockRecord, analysis: StabilityAnalysis): Record<
       tdevHigh: 's',
       confidence: 'dimensionless (probability)',
       deviations: 'dimensionless (fractional frequency) for every statistic except tdev',
+      gapTime: gapTimeUnit(input, epoch),
       ...(stamp === undefined
         ? {}
         : {
-            gapTime: 's since input.epoch (the first sample)',
+            epoch: '{ iso: ISO 8601 without zone, scale: the time system it is read on }',
             gapTimeStamp: '{ iso: ISO 8601 without zone, scale: the time system it is read on }',
           }),
     },
@@ -226,9 +250,15 @@ function printStabilityText(
   width: number | undefined,
   input: ClockRecord,
   analysis: StabilityAnalysis,
+  recordEpoch: RecordEpoch | undefined,
 ): void {
   const stats = analysis.statistics;
-  const epoch = epochFormat(input);
+  // A text record placed by --epoch prints its gaps as stamps on the scale --epoch was read on.
+  const epoch = epochFormat(
+    input.epoch === undefined && recordEpoch !== undefined
+      ? { epoch: recordEpoch.instant, timeSystem: recordEpoch.scale }
+      : input,
+  );
   out(recordSummary(input, analysis));
   for (const g of input.gaps.slice(0, 10)) {
     out(
@@ -274,9 +304,14 @@ export const stabilityCommand: Command = {
   name: 'stability',
   summary: 'Allan, modified Allan, time, Hadamard and total deviations with confidence intervals and noise type per τ.',
   usage:
-    '(--phase <file> | --frequency <file> | --rinex-clock <file> --clock <name>) [--tau0 <s>] [--statistics oadev,mdev,...] [--taus <s,...>] [--noise <type>] [--confidence <p>] [--json | --format table|json]',
+    '(--phase <file> | --frequency <file> | --rinex-clock <file> --clock <name>) [--epoch <ISO 8601>] [--tau0 <s>] [--statistics oadev,mdev,...] [--taus <s,...>] [--noise <type>] [--confidence <p>] [--json | --format table|json]',
   flags: {
     ...recordFlags(['phase', 'frequency']),
+    epoch: {
+      type: 'string',
+      value: '<ISO 8601>',
+      description: `Instant at which the time column of a --phase or --frequency record reads 0 s (one column: the first sample); optional: input.epoch and the gaps' stamps are then reported (a RINEX clock file starts at its first epoch). ${STAMP_HELP}.`,
+    },
     tau0: {
       type: 'string',
       value: '<s>',
@@ -321,7 +356,9 @@ rows: [ { tau, m, noise, alpha, noiseSource, <stat>, <stat>Low, <stat>High, <sta
 <stat>EdfModel } ], droppedTaus, units }. A statistic without terms at a τ is null in that row.
 Deviations are dimensionless fractional frequency; tdev and tau are in seconds. A RINEX clock record adds
 input.clock, input.timeSystem and input.epoch (its first sample, { iso, scale }); its gaps' time is in seconds
-since input.epoch, with timeStamp ({ iso, scale }) beside it.
+since input.epoch, with timeStamp ({ iso, scale }) beside it. A text record's gaps' time is on its own time column;
+with --epoch (the instant at which that column reads 0 s) input.epoch and timeStamp are given too. units.gapTime
+says which.
 A record needs at least ${MIN_PHASE_POINTS} phase points (${MIN_PHASE_POINTS - 1} frequency values); a request in which no τ has a complete
 term (e.g. --taus longer than half the record) is refused.
 Exit status: 0 success, 2 unusable input.`,
@@ -329,12 +366,13 @@ Exit status: 0 success, 2 unusable input.`,
     const format = formatFlag(args, TABLE_OR_JSON, 'table');
     const request = stabilityRequest(args);
     const input = await readClockRecord(args, ['phase', 'frequency'], request.tau0);
+    const epoch = recordEpochFlag(args, input);
     const analysis = analyzeRecord(input, request);
     if (format === 'json') {
-      io.out(toJson(stabilityJson(input, analysis)));
+      io.out(toJson(stabilityJson(input, analysis, epoch)));
     } else {
       const width = outputWidth(args);
-      printStabilityText(wrappedOut(io.out, width), width, input, analysis);
+      printStabilityText(wrappedOut(io.out, width), width, input, analysis, epoch);
     }
     return EXIT_OK;
   },

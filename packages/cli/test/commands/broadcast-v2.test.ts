@@ -43,11 +43,15 @@ describe('tauline broadcast on RINEX 2 files', () => {
             a1: 1.776356839e-15,
             referenceSecondsOfWeek: 405504,
             referenceWeek: 2295,
+            // GPS week 2295 + 405504 s: datetime(1980,1,6) + timedelta(weeks=2295, seconds=405504) [C].
+            reference: { iso: '2024-01-04T16:38:24', scale: 'GPS' },
           },
         ],
       },
     ]);
     expect(j.units.files.a0).toBe('s');
+    expect(j.units.files.referenceWeek).toMatch(/^week number as written: GPS week for GPUT/);
+    expect(j.units.files.reference).toMatch(/null where the type's week system is ambiguous/);
   });
 
   it('tauline broadcast <2.11 file> --csv and the table give the same rows as for the RINEX 3.04 twin', async () => {

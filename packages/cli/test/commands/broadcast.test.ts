@@ -268,6 +268,12 @@ describe('tauline broadcast', () => {
       ).out,
     );
     expect(utc.satellites[0].samples[0].relativisticSeconds).toBe(bdt.satellites[0].samples[0].relativisticSeconds);
+    // t is on UTC, t_oe stays on each system's own scale and says which: the same record's t_oe as without the flag.
+    expect(utc.satellites.map((s: { toeScale: string }) => s.toeScale)).toEqual(['BDT', 'GPST']);
+    expect(bdt.satellites[0].toeScale).toBe('BDT');
+    expect(utc.satellites[0].samples[0].toe).toBe(bdt.satellites[0].samples[0].toe);
+    expect(utc.satellites[0].samples[0].toe).toMatch(/^\d{4}-\d\d-\d\dT\d\d:\d\d:\d\d$/);
+    expect(utc.units.toe).toBe("ISO 8601 in the satellite's toeScale (its system's own scale: GPST, GST or BDT)");
   });
 
   it('tauline broadcast --time-scale utc with an unmodelled satellite (R01) gives it null samples and a note, and still evaluates the others', async () => {
@@ -299,6 +305,14 @@ describe('tauline broadcast', () => {
     ).toBe(true);
     expect(json.samplesWithoutRecord).toBe(2);
     expect(json.notes).toContain('R01: system not modelled (GPS, Galileo and BeiDou only)');
+    // No record, no t_oe: its scale is null, not a guess.
+    expect(
+      json.satellites.map((s: { timeScale: string; toeScale: string | null }) => [s.timeScale, s.toeScale]),
+    ).toEqual([
+      ['UTC', 'GPST'],
+      ['UTC', null],
+    ]);
+    expect(json.satellites[1].samples.some((x: Record<string, unknown>) => 'toe' in x)).toBe(false);
   });
 
   it('tauline broadcast <v4.01> --galileo fnav uses the F/NAV record; the table and CSV outputs carry the same rows', async () => {

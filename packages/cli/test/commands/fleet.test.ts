@@ -79,6 +79,41 @@ describe('tauline fleet', () => {
     expect(r.out).toMatch(/Caution: this schedule is a planning aid/);
   });
 
+  it('tauline fleet <file> draws supports ending and starting in the leap second 2016-12-31T23:59:60Z in the station timeline, on elapsed SI seconds', async () => {
+    // Two supports touching the leap second at the end of 2016 (IERS Bulletin C 52 [M]): VESPER-1 at HARROWMERE
+    // 23:40:00–23:59:60 (1200 s, its supportSeconds), VESPER-2 at CALLOWAY-RIDGE 23:59:60–00:14:59 (900 s).
+    const doc = JSON.parse(readFileSync(VESPER, 'utf8')) as Record<string, any>;
+    const one = doc.satellites[0];
+    doc.epoch = '2016-12-31T00:00:00Z';
+    doc.horizonSeconds = 201_600; // 84 characters of 2400 s each
+    doc.satellites = [
+      { ...one, passes: [{ station: 'HARROWMERE', start: '2016-12-31T23:40:00Z', end: '2016-12-31T23:59:60Z' }] },
+      {
+        ...one,
+        id: 'VESPER-2',
+        passes: [{ station: 'CALLOWAY-RIDGE', start: '2016-12-31T23:59:60Z', end: '2017-01-01T00:14:59Z' }],
+      },
+    ];
+    const path = tempFile('leap.json', doc);
+    const json = JSON.parse((await run(path, '--json')).out) as Record<string, any>;
+    expect(json.stationSchedule).toEqual([
+      { station: 'HARROWMERE', satellite: 'VESPER-1', start: '2016-12-31T23:40:00Z', end: '2016-12-31T23:59:60Z' },
+      { station: 'CALLOWAY-RIDGE', satellite: 'VESPER-2', start: '2016-12-31T23:59:60Z', end: '2017-01-01T00:14:59Z' },
+    ]);
+    const r = await run(path);
+    expect(r.status).toBe(0);
+    // Elapsed SI seconds since the epoch, counted by hand: 23:40:00 is 85 200 s, 23:59:60 is 86 400 s (the day had
+    // 86 401 s), 00:14:59 is 87 299 s. Cells of 2400 s: [85 200, 86 400) lies in cell 35, [86 400, 87 299) in 36.
+    // (POSIX time has no 23:59:60: Date.parse gives NaN and the support was not drawn at all.)
+    const lane = (id: string): string => {
+      const line = r.out.split('\n').find((l) => l.startsWith(`${id}  `));
+      if (line === undefined) throw new Error(`no lane for ${id}`);
+      return line.slice(line.length - 84);
+    };
+    expect(lane('HARROWMERE')).toBe(`${'·'.repeat(35)}A${'·'.repeat(48)}`);
+    expect(lane('CALLOWAY-RIDGE')).toBe(`${'·'.repeat(36)}B${'·'.repeat(47)}`);
+  });
+
   it('tauline fleet <file> exits 1 and names the satellites that cannot be held, and why, when one pass is shared by four satellites', async () => {
     const r = await run(tempFile('overbooked.json', overbooked()));
     expect(r.status).toBe(1);

@@ -65,6 +65,61 @@ describe('tauline stability', () => {
     expect(j.rows[0].noiseSource).toBe('stated');
     expect(j.rows[0].oadevN).toBe(6);
   });
+  it('tauline stability --phase <two-column file> --json names what gaps[].time counts from, and with --epoch reports input.epoch and the gap stamps', async () => {
+    const file = join(FIX, 'stability/phase-two-column.txt');
+    const json = async (...extra: string[]) => {
+      const r = await run(['stability', '--phase', file, '--noise', 'wpm', '--json', ...extra]);
+      expect(r.err).toBe('');
+      expect(r.status).toBe(0);
+      return JSON.parse(r.out) as Record<string, any>;
+    };
+    const plain = await json();
+    expect(plain.input.epoch).toBeUndefined();
+    expect(plain.units.gapTime).toBe(
+      "s on the record's time column (its origin not named: give --epoch <ISO 8601> to place it)",
+    );
+    // The fixture's header: seconds since 2026-01-04T00:00:00 GPST; the gap starts at 150 s = 00:02:30 (by hand).
+    const gps = await json('--epoch', '2026-01-04T00:00:00');
+    expect(gps.input.epoch).toEqual({ iso: '2026-01-04T00:00:00', scale: 'GPS' });
+    expect(gps.input.gaps).toEqual([
+      { index: 5, missing: 2, line: 8, time: 150, timeStamp: { iso: '2026-01-04T00:02:30', scale: 'GPS' } },
+    ]);
+    expect(gps.units.gapTime).toBe(
+      "s on the record's time column, since input.epoch (--epoch: where the column reads 0 s)",
+    );
+    expect(gps.rows).toEqual(plain.rows);
+    // On UTC across the leap second 2016-12-31T23:59:60Z (IERS Bulletin C 52 [M]): 150 elapsed SI seconds after
+    // 23:59:00 are 23:59:60 + 90 s = 2017-01-01T00:01:29 (by hand).
+    const utc = await json('--epoch', '2016-12-31T23:59:00Z');
+    expect(utc.input.epoch).toEqual({ iso: '2016-12-31T23:59:00', scale: 'UTC' });
+    expect(utc.input.gaps[0].timeStamp).toEqual({ iso: '2017-01-01T00:01:29', scale: 'UTC' });
+    const table = await run(['stability', '--phase', file, '--epoch', '2016-12-31T23:59:00Z']);
+    expect(table.out).toMatch(/gap: 2 missing sample\(s\) from index 5 \(t = 2017-01-01T00:01:29 UTC\), line 8/);
+  });
+  it('tauline stability --epoch is refused with a RINEX clock file, as a count of seconds and as text that is no date (exit 2, one line)', async () => {
+    const file = join(FIX, 'stability/phase-two-column.txt');
+    const cases: [string[], RegExp][] = [
+      [
+        [
+          '--rinex-clock',
+          join(FIX, 'rinex-clock/fictional-304.clk'),
+          '--clock',
+          'G05',
+          '--epoch',
+          '2026-02-02T00:00:00',
+        ],
+        /--epoch is for a text record; a RINEX clock file places its epochs itself/,
+      ],
+      [['--phase', file, '--epoch', '750000'], /--epoch 750000: an epoch is given as ISO 8601/],
+      [['--phase', file, '--epoch', 'yesterday'], /--epoch/],
+    ];
+    for (const [argv, pattern] of cases) {
+      const r = await run(['stability', ...argv]);
+      expect(r.status).toBe(2);
+      expect(r.err).toMatch(pattern);
+      expect(r.err.trim().split('\n')).toHaveLength(1);
+    }
+  });
   it('tauline stability --rinex-clock <file> --clock G05: the missing epoch leaves no complete OADEV term, so every τ is dropped and the request is refused (exit 2, one line naming the gap and the dropped τ)', async () => {
     const r = await run([
       'stability',

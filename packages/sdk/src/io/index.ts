@@ -62,6 +62,7 @@ export {
   readRinexNav,
   type SkippedNavRecord,
 } from './rinex-nav.js';
+export { REFERENCE_WEEK_SYSTEM } from './rinex-time-correction.js';
 export {
   parseSp3,
   readSp3,

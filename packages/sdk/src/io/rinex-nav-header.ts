@@ -18,8 +18,22 @@ import type {
   RinexNavHeader,
   RinexTimeSystemCorrection,
 } from './rinex-nav-types.js';
+import { correctionReference } from './rinex-time-correction.js';
 
 const SYSTEM_CODES = 'GRECJIS';
+
+/** A time-system correction with its fields as written and, where its type names the week system, t_ref as an Instant. */
+function correction(
+  type: string,
+  a0: number,
+  a1: number,
+  referenceSecondsOfWeek: number,
+  referenceWeek: number,
+  line: number,
+): RinexTimeSystemCorrection {
+  const reference = correctionReference(type, referenceWeek, referenceSecondsOfWeek);
+  return { type, a0, a1, referenceSecondsOfWeek, referenceWeek, ...(reference ? { reference } : {}), line };
+}
 
 /** What the first header line says. */
 export interface NavVersionLine {
@@ -155,14 +169,9 @@ export class NavHeaderReader {
       // RINEX 2.11 Table A3: 3X,2D19.12,2I9; W a continuous week number [V1].
       const a0 = this._real(line, 3, 19, `${label} parameter 1`);
       const a1 = this._real(line, 22, 19, `${label} parameter 2`);
-      this._corrections.push({
-        type: 'GPUT',
-        a0,
-        a1,
-        referenceSecondsOfWeek: this._int(line, 41, 9, 'T, reference time of UTC data (I9, seconds of week)'),
-        referenceWeek: this._int(line, 50, 9, 'W, UTC reference week (I9, continuous)'),
-        line: line.lineNumber,
-      });
+      const referenceSecondsOfWeek = this._int(line, 41, 9, 'T, reference time of UTC data (I9, seconds of week)');
+      const referenceWeek = this._int(line, 50, 9, 'W, UTC reference week (I9, continuous)');
+      this._corrections.push(correction('GPUT', a0, a1, referenceSecondsOfWeek, referenceWeek, line.lineNumber));
     } else if (!v2 && label === 'IONOSPHERIC CORR') {
       // RINEX 3.05: A4,1X,4D12.4 [M].
       this._ionosphere.push({
@@ -175,14 +184,9 @@ export class NavHeaderReader {
       const type = this._type(line);
       const a0 = this._real(line, 5, 17, `${label} a0 (s)`);
       const a1 = this._real(line, 22, 16, `${label} a1 (s/s)`);
-      this._corrections.push({
-        type,
-        a0,
-        a1,
-        referenceSecondsOfWeek: this._int(line, 38, 7, 'T, reference time (I7, seconds of week)'),
-        referenceWeek: this._int(line, 45, 5, 'W, reference week (I5)'),
-        line: line.lineNumber,
-      });
+      const referenceSecondsOfWeek = this._int(line, 38, 7, 'T, reference time (I7, seconds of week)');
+      const referenceWeek = this._int(line, 45, 5, 'W, reference week (I5)');
+      this._corrections.push(correction(type, a0, a1, referenceSecondsOfWeek, referenceWeek, line.lineNumber));
     } else {
       this._other.push({ label, text: body.trimEnd(), line: line.lineNumber });
     }

@@ -6,6 +6,7 @@
  */
 
 import type { KeplerianBroadcastEphemeris } from '../orbit/broadcast.js';
+import type { Instant } from '../time/instant.js';
 import type { Seconds } from '../units.js';
 import type { EpochFields } from './line-reader.js';
 
@@ -62,6 +63,14 @@ export interface RinexTimeSystemCorrection {
   readonly referenceSecondsOfWeek: Seconds;
   /** Reference week number as written (RINEX 2: continuous GPS week, not modulo 1024 [V1]). */
   readonly referenceWeek: number;
+  /**
+   * t_ref as an instant: week `referenceWeek`, `referenceSecondsOfWeek` s, on the week system the `type` names
+   * (GPUT, QZGP, QZUT → GPS week on GPS time; BDUT → BDT week on BDT; RINEX 3.05 TIME SYSTEM CORR [M]). Undefined
+   * where the format leaves the week system ambiguous or empty (GAUT, GPGA, SBUT, GLONASS and IRNSS types, any
+   * other) or the fields lie outside a week reading: never guessed. See `REFERENCE_WEEK_SYSTEM` in
+   * `io/rinex-time-correction.ts`.
+   */
+  readonly reference?: Instant;
   /** 1-based header line. */
   readonly line: number;
 }

@@ -17,7 +17,7 @@ import type { ConstantSet } from '../constants.js';
 import { BEIDOU_ICD, GALILEO_ICD, GPS_ICD } from '../constants.js';
 import { InvalidArgumentError, OutOfDomainError } from '../errors.js';
 import { requireFinite, requireOptions, requirePositive } from '../internal/validate.js';
-import { type OrbitScale, scaleSecondsFromInstant } from '../time/file-epochs.js';
+import type { OrbitScale } from '../time/file-epochs.js';
 import { Instant, requireInstant } from '../time/instant.js';
 import { weekSecondsFromInstant } from '../time/weeks.js';
 import type { Metres, Radians, RadiansPerSecond, Seconds, Vector3 } from '../units.js';
@@ -131,18 +131,6 @@ const INSTANT_HINT =
 function requireOrbitTime(argument: string, value: unknown): Instant {
   if (value instanceof Instant) return value;
   throw new InvalidArgumentError(argument, value, 'an Instant (an absolute time)', INSTANT_HINT);
-}
-
-/**
- * "Scale seconds" of an instant on `system`'s own scale: seconds since 1980-01-06T00:00:00 read on GPST,
- * GST or BDT, one double (resolution ≈ 2.4e-7 s near 1.4e9 s). The algorithms here no longer use it;
- * kept for callers who need the ICDs' continuous count for display or interchange.
- * @throws {InvalidArgumentError} when `t` is not an Instant (with a hint how to build one) or `system` is unknown.
- */
-export function orbitTimeSeconds(t: Instant, system: KeplerianSystem): Seconds {
-  const at = requireOrbitTime('t', t);
-  systemConstants(system);
-  return scaleSecondsFromInstant(at, SYSTEM_TIME_SCALE[system]);
 }
 
 /** The constant set each system's user algorithm uses (GM, Ω̇_E, F, π). */

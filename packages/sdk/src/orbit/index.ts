@@ -9,7 +9,6 @@ export {
   type KeplerianBroadcastEphemeris,
   type KeplerianNavMessage,
   type KeplerianSystem,
-  orbitTimeSeconds,
   SYSTEM_TIME_SCALE,
   selectEphemeris,
   systemConstants,

@@ -28,7 +28,6 @@ import {
   meanClockRate,
   meanMotion,
   moonPositionLowPrecision,
-  orbitTimeSeconds,
   parseRinexNav,
   periodicCorrectionFromElements,
   periodicCorrectionFromStatesBatch,
@@ -311,7 +310,6 @@ describe('a broadcast-orbit entry point given seconds for an Instant names the a
   const cases: [string, string, () => unknown][] = [
     ['evaluateBroadcastEphemeris', 'time', () => evaluateBroadcastEphemeris(eph, seconds as never)],
     ['selectEphemeris', 'time', () => selectEphemeris([eph], seconds as never)],
-    ['orbitTimeSeconds', 't', () => orbitTimeSeconds(seconds as never, 'G')],
   ];
   it.each(cases)(
     '%s(…, seconds since 1980) throws InvalidArgumentError naming %s with the parseIso hint',

@@ -3,6 +3,9 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { InvalidArgumentError, TaulineError } from '../../src/errors.js';
 import { fullYearFromTwoDigits, parseRinexNav, type RinexNavEvent, readRinexNav } from '../../src/io/rinex-nav.js';
+import { formatFileEpoch } from '../../src/time/file-epochs.js';
+import { BUNDLED_LEAP_SECONDS } from '../../src/time/leap-seconds.js';
+import { createTimeScales } from '../../src/time/scales.js';
 import { instantFromWeekSeconds } from '../../src/time/weeks.js';
 import { expectParseError } from './parse-errors.js';
 
@@ -55,9 +58,14 @@ describe('parseRinexNav: RINEX 2.11 GPS navigation file (Tables A3, A4 [V1])', (
         a1: 1.776356839e-15,
         referenceSecondsOfWeek: 405504,
         referenceWeek: 2295,
+        reference: expect.anything(),
         line: 6,
       },
     ]);
+    // t_ref on GPS time: week 2295 + 405504 s = 2024-01-04T16:38:24 (Python datetime from 1980-01-06 [C]).
+    const reference = file.header.timeSystemCorrections[0]?.reference;
+    if (reference === undefined) throw new Error('GPUT has no reference instant');
+    expect(formatFileEpoch(createTimeScales(BUNDLED_LEAP_SECONDS), reference, 'GPS')).toBe('2024-01-04T16:38:24');
     expect(file.header.otherLines).toEqual([]);
   });
   it('parseRinexNav(2.11 text) reads every field of a record at the RINEX 2 columns (3X indentation, F5.1 seconds)', () => {

@@ -74,9 +74,14 @@ describe('parseRinexNav: RINEX 3.05 mixed file (RINEX 3.05, IGS/RTCM-SC104 [M])'
         a1: 1.33226763e-15,
         referenceSecondsOfWeek: 405504,
         referenceWeek: 2296,
+        reference: expect.anything(),
         line: 5,
       },
     ]);
+    // t_ref on GPS time: week 2296 + 405504 s = 2024-01-11T16:38:24 (Python datetime from 1980-01-06 [C]).
+    const reference = file.header.timeSystemCorrections[0]?.reference;
+    if (reference === undefined) throw new Error('GPUT has no reference instant');
+    expect(formatFileEpoch(createTimeScales(BUNDLED_LEAP_SECONDS), reference, 'GPS')).toBe('2024-01-11T16:38:24');
     expect(file.header.fileType).toBe('N');
     expect(file.header.lineCount).toBe(7);
   });

@@ -8,12 +8,14 @@ import {
   evaluateBroadcastEphemeris,
   isBeidouGeostationary,
   type KeplerianBroadcastEphemeris,
-  orbitTimeSeconds,
+  SYSTEM_TIME_SCALE,
   selectEphemeris,
   systemConstants,
   weekCrossover,
 } from '../../src/orbit/broadcast.js';
+import * as orbitModule from '../../src/orbit/index.js';
 import { propagateKeplerState } from '../../src/orbit/propagate.js';
+import { scaleSecondsFromInstant } from '../../src/time/file-epochs.js';
 import type { Instant } from '../../src/time/instant.js';
 import { instantFromWeekSeconds } from '../../src/time/weeks.js';
 
@@ -218,7 +220,7 @@ describe('evaluateBroadcastEphemeris: independent checks of the interface-spec a
   });
 });
 
-describe('evaluateBroadcastEphemeris, selectEphemeris, orbitTimeSeconds: absolute times are Instants only', () => {
+describe('evaluateBroadcastEphemeris, selectEphemeris: absolute times are Instants only', () => {
   it('evaluateBroadcastEphemeris(record, seconds) refuses a bare number naming `time`, with a hint how to build an Instant', () => {
     const eph = twoBody();
     for (const bad of [2296 * 604800 + 7200, Number.NaN, '2024-01-07T02:00:00', undefined]) {
@@ -235,19 +237,21 @@ describe('evaluateBroadcastEphemeris, selectEphemeris, orbitTimeSeconds: absolut
     }
   });
 
-  it('selectEphemeris(records, seconds) and orbitTimeSeconds(seconds, system) refuse a bare number the same way', () => {
+  it('selectEphemeris(records, seconds) refuses a bare number the same way', () => {
     const g05 = NAV.ephemerides.filter((e) => e.satellite === 'G05');
     expect(() => selectEphemeris(g05, (2296 * 604800) as unknown as Instant)).toThrow(
       /time must be an Instant .*parseIso/,
     );
-    expect(() => orbitTimeSeconds(1.388e9 as unknown as Instant, 'G')).toThrow(/t must be an Instant .*parseIso/);
-    expect(() => orbitTimeSeconds(WEEK_2296, 'R' as 'G')).toThrow(/system must be one of 'G'/);
   });
 
-  it('orbitTimeSeconds(start of GPS week 2296, system) is 2296 × 604800 s on GPST and GST and 14 s less on BDT (BDT = GPST − 14 s, physics-refs; common practice)', () => {
-    expect(orbitTimeSeconds(WEEK_2296, 'G')).toBe(2296 * 604800);
-    expect(orbitTimeSeconds(WEEK_2296, 'E')).toBe(2296 * 604800);
-    expect(orbitTimeSeconds(WEEK_2296, 'C')).toBe(2296 * 604800 - 14);
+  it('@tauline/sdk/orbit exports no float count of seconds since 1980 (ADR 31: it lives in time/ only as scaleSecondsFromInstant)', () => {
+    expect('orbitTimeSeconds' in orbitModule).toBe(false);
+  });
+
+  it('scaleSecondsFromInstant(start of GPS week 2296, SYSTEM_TIME_SCALE[system]) is 2296 × 604800 s on GPST and GST and 14 s less on BDT (BDT = GPST − 14 s, physics-refs; common practice)', () => {
+    expect(scaleSecondsFromInstant(WEEK_2296, SYSTEM_TIME_SCALE.G)).toBe(2296 * 604800);
+    expect(scaleSecondsFromInstant(WEEK_2296, SYSTEM_TIME_SCALE.E)).toBe(2296 * 604800);
+    expect(scaleSecondsFromInstant(WEEK_2296, SYSTEM_TIME_SCALE.C)).toBe(2296 * 604800 - 14);
   });
 
   it('evaluateBroadcastEphemeris(record with t_oe before its system week 0, t) names ephemeris.toe', () => {
@@ -270,7 +274,7 @@ describe('evaluateBroadcastEphemeris, selectEphemeris, orbitTimeSeconds: absolut
     const t = eph.toe.plus(1234).plus(0.1);
     const ev = evaluateBroadcastEphemeris(eph, t);
     expect(ev.timeFromEphemeris).toBe(1234 + 0.1);
-    const formerTk = orbitTimeSeconds(t, 'G') - orbitTimeSeconds(eph.toe, 'G'); // both exact subtractions
+    const formerTk = scaleSecondsFromInstant(t, 'GPS') - scaleSecondsFromInstant(eph.toe, 'GPS'); // both exact subtractions
     expect(Math.abs(formerTk - (1234 + 0.1))).toBeGreaterThan(1e-8);
     expect(Math.abs(formerTk - (1234 + 0.1))).toBeLessThanOrEqual(2 ** -23);
     // t − t_oc = 4834.1 s: the clock polynomial on the exact span (IS-GPS-200 §20.3.3.3.3.1 [M]).

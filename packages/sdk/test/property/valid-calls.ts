@@ -125,7 +125,6 @@ export const VALID_CALLS: Readonly<Record<string, () => unknown[]>> = {
   formatFileEpoch: () => [createTimeScales(BUNDLED_LEAP_SECONDS), Instant.fromTaiParts(8e8, 0.25), 'GLO'],
   scaleSecondsFromInstant: () => [Instant.fromTaiParts(8e8, 0.25), 'BDT'],
   instantFromScaleSeconds: () => [1.4e9, 'GST'],
-  orbitTimeSeconds: () => [Instant.fromTaiParts(8e8, 0.25), 'C'],
   keplerTolerance: () => [2],
   solveKepler: () => [2, 0.01],
   eccentricToTrueAnomaly: () => [2, 0.01],
