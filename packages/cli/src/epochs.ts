@@ -90,32 +90,38 @@ export const STAMP_HELP =
 
 /**
  * The instant of an absolute epoch given on the command line, and the time system it was read on: ISO 8601 read
- * on GPS time; with a zone designator (`Z`, `+01:00`) on UTC; with a time-system code after it (as the tables
- * print stamps, e.g. `2026-02-02T12:30:00 BDT`) on that system.
+ * on `plain` (GPS time unless the command says otherwise, e.g. TT for proper time); with a zone designator (`Z`,
+ * `+01:00`) on UTC; with a time-system code after it (as the tables print stamps, e.g. `2026-02-02T12:30:00 BDT`)
+ * on that system.
  * @throws {UsageError} for a code the SDK cannot read a stamp on; the SDK's InvalidArgumentError (renamed to
  *   `flag`) for text that is not a date and time.
  */
-export function parseStampFlag(flag: string, text: string): { instant: Instant; scale: string } {
+export function parseStampFlag(
+  flag: string,
+  text: string,
+  plain: 'GPS' | 'TT' = 'GPS',
+): { instant: Instant; scale: string } {
+  const plainName = plain === 'GPS' ? 'GPS time' : plain;
   if (/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(text.trim())) {
     throw new UsageError(
-      `${flag} ${text}: an epoch is given as ISO 8601 (e.g. 2027-02-08T06:00:00 on GPS time, or with Z on UTC), not as a count of seconds`,
+      `${flag} ${text}: an epoch is given as ISO 8601 (e.g. 2027-02-08T06:00:00 on ${plainName}, or with Z on UTC), not as a count of seconds`,
     );
   }
   const named = /^(\S+)\s+([A-Za-z]{3})$/.exec(text.trim());
   let iso = text;
-  let scale = /(Z|[+-]\d\d:?\d\d)$/i.test(text) ? 'UTC' : 'GPS';
+  let scale: string = /(Z|[+-]\d\d:?\d\d)$/i.test(text) ? 'UTC' : plain;
   if (named) {
     const [, isoPart = '', code = ''] = named;
     if (!STAMP_CODES.includes(code)) {
       throw new UsageError(
-        `${flag} ${JSON.stringify(text)}: a stamp is read on GPS time, on UTC with Z, or on one of ${STAMP_CODES.join(', ')} named after it`,
+        `${flag} ${JSON.stringify(text)}: a stamp is read on ${plainName}, on UTC with Z, or on one of ${STAMP_CODES.join(', ')} named after it`,
       );
     }
     // A UTC reading named by its code is read as if written with Z (parseIso asks UTC text for its designator).
     iso = code === 'UTC' && !/(Z|[+-]\d\d:?\d\d)$/i.test(isoPart) ? `${isoPart}Z` : isoPart;
     scale = code;
   }
-  const onScale = fileTimeScale(scale)?.scale ?? 'GPS';
+  const onScale = scale === 'TT' ? 'TT' : (fileTimeScale(scale)?.scale ?? 'GPS');
   const instant = withFlagNames(
     () => flag,
     () => bundledScales().parseIso(iso, onScale),

@@ -8,6 +8,7 @@ import { InvalidArgumentError } from '@tauline/sdk/errors';
 import { GRAVITY_MODELS, type GravityModel, orbitalPeriod } from '@tauline/sdk/orbit';
 import { boundStateCheck, integrateProperTime } from '@tauline/sdk/relativity';
 import { BUNDLED_LEAP_SECONDS, createTimeScales, type Instant, J2000_EPOCH } from '@tauline/sdk/time';
+import { parseStampFlag } from '../epochs.js';
 import { CONSTANTS_FLAG, constantsFlag } from '../flags.js';
 import {
   type Command,
@@ -86,21 +87,12 @@ const PROPERTIME_FLAG_NAMES: Readonly<Record<string, string>> = {
   relativeTolerance: '--tolerance',
 };
 
-/** The instant of t = 0 and the scale it was read on. */
-interface RunEpoch {
-  readonly instant: Instant;
-  readonly scale: 'TT' | 'UTC';
-}
-
-/** `--epoch`: read on TT, or on UTC when it carries a zone designator; J2000.0 (2000-01-01T12:00:00 TT) when absent. */
-export function epochFlag(text: string | undefined): RunEpoch {
-  if (text === undefined) return { instant: J2000_EPOCH, scale: 'TT' };
-  const scale = /(Z|[+-]\d\d:?\d\d)$/i.test(text) ? 'UTC' : 'TT';
-  const instant = withFlagNames(
-    () => '--epoch',
-    () => createTimeScales(BUNDLED_LEAP_SECONDS).parseIso(text, scale),
-  );
-  return { instant, scale };
+/**
+ * `--epoch`: read on TT (UTC with a zone designator, or a time-system code after it, as the shared stamp parser
+ * reads it); J2000.0 (2000-01-01T12:00:00 TT) when absent.
+ */
+export function epochFlag(text: string | undefined): Instant {
+  return text === undefined ? J2000_EPOCH : parseStampFlag('--epoch', text, 'TT').instant;
 }
 
 /** ISO 8601 reading of `instant` on TT, to the nanosecond only where it has a fraction. */
@@ -170,7 +162,7 @@ export const propertimeCommand: Command = {
       type: 'string',
       value: '<ISO 8601>',
       description:
-        'Instant of t = 0, where --model full places the Sun and Moon: read on TT, or on UTC with a zone designator (Z). Default 2000-01-01T12:00:00 (J2000.0).',
+        'Instant of t = 0, where --model full places the Sun and Moon: read on TT, on UTC with a zone designator (Z), or on a time-system code written after it ("… GPS"). Default 2000-01-01T12:00:00 (J2000.0).',
     },
     constants: CONSTANTS_FLAG,
     tolerance: {
@@ -208,7 +200,7 @@ Exit status: 0 success, 2 invalid input.`,
     const epoch = epochFlag(optionalFlag(args, 'epoch'));
     const tolerance = numberFlag(args, 'tolerance');
     const constants = constantsFlag(args);
-    withFlagNames(PROPERTIME_FLAG_NAMES, () => requireBoundState(state, constants, model, epoch.instant));
+    withFlagNames(PROPERTIME_FLAG_NAMES, () => requireBoundState(state, constants, model, epoch));
     // Orbits in the span: the two-body period at the initial radius (a circular orbit). The bound check above has
     // refused any radius orbitalPeriod would; r0 = 0 is left for integrateProperTime to name (--state).
     const r0 = Math.hypot(...state.position);
@@ -219,7 +211,7 @@ Exit status: 0 success, 2 invalid input.`,
         integrateProperTime(state, duration, step, {
           model,
           constants,
-          epoch: epoch.instant,
+          epoch: epoch,
           ...(tolerance === undefined ? {} : { relativeTolerance: tolerance }),
           onProgress: bar.update,
         }),
@@ -243,7 +235,7 @@ Exit status: 0 success, 2 invalid input.`,
           samples,
           model: result.model,
           constants: result.constants,
-          epoch: { iso: ttText(epoch.instant), scale: 'TT' },
+          epoch: { iso: ttText(epoch), scale: 'TT' },
           ephemeris: result.ephemeris,
           relativeTolerance: result.relativeTolerance,
           acceptedSteps: result.acceptedSteps,
@@ -266,7 +258,7 @@ Exit status: 0 success, 2 invalid input.`,
     io.out(
       wrapLines(
         `Proper time τ − TT, model ${result.model}, constants ${result.constants}` +
-          (result.model === 'full' ? `, epoch ${ttText(epoch.instant)} TT (${result.ephemeris})` : '') +
+          (result.model === 'full' ? `, epoch ${ttText(epoch)} TT (${result.ephemeris})` : '') +
           '\n\n',
         width,
       ),

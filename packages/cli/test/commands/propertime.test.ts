@@ -125,6 +125,12 @@ describe('tauline propertime', () => {
     expect(utc.epoch).toEqual({ iso: '2023-01-01T00:01:09.184', scale: 'TT' });
     const none = JSON.parse((await run(...args)).out);
     expect(none.epoch).toEqual({ iso: '2000-01-01T12:00:00', scale: 'TT' });
+    // A time-system code after the stamp, as tauline clock reads it: TT = GPS + 19 s + 32.184 s (IS-GPS-200 [M]).
+    const gps = JSON.parse((await run(...args, '--epoch', '2023-01-01T00:00:00 GPS')).out);
+    expect(gps.epoch).toEqual({ iso: '2023-01-01T00:00:51.184', scale: 'TT' });
+    const count = await run(...args, '--epoch', '725803200');
+    expect(count.status).toBe(2);
+    expect(count.err).toMatch(/--epoch 725803200: an epoch is given as ISO 8601 \(e\.g\. 2027-02-08T06:00:00 on TT/);
   });
 
   it('--epoch-tt-j2000 (an earlier release) is refused with the --epoch form to give instead (exit 2)', async () => {
