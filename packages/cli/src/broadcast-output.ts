@@ -86,12 +86,14 @@ export function printBroadcastJson(
 export function printBroadcastCsv(io: Io, request: BroadcastRequest, result: BroadcastResult): void {
   const { signal } = request;
   io.out(
-    `id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message${signal ? ',clockCorrectionSignalSeconds,groupDelaySeconds,groupDelayField' : ''}\n`,
+    `id,t,timeScale,relativisticSeconds,clockCorrectionSeconds,toe,toeScale,issueOfData,message${signal ? ',clockCorrectionSignalSeconds,groupDelaySeconds,groupDelayField' : ''}\n`,
   );
   for (const s of result.out) {
+    // Each row names the scales of its two stamps, as the JSON does per satellite.
+    const toeScale = s.toeScale ?? '';
     for (const x of s.samples) {
       io.out(
-        `${s.id},${x.t},${x.relativisticSeconds ?? ''},${x.clockCorrectionSeconds ?? ''},${x.toe ?? ''},${x.issueOfData ?? ''},${x.message ?? ''}` +
+        `${s.id},${x.t},${s.timeScale},${x.relativisticSeconds ?? ''},${x.clockCorrectionSeconds ?? ''},${x.toe ?? ''},${x.toe === undefined ? '' : toeScale},${x.issueOfData ?? ''},${x.message ?? ''}` +
           (signal
             ? `,${x.clockCorrectionSignalSeconds ?? ''},${x.groupDelaySeconds ?? ''},${x.groupDelayField ?? ''}`
             : '') +

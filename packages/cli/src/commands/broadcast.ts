@@ -136,7 +136,7 @@ export const broadcastCommand: Command = {
     'include-unhealthy': { type: 'boolean', description: 'Also use records whose health word is non-zero.' },
     ...formatFlags(TABLE_JSON_CSV, {
       json: 'Print one JSON object (same as --format json).',
-      csv: 'Print CSV rows (id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message; with --signal also clockCorrectionSignalSeconds,groupDelaySeconds,groupDelayField); the caution goes to stderr.',
+      csv: 'Print CSV rows (id,t,timeScale,relativisticSeconds,clockCorrectionSeconds,toe,toeScale,issueOfData,message; with --signal also clockCorrectionSignalSeconds,groupDelaySeconds,groupDelayField); the caution goes to stderr.',
     }),
   },
   details: `

@@ -313,6 +313,16 @@ describe('tauline broadcast', () => {
       ['UTC', null],
     ]);
     expect(json.satellites[1].samples.some((x: Record<string, unknown>) => 'toe' in x)).toBe(false);
+    // The CSV rows name the same scales: t on UTC, t_oe on GPST; no t_oe, no scale.
+    const csvArgs = ['broadcast', NAV3, '--from', '2024-01-07T00:00:00Z', '--to', '2024-01-07T00:00:00Z'];
+    const csv = (await run([...csvArgs, '--step', '600', '--satellite', 'R01,G05', '--time-scale', 'utc', '--csv'])).out
+      .trim()
+      .split('\n');
+    expect(csv.map((row) => row.split(',')).map((c) => [c[0], c[1], c[2], c[6]])).toEqual([
+      ['id', 't', 'timeScale', 'toeScale'],
+      ['G05', '2024-01-07T00:00:00Z', 'UTC', 'GPST'],
+      ['R01', '2024-01-07T00:00:00Z', 'UTC', ''],
+    ]);
   });
 
   it('tauline broadcast <v4.01> --galileo fnav uses the F/NAV record; the table and CSV outputs carry the same rows', async () => {
@@ -333,9 +343,9 @@ describe('tauline broadcast', () => {
     const j = JSON.parse((await run([...args, '--json'])).out);
     expect(j.satellites[0].samples.map((s: { message: string }) => s.message)).toEqual(['FNAV', 'FNAV']);
     const csv = (await run([...args, '--csv'])).out.trim().split('\n');
-    expect(csv[0]).toBe('id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message');
+    expect(csv[0]).toBe('id,t,timeScale,relativisticSeconds,clockCorrectionSeconds,toe,toeScale,issueOfData,message');
     expect(csv[1]).toBe(
-      `E11,2024-01-07T00:00:00,${j.satellites[0].samples[0].relativisticSeconds},${j.satellites[0].samples[0].clockCorrectionSeconds},2024-01-07T00:00:00,88,FNAV`,
+      `E11,2024-01-07T00:00:00,GST,${j.satellites[0].samples[0].relativisticSeconds},${j.satellites[0].samples[0].clockCorrectionSeconds},2024-01-07T00:00:00,GST,88,FNAV`,
     );
     const text = (await run(args)).out;
     expect(text).toMatch(/Δt_r \(ns\)/);
@@ -463,7 +473,7 @@ describe('tauline broadcast', () => {
       { encoding: 'utf8' },
     );
     expect(p.status).toBe(0);
-    expect(p.stdout.split('\n')[1]).toMatch(/^C03,2024-01-07T00:00:00,-?\d/);
+    expect(p.stdout.split('\n')[1]).toMatch(/^C03,2024-01-07T00:00:00,BDT,-?\d/);
   });
 });
 
@@ -494,7 +504,7 @@ describe('tauline broadcast --signal (single-frequency clock correction: IS-GPS-
     ]);
     expect(j.signal).toBeUndefined();
     expect((await run([...at00, '--satellite', 'G05', '--csv'])).out.split('\n')[0]).toBe(
-      'id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message',
+      'id,t,timeScale,relativisticSeconds,clockCorrectionSeconds,toe,toeScale,issueOfData,message',
     );
   });
 
@@ -565,7 +575,7 @@ describe('tauline broadcast --signal (single-frequency clock correction: IS-GPS-
     const s = (await samplesOf(args)).by('G05');
     const csv = (await run([...args, '--csv'])).out.trim().split('\n');
     expect(csv[0]).toBe(
-      'id,t,relativisticSeconds,clockCorrectionSeconds,toe,issueOfData,message,clockCorrectionSignalSeconds,groupDelaySeconds,groupDelayField',
+      'id,t,timeScale,relativisticSeconds,clockCorrectionSeconds,toe,toeScale,issueOfData,message,clockCorrectionSignalSeconds,groupDelaySeconds,groupDelayField',
     );
     expect(csv[1]!.endsWith(`,LNAV,${s.clockCorrectionSignalSeconds},-1e-8,TGD`)).toBe(true);
     const text = (await run(args)).out;
